@@ -1,0 +1,57 @@
+import { Module, type DynamicModule } from '@nestjs/common';
+import { ServeStaticModule } from '@nestjs/serve-static';
+import { join } from 'node:path';
+import { AuditModule } from './audit/audit.module.js';
+import { AuthModule } from './auth/auth.module.js';
+import { BaysModule } from './bays/bays.module.js';
+import { BoardModule } from './board/board.module.js';
+import { APP_CONFIG, type AppConfig } from './config/app-config.js';
+import { DatabaseModule } from './db/database.module.js';
+import { DemoModule } from './demo/demo.module.js';
+import { HealthModule } from './health/health.module.js';
+import { LabourModule } from './labour/labour.module.js';
+import { LiveModule } from './live/live.module.js';
+import { PunchesModule } from './punches/punches.module.js';
+import { ScreensModule } from './screens/screens.module.js';
+import { ShopModule } from './shop/shop.module.js';
+import { UsersModule } from './users/users.module.js';
+import { WorkModule } from './work/work.module.js';
+
+/** The front ends: kiosk under /kiosk, the board (wall and office) at the root, each falling back to its index.html. */
+function frontEnds(staticRoot: string): DynamicModule[] {
+  return [
+    ServeStaticModule.forRoot(
+      { rootPath: join(staticRoot, 'kiosk', 'dist'), serveRoot: '/kiosk', exclude: ['/api/{*path}'] },
+      { rootPath: join(staticRoot, 'board', 'dist'), exclude: ['/api/{*path}', '/kiosk/{*path}'] },
+    ),
+  ];
+}
+
+@Module({})
+export class AppModule {
+  static forRoot(config: AppConfig): DynamicModule {
+    return {
+      module: AppModule,
+      global: true,
+      providers: [{ provide: APP_CONFIG, useValue: config }],
+      exports: [APP_CONFIG],
+      imports: [
+        DatabaseModule,
+        AuditModule,
+        LiveModule,
+        AuthModule,
+        ShopModule,
+        LabourModule,
+        UsersModule,
+        BaysModule,
+        ScreensModule,
+        BoardModule,
+        PunchesModule,
+        WorkModule,
+        HealthModule,
+        DemoModule,
+        ...(config.staticRoot ? frontEnds(config.staticRoot) : []),
+      ],
+    };
+  }
+}

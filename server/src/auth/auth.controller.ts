@@ -1,0 +1,52 @@
+import { Body, Controller, Get, HttpCode, Post, UseGuards } from '@nestjs/common';
+import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
+import {
+  badgeLoginSchema,
+  loginSchema,
+  pairScreenSchema,
+  type AuthUser,
+  type BadgeLoginBody,
+  type LoginBody,
+  type PairScreenBody,
+  type SignInAnswer,
+} from '@baytime/shared';
+import { CurrentUser, Public } from '../common/decorators/auth.decorators.js';
+import { AuthService } from './auth.service.js';
+import type { Principal } from './principal.js';
+
+@Controller()
+export class AuthController {
+  constructor(private readonly auth: AuthService) {}
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Throttle({ default: { limit: 60, ttl: 60_000 } })
+  @Post('auth/login')
+  @HttpCode(200)
+  login(@Body({ schema: loginSchema }) body: LoginBody): Promise<SignInAnswer> {
+    return this.auth.login(body);
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Throttle({ default: { limit: 60, ttl: 60_000 } })
+  @Post('auth/badge')
+  @HttpCode(200)
+  badge(@Body({ schema: badgeLoginSchema }) body: BadgeLoginBody): Promise<SignInAnswer> {
+    return this.auth.badge(body);
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Throttle({ default: { limit: 30, ttl: 60_000 } })
+  @Post('auth/screens/pair')
+  @HttpCode(200)
+  pair(@Body({ schema: pairScreenSchema }) body: PairScreenBody): { accessToken: string } {
+    return this.auth.pairScreen(body);
+  }
+
+  @Get('me')
+  me(@CurrentUser() user: Principal): AuthUser {
+    return user;
+  }
+}

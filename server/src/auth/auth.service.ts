@@ -1,0 +1,100 @@
+import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
+import { JwtService } from '@nestjs/jwt';
+import { and, eq, isNull } from 'drizzle-orm';
+import type { BadgeLoginBody, LoginBody, PairScreenBody, SignInAnswer } from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { screens, users } from '../db/schema/index.js';
+import { FailedAttempts } from './failed-attempts.js';
+import { verifySecret } from './passwords.js';
+import type { Principal, TokenPayload } from './principal.js';
+import { hashPairingCode } from '../screens/pairing-code.js';
+
+const OFFICE_TOKEN_TTL = '12h';
+const KIOSK_TOKEN_TTL = '2h';
+/** A wall screen stays paired until the owner revokes it. */
+const DISPLAY_TOKEN_TTL = '3650d';
+
+@Injectable()
+export class AuthService {
+  private readonly failures = new FailedAttempts();
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly jwt: JwtService,
+  ) {}
+
+  async login({ email, password }: LoginBody): Promise<SignInAnswer> {
+    const key = `email:${email.toLowerCase()}`;
+    this.failures.assertAllowed(key);
+    const user = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
+    const ok = await verifySecret(password, user?.passwordHash ?? null);
+    if (!user || !ok || !user.active || user.role === 'technician') {
+      this.failures.fail(key);
+      throw new UnauthorizedException('E-mail or password not recognised');
+    }
+    this.failures.succeed(key);
+    return this.answer(user, OFFICE_TOKEN_TTL);
+  }
+
+  async badge({ badge, pin }: BadgeLoginBody): Promise<SignInAnswer> {
+    const key = `badge:${badge}`;
+    this.failures.assertAllowed(key);
+    const user = this.db.select().from(users).where(eq(users.badge, badge)).get();
+    const ok = await verifySecret(pin, user?.pinHash ?? null);
+    if (!user || !ok || !user.active || user.role !== 'technician') {
+      this.failures.fail(key);
+      throw new UnauthorizedException('Badge or PIN not recognised');
+    }
+    this.failures.succeed(key);
+    return this.answer(user, KIOSK_TOKEN_TTL);
+  }
+
+  pairScreen({ code }: PairScreenBody): { accessToken: string } {
+    const now = new Date();
+    const screen = this.db
+      .select()
+      .from(screens)
+      .where(and(eq(screens.pairingCodeHash, hashPairingCode(code)), isNull(screens.revokedAt)))
+      .get();
+    if (!screen || !screen.pairingExpiresAt || screen.pairingExpiresAt < now)
+      throw new UnauthorizedException('That pairing code is unknown or has expired');
+    this.db
+      .update(screens)
+      .set({ pairingCodeHash: null, pairingExpiresAt: null, pairedAt: now, lastSeenAt: now })
+      .where(eq(screens.id, screen.id))
+      .run();
+    const payload: TokenPayload = { sub: screen.id, role: 'display' };
+    return { accessToken: this.jwt.sign(payload, { expiresIn: DISPLAY_TOKEN_TTL }) };
+  }
+
+  /** The one place a token becomes a caller, for HTTP and for the live socket alike. */
+  principalFor(payload: TokenPayload): Principal | null {
+    if (payload.role === 'display') {
+      const screen = this.db.select().from(screens).where(eq(screens.id, payload.sub)).get();
+      if (!screen || screen.revokedAt || !screen.pairedAt) return null;
+      return { id: screen.id, name: screen.name, role: 'display' };
+    }
+    const user = this.db.select().from(users).where(eq(users.id, payload.sub)).get();
+    if (!user || !user.active || user.role !== payload.role) return null;
+    return { id: user.id, name: user.name, role: user.role };
+  }
+
+  verifyToken(token: string): Principal | null {
+    try {
+      return this.principalFor(this.jwt.verify<TokenPayload>(token));
+    } catch {
+      return null;
+    }
+  }
+
+  private answer(
+    user: { id: number; name: string; role: Principal['role'] },
+    expiresIn: string,
+  ): SignInAnswer {
+    const payload: TokenPayload = { sub: user.id, role: user.role };
+    return {
+      accessToken: this.jwt.sign(payload, { expiresIn: expiresIn as '1h' }),
+      user: { id: user.id, name: user.name, role: user.role },
+    };
+  }
+}

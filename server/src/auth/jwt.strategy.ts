@@ -1,0 +1,21 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { PassportStrategy } from '@nestjs/passport';
+import { ExtractJwt, Strategy } from 'passport-jwt';
+import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
+import { AuthService } from './auth.service.js';
+import type { Principal, TokenPayload } from './principal.js';
+
+@Injectable()
+export class JwtStrategy extends PassportStrategy(Strategy) {
+  constructor(
+    @Inject(APP_CONFIG) config: AppConfig,
+    private readonly auth: AuthService,
+  ) {
+    super({ jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: config.jwtSecret });
+  }
+
+  /** passport answers 401 when this returns false: a deactivated user or a revoked screen. */
+  validate(payload: TokenPayload): Principal | false {
+    return this.auth.principalFor(payload) ?? false;
+  }
+}

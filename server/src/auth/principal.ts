@@ -1,0 +1,13 @@
+import type { Role } from '@baytime/shared';
+
+/** Who is calling: a person, or a paired wall screen (role `display`, id = the screen's id). */
+export interface Principal {
+  id: number;
+  name: string;
+  role: Role;
+}
+
+export interface TokenPayload {
+  sub: number;
+  role: Role;
+}

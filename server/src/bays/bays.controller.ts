@@ -1,0 +1,38 @@
+import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
+import {
+  createBaySchema,
+  updateBaySchema,
+  type BayDto,
+  type CreateBayBody,
+  type UpdateBayBody,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
+import { idParamSchema } from '../common/id-param.js';
+import { BaysService } from './bays.service.js';
+
+@Controller('bays')
+export class BaysController {
+  constructor(private readonly bays: BaysService) {}
+
+  @Get()
+  list(): BayDto[] {
+    return this.bays.list();
+  }
+
+  @Roles('owner')
+  @Post()
+  create(@Body({ schema: createBaySchema }) body: CreateBayBody, @CurrentUser() actor: Principal): BayDto {
+    return this.bays.create(body, actor);
+  }
+
+  @Roles('owner')
+  @Patch(':id')
+  update(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: updateBaySchema }) body: UpdateBayBody,
+    @CurrentUser() actor: Principal,
+  ): BayDto {
+    return this.bays.update(id, body, actor);
+  }
+}

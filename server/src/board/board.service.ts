@@ -1,0 +1,248 @@
+import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import { isDeepStrictEqual } from 'node:util';
+import type { Subscription } from 'rxjs';
+import { and, asc, eq, inArray, isNull, ne } from 'drizzle-orm';
+import {
+  shortName,
+  technicianState,
+  type BayState,
+  type BoardBay,
+  type BoardPerson,
+  type BoardQueueItem,
+  type BoardSnapshot,
+  type BoardTimer,
+} from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { bays, jobLines, repairOrders, timers, users, vehicles } from '../db/schema/index.js';
+import { LabourService } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+
+type LineRow = typeof jobLines.$inferSelect & { repairOrderNumber: string; vehicle: string };
+
+const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
+
+/** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
+function leadLine(lines: LineRow[], clockedOn: Set<number>): LineRow | undefined {
+  return [...lines].sort(
+    (a, b) =>
+      Number(clockedOn.has(b.id)) - Number(clockedOn.has(a.id)) ||
+      Number(b.status === 'held') - Number(a.status === 'held') ||
+      PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
+      a.id - b.id,
+  )[0];
+}
+
+/** Builds what every screen shows of the floor, from the database and the punches, at one instant. */
+@Injectable()
+export class BoardService implements OnModuleInit, OnModuleDestroy {
+  private published: BoardSnapshot | null = null;
+  private subscription: Subscription | null = null;
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly shop: ShopService,
+    private readonly labour: LabourService,
+    private readonly live: LiveService,
+  ) {}
+
+  onModuleInit(): void {
+    this.subscription = this.live.floorChanged$.subscribe(() => this.publishChanges());
+  }
+
+  onModuleDestroy(): void {
+    this.subscription?.unsubscribe();
+  }
+
+  current(): BoardSnapshot {
+    return this.snapshot(this.live.seq);
+  }
+
+  /** Sends what changed since the last publication: a message per changed bay, one for people and queue. */
+  publishChanges(now = new Date()): void {
+    const before = this.published ?? this.snapshot(this.live.seq, now);
+    const after = this.snapshot(this.live.seq, now);
+    for (const bay of after.bays) {
+      const old = before.bays.find((b) => b.id === bay.id);
+      if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay });
+    }
+    if (
+      after.bays.length !== before.bays.length ||
+      !isDeepStrictEqual([after.people, after.queue], [before.people, before.queue])
+    )
+      this.live.publish('floor.updated', { people: after.people, queue: after.queue });
+    this.published = { ...after, seq: this.live.seq };
+  }
+
+  snapshot(seq: number, now = new Date()): BoardSnapshot {
+    const settings = this.shop.settings();
+    const openLines = this.openLines();
+    const technicians = this.db
+      .select()
+      .from(users)
+      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
+      .orderBy(asc(users.name))
+      .all();
+    const states = new Map(
+      technicians.map((tech) => [tech.id, technicianState(this.labour.currentLedger(tech.id, now))]),
+    );
+    const clockedOn = new Map<number, number[]>();
+    for (const [techId, state] of states)
+      for (const lineId of state.openJobLineIds)
+        clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), techId]);
+    const names = new Map(technicians.map((tech) => [tech.id, shortName(tech.name)]));
+    const seconds = this.labour.lineSeconds(
+      openLines.map((line) => line.id),
+      now,
+    );
+    const runningTimers = this.db.select().from(timers).where(isNull(timers.endedAt)).all();
+    const linesById = new Map(openLines.map((line) => [line.id, line]));
+
+    const boardBays: BoardBay[] = this.db
+      .select()
+      .from(bays)
+      .where(eq(bays.active, true))
+      .orderBy(asc(bays.position), asc(bays.id))
+      .all()
+      .map((bay) => {
+        const inBay = openLines.filter((line) => line.bayId === bay.id);
+        const line = leadLine(inBay, new Set(clockedOn.keys()));
+        const timer = runningTimers.find((t) => t.bayId === bay.id);
+        const onLine = line ? (clockedOn.get(line.id) ?? []) : [];
+        const assigned = line?.technicianId ? [line.technicianId] : [];
+        const techIds = [...new Set([...onLine, ...assigned])];
+        const state: BayState = timer
+          ? 'timer'
+          : inBay.some((l) => clockedOn.has(l.id))
+            ? 'working'
+            : line?.status === 'held'
+              ? 'held'
+              : line && bay.phase === 'free'
+                ? 'staged'
+                : bay.phase;
+        const ro = line
+          ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
+          : this.repairOrderOf(bay.repairOrderId);
+        return {
+          id: bay.id,
+          name: bay.name,
+          state,
+          holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
+          heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
+          vehicle: ro?.vehicle ?? null,
+          repairOrder: ro ? { id: ro.id, number: ro.number } : null,
+          jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
+          technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
+          clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
+          bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
+          clockRunning: line ? clockedOn.has(line.id) : false,
+          timer: timer ? this.boardTimer(timer, now) : null,
+        };
+      });
+
+    const bayNames = new Map(boardBays.map((bay) => [bay.id, bay.name]));
+    const people: BoardPerson[] = technicians.flatMap((tech) => {
+      const state = states.get(tech.id);
+      if (!state || state.status === 'off' || !state.since) return [];
+      const line = linesById.get(state.openJobLineIds[0] ?? -1);
+      return [
+        {
+          id: tech.id,
+          name: shortName(tech.name),
+          status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
+          since: (line ? this.clockedOnSince(tech.id, line.id, now) : state.since).toISOString(),
+          bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
+          jobLineTitle: line?.title ?? null,
+        },
+      ];
+    });
+
+    const queue: BoardQueueItem[] = openLines
+      .filter((line) => line.technicianId === null && line.status === 'queued')
+      .sort(
+        (a, b) =>
+          PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
+          a.queuedAt.getTime() - b.queuedAt.getTime(),
+      )
+      .map((line) => ({
+        jobLineId: line.id,
+        repairOrderNumber: line.repairOrderNumber,
+        title: line.title,
+        priority: line.priority,
+        waitingSince: line.queuedAt.toISOString(),
+      }));
+
+    return {
+      seq,
+      serverTime: now.toISOString(),
+      shop: { name: settings.name, timeZone: settings.timeZone },
+      bays: boardBays,
+      people,
+      queue,
+    };
+  }
+
+  private openLines(): LineRow[] {
+    return this.db
+      .select({ line: jobLines, repairOrderNumber: repairOrders.number, vehicle: vehicles })
+      .from(jobLines)
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .where(ne(jobLines.status, 'done'))
+      .all()
+      .map(({ line, repairOrderNumber, vehicle }) => ({
+        ...line,
+        repairOrderNumber,
+        vehicle: describeVehicle(vehicle),
+      }));
+  }
+
+  private repairOrderOf(id: number | null): { id: number; number: string; vehicle: string } | null {
+    if (id === null) return null;
+    const row = this.db
+      .select({ id: repairOrders.id, number: repairOrders.number, vehicle: vehicles })
+      .from(repairOrders)
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .where(inArray(repairOrders.id, [id]))
+      .get();
+    return row ? { id: row.id, number: row.number, vehicle: describeVehicle(row.vehicle) } : null;
+  }
+
+  private clockedOnSince(technicianId: number, jobLineId: number, now: Date): Date {
+    const job = this.labour
+      .currentLedger(technicianId, now)
+      .jobs.find((interval) => interval.open && interval.jobLineId === jobLineId);
+    return job?.from ?? now;
+  }
+
+  private boardTimer(timer: typeof timers.$inferSelect, _now: Date): BoardTimer {
+    const endsAt =
+      timer.kind === 'hold' && timer.durationSeconds !== null
+        ? new Date(timer.startedAt.getTime() + timer.durationSeconds * 1000).toISOString()
+        : null;
+    return {
+      id: timer.id,
+      kind: timer.kind,
+      startedAt: timer.startedAt.toISOString(),
+      targetC: timer.targetC,
+      lastReadingC: null,
+      endsAt,
+      etaAt: null,
+      reached: timer.reachedAt !== null,
+      note: timer.label,
+    };
+  }
+}
+
+/** Clocked seconds tick on the screens by themselves; only a jump is news. */
+function sameBay(a: BoardBay, b: BoardBay): boolean {
+  const drift = Math.abs(a.clockedSeconds - b.clockedSeconds);
+  return (
+    isDeepStrictEqual({ ...a, clockedSeconds: 0 }, { ...b, clockedSeconds: 0 }) &&
+    (a.clockRunning || drift < 1)
+  );
+}
+
+export function describeVehicle(vehicle: { year: number; make: string; model: string }): string {
+  return `${vehicle.year} ${vehicle.make} ${vehicle.model}`;
+}

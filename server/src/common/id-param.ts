@@ -1,0 +1,3 @@
+import { z } from 'zod';
+
+export const idParamSchema = z.coerce.number().int().positive('An id is a positive whole number');

@@ -1,0 +1,11 @@
+import { NotFoundException } from '@nestjs/common';
+
+export function foundOrFail<T>(row: T | undefined, what: string): T {
+  if (row === undefined) throw new NotFoundException(`${what} not found`);
+  return row;
+}
+
+/** SQLite's unique-index violation, to answer 409 instead of 500. */
+export function isUniqueViolation(error: unknown): boolean {
+  return (error as { code?: string } | null)?.code === 'SQLITE_CONSTRAINT_UNIQUE';
+}

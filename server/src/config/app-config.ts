@@ -1,0 +1,63 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { isAbsolute, join, resolve } from 'node:path';
+
+export interface AppConfig {
+  port: number;
+  dataDir: string;
+  dbFile: string;
+  uploadsDir: string;
+  backupsDir: string;
+  adminEmail: string | null;
+  adminPassword: string | null;
+  demo: boolean;
+  smtpUrl: string | null;
+  jwtSecret: string;
+  /** Built front ends to serve; absent in tests that only need the API. */
+  staticRoot: string | null;
+}
+
+export const APP_CONFIG = Symbol('APP_CONFIG');
+
+const truthy = (value: string | undefined) => value !== undefined && /^(1|true|yes|on)$/i.test(value);
+
+/** Reads the environment as the README documents it; creates the data dir and the JWT secret file. */
+export function loadConfig(
+  env: NodeJS.ProcessEnv = process.env,
+  staticRoot: string | null = null,
+): AppConfig {
+  const dataDir = resolve(env.BAYTIME_DATA_DIR ?? './data');
+  mkdirSync(dataDir, { recursive: true });
+  const dbName = env.BAYTIME_DB ?? 'baytime.sqlite';
+  const port = Number(env.PORT ?? 3000);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`PORT is not a port: ${env.PORT}`);
+  const adminEmail = env.BAYTIME_ADMIN_EMAIL?.trim() || null;
+  const adminPassword = env.BAYTIME_ADMIN_PASSWORD || null;
+  if ((adminEmail === null) !== (adminPassword === null))
+    throw new Error('Set BAYTIME_ADMIN_EMAIL and BAYTIME_ADMIN_PASSWORD together');
+
+  const config: AppConfig = {
+    port,
+    dataDir,
+    dbFile: isAbsolute(dbName) ? dbName : join(dataDir, dbName),
+    uploadsDir: join(dataDir, 'uploads'),
+    backupsDir: join(dataDir, 'backups'),
+    adminEmail,
+    adminPassword,
+    demo: truthy(env.BAYTIME_DEMO),
+    smtpUrl: env.BAYTIME_SMTP_URL?.trim() || null,
+    jwtSecret: env.JWT_SECRET || keptSecret(dataDir),
+    staticRoot,
+  };
+  mkdirSync(config.uploadsDir, { recursive: true });
+  mkdirSync(config.backupsDir, { recursive: true });
+  return config;
+}
+
+function keptSecret(dataDir: string): string {
+  const file = join(dataDir, 'jwt-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, `${secret}\n`, { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,23 @@
+import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
+import { DB, openDatabase, SQLITE, type Sqlite, type Db } from './database.js';
+
+@Global()
+@Module({
+  providers: [
+    {
+      provide: SQLITE,
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig): Sqlite => openDatabase(config.dbFile),
+    },
+    { provide: DB, inject: [SQLITE], useFactory: (sqlite: Sqlite): Db => sqlite.db },
+  ],
+  exports: [DB, SQLITE],
+})
+export class DatabaseModule implements OnApplicationShutdown {
+  constructor(@Inject(SQLITE) private readonly sqlite: Sqlite) {}
+
+  onApplicationShutdown(): void {
+    if (this.sqlite.connection.open) this.sqlite.connection.close();
+  }
+}

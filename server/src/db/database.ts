@@ -1,0 +1,37 @@
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { count } from 'drizzle-orm';
+import type { AnySQLiteTable } from 'drizzle-orm/sqlite-core';
+import { fileURLToPath } from 'node:url';
+import * as schema from './schema/index.js';
+
+export type Db = BetterSQLite3Database<typeof schema>;
+export interface Sqlite {
+  connection: Database.Database;
+  db: Db;
+}
+export const DB = Symbol('DB');
+export const SQLITE = Symbol('SQLITE');
+
+const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url));
+
+/**
+ * One writer connection, migrated before anything else runs (a failed migration stops start-up).
+ * WAL with synchronous=FULL: a punch the server acknowledged has been fsynced to the WAL, so a
+ * kill -9 or power cut right after the answer does not lose it.
+ */
+export function openDatabase(file: string): Sqlite {
+  const connection = new Database(file);
+  connection.pragma('journal_mode = WAL');
+  connection.pragma('synchronous = FULL');
+  connection.pragma('foreign_keys = ON');
+  connection.pragma('busy_timeout = 5000');
+  const db = drizzle(connection, { schema });
+  migrate(db, { migrationsFolder });
+  return { connection, db };
+}
+
+export function countRows(db: Db, table: AnySQLiteTable): number {
+  return db.select({ rows: count() }).from(table).get()?.rows ?? 0;
+}

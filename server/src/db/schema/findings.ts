@@ -1,0 +1,43 @@
+import { sqliteTable, integer, real, text, index } from 'drizzle-orm/sqlite-core';
+import { FINDING_ANSWERS, FINDING_SEVERITIES } from '@baytime/shared';
+import { users } from './people.js';
+import { jobLines } from './work.js';
+
+export const findings = sqliteTable(
+  'findings',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    jobLineId: integer('job_line_id')
+      .notNull()
+      .references(() => jobLines.id),
+    technicianId: integer('technician_id')
+      .notNull()
+      .references(() => users.id),
+    note: text('note').notNull(),
+    severity: text('severity', { enum: FINDING_SEVERITIES }).notNull(),
+    suggestedHours: real('suggested_hours'),
+    answer: text('answer', { enum: FINDING_ANSWERS }).notNull().default('pending'),
+    answeredBy: integer('answered_by').references(() => users.id),
+    answeredAt: integer('answered_at', { mode: 'timestamp_ms' }),
+    createdLineId: integer('created_line_id').references(() => jobLines.id),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [index('findings_job_line_id_idx').on(t.jobLineId), index('findings_answer_idx').on(t.answer)],
+);
+
+/** A photo on disk under the data dir, named randomly by the server; never a client-given path. */
+export const attachments = sqliteTable(
+  'attachments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    findingId: integer('finding_id')
+      .notNull()
+      .references(() => findings.id),
+    storedName: text('stored_name').notNull(),
+    previewName: text('preview_name'),
+    mimeType: text('mime_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [index('attachments_finding_id_idx').on(t.findingId)],
+);

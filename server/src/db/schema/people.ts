@@ -1,0 +1,39 @@
+import { sqliteTable, integer, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { ROLES } from '@baytime/shared';
+
+export const users = sqliteTable(
+  'users',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    name: text('name').notNull(),
+    role: text('role', { enum: ROLES }).notNull(),
+    email: text('email'),
+    passwordHash: text('password_hash'),
+    badge: text('badge'),
+    pinHash: text('pin_hash'),
+    skillLevel: integer('skill_level').notNull().default(1),
+    flatRateCents: integer('flat_rate_cents').notNull().default(0),
+    hourlyRateCents: integer('hourly_rate_cents').notNull().default(0),
+    overtimeExempt: integer('overtime_exempt', { mode: 'boolean' }).notNull().default(false),
+    active: integer('active', { mode: 'boolean' }).notNull().default(true),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [uniqueIndex('users_email_idx').on(t.email), uniqueIndex('users_badge_idx').on(t.badge)],
+);
+
+/** A wall screen: paired once with a one-time code, then signs in with a display token. */
+export const screens = sqliteTable(
+  'screens',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    name: text('name').notNull(),
+    pairingCodeHash: text('pairing_code_hash'),
+    pairingExpiresAt: integer('pairing_expires_at', { mode: 'timestamp_ms' }),
+    pairedAt: integer('paired_at', { mode: 'timestamp_ms' }),
+    lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }),
+    revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+    createdBy: integer('created_by').references(() => users.id),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [uniqueIndex('screens_pairing_code_hash_idx').on(t.pairingCodeHash)],
+);

@@ -1,0 +1,36 @@
+import { sqliteTable, integer, text, index } from 'drizzle-orm/sqlite-core';
+import { users } from './people.js';
+
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+    actorId: integer('actor_id').references(() => users.id),
+    action: text('action').notNull(),
+    entity: text('entity').notNull(),
+    entityId: text('entity_id').notNull(),
+    detail: text('detail', { mode: 'json' }).$type<Record<string, unknown>>(),
+  },
+  (t) => [index('audit_log_entity_entity_id_idx').on(t.entity, t.entityId)],
+);
+
+export const MAIL_STATUSES = ['queued', 'sent', 'failed'] as const;
+
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    recipient: text('recipient').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    attachments: text('attachments', { mode: 'json' }).$type<{ filename: string; path: string }[]>(),
+    status: text('status', { enum: MAIL_STATUSES }).notNull().default('queued'),
+    attempts: integer('attempts').notNull().default(0),
+    nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }).notNull(),
+    lastError: text('last_error'),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+    sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
+  },
+  (t) => [index('mail_outbox_status_next_attempt_at_idx').on(t.status, t.nextAttemptAt)],
+);

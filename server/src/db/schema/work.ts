@@ -1,0 +1,106 @@
+import { sqliteTable, integer, real, text, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import {
+  BAY_KINDS,
+  HOLD_REASONS,
+  JOB_LINE_STATUSES,
+  PRIORITIES,
+  REPAIR_ORDER_STATUSES,
+} from '@baytime/shared';
+import { users } from './people.js';
+
+export const BAY_PHASES = ['free', 'staged', 'check', 'ready'] as const;
+
+export const customers = sqliteTable('customers', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  name: text('name').notNull(),
+  phone: text('phone'),
+  email: text('email'),
+  createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+});
+
+export const vehicles = sqliteTable(
+  'vehicles',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    customerId: integer('customer_id')
+      .notNull()
+      .references(() => customers.id),
+    vin: text('vin').notNull(),
+    year: integer('year').notNull(),
+    make: text('make').notNull(),
+    model: text('model').notNull(),
+    plate: text('plate'),
+    lastOdometer: integer('last_odometer'),
+  },
+  (t) => [uniqueIndex('vehicles_vin_idx').on(t.vin)],
+);
+
+/**
+ * A bay's own phase; the board shows `timer`, `working` or `held` on top of it when a timer runs,
+ * someone is clocked on, or the line in the bay is held.
+ */
+export const bays = sqliteTable('bays', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  name: text('name').notNull(),
+  kind: text('kind', { enum: BAY_KINDS }).notNull().default('two-post'),
+  position: integer('position').notNull().default(0),
+  active: integer('active', { mode: 'boolean' }).notNull().default(true),
+  phase: text('phase', { enum: BAY_PHASES }).notNull().default('free'),
+  phaseSince: integer('phase_since', { mode: 'timestamp_ms' }).notNull(),
+  repairOrderId: integer('repair_order_id'),
+});
+
+export const repairOrders = sqliteTable(
+  'repair_orders',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    number: text('number').notNull(),
+    customerId: integer('customer_id')
+      .notNull()
+      .references(() => customers.id),
+    vehicleId: integer('vehicle_id')
+      .notNull()
+      .references(() => vehicles.id),
+    advisorId: integer('advisor_id').references(() => users.id),
+    concern: text('concern').notNull(),
+    odometer: integer('odometer').notNull(),
+    status: text('status', { enum: REPAIR_ORDER_STATUSES }).notNull().default('open'),
+    promisedAt: integer('promised_at', { mode: 'timestamp_ms' }),
+    createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+    closedAt: integer('closed_at', { mode: 'timestamp_ms' }),
+  },
+  (t) => [
+    uniqueIndex('repair_orders_number_idx').on(t.number),
+    index('repair_orders_status_idx').on(t.status),
+  ],
+);
+
+export const jobLines = sqliteTable(
+  'job_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    repairOrderId: integer('repair_order_id')
+      .notNull()
+      .references(() => repairOrders.id),
+    lineNo: integer('line_no').notNull(),
+    title: text('title').notNull(),
+    bookHours: real('book_hours').notNull(),
+    skillLevel: integer('skill_level').notNull().default(1),
+    status: text('status', { enum: JOB_LINE_STATUSES }).notNull().default('queued'),
+    holdReason: text('hold_reason', { enum: HOLD_REASONS }),
+    heldAt: integer('held_at', { mode: 'timestamp_ms' }),
+    priority: text('priority', { enum: PRIORITIES }).notNull().default('normal'),
+    technicianId: integer('technician_id').references(() => users.id),
+    bayId: integer('bay_id').references(() => bays.id),
+    promisedAt: integer('promised_at', { mode: 'timestamp_ms' }),
+    queuedAt: integer('queued_at', { mode: 'timestamp_ms' }).notNull(),
+    completedAt: integer('completed_at', { mode: 'timestamp_ms' }),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [
+    uniqueIndex('job_lines_repair_order_line_no_idx').on(t.repairOrderId, t.lineNo),
+    index('job_lines_technician_id_idx').on(t.technicianId),
+    index('job_lines_bay_id_idx').on(t.bayId),
+    index('job_lines_status_idx').on(t.status),
+  ],
+);

@@ -1,0 +1,43 @@
+import { Injectable } from '@nestjs/common';
+import { Subject } from 'rxjs';
+import type { ServerToClientEvents } from '@baytime/shared';
+
+type Payload<E extends keyof ServerToClientEvents> = Omit<Parameters<ServerToClientEvents[E]>[0], 'seq'>;
+
+export interface LiveMessage {
+  event: keyof ServerToClientEvents;
+  payload: { seq: number };
+}
+
+/**
+ * The one stream of live messages. Services publish domain events here and say when the floor
+ * changed; the gateway forwards messages to sockets. `seq` rises by one per message, shop-wide.
+ */
+@Injectable()
+export class LiveService {
+  private lastSeq = 0;
+  readonly messages$ = new Subject<LiveMessage>();
+  /** Fires once per tick however many changes were made in it. */
+  readonly floorChanged$ = new Subject<void>();
+  private changePending = false;
+
+  get seq(): number {
+    return this.lastSeq;
+  }
+
+  publish<E extends Exclude<keyof ServerToClientEvents, 'board.snapshot' | 'auth.error'>>(
+    event: E,
+    payload: Payload<E>,
+  ): void {
+    this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq } });
+  }
+
+  changed(): void {
+    if (this.changePending) return;
+    this.changePending = true;
+    queueMicrotask(() => {
+      this.changePending = false;
+      this.floorChanged$.next();
+    });
+  }
+}

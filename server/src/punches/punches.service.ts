@@ -1,0 +1,116 @@
+import {
+  BadRequestException,
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+} from '@nestjs/common';
+import { and, eq } from 'drizzle-orm';
+import {
+  MAX_PUNCH_AGE_SECONDS,
+  MAX_PUNCH_CLOCK_SKEW_SECONDS,
+  validatePunch,
+  type CreatePunchBody,
+  type LedgerPunch,
+  type PunchDto,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { DB, type Db } from '../db/database.js';
+import { jobLines, punches, users } from '../db/schema/index.js';
+import { LabourService, toPunchDto } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+import { toJobLineDto } from '../work/job-line.dto.js';
+
+/** Punches far enough back that they can decide whether a new one is possible. */
+const CONTEXT_MS = 48 * 3600_000;
+
+export interface RecordedPunch {
+  punch: PunchDto;
+  replayed: boolean;
+}
+
+@Injectable()
+export class PunchesService {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly labour: LabourService,
+    private readonly live: LiveService,
+    private readonly shop: ShopService,
+  ) {}
+
+  /**
+   * Records a punch once. The tablet's uuid makes a retry find the stored punch instead of adding a
+   * second one. Everything here is synchronous on one connection, so two requests never interleave.
+   */
+  record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
+    const technicianId = this.technicianFor(body, actor);
+    const existing = this.db.select().from(punches).where(eq(punches.id, body.id)).get();
+    if (existing) {
+      if (existing.technicianId !== technicianId)
+        throw new ConflictException('That punch id is already used');
+      return { punch: toPunchDto(existing), replayed: true };
+    }
+
+    const at = body.at ? new Date(body.at) : now;
+    if (at.getTime() > now.getTime() + MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000)
+      throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
+    if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
+      throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
+    const line = body.jobLineId
+      ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
+      : undefined;
+    if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
+    if (body.kind === 'job-on' && line?.status === 'done')
+      throw new ConflictException('That job line is done');
+
+    const candidate: LedgerPunch = {
+      id: body.id,
+      technicianId,
+      kind: body.kind,
+      jobLineId: body.jobLineId ?? null,
+      breakKind: body.kind === 'break-start' ? (body.breakKind ?? 'meal') : null,
+      at: at.toISOString(),
+      supersedes: null,
+    };
+    const context = this.labour.punchesOf(technicianId, new Date(at.getTime() - CONTEXT_MS), now);
+    const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
+    const refusal = validatePunch(context, candidate, { concurrentSplit, maxConcurrentJobs });
+    if (refusal) throw new ConflictException(refusal);
+
+    const row = this.db
+      .insert(punches)
+      .values({ ...candidate, at, recordedAt: now, recordedBy: actor.id })
+      .returning()
+      .get();
+    const punch = toPunchDto(row);
+    this.live.publish('punch.recorded', { punch });
+    if (line && body.kind === 'job-on' && line.status === 'queued') {
+      const updated = this.db
+        .update(jobLines)
+        .set({ status: 'working', updatedAt: now })
+        .where(eq(jobLines.id, line.id))
+        .returning()
+        .get();
+      this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
+    }
+    this.live.changed();
+    return { punch, replayed: false };
+  }
+
+  private technicianFor(body: CreatePunchBody, actor: Principal): number {
+    if (actor.role === 'technician') {
+      if (body.technicianId !== undefined && body.technicianId !== actor.id)
+        throw new ForbiddenException('A technician punches only for themself');
+      return actor.id;
+    }
+    if (body.technicianId === undefined) throw new BadRequestException('Say which technician (technicianId)');
+    const tech = this.db
+      .select()
+      .from(users)
+      .where(and(eq(users.id, body.technicianId), eq(users.role, 'technician')))
+      .get();
+    if (!tech || !tech.active) throw new BadRequestException('No active technician with that id');
+    return tech.id;
+  }
+}

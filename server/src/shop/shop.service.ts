@@ -1,0 +1,63 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { eq } from 'drizzle-orm';
+import type { ShopSettings, UpdateShopBody } from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { DB, type Db } from '../db/database.js';
+import { shopSettings } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
+
+const WEEKDAY_HOURS = { open: '07:30', close: '17:30' };
+
+/** A new shop's settings until the owner changes them. */
+export const DEFAULT_SHOP: ShopSettings = {
+  name: 'My shop',
+  timeZone: 'America/Chicago',
+  workweekStartDay: 0,
+  workweekStartHour: 0,
+  units: 'us',
+  maxConcurrentJobs: 1,
+  concurrentSplit: 'even',
+  minimumWageCents: 725,
+  overtimeRules: 'federal',
+  openingHours: [null, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, null],
+  kioskIdleSeconds: 60,
+  payNonProductiveSeparately: true,
+};
+
+@Injectable()
+export class ShopService {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly audit: AuditService,
+    private readonly live: LiveService,
+  ) {}
+
+  settings(): ShopSettings {
+    const row = this.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
+    if (!row) return DEFAULT_SHOP;
+    const { id: _id, updatedAt: _updatedAt, ...settings } = row;
+    return settings;
+  }
+
+  /** Creates the settings row on first start; keeps an existing one as it is. */
+  ensure(initial: Partial<ShopSettings> = {}): void {
+    this.db
+      .insert(shopSettings)
+      .values({ ...DEFAULT_SHOP, ...initial, id: 1, updatedAt: new Date() })
+      .onConflictDoNothing()
+      .run();
+  }
+
+  update(body: UpdateShopBody, actor: Principal): ShopSettings {
+    this.ensure();
+    this.db
+      .update(shopSettings)
+      .set({ ...body, updatedAt: new Date() })
+      .where(eq(shopSettings.id, 1))
+      .run();
+    this.audit.record({ actorId: actor.id, action: 'update', entity: 'shop', entityId: 1, detail: body });
+    this.live.changed();
+    return this.settings();
+  }
+}

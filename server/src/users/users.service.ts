@@ -1,0 +1,92 @@
+import { ConflictException, Inject, Injectable } from '@nestjs/common';
+import { asc, eq } from 'drizzle-orm';
+import type { CreateUserBody, UpdateUserBody, UserDto } from '@baytime/shared';
+import { hashSecret } from '../auth/passwords.js';
+import { AuditService } from '../audit/audit.service.js';
+import { foundOrFail, isUniqueViolation } from '../common/not-found.js';
+import { DB, type Db } from '../db/database.js';
+import { users } from '../db/schema/index.js';
+import type { Principal } from '../auth/principal.js';
+
+type UserRow = typeof users.$inferSelect;
+
+export function toUserDto(row: UserRow): UserDto {
+  return {
+    id: row.id,
+    name: row.name,
+    role: row.role,
+    email: row.email,
+    badge: row.badge,
+    skillLevel: row.skillLevel,
+    flatRateCents: row.flatRateCents,
+    hourlyRateCents: row.hourlyRateCents,
+    overtimeExempt: row.overtimeExempt,
+    active: row.active,
+  };
+}
+
+@Injectable()
+export class UsersService {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly audit: AuditService,
+  ) {}
+
+  list(): UserDto[] {
+    return this.db.select().from(users).orderBy(asc(users.name)).all().map(toUserDto);
+  }
+
+  async create(body: CreateUserBody, actor: Principal | null): Promise<UserDto> {
+    const { password, pin, email, ...rest } = body;
+    const row = this.insertOrConflict({
+      ...rest,
+      email: email?.toLowerCase() ?? null,
+      passwordHash: password ? await hashSecret(password) : null,
+      pinHash: pin ? await hashSecret(pin) : null,
+      createdAt: new Date(),
+    });
+    this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
+    return toUserDto(row);
+  }
+
+  async update(id: number, body: UpdateUserBody, actor: Principal): Promise<UserDto> {
+    foundOrFail(this.db.select().from(users).where(eq(users.id, id)).get(), 'User');
+    const { password, pin, email, ...rest } = body;
+    const changes: Partial<typeof users.$inferInsert> = { ...rest };
+    if (email !== undefined) changes.email = email.toLowerCase();
+    if (password !== undefined) changes.passwordHash = await hashSecret(password);
+    if (pin !== undefined) changes.pinHash = await hashSecret(pin);
+    const row = this.updateOrConflict(id, changes);
+    const fields = Object.keys(body).map((key) =>
+      key === 'password' || key === 'pin' ? `${key} (changed)` : key,
+    );
+    this.audit.record({
+      actorId: actor.id,
+      action: 'update',
+      entity: 'user',
+      entityId: id,
+      detail: { fields },
+    });
+    return toUserDto(row);
+  }
+
+  private insertOrConflict(values: typeof users.$inferInsert): UserRow {
+    try {
+      return this.db.insert(users).values(values).returning().get();
+    } catch (error) {
+      throw isUniqueViolation(error)
+        ? new ConflictException('That e-mail or badge is already in use')
+        : error;
+    }
+  }
+
+  private updateOrConflict(id: number, changes: Partial<typeof users.$inferInsert>): UserRow {
+    try {
+      return this.db.update(users).set(changes).where(eq(users.id, id)).returning().get();
+    } catch (error) {
+      throw isUniqueViolation(error)
+        ? new ConflictException('That e-mail or badge is already in use')
+        : error;
+    }
+  }
+}

@@ -1,0 +1,37 @@
+import { z } from 'zod';
+
+export const ROLES = ['owner', 'foreman', 'advisor', 'technician', 'display'] as const;
+export type Role = (typeof ROLES)[number];
+export const OFFICE_ROLES = ['owner', 'foreman', 'advisor'] as const satisfies readonly Role[];
+
+export const loginSchema = z.object({
+  email: z.email().max(200),
+  password: z.string().min(1).max(200),
+});
+export type LoginBody = z.infer<typeof loginSchema>;
+
+export const badgeLoginSchema = z.object({
+  badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),
+  pin: z.string().regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits'),
+});
+export type BadgeLoginBody = z.infer<typeof badgeLoginSchema>;
+
+export const pairScreenSchema = z.object({
+  code: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z0-9]{6}$/, 'A pairing code is 6 letters or digits'),
+});
+export type PairScreenBody = z.infer<typeof pairScreenSchema>;
+
+export interface AuthUser {
+  id: number;
+  name: string;
+  role: Role;
+}
+
+export interface SignInAnswer {
+  accessToken: string;
+  user: AuthUser;
+}

@@ -1,0 +1,66 @@
+import type { BayState, HoldReason } from '../bays/bays.schema.js';
+import type { JobLineStatus, Priority } from '../work/work.schema.js';
+import type { TimerKind } from '../timers/timers.schema.js';
+
+export interface BoardPersonRef {
+  id: number;
+  /** First name and initial only: a wall screen never shows more. */
+  name: string;
+}
+
+export interface BoardTimer {
+  id: number;
+  kind: TimerKind;
+  startedAt: string;
+  targetC: number | null;
+  lastReadingC: number | null;
+  /** Fixed holds end at a known time; temperature timers carry the estimator's answer. */
+  endsAt: string | null;
+  etaAt: string | null;
+  reached: boolean;
+  note: string | null;
+}
+
+export interface BoardBay {
+  id: number;
+  name: string;
+  state: BayState;
+  holdReason: HoldReason | null;
+  heldSince: string | null;
+  vehicle: string | null;
+  repairOrder: { id: number; number: string } | null;
+  jobLine: { id: number; lineNo: number; title: string; status: JobLineStatus } | null;
+  technicians: BoardPersonRef[];
+  clockedSeconds: number;
+  bookSeconds: number;
+  /** Clocked time is counted up to `asOf`; an open interval keeps running after it. */
+  clockRunning: boolean;
+  timer: BoardTimer | null;
+}
+
+export const PERSON_STATUSES = ['on-job', 'idle', 'on-break'] as const;
+export type PersonStatus = (typeof PERSON_STATUSES)[number];
+
+export interface BoardPerson extends BoardPersonRef {
+  status: PersonStatus;
+  since: string;
+  bayName: string | null;
+  jobLineTitle: string | null;
+}
+
+export interface BoardQueueItem {
+  jobLineId: number;
+  repairOrderNumber: string;
+  title: string;
+  priority: Priority;
+  waitingSince: string;
+}
+
+export interface BoardSnapshot {
+  seq: number;
+  serverTime: string;
+  shop: { name: string; timeZone: string };
+  bays: BoardBay[];
+  people: BoardPerson[];
+  queue: BoardQueueItem[];
+}

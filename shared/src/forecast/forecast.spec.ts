@@ -1,0 +1,185 @@
+import { describe, expect, it } from 'vitest';
+import type { OpeningHours } from '../shop/shop.schema.js';
+import { addOpenHours, forecastTechnicianQueue, type QueueForecastInput } from './forecast.js';
+
+// America/Chicago: CST is UTC−6, CDT is UTC−5. US DST 2026 (Pub. L. 109-58 §110, CHECKS.md §4): clocks
+// go forward on Sunday 8 March and back on Sunday 1 November, at 2 a.m. local.
+const ZONE = 'America/Chicago';
+const day = { open: '07:30', close: '17:30' };
+// Sunday first.
+const WEEKDAYS: OpeningHours = [null, day, day, day, day, day, null];
+const WITH_SATURDAY_MORNING: OpeningHours = [
+  null,
+  day,
+  day,
+  day,
+  day,
+  day,
+  { open: '08:00', close: '12:00' },
+];
+const ALL_DAY: OpeningHours = Array.from({ length: 7 }, () => ({ open: '00:00', close: '23:59' }));
+
+const utc = (iso: string) => new Date(`${iso}Z`);
+
+function forecast(input: Partial<QueueForecastInput> & Pick<QueueForecastInput, 'lines' | 'now'>) {
+  return forecastTechnicianQueue({ efficiency: 1, openingHours: WEEKDAYS, timeZone: ZONE, ...input });
+}
+
+describe(forecastTechnicianQueue.name, () => {
+  it('divides book hours by efficiency', () => {
+    // 2.0 h at 125 % = 2.0 ÷ 1.25 = 1.6 h = 1 h 36 min. Tue 3 Mar 09:00 CST (15:00Z) → 10:36 CST (16:36Z).
+    const [sut] = forecast({
+      lines: [{ id: 1, remainingBookHours: 2 }],
+      efficiency: 1.25,
+      now: utc('2026-03-03T15:00'),
+    });
+    expect(sut).toEqual({
+      id: 1,
+      workHours: 1.6,
+      startAt: utc('2026-03-03T15:00'),
+      finishAt: utc('2026-03-03T16:36'),
+      late: false,
+    });
+  });
+
+  it('queues lines one after another and flags the late ones', () => {
+    // Efficiency 80 %: A 2.0 ÷ 0.8 = 2.5 h, 09:00 → 11:30; B 4.0 ÷ 0.8 = 5 h, 11:30 → 16:30 (promised
+    // 16:00: late); C 1.6 ÷ 0.8 = 2 h, 1 h to the 17:30 close, 1 h from Wed 07:30 → 08:30 (promised
+    // exactly then: on time). Times CST = UTC−6.
+    const sut = forecast({
+      efficiency: 0.8,
+      now: utc('2026-03-03T15:00'),
+      lines: [
+        { id: 1, remainingBookHours: 2, promisedAt: '2026-03-03T12:00:00-06:00' },
+        { id: 2, remainingBookHours: 4, promisedAt: new Date('2026-03-03T16:00:00-06:00') },
+        { id: 3, remainingBookHours: 1.6, promisedAt: '2026-03-04T08:30:00-06:00' },
+        { id: 4, remainingBookHours: 0.5, promisedAt: null },
+      ],
+    });
+    expect(sut.map(({ id, startAt, finishAt, late }) => ({ id, startAt, finishAt, late }))).toEqual([
+      { id: 1, startAt: utc('2026-03-03T15:00'), finishAt: utc('2026-03-03T17:30'), late: false },
+      { id: 2, startAt: utc('2026-03-03T17:30'), finishAt: utc('2026-03-03T22:30'), late: true },
+      { id: 3, startAt: utc('2026-03-03T22:30'), finishAt: utc('2026-03-04T14:30'), late: false },
+      // 0.5 ÷ 0.8 = 0.625 h = 37.5 min after 08:30.
+      { id: 4, startAt: utc('2026-03-04T14:30'), finishAt: utc('2026-03-04T15:07:30'), late: false },
+    ]);
+  });
+
+  it('carries a line that does not fit today into the next working day', () => {
+    // Starts 16:30 with 2 h left, closes 17:30: 1 h today, 1 h from 07:30 tomorrow → 08:30 CST.
+    const [sut] = forecast({ lines: [{ id: 1, remainingBookHours: 2 }], now: utc('2026-03-03T22:30') });
+    expect(sut!.finishAt).toEqual(utc('2026-03-04T14:30'));
+  });
+
+  it('finishes at the close when the work fits exactly, and starts the next line at the next opening', () => {
+    // 15:30 + 2 h = 17:30 CST; the next line waits for Wed 07:30 CST (13:30Z).
+    const sut = forecast({
+      lines: [
+        { id: 1, remainingBookHours: 2 },
+        { id: 2, remainingBookHours: 1 },
+      ],
+      now: utc('2026-03-03T21:30'),
+    });
+    expect(sut[0]!.finishAt).toEqual(utc('2026-03-03T23:30'));
+    expect(sut[1]).toMatchObject({ startAt: utc('2026-03-04T13:30'), finishAt: utc('2026-03-04T14:30') });
+  });
+
+  it('starts at the next opening when the shop is closed now', () => {
+    // Tue 06:00 CST → 07:30; Tue 18:00 CST → Wed 07:30; Sun 1 Mar 10:00 CST → Mon 2 Mar 07:30 (13:30Z).
+    const startAt = (now: string) =>
+      forecast({ lines: [{ id: 1, remainingBookHours: 1 }], now: utc(now) })[0]!.startAt;
+    expect(startAt('2026-03-03T12:00')).toEqual(utc('2026-03-03T13:30'));
+    expect(startAt('2026-03-04T00:00')).toEqual(utc('2026-03-04T13:30'));
+    expect(startAt('2026-03-01T16:00')).toEqual(utc('2026-03-02T13:30'));
+  });
+
+  it('skips the weekend', () => {
+    // Fri 27 Feb 16:00 CST, 3 h: 1.5 h to the 17:30 close; Sat and Sun closed; 1.5 h from Mon 2 Mar 07:30
+    // → 09:00 CST (15:00Z). With Saturday 08:00–12:00 open: 1.5 h from Sat 08:00 → 09:30 CST (15:30Z).
+    const lines = [{ id: 1, remainingBookHours: 3 }];
+    const now = utc('2026-02-27T22:00');
+    expect(forecast({ lines, now })[0]!.finishAt).toEqual(utc('2026-03-02T15:00'));
+    expect(forecast({ lines, now, openingHours: WITH_SATURDAY_MORNING })[0]!.finishAt).toEqual(
+      utc('2026-02-28T15:30'),
+    );
+  });
+
+  it('follows the shop clock across the spring-forward weekend', () => {
+    // Fri 6 Mar 17:00 CST (23:00Z), 1 h: 0.5 h to 17:30; Mon 9 Mar opens 07:30 CDT (12:30Z, no longer
+    // 13:30Z) → 08:00 CDT = 13:00Z.
+    const [sut] = forecast({ lines: [{ id: 1, remainingBookHours: 1 }], now: utc('2026-03-06T23:00') });
+    expect(sut!.finishAt).toEqual(utc('2026-03-09T13:00'));
+  });
+
+  it('counts the real length of a DST day', () => {
+    // Sun 8 Mar 00:00 CST (06:00Z) to 23:59 CDT (04:59Z) is 22 h 59 min of real time; a 23 h line has
+    // 1 min left for Mon 00:00 CDT (05:00Z) → 05:01Z.
+    const spring = forecast({
+      lines: [{ id: 1, remainingBookHours: 23 }],
+      openingHours: ALL_DAY,
+      now: utc('2026-03-08T06:00'),
+    });
+    expect(spring[0]!.finishAt).toEqual(utc('2026-03-09T05:01'));
+    // Sun 1 Nov 00:00 CDT (05:00Z) to 23:59 CST (05:59Z next day) is 24 h 59 min: 24 h ends 23:00 CST the
+    // same local day (05:00Z).
+    const fall = forecast({
+      lines: [{ id: 1, remainingBookHours: 24 }],
+      openingHours: ALL_DAY,
+      now: utc('2026-11-01T05:00'),
+    });
+    expect(fall[0]!.finishAt).toEqual(utc('2026-11-02T05:00'));
+  });
+
+  it('treats a new tech (no efficiency yet) as 100 %', () => {
+    for (const efficiency of [null, 0, -1, Number.NaN]) {
+      const [sut] = forecast({
+        lines: [{ id: 1, remainingBookHours: 1.5 }],
+        efficiency,
+        now: utc('2026-03-03T15:00'),
+      });
+      expect(sut).toMatchObject({ workHours: 1.5, finishAt: utc('2026-03-03T16:30') });
+    }
+  });
+
+  it('spreads a long line over several days and ignores negative remaining hours', () => {
+    // Mon 2 Mar 07:30, 15 h: 10 h Monday, 5 h from Tue 07:30 → 12:30 CST (18:30Z).
+    const sut = forecast({
+      lines: [
+        { id: 1, remainingBookHours: 15 },
+        { id: 2, remainingBookHours: -0.4 },
+      ],
+      now: utc('2026-03-02T13:30'),
+    });
+    expect(sut[0]!.finishAt).toEqual(utc('2026-03-03T18:30'));
+    expect(sut[1]).toMatchObject({
+      workHours: 0,
+      startAt: utc('2026-03-03T18:30'),
+      finishAt: utc('2026-03-03T18:30'),
+    });
+  });
+
+  it('refuses a shop with no open day', () => {
+    expect(() =>
+      forecast({
+        lines: [{ id: 1, remainingBookHours: 1 }],
+        openingHours: Array(7).fill(null),
+        now: utc('2026-03-03T15:00'),
+      }),
+    ).toThrow(RangeError);
+  });
+
+  it('returns nothing for an empty queue', () => {
+    expect(forecast({ lines: [], now: utc('2026-03-03T15:00') })).toEqual([]);
+  });
+});
+
+describe(addOpenHours.name, () => {
+  it('adds shop time only', () => {
+    // Tue 17:00 CST + 1 h: 0.5 h to the close, 0.5 h from Wed 07:30 → 08:00 CST (14:00Z).
+    expect(addOpenHours(utc('2026-03-03T23:00'), 1, WEEKDAYS, ZONE)).toEqual(utc('2026-03-04T14:00'));
+    // Europe/Berlin, Tue 3 Mar 16:00 CET (15:00Z) + 2 h: 1.5 h to 17:30, 0.5 h from Wed 07:30 → 08:00 CET (07:00Z).
+    expect(addOpenHours(utc('2026-03-03T15:00'), 2, WEEKDAYS, 'Europe/Berlin')).toEqual(
+      utc('2026-03-04T07:00'),
+    );
+  });
+});

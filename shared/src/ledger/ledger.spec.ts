@@ -1,0 +1,440 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { PUNCH_KINDS, type BreakKind, type PunchKind } from '../punches/punches.schema.js';
+import { shopLocalInstant } from '../time/workweek.js';
+import {
+  buildLedger,
+  PUNCH_REFUSALS,
+  technicianState,
+  validatePunch,
+  type Ledger,
+  type LedgerPunch,
+  type LedgerSettings,
+} from './ledger.js';
+
+const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2 };
+const single: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 1 };
+const at = (hhmm: string) => `2026-03-10T${hhmm}:00Z`;
+const hours = (seconds: number) => seconds / 3600;
+let counter = 0;
+function punch(kind: PunchKind, time: string, extra: Partial<LedgerPunch> = {}): LedgerPunch {
+  const needsLine = kind === 'job-on' || kind === 'job-off';
+  return {
+    id: `p${String(++counter).padStart(4, '0')}`,
+    technicianId: 7,
+    kind,
+    jobLineId: needsLine ? 1 : null,
+    breakKind: kind === 'break-start' ? 'meal' : null,
+    at: time.length === 5 ? at(time) : time,
+    supersedes: null,
+    ...extra,
+  };
+}
+const on = (line: number, time: string) => punch('job-on', time, { jobLineId: line });
+const off = (line: number, time: string) => punch('job-off', time, { jobLineId: line });
+const pause = (kind: BreakKind, time: string) => punch('break-start', time, { breakKind: kind });
+
+describe(buildLedger.name, () => {
+  const day = [
+    punch('shift-in', '08:00'),
+    on(1, '08:15'),
+    pause('rest', '10:00'),
+    punch('break-end', '10:15'),
+    on(2, '10:15'),
+    pause('meal', '12:00'),
+    punch('break-end', '12:30'),
+    on(1, '12:30'),
+    off(1, '16:00'),
+    punch('shift-out', '17:00'),
+  ];
+  const ledger = buildLedger(day, new Date(at('18:00')), even);
+
+  it('turns a day of punches into intervals', () => {
+    expect(ledger.shifts).toEqual([{ from: new Date(at('08:00')), to: new Date(at('17:00')), open: false }]);
+    expect(ledger.breaks).toEqual([
+      { kind: 'rest', from: new Date(at('10:00')), to: new Date(at('10:15')), open: false },
+      { kind: 'meal', from: new Date(at('12:00')), to: new Date(at('12:30')), open: false },
+    ]);
+    expect(ledger.jobs.map((j) => j.jobLineId)).toEqual([1, 2, 1]);
+    expect(ledger.anomalies).toEqual([]);
+  });
+
+  // 29 CFR 785.18 (text checked in a DOL archive copy): rest periods of 5 to about 20 minutes are hours
+  // worked. 29 CFR 785.19 (from memory, matched by a secondary summary): a bona fide meal period is not.
+  it('counts rest breaks as attendance and meal breaks not', () => {
+    expect(hours(ledger.totals.attendanceSeconds)).toBe(8.5);
+    expect(hours(ledger.totals.restBreakSeconds)).toBe(0.25);
+    expect(hours(ledger.totals.mealBreakSeconds)).toBe(0.5);
+  });
+
+  it('counts clocked time per line and idle time on shift', () => {
+    expect(hours(ledger.totals.clockedSeconds)).toBe(7);
+    expect(ledger.totals.jobSeconds).toEqual({ 1: 5.25 * 3600, 2: 1.75 * 3600 });
+    expect(hours(ledger.totals.idleSeconds)).toBe(1.5);
+  });
+
+  describe('concurrent job lines', () => {
+    const overlap = [
+      punch('shift-in', '08:00'),
+      on(1, '09:00'),
+      on(2, '10:00'),
+      off(1, '11:00'),
+      off(2, '12:00'),
+      punch('shift-out', '12:00'),
+    ];
+
+    it("splits overlapping time evenly under 'even'", () => {
+      const totals = buildLedger(overlap, new Date(at('12:00')), even).totals;
+      expect(totals.jobSeconds).toEqual({ 1: 1.5 * 3600, 2: 1.5 * 3600 });
+      expect(hours(totals.clockedSeconds)).toBe(3);
+    });
+
+    it("gives each line the full time under 'full' but counts wall time once", () => {
+      const totals = buildLedger(overlap, new Date(at('12:00')), { ...even, concurrentSplit: 'full' }).totals;
+      expect(totals.jobSeconds).toEqual({ 1: 2 * 3600, 2: 2 * 3600 });
+      expect(hours(totals.clockedSeconds)).toBe(3);
+      expect(hours(totals.idleSeconds)).toBe(1);
+    });
+
+    it('closes the other line when only one may be open', () => {
+      const jobs = buildLedger(overlap, new Date(at('12:00')), single);
+      expect(jobs.jobs.map((j) => [j.jobLineId, j.from.getUTCHours(), j.to.getUTCHours()])).toEqual([
+        [1, 9, 10],
+        [2, 10, 12],
+      ]);
+      expect(jobs.anomalies).toEqual([{ punchId: overlap[3]!.id, reason: PUNCH_REFUSALS.notOnLine }]);
+    });
+
+    it('closes the oldest line when the limit is exceeded', () => {
+      const three = [punch('shift-in', '08:00'), on(1, '08:00'), on(2, '09:00'), on(3, '10:00')];
+      const result = buildLedger(three, new Date(at('11:00')), even);
+      expect(result.jobs.map((j) => [j.jobLineId, j.to.getUTCHours(), j.open])).toEqual([
+        [1, 10, false],
+        [2, 11, true],
+        [3, 11, true],
+      ]);
+    });
+  });
+
+  it('closes jobs at a break and everything at shift-out', () => {
+    const result = buildLedger(
+      [punch('shift-in', '08:00'), on(1, '08:00'), pause('meal', '12:00'), punch('shift-out', '12:30')],
+      new Date(at('13:00')),
+      even,
+    );
+    expect(result.jobs[0]!.to).toEqual(new Date(at('12:00')));
+    expect(result.breaks[0]).toMatchObject({ to: new Date(at('12:30')), open: false });
+    expect(result.shifts[0]!.open).toBe(false);
+  });
+
+  it('runs open intervals to now', () => {
+    const result = buildLedger([punch('shift-in', '08:00'), on(4, '09:00')], new Date(at('10:30')), even);
+    expect(result.shifts[0]).toEqual({ from: new Date(at('08:00')), to: new Date(at('10:30')), open: true });
+    expect(result.totals.jobSeconds).toEqual({ 4: 1.5 * 3600 });
+  });
+
+  it('gives zero length, not negative, to a punch a little ahead of now', () => {
+    const result = buildLedger([punch('shift-in', '08:01')], new Date(at('08:00')), even);
+    expect(result.totals.attendanceSeconds).toBe(0);
+  });
+
+  it('reports impossible punches and ignores them', () => {
+    const bad = [
+      on(1, '07:00'),
+      punch('shift-in', '08:00'),
+      punch('shift-in', '08:05'),
+      punch('break-end', '08:10'),
+      off(3, '08:15'),
+      pause('meal', '12:00'),
+      on(1, '12:10'),
+      pause('rest', '12:15'),
+      punch('break-end', '12:30'),
+      on(1, '12:30'),
+      on(1, '12:40'),
+      punch('job-on', '12:45', { jobLineId: null }),
+    ];
+    const result = buildLedger(bad, new Date(at('13:00')), even);
+    expect(result.anomalies.map((a) => a.reason)).toEqual([
+      PUNCH_REFUSALS.notOnShift,
+      PUNCH_REFUSALS.alreadyOnShift,
+      PUNCH_REFUSALS.noBreak,
+      PUNCH_REFUSALS.notOnLine,
+      PUNCH_REFUSALS.onBreak,
+      PUNCH_REFUSALS.alreadyOnBreak,
+      PUNCH_REFUSALS.alreadyOnLine,
+      PUNCH_REFUSALS.noLine,
+    ]);
+    expect(hours(result.totals.attendanceSeconds)).toBe(4.5);
+    expect(result.totals.jobSeconds).toEqual({ 1: 0.5 * 3600 });
+  });
+
+  it('counts a duplicated punch once', () => {
+    const shiftIn = punch('shift-in', '08:00');
+    const result = buildLedger([shiftIn, shiftIn, punch('shift-out', '09:00')], new Date(at('10:00')), even);
+    expect(result.anomalies).toEqual([]);
+    expect(hours(result.totals.attendanceSeconds)).toBe(1);
+  });
+
+  describe('corrections', () => {
+    const shiftIn = punch('shift-in', '08:00');
+    const shiftOut = punch('shift-out', '16:00');
+
+    it('replaces a superseded punch', () => {
+      const moved = punch('shift-in', '07:30', { supersedes: shiftIn.id });
+      const result = buildLedger([shiftOut, moved, shiftIn], new Date(at('18:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8.5);
+    });
+
+    it('follows a chain of corrections', () => {
+      const first = punch('shift-in', '07:30', { supersedes: shiftIn.id });
+      const second = punch('shift-in', '07:45', { supersedes: first.id });
+      const result = buildLedger([shiftIn, shiftOut, second, first], new Date(at('18:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8.25);
+    });
+
+    it('adds a missed punch when it supersedes nothing', () => {
+      const missed = pause('meal', '12:00');
+      const end = punch('break-end', '12:30');
+      const result = buildLedger([shiftIn, shiftOut, missed, end], new Date(at('18:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(7.5);
+    });
+  });
+
+  // US Department of Labor hours-worked guidance (CHECKS.md §4): an 11:00 pm–7:30 am shift with a
+  // 30-minute lunch is 7 h on spring-forward night and 9 h on fall-back night.
+  it.each([
+    ['2026-03-07', '2026-03-08', 7],
+    ['2026-10-31', '2026-11-01', 9],
+  ])('counts the overnight shift from %s to %s as %i h of attendance', (start, end, expected) => {
+    const tz = 'America/Chicago';
+    const local = (d: string, t: string) => shopLocalInstant(d, t, tz).toISOString();
+    const night = [
+      punch('shift-in', local(start, '23:00')),
+      pause('meal', local(end, '03:00')),
+      punch('break-end', local(end, '03:30')),
+      punch('shift-out', local(end, '07:30')),
+    ];
+    expect(hours(buildLedger(night, new Date(local(end, '12:00')), even).totals.attendanceSeconds)).toBe(
+      expected,
+    );
+  });
+
+  it('clips totals to a window', () => {
+    const overnight = [
+      punch('shift-in', at('20:00')),
+      on(1, at('22:00')),
+      punch('shift-out', '2026-03-11T02:00:00Z'),
+    ];
+    const result = buildLedger(overnight, new Date('2026-03-11T12:00:00Z'), even);
+    const first = result.within(new Date(at('00:00')), new Date('2026-03-11T00:00:00Z'));
+    const second = result.within(new Date('2026-03-11T00:00:00Z'), new Date('2026-03-12T00:00:00Z'));
+    expect([hours(first.attendanceSeconds), hours(first.clockedSeconds), hours(first.idleSeconds)]).toEqual([
+      4, 2, 2,
+    ]);
+    expect([hours(second.attendanceSeconds), hours(second.clockedSeconds)]).toEqual([2, 2]);
+    expect(second.jobSeconds).toEqual({ 1: 2 * 3600 });
+  });
+
+  it('refuses punches of several technicians', () => {
+    expect(() =>
+      buildLedger(
+        [punch('shift-in', '08:00'), punch('shift-in', '08:00', { technicianId: 8 })],
+        new Date(),
+        even,
+      ),
+    ).toThrow();
+  });
+});
+
+describe(technicianState.name, () => {
+  const now = new Date(at('12:00'));
+
+  it('is off before any shift', () => {
+    expect(technicianState(buildLedger([], now, even))).toEqual({
+      status: 'off',
+      since: null,
+      breakKind: null,
+      openJobLineIds: [],
+    });
+  });
+
+  it('is on shift with the open lines', () => {
+    const ledger = buildLedger([punch('shift-in', '08:00'), on(3, '09:00'), on(5, '09:30')], now, even);
+    expect(technicianState(ledger)).toEqual({
+      status: 'on-shift',
+      since: new Date(at('08:00')),
+      breakKind: null,
+      openJobLineIds: [3, 5],
+    });
+  });
+
+  it('is on a break since its start', () => {
+    const ledger = buildLedger([punch('shift-in', '08:00'), pause('rest', '10:00')], now, even);
+    expect(technicianState(ledger)).toMatchObject({
+      status: 'on-break',
+      since: new Date(at('10:00')),
+      breakKind: 'rest',
+    });
+  });
+
+  it('is off since the last shift-out', () => {
+    const ledger = buildLedger([punch('shift-in', '08:00'), punch('shift-out', '11:00')], now, even);
+    expect(technicianState(ledger)).toMatchObject({ status: 'off', since: new Date(at('11:00')) });
+  });
+});
+
+describe(validatePunch.name, () => {
+  const onShift = [punch('shift-in', '08:00'), on(1, '08:30')];
+
+  it.each([
+    ['job-on when off shift', [], on(1, '09:00'), 'You are not on shift'],
+    [
+      'job-on during a break',
+      [...onShift, pause('meal', '12:00')],
+      on(2, '12:10'),
+      'You are on a break: end it first',
+    ],
+    ['break-end with no break', onShift, punch('break-end', '09:00'), 'No break to end'],
+    ['shift-in twice', onShift, punch('shift-in', '09:00'), 'You are already on shift'],
+    ['job-off on another line', onShift, off(2, '09:00'), 'You are not clocked on that line'],
+  ])('refuses %s', (_, existing, next, reason) => {
+    expect(validatePunch(existing, next, even)).toBe(reason);
+  });
+
+  it('accepts a possible punch', () => {
+    expect(validatePunch(onShift, off(1, '09:00'), even)).toBeNull();
+  });
+
+  it('judges a late offline punch where it falls in time', () => {
+    const existing = [punch('shift-in', '08:00'), punch('shift-out', '12:00')];
+    expect(validatePunch(existing, on(1, '09:00'), even)).toBeNull();
+    expect(validatePunch(existing, on(1, '13:00'), even)).toBe('You are not on shift');
+  });
+});
+
+describe(`${buildLedger.name} properties`, () => {
+  const base = Date.parse('2026-03-10T06:00:00Z');
+  const punchesArb = fc
+    .array(
+      fc.record({
+        kind: fc.constantFrom(...PUNCH_KINDS),
+        minute: fc.integer({ min: 0, max: 16 * 60 }),
+        line: fc.integer({ min: 1, max: 4 }),
+        breakKind: fc.constantFrom<BreakKind>('meal', 'rest'),
+        supersedes: fc.option(fc.nat(), { freq: 5 }),
+      }),
+      { maxLength: 40 },
+    )
+    .map((rows) =>
+      rows.map((row, i): LedgerPunch => ({
+        id: `q${String(i).padStart(3, '0')}`,
+        technicianId: 1,
+        kind: row.kind,
+        jobLineId: row.kind === 'job-on' || row.kind === 'job-off' ? row.line : null,
+        breakKind: row.kind === 'break-start' ? row.breakKind : null,
+        at: new Date(base + row.minute * 60_000).toISOString(),
+        supersedes:
+          row.supersedes === null || row.supersedes >= i
+            ? null
+            : `q${String(row.supersedes).padStart(3, '0')}`,
+      })),
+    );
+  const settingsArb = fc.record({
+    concurrentSplit: fc.constantFrom('even' as const, 'full' as const),
+    maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
+  });
+  const now = new Date(base + 17 * 3600_000);
+  const plain = ({ shifts, breaks, jobs, anomalies, totals }: Ledger) => ({
+    shifts,
+    breaks,
+    jobs,
+    anomalies,
+    totals,
+  });
+  const sum = (record: Record<number, number>) => Object.values(record).reduce((a, b) => a + b, 0);
+
+  it('splits clocked time so it adds up to the wall time clocked', () => {
+    fc.assert(
+      fc.property(punchesArb, settingsArb, (punches, settings) => {
+        const { totals } = buildLedger(punches, now, settings);
+        if (settings.concurrentSplit === 'even')
+          expect(sum(totals.jobSeconds)).toBeCloseTo(totals.clockedSeconds, 6);
+        else expect(sum(totals.jobSeconds)).toBeGreaterThanOrEqual(totals.clockedSeconds - 1e-6);
+        for (const seconds of Object.values(totals.jobSeconds))
+          expect(seconds).toBeLessThanOrEqual(totals.clockedSeconds + 1e-6);
+      }),
+    );
+  });
+
+  it('never gives a negative figure and keeps attendance ≥ clocked', () => {
+    fc.assert(
+      fc.property(punchesArb, settingsArb, (punches, settings) => {
+        const { totals, shifts, breaks, jobs } = buildLedger(punches, now, settings);
+        const figures = [
+          totals.attendanceSeconds,
+          totals.clockedSeconds,
+          totals.idleSeconds,
+          totals.mealBreakSeconds,
+        ];
+        for (const figure of [...figures, totals.restBreakSeconds, ...Object.values(totals.jobSeconds)])
+          expect(figure).toBeGreaterThanOrEqual(0);
+        for (const interval of [...shifts, ...breaks, ...jobs])
+          expect(interval.to >= interval.from).toBe(true);
+        expect(totals.attendanceSeconds).toBeGreaterThanOrEqual(totals.clockedSeconds - 1e-6);
+      }),
+    );
+  });
+
+  it('changes nothing when a punch is replayed', () => {
+    fc.assert(
+      fc.property(
+        punchesArb.filter((p) => p.length > 0),
+        fc.nat(),
+        settingsArb,
+        (punches, pick, settings) => {
+          const replayed = [...punches, punches[pick % punches.length]!];
+          expect(plain(buildLedger(replayed, now, settings))).toEqual(
+            plain(buildLedger(punches, now, settings)),
+          );
+        },
+      ),
+    );
+  });
+
+  it('changes nothing when the punches arrive in another order', () => {
+    fc.assert(
+      fc.property(
+        punchesArb.chain((punches) =>
+          fc.tuple(fc.constant(punches), fc.shuffledSubarray(punches, { minLength: punches.length })),
+        ),
+        settingsArb,
+        ([punches, shuffled], settings) => {
+          expect(plain(buildLedger(shuffled, now, settings))).toEqual(
+            plain(buildLedger(punches, now, settings)),
+          );
+        },
+      ),
+    );
+  });
+
+  it('adds up windows to the whole', () => {
+    fc.assert(
+      fc.property(
+        punchesArb,
+        settingsArb,
+        fc.integer({ min: 0, max: 17 * 60 }),
+        (punches, settings, minute) => {
+          const ledger = buildLedger(punches, now, settings);
+          const cut = new Date(base + minute * 60_000);
+          const before = ledger.within(new Date(base - 3600_000), cut);
+          const after = ledger.within(cut, now);
+          expect(before.attendanceSeconds + after.attendanceSeconds).toBeCloseTo(
+            ledger.totals.attendanceSeconds,
+            6,
+          );
+          expect(before.clockedSeconds + after.clockedSeconds).toBeCloseTo(ledger.totals.clockedSeconds, 6);
+        },
+      ),
+    );
+  });
+});

@@ -1,0 +1,232 @@
+import type { ShiftStatus } from '../punches/my-day.schema.js';
+import type { BreakKind, PunchDto } from '../punches/punches.schema.js';
+import type { ShopSettings } from '../shop/shop.schema.js';
+
+export type LedgerPunch = Pick<
+  PunchDto,
+  'id' | 'technicianId' | 'kind' | 'jobLineId' | 'breakKind' | 'at' | 'supersedes'
+>;
+export type LedgerSettings = Pick<ShopSettings, 'concurrentSplit' | 'maxConcurrentJobs'>;
+
+export interface LedgerInterval {
+  from: Date;
+  to: Date;
+  /** Still running: `to` is `now`. */
+  open: boolean;
+}
+export interface BreakInterval extends LedgerInterval {
+  kind: BreakKind;
+}
+export interface JobInterval extends LedgerInterval {
+  jobLineId: number;
+}
+export interface LedgerAnomaly {
+  punchId: string;
+  reason: string;
+}
+
+export interface LedgerTotals {
+  /** Shift time less meal breaks; rest breaks stay in (29 CFR 785.18/785.19). */
+  attendanceSeconds: number;
+  /** Wall time clocked on any job line, counted once however many lines were open. */
+  clockedSeconds: number;
+  /** Seconds per job line, after the shop's concurrent split rule. */
+  jobSeconds: Record<number, number>;
+  idleSeconds: number;
+  mealBreakSeconds: number;
+  restBreakSeconds: number;
+}
+
+export interface Ledger {
+  shifts: LedgerInterval[];
+  breaks: BreakInterval[];
+  jobs: JobInterval[];
+  /** Punches that were impossible where they fell in time, with the reason; they change nothing. */
+  anomalies: LedgerAnomaly[];
+  totals: LedgerTotals;
+  /** Totals of the intervals clipped to [from, to). */
+  within(from: Date, to: Date): LedgerTotals;
+}
+
+export interface TechnicianState {
+  status: ShiftStatus;
+  /** Start of the current shift or break; end of the last shift when off; null before any shift. */
+  since: Date | null;
+  breakKind: BreakKind | null;
+  openJobLineIds: number[];
+}
+
+export const PUNCH_REFUSALS = {
+  notOnShift: 'You are not on shift',
+  onBreak: 'You are on a break: end it first',
+  noBreak: 'No break to end',
+  alreadyOnShift: 'You are already on shift',
+  alreadyOnBreak: 'You are already on a break',
+  notOnLine: 'You are not clocked on that line',
+  alreadyOnLine: 'You are already clocked on that line',
+  noLine: 'Say which job line',
+} as const;
+
+/** Effective punches in time order: duplicates once, superseded ones dropped, ties broken by id. */
+function effectivePunches(punches: readonly LedgerPunch[]): LedgerPunch[] {
+  const byId = new Map<string, LedgerPunch>();
+  for (const punch of punches) if (!byId.has(punch.id)) byId.set(punch.id, punch);
+  const superseded = new Set([...byId.values()].map((p) => p.supersedes).filter((id) => id !== null));
+  return [...byId.values()]
+    .filter((p) => !superseded.has(p.id))
+    .map((p) => ({ punch: p, ms: Date.parse(p.at) }))
+    .sort((a, b) => a.ms - b.ms || (a.punch.id < b.punch.id ? -1 : a.punch.id > b.punch.id ? 1 : 0))
+    .map(({ punch }) => punch);
+}
+
+const seconds = (from: number, to: number) => Math.max(0, to - from) / 1000;
+
+function totalsOf(
+  ledger: Pick<Ledger, 'shifts' | 'breaks' | 'jobs'>,
+  split: LedgerSettings['concurrentSplit'],
+  from: number,
+  to: number,
+): LedgerTotals {
+  const clip = (i: LedgerInterval) => seconds(Math.max(i.from.getTime(), from), Math.min(i.to.getTime(), to));
+  const sum = (list: LedgerInterval[]) => list.reduce((total, i) => total + clip(i), 0);
+  const mealBreakSeconds = sum(ledger.breaks.filter((b) => b.kind === 'meal'));
+  const restBreakSeconds = sum(ledger.breaks.filter((b) => b.kind === 'rest'));
+  const attendanceSeconds = Math.max(0, sum(ledger.shifts) - mealBreakSeconds);
+
+  // Sweep the job boundaries: between two of them the set of open lines is constant.
+  const edges = [...new Set(ledger.jobs.flatMap((j) => [j.from.getTime(), j.to.getTime()]))]
+    .map((t) => Math.min(Math.max(t, from), to))
+    .sort((a, b) => a - b);
+  const jobSeconds: Record<number, number> = {};
+  for (const job of ledger.jobs) jobSeconds[job.jobLineId] ??= 0;
+  let clockedSeconds = 0;
+  for (let e = 1; e < edges.length; e++) {
+    const [start, end] = [edges[e - 1]!, edges[e]!];
+    if (end <= start) continue;
+    const open = ledger.jobs.filter((j) => j.from.getTime() <= start && j.to.getTime() >= end);
+    if (open.length === 0) continue;
+    const wall = seconds(start, end);
+    clockedSeconds += wall;
+    for (const job of open) jobSeconds[job.jobLineId]! += split === 'even' ? wall / open.length : wall;
+  }
+  return {
+    attendanceSeconds,
+    clockedSeconds,
+    jobSeconds,
+    idleSeconds: Math.max(0, attendanceSeconds - clockedSeconds),
+    mealBreakSeconds,
+    restBreakSeconds,
+  };
+}
+
+/**
+ * One technician's punches → shift, break and job intervals and their totals. Order of arrival never
+ * matters; open intervals run to `now` (or to their own start when a tablet clock ran ahead).
+ */
+export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings: LedgerSettings): Ledger {
+  if (new Set(punches.map((p) => p.technicianId)).size > 1) throw new Error('A ledger is for one technician');
+  const shifts: LedgerInterval[] = [];
+  const breaks: BreakInterval[] = [];
+  const jobs: JobInterval[] = [];
+  const anomalies: LedgerAnomaly[] = [];
+  let shiftFrom: number | null = null;
+  let openBreak: { from: number; kind: BreakKind } | null = null;
+  const openJobs = new Map<number, number>(); // job line → start; insertion order is oldest first
+
+  const span = (from: number, to: number, open = false) => ({
+    from: new Date(from),
+    to: new Date(Math.max(from, to)),
+    open,
+  });
+  const closeJob = (jobLineId: number, at: number, open = false) => {
+    jobs.push({ ...span(openJobs.get(jobLineId)!, at, open), jobLineId });
+    openJobs.delete(jobLineId);
+  };
+  const closeJobs = (at: number, open = false) =>
+    [...openJobs.keys()].forEach((id) => closeJob(id, at, open));
+  const closeBreak = (at: number, open = false) => {
+    if (openBreak) breaks.push({ ...span(openBreak.from, at, open), kind: openBreak.kind });
+    openBreak = null;
+  };
+
+  const apply = (punch: LedgerPunch): string | null => {
+    const at = Date.parse(punch.at);
+    const line = punch.jobLineId;
+    if (punch.kind === 'shift-in') {
+      if (shiftFrom !== null) return PUNCH_REFUSALS.alreadyOnShift;
+      shiftFrom = at;
+      return null;
+    }
+    if (shiftFrom === null) return PUNCH_REFUSALS.notOnShift;
+    switch (punch.kind) {
+      case 'shift-out':
+        closeJobs(at);
+        closeBreak(at);
+        shifts.push(span(shiftFrom, at));
+        shiftFrom = null;
+        return null;
+      case 'break-start':
+        if (openBreak) return PUNCH_REFUSALS.alreadyOnBreak;
+        closeJobs(at);
+        openBreak = { from: at, kind: punch.breakKind ?? 'meal' };
+        return null;
+      case 'break-end':
+        if (!openBreak) return PUNCH_REFUSALS.noBreak;
+        closeBreak(at);
+        return null;
+      case 'job-on':
+        if (openBreak) return PUNCH_REFUSALS.onBreak;
+        if (line === null) return PUNCH_REFUSALS.noLine;
+        if (openJobs.has(line)) return PUNCH_REFUSALS.alreadyOnLine;
+        if (openJobs.size >= settings.maxConcurrentJobs) closeJob(openJobs.keys().next().value!, at);
+        openJobs.set(line, at);
+        return null;
+      case 'job-off':
+        if (line === null || !openJobs.has(line)) return PUNCH_REFUSALS.notOnLine;
+        closeJob(line, at);
+        return null;
+    }
+  };
+  for (const punch of effectivePunches(punches)) {
+    const reason = apply(punch);
+    if (reason) anomalies.push({ punchId: punch.id, reason });
+  }
+  const end = now.getTime();
+  closeJobs(end, true);
+  closeBreak(end, true);
+  if (shiftFrom !== null) shifts.push(span(shiftFrom, end, true));
+
+  const intervals = { shifts, breaks, jobs };
+  return {
+    ...intervals,
+    anomalies,
+    totals: totalsOf(intervals, settings.concurrentSplit, -Infinity, Infinity),
+    within: (from, to) => totalsOf(intervals, settings.concurrentSplit, from.getTime(), to.getTime()),
+  };
+}
+
+/** Where a technician stands at `now`: off, on shift or on a break, since when, and the open lines. */
+export function technicianState(ledger: Ledger): TechnicianState {
+  const shift = ledger.shifts.find((s) => s.open);
+  const onBreak = ledger.breaks.find((b) => b.open);
+  const lastShift = ledger.shifts.at(-1);
+  return {
+    status: onBreak ? 'on-break' : shift ? 'on-shift' : 'off',
+    since: onBreak?.from ?? shift?.from ?? lastShift?.to ?? null,
+    breakKind: onBreak?.kind ?? null,
+    openJobLineIds: ledger.jobs.filter((j) => j.open).map((j) => j.jobLineId),
+  };
+}
+
+/**
+ * Why `punch` cannot be recorded, in plain words, or null when it can. It is judged where it falls in
+ * time among the existing punches, so a punch replayed late from an offline kiosk is judged fairly.
+ */
+export function validatePunch(
+  existing: readonly LedgerPunch[],
+  punch: LedgerPunch,
+  settings: LedgerSettings,
+): string | null {
+  const ledger = buildLedger([...existing, punch], new Date(Date.parse(punch.at)), settings);
+  return ledger.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
+}

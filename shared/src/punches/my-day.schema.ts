@@ -1,0 +1,35 @@
+import type { HoldReason } from '../bays/bays.schema.js';
+import type { JobLineStatus, Priority } from '../work/work.schema.js';
+import type { BreakKind } from './punches.schema.js';
+
+export const SHIFT_STATUSES = ['off', 'on-shift', 'on-break'] as const;
+export type ShiftStatus = (typeof SHIFT_STATUSES)[number];
+
+export interface MyJobLine {
+  id: number;
+  repairOrderNumber: string;
+  vehicle: string;
+  title: string;
+  lineNo: number;
+  bookHours: number;
+  /** Seconds this technician has been clocked on the line, split rule applied, up to `serverTime`. */
+  mySeconds: number;
+  /** Seconds everyone has been clocked on the line. */
+  allSeconds: number;
+  status: JobLineStatus;
+  holdReason: HoldReason | null;
+  priority: Priority;
+  bayName: string | null;
+  clockedOn: boolean;
+}
+
+/** What the kiosk shows a signed-in technician: `GET /api/me/day`. */
+export interface MyDay {
+  serverTime: string;
+  technician: { id: number; name: string };
+  shift: { status: ShiftStatus; since: string | null; breakKind: BreakKind | null };
+  openJobLineIds: number[];
+  lines: MyJobLine[];
+  idleSignOutSeconds: number;
+  maxConcurrentJobs: number;
+}

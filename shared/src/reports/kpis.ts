@@ -1,0 +1,74 @@
+export interface LabourHours {
+  attendanceHours: number;
+  clockedHours: number;
+  flaggedHours: number;
+}
+
+/** Ratios as fractions (0.9 = 90 %); null when the divisor is zero. */
+export interface LabourKpis {
+  productivity: number | null;
+  efficiency: number | null;
+  proficiency: number | null;
+}
+
+export type LabourReportRow = LabourHours & LabourKpis;
+
+export type KpiName = keyof LabourKpis;
+
+/** NADA guidelines as quoted by a dealer association bulletin, "Measuring technician performance". */
+export const KPI_GUIDELINES: Record<KpiName, { low: number; high: number }> = {
+  productivity: { low: 0.85, high: 0.875 },
+  efficiency: { low: 1.25, high: 1.25 },
+  proficiency: { low: 1, high: 1 },
+};
+
+export const KPI_FORMULAS: Record<KpiName, string> = {
+  productivity: 'Productivity = clocked job hours ÷ attendance hours',
+  efficiency: 'Efficiency = flagged hours ÷ clocked job hours',
+  proficiency: 'Proficiency = flagged hours ÷ attendance hours (= productivity × efficiency)',
+};
+
+export const KPI_NAMES_NOTE =
+  'Trade sources disagree on these names (some call flagged ÷ attendance hours "productivity"): read the formulas.';
+
+const ratio = (numerator: number, denominator: number) => (denominator > 0 ? numerator / denominator : null);
+
+export function labourKpis(hours: LabourHours): LabourReportRow {
+  const { attendanceHours, clockedHours, flaggedHours } = hours;
+  return {
+    attendanceHours,
+    clockedHours,
+    flaggedHours,
+    productivity: ratio(clockedHours, attendanceHours),
+    efficiency: ratio(flaggedHours, clockedHours),
+    proficiency: ratio(flaggedHours, attendanceHours),
+  };
+}
+
+/** Shop figures: hours summed over technicians first, then the ratios (never an average of ratios). */
+export function shopLabourKpis(technicians: readonly LabourHours[]): LabourReportRow {
+  const add = (pick: (h: LabourHours) => number) => technicians.reduce((sum, h) => sum + pick(h), 0);
+  return labourKpis({
+    attendanceHours: add((h) => h.attendanceHours),
+    clockedHours: add((h) => h.clockedHours),
+    flaggedHours: add((h) => h.flaggedHours),
+  });
+}
+
+/**
+ * Share a line's book hours among the technicians who worked it, in proportion to their clocked seconds
+ * on it; a line nobody clocked on is flagged to its assigned technician, if any (common practice).
+ */
+export function shareFlaggedHours(
+  bookHours: number,
+  clockedSecondsByTechnician: ReadonlyMap<number, number>,
+  assignedTechnicianId: number | null,
+): Map<number, number> {
+  const total = [...clockedSecondsByTechnician.values()].reduce((sum, s) => sum + s, 0);
+  if (total <= 0) return new Map(assignedTechnicianId === null ? [] : [[assignedTechnicianId, bookHours]]);
+  return new Map(
+    [...clockedSecondsByTechnician]
+      .filter(([, seconds]) => seconds > 0)
+      .map(([technicianId, seconds]) => [technicianId, (bookHours * seconds) / total]),
+  );
+}

@@ -1,0 +1,102 @@
+import { TZDate } from '@date-fns/tz';
+import { addWeeks, format, getISOWeeksInYear, startOfISOWeek } from 'date-fns';
+import { z } from 'zod';
+import type { ShopSettings } from '../shop/shop.schema.js';
+
+export type WorkweekSettings = Pick<ShopSettings, 'timeZone' | 'workweekStartDay' | 'workweekStartHour'>;
+
+export interface TimeRange {
+  from: Date;
+  to: Date;
+}
+
+export interface ShopDay extends TimeRange {
+  /** Local calendar date the day starts on, 'YYYY-MM-DD'. */
+  day: string;
+}
+
+const ISO_WEEK = /^(\d{4})-W(\d{2})$/;
+
+/** `'2026-W53'` → `{ year: 2026, week: 53 }`; null when malformed or the year has no such week. */
+export function parseIsoWeek(label: string): { year: number; week: number } | null {
+  const match = ISO_WEEK.exec(label);
+  if (!match) return null;
+  const year = Number(match[1]);
+  const week = Number(match[2]);
+  const weeksInYear = getISOWeeksInYear(new Date(Date.UTC(year, 5, 1)));
+  return week >= 1 && week <= weeksInYear ? { year, week } : null;
+}
+
+export const isoWeekSchema = z
+  .string()
+  .refine((label) => parseIsoWeek(label) !== null, 'Use an ISO week that exists, like 2026-W05');
+
+/** ISO 8601 week label (Monday start, week 1 holds the first Thursday) of an instant, in a time zone. */
+export function isoWeekOf(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "RRRR-'W'II");
+}
+
+function isoWeekMonday(label: string, timeZone: string): TZDate {
+  const parsed = parseIsoWeek(label);
+  if (!parsed) throw new RangeError(`Not an ISO week: ${label}`);
+  // 4 January always lies in ISO week 1.
+  return addWeeks(startOfISOWeek(new TZDate(parsed.year, 0, 4, timeZone)), parsed.week - 1);
+}
+
+export function addIsoWeeks(label: string, weeks: number): string {
+  return isoWeekOf(addWeeks(isoWeekMonday(label, 'UTC'), weeks), 'UTC');
+}
+
+function workweekStart(monday: TZDate, settings: WorkweekSettings, extraDays = 0): Date {
+  const offset = (settings.workweekStartDay + 6) % 7; // days after Monday
+  const local = new TZDate(
+    monday.getFullYear(),
+    monday.getMonth(),
+    monday.getDate() + offset + extraDays,
+    settings.workweekStartHour,
+    0,
+    0,
+    settings.timeZone,
+  );
+  return new Date(local.getTime());
+}
+
+/**
+ * The shop's workweek that starts within ISO week `label`, as UTC instants (`to` exclusive).
+ * 29 CFR 778.105: a fixed recurring period starting on any day and hour; it starts at the same local
+ * wall-clock time each week, so it lasts 167 or 169 h across a DST change.
+ */
+export function workweekBounds(label: string, settings: WorkweekSettings): TimeRange {
+  const monday = isoWeekMonday(label, settings.timeZone);
+  return { from: workweekStart(monday, settings), to: workweekStart(monday, settings, 7) };
+}
+
+/** Label of the shop workweek that contains an instant. */
+export function workweekOf(instant: Date, settings: WorkweekSettings): string {
+  const label = isoWeekOf(instant, settings.timeZone);
+  return instant < workweekBounds(label, settings).from ? addIsoWeeks(label, -1) : label;
+}
+
+/** The local calendar day of an instant, 'YYYY-MM-DD'. */
+export function shopDayKey(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), 'yyyy-MM-dd');
+}
+
+/** The instant of a local wall-clock time ('HH:MM') on a local day ('YYYY-MM-DD'). */
+export function shopLocalInstant(day: string, time: string, timeZone: string): Date {
+  const [year, month, date] = day.split('-').map(Number);
+  const [hours, minutes] = time.split(':').map(Number);
+  return new Date(new TZDate(year!, month! - 1, date!, hours!, minutes!, 0, timeZone).getTime());
+}
+
+/**
+ * The seven workdays of a workweek, each from the start hour on one local day to the start hour on the
+ * next (California Labor Code 500(a): a workday is a 24-hour period starting at the same time each day).
+ */
+export function workweekDays(label: string, settings: WorkweekSettings): ShopDay[] {
+  const monday = isoWeekMonday(label, settings.timeZone);
+  return Array.from({ length: 7 }, (_, i) => {
+    const from = workweekStart(monday, settings, i);
+    return { day: shopDayKey(from, settings.timeZone), from, to: workweekStart(monday, settings, i + 1) };
+  });
+}

@@ -1,0 +1,74 @@
+import { z } from 'zod';
+import { ROLES, type Role } from '../auth/auth.schema.js';
+
+const cents = z.number().int().min(0).max(100_000_00);
+
+export const createUserSchema = z
+  .object({
+    name: z.string().trim().min(1).max(80),
+    role: z.enum(ROLES).exclude(['display']),
+    email: z.email().max(200).optional(),
+    password: z.string().min(10, 'A password has at least 10 characters').max(200).optional(),
+    badge: z
+      .string()
+      .regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits')
+      .optional(),
+    pin: z
+      .string()
+      .regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits')
+      .optional(),
+    skillLevel: z.number().int().min(1).max(5).optional(),
+    flatRateCents: cents.optional(),
+    hourlyRateCents: cents.optional(),
+    overtimeExempt: z.boolean().optional(),
+  })
+  .superRefine((user, ctx) => {
+    if (user.role === 'technician') {
+      if (!user.badge)
+        ctx.addIssue({ code: 'custom', path: ['badge'], message: 'A technician needs a badge' });
+      if (!user.pin) ctx.addIssue({ code: 'custom', path: ['pin'], message: 'A technician needs a PIN' });
+    } else {
+      if (!user.email)
+        ctx.addIssue({ code: 'custom', path: ['email'], message: 'Office staff need an e-mail' });
+      if (!user.password)
+        ctx.addIssue({ code: 'custom', path: ['password'], message: 'Office staff need a password' });
+    }
+  });
+export type CreateUserBody = z.infer<typeof createUserSchema>;
+
+export const updateUserSchema = z
+  .object({
+    name: z.string().trim().min(1).max(80),
+    email: z.email().max(200),
+    password: z.string().min(10, 'A password has at least 10 characters').max(200),
+    badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),
+    pin: z.string().regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits'),
+    skillLevel: z.number().int().min(1).max(5),
+    flatRateCents: cents,
+    hourlyRateCents: cents,
+    overtimeExempt: z.boolean(),
+    active: z.boolean(),
+  })
+  .partial()
+  .strict();
+export type UpdateUserBody = z.infer<typeof updateUserSchema>;
+
+export interface UserDto {
+  id: number;
+  name: string;
+  role: Role;
+  email: string | null;
+  badge: string | null;
+  skillLevel: number;
+  flatRateCents: number;
+  hourlyRateCents: number;
+  overtimeExempt: boolean;
+  active: boolean;
+}
+
+/** "Dana Okafor" → "Dana O.": what a wall screen may show of a person. */
+export function shortName(fullName: string): string {
+  const [first, ...rest] = fullName.trim().split(/\s+/);
+  const last = rest.at(-1);
+  return last ? `${first} ${last[0]}.` : (first ?? '');
+}

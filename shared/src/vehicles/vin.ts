@@ -1,0 +1,110 @@
+import { z } from 'zod';
+
+// 49 CFR 565.15: transliterated values of VIN letters (digits count as themselves) and the
+// position weights for the check digit in position 9. I, O and Q are never used.
+const LETTER_VALUES: Record<string, number> = {
+  A: 1, B: 2, C: 3, D: 4, E: 5, F: 6, G: 7, H: 8,
+  J: 1, K: 2, L: 3, M: 4, N: 5, P: 7, R: 9,
+  S: 2, T: 3, U: 4, V: 5, W: 6, X: 7, Y: 8, Z: 9,
+}; // prettier-ignore
+const WEIGHTS = [8, 7, 6, 5, 4, 3, 2, 10, 0, 9, 8, 7, 6, 5, 4, 3, 2];
+const VIN_CHARACTERS = /^[A-HJ-NPR-Z0-9]*$/;
+// 49 CFR 565.15 year-code table for position 10: A = 1980 (and 2010), …, Y = 2000, 1 = 2001, …, 9 = 2009;
+// the cycle repeats every 30 years. U, Z and 0 are not year codes.
+const YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789';
+const FIRST_VIN_YEAR = 1980;
+
+function characterValue(char: string): number | undefined {
+  return /[0-9]/.test(char) ? Number(char) : LETTER_VALUES[char];
+}
+
+/**
+ * The check digit (0–9 or X) a VIN should carry in position 9, or null when the text is not 17 VIN
+ * characters. Position 9 itself is ignored (its weight is 0), so any placeholder works there.
+ */
+export function vinCheckDigit(vin: string): string | null {
+  const chars = [...vin.toUpperCase()];
+  if (chars.length !== 17) return null;
+  let sum = 0;
+  for (const [i, char] of chars.entries()) {
+    const value = i === 8 ? 0 : characterValue(char);
+    if (value === undefined) return null;
+    sum += value * WEIGHTS[i]!;
+  }
+  const remainder = sum % 11;
+  return remainder === 10 ? 'X' : String(remainder);
+}
+
+export function isValidVin(vin: string): boolean {
+  const upper = vin.toUpperCase();
+  return VIN_CHARACTERS.test(upper) && vinCheckDigit(upper) === upper[8];
+}
+
+/** Builds a valid VIN from its other 16 characters (positions 1–8 and 10–17): for demo data and tests. */
+export function makeVin(prefix16WithoutCheck: string): string {
+  const upper = prefix16WithoutCheck.toUpperCase();
+  const check = vinCheckDigit(`${upper.slice(0, 8)}0${upper.slice(8)}`);
+  if (upper.length !== 16 || !VIN_CHARACTERS.test(upper) || check === null) {
+    throw new RangeError(`Need 16 VIN characters without I, O or Q, got "${prefix16WithoutCheck}"`);
+  }
+  return `${upper.slice(0, 8)}${check}${upper.slice(8)}`;
+}
+
+/**
+ * Model year from VIN position 10. The code repeats every 30 years (K is 1989 and 2019); we take the
+ * most recent year not later than next calendar year, since a shop mostly sees current vehicles. The
+ * position-7 rule (numeric before 2010, a letter from 2010) is not used: it binds only light
+ * vehicles (up to 10,000 lb GVWR, footnote added by the 2008 final rule, 73 FR 23367), and the
+ * vehicle class cannot be told from the VIN here. `vehicleInputSchema` therefore accepts any year the
+ * code stands for.
+ */
+export function modelYearFromVin(vin: string, now: Date = new Date()): number | null {
+  const index = vin.length === 17 ? YEAR_CODES.indexOf(vin.toUpperCase()[9]!) : -1;
+  if (index < 0) return null;
+  const latest = now.getFullYear() + 1;
+  return latest - ((((latest - FIRST_VIN_YEAR - index) % 30) + 30) % 30);
+}
+
+/** VIN text as typed: trimmed and upper-cased, then checked. */
+export const vinSchema = z
+  .string()
+  .trim()
+  .toUpperCase()
+  .length(17, 'A VIN has 17 characters')
+  .refine((vin) => !/[IOQ]/.test(vin), 'VINs never use I, O or Q')
+  .refine((vin) => VIN_CHARACTERS.test(vin.replace(/[IOQ]/g, '')), 'A VIN has only letters and digits')
+  .superRefine((vin, ctx) => {
+    const expected = vinCheckDigit(vin);
+    // Length and character problems are reported above; only a well-formed VIN gets a check-digit message.
+    if (expected !== null && VIN_CHARACTERS.test(vin) && expected !== vin[8]) {
+      ctx.addIssue({ code: 'custom', message: `Check digit should be ${expected}, not ${vin[8]}` });
+    }
+  });
+
+const currentYearLimit = () => new Date().getFullYear() + 1;
+
+export const vehicleInputSchema = z
+  .object({
+    vin: vinSchema,
+    // 17-character VINs began with model year 1981.
+    year: z
+      .number()
+      .int()
+      .min(1981, 'Model years start at 1981 for 17-character VINs')
+      .refine((year) => year <= currentYearLimit(), 'That model year is too far ahead'),
+    make: z.string().trim().min(1, 'Enter the make').max(40),
+    model: z.string().trim().min(1, 'Enter the model').max(60),
+    plate: z.string().trim().max(16).optional(),
+    odometer: z.number().int('Enter whole miles or kilometres').min(0, 'The odometer cannot be negative'),
+  })
+  .superRefine(({ vin, year }, ctx) => {
+    const latest = modelYearFromVin(vin);
+    if (latest === null || (latest - year) % 30 === 0) return;
+    const years = [latest, latest - 30].filter((y) => y >= FIRST_VIN_YEAR);
+    ctx.addIssue({
+      code: 'custom',
+      path: ['year'],
+      message: `The VIN's 10th character (${vin[9]}) means model year ${years.join(' or ')}, not ${year}`,
+    });
+  });
+export type VehicleInput = z.infer<typeof vehicleInputSchema>;

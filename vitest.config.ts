@@ -1,0 +1,25 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  resolve: { conditions: ['@baytime/source'] },
+  test: {
+    projects: [
+      { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
+      {
+        extends: true,
+        test: { name: 'server', include: ['server/src/**/*.spec.ts'], pool: 'forks', testTimeout: 20_000 },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['e2e/**/*.e2e.ts'],
+          pool: 'forks',
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+});
