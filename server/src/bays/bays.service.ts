@@ -42,7 +42,8 @@ export class BaysService {
   }
 
   update(id: number, body: UpdateBayBody, actor: Principal): BayDto {
-    foundOrFail(this.db.select().from(bays).where(eq(bays.id, id)).get(), 'Bay');
+    const current = foundOrFail(this.db.select().from(bays).where(eq(bays.id, id)).get(), 'Bay');
+    if (Object.keys(body).length === 0) return toBayDto(current);
     if (body.name !== undefined) this.assertNameFree(body.name, id);
     const row = this.db.update(bays).set(body).where(eq(bays.id, id)).returning().get();
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'bay', entityId: id, detail: body });

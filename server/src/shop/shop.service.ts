@@ -51,6 +51,7 @@ export class ShopService {
 
   update(body: UpdateShopBody, actor: Principal): ShopSettings {
     this.ensure();
+    if (Object.keys(body).length === 0) return this.settings();
     this.db
       .update(shopSettings)
       .set({ ...body, updatedAt: new Date() })

@@ -50,7 +50,8 @@ export class UsersService {
   }
 
   async update(id: number, body: UpdateUserBody, actor: Principal): Promise<UserDto> {
-    foundOrFail(this.db.select().from(users).where(eq(users.id, id)).get(), 'User');
+    const current = foundOrFail(this.db.select().from(users).where(eq(users.id, id)).get(), 'User');
+    if (Object.keys(body).length === 0) return toUserDto(current);
     const { password, pin, email, ...rest } = body;
     const changes: Partial<typeof users.$inferInsert> = { ...rest };
     if (email !== undefined) changes.email = email.toLowerCase();

@@ -2,11 +2,12 @@ import { z } from 'zod';
 
 // 49 CFR 565.15: transliterated values of VIN letters (digits count as themselves) and the
 // position weights for the check digit in position 9. I, O and Q are never used.
+// prettier-ignore
 const LETTER_VALUES: Record<string, number> = {
   A: 1, B: 2, C: 3, D: 4, E: 5, F: 6, G: 7, H: 8,
   J: 1, K: 2, L: 3, M: 4, N: 5, P: 7, R: 9,
   S: 2, T: 3, U: 4, V: 5, W: 6, X: 7, Y: 8, Z: 9,
-}; // prettier-ignore
+};
 const WEIGHTS = [8, 7, 6, 5, 4, 3, 2, 10, 0, 9, 8, 7, 6, 5, 4, 3, 2];
 const VIN_CHARACTERS = /^[A-HJ-NPR-Z0-9]*$/;
 // 49 CFR 565.15 year-code table for position 10: A = 1980 (and 2010), …, Y = 2000, 1 = 2001, …, 9 = 2009;
@@ -53,10 +54,10 @@ export function makeVin(prefix16WithoutCheck: string): string {
 /**
  * Model year from VIN position 10. The code repeats every 30 years (K is 1989 and 2019); we take the
  * most recent year not later than next calendar year, since a shop mostly sees current vehicles. The
- * position-7 rule (numeric before 2010, a letter from 2010) is not used: it binds only light
- * vehicles (up to 10,000 lb GVWR, footnote added by the 2008 final rule, 73 FR 23367), and the
- * vehicle class cannot be told from the VIN here. `vehicleInputSchema` therefore accepts any year the
- * code stands for.
+ * position-7 rule (a digit there for 1980–2009, a letter for 2010–2039) is not used: it binds only
+ * light vehicles up to 10,000 lb GVWR (2008 amendment of Part 565, 73 FR 23367; scope from memory),
+ * and the vehicle class cannot be told from the VIN here. `vehicleInputSchema` therefore accepts any
+ * year the code stands for.
  */
 export function modelYearFromVin(vin: string, now: Date = new Date()): number | null {
   const index = vin.length === 17 ? YEAR_CODES.indexOf(vin.toUpperCase()[9]!) : -1;
@@ -81,8 +82,6 @@ export const vinSchema = z
     }
   });
 
-const currentYearLimit = () => new Date().getFullYear() + 1;
-
 export const vehicleInputSchema = z
   .object({
     vin: vinSchema,
@@ -91,7 +90,8 @@ export const vehicleInputSchema = z
       .number()
       .int()
       .min(1981, 'Model years start at 1981 for 17-character VINs')
-      .refine((year) => year <= currentYearLimit(), 'That model year is too far ahead'),
+      // Checked at parse time, not schema creation, so a long-running server rolls over with the year.
+      .refine((year) => year <= new Date().getFullYear() + 1, 'That model year is too far ahead'),
     make: z.string().trim().min(1, 'Enter the make').max(40),
     model: z.string().trim().min(1, 'Enter the model').max(60),
     plate: z.string().trim().max(16).optional(),

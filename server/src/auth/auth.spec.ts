@@ -1,0 +1,92 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { JwtService } from '@nestjs/jwt';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { AuthService } from './auth.service.js';
+
+describe(AuthService.name, () => {
+  let sut: TestApp;
+  beforeAll(async () => {
+    sut = await startTestApp({
+      BAYTIME_ADMIN_EMAIL: 'boss@example.test',
+      BAYTIME_ADMIN_PASSWORD: 'a-long-secret-1',
+    });
+  });
+  afterAll(() => sut.close());
+
+  it('signs office staff in with e-mail and password and never returns a secret', async () => {
+    const { body } = await sut
+      .http()
+      .post('/api/auth/login')
+      .send({ email: DEMO.foreman, password: 'baytime-demo' })
+      .expect(200);
+    expect(body.user).toEqual({ id: expect.any(Number), name: 'Theo Varga', role: 'foreman' });
+    const me = await sut.http().get('/api/me').auth(body.accessToken, { type: 'bearer' }).expect(200);
+    expect(me.body).toEqual(body.user);
+    expect(JSON.stringify(me.body)).not.toMatch(/hash|scrypt/);
+  });
+
+  it('refuses a wrong password with 401 and a bad body with 400 and field paths', async () => {
+    await sut.http().post('/api/auth/login').send({ email: DEMO.owner, password: 'nope' }).expect(401);
+    const { body } = await sut.http().post('/api/auth/login').send({ email: 'not-an-email' }).expect(400);
+    expect(body.issues.map((issue: { path: string[] }) => issue.path[0])).toEqual(['email', 'password']);
+  });
+
+  it('bootstraps the owner from BAYTIME_ADMIN_EMAIL and BAYTIME_ADMIN_PASSWORD', async () => {
+    const { body } = await sut
+      .http()
+      .post('/api/auth/login')
+      .send({ email: 'boss@example.test', password: 'a-long-secret-1' })
+      .expect(200);
+    expect(body.user.role).toBe('owner');
+  });
+
+  it('signs a technician in with badge and PIN, and locks the badge after repeated wrong PINs', async () => {
+    const { user } = await sut.badge('1042');
+    expect(user.role).toBe('technician');
+    for (let i = 0; i < 5; i++)
+      await sut.http().post('/api/auth/badge').send({ badge: '1046', pin: '0000' }).expect(401);
+    await sut.http().post('/api/auth/badge').send({ badge: '1046', pin: '4321' }).expect(429);
+    await sut.badge('1045');
+  });
+
+  it('pairs a wall screen once with a one-time code; the display token reads but cannot write', async () => {
+    const owner = await sut.signIn(DEMO.owner);
+    const { body: pairing } = await sut
+      .http()
+      .post('/api/screens')
+      .auth(owner, { type: 'bearer' })
+      .send({ name: 'Back wall' })
+      .expect(201);
+    const { body } = await sut
+      .http()
+      .post('/api/auth/screens/pair')
+      .send({ code: pairing.code.toLowerCase() })
+      .expect(200);
+    await sut.http().post('/api/auth/screens/pair').send({ code: pairing.code }).expect(401);
+    await sut.http().get('/api/board').auth(body.accessToken, { type: 'bearer' }).expect(200);
+    await sut
+      .http()
+      .post('/api/bays')
+      .auth(body.accessToken, { type: 'bearer' })
+      .send({ name: 'Bay 99' })
+      .expect(403);
+
+    await sut.http().delete(`/api/screens/${pairing.id}`).auth(owner, { type: 'bearer' }).expect(200);
+    await sut.http().get('/api/board').auth(body.accessToken, { type: 'bearer' }).expect(401);
+  });
+
+  it('refuses forged and expired tokens', async () => {
+    const forged = new JwtService({ secret: 'not-the-secret' }).sign({ sub: 1, role: 'owner' });
+    await sut.http().get('/api/me').auth(forged, { type: 'bearer' }).expect(401);
+    const expired = new JwtService({ secret: sut.config.jwtSecret }).sign(
+      { sub: 1, role: 'owner' },
+      { expiresIn: -10 },
+    );
+    await sut.http().get('/api/me').auth(expired, { type: 'bearer' }).expect(401);
+  });
+
+  it('answers health without a token', async () => {
+    const { body } = await sut.http().get('/api/health').expect(200);
+    expect(body).toEqual({ ok: true, version: expect.any(String) });
+  });
+});

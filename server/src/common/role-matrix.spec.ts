@@ -1,0 +1,66 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Role } from '@baytime/shared';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { SignedInGuard } from './guards/auth.guard.js';
+
+type Method = 'get' | 'post' | 'patch' | 'delete';
+const ALL: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
+
+/** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
+const ROUTES: [Method, string, Role[]][] = [
+  ['get', '/api/me', ALL],
+  ['get', '/api/me/day', ['technician']],
+  ['get', '/api/users', ['owner', 'foreman']],
+  ['post', '/api/users', ['owner']],
+  ['patch', '/api/users/1', ['owner']],
+  ['get', '/api/bays', ALL],
+  ['post', '/api/bays', ['owner']],
+  ['patch', '/api/bays/1', ['owner']],
+  ['get', '/api/screens', ['owner', 'foreman']],
+  ['post', '/api/screens', ['owner', 'foreman']],
+  ['delete', '/api/screens/999', ['owner', 'foreman']],
+  ['get', '/api/shop', ALL],
+  ['patch', '/api/shop', ['owner']],
+  ['get', '/api/board', ALL],
+  ['post', '/api/punches', ['technician', 'foreman', 'owner']],
+  ['get', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
+];
+
+describe(SignedInGuard.name, () => {
+  let sut: TestApp;
+  const tokens = {} as Record<Role, string>;
+  beforeAll(async () => {
+    sut = await startTestApp();
+    tokens.owner = await sut.signIn(DEMO.owner);
+    tokens.foreman = await sut.signIn(DEMO.foreman);
+    tokens.advisor = await sut.signIn(DEMO.advisor);
+    tokens.technician = (await sut.badge('1044')).accessToken;
+    const pairing = await sut
+      .http()
+      .post('/api/screens')
+      .auth(tokens.owner, { type: 'bearer' })
+      .send({ name: 'Test wall' });
+    const paired = await sut.http().post('/api/auth/screens/pair').send({ code: pairing.body.code });
+    tokens.display = paired.body.accessToken;
+  });
+  afterAll(() => sut.close());
+
+  it.each(ROUTES)('%s %s answers 401 without a token', async (method, path) => {
+    await sut.http()[method](path).expect(401);
+  });
+
+  it.each(ROUTES)('%s %s answers 403 to every role not allowed', async (method, path, allowed) => {
+    for (const role of ALL.filter((r) => !allowed.includes(r))) {
+      const response = await sut.http()[method](path).auth(tokens[role], { type: 'bearer' }).send({});
+      expect(response.status, `${role} on ${method} ${path}`).toBe(403);
+    }
+  });
+
+  it.each(ROUTES)('%s %s lets the allowed roles past the guard', async (method, path, allowed) => {
+    for (const role of allowed) {
+      const response = await sut.http()[method](path).auth(tokens[role], { type: 'bearer' }).send({});
+      expect([401, 403], `${role} on ${method} ${path}`).not.toContain(response.status);
+      expect(response.status).toBeLessThan(500);
+    }
+  });
+});
