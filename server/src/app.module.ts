@@ -14,6 +14,7 @@ import { LiveModule } from './live/live.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
+import { TimecardsModule } from './timecards/timecards.module.js';
 import { UsersModule } from './users/users.module.js';
 import { WorkModule } from './work/work.module.js';
 
@@ -48,6 +49,7 @@ export class AppModule {
         BoardModule,
         PunchesModule,
         WorkModule,
+        TimecardsModule,
         HealthModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),

@@ -18,3 +18,4 @@ export * from './vehicles/vin.js';
 export * from './units/units.js';
 export * from './timers/estimator.js';
 export * from './forecast/forecast.js';
+export * from './punches/timecard.schema.js';

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import {
   createBaySchema,
   updateBaySchema,
@@ -24,6 +24,13 @@ export class BaysController {
   @Post()
   create(@Body({ schema: createBaySchema }) body: CreateBayBody, @CurrentUser() actor: Principal): BayDto {
     return this.bays.create(body, actor);
+  }
+
+  @Roles('owner', 'foreman', 'advisor')
+  @Post(':id/release')
+  @HttpCode(200)
+  release(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): BayDto {
+    return this.bays.release(id, actor);
   }
 
   @Roles('owner')

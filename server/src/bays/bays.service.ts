@@ -51,6 +51,20 @@ export class BaysService {
     return toBayDto(row);
   }
 
+  /** The vehicle has left: the bay is free for the next one. */
+  release(id: number, actor: Principal): BayDto {
+    foundOrFail(this.db.select().from(bays).where(eq(bays.id, id)).get(), 'Bay');
+    const row = this.db
+      .update(bays)
+      .set({ phase: 'free', phaseSince: new Date(), repairOrderId: null })
+      .where(eq(bays.id, id))
+      .returning()
+      .get();
+    this.audit.record({ actorId: actor.id, action: 'release', entity: 'bay', entityId: id });
+    this.live.changed();
+    return toBayDto(row);
+  }
+
   private assertNameFree(name: string, exceptId?: number): void {
     const same = this.db.select().from(bays).where(eq(bays.name, name)).get();
     if (same && same.id !== exceptId) throw new ConflictException(`There is already a bay called ${name}`);

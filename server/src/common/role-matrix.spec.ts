@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@baytime/shared';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { SignedInGuard } from './guards/auth.guard.js';
+import { ROLE_REFUSAL, SignedInGuard } from './guards/auth.guard.js';
 
 type Method = 'get' | 'post' | 'patch' | 'delete';
 const ALL: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
@@ -24,6 +24,13 @@ const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/board', ALL],
   ['post', '/api/punches', ['technician', 'foreman', 'owner']],
   ['get', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
+  ['post', '/api/bays/8/release', ['owner', 'foreman', 'advisor']],
+  ['patch', '/api/job-lines/1', ['foreman', 'owner']],
+  ['post', '/api/job-lines/1/hold', ['technician', 'foreman', 'owner']],
+  ['post', '/api/job-lines/1/resume', ['technician', 'foreman', 'owner']],
+  ['post', '/api/job-lines/1/done', ['technician', 'foreman', 'owner']],
+  ['get', '/api/timecards', ['technician', 'foreman', 'owner']],
+  ['post', '/api/timecards/corrections', ['foreman', 'owner']],
 ];
 
 describe(SignedInGuard.name, () => {
@@ -53,13 +60,15 @@ describe(SignedInGuard.name, () => {
     for (const role of ALL.filter((r) => !allowed.includes(r))) {
       const response = await sut.http()[method](path).auth(tokens[role], { type: 'bearer' }).send({});
       expect(response.status, `${role} on ${method} ${path}`).toBe(403);
+      expect(response.body.message).toBe(ROLE_REFUSAL);
     }
   });
 
   it.each(ROUTES)('%s %s lets the allowed roles past the guard', async (method, path, allowed) => {
     for (const role of allowed) {
       const response = await sut.http()[method](path).auth(tokens[role], { type: 'bearer' }).send({});
-      expect([401, 403], `${role} on ${method} ${path}`).not.toContain(response.status);
+      expect(response.status, `${role} on ${method} ${path}`).not.toBe(401);
+      expect(response.body.message, `${role} on ${method} ${path}`).not.toBe(ROLE_REFUSAL);
       expect(response.status).toBeLessThan(500);
     }
   });

@@ -58,6 +58,21 @@ export class LabourService {
     return this.ledgerOf(technicianId, new Date(now.getTime() - OPEN_SHIFT_LOOKBACK_MS), now);
   }
 
+  /** Technicians clocked on the line right now. */
+  clockedOn(jobLineId: number, now: Date): number[] {
+    const since = new Date(now.getTime() - OPEN_SHIFT_LOOKBACK_MS);
+    const candidates = this.db
+      .selectDistinct({ technicianId: punches.technicianId })
+      .from(punches)
+      .where(and(eq(punches.jobLineId, jobLineId), gte(punches.at, since)))
+      .all();
+    return candidates
+      .map(({ technicianId }) => technicianId)
+      .filter((technicianId) =>
+        this.currentLedger(technicianId, now).jobs.some((job) => job.open && job.jobLineId === jobLineId),
+      );
+  }
+
   /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     const result = new Map<number, LineSeconds>(

@@ -5,6 +5,7 @@ import {
   Inject,
   Injectable,
 } from '@nestjs/common';
+import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import {
   MAX_PUNCH_AGE_SECONDS,
@@ -96,6 +97,32 @@ export class PunchesService {
     }
     this.live.changed();
     return { punch, replayed: false };
+  }
+
+  /**
+   * Clocks everyone off a line (it was held, finished or moved), as job-off punches recorded by the
+   * actor with the reason, so the timecards show who closed the interval and why.
+   */
+  clockOffLine(jobLineId: number, actor: Principal, reason: string, now = new Date()): number[] {
+    const technicianIds = this.labour.clockedOn(jobLineId, now);
+    for (const technicianId of technicianIds) {
+      const row = this.db
+        .insert(punches)
+        .values({
+          id: randomUUID(),
+          technicianId,
+          kind: 'job-off',
+          jobLineId,
+          at: now,
+          recordedAt: now,
+          recordedBy: actor.id,
+          reason: technicianId === actor.id ? null : reason,
+        })
+        .returning()
+        .get();
+      this.live.publish('punch.recorded', { punch: toPunchDto(row) });
+    }
+    return technicianIds;
   }
 
   private technicianFor(body: CreatePunchBody, actor: Principal): number {

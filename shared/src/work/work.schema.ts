@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { HOLD_REASONS } from '../bays/bays.schema.js';
+import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
@@ -41,10 +41,19 @@ export interface JobLineDto {
   bookHours: number;
   skillLevel: number;
   status: JobLineStatus;
-  holdReason: string | null;
+  holdReason: HoldReason | null;
   priority: Priority;
   technicianId: number | null;
   bayId: number | null;
   promisedAt: string | null;
   completedAt: string | null;
 }
+
+/** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */
+export const holdLineSchema = z.object({ reason: z.enum(HOLD_REASONS) });
+export type HoldLineBody = z.infer<typeof holdLineSchema>;
+
+/** After the last line in a bay is done the bay goes to a final check or straight to ready. */
+export const FINISH_NEXT = ['check', 'ready'] as const;
+export const finishLineSchema = z.object({ next: z.enum(FINISH_NEXT).default('check') });
+export type FinishLineBody = z.infer<typeof finishLineSchema>;

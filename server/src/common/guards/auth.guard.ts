@@ -5,6 +5,8 @@ import type { Role } from '@baytime/shared';
 import type { Principal } from '../../auth/principal.js';
 import { IS_PUBLIC, ROLES_KEY } from '../decorators/auth.decorators.js';
 
+export const ROLE_REFUSAL = 'Your role cannot do that';
+
 /** Global: every route needs a valid token unless marked @Public(), and one of its @Roles() if given. */
 @Injectable()
 export class SignedInGuard extends AuthGuard('jwt') {
@@ -18,7 +20,7 @@ export class SignedInGuard extends AuthGuard('jwt') {
     await super.canActivate(context);
     const roles = this.reflector.getAllAndOverride<Role[] | undefined>(ROLES_KEY, targets);
     const user = context.switchToHttp().getRequest<{ user: Principal }>().user;
-    if (roles && !roles.includes(user.role)) throw new ForbiddenException('Your role cannot do that');
+    if (roles && !roles.includes(user.role)) throw new ForbiddenException(ROLE_REFUSAL);
     return true;
   }
 

@@ -1,0 +1,257 @@
+import {
+  BadRequestException,
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+} from '@nestjs/common';
+import { randomUUID } from 'node:crypto';
+import { and, asc, desc, eq, gte, inArray, lt, or } from 'drizzle-orm';
+import {
+  buildLedger,
+  shopDayKey,
+  validatePunch,
+  workweekBounds,
+  workweekDays,
+  workweekOf,
+  type CorrectionBody,
+  type LedgerPunch,
+  type LedgerTotals,
+  type PunchDto,
+  type Timecard,
+  type TimecardQuery,
+  type TimecardTotals,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { foundOrFail } from '../common/not-found.js';
+import { DB, type Db } from '../db/database.js';
+import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
+import { toPunchDto } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+
+/** A shift still open at the start of the week began before it: look back this far for it. */
+const LOOKBACK_MS = 36 * 3600_000;
+
+const totals = ({
+  attendanceSeconds,
+  clockedSeconds,
+  idleSeconds,
+  mealBreakSeconds,
+  restBreakSeconds,
+}: LedgerTotals): TimecardTotals => ({
+  attendanceSeconds: Math.round(attendanceSeconds),
+  clockedSeconds: Math.round(clockedSeconds),
+  idleSeconds: Math.round(idleSeconds),
+  mealBreakSeconds: Math.round(mealBreakSeconds),
+  restBreakSeconds: Math.round(restBreakSeconds),
+});
+
+@Injectable()
+export class TimecardsService {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly shop: ShopService,
+    private readonly audit: AuditService,
+    private readonly live: LiveService,
+  ) {}
+
+  get(query: TimecardQuery, actor: Principal, now = new Date()): Timecard {
+    const technicianId = actor.role === 'technician' ? actor.id : query.technicianId;
+    if (technicianId === undefined) throw new BadRequestException('Say which technician (technicianId)');
+    if (actor.role === 'technician' && query.technicianId !== undefined && query.technicianId !== actor.id)
+      throw new ForbiddenException('A technician sees only their own timecard');
+    const technician = foundOrFail(
+      this.db
+        .select()
+        .from(users)
+        .where(and(eq(users.id, technicianId), eq(users.role, 'technician')))
+        .get(),
+      'Technician',
+    );
+    const settings = this.shop.settings();
+    const week = query.week ?? workweekOf(now, settings);
+    const { from, to } = workweekBounds(week, settings);
+    const until = new Date(Math.min(to.getTime(), now.getTime()));
+
+    const rows = this.db
+      .select()
+      .from(punches)
+      .where(
+        and(
+          eq(punches.technicianId, technicianId),
+          gte(punches.at, new Date(from.getTime() - LOOKBACK_MS)),
+          lt(punches.at, to),
+        ),
+      )
+      .orderBy(asc(punches.at))
+      .all();
+    const all = rows.map(toPunchDto);
+    const ledger = buildLedger(all, until, settings);
+    const supersededBy = new Map(all.filter((p) => p.supersedes).map((p) => [p.supersedes!, p.id]));
+    const names = this.namesOf([...new Set(all.map((p) => p.recordedBy))]);
+    const lines = this.linesOf([...new Set(ledger.jobs.map((j) => j.jobLineId))]);
+    const inWeek = (interval: { from: Date; to: Date }) => interval.to > from && interval.from < to;
+    const iso = (interval: { from: Date; to: Date; open: boolean }) => ({
+      from: interval.from.toISOString(),
+      to: interval.to.toISOString(),
+      open: interval.open,
+    });
+
+    const flags: string[] = [];
+    const openShift = ledger.shifts.find((s) => s.open);
+    if (openShift && shopDayKey(openShift.from, settings.timeZone) !== shopDayKey(until, settings.timeZone))
+      flags.push(
+        `Still on shift from ${shopDayKey(openShift.from, settings.timeZone)}: a shift-out may be missing`,
+      );
+    if (ledger.breaks.some((b) => b.open && until.getTime() - b.from.getTime() > 2 * 3600_000))
+      flags.push('On a break for more than 2 hours: a break-end may be missing');
+    if (ledger.anomalies.length)
+      flags.push(`${ledger.anomalies.length} punch(es) did not fit and were not counted`);
+
+    const punchIds = all.map((p) => p.id);
+    return {
+      technician: { id: technician.id, name: technician.name },
+      week,
+      from: from.toISOString(),
+      to: to.toISOString(),
+      timeZone: settings.timeZone,
+      punches: all
+        .filter((p) => new Date(p.at) >= from)
+        .map((p) => ({
+          ...p,
+          supersededBy: supersededBy.get(p.id) ?? null,
+          recordedByName: names.get(p.recordedBy) ?? '?',
+        })),
+      shifts: ledger.shifts.filter(inWeek).map(iso),
+      breaks: ledger.breaks.filter(inWeek).map((b) => ({ ...iso(b), kind: b.kind })),
+      jobs: ledger.jobs.filter(inWeek).map((job) => ({
+        ...iso(job),
+        jobLineId: job.jobLineId,
+        title: lines.get(job.jobLineId)?.title ?? '?',
+        repairOrderNumber: lines.get(job.jobLineId)?.number ?? '?',
+        seconds: Math.round(
+          (Math.min(job.to.getTime(), to.getTime()) - Math.max(job.from.getTime(), from.getTime())) / 1000,
+        ),
+      })),
+      days: workweekDays(week, settings).map((day) => ({
+        day: day.day,
+        ...totals(ledger.within(day.from, day.to)),
+      })),
+      totals: totals(ledger.within(from, to)),
+      anomalies: ledger.anomalies,
+      flags,
+      audit: this.auditOf(punchIds),
+    };
+  }
+
+  /**
+   * A foreman's or owner's correction: a new punch with who, when and why. With `punchId` it
+   * supersedes that punch (which stays on record); without, it adds a missed punch.
+   */
+  correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
+    const at = new Date(body.at);
+    if (at > now) throw new BadRequestException('A correction cannot be in the future');
+    foundOrFail(
+      this.db
+        .select()
+        .from(users)
+        .where(and(eq(users.id, body.technicianId), eq(users.role, 'technician')))
+        .get(),
+      'Technician',
+    );
+    if (body.punchId) {
+      const original = foundOrFail(
+        this.db.select().from(punches).where(eq(punches.id, body.punchId)).get(),
+        'Punch',
+      );
+      if (original.technicianId !== body.technicianId)
+        throw new BadRequestException('That punch belongs to another technician');
+      const newer = this.db.select().from(punches).where(eq(punches.supersedes, body.punchId)).get();
+      if (newer) throw new ConflictException('That punch was already corrected: correct the newer record');
+    }
+    if (body.jobLineId)
+      foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(), 'Job line');
+    const candidate: LedgerPunch = {
+      id: randomUUID(),
+      technicianId: body.technicianId,
+      kind: body.kind,
+      jobLineId: body.jobLineId ?? null,
+      breakKind: body.kind === 'break-start' ? (body.breakKind ?? 'meal') : null,
+      at: at.toISOString(),
+      supersedes: body.punchId ?? null,
+    };
+    const context = this.db
+      .select()
+      .from(punches)
+      .where(
+        and(
+          eq(punches.technicianId, body.technicianId),
+          gte(punches.at, new Date(at.getTime() - LOOKBACK_MS)),
+          lt(punches.at, new Date(at.getTime() + LOOKBACK_MS)),
+        ),
+      )
+      .all()
+      .map(toPunchDto);
+    const refusal = validatePunch(context, candidate, this.shop.settings());
+    if (refusal) throw new ConflictException(`That correction does not fit the timecard: ${refusal}`);
+
+    const row = this.db
+      .insert(punches)
+      .values({ ...candidate, at, recordedAt: now, recordedBy: actor.id, reason: body.reason })
+      .returning()
+      .get();
+    this.audit.record({
+      actorId: actor.id,
+      action: body.punchId ? 'correct' : 'add-missed',
+      entity: 'punch',
+      entityId: row.id,
+      detail: { supersedes: body.punchId ?? null, kind: body.kind, at: body.at, reason: body.reason },
+    });
+    const punch = toPunchDto(row);
+    this.live.publish('punch.recorded', { punch });
+    this.live.changed();
+    return punch;
+  }
+
+  private namesOf(ids: number[]): Map<number, string> {
+    if (!ids.length) return new Map();
+    return new Map(
+      this.db
+        .select({ id: users.id, name: users.name })
+        .from(users)
+        .where(inArray(users.id, ids))
+        .all()
+        .map((u) => [u.id, u.name]),
+    );
+  }
+
+  private linesOf(ids: number[]): Map<number, { title: string; number: string }> {
+    if (!ids.length) return new Map();
+    const rows = this.db
+      .select({ id: jobLines.id, title: jobLines.title, number: repairOrders.number })
+      .from(jobLines)
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .where(inArray(jobLines.id, ids))
+      .all();
+    return new Map(rows.map((row) => [row.id, row]));
+  }
+
+  private auditOf(punchIds: string[]): Timecard['audit'] {
+    if (!punchIds.length) return [];
+    return this.db
+      .select({ at: auditLog.at, actor: users.name, action: auditLog.action, detail: auditLog.detail })
+      .from(auditLog)
+      .leftJoin(users, eq(users.id, auditLog.actorId))
+      .where(and(eq(auditLog.entity, 'punch'), or(inArray(auditLog.entityId, punchIds))))
+      .orderBy(desc(auditLog.at))
+      .all()
+      .map((entry) => ({
+        at: entry.at.toISOString(),
+        actor: entry.actor ?? 'system',
+        action: entry.action,
+        detail: entry.detail ?? null,
+      }));
+  }
+}

@@ -1,0 +1,110 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { workweekOf, type Timecard } from '@baytime/shared';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { TimecardsService } from './timecards.service.js';
+
+describe(TimecardsService.name, () => {
+  let sut: TestApp;
+  let owner: string;
+  let technicianId: number;
+  let techToken: string;
+  const card = async (token = owner, query = `technicianId=${technicianId}`) =>
+    (await sut.http().get(`/api/timecards?${query}`).auth(token, { type: 'bearer' }).expect(200))
+      .body as Timecard;
+  const correct = (body: object) =>
+    sut
+      .http()
+      .post('/api/timecards/corrections')
+      .auth(owner, { type: 'bearer' })
+      .send({ technicianId, ...body });
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    owner = await sut.signIn(DEMO.owner);
+    await sut
+      .http()
+      .post('/api/users')
+      .auth(owner, { type: 'bearer' })
+      .send({ name: 'Kit Marsh', role: 'technician', badge: '3001', pin: '4321' })
+      .expect(201);
+    const kit = await sut.badge('3001');
+    technicianId = kit.user.id;
+    techToken = kit.accessToken;
+  });
+  afterAll(() => sut.close());
+
+  it('adds a missed shift with a reason and counts it; the audit trail says who and why', async () => {
+    const start = new Date(Date.now() - 5 * 3600_000);
+    const end = new Date(Date.now() - 1 * 3600_000);
+    await correct({ kind: 'shift-in', at: start.toISOString(), reason: 'Forgot to punch in' }).expect(201);
+    await correct({ kind: 'shift-out', at: end.toISOString(), reason: 'Forgot to punch out' }).expect(201);
+    const timecard = await card();
+    expect(timecard.totals.attendanceSeconds).toBe(4 * 3600);
+    expect(timecard.audit.map((entry) => entry.action)).toEqual(['add-missed', 'add-missed']);
+    expect(timecard.audit[0]).toMatchObject({ actor: 'Rosa Pellman' });
+  });
+
+  it('supersedes a punch without editing it: both stay on record, the correction counts', async () => {
+    const before = await card();
+    const shiftOut = before.punches.find((p) => p.kind === 'shift-out')!;
+    const earlier = new Date(new Date(shiftOut.at).getTime() - 1800_000).toISOString();
+    const { body } = await correct({
+      punchId: shiftOut.id,
+      kind: 'shift-out',
+      at: earlier,
+      reason: 'Left at 30 minutes earlier',
+    }).expect(201);
+    const after = await card();
+    expect(after.totals.attendanceSeconds).toBe(3.5 * 3600);
+    expect(after.punches.find((p) => p.id === shiftOut.id)).toMatchObject({
+      at: shiftOut.at,
+      supersededBy: body.id,
+    });
+    await correct({ punchId: shiftOut.id, kind: 'shift-out', at: earlier, reason: 'again' }).expect(409);
+  });
+
+  it('requires a reason and refuses corrections in the future', async () => {
+    await correct({ kind: 'shift-in', at: new Date().toISOString() }).expect(400);
+    await correct({
+      kind: 'shift-in',
+      at: new Date(Date.now() + 3600_000).toISOString(),
+      reason: 'typo',
+    }).expect(400);
+  });
+
+  it('shows a technician their own timecard only', async () => {
+    expect((await card(techToken, '')).technician.id).toBe(technicianId);
+    await sut
+      .http()
+      .get(`/api/timecards?technicianId=${technicianId - 1}`)
+      .auth(techToken, { type: 'bearer' })
+      .expect(403);
+  });
+
+  it('flags a shift still open from an earlier day', async () => {
+    const { body: newcomer } = await sut
+      .http()
+      .post('/api/users')
+      .auth(owner, { type: 'bearer' })
+      .send({ name: 'Bo Lindell', role: 'technician', badge: '3002', pin: '4321' })
+      .expect(201);
+    const yesterday = new Date(Date.now() - 26 * 3600_000).toISOString();
+    await correct({
+      technicianId: newcomer.id,
+      kind: 'shift-in',
+      at: yesterday,
+      reason: 'Punched in on paper',
+    }).expect(201);
+    const week = workweekOf(new Date(), {
+      timeZone: 'America/Chicago',
+      workweekStartDay: 0,
+      workweekStartHour: 0,
+    });
+    const { body } = await sut
+      .http()
+      .get(`/api/timecards?technicianId=${newcomer.id}&week=${week}`)
+      .auth(owner, { type: 'bearer' })
+      .expect(200);
+    expect((body as Timecard).flags.some((flag) => flag.startsWith('Still on shift from'))).toBe(true);
+  });
+});

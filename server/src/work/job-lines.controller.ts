@@ -1,0 +1,58 @@
+import { Body, Controller, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import {
+  finishLineSchema,
+  holdLineSchema,
+  patchJobLineSchema,
+  type FinishLineBody,
+  type HoldLineBody,
+  type JobLineDto,
+  type PatchJobLineBody,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
+import { idParamSchema } from '../common/id-param.js';
+import { JobLinesService } from './job-lines.service.js';
+
+@Controller('job-lines')
+export class JobLinesController {
+  constructor(private readonly lines: JobLinesService) {}
+
+  @Roles('foreman', 'owner')
+  @Patch(':id')
+  patch(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: patchJobLineSchema }) body: PatchJobLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.patch(id, body, actor);
+  }
+
+  @Roles('technician', 'foreman', 'owner')
+  @Post(':id/hold')
+  @HttpCode(200)
+  hold(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: holdLineSchema }) body: HoldLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.hold(id, body, actor);
+  }
+
+  @Roles('technician', 'foreman', 'owner')
+  @Post(':id/resume')
+  @HttpCode(200)
+  resume(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): JobLineDto {
+    return this.lines.resume(id, actor);
+  }
+
+  @Roles('technician', 'foreman', 'owner')
+  @Post(':id/done')
+  @HttpCode(200)
+  finish(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: finishLineSchema }) body: FinishLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.finish(id, body, actor);
+  }
+}

@@ -1,0 +1,206 @@
+import {
+  BadRequestException,
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+} from '@nestjs/common';
+import { and, eq, ne } from 'drizzle-orm';
+import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { foundOrFail } from '../common/not-found.js';
+import { DB, type Db } from '../db/database.js';
+import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
+import { LabourService } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { PunchesService } from '../punches/punches.service.js';
+import { toJobLineDto } from './job-line.dto.js';
+
+type LineRow = typeof jobLines.$inferSelect;
+
+/** Changes to job lines: the foreman's dispatch, and a technician's hold and done from the kiosk. */
+@Injectable()
+export class JobLinesService {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly audit: AuditService,
+    private readonly live: LiveService,
+    private readonly labour: LabourService,
+    private readonly punches: PunchesService,
+  ) {}
+
+  patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    if (body.technicianId) this.assertTechnician(body.technicianId);
+    if (body.bayId)
+      foundOrFail(
+        this.db
+          .select()
+          .from(bays)
+          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
+          .get(),
+        'Bay',
+      );
+    if (body.completedAt && new Date(body.completedAt) > now)
+      throw new BadRequestException('A line cannot be finished in the future');
+
+    const changes: Partial<typeof jobLines.$inferInsert> = { updatedAt: now };
+    if (body.priority) changes.priority = body.priority;
+    if (body.technicianId !== undefined && body.technicianId !== line.technicianId) {
+      changes.technicianId = body.technicianId;
+      const moved = this.punches.clockOffLine(id, actor, 'Line reassigned by the foreman', now);
+      if (moved.length)
+        this.audit.record({
+          actorId: actor.id,
+          action: 'clock-off',
+          entity: 'job-line',
+          entityId: id,
+          detail: { technicianIds: moved, reason: 'reassigned' },
+        });
+    }
+    if (body.bayId !== undefined && body.bayId !== line.bayId) changes.bayId = body.bayId;
+    if (body.status === 'held')
+      Object.assign(changes, { status: 'held', holdReason: body.holdReason, heldAt: now });
+    if (body.status === 'queued' || body.status === 'working')
+      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null });
+    if (body.status === 'done' || body.completedAt) {
+      this.punches.clockOffLine(id, actor, 'Line marked done by the foreman', now);
+      Object.assign(changes, {
+        status: 'done',
+        holdReason: null,
+        heldAt: null,
+        completedAt: body.completedAt ? new Date(body.completedAt) : now,
+      });
+    }
+    const updated = this.save(id, changes);
+    if (changes.bayId) this.stageBay(changes.bayId, updated.repairOrderId, now);
+    if (updated.status === 'done' && line.status !== 'done') this.afterDone(updated, 'check', now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'update',
+      entity: 'job-line',
+      entityId: id,
+      detail: body,
+    });
+    return this.announce(updated);
+  }
+
+  hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.findForActor(id, actor, now);
+    if (line.status === 'done') throw new ConflictException('That line is already done');
+    this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
+    const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
+    this.audit.record({
+      actorId: actor.id,
+      action: 'hold',
+      entity: 'job-line',
+      entityId: id,
+      detail: { reason },
+    });
+    return this.announce(updated);
+  }
+
+  resume(id: number, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.findForActor(id, actor, now);
+    if (line.status !== 'held') return toJobLineDto(line);
+    const updated = this.save(id, { status: 'queued', holdReason: null, heldAt: null, updatedAt: now });
+    this.audit.record({ actorId: actor.id, action: 'resume', entity: 'job-line', entityId: id });
+    return this.announce(updated);
+  }
+
+  finish(id: number, { next }: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.findForActor(id, actor, now);
+    if (line.status === 'done') return toJobLineDto(line);
+    this.punches.clockOffLine(id, actor, 'Line marked done', now);
+    const updated = this.save(id, {
+      status: 'done',
+      holdReason: null,
+      heldAt: null,
+      completedAt: now,
+      updatedAt: now,
+    });
+    this.afterDone(updated, next, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'done',
+      entity: 'job-line',
+      entityId: id,
+      detail: { next },
+    });
+    return this.announce(updated);
+  }
+
+  /** The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO. */
+  private afterDone(line: LineRow, next: 'check' | 'ready', now: Date): void {
+    const openInRo = this.db
+      .select()
+      .from(jobLines)
+      .where(and(eq(jobLines.repairOrderId, line.repairOrderId), ne(jobLines.status, 'done')))
+      .all();
+    if (openInRo.length === 0)
+      this.db
+        .update(repairOrders)
+        .set({ status: 'done' })
+        .where(eq(repairOrders.id, line.repairOrderId))
+        .run();
+    if (!line.bayId) return;
+    const openInBay = this.db
+      .select()
+      .from(jobLines)
+      .where(and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done')))
+      .all();
+    if (openInBay.length === 0)
+      this.db
+        .update(bays)
+        .set({ phase: next, phaseSince: now, repairOrderId: line.repairOrderId })
+        .where(eq(bays.id, line.bayId))
+        .run();
+  }
+
+  private stageBay(bayId: number, repairOrderId: number, now: Date): void {
+    const bay = this.db.select().from(bays).where(eq(bays.id, bayId)).get();
+    if (bay && (bay.phase === 'free' || bay.repairOrderId !== repairOrderId))
+      this.db
+        .update(bays)
+        .set({ phase: 'staged', phaseSince: now, repairOrderId })
+        .where(eq(bays.id, bayId))
+        .run();
+  }
+
+  private find(id: number): LineRow {
+    return foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, id)).get(), 'Job line');
+  }
+
+  /** A technician acts on lines assigned to them or that they are clocked on; office roles on any. */
+  private findForActor(id: number, actor: Principal, now: Date): LineRow {
+    const line = this.find(id);
+    if (
+      actor.role === 'technician' &&
+      line.technicianId !== actor.id &&
+      !this.labour.clockedOn(id, now).includes(actor.id)
+    )
+      throw new ForbiddenException('That line is not yours: ask the foreman');
+    return line;
+  }
+
+  private assertTechnician(id: number): void {
+    const tech = this.db
+      .select()
+      .from(users)
+      .where(and(eq(users.id, id), eq(users.role, 'technician')))
+      .get();
+    if (!tech?.active) throw new BadRequestException('No active technician with that id');
+  }
+
+  private save(id: number, changes: Partial<typeof jobLines.$inferInsert>): LineRow {
+    return this.db.update(jobLines).set(changes).where(eq(jobLines.id, id)).returning().get();
+  }
+
+  private announce(line: LineRow): JobLineDto {
+    const jobLine = toJobLineDto(line);
+    this.live.publish('job-line.updated', { jobLine });
+    this.live.changed();
+    return jobLine;
+  }
+}
