@@ -15,6 +15,7 @@ import { PunchesModule } from './punches/punches.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
+import { TimersModule } from './timers/timers.module.js';
 import { UsersModule } from './users/users.module.js';
 import { WorkModule } from './work/work.module.js';
 
@@ -50,6 +51,7 @@ export class AppModule {
         PunchesModule,
         WorkModule,
         TimecardsModule,
+        TimersModule,
         HealthModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),

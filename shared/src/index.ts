@@ -19,3 +19,4 @@ export * from './units/units.js';
 export * from './timers/estimator.js';
 export * from './forecast/forecast.js';
 export * from './punches/timecard.schema.js';
+export * from './reports/report.schema.js';

@@ -13,7 +13,8 @@ import {
   type BoardTimer,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { bays, jobLines, repairOrders, timers, users, vehicles } from '../db/schema/index.js';
+import { bays, jobLines, repairOrders, timerReadings, timers, users, vehicles } from '../db/schema/index.js';
+import { timerEstimate } from '../timers/timer-view.js';
 import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -96,6 +97,19 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       now,
     );
     const runningTimers = this.db.select().from(timers).where(isNull(timers.endedAt)).all();
+    const readings = runningTimers.length
+      ? this.db
+          .select()
+          .from(timerReadings)
+          .where(
+            inArray(
+              timerReadings.timerId,
+              runningTimers.map((t) => t.id),
+            ),
+          )
+          .orderBy(asc(timerReadings.at))
+          .all()
+      : [];
     const linesById = new Map(openLines.map((line) => [line.id, line]));
 
     const boardBays: BoardBay[] = this.db
@@ -136,7 +150,13 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
           clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
           bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
           clockRunning: line ? clockedOn.has(line.id) : false,
-          timer: timer ? this.boardTimer(timer, now) : null,
+          timer: timer
+            ? this.boardTimer(
+                timer,
+                readings.filter((r) => r.timerId === timer.id),
+                now,
+              )
+            : null,
         };
       });
 
@@ -215,21 +235,24 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     return job?.from ?? now;
   }
 
-  private boardTimer(timer: typeof timers.$inferSelect, _now: Date): BoardTimer {
-    const endsAt =
-      timer.kind === 'hold' && timer.durationSeconds !== null
-        ? new Date(timer.startedAt.getTime() + timer.durationSeconds * 1000).toISOString()
-        : null;
+  private boardTimer(
+    timer: typeof timers.$inferSelect,
+    readings: (typeof timerReadings.$inferSelect)[],
+    now: Date,
+  ): BoardTimer {
+    const estimate = timerEstimate(timer, readings, now);
     return {
       id: timer.id,
       kind: timer.kind,
       startedAt: timer.startedAt.toISOString(),
       targetC: timer.targetC,
-      lastReadingC: null,
-      endsAt,
-      etaAt: null,
+      lastReadingC: readings.at(-1)?.tempC ?? null,
+      endsAt: timer.kind === 'hold' ? estimate.etaAt : null,
+      etaAt: timer.kind === 'hold' ? null : estimate.etaAt,
       reached: timer.reachedAt !== null,
       note: timer.label,
+      status: estimate.status,
+      confidence: estimate.confidence,
     };
   }
 }

@@ -31,6 +31,13 @@ const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/job-lines/1/done', ['technician', 'foreman', 'owner']],
   ['get', '/api/timecards', ['technician', 'foreman', 'owner']],
   ['post', '/api/timecards/corrections', ['foreman', 'owner']],
+  ['get', '/api/timers', ['technician', 'foreman', 'owner']],
+  ['post', '/api/timers', ['technician', 'foreman']],
+  ['post', '/api/timers/1/readings', ['technician', 'foreman']],
+  ['post', '/api/timers/1/stop', ['technician', 'foreman', 'owner']],
+  ['get', '/api/hold-presets', ALL],
+  ['post', '/api/hold-presets', ['owner']],
+  ['delete', '/api/hold-presets/999', ['owner']],
 ];
 
 describe(SignedInGuard.name, () => {

@@ -9,5 +9,6 @@ import { RepairOrdersService } from './repair-orders.service.js';
   imports: [PunchesModule],
   controllers: [RepairOrdersController, JobLinesController],
   providers: [RepairOrdersService, JobLinesService],
+  exports: [JobLinesService],
 })
 export class WorkModule {}

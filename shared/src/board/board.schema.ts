@@ -1,6 +1,6 @@
 import type { BayState, HoldReason } from '../bays/bays.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
-import type { TimerKind } from '../timers/timers.schema.js';
+import type { TimerEstimateDto, TimerKind } from '../timers/timers.schema.js';
 
 export interface BoardPersonRef {
   id: number;
@@ -19,6 +19,9 @@ export interface BoardTimer {
   etaAt: string | null;
   reached: boolean;
   note: string | null;
+  /** 'not-enough-readings', 'moving-away' and 'beyond-asymptote' say why there is no ETA. */
+  status: TimerEstimateDto['status'];
+  confidence: TimerEstimateDto['confidence'];
 }
 
 export interface BoardBay {

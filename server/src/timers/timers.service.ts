@@ -1,0 +1,200 @@
+import {
+  BadRequestException,
+  ConflictException,
+  Inject,
+  Injectable,
+  type OnModuleDestroy,
+  type OnModuleInit,
+} from '@nestjs/common';
+import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
+import type {
+  HoldPresetBody,
+  HoldPresetDto,
+  StartTimerBody,
+  TimerDto,
+  TimerReadingBody,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { foundOrFail } from '../common/not-found.js';
+import { DB, type Db } from '../db/database.js';
+import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
+import { reachesTarget, toTimerDto } from './timer-view.js';
+
+const TICK_MS = 1000;
+
+@Injectable()
+export class TimersService implements OnModuleInit, OnModuleDestroy {
+  private ticker: NodeJS.Timeout | null = null;
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly audit: AuditService,
+    private readonly live: LiveService,
+  ) {}
+
+  /** Fixed holds end on their own: a tick marks them reached so screens and kiosks hear it. */
+  onModuleInit(): void {
+    this.ticker = setInterval(() => this.markEndedHolds(), TICK_MS);
+    this.ticker.unref();
+  }
+
+  onModuleDestroy(): void {
+    if (this.ticker) clearInterval(this.ticker);
+  }
+
+  running(now = new Date()): TimerDto[] {
+    const rows = this.db
+      .select()
+      .from(timers)
+      .where(isNull(timers.endedAt))
+      .orderBy(asc(timers.startedAt))
+      .all();
+    const readings = rows.length
+      ? this.db
+          .select()
+          .from(timerReadings)
+          .where(
+            inArray(
+              timerReadings.timerId,
+              rows.map((t) => t.id),
+            ),
+          )
+          .orderBy(asc(timerReadings.at))
+          .all()
+      : [];
+    return rows.map((row) =>
+      toTimerDto(
+        row,
+        readings.filter((r) => r.timerId === row.id),
+        now,
+      ),
+    );
+  }
+
+  get(id: number, now = new Date()): TimerDto {
+    const row = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    return toTimerDto(row, this.readingsOf(id), now);
+  }
+
+  start(body: StartTimerBody, actor: Principal, now = new Date()): TimerDto {
+    const line = foundOrFail(
+      this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
+      'Job line',
+    );
+    if (line.status === 'done') throw new ConflictException('That line is done');
+    const busy = this.db
+      .select()
+      .from(timers)
+      .where(and(eq(timers.jobLineId, line.id), isNull(timers.endedAt)))
+      .get();
+    if (busy) throw new ConflictException('A timer is already running on this line: stop it first');
+    const row = this.db
+      .insert(timers)
+      .values({
+        jobLineId: line.id,
+        bayId: body.bayId ?? line.bayId,
+        kind: body.kind,
+        targetC: body.kind === 'hold' ? null : (body.targetC ?? null),
+        ambientC: body.kind === 'hold' ? null : (body.ambientC ?? null),
+        durationSeconds: body.kind === 'hold' ? (body.durationSeconds ?? null) : null,
+        label: body.label ?? null,
+        startedAt: now,
+        startedBy: actor.id,
+      })
+      .returning()
+      .get();
+    this.audit.record({
+      actorId: actor.id,
+      action: 'start',
+      entity: 'timer',
+      entityId: row.id,
+      detail: { ...body },
+    });
+    return this.announce(row.id, row.bayId, now);
+  }
+
+  addReading(id: number, body: TimerReadingBody, actor: Principal, now = new Date()): TimerDto {
+    const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    if (timer.endedAt) throw new ConflictException('That timer was stopped');
+    if (timer.kind === 'hold') throw new BadRequestException('A fixed hold takes no readings');
+    const at = body.at ? new Date(body.at) : now;
+    if (at > new Date(now.getTime() + 60_000))
+      throw new BadRequestException('A reading cannot be in the future');
+    if (at < new Date(timer.startedAt.getTime() - 60_000))
+      throw new BadRequestException('That reading is from before the timer started');
+    this.db.insert(timerReadings).values({ timerId: id, tempC: body.tempC, at, recordedBy: actor.id }).run();
+    if (!timer.reachedAt && reachesTarget(timer, body.tempC))
+      this.db.update(timers).set({ reachedAt: at }).where(eq(timers.id, id)).run();
+    return this.announce(id, timer.bayId, now);
+  }
+
+  stop(id: number, actor: Principal, now = new Date()): TimerDto {
+    const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    if (!timer.endedAt) {
+      this.db.update(timers).set({ endedAt: now }).where(eq(timers.id, id)).run();
+      this.audit.record({ actorId: actor.id, action: 'stop', entity: 'timer', entityId: id });
+    }
+    return this.announce(id, timer.bayId, now);
+  }
+
+  presets(): HoldPresetDto[] {
+    return this.db.select().from(holdPresets).orderBy(asc(holdPresets.name)).all();
+  }
+
+  addPreset(body: HoldPresetBody, actor: Principal): HoldPresetDto {
+    const row = this.db.insert(holdPresets).values(body).returning().get();
+    this.audit.record({
+      actorId: actor.id,
+      action: 'create',
+      entity: 'hold-preset',
+      entityId: row.id,
+      detail: body,
+    });
+    return row;
+  }
+
+  removePreset(id: number, actor: Principal): HoldPresetDto {
+    const row = foundOrFail(this.db.select().from(holdPresets).where(eq(holdPresets.id, id)).get(), 'Preset');
+    this.db.delete(holdPresets).where(eq(holdPresets.id, id)).run();
+    this.audit.record({ actorId: actor.id, action: 'delete', entity: 'hold-preset', entityId: id });
+    return row;
+  }
+
+  markEndedHolds(now = new Date()): void {
+    const due = this.db
+      .select()
+      .from(timers)
+      .where(
+        and(
+          eq(timers.kind, 'hold'),
+          isNull(timers.endedAt),
+          isNull(timers.reachedAt),
+          lte(timers.startedAt, now),
+        ),
+      )
+      .all()
+      .filter((t) => t.startedAt.getTime() + (t.durationSeconds ?? 0) * 1000 <= now.getTime());
+    for (const timer of due) {
+      const endedAt = new Date(timer.startedAt.getTime() + (timer.durationSeconds ?? 0) * 1000);
+      this.db.update(timers).set({ reachedAt: endedAt }).where(eq(timers.id, timer.id)).run();
+      this.announce(timer.id, timer.bayId, now);
+    }
+  }
+
+  private readingsOf(id: number) {
+    return this.db
+      .select()
+      .from(timerReadings)
+      .where(eq(timerReadings.timerId, id))
+      .orderBy(asc(timerReadings.at))
+      .all();
+  }
+
+  private announce(timerId: number, bayId: number | null, now: Date): TimerDto {
+    this.live.publish('timer.updated', { timerId, bayId });
+    this.live.changed();
+    return this.get(timerId, now);
+  }
+}
