@@ -5,6 +5,7 @@ export default defineConfig({
   test: {
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
+      { extends: true, test: { name: 'kiosk', include: ['kiosk/src/**/*.spec.ts'] } },
       {
         extends: true,
         test: { name: 'server', include: ['server/src/**/*.spec.ts'], pool: 'forks', testTimeout: 20_000 },

@@ -8,6 +8,7 @@ import { BoardModule } from './board/board.module.js';
 import { APP_CONFIG, type AppConfig } from './config/app-config.js';
 import { DatabaseModule } from './db/database.module.js';
 import { DemoModule } from './demo/demo.module.js';
+import { DispatchModule } from './dispatch/dispatch.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
@@ -52,6 +53,7 @@ export class AppModule {
         WorkModule,
         TimecardsModule,
         TimersModule,
+        DispatchModule,
         HealthModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),

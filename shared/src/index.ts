@@ -20,3 +20,4 @@ export * from './timers/estimator.js';
 export * from './forecast/forecast.js';
 export * from './punches/timecard.schema.js';
 export * from './reports/report.schema.js';
+export * from './work/dispatch.schema.js';

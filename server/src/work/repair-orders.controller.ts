@@ -1,7 +1,14 @@
-import { Controller, Get, Query } from '@nestjs/common';
+import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
 import { z } from 'zod';
-import { REPAIR_ORDER_STATUSES, type RepairOrderStatus } from '@baytime/shared';
-import { Roles } from '../common/decorators/auth.decorators.js';
+import {
+  createRepairOrderSchema,
+  REPAIR_ORDER_STATUSES,
+  type CreateRepairOrderBody,
+  type RepairOrderStatus,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
+import { idParamSchema } from '../common/id-param.js';
 import { RepairOrdersService, type RepairOrderSummary } from './repair-orders.service.js';
 
 @Roles('owner', 'foreman', 'advisor')
@@ -14,5 +21,18 @@ export class RepairOrdersController {
     @Query('status', { schema: z.enum(REPAIR_ORDER_STATUSES).optional() }) status?: RepairOrderStatus,
   ): RepairOrderSummary[] {
     return this.repairOrders.list(status);
+  }
+
+  @Get(':id')
+  get(@Param('id', { schema: idParamSchema }) id: number): RepairOrderSummary {
+    return this.repairOrders.get(id);
+  }
+
+  @Post()
+  create(
+    @Body({ schema: createRepairOrderSchema }) body: CreateRepairOrderBody,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.create(body, actor);
   }
 }

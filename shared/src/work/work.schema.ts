@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
+import { vehicleInputSchema } from '../vehicles/vin.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
@@ -57,3 +58,43 @@ export type HoldLineBody = z.infer<typeof holdLineSchema>;
 export const FINISH_NEXT = ['check', 'ready'] as const;
 export const finishLineSchema = z.object({ next: z.enum(FINISH_NEXT).default('check') });
 export type FinishLineBody = z.infer<typeof finishLineSchema>;
+
+export const customerInputSchema = z.object({
+  name: z.string().trim().min(1, 'Enter the customer’s name').max(80),
+  phone: z.string().trim().max(30).optional(),
+  email: z.email('Not an e-mail address').max(200).optional(),
+});
+
+export const createRepairOrderSchema = z.object({
+  customer: customerInputSchema,
+  vehicle: vehicleInputSchema,
+  concern: z.string().trim().min(1, 'Say what the customer asked for').max(1000),
+  promisedAt: z.iso.datetime({ offset: true }).optional(),
+  lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
+  /** Saving an odometer lower than the last visit needs a reason. */
+  odometerOverrideReason: z.string().trim().min(3).max(300).optional(),
+});
+export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
+
+export const operationInputSchema = z.object({
+  title: z.string().trim().min(1).max(120),
+  defaultBookHours: z.number().min(0).max(99),
+  skillLevel: z.number().int().min(1).max(5).default(1),
+});
+export type OperationInput = z.infer<typeof operationInputSchema>;
+
+export interface OperationDto extends OperationInput {
+  id: number;
+  active: boolean;
+}
+
+export const updateOperationSchema = z
+  .object({
+    title: z.string().trim().min(1).max(120),
+    defaultBookHours: z.number().min(0).max(99),
+    skillLevel: z.number().int().min(1).max(5),
+    active: z.boolean(),
+  })
+  .partial()
+  .strict();
+export type UpdateOperationBody = z.infer<typeof updateOperationSchema>;

@@ -1,0 +1,41 @@
+import { createBrowserRouter, RouterProvider } from 'react-router';
+import { paths } from '@/config/paths';
+import { Splash } from '@/components/splash';
+import { RootLayout } from './routes/root-layout';
+import { SignedInLayout } from './routes/signed-in-layout';
+import { RouteError } from './routes/route-error';
+import { NotFound } from './routes/not-found';
+
+const router = createBrowserRouter(
+  [
+    {
+      Component: RootLayout,
+      ErrorBoundary: RouteError,
+      HydrateFallback: Splash,
+      children: [
+        {
+          path: paths.signIn.path,
+          ErrorBoundary: RouteError,
+          lazy: async () => ({ Component: (await import('./routes/sign-in')).SignInRoute }),
+        },
+        {
+          Component: SignedInLayout,
+          ErrorBoundary: RouteError,
+          children: [
+            {
+              path: paths.myDay.path,
+              ErrorBoundary: RouteError,
+              lazy: async () => ({ Component: (await import('./routes/my-day')).MyDayRoute }),
+            },
+          ],
+        },
+        { path: '*', Component: NotFound },
+      ],
+    },
+  ],
+  { basename: '/kiosk' },
+);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,63 @@
+import { Button } from '@fluentui/react-components';
+import type { LinkState } from '@/lib/socket';
+import { clockTime, dayPeriod } from '@/lib/format';
+import { useNow } from '@/hooks/use-now';
+import { CloudOffIcon } from './icons';
+import { BaytimeMark } from './baytime-mark';
+import './app-header.css';
+
+export interface AppHeaderProps {
+  shopName: string;
+  timeZone?: string;
+  connection: LinkState;
+  technicianName?: string;
+  onSignOut?: () => void;
+}
+
+const CONNECTION_WORDS: Record<LinkState, string> = {
+  online: 'Online',
+  offline: 'Offline',
+  connecting: 'Connecting…',
+};
+
+export function AppHeader({ shopName, timeZone, connection, technicianName, onSignOut }: AppHeaderProps) {
+  const now = useNow(1000);
+  let date: string;
+  try {
+    date = new Intl.DateTimeFormat('en-US', {
+      weekday: 'short',
+      month: 'short',
+      day: 'numeric',
+      timeZone,
+    }).format(now);
+  } catch {
+    date = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric' }).format(now);
+  }
+  return (
+    <header className="bt-header">
+      <div className="bt-header__shop">
+        <BaytimeMark className="bt-header__mark" />
+        <span className="bt-header__shop-name">{shopName}</span>
+      </div>
+      <div className="bt-header__clock" aria-label="Time">
+        <span className="bt-header__time">{clockTime(now, timeZone)}</span>
+        <span className="bt-header__period">{dayPeriod(now, timeZone)}</span>
+        <span className="bt-header__date">{date}</span>
+      </div>
+      <div className="bt-header__right">
+        <span className={`bt-conn bt-conn--${connection}`} role="status">
+          {connection === 'offline' ? <CloudOffIcon /> : <span className="bt-conn__dot" aria-hidden="true" />}
+          {CONNECTION_WORDS[connection]}
+        </span>
+        {technicianName && (
+          <>
+            <span className="bt-header__tech">{technicianName}</span>
+            <Button className="bt-header__signout" appearance="outline" size="large" onClick={onSignOut}>
+              Sign out
+            </Button>
+          </>
+        )}
+      </div>
+    </header>
+  );
+}

@@ -1,0 +1,107 @@
+import type { SVGProps } from 'react';
+
+/** Baytime's own line icons: 24-unit grid, 2-unit strokes, drawn to read at arm's length. */
+function Icon({ children, ...props }: SVGProps<SVGSVGElement>) {
+  return (
+    <svg
+      viewBox="0 0 24 24"
+      width="1em"
+      height="1em"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth={2.2}
+      strokeLinecap="round"
+      strokeLinejoin="round"
+      aria-hidden="true"
+      focusable="false"
+      {...props}
+    >
+      {children}
+    </svg>
+  );
+}
+
+type P = SVGProps<SVGSVGElement>;
+
+export const PlayIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M8 5.5v13l10.5-6.5z" fill="currentColor" />
+  </Icon>
+);
+export const StopIcon = (p: P) => (
+  <Icon {...p}>
+    <rect x="6.5" y="6.5" width="11" height="11" rx="1.5" fill="currentColor" />
+  </Icon>
+);
+export const PauseIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M9 6v12M15 6v12" strokeWidth={3} />
+  </Icon>
+);
+export const CheckIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M5 12.5l4.5 4.5L19 7.5" strokeWidth={2.8} />
+  </Icon>
+);
+export const WrenchIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M14.5 4.5a4.5 4.5 0 0 0-4.2 6.1L4.5 16.4a1.9 1.9 0 0 0 2.7 2.7l5.8-5.8a4.5 4.5 0 0 0 6.1-4.2l-2.7 2.2-2.6-.5-.5-2.6z" />
+  </Icon>
+);
+export const QueueIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M5 7h14M5 12h14M5 17h8" />
+  </Icon>
+);
+export const MealIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M7 3v8M4.5 3v5a2.5 2.5 0 0 0 5 0V3M7 11v10M16.5 21V3c-2 1-3.5 3.5-3.5 7h3.5" />
+  </Icon>
+);
+export const CupIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M5 9h11v5a5 5 0 0 1-5 5h-1a5 5 0 0 1-5-5zM16 10.5h1.5a2.5 2.5 0 0 1 0 5H16M9 3.5c-.6.9.6 1.6 0 2.5M12.5 3.5c-.6.9.6 1.6 0 2.5" />
+  </Icon>
+);
+export const DoorInIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M13 4h5a1 1 0 0 1 1 1v14a1 1 0 0 1-1 1h-5M3.5 12h10M10 8.5l3.5 3.5-3.5 3.5" />
+  </Icon>
+);
+export const DoorOutIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M11 4H6a1 1 0 0 0-1 1v14a1 1 0 0 0 1 1h5M10 12h10.5M17 8.5l3.5 3.5-3.5 3.5" />
+  </Icon>
+);
+export const BackspaceIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M8.5 5.5H20a1 1 0 0 1 1 1v11a1 1 0 0 1-1 1H8.5L3 12z" />
+    <path d="M11.5 9.5l5 5M16.5 9.5l-5 5" />
+  </Icon>
+);
+export const ArrowRightIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M4 12h15M13.5 6.5L19 12l-5.5 5.5" strokeWidth={2.6} />
+  </Icon>
+);
+export const CloudOffIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M7 18.5h10a4 4 0 0 0 .9-7.9A6 6 0 0 0 7.2 9 4.8 4.8 0 0 0 7 18.5zM4 4l16 16" />
+  </Icon>
+);
+export const UploadIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M12 16V5M7.5 9.5L12 5l4.5 4.5M5 19h14" />
+  </Icon>
+);
+export const AlertIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M12 3.5l9.5 16.5h-19z" />
+    <path d="M12 10v4.5M12 17.2v.1" strokeWidth={2.6} />
+  </Icon>
+);
+export const FlagIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M6 21V4M6 4.5h11l-2.5 4 2.5 4H6" />
+  </Icon>
+);

@@ -1,0 +1,176 @@
+import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
+import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
+import { ArrowRightIcon, CheckIcon } from '@/components/icons';
+import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
+import { Keypad } from './keypad';
+import './sign-in-panel.css';
+
+type Step = 'badge' | 'pin';
+
+const MAX_DIGITS = 8;
+/** A half-typed badge or PIN is wiped when the tablet is left alone this long. */
+const ABANDON_MS = 30_000;
+
+export interface SignInPanelProps {
+  onSignedIn: (answer: SignInAnswer) => void;
+  /** Shown above the entry until the first key press, e.g. why the last person was signed out. */
+  notice?: string | null;
+  onNoticeSeen?: () => void;
+}
+
+export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelProps) {
+  const [step, setStep] = useState<Step>('badge');
+  const [badge, setBadge] = useState('');
+  const [pin, setPin] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const signIn = useBadgeSignIn();
+  const abandonTimer = useRef<ReturnType<typeof setTimeout>>(undefined);
+
+  const reset = useCallback(() => {
+    setStep('badge');
+    setBadge('');
+    setPin('');
+  }, []);
+
+  const touched = useCallback(() => {
+    clearTimeout(abandonTimer.current);
+    abandonTimer.current = setTimeout(() => {
+      reset();
+      setProblem(null);
+    }, ABANDON_MS);
+    onNoticeSeen?.();
+  }, [reset, onNoticeSeen]);
+
+  useEffect(() => () => clearTimeout(abandonTimer.current), []);
+
+  const setValue = step === 'badge' ? setBadge : setPin;
+
+  const digit = (d: string) => {
+    touched();
+    setProblem(null);
+    setValue((v) => (v.length >= MAX_DIGITS ? v : v + d));
+  };
+  const backspace = () => {
+    touched();
+    setValue((v) => v.slice(0, -1));
+  };
+  const clear = () => {
+    touched();
+    setProblem(null);
+    if (step === 'pin' && pin === '') setStep('badge');
+    else setValue('');
+  };
+
+  const next = () => {
+    touched();
+    if (step === 'badge') {
+      const check = badgeLoginSchema.shape.badge.safeParse(badge);
+      if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the badge number');
+      setProblem(null);
+      setStep('pin');
+      return;
+    }
+    const check = badgeLoginSchema.safeParse({ badge, pin });
+    if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the PIN');
+    setProblem(null);
+    signIn.mutate(check.data, {
+      onSuccess: (answer) => {
+        reset();
+        onSignedIn(answer);
+      },
+      onError: (error) => {
+        reset();
+        setProblem(signInRefusal(error));
+      },
+    });
+  };
+
+  // A USB badge reader or a keyboard types digits and Enter.
+  const onKey = useEffectEvent((event: KeyboardEvent) => {
+    if (signIn.isPending || event.metaKey || event.ctrlKey || event.altKey) return;
+    if (/^[0-9]$/.test(event.key)) digit(event.key);
+    else if (event.key === 'Backspace') backspace();
+    else if (event.key === 'Escape') clear();
+    else if (event.key === 'Enter') next();
+    else return;
+    event.preventDefault();
+  });
+  useEffect(() => {
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, []);
+
+  const busy = signIn.isPending;
+  const label = step === 'badge' ? 'Badge number' : `PIN for badge ${badge}`;
+  const shown = step === 'badge' ? badge : '●'.repeat(pin.length);
+  const ready = step === 'badge' ? badge.length >= 3 : pin.length >= 4;
+
+  return (
+    <div className="bt-signin">
+      <section className="bt-signin__entry" aria-labelledby="bt-signin-title">
+        <h1 id="bt-signin-title" className="bt-signin__title">
+          {step === 'badge' ? 'Sign in with your badge' : 'Now your PIN'}
+        </h1>
+        <ol className="bt-signin__steps" aria-label="Steps">
+          <li className={step === 'badge' ? 'is-current' : 'is-done'}>
+            <span>{step === 'badge' ? '1' : <CheckIcon />}</span> Badge
+          </li>
+          <li className={step === 'pin' ? 'is-current' : ''}>
+            <span>2</span> PIN
+          </li>
+        </ol>
+
+        {notice && !problem && (
+          <p className="bt-signin__notice" role="status">
+            {notice}
+          </p>
+        )}
+
+        <label className="bt-signin__label" htmlFor="bt-signin-value">
+          {label}
+        </label>
+        <output
+          id="bt-signin-value"
+          className={`bt-signin__value${step === 'pin' ? ' bt-signin__value--pin' : ''}${problem ? ' has-problem' : ''}`}
+          aria-live="polite"
+          aria-label={step === 'pin' ? `${pin.length} digits typed` : undefined}
+        >
+          {shown || (
+            <span className="bt-signin__placeholder">{step === 'badge' ? 'Type or scan' : 'PIN'}</span>
+          )}
+        </output>
+
+        <p className="bt-signin__problem" role="alert">
+          {problem}
+        </p>
+
+        {step === 'pin' && (
+          <button
+            type="button"
+            className="bt-signin__change"
+            onClick={() => {
+              touched();
+              setProblem(null);
+              reset();
+            }}
+          >
+            Not badge {badge}? Start again
+          </button>
+        )}
+      </section>
+
+      <section className="bt-signin__pad" aria-label="Keypad">
+        <Keypad onDigit={digit} onBackspace={backspace} onClear={clear} disabled={busy} />
+        <button
+          type="button"
+          className="bt-action bt-action--go bt-signin__next"
+          onClick={next}
+          disabled={busy || !ready}
+        >
+          {busy ? 'Checking…' : step === 'badge' ? 'Next' : 'Sign in'}
+          <ArrowRightIcon />
+        </button>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,86 @@
+import { lineSeconds, type ConcurrentSplit, type DayLine, type DayView } from '../project-day';
+import { JobLineCard, type ClockAction } from './job-line-card';
+import type { ShiftPunch } from './shift-actions';
+
+export interface JobLineListProps {
+  view: DayView;
+  now: number;
+  split?: ConcurrentSplit;
+  maxConcurrentJobs: number;
+  onPunch: (punches: ShiftPunch[]) => void;
+}
+
+const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line ${line.lineNo}`;
+
+function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {
+  if (line.clockedOn) return { kind: 'clock-off' };
+  if (line.status === 'done') return { kind: 'none', hint: null };
+  if (line.status === 'held') return { kind: 'none', hint: 'On hold: the foreman releases it' };
+  if (view.shift.status === 'off') return { kind: 'none', hint: 'Start your shift to clock on' };
+  if (view.shift.status === 'on-break') return { kind: 'none', hint: 'End your break to clock on' };
+  const running = view.lines.filter((l) => l.clockedOn);
+  if (running.length < maxConcurrentJobs) return { kind: 'clock-on' };
+  if (maxConcurrentJobs === 1 && running[0]) return { kind: 'switch', fromLabel: lineLabel(running[0]) };
+  return { kind: 'none', hint: `You are on ${running.length} lines: clock one off first` };
+}
+
+const PRIORITY = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
+
+/**
+ * Priority first, done lines last. A tap never reorders the list: a card that jumped away under a
+ * gloved finger would let the next tap land on another line.
+ */
+function sortLines(lines: readonly DayLine[]): DayLine[] {
+  return [...lines].sort(
+    (a, b) =>
+      Number(a.status === 'done') - Number(b.status === 'done') ||
+      PRIORITY[a.priority] - PRIORITY[b.priority] ||
+      a.repairOrderNumber.localeCompare(b.repairOrderNumber, undefined, { numeric: true }) ||
+      a.lineNo - b.lineNo,
+  );
+}
+
+export function JobLineList({ view, now, split, maxConcurrentJobs, onPunch }: JobLineListProps) {
+  if (view.lines.length === 0) {
+    return (
+      <div className="bt-lines-empty">
+        <p>No job lines assigned to you yet.</p>
+        <p>The foreman's assignments show up here at once.</p>
+      </div>
+    );
+  }
+  return (
+    <ul className="bt-lines" aria-label="My job lines">
+      {sortLines(view.lines).map((line) => {
+        const { mine, all } = lineSeconds(view, line, now, split);
+        const action = clockAction(view, line, maxConcurrentJobs);
+        const running = view.lines.filter((l) => l.clockedOn);
+        return (
+          <li key={line.id}>
+            <JobLineCard
+              line={line}
+              mine={mine}
+              all={all}
+              action={action}
+              onClockOn={() =>
+                onPunch([
+                  ...(action.kind === 'switch'
+                    ? running.map<ShiftPunch>((r) => ({
+                        kind: 'job-off',
+                        jobLineId: r.id,
+                        label: `Clock off ${lineLabel(r)}`,
+                      }))
+                    : []),
+                  { kind: 'job-on', jobLineId: line.id, label: `Clock on ${lineLabel(line)}` },
+                ])
+              }
+              onClockOff={() =>
+                onPunch([{ kind: 'job-off', jobLineId: line.id, label: `Clock off ${lineLabel(line)}` }])
+              }
+            />
+          </li>
+        );
+      })}
+    </ul>
+  );
+}

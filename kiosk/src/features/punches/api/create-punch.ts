@@ -1,0 +1,20 @@
+import type { CreatePunchBody, PunchDto } from '@baytime/shared';
+import { ApiError } from '@baytime/shared/client';
+import { apiWithToken } from '@/lib/api-client';
+import { classifyFailure, type OutboxEntry, type SendOutcome } from '../outbox';
+
+/** `POST /api/punches` with the token of whoever tapped: 201 new, 200 the same id again. */
+export function createPunch(body: CreatePunchBody, token: string): Promise<PunchDto> {
+  return apiWithToken(token).post<PunchDto>('/punches', body);
+}
+
+/** Sends one outbox entry and says what the outbox should do with it. */
+export async function sendQueuedPunch(entry: OutboxEntry): Promise<SendOutcome> {
+  try {
+    await createPunch(entry.punch, entry.token);
+    return { kind: 'sent' };
+  } catch (error) {
+    if (error instanceof ApiError) return classifyFailure(error.status, error.message);
+    throw error;
+  }
+}

@@ -1,0 +1,290 @@
+// @vitest-environment node
+import { describe, expect, it, vi } from 'vitest';
+import {
+  OUTBOX_KEY,
+  backoffMs,
+  classifyFailure,
+  createOutbox,
+  drainOutbox,
+  type NewOutboxEntry,
+  type OutboxEntry,
+  type SendOutcome,
+  type StorageLike,
+} from './outbox';
+
+class MemoryStorage implements StorageLike {
+  readonly data = new Map<string, string>();
+  failWrites = false;
+  getItem(key: string) {
+    return this.data.get(key) ?? null;
+  }
+  setItem(key: string, value: string) {
+    if (this.failWrites) throw new Error('QuotaExceededError');
+    this.data.set(key, value);
+  }
+  removeItem(key: string) {
+    this.data.delete(key);
+  }
+}
+
+let counter = 0;
+function punch(
+  technicianId = 7,
+  kind: NewOutboxEntry['punch']['kind'] = 'shift-in',
+  token = `token-${technicianId}`,
+) {
+  counter += 1;
+  const id = `00000000-0000-4000-8000-${String(counter).padStart(12, '0')}`;
+  return {
+    punch: { id, kind, at: '2026-03-10T07:02:00.000-05:00' },
+    token,
+    technicianId,
+    technicianName: `Tech ${technicianId}`,
+    label: kind,
+  } satisfies NewOutboxEntry;
+}
+
+function clock(start = 1_000_000) {
+  let t = start;
+  return { now: () => t, advance: (ms: number) => (t += ms) };
+}
+
+function sender(answers: Record<string, SendOutcome[]> = {}) {
+  const calls: OutboxEntry[] = [];
+  const send = vi.fn(async (entry: OutboxEntry): Promise<SendOutcome> => {
+    calls.push(entry);
+    return answers[entry.punch.id]?.shift() ?? { kind: 'sent' };
+  });
+  return { send, calls, ids: () => calls.map((c) => c.punch.id) };
+}
+
+describe('createOutbox', () => {
+  it('writes each tap to storage at once and reads it back after a reload', () => {
+    const storage = new MemoryStorage();
+    const sut = createOutbox(storage);
+    const a = punch();
+    const b = punch(7, 'job-on');
+    sut.add([a, b], 5);
+
+    expect(JSON.parse(storage.getItem(OUTBOX_KEY)!)).toHaveLength(2);
+    const again = createOutbox(storage);
+    expect(again.list().map((e) => e.punch.id)).toEqual([a.punch.id, b.punch.id]);
+    expect(again.list()[0]).toMatchObject({
+      attempts: 0,
+      nextAttemptAt: 5,
+      waitingForSignIn: false,
+      token: 'token-7',
+    });
+  });
+
+  it('queues nothing and throws when storage refuses the write', () => {
+    const storage = new MemoryStorage();
+    const sut = createOutbox(storage);
+    storage.failWrites = true;
+    expect(() => sut.add([punch()], 0)).toThrow();
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('ignores a punch id that is already queued', () => {
+    const sut = createOutbox(new MemoryStorage());
+    const a = punch();
+    sut.add([a], 0);
+    sut.add([a], 1);
+    expect(sut.list()).toHaveLength(1);
+  });
+
+  it('treats unreadable storage as empty instead of failing', () => {
+    const storage = new MemoryStorage();
+    storage.setItem(OUTBOX_KEY, '{not json');
+    expect(createOutbox(storage).list()).toEqual([]);
+    storage.setItem(OUTBOX_KEY, JSON.stringify([{ nonsense: true }, { ...punch(), attempts: 2 }]));
+    expect(createOutbox(storage).list()).toHaveLength(1);
+  });
+
+  it('keeps the same list object until something changes, and tells subscribers', () => {
+    const sut = createOutbox(new MemoryStorage());
+    const listener = vi.fn();
+    sut.subscribe(listener);
+    const before = sut.list();
+    expect(sut.list()).toBe(before);
+    sut.add([punch()], 0);
+    expect(listener).toHaveBeenCalledTimes(1);
+    expect(sut.list()).not.toBe(before);
+  });
+
+  it('removes storage key when the last punch is gone', () => {
+    const storage = new MemoryStorage();
+    const sut = createOutbox(storage);
+    const a = punch();
+    sut.add([a], 0);
+    sut.remove(a.punch.id);
+    expect(storage.getItem(OUTBOX_KEY)).toBeNull();
+  });
+});
+
+describe(classifyFailure.name, () => {
+  it.each([
+    [0, 'retry'],
+    [500, 'retry'],
+    [503, 'retry'],
+    [429, 'retry'],
+    [401, 'unauthorized'],
+    [409, 'refused'],
+    [400, 'refused'],
+    [403, 'refused'],
+  ] as const)('status %i → %s', (status, kind) => {
+    expect(classifyFailure(status, 'why').kind).toBe(kind);
+  });
+
+  it('stops everything when there is no answer at all, only one technician on a 5xx', () => {
+    expect(classifyFailure(0, '')).toMatchObject({ scope: 'all' });
+    expect(classifyFailure(502, '')).toMatchObject({ scope: 'technician' });
+  });
+});
+
+describe(backoffMs.name, () => {
+  it('doubles from one second and stops at a minute', () => {
+    const mid = () => 0.5;
+    expect([1, 2, 3, 4, 7, 8, 30].map((n) => backoffMs(n, mid))).toEqual([
+      1000, 2000, 4000, 8000, 60_000, 60_000, 60_000,
+    ]);
+  });
+
+  it('spreads retries by at most 20 % either way', () => {
+    expect(backoffMs(3, () => 0)).toBe(3200);
+    expect(backoffMs(3, () => 0.999999)).toBe(4800);
+  });
+});
+
+describe(drainOutbox.name, () => {
+  it('sends punches oldest first and drops each one the server took', async () => {
+    const sut = createOutbox(new MemoryStorage());
+    const entries = [punch(), punch(7, 'job-on'), punch(7, 'job-off')];
+    sut.add(entries, 0);
+    const { send, ids } = sender();
+    const onSent = vi.fn();
+
+    const result = await drainOutbox(sut, send, { now: clock().now, onSent });
+
+    expect(ids()).toEqual(entries.map((e) => e.punch.id));
+    expect(result).toEqual({ sent: 3, refused: 0, nextAttemptAt: null });
+    expect(onSent).toHaveBeenCalledTimes(3);
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('drops a refused punch, reports why, and goes on with the next', async () => {
+    const sut = createOutbox(new MemoryStorage());
+    const [a, b] = [punch(7, 'break-end'), punch(7, 'shift-out')];
+    sut.add([a, b], 0);
+    const { send, ids } = sender({ [a.punch.id]: [{ kind: 'refused', message: 'Not on a break' }] });
+    const onRefused = vi.fn();
+
+    const result = await drainOutbox(sut, send, { now: clock().now, onRefused });
+
+    expect(onRefused).toHaveBeenCalledWith(expect.objectContaining({ punch: a.punch }), 'Not on a break');
+    expect(ids()).toEqual([a.punch.id, b.punch.id]);
+    expect(result).toMatchObject({ sent: 1, refused: 1 });
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('keeps every punch when the link is down, backs off, and sends them in order later', async () => {
+    const time = clock();
+    const sut = createOutbox(new MemoryStorage());
+    const [a, b] = [punch(7), punch(8)];
+    sut.add([a, b], time.now());
+    const down = sender({ [a.punch.id]: [{ kind: 'retry', scope: 'all', message: 'No connection' }] });
+
+    const first = await drainOutbox(sut, down.send, { now: time.now, random: () => 0.5 });
+
+    expect(down.ids()).toEqual([a.punch.id]);
+    expect(first).toEqual({ sent: 0, refused: 0, nextAttemptAt: time.now() + 1000 });
+    expect(sut.list()).toHaveLength(2);
+    expect(sut.list()[0]).toMatchObject({ attempts: 1, lastError: 'No connection' });
+
+    const early = sender();
+    await drainOutbox(sut, early.send, { now: time.now });
+    expect(early.send).not.toHaveBeenCalled();
+
+    time.advance(1000);
+    const later = sender();
+    const second = await drainOutbox(sut, later.send, { now: time.now });
+    expect(later.ids()).toEqual([a.punch.id, b.punch.id]);
+    expect(second.sent).toBe(2);
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('treats a thrown send as a dropped link, never as a loss', async () => {
+    const sut = createOutbox(new MemoryStorage());
+    sut.add([punch()], 0);
+    const result = await drainOutbox(sut, () => Promise.reject(new Error('boom')), { now: () => 0 });
+    expect(result.sent).toBe(0);
+    expect(sut.list()).toHaveLength(1);
+  });
+
+  it("holds back one technician's later punches behind a retry, not other technicians'", async () => {
+    const sut = createOutbox(new MemoryStorage());
+    const [a1, b1, a2] = [punch(7), punch(8), punch(7, 'job-on')];
+    sut.add([a1, b1, a2], 0);
+    const { send, ids } = sender({
+      [a1.punch.id]: [{ kind: 'retry', scope: 'technician', message: 'Server error' }],
+    });
+
+    const result = await drainOutbox(sut, send, { now: () => 0, random: () => 0.5 });
+
+    expect(ids()).toEqual([a1.punch.id, b1.punch.id]);
+    expect(result.nextAttemptAt).toBe(1000);
+    expect(sut.list().map((e) => e.punch.id)).toEqual([a1.punch.id, a2.punch.id]);
+  });
+
+  it('keeps a punch whose token ran out until the same technician signs in again', async () => {
+    const sut = createOutbox(new MemoryStorage());
+    const [a, b] = [punch(7, 'shift-out', 'old-token'), punch(8)];
+    sut.add([a, b], 0);
+    const first = sender({ [a.punch.id]: [{ kind: 'unauthorized', message: 'Unauthorized' }] });
+
+    await drainOutbox(sut, first.send, { now: () => 0 });
+    expect(first.ids()).toEqual([a.punch.id, b.punch.id]);
+    expect(sut.list()).toEqual([expect.objectContaining({ punch: a.punch, waitingForSignIn: true })]);
+
+    const idle = sender();
+    await drainOutbox(sut, idle.send, { now: () => 10 });
+    expect(idle.send).not.toHaveBeenCalled();
+
+    sut.renewToken(7, 'new-token', 20);
+    const after = sender();
+    await drainOutbox(sut, after.send, { now: () => 20 });
+    expect(after.calls.map((c) => c.token)).toEqual(['new-token']);
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('tries at once when the link comes back, without waiting out the backoff', async () => {
+    const time = clock();
+    const sut = createOutbox(new MemoryStorage());
+    sut.add([punch()], time.now());
+    await drainOutbox(sut, async () => ({ kind: 'retry', scope: 'all', message: 'x' }), {
+      now: time.now,
+      random: () => 0.5,
+    });
+    sut.retryNow(time.now());
+    const { send } = sender();
+    const result = await drainOutbox(sut, send, { now: time.now });
+    expect(result.sent).toBe(1);
+  });
+
+  it('also sends a punch tapped while the drain is under way, after the earlier ones', async () => {
+    const sut = createOutbox(new MemoryStorage());
+    const [a, b] = [punch(7), punch(7, 'job-on')];
+    sut.add([a], 0);
+    const order: string[] = [];
+    await drainOutbox(
+      sut,
+      async (entry) => {
+        order.push(entry.punch.id);
+        if (entry.punch.id === a.punch.id) sut.add([b], 1);
+        return { kind: 'sent' };
+      },
+      { now: () => 1 },
+    );
+    expect(order).toEqual([a.punch.id, b.punch.id]);
+  });
+});

@@ -1,0 +1,15 @@
+import { QueryClient } from '@tanstack/react-query';
+import { ApiError } from '@baytime/shared/client';
+
+export const queryClient = new QueryClient({
+  defaultOptions: {
+    queries: {
+      staleTime: 15_000,
+      retry: (failureCount, error) => {
+        if (error instanceof ApiError && !error.isNetwork && error.status < 500) return false;
+        return failureCount < 3;
+      },
+      retryDelay: (attempt) => Math.min(1000 * 2 ** attempt, 15_000),
+    },
+  },
+});
