@@ -9,6 +9,7 @@ import { APP_CONFIG, type AppConfig } from './config/app-config.js';
 import { DatabaseModule } from './db/database.module.js';
 import { DemoModule } from './demo/demo.module.js';
 import { DispatchModule } from './dispatch/dispatch.module.js';
+import { FindingsModule } from './findings/findings.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
@@ -54,6 +55,7 @@ export class AppModule {
         TimecardsModule,
         TimersModule,
         DispatchModule,
+        FindingsModule,
         HealthModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),

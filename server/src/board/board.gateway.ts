@@ -20,6 +20,7 @@ type LiveServer = Server<ClientToServerEvents, ServerToClientEvents, object, { p
 type LiveSocket = Socket<ClientToServerEvents, ServerToClientEvents, object, { principal: Principal }>;
 
 const SHOP_ROOM = 'shop';
+const FLOOR_ROOMS = ['role:owner', 'role:foreman', 'role:advisor', 'role:display'];
 
 /** The only place that touches Socket.IO: authenticates the handshake and forwards live messages. */
 @WebSocketGateway({ cors: { origin: false } })
@@ -36,9 +37,13 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
   ) {}
 
   afterInit(): void {
-    this.subscription = this.live.messages$.subscribe(({ event, payload }) =>
-      (this.server.to(SHOP_ROOM).emit as (event: string, payload: unknown) => boolean)(event, payload),
-    );
+    this.subscription = this.live.messages$.subscribe(({ event, payload, audience }) => {
+      const rooms =
+        audience.to === 'everyone'
+          ? [SHOP_ROOM]
+          : [...FLOOR_ROOMS, ...(audience.technicianId ? [`user:${audience.technicianId}`] : [])];
+      (this.server.to(rooms).emit as (event: string, payload: unknown) => boolean)(event, payload);
+    });
   }
 
   onModuleDestroy(): void {

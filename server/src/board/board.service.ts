@@ -15,7 +15,7 @@ import {
 import { DB, type Db } from '../db/database.js';
 import { bays, jobLines, repairOrders, timerReadings, timers, users, vehicles } from '../db/schema/index.js';
 import { timerEstimate } from '../timers/timer-view.js';
-import { LabourService } from '../labour/labour.service.js';
+import { LabourService, lineSecondsOf } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
@@ -65,13 +65,13 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const after = this.snapshot(this.live.seq, now);
     for (const bay of after.bays) {
       const old = before.bays.find((b) => b.id === bay.id);
-      if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay });
+      if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay }, { to: 'floor' });
     }
     if (
       after.bays.length !== before.bays.length ||
       !isDeepStrictEqual([after.people, after.queue], [before.people, before.queue])
     )
-      this.live.publish('floor.updated', { people: after.people, queue: after.queue });
+      this.live.publish('floor.updated', { people: after.people, queue: after.queue }, { to: 'floor' });
     this.published = { ...after, seq: this.live.seq };
   }
 
@@ -84,17 +84,20 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       .where(and(eq(users.role, 'technician'), eq(users.active, true)))
       .orderBy(asc(users.name))
       .all();
-    const states = new Map(
-      technicians.map((tech) => [tech.id, technicianState(this.labour.currentLedger(tech.id, now))]),
+    const ledgers = this.labour.floorLedgers(
+      technicians.map((tech) => tech.id),
+      openLines.map((line) => line.id),
+      now,
     );
+    const states = new Map([...ledgers].map(([id, ledger]) => [id, technicianState(ledger)]));
     const clockedOn = new Map<number, number[]>();
     for (const [techId, state] of states)
       for (const lineId of state.openJobLineIds)
         clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), techId]);
     const names = new Map(technicians.map((tech) => [tech.id, shortName(tech.name)]));
-    const seconds = this.labour.lineSeconds(
+    const seconds = lineSecondsOf(
+      ledgers,
       openLines.map((line) => line.id),
-      now,
     );
     const runningTimers = this.db.select().from(timers).where(isNull(timers.endedAt)).all();
     const readings = runningTimers.length
@@ -170,7 +173,10 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
           id: tech.id,
           name: shortName(tech.name),
           status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
-          since: (line ? this.clockedOnSince(tech.id, line.id, now) : state.since).toISOString(),
+          since: (
+            ledgers.get(tech.id)?.jobs.find((job) => job.open && job.jobLineId === line?.id)?.from ??
+            state.since
+          ).toISOString(),
           bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
           jobLineTitle: line?.title ?? null,
         },
@@ -226,13 +232,6 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       .where(inArray(repairOrders.id, [id]))
       .get();
     return row ? { id: row.id, number: row.number, vehicle: describeVehicle(row.vehicle) } : null;
-  }
-
-  private clockedOnSince(technicianId: number, jobLineId: number, now: Date): Date {
-    const job = this.labour
-      .currentLedger(technicianId, now)
-      .jobs.find((interval) => interval.open && interval.jobLineId === jobLineId);
-    return job?.from ?? now;
   }
 
   private boardTimer(

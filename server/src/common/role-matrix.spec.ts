@@ -46,6 +46,15 @@ const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/hold-presets', ALL],
   ['post', '/api/hold-presets', ['owner']],
   ['delete', '/api/hold-presets/999', ['owner']],
+  ['post', '/api/job-lines/1/findings', ['technician', 'foreman', 'owner']],
+  ['get', '/api/findings', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/findings/999/answer', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/findings/999/request-approval', ['advisor']],
+  ['get', '/api/attachments/999', ['owner', 'foreman', 'advisor', 'technician']],
+  ['get', '/api/attachments/999/preview', ['owner', 'foreman', 'advisor', 'technician']],
+  ['post', '/api/repair-orders/1/ready-notice', ['advisor']],
+  ['get', '/api/mailbox', ['owner']],
+  ['get', '/api/mailbox/00000000-0000-4000-8000-000000000000', ['owner']],
 ];
 
 describe(SignedInGuard.name, () => {

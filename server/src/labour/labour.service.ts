@@ -73,28 +73,76 @@ export class LabourService {
       );
   }
 
+  /**
+   * Everything the floor needs at `now` in one query: each technician's ledger from far enough back
+   * to hold any open shift and every punch on the open lines.
+   */
+  floorLedgers(technicianIds: number[], openLineIds: number[], now: Date): Map<number, Ledger> {
+    let since = now.getTime() - OPEN_SHIFT_LOOKBACK_MS;
+    if (openLineIds.length) {
+      const first = this.db
+        .select({ first: min(punches.at) })
+        .from(punches)
+        .where(inArray(punches.jobLineId, openLineIds))
+        .get()?.first;
+      if (first) since = Math.min(since, first.getTime() - OPEN_SHIFT_LOOKBACK_MS);
+    }
+    const rows = this.db
+      .select()
+      .from(punches)
+      .where(and(gte(punches.at, new Date(since)), lte(punches.at, now)))
+      .orderBy(asc(punches.at))
+      .all();
+    const byTechnician = new Map<number, LedgerPunch[]>(technicianIds.map((id) => [id, []]));
+    for (const row of rows) byTechnician.get(row.technicianId)?.push(toPunchDto(row));
+    const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
+    return new Map(
+      [...byTechnician].map(([id, list]) => [
+        id,
+        buildLedger(list, now, { concurrentSplit, maxConcurrentJobs }),
+      ]),
+    );
+  }
+
   /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
-    const result = new Map<number, LineSeconds>(
-      jobLineIds.map((id) => [id, { total: 0, byTechnician: new Map() }]),
-    );
-    if (jobLineIds.length === 0) return result;
+    if (jobLineIds.length === 0) return new Map();
     const starts = this.db
       .select({ technicianId: punches.technicianId, first: min(punches.at) })
       .from(punches)
       .where(inArray(punches.jobLineId, jobLineIds))
       .groupBy(punches.technicianId)
       .all();
-    for (const { technicianId, first } of starts) {
-      if (!first) continue;
-      const ledger = this.ledgerOf(technicianId, new Date(first.getTime() - OPEN_SHIFT_LOOKBACK_MS), now);
-      for (const [lineId, seconds] of Object.entries(ledger.totals.jobSeconds)) {
-        const line = result.get(Number(lineId));
-        if (!line) continue;
-        line.total += seconds;
-        line.byTechnician.set(technicianId, (line.byTechnician.get(technicianId) ?? 0) + seconds);
-      }
-    }
-    return result;
+    const ledgers = new Map(
+      starts.flatMap(({ technicianId, first }) =>
+        first
+          ? [
+              [
+                technicianId,
+                this.ledgerOf(technicianId, new Date(first.getTime() - OPEN_SHIFT_LOOKBACK_MS), now),
+              ] as const,
+            ]
+          : [],
+      ),
+    );
+    return lineSecondsOf(ledgers, jobLineIds);
   }
+}
+
+/** Sums the ledgers' seconds on each of the lines, per technician and in all. */
+export function lineSecondsOf(
+  ledgers: ReadonlyMap<number, Ledger>,
+  jobLineIds: number[],
+): Map<number, LineSeconds> {
+  const result = new Map<number, LineSeconds>(
+    jobLineIds.map((id) => [id, { total: 0, byTechnician: new Map() }]),
+  );
+  for (const [technicianId, ledger] of ledgers)
+    for (const [lineId, seconds] of Object.entries(ledger.totals.jobSeconds)) {
+      const line = result.get(Number(lineId));
+      if (!line || seconds === 0) continue;
+      line.total += seconds;
+      line.byTechnician.set(technicianId, (line.byTechnician.get(technicianId) ?? 0) + seconds);
+    }
+  return result;
 }

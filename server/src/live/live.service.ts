@@ -4,9 +4,16 @@ import type { ServerToClientEvents } from '@baytime/shared';
 
 type Payload<E extends keyof ServerToClientEvents> = Omit<Parameters<ServerToClientEvents[E]>[0], 'seq'>;
 
+/**
+ * Who hears a message: everyone signed in, the floor screens (office roles and wall displays), and
+ * optionally one technician's own kiosk. Kiosks need only what concerns their technician.
+ */
+export type Audience = { to: 'everyone' } | { to: 'floor'; technicianId?: number };
+
 export interface LiveMessage {
   event: keyof ServerToClientEvents;
   payload: { seq: number };
+  audience: Audience;
 }
 
 /**
@@ -28,8 +35,9 @@ export class LiveService {
   publish<E extends Exclude<keyof ServerToClientEvents, 'board.snapshot' | 'auth.error'>>(
     event: E,
     payload: Payload<E>,
+    audience: Audience = { to: 'everyone' },
   ): void {
-    this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq } });
+    this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq }, audience });
   }
 
   changed(): void {

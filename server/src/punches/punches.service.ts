@@ -85,7 +85,7 @@ export class PunchesService {
       .returning()
       .get();
     const punch = toPunchDto(row);
-    this.live.publish('punch.recorded', { punch });
+    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
     if (line && body.kind === 'job-on' && line.status === 'queued') {
       const updated = this.db
         .update(jobLines)
@@ -120,7 +120,7 @@ export class PunchesService {
         })
         .returning()
         .get();
-      this.live.publish('punch.recorded', { punch: toPunchDto(row) });
+      this.live.publish('punch.recorded', { punch: toPunchDto(row) }, { to: 'floor', technicianId });
     }
     return technicianIds;
   }

@@ -50,9 +50,10 @@ describe(TimersService.name, () => {
     const beforeStart = Date.now() - 5 * 60_000;
     // Common practice, no published source: transmission fluid set at about 45 °C; from 30 °C a running
     // engine gets there in a few minutes. 30 °C then 36 °C a minute later should give a near ETA.
-    await post(`/api/timers/${started.id}/readings`, { tempC: 30, at: new Date(beforeStart).toISOString() }).expect(
-      400,
-    );
+    await post(`/api/timers/${started.id}/readings`, {
+      tempC: 30,
+      at: new Date(beforeStart).toISOString(),
+    }).expect(400);
     const wallSocket = sut.connect(await sut.signIn(DEMO.owner));
     await nextEvent(wallSocket, 'board.snapshot');
     const heard = nextEvent(wallSocket, 'timer.updated', (e) => e.timerId === started.id);

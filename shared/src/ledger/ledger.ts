@@ -93,21 +93,30 @@ function totalsOf(
   const restBreakSeconds = sum(ledger.breaks.filter((b) => b.kind === 'rest'));
   const attendanceSeconds = Math.max(0, sum(ledger.shifts) - mealBreakSeconds);
 
-  // Sweep the job boundaries: between two of them the set of open lines is constant.
-  const edges = [...new Set(ledger.jobs.flatMap((j) => [j.from.getTime(), j.to.getTime()]))]
-    .map((t) => Math.min(Math.max(t, from), to))
-    .sort((a, b) => a - b);
+  // Sweep the job boundaries in time order: between two of them the set of open lines is constant.
+  // Only jobs that overlap the window take part, so a week of a year-long ledger costs a week's work.
+  const events = ledger.jobs
+    .filter((j) => j.to.getTime() > from && j.from.getTime() < to)
+    .flatMap((j) => [
+      { at: Math.max(j.from.getTime(), from), line: j.jobLineId, delta: 1 },
+      { at: Math.min(j.to.getTime(), to), line: j.jobLineId, delta: -1 },
+    ])
+    .sort((a, b) => a.at - b.at);
   const jobSeconds: Record<number, number> = {};
   for (const job of ledger.jobs) jobSeconds[job.jobLineId] ??= 0;
+  const open = new Map<number, number>();
   let clockedSeconds = 0;
-  for (let e = 1; e < edges.length; e++) {
-    const [start, end] = [edges[e - 1]!, edges[e]!];
-    if (end <= start) continue;
-    const open = ledger.jobs.filter((j) => j.from.getTime() <= start && j.to.getTime() >= end);
-    if (open.length === 0) continue;
-    const wall = seconds(start, end);
-    clockedSeconds += wall;
-    for (const job of open) jobSeconds[job.jobLineId]! += split === 'even' ? wall / open.length : wall;
+  let previous = -Infinity;
+  for (const event of events) {
+    if (open.size > 0 && event.at > previous) {
+      const wall = seconds(previous, event.at);
+      clockedSeconds += wall;
+      for (const line of open.keys()) jobSeconds[line]! += split === 'even' ? wall / open.size : wall;
+    }
+    previous = event.at;
+    const count = (open.get(event.line) ?? 0) + event.delta;
+    if (count > 0) open.set(event.line, count);
+    else open.delete(event.line);
   }
   return {
     attendanceSeconds,

@@ -1,0 +1,78 @@
+import {
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Param,
+  Post,
+  Query,
+  UploadedFiles,
+  UseInterceptors,
+} from '@nestjs/common';
+import { FilesInterceptor } from '@nestjs/platform-express';
+import {
+  createFindingSchema,
+  findingAnswerSchema,
+  findingsQuerySchema,
+  MAX_FINDING_PHOTOS,
+  type CreateFindingBody,
+  type FindingAnswerBody,
+  type FindingAnswerResult,
+  type FindingDto,
+  type FindingsQuery,
+  type MailQueued,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
+import { idParamSchema } from '../common/id-param.js';
+import { FindingsService } from './findings.service.js';
+import { NoticesService } from './notices.service.js';
+import { PhotoUploadErrors, photoUploadOptions, type UploadedPhoto } from './photo-upload.js';
+
+@Controller()
+export class FindingsController {
+  constructor(
+    private readonly findings: FindingsService,
+    private readonly notices: NoticesService,
+  ) {}
+
+  /** multipart/form-data: the text fields of `createFindingSchema` and up to 6 files in `photos`. */
+  @Roles('technician', 'foreman', 'owner')
+  @Post('job-lines/:id/findings')
+  @UseInterceptors(PhotoUploadErrors, FilesInterceptor('photos', MAX_FINDING_PHOTOS, photoUploadOptions))
+  create(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: createFindingSchema }) body: CreateFindingBody,
+    @UploadedFiles() photos: UploadedPhoto[] | undefined,
+    @CurrentUser() actor: Principal,
+  ): Promise<FindingDto> {
+    return this.findings.create(id, body, photos ?? [], actor);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Get('findings')
+  list(@Query({ schema: findingsQuerySchema }) query: FindingsQuery): FindingDto[] {
+    return this.findings.list(query);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Post('findings/:id/answer')
+  @HttpCode(200)
+  answer(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: findingAnswerSchema }) body: FindingAnswerBody,
+    @CurrentUser() actor: Principal,
+  ): FindingAnswerResult {
+    return this.findings.answer(id, body, actor);
+  }
+
+  @Roles('advisor')
+  @Post('findings/:id/request-approval')
+  @HttpCode(202)
+  requestApproval(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @CurrentUser() actor: Principal,
+  ): MailQueued {
+    return this.notices.requestApproval(id, actor);
+  }
+}

@@ -1,0 +1,396 @@
+import {
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+  Logger,
+  type StreamableFile,
+} from '@nestjs/common';
+import { and, asc, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/sqlite-core';
+import type {
+  CreateFindingBody,
+  FindingAnswerBody,
+  FindingAnswerResult,
+  FindingDto,
+  FindingsQuery,
+  JobLineDto,
+} from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { describeVehicle } from '../board/board.service.js';
+import { foundOrFail } from '../common/not-found.js';
+import { DB, type Db } from '../db/database.js';
+import {
+  attachments,
+  auditLog,
+  customers,
+  findings,
+  jobLines,
+  repairOrders,
+  users,
+  vehicles,
+} from '../db/schema/index.js';
+import { LabourService } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { toJobLineDto } from '../work/job-line.dto.js';
+import { JobLinesService } from '../work/job-lines.service.js';
+import { NoticesService } from './notices.service.js';
+import { PhotoStore } from './photo-store.js';
+import type { UploadedPhoto } from './photo-upload.js';
+
+type LineRow = typeof jobLines.$inferSelect;
+type AttachmentRow = typeof attachments.$inferSelect;
+
+const OFFICE_ROLES: Principal['role'][] = ['owner', 'foreman', 'advisor'];
+const TITLE_MAX = 120;
+
+/** A job-line title from a finding's note: its first line, cut at a word near 120 characters. */
+export function titleFromNote(note: string): string {
+  const line =
+    note
+      .split(/\r?\n/)
+      .find((l) => l.trim())
+      ?.trim() ?? note.trim();
+  const flat = line.replace(/\s+/g, ' ');
+  if (flat.length <= TITLE_MAX) return flat;
+  const cut = flat.slice(0, TITLE_MAX - 1);
+  const space = cut.lastIndexOf(' ');
+  return `${(space > TITLE_MAX / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
+}
+
+/** Extra work a technician found: photos, the office inbox, and the answer once the customer decided. */
+@Injectable()
+export class FindingsService {
+  private readonly logger = new Logger('Findings');
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly audit: AuditService,
+    private readonly live: LiveService,
+    private readonly labour: LabourService,
+    private readonly lines: JobLinesService,
+    private readonly photos: PhotoStore,
+    private readonly notices: NoticesService,
+  ) {}
+
+  async create(
+    jobLineId: number,
+    body: CreateFindingBody,
+    uploaded: UploadedPhoto[],
+    actor: Principal,
+  ): Promise<FindingDto> {
+    this.lineFor(jobLineId, body, actor, new Date());
+    const checked = await this.photos.check(uploaded);
+    const stored = await this.photos.write(checked);
+    // From here on nothing awaits: the checks, the rows and the hold see one state of the line.
+    const now = new Date();
+    let findingId: number;
+    try {
+      const line = this.lineFor(jobLineId, body, actor, now);
+      findingId = this.db.transaction((tx) => {
+        const finding = tx
+          .insert(findings)
+          .values({
+            jobLineId: line.id,
+            technicianId: actor.id,
+            note: body.note,
+            severity: body.severity,
+            suggestedHours: body.suggestedHours ?? null,
+            createdAt: now,
+          })
+          .returning()
+          .get();
+        for (const photo of stored)
+          tx.insert(attachments)
+            .values({ ...photo, findingId: finding.id, createdAt: now })
+            .run();
+        return finding.id;
+      });
+    } catch (error) {
+      await this.photos.remove(stored.flatMap((photo) => [photo.storedName, photo.previewName]));
+      throw error;
+    }
+    if (body.holdForApproval) this.lines.hold(jobLineId, { reason: 'approval' }, actor, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'create',
+      entity: 'finding',
+      entityId: findingId,
+      detail: {
+        jobLineId,
+        severity: body.severity,
+        photos: stored.length,
+        holdForApproval: body.holdForApproval,
+      },
+    });
+    this.live.publish('finding.created', { findingId, jobLineId });
+    this.live.changed();
+    try {
+      this.notices.findingCreated(findingId);
+    } catch (error) {
+      this.logger.error(`Could not queue the advisor's e-mail for finding ${findingId}: ${String(error)}`);
+    }
+    return this.get(findingId);
+  }
+
+  list(query: FindingsQuery): FindingDto[] {
+    const where: SQL[] = [];
+    if (query.answer) where.push(eq(findings.answer, query.answer));
+    if (query.repairOrderId) where.push(eq(jobLines.repairOrderId, query.repairOrderId));
+    return this.dtos(where.length ? and(...where) : undefined);
+  }
+
+  get(id: number): FindingDto {
+    return foundOrFail(this.dtos(eq(findings.id, id))[0], 'Finding');
+  }
+
+  /**
+   * The customer's yes adds a queued line to the RO; a no is noted on it. Either way a line held for
+   * approval goes back to the queue once no finding on it waits for an answer.
+   */
+  answer(id: number, body: FindingAnswerBody, actor: Principal, now = new Date()): FindingAnswerResult {
+    const finding = foundOrFail(this.db.select().from(findings).where(eq(findings.id, id)).get(), 'Finding');
+    if (finding.answer !== 'pending') throw new ConflictException('That finding was already answered');
+    const line = foundOrFail(
+      this.db.select().from(jobLines).where(eq(jobLines.id, finding.jobLineId)).get(),
+      'Job line',
+    );
+    const ro = foundOrFail(
+      this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get(),
+      'Repair order',
+    );
+    if (body.answer === 'approved' && ro.status === 'closed')
+      throw new ConflictException('That repair order is closed: open a new one for the extra work');
+
+    const created = this.db.transaction((tx) => {
+      let createdLine: LineRow | null = null;
+      if (body.answer === 'approved') {
+        const last = tx
+          .select({ lineNo: max(jobLines.lineNo) })
+          .from(jobLines)
+          .where(eq(jobLines.repairOrderId, ro.id))
+          .get();
+        createdLine = tx
+          .insert(jobLines)
+          .values({
+            repairOrderId: ro.id,
+            lineNo: (last?.lineNo ?? 0) + 1,
+            title: body.title ?? titleFromNote(finding.note),
+            bookHours: body.bookHours,
+            skillLevel: line.skillLevel,
+            status: 'queued',
+            priority: finding.severity === 'safety-now' ? 'high' : 'normal',
+            bayId: line.bayId,
+            promisedAt: ro.promisedAt,
+            queuedAt: now,
+            updatedAt: now,
+          })
+          .returning()
+          .get();
+        if (ro.status === 'done')
+          tx.update(repairOrders).set({ status: 'open' }).where(eq(repairOrders.id, ro.id)).run();
+      }
+      tx.update(findings)
+        .set({ answer: body.answer, answeredBy: actor.id, answeredAt: now, createdLineId: createdLine?.id })
+        .where(eq(findings.id, id))
+        .run();
+      return createdLine;
+    });
+
+    this.audit.record(
+      {
+        actorId: actor.id,
+        action: body.answer === 'approved' ? 'approve' : 'decline',
+        entity: 'finding',
+        entityId: id,
+        detail: { ...body, createdLineId: created?.id ?? null },
+      },
+      now,
+    );
+    this.audit.record(
+      {
+        actorId: actor.id,
+        action: body.answer === 'approved' ? 'finding-approved' : 'finding-declined',
+        entity: 'repair-order',
+        entityId: ro.id,
+        detail:
+          body.answer === 'approved'
+            ? { findingId: id, jobLineId: created?.id, title: created?.title, bookHours: body.bookHours }
+            : { findingId: id, note: body.note ?? null },
+      },
+      now,
+    );
+
+    let createdLine: JobLineDto | null = null;
+    if (created) {
+      createdLine = toJobLineDto(created);
+      this.live.publish('job-line.updated', { jobLine: createdLine });
+      this.live.changed();
+    }
+    return { finding: this.get(id), createdLine, resumedLine: this.resumeIfAnswered(line.id, actor, now) };
+  }
+
+  /** A photo or its preview, to the office and to technicians on that repair order. */
+  photo(id: number, variant: 'original' | 'preview', actor: Principal): StreamableFile {
+    const row = foundOrFail(
+      this.db
+        .select({ attachment: attachments, finding: findings, repairOrderId: jobLines.repairOrderId })
+        .from(attachments)
+        .innerJoin(findings, eq(findings.id, attachments.findingId))
+        .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
+        .where(eq(attachments.id, id))
+        .get(),
+      'Photo',
+    );
+    if (
+      !OFFICE_ROLES.includes(actor.role) &&
+      !(actor.role === 'technician' && row.finding.technicianId === actor.id) &&
+      !(actor.role === 'technician' && this.onRepairOrder(row.repairOrderId, actor.id))
+    )
+      throw new ForbiddenException('That photo is not on one of your repair orders');
+    const { attachment } = row;
+    const number = `finding-${row.finding.id}-photo-${attachment.id}`;
+    return variant === 'preview' && attachment.previewName
+      ? this.photos.stream(attachment.previewName, 'image/jpeg', `${number}-preview.jpg`)
+      : this.photos.stream(
+          attachment.storedName,
+          attachment.mimeType,
+          `${number}.${extensionOf(attachment)}`,
+        );
+  }
+
+  /**
+   * The line the finding is for, when the actor may record one on it: the foreman and owner on any
+   * line; a technician on a line of a repair order they are assigned to, or one they are clocked on.
+   * Holding it needs what holding any line needs: the line is theirs or they are clocked on it.
+   */
+  private lineFor(jobLineId: number, body: CreateFindingBody, actor: Principal, now: Date): LineRow {
+    const line = foundOrFail(
+      this.db.select().from(jobLines).where(eq(jobLines.id, jobLineId)).get(),
+      'Job line',
+    );
+    if (actor.role === 'technician') {
+      const onLine = line.technicianId === actor.id || this.labour.clockedOn(line.id, now).includes(actor.id);
+      if (!onLine && !this.onRepairOrder(line.repairOrderId, actor.id))
+        throw new ForbiddenException('That repair order is not yours: ask the foreman');
+      if (body.holdForApproval && !onLine)
+        throw new ForbiddenException('Only the technician on that line can hold it: ask the foreman');
+    }
+    if (body.holdForApproval && line.status === 'done')
+      throw new ConflictException('That line is already done: it cannot be held for approval');
+    return line;
+  }
+
+  private onRepairOrder(repairOrderId: number, technicianId: number): boolean {
+    return !!this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(and(eq(jobLines.repairOrderId, repairOrderId), eq(jobLines.technicianId, technicianId)))
+      .get();
+  }
+
+  private resumeIfAnswered(jobLineId: number, actor: Principal, now: Date): JobLineDto | null {
+    const line = this.db.select().from(jobLines).where(eq(jobLines.id, jobLineId)).get();
+    if (line?.status !== 'held' || line.holdReason !== 'approval') return null;
+    const waiting = this.db
+      .select({ id: findings.id })
+      .from(findings)
+      .where(and(eq(findings.jobLineId, jobLineId), eq(findings.answer, 'pending')))
+      .get();
+    return waiting ? null : this.lines.resume(jobLineId, actor, now);
+  }
+
+  private dtos(where: SQL | undefined): FindingDto[] {
+    const answerer = alias(users, 'answerer');
+    const rows = this.db
+      .select({
+        finding: findings,
+        line: jobLines,
+        ro: repairOrders,
+        vehicle: vehicles,
+        customer: customers,
+        technicianName: users.name,
+        answeredBy: answerer.name,
+      })
+      .from(findings)
+      .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .innerJoin(customers, eq(customers.id, repairOrders.customerId))
+      .innerJoin(users, eq(users.id, findings.technicianId))
+      .leftJoin(answerer, eq(answerer.id, findings.answeredBy))
+      .where(where)
+      .orderBy(desc(findings.createdAt), desc(findings.id))
+      .all();
+    if (!rows.length) return [];
+    const ids = rows.map((row) => row.finding.id);
+    const photos = this.db
+      .select()
+      .from(attachments)
+      .where(inArray(attachments.findingId, ids))
+      .orderBy(asc(attachments.id))
+      .all();
+    const notes = this.db
+      .select({
+        entityId: auditLog.entityId,
+        action: auditLog.action,
+        at: auditLog.at,
+        detail: auditLog.detail,
+      })
+      .from(auditLog)
+      .where(
+        and(
+          eq(auditLog.entity, 'finding'),
+          inArray(auditLog.entityId, ids.map(String)),
+          inArray(auditLog.action, ['decline', 'request-approval']),
+        ),
+      )
+      .orderBy(asc(auditLog.at), asc(auditLog.id))
+      .all();
+    const lastNote = (findingId: number, action: string) =>
+      notes.filter((note) => note.entityId === String(findingId) && note.action === action).at(-1);
+
+    return rows.map(({ finding, line, ro, vehicle, customer, technicianName, answeredBy }) => {
+      const declined = lastNote(finding.id, 'decline')?.detail?.note;
+      return {
+        id: finding.id,
+        jobLineId: line.id,
+        lineNo: line.lineNo,
+        lineTitle: line.title,
+        lineStatus: line.status,
+        holdReason: line.holdReason,
+        repairOrderId: ro.id,
+        repairOrderNumber: ro.number,
+        vehicle: describeVehicle(vehicle),
+        customerName: customer.name,
+        customerHasEmail: !!customer.email?.trim(),
+        technicianId: finding.technicianId,
+        technicianName,
+        note: finding.note,
+        severity: finding.severity,
+        suggestedHours: finding.suggestedHours,
+        answer: finding.answer,
+        answeredBy: answeredBy ?? null,
+        answeredAt: finding.answeredAt?.toISOString() ?? null,
+        answerNote: typeof declined === 'string' ? declined : null,
+        createdLineId: finding.createdLineId,
+        approvalRequestedAt: lastNote(finding.id, 'request-approval')?.at.toISOString() ?? null,
+        createdAt: finding.createdAt.toISOString(),
+        photos: photos
+          .filter((photo) => photo.findingId === finding.id)
+          .map((photo) => ({
+            id: photo.id,
+            mimeType: photo.mimeType as FindingDto['photos'][number]['mimeType'],
+            sizeBytes: photo.sizeBytes,
+            url: `/api/attachments/${photo.id}`,
+            previewUrl: `/api/attachments/${photo.id}/preview`,
+          })),
+      };
+    });
+  }
+}
+
+function extensionOf(attachment: AttachmentRow): string {
+  return attachment.storedName.split('.').at(-1) ?? 'bin';
+}
