@@ -25,7 +25,10 @@ export async function openBrowser(viewport = { width: 1280, height: 800 }): Prom
   });
 }
 
-export async function newPage(context: BrowserContext, viewport?: { width: number; height: number }): Promise<Page> {
+export async function newPage(
+  context: BrowserContext,
+  viewport?: { width: number; height: number },
+): Promise<Page> {
   const page = await context.newPage();
   if (viewport) await page.setViewportSize(viewport);
   return page;

@@ -31,7 +31,10 @@ async function waitForHealth(url: string, child: ChildProcess, timeoutMs = 30_00
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}`);
-    const ok = await fetch(`${url}/api/health`).then((r) => r.ok, () => false);
+    const ok = await fetch(`${url}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) return;
     await new Promise((r) => setTimeout(r, 150));
   }

@@ -14,6 +14,7 @@ import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
 import { PunchesModule } from './punches/punches.module.js';
+import { ReportsModule } from './reports/reports.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
@@ -53,6 +54,7 @@ export class AppModule {
         PunchesModule,
         WorkModule,
         TimecardsModule,
+        ReportsModule,
         TimersModule,
         DispatchModule,
         FindingsModule,

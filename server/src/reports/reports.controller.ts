@@ -1,0 +1,21 @@
+import { Controller, Get, Query, type StreamableFile } from '@nestjs/common';
+import { reportQuerySchema, type LabourReport, type PayReport, type ReportQuery } from '@baytime/shared';
+import { Roles } from '../common/decorators/auth.decorators.js';
+import { ReportsService } from './reports.service.js';
+
+@Controller('reports')
+export class ReportsController {
+  constructor(private readonly reports: ReportsService) {}
+
+  @Roles('owner', 'foreman')
+  @Get('labour')
+  labour(@Query({ schema: reportQuerySchema }) query: ReportQuery): LabourReport | StreamableFile {
+    return this.reports.labourAnswer(query);
+  }
+
+  @Roles('owner')
+  @Get('pay')
+  pay(@Query({ schema: reportQuerySchema }) query: ReportQuery): PayReport | StreamableFile {
+    return this.reports.payAnswer(query);
+  }
+}

@@ -1,0 +1,529 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq, min } from 'drizzle-orm';
+import {
+  addIsoWeeks,
+  makeVin,
+  shopLocalInstant,
+  workweekBounds,
+  workweekDays,
+  workweekOf,
+  type LabourReport,
+  type LabourReportTechnician,
+  type PayReport,
+  type ShopDay,
+  type ShopSettings,
+} from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { customers, jobLines, punches, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { ReportsService } from './reports.service.js';
+
+type Kind = 'shift-in' | 'shift-out' | 'break-start' | 'break-end' | 'job-on' | 'job-off';
+
+/**
+ * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
+ * shop figures are those of the technicians made here alone. Times are shop-local (America/Chicago).
+ */
+describe(ReportsService.name, () => {
+  let sut: TestApp;
+  let db: Db;
+  let owner: string;
+  let foreman: string;
+  let shop: ShopSettings;
+  let week: string;
+  let weekdays: ShopDay[];
+  const ids = {} as Record<'a' | 'b' | 'c' | 'd' | 'e' | 'f', number>;
+  const lineIds = { a: [] as number[], b: [] as number[], s: 0, u: 0 };
+  let bayId: number;
+  let roSerial = 0;
+
+  const as = (token: string) => ({
+    get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
+    post: (path: string, body: object) => sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
+    patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
+  });
+  const at = (day: ShopDay, time: string) => shopLocalInstant(day.day, time, shop.timeZone);
+  const technician = async (name: string, badge: string, flatRateCents: number, hourlyRateCents: number) =>
+    (
+      await as(owner)
+        .post('/api/users', { name, role: 'technician', badge, pin: '4321', flatRateCents, hourlyRateCents })
+        .expect(201)
+    ).body.id as number;
+  /** A missed punch added by the owner: the only way to record times this far back. */
+  const punch = (technicianId: number, kind: Kind, when: Date, jobLineId?: number) =>
+    as(owner)
+      .post('/api/timecards/corrections', {
+        technicianId,
+        kind,
+        at: when.toISOString(),
+        reason: 'From the paper timesheet',
+        ...(jobLineId ? { jobLineId } : {}),
+        ...(kind === 'break-start' ? { breakKind: 'meal' } : {}),
+      })
+      .expect(201);
+  const finish = (jobLineId: number, when: Date) =>
+    as(foreman).patch(`/api/job-lines/${jobLineId}`, { completedAt: when.toISOString() }).expect(200);
+  /** There is no repair-order intake route to lean on here: the RO and its line go straight in. */
+  const line = (title: string, bookHours: number, technicianId: number, queuedAt: Date, bay?: number) => {
+    const serial = ++roSerial;
+    const customer = db
+      .insert(customers)
+      .values({ name: `Test customer ${serial}`, createdAt: queuedAt })
+      .returning()
+      .get();
+    const vehicle = db
+      .insert(vehicles)
+      .values({
+        customerId: customer.id,
+        vin: makeVin(`7RP9TS4DLM${String(500_000 + serial)}`),
+        year: 2020,
+        make: 'Corvane',
+        model: 'Altrix',
+      })
+      .returning()
+      .get();
+    const ro = db
+      .insert(repairOrders)
+      .values({
+        number: `T${900 + serial}`,
+        customerId: customer.id,
+        vehicleId: vehicle.id,
+        concern: title,
+        odometer: 40_000,
+        createdAt: queuedAt,
+      })
+      .returning()
+      .get();
+    return db
+      .insert(jobLines)
+      .values({
+        repairOrderId: ro.id,
+        lineNo: 1,
+        title,
+        bookHours,
+        technicianId,
+        bayId: bay ?? null,
+        queuedAt,
+        updatedAt: queuedAt,
+      })
+      .returning()
+      .get().id;
+  };
+  const labour = async (query: string, token = owner) =>
+    (await as(token).get(`/api/reports/labour?${query}`).expect(200)).body as LabourReport;
+  const pay = async (query: string) =>
+    (await as(owner).get(`/api/reports/pay?${query}`).expect(200)).body as PayReport;
+  const rowOf = (report: LabourReport, technicianId: number) =>
+    report.technicians.find((row) => row.technicianId === technicianId)!;
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    db = sut.app.get<Db>(DB);
+    owner = await sut.signIn(DEMO.owner);
+    foreman = await sut.signIn(DEMO.foreman);
+    shop = (await as(owner).get('/api/shop').expect(200)).body as ShopSettings;
+    week = addIsoWeeks(workweekOf(new Date(), shop), -3);
+    const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
+    weekdays = workweekDays(week, shop).filter(isWeekday);
+    const [monday, tuesday] = weekdays as [ShopDay, ShopDay];
+
+    ids.a = await technician('Ada Vexley', '5001', 10_00, 8_00);
+    ids.b = await technician('Bram Osterly', '5002', 20_00, 15_00);
+    ids.c = await technician('Cleo Harwin', '5003', 18_00, 12_00);
+    ids.d = await technician('Dex Morrow', '5004', 16_00, 0);
+    ids.e = await technician('Eli Stroud', '5005', 0, 25_00);
+    ids.f = await technician('Fay Lindqvist', '5006', 20_00, 15_00);
+    bayId = (await as(owner).post('/api/bays', { name: 'Bay 9' }).expect(201)).body.id;
+
+    // Ada: 07:00–17:30 with a 30-minute meal = 10 h a day; clocked 07:06–11:54 (4.8 h) and 12:36–17:00
+    // (4.4 h) = 9.2 h; two lines finished a day. Book hours sum to 49.1.
+    const adaBook = [5.4, 4.5, 5.0, 4.9, 5.6, 4.2, 5.2, 4.6, 5.3, 4.4];
+    for (const [i, day] of weekdays.entries()) {
+      const [first, second] = [
+        line('Replace front struts', adaBook[2 * i]!, ids.a, at(day, '06:30')),
+        line('Replace water pump', adaBook[2 * i + 1]!, ids.a, at(day, '06:30')),
+      ];
+      lineIds.a.push(first, second);
+      await punch(ids.a, 'shift-in', at(day, '07:00'));
+      await punch(ids.a, 'job-on', at(day, '07:06'), first);
+      await punch(ids.a, 'job-off', at(day, '11:54'), first);
+      await punch(ids.a, 'break-start', at(day, '12:00'));
+      await punch(ids.a, 'break-end', at(day, '12:30'));
+      await punch(ids.a, 'job-on', at(day, '12:36'), second);
+      await punch(ids.a, 'job-off', at(day, '17:00'), second);
+      await punch(ids.a, 'shift-out', at(day, '17:30'));
+      await finish(first, at(day, '11:54'));
+      await finish(second, at(day, '17:00'));
+    }
+
+    // Bram: 07:30–16:00 with a 30-minute meal = 8 h a day; one 9.0 h line a day in Bay 9, clocked
+    // 07:36–11:54 (4.3 h) and 12:36–15:30 (2.9 h) = 7.2 h, finished at 15:30.
+    for (const day of weekdays) {
+      const job = line('Replace rear wheel bearing', 9.0, ids.b, at(day, '07:00'), bayId);
+      lineIds.b.push(job);
+      await punch(ids.b, 'shift-in', at(day, '07:30'));
+      await punch(ids.b, 'job-on', at(day, '07:36'), job);
+      await punch(ids.b, 'job-off', at(day, '11:54'), job);
+      await punch(ids.b, 'break-start', at(day, '12:00'));
+      await punch(ids.b, 'break-end', at(day, '12:30'));
+      await punch(ids.b, 'job-on', at(day, '12:36'), job);
+      await punch(ids.b, 'job-off', at(day, '15:30'), job);
+      await punch(ids.b, 'shift-out', at(day, '16:00'));
+      await finish(job, at(day, '15:30'));
+    }
+
+    // Cleo and Dex share a 2.0 h line on Tuesday: Cleo clocked 08:06–11:06 (3 h), Dex 09:00–10:00 (1 h);
+    // each is on shift 08:00–12:00 (4 h). Dex is also assigned a 0.4 h line in Bay 9 that nobody clocked
+    // on, queued Monday 15:00 and finished Monday 16:30.
+    lineIds.s = line('Diagnose engine warning light', 2.0, ids.c, at(tuesday, '07:00'));
+    lineIds.u = line('Battery and charging system test', 0.4, ids.d, at(monday, '15:00'), bayId);
+    await finish(lineIds.u, at(monday, '16:30'));
+    await punch(ids.c, 'shift-in', at(tuesday, '08:00'));
+    await punch(ids.d, 'shift-in', at(tuesday, '08:00'));
+    await punch(ids.c, 'job-on', at(tuesday, '08:06'), lineIds.s);
+    await punch(ids.d, 'job-on', at(tuesday, '09:00'), lineIds.s);
+    await punch(ids.d, 'job-off', at(tuesday, '10:00'), lineIds.s);
+    await punch(ids.c, 'job-off', at(tuesday, '11:06'), lineIds.s);
+    await punch(ids.c, 'shift-out', at(tuesday, '12:00'));
+    await punch(ids.d, 'shift-out', at(tuesday, '12:00'));
+    await finish(lineIds.s, at(tuesday, '11:06'));
+
+    // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job.
+    const before = workweekDays(addIsoWeeks(week, -1), shop).filter(isWeekday);
+    const ends = ['17:00', '15:00', '20:00', '15:00', '15:00'];
+    for (const [i, day] of before.entries()) {
+      await punch(ids.e, 'shift-in', at(day, '07:00'));
+      await punch(ids.e, 'shift-out', at(day, ends[i]!));
+    }
+  }, 120_000);
+  afterAll(() => sut.close());
+
+  it('reports the week by hand-worked figures, with the workweek bounds and the formulas', async () => {
+    const report = await labour(`week=${week}`, foreman);
+    const { from, to } = workweekBounds(week, shop);
+    expect(report).toMatchObject({
+      week,
+      from: from.toISOString(),
+      to: to.toISOString(),
+      timeZone: 'America/Chicago',
+    });
+    expect(report.formulas.efficiency).toBe('Efficiency = flagged hours ÷ clocked job hours');
+    expect(report.guidelines.efficiency).toEqual({ low: 1.25, high: 1.25 });
+
+    // Ada: 5 × 10 h = 50 h attendance, 5 × 9.2 h = 46 h clocked, 49.1 h flagged →
+    // productivity 46/50 = 0.92, efficiency 49.1/46 = 1.067391, proficiency 49.1/50 = 0.982.
+    const ada = rowOf(report, ids.a);
+    expect(ada).toMatchObject({
+      name: 'Ada Vexley',
+      attendanceHours: 50,
+      clockedHours: 46,
+      flaggedHours: 49.1,
+    });
+    expect(ada.productivity).toBeCloseTo(0.92, 6);
+    expect(ada.efficiency).toBeCloseTo(49.1 / 46, 6);
+    expect(ada.proficiency).toBeCloseTo(0.982, 6);
+    expect(ada.lines).toHaveLength(10);
+    // Monday's first line: book 5.4 h, clocked 07:06–11:54 = 4.8 h → 0.6 h over the clock.
+    expect(ada.lines[0]).toMatchObject({ jobLineId: lineIds.a[0], title: 'Replace front struts' });
+    expect(ada.lines[0]).toMatchObject({ bookHours: 5.4, flaggedHours: 5.4, clockedHours: 4.8 });
+    expect(ada.lines[0]!.overUnderHours).toBeCloseTo(0.6, 6);
+
+    // NADA definitions via a dealer association bulletin "Measuring technician performance" (CHECKS.md §3):
+    // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance,
+    // 5 × 7.2 h clocked, 5 × 9.0 h flagged.
+    const bram = rowOf(report, ids.b);
+    expect(bram).toMatchObject({ attendanceHours: 40, clockedHours: 36, flaggedHours: 45 });
+    expect(bram.productivity).toBeCloseTo(0.9, 6);
+    expect(bram.efficiency).toBeCloseTo(1.25, 6);
+    expect(bram.proficiency).toBeCloseTo(1.125, 6);
+
+    // The shared 2.0 h line by clocked time: Cleo 2.0 × 3/4 = 1.5 h, Dex 2.0 × 1/4 = 0.5 h; Dex also gets
+    // the 0.4 h line nobody clocked on, as its assigned technician (common practice, no published source).
+    const cleo = rowOf(report, ids.c);
+    const dex = rowOf(report, ids.d);
+    expect(cleo).toMatchObject({
+      attendanceHours: 4,
+      clockedHours: 3,
+      flaggedHours: 1.5,
+      productivity: 0.75,
+    });
+    expect(cleo.efficiency).toBeCloseTo(0.5, 6);
+    expect(dex).toMatchObject({ attendanceHours: 4, clockedHours: 1, productivity: 0.25 });
+    expect(dex.flaggedHours).toBeCloseTo(0.9, 6);
+    expect(cleo.lines).toEqual([
+      expect.objectContaining({
+        jobLineId: lineIds.s,
+        flaggedHours: 1.5,
+        clockedHours: 3,
+        overUnderHours: -1.5,
+      }),
+    ]);
+    expect(dex.lines).toEqual([
+      expect.objectContaining({
+        jobLineId: lineIds.s,
+        flaggedHours: 0.5,
+        clockedHours: 1,
+        overUnderHours: -0.5,
+      }),
+      expect.objectContaining({
+        jobLineId: lineIds.u,
+        flaggedHours: 0.4,
+        clockedHours: 0,
+        overUnderHours: 0.4,
+      }),
+    ]);
+
+    // Shop: hours summed first. 50 + 40 + 4 + 4 = 98 h attendance, 46 + 36 + 3 + 1 = 86 h clocked,
+    // 49.1 + 45 + 1.5 + 0.9 = 96.5 h flagged → 86/98, 96.5/86, 96.5/98.
+    expect(report.shop).toMatchObject({ attendanceHours: 98, clockedHours: 86, flaggedHours: 96.5 });
+    expect(report.shop.productivity).toBeCloseTo(86 / 98, 6);
+    expect(report.shop.efficiency).toBeCloseTo(96.5 / 86, 6);
+    expect(report.shop.proficiency).toBeCloseTo(96.5 / 98, 6);
+  });
+
+  it('shows the shop trend over 12 weeks: null ratios where nothing was worked', async () => {
+    const { trend, shop: totals } = await labour(`week=${week}`);
+    expect(trend.map((point) => point.week)).toEqual(
+      Array.from({ length: 12 }, (_, i) => addIsoWeeks(week, i - 11)),
+    );
+    expect(trend[11]).toMatchObject({ week, ...totals });
+    // The week before: Eli's 47 h on shift and no job → productivity 0/47 = 0, efficiency 0/0 = null.
+    expect(trend[10]).toMatchObject({
+      attendanceHours: 47,
+      productivity: 0,
+      efficiency: null,
+      proficiency: 0,
+    });
+    expect(trend[0]).toMatchObject({ attendanceHours: 0, productivity: null, efficiency: null });
+  });
+
+  it('keeps finished weeks of the trend only until a punch changes them', async () => {
+    expect((await labour(`week=${week}`)).trend[9]).toMatchObject({ attendanceHours: 0 });
+    // A 2-hour shift added two weeks back shows in the next report.
+    const gus = await technician('Gus Farrant', '5007', 15_00, 10_00);
+    const day = workweekDays(addIsoWeeks(week, -2), shop)[2]!;
+    await punch(gus, 'shift-in', at(day, '08:00'));
+    await punch(gus, 'shift-out', at(day, '10:00'));
+    expect((await labour(`week=${week}`)).trend[9]).toMatchObject({ attendanceHours: 2, productivity: 0 });
+  });
+
+  it('derives bay utilisation from the lines in the bay over the opening hours', async () => {
+    const bay = (await labour(`week=${week}`)).bayUtilisation.find((b) => b.bayId === bayId)!;
+    // Opening hours 07:30–17:30 (10 h) on weekdays, closed at the weekend. Bram's line each day runs
+    // from its first job-on at 07:36 to done at 15:30 = 7.9 h → 0.79. On Monday Dex's unclocked line
+    // (queued 15:00, done 16:30) joins it: 07:36–16:30 = 8.9 h → 0.89. Week: (8.9 + 4 × 7.9) / 50 = 0.81.
+    expect(bay.days).toHaveLength(7);
+    const share = new Map(bay.days.map((d) => [d.day, d.share]));
+    expect(share.get(weekdays[0]!.day)).toBeCloseTo(0.89, 6);
+    for (const day of weekdays.slice(1)) expect(share.get(day.day)).toBeCloseTo(0.79, 6);
+    expect(bay.days.filter((d) => d.share === null)).toHaveLength(2);
+    expect(bay.week).toBeCloseTo(0.81, 6);
+  });
+
+  // 29 CFR 778.111(a), CHECKS.md §1 vector A: 50 h worked; $491.00 piece pay for 46 productive hours;
+  // 4 h waiting at $8.00 → straight time $523.00, regular rate $523.00 ÷ 50 = $10.46, premium
+  // 10 × $5.23 = $52.30, total $575.30 (= 40 × $10.46 + 10 × $15.69). Ada's week: 49.1 flagged h × $10.00
+  // = $491.00; idle 07:00–07:06, 11:54–12:00, 12:30–12:36 and 17:00–17:30 = 0.8 h a day = 4 h × $8.00.
+  it('pays 29 CFR 778.111(a) vector A end to end', async () => {
+    const report = await pay(`week=${week}`);
+    expect(report).toMatchObject({ week, rules: 'federal', minimumWageCents: 7_25 });
+    expect(report.caution).toMatch(/estimate/);
+    const ada = report.technicians.find((row) => row.technicianId === ids.a)!;
+    expect(ada).toEqual({
+      technicianId: ids.a,
+      name: 'Ada Vexley',
+      flatRateCents: 10_00,
+      hourlyRateCents: 8_00,
+      overtimeExempt: false,
+      flaggedHours: 49.1,
+      flaggedPayCents: 491_00,
+      nonProductivePayCents: 32_00,
+      straightTimeCents: 523_00,
+      hoursWorked: 50,
+      regularRateCents: 10_46,
+      overtimeHours: 10,
+      doubleTimeHours: 0,
+      overtimePremiumCents: 52_30,
+      minimumWageTopUpCents: 0,
+      totalCents: 575_30,
+      underMinimumWage: false,
+      nearOvertime: false,
+    });
+    expect(ada.totalCents).toBe(40 * 10_46 + 10 * 15_69);
+  });
+
+  // 29 USC 206(a)(1)(C), CHECKS.md §1: $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
+  // h × $16.00 = $14.40 and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 → top-up $14.60.
+  it('tops up to the minimum wage and totals the week', async () => {
+    const report = await pay(`week=${week}`);
+    const dex = report.technicians.find((row) => row.technicianId === ids.d)!;
+    expect(dex).toMatchObject({
+      flaggedPayCents: 14_40,
+      nonProductivePayCents: 0,
+      minimumWageTopUpCents: 14_60,
+      regularRateCents: 7_25,
+      totalCents: 29_00,
+      underMinimumWage: true,
+    });
+    // Bram: 45 × $20 = $900 + 4 h idle × $15 = $60 → $960, 40 h, no overtime.
+    // Cleo: 1.5 × $18 = $27 + 1 h idle × $12 = $12 → $39 for 4 h, above 4 × $7.25 = $29.
+    const totals = { flagged: 491_00 + 900_00 + 27_00 + 14_40, total: 575_30 + 960_00 + 39_00 + 29_00 };
+    expect(report.technicians.find((row) => row.technicianId === ids.b)).toMatchObject({
+      totalCents: 960_00,
+    });
+    expect(report.technicians.find((row) => row.technicianId === ids.c)).toMatchObject({ totalCents: 39_00 });
+    expect(report.totals).toMatchObject({
+      flaggedPayCents: totals.flagged,
+      totalCents: totals.total,
+      hoursWorked: 98,
+      overtimeHours: 10,
+      overtimePremiumCents: 52_30,
+      minimumWageTopUpCents: 14_60,
+    });
+  });
+
+  it('flags technicians nearing overtime while the week runs', () => {
+    // On Thursday at 12:00: Ada has 3 × 10 h + 07:00–12:00 = 35 h; 34.5 of the week's 50 opening hours
+    // have passed, so her pace projects 35 × 50 / 34.5 = 50.7 h ≥ 36. Cleo's 4 h project to 5.8 h.
+    const thursdayNoon = at(weekdays[3]!, '12:00');
+    const report = sut.app.get(ReportsService).pay(week, thursdayNoon);
+    const ada = report.technicians.find((row) => row.technicianId === ids.a)!;
+    expect(ada).toMatchObject({ hoursWorked: 35, nearOvertime: true });
+    expect(report.technicians.find((row) => row.technicianId === ids.c)).toMatchObject({
+      hoursWorked: 4,
+      nearOvertime: false,
+    });
+    // By then 7 of Ada's lines were done (Thursday's first at 11:54): 5.4 + 4.5 + 5.0 + 4.9 + 5.6 + 4.2 + 5.2.
+    expect(ada.flaggedHours).toBeCloseTo(34.8, 6);
+  });
+
+  it('exports CSV with plain headers, one row per technician and a total row', async () => {
+    const labourCsv = await as(owner).get(`/api/reports/labour?week=${week}&format=csv`).expect(200);
+    expect(labourCsv.headers['content-type']).toBe('text/csv; charset=utf-8');
+    expect(labourCsv.headers['content-disposition']).toBe(
+      `attachment; filename="baytime-labour-${week}.csv"`,
+    );
+    const rows = labourCsv.text
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\n');
+    const report = await labour(`week=${week}`);
+    expect(rows).toHaveLength(1 + report.technicians.length + 1);
+    expect(rows[0]).toBe(
+      'Technician,Attendance hours,Clocked hours,Flagged hours,Productivity %,Efficiency %,Proficiency %',
+    );
+    // 49.1 / 46 = 106.739 %; 49.1 / 50 = 98.2 %.
+    expect(rows).toContain('Ada Vexley,50.00,46.00,49.10,92.00,106.74,98.20');
+    // 86 / 98 = 87.755 %, 96.5 / 86 = 112.209 %, 96.5 / 98 = 98.469 %.
+    expect(rows.at(-1)).toBe('Shop total,98.00,86.00,96.50,87.76,112.21,98.47');
+
+    const payCsv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
+    expect(payCsv.headers['content-disposition']).toBe(`attachment; filename="baytime-pay-${week}.csv"`);
+    const payRows = payCsv.text
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\n');
+    expect(payRows[0]).toBe(
+      'Technician,Flat rate $/h,Hourly rate $/h,Overtime exempt,Flagged hours,Hours worked,Flagged pay $,' +
+        'Non-productive pay $,Straight-time pay $,Regular rate $/h,Overtime hours,Overtime premium $,' +
+        'Minimum wage top-up $,Total $,Under minimum wage,Near overtime',
+    );
+    expect(payRows).toContain(
+      'Ada Vexley,10.00,8.00,no,49.10,50.00,491.00,32.00,523.00,10.46,10.00,52.30,0.00,575.30,no,no',
+    );
+    expect(payRows.at(-1)).toMatch(/^Total,,,,96\.50,98\.00,1432\.40,/);
+  });
+
+  it('counts the running week by default, open shift and job up to now, from punches on the kiosk', async () => {
+    const fay = await sut.badge('5006');
+    const started = Date.now();
+    const { from } = workweekBounds(workweekOf(new Date(started), shop), shop);
+    const shiftIn = new Date(Math.max(started - 3 * 3600_000, from.getTime() + 1000));
+    const jobOn = new Date(shiftIn.getTime() + (started - shiftIn.getTime()) / 2);
+    const job = line('Replace spark plugs', 1.2, ids.f, shiftIn);
+    const kiosk = (body: object) => as(fay.accessToken).post('/api/punches', { id: randomUUID(), ...body });
+    await kiosk({ kind: 'shift-in', at: shiftIn.toISOString() }).expect(201);
+    await kiosk({ kind: 'job-on', jobLineId: job, at: jobOn.toISOString() }).expect(201);
+
+    const before = Date.now();
+    const report = await labour('');
+    const after = Date.now();
+    expect(report.week).toBe(workweekOf(new Date(before), shop));
+    const row = rowOf(report, ids.f);
+    const hoursSince = (instant: Date, until: number) => (until - instant.getTime()) / 3600_000;
+    expect(row.attendanceHours).toBeGreaterThanOrEqual(hoursSince(shiftIn, before) - 1e-4);
+    expect(row.attendanceHours).toBeLessThanOrEqual(hoursSince(shiftIn, after) + 1e-4);
+    expect(row.clockedHours).toBeGreaterThanOrEqual(hoursSince(jobOn, before) - 1e-4);
+    expect(row.clockedHours).toBeLessThanOrEqual(hoursSince(jobOn, after) + 1e-4);
+    expect(row.flaggedHours).toBe(0);
+    expect(row.lines).toEqual([
+      expect.objectContaining({ jobLineId: job, flaggedHours: 0, overUnderHours: null }),
+    ]);
+  });
+
+  it("gives the demo shop's week of punches real figures for every technician", async () => {
+    const dana = db.select().from(users).where(eq(users.badge, '1041')).get()!;
+    const first = db
+      .select({ at: min(punches.at) })
+      .from(punches)
+      .where(eq(punches.technicianId, dana.id))
+      .get()!.at!;
+    const demoWeek = workweekOf(first, shop);
+    const report = await labour(`week=${demoWeek}`);
+    const demo = report.technicians.filter((row: LabourReportTechnician) =>
+      [
+        'Dana Okafor',
+        'Luis Brennan',
+        'Priya Castell',
+        'Marcus Lindqvist',
+        'Jo Whitfield',
+        'Sam Ortega',
+      ].includes(row.name),
+    );
+    expect(demo).toHaveLength(6);
+    for (const row of demo) {
+      expect(row.attendanceHours, row.name).toBeGreaterThan(0);
+      expect(row.clockedHours, row.name).toBeGreaterThan(0);
+      expect(row.flaggedHours, row.name).toBeGreaterThan(0);
+      expect(row.lines.length, row.name).toBeGreaterThan(0);
+      // The demo paces run from 0.8 to 1.3 flagged hours per clocked hour, ± 15 %.
+      expect(row.efficiency!, row.name).toBeGreaterThan(0.6);
+      expect(row.efficiency!, row.name).toBeLessThan(1.6);
+    }
+    expect(report.shop.productivity!).toBeGreaterThan(0.5);
+    expect(report.shop.productivity!).toBeLessThanOrEqual(1);
+    expect(report.bayUtilisation.some((bay) => (bay.week ?? 0) > 0)).toBe(true);
+    const wages = await pay(`week=${demoWeek}`);
+    expect(wages.totals.totalCents).toBeGreaterThan(0);
+  });
+
+  it('refuses a week that does not exist or an unknown format with 400 and the field', async () => {
+    const bad = await as(owner).get('/api/reports/labour?week=2026-W54').expect(400);
+    expect(bad.body.issues[0].path).toEqual(['week']);
+    await as(owner).get('/api/reports/pay?format=xlsx').expect(400);
+  });
+
+  // California Labor Code 510(a), CHECKS.md §2: hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
+  // 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
+  it('pays the California daily-overtime vector when the shop chooses those rules', async () => {
+    const earlier = addIsoWeeks(week, -1);
+    // Federal first (29 USC 207(a)(1)): only the weekly 40 counts: 47 × $25 + 7 × $12.50 = $1,262.50.
+    const federal = (await pay(`week=${earlier}`)).technicians.find((row) => row.technicianId === ids.e)!;
+    expect(federal).toMatchObject({ hoursWorked: 47, overtimeHours: 7, totalCents: 1262_50 });
+    await as(owner).patch('/api/shop', { overtimeRules: 'california' }).expect(200);
+    try {
+      const report = await pay(`week=${earlier}`);
+      expect(report.rules).toBe('california');
+      expect(report.technicians.find((row) => row.technicianId === ids.e)).toMatchObject({
+        hoursWorked: 47,
+        regularRateCents: 25_00,
+        overtimeHours: 7,
+        doubleTimeHours: 1,
+        totalCents: 1275_00,
+      });
+    } finally {
+      await as(owner).patch('/api/shop', { overtimeRules: 'federal' }).expect(200);
+    }
+  });
+});
