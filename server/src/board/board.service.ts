@@ -11,6 +11,8 @@ import {
   type BoardQueueItem,
   type BoardSnapshot,
   type BoardTimer,
+  type Ledger,
+  type TechnicianState,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { bays, jobLines, repairOrders, timerReadings, timers, users, vehicles } from '../db/schema/index.js';
@@ -173,10 +175,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
           id: tech.id,
           name: shortName(tech.name),
           status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
-          since: (
-            ledgers.get(tech.id)?.jobs.find((job) => job.open && job.jobLineId === line?.id)?.from ??
-            state.since
-          ).toISOString(),
+          since: personSince(ledgers.get(tech.id), state, line?.id).toISOString(),
           bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
           jobLineTitle: line?.title ?? null,
         },
@@ -254,6 +253,20 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       confidence: estimate.confidence,
     };
   }
+}
+
+/** On a job: since clocking on it. Idle: since the last job or break ended, or the shift began. */
+function personSince(
+  ledger: Ledger | undefined,
+  state: TechnicianState,
+  jobLineId: number | undefined,
+): Date {
+  const since = state.since ?? new Date(0);
+  if (state.status !== 'on-shift' || !ledger) return since;
+  const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
+  if (open) return open.from;
+  const ends = [...ledger.jobs, ...ledger.breaks].map((interval) => interval.to.getTime());
+  return new Date(Math.max(since.getTime(), ...ends));
 }
 
 /** Clocked seconds tick on the screens by themselves; only a jump is news. */

@@ -1,0 +1,262 @@
+import { Suspense, useEffect } from 'react';
+import { Navigate, NavLink, Outlet, useLocation, useMatches } from 'react-router';
+import {
+  Badge,
+  Button,
+  Caption1,
+  Link,
+  MessageBar,
+  MessageBarBody,
+  MessageBarTitle,
+  Spinner,
+  Text,
+  makeStyles,
+  mergeClasses,
+  shorthands,
+  tokens,
+} from '@fluentui/react-components';
+import { ApiError } from '@baytime/shared/client';
+import type { AuthUser } from '@baytime/shared';
+import { paths } from '@/config/paths';
+import { navFor, type OfficeRole } from '@/config/office-nav';
+import { BaytimeMark } from '@/components/baytime-mark';
+import { useMe } from '@/features/auth/api/get-me';
+import { isOfficeRole } from '@/features/auth/api/login';
+import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
+import { useSignOut } from '@/features/auth/hooks/use-sign-out';
+import type { OfficeHandle } from '../../router';
+
+const ROLE_LABELS: Record<OfficeRole, string> = {
+  owner: 'Owner',
+  foreman: 'Foreman',
+  advisor: 'Service advisor',
+};
+
+const useStyles = makeStyles({
+  frame: {
+    display: 'grid',
+    gridTemplateColumns: '15rem minmax(0, 1fr)',
+    minHeight: '100vh',
+    '@media (max-width: 900px)': { gridTemplateColumns: 'minmax(0, 1fr)' },
+  },
+  side: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalL,
+    padding: `${tokens.spacingVerticalL} ${tokens.spacingHorizontalM}`,
+    backgroundColor: tokens.colorNeutralBackground1,
+    ...shorthands.borderRight(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+    position: 'sticky',
+    top: 0,
+    height: '100vh',
+    boxSizing: 'border-box',
+    overflowY: 'auto',
+    '@media (max-width: 900px)': {
+      position: 'static',
+      height: 'auto',
+      flexDirection: 'row',
+      flexWrap: 'wrap',
+      alignItems: 'center',
+      ...shorthands.borderRight('0'),
+      ...shorthands.borderBottom(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+    },
+  },
+  brand: {
+    display: 'flex',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+    paddingLeft: tokens.spacingHorizontalS,
+    fontSize: tokens.fontSizeBase500,
+    fontWeight: tokens.fontWeightBold,
+  },
+  nav: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalM,
+    flexGrow: 1,
+    '@media (max-width: 900px)': { flexDirection: 'row', flexWrap: 'wrap' },
+  },
+  group: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalXXS,
+    '@media (max-width: 900px)': { flexDirection: 'row', flexWrap: 'wrap' },
+  },
+  groupLabel: {
+    padding: `${tokens.spacingVerticalXS} ${tokens.spacingHorizontalS}`,
+    color: tokens.colorNeutralForeground3,
+    textTransform: 'uppercase',
+    letterSpacing: '0.06em',
+    '@media (max-width: 900px)': { display: 'none' },
+  },
+  link: {
+    display: 'flex',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalS,
+    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalS}`,
+    borderRadius: tokens.borderRadiusMedium,
+    color: tokens.colorNeutralForeground2,
+    textDecorationLine: 'none',
+    fontSize: tokens.fontSizeBase400,
+    ':hover': { backgroundColor: tokens.colorNeutralBackground1Hover, color: tokens.colorNeutralForeground1 },
+    ':focus-visible': { outline: `2px solid ${tokens.colorStrokeFocus2}`, outlineOffset: '1px' },
+  },
+  active: {
+    backgroundColor: tokens.colorBrandBackground2,
+    color: tokens.colorBrandForeground2,
+    fontWeight: tokens.fontWeightSemibold,
+    ':hover': { backgroundColor: tokens.colorBrandBackground2Hover, color: tokens.colorBrandForeground2 },
+  },
+  user: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalXS,
+    paddingLeft: tokens.spacingHorizontalS,
+  },
+  main: { minWidth: 0, padding: `${tokens.spacingVerticalXL} ${tokens.spacingHorizontalXXL}` },
+  centre: { display: 'grid', placeItems: 'center', minHeight: '60vh', padding: tokens.spacingHorizontalXL },
+  notice: { maxWidth: '36rem', display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+});
+
+export function Component() {
+  const styles = useStyles();
+  const token = useOfficeToken();
+  const location = useLocation();
+  const me = useMe(token !== null);
+  const signOut = useSignOut();
+
+  if (!token) return <Navigate to={paths.signIn} replace state={{ from: location.pathname }} />;
+  if (me.isPending)
+    return (
+      <div className={styles.centre}>
+        <Spinner label="Opening the office…" />
+      </div>
+    );
+  if (me.isError) {
+    const network = me.error instanceof ApiError && me.error.isNetwork;
+    return (
+      <div className={styles.centre}>
+        <div className={styles.notice}>
+          <MessageBar intent="error">
+            <MessageBarBody>
+              <MessageBarTitle>
+                {network ? 'No connection to the shop server' : 'Could not open the office'}
+              </MessageBarTitle>
+              {network
+                ? 'Check the network; Baytime tries again when you press the button.'
+                : me.error.message}
+            </MessageBarBody>
+          </MessageBar>
+          <div>
+            <Button appearance="primary" onClick={() => void me.refetch()}>
+              Try again
+            </Button>{' '}
+            <Button onClick={signOut}>Sign out</Button>
+          </div>
+        </div>
+      </div>
+    );
+  }
+  if (!isOfficeRole(me.data.role)) return <WrongApp user={me.data} onSignOut={signOut} />;
+  return <Shell user={me.data} role={me.data.role} onSignOut={signOut} />;
+}
+
+function WrongApp({ user, onSignOut }: { user: AuthUser; onSignOut: () => void }) {
+  const styles = useStyles();
+  const kiosk = user.role === 'technician';
+  return (
+    <div className={styles.centre}>
+      <div className={styles.notice}>
+        <MessageBar intent="warning" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>{kiosk ? 'Use the kiosk' : 'This is a wall screen'}</MessageBarTitle>
+            {kiosk ? (
+              <>
+                Technicians clock on and off at the <Link href={paths.kiosk}>shop kiosk</Link> with their
+                badge and PIN.
+              </>
+            ) : (
+              <>
+                A paired screen shows the <Link href={paths.wall}>wall board</Link>; the office needs an
+                office account.
+              </>
+            )}
+          </MessageBarBody>
+        </MessageBar>
+        <div>
+          <Button onClick={onSignOut}>Sign out</Button>
+        </div>
+      </div>
+    </div>
+  );
+}
+
+function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; onSignOut: () => void }) {
+  const styles = useStyles();
+  const matches = useMatches();
+  const allowed = (matches.at(-1)?.handle as OfficeHandle | undefined)?.roles;
+  const permitted = !allowed || allowed.includes(role);
+  const groups = navFor(role);
+
+  useEffect(() => {
+    document.title = 'Baytime office';
+  }, []);
+
+  return (
+    <div className={styles.frame}>
+      <aside className={styles.side}>
+        <div className={styles.brand}>
+          <BaytimeMark size={28} />
+          Baytime
+        </div>
+        <nav className={styles.nav} aria-label="Office">
+          {groups.map((group, index) => (
+            <div key={group.label ?? index} className={styles.group}>
+              {group.label && <Caption1 className={styles.groupLabel}>{group.label}</Caption1>}
+              {group.entries.map((entry) => (
+                <NavLink
+                  key={entry.path}
+                  to={entry.path}
+                  className={({ isActive }) => mergeClasses(styles.link, isActive && styles.active)}
+                >
+                  {entry.label}
+                  {entry.coming && (
+                    <Badge appearance="outline" color="informative" size="small">
+                      coming
+                    </Badge>
+                  )}
+                </NavLink>
+              ))}
+            </div>
+          ))}
+        </nav>
+        <div className={styles.user}>
+          <Text weight="semibold">{user.name}</Text>
+          <Caption1>{ROLE_LABELS[role]}</Caption1>
+          <div>
+            <Button size="small" onClick={onSignOut}>
+              Sign out
+            </Button>
+          </div>
+        </div>
+      </aside>
+      <main className={styles.main}>
+        {permitted ? (
+          <Suspense fallback={<Spinner />}>
+            <Outlet context={{ user, role }} />
+          </Suspense>
+        ) : (
+          <MessageBar intent="info">
+            <MessageBarBody>
+              <MessageBarTitle>Not part of your role</MessageBarTitle>
+              This page is for the{' '}
+              {allowed?.map((r) => ROLE_LABELS[r as OfficeRole]?.toLowerCase() ?? r).join(' or ')}. Your menu
+              shows what you can open.
+            </MessageBarBody>
+          </MessageBar>
+        )}
+      </main>
+    </div>
+  );
+}

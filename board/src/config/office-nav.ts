@@ -1,0 +1,56 @@
+import type { Role } from '@baytime/shared';
+import { paths } from './paths';
+
+export type OfficeRole = Extract<Role, 'owner' | 'foreman' | 'advisor'>;
+
+export interface NavEntry {
+  label: string;
+  path: string;
+  roles: readonly OfficeRole[];
+  /** Planned page: shown in the navigation as coming. */
+  coming?: boolean;
+}
+
+export interface NavGroup {
+  label?: string;
+  entries: readonly NavEntry[];
+}
+
+const ALL: readonly OfficeRole[] = ['owner', 'foreman', 'advisor'];
+const LEADS: readonly OfficeRole[] = ['owner', 'foreman'];
+const OWNER: readonly OfficeRole[] = ['owner'];
+
+/** The office navigation; the same roles guard the routes. */
+export const OFFICE_NAV: readonly NavGroup[] = [
+  {
+    entries: [
+      { label: 'Floor', path: paths.floor, roles: ALL },
+      { label: 'Dispatch', path: paths.dispatch, roles: LEADS, coming: true },
+      { label: 'Repair orders', path: paths.repairOrders, roles: ALL },
+      { label: 'Timecards', path: paths.timecards, roles: LEADS, coming: true },
+      { label: 'Reports', path: paths.reports, roles: LEADS, coming: true },
+    ],
+  },
+  {
+    label: 'Admin',
+    entries: [
+      { label: 'Users', path: paths.admin.users, roles: OWNER },
+      { label: 'Bays', path: paths.admin.bays, roles: OWNER },
+      { label: 'Wall screens', path: paths.admin.screens, roles: LEADS },
+      { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
+    ],
+  },
+];
+
+export function rolesFor(path: string): readonly OfficeRole[] | undefined {
+  for (const group of OFFICE_NAV)
+    for (const entry of group.entries) if (entry.path === path) return entry.roles;
+  return undefined;
+}
+
+export function navFor(role: OfficeRole): NavGroup[] {
+  return OFFICE_NAV.map((group) => ({
+    ...group,
+    entries: group.entries.filter((entry) => entry.roles.includes(role)),
+  })).filter((group) => group.entries.length > 0);
+}

@@ -1,0 +1,13 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { AuthUser } from '@baytime/shared';
+import { officeApi } from '@/lib/api-client';
+
+export function getMe(): Promise<AuthUser> {
+  return officeApi.get<AuthUser>('/me');
+}
+
+export const meQueryOptions = () => queryOptions({ queryKey: ['me'], queryFn: getMe, staleTime: 5 * 60_000 });
+
+export function useMe(enabled: boolean) {
+  return useQuery({ ...meQueryOptions(), enabled });
+}

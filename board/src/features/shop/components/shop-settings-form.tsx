@@ -1,0 +1,371 @@
+import { useMemo, useState, type FormEvent } from 'react';
+import {
+  Button,
+  Card,
+  Field,
+  Input,
+  MessageBar,
+  MessageBarBody,
+  MessageBarTitle,
+  Select,
+  Spinner,
+  Subtitle2,
+  Switch,
+  makeStyles,
+  tokens,
+} from '@fluentui/react-components';
+import { shopSettingsSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
+import { ApiError } from '@baytime/shared/client';
+import {
+  centsToDollars,
+  dollarsToCents,
+  formErrorText,
+  issuesToFieldErrors,
+  type FieldErrors,
+} from '@/lib/form-errors';
+import { useShop } from '../api/get-shop';
+import { useUpdateShop } from '../api/update-shop';
+
+const DAYS = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'];
+
+const useStyles = makeStyles({
+  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL, maxWidth: '60rem' },
+  card: { padding: tokens.spacingHorizontalXL, gap: tokens.spacingVerticalM },
+  grid: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fill, minmax(15rem, 1fr))',
+    gap: `${tokens.spacingVerticalM} ${tokens.spacingHorizontalL}`,
+    alignItems: 'start',
+  },
+  hours: {
+    display: 'grid',
+    gridTemplateColumns: '8rem 9rem minmax(7rem, 10rem) minmax(7rem, 10rem)',
+    gap: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalM}`,
+    alignItems: 'center',
+    '@media (max-width: 700px)': { gridTemplateColumns: '1fr 1fr' },
+  },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
+});
+
+function timeZones(current: string): string[] {
+  const intl = Intl as typeof Intl & { supportedValuesOf?: (key: 'timeZone') => string[] };
+  const zones = intl.supportedValuesOf?.('timeZone') ?? [];
+  return zones.includes(current) ? zones : [current, ...zones];
+}
+
+interface Draft extends Omit<ShopSettings, 'minimumWageCents'> {
+  minimumWage: string;
+}
+
+function toDraft(shop: ShopSettings): Draft {
+  const { minimumWageCents, ...rest } = shop;
+  return { ...rest, minimumWage: centsToDollars(minimumWageCents) };
+}
+
+/** Only the fields that changed go to the server. */
+function changes(before: ShopSettings, after: ShopSettings): UpdateShopBody {
+  const patch: Record<string, unknown> = {};
+  for (const key of Object.keys(after) as (keyof ShopSettings)[])
+    if (JSON.stringify(before[key]) !== JSON.stringify(after[key])) patch[key] = after[key];
+  return patch as UpdateShopBody;
+}
+
+function ShopForm({
+  shop,
+  justSaved,
+  onSaved,
+}: {
+  shop: ShopSettings;
+  justSaved: boolean;
+  onSaved: (saved: ShopSettings) => void;
+}) {
+  const styles = useStyles();
+  const update = useUpdateShop();
+  const [draft, setDraft] = useState<Draft>(() => toDraft(shop));
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [saved, setSaved] = useState(justSaved);
+  const zones = useMemo(() => timeZones(shop.timeZone), [shop.timeZone]);
+
+  const set = <K extends keyof Draft>(key: K, value: Draft[K]) => {
+    setDraft((current) => ({ ...current, [key]: value }));
+    setSaved(false);
+  };
+
+  const setDay = (day: number, value: ShopSettings['openingHours'][number]) => {
+    setDraft((current) => ({
+      ...current,
+      openingHours: current.openingHours.map((d, i) => (i === day ? value : d)),
+    }));
+    setSaved(false);
+  };
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    setSaved(false);
+    const { minimumWage, ...rest } = draft;
+    const cents = dollarsToCents(minimumWage);
+    const parsed = shopSettingsSchema.safeParse({ ...rest, minimumWageCents: cents ?? Number.NaN });
+    if (!parsed.success) {
+      const found = issuesToFieldErrors(parsed.error.issues);
+      if (found.minimumWageCents)
+        found.minimumWage = cents === null ? 'Type an amount in dollars, like 7.25' : found.minimumWageCents;
+      setErrors(found);
+      return;
+    }
+    setErrors({});
+    const patch = changes(shop, parsed.data);
+    if (Object.keys(patch).length === 0) return setSaved(true);
+    update.mutate(patch, {
+      onSuccess: (updated) => {
+        setSaved(true);
+        onSaved(updated);
+      },
+      onError: (error) => {
+        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) setErrors(error.fieldErrors);
+      },
+    });
+  };
+
+  const number =
+    (key: 'workweekStartDay' | 'workweekStartHour' | 'maxConcurrentJobs' | 'kioskIdleSeconds') =>
+    (_: unknown, data: { value: string }) =>
+      set(key, Number(data.value));
+
+  return (
+    <form className={styles.form} onSubmit={submit} noValidate>
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Shop</Subtitle2>
+        <div className={styles.grid}>
+          <Field label="Shop name" required validationMessage={errors.name}>
+            <Input value={draft.name} maxLength={80} onChange={(_, data) => set('name', data.value)} />
+          </Field>
+          <Field label="Time zone" required validationMessage={errors.timeZone}>
+            {zones.length > 1 ? (
+              <Select value={draft.timeZone} onChange={(_, data) => set('timeZone', data.value)}>
+                {zones.map((zone) => (
+                  <option key={zone}>{zone}</option>
+                ))}
+              </Select>
+            ) : (
+              <Input value={draft.timeZone} onChange={(_, data) => set('timeZone', data.value)} />
+            )}
+          </Field>
+          <Field label="Units" validationMessage={errors.units}>
+            <Select value={draft.units} onChange={(_, data) => set('units', data.value as Draft['units'])}>
+              <option value="us">US (°F, qt, lbf·ft)</option>
+              <option value="metric">Metric (°C, L, N·m)</option>
+            </Select>
+          </Field>
+          <Field
+            label="Kiosk signs out after (seconds)"
+            validationMessage={errors.kioskIdleSeconds}
+            hint="15 to 600 seconds without a tap"
+          >
+            <Input
+              type="number"
+              min={15}
+              max={600}
+              value={String(draft.kioskIdleSeconds)}
+              onChange={number('kioskIdleSeconds')}
+            />
+          </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Opening hours</Subtitle2>
+        <div className={styles.hours} role="group" aria-label="Opening hours">
+          {draft.openingHours.map((day, index) => (
+            <OpeningDay
+              key={DAYS[index]}
+              day={DAYS[index] ?? ''}
+              value={day}
+              error={errors[`openingHours.${index}.open`] ?? errors[`openingHours.${index}.close`]}
+              onChange={(value) => setDay(index, value)}
+            />
+          ))}
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Time and pay</Subtitle2>
+        <div className={styles.grid}>
+          <Field label="Workweek starts on" validationMessage={errors.workweekStartDay}>
+            <Select value={String(draft.workweekStartDay)} onChange={number('workweekStartDay')}>
+              {DAYS.map((day, index) => (
+                <option key={day} value={index}>
+                  {day}
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <Field label="at" validationMessage={errors.workweekStartHour}>
+            <Select value={String(draft.workweekStartHour)} onChange={number('workweekStartHour')}>
+              {Array.from({ length: 24 }, (_, hour) => (
+                <option key={hour} value={hour}>
+                  {String(hour).padStart(2, '0')}:00
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <Field
+            label="Jobs a technician may be clocked on at once"
+            validationMessage={errors.maxConcurrentJobs}
+          >
+            <Select value={String(draft.maxConcurrentJobs)} onChange={number('maxConcurrentJobs')}>
+              {[1, 2, 3, 4].map((n) => (
+                <option key={n} value={n}>
+                  {n}
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <Field label="Time on several jobs at once" validationMessage={errors.concurrentSplit}>
+            <Select
+              value={draft.concurrentSplit}
+              onChange={(_, data) => set('concurrentSplit', data.value as Draft['concurrentSplit'])}
+            >
+              <option value="even">Split evenly between them</option>
+              <option value="full">Full time to each</option>
+            </Select>
+          </Field>
+          <Field label="Minimum wage ($ per hour)" required validationMessage={errors.minimumWage}>
+            <Input
+              inputMode="decimal"
+              value={draft.minimumWage}
+              onChange={(_, data) => set('minimumWage', data.value)}
+            />
+          </Field>
+          <Field label="Overtime rules" validationMessage={errors.overtimeRules}>
+            <Select
+              value={draft.overtimeRules}
+              onChange={(_, data) => set('overtimeRules', data.value as Draft['overtimeRules'])}
+            >
+              <option value="federal">US federal (over 40 hours a week)</option>
+              <option value="california">California (daily and weekly)</option>
+            </Select>
+          </Field>
+          <Field label="Non-productive time" validationMessage={errors.payNonProductiveSeparately}>
+            <Switch
+              checked={draft.payNonProductiveSeparately}
+              onChange={(_, data) => set('payNonProductiveSeparately', data.checked)}
+              label={
+                draft.payNonProductiveSeparately
+                  ? 'Paid separately at the hourly rate'
+                  : 'Covered by flat-rate pay'
+              }
+            />
+          </Field>
+        </div>
+        <MessageBar intent="warning" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>Pay figures are estimates</MessageBarTitle>
+            Confirm overtime, minimum wage and rest-break rules against the wage law that applies to your
+            shop, your payroll provider and licensed advice.
+          </MessageBarBody>
+        </MessageBar>
+      </Card>
+
+      {update.isError &&
+        !(update.error instanceof ApiError && Object.keys(update.error.fieldErrors).length) && (
+          <MessageBar intent="error">
+            <MessageBarBody>{formErrorText(update.error)}</MessageBarBody>
+          </MessageBar>
+        )}
+      {Object.values(errors).some(Boolean) && (
+        <MessageBar intent="error">
+          <MessageBarBody>Some settings need a fix: see the fields marked in red.</MessageBarBody>
+        </MessageBar>
+      )}
+      {saved && (
+        <MessageBar intent="success">
+          <MessageBarBody>Settings saved.</MessageBarBody>
+        </MessageBar>
+      )}
+      <div className={styles.actions}>
+        <Button appearance="primary" type="submit" disabled={update.isPending}>
+          {update.isPending ? 'Saving…' : 'Save settings'}
+        </Button>
+        <Button
+          disabled={update.isPending}
+          onClick={() => {
+            setDraft(toDraft(shop));
+            setErrors({});
+            setSaved(false);
+          }}
+        >
+          Undo changes
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function OpeningDay({
+  day,
+  value,
+  error,
+  onChange,
+}: {
+  day: string;
+  value: ShopSettings['openingHours'][number];
+  error: string | undefined;
+  onChange: (value: ShopSettings['openingHours'][number]) => void;
+}) {
+  return (
+    <>
+      <span>{day}</span>
+      <Switch
+        checked={value !== null}
+        label={value ? 'Open' : 'Closed'}
+        aria-label={`${day} open`}
+        onChange={(_, data) => onChange(data.checked ? { open: '08:00', close: '17:00' } : null)}
+      />
+      {value ? (
+        <>
+          <Field validationMessage={error} aria-label={`${day} opens`}>
+            <Input
+              type="time"
+              value={value.open}
+              onChange={(_, data) => onChange({ ...value, open: data.value })}
+            />
+          </Field>
+          <Field aria-label={`${day} closes`}>
+            <Input
+              type="time"
+              value={value.close}
+              onChange={(_, data) => onChange({ ...value, close: data.value })}
+            />
+          </Field>
+        </>
+      ) : (
+        <>
+          <span />
+          <span />
+        </>
+      )}
+    </>
+  );
+}
+
+export function ShopSettingsForm() {
+  const shop = useShop();
+  const [savedAt, setSavedAt] = useState<string | null>(null);
+  if (shop.isPending) return <Spinner label="Loading settings…" />;
+  if (shop.isError)
+    return (
+      <MessageBar intent="error">
+        <MessageBarBody>{formErrorText(shop.error)}</MessageBarBody>
+      </MessageBar>
+    );
+  // A fresh form whenever the saved settings change, so the draft starts from the truth.
+  const version = JSON.stringify(shop.data);
+  return (
+    <ShopForm
+      key={version}
+      shop={shop.data}
+      justSaved={savedAt === version}
+      onSaved={(saved) => setSavedAt(JSON.stringify(saved))}
+    />
+  );
+}

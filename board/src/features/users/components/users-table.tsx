@@ -1,0 +1,154 @@
+import { useEffect, useState } from 'react';
+import {
+  Badge,
+  Button,
+  Caption1,
+  MessageBar,
+  MessageBarBody,
+  Spinner,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  makeStyles,
+  tokens,
+} from '@fluentui/react-components';
+import type { Role, UserDto } from '@baytime/shared';
+import { formErrorText, formatMoney } from '@/lib/form-errors';
+import { useUsers } from '../api/get-users';
+import { useUpdateUser } from '../api/update-user';
+
+export const ROLE_LABELS: Record<Exclude<Role, 'display'>, string> = {
+  owner: 'Owner',
+  foreman: 'Foreman',
+  advisor: 'Service advisor',
+  technician: 'Technician',
+};
+
+const useStyles = makeStyles({
+  table: { tableLayout: 'auto' },
+  scroll: { overflowX: 'auto' },
+  inactive: { color: tokens.colorNeutralForeground4 },
+  error: { marginBottom: tokens.spacingVerticalM },
+  numeric: { fontVariantNumeric: 'tabular-nums' },
+});
+
+function ActiveButton({ user, onError }: { user: UserDto; onError: (message: string | null) => void }) {
+  const update = useUpdateUser();
+  const [confirming, setConfirming] = useState(false);
+
+  useEffect(() => {
+    if (!confirming) return;
+    const timer = setTimeout(() => setConfirming(false), 5000);
+    return () => clearTimeout(timer);
+  }, [confirming]);
+
+  const save = (active: boolean) => {
+    onError(null);
+    update.mutate(
+      { id: user.id, active },
+      {
+        onError: (error) => onError(`${user.name}: ${formErrorText(error)}`),
+        onSettled: () => setConfirming(false),
+      },
+    );
+  };
+
+  if (!user.active)
+    return (
+      <Button size="small" disabled={update.isPending} onClick={() => save(true)}>
+        Reactivate
+      </Button>
+    );
+  return confirming ? (
+    <Button size="small" appearance="primary" disabled={update.isPending} onClick={() => save(false)}>
+      Confirm: deactivate {user.name.split(' ')[0]}
+    </Button>
+  ) : (
+    <Button size="small" onClick={() => setConfirming(true)}>
+      Deactivate
+    </Button>
+  );
+}
+
+/** `currentUserId`: the signed-in owner, who cannot deactivate themself here. */
+export function UsersTable({ currentUserId }: { currentUserId?: number }) {
+  const styles = useStyles();
+  const users = useUsers();
+  const [error, setError] = useState<string | null>(null);
+
+  if (users.isPending) return <Spinner label="Loading people…" />;
+  if (users.isError)
+    return (
+      <MessageBar intent="error">
+        <MessageBarBody>{formErrorText(users.error)}</MessageBarBody>
+      </MessageBar>
+    );
+
+  const sorted = [...users.data]
+    .filter((user): user is UserDto & { role: Exclude<Role, 'display'> } => user.role !== 'display')
+    .sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name));
+
+  return (
+    <>
+      {error && (
+        <MessageBar intent="error" className={styles.error}>
+          <MessageBarBody>{error}</MessageBarBody>
+        </MessageBar>
+      )}
+      <div className={styles.scroll}>
+        <Table aria-label="People" className={styles.table}>
+          <TableHeader>
+            <TableRow>
+              <TableHeaderCell>Name</TableHeaderCell>
+              <TableHeaderCell>Role</TableHeaderCell>
+              <TableHeaderCell>Signs in with</TableHeaderCell>
+              <TableHeaderCell>Skill</TableHeaderCell>
+              <TableHeaderCell>Flat rate</TableHeaderCell>
+              <TableHeaderCell>Hourly</TableHeaderCell>
+              <TableHeaderCell>Overtime</TableHeaderCell>
+              <TableHeaderCell>Status</TableHeaderCell>
+              <TableHeaderCell>
+                <span className="visually-hidden">Actions</span>
+              </TableHeaderCell>
+            </TableRow>
+          </TableHeader>
+          <TableBody>
+            {sorted.map((user) => {
+              const tech = user.role === 'technician';
+              return (
+                <TableRow key={user.id} className={user.active ? undefined : styles.inactive}>
+                  <TableCell>{user.name}</TableCell>
+                  <TableCell>{ROLE_LABELS[user.role]}</TableCell>
+                  <TableCell>{tech ? `Badge ${user.badge ?? '—'}` : (user.email ?? '—')}</TableCell>
+                  <TableCell>{tech ? user.skillLevel : '—'}</TableCell>
+                  <TableCell className={styles.numeric}>
+                    {tech ? formatMoney(user.flatRateCents) : '—'}
+                  </TableCell>
+                  <TableCell className={styles.numeric}>
+                    {tech ? formatMoney(user.hourlyRateCents) : '—'}
+                  </TableCell>
+                  <TableCell>{tech ? (user.overtimeExempt ? 'Exempt' : 'Paid') : '—'}</TableCell>
+                  <TableCell>
+                    <Badge appearance="tint" color={user.active ? 'success' : 'subtle'}>
+                      {user.active ? 'Active' : 'Inactive'}
+                    </Badge>
+                  </TableCell>
+                  <TableCell>
+                    {user.id === currentUserId ? (
+                      <Caption1>You</Caption1>
+                    ) : (
+                      <ActiveButton user={user} onError={setError} />
+                    )}
+                  </TableCell>
+                </TableRow>
+              );
+            })}
+          </TableBody>
+        </Table>
+      </div>
+    </>
+  );
+}

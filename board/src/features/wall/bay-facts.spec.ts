@@ -1,0 +1,182 @@
+import { describe, expect, it } from 'vitest';
+import type { BoardBay } from '@baytime/shared';
+import {
+  bandNote,
+  bayFacts,
+  clockedBar,
+  countdownFact,
+  pickLines,
+  techsText,
+  wallVehicle,
+  type BayFact,
+} from './bay-facts';
+
+const now = Date.parse('2026-03-02T15:00:00Z');
+const bay = (patch: Partial<BoardBay>): BoardBay => ({
+  id: 1,
+  name: 'Bay 1',
+  state: 'working',
+  holdReason: null,
+  heldSince: null,
+  vehicle: '2019 Norden Kestrel',
+  repairOrder: { id: 1, number: '4821' },
+  jobLine: { id: 2, lineNo: 1, title: 'Brake pads', status: 'working' },
+  technicians: [{ id: 3, name: 'Dana O.' }],
+  clockedSeconds: 0,
+  bookSeconds: 5400,
+  clockRunning: true,
+  timer: null,
+  ...patch,
+});
+
+describe(clockedBar.name, () => {
+  it('fills up to book and marks time past it as its own segment', () => {
+    expect(clockedBar(2700, 5400)).toEqual({ withinBook: 0.5, overBook: 0, bookMark: 1, overSeconds: 0 });
+    const over = clockedBar(6000, 4800);
+    expect(over?.withinBook).toBeCloseTo(0.8);
+    expect(over?.overBook).toBeCloseTo(0.2);
+    expect(over?.bookMark).toBeCloseTo(0.8);
+    expect(over?.overSeconds).toBe(1200);
+    expect(clockedBar(100, 0)).toBeNull();
+  });
+});
+
+describe(bayFacts.name, () => {
+  it('tells a working bay by tech, vehicle, RO, job and clocked vs book', () => {
+    const facts = bayFacts({ bay: bay({}), clockedSeconds: 3120, nowMs: now });
+    expect(facts.map((fact) => fact.text)).toEqual([
+      'Dana O.',
+      'Norden Kestrel',
+      'RO 4821',
+      'Brake pads',
+      '0:52 / 1:30',
+    ]);
+    expect(facts.find((fact) => fact.key === 'clocked')?.keep).toBe(true);
+  });
+
+  it('marks clocked time over book', () => {
+    const fact = bayFacts({ bay: bay({}), clockedSeconds: 6000, nowMs: now }).find(
+      (f) => f.key === 'clocked',
+    );
+    expect(fact).toMatchObject({ text: '1:40', tone: 'over' });
+  });
+
+  it('gives a held bay its reason and how long it has been held', () => {
+    const facts = bayFacts({
+      bay: bay({ state: 'held', holdReason: 'parts', heldSince: '2026-03-02T14:18:00Z', technicians: [] }),
+      clockedSeconds: 0,
+      nowMs: now,
+    });
+    expect(facts[0]).toMatchObject({ key: 'reason', text: 'Parts', keep: true });
+    expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T14:18:00Z' }), now)).toBe('42m');
+    expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T13:55:00Z' }), now)).toBe('1h05');
+    expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T02:00:00Z' }), now)).toBe('13h');
+    expect(bandNote(bay({ state: 'held', heldSince: '2026-02-27T15:00:00Z' }), now)).toBe('3d');
+    expect(bandNote(bay({ state: 'working' }), now)).toBeNull();
+  });
+
+  it('counts a timer down and warns of a running engine during a warm-up', () => {
+    const facts = bayFacts({
+      bay: bay({
+        state: 'timer',
+        timer: {
+          id: 9,
+          kind: 'warm-up',
+          startedAt: '2026-03-02T14:55:00Z',
+          targetC: 45,
+          lastReadingC: 38.4,
+          endsAt: null,
+          etaAt: '2026-03-02T15:04:05Z',
+          reached: false,
+          note: null,
+          status: 'estimating',
+          confidence: 'medium',
+        },
+      }),
+      clockedSeconds: 0,
+      nowMs: now,
+    });
+    expect(facts[0]).toMatchObject({ key: 'countdown', text: '4:05', suffix: 'left', tone: 'big' });
+    expect(facts.map((fact) => fact.text)).toContain('38° → 45°C');
+    expect(facts.find((fact) => fact.key === 'engine')?.tone).toBe('caution');
+  });
+
+  it('says why a temperature timer has no time left to show', () => {
+    const timer = {
+      id: 9,
+      kind: 'warm-up' as const,
+      startedAt: '2026-03-02T14:55:00Z',
+      targetC: 45,
+      lastReadingC: 30,
+      endsAt: null,
+      etaAt: null,
+      reached: false,
+      note: null,
+      confidence: 'low' as const,
+    };
+    expect(countdownFact({ ...timer, status: 'not-enough-readings' }, now).text).toBe('Estimating');
+    expect(countdownFact({ ...timer, status: 'moving-away' }, now)).toMatchObject({
+      text: 'Not warming',
+      tone: 'caution',
+    });
+    expect(countdownFact({ ...timer, status: 'reached', reached: true }, now).text).toBe('Reached');
+    expect(countdownFact({ ...timer, status: 'estimating', etaAt: '2026-03-02T15:02:00Z' }, now).text).toBe(
+      '≈2:00',
+    );
+    expect(
+      countdownFact({ ...timer, kind: 'hold', status: 'running', endsAt: '2026-03-02T17:05:00Z' }, now).text,
+    ).toBe('2h 05m');
+  });
+
+  it('tells a free bay nothing more', () => {
+    expect(bayFacts({ bay: bay({ state: 'free' }), clockedSeconds: 0, nowMs: now })).toEqual([]);
+  });
+});
+
+describe(pickLines.name, () => {
+  const fact = (text: string, keep = false): BayFact => ({ key: 'job', text, keep });
+  const facts = [fact('a'), fact('b'), fact('c'), fact('k', true)];
+
+  it('shows every fact when there is room', () => {
+    expect(pickLines(facts, 4, 0).map((line) => line.fact.text)).toEqual(['a', 'b', 'c', 'k']);
+  });
+
+  it('keeps the kept fact and lets one line take the others in turn', () => {
+    const texts = (turn: number) => pickLines(facts, 2, turn).map((line) => line.fact.text);
+    expect(texts(0)).toEqual(['a', 'k']);
+    expect(texts(1)).toEqual(['b', 'k']);
+    expect(texts(2)).toEqual(['c', 'k']);
+    expect(texts(3)).toEqual(['a', 'k']);
+    expect(pickLines(facts, 2, 1)[0]?.rotating).toBe(true);
+  });
+
+  it('gives a single line to the kept fact', () => {
+    expect(pickLines(facts, 1, 5).map((line) => line.fact.text)).toEqual(['k']);
+    expect(pickLines(facts, 0, 0)).toEqual([]);
+  });
+});
+
+describe('short texts', () => {
+  it('names one tech and counts the rest', () => {
+    expect(techsText(bay({ technicians: [] }))).toBeNull();
+    expect(
+      techsText(
+        bay({
+          technicians: [
+            { id: 1, name: 'Dana O.' },
+            { id: 2, name: 'Jo K.' },
+          ],
+        }),
+      ),
+    ).toBe('Dana O. +1');
+  });
+
+  it('drops a leading model year, and the make when the line is short', () => {
+    expect(wallVehicle('2019 Norden Kestrel')).toBe('Norden Kestrel');
+    expect(wallVehicle('2019 Norden Kestrel', 11)).toBe('Kestrel');
+    expect(wallVehicle('2019 Norden Kestrel', 14)).toBe('Norden Kestrel');
+    expect(wallVehicle('Norden 2019')).toBe('Norden 2019');
+    expect(wallVehicle('Kestrelmobile', 5)).toBe('Kestrelmobile');
+    expect(wallVehicle(null)).toBeNull();
+  });
+});

@@ -1,0 +1,232 @@
+import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardTimer } from '@baytime/shared';
+import { secondsSince, secondsUntil } from './server-clock';
+import { formatCountdown, formatHoursMinutes, formatSpan } from './board-time';
+
+/** One short line a tile can show under the bay's name and state. */
+export interface BayFact {
+  key:
+    | 'techs'
+    | 'clocked'
+    | 'countdown'
+    | 'timer-kind'
+    | 'timer-note'
+    | 'temps'
+    | 'engine'
+    | 'reason'
+    | 'vehicle'
+    | 'ro'
+    | 'job';
+  text: string;
+  /** Kept on screen when lines are short; the others share one line in turn. */
+  keep: boolean;
+  tone?: 'over' | 'big' | 'caution';
+  /** A quiet word after the text ("left"). */
+  suffix?: string;
+}
+
+export interface ClockedBar {
+  /** Share of the bar filled by clocked time up to the book time, 0–1. */
+  withinBook: number;
+  /** Share of the bar past the book time, 0–1 (zero while under book). */
+  overBook: number;
+  /** Where the book time sits on the bar, 0–1. */
+  bookMark: number;
+  overSeconds: number;
+}
+
+/** The bar scales to the larger of book and clocked time, so time over book shows as its own segment. */
+export function clockedBar(clockedSeconds: number, bookSeconds: number): ClockedBar | null {
+  if (bookSeconds <= 0) return null;
+  const scale = Math.max(bookSeconds, clockedSeconds);
+  const within = Math.min(clockedSeconds, bookSeconds) / scale;
+  const overSeconds = Math.max(0, clockedSeconds - bookSeconds);
+  return { withinBook: within, overBook: overSeconds / scale, bookMark: bookSeconds / scale, overSeconds };
+}
+
+/** "Dana O.", or "Dana O. +1" when more are clocked on: tiles have room for one name. */
+export function techsText(bay: BoardBay): string | null {
+  const [first, ...rest] = bay.technicians;
+  if (!first) return null;
+  return rest.length ? `${first.name} +${rest.length}` : first.name;
+}
+
+/**
+ * A wall tile drops the model year, and the make too when make and model do not fit on the line: the
+ * model is what tells two cars apart on the floor.
+ */
+export function wallVehicle(vehicle: string | null, maxChars = Infinity): string | null {
+  if (!vehicle) return null;
+  const short = vehicle.replace(/^\s*(19|20)\d{2}\s+/, '').trim() || vehicle.trim();
+  if (short.length <= maxChars) return short;
+  const [, ...model] = short.split(/\s+/);
+  return model.length ? model.join(' ') : short;
+}
+
+const STALLED_TEXT: Partial<Record<BoardTimer['status'], string>> = {
+  'not-enough-readings': 'Estimating',
+  estimating: 'Estimating',
+  'beyond-asymptote': 'Stalled',
+};
+
+/** The timer's headline: time left when known, otherwise a word for why it is not. */
+export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
+  if (timer.reached || timer.status === 'reached') return { key: 'countdown', text: 'Reached', keep: true };
+  if (timer.status === 'done') return { key: 'countdown', text: 'Done', keep: true };
+  if (timer.status === 'moving-away')
+    return {
+      key: 'countdown',
+      text: timer.kind === 'cool-down' ? 'Not cooling' : 'Not warming',
+      keep: true,
+      tone: 'caution',
+    };
+  const left = secondsUntil(timer.endsAt ?? timer.etaAt, nowMs);
+  if (left === null)
+    return { key: 'countdown', text: STALLED_TEXT[timer.status] ?? 'Estimating', keep: true };
+  if (left === 0) return { key: 'countdown', text: 'Due now', keep: true, tone: 'big' };
+  // A temperature estimate on thin evidence is shown as approximate.
+  const approx = timer.kind !== 'hold' && timer.confidence === 'low' ? '≈' : '';
+  return {
+    key: 'countdown',
+    text: `${approx}${left >= 3600 ? formatSpan(left) : formatCountdown(left)}`,
+    keep: true,
+    tone: 'big',
+    suffix: 'left',
+  };
+}
+
+export interface FactInput {
+  bay: BoardBay;
+  clockedSeconds: number;
+  nowMs: number;
+  /** Characters a body line holds on this tile. */
+  lineChars?: number;
+}
+
+/** The facts a tile tells about its bay, in reading order; which ones show depends on the room. */
+export function bayFacts({ bay, clockedSeconds, nowMs, lineChars }: FactInput): BayFact[] {
+  const facts: BayFact[] = [];
+  const add = (fact: BayFact | null) => {
+    if (fact && fact.text) facts.push(fact);
+  };
+  const techs = techsText(bay);
+  const vehicle = wallVehicle(bay.vehicle, lineChars);
+  const vehicleFact = vehicle ? ({ key: 'vehicle', text: vehicle, keep: false } as const) : null;
+  const roFact = bay.repairOrder
+    ? ({ key: 'ro', text: `RO ${bay.repairOrder.number}`, keep: false } as const)
+    : null;
+  const jobFact = bay.jobLine ? ({ key: 'job', text: bay.jobLine.title, keep: false } as const) : null;
+  const over = bay.bookSeconds > 0 && clockedSeconds > bay.bookSeconds;
+  // Over book the line gives the clocked total and a tag with the excess; the bar marks where book ends.
+  const clocked: BayFact | null =
+    bay.bookSeconds > 0 || clockedSeconds > 0
+      ? over
+        ? { key: 'clocked', text: formatHoursMinutes(clockedSeconds), keep: true, tone: 'over' }
+        : {
+            key: 'clocked',
+            text: `${formatHoursMinutes(clockedSeconds)} / ${formatHoursMinutes(bay.bookSeconds)}`,
+            keep: true,
+          }
+      : null;
+
+  switch (bay.state) {
+    case 'free':
+      break;
+    case 'staged':
+      add(vehicleFact && { ...vehicleFact, keep: true });
+      add(roFact);
+      add(jobFact);
+      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      break;
+    case 'working':
+      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      add(vehicleFact);
+      add(roFact);
+      add(jobFact);
+      add(clocked);
+      break;
+    case 'timer': {
+      const timer = bay.timer;
+      if (timer) {
+        add(countdownFact(timer, nowMs));
+        add({ key: 'timer-kind', text: TIMER_KIND_LABELS[timer.kind], keep: false });
+        add(timer.note ? { key: 'timer-note', text: timer.note, keep: false } : null);
+        if (timer.targetC !== null) {
+          const target = `${Math.round(timer.targetC)}°C`;
+          const text =
+            timer.lastReadingC === null ? `to ${target}` : `${Math.round(timer.lastReadingC)}° → ${target}`;
+          add({ key: 'temps', text, keep: false });
+        }
+        // A warm-up means an engine running in the bay: say so to everyone walking past.
+        if (timer.kind === 'warm-up' && !timer.reached)
+          add({ key: 'engine', text: 'Engine on', keep: false, tone: 'caution' });
+      }
+      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      add(vehicleFact);
+      add(roFact);
+      break;
+    }
+    case 'held':
+      // How long it has been held rides in the state band (see bandNote), so the reason keeps a line.
+      add({
+        key: 'reason',
+        text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold',
+        keep: true,
+      });
+      add(vehicleFact);
+      add(roFact);
+      add(jobFact);
+      break;
+    case 'check':
+      add(techs ? { key: 'techs', text: techs, keep: true } : null);
+      add(vehicleFact);
+      add(roFact);
+      add(jobFact);
+      break;
+    case 'ready':
+      add(vehicleFact && { ...vehicleFact, keep: true });
+      add(roFact);
+      add(jobFact);
+      break;
+  }
+  return facts;
+}
+
+/** A short figure shown at the end of the state band: how long a held bay has been held. */
+export function bandNote(bay: BoardBay, nowMs: number): string | null {
+  if (bay.state !== 'held' || !bay.heldSince) return null;
+  // The band has room for about four characters after the word: "42m", "1h05", "11h", "2d".
+  const minutes = Math.floor(secondsSince(bay.heldSince, nowMs) / 60);
+  if (minutes < 60) return `${Math.max(1, minutes)}m`;
+  const hours = Math.floor(minutes / 60);
+  if (hours < 10) return `${hours}h${String(minutes % 60).padStart(2, '0')}`;
+  return hours < 24 ? `${hours}h` : `${Math.floor(hours / 24)}d`;
+}
+
+export interface TileLine {
+  fact: BayFact;
+  /** This line takes turns with other facts. */
+  rotating: boolean;
+}
+
+/**
+ * Fits facts into `slots` lines. When they all fit they all show; otherwise the kept facts stay and
+ * one line takes the others in turn (`turn` counts up every few seconds), in reading order.
+ */
+export function pickLines(facts: BayFact[], slots: number, turn: number): TileLine[] {
+  if (slots <= 0) return [];
+  if (facts.length <= slots) return facts.map((fact) => ({ fact, rotating: false }));
+  // One line takes turns with the rest, unless a single line is all there is: then the first kept fact.
+  const keptAll = facts.filter((fact) => fact.keep);
+  const kept = keptAll.slice(0, slots === 1 && keptAll.length ? 1 : slots - 1);
+  const others = facts.filter((fact) => !kept.includes(fact));
+  const rotatingSlots = slots - kept.length;
+  const shown =
+    rotatingSlots > 0 ? others[((turn % others.length) + others.length) % others.length] : undefined;
+  const firstOther = facts.findIndex((fact) => !kept.includes(fact));
+  const lines: TileLine[] = [];
+  facts.forEach((fact, index) => {
+    if (kept.includes(fact)) lines.push({ fact, rotating: false });
+    else if (index === firstOther && shown) lines.push({ fact: shown, rotating: true });
+  });
+  return lines;
+}

@@ -1,0 +1,92 @@
+import { BAY_PALETTE, type BoardBay } from '@baytime/shared';
+import { Glyph } from '@/components/glyph';
+import { clockedSecondsAt } from '../board-store';
+import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
+import { formatHoursMinutes } from '../board-time';
+import { lineChars, tileRoom } from '../wall-layout';
+import styles from './wall.module.css';
+
+export interface BayTileProps {
+  bay: BoardBay;
+  /** Server time (ms) the bay's clocked total was counted to. */
+  asOfMs: number | undefined;
+  /** Server time now (ms). */
+  nowMs: number;
+  /** Tile size in board units: decides how many lines fit and how long they may be. */
+  height: number;
+  width: number;
+  /** Counts up every few seconds; facts that share a line take turns by it. */
+  turn: number;
+}
+
+const BAR_STATES = new Set<BoardBay['state']>(['working', 'held', 'check']);
+
+export function BayTile({ bay, asOfMs, nowMs, height, width, turn }: BayTileProps) {
+  const look = BAY_PALETTE[bay.state];
+  const clocked = clockedSecondsAt(bay, asOfMs, nowMs);
+  const bar = BAR_STATES.has(bay.state) ? clockedBar(clocked, bay.bookSeconds) : null;
+  const facts = bayFacts({ bay, clockedSeconds: clocked, nowMs, lineChars: lineChars(width) });
+  const room = tileRoom(height, bar !== null);
+  const hasBig = facts.some((fact) => fact.tone === 'big');
+  const lines = pickLines(facts, hasBig ? room.slotsWithBig : room.slots, turn);
+  const note = bandNote(bay, nowMs);
+
+  return (
+    <article
+      className={`${styles.tile} ${bay.state === 'free' ? styles.tileFree : ''}`}
+      aria-label={bay.name}
+    >
+      <div className={styles.bayName}>{bay.name}</div>
+      <div className={styles.band} style={{ background: look.colour, color: look.textColour }}>
+        <Glyph name={look.icon} className={styles.glyph} />
+        <span className={styles.bandWord}>{look.label}</span>
+        {note && <span className={styles.bandNote}>{note}</span>}
+      </div>
+      <div className={styles.lines}>
+        {lines.map((line) => (
+          <FactLine key={line.rotating ? `turn-${line.fact.key}` : line.fact.key} line={line} bar={bar} />
+        ))}
+      </div>
+      {bar && (
+        <div
+          className={styles.bar}
+          role="img"
+          aria-label={`${formatHoursMinutes(clocked)} clocked of ${formatHoursMinutes(bay.bookSeconds)} book`}
+        >
+          <div className={styles.barWithin} style={{ width: `${bar.withinBook * 100}%` }} />
+          {bar.overBook > 0 && (
+            <div
+              className={styles.barOver}
+              style={{ left: `${bar.bookMark * 100}%`, width: `${bar.overBook * 100}%` }}
+            />
+          )}
+          <div className={styles.barBook} style={{ left: `${bar.bookMark * 100}%` }} />
+        </div>
+      )}
+    </article>
+  );
+}
+
+function FactLine({ line, bar }: { line: TileLine; bar: ReturnType<typeof clockedBar> }) {
+  const { fact } = line;
+  const toneClass =
+    fact.tone === 'big'
+      ? styles.lineBig
+      : fact.tone === 'over'
+        ? styles.lineOver
+        : fact.tone === 'caution'
+          ? styles.lineCaution
+          : '';
+  return (
+    <div className={`${styles.line} ${toneClass} ${line.rotating ? styles.lineTurn : ''}`}>
+      {fact.tone === 'caution' && <Glyph name="caution" className={styles.glyph} />}
+      <span className={styles.lineText}>
+        {fact.text}
+        {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
+      </span>
+      {fact.tone === 'over' && bar && (
+        <span className={styles.overTag}>+{formatHoursMinutes(bar.overSeconds)}</span>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,306 @@
+import {
+  Badge,
+  Body1,
+  Caption1,
+  Card,
+  Subtitle2,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  makeStyles,
+  mergeClasses,
+  tokens,
+} from '@fluentui/react-components';
+import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardSnapshot } from '@baytime/shared';
+import { StateChip } from '@/components/state-chip';
+import { clockedSecondsAt } from '../board-store';
+import { clockedBar, countdownFact } from '../bay-facts';
+import { formatHoursMinutes, formatSpan, formatTimeOfDay } from '../board-time';
+import { secondsSince } from '../server-clock';
+import type { LinkStatus } from '../live-board';
+import { LINK_LOST_AFTER_MS } from './wall-top-bar';
+
+const useStyles = makeStyles({
+  table: { tableLayout: 'auto' },
+  where: {
+    display: 'block',
+    maxWidth: '18rem',
+    overflow: 'hidden',
+    textOverflow: 'ellipsis',
+    whiteSpace: 'nowrap',
+  },
+  status: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM, flexWrap: 'wrap' },
+  bays: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fill, minmax(17rem, 1fr))',
+    gap: tokens.spacingHorizontalM,
+    marginBottom: tokens.spacingVerticalXXL,
+  },
+  card: { gap: tokens.spacingVerticalXS, padding: tokens.spacingHorizontalM },
+  free: { opacity: 0.75 },
+  cardHead: {
+    display: 'flex',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalS,
+  },
+  bayName: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightBold },
+  dim: { color: tokens.colorNeutralForeground3 },
+  row: { display: 'flex', justifyContent: 'space-between', gap: tokens.spacingHorizontalS },
+  ellipsis: { overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap' },
+  bar: {
+    position: 'relative',
+    height: '8px',
+    borderRadius: '4px',
+    backgroundColor: tokens.colorNeutralBackground5,
+    marginTop: tokens.spacingVerticalXS,
+  },
+  within: {
+    position: 'absolute',
+    top: 0,
+    bottom: 0,
+    left: 0,
+    borderRadius: '4px 0 0 4px',
+    backgroundColor: tokens.colorCompoundBrandBackground,
+  },
+  over: {
+    position: 'absolute',
+    top: 0,
+    bottom: 0,
+    backgroundImage: 'repeating-linear-gradient(-45deg, #C4511A 0 4px, #0B0D10 4px 8px)',
+  },
+  book: {
+    position: 'absolute',
+    top: '-3px',
+    bottom: '-3px',
+    width: '2px',
+    marginLeft: '-1px',
+    backgroundColor: tokens.colorNeutralForeground1,
+  },
+  overText: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
+  lower: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fit, minmax(24rem, 1fr))',
+    gap: tokens.spacingHorizontalXXL,
+  },
+  sectionTitle: { display: 'block', marginBottom: tokens.spacingVerticalS },
+});
+
+export interface FloorViewProps {
+  snapshot: BoardSnapshot;
+  bayAsOf: Readonly<Record<number, number>>;
+  /** Server time now (ms). */
+  nowMs: number;
+}
+
+export function FloorLinkStatus({
+  link,
+  downSince,
+  localNowMs,
+  offsetMs,
+  timeZone,
+}: {
+  link: LinkStatus;
+  downSince: number | null;
+  localNowMs: number;
+  offsetMs: number;
+  timeZone: string | undefined;
+}) {
+  const styles = useStyles();
+  const lost = link !== 'live' && downSince !== null && localNowMs - downSince >= LINK_LOST_AFTER_MS;
+  return (
+    <span className={styles.status} role="status">
+      {link === 'live' ? (
+        <Badge appearance="tint" color="success">
+          Live
+        </Badge>
+      ) : lost ? (
+        <Badge appearance="filled" color="warning">
+          Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
+        </Badge>
+      ) : (
+        <Badge appearance="tint" color="informative">
+          Connecting…
+        </Badge>
+      )}
+    </span>
+  );
+}
+
+function BayCard({ bay, asOfMs, nowMs }: { bay: BoardBay; asOfMs: number | undefined; nowMs: number }) {
+  const styles = useStyles();
+  const clocked = clockedSecondsAt(bay, asOfMs, nowMs);
+  const bar = clockedBar(clocked, bay.bookSeconds);
+  const timer = bay.timer;
+  const countdown = timer ? countdownFact(timer, nowMs) : null;
+  return (
+    <Card className={mergeClasses(styles.card, bay.state === 'free' && styles.free)} aria-label={bay.name}>
+      <div className={styles.cardHead}>
+        <span className={styles.bayName}>{bay.name}</span>
+        <StateChip state={bay.state} />
+      </div>
+      {bay.state === 'held' && (
+        <Body1>
+          <strong>{bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold'}</strong>
+          {bay.heldSince && ` · held ${formatSpan(secondsSince(bay.heldSince, nowMs))}`}
+        </Body1>
+      )}
+      {timer && (
+        <Body1>
+          <strong>{TIMER_KIND_LABELS[timer.kind]}</strong>
+          {timer.note && ` (${timer.note})`}
+          {countdown && ` · ${countdown.text}${countdown.suffix ? ` ${countdown.suffix}` : ''}`}
+          {timer.lastReadingC !== null && timer.targetC !== null && (
+            <span className={styles.dim}>
+              {' '}
+              ({Math.round(timer.lastReadingC)}°C → {Math.round(timer.targetC)}°C)
+            </span>
+          )}
+        </Body1>
+      )}
+      {(bay.vehicle || bay.repairOrder) && (
+        <div className={styles.row}>
+          <Body1 className={styles.ellipsis}>{bay.vehicle ?? '—'}</Body1>
+          {bay.repairOrder && <Body1 className={styles.dim}>RO {bay.repairOrder.number}</Body1>}
+        </div>
+      )}
+      {bay.jobLine && (
+        <Body1 className={styles.ellipsis}>
+          <span className={styles.dim}>L{bay.jobLine.lineNo} </span>
+          {bay.jobLine.title}
+        </Body1>
+      )}
+      {bay.technicians.length > 0 && <Body1>{bay.technicians.map((tech) => tech.name).join(', ')}</Body1>}
+      {bar && (
+        <>
+          <div className={styles.row}>
+            <Caption1>
+              {formatHoursMinutes(clocked)} clocked of {formatHoursMinutes(bay.bookSeconds)} book
+            </Caption1>
+            {bar.overSeconds > 0 && (
+              <Caption1 className={styles.overText}>+{formatHoursMinutes(bar.overSeconds)} over</Caption1>
+            )}
+          </div>
+          <div
+            className={styles.bar}
+            role="img"
+            aria-label={`${formatHoursMinutes(clocked)} clocked of ${formatHoursMinutes(bay.bookSeconds)} book`}
+          >
+            <div className={styles.within} style={{ width: `${bar.withinBook * 100}%` }} />
+            {bar.overBook > 0 && (
+              <div
+                className={styles.over}
+                style={{ left: `${bar.bookMark * 100}%`, width: `${bar.overBook * 100}%` }}
+              />
+            )}
+            <div className={styles.book} style={{ left: `${bar.bookMark * 100}%` }} />
+          </div>
+        </>
+      )}
+    </Card>
+  );
+}
+
+const STATUS_LABELS = { 'on-job': 'On a job', idle: 'Idle', 'on-break': 'On break' } as const;
+const PRIORITY_COLOURS = { urgent: 'danger', high: 'warning', normal: 'informative', low: 'subtle' } as const;
+
+/** The live floor at office size: bay cards, then who is where and what waits. */
+export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
+  const styles = useStyles();
+  return (
+    <>
+      <section aria-label="Bays" className={styles.bays}>
+        {snapshot.bays.map((bay) => (
+          <BayCard key={bay.id} bay={bay} asOfMs={bayAsOf[bay.id]} nowMs={nowMs} />
+        ))}
+        {snapshot.bays.length === 0 && <Body1>No bays yet. The owner adds them under Admin, Bays.</Body1>}
+      </section>
+      <div className={styles.lower}>
+        <section aria-labelledby="floor-people">
+          <Subtitle2 id="floor-people" className={styles.sectionTitle}>
+            On shift ({snapshot.people.length})
+          </Subtitle2>
+          {snapshot.people.length === 0 ? (
+            <Body1 className={styles.dim}>Nobody is on shift.</Body1>
+          ) : (
+            <Table size="small" aria-labelledby="floor-people" className={styles.table}>
+              <TableHeader>
+                <TableRow>
+                  <TableHeaderCell>Technician</TableHeaderCell>
+                  <TableHeaderCell>Status</TableHeaderCell>
+                  <TableHeaderCell>Where</TableHeaderCell>
+                  <TableHeaderCell>For</TableHeaderCell>
+                </TableRow>
+              </TableHeader>
+              <TableBody>
+                {snapshot.people.map((person) => (
+                  <TableRow key={person.id}>
+                    <TableCell>{person.name}</TableCell>
+                    <TableCell>
+                      <Badge
+                        appearance={person.status === 'idle' ? 'filled' : 'tint'}
+                        color={
+                          person.status === 'idle'
+                            ? 'warning'
+                            : person.status === 'on-job'
+                              ? 'brand'
+                              : 'informative'
+                        }
+                      >
+                        {STATUS_LABELS[person.status]}
+                      </Badge>
+                    </TableCell>
+                    <TableCell>
+                      <span className={styles.where}>
+                        {[person.bayName, person.jobLineTitle].filter(Boolean).join(' · ') || '—'}
+                      </span>
+                    </TableCell>
+                    <TableCell>{formatSpan(secondsSince(person.since, nowMs))}</TableCell>
+                  </TableRow>
+                ))}
+              </TableBody>
+            </Table>
+          )}
+        </section>
+        <section aria-labelledby="floor-queue">
+          <Subtitle2 id="floor-queue" className={styles.sectionTitle}>
+            Waiting for a technician ({snapshot.queue.length})
+          </Subtitle2>
+          {snapshot.queue.length === 0 ? (
+            <Body1 className={styles.dim}>Nothing waits.</Body1>
+          ) : (
+            <Table size="small" aria-labelledby="floor-queue" className={styles.table}>
+              <TableHeader>
+                <TableRow>
+                  <TableHeaderCell>RO</TableHeaderCell>
+                  <TableHeaderCell>Job line</TableHeaderCell>
+                  <TableHeaderCell>Priority</TableHeaderCell>
+                  <TableHeaderCell>Waiting</TableHeaderCell>
+                </TableRow>
+              </TableHeader>
+              <TableBody>
+                {[...snapshot.queue]
+                  .sort((a, b) => Date.parse(a.waitingSince) - Date.parse(b.waitingSince))
+                  .map((item) => (
+                    <TableRow key={item.jobLineId}>
+                      <TableCell>{item.repairOrderNumber}</TableCell>
+                      <TableCell>{item.title}</TableCell>
+                      <TableCell>
+                        <Badge appearance="tint" color={PRIORITY_COLOURS[item.priority]}>
+                          {item.priority}
+                        </Badge>
+                      </TableCell>
+                      <TableCell>{formatSpan(secondsSince(item.waitingSince, nowMs))}</TableCell>
+                    </TableRow>
+                  ))}
+              </TableBody>
+            </Table>
+          )}
+        </section>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,82 @@
+import { useLayoutEffect, useRef, useState } from 'react';
+import type { BoardPerson } from '@baytime/shared';
+import { Glyph, type GlyphName } from '@/components/glyph';
+import { packPages, personChips, type PersonChip } from '../people-pages';
+import styles from './wall.module.css';
+
+export interface PeopleStripProps {
+  people: readonly BoardPerson[];
+  nowMs: number;
+  /** Counts up every few seconds: turns the page when the people do not fit on one line. */
+  turn: number;
+}
+
+const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
+  idle: 'person',
+  'on-break': 'cup',
+  'on-job': 'wrench',
+};
+
+export function PeopleStrip({ people, nowMs, turn }: PeopleStripProps) {
+  const chips = personChips(people, nowMs);
+  const measureRef = useRef<HTMLDivElement>(null);
+  const boxRef = useRef<HTMLDivElement>(null);
+  const [pages, setPages] = useState<number[][]>([]);
+  // Re-pack only when what the chips say in shape changes, not every second.
+  const shape = chips.map((chip) => `${chip.id}:${chip.name}:${chip.detail.length}`).join('|');
+
+  useLayoutEffect(() => {
+    const measure = () => {
+      const box = boxRef.current;
+      const row = measureRef.current;
+      if (!box || !row) return;
+      const widths = Array.from(row.children, (child) => (child as HTMLElement).offsetWidth);
+      const gap = parseFloat(getComputedStyle(row).columnGap) || 0;
+      setPages(packPages(widths, box.clientWidth, gap));
+    };
+    measure();
+    const observer = new ResizeObserver(measure);
+    if (boxRef.current) observer.observe(boxRef.current);
+    return () => observer.disconnect();
+  }, [shape]);
+
+  const page = pages.length ? pages[turn % pages.length] : undefined;
+  const shown = page ? page.map((index) => chips[index]).filter((chip) => chip !== undefined) : chips;
+
+  return (
+    <footer className={styles.strip}>
+      <div className={styles.chips} ref={boxRef}>
+        <div className={styles.chipsMeasure} ref={measureRef} aria-hidden="true">
+          {chips.map((chip) => (
+            <Chip key={chip.id} chip={chip} />
+          ))}
+        </div>
+        {chips.length === 0 ? (
+          <div className={styles.chip}>Nobody on shift</div>
+        ) : (
+          shown.map((chip) => <Chip key={chip.id} chip={chip} />)
+        )}
+      </div>
+      {pages.length > 1 && (
+        <div className={styles.stripPages} aria-hidden="true">
+          {pages.map((_, index) => (
+            <span
+              key={index}
+              className={`${styles.pageDot} ${index === turn % pages.length ? styles.pageDotOn : ''}`}
+            />
+          ))}
+        </div>
+      )}
+    </footer>
+  );
+}
+
+function Chip({ chip }: { chip: PersonChip }) {
+  return (
+    <div className={`${styles.chip} ${chip.status === 'idle' ? styles.chipIdle : ''}`}>
+      <Glyph name={GLYPHS[chip.status]} className={styles.glyph} />
+      <span className={styles.chipName}>{chip.name}</span>
+      <span className={styles.chipDetail}>{chip.detail}</span>
+    </div>
+  );
+}

@@ -1,0 +1,105 @@
+import { useEffect, useState } from 'react';
+import { Glyph } from '@/components/glyph';
+import { wallApi } from '@/lib/api-client';
+import { useLiveBoard } from '../hooks/use-live-board';
+import { forgetWallToken } from '@/lib/wall-session';
+import { useNow } from '../hooks/use-now';
+import { serverNow } from '../server-clock';
+import { formatTimeOfDay } from '../board-time';
+import { pageAt, pageItems, wallLayout, type Viewport } from '../wall-layout';
+import { queueSummary } from '../people-pages';
+import { BayTile } from './bay-tile';
+import { PeopleStrip } from './people-strip';
+import { LINK_LOST_AFTER_MS, WallTopBar } from './wall-top-bar';
+import styles from './wall.module.css';
+
+const PAGE_MS = 15_000;
+const TURN_MS = 5_000;
+
+function useViewport(): Viewport {
+  const [viewport, setViewport] = useState<Viewport>(() => ({
+    width: window.innerWidth,
+    height: window.innerHeight,
+  }));
+  useEffect(() => {
+    const update = () => setViewport({ width: window.innerWidth, height: window.innerHeight });
+    window.addEventListener('resize', update);
+    return () => window.removeEventListener('resize', update);
+  }, []);
+  return viewport;
+}
+
+/** The full-screen wall board for a paired screen. */
+export function WallBoard({ token }: { token: string }) {
+  const { board, link, downSince } = useLiveBoard(token, wallApi, forgetWallToken);
+  const localNow = useNow();
+  const viewport = useViewport();
+
+  if (!board) {
+    const long = downSince !== null && localNow - downSince >= LINK_LOST_AFTER_MS;
+    return (
+      <main className={styles.wall}>
+        <div className={styles.message} role="status">
+          {long && <Glyph name="link-lost" className={styles.glyph} />}
+          <div className={styles.messageTitle}>
+            {long
+              ? `No link to the shop server since ${formatTimeOfDay(downSince, undefined)}`
+              : 'Connecting…'}
+          </div>
+          {long && <div className={styles.messageBody}>Retrying by itself. Check the screen’s network.</div>}
+        </div>
+      </main>
+    );
+  }
+
+  const { snapshot, clock, bayAsOf } = board;
+  const now = serverNow(clock, localNow);
+  const layout = wallLayout(snapshot.bays.length, viewport);
+  const page = pageAt(layout.pages, now, PAGE_MS);
+  const bays = pageItems(snapshot.bays, layout, page);
+  const turn = Math.floor(now / TURN_MS);
+
+  return (
+    <main className={styles.wall} aria-label={`${snapshot.shop.name} board`}>
+      <WallTopBar
+        shopName={snapshot.shop.name}
+        timeZone={snapshot.shop.timeZone}
+        nowMs={now}
+        localNowMs={localNow}
+        link={link}
+        downSince={downSince}
+        offsetMs={clock.offsetMs}
+        page={page}
+        pages={layout.pages}
+        queue={queueSummary(snapshot.queue, now)}
+      />
+      {snapshot.bays.length === 0 ? (
+        <div className={styles.message} style={{ gridRow: 'auto' }}>
+          <div className={styles.messageTitle}>No bays yet</div>
+          <div className={styles.messageBody}>Add bays in the office under Admin, Bays.</div>
+        </div>
+      ) : (
+        <section
+          className={styles.grid}
+          style={{
+            gridTemplateColumns: `repeat(${layout.columns}, minmax(0, 1fr))`,
+            gridTemplateRows: `repeat(${layout.rows}, minmax(0, 1fr))`,
+          }}
+        >
+          {bays.map((bay) => (
+            <BayTile
+              key={bay.id}
+              bay={bay}
+              asOfMs={bayAsOf[bay.id]}
+              nowMs={now}
+              height={layout.tileHeight}
+              width={layout.tileWidth}
+              turn={turn}
+            />
+          ))}
+        </section>
+      )}
+      <PeopleStrip people={snapshot.people} nowMs={now} turn={turn} />
+    </main>
+  );
+}

@@ -1,0 +1,81 @@
+import { Glyph } from '@/components/glyph';
+import type { LinkStatus } from '../live-board';
+import { clockFace, formatSpan, formatTimeOfDay } from '../board-time';
+import type { QueueSummary } from '../people-pages';
+import styles from './wall.module.css';
+
+/** A link down for longer than this is worth telling the whole shop about. */
+export const LINK_LOST_AFTER_MS = 10_000;
+
+export interface WallTopBarProps {
+  shopName: string;
+  timeZone: string | undefined;
+  /** Server time now (ms). */
+  nowMs: number;
+  /** Local time now (ms), for how long the link has been down. */
+  localNowMs: number;
+  link: LinkStatus;
+  /** Local time the link went down. */
+  downSince: number | null;
+  /** Difference between server and local clocks, to tell when the link went down in shop time. */
+  offsetMs: number;
+  page: number;
+  pages: number;
+  queue: QueueSummary;
+}
+
+export function WallTopBar(props: WallTopBarProps) {
+  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, queue } = props;
+  const face = clockFace(nowMs, timeZone);
+  const lost = link !== 'live' && downSince !== null && localNowMs - downSince >= LINK_LOST_AFTER_MS;
+
+  return (
+    <header className={styles.topBar}>
+      {lost ? (
+        <div className={styles.linkLost} role="alert">
+          <Glyph name="link-lost" className={styles.glyph} />
+          <span className={styles.linkLostText}>
+            Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
+          </span>
+        </div>
+      ) : (
+        <div className={styles.shopName}>{shopName}</div>
+      )}
+      {!lost && (
+        <div className={styles.queue}>
+          <Glyph name="queue" className={styles.glyph} />
+          {queue.count === 0 ? (
+            <span>Queue empty</span>
+          ) : (
+            <span>
+              Queue <span className={styles.queueCount}>{queue.count}</span>
+              {queue.oldestSeconds !== null && (
+                <span className={styles.queueWait}> · oldest {formatSpan(queue.oldestSeconds)}</span>
+              )}
+            </span>
+          )}
+        </div>
+      )}
+      {pages > 1 && (
+        <div className={styles.pageDots} aria-label={`Page ${page + 1} of ${pages}`}>
+          {Array.from({ length: pages }, (_, index) => (
+            <span key={index} className={`${styles.pageDot} ${index === page ? styles.pageDotOn : ''}`} />
+          ))}
+          <span>
+            {page + 1}/{pages}
+          </span>
+        </div>
+      )}
+      {!lost && (
+        <div className={styles.live}>
+          <span className={`${styles.liveDot} ${link === 'live' ? '' : styles.liveDotDown}`} />
+          {link === 'live' ? 'Live' : 'Reconnecting'}
+        </div>
+      )}
+      <time className={styles.clock} dateTime={new Date(nowMs).toISOString()}>
+        {face.time}
+        {face.period && <span className={styles.clockPeriod}>{face.period}</span>}
+      </time>
+    </header>
+  );
+}
