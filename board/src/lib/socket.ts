@@ -11,7 +11,7 @@ export function createBoardSocket(token: string): BoardSocket {
     forceNew: true,
     // Backoff from 1 s to 15 s with jitter, so a roomful of screens does not reconnect in step.
     reconnectionDelay: 1_000,
-    reconnectionDelayMax: 15_000,
+    reconnectionDelayMax: 5_000,
     randomizationFactor: 0.5,
   });
 }

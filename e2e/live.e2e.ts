@@ -1,0 +1,63 @@
+import { randomUUID } from 'node:crypto';
+import type { BrowserContext } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { DispatchBoard, UserDto } from '@baytime/shared';
+import { openBrowser, screenshotPath } from './support/browser.js';
+import { apiAs, bayTile, openWall, peopleStrip, signInAtKiosk, type Api } from './support/floor.js';
+import { startServer, type RunningServer } from './support/server.js';
+
+/** The live path end to end: a kiosk tap shows on the wall within a second, with no reload. */
+describe('kiosk to wall board', () => {
+  let server: RunningServer;
+  let browser: BrowserContext;
+  let foreman: Api;
+  beforeAll(async () => {
+    server = await startServer();
+    browser = await openBrowser();
+    foreman = await apiAs(server, 'foreman@marlowcreek.test');
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it("shows a technician's shift-in and clock-on on the wall within a second", async () => {
+    const jo = (await foreman<UserDto[]>('GET', '/users')).find((u) => u.name === 'Jo Whitfield')!;
+    await foreman('POST', '/punches', { id: randomUUID(), kind: 'shift-out', technicianId: jo.id });
+
+    const wall = await browser.newPage();
+    await wall.setViewportSize({ width: 1920, height: 1080 });
+    await openWall(wall, server);
+    await wall.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
+    await expect.poll(() => peopleStrip(wall).textContent()).not.toContain('Jo W.');
+
+    const kiosk = await browser.newPage();
+    await signInAtKiosk(kiosk, server, '1045');
+    await kiosk.getByRole('button', { name: /Start shift/ }).click();
+    const tapped = Date.now();
+    await expect
+      .poll(() => peopleStrip(wall).textContent(), { timeout: 1000, interval: 25 })
+      .toContain('Jo W.');
+    expect(Date.now() - tapped).toBeLessThan(1000);
+
+    const dispatch = await foreman<DispatchBoard>('GET', '/dispatch');
+    const line = dispatch.lanes
+      .find((lane) => lane.technician.id === jo.id)!
+      .lines.find((l) => l.bayId !== null)!;
+    const bayName = dispatch.bays.find((b) => b.id === line.bayId)!.name;
+    await kiosk
+      .locator('li', { hasText: line.title })
+      .getByRole('button', { name: /Clock on/ })
+      .click();
+    await expect
+      .poll(() => bayTile(wall, bayName).textContent(), { timeout: 1000, interval: 25 })
+      .toMatch(/working/i);
+    // Facts share a tile line and take turns every few seconds: the name shows within one turn.
+    await expect.poll(() => bayTile(wall, bayName).textContent(), { timeout: 6000 }).toContain('Jo W.');
+    expect(await wall.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
+      true,
+    );
+    await wall.screenshot({ path: screenshotPath('live-wall-1080p') });
+    await kiosk.screenshot({ path: screenshotPath('live-kiosk') });
+  });
+});

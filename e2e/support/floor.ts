@@ -1,0 +1,57 @@
+import type { Page } from 'playwright-core';
+import type { RunningServer } from './server.js';
+import { pairingCode } from './server.js';
+
+/** Signs a technician in on the kiosk keypad the way a badge reader would: digits, then Enter. */
+export async function signInAtKiosk(
+  page: Page,
+  server: RunningServer,
+  badge: string,
+  pin = '4321',
+): Promise<void> {
+  await page.goto(`${server.url}/kiosk/`);
+  await page.getByText('Sign in with your badge').waitFor();
+  await page.keyboard.type(badge);
+  await page.keyboard.press('Enter');
+  await page.getByText('Now your PIN').waitFor();
+  await page.keyboard.type(pin);
+  await page.keyboard.press('Enter');
+  await page
+    .getByRole('list', { name: 'My job lines' })
+    .or(page.getByText('No job lines assigned'))
+    .first()
+    .waitFor();
+}
+
+/** Opens the wall board paired with a fresh code, and waits for the first snapshot. */
+export async function openWall(page: Page, server: RunningServer): Promise<void> {
+  await page.goto(`${server.url}/wall?code=${await pairingCode(server)}`);
+  await page.locator('article[aria-label="Bay 1"]').waitFor();
+}
+
+export const bayTile = (page: Page, name: string) => page.locator(`article[aria-label="${name}"]`);
+
+/** The people strip holds every person in its text, also those on a later page of the strip. */
+export const peopleStrip = (page: Page) => page.locator('footer');
+
+export interface Api {
+  <T>(method: string, path: string, body?: unknown): Promise<T>;
+}
+
+export async function apiAs(server: RunningServer, email: string): Promise<Api> {
+  const login = await fetch(`${server.url}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password: 'baytime-demo' }),
+  });
+  const { accessToken } = (await login.json()) as { accessToken: string };
+  return async <T>(method: string, path: string, body?: unknown): Promise<T> => {
+    const response = await fetch(`${server.url}/api${path}`, {
+      method,
+      headers: { 'content-type': 'application/json', authorization: `Bearer ${accessToken}` },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+    if (!response.ok) throw new Error(`${method} ${path}: ${response.status} ${await response.text()}`);
+    return (await response.json()) as T;
+  };
+}

@@ -1,0 +1,101 @@
+import { randomUUID } from 'node:crypto';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BoardSnapshot, UserDto } from '@baytime/shared';
+import { openBrowser, screenshotPath } from './support/browser.js';
+import { apiAs, bayTile, openWall, peopleStrip, type Api } from './support/floor.js';
+import { startServer, type RunningServer } from './support/server.js';
+
+/**
+ * DISPLAY.md: body text cap height ≥ 55 px at 1080p, scaled with the viewport (16′–22′ of visual
+ * angle at 6 m on a 55-inch TV). Barlow's cap height is 0.7 em (its font metrics: 700 of 1000 units),
+ * so a text's cap height is 0.7 × its computed font size.
+ */
+const CAP_HEIGHT_EM = 0.7;
+const MIN_CAP_AT_1080P = 55;
+
+async function assertLegibleAndStill(page: Page, height: number): Promise<void> {
+  const scroll = await page.evaluate(() => ({
+    w: document.documentElement.scrollWidth,
+    h: document.documentElement.scrollHeight,
+    vw: window.innerWidth,
+    vh: window.innerHeight,
+  }));
+  expect(scroll.w).toBeLessThanOrEqual(scroll.vw);
+  expect(scroll.h).toBeLessThanOrEqual(scroll.vh);
+  const smallest = await page.evaluate(() => {
+    let min = Infinity;
+    for (const tile of document.querySelectorAll('article[aria-label]'))
+      for (const node of tile.querySelectorAll('*')) {
+        const hasText = [...node.childNodes].some(
+          (child) => child.nodeType === Node.TEXT_NODE && child.textContent?.trim(),
+        );
+        const style = getComputedStyle(node);
+        if (hasText && style.visibility !== 'hidden' && style.display !== 'none')
+          min = Math.min(min, parseFloat(style.fontSize));
+      }
+    return min;
+  });
+  expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(MIN_CAP_AT_1080P * (height / 1080) - 0.5);
+}
+
+describe('wall board', () => {
+  let server: RunningServer;
+  let browser: BrowserContext;
+  let owner: Api;
+  beforeAll(async () => {
+    server = await startServer();
+    browser = await openBrowser({ width: 1920, height: 1080 });
+    owner = await apiAs(server, 'owner@marlowcreek.test');
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it.each([
+    [8, 1920, 1080],
+    [8, 3840, 2160],
+    [24, 1920, 1080],
+    [24, 3840, 2160],
+  ])(
+    'fits %i bays at %ix%i without scrolling, every tile text at legible size',
+    async (bays, width, height) => {
+      const existing = (await owner<BoardSnapshot>('GET', '/board')).bays.length;
+      for (let n = existing + 1; n <= bays; n++) await owner('POST', '/bays', { name: `Bay ${n}` });
+      const page = await browser.newPage();
+      await page.setViewportSize({ width, height });
+      await openWall(page, server);
+      await page.waitForTimeout(500);
+      await assertLegibleAndStill(page, height);
+      await page.screenshot({ path: screenshotPath(`wall-${bays}-bays-${width}x${height}`) });
+      await page.close();
+    },
+  );
+
+  it('recovers to the true state by itself after the server is killed and restarted, without a reload', async () => {
+    const page = await browser.newPage();
+    await openWall(page, server);
+    await page.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
+
+    await server.kill('SIGKILL');
+    await page.getByText(/link lost since/i).waitFor({ timeout: 20_000 });
+    await page.screenshot({ path: screenshotPath('wall-link-lost') });
+    await server.restart();
+
+    // A change made while the board was away must show once it reconnects.
+    owner = await apiAs(server, 'owner@marlowcreek.test');
+    const sam = (await owner<UserDto[]>('GET', '/users')).find((u) => u.name === 'Sam Ortega')!;
+    await owner('POST', '/punches', { id: randomUUID(), kind: 'shift-out', technicianId: sam.id });
+    const truth = await owner<BoardSnapshot>('GET', '/board');
+    await expect.poll(() => peopleStrip(page).textContent(), { timeout: 30_000 }).not.toContain('Sam O.');
+    for (const bay of truth.bays.slice(0, 8))
+      await expect
+        .poll(() => bayTile(page, bay.name).textContent(), { timeout: 5000 })
+        .toMatch(new RegExp(bay.state, 'i'));
+    await expect.poll(() => page.getByText(/link lost since/i).count()).toBe(0);
+    expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
+      true,
+    );
+  });
+});
