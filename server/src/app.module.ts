@@ -3,6 +3,7 @@ import { ServeStaticModule } from '@nestjs/serve-static';
 import { join } from 'node:path';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { BackupModule } from './backup/backup.module.js';
 import { BaysModule } from './bays/bays.module.js';
 import { BoardModule } from './board/board.module.js';
 import { APP_CONFIG, type AppConfig } from './config/app-config.js';
@@ -59,6 +60,7 @@ export class AppModule {
         DispatchModule,
         FindingsModule,
         HealthModule,
+        BackupModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),
       ],

@@ -17,7 +17,10 @@ export async function createApp(
   app.use(
     helmet({
       // Shop tablets reach the server over plain http on the LAN: no https upgrade, no HSTS.
-      contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } },
+      // Photos are shown from blob: URLs fetched with the token.
+      contentSecurityPolicy: {
+        directives: { upgradeInsecureRequests: null, imgSrc: ["'self'", 'data:', 'blob:'] },
+      },
       strictTransportSecurity: false,
     }),
   );

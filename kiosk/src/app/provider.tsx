@@ -3,28 +3,59 @@ import { FluentProvider } from '@fluentui/react-components';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { queryClient } from '@/lib/query-client';
 import { session } from '@/lib/session';
+import { listenToken } from '@/lib/listen-token';
 import { live } from '@/lib/socket';
+import { installAudioUnlock } from '@/lib/chime';
+import { setBeforeCommand } from '@/lib/commands';
 import { myDayRootKey } from '@/features/my-day/api/get-my-day';
-import { startPunchQueue } from '@/features/punches/punch-queue';
+import { kick, startPunchQueue } from '@/features/punches/punch-queue';
 import { kioskTheme } from './theme';
 
 function invalidateMyDay() {
   void queryClient.invalidateQueries({ queryKey: myDayRootKey });
 }
 
+/**
+ * While nobody is signed in the live link stays up with the last technician's token, so timer
+ * chimes still come; without a valid token it drops, and with it what only a token could fetch.
+ */
+function followTokens(): () => void {
+  let lastToken = session.get()?.accessToken ?? null;
+  const sync = () => {
+    const current = session.get();
+    if (current) {
+      lastToken = current.accessToken;
+      listenToken.set(current.accessToken);
+      return;
+    }
+    if (lastToken && session.lastSignOutReason() === 'expired') listenToken.clear(lastToken);
+    lastToken = null;
+    // Whoever signs out, by tap, idle or a refused token: their own data goes.
+    queryClient.removeQueries({ queryKey: ['me'] });
+    const token = listenToken.get();
+    if (token) live.connect(token, () => listenToken.clear(token));
+    else {
+      live.disconnect();
+      queryClient.removeQueries({ queryKey: ['timers'] });
+      queryClient.removeQueries({ queryKey: ['bays'] });
+    }
+  };
+  sync();
+  const offSession = session.subscribe(sync);
+  const offListen = listenToken.subscribe(() => {
+    if (!session.get()) sync();
+  });
+  return () => {
+    offSession();
+    offListen();
+  };
+}
+
 export function AppProvider({ children }: { children: ReactNode }) {
   useEffect(() => startPunchQueue({ onSent: invalidateMyDay, onRefused: invalidateMyDay }), []);
-
-  // Whoever signs out, by tap, idle or a refused token: drop their live link and their data.
-  useEffect(
-    () =>
-      session.subscribe(() => {
-        if (session.get()) return;
-        live.disconnect();
-        queryClient.removeQueries({ queryKey: ['me'] });
-      }),
-    [],
-  );
+  useEffect(() => setBeforeCommand(kick), []);
+  useEffect(installAudioUnlock, []);
+  useEffect(followTokens, []);
 
   return (
     <QueryClientProvider client={queryClient}>

@@ -27,6 +27,11 @@ const router = createBrowserRouter(
               ErrorBoundary: RouteError,
               lazy: async () => ({ Component: (await import('./routes/my-day')).MyDayRoute }),
             },
+            {
+              path: paths.myWeek.path,
+              ErrorBoundary: RouteError,
+              lazy: async () => ({ Component: (await import('./routes/my-week')).MyWeekRoute }),
+            },
           ],
         },
         { path: '*', Component: NotFound },

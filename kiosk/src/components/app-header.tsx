@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { Button } from '@fluentui/react-components';
 import type { LinkState } from '@/lib/socket';
 import { clockTime, dayPeriod } from '@/lib/format';
@@ -12,6 +13,8 @@ export interface AppHeaderProps {
   connection: LinkState;
   technicianName?: string;
   onSignOut?: () => void;
+  /** Links between the signed-in pages; they take the shop name's place. */
+  nav?: ReactNode;
 }
 
 const CONNECTION_WORDS: Record<LinkState, string> = {
@@ -20,7 +23,14 @@ const CONNECTION_WORDS: Record<LinkState, string> = {
   connecting: 'Connecting…',
 };
 
-export function AppHeader({ shopName, timeZone, connection, technicianName, onSignOut }: AppHeaderProps) {
+export function AppHeader({
+  shopName,
+  timeZone,
+  connection,
+  technicianName,
+  onSignOut,
+  nav,
+}: AppHeaderProps) {
   const now = useNow(1000);
   let date: string;
   try {
@@ -34,10 +44,10 @@ export function AppHeader({ shopName, timeZone, connection, technicianName, onSi
     date = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric' }).format(now);
   }
   return (
-    <header className="bt-header">
+    <header className={`bt-header${nav ? ' bt-header--nav' : ''}`}>
       <div className="bt-header__shop">
         <BaytimeMark className="bt-header__mark" />
-        <span className="bt-header__shop-name">{shopName}</span>
+        {nav ?? <span className="bt-header__shop-name">{shopName}</span>}
       </div>
       <div className="bt-header__clock" aria-label="Time">
         <span className="bt-header__time">{clockTime(now, timeZone)}</span>

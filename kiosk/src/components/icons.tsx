@@ -105,3 +105,70 @@ export const FlagIcon = (p: P) => (
     <path d="M6 21V4M6 4.5h11l-2.5 4 2.5 4H6" />
   </Icon>
 );
+export const BellIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M6 16.5V11a6 6 0 0 1 12 0v5.5l1.5 2h-15zM10 20.5a2 2 0 0 0 4 0" />
+  </Icon>
+);
+export const TimerIcon = (p: P) => (
+  <Icon {...p}>
+    <circle cx="12" cy="13.5" r="7" />
+    <path d="M12 13.5V9.5M9.5 3h5M18.5 6.5l1.5-1.5" />
+  </Icon>
+);
+export const ThermometerIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M10 14.5V5a2 2 0 0 1 4 0v9.5a4 4 0 1 1-4 0z" />
+    <path d="M12 9v7.5" strokeWidth={3} />
+  </Icon>
+);
+export const SnowIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M12 3v18M4.2 7.5l15.6 9M4.2 16.5l15.6-9M9.5 4.5L12 6.5l2.5-2M9.5 19.5L12 17.5l2.5 2" />
+  </Icon>
+);
+export const HourglassIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M6.5 3.5h11M6.5 20.5h11M8 3.5c0 4.5 8 5 8 8.5s-8 4-8 8.5M16 3.5c0 4.5-8 5-8 8.5s8 4 8 8.5" />
+  </Icon>
+);
+export const CameraIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M4 8h3l1.8-2.5h6.4L17 8h3v11H4z" />
+    <circle cx="12" cy="13.3" r="3.5" />
+  </Icon>
+);
+export const NoteIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M6 3.5h9l3.5 3.5v13.5H6z" />
+    <path d="M9 11h6.5M9 14.5h6.5M9 18h4" />
+  </Icon>
+);
+export const CalendarIcon = (p: P) => (
+  <Icon {...p}>
+    <rect x="4" y="5.5" width="16" height="15" rx="1.5" />
+    <path d="M4 10h16M8.5 3.5v4M15.5 3.5v4" />
+  </Icon>
+);
+export const CloseIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M6 6l12 12M18 6L6 18" strokeWidth={2.8} />
+  </Icon>
+);
+export const ArrowLeftIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M20 12H5M10.5 6.5L5 12l5.5 5.5" strokeWidth={2.6} />
+  </Icon>
+);
+export const ShieldIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M12 3l7.5 3v5.5c0 4.5-3.2 8-7.5 9.5-4.3-1.5-7.5-5-7.5-9.5V6z" />
+    <path d="M12 8.5v4.5M12 16v.1" strokeWidth={2.6} />
+  </Icon>
+);
+export const EyeIcon = (p: P) => (
+  <Icon {...p}>
+    <path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z" />
+    <circle cx="12" cy="12" r="3" />
+  </Icon>
+);

@@ -47,3 +47,23 @@ export function hoursMinutes(seconds: number): string {
 export function bookHours(hours: number): string {
   return `${Number(hours.toFixed(2))} h`;
 }
+
+/** "4:05" or "1:02:03": a countdown, rounded up so it reads 0:00 only when time is up. */
+export function countdown(seconds: number): string {
+  const total = Math.max(0, Math.ceil(seconds));
+  const h = Math.floor(total / 3600);
+  const m = Math.floor((total % 3600) / 60);
+  const s = String(total % 60).padStart(2, '0');
+  return h > 0 ? `${h}:${String(m).padStart(2, '0')}:${s}` : `${m}:${s}`;
+}
+
+/** "45 s", "30 min", "1 h 30 min": a duration as words. */
+export function durationWords(seconds: number): string {
+  const total = Math.max(0, Math.round(seconds));
+  if (total < 60) return `${total} s`;
+  const minutes = Math.round(total / 60);
+  const h = Math.floor(minutes / 60);
+  const m = minutes % 60;
+  if (h === 0) return `${m} min`;
+  return m === 0 ? `${h} h` : `${h} h ${m} min`;
+}

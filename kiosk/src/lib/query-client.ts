@@ -11,5 +11,8 @@ export const queryClient = new QueryClient({
       },
       retryDelay: (attempt) => Math.min(1000 * 2 ** attempt, 15_000),
     },
+    // Commands go now or fail now with a message: a paused mutation would leave a tech looking at
+    // "Sending…" with no idea whether the tap counted. (Punches have their own durable outbox.)
+    mutations: { networkMode: 'always', retry: false },
   },
 });

@@ -74,10 +74,11 @@ describe(ErrorsFilter.name, () => {
           const target = path.replace(/\/(\d+|[0-9a-f-]{36})(?=\/|$)/, `/${id}`);
           const text = isRaw(body) ? `${body.raw}}` : JSON.stringify(body ?? null);
           const response = await rawRequest(method, target, text, token);
-          expect(
-            response.status,
-            `${method} ${target} ${JSON.stringify(body)?.slice(0, 200)}`,
-          ).toBeGreaterThanOrEqual(400);
+          // Only an empty change may succeed (a PATCH of nothing answers the record unchanged).
+          const empty =
+            body === null || (typeof body === 'object' && Object.keys(body as object).length === 0);
+          if (!empty)
+            expect(response.status, `${method} ${target} ${text.slice(0, 200)}`).toBeGreaterThanOrEqual(400);
           expect(response.status).toBeLessThan(500);
         },
       ),

@@ -7,7 +7,9 @@ import { countRows, DB, type Db } from '../db/database.js';
 import {
   bays,
   customers,
+  holdPresets,
   jobLines,
+  operations,
   punches,
   repairOrders,
   shopSettings,
@@ -118,6 +120,29 @@ const YEAR_CODES: Record<number, string> = {
   2023: 'P',
 };
 
+const HOLD_PRESETS = [
+  { name: 'Sealant cure', durationSeconds: 30 * 60 },
+  { name: 'Vacuum hold', durationSeconds: 15 * 60 },
+  { name: 'Thread locker set', durationSeconds: 10 * 60 },
+  { name: 'Penetrating oil soak', durationSeconds: 20 * 60 },
+];
+
+/** The shop's own operations menu: title, default book hours, skill level needed (invented figures). */
+const MENU: [string, number, number][] = [
+  ['Oil and filter change', 0.5, 1],
+  ['Tire rotation and balance', 0.7, 1],
+  ['Front brake pads and rotors', 1.8, 2],
+  ['Automatic transmission fluid and filter service', 1.5, 3],
+  ['Coolant flush and fill', 1.1, 2],
+  ['Four-wheel alignment', 1.0, 3],
+  ['Replace serpentine belt', 0.9, 2],
+  ['Battery and charging system test', 0.5, 1],
+  ['Diagnose engine warning light', 1.0, 4],
+  ['Replace front struts', 2.6, 3],
+  ['Replace water pump', 3.2, 4],
+  ['Air conditioning performance check', 0.8, 3],
+];
+
 const OPERATIONS = [
   'Oil and filter change',
   'Front brake pads and rotors',
@@ -209,6 +234,9 @@ export class DemoShopSeeder {
             .returning()
             .get().id,
       );
+      for (const preset of HOLD_PRESETS) this.db.insert(holdPresets).values(preset).run();
+      for (const [title, defaultBookHours, skillLevel] of MENU)
+        this.db.insert(operations).values({ title, defaultBookHours, skillLevel }).run();
       const advisorId = office[2]!;
       this.seedPastWeek(now, techIds, bayIds, advisorId);
       this.seedToday(now, techIds, bayIds, advisorId);

@@ -107,8 +107,10 @@ export class TimecardsService {
       );
     if (ledger.breaks.some((b) => b.open && until.getTime() - b.from.getTime() > 2 * 3600_000))
       flags.push('On a break for more than 2 hours: a break-end may be missing');
-    if (ledger.anomalies.length)
-      flags.push(`${ledger.anomalies.length} punch(es) did not fit and were not counted`);
+    // Punches read from before the week only give context; their anomalies belong to an earlier card.
+    const weekIds = new Set(all.filter((p) => new Date(p.at) >= from).map((p) => p.id));
+    const anomalies = ledger.anomalies.filter((a) => weekIds.has(a.punchId));
+    if (anomalies.length) flags.push(`${anomalies.length} punch(es) did not fit and were not counted`);
 
     const punchIds = all.map((p) => p.id);
     return {
@@ -140,7 +142,7 @@ export class TimecardsService {
         ...totals(ledger.within(day.from, day.to)),
       })),
       totals: totals(ledger.within(from, to)),
-      anomalies: ledger.anomalies,
+      anomalies,
       flags,
       audit: this.auditOf(punchIds),
     };

@@ -42,7 +42,12 @@ export interface Timecard {
   punches: TimecardPunch[];
   shifts: TimecardInterval[];
   breaks: (TimecardInterval & { kind: 'meal' | 'rest' })[];
-  jobs: (TimecardInterval & { jobLineId: number; title: string; repairOrderNumber: string; seconds: number })[];
+  jobs: (TimecardInterval & {
+    jobLineId: number;
+    title: string;
+    repairOrderNumber: string;
+    seconds: number;
+  })[];
   days: TimecardDay[];
   totals: TimecardTotals;
   /** Punches that did not fit where they fell, with the reason. */

@@ -1,19 +1,44 @@
+import { lazy, Suspense, useEffect, useState } from 'react';
 import { Spinner } from '@fluentui/react-components';
+import { useQueryClient } from '@tanstack/react-query';
+import type { TimerDto } from '@baytime/shared';
 import { useSession } from '@/lib/session';
 import { useNow } from '@/hooks/use-now';
 import { clockTime } from '@/lib/format';
-import { useMyDay } from '@/features/my-day/api/get-my-day';
+import { NoteIcon, TimerIcon } from '@/components/icons';
+import { SheetLoading } from '@/components/sheet-loading';
+import { ScreenProblem } from '@/components/screen-problem';
+import { myDayRootKey, useMyDay } from '@/features/my-day/api/get-my-day';
 import { useShop } from '@/features/shop/api/get-shop';
 import { useLiveMyDay } from '@/features/my-day/hooks/use-live-my-day';
-import { projectDay, type PendingPunch } from '@/features/my-day/project-day';
+import { projectDay, type DayLine, type PendingPunch } from '@/features/my-day/project-day';
 import { statusText } from '@/features/my-day/status-text';
 import { StatusLine } from '@/features/my-day/components/status-line';
 import { ShiftActions } from '@/features/my-day/components/shift-actions';
-import { JobLineList } from '@/features/my-day/components/job-line-list';
+import { JobLineList, lineContext } from '@/features/my-day/components/job-line-list';
+import { HoldSheet } from '@/features/my-day/components/hold-sheet';
+import { DoneSheet } from '@/features/my-day/components/done-sheet';
+import { useTimers } from '@/features/timers/api/get-timers';
 import { useConfirmedPunches, useOutboxEntries } from '@/features/punches/hooks/use-outbox';
 import { usePunch } from '@/features/punches/hooks/use-punch';
-import { ScreenProblem } from '@/components/screen-problem';
 import '@/features/my-day/components/my-day.css';
+
+// Timers and findings load on first use; they are fetched ahead in a quiet moment so a tablet that
+// loses the Wi-Fi later can still open them.
+const loadTimerPanel = () => import('@/features/timers/components/timer-panel');
+const loadStartTimer = () => import('@/features/timers/components/start-timer-sheet');
+const loadReading = () => import('@/features/timers/components/reading-sheet');
+const loadFinding = () => import('@/features/findings/components/finding-sheet');
+const TimerPanel = lazy(() => loadTimerPanel().then((m) => ({ default: m.TimerPanel })));
+const StartTimerSheet = lazy(() => loadStartTimer().then((m) => ({ default: m.StartTimerSheet })));
+const ReadingSheet = lazy(() => loadReading().then((m) => ({ default: m.ReadingSheet })));
+const FindingSheet = lazy(() => loadFinding().then((m) => ({ default: m.FindingSheet })));
+
+const PRELOAD_AFTER_MS = 2_000;
+
+type OpenSheet =
+  | { kind: 'hold' | 'done' | 'timer' | 'finding'; line: DayLine }
+  | { kind: 'reading'; line: DayLine; timerId: number };
 
 export function MyDayRoute() {
   const current = useSession();
@@ -24,11 +49,22 @@ export function MyDayRoute() {
 function MyDayScreen({ technicianId }: { technicianId: number }) {
   const day = useMyDay(technicianId);
   const shop = useShop();
+  const timers = useTimers();
   const entries = useOutboxEntries();
   const confirmed = useConfirmedPunches();
   const punch = usePunch();
   const now = useNow(1000);
+  const queryClient = useQueryClient();
+  const [sheet, setSheet] = useState<OpenSheet | null>(null);
   useLiveMyDay(technicianId, day.data?.lines.map((l) => l.id) ?? []);
+
+  useEffect(() => {
+    const timer = setTimeout(() => {
+      for (const load of [loadTimerPanel, loadStartTimer, loadReading, loadFinding])
+        void load().catch(() => undefined);
+    }, PRELOAD_AFTER_MS);
+    return () => clearTimeout(timer);
+  }, []);
 
   if (day.isPending) {
     return (
@@ -49,6 +85,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
 
   const split = shop.data?.concurrentSplit;
   const timeZone = shop.data?.timeZone;
+  const units = shop.data?.units;
   const pending: PendingPunch[] = [
     ...confirmed
       .filter((c) => c.entry.technicianId === technicianId && c.confirmedAt > day.dataUpdatedAt)
@@ -58,6 +95,13 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const view = projectDay(day.data, pending, day.dataUpdatedAt, split);
   const text = statusText(view, now, timeZone, split);
   const open = view.lines.filter((l) => l.status !== 'done').length;
+
+  const timerByLine = new Map<number, TimerDto>();
+  for (const timer of timers.data ?? []) if (timer.endedAt === null) timerByLine.set(timer.jobLineId, timer);
+  const close = () => setSheet(null);
+  const refreshDay = () => void queryClient.invalidateQueries({ queryKey: myDayRootKey });
+  const readingTimer =
+    sheet?.kind === 'reading' ? (timers.data ?? []).find((t) => t.id === sheet.timerId) : undefined;
 
   return (
     <div className="bt-day">
@@ -81,9 +125,80 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
             split={split}
             maxConcurrentJobs={day.data.maxConcurrentJobs}
             onPunch={punch}
+            onRequest={(line, request) => setSheet({ kind: request, line })}
+            renderTools={(line) => (
+              <>
+                {!timerByLine.has(line.id) && (
+                  <button
+                    type="button"
+                    className="bt-tool bt-tool--timer"
+                    disabled={!units}
+                    onClick={() => setSheet({ kind: 'timer', line })}
+                  >
+                    <TimerIcon /> Start timer
+                  </button>
+                )}
+                <button
+                  type="button"
+                  className="bt-tool bt-tool--finding"
+                  onClick={() => setSheet({ kind: 'finding', line })}
+                >
+                  <NoteIcon /> Add finding
+                </button>
+              </>
+            )}
+            renderPanel={(line) => {
+              const timer = timerByLine.get(line.id);
+              if (!timer || !units) return null;
+              return (
+                <Suspense fallback={<div className="bt-timer-placeholder" />}>
+                  <TimerPanel
+                    timer={timer}
+                    fetchedAt={timers.dataUpdatedAt}
+                    units={units}
+                    timeZone={timeZone}
+                    onLogReading={() => setSheet({ kind: 'reading', line, timerId: timer.id })}
+                  />
+                </Suspense>
+              );
+            }}
           />
         </div>
       </section>
+
+      {sheet?.kind === 'hold' && (
+        <HoldSheet line={sheet.line} context={lineContext(sheet.line)} onClose={close} />
+      )}
+      {sheet?.kind === 'done' && (
+        <DoneSheet line={sheet.line} context={lineContext(sheet.line)} onClose={close} />
+      )}
+      <Suspense fallback={<SheetLoading />}>
+        {sheet?.kind === 'timer' && units && (
+          <StartTimerSheet
+            jobLineId={sheet.line.id}
+            context={lineContext(sheet.line)}
+            units={units}
+            onClose={close}
+          />
+        )}
+        {sheet?.kind === 'reading' && readingTimer && units && (
+          <ReadingSheet
+            timer={readingTimer}
+            context={lineContext(sheet.line)}
+            units={units}
+            timeZone={timeZone}
+            onClose={close}
+          />
+        )}
+        {sheet?.kind === 'finding' && (
+          <FindingSheet
+            jobLineId={sheet.line.id}
+            context={lineContext(sheet.line)}
+            onClose={close}
+            onSent={refreshDay}
+          />
+        )}
+      </Suspense>
     </div>
   );
 }

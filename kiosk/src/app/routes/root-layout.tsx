@@ -1,11 +1,14 @@
 import { useState } from 'react';
-import { Outlet, useNavigation } from 'react-router';
+import { NavLink, Outlet, useNavigation } from 'react-router';
+import { paths } from '@/config/paths';
 import { AppHeader } from '@/components/app-header';
+import { CalendarIcon, WrenchIcon } from '@/components/icons';
 import { useSession, session } from '@/lib/session';
 import { rememberedShop, useShop } from '@/features/shop/api/get-shop';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
 import { OutboxStatus } from '@/features/punches/components/outbox-status';
 import { PunchNotices } from '@/features/punches/components/punch-notices';
+import { TimerAlertBanner } from '@/features/timers/components/timer-alert-banner';
 import '../app.css';
 
 export function RootLayout() {
@@ -14,18 +17,32 @@ export function RootLayout() {
   const [remembered] = useState(rememberedShop);
   const connection = useConnectionState(current !== null);
   const navigation = useNavigation();
+  const timeZone = shop.data?.timeZone ?? remembered?.timeZone;
 
   return (
     <div className="bt-app">
       <AppHeader
         shopName={shop.data?.name ?? remembered?.name ?? 'Baytime'}
-        timeZone={shop.data?.timeZone ?? remembered?.timeZone}
+        timeZone={timeZone}
         connection={connection}
         technicianName={current?.user.name}
         onSignOut={() => session.clear('tapped')}
+        nav={
+          current && (
+            <nav className="bt-header__nav" aria-label="Kiosk pages">
+              <NavLink to={paths.myDay.getHref()} className="bt-header__tab">
+                <WrenchIcon /> My day
+              </NavLink>
+              <NavLink to={paths.myWeek.getHref()} className="bt-header__tab">
+                <CalendarIcon /> My week
+              </NavLink>
+            </nav>
+          )
+        }
       />
       <OutboxStatus />
       <PunchNotices technicianId={current?.user.id} />
+      <TimerAlertBanner units={shop.data?.units ?? remembered?.units} timeZone={timeZone} />
       <main className="bt-app__main" aria-busy={navigation.state === 'loading'}>
         <Outlet />
       </main>

@@ -2,7 +2,7 @@ import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react'
 import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
 import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
-import { Keypad } from './keypad';
+import { Keypad } from '@/components/keypad';
 import './sign-in-panel.css';
 
 type Step = 'badge' | 'pin';

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { JobLineStatus } from '@baytime/shared';
 import {
   CheckIcon,
@@ -9,6 +10,7 @@ import {
   WrenchIcon,
 } from '@/components/icons';
 import { bookHours, hoursMinutes } from '@/lib/format';
+import { HOLD_SHORT } from '../hold-words';
 import type { DayLine } from '../project-day';
 
 const STATUS_WORDS: Record<JobLineStatus, string> = {
@@ -24,6 +26,7 @@ export type ClockAction =
   | { kind: 'clock-on' }
   | { kind: 'clock-off' }
   | { kind: 'switch'; fromLabel: string }
+  | { kind: 'resume' }
   | { kind: 'none'; hint: string | null };
 
 export interface JobLineCardProps {
@@ -33,15 +36,42 @@ export interface JobLineCardProps {
   action: ClockAction;
   onClockOn: () => void;
   onClockOff: () => void;
+  onHold: () => void;
+  onResume: () => void;
+  onDone: () => void;
+  /** A resume on its way, or why it did not go. */
+  resuming?: boolean;
+  problem?: string | null;
+  /** Tools other features add to the row (start a timer, add a finding). */
+  tools?: ReactNode;
+  /** A running timer's panel. */
+  panel?: ReactNode;
 }
 
-export function JobLineCard({ line, mine, all, action, onClockOn, onClockOff }: JobLineCardProps) {
+export function JobLineCard({
+  line,
+  mine,
+  all,
+  action,
+  onClockOn,
+  onClockOff,
+  onHold,
+  onResume,
+  onDone,
+  resuming,
+  problem,
+  tools,
+  panel,
+}: JobLineCardProps) {
   const StatusIcon = STATUS_ICONS[line.status];
   const book = line.bookHours * 3600;
   const share = book > 0 ? all / book : 0;
   const over = share > 1;
   const statusWord =
-    line.status === 'held' && line.holdReason ? `Held · ${line.holdReason}` : STATUS_WORDS[line.status];
+    line.status === 'held' && line.holdReason
+      ? `Held · ${HOLD_SHORT[line.holdReason]}`
+      : STATUS_WORDS[line.status];
+  const open = line.status !== 'done';
 
   return (
     <article
@@ -108,9 +138,36 @@ export function JobLineCard({ line, mine, all, action, onClockOn, onClockOff }: 
             <StopIcon /> Clock off
           </button>
         )}
+        {action.kind === 'resume' && (
+          <button type="button" className="bt-action bt-action--held" onClick={onResume} disabled={resuming}>
+            <PlayIcon /> {resuming ? 'Resuming…' : 'Resume'}
+          </button>
+        )}
         {action.kind === 'none' && action.hint && <p className="bt-line__hint">{action.hint}</p>}
         {line.pending && <span className="bt-pending-tag">Sending…</span>}
       </div>
+
+      {panel && <div className="bt-line__panel">{panel}</div>}
+
+      {problem && (
+        <p className="bt-line__problem" role="alert">
+          {problem}
+        </p>
+      )}
+
+      {open && (
+        <div className="bt-line__tools" role="group" aria-label="More for this line">
+          {line.status !== 'held' && (
+            <button type="button" className="bt-tool bt-tool--hold" onClick={onHold}>
+              <PauseIcon /> Hold
+            </button>
+          )}
+          {tools}
+          <button type="button" className="bt-tool bt-tool--done" onClick={onDone}>
+            <CheckIcon /> Done
+          </button>
+        </div>
+      )}
     </article>
   );
 }

@@ -1,6 +1,12 @@
+import type { ReactNode } from 'react';
+import { commandProblem } from '@/lib/commands';
+import { useResumeLine } from '../api/resume-line';
 import { lineSeconds, type ConcurrentSplit, type DayLine, type DayView } from '../project-day';
 import { JobLineCard, type ClockAction } from './job-line-card';
 import type { ShiftPunch } from './shift-actions';
+
+/** What a tap on a card's tool asks for; the screen opens the matching sheet. */
+export type LineRequest = 'hold' | 'done';
 
 export interface JobLineListProps {
   view: DayView;
@@ -8,14 +14,21 @@ export interface JobLineListProps {
   split?: ConcurrentSplit;
   maxConcurrentJobs: number;
   onPunch: (punches: ShiftPunch[]) => void;
+  onRequest: (line: DayLine, request: LineRequest) => void;
+  renderTools?: (line: DayLine) => ReactNode;
+  renderPanel?: (line: DayLine) => ReactNode;
 }
 
-const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line ${line.lineNo}`;
+export const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line ${line.lineNo}`;
+
+/** "RO 4521 · line 1 · Bay 1 — Automatic transmission fluid and filter service" for a sheet's head. */
+export const lineContext = (line: DayLine) =>
+  `RO ${line.repairOrderNumber} · line ${line.lineNo}${line.bayName ? ` · ${line.bayName}` : ''} — ${line.title}`;
 
 function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {
   if (line.clockedOn) return { kind: 'clock-off' };
   if (line.status === 'done') return { kind: 'none', hint: null };
-  if (line.status === 'held') return { kind: 'none', hint: 'On hold: the foreman releases it' };
+  if (line.status === 'held') return { kind: 'resume' };
   if (view.shift.status === 'off') return { kind: 'none', hint: 'Start your shift to clock on' };
   if (view.shift.status === 'on-break') return { kind: 'none', hint: 'End your break to clock on' };
   const running = view.lines.filter((l) => l.clockedOn);
@@ -40,7 +53,18 @@ function sortLines(lines: readonly DayLine[]): DayLine[] {
   );
 }
 
-export function JobLineList({ view, now, split, maxConcurrentJobs, onPunch }: JobLineListProps) {
+export function JobLineList({
+  view,
+  now,
+  split,
+  maxConcurrentJobs,
+  onPunch,
+  onRequest,
+  renderTools,
+  renderPanel,
+}: JobLineListProps) {
+  const resume = useResumeLine();
+
   if (view.lines.length === 0) {
     return (
       <div className="bt-lines-empty">
@@ -55,6 +79,7 @@ export function JobLineList({ view, now, split, maxConcurrentJobs, onPunch }: Jo
         const { mine, all } = lineSeconds(view, line, now, split);
         const action = clockAction(view, line, maxConcurrentJobs);
         const running = view.lines.filter((l) => l.clockedOn);
+        const resumingThis = resume.variables === line.id;
         return (
           <li key={line.id}>
             <JobLineCard
@@ -77,6 +102,13 @@ export function JobLineList({ view, now, split, maxConcurrentJobs, onPunch }: Jo
               onClockOff={() =>
                 onPunch([{ kind: 'job-off', jobLineId: line.id, label: `Clock off ${lineLabel(line)}` }])
               }
+              onHold={() => onRequest(line, 'hold')}
+              onDone={() => onRequest(line, 'done')}
+              onResume={() => resume.mutate(line.id)}
+              resuming={resume.isPending && resumingThis}
+              problem={resume.isError && resumingThis ? commandProblem(resume.error) : null}
+              tools={renderTools?.(line)}
+              panel={renderPanel?.(line)}
             />
           </li>
         );

@@ -1,22 +1,27 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ShopSettings } from '@baytime/shared';
+import type { ShopSettings, UnitSystem } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 
 /**
- * The shop's name and time zone as last seen, so the keypad screen shows them (and the shop's
- * clock) before anyone signs in. Nothing secret: both are on the wall board too.
+ * The shop's name, time zone and units as last seen, so the keypad screen shows them (the shop's
+ * clock, a timer banner's temperature) before anyone signs in. Nothing secret: the wall board
+ * shows as much.
  */
 export const REMEMBERED_SHOP_KEY = 'baytime.kiosk.shop';
 
 export interface RememberedShop {
   name: string;
   timeZone: string;
+  units?: UnitSystem;
 }
 
 export async function getShop(): Promise<ShopSettings> {
   const shop = await api.get<ShopSettings>('/shop');
   try {
-    localStorage.setItem(REMEMBERED_SHOP_KEY, JSON.stringify({ name: shop.name, timeZone: shop.timeZone }));
+    localStorage.setItem(
+      REMEMBERED_SHOP_KEY,
+      JSON.stringify({ name: shop.name, timeZone: shop.timeZone, units: shop.units }),
+    );
   } catch {
     // only a nicety
   }
@@ -35,9 +40,9 @@ export function rememberedShop(): RememberedShop | null {
     const parsed = JSON.parse(
       localStorage.getItem(REMEMBERED_SHOP_KEY) ?? 'null',
     ) as Partial<RememberedShop> | null;
-    return typeof parsed?.name === 'string' && typeof parsed.timeZone === 'string'
-      ? { name: parsed.name, timeZone: parsed.timeZone }
-      : null;
+    if (typeof parsed?.name !== 'string' || typeof parsed.timeZone !== 'string') return null;
+    const units = parsed.units === 'us' || parsed.units === 'metric' ? parsed.units : undefined;
+    return { name: parsed.name, timeZone: parsed.timeZone, ...(units && { units }) };
   } catch {
     return null;
   }

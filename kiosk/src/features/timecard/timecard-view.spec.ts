@@ -1,0 +1,153 @@
+// @vitest-environment node
+import { describe, expect, it } from 'vitest';
+import type { Timecard, TimecardPunch } from '@baytime/shared';
+import { buildWeekView, localDay } from './timecard-view';
+
+const zero = {
+  attendanceSeconds: 0,
+  clockedSeconds: 0,
+  idleSeconds: 0,
+  mealBreakSeconds: 0,
+  restBreakSeconds: 0,
+};
+
+function punch(id: string, at: string, changes: Partial<TimecardPunch> = {}): TimecardPunch {
+  return {
+    id,
+    technicianId: 4,
+    kind: 'shift-in',
+    jobLineId: null,
+    breakKind: null,
+    at,
+    recordedAt: at,
+    recordedBy: 4,
+    supersedes: null,
+    reason: null,
+    supersededBy: null,
+    recordedByName: 'Rhea Mollander',
+    ...changes,
+  };
+}
+
+function card(changes: Partial<Timecard> = {}): Timecard {
+  const days = [
+    '2026-11-29',
+    '2026-11-30',
+    '2026-12-01',
+    '2026-12-02',
+    '2026-12-03',
+    '2026-12-04',
+    '2026-12-05',
+  ];
+  return {
+    technician: { id: 4, name: 'Rhea Mollander' },
+    week: '2026-W48',
+    from: '2026-11-29T06:00:00.000Z',
+    to: '2026-12-06T06:00:00.000Z',
+    timeZone: 'America/Chicago',
+    punches: [],
+    shifts: [],
+    breaks: [],
+    jobs: [],
+    days: days.map((day) => ({ day, ...zero })),
+    totals: zero,
+    anomalies: [],
+    flags: [],
+    audit: [],
+    ...changes,
+  };
+}
+
+describe(localDay.name, () => {
+  it('gives the calendar day in the shop’s zone, not UTC', () => {
+    expect(localDay('2026-12-01T03:30:00.000Z', 'America/Chicago')).toBe('2026-11-30');
+  });
+});
+
+describe(buildWeekView.name, () => {
+  it('shows the week’s range in the shop’s zone and names the empty days', () => {
+    const view = buildWeekView(card());
+    expect(view.range).toBe('Nov 29 – Dec 5');
+    expect(view.days).toEqual([]);
+    expect(view.emptyDays).toEqual(['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat']);
+  });
+
+  it('puts each punch on the day its shift began, even past midnight, in the shop’s time', () => {
+    const view = buildWeekView(
+      card({
+        punches: [
+          punch('a', '2026-11-30T22:00:00.000Z'),
+          punch('b', '2026-12-01T06:30:00.000Z', { kind: 'shift-out' }),
+        ],
+        shifts: [{ from: '2026-11-30T22:00:00.000Z', to: '2026-12-01T06:30:00.000Z', open: false }],
+        days: card().days.map((d) => (d.day === '2026-11-30' ? { ...d, attendanceSeconds: 30_600 } : d)),
+      }),
+    );
+    expect(view.days.map((d) => d.day)).toEqual(['2026-11-30']);
+    expect(view.days[0]!.label).toBe('Monday, Nov 30');
+    expect(view.days[0]!.punches.map((p) => [p.time, p.words])).toEqual([
+      ['4:00', 'Shift start'],
+      ['12:30', 'Shift end'],
+    ]);
+  });
+
+  it('names the line of a job punch and the kind of a break', () => {
+    const view = buildWeekView(
+      card({
+        punches: [
+          punch('a', '2026-11-30T14:00:00.000Z', { kind: 'job-on', jobLineId: 97 }),
+          punch('b', '2026-11-30T18:00:00.000Z', { kind: 'break-start', breakKind: 'meal' }),
+        ],
+        jobs: [
+          {
+            from: '2026-11-30T14:00:00.000Z',
+            to: '2026-11-30T16:00:00.000Z',
+            open: false,
+            jobLineId: 97,
+            title: 'Battery and charging system test',
+            repairOrderNumber: '4497',
+            seconds: 7200,
+          },
+        ],
+      }),
+    );
+    expect(view.days[0]!.punches.map((p) => [p.words, p.detail])).toEqual([
+      ['Clock on', 'RO 4497 · Battery and charging system test'],
+      ['Meal break start', null],
+    ]);
+  });
+
+  it('strikes a superseded punch with the correction’s reason and says who corrected it', () => {
+    const view = buildWeekView(
+      card({
+        punches: [
+          punch('old', '2026-11-30T22:45:00.000Z', { kind: 'shift-out', supersededBy: 'new' }),
+          punch('new', '2026-11-30T22:30:00.000Z', {
+            kind: 'shift-out',
+            supersedes: 'old',
+            reason: 'Left at 4:30, tapped late',
+            recordedBy: 2,
+            recordedByName: 'Sam Ferreira',
+          }),
+        ],
+      }),
+    );
+    const [corrected, original] = view.days[0]!.punches;
+    expect(original).toMatchObject({ id: 'old', supersededBecause: 'Left at 4:30, tapped late', note: null });
+    expect(corrected).toMatchObject({
+      id: 'new',
+      supersededBecause: null,
+      note: { kind: 'correction', by: 'Sam Ferreira', reason: 'Left at 4:30, tapped late' },
+    });
+  });
+
+  it('marks a punch that was not counted, with the reason', () => {
+    const view = buildWeekView(
+      card({
+        punches: [punch('x', '2026-12-02T15:00:00.000Z', { kind: 'job-on', jobLineId: 3 })],
+        anomalies: [{ punchId: 'x', reason: 'You are not on shift' }],
+      }),
+    );
+    expect(view.days[0]!.punches[0]!.notCounted).toBe('You are not on shift');
+  });
+});

@@ -1,0 +1,357 @@
+import { useState } from 'react';
+import { temperatureUnit, type HoldPresetDto, type TimerKind, type UnitSystem } from '@baytime/shared';
+import { AlertIcon, HourglassIcon, SnowIcon, ThermometerIcon } from '@/components/icons';
+import { Keypad } from '@/components/keypad';
+import { Sheet } from '@/components/sheet';
+import { commandProblem } from '@/lib/commands';
+import { durationWords } from '@/lib/format';
+import {
+  MINUTES_ENTRY,
+  TEMPERATURE_ENTRY,
+  checkTimerTemperatures,
+  editEntry,
+  readMinutes,
+  readTemperature,
+  type EntryKey,
+  type EntryRules,
+} from '../temperature-entry';
+import { useHoldPresets } from '../api/get-hold-presets';
+import { useStartTimer } from '../api/start-timer';
+import { NumberField, useEntryKeys } from './number-field';
+import './timers.css';
+
+type TemperatureKind = Exclude<TimerKind, 'hold'>;
+type Step =
+  | { name: 'kind' }
+  | { name: 'caution'; kind: TemperatureKind }
+  | { name: 'temperatures'; kind: TemperatureKind }
+  | { name: 'hold' };
+
+export interface StartTimerSheetProps {
+  jobLineId: number;
+  context: string;
+  units: UnitSystem;
+  onClose: () => void;
+}
+
+const KIND_WORDS: Record<TemperatureKind, string> = { 'warm-up': 'Warm-up', 'cool-down': 'Cool-down' };
+
+/** Start a timer on a line: pick the kind, confirm the safety checks, enter the numbers. */
+export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTimerSheetProps) {
+  const [step, setStep] = useState<Step>({ name: 'kind' });
+  const back = () =>
+    setStep(step.name === 'temperatures' ? { name: 'caution', kind: step.kind } : { name: 'kind' });
+
+  if (step.name === 'kind')
+    return (
+      <Sheet title="Start a timer" context={context} onClose={onClose}>
+        <ul className="bt-choices">
+          <li>
+            <button
+              type="button"
+              className="bt-choice"
+              onClick={() => setStep({ name: 'caution', kind: 'warm-up' })}
+            >
+              <ThermometerIcon />
+              <span className="bt-choice__words">
+                <strong>Warm-up to a temperature</strong>
+                <small>Engine running until a fluid reaches the temperature you set</small>
+              </span>
+            </button>
+          </li>
+          <li>
+            <button
+              type="button"
+              className="bt-choice"
+              onClick={() => setStep({ name: 'caution', kind: 'cool-down' })}
+            >
+              <SnowIcon />
+              <span className="bt-choice__words">
+                <strong>Cool-down to a temperature</strong>
+                <small>Wait until a part or fluid has cooled to the temperature you set</small>
+              </span>
+            </button>
+          </li>
+          <li>
+            <button type="button" className="bt-choice" onClick={() => setStep({ name: 'hold' })}>
+              <HourglassIcon />
+              <span className="bt-choice__words">
+                <strong>Fixed hold</strong>
+                <small>A set time: sealant cure, vacuum hold, soak</small>
+              </span>
+            </button>
+          </li>
+        </ul>
+      </Sheet>
+    );
+
+  if (step.name === 'caution')
+    return (
+      <Sheet
+        title={`${KIND_WORDS[step.kind]}: safety first`}
+        context={context}
+        onClose={onClose}
+        onBack={back}
+      >
+        <Caution onAcknowledge={() => setStep({ name: 'temperatures', kind: step.kind })} />
+      </Sheet>
+    );
+
+  if (step.name === 'temperatures')
+    return (
+      <Sheet
+        title={`${KIND_WORDS[step.kind]} to a temperature`}
+        context={context}
+        onClose={onClose}
+        onBack={back}
+        wide
+      >
+        <TemperatureStep jobLineId={jobLineId} kind={step.kind} units={units} onStarted={onClose} />
+      </Sheet>
+    );
+
+  return (
+    <Sheet title="Fixed hold" context={context} onClose={onClose} onBack={back} wide>
+      <HoldStep jobLineId={jobLineId} onStarted={onClose} />
+    </Sheet>
+  );
+}
+
+function Caution({ onAcknowledge }: { onAcknowledge: () => void }) {
+  return (
+    <div className="bt-caution">
+      <div className="bt-caution__box" role="note">
+        <p className="bt-caution__title">
+          <AlertIcon /> The engine runs in the bay. Before you start:
+        </p>
+        <ul className="bt-caution__list">
+          <li>Exhaust extraction connected to the tailpipe</li>
+          <li>Parking brake set</li>
+          <li>Wheels chocked</li>
+          <li>Lift locks engaged if the vehicle is raised</li>
+          <li>Keep clear of hot fluid and moving parts: fan, belts, exhaust</li>
+        </ul>
+      </div>
+      <p className="bt-caution__spec">
+        Use the temperature from the vehicle maker’s procedure: Baytime does not suggest one.
+      </p>
+      <button type="button" className="bt-action bt-action--go bt-entry__go" onClick={onAcknowledge}>
+        All checked: go on
+      </button>
+    </div>
+  );
+}
+
+/** Keys on the keypad, applied to whichever read-out is active. */
+function keypadFor(apply: (key: EntryKey) => void, rules: EntryRules, disabled: boolean) {
+  return (
+    <Keypad
+      onDigit={(d) => apply(d as EntryKey)}
+      onBackspace={() => apply('back')}
+      onClear={() => apply('clear')}
+      onMinus={rules.minus ? () => apply('-') : undefined}
+      onPoint={rules.decimals > 0 ? () => apply('.') : undefined}
+      disabled={disabled}
+      label="Number keypad"
+    />
+  );
+}
+
+function TemperatureStep({
+  jobLineId,
+  kind,
+  units,
+  onStarted,
+}: {
+  jobLineId: number;
+  kind: TemperatureKind;
+  units: UnitSystem;
+  onStarted: () => void;
+}) {
+  const [active, setActive] = useState<'target' | 'ambient'>('target');
+  const [target, setTarget] = useState('');
+  const [ambient, setAmbient] = useState('');
+  const [problem, setProblem] = useState<{ field: 'target' | 'ambient' | null; message: string } | null>(
+    null,
+  );
+  const start = useStartTimer();
+  const unit = temperatureUnit(units);
+
+  const apply = (key: EntryKey) => {
+    setProblem(null);
+    start.reset();
+    (active === 'target' ? setTarget : setAmbient)((text) => editEntry(text, key, TEMPERATURE_ENTRY));
+  };
+
+  const submit = () => {
+    const targetRead = readTemperature(target, units, 'the target temperature');
+    if (!targetRead.ok) {
+      setActive('target');
+      return setProblem({ field: 'target', message: targetRead.message });
+    }
+    let ambientC: number | null = null;
+    if (ambient !== '') {
+      const ambientRead = readTemperature(ambient, units);
+      if (!ambientRead.ok) {
+        setActive('ambient');
+        return setProblem({ field: 'ambient', message: ambientRead.message });
+      }
+      ambientC = ambientRead.value;
+    }
+    const mismatch = checkTimerTemperatures(kind, targetRead.value, ambientC);
+    if (mismatch) return setProblem({ field: 'ambient', message: mismatch });
+    start.mutate(
+      {
+        jobLineId,
+        kind,
+        targetC: targetRead.value,
+        ...(ambientC !== null && { ambientC }),
+        cautionAcknowledged: true,
+      },
+      { onSuccess: onStarted },
+    );
+  };
+  useEntryKeys(apply, submit, !start.isPending);
+
+  return (
+    <div className="bt-entry">
+      <div className="bt-entry__fields">
+        <NumberField
+          label={`Target (${unit}), from the maker’s procedure`}
+          text={target}
+          unit={unit}
+          active={active === 'target'}
+          invalid={problem?.field === 'target'}
+          onSelect={() => setActive('target')}
+        />
+        <NumberField
+          label={kind === 'warm-up' ? 'Where it levels off (optional)' : 'Room temperature (optional)'}
+          hint={
+            kind === 'warm-up'
+              ? 'If you know where it settles with the engine running. Leave empty and Baytime works it out from your readings.'
+              : 'If you know the shop’s air temperature. Leave empty and Baytime works it out from your readings.'
+          }
+          text={ambient}
+          unit={unit}
+          active={active === 'ambient'}
+          invalid={problem?.field === 'ambient'}
+          placeholder="Tap here to enter"
+          onSelect={() => setActive('ambient')}
+        />
+        <p className="bt-entry__problem" role="alert">
+          {problem?.message ?? (start.error ? commandProblem(start.error) : '')}
+        </p>
+        <button
+          type="button"
+          className="bt-action bt-action--go bt-entry__go"
+          onClick={submit}
+          disabled={start.isPending}
+        >
+          {start.isPending ? 'Starting…' : `Start ${kind}`}
+        </button>
+      </div>
+      {keypadFor(apply, TEMPERATURE_ENTRY, start.isPending)}
+    </div>
+  );
+}
+
+function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () => void }) {
+  const presets = useHoldPresets();
+  const [preset, setPreset] = useState<HoldPresetDto | null>(null);
+  const [minutes, setMinutes] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const start = useStartTimer();
+
+  const apply = (key: EntryKey) => {
+    setProblem(null);
+    start.reset();
+    setPreset(null);
+    setMinutes((text) => editEntry(text, key, MINUTES_ENTRY));
+  };
+
+  const submit = () => {
+    let durationSeconds: number;
+    let label: string | undefined;
+    if (preset) {
+      durationSeconds = preset.durationSeconds;
+      label = preset.name;
+    } else {
+      const read = readMinutes(minutes);
+      if (!read.ok)
+        return setProblem(
+          presets.data?.length ? `Pick a hold, or ${lowerFirst(read.message)}` : read.message,
+        );
+      durationSeconds = read.value;
+    }
+    start.mutate(
+      { jobLineId, kind: 'hold', durationSeconds, ...(label && { label }) },
+      { onSuccess: onStarted },
+    );
+  };
+  useEntryKeys(apply, submit, !start.isPending);
+
+  const list = presets.data ?? [];
+  return (
+    <div className="bt-entry">
+      <div className="bt-entry__fields">
+        {list.length > 0 && (
+          <>
+            <p className="bt-entry__section-title">The shop’s holds</p>
+            <ul className="bt-presets">
+              {list.map((p) => (
+                <li key={p.id}>
+                  <button
+                    type="button"
+                    className={`bt-choice${preset?.id === p.id ? ' is-selected' : ''}`}
+                    onClick={() => {
+                      setPreset(p);
+                      setMinutes('');
+                      setProblem(null);
+                    }}
+                    aria-pressed={preset?.id === p.id}
+                  >
+                    <span className="bt-choice__words">
+                      <strong>{p.name}</strong>
+                      <small>{durationWords(p.durationSeconds)}</small>
+                    </span>
+                  </button>
+                </li>
+              ))}
+            </ul>
+            <p className="bt-entry__section-title">Or your own time</p>
+          </>
+        )}
+        {presets.isError && (
+          <p className="bt-entry__facts">The shop’s saved holds could not be loaded: type the minutes.</p>
+        )}
+        <NumberField
+          label="Minutes"
+          text={minutes}
+          unit="min"
+          active={preset === null}
+          invalid={problem !== null}
+          placeholder={list.length > 0 ? 'Or type minutes' : 'Type minutes'}
+          onSelect={() => setPreset(null)}
+        />
+        <p className="bt-entry__problem" role="alert">
+          {problem ?? (start.error ? commandProblem(start.error) : '')}
+        </p>
+        <button
+          type="button"
+          className="bt-action bt-action--go bt-entry__go"
+          onClick={submit}
+          disabled={start.isPending}
+        >
+          {start.isPending
+            ? 'Starting…'
+            : preset
+              ? `Start ${preset.name} · ${durationWords(preset.durationSeconds)}`
+              : 'Start hold'}
+        </button>
+      </div>
+      {keypadFor(apply, MINUTES_ENTRY, start.isPending)}
+    </div>
+  );
+}
+
+const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1);

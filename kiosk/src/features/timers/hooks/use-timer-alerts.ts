@@ -1,0 +1,104 @@
+import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { audioState, playChime } from '@/lib/chime';
+import { onLive } from '@/lib/socket';
+import { useWatchToken } from '@/hooks/use-watch-token';
+import {
+  decideAlerts,
+  liveAlerts,
+  parseAnnounced,
+  serializeAnnounced,
+  type AlertMemory,
+  type TimerAlert,
+} from '../alerts';
+import { finishedAt } from '../timer-status';
+import { timersQueryOptions, useTimers } from '../api/get-timers';
+import { useBays } from '../api/get-bays';
+
+export const ANNOUNCED_KEY = 'baytime.kiosk.timer-alerts';
+
+function loadAnnounced() {
+  try {
+    return parseAnnounced(localStorage.getItem(ANNOUNCED_KEY));
+  } catch {
+    return new Map<number, number>();
+  }
+}
+
+function saveAnnounced(memory: AlertMemory) {
+  try {
+    localStorage.setItem(ANNOUNCED_KEY, serializeAnnounced(memory.announced));
+  } catch {
+    // only a nicety: at worst a reload chimes once more
+  }
+}
+
+export interface TimerAlerts {
+  alerts: TimerAlert[];
+  dismiss: (timerId: number) => void;
+  bayName: (bayId: number | null) => string | null;
+  /** Timers are running but the tablet has had no tap yet, so a chime would not be heard. */
+  needsTapForSound: boolean;
+}
+
+/**
+ * Watches every running timer in the shop, signed in or not, and chimes once when one reaches its
+ * target or a hold runs out. Lives as long as the page, under the routes.
+ */
+export function useTimerAlerts(): TimerAlerts {
+  const token = useWatchToken();
+  const timers = useTimers(token !== null);
+  const bays = useBays(token !== null);
+  const queryClient = useQueryClient();
+  const memory = useRef<AlertMemory | null>(null);
+  const [alerts, setAlerts] = useState<TimerAlert[]>([]);
+  const audioReady = useSyncExternalStore(audioState.subscribe, audioState.ready);
+
+  useEffect(() => {
+    const { queryKey } = timersQueryOptions();
+    const refresh = () => void queryClient.invalidateQueries({ queryKey });
+    const offs = [onLive('timer.updated', refresh), onLive('board.snapshot', refresh)];
+    return () => offs.forEach((off) => off());
+  }, [queryClient]);
+
+  const data = timers.data;
+  const fetchedAt = timers.dataUpdatedAt;
+  useEffect(() => {
+    if (!data) return;
+    memory.current ??= { seenRunning: new Set(), announced: loadAnnounced() };
+    const tick = () => {
+      const decision = decideAlerts(data, memory.current!, { now: Date.now(), fetchedAt });
+      const changed = decision.memory.announced.size !== memory.current!.announced.size;
+      memory.current = decision.memory;
+      if (changed) saveAnnounced(decision.memory);
+      if (decision.alerts.length === 0) return;
+      playChime();
+      setAlerts((shown) => [...shown, ...decision.alerts]);
+    };
+    tick();
+    // Fixed holds end on the tablet's count too, so the chime comes on time even on a slow link.
+    const hasHold = data.some(
+      (t) => t.kind === 'hold' && finishedAt(t, { now: Date.now(), fetchedAt }) === null,
+    );
+    if (!hasHold) return;
+    const timer = setInterval(tick, 1000);
+    return () => clearInterval(timer);
+  }, [data, fetchedAt]);
+
+  const dismiss = useCallback(
+    (timerId: number) => setAlerts((shown) => shown.filter((a) => a.timerId !== timerId)),
+    [],
+  );
+  const bayList = bays.data;
+  const bayName = useCallback(
+    (bayId: number | null) => (bayId === null ? null : (bayList?.find((b) => b.id === bayId)?.name ?? null)),
+    [bayList],
+  );
+
+  return {
+    alerts: data ? liveAlerts(alerts, data) : alerts,
+    dismiss,
+    bayName,
+    needsTapForSound: !audioReady && (data?.length ?? 0) > 0,
+  };
+}
