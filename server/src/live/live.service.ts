@@ -22,7 +22,11 @@ export interface LiveMessage {
  */
 @Injectable()
 export class LiveService {
-  private lastSeq = 0;
+  /**
+   * Starts from the boot time in ms, so `seq` keeps rising across a restart and a screen that was
+   * connected before never mistakes new messages for old ones.
+   */
+  private lastSeq = Date.now();
   readonly messages$ = new Subject<LiveMessage>();
   /** Fires once per tick however many changes were made in it. */
   readonly floorChanged$ = new Subject<void>();
