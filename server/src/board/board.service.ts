@@ -41,13 +41,16 @@ function leadLine(lines: LineRow[], clockedOn: Set<number>): LineRow | undefined
 export class BoardService implements OnModuleInit, OnModuleDestroy {
   private published: BoardSnapshot | null = null;
   private subscription: Subscription | null = null;
+  private readonly queries: ReturnType<typeof prepareFloorQueries>;
 
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
     private readonly labour: LabourService,
     private readonly live: LiveService,
-  ) {}
+  ) {
+    this.queries = prepareFloorQueries(db);
+  }
 
   onModuleInit(): void {
     this.subscription = this.live.floorChanged$.subscribe(() => this.publishChanges());
@@ -79,13 +82,12 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
 
   snapshot(seq: number, now = new Date()): BoardSnapshot {
     const settings = this.shop.settings();
-    const openLines = this.openLines();
-    const technicians = this.db
-      .select()
-      .from(users)
-      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
-      .orderBy(asc(users.name))
-      .all();
+    const openLines = this.queries.openLines.all().map(({ line, repairOrderNumber, vehicle }) => ({
+      ...line,
+      repairOrderNumber,
+      vehicle: describeVehicle(vehicle),
+    }));
+    const technicians = this.queries.technicians.all();
     const ledgers = this.labour.floorLedgers(
       technicians.map((tech) => tech.id),
       openLines.map((line) => line.id),
@@ -101,7 +103,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       ledgers,
       openLines.map((line) => line.id),
     );
-    const runningTimers = this.db.select().from(timers).where(isNull(timers.endedAt)).all();
+    const runningTimers = this.queries.runningTimers.all();
     const readings = runningTimers.length
       ? this.db
           .select()
@@ -117,53 +119,53 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       : [];
     const linesById = new Map(openLines.map((line) => [line.id, line]));
 
-    const boardBays: BoardBay[] = this.db
-      .select()
-      .from(bays)
-      .where(eq(bays.active, true))
-      .orderBy(asc(bays.position), asc(bays.id))
-      .all()
-      .map((bay) => {
-        const inBay = openLines.filter((line) => line.bayId === bay.id);
-        const line = leadLine(inBay, new Set(clockedOn.keys()));
-        const timer = runningTimers.find((t) => t.bayId === bay.id);
-        const onLine = line ? (clockedOn.get(line.id) ?? []) : [];
-        const assigned = line?.technicianId ? [line.technicianId] : [];
-        const techIds = [...new Set([...onLine, ...assigned])];
-        const state: BayState = timer
-          ? 'timer'
-          : inBay.some((l) => clockedOn.has(l.id))
-            ? 'working'
-            : line?.status === 'held'
-              ? 'held'
-              : line && bay.phase === 'free'
-                ? 'staged'
-                : bay.phase;
-        const ro = line
-          ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
-          : this.repairOrderOf(bay.repairOrderId);
-        return {
-          id: bay.id,
-          name: bay.name,
-          state,
-          holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
-          heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
-          vehicle: ro?.vehicle ?? null,
-          repairOrder: ro ? { id: ro.id, number: ro.number } : null,
-          jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
-          technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
-          clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
-          bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
-          clockRunning: line ? clockedOn.has(line.id) : false,
-          timer: timer
-            ? this.boardTimer(
-                timer,
-                readings.filter((r) => r.timerId === timer.id),
-                now,
-              )
-            : null,
-        };
-      });
+    const boardBays: BoardBay[] = this.queries.bays.all().map(({ bay, parkedRepairOrder, parkedVehicle }) => {
+      const inBay = openLines.filter((line) => line.bayId === bay.id);
+      const line = leadLine(inBay, new Set(clockedOn.keys()));
+      const timer = runningTimers.find((t) => t.bayId === bay.id);
+      const onLine = line ? (clockedOn.get(line.id) ?? []) : [];
+      const assigned = line?.technicianId ? [line.technicianId] : [];
+      const techIds = [...new Set([...onLine, ...assigned])];
+      const state: BayState = timer
+        ? 'timer'
+        : inBay.some((l) => clockedOn.has(l.id))
+          ? 'working'
+          : line?.status === 'held'
+            ? 'held'
+            : line && bay.phase === 'free'
+              ? 'staged'
+              : bay.phase;
+      const ro = line
+        ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
+        : parkedRepairOrder && parkedVehicle
+          ? {
+              id: parkedRepairOrder.id,
+              number: parkedRepairOrder.number,
+              vehicle: describeVehicle(parkedVehicle),
+            }
+          : null;
+      return {
+        id: bay.id,
+        name: bay.name,
+        state,
+        holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
+        heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
+        vehicle: ro?.vehicle ?? null,
+        repairOrder: ro ? { id: ro.id, number: ro.number } : null,
+        jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
+        technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
+        clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
+        bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
+        clockRunning: line ? clockedOn.has(line.id) : false,
+        timer: timer
+          ? this.boardTimer(
+              timer,
+              readings.filter((r) => r.timerId === timer.id),
+              now,
+            )
+          : null,
+      };
+    });
 
     const bayNames = new Map(boardBays.map((bay) => [bay.id, bay.name]));
     const people: BoardPerson[] = technicians.flatMap((tech) => {
@@ -205,32 +207,6 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       people,
       queue,
     };
-  }
-
-  private openLines(): LineRow[] {
-    return this.db
-      .select({ line: jobLines, repairOrderNumber: repairOrders.number, vehicle: vehicles })
-      .from(jobLines)
-      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(ne(jobLines.status, 'done'))
-      .all()
-      .map(({ line, repairOrderNumber, vehicle }) => ({
-        ...line,
-        repairOrderNumber,
-        vehicle: describeVehicle(vehicle),
-      }));
-  }
-
-  private repairOrderOf(id: number | null): { id: number; number: string; vehicle: string } | null {
-    if (id === null) return null;
-    const row = this.db
-      .select({ id: repairOrders.id, number: repairOrders.number, vehicle: vehicles })
-      .from(repairOrders)
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(inArray(repairOrders.id, [id]))
-      .get();
-    return row ? { id: row.id, number: row.number, vehicle: describeVehicle(row.vehicle) } : null;
   }
 
   private boardTimer(
@@ -276,6 +252,35 @@ function sameBay(a: BoardBay, b: BoardBay): boolean {
     isDeepStrictEqual({ ...a, clockedSeconds: 0 }, { ...b, clockedSeconds: 0 }) &&
     (a.clockRunning || drift < 1)
   );
+}
+
+/** The board reads the same shapes many times a second: statements prepared once. */
+function prepareFloorQueries(db: Db) {
+  return {
+    technicians: db
+      .select()
+      .from(users)
+      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
+      .orderBy(asc(users.name))
+      .prepare(),
+    openLines: db
+      .select({ line: jobLines, repairOrderNumber: repairOrders.number, vehicle: vehicles })
+      .from(jobLines)
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .where(ne(jobLines.status, 'done'))
+      .prepare(),
+    /** Each bay with the repair order parked in it (check, ready) when no open line says more. */
+    bays: db
+      .select({ bay: bays, parkedRepairOrder: repairOrders, parkedVehicle: vehicles })
+      .from(bays)
+      .leftJoin(repairOrders, eq(repairOrders.id, bays.repairOrderId))
+      .leftJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .where(eq(bays.active, true))
+      .orderBy(asc(bays.position), asc(bays.id))
+      .prepare(),
+    runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
+  };
 }
 
 export function describeVehicle(vehicle: { year: number; make: string; model: string }): string {

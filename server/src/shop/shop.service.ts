@@ -27,6 +27,9 @@ export const DEFAULT_SHOP: ShopSettings = {
 
 @Injectable()
 export class ShopService {
+  /** Read on every request and every board refresh; only this service writes the row. */
+  private cached: ShopSettings | null = null;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly audit: AuditService,
@@ -34,14 +37,17 @@ export class ShopService {
   ) {}
 
   settings(): ShopSettings {
+    if (this.cached) return this.cached;
     const row = this.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
     if (!row) return DEFAULT_SHOP;
     const { id: _id, updatedAt: _updatedAt, ...settings } = row;
+    this.cached = settings;
     return settings;
   }
 
   /** Creates the settings row on first start; keeps an existing one as it is. */
   ensure(initial: Partial<ShopSettings> = {}): void {
+    this.cached = null;
     this.db
       .insert(shopSettings)
       .values({ ...DEFAULT_SHOP, ...initial, id: 1, updatedAt: new Date() })
@@ -57,6 +63,7 @@ export class ShopService {
       .set({ ...body, updatedAt: new Date() })
       .where(eq(shopSettings.id, 1))
       .run();
+    this.cached = null;
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'shop', entityId: 1, detail: body });
     this.live.changed();
     return this.settings();
