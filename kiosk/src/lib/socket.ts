@@ -1,11 +1,6 @@
 import { useSyncExternalStore } from 'react';
 import type { Socket } from 'socket.io-client';
-import {
-  followsDirectly,
-  type BoardSnapshot,
-  type ClientToServerEvents,
-  type ServerToClientEvents,
-} from '@baytime/shared';
+import type { ClientToServerEvents, ServerToClientEvents } from '@baytime/shared';
 
 export type KioskSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 export type LinkState = 'connecting' | 'online' | 'offline';
@@ -28,37 +23,8 @@ function setState(next: LinkState) {
   for (const listener of stateListeners) listener();
 }
 
-/** The shop-wide `seq` of the last live message; a jump means one was missed. */
-let lastSeq: number | null = null;
-
-function deliverSnapshot(snapshot: BoardSnapshot) {
-  lastSeq = snapshot.seq;
-  for (const handler of handlers.get('board.snapshot') ?? [])
-    (handler as (s: BoardSnapshot) => void)(snapshot);
-}
-
-/** A missed message: ask for the whole floor again, which every screen refreshes from. */
-function resync(s: KioskSocket) {
-  s.timeout(5_000).emit('board.snapshot', (error: Error | null, snapshot?: BoardSnapshot) => {
-    if (!error && snapshot && socket === s) deliverSnapshot(snapshot);
-  });
-}
-
 function attach(s: KioskSocket) {
   s.on('connect', () => setState('online'));
-  s.on('board.snapshot', (snapshot) => {
-    lastSeq = snapshot.seq;
-  });
-  s.onAny((event: string, payload?: { seq?: unknown }) => {
-    if (event === 'board.snapshot' || typeof payload?.seq !== 'number') return;
-    const seq = payload.seq;
-    if (lastSeq !== null && seq > lastSeq && !followsDirectly(lastSeq, { seq })) {
-      lastSeq = seq;
-      resync(s);
-      return;
-    }
-    lastSeq = Math.max(lastSeq ?? seq, seq);
-  });
   s.on('disconnect', (reason) => {
     setState('offline');
     // The client reconnects by itself except after a server-side disconnect, e.g. a restart.
@@ -105,7 +71,6 @@ export const live = {
     socket?.disconnect();
     socket = null;
     socketToken = null;
-    lastSeq = null;
     setState('offline');
   },
   state: (): LinkState => state,
