@@ -53,6 +53,8 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
   }
 
   onModuleInit(): void {
+    // What the screens were last told; every change is diffed against it, the first one included.
+    this.published = this.snapshot(this.live.seq);
     this.subscription = this.live.floorChanged$.subscribe(() => this.publishChanges());
   }
 
