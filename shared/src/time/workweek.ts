@@ -43,9 +43,30 @@ function isoWeekMonday(label: string, timeZone: string): TZDate {
   return addWeeks(startOfISOWeek(new TZDate(parsed.year, 0, 4, timeZone)), parsed.week - 1);
 }
 
-export function addIsoWeeks(label: string, weeks: number): string {
-  return isoWeekOf(addWeeks(isoWeekMonday(label, 'UTC'), weeks), 'UTC');
+/**
+ * Remembers answers of pure calendar functions: time-zone arithmetic costs about a millisecond a
+ * call, and reports ask the same weeks again and again.
+ */
+function memoize<A extends unknown[], R>(
+  fn: (...args: A) => R,
+  key: (...args: A) => string,
+): (...args: A) => R {
+  const cache = new Map<string, R>();
+  return (...args: A) => {
+    const k = key(...args);
+    const hit = cache.get(k);
+    if (hit !== undefined) return hit;
+    if (cache.size > 5000) cache.clear();
+    const value = fn(...args);
+    cache.set(k, value);
+    return value;
+  };
 }
+
+export const addIsoWeeks: (label: string, weeks: number) => string = memoize(
+  (label, weeks) => isoWeekOf(addWeeks(isoWeekMonday(label, 'UTC'), weeks), 'UTC'),
+  (label, weeks) => `${label}|${weeks}`,
+);
 
 function workweekStart(monday: TZDate, settings: WorkweekSettings, extraDays = 0): Date {
   const offset = (settings.workweekStartDay + 6) % 7; // days after Monday
@@ -66,9 +87,18 @@ function workweekStart(monday: TZDate, settings: WorkweekSettings, extraDays = 0
  * 29 CFR 778.105: a fixed recurring period starting on any day and hour; it starts at the same local
  * wall-clock time each week, so it lasts 167 or 169 h across a DST change.
  */
+const cachedWorkweekBounds: (label: string, settings: WorkweekSettings) => TimeRange = memoize(
+  (label, settings) => {
+    const monday = isoWeekMonday(label, settings.timeZone);
+    return { from: workweekStart(monday, settings), to: workweekStart(monday, settings, 7) };
+  },
+  (label, { timeZone, workweekStartDay, workweekStartHour }) =>
+    `${label}|${timeZone}|${workweekStartDay}|${workweekStartHour}`,
+);
+
 export function workweekBounds(label: string, settings: WorkweekSettings): TimeRange {
-  const monday = isoWeekMonday(label, settings.timeZone);
-  return { from: workweekStart(monday, settings), to: workweekStart(monday, settings, 7) };
+  const { from, to } = cachedWorkweekBounds(label, settings);
+  return { from: new Date(from), to: new Date(to) };
 }
 
 /** Label of the shop workweek that contains an instant. */
