@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
@@ -6,6 +7,11 @@ export default defineConfig({
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
       { extends: true, test: { name: 'kiosk', include: ['kiosk/src/**/*.spec.ts'] } },
+      {
+        extends: true,
+        resolve: { alias: { '@': fileURLToPath(new URL('./board/src', import.meta.url)) } },
+        test: { name: 'board', include: ['board/src/**/*.spec.ts'] },
+      },
       {
         extends: true,
         test: { name: 'server', include: ['server/src/**/*.spec.ts'], pool: 'forks', testTimeout: 20_000 },

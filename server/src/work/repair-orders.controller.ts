@@ -5,11 +5,12 @@ import {
   REPAIR_ORDER_STATUSES,
   type CreateRepairOrderBody,
   type RepairOrderStatus,
+  type RepairOrderSummary,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
-import { RepairOrdersService, type RepairOrderSummary } from './repair-orders.service.js';
+import { RepairOrdersService } from './repair-orders.service.js';
 
 @Roles('owner', 'foreman', 'advisor')
 @Controller('repair-orders')

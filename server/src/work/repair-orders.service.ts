@@ -1,28 +1,15 @@
 import { BadRequestException, Inject, Injectable } from '@nestjs/common';
 import { desc, eq, inArray, sql } from 'drizzle-orm';
-import type { CreateRepairOrderBody, JobLineDto, RepairOrderStatus } from '@baytime/shared';
+import type { CreateRepairOrderBody, RepairOrderStatus, RepairOrderSummary } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { LiveService } from '../live/live.service.js';
 import { describeVehicle } from '../board/board.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
-import { customers, jobLines, repairOrders, vehicles } from '../db/schema/index.js';
+import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { LabourService } from '../labour/labour.service.js';
 import { toJobLineDto } from './job-line.dto.js';
-
-export interface RepairOrderSummary {
-  id: number;
-  number: string;
-  customerName: string;
-  vehicle: string;
-  vin: string;
-  odometer: number;
-  concern: string;
-  status: RepairOrderStatus;
-  promisedAt: string | null;
-  createdAt: string;
-  lines: JobLineDto[];
-}
 
 @Injectable()
 export class RepairOrdersService {
@@ -30,6 +17,7 @@ export class RepairOrdersService {
     @Inject(DB) private readonly db: Db,
     private readonly audit: AuditService,
     private readonly live: LiveService,
+    private readonly labour: LabourService,
   ) {}
 
   /**
@@ -127,10 +115,11 @@ export class RepairOrdersService {
 
   list(status?: RepairOrderStatus, id?: number): RepairOrderSummary[] {
     const rows = this.db
-      .select({ ro: repairOrders, customerName: customers.name, vehicle: vehicles })
+      .select({ ro: repairOrders, customer: customers, vehicle: vehicles, advisorName: users.name })
       .from(repairOrders)
       .innerJoin(customers, eq(customers.id, repairOrders.customerId))
       .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .leftJoin(users, eq(users.id, repairOrders.advisorId))
       .where(id ? eq(repairOrders.id, id) : status ? eq(repairOrders.status, status) : undefined)
       .orderBy(desc(repairOrders.createdAt))
       .all();
@@ -146,12 +135,21 @@ export class RepairOrdersService {
           )
           .all()
       : [];
-    return rows.map(({ ro, customerName, vehicle }) => ({
+    const seconds = this.labour.lineSeconds(
+      lines.map((line) => line.id),
+      new Date(),
+    );
+    return rows.map(({ ro, customer, vehicle, advisorName }) => ({
       id: ro.id,
       number: ro.number,
-      customerName,
+      customerName: customer.name,
+      customerPhone: customer.phone,
+      customerEmail: customer.email,
       vehicle: describeVehicle(vehicle),
       vin: vehicle.vin,
+      plate: vehicle.plate,
+      advisorId: ro.advisorId,
+      advisorName,
       odometer: ro.odometer,
       concern: ro.concern,
       status: ro.status,
@@ -160,7 +158,10 @@ export class RepairOrdersService {
       lines: lines
         .filter((line) => line.repairOrderId === ro.id)
         .sort((a, b) => a.lineNo - b.lineNo)
-        .map(toJobLineDto),
+        .map((line) => ({
+          ...toJobLineDto(line),
+          clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
+        })),
     }));
   }
 }

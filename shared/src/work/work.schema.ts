@@ -98,3 +98,25 @@ export const updateOperationSchema = z
   .partial()
   .strict();
 export type UpdateOperationBody = z.infer<typeof updateOperationSchema>;
+
+/** A repair order as the office reads it: `GET /api/repair-orders` and `GET /api/repair-orders/:id`. */
+export interface RepairOrderSummary {
+  id: number;
+  number: string;
+  customerName: string;
+  customerPhone: string | null;
+  customerEmail: string | null;
+  /** "2019 Halvard Tessel". */
+  vehicle: string;
+  vin: string;
+  plate: string | null;
+  odometer: number;
+  concern: string;
+  status: RepairOrderStatus;
+  advisorId: number | null;
+  advisorName: string | null;
+  promisedAt: string | null;
+  createdAt: string;
+  /** Each line with the seconds everyone has clocked on it, split rule applied. */
+  lines: (JobLineDto & { clockedSeconds: number })[];
+}
