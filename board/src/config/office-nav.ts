@@ -25,10 +25,11 @@ export const OFFICE_NAV: readonly NavGroup[] = [
   {
     entries: [
       { label: 'Floor', path: paths.floor, roles: ALL },
-      { label: 'Dispatch', path: paths.dispatch, roles: LEADS, coming: true },
+      { label: 'Dispatch', path: paths.dispatch, roles: ALL },
       { label: 'Repair orders', path: paths.repairOrders, roles: ALL },
-      { label: 'Timecards', path: paths.timecards, roles: LEADS, coming: true },
-      { label: 'Reports', path: paths.reports, roles: LEADS, coming: true },
+      { label: 'Findings', path: paths.findings, roles: ALL },
+      { label: 'Timecards', path: paths.timecards, roles: LEADS },
+      { label: 'Reports', path: paths.reports, roles: LEADS },
     ],
   },
   {
@@ -38,6 +39,7 @@ export const OFFICE_NAV: readonly NavGroup[] = [
       { label: 'Bays', path: paths.admin.bays, roles: OWNER },
       { label: 'Wall screens', path: paths.admin.screens, roles: LEADS },
       { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
+      { label: 'Test mailbox', path: paths.admin.mailbox, roles: OWNER },
     ],
   },
 ];

@@ -6,13 +6,18 @@ export const paths = {
   floor: '/floor',
   dispatch: '/dispatch',
   repairOrders: '/repair-orders',
+  repairOrderNew: '/repair-orders/new',
+  repairOrderDetail: '/repair-orders/:id',
+  repairOrder: (id: number | string) => `/repair-orders/${id}`,
   timecards: '/timecards',
   reports: '/reports',
+  findings: '/findings',
   admin: {
     users: '/admin/users',
     bays: '/admin/bays',
     screens: '/admin/screens',
     shop: '/admin/shop',
+    mailbox: '/admin/mailbox',
   },
   /** The technicians' app, served by the same server. */
   kiosk: '/kiosk/',

@@ -1,6 +1,8 @@
 import { PageHeader } from '@/components/page-header';
 import { CreateScreenCard, ScreensTable } from '@/features/screens/components/screens-admin';
 
+export { PageError as ErrorBoundary } from './page-error';
+
 export function Component() {
   return (
     <>

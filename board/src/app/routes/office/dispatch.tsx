@@ -1,10 +1,44 @@
-import { ComingPage } from '@/components/coming-page';
+import { Badge } from '@fluentui/react-components';
+import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
+import { useShop } from '@/features/shop/api/get-shop';
+import { DispatchView } from '@/features/dispatch/components/dispatch-view';
+import { useLiveDispatch, type LiveLink } from '@/features/dispatch/hooks/use-live-dispatch';
+import { useOffice } from './office-context';
+
+export { PageError as ErrorBoundary } from './page-error';
+
+const LINK_BADGES: Record<LiveLink, { text: string; color: 'success' | 'informative' | 'warning' }> = {
+  live: { text: 'Live', color: 'success' },
+  connecting: { text: 'Connecting…', color: 'informative' },
+  down: { text: 'Link lost: reconnecting', color: 'warning' },
+};
 
 export function Component() {
+  const { role } = useOffice();
+  const token = useOfficeToken();
+  const link = useLiveDispatch(token);
+  const shop = useShop();
+  const canEdit = role === 'owner' || role === 'foreman';
+  const badge = LINK_BADGES[link];
+
   return (
-    <ComingPage
-      title="Dispatch"
-      what="Here the foreman will assign job lines to technicians and bays, set priorities and see forecast finish times."
-    />
+    <>
+      <DispatchView
+        timeZone={shop.data?.timeZone}
+        canEdit={canEdit}
+        headerActions={
+          <>
+            {!canEdit && (
+              <Badge appearance="outline" color="informative">
+                View only
+              </Badge>
+            )}
+            <Badge appearance={link === 'down' ? 'filled' : 'tint'} color={badge.color} role="status">
+              {badge.text}
+            </Badge>
+          </>
+        }
+      />
+    </>
   );
 }

@@ -36,8 +36,9 @@ function OfficeTheme({ children }: { children: ReactNode }) {
   const dark = useSyncExternalStore(subscribeScheme, prefersDark, () => false);
   const styles = useStyles();
   return (
-    <FluentProvider theme={dark ? baytimeDarkTheme : baytimeLightTheme} className={styles.root}>
-      {children}
+    <FluentProvider theme={dark ? baytimeDarkTheme : baytimeLightTheme}>
+      {/* Layout lives on a div: Fluent copies the provider's class onto every popover's mount node. */}
+      <div className={styles.root}>{children}</div>
     </FluentProvider>
   );
 }

@@ -7,6 +7,10 @@ export interface WallScreenDto {
   name: string;
   pairedAt: string | null;
   lastSeenAt: string | null;
+  /** Set once revoked: the screen's token no longer works. */
+  revokedAt: string | null;
+  /** When the unused pairing code stops working; null once paired or revoked. */
+  pairingExpiresAt: string | null;
 }
 
 export function getScreens(): Promise<WallScreenDto[]> {

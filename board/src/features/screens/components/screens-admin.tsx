@@ -1,9 +1,16 @@
 import { useState, type FormEvent } from 'react';
 import {
+  Badge,
   Body1,
   Button,
   Caption1,
   Card,
+  Dialog,
+  DialogActions,
+  DialogBody,
+  DialogContent,
+  DialogSurface,
+  DialogTitle,
   Field,
   Input,
   Link,
@@ -24,7 +31,9 @@ import { createScreenSchema, type ScreenPairing } from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useCreateScreen } from '../api/create-screen';
-import { useScreens } from '../api/get-screens';
+import { useScreens, type WallScreenDto } from '../api/get-screens';
+import { useRevokeScreen } from '../api/revoke-screen';
+import { STATUS_WORDS, agoText, screenStatus, sortScreens, type ScreenStatus } from '../screen-status';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -54,17 +63,11 @@ const useStyles = makeStyles({
     gap: tokens.spacingVerticalXS,
   },
   dim: { color: tokens.colorNeutralForeground3 },
+  revoked: { color: tokens.colorNeutralForeground3 },
+  actions: { textAlign: 'right', width: '8rem' },
 });
 
 const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-
-function sinceText(iso: string | null): string {
-  if (!iso) return '—';
-  const minutes = Math.round((Date.now() - Date.parse(iso)) / 60_000);
-  if (minutes < 2) return 'just now';
-  if (minutes < 90) return `${minutes} min ago`;
-  return when.format(new Date(iso));
-}
 
 function PairingCode({ pairing, name }: { pairing: ScreenPairing; name: string }) {
   const styles = useStyles();
@@ -136,9 +139,53 @@ export function CreateScreenCard() {
   );
 }
 
+function RevokeDialog({ screen, onClose }: { screen: WallScreenDto; onClose: () => void }) {
+  const revoke = useRevokeScreen();
+  const paired = screen.pairedAt !== null;
+  return (
+    <Dialog open onOpenChange={(_, data) => !data.open && onClose()}>
+      <DialogSurface>
+        <DialogBody>
+          <DialogTitle>Revoke “{screen.name}”?</DialogTitle>
+          <DialogContent>
+            <Body1>
+              {paired
+                ? 'The screen stops showing the board at once and goes back to its pairing page. To use it again, make a new pairing code.'
+                : 'Its pairing code stops working. To pair a screen later, make a new code.'}
+            </Body1>
+            {revoke.isError && (
+              <MessageBar intent="error" style={{ marginTop: tokens.spacingVerticalM }}>
+                <MessageBarBody>{formErrorText(revoke.error)}</MessageBarBody>
+              </MessageBar>
+            )}
+          </DialogContent>
+          <DialogActions>
+            <Button onClick={onClose}>Keep it</Button>
+            <Button
+              appearance="primary"
+              disabled={revoke.isPending}
+              onClick={() => revoke.mutate(screen.id, { onSuccess: onClose })}
+            >
+              {revoke.isPending ? 'Revoking…' : 'Revoke screen'}
+            </Button>
+          </DialogActions>
+        </DialogBody>
+      </DialogSurface>
+    </Dialog>
+  );
+}
+
+const STATUS_BADGE: Record<ScreenStatus, 'success' | 'informative' | 'subtle' | 'danger'> = {
+  paired: 'success',
+  waiting: 'informative',
+  expired: 'subtle',
+  revoked: 'danger',
+};
+
 export function ScreensTable() {
   const styles = useStyles();
   const screens = useScreens();
+  const [revoking, setRevoking] = useState<WallScreenDto | null>(null);
   if (screens.isPending) return <Spinner label="Loading screens…" />;
   if (screens.isError)
     return (
@@ -147,30 +194,69 @@ export function ScreensTable() {
       </MessageBar>
     );
   if (screens.data.length === 0) return <Body1 className={styles.dim}>No wall screens yet.</Body1>;
+  // The list reloads every 15 s: its fetch time is "now" for the ages shown.
+  const now = screens.dataUpdatedAt;
   return (
-    <Table aria-label="Wall screens" className={styles.table}>
-      <TableHeader>
-        <TableRow>
-          <TableHeaderCell>Screen</TableHeaderCell>
-          <TableHeaderCell>Paired</TableHeaderCell>
-          <TableHeaderCell>Last seen</TableHeaderCell>
-        </TableRow>
-      </TableHeader>
-      <TableBody>
-        {screens.data.map((screen) => (
-          <TableRow key={screen.id}>
-            <TableCell>{screen.name}</TableCell>
-            <TableCell>
-              {screen.pairedAt ? (
-                when.format(new Date(screen.pairedAt))
-              ) : (
-                <Caption1>Waiting for its code</Caption1>
-              )}
-            </TableCell>
-            <TableCell>{sinceText(screen.lastSeenAt)}</TableCell>
+    <>
+      <Table aria-label="Wall screens" className={styles.table}>
+        <TableHeader>
+          <TableRow>
+            <TableHeaderCell>Screen</TableHeaderCell>
+            <TableHeaderCell>Status</TableHeaderCell>
+            <TableHeaderCell>Paired</TableHeaderCell>
+            <TableHeaderCell>Last seen</TableHeaderCell>
+            <TableHeaderCell>
+              <span className="visually-hidden">Actions</span>
+            </TableHeaderCell>
           </TableRow>
-        ))}
-      </TableBody>
-    </Table>
+        </TableHeader>
+        <TableBody>
+          {sortScreens(screens.data, now).map((screen) => {
+            const status = screenStatus(screen, now);
+            return (
+              <TableRow key={screen.id} className={status === 'revoked' ? styles.revoked : undefined}>
+                <TableCell>{screen.name}</TableCell>
+                <TableCell>
+                  <Badge appearance="tint" color={STATUS_BADGE[status]}>
+                    {STATUS_WORDS[status]}
+                  </Badge>
+                  {status === 'revoked' && screen.revokedAt && (
+                    <Caption1 className={styles.dim}> {when.format(new Date(screen.revokedAt))}</Caption1>
+                  )}
+                  {status === 'waiting' && screen.pairingExpiresAt && (
+                    <Caption1 className={styles.dim}>
+                      {' '}
+                      until {when.format(new Date(screen.pairingExpiresAt))}
+                    </Caption1>
+                  )}
+                </TableCell>
+                <TableCell>{screen.pairedAt ? when.format(new Date(screen.pairedAt)) : '—'}</TableCell>
+                <TableCell>
+                  {screen.lastSeenAt ? (
+                    <span title={when.format(new Date(screen.lastSeenAt))}>
+                      {agoText(screen.lastSeenAt, now) ?? when.format(new Date(screen.lastSeenAt))}
+                    </span>
+                  ) : (
+                    '—'
+                  )}
+                </TableCell>
+                <TableCell className={styles.actions}>
+                  {status !== 'revoked' && (
+                    <Button
+                      size="small"
+                      onClick={() => setRevoking(screen)}
+                      aria-label={`Revoke ${screen.name}`}
+                    >
+                      Revoke…
+                    </Button>
+                  )}
+                </TableCell>
+              </TableRow>
+            );
+          })}
+        </TableBody>
+      </Table>
+      {revoking && <RevokeDialog screen={revoking} onClose={() => setRevoking(null)} />}
+    </>
   );
 }

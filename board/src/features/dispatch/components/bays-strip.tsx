@@ -1,0 +1,118 @@
+import { useEffect, useState } from 'react';
+import { useDroppable } from '@dnd-kit/core';
+import { Button, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
+import type { DispatchBoard, DispatchLine } from '@baytime/shared';
+import { StateChip } from '@/components/state-chip';
+import { dropId } from '../dispatch-model';
+
+const useStyles = makeStyles({
+  strip: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    columnGap: tokens.spacingHorizontalXS,
+    rowGap: tokens.spacingVerticalXS,
+  },
+  bay: {
+    display: 'flex',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalXS,
+    minHeight: '32px',
+    padding: `2px ${tokens.spacingHorizontalXS}`,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground1,
+    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
+    outline: `${tokens.strokeWidthThick} solid transparent`,
+    outlineOffset: '1px',
+  },
+  name: { fontWeight: tokens.fontWeightBold, whiteSpace: 'nowrap' },
+  target: { outlineColor: tokens.colorNeutralStroke1, outlineStyle: 'dashed' },
+  over: {
+    outlineStyle: 'solid',
+    outlineColor: tokens.colorBrandStroke1,
+    backgroundColor: tokens.colorBrandBackground2,
+  },
+});
+
+function ReleaseButton({ name, busy, onRelease }: { name: string; busy: boolean; onRelease: () => void }) {
+  const [confirming, setConfirming] = useState(false);
+  useEffect(() => {
+    if (!confirming) return;
+    const timer = setTimeout(() => setConfirming(false), 5000);
+    return () => clearTimeout(timer);
+  }, [confirming]);
+  return confirming ? (
+    <Button
+      size="small"
+      appearance="primary"
+      disabled={busy}
+      onClick={() => {
+        setConfirming(false);
+        onRelease();
+      }}
+    >
+      Vehicle gone: free {name}
+    </Button>
+  ) : (
+    <Button size="small" disabled={busy} onClick={() => setConfirming(true)} aria-label={`Release ${name}`}>
+      Release
+    </Button>
+  );
+}
+
+function BayChip({
+  bay,
+  canEdit,
+  dragging,
+  releasing,
+  onRelease,
+}: {
+  bay: DispatchBoard['bays'][number];
+  canEdit: boolean;
+  dragging: DispatchLine | null;
+  releasing: boolean;
+  onRelease: (bayId: number) => void;
+}) {
+  const styles = useStyles();
+  const { setNodeRef, isOver } = useDroppable({ id: dropId.bay(bay.id), disabled: !canEdit });
+  const incoming = dragging !== null && dragging.bayId !== bay.id;
+  return (
+    <div
+      ref={setNodeRef}
+      className={mergeClasses(styles.bay, incoming && styles.target, incoming && isOver && styles.over)}
+    >
+      <span className={styles.name}>{bay.name}</span>
+      <StateChip state={bay.state} />
+      {canEdit && (bay.state === 'check' || bay.state === 'ready') && (
+        <ReleaseButton name={bay.name} busy={releasing} onRelease={() => onRelease(bay.id)} />
+      )}
+    </div>
+  );
+}
+
+export interface BaysStripProps {
+  board: DispatchBoard;
+  canEdit: boolean;
+  dragging: DispatchLine | null;
+  releasingId: number | null;
+  onRelease: (bayId: number) => void;
+}
+
+/** Every bay and its state; a line dropped on a bay is set to work there. */
+export function BaysStrip({ board, canEdit, dragging, releasingId, onRelease }: BaysStripProps) {
+  const styles = useStyles();
+  return (
+    <section className={styles.strip} aria-label="Bays: drop a line on one to set where it is worked">
+      {board.bays.map((bay) => (
+        <BayChip
+          key={bay.id}
+          bay={bay}
+          canEdit={canEdit}
+          dragging={dragging}
+          releasing={releasingId === bay.id}
+          onRelease={onRelease}
+        />
+      ))}
+    </section>
+  );
+}

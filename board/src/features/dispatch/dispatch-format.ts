@@ -1,0 +1,67 @@
+/** Short shapes for dispatch: times in the shop's zone, hours of labour, waits. */
+
+function pad2(n: number): string {
+  return String(n).padStart(2, '0');
+}
+
+/** Labour as hours and minutes, "1:05". */
+export function formatHm(seconds: number): string {
+  const minutes = Math.round(Math.max(0, seconds) / 60);
+  return `${Math.floor(minutes / 60)}:${pad2(minutes % 60)}`;
+}
+
+/** Book hours as the shop writes them, "1.5 h" or "0.3 h". */
+export function formatBookHours(hours: number): string {
+  return `${Number(hours.toFixed(1))} h`;
+}
+
+/** How long a line has waited, "12 min", "2 h 05 min", "3 d 4 h". */
+export function formatWait(fromIso: string, nowMs: number): string {
+  const minutes = Math.max(0, Math.floor((nowMs - Date.parse(fromIso)) / 60_000));
+  if (minutes < 1) return 'just now';
+  if (minutes < 60) return `${minutes} min`;
+  const hours = Math.floor(minutes / 60);
+  if (hours < 24) return `${hours} h ${pad2(minutes % 60)} min`;
+  return `${Math.floor(hours / 24)} d ${hours % 24} h`;
+}
+
+/** A 4-week efficiency (flagged ÷ clocked) as "112 %"; "new" when there is no history yet. */
+export function formatEfficiency(efficiency: number | null): string {
+  return efficiency === null ? 'new' : `${Math.round(efficiency * 100)} %`;
+}
+
+const formats = new Map<string, Intl.DateTimeFormat>();
+
+function format(timeZone: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const key = `${timeZone ?? ''}|${JSON.stringify(options)}`;
+  let found = formats.get(key);
+  if (!found) {
+    try {
+      found = new Intl.DateTimeFormat('en-US', { ...options, timeZone });
+    } catch {
+      found = new Intl.DateTimeFormat('en-US', options);
+    }
+    formats.set(key, found);
+  }
+  return found;
+}
+
+function dayKey(ms: number, timeZone: string | undefined): string {
+  return format(timeZone, { year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(ms));
+}
+
+/**
+ * A moment as the shop's clock shows it: "4:30 PM" today, "Wed 8:00 AM" within a week, "Dec 9, 8:00 AM"
+ * later. `nowMs` decides what "today" is.
+ */
+export function formatShopTime(iso: string, nowMs: number, timeZone: string | undefined): string {
+  const ms = Date.parse(iso);
+  const time = format(timeZone, { hour: 'numeric', minute: '2-digit' }).format(new Date(ms));
+  if (dayKey(ms, timeZone) === dayKey(nowMs, timeZone)) return time;
+  const days = Math.abs(ms - nowMs) / 86_400_000;
+  const day =
+    days < 6
+      ? format(timeZone, { weekday: 'short' }).format(new Date(ms))
+      : format(timeZone, { month: 'short', day: 'numeric' }).format(new Date(ms));
+  return `${day} ${time}`;
+}

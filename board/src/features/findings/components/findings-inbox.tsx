@@ -1,0 +1,361 @@
+import { useCallback, useMemo, useState } from 'react';
+import {
+  Badge,
+  Body1,
+  Button,
+  Caption1,
+  Card,
+  CounterBadge,
+  MessageBar,
+  MessageBarActions,
+  MessageBarBody,
+  Spinner,
+  Subtitle2,
+  Tab,
+  TabList,
+  Text,
+  makeStyles,
+  shorthands,
+  tokens,
+} from '@fluentui/react-components';
+import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
+import { formErrorText } from '@/lib/form-errors';
+import { useFindings } from '../api/get-findings';
+import { useRequestApproval } from '../api/request-approval';
+import { useSendReadyNotice } from '../api/send-ready-notice';
+import { groupAnswered, sortPending, type AnsweredGroup } from '../findings-model';
+import { useFindingsLive } from '../hooks/use-findings-live';
+import { useMinuteNow } from '../hooks/use-minute-now';
+import { ApproveDialog, DeclineDialog } from './answer-dialogs';
+import { FindingCard, SeverityBadge } from './finding-card';
+import { FindingPhotos } from './finding-photos';
+
+export type InboxTab = 'pending' | 'answered';
+export type InboxRole = 'owner' | 'foreman' | 'advisor';
+
+const useStyles = makeStyles({
+  page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, maxWidth: '90rem' },
+  bar: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM, flexWrap: 'wrap' },
+  tabCount: { marginLeft: tokens.spacingHorizontalS },
+  freshCount: { color: tokens.colorBrandForeground1, fontWeight: tokens.fontWeightSemibold },
+  list: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, margin: 0, padding: 0 },
+  item: { listStyleType: 'none' },
+  status: { color: tokens.colorNeutralForeground2 },
+  statusError: { color: tokens.colorPaletteRedForeground1 },
+  empty: { padding: tokens.spacingHorizontalXL, color: tokens.colorNeutralForeground2 },
+  group: {
+    padding: `${tokens.spacingVerticalL} ${tokens.spacingHorizontalXL}`,
+    gap: tokens.spacingVerticalS,
+  },
+  groupHead: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalM },
+  groupRo: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
+  spacer: { flexGrow: 1 },
+  answered: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr) auto',
+    gap: tokens.spacingHorizontalXL,
+    padding: `${tokens.spacingVerticalS} 0`,
+    ...shorthands.borderTop(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+  },
+  answeredText: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXXS, minWidth: 0 },
+  answeredHead: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalS },
+  dim: { color: tokens.colorNeutralForeground3 },
+  live: { position: 'absolute', width: '1px', height: '1px', overflow: 'hidden', clipPath: 'inset(50%)' },
+});
+
+function useWhen(timeZone: string | undefined) {
+  return useMemo(() => {
+    const options: Intl.DateTimeFormatOptions = {
+      weekday: 'short',
+      month: 'short',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: '2-digit',
+    };
+    let format: Intl.DateTimeFormat;
+    try {
+      format = new Intl.DateTimeFormat('en-US', { ...options, timeZone });
+    } catch {
+      format = new Intl.DateTimeFormat('en-US', options);
+    }
+    return (iso: string) => format.format(new Date(iso));
+  }, [timeZone]);
+}
+
+function answerSummary(result: FindingAnswerResult): string {
+  const { finding, createdLine, resumedLine } = result;
+  const head =
+    finding.answer === 'approved' && createdLine
+      ? `Approved: line ${createdLine.lineNo} “${createdLine.title}” (${createdLine.bookHours} h) added to RO ${finding.repairOrderNumber}, waiting in the queue.`
+      : `Declined: noted on RO ${finding.repairOrderNumber}.`;
+  return resumedLine ? `${head} Line ${resumedLine.lineNo} is no longer held and can carry on.` : head;
+}
+
+function AnsweredGroupCard({
+  group,
+  role,
+  formatWhen,
+}: {
+  group: AnsweredGroup;
+  role: InboxRole;
+  formatWhen: (iso: string) => string;
+}) {
+  const styles = useStyles();
+  const notice = useSendReadyNotice();
+  return (
+    <Card className={styles.group}>
+      <div className={styles.groupHead}>
+        <span className={styles.groupRo}>RO {group.repairOrderNumber}</span>
+        <Text>{group.vehicle}</Text>
+        <Text className={styles.dim}>· {group.customerName}</Text>
+        <span className={styles.spacer} />
+        {role === 'advisor' && (
+          <Button disabled={notice.isPending} onClick={() => notice.mutate(group.repairOrderId)}>
+            {notice.isPending ? 'Sending…' : 'E-mail the customer: vehicle ready'}
+          </Button>
+        )}
+      </div>
+      {notice.isSuccess && (
+        <Caption1 className={styles.status} role="status">
+          Ready notice sent to {notice.data.to}.
+        </Caption1>
+      )}
+      {notice.isError && (
+        <Caption1 className={styles.statusError} role="alert">
+          {formErrorText(notice.error)}
+        </Caption1>
+      )}
+      {group.findings.map((finding) => (
+        <div key={finding.id} className={styles.answered}>
+          <div className={styles.answeredText}>
+            <div className={styles.answeredHead}>
+              <Badge appearance="filled" color={finding.answer === 'approved' ? 'success' : 'informative'}>
+                {finding.answer === 'approved' ? 'Approved' : 'Declined'}
+              </Badge>
+              <SeverityBadge severity={finding.severity} />
+              <Text>
+                Line {finding.lineNo} · {finding.lineTitle}
+              </Text>
+            </div>
+            <Body1>{finding.note}</Body1>
+            <Caption1 className={styles.status}>
+              {finding.answer === 'approved' ? 'Approved' : 'Declined'}
+              {finding.answeredBy && ` by ${finding.answeredBy}`}
+              {finding.answeredAt && `, ${formatWhen(finding.answeredAt)}`}
+              {finding.answer === 'approved' && finding.createdLineId !== null && ': a new line was added'}
+              {finding.answer === 'declined' && finding.answerNote && `: “${finding.answerNote}”`}
+              {' · found by '}
+              {finding.technicianName}
+            </Caption1>
+          </div>
+          <FindingPhotos
+            photos={finding.photos}
+            title={`RO ${finding.repairOrderNumber}, line ${finding.lineNo}`}
+            small
+          />
+        </div>
+      ))}
+    </Card>
+  );
+}
+
+/** The office's findings: pending ones to answer, live; answered ones by repair order. */
+export function FindingsInbox({
+  role,
+  tab,
+  onTab,
+  timeZone,
+}: {
+  role: InboxRole;
+  tab: InboxTab;
+  onTab: (tab: InboxTab) => void;
+  timeZone: string | undefined;
+}) {
+  const styles = useStyles();
+  const now = useMinuteNow();
+  const formatWhen = useWhen(timeZone);
+  const pending = useFindings('pending');
+  const approved = useFindings('approved', tab === 'answered');
+  const declined = useFindings('declined', tab === 'answered');
+  const request = useRequestApproval();
+  const [requestResults, setRequestResults] = useState<Record<number, { ok: boolean; text: string }>>({});
+  const [fresh, setFresh] = useState<ReadonlySet<number>>(new Set());
+  const [dialog, setDialog] = useState<{ kind: 'approve' | 'decline'; finding: FindingDto } | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+
+  const onNew = useCallback((id: number) => setFresh((current) => new Set(current).add(id)), []);
+  useFindingsLive(onNew);
+
+  const sorted = useMemo(() => sortPending(pending.data ?? []), [pending.data]);
+  const groups = useMemo(
+    () => groupAnswered([...(approved.data ?? []), ...(declined.data ?? [])]),
+    [approved.data, declined.data],
+  );
+  const freshPending = sorted.filter((finding) => fresh.has(finding.id)).length;
+
+  const askCustomer = (finding: FindingDto) =>
+    request.mutate(finding.id, {
+      onSuccess: (mail) =>
+        setRequestResults((current) => ({
+          ...current,
+          [finding.id]: { ok: true, text: `Approval request e-mailed to ${mail.to}.` },
+        })),
+      onError: (error) =>
+        setRequestResults((current) => ({
+          ...current,
+          [finding.id]: { ok: false, text: formErrorText(error) },
+        })),
+    });
+
+  const finish = (result: FindingAnswerResult) => {
+    setDialog(null);
+    setDone(answerSummary(result));
+    setFresh((current) => {
+      const next = new Set(current);
+      next.delete(result.finding.id);
+      return next;
+    });
+  };
+
+  const statusOf = (finding: FindingDto) => {
+    const result = requestResults[finding.id];
+    if (result)
+      return (
+        <Caption1
+          className={result.ok ? styles.status : styles.statusError}
+          role={result.ok ? 'status' : 'alert'}
+        >
+          {result.text}
+        </Caption1>
+      );
+    if (finding.approvalRequestedAt)
+      return (
+        <Caption1 className={styles.status}>
+          Approval request e-mailed {formatWhen(finding.approvalRequestedAt)}.
+        </Caption1>
+      );
+    if (!finding.customerHasEmail && role === 'advisor')
+      return <Caption1 className={styles.dim}>No e-mail on file for this customer: ask by phone.</Caption1>;
+    return null;
+  };
+
+  const answeredPending = approved.isPending || declined.isPending;
+  const answeredError = approved.error ?? declined.error;
+
+  return (
+    <div className={styles.page}>
+      <div className={styles.live} aria-live="polite">
+        {freshPending > 0 ? `${freshPending} new finding${freshPending === 1 ? '' : 's'}` : ''}
+      </div>
+      <div className={styles.bar}>
+        <TabList
+          selectedValue={tab}
+          onTabSelect={(_, data) => onTab(data.value as InboxTab)}
+          aria-label="Findings"
+        >
+          <Tab value="pending">
+            Waiting for an answer
+            {pending.data && (
+              <CounterBadge
+                className={styles.tabCount}
+                count={pending.data.length}
+                showZero
+                appearance="filled"
+                color={pending.data.length > 0 ? 'brand' : 'informative'}
+              />
+            )}
+            {freshPending > 0 && <span className={styles.freshCount}> · {freshPending} new</span>}
+          </Tab>
+          <Tab value="answered">Answered</Tab>
+        </TabList>
+      </div>
+      {done && (
+        <MessageBar intent="success" layout="singleline">
+          <MessageBarBody>{done}</MessageBarBody>
+          <MessageBarActions>
+            <Button size="small" appearance="transparent" onClick={() => setDone(null)}>
+              Dismiss
+            </Button>
+          </MessageBarActions>
+        </MessageBar>
+      )}
+
+      {tab === 'pending' ? (
+        pending.isPending ? (
+          <Spinner label="Loading findings…" />
+        ) : pending.isError ? (
+          <MessageBar intent="error">
+            <MessageBarBody>{formErrorText(pending.error)}</MessageBarBody>
+          </MessageBar>
+        ) : sorted.length === 0 ? (
+          <Card className={styles.empty}>
+            <Subtitle2 as="h2">Nothing waiting</Subtitle2>
+            <Body1>New findings from the technicians appear here as they are made.</Body1>
+          </Card>
+        ) : (
+          <ul className={styles.list} aria-label="Findings waiting for an answer">
+            {sorted.map((finding) => (
+              <li key={finding.id} className={styles.item}>
+                <FindingCard
+                  finding={finding}
+                  isNew={fresh.has(finding.id)}
+                  now={now}
+                  formatWhen={formatWhen}
+                  status={statusOf(finding)}
+                  actions={
+                    <>
+                      {role === 'advisor' && (
+                        <Button
+                          disabled={
+                            !finding.customerHasEmail ||
+                            (request.isPending && request.variables === finding.id)
+                          }
+                          onClick={() => askCustomer(finding)}
+                        >
+                          {request.isPending && request.variables === finding.id
+                            ? 'Sending…'
+                            : finding.approvalRequestedAt
+                              ? 'Send the approval request again'
+                              : 'Send approval request to customer'}
+                        </Button>
+                      )}
+                      <Button appearance="primary" onClick={() => setDialog({ kind: 'approve', finding })}>
+                        Customer approved…
+                      </Button>
+                      <Button onClick={() => setDialog({ kind: 'decline', finding })}>
+                        Customer declined…
+                      </Button>
+                    </>
+                  }
+                />
+              </li>
+            ))}
+          </ul>
+        )
+      ) : answeredPending ? (
+        <Spinner label="Loading answered findings…" />
+      ) : answeredError ? (
+        <MessageBar intent="error">
+          <MessageBarBody>{formErrorText(answeredError)}</MessageBarBody>
+        </MessageBar>
+      ) : groups.length === 0 ? (
+        <Card className={styles.empty}>
+          <Body1>No answered findings yet.</Body1>
+        </Card>
+      ) : (
+        <div className={styles.list}>
+          {groups.map((group) => (
+            <AnsweredGroupCard key={group.repairOrderId} group={group} role={role} formatWhen={formatWhen} />
+          ))}
+        </div>
+      )}
+
+      {dialog?.kind === 'approve' && (
+        <ApproveDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
+      )}
+      {dialog?.kind === 'decline' && (
+        <DeclineDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
+      )}
+    </div>
+  );
+}

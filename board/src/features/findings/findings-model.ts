@@ -1,0 +1,79 @@
+import { FINDING_SEVERITY_WORDS, type FindingDto, type FindingSeverity } from '@baytime/shared';
+
+const SEVERITY_RANK: Record<FindingSeverity, number> = { 'safety-now': 0, soon: 1, watch: 2 };
+
+/** The first words of the severity sentence, for a tag: "A safety concern", "Should be fixed soon", "Not urgent". */
+export function severityHeadline(severity: FindingSeverity): string {
+  const words = FINDING_SEVERITY_WORDS[severity];
+  const colon = words.indexOf(':');
+  return colon > 0 ? words.slice(0, colon) : words;
+}
+
+/** Safety first, then the one waiting longest. */
+export function sortPending(findings: readonly FindingDto[]): FindingDto[] {
+  return [...findings].sort(
+    (a, b) =>
+      SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity] ||
+      Date.parse(a.createdAt) - Date.parse(b.createdAt) ||
+      a.id - b.id,
+  );
+}
+
+export interface AnsweredGroup {
+  repairOrderId: number;
+  repairOrderNumber: string;
+  vehicle: string;
+  customerName: string;
+  findings: FindingDto[];
+  lastAnsweredAt: string;
+}
+
+/** Answered findings by repair order, the most recently answered order first. */
+export function groupAnswered(findings: readonly FindingDto[]): AnsweredGroup[] {
+  const groups = new Map<number, AnsweredGroup>();
+  const answeredAt = (finding: FindingDto) => finding.answeredAt ?? finding.createdAt;
+  for (const finding of [...findings].sort((a, b) => Date.parse(answeredAt(b)) - Date.parse(answeredAt(a)))) {
+    const group = groups.get(finding.repairOrderId);
+    if (group) group.findings.push(finding);
+    else
+      groups.set(finding.repairOrderId, {
+        repairOrderId: finding.repairOrderId,
+        repairOrderNumber: finding.repairOrderNumber,
+        vehicle: finding.vehicle,
+        customerName: finding.customerName,
+        findings: [finding],
+        lastAnsweredAt: answeredAt(finding),
+      });
+  }
+  return [...groups.values()];
+}
+
+/** How long a finding has waited, "5 min", "2 h 10 min", "3 days". */
+export function waitedText(since: string, now: number): string {
+  const minutes = Math.max(0, Math.floor((now - Date.parse(since)) / 60_000));
+  if (minutes < 1) return 'just now';
+  if (minutes < 60) return `${minutes} min`;
+  const hours = Math.floor(minutes / 60);
+  if (hours < 24) return minutes % 60 ? `${hours} h ${minutes % 60} min` : `${hours} h`;
+  const days = Math.floor(hours / 24);
+  return days === 1 ? '1 day' : `${days} days`;
+}
+
+/** Book hours as typed ("1.5", "1,5", " 2 ") to a number; null when it is not one. */
+export function parseHours(text: string): number | null {
+  const cleaned = text.trim().replace(',', '.');
+  if (!/^\d+(\.\d+)?$|^\.\d+$/.test(cleaned)) return null;
+  return Number(cleaned);
+}
+
+/**
+ * What the new line is called when the title is left empty, as the server names it: the note's first
+ * line, cut at a word near the 120 characters a title may have.
+ */
+export function titleHint(note: string, max = 120): string {
+  const line = (note.split(/\r?\n/).find((l) => l.trim()) ?? note).trim().replace(/\s+/g, ' ');
+  if (line.length <= max) return line;
+  const cut = line.slice(0, max - 1);
+  const space = cut.lastIndexOf(' ');
+  return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
+}

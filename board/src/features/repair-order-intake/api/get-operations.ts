@@ -1,0 +1,15 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { OperationDto } from '@baytime/shared';
+import { officeApi } from '@/lib/api-client';
+
+/** The shop's menu of operations with their default book hours. */
+export function getOperations(): Promise<OperationDto[]> {
+  return officeApi.get<OperationDto[]>('/operations');
+}
+
+export const operationsQueryOptions = () =>
+  queryOptions({ queryKey: ['operations'], queryFn: getOperations, staleTime: 5 * 60_000 });
+
+export function useOperations() {
+  return useQuery(operationsQueryOptions());
+}

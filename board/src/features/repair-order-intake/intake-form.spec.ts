@@ -1,0 +1,242 @@
+import { describe, expect, it } from 'vitest';
+import type { OpeningHours } from '@baytime/shared';
+import {
+  bookHoursTotal,
+  clockText,
+  emptyDraft,
+  formKey,
+  lineFromOperation,
+  matchOperations,
+  parseHours,
+  parseWhole,
+  previousVisit,
+  promiseChoices,
+  toRepairOrder,
+  vinFacts,
+  type IntakeDraft,
+} from './intake-form';
+
+const ZONE = 'America/Chicago';
+const WEEKDAY = { open: '07:30', close: '18:00' };
+/** Sunday first: closed Sunday, weekdays 7:30–18:00, Saturday mornings. */
+const HOURS: OpeningHours = [
+  null,
+  WEEKDAY,
+  WEEKDAY,
+  WEEKDAY,
+  WEEKDAY,
+  WEEKDAY,
+  { open: '08:00', close: '13:00' },
+];
+// 49 CFR 565.15 worked example, widely quoted: check digit X, 10th character K.
+const VALID_VIN = '1M8GDM9AXKP042788';
+
+function filled(overrides: Partial<IntakeDraft> = {}): IntakeDraft {
+  const draft = emptyDraft();
+  return {
+    ...draft,
+    customer: { name: 'Harriet Quenby', phone: '', email: '' },
+    vehicle: {
+      vin: VALID_VIN,
+      year: '2019',
+      make: 'Halvard',
+      model: 'Tessel',
+      plate: '',
+      odometer: '84,210',
+    },
+    concern: 'Warning light on the dash',
+    lines: [{ key: 'a', title: 'Diagnose engine warning light', bookHours: '1', skillLevel: '' }],
+    ...overrides,
+  };
+}
+
+describe(vinFacts.name, () => {
+  const now = new Date('2026-06-01T12:00:00Z');
+  it('accepts a VIN whose check digit matches and reads its model year', () => {
+    expect(vinFacts(VALID_VIN.toLowerCase(), now)).toMatchObject({ state: 'valid', year: 2019 });
+  });
+  it('names the check digit it expected', () => {
+    const wrong = `${VALID_VIN.slice(0, 8)}5${VALID_VIN.slice(9)}`;
+    expect(vinFacts(wrong, now)).toMatchObject({
+      state: 'invalid',
+      message: 'Check digit should be X, not 5',
+    });
+  });
+  it('counts characters while typing and refuses I, O and Q at once', () => {
+    expect(vinFacts('1M8GD', now)).toMatchObject({ state: 'partial', message: '5 of 17 characters' });
+    expect(vinFacts('1M8GO', now)).toMatchObject({ state: 'invalid', message: 'VINs never use I, O or Q' });
+    expect(vinFacts('', now).state).toBe('empty');
+    expect(vinFacts(`${VALID_VIN}1`, now).state).toBe('invalid');
+  });
+});
+
+describe(parseHours.name, () => {
+  it('reads decimals with a point or a comma', () => {
+    expect(parseHours('1.5')).toBe(1.5);
+    expect(parseHours('0,3')).toBe(0.3);
+    expect(parseHours('.5')).toBe(0.5);
+    expect(parseHours('1h')).toBeNull();
+    expect(parseHours('')).toBeNull();
+  });
+});
+
+describe(parseWhole.name, () => {
+  it('reads whole numbers with separators', () => {
+    expect(parseWhole('150,273')).toBe(150273);
+    expect(parseWhole('84 210')).toBe(84210);
+    expect(parseWhole('12.5')).toBeNull();
+  });
+});
+
+describe(bookHoursTotal.name, () => {
+  it('adds the lines it can read', () => {
+    const lines = [
+      { key: 'a', title: '', bookHours: '1.5', skillLevel: '' },
+      { key: 'b', title: '', bookHours: '0.7', skillLevel: '' },
+      { key: 'c', title: '', bookHours: 'x', skillLevel: '' },
+    ];
+    expect(bookHoursTotal(lines)).toBeCloseTo(2.2);
+  });
+});
+
+describe(toRepairOrder.name, () => {
+  it('builds the body the server takes', () => {
+    const { body, errors } = toRepairOrder(
+      filled({ promisedDate: '2026-12-02', promisedTime: '17:30' }),
+      ZONE,
+    );
+    expect(errors).toEqual({});
+    expect(body).toMatchObject({
+      customer: { name: 'Harriet Quenby' },
+      vehicle: { vin: VALID_VIN, year: 2019, odometer: 84210 },
+      // 5:30 PM in Chicago on 2 December (CST, UTC−6).
+      promisedAt: '2026-12-02T23:30:00.000Z',
+      lines: [{ title: 'Diagnose engine warning light', bookHours: 1 }],
+    });
+    expect(body?.customer.email).toBeUndefined();
+  });
+
+  it('puts each problem at its field', () => {
+    const draft = filled({
+      customer: { name: '', phone: '', email: 'not-mail' },
+      vehicle: { vin: 'ABC', year: '19x', make: '', model: 'Tessel', plate: '', odometer: '' },
+      concern: '',
+      promisedDate: '2026-12-02',
+      lines: [{ key: 'a', title: '', bookHours: 'one', skillLevel: '' }],
+    });
+    const { body, errors } = toRepairOrder(draft, ZONE);
+    expect(body).toBeNull();
+    expect(errors).toMatchObject({
+      'customer.name': 'Enter the customer’s name',
+      'customer.email': 'Not an e-mail address',
+      'vehicle.vin': 'A VIN has 17 characters',
+      'vehicle.year': 'A year, like 2019',
+      'vehicle.make': 'Enter the make',
+      'vehicle.odometer': 'Enter the odometer reading',
+      concern: 'Say what the customer asked for',
+      promised: 'Pick a time too',
+      'lines.0.title': 'Give the line a title',
+      'lines.0.bookHours': 'Hours, like 1.5',
+    });
+  });
+
+  it('checks the model year against the VIN', () => {
+    const { errors } = toRepairOrder(filled({ vehicle: { ...filled().vehicle, year: '2020' } }), ZONE);
+    expect(errors['vehicle.year']).toMatch(/means model year 2019/);
+  });
+
+  it('needs at least one line, and sends a reason for a lower odometer when given', () => {
+    expect(toRepairOrder(filled({ lines: [] }), ZONE).errors.lines).toBe('Add at least one job line');
+    expect(toRepairOrder(filled(), ZONE, 'Cluster replaced').body?.odometerOverrideReason).toBe(
+      'Cluster replaced',
+    );
+    expect(toRepairOrder(filled(), ZONE, 'x').errors.odometerOverrideReason).toBe('Say why, in a few words');
+  });
+});
+
+describe(formKey.name, () => {
+  it('maps the promised time to its two inputs', () => {
+    expect(formKey('promisedAt')).toBe('promised');
+    expect(formKey('vehicle.odometer')).toBe('vehicle.odometer');
+  });
+});
+
+describe(promiseChoices.name, () => {
+  it('offers closing time today while the shop is open, then the next open day', () => {
+    // Friday 2026-12-04 10:00 in Chicago.
+    const choices = promiseChoices(HOURS, ZONE, new Date('2026-12-04T16:00:00Z'));
+    expect(choices).toEqual([
+      { label: 'Today at close, 6:00 PM', date: '2026-12-04', time: '18:00' },
+      { label: 'Tomorrow at close, 1:00 PM', date: '2026-12-05', time: '13:00' },
+    ]);
+  });
+  it('skips today after closing and closed days', () => {
+    // Saturday 2026-12-05 15:00 in Chicago: closed at 13:00, shut on Sunday.
+    const choices = promiseChoices(HOURS, ZONE, new Date('2026-12-05T21:00:00Z'));
+    expect(choices.map((c) => c.date)).toEqual(['2026-12-07', '2026-12-08']);
+    expect(choices[0]?.label).toBe('Monday at close, 6:00 PM');
+  });
+});
+
+describe(clockText.name, () => {
+  it('writes a 24-hour time the 12-hour way', () => {
+    expect(clockText('17:30')).toBe('5:30 PM');
+    expect(clockText('00:05')).toBe('12:05 AM');
+    expect(clockText('12:00')).toBe('12:00 PM');
+  });
+});
+
+describe(previousVisit.name, () => {
+  it('finds the latest repair order for the VIN', () => {
+    const orders = [
+      {
+        vin: VALID_VIN,
+        number: '4400',
+        customerName: 'A',
+        vehicle: 'v',
+        odometer: 70000,
+        createdAt: '2026-01-01T00:00:00Z',
+      },
+      {
+        vin: VALID_VIN,
+        number: '4450',
+        customerName: 'B',
+        vehicle: 'v',
+        odometer: 80000,
+        createdAt: '2026-06-01T00:00:00Z',
+      },
+      {
+        vin: 'OTHER',
+        number: '4460',
+        customerName: 'C',
+        vehicle: 'v',
+        odometer: 1,
+        createdAt: '2026-07-01T00:00:00Z',
+      },
+    ];
+    expect(previousVisit(orders, VALID_VIN.toLowerCase())).toMatchObject({ number: '4450', odometer: 80000 });
+    expect(previousVisit(orders, '1M8GDM9AXKP042789')).toBeNull();
+  });
+});
+
+describe(matchOperations.name, () => {
+  const menu = [
+    { id: 1, title: 'Front brake pads and rotors', defaultBookHours: 1.8, skillLevel: 2, active: true },
+    { id: 2, title: 'Rear brake pads', defaultBookHours: 1.2, skillLevel: 2, active: true },
+    { id: 3, title: 'Coolant flush and fill', defaultBookHours: 1.1, skillLevel: 1, active: true },
+  ];
+  it('matches every typed word anywhere in the title', () => {
+    expect(matchOperations(menu, 'brake front').map((o) => o.id)).toEqual([1]);
+    expect(matchOperations(menu, 'PADS').map((o) => o.id)).toEqual([1, 2]);
+    expect(matchOperations(menu, '').length).toBe(3);
+  });
+  it('fills a line with the title, default hours and skill', () => {
+    const line = { key: 'a', title: 'bra', bookHours: '', skillLevel: '' };
+    expect(lineFromOperation(line, menu[0]!)).toEqual({
+      key: 'a',
+      title: 'Front brake pads and rotors',
+      bookHours: '1.8',
+      skillLevel: '2',
+    });
+  });
+});

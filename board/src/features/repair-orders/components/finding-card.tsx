@@ -1,0 +1,81 @@
+import { Badge, Body1, Caption1, makeStyles, tokens } from '@fluentui/react-components';
+import type { FindingAnswer, FindingDto, FindingSeverity } from '@baytime/shared';
+import { formatBookHours, formatDateTime } from '../ro-format';
+import { FindingPhoto } from './finding-photo';
+
+const useStyles = makeStyles({
+  card: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalS,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusMedium,
+    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
+    backgroundColor: tokens.colorNeutralBackground1,
+  },
+  head: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalS },
+  line: { fontWeight: tokens.fontWeightSemibold, marginRight: 'auto' },
+  note: { whiteSpace: 'pre-wrap' },
+  dim: { color: tokens.colorNeutralForeground3 },
+  photos: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
+});
+
+const SEVERITY: Record<FindingSeverity, { label: string; color: 'danger' | 'warning' | 'informative' }> = {
+  'safety-now': { label: 'Safety: fix now', color: 'danger' },
+  soon: { label: 'Fix soon', color: 'warning' },
+  watch: { label: 'Watch', color: 'informative' },
+};
+
+const ANSWER: Record<FindingAnswer, { label: string; color: 'warning' | 'success' | 'subtle' }> = {
+  pending: { label: 'Waiting for the customer', color: 'warning' },
+  approved: { label: 'Approved', color: 'success' },
+  declined: { label: 'Declined', color: 'subtle' },
+};
+
+export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZone: string | undefined }) {
+  const styles = useStyles();
+  const severity = SEVERITY[finding.severity];
+  const answer = ANSWER[finding.answer];
+  return (
+    <article className={styles.card} aria-label={`Finding on line ${finding.lineNo}`}>
+      <div className={styles.head}>
+        <Body1 className={styles.line}>
+          L{finding.lineNo} {finding.lineTitle}
+        </Body1>
+        <Badge appearance="filled" color={severity.color}>
+          {severity.label}
+        </Badge>
+        <Badge appearance="tint" color={answer.color}>
+          {answer.label}
+        </Badge>
+      </div>
+      <Body1 className={styles.note}>{finding.note}</Body1>
+      <Caption1 className={styles.dim}>
+        {finding.technicianName}, {formatDateTime(finding.createdAt, timeZone)}
+        {finding.suggestedHours !== null && ` · suggests ${formatBookHours(finding.suggestedHours)}`}
+        {finding.approvalRequestedAt &&
+          ` · approval e-mailed ${formatDateTime(finding.approvalRequestedAt, timeZone)}`}
+      </Caption1>
+      {finding.answer !== 'pending' && (
+        <Caption1>
+          <strong>{answer.label}</strong>
+          {finding.answeredBy && ` by ${finding.answeredBy}`}
+          {finding.answeredAt && `, ${formatDateTime(finding.answeredAt, timeZone)}`}
+          {finding.answerNote && `: “${finding.answerNote}”`}
+          {finding.createdLineId !== null && ' · added as a new job line'}
+        </Caption1>
+      )}
+      {finding.photos.length > 0 && (
+        <div className={styles.photos}>
+          {finding.photos.map((photo, index) => (
+            <FindingPhoto
+              key={photo.id}
+              photo={photo}
+              alt={`Photo ${index + 1} of the finding on line ${finding.lineNo}`}
+            />
+          ))}
+        </div>
+      )}
+    </article>
+  );
+}

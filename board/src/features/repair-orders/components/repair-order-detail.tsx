@@ -1,0 +1,411 @@
+import type { ReactNode } from 'react';
+import { Link as RouterLink, useNavigate } from 'react-router';
+import {
+  Badge,
+  Body1,
+  Button,
+  Caption1,
+  Card,
+  Link,
+  MessageBar,
+  MessageBarBody,
+  Spinner,
+  Subtitle2,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  makeStyles,
+  mergeClasses,
+  tokens,
+} from '@fluentui/react-components';
+import { ApiError } from '@baytime/shared/client';
+import { BAY_PALETTE } from '@baytime/shared';
+import { PageHeader } from '@/components/page-header';
+import { Glyph } from '@/components/glyph';
+import { paths } from '@/config/paths';
+import { formErrorText } from '@/lib/form-errors';
+import { useRepairOrder } from '../api/get-repair-order';
+import { useRepairOrderFindings } from '../api/get-findings';
+import { useDispatch } from '../api/get-dispatch';
+import type { RepairOrderSummary } from '../api/get-repair-orders';
+import { useMinuteNow } from '../hooks/use-minute-now';
+import { isLate, lateLineIds, lineRows, repairOrderHistory } from '../ro-model';
+import {
+  formatBookHours,
+  formatDateTime,
+  formatHm,
+  formatOdometer,
+  formatOverUnder,
+  groupVin,
+} from '../ro-format';
+import { FindingCard } from './finding-card';
+
+const useStyles = makeStyles({
+  page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL, maxWidth: '110rem' },
+  facts: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fit, minmax(15rem, 1fr))',
+    gap: `${tokens.spacingVerticalL} ${tokens.spacingHorizontalXXL}`,
+    padding: tokens.spacingHorizontalXL,
+  },
+  fact: { display: 'flex', flexDirection: 'column', gap: '2px', minWidth: 0 },
+  label: {
+    color: tokens.colorNeutralForeground3,
+    textTransform: 'uppercase',
+    letterSpacing: '0.06em',
+    marginBottom: '2px',
+  },
+  big: { fontSize: tokens.fontSizeBase400, fontWeight: tokens.fontWeightSemibold },
+  vin: { fontFamily: tokens.fontFamilyMonospace, letterSpacing: '0.04em' },
+  concern: { gridColumn: '1 / -1', whiteSpace: 'pre-wrap' },
+  dim: { color: tokens.colorNeutralForeground3 },
+  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  sectionHead: { display: 'flex', alignItems: 'baseline', gap: tokens.spacingHorizontalM },
+  scroll: { overflowX: 'auto' },
+  table: { tableLayout: 'auto' },
+  numeric: { fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
+  over: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
+  under: { color: tokens.colorPaletteGreenForeground1 },
+  lineTitle: { fontWeight: tokens.fontWeightSemibold },
+  status: { display: 'flex', flexDirection: 'column', alignItems: 'flex-start', gap: '2px' },
+  cell: { display: 'inline-flex', alignItems: 'center', gap: '4px', whiteSpace: 'nowrap' },
+  glyph: { width: '15px', height: '15px' },
+  late: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
+  total: { fontWeight: tokens.fontWeightSemibold },
+  findings: {
+    display: 'grid',
+    alignItems: 'start',
+    gridTemplateColumns: 'repeat(auto-fill, minmax(26rem, 1fr))',
+    gap: tokens.spacingHorizontalM,
+  },
+  history: {
+    margin: 0,
+    paddingLeft: 0,
+    listStyle: 'none',
+    display: 'flex',
+    flexDirection: 'column',
+    gap: '4px',
+  },
+  when: { display: 'inline-block', minWidth: '11rem', color: tokens.colorNeutralForeground3 },
+});
+
+const STATUS = {
+  open: { label: 'Open', color: 'brand' },
+  done: { label: 'Work done', color: 'success' },
+  closed: { label: 'Closed', color: 'subtle' },
+} as const;
+
+const LINE_STATUS_COLOURS = {
+  queued: 'informative',
+  working: 'brand',
+  held: 'warning',
+  done: 'success',
+} as const;
+
+export interface RepairOrderDetailProps {
+  id: number;
+  timeZone: string | undefined;
+  units: 'metric' | 'us' | undefined;
+  /** Foreman and owner get a way to dispatch the lines. */
+  canDispatch: boolean;
+  /** Just written: say so. */
+  created: boolean;
+}
+
+export function RepairOrderDetail(props: RepairOrderDetailProps) {
+  if (!Number.isInteger(props.id) || props.id <= 0) return <Missing />;
+  return <LoadedDetail {...props} />;
+}
+
+function Missing() {
+  return (
+    <>
+      <PageHeader title="Repair order" />
+      <MessageBar intent="warning">
+        <MessageBarBody>
+          There is no repair order at this address.{' '}
+          <RouterLink to={paths.repairOrders}>All repair orders</RouterLink>
+        </MessageBarBody>
+      </MessageBar>
+    </>
+  );
+}
+
+function LoadedDetail(props: RepairOrderDetailProps) {
+  const ro = useRepairOrder(props.id);
+  if (ro.isPending)
+    return (
+      <>
+        <PageHeader title="Repair order" />
+        <Spinner label="Loading the repair order…" />
+      </>
+    );
+  if (ro.isError) {
+    if (ro.error instanceof ApiError && ro.error.status === 404) return <Missing />;
+    return (
+      <>
+        <PageHeader title="Repair order" />
+        <MessageBar intent="error">
+          <MessageBarBody>
+            {formErrorText(ro.error)}{' '}
+            <Button size="small" onClick={() => void ro.refetch()}>
+              Try again
+            </Button>
+          </MessageBarBody>
+        </MessageBar>
+      </>
+    );
+  }
+  return <Detail ro={ro.data} {...props} />;
+}
+
+function Fact({ label, children, className }: { label: string; children: ReactNode; className?: string }) {
+  const styles = useStyles();
+  return (
+    <div className={mergeClasses(styles.fact, className)}>
+      <Caption1 className={styles.label}>{label}</Caption1>
+      {children}
+    </div>
+  );
+}
+
+function Detail({
+  ro,
+  timeZone,
+  units,
+  canDispatch,
+  created,
+}: RepairOrderDetailProps & { ro: RepairOrderSummary }) {
+  const styles = useStyles();
+  const navigate = useNavigate();
+  const nowMs = useMinuteNow();
+  const findings = useRepairOrderFindings(ro.id);
+  const dispatch = useDispatch();
+  const rows = lineRows(ro, dispatch.data, findings.data);
+  const late = isLate(ro, nowMs, lateLineIds(dispatch.data));
+  const history = repairOrderHistory(ro, findings.data ?? []);
+  const status = STATUS[ro.status];
+  const bookTotal = ro.lines.reduce((sum, line) => sum + line.bookHours, 0);
+  const clockedTotal = rows.reduce((sum, row) => sum + row.clockedSeconds, 0);
+
+  return (
+    <div className={styles.page}>
+      <PageHeader
+        title={`RO ${ro.number}`}
+        description={`${ro.vehicle} · ${ro.customerName}`}
+        actions={
+          <>
+            <Badge size="large" appearance="tint" color={status.color}>
+              {status.label}
+            </Badge>
+            {late && (
+              <Badge size="large" appearance="filled" color="danger">
+                LATE
+              </Badge>
+            )}
+            {canDispatch && ro.status === 'open' && (
+              <Button onClick={() => void navigate(paths.dispatch)}>Open dispatch</Button>
+            )}
+            <Button appearance="subtle" onClick={() => void navigate(paths.repairOrders)}>
+              All repair orders
+            </Button>
+          </>
+        }
+      />
+      {created && (
+        <MessageBar intent="success">
+          <MessageBarBody>
+            RO {ro.number} is written. Its {ro.lines.length === 1 ? 'line waits' : 'lines wait'} in the
+            dispatch queue.
+          </MessageBarBody>
+        </MessageBar>
+      )}
+
+      <Card className={styles.facts}>
+        <Fact label="Customer">
+          <Body1 className={styles.big}>{ro.customerName}</Body1>
+          {ro.customerPhone && <Link href={`tel:${ro.customerPhone}`}>{ro.customerPhone}</Link>}
+          {ro.customerEmail && <Link href={`mailto:${ro.customerEmail}`}>{ro.customerEmail}</Link>}
+          {'customerPhone' in ro && !ro.customerPhone && !ro.customerEmail && (
+            <Caption1 className={styles.dim}>No phone or e-mail on file</Caption1>
+          )}
+        </Fact>
+        <Fact label="Vehicle">
+          <Body1 className={styles.big}>{ro.vehicle}</Body1>
+          <Body1 className={styles.vin} aria-label={`VIN ${ro.vin.split('').join(' ')}`}>
+            {groupVin(ro.vin)}
+          </Body1>
+          <Body1>
+            {formatOdometer(ro.odometer, units)}
+            {ro.plate && ` · plate ${ro.plate}`}
+          </Body1>
+        </Fact>
+        <Fact label="Promised">
+          <Body1 className={mergeClasses(styles.big, late && styles.late)}>
+            {ro.promisedAt ? formatDateTime(ro.promisedAt, timeZone) : 'No time promised'}
+          </Body1>
+          <Caption1 className={styles.dim}>
+            Written {formatDateTime(ro.createdAt, timeZone)}
+            {ro.advisorName && ` by ${ro.advisorName}`}
+          </Caption1>
+        </Fact>
+        <Fact label="Labour">
+          <Body1 className={styles.big}>{formatBookHours(bookTotal)} book</Body1>
+          <Caption1 className={styles.dim}>
+            {ro.lines.filter((line) => line.status === 'done').length} of {ro.lines.length} lines done
+            {` · ${formatHm(clockedTotal)} clocked`}
+          </Caption1>
+        </Fact>
+        <Fact label="Concern" className={styles.concern}>
+          <Body1>{ro.concern}</Body1>
+        </Fact>
+      </Card>
+
+      <section className={styles.section} aria-labelledby="ro-lines">
+        <Subtitle2 as="h2" id="ro-lines">
+          Job lines
+        </Subtitle2>
+        <div className={styles.scroll}>
+          <Table className={styles.table} aria-labelledby="ro-lines" size="small">
+            <TableHeader>
+              <TableRow>
+                <TableHeaderCell>Line</TableHeaderCell>
+                <TableHeaderCell>Status</TableHeaderCell>
+                <TableHeaderCell>Technician</TableHeaderCell>
+                <TableHeaderCell>Bay</TableHeaderCell>
+                <TableHeaderCell>Book</TableHeaderCell>
+                <TableHeaderCell>Clocked</TableHeaderCell>
+                <TableHeaderCell>Over / under</TableHeaderCell>
+                <TableHeaderCell>Finish</TableHeaderCell>
+              </TableRow>
+            </TableHeader>
+            <TableBody>
+              {rows.map(({ line, statusText, technician, bay, clockedSeconds, onTheClock, forecast }) => {
+                const over = clockedSeconds > line.bookHours * 3600 + 59;
+                const bayState = dispatch.data?.bays.find((b) => b.id === line.bayId)?.state;
+                return (
+                  <TableRow key={line.id}>
+                    <TableCell>
+                      <span className={styles.lineTitle}>
+                        L{line.lineNo} {line.title}
+                      </span>
+                      <Caption1 className={styles.dim}> · level {line.skillLevel}</Caption1>
+                    </TableCell>
+                    <TableCell>
+                      <div className={styles.status}>
+                        <Badge appearance="tint" color={LINE_STATUS_COLOURS[line.status]}>
+                          {statusText}
+                        </Badge>
+                        {onTheClock.length > 0 && (
+                          <Caption1 className={styles.cell}>
+                            <Glyph name="wrench" className={styles.glyph} />
+                            {onTheClock.join(', ')} on the clock
+                          </Caption1>
+                        )}
+                      </div>
+                    </TableCell>
+                    <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
+                    <TableCell>
+                      {bay ? (
+                        <span className={styles.cell}>
+                          {bayState && <Glyph name={BAY_PALETTE[bayState].icon} className={styles.glyph} />}
+                          {bay}
+                        </span>
+                      ) : (
+                        <span className={styles.dim}>—</span>
+                      )}
+                    </TableCell>
+                    <TableCell className={styles.numeric}>{formatBookHours(line.bookHours)}</TableCell>
+                    <TableCell className={styles.numeric}>{formatHm(clockedSeconds)}</TableCell>
+                    <TableCell className={mergeClasses(styles.numeric, over ? styles.over : undefined)}>
+                      {clockedSeconds === 0 && line.status === 'queued'
+                        ? '—'
+                        : formatOverUnder(clockedSeconds, line.bookHours, line.status === 'done')}
+                    </TableCell>
+                    <TableCell className={styles.numeric}>
+                      {line.completedAt ? (
+                        <>Done {formatDateTime(line.completedAt, timeZone)}</>
+                      ) : forecast ? (
+                        <span className={forecast.late ? styles.late : undefined}>
+                          ≈ {formatDateTime(forecast.finishAt, timeZone)}
+                          {forecast.late && ' · LATE'}
+                        </span>
+                      ) : (
+                        <span className={styles.dim}>
+                          {line.status === 'held'
+                            ? 'On hold'
+                            : line.technicianId === null
+                              ? 'Not assigned'
+                              : '—'}
+                        </span>
+                      )}
+                    </TableCell>
+                  </TableRow>
+                );
+              })}
+              <TableRow>
+                <TableCell className={styles.total}>Total</TableCell>
+                <TableCell />
+                <TableCell />
+                <TableCell />
+                <TableCell className={mergeClasses(styles.numeric, styles.total)}>
+                  {formatBookHours(bookTotal)}
+                </TableCell>
+                <TableCell className={mergeClasses(styles.numeric, styles.total)}>
+                  {formatHm(clockedTotal)}
+                </TableCell>
+                <TableCell />
+                <TableCell />
+              </TableRow>
+            </TableBody>
+          </Table>
+        </div>
+      </section>
+
+      <section className={styles.section} aria-labelledby="ro-findings">
+        <div className={styles.sectionHead}>
+          <Subtitle2 as="h2" id="ro-findings">
+            Findings
+          </Subtitle2>
+          {findings.data && findings.data.length > 0 && (
+            <Caption1 className={styles.dim}>
+              {findings.data.filter((f) => f.answer === 'pending').length} waiting for an answer
+            </Caption1>
+          )}
+        </div>
+        {findings.isPending ? (
+          <Spinner size="small" label="Loading findings…" />
+        ) : findings.isError ? (
+          <MessageBar intent="error">
+            <MessageBarBody>{formErrorText(findings.error)}</MessageBarBody>
+          </MessageBar>
+        ) : findings.data.length === 0 ? (
+          <Body1 className={styles.dim}>No findings on this repair order.</Body1>
+        ) : (
+          <div className={styles.findings}>
+            {findings.data.map((finding) => (
+              <FindingCard key={finding.id} finding={finding} timeZone={timeZone} />
+            ))}
+          </div>
+        )}
+      </section>
+
+      <section className={styles.section} aria-labelledby="ro-history">
+        <Subtitle2 as="h2" id="ro-history">
+          History
+        </Subtitle2>
+        <ul className={styles.history}>
+          {history.map((entry, index) => (
+            <li key={`${entry.at}-${index}`}>
+              <Caption1 className={styles.when}>{formatDateTime(entry.at, timeZone)}</Caption1>
+              <Body1>{entry.text}</Body1>
+            </li>
+          ))}
+        </ul>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import {
+  clockValue,
+  dayValue,
+  formatClock,
+  formatDay,
+  formatDayClock,
+  formatDecimalHours,
+  formatHm,
+  auditText,
+} from './timecard-format';
+
+describe('timecard formats', () => {
+  it('writes durations as h:mm and decimal hours', () => {
+    expect(formatHm(0)).toBe('0:00');
+    expect(formatHm(30_900)).toBe('8:35');
+    expect(formatHm(59)).toBe('0:01');
+    expect(formatHm(-5)).toBe('0:00');
+    expect(formatDecimalHours(30_900)).toBe('8.58 h');
+  });
+
+  it('writes instants in the shop time zone, not the computer’s', () => {
+    expect(formatClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('7:25 AM');
+    expect(formatDayClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('Mon, Nov 30, 7:25 AM');
+    expect(clockValue('2026-11-30T04:05:00Z', 'America/Chicago')).toBe('22:05');
+    expect(dayValue('2026-11-30T04:05:00Z', 'America/Chicago')).toBe('2026-11-29');
+  });
+
+  it('writes a local day as given', () => {
+    expect(formatDay('2026-11-30')).toBe('Mon, Nov 30');
+  });
+});
+
+describe(auditText.name, () => {
+  it('says what a correction did and why', () => {
+    expect(
+      auditText(
+        {
+          action: 'correct',
+          detail: {
+            supersedes: 'x',
+            kind: 'shift-in',
+            at: '2026-11-30T13:20:00Z',
+            reason: 'Forgot to badge',
+          },
+        },
+        'America/Chicago',
+      ),
+    ).toEqual({ action: 'Replaced a punch', detail: 'Shift in at Mon, Nov 30, 7:20 AM: “Forgot to badge”' });
+  });
+
+  it('copes with an action it does not know and no detail', () => {
+    expect(auditText({ action: 'bulk-import', detail: null }, 'UTC')).toEqual({
+      action: 'bulk import',
+      detail: '',
+    });
+  });
+});

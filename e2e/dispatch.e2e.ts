@@ -1,0 +1,114 @@
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { DispatchBoard } from '@baytime/shared';
+import { openBrowser, screenshotPath } from './support/browser.js';
+import { apiAs, bayTile, openWall, signInAtKiosk, type Api } from './support/floor.js';
+import { startServer, type RunningServer } from './support/server.js';
+
+// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X; model year code K.
+const VIN = '1M8GDM9AXKP042788';
+const WRONG_VIN = '1M8GDM9A4KP042788';
+
+async function signInAtOffice(page: Page, server: RunningServer, email: string): Promise<void> {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('baytime-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+describe('repair-order intake and dispatch', () => {
+  let server: RunningServer;
+  let office: BrowserContext;
+  let kiosks: BrowserContext;
+  let foremanApi: Api;
+  beforeAll(async () => {
+    server = await startServer();
+    office = await openBrowser({ width: 1600, height: 1000 });
+    kiosks = await openBrowser();
+    foremanApi = await apiAs(server, 'foreman@marlowcreek.test');
+    // Bay 3 holds a car waiting for parts in the demo: move it out so the bay is free for this RO.
+    const board = await foremanApi<DispatchBoard>('GET', '/dispatch');
+    const bay3 = board.bays.find((b) => b.name === 'Bay 3')!;
+    for (const lane of board.lanes)
+      for (const line of lane.lines)
+        if (line.bayId === bay3.id) await foremanApi('PATCH', `/job-lines/${line.id}`, { bayId: null });
+    await foremanApi('POST', `/bays/${bay3.id}/release`);
+  });
+  afterAll(async () => {
+    await office?.close();
+    await kiosks?.close();
+    await server?.stop();
+  });
+
+  it('writes an RO, assigns line 1 to a tech in bay 3 live, and moves it to another tech', async () => {
+    const advisor = await office.newPage();
+    await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
+    await advisor.goto(`${server.url}/repair-orders/new`);
+    await advisor.getByLabel('Name').fill('Wendell Farrow');
+    await advisor.getByLabel('VIN').fill(WRONG_VIN);
+    await advisor.getByText('Check digit should be X, not 4').waitFor();
+    await advisor.screenshot({ path: screenshotPath('intake-wrong-vin') });
+    await advisor.getByLabel('VIN').fill(VIN);
+    await advisor.getByLabel('Make').fill('Halvard');
+    await advisor.getByLabel(/^Model\s*\*?$/).fill('Morrow');
+    await advisor.getByLabel(/Odometer/).fill('61200');
+    await advisor.getByLabel('What the customer asked for').fill('Shudder pulling away; due for service');
+    const line1 = advisor.getByRole('group', { name: 'Line 1' });
+    await line1.getByPlaceholder(/Search the menu/).fill('Inspect engine and transmission mounts');
+    await line1.getByLabel('Book hours').fill('0.8');
+    await advisor.getByRole('button', { name: 'Add a line' }).click();
+    const line2 = advisor.getByRole('group', { name: 'Line 2' });
+    await line2.getByPlaceholder(/Search the menu/).fill('Road test and report');
+    await line2.getByLabel('Line 2 book hours').fill('0.5');
+    await advisor.getByRole('button', { name: 'Write repair order' }).click();
+    await advisor.waitForURL(/\/repair-orders\/\d+$/);
+    const roId = Number(new URL(advisor.url()).pathname.split('/').pop());
+    await advisor.screenshot({ path: screenshotPath('intake-written') });
+
+    const ro = (await foremanApi<DispatchBoard>('GET', '/dispatch')).queue.filter(
+      (l) => l.repairOrderId === roId,
+    );
+    expect(ro.map((l) => l.title)).toEqual([
+      'Inspect engine and transmission mounts',
+      'Road test and report',
+    ]);
+    const line = ro.find((l) => l.lineNo === 1)!;
+
+    const jo = await kiosks.newPage();
+    await signInAtKiosk(jo, server, '1045');
+    const sam = await kiosks.newPage();
+    await signInAtKiosk(sam, server, '1046');
+    const wall = await office.newPage();
+    await wall.setViewportSize({ width: 1920, height: 1080 });
+    await openWall(wall, server);
+
+    const foremanDesk = await openBrowser({ width: 1600, height: 1000 });
+    const foreman = await foremanDesk.newPage();
+    await signInAtOffice(foreman, server, 'foreman@marlowcreek.test');
+    await foreman.goto(`${server.url}/dispatch`);
+    const move = (name: RegExp) => foreman.getByRole('button', { name }).first();
+    const menuFor = new RegExp(`Move line 1, .*RO ${line.repairOrderNumber}`);
+
+    await move(menuFor).click();
+    await foreman.getByRole('menuitem', { name: 'Bay' }).click();
+    await foreman.getByRole('menuitemradio', { name: /^Bay 3/ }).click();
+    await expect.poll(() => bayTile(wall, 'Bay 3').textContent(), { timeout: 3000 }).toMatch(/staged/i);
+
+    await move(menuFor).click();
+    await foreman.getByRole('menuitemradio', { name: /Jo Whitfield/ }).click();
+    const assignedAt = Date.now();
+    await jo.getByText(line.title).waitFor({ timeout: 1000 });
+    expect(Date.now() - assignedAt).toBeLessThan(1000);
+    expect(await bayTile(wall, 'Bay 3').textContent()).toMatch(/staged/i);
+    await foreman.screenshot({ path: screenshotPath('dispatch-assigned') });
+    await wall.screenshot({ path: screenshotPath('dispatch-wall-bay3-staged') });
+
+    await move(menuFor).click();
+    await foreman.getByRole('menuitemradio', { name: /Sam Ortega/ }).click();
+    await sam.getByText(line.title).waitFor({ timeout: 1000 });
+    await jo.getByText(line.title).waitFor({ state: 'detached', timeout: 1000 });
+    await sam.screenshot({ path: screenshotPath('dispatch-kiosk-sam') });
+    await foremanDesk.close();
+  });
+});
