@@ -1,21 +1,13 @@
-import type { BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DispatchBoard } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
-import { apiAs, bayTile, openWall, signInAtKiosk, type Api } from './support/floor.js';
+import { apiAs, bayTile, openWall, signInAtKiosk, signInAtOffice, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 // 49 CFR 565.15 worked example (CHECKS.md §7): check digit X; model year code K.
 const VIN = '1M8GDM9AXKP042788';
 const WRONG_VIN = '1M8GDM9A4KP042788';
-
-async function signInAtOffice(page: Page, server: RunningServer, email: string): Promise<void> {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('baytime-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
 
 describe('repair-order intake and dispatch', () => {
   let server: RunningServer;

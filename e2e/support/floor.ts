@@ -55,3 +55,12 @@ export async function apiAs(server: RunningServer, email: string): Promise<Api> 
     return (await response.json()) as T;
   };
 }
+
+/** Signs in at the office sign-in page with a demo password; each browser context holds one sign-in. */
+export async function signInAtOffice(page: Page, server: RunningServer, email: string): Promise<void> {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('baytime-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}

@@ -435,12 +435,14 @@ export class DemoShopSeeder {
   ): { id: number; lineIds: number[] } {
     const model = this.pick(MODELS);
     const year = 2016 + Math.floor(this.random() * 8);
+    const name = this.pick(CUSTOMERS);
     const customer = this.db
       .insert(customers)
       .values({
-        name: this.pick(CUSTOMERS),
+        name,
         phone: `555-01${String(Math.floor(this.random() * 100)).padStart(2, '0')}`,
-        email: null,
+        // example.test never delivers anywhere: demo mail lands in the local test mailbox.
+        email: `${name.toLowerCase().replace(/\s+/g, '.')}@example.test`,
         createdAt,
       })
       .returning()
