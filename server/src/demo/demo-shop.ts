@@ -472,7 +472,7 @@ export class DemoShopSeeder {
         concern: lines.map((line) => line.title).join('; '),
         odometer,
         status,
-        promisedAt: new Date(createdAt.getTime() + 8 * 3600_000),
+        promisedAt: this.promiseFor(createdAt),
         createdAt,
         closedAt: status === 'closed' ? lines.at(-1)?.completedAt : null,
       })
@@ -518,6 +518,19 @@ export class DemoShopSeeder {
 
   private setBay(id: number, phase: (typeof BAY_PHASES)[number], repairOrderId: number, since: Date): void {
     this.db.update(bays).set({ phase, repairOrderId, phaseSince: since }).where(eq(bays.id, id)).run();
+  }
+
+  /** Customers are promised the car at closing time, today if there are two hours left, else tomorrow. */
+  private promiseFor(createdAt: Date): Date {
+    const earliest = new Date(createdAt.getTime() + 2 * 3600_000);
+    const close = shopLocalInstant(shopDayKey(earliest, SHOP.timeZone), '17:30', SHOP.timeZone);
+    return close >= earliest
+      ? close
+      : shopLocalInstant(
+          shopDayKey(new Date(close.getTime() + 24 * 3600_000), SHOP.timeZone),
+          '17:30',
+          SHOP.timeZone,
+        );
   }
 
   private pastWorkdays(now: Date, count: number): string[] {

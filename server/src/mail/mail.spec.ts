@@ -101,10 +101,11 @@ describe(MailService.name, () => {
 
       const request = () =>
         sut.http().post(`/api/findings/${finding.id}/request-approval`).auth(advisor, { type: 'bearer' });
+      const ro = db.select().from(repairOrders).where(eq(repairOrders.id, finding.repairOrderId)).get()!;
+      db.update(customers).set({ email: null }).where(eq(customers.id, ro.customerId)).run();
       const { body: refused } = await request().expect(400);
       expect(refused.message).toBe('The customer has no e-mail address');
 
-      const ro = db.select().from(repairOrders).where(eq(repairOrders.id, finding.repairOrderId)).get()!;
       db.update(customers)
         .set({ email: 'harriet@example.test' })
         .where(eq(customers.id, ro.customerId))
