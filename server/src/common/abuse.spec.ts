@@ -86,7 +86,7 @@ describe(ErrorsFilter.name, () => {
     );
     expect(tableCounts(sut.app.get<Sqlite>(SQLITE))).toEqual(before);
     await sut.http().get('/api/health').expect(200);
-  });
+  }, 90_000);
 
   it('answers random bodies on the sign-in routes with 400, 401 or 429', async () => {
     await fc.assert(
@@ -100,7 +100,7 @@ describe(ErrorsFilter.name, () => {
       ),
       { numRuns: 150 },
     );
-  });
+  }, 90_000);
 
   it('survives random socket handshakes and events', async () => {
     const before = tableCounts(sut.app.get<Sqlite>(SQLITE));
@@ -127,7 +127,7 @@ describe(ErrorsFilter.name, () => {
     );
     expect(tableCounts(sut.app.get<Sqlite>(SQLITE))).toEqual(before);
     await sut.http().get('/api/health').expect(200);
-  });
+  }, 90_000);
 
   it('sends security headers and a content security policy', async () => {
     const { headers } = await sut.http().get('/api/health').expect(200);
