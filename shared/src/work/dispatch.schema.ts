@@ -1,22 +1,10 @@
-import type { BayState, HoldReason } from '../bays/bays.schema.js';
+import type { BayState } from '../bays/bays.schema.js';
 import type { PersonStatus } from '../board/board.schema.js';
-import type { JobLineStatus, Priority } from './work.schema.js';
+import type { JobLineDto } from './work.schema.js';
 
-export interface DispatchLine {
-  id: number;
-  repairOrderId: number;
+export interface DispatchLine extends Omit<JobLineDto, 'completedAt'> {
   repairOrderNumber: string;
   vehicle: string;
-  lineNo: number;
-  title: string;
-  bookHours: number;
-  skillLevel: number;
-  status: JobLineStatus;
-  holdReason: HoldReason | null;
-  priority: Priority;
-  technicianId: number | null;
-  bayId: number | null;
-  promisedAt: string | null;
   queuedAt: string;
   clockedSeconds: number;
   /** Technicians clocked on it now. */

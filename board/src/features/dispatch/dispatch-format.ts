@@ -1,3 +1,4 @@
+import { dateTimeFormat } from '@/lib/date-format';
 /** Short shapes for dispatch: times in the shop's zone, hours of labour, waits. */
 
 function pad2(n: number): string {
@@ -30,24 +31,8 @@ export function formatEfficiency(efficiency: number | null): string {
   return efficiency === null ? 'new' : `${Math.round(efficiency * 100)} %`;
 }
 
-const formats = new Map<string, Intl.DateTimeFormat>();
-
-function format(timeZone: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
-  const key = `${timeZone ?? ''}|${JSON.stringify(options)}`;
-  let found = formats.get(key);
-  if (!found) {
-    try {
-      found = new Intl.DateTimeFormat('en-US', { ...options, timeZone });
-    } catch {
-      found = new Intl.DateTimeFormat('en-US', options);
-    }
-    formats.set(key, found);
-  }
-  return found;
-}
-
 function dayKey(ms: number, timeZone: string | undefined): string {
-  return format(timeZone, { year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(ms));
+  return dateTimeFormat(timeZone, { year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(ms));
 }
 
 /**
@@ -56,12 +41,12 @@ function dayKey(ms: number, timeZone: string | undefined): string {
  */
 export function formatShopTime(iso: string, nowMs: number, timeZone: string | undefined): string {
   const ms = Date.parse(iso);
-  const time = format(timeZone, { hour: 'numeric', minute: '2-digit' }).format(new Date(ms));
+  const time = dateTimeFormat(timeZone, { hour: 'numeric', minute: '2-digit' }).format(new Date(ms));
   if (dayKey(ms, timeZone) === dayKey(nowMs, timeZone)) return time;
   const days = Math.abs(ms - nowMs) / 86_400_000;
   const day =
     days < 6
-      ? format(timeZone, { weekday: 'short' }).format(new Date(ms))
-      : format(timeZone, { month: 'short', day: 'numeric' }).format(new Date(ms));
+      ? dateTimeFormat(timeZone, { weekday: 'short' }).format(new Date(ms))
+      : dateTimeFormat(timeZone, { month: 'short', day: 'numeric' }).format(new Date(ms));
   return `${day} ${time}`;
 }

@@ -1,28 +1,13 @@
+import { dateTimeFormat } from '@/lib/date-format';
 /** Formatting for repair orders: dates in the shop's zone, labour, odometers. */
 
 function pad2(n: number): string {
   return String(n).padStart(2, '0');
 }
 
-const formats = new Map<string, Intl.DateTimeFormat>();
-
-function format(timeZone: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
-  const key = `${timeZone ?? ''}|${JSON.stringify(options)}`;
-  let found = formats.get(key);
-  if (!found) {
-    try {
-      found = new Intl.DateTimeFormat('en-US', { ...options, timeZone });
-    } catch {
-      found = new Intl.DateTimeFormat('en-US', options);
-    }
-    formats.set(key, found);
-  }
-  return found;
-}
-
 /** "Wed, Dec 2, 4:30 PM" in the shop's zone. */
 export function formatDateTime(iso: string, timeZone: string | undefined): string {
-  return format(timeZone, {
+  return dateTimeFormat(timeZone, {
     weekday: 'short',
     month: 'short',
     day: 'numeric',

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { usePhoto } from '../api/get-photo';
+import { usePhoto } from '@/lib/photos';
 import { photoUrls } from '../photo-urls';
 
 function readAsDataUrl(blob: Blob): Promise<string> {

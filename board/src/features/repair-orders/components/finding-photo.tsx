@@ -14,7 +14,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { FindingPhotoDto } from '@baytime/shared';
-import { useAttachment } from '../api/get-attachment';
+import { usePhoto } from '@/lib/photos';
 
 const useStyles = makeStyles({
   thumb: {
@@ -54,7 +54,7 @@ function BlobImage({ blob, alt, className }: { blob: Blob; alt: string; classNam
 
 function AuthorisedImage({ url, alt, className }: { url: string; alt: string; className: string }) {
   const styles = useStyles();
-  const image = useAttachment(url);
+  const image = usePhoto(url);
   if (image.isError) return <Caption1 className={styles.failed}>Photo not available</Caption1>;
   if (!image.data) return <Spinner size="tiny" aria-label="Loading photo" />;
   return <BlobImage blob={image.data} alt={alt} className={className} />;

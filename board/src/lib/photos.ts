@@ -3,7 +3,7 @@ import { ApiError } from '@baytime/shared/client';
 import { officeToken } from '@/lib/token-store';
 
 /**
- * A finding photo's bytes. An `<img>` cannot send the bearer token, so the page fetches the image and
+ * A finding photo's bytes, for the findings inbox and the repair-order page alike. An `<img>` cannot send the bearer token, so the page fetches the image and
  * shows it from memory. `url` is the photo's `url` or `previewUrl` as the server gives it ("/api/…").
  */
 export async function getPhoto(url: string): Promise<Blob> {
