@@ -243,9 +243,9 @@ export class DemoShopSeeder {
     });
   }
 
-  /** The five working days before today: full shifts, a meal break, four jobs each, all done. */
+  /** The ten working days before today, so last week is complete in the reports: full shifts, a meal break, four jobs each, all done. */
   private seedPastWeek(now: Date, techIds: number[], bayIds: number[], advisorId: number): void {
-    const days = this.pastWorkdays(now, 5);
+    const days = this.pastWorkdays(now, 10);
     for (const day of days) {
       techIds.forEach((technicianId, t) => {
         const pace = TECHNICIANS[t]!.pace;
