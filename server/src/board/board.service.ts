@@ -40,6 +40,8 @@ function leadLine(lines: LineRow[], clockedOn: Set<number>): LineRow | undefined
 @Injectable()
 export class BoardService implements OnModuleInit, OnModuleDestroy {
   private published: BoardSnapshot | null = null;
+  /** Counted by dispatch from its forecasts; the board only carries the number. */
+  private lateLines = 0;
   private subscription: Subscription | null = null;
   private readonly queries: ReturnType<typeof prepareFloorQueries>;
 
@@ -76,9 +78,16 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     }
     if (
       after.bays.length !== before.bays.length ||
-      !isDeepStrictEqual([after.people, after.queue], [before.people, before.queue])
+      !isDeepStrictEqual(
+        [after.people, after.queue, after.lateLines],
+        [before.people, before.queue, before.lateLines],
+      )
     )
-      this.live.publish('floor.updated', { people: after.people, queue: after.queue }, { to: 'floor' });
+      this.live.publish(
+        'floor.updated',
+        { people: after.people, queue: after.queue, lateLines: after.lateLines },
+        { to: 'floor' },
+      );
     this.published = { ...after, seq: this.live.seq };
   }
 
@@ -208,7 +217,14 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       bays: boardBays,
       people,
       queue,
+      lateLines: this.lateLines,
     };
+  }
+
+  setLateLines(count: number): void {
+    if (count === this.lateLines) return;
+    this.lateLines = count;
+    this.live.changed();
   }
 
   private boardTimer(

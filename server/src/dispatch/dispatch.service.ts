@@ -1,4 +1,5 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import { debounceTime, interval, merge, type Subscription } from 'rxjs';
 import { and, asc, eq, gte, ne } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
@@ -12,9 +13,11 @@ import { BoardService, describeVehicle } from '../board/board.service.js';
 import { DB, type Db } from '../db/database.js';
 import { jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
 import { LabourService } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
+const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 
@@ -26,7 +29,8 @@ const byUrgency = (a: DispatchLine, b: DispatchLine) =>
 
 /** The foreman's view: the unassigned queue, a lane per technician with forecast finish times. */
 @Injectable()
-export class DispatchService {
+export class DispatchService implements OnModuleInit, OnModuleDestroy {
+  private subscription: Subscription | null = null;
   private efficiencyCache: { at: number; values: Map<number, number | null> } | null = null;
 
   constructor(
@@ -34,7 +38,20 @@ export class DispatchService {
     private readonly labour: LabourService,
     private readonly shop: ShopService,
     private readonly board: BoardService,
+    private readonly live: LiveService,
   ) {}
+
+  /** Keeps the wall's count of late lines: shortly after the floor changes, and each minute as time runs. */
+  onModuleInit(): void {
+    this.subscription = merge(
+      this.live.floorChanged$.pipe(debounceTime(LATE_COUNT_SETTLE_MS)),
+      interval(60_000),
+    ).subscribe(() => this.board.setLateLines(this.view().lateCount));
+  }
+
+  onModuleDestroy(): void {
+    this.subscription?.unsubscribe();
+  }
 
   view(now = new Date()): DispatchBoard {
     const settings = this.shop.settings();

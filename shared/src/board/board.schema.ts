@@ -66,4 +66,6 @@ export interface BoardSnapshot {
   bays: BoardBay[];
   people: BoardPerson[];
   queue: BoardQueueItem[];
+  /** Open lines forecast to finish after their promised time. */
+  lateLines: number;
 }

@@ -10,7 +10,9 @@ export interface Sequenced {
 export interface ServerToClientEvents {
   'board.snapshot': (snapshot: BoardSnapshot) => void;
   'bay.updated': (event: Sequenced & { bay: BoardBay }) => void;
-  'floor.updated': (event: Sequenced & { people: BoardPerson[]; queue: BoardQueueItem[] }) => void;
+  'floor.updated': (
+    event: Sequenced & { people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number },
+  ) => void;
   'punch.recorded': (event: Sequenced & { punch: PunchDto }) => void;
   'job-line.updated': (event: Sequenced & { jobLine: JobLineDto }) => void;
   'timer.updated': (event: Sequenced & { timerId: number; bayId: number | null }) => void;

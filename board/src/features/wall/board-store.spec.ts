@@ -26,6 +26,7 @@ const snapshot = (seq: number, serverTime = '2026-03-02T15:00:00.000Z'): BoardSn
   bays: [bay(1), bay(2)],
   people: [],
   queue: [],
+  lateLines: 0,
 });
 
 describe(boardFromSnapshot.name, () => {
@@ -83,8 +84,13 @@ describe(applyEvent.name, () => {
         jobLineTitle: null,
       },
     ];
-    const result = applyEvent(start(), { type: 'floor.updated', seq: 11, people, queue: [] }, local);
+    const result = applyEvent(
+      start(),
+      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2 },
+      local,
+    );
     expect(result.board?.snapshot.people).toEqual(people);
+    expect(result.board?.snapshot.lateLines).toBe(2);
   });
 
   it('moves the seq on for events that do not change the board', () => {

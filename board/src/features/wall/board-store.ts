@@ -18,7 +18,7 @@ export interface BoardData {
 
 export type BoardEvent =
   | { type: 'bay.updated'; seq: number; bay: BoardBay }
-  | { type: 'floor.updated'; seq: number; people: BoardPerson[]; queue: BoardQueueItem[] }
+  | { type: 'floor.updated'; seq: number; people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number }
   /** A sequenced event that does not change what the board shows by itself (punch, job line, …). */
   | { type: 'other'; seq: number };
 
@@ -70,7 +70,12 @@ export function applyEvent(
         board: {
           ...board,
           seq: event.seq,
-          snapshot: { ...board.snapshot, people: event.people, queue: event.queue },
+          snapshot: {
+            ...board.snapshot,
+            people: event.people,
+            queue: event.queue,
+            lateLines: event.lateLines,
+          },
         },
         resync: false,
       };

@@ -67,6 +67,7 @@ const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot =>
   ],
   people: [],
   queue: [],
+  lateLines: 0,
 });
 
 describe(createLiveBoard.name, () => {

@@ -128,8 +128,13 @@ export function createLiveBoard(options: LiveBoardOptions): LiveBoard {
     'board.snapshot': (snapshot: BoardSnapshot) => takeSnapshot(snapshot),
     'bay.updated': ({ seq, bay }: Parameters<ServerToClientEvents['bay.updated']>[0]) =>
       onEvent({ type: 'bay.updated', seq, bay }),
-    'floor.updated': ({ seq, people, queue }: Parameters<ServerToClientEvents['floor.updated']>[0]) =>
-      onEvent({ type: 'floor.updated', seq, people, queue }),
+    'floor.updated': ({
+      seq,
+      people,
+      queue,
+      lateLines,
+    }: Parameters<ServerToClientEvents['floor.updated']>[0]) =>
+      onEvent({ type: 'floor.updated', seq, people, queue, lateLines }),
     'punch.recorded': ({ seq }: { seq: number }) => onEvent({ type: 'other', seq }),
     'job-line.updated': ({ seq }: { seq: number }) => onEvent({ type: 'other', seq }),
     'timer.updated': ({ seq }: { seq: number }) => onEvent({ type: 'other', seq }),

@@ -46,10 +46,11 @@ describe(queueSummary.name, () => {
       priority: 'normal' as const,
       waitingSince,
     });
-    expect(queueSummary([], now)).toEqual({ count: 0, oldestSeconds: null });
-    expect(queueSummary([item(1, '2026-03-02T14:30:00Z'), item(2, '2026-03-02T13:00:00Z')], now)).toEqual({
+    expect(queueSummary([], now)).toEqual({ count: 0, oldestSeconds: null, late: 0 });
+    expect(queueSummary([item(1, '2026-03-02T14:30:00Z'), item(2, '2026-03-02T13:00:00Z')], now, 3)).toEqual({
       count: 2,
       oldestSeconds: 7200,
+      late: 3,
     });
   });
 });

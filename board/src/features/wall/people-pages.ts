@@ -30,14 +30,17 @@ export function personChips(people: readonly BoardPerson[], nowMs: number): Pers
 export interface QueueSummary {
   count: number;
   oldestSeconds: number | null;
+  /** Open lines forecast to miss their promised time. */
+  late: number;
 }
 
-export function queueSummary(queue: readonly BoardQueueItem[], nowMs: number): QueueSummary {
-  if (!queue.length) return { count: 0, oldestSeconds: null };
+export function queueSummary(queue: readonly BoardQueueItem[], nowMs: number, late = 0): QueueSummary {
+  if (!queue.length) return { count: 0, oldestSeconds: null, late };
   const oldest = Math.min(...queue.map((item) => Date.parse(item.waitingSince)).filter(Number.isFinite));
   return {
     count: queue.length,
     oldestSeconds: Number.isFinite(oldest) ? Math.max(0, Math.floor((nowMs - oldest) / 1000)) : null,
+    late,
   };
 }
 

@@ -71,7 +71,7 @@ export function WallBoard({ token }: { token: string }) {
         offsetMs={clock.offsetMs}
         page={page}
         pages={layout.pages}
-        queue={queueSummary(snapshot.queue, now)}
+        queue={queueSummary(snapshot.queue, now, snapshot.lateLines)}
       />
       {snapshot.bays.length === 0 ? (
         <div className={styles.message} style={{ gridRow: 'auto' }}>

@@ -49,11 +49,12 @@ export function WallTopBar(props: WallTopBarProps) {
           ) : (
             <span>
               Queue <span className={styles.queueCount}>{queue.count}</span>
-              {queue.oldestSeconds !== null && (
+              {queue.late === 0 && queue.oldestSeconds !== null && (
                 <span className={styles.queueWait}> · oldest {formatSpan(queue.oldestSeconds)}</span>
               )}
             </span>
           )}
+          {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late</span>}
         </div>
       )}
       {pages > 1 && (
