@@ -1,4 +1,10 @@
-import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import {
+  Inject,
+  Injectable,
+  type OnApplicationBootstrap,
+  type OnModuleDestroy,
+  type OnModuleInit,
+} from '@nestjs/common';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
 import { and, asc, eq, gte, ne } from 'drizzle-orm';
 import {
@@ -29,7 +35,7 @@ const byUrgency = (a: DispatchLine, b: DispatchLine) =>
 
 /** The foreman's view: the unassigned queue, a lane per technician with forecast finish times. */
 @Injectable()
-export class DispatchService implements OnModuleInit, OnModuleDestroy {
+export class DispatchService implements OnModuleInit, OnApplicationBootstrap, OnModuleDestroy {
   private subscription: Subscription | null = null;
   private efficiencyCache: { at: number; values: Map<number, number | null> } | null = null;
 
@@ -47,6 +53,11 @@ export class DispatchService implements OnModuleInit, OnModuleDestroy {
       this.live.floorChanged$.pipe(debounceTime(LATE_COUNT_SETTLE_MS)),
       interval(60_000),
     ).subscribe(() => this.board.setLateLines(this.view().lateCount));
+  }
+
+  /** Once the shop's data is in place (after first-run seeding), the wall gets its first count. */
+  onApplicationBootstrap(): void {
+    this.board.setLateLines(this.view().lateCount);
   }
 
   onModuleDestroy(): void {
