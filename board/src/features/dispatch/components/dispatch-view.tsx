@@ -36,7 +36,7 @@ import {
   type MovePlan,
   type MoveTarget,
 } from '../dispatch-model';
-import { useMinuteNow } from '../hooks/use-minute-now';
+import { useMinuteNow } from '@/hooks/use-minute-now';
 import { BaysStrip } from './bays-strip';
 import { ConfirmMoveDialog } from './confirm-move-dialog';
 import { LineCard } from './line-card';

@@ -25,7 +25,7 @@ import { useRequestApproval } from '../api/request-approval';
 import { useSendReadyNotice } from '../api/send-ready-notice';
 import { groupAnswered, sortPending, type AnsweredGroup } from '../findings-model';
 import { useFindingsLive } from '../hooks/use-findings-live';
-import { useMinuteNow } from '../hooks/use-minute-now';
+import { useMinuteNow } from '@/hooks/use-minute-now';
 import { ApproveDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
 import { FindingPhotos } from './finding-photos';

@@ -31,7 +31,7 @@ import { useRepairOrder } from '../api/get-repair-order';
 import { useRepairOrderFindings } from '../api/get-findings';
 import { useDispatch } from '../api/get-dispatch';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { useMinuteNow } from '../hooks/use-minute-now';
+import { useMinuteNow } from '@/hooks/use-minute-now';
 import { isLate, lateLineIds, lineRows, repairOrderHistory } from '../ro-model';
 import {
   formatBookHours,

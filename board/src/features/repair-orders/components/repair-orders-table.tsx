@@ -25,7 +25,7 @@ import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
 import { useRepairOrders } from '../api/get-repair-orders';
 import { useDispatch } from '../api/get-dispatch';
-import { useMinuteNow } from '../hooks/use-minute-now';
+import { useMinuteNow } from '@/hooks/use-minute-now';
 import {
   advisorsOf,
   filterRepairOrders,
