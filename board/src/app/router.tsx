@@ -39,6 +39,7 @@ export const router = createBrowserRouter([
               office(paths.findings, () => import('./routes/office/findings')),
               office(paths.admin.users, () => import('./routes/office/admin-users')),
               office(paths.admin.bays, () => import('./routes/office/admin-bays')),
+              office(paths.admin.operations, () => import('./routes/office/admin-operations')),
               office(paths.admin.screens, () => import('./routes/office/admin-screens')),
               office(paths.admin.shop, () => import('./routes/office/admin-shop')),
               office(paths.admin.mailbox, () => import('./routes/office/admin-mailbox')),

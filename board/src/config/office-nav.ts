@@ -37,6 +37,7 @@ export const OFFICE_NAV: readonly NavGroup[] = [
     entries: [
       { label: 'Users', path: paths.admin.users, roles: OWNER },
       { label: 'Bays', path: paths.admin.bays, roles: OWNER },
+      { label: 'Operations menu', path: paths.admin.operations, roles: OWNER },
       { label: 'Wall screens', path: paths.admin.screens, roles: LEADS },
       { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
       { label: 'Test mailbox', path: paths.admin.mailbox, roles: OWNER },

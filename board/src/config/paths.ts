@@ -15,6 +15,7 @@ export const paths = {
   admin: {
     users: '/admin/users',
     bays: '/admin/bays',
+    operations: '/admin/operations',
     screens: '/admin/screens',
     shop: '/admin/shop',
     mailbox: '/admin/mailbox',
