@@ -85,6 +85,21 @@ describe(AuthService.name, () => {
     await sut.http().get('/api/me').auth(expired, { type: 'bearer' }).expect(401);
   });
 
+  it('does not let an owner lock themself out', async () => {
+    const owner = await sut.signIn(DEMO.owner);
+    const me = (await sut.http().get('/api/me').auth(owner, { type: 'bearer' }).expect(200)).body as {
+      id: number;
+    };
+    const { body } = await sut
+      .http()
+      .patch(`/api/users/${me.id}`)
+      .auth(owner, { type: 'bearer' })
+      .send({ active: false })
+      .expect(409);
+    expect(body.message).toMatch(/cannot deactivate your own account/);
+    await sut.http().get('/api/me').auth(owner, { type: 'bearer' }).expect(200);
+  });
+
   it('answers health without a token', async () => {
     const { body } = await sut.http().get('/api/health').expect(200);
     expect(body).toEqual({ ok: true, version: expect.any(String) });

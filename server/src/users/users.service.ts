@@ -52,6 +52,8 @@ export class UsersService {
   async update(id: number, body: UpdateUserBody, actor: Principal): Promise<UserDto> {
     const current = foundOrFail(this.db.select().from(users).where(eq(users.id, id)).get(), 'User');
     if (Object.keys(body).length === 0) return toUserDto(current);
+    if (body.active === false && id === actor.id)
+      throw new ConflictException('You cannot deactivate your own account: ask another owner');
     const { password, pin, email, ...rest } = body;
     const changes: Partial<typeof users.$inferInsert> = { ...rest };
     if (email !== undefined) changes.email = email.toLowerCase();
