@@ -1,4 +1,6 @@
 import { useState, type FormEvent } from 'react';
+import { FormErrorBar } from '@/components/form-error-bar';
+import { useCheckedSubmit } from '@/hooks/use-checked-submit';
 import {
   Badge,
   Button,
@@ -20,7 +22,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { BAY_KINDS, createBaySchema, updateBaySchema, type BayDto } from '@baytime/shared';
-import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { formErrorText } from '@/lib/form-errors';
 import { useBays } from '../api/get-bays';
 import { useCreateBay } from '../api/create-bay';
 import { useUpdateBay } from '../api/update-bay';
@@ -55,19 +57,11 @@ export function AddBayForm() {
   const create = useCreateBay();
   const [name, setName] = useState('');
   const [kind, setKind] = useState<BayKind>('two-post');
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const { errors, formError, submit: check } = useCheckedSubmit(createBaySchema, create);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    setFormError(null);
-    const parsed = createBaySchema.safeParse({ name, kind });
-    if (!parsed.success) return setErrors(issuesToFieldErrors(parsed.error.issues));
-    setErrors({});
-    create.mutate(parsed.data, {
-      onSuccess: () => setName(''),
-      onError: (error) => setFormError(formErrorText(error)),
-    });
+    check({ name, kind }, () => setName(''));
   };
 
   return (
@@ -96,11 +90,7 @@ export function AddBayForm() {
           {create.isPending ? 'Adding…' : 'Add bay'}
         </Button>
       </form>
-      {formError && (
-        <MessageBar intent="error">
-          <MessageBarBody>{formError}</MessageBarBody>
-        </MessageBar>
-      )}
+      <FormErrorBar message={formError} />
     </Card>
   );
 }

@@ -1,4 +1,6 @@
 import { useEffect, useState, type FormEvent } from 'react';
+import { FormErrorBar } from '@/components/form-error-bar';
+import { useCheckedSubmit } from '@/hooks/use-checked-submit';
 import {
   Button,
   Card,
@@ -65,30 +67,18 @@ export function AddOperationForm() {
   const [title, setTitle] = useState('');
   const [hours, setHours] = useState('');
   const [skillLevel, setSkillLevel] = useState(1);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    errors,
+    formError,
+    submit: check,
+  } = useCheckedSubmit(operationInputSchema, create, withHoursMessage);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    setFormError(null);
-    const parsed = operationInputSchema.safeParse({
-      title,
-      defaultBookHours: parseHours(hours),
-      skillLevel,
-    });
-    if (!parsed.success) return setErrors(withHoursMessage(issuesToFieldErrors(parsed.error.issues)));
-    setErrors({});
-    create.mutate(parsed.data, {
-      onSuccess: () => {
-        setTitle('');
-        setHours('');
-        setSkillLevel(1);
-      },
-      onError: (error) => {
-        if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0)
-          setErrors(error.fieldErrors);
-        else setFormError(formErrorText(error));
-      },
+    check({ title, defaultBookHours: parseHours(hours), skillLevel }, () => {
+      setTitle('');
+      setHours('');
+      setSkillLevel(1);
     });
   };
 
@@ -132,11 +122,7 @@ export function AddOperationForm() {
           {create.isPending ? 'Adding…' : 'Add operation'}
         </Button>
       </form>
-      {formError && (
-        <MessageBar intent="error">
-          <MessageBarBody>{formError}</MessageBarBody>
-        </MessageBar>
-      )}
+      <FormErrorBar message={formError} />
     </Card>
   );
 }
