@@ -1,13 +1,11 @@
-import { useEffect, useRef, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { createBoardSocket } from '@/lib/socket';
+import type { BoardSocket } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
+import { useOfficeSocket } from '@/lib/use-office-socket';
 import { findingsKey } from '../api/get-findings';
 
-/**
- * Keeps the inbox current: a new finding or a changed job line reloads the lists; `onNew` hears each new
- * finding's id. A gap in the shop's event sequence or a reconnect reloads them too.
- */
+/** Keeps the inbox current: a new finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
 export function useFindingsLive(onNew: (findingId: number) => void): void {
   const token = useSyncExternalStore(officeToken.subscribe, officeToken.get, officeToken.get);
   const queryClient = useQueryClient();
@@ -16,35 +14,19 @@ export function useFindingsLive(onNew: (findingId: number) => void): void {
     onNewRef.current = onNew;
   }, [onNew]);
 
-  useEffect(() => {
-    if (!token) return;
-    const socket = createBoardSocket(token);
-    const refresh = () => void queryClient.invalidateQueries({ queryKey: findingsKey });
-    let lastSeq: number | null = null;
-    let connectedBefore = false;
-    socket.on('connect', () => {
-      if (connectedBefore) refresh();
-      connectedBefore = true;
-    });
-    socket.on('board.snapshot', (snapshot) => {
-      lastSeq = snapshot.seq;
-    });
-    socket.onAny((event: string, payload?: { seq?: unknown }) => {
-      const seq = payload?.seq;
-      if (event === 'board.snapshot' || typeof seq !== 'number') return;
-      if (lastSeq !== null && seq > lastSeq + 1) refresh();
-      lastSeq = Math.max(lastSeq ?? seq, seq);
-    });
-    socket.on('finding.created', ({ findingId }) => {
-      onNewRef.current(findingId);
-      refresh();
-    });
-    socket.on('job-line.updated', refresh);
-    socket.connect();
-    return () => {
-      socket.removeAllListeners();
-      socket.offAny();
-      socket.disconnect();
-    };
-  }, [token, queryClient]);
+  const refresh = useCallback(
+    () => void queryClient.invalidateQueries({ queryKey: findingsKey }),
+    [queryClient],
+  );
+  const wire = useCallback(
+    (socket: BoardSocket) => {
+      socket.on('finding.created', ({ findingId }) => {
+        onNewRef.current(findingId);
+        refresh();
+      });
+      socket.on('job-line.updated', refresh);
+    },
+    [refresh],
+  );
+  useOfficeSocket(token, wire, refresh);
 }

@@ -1,7 +1,7 @@
-import { useEffect } from 'react';
+import { useCallback, useEffect, useRef } from 'react';
 import { useQueryClient, type QueryKey } from '@tanstack/react-query';
-import type { JobLineDto } from '@baytime/shared';
-import { createBoardSocket } from '@/lib/socket';
+import type { BoardSocket } from '@/lib/socket';
+import { useOfficeSocket } from '@/lib/use-office-socket';
 
 const SETTLE_MS = 300;
 
@@ -11,39 +11,35 @@ const SETTLE_MS = 300;
  */
 export function useLiveRepairOrders(token: string | null): void {
   const queryClient = useQueryClient();
+  const stale = useRef(new Map<string, QueryKey>());
+  const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+  useEffect(() => () => clearTimeout(timer.current), []);
 
-  useEffect(() => {
-    if (!token) return;
-    const socket = createBoardSocket(token);
-    const stale = new Map<string, QueryKey>();
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const mark = (...keys: QueryKey[]) => {
-      for (const key of keys) stale.set(JSON.stringify(key), key);
-      clearTimeout(timer);
-      timer = setTimeout(() => {
-        for (const key of stale.values()) void queryClient.invalidateQueries({ queryKey: key });
-        stale.clear();
+  const mark = useCallback(
+    (...keys: QueryKey[]) => {
+      for (const key of keys) stale.current.set(JSON.stringify(key), key);
+      clearTimeout(timer.current);
+      timer.current = setTimeout(() => {
+        for (const key of stale.current.values()) void queryClient.invalidateQueries({ queryKey: key });
+        stale.current.clear();
       }, SETTLE_MS);
-    };
-    const everything = () => mark(['repair-orders'], ['repair-order'], ['findings'], ['dispatch']);
-
-    // The first snapshot comes with the first connect, right after the page loaded its data.
-    let connectedBefore = false;
-    socket.on('board.snapshot', () => {
-      if (connectedBefore) everything();
-      connectedBefore = true;
-    });
-    socket.on('job-line.updated', ({ jobLine }: { jobLine: JobLineDto }) =>
-      mark(['repair-orders'], ['repair-order', jobLine.repairOrderId], ['dispatch']),
-    );
-    socket.on('punch.recorded', () => mark(['dispatch']));
-    socket.on('bay.updated', () => mark(['dispatch']));
-    socket.on('finding.created', () => mark(['findings'], ['repair-order']));
-    socket.connect();
-    return () => {
-      clearTimeout(timer);
-      socket.removeAllListeners();
-      socket.disconnect();
-    };
-  }, [token, queryClient]);
+    },
+    [queryClient],
+  );
+  const everything = useCallback(
+    () => mark(['repair-orders'], ['repair-order'], ['findings'], ['dispatch']),
+    [mark],
+  );
+  const wire = useCallback(
+    (socket: BoardSocket) => {
+      socket.on('job-line.updated', ({ jobLine }) =>
+        mark(['repair-orders'], ['repair-order', jobLine.repairOrderId], ['dispatch']),
+      );
+      socket.on('punch.recorded', () => mark(['dispatch']));
+      socket.on('bay.updated', () => mark(['dispatch']));
+      socket.on('finding.created', () => mark(['findings'], ['repair-order']));
+    },
+    [mark],
+  );
+  useOfficeSocket(token, wire, everything);
 }
