@@ -1,3 +1,4 @@
+import { FormErrorBar } from '@/components/form-error-bar';
 import { useState, type FormEvent } from 'react';
 import {
   Button,
@@ -91,11 +92,7 @@ export function SignInForm() {
           </MessageBarBody>
         </MessageBar>
       )}
-      {formError && (
-        <MessageBar intent="error">
-          <MessageBarBody>{formError}</MessageBarBody>
-        </MessageBar>
-      )}
+      <FormErrorBar message={formError} />
       <Field label="E-mail" required validationMessage={fieldErrors.email}>
         <Input
           type="email"

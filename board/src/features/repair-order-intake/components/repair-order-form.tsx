@@ -1,3 +1,4 @@
+import { FormErrorBar } from '@/components/form-error-bar';
 import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router';
 import {
@@ -588,11 +589,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
           </MessageBarBody>
         </MessageBar>
       )}
-      {formError && (
-        <MessageBar intent="error">
-          <MessageBarBody>{formError}</MessageBarBody>
-        </MessageBar>
-      )}
+      <FormErrorBar message={formError} />
       <div className={styles.actions}>
         <Button appearance="primary" type="submit" disabled={create.isPending}>
           {create.isPending ? 'Writing…' : 'Write repair order'}

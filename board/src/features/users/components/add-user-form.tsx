@@ -1,3 +1,4 @@
+import { FormErrorBar } from '@/components/form-error-bar';
 import { useState, type FormEvent } from 'react';
 import {
   Button,
@@ -242,11 +243,7 @@ export function AddUserForm({ onAdded }: { onAdded?: (user: UserDto) => void }) 
             </>
           )}
         </div>
-        {formError && (
-          <MessageBar intent="error">
-            <MessageBarBody>{formError}</MessageBarBody>
-          </MessageBar>
-        )}
+        <FormErrorBar message={formError} />
         {added && (
           <MessageBar intent="success">
             <MessageBarBody>{added}</MessageBarBody>
