@@ -52,8 +52,8 @@ describe('kiosk to wall board', () => {
     await expect
       .poll(() => bayTile(wall, bayName).textContent(), { timeout: 1000, interval: 25 })
       .toMatch(/working/i);
-    // Facts share a tile line and take turns every few seconds: the name shows within one turn.
-    await expect.poll(() => bayTile(wall, bayName).textContent(), { timeout: 6000 }).toContain('Jo W.');
+    // Facts share a tile line and take turns every 5 s: the name shows within a few turns.
+    await expect.poll(() => bayTile(wall, bayName).textContent(), { timeout: 30_000 }).toContain('Jo W.');
     expect(await wall.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
       true,
     );
