@@ -5,6 +5,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { countRows, DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 
@@ -20,6 +21,7 @@ const toBayDto = ({ id, name, kind, position, active }: typeof bays.$inferSelect
 export class BaysService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
   ) {}
@@ -28,6 +30,7 @@ export class BaysService {
     return this.db.select().from(bays).orderBy(asc(bays.position), asc(bays.id)).all().map(toBayDto);
   }
 
+  @Transactional()
   create(body: CreateBayBody, actor: Principal): BayDto {
     this.assertNameFree(body.name);
     const position = countRows(this.db, bays);
@@ -41,6 +44,7 @@ export class BaysService {
     return toBayDto(row);
   }
 
+  @Transactional()
   update(id: number, body: UpdateBayBody, actor: Principal): BayDto {
     const current = foundOrFail(this.db.select().from(bays).where(eq(bays.id, id)).get(), 'Bay');
     if (Object.keys(body).length === 0) return toBayDto(current);
@@ -52,6 +56,7 @@ export class BaysService {
   }
 
   /** The vehicle has left: the bay is free for the next one. */
+  @Transactional()
   release(id: number, actor: Principal): BayDto {
     foundOrFail(this.db.select().from(bays).where(eq(bays.id, id)).get(), 'Bay');
     const row = this.db

@@ -1,6 +1,7 @@
 import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { DB, openDatabase, SQLITE, type Sqlite, type Db } from './database.js';
+import { UnitOfWork } from './unit-of-work.js';
 
 @Global()
 @Module({
@@ -11,8 +12,9 @@ import { DB, openDatabase, SQLITE, type Sqlite, type Db } from './database.js';
       useFactory: (config: AppConfig): Sqlite => openDatabase(config.dbFile),
     },
     { provide: DB, inject: [SQLITE], useFactory: (sqlite: Sqlite): Db => sqlite.db },
+    UnitOfWork,
   ],
-  exports: [DB, SQLITE],
+  exports: [DB, SQLITE, UnitOfWork],
 })
 export class DatabaseModule implements OnApplicationShutdown {
   constructor(@Inject(SQLITE) private readonly sqlite: Sqlite) {}

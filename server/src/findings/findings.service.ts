@@ -21,6 +21,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { describeVehicle } from '../board/board.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import {
   attachments,
   auditLog,
@@ -36,7 +37,7 @@ import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
 import { NoticesService } from './notices.service.js';
-import { PhotoStore } from './photo-store.js';
+import { PhotoStore, type StoredPhoto } from './photo-store.js';
 import type { UploadedPhoto } from './photo-upload.js';
 
 type LineRow = typeof jobLines.$inferSelect;
@@ -66,6 +67,7 @@ export class FindingsService {
 
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly labour: LabourService,
@@ -84,39 +86,53 @@ export class FindingsService {
     const checked = await this.photos.check(uploaded);
     const stored = await this.photos.write(checked);
     // From here on nothing awaits: the checks, the rows and the hold see one state of the line.
-    const now = new Date();
     let findingId: number;
     try {
-      const line = this.lineFor(jobLineId, body, actor, now);
-      findingId = this.db.transaction((tx) => {
-        const finding = tx
-          .insert(findings)
-          .values({
-            jobLineId: line.id,
-            technicianId: actor.id,
-            note: body.note,
-            severity: body.severity,
-            suggestedHours: body.suggestedHours ?? null,
-            createdAt: now,
-          })
-          .returning()
-          .get();
-        for (const photo of stored)
-          tx.insert(attachments)
-            .values({ ...photo, findingId: finding.id, createdAt: now })
-            .run();
-        return finding.id;
-      });
+      findingId = this.uow.run(() => this.record(jobLineId, body, stored, actor, new Date()));
     } catch (error) {
       await this.photos.remove(stored.flatMap((photo) => [photo.storedName, photo.previewName]));
       throw error;
     }
+    try {
+      this.notices.findingCreated(findingId);
+    } catch (error) {
+      this.logger.error(`Could not queue the advisor's e-mail for finding ${findingId}: ${String(error)}`);
+    }
+    return this.get(findingId);
+  }
+
+  /** The finding, its photos, the hold and the audit row: one transaction. */
+  private record(
+    jobLineId: number,
+    body: CreateFindingBody,
+    stored: StoredPhoto[],
+    actor: Principal,
+    now: Date,
+  ): number {
+    const line = this.lineFor(jobLineId, body, actor, now);
+    const finding = this.db
+      .insert(findings)
+      .values({
+        jobLineId: line.id,
+        technicianId: actor.id,
+        note: body.note,
+        severity: body.severity,
+        suggestedHours: body.suggestedHours ?? null,
+        createdAt: now,
+      })
+      .returning()
+      .get();
+    for (const photo of stored)
+      this.db
+        .insert(attachments)
+        .values({ ...photo, findingId: finding.id, createdAt: now })
+        .run();
     if (body.holdForApproval) this.lines.hold(jobLineId, { reason: 'approval' }, actor, now);
     this.audit.record({
       actorId: actor.id,
       action: 'create',
       entity: 'finding',
-      entityId: findingId,
+      entityId: finding.id,
       detail: {
         jobLineId,
         severity: body.severity,
@@ -124,14 +140,9 @@ export class FindingsService {
         holdForApproval: body.holdForApproval,
       },
     });
-    this.live.publish('finding.created', { findingId, jobLineId });
+    this.live.publish('finding.created', { findingId: finding.id, jobLineId });
     this.live.changed();
-    try {
-      this.notices.findingCreated(findingId);
-    } catch (error) {
-      this.logger.error(`Could not queue the advisor's e-mail for finding ${findingId}: ${String(error)}`);
-    }
-    return this.get(findingId);
+    return finding.id;
   }
 
   list(query: FindingsQuery): FindingDto[] {
@@ -149,6 +160,7 @@ export class FindingsService {
    * The customer's yes adds a queued line to the RO; a no is noted on it. Either way a line held for
    * approval goes back to the queue once no finding on it waits for an answer.
    */
+  @Transactional()
   answer(id: number, body: FindingAnswerBody, actor: Principal, now = new Date()): FindingAnswerResult {
     const finding = foundOrFail(this.db.select().from(findings).where(eq(findings.id, id)).get(), 'Finding');
     if (finding.answer !== 'pending') throw new ConflictException('That finding was already answered');

@@ -6,6 +6,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { describeVehicle } from '../board/board.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import {
   attachments,
   customers,
@@ -29,6 +30,7 @@ const hours = (value: number) => `${Number(value.toFixed(2))} hour${value === 1 
 export class NoticesService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly mail: MailService,
     private readonly shop: ShopService,
     private readonly audit: AuditService,
@@ -36,6 +38,7 @@ export class NoticesService {
   ) {}
 
   /** Asks the customer to approve the extra work, with the finding's photos attached. */
+  @Transactional()
   requestApproval(findingId: number, actor: Principal): MailQueued {
     const { finding, line, ro, vehicle, customer } = this.findingContext(findingId);
     if (finding.answer !== 'pending') throw new ConflictException('That finding was already answered');
@@ -80,6 +83,7 @@ export class NoticesService {
   }
 
   /** Tells the customer the vehicle is ready, once every line on the repair order is done. */
+  @Transactional()
   readyNotice(repairOrderId: number, actor: Principal): MailQueued {
     const { ro, vehicle, customer } = foundOrFail(
       this.db

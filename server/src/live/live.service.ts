@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { Subject } from 'rxjs';
 import type { ServerToClientEvents } from '@baytime/shared';
+import { UnitOfWork } from '../db/unit-of-work.js';
 
 type Payload<E extends keyof ServerToClientEvents> = Omit<Parameters<ServerToClientEvents[E]>[0], 'seq'>;
 
@@ -32,6 +33,8 @@ export class LiveService {
   readonly floorChanged$ = new Subject<void>();
   private changePending = false;
 
+  constructor(private readonly uow: UnitOfWork) {}
+
   get seq(): number {
     return this.lastSeq;
   }
@@ -41,10 +44,17 @@ export class LiveService {
     payload: Payload<E>,
     audience: Audience = { to: 'everyone' },
   ): void {
-    this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq }, audience });
+    // Inside a use case the message waits for the commit; a rolled-back command says nothing.
+    this.uow.afterCommit(() =>
+      this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq }, audience }),
+    );
   }
 
   changed(): void {
+    this.uow.afterCommit(() => this.floorChangedSoon());
+  }
+
+  private floorChangedSoon(): void {
     if (this.changePending) return;
     this.changePending = true;
     queueMicrotask(() => {

@@ -17,6 +17,7 @@ import {
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { LabourService, toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
@@ -35,6 +36,7 @@ export interface RecordedPunch {
 export class PunchesService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly labour: LabourService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
@@ -44,6 +46,7 @@ export class PunchesService {
    * Records a punch once. The tablet's uuid makes a retry find the stored punch instead of adding a
    * second one. Everything here is synchronous on one connection, so two requests never interleave.
    */
+  @Transactional()
   record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.db.select().from(punches).where(eq(punches.id, body.id)).get();
@@ -103,6 +106,7 @@ export class PunchesService {
    * Clocks everyone off a line (it was held, finished or moved), as job-off punches recorded by the
    * actor with the reason, so the timecards show who closed the interval and why.
    */
+  @Transactional()
   clockOffLine(jobLineId: number, actor: Principal, reason: string, now = new Date()): number[] {
     const technicianIds = this.labour.clockedOn(jobLineId, now);
     for (const technicianId of technicianIds) {

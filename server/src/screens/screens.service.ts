@@ -5,6 +5,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { screens } from '../db/schema/index.js';
 import { hashPairingCode, newPairingCode } from './pairing-code.js';
 
@@ -25,6 +26,7 @@ const iso = (date: Date | null) => date?.toISOString() ?? null;
 export class ScreensService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
   ) {}
 
@@ -45,6 +47,7 @@ export class ScreensService {
   }
 
   /** A new screen with a one-time code, shown once: only its hash is kept. */
+  @Transactional()
   create({ name }: CreateScreenBody, actor: Principal | null): ScreenPairing {
     const code = newPairingCode();
     const now = new Date();
@@ -64,6 +67,7 @@ export class ScreensService {
     return { id: row.id, code, expiresAt: expiresAt.toISOString() };
   }
 
+  @Transactional()
   revoke(id: number, actor: Principal): ScreenDto {
     foundOrFail(this.db.select().from(screens).where(eq(screens.id, id)).get(), 'Screen');
     this.db

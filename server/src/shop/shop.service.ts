@@ -4,6 +4,7 @@ import type { ShopSettings, UpdateShopBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { shopSettings } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 
@@ -32,6 +33,7 @@ export class ShopService {
 
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
   ) {}
@@ -55,6 +57,7 @@ export class ShopService {
       .run();
   }
 
+  @Transactional()
   update(body: UpdateShopBody, actor: Principal): ShopSettings {
     this.ensure();
     if (Object.keys(body).length === 0) return this.settings();

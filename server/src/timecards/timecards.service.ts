@@ -26,6 +26,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
@@ -52,6 +53,7 @@ const totals = ({
 export class TimecardsService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly shop: ShopService,
     private readonly audit: AuditService,
     private readonly live: LiveService,
@@ -152,6 +154,7 @@ export class TimecardsService {
    * A foreman's or owner's correction: a new punch with who, when and why. With `punchId` it
    * supersedes that punch (which stays on record); without, it adds a missed punch.
    */
+  @Transactional()
   correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
     const at = new Date(body.at);
     if (at > now) throw new BadRequestException('A correction cannot be in the future');

@@ -18,6 +18,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import { reachesTarget, toTimerDto } from './timer-view.js';
@@ -30,6 +31,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
 
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
   ) {}
@@ -78,6 +80,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return toTimerDto(row, this.readingsOf(id), now);
   }
 
+  @Transactional()
   start(body: StartTimerBody, actor: Principal, now = new Date()): TimerDto {
     const line = foundOrFail(
       this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
@@ -115,6 +118,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return this.announce(row.id, row.bayId, now);
   }
 
+  @Transactional()
   addReading(id: number, body: TimerReadingBody, actor: Principal, now = new Date()): TimerDto {
     const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
     if (timer.endedAt) throw new ConflictException('That timer was stopped');
@@ -130,6 +134,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return this.announce(id, timer.bayId, now);
   }
 
+  @Transactional()
   stop(id: number, actor: Principal, now = new Date()): TimerDto {
     const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
     if (!timer.endedAt) {
@@ -143,6 +148,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return this.db.select().from(holdPresets).orderBy(asc(holdPresets.name)).all();
   }
 
+  @Transactional()
   addPreset(body: HoldPresetBody, actor: Principal): HoldPresetDto {
     const row = this.db.insert(holdPresets).values(body).returning().get();
     this.audit.record({
@@ -155,6 +161,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return row;
   }
 
+  @Transactional()
   removePreset(id: number, actor: Principal): HoldPresetDto {
     const row = foundOrFail(this.db.select().from(holdPresets).where(eq(holdPresets.id, id)).get(), 'Preset');
     this.db.delete(holdPresets).where(eq(holdPresets.id, id)).run();
@@ -162,6 +169,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     return row;
   }
 
+  @Transactional()
   markEndedHolds(now = new Date()): void {
     const due = this.db
       .select()

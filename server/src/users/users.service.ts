@@ -5,6 +5,7 @@ import { hashSecret } from '../auth/passwords.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail, isUniqueViolation } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { UnitOfWork } from '../db/unit-of-work.js';
 import { users } from '../db/schema/index.js';
 import type { Principal } from '../auth/principal.js';
 
@@ -29,6 +30,7 @@ export function toUserDto(row: UserRow): UserDto {
 export class UsersService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    private readonly uow: UnitOfWork,
     private readonly audit: AuditService,
   ) {}
 
@@ -38,15 +40,20 @@ export class UsersService {
 
   async create(body: CreateUserBody, actor: Principal | null): Promise<UserDto> {
     const { password, pin, email, ...rest } = body;
-    const row = this.insertOrConflict({
-      ...rest,
-      email: email?.toLowerCase() ?? null,
+    const secrets = {
       passwordHash: password ? await hashSecret(password) : null,
       pinHash: pin ? await hashSecret(pin) : null,
-      createdAt: new Date(),
+    };
+    return this.uow.run(() => {
+      const row = this.insertOrConflict({
+        ...rest,
+        ...secrets,
+        email: email?.toLowerCase() ?? null,
+        createdAt: new Date(),
+      });
+      this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
+      return toUserDto(row);
     });
-    this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
-    return toUserDto(row);
   }
 
   async update(id: number, body: UpdateUserBody, actor: Principal): Promise<UserDto> {
@@ -59,18 +66,20 @@ export class UsersService {
     if (email !== undefined) changes.email = email.toLowerCase();
     if (password !== undefined) changes.passwordHash = await hashSecret(password);
     if (pin !== undefined) changes.pinHash = await hashSecret(pin);
-    const row = this.updateOrConflict(id, changes);
     const fields = Object.keys(body).map((key) =>
       key === 'password' || key === 'pin' ? `${key} (changed)` : key,
     );
-    this.audit.record({
-      actorId: actor.id,
-      action: 'update',
-      entity: 'user',
-      entityId: id,
-      detail: { fields },
+    return this.uow.run(() => {
+      const row = this.updateOrConflict(id, changes);
+      this.audit.record({
+        actorId: actor.id,
+        action: 'update',
+        entity: 'user',
+        entityId: id,
+        detail: { fields },
+      });
+      return toUserDto(row);
     });
-    return toUserDto(row);
   }
 
   private insertOrConflict(values: typeof users.$inferInsert): UserRow {

@@ -11,6 +11,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
 import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
@@ -24,12 +25,14 @@ type LineRow = typeof jobLines.$inferSelect;
 export class JobLinesService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly labour: LabourService,
     private readonly punches: PunchesService,
   ) {}
 
+  @Transactional()
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
     if (body.technicianId) this.assertTechnician(body.technicianId);
@@ -86,6 +89,7 @@ export class JobLinesService {
     return this.announce(updated);
   }
 
+  @Transactional()
   hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') throw new ConflictException('That line is already done');
@@ -101,6 +105,7 @@ export class JobLinesService {
     return this.announce(updated);
   }
 
+  @Transactional()
   resume(id: number, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status !== 'held') return toJobLineDto(line);
@@ -109,6 +114,7 @@ export class JobLinesService {
     return this.announce(updated);
   }
 
+  @Transactional()
   finish(id: number, { next }: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);

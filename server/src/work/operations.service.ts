@@ -5,6 +5,7 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { operations } from '../db/schema/index.js';
 
 /** The shop's own menu of operations with default book hours, which RO lines start from. */
@@ -12,6 +13,7 @@ import { operations } from '../db/schema/index.js';
 export class OperationsService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
   ) {}
 
@@ -24,6 +26,7 @@ export class OperationsService {
       .all();
   }
 
+  @Transactional()
   create(body: OperationInput, actor: Principal): OperationDto {
     const row = this.db.insert(operations).values(body).returning().get();
     this.audit.record({
@@ -36,6 +39,7 @@ export class OperationsService {
     return row;
   }
 
+  @Transactional()
   update(id: number, body: UpdateOperationBody, actor: Principal): OperationDto {
     const current = foundOrFail(
       this.db.select().from(operations).where(eq(operations.id, id)).get(),

@@ -7,6 +7,7 @@ import { LiveService } from '../live/live.service.js';
 import { describeVehicle } from '../board/board.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
+import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
 import { LabourService } from '../labour/labour.service.js';
 import { toJobLineDto } from './job-line.dto.js';
@@ -15,6 +16,7 @@ import { toJobLineDto } from './job-line.dto.js';
 export class RepairOrdersService {
   constructor(
     @Inject(DB) private readonly db: Db,
+    readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly labour: LabourService,
@@ -25,6 +27,7 @@ export class RepairOrdersService {
    * join the queue. An odometer lower than the last visit is refused at the field unless a reason is
    * given, which is audited.
    */
+  @Transactional()
   create(body: CreateRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
     const { customer, vehicle, concern, lines } = body;
     const known = this.db.select().from(vehicles).where(eq(vehicles.vin, vehicle.vin)).get();
