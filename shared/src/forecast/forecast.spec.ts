@@ -22,7 +22,14 @@ const ALL_DAY: OpeningHours = Array.from({ length: 7 }, () => ({ open: '00:00', 
 const utc = (iso: string) => new Date(`${iso}Z`);
 
 function forecast(input: Partial<QueueForecastInput> & Pick<QueueForecastInput, 'lines' | 'now'>) {
-  return forecastTechnicianQueue({ efficiency: 1, openingHours: WEEKDAYS, timeZone: ZONE, ...input });
+  const forecasts = forecastTechnicianQueue({
+    efficiency: 1,
+    openingHours: WEEKDAYS,
+    timeZone: ZONE,
+    ...input,
+  });
+  if (!forecasts) throw new Error('No opening hours in this test');
+  return forecasts;
 }
 
 describe(forecastTechnicianQueue.name, () => {
@@ -158,14 +165,25 @@ describe(forecastTechnicianQueue.name, () => {
     });
   });
 
-  it('refuses a shop with no open day', () => {
-    expect(() =>
-      forecast({
-        lines: [{ id: 1, remainingBookHours: 1 }],
-        openingHours: Array(7).fill(null),
-        now: utc('2026-03-03T15:00'),
-      }),
-    ).toThrow(RangeError);
+  it('says there is no forecast for a shop with no open day', () => {
+    const closed = forecastTechnicianQueue({
+      lines: [{ id: 1, remainingBookHours: 1 }],
+      efficiency: 1,
+      openingHours: Array(7).fill(null),
+      timeZone: ZONE,
+      now: utc('2026-03-03T15:00'),
+    });
+    expect(closed).toBeNull();
+  });
+
+  it('bounds an efficiency that is tiny or huge', () => {
+    // 1e-300 counts as the 25 % floor: 1 h of book time takes 4 h, Tue 09:00 CST → 13:00 CST (19:00Z).
+    // 1e300 counts as the 400 % ceiling: 1 h takes 15 min → 09:15 CST (15:15Z).
+    const finish = (efficiency: number) =>
+      forecast({ lines: [{ id: 1, remainingBookHours: 1 }], efficiency, now: utc('2026-03-03T15:00') })[0]!
+        .finishAt;
+    expect(finish(1e-300)).toEqual(utc('2026-03-03T19:00'));
+    expect(finish(1e300)).toEqual(utc('2026-03-03T15:15'));
   });
 
   it('returns nothing for an empty queue', () => {
@@ -181,5 +199,38 @@ describe(addOpenHours.name, () => {
     expect(addOpenHours(utc('2026-03-03T15:00'), 2, WEEKDAYS, 'Europe/Berlin')).toEqual(
       utc('2026-03-04T07:00'),
     );
+  });
+});
+
+describe(`${addOpenHours.name} beyond a day shop`, () => {
+  it('works through the night in a shop open 22:00–06:00', () => {
+    const NIGHTS: OpeningHours = Array.from({ length: 7 }, () => ({ open: '22:00', close: '06:00' }));
+    // Tue 3 Mar 23:00 CST (Wed 05:00Z) + 3 h → Wed 02:00 CST (08:00Z).
+    expect(addOpenHours(utc('2026-03-04T05:00'), 3, NIGHTS, ZONE)).toEqual(utc('2026-03-04T08:00'));
+    // + 10 h: 7 h to Wed 06:00, then 3 h from Wed 22:00 → Thu 01:00 CST (07:00Z).
+    expect(addOpenHours(utc('2026-03-04T05:00'), 10, NIGHTS, ZONE)).toEqual(utc('2026-03-05T07:00'));
+    // Closed at noon: the next opening is 22:00 CST the same day (04:00Z next day).
+    expect(addOpenHours(utc('2026-03-03T18:00'), 0, NIGHTS, ZONE)).toEqual(utc('2026-03-04T04:00'));
+  });
+
+  it('treats an open time equal to the close as round the clock', () => {
+    const ROUND_THE_CLOCK: OpeningHours = Array.from({ length: 7 }, () => ({
+      open: '08:00',
+      close: '08:00',
+    }));
+    // Tue 3 Mar 09:00 CST + 50 h, never closed → Thu 5 Mar 11:00 CST (17:00Z).
+    expect(addOpenHours(utc('2026-03-03T15:00'), 50, ROUND_THE_CLOCK, ZONE)).toEqual(utc('2026-03-05T17:00'));
+  });
+
+  it('skips whole weeks at once', () => {
+    // 07:30–17:30 on weekdays is 50 h a week. From Mon 2 Mar 07:30 CST, 1,000 h is 20 weeks exactly: it
+    // ends at the close of the 20th Friday, 6 Mar + 19 weeks = Fri 17 Jul 17:30 CDT (22:30Z).
+    expect(addOpenHours(utc('2026-03-02T13:30'), 1000, WEEKDAYS, ZONE)).toEqual(utc('2026-07-17T22:30'));
+    // One hour more is the next Monday's first hour: Mon 20 Jul 08:30 CDT (13:30Z).
+    expect(addOpenHours(utc('2026-03-02T13:30'), 1001, WEEKDAYS, ZONE)).toEqual(utc('2026-07-20T13:30'));
+  });
+
+  it('has no answer for a shop that never opens', () => {
+    expect(addOpenHours(utc('2026-03-03T15:00'), 1, Array(7).fill(null), ZONE)).toBeNull();
   });
 });

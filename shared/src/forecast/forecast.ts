@@ -2,6 +2,12 @@ import { TZDate } from '@date-fns/tz';
 import type { OpeningHours } from '../shop/shop.schema.js';
 
 const MS_PER_HOUR = 3_600_000;
+const DAYS_PER_WEEK = 7;
+/**
+ * A technician's recent efficiency counts within these bounds: one odd week must not send a forecast
+ * to the next month (or to the next minute).
+ */
+export const FORECAST_EFFICIENCY_BOUNDS = { min: 0.25, max: 4 } as const;
 
 export interface QueuedLine {
   id: number;
@@ -13,7 +19,7 @@ export interface QueuedLine {
 export interface QueueForecastInput {
   /** One technician's lines, in queue order. */
   lines: readonly QueuedLine[];
-  /** Flagged ÷ clocked hours over the last four weeks; null (a new tech) counts as 1.0. */
+  /** Flagged ÷ clocked hours recently; null (not enough history) counts as 1.0. */
   efficiency: number | null;
   openingHours: OpeningHours;
   /** The shop's IANA time zone: opening hours are wall-clock times there. */
@@ -31,57 +37,121 @@ export interface LineForecast {
   late: boolean;
 }
 
-function wallClock(day: TZDate, hhmm: string, timeZone: string): number {
+interface OpenPeriod {
+  start: number;
+  end: number;
+}
+
+function wallClock(year: number, month: number, date: number, hhmm: string, timeZone: string): number {
   const [hours = 0, minutes = 0] = hhmm.split(':').map(Number);
-  return new TZDate(day.getFullYear(), day.getMonth(), day.getDate(), hours, minutes, timeZone).getTime();
+  return new TZDate(year, month, date, hours, minutes, timeZone).getTime();
 }
 
 /**
- * The open period containing `at`, or the next one, as epoch ms. Built from wall-clock times in the
- * shop's zone each day, so a DST day's open hours are as long as they really are. A day whose close is
- * not after its open counts as closed (overnight hours are not supported).
+ * The shop's open periods from `from` over the next week and a day, merged where they touch, the
+ * first clipped to start at `from`. Built from wall-clock times in the shop's zone each day, so a DST
+ * day's open hours are as long as they really are. A close at or before the open runs overnight into
+ * the next day (22:00–06:00); an open equal to the close is open round the clock.
  */
-function openPeriodFrom(at: number, openingHours: OpeningHours, timeZone: string) {
-  const local = new TZDate(at, timeZone);
-  // The rest of today plus a full week meets every open weekday.
-  for (let offset = 0; offset <= 7; offset++) {
-    const day = new TZDate(local.getFullYear(), local.getMonth(), local.getDate() + offset, timeZone);
-    const hours = openingHours[day.getDay()];
+function openPeriodsFrom(from: number, openingHours: OpeningHours, timeZone: string): OpenPeriod[] {
+  const local = new TZDate(from, timeZone);
+  const [year, month, date] = [local.getFullYear(), local.getMonth(), local.getDate()];
+  const periods: OpenPeriod[] = [];
+  for (let offset = -1; offset <= DAYS_PER_WEEK + 1; offset++) {
+    const weekday = new TZDate(year, month, date + offset, timeZone).getDay();
+    const hours = openingHours[weekday];
     if (!hours) continue;
-    const open = wallClock(day, hours.open, timeZone);
-    const close = wallClock(day, hours.close, timeZone);
-    if (close > open && close > at) return { start: Math.max(open, at), end: close };
+    const overnight = hours.close <= hours.open;
+    const open = wallClock(year, month, date + offset, hours.open, timeZone);
+    const close = wallClock(year, month, date + offset + (overnight ? 1 : 0), hours.close, timeZone);
+    if (close > from && close > open) periods.push({ start: Math.max(open, from), end: close });
   }
-  throw new RangeError('The shop has no opening hours');
+  periods.sort((a, b) => a.start - b.start);
+  const merged: OpenPeriod[] = [];
+  for (const period of periods) {
+    const last = merged.at(-1);
+    if (last && period.start <= last.end) last.end = Math.max(last.end, period.end);
+    else merged.push({ ...period });
+  }
+  return merged;
 }
 
-/** `start` plus `hours` of shop time: closed hours are skipped; work stops at a close and resumes at the next open. */
-export function addOpenHours(start: Date, hours: number, openingHours: OpeningHours, timeZone: string): Date {
+function weeksLater(at: number, weeks: number, timeZone: string): number {
+  const local = new TZDate(at, timeZone);
+  local.setDate(local.getDate() + weeks * DAYS_PER_WEEK);
+  return local.getTime();
+}
+
+/** The first open instant at or after `at`; null when the shop never opens. */
+export function nextOpening(at: Date, openingHours: OpeningHours, timeZone: string): Date | null {
+  const first = openPeriodsFrom(at.getTime(), openingHours, timeZone)[0];
+  return first ? new Date(first.start) : null;
+}
+
+/**
+ * `start` plus `hours` of shop time: closed hours are skipped; work stops at a close and resumes at
+ * the next open. Whole weeks are skipped in one step, so the work does not grow with the hours.
+ * Null when the shop has no opening hours.
+ */
+export function addOpenHours(
+  start: Date,
+  hours: number,
+  openingHours: OpeningHours,
+  timeZone: string,
+): Date | null {
   let left = Math.max(0, Math.round(hours * MS_PER_HOUR));
-  let period = openPeriodFrom(start.getTime(), openingHours, timeZone);
-  // Ending exactly at a close stays on that day.
-  while (left > period.end - period.start) {
-    left -= period.end - period.start;
-    period = openPeriodFrom(period.end, openingHours, timeZone);
+  let cursor = start.getTime();
+  const weekEnd = weeksLater(cursor, 1, timeZone);
+  const weekOpen = openPeriodsFrom(cursor, openingHours, timeZone).reduce(
+    (sum, p) => sum + Math.max(0, Math.min(p.end, weekEnd) - p.start),
+    0,
+  );
+  if (weekOpen === 0) return null;
+  // Ending exactly at a close stays on that day: skip only the weeks that leave work over.
+  const wholeWeeks = left > 0 ? Math.floor((left - 1) / weekOpen) : 0;
+  if (wholeWeeks > 0) {
+    cursor = weeksLater(cursor, wholeWeeks, timeZone);
+    left -= wholeWeeks * weekOpen;
   }
-  return new Date(period.start + left);
+  // At most a week's work is left; a DST change inside skipped open hours can leave an hour more.
+  for (;;) {
+    const periods = openPeriodsFrom(cursor, openingHours, timeZone);
+    for (const period of periods) {
+      if (left <= period.end - period.start) return new Date(period.start + left);
+      left -= period.end - period.start;
+    }
+    cursor = periods.at(-1)!.end;
+  }
 }
 
 /**
  * When each of a technician's queued lines should finish: one after another from now (or the next
  * opening), each taking its remaining book hours ÷ the tech's recent efficiency in open shop hours.
- * Throws a RangeError when the shop has no open day.
+ * Null when the shop has no opening hours: there is nothing to forecast against.
  */
-export function forecastTechnicianQueue(input: QueueForecastInput): LineForecast[] {
+export function forecastTechnicianQueue(input: QueueForecastInput): LineForecast[] | null {
   const { efficiency, openingHours, timeZone } = input;
-  const rate = efficiency !== null && Number.isFinite(efficiency) && efficiency > 0 ? efficiency : 1;
+  const { min, max } = FORECAST_EFFICIENCY_BOUNDS;
+  const rate =
+    efficiency !== null && Number.isFinite(efficiency) && efficiency > 0
+      ? Math.min(max, Math.max(min, efficiency))
+      : 1;
   let cursor = input.now;
-  return input.lines.map((line) => {
+  const forecasts: LineForecast[] = [];
+  for (const line of input.lines) {
     const workHours = Math.max(0, line.remainingBookHours) / rate;
-    const startAt = new Date(openPeriodFrom(cursor.getTime(), openingHours, timeZone).start);
-    const finishAt = addOpenHours(startAt, workHours, openingHours, timeZone);
+    const startAt = nextOpening(cursor, openingHours, timeZone);
+    const finishAt = startAt && addOpenHours(startAt, workHours, openingHours, timeZone);
+    if (!startAt || !finishAt) return null;
     cursor = finishAt;
     const promised = line.promisedAt == null ? null : new Date(line.promisedAt);
-    return { id: line.id, workHours, startAt, finishAt, late: promised !== null && finishAt > promised };
-  });
+    forecasts.push({
+      id: line.id,
+      workHours,
+      startAt,
+      finishAt,
+      late: promised !== null && finishAt > promised,
+    });
+  }
+  return forecasts;
 }
