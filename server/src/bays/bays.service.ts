@@ -7,7 +7,7 @@ import { foundOrFail } from '../common/not-found.js';
 import { countRows, DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays } from '../db/schema/index.js';
-import { LiveService } from '../live/live.service.js';
+import { FloorService } from '../floor/floor.service.js';
 
 const toBayDto = ({ id, name, kind, position, active }: typeof bays.$inferSelect): BayDto => ({
   id,
@@ -23,7 +23,7 @@ export class BaysService {
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
-    private readonly live: LiveService,
+    private readonly floor: FloorService,
   ) {}
 
   list(): BayDto[] {
@@ -40,7 +40,7 @@ export class BaysService {
       .returning()
       .get();
     this.audit.record({ actorId: actor.id, action: 'create', entity: 'bay', entityId: row.id, detail: body });
-    this.live.changed();
+    this.floor.baysChanged();
     return toBayDto(row);
   }
 
@@ -51,7 +51,7 @@ export class BaysService {
     if (body.name !== undefined) this.assertNameFree(body.name, id);
     const row = this.db.update(bays).set(body).where(eq(bays.id, id)).returning().get();
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'bay', entityId: id, detail: body });
-    this.live.changed();
+    this.floor.baysChanged();
     return toBayDto(row);
   }
 
@@ -66,7 +66,7 @@ export class BaysService {
       .returning()
       .get();
     this.audit.record({ actorId: actor.id, action: 'release', entity: 'bay', entityId: id });
-    this.live.changed();
+    this.floor.baysChanged();
     return toBayDto(row);
   }
 

@@ -1,10 +1,8 @@
-import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import { Injectable, Logger, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
 import { isDeepStrictEqual } from 'node:util';
 import type { Subscription } from 'rxjs';
-import { and, asc, eq, inArray, isNull, ne } from 'drizzle-orm';
 import {
   shortName,
-  technicianState,
   type BayState,
   type BoardBay,
   type BoardPerson,
@@ -14,19 +12,16 @@ import {
   type Ledger,
   type TechnicianState,
 } from '@baytime/shared';
-import { DB, type Db } from '../db/database.js';
-import { bays, jobLines, repairOrders, timerReadings, timers, users, vehicles } from '../db/schema/index.js';
+import { keepServing } from '../common/keep-serving.js';
+import { FloorService, type FloorLine, type FloorTimer } from '../floor/floor.service.js';
 import { timerEstimate } from '../timers/timer-view.js';
-import { LabourService, lineSecondsOf } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
-
-type LineRow = typeof jobLines.$inferSelect & { repairOrderNumber: string; vehicle: string };
 
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 
 /** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
-function leadLine(lines: LineRow[], clockedOn: Set<number>): LineRow | undefined {
+function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>): FloorLine | undefined {
   return [...lines].sort(
     (a, b) =>
       Number(clockedOn.has(b.id)) - Number(clockedOn.has(a.id)) ||
@@ -36,28 +31,27 @@ function leadLine(lines: LineRow[], clockedOn: Set<number>): LineRow | undefined
   )[0];
 }
 
-/** Builds what every screen shows of the floor, from the database and the punches, at one instant. */
+/** What every screen shows of the floor at one instant, read from the in-memory floor model. */
 @Injectable()
 export class BoardService implements OnModuleInit, OnModuleDestroy {
+  private readonly logger = new Logger(BoardService.name);
   private published: BoardSnapshot | null = null;
   /** Counted by dispatch from its forecasts; the board only carries the number. */
   private lateLines = 0;
   private subscription: Subscription | null = null;
-  private readonly queries: ReturnType<typeof prepareFloorQueries>;
 
   constructor(
-    @Inject(DB) private readonly db: Db,
+    private readonly floor: FloorService,
     private readonly shop: ShopService,
-    private readonly labour: LabourService,
     private readonly live: LiveService,
-  ) {
-    this.queries = prepareFloorQueries(db);
-  }
+  ) {}
 
   onModuleInit(): void {
     // What the screens were last told; every change is diffed against it, the first one included.
     this.published = this.snapshot(this.live.seq);
-    this.subscription = this.live.floorChanged$.subscribe(() => this.publishChanges());
+    this.subscription = this.live.floorChanged$.subscribe(() =>
+      keepServing(this.logger, 'Publishing floor changes', () => this.publishChanges()),
+    );
   }
 
   onModuleDestroy(): void {
@@ -93,46 +87,20 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
 
   snapshot(seq: number, now = new Date()): BoardSnapshot {
     const settings = this.shop.settings();
-    const openLines = this.queries.openLines.all().map(({ line, repairOrderNumber, vehicle }) => ({
-      ...line,
-      repairOrderNumber,
-      vehicle: describeVehicle(vehicle),
-    }));
-    const technicians = this.queries.technicians.all();
-    const ledgers = this.labour.floorLedgers(
-      technicians.map((tech) => tech.id),
-      openLines.map((line) => line.id),
-      now,
-    );
-    const states = new Map([...ledgers].map(([id, ledger]) => [id, technicianState(ledger)]));
+    const openLines = this.floor.openLines();
+    const technicians = this.floor.technicians();
+    const states = new Map(technicians.map((tech) => [tech.id, this.floor.stateOf(tech.id, now)]));
     const clockedOn = new Map<number, number[]>();
     for (const [techId, state] of states)
-      for (const lineId of state.openJobLineIds)
+      for (const lineId of state?.openJobLineIds ?? [])
         clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), techId]);
     const names = new Map(technicians.map((tech) => [tech.id, shortName(tech.name)]));
-    const seconds = lineSecondsOf(
-      ledgers,
-      openLines.map((line) => line.id),
-    );
-    const runningTimers = this.queries.runningTimers.all();
-    const readings = runningTimers.length
-      ? this.db
-          .select()
-          .from(timerReadings)
-          .where(
-            inArray(
-              timerReadings.timerId,
-              runningTimers.map((t) => t.id),
-            ),
-          )
-          .orderBy(asc(timerReadings.at))
-          .all()
-      : [];
-    const linesById = new Map(openLines.map((line) => [line.id, line]));
+    const seconds = this.floor.lineSeconds(now);
+    const runningTimers = this.floor.runningTimers();
 
-    const boardBays: BoardBay[] = this.queries.bays.all().map(({ bay, parkedRepairOrder, parkedVehicle }) => {
+    const boardBays: BoardBay[] = this.floor.bays().map((bay) => {
       const inBay = openLines.filter((line) => line.bayId === bay.id);
-      const line = leadLine(inBay, new Set(clockedOn.keys()));
+      const line = leadLine(inBay, clockedOn);
       const timer = runningTimers.find((t) => t.bayId === bay.id);
       const onLine = line ? (clockedOn.get(line.id) ?? []) : [];
       const assigned = line?.technicianId ? [line.technicianId] : [];
@@ -148,13 +116,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
               : bay.phase;
       const ro = line
         ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
-        : parkedRepairOrder && parkedVehicle
-          ? {
-              id: parkedRepairOrder.id,
-              number: parkedRepairOrder.number,
-              vehicle: describeVehicle(parkedVehicle),
-            }
-          : null;
+        : bay.parked;
       return {
         id: bay.id,
         name: bay.name,
@@ -168,13 +130,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
         clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
         bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
         clockRunning: line ? clockedOn.has(line.id) : false,
-        timer: timer
-          ? this.boardTimer(
-              timer,
-              readings.filter((r) => r.timerId === timer.id),
-              now,
-            )
-          : null,
+        timer: timer ? boardTimer(timer, now) : null,
       };
     });
 
@@ -182,13 +138,13 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const people: BoardPerson[] = technicians.flatMap((tech) => {
       const state = states.get(tech.id);
       if (!state || state.status === 'off' || !state.since) return [];
-      const line = linesById.get(state.openJobLineIds[0] ?? -1);
+      const line = this.floor.openLine(state.openJobLineIds[0] ?? -1);
       return [
         {
           id: tech.id,
           name: shortName(tech.name),
           status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
-          since: personSince(ledgers.get(tech.id), state, line?.id).toISOString(),
+          since: personSince(this.floor.ledgerOf(tech.id, now), state, line?.id).toISOString(),
           bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
           jobLineTitle: line?.title ?? null,
         },
@@ -226,35 +182,27 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     this.lateLines = count;
     this.live.changed();
   }
+}
 
-  private boardTimer(
-    timer: typeof timers.$inferSelect,
-    readings: (typeof timerReadings.$inferSelect)[],
-    now: Date,
-  ): BoardTimer {
-    const estimate = timerEstimate(timer, readings, now);
-    return {
-      id: timer.id,
-      kind: timer.kind,
-      startedAt: timer.startedAt.toISOString(),
-      targetC: timer.targetC,
-      lastReadingC: readings.at(-1)?.tempC ?? null,
-      endsAt: timer.kind === 'hold' ? estimate.etaAt : null,
-      etaAt: timer.kind === 'hold' ? null : estimate.etaAt,
-      reached: timer.reachedAt !== null,
-      note: timer.label,
-      status: estimate.status,
-      confidence: estimate.confidence,
-    };
-  }
+function boardTimer(timer: FloorTimer, now: Date): BoardTimer {
+  const estimate = timerEstimate(timer, timer.readings, now);
+  return {
+    id: timer.id,
+    kind: timer.kind,
+    startedAt: timer.startedAt.toISOString(),
+    targetC: timer.targetC,
+    lastReadingC: timer.readings.at(-1)?.tempC ?? null,
+    endsAt: timer.kind === 'hold' ? estimate.etaAt : null,
+    etaAt: timer.kind === 'hold' ? null : estimate.etaAt,
+    reached: timer.reachedAt !== null,
+    note: timer.label,
+    status: estimate.status,
+    confidence: estimate.confidence,
+  };
 }
 
 /** On a job: since clocking on it. Idle: since the last job or break ended, or the shift began. */
-function personSince(
-  ledger: Ledger | undefined,
-  state: TechnicianState,
-  jobLineId: number | undefined,
-): Date {
+function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: number | undefined): Date {
   const since = state.since ?? new Date(0);
   if (state.status !== 'on-shift' || !ledger) return since;
   const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
@@ -270,37 +218,4 @@ function sameBay(a: BoardBay, b: BoardBay): boolean {
     isDeepStrictEqual({ ...a, clockedSeconds: 0 }, { ...b, clockedSeconds: 0 }) &&
     (a.clockRunning || drift < 1)
   );
-}
-
-/** The board reads the same shapes many times a second: statements prepared once. */
-function prepareFloorQueries(db: Db) {
-  return {
-    technicians: db
-      .select()
-      .from(users)
-      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
-      .orderBy(asc(users.name))
-      .prepare(),
-    openLines: db
-      .select({ line: jobLines, repairOrderNumber: repairOrders.number, vehicle: vehicles })
-      .from(jobLines)
-      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(ne(jobLines.status, 'done'))
-      .prepare(),
-    /** Each bay with the repair order parked in it (check, ready) when no open line says more. */
-    bays: db
-      .select({ bay: bays, parkedRepairOrder: repairOrders, parkedVehicle: vehicles })
-      .from(bays)
-      .leftJoin(repairOrders, eq(repairOrders.id, bays.repairOrderId))
-      .leftJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(eq(bays.active, true))
-      .orderBy(asc(bays.position), asc(bays.id))
-      .prepare(),
-    runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
-  };
-}
-
-export function describeVehicle(vehicle: { year: number; make: string; model: string }): string {
-  return `${vehicle.year} ${vehicle.make} ${vehicle.model}`;
 }

@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { FloorModule } from '../floor/floor.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { WorkModule } from '../work/work.module.js';
 import { AttachmentsController } from './attachments.controller.js';
@@ -9,7 +10,7 @@ import { PhotoStore } from './photo-store.js';
 import { ReadyNoticeController } from './ready-notice.controller.js';
 
 @Module({
-  imports: [WorkModule, MailModule],
+  imports: [FloorModule, WorkModule, MailModule],
   controllers: [FindingsController, AttachmentsController, ReadyNoticeController],
   providers: [FindingsService, NoticesService, PhotoStore],
 })

@@ -18,7 +18,7 @@ import type {
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
-import { describeVehicle } from '../board/board.service.js';
+import { describeVehicle } from '../floor/describe-vehicle.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
@@ -32,7 +32,7 @@ import {
   users,
   vehicles,
 } from '../db/schema/index.js';
-import { LabourService } from '../labour/labour.service.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
@@ -70,7 +70,7 @@ export class FindingsService {
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
-    private readonly labour: LabourService,
+    private readonly floor: FloorService,
     private readonly lines: JobLinesService,
     private readonly photos: PhotoStore,
     private readonly notices: NoticesService,
@@ -141,7 +141,6 @@ export class FindingsService {
       },
     });
     this.live.publish('finding.created', { findingId: finding.id, jobLineId });
-    this.live.changed();
     return finding.id;
   }
 
@@ -238,7 +237,7 @@ export class FindingsService {
     if (created) {
       createdLine = toJobLineDto(created);
       this.live.publish('job-line.updated', { jobLine: createdLine });
-      this.live.changed();
+      this.floor.linesChanged([created.id]);
     }
     return { finding: this.get(id), createdLine, resumedLine: this.resumeIfAnswered(line.id, actor, now) };
   }
@@ -283,7 +282,7 @@ export class FindingsService {
       'Job line',
     );
     if (actor.role === 'technician') {
-      const onLine = line.technicianId === actor.id || this.labour.clockedOn(line.id, now).includes(actor.id);
+      const onLine = line.technicianId === actor.id || this.floor.clockedOn(line.id, now).includes(actor.id);
       if (!onLine && !this.onRepairOrder(line.repairOrderId, actor.id))
         throw new ForbiddenException('That repair order is not yours: ask the foreman');
       if (body.holdForApproval && !onLine)

@@ -3,7 +3,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import { FINDING_SEVERITY_WORDS, type MailQueued } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
-import { describeVehicle } from '../board/board.service.js';
+import { describeVehicle } from '../floor/describe-vehicle.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';

@@ -53,57 +53,6 @@ export class LabourService {
     return buildLedger(this.punchesOf(technicianId, from, now), now, { concurrentSplit, maxConcurrentJobs });
   }
 
-  /** The ledger that tells where a technician stands now. */
-  currentLedger(technicianId: number, now: Date): Ledger {
-    return this.ledgerOf(technicianId, new Date(now.getTime() - OPEN_SHIFT_LOOKBACK_MS), now);
-  }
-
-  /** Technicians clocked on the line right now. */
-  clockedOn(jobLineId: number, now: Date): number[] {
-    const since = new Date(now.getTime() - OPEN_SHIFT_LOOKBACK_MS);
-    const candidates = this.db
-      .selectDistinct({ technicianId: punches.technicianId })
-      .from(punches)
-      .where(and(eq(punches.jobLineId, jobLineId), gte(punches.at, since)))
-      .all();
-    return candidates
-      .map(({ technicianId }) => technicianId)
-      .filter((technicianId) =>
-        this.currentLedger(technicianId, now).jobs.some((job) => job.open && job.jobLineId === jobLineId),
-      );
-  }
-
-  /**
-   * Everything the floor needs at `now` in one query: each technician's ledger from far enough back
-   * to hold any open shift and every punch on the open lines.
-   */
-  floorLedgers(technicianIds: number[], openLineIds: number[], now: Date): Map<number, Ledger> {
-    let since = now.getTime() - OPEN_SHIFT_LOOKBACK_MS;
-    if (openLineIds.length) {
-      const first = this.db
-        .select({ first: min(punches.at) })
-        .from(punches)
-        .where(inArray(punches.jobLineId, openLineIds))
-        .get()?.first;
-      if (first) since = Math.min(since, first.getTime() - OPEN_SHIFT_LOOKBACK_MS);
-    }
-    const rows = this.db
-      .select()
-      .from(punches)
-      .where(and(gte(punches.at, new Date(since)), lte(punches.at, now)))
-      .orderBy(asc(punches.at))
-      .all();
-    const byTechnician = new Map<number, LedgerPunch[]>(technicianIds.map((id) => [id, []]));
-    for (const row of rows) byTechnician.get(row.technicianId)?.push(toPunchDto(row));
-    const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
-    return new Map(
-      [...byTechnician].map(([id, list]) => [
-        id,
-        buildLedger(list, now, { concurrentSplit, maxConcurrentJobs }),
-      ]),
-    );
-  }
-
   /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     if (jobLineIds.length === 0) return new Map();
@@ -130,10 +79,7 @@ export class LabourService {
 }
 
 /** Sums the ledgers' seconds on each of the lines, per technician and in all. */
-export function lineSecondsOf(
-  ledgers: ReadonlyMap<number, Ledger>,
-  jobLineIds: number[],
-): Map<number, LineSeconds> {
+function lineSecondsOf(ledgers: ReadonlyMap<number, Ledger>, jobLineIds: number[]): Map<number, LineSeconds> {
   const result = new Map<number, LineSeconds>(
     jobLineIds.map((id) => [id, { total: 0, byTechnician: new Map() }]),
   );

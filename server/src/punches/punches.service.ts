@@ -19,13 +19,11 @@ import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
-import { LabourService, toPunchDto } from '../labour/labour.service.js';
+import { FloorService } from '../floor/floor.service.js';
+import { toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
-
-/** Punches far enough back that they can decide whether a new one is possible. */
-const CONTEXT_MS = 48 * 3600_000;
 
 export interface RecordedPunch {
   punch: PunchDto;
@@ -37,7 +35,7 @@ export class PunchesService {
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
-    private readonly labour: LabourService,
+    private readonly floor: FloorService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
   ) {}
@@ -77,7 +75,7 @@ export class PunchesService {
       at: at.toISOString(),
       supersedes: null,
     };
-    const context = this.labour.punchesOf(technicianId, new Date(at.getTime() - CONTEXT_MS), now);
+    const context = this.floor.punchesOf(technicianId);
     const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
     const refusal = validatePunch(context, candidate, { concurrentSplit, maxConcurrentJobs });
     if (refusal) throw new ConflictException(refusal);
@@ -89,6 +87,7 @@ export class PunchesService {
       .get();
     const punch = toPunchDto(row);
     this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
+    this.floor.punchRecorded(punch);
     if (line && body.kind === 'job-on' && line.status === 'queued') {
       const updated = this.db
         .update(jobLines)
@@ -97,8 +96,8 @@ export class PunchesService {
         .returning()
         .get();
       this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
+      this.floor.linesChanged([line.id]);
     }
-    this.live.changed();
     return { punch, replayed: false };
   }
 
@@ -108,7 +107,7 @@ export class PunchesService {
    */
   @Transactional()
   clockOffLine(jobLineId: number, actor: Principal, reason: string, now = new Date()): number[] {
-    const technicianIds = this.labour.clockedOn(jobLineId, now);
+    const technicianIds = this.floor.clockedOn(jobLineId, now);
     for (const technicianId of technicianIds) {
       const row = this.db
         .insert(punches)
@@ -124,7 +123,9 @@ export class PunchesService {
         })
         .returning()
         .get();
-      this.live.publish('punch.recorded', { punch: toPunchDto(row) }, { to: 'floor', technicianId });
+      const punch = toPunchDto(row);
+      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId });
+      this.floor.punchRecorded(punch);
     }
     return technicianIds;
   }

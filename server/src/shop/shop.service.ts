@@ -3,10 +3,10 @@ import { eq } from 'drizzle-orm';
 import type { ShopSettings, UpdateShopBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
+import { Subject } from 'rxjs';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { shopSettings } from '../db/schema/index.js';
-import { LiveService } from '../live/live.service.js';
 
 const WEEKDAY_HOURS = { open: '07:30', close: '17:30' };
 
@@ -30,12 +30,13 @@ export const DEFAULT_SHOP: ShopSettings = {
 export class ShopService {
   /** Read on every request and every board refresh; only this service writes the row. */
   private cached: ShopSettings | null = null;
+  /** The settings as saved, once the change has committed. */
+  readonly changed$ = new Subject<ShopSettings>();
 
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
-    private readonly live: LiveService,
   ) {}
 
   settings(): ShopSettings {
@@ -68,7 +69,7 @@ export class ShopService {
       .run();
     this.cached = null;
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'shop', entityId: 1, detail: body });
-    this.live.changed();
+    this.uow.afterCommit(() => this.changed$.next(this.settings()));
     return this.settings();
   }
 }

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
+import { FloorModule } from '../floor/floor.module.js';
 import { TimecardsController } from './timecards.controller.js';
 import { TimecardsService } from './timecards.service.js';
 
-@Module({ controllers: [TimecardsController], providers: [TimecardsService] })
+@Module({ imports: [FloorModule], controllers: [TimecardsController], providers: [TimecardsService] })
 export class TimecardsModule {}

@@ -29,6 +29,7 @@ import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { toPunchDto } from '../labour/labour.service.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
@@ -57,6 +58,7 @@ export class TimecardsService {
     private readonly shop: ShopService,
     private readonly audit: AuditService,
     private readonly live: LiveService,
+    private readonly floor: FloorService,
   ) {}
 
   get(query: TimecardQuery, actor: Principal, now = new Date()): Timecard {
@@ -216,7 +218,7 @@ export class TimecardsService {
     });
     const punch = toPunchDto(row);
     this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
-    this.live.changed();
+    this.floor.punchRecorded(punch);
     return punch;
   }
 

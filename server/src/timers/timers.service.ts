@@ -5,6 +5,7 @@ import {
   Injectable,
   type OnModuleDestroy,
   type OnModuleInit,
+  Logger,
 } from '@nestjs/common';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
 import type {
@@ -20,6 +21,8 @@ import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
+import { keepServing } from '../common/keep-serving.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LiveService } from '../live/live.service.js';
 import { reachesTarget, toTimerDto } from './timer-view.js';
 
@@ -27,6 +30,7 @@ const TICK_MS = 1000;
 
 @Injectable()
 export class TimersService implements OnModuleInit, OnModuleDestroy {
+  private readonly logger = new Logger(TimersService.name);
   private ticker: NodeJS.Timeout | null = null;
 
   constructor(
@@ -34,11 +38,15 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
+    private readonly floor: FloorService,
   ) {}
 
   /** Fixed holds end on their own: a tick marks them reached so screens and kiosks hear it. */
   onModuleInit(): void {
-    this.ticker = setInterval(() => this.markEndedHolds(), TICK_MS);
+    this.ticker = setInterval(
+      () => keepServing(this.logger, 'Ending fixed waits', () => this.markEndedHolds()),
+      TICK_MS,
+    );
     this.ticker.unref();
   }
 
@@ -202,7 +210,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
 
   private announce(timerId: number, bayId: number | null, now: Date): TimerDto {
     this.live.publish('timer.updated', { timerId, bayId });
-    this.live.changed();
+    this.floor.timersChanged();
     return this.get(timerId, now);
   }
 }

@@ -6,6 +6,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail, isUniqueViolation } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { UnitOfWork } from '../db/unit-of-work.js';
+import { FloorService } from '../floor/floor.service.js';
 import { users } from '../db/schema/index.js';
 import type { Principal } from '../auth/principal.js';
 
@@ -32,6 +33,7 @@ export class UsersService {
     @Inject(DB) private readonly db: Db,
     private readonly uow: UnitOfWork,
     private readonly audit: AuditService,
+    private readonly floor: FloorService,
   ) {}
 
   list(): UserDto[] {
@@ -52,6 +54,7 @@ export class UsersService {
         createdAt: new Date(),
       });
       this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
+      this.floor.techniciansChanged();
       return toUserDto(row);
     });
   }
@@ -78,6 +81,7 @@ export class UsersService {
         entityId: id,
         detail: { fields },
       });
+      this.floor.techniciansChanged();
       return toUserDto(row);
     });
   }

@@ -13,7 +13,7 @@ import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
-import { LabourService } from '../labour/labour.service.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { toJobLineDto } from './job-line.dto.js';
@@ -28,7 +28,7 @@ export class JobLinesService {
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
-    private readonly labour: LabourService,
+    private readonly floor: FloorService,
     private readonly punches: PunchesService,
   ) {}
 
@@ -184,7 +184,7 @@ export class JobLinesService {
     if (
       actor.role === 'technician' &&
       line.technicianId !== actor.id &&
-      !this.labour.clockedOn(id, now).includes(actor.id)
+      !this.floor.clockedOn(id, now).includes(actor.id)
     )
       throw new ForbiddenException('That line is not yours: ask the foreman');
     return line;
@@ -206,7 +206,8 @@ export class JobLinesService {
   private announce(line: LineRow): JobLineDto {
     const jobLine = toJobLineDto(line);
     this.live.publish('job-line.updated', { jobLine });
-    this.live.changed();
+    this.floor.linesChanged([line.id]);
+    this.floor.baysChanged();
     return jobLine;
   }
 }

@@ -4,11 +4,12 @@ import type { CreateRepairOrderBody, RepairOrderStatus, RepairOrderSummary } fro
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { LiveService } from '../live/live.service.js';
-import { describeVehicle } from '../board/board.service.js';
+import { describeVehicle } from '../floor/describe-vehicle.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 
@@ -20,6 +21,7 @@ export class RepairOrdersService {
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly labour: LabourService,
+    private readonly floor: FloorService,
   ) {}
 
   /**
@@ -108,7 +110,7 @@ export class RepairOrdersService {
     });
     const created = this.get(id);
     for (const jobLine of created.lines) this.live.publish('job-line.updated', { jobLine });
-    this.live.changed();
+    this.floor.linesChanged(created.lines.map((line) => line.id));
     return created;
   }
 

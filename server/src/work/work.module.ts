@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { FloorModule } from '../floor/floor.module.js';
 import { PunchesModule } from '../punches/punches.module.js';
 import { JobLinesController } from './job-lines.controller.js';
 import { JobLinesService } from './job-lines.service.js';
@@ -8,7 +9,7 @@ import { RepairOrdersController } from './repair-orders.controller.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
 @Module({
-  imports: [PunchesModule],
+  imports: [FloorModule, PunchesModule],
   controllers: [RepairOrdersController, JobLinesController, OperationsController],
   providers: [RepairOrdersService, JobLinesService, OperationsService],
   exports: [JobLinesService],

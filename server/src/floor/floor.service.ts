@@ -1,0 +1,399 @@
+import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import type { Subscription } from 'rxjs';
+import { and, asc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
+import {
+  buildLedger,
+  technicianState,
+  type Ledger,
+  type LedgerPunch,
+  type TechnicianState,
+} from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { UnitOfWork } from '../db/unit-of-work.js';
+import {
+  bays,
+  jobLines,
+  punches,
+  repairOrders,
+  timerReadings,
+  timers,
+  users,
+  vehicles,
+} from '../db/schema/index.js';
+import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+import { describeVehicle } from './describe-vehicle.js';
+
+const HOUR_MS = 3600_000;
+/** Punches kept for every technician: enough to judge a punch up to 12 h late against 48 h before it. */
+const RECENT_MS = 72 * HOUR_MS;
+/** How far before its first punch on an open line a technician's shift may have begun. */
+const SHIFT_LOOKBACK_MS = 36 * HOUR_MS;
+
+export type FloorLine = typeof jobLines.$inferSelect & { repairOrderNumber: string; vehicle: string };
+export type FloorBay = typeof bays.$inferSelect & {
+  parked: { id: number; number: string; vehicle: string } | null;
+};
+export type FloorTimer = typeof timers.$inferSelect & {
+  readings: (typeof timerReadings.$inferSelect)[];
+};
+export interface FloorTechnician {
+  id: number;
+  name: string;
+  skillLevel: number;
+}
+
+/** One technician's punches in memory and the ledger last built from them. */
+interface TechnicianPunches {
+  /** Punches at or after this instant are all here, in time order. */
+  windowStart: number;
+  punches: LedgerPunch[];
+  built: { ledger: Ledger; at: number; state: TechnicianState } | null;
+}
+
+/**
+ * The floor in memory: active technicians with their recent punches and ledgers, the open job lines,
+ * the bays and the running timers. Built once from the database at start-up; after that each use case
+ * says what it changed, and the model takes it in once the use case has committed. Screens, dispatch
+ * and the punch checks read it without a query. The ledger rules stay in `shared`: the model only
+ * decides which punches each technician's ledger is built from.
+ */
+@Injectable()
+export class FloorService implements OnModuleInit, OnModuleDestroy {
+  private technicianList: FloorTechnician[] = [];
+  private readonly clocks = new Map<number, TechnicianPunches>();
+  private readonly lines = new Map<number, FloorLine>();
+  private bayList: FloorBay[] = [];
+  private timerList: FloorTimer[] = [];
+  private readonly queries: ReturnType<typeof prepareFloorQueries>;
+  private subscription: Subscription | null = null;
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly uow: UnitOfWork,
+    private readonly shop: ShopService,
+    private readonly live: LiveService,
+  ) {
+    this.queries = prepareFloorQueries(db);
+  }
+
+  onModuleInit(): void {
+    this.load();
+    this.subscription = this.shop.changed$.subscribe(() => this.settingsChanged());
+  }
+
+  onModuleDestroy(): void {
+    this.subscription?.unsubscribe();
+  }
+
+  /** Everything from the database, as at start-up. */
+  load(now = new Date()): void {
+    this.lines.clear();
+    for (const row of this.queries.openLines.all()) this.lines.set(row.id, toFloorLine(row));
+    this.bayList = this.queries.bays.all().map(toFloorBay);
+    this.timerList = this.loadTimers();
+    this.clocks.clear();
+    this.loadTechnicians(now.getTime());
+  }
+
+  // What a committed use case changed. Each waits for the commit and is dropped on a rollback.
+
+  punchRecorded(punch: LedgerPunch): void {
+    this.afterCommit(() => {
+      const clock = this.clocks.get(punch.technicianId);
+      if (!clock) return;
+      if (Date.parse(punch.at) < clock.windowStart || punch.supersedes !== null) {
+        // A correction can reach back past the window: read that technician again.
+        this.clocks.set(punch.technicianId, this.readClock(punch.technicianId, Date.now()));
+        return;
+      }
+      insertInTimeOrder(clock.punches, punch);
+      clock.built = null;
+    });
+  }
+
+  linesChanged(lineIds: readonly number[]): void {
+    if (lineIds.length === 0) return;
+    this.afterCommit(() => {
+      const rows = this.queries.linesById.all({ ids: JSON.stringify(lineIds) });
+      for (const id of lineIds) this.lines.delete(id);
+      for (const row of rows) if (row.status !== 'done') this.lines.set(row.id, toFloorLine(row));
+      this.widenWindowsFor(rows.filter((row) => row.status !== 'done').map((row) => row.id));
+    });
+  }
+
+  baysChanged(): void {
+    this.afterCommit(() => (this.bayList = this.queries.bays.all().map(toFloorBay)));
+  }
+
+  timersChanged(): void {
+    this.afterCommit(() => (this.timerList = this.loadTimers()));
+  }
+
+  /** A technician added, renamed, deactivated or given another skill level. */
+  techniciansChanged(): void {
+    this.afterCommit(() => this.loadTechnicians(Date.now()));
+  }
+
+  /** The shop's rules changed (split, concurrent jobs): every ledger is built again. */
+  private settingsChanged(): void {
+    for (const clock of this.clocks.values()) clock.built = null;
+    this.live.changed();
+  }
+
+  // Reads: all from memory.
+
+  technicians(): readonly FloorTechnician[] {
+    return this.technicianList;
+  }
+
+  openLines(): FloorLine[] {
+    return [...this.lines.values()];
+  }
+
+  openLine(id: number): FloorLine | undefined {
+    return this.lines.get(id);
+  }
+
+  bays(): readonly FloorBay[] {
+    return this.bayList;
+  }
+
+  runningTimers(): readonly FloorTimer[] {
+    return this.timerList;
+  }
+
+  /** The technician's recent punches (at least the last 72 hours), in time order. */
+  punchesOf(technicianId: number): readonly LedgerPunch[] {
+    return this.clocks.get(technicianId)?.punches ?? [];
+  }
+
+  ledgerOf(technicianId: number, now: Date): Ledger | null {
+    return this.built(technicianId, now)?.ledger ?? null;
+  }
+
+  stateOf(technicianId: number, now: Date): TechnicianState | null {
+    return this.built(technicianId, now)?.state ?? null;
+  }
+
+  /** Technicians clocked on the line right now. */
+  clockedOn(jobLineId: number, now: Date): number[] {
+    return this.technicianList
+      .filter((tech) => this.stateOf(tech.id, now)?.openJobLineIds.includes(jobLineId))
+      .map((tech) => tech.id);
+  }
+
+  /**
+   * Clocked seconds on each open line up to `now`, per technician and in all, with the split rule. A
+   * ledger is built when its punches change; between punches an open line's time grows at its share
+   * of the wall clock, which is what a fresh ledger would count.
+   */
+  lineSeconds(now: Date): Map<number, LineSeconds> {
+    const { concurrentSplit } = this.shop.settings();
+    const result = new Map<number, LineSeconds>();
+    for (const tech of this.technicianList) {
+      const built = this.built(tech.id, now);
+      if (!built) continue;
+      const open = built.state.openJobLineIds;
+      const share = concurrentSplit === 'even' && open.length > 0 ? 1 / open.length : 1;
+      const running = Math.max(0, now.getTime() - built.at) / 1000;
+      for (const [key, closed] of Object.entries(built.ledger.totals.jobSeconds)) {
+        const lineId = Number(key);
+        if (!this.lines.has(lineId)) continue;
+        const seconds = closed + (open.includes(lineId) ? running * share : 0);
+        if (seconds === 0) continue;
+        const line = result.get(lineId) ?? { total: 0, byTechnician: new Map<number, number>() };
+        line.total += seconds;
+        line.byTechnician.set(tech.id, seconds);
+        result.set(lineId, line);
+      }
+    }
+    return result;
+  }
+
+  private afterCommit(apply: () => void): void {
+    this.uow.afterCommit(() => {
+      apply();
+      this.live.changed();
+    });
+  }
+
+  private built(technicianId: number, now: Date): TechnicianPunches['built'] {
+    const clock = this.clocks.get(technicianId);
+    if (!clock) return null;
+    if (!clock.built) {
+      this.prune(clock, now.getTime());
+      const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
+      const ledger = buildLedger(clock.punches, now, { concurrentSplit, maxConcurrentJobs });
+      clock.built = { ledger, at: now.getTime(), state: technicianState(ledger) };
+    }
+    return clock.built;
+  }
+
+  /** Drops punches no open line and no recent shift needs any more. */
+  private prune(clock: TechnicianPunches, now: number): void {
+    const needed = Math.min(now - RECENT_MS, this.firstNeeded(clock.punches) ?? Infinity);
+    if (needed <= clock.windowStart) return;
+    const keep = clock.punches.findIndex((punch) => Date.parse(punch.at) >= needed);
+    clock.punches.splice(0, keep === -1 ? clock.punches.length : keep);
+    clock.windowStart = needed;
+  }
+
+  /** Where the window must start so that every punch on an open line is in it. */
+  private firstNeeded(list: readonly LedgerPunch[]): number | null {
+    const first = list.find((punch) => punch.jobLineId !== null && this.lines.has(punch.jobLineId));
+    return first ? Date.parse(first.at) - SHIFT_LOOKBACK_MS : null;
+  }
+
+  private loadTechnicians(now: number): void {
+    this.technicianList = this.queries.technicians.all();
+    const ids = new Set(this.technicianList.map((tech) => tech.id));
+    for (const id of this.clocks.keys()) if (!ids.has(id)) this.clocks.delete(id);
+    for (const id of ids) if (!this.clocks.has(id)) this.clocks.set(id, this.readClock(id, now));
+  }
+
+  /** A technician's punches from far enough back to hold any open shift and every punch on open lines. */
+  private readClock(technicianId: number, now: number): TechnicianPunches {
+    const lineIds = [...this.lines.keys()];
+    const first = lineIds.length
+      ? this.db
+          .select({ first: min(punches.at) })
+          .from(punches)
+          .where(and(eq(punches.technicianId, technicianId), inArray(punches.jobLineId, lineIds)))
+          .get()?.first
+      : null;
+    const windowStart = Math.min(now - RECENT_MS, first ? first.getTime() - SHIFT_LOOKBACK_MS : Infinity);
+    const list = this.db
+      .select()
+      .from(punches)
+      .where(and(eq(punches.technicianId, technicianId), gte(punches.at, new Date(windowStart))))
+      .orderBy(asc(punches.at), asc(punches.id))
+      .all()
+      .map(toPunchDto);
+    return { windowStart, punches: list, built: null };
+  }
+
+  /** A line opened again may have punches from before a technician's window: read those again. */
+  private widenWindowsFor(lineIds: number[]): void {
+    if (lineIds.length === 0) return;
+    const firsts = this.db
+      .select({ technicianId: punches.technicianId, first: min(punches.at) })
+      .from(punches)
+      .where(inArray(punches.jobLineId, lineIds))
+      .groupBy(punches.technicianId)
+      .all();
+    for (const { technicianId, first } of firsts) {
+      const clock = this.clocks.get(technicianId);
+      if (clock && first && first.getTime() - SHIFT_LOOKBACK_MS < clock.windowStart)
+        this.clocks.set(technicianId, this.readClock(technicianId, Date.now()));
+      else if (clock) clock.built = null;
+    }
+  }
+
+  private loadTimers(): FloorTimer[] {
+    const running = this.queries.runningTimers.all();
+    if (running.length === 0) return [];
+    const readings = this.db
+      .select()
+      .from(timerReadings)
+      .where(
+        inArray(
+          timerReadings.timerId,
+          running.map((timer) => timer.id),
+        ),
+      )
+      .orderBy(asc(timerReadings.at))
+      .all();
+    return running.map((timer) => ({ ...timer, readings: readings.filter((r) => r.timerId === timer.id) }));
+  }
+}
+
+function insertInTimeOrder(list: LedgerPunch[], punch: LedgerPunch): void {
+  const at = Date.parse(punch.at);
+  let index = list.length;
+  while (index > 0 && Date.parse(list[index - 1]!.at) > at) index--;
+  list.splice(index, 0, punch);
+}
+
+type LineQueryRow = typeof jobLines.$inferSelect & {
+  repairOrderNumber: string;
+  vehicleYear: number;
+  vehicleMake: string;
+  vehicleModel: string;
+};
+
+function toFloorLine({
+  repairOrderNumber,
+  vehicleYear,
+  vehicleMake,
+  vehicleModel,
+  ...line
+}: LineQueryRow): FloorLine {
+  return {
+    ...line,
+    repairOrderNumber,
+    vehicle: describeVehicle({ year: vehicleYear, make: vehicleMake, model: vehicleModel }),
+  };
+}
+
+function toFloorBay({
+  bay,
+  parkedRepairOrder,
+  parkedVehicle,
+}: {
+  bay: typeof bays.$inferSelect;
+  parkedRepairOrder: typeof repairOrders.$inferSelect | null;
+  parkedVehicle: typeof vehicles.$inferSelect | null;
+}): FloorBay {
+  return {
+    ...bay,
+    parked:
+      parkedRepairOrder && parkedVehicle
+        ? {
+            id: parkedRepairOrder.id,
+            number: parkedRepairOrder.number,
+            vehicle: describeVehicle(parkedVehicle),
+          }
+        : null,
+  };
+}
+
+/** Statements prepared once: the model reads the same shapes after every change. */
+function prepareFloorQueries(db: Db) {
+  const lineColumns = {
+    ...getTableColumns(jobLines),
+    repairOrderNumber: repairOrders.number,
+    vehicleYear: vehicles.year,
+    vehicleMake: vehicles.make,
+    vehicleModel: vehicles.model,
+  };
+  const linesWithVehicle = () =>
+    db
+      .select(lineColumns)
+      .from(jobLines)
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId));
+  return {
+    technicians: db
+      .select({ id: users.id, name: users.name, skillLevel: users.skillLevel })
+      .from(users)
+      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
+      .orderBy(asc(users.name))
+      .prepare(),
+    openLines: linesWithVehicle().where(ne(jobLines.status, 'done')).prepare(),
+    linesById: linesWithVehicle()
+      .where(sql`${jobLines.id} in (select value from json_each(${sql.placeholder('ids')}))`)
+      .prepare(),
+    /** Each bay with the repair order parked in it (check, ready) when no open line says more. */
+    bays: db
+      .select({ bay: bays, parkedRepairOrder: repairOrders, parkedVehicle: vehicles })
+      .from(bays)
+      .leftJoin(repairOrders, eq(repairOrders.id, bays.repairOrderId))
+      .leftJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .where(eq(bays.active, true))
+      .orderBy(asc(bays.position), asc(bays.id))
+      .prepare(),
+    runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
+  };
+}
