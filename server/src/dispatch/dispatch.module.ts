@@ -1,7 +1,12 @@
 import { Module } from '@nestjs/common';
+import { FloorModule } from '../floor/floor.module.js';
 import { BoardModule } from '../board/board.module.js';
 import { DispatchController } from './dispatch.controller.js';
 import { DispatchService } from './dispatch.service.js';
 
-@Module({ imports: [BoardModule], controllers: [DispatchController], providers: [DispatchService] })
+@Module({
+  imports: [FloorModule, BoardModule],
+  controllers: [DispatchController],
+  providers: [DispatchService],
+})
 export class DispatchModule {}

@@ -1,23 +1,25 @@
 import {
   Inject,
   Injectable,
+  Logger,
   type OnApplicationBootstrap,
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
-import { and, asc, eq, gte, ne } from 'drizzle-orm';
+import { and, eq, gte } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
   shareFlaggedHours,
-  technicianState,
   type DispatchBoard,
   type DispatchLane,
   type DispatchLine,
 } from '@baytime/shared';
-import { BoardService, describeVehicle } from '../board/board.service.js';
+import { BoardService } from '../board/board.service.js';
+import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
-import { jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { jobLines } from '../db/schema/index.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -25,7 +27,11 @@ import { ShopService } from '../shop/shop.service.js';
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
+/** A technician's own efficiency drives forecasts only after this much clocked time in four weeks. */
+const MIN_CLOCKED_HOURS_FOR_EFFICIENCY = 8;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
+export const NO_OPENING_HOURS =
+  'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
 
 const byUrgency = (a: DispatchLine, b: DispatchLine) =>
   b.clockedOn.length - a.clockedOn.length ||
@@ -33,15 +39,23 @@ const byUrgency = (a: DispatchLine, b: DispatchLine) =>
   (a.promisedAt ?? '9').localeCompare(b.promisedAt ?? '9') ||
   a.queuedAt.localeCompare(b.queuedAt);
 
+interface Efficiencies {
+  byTechnician: Map<number, number | null>;
+  /** The whole shop's figure, for technicians without enough time of their own. */
+  shop: number | null;
+}
+
 /** The foreman's view: the unassigned queue, a lane per technician with forecast finish times. */
 @Injectable()
 export class DispatchService implements OnModuleInit, OnApplicationBootstrap, OnModuleDestroy {
+  private readonly logger = new Logger(DispatchService.name);
   private subscription: Subscription | null = null;
-  private efficiencyCache: { at: number; values: Map<number, number | null> } | null = null;
+  private efficiencyCache: { at: number; values: Efficiencies } | null = null;
 
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly labour: LabourService,
+    private readonly floor: FloorService,
     private readonly shop: ShopService,
     private readonly board: BoardService,
     private readonly live: LiveService,
@@ -52,45 +66,35 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     this.subscription = merge(
       this.live.floorChanged$.pipe(debounceTime(LATE_COUNT_SETTLE_MS)),
       interval(60_000),
-    ).subscribe(() => this.board.setLateLines(this.view().lateCount));
+    ).subscribe(() => this.countLateLines());
   }
 
   /** Once the shop's data is in place (after first-run seeding), the wall gets its first count. */
   onApplicationBootstrap(): void {
-    this.board.setLateLines(this.view().lateCount);
+    this.countLateLines();
   }
 
   onModuleDestroy(): void {
     this.subscription?.unsubscribe();
   }
 
+  private countLateLines(): void {
+    keepServing(this.logger, 'Counting late lines', () => this.board.setLateLines(this.view().lateCount));
+  }
+
   view(now = new Date()): DispatchBoard {
     const settings = this.shop.settings();
-    const technicians = this.db
-      .select()
-      .from(users)
-      .where(and(eq(users.role, 'technician'), eq(users.active, true)))
-      .orderBy(asc(users.name))
-      .all();
-    const rows = this.db
-      .select({ line: jobLines, number: repairOrders.number, vehicle: vehicles })
-      .from(jobLines)
-      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(ne(jobLines.status, 'done'))
-      .all();
-    const seconds = this.labour.lineSeconds(
-      rows.map(({ line }) => line.id),
-      now,
-    );
-    const states = new Map(
-      technicians.map((t) => [t.id, technicianState(this.labour.currentLedger(t.id, now))]),
-    );
-    const lines: DispatchLine[] = rows.map(({ line, number, vehicle }) => ({
+    const technicians = this.floor.technicians();
+    const seconds = this.floor.lineSeconds(now);
+    const clockedOn = new Map<number, number[]>();
+    for (const tech of technicians)
+      for (const lineId of this.floor.stateOf(tech.id, now)?.openJobLineIds ?? [])
+        clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), tech.id]);
+    const lines: DispatchLine[] = this.floor.openLines().map((line) => ({
       id: line.id,
       repairOrderId: line.repairOrderId,
-      repairOrderNumber: number,
-      vehicle: describeVehicle(vehicle),
+      repairOrderNumber: line.repairOrderNumber,
+      vehicle: line.vehicle,
       lineNo: line.lineNo,
       title: line.title,
       bookHours: line.bookHours,
@@ -103,22 +107,14 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       promisedAt: line.promisedAt?.toISOString() ?? null,
       queuedAt: line.queuedAt.toISOString(),
       clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
-      clockedOn: technicians
-        .filter((t) => states.get(t.id)?.openJobLineIds.includes(line.id))
-        .map((t) => t.id),
+      clockedOn: clockedOn.get(line.id) ?? [],
       forecast: null,
     }));
-    const efficiencies = this.efficiencies(
-      technicians.map((t) => t.id),
-      now,
-    );
-
-    const lanes: DispatchLane[] = technicians.map((tech) => {
-      const own = lines.filter((l) => l.technicianId === tech.id).sort(byUrgency);
-      const efficiency = efficiencies.get(tech.id) ?? null;
-      const workable = own.filter((l) => l.status !== 'held');
+    const efficiencies = this.efficiencies(now);
+    let forecastsAvailable = true;
+    const forecast = (queue: DispatchLine[], efficiency: number | null) => {
       const forecasts = forecastTechnicianQueue({
-        lines: workable.map((l) => ({
+        lines: queue.map((l) => ({
           id: l.id,
           // Time already clocked counts as progress at the tech's own pace.
           remainingBookHours: Math.max(0, l.bookHours - (l.clockedSeconds / 3600) * (efficiency ?? 1)),
@@ -129,15 +125,24 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
         timeZone: settings.timeZone,
         now,
       });
-      for (const f of forecasts) {
-        const line = own.find((l) => l.id === f.id)!;
-        line.forecast = {
+      if (!forecasts) forecastsAvailable = false;
+      for (const [index, f] of (forecasts ?? []).entries())
+        queue[index]!.forecast = {
           startAt: f.startAt.toISOString(),
           finishAt: f.finishAt.toISOString(),
           late: f.late,
         };
-      }
-      const state = states.get(tech.id);
+      return forecasts;
+    };
+
+    const lanes: DispatchLane[] = technicians.map((tech) => {
+      const own = lines.filter((l) => l.technicianId === tech.id).sort(byUrgency);
+      const efficiency = efficiencies.byTechnician.get(tech.id) ?? null;
+      const forecasts = forecast(
+        own.filter((l) => l.status !== 'held'),
+        efficiency ?? efficiencies.shop,
+      );
+      const state = this.floor.stateOf(tech.id, now);
       const status =
         !state || state.status === 'off'
           ? 'off'
@@ -150,21 +155,29 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
         technician: { id: tech.id, name: tech.name, skillLevel: tech.skillLevel, status },
         efficiency,
         lines: own,
-        finishAt: forecasts.at(-1)?.finishAt.toISOString() ?? null,
+        finishAt: forecasts?.at(-1)?.finishAt.toISOString() ?? null,
       };
     });
 
+    const queue = lines.filter((l) => l.technicianId === null).sort(byUrgency);
+    // A waiting line is late already if even starting it now, at the shop's pace, misses its promise.
+    for (const line of queue) if (line.status !== 'held') forecast([line], efficiencies.shop);
+
     return {
       serverTime: now.toISOString(),
-      queue: lines.filter((l) => l.technicianId === null).sort(byUrgency),
+      queue,
       lanes,
       bays: this.board.current().bays.map(({ id, name, state }) => ({ id, name, state })),
       lateCount: lines.filter((l) => l.forecast?.late).length,
+      forecastNote: forecastsAvailable ? null : NO_OPENING_HOURS,
     };
   }
 
-  /** Flagged ÷ clocked hours per technician over the last four weeks, cached for a few minutes. */
-  private efficiencies(technicianIds: number[], now: Date): Map<number, number | null> {
+  /**
+   * Flagged ÷ clocked hours over the last four weeks, per technician with enough clocked time to mean
+   * something, and for the whole shop; cached for a few minutes.
+   */
+  private efficiencies(now: Date): Efficiencies {
     if (this.efficiencyCache && now.getTime() - this.efficiencyCache.at < EFFICIENCY_CACHE_MS)
       return this.efficiencyCache.values;
     const from = new Date(now.getTime() - FOUR_WEEKS_MS);
@@ -186,14 +199,21 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       );
       for (const [techId, hours] of shares) flagged.set(techId, (flagged.get(techId) ?? 0) + hours);
     }
-    const values = new Map(
-      technicianIds.map((id) => {
+    let shopFlagged = 0;
+    let shopClocked = 0;
+    const byTechnician = new Map(
+      this.floor.technicians().map(({ id }) => {
         const clocked =
           this.labour.ledgerOf(id, new Date(from.getTime() - 36 * 3600_000), now).within(from, now)
             .clockedSeconds / 3600;
-        return [id, clocked > 0 ? (flagged.get(id) ?? 0) / clocked : null] as const;
+        shopFlagged += flagged.get(id) ?? 0;
+        shopClocked += clocked;
+        const enough = clocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY;
+        return [id, enough ? (flagged.get(id) ?? 0) / clocked : null] as const;
       }),
     );
+    const shop = shopClocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY ? shopFlagged / shopClocked : null;
+    const values = { byTechnician, shop };
     this.efficiencyCache = { at: now.getTime(), values };
     return values;
   }

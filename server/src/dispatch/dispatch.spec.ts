@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeVin, type BoardSnapshot, type DispatchBoard, type RepairOrderSummary } from '@baytime/shared';
+import { createApp } from '../app.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { DispatchService } from './dispatch.service.js';
+import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
 
 describe(DispatchService.name, () => {
   let sut: TestApp;
@@ -52,5 +53,51 @@ describe(DispatchService.name, () => {
       )
       .toBe(dispatch.lateCount);
     expect(dispatch.lateCount).toBeGreaterThan(0);
+  });
+
+  describe('opening hours that once stopped the server', () => {
+    const closedEveryDay = Array(7).fill(null);
+    const nights = Array.from({ length: 7 }, () => ({ open: '22:00', close: '06:00' }));
+    const roundTheClock = Array.from({ length: 7 }, () => ({ open: '08:00', close: '08:00' }));
+
+    async function saveHours(token: string, openingHours: unknown): Promise<DispatchBoard> {
+      await sut.http().patch('/api/shop').auth(token, { type: 'bearer' }).send({ openingHours }).expect(200);
+      // Past the late-count debounce, where the old crash happened in the background.
+      await new Promise((resolve) => setTimeout(resolve, 1800));
+      await sut.http().get('/api/health').expect(200);
+      return (await sut.http().get('/api/dispatch').auth(token, { type: 'bearer' }).expect(200))
+        .body as DispatchBoard;
+    }
+
+    it('forecasts through the night in a night shop and round the clock', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      for (const openingHours of [nights, roundTheClock]) {
+        const dispatch = await saveHours(owner, openingHours);
+        expect(dispatch.forecastNote).toBeNull();
+        const forecasts = dispatch.lanes
+          .flatMap((lane) => lane.lines)
+          .filter((line) => line.status !== 'held');
+        expect(forecasts.length).toBeGreaterThan(0);
+        for (const { forecast } of forecasts)
+          expect(Date.parse(forecast!.finishAt)).toBeGreaterThanOrEqual(Date.parse(dispatch.serverTime));
+      }
+    });
+
+    it('says there are no forecasts when every day is closed, and keeps serving across a restart', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const dispatch = await saveHours(owner, closedEveryDay);
+      expect(dispatch.forecastNote).toBe(NO_OPENING_HOURS);
+      const assigned = dispatch.lanes.flatMap((lane) => lane.lines);
+      expect(assigned.length).toBeGreaterThan(0);
+      expect(assigned.every((line) => line.forecast === null)).toBe(true);
+
+      // The same database file served again: it used to die at start-up.
+      await sut.app.close();
+      sut.app = await createApp(sut.config, false);
+      await sut.app.listen(0, '127.0.0.1');
+      await sut.http().get('/api/health').expect(200);
+      const again = await sut.http().get('/api/dispatch').auth(owner, { type: 'bearer' }).expect(200);
+      expect((again.body as DispatchBoard).forecastNote).toBe(NO_OPENING_HOURS);
+    });
   });
 });

@@ -37,8 +37,9 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
   await app.listen(0, '127.0.0.1');
   const url = (await app.getUrl()).replace('[::1]', '127.0.0.1');
   const sockets: LiveClient[] = [];
-  const http = () => request(app.getHttpServer());
-  return {
+  // Through the returned object, so a test can serve the same database again from a new app.
+  const http = () => request(testApp.app.getHttpServer());
+  const testApp: TestApp = {
     app,
     config,
     url,
@@ -61,10 +62,11 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     },
     close: async () => {
       for (const socket of sockets) socket.disconnect();
-      await app.close();
+      await testApp.app.close();
       rmSync(dataDir, { recursive: true, force: true });
     },
   };
+  return testApp;
 }
 
 /** Resolves with the first event of that name that passes `match`, or rejects after `timeoutMs`. */

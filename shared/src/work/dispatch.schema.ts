@@ -9,13 +9,19 @@ export interface DispatchLine extends Omit<JobLineDto, 'completedAt'> {
   clockedSeconds: number;
   /** Technicians clocked on it now. */
   clockedOn: number[];
-  /** Expected start and finish in the technician's queue; null while unassigned or held. */
+  /**
+   * Expected start and finish in the technician's queue (for a waiting line: if started now at the
+   * shop's pace); null while held or when the shop has no opening hours.
+   */
   forecast: { startAt: string; finishAt: string; late: boolean } | null;
 }
 
 export interface DispatchLane {
   technician: { id: number; name: string; skillLevel: number; status: PersonStatus | 'off' };
-  /** Flagged ÷ clocked hours over the last four weeks; null for a technician with no history yet. */
+  /**
+   * Flagged ÷ clocked hours over the last four weeks; null until the technician has enough clocked
+   * time, when forecasts use the shop's figure.
+   */
   efficiency: number | null;
   lines: DispatchLine[];
   finishAt: string | null;
@@ -27,4 +33,6 @@ export interface DispatchBoard {
   lanes: DispatchLane[];
   bays: { id: number; name: string; state: BayState }[];
   lateCount: number;
+  /** Why there are no forecasts, in plain words; null when there are. */
+  forecastNote: string | null;
 }

@@ -60,6 +60,7 @@ function board(queue: DispatchLine[], lanes: DispatchLane[]): DispatchBoard {
       { id: 2, name: 'Bay 2', state: 'free' },
     ],
     lateCount: 0,
+    forecastNote: null,
   };
 }
 

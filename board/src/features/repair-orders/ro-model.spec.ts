@@ -89,6 +89,7 @@ function dispatch(lines: DispatchLine[]): DispatchBoard {
     ],
     bays: [{ id: 2, name: 'Bay 2', state: 'working' }],
     lateCount: 0,
+    forecastNote: null,
   };
 }
 

@@ -113,7 +113,9 @@ function Summary({ board, canEdit }: { board: DispatchBoard; canEdit: boolean })
   return (
     <>
       <strong>{board.queue.length}</strong> waiting · <strong>{board.lanes.length}</strong> technicians ·{' '}
-      {board.lateCount > 0 ? (
+      {board.forecastNote ? (
+        <span className={styles.late}>{board.forecastNote}</span>
+      ) : board.lateCount > 0 ? (
         <span className={styles.late}>{board.lateCount} forecast late</span>
       ) : (
         'nothing forecast late'
