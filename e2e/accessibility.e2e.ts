@@ -1,0 +1,193 @@
+import { AxeBuilder } from '@axe-core/playwright';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { OFFICE_NAV } from '../board/src/config/office-nav';
+import { paths } from '../board/src/config/paths';
+import { openBrowser } from './support/browser.js';
+import { openWall, signInAtOffice } from './support/floor.js';
+import { startServer, type RunningServer } from './support/server.js';
+
+/** WCAG 2.0, 2.1 and 2.2, levels A and AA, as axe-core tags its rules. */
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22a', 'wcag22aa'];
+
+interface AcceptedException {
+  rule: string;
+  /** A CSS selector the flagged element itself matches. */
+  element: string;
+  why: string;
+}
+
+/** Violations we accept, each with its reason. Anything else fails the test. */
+const ACCEPTED: readonly AcceptedException[] = [
+  {
+    rule: 'aria-hidden-focus',
+    element: 'i[data-tabster-dummy]',
+    why:
+      'Fluent UI v9 keyboard handling (tabster) puts a focusable, aria-hidden <i> before and after ' +
+      'a TabList (arrow-key group) and, once a Dialog is mounted, around the page body. Each one ' +
+      'hands the focus on the moment it arrives, and is hidden so screen readers do not announce ' +
+      'it. The Fluent and tabster maintainers call it by design (microsoft/fluentui#27517, ' +
+      'microsoft/tabster#288).',
+  },
+];
+
+/** Runs axe on the page as it is now and returns what no accepted exception covers. */
+async function checkPage(page: Page, where: string, seen: Set<AcceptedException>): Promise<string[]> {
+  const { violations } = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+  const findings: string[] = [];
+  for (const violation of violations)
+    for (const node of violation.nodes) {
+      const target = node.target.join(' ');
+      const accepted = await acceptedFor(page, violation.id, target);
+      if (accepted) {
+        seen.add(accepted);
+        continue;
+      }
+      findings.push(
+        `${where}: ${violation.id} (${violation.impact}) at ${target}: ${node.html.slice(0, 160)}`,
+      );
+    }
+  return findings;
+}
+
+async function acceptedFor(page: Page, rule: string, target: string) {
+  for (const exception of ACCEPTED) {
+    if (exception.rule !== rule) continue;
+    const matches = await page.evaluate(
+      ([selector, pattern]) => document.querySelector(selector)?.matches(pattern) ?? false,
+      [target, exception.element] as const,
+    );
+    if (matches) return exception;
+  }
+  return undefined;
+}
+
+describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
+  let server: RunningServer;
+  let browser: BrowserContext;
+  const seen = new Set<AcceptedException>();
+  beforeAll(async () => {
+    server = await startServer();
+    browser = await openBrowser({ width: 1600, height: 1000 });
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it('office: every page, as the owner', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.url}${paths.signIn}`);
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    const findings = await checkPage(page, 'sign-in', seen);
+
+    await signInAtOffice(page, server, 'owner@marlowcreek.test');
+    await page.goto(`${server.url}${paths.repairOrders}`);
+    const firstOrder = page.locator('main a[href^="/repair-orders/"]:not([href$="/new"])').first();
+    const orderPath = await firstOrder.getAttribute('href');
+    const routes = [
+      ...OFFICE_NAV.flatMap((group) => group.entries.map((entry) => entry.path)),
+      paths.repairOrderNew,
+      orderPath!,
+      '/no-such-page',
+    ];
+    for (const route of routes) {
+      await page.goto(`${server.url}${route}`);
+      await page.locator('main h1').first().waitFor();
+      await page.waitForLoadState('networkidle');
+      findings.push(...(await checkPage(page, route, seen)));
+    }
+    await page.close();
+    expect(findings).toEqual([]);
+  }, 180_000);
+
+  it('kiosk: sign-in typed on a keyboard, my day, every sheet, my week', async () => {
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await page.goto(`${server.url}${paths.kiosk}`);
+    await page.getByText('Sign in with your badge').waitFor();
+    const findings = await checkPage(page, 'kiosk badge step', seen);
+
+    // A badge reader or keyboard: digits, a slip corrected with Backspace, Enter; then the PIN.
+    await page.keyboard.type('10419');
+    await page.keyboard.press('Backspace');
+    await page.keyboard.press('Enter');
+    await page.getByText('PIN for badge 1041').waitFor();
+    findings.push(...(await checkPage(page, 'kiosk PIN step', seen)));
+    await page.keyboard.type('4321');
+    await page.keyboard.press('Enter');
+    await page.getByRole('list', { name: 'My job lines' }).waitFor();
+    findings.push(...(await checkPage(page, 'kiosk my day', seen)));
+
+    const line = page.locator('article', { has: page.getByRole('button', { name: 'Clock off' }) }).first();
+    const sheet = page.getByRole('dialog');
+    const checkSheet = async (where: string) => {
+      await sheet.waitFor();
+      findings.push(...(await checkPage(page, `kiosk ${where}`, seen)));
+    };
+    const leaveSheet = async () => {
+      await page.keyboard.press('Escape');
+      await sheet.waitFor({ state: 'detached' });
+    };
+
+    await line.getByRole('button', { name: 'Hold' }).click();
+    await checkSheet('hold sheet');
+    await leaveSheet();
+    await line.getByRole('button', { name: 'Done' }).click();
+    await checkSheet('done sheet');
+    await leaveSheet();
+
+    await line.getByRole('button', { name: 'Add finding' }).click();
+    await checkSheet('finding sheet');
+    await sheet.getByRole('button', { name: 'Send finding' }).click();
+    await sheet.getByRole('alert').first().waitFor();
+    await checkSheet('finding sheet with problems');
+    await sheet.getByLabel('What did you find?').fill('Torn boot on the inner tie rod end');
+    await sheet.getByRole('radio', { name: 'Keep an eye on it' }).click();
+    await sheet.getByRole('button', { name: 'Send finding' }).click();
+    await sheet.getByText('The advisor has it').waitFor();
+    await checkSheet('finding sent sheet');
+    await sheet.getByRole('button', { name: 'OK' }).click();
+    await sheet.waitFor({ state: 'detached' });
+
+    await line.getByRole('button', { name: 'Start timer' }).click();
+    await checkSheet('timer kind sheet');
+    await sheet.getByRole('button', { name: /Fixed hold/ }).click();
+    await checkSheet('fixed hold sheet');
+    await sheet.getByRole('button', { name: 'Back' }).click();
+    await sheet.getByRole('button', { name: /Warm-up to a temperature/ }).click();
+    await checkSheet('timer safety sheet');
+    await sheet.getByRole('button', { name: /All checked/ }).click();
+    await checkSheet('timer temperatures sheet');
+    await page.keyboard.type('45');
+    await sheet.getByRole('button', { name: /Start warm-up/ }).click();
+    await sheet.waitFor({ state: 'detached' });
+    await line.getByRole('button', { name: /Log reading/ }).click();
+    await checkSheet('reading sheet');
+    await leaveSheet();
+    findings.push(...(await checkPage(page, 'kiosk my day with a timer', seen)));
+
+    await page.getByRole('link', { name: 'My week' }).click();
+    await page.waitForURL(/\/kiosk\/week/);
+    await page.waitForLoadState('networkidle');
+    findings.push(...(await checkPage(page, 'kiosk my week', seen)));
+    await page.close();
+    expect(findings).toEqual([]);
+  }, 120_000);
+
+  it('wall: pairing form and board', async () => {
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    await page.goto(`${server.url}${paths.wall}`);
+    await page.getByRole('button', { name: /pair/i }).waitFor();
+    const findings = await checkPage(page, 'wall pairing form', seen);
+    await openWall(page, server);
+    findings.push(...(await checkPage(page, 'wall board', seen)));
+    await page.close();
+    expect(findings).toEqual([]);
+  });
+
+  it('accepts only exceptions that still occur', () => {
+    expect([...seen].map((exception) => exception.rule)).toEqual(ACCEPTED.map((exception) => exception.rule));
+  });
+});
