@@ -62,6 +62,62 @@ async function acceptedFor(page: Page, rule: string, target: string) {
   return undefined;
 }
 
+/**
+ * Tabs through the page once and names each stop that looks the same focused and not: its outline,
+ * shadow, border, background, text decoration and transform, of its ::before and ::after, and of
+ * its parent and grandparent, where Fluent draws some rings. Stops at the first stop seen again.
+ */
+async function stopsWithoutFocusRing(page: Page): Promise<string[]> {
+  await page.evaluate(() => {
+    const props = [
+      'outline-style',
+      'outline-width',
+      'outline-color',
+      'box-shadow',
+      'border-top-color',
+      'border-bottom-color',
+      'border-bottom-width',
+      'background-color',
+      'text-decoration-line',
+      'text-decoration-style',
+      'transform',
+    ];
+    const look = (element: Element) => {
+      const parts: string[] = [];
+      for (let e: Element | null = element, up = 0; e && up < 3; e = e.parentElement, up++)
+        for (const pseudo of [null, '::before', '::after']) {
+          const style = getComputedStyle(e, pseudo);
+          parts.push(props.map((prop) => style.getPropertyValue(prop)).join('|'));
+        }
+      return parts.join('#');
+    };
+    const stops: { element: Element; name: string; focusedLook: string }[] = [];
+    Object.assign(window, {
+      nextTabStop: () => {
+        const element = document.activeElement;
+        const last = stops.at(-1);
+        if (!element || element === last?.element) return { done: false, missing: null };
+        const missing = last && look(last.element) === last.focusedLook ? last.name : null;
+        if (element === document.body || stops.some((stop) => stop.element === element))
+          return { done: true, missing };
+        const name = `${element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}"`;
+        stops.push({ element, name, focusedLook: look(element) });
+        return { done: false, missing };
+      },
+    });
+  });
+  const missing: string[] = [];
+  for (let press = 0; press < 400; press++) {
+    await page.keyboard.press('Tab');
+    const step = await page.evaluate(() =>
+      (window as unknown as { nextTabStop: () => { done: boolean; missing: string | null } }).nextTabStop(),
+    );
+    if (step.missing) missing.push(step.missing);
+    if (step.done) return missing;
+  }
+  throw new Error('the tab order never came back round');
+}
+
 describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
   let server: RunningServer;
   let browser: BrowserContext;
@@ -99,6 +155,20 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     }
     await page.close();
     expect(findings).toEqual([]);
+  }, 180_000);
+
+  it('office: every tab stop on every page shows a focus ring', async () => {
+    const page = await browser.newPage();
+    await signInAtOffice(page, server, 'owner@marlowcreek.test');
+    const missing: string[] = [];
+    for (const route of OFFICE_NAV.flatMap((group) => group.entries.map((entry) => entry.path))) {
+      await page.goto(`${server.url}${route}`);
+      await page.locator('main h1').first().waitFor();
+      await page.waitForLoadState('networkidle');
+      for (const stop of await stopsWithoutFocusRing(page)) missing.push(`${route}: ${stop}`);
+    }
+    await page.close();
+    expect(missing).toEqual([]);
   }, 180_000);
 
   it('kiosk: sign-in typed on a keyboard, my day, every sheet, my week', async () => {
@@ -164,13 +234,31 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await sheet.waitFor({ state: 'detached' });
     await line.getByRole('button', { name: /Log reading/ }).click();
     await checkSheet('reading sheet');
+    // Enter on a focused sheet button is that button's: Tab to Cancel, Enter cancels, nothing saved.
+    await page.keyboard.type('30');
+    await page.keyboard.press('Tab');
+    await sheet.getByRole('button', { name: 'Cancel' }).and(page.locator(':focus')).waitFor();
+    await page.keyboard.press('Enter');
+    await sheet.waitFor({ state: 'detached' });
+    await line.getByRole('button', { name: /Log reading/ }).click();
+    await sheet.getByText(/first reading/).waitFor();
+    // Anywhere else, digits and Enter type and send the reading.
+    await page.keyboard.type('30');
+    await page.keyboard.press('Enter');
+    await sheet.waitFor({ state: 'detached' });
+    await line.getByRole('button', { name: /Log reading/ }).click();
+    await sheet.getByText(/last reading 30/).waitFor();
     await leaveSheet();
     findings.push(...(await checkPage(page, 'kiosk my day with a timer', seen)));
+    for (const stop of await stopsWithoutFocusRing(page))
+      findings.push(`kiosk my day: no focus ring on ${stop}`);
 
     await page.getByRole('link', { name: 'My week' }).click();
     await page.waitForURL(/\/kiosk\/week/);
     await page.waitForLoadState('networkidle');
     findings.push(...(await checkPage(page, 'kiosk my week', seen)));
+    for (const stop of await stopsWithoutFocusRing(page))
+      findings.push(`kiosk my week: no focus ring on ${stop}`);
     await page.close();
     expect(findings).toEqual([]);
   }, 120_000);
