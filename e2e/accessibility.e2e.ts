@@ -31,9 +31,19 @@ const ACCEPTED: readonly AcceptedException[] = [
   },
 ];
 
-/** Runs axe on the page as it is now and returns what no accepted exception covers. */
-async function checkPage(page: Page, where: string, seen: Set<AcceptedException>): Promise<string[]> {
-  const { violations } = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+/**
+ * Runs axe on the page as it is now, or only on the part `within` selects, and returns what no
+ * accepted exception covers.
+ */
+async function checkPage(
+  page: Page,
+  where: string,
+  seen: Set<AcceptedException>,
+  within?: string,
+): Promise<string[]> {
+  const builder = new AxeBuilder({ page }).withTags(WCAG_TAGS);
+  if (within) builder.include(within);
+  const { violations } = await builder.analyze();
   const findings: string[] = [];
   for (const violation of violations)
     for (const node of violation.nodes) {
@@ -153,6 +163,35 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
       await page.waitForLoadState('networkidle');
       findings.push(...(await checkPage(page, route, seen)));
     }
+
+    // Open states: a refused form, a dialog, the keyboard Move menu (only the menu: the page
+    // behind it is partly covered while it is open).
+    await page.goto(`${server.url}${paths.repairOrderNew}`);
+    await page.getByRole('button', { name: 'Write repair order' }).click();
+    await page.locator('[aria-invalid="true"]').first().waitFor();
+    findings.push(...(await checkPage(page, 'repair order intake, refused', seen)));
+    await page.goto(`${server.url}${paths.timecards}`);
+    await page
+      .getByRole('button', { name: /^Correct / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'timecard correction dialog', seen)));
+    await page.goto(`${server.url}${paths.admin.screens}`);
+    await page
+      .getByRole('button', { name: /^Revoke / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'revoke screen dialog', seen)));
+    await page.goto(`${server.url}${paths.dispatch}`);
+    await page
+      .getByRole('button', { name: /^Move line/ })
+      .first()
+      .focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('menu').waitFor();
+    findings.push(...(await checkPage(page, 'dispatch Move menu', seen, '[role="menu"]')));
     await page.close();
     expect(findings).toEqual([]);
   }, 180_000);
