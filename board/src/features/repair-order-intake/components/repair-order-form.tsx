@@ -1,5 +1,5 @@
 import { FormErrorBar } from '@/components/form-error-bar';
-import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useId, useMemo, useRef, useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router';
 import {
   Body1,
@@ -136,6 +136,9 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const operations = useOperations();
   const visits = useKnownVisits();
   const formRef = useRef<HTMLFormElement>(null);
+  // The promised field holds two inputs: each needs its own id, not the one the field hands out.
+  const promisedDateId = useId();
+  const promisedTimeId = useId();
 
   const [draft, setDraft] = useState<IntakeDraft>(emptyDraft);
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -449,6 +452,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
             <div className={styles.promised}>
               <Input
                 type="date"
+                id={promisedDateId}
                 aria-label="Promised date"
                 value={draft.promisedDate}
                 onChange={(_, data) => {
@@ -458,6 +462,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
               />
               <Input
                 type="time"
+                id={promisedTimeId}
                 aria-label="Promised time"
                 value={draft.promisedTime}
                 onChange={(_, data) => {

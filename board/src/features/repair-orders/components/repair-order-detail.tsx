@@ -62,6 +62,8 @@ const useStyles = makeStyles({
   vin: { fontFamily: tokens.fontFamilyMonospace, letterSpacing: '0.04em' },
   concern: { gridColumn: '1 / -1', whiteSpace: 'pre-wrap' },
   dim: { color: tokens.colorNeutralForeground3 },
+  // A 24 px high target for each contact link (WCAG 2.2 target size), even when stacked.
+  contact: { alignSelf: 'flex-start', minHeight: '24px', display: 'inline-flex', alignItems: 'center' },
   section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
   sectionHead: { display: 'flex', alignItems: 'baseline', gap: tokens.spacingHorizontalM },
   scroll: { overflowX: 'auto' },
@@ -227,8 +229,16 @@ function Detail({
       <Card className={styles.facts}>
         <Fact label="Customer">
           <Body1 className={styles.big}>{ro.customerName}</Body1>
-          {ro.customerPhone && <Link href={`tel:${ro.customerPhone}`}>{ro.customerPhone}</Link>}
-          {ro.customerEmail && <Link href={`mailto:${ro.customerEmail}`}>{ro.customerEmail}</Link>}
+          {ro.customerPhone && (
+            <Link className={styles.contact} href={`tel:${ro.customerPhone}`}>
+              {ro.customerPhone}
+            </Link>
+          )}
+          {ro.customerEmail && (
+            <Link className={styles.contact} href={`mailto:${ro.customerEmail}`}>
+              {ro.customerEmail}
+            </Link>
+          )}
           {'customerPhone' in ro && !ro.customerPhone && !ro.customerEmail && (
             <Caption1 className={styles.dim}>No phone or e-mail on file</Caption1>
           )}

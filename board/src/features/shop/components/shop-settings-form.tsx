@@ -323,16 +323,18 @@ function OpeningDay({
       />
       {value ? (
         <>
-          <Field validationMessage={error} aria-label={`${day} opens`}>
+          <Field validationMessage={error}>
             <Input
               type="time"
+              aria-label={`${day} opens`}
               value={value.open}
               onChange={(_, data) => onChange({ ...value, open: data.value })}
             />
           </Field>
-          <Field aria-label={`${day} closes`}>
+          <Field>
             <Input
               type="time"
+              aria-label={`${day} closes`}
               value={value.close}
               onChange={(_, data) => onChange({ ...value, close: data.value })}
             />

@@ -1,8 +1,8 @@
-import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
 import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
-import { Keypad } from '@/components/keypad';
+import { Keypad, useHardwareKeys } from '@/components/keypad';
 import './sign-in-panel.css';
 
 type Step = 'badge' | 'pin';
@@ -85,20 +85,11 @@ export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelPro
     });
   };
 
-  // A USB badge reader or a keyboard types digits and Enter.
-  const onKey = useEffectEvent((event: KeyboardEvent) => {
-    if (signIn.isPending || event.metaKey || event.ctrlKey || event.altKey) return;
-    if (/^[0-9]$/.test(event.key)) digit(event.key);
-    else if (event.key === 'Backspace') backspace();
-    else if (event.key === 'Escape') clear();
-    else if (event.key === 'Enter') next();
-    else return;
-    event.preventDefault();
-  });
-  useEffect(() => {
-    window.addEventListener('keydown', onKey);
-    return () => window.removeEventListener('keydown', onKey);
-  }, []);
+  // A USB badge reader or a keyboard types digits and Enter; Escape clears like the Clear key.
+  useHardwareKeys(
+    { onDigit: digit, onBackspace: backspace, onClear: clear, onEscape: clear, onEnter: next },
+    !signIn.isPending,
+  );
 
   const busy = signIn.isPending;
   const label = step === 'badge' ? 'Badge number' : `PIN for badge ${badge}`;

@@ -1,5 +1,5 @@
-import { useEffect, useEffectEvent } from 'react';
-import type { EntryKey } from '../temperature-entry';
+import { Keypad, useHardwareKeys, type KeypadKeys } from '@/components/keypad';
+import type { EntryKey, EntryRules } from '../temperature-entry';
 
 export interface NumberFieldProps {
   label: string;
@@ -46,23 +46,28 @@ export function NumberField({
   );
 }
 
-/** A keyboard or a badge reader types on the entry too: digits, point, minus, delete, Enter. */
-export function useEntryKeys(onKey: (key: EntryKey) => void, onEnter: () => void, enabled = true) {
-  const handle = useEffectEvent((event: KeyboardEvent) => {
-    if (event.metaKey || event.ctrlKey || event.altKey) return;
-    if (/^[0-9]$/.test(event.key)) onKey(event.key as EntryKey);
-    else if (event.key === '.' || event.key === ',') onKey('.');
-    else if (event.key === '-') onKey('-');
-    else if (event.key === 'Backspace') onKey('back');
-    else if (event.key === 'Delete') onKey('clear');
-    else if (event.key === 'Enter') onEnter();
-    else return;
-    event.preventDefault();
-  });
-  useEffect(() => {
-    if (!enabled) return;
-    const listener = (event: KeyboardEvent) => handle(event);
-    window.addEventListener('keydown', listener);
-    return () => window.removeEventListener('keydown', listener);
-  }, [enabled]);
+/**
+ * The keypad under an entry: minus and point keys where the rules allow them. A keyboard or a badge
+ * reader types on it too, and Enter sends.
+ */
+export function EntryKeypad({
+  apply,
+  rules,
+  onEnter,
+  disabled,
+}: {
+  apply: (key: EntryKey) => void;
+  rules: EntryRules;
+  onEnter: () => void;
+  disabled: boolean;
+}) {
+  const keys: KeypadKeys = {
+    onDigit: (digit) => apply(digit as EntryKey),
+    onBackspace: () => apply('back'),
+    onClear: () => apply('clear'),
+    onMinus: rules.minus ? () => apply('-') : undefined,
+    onPoint: rules.decimals > 0 ? () => apply('.') : undefined,
+  };
+  useHardwareKeys({ ...keys, onEnter }, !disabled);
+  return <Keypad {...keys} disabled={disabled} label="Number keypad" />;
 }

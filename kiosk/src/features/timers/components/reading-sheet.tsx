@@ -1,6 +1,5 @@
 import { useState } from 'react';
 import { temperatureUnit, type TimerDto, type UnitSystem } from '@baytime/shared';
-import { Keypad } from '@/components/keypad';
 import { Sheet } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
 import { clockTime } from '@/lib/format';
@@ -13,7 +12,7 @@ import {
 } from '../temperature-entry';
 import { timerHeadline } from '../timer-status';
 import { useLogReading } from '../api/log-reading';
-import { NumberField, useEntryKeys } from './number-field';
+import { EntryKeypad, NumberField } from './number-field';
 import './timers.css';
 
 export interface ReadingSheetProps {
@@ -42,8 +41,6 @@ export function ReadingSheet({ timer, context, units, timeZone, onClose }: Readi
     if (!read.ok) return setProblem(read.message);
     log.mutate({ timerId: timer.id, tempC: read.value }, { onSuccess: onClose });
   };
-  useEntryKeys(apply, submit, !log.isPending);
-
   return (
     <Sheet title="Log a reading" context={context} onClose={onClose} wide>
       <div className="bt-entry">
@@ -74,15 +71,7 @@ export function ReadingSheet({ timer, context, units, timeZone, onClose }: Readi
             {log.isPending ? 'Saving…' : 'Save reading'}
           </button>
         </div>
-        <Keypad
-          onDigit={(d) => apply(d as EntryKey)}
-          onBackspace={() => apply('back')}
-          onClear={() => apply('clear')}
-          onMinus={() => apply('-')}
-          onPoint={() => apply('.')}
-          disabled={log.isPending}
-          label="Number keypad"
-        />
+        <EntryKeypad apply={apply} rules={TEMPERATURE_ENTRY} onEnter={submit} disabled={log.isPending} />
       </div>
     </Sheet>
   );

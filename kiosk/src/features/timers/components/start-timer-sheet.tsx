@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { temperatureUnit, type HoldPresetDto, type TimerKind, type UnitSystem } from '@baytime/shared';
 import { AlertIcon, HourglassIcon, SnowIcon, ThermometerIcon } from '@/components/icons';
-import { Keypad } from '@/components/keypad';
 import { Sheet } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
 import { durationWords } from '@/lib/format';
@@ -13,11 +12,10 @@ import {
   readMinutes,
   readTemperature,
   type EntryKey,
-  type EntryRules,
 } from '../temperature-entry';
 import { useHoldPresets } from '../api/get-hold-presets';
 import { useStartTimer } from '../api/start-timer';
-import { NumberField, useEntryKeys } from './number-field';
+import { EntryKeypad, NumberField } from './number-field';
 import './timers.css';
 
 type TemperatureKind = Exclude<TimerKind, 'hold'>;
@@ -142,21 +140,6 @@ function Caution({ onAcknowledge }: { onAcknowledge: () => void }) {
   );
 }
 
-/** Keys on the keypad, applied to whichever read-out is active. */
-function keypadFor(apply: (key: EntryKey) => void, rules: EntryRules, disabled: boolean) {
-  return (
-    <Keypad
-      onDigit={(d) => apply(d as EntryKey)}
-      onBackspace={() => apply('back')}
-      onClear={() => apply('clear')}
-      onMinus={rules.minus ? () => apply('-') : undefined}
-      onPoint={rules.decimals > 0 ? () => apply('.') : undefined}
-      disabled={disabled}
-      label="Number keypad"
-    />
-  );
-}
-
 function TemperatureStep({
   jobLineId,
   kind,
@@ -211,8 +194,6 @@ function TemperatureStep({
       { onSuccess: onStarted },
     );
   };
-  useEntryKeys(apply, submit, !start.isPending);
-
   return (
     <div className="bt-entry">
       <div className="bt-entry__fields">
@@ -250,7 +231,7 @@ function TemperatureStep({
           {start.isPending ? 'Starting…' : `Start ${kind}`}
         </button>
       </div>
-      {keypadFor(apply, TEMPERATURE_ENTRY, start.isPending)}
+      <EntryKeypad apply={apply} rules={TEMPERATURE_ENTRY} onEnter={submit} disabled={start.isPending} />
     </div>
   );
 }
@@ -288,8 +269,6 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
       { onSuccess: onStarted },
     );
   };
-  useEntryKeys(apply, submit, !start.isPending);
-
   const list = presets.data ?? [];
   return (
     <div className="bt-entry">
@@ -349,7 +328,7 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
               : 'Start hold'}
         </button>
       </div>
-      {keypadFor(apply, MINUTES_ENTRY, start.isPending)}
+      <EntryKeypad apply={apply} rules={MINUTES_ENTRY} onEnter={submit} disabled={start.isPending} />
     </div>
   );
 }
