@@ -16,10 +16,10 @@ import type {
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail } from '../common/not-found.js';
+import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
+import { bays, holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import { reachesTarget, toTimerDto } from './timer-view.js';
 
@@ -82,10 +82,19 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
 
   @Transactional()
   start(body: StartTimerBody, actor: Principal, now = new Date()): TimerDto {
-    const line = foundOrFail(
+    const line = referencedOrFail(
       this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
-      'Job line',
+      'job line',
     );
+    if (body.bayId !== undefined)
+      referencedOrFail(
+        this.db
+          .select()
+          .from(bays)
+          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
+          .get(),
+        'active bay',
+      );
     if (line.status === 'done') throw new ConflictException('That line is done');
     const busy = this.db
       .select()

@@ -9,7 +9,7 @@ import { and, eq, ne } from 'drizzle-orm';
 import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail } from '../common/not-found.js';
+import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
@@ -37,13 +37,13 @@ export class JobLinesService {
     const line = this.find(id);
     if (body.technicianId) this.assertTechnician(body.technicianId);
     if (body.bayId)
-      foundOrFail(
+      referencedOrFail(
         this.db
           .select()
           .from(bays)
           .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
           .get(),
-        'Bay',
+        'active bay',
       );
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
