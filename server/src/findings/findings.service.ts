@@ -32,7 +32,7 @@ import {
   users,
   vehicles,
 } from '../db/schema/index.js';
-import { LabourService } from '../labour/labour.service.js';
+import { LineAccessService } from '../labour/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
@@ -70,7 +70,7 @@ export class FindingsService {
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
-    private readonly labour: LabourService,
+    private readonly access: LineAccessService,
     private readonly lines: JobLinesService,
     private readonly photos: PhotoStore,
     private readonly notices: NoticesService,
@@ -274,21 +274,14 @@ export class FindingsService {
 
   /**
    * The line the finding is for, when the actor may record one on it: the foreman and owner on any
-   * line; a technician on a line of a repair order they are assigned to, or one they are clocked on.
-   * Holding it needs what holding any line needs: the line is theirs or they are clocked on it.
+   * line; a technician on a line assigned to them or one they are clocked on.
    */
   private lineFor(jobLineId: number, body: CreateFindingBody, actor: Principal, now: Date): LineRow {
     const line = foundOrFail(
       this.db.select().from(jobLines).where(eq(jobLines.id, jobLineId)).get(),
       'Job line',
     );
-    if (actor.role === 'technician') {
-      const onLine = line.technicianId === actor.id || this.labour.clockedOn(line.id, now).includes(actor.id);
-      if (!onLine && !this.onRepairOrder(line.repairOrderId, actor.id))
-        throw new ForbiddenException('That repair order is not yours: ask the foreman');
-      if (body.holdForApproval && !onLine)
-        throw new ForbiddenException('Only the technician on that line can hold it: ask the foreman');
-    }
+    this.access.assertMayWork(line, actor, now);
     if (body.holdForApproval && line.status === 'done')
       throw new ConflictException('That line is already done: it cannot be held for approval');
     return line;

@@ -14,15 +14,20 @@ import {
   type CreatePunchBody,
   type LedgerPunch,
   type PunchDto,
+  type PunchKind,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { LabourService, toPunchDto } from '../labour/labour.service.js';
+import { LineAccessService } from '../labour/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
+
+type LineRow = typeof jobLines.$inferSelect;
 
 /** Punches far enough back that they can decide whether a new one is possible. */
 const CONTEXT_MS = 48 * 3600_000;
@@ -40,6 +45,8 @@ export class PunchesService {
     private readonly labour: LabourService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
+    private readonly access: LineAccessService,
+    private readonly audit: AuditService,
   ) {}
 
   /**
@@ -65,6 +72,7 @@ export class PunchesService {
       ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
       : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
+    if (line) this.assertMayPunchOn(line, body.kind, actor, now);
     if (body.kind === 'job-on' && line?.status === 'done')
       throw new ConflictException('That job line is done');
 
@@ -89,13 +97,29 @@ export class PunchesService {
       .get();
     const punch = toPunchDto(row);
     this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
-    if (line && body.kind === 'job-on' && line.status === 'queued') {
+    if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
+      const taken = line.technicianId === null;
       const updated = this.db
         .update(jobLines)
-        .set({ status: 'working', updatedAt: now })
+        .set({
+          ...(line.status === 'queued' ? { status: 'working' as const } : {}),
+          ...(taken ? { technicianId } : {}),
+          updatedAt: now,
+        })
         .where(eq(jobLines.id, line.id))
         .returning()
         .get();
+      if (taken)
+        this.audit.record(
+          {
+            actorId: actor.id,
+            action: 'take',
+            entity: 'job-line',
+            entityId: line.id,
+            detail: { technicianId },
+          },
+          now,
+        );
       this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
     }
     this.live.changed();
@@ -127,6 +151,21 @@ export class PunchesService {
       this.live.publish('punch.recorded', { punch: toPunchDto(row) }, { to: 'floor', technicianId });
     }
     return technicianIds;
+  }
+
+  /**
+   * A technician clocks onto a line assigned to them, or onto an unassigned one when the shop lets
+   * technicians take them (clocking on takes it); they clock off a line they are on. Putting a helper
+   * on someone else's line is the foreman's call: the foreman and owner punch anyone onto any line.
+   */
+  private assertMayPunchOn(line: LineRow, kind: PunchKind, actor: Principal, now: Date): void {
+    if (actor.role !== 'technician') return;
+    if (kind === 'job-off') return this.access.assertMayWork(line, actor, now);
+    if (line.technicianId === actor.id) return;
+    if (line.technicianId !== null)
+      throw new ForbiddenException('That line is assigned to someone else: ask the foreman');
+    if (!this.shop.settings().techniciansTakeUnassigned)
+      throw new ForbiddenException('The foreman assigns unassigned lines here: ask the foreman');
   }
 
   private technicianFor(body: CreatePunchBody, actor: Principal): number {

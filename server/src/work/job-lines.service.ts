@@ -1,10 +1,4 @@
-import {
-  BadRequestException,
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-} from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, eq, ne } from 'drizzle-orm';
 import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -13,7 +7,7 @@ import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
-import { LabourService } from '../labour/labour.service.js';
+import { LineAccessService } from '../labour/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { toJobLineDto } from './job-line.dto.js';
@@ -28,7 +22,7 @@ export class JobLinesService {
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly live: LiveService,
-    private readonly labour: LabourService,
+    private readonly access: LineAccessService,
     private readonly punches: PunchesService,
   ) {}
 
@@ -178,15 +172,10 @@ export class JobLinesService {
     return foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, id)).get(), 'Job line');
   }
 
-  /** A technician acts on lines assigned to them or that they are clocked on; office roles on any. */
+  /** A technician acts on lines assigned to them or that they are clocked on; the foreman on any. */
   private findForActor(id: number, actor: Principal, now: Date): LineRow {
     const line = this.find(id);
-    if (
-      actor.role === 'technician' &&
-      line.technicianId !== actor.id &&
-      !this.labour.clockedOn(id, now).includes(actor.id)
-    )
-      throw new ForbiddenException('That line is not yours: ask the foreman');
+    this.access.assertMayWork(line, actor, now);
     return line;
   }
 

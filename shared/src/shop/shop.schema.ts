@@ -35,6 +35,8 @@ export const shopSettingsSchema = z.object({
   openingHours: openingHoursSchema,
   kioskIdleSeconds: z.number().int().min(15).max(600),
   payNonProductiveSeparately: z.boolean(),
+  /** A technician may clock onto an unassigned line, which then becomes theirs. */
+  techniciansTakeUnassigned: z.boolean(),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 
