@@ -132,7 +132,13 @@ describe(FindingsService.name, () => {
     const original = await as(advisor).get(photo.url).buffer(true).expect(200);
     expect(original.headers['content-type']).toBe('image/png');
     expect(original.headers['x-content-type-options']).toBe('nosniff');
-    expect(Buffer.compare(original.body as Buffer, png)).toBe(0);
+    // Re-encoded on arrival: the same picture, not the bytes the kiosk sent.
+    expect(await sharp(original.body as Buffer).metadata()).toMatchObject({
+      format: 'png',
+      width: 1200,
+      height: 900,
+    });
+    expect(Number(original.headers['content-length'])).toBe(photo.sizeBytes);
     const preview = await as(dana.accessToken).get(photo.previewUrl).buffer(true).expect(200);
     expect(preview.headers['content-type']).toBe('image/jpeg');
     expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({
