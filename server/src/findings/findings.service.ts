@@ -1,11 +1,4 @@
-import {
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-  Logger,
-  type StreamableFile,
-} from '@nestjs/common';
+import { ConflictException, Inject, Injectable, Logger, type StreamableFile } from '@nestjs/common';
 import { and, asc, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type {
@@ -243,26 +236,23 @@ export class FindingsService {
     return { finding: this.get(id), createdLine, resumedLine: this.resumeIfAnswered(line.id, actor, now) };
   }
 
-  /** A photo or its preview, to the office and to technicians on that repair order. */
+  /**
+   * A photo or its preview, to the office and to technicians on that repair order. A photo the actor
+   * may not see answers exactly as one that does not exist, so ids reveal nothing.
+   */
   photo(id: number, variant: 'original' | 'preview', actor: Principal): StreamableFile {
-    const row = foundOrFail(
-      this.db
-        .select({ attachment: attachments, finding: findings, repairOrderId: jobLines.repairOrderId })
-        .from(attachments)
-        .innerJoin(findings, eq(findings.id, attachments.findingId))
-        .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
-        .where(eq(attachments.id, id))
-        .get(),
+    const found = this.db
+      .select({ attachment: attachments, finding: findings, repairOrderId: jobLines.repairOrderId })
+      .from(attachments)
+      .innerJoin(findings, eq(findings.id, attachments.findingId))
+      .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
+      .where(eq(attachments.id, id))
+      .get();
+    const { attachment, finding } = foundOrFail(
+      found && this.maySeePhotosOf(found.finding, found.repairOrderId, actor) ? found : undefined,
       'Photo',
     );
-    if (
-      !OFFICE_ROLES.includes(actor.role) &&
-      !(actor.role === 'technician' && row.finding.technicianId === actor.id) &&
-      !(actor.role === 'technician' && this.onRepairOrder(row.repairOrderId, actor.id))
-    )
-      throw new ForbiddenException('That photo is not on one of your repair orders');
-    const { attachment } = row;
-    const number = `finding-${row.finding.id}-photo-${attachment.id}`;
+    const number = `finding-${finding.id}-photo-${attachment.id}`;
     return variant === 'preview' && attachment.previewName
       ? this.photos.stream(attachment.previewName, 'image/jpeg', `${number}-preview.jpg`)
       : this.photos.stream(
@@ -285,6 +275,18 @@ export class FindingsService {
     if (body.holdForApproval && line.status === 'done')
       throw new ConflictException('That line is already done: it cannot be held for approval');
     return line;
+  }
+
+  private maySeePhotosOf(
+    finding: { technicianId: number },
+    repairOrderId: number,
+    actor: Principal,
+  ): boolean {
+    if (OFFICE_ROLES.includes(actor.role)) return true;
+    return (
+      actor.role === 'technician' &&
+      (finding.technicianId === actor.id || this.onRepairOrder(repairOrderId, actor.id))
+    );
   }
 
   private onRepairOrder(repairOrderId: number, technicianId: number): boolean {

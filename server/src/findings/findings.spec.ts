@@ -150,8 +150,14 @@ describe(FindingsService.name, () => {
 
   it('refuses a technician who is not on the repair order, for findings and for photos', async () => {
     const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
-    await as(sam.accessToken).get(finding!.photos[0]!.url).expect(403);
-    await as(sam.accessToken).get(finding!.photos[0]!.previewUrl).expect(403);
+    const photo = finding!.photos[0]!;
+    // A photo Sam may not see answers exactly as one that does not exist: the id reveals nothing.
+    const missing = await as(sam.accessToken).get('/api/attachments/999999').expect(404);
+    for (const url of [photo.url, photo.previewUrl]) {
+      const hidden = await as(sam.accessToken).get(url).expect(404);
+      expect(hidden.body).toEqual(missing.body);
+    }
+    expect(missing.body).toEqual({ statusCode: 404, message: 'Photo not found', error: 'Not Found' });
     const before = stored();
     await record(sam.accessToken, danaLine.id, { note: 'Not my car', severity: 'watch' }, [
       pngPhoto(),
