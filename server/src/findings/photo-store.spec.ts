@@ -4,6 +4,7 @@ import { crc32, deflateSync } from 'node:zlib';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FindingDto, MyDay, SignInAnswer } from '@baytime/shared';
+import { SQLITE, type Sqlite } from '../db/database.js';
 import { tableDigests } from '../test-support/table-digests.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { FINDINGS_PER_MINUTE } from './finding-rate-limit.js';
@@ -52,6 +53,13 @@ describe(PhotoStore.name, () => {
       request = request.attach('photos', photo.buffer, { filename: photo.filename });
     return request;
   };
+  const queuedMail = () =>
+    (
+      sut.app
+        .get<Sqlite>(SQLITE)
+        .connection.prepare("select count(*) as n from mail_outbox where status = 'queued'")
+        .get() as { n: number }
+    ).n;
   const storedFiles = () => readdirSync(sut.config.uploadsDir, { recursive: true }).map(String).sort();
   const lineOf = async (tech: SignInAnswer) =>
     (
@@ -143,6 +151,8 @@ describe(PhotoStore.name, () => {
     const foreman = await sut.signIn(DEMO.foreman);
     const joLine = await lineOf(jo);
     for (let i = 0; i < FINDINGS_PER_MINUTE; i++) await record(jo, joLine).expect(201);
+    // Each finding e-mails the advisor in the background; let the sender finish before comparing.
+    await expect.poll(queuedMail, { timeout: 10_000 }).toBe(0);
     const before = tableDigests(sut.app);
     const refused = await record(jo, joLine).expect(429);
     expect(refused.body.message).toBe('More than 10 findings in a minute: wait a moment, then send it again');
