@@ -15,11 +15,12 @@ import type {
   TimerReadingBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { bays, holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
+import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
 import { LineAccessService } from '../labour/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { reachesTarget, toTimerDto } from './timer-view.js';
@@ -89,15 +90,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
       'job line',
     );
     this.access.assertMayWork(line, actor, now);
-    if (body.bayId !== undefined)
-      referencedOrFail(
-        this.db
-          .select()
-          .from(bays)
-          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
-          .get(),
-        'active bay',
-      );
+    if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
     if (line.status === 'done') throw new ConflictException('That line is done');
     const busy = this.db
       .select()

@@ -2,8 +2,9 @@ import { BadRequestException, ConflictException, Inject, Injectable } from '@nes
 import { and, eq, ne } from 'drizzle-orm';
 import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail, referencedOrFail } from '../common/not-found.js';
+import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
@@ -30,15 +31,7 @@ export class JobLinesService {
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
     if (body.technicianId) this.assertTechnician(body.technicianId);
-    if (body.bayId)
-      referencedOrFail(
-        this.db
-          .select()
-          .from(bays)
-          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
-          .get(),
-        'active bay',
-      );
+    if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
 
