@@ -10,12 +10,7 @@ const celsius = z
   .number()
   .min(-40, 'Below −40 °C: check the reading')
   .max(300, 'Above 300 °C: check the reading');
-/** The air around the car: a shop between a winter yard and a summer one. */
-const ambientCelsius = z
-  .number()
-  .min(-40, 'Below −40 °C: check the air temperature')
-  .max(60, 'Above 60 °C: check the air temperature');
-const timerName = plainText(60, { min: 1, message: 'Name the hold' });
+const timerName = plainText(60, { min: 1, message: 'Type a name' });
 
 export const startTimerSchema = z
   .object({
@@ -23,7 +18,8 @@ export const startTimerSchema = z
     bayId: idSchema.optional(),
     kind: z.enum(TIMER_KINDS),
     targetC: celsius.optional(),
-    ambientC: ambientCelsius.optional(),
+    /** Where the temperature levels off: the room for a cool-down, above the target for a warm-up. */
+    ambientC: celsius.optional(),
     durationSeconds: z
       .number()
       .int()
