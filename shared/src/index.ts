@@ -1,3 +1,4 @@
+export * from './input/fields.js';
 export * from './auth/auth.schema.js';
 export * from './users/users.schema.js';
 export * from './shop/shop.schema.js';

@@ -7,6 +7,7 @@ import {
   Post,
   Query,
   UploadedFiles,
+  UseGuards,
   UseInterceptors,
 } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
@@ -25,6 +26,7 @@ import {
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
+import { FindingRateLimit } from './finding-rate-limit.js';
 import { FindingsService } from './findings.service.js';
 import { NoticesService } from './notices.service.js';
 import { PhotoUploadErrors, photoUploadOptions, type UploadedPhoto } from './photo-upload.js';
@@ -39,6 +41,7 @@ export class FindingsController {
   /** multipart/form-data: the text fields of `createFindingSchema` and up to 6 files in `photos`. */
   @Roles('technician', 'foreman', 'owner')
   @Post('job-lines/:id/findings')
+  @UseGuards(FindingRateLimit)
   @UseInterceptors(PhotoUploadErrors, FilesInterceptor('photos', MAX_FINDING_PHOTOS, photoUploadOptions))
   create(
     @Param('id', { schema: idParamSchema }) id: number,

@@ -1,11 +1,4 @@
-import {
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-  Logger,
-  type StreamableFile,
-} from '@nestjs/common';
+import { ConflictException, Inject, Injectable, Logger, type StreamableFile } from '@nestjs/common';
 import { and, asc, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type {
@@ -33,6 +26,7 @@ import {
   vehicles,
 } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
@@ -71,6 +65,7 @@ export class FindingsService {
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly floor: FloorService,
+    private readonly access: LineAccessService,
     private readonly lines: JobLinesService,
     private readonly photos: PhotoStore,
     private readonly notices: NoticesService,
@@ -242,26 +237,23 @@ export class FindingsService {
     return { finding: this.get(id), createdLine, resumedLine: this.resumeIfAnswered(line.id, actor, now) };
   }
 
-  /** A photo or its preview, to the office and to technicians on that repair order. */
+  /**
+   * A photo or its preview, to the office and to technicians on that repair order. A photo the actor
+   * may not see answers exactly as one that does not exist, so ids reveal nothing.
+   */
   photo(id: number, variant: 'original' | 'preview', actor: Principal): StreamableFile {
-    const row = foundOrFail(
-      this.db
-        .select({ attachment: attachments, finding: findings, repairOrderId: jobLines.repairOrderId })
-        .from(attachments)
-        .innerJoin(findings, eq(findings.id, attachments.findingId))
-        .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
-        .where(eq(attachments.id, id))
-        .get(),
+    const found = this.db
+      .select({ attachment: attachments, finding: findings, repairOrderId: jobLines.repairOrderId })
+      .from(attachments)
+      .innerJoin(findings, eq(findings.id, attachments.findingId))
+      .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
+      .where(eq(attachments.id, id))
+      .get();
+    const { attachment, finding } = foundOrFail(
+      found && this.maySeePhotosOf(found.finding, found.repairOrderId, actor) ? found : undefined,
       'Photo',
     );
-    if (
-      !OFFICE_ROLES.includes(actor.role) &&
-      !(actor.role === 'technician' && row.finding.technicianId === actor.id) &&
-      !(actor.role === 'technician' && this.onRepairOrder(row.repairOrderId, actor.id))
-    )
-      throw new ForbiddenException('That photo is not on one of your repair orders');
-    const { attachment } = row;
-    const number = `finding-${row.finding.id}-photo-${attachment.id}`;
+    const number = `finding-${finding.id}-photo-${attachment.id}`;
     return variant === 'preview' && attachment.previewName
       ? this.photos.stream(attachment.previewName, 'image/jpeg', `${number}-preview.jpg`)
       : this.photos.stream(
@@ -273,24 +265,29 @@ export class FindingsService {
 
   /**
    * The line the finding is for, when the actor may record one on it: the foreman and owner on any
-   * line; a technician on a line of a repair order they are assigned to, or one they are clocked on.
-   * Holding it needs what holding any line needs: the line is theirs or they are clocked on it.
+   * line; a technician on a line assigned to them or one they are clocked on.
    */
   private lineFor(jobLineId: number, body: CreateFindingBody, actor: Principal, now: Date): LineRow {
     const line = foundOrFail(
       this.db.select().from(jobLines).where(eq(jobLines.id, jobLineId)).get(),
       'Job line',
     );
-    if (actor.role === 'technician') {
-      const onLine = line.technicianId === actor.id || this.floor.clockedOn(line.id, now).includes(actor.id);
-      if (!onLine && !this.onRepairOrder(line.repairOrderId, actor.id))
-        throw new ForbiddenException('That repair order is not yours: ask the foreman');
-      if (body.holdForApproval && !onLine)
-        throw new ForbiddenException('Only the technician on that line can hold it: ask the foreman');
-    }
+    this.access.assertMayWork(line, actor, now);
     if (body.holdForApproval && line.status === 'done')
       throw new ConflictException('That line is already done: it cannot be held for approval');
     return line;
+  }
+
+  private maySeePhotosOf(
+    finding: { technicianId: number },
+    repairOrderId: number,
+    actor: Principal,
+  ): boolean {
+    if (OFFICE_ROLES.includes(actor.role)) return true;
+    return (
+      actor.role === 'technician' &&
+      (finding.technicianId === actor.id || this.onRepairOrder(repairOrderId, actor.id))
+    );
   }
 
   private onRepairOrder(repairOrderId: number, technicianId: number): boolean {

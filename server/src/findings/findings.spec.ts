@@ -132,7 +132,13 @@ describe(FindingsService.name, () => {
     const original = await as(advisor).get(photo.url).buffer(true).expect(200);
     expect(original.headers['content-type']).toBe('image/png');
     expect(original.headers['x-content-type-options']).toBe('nosniff');
-    expect(Buffer.compare(original.body as Buffer, png)).toBe(0);
+    // Re-encoded on arrival: the same picture, not the bytes the kiosk sent.
+    expect(await sharp(original.body as Buffer).metadata()).toMatchObject({
+      format: 'png',
+      width: 1200,
+      height: 900,
+    });
+    expect(Number(original.headers['content-length'])).toBe(photo.sizeBytes);
     const preview = await as(dana.accessToken).get(photo.previewUrl).buffer(true).expect(200);
     expect(preview.headers['content-type']).toBe('image/jpeg');
     expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({
@@ -144,8 +150,14 @@ describe(FindingsService.name, () => {
 
   it('refuses a technician who is not on the repair order, for findings and for photos', async () => {
     const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
-    await as(sam.accessToken).get(finding!.photos[0]!.url).expect(403);
-    await as(sam.accessToken).get(finding!.photos[0]!.previewUrl).expect(403);
+    const photo = finding!.photos[0]!;
+    // A photo Sam may not see answers exactly as one that does not exist: the id reveals nothing.
+    const missing = await as(sam.accessToken).get('/api/attachments/999999').expect(404);
+    for (const url of [photo.url, photo.previewUrl]) {
+      const hidden = await as(sam.accessToken).get(url).expect(404);
+      expect(hidden.body).toEqual(missing.body);
+    }
+    expect(missing.body).toEqual({ statusCode: 404, message: 'Photo not found', error: 'Not Found' });
     const before = stored();
     await record(sam.accessToken, danaLine.id, { note: 'Not my car', severity: 'watch' }, [
       pngPhoto(),

@@ -14,16 +14,21 @@ import {
   type CreatePunchBody,
   type LedgerPunch,
   type PunchDto,
+  type PunchKind,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
+
+type LineRow = typeof jobLines.$inferSelect;
 
 export interface RecordedPunch {
   punch: PunchDto;
@@ -38,6 +43,8 @@ export class PunchesService {
     private readonly floor: FloorService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
+    private readonly access: LineAccessService,
+    private readonly audit: AuditService,
   ) {}
 
   /**
@@ -63,6 +70,7 @@ export class PunchesService {
       ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
       : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
+    if (line) this.assertMayPunchOn(line, body.kind, actor, now);
     if (body.kind === 'job-on' && line?.status === 'done')
       throw new ConflictException('That job line is done');
 
@@ -88,13 +96,29 @@ export class PunchesService {
     const punch = toPunchDto(row);
     this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
     this.floor.punchRecorded(punch);
-    if (line && body.kind === 'job-on' && line.status === 'queued') {
+    if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
+      const taken = line.technicianId === null;
       const updated = this.db
         .update(jobLines)
-        .set({ status: 'working', updatedAt: now })
+        .set({
+          ...(line.status === 'queued' ? { status: 'working' as const } : {}),
+          ...(taken ? { technicianId } : {}),
+          updatedAt: now,
+        })
         .where(eq(jobLines.id, line.id))
         .returning()
         .get();
+      if (taken)
+        this.audit.record(
+          {
+            actorId: actor.id,
+            action: 'take',
+            entity: 'job-line',
+            entityId: line.id,
+            detail: { technicianId },
+          },
+          now,
+        );
       this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
       this.floor.linesChanged([line.id]);
     }
@@ -128,6 +152,21 @@ export class PunchesService {
       this.floor.punchRecorded(punch);
     }
     return technicianIds;
+  }
+
+  /**
+   * A technician clocks onto a line assigned to them, or onto an unassigned one when the shop lets
+   * technicians take them (clocking on takes it); they clock off a line they are on. Putting a helper
+   * on someone else's line is the foreman's call: the foreman and owner punch anyone onto any line.
+   */
+  private assertMayPunchOn(line: LineRow, kind: PunchKind, actor: Principal, now: Date): void {
+    if (actor.role !== 'technician') return;
+    if (kind === 'job-off') return this.access.assertMayWork(line, actor, now);
+    if (line.technicianId === actor.id) return;
+    if (line.technicianId !== null)
+      throw new ForbiddenException('That line is assigned to someone else: ask the foreman');
+    if (!this.shop.settings().techniciansTakeUnassigned)
+      throw new ForbiddenException('The foreman assigns unassigned lines here: ask the foreman');
   }
 
   private technicianFor(body: CreatePunchBody, actor: Principal): number {

@@ -24,6 +24,7 @@ export const DEFAULT_SHOP: ShopSettings = {
   openingHours: [null, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, null],
   kioskIdleSeconds: 60,
   payNonProductiveSeparately: true,
+  techniciansTakeUnassigned: true,
 };
 
 @Injectable()

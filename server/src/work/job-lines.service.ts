@@ -1,19 +1,15 @@
-import {
-  BadRequestException,
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-} from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, eq, ne } from 'drizzle-orm';
 import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { toJobLineDto } from './job-line.dto.js';
@@ -29,6 +25,7 @@ export class JobLinesService {
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly floor: FloorService,
+    private readonly access: LineAccessService,
     private readonly punches: PunchesService,
   ) {}
 
@@ -36,15 +33,7 @@ export class JobLinesService {
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
     if (body.technicianId) this.assertTechnician(body.technicianId);
-    if (body.bayId)
-      foundOrFail(
-        this.db
-          .select()
-          .from(bays)
-          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
-          .get(),
-        'Bay',
-      );
+    if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
 
@@ -178,15 +167,10 @@ export class JobLinesService {
     return foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, id)).get(), 'Job line');
   }
 
-  /** A technician acts on lines assigned to them or that they are clocked on; office roles on any. */
+  /** A technician acts on lines assigned to them or that they are clocked on; the foreman on any. */
   private findForActor(id: number, actor: Principal, now: Date): LineRow {
     const line = this.find(id);
-    if (
-      actor.role === 'technician' &&
-      line.technicianId !== actor.id &&
-      !this.floor.clockedOn(id, now).includes(actor.id)
-    )
-      throw new ForbiddenException('That line is not yours: ask the foreman');
+    this.access.assertMayWork(line, actor, now);
     return line;
   }
 

@@ -76,8 +76,14 @@ describe(JobLinesService.name, () => {
     const marcus = await sut.badge('1044');
     await as(priya.accessToken).post('/api/punches', { id: randomUUID(), kind: 'break-end' }).expect(201);
     const line = (await day(marcus)).lines[0]!;
-    await as(priya.accessToken)
-      .post('/api/punches', { id: randomUUID(), kind: 'job-on', jobLineId: line.id })
+    // Helping on Marcus's line is the foreman's call: the foreman clocks Priya on.
+    await as(foreman)
+      .post('/api/punches', {
+        id: randomUUID(),
+        kind: 'job-on',
+        jobLineId: line.id,
+        technicianId: priya.user.id,
+      })
       .expect(201);
     await as(foreman).patch(`/api/job-lines/${line.id}`, { technicianId: priya.user.id }).expect(200);
     expect((await day(priya)).openJobLineIds).toEqual([]);

@@ -1,6 +1,12 @@
 import { z } from 'zod';
+import { decimal, idTextSchema, plainText } from '../input/fields.js';
 import type { HoldReason } from '../bays/bays.schema.js';
-import { jobLineInputSchema, type JobLineDto, type JobLineStatus } from '../work/work.schema.js';
+import {
+  bookHoursSchema,
+  jobLineInputSchema,
+  type JobLineDto,
+  type JobLineStatus,
+} from '../work/work.schema.js';
 
 /** How soon a finding needs the customer's attention. */
 export const FINDING_SEVERITIES = ['safety-now', 'soon', 'watch'] as const;
@@ -30,15 +36,17 @@ const emptyAsMissing = (value: unknown) =>
  * as a string); the files go in `photos`.
  */
 export const createFindingSchema = z.object({
-  note: z.string({ error: 'Say what you found' }).trim().min(1, 'Say what you found').max(2000),
+  note: plainText(2000, { min: 1, multiline: true, message: 'Say what you found' }),
   severity: z.enum(FINDING_SEVERITIES, { error: 'Severity is safety-now, soon or watch' }),
   suggestedHours: z.preprocess(
     emptyAsMissing,
-    z.coerce
-      .number({ error: 'Suggested hours is a number of hours, like 1.5' })
-      .min(0.1, 'Suggested hours is at least 0.1')
-      .max(99)
-      .optional(),
+    decimal(
+      z
+        .number({ error: 'Suggested hours is a number of hours, like 1.5' })
+        .min(0.1, 'Suggested hours is at least 0.1')
+        .max(99.9, 'Suggested hours is at most 99.9'),
+      'Suggested hours is a number of hours, like 1.5',
+    ).optional(),
   ),
   holdForApproval: z.preprocess(
     emptyAsMissing,
@@ -54,11 +62,11 @@ export const findingAnswerSchema = z.discriminatedUnion(
   [
     z.object({
       answer: z.literal('approved'),
-      bookHours: z.number({ error: 'Say how many book hours to add' }).min(0).max(99),
+      bookHours: bookHoursSchema,
       /** The new line's title; the finding's note when left out. */
       title: jobLineInputSchema.shape.title.optional(),
     }),
-    z.object({ answer: z.literal('declined'), note: z.string().trim().max(500).optional() }),
+    z.object({ answer: z.literal('declined'), note: plainText(500, { multiline: true }).optional() }),
   ],
   { error: 'The answer is approved or declined' },
 );
@@ -66,7 +74,7 @@ export type FindingAnswerBody = z.infer<typeof findingAnswerSchema>;
 
 export const findingsQuerySchema = z.object({
   answer: z.enum(FINDING_ANSWERS).optional(),
-  repairOrderId: z.coerce.number().int().positive().optional(),
+  repairOrderId: idTextSchema.optional(),
 });
 export type FindingsQuery = z.infer<typeof findingsQuerySchema>;
 

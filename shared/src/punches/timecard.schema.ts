@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { idTextSchema } from '../input/fields.js';
 import { isoWeekSchema } from '../time/workweek.js';
 import type { PunchDto } from './punches.schema.js';
 
 export const timecardQuerySchema = z.object({
-  technicianId: z.coerce.number().int().positive().optional(),
+  technicianId: idTextSchema.optional(),
   week: isoWeekSchema.optional(),
 });
 export type TimecardQuery = z.infer<typeof timecardQuerySchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
 
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export const CONCURRENT_SPLITS = ['even', 'full'] as const;
@@ -22,8 +23,8 @@ function isTimeZone(name: string): boolean {
 }
 
 export const shopSettingsSchema = z.object({
-  name: z.string().trim().min(1).max(80),
-  timeZone: z.string().refine(isTimeZone, 'Not a known IANA time zone'),
+  name: plainText(80, { min: 1, message: 'Name the shop' }),
+  timeZone: z.string().max(64).refine(isTimeZone, 'Not a known IANA time zone'),
   workweekStartDay: z.number().int().min(0).max(6),
   workweekStartHour: z.number().int().min(0).max(23),
   units: z.enum(UNIT_SYSTEMS),
@@ -34,6 +35,8 @@ export const shopSettingsSchema = z.object({
   openingHours: openingHoursSchema,
   kioskIdleSeconds: z.number().int().min(15).max(600),
   payNonProductiveSeparately: z.boolean(),
+  /** A technician may clock onto an unassigned line, which then becomes theirs. */
+  techniciansTakeUnassigned: z.boolean(),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 

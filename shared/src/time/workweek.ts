@@ -1,6 +1,7 @@
 import { TZDate } from '@date-fns/tz';
 import { addWeeks, format, getISOWeeksInYear, startOfISOWeek } from 'date-fns';
 import { z } from 'zod';
+import { EARLIEST_DATE, latestDate } from '../input/fields.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 
 export type WorkweekSettings = Pick<ShopSettings, 'timeZone' | 'workweekStartDay' | 'workweekStartHour'>;
@@ -29,7 +30,14 @@ export function parseIsoWeek(label: string): { year: number; week: number } | nu
 
 export const isoWeekSchema = z
   .string()
-  .refine((label) => parseIsoWeek(label) !== null, 'Use an ISO week that exists, like 2026-W05');
+  .max(8)
+  .refine((label) => parseIsoWeek(label) !== null, 'Use an ISO week that exists, like 2026-W05')
+  .refine((label) => {
+    const year = parseIsoWeek(label)?.year;
+    return (
+      year === undefined || (year >= EARLIEST_DATE.getUTCFullYear() && year <= latestDate().getUTCFullYear())
+    );
+  }, 'Use a week from 2000 to two years ahead');
 
 /** ISO 8601 week label (Monday start, week 1 holds the first Thursday) of an instant, in a time zone. */
 export function isoWeekOf(instant: Date, timeZone: string): string {

@@ -1,11 +1,14 @@
 import { z } from 'zod';
 import { ROLES, type Role } from '../auth/auth.schema.js';
+import { plainText } from '../input/fields.js';
 
-const cents = z.number().int().min(0).max(100_000_00);
+/** A pay rate per hour in cents. */
+const cents = z.number().int().min(0).max(1_000_00, 'At most $1,000.00 an hour');
+const personName = plainText(80, { min: 1, message: 'Enter a name' });
 
 export const createUserSchema = z
   .object({
-    name: z.string().trim().min(1).max(80),
+    name: personName,
     role: z.enum(ROLES).exclude(['display']),
     email: z.email().max(200).optional(),
     password: z.string().min(10, 'A password has at least 10 characters').max(200).optional(),
@@ -38,7 +41,7 @@ export type CreateUserBody = z.infer<typeof createUserSchema>;
 
 export const updateUserSchema = z
   .object({
-    name: z.string().trim().min(1).max(80),
+    name: personName,
     email: z.email().max(200),
     password: z.string().min(10, 'A password has at least 10 characters').max(200),
     badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),

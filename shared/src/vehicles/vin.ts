@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
 
 // 49 CFR 565.15: transliterated values of VIN letters (digits count as themselves) and the
 // position weights for the check digit in position 9. I, O and Q are never used.
@@ -14,6 +15,8 @@ const VIN_CHARACTERS = /^[A-HJ-NPR-Z0-9]*$/;
 // the cycle repeats every 30 years. U, Z and 0 are not year codes.
 const YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789';
 const FIRST_VIN_YEAR = 1980;
+/** Miles or kilometres: beyond any working vehicle's odometer. */
+export const MAX_ODOMETER = 2_000_000;
 
 function characterValue(char: string): number | undefined {
   return /[0-9]/.test(char) ? Number(char) : LETTER_VALUES[char];
@@ -92,10 +95,14 @@ export const vehicleInputSchema = z
       .min(1981, 'Model years start at 1981 for 17-character VINs')
       // Checked at parse time, not schema creation, so a long-running server rolls over with the year.
       .refine((year) => year <= new Date().getFullYear() + 1, 'That model year is too far ahead'),
-    make: z.string().trim().min(1, 'Enter the make').max(40),
-    model: z.string().trim().min(1, 'Enter the model').max(60),
-    plate: z.string().trim().max(16).optional(),
-    odometer: z.number().int('Enter whole miles or kilometres').min(0, 'The odometer cannot be negative'),
+    make: plainText(40, { min: 1, message: 'Enter the make' }),
+    model: plainText(60, { min: 1, message: 'Enter the model' }),
+    plate: plainText(16).optional(),
+    odometer: z
+      .number()
+      .int('Enter whole miles or kilometres')
+      .min(0, 'The odometer cannot be negative')
+      .max(MAX_ODOMETER, 'More than 2,000,000 on the odometer: check the reading'),
   })
   .superRefine(({ vin, year }, ctx) => {
     const latest = modelYearFromVin(vin);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
+import { idSchema, instantSchema, plainText } from '../input/fields.js';
 import { vehicleInputSchema } from '../vehicles/vin.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
@@ -11,20 +12,28 @@ export type RepairOrderStatus = (typeof REPAIR_ORDER_STATUSES)[number];
 export const PRIORITIES = ['low', 'normal', 'high', 'urgent'] as const;
 export type Priority = (typeof PRIORITIES)[number];
 
+/** Book hours of a line: a tenth of an hour up to what one line can sensibly sell. */
+export const bookHoursSchema = z
+  .number({ error: 'Book hours is a number of hours, like 1.5' })
+  .min(0.1, 'Book hours is at least 0.1')
+  .max(99.9, 'Book hours is at most 99.9');
+const skillLevelSchema = z.number().int().min(1).max(5);
+const lineTitleSchema = plainText(120, { min: 1, message: 'Name the job' });
+
 export const jobLineInputSchema = z.object({
-  title: z.string().trim().min(1).max(120),
-  bookHours: z.number().min(0).max(99),
-  skillLevel: z.number().int().min(1).max(5).optional(),
+  title: lineTitleSchema,
+  bookHours: bookHoursSchema,
+  skillLevel: skillLevelSchema.optional(),
 });
 
 export const patchJobLineSchema = z
   .object({
-    technicianId: z.number().int().positive().nullable(),
-    bayId: z.number().int().positive().nullable(),
+    technicianId: idSchema.nullable(),
+    bayId: idSchema.nullable(),
     priority: z.enum(PRIORITIES),
     status: z.enum(JOB_LINE_STATUSES),
     holdReason: z.enum(HOLD_REASONS),
-    completedAt: z.iso.datetime({ offset: true }),
+    completedAt: instantSchema,
   })
   .partial()
   .strict()
@@ -60,26 +69,26 @@ export const finishLineSchema = z.object({ next: z.enum(FINISH_NEXT).default('ch
 export type FinishLineBody = z.infer<typeof finishLineSchema>;
 
 export const customerInputSchema = z.object({
-  name: z.string().trim().min(1, 'Enter the customer’s name').max(80),
-  phone: z.string().trim().max(30).optional(),
+  name: plainText(80, { min: 1, message: 'Enter the customer’s name' }),
+  phone: plainText(30).optional(),
   email: z.email('Not an e-mail address').max(200).optional(),
 });
 
 export const createRepairOrderSchema = z.object({
   customer: customerInputSchema,
   vehicle: vehicleInputSchema,
-  concern: z.string().trim().min(1, 'Say what the customer asked for').max(1000),
-  promisedAt: z.iso.datetime({ offset: true }).optional(),
+  concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
+  promisedAt: instantSchema.optional(),
   lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
   /** Saving an odometer lower than the last visit needs a reason. */
-  odometerOverrideReason: z.string().trim().min(3).max(300).optional(),
+  odometerOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
 });
 export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
 export const operationInputSchema = z.object({
-  title: z.string().trim().min(1).max(120),
-  defaultBookHours: z.number().min(0).max(99),
-  skillLevel: z.number().int().min(1).max(5).default(1),
+  title: lineTitleSchema,
+  defaultBookHours: bookHoursSchema,
+  skillLevel: skillLevelSchema.default(1),
 });
 export type OperationInput = z.infer<typeof operationInputSchema>;
 
@@ -90,9 +99,9 @@ export interface OperationDto extends OperationInput {
 
 export const updateOperationSchema = z
   .object({
-    title: z.string().trim().min(1).max(120),
-    defaultBookHours: z.number().min(0).max(99),
-    skillLevel: z.number().int().min(1).max(5),
+    title: lineTitleSchema,
+    defaultBookHours: bookHoursSchema,
+    skillLevel: skillLevelSchema,
     active: z.boolean(),
   })
   .partial()

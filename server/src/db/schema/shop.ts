@@ -16,6 +16,9 @@ export const shopSettings = sqliteTable('shop_settings', {
   openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningHours>().notNull(),
   kioskIdleSeconds: integer('kiosk_idle_seconds').notNull(),
   payNonProductiveSeparately: integer('pay_non_productive_separately', { mode: 'boolean' }).notNull(),
+  techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
+    .notNull()
+    .default(true),
   updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
 });
 

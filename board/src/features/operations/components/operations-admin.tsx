@@ -21,7 +21,12 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import { operationInputSchema, updateOperationSchema, type OperationDto } from '@baytime/shared';
+import {
+  operationInputSchema,
+  parseDecimal,
+  updateOperationSchema,
+  type OperationDto,
+} from '@baytime/shared';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useOperations } from '../api/get-operations';
 import { useCreateOperation } from '../api/create-operation';
@@ -47,10 +52,9 @@ const useStyles = makeStyles({
   numeric: { fontVariantNumeric: 'tabular-nums' },
 });
 
-/** Typed hours to a number; `undefined` for blank or non-numeric text so the schema flags it. */
+/** Typed hours to a number; `undefined` for blank or non-decimal text ("0x10") so the schema flags it. */
 function parseHours(text: string): number | undefined {
-  const value = Number(text.trim());
-  return text.trim() === '' || Number.isNaN(value) ? undefined : value;
+  return parseDecimal(text) ?? undefined;
 }
 
 function withHoursMessage(errors: FieldErrors): FieldErrors {

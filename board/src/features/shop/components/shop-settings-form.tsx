@@ -169,6 +169,17 @@ function ShopForm({
               onChange={number('kioskIdleSeconds')}
             />
           </Field>
+          <Field label="Unassigned lines" validationMessage={errors.techniciansTakeUnassigned}>
+            <Switch
+              checked={draft.techniciansTakeUnassigned}
+              onChange={(_, data) => set('techniciansTakeUnassigned', data.checked)}
+              label={
+                draft.techniciansTakeUnassigned
+                  ? 'Technicians may clock onto them and take them'
+                  : 'Only the foreman assigns them'
+              }
+            />
+          </Field>
         </div>
       </Card>
 
