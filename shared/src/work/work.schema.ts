@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
-import { vehicleInputSchema } from '../vehicles/vin.js';
+import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
@@ -65,15 +65,21 @@ export const customerInputSchema = z.object({
   email: z.email('Not an e-mail address').max(200).optional(),
 });
 
-export const createRepairOrderSchema = z.object({
-  customer: customerInputSchema,
-  vehicle: vehicleInputSchema,
-  concern: z.string().trim().min(1, 'Say what the customer asked for').max(1000),
-  promisedAt: z.iso.datetime({ offset: true }).optional(),
-  lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
-  /** Saving an odometer lower than the last visit needs a reason. */
-  odometerOverrideReason: z.string().trim().min(3).max(300).optional(),
-});
+export const createRepairOrderSchema = z
+  .object({
+    customer: customerInputSchema,
+    vehicle: vehicleDetailsSchema,
+    concern: z.string().trim().min(1, 'Say what the customer asked for').max(1000),
+    promisedAt: z.iso.datetime({ offset: true }).optional(),
+    lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
+    /** Saving an odometer lower than the last visit needs a reason. */
+    odometerOverrideReason: z.string().trim().min(3).max(300).optional(),
+    /** A VIN outside the 49 CFR 565 rules (built before 1981, or abroad) is saved with a reason. */
+    vinOverrideReason: z.string().trim().min(3).max(300).optional(),
+  })
+  .superRefine((body, ctx) => {
+    if (!body.vinOverrideReason) addVinRuleIssues(body.vehicle, ctx, ['vehicle']);
+  });
 export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
 export const operationInputSchema = z.object({
