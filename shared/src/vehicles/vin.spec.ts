@@ -158,7 +158,9 @@ describe('vinTextSchema', () => {
     expect(issues(vinTextSchema.safeParse('1M8GDM9AXKP0427881'))).toEqual([
       { message: 'A VIN has 17 characters', path: '' },
     ]);
-    expect(issues(vinTextSchema.safeParse('AB1'))).toEqual([{ message: 'Enter the whole VIN', path: '' }]);
+    expect(issues(vinTextSchema.safeParse('AB1'))).toEqual([
+      { message: 'A VIN has 17 characters', path: '' },
+    ]);
   });
 });
 

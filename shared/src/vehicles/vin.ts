@@ -83,7 +83,7 @@ export const vinTextSchema = z
   .pipe(
     z
       .string()
-      .min(5, 'Enter the whole VIN')
+      .min(5, 'A VIN has 17 characters')
       .max(17, 'A VIN has 17 characters')
       .regex(/^[A-Z0-9]*$/, 'A VIN has only letters and digits'),
   );
