@@ -1,6 +1,13 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BoardSnapshot, FindingDto, MailboxEntry, MyDay, RepairOrderSummary } from '@baytime/shared';
+import type {
+  BoardSnapshot,
+  FindingsPage,
+  MailboxEntry,
+  MyDay,
+  Page,
+  RepairOrderSummary,
+} from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, signInAtKiosk, signInAtOffice, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
@@ -75,12 +82,12 @@ describe('findings, approvals and e-mail', () => {
     });
 
     await item.getByRole('button', { name: 'Send approval request to customer' }).click();
-    const [finding] = await owner<FindingDto[]>('GET', '/findings?answer=pending');
+    const [finding] = (await owner<FindingsPage>('GET', '/findings?answer=pending')).items;
     const ro = await owner<RepairOrderSummary>('GET', `/repair-orders/${finding!.repairOrderId}`);
     await expect
       .poll(
         async () =>
-          (await owner<MailboxEntry[]>('GET', '/mailbox')).find((m) =>
+          (await owner<Page<MailboxEntry>>('GET', '/mailbox')).items.find((m) =>
             m.subject.includes(`approval needed for RO ${ro.number}`),
           ),
         { timeout: 20_000 },
@@ -120,7 +127,7 @@ describe('findings, approvals and e-mail', () => {
       });
       return { status: response.status, body: (await response.json()) as { message: string } };
     };
-    const before = (await owner<FindingDto[]>('GET', '/findings')).length;
+    const before = (await owner<FindingsPage>('GET', '/findings')).total;
     const exe = await send('photo.jpg', Buffer.concat([Buffer.from('MZ'), Buffer.alloc(2048, 1)]));
     expect(exe).toEqual({
       status: 400,
@@ -129,6 +136,6 @@ describe('findings, approvals and e-mail', () => {
     const huge = await send('big.png', Buffer.concat([PNG, Buffer.alloc(11 * 1024 * 1024)]));
     expect(huge.status).toBe(413);
     expect(huge.body.message).toBe('Photo 1 is larger than 10 MB');
-    expect((await owner<FindingDto[]>('GET', '/findings')).length).toBe(before);
+    expect((await owner<FindingsPage>('GET', '/findings')).total).toBe(before);
   });
 });

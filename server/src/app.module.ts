@@ -21,6 +21,7 @@ import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
 import { TimersModule } from './timers/timers.module.js';
 import { UsersModule } from './users/users.module.js';
+import { VehiclesModule } from './vehicles/vehicles.module.js';
 import { WorkModule } from './work/work.module.js';
 
 /** The front ends: kiosk under /kiosk, the board (wall and office) at the root, each falling back to its index.html. */
@@ -54,6 +55,7 @@ export class AppModule {
         BoardModule,
         PunchesModule,
         WorkModule,
+        VehiclesModule,
         TimecardsModule,
         ReportsModule,
         TimersModule,

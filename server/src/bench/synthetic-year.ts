@@ -12,6 +12,7 @@ import {
   vehicles,
 } from '../db/schema/index.js';
 import { DEFAULT_SHOP } from '../shop/shop.service.js';
+import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 
 const DAY_MS = 24 * 3600_000;
 const HOUR_MS = 3600_000;
@@ -32,12 +33,12 @@ export async function seedSyntheticYear(
     .onConflictDoNothing()
     .run();
   const bayId = db.insert(bays).values({ name: 'Bench bay', phaseSince: now }).returning().get().id;
-  const customerId = db.insert(customers).values({ name: 'Bench customer', createdAt }).returning().get().id;
-  const vehicleId = db
+  const customer = db.insert(customers).values({ name: 'Bench customer', createdAt }).returning().get();
+  const vehicle = db
     .insert(vehicles)
-    .values({ customerId, vin: '1M8GDM9AXKP042788', year: 2019, make: 'Bench', model: 'Car' })
+    .values({ customerId: customer.id, vin: '1M8GDM9AXKP042788', year: 2019, make: 'Bench', model: 'Car' })
     .returning()
-    .get().id;
+    .get();
   const technicianIds: number[] = [];
   const idleTechnicianIds: number[] = [];
   let roNumber = 100_000;
@@ -107,8 +108,9 @@ export async function seedSyntheticYear(
             .insert(repairOrders)
             .values({
               number: String(++roNumber),
-              customerId,
-              vehicleId,
+              customerId: customer.id,
+              vehicleId: vehicle.id,
+              ...repairOrderSnapshot(customer, vehicle),
               concern: 'Bench',
               odometer: 1000,
               status: 'closed',

@@ -19,6 +19,7 @@ import {
   type BAY_PHASES,
 } from '../db/schema/index.js';
 import { DEFAULT_SHOP } from '../shop/shop.service.js';
+import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 
 /** Every name, vehicle and number here is invented for the demo. */
 const SHOP = { ...DEFAULT_SHOP, name: 'Marlow Creek Auto Care', timeZone: 'America/Chicago' };
@@ -468,6 +469,7 @@ export class DemoShopSeeder {
         number: String(++this.roNumber),
         customerId: customer.id,
         vehicleId: vehicle.id,
+        ...repairOrderSnapshot(customer, vehicle),
         advisorId,
         concern: lines.map((line) => line.title).join('; '),
         odometer,

@@ -14,13 +14,14 @@ import { FilesInterceptor } from '@nestjs/platform-express';
 import {
   createFindingSchema,
   findingAnswerSchema,
-  findingsQuerySchema,
+  findingsPageQuerySchema,
   MAX_FINDING_PHOTOS,
   type CreateFindingBody,
   type FindingAnswerBody,
   type FindingAnswerResult,
   type FindingDto,
-  type FindingsQuery,
+  type FindingsPage,
+  type FindingsPageQuery,
   type MailQueued,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -54,7 +55,7 @@ export class FindingsController {
 
   @Roles('advisor', 'foreman', 'owner')
   @Get('findings')
-  list(@Query({ schema: findingsQuerySchema }) query: FindingsQuery): FindingDto[] {
+  list(@Query({ schema: findingsPageQuerySchema }) query: FindingsPageQuery): FindingsPage {
     return this.findings.list(query);
   }
 

@@ -1,18 +1,20 @@
 import { ConflictException, Inject, Injectable, Logger, type StreamableFile } from '@nestjs/common';
-import { and, asc, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type {
   CreateFindingBody,
   FindingAnswerBody,
   FindingAnswerResult,
   FindingDto,
-  FindingsQuery,
+  FindingsPage,
+  FindingsPageQuery,
   JobLineDto,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { describeVehicle } from '../floor/describe-vehicle.js';
 import { foundOrFail } from '../common/not-found.js';
+import { decodeCursor, olderThan, toPage } from '../common/paging.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import {
@@ -139,15 +141,31 @@ export class FindingsService {
     return finding.id;
   }
 
-  list(query: FindingsQuery): FindingDto[] {
-    const where: SQL[] = [];
-    if (query.answer) where.push(eq(findings.answer, query.answer));
-    if (query.repairOrderId) where.push(eq(jobLines.repairOrderId, query.repairOrderId));
-    return this.dtos(where.length ? and(...where) : undefined);
+  /** One page, newest first. */
+  list(query: FindingsPageQuery): FindingsPage {
+    const where = and(
+      query.answer ? eq(findings.answer, query.answer) : undefined,
+      query.repairOrderId ? eq(jobLines.repairOrderId, query.repairOrderId) : undefined,
+    );
+    const total =
+      this.db
+        .select({ n: count() })
+        .from(findings)
+        .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
+        .where(where)
+        .get()?.n ?? 0;
+    const after = olderThan(findings.createdAt, findings.id, decodeCursor(query.cursor));
+    return toPage(
+      this.dtos(and(where, after), query.limit + 1),
+      query.limit,
+      total,
+      (finding) => ({ at: Date.parse(finding.createdAt), id: finding.id }),
+      (shown) => shown,
+    );
   }
 
   get(id: number): FindingDto {
-    return foundOrFail(this.dtos(eq(findings.id, id))[0], 'Finding');
+    return foundOrFail(this.dtos(eq(findings.id, id), 1)[0], 'Finding');
   }
 
   /**
@@ -309,7 +327,7 @@ export class FindingsService {
     return waiting ? null : this.lines.resume(jobLineId, actor, now);
   }
 
-  private dtos(where: SQL | undefined): FindingDto[] {
+  private dtos(where: SQL | undefined, limit: number): FindingDto[] {
     const answerer = alias(users, 'answerer');
     const rows = this.db
       .select({
@@ -330,6 +348,7 @@ export class FindingsService {
       .leftJoin(answerer, eq(answerer.id, findings.answeredBy))
       .where(where)
       .orderBy(desc(findings.createdAt), desc(findings.id))
+      .limit(limit)
       .all();
     if (!rows.length) return [];
     const ids = rows.map((row) => row.finding.id);

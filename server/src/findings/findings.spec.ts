@@ -122,12 +122,13 @@ describe(FindingsService.name, () => {
     expect(files).toHaveLength(4);
     for (const name of files) expect(name).toMatch(/^[0-9a-f-]{36}\.(png|jpg|preview\.jpg)$/);
 
-    const inbox = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body as FindingDto[];
+    const inbox = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body
+      .items as FindingDto[];
     expect(inbox[0]).toMatchObject({ id: finding.id, technicianName: 'Dana Okafor' });
   });
 
   it('serves a photo with its sniffed type and nosniff, and a preview about 640 px wide', async () => {
-    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
+    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body.items as FindingDto[];
     const photo = finding!.photos[0]!;
     const original = await as(advisor).get(photo.url).buffer(true).expect(200);
     expect(original.headers['content-type']).toBe('image/png');
@@ -149,7 +150,7 @@ describe(FindingsService.name, () => {
   });
 
   it('refuses a technician who is not on the repair order, for findings and for photos', async () => {
-    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
+    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body.items as FindingDto[];
     const photo = finding!.photos[0]!;
     // A photo Sam may not see answers exactly as one that does not exist: the id reveals nothing.
     const missing = await as(sam.accessToken).get('/api/attachments/999999').expect(404);
@@ -231,8 +232,8 @@ describe(FindingsService.name, () => {
   });
 
   it('approval adds a queued line to the RO and resumes the held line, so the bay leaves held', async () => {
-    const [finding] = (await as(advisor).get('/api/findings?answer=pending').expect(200))
-      .body as FindingDto[];
+    const [finding] = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body
+      .items as FindingDto[];
     const linesBefore = db
       .select()
       .from(jobLines)

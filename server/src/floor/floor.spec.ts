@@ -258,5 +258,5 @@ describe(FloorService.name, () => {
       }),
       { numRuns: 12 },
     );
-  });
+  }, 180_000);
 });

@@ -66,8 +66,8 @@ describe(MailService.name, () => {
     let owner: string;
     let advisor: string;
     const mailbox = async (token = owner) =>
-      (await sut.http().get('/api/mailbox').auth(token, { type: 'bearer' }).expect(200))
-        .body as MailboxEntry[];
+      (await sut.http().get('/api/mailbox').auth(token, { type: 'bearer' }).expect(200)).body
+        .items as MailboxEntry[];
     const received = (subject: string) =>
       eventually(async () => (await mailbox()).find((entry) => entry.subject === subject));
 
@@ -135,8 +135,8 @@ describe(MailService.name, () => {
       const notice = await received(`Marlow Creek Auto Care: new finding on RO ${ro.number} (soon)`);
       expect(notice.to).toEqual([DEMO.advisor]);
 
-      const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' }))
-        .body as FindingDto[];
+      const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' })).body
+        .items as FindingDto[];
       expect(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt).not.toBeNull();
     });
 
@@ -228,7 +228,7 @@ describe(MailService.name, () => {
           .get('/api/mailbox')
           .auth(owner, { type: 'bearer' })
           .expect(200);
-        expect((body as MailboxEntry[]).map((entry) => entry.subject)).toEqual(['Survives a restart']);
+        expect((body.items as MailboxEntry[]).map((entry) => entry.subject)).toEqual(['Survives a restart']);
       } finally {
         await restarted.close();
       }

@@ -4,7 +4,8 @@ import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from '
 import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
 import { SMTPServer, type SMTPServerAddress, type SMTPServerSession } from 'smtp-server';
-import type { MailboxEntry, MailboxMessage } from '@baytime/shared';
+import type { MailboxEntry, MailboxMessage, Page, PageQuery } from '@baytime/shared';
+import { decodeCursor, toPage } from '../common/paging.js';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { parseMail } from './mime.js';
 
@@ -74,9 +75,22 @@ export class MailboxService {
     if (server) await new Promise<void>((resolve) => server.close(() => resolve()));
   }
 
-  /** Newest first. */
-  list(): MailboxEntry[] {
-    return [...this.index()].reverse();
+  /** One page, newest first. The index only grows, so a message's place in it is its cursor. */
+  list(query: PageQuery): Page<MailboxEntry> {
+    const entries = this.index();
+    const before = decodeCursor(query.cursor)?.id ?? entries.length;
+    const start = Math.min(before, entries.length);
+    const rows = entries
+      .slice(Math.max(0, start - query.limit - 1), start)
+      .map((entry, i, slice) => ({ entry, place: start - slice.length + i }))
+      .reverse();
+    return toPage(
+      rows,
+      query.limit,
+      entries.length,
+      ({ entry, place }) => ({ at: Date.parse(entry.date), id: place }),
+      (shown) => shown.map(({ entry }) => entry),
+    );
   }
 
   get(id: string): MailboxMessage {

@@ -16,6 +16,7 @@ import {
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { customers, jobLines, punches, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
 
@@ -89,6 +90,7 @@ describe(ReportsService.name, () => {
         number: `T${900 + serial}`,
         customerId: customer.id,
         vehicleId: vehicle.id,
+        ...repairOrderSnapshot(customer, vehicle),
         concern: title,
         odometer: 40_000,
         createdAt: queuedAt,

@@ -23,6 +23,7 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
   ['post', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
   ['get', '/api/repair-orders/1', ['owner', 'foreman', 'advisor']],
+  ['get', '/api/vehicles', ['owner', 'foreman', 'advisor']],
   ['get', '/api/operations', ['owner', 'foreman', 'advisor']],
   ['post', '/api/operations', ['owner']],
   ['patch', '/api/operations/1', ['owner']],

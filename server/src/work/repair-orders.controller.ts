@@ -1,10 +1,10 @@
 import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
-import { z } from 'zod';
 import {
   createRepairOrderSchema,
-  REPAIR_ORDER_STATUSES,
+  repairOrderListQuerySchema,
   type CreateRepairOrderBody,
-  type RepairOrderStatus,
+  type RepairOrderListQuery,
+  type RepairOrderPage,
   type RepairOrderSummary,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -18,10 +18,8 @@ export class RepairOrdersController {
   constructor(private readonly repairOrders: RepairOrdersService) {}
 
   @Get()
-  list(
-    @Query('status', { schema: z.enum(REPAIR_ORDER_STATUSES).optional() }) status?: RepairOrderStatus,
-  ): RepairOrderSummary[] {
-    return this.repairOrders.list(status);
+  list(@Query({ schema: repairOrderListQuerySchema }) query: RepairOrderListQuery): RepairOrderPage {
+    return this.repairOrders.list(query);
   }
 
   @Get(':id')

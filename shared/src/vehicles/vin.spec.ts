@@ -1,12 +1,14 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  addVinRuleIssues,
   isValidVin,
   makeVin,
   modelYearFromVin,
-  vehicleInputSchema,
+  vehicleDetailsSchema,
   vinCheckDigit,
   vinSchema,
+  vinTextSchema,
 } from './vin.js';
 
 // 49 CFR 565.15 (CHECKS.md §7): the widely used worked example, check digit X.
@@ -122,6 +124,11 @@ describe('vinSchema', () => {
     expect(vinSchema.parse(`  ${WORKED_EXAMPLE.toLowerCase()} `)).toBe(WORKED_EXAMPLE);
   });
 
+  it('drops the spaces and dashes of a VIN pasted in groups', () => {
+    expect(vinSchema.parse('1M8 GDM9A-XKP 042788')).toBe(WORKED_EXAMPLE);
+    expect(vinSchema.parse('1m8-gdm9ax-kp0-42788\t')).toBe(WORKED_EXAMPLE);
+  });
+
   it('explains each problem in plain words', () => {
     expect(issues(vinSchema.safeParse('1M8GDM9AXKP04278'))).toEqual([
       { message: 'A VIN has 17 characters', path: '' },
@@ -129,7 +136,7 @@ describe('vinSchema', () => {
     expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427O8'))).toEqual([
       { message: 'VINs never use I, O or Q', path: '' },
     ]);
-    expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427-8'))).toEqual([
+    expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427*8'))).toEqual([
       { message: 'A VIN has only letters and digits', path: '' },
     ]);
     expect(issues(vinSchema.safeParse('1M8GDM9A4KP042788'))).toEqual([
@@ -138,7 +145,29 @@ describe('vinSchema', () => {
   });
 });
 
-describe('vehicleInputSchema', () => {
+describe('vinTextSchema', () => {
+  it('takes a shorter serial of a vehicle built before 1981, and a 17-character VIN whatever its check digit', () => {
+    expect(vinTextSchema.parse('7y37j5g 123456')).toBe('7Y37J5G123456');
+    expect(vinTextSchema.parse('1M8GDM9A4KP042788')).toBe('1M8GDM9A4KP042788');
+  });
+
+  it('still wants letters and digits, at most 17', () => {
+    expect(issues(vinTextSchema.safeParse('AB*12'))).toEqual([
+      { message: 'A VIN has only letters and digits', path: '' },
+    ]);
+    expect(issues(vinTextSchema.safeParse('1M8GDM9AXKP0427881'))).toEqual([
+      { message: 'A VIN has 17 characters', path: '' },
+    ]);
+    expect(issues(vinTextSchema.safeParse('AB1'))).toEqual([
+      { message: 'A VIN has 17 characters', path: '' },
+    ]);
+  });
+});
+
+describe(addVinRuleIssues.name, () => {
+  const vehicleInputSchema = vehicleDetailsSchema.superRefine((vehicle, ctx) =>
+    addVinRuleIssues(vehicle, ctx),
+  );
   const valid = { vin: WORKED_EXAMPLE, year: 2019, make: 'Brightwell', model: 'Tern', odometer: 84_210 };
 
   it('accepts a vehicle whose year matches the VIN', () => {

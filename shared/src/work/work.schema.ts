@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
-import { vehicleInputSchema } from '../vehicles/vin.js';
+import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
@@ -74,15 +74,21 @@ export const customerInputSchema = z.object({
   email: z.email('Not an e-mail address').max(200).optional(),
 });
 
-export const createRepairOrderSchema = z.object({
-  customer: customerInputSchema,
-  vehicle: vehicleInputSchema,
-  concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
-  promisedAt: instantSchema.optional(),
-  lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
-  /** Saving an odometer lower than the last visit needs a reason. */
-  odometerOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
-});
+export const createRepairOrderSchema = z
+  .object({
+    customer: customerInputSchema,
+    vehicle: vehicleDetailsSchema,
+    concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
+    promisedAt: instantSchema.optional(),
+    lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
+    /** Saving an odometer lower than the last visit needs a reason. */
+    odometerOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
+    /** A VIN outside the 49 CFR 565 rules (built before 1981, or abroad) is saved with a reason. */
+    vinOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
+  })
+  .superRefine((body, ctx) => {
+    if (!body.vinOverrideReason) addVinRuleIssues(body.vehicle, ctx, ['vehicle']);
+  });
 export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
 export const operationInputSchema = z.object({

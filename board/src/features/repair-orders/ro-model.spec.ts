@@ -3,19 +3,20 @@ import type { DispatchBoard, DispatchLine, FindingDto, JobLineDto } from '@bayti
 import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
-  advisorsOf,
-  filterRepairOrders,
+  advisorChoices,
   filtersFromParams,
   filtersToParams,
+  isAtRisk,
   isLate,
-  isPromisedToday,
+  isPastPromise,
   lateLineIds,
+  listQuery,
+  pageRange,
   lineRows,
   lineStatusText,
   repairOrderHistory,
 } from './ro-model';
 
-const ZONE = 'America/Chicago';
 const NOW = Date.parse('2026-12-01T20:00:00.000Z'); // Tue 2:00 PM in Chicago
 
 function jobLine(
@@ -93,12 +94,20 @@ function dispatch(lines: DispatchLine[]): DispatchBoard {
   };
 }
 
-describe(isPromisedToday.name, () => {
-  it('compares shop days, not UTC days', () => {
-    // 03:30 UTC on the 2nd is 9:30 PM on the 1st in Chicago: still today.
-    expect(isPromisedToday({ promisedAt: '2026-12-02T03:30:00.000Z' }, NOW, ZONE)).toBe(true);
-    expect(isPromisedToday({ promisedAt: '2026-12-02T06:30:00.000Z' }, NOW, ZONE)).toBe(false);
-    expect(isPromisedToday({ promisedAt: null }, NOW, ZONE)).toBe(false);
+describe(isPastPromise.name, () => {
+  it('is open with the promised time gone by: what the server calls late', () => {
+    expect(isPastPromise(ro({ promisedAt: '2026-12-01T19:59:00.000Z' }), NOW)).toBe(true);
+    expect(isPastPromise(ro({ promisedAt: '2026-12-01T20:01:00.000Z' }), NOW)).toBe(false);
+    expect(isPastPromise(ro({ promisedAt: '2026-12-01T19:00:00.000Z', status: 'done' }), NOW)).toBe(false);
+    expect(isPastPromise(ro({ promisedAt: null }), NOW)).toBe(false);
+  });
+});
+
+describe(isAtRisk.name, () => {
+  it('is open with a line forecast late', () => {
+    expect(isAtRisk(ro(), new Set([1]))).toBe(true);
+    expect(isAtRisk(ro(), new Set([2]))).toBe(false);
+    expect(isAtRisk(ro({ status: 'done' }), new Set([1]))).toBe(false);
   });
 });
 
@@ -124,24 +133,24 @@ describe(lateLineIds.name, () => {
   });
 });
 
-describe(filterRepairOrders.name, () => {
-  const list = [
-    ro({ id: 1, number: '4521', advisorId: 3, advisorName: 'Nell Ashby' }),
-    ro({ id: 2, number: '4522', customerName: 'Abel Moncrief', status: 'done', advisorId: 2 }),
-    ro({ id: 3, number: '4523', promisedAt: '2026-12-01T22:00:00.000Z', vin: '7CV4AL2E1KM100123' }),
-  ];
-  const context = { nowMs: NOW, timeZone: ZONE, lateLines: new Set<number>() };
+describe(listQuery.name, () => {
+  it('asks the server for the filters on the page, and the page', () => {
+    expect(listQuery(DEFAULT_FILTERS, { limit: 50 })).toBe('limit=50&status=open');
+    expect(
+      listQuery(
+        { status: 'all', advisor: '3', promisedToday: true, late: true, search: '  wendell farrow ' },
+        { limit: 50, cursor: 'MTcwMC4xMg' },
+      ),
+    ).toBe('limit=50&q=wendell+farrow&advisorId=3&promised=today&late=true&cursor=MTcwMC4xMg');
+  });
+});
 
-  it('filters by status, advisor, promise day and search words', () => {
-    const ids = (filters: Partial<typeof DEFAULT_FILTERS>) =>
-      filterRepairOrders(list, { ...DEFAULT_FILTERS, ...filters }, context).map((r) => r.id);
-    expect(ids({ status: 'all' })).toEqual([1, 2, 3]);
-    expect(ids({})).toEqual([1, 3]);
-    expect(ids({ status: 'all', advisor: '3' })).toEqual([1]);
-    expect(ids({ promisedToday: true })).toEqual([3]);
-    expect(ids({ status: 'all', search: 'abel 4522' })).toEqual([2]);
-    expect(ids({ status: 'all', search: '7cv4al' })).toEqual([3]);
-    expect(ids({ late: true })).toEqual([]);
+describe(pageRange.name, () => {
+  it('counts from one across pages', () => {
+    expect(pageRange(0, 50, 50, 240)).toBe('1–50 of 240');
+    expect(pageRange(4, 50, 40, 240)).toBe('201–240 of 240');
+    expect(pageRange(20, 50, 50, 10_000)).toBe('1,001–1,050 of 10,000');
+    expect(pageRange(0, 50, 0, 0)).toBe('No repair orders');
   });
 });
 
@@ -160,18 +169,19 @@ describe(filtersFromParams.name, () => {
   });
 });
 
-describe(advisorsOf.name, () => {
-  it('lists each named advisor once, by name', () => {
-    const list = [
-      ro({ advisorId: 3, advisorName: 'Nell Ashby' }),
-      ro({ advisorId: 1, advisorName: 'Rosa Pellman' }),
-      ro({ advisorId: 3, advisorName: 'Nell Ashby' }),
-      ro({}),
-    ];
-    expect(advisorsOf(list)).toEqual([
+describe(advisorChoices.name, () => {
+  it('lists the people who write ROs, by name, or only "Mine" when the people cannot be read', () => {
+    const people = [
+      { id: 3, name: 'Nell Ashby', role: 'advisor', active: true },
+      { id: 1, name: 'Rosa Pellman', role: 'owner', active: true },
+      { id: 7, name: 'Dana Okafor', role: 'technician', active: true },
+      { id: 9, name: 'Abel Moncrief', role: 'advisor', active: false },
+    ] as const;
+    expect(advisorChoices(people, { id: 3 })).toEqual([
       { id: '3', name: 'Nell Ashby' },
       { id: '1', name: 'Rosa Pellman' },
     ]);
+    expect(advisorChoices(undefined, { id: 3 })).toEqual([{ id: '3', name: 'Mine' }]);
   });
 });
 

@@ -22,7 +22,12 @@ export const findings = sqliteTable(
     createdLineId: integer('created_line_id').references(() => jobLines.id),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
   },
-  (t) => [index('findings_job_line_id_idx').on(t.jobLineId), index('findings_answer_idx').on(t.answer)],
+  (t) => [
+    index('findings_job_line_id_idx').on(t.jobLineId),
+    // The inbox pages newest first, by answer or not.
+    index('findings_answer_created_at_idx').on(t.answer, t.createdAt),
+    index('findings_created_at_idx').on(t.createdAt),
+  ],
 );
 
 /** A photo on disk under the data dir, named randomly by the server; never a client-given path. */

@@ -186,11 +186,14 @@ export function FindingsInbox({
   const onNew = useCallback((id: number) => setFresh((current) => new Set(current).add(id)), []);
   useFindingsLive(onNew);
 
-  const sorted = useMemo(() => sortPending(pending.data ?? []), [pending.data]);
+  const sorted = useMemo(() => sortPending(pending.data?.items ?? []), [pending.data]);
   const groups = useMemo(
-    () => groupAnswered([...(approved.data ?? []), ...(declined.data ?? [])]),
+    () => groupAnswered([...(approved.data?.items ?? []), ...(declined.data?.items ?? [])]),
     [approved.data, declined.data],
   );
+  const answeredNotShown =
+    (approved.data ? approved.data.total - approved.data.items.length : 0) +
+    (declined.data ? declined.data.total - declined.data.items.length : 0);
   const freshPending = sorted.filter((finding) => fresh.has(finding.id)).length;
 
   const askCustomer = (finding: FindingDto) =>
@@ -258,10 +261,10 @@ export function FindingsInbox({
             {pending.data && (
               <CounterBadge
                 className={styles.tabCount}
-                count={pending.data.length}
+                count={pending.data.total}
                 showZero
                 appearance="filled"
-                color={pending.data.length > 0 ? 'brand' : 'informative'}
+                color={pending.data.total > 0 ? 'brand' : 'informative'}
               />
             )}
             {freshPending > 0 && <span className={styles.freshCount}> · {freshPending} new</span>}
@@ -347,6 +350,12 @@ export function FindingsInbox({
           {groups.map((group) => (
             <AnsweredGroupCard key={group.repairOrderId} group={group} role={role} formatWhen={formatWhen} />
           ))}
+          {answeredNotShown > 0 && (
+            <Caption1 className={styles.dim}>
+              The latest answers are shown; {answeredNotShown.toLocaleString('en-US')} older ones are on their
+              repair orders.
+            </Caption1>
+          )}
         </div>
       )}
 
