@@ -4,10 +4,10 @@ import { and, eq, isNull } from 'drizzle-orm';
 import type { BadgeLoginBody, LoginBody, PairScreenBody, SignInAnswer } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { screens, users } from '../db/schema/index.js';
-import { FailedAttempts } from './failed-attempts.js';
+import { hashPairingCode } from '../screens/pairing-code.js';
 import { verifySecret } from './passwords.js';
 import type { Principal, TokenPayload } from './principal.js';
-import { hashPairingCode } from '../screens/pairing-code.js';
+import { SignInThrottle } from './sign-in-throttle.js';
 
 const OFFICE_TOKEN_TTL = '12h';
 const KIOSK_TOKEN_TTL = '2h';
@@ -16,36 +16,31 @@ const DISPLAY_TOKEN_TTL = '3650d';
 
 @Injectable()
 export class AuthService {
-  private readonly failures = new FailedAttempts();
-
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly jwt: JwtService,
+    private readonly throttle: SignInThrottle,
   ) {}
 
-  async login({ email, password }: LoginBody): Promise<SignInAnswer> {
-    const key = `email:${email.toLowerCase()}`;
-    this.failures.assertAllowed(key);
+  async login({ email, password }: LoginBody, ip: string | undefined): Promise<SignInAnswer> {
+    const account = `email:${email.toLowerCase()}`;
+    // Counted before the slow hash, so a burst of guesses cannot all be checked.
+    const attempt = this.throttle.attempt(account, ip);
     const user = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
     const ok = await verifySecret(password, user?.passwordHash ?? null);
-    if (!user || !ok || !user.active || user.role === 'technician') {
-      this.failures.fail(key);
+    if (!user || !ok || !user.active || user.role === 'technician')
       throw new UnauthorizedException('E-mail or password not recognised');
-    }
-    this.failures.succeed(key);
+    attempt.succeeded();
     return this.answer(user, OFFICE_TOKEN_TTL);
   }
 
-  async badge({ badge, pin }: BadgeLoginBody): Promise<SignInAnswer> {
-    const key = `badge:${badge}`;
-    this.failures.assertAllowed(key);
+  async badge({ badge, pin }: BadgeLoginBody, ip: string | undefined): Promise<SignInAnswer> {
+    const attempt = this.throttle.attempt(`badge:${badge}`, ip);
     const user = this.db.select().from(users).where(eq(users.badge, badge)).get();
     const ok = await verifySecret(pin, user?.pinHash ?? null);
-    if (!user || !ok || !user.active || user.role !== 'technician') {
-      this.failures.fail(key);
+    if (!user || !ok || !user.active || user.role !== 'technician')
       throw new UnauthorizedException('Badge or PIN not recognised');
-    }
-    this.failures.succeed(key);
+    attempt.succeeded();
     return this.answer(user, KIOSK_TOKEN_TTL);
   }
 
