@@ -36,7 +36,7 @@ function attach(s: KioskSocket) {
     }
   });
   s.on('connect_error', () => setState('offline'));
-  s.on('auth.error', ({ message }) => {
+  s.on('session.ended', ({ message }) => {
     clearTimeout(retryTimer);
     s.disconnect();
     onAuthError?.(message);

@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { Subject } from 'rxjs';
-import type { ServerToClientEvents } from '@baytime/shared';
+import type { LiveRefusalReason, ServerToClientEvents } from '@baytime/shared';
 import { UnitOfWork } from '../db/unit-of-work.js';
 
 type Payload<E extends keyof ServerToClientEvents> = Omit<Parameters<ServerToClientEvents[E]>[0], 'seq'>;
@@ -17,6 +17,12 @@ export interface LiveMessage {
   audience: Audience;
 }
 
+/** Whose live connections must close now: a revoked screen's, or a person's whose access changed. */
+export interface SessionsEnded {
+  holder: { screenId: number } | { userId: number };
+  reason: LiveRefusalReason;
+}
+
 /**
  * The one stream of live messages. Services publish domain events here and say when the floor
  * changed; the gateway forwards messages to sockets. `seq` rises by one per message, shop-wide.
@@ -29,6 +35,7 @@ export class LiveService {
    */
   private lastSeq = Date.now();
   readonly messages$ = new Subject<LiveMessage>();
+  readonly sessionsEnded$ = new Subject<SessionsEnded>();
   /** Fires once per tick however many changes were made in it. */
   readonly floorChanged$ = new Subject<void>();
   private changePending = false;
@@ -39,7 +46,7 @@ export class LiveService {
     return this.lastSeq;
   }
 
-  publish<E extends Exclude<keyof ServerToClientEvents, 'board.snapshot' | 'auth.error'>>(
+  publish<E extends Exclude<keyof ServerToClientEvents, 'board.snapshot' | 'session.ended'>>(
     event: E,
     payload: Payload<E>,
     audience: Audience = { to: 'everyone' },
@@ -48,6 +55,11 @@ export class LiveService {
     this.uow.afterCommit(() =>
       this.messages$.next({ event, payload: { ...payload, seq: ++this.lastSeq }, audience }),
     );
+  }
+
+  /** Closes the holder's live connections once the change that ends them has committed. */
+  endSessions(holder: SessionsEnded['holder'], reason: LiveRefusalReason): void {
+    this.uow.afterCommit(() => this.sessionsEnded$.next({ holder, reason }));
   }
 
   changed(): void {

@@ -7,6 +7,7 @@ import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { screens } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import { hashPairingCode, newPairingCode } from './pairing-code.js';
 
 const PAIRING_CODE_LIFETIME_MS = 30 * 60_000;
@@ -28,6 +29,7 @@ export class ScreensService {
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
+    private readonly live: LiveService,
   ) {}
 
   list(): ScreenDto[] {
@@ -76,6 +78,7 @@ export class ScreensService {
       .where(eq(screens.id, id))
       .run();
     this.audit.record({ actorId: actor.id, action: 'revoke', entity: 'screen', entityId: id });
+    this.live.endSessions({ screenId: id }, 'screen-revoked');
     return foundOrFail(
       this.list().find((screen) => screen.id === id),
       'Screen',

@@ -7,6 +7,7 @@ import { foundOrFail, isUniqueViolation } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { UnitOfWork } from '../db/unit-of-work.js';
 import { users } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import type { Principal } from '../auth/principal.js';
 
 type UserRow = typeof users.$inferSelect;
@@ -32,6 +33,7 @@ export class UsersService {
     @Inject(DB) private readonly db: Db,
     private readonly uow: UnitOfWork,
     private readonly audit: AuditService,
+    private readonly live: LiveService,
   ) {}
 
   list(): UserDto[] {
@@ -78,6 +80,7 @@ export class UsersService {
         entityId: id,
         detail: { fields },
       });
+      if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
       return toUserDto(row);
     });
   }

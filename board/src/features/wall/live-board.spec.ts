@@ -147,7 +147,7 @@ describe(createLiveBoard.name, () => {
     const sut = make();
     sut.start();
     socket.serve('connect');
-    socket.serve('auth.error', { message: 'Unauthorized' });
+    socket.serve('session.ended', { message: 'Unauthorized' });
     expect(onUnauthorized).toHaveBeenCalledTimes(1);
     expect(socket.connected).toBe(false);
     sut.start();

@@ -124,7 +124,7 @@ export function createLiveBoard(options: LiveBoardOptions): LiveBoard {
         } else refuse();
       } else retryLater();
     },
-    'auth.error': () => refuse(),
+    'session.ended': () => refuse(),
     'board.snapshot': (snapshot: BoardSnapshot) => takeSnapshot(snapshot),
     'bay.updated': ({ seq, bay }: Parameters<ServerToClientEvents['bay.updated']>[0]) =>
       onEvent({ type: 'bay.updated', seq, bay }),
@@ -147,7 +147,7 @@ export function createLiveBoard(options: LiveBoardOptions): LiveBoard {
     socket.on('connect', handlers.connect);
     socket.on('disconnect', handlers.disconnect);
     socket.on('connect_error', handlers.connect_error);
-    socket.on('auth.error', handlers['auth.error']);
+    socket.on('session.ended', handlers['session.ended']);
     socket.on('board.snapshot', handlers['board.snapshot']);
     socket.on('bay.updated', handlers['bay.updated']);
     socket.on('floor.updated', handlers['floor.updated']);
@@ -167,7 +167,7 @@ export function createLiveBoard(options: LiveBoardOptions): LiveBoard {
     socket.off('connect', handlers.connect);
     socket.off('disconnect', handlers.disconnect);
     socket.off('connect_error', handlers.connect_error);
-    socket.off('auth.error', handlers['auth.error']);
+    socket.off('session.ended', handlers['session.ended']);
     socket.off('board.snapshot', handlers['board.snapshot']);
     socket.off('bay.updated', handlers['bay.updated']);
     socket.off('floor.updated', handlers['floor.updated']);

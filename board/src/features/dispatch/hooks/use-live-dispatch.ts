@@ -41,7 +41,7 @@ export function useLiveDispatch(token: string | null): LiveLink {
       socket.on('disconnect', () => setLink('down'));
       socket.io.on('reconnect_attempt', () => setLink('connecting'));
       // A refused token: the next request answers 401 and the office goes back to sign-in by itself.
-      socket.on('auth.error', () => void queryClient.invalidateQueries({ queryKey: ['me'] }));
+      socket.on('session.ended', () => void queryClient.invalidateQueries({ queryKey: ['me'] }));
     },
     [queryClient, refresh],
   );
