@@ -5,3 +5,4 @@ export * from './clock.js';
 export * from './findings.js';
 export * from './records.js';
 export * from './sign-in.js';
+export * from './live.js';
