@@ -1,7 +1,6 @@
 import { useCallback, useEffect, useRef } from 'react';
 import { useQueryClient, type QueryKey } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
-import { useOfficeSocket } from '@/lib/use-office-socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 
 const SETTLE_MS = 300;
 
@@ -31,7 +30,7 @@ export function useLiveRepairOrders(token: string | null): void {
     [mark],
   );
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       socket.on('job-line.updated', ({ jobLine }) =>
         mark(['repair-orders'], ['repair-order', jobLine.repairOrderId], ['dispatch']),
       );
@@ -41,5 +40,5 @@ export function useLiveRepairOrders(token: string | null): void {
     },
     [mark],
   );
-  useOfficeSocket(token, wire, everything);
+  useOfficeLive(token, wire, everything);
 }
