@@ -32,24 +32,22 @@ export class AuthService {
   ) {}
 
   async login({ email, password }: LoginBody, ip: string | undefined): Promise<SignInAnswer> {
-    const account = `email:${email.toLowerCase()}`;
-    // Counted before the slow hash, so a burst of guesses cannot all be checked.
-    const attempt = this.throttle.attempt(account, ip);
-    const user = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
-    const ok = await verifySecret(password, user?.passwordHash ?? null);
-    if (!user || !ok || !user.active || user.role === 'technician')
-      throw new UnauthorizedException('E-mail or password not recognised');
-    attempt.succeeded();
+    const user = await this.throttle.check(`email:${email.toLowerCase()}`, ip, async () => {
+      const row = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
+      const ok = await verifySecret(password, row?.passwordHash ?? null);
+      return row && ok && row.active && row.role !== 'technician' ? row : null;
+    });
+    if (!user) throw new UnauthorizedException('E-mail or password not recognised');
     return this.answer(user, OFFICE_TOKEN_TTL);
   }
 
   async badge({ badge, pin }: BadgeLoginBody, ip: string | undefined): Promise<SignInAnswer> {
-    const attempt = this.throttle.attempt(`badge:${badge}`, ip);
-    const user = this.db.select().from(users).where(eq(users.badge, badge)).get();
-    const ok = await verifySecret(pin, user?.pinHash ?? null);
-    if (!user || !ok || !user.active || user.role !== 'technician')
-      throw new UnauthorizedException('Badge or PIN not recognised');
-    attempt.succeeded();
+    const user = await this.throttle.check(`badge:${badge}`, ip, async () => {
+      const row = this.db.select().from(users).where(eq(users.badge, badge)).get();
+      const ok = await verifySecret(pin, row?.pinHash ?? null);
+      return row && ok && row.active && row.role === 'technician' ? row : null;
+    });
+    if (!user) throw new UnauthorizedException('Badge or PIN not recognised');
     return this.answer(user, KIOSK_TOKEN_TTL);
   }
 
