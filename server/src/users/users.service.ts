@@ -8,6 +8,7 @@ import { DB, type Db } from '../db/database.js';
 import { UnitOfWork } from '../db/unit-of-work.js';
 import { FloorService } from '../floor/floor.service.js';
 import { users } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import type { Principal } from '../auth/principal.js';
 
 type UserRow = typeof users.$inferSelect;
@@ -34,6 +35,7 @@ export class UsersService {
     private readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly floor: FloorService,
+    private readonly live: LiveService,
   ) {}
 
   list(): UserDto[] {
@@ -82,6 +84,7 @@ export class UsersService {
         detail: { fields },
       });
       this.floor.techniciansChanged();
+      if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
       return toUserDto(row);
     });
   }

@@ -4,3 +4,5 @@ export * from './work.js';
 export * from './clock.js';
 export * from './findings.js';
 export * from './records.js';
+export * from './sign-in.js';
+export * from './live.js';

@@ -61,7 +61,7 @@ export function SignInForm() {
           return setFormError('No connection to the shop server. Check the network and try again.');
         if (error.status === 401)
           return setFieldErrors({ password: 'That e-mail and password do not match' });
-        if (error.status === 429) return setFormError('Too many tries. Wait a minute, then try again.');
+        if (error.status === 429) return setFormError(error.message);
         const { email, password } = error.fieldErrors;
         if (email || password) return setFieldErrors({ email, password });
         setFormError(error.message || 'Sign-in failed. Try again.');

@@ -1,8 +1,7 @@
 import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
-import { useOfficeSocket } from '@/lib/use-office-socket';
 import { findingsKey } from '../api/get-findings';
 
 /** Keeps the inbox current: a new finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
@@ -19,7 +18,7 @@ export function useFindingsLive(onNew: (findingId: number) => void): void {
     [queryClient],
   );
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       socket.on('finding.created', ({ findingId }) => {
         onNewRef.current(findingId);
         refresh();
@@ -28,5 +27,5 @@ export function useFindingsLive(onNew: (findingId: number) => void): void {
     },
     [refresh],
   );
-  useOfficeSocket(token, wire, refresh);
+  useOfficeLive(token, wire, refresh);
 }

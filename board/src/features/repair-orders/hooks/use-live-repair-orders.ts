@@ -1,7 +1,6 @@
 import { useCallback, useEffect, useRef } from 'react';
 import { useQueryClient, type QueryKey } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
-import { useOfficeSocket } from '@/lib/use-office-socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { repairOrdersKey } from '../api/get-repair-orders';
 
 const SETTLE_MS = 300;
@@ -35,7 +34,7 @@ export function useLiveRepairOrders(token: string | null): void {
     [mark],
   );
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       socket.on('job-line.updated', ({ jobLine }) =>
         mark(repairOrdersKey, ['repair-order', jobLine.repairOrderId], ['dispatch']),
       );
@@ -45,5 +44,5 @@ export function useLiveRepairOrders(token: string | null): void {
     },
     [mark],
   );
-  useOfficeSocket(token, wire, everything);
+  useOfficeLive(token, wire, everything);
 }

@@ -9,7 +9,7 @@ function pairErrorText(error: unknown): string {
   if (error instanceof ApiError) {
     if (error.isNetwork) return 'No connection to the shop server. Check the network and try again.';
     if (error.fieldErrors.code) return error.fieldErrors.code;
-    if (error.status === 429) return 'Too many tries. Wait a minute, then try again.';
+    if (error.status === 429) return error.message;
     if (error.status < 500)
       return 'That code did not work. Codes work once and expire: make a new one in the office.';
   }
