@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { Logger, type INestApplication, type LogLevel } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import helmet from 'helmet';
+import { serveApiDocs } from './api-docs/api-docs.js';
 import { AppModule } from './app.module.js';
 import { ErrorsFilter } from './common/filters/errors.filter.js';
 import { validationPipe } from './common/validation.js';
@@ -27,6 +28,7 @@ export async function createApp(
   app.useGlobalPipes(validationPipe());
   app.useGlobalFilters(new ErrorsFilter());
   app.enableShutdownHooks();
+  serveApiDocs(app);
   await app.get(StartupService).prepare();
   return app;
 }

@@ -3,6 +3,9 @@ import type { Role } from '@baytime/shared';
 export type Method = 'get' | 'post' | 'patch' | 'delete';
 export const ALL_ROLES: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
 
+/** GET routes anyone may read without a token. */
+export const PUBLIC_GET_ROUTES = ['/api/health', '/api/openapi.json', '/api/docs'];
+
 /** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
 export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/me', ALL_ROLES],
