@@ -26,3 +26,4 @@ export * from './paging/page.schema.js';
 export * from './work/repair-order-list.schema.js';
 export * from './vehicles/vehicle-lookup.schema.js';
 export * from './findings/findings-page.schema.js';
+export * from './integration/integration.schema.js';

@@ -1,4 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
+import { callingKey } from '../common/caller-context.js';
 import { DB, type Db } from '../db/database.js';
 import { auditLog } from '../db/schema/index.js';
 
@@ -14,10 +15,21 @@ export interface AuditEntry {
 export class AuditService {
   constructor(@Inject(DB) private readonly db: Db) {}
 
+  /** A change made through an integration key is recorded as the key's, under its name. */
   record(entry: AuditEntry, at = new Date()): void {
+    const key = callingKey();
     this.db
       .insert(auditLog)
-      .values({ ...entry, entityId: String(entry.entityId), at })
+      .values({
+        ...entry,
+        entityId: String(entry.entityId),
+        at,
+        ...(key && {
+          actorId: null,
+          integrationKeyId: key.id,
+          detail: { ...entry.detail, integrationKey: key.name },
+        }),
+      })
       .run();
   }
 }

@@ -5,6 +5,7 @@ import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { SignedInGuard } from '../common/guards/auth.guard.js';
+import { IntegrationKeysModule } from '../integration-keys/integration-keys.module.js';
 import { AuthController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
 import { JwtStrategy } from './jwt.strategy.js';
@@ -14,6 +15,7 @@ import { SignInThrottle } from './sign-in-throttle.js';
 @Module({
   imports: [
     PassportModule,
+    IntegrationKeysModule,
     ThrottlerModule.forRoot({
       throttlers: [{ ttl: 60_000, limit: 60 }],
       errorMessage: 'Too many requests. Try again in a minute.',

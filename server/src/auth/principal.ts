@@ -5,6 +5,8 @@ export interface Principal {
   id: number;
   name: string;
   role: Role;
+  /** Set when another system calls with an integration key; `id` is then the owner who made the key. */
+  integrationKey?: { id: number; name: string };
 }
 
 export interface TokenPayload {

@@ -14,6 +14,7 @@ const ACCEPTED_LISTS: Record<string, string> = {
   '/api/operations': 'the shop’s menu of operations, kept by the owner',
   '/api/hold-presets': 'named fixed waits the owner sets up',
   '/api/screens': 'the wall screens the shop paired',
+  '/api/integration-keys': 'the keys the owner made, one per system the shop connects',
   '/api/timers': 'running timers only: at most one per line in work, a stopped one drops out',
 };
 

@@ -55,5 +55,8 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/attachments/999/preview', ['owner', 'foreman', 'advisor', 'technician']],
   ['post', '/api/repair-orders/1/ready-notice', ['advisor']],
   ['get', '/api/mailbox', ['owner']],
+  ['get', '/api/integration-keys', ['owner']],
+  ['post', '/api/integration-keys', ['owner']],
+  ['delete', '/api/integration-keys/999', ['owner']],
   ['get', '/api/mailbox/00000000-0000-4000-8000-000000000000', ['owner']],
 ];

@@ -8,7 +8,7 @@ import {
   type TimecardQuery,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
-import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
+import { CurrentUser, Roles, Scope } from '../common/decorators/auth.decorators.js';
 import { TimecardsService } from './timecards.service.js';
 
 @Controller('timecards')
@@ -16,6 +16,7 @@ export class TimecardsController {
   constructor(private readonly timecards: TimecardsService) {}
 
   @Roles('technician', 'foreman', 'owner')
+  @Scope('punches:read')
   @Get()
   get(
     @Query({ schema: timecardQuerySchema }) query: TimecardQuery,

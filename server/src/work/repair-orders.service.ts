@@ -86,8 +86,10 @@ export class RepairOrdersService {
         customerId: owner.id,
         vehicleId: vehicle.id,
         ...repairOrderSnapshot(owner, vehicle),
-        advisorId: actor.id,
+        // An RO sent by another system has no advisor until one takes it.
+        advisorId: actor.integrationKey ? null : actor.id,
         concern: body.concern,
+        externalRef: body.externalRef ?? null,
         odometer: body.vehicle.odometer,
         promisedAt,
         createdAt: now,
@@ -119,6 +121,25 @@ export class RepairOrdersService {
     for (const jobLine of created.lines) this.live.publish('job-line.updated', { jobLine });
     this.floor.linesChanged(created.lines.map((line) => line.id));
     return created;
+  }
+
+  /** `create`, unless an RO with the body's `externalRef` is already written: then that one, unchanged. */
+  @Transactional()
+  createOnce(
+    body: CreateRepairOrderBody,
+    actor: Principal,
+    now = new Date(),
+  ): { repairOrder: RepairOrderSummary; replayed: boolean } {
+    const known =
+      body.externalRef &&
+      this.db
+        .select({ id: repairOrders.id })
+        .from(repairOrders)
+        .where(eq(repairOrders.externalRef, body.externalRef))
+        .get();
+    return known
+      ? { repairOrder: this.get(known.id, now), replayed: true }
+      : { repairOrder: this.create(body, actor, now), replayed: false };
   }
 
   get(id: number, now = new Date()): RepairOrderSummary {
@@ -253,6 +274,7 @@ export class RepairOrdersService {
       odometer: ro.odometer,
       concern: ro.concern,
       status: ro.status,
+      externalRef: ro.externalRef,
       promisedAt: ro.promisedAt?.toISOString() ?? null,
       createdAt: ro.createdAt.toISOString(),
       lines: lines

@@ -85,6 +85,14 @@ export const createRepairOrderSchema = z
     odometerOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
     /** A VIN outside the 49 CFR 565 rules (built before 1981, or abroad) is saved with a reason. */
     vinOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
+    /**
+     * The RO's reference in the system it comes from. One RO per reference in the shop: sending the
+     * same reference again answers the RO already written and changes nothing.
+     */
+    externalRef: plainText(64, {
+      min: 1,
+      message: 'Give the reference of the RO in its own system',
+    }).optional(),
   })
   .superRefine((body, ctx) => {
     if (!body.vinOverrideReason) addVinRuleIssues(body.vehicle, ctx, ['vehicle']);
@@ -128,6 +136,8 @@ export interface RepairOrderSummary {
   odometer: number;
   concern: string;
   status: RepairOrderStatus;
+  /** The RO's reference in the system it was imported from. */
+  externalRef: string | null;
   advisorId: number | null;
   advisorName: string | null;
   promisedAt: string | null;

@@ -1,4 +1,5 @@
 import { sqliteTable, integer, text, index } from 'drizzle-orm/sqlite-core';
+import { integrationKeys } from './integration.js';
 import { users } from './people.js';
 
 export const auditLog = sqliteTable(
@@ -11,6 +12,8 @@ export const auditLog = sqliteTable(
     entity: text('entity').notNull(),
     entityId: text('entity_id').notNull(),
     detail: text('detail', { mode: 'json' }).$type<Record<string, unknown>>(),
+    /** Set when the change came through an integration key: the key, not a person, did it. */
+    integrationKeyId: integer('integration_key_id').references(() => integrationKeys.id),
   },
   (t) => [index('audit_log_entity_entity_id_idx').on(t.entity, t.entityId)],
 );

@@ -77,9 +77,12 @@ export const repairOrders = sqliteTable(
     promisedAt: integer('promised_at', { mode: 'timestamp_ms' }),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
     closedAt: integer('closed_at', { mode: 'timestamp_ms' }),
+    /** The RO's reference in the system it was imported from: one RO per reference in the shop. */
+    externalRef: text('external_ref'),
   },
   (t) => [
     uniqueIndex('repair_orders_number_idx').on(t.number),
+    uniqueIndex('repair_orders_external_ref_idx').on(t.externalRef),
     // The office list pages newest first, by status or not; the id (the rowid) breaks ties for free.
     index('repair_orders_status_created_at_idx').on(t.status, t.createdAt),
     index('repair_orders_created_at_idx').on(t.createdAt),
