@@ -1,4 +1,5 @@
 import { Module, type DynamicModule } from '@nestjs/common';
+import { ScheduleModule } from '@nestjs/schedule';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { join } from 'node:path';
 import { AuditModule } from './audit/audit.module.js';
@@ -22,6 +23,7 @@ import { TimecardsModule } from './timecards/timecards.module.js';
 import { TimersModule } from './timers/timers.module.js';
 import { UsersModule } from './users/users.module.js';
 import { VehiclesModule } from './vehicles/vehicles.module.js';
+import { WebhooksModule } from './webhooks/webhooks.module.js';
 import { WorkModule } from './work/work.module.js';
 
 /** The front ends: kiosk under /kiosk, the board (wall and office) at the root, each falling back to its index.html. */
@@ -43,6 +45,7 @@ export class AppModule {
       providers: [{ provide: APP_CONFIG, useValue: config }],
       exports: [APP_CONFIG],
       imports: [
+        ScheduleModule.forRoot(),
         DatabaseModule,
         AuditModule,
         LiveModule,
@@ -62,6 +65,7 @@ export class AppModule {
         DispatchModule,
         FindingsModule,
         HealthModule,
+        WebhooksModule,
         BackupModule,
         DemoModule,
         ...(config.staticRoot ? frontEnds(config.staticRoot) : []),

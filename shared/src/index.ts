@@ -27,3 +27,4 @@ export * from './work/repair-order-list.schema.js';
 export * from './vehicles/vehicle-lookup.schema.js';
 export * from './findings/findings-page.schema.js';
 export * from './integration/integration.schema.js';
+export * from './time/retry-delay.js';

@@ -2,7 +2,16 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { PAGE_LIMIT_MAX, type Role } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, findings, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import {
+  customers,
+  findings,
+  jobLines,
+  repairOrders,
+  users,
+  vehicles,
+  webhookDeliveries,
+  webhooks,
+} from '../db/schema/index.js';
 import { MailService } from '../mail/mail.service.js';
 import { PUBLIC_GET_ROUTES, ROUTES } from '../test-support/routes.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
@@ -15,6 +24,7 @@ const ACCEPTED_LISTS: Record<string, string> = {
   '/api/hold-presets': 'named fixed waits the owner sets up',
   '/api/screens': 'the wall screens the shop paired',
   '/api/integration-keys': 'the keys the owner made, one per system the shop connects',
+  '/api/webhooks': 'the endpoints the owner registered, one per system the shop connects',
   '/api/timers': 'running timers only: at most one per line in work, a stopped one drops out',
 };
 
@@ -121,6 +131,21 @@ describe('every GET collection route is bounded', () => {
         .values({ jobLineId, technicianId, note: 'Bulk', severity: 'watch', createdAt: at })
         .run();
     }
+    const webhookId = db
+      .insert(webhooks)
+      .values({
+        url: 'https://hooks.example.test/',
+        events: ['job-line.finished'],
+        secret: 'x',
+        createdBy: technicianId,
+        createdAt: at,
+      })
+      .returning()
+      .get().id;
+    for (let i = 0; i <= PAGE_LIMIT_MAX; i++)
+      db.insert(webhookDeliveries)
+        .values({ webhookId, event: 'job-line.finished', body: '{}', createdAt: at })
+        .run();
     const mail = sut.app.get(MailService);
     for (let i = 0; i < 3; i++) mail.queue({ to: 'bulk@example.test', subject: `Bulk ${i}`, text: 'Bulk' });
     await mail.flush();

@@ -13,6 +13,8 @@ export interface AppConfig {
   demo: boolean;
   smtpUrl: string | null;
   jwtSecret: string;
+  /** A CA certificate file webhook deliveries trust besides the public CAs (the tests' own CA). */
+  webhookCaFile: string | null;
   /** Built front ends to serve; absent in tests that only need the API. */
   staticRoot: string | null;
 }
@@ -47,6 +49,7 @@ export function loadConfig(
     demo: truthy(env.BAYTIME_DEMO),
     smtpUrl: env.BAYTIME_SMTP_URL?.trim() || null,
     jwtSecret: env.JWT_SECRET || keptSecret(dataDir),
+    webhookCaFile: env.BAYTIME_WEBHOOK_CA_FILE?.trim() || null,
     staticRoot,
   };
   mkdirSync(config.uploadsDir, { recursive: true });

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { FloorModule } from '../floor/floor.module.js';
 import { MailModule } from '../mail/mail.module.js';
+import { WebhooksModule } from '../webhooks/webhooks.module.js';
 import { WorkModule } from '../work/work.module.js';
 import { AttachmentsController } from './attachments.controller.js';
 import { FindingsController } from './findings.controller.js';
@@ -10,7 +11,7 @@ import { PhotoStore } from './photo-store.js';
 import { ReadyNoticeController } from './ready-notice.controller.js';
 
 @Module({
-  imports: [FloorModule, WorkModule, MailModule],
+  imports: [FloorModule, WorkModule, MailModule, WebhooksModule],
   controllers: [FindingsController, AttachmentsController, ReadyNoticeController],
   providers: [FindingsService, NoticesService, PhotoStore],
 })

@@ -35,6 +35,7 @@ import { JobLinesService } from '../work/job-lines.service.js';
 import { NoticesService } from './notices.service.js';
 import { PhotoStore, type StoredPhoto } from './photo-store.js';
 import type { UploadedPhoto } from './photo-upload.js';
+import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 
 type LineRow = typeof jobLines.$inferSelect;
 type AttachmentRow = typeof attachments.$inferSelect;
@@ -71,6 +72,7 @@ export class FindingsService {
     private readonly lines: JobLinesService,
     private readonly photos: PhotoStore,
     private readonly notices: NoticesService,
+    private readonly webhooks: WebhookOutbox,
   ) {}
 
   async create(
@@ -242,6 +244,19 @@ export class FindingsService {
           body.answer === 'approved'
             ? { findingId: id, jobLineId: created?.id, title: created?.title, bookHours: body.bookHours }
             : { findingId: id, note: body.note ?? null },
+      },
+      now,
+    );
+
+    this.webhooks.announce(
+      'finding.answered',
+      {
+        findingId: id,
+        jobLineId: line.id,
+        repairOrderId: ro.id,
+        answer: body.answer,
+        answeredAt: now.toISOString(),
+        createdLineId: created?.id ?? null,
       },
       now,
     );

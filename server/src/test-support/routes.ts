@@ -58,5 +58,9 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/integration-keys', ['owner']],
   ['post', '/api/integration-keys', ['owner']],
   ['delete', '/api/integration-keys/999', ['owner']],
+  ['get', '/api/webhooks', ['owner']],
+  ['post', '/api/webhooks', ['owner']],
+  ['delete', '/api/webhooks/999', ['owner']],
+  ['get', '/api/webhooks/deliveries', ['owner']],
   ['get', '/api/mailbox/00000000-0000-4000-8000-000000000000', ['owner']],
 ];

@@ -12,6 +12,7 @@ import { FloorService } from '../floor/floor.service.js';
 import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
+import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 
 type LineRow = typeof jobLines.$inferSelect;
@@ -27,6 +28,7 @@ export class JobLinesService {
     private readonly floor: FloorService,
     private readonly access: LineAccessService,
     private readonly punches: PunchesService,
+    private readonly webhooks: WebhookOutbox,
   ) {}
 
   @Transactional()
@@ -126,19 +128,37 @@ export class JobLinesService {
     return this.announce(updated);
   }
 
-  /** The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO. */
+  /**
+   * The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO.
+   * Webhooks hear of the finished line and, with the last one, of the RO ready.
+   */
   private afterDone(line: LineRow, next: 'check' | 'ready', now: Date): void {
     const openInRo = this.db
       .select()
       .from(jobLines)
       .where(and(eq(jobLines.repairOrderId, line.repairOrderId), ne(jobLines.status, 'done')))
       .all();
-    if (openInRo.length === 0)
-      this.db
-        .update(repairOrders)
-        .set({ status: 'done' })
-        .where(eq(repairOrders.id, line.repairOrderId))
-        .run();
+    const ro = this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get()!;
+    const announced = { repairOrderId: ro.id, repairOrderNumber: ro.number, externalRef: ro.externalRef };
+    this.webhooks.announce(
+      'job-line.finished',
+      {
+        jobLineId: line.id,
+        ...announced,
+        title: line.title,
+        technicianId: line.technicianId,
+        completedAt: (line.completedAt ?? now).toISOString(),
+      },
+      now,
+    );
+    if (openInRo.length === 0) {
+      this.db.update(repairOrders).set({ status: 'done' }).where(eq(repairOrders.id, ro.id)).run();
+      this.webhooks.announce(
+        'repair-order.ready',
+        { ...announced, bayId: line.bayId, readyAt: now.toISOString() },
+        now,
+      );
+    }
     if (!line.bayId) return;
     const openInBay = this.db
       .select()

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { FloorModule } from '../floor/floor.module.js';
 import { PunchesModule } from '../punches/punches.module.js';
+import { WebhooksModule } from '../webhooks/webhooks.module.js';
 import { JobLinesController } from './job-lines.controller.js';
 import { JobLinesService } from './job-lines.service.js';
 import { OperationsController } from './operations.controller.js';
@@ -9,7 +10,7 @@ import { RepairOrdersController } from './repair-orders.controller.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
 @Module({
-  imports: [FloorModule, PunchesModule],
+  imports: [FloorModule, PunchesModule, WebhooksModule],
   controllers: [RepairOrdersController, JobLinesController, OperationsController],
   providers: [RepairOrdersService, JobLinesService, OperationsService],
   exports: [JobLinesService],

@@ -1,0 +1,167 @@
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type {
+  CreatedWebhook,
+  JobLineDto,
+  RepairOrderSummary,
+  Page,
+  WebhookDeliveryDto,
+  WebhookEnvelope,
+  WebhookEvent,
+} from '@baytime/shared';
+import { createApp } from '../app.js';
+import { DB, type Db } from '../db/database.js';
+import { webhookDeliveries } from '../db/schema/index.js';
+import { startHttpsReceiver, type HttpsReceiver, type ReceivedHook } from '../test-support/https-receiver.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { WebhookDeliverer } from './webhook-deliverer.service.js';
+import { signWebhook, verifyWebhook } from './webhook-signature.js';
+
+const envelope = (hook: ReceivedHook) => JSON.parse(hook.body) as WebhookEnvelope;
+const header = (hook: ReceivedHook, name: string) => String(hook.headers[name]);
+
+/** The foreman marks the first open line of an open RO done. */
+async function finishOpenLine(sut: TestApp): Promise<JobLineDto> {
+  const foreman = await sut.signIn(DEMO.foreman);
+  const open = (
+    await sut.http().get('/api/repair-orders?status=open').auth(foreman, { type: 'bearer' }).expect(200)
+  ).body as Page<RepairOrderSummary>;
+  const line = open.items.flatMap((ro) => ro.lines).find((l) => l.status !== 'done')!;
+  await sut
+    .http()
+    .patch(`/api/job-lines/${line.id}`)
+    .auth(foreman, { type: 'bearer' })
+    .send({ status: 'done' })
+    .expect(200);
+  return line;
+}
+
+describe('webhooks', () => {
+  let receiver: HttpsReceiver;
+  let sut: TestApp;
+  let owner: string;
+  let secret: string;
+
+  const register = (events: WebhookEvent[], url = receiver.url) =>
+    sut.http().post('/api/webhooks').auth(owner, { type: 'bearer' }).send({ url, events });
+  const deliveries = async () =>
+    (await sut.http().get('/api/webhooks/deliveries').auth(owner, { type: 'bearer' }).expect(200))
+      .body as Page<WebhookDeliveryDto>;
+  beforeAll(async () => {
+    receiver = await startHttpsReceiver();
+    sut = await startTestApp({ BAYTIME_WEBHOOK_CA_FILE: receiver.caFile });
+    owner = await sut.signIn(DEMO.owner);
+    const created = await register(['job-line.finished', 'repair-order.ready']).expect(201);
+    secret = (created.body as CreatedWebhook).secret;
+  });
+  afterAll(async () => {
+    await sut.close();
+    await receiver.close();
+  });
+
+  it('takes only https endpoints and shows the signing secret once', async () => {
+    const refused = await register(['job-line.finished'], 'http://localhost:9/hooks').expect(400);
+    expect(refused.body.issues).toEqual([{ path: ['url'], message: 'An https:// address' }]);
+    expect(secret).toMatch(/^whsec_[A-Za-z0-9_-]{43}$/);
+    const listed = await sut.http().get('/api/webhooks').auth(owner, { type: 'bearer' }).expect(200);
+    expect(JSON.stringify(listed.body)).not.toContain(secret);
+  });
+
+  it('delivers a signed job-line.finished when a line is finished', async () => {
+    const line = await finishOpenLine(sut);
+    const hook = await receiver.next((h) => envelope(h).event === 'job-line.finished');
+    const timestamp = header(hook, 'x-baytime-timestamp');
+    expect(header(hook, 'x-baytime-signature')).toBe(signWebhook(secret, Number(timestamp), hook.body));
+    expect(verifyWebhook(secret, timestamp, hook.body, header(hook, 'x-baytime-signature'))).toBe(true);
+    expect(
+      verifyWebhook('whsec_someone-else', timestamp, hook.body, header(hook, 'x-baytime-signature')),
+    ).toBe(false);
+    expect(Math.abs(Date.now() / 1000 - Number(timestamp))).toBeLessThan(60);
+    expect(envelope(hook)).toMatchObject({
+      event: 'job-line.finished',
+      data: { jobLineId: line.id, title: line.title, externalRef: null },
+    });
+    const log = await deliveries();
+    const logged = log.items.find((d) => d.id === Number(header(hook, 'x-baytime-delivery')))!;
+    expect(logged).toMatchObject({ status: 'delivered', event: 'job-line.finished', url: receiver.url });
+    expect(logged.attempts.map((a) => [a.status, a.error])).toEqual([[204, null]]);
+  });
+
+  it('retries with back-off after a failed attempt and logs each one', async () => {
+    const deliverer = sut.app.get(WebhookDeliverer);
+    receiver.answers.push(503);
+    await finishOpenLine(sut);
+    const failed = await receiver.next(
+      (h) => envelope(h).event === 'job-line.finished' && h !== receiver.received[0],
+    );
+    const id = Number(header(failed, 'x-baytime-delivery'));
+    const pending = (await deliveries()).items.find((d) => d.id === id)!;
+    expect(pending.status).toBe('pending');
+    expect(pending.attempts.map((a) => [a.status, a.error])).toEqual([[503, 'The receiver answered 503']]);
+    const waitMs = Date.parse(pending.nextAttemptAt!) - Date.parse(pending.attempts[0]!.at);
+    expect(waitMs).toBeGreaterThanOrEqual(30_000);
+    expect(waitMs).toBeLessThan(60_000);
+
+    expect(await deliverer.flush(new Date(Date.now() + 1000))).toBe(0);
+    expect(await deliverer.flush(new Date(Date.parse(pending.nextAttemptAt!) + 1))).toBeGreaterThanOrEqual(1);
+    const retried = (await deliveries()).items.find((d) => d.id === id)!;
+    expect(retried.status).toBe('delivered');
+    expect(retried.attempts.map((a) => a.status)).toEqual([503, 204]);
+    const bodies = receiver.received
+      .filter((h) => header(h, 'x-baytime-delivery') === String(id))
+      .map((h) => h.body);
+    expect(new Set(bodies).size).toBe(1);
+  });
+
+  it('keeps a pending delivery across a restart and sends it once the server is back', async () => {
+    const db = sut.app.get<Db>(DB);
+    const seen = receiver.received.length;
+    receiver.answers.push(500);
+    await finishOpenLine(sut);
+    const first = await receiver.next((h) => receiver.received.indexOf(h) >= seen);
+    const id = Number(header(first, 'x-baytime-delivery'));
+    // The failed try is written down before the delivery is made due again.
+    await sut.app.get(WebhookDeliverer).flush(new Date(0));
+    db.update(webhookDeliveries).set({ nextAttemptAt: new Date() }).where(eq(webhookDeliveries.id, id)).run();
+
+    await sut.app.close();
+    sut.app = await createApp(sut.config, false);
+    await sut.app.listen(0, '127.0.0.1');
+    const again = await receiver.next(
+      (h) => receiver.received.indexOf(h) > seen && header(h, 'x-baytime-delivery') === String(id),
+    );
+    expect(again.body).toBe(first.body);
+    owner = await sut.signIn(DEMO.owner);
+    expect((await deliveries()).items.find((d) => d.id === id)!.status).toBe('delivered');
+  });
+});
+
+describe('webhook deliveries outside the tests', () => {
+  let receiver: HttpsReceiver;
+  let sut: TestApp;
+
+  beforeAll(async () => {
+    receiver = await startHttpsReceiver();
+    sut = await startTestApp();
+  });
+  afterAll(async () => {
+    await sut.close();
+    await receiver.close();
+  });
+
+  it('do not trust a certificate no public CA signed', async () => {
+    const owner = await sut.signIn(DEMO.owner);
+    await sut
+      .http()
+      .post('/api/webhooks')
+      .auth(owner, { type: 'bearer' })
+      .send({ url: receiver.url, events: ['job-line.finished'] })
+      .expect(201);
+    await finishOpenLine(sut);
+    await sut.app.get(WebhookDeliverer).flush();
+    const log = (await sut.http().get('/api/webhooks/deliveries').auth(owner, { type: 'bearer' }))
+      .body as Page<WebhookDeliveryDto>;
+    expect(log.items[0]!.attempts[0]).toMatchObject({ status: null, error: 'self-signed certificate' });
+    expect(receiver.received).toEqual([]);
+  });
+});
