@@ -16,6 +16,7 @@ import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
 import { PunchesModule } from './punches/punches.module.js';
+import { RepairOrderImportModule } from './repair-order-import/repair-order-import.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
@@ -58,6 +59,7 @@ export class AppModule {
         BoardModule,
         PunchesModule,
         WorkModule,
+        RepairOrderImportModule,
         VehiclesModule,
         TimecardsModule,
         ReportsModule,

@@ -28,3 +28,4 @@ export * from './vehicles/vehicle-lookup.schema.js';
 export * from './findings/findings-page.schema.js';
 export * from './integration/integration.schema.js';
 export * from './time/retry-delay.js';
+export * from './integration/repair-order-import.schema.js';

@@ -58,6 +58,8 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/integration-keys', ['owner']],
   ['post', '/api/integration-keys', ['owner']],
   ['delete', '/api/integration-keys/999', ['owner']],
+  ['post', '/api/repair-order-imports/preview', ['owner', 'foreman', 'advisor']],
+  ['post', '/api/repair-order-imports', ['owner', 'foreman', 'advisor']],
   ['get', '/api/webhooks', ['owner']],
   ['post', '/api/webhooks', ['owner']],
   ['delete', '/api/webhooks/999', ['owner']],

@@ -13,6 +13,6 @@ import { RepairOrdersService } from './repair-orders.service.js';
   imports: [FloorModule, PunchesModule, WebhooksModule],
   controllers: [RepairOrdersController, JobLinesController, OperationsController],
   providers: [RepairOrdersService, JobLinesService, OperationsService],
-  exports: [JobLinesService],
+  exports: [JobLinesService, RepairOrdersService],
 })
 export class WorkModule {}
