@@ -15,6 +15,7 @@ import { FindingsModule } from './findings/findings.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
+import { PayrollExportModule } from './payroll-export/payroll-export.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { RepairOrderImportModule } from './repair-order-import/repair-order-import.module.js';
 import { ReportsModule } from './reports/reports.module.js';
@@ -63,6 +64,7 @@ export class AppModule {
         VehiclesModule,
         TimecardsModule,
         ReportsModule,
+        PayrollExportModule,
         TimersModule,
         DispatchModule,
         FindingsModule,

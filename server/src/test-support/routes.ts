@@ -60,6 +60,7 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['delete', '/api/integration-keys/999', ['owner']],
   ['post', '/api/repair-order-imports/preview', ['owner', 'foreman', 'advisor']],
   ['post', '/api/repair-order-imports', ['owner', 'foreman', 'advisor']],
+  ['get', '/api/pay-weeks/2030-W02/payroll.csv', ['owner']],
   ['get', '/api/webhooks', ['owner']],
   ['post', '/api/webhooks', ['owner']],
   ['delete', '/api/webhooks/999', ['owner']],
