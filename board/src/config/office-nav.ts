@@ -40,6 +40,8 @@ export const OFFICE_NAV: readonly NavGroup[] = [
       { label: 'Operations menu', path: paths.admin.operations, roles: OWNER },
       { label: 'Wall screens', path: paths.admin.screens, roles: LEADS },
       { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
+      { label: 'Integration keys', path: paths.admin.integrationKeys, roles: OWNER },
+      { label: 'Webhooks', path: paths.admin.webhooks, roles: OWNER },
       { label: 'Test mailbox', path: paths.admin.mailbox, roles: OWNER },
     ],
   },

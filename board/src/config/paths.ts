@@ -7,6 +7,7 @@ export const paths = {
   dispatch: '/dispatch',
   repairOrders: '/repair-orders',
   repairOrderNew: '/repair-orders/new',
+  repairOrderImport: '/repair-orders/import',
   repairOrderDetail: '/repair-orders/:id',
   repairOrder: (id: number | string) => `/repair-orders/${id}`,
   timecards: '/timecards',
@@ -19,6 +20,8 @@ export const paths = {
     screens: '/admin/screens',
     shop: '/admin/shop',
     mailbox: '/admin/mailbox',
+    integrationKeys: '/admin/integration-keys',
+    webhooks: '/admin/webhooks',
   },
   /** The technicians' app, served by the same server. */
   kiosk: '/kiosk/',

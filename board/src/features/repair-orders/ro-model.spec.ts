@@ -56,6 +56,7 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     odometer: 81234,
     concern: 'Warning light on',
     status: 'open',
+    externalRef: null,
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
     lines: [jobLine()],

@@ -21,9 +21,12 @@ export function Component() {
         title="Repair orders"
         description="Every visit and its job lines."
         actions={
-          <Button appearance="primary" onClick={() => void navigate(paths.repairOrderNew)}>
-            New repair order
-          </Button>
+          <>
+            <Button onClick={() => void navigate(paths.repairOrderImport)}>Import from CSV</Button>
+            <Button appearance="primary" onClick={() => void navigate(paths.repairOrderNew)}>
+              New repair order
+            </Button>
+          </>
         }
       />
       <RepairOrdersTable

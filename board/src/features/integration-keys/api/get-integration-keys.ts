@@ -1,0 +1,15 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { IntegrationKeyDto } from '@baytime/shared';
+import { officeApi } from '@/lib/api-client';
+
+export function getIntegrationKeys(): Promise<IntegrationKeyDto[]> {
+  return officeApi.get<IntegrationKeyDto[]>('/integration-keys');
+}
+
+export const integrationKeysQueryOptions = () =>
+  queryOptions({ queryKey: ['integration-keys'], queryFn: getIntegrationKeys });
+
+/** Reloads now and then, so a key's last use shows without a reload. */
+export function useIntegrationKeys() {
+  return useQuery({ ...integrationKeysQueryOptions(), refetchInterval: 30_000 });
+}

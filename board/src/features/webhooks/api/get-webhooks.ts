@@ -1,0 +1,13 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { WebhookDto } from '@baytime/shared';
+import { officeApi } from '@/lib/api-client';
+
+export function getWebhooks(): Promise<WebhookDto[]> {
+  return officeApi.get<WebhookDto[]>('/webhooks');
+}
+
+export const webhooksQueryOptions = () => queryOptions({ queryKey: ['webhooks'], queryFn: getWebhooks });
+
+export function useWebhooks() {
+  return useQuery(webhooksQueryOptions());
+}
