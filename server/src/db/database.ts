@@ -25,11 +25,30 @@ export function openDatabase(file: string): Sqlite {
   const connection = new Database(file);
   connection.pragma('journal_mode = WAL');
   connection.pragma('synchronous = FULL');
-  connection.pragma('foreign_keys = ON');
   connection.pragma('busy_timeout = 5000');
   const db = drizzle(connection, { schema });
-  migrate(db, { migrationsFolder });
+  migrateWithTableRebuilds(connection, db);
+  connection.pragma('foreign_keys = ON');
   return { connection, db };
+}
+
+/**
+ * SQLite adds a foreign key or a CHECK to a table only by rebuilding it (copy, drop, rename), and a
+ * parent table cannot be dropped while foreign keys are enforced; the pragma is a no-op inside the
+ * migrator's transaction. So migrations run with foreign keys off, as SQLite's ALTER TABLE page
+ * describes for such changes, and start-up stops if any row then breaks a foreign key.
+ */
+function migrateWithTableRebuilds(connection: Database.Database, db: Db): void {
+  connection.pragma('foreign_keys = OFF');
+  migrate(db, { migrationsFolder });
+  const broken = connection.pragma('foreign_key_check') as { table: string; rowid: number; parent: string }[];
+  if (broken.length)
+    throw new Error(
+      `A migration left rows that break foreign keys: ${broken
+        .slice(0, 5)
+        .map((row) => `${row.table} row ${row.rowid} → ${row.parent}`)
+        .join(', ')}`,
+    );
 }
 
 export function countRows(db: Db, table: AnySQLiteTable): number {

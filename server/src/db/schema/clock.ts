@@ -1,5 +1,14 @@
-import { sqliteTable, integer, real, text, index } from 'drizzle-orm/sqlite-core';
+import {
+  sqliteTable,
+  integer,
+  real,
+  text,
+  index,
+  uniqueIndex,
+  type AnySQLiteColumn,
+} from 'drizzle-orm/sqlite-core';
 import { BREAK_KINDS, PUNCH_KINDS, TIMER_KINDS } from '@baytime/shared';
+import { oneOf } from './checks.js';
 import { users } from './people.js';
 import { bays, jobLines } from './work.js';
 
@@ -22,13 +31,17 @@ export const punches = sqliteTable(
     recordedBy: integer('recorded_by')
       .notNull()
       .references(() => users.id),
-    supersedes: text('supersedes'),
+    /** A punch is superseded at most once: a later correction supersedes the newer record. */
+    supersedes: text('supersedes').references((): AnySQLiteColumn => punches.id),
     reason: text('reason'),
   },
   (t) => [
     index('punches_technician_id_at_idx').on(t.technicianId, t.at),
     index('punches_job_line_id_at_idx').on(t.jobLineId, t.at),
     index('punches_at_idx').on(t.at),
+    uniqueIndex('punches_supersedes_idx').on(t.supersedes),
+    oneOf(t.kind, PUNCH_KINDS),
+    oneOf(t.breakKind, BREAK_KINDS),
   ],
 );
 
@@ -52,7 +65,7 @@ export const timers = sqliteTable(
     reachedAt: integer('reached_at', { mode: 'timestamp_ms' }),
     endedAt: integer('ended_at', { mode: 'timestamp_ms' }),
   },
-  (t) => [index('timers_bay_id_ended_at_idx').on(t.bayId, t.endedAt)],
+  (t) => [index('timers_bay_id_ended_at_idx').on(t.bayId, t.endedAt), oneOf(t.kind, TIMER_KINDS)],
 );
 
 export const timerReadings = sqliteTable(

@@ -1,5 +1,6 @@
 import { sqliteTable, integer, real, text, index } from 'drizzle-orm/sqlite-core';
 import { FINDING_ANSWERS, FINDING_SEVERITIES } from '@baytime/shared';
+import { oneOf } from './checks.js';
 import { users } from './people.js';
 import { jobLines } from './work.js';
 
@@ -27,6 +28,8 @@ export const findings = sqliteTable(
     // The inbox pages newest first, by answer or not.
     index('findings_answer_created_at_idx').on(t.answer, t.createdAt),
     index('findings_created_at_idx').on(t.createdAt),
+    oneOf(t.severity, FINDING_SEVERITIES),
+    oneOf(t.answer, FINDING_ANSWERS),
   ],
 );
 

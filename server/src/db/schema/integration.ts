@@ -5,6 +5,7 @@ import {
   type IntegrationScope,
   type WebhookEvent,
 } from '@baytime/shared';
+import { oneOf } from './checks.js';
 import { users } from './people.js';
 
 /** A key another system calls the API with. Only a hash of the key is kept; the key is shown once. */
@@ -64,6 +65,8 @@ export const webhookDeliveries = sqliteTable(
   (t) => [
     index('webhook_deliveries_status_next_attempt_at_idx').on(t.status, t.nextAttemptAt),
     index('webhook_deliveries_created_at_idx').on(t.createdAt),
+    oneOf(t.event, WEBHOOK_EVENTS),
+    oneOf(t.status, WEBHOOK_DELIVERY_STATUSES),
   ],
 );
 

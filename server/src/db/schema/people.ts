@@ -1,5 +1,6 @@
 import { sqliteTable, integer, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { ROLES } from '@baytime/shared';
+import { oneOf } from './checks.js';
 
 export const users = sqliteTable(
   'users',
@@ -18,7 +19,11 @@ export const users = sqliteTable(
     active: integer('active', { mode: 'boolean' }).notNull().default(true),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
   },
-  (t) => [uniqueIndex('users_email_idx').on(t.email), uniqueIndex('users_badge_idx').on(t.badge)],
+  (t) => [
+    uniqueIndex('users_email_idx').on(t.email),
+    uniqueIndex('users_badge_idx').on(t.badge),
+    oneOf(t.role, ROLES),
+  ],
 );
 
 /** A wall screen: paired once with a one-time code, then signs in with a display token. */

@@ -1,5 +1,6 @@
 import { sqliteTable, integer, text, index } from 'drizzle-orm/sqlite-core';
 import { integrationKeys } from './integration.js';
+import { oneOf } from './checks.js';
 import { users } from './people.js';
 
 export const auditLog = sqliteTable(
@@ -35,5 +36,8 @@ export const mailOutbox = sqliteTable(
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
     sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
   },
-  (t) => [index('mail_outbox_status_next_attempt_at_idx').on(t.status, t.nextAttemptAt)],
+  (t) => [
+    index('mail_outbox_status_next_attempt_at_idx').on(t.status, t.nextAttemptAt),
+    oneOf(t.status, MAIL_STATUSES),
+  ],
 );

@@ -1,26 +1,35 @@
 import { sqliteTable, integer, real, text } from 'drizzle-orm/sqlite-core';
+import { oneOf } from './checks.js';
 import { CONCURRENT_SPLITS, OVERTIME_RULES, UNIT_SYSTEMS, type OpeningHours } from '@baytime/shared';
 
 /** One row (id 1): the shop's settings. */
-export const shopSettings = sqliteTable('shop_settings', {
-  id: integer('id').primaryKey(),
-  name: text('name').notNull(),
-  timeZone: text('time_zone').notNull(),
-  workweekStartDay: integer('workweek_start_day').notNull(),
-  workweekStartHour: integer('workweek_start_hour').notNull(),
-  units: text('units', { enum: UNIT_SYSTEMS }).notNull(),
-  maxConcurrentJobs: integer('max_concurrent_jobs').notNull(),
-  concurrentSplit: text('concurrent_split', { enum: CONCURRENT_SPLITS }).notNull(),
-  minimumWageCents: integer('minimum_wage_cents').notNull(),
-  overtimeRules: text('overtime_rules', { enum: OVERTIME_RULES }).notNull(),
-  openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningHours>().notNull(),
-  kioskIdleSeconds: integer('kiosk_idle_seconds').notNull(),
-  payNonProductiveSeparately: integer('pay_non_productive_separately', { mode: 'boolean' }).notNull(),
-  techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
-    .notNull()
-    .default(true),
-  updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
-});
+export const shopSettings = sqliteTable(
+  'shop_settings',
+  {
+    id: integer('id').primaryKey(),
+    name: text('name').notNull(),
+    timeZone: text('time_zone').notNull(),
+    workweekStartDay: integer('workweek_start_day').notNull(),
+    workweekStartHour: integer('workweek_start_hour').notNull(),
+    units: text('units', { enum: UNIT_SYSTEMS }).notNull(),
+    maxConcurrentJobs: integer('max_concurrent_jobs').notNull(),
+    concurrentSplit: text('concurrent_split', { enum: CONCURRENT_SPLITS }).notNull(),
+    minimumWageCents: integer('minimum_wage_cents').notNull(),
+    overtimeRules: text('overtime_rules', { enum: OVERTIME_RULES }).notNull(),
+    openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningHours>().notNull(),
+    kioskIdleSeconds: integer('kiosk_idle_seconds').notNull(),
+    payNonProductiveSeparately: integer('pay_non_productive_separately', { mode: 'boolean' }).notNull(),
+    techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
+      .notNull()
+      .default(true),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [
+    oneOf(t.units, UNIT_SYSTEMS),
+    oneOf(t.concurrentSplit, CONCURRENT_SPLITS),
+    oneOf(t.overtimeRules, OVERTIME_RULES),
+  ],
+);
 
 export const holdPresets = sqliteTable('hold_presets', {
   id: integer('id').primaryKey({ autoIncrement: true }),

@@ -1,5 +1,13 @@
 import { sql } from 'drizzle-orm';
-import { sqliteTable, integer, real, text, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import {
+  sqliteTable,
+  integer,
+  real,
+  text,
+  index,
+  uniqueIndex,
+  type AnySQLiteColumn,
+} from 'drizzle-orm/sqlite-core';
 import {
   BAY_KINDS,
   HOLD_REASONS,
@@ -7,6 +15,7 @@ import {
   PRIORITIES,
   REPAIR_ORDER_STATUSES,
 } from '@baytime/shared';
+import { oneOf } from './checks.js';
 import { users } from './people.js';
 
 export const BAY_PHASES = ['free', 'staged', 'check', 'ready'] as const;
@@ -40,16 +49,25 @@ export const vehicles = sqliteTable(
  * A bay's own phase; the board shows `timer`, `working` or `held` on top of it when a timer runs,
  * someone is clocked on, or the line in the bay is held.
  */
-export const bays = sqliteTable('bays', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  name: text('name').notNull(),
-  kind: text('kind', { enum: BAY_KINDS }).notNull().default('two-post'),
-  position: integer('position').notNull().default(0),
-  active: integer('active', { mode: 'boolean' }).notNull().default(true),
-  phase: text('phase', { enum: BAY_PHASES }).notNull().default('free'),
-  phaseSince: integer('phase_since', { mode: 'timestamp_ms' }).notNull(),
-  repairOrderId: integer('repair_order_id'),
-});
+export const bays = sqliteTable(
+  'bays',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    name: text('name').notNull(),
+    kind: text('kind', { enum: BAY_KINDS }).notNull().default('two-post'),
+    position: integer('position').notNull().default(0),
+    active: integer('active', { mode: 'boolean' }).notNull().default(true),
+    phase: text('phase', { enum: BAY_PHASES }).notNull().default('free'),
+    phaseSince: integer('phase_since', { mode: 'timestamp_ms' }).notNull(),
+    repairOrderId: integer('repair_order_id').references((): AnySQLiteColumn => repairOrders.id),
+  },
+  (t) => [
+    // Unique among all bays, active or not, as the owner's form checks: a past bay's name stays its own.
+    uniqueIndex('bays_name_idx').on(t.name),
+    oneOf(t.kind, BAY_KINDS),
+    oneOf(t.phase, BAY_PHASES),
+  ],
+);
 
 export const repairOrders = sqliteTable(
   'repair_orders',
@@ -90,6 +108,7 @@ export const repairOrders = sqliteTable(
     index('repair_orders_promised_at_idx').on(t.promisedAt),
     // A returning vehicle's last visit.
     index('repair_orders_vehicle_id_created_at_idx').on(t.vehicleId, t.createdAt),
+    oneOf(t.status, REPAIR_ORDER_STATUSES),
   ],
 );
 
@@ -125,5 +144,8 @@ export const jobLines = sqliteTable(
       .on(t.repairOrderId)
       .where(sql`${t.status} != 'done'`),
     index('job_lines_completed_at_idx').on(t.completedAt),
+    oneOf(t.status, JOB_LINE_STATUSES),
+    oneOf(t.holdReason, HOLD_REASONS),
+    oneOf(t.priority, PRIORITIES),
   ],
 );
