@@ -1,4 +1,6 @@
 import { Module } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module.js';
+import { ShopModule } from '../shop/shop.module.js';
 import { FloorModule } from '../floor/floor.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { WebhooksModule } from '../webhooks/webhooks.module.js';
@@ -11,7 +13,7 @@ import { PhotoStore } from './photo-store.js';
 import { ReadyNoticeController } from './ready-notice.controller.js';
 
 @Module({
-  imports: [FloorModule, WorkModule, MailModule, WebhooksModule],
+  imports: [AuditModule, ShopModule, FloorModule, WorkModule, MailModule, WebhooksModule],
   controllers: [FindingsController, AttachmentsController, ReadyNoticeController],
   providers: [FindingsService, NoticesService, PhotoStore],
 })

@@ -1,6 +1,11 @@
 import { Module } from '@nestjs/common';
+import { ShopModule } from '../shop/shop.module.js';
 import { FloorService } from './floor.service.js';
 import { LineAccessService } from './line-access.service.js';
 
-@Module({ providers: [FloorService, LineAccessService], exports: [FloorService, LineAccessService] })
+@Module({
+  imports: [ShopModule],
+  providers: [FloorService, LineAccessService],
+  exports: [FloorService, LineAccessService],
+})
 export class FloorModule {}

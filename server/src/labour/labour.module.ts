@@ -1,6 +1,6 @@
-import { Global, Module } from '@nestjs/common';
+import { Module } from '@nestjs/common';
+import { ShopModule } from '../shop/shop.module.js';
 import { LabourService } from './labour.service.js';
 
-@Global()
-@Module({ providers: [LabourService], exports: [LabourService] })
+@Module({ imports: [ShopModule], providers: [LabourService], exports: [LabourService] })
 export class LabourModule {}

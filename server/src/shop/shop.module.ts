@@ -1,7 +1,12 @@
-import { Global, Module } from '@nestjs/common';
+import { Module } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module.js';
 import { ShopController } from './shop.controller.js';
 import { ShopService } from './shop.service.js';
 
-@Global()
-@Module({ controllers: [ShopController], providers: [ShopService], exports: [ShopService] })
+@Module({
+  imports: [AuditModule],
+  controllers: [ShopController],
+  providers: [ShopService],
+  exports: [ShopService],
+})
 export class ShopModule {}

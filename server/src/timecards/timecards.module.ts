@@ -1,7 +1,13 @@
 import { Module } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module.js';
+import { ShopModule } from '../shop/shop.module.js';
 import { FloorModule } from '../floor/floor.module.js';
 import { TimecardsController } from './timecards.controller.js';
 import { TimecardsService } from './timecards.service.js';
 
-@Module({ imports: [FloorModule], controllers: [TimecardsController], providers: [TimecardsService] })
+@Module({
+  imports: [AuditModule, ShopModule, FloorModule],
+  controllers: [TimecardsController],
+  providers: [TimecardsService],
+})
 export class TimecardsModule {}
