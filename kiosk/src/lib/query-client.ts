@@ -9,7 +9,6 @@ export const queryClient = new QueryClient({
         if (error instanceof ApiError && !error.isNetwork && error.status < 500) return false;
         return failureCount < 3;
       },
-      retryDelay: (attempt) => Math.min(1000 * 2 ** attempt, 15_000),
     },
     // Commands go now or fail now with a message: a paused mutation would leave a tech looking at
     // "Sending…" with no idea whether the tap counted. (Punches have their own durable outbox.)

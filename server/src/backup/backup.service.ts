@@ -1,4 +1,5 @@
-import { Inject, Injectable, Logger, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import { Inject, Injectable, Logger, type OnModuleInit } from '@nestjs/common';
+import { SchedulerRegistry } from '@nestjs/schedule';
 import { readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
@@ -26,28 +27,26 @@ export function backupSchedule(env: NodeJS.ProcessEnv = process.env): BackupSche
  * data dir's backups folder on a schedule, keeping the newest `keep` files.
  */
 @Injectable()
-export class BackupService implements OnModuleInit, OnModuleDestroy {
+export class BackupService implements OnModuleInit {
   private readonly logger = new Logger(BackupService.name);
-  private timer: NodeJS.Timeout | null = null;
   private readonly schedule = backupSchedule();
 
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     @Inject(SQLITE) private readonly sqlite: Sqlite,
+    private readonly scheduler: SchedulerRegistry,
   ) {}
 
+  /** The interval is read from the environment, so it is added to Nest's scheduler here, which stops it on shutdown. */
   onModuleInit(): void {
     if (!this.schedule.everyMs) return;
-    this.timer = setInterval(
+    const backups = setInterval(
       () =>
         void this.backupNow().catch((error: Error) => this.logger.error(`Backup failed: ${error.message}`)),
       this.schedule.everyMs,
     );
-    this.timer.unref();
-  }
-
-  onModuleDestroy(): void {
-    if (this.timer) clearInterval(this.timer);
+    backups.unref();
+    this.scheduler.addInterval('backups', backups);
   }
 
   async backupNow(now = new Date()): Promise<string> {

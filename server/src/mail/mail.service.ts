@@ -5,11 +5,13 @@ import {
   type OnApplicationBootstrap,
   type OnModuleDestroy,
 } from '@nestjs/common';
+import { Interval } from '@nestjs/schedule';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import { createTransport, type Transporter } from 'nodemailer';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { DB, type Db } from '../db/database.js';
 import { mailOutbox, users } from '../db/schema/index.js';
+import { retryDelayMs } from '@baytime/shared';
 import { ShopService } from '../shop/shop.service.js';
 import { MailboxService } from './mailbox.service.js';
 
@@ -25,14 +27,11 @@ export type OutboxRow = typeof mailOutbox.$inferSelect;
 
 /** After this many failed attempts a message is marked `failed` and left alone. */
 export const MAX_MAIL_ATTEMPTS = 8;
-const FIRST_RETRY_MS = 60_000;
 const SEND_EVERY_MS = 15_000;
 const BATCH = 25;
 
-/** Exponential back-off: 1, 2, 4 … 64 minutes after the 1st … 7th failed attempt. */
-export function retryDelayMs(failedAttempts: number): number {
-  return FIRST_RETRY_MS * 2 ** Math.max(0, failedAttempts - 1);
-}
+/** Back-off: 1, 2, 4 … 64 minutes after the 1st … 7th failed attempt. */
+export const MAIL_RETRY = { firstMs: 60_000, maxMs: 64 * 60_000 };
 
 /**
  * An outbox in SQLite: `queue` stores a message and returns at once; a background loop sends what is
@@ -43,7 +42,6 @@ export function retryDelayMs(failedAttempts: number): number {
 export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('Mail');
   private transport: Transporter | null = null;
-  private timer: NodeJS.Timeout | null = null;
   private chain: Promise<unknown> = Promise.resolve();
   private pendingFlushes = 0;
   private stopped = false;
@@ -65,14 +63,11 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
       greetingTimeout: 10_000,
       socketTimeout: 30_000,
     });
-    this.timer = setInterval(() => this.kick(), SEND_EVERY_MS);
-    this.timer.unref();
     this.kick();
   }
 
   async onModuleDestroy(): Promise<void> {
     this.stopped = true;
-    if (this.timer) clearInterval(this.timer);
     await this.chain;
     this.transport?.close();
     await this.mailbox.stop();
@@ -108,8 +103,12 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
     return run;
   }
 
-  /** One flush running and one waiting is enough to pick up everything queued meanwhile. */
-  private kick(): void {
+  /**
+   * Sends what is due, now and on every tick (retries whose wait is over). One flush running and one
+   * waiting is enough to pick up everything queued meanwhile.
+   */
+  @Interval(SEND_EVERY_MS)
+  kick(): void {
     if (this.stopped || !this.transport || this.pendingFlushes > 1) return;
     this.flush().catch((error: unknown) => this.logger.error(`Sending mail failed: ${String(error)}`));
   }
@@ -153,7 +152,9 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
             attempts,
             lastError: reason.slice(0, 500),
             status: failed ? 'failed' : 'queued',
-            nextAttemptAt: failed ? mail.nextAttemptAt : new Date(now.getTime() + retryDelayMs(attempts)),
+            nextAttemptAt: failed
+              ? mail.nextAttemptAt
+              : new Date(now.getTime() + retryDelayMs(attempts, MAIL_RETRY)),
           })
           .where(eq(mailOutbox.id, mail.id))
           .run();

@@ -6,12 +6,19 @@ import MailComposer from 'nodemailer/lib/mail-composer';
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { FindingDto, MailboxEntry, MailboxMessage, MailQueued, MyDay } from '@baytime/shared';
+import {
+  retryDelayMs,
+  type FindingDto,
+  type MailboxEntry,
+  type MailboxMessage,
+  type MailQueued,
+  type MyDay,
+} from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { customers, jobLines, mailOutbox, repairOrders } from '../db/schema/index.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { MAX_MAIL_ATTEMPTS, MailService, retryDelayMs } from './mail.service.js';
-import { parseMail } from './mime.js';
+import { MAIL_RETRY, MAX_MAIL_ATTEMPTS, MailService } from './mail.service.js';
+import { readMail } from './read-mail.js';
 
 /** A loopback port nothing listens on: connecting to it is refused at once. */
 async function deadPort(): Promise<number> {
@@ -33,7 +40,7 @@ async function eventually<T>(probe: () => Promise<T | undefined>, timeoutMs = 50
 }
 
 describe(MailService.name, () => {
-  describe('parseMail', () => {
+  describe('readMail', () => {
     it('reads back what nodemailer composes: encoded subject, quoted-printable text, attachment names', async () => {
       const raw = await new MailComposer({
         from: '"Marlow Creek Auto Care" <owner@marlowcreek.test>',
@@ -47,7 +54,7 @@ describe(MailService.name, () => {
       })
         .compile()
         .build();
-      const parsed = parseMail(raw);
+      const parsed = await readMail(raw);
       expect(parsed.subject).toBe('Approval needed – Bremsbeläge für RO 4521');
       expect(parsed.to).toEqual(['harriet@example.test', '"Quenby, H." <h.q@example.test>']);
       expect(parsed.text.trim()).toBe(
@@ -176,7 +183,9 @@ describe(MailService.name, () => {
     afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
 
     it('retries with exponential back-off and keeps the message across a restart', async () => {
-      expect([1, 2, 3, 7].map(retryDelayMs)).toEqual([60_000, 120_000, 240_000, 3_840_000]);
+      expect([1, 2, 3, 7].map((failed) => retryDelayMs(failed, MAIL_RETRY))).toEqual([
+        60_000, 120_000, 240_000, 3_840_000,
+      ]);
       const broken = await startTestApp({
         BAYTIME_DATA_DIR: dataDir,
         BAYTIME_SMTP_URL: `smtp://127.0.0.1:${await deadPort()}`,

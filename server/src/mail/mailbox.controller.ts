@@ -22,7 +22,7 @@ export class MailboxController {
   }
 
   @Get(':id')
-  get(@Param('id', { schema: z.uuid('A message id is a uuid') }) id: string): MailboxMessage {
+  get(@Param('id', { schema: z.uuid('A message id is a uuid') }) id: string): Promise<MailboxMessage> {
     return this.mailbox.get(id);
   }
 }

@@ -7,7 +7,7 @@ import { SMTPServer, type SMTPServerAddress, type SMTPServerSession } from 'smtp
 import type { MailboxEntry, MailboxMessage, Page, PageQuery } from '@baytime/shared';
 import { decodeCursor, toPage } from '../common/paging.js';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
-import { parseMail } from './mime.js';
+import { readMail } from './read-mail.js';
 
 const MAX_MESSAGE_BYTES = 80 * 1024 * 1024;
 
@@ -46,12 +46,10 @@ export class MailboxService {
         stream.on('error', (error) => callback(error));
         stream.on('end', () => {
           if (stream.sizeExceeded) return callback(new Error('The message is too large'));
-          try {
-            this.store(Buffer.concat(chunks), session);
-            callback();
-          } catch (error) {
-            callback(error as Error);
-          }
+          this.store(Buffer.concat(chunks), session).then(
+            () => callback(),
+            (error: unknown) => callback(error as Error),
+          );
         });
       },
     });
@@ -93,15 +91,15 @@ export class MailboxService {
     );
   }
 
-  get(id: string): MailboxMessage {
+  async get(id: string): Promise<MailboxMessage> {
     const entry = this.index().find((e) => e.id === id);
     const file = join(this.dir, `${id}.eml`);
     if (!entry || !existsSync(file)) throw new NotFoundException('Message not found');
-    return { ...entry, text: parseMail(readFileSync(file)).text };
+    return { ...entry, text: (await readMail(readFileSync(file))).text };
   }
 
-  private store(raw: Buffer, session: SMTPServerSession): void {
-    const parsed = parseMail(raw);
+  private async store(raw: Buffer, session: SMTPServerSession): Promise<void> {
+    const parsed = await readMail(raw);
     const id = randomUUID();
     writeFileSync(join(this.dir, `${id}.eml`), raw);
     const envelopeFrom = session.envelope.mailFrom;

@@ -1,12 +1,5 @@
-import {
-  BadRequestException,
-  ConflictException,
-  Inject,
-  Injectable,
-  type OnModuleDestroy,
-  type OnModuleInit,
-  Logger,
-} from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable, Logger } from '@nestjs/common';
+import { Interval } from '@nestjs/schedule';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
 import type {
   HoldPresetBody,
@@ -31,10 +24,8 @@ import { reachesTarget, toTimerDto } from './timer-view.js';
 const TICK_MS = 1000;
 
 @Injectable()
-export class TimersService implements OnModuleInit, OnModuleDestroy {
+export class TimersService {
   private readonly logger = new Logger(TimersService.name);
-  private ticker: NodeJS.Timeout | null = null;
-
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
@@ -45,16 +36,9 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
   ) {}
 
   /** Fixed holds end on their own: a tick marks them reached so screens and kiosks hear it. */
-  onModuleInit(): void {
-    this.ticker = setInterval(
-      () => keepServing(this.logger, 'Ending fixed waits', () => this.markEndedHolds()),
-      TICK_MS,
-    );
-    this.ticker.unref();
-  }
-
-  onModuleDestroy(): void {
-    if (this.ticker) clearInterval(this.ticker);
+  @Interval(TICK_MS)
+  endFixedWaits(): void {
+    keepServing(this.logger, 'Ending fixed waits', () => this.markEndedHolds());
   }
 
   running(now = new Date()): TimerDto[] {

@@ -1,4 +1,4 @@
-import type { BreakKind, PunchKind } from '@baytime/shared';
+import { retryDelayMs, type BreakKind, type PunchKind } from '@baytime/shared';
 
 /**
  * The tablet's durable queue of punches. A tap is written here before anything else, so a punch
@@ -177,14 +177,14 @@ export function classifyFailure(status: number, message: string): SendOutcome {
   return { kind: 'refused', message };
 }
 
-const BACKOFF_BASE_MS = 1_000;
-const BACKOFF_MAX_MS = 60_000;
+const PUNCH_RETRY = { firstMs: 1_000, maxMs: 60_000 };
 
-/** Exponential backoff with ±20 % jitter, so tablets that lost the link together don't retry together. */
+/**
+ * The shared back-off (1 s doubling to a minute) with ±20 % jitter, so tablets that lost the link
+ * together don't retry together; `random` is injectable so the outbox's tests are exact.
+ */
 export function backoffMs(attempts: number, random: () => number = Math.random): number {
-  const exponent = Math.max(0, attempts - 1);
-  const base = Math.min(BACKOFF_MAX_MS, BACKOFF_BASE_MS * 2 ** Math.min(exponent, 16));
-  return Math.round(base * (0.8 + 0.4 * random()));
+  return Math.round(retryDelayMs(attempts, PUNCH_RETRY) * (0.8 + 0.4 * random()));
 }
 
 export interface DrainOptions {
