@@ -28,9 +28,15 @@ export interface ApiClientOptions {
 
 export type ApiClient = ReturnType<typeof createApiClient>;
 
+/** A file the server sent: its bytes and its Content-Disposition header (which may name it). */
+export interface ApiFile {
+  blob: Blob;
+  disposition: string | null;
+}
+
 export function createApiClient({ baseUrl = '/api', getToken, onUnauthorized }: ApiClientOptions) {
-  async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
-    const headers: Record<string, string> = { Accept: 'application/json' };
+  async function send(method: string, path: string, body: unknown, accept: string): Promise<Response> {
+    const headers: Record<string, string> = { Accept: accept };
     const token = getToken();
     if (token) headers.Authorization = `Bearer ${token}`;
     const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
@@ -48,6 +54,11 @@ export function createApiClient({ baseUrl = '/api', getToken, onUnauthorized }: 
     }
     if (response.status === 401) onUnauthorized?.();
     if (!response.ok) throw await toApiError(response);
+    return response;
+  }
+
+  async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
+    const response = await send(method, path, body, 'application/json');
     if (response.status === 204) return undefined as T;
     const type = response.headers.get('content-type') ?? '';
     return (type.includes('application/json') ? await response.json() : await response.text()) as T;
@@ -58,6 +69,11 @@ export function createApiClient({ baseUrl = '/api', getToken, onUnauthorized }: 
     post: <T>(path: string, body?: unknown) => request<T>('POST', path, body),
     patch: <T>(path: string, body?: unknown) => request<T>('PATCH', path, body),
     delete: <T>(path: string) => request<T>('DELETE', path),
+    /** A download (CSV, photo): the bytes as a Blob, with the same token and errors as every call. */
+    blob: async (path: string, accept = '*/*'): Promise<ApiFile> => {
+      const response = await send('GET', path, undefined, accept);
+      return { blob: await response.blob(), disposition: response.headers.get('content-disposition') };
+    },
   };
 }
 

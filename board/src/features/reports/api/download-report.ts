@@ -1,6 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { ApiError } from '@baytime/shared/client';
-import { officeToken } from '@/lib/token-store';
+import { officeApi } from '@/lib/api-client';
 import { filenameFrom } from '../report-format';
 
 export type ReportKind = 'labour' | 'pay';
@@ -10,22 +9,12 @@ export type ReportKind = 'labour' | 'pay';
  * under the name the server gives.
  */
 export async function downloadReportCsv({ kind, week }: { kind: ReportKind; week: string }): Promise<string> {
-  const token = officeToken.get();
-  let response: Response;
-  try {
-    response = await fetch(`/api/reports/${kind}?week=${encodeURIComponent(week)}&format=csv`, {
-      headers: { Accept: 'text/csv', ...(token ? { Authorization: `Bearer ${token}` } : {}) },
-    });
-  } catch {
-    throw new ApiError(0, 'No connection to the shop server');
-  }
-  if (response.status === 401) officeToken.clear();
-  if (!response.ok) {
-    const body = (await response.json().catch(() => ({}))) as { message?: string };
-    throw new ApiError(response.status, body.message ?? response.statusText);
-  }
-  const name = filenameFrom(response.headers.get('content-disposition'), `baytime-${kind}-${week}.csv`);
-  const url = URL.createObjectURL(await response.blob());
+  const { blob, disposition } = await officeApi.blob(
+    `/reports/${kind}?week=${encodeURIComponent(week)}&format=csv`,
+    'text/csv',
+  );
+  const name = filenameFrom(disposition, `baytime-${kind}-${week}.csv`);
+  const url = URL.createObjectURL(blob);
   try {
     const link = document.createElement('a');
     link.href = url;
