@@ -1,13 +1,14 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type {
-  CreatedWebhook,
-  JobLineDto,
-  RepairOrderSummary,
-  Page,
-  WebhookDeliveryDto,
-  WebhookEnvelope,
-  WebhookEvent,
+import {
+  makeVin,
+  type CreatedWebhook,
+  type JobLineDto,
+  type Page,
+  type RepairOrderSummary,
+  type WebhookDeliveryDto,
+  type WebhookEnvelope,
+  type WebhookEvent,
 } from '@baytime/shared';
 import { createApp } from '../app.js';
 import { DB, type Db } from '../db/database.js';
@@ -111,6 +112,65 @@ describe('webhooks', () => {
       .filter((h) => header(h, 'x-baytime-delivery') === String(id))
       .map((h) => h.body);
     expect(new Set(bodies).size).toBe(1);
+  });
+
+  it('announces an RO ready when its last line is finished, and a finding answered', async () => {
+    await register(['repair-order.ready', 'finding.answered']).expect(201);
+    const foreman = await sut.signIn(DEMO.foreman);
+    const ro = (
+      await sut
+        .http()
+        .post('/api/repair-orders')
+        .auth(foreman, { type: 'bearer' })
+        .send({
+          externalRef: 'HOOK-READY-1',
+          customer: { name: 'Ada Fenwick' },
+          vehicle: {
+            vin: makeVin('1HGCM826A0043521'),
+            year: 2010,
+            make: 'Corvane',
+            model: 'Sprite',
+            odometer: 90_000,
+          },
+          concern: 'Wipers',
+          lines: [{ title: 'Replace wiper blades', bookHours: 0.3 }],
+        })
+        .expect(201)
+    ).body as RepairOrderSummary;
+    const lineId = ro.lines[0]!.id;
+    const finding = await sut
+      .http()
+      .post(`/api/job-lines/${lineId}/findings`)
+      .auth(foreman, { type: 'bearer' })
+      .field('note', 'Washer jet blocked')
+      .field('severity', 'watch')
+      .expect(201);
+    const advisor = await sut.signIn(DEMO.advisor);
+    await sut
+      .http()
+      .post(`/api/findings/${(finding.body as { id: number }).id}/answer`)
+      .auth(advisor, { type: 'bearer' })
+      .send({ answer: 'declined' })
+      .expect(200);
+    await sut
+      .http()
+      .patch(`/api/job-lines/${lineId}`)
+      .auth(foreman, { type: 'bearer' })
+      .send({ status: 'done' })
+      .expect(200);
+
+    const answered = await receiver.next((h) => envelope(h).event === 'finding.answered');
+    expect(envelope(answered).data).toMatchObject({
+      jobLineId: lineId,
+      repairOrderId: ro.id,
+      answer: 'declined',
+    });
+    const ready = await receiver.next(
+      (h) =>
+        envelope(h).event === 'repair-order.ready' &&
+        (envelope(h).data as { repairOrderId: number }).repairOrderId === ro.id,
+    );
+    expect(envelope(ready).data).toMatchObject({ repairOrderId: ro.id, externalRef: 'HOOK-READY-1' });
   });
 
   it('keeps a pending delivery across a restart and sends it once the server is back', async () => {
