@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   resolve: { conditions: ['@baytime/source'] },
+  ssr: { resolve: { conditions: ['@baytime/source'] } },
   test: {
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
