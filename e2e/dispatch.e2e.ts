@@ -61,13 +61,13 @@ describe('repair-order intake and dispatch', () => {
     await line2.getByPlaceholder(/Search the menu/).fill('Road test and report');
     await line2.getByLabel('Line 2 book hours').fill('0.5');
     // A promise already past is refused at the field before anything is sent.
-    await advisor.getByLabel('Promised date').fill(FAR_PAST.date);
-    await advisor.getByLabel('Promised time').fill(FAR_PAST.time);
+    await advisor.getByRole('textbox', { name: 'Promised date' }).fill(FAR_PAST.date);
+    await advisor.getByRole('textbox', { name: 'Promised time' }).fill(FAR_PAST.time);
     await advisor.getByRole('button', { name: 'Write repair order' }).click();
     await advisor.getByText('That time has already passed: promise a later one').first().waitFor();
     expect(advisor.url()).toMatch(/\/repair-orders\/new$/);
-    await advisor.getByLabel('Promised date').fill('');
-    await advisor.getByLabel('Promised time').fill('');
+    await advisor.getByRole('textbox', { name: 'Promised date' }).fill('');
+    await advisor.getByRole('textbox', { name: 'Promised time' }).fill('');
     await advisor.getByRole('button', { name: 'Write repair order' }).click();
     await advisor.waitForURL(/\/repair-orders\/\d+$/);
     const roId = Number(new URL(advisor.url()).pathname.split('/').pop());
