@@ -40,6 +40,7 @@ CREATE TABLE `__new_mail_outbox` (
 	`recipient` text NOT NULL,
 	`subject` text,
 	`text` text NOT NULL,
+	`secret_body` integer DEFAULT false NOT NULL,
 	`attachments` text,
 	`status` text DEFAULT 'queued' NOT NULL,
 	`attempts` integer DEFAULT 0 NOT NULL,
@@ -49,7 +50,7 @@ CREATE TABLE `__new_mail_outbox` (
 	`sent_at` integer
 );
 --> statement-breakpoint
-INSERT INTO `__new_mail_outbox`("id", "channel", "recipient", "subject", "text", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at") SELECT "id", 'email', "recipient", "subject", "text", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at" FROM `mail_outbox`;--> statement-breakpoint
+INSERT INTO `__new_mail_outbox`("id", "channel", "recipient", "subject", "text", "secret_body", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at") SELECT "id", 'email', "recipient", "subject", "text", 0, "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at" FROM `mail_outbox`;--> statement-breakpoint
 DROP TABLE `mail_outbox`;--> statement-breakpoint
 ALTER TABLE `__new_mail_outbox` RENAME TO `mail_outbox`;--> statement-breakpoint
 PRAGMA foreign_keys=ON;--> statement-breakpoint

@@ -17,7 +17,7 @@ import { hashApprovalToken } from './approval-token.js';
 const MINUTE_MS = 60_000;
 /** A customer's page with its photos, reloaded now and then, stays far below these. */
 export const APPROVAL_REQUESTS_PER_MINUTE = { address: 120, link: 60 };
-/** Links that do not exist, from one address, before it must wait. */
+/** Links that do not exist, from one address, before it must wait: the last of them starts the wait. */
 export const APPROVAL_MISSES_ALLOWED = 10;
 const MISS_WINDOW_MS = 10 * MINUTE_MS;
 const MISS_BLOCK_MS = 15 * MINUTE_MS;
@@ -62,7 +62,8 @@ export class ApprovalThrottle implements NestInterceptor, OnApplicationShutdown 
     const { isBlocked, timeToBlockExpire } = await this.hits.increment(
       `miss:${address}`,
       MISS_WINDOW_MS,
-      APPROVAL_MISSES_ALLOWED,
+      // The storage blocks once the hits exceed the limit: the last allowed miss is the one that does.
+      APPROVAL_MISSES_ALLOWED - 1,
       MISS_BLOCK_MS,
       'approval-misses',
     );

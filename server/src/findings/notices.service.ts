@@ -110,6 +110,7 @@ export class NoticesService {
           shop,
         ].join('\n'),
         attachments: notice.photos,
+        secretBody: true,
       });
     const text =
       notice.customer.mobile &&
@@ -118,6 +119,7 @@ export class NoticesService {
         `${shop}: we found ${many ? `${notice.items.length} items` : 'something'} on your ` +
           `${notice.vehicle} (RO ${notice.repairOrderNumber}) that need your OK first. Estimate ` +
           `${formatCents(notice.totalCents)}. See photos and answer: ${notice.url} (until ${until})`,
+        true,
       );
     return { mail: mail || null, text: text || null };
   }
@@ -245,8 +247,8 @@ export class NoticesService {
     };
   }
 
-  private queueText(to: string, body: string): TextQueued {
-    return { textId: this.outbox.queueText({ to, body }).id, to };
+  private queueText(to: string, body: string, secretBody = false): TextQueued {
+    return { textId: this.outbox.queueText({ to, body, secretBody }).id, to };
   }
 
   photosOf(findingId: number, variant: 'original' | 'preview'): { filename: string; path: string }[] {

@@ -11,7 +11,12 @@ import { mailOutbox, type MessageChannel } from '../db/schema/index.js';
 import { MailSender } from './mail-sender.js';
 import { TextSender } from './text-sender.js';
 
-export interface OutgoingMail {
+/** Whether the body holds a secret, such as a customer's approval link: kept only until it is sent. */
+interface SecretBody {
+  secretBody?: boolean;
+}
+
+export interface OutgoingMail extends SecretBody {
   to: string;
   subject: string;
   text: string;
@@ -19,7 +24,7 @@ export interface OutgoingMail {
   attachments?: { filename: string; path: string }[];
 }
 
-export interface OutgoingText {
+export interface OutgoingText extends SecretBody {
   /** A phone number in E.164. */
   to: string;
   body: string;
@@ -76,14 +81,14 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
   }
 
   queueMail(mail: OutgoingMail, now = new Date()): OutboxRow {
-    return this.queue('email', mail.to, mail.text, now, {
+    return this.queue('email', mail.to, mail.text, !!mail.secretBody, now, {
       subject: mail.subject,
       attachments: mail.attachments ?? [],
     });
   }
 
   queueText(text: OutgoingText, now = new Date()): OutboxRow {
-    return this.queue('text', text.to, text.body, now);
+    return this.queue('text', text.to, text.body, !!text.secretBody, now);
   }
 
   find(id: number): OutboxRow | undefined {
@@ -102,6 +107,7 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
     channel: MessageChannel,
     recipient: string,
     text: string,
+    secretBody: boolean,
     now: Date,
     mail: { subject: string; attachments: OutgoingMail['attachments'] } = { subject: '', attachments: [] },
   ): OutboxRow {
@@ -112,6 +118,7 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
         recipient,
         subject: channel === 'email' ? mail.subject : null,
         text,
+        secretBody,
         attachments: mail.attachments ?? [],
         status: 'queued',
         nextAttemptAt: now,
@@ -147,7 +154,13 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
           : this.mail.send(message));
         this.db
           .update(mailOutbox)
-          .set({ status: 'sent', attempts: message.attempts + 1, sentAt: now, lastError: null })
+          .set({
+            status: 'sent',
+            attempts: message.attempts + 1,
+            sentAt: now,
+            lastError: null,
+            ...(message.secretBody ? { text: '' } : {}),
+          })
           .where(eq(mailOutbox.id, message.id))
           .run();
         sent++;

@@ -30,6 +30,8 @@ export const mailOutbox = sqliteTable(
     /** E-mails only. */
     subject: text('subject'),
     text: text('text').notNull(),
+    /** The body carries a secret (a customer's approval link): it is blanked once the message is sent. */
+    secretBody: integer('secret_body', { mode: 'boolean' }).notNull().default(false),
     attachments: text('attachments', { mode: 'json' }).$type<{ filename: string; path: string }[]>(),
     status: text('status', { enum: MAIL_STATUSES }).notNull().default('queued'),
     attempts: integer('attempts').notNull().default(0),
