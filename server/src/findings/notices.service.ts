@@ -151,7 +151,7 @@ export class NoticesService {
     const contact = this.contactOf(customer);
     const shop = this.shop.settings().name;
     const declined = this.db
-      .select({ note: findings.note })
+      .select({ wording: findings.customerWording, lineTitle: jobLines.title })
       .from(findings)
       .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
       .where(and(eq(jobLines.repairOrderId, repairOrderId), eq(findings.answer, 'declined')))
@@ -167,7 +167,11 @@ export class NoticesService {
       ...(declined.length
         ? ['', 'We also found, and did not do as you asked (worth another look later):']
         : []),
-      ...declined.map((finding) => `- ${finding.note}`),
+      // The technician's own note stays in the shop: only wording the advisor reviewed goes out.
+      ...declined.map(
+        (finding) =>
+          `- ${finding.wording ?? `Something our technician noted during "${finding.lineTitle}": ask us for the details`}`,
+      ),
       '',
       'Thank you,',
       shop,

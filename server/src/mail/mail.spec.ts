@@ -16,7 +16,7 @@ import type {
   TextboxEntry,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, jobLines, mailOutbox, repairOrders } from '../db/schema/index.js';
+import { customers, findings, jobLines, mailOutbox, repairOrders, users } from '../db/schema/index.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { MAX_SEND_ATTEMPTS, OutboxService, retryDelayMs } from './outbox.service.js';
 import { TextboxService } from './textbox.service.js';
@@ -187,12 +187,38 @@ describe(OutboxService.name, () => {
         .set({ email: 'ready@example.test' })
         .where(eq(customers.id, done.customerId))
         .run();
+      const doneLine = db.select().from(jobLines).where(eq(jobLines.repairOrderId, done.id)).get()!;
+      const declined = {
+        jobLineId: doneLine.id,
+        technicianId: db.select().from(users).where(eq(users.role, 'technician')).get()!.id,
+        severity: 'watch' as const,
+        answer: 'declined' as const,
+      };
+      db.insert(findings)
+        .values([
+          {
+            ...declined,
+            note: 'LR wiper chattering',
+            customerWording: 'The rear wiper blade is worn',
+            createdAt: new Date(),
+          },
+          { ...declined, note: 'raw tech shorthand: CV boot sm tear', createdAt: new Date() },
+        ])
+        .run();
       const queued = (await notice(done.id).expect(202)).body as NoticesQueued;
       expect(queued.mail?.subject).toMatch(
         new RegExp(`^Marlow Creek Auto Care: your .+ is ready \\(RO ${done.number}\\)$`),
       );
       const entry = await received(queued.mail!.subject);
       expect(entry.to).toEqual(['ready@example.test']);
+      const { text } = (
+        await sut.http().get(`/api/mailbox/${entry.id}`).auth(owner, { type: 'bearer' }).expect(200)
+      ).body as MailboxMessage;
+      expect(text).toContain('- The rear wiper blade is worn');
+      expect(text).toContain(
+        `- Something our technician noted during "${doneLine.title}": ask us for the details`,
+      );
+      expect(text).not.toMatch(/LR wiper|raw tech shorthand/);
       const ro = db.select().from(customers).where(eq(customers.id, done.customerId)).get()!;
       expect(queued.text).toEqual({ textId: expect.any(Number), to: ro.phone });
     });
