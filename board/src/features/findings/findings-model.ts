@@ -1,7 +1,7 @@
 import {
+  ANSWER_CHANNEL_WORDS,
   FINDING_SEVERITY_WORDS,
   formatPhone,
-  type AnswerChannel,
   type ApprovalLinkDto,
   type FindingDto,
   type FindingSeverity,
@@ -94,12 +94,6 @@ export function sentToText(queued: NoticesQueued): string {
   ].filter(Boolean);
   return ways.length ? ways.join(' and ') : 'nowhere';
 }
-
-const ANSWER_CHANNEL_WORDS: Record<AnswerChannel, string> = {
-  link: 'through the approval link',
-  phone: 'by phone',
-  'in-person': 'in person',
-};
 
 /** "Approved by Harriet Quenby through the approval link", "Declined by Nell Ashby by phone". */
 export function answeredText(finding: FindingDto): string {
