@@ -4,8 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { OFFICE_NAV } from '../board/src/config/office-nav';
 import { paths } from '../board/src/config/paths';
 import { openBrowser } from './support/browser.js';
-import type { ApprovalRequested, FindingDto, MyDay } from '@baytime/shared';
-import { apiAs, openWall, signInAtOffice } from './support/floor.js';
+import type { ApprovalRequested } from '@baytime/shared';
+import { apiAs, openWall, recordFinding, signInAtOffice, technicianDay } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** WCAG 2.0, 2.1 and 2.2, levels A and AA, as axe-core tags its rules. */
@@ -324,23 +324,11 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
   });
 
   it('customer approval page on a phone, and the advisor’s wording dialog', async () => {
-    const badge = await fetch(`${server.url}/api/auth/badge`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ badge: '1043', pin: '4321' }),
+    const { token, day } = await technicianDay(server, '1043');
+    const finding = await recordFinding(server, token, day.lines[0]!.id, {
+      note: 'Front brake pads at 2 mm',
+      severity: 'safety-now',
     });
-    const tech = ((await badge.json()) as { accessToken: string }).accessToken;
-    const day = (await fetch(`${server.url}/api/me/day`, {
-      headers: { authorization: `Bearer ${tech}` },
-    }).then((r) => r.json())) as MyDay;
-    const form = new FormData();
-    form.set('note', 'Front brake pads at 2 mm');
-    form.set('severity', 'safety-now');
-    const finding = (await fetch(`${server.url}/api/job-lines/${day.lines[0]!.id}/findings`, {
-      method: 'POST',
-      headers: { authorization: `Bearer ${tech}` },
-      body: form,
-    }).then((r) => r.json())) as FindingDto;
 
     const office = await freshPage({ width: 1600, height: 1000 });
     await signInAtOffice(office, server, 'advisor@marlowcreek.test');

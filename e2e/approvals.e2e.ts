@@ -2,16 +2,22 @@ import type { BrowserContext, Page as BrowserPage } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type {
   BoardSnapshot,
-  FindingDto,
   MailboxEntry,
   MailboxMessage,
-  MyDay,
   Page,
   RepairOrderSummary,
   TextboxEntry,
 } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
-import { apiAs, bayTile, openWall, signInAtOffice, type Api } from './support/floor.js';
+import {
+  apiAs,
+  bayTile,
+  openWall,
+  recordFinding,
+  signInAtOffice,
+  technicianDay,
+  type Api,
+} from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** A 1×1 PNG: a real image, so the server's content check and preview both succeed. */
@@ -41,22 +47,6 @@ describe('customer approval from a link', () => {
     await server?.stop();
   });
 
-  /** A finding as the kiosk sends it, held for approval. */
-  async function recordFinding(token: string, lineId: number, note: string, photo: boolean) {
-    const form = new FormData();
-    form.set('note', note);
-    form.set('severity', 'soon');
-    form.set('holdForApproval', 'true');
-    if (photo) form.append('photos', new Blob([new Uint8Array(PNG)], { type: 'image/png' }), 'pan.png');
-    const response = await fetch(`${server.url}/api/job-lines/${lineId}/findings`, {
-      method: 'POST',
-      headers: { authorization: `Bearer ${token}` },
-      body: form,
-    });
-    expect(response.status).toBe(201);
-    return (await response.json()) as FindingDto;
-  }
-
   async function review(advisor: BrowserPage, note: string, wording: string, hours: string, parts: string) {
     const card = advisor
       .getByRole('list', { name: 'Findings waiting for an answer' })
@@ -73,18 +63,17 @@ describe('customer approval from a link', () => {
   }
 
   it('an advisor sends the link by e-mail and text; the customer answers on a phone; the floor follows live', async () => {
-    const login = await fetch(`${server.url}/api/auth/badge`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ badge: '1041', pin: '4321' }),
-    });
-    const tech = ((await login.json()) as { accessToken: string }).accessToken;
-    const day = (await fetch(`${server.url}/api/me/day`, {
-      headers: { authorization: `Bearer ${tech}` },
-    }).then((r) => r.json())) as MyDay;
+    const { token: tech, day } = await technicianDay(server, '1041');
     const line = day.lines.find((l) => l.clockedOn)!;
-    const magnet = await recordFinding(tech, line.id, 'Shavings on the pan magnet, gasket weeping', true);
-    await recordFinding(tech, line.id, 'Wiper blades torn', false);
+    const held = { severity: 'soon', holdForApproval: 'true' };
+    const magnet = await recordFinding(
+      server,
+      tech,
+      line.id,
+      { ...held, note: 'Shavings on the pan magnet, gasket weeping' },
+      [{ name: 'pan.png', type: 'image/png', bytes: PNG }],
+    );
+    await recordFinding(server, tech, line.id, { ...held, note: 'Wiper blades torn' });
     const ro = await owner<RepairOrderSummary>('GET', `/repair-orders/${magnet.repairOrderId}`);
 
     const wall = await wallBrowser.newPage();
