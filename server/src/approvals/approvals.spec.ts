@@ -289,6 +289,8 @@ describe(ApprovalsService.name, () => {
         customerWording: 'The drive belt is cracked',
         bookHours: 0.4,
       });
+      // The other RO's finding has a link of its own: a link reaches only its own findings.
+      await as(advisor).post(`/api/findings/${other.id}/request-approval`).expect(201);
       token = tokenOf(
         (
           (await as(advisor).post(`/api/findings/${mine.id}/request-approval`).expect(201))
