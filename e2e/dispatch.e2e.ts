@@ -41,7 +41,7 @@ describe('repair-order intake and dispatch', () => {
     await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
     await advisor.goto(`${server.url}/repair-orders/new`);
     await advisor.getByLabel('Name').fill('Wendell Farrow');
-    await advisor.getByLabel('Phone').fill('555-0142');
+    await advisor.getByLabel('Phone').fill('(608) 555-0142');
     await advisor.getByLabel('E-mail').fill('wendell@example.test');
     await advisor.getByLabel('VIN').fill(WRONG_VIN);
     await advisor.getByText('Check digit should be X, not 4').waitFor();
@@ -128,7 +128,7 @@ describe('repair-order intake and dispatch', () => {
     await seen.getByText(/Wendell Farrow, 61,200/).waitFor();
     await seen.getByRole('button', { name: 'Use Wendell Farrow’s details' }).click();
     expect(await advisor.getByLabel('Name').inputValue()).toBe('Wendell Farrow');
-    expect(await advisor.getByLabel('Phone').inputValue()).toBe('555-0142');
+    expect(await advisor.getByLabel('Phone').inputValue()).toBe('(608) 555-0142');
     expect(await advisor.getByLabel('E-mail').inputValue()).toBe('wendell@example.test');
     expect(await advisor.getByLabel('Make').inputValue()).toBe('Halvard');
     expect(await advisor.getByLabel(/^Model\s*\*?$/).inputValue()).toBe('Morrow');

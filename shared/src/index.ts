@@ -26,3 +26,7 @@ export * from './paging/page.schema.js';
 export * from './work/repair-order-list.schema.js';
 export * from './vehicles/vehicle-lookup.schema.js';
 export * from './findings/findings-page.schema.js';
+export * from './input/phone.js';
+export * from './approvals/price.js';
+export * from './approvals/approvals.schema.js';
+export * from './time/format.js';

@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { PAGE_LIMIT_MAX, type Role } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { customers, findings, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
-import { MailService } from '../mail/mail.service.js';
+import { OutboxService } from '../mail/outbox.service.js';
 import { ROUTES } from '../test-support/routes.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 
@@ -32,7 +32,10 @@ const NOT_LISTS: Record<string, string> = {
 };
 
 /** Paged lists seeded with a few rows only: each costs too much to make more than a page of. */
-const FEW: Record<string, string> = { '/api/mailbox': 'each message crosses the local SMTP server' };
+const FEW: Record<string, string> = {
+  '/api/mailbox': 'each message crosses the local SMTP server',
+  '/api/textbox': 'each text goes through the outbox',
+};
 
 /** Query strings a route needs to answer at all. */
 const SAMPLE_QUERIES: Record<string, string> = {
@@ -116,8 +119,11 @@ describe('every GET collection route is bounded', () => {
         .values({ jobLineId, technicianId, note: 'Bulk', severity: 'watch', createdAt: at })
         .run();
     }
-    const mail = sut.app.get(MailService);
-    for (let i = 0; i < 3; i++) mail.queue({ to: 'bulk@example.test', subject: `Bulk ${i}`, text: 'Bulk' });
+    const mail = sut.app.get(OutboxService);
+    for (let i = 0; i < 3; i++) {
+      mail.queueMail({ to: 'bulk@example.test', subject: `Bulk ${i}`, text: 'Bulk' });
+      mail.queueText({ to: '+16085550123', body: `Bulk ${i}` });
+    }
     await mail.flush();
   });
   afterAll(() => sut.close());

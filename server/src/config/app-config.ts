@@ -12,6 +12,10 @@ export interface AppConfig {
   adminPassword: string | null;
   demo: boolean;
   smtpUrl: string | null;
+  /** Twilio's account and sending number (or messaging service id); null = the local text box. */
+  twilio: { accountSid: string; authToken: string; from: string } | null;
+  /** Where customers reach the server, for approval links; null = the address the office uses. */
+  publicUrl: string | null;
   jwtSecret: string;
   /** Built front ends to serve; absent in tests that only need the API. */
   staticRoot: string | null;
@@ -36,6 +40,20 @@ export function loadConfig(
   if ((adminEmail === null) !== (adminPassword === null))
     throw new Error('Set BAYTIME_ADMIN_EMAIL and BAYTIME_ADMIN_PASSWORD together');
 
+  const twilio = {
+    accountSid: env.BAYTIME_TWILIO_ACCOUNT_SID?.trim() ?? '',
+    authToken: env.BAYTIME_TWILIO_AUTH_TOKEN?.trim() ?? '',
+    from: env.BAYTIME_TWILIO_FROM?.trim() ?? '',
+  };
+  const twilioSet = Object.values(twilio).filter(Boolean).length;
+  if (twilioSet !== 0 && twilioSet !== 3)
+    throw new Error(
+      'Set BAYTIME_TWILIO_ACCOUNT_SID, BAYTIME_TWILIO_AUTH_TOKEN and BAYTIME_TWILIO_FROM together',
+    );
+  const publicUrl = env.BAYTIME_PUBLIC_URL?.trim().replace(/\/+$/, '') || null;
+  if (publicUrl && !/^https?:\/\/[^/\s]+(\/[^\s]*)?$/.test(publicUrl))
+    throw new Error(`BAYTIME_PUBLIC_URL is not an http(s) address: ${publicUrl}`);
+
   const config: AppConfig = {
     port,
     dataDir,
@@ -46,6 +64,8 @@ export function loadConfig(
     adminPassword,
     demo: truthy(env.BAYTIME_DEMO),
     smtpUrl: env.BAYTIME_SMTP_URL?.trim() || null,
+    twilio: twilioSet ? twilio : null,
+    publicUrl,
     jwtSecret: env.JWT_SECRET || keptSecret(dataDir),
     staticRoot,
   };

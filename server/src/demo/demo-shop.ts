@@ -22,7 +22,15 @@ import { DEFAULT_SHOP } from '../shop/shop.service.js';
 import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 
 /** Every name, vehicle and number here is invented for the demo. */
-const SHOP = { ...DEFAULT_SHOP, name: 'Marlow Creek Auto Care', timeZone: 'America/Chicago' };
+const SHOP = {
+  ...DEFAULT_SHOP,
+  name: 'Marlow Creek Auto Care',
+  timeZone: 'America/Chicago',
+  // 555-0100 to 555-0199 are set aside for fiction in the North American numbering plan.
+  phone: '+16085550100',
+  labourRateCents: 135_00,
+  taxNote: 'Sales tax is added on the final invoice.',
+};
 export const DEMO_PASSWORD = 'baytime-demo';
 export const DEMO_PIN = '4321';
 
@@ -441,7 +449,7 @@ export class DemoShopSeeder {
       .insert(customers)
       .values({
         name,
-        phone: `555-01${String(Math.floor(this.random() * 100)).padStart(2, '0')}`,
+        phone: `+1608555${String(101 + Math.floor(this.random() * 99)).padStart(4, '0')}`,
         // example.test never delivers anywhere: demo mail lands in the local test mailbox.
         email: `${name.toLowerCase().replace(/\s+/g, '.')}@example.test`,
         createdAt,

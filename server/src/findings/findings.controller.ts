@@ -4,6 +4,7 @@ import {
   Get,
   HttpCode,
   Param,
+  Patch,
   Post,
   Query,
   UploadedFiles,
@@ -22,22 +23,19 @@ import {
   type FindingDto,
   type FindingsPage,
   type FindingsPageQuery,
-  type MailQueued,
+  findingQuoteSchema,
+  type FindingQuoteBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
 import { FindingRateLimit } from './finding-rate-limit.js';
 import { FindingsService } from './findings.service.js';
-import { NoticesService } from './notices.service.js';
 import { PhotoUploadErrors, photoUploadOptions, type UploadedPhoto } from './photo-upload.js';
 
 @Controller()
 export class FindingsController {
-  constructor(
-    private readonly findings: FindingsService,
-    private readonly notices: NoticesService,
-  ) {}
+  constructor(private readonly findings: FindingsService) {}
 
   /** multipart/form-data: the text fields of `createFindingSchema` and up to 6 files in `photos`. */
   @Roles('technician', 'foreman', 'owner')
@@ -70,13 +68,13 @@ export class FindingsController {
     return this.findings.answer(id, body, actor);
   }
 
-  @Roles('advisor')
-  @Post('findings/:id/request-approval')
-  @HttpCode(202)
-  requestApproval(
+  @Roles('advisor', 'owner')
+  @Patch('findings/:id/quote')
+  quote(
     @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: findingQuoteSchema }) body: FindingQuoteBody,
     @CurrentUser() actor: Principal,
-  ): MailQueued {
-    return this.notices.requestApproval(id, actor);
+  ): FindingDto {
+    return this.findings.quote(id, body, actor);
   }
 }

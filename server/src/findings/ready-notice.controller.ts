@@ -1,5 +1,5 @@
 import { Controller, HttpCode, Param, Post } from '@nestjs/common';
-import type { MailQueued } from '@baytime/shared';
+import type { NoticesQueued } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
@@ -12,7 +12,7 @@ export class ReadyNoticeController {
   @Roles('advisor')
   @Post(':id/ready-notice')
   @HttpCode(202)
-  send(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): MailQueued {
+  send(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): NoticesQueued {
     return this.notices.readyNotice(id, actor);
   }
 }

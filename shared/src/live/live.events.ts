@@ -1,3 +1,4 @@
+import type { AnswerChannel } from '../approvals/approvals.schema.js';
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
 import type { PunchDto } from '../punches/punches.schema.js';
 import type { JobLineDto } from '../work/work.schema.js';
@@ -17,6 +18,10 @@ export interface ServerToClientEvents {
   'job-line.updated': (event: Sequenced & { jobLine: JobLineDto }) => void;
   'timer.updated': (event: Sequenced & { timerId: number; bayId: number | null }) => void;
   'finding.created': (event: Sequenced & { findingId: number; jobLineId: number }) => void;
+  /** A customer's answer was recorded, through the approval link or by the office. */
+  'finding.answered': (
+    event: Sequenced & { findingId: number; answer: 'approved' | 'declined'; channel: AnswerChannel },
+  ) => void;
   /** The server ended this connection: the token expired, or its screen or account was changed. */
   'session.ended': (refusal: LiveRefusal) => void;
 }

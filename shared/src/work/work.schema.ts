@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
+import { phoneSchema } from '../input/phone.js';
 import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
@@ -70,7 +71,7 @@ export type FinishLineBody = z.infer<typeof finishLineSchema>;
 
 export const customerInputSchema = z.object({
   name: plainText(80, { min: 1, message: 'Enter the customer’s name' }),
-  phone: plainText(30).optional(),
+  phone: phoneSchema,
   email: z.email('Not an e-mail address').max(200).optional(),
 });
 

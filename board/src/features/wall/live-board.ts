@@ -93,6 +93,7 @@ export function createLiveBoard({
       link.on('job-line.updated', other),
       link.on('timer.updated', other),
       link.on('finding.created', other),
+      link.on('finding.answered', other),
     ];
     refreshTimer = setInterval(resync, refreshEveryMs);
     set(fromLink());

@@ -1,10 +1,10 @@
 import { useMutation } from '@tanstack/react-query';
-import type { MailQueued } from '@baytime/shared';
+import type { NoticesQueued } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 
-/** E-mails the customer that the vehicle is ready, with the work done and the findings they declined. */
-export function sendReadyNotice(repairOrderId: number): Promise<MailQueued> {
-  return officeApi.post<MailQueued>(`/repair-orders/${repairOrderId}/ready-notice`);
+/** Tells the customer the vehicle is ready, by e-mail and text, with the work done and what they declined. */
+export function sendReadyNotice(repairOrderId: number): Promise<NoticesQueued> {
+  return officeApi.post<NoticesQueued>(`/repair-orders/${repairOrderId}/ready-notice`);
 }
 
 export function useSendReadyNotice() {

@@ -11,12 +11,19 @@ import {
   Input,
   MessageBar,
   MessageBarBody,
+  Radio,
+  RadioGroup,
   Text,
   Textarea,
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { findingAnswerSchema, type FindingAnswerResult, type FindingDto } from '@baytime/shared';
+import {
+  findingAnswerSchema,
+  type FindingAnswerResult,
+  type FindingDto,
+  type OfficeAnswerChannel,
+} from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useAnswerFinding } from '../api/answer-finding';
@@ -40,6 +47,30 @@ function serverErrors(
   return { fields: {}, form: formErrorText(error) };
 }
 
+/** How the answer reached the office: the link records its own, so here it is by phone or in person. */
+function ChannelField({
+  value,
+  error,
+  onChange,
+}: {
+  value: OfficeAnswerChannel | '';
+  error: string | undefined;
+  onChange: (value: OfficeAnswerChannel) => void;
+}) {
+  return (
+    <Field label="How did the customer answer?" required validationMessage={error}>
+      <RadioGroup
+        layout="horizontal"
+        value={value}
+        onChange={(_, data) => onChange(data.value as OfficeAnswerChannel)}
+      >
+        <Radio value="phone" label="By phone" />
+        <Radio value="in-person" label="In person" />
+      </RadioGroup>
+    </Field>
+  );
+}
+
 /** "Customer approved": the book hours for a new line (the tech's suggestion to start with) and its title. */
 export function ApproveDialog({
   finding,
@@ -52,8 +83,9 @@ export function ApproveDialog({
 }) {
   const styles = useStyles();
   const answer = useAnswerFinding();
-  const [hours, setHours] = useState(finding.suggestedHours === null ? '' : String(finding.suggestedHours));
+  const [hours, setHours] = useState(String(finding.bookHours ?? finding.suggestedHours ?? ''));
   const [title, setTitle] = useState('');
+  const [channel, setChannel] = useState<OfficeAnswerChannel | ''>('');
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
 
@@ -63,6 +95,7 @@ export function ApproveDialog({
     const bookHours = parseHours(hours);
     const parsed = findingAnswerSchema.safeParse({
       answer: 'approved',
+      channel: channel || undefined,
       bookHours: bookHours ?? undefined,
       ...(title.trim() ? { title: title.trim() } : {}),
     });
@@ -76,7 +109,7 @@ export function ApproveDialog({
       {
         onSuccess: onDone,
         onError: (error) => {
-          const { fields, form } = serverErrors(error, ['bookHours', 'title']);
+          const { fields, form } = serverErrors(error, ['bookHours', 'title', 'channel']);
           setErrors(fields);
           setFormError(form);
         },
@@ -95,6 +128,14 @@ export function ApproveDialog({
                 Adds a new job line to RO {finding.repairOrderNumber} ({finding.vehicle}), queued for the
                 foreman to assign.
               </Text>
+              <ChannelField
+                value={channel}
+                error={errors.channel}
+                onChange={(value) => {
+                  setChannel(value);
+                  setErrors((current) => ({ ...current, channel: undefined }));
+                }}
+              />
               <Field
                 label="Book hours to charge"
                 required
@@ -124,7 +165,7 @@ export function ApproveDialog({
                 <Input
                   value={title}
                   maxLength={120}
-                  placeholder={titleHint(finding.note)}
+                  placeholder={titleHint(finding.customerWording ?? finding.note)}
                   onChange={(_, data) => {
                     setTitle(data.value);
                     setErrors((current) => ({ ...current, title: undefined }));
@@ -165,6 +206,7 @@ export function DeclineDialog({
   const styles = useStyles();
   const answer = useAnswerFinding();
   const [note, setNote] = useState('');
+  const [channel, setChannel] = useState<OfficeAnswerChannel | ''>('');
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
 
@@ -173,6 +215,7 @@ export function DeclineDialog({
     setFormError(null);
     const parsed = findingAnswerSchema.safeParse({
       answer: 'declined',
+      channel: channel || undefined,
       ...(note.trim() ? { note: note.trim() } : {}),
     });
     if (!parsed.success) return setErrors(issuesToFieldErrors(parsed.error.issues));
@@ -181,7 +224,7 @@ export function DeclineDialog({
       {
         onSuccess: onDone,
         onError: (error) => {
-          const { fields, form } = serverErrors(error, ['note']);
+          const { fields, form } = serverErrors(error, ['note', 'channel']);
           setErrors(fields);
           setFormError(form);
         },
@@ -200,6 +243,14 @@ export function DeclineDialog({
                 No line is added to RO {finding.repairOrderNumber}. The finding is listed on the customer’s
                 ready notice as work they chose not to have done.
               </Text>
+              <ChannelField
+                value={channel}
+                error={errors.channel}
+                onChange={(value) => {
+                  setChannel(value);
+                  setErrors((current) => ({ ...current, channel: undefined }));
+                }}
+              />
               <Field label="What the customer said" validationMessage={errors.note} hint="Optional.">
                 <Textarea
                   value={note}
@@ -209,7 +260,7 @@ export function DeclineDialog({
                   placeholder="e.g. Will book it in next month"
                   onChange={(_, data) => {
                     setNote(data.value);
-                    setErrors({});
+                    setErrors((current) => ({ ...current, note: undefined }));
                   }}
                 />
               </Field>

@@ -41,6 +41,7 @@ export function useLiveRepairOrders(token: string | null): void {
       socket.on('punch.recorded', () => mark(['dispatch']));
       socket.on('bay.updated', () => mark(['dispatch']));
       socket.on('finding.created', () => mark(['findings'], ['repair-order']));
+      socket.on('finding.answered', () => mark(['findings'], ['repair-order']));
     },
     [mark],
   );
