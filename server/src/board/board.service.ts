@@ -207,7 +207,10 @@ function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: n
   if (state.status !== 'on-shift' || !ledger) return since;
   const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
   if (open) return open.from;
-  const ends = [...ledger.jobs, ...ledger.breaks].map((interval) => interval.to.getTime());
+  // Only intervals that really ended: an open one's end is just when its ledger was last built.
+  const ends = [...ledger.jobs, ...ledger.breaks]
+    .filter((interval) => !interval.open)
+    .map((interval) => interval.to.getTime());
   return new Date(Math.max(since.getTime(), ...ends));
 }
 
