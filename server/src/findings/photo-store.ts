@@ -6,12 +6,10 @@ import {
   PayloadTooLargeException,
   StreamableFile,
 } from '@nestjs/common';
-import { fileTypeFromBuffer } from 'file-type';
 import { randomUUID } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { mkdir, rm, writeFile } from 'node:fs/promises';
 import { basename, join } from 'node:path';
-import sharp from 'sharp';
 import {
   FINDING_PHOTO_TYPES,
   MAX_FINDING_PHOTO_BYTES,
@@ -39,7 +37,10 @@ const PREVIEW_PX = 640;
 /** Well above any phone camera; refuses decompression bombs before sharp allocates them. */
 const MAX_INPUT_PIXELS = 100_000_000;
 
-/** Finding photos on disk under `uploads/findings/`, named by the server, never by the client. */
+/**
+ * Finding photos on disk under `uploads/findings/`, named by the server, never by the client. sharp and
+ * file-type load with the first photo, not at start-up.
+ */
 @Injectable()
 export class PhotoStore {
   readonly dir: string;
@@ -60,7 +61,7 @@ export class PhotoStore {
       const n = index + 1;
       if (photo.buffer.length > MAX_FINDING_PHOTO_BYTES)
         throw new PayloadTooLargeException(`Photo ${n} is larger than ${MAX_PHOTO_MB} MB`);
-      const sniffed = await fileTypeFromBuffer(photo.buffer);
+      const sniffed = await (await import('file-type')).fileTypeFromBuffer(photo.buffer);
       const mimeType = FINDING_PHOTO_TYPES.find((type) => type === sniffed?.mime);
       if (!sniffed || !mimeType) throw new BadRequestException(`Photo ${n} is not a JPEG, PNG or WebP image`);
       checked.push({
@@ -118,6 +119,7 @@ export class PhotoStore {
   }
 
   private async preview(buffer: Buffer, n: number): Promise<Buffer> {
+    const { default: sharp } = await import('sharp');
     try {
       return await sharp(buffer, { limitInputPixels: MAX_INPUT_PIXELS })
         .rotate()

@@ -6,7 +6,7 @@ import {
   type OnModuleDestroy,
 } from '@nestjs/common';
 import { and, asc, eq, lte } from 'drizzle-orm';
-import { createTransport, type Transporter } from 'nodemailer';
+import type { Transporter } from 'nodemailer';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { DB, type Db } from '../db/database.js';
 import { mailOutbox, users } from '../db/schema/index.js';
@@ -42,7 +42,8 @@ export function retryDelayMs(failedAttempts: number): number {
 @Injectable()
 export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('Mail');
-  private transport: Transporter | null = null;
+  /** Connected after start-up: nodemailer and the local mailbox load while the server already answers. */
+  private transport: Promise<Transporter> | null = null;
   private timer: NodeJS.Timeout | null = null;
   private chain: Promise<unknown> = Promise.resolve();
   private pendingFlushes = 0;
@@ -55,16 +56,9 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
     private readonly mailbox: MailboxService,
   ) {}
 
-  async onApplicationBootstrap(): Promise<void> {
-    const server = this.config.smtpUrl
-      ? { url: this.config.smtpUrl }
-      : { host: '127.0.0.1', port: await this.mailbox.start(), secure: false, ignoreTLS: true };
-    this.transport = createTransport({
-      ...server,
-      connectionTimeout: 10_000,
-      greetingTimeout: 10_000,
-      socketTimeout: 30_000,
-    });
+  onApplicationBootstrap(): void {
+    this.transport = this.connect();
+    this.transport.catch((error: unknown) => this.logger.error(`Mail cannot be sent: ${String(error)}`));
     this.timer = setInterval(() => this.kick(), SEND_EVERY_MS);
     this.timer.unref();
     this.kick();
@@ -74,7 +68,7 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
     this.stopped = true;
     if (this.timer) clearInterval(this.timer);
     await this.chain;
-    this.transport?.close();
+    (await this.transport?.catch(() => null))?.close();
     await this.mailbox.stop();
   }
 
@@ -114,8 +108,21 @@ export class MailService implements OnApplicationBootstrap, OnModuleDestroy {
     this.flush().catch((error: unknown) => this.logger.error(`Sending mail failed: ${String(error)}`));
   }
 
+  private async connect(): Promise<Transporter> {
+    const server = this.config.smtpUrl
+      ? { url: this.config.smtpUrl }
+      : { host: '127.0.0.1', port: await this.mailbox.start(), secure: false, ignoreTLS: true };
+    const { createTransport } = await import('nodemailer');
+    return createTransport({
+      ...server,
+      connectionTimeout: 10_000,
+      greetingTimeout: 10_000,
+      socketTimeout: 30_000,
+    });
+  }
+
   private async sendDue(now: Date): Promise<number> {
-    const transport = this.transport;
+    const transport = await this.transport?.catch(() => null);
     if (!transport || this.stopped) return 0;
     const due = this.db
       .select()
