@@ -13,6 +13,8 @@ export interface AppConfig {
   demo: boolean;
   smtpUrl: string | null;
   jwtSecret: string;
+  /** `BAYTIME_BENCH_METRICS=1`: `GET /api/health/event-loop` answers event-loop delay for `npm run bench`. */
+  benchMetrics: boolean;
   /** Built front ends to serve; absent in tests that only need the API. */
   staticRoot: string | null;
 }
@@ -47,6 +49,7 @@ export function loadConfig(
     demo: truthy(env.BAYTIME_DEMO),
     smtpUrl: env.BAYTIME_SMTP_URL?.trim() || null,
     jwtSecret: env.JWT_SECRET || keptSecret(dataDir),
+    benchMetrics: truthy(env.BAYTIME_BENCH_METRICS),
     staticRoot,
   };
   mkdirSync(config.uploadsDir, { recursive: true });
