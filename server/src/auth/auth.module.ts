@@ -16,7 +16,7 @@ import { JwtStrategy } from './jwt.strategy.js';
     ThrottlerModule.forRoot([{ ttl: 60_000, limit: 60 }]),
     JwtModule.registerAsync({
       inject: [APP_CONFIG],
-      useFactory: (config: AppConfig) => ({ secret: config.jwtSecret, signOptions: { algorithm: 'HS256' } }),
+      useFactory: (config: AppConfig) => ({ secret: config.jwtKey, signOptions: { algorithm: 'HS256' } }),
     }),
   ],
   controllers: [AuthController],

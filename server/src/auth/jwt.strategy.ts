@@ -11,7 +11,11 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     @Inject(APP_CONFIG) config: AppConfig,
     private readonly auth: AuthService,
   ) {
-    super({ jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: config.jwtSecret });
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      // jsonwebtoken takes a key object; the passport-jwt types only list strings and buffers.
+      secretOrKey: config.jwtKey as unknown as Buffer,
+    });
   }
 
   /** passport answers 401 when this returns false: a deactivated user or a revoked screen. */
