@@ -107,6 +107,8 @@ export async function punchLoad(
   const started = performance.now();
   const total = rate * seconds;
   const requests: Promise<void>[] = [];
+  /** Like a kiosk's outbox, a technician's next punch goes out once the server answered the last. */
+  const lastOf = new Map<number, Promise<void>>();
   let refused = 0;
   for (let i = 0; i < total; i++) {
     const wait = started + (i * 1000) / rate - performance.now();
@@ -114,14 +116,14 @@ export async function punchLoad(
     const tech = shift[i % shift.length]!;
     const cycle = CYCLES[tech.state];
     const kind = cycle[Math.floor(i / shift.length) % cycle.length]!;
-    settle(tech.technicianId);
-    pending.set(tech.technicianId, {
-      sentAt: performance.now(),
-      shownAs: SHOWN_AS[kind]!,
-      seenBy: new Set(),
-    });
-    requests.push(
-      fetch(`${server.url}/api/punches`, {
+    const send = async () => {
+      settle(tech.technicianId);
+      pending.set(tech.technicianId, {
+        sentAt: performance.now(),
+        shownAs: SHOWN_AS[kind]!,
+        seenBy: new Set(),
+      });
+      const response = await fetch(`${server.url}/api/punches`, {
         method: 'POST',
         headers: { 'content-type': 'application/json', authorization: `Bearer ${tech.token}` },
         body: JSON.stringify({
@@ -130,16 +132,14 @@ export async function punchLoad(
           ...(kind === 'job-on' || kind === 'job-off' ? { jobLineId: tech.jobLineId } : {}),
           ...(kind === 'break-start' ? { breakKind: 'rest' } : {}),
         }),
-      }).then(
-        async (response) => {
-          if (response.status !== 201) {
-            refused++;
-            if (refused <= 3) console.log(`  refused: ${response.status} ${await response.text()}`);
-          }
-        },
-        () => void refused++,
-      ),
-    );
+      });
+      if (response.status === 201) return;
+      refused++;
+      if (refused <= 3) console.log(`  refused: ${response.status} ${await response.text()}`);
+    };
+    const request = (lastOf.get(tech.technicianId) ?? Promise.resolve()).then(send, send);
+    lastOf.set(tech.technicianId, request);
+    requests.push(request.catch(() => void refused++));
   }
   await Promise.all(requests);
   // The last deliveries: wait until every board has shown every punch, or a second passed.
