@@ -1,7 +1,7 @@
 import { JwtService } from '@nestjs/jwt';
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { addIsoWeeks, workweekOf } from '@baytime/shared';
@@ -60,6 +60,16 @@ async function samples(run: () => Promise<boolean>, times: number, budgetMs: num
   }
   return taken;
 }
+
+/** Other work on the machine slows every figure that is a time; the CPU times hold better. */
+function machine(): string {
+  const pressure = existsSync('/proc/pressure/cpu')
+    ? /avg60=([\d.]+)/.exec(readFileSync('/proc/pressure/cpu', 'utf8'))?.[1]
+    : undefined;
+  const [load] = loadavg();
+  return `${availableParallelism()} cores, Node ${process.versions.node}, load average ${load!.toFixed(1)}${pressure ? `, CPU pressure ${pressure}%` : ''}`;
+}
+print('machine', machine());
 
 // 1. The shop, written straight into a fresh database, and the JWT secret the server will read there.
 const dataDir = mkdtempSync(join(tmpdir(), 'baytime-bench-'));
@@ -202,6 +212,7 @@ track(
   'kB',
 );
 
+print('machine', machine());
 rmSync(dataDir, { recursive: true, force: true });
 const KEYS = [
   'history years',
