@@ -46,6 +46,10 @@ export class ServerProcess {
       stdio: ['ignore', 'ignore', 'inherit'],
     });
     this.child = child;
+    // If the bench stops half-way, the server goes with it.
+    const orphan = () => child.kill('SIGKILL');
+    process.once('exit', orphan);
+    child.once('exit', () => process.off('exit', orphan));
     const exited = new Promise<never>((_, reject) =>
       child.once('exit', (code, signal) => reject(new Error(`The server stopped (${code ?? signal})`))),
     );
