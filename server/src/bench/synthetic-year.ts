@@ -176,12 +176,15 @@ interface Vehicle {
   id: number;
   customerId: number;
   odometer: number;
+  /** The customer and vehicle as a repair order copies them. */
+  details: Record<string, Value>;
 }
 type Value = string | number | null;
 
 class ShopWriter {
   private readonly random = seededRandom(2718);
   private readonly statements = new Map<string, ReturnType<Database['prepare']>>();
+  private readonly columns = new Map<string, Set<string>>();
   private readonly counts = { repairOrders: 0, jobLines: 0, punches: 0, customers: 0 };
   private readonly fleet: Vehicle[] = [];
   private readonly ownerId: number;
@@ -446,6 +449,7 @@ class ShopWriter {
     const vehicle = this.visitingVehicle(ro.createdAt);
     vehicle.odometer += Math.round(this.between(2_000, 14_000));
     const roId = this.row('repair_orders', {
+      ...vehicle.details,
       number: String(++this.roNumber),
       customer_id: vehicle.customerId,
       vehicle_id: vehicle.id,
@@ -491,28 +495,40 @@ class ShopWriter {
   private visitingVehicle(at: number): Vehicle {
     if (this.fleet.length > 200 && this.random() < 0.6) return this.pick(this.fleet);
     const name = `${this.pick(FIRST_NAMES)} ${this.pick(LAST_NAMES)}`;
-    const customerId = this.row('customers', {
+    const customer = {
       name,
       phone: `555-01${String(Math.floor(this.random() * 100)).padStart(2, '0')}`,
       email: `${name.toLowerCase().replace(' ', '.')}.${this.counts.customers}@example.test`,
-      created_at: at,
-    });
+    };
+    const customerId = this.row('customers', { ...customer, created_at: at });
     this.counts.customers++;
     const model = this.pick(MODELS);
     const year = Math.floor(this.random() * YEAR_CODES.length);
     const serial = ++this.vehicleSerial;
     const letter = (n: number) => String.fromCharCode(65 + (n % 26));
+    const car = {
+      year: 2014 + year,
+      make: model.make,
+      model: model.model,
+      plate: `${letter(serial)}${letter(serial >> 5)}K-${serial % 10_000}`,
+    };
     const vehicle: Vehicle = {
       id: this.row('vehicles', {
+        ...car,
         customer_id: customerId,
         vin: makeVin(`${model.vinPrefix}${YEAR_CODES[year]}M${serial}`),
-        year: 2014 + year,
-        make: model.make,
-        model: model.model,
-        plate: `${letter(serial)}${letter(serial >> 5)}K-${serial % 10_000}`,
       }),
       customerId,
       odometer: Math.round(this.between(5_000, 90_000)),
+      details: {
+        customer_name: customer.name,
+        customer_phone: customer.phone,
+        customer_email: customer.email,
+        vehicle_year: car.year,
+        vehicle_make: car.make,
+        vehicle_model: car.model,
+        vehicle_plate: car.plate,
+      },
     };
     this.fleet.push(vehicle);
     return vehicle;
@@ -543,18 +559,30 @@ class ShopWriter {
     });
   }
 
-  /** Inserts one row through a statement prepared once per table and set of columns; answers its id. */
+  /**
+   * Inserts one row through a statement prepared once per table and set of columns; answers its id.
+   * A value for a column this database does not have is left out (a repair order's copy of the
+   * customer and vehicle comes with the office's search).
+   */
   private row(table: string, values: Record<string, Value>): number {
-    const columns = Object.keys(values);
-    const key = `${table}(${columns.join()})`;
+    let columns = this.columns.get(table);
+    if (!columns) {
+      const info = this.connection.pragma(`table_info(${table})`) as { name: string }[];
+      columns = new Set(info.map((column) => column.name));
+      this.columns.set(table, columns);
+    }
+    const names = Object.keys(values).filter((name) => columns.has(name));
+    const key = `${table}(${names.join()})`;
     let statement = this.statements.get(key);
     if (!statement) {
       statement = this.connection.prepare(
-        `insert into ${table} (${columns.join(', ')}) values (${columns.map((c) => `@${c}`).join(', ')})`,
+        `insert into ${table} (${names.join(', ')}) values (${names.map((c) => `@${c}`).join(', ')})`,
       );
       this.statements.set(key, statement);
     }
-    return Number(statement.run(values).lastInsertRowid);
+    const bound: Record<string, Value> = {};
+    for (const name of names) bound[name] = values[name]!;
+    return Number(statement.run(bound).lastInsertRowid);
   }
 
   private pick<T>(list: readonly T[]): T {
