@@ -19,6 +19,8 @@ import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
+/** How long a snapshot is handed out again while nothing was published: a restart's reconnect storm. */
+const SNAPSHOT_REUSE_MS = 250;
 
 /** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
 function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>): FloorLine | undefined {
@@ -39,6 +41,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
   /** Counted by dispatch from its forecasts; the board only carries the number. */
   private lateLines = 0;
   private subscription: Subscription | null = null;
+  private latest: { snapshot: BoardSnapshot; at: number } | null = null;
 
   constructor(
     private readonly floor: FloorService,
@@ -58,8 +61,18 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     this.subscription?.unsubscribe();
   }
 
-  current(): BoardSnapshot {
-    return this.snapshot(this.live.seq);
+  /**
+   * The floor now, for a screen that connects or asks. The same snapshot serves every screen that asks
+   * within a quarter second while no message went out (its `seq` still true), so a thousand sockets
+   * reconnecting after a restart cost a few snapshots, not a thousand.
+   */
+  current(now = Date.now()): BoardSnapshot {
+    const latest = this.latest;
+    if (latest && latest.snapshot.seq === this.live.seq && now - latest.at < SNAPSHOT_REUSE_MS)
+      return latest.snapshot;
+    const snapshot = this.snapshot(this.live.seq, new Date(now));
+    this.latest = { snapshot, at: now };
+    return snapshot;
   }
 
   /** Sends what changed since the last publication: a message per changed bay, one for people and queue. */

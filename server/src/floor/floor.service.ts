@@ -250,19 +250,17 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     this.technicianList = this.queries.technicians.all();
     const ids = new Set(this.technicianList.map((tech) => tech.id));
     for (const id of this.clocks.keys()) if (!ids.has(id)) this.clocks.delete(id);
-    for (const id of ids) if (!this.clocks.has(id)) this.clocks.set(id, this.readClock(id, now));
+    const firsts = this.firstPunchesOnOpenLines();
+    for (const id of ids)
+      if (!this.clocks.has(id)) this.clocks.set(id, this.readClock(id, now, firsts.get(id)));
   }
 
   /** A technician's punches from far enough back to hold any open shift and every punch on open lines. */
-  private readClock(technicianId: number, now: number): TechnicianPunches {
-    const lineIds = [...this.lines.keys()];
-    const first = lineIds.length
-      ? this.db
-          .select({ first: min(punches.at) })
-          .from(punches)
-          .where(and(eq(punches.technicianId, technicianId), inArray(punches.jobLineId, lineIds)))
-          .get()?.first
-      : null;
+  private readClock(
+    technicianId: number,
+    now: number,
+    first = this.firstPunchesOnOpenLines().get(technicianId),
+  ): TechnicianPunches {
     const windowStart = Math.min(now - RECENT_MS, first ? first.getTime() - SHIFT_LOOKBACK_MS : Infinity);
     const list = this.db
       .select()
@@ -272,6 +270,25 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
       .all()
       .map(toPunchDto);
     return { windowStart, punches: list, built: null };
+  }
+
+  /**
+   * Each technician's first punch on a line still open, read through the job-line index (a few rows
+   * per line). Asked per technician, SQLite walks that technician's whole history instead: 20 ms each
+   * on three years of punches.
+   */
+  private firstPunchesOnOpenLines(): Map<number, Date> {
+    const lineIds = [...this.lines.keys()];
+    if (lineIds.length === 0) return new Map();
+    const rows = this.db
+      .select({ technicianId: punches.technicianId, first: min(punches.at) })
+      .from(punches)
+      .where(inArray(punches.jobLineId, lineIds))
+      .groupBy(punches.technicianId)
+      .all();
+    return new Map(
+      rows.flatMap(({ technicianId, first }) => (first ? [[technicianId, first] as const] : [])),
+    );
   }
 
   /** A line opened again may have punches from before a technician's window: read those again. */

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq } from 'drizzle-orm';
-import { createTransport, type Transporter } from 'nodemailer';
+import type { Transporter } from 'nodemailer';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { DB, type Db } from '../db/database.js';
 import { mailOutbox, users } from '../db/schema/index.js';
@@ -23,6 +23,7 @@ export class MailSender {
     const server = this.config.smtpUrl
       ? { url: this.config.smtpUrl }
       : { host: '127.0.0.1', port: await this.mailbox.start(), secure: false, ignoreTLS: true };
+    const { createTransport } = await import('nodemailer');
     this.transport = createTransport({
       ...server,
       connectionTimeout: 10_000,

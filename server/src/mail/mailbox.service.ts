@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
-import { SMTPServer, type SMTPServerAddress, type SMTPServerSession } from 'smtp-server';
+import type { SMTPServer, SMTPServerAddress, SMTPServerSession } from 'smtp-server';
 import type { MailboxEntry, MailboxMessage, Page, PageQuery } from '@baytime/shared';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { JsonIndex } from './json-index.js';
@@ -31,6 +31,7 @@ export class MailboxService {
   /** Starts the fake SMTP server on a free loopback port and answers that port. */
   async start(): Promise<number> {
     mkdirSync(this.dir, { recursive: true });
+    const { SMTPServer } = await import('smtp-server');
     const server = new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS'],

@@ -55,6 +55,7 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
   private timer: NodeJS.Timeout | null = null;
   private chain: Promise<unknown> = Promise.resolve();
   private pendingFlushes = 0;
+  private starting: Promise<void> = Promise.resolve();
   private started = false;
   private stopped = false;
 
@@ -64,18 +65,23 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
     private readonly texts: TextSender,
   ) {}
 
-  async onApplicationBootstrap(): Promise<void> {
-    await this.mail.start();
-    this.texts.start();
-    this.started = true;
+  /** The senders start after start-up: the mail libraries load while the server already answers. */
+  onApplicationBootstrap(): void {
+    this.starting = Promise.all([this.mail.start(), this.texts.start()]).then(
+      () => {
+        this.started = true;
+        this.kick();
+      },
+      (error: unknown) => this.logger.error(`Messages cannot be sent: ${String(error)}`),
+    );
     this.timer = setInterval(() => this.kick(), SEND_EVERY_MS);
     this.timer.unref();
-    this.kick();
   }
 
   async onModuleDestroy(): Promise<void> {
     this.stopped = true;
     if (this.timer) clearInterval(this.timer);
+    await this.starting;
     await this.chain;
     await this.mail.stop();
   }
@@ -98,7 +104,10 @@ export class OutboxService implements OnApplicationBootstrap, OnModuleDestroy {
   /** Sends every queued message due at `now` (one flush at a time); answers how many went out. */
   flush(now?: Date): Promise<number> {
     this.pendingFlushes++;
-    const run = this.chain.then(() => this.sendDue(now ?? new Date())).finally(() => this.pendingFlushes--);
+    const run = this.chain
+      .then(() => this.starting)
+      .then(() => this.sendDue(now ?? new Date()))
+      .finally(() => this.pendingFlushes--);
     this.chain = run.catch(() => undefined);
     return run;
   }
