@@ -5,7 +5,8 @@ import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, bayTile, openWall, signInAtKiosk, signInAtOffice, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
-// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X; model year code K.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X;
+// model year code K.
 const VIN = '1M8GDM9AXKP042788';
 const WRONG_VIN = '1M8GDM9A4KP042788';
 // The same VIN as printed in groups on a document, pasted whole.

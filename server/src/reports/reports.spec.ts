@@ -231,7 +231,7 @@ describe(ReportsService.name, () => {
     expect(ada.lines[0]).toMatchObject({ bookHours: 5.4, flaggedHours: 5.4, clockedHours: 4.8 });
     expect(ada.lines[0]!.overUnderHours).toBeCloseTo(0.6, 6);
 
-    // NADA definitions via a dealer association bulletin "Measuring technician performance" (CHECKS.md §3):
+    // NADA definitions via a dealer association bulletin "Measuring technician performance":
     // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance,
     // 5 × 7.2 h clocked, 5 × 9.0 h flagged.
     const bram = rowOf(report, ids.b);
@@ -323,7 +323,7 @@ describe(ReportsService.name, () => {
     expect(bay.week).toBeCloseTo(0.81, 6);
   });
 
-  // 29 CFR 778.111(a), CHECKS.md §1 vector A: 50 h worked; $491.00 piece pay for 46 productive hours;
+  // 29 CFR 778.111(a), the regulation's piece-rate example: 50 h worked; $491.00 piece pay for 46 productive hours;
   // 4 h waiting at $8.00 → straight time $523.00, regular rate $523.00 ÷ 50 = $10.46, premium
   // 10 × $5.23 = $52.30, total $575.30 (= 40 × $10.46 + 10 × $15.69). Ada's week: 49.1 flagged h × $10.00
   // = $491.00; idle 07:00–07:06, 11:54–12:00, 12:30–12:36 and 17:00–17:30 = 0.8 h a day = 4 h × $8.00.
@@ -355,7 +355,7 @@ describe(ReportsService.name, () => {
     expect(ada.totalCents).toBe(40 * 10_46 + 10 * 15_69);
   });
 
-  // 29 USC 206(a)(1)(C), CHECKS.md §1: $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
+  // 29 USC 206(a)(1)(C): $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
   // h × $16.00 = $14.40 and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 → top-up $14.60.
   it('tops up to the minimum wage and totals the week', async () => {
     const report = await pay(`week=${week}`);
@@ -506,7 +506,7 @@ describe(ReportsService.name, () => {
     await as(owner).get('/api/reports/pay?format=xlsx').expect(400);
   });
 
-  // California Labor Code 510(a), CHECKS.md §2: hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
+  // California Labor Code 510(a), worked example of a general overtime guide (arithmetic checked): hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
   // 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
   it('pays the California daily-overtime vector when the shop chooses those rules', async () => {
     const earlier = addIsoWeeks(week, -1);

@@ -6,7 +6,8 @@ import { auditLog, repairOrders } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
-// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X, model year K = 2019.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X;
+// model year code K = 2019.
 const VALID_VIN = '1M8GDM9AXKP042788';
 
 describe(RepairOrdersService.name, () => {

@@ -11,7 +11,7 @@ import {
   vinTextSchema,
 } from './vin.js';
 
-// 49 CFR 565.15 (CHECKS.md §7): the widely used worked example, check digit X.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X.
 const WORKED_EXAMPLE = '1M8GDM9AXKP042788';
 const VIN_ALPHABET = 'ABCDEFGHJKLMNPRSTUVWXYZ0123456789';
 
@@ -24,7 +24,7 @@ function issues(result: {
 
 describe(vinCheckDigit.name, () => {
   it('gives X for the 49 CFR 565.15 worked example', () => {
-    // 49 CFR 565.15 worked example (CHECKS.md §7): remainder 10 is written X.
+    // 49 CFR 565.15: a remainder of 10 is written X; the worked example's check digit is X.
     expect(vinCheckDigit(WORKED_EXAMPLE)).toBe('X');
   });
 
@@ -41,7 +41,7 @@ describe(vinCheckDigit.name, () => {
 
 describe(isValidVin.name, () => {
   it('accepts the worked example in any case', () => {
-    // 49 CFR 565.15 worked example (CHECKS.md §7).
+    // The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788.
     expect(isValidVin(WORKED_EXAMPLE)).toBe(true);
     expect(isValidVin(WORKED_EXAMPLE.toLowerCase())).toBe(true);
   });
