@@ -111,7 +111,10 @@ describe(MailService.name, () => {
         .where(eq(customers.id, ro.customerId))
         .run();
       const subject = `Marlow Creek Auto Care: approval needed for RO ${ro.number}`;
+      // Stored to the second: the request's time, floored.
+      const requestedFrom = Math.floor(Date.now() / 1000) * 1000;
       const queued = (await request().expect(202)).body as MailQueued;
+      const requestedTo = Date.now();
       expect(queued).toMatchObject({ to: 'harriet@example.test', subject, attachments: ['photo-1.png'] });
 
       const entry = await received(subject);
@@ -137,7 +140,9 @@ describe(MailService.name, () => {
 
       const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' })).body
         .items as FindingDto[];
-      expect(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt).not.toBeNull();
+      const requestedAt = Date.parse(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt ?? '');
+      expect(requestedAt).toBeGreaterThanOrEqual(requestedFrom);
+      expect(requestedAt).toBeLessThanOrEqual(requestedTo);
     });
 
     it('sends the ready notice only when every line of the RO is done', async () => {

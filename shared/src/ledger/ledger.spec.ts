@@ -242,7 +242,7 @@ describe(buildLedger.name, () => {
         new Date(),
         even,
       ),
-    ).toThrow();
+    ).toThrow('A ledger is for one technician');
   });
 });
 

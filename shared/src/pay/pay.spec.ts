@@ -204,7 +204,9 @@ describe(estimateWeeklyPay.name, () => {
     });
 
     it('needs the hours of each workday', () => {
-      expect(() => estimateWeeklyPay(week({ hoursWorked: 8 }), california)).toThrow();
+      expect(() => estimateWeeklyPay(week({ hoursWorked: 8 }), california)).toThrow(
+        'California overtime needs the hours of each workday',
+      );
     });
   });
 });
