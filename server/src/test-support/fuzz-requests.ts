@@ -38,6 +38,9 @@ export const POOLS = [
 export type PoolName = (typeof POOLS)[number];
 export type Pools = Record<PoolName, readonly (number | string)[]>;
 
+/** An id no row has. */
+const MISSING_ID = 999_999;
+
 /** A real row, picked when the request is sent: rows come and go as the fuzz runs. */
 export class RealId {
   constructor(
@@ -47,7 +50,7 @@ export class RealId {
 
   in(pools: Pools): number | string {
     const ids = pools[this.pool];
-    return ids.length ? ids[this.pick % ids.length]! : 999_999;
+    return ids.length ? ids[this.pick % ids.length]! : MISSING_ID;
   }
 }
 
@@ -93,9 +96,9 @@ const real = (pool: PoolName): Arbitrary<RealId> =>
   fc.nat({ max: 10_000 }).map((pick) => new RealId(pool, pick));
 /** In a body: mostly a real row, sometimes one that does not exist (every reference is checked first). */
 const ref = (pool: PoolName): Arbitrary<RealId | number> =>
-  fc.oneof({ weight: 9, arbitrary: real(pool) }, { weight: 1, arbitrary: fc.constant(999_999) });
+  fc.oneof({ weight: 9, arbitrary: real(pool) }, { weight: 1, arbitrary: fc.constant(MISSING_ID) });
 
-/** Values that have broken parsers before: edges of numbers, dates and text, and wrong types. */
+/** Values that trip parsers and checks: edges of numbers, dates and text, hidden characters, wrong types. */
 const NASTY = [
   null,
   true,
@@ -167,7 +170,10 @@ const instant = (fromMs: number, toMs: number) =>
 const HOUR = 3600_000;
 const DAY = 24 * HOUR;
 const text = (maxLength: number, examples: string[]) =>
-  fc.oneof(fc.constantFrom(...examples), fc.string({ minLength: 1, maxLength }));
+  fc.oneof(
+    { weight: 3, arbitrary: fc.constantFrom(...examples) },
+    { weight: 1, arbitrary: fc.string({ minLength: 1, maxLength }) },
+  );
 const email = fc.oneof(
   fc
     .tuple(fc.stringMatching(/^[a-z]{1,12}$/), fc.stringMatching(/^[a-z]{1,12}$/))
@@ -206,7 +212,7 @@ const vin = fc.oneof(
   real('vin'),
   fc.constantFrom('1M8GDM9AXKP042788', '1M8GDM9A4KP042788', '7Y37J5G123456'),
 );
-const page = { limit: loose(digits(1, 4)), cursor: loose(fc.string({ maxLength: 20 })) };
+const page = { limit: digits(1, 4), cursor: fc.string({ maxLength: 20 }) };
 
 /** What the fuzz sends to one route: the pool its `:id` names, and its query and body. */
 export interface RouteFuzz {
@@ -495,17 +501,41 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   },
   'get /api/timecards': { query: query({ technicianId: ref('technician'), week: isoWeek }) },
   'post /api/timecards/corrections': {
-    body: body(
-      {
-        punchId: ref('punch'),
-        technicianId: ref('technician'),
-        kind: fc.constantFrom(...PUNCH_KINDS),
-        at: instant(-20 * DAY, 0),
-        jobLineId: ref('jobLine'),
-        breakKind: fc.constantFrom(...BREAK_KINDS),
-        reason: text(500, ['From the paper timesheet']),
-      },
-      ['technicianId', 'kind', 'at', 'reason'],
+    // A missed punch added, a punch superseded, and then anything.
+    body: fc.oneof(
+      body(
+        {
+          technicianId: ref('technician'),
+          kind: fc.constantFrom('shift-in', 'shift-out', 'break-start', 'break-end'),
+          at: instant(-20 * DAY, 0),
+          breakKind: fc.constantFrom(...BREAK_KINDS),
+          reason: text(500, ['From the paper timesheet']),
+        },
+        ['technicianId', 'kind', 'at', 'reason'],
+      ),
+      body(
+        {
+          punchId: ref('punch'),
+          technicianId: ref('technician'),
+          kind: fc.constantFrom(...PUNCH_KINDS),
+          at: instant(-20 * DAY, 0),
+          jobLineId: ref('jobLine'),
+          reason: text(500, ['Tapped the wrong line']),
+        },
+        ['punchId', 'technicianId', 'kind', 'at', 'reason'],
+      ),
+      body(
+        {
+          punchId: ref('punch'),
+          technicianId: ref('technician'),
+          kind: fc.constantFrom(...PUNCH_KINDS),
+          at: instant(-20 * DAY, 0),
+          jobLineId: ref('jobLine'),
+          breakKind: fc.constantFrom(...BREAK_KINDS),
+          reason: text(500, ['From the paper timesheet']),
+        },
+        ['technicianId', 'kind', 'at', 'reason'],
+      ),
     ),
   },
   'get /api/reports/labour': {
@@ -513,18 +543,43 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   },
   'get /api/reports/pay': { query: query({ week: isoWeek, format: fc.constantFrom('json', 'csv', 'pdf') }) },
   'post /api/timers': {
-    body: body(
-      {
-        jobLineId: ref('jobLine'),
-        bayId: ref('bay'),
-        kind: fc.constantFrom(...TIMER_KINDS),
-        targetC: fc.double({ min: -40, max: 300, noNaN: true }),
-        ambientC: fc.double({ min: -40, max: 300, noNaN: true }),
-        durationSeconds: fc.integer({ min: 10, max: 48 * 3600 }),
-        label: text(60, ['Vacuum hold']),
-        cautionAcknowledged: fc.boolean(),
-      },
-      ['jobLineId', 'kind'],
+    // Shaped like the kiosk's two forms, a fixed hold and a temperature timer, and then anything.
+    body: fc.oneof(
+      body(
+        {
+          jobLineId: ref('jobLine'),
+          bayId: ref('bay'),
+          kind: fc.constant('hold'),
+          durationSeconds: fc.integer({ min: 10, max: 48 * 3600 }),
+          label: text(60, ['Vacuum hold']),
+        },
+        ['jobLineId', 'kind', 'durationSeconds'],
+      ),
+      body(
+        {
+          jobLineId: ref('jobLine'),
+          bayId: ref('bay'),
+          kind: fc.constantFrom('warm-up', 'cool-down'),
+          targetC: fc.double({ min: -40, max: 300, noNaN: true }),
+          ambientC: fc.double({ min: -40, max: 300, noNaN: true }),
+          label: text(60, ['Transmission fluid']),
+          cautionAcknowledged: fc.constant(true),
+        },
+        ['jobLineId', 'kind', 'targetC', 'cautionAcknowledged'],
+      ),
+      body(
+        {
+          jobLineId: ref('jobLine'),
+          bayId: ref('bay'),
+          kind: fc.constantFrom(...TIMER_KINDS),
+          targetC: fc.double({ min: -40, max: 300, noNaN: true }),
+          ambientC: fc.double({ min: -40, max: 300, noNaN: true }),
+          durationSeconds: fc.integer({ min: 10, max: 48 * 3600 }),
+          label: text(60, ['Vacuum hold']),
+          cautionAcknowledged: fc.boolean(),
+        },
+        ['jobLineId', 'kind'],
+      ),
     ),
   },
   'post /api/timers/:id/readings': {
@@ -573,8 +628,18 @@ const CONTENT_TYPES = [
   'multipart/form-data; boundary=fuzz',
 ] as const;
 
-export type Caller =
-  'owner' | 'foreman' | 'advisor' | 'technician' | 'otherTechnician' | 'display' | 'nobody' | 'forged';
+/** Who sends a request: a token of each role (two technicians), none, or one signed with another secret. */
+export const CALLERS = [
+  'owner',
+  'foreman',
+  'advisor',
+  'technician',
+  'otherTechnician',
+  'display',
+  'nobody',
+  'forged',
+] as const;
+export type Caller = (typeof CALLERS)[number];
 
 export interface FuzzRequest {
   method: Method;
@@ -628,23 +693,8 @@ export function fuzzRequests(
         { weight: 1, arbitrary: fc.constantFrom(...CONTENT_TYPES.slice(1)) },
       ),
       caller: fc.oneof(
-        {
-          weight: 10,
-          arbitrary: callers.length ? fc.constantFrom(...callers) : fc.constant<Caller>('owner'),
-        },
-        {
-          weight: 2,
-          arbitrary: fc.constantFrom<Caller>(
-            'owner',
-            'foreman',
-            'advisor',
-            'technician',
-            'otherTechnician',
-            'display',
-            'nobody',
-            'forged',
-          ),
-        },
+        { weight: 10, arbitrary: fc.constantFrom(...callers) },
+        { weight: 2, arbitrary: fc.constantFrom(...CALLERS) },
       ),
     });
   });
