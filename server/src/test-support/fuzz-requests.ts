@@ -214,6 +214,15 @@ const vin = fc.oneof(
 );
 const page = { limit: digits(1, 4), cursor: fc.string({ maxLength: 20 }) };
 
+const supersedingCorrection = {
+  punchId: ref('punch'),
+  technicianId: ref('technician'),
+  kind: fc.constantFrom(...PUNCH_KINDS),
+  at: instant(-20 * DAY, 0),
+  jobLineId: ref('jobLine'),
+  reason: text(500, ['Tapped the wrong line']),
+};
+
 /** What the fuzz sends to one route: the pool its `:id` names, and its query and body. */
 export interface RouteFuzz {
   id?: PoolName;
@@ -513,29 +522,13 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
         },
         ['technicianId', 'kind', 'at', 'reason'],
       ),
-      body(
-        {
-          punchId: ref('punch'),
-          technicianId: ref('technician'),
-          kind: fc.constantFrom(...PUNCH_KINDS),
-          at: instant(-20 * DAY, 0),
-          jobLineId: ref('jobLine'),
-          reason: text(500, ['Tapped the wrong line']),
-        },
-        ['punchId', 'technicianId', 'kind', 'at', 'reason'],
-      ),
-      body(
-        {
-          punchId: ref('punch'),
-          technicianId: ref('technician'),
-          kind: fc.constantFrom(...PUNCH_KINDS),
-          at: instant(-20 * DAY, 0),
-          jobLineId: ref('jobLine'),
-          breakKind: fc.constantFrom(...BREAK_KINDS),
-          reason: text(500, ['From the paper timesheet']),
-        },
-        ['technicianId', 'kind', 'at', 'reason'],
-      ),
+      body(supersedingCorrection, ['punchId', 'technicianId', 'kind', 'at', 'reason']),
+      body({ ...supersedingCorrection, breakKind: fc.constantFrom(...BREAK_KINDS) }, [
+        'technicianId',
+        'kind',
+        'at',
+        'reason',
+      ]),
     ),
   },
   'get /api/reports/labour': {
