@@ -15,7 +15,14 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'server', include: ['server/src/**/*.spec.ts'], pool: 'forks', testTimeout: 20_000 },
+        // Starting the app in a hook takes more than vitest's 10 s default on a busy 2-core machine.
+        test: {
+          name: 'server',
+          include: ['server/src/**/*.spec.ts'],
+          pool: 'forks',
+          testTimeout: 20_000,
+          hookTimeout: 30_000,
+        },
       },
       {
         extends: true,

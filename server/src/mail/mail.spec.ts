@@ -129,6 +129,8 @@ describe(OutboxService.name, () => {
         .where(eq(customers.id, ro.customerId))
         .run();
       const subject = `Marlow Creek Auto Care: approval needed for RO ${ro.number}`;
+      // Stored to the second: the request's time, floored.
+      const requestedFrom = Math.floor(Date.now() / 1000) * 1000;
       const queued = (await request().expect(201)).body as ApprovalRequested;
       expect(queued.mail).toMatchObject({
         to: 'harriet@example.test',
@@ -136,6 +138,7 @@ describe(OutboxService.name, () => {
         attachments: ['photo-1.png'],
       });
       expect(queued.text).toMatchObject({ to: '+16085550177' });
+      const requestedTo = Date.now();
 
       const entry = await received(subject);
       expect(entry).toMatchObject({
@@ -172,7 +175,9 @@ describe(OutboxService.name, () => {
 
       const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' })).body
         .items as FindingDto[];
-      expect(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt).not.toBeNull();
+      const requestedAt = Date.parse(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt ?? '');
+      expect(requestedAt).toBeGreaterThanOrEqual(requestedFrom);
+      expect(requestedAt).toBeLessThanOrEqual(requestedTo);
     });
 
     it('sends the ready notice only when every line of the RO is done', async () => {

@@ -6,7 +6,8 @@ import { auditLog, repairOrders } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
-// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X, model year K = 2019.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X;
+// model year code K = 2019.
 const VALID_VIN = '1M8GDM9AXKP042788';
 
 describe(RepairOrdersService.name, () => {
@@ -103,7 +104,11 @@ describe(RepairOrdersService.name, () => {
       .body as DispatchBoard;
     expect(after.bays.find((b) => b.id === bay3.id)!.state).toBe('staged');
     const lane = after.lanes.find((l) => l.technician.id === tech.user.id)!;
-    expect(lane.lines.find((l) => l.id === ro.lines[0].id)!.forecast).not.toBeNull();
+    // No promise was given, so it cannot be late; it starts now or later and takes time.
+    const { forecast } = lane.lines.find((l) => l.id === ro.lines[0].id)!;
+    expect(forecast).toMatchObject({ late: false });
+    expect(Date.parse(forecast!.startAt)).toBeGreaterThanOrEqual(Date.parse(after.serverTime) - 1000);
+    expect(Date.parse(forecast!.finishAt)).toBeGreaterThan(Date.parse(forecast!.startAt));
   });
 
   it('lets the owner keep an operations menu', async () => {
