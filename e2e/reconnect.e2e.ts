@@ -24,10 +24,16 @@ class BoardView {
   constructor(readonly socket: Client) {
     socket.on('board.snapshot', (snapshot) => (this.board = boardFromSnapshot(snapshot, Date.now())));
     socket.on('bay.updated', ({ seq, bay }) => this.apply({ type: 'bay.updated', seq, bay }));
-    socket.on('floor.updated', ({ seq, people, queue, lateLines }) =>
-      this.apply({ type: 'floor.updated', seq, people, queue, lateLines }),
+    socket.on('floor.updated', ({ seq, people, queue, lateLines, bayIds }) =>
+      this.apply({ type: 'floor.updated', seq, people, queue, lateLines, bayIds }),
     );
-    for (const event of ['punch.recorded', 'job-line.updated', 'timer.updated', 'finding.created'] as const)
+    for (const event of [
+      'punch.recorded',
+      'job-line.updated',
+      'timer.updated',
+      'finding.created',
+      'repair-order.updated',
+    ] as const)
       socket.on(event, ({ seq }: { seq: number }) => this.apply({ type: 'other', seq }));
   }
   private apply(event: BoardEvent) {

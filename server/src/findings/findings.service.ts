@@ -2,6 +2,7 @@ import { ConflictException, Inject, Injectable, Logger, type StreamableFile } fr
 import { and, asc, count, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type {
+  ChangeFindingAnswerBody,
   CreateFindingBody,
   FindingAnswerBody,
   FindingAnswerResult,
@@ -32,6 +33,7 @@ import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
+import { syncRepairOrderStatus } from '../work/repair-order-status.js';
 import { NoticesService } from './notices.service.js';
 import { PhotoStore, type StoredPhoto } from './photo-store.js';
 import type { UploadedPhoto } from './photo-upload.js';
@@ -212,8 +214,6 @@ export class FindingsService {
           })
           .returning()
           .get();
-        if (ro.status === 'done')
-          tx.update(repairOrders).set({ status: 'open' }).where(eq(repairOrders.id, ro.id)).run();
       }
       tx.update(findings)
         .set({ answer: body.answer, answeredBy: actor.id, answeredAt: now, createdLineId: createdLine?.id })
@@ -246,6 +246,8 @@ export class FindingsService {
       now,
     );
 
+    syncRepairOrderStatus(this.db, ro.id);
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
     let createdLine: JobLineDto | null = null;
     if (created) {
       createdLine = toJobLineDto(created);
@@ -253,6 +255,59 @@ export class FindingsService {
       this.floor.linesChanged([created.id]);
     }
     return { finding: this.get(id), createdLine, resumedLine: this.resumeIfAnswered(line.id, actor, now) };
+  }
+
+  /**
+   * Changes a recorded answer, with a reason. No to yes adds the line a yes adds; yes to no cancels
+   * the line the yes added, which is refused once that line is done.
+   */
+  @Transactional()
+  changeAnswer(
+    id: number,
+    body: ChangeFindingAnswerBody,
+    actor: Principal,
+    now = new Date(),
+  ): FindingAnswerResult {
+    const finding = foundOrFail(this.db.select().from(findings).where(eq(findings.id, id)).get(), 'Finding');
+    if (finding.answer === 'pending')
+      throw new ConflictException('That finding has no answer yet: answer it');
+    if (finding.answer === body.answer) throw new ConflictException(`That finding is already ${body.answer}`);
+    const line = this.db.select().from(jobLines).where(eq(jobLines.id, finding.jobLineId)).get()!;
+    let createdLine: JobLineDto | null = null;
+    if (body.answer === 'declined' && finding.createdLineId !== null) {
+      const added = this.db.select().from(jobLines).where(eq(jobLines.id, finding.createdLineId)).get();
+      if (added?.status === 'done')
+        throw new ConflictException('The work the yes added is done already: the answer stays');
+      if (added && added.status !== 'cancelled')
+        this.lines.cancel(added.id, { reason: `Customer's answer changed: ${body.reason}` }, actor, now);
+      this.db
+        .update(findings)
+        .set({ answer: 'declined', createdLineId: null })
+        .where(eq(findings.id, id))
+        .run();
+    }
+    if (body.answer === 'approved') {
+      this.db.update(findings).set({ answer: 'pending' }).where(eq(findings.id, id)).run();
+      createdLine = this.answer(
+        id,
+        { answer: 'approved', bookHours: body.bookHours, title: body.title },
+        actor,
+        now,
+      ).createdLine;
+    }
+    this.db.update(findings).set({ answeredBy: actor.id, answeredAt: now }).where(eq(findings.id, id)).run();
+    this.audit.record(
+      {
+        actorId: actor.id,
+        action: 'finding-answer-changed',
+        entity: 'repair-order',
+        entityId: line.repairOrderId,
+        detail: { findingId: id, from: finding.answer, answer: body.answer, reason: body.reason },
+      },
+      now,
+    );
+    this.live.publish('repair-order.updated', { repairOrderId: line.repairOrderId });
+    return { finding: this.get(id), createdLine, resumedLine: null };
   }
 
   /**
@@ -291,8 +346,13 @@ export class FindingsService {
       'Job line',
     );
     this.access.assertMayWork(line, actor, now);
-    if (body.holdForApproval && line.status === 'done')
-      throw new ConflictException('That line is already done: it cannot be held for approval');
+    if (
+      body.holdForApproval &&
+      line.status !== 'queued' &&
+      line.status !== 'working' &&
+      line.status !== 'held'
+    )
+      throw new ConflictException(`That line is already ${line.status}: it cannot be held for approval`);
     return line;
   }
 

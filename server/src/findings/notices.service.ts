@@ -1,6 +1,6 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq } from 'drizzle-orm';
-import { FINDING_SEVERITY_WORDS, type MailQueued } from '@baytime/shared';
+import { FINDING_SEVERITY_WORDS, isOpenLine, repairOrderStatus, type MailQueued } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { describeVehicle } from '../floor/describe-vehicle.js';
@@ -16,6 +16,7 @@ import {
   users,
   vehicles,
 } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import { MailService, type OutgoingMail } from '../mail/mail.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { PhotoStore } from './photo-store.js';
@@ -35,6 +36,7 @@ export class NoticesService {
     private readonly shop: ShopService,
     private readonly audit: AuditService,
     private readonly photos: PhotoStore,
+    private readonly live: LiveService,
   ) {}
 
   /** Asks the customer to approve the extra work, with the finding's photos attached. */
@@ -82,7 +84,10 @@ export class NoticesService {
     return queued;
   }
 
-  /** Tells the customer the vehicle is ready, once every line on the repair order is done. */
+  /**
+   * Tells the customer the vehicle is ready, once the work on the repair order is done (every line
+   * done or cancelled) and the vehicle is still here. Written into the RO's history.
+   */
   @Transactional()
   readyNotice(repairOrderId: number, actor: Principal): MailQueued {
     const { ro, vehicle, customer } = foundOrFail(
@@ -101,10 +106,12 @@ export class NoticesService {
       .where(eq(jobLines.repairOrderId, repairOrderId))
       .orderBy(asc(jobLines.lineNo))
       .all();
-    const open = lines.filter((line) => line.status !== 'done');
-    if (!lines.length || open.length)
+    if (ro.status === 'closed')
+      throw new ConflictException(`RO ${ro.number} is closed: the vehicle was picked up`);
+    const open = lines.filter(isOpenLine);
+    if (repairOrderStatus(lines, ro.closedAt) !== 'done')
       throw new ConflictException(
-        `Not every job line on RO ${ro.number} is done yet (${open.length} of ${lines.length} open)`,
+        `The work on RO ${ro.number} is not done yet (${open.length} of ${lines.length} lines open)`,
       );
     const to = this.customerEmail(customer);
     const shop = this.shop.settings().name;
@@ -121,7 +128,7 @@ export class NoticesService {
       `Your ${describeVehicle(vehicle)} is ready to collect (repair order ${ro.number}).`,
       '',
       'Work done:',
-      ...lines.map((line) => `- ${line.title}`),
+      ...lines.filter((line) => line.status === 'done').map((line) => `- ${line.title}`),
       ...(declined.length
         ? ['', 'We also found, and did not do as you asked (worth another look later):']
         : []),
@@ -142,6 +149,7 @@ export class NoticesService {
       entityId: repairOrderId,
       detail: { mailId: queued.mailId, to },
     });
+    this.live.publish('repair-order.updated', { repairOrderId });
     return queued;
   }
 

@@ -33,6 +33,8 @@ function line(overrides: Partial<DispatchLine> = {}): DispatchLine {
     technicianId: null,
     bayId: null,
     promisedAt: null,
+    concern: 'Customer asks for a look',
+    late: false,
     queuedAt: '2026-03-02T14:00:00.000Z',
     clockedSeconds: 0,
     clockedOn: [],

@@ -20,10 +20,16 @@ import {
 const NOW = Date.parse('2026-12-01T20:00:00.000Z'); // Tue 2:00 PM in Chicago
 
 function jobLine(
-  overrides: Partial<JobLineDto & { clockedSeconds: number }> = {},
-): JobLineDto & { clockedSeconds: number } {
+  overrides: Partial<JobLineDto & { clockedSeconds: number; late: boolean }> = {},
+): JobLineDto & { clockedSeconds: number; late: boolean } {
   return {
     clockedSeconds: 0,
+    late: false,
+    completedBy: null,
+    concern: 'Customer asks for a thermostat',
+    cause: null,
+    correction: null,
+    cancelReason: null,
     id: 1,
     repairOrderId: 1,
     lineNo: 1,
@@ -58,6 +64,8 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     status: 'open',
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
+    closedAt: null,
+    late: false,
     lines: [jobLine()],
     ...overrides,
   };

@@ -136,7 +136,13 @@ export interface LineRow {
   forecast: DispatchLine['forecast'];
 }
 
-const STATUS_WORDS = { queued: 'Waiting', working: 'Working', held: 'Held', done: 'Done' } as const;
+const STATUS_WORDS = {
+  queued: 'Waiting',
+  working: 'Working',
+  held: 'Held',
+  done: 'Done',
+  cancelled: 'Cancelled',
+} as const;
 
 export function lineStatusText(line: Pick<JobLineDto, 'status' | 'holdReason'>): string {
   return line.status === 'held' && line.holdReason

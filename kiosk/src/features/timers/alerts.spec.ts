@@ -20,6 +20,7 @@ function timer(id: number, changes: Partial<TimerDto> = {}): TimerDto {
     id,
     kind: 'warm-up',
     jobLineId: 10 + id,
+    lineTechnicianId: 7,
     bayId: id,
     label: null,
     targetC: 80,

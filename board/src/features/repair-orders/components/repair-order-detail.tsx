@@ -105,6 +105,7 @@ const LINE_STATUS_COLOURS = {
   working: 'brand',
   held: 'warning',
   done: 'success',
+  cancelled: 'subtle',
 } as const;
 
 export interface RepairOrderDetailProps {

@@ -18,9 +18,16 @@ const STATUS_WORDS: Record<JobLineStatus, string> = {
   working: 'Working',
   held: 'Held',
   done: 'Done',
+  cancelled: 'Cancelled',
 };
 
-const STATUS_ICONS = { queued: QueueIcon, working: WrenchIcon, held: PauseIcon, done: CheckIcon } as const;
+const STATUS_ICONS = {
+  queued: QueueIcon,
+  working: WrenchIcon,
+  held: PauseIcon,
+  done: CheckIcon,
+  cancelled: StopIcon,
+} as const;
 
 export type ClockAction =
   | { kind: 'clock-on' }
