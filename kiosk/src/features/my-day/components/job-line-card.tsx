@@ -33,7 +33,8 @@ export type ClockAction =
   | { kind: 'clock-on' }
   | { kind: 'clock-off' }
   | { kind: 'switch'; fromLabel: string }
-  | { kind: 'resume' }
+  /** `clockOn`: the technician can work it now, so resuming clocks them on as well. */
+  | { kind: 'resume'; clockOn: boolean }
   | { kind: 'none'; hint: string | null };
 
 export interface JobLineCardProps {
@@ -77,7 +78,10 @@ export function JobLineCard({
   const statusWord =
     line.status === 'held' && line.holdReason
       ? `Held · ${HOLD_SHORT[line.holdReason]}`
-      : STATUS_WORDS[line.status];
+      : line.status === 'working' && !line.clockedOn
+        ? // Started before, or someone else is on it: "Working" is for the line this tech is on now.
+          'Started'
+        : STATUS_WORDS[line.status];
   const open = line.status !== 'done';
 
   return (
@@ -102,6 +106,7 @@ export function JobLineCard({
         </header>
         <h3 className="bt-line__title">{line.title}</h3>
         <p className="bt-line__vehicle">{line.vehicle}</p>
+        <p className="bt-line__concern">Concern: {line.concern}</p>
         <dl className="bt-line__times">
           <div>
             <dt>Book</dt>
@@ -147,7 +152,7 @@ export function JobLineCard({
         )}
         {action.kind === 'resume' && (
           <button type="button" className="bt-action bt-action--held" onClick={onResume} disabled={resuming}>
-            <PlayIcon /> {resuming ? 'Resuming…' : 'Resume'}
+            <PlayIcon /> {resuming ? 'Resuming…' : action.clockOn ? 'Resume and clock on' : 'Resume'}
           </button>
         )}
         {action.kind === 'none' && action.hint && <p className="bt-line__hint">{action.hint}</p>}

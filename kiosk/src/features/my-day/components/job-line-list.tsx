@@ -25,13 +25,17 @@ export const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line $
 export const lineContext = (line: DayLine) =>
   `RO ${line.repairOrderNumber} · line ${line.lineNo}${line.bayName ? ` · ${line.bayName}` : ''} — ${line.title}`;
 
-function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {
+export function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {
   if (line.clockedOn) return { kind: 'clock-off' };
-  if (line.status === 'done') return { kind: 'none', hint: null };
-  if (line.status === 'held') return { kind: 'resume' };
+  if (line.status === 'done' || line.status === 'cancelled') return { kind: 'none', hint: null };
+  const running = view.lines.filter((l) => l.clockedOn);
+  if (line.status === 'held')
+    return {
+      kind: 'resume',
+      clockOn: view.shift.status === 'on-shift' && running.length < maxConcurrentJobs,
+    };
   if (view.shift.status === 'off') return { kind: 'none', hint: 'Start your shift to clock on' };
   if (view.shift.status === 'on-break') return { kind: 'none', hint: 'End your break to clock on' };
-  const running = view.lines.filter((l) => l.clockedOn);
   if (running.length < maxConcurrentJobs) return { kind: 'clock-on' };
   if (maxConcurrentJobs === 1 && running[0]) return { kind: 'switch', fromLabel: lineLabel(running[0]) };
   return { kind: 'none', hint: `You are on ${running.length} lines: clock one off first` };
@@ -104,7 +108,14 @@ export function JobLineList({
               }
               onHold={() => onRequest(line, 'hold')}
               onDone={() => onRequest(line, 'done')}
-              onResume={() => resume.mutate(line.id)}
+              onResume={() =>
+                resume.mutate(line.id, {
+                  onSuccess: () => {
+                    if (action.kind === 'resume' && action.clockOn)
+                      onPunch([{ kind: 'job-on', jobLineId: line.id, label: `Clock on ${lineLabel(line)}` }]);
+                  },
+                })
+              }
               resuming={resume.isPending && resumingThis}
               problem={resume.isError && resumingThis ? commandProblem(resume.error) : null}
               tools={renderTools?.(line)}
