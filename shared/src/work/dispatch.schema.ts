@@ -36,7 +36,8 @@ export interface DispatchBoard {
   serverTime: string;
   queue: DispatchLine[];
   lanes: DispatchLane[];
-  bays: { id: number; name: string; state: BayState }[];
+  /** Each bay with the RO it holds (being worked on, or parked for a final check or pick-up). */
+  bays: { id: number; name: string; state: BayState; repairOrderId: number | null }[];
   lateCount: number;
   /** Why there are no forecasts, in plain words; null when there are. */
   forecastNote: string | null;

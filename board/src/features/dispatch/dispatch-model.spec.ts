@@ -58,8 +58,8 @@ function board(queue: DispatchLine[], lanes: DispatchLane[]): DispatchBoard {
     queue,
     lanes,
     bays: [
-      { id: 1, name: 'Bay 1', state: 'working' },
-      { id: 2, name: 'Bay 2', state: 'free' },
+      { id: 1, name: 'Bay 1', state: 'working', repairOrderId: 101 },
+      { id: 2, name: 'Bay 2', state: 'free', repairOrderId: null },
     ],
     lateCount: 0,
     forecastNote: null,

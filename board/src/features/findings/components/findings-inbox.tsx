@@ -1,4 +1,6 @@
 import { useCallback, useMemo, useState } from 'react';
+import { Link as RouterLink } from 'react-router';
+import { paths } from '@/config/paths';
 import {
   Badge,
   Body1,
@@ -22,7 +24,6 @@ import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useFindings } from '../api/get-findings';
 import { useRequestApproval } from '../api/request-approval';
-import { useSendReadyNotice } from '../api/send-ready-notice';
 import { groupAnswered, sortPending, type AnsweredGroup } from '../findings-model';
 import { useFindingsLive } from '../hooks/use-findings-live';
 import { useMinuteNow } from '@/hooks/use-minute-now';
@@ -93,15 +94,12 @@ function answerSummary(result: FindingAnswerResult): string {
 
 function AnsweredGroupCard({
   group,
-  role,
   formatWhen,
 }: {
   group: AnsweredGroup;
-  role: InboxRole;
   formatWhen: (iso: string) => string;
 }) {
   const styles = useStyles();
-  const notice = useSendReadyNotice();
   return (
     <Card className={styles.group}>
       <div className={styles.groupHead}>
@@ -109,22 +107,9 @@ function AnsweredGroupCard({
         <Text>{group.vehicle}</Text>
         <Text className={styles.dim}>· {group.customerName}</Text>
         <span className={styles.spacer} />
-        {role === 'advisor' && (
-          <Button disabled={notice.isPending} onClick={() => notice.mutate(group.repairOrderId)}>
-            {notice.isPending ? 'Sending…' : 'E-mail the customer: vehicle ready'}
-          </Button>
-        )}
+        {/* The ready notice goes from the RO page, once the work is done. */}
+        <RouterLink to={paths.repairOrder(group.repairOrderId)}>Open RO {group.repairOrderNumber}</RouterLink>
       </div>
-      {notice.isSuccess && (
-        <Caption1 className={styles.status} role="status">
-          Ready notice sent to {notice.data.to}.
-        </Caption1>
-      )}
-      {notice.isError && (
-        <Caption1 className={styles.statusError} role="alert">
-          {formErrorText(notice.error)}
-        </Caption1>
-      )}
       {group.findings.map((finding) => (
         <div key={finding.id} className={styles.answered}>
           <div className={styles.answeredText}>
@@ -348,7 +333,7 @@ export function FindingsInbox({
       ) : (
         <div className={styles.list}>
           {groups.map((group) => (
-            <AnsweredGroupCard key={group.repairOrderId} group={group} role={role} formatWhen={formatWhen} />
+            <AnsweredGroupCard key={group.repairOrderId} group={group} formatWhen={formatWhen} />
           ))}
           {answeredNotShown > 0 && (
             <Caption1 className={styles.dim}>
