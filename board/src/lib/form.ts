@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type FieldValues, type Path, type UseFormProps, type UseFormReturn } from 'react-hook-form';
-import type { z } from 'zod';
+import { z } from 'zod';
 import { ApiError } from '@baytime/shared/client';
 import { formErrorText } from './form-errors';
 
@@ -28,4 +28,26 @@ export function showServerErrors<Values extends FieldValues>(
   for (const [path, message] of fields)
     form.setError((fieldOf[path] ?? path) as Path<Values>, { type: 'server', message });
   if (fields.length === 0) form.setError('root.server', { type: 'server', message: formErrorText(error) });
+}
+
+/**
+ * For a form whose fields are typed otherwise than the body (dollars typed, cents sent): the form's
+ * values become the body, which the `shared` schema checks, and each of its issues lands on the
+ * field it came from (`fieldOf` names the form field of a body path where they differ).
+ */
+export function checkedAsBody<Form extends z.ZodType<FieldValues, FieldValues>, Body extends z.ZodType>(
+  form: Form,
+  toBody: (values: z.output<Form>) => unknown,
+  body: Body,
+  fieldOf: Record<string, string> = {},
+) {
+  return form.transform((values, ctx): z.output<Body> => {
+    const parsed = body.safeParse(toBody(values));
+    if (parsed.success) return parsed.data;
+    for (const issue of parsed.error.issues) {
+      const path = issue.path.map(String).join('.');
+      ctx.addIssue({ code: 'custom', message: issue.message, path: [fieldOf[path] ?? path] });
+    }
+    return z.NEVER;
+  });
 }
