@@ -27,7 +27,7 @@ import { useRequestApproval } from '../api/request-approval';
 import { groupAnswered, sortPending, type AnsweredGroup } from '../findings-model';
 import { useFindingsLive } from '../hooks/use-findings-live';
 import { useMinuteNow } from '@/hooks/use-minute-now';
-import { ApproveDialog, DeclineDialog } from './answer-dialogs';
+import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
 import { FindingPhotos } from './finding-photos';
 
@@ -95,8 +95,10 @@ function answerSummary(result: FindingAnswerResult): string {
 function AnsweredGroupCard({
   group,
   formatWhen,
+  onChange,
 }: {
   group: AnsweredGroup;
+  onChange: (finding: FindingDto) => void;
   formatWhen: (iso: string) => string;
 }) {
   const styles = useStyles();
@@ -132,6 +134,11 @@ function AnsweredGroupCard({
               {' · found by '}
               {finding.technicianName}
             </Caption1>
+            <div>
+              <Button size="small" onClick={() => onChange(finding)}>
+                Change answer…
+              </Button>
+            </div>
           </div>
           <FindingPhotos
             photos={finding.photos}
@@ -165,7 +172,10 @@ export function FindingsInbox({
   const request = useRequestApproval();
   const [requestResults, setRequestResults] = useState<Record<number, { ok: boolean; text: string }>>({});
   const [fresh, setFresh] = useState<ReadonlySet<number>>(new Set());
-  const [dialog, setDialog] = useState<{ kind: 'approve' | 'decline'; finding: FindingDto } | null>(null);
+  const [dialog, setDialog] = useState<{
+    kind: 'approve' | 'decline' | 'change';
+    finding: FindingDto;
+  } | null>(null);
   const [done, setDone] = useState<string | null>(null);
 
   const onNew = useCallback((id: number) => setFresh((current) => new Set(current).add(id)), []);
@@ -333,7 +343,12 @@ export function FindingsInbox({
       ) : (
         <div className={styles.list}>
           {groups.map((group) => (
-            <AnsweredGroupCard key={group.repairOrderId} group={group} formatWhen={formatWhen} />
+            <AnsweredGroupCard
+              key={group.repairOrderId}
+              group={group}
+              formatWhen={formatWhen}
+              onChange={(finding) => setDialog({ kind: 'change', finding })}
+            />
           ))}
           {answeredNotShown > 0 && (
             <Caption1 className={styles.dim}>
@@ -346,6 +361,9 @@ export function FindingsInbox({
 
       {dialog?.kind === 'approve' && (
         <ApproveDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
+      )}
+      {dialog?.kind === 'change' && (
+        <ChangeAnswerDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
       )}
       {dialog?.kind === 'decline' && (
         <DeclineDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
