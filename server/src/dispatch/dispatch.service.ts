@@ -171,7 +171,12 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       serverTime: now.toISOString(),
       queue,
       lanes,
-      bays: this.board.current().bays.map(({ id, name, state }) => ({ id, name, state })),
+      bays: this.board.current().bays.map(({ id, name, state, repairOrder }) => ({
+        id,
+        name,
+        state,
+        repairOrderId: repairOrder?.id ?? null,
+      })),
       lateCount: lines.filter((l) => l.late).length,
       forecastNote: forecastsAvailable ? null : NO_OPENING_HOURS,
     };
