@@ -1,5 +1,4 @@
 import type { ReactNode } from 'react';
-import type { JobLineStatus } from '@baytime/shared';
 import {
   CheckIcon,
   FlagIcon,
@@ -10,16 +9,8 @@ import {
   WrenchIcon,
 } from '@/components/icons';
 import { bookHours, hoursMinutes } from '@/lib/format';
-import { HOLD_SHORT } from '../hold-words';
+import { lineStatusWord, type ClockAction } from '../line-actions';
 import type { DayLine } from '../project-day';
-
-const STATUS_WORDS: Record<JobLineStatus, string> = {
-  queued: 'Queued',
-  working: 'Working',
-  held: 'Held',
-  done: 'Done',
-  cancelled: 'Cancelled',
-};
 
 const STATUS_ICONS = {
   queued: QueueIcon,
@@ -28,14 +19,6 @@ const STATUS_ICONS = {
   done: CheckIcon,
   cancelled: StopIcon,
 } as const;
-
-export type ClockAction =
-  | { kind: 'clock-on' }
-  | { kind: 'clock-off' }
-  | { kind: 'switch'; fromLabel: string }
-  /** `clockOn`: the technician can work it now, so resuming clocks them on as well. */
-  | { kind: 'resume'; clockOn: boolean }
-  | { kind: 'none'; hint: string | null };
 
 export interface JobLineCardProps {
   line: DayLine;
@@ -75,13 +58,7 @@ export function JobLineCard({
   const book = line.bookHours * 3600;
   const share = book > 0 ? all / book : 0;
   const over = share > 1;
-  const statusWord =
-    line.status === 'held' && line.holdReason
-      ? `Held · ${HOLD_SHORT[line.holdReason]}`
-      : line.status === 'working' && !line.clockedOn
-        ? // Started before, or someone else is on it: "Working" is for the line this tech is on now.
-          'Started'
-        : STATUS_WORDS[line.status];
+  const statusWord = lineStatusWord(line);
   const open = line.status !== 'done';
 
   return (
