@@ -191,6 +191,14 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
       .click();
     await page.getByRole('dialog').waitFor();
     findings.push(...(await checkPage(page, 'timecard correction dialog', seen)));
+    await page.goto(`${server.url}${paths.admin.users}`);
+    await page
+      .getByRole('button', { name: /^Edit / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'edit person dialog', seen)));
+    await page.keyboard.press('Escape');
     await page.goto(`${server.url}${paths.admin.screens}`);
     await page
       .getByRole('button', { name: /^Revoke / })
