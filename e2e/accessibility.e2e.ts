@@ -192,6 +192,14 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
       .click();
     await page.getByRole('dialog').waitFor();
     findings.push(...(await checkPage(page, 'timecard correction dialog', seen)));
+    await page.goto(`${server.url}${paths.admin.users}`);
+    await page
+      .getByRole('button', { name: /^Edit / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'edit person dialog', seen)));
+    await page.keyboard.press('Escape');
     await page.goto(`${server.url}${paths.admin.screens}`);
     await page
       .getByRole('button', { name: /^Revoke / })
@@ -207,6 +215,25 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await page.keyboard.press('Enter');
     await page.getByRole('menu').waitFor();
     findings.push(...(await checkPage(page, 'dispatch Move menu', seen, '[role="menu"]')));
+    await page.keyboard.press('Escape');
+
+    // An RO whose work is done: the end of the visit, and the dialogs that edit it after the fact.
+    await page.goto(`${server.url}${paths.repairOrders}?status=done`);
+    await page.locator('main a[href^="/repair-orders/"]:not([href$="/new"])').first().click();
+    await page.getByRole('group', { name: 'End of the visit' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    findings.push(...(await checkPage(page, 'repair order, work done', seen)));
+    for (const [button, where] of [
+      ['Edit details', 'edit repair order dialog'],
+      ['Edit', 'edit job line dialog'],
+      ['Add a job line', 'add job line dialog'],
+    ] as const) {
+      await page.getByRole('button', { name: button, exact: true }).first().click();
+      await page.getByRole('dialog').waitFor();
+      findings.push(...(await checkPage(page, where, seen)));
+      await page.keyboard.press('Escape');
+      await page.getByRole('dialog').waitFor({ state: 'detached' });
+    }
     expect(findings).toEqual([]);
   }, 180_000);
 
@@ -301,6 +328,10 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await sheet.getByText(/last reading 30/).waitFor();
     await leaveSheet();
     findings.push(...(await checkPage(page, 'kiosk my day with a timer', seen)));
+    // A meal break with a timer running asks about the timer first.
+    await page.getByRole('button', { name: 'Start meal break' }).click();
+    await checkSheet('meal break with a running timer sheet');
+    await leaveSheet();
     for (const stop of await stopsWithoutFocusRing(page))
       findings.push(`kiosk my day: no focus ring on ${stop}`);
 

@@ -41,10 +41,22 @@ class ContractWall {
         bays: board.bays.map((bay) => (bay.id === event.bay.id ? event.bay : bay)),
       })),
     );
-    socket.on('floor.updated', ({ people, queue, lateLines, ...event }) =>
-      this.apply(event, (board) => ({ ...board, people, queue, lateLines })),
+    // `bayIds` orders the bays; one it names that this screen has not seen means a snapshot is due.
+    socket.on('floor.updated', ({ people, queue, lateLines, bayIds, ...event }) =>
+      this.apply(event, (board) => {
+        const known = new Map(board.bays.map((bay) => [bay.id, bay]));
+        if (bayIds.some((id) => !known.has(id))) return null;
+        return { ...board, bays: bayIds.map((id) => known.get(id)!), people, queue, lateLines };
+      }),
     );
-    for (const other of ['punch.recorded', 'job-line.updated', 'timer.updated', 'finding.created'] as const)
+    for (const other of [
+      'punch.recorded',
+      'job-line.updated',
+      'timer.updated',
+      'finding.created',
+      'finding.answered',
+      'repair-order.updated',
+    ] as const)
       socket.on(other, (event: Sequenced) => this.apply(event, (board) => board));
   }
 
@@ -61,7 +73,8 @@ class ContractWall {
     this.board = snapshot;
   }
 
-  private apply(event: Sequenced, change: (board: BoardSnapshot) => BoardSnapshot): void {
+  /** `change` answers null when the message names something this screen has not seen. */
+  private apply(event: Sequenced, change: (board: BoardSnapshot) => BoardSnapshot | null): void {
     this.connections.at(-1)!.push(event.seq);
     if (this.loseEvery && ++this.received % this.loseEvery === 0) return;
     if (!this.board || event.seq <= this.board.seq) return;
@@ -69,7 +82,9 @@ class ContractWall {
       this.gaps++;
       return this.askForSnapshot();
     }
-    this.board = { ...change(this.board), seq: event.seq };
+    const changed = change(this.board);
+    if (!changed) return this.askForSnapshot();
+    this.board = { ...changed, seq: event.seq };
   }
 
   /** Asks until answered: the server answers a few requests a second and is silent beyond that. */

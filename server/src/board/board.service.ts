@@ -75,7 +75,10 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     return snapshot;
   }
 
-  /** Sends what changed since the last publication: a message per changed bay, one for people and queue. */
+  /**
+   * Sends what changed since the last publication: a message per changed or new bay, then one for
+   * people, queue, late count and the bays' order (which also drops a retired bay from the wall).
+   */
   publishChanges(now = new Date()): void {
     const before = this.published ?? this.snapshot(this.live.seq, now);
     const after = this.snapshot(this.live.seq, now);
@@ -83,16 +86,16 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       const old = before.bays.find((b) => b.id === bay.id);
       if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay }, { to: 'floor' });
     }
+    const bayIds = after.bays.map((bay) => bay.id);
     if (
-      after.bays.length !== before.bays.length ||
       !isDeepStrictEqual(
-        [after.people, after.queue, after.lateLines],
-        [before.people, before.queue, before.lateLines],
+        [bayIds, after.people, after.queue, after.lateLines],
+        [before.bays.map((bay) => bay.id), before.people, before.queue, before.lateLines],
       )
     )
       this.live.publish(
         'floor.updated',
-        { people: after.people, queue: after.queue, lateLines: after.lateLines },
+        { people: after.people, queue: after.queue, lateLines: after.lateLines, bayIds },
         { to: 'floor' },
       );
     this.published = { ...after, seq: this.live.seq };

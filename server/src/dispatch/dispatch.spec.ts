@@ -1,5 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeVin, type BoardSnapshot, type DispatchBoard, type RepairOrderSummary } from '@baytime/shared';
+import {
+  makeVin,
+  type BoardSnapshot,
+  type DispatchBoard,
+  type RepairOrderPage,
+  type RepairOrderSummary,
+} from '@baytime/shared';
 import { createApp } from '../app.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
@@ -69,6 +75,83 @@ describe(DispatchService.name, () => {
       await expect
         .poll(async () => (await as<BoardSnapshot>('get', '/api/board')).lateLines, { timeout: 10_000 })
         .toBe(1);
+    });
+  });
+
+  describe('late work in the demo shop', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
+
+    it('flags late work waiting in the queue and a held line past its promise, and every screen counts the same (bug 11)', async () => {
+      const advisor = await sut.signIn(DEMO.advisor);
+      const foreman = await sut.signIn(DEMO.foreman);
+      const write = async (promisedAt: Date, bookHours: number) =>
+        (
+          await sut
+            .http()
+            .post('/api/repair-orders')
+            .auth(advisor, { type: 'bearer' })
+            .send({
+              customer: { name: 'Quinby Latimer' },
+              vehicle: {
+                vin: makeVin('7AB6LD9HLM900778'),
+                year: 2020,
+                make: 'Ambrey',
+                model: 'Lunda',
+                odometer: 7000,
+              },
+              concern: 'Wanted back soon',
+              promisedAt: promisedAt.toISOString(),
+              lines: [{ title: 'Replace timing belt', bookHours }],
+            })
+            .expect(201)
+        ).body as RepairOrderSummary;
+      // Waiting, unassigned: eight hours of work promised in twenty minutes cannot make it.
+      const waiting = await write(new Date(Date.now() + 20 * 60_000), 8);
+      // Held past its promise: no forecast, but late all the same.
+      const held = await write(new Date(Date.now() + 1500), 0.5);
+      await sut
+        .http()
+        .patch(`/api/job-lines/${held.lines[0]!.id}`)
+        .auth(foreman, { type: 'bearer' })
+        .send({ status: 'held', holdReason: 'parts' })
+        .expect(200);
+      await new Promise((resolve) => setTimeout(resolve, 1600));
+
+      const dispatch = (await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200))
+        .body as DispatchBoard;
+      const lateIds = [...dispatch.queue, ...dispatch.lanes.flatMap((lane) => lane.lines)]
+        .filter((line) => line.late)
+        .map((line) => line.id);
+      expect(lateIds).toEqual(expect.arrayContaining([waiting.lines[0]!.id, held.lines[0]!.id]));
+      expect(lateIds).toHaveLength(dispatch.lateCount);
+
+      const list = (
+        await sut
+          .http()
+          .get('/api/repair-orders?late=true&limit=100')
+          .auth(advisor, { type: 'bearer' })
+          .expect(200)
+      ).body as RepairOrderPage;
+      expect(list.items.map((ro) => ro.id)).toEqual(expect.arrayContaining([waiting.id, held.id]));
+      expect(
+        list.items.flatMap((ro) => ro.lines.filter((line) => line.late).map((line) => line.id)).sort(),
+      ).toEqual([...lateIds].sort());
+      const detail = (
+        await sut.http().get(`/api/repair-orders/${waiting.id}`).auth(advisor, { type: 'bearer' }).expect(200)
+      ).body as RepairOrderSummary;
+      expect(detail).toMatchObject({ late: true, lines: [{ late: true }] });
+      await expect
+        .poll(
+          async () =>
+            ((await sut.http().get('/api/board').auth(foreman, { type: 'bearer' })).body as BoardSnapshot)
+              .lateLines,
+          { timeout: 10_000 },
+        )
+        .toBe(dispatch.lateCount);
     });
   });
 

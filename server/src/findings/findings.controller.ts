@@ -13,10 +13,12 @@ import {
 } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
 import {
+  changeFindingAnswerSchema,
   createFindingSchema,
   findingAnswerSchema,
   findingsPageQuerySchema,
   MAX_FINDING_PHOTOS,
+  type ChangeFindingAnswerBody,
   type CreateFindingBody,
   type FindingAnswerBody,
   type FindingAnswerResult,
@@ -66,6 +68,16 @@ export class FindingsController {
     @CurrentUser() actor: Principal,
   ): FindingAnswerResult {
     return this.findings.answer(id, body, actor);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Patch('findings/:id/answer')
+  changeAnswer(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: changeFindingAnswerSchema }) body: ChangeFindingAnswerBody,
+    @CurrentUser() actor: Principal,
+  ): FindingAnswerResult {
+    return this.findings.changeAnswer(id, body, actor);
   }
 
   @Roles('advisor', 'owner')

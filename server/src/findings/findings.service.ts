@@ -6,6 +6,7 @@ import {
   normalisePhone,
   type ApprovalLinkDto,
   type ApprovalLinkStatus,
+  type ChangeFindingAnswerBody,
   type CreateFindingBody,
   type FindingAnswerBody,
   type FindingQuoteBody,
@@ -40,6 +41,7 @@ import { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { syncRepairOrderStatus } from '../work/repair-order-status.js';
 import { NoticesService } from './notices.service.js';
 import { PhotoStore, type StoredPhoto } from './photo-store.js';
 import type { UploadedPhoto } from './photo-upload.js';
@@ -245,8 +247,6 @@ export class FindingsService {
         })
         .returning()
         .get();
-      if (ro.status === 'done')
-        this.db.update(repairOrders).set({ status: 'open' }).where(eq(repairOrders.id, ro.id)).run();
     }
     const byLink = source.channel === 'link';
     this.db
@@ -296,6 +296,8 @@ export class FindingsService {
       now,
     );
 
+    syncRepairOrderStatus(this.db, ro.id);
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
     let createdLine: JobLineDto | null = null;
     if (created) {
       createdLine = toJobLineDto(created);
@@ -327,6 +329,63 @@ export class FindingsService {
     this.db.update(findings).set(quote).where(eq(findings.id, id)).run();
     this.audit.record({ actorId: actor.id, action: 'quote', entity: 'finding', entityId: id, detail: quote });
     return this.get(id);
+  }
+
+  /**
+   * Changes a recorded answer, with a reason. No to yes adds the line a yes adds; yes to no cancels
+   * the line the yes added, which is refused once that line is done.
+   */
+  @Transactional()
+  changeAnswer(
+    id: number,
+    body: ChangeFindingAnswerBody,
+    actor: Principal,
+    now = new Date(),
+  ): FindingAnswerResult {
+    const finding = foundOrFail(this.db.select().from(findings).where(eq(findings.id, id)).get(), 'Finding');
+    if (finding.answer === 'pending')
+      throw new ConflictException('That finding has no answer yet: answer it');
+    if (finding.answer === body.answer) throw new ConflictException(`That finding is already ${body.answer}`);
+    const line = this.db.select().from(jobLines).where(eq(jobLines.id, finding.jobLineId)).get()!;
+    let createdLine: JobLineDto | null = null;
+    if (body.answer === 'declined' && finding.createdLineId !== null) {
+      const added = this.db.select().from(jobLines).where(eq(jobLines.id, finding.createdLineId)).get();
+      if (added?.status === 'done')
+        throw new ConflictException('The work the yes added is done already: the answer stays');
+      if (added && added.status !== 'cancelled')
+        this.lines.cancel(added.id, { reason: `Customer's answer changed: ${body.reason}` }, actor, now);
+      this.db
+        .update(findings)
+        .set({ answer: 'declined', createdLineId: null })
+        .where(eq(findings.id, id))
+        .run();
+    }
+    if (body.answer === 'approved') {
+      this.db.update(findings).set({ answer: 'pending' }).where(eq(findings.id, id)).run();
+      createdLine = this.recordAnswer(
+        id,
+        { answer: 'approved', bookHours: body.bookHours, title: body.title },
+        { channel: body.channel, actor },
+        now,
+      ).createdLine;
+    }
+    this.db
+      .update(findings)
+      .set({ answeredBy: actor.id, answeredName: null, answerChannel: body.channel, answeredAt: now })
+      .where(eq(findings.id, id))
+      .run();
+    this.audit.record(
+      {
+        actorId: actor.id,
+        action: 'finding-answer-changed',
+        entity: 'repair-order',
+        entityId: line.repairOrderId,
+        detail: { findingId: id, from: finding.answer, answer: body.answer, reason: body.reason },
+      },
+      now,
+    );
+    this.live.publish('repair-order.updated', { repairOrderId: line.repairOrderId });
+    return { finding: this.get(id), createdLine, resumedLine: null };
   }
 
   /**
@@ -365,8 +424,13 @@ export class FindingsService {
       'Job line',
     );
     this.access.assertMayWork(line, actor, now);
-    if (body.holdForApproval && line.status === 'done')
-      throw new ConflictException('That line is already done: it cannot be held for approval');
+    if (
+      body.holdForApproval &&
+      line.status !== 'queued' &&
+      line.status !== 'working' &&
+      line.status !== 'held'
+    )
+      throw new ConflictException(`That line is already ${line.status}: it cannot be held for approval`);
     return line;
   }
 

@@ -5,7 +5,9 @@ import {
   formatCents,
   formatPhone,
   formatShopInstant,
+  isOpenLine,
   normalisePhone,
+  repairOrderStatus,
   type MailQueued,
   type NoticesQueued,
   type TextQueued,
@@ -25,6 +27,7 @@ import {
   users,
   vehicles,
 } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import { OutboxService, type OutgoingMail } from '../mail/outbox.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { PhotoStore } from './photo-store.js';
@@ -64,6 +67,7 @@ export class NoticesService {
     private readonly shop: ShopService,
     private readonly audit: AuditService,
     private readonly photos: PhotoStore,
+    private readonly live: LiveService,
   ) {}
 
   /** The customer's contacts; 400 when there is no way to reach them. */
@@ -124,7 +128,10 @@ export class NoticesService {
     return { mail: mail || null, text: text || null };
   }
 
-  /** Tells the customer the vehicle is ready, once every line on the repair order is done. */
+  /**
+   * Tells the customer the vehicle is ready, once the work on the repair order is done (every line
+   * done or cancelled) and the vehicle is still here. Written into the RO's history.
+   */
   @Transactional()
   readyNotice(repairOrderId: number, actor: Principal): NoticesQueued {
     const { ro, vehicle, customer } = foundOrFail(
@@ -143,10 +150,12 @@ export class NoticesService {
       .where(eq(jobLines.repairOrderId, repairOrderId))
       .orderBy(asc(jobLines.lineNo))
       .all();
-    const open = lines.filter((line) => line.status !== 'done');
-    if (!lines.length || open.length)
+    if (ro.status === 'closed')
+      throw new ConflictException(`RO ${ro.number} is closed: the vehicle was picked up`);
+    const open = lines.filter(isOpenLine);
+    if (repairOrderStatus(lines, ro.closedAt) !== 'done')
       throw new ConflictException(
-        `Not every job line on RO ${ro.number} is done yet (${open.length} of ${lines.length} open)`,
+        `The work on RO ${ro.number} is not done yet (${open.length} of ${lines.length} lines open)`,
       );
     const contact = this.contactOf(customer);
     const shop = this.shop.settings().name;
@@ -163,7 +172,7 @@ export class NoticesService {
       `Your ${describeVehicle(vehicle)} is ready to collect (repair order ${ro.number}).`,
       '',
       'Work done:',
-      ...lines.map((line) => `- ${line.title}`),
+      ...lines.filter((line) => line.status === 'done').map((line) => `- ${line.title}`),
       ...(declined.length
         ? ['', 'We also found, and did not do as you asked (worth another look later):']
         : []),
@@ -202,6 +211,7 @@ export class NoticesService {
         mobile: contact.mobile,
       },
     });
+    this.live.publish('repair-order.updated', { repairOrderId });
     return queued;
   }
 

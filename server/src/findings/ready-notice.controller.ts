@@ -9,7 +9,7 @@ import { NoticesService } from './notices.service.js';
 export class ReadyNoticeController {
   constructor(private readonly notices: NoticesService) {}
 
-  @Roles('advisor')
+  @Roles('advisor', 'foreman', 'owner')
   @Post(':id/ready-notice')
   @HttpCode(202)
   send(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): NoticesQueued {

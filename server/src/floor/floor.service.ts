@@ -3,6 +3,7 @@ import type { Subscription } from 'rxjs';
 import { and, asc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
 import {
   buildLedger,
+  isOpenLine,
   technicianState,
   type Ledger,
   type LedgerPunch,
@@ -53,7 +54,8 @@ interface TechnicianPunches {
 }
 
 /**
- * The floor in memory: active technicians with their recent punches and ledgers, the open job lines,
+ * The floor in memory: active technicians with their recent punches and ledgers, the open job lines
+ * (neither done nor cancelled),
  * the bays and the running timers. Built once from the database at start-up; after that each use case
  * says what it changed, and the model takes it in once the use case has committed. Screens, dispatch
  * and the punch checks read it without a query. The ledger rules stay in `shared`: the model only
@@ -118,8 +120,9 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     this.afterCommit(() => {
       const rows = this.queries.linesById.all({ ids: JSON.stringify(lineIds) });
       for (const id of lineIds) this.lines.delete(id);
-      for (const row of rows) if (row.status !== 'done') this.lines.set(row.id, toFloorLine(row));
-      this.widenWindowsFor(rows.filter((row) => row.status !== 'done').map((row) => row.id));
+      const open = rows.filter(isOpenLine);
+      for (const row of open) this.lines.set(row.id, toFloorLine(row));
+      this.widenWindowsFor(open.map((row) => row.id));
     });
   }
 
@@ -398,7 +401,10 @@ function prepareFloorQueries(db: Db) {
       .where(and(eq(users.role, 'technician'), eq(users.active, true)))
       .orderBy(asc(users.name))
       .prepare(),
-    openLines: linesWithVehicle().where(ne(jobLines.status, 'done')).prepare(),
+    // Both terms, so SQLite may walk the partial index of lines not done.
+    openLines: linesWithVehicle()
+      .where(and(ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')))
+      .prepare(),
     linesById: linesWithVehicle()
       .where(sql`${jobLines.id} in (select value from json_each(${sql.placeholder('ids')}))`)
       .prepare(),

@@ -185,7 +185,7 @@ describe(OutboxService.name, () => {
         sut.http().post(`/api/repair-orders/${id}/ready-notice`).auth(advisor, { type: 'bearer' });
       const open = db.select().from(jobLines).where(eq(jobLines.status, 'queued')).get()!;
       const { body: refused } = await notice(open.repairOrderId).expect(409);
-      expect(refused.message).toMatch(/^Not every job line on RO \d+ is done yet/);
+      expect(refused.message).toMatch(/^The work on RO \d+ is not done yet/);
 
       const done = db.select().from(repairOrders).where(eq(repairOrders.status, 'done')).get()!;
       db.update(customers)

@@ -8,6 +8,7 @@ import {
 import { randomUUID } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
 import {
+  isOpenLine,
   MAX_PUNCH_AGE_SECONDS,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
   validatePunch,
@@ -73,8 +74,8 @@ export class PunchesService {
     const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
     if (line) this.assertMayPunchOn(line, body.kind, actor, now);
-    if (body.kind === 'job-on' && line?.status === 'done')
-      throw new ConflictException('That job line is done');
+    if (body.kind === 'job-on' && line && !isOpenLine(line))
+      throw new ConflictException(`That job line is ${line.status}`);
 
     const candidate: LedgerPunch = {
       id: body.id,

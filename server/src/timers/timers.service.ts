@@ -8,12 +8,13 @@ import {
   Logger,
 } from '@nestjs/common';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
-import type {
-  HoldPresetBody,
-  HoldPresetDto,
-  StartTimerBody,
-  TimerDto,
-  TimerReadingBody,
+import {
+  isOpenLine,
+  type HoldPresetBody,
+  type HoldPresetDto,
+  type StartTimerBody,
+  type TimerDto,
+  type TimerReadingBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { referencedBay } from '../bays/referenced-bay.js';
@@ -82,13 +83,19 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
         row,
         readings.filter((r) => r.timerId === row.id),
         now,
+        this.lineTechnician(row.jobLineId),
       ),
     );
   }
 
   get(id: number, now = new Date()): TimerDto {
     const row = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
-    return toTimerDto(row, this.readingsOf(id), now);
+    return toTimerDto(row, this.readingsOf(id), now, this.lineTechnician(row.jobLineId));
+  }
+
+  /** Whose line the timer runs on: their kiosk is the one that chimes. */
+  private lineTechnician(jobLineId: number): number | null {
+    return this.floor.openLine(jobLineId)?.technicianId ?? null;
   }
 
   @Transactional()
@@ -99,7 +106,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     );
     this.access.assertMayWork(line, actor, now);
     if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
-    if (line.status === 'done') throw new ConflictException('That line is done');
+    if (!isOpenLine(line)) throw new ConflictException(`That line is ${line.status}`);
     const busy = this.db
       .select()
       .from(timers)

@@ -1,8 +1,16 @@
-import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Patch, Post, Put, Query } from '@nestjs/common';
 import {
+  addJobLineSchema,
   createRepairOrderSchema,
+  editRepairOrderSchema,
+  lineOrderSchema,
   repairOrderListQuerySchema,
+  type AddJobLineBody,
   type CreateRepairOrderBody,
+  type EditRepairOrderBody,
+  type JobLineDto,
+  type LineOrderBody,
+  type RepairOrderHistoryEntry,
   type RepairOrderListQuery,
   type RepairOrderPage,
   type RepairOrderSummary,
@@ -27,11 +35,53 @@ export class RepairOrdersController {
     return this.repairOrders.get(id);
   }
 
+  @Get(':id/history')
+  history(@Param('id', { schema: idParamSchema }) id: number): RepairOrderHistoryEntry[] {
+    return this.repairOrders.history(id);
+  }
+
   @Post()
   create(
     @Body({ schema: createRepairOrderSchema }) body: CreateRepairOrderBody,
     @CurrentUser() actor: Principal,
   ): RepairOrderSummary {
     return this.repairOrders.create(body, actor);
+  }
+
+  @Patch(':id')
+  edit(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: editRepairOrderSchema }) body: EditRepairOrderBody,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.edit(id, body, actor);
+  }
+
+  @Post(':id/lines')
+  addLine(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: addJobLineSchema }) body: AddJobLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.repairOrders.addLine(id, body, actor);
+  }
+
+  @Put(':id/line-order')
+  reorderLines(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: lineOrderSchema }) body: LineOrderBody,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.reorderLines(id, body, actor);
+  }
+
+  /** The vehicle is picked up. */
+  @Post(':id/close')
+  @HttpCode(200)
+  close(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.close(id, actor);
   }
 }

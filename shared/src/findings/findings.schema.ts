@@ -86,6 +86,30 @@ export const findingAnswerSchema = z.discriminatedUnion(
 );
 export type FindingAnswerBody = z.infer<typeof findingAnswerSchema>;
 
+/**
+ * `PATCH /api/findings/:id/answer`: the customer changed their mind, or the answer was recorded
+ * wrong. A yes turned into a no cancels the line the yes added (refused once that line is done).
+ */
+export const changeFindingAnswerSchema = z.discriminatedUnion(
+  'answer',
+  [
+    z.object({
+      answer: z.literal('approved'),
+      channel: officeChannelSchema,
+      bookHours: bookHoursSchema,
+      title: jobLineInputSchema.shape.title.optional(),
+      reason: plainText(300, { min: 3, multiline: true, message: 'Say why the answer changes' }),
+    }),
+    z.object({
+      answer: z.literal('declined'),
+      channel: officeChannelSchema,
+      reason: plainText(300, { min: 3, multiline: true, message: 'Say why the answer changes' }),
+    }),
+  ],
+  { error: 'The answer is approved or declined' },
+);
+export type ChangeFindingAnswerBody = z.infer<typeof changeFindingAnswerSchema>;
+
 export const findingsQuerySchema = z.object({
   answer: z.enum(FINDING_ANSWERS).optional(),
   repairOrderId: idTextSchema.optional(),

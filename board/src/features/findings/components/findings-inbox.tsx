@@ -1,4 +1,6 @@
 import { useCallback, useMemo, useState } from 'react';
+import { Link as RouterLink } from 'react-router';
+import { paths } from '@/config/paths';
 import {
   Badge,
   Body1,
@@ -22,7 +24,6 @@ import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useFindings } from '../api/get-findings';
 import { useRequestApproval } from '../api/request-approval';
-import { useSendReadyNotice } from '../api/send-ready-notice';
 import { useRevokeApprovalLink } from '../api/revoke-approval-link';
 import {
   answeredText,
@@ -34,7 +35,7 @@ import {
 } from '../findings-model';
 import { useFindingsLive } from '../hooks/use-findings-live';
 import { useMinuteNow } from '@/hooks/use-minute-now';
-import { ApproveDialog, DeclineDialog } from './answer-dialogs';
+import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
 import { FindingPhotos } from './finding-photos';
 import { QuoteDialog } from './quote-dialog';
@@ -102,15 +103,14 @@ function answerSummary(result: FindingAnswerResult): string {
 
 function AnsweredGroupCard({
   group,
-  role,
   formatWhen,
+  onChange,
 }: {
   group: AnsweredGroup;
-  role: InboxRole;
+  onChange: (finding: FindingDto) => void;
   formatWhen: (iso: string) => string;
 }) {
   const styles = useStyles();
-  const notice = useSendReadyNotice();
   return (
     <Card className={styles.group}>
       <div className={styles.groupHead}>
@@ -118,22 +118,9 @@ function AnsweredGroupCard({
         <Text>{group.vehicle}</Text>
         <Text className={styles.dim}>· {group.customerName}</Text>
         <span className={styles.spacer} />
-        {role === 'advisor' && (
-          <Button disabled={notice.isPending} onClick={() => notice.mutate(group.repairOrderId)}>
-            {notice.isPending ? 'Sending…' : 'Tell the customer: vehicle ready'}
-          </Button>
-        )}
+        {/* The ready notice goes from the RO page, once the work is done. */}
+        <RouterLink to={paths.repairOrder(group.repairOrderId)}>Open RO {group.repairOrderNumber}</RouterLink>
       </div>
-      {notice.isSuccess && (
-        <Caption1 className={styles.status} role="status">
-          Ready notice sent {sentToText(notice.data)}.
-        </Caption1>
-      )}
-      {notice.isError && (
-        <Caption1 className={styles.statusError} role="alert">
-          {formErrorText(notice.error)}
-        </Caption1>
-      )}
       {group.findings.map((finding) => (
         <div key={finding.id} className={styles.answered}>
           <div className={styles.answeredText}>
@@ -155,6 +142,11 @@ function AnsweredGroupCard({
               {' · found by '}
               {finding.technicianName}
             </Caption1>
+            <div>
+              <Button size="small" onClick={() => onChange(finding)}>
+                Change answer…
+              </Button>
+            </div>
           </div>
           <FindingPhotos
             photos={finding.photos}
@@ -193,7 +185,7 @@ export function FindingsInbox({
   const [requestResults, setRequestResults] = useState<Record<number, { ok: boolean; text: string }>>({});
   const [fresh, setFresh] = useState<ReadonlySet<number>>(new Set());
   const [dialog, setDialog] = useState<{
-    kind: 'quote' | 'approve' | 'decline';
+    kind: 'quote' | 'approve' | 'decline' | 'change';
     finding: FindingDto;
   } | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -397,7 +389,12 @@ export function FindingsInbox({
       ) : (
         <div className={styles.list}>
           {groups.map((group) => (
-            <AnsweredGroupCard key={group.repairOrderId} group={group} role={role} formatWhen={formatWhen} />
+            <AnsweredGroupCard
+              key={group.repairOrderId}
+              group={group}
+              formatWhen={formatWhen}
+              onChange={(finding) => setDialog({ kind: 'change', finding })}
+            />
           ))}
           {answeredNotShown > 0 && (
             <Caption1 className={styles.dim}>
@@ -417,6 +414,9 @@ export function FindingsInbox({
       )}
       {dialog?.kind === 'approve' && (
         <ApproveDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
+      )}
+      {dialog?.kind === 'change' && (
+        <ChangeAnswerDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
       )}
       {dialog?.kind === 'decline' && (
         <DeclineDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
