@@ -35,7 +35,7 @@ describe('findings, approvals and e-mail', () => {
     await server?.stop();
   });
 
-  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving frees the bay', async () => {
+  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving by phone frees the bay', async () => {
     const advisor = await officeBrowser.newPage();
     await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
     await advisor.goto(`${server.url}/findings`);
@@ -81,7 +81,13 @@ describe('findings, approvals and e-mail', () => {
       holdReason: 'approval',
     });
 
-    await item.getByRole('button', { name: 'Send approval request to customer' }).click();
+    await item.getByRole('button', { name: 'Review for the customer…' }).click();
+    const wording = advisor.getByRole('dialog', { name: 'For the customer' });
+    await wording.getByLabel('What the customer reads').fill('Metal wear on the transmission pan magnet');
+    await wording.getByLabel('Book hours').fill('1.2');
+    await wording.getByRole('button', { name: 'Save for the customer' }).click();
+    await wording.waitFor({ state: 'detached' });
+    await item.getByRole('button', { name: 'Send approval link' }).click();
     const [finding] = (await owner<FindingsPage>('GET', '/findings?answer=pending')).items;
     const ro = await owner<RepairOrderSummary>('GET', `/repair-orders/${finding!.repairOrderId}`);
     await expect
@@ -95,6 +101,7 @@ describe('findings, approvals and e-mail', () => {
       .toMatchObject({ to: [ro.customerEmail], attachments: [expect.stringMatching(/\.png$/)] });
 
     await item.getByRole('button', { name: /Customer approved/ }).click();
+    await advisor.getByRole('radio', { name: 'By phone' }).check();
     await advisor.getByLabel('Book hours to charge').fill('1.2');
     await advisor.getByRole('button', { name: 'Add the line' }).click();
     await expect
@@ -102,6 +109,11 @@ describe('findings, approvals and e-mail', () => {
       .toBe(ro.lines.length + 1);
     board = await owner<BoardSnapshot>('GET', '/board');
     expect(board.bays.find((b) => b.name === line.bayName)!.state).not.toBe('held');
+    const answered = (await owner<FindingsPage>('GET', '/findings?answer=approved')).items;
+    expect(answered.find((f) => f.id === finding!.id)).toMatchObject({
+      answerChannel: 'phone',
+      answeredBy: 'Nell Ashby',
+    });
   });
 
   it('refuses a renamed executable and an oversized photo, storing nothing', async () => {

@@ -10,9 +10,9 @@ import { startServer, type RunningServer } from './support/server.js';
 /** Two ROs from another system: the first with two job lines. */
 const TWO_ROS = [
   RO_IMPORT_COLUMNS.join(','),
-  `DMS-5001,Ottilie Brask,555-0150,,${makeVin('2HGFE2F5N1000001')},2022,Corvane,Ridgeback,,21000,Rattle from the rear,,Inspect rear exhaust hangers,0.6`,
+  `DMS-5001,Ottilie Brask,608-555-0150,,${makeVin('2HGFE2F5N1000001')},2022,Corvane,Ridgeback,,21000,Rattle from the rear,,Inspect rear exhaust hangers,0.6`,
   `DMS-5001,,,,,,,,,,,,Replace rear hanger,0.4`,
-  `DMS-5002,Cyrus Penwarden,555-0151,,${makeVin('4T1BK1EBP2000002')},2023,Halvard,Tessel,,9000,Scheduled service,,Oil and filter service,0.7`,
+  `DMS-5002,Cyrus Penwarden,608-555-0151,,${makeVin('4T1BK1EBP2000002')},2023,Halvard,Tessel,,9000,Scheduled service,,Oil and filter service,0.7`,
 ].join('\n');
 
 describe('the shop beside its other systems', () => {

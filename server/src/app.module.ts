@@ -12,6 +12,7 @@ import { DatabaseModule } from './db/database.module.js';
 import { DemoModule } from './demo/demo.module.js';
 import { DispatchModule } from './dispatch/dispatch.module.js';
 import { FindingsModule } from './findings/findings.module.js';
+import { ApprovalsModule } from './approvals/approvals.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
@@ -68,6 +69,7 @@ export class AppModule {
         TimersModule,
         DispatchModule,
         FindingsModule,
+        ApprovalsModule,
         HealthModule,
         WebhooksModule,
         BackupModule,

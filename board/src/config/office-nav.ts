@@ -42,7 +42,7 @@ export const OFFICE_NAV: readonly NavGroup[] = [
       { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
       { label: 'Integration keys', path: paths.admin.integrationKeys, roles: OWNER },
       { label: 'Webhooks', path: paths.admin.webhooks, roles: OWNER },
-      { label: 'Test mailbox', path: paths.admin.mailbox, roles: OWNER },
+      { label: 'Sent messages', path: paths.admin.mailbox, roles: OWNER },
     ],
   },
 ];

@@ -22,7 +22,7 @@ import { SignInThrottle } from './sign-in-throttle.js';
     JwtModule.registerAsync({
       inject: [APP_CONFIG],
       useFactory: (config: AppConfig) => ({
-        secret: config.jwtSecret,
+        secret: config.jwtKey,
         signOptions: { algorithm: 'HS256' },
         verifyOptions: { algorithms: ['HS256'] },
       }),

@@ -13,7 +13,8 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-      secretOrKey: config.jwtSecret,
+      // jsonwebtoken takes a key object; the passport-jwt types only list strings and buffers.
+      secretOrKey: config.jwtKey as unknown as Buffer,
       algorithms: ['HS256'],
     });
   }

@@ -87,7 +87,9 @@ describe(referencedOrFail.name, () => {
     await send('post', `/api/job-lines/${NOBODY}/hold`, { reason: 'parts' }).expect(404);
     await send('post', `/api/timers/${NOBODY}/stop`, {}).expect(404);
     await send('post', `/api/timers/${NOBODY}/readings`, { tempC: 40 }).expect(404);
-    await send('post', `/api/findings/${NOBODY}/answer`, { answer: 'declined' }).expect(404);
+    await send('post', `/api/findings/${NOBODY}/answer`, { answer: 'declined', channel: 'phone' }).expect(
+      404,
+    );
     expect(tableDigests(sut.app)).toEqual(before);
   });
 });

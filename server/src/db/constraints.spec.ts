@@ -1,27 +1,13 @@
 import Database from 'better-sqlite3';
 import { drizzle } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { migrationsUpTo } from '../test-support/migrations.js';
 import { startTestApp, type TestApp } from '../test-support/test-app.js';
 import { openDatabase, SQLITE, type Sqlite } from './database.js';
-
-const migrations = fileURLToPath(new URL('../../drizzle', import.meta.url));
-
-/** The migrations folder up to and with `tag`, as a database made before the later ones has seen it. */
-function migrationsUpTo(tag: string, dir: string): string {
-  const journal = JSON.parse(readFileSync(join(migrations, 'meta/_journal.json'), 'utf8')) as {
-    entries: { tag: string }[];
-  };
-  const entries = journal.entries.slice(0, journal.entries.findIndex((entry) => entry.tag === tag) + 1);
-  mkdirSync(join(dir, 'meta'), { recursive: true });
-  writeFileSync(join(dir, 'meta/_journal.json'), JSON.stringify({ ...journal, entries }));
-  for (const { tag: file } of entries) cpSync(join(migrations, `${file}.sql`), join(dir, `${file}.sql`));
-  return dir;
-}
 
 /** Every column that holds one of a fixed set of words, with the CHECK that guards it. */
 const ENUM_COLUMNS: [table: string, column: string][] = [
@@ -37,6 +23,9 @@ const ENUM_COLUMNS: [table: string, column: string][] = [
   ['timers', 'kind'],
   ['findings', 'severity'],
   ['findings', 'answer'],
+  ['findings', 'answer_channel'],
+  ['approval_link_findings', 'severity'],
+  ['mail_outbox', 'channel'],
   ['mail_outbox', 'status'],
   ['shop_settings', 'units'],
   ['shop_settings', 'concurrent_split'],
@@ -60,6 +49,10 @@ describe('database constraints, tried directly in SQL', () => {
       INSERT INTO findings (job_line_id, technician_id, note, severity, created_at)
         VALUES ((SELECT min(id) FROM job_lines), (SELECT min(id) FROM users WHERE role = 'technician'), 'Worn belt', 'soon', 0);
       INSERT INTO webhook_deliveries (webhook_id, event, body, created_at) VALUES (last_insert_rowid(), 'job-line.finished', '{}', 0);
+      INSERT INTO approval_links (token_hash, repair_order_id, sent_by, sent_to, created_at, expires_at)
+        VALUES ('h', (SELECT min(id) FROM repair_orders), ${owner}, '[]', 0, 1);
+      INSERT INTO approval_link_findings (link_id, finding_id, wording, severity, book_hours, labour_rate_cents)
+        VALUES (last_insert_rowid(), (SELECT max(id) FROM findings), 'Worn belt', 'soon', 0.5, 12000);
     `);
   });
   afterAll(() => sut.close());
@@ -115,7 +108,7 @@ describe('the constraints migration on a database that has rows', () => {
   it('keeps every row, the foreign keys and the RO search', () => {
     const file = join(dir, 'shop.db');
     const before = new Database(file);
-    migrate(drizzle(before), { migrationsFolder: migrationsUpTo('0007_integration', join(dir, 'before')) });
+    migrate(drizzle(before), { migrationsFolder: migrationsUpTo('0010_integration', join(dir, 'before')) });
     before.exec(`
       INSERT INTO users (id, name, role, created_at) VALUES (1, 'Rosa', 'owner', 0), (2, 'Dana', 'technician', 0);
       INSERT INTO customers (id, name, phone, created_at) VALUES (1, 'Wendell Farrow', '555-0142', 0);
@@ -123,16 +116,29 @@ describe('the constraints migration on a database that has rows', () => {
       INSERT INTO repair_orders (id, number, customer_id, vehicle_id, customer_name, customer_phone, vehicle_year, vehicle_make, vehicle_model, concern, odometer, created_at)
         VALUES (1, '4401', 1, 1, 'Wendell Farrow', '555-0142', 2019, 'Halvard', 'Morrow', 'Service', 61200, 0);
       INSERT INTO bays (id, name, phase, phase_since, repair_order_id) VALUES (1, 'Bay 1', 'staged', 0, 1);
-      INSERT INTO job_lines (id, repair_order_id, line_no, title, book_hours, bay_id, queued_at, updated_at) VALUES (1, 1, 1, 'Oil service', 0.8, 1, 0, 0);
+      INSERT INTO job_lines (id, repair_order_id, line_no, title, book_hours, bay_id, queued_at, updated_at, concern, cause)
+        VALUES (1, 1, 1, 'Oil service', 0.8, 1, 0, 0, 'Service due', 'Oil dark');
       INSERT INTO punches (id, technician_id, kind, job_line_id, at, recorded_at, recorded_by) VALUES ('p1', 2, 'job-on', 1, 0, 0, 2);
       INSERT INTO punches (id, technician_id, kind, job_line_id, at, recorded_at, recorded_by, supersedes, reason) VALUES ('p2', 2, 'job-on', 1, 60, 0, 1, 'p1', 'late');
       INSERT INTO findings (id, job_line_id, technician_id, note, severity, created_at) VALUES (1, 1, 2, 'Worn belt', 'soon', 0);
       INSERT INTO timers (id, job_line_id, bay_id, kind, started_at, started_by) VALUES (1, 1, 1, 'warm-up', 0, 2);
+      INSERT INTO approval_links (id, token_hash, repair_order_id, sent_by, sent_to, created_at, expires_at) VALUES (1, 'h', 1, 1, '[]', 0, 1);
+      INSERT INTO approval_link_findings (link_id, finding_id, wording, severity, book_hours, labour_rate_cents) VALUES (1, 1, 'Worn belt', 'soon', 0.5, 12000);
+      INSERT INTO mail_outbox (channel, recipient, text, next_attempt_at, created_at) VALUES ('text', '+16085550142', 'Ready', 0, 0);
     `);
     const counts = (db: Database.Database) =>
-      ['users', 'repair_orders', 'bays', 'job_lines', 'punches', 'findings', 'timers'].map(
-        (table) => (db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n,
-      );
+      [
+        'users',
+        'repair_orders',
+        'bays',
+        'job_lines',
+        'punches',
+        'findings',
+        'timers',
+        'approval_links',
+        'approval_link_findings',
+        'mail_outbox',
+      ].map((table) => (db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n);
     const rowsBefore = counts(before);
     before.close();
 
@@ -144,6 +150,10 @@ describe('the constraints migration on a database that has rows', () => {
       });
       expect(after.prepare("SELECT supersedes FROM punches WHERE id = 'p2'").get()).toEqual({
         supersedes: 'p1',
+      });
+      expect(after.prepare('SELECT concern, cause FROM job_lines WHERE id = 1').get()).toEqual({
+        concern: 'Service due',
+        cause: 'Oil dark',
       });
       expect(after.pragma('foreign_keys', { simple: true })).toBe(1);
       expect(() => after.exec('DELETE FROM repair_orders WHERE id = 1')).toThrow(

@@ -10,5 +10,6 @@ import { DispatchService } from './dispatch.service.js';
   imports: [ShopModule, LabourModule, FloorModule, BoardModule],
   controllers: [DispatchController],
   providers: [DispatchService],
+  exports: [DispatchService],
 })
 export class DispatchModule {}

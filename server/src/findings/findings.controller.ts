@@ -4,6 +4,7 @@ import {
   Get,
   HttpCode,
   Param,
+  Patch,
   Post,
   Query,
   UploadedFiles,
@@ -12,32 +13,31 @@ import {
 } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
 import {
+  changeFindingAnswerSchema,
   createFindingSchema,
   findingAnswerSchema,
   findingsPageQuerySchema,
   MAX_FINDING_PHOTOS,
+  type ChangeFindingAnswerBody,
   type CreateFindingBody,
   type FindingAnswerBody,
   type FindingAnswerResult,
   type FindingDto,
   type FindingsPage,
   type FindingsPageQuery,
-  type MailQueued,
+  findingQuoteSchema,
+  type FindingQuoteBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
 import { FindingRateLimit } from './finding-rate-limit.js';
 import { FindingsService } from './findings.service.js';
-import { NoticesService } from './notices.service.js';
 import { PhotoUploadErrors, photoUploadOptions, type UploadedPhoto } from './photo-upload.js';
 
 @Controller()
 export class FindingsController {
-  constructor(
-    private readonly findings: FindingsService,
-    private readonly notices: NoticesService,
-  ) {}
+  constructor(private readonly findings: FindingsService) {}
 
   /** multipart/form-data: the text fields of `createFindingSchema` and up to 6 files in `photos`. */
   @Roles('technician', 'foreman', 'owner')
@@ -70,13 +70,23 @@ export class FindingsController {
     return this.findings.answer(id, body, actor);
   }
 
-  @Roles('advisor')
-  @Post('findings/:id/request-approval')
-  @HttpCode(202)
-  requestApproval(
+  @Roles('advisor', 'foreman', 'owner')
+  @Patch('findings/:id/answer')
+  changeAnswer(
     @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: changeFindingAnswerSchema }) body: ChangeFindingAnswerBody,
     @CurrentUser() actor: Principal,
-  ): MailQueued {
-    return this.notices.requestApproval(id, actor);
+  ): FindingAnswerResult {
+    return this.findings.changeAnswer(id, body, actor);
+  }
+
+  @Roles('advisor', 'owner')
+  @Patch('findings/:id/quote')
+  quote(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: findingQuoteSchema }) body: FindingQuoteBody,
+    @CurrentUser() actor: Principal,
+  ): FindingDto {
+    return this.findings.quote(id, body, actor);
   }
 }

@@ -16,5 +16,6 @@ import { ReadyNoticeController } from './ready-notice.controller.js';
   imports: [AuditModule, ShopModule, FloorModule, WorkModule, MailModule, WebhooksModule],
   controllers: [FindingsController, AttachmentsController, ReadyNoticeController],
   providers: [FindingsService, NoticesService, PhotoStore],
+  exports: [FindingsService, NoticesService, PhotoStore],
 })
 export class FindingsModule {}

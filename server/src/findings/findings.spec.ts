@@ -240,7 +240,7 @@ describe(FindingsService.name, () => {
       .where(eq(jobLines.repairOrderId, finding!.repairOrderId))
       .all();
     const { body } = await as(advisor)
-      .post(`/api/findings/${finding!.id}/answer`, { answer: 'approved', bookHours: 1.2 })
+      .post(`/api/findings/${finding!.id}/answer`, { answer: 'approved', channel: 'phone', bookHours: 1.2 })
       .expect(200);
     const result = body as FindingAnswerResult;
     expect(result.createdLine).toMatchObject({
@@ -253,6 +253,7 @@ describe(FindingsService.name, () => {
     });
     expect(result.finding).toMatchObject({
       answer: 'approved',
+      answerChannel: 'phone',
       answeredBy: 'Nell Ashby',
       createdLineId: result.createdLine!.id,
     });
@@ -267,7 +268,9 @@ describe(FindingsService.name, () => {
       .map((entry) => entry.action);
     expect(audited).toEqual(['create', 'approve']);
 
-    await as(advisor).post(`/api/findings/${finding!.id}/answer`, { answer: 'declined' }).expect(409);
+    await as(advisor)
+      .post(`/api/findings/${finding!.id}/answer`, { answer: 'declined', channel: 'phone' })
+      .expect(409);
   });
 
   it('keeps a line held while another finding on it waits; a decline is noted on the RO', async () => {
@@ -282,6 +285,7 @@ describe(FindingsService.name, () => {
       await as(foreman)
         .post(`/api/findings/${first.id}/answer`, {
           answer: 'declined',
+          channel: 'in-person',
           note: 'Customer will think about it',
         })
         .expect(200)
@@ -297,12 +301,17 @@ describe(FindingsService.name, () => {
       .from(auditLog)
       .where(and(eq(auditLog.entity, 'repair-order'), eq(auditLog.action, 'finding-declined')))
       .all();
-    expect(onRo.at(-1)?.detail).toEqual({ findingId: first.id, note: 'Customer will think about it' });
+    expect(onRo.at(-1)?.detail).toEqual({
+      findingId: first.id,
+      note: 'Customer will think about it',
+      channel: 'in-person',
+    });
 
     const approved = (
       await as(advisor)
         .post(`/api/findings/${second.id}/answer`, {
           answer: 'approved',
+          channel: 'phone',
           bookHours: 0.6,
           title: 'Replace cooler line',
         })
@@ -320,7 +329,7 @@ describe(FindingsService.name, () => {
     const { body } = await as(advisor)
       .post(`/api/findings/${finding.id}/answer`, { answer: 'approved' })
       .expect(400);
-    expect(body.issues[0].path).toEqual(['bookHours']);
+    expect(body.issues.map((issue: { path: string[] }) => issue.path)).toEqual([['channel'], ['bookHours']]);
   });
 
   it('makes a line title from the first line of the note, cut at a word', () => {

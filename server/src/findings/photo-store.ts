@@ -6,13 +6,12 @@ import {
   PayloadTooLargeException,
   StreamableFile,
 } from '@nestjs/common';
-import { fileTypeFromBuffer } from 'file-type';
 import { randomUUID } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { mkdir, rm, writeFile } from 'node:fs/promises';
 import { basename, join } from 'node:path';
 import pLimit from 'p-limit';
-import sharp, { type Sharp } from 'sharp';
+import type { Sharp } from 'sharp';
 import {
   FINDING_PHOTO_TYPES,
   MAX_FINDING_PHOTO_BYTES,
@@ -47,7 +46,10 @@ const MAX_INPUT_PIXELS = MAX_PHOTO_MEGAPIXELS * 1_000_000;
 /** Photos decoded at once, whatever the number of uploads: each decode takes a core and its pixels in memory. */
 const IMAGE_WORK_AT_ONCE = 2;
 
-/** Finding photos on disk under `uploads/findings/`, named by the server, never by the client. */
+/**
+ * Finding photos on disk under `uploads/findings/`, named by the server, never by the client. sharp and
+ * file-type load with the first photo, not at start-up.
+ */
 @Injectable()
 export class PhotoStore {
   readonly dir: string;
@@ -55,8 +57,6 @@ export class PhotoStore {
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
     this.dir = join(config.uploadsDir, 'findings');
-    // Each photo is read once: libvips' operation cache would only keep decoded images in memory.
-    sharp.cache(false);
   }
 
   /**
@@ -71,7 +71,7 @@ export class PhotoStore {
       const n = index + 1;
       if (photo.buffer.length > MAX_FINDING_PHOTO_BYTES)
         throw new PayloadTooLargeException(`Photo ${n} is larger than ${MAX_PHOTO_MB} MB`);
-      const sniffed = await fileTypeFromBuffer(photo.buffer);
+      const sniffed = await (await import('file-type')).fileTypeFromBuffer(photo.buffer);
       const mimeType = FINDING_PHOTO_TYPES.find((type) => type === sniffed?.mime);
       if (!sniffed || !mimeType) throw new BadRequestException(`Photo ${n} is not a JPEG, PNG or WebP image`);
       const { buffer, preview } = await this.imageWork(() => this.reencode(photo.buffer, mimeType, n));
@@ -133,6 +133,7 @@ export class PhotoStore {
     mimeType: FindingPhotoType,
     n: number,
   ): Promise<{ buffer: Buffer; preview: Buffer }> {
+    const sharp = await loadSharp();
     const { width = 0, height = 0 } = await sharp(input)
       .metadata()
       .catch(() => ({ width: 0, height: 0 }));
@@ -154,6 +155,20 @@ export class PhotoStore {
       throw new BadRequestException(`Photo ${n} could not be read as an image`);
     }
   }
+}
+
+let sharpLoaded: Promise<typeof import('sharp').default> | null = null;
+
+/**
+ * sharp loads with the first photo, so start-up stays quick. Each photo is read once: libvips'
+ * operation cache would only keep decoded images in memory.
+ */
+function loadSharp(): Promise<typeof import('sharp').default> {
+  sharpLoaded ??= import('sharp').then(({ default: sharp }) => {
+    sharp.cache(false);
+    return sharp;
+  });
+  return sharpLoaded;
 }
 
 function encodeAs(image: Sharp, mimeType: FindingPhotoType): Sharp {

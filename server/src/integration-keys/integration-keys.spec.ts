@@ -29,7 +29,7 @@ describe(IntegrationKeysService.name, () => {
     ).body as CreatedIntegrationKey;
   const order = (externalRef: string, vinTail: string) => ({
     externalRef,
-    customer: { name: 'Orla Penhallow', phone: '555-0177' },
+    customer: { name: 'Orla Penhallow', phone: '608-555-0177' },
     vehicle: {
       vin: makeVin(`3VWKM7AJ${vinTail}`),
       year: 2021,

@@ -1,12 +1,12 @@
 import { Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
-import { SMTPServer, type SMTPServerAddress, type SMTPServerSession } from 'smtp-server';
+import type { SMTPServer, SMTPServerAddress, SMTPServerSession } from 'smtp-server';
 import type { MailboxEntry, MailboxMessage, Page, PageQuery } from '@baytime/shared';
-import { decodeCursor, toPage } from '../common/paging.js';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
+import { JsonIndex } from './json-index.js';
 import { readMail } from './read-mail.js';
 
 const MAX_MESSAGE_BYTES = 80 * 1024 * 1024;
@@ -20,18 +20,18 @@ const MAX_MESSAGE_BYTES = 80 * 1024 * 1024;
 export class MailboxService {
   private readonly logger = new Logger('Mailbox');
   private readonly dir: string;
-  private readonly indexFile: string;
-  private entries: MailboxEntry[] | null = null;
+  private readonly index: JsonIndex<MailboxEntry>;
   private server: SMTPServer | null = null;
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
     this.dir = join(config.dataDir, 'mailbox');
-    this.indexFile = join(this.dir, 'index.json');
+    this.index = new JsonIndex(join(this.dir, 'index.json'));
   }
 
   /** Starts the fake SMTP server on a free loopback port and answers that port. */
   async start(): Promise<number> {
     mkdirSync(this.dir, { recursive: true });
+    const { SMTPServer } = await import('smtp-server');
     const server = new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS'],
@@ -73,26 +73,12 @@ export class MailboxService {
     if (server) await new Promise<void>((resolve) => server.close(() => resolve()));
   }
 
-  /** One page, newest first. The index only grows, so a message's place in it is its cursor. */
   list(query: PageQuery): Page<MailboxEntry> {
-    const entries = this.index();
-    const before = decodeCursor(query.cursor)?.id ?? entries.length;
-    const start = Math.min(before, entries.length);
-    const rows = entries
-      .slice(Math.max(0, start - query.limit - 1), start)
-      .map((entry, i, slice) => ({ entry, place: start - slice.length + i }))
-      .reverse();
-    return toPage(
-      rows,
-      query.limit,
-      entries.length,
-      ({ entry, place }) => ({ at: Date.parse(entry.date), id: place }),
-      (shown) => shown.map(({ entry }) => entry),
-    );
+    return this.index.page(query);
   }
 
   async get(id: string): Promise<MailboxMessage> {
-    const entry = this.index().find((e) => e.id === id);
+    const entry = this.index.find(id);
     const file = join(this.dir, `${id}.eml`);
     if (!entry || !existsSync(file)) throw new NotFoundException('Message not found');
     return { ...entry, text: (await readMail(readFileSync(file))).text };
@@ -112,18 +98,6 @@ export class MailboxService {
       attachments: parsed.attachments.map((a) => a.filename),
       sizeBytes: raw.length,
     };
-    const entries = [...this.index(), entry];
-    const temporary = `${this.indexFile}.${process.pid}.tmp`;
-    writeFileSync(temporary, JSON.stringify(entries, null, 1));
-    renameSync(temporary, this.indexFile);
-    this.entries = entries;
-  }
-
-  private index(): MailboxEntry[] {
-    if (this.entries === null)
-      this.entries = existsSync(this.indexFile)
-        ? (JSON.parse(readFileSync(this.indexFile, 'utf8')) as MailboxEntry[])
-        : [];
-    return this.entries;
+    this.index.append(entry);
   }
 }

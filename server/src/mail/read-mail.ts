@@ -1,4 +1,4 @@
-import { simpleParser, type AddressObject, type EmailAddress } from 'mailparser';
+import type { AddressObject, EmailAddress } from 'mailparser';
 
 /** What the local mailbox shows of a message it received. */
 export interface ReadMail {
@@ -18,8 +18,12 @@ const display = ({ name, address = '' }: EmailAddress): string =>
 const addresses = (field: AddressObject | AddressObject[] | undefined): string[] =>
   (Array.isArray(field) ? field : field ? [field] : []).flatMap((group) => group.value).map(display);
 
-/** Reads a raw message with mailparser; a message with HTML only shows its text. */
+/**
+ * Reads a raw message with mailparser, loaded with the first message rather than at start-up; a message
+ * with HTML only shows its text.
+ */
 export async function readMail(raw: Buffer): Promise<ReadMail> {
+  const { simpleParser } = await import('mailparser');
   const mail = await simpleParser(raw, { skipImageLinks: true, skipTextLinks: true });
   return {
     from: addresses(mail.from)[0] ?? '',

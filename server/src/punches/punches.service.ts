@@ -6,8 +6,9 @@ import {
   Injectable,
 } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import {
+  isOpenLine,
   MAX_PUNCH_AGE_SECONDS,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
   validatePunch,
@@ -37,6 +38,8 @@ export interface RecordedPunch {
 
 @Injectable()
 export class PunchesService {
+  private readonly queries: ReturnType<typeof preparePunchQueries>;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
@@ -45,7 +48,9 @@ export class PunchesService {
     private readonly shop: ShopService,
     private readonly access: LineAccessService,
     private readonly audit: AuditService,
-  ) {}
+  ) {
+    this.queries = preparePunchQueries(db);
+  }
 
   /**
    * Records a punch once. The tablet's uuid makes a retry find the stored punch instead of adding a
@@ -54,7 +59,7 @@ export class PunchesService {
   @Transactional()
   record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
-    const existing = this.db.select().from(punches).where(eq(punches.id, body.id)).get();
+    const existing = this.queries.punch.get({ id: body.id });
     if (existing) {
       if (existing.technicianId !== technicianId)
         throw new ConflictException('That punch id is already used');
@@ -66,13 +71,11 @@ export class PunchesService {
       throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
     if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
       throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
-    const line = body.jobLineId
-      ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
-      : undefined;
+    const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
     if (line) this.assertMayPunchOn(line, body.kind, actor, now);
-    if (body.kind === 'job-on' && line?.status === 'done')
-      throw new ConflictException('That job line is done');
+    if (body.kind === 'job-on' && line && !isOpenLine(line))
+      throw new ConflictException(`That job line is ${line.status}`);
 
     const candidate: LedgerPunch = {
       id: body.id,
@@ -88,12 +91,8 @@ export class PunchesService {
     const refusal = validatePunch(context, candidate, { concurrentSplit, maxConcurrentJobs });
     if (refusal) throw new ConflictException(refusal);
 
-    const row = this.db
-      .insert(punches)
-      .values({ ...candidate, at, recordedAt: now, recordedBy: actor.id })
-      .returning()
-      .get();
-    const punch = toPunchDto(row);
+    const row = this.queries.insert.get({ ...candidate, at, recordedAt: now, recordedBy: actor.id });
+    const punch = toPunchDto(row!);
     this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
     this.floor.punchRecorded(punch);
     if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
@@ -184,4 +183,36 @@ export class PunchesService {
     if (!tech || !tech.active) throw new BadRequestException('No active technician with that id');
     return tech.id;
   }
+}
+
+/** The statements of every punch, prepared once: built per call, each costs about 0.2 ms more. */
+function preparePunchQueries(db: Db) {
+  const value = (name: string) => sql.placeholder(name);
+  return {
+    punch: db
+      .select()
+      .from(punches)
+      .where(eq(punches.id, value('id')))
+      .prepare(),
+    line: db
+      .select()
+      .from(jobLines)
+      .where(eq(jobLines.id, value('id')))
+      .prepare(),
+    insert: db
+      .insert(punches)
+      .values({
+        id: value('id'),
+        technicianId: value('technicianId'),
+        kind: value('kind'),
+        jobLineId: value('jobLineId'),
+        breakKind: value('breakKind'),
+        at: value('at'),
+        recordedAt: value('recordedAt'),
+        recordedBy: value('recordedBy'),
+        supersedes: value('supersedes'),
+      })
+      .returning()
+      .prepare(),
+  };
 }

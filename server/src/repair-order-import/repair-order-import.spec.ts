@@ -20,7 +20,7 @@ const VIN_B = makeVin('4T1BK1EBN7654321');
 function twoRos(bookHoursOfB = '1.2', vinOfB = VIN_B): string {
   return [
     HEADER,
-    `IMP-A,Tamsin Oakridge,555-0111,,${VIN_A},2021,Corvane,Ridgeback,,30500,"Noise over bumps, front left",,Inspect front suspension,0.9`,
+    `IMP-A,Tamsin Oakridge,608-555-0111,,${VIN_A},2021,Corvane,Ridgeback,,30500,"Noise over bumps, front left",,Inspect front suspension,0.9`,
     `IMP-A,,,,,,,,,,,,Replace sway bar links,1.1`,
     `IMP-B,Ilse Varga,,ilse@example.test,${vinOfB},2022,Halvard,Tessel,QRT 88,12000,Oil change due,,Oil and filter service,${bookHoursOfB}`,
   ].join('\n');

@@ -201,15 +201,9 @@ describe(ReportsService.name, () => {
   }, 120_000);
   afterAll(() => sut.close());
 
-  it('reports the week by hand-worked figures, with the workweek bounds and the formulas', async () => {
+  it('reports the week by hand-worked figures, with the formulas', async () => {
     const report = await labour(`week=${week}`, foreman);
-    const { from, to } = workweekBounds(week, shop);
-    expect(report).toMatchObject({
-      week,
-      from: from.toISOString(),
-      to: to.toISOString(),
-      timeZone: 'America/Chicago',
-    });
+    expect(report).toMatchObject({ week, timeZone: 'America/Chicago' });
     expect(report.formulas.efficiency).toBe('Efficiency = flagged hours ÷ clocked job hours');
     expect(report.guidelines.efficiency).toEqual({ low: 1.25, high: 1.25 });
 
@@ -231,7 +225,7 @@ describe(ReportsService.name, () => {
     expect(ada.lines[0]).toMatchObject({ bookHours: 5.4, flaggedHours: 5.4, clockedHours: 4.8 });
     expect(ada.lines[0]!.overUnderHours).toBeCloseTo(0.6, 6);
 
-    // NADA definitions via a dealer association bulletin "Measuring technician performance" (CHECKS.md §3):
+    // NADA definitions via a dealer association bulletin "Measuring technician performance":
     // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance,
     // 5 × 7.2 h clocked, 5 × 9.0 h flagged.
     const bram = rowOf(report, ids.b);
@@ -284,11 +278,46 @@ describe(ReportsService.name, () => {
     expect(report.shop.proficiency).toBeCloseTo(96.5 / 98, 6);
   });
 
+  it('bounds a report by the shop’s workweek, by the calendar', async () => {
+    // The demo shop's workweek starts Sunday 00:00 in America/Chicago; its week "YYYY-Www" is the one
+    // that starts in that ISO week. ISO 8601 week dates: 2025-12-29 is 2026-W01-1, so 2026-W10 runs
+    // Monday 2 March to Sunday 8 March, and 2026-W44 Monday 26 October to Sunday 1 November.
+    // US daylight saving time (Energy Policy Act of 2005, Pub. L. 109-58 §110: second Sunday of March,
+    // first Sunday of November, at 2 a.m.) turns on 8 March and off 1 November 2026. So the workweek
+    // from Sunday 8 March runs from 00:00 CST (UTC−6) to 00:00 CDT (UTC−5): 167 h; the one from
+    // Sunday 1 November from 00:00 CDT to 00:00 CST: 169 h.
+    expect(await labour('week=2026-W10')).toMatchObject({
+      from: '2026-03-08T06:00:00.000Z',
+      to: '2026-03-15T05:00:00.000Z',
+    });
+    expect(await labour('week=2026-W44')).toMatchObject({
+      from: '2026-11-01T05:00:00.000Z',
+      to: '2026-11-08T06:00:00.000Z',
+    });
+    // ISO 8601: 2026-12-31 is 2026-W53-4, so 2026 has 53 weeks; W53's Sunday is 3 January 2027 and
+    // 2027-01-04 is 2027-W01-1.
+    const lastOfTheYear = await labour('week=2026-W53');
+    expect(lastOfTheYear).toMatchObject({ from: '2027-01-03T06:00:00.000Z', to: '2027-01-10T06:00:00.000Z' });
+    // The 12-week trend up to 2027-W02 counts back through 2026's week 53.
+    expect((await labour('week=2027-W02')).trend.map((point) => point.week)).toEqual([
+      '2026-W44',
+      '2026-W45',
+      '2026-W46',
+      '2026-W47',
+      '2026-W48',
+      '2026-W49',
+      '2026-W50',
+      '2026-W51',
+      '2026-W52',
+      '2026-W53',
+      '2027-W01',
+      '2027-W02',
+    ]);
+  });
+
   it('shows the shop trend over 12 weeks: null ratios where nothing was worked', async () => {
     const { trend, shop: totals } = await labour(`week=${week}`);
-    expect(trend.map((point) => point.week)).toEqual(
-      Array.from({ length: 12 }, (_, i) => addIsoWeeks(week, i - 11)),
-    );
+    expect(trend).toHaveLength(12);
     expect(trend[11]).toMatchObject({ week, ...totals });
     // The week before: Eli's 47 h on shift and no job → productivity 0/47 = 0, efficiency 0/0 = null.
     expect(trend[10]).toMatchObject({
@@ -323,7 +352,7 @@ describe(ReportsService.name, () => {
     expect(bay.week).toBeCloseTo(0.81, 6);
   });
 
-  // 29 CFR 778.111(a), CHECKS.md §1 vector A: 50 h worked; $491.00 piece pay for 46 productive hours;
+  // 29 CFR 778.111(a), the regulation's piece-rate example: 50 h worked; $491.00 piece pay for 46 productive hours;
   // 4 h waiting at $8.00 → straight time $523.00, regular rate $523.00 ÷ 50 = $10.46, premium
   // 10 × $5.23 = $52.30, total $575.30 (= 40 × $10.46 + 10 × $15.69). Ada's week: 49.1 flagged h × $10.00
   // = $491.00; idle 07:00–07:06, 11:54–12:00, 12:30–12:36 and 17:00–17:30 = 0.8 h a day = 4 h × $8.00.
@@ -355,7 +384,7 @@ describe(ReportsService.name, () => {
     expect(ada.totalCents).toBe(40 * 10_46 + 10 * 15_69);
   });
 
-  // 29 USC 206(a)(1)(C), CHECKS.md §1: $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
+  // 29 USC 206(a)(1)(C): $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
   // h × $16.00 = $14.40 and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 → top-up $14.60.
   it('tops up to the minimum wage and totals the week', async () => {
     const report = await pay(`week=${week}`);
@@ -506,7 +535,7 @@ describe(ReportsService.name, () => {
     await as(owner).get('/api/reports/pay?format=xlsx').expect(400);
   });
 
-  // California Labor Code 510(a), CHECKS.md §2: hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
+  // California Labor Code 510(a), worked example of a general overtime guide (arithmetic checked): hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
   // 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
   it('pays the California daily-overtime vector when the shop chooses those rules', async () => {
     const earlier = addIsoWeeks(week, -1);

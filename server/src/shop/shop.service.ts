@@ -25,6 +25,10 @@ export const DEFAULT_SHOP: ShopSettings = {
   kioskIdleSeconds: 60,
   payNonProductiveSeparately: true,
   techniciansTakeUnassigned: true,
+  phone: null,
+  labourRateCents: 0,
+  taxNote: '',
+  approvalLinkHours: 72,
 };
 
 @Injectable()

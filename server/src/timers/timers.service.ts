@@ -1,12 +1,13 @@
 import { BadRequestException, ConflictException, Inject, Injectable, Logger } from '@nestjs/common';
 import { Interval } from '@nestjs/schedule';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
-import type {
-  HoldPresetBody,
-  HoldPresetDto,
-  StartTimerBody,
-  TimerDto,
-  TimerReadingBody,
+import {
+  isOpenLine,
+  type HoldPresetBody,
+  type HoldPresetDto,
+  type StartTimerBody,
+  type TimerDto,
+  type TimerReadingBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { referencedBay } from '../bays/referenced-bay.js';
@@ -66,13 +67,19 @@ export class TimersService {
         row,
         readings.filter((r) => r.timerId === row.id),
         now,
+        this.lineTechnician(row.jobLineId),
       ),
     );
   }
 
   get(id: number, now = new Date()): TimerDto {
     const row = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
-    return toTimerDto(row, this.readingsOf(id), now);
+    return toTimerDto(row, this.readingsOf(id), now, this.lineTechnician(row.jobLineId));
+  }
+
+  /** Whose line the timer runs on: their kiosk is the one that chimes. */
+  private lineTechnician(jobLineId: number): number | null {
+    return this.floor.openLine(jobLineId)?.technicianId ?? null;
   }
 
   @Transactional()
@@ -83,7 +90,7 @@ export class TimersService {
     );
     this.access.assertMayWork(line, actor, now);
     if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
-    if (line.status === 'done') throw new ConflictException('That line is done');
+    if (!isOpenLine(line)) throw new ConflictException(`That line is ${line.status}`);
     const busy = this.db
       .select()
       .from(timers)

@@ -1,4 +1,4 @@
-import { ConflictException, Inject, Injectable } from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { asc, eq } from 'drizzle-orm';
 import type { CreateUserBody, UpdateUserBody, UserDto } from '@baytime/shared';
 import { hashSecret } from '../auth/passwords.js';
@@ -66,6 +66,9 @@ export class UsersService {
     if (Object.keys(body).length === 0) return toUserDto(current);
     if (body.active === false && id === actor.id)
       throw new ConflictException('You cannot deactivate your own account: ask another owner');
+    if (body.role !== undefined && body.role !== current.role && id === actor.id)
+      throw new ConflictException('You cannot change your own role: ask another owner');
+    this.assertSignInFor(body.role ?? current.role, current, body);
     const { password, pin, email, ...rest } = body;
     const changes: Partial<typeof users.$inferInsert> = { ...rest };
     if (email !== undefined) changes.email = email.toLowerCase();
@@ -74,6 +77,12 @@ export class UsersService {
     const fields = Object.keys(body).map((key) =>
       key === 'password' || key === 'pin' ? `${key} (changed)` : key,
     );
+    // What each plain field was and became; secrets are only said to have changed.
+    const changed = Object.fromEntries(
+      Object.entries(rest)
+        .filter(([key, value]) => current[key as keyof UserRow] !== value)
+        .map(([key, value]) => [key, { from: current[key as keyof UserRow], to: value }]),
+    );
     return this.uow.run(() => {
       const row = this.updateOrConflict(id, changes);
       this.audit.record({
@@ -81,12 +90,27 @@ export class UsersService {
         action: 'update',
         entity: 'user',
         entityId: id,
-        detail: { fields },
+        detail: { fields, changes: changed },
       });
       this.floor.techniciansChanged();
       if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
+      else if (body.role !== undefined && body.role !== current.role)
+        this.live.endSessions({ userId: id }, 'role-changed');
       return toUserDto(row);
     });
+  }
+
+  /** A technician signs in with a badge and PIN, office staff with an e-mail and password. */
+  private assertSignInFor(role: UserRow['role'], current: UserRow, body: UpdateUserBody): void {
+    const missing = (path: string, message: string) =>
+      new BadRequestException({ statusCode: 400, message, issues: [{ path: [path], message }] });
+    if (role === 'technician') {
+      if (!(body.badge ?? current.badge)) throw missing('badge', 'A technician needs a badge');
+      if (!body.pin && !current.pinHash) throw missing('pin', 'A technician needs a PIN');
+    } else if (role !== 'display') {
+      if (!(body.email ?? current.email)) throw missing('email', 'Office staff need an e-mail');
+      if (!body.password && !current.passwordHash) throw missing('password', 'Office staff need a password');
+    }
   }
 
   private insertOrConflict(values: typeof users.$inferInsert): UserRow {

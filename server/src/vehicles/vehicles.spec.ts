@@ -39,7 +39,11 @@ describe(VehiclesService.name, () => {
   });
 
   it('gives a returning vehicle with its owner now and its latest visit, whatever the spacing of the VIN', async () => {
-    await write({ name: 'Wendell Farrow', phone: '555-0142', email: 'wendell@example.test' }, {}, 61_200);
+    await write(
+      { name: 'Wendell Farrow', phone: '(608) 555-0142', email: 'wendell@example.test' },
+      {},
+      61_200,
+    );
     const { body: last } = await write(
       { name: 'Wendell Farrow' },
       { plate: '7KX 221', model: 'Morrow Touring' },
@@ -57,7 +61,7 @@ describe(VehiclesService.name, () => {
       customer: {
         id: expect.any(Number),
         name: 'Wendell Farrow',
-        phone: '555-0142',
+        phone: '+16085550142',
         email: 'wendell@example.test',
       },
       lastVisit: { repairOrderId: last.id, number: last.number, date: last.createdAt, odometer: 64_950 },

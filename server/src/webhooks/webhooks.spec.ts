@@ -150,7 +150,7 @@ describe('webhooks', () => {
       .http()
       .post(`/api/findings/${(finding.body as { id: number }).id}/answer`)
       .auth(advisor, { type: 'bearer' })
-      .send({ answer: 'declined' })
+      .send({ answer: 'declined', channel: 'phone' })
       .expect(200);
     await sut
       .http()
@@ -171,6 +171,53 @@ describe('webhooks', () => {
         (envelope(h).data as { repairOrderId: number }).repairOrderId === ro.id,
     );
     expect(envelope(ready).data).toMatchObject({ repairOrderId: ro.id, externalRef: 'HOOK-READY-1' });
+  });
+
+  it('announces an RO ready when its last open line is cancelled rather than finished', async () => {
+    const foreman = await sut.signIn(DEMO.foreman);
+    const ro = (
+      await sut
+        .http()
+        .post('/api/repair-orders')
+        .auth(foreman, { type: 'bearer' })
+        .send({
+          externalRef: 'HOOK-READY-2',
+          customer: { name: 'Ada Fenwick' },
+          vehicle: {
+            vin: makeVin('1HGCM826A0043522'),
+            year: 2010,
+            make: 'Corvane',
+            model: 'Sprite',
+            odometer: 91_000,
+          },
+          concern: 'Service',
+          lines: [
+            { title: 'Oil service', bookHours: 0.8 },
+            { title: 'Cabin filter', bookHours: 0.2 },
+          ],
+        })
+        .expect(201)
+    ).body as RepairOrderSummary;
+    const [done, dropped] = ro.lines;
+    await sut
+      .http()
+      .patch(`/api/job-lines/${done!.id}`)
+      .auth(foreman, { type: 'bearer' })
+      .send({ status: 'done' })
+      .expect(200);
+    await sut
+      .http()
+      .post(`/api/job-lines/${dropped!.id}/cancel`)
+      .auth(foreman, { type: 'bearer' })
+      .send({ reason: 'Customer declined the filter' })
+      .expect(200);
+
+    const ready = await receiver.next(
+      (h) =>
+        envelope(h).event === 'repair-order.ready' &&
+        (envelope(h).data as { repairOrderId: number }).repairOrderId === ro.id,
+    );
+    expect(envelope(ready).data).toMatchObject({ externalRef: 'HOOK-READY-2', bayId: null });
   });
 
   it('keeps a pending delivery across a restart and sends it once the server is back', async () => {

@@ -16,5 +16,10 @@ export function toJobLineDto(row: typeof jobLines.$inferSelect): JobLineDto {
     bayId: row.bayId,
     promisedAt: row.promisedAt?.toISOString() ?? null,
     completedAt: row.completedAt?.toISOString() ?? null,
+    completedBy: row.completedBy,
+    concern: row.concern,
+    cause: row.cause,
+    correction: row.correction,
+    cancelReason: row.cancelReason,
   };
 }

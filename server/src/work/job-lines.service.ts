@@ -1,23 +1,35 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
-import { and, eq, ne } from 'drizzle-orm';
-import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
+import { and, eq, isNull, ne, or } from 'drizzle-orm';
+import {
+  isOpenLine,
+  type CancelJobLineBody,
+  type EditJobLineBody,
+  type FinishLineBody,
+  type HoldLineBody,
+  type JobLineDto,
+  type PatchJobLineBody,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
+import { bays, findings, jobLines, punches, repairOrders, timers, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 import { toJobLineDto } from './job-line.dto.js';
+import { syncRepairOrderStatus } from './repair-order-status.js';
 
 type LineRow = typeof jobLines.$inferSelect;
 
-/** Changes to job lines: the foreman's dispatch, and a technician's hold and done from the kiosk. */
+/**
+ * Changes to job lines: the foreman's dispatch, a technician's hold and done from the kiosk, and the
+ * office's corrections after the fact (details, cancel, delete).
+ */
 @Injectable()
 export class JobLinesService {
   constructor(
@@ -34,6 +46,7 @@ export class JobLinesService {
   @Transactional()
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
+    if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
     if (body.technicianId) this.assertTechnician(body.technicianId);
     if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
@@ -65,17 +78,20 @@ export class JobLinesService {
         holdReason: null,
         heldAt: null,
         completedAt: body.completedAt ? new Date(body.completedAt) : now,
+        completedBy: line.status === 'done' ? line.completedBy : actor.id,
       });
     }
     const updated = this.save(id, changes);
     if (changes.bayId) this.stageBay(changes.bayId, updated.repairOrderId, now);
     if (updated.status === 'done' && line.status !== 'done') this.afterDone(updated, 'check', now);
+    else if (updated.status !== line.status) this.statusChanged(updated, now);
     this.audit.record({
       actorId: actor.id,
       action: 'update',
       entity: 'job-line',
       entityId: id,
-      detail: body,
+      // What it was, so the RO's history can say "reassigned from Dana to Luis".
+      detail: { ...body, was: { technicianId: line.technicianId, bayId: line.bayId, status: line.status } },
     });
     return this.announce(updated);
   }
@@ -83,7 +99,7 @@ export class JobLinesService {
   @Transactional()
   hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
-    if (line.status === 'done') throw new ConflictException('That line is already done');
+    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
     this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
     this.audit.record({
@@ -106,15 +122,23 @@ export class JobLinesService {
   }
 
   @Transactional()
-  finish(id: number, { next }: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
+  finish(
+    id: number,
+    { next, cause, correction }: FinishLineBody,
+    actor: Principal,
+    now = new Date(),
+  ): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);
+    if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
     this.punches.clockOffLine(id, actor, 'Line marked done', now);
     const updated = this.save(id, {
       status: 'done',
       holdReason: null,
       heldAt: null,
       completedAt: now,
+      completedBy: actor.id,
+      ...threeCs({ cause, correction }),
       updatedAt: now,
     });
     this.afterDone(updated, next, now);
@@ -123,47 +147,163 @@ export class JobLinesService {
       action: 'done',
       entity: 'job-line',
       entityId: id,
-      detail: { next },
+      detail: { next, ...threeCs({ cause, correction }) },
+    });
+    return this.announce(updated);
+  }
+
+  /** The advisor's corrections to a line: title, book hours, skill level and the three Cs. */
+  @Transactional()
+  editDetails(id: number, body: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    // An emptied cause or correction is no longer on record.
+    const changes = changedFields(line, {
+      ...body,
+      ...(body.cause === '' && { cause: null }),
+      ...(body.correction === '' && { correction: null }),
+    });
+    if (Object.keys(changes).length === 0) return toJobLineDto(line);
+    const updated = this.save(id, {
+      ...Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to])),
+      updatedAt: now,
+    });
+    this.audit.record({
+      actorId: actor.id,
+      action: 'edit',
+      entity: 'job-line',
+      entityId: id,
+      detail: { changes },
     });
     return this.announce(updated);
   }
 
   /**
+   * Takes an open line off the RO with a reason: whoever is clocked on it is clocked off and its timer
+   * stops. The line and its time stay on record; it is never flagged.
+   */
+  @Transactional()
+  cancel(id: number, { reason }: CancelJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
+    this.punches.clockOffLine(id, actor, `Line cancelled: ${reason}`, now);
+    const stopped = this.db
+      .update(timers)
+      .set({ endedAt: now })
+      .where(and(eq(timers.jobLineId, id), isNull(timers.endedAt)))
+      .returning()
+      .all();
+    if (stopped.length) this.floor.timersChanged();
+    const updated = this.save(id, {
+      status: 'cancelled',
+      cancelReason: reason,
+      holdReason: null,
+      heldAt: null,
+      updatedAt: now,
+    });
+    this.statusChanged(updated, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'cancel',
+      entity: 'job-line',
+      entityId: id,
+      detail: { reason },
+    });
+    return this.announce(updated);
+  }
+
+  /**
+   * Deletes a line written by mistake. One with time, a finding or a timer on it stays on record:
+   * it can only be cancelled with a reason.
+   */
+  @Transactional()
+  remove(id: number, actor: Principal, now = new Date()): void {
+    const line = this.find(id);
+    const ro = this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get()!;
+    if (ro.status === 'closed') throw new ConflictException('That repair order is closed');
+    if (line.status === 'done') throw new ConflictException('That line is done: it stays on the RO');
+    const clocked = this.db.select({ id: punches.id }).from(punches).where(eq(punches.jobLineId, id)).get();
+    if (clocked)
+      throw new ConflictException('Time was clocked on that line: cancel it with a reason instead');
+    const found = this.db
+      .select({ id: findings.id })
+      .from(findings)
+      .where(or(eq(findings.jobLineId, id), eq(findings.createdLineId, id)))
+      .get();
+    const timed = this.db.select({ id: timers.id }).from(timers).where(eq(timers.jobLineId, id)).get();
+    if (found || timed)
+      throw new ConflictException(
+        'That line has a finding or a timer on record: cancel it with a reason instead',
+      );
+    this.db.delete(jobLines).where(eq(jobLines.id, id)).run();
+    const rest = this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, ro.id))
+      .orderBy(jobLines.lineNo)
+      .all();
+    this.renumber(
+      rest.map((row) => row.id),
+      now,
+    );
+    this.statusChanged(line, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'line-removed',
+      entity: 'repair-order',
+      entityId: ro.id,
+      detail: { jobLineId: id, lineNo: line.lineNo, title: line.title },
+    });
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
+    this.floor.linesChanged([id, ...rest.map((row) => row.id)]);
+    this.floor.baysChanged();
+  }
+
+  /**
+   * Numbers the RO's lines 1, 2, 3… in the given order. Through negative numbers first, so the
+   * unique (RO, line number) index never sees two lines with one number.
+   */
+  renumber(lineIds: readonly number[], now: Date): void {
+    lineIds.forEach((id, i) =>
+      this.db
+        .update(jobLines)
+        .set({ lineNo: -(i + 1) })
+        .where(eq(jobLines.id, id))
+        .run(),
+    );
+    lineIds.forEach((id, i) =>
+      this.db
+        .update(jobLines)
+        .set({ lineNo: i + 1, updatedAt: now })
+        .where(eq(jobLines.id, id))
+        .run(),
+    );
+  }
+
+  /**
    * The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO.
-   * Webhooks hear of the finished line and, with the last one, of the RO ready.
+   * Webhooks hear of the finished line.
    */
   private afterDone(line: LineRow, next: 'check' | 'ready', now: Date): void {
-    const openInRo = this.db
-      .select()
-      .from(jobLines)
-      .where(and(eq(jobLines.repairOrderId, line.repairOrderId), ne(jobLines.status, 'done')))
-      .all();
     const ro = this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get()!;
-    const announced = { repairOrderId: ro.id, repairOrderNumber: ro.number, externalRef: ro.externalRef };
     this.webhooks.announce(
       'job-line.finished',
       {
         jobLineId: line.id,
-        ...announced,
+        ...announcedRepairOrder(ro),
         title: line.title,
         technicianId: line.technicianId,
         completedAt: (line.completedAt ?? now).toISOString(),
       },
       now,
     );
-    if (openInRo.length === 0) {
-      this.db.update(repairOrders).set({ status: 'done' }).where(eq(repairOrders.id, ro.id)).run();
-      this.webhooks.announce(
-        'repair-order.ready',
-        { ...announced, bayId: line.bayId, readyAt: now.toISOString() },
-        now,
-      );
-    }
+    this.statusChanged(line, now);
     if (!line.bayId) return;
     const openInBay = this.db
       .select()
       .from(jobLines)
-      .where(and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done')))
+      .where(
+        and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')),
+      )
       .all();
     if (openInBay.length === 0)
       this.db
@@ -171,6 +311,23 @@ export class JobLinesService {
         .set({ phase: next, phaseSince: now, repairOrderId: line.repairOrderId })
         .where(eq(bays.id, line.bayId))
         .run();
+  }
+
+  /**
+   * The RO follows its lines; the office's RO pages hear when its status moved, and webhooks hear of
+   * the RO ready when the line (finished, cancelled or removed) leaves none open.
+   */
+  private statusChanged(line: LineRow, now: Date): void {
+    const ro = this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get()!;
+    const status = syncRepairOrderStatus(this.db, ro.id);
+    if (status === ro.status) return;
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
+    if (status === 'done')
+      this.webhooks.announce(
+        'repair-order.ready',
+        { ...announcedRepairOrder(ro), bayId: line.bayId, readyAt: now.toISOString() },
+        now,
+      );
   }
 
   private stageBay(bayId: number, repairOrderId: number, now: Date): void {
@@ -214,4 +371,29 @@ export class JobLinesService {
     this.floor.baysChanged();
     return jobLine;
   }
+}
+
+/** Cause and correction as stored: left out or empty means nothing was written. */
+function threeCs(given: { cause?: string | undefined; correction?: string | undefined }) {
+  return {
+    ...(given.cause && { cause: given.cause }),
+    ...(given.correction && { correction: given.correction }),
+  };
+}
+
+/** How a webhook names the RO: its id, its number and the other system's reference. */
+function announcedRepairOrder(ro: typeof repairOrders.$inferSelect) {
+  return { repairOrderId: ro.id, repairOrderNumber: ro.number, externalRef: ro.externalRef };
+}
+
+type Changes = Record<string, { from: unknown; to: unknown }>;
+
+/** The fields the body really changes, each with what it was: the audit row's detail. */
+export function changedFields<Row extends Record<string, unknown>>(row: Row, body: Partial<Row>): Changes {
+  const changes: Changes = {};
+  const same = (a: unknown, b: unknown) =>
+    a instanceof Date && b instanceof Date ? a.getTime() === b.getTime() : a === b;
+  for (const [key, to] of Object.entries(body))
+    if (to !== undefined && !same(row[key] ?? null, to)) changes[key] = { from: row[key] ?? null, to };
+  return changes;
 }

@@ -45,6 +45,27 @@ describe(JobLinesService.name, () => {
     expect((await day(luis)).lines.map((l) => l.id)).not.toContain(line.id);
   });
 
+  it('Done records cause and correction and who finished, and the kiosk counts it as done today (bug 9)', async () => {
+    const sam = await sut.badge('1046');
+    const before = await day(sam);
+    const line = before.lines[0]!;
+    expect(line.concern).toMatch(/^Customer asks for: /);
+    const { body } = await as(sam.accessToken)
+      .post(`/api/job-lines/${line.id}/done`, {
+        next: 'check',
+        cause: 'Seal weeping at the pan',
+        correction: 'Resealed the pan and let it cure',
+      })
+      .expect(200);
+    expect(body).toMatchObject({
+      status: 'done',
+      completedBy: sam.user.id,
+      cause: 'Seal weeping at the pan',
+      correction: 'Resealed the pan and let it cure',
+    });
+    expect((await day(sam)).doneToday).toBe(before.doneToday + 1);
+  });
+
   it("refuses a technician acting on someone else's line", async () => {
     const sam = await sut.badge('1046');
     const notSams = (await board()).bays.find(

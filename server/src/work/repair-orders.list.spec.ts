@@ -3,6 +3,7 @@ import { eq } from 'drizzle-orm';
 import { repairOrderListQuerySchema, type RepairOrderPage } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
@@ -176,10 +177,22 @@ describe(`${RepairOrdersService.name} list`, () => {
       insert('97003', {
         ...mark,
         status: 'open',
-        promisedAt: new Date(now + 60 * MINUTE),
+        // Far enough that half an hour started now makes it, whatever the shop's hours.
+        promisedAt: new Date(now + 3 * 24 * 60 * MINUTE),
         advisorId: foremanId,
       });
       insert('97004', { ...mark, status: 'closed', promisedAt: null, advisorId: foremanId });
+      // Each line carries its RO's promise; the lines of the finished and the closed RO are done.
+      for (const ro of db
+        .select()
+        .from(repairOrders)
+        .where(eq(repairOrders.customerName, mark.customerName))
+        .all())
+        db.update(jobLines)
+          .set({ promisedAt: ro.promisedAt, status: ro.status === 'open' ? 'queued' : 'done' })
+          .where(eq(jobLines.repairOrderId, ro.id))
+          .run();
+      sut.app.get(FloorService).load();
     });
 
     it('by status', async () => {
@@ -191,7 +204,7 @@ describe(`${RepairOrdersService.name} list`, () => {
       expect(await onlyMarked(`advisorId=${foremanId}`)).toEqual(['97003', '97004']);
     });
 
-    it('late: open, and the promised time has passed', async () => {
+    it('late: an open line whose promise has passed, as dispatch counts it', async () => {
       expect(await onlyMarked('late=true')).toEqual(['97001']);
       expect(await onlyMarked('late=false')).toEqual(['97001', '97002', '97003', '97004']);
     });

@@ -1,25 +1,11 @@
-import { mkdtempSync, readFileSync, rmSync, writeFileSync, cpSync, mkdirSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import Database from 'better-sqlite3';
 import { drizzle } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { afterAll, describe, expect, it } from 'vitest';
-
-const migrations = fileURLToPath(new URL('../../drizzle', import.meta.url));
-
-/** The migrations folder as it was before repair orders kept their own details. */
-function migrationsUpTo(tag: string, dir: string): string {
-  const journal = JSON.parse(readFileSync(join(migrations, 'meta/_journal.json'), 'utf8')) as {
-    entries: { tag: string }[];
-  };
-  const entries = journal.entries.slice(0, journal.entries.findIndex((entry) => entry.tag === tag) + 1);
-  mkdirSync(join(dir, 'meta'), { recursive: true });
-  writeFileSync(join(dir, 'meta/_journal.json'), JSON.stringify({ ...journal, entries }));
-  for (const { tag: file } of entries) cpSync(join(migrations, `${file}.sql`), join(dir, `${file}.sql`));
-  return dir;
-}
+import { migrations, migrationsUpTo } from '../test-support/migrations.js';
 
 describe('repair-order snapshot migrations', () => {
   const dir = mkdtempSync(join(tmpdir(), 'baytime-migrations-'));

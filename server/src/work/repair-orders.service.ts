@@ -1,9 +1,15 @@
-import { BadRequestException, Inject, Injectable } from '@nestjs/common';
-import { and, count, desc, eq, gte, inArray, lt, sql, type SQL } from 'drizzle-orm';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
+import { and, count, desc, eq, gte, inArray, lt, max, sql, type SQL } from 'drizzle-orm';
 import {
+  isOpenLine,
   shopDayKey,
   shopLocalInstant,
+  type AddJobLineBody,
   type CreateRepairOrderBody,
+  type EditRepairOrderBody,
+  type JobLineDto,
+  type LineOrderBody,
+  type RepairOrderHistoryEntry,
   type RepairOrderListQuery,
   type RepairOrderPage,
   type RepairOrderSummary,
@@ -16,12 +22,16 @@ import { foundOrFail } from '../common/not-found.js';
 import { decodeCursor, olderThan, toPage } from '../common/paging.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { bays, customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { DispatchService } from '../dispatch/dispatch.service.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
+import { changedFields, JobLinesService } from './job-lines.service.js';
+import { repairOrderHistory } from './repair-order-history.js';
 import { repairOrderSnapshot } from './repair-order-snapshot.js';
+import { syncRepairOrderStatus } from './repair-order-status.js';
 import { repairOrderSearch } from './repair-orders.search.js';
 
 type CustomerRow = typeof customers.$inferSelect;
@@ -49,6 +59,8 @@ export class RepairOrdersService {
     private readonly labour: LabourService,
     private readonly floor: FloorService,
     private readonly shop: ShopService,
+    private readonly dispatch: DispatchService,
+    private readonly lines: JobLinesService,
   ) {}
 
   /**
@@ -99,7 +111,15 @@ export class RepairOrdersService {
     body.lines.forEach((line, i) =>
       this.db
         .insert(jobLines)
-        .values({ ...line, repairOrderId: ro.id, lineNo: i + 1, promisedAt, queuedAt: now, updatedAt: now })
+        .values({
+          ...line,
+          concern: line.concern ?? body.concern,
+          repairOrderId: ro.id,
+          lineNo: i + 1,
+          promisedAt,
+          queuedAt: now,
+          updatedAt: now,
+        })
         .run(),
     );
     const detail = {
@@ -152,7 +172,7 @@ export class RepairOrdersService {
       query.status ? eq(repairOrders.status, query.status) : undefined,
       query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
       query.promised === 'today' ? this.promisedToday(now) : undefined,
-      query.late ? and(eq(repairOrders.status, 'open'), lt(repairOrders.promisedAt, now)) : undefined,
+      query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
       query.q ? repairOrderSearch(query.q) : undefined,
     );
     const total = this.db.select({ n: count() }).from(repairOrders).where(where).get()?.n ?? 0;
@@ -164,6 +184,201 @@ export class RepairOrdersService {
       ({ ro }) => ({ at: ro.createdAt.getTime(), id: ro.id }),
       (shown) => this.summaries(shown, now),
     );
+  }
+
+  /**
+   * Corrections after the fact: the RO's own record of the customer and vehicle (and the customer and
+   * vehicle on file, so the next visit starts right), the concern and the promise. Audited with what
+   * each field was.
+   */
+  @Transactional()
+  edit(id: number, body: EditRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
+    const ro = this.row(id);
+    const promisedAt =
+      body.promisedAt === undefined ? undefined : body.promisedAt === null ? null : new Date(body.promisedAt);
+    if (promisedAt && promisedAt <= now && promisedAt.getTime() !== ro.promisedAt?.getTime())
+      throw fieldError(['promisedAt'], 'That time has already passed: promise a later one');
+    const { customer = {}, vehicle = {} } = body;
+    const email = customer.email?.toLowerCase();
+    const changes = changedFields(ro, {
+      customerName: customer.name,
+      customerPhone: customer.phone,
+      customerEmail: email,
+      vehicleYear: vehicle.year,
+      vehicleMake: vehicle.make,
+      vehicleModel: vehicle.model,
+      vehiclePlate: vehicle.plate,
+      odometer: vehicle.odometer,
+      concern: body.concern,
+      promisedAt,
+    });
+    if (Object.keys(changes).length === 0) return this.get(id, now);
+    const set = Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to]));
+    this.db.update(repairOrders).set(set).where(eq(repairOrders.id, id)).run();
+    const onFile = { name: customer.name, phone: customer.phone, email };
+    if (Object.values(onFile).some((v) => v !== undefined))
+      this.db.update(customers).set(onFile).where(eq(customers.id, ro.customerId)).run();
+    const { odometer, ...details } = vehicle;
+    if (Object.values(details).some((v) => v !== undefined) || odometer !== undefined)
+      this.db
+        .update(vehicles)
+        .set({ ...details, ...(odometer !== undefined && { lastOdometer: odometer }) })
+        .where(eq(vehicles.id, ro.vehicleId))
+        .run();
+    let moved: number[] = [];
+    if (promisedAt !== undefined) {
+      moved = this.db
+        .update(jobLines)
+        .set({ promisedAt, updatedAt: now })
+        .where(eq(jobLines.repairOrderId, id))
+        .returning({ id: jobLines.id })
+        .all()
+        .map((line) => line.id);
+    }
+    this.audit.record({
+      actorId: actor.id,
+      action: 'edit',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { changes },
+    });
+    return this.changed(id, moved, now);
+  }
+
+  /** A line added after the RO was written joins the queue; a finished RO is open again. */
+  @Transactional()
+  addLine(id: number, body: AddJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const ro = this.openRow(id);
+    const last = this.db
+      .select({ lineNo: max(jobLines.lineNo) })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, id))
+      .get()?.lineNo;
+    const line = this.db
+      .insert(jobLines)
+      .values({
+        ...body,
+        concern: body.concern ?? ro.concern,
+        repairOrderId: id,
+        lineNo: (last ?? 0) + 1,
+        promisedAt: ro.promisedAt,
+        queuedAt: now,
+        updatedAt: now,
+      })
+      .returning()
+      .get();
+    syncRepairOrderStatus(this.db, id);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'line-added',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { jobLineId: line.id, lineNo: line.lineNo, title: line.title, bookHours: line.bookHours },
+    });
+    const jobLine = toJobLineDto(line);
+    this.live.publish('job-line.updated', { jobLine });
+    this.changed(id, [line.id], now);
+    return jobLine;
+  }
+
+  /** The RO's lines in a new order: every line, each once. */
+  @Transactional()
+  reorderLines(
+    id: number,
+    { lineIds }: LineOrderBody,
+    actor: Principal,
+    now = new Date(),
+  ): RepairOrderSummary {
+    this.openRow(id);
+    const current = this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, id))
+      .all()
+      .map((line) => line.id);
+    if (
+      lineIds.length !== current.length ||
+      new Set(lineIds).size !== lineIds.length ||
+      !lineIds.every((l) => current.includes(l))
+    )
+      throw fieldError(['lineIds'], 'Give every line of this repair order once');
+    this.lines.renumber(lineIds, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'lines-reordered',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { lineIds },
+    });
+    return this.changed(id, lineIds, now);
+  }
+
+  /**
+   * The vehicle is picked up: the RO closes and any bay still holding it is free. Only once every
+   * line is done or cancelled.
+   */
+  @Transactional()
+  close(id: number, actor: Principal, now = new Date()): RepairOrderSummary {
+    const ro = this.row(id);
+    if (ro.status === 'closed') throw new ConflictException(`RO ${ro.number} is already closed`);
+    if (syncRepairOrderStatus(this.db, id) !== 'done')
+      throw new ConflictException(`RO ${ro.number} still has open work: finish or cancel its lines first`);
+    this.db
+      .update(repairOrders)
+      .set({ status: 'closed', closedAt: now })
+      .where(eq(repairOrders.id, id))
+      .run();
+    const freed = this.db
+      .update(bays)
+      .set({ phase: 'free', phaseSince: now, repairOrderId: null })
+      .where(eq(bays.repairOrderId, id))
+      .returning({ id: bays.id, name: bays.name })
+      .all();
+    this.audit.record({
+      actorId: actor.id,
+      action: 'close',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { bays: freed.map((bay) => bay.name) },
+    });
+    this.floor.baysChanged();
+    return this.changed(id, [], now);
+  }
+
+  history(id: number): RepairOrderHistoryEntry[] {
+    this.row(id);
+    return repairOrderHistory(this.db, id);
+  }
+
+  /** Tells the floor and the office pages; answers the RO as it is now. */
+  private changed(id: number, lineIds: number[], now: Date): RepairOrderSummary {
+    this.live.publish('repair-order.updated', { repairOrderId: id });
+    this.floor.linesChanged(lineIds);
+    return this.get(id, now);
+  }
+
+  private row(id: number): typeof repairOrders.$inferSelect {
+    return foundOrFail(
+      this.db.select().from(repairOrders).where(eq(repairOrders.id, id)).get(),
+      'Repair order',
+    );
+  }
+
+  private openRow(id: number): typeof repairOrders.$inferSelect {
+    const ro = this.row(id);
+    if (ro.status === 'closed')
+      throw new ConflictException(`RO ${ro.number} is closed: open a new one for more work`);
+    return ro;
+  }
+
+  /** Late lines by the one definition dispatch counts, and the ROs they are on. */
+  private lateWork(now: Date): { lineIds: Set<number>; repairOrderIds: Set<number> } {
+    const view = this.dispatch.view(now);
+    const late = [...view.queue, ...view.lanes.flatMap((lane) => lane.lines)].filter((line) => line.late);
+    return {
+      lineIds: new Set(late.map((line) => line.id)),
+      repairOrderIds: new Set(late.map((line) => line.repairOrderId)),
+    };
   }
 
   /** The shop's today, midnight to midnight in its time zone. */
@@ -260,6 +475,7 @@ export class RepairOrdersService {
       lines.map((line) => line.id),
       now,
     );
+    const late = lines.some(isOpenLine) ? this.lateWork(now).lineIds : new Set<number>();
     return rows.map(({ ro, vin, advisorName }) => ({
       id: ro.id,
       number: ro.number,
@@ -277,12 +493,15 @@ export class RepairOrdersService {
       externalRef: ro.externalRef,
       promisedAt: ro.promisedAt?.toISOString() ?? null,
       createdAt: ro.createdAt.toISOString(),
+      closedAt: ro.closedAt?.toISOString() ?? null,
+      late: lines.some((line) => line.repairOrderId === ro.id && late.has(line.id)),
       lines: lines
         .filter((line) => line.repairOrderId === ro.id)
         .sort((a, b) => a.lineNo - b.lineNo)
         .map((line) => ({
           ...toJobLineDto(line),
           clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
+          late: late.has(line.id),
         })),
     }));
   }

@@ -6,7 +6,8 @@ import { auditLog, repairOrders } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
-// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X, model year K = 2019.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X;
+// model year code K = 2019.
 const VALID_VIN = '1M8GDM9AXKP042788';
 
 describe(RepairOrdersService.name, () => {
@@ -14,7 +15,7 @@ describe(RepairOrdersService.name, () => {
   let advisor: string;
   let foreman: string;
   const order = (vehicle: Record<string, unknown> = {}, extra: Record<string, unknown> = {}) => ({
-    customer: { name: 'Wendell Farrow', phone: '555-0142', email: 'wendell@example.test' },
+    customer: { name: 'Wendell Farrow', phone: '(608) 555-0142', email: 'wendell@example.test' },
     vehicle: { vin: VALID_VIN, year: 2019, make: 'Halvard', model: 'Morrow', odometer: 61_200, ...vehicle },
     concern: 'Shudder when pulling away; due for service',
     lines: [
@@ -103,7 +104,11 @@ describe(RepairOrdersService.name, () => {
       .body as DispatchBoard;
     expect(after.bays.find((b) => b.id === bay3.id)!.state).toBe('staged');
     const lane = after.lanes.find((l) => l.technician.id === tech.user.id)!;
-    expect(lane.lines.find((l) => l.id === ro.lines[0].id)!.forecast).not.toBeNull();
+    // No promise was given, so it cannot be late; it starts now or later and takes time.
+    const { forecast } = lane.lines.find((l) => l.id === ro.lines[0].id)!;
+    expect(forecast).toMatchObject({ late: false });
+    expect(Date.parse(forecast!.startAt)).toBeGreaterThanOrEqual(Date.parse(after.serverTime) - 1000);
+    expect(Date.parse(forecast!.finishAt)).toBeGreaterThan(Date.parse(forecast!.startAt));
   });
 
   it('lets the owner keep an operations menu', async () => {
@@ -124,19 +129,19 @@ describe(RepairOrdersService.name, () => {
     const { body: first } = await create(
       order(
         { vin, year: 2020, make: 'Halvard', model: 'Morrow', plate: 'OLD 101', odometer: 30_000 },
-        { customer: { name: 'Odile Varga', phone: '555-0101', email: 'odile@example.test' } },
+        { customer: { name: 'Odile Varga', phone: '(608) 555-0101', email: 'odile@example.test' } },
       ),
     ).expect(201);
     // The car changed hands: another name and e-mail, a new plate, the model written out in full.
     const { body: second } = await create(
       order(
         { vin, year: 2020, make: 'Halvard', model: 'Morrow Touring', plate: 'NEW 202', odometer: 41_000 },
-        { customer: { name: 'Bram Keto', phone: '555-0202', email: 'bram@example.test' } },
+        { customer: { name: 'Bram Keto', phone: '(608) 555-0102', email: 'bram@example.test' } },
       ),
     ).expect(201);
     expect(await read(first.id)).toMatchObject({
       customerName: 'Odile Varga',
-      customerPhone: '555-0101',
+      customerPhone: '+16085550101',
       customerEmail: 'odile@example.test',
       vehicle: '2020 Halvard Morrow',
       plate: 'OLD 101',
@@ -167,17 +172,20 @@ describe(RepairOrdersService.name, () => {
 
   it('the same owner back with a new phone keeps one customer; the earlier RO keeps the old phone', async () => {
     const vin = makeVin('4HV5MR7BLM900003');
-    const customer = { name: 'Ines Moreau', phone: '555-0303', email: 'ines@example.test' };
+    const customer = { name: 'Ines Moreau', phone: '(608) 555-0103', email: 'ines@example.test' };
     const { body: first } = await create(order({ vin, year: 2020, odometer: 10_000 }, { customer })).expect(
       201,
     );
     const { body: second } = await create(
-      order({ vin, year: 2020, odometer: 12_000 }, { customer: { name: 'ines  moreau', phone: '555-0404' } }),
+      order(
+        { vin, year: 2020, odometer: 12_000 },
+        { customer: { name: 'ines  moreau', phone: '(608) 555-0104' } },
+      ),
     ).expect(201);
-    expect((await read(first.id)).customerPhone).toBe('555-0303');
+    expect((await read(first.id)).customerPhone).toBe('+16085550103');
     // The e-mail was left out this time: the one on file stays.
     expect(await read(second.id)).toMatchObject({
-      customerPhone: '555-0404',
+      customerPhone: '+16085550104',
       customerEmail: 'ines@example.test',
     });
     expect(auditOf(second.id)?.detail).toBeNull();

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { AuditModule } from '../audit/audit.module.js';
 import { ShopModule } from '../shop/shop.module.js';
 import { LabourModule } from '../labour/labour.module.js';
+import { DispatchModule } from '../dispatch/dispatch.module.js';
 import { FloorModule } from '../floor/floor.module.js';
 import { PunchesModule } from '../punches/punches.module.js';
 import { WebhooksModule } from '../webhooks/webhooks.module.js';
@@ -13,7 +14,15 @@ import { RepairOrdersController } from './repair-orders.controller.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
 @Module({
-  imports: [AuditModule, ShopModule, LabourModule, FloorModule, PunchesModule, WebhooksModule],
+  imports: [
+    AuditModule,
+    ShopModule,
+    LabourModule,
+    FloorModule,
+    PunchesModule,
+    DispatchModule,
+    WebhooksModule,
+  ],
   controllers: [RepairOrdersController, JobLinesController, OperationsController],
   providers: [RepairOrdersService, JobLinesService, OperationsService],
   exports: [JobLinesService, RepairOrdersService],

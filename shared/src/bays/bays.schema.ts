@@ -28,6 +28,10 @@ export const updateBaySchema = z
   .strict();
 export type UpdateBayBody = z.infer<typeof updateBaySchema>;
 
+/** `PUT /api/bays/order`: every bay in use, in the order the wall shows them. */
+export const bayOrderSchema = z.object({ bayIds: z.array(z.number().int().positive()).min(1).max(200) });
+export type BayOrderBody = z.infer<typeof bayOrderSchema>;
+
 export interface BayDto {
   id: number;
   name: string;

@@ -4,6 +4,7 @@ import {
   findingAnswerSchema,
   findingsQuerySchema,
 } from '../findings/findings.schema.js';
+import { findingQuoteSchema } from '../approvals/approvals.schema.js';
 import { correctionSchema, createPunchSchema } from '../punches/punches.schema.js';
 import { timecardQuerySchema } from '../punches/timecard.schema.js';
 import { shopSettingsSchema } from '../shop/shop.schema.js';
@@ -31,7 +32,7 @@ const repairOrder = {
 };
 
 describe('book hours', () => {
-  it('run from 0.1 to 99.9 on repair-order lines, operations and approved findings', () => {
+  it('run from 0.1 to 99.9 on repair-order lines, operations, approved and quoted findings', () => {
     const line = (bookHours: number) =>
       firstMessage(createRepairOrderSchema.safeParse({ ...repairOrder, lines: [{ title: 'x', bookHours }] }));
     expect(line(0.1)).toBe('accepted');
@@ -43,9 +44,12 @@ describe('book hours', () => {
     expect(firstMessage(operationInputSchema.safeParse({ title: 'x', defaultBookHours: 1e-300 }))).toBe(
       'Book hours is at least 0.1',
     );
-    expect(firstMessage(findingAnswerSchema.safeParse({ answer: 'approved', bookHours: 0 }))).toBe(
-      'Book hours is at least 0.1',
-    );
+    expect(
+      firstMessage(findingAnswerSchema.safeParse({ answer: 'approved', channel: 'phone', bookHours: 0 })),
+    ).toBe('Book hours is at least 0.1');
+    expect(
+      firstMessage(findingQuoteSchema.safeParse({ customerWording: 'x', bookHours: 100, partsCents: null })),
+    ).toBe('Book hours is at most 99.9');
   });
 });
 

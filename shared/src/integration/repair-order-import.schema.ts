@@ -83,7 +83,7 @@ export interface RepairOrderImportResult {
 export function repairOrderImportTemplate(): string {
   const rows = [
     RO_IMPORT_COLUMNS.join(','),
-    'EXT-1001,Mira Castellan,555-0190,mira@example.test,1M8GDM9AXKP042788,2019,Halvard,Morrow,KLD 204,61200,' +
+    'EXT-1001,Mira Castellan,608-555-0190,mira@example.test,1M8GDM9AXKP042788,2019,Halvard,Morrow,KLD 204,61200,' +
       '"Squeal from the front when braking",,Front brake pads and rotors,2.1',
     'EXT-1001,,,,,,,,,,,,Brake fluid exchange,0.8',
   ];

@@ -1,3 +1,4 @@
+import type { AnswerChannel } from '../approvals/approvals.schema.js';
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
 import type { PunchDto } from '../punches/punches.schema.js';
 import type { JobLineDto } from '../work/work.schema.js';
@@ -10,13 +11,28 @@ export interface Sequenced {
 export interface ServerToClientEvents {
   'board.snapshot': (snapshot: BoardSnapshot) => void;
   'bay.updated': (event: Sequenced & { bay: BoardBay }) => void;
+  /**
+   * People, queue and late count; `bayIds` is the wall's bays in order: a bay missing from it was
+   * retired, and a new one follows its own `bay.updated`.
+   */
   'floor.updated': (
-    event: Sequenced & { people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number },
+    event: Sequenced & {
+      people: BoardPerson[];
+      queue: BoardQueueItem[];
+      lateLines: number;
+      bayIds: number[];
+    },
   ) => void;
   'punch.recorded': (event: Sequenced & { punch: PunchDto }) => void;
   'job-line.updated': (event: Sequenced & { jobLine: JobLineDto }) => void;
   'timer.updated': (event: Sequenced & { timerId: number; bayId: number | null }) => void;
   'finding.created': (event: Sequenced & { findingId: number; jobLineId: number }) => void;
+  /** A customer's answer was recorded, through the approval link or by the office. */
+  'finding.answered': (
+    event: Sequenced & { findingId: number; answer: 'approved' | 'declined'; channel: AnswerChannel },
+  ) => void;
+  /** The RO itself changed: edited, closed, a notice sent, an answer recorded, a final check. */
+  'repair-order.updated': (event: Sequenced & { repairOrderId: number }) => void;
   /** The server ended this connection: the token expired, or its screen or account was changed. */
   'session.ended': (refusal: LiveRefusal) => void;
 }

@@ -19,7 +19,7 @@ const week = (input: Partial<PayWeekInput>): PayWeekInput => ({
 });
 
 describe(estimateWeeklyPay.name, () => {
-  // 29 CFR 778.111(a), CHECKS.md §1 vector A: 50 h worked, $491 piece pay for 46 productive h, 4 h waiting
+  // 29 CFR 778.111(a), the regulation's piece-rate example: 50 h worked, $491 piece pay for 46 productive h, 4 h waiting
   // at $8 → $523 straight time, regular rate $10.46, premium 10 × $5.23 = $52.30, total $575.30
   // (= 40 × $10.46 + 10 × $15.69). Piece pay modelled as 49.1 flagged h × $10.
   it('pays 778.111(a) vector A', () => {
@@ -49,7 +49,7 @@ describe(estimateWeeklyPay.name, () => {
     expect(pay.totalCents).toBe(40 * 10_46 + 10 * 15_69);
   });
 
-  // 29 CFR 778.111(b), CHECKS.md §1 vector B: a guarantee of $11/h for productive time makes 46 × $11 = $506
+  // 29 CFR 778.111(b), minimum hourly guarantee: a guarantee of $11/h for productive time makes 46 × $11 = $506
   // replace $491; 6 overtime hours, no waiting → premium 6 × $5.50, total $539 (= 40 × $11 + 6 × $16.50).
   // The guarantee is modelled as the shop's minimum hourly setting.
   it('pays 778.111(b) vector B with the hourly guarantee as the floor', () => {
@@ -68,7 +68,7 @@ describe(estimateWeeklyPay.name, () => {
     expect(pay.totalCents).toBe(40 * 11_00 + 6 * 16_50);
   });
 
-  // 29 USC 206(a)(1)(C): $7.25/h for all hours worked, piece rate included; CHECKS.md §1.
+  // 29 USC 206(a)(1)(C): $7.25/h for all hours worked, piece rate included.
   it('tops weekly pay up to the federal minimum wage for all hours worked', () => {
     const pay = estimateWeeklyPay(week({ flaggedHours: 10, flatRateCents: 20_00, hoursWorked: 30 }), federal);
     expect(pay.minimumWageTopUpCents).toBe(30 * 7_25 - 200_00);
@@ -82,7 +82,7 @@ describe(estimateWeeklyPay.name, () => {
   });
 
   // 29 USC 213(b)(10)(A) exempts such mechanics from overtime only; 29 CFR 779.372: minimum wage still
-  // applies (CHECKS.md §1).
+  // applies.
   it('pays an exempt mechanic no overtime premium but still the minimum wage', () => {
     const exempt = week({ flaggedHours: 20, flatRateCents: 15_00, hoursWorked: 50, overtimeExempt: true });
     const pay = estimateWeeklyPay(exempt, federal);
@@ -94,7 +94,7 @@ describe(estimateWeeklyPay.name, () => {
     expect(pay.totalCents).toBe(50 * 7_25);
   });
 
-  // 29 CFR 778.104 (CHECKS.md §1): each workweek stands alone; 30 h then 50 h still owes overtime.
+  // 29 CFR 778.104: each workweek stands alone; 30 h then 50 h still owes overtime.
   it('judges each workweek alone', () => {
     const hourly = (hoursWorked: number) =>
       estimateWeeklyPay(
@@ -118,7 +118,7 @@ describe(estimateWeeklyPay.name, () => {
   });
 
   describe('California rules', () => {
-    // Labor Code 510(a), CHECKS.md §2 (worked example of a general overtime guide, arithmetic checked):
+    // Labor Code 510(a) (worked example of a general overtime guide, arithmetic checked):
     // $25/h; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h → $1,000 + 6 h × 1.5 ($225) + 1 h × 2 ($50) = $1,275.
     it('pays daily overtime and double time: $1,275', () => {
       const hourly = week({
@@ -136,7 +136,7 @@ describe(estimateWeeklyPay.name, () => {
       });
     });
 
-    // DIR AB 1513 FAQ (Labor Code 226.2), CHECKS.md §2: 40 h, 16 h hourly at $10 (0.67 h of rest in them),
+    // California DIR AB 1513 FAQ (Labor Code 226.2): 40 h, 16 h hourly at $10 (0.67 h of rest in them),
     // $300 piece pay, 1.67 h rest → ($300 + $160 − $6.70) ÷ 38.33 h = $11.83/h for rest periods.
     it('pays rest periods at the average hourly rate: $11.83', () => {
       const pay = estimateWeeklyPay(
@@ -157,7 +157,7 @@ describe(estimateWeeklyPay.name, () => {
       expect(pay.totalCents).toBe(Math.round(300_00 + 160_00 + 1 * 1182.63 + 0.67 * 182.63));
     });
 
-    // DIR AB 1513 FAQ, first example (from a law firm's copy of the FAQ, not in CHECKS.md): piece pay only,
+    // DIR AB 1513 FAQ, first example (from a law firm's copy of the FAQ): piece pay only,
     // $500, 40 h, 1.67 h rest → $500 ÷ 38.33 = $13.04/h, rest pay $21.78, week $521.78.
     it('pays rest periods of a piece-rate-only week: $521.78', () => {
       const pay = estimateWeeklyPay(
@@ -204,13 +204,15 @@ describe(estimateWeeklyPay.name, () => {
     });
 
     it('needs the hours of each workday', () => {
-      expect(() => estimateWeeklyPay(week({ hoursWorked: 8 }), california)).toThrow();
+      expect(() => estimateWeeklyPay(week({ hoursWorked: 8 }), california)).toThrow(
+        'California overtime needs the hours of each workday',
+      );
     });
   });
 });
 
 describe(californiaOvertimeHours.name, () => {
-  // Labor Code 510(a), CHECKS.md §2 (general study guide example): six 9-hour days (54 h) → 14 overtime h.
+  // California Labor Code 510(a) (a general study guide's example): six 9-hour days (54 h) → 14 overtime h.
   it('counts six 9-hour days as 14 overtime hours, daily overtime not counted twice', () => {
     expect(californiaOvertimeHours([9, 9, 9, 9, 9, 9, 0])).toEqual({
       timeAndHalfHours: 14,

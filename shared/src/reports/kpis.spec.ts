@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { KPI_FORMULAS, KPI_GUIDELINES, labourKpis, shareFlaggedHours, shopLabourKpis } from './kpis.js';
 
 describe(labourKpis.name, () => {
-  // CHECKS.md §3, NADA definitions via a dealer association bulletin "Measuring technician performance":
+  // NADA definitions via a dealer association bulletin "Measuring technician performance":
   // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %.
   it('gives 90 %, 125 %, 112.5 % for 40 h available, 36 h clocked, 45 h flagged', () => {
     const kpis = labourKpis({ attendanceHours: 40, clockedHours: 36, flaggedHours: 45 });
@@ -22,7 +22,7 @@ describe(labourKpis.name, () => {
 });
 
 describe(shopLabourKpis.name, () => {
-  // CHECKS.md §3, 8-tech totals from the shop-management article "Time is money — tracking time":
+  // 8-tech totals from the shop-management article "Time is money — tracking time":
   // available 1,483.5 h, actual 1,283.7 h, sold 1,361.8 h → 86.53 %, 106.08 %, 91.80 %.
   // The split over eight technicians is invented; only the totals are published.
   it('sums the hours first, then takes the ratios', () => {
@@ -55,7 +55,8 @@ describe(shopLabourKpis.name, () => {
 });
 
 describe('KPI guidelines and formulas', () => {
-  // CHECKS.md §3 (NADA, via the dealer association bulletin): 85–87.5 %, 125 %, 100 %.
+  // NADA guidelines via the dealer association bulletin "Measuring technician performance": productivity
+  // 85–87.5 %, efficiency 125 %, proficiency 100 %.
   it('holds the published guidelines', () => {
     expect(KPI_GUIDELINES).toEqual({
       productivity: { low: 0.85, high: 0.875 },

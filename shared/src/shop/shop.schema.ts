@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { plainText } from '../input/fields.js';
+import { phoneSchema } from '../input/phone.js';
 
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export const CONCURRENT_SPLITS = ['even', 'full'] as const;
@@ -37,6 +38,22 @@ export const shopSettingsSchema = z.object({
   payNonProductiveSeparately: z.boolean(),
   /** A technician may clock onto an unassigned line, which then becomes theirs. */
   techniciansTakeUnassigned: z.boolean(),
+  /** The shop's phone, shown to customers on the approval page; E.164. */
+  phone: z.preprocess((value) => value ?? '', phoneSchema).transform((phone) => phone ?? null),
+  /** What a customer pays per book hour of labour. */
+  labourRateCents: z
+    .number()
+    .int('The labour rate is a whole number of cents')
+    .min(0)
+    .max(100_000, 'The labour rate is at most $1,000 an hour'),
+  /** Shown under prices: how tax is charged (prices here are before tax). */
+  taxNote: plainText(200),
+  /** How long an approval link stays valid. */
+  approvalLinkHours: z
+    .number()
+    .int('Hours is a whole number')
+    .min(1, 'A link lasts at least an hour')
+    .max(720, 'A link lasts at most 30 days'),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 

@@ -1,5 +1,9 @@
 import { TZDate } from '@date-fns/tz';
-import { addWeeks, format, getISOWeeksInYear, startOfISOWeek } from 'date-fns';
+// One module per function: the package index would load all of date-fns (about 300 modules) at start-up.
+import { addWeeks } from 'date-fns/addWeeks';
+import { format } from 'date-fns/format';
+import { getISOWeeksInYear } from 'date-fns/getISOWeeksInYear';
+import { startOfISOWeek } from 'date-fns/startOfISOWeek';
 import { z } from 'zod';
 import { EARLIEST_DATE, latestDate } from '../input/fields.js';
 import type { ShopSettings } from '../shop/shop.schema.js';

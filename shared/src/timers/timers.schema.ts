@@ -82,6 +82,8 @@ export interface TimerDto {
   id: number;
   kind: TimerKind;
   jobLineId: number;
+  /** The technician the line is assigned to, when it is. */
+  lineTechnicianId: number | null;
   bayId: number | null;
   label: string | null;
   targetC: number | null;

@@ -42,6 +42,7 @@ export type CreateUserBody = z.infer<typeof createUserSchema>;
 export const updateUserSchema = z
   .object({
     name: personName,
+    role: z.enum(ROLES).exclude(['display']),
     email: z.email().max(200),
     password: z.string().min(10, 'A password has at least 10 characters').max(200),
     badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),
@@ -55,6 +56,7 @@ export const updateUserSchema = z
   .partial()
   .strict();
 export type UpdateUserBody = z.infer<typeof updateUserSchema>;
+export type UpdateUserFields = z.input<typeof updateUserSchema>;
 
 export interface UserDto {
   id: number;

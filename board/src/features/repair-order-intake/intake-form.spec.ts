@@ -254,11 +254,11 @@ describe(withReturningCustomer.name, () => {
     model: 'Morrow',
     plate: '7KX 221',
     lastOdometer: 61_200,
-    customer: { id: 3, name: 'Wendell Farrow', phone: '555-0142', email: 'wendell@example.test' },
+    customer: { id: 3, name: 'Wendell Farrow', phone: '+16085550142', email: 'wendell@example.test' },
     lastVisit: { repairOrderId: 9, number: '4450', date: '2026-06-01T15:00:00.000Z', odometer: 61_200 },
   };
 
-  it('copies the name, phone, e-mail and vehicle, and leaves the odometer to be read', () => {
+  it('copies the name, phone (as a person reads it), e-mail and vehicle, and leaves the odometer to be read', () => {
     const draft = filled({
       customer: { name: '', phone: '', email: '' },
       vehicle: { vin: VALID_VIN, year: '', make: '', model: '', plate: '', odometer: '64,950' },
@@ -266,7 +266,7 @@ describe(withReturningCustomer.name, () => {
     const copied = withReturningCustomer(draft, known);
     expect(copied.customer).toEqual({
       name: 'Wendell Farrow',
-      phone: '555-0142',
+      phone: '(608) 555-0142',
       email: 'wendell@example.test',
     });
     expect(copied.vehicle).toEqual({

@@ -1,5 +1,6 @@
 import {
   createRepairOrderSchema,
+  formatPhone,
   modelYearFromVin,
   normalizeVin,
   shopDayKey,
@@ -269,7 +270,7 @@ export function withReturningCustomer(draft: IntakeDraft, known: KnownVehicle): 
     ...draft,
     customer: {
       name: known.customer.name,
-      phone: known.customer.phone ?? '',
+      phone: known.customer.phone ? formatPhone(known.customer.phone) : '',
       email: known.customer.email ?? '',
     },
     vehicle: {

@@ -1,29 +1,28 @@
 import { describe, expect, it } from 'vitest';
-import type { DispatchBoard, DispatchLine, FindingDto, JobLineDto } from '@baytime/shared';
+import type { DispatchBoard, DispatchLine, JobLineDto } from '@baytime/shared';
 import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
   advisorChoices,
   filtersFromParams,
   filtersToParams,
-  isAtRisk,
-  isLate,
-  isPastPromise,
-  lateLineIds,
   listQuery,
   pageRange,
   lineRows,
   lineStatusText,
-  repairOrderHistory,
 } from './ro-model';
 
-const NOW = Date.parse('2026-12-01T20:00:00.000Z'); // Tue 2:00 PM in Chicago
-
 function jobLine(
-  overrides: Partial<JobLineDto & { clockedSeconds: number }> = {},
-): JobLineDto & { clockedSeconds: number } {
+  overrides: Partial<JobLineDto & { clockedSeconds: number; late: boolean }> = {},
+): JobLineDto & { clockedSeconds: number; late: boolean } {
   return {
     clockedSeconds: 0,
+    late: false,
+    completedBy: null,
+    concern: 'Customer asks for a thermostat',
+    cause: null,
+    correction: null,
+    cancelReason: null,
     id: 1,
     repairOrderId: 1,
     lineNo: 1,
@@ -59,6 +58,8 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     externalRef: null,
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
+    closedAt: null,
+    late: false,
     lines: [jobLine()],
     ...overrides,
   };
@@ -89,50 +90,11 @@ function dispatch(lines: DispatchLine[]): DispatchBoard {
         finishAt: null,
       },
     ],
-    bays: [{ id: 2, name: 'Bay 2', state: 'working' }],
+    bays: [{ id: 2, name: 'Bay 2', state: 'working', repairOrderId: 1 }],
     lateCount: 0,
     forecastNote: null,
   };
 }
-
-describe(isPastPromise.name, () => {
-  it('is open with the promised time gone by: what the server calls late', () => {
-    expect(isPastPromise(ro({ promisedAt: '2026-12-01T19:59:00.000Z' }), NOW)).toBe(true);
-    expect(isPastPromise(ro({ promisedAt: '2026-12-01T20:01:00.000Z' }), NOW)).toBe(false);
-    expect(isPastPromise(ro({ promisedAt: '2026-12-01T19:00:00.000Z', status: 'done' }), NOW)).toBe(false);
-    expect(isPastPromise(ro({ promisedAt: null }), NOW)).toBe(false);
-  });
-});
-
-describe(isAtRisk.name, () => {
-  it('is open with a line forecast late', () => {
-    expect(isAtRisk(ro(), new Set([1]))).toBe(true);
-    expect(isAtRisk(ro(), new Set([2]))).toBe(false);
-    expect(isAtRisk(ro({ status: 'done' }), new Set([1]))).toBe(false);
-  });
-});
-
-describe(isLate.name, () => {
-  it('is late past the promise or with a line forecast late, and only while open', () => {
-    const past = ro({ promisedAt: '2026-12-01T19:00:00.000Z' });
-    expect(isLate(past, NOW, new Set())).toBe(true);
-    expect(isLate({ ...past, status: 'done' }, NOW, new Set())).toBe(false);
-    const future = ro({ promisedAt: '2026-12-01T23:00:00.000Z' });
-    expect(isLate(future, NOW, new Set())).toBe(false);
-    expect(isLate(future, NOW, new Set([1]))).toBe(true);
-  });
-});
-
-describe(lateLineIds.name, () => {
-  it('collects the lines forecast late', () => {
-    const board = dispatch([
-      dispatchLine({ id: 7, forecast: { startAt: 'a', finishAt: 'b', late: true } }),
-      dispatchLine({ id: 8, forecast: { startAt: 'a', finishAt: 'b', late: false } }),
-    ]);
-    expect([...lateLineIds(board)]).toEqual([7]);
-    expect(lateLineIds(undefined).size).toBe(0);
-  });
-});
 
 describe(listQuery.name, () => {
   it('asks the server for the filters on the page, and the page', () => {
@@ -217,30 +179,5 @@ describe(lineRows.name, () => {
     expect(rows.map((r) => r.line.lineNo)).toEqual([1, 2]);
     expect(rows[0]).toMatchObject({ technician: 'Technician #99', clockedSeconds: 0 });
     expect(rows[1]?.clockedSeconds).toBe(4000);
-  });
-});
-
-describe(repairOrderHistory.name, () => {
-  it('lists what happened, newest first', () => {
-    const finding = {
-      lineNo: 1,
-      technicianName: 'Dana Okafor',
-      createdAt: '2026-12-01T16:00:00.000Z',
-      approvalRequestedAt: '2026-12-01T16:10:00.000Z',
-      answeredAt: '2026-12-01T17:00:00.000Z',
-      answer: 'approved',
-      answeredBy: 'Nell Ashby',
-    } as FindingDto;
-    const history = repairOrderHistory(
-      ro({ lines: [jobLine({ status: 'done', completedAt: '2026-12-01T18:00:00.000Z' })] }),
-      [finding],
-    );
-    expect(history.map((entry) => entry.text)).toEqual([
-      'L1 Replace thermostat and housing done',
-      'Finding on L1 approved by Nell Ashby',
-      "Approval for L1's finding e-mailed",
-      'Dana Okafor reported a finding on L1',
-      'Repair order written',
-    ]);
   });
 });

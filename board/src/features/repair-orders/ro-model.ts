@@ -81,36 +81,6 @@ export function pageRange(pageIndex: number, limit: number, shown: number, total
   return `${first.toLocaleString('en-US')}–${(first + shown - 1).toLocaleString('en-US')} of ${total.toLocaleString('en-US')}`;
 }
 
-/** Open, and the promised time has passed: what the server's `late=true` keeps. */
-export function isPastPromise(ro: Pick<RepairOrderSummary, 'status' | 'promisedAt'>, nowMs: number): boolean {
-  return ro.status === 'open' && ro.promisedAt !== null && Date.parse(ro.promisedAt) < nowMs;
-}
-
-/** Ids of open lines forecast to finish after their promised time. */
-export function lateLineIds(dispatch: DispatchBoard | undefined): Set<number> {
-  const ids = new Set<number>();
-  if (!dispatch) return ids;
-  for (const lane of dispatch.lanes) for (const line of lane.lines) if (line.forecast?.late) ids.add(line.id);
-  return ids;
-}
-
-/** Open, with a line the dispatch forecast says will finish after its promised time. */
-export function isAtRisk(
-  ro: Pick<RepairOrderSummary, 'status' | 'lines'>,
-  lateLines: ReadonlySet<number>,
-): boolean {
-  return ro.status === 'open' && ro.lines.some((line) => lateLines.has(line.id));
-}
-
-/** An open RO past its promised time, or with a line forecast to miss it. */
-export function isLate(
-  ro: Pick<RepairOrderSummary, 'status' | 'promisedAt' | 'lines'>,
-  nowMs: number,
-  lateLines: ReadonlySet<number>,
-): boolean {
-  return isPastPromise(ro, nowMs) || isAtRisk(ro, lateLines);
-}
-
 /** People who write repair orders, by name, for the advisor filter. */
 export function advisorChoices(
   users: readonly Pick<UserDto, 'id' | 'name' | 'role' | 'active'>[] | undefined,
@@ -126,7 +96,7 @@ export function advisorChoices(
 }
 
 export interface LineRow {
-  line: JobLineDto;
+  line: RepairOrderSummary['lines'][number];
   statusText: string;
   technician: string | null;
   bay: string | null;
@@ -136,7 +106,13 @@ export interface LineRow {
   forecast: DispatchLine['forecast'];
 }
 
-const STATUS_WORDS = { queued: 'Waiting', working: 'Working', held: 'Held', done: 'Done' } as const;
+const STATUS_WORDS = {
+  queued: 'Waiting',
+  working: 'Working',
+  held: 'Held',
+  done: 'Done',
+  cancelled: 'Cancelled',
+} as const;
 
 export function lineStatusText(line: Pick<JobLineDto, 'status' | 'holdReason'>): string {
   return line.status === 'held' && line.holdReason
@@ -178,38 +154,4 @@ export function lineRows(
         forecast: live?.forecast ?? null,
       };
     });
-}
-
-export interface HistoryEntry {
-  at: string;
-  text: string;
-}
-
-/** What happened to the RO, from the times it and its findings carry; newest first. */
-export function repairOrderHistory(
-  ro: Pick<RepairOrderSummary, 'createdAt' | 'lines' | 'advisorName'>,
-  findings: readonly FindingDto[],
-): HistoryEntry[] {
-  const entries: HistoryEntry[] = [
-    { at: ro.createdAt, text: ro.advisorName ? `Written by ${ro.advisorName}` : 'Repair order written' },
-  ];
-  for (const line of ro.lines)
-    if (line.completedAt) entries.push({ at: line.completedAt, text: `L${line.lineNo} ${line.title} done` });
-  for (const finding of findings) {
-    entries.push({
-      at: finding.createdAt,
-      text: `${finding.technicianName} reported a finding on L${finding.lineNo}`,
-    });
-    if (finding.approvalRequestedAt)
-      entries.push({
-        at: finding.approvalRequestedAt,
-        text: `Approval for L${finding.lineNo}'s finding e-mailed`,
-      });
-    if (finding.answeredAt && finding.answer !== 'pending')
-      entries.push({
-        at: finding.answeredAt,
-        text: `Finding on L${finding.lineNo} ${finding.answer}${finding.answeredBy ? ` by ${finding.answeredBy}` : ''}`,
-      });
-  }
-  return entries.sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
 }

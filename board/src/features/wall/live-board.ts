@@ -86,13 +86,15 @@ export function createLiveBoard({
       link.on('bay.updated', ({ seq, bay }: Payload<'bay.updated'>) =>
         onEvent({ type: 'bay.updated', seq, bay }),
       ),
-      link.on('floor.updated', ({ seq, people, queue, lateLines }: Payload<'floor.updated'>) =>
-        onEvent({ type: 'floor.updated', seq, people, queue, lateLines }),
+      link.on('floor.updated', ({ seq, people, queue, lateLines, bayIds }: Payload<'floor.updated'>) =>
+        onEvent({ type: 'floor.updated', seq, people, queue, lateLines, bayIds }),
       ),
       link.on('punch.recorded', other),
       link.on('job-line.updated', other),
       link.on('timer.updated', other),
       link.on('finding.created', other),
+      link.on('finding.answered', other),
+      link.on('repair-order.updated', other),
     ];
     refreshTimer = setInterval(resync, refreshEveryMs);
     set(fromLink());

@@ -1,5 +1,5 @@
 import { sqliteTable, integer, real, text, index } from 'drizzle-orm/sqlite-core';
-import { FINDING_ANSWERS, FINDING_SEVERITIES } from '@baytime/shared';
+import { ANSWER_CHANNELS, FINDING_ANSWERS, FINDING_SEVERITIES } from '@baytime/shared';
 import { oneOf } from './checks.js';
 import { users } from './people.js';
 import { jobLines } from './work.js';
@@ -17,8 +17,16 @@ export const findings = sqliteTable(
     note: text('note').notNull(),
     severity: text('severity', { enum: FINDING_SEVERITIES }).notNull(),
     suggestedHours: real('suggested_hours'),
+    /** The advisor's quote: what the customer reads and pays. Null until reviewed. */
+    customerWording: text('customer_wording'),
+    bookHours: real('book_hours'),
+    partsCents: integer('parts_cents'),
     answer: text('answer', { enum: FINDING_ANSWERS }).notNull().default('pending'),
+    answerChannel: text('answer_channel', { enum: ANSWER_CHANNELS }),
+    /** An office user's answer; null when the customer answered through the link. */
     answeredBy: integer('answered_by').references(() => users.id),
+    /** The name the customer signed on the approval page. */
+    answeredName: text('answered_name'),
     answeredAt: integer('answered_at', { mode: 'timestamp_ms' }),
     createdLineId: integer('created_line_id').references(() => jobLines.id),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
@@ -30,6 +38,7 @@ export const findings = sqliteTable(
     index('findings_created_at_idx').on(t.createdAt),
     oneOf(t.severity, FINDING_SEVERITIES),
     oneOf(t.answer, FINDING_ANSWERS),
+    oneOf(t.answerChannel, ANSWER_CHANNELS),
   ],
 );
 

@@ -22,6 +22,10 @@ export const shopSettings = sqliteTable(
     techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
       .notNull()
       .default(true),
+    phone: text('phone'),
+    labourRateCents: integer('labour_rate_cents').notNull().default(0),
+    taxNote: text('tax_note').notNull().default(''),
+    approvalLinkHours: integer('approval_link_hours').notNull().default(72),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
   },
   (t) => [

@@ -132,6 +132,12 @@ export const jobLines = sqliteTable(
     promisedAt: integer('promised_at', { mode: 'timestamp_ms' }),
     queuedAt: integer('queued_at', { mode: 'timestamp_ms' }).notNull(),
     completedAt: integer('completed_at', { mode: 'timestamp_ms' }),
+    completedBy: integer('completed_by').references(() => users.id),
+    /** The three Cs: the customer's concern (from intake), the cause found, the correction made. */
+    concern: text('concern').notNull().default(''),
+    cause: text('cause'),
+    correction: text('correction'),
+    cancelReason: text('cancel_reason'),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
   },
   (t) => [

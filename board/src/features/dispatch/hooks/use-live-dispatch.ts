@@ -11,6 +11,7 @@ const EVENTS = [
   'job-line.updated',
   'punch.recorded',
   'finding.created',
+  'finding.answered',
   'bay.updated',
   'floor.updated',
 ] as const;

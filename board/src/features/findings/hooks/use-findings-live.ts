@@ -4,7 +4,7 @@ import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
 import { findingsKey } from '../api/get-findings';
 
-/** Keeps the inbox current: a new finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
+/** Keeps the inbox current: a new or answered finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
 export function useFindingsLive(onNew: (findingId: number) => void): void {
   const token = useSyncExternalStore(officeToken.subscribe, officeToken.get, officeToken.get);
   const queryClient = useQueryClient();
@@ -23,6 +23,7 @@ export function useFindingsLive(onNew: (findingId: number) => void): void {
         onNewRef.current(findingId);
         refresh();
       });
+      socket.on('finding.answered', refresh);
       socket.on('job-line.updated', refresh);
     },
     [refresh],

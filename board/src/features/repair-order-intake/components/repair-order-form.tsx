@@ -143,7 +143,9 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const create = useCreateRepairOrder();
   const operations = useOperations();
   const formRef = useRef<HTMLFormElement>(null);
-  // The promised field holds two inputs: each needs its own id, not the one the field hands out.
+  // The promised field holds two inputs: each needs its own id, not the one the field hands out, and
+  // its own name. Each names itself (aria-labelledby its own id reads its aria-label), or the field
+  // would name both after its label.
   const promisedDateId = useId();
   const promisedTimeId = useId();
 
@@ -525,6 +527,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
               <Input
                 type="date"
                 id={promisedDateId}
+                aria-labelledby={promisedDateId}
                 aria-label="Promised date"
                 value={draft.promisedDate}
                 onChange={(_, data) => {
@@ -535,6 +538,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
               <Input
                 type="time"
                 id={promisedTimeId}
+                aria-labelledby={promisedTimeId}
                 aria-label="Promised time"
                 value={draft.promisedTime}
                 onChange={(_, data) => {

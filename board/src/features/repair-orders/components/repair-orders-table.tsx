@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
 import {
   Badge,
@@ -26,16 +26,11 @@ import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
 import { usePeople } from '../api/get-advisors';
 import { useRepairOrderPage } from '../api/get-repair-orders';
-import { useDispatch } from '../api/get-dispatch';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
-import { useMinuteNow } from '@/hooks/use-minute-now';
 import {
   advisorChoices,
   filtersFromParams,
   filtersToParams,
-  isAtRisk,
-  isPastPromise,
-  lateLineIds,
   listQuery,
   pageRange,
   type RepairOrderFilters,
@@ -128,9 +123,6 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
   const lateCount = useRepairOrderPage(listQuery({ ...filters, late: true }, { limit: 1 })).data?.total;
   const people = usePeople(canListPeople);
   const advisors = advisorChoices(canListPeople ? people.data : undefined, me);
-  const dispatch = useDispatch();
-  const nowMs = useMinuteNow();
-  const lateLines = useMemo(() => lateLineIds(dispatch.data), [dispatch.data]);
 
   const shown = orders.data?.items ?? [];
   const total = orders.data?.total ?? 0;
@@ -222,8 +214,8 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                 const done = order.lines.filter((line) => line.status === 'done').length;
                 const held = order.lines.filter((line) => line.status === 'held').length;
                 const book = order.lines.reduce((sum, line) => sum + line.bookHours, 0);
-                const late = isPastPromise(order, nowMs);
-                const atRisk = !late && isAtRisk(order, lateLines);
+                // Late by the one definition dispatch and the wall count, worked out by the server.
+                const late = order.late;
                 return (
                   <TableRow
                     key={order.id}
@@ -251,11 +243,6 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                         {late && (
                           <Badge appearance="filled" color="danger">
                             LATE
-                          </Badge>
-                        )}
-                        {atRisk && (
-                          <Badge appearance="tint" color="warning">
-                            At risk
                           </Badge>
                         )}
                       </span>

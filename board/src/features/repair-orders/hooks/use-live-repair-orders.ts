@@ -30,17 +30,26 @@ export function useLiveRepairOrders(token: string | null): void {
     [queryClient],
   );
   const everything = useCallback(
-    () => mark(repairOrdersKey, ['repair-order'], ['findings'], ['dispatch']),
+    () => mark(repairOrdersKey, ['repair-order'], ['repair-order-history'], ['findings'], ['dispatch']),
     [mark],
   );
   const wire = useCallback(
     (socket: LiveListener) => {
       socket.on('job-line.updated', ({ jobLine }) =>
-        mark(repairOrdersKey, ['repair-order', jobLine.repairOrderId], ['dispatch']),
+        mark(
+          repairOrdersKey,
+          ['repair-order', jobLine.repairOrderId],
+          ['repair-order-history', jobLine.repairOrderId],
+          ['dispatch'],
+        ),
       );
       socket.on('punch.recorded', () => mark(['dispatch']));
       socket.on('bay.updated', () => mark(['dispatch']));
       socket.on('finding.created', () => mark(['findings'], ['repair-order']));
+      socket.on('finding.answered', () => mark(['findings'], ['repair-order']));
+      socket.on('repair-order.updated', ({ repairOrderId }) =>
+        mark(repairOrdersKey, ['repair-order', repairOrderId], ['repair-order-history', repairOrderId]),
+      );
     },
     [mark],
   );

@@ -14,7 +14,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { shopSettingsSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
+import { formatPhone, shopSettingsSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import {
   centsToDollars,
@@ -53,13 +53,20 @@ function timeZones(current: string): string[] {
   return zones.includes(current) ? zones : [current, ...zones];
 }
 
-interface Draft extends Omit<ShopSettings, 'minimumWageCents'> {
+interface Draft extends Omit<ShopSettings, 'minimumWageCents' | 'labourRateCents' | 'phone'> {
   minimumWage: string;
+  labourRate: string;
+  phone: string;
 }
 
 function toDraft(shop: ShopSettings): Draft {
-  const { minimumWageCents, ...rest } = shop;
-  return { ...rest, minimumWage: centsToDollars(minimumWageCents) };
+  const { minimumWageCents, labourRateCents, phone, ...rest } = shop;
+  return {
+    ...rest,
+    minimumWage: centsToDollars(minimumWageCents),
+    labourRate: centsToDollars(labourRateCents),
+    phone: phone ? formatPhone(phone) : '',
+  };
 }
 
 /** Only the fields that changed go to the server. */
@@ -102,13 +109,20 @@ function ShopForm({
   const submit = (event: FormEvent) => {
     event.preventDefault();
     setSaved(false);
-    const { minimumWage, ...rest } = draft;
+    const { minimumWage, labourRate, ...rest } = draft;
     const cents = dollarsToCents(minimumWage);
-    const parsed = shopSettingsSchema.safeParse({ ...rest, minimumWageCents: cents ?? Number.NaN });
+    const rateCents = dollarsToCents(labourRate);
+    const parsed = shopSettingsSchema.safeParse({
+      ...rest,
+      minimumWageCents: cents ?? Number.NaN,
+      labourRateCents: rateCents ?? Number.NaN,
+    });
     if (!parsed.success) {
       const found = issuesToFieldErrors(parsed.error.issues);
       if (found.minimumWageCents)
         found.minimumWage = cents === null ? 'Type an amount in dollars, like 7.25' : found.minimumWageCents;
+      if (found.labourRateCents)
+        found.labourRate = rateCents === null ? 'Type an amount in dollars, like 135' : found.labourRateCents;
       setErrors(found);
       return;
     }
@@ -127,7 +141,14 @@ function ShopForm({
   };
 
   const number =
-    (key: 'workweekStartDay' | 'workweekStartHour' | 'maxConcurrentJobs' | 'kioskIdleSeconds') =>
+    (
+      key:
+        | 'workweekStartDay'
+        | 'workweekStartHour'
+        | 'maxConcurrentJobs'
+        | 'kioskIdleSeconds'
+        | 'approvalLinkHours',
+    ) =>
     (_: unknown, data: { value: string }) =>
       set(key, Number(data.value));
 
@@ -178,6 +199,56 @@ function ShopForm({
                   ? 'Technicians may clock onto them and take them'
                   : 'Only the foreman assigns them'
               }
+            />
+          </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Customers and approvals</Subtitle2>
+        <div className={styles.grid}>
+          <Field
+            label="Shop phone"
+            validationMessage={errors.phone}
+            hint="Shown to customers on the approval page"
+          >
+            <Input
+              type="tel"
+              value={draft.phone}
+              maxLength={30}
+              onChange={(_, data) => set('phone', data.value)}
+            />
+          </Field>
+          <Field
+            label="Labour rate ($ per hour)"
+            required
+            validationMessage={errors.labourRate}
+            hint="Prices findings: book hours × this rate, plus parts"
+          >
+            <Input
+              inputMode="decimal"
+              value={draft.labourRate}
+              onChange={(_, data) => set('labourRate', data.value)}
+            />
+          </Field>
+          <Field
+            label="Tax note"
+            validationMessage={errors.taxNote}
+            hint="Shown under prices, e.g. Sales tax is added on the final invoice."
+          >
+            <Input value={draft.taxNote} maxLength={200} onChange={(_, data) => set('taxNote', data.value)} />
+          </Field>
+          <Field
+            label="Approval links work for (hours)"
+            validationMessage={errors.approvalLinkHours}
+            hint="1 to 720 hours; 72 is three days"
+          >
+            <Input
+              type="number"
+              min={1}
+              max={720}
+              value={String(draft.approvalLinkHours)}
+              onChange={number('approvalLinkHours')}
             />
           </Field>
         </div>

@@ -19,13 +19,8 @@ import type { Role, UserDto } from '@baytime/shared';
 import { formErrorText, formatMoney } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
-
-export const ROLE_LABELS: Record<Exclude<Role, 'display'>, string> = {
-  owner: 'Owner',
-  foreman: 'Foreman',
-  advisor: 'Service advisor',
-  technician: 'Technician',
-};
+import { ROLE_LABELS } from '../user-form';
+import { EditUserDialog } from './edit-user-dialog';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -33,6 +28,7 @@ const useStyles = makeStyles({
   inactive: { color: tokens.colorNeutralForeground4 },
   error: { marginBottom: tokens.spacingVerticalM },
   numeric: { fontVariantNumeric: 'tabular-nums' },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'center' },
 });
 
 function ActiveButton({ user, onError }: { user: UserDto; onError: (message: string | null) => void }) {
@@ -78,6 +74,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
+  const [editing, setEditing] = useState<UserDto | null>(null);
 
   if (users.isPending) return <Spinner label="Loading people…" />;
   if (users.isError)
@@ -137,11 +134,16 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                     </Badge>
                   </TableCell>
                   <TableCell>
-                    {user.id === currentUserId ? (
-                      <Caption1>You</Caption1>
-                    ) : (
-                      <ActiveButton user={user} onError={setError} />
-                    )}
+                    <div className={styles.actions}>
+                      <Button size="small" onClick={() => setEditing(user)} aria-label={`Edit ${user.name}`}>
+                        Edit
+                      </Button>
+                      {user.id === currentUserId ? (
+                        <Caption1>You</Caption1>
+                      ) : (
+                        <ActiveButton user={user} onError={setError} />
+                      )}
+                    </div>
                   </TableCell>
                 </TableRow>
               );
@@ -149,6 +151,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
           </TableBody>
         </Table>
       </div>
+      {editing && <EditUserDialog user={editing} onClose={() => setEditing(null)} />}
     </>
   );
 }

@@ -59,13 +59,17 @@ CREATE TABLE `__new_shop_settings` (
 	`kiosk_idle_seconds` integer NOT NULL,
 	`pay_non_productive_separately` integer NOT NULL,
 	`technicians_take_unassigned` integer DEFAULT true NOT NULL,
+	`phone` text,
+	`labour_rate_cents` integer DEFAULT 0 NOT NULL,
+	`tax_note` text DEFAULT '' NOT NULL,
+	`approval_link_hours` integer DEFAULT 72 NOT NULL,
 	`updated_at` integer NOT NULL,
 	CONSTRAINT "shop_settings_units_check" CHECK("units" in ('metric', 'us')),
 	CONSTRAINT "shop_settings_concurrent_split_check" CHECK("concurrent_split" in ('even', 'full')),
 	CONSTRAINT "shop_settings_overtime_rules_check" CHECK("overtime_rules" in ('federal', 'california'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_shop_settings`("id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "updated_at") SELECT "id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "updated_at" FROM `shop_settings`;--> statement-breakpoint
+INSERT INTO `__new_shop_settings`("id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at") SELECT "id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at" FROM `shop_settings`;--> statement-breakpoint
 DROP TABLE `shop_settings`;--> statement-breakpoint
 ALTER TABLE `__new_shop_settings` RENAME TO `shop_settings`;--> statement-breakpoint
 CREATE TABLE `__new_users` (
@@ -106,16 +110,22 @@ CREATE TABLE `__new_job_lines` (
 	`promised_at` integer,
 	`queued_at` integer NOT NULL,
 	`completed_at` integer,
+	`completed_by` integer,
+	`concern` text DEFAULT '' NOT NULL,
+	`cause` text,
+	`correction` text,
+	`cancel_reason` text,
 	`updated_at` integer NOT NULL,
 	FOREIGN KEY (`repair_order_id`) REFERENCES `repair_orders`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`technician_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`bay_id`) REFERENCES `bays`(`id`) ON UPDATE no action ON DELETE no action,
-	CONSTRAINT "job_lines_status_check" CHECK("status" in ('queued', 'working', 'held', 'done')),
+	FOREIGN KEY (`completed_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	CONSTRAINT "job_lines_status_check" CHECK("status" in ('queued', 'working', 'held', 'done', 'cancelled')),
 	CONSTRAINT "job_lines_hold_reason_check" CHECK("hold_reason" in ('parts', 'approval', 'tooling', 'sublet', 'other')),
 	CONSTRAINT "job_lines_priority_check" CHECK("priority" in ('low', 'normal', 'high', 'urgent'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_job_lines`("id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "updated_at") SELECT "id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "updated_at" FROM `job_lines`;--> statement-breakpoint
+INSERT INTO `__new_job_lines`("id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at") SELECT "id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at" FROM `job_lines`;--> statement-breakpoint
 DROP TABLE `job_lines`;--> statement-breakpoint
 ALTER TABLE `__new_job_lines` RENAME TO `job_lines`;--> statement-breakpoint
 CREATE UNIQUE INDEX `job_lines_repair_order_line_no_idx` ON `job_lines` (`repair_order_id`,`line_no`);--> statement-breakpoint
@@ -190,8 +200,13 @@ CREATE TABLE `__new_findings` (
 	`note` text NOT NULL,
 	`severity` text NOT NULL,
 	`suggested_hours` real,
+	`customer_wording` text,
+	`book_hours` real,
+	`parts_cents` integer,
 	`answer` text DEFAULT 'pending' NOT NULL,
+	`answer_channel` text,
 	`answered_by` integer,
+	`answered_name` text,
 	`answered_at` integer,
 	`created_line_id` integer,
 	`created_at` integer NOT NULL,
@@ -200,10 +215,11 @@ CREATE TABLE `__new_findings` (
 	FOREIGN KEY (`answered_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`created_line_id`) REFERENCES `job_lines`(`id`) ON UPDATE no action ON DELETE no action,
 	CONSTRAINT "findings_severity_check" CHECK("severity" in ('safety-now', 'soon', 'watch')),
-	CONSTRAINT "findings_answer_check" CHECK("answer" in ('pending', 'approved', 'declined'))
+	CONSTRAINT "findings_answer_check" CHECK("answer" in ('pending', 'approved', 'declined')),
+	CONSTRAINT "findings_answer_channel_check" CHECK("answer_channel" in ('link', 'phone', 'in-person'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_findings`("id", "job_line_id", "technician_id", "note", "severity", "suggested_hours", "answer", "answered_by", "answered_at", "created_line_id", "created_at") SELECT "id", "job_line_id", "technician_id", "note", "severity", "suggested_hours", "answer", "answered_by", "answered_at", "created_line_id", "created_at" FROM `findings`;--> statement-breakpoint
+INSERT INTO `__new_findings`("id", "job_line_id", "technician_id", "note", "severity", "suggested_hours", "customer_wording", "book_hours", "parts_cents", "answer", "answer_channel", "answered_by", "answered_name", "answered_at", "created_line_id", "created_at") SELECT "id", "job_line_id", "technician_id", "note", "severity", "suggested_hours", "customer_wording", "book_hours", "parts_cents", "answer", "answer_channel", "answered_by", "answered_name", "answered_at", "created_line_id", "created_at" FROM `findings`;--> statement-breakpoint
 DROP TABLE `findings`;--> statement-breakpoint
 ALTER TABLE `__new_findings` RENAME TO `findings`;--> statement-breakpoint
 CREATE INDEX `findings_job_line_id_idx` ON `findings` (`job_line_id`);--> statement-breakpoint
@@ -211,9 +227,11 @@ CREATE INDEX `findings_answer_created_at_idx` ON `findings` (`answer`,`created_a
 CREATE INDEX `findings_created_at_idx` ON `findings` (`created_at`);--> statement-breakpoint
 CREATE TABLE `__new_mail_outbox` (
 	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,
+	`channel` text DEFAULT 'email' NOT NULL,
 	`recipient` text NOT NULL,
-	`subject` text NOT NULL,
+	`subject` text,
 	`text` text NOT NULL,
+	`secret_body` integer DEFAULT false NOT NULL,
 	`attachments` text,
 	`status` text DEFAULT 'queued' NOT NULL,
 	`attempts` integer DEFAULT 0 NOT NULL,
@@ -221,10 +239,11 @@ CREATE TABLE `__new_mail_outbox` (
 	`last_error` text,
 	`created_at` integer NOT NULL,
 	`sent_at` integer,
+	CONSTRAINT "mail_outbox_channel_check" CHECK("channel" in ('email', 'text')),
 	CONSTRAINT "mail_outbox_status_check" CHECK("status" in ('queued', 'sent', 'failed'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_mail_outbox`("id", "recipient", "subject", "text", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at") SELECT "id", "recipient", "subject", "text", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at" FROM `mail_outbox`;--> statement-breakpoint
+INSERT INTO `__new_mail_outbox`("id", "channel", "recipient", "subject", "text", "secret_body", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at") SELECT "id", "channel", "recipient", "subject", "text", "secret_body", "attachments", "status", "attempts", "next_attempt_at", "last_error", "created_at", "sent_at" FROM `mail_outbox`;--> statement-breakpoint
 DROP TABLE `mail_outbox`;--> statement-breakpoint
 ALTER TABLE `__new_mail_outbox` RENAME TO `mail_outbox`;--> statement-breakpoint
 CREATE INDEX `mail_outbox_status_next_attempt_at_idx` ON `mail_outbox` (`status`,`next_attempt_at`);--> statement-breakpoint
@@ -247,4 +266,22 @@ INSERT INTO `__new_webhook_deliveries`("id", "webhook_id", "event", "body", "sta
 DROP TABLE `webhook_deliveries`;--> statement-breakpoint
 ALTER TABLE `__new_webhook_deliveries` RENAME TO `webhook_deliveries`;--> statement-breakpoint
 CREATE INDEX `webhook_deliveries_status_next_attempt_at_idx` ON `webhook_deliveries` (`status`,`next_attempt_at`);--> statement-breakpoint
-CREATE INDEX `webhook_deliveries_created_at_idx` ON `webhook_deliveries` (`created_at`);
+CREATE INDEX `webhook_deliveries_created_at_idx` ON `webhook_deliveries` (`created_at`);--> statement-breakpoint
+CREATE TABLE `__new_approval_link_findings` (
+	`link_id` integer NOT NULL,
+	`finding_id` integer NOT NULL,
+	`wording` text NOT NULL,
+	`severity` text NOT NULL,
+	`book_hours` real NOT NULL,
+	`labour_rate_cents` integer NOT NULL,
+	`parts_cents` integer,
+	PRIMARY KEY(`link_id`, `finding_id`),
+	FOREIGN KEY (`link_id`) REFERENCES `approval_links`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`finding_id`) REFERENCES `findings`(`id`) ON UPDATE no action ON DELETE no action,
+	CONSTRAINT "approval_link_findings_severity_check" CHECK("severity" in ('safety-now', 'soon', 'watch'))
+);
+--> statement-breakpoint
+INSERT INTO `__new_approval_link_findings`("link_id", "finding_id", "wording", "severity", "book_hours", "labour_rate_cents", "parts_cents") SELECT "link_id", "finding_id", "wording", "severity", "book_hours", "labour_rate_cents", "parts_cents" FROM `approval_link_findings`;--> statement-breakpoint
+DROP TABLE `approval_link_findings`;--> statement-breakpoint
+ALTER TABLE `__new_approval_link_findings` RENAME TO `approval_link_findings`;--> statement-breakpoint
+CREATE INDEX `approval_link_findings_finding_id_idx` ON `approval_link_findings` (`finding_id`);
