@@ -22,6 +22,7 @@ export * from './forecast/forecast.js';
 export * from './punches/timecard.schema.js';
 export * from './reports/report.schema.js';
 export * from './work/dispatch.schema.js';
+export * from './work/parts.schema.js';
 export * from './paging/page.schema.js';
 export * from './work/repair-order-list.schema.js';
 export * from './vehicles/vehicle-lookup.schema.js';

@@ -15,6 +15,7 @@ import {
 import { keepServing } from '../common/keep-serving.js';
 import { FloorService, type FloorLine, type FloorTimer } from '../floor/floor.service.js';
 import { timerEstimate } from '../timers/timer-view.js';
+import { waitingParts } from '../work/parts-hold.dto.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
@@ -123,6 +124,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
         state,
         holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
         heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
+        partsDueAt: state === 'held' && line ? (waitingParts(line)?.expectedAt ?? null) : null,
         vehicle: ro?.vehicle ?? null,
         repairOrder: ro ? { id: ro.id, number: ro.number } : null,
         jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,

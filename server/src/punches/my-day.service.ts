@@ -3,6 +3,7 @@ import type { MyDay, TechnicianState } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { FloorService } from '../floor/floor.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { receivedParts, waitingParts } from '../work/parts-hold.dto.js';
 
 const OFF_SHIFT: TechnicianState = { status: 'off', since: null, breakKind: null, openJobLineIds: [] };
 
@@ -42,6 +43,7 @@ export class MyDayService {
         priority: line.priority,
         bayName: line.bayId ? (bayNames.get(line.bayId) ?? null) : null,
         clockedOn: state.openJobLineIds.includes(line.id),
+        parts: waitingParts(line) ?? receivedParts(line),
       })),
       idleSignOutSeconds: settings.kioskIdleSeconds,
       maxConcurrentJobs: settings.maxConcurrentJobs,

@@ -1,6 +1,6 @@
 import type { Role } from '@baytime/shared';
 
-export type Method = 'get' | 'post' | 'patch' | 'delete';
+export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 export const ALL_ROLES: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
 
 /** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
@@ -33,6 +33,8 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/job-lines/1/hold', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/resume', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/done', ['technician', 'foreman', 'owner']],
+  ['put', '/api/job-lines/1/parts', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/job-lines/1/parts/received', ['advisor', 'foreman', 'owner']],
   ['get', '/api/timecards', ['technician', 'foreman', 'owner']],
   ['post', '/api/timecards/corrections', ['foreman', 'owner']],
   ['get', '/api/reports/labour', ['owner', 'foreman']],

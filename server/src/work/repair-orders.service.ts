@@ -21,6 +21,7 @@ import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
+import { waitingPartsOf } from './parts-hold.dto.js';
 import { repairOrderSnapshot } from './repair-order-snapshot.js';
 import { repairOrderSearch } from './repair-orders.search.js';
 
@@ -261,6 +262,7 @@ export class RepairOrdersService {
         .map((line) => ({
           ...toJobLineDto(line),
           clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
+          parts: waitingPartsOf(this.floor.openLine(line.id)),
         })),
     }));
   }

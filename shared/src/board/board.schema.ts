@@ -30,6 +30,8 @@ export interface BoardBay {
   state: BayState;
   holdReason: HoldReason | null;
   heldSince: string | null;
+  /** Held for parts: when they are expected, if the office said; the wall shows "late" after it. */
+  partsDueAt: string | null;
   vehicle: string | null;
   repairOrder: { id: number; number: string } | null;
   jobLine: { id: number; lineNo: number; title: string; status: JobLineStatus } | null;

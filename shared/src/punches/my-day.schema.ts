@@ -1,4 +1,5 @@
 import type { HoldReason } from '../bays/bays.schema.js';
+import type { PartsHoldDto } from '../work/parts.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { BreakKind } from './punches.schema.js';
 
@@ -21,6 +22,8 @@ export interface MyJobLine {
   priority: Priority;
   bayName: string | null;
   clockedOn: boolean;
+  /** What the line waits for (held for parts), or the parts just received; null when none. */
+  parts: PartsHoldDto | null;
 }
 
 /** What the kiosk shows a signed-in technician: `GET /api/me/day`. */

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
 import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
+import { partNameSchema, type PartsHoldDto } from './parts.schema.js';
 
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
@@ -59,8 +60,16 @@ export interface JobLineDto {
   completedAt: string | null;
 }
 
-/** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */
-export const holdLineSchema = z.object({ reason: z.enum(HOLD_REASONS) });
+/**
+ * A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. Held for parts,
+ * the technician may say which part is needed; the office records the rest.
+ */
+export const holdLineSchema = z
+  .object({ reason: z.enum(HOLD_REASONS), part: partNameSchema.optional() })
+  .refine((body) => body.part === undefined || body.reason === 'parts', {
+    path: ['part'],
+    message: 'Only a line held for parts names a part',
+  });
 export type HoldLineBody = z.infer<typeof holdLineSchema>;
 
 /** After the last line in a bay is done the bay goes to a final check or straight to ready. */
@@ -132,6 +141,6 @@ export interface RepairOrderSummary {
   advisorName: string | null;
   promisedAt: string | null;
   createdAt: string;
-  /** Each line with the seconds everyone has clocked on it, split rule applied. */
-  lines: (JobLineDto & { clockedSeconds: number })[];
+  /** Each line with the seconds everyone has clocked on it, split rule applied, and its parts hold. */
+  lines: (JobLineDto & { clockedSeconds: number; parts: PartsHoldDto | null })[];
 }

@@ -6,3 +6,4 @@ export * from './findings.js';
 export * from './records.js';
 export * from './sign-in.js';
 export * from './live.js';
+export * from './parts.js';
