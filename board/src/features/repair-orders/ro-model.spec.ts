@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { DispatchBoard, DispatchLine, FindingDto, JobLineDto } from '@baytime/shared';
+import type { DispatchBoard, DispatchLine, FindingDto } from '@baytime/shared';
 import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
@@ -19,11 +19,12 @@ import {
 
 const NOW = Date.parse('2026-12-01T20:00:00.000Z'); // Tue 2:00 PM in Chicago
 
-function jobLine(
-  overrides: Partial<JobLineDto & { clockedSeconds: number }> = {},
-): JobLineDto & { clockedSeconds: number } {
+type RoLine = RepairOrderSummary['lines'][number];
+
+function jobLine(overrides: Partial<RoLine> = {}): RoLine {
   return {
     clockedSeconds: 0,
+    parts: null,
     id: 1,
     repairOrderId: 1,
     lineNo: 1,
@@ -71,6 +72,7 @@ function dispatchLine(overrides: Partial<DispatchLine>): DispatchLine {
     queuedAt: '2026-12-01T15:00:00.000Z',
     clockedSeconds: 0,
     clockedOn: [],
+    parts: null,
     forecast: null,
     ...overrides,
   };

@@ -5,6 +5,7 @@ import {
   bayFacts,
   clockedBar,
   countdownFact,
+  holdFact,
   pickLines,
   techsText,
   wallVehicle,
@@ -18,6 +19,7 @@ const bay = (patch: Partial<BoardBay>): BoardBay => ({
   state: 'working',
   holdReason: null,
   heldSince: null,
+  partsDueAt: null,
   vehicle: '2019 Norden Kestrel',
   repairOrder: { id: 1, number: '4821' },
   jobLine: { id: 2, lineNo: 1, title: 'Brake pads', status: 'working' },
@@ -73,6 +75,20 @@ describe(bayFacts.name, () => {
     expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T02:00:00Z' }), now)).toBe('13h');
     expect(bandNote(bay({ state: 'held', heldSince: '2026-02-27T15:00:00Z' }), now)).toBe('3d');
     expect(bandNote(bay({ state: 'working' }), now)).toBeNull();
+  });
+
+  it('says when held parts are due, in shop time, and flips to late once that time has passed', () => {
+    // 2026-03-02 is in CST (UTC−6): 20:30Z is 2:30 PM in America/Chicago.
+    const held = bay({ state: 'held', holdReason: 'parts', partsDueAt: '2026-03-02T20:30:00Z' });
+    const at = (nowMs: number) =>
+      bayFacts({ bay: held, clockedSeconds: 0, nowMs, timeZone: 'America/Chicago' })[0];
+    expect(at(now)).toMatchObject({ key: 'reason', text: 'Parts due 2:30 PM', keep: true });
+    expect(at(Date.parse('2026-03-02T20:29:59Z'))?.text).toBe('Parts due 2:30 PM');
+    expect(at(Date.parse('2026-03-02T20:30:00Z'))).toMatchObject({ text: 'Parts late', tone: 'caution' });
+    expect(holdFact(bay({ state: 'held', holdReason: 'parts' }), now, 'America/Chicago').text).toBe('Parts');
+    expect(holdFact(bay({ state: 'held', holdReason: 'sublet' }), now, 'America/Chicago').text).toBe(
+      'Sublet',
+    );
   });
 
   it('counts a timer down and warns of a running engine during a warm-up', () => {

@@ -1,6 +1,6 @@
 import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardTimer } from '@baytime/shared';
 import { secondsSince, secondsUntil } from './server-clock';
-import { formatCountdown, formatHoursMinutes, formatSpan } from './board-time';
+import { formatCountdown, formatHoursMinutes, formatSpan, formatTimeOfDay } from './board-time';
 
 /** One short line a tile can show under the bay's name and state. */
 export interface BayFact {
@@ -94,16 +94,31 @@ export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
   };
 }
 
+/**
+ * Why a held bay waits: for parts with a known arrival, "Parts due 2:30 PM" in the shop's time, and
+ * "Parts late" once that time has passed by the server's clock: the tile flips by itself.
+ */
+export function holdFact(bay: BoardBay, nowMs: number, timeZone: string | undefined): BayFact {
+  const due = bay.holdReason === 'parts' && bay.partsDueAt ? Date.parse(bay.partsDueAt) : NaN;
+  if (Number.isFinite(due))
+    return nowMs >= due
+      ? { key: 'reason', text: 'Parts late', keep: true, tone: 'caution' }
+      : { key: 'reason', text: `Parts due ${formatTimeOfDay(due, timeZone)}`, keep: true };
+  return { key: 'reason', text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold', keep: true };
+}
+
 export interface FactInput {
   bay: BoardBay;
   clockedSeconds: number;
   nowMs: number;
+  /** The shop's time zone, for times of day. */
+  timeZone?: string;
   /** Characters a body line holds on this tile. */
   lineChars?: number;
 }
 
 /** The facts a tile tells about its bay, in reading order; which ones show depends on the room. */
-export function bayFacts({ bay, clockedSeconds, nowMs, lineChars }: FactInput): BayFact[] {
+export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: FactInput): BayFact[] {
   const facts: BayFact[] = [];
   const add = (fact: BayFact | null) => {
     if (fact && fact.text) facts.push(fact);
@@ -167,11 +182,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, lineChars }: FactInput): 
     }
     case 'held':
       // How long it has been held rides in the state band (see bandNote), so the reason keeps a line.
-      add({
-        key: 'reason',
-        text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold',
-        keep: true,
-      });
+      add(holdFact(bay, nowMs, timeZone));
       add(vehicleFact);
       add(roFact);
       add(jobFact);

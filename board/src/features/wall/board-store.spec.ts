@@ -8,6 +8,7 @@ const bay = (id: number, patch: Partial<BoardBay> = {}): BoardBay => ({
   state: 'free',
   holdReason: null,
   heldSince: null,
+  partsDueAt: null,
   vehicle: null,
   repairOrder: null,
   jobLine: null,

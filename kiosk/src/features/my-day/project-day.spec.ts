@@ -21,6 +21,7 @@ function line(id: number, changes: Partial<MyJobLine> = {}): MyJobLine {
     priority: 'normal',
     bayName: null,
     clockedOn: false,
+    parts: null,
     ...changes,
   };
 }

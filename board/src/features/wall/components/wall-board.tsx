@@ -108,6 +108,7 @@ export function WallBoard({ token }: { token: string }) {
               bay={bay}
               asOfMs={bayAsOf[bay.id]}
               nowMs={now}
+              timeZone={snapshot.shop.timeZone}
               height={layout.tileHeight}
               width={layout.tileWidth}
               turn={turn}
