@@ -126,7 +126,7 @@ export function advisorChoices(
 }
 
 export interface LineRow {
-  line: JobLineDto;
+  line: RepairOrderSummary['lines'][number];
   statusText: string;
   technician: string | null;
   bay: string | null;

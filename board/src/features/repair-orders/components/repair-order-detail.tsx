@@ -115,6 +115,8 @@ export interface RepairOrderDetailProps {
   canDispatch: boolean;
   /** Just written: say so. */
   created: boolean;
+  /** Shown under a line's status (parts details for a line held for parts). */
+  lineTools?: (line: RepairOrderSummary['lines'][number]) => ReactNode;
 }
 
 export function RepairOrderDetail(props: RepairOrderDetailProps) {
@@ -180,6 +182,7 @@ function Detail({
   units,
   canDispatch,
   created,
+  lineTools,
 }: RepairOrderDetailProps & { ro: RepairOrderSummary }) {
   const styles = useStyles();
   const navigate = useNavigate();
@@ -316,6 +319,7 @@ function Detail({
                           </Caption1>
                         )}
                       </div>
+                      {lineTools?.(line)}
                     </TableCell>
                     <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
                     <TableCell>
