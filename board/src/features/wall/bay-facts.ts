@@ -13,6 +13,7 @@ export interface BayFact {
     | 'temps'
     | 'engine'
     | 'reason'
+    | 'parts-due'
     | 'vehicle'
     | 'ro'
     | 'job';
@@ -95,16 +96,22 @@ export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
 }
 
 /**
- * Why a held bay waits: for parts with a known arrival, "Parts due 2:30 PM" in the shop's time, and
- * "Parts late" once that time has passed by the server's clock: the tile flips by itself.
+ * Why a held bay waits: for parts with a known arrival, "Parts due" and "2:30 PM" in the shop's time
+ * (two lines: one is too long for a tile), and "Parts late" once that time has passed by the server's
+ * clock: the tile flips by itself.
  */
-export function holdFact(bay: BoardBay, nowMs: number, timeZone: string | undefined): BayFact {
+export function holdFacts(bay: BoardBay, nowMs: number, timeZone: string | undefined): BayFact[] {
   const due = bay.holdReason === 'parts' && bay.partsDueAt ? Date.parse(bay.partsDueAt) : NaN;
   if (Number.isFinite(due))
     return nowMs >= due
-      ? { key: 'reason', text: 'Parts late', keep: true, tone: 'caution' }
-      : { key: 'reason', text: `Parts due ${formatTimeOfDay(due, timeZone)}`, keep: true };
-  return { key: 'reason', text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold', keep: true };
+      ? [{ key: 'reason', text: 'Parts late', keep: true, tone: 'caution' }]
+      : [
+          { key: 'reason', text: 'Parts due', keep: true },
+          { key: 'parts-due', text: formatTimeOfDay(due, timeZone), keep: true },
+        ];
+  return [
+    { key: 'reason', text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold', keep: true },
+  ];
 }
 
 export interface FactInput {
@@ -182,7 +189,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
     }
     case 'held':
       // How long it has been held rides in the state band (see bandNote), so the reason keeps a line.
-      add(holdFact(bay, nowMs, timeZone));
+      for (const fact of holdFacts(bay, nowMs, timeZone)) add(fact);
       add(vehicleFact);
       add(roFact);
       add(jobFact);
@@ -221,14 +228,14 @@ export interface TileLine {
 
 /**
  * Fits facts into `slots` lines. When they all fit they all show; otherwise the kept facts stay and
- * one line takes the others in turn (`turn` counts up every few seconds), in reading order.
+ * (unless they fill every line) one line takes the others in turn (`turn` counts up every few seconds), in reading order.
  */
 export function pickLines(facts: BayFact[], slots: number, turn: number): TileLine[] {
   if (slots <= 0) return [];
   if (facts.length <= slots) return facts.map((fact) => ({ fact, rotating: false }));
-  // One line takes turns with the rest, unless a single line is all there is: then the first kept fact.
+  // One line takes turns with the rest, unless the kept facts fill every line: then they all show.
   const keptAll = facts.filter((fact) => fact.keep);
-  const kept = keptAll.slice(0, slots === 1 && keptAll.length ? 1 : slots - 1);
+  const kept = keptAll.slice(0, keptAll.length >= slots ? slots : slots - 1);
   const others = facts.filter((fact) => !kept.includes(fact));
   const rotatingSlots = slots - kept.length;
   const shown =

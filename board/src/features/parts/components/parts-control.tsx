@@ -37,10 +37,9 @@ const useStyles = makeStyles({
   row: { display: 'flex', alignItems: 'center', flexWrap: 'wrap', gap: `2px ${tokens.spacingHorizontalS}` },
   glyph: { width: '15px', height: '15px', flexShrink: 0 },
   late: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
-  surface: { maxWidth: '34rem' },
+  surface: { maxWidth: '38rem' },
   content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   when: { display: 'grid', gridTemplateColumns: '1fr 9rem', gap: tokens.spacingHorizontalM },
-  actions: { flexWrap: 'wrap' },
 });
 
 export interface PartsLine {
@@ -182,13 +181,15 @@ function PartsDialog({
                 </MessageBar>
               )}
             </DialogContent>
-            <DialogActions className={styles.actions}>
+            <DialogActions position="start">
               <Button
                 onClick={() => receive.mutate(undefined, { onSuccess: onClose })}
                 disabled={receive.isPending || save.isPending}
               >
                 {receive.isPending ? 'Marking…' : 'Parts received'}
               </Button>
+            </DialogActions>
+            <DialogActions position="end">
               <Button appearance="secondary" onClick={onClose}>
                 Cancel
               </Button>

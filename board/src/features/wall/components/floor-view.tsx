@@ -17,7 +17,7 @@ import {
 import { TIMER_KIND_LABELS, type BoardBay, type BoardSnapshot } from '@baytime/shared';
 import { StateChip } from '@/components/state-chip';
 import { clockedSecondsAt } from '../board-store';
-import { clockedBar, countdownFact, holdFact } from '../bay-facts';
+import { clockedBar, countdownFact, holdFacts } from '../bay-facts';
 import { formatHoursMinutes, formatSpan, formatTimeOfDay } from '../board-time';
 import { secondsSince } from '../server-clock';
 import type { LinkStatus } from '../live-board';
@@ -151,7 +151,11 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
       </div>
       {bay.state === 'held' && (
         <Body1>
-          <strong>{holdFact(bay, nowMs, timeZone).text}</strong>
+          <strong>
+            {holdFacts(bay, nowMs, timeZone)
+              .map((fact) => fact.text)
+              .join(' ')}
+          </strong>
           {bay.heldSince && ` · held ${formatSpan(secondsSince(bay.heldSince, nowMs))}`}
         </Body1>
       )}
