@@ -10,6 +10,7 @@ export * from './findings/findings.schema.js';
 export * from './board/board.schema.js';
 export * from './live/live.events.js';
 export * from './punches/my-day.schema.js';
+export * from './punches/offline-punches.schema.js';
 export * from './bays/bay-palette.js';
 export * from './time/workweek.js';
 export * from './ledger/ledger.js';

@@ -17,6 +17,7 @@ import { FloorService, type FloorLine, type FloorTimer } from '../floor/floor.se
 import { timerEstimate } from '../timers/timer-view.js';
 import { waitingParts } from '../work/parts-hold.dto.js';
 import { LiveService } from '../live/live.service.js';
+import { ScreensService } from '../screens/screens.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
@@ -45,6 +46,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     private readonly floor: FloorService,
     private readonly shop: ShopService,
     private readonly live: LiveService,
+    private readonly screens: ScreensService,
   ) {}
 
   onModuleInit(): void {
@@ -74,13 +76,18 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     if (
       after.bays.length !== before.bays.length ||
       !isDeepStrictEqual(
-        [after.people, after.queue, after.lateLines],
-        [before.people, before.queue, before.lateLines],
+        [after.people, after.queue, after.lateLines, after.kioskQueues],
+        [before.people, before.queue, before.lateLines, before.kioskQueues],
       )
     )
       this.live.publish(
         'floor.updated',
-        { people: after.people, queue: after.queue, lateLines: after.lateLines },
+        {
+          people: after.people,
+          queue: after.queue,
+          lateLines: after.lateLines,
+          kioskQueues: after.kioskQueues,
+        },
         { to: 'floor' },
       );
     this.published = { ...after, seq: this.live.seq };
@@ -176,6 +183,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       people,
       queue,
       lateLines: this.lateLines,
+      kioskQueues: this.screens.kioskQueues(),
     };
   }
 

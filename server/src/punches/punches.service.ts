@@ -52,7 +52,12 @@ export class PunchesService {
    * second one. Everything here is synchronous on one connection, so two requests never interleave.
    */
   @Transactional()
-  record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
+  record(
+    body: CreatePunchBody,
+    actor: Principal,
+    now = new Date(),
+    maxAgeSeconds = MAX_PUNCH_AGE_SECONDS,
+  ): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.db.select().from(punches).where(eq(punches.id, body.id)).get();
     if (existing) {
@@ -64,8 +69,10 @@ export class PunchesService {
     const at = body.at ? new Date(body.at) : now;
     if (at.getTime() > now.getTime() + MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000)
       throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
-    if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
-      throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
+    if (at.getTime() < now.getTime() - maxAgeSeconds * 1000)
+      throw new BadRequestException(
+        `That punch is more than ${maxAgeSeconds / 3600} hours old: ask the foreman to add it`,
+      );
     const line = body.jobLineId
       ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
       : undefined;

@@ -1,4 +1,5 @@
 import type { BayState, HoldReason } from '../bays/bays.schema.js';
+import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { TimerEstimateDto, TimerKind } from '../timers/timers.schema.js';
 
@@ -70,4 +71,6 @@ export interface BoardSnapshot {
   queue: BoardQueueItem[];
   /** Open lines forecast to finish after their promised time. */
   lateLines: number;
+  /** Kiosks that last said punches wait on them; empty when none. */
+  kioskQueues: KioskQueueNote[];
 }

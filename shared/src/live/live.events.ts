@@ -1,4 +1,5 @@
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
+import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { PunchDto } from '../punches/punches.schema.js';
 import type { JobLineDto } from '../work/work.schema.js';
 
@@ -11,7 +12,12 @@ export interface ServerToClientEvents {
   'board.snapshot': (snapshot: BoardSnapshot) => void;
   'bay.updated': (event: Sequenced & { bay: BoardBay }) => void;
   'floor.updated': (
-    event: Sequenced & { people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number },
+    event: Sequenced & {
+      people: BoardPerson[];
+      queue: BoardQueueItem[];
+      lateLines: number;
+      kioskQueues: KioskQueueNote[];
+    },
   ) => void;
   'punch.recorded': (event: Sequenced & { punch: PunchDto }) => void;
   'job-line.updated': (event: Sequenced & { jobLine: JobLineDto }) => void;

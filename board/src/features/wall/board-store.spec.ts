@@ -28,6 +28,7 @@ const snapshot = (seq: number, serverTime = '2026-03-02T15:00:00.000Z'): BoardSn
   people: [],
   queue: [],
   lateLines: 0,
+  kioskQueues: [],
 });
 
 describe(boardFromSnapshot.name, () => {
@@ -87,7 +88,7 @@ describe(applyEvent.name, () => {
     ];
     const result = applyEvent(
       start(),
-      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2 },
+      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2, kioskQueues: [] },
       local,
     );
     expect(result.board?.snapshot.people).toEqual(people);

@@ -3,6 +3,7 @@ import {
   type BoardBay,
   type BoardPerson,
   type BoardQueueItem,
+  type KioskQueueNote,
   type BoardSnapshot,
 } from '@baytime/shared';
 import { clockFromServerTime, serverNow, type ServerClock } from './server-clock';
@@ -18,7 +19,14 @@ export interface BoardData {
 
 export type BoardEvent =
   | { type: 'bay.updated'; seq: number; bay: BoardBay }
-  | { type: 'floor.updated'; seq: number; people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number }
+  | {
+      type: 'floor.updated';
+      seq: number;
+      people: BoardPerson[];
+      queue: BoardQueueItem[];
+      lateLines: number;
+      kioskQueues: KioskQueueNote[];
+    }
   /** A sequenced event that does not change what the board shows by itself (punch, job line, …). */
   | { type: 'other'; seq: number };
 
@@ -75,6 +83,7 @@ export function applyEvent(
             people: event.people,
             queue: event.queue,
             lateLines: event.lateLines,
+            kioskQueues: event.kioskQueues,
           },
         },
         resync: false,

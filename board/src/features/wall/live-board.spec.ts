@@ -71,6 +71,7 @@ const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot =>
   people: [],
   queue: [],
   lateLines: 0,
+  kioskQueues: [],
 });
 
 describe(createLiveBoard.name, () => {

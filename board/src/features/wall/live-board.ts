@@ -86,8 +86,8 @@ export function createLiveBoard({
       link.on('bay.updated', ({ seq, bay }: Payload<'bay.updated'>) =>
         onEvent({ type: 'bay.updated', seq, bay }),
       ),
-      link.on('floor.updated', ({ seq, people, queue, lateLines }: Payload<'floor.updated'>) =>
-        onEvent({ type: 'floor.updated', seq, people, queue, lateLines }),
+      link.on('floor.updated', ({ seq, people, queue, lateLines, kioskQueues }: Payload<'floor.updated'>) =>
+        onEvent({ type: 'floor.updated', seq, people, queue, lateLines, kioskQueues }),
       ),
       link.on('punch.recorded', other),
       link.on('job-line.updated', other),

@@ -7,3 +7,4 @@ export * from './records.js';
 export * from './sign-in.js';
 export * from './live.js';
 export * from './parts.js';
+export * from './offline-punches.js';

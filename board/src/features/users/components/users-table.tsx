@@ -15,12 +15,12 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import type { Role, UserDto } from '@baytime/shared';
+import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
 import { formErrorText, formatMoney } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
 
-export const ROLE_LABELS: Record<Exclude<Role, 'display'>, string> = {
+export const ROLE_LABELS: Record<PersonRole, string> = {
   owner: 'Owner',
   foreman: 'Foreman',
   advisor: 'Service advisor',
@@ -88,7 +88,10 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
     );
 
   const sorted = [...users.data]
-    .filter((user): user is UserDto & { role: Exclude<Role, 'display'> } => user.role !== 'display')
+    .filter(
+      (user): user is UserDto & { role: PersonRole } =>
+        !(DEVICE_ROLES as readonly Role[]).includes(user.role),
+    )
     .sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name));
 
   return (
