@@ -15,12 +15,15 @@ export interface OutboxPunch {
   jobLineId?: number;
   at: string;
   breakKind?: BreakKind;
+  /** Recorded offline with badge and PIN sealed to the server's key; sent as this kiosk. */
+  sealed?: { keyId: string; identity: string };
 }
 
 export interface OutboxEntry {
   punch: OutboxPunch;
-  /** The token of the technician who tapped: the punch drains after they sign out. */
+  /** The token of the technician who tapped (the kiosk's own for a sealed punch): it drains after they sign out. */
   token: string;
+  /** Whose punches go in order together; a sealed punch's is minus its badge number, not yet a person. */
   technicianId: number;
   technicianName: string;
   /** What was tapped, in words, for a refusal message. */
