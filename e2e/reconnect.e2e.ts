@@ -24,8 +24,8 @@ class BoardView {
   constructor(readonly socket: Client) {
     socket.on('board.snapshot', (snapshot) => (this.board = boardFromSnapshot(snapshot, Date.now())));
     socket.on('bay.updated', ({ seq, bay }) => this.apply({ type: 'bay.updated', seq, bay }));
-    socket.on('floor.updated', ({ seq, people, queue, lateLines }) =>
-      this.apply({ type: 'floor.updated', seq, people, queue, lateLines }),
+    socket.on('floor.updated', ({ seq, people, queue, lateLines, kioskQueues }) =>
+      this.apply({ type: 'floor.updated', seq, people, queue, lateLines, kioskQueues }),
     );
     for (const event of ['punch.recorded', 'job-line.updated', 'timer.updated', 'finding.created'] as const)
       socket.on(event, ({ seq }: { seq: number }) => this.apply({ type: 'other', seq }));

@@ -36,6 +36,8 @@ export default defineConfig({
         // Fluent and the fonts make the main chunk large; the whole app must be on the tablet.
         maximumFileSizeToCacheInBytes: 4 * 1024 * 1024,
         cleanupOutdatedCaches: true,
+        // The first worker takes the open page at once, so it works offline without a reload first.
+        clientsClaim: true,
       },
     }),
   ],
