@@ -200,6 +200,14 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     findings.push(...(await checkPage(page, 'revoke screen dialog', seen)));
     await page.goto(`${server.url}${paths.dispatch}`);
     await page
+      .getByRole('button', { name: /^Parts for / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'parts dialog', seen)));
+    await page.keyboard.press('Escape');
+    await page.getByRole('dialog').waitFor({ state: 'detached' });
+    await page
       .getByRole('button', { name: /^Move line/ })
       .first()
       .focus();
