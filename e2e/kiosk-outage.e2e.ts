@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { OfflinePunchDto, Page, Timecard, UserDto } from '@baytime/shared';
+import type { KioskDto, OfflinePunchDto, Page, Timecard, UserDto } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
-import { apiAs, openKiosk, signInAtKiosk, type Api } from './support/floor.js';
+import { apiAs, openKiosk, openWall, signInAtKiosk, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /**
@@ -90,6 +90,42 @@ describe('kiosk through a Wi-Fi outage', () => {
       .waitFor();
     await kiosk.screenshot({ path: screenshotPath('kiosk-outage-confirmed') });
   }, 120_000);
+
+  it('tells the wall and the office how many punches wait on the kiosk, and since when', async () => {
+    const wall = await openBrowser({ width: 1920, height: 1080 });
+    try {
+      const kiosk = await tablet.newPage();
+      await openKiosk(kiosk, server);
+      await tablet.setOffline(true);
+      await kiosk.keyboard.type('1044');
+      await kiosk.keyboard.press('Enter');
+      await kiosk.getByText('PIN for badge 1044').waitFor();
+      await kiosk.keyboard.type('4321');
+      await kiosk.keyboard.press('Enter');
+      await kiosk.getByRole('button', { name: 'End break' }).click();
+      await kiosk.getByText('1 punch waiting to be sent').waitFor();
+      // The Wi-Fi is back but the server cannot take the punch yet: the kiosk still says what waits.
+      await tablet.route('**/api/kiosks/me/offline-punches', (route) =>
+        route.fulfill({ status: 503, contentType: 'application/json', body: '{"message":"Busy"}' }),
+      );
+      await tablet.setOffline(false);
+      const screen = await wall.newPage();
+      await openWall(screen, server);
+      await screen
+        .getByText(/1 punch waiting since \d{1,2}:\d{2} .M · e2e kiosk/)
+        .waitFor({ timeout: 15_000 });
+      await screen.screenshot({ path: screenshotPath('wall-kiosk-queue') });
+      const [listed] = await foreman<KioskDto[]>('GET', '/kiosks');
+      expect(listed!.queue.waiting).toBe(1);
+
+      await tablet.unroute('**/api/kiosks/me/offline-punches');
+      await kiosk.getByRole('button', { name: 'Send now' }).click();
+      await kiosk.getByText(/waiting to be sent/).waitFor({ state: 'detached', timeout: 20_000 });
+      await screen.getByText(/waiting since .* · e2e kiosk/).waitFor({ state: 'detached', timeout: 15_000 });
+    } finally {
+      await wall.close();
+    }
+  });
 
   it('opens the kiosk page on a fresh tablet to the pairing step', async () => {
     const fresh = await openBrowser();

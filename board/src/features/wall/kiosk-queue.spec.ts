@@ -12,9 +12,9 @@ describe(kioskQueueText.name, () => {
   it('names the kiosk and since when, in shop time', () => {
     // 13:02Z on 3 Mar 2026 is 7:02 AM CST (UTC−6).
     const one = [{ kioskId: 1, name: 'Front kiosk', waiting: 3, since: '2026-03-03T13:02:00Z' }];
-    expect(kioskQueueText(one, ZONE)).toBe('3 punches wait on Front kiosk since 7:02 AM');
+    expect(kioskQueueText(one, ZONE)).toBe('3 punches waiting since 7:02 AM · Front kiosk');
     expect(kioskQueueText([{ ...one[0]!, waiting: 1 }], ZONE)).toBe(
-      '1 punch waits on Front kiosk since 7:02 AM',
+      '1 punch waiting since 7:02 AM · Front kiosk',
     );
   });
 
@@ -23,6 +23,6 @@ describe(kioskQueueText.name, () => {
       { kioskId: 1, name: 'Front kiosk', waiting: 3, since: '2026-03-03T13:02:00Z' },
       { kioskId: 2, name: 'Back kiosk', waiting: 2, since: '2026-03-03T12:45:00Z' },
     ];
-    expect(kioskQueueText(two, ZONE)).toBe('5 punches wait on 2 kiosks since 6:45 AM');
+    expect(kioskQueueText(two, ZONE)).toBe('5 punches waiting since 6:45 AM · 2 kiosks');
   });
 });

@@ -2,8 +2,9 @@ import type { KioskQueueNote } from '@baytime/shared';
 import { formatTimeOfDay } from './board-time';
 
 /**
- * The top bar's note on punches a kiosk holds and has not sent yet: "3 punches wait on Front kiosk
- * since 7:02 AM", or summed over kiosks; null when nothing waits.
+ * The top bar's note on punches a kiosk holds and has not sent yet: "3 punches waiting since 7:02 AM ·
+ * Front kiosk", or summed over kiosks; null when nothing waits. Count and time first: a long kiosk
+ * name is what gets cut.
  */
 export function kioskQueueText(
   notes: readonly KioskQueueNote[],
@@ -15,5 +16,5 @@ export function kioskQueueText(
   const where = waiting.length === 1 ? waiting[0]!.name : `${waiting.length} kiosks`;
   const oldest = Math.min(...waiting.map((note) => (note.since ? Date.parse(note.since) : Infinity)));
   const since = Number.isFinite(oldest) ? ` since ${formatTimeOfDay(oldest, timeZone)}` : '';
-  return `${total} ${total === 1 ? 'punch waits' : 'punches wait'} on ${where}${since}`;
+  return `${total} ${total === 1 ? 'punch' : 'punches'} waiting${since} · ${where}`;
 }

@@ -49,7 +49,7 @@ export function WallTopBar(props: WallTopBarProps) {
       ) : (
         <div className={styles.shopName}>{shopName}</div>
       )}
-      {!lost && (
+      {!lost && !kioskNote && (
         <div className={styles.queue}>
           <Glyph name="queue" className={styles.glyph} />
           {queue.count === 0 ? (
