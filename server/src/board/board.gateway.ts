@@ -98,7 +98,7 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
     void socket.join([
       SHOP_ROOM,
       `role:${principal.role}`,
-      `${principal.role === 'display' ? 'screen' : 'user'}:${principal.id}`,
+      `${principal.role === 'display' || principal.role === 'kiosk' ? 'screen' : 'user'}:${principal.id}`,
     ]);
     this.endAtExpiry(socket, expiresAt);
     if (principal.role === 'display') this.screens.seen(principal.id);

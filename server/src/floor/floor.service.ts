@@ -7,6 +7,7 @@ import {
   technicianState,
   type Ledger,
   type LedgerPunch,
+  type PartsHoldDto,
   type TechnicianState,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
@@ -14,6 +15,7 @@ import { UnitOfWork } from '../db/unit-of-work.js';
 import {
   bays,
   jobLines,
+  partsHolds,
   punches,
   repairOrders,
   timerReadings,
@@ -24,6 +26,7 @@ import {
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
 
 const HOUR_MS = 3600_000;
@@ -32,7 +35,12 @@ const RECENT_MS = 72 * HOUR_MS;
 /** How far before its first punch on an open line a technician's shift may have begun. */
 const SHIFT_LOOKBACK_MS = 36 * HOUR_MS;
 
-export type FloorLine = typeof jobLines.$inferSelect & { repairOrderNumber: string; vehicle: string };
+export type FloorLine = typeof jobLines.$inferSelect & {
+  repairOrderNumber: string;
+  vehicle: string;
+  /** The line's latest parts hold, open or received; null when it never waited for parts. */
+  parts: PartsHoldDto | null;
+};
 export type FloorBay = typeof bays.$inferSelect & {
   parked: { id: number; number: string; vehicle: string } | null;
 };
@@ -341,6 +349,7 @@ type LineQueryRow = typeof jobLines.$inferSelect & {
   vehicleYear: number;
   vehicleMake: string;
   vehicleModel: string;
+  parts: typeof partsHolds.$inferSelect | null;
 };
 
 function toFloorLine({
@@ -348,12 +357,14 @@ function toFloorLine({
   vehicleYear,
   vehicleMake,
   vehicleModel,
+  parts,
   ...line
 }: LineQueryRow): FloorLine {
   return {
     ...line,
     repairOrderNumber,
     vehicle: describeVehicle({ year: vehicleYear, make: vehicleMake, model: vehicleModel }),
+    parts: parts ? toPartsHoldDto(parts) : null,
   };
 }
 
@@ -387,13 +398,16 @@ function prepareFloorQueries(db: Db) {
     vehicleYear: vehicles.year,
     vehicleMake: vehicles.make,
     vehicleModel: vehicles.model,
+    parts: partsHolds,
   };
+  const latestParts = sql`(select max(${partsHolds.id}) from ${partsHolds} where ${partsHolds.jobLineId} = ${jobLines.id})`;
   const linesWithVehicle = () =>
     db
       .select(lineColumns)
       .from(jobLines)
       .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId));
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .leftJoin(partsHolds, eq(partsHolds.id, latestParts));
   return {
     technicians: db
       .select({ id: users.id, name: users.name, skillLevel: users.skillLevel })

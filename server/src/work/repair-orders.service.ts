@@ -30,6 +30,7 @@ import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 import { changedFields, JobLinesService } from './job-lines.service.js';
 import { repairOrderHistory } from './repair-order-history.js';
+import { waitingPartsOf } from './parts-hold.dto.js';
 import { repairOrderSnapshot } from './repair-order-snapshot.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
 import { repairOrderSearch } from './repair-orders.search.js';
@@ -480,6 +481,7 @@ export class RepairOrdersService {
           ...toJobLineDto(line),
           clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
           late: late.has(line.id),
+          parts: waitingPartsOf(this.floor.openLine(line.id)),
         })),
     }));
   }
