@@ -24,7 +24,7 @@ import {
   vehicles,
 } from '../db/schema/index.js';
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
-import { LiveService } from '../live/live.service.js';
+import { LiveService, type Audience } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
@@ -186,6 +186,18 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   stateOf(technicianId: number, now: Date): TechnicianState | null {
     return this.built(technicianId, now)?.state ?? null;
+  }
+
+  /**
+   * Who hears of a change to the line: the floor screens, and the kiosks of its technician, of the
+   * technician it had before this change (the model still holds the line as it was until the commit),
+   * and of everyone clocked on it.
+   */
+  lineAudience(line: { id: number; technicianId: number | null }, now = new Date()): Audience {
+    const before = this.lines.get(line.id)?.technicianId ?? null;
+    const concerned = new Set([...this.clockedOn(line.id, now), line.technicianId, before]);
+    concerned.delete(null);
+    return { to: 'floor', technicianIds: [...concerned] as number[] };
   }
 
   /** Technicians clocked on the line right now. */

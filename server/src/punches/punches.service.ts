@@ -100,7 +100,7 @@ export class PunchesService {
 
     const row = this.queries.insert.get({ ...candidate, at, recordedAt: now, recordedBy: actor.id });
     const punch = toPunchDto(row!);
-    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
+    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [punch.technicianId] });
     this.floor.punchRecorded(punch);
     if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
       const taken = line.technicianId === null;
@@ -125,7 +125,11 @@ export class PunchesService {
           },
           now,
         );
-      this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
+      this.live.publish(
+        'job-line.updated',
+        { jobLine: toJobLineDto(updated) },
+        this.floor.lineAudience(updated),
+      );
       this.floor.linesChanged([line.id]);
     }
     return { punch, replayed: false };
@@ -154,7 +158,7 @@ export class PunchesService {
         .returning()
         .get();
       const punch = toPunchDto(row);
-      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId });
+      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [technicianId] });
       this.floor.punchRecorded(punch);
     }
     return technicianIds;

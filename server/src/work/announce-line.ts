@@ -4,14 +4,14 @@ import type { FloorService } from '../floor/floor.service.js';
 import type { LiveService } from '../live/live.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 
-/** Tells every screen a line changed, once the use case commits: kiosks, dispatch, the wall. */
+/** Tells the screens a line changed, once the use case commits: dispatch, the wall, and the kiosks it concerns. */
 export function announceLine(
   line: typeof jobLines.$inferSelect,
   live: LiveService,
   floor: FloorService,
 ): JobLineDto {
   const jobLine = toJobLineDto(line);
-  live.publish('job-line.updated', { jobLine });
+  live.publish('job-line.updated', { jobLine }, floor.lineAudience(jobLine));
   floor.linesChanged([line.id]);
   floor.baysChanged();
   return jobLine;

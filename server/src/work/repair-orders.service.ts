@@ -137,7 +137,8 @@ export class RepairOrdersService {
       detail: Object.keys(detail).length ? detail : undefined,
     });
     const created = this.get(ro.id, now);
-    for (const jobLine of created.lines) this.live.publish('job-line.updated', { jobLine });
+    for (const jobLine of created.lines)
+      this.live.publish('job-line.updated', { jobLine }, this.floor.lineAudience(jobLine));
     this.floor.linesChanged(created.lines.map((line) => line.id));
     return created;
   }
@@ -256,7 +257,7 @@ export class RepairOrdersService {
       detail: { jobLineId: line.id, lineNo: line.lineNo, title: line.title, bookHours: line.bookHours },
     });
     const jobLine = toJobLineDto(line);
-    this.live.publish('job-line.updated', { jobLine });
+    this.live.publish('job-line.updated', { jobLine }, this.floor.lineAudience(jobLine));
     this.changed(id, [line.id], now);
     return jobLine;
   }
