@@ -20,6 +20,7 @@ import { PayrollExportModule } from './payroll-export/payroll-export.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { RepairOrderImportModule } from './repair-order-import/repair-order-import.module.js';
 import { ReportsModule } from './reports/reports.module.js';
+import { KiosksModule } from './kiosks/kiosks.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
@@ -58,6 +59,7 @@ export class AppModule {
         UsersModule,
         BaysModule,
         ScreensModule,
+        KiosksModule,
         BoardModule,
         PunchesModule,
         WorkModule,

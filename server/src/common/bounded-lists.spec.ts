@@ -2,11 +2,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { PAGE_LIMIT_MAX, type Role } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
+import { randomUUID } from 'node:crypto';
 import {
   customers,
   findings,
   jobLines,
+  offlinePunches,
   repairOrders,
+  screens,
   users,
   vehicles,
   webhookDeliveries,
@@ -25,6 +28,7 @@ const ACCEPTED_LISTS: Record<string, string> = {
   '/api/screens': 'the wall screens the shop paired',
   '/api/integration-keys': 'the keys the owner made, one per system the shop connects',
   '/api/webhooks': 'the endpoints the owner registered, one per system the shop connects',
+  '/api/kiosks': 'the kiosk tablets the shop paired',
   '/api/timers': 'running timers only: at most one per line in work, a stopped one drops out',
 };
 
@@ -36,6 +40,7 @@ const NOT_LISTS: Record<string, string> = {
   '/api/health': 'a health check',
   '/api/openapi.json': 'the API’s description',
   '/api/docs': 'the API reference page',
+  '/api/kiosks/me/offline-key': 'the server’s public key for offline sign-ins',
   '/api/board': 'the floor now: bays, people in, open lines',
   '/api/dispatch': 'the floor now: open lines per technician',
   '/api/vehicles': 'one vehicle, found by VIN',
@@ -81,6 +86,14 @@ describe('every GET collection route is bounded', () => {
     tokens.foreman = await sut.signIn(DEMO.foreman);
     tokens.advisor = await sut.signIn(DEMO.advisor);
     tokens.technician = (await sut.badge('1044')).accessToken;
+    const kiosk = await sut
+      .http()
+      .post('/api/kiosks')
+      .auth(tokens.owner, { type: 'bearer' })
+      .send({ name: 'Kiosk' });
+    tokens.kiosk = (
+      await sut.http().post('/api/auth/kiosks/pair').send({ code: kiosk.body.code })
+    ).body.accessToken;
     const express = sut.app.getHttpAdapter().getInstance() as {
       router: { stack: { route?: { path: string; methods: Record<string, boolean> } }[] };
     };
@@ -154,6 +167,19 @@ describe('every GET collection route is bounded', () => {
     for (let i = 0; i <= PAGE_LIMIT_MAX; i++)
       db.insert(webhookDeliveries)
         .values({ webhookId, event: 'job-line.finished', body: '{}', createdAt: at })
+        .run();
+    const kioskId = db.select().from(screens).where(eq(screens.kind, 'kiosk')).get()!.id;
+    for (let i = 0; i <= PAGE_LIMIT_MAX; i++)
+      db.insert(offlinePunches)
+        .values({
+          id: randomUUID(),
+          kioskId,
+          kind: 'shift-in',
+          at: new Date(at.getTime() + (i % 7) * 60_000),
+          status: 'refused',
+          problem: 'Wrong PIN',
+          receivedAt: at,
+        })
         .run();
     const mail = sut.app.get(OutboxService);
     for (let i = 0; i < 3; i++) {

@@ -12,6 +12,7 @@ import { openDatabase, SQLITE, type Sqlite } from './database.js';
 /** Every column that holds one of a fixed set of words, with the CHECK that guards it. */
 const ENUM_COLUMNS: [table: string, column: string][] = [
   ['users', 'role'],
+  ['screens', 'kind'],
   ['bays', 'kind'],
   ['bays', 'phase'],
   ['repair_orders', 'status'],
@@ -20,6 +21,10 @@ const ENUM_COLUMNS: [table: string, column: string][] = [
   ['job_lines', 'priority'],
   ['punches', 'kind'],
   ['punches', 'break_kind'],
+  ['offline_punches', 'kind'],
+  ['offline_punches', 'break_kind'],
+  ['offline_punches', 'status'],
+  ['parts_holds', 'state'],
   ['timers', 'kind'],
   ['findings', 'severity'],
   ['findings', 'answer'],
@@ -53,6 +58,10 @@ describe('database constraints, tried directly in SQL', () => {
         VALUES ('h', (SELECT min(id) FROM repair_orders), ${owner}, '[]', 0, 1);
       INSERT INTO approval_link_findings (link_id, finding_id, wording, severity, book_hours, labour_rate_cents)
         VALUES (last_insert_rowid(), (SELECT max(id) FROM findings), 'Worn belt', 'soon', 0.5, 12000);
+      INSERT INTO parts_holds (job_line_id, part, state, created_at, updated_at)
+        VALUES ((SELECT min(id) FROM job_lines), 'Belt', 'ordered', 0, 0);
+      INSERT INTO offline_punches (id, kiosk_id, badge, kind, break_kind, at, status, received_at)
+        VALUES ('o1', (SELECT min(id) FROM screens), '1041', 'break-start', 'meal', 0, 'unverified', 0);
     `);
   });
   afterAll(() => sut.close());
@@ -108,7 +117,7 @@ describe('the constraints migration on a database that has rows', () => {
   it('keeps every row, the foreign keys and the RO search', () => {
     const file = join(dir, 'shop.db');
     const before = new Database(file);
-    migrate(drizzle(before), { migrationsFolder: migrationsUpTo('0010_integration', join(dir, 'before')) });
+    migrate(drizzle(before), { migrationsFolder: migrationsUpTo('0012_integration', join(dir, 'before')) });
     before.exec(`
       INSERT INTO users (id, name, role, created_at) VALUES (1, 'Rosa', 'owner', 0), (2, 'Dana', 'technician', 0);
       INSERT INTO customers (id, name, phone, created_at) VALUES (1, 'Wendell Farrow', '555-0142', 0);
@@ -125,6 +134,9 @@ describe('the constraints migration on a database that has rows', () => {
       INSERT INTO approval_links (id, token_hash, repair_order_id, sent_by, sent_to, created_at, expires_at) VALUES (1, 'h', 1, 1, '[]', 0, 1);
       INSERT INTO approval_link_findings (link_id, finding_id, wording, severity, book_hours, labour_rate_cents) VALUES (1, 1, 'Worn belt', 'soon', 0.5, 12000);
       INSERT INTO mail_outbox (channel, recipient, text, next_attempt_at, created_at) VALUES ('text', '+16085550142', 'Ready', 0, 0);
+      INSERT INTO screens (id, kind, name, created_at) VALUES (1, 'kiosk', 'Tablet by the door', 0);
+      INSERT INTO offline_punches (id, kiosk_id, badge, kind, at, status, received_at) VALUES ('o1', 1, '1041', 'shift-in', 0, 'unverified', 0);
+      INSERT INTO parts_holds (job_line_id, part, state, created_at, updated_at) VALUES (1, 'Belt', 'ordered', 0, 0);
     `);
     const counts = (db: Database.Database) =>
       [
@@ -138,6 +150,9 @@ describe('the constraints migration on a database that has rows', () => {
         'approval_links',
         'approval_link_findings',
         'mail_outbox',
+        'screens',
+        'offline_punches',
+        'parts_holds',
       ].map((table) => (db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n);
     const rowsBefore = counts(before);
     before.close();

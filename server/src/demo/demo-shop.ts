@@ -17,6 +17,7 @@ import {
   holdPresets,
   jobLines,
   operations,
+  partsHolds,
   punches,
   repairOrders,
   shopSettings,
@@ -344,6 +345,18 @@ export class DemoShopSeeder {
     ]);
     this.punch(priya, 'job-on', ago(150), { jobLineId: held.lineIds[0]! });
     this.punch(priya, 'job-off', ago(55), { jobLineId: held.lineIds[0]! });
+    this.db
+      .insert(partsHolds)
+      .values({
+        jobLineId: held.lineIds[0]!,
+        part: 'Rear hub bearing assembly',
+        state: 'back-ordered',
+        supplier: 'Tallow Ridge Parts Supply',
+        expectedAt: new Date(now.getTime() + 150 * MINUTE),
+        createdAt: ago(55),
+        updatedAt: ago(40),
+      })
+      .run();
     this.punch(priya, 'break-start', ago(20), { breakKind: 'meal' });
     this.setBay(bay(3), 'staged', held.id, ago(150));
 

@@ -57,7 +57,12 @@ export class PunchesService {
    * second one. Everything here is synchronous on one connection, so two requests never interleave.
    */
   @Transactional()
-  record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
+  record(
+    body: CreatePunchBody,
+    actor: Principal,
+    now = new Date(),
+    maxAgeSeconds = MAX_PUNCH_AGE_SECONDS,
+  ): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.queries.punch.get({ id: body.id });
     if (existing) {
@@ -69,8 +74,10 @@ export class PunchesService {
     const at = body.at ? new Date(body.at) : now;
     if (at.getTime() > now.getTime() + MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000)
       throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
-    if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
-      throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
+    if (at.getTime() < now.getTime() - maxAgeSeconds * 1000)
+      throw new BadRequestException(
+        `That punch is more than ${maxAgeSeconds / 3600} hours old: ask the foreman to add it`,
+      );
     const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
     if (line) this.assertMayPunchOn(line, body.kind, actor, now);
@@ -93,7 +100,7 @@ export class PunchesService {
 
     const row = this.queries.insert.get({ ...candidate, at, recordedAt: now, recordedBy: actor.id });
     const punch = toPunchDto(row!);
-    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
+    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [punch.technicianId] });
     this.floor.punchRecorded(punch);
     if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
       const taken = line.technicianId === null;
@@ -118,7 +125,11 @@ export class PunchesService {
           },
           now,
         );
-      this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
+      this.live.publish(
+        'job-line.updated',
+        { jobLine: toJobLineDto(updated) },
+        this.floor.lineAudience(updated),
+      );
       this.floor.linesChanged([line.id]);
     }
     return { punch, replayed: false };
@@ -147,7 +158,7 @@ export class PunchesService {
         .returning()
         .get();
       const punch = toPunchDto(row);
-      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId });
+      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [technicianId] });
       this.floor.punchRecorded(punch);
     }
     return technicianIds;

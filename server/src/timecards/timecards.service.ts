@@ -220,7 +220,7 @@ export class TimecardsService {
       detail: { supersedes: body.punchId ?? null, kind: body.kind, at: body.at, reason: body.reason },
     });
     const punch = toPunchDto(row);
-    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId: punch.technicianId });
+    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [punch.technicianId] });
     this.floor.punchRecorded(punch);
     return punch;
   }

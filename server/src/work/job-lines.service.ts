@@ -21,8 +21,10 @@ import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
+import { announceLine } from './announce-line.js';
 import { toJobLineDto } from './job-line.dto.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
+import { PartsService } from './parts.service.js';
 
 type LineRow = typeof jobLines.$inferSelect;
 
@@ -41,6 +43,7 @@ export class JobLinesService {
     private readonly access: LineAccessService,
     private readonly punches: PunchesService,
     private readonly webhooks: WebhookOutbox,
+    private readonly parts: PartsService,
   ) {}
 
   @Transactional()
@@ -97,17 +100,18 @@ export class JobLinesService {
   }
 
   @Transactional()
-  hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
+  hold(id: number, { reason, part }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
     this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
+    if (reason === 'parts') this.parts.noteHold(id, part, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
     this.audit.record({
       actorId: actor.id,
       action: 'hold',
       entity: 'job-line',
       entityId: id,
-      detail: { reason },
+      detail: { reason, ...(part && { part }) },
     });
     return this.announce(updated);
   }
@@ -365,11 +369,7 @@ export class JobLinesService {
   }
 
   private announce(line: LineRow): JobLineDto {
-    const jobLine = toJobLineDto(line);
-    this.live.publish('job-line.updated', { jobLine });
-    this.floor.linesChanged([line.id]);
-    this.floor.baysChanged();
-    return jobLine;
+    return announceLine(line, this.live, this.floor);
   }
 }
 

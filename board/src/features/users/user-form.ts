@@ -1,9 +1,7 @@
 import { z } from 'zod';
-import { createUserSchema, updateUserSchema, type Role, type UserDto } from '@baytime/shared';
+import { createUserSchema, updateUserSchema, type PersonRole, type UserDto } from '@baytime/shared';
 import { centsToDollars, dollarsToCents } from '@/lib/form-errors';
 import { checkedAsBody } from '@/lib/form';
-
-export type PersonRole = Exclude<Role, 'display'>;
 
 export const ROLE_LABELS: Record<PersonRole, string> = {
   owner: 'Owner',
@@ -76,7 +74,7 @@ export const EMPTY_USER: UserFields = {
 
 export function fieldsOf(user: UserDto): UserFields {
   return {
-    role: user.role === 'display' ? 'advisor' : user.role,
+    role: user.role === 'display' || user.role === 'kiosk' ? 'advisor' : user.role,
     name: user.name,
     email: user.email ?? '',
     password: '',

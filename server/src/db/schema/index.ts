@@ -8,3 +8,5 @@ export * from './sign-in.js';
 export * from './live.js';
 export * from './integration.js';
 export * from './approvals.js';
+export * from './parts.js';
+export * from './offline-punches.js';

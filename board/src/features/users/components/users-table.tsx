@@ -15,7 +15,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import type { Role, UserDto } from '@baytime/shared';
+import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
 import { formErrorText, formatMoney } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
@@ -85,7 +85,10 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
     );
 
   const sorted = [...users.data]
-    .filter((user): user is UserDto & { role: Exclude<Role, 'display'> } => user.role !== 'display')
+    .filter(
+      (user): user is UserDto & { role: PersonRole } =>
+        !(DEVICE_ROLES as readonly Role[]).includes(user.role),
+    )
     .sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name));
 
   return (

@@ -1,4 +1,4 @@
--- Rebuilding repair_orders for its CHECK (0011_constraints) dropped the triggers that keep the search index in step;
+-- Rebuilding repair_orders for its CHECK (0013_constraints) dropped the triggers that keep the search index in step;
 -- the index rows themselves kept their rowids, which are the RO ids the rebuild copied.
 CREATE TRIGGER `repair_orders_search_insert` AFTER INSERT ON `repair_orders` BEGIN
 	INSERT INTO `repair_orders_search` (`rowid`, `number`, `customer_name`, `customer_phone`, `phone_digits`, `plate`, `vin`)

@@ -72,6 +72,28 @@ CREATE TABLE `__new_shop_settings` (
 INSERT INTO `__new_shop_settings`("id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at") SELECT "id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at" FROM `shop_settings`;--> statement-breakpoint
 DROP TABLE `shop_settings`;--> statement-breakpoint
 ALTER TABLE `__new_shop_settings` RENAME TO `shop_settings`;--> statement-breakpoint
+CREATE TABLE `__new_screens` (
+	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,
+	`kind` text DEFAULT 'wall' NOT NULL,
+	`name` text NOT NULL,
+	`pairing_code_hash` text,
+	`pairing_expires_at` integer,
+	`paired_at` integer,
+	`last_seen_at` integer,
+	`revoked_at` integer,
+	`created_by` integer,
+	`created_at` integer NOT NULL,
+	`queue_waiting` integer DEFAULT 0 NOT NULL,
+	`queue_since` integer,
+	`queue_reported_at` integer,
+	FOREIGN KEY (`created_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	CONSTRAINT "screens_kind_check" CHECK("kind" in ('wall', 'kiosk'))
+);
+--> statement-breakpoint
+INSERT INTO `__new_screens`("id", "kind", "name", "pairing_code_hash", "pairing_expires_at", "paired_at", "last_seen_at", "revoked_at", "created_by", "created_at", "queue_waiting", "queue_since", "queue_reported_at") SELECT "id", "kind", "name", "pairing_code_hash", "pairing_expires_at", "paired_at", "last_seen_at", "revoked_at", "created_by", "created_at", "queue_waiting", "queue_since", "queue_reported_at" FROM `screens`;--> statement-breakpoint
+DROP TABLE `screens`;--> statement-breakpoint
+ALTER TABLE `__new_screens` RENAME TO `screens`;--> statement-breakpoint
+CREATE UNIQUE INDEX `screens_pairing_code_hash_idx` ON `screens` (`pairing_code_hash`);--> statement-breakpoint
 CREATE TABLE `__new_users` (
 	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,
 	`name` text NOT NULL,
@@ -86,7 +108,7 @@ CREATE TABLE `__new_users` (
 	`overtime_exempt` integer DEFAULT false NOT NULL,
 	`active` integer DEFAULT true NOT NULL,
 	`created_at` integer NOT NULL,
-	CONSTRAINT "users_role_check" CHECK("role" in ('owner', 'foreman', 'advisor', 'technician', 'display'))
+	CONSTRAINT "users_role_check" CHECK("role" in ('owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'))
 );
 --> statement-breakpoint
 INSERT INTO `__new_users`("id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "flat_rate_cents", "hourly_rate_cents", "overtime_exempt", "active", "created_at") SELECT "id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "flat_rate_cents", "hourly_rate_cents", "overtime_exempt", "active", "created_at" FROM `users`;--> statement-breakpoint
@@ -284,4 +306,51 @@ CREATE TABLE `__new_approval_link_findings` (
 INSERT INTO `__new_approval_link_findings`("link_id", "finding_id", "wording", "severity", "book_hours", "labour_rate_cents", "parts_cents") SELECT "link_id", "finding_id", "wording", "severity", "book_hours", "labour_rate_cents", "parts_cents" FROM `approval_link_findings`;--> statement-breakpoint
 DROP TABLE `approval_link_findings`;--> statement-breakpoint
 ALTER TABLE `__new_approval_link_findings` RENAME TO `approval_link_findings`;--> statement-breakpoint
-CREATE INDEX `approval_link_findings_finding_id_idx` ON `approval_link_findings` (`finding_id`);
+CREATE INDEX `approval_link_findings_finding_id_idx` ON `approval_link_findings` (`finding_id`);--> statement-breakpoint
+CREATE TABLE `__new_parts_holds` (
+	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,
+	`job_line_id` integer NOT NULL,
+	`part` text,
+	`state` text,
+	`supplier` text,
+	`expected_at` integer,
+	`received_at` integer,
+	`received_by` integer,
+	`created_at` integer NOT NULL,
+	`updated_at` integer NOT NULL,
+	FOREIGN KEY (`job_line_id`) REFERENCES `job_lines`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`received_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	CONSTRAINT "parts_holds_state_check" CHECK("state" in ('ordered', 'back-ordered'))
+);
+--> statement-breakpoint
+INSERT INTO `__new_parts_holds`("id", "job_line_id", "part", "state", "supplier", "expected_at", "received_at", "received_by", "created_at", "updated_at") SELECT "id", "job_line_id", "part", "state", "supplier", "expected_at", "received_at", "received_by", "created_at", "updated_at" FROM `parts_holds`;--> statement-breakpoint
+DROP TABLE `parts_holds`;--> statement-breakpoint
+ALTER TABLE `__new_parts_holds` RENAME TO `parts_holds`;--> statement-breakpoint
+CREATE UNIQUE INDEX `parts_holds_open_job_line_id_idx` ON `parts_holds` (`job_line_id`) WHERE "parts_holds"."received_at" is null;--> statement-breakpoint
+CREATE INDEX `parts_holds_job_line_id_idx` ON `parts_holds` (`job_line_id`);--> statement-breakpoint
+CREATE TABLE `__new_offline_punches` (
+	`id` text PRIMARY KEY NOT NULL,
+	`kiosk_id` integer NOT NULL,
+	`badge` text,
+	`technician_id` integer,
+	`kind` text NOT NULL,
+	`break_kind` text,
+	`at` integer NOT NULL,
+	`status` text NOT NULL,
+	`problem` text,
+	`received_at` integer NOT NULL,
+	`decided_at` integer,
+	`decided_by` integer,
+	FOREIGN KEY (`kiosk_id`) REFERENCES `screens`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`technician_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`decided_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	CONSTRAINT "offline_punches_kind_check" CHECK("kind" in ('shift-in', 'shift-out', 'break-start', 'break-end')),
+	CONSTRAINT "offline_punches_break_kind_check" CHECK("break_kind" in ('meal', 'rest')),
+	CONSTRAINT "offline_punches_status_check" CHECK("status" in ('unverified', 'refused', 'confirmed', 'rejected'))
+);
+--> statement-breakpoint
+INSERT INTO `__new_offline_punches`("id", "kiosk_id", "badge", "technician_id", "kind", "break_kind", "at", "status", "problem", "received_at", "decided_at", "decided_by") SELECT "id", "kiosk_id", "badge", "technician_id", "kind", "break_kind", "at", "status", "problem", "received_at", "decided_at", "decided_by" FROM `offline_punches`;--> statement-breakpoint
+DROP TABLE `offline_punches`;--> statement-breakpoint
+ALTER TABLE `__new_offline_punches` RENAME TO `offline_punches`;--> statement-breakpoint
+CREATE INDEX `offline_punches_status_at_idx` ON `offline_punches` (`status`,`at`);--> statement-breakpoint
+CREATE INDEX `offline_punches_technician_id_status_idx` ON `offline_punches` (`technician_id`,`status`);
