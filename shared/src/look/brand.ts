@@ -36,3 +36,18 @@ export const BAYTIME_MARK = {
     { d: 'M11 26h10', colour: BRAND_RAMP[160], width: 2.6 },
   ],
 } as const;
+
+/** The mark as one SVG document, for an `<img>`, a favicon or an app icon: every app shows this one. */
+export function baytimeMarkSvg(): string {
+  const { viewBox, tile, strokes } = BAYTIME_MARK;
+  const paths = strokes.map(
+    ({ d, colour, width }) =>
+      `<path d="${d}" fill="none" stroke="${colour}" stroke-width="${width}" stroke-linecap="round" stroke-linejoin="round"/>`,
+  );
+  return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="${viewBox}"><rect width="32" height="32" rx="${tile.rx}" fill="${tile.fill}"/>${paths.join('')}</svg>`;
+}
+
+/** The mark as a `data:` URL. */
+export function baytimeMarkUrl(): string {
+  return `data:image/svg+xml,${encodeURIComponent(baytimeMarkSvg())}`;
+}
