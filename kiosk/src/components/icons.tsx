@@ -1,4 +1,5 @@
 import type { SVGProps } from 'react';
+import { MEANING_ICON_PATHS, type MeaningIcon } from '@baytime/shared';
 
 /** Baytime's own line icons: 24-unit grid, 2-unit strokes, drawn to read at arm's length. */
 function Icon({ children, ...props }: SVGProps<SVGSVGElement>) {
@@ -100,11 +101,6 @@ export const AlertIcon = (p: P) => (
     <path d="M12 10v4.5M12 17.2v.1" strokeWidth={2.6} />
   </Icon>
 );
-export const FlagIcon = (p: P) => (
-  <Icon {...p}>
-    <path d="M6 21V4M6 4.5h11l-2.5 4 2.5 4H6" />
-  </Icon>
-);
 export const BellIcon = (p: P) => (
   <Icon {...p}>
     <path d="M6 16.5V11a6 6 0 0 1 12 0v5.5l1.5 2h-15zM10 20.5a2 2 0 0 0 4 0" />
@@ -160,15 +156,15 @@ export const ArrowLeftIcon = (p: P) => (
     <path d="M20 12H5M10.5 6.5L5 12l5.5 5.5" strokeWidth={2.6} />
   </Icon>
 );
-export const ShieldIcon = (p: P) => (
+
+/**
+ * A glyph drawn once in `shared` for a meaning that is not a bay state (priority, a finding's
+ * severity, the final check, idle), so the kiosk and the office draw the same one.
+ */
+export const MeaningGlyph = ({ name, ...p }: P & { name: MeaningIcon }) => (
   <Icon {...p}>
-    <path d="M12 3l7.5 3v5.5c0 4.5-3.2 8-7.5 9.5-4.3-1.5-7.5-5-7.5-9.5V6z" />
-    <path d="M12 8.5v4.5M12 16v.1" strokeWidth={2.6} />
-  </Icon>
-);
-export const EyeIcon = (p: P) => (
-  <Icon {...p}>
-    <path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z" />
-    <circle cx="12" cy="12" r="3" />
+    {MEANING_ICON_PATHS[name].map((d) => (
+      <path key={d} d={d} />
+    ))}
   </Icon>
 );
