@@ -70,7 +70,7 @@ const useStyles = makeStyles({
     position: 'absolute',
     top: 0,
     bottom: 0,
-    backgroundImage: 'repeating-linear-gradient(-45deg, #C4511A 0 4px, #0B0D10 4px 8px)',
+    backgroundImage: `repeating-linear-gradient(-45deg, ${tokens.colorStatusWarningBackground3} 0 4px, transparent 4px 8px)`,
   },
   book: {
     position: 'absolute',
