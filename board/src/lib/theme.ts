@@ -10,6 +10,9 @@ import { BRAND_RAMP, SIGNAL_PALETTE } from '@baytime/shared';
 export const baytimeBrand: BrandVariants = BRAND_RAMP;
 
 /** The wall's and the kiosk's type: Barlow for text, its semi-condensed cut for headings and the rail. */
+/** The wall's and the kiosk's heading type: the office rail and page titles use it too. */
+export const HEADING_FONT = "'Barlow Semi Condensed', 'Barlow', system-ui, sans-serif";
+
 const fonts = {
   fontFamilyBase: "'Barlow', 'Segoe UI', system-ui, sans-serif",
   fontFamilyNumeric: "'Barlow', 'Segoe UI', system-ui, sans-serif",
@@ -76,4 +79,20 @@ export const baytimeDarkTheme: Theme = {
   colorBrandForeground2: baytimeBrand[140],
   colorBrandForegroundLink: baytimeBrand[130],
   colorBrandForegroundLinkHover: baytimeBrand[140],
+};
+
+/**
+ * The office rail: the dark theme on the kiosk's blue-grey surfaces (page, raised, raised and
+ * pressed), so the office frame is drawn in the same colours as the tablets and the wall.
+ */
+export const baytimeRailTheme: Theme = {
+  ...baytimeDarkTheme,
+  colorNeutralBackground1: '#1C2630',
+  colorNeutralBackground1Hover: '#243140',
+  colorNeutralBackground1Pressed: '#2E3C4A',
+  colorNeutralBackground1Selected: '#243140',
+  colorNeutralStroke1: '#4A5D70',
+  colorNeutralStroke2: '#2E3C4A',
+  colorNeutralForeground2: '#C3CAD3',
+  colorNeutralForeground3: '#A6B4C0',
 };
