@@ -24,7 +24,7 @@ export const SIGNAL_PALETTE = {
   },
   /** Needs someone to look: over book time, forecast late, a caution, an error, the link lost. */
   attention: {
-    onDark: '#FF7B7B',
+    onDark: '#FF8282',
     onLight: '#B3263E',
     cue: 'the caution glyph; hatching on a bar past book time',
   },
