@@ -49,6 +49,13 @@ export const WrenchIcon = (p: P) => (
     <path d="M14.5 4.5a4.5 4.5 0 0 0-4.2 6.1L4.5 16.4a1.9 1.9 0 0 0 2.7 2.7l5.8-5.8a4.5 4.5 0 0 0 6.1-4.2l-2.7 2.2-2.6-.5-.5-2.6z" />
   </Icon>
 );
+/** The "My day" tab: a sun, so the wrench stays the Working state's. */
+export const DayIcon = (p: P) => (
+  <Icon {...p}>
+    <circle cx="12" cy="12" r="4" />
+    <path d="M12 2.5v2.2M12 19.3v2.2M2.5 12h2.2M19.3 12h2.2M5.3 5.3l1.5 1.5M17.2 17.2l1.5 1.5M5.3 18.7l1.5-1.5M17.2 6.8l1.5-1.5" />
+  </Icon>
+);
 export const QueueIcon = (p: P) => (
   <Icon {...p}>
     <path d="M5 7h14M5 12h14M5 17h8" />
