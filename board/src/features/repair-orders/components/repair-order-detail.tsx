@@ -122,15 +122,15 @@ type LineDialog =
 
 const STATUS = {
   open: { label: 'Open', color: 'brand' },
-  done: { label: 'Work done', color: 'success' },
+  done: { label: 'Work done', color: 'informative' },
   closed: { label: 'Closed', color: 'subtle' },
 } as const;
 
 const LINE_STATUS_COLOURS = {
   queued: 'informative',
   working: 'brand',
-  held: 'warning',
-  done: 'success',
+  held: 'important',
+  done: 'subtle',
   cancelled: 'subtle',
 } as const;
 
