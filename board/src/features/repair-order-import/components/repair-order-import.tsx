@@ -34,9 +34,9 @@ import { usePreviewRepairOrderImport } from '../api/preview-repair-order-import'
 
 const OUTCOME: Record<
   ImportedRepairOrder['outcome'],
-  { word: string; color: 'success' | 'informative' | 'danger' }
+  { word: string; color: 'brand' | 'informative' | 'danger' }
 > = {
-  new: { word: 'New', color: 'success' },
+  new: { word: 'New', color: 'brand' },
   known: { word: 'Already in Baytime', color: 'informative' },
   refused: { word: 'Has errors', color: 'danger' },
 };

@@ -44,9 +44,9 @@ const EVENT_WORDS: Record<WebhookEvent, string> = {
   'pay-week.closed': 'A pay week is closed',
 };
 
-const STATUS_BADGE: Record<WebhookDeliveryStatus, 'success' | 'warning' | 'danger'> = {
-  delivered: 'success',
-  pending: 'warning',
+const STATUS_BADGE: Record<WebhookDeliveryStatus, 'brand' | 'important' | 'danger'> = {
+  delivered: 'brand',
+  pending: 'important',
   failed: 'danger',
 };
 const STATUS_WORDS: Record<WebhookDeliveryStatus, string> = {
