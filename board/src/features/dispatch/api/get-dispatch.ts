@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { DispatchBoard } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export function getDispatch(): Promise<DispatchBoard> {
   return officeApi.get<DispatchBoard>('/dispatch');
@@ -9,7 +10,7 @@ export function getDispatch(): Promise<DispatchBoard> {
 /** Forecasts move with the clock: refetch each minute even when nothing on the floor changed. */
 export const dispatchQueryOptions = () =>
   queryOptions({
-    queryKey: ['dispatch'],
+    queryKey: queryKeys.dispatch(),
     queryFn: getDispatch,
     staleTime: 15_000,
     refetchInterval: 60_000,

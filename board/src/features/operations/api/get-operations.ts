@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { OperationDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The shop's active operations menu (the server lists only active ones). */
 export function getOperations(): Promise<OperationDto[]> {
@@ -9,7 +10,7 @@ export function getOperations(): Promise<OperationDto[]> {
 
 /** Same key as the RO intake's operations picker, so invalidating it refreshes both. */
 export const operationsQueryOptions = () =>
-  queryOptions({ queryKey: ['operations'], queryFn: getOperations });
+  queryOptions({ queryKey: queryKeys.operations(), queryFn: getOperations });
 
 export function useOperations() {
   return useQuery(operationsQueryOptions());

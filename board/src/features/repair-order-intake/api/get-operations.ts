@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { OperationDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The shop's menu of operations with their default book hours. */
 export function getOperations(): Promise<OperationDto[]> {
@@ -8,7 +9,7 @@ export function getOperations(): Promise<OperationDto[]> {
 }
 
 export const operationsQueryOptions = () =>
-  queryOptions({ queryKey: ['operations'], queryFn: getOperations, staleTime: 5 * 60_000 });
+  queryOptions({ queryKey: queryKeys.operations(), queryFn: getOperations, staleTime: 5 * 60_000 });
 
 export function useOperations() {
   return useQuery(operationsQueryOptions());

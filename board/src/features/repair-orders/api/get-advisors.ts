@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { UserDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The shop's people, for the advisor filter; only owners and foremen may read them. */
 export function getPeople(): Promise<UserDto[]> {
@@ -8,7 +9,7 @@ export function getPeople(): Promise<UserDto[]> {
 }
 
 export const peopleQueryOptions = () =>
-  queryOptions({ queryKey: ['users'], queryFn: getPeople, staleTime: 5 * 60_000 });
+  queryOptions({ queryKey: queryKeys.users(), queryFn: getPeople, staleTime: 5 * 60_000 });
 
 export function usePeople(enabled: boolean) {
   return useQuery({ ...peopleQueryOptions(), enabled });

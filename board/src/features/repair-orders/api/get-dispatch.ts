@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { DispatchBoard } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /**
  * The dispatch view, read here for what repair orders do not carry: technician names, bay names, time
@@ -11,7 +12,12 @@ export function getDispatch(): Promise<DispatchBoard> {
 }
 
 export const dispatchQueryOptions = () =>
-  queryOptions({ queryKey: ['dispatch'], queryFn: getDispatch, staleTime: 15_000, refetchInterval: 60_000 });
+  queryOptions({
+    queryKey: queryKeys.dispatch(),
+    queryFn: getDispatch,
+    staleTime: 15_000,
+    refetchInterval: 60_000,
+  });
 
 export function useDispatch() {
   return useQuery(dispatchQueryOptions());
