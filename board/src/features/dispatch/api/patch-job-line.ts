@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DispatchBoard, JobLineDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 import { applyMove, type MovePatch } from '../dispatch-model';
-import { dispatchQueryOptions } from './get-dispatch';
+import { dispatchQueryOptions } from '@/lib/api/get-dispatch';
 import { mutationKeys, queryKeys } from '@/lib/query-keys';
 
 export interface MoveLineVariables extends MovePatch {

@@ -7,7 +7,11 @@ export function getDispatch(): Promise<DispatchBoard> {
   return officeApi.get<DispatchBoard>('/dispatch');
 }
 
-/** Forecasts move with the clock: refetch each minute even when nothing on the floor changed. */
+/**
+ * The dispatch view: the dispatch page's board, and what repair orders read from it (technician and
+ * bay names, time clocked on open lines, forecasts). Forecasts move with the clock: it is fetched
+ * again each minute even when nothing on the floor changed.
+ */
 export const dispatchQueryOptions = () =>
   queryOptions({
     queryKey: queryKeys.dispatch(),
