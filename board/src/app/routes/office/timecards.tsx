@@ -3,7 +3,7 @@ import { MessageBar, MessageBarBody, Spinner } from '@fluentui/react-components'
 import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
 import { useShop } from '@/features/shop/api/get-shop';
-import { useUsers } from '@/features/users/api/get-users';
+import { useUsers } from '@/lib/api/get-users';
 import { TechnicianPicker } from '@/features/timecards/components/technician-picker';
 import { TimecardView } from '@/features/timecards/components/timecard-view';
 import { WeekPicker } from '@/features/timecards/components/week-picker';
