@@ -29,11 +29,11 @@ import {
   answeredText,
   groupAnswered,
   linkStateText,
-  sentToText,
   sortPending,
   type AnsweredGroup,
 } from '../findings-model';
 import { findingArrivals } from '@/lib/finding-arrivals';
+import { sentToText } from '@/lib/notice-words';
 import { useMinuteNow } from '@/hooks/use-minute-now';
 import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';

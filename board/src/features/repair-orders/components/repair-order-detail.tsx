@@ -43,7 +43,7 @@ import {
 import { EditRepairOrderDialog } from './edit-repair-order-dialog';
 import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
-import { sentToText } from '@/features/findings/findings-model';
+import { sentToText } from '@/lib/notice-words';
 import {
   formatBookHours,
   formatDateTime,
