@@ -51,7 +51,11 @@ describe('findings, approvals and e-mail', () => {
     const other = await ownerBrowser.newPage();
     await signInAtOffice(other, server, 'owner@marlowcreek.test');
     await other.goto(`${server.url}/dispatch`);
-    await other.getByRole('navigation', { name: 'Office' }).waitFor();
+    // The office's live link is up (the dispatch page says so) before the finding is sent.
+    await other
+      .getByRole('status')
+      .filter({ hasText: /^Live$/ })
+      .waitFor();
     await other.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
 
     const kiosk = await kioskBrowser.newPage();
@@ -85,7 +89,7 @@ describe('findings, approvals and e-mail', () => {
       .toMatch(/^(blob|data):/);
     await advisor.screenshot({ path: screenshotPath('finding-inbox') });
     // Wherever the other window is, it is told: a toast, and a count on Findings.
-    await other.getByText('A technician sent a finding').waitFor({ timeout: 5000 });
+    await other.getByText('A technician sent a finding').waitFor({ timeout: 15_000 });
     const findingsMenu = other
       .getByRole('navigation', { name: 'Office' })
       .getByRole('link', { name: /Findings/ });
@@ -129,7 +133,7 @@ describe('findings, approvals and e-mail', () => {
     board = await owner<BoardSnapshot>('GET', '/board');
     expect(board.bays.find((b) => b.name === line.bayName)!.state).not.toBe('held');
     // The other window shows it answered, without a reload.
-    await other.getByText(/Approved by Nell Ashby/).waitFor({ timeout: 5000 });
+    await other.getByText(/Approved by Nell Ashby/).waitFor({ timeout: 15_000 });
     expect(await other.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
       true,
     );

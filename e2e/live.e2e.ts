@@ -73,20 +73,26 @@ describe('kiosk to wall board', () => {
     await openWall(wall, server);
     const office = await (await openBrowser({ width: 1440, height: 900 })).newPage();
     await signInAtOffice(office, server, 'owner@marlowcreek.test');
-    await office.goto(`${server.url}/admin/bays`);
+    // The office's live link is up (the dispatch page says so) before the bay is added.
+    await office.goto(`${server.url}/dispatch`);
+    await office
+      .getByRole('status')
+      .filter({ hasText: /^Live$/ })
+      .waitFor();
+    await office.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Bays' }).click();
     const bays = office.getByRole('table', { name: 'Bays' });
     await bays.waitFor();
     for (const page of [wall, office])
       await page.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
 
     const added = await owner<BayDto>('POST', '/bays', { name: 'Wash bay' });
-    await bayTile(wall, 'Wash bay').waitFor({ timeout: 10_000 });
-    await bays.getByRole('row', { name: /Wash bay/ }).waitFor({ timeout: 10_000 });
+    await bayTile(wall, 'Wash bay').waitFor({ timeout: 20_000 });
+    await bays.getByRole('row', { name: /Wash bay/ }).waitFor({ timeout: 20_000 });
 
     await owner('PATCH', `/bays/${added.id}`, { active: false });
-    await bayTile(wall, 'Wash bay').waitFor({ state: 'detached', timeout: 10_000 });
+    await bayTile(wall, 'Wash bay').waitFor({ state: 'detached', timeout: 20_000 });
     await expect
-      .poll(() => bays.getByRole('row', { name: /Wash bay/ }).textContent(), { timeout: 10_000 })
+      .poll(() => bays.getByRole('row', { name: /Wash bay/ }).textContent(), { timeout: 20_000 })
       .toContain('Retired');
     for (const page of [wall, office])
       expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
