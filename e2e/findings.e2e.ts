@@ -22,20 +22,23 @@ describe('findings, approvals and e-mail', () => {
   let server: RunningServer;
   let kioskBrowser: BrowserContext;
   let officeBrowser: BrowserContext;
+  let ownerBrowser: BrowserContext;
   let owner: Api;
   beforeAll(async () => {
     server = await startServer();
     kioskBrowser = await openBrowser();
     officeBrowser = await openBrowser({ width: 1600, height: 1000 });
+    ownerBrowser = await openBrowser({ width: 1440, height: 900 });
     owner = await apiAs(server, 'owner@marlowcreek.test');
   });
   afterAll(async () => {
     await kioskBrowser?.close();
     await officeBrowser?.close();
+    await ownerBrowser?.close();
     await server?.stop();
   });
 
-  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving by phone frees the bay', async () => {
+  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving by phone frees the bay; another office window follows without a reload', async () => {
     const advisor = await officeBrowser.newPage();
     await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
     await advisor.goto(`${server.url}/findings`);
@@ -44,6 +47,16 @@ describe('findings, approvals and e-mail', () => {
       .or(advisor.getByRole('list', { name: 'Findings waiting for an answer' }))
       .first()
       .waitFor();
+    // A second office window, on another page when the finding comes in.
+    const other = await ownerBrowser.newPage();
+    await signInAtOffice(other, server, 'owner@marlowcreek.test');
+    await other.goto(`${server.url}/dispatch`);
+    // The office's live link is up (the dispatch page says so) before the finding is sent.
+    await other
+      .getByRole('status')
+      .filter({ hasText: /^Live$/ })
+      .waitFor();
+    await other.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
 
     const kiosk = await kioskBrowser.newPage();
     await signInAtKiosk(kiosk, server, '1041');
@@ -75,6 +88,16 @@ describe('findings, approvals and e-mail', () => {
       .poll(() => item.locator('img').first().getAttribute('src'), { timeout: 5000 })
       .toMatch(/^(blob|data):/);
     await advisor.screenshot({ path: screenshotPath('finding-inbox') });
+    // Wherever the other window is, it is told: a toast, and a count on Findings.
+    await other.getByText('A technician sent a finding').waitFor({ timeout: 15_000 });
+    const findingsMenu = other
+      .getByRole('navigation', { name: 'Office' })
+      .getByRole('link', { name: /Findings/ });
+    await expect.poll(() => findingsMenu.textContent()).toBe('Findings1');
+    await other.screenshot({ path: screenshotPath('finding-toast-office') });
+    await findingsMenu.click();
+    await other.getByRole('tab', { name: 'Answered' }).click();
+    await other.getByText(/No answered findings yet/).waitFor();
     let board = await owner<BoardSnapshot>('GET', '/board');
     expect(board.bays.find((b) => b.name === line.bayName)).toMatchObject({
       state: 'held',
@@ -109,6 +132,11 @@ describe('findings, approvals and e-mail', () => {
       .toBe(ro.lines.length + 1);
     board = await owner<BoardSnapshot>('GET', '/board');
     expect(board.bays.find((b) => b.name === line.bayName)!.state).not.toBe('held');
+    // The other window shows it answered, without a reload.
+    await other.getByText(/Approved by Nell Ashby/).waitFor({ timeout: 15_000 });
+    expect(await other.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
+      true,
+    );
     const answered = (await owner<FindingsPage>('GET', '/findings?answer=approved')).items;
     expect(answered.find((f) => f.id === finding!.id)).toMatchObject({
       answerChannel: 'phone',

@@ -1,9 +1,17 @@
 import { randomUUID } from 'node:crypto';
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { DispatchBoard, UserDto } from '@baytime/shared';
+import type { BayDto, DispatchBoard, UserDto } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
-import { apiAs, bayTile, openWall, peopleStrip, signInAtKiosk, type Api } from './support/floor.js';
+import {
+  apiAs,
+  bayTile,
+  openWall,
+  peopleStrip,
+  signInAtKiosk,
+  signInAtOffice,
+  type Api,
+} from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /**
@@ -56,5 +64,40 @@ describe('kiosk to wall board', () => {
     );
     await wall.screenshot({ path: screenshotPath('live-wall-1080p') });
     await kiosk.screenshot({ path: screenshotPath('live-kiosk') });
+  });
+
+  it('shows a bay added, then retired, on the open wall and in the office without a reload', async () => {
+    const owner = await apiAs(server, 'owner@marlowcreek.test');
+    const wall = await browser.newPage();
+    await wall.setViewportSize({ width: 1920, height: 1080 });
+    await openWall(wall, server);
+    const office = await (await openBrowser({ width: 1440, height: 900 })).newPage();
+    await signInAtOffice(office, server, 'owner@marlowcreek.test');
+    // The office's live link is up (the dispatch page says so) before the bay is added.
+    await office.goto(`${server.url}/dispatch`);
+    await office
+      .getByRole('status')
+      .filter({ hasText: /^Live$/ })
+      .waitFor();
+    await office.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Bays' }).click();
+    const bays = office.getByRole('table', { name: 'Bays' });
+    await bays.waitFor();
+    for (const page of [wall, office])
+      await page.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
+
+    const added = await owner<BayDto>('POST', '/bays', { name: 'Wash bay' });
+    await bayTile(wall, 'Wash bay').waitFor({ timeout: 20_000 });
+    await bays.getByRole('row', { name: /Wash bay/ }).waitFor({ timeout: 20_000 });
+
+    await owner('PATCH', `/bays/${added.id}`, { active: false });
+    await bayTile(wall, 'Wash bay').waitFor({ state: 'detached', timeout: 20_000 });
+    await expect
+      .poll(() => bays.getByRole('row', { name: /Wash bay/ }).textContent(), { timeout: 20_000 })
+      .toContain('Retired');
+    for (const page of [wall, office])
+      expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
+        true,
+      );
+    await office.context().close();
   });
 });

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { ApiError } from '@baytime/shared/client';
 import { officeApi } from './api-client';
+import { queryKeys } from './query-keys';
 
 /**
  * A finding photo's bytes, for the findings inbox and the repair-order page alike. An `<img>` cannot send the bearer token, so the page fetches the image and
@@ -14,7 +15,7 @@ export async function getPhoto(url: string): Promise<Blob> {
 
 export const photoQueryOptions = (url: string) =>
   queryOptions({
-    queryKey: ['finding-photo', url],
+    queryKey: queryKeys.findingPhoto(url),
     queryFn: () => getPhoto(url),
     // A stored photo never changes.
     staleTime: Infinity,

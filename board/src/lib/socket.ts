@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
 import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, LiveRefusal, ServerToClientEvents } from '@baytime/shared';
 import {
@@ -51,26 +51,28 @@ export function useLinkState(link: LiveLink | null): LinkState {
   return useSyncExternalStore(subscribe, getState, getState);
 }
 
-/** What a page's `wire` may listen to; its listeners go when the page does. */
-export interface LiveListener {
-  on<E extends keyof ServerToClientEvents>(event: E, handler: ServerToClientEvents[E]): void;
+/** The office link's state in three words: live, connecting, or down (refused counts as down). */
+export type OfficeLinkStatus = 'connecting' | 'live' | 'down';
+
+export function useOfficeLinkStatus(): OfficeLinkStatus {
+  const { status } = useLinkState(useOfficeLink());
+  return status === 'live' || status === 'connecting' ? status : 'down';
 }
 
-/**
- * A page's live updates over the office link while `token` is signed in: `wire` adds its
- * listeners; `onReconnect` runs when the link comes back, when messages may have been missed.
- */
-export function useOfficeLive(
-  token: string | null,
-  wire: (live: LiveListener) => void,
-  onReconnect: () => void,
-): LinkState {
+/** Runs `handler` on each of this live event while the office is signed in; the latest handler is used. */
+export function useOfficeEvent<E extends keyof ServerToClientEvents>(
+  event: E,
+  handler: ServerToClientEvents[E],
+): void {
   const link = useOfficeLink();
+  const latest = useRef(handler);
   useEffect(() => {
-    if (!token || !link) return;
-    const offs = [link.onReconnect(onReconnect)];
-    wire({ on: (event, handler) => void offs.push(link.on(event, handler)) });
-    return () => offs.forEach((off) => off());
-  }, [token, link, wire, onReconnect]);
-  return useLinkState(token ? link : null);
+    latest.current = handler;
+  }, [handler]);
+  useEffect(() => {
+    if (!link) return;
+    const relay = ((...args: Parameters<ServerToClientEvents[E]>) =>
+      (latest.current as (...a: typeof args) => void)(...args)) as ServerToClientEvents[E];
+    return link.on(event, relay);
+  }, [link, event]);
 }

@@ -7,13 +7,13 @@ import { listenToken } from '@/lib/listen-token';
 import { live } from '@/lib/socket';
 import { installAudioUnlock } from '@/lib/chime';
 import { setBeforeCommand } from '@/lib/commands';
-import { myDayRootKey } from '@/features/my-day/api/get-my-day';
 import { kick, startPunchQueue } from '@/features/punches/punch-queue';
 import { startQueueReports } from '@/features/punches/queue-report';
 import { kioskTheme } from './theme';
+import { queryKeys } from '@/lib/query-keys';
 
 function invalidateMyDay() {
-  void queryClient.invalidateQueries({ queryKey: myDayRootKey });
+  void queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() });
 }
 
 /**
@@ -32,13 +32,13 @@ function followTokens(): () => void {
     if (lastToken && session.lastSignOutReason() === 'expired') listenToken.clear(lastToken);
     lastToken = null;
     // Whoever signs out, by tap, idle or a refused token: their own data goes.
-    queryClient.removeQueries({ queryKey: ['me'] });
+    queryClient.removeQueries({ queryKey: queryKeys.me() });
     const token = listenToken.get();
     if (token) live.connect(token, () => listenToken.clear(token));
     else {
       live.disconnect();
-      queryClient.removeQueries({ queryKey: ['timers'] });
-      queryClient.removeQueries({ queryKey: ['bays'] });
+      queryClient.removeQueries({ queryKey: queryKeys.timers() });
+      queryClient.removeQueries({ queryKey: queryKeys.bays() });
     }
   };
   sync();

@@ -43,6 +43,7 @@ import {
 } from '../findings/findings.service.js';
 import { NoticesService } from '../findings/notices.service.js';
 import { PhotoStore } from '../findings/photo-store.js';
+import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { hashApprovalToken, newApprovalToken, TOKEN_PATTERN } from './approval-token.js';
 import type { ClientInfo } from './client-request.js';
@@ -68,6 +69,7 @@ export class ApprovalsService {
     private readonly findings: FindingsService,
     private readonly notices: NoticesService,
     private readonly photos: PhotoStore,
+    private readonly live: LiveService,
   ) {}
 
   /**
@@ -160,6 +162,7 @@ export class ApprovalsService {
         },
         now,
       );
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
     return {
       approvalUrl,
       expiresAt: link.expiresAt.toISOString(),
@@ -188,6 +191,7 @@ export class ApprovalsService {
       { actorId: actor.id, action: 'revoke', entity: 'approval-link', entityId: linkId },
       now,
     );
+    this.live.publish('repair-order.updated', { repairOrderId: link.repairOrderId });
     return toApprovalLinkDto(revoked, now);
   }
 

@@ -120,8 +120,13 @@ describe(ApprovalsService.name, () => {
     });
 
     it('sends one link for the reviewed findings of the RO and keeps only its hash', async () => {
+      const office = sut.connect(foreman);
+      await nextEvent(office, 'board.snapshot');
+      const told = nextEvent(office, 'repair-order.updated', (e) => e.repairOrderId === first.repairOrderId);
       sent = (await as(advisor).post(`/api/findings/${first.id}/request-approval`).expect(201))
         .body as ApprovalRequested;
+      // Other office windows show the finding as sent without a reload.
+      expect(await told).toMatchObject({ repairOrderId: first.repairOrderId });
       expect(sent.findingIds).toEqual([first.id, second.id]);
       expect(sent.approvalUrl).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/approve\/[A-Za-z0-9_-]{43}$/);
       const token = tokenOf(sent.approvalUrl);

@@ -343,7 +343,9 @@ export class FindingsService {
     };
     this.db.update(findings).set(quote).where(eq(findings.id, id)).run();
     this.audit.record({ actorId: actor.id, action: 'quote', entity: 'finding', entityId: id, detail: quote });
-    return this.get(id);
+    const dto = this.get(id);
+    this.live.publish('repair-order.updated', { repairOrderId: dto.repairOrderId });
+    return dto;
   }
 
   /**

@@ -7,6 +7,7 @@ import { Subject } from 'rxjs';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { shopSettings } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 
 const WEEKDAY_HOURS = { open: '07:30', close: '17:30' };
 
@@ -42,6 +43,7 @@ export class ShopService {
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
+    private readonly live: LiveService,
   ) {}
 
   settings(): ShopSettings {
@@ -75,6 +77,8 @@ export class ShopService {
     this.cached = null;
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'shop', entityId: 1, detail: body });
     this.uow.afterCommit(() => this.changed$.next(this.settings()));
+    // Every kiosk takes the split rule and idle sign-out from the settings.
+    this.live.publish('shop.updated', { shop: this.settings() }, { to: 'everyone' });
     return this.settings();
   }
 }

@@ -2,6 +2,7 @@ import type { AnswerChannel } from '../approvals/approvals.schema.js';
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
 import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { PunchDto } from '../punches/punches.schema.js';
+import type { ShopSettings } from '../shop/shop.schema.js';
 import type { JobLineDto } from '../work/work.schema.js';
 
 /** Every live message carries the shop-wide `seq`; a client that sees a gap asks for a snapshot. */
@@ -33,11 +34,33 @@ export interface ServerToClientEvents {
   'finding.answered': (
     event: Sequenced & { findingId: number; answer: 'approved' | 'declined'; channel: AnswerChannel },
   ) => void;
-  /** The RO itself changed: edited, closed, a notice sent, an answer recorded, a final check. */
+  /**
+   * The RO itself changed: edited, closed, a notice sent (ready notice, approval request), a link
+   * withdrawn, a quote saved, an answer recorded, a final check.
+   */
   'repair-order.updated': (event: Sequenced & { repairOrderId: number }) => void;
+  /** The owner saved the shop settings: every app reads them again (kiosks: split rule, idle sign-out). */
+  'shop.updated': (event: Sequenced & { shop: ShopSettings }) => void;
   /** The server ended this connection: the token expired, or its screen or account was changed. */
   'session.ended': (refusal: LiveRefusal) => void;
 }
+
+export type LiveEventName = keyof ServerToClientEvents;
+
+/** Every server event by name, at run time; a new event in the map fails to compile until it is here. */
+export const LIVE_EVENT_NAMES = Object.keys({
+  'board.snapshot': true,
+  'bay.updated': true,
+  'floor.updated': true,
+  'punch.recorded': true,
+  'job-line.updated': true,
+  'timer.updated': true,
+  'finding.created': true,
+  'finding.answered': true,
+  'repair-order.updated': true,
+  'shop.updated': true,
+  'session.ended': true,
+} satisfies Record<LiveEventName, true>) as LiveEventName[];
 
 export interface ClientToServerEvents {
   'board.snapshot': (ack: (snapshot: BoardSnapshot) => void) => void;

@@ -6,7 +6,6 @@ import {
   linkStateText,
   parseHours,
   severityHeadline,
-  sentToText,
   sortPending,
   titleHint,
   waitedText,
@@ -50,13 +49,6 @@ function finding(id: number, extra: Partial<FindingDto> = {}): FindingDto {
 }
 
 describe('findings inbox model', () => {
-  it('says where a notice went, phones as a person reads them', () => {
-    const mail = { mailId: 1, to: 'ada@example.test', subject: 'x', attachments: [] };
-    const text = { textId: 2, to: '+16085550177' };
-    expect(sentToText({ mail, text })).toBe('by e-mail to ada@example.test and by text to (608) 555-0177');
-    expect(sentToText({ mail: null, text })).toBe('by text to (608) 555-0177');
-  });
-
   it('says who answered and how', () => {
     expect(
       answeredText(finding(1, { answer: 'approved', answeredBy: 'Ada Finch', answerChannel: 'link' })),

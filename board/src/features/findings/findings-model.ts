@@ -5,7 +5,6 @@ import {
   type ApprovalLinkDto,
   type FindingDto,
   type FindingSeverity,
-  type NoticesQueued,
 } from '@baytime/shared';
 
 const SEVERITY_RANK: Record<FindingSeverity, number> = { 'safety-now': 0, soon: 1, watch: 2 };
@@ -84,15 +83,6 @@ export function titleHint(note: string, max = 120): string {
   const cut = line.slice(0, max - 1);
   const space = cut.lastIndexOf(' ');
   return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
-}
-
-/** Where a notice went: "by e-mail to a@b.test and by text to (608) 555-0177". */
-export function sentToText(queued: NoticesQueued): string {
-  const ways = [
-    queued.mail && `by e-mail to ${queued.mail.to}`,
-    queued.text && `by text to ${formatPhone(queued.text.to)}`,
-  ].filter(Boolean);
-  return ways.length ? ways.join(' and ') : 'nowhere';
 }
 
 /** "Approved by Harriet Quenby through the approval link", "Declined by Nell Ashby by phone". */

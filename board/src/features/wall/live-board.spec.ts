@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { liveRefusal, type BoardSnapshot } from '@baytime/shared';
+import { LIVE_EVENT_NAMES, liveRefusal, type BoardSnapshot } from '@baytime/shared';
 import type { LinkState, LiveLink } from '@baytime/shared/client';
 import { createLiveBoard } from './live-board';
 
@@ -113,6 +113,30 @@ describe(createLiveBoard.name, () => {
     link.requests[0]?.(snap(10));
     await vi.waitFor(() => expect(sut.getState().board?.seq).toBe(10));
     expect(sut.getState().board?.snapshot.bays[0]?.state).toBe('free');
+  });
+
+  it('counts the seq of every event the server sends, so none reads as a gap', () => {
+    const sut = make();
+    sut.start();
+    link.serve('board.snapshot', snap(5));
+    const others = LIVE_EVENT_NAMES.filter(
+      (event) =>
+        !['board.snapshot', 'bay.updated', 'floor.updated', 'shop.updated', 'session.ended'].includes(event),
+    );
+    others.forEach((event, index) => link.serve(event, { seq: 6 + index }));
+    expect(sut.getState().board?.seq).toBe(5 + others.length);
+    expect(link.requests).toHaveLength(0);
+  });
+
+  it('takes a fresh snapshot after the shop settings change: name and time zone come with it', async () => {
+    const sut = make();
+    sut.start();
+    link.serve('board.snapshot', snap(5));
+    link.serve('shop.updated', { seq: 6, shop: {} });
+    expect(sut.getState().board?.seq).toBe(6);
+    expect(link.requests).toHaveLength(1);
+    link.requests[0]?.({ ...snap(6), shop: { name: 'Renamed Shop', timeZone: 'UTC' } });
+    await vi.waitFor(() => expect(sut.getState().board?.snapshot.shop.name).toBe('Renamed Shop'));
   });
 
   it('asks again at the next gap when a request went unanswered', async () => {

@@ -1,4 +1,10 @@
-import type { BoardSnapshot, LiveRefusal, ServerToClientEvents } from '@baytime/shared';
+import {
+  LIVE_EVENT_NAMES,
+  type BoardSnapshot,
+  type LiveEventName,
+  type LiveRefusal,
+  type ServerToClientEvents,
+} from '@baytime/shared';
 import type { LinkStatus, LiveLink } from '@baytime/shared/client';
 import { applyEvent, boardFromSnapshot, type BoardData, type BoardEvent } from './board-store';
 
@@ -30,6 +36,15 @@ export interface LiveBoard {
 }
 
 type Payload<E extends keyof ServerToClientEvents> = Parameters<ServerToClientEvents[E]>[0];
+
+/** Events the board applies itself; `session.ended` carries no `seq` and is the link's. */
+const APPLIED: ReadonlySet<LiveEventName> = new Set([
+  'board.snapshot',
+  'bay.updated',
+  'floor.updated',
+  'shop.updated',
+  'session.ended',
+]);
 
 /**
  * The board kept true over a live link, free of React so it can be tested with a stand-in link:
@@ -91,12 +106,15 @@ export function createLiveBoard({
         ({ seq, people, queue, lateLines, bayIds, kioskQueues }: Payload<'floor.updated'>) =>
           onEvent({ type: 'floor.updated', seq, people, queue, lateLines, bayIds, kioskQueues }),
       ),
-      link.on('punch.recorded', other),
-      link.on('job-line.updated', other),
-      link.on('timer.updated', other),
-      link.on('finding.created', other),
-      link.on('finding.answered', other),
-      link.on('repair-order.updated', other),
+      // The shop's name, zone and rules are in the snapshot: a settings change asks for a fresh one.
+      link.on('shop.updated', ({ seq }: Payload<'shop.updated'>) => {
+        other({ seq });
+        resync();
+      }),
+      // Every other event only moves `seq` on, so a gap is still seen.
+      ...LIVE_EVENT_NAMES.filter((event) => !APPLIED.has(event)).map((event) =>
+        link.on(event, other as ServerToClientEvents[typeof event]),
+      ),
     ];
     refreshTimer = setInterval(resync, refreshEveryMs);
     set(fromLink());

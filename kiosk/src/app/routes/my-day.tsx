@@ -8,9 +8,8 @@ import { clockTime } from '@/lib/format';
 import { NoteIcon, TimerIcon } from '@/components/icons';
 import { SheetLoading } from '@/components/sheet-loading';
 import { ScreenProblem } from '@/components/screen-problem';
-import { myDayRootKey, useMyDay } from '@/features/my-day/api/get-my-day';
+import { useMyDay } from '@/features/my-day/api/get-my-day';
 import { useShop } from '@/features/shop/api/get-shop';
-import { useLiveMyDay } from '@/features/my-day/hooks/use-live-my-day';
 import { projectDay, type DayLine, type PendingPunch } from '@/features/my-day/project-day';
 import { statusText } from '@/features/my-day/status-text';
 import { partsInNotices, partsWaitText } from '@/features/my-day/parts-words';
@@ -25,6 +24,7 @@ import { useStopTimer } from '@/features/timers/api/stop-timer';
 import { useConfirmedPunches, useOutboxEntries } from '@/features/punches/hooks/use-outbox';
 import { usePunch } from '@/features/punches/hooks/use-punch';
 import '@/features/my-day/components/my-day.css';
+import { queryKeys } from '@/lib/query-keys';
 
 // Timers and findings load on first use; they are fetched ahead in a quiet moment so a tablet that
 // loses the Wi-Fi later can still open them.
@@ -60,7 +60,6 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const now = useNow(1000);
   const queryClient = useQueryClient();
   const [sheet, setSheet] = useState<OpenSheet | null>(null);
-  useLiveMyDay(technicianId, day.data?.lines.map((l) => l.id) ?? []);
 
   useEffect(() => {
     const timer = setTimeout(() => {
@@ -104,7 +103,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const timerByLine = new Map<number, TimerDto>();
   for (const timer of timers.data ?? []) if (timer.endedAt === null) timerByLine.set(timer.jobLineId, timer);
   const close = () => setSheet(null);
-  const refreshDay = () => void queryClient.invalidateQueries({ queryKey: myDayRootKey });
+  const refreshDay = () => void queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() });
   const readingTimer =
     sheet?.kind === 'reading' ? (timers.data ?? []).find((t) => t.id === sheet.timerId) : undefined;
 

@@ -1,5 +1,5 @@
 import type { PunchKind, Timecard, TimecardPunch, TimecardTotals } from '@baytime/shared';
-import { clockTime } from '../../lib/format';
+import { clockTime } from '@/lib/format';
 
 export interface PunchRow {
   id: string;

@@ -1,5 +1,5 @@
 import type { TimerDto, UnitSystem } from '@baytime/shared';
-import { clockTime, countdown, durationWords } from '../../lib/format';
+import { clockTime, countdown, durationWords } from '@/lib/format';
 import { showTemperature } from './temperature-entry';
 
 export interface TimerClock {

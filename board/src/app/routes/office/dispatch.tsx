@@ -1,15 +1,14 @@
 import { Badge } from '@fluentui/react-components';
-import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { PartsControl } from '@/features/parts/components/parts-control';
 import { useShop } from '@/features/shop/api/get-shop';
 import { useMinuteNow } from '@/hooks/use-minute-now';
 import { DispatchView } from '@/features/dispatch/components/dispatch-view';
-import { useLiveDispatch, type LiveLink } from '@/features/dispatch/hooks/use-live-dispatch';
+import { useOfficeLinkStatus, type OfficeLinkStatus } from '@/lib/socket';
 import { useOffice } from './office-context';
 
 export { PageError as ErrorBoundary } from './page-error';
 
-const LINK_BADGES: Record<LiveLink, { text: string; color: 'brand' | 'informative' | 'danger' }> = {
+const LINK_BADGES: Record<OfficeLinkStatus, { text: string; color: 'brand' | 'informative' | 'danger' }> = {
   live: { text: 'Live', color: 'brand' },
   connecting: { text: 'Connecting…', color: 'informative' },
   down: { text: 'Link lost: reconnecting', color: 'danger' },
@@ -17,8 +16,7 @@ const LINK_BADGES: Record<LiveLink, { text: string; color: 'brand' | 'informativ
 
 export function Component() {
   const { role } = useOffice();
-  const token = useOfficeToken();
-  const link = useLiveDispatch(token);
+  const link = useOfficeLinkStatus();
   const shop = useShop();
   const nowMs = useMinuteNow();
   const canEdit = role === 'owner' || role === 'foreman';

@@ -1,7 +1,5 @@
 import { useLocation, useParams } from 'react-router';
-import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { RepairOrderDetail } from '@/features/repair-orders/components/repair-order-detail';
-import { useLiveRepairOrders } from '@/features/repair-orders/hooks/use-live-repair-orders';
 import { PartsControl } from '@/features/parts/components/parts-control';
 import { useShop } from '@/features/shop/api/get-shop';
 import { useMinuteNow } from '@/hooks/use-minute-now';
@@ -15,7 +13,6 @@ export function Component() {
   const location = useLocation();
   const shop = useShop();
   const nowMs = useMinuteNow();
-  useLiveRepairOrders(useOfficeToken());
   const created = (location.state as { created?: boolean } | null)?.created === true;
   return (
     <>

@@ -2,9 +2,7 @@ import { useNavigate } from 'react-router';
 import { Button } from '@fluentui/react-components';
 import { PageHeader } from '@/components/page-header';
 import { paths } from '@/config/paths';
-import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { RepairOrdersTable } from '@/features/repair-orders/components/repair-orders-table';
-import { useLiveRepairOrders } from '@/features/repair-orders/hooks/use-live-repair-orders';
 import { useShop } from '@/features/shop/api/get-shop';
 import { useOffice } from './office-context';
 
@@ -14,7 +12,6 @@ export function Component() {
   const shop = useShop();
   const { user, role } = useOffice();
   const navigate = useNavigate();
-  useLiveRepairOrders(useOfficeToken());
   return (
     <>
       <PageHeader

@@ -4,7 +4,6 @@ import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
 import { useShop } from '@/features/shop/api/get-shop';
 import { ReportsView, type ReportTab } from '@/features/reports/components/reports-view';
-import { useReportsLive } from '@/features/reports/hooks/use-reports-live';
 import { WeekPicker } from '@/features/timecards/components/week-picker';
 import { currentWeek, readWeek, weekName, weekRangeText } from '@/features/timecards/week-label';
 import { useOffice } from './office-context';
@@ -15,7 +14,6 @@ export function Component() {
   const { role } = useOffice();
   const shop = useShop();
   const [params, setParams] = useSearchParams();
-  useReportsLive();
 
   const week = readWeek(params.get('week')) ?? (shop.data ? currentWeek(shop.data) : null);
   const tab: ReportTab = params.get('report') === 'pay' ? 'pay' : 'labour';

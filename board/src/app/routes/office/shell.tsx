@@ -1,19 +1,25 @@
-import { Suspense, useEffect } from 'react';
-import { Navigate, NavLink, Outlet, useLocation, useMatches } from 'react-router';
+import { Suspense, useEffect, useSyncExternalStore } from 'react';
+import { Navigate, NavLink, Outlet, useLocation, useMatches, useNavigate } from 'react-router';
 import {
   Button,
   Caption1,
   FluentProvider,
+  CounterBadge,
   Link,
   MessageBar,
   MessageBarBody,
   MessageBarTitle,
   Spinner,
   Text,
+  Toast,
+  ToastTitle,
+  Toaster,
   makeStyles,
   mergeClasses,
   shorthands,
   tokens,
+  useId,
+  useToastController,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
 import { WALL_BACKGROUND, type AuthUser } from '@baytime/shared';
@@ -25,6 +31,9 @@ import { useMe } from '@/features/auth/api/get-me';
 import { isOfficeRole } from '@/features/auth/api/login';
 import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { useSignOut } from '@/features/auth/hooks/use-sign-out';
+import { useLiveQueries } from '@/hooks/use-live-queries';
+import { findingArrivals } from '@/lib/finding-arrivals';
+import { useOfficeEvent } from '@/lib/socket';
 import type { OfficeHandle } from '../../router';
 
 const ROLE_LABELS: Record<OfficeRole, string> = {
@@ -221,6 +230,25 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
   const allowed = (matches.at(-1)?.handle as OfficeHandle | undefined)?.roles;
   const permitted = !allowed || allowed.includes(role);
   const groups = navFor(role);
+  const arrived = useSyncExternalStore(findingArrivals.subscribe, findingArrivals.get).size;
+  const toasterId = useId('office-toaster');
+  const { dispatchToast } = useToastController(toasterId);
+  const navigate = useNavigate();
+  const { pathname } = useLocation();
+  useLiveQueries();
+  // A finding reaches the advisor on whatever page they are: counted on the menu, and a toast.
+  useOfficeEvent('finding.created', ({ findingId }) => {
+    findingArrivals.add(findingId);
+    if (pathname === paths.findings) return;
+    dispatchToast(
+      <Toast>
+        <ToastTitle action={<Link onClick={() => navigate(paths.findings)}>Open findings</Link>}>
+          A technician sent a finding
+        </ToastTitle>
+      </Toast>,
+      { intent: 'info' },
+    );
+  });
 
   useEffect(() => {
     document.title = 'Baytime office';
@@ -228,6 +256,7 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
 
   return (
     <div className={styles.frame}>
+      <Toaster toasterId={toasterId} position="top-end" />
       <FluentProvider theme={baytimeRailTheme} className={styles.rail}>
         <aside className={styles.side}>
           <div className={styles.brand}>
@@ -245,6 +274,9 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
                     className={({ isActive }) => mergeClasses(styles.link, isActive && styles.active)}
                   >
                     {entry.label}
+                    {entry.path === paths.findings && arrived > 0 && (
+                      <CounterBadge count={arrived} size="small" aria-label={`${arrived} new`} />
+                    )}
                     {entry.coming && <span className={styles.coming}>coming</span>}
                   </NavLink>
                 ))}

@@ -3,11 +3,10 @@ import { MessageBar, MessageBarBody, Spinner } from '@fluentui/react-components'
 import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
 import { useShop } from '@/features/shop/api/get-shop';
-import { useUsers } from '@/features/users/api/get-users';
+import { useUsers } from '@/lib/api/get-users';
 import { TechnicianPicker } from '@/features/timecards/components/technician-picker';
 import { TimecardView } from '@/features/timecards/components/timecard-view';
 import { WeekPicker } from '@/features/timecards/components/week-picker';
-import { useTimecardLive } from '@/features/timecards/hooks/use-timecard-live';
 import { currentWeek, readWeek } from '@/features/timecards/week-label';
 
 export { PageError as ErrorBoundary } from './page-error';
@@ -16,7 +15,6 @@ export function Component() {
   const shop = useShop();
   const users = useUsers();
   const [params, setParams] = useSearchParams();
-  useTimecardLive();
 
   const technicians = (users.data ?? []).filter((user) => user.role === 'technician');
   const asked = Number(params.get('technician'));

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { PublicApproval } from '@baytime/shared';
 import { publicApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The customer's page, read with the link's token and nothing else. */
 export function getApproval(token: string): Promise<PublicApproval> {
@@ -8,7 +9,7 @@ export function getApproval(token: string): Promise<PublicApproval> {
 }
 
 export const approvalQueryOptions = (token: string) =>
-  queryOptions({ queryKey: ['customer-approval', token], queryFn: () => getApproval(token) });
+  queryOptions({ queryKey: queryKeys.customerApproval(token), queryFn: () => getApproval(token) });
 
 export function useApproval(token: string) {
   // One read: a used link answers 410, so coming back to the tab must not replace the thank-you.

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BayDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { dispatchQueryOptions } from './get-dispatch';
+import { dispatchQueryOptions } from '@/lib/api/get-dispatch';
 
 /** The road test or final look is done: a bay in check goes to ready. */
 export function recordFinalCheck(bayId: number): Promise<BayDto> {

@@ -2,7 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DispatchBoard, JobLineDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 import { applyMove, type MovePatch } from '../dispatch-model';
-import { dispatchQueryOptions } from './get-dispatch';
+import { dispatchQueryOptions } from '@/lib/api/get-dispatch';
+import { mutationKeys, queryKeys } from '@/lib/query-keys';
 
 export interface MoveLineVariables extends MovePatch {
   id: number;
@@ -12,7 +13,7 @@ export function patchJobLine({ id, ...patch }: MoveLineVariables): Promise<JobLi
   return officeApi.patch<JobLineDto>(`/job-lines/${id}`, patch);
 }
 
-export const MOVE_LINE_KEY = ['dispatch', 'move-line'] as const;
+export const MOVE_LINE_KEY = mutationKeys.moveLine();
 
 /** Moves a line at once on screen; puts it back if the server refuses. */
 export function useMoveLine() {
@@ -32,8 +33,8 @@ export function useMoveLine() {
     },
     onSettled: () => {
       // Repair orders show line assignments too.
-      void queryClient.invalidateQueries({ queryKey: ['repair-orders'] });
-      void queryClient.invalidateQueries({ queryKey: ['repair-order'] });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.repairOrders.all() });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.repairOrder.all() });
       if (queryClient.isMutating({ mutationKey: MOVE_LINE_KEY }) <= 1)
         return queryClient.invalidateQueries({ queryKey });
     },

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BayDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { dispatchQueryOptions } from './get-dispatch';
+import { dispatchQueryOptions } from '@/lib/api/get-dispatch';
 
 /** The vehicle has left: the bay is free again. */
 export function releaseBay(bayId: number): Promise<BayDto> {

@@ -25,7 +25,7 @@ import type { DispatchBoard } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
-import { useDispatch } from '../api/get-dispatch';
+import { useDispatch } from '@/lib/api/get-dispatch';
 import { MOVE_LINE_KEY, useMoveLine, type MoveLineVariables } from '../api/patch-job-line';
 import { useReleaseBay } from '../api/release-bay';
 import {

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ChangeFindingAnswerBody, FindingAnswerBody, FindingAnswerResult } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { findingsKey } from './get-findings';
+import { queryKeys } from '@/lib/query-keys';
 
 export function answerFinding({
   id,
@@ -17,7 +17,7 @@ export function useAnswerFinding() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: answerFinding,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: findingsKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.findings.all() }),
   });
 }
 
@@ -38,8 +38,8 @@ export function useChangeFindingAnswer() {
     mutationFn: changeFindingAnswer,
     onSuccess: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: findingsKey }),
-        queryClient.invalidateQueries({ queryKey: ['repair-order'] }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.findings.all() }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.repairOrder.all() }),
       ]),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ApprovalRequested } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { findingsKey } from './get-findings';
+import { queryKeys } from '@/lib/query-keys';
 
 /**
  * Sends the customer a link to approve or decline the reviewed findings of the repair order, by
@@ -15,6 +15,6 @@ export function useRequestApproval() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: requestApproval,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: findingsKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.findings.all() }),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ApprovalLinkDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { findingsKey } from './get-findings';
+import { queryKeys } from '@/lib/query-keys';
 
 /** Withdraws a link the customer has not answered: it stops working at once. */
 export function revokeApprovalLink(linkId: number): Promise<ApprovalLinkDto> {
@@ -12,6 +12,6 @@ export function useRevokeApprovalLink() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: revokeApprovalLink,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: findingsKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.findings.all() }),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { FindingDto, FindingQuoteBody } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { findingsKey } from './get-findings';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The wording the customer reads and the price they are quoted, as the advisor reviewed them. */
 export function saveQuote({ id, body }: { id: number; body: FindingQuoteBody }): Promise<FindingDto> {
@@ -12,6 +12,6 @@ export function useSaveQuote() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: saveQuote,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: findingsKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.findings.all() }),
   });
 }

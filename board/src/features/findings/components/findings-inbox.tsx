@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { paths } from '@/config/paths';
 import {
@@ -29,11 +29,11 @@ import {
   answeredText,
   groupAnswered,
   linkStateText,
-  sentToText,
   sortPending,
   type AnsweredGroup,
 } from '../findings-model';
-import { useFindingsLive } from '../hooks/use-findings-live';
+import { findingArrivals } from '@/lib/finding-arrivals';
+import { sentToText } from '@/lib/notice-words';
 import { useMinuteNow } from '@/hooks/use-minute-now';
 import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
@@ -183,15 +183,15 @@ export function FindingsInbox({
   const revoke = useRevokeApprovalLink();
   const mayAsk = role === 'advisor' || role === 'owner';
   const [requestResults, setRequestResults] = useState<Record<number, { ok: boolean; text: string }>>({});
-  const [fresh, setFresh] = useState<ReadonlySet<number>>(new Set());
+  const fresh = useSyncExternalStore(findingArrivals.subscribe, findingArrivals.get);
   const [dialog, setDialog] = useState<{
     kind: 'quote' | 'approve' | 'decline' | 'change';
     finding: FindingDto;
   } | null>(null);
   const [done, setDone] = useState<string | null>(null);
 
-  const onNew = useCallback((id: number) => setFresh((current) => new Set(current).add(id)), []);
-  useFindingsLive(onNew);
+  // Marked new while the inbox is open; once it is left they count as seen.
+  useEffect(() => findingArrivals.clear, []);
 
   const sorted = useMemo(() => sortPending(pending.data?.items ?? []), [pending.data]);
   const groups = useMemo(
@@ -232,11 +232,7 @@ export function FindingsInbox({
   const finish = (result: FindingAnswerResult) => {
     setDialog(null);
     setDone(answerSummary(result));
-    setFresh((current) => {
-      const next = new Set(current);
-      next.delete(result.finding.id);
-      return next;
-    });
+    findingArrivals.seen(result.finding.id);
   };
 
   const statusOf = (finding: FindingDto) => {

@@ -1,3 +1,4 @@
+import { queryKeys } from '@/lib/query-keys';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { IntegrationKeyDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
@@ -7,7 +8,7 @@ export function getIntegrationKeys(): Promise<IntegrationKeyDto[]> {
 }
 
 export const integrationKeysQueryOptions = () =>
-  queryOptions({ queryKey: ['integration-keys'], queryFn: getIntegrationKeys });
+  queryOptions({ queryKey: queryKeys.integrationKeys(), queryFn: getIntegrationKeys });
 
 /** Reloads now and then, so a key's last use shows without a reload. */
 export function useIntegrationKeys() {

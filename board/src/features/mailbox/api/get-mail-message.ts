@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { MailboxMessage } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export function getMailMessage(id: string): Promise<MailboxMessage> {
   return officeApi.get<MailboxMessage>(`/mailbox/${encodeURIComponent(id)}`);
@@ -8,7 +9,7 @@ export function getMailMessage(id: string): Promise<MailboxMessage> {
 
 export const mailMessageQueryOptions = (id: string) =>
   queryOptions({
-    queryKey: ['mailbox', 'message', id],
+    queryKey: queryKeys.mailbox.message(id),
     queryFn: () => getMailMessage(id),
     // A received message never changes.
     staleTime: Infinity,

@@ -1,13 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { MailboxEntry, Page } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The newest hundred messages the local test mail server received, newest first. */
 export function getMailbox(): Promise<Page<MailboxEntry>> {
   return officeApi.get<Page<MailboxEntry>>('/mailbox?limit=100');
 }
 
-export const mailboxQueryOptions = () => queryOptions({ queryKey: ['mailbox'], queryFn: getMailbox });
+export const mailboxQueryOptions = () =>
+  queryOptions({ queryKey: queryKeys.mailbox.all(), queryFn: getMailbox });
 
 export function useMailbox() {
   // Mail leaves the outbox in the background: look again every little while.

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { OfflinePunchDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { offlinePunchesKey } from './get-offline-punches';
+import { queryKeys } from '@/lib/query-keys';
 
 export type Decision = 'confirm' | 'reject';
 
@@ -14,6 +14,6 @@ export function useDecideOfflinePunch() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ id, decision }: { id: string; decision: Decision }) => decideOfflinePunch(id, decision),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: offlinePunchesKey }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: queryKeys.offlinePunches.all() }),
   });
 }

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { OfflinePunchDto, OfflinePunchStatus, Page } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** `GET /api/offline-punches?status=`: newest tapped first, one page of 100. */
 export function getOfflinePunches(status: OfflinePunchStatus | null): Promise<Page<OfflinePunchDto>> {
@@ -9,10 +10,11 @@ export function getOfflinePunches(status: OfflinePunchStatus | null): Promise<Pa
   );
 }
 
-export const offlinePunchesKey = ['offline-punches'] as const;
-
 export const offlinePunchesQueryOptions = (status: OfflinePunchStatus | null) =>
-  queryOptions({ queryKey: [...offlinePunchesKey, status], queryFn: () => getOfflinePunches(status) });
+  queryOptions({
+    queryKey: queryKeys.offlinePunches.byStatus(status),
+    queryFn: () => getOfflinePunches(status),
+  });
 
 export function useOfflinePunches(status: OfflinePunchStatus | null) {
   return useQuery({ ...offlinePunchesQueryOptions(status), refetchInterval: 30_000 });

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { OperationDto, UpdateOperationBody } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { operationsQueryOptions } from './get-operations';
+import { operationsQueryOptions } from '@/lib/api/get-operations';
 
 export function updateOperation({
   id,

@@ -28,7 +28,7 @@ import {
   type OperationDto,
 } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
-import { useOperations } from '../api/get-operations';
+import { useOperations } from '@/lib/api/get-operations';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateRepairOrderBody, JobLineDto, RepairOrderStatus } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** What the server answers with: the RO and its lines, with ids. */
 export interface CreatedRepairOrder {
@@ -21,9 +22,9 @@ export function useCreateRepairOrder() {
     // The lists, the vehicle's last visit and the dispatch queue (other features' queries) changed.
     onSuccess: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['repair-orders'] }),
-        queryClient.invalidateQueries({ queryKey: ['vehicle'] }),
-        queryClient.invalidateQueries({ queryKey: ['dispatch'] }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.repairOrders.all() }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.vehicles.all() }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.dispatch() }),
       ]),
   });
 }

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { KnownVehicle } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The vehicle with this VIN, its owner and last visit; null when the shop has not seen it. */
 export async function getKnownVehicle(vin: string): Promise<KnownVehicle | null> {
@@ -14,7 +15,11 @@ export async function getKnownVehicle(vin: string): Promise<KnownVehicle | null>
 }
 
 export const knownVehicleQueryOptions = (vin: string) =>
-  queryOptions({ queryKey: ['vehicle', vin], queryFn: () => getKnownVehicle(vin), staleTime: 60_000 });
+  queryOptions({
+    queryKey: queryKeys.vehicles.byVin(vin),
+    queryFn: () => getKnownVehicle(vin),
+    staleTime: 60_000,
+  });
 
 /** Asks once `vin` is set: a whole VIN, or one the advisor is about to save with a reason. */
 export function useKnownVehicle(vin: string | null) {

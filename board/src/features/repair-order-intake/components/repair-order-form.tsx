@@ -26,7 +26,7 @@ import { dateTimeFormat } from '@/lib/date-format';
 import { formErrorText } from '@/lib/form-errors';
 import { useCreateRepairOrder } from '../api/create-repair-order';
 import { useKnownVehicle } from '../api/get-known-vehicle';
-import { useOperations } from '../api/get-operations';
+import { useOperations } from '@/lib/api/get-operations';
 import {
   PROMISE_PASSED,
   bookHoursTotal,

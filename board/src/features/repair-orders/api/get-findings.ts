@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { FindingDto, FindingsPage } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** An RO's findings: a handful per visit, well inside one page. */
 export async function getRepairOrderFindings(repairOrderId: number): Promise<FindingDto[]> {
@@ -9,7 +10,7 @@ export async function getRepairOrderFindings(repairOrderId: number): Promise<Fin
 
 export const repairOrderFindingsQueryOptions = (repairOrderId: number) =>
   queryOptions({
-    queryKey: ['findings', { repairOrderId }],
+    queryKey: queryKeys.findings.ofRepairOrder(repairOrderId),
     queryFn: () => getRepairOrderFindings(repairOrderId),
   });
 

@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { RepairOrderPage, RepairOrderSummary } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export type { RepairOrderSummary };
 
@@ -9,12 +10,9 @@ export function getRepairOrderPage(query: string): Promise<RepairOrderPage> {
   return officeApi.get<RepairOrderPage>(`/repair-orders?${query}`);
 }
 
-/** Under `repairOrdersKey`: a change to any RO marks every page stale; only the page on screen reloads. */
-export const repairOrdersKey = ['repair-orders'] as const;
-
 export const repairOrderPageQueryOptions = (query: string) =>
   queryOptions({
-    queryKey: [...repairOrdersKey, 'page', query],
+    queryKey: queryKeys.repairOrders.page(query),
     queryFn: () => getRepairOrderPage(query),
     // The last page stays on screen while the next one loads, so the table does not jump.
     placeholderData: keepPreviousData,

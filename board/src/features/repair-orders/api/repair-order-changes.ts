@@ -10,7 +10,7 @@ import type {
   RepairOrderSummary,
 } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { repairOrdersKey } from './get-repair-orders';
+import { queryKeys } from '@/lib/query-keys';
 
 /** Every change to an RO from its page: the RO, its history, the lists and dispatch are read again. */
 function useRepairOrderChange<Vars, Result>(repairOrderId: number, send: (vars: Vars) => Promise<Result>) {
@@ -20,10 +20,10 @@ function useRepairOrderChange<Vars, Result>(repairOrderId: number, send: (vars: 
     onSuccess: () =>
       Promise.all(
         [
-          ['repair-order', repairOrderId],
-          ['repair-order-history', repairOrderId],
-          repairOrdersKey,
-          ['dispatch'],
+          queryKeys.repairOrder.one(repairOrderId),
+          queryKeys.repairOrderHistory.one(repairOrderId),
+          queryKeys.repairOrders.all(),
+          queryKeys.dispatch(),
         ].map((queryKey) => queryClient.invalidateQueries({ queryKey })),
       ),
   });

@@ -29,7 +29,7 @@ import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
 import { useRepairOrder } from '../api/get-repair-order';
 import { useRepairOrderFindings } from '../api/get-findings';
-import { useDispatch } from '../api/get-dispatch';
+import { useDispatch } from '@/lib/api/get-dispatch';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
 import { lineRows } from '../ro-model';
 import { useRepairOrderHistory } from '../api/get-history';
@@ -43,7 +43,7 @@ import {
 import { EditRepairOrderDialog } from './edit-repair-order-dialog';
 import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
-import { sentToText } from '@/features/findings/findings-model';
+import { sentToText } from '@/lib/notice-words';
 import {
   formatBookHours,
   formatDateTime,

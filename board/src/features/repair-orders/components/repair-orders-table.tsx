@@ -24,7 +24,7 @@ import {
 } from '@fluentui/react-components';
 import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
-import { usePeople } from '../api/get-advisors';
+import { useUsers } from '@/lib/api/get-users';
 import { useRepairOrderPage } from '../api/get-repair-orders';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import {
@@ -121,7 +121,7 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
   const pageIndex = cursors.length - 1;
   const orders = useRepairOrderPage(listQuery(filters, { limit: PAGE_SIZE, cursor: cursors[pageIndex] }));
   const lateCount = useRepairOrderPage(listQuery({ ...filters, late: true }, { limit: 1 })).data?.total;
-  const people = usePeople(canListPeople);
+  const people = useUsers(canListPeople);
   const advisors = advisorChoices(canListPeople ? people.data : undefined, me);
 
   const shown = orders.data?.items ?? [];

@@ -1,15 +1,14 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { LabourReport } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export function getLabourReport(week: string): Promise<LabourReport> {
   return officeApi.get<LabourReport>(`/reports/labour?week=${encodeURIComponent(week)}`);
 }
 
-export const reportsKey = ['reports'] as const;
-
 export const labourReportQueryOptions = (week: string) =>
-  queryOptions({ queryKey: [...reportsKey, 'labour', week], queryFn: () => getLabourReport(week) });
+  queryOptions({ queryKey: queryKeys.reports.labour(week), queryFn: () => getLabourReport(week) });
 
 export function useLabourReport(week: string) {
   return useQuery({ ...labourReportQueryOptions(week), placeholderData: keepPreviousData });

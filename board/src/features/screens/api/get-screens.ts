@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { KioskDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** A paired device: a wall screen (`/api/screens`) or a kiosk tablet (`/api/kiosks`). */
 export type DeviceKind = 'wall' | 'kiosk';
@@ -25,7 +26,7 @@ export function getScreens(kind: DeviceKind = 'wall'): Promise<WallScreenDto[]> 
 }
 
 export const screensQueryOptions = (kind: DeviceKind = 'wall') =>
-  queryOptions({ queryKey: [kind === 'wall' ? 'screens' : 'kiosks'], queryFn: () => getScreens(kind) });
+  queryOptions({ queryKey: queryKeys.screens(kind), queryFn: () => getScreens(kind) });
 
 export function useScreens(kind: DeviceKind = 'wall') {
   return useQuery({ ...screensQueryOptions(kind), refetchInterval: 15_000 });

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CorrectionBody, PunchDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { timecardsKey } from './get-timecard';
+import { queryKeys } from '@/lib/query-keys';
 
 export function createCorrection(body: CorrectionBody): Promise<PunchDto> {
   return officeApi.post<PunchDto>('/timecards/corrections', body);
@@ -11,6 +11,6 @@ export function useCreateCorrection() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createCorrection,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: timecardsKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.timecards.all() }),
   });
 }

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { JobLineDto, Page } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 import type { JobLineRef } from '../timecard-model';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The part of a `GET /api/repair-orders` row a missed job punch needs. */
 interface OpenRepairOrder {
@@ -36,7 +37,7 @@ export async function getOpenLines(): Promise<(JobLineRef & { technicianId: numb
 }
 
 export const openLinesQueryOptions = () =>
-  queryOptions({ queryKey: ['timecard-open-lines'], queryFn: getOpenLines, staleTime: 60_000 });
+  queryOptions({ queryKey: queryKeys.openLines(), queryFn: getOpenLines, staleTime: 60_000 });
 
 export function useOpenLines(enabled: boolean) {
   return useQuery({ ...openLinesQueryOptions(), enabled });

@@ -1,17 +1,16 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { Timecard } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export function getTimecard(technicianId: number, week: string): Promise<Timecard> {
   const query = new URLSearchParams({ technicianId: String(technicianId), week });
   return officeApi.get<Timecard>(`/timecards?${query.toString()}`);
 }
 
-export const timecardsKey = ['timecards'] as const;
-
 export const timecardQueryOptions = (technicianId: number, week: string) =>
   queryOptions({
-    queryKey: [...timecardsKey, technicianId, week],
+    queryKey: queryKeys.timecards.week(technicianId, week),
     queryFn: () => getTimecard(technicianId, week),
   });
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateUserBody, UserDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { usersQueryOptions } from './get-users';
+import { usersQueryOptions } from '@/lib/api/get-users';
 
 export function createUser(body: CreateUserBody): Promise<UserDto> {
   return officeApi.post<UserDto>('/users', body);

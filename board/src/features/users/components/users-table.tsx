@@ -17,7 +17,7 @@ import {
 } from '@fluentui/react-components';
 import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
 import { formErrorText, formatMoney } from '@/lib/form-errors';
-import { useUsers } from '../api/get-users';
+import { useUsers } from '@/lib/api/get-users';
 import { useUpdateUser } from '../api/update-user';
 import { ROLE_LABELS } from '../user-form';
 import { EditUserDialog } from './edit-user-dialog';

@@ -1,3 +1,4 @@
+import { queryKeys } from '@/lib/query-keys';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page, WebhookDeliveryDto } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
@@ -9,7 +10,10 @@ export function getWebhookDeliveries(cursor: string | null): Promise<Page<Webhoo
 }
 
 export const webhookDeliveriesQueryOptions = (cursor: string | null) =>
-  queryOptions({ queryKey: ['webhook-deliveries', cursor], queryFn: () => getWebhookDeliveries(cursor) });
+  queryOptions({
+    queryKey: queryKeys.webhookDeliveries.page(cursor),
+    queryFn: () => getWebhookDeliveries(cursor),
+  });
 
 /** The log reloads every few seconds: retries land in it by themselves. */
 export function useWebhookDeliveries(cursor: string | null) {

@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 export interface Health {
   ok: boolean;
@@ -10,7 +11,7 @@ export const getHealth = () => api.get<Health>('/health');
 
 export const healthQueryOptions = () =>
   queryOptions({
-    queryKey: ['health'],
+    queryKey: queryKeys.health(),
     queryFn: getHealth,
     retry: false,
     refetchInterval: 15_000,

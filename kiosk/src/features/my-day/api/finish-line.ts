@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { FinishLineBody, JobLineDto } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 import { sendCommand } from '@/lib/commands';
-import { myDayRootKey } from './get-my-day';
+import { queryKeys } from '@/lib/query-keys';
 
 /**
  * `POST /api/job-lines/:id/done`: clocks everyone off, marks the line done with its cause and
@@ -16,6 +16,6 @@ export function useFinishLine() {
   return useMutation({
     mutationFn: finishLine,
     retry: false,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: myDayRootKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() }),
   });
 }

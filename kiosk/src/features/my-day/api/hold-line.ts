@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { HoldLineBody, JobLineDto } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 import { sendCommand } from '@/lib/commands';
-import { myDayRootKey } from './get-my-day';
+import { queryKeys } from '@/lib/query-keys';
 
 /** `POST /api/job-lines/:id/hold`: the server clocks everyone off the line itself. */
 export const holdLine = ({ jobLineId, ...body }: HoldLineBody & { jobLineId: number }) =>
@@ -13,6 +13,6 @@ export function useHoldLine() {
   return useMutation({
     mutationFn: holdLine,
     retry: false,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: myDayRootKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() }),
   });
 }

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BayDto } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 import { sendCommand } from '@/lib/commands';
-import { myDayRootKey } from './get-my-day';
+import { queryKeys } from '@/lib/query-keys';
 
 /** `POST /api/bays/:id/final-check`: the road test or last look is done; the bay goes to ready. */
 export const recordFinalCheck = (bayId: number) =>
@@ -13,6 +13,6 @@ export function useRecordFinalCheck() {
   return useMutation({
     mutationFn: recordFinalCheck,
     retry: false,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: myDayRootKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() }),
   });
 }

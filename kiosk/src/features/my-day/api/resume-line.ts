@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { JobLineDto } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 import { sendCommand } from '@/lib/commands';
-import { myDayRootKey } from './get-my-day';
+import { queryKeys } from '@/lib/query-keys';
 
 /** `POST /api/job-lines/:id/resume`: the line is back in the queue, ready to clock on. */
 export const resumeLine = (jobLineId: number) =>
@@ -13,6 +13,6 @@ export function useResumeLine() {
   return useMutation({
     mutationFn: resumeLine,
     retry: false,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: myDayRootKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() }),
   });
 }

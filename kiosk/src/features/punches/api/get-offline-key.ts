@@ -1,6 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import type { OfflineKeyDto } from '@baytime/shared';
 import { deviceApi } from '@/lib/device';
+import { queryKeys } from '@/lib/query-keys';
 
 const KEY_STORE = 'baytime.kiosk.offline-key';
 
@@ -28,7 +29,7 @@ export async function fetchOfflineKey(): Promise<OfflineKeyDto> {
 /** Fetches the key while the tablet is paired and online, now and every hour. */
 export function useOfflineKey(paired: boolean) {
   return useQuery({
-    queryKey: ['offline-key'],
+    queryKey: queryKeys.offlineKey(),
     queryFn: fetchOfflineKey,
     enabled: paired,
     staleTime: 3600_000,

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ShopSettings, UnitSystem } from '@baytime/shared';
 import { api } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /**
  * The shop's name, time zone and units as last seen, so the keypad screen shows them (the shop's
@@ -29,7 +30,7 @@ export async function getShop(): Promise<ShopSettings> {
 }
 
 export const shopQueryOptions = () =>
-  queryOptions({ queryKey: ['shop'], queryFn: getShop, staleTime: 10 * 60_000 });
+  queryOptions({ queryKey: queryKeys.shop(), queryFn: getShop, staleTime: 10 * 60_000 });
 
 export function useShop(enabled = true) {
   return useQuery({ ...shopQueryOptions(), enabled });

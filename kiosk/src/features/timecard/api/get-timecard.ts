@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Timecard } from '@baytime/shared';
 import { api } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 
 /** `GET /api/timecards[?week=YYYY-Www]`: a technician gets their own card. */
 export const getTimecard = (week?: string) =>
@@ -9,7 +10,7 @@ export const getTimecard = (week?: string) =>
 /** Under `me`, so it goes with the technician when they sign out. */
 export const timecardQueryOptions = (technicianId: number, week?: string) =>
   queryOptions({
-    queryKey: ['me', 'timecard', technicianId, week ?? 'current'],
+    queryKey: queryKeys.timecards.week(technicianId, week),
     queryFn: () => getTimecard(week),
     staleTime: 30_000,
   });

@@ -1,7 +1,5 @@
 import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
-import { useQueryClient } from '@tanstack/react-query';
 import { audioState, playChime } from '@/lib/chime';
-import { onLive } from '@/lib/socket';
 import { useWatchToken } from '@/hooks/use-watch-token';
 import { tokenSubject } from '@/lib/listen-token';
 import {
@@ -13,7 +11,7 @@ import {
   type TimerAlert,
 } from '../alerts';
 import { finishedAt } from '../timer-status';
-import { timersQueryOptions, useTimers } from '../api/get-timers';
+import { useTimers } from '../api/get-timers';
 import { useBays } from '../api/get-bays';
 
 export const ANNOUNCED_KEY = 'baytime.kiosk.timer-alerts';
@@ -52,17 +50,9 @@ export function useTimerAlerts(): TimerAlerts {
   const technicianId = token === null ? null : tokenSubject(token);
   const timers = useTimers(token !== null);
   const bays = useBays(token !== null);
-  const queryClient = useQueryClient();
   const memory = useRef<AlertMemory | null>(null);
   const [alerts, setAlerts] = useState<TimerAlert[]>([]);
   const audioReady = useSyncExternalStore(audioState.subscribe, audioState.ready);
-
-  useEffect(() => {
-    const { queryKey } = timersQueryOptions();
-    const refresh = () => void queryClient.invalidateQueries({ queryKey });
-    const offs = [onLive('timer.updated', refresh), onLive('board.snapshot', refresh)];
-    return () => offs.forEach((off) => off());
-  }, [queryClient]);
 
   const data = timers.data;
   const fetchedAt = timers.dataUpdatedAt;
