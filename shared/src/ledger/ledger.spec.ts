@@ -4,6 +4,7 @@ import { PUNCH_KINDS, type BreakKind, type PunchKind } from '../punches/punches.
 import { shopLocalInstant } from '../time/workweek.js';
 import {
   buildLedger,
+  punchImpact,
   PUNCH_REFUSALS,
   technicianState,
   validatePunch,
@@ -12,8 +13,8 @@ import {
   type LedgerSettings,
 } from './ledger.js';
 
-const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2 };
-const single: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 1 };
+const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2, minimumMealMinutes: 30 };
+const single: LedgerSettings = { ...even, maxConcurrentJobs: 1 };
 const at = (hhmm: string) => `2026-03-10T${hhmm}:00Z`;
 const hours = (seconds: number) => seconds / 3600;
 let counter = 0;
@@ -50,10 +51,28 @@ describe(buildLedger.name, () => {
   const ledger = buildLedger(day, new Date(at('18:00')), even);
 
   it('turns a day of punches into intervals', () => {
-    expect(ledger.shifts).toEqual([{ from: new Date(at('08:00')), to: new Date(at('17:00')), open: false }]);
+    expect(ledger.shifts).toEqual([
+      { from: new Date(at('08:00')), to: new Date(at('17:00')), open: false, startPunchId: day[0]!.id },
+    ]);
     expect(ledger.breaks).toEqual([
-      { kind: 'rest', from: new Date(at('10:00')), to: new Date(at('10:15')), open: false },
-      { kind: 'meal', from: new Date(at('12:00')), to: new Date(at('12:30')), open: false },
+      {
+        kind: 'rest',
+        declared: 'rest',
+        endedBy: 'break-end',
+        from: new Date(at('10:00')),
+        to: new Date(at('10:15')),
+        open: false,
+        startPunchId: day[2]!.id,
+      },
+      {
+        kind: 'meal',
+        declared: 'meal',
+        endedBy: 'break-end',
+        from: new Date(at('12:00')),
+        to: new Date(at('12:30')),
+        open: false,
+        startPunchId: day[5]!.id,
+      },
     ]);
     expect(ledger.jobs.map((j) => j.jobLineId)).toEqual([1, 2, 1]);
     expect(ledger.anomalies).toEqual([]);
@@ -65,6 +84,73 @@ describe(buildLedger.name, () => {
     expect(hours(ledger.totals.attendanceSeconds)).toBe(8.5);
     expect(hours(ledger.totals.restBreakSeconds)).toBe(0.25);
     expect(hours(ledger.totals.mealBreakSeconds)).toBe(0.5);
+  });
+
+  describe('breaks classified by length as well as by button', () => {
+    // 29 CFR 785.19(a) (text checked in the eCFR): a bona fide meal period is ordinarily 30 minutes or more,
+    // and coffee or snack breaks are not meal periods; 785.18: rest periods of 5 to about 20 minutes are
+    // hours worked. The issue's example: shift 07:00–15:30 with a "meal" 11:00–11:20 → 8.5 h, not 8.17 h.
+    it('counts a 20-minute "meal" as paid rest: 8.5 h worked', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        pause('meal', '11:00'),
+        punch('break-end', '11:20'),
+        punch('shift-out', '15:30'),
+      ];
+      const result = buildLedger(shift, new Date(at('16:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8.5);
+      expect(result.totals.mealBreakSeconds).toBe(0);
+      expect(result.totals.restBreakSeconds).toBe(20 * 60);
+      expect(result.breaks[0]).toMatchObject({ kind: 'rest', declared: 'meal' });
+    });
+
+    // 8.5 h shift less a 30-minute bona fide meal = 8 h (785.19(a): 30 minutes ordinarily long enough).
+    it('keeps a meal of the minimum length unpaid, and follows the shop minimum', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        pause('meal', '11:00'),
+        punch('break-end', '11:30'),
+        punch('shift-out', '15:30'),
+      ];
+      expect(hours(buildLedger(shift, new Date(at('16:00')), even).totals.attendanceSeconds)).toBe(8);
+      const stricter = { ...even, minimumMealMinutes: 45 };
+      expect(hours(buildLedger(shift, new Date(at('16:00')), stricter).totals.attendanceSeconds)).toBe(8.5);
+    });
+
+    it('never counts a break of no stated kind as unpaid', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        punch('break-start', '11:00', { breakKind: null }),
+        punch('break-end', '11:45'),
+        punch('shift-out', '15:00'),
+      ];
+      const result = buildLedger(shift, new Date(at('16:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8);
+      expect(result.breaks[0]).toMatchObject({ kind: 'rest', declared: null });
+    });
+
+    it('counts an open meal as a meal so far', () => {
+      const result = buildLedger(
+        [punch('shift-in', '07:00'), pause('meal', '11:00')],
+        new Date(at('11:10')),
+        even,
+      );
+      expect(result.breaks[0]).toMatchObject({ kind: 'meal', open: true, endedBy: null });
+      expect(hours(result.totals.attendanceSeconds)).toBe(4);
+    });
+  });
+
+  it('drops a punch voided by a later row, and the voiding row stands for nothing', () => {
+    const shiftIn = punch('shift-in', '08:00');
+    const stray = punch('shift-out', '09:00');
+    const voided = punch('shift-out', '09:00', { supersedes: stray.id, voids: true });
+    const result = buildLedger(
+      [shiftIn, stray, voided, punch('shift-out', '12:00')],
+      new Date(at('13:00')),
+      even,
+    );
+    expect(result.anomalies).toEqual([]);
+    expect(hours(result.totals.attendanceSeconds)).toBe(4);
   });
 
   it('counts clocked time per line and idle time on shift', () => {
@@ -123,13 +209,17 @@ describe(buildLedger.name, () => {
       even,
     );
     expect(result.jobs[0]!.to).toEqual(new Date(at('12:00')));
-    expect(result.breaks[0]).toMatchObject({ to: new Date(at('12:30')), open: false });
+    expect(result.breaks[0]).toMatchObject({ to: new Date(at('12:30')), open: false, endedBy: 'shift-out' });
     expect(result.shifts[0]!.open).toBe(false);
   });
 
   it('runs open intervals to now', () => {
     const result = buildLedger([punch('shift-in', '08:00'), on(4, '09:00')], new Date(at('10:30')), even);
-    expect(result.shifts[0]).toEqual({ from: new Date(at('08:00')), to: new Date(at('10:30')), open: true });
+    expect(result.shifts[0]).toMatchObject({
+      from: new Date(at('08:00')),
+      to: new Date(at('10:30')),
+      open: true,
+    });
     expect(result.totals.jobSeconds).toEqual({ 4: 1.5 * 3600 });
   });
 
@@ -200,7 +290,7 @@ describe(buildLedger.name, () => {
     });
   });
 
-  // US Department of Labor hours-worked guidance (CHECKS.md §4): an 11:00 pm–7:30 am shift with a
+  // US Department of Labor hours-worked guidance: an 11:00 pm–7:30 am shift with a
   // 30-minute lunch is 7 h on spring-forward night and 9 h on fall-back night.
   it.each([
     ['2026-03-07', '2026-03-08', 7],
@@ -312,6 +402,40 @@ describe(validatePunch.name, () => {
   });
 });
 
+describe(punchImpact.name, () => {
+  // The issue's example: an offline tablet uploads a shift-out stamped before the day's last job punches.
+  const day = [punch('shift-in', '08:00'), on(1, '14:00'), off(1, '16:00'), punch('shift-out', '17:00')];
+
+  it('names the counted punches a late shift-out would make impossible', () => {
+    const late = punch('shift-out', '13:00');
+    const impact = punchImpact(day, late, even);
+    expect(impact.refusal).toBeNull();
+    expect(impact.displaced.map((p) => p.id)).toEqual([day[1]!.id, day[2]!.id, day[3]!.id]);
+    expect(impact.lowersCounted).toBe(true);
+  });
+
+  it('sees a late meal that a later shift-out would stretch over counted time', () => {
+    const meal = pause('meal', '12:00');
+    const impact = punchImpact([punch('shift-in', '08:00'), punch('shift-out', '17:00')], meal, even);
+    expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: true });
+  });
+
+  it('lets a punch after the last counted one change nothing counted', () => {
+    const meal = pause('meal', '12:00');
+    const impact = punchImpact([punch('shift-in', '08:00'), on(1, '09:00')], meal, even);
+    expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: false });
+  });
+
+  it('gives the refusal of a punch that does not fit itself', () => {
+    expect(punchImpact([], on(1, '09:00'), even).refusal).toBe(PUNCH_REFUSALS.notOnShift);
+  });
+
+  it('does not count a punch a correction replaces as displaced', () => {
+    const moved = punch('shift-out', '16:30', { supersedes: day[3]!.id });
+    expect(punchImpact(day, moved, even).displaced).toEqual([]);
+  });
+});
+
 describe(`${buildLedger.name} properties`, () => {
   const base = Date.parse('2026-03-10T06:00:00Z');
   const punchesArb = fc
@@ -342,6 +466,7 @@ describe(`${buildLedger.name} properties`, () => {
   const settingsArb = fc.record({
     concurrentSplit: fc.constantFrom('even' as const, 'full' as const),
     maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
+    minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
   });
   const now = new Date(base + 17 * 3600_000);
   const plain = ({ shifts, breaks, jobs, anomalies, totals }: Ledger) => ({

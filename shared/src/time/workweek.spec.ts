@@ -8,6 +8,7 @@ import {
   shopLocalInstant,
   workweekBounds,
   workweekDays,
+  workweekName,
   workweekOf,
 } from './workweek.js';
 
@@ -18,7 +19,7 @@ const hours = ({ from, to }: { from: Date; to: Date }) => (to.getTime() - from.g
 const noon = (day: string) => shopLocalInstant(day, '12:00', CHICAGO);
 
 describe(isoWeekOf.name, () => {
-  // CHECKS.md §4, ISO 8601 week dates: Monday start, week 1 holds the year's first Thursday.
+  // ISO 8601 week dates: Monday start, week 1 holds the year's first Thursday.
   it.each([
     ['2025-12-29', '2026-W01'],
     ['2026-12-31', '2026-W53'],
@@ -39,7 +40,7 @@ describe(isoWeekOf.name, () => {
 });
 
 describe(parseIsoWeek.name, () => {
-  it('accepts 2026-W53 because 2026 has 53 ISO weeks (CHECKS.md §4)', () => {
+  it('accepts 2026-W53 because 2026 has 53 ISO weeks ', () => {
     expect(parseIsoWeek('2026-W53')).toEqual({ year: 2026, week: 53 });
   });
 
@@ -66,7 +67,7 @@ describe(addIsoWeeks.name, () => {
 
 describe(workweekBounds.name, () => {
   it('is exactly the ISO week when the shop starts Monday 00:00', () => {
-    // CHECKS.md §4: 2025-12-29 is 2026-W01-1 and 2027-01-04 is 2027-W01-1, so W53 ends on 2027-01-04.
+    // ISO 8601: 2025-12-29 is 2026-W01-1 and 2027-01-04 is 2027-W01-1, so W53 ends on 2027-01-04.
     expect(workweekBounds('2026-W01', mondayStart).from).toEqual(
       shopLocalInstant('2025-12-29', '00:00', CHICAGO),
     );
@@ -75,7 +76,7 @@ describe(workweekBounds.name, () => {
     );
   });
 
-  // CHECKS.md §4: US DST, Energy Policy Act of 2005 (Pub. L. 109-58 §110): 8 March and 1 November 2026;
+  // US DST, Energy Policy Act of 2005 (Pub. L. 109-58 §110): 8 March and 1 November 2026;
   // 29 CFR 778.105: the workweek may start on any day and hour.
   it('lasts 167 h for the Sunday-start week from 2026-03-08 in America/Chicago', () => {
     const week = workweekBounds('2026-W10', sundayStart);
@@ -130,7 +131,7 @@ describe(shopDayKey.name, () => {
 });
 
 describe(shopLocalInstant.name, () => {
-  // US Department of Labor hours-worked guidance (CHECKS.md §4): an 11:00 pm–7:30 am shift with a
+  // US Department of Labor hours-worked guidance : an 11:00 pm–7:30 am shift with a
   // 30-minute lunch is 7 h on spring-forward night and 9 h on fall-back night.
   it.each([
     ['2026-03-07', '2026-03-08', 7],
@@ -168,5 +169,15 @@ describe(workweekDays.name, () => {
       from: shopLocalInstant('2026-11-01', '06:00', CHICAGO),
       to: shopLocalInstant('2026-11-02', '06:00', CHICAGO),
     });
+  });
+});
+
+describe(workweekName.name, () => {
+  // ISO 8601: 2026-W48 runs Mon Nov 23 – Sun Nov 29; a Sunday-start shop week that starts in it begins on
+  // Sunday Nov 29 (US DST ended on Nov 1, Pub. L. 109-58 §110, so it is a plain 168 h week).
+  it('names a Sunday-start workweek by its first day, not by the ISO week', () => {
+    expect(workweekName('2026-W48', sundayStart)).toBe('Week of Sun, Nov 29');
+    expect(workweekName('2026-W48', mondayStart)).toBe('Week of Mon, Nov 23');
+    expect(workweekName('2026-W53', sundayStart, true)).toBe('Week of Sun, Jan 3, 2027');
   });
 });

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { ROLES, type Role } from '../auth/auth.schema.js';
+import { PAY_TYPES, type PayRate } from '../pay/pay-types.js';
+import { localDateSchema } from '../shop/shop.schema.js';
 
 const cents = z.number().int().min(0).max(100_000_00);
 
@@ -21,6 +23,10 @@ export const createUserSchema = z
     flatRateCents: cents.optional(),
     hourlyRateCents: cents.optional(),
     overtimeExempt: z.boolean().optional(),
+    payType: z.enum(PAY_TYPES).optional(),
+    guaranteeCents: cents.optional(),
+    /** The first day (shop's zone) the rates apply; default today. */
+    effectiveFrom: localDateSchema.optional(),
   })
   .superRefine((user, ctx) => {
     if (user.role === 'technician') {
@@ -48,6 +54,10 @@ export const updateUserSchema = z
     hourlyRateCents: cents,
     overtimeExempt: z.boolean(),
     active: z.boolean(),
+    payType: z.enum(PAY_TYPES),
+    guaranteeCents: cents,
+    /** With a change of pay type, rate or overtime rule: the first day (shop's zone) it applies; default today. */
+    effectiveFrom: localDateSchema,
   })
   .partial()
   .strict();
@@ -64,6 +74,16 @@ export interface UserDto {
   hourlyRateCents: number;
   overtimeExempt: boolean;
   active: boolean;
+  /** With the rates above: those in force today. */
+  payType: PayRate['payType'];
+  guaranteeCents: number;
+  /** Every rate recorded, newest first: each applies from its date until the next. */
+  payRates: DatedPayRate[];
+}
+
+export interface DatedPayRate extends PayRate {
+  effectiveFrom: string;
+  recordedAt: string;
 }
 
 /** "Dana Okafor" → "Dana O.": what a wall screen may show of a person. */
