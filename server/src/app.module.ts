@@ -14,6 +14,8 @@ import { FindingsModule } from './findings/findings.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
+import { PayWeeksModule } from './pay-weeks/pay-weeks.module.js';
+import { PayrollModule } from './payroll/payroll.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ScreensModule } from './screens/screens.module.js';
@@ -47,6 +49,7 @@ export class AppModule {
         LiveModule,
         AuthModule,
         ShopModule,
+        PayrollModule,
         LabourModule,
         UsersModule,
         BaysModule,
@@ -56,6 +59,7 @@ export class AppModule {
         WorkModule,
         TimecardsModule,
         ReportsModule,
+        PayWeeksModule,
         TimersModule,
         DispatchModule,
         FindingsModule,

@@ -5,6 +5,7 @@ import {
   bays,
   customers,
   jobLines,
+  payRates,
   punches,
   repairOrders,
   shopSettings,
@@ -50,12 +51,22 @@ export async function seedSyntheticYear(
           role: 'technician',
           badge: String(50_000 + t),
           pinHash,
-          flatRateCents: 2500,
-          hourlyRateCents: 1500,
           createdAt,
         })
         .returning()
         .get().id;
+      tx.insert(payRates)
+        .values({
+          userId: id,
+          effectiveFrom: '2000-01-01',
+          payType: 'flat-rate',
+          flatRateCents: 2500,
+          hourlyRateCents: 1500,
+          guaranteeCents: 0,
+          overtimeExempt: false,
+          recordedAt: createdAt,
+        })
+        .run();
       technicianIds.push(id);
     }
     for (let t = 0; t < idleTechnicians; t++) {

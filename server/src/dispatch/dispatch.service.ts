@@ -7,7 +7,7 @@ import {
   type OnModuleInit,
 } from '@nestjs/common';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
-import { and, eq, gte } from 'drizzle-orm';
+import { and, eq, gte, isNull, ne, or } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
   shareFlaggedHours,
@@ -27,8 +27,6 @@ import { ShopService } from '../shop/shop.service.js';
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
-/** A technician's own efficiency drives forecasts only after this much clocked time in four weeks. */
-const MIN_CLOCKED_HOURS_FOR_EFFICIENCY = 8;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
@@ -50,7 +48,7 @@ interface Efficiencies {
 export class DispatchService implements OnModuleInit, OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger(DispatchService.name);
   private subscription: Subscription | null = null;
-  private efficiencyCache: { at: number; values: Efficiencies } | null = null;
+  private efficiencyCache: { at: number; minimumHours: number; values: Efficiencies } | null = null;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -106,6 +104,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       bayId: line.bayId,
       promisedAt: line.promisedAt?.toISOString() ?? null,
       queuedAt: line.queuedAt.toISOString(),
+      signOff: line.signOff,
       clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
       clockedOn: clockedOn.get(line.id) ?? [],
       forecast: null,
@@ -178,13 +177,23 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
    * something, and for the whole shop; cached for a few minutes.
    */
   private efficiencies(now: Date): Efficiencies {
-    if (this.efficiencyCache && now.getTime() - this.efficiencyCache.at < EFFICIENCY_CACHE_MS)
-      return this.efficiencyCache.values;
+    // A technician's own efficiency drives forecasts only after the shop's minimum of clocked hours.
+    const minimumHours = this.shop.settings(now).minimumClockedHoursForEfficiency;
+    const cached = this.efficiencyCache;
+    if (cached && cached.minimumHours === minimumHours && now.getTime() - cached.at < EFFICIENCY_CACHE_MS)
+      return cached.values;
     const from = new Date(now.getTime() - FOUR_WEEKS_MS);
     const done = this.db
       .select()
       .from(jobLines)
-      .where(and(eq(jobLines.status, 'done'), gte(jobLines.completedAt, from)))
+      .where(
+        and(
+          eq(jobLines.status, 'done'),
+          gte(jobLines.completedAt, from),
+          // A line done without clocked time counts only once signed off (it once showed 2,819 %).
+          or(isNull(jobLines.signOff), ne(jobLines.signOff, 'awaiting')),
+        ),
+      )
       .all();
     const lineSeconds = this.labour.lineSeconds(
       done.map((l) => l.id),
@@ -208,13 +217,13 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
             .clockedSeconds / 3600;
         shopFlagged += flagged.get(id) ?? 0;
         shopClocked += clocked;
-        const enough = clocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY;
+        const enough = clocked >= minimumHours;
         return [id, enough ? (flagged.get(id) ?? 0) / clocked : null] as const;
       }),
     );
-    const shop = shopClocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY ? shopFlagged / shopClocked : null;
+    const shop = shopClocked >= minimumHours ? shopFlagged / shopClocked : null;
     const values = { byTechnician, shop };
-    this.efficiencyCache = { at: now.getTime(), values };
+    this.efficiencyCache = { at: now.getTime(), minimumHours, values };
     return values;
   }
 }

@@ -1,13 +1,14 @@
 import { Module } from '@nestjs/common';
 import { FloorModule } from '../floor/floor.module.js';
 import { MyDayService } from './my-day.service.js';
+import { PunchLedgerService } from './punch-ledger.service.js';
 import { PunchesController } from './punches.controller.js';
 import { PunchesService } from './punches.service.js';
 
 @Module({
   imports: [FloorModule],
   controllers: [PunchesController],
-  providers: [PunchesService, MyDayService],
-  exports: [PunchesService],
+  providers: [PunchesService, MyDayService, PunchLedgerService],
+  exports: [PunchesService, PunchLedgerService],
 })
 export class PunchesModule {}

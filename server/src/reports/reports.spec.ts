@@ -189,11 +189,16 @@ describe(ReportsService.name, () => {
     await punch(ids.d, 'shift-out', at(tuesday, '12:00'));
     await finish(lineIds.s, at(tuesday, '11:06'));
 
-    // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job.
+    // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job; a
+    // 30-minute meal at 11:00 each day and a second one at 17:00 on the 13-hour Wednesday (Labor Code 512).
     const before = workweekDays(addIsoWeeks(week, -1), shop).filter(isWeekday);
-    const ends = ['17:00', '15:00', '20:00', '15:00', '15:00'];
+    const ends = ['17:30', '15:30', '21:00', '15:30', '15:30'];
     for (const [i, day] of before.entries()) {
       await punch(ids.e, 'shift-in', at(day, '07:00'));
+      for (const meal of i === 2 ? ['11:00', '17:00'] : ['11:00']) {
+        await punch(ids.e, 'break-start', at(day, meal));
+        await punch(ids.e, 'break-end', at(day, meal.replace(':00', ':30')));
+      }
       await punch(ids.e, 'shift-out', at(day, ends[i]!));
     }
   }, 120_000);
@@ -208,7 +213,9 @@ describe(ReportsService.name, () => {
       to: to.toISOString(),
       timeZone: 'America/Chicago',
     });
-    expect(report.formulas.efficiency).toBe('Efficiency = flagged hours ÷ clocked job hours');
+    expect(report.formulas.efficiency).toMatch(
+      /^Efficiency = flagged hours of the lines finished this week ÷/,
+    );
     expect(report.guidelines.efficiency).toEqual({ low: 1.25, high: 1.25 });
 
     // Ada: 5 × 10 h = 50 h attendance, 5 × 9.2 h = 46 h clocked, 49.1 h flagged →
@@ -229,17 +236,23 @@ describe(ReportsService.name, () => {
     expect(ada.lines[0]).toMatchObject({ bookHours: 5.4, flaggedHours: 5.4, clockedHours: 4.8 });
     expect(ada.lines[0]!.overUnderHours).toBeCloseTo(0.6, 6);
 
-    // NADA definitions via a dealer association bulletin "Measuring technician performance" (CHECKS.md §3):
-    // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance,
-    // 5 × 7.2 h clocked, 5 × 9.0 h flagged.
+    // NADA definitions via a dealer association bulletin "Measuring technician performance": available 40 h,
+    // worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance, 5 × 7.2 h
+    // clocked, 5 × 9.0 h flagged; every line finished in the week, so the matched basis is the 36 h.
     const bram = rowOf(report, ids.b);
-    expect(bram).toMatchObject({ attendanceHours: 40, clockedHours: 36, flaggedHours: 45 });
+    expect(bram).toMatchObject({
+      attendanceHours: 40,
+      clockedHours: 36,
+      flaggedHours: 45,
+      matchedClockedHours: 36,
+      workInProgressHours: 0,
+    });
     expect(bram.productivity).toBeCloseTo(0.9, 6);
     expect(bram.efficiency).toBeCloseTo(1.25, 6);
     expect(bram.proficiency).toBeCloseTo(1.125, 6);
 
-    // The shared 2.0 h line by clocked time: Cleo 2.0 × 3/4 = 1.5 h, Dex 2.0 × 1/4 = 0.5 h; Dex also gets
-    // the 0.4 h line nobody clocked on, as its assigned technician (common practice, no published source).
+    // The shared 2.0 h line by clocked time: Cleo 2.0 × 3/4 = 1.5 h, Dex 2.0 × 1/4 = 0.5 h. Dex's 0.4 h line
+    // nobody clocked on waits for a foreman's sign-off: not flagged yet.
     const cleo = rowOf(report, ids.c);
     const dex = rowOf(report, ids.d);
     expect(cleo).toMatchObject({
@@ -249,8 +262,7 @@ describe(ReportsService.name, () => {
       productivity: 0.75,
     });
     expect(cleo.efficiency).toBeCloseTo(0.5, 6);
-    expect(dex).toMatchObject({ attendanceHours: 4, clockedHours: 1, productivity: 0.25 });
-    expect(dex.flaggedHours).toBeCloseTo(0.9, 6);
+    expect(dex).toMatchObject({ attendanceHours: 4, clockedHours: 1, productivity: 0.25, flaggedHours: 0.5 });
     expect(cleo.lines).toEqual([
       expect.objectContaining({
         jobLineId: lineIds.s,
@@ -266,20 +278,15 @@ describe(ReportsService.name, () => {
         clockedHours: 1,
         overUnderHours: -0.5,
       }),
-      expect.objectContaining({
-        jobLineId: lineIds.u,
-        flaggedHours: 0.4,
-        clockedHours: 0,
-        overUnderHours: 0.4,
-      }),
     ]);
 
     // Shop: hours summed first. 50 + 40 + 4 + 4 = 98 h attendance, 46 + 36 + 3 + 1 = 86 h clocked,
-    // 49.1 + 45 + 1.5 + 0.9 = 96.5 h flagged → 86/98, 96.5/86, 96.5/98.
-    expect(report.shop).toMatchObject({ attendanceHours: 98, clockedHours: 86, flaggedHours: 96.5 });
+    // 49.1 + 45 + 1.5 + 0.5 = 96.1 h flagged → 86/98, 96.1/86, 96.1/98.
+    expect(report.shop).toMatchObject({ attendanceHours: 98, clockedHours: 86, flaggedHours: 96.1 });
     expect(report.shop.productivity).toBeCloseTo(86 / 98, 6);
-    expect(report.shop.efficiency).toBeCloseTo(96.5 / 86, 6);
-    expect(report.shop.proficiency).toBeCloseTo(96.5 / 98, 6);
+    expect(report.shop.efficiency).toBeCloseTo(96.1 / 86, 6);
+    expect(report.shop.proficiency).toBeCloseTo(96.1 / 98, 6);
+    expect(report.weekName).toMatch(/^Week of Sun, [A-Z][a-z]{2} \d{1,2}$/);
   });
 
   it('shows the shop trend over 12 weeks: null ratios where nothing was worked', async () => {
@@ -321,7 +328,7 @@ describe(ReportsService.name, () => {
     expect(bay.week).toBeCloseTo(0.81, 6);
   });
 
-  // 29 CFR 778.111(a), CHECKS.md §1 vector A: 50 h worked; $491.00 piece pay for 46 productive hours;
+  // 29 CFR 778.111(a), the pieceworker example: 50 h worked; $491.00 piece pay for 46 productive hours;
   // 4 h waiting at $8.00 → straight time $523.00, regular rate $523.00 ÷ 50 = $10.46, premium
   // 10 × $5.23 = $52.30, total $575.30 (= 40 × $10.46 + 10 × $15.69). Ada's week: 49.1 flagged h × $10.00
   // = $491.00; idle 07:00–07:06, 11:54–12:00, 12:30–12:36 and 17:00–17:30 = 0.8 h a day = 4 h × $8.00.
@@ -333,11 +340,21 @@ describe(ReportsService.name, () => {
     expect(ada).toEqual({
       technicianId: ids.a,
       name: 'Ada Vexley',
+      payType: 'flat-rate',
       flatRateCents: 10_00,
       hourlyRateCents: 8_00,
+      guaranteeCents: 0,
       overtimeExempt: false,
+      rateFrom: '2000-01-01',
       flaggedHours: 49.1,
       flaggedPayCents: 491_00,
+      guaranteeTopUpCents: 0,
+      hourlyPayCents: 0,
+      restHours: 0,
+      restRateCents: null,
+      restPayCents: 0,
+      otherNonProductiveHours: 4,
+      otherNonProductivePayCents: 32_00,
       nonProductivePayCents: 32_00,
       straightTimeCents: 523_00,
       hoursWorked: 50,
@@ -346,29 +363,39 @@ describe(ReportsService.name, () => {
       doubleTimeHours: 0,
       overtimePremiumCents: 52_30,
       minimumWageTopUpCents: 0,
+      mealPremiumDays: 0,
+      mealPremiumCents: 0,
       totalCents: 575_30,
+      additionalOvertime: [],
+      additionalOvertimeCents: 0,
+      adjustments: [],
+      adjustmentCents: 0,
+      payableCents: 575_30,
       underMinimumWage: false,
       nearOvertime: false,
+      exceptions: [],
+      unresolvedExceptions: 0,
     });
     expect(ada.totalCents).toBe(40 * 10_46 + 10 * 15_69);
   });
 
-  // 29 USC 206(a)(1)(C), CHECKS.md §1: $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
-  // h × $16.00 = $14.40 and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 → top-up $14.60.
+  // 29 USC 206(a)(1)(C): $7.25 for every hour worked, piece rate included. Dex: 0.5 flagged h × $16.00 =
+  // $8.00 (his unclocked line awaits sign-off) and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 →
+  // top-up $21.00.
   it('tops up to the minimum wage and totals the week', async () => {
     const report = await pay(`week=${week}`);
     const dex = report.technicians.find((row) => row.technicianId === ids.d)!;
     expect(dex).toMatchObject({
-      flaggedPayCents: 14_40,
+      flaggedPayCents: 8_00,
       nonProductivePayCents: 0,
-      minimumWageTopUpCents: 14_60,
+      minimumWageTopUpCents: 21_00,
       regularRateCents: 7_25,
       totalCents: 29_00,
       underMinimumWage: true,
     });
     // Bram: 45 × $20 = $900 + 4 h idle × $15 = $60 → $960, 40 h, no overtime.
     // Cleo: 1.5 × $18 = $27 + 1 h idle × $12 = $12 → $39 for 4 h, above 4 × $7.25 = $29.
-    const totals = { flagged: 491_00 + 900_00 + 27_00 + 14_40, total: 575_30 + 960_00 + 39_00 + 29_00 };
+    const totals = { flagged: 491_00 + 900_00 + 27_00 + 8_00, total: 575_30 + 960_00 + 39_00 + 29_00 };
     expect(report.technicians.find((row) => row.technicianId === ids.b)).toMatchObject({
       totalCents: 960_00,
     });
@@ -379,8 +406,11 @@ describe(ReportsService.name, () => {
       hoursWorked: 98,
       overtimeHours: 10,
       overtimePremiumCents: 52_30,
-      minimumWageTopUpCents: 14_60,
+      minimumWageTopUpCents: 21_00,
     });
+    // The unclocked line is on the week's exceptions, and the week is marked as not final.
+    expect(dex.exceptions.map((e) => e.kind)).toEqual(['done-unclocked']);
+    expect(report.unresolvedExceptions).toBe(1);
   });
 
   it('flags technicians nearing overtime while the week runs', () => {
@@ -411,12 +441,16 @@ describe(ReportsService.name, () => {
     const report = await labour(`week=${week}`);
     expect(rows).toHaveLength(1 + report.technicians.length + 1);
     expect(rows[0]).toBe(
-      'Technician,Attendance hours,Clocked hours,Flagged hours,Productivity %,Efficiency %,Proficiency %',
+      'Week,Technician,Attendance hours,Clocked hours,Flagged hours,Clocked on finished lines (any week),' +
+        'Work in progress hours,Productivity %,Efficiency %,Proficiency %',
     );
+    const name = report.weekName;
     // 49.1 / 46 = 106.739 %; 49.1 / 50 = 98.2 %.
-    expect(rows).toContain('Ada Vexley,50.00,46.00,49.10,92.00,106.74,98.20');
-    // 86 / 98 = 87.755 %, 96.5 / 86 = 112.209 %, 96.5 / 98 = 98.469 %.
-    expect(rows.at(-1)).toBe('Shop total,98.00,86.00,96.50,87.76,112.21,98.47');
+    expect(rows).toContain(`"${name}",Ada Vexley,50.0000,46.0000,49.1000,46.0000,0.0000,92.00,106.74,98.20`);
+    // 86 / 98 = 87.755 %, 96.1 / 86 = 111.744 %, 96.1 / 98 = 98.061 %.
+    expect(rows.at(-1)).toBe(
+      `"${name}",Shop total,98.0000,86.0000,96.1000,86.0000,0.0000,87.76,111.74,98.06`,
+    );
 
     const payCsv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
     expect(payCsv.headers['content-disposition']).toBe(`attachment; filename="baytime-pay-${week}.csv"`);
@@ -425,14 +459,22 @@ describe(ReportsService.name, () => {
       .trimEnd()
       .split('\n');
     expect(payRows[0]).toBe(
-      'Technician,Flat rate $/h,Hourly rate $/h,Overtime exempt,Flagged hours,Hours worked,Flagged pay $,' +
-        'Non-productive pay $,Straight-time pay $,Regular rate $/h,Overtime hours,Overtime premium $,' +
-        'Minimum wage top-up $,Total $,Under minimum wage,Near overtime',
+      'Week,Week status,Technician,Pay type,Rates from,Flat rate $/h,Hourly rate $/h,Guarantee $/h,' +
+        'Overtime exempt,Flagged hours,Hours worked,Rest hours,Rest rate $/h,Rest pay $,' +
+        'Other non-productive hours,Other non-productive pay $,Flagged pay $,Guarantee top-up $,Hourly pay $,' +
+        'Straight-time pay $,Regular rate $/h,Overtime hours,Double-time hours,Overtime premium $,' +
+        'Minimum wage top-up $,Meal premiums $,Week total $,Additional overtime for earlier weeks $,' +
+        'Adjustments for closed weeks $,Payable this week $,Unresolved exceptions,Under minimum wage,Near overtime',
     );
+    // The week is open and Dex's unclocked line waits for a sign-off: every row says the figures are not final.
+    const status = '"open: 1 unresolved exception(s), figures not final"';
     expect(payRows).toContain(
-      'Ada Vexley,10.00,8.00,no,49.10,50.00,491.00,32.00,523.00,10.46,10.00,52.30,0.00,575.30,no,no',
+      `"${name}",${status},Ada Vexley,Flat rate,2000-01-01,10.00,8.00,0.00,no,49.1000,50.0000,0.0000,,0.00,` +
+        '4.0000,32.00,491.00,0.00,0.00,523.00,10.46,10.0000,0.0000,52.30,0.00,0.00,575.30,0.00,0.00,575.30,0,no,no',
     );
-    expect(payRows.at(-1)).toMatch(/^Total,,,,96\.50,98\.00,1432\.40,/);
+    expect(payRows.find((row) => row.includes(',Total,'))).toMatch(/,Total,,,,,,,96\.1000,98\.0000,/);
+    expect(payRows.at(-2)).toMatch(/^Estimate,"These figures are an estimate/);
+    expect(payRows.at(-1)).toMatch(/^Rounding,"Worked out in whole seconds and whole cents/);
   });
 
   it('counts the running week by default, open shift and job up to now, from punches on the kiosk', async () => {
@@ -504,14 +546,19 @@ describe(ReportsService.name, () => {
     await as(owner).get('/api/reports/pay?format=xlsx').expect(400);
   });
 
-  // California Labor Code 510(a), CHECKS.md §2: hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
-  // 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
+  // California Labor Code 510(a), a general overtime guide's worked example: hourly $25; Mon 10, Tue 8,
+  // Wed 13, Thu 8, Fri 8 = 47 h → 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
   it('pays the California daily-overtime vector when the shop chooses those rules', async () => {
     const earlier = addIsoWeeks(week, -1);
     // Federal first (29 USC 207(a)(1)): only the weekly 40 counts: 47 × $25 + 7 × $12.50 = $1,262.50.
     const federal = (await pay(`week=${earlier}`)).technicians.find((row) => row.technicianId === ids.e)!;
     expect(federal).toMatchObject({ hoursWorked: 47, overtimeHours: 7, totalCents: 1262_50 });
-    await as(owner).patch('/api/shop', { overtimeRules: 'california' }).expect(200);
+    // California needs the state minimum wage; the rules are dated from that week's first day.
+    const payRulesFrom = workweekDays(earlier, shop)[0]!.day;
+    await as(owner).patch('/api/shop', { overtimeRules: 'california', payRulesFrom }).expect(400);
+    await as(owner)
+      .patch('/api/shop', { overtimeRules: 'california', minimumWageCents: 16_50, payRulesFrom })
+      .expect(200);
     try {
       const report = await pay(`week=${earlier}`);
       expect(report.rules).toBe('california');
@@ -523,7 +570,9 @@ describe(ReportsService.name, () => {
         totalCents: 1275_00,
       });
     } finally {
-      await as(owner).patch('/api/shop', { overtimeRules: 'federal' }).expect(200);
+      await as(owner)
+        .patch('/api/shop', { overtimeRules: 'federal', minimumWageCents: 7_25, payRulesFrom })
+        .expect(200);
     }
   });
 });

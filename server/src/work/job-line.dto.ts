@@ -16,5 +16,6 @@ export function toJobLineDto(row: typeof jobLines.$inferSelect): JobLineDto {
     bayId: row.bayId,
     promisedAt: row.promisedAt?.toISOString() ?? null,
     completedAt: row.completedAt?.toISOString() ?? null,
+    signOff: row.signOff,
   };
 }

@@ -6,7 +6,13 @@ import {
   Injectable,
 } from '@nestjs/common';
 import { and, eq, ne } from 'drizzle-orm';
-import type { FinishLineBody, HoldLineBody, JobLineDto, PatchJobLineBody } from '@baytime/shared';
+import type {
+  FinishLineBody,
+  HoldLineBody,
+  JobLineDto,
+  PatchJobLineBody,
+  ResolutionBody,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
@@ -14,8 +20,11 @@ import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
+import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchesService } from '../punches/punches.service.js';
+import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 
 type LineRow = typeof jobLines.$inferSelect;
@@ -30,6 +39,9 @@ export class JobLinesService {
     private readonly live: LiveService,
     private readonly floor: FloorService,
     private readonly punches: PunchesService,
+    private readonly closedWeeks: ClosedWeeksService,
+    private readonly shop: ShopService,
+    private readonly labour: LabourService,
   ) {}
 
   @Transactional()
@@ -47,6 +59,9 @@ export class JobLinesService {
       );
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
+    if (body.completedAt) this.closedWeeks.assertOpenAt(new Date(body.completedAt), 'That completion time');
+    else if (body.status === 'done' && line.status !== 'done')
+      this.closedWeeks.assertOpenAt(now, 'Finishing that line');
 
     const changes: Partial<typeof jobLines.$inferInsert> = { updatedAt: now };
     if (body.priority) changes.priority = body.priority;
@@ -66,8 +81,9 @@ export class JobLinesService {
     if (body.status === 'held')
       Object.assign(changes, { status: 'held', holdReason: body.holdReason, heldAt: now });
     if (body.status === 'queued' || body.status === 'working')
-      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null });
+      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null, signOff: null });
     if (body.status === 'done' || body.completedAt) {
+      if (line.status !== 'done') changes.signOff = this.signOffNeeded(id, now);
       this.punches.clockOffLine(id, actor, 'Line marked done by the foreman', now);
       Object.assign(changes, {
         status: 'done',
@@ -118,6 +134,8 @@ export class JobLinesService {
   finish(id: number, { next }: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);
+    this.closedWeeks.assertOpenAt(now, 'Finishing that line');
+    const signOff = this.signOffNeeded(id, now);
     this.punches.clockOffLine(id, actor, 'Line marked done', now);
     const updated = this.save(id, {
       status: 'done',
@@ -125,6 +143,7 @@ export class JobLinesService {
       heldAt: null,
       completedAt: now,
       updatedAt: now,
+      signOff,
     });
     this.afterDone(updated, next, now);
     this.audit.record({
@@ -135,6 +154,38 @@ export class JobLinesService {
       detail: { next },
     });
     return this.announce(updated);
+  }
+
+  @Transactional()
+  signOff(id: number, { reason }: ResolutionBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    if (line.status !== 'done' || line.signOff !== 'awaiting')
+      throw new ConflictException('That line is not waiting for a sign-off');
+    const updated = this.save(id, {
+      signOff: 'signed',
+      signedOffBy: actor.id,
+      signedOffAt: now,
+      signOffReason: reason,
+      updatedAt: now,
+    });
+    this.audit.record({
+      actorId: actor.id,
+      action: 'sign-off',
+      entity: 'job-line',
+      entityId: id,
+      detail: { reason },
+    });
+    return this.announce(updated);
+  }
+
+  /**
+   * Done on a line nobody clocked on would flag its book hours while the same time is paid as idle time. A
+   * line finished with less clocked time than the shop's minimum waits for a foreman's sign-off and stays
+   * out of the flagged figures until then.
+   */
+  private signOffNeeded(id: number, now: Date): 'awaiting' | null {
+    const clocked = this.labour.lineSeconds([id], now).get(id)?.total ?? 0;
+    return clocked < this.shop.settings(now).minimumClockedMinutesForDone * 60 ? 'awaiting' : null;
   }
 
   /** The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO. */

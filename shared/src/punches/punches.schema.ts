@@ -21,6 +21,11 @@ export type BreakKind = (typeof BREAK_KINDS)[number];
 export const MAX_PUNCH_AGE_SECONDS = 12 * 3600;
 /** Slack for tablet clocks that run a little ahead of the server. */
 export const MAX_PUNCH_CLOCK_SKEW_SECONDS = 120;
+/**
+ * A punch recorded more than this after the time it carries arrived late (an offline replay): if it would
+ * change hours already counted it is held for the foreman instead of refused.
+ */
+export const LATE_PUNCH_SECONDS = 120;
 
 export const createPunchSchema = z
   .object({

@@ -218,3 +218,19 @@ export interface WeekSummary {
   closed: boolean;
   caution: string;
 }
+
+/** `POST /api/pay-weeks/:week/close` and `/reopen`: the state of a pay week. */
+export interface PayWeekState {
+  week: string;
+  weekName: string;
+  closed: boolean;
+  closedAt: string | null;
+  closedBy: string | null;
+  reopenedAt: string | null;
+  reopenReason: string | null;
+}
+
+export const reopenWeekSchema = z.object({
+  reason: z.string().trim().min(3, 'Say why the week is reopened').max(500),
+});
+export type ReopenWeekBody = z.infer<typeof reopenWeekSchema>;

@@ -5,6 +5,13 @@ import { vehicleInputSchema } from '../vehicles/vin.js';
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
 
+/**
+ * A line marked done with less clocked time than the shop's minimum is `awaiting` a foreman's sign-off and
+ * stays out of the flagged figures until then; `signed` once a foreman or owner vouched for it.
+ */
+export const SIGN_OFF_STATES = ['awaiting', 'signed'] as const;
+export type SignOffState = (typeof SIGN_OFF_STATES)[number];
+
 export const REPAIR_ORDER_STATUSES = ['open', 'done', 'closed'] as const;
 export type RepairOrderStatus = (typeof REPAIR_ORDER_STATUSES)[number];
 
@@ -48,6 +55,8 @@ export interface JobLineDto {
   bayId: number | null;
   promisedAt: string | null;
   completedAt: string | null;
+  /** Null unless the line was done with too little clocked time: then awaiting, or signed off. */
+  signOff: SignOffState | null;
 }
 
 /** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */

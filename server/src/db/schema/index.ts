@@ -4,3 +4,4 @@ export * from './work.js';
 export * from './clock.js';
 export * from './findings.js';
 export * from './records.js';
+export * from './pay.js';

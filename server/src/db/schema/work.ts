@@ -5,6 +5,7 @@ import {
   JOB_LINE_STATUSES,
   PRIORITIES,
   REPAIR_ORDER_STATUSES,
+  SIGN_OFF_STATES,
 } from '@baytime/shared';
 import { users } from './people.js';
 
@@ -96,6 +97,11 @@ export const jobLines = sqliteTable(
     queuedAt: integer('queued_at', { mode: 'timestamp_ms' }).notNull(),
     completedAt: integer('completed_at', { mode: 'timestamp_ms' }),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+    /** Done with less clocked time than the shop's minimum: out of the flagged figures until signed off. */
+    signOff: text('sign_off', { enum: SIGN_OFF_STATES }),
+    signedOffBy: integer('signed_off_by').references(() => users.id),
+    signedOffAt: integer('signed_off_at', { mode: 'timestamp_ms' }),
+    signOffReason: text('sign_off_reason'),
   },
   (t) => [
     uniqueIndex('job_lines_repair_order_line_no_idx').on(t.repairOrderId, t.lineNo),
