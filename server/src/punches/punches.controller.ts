@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, Post, Res } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
 import type { Response } from 'express';
 import { z } from 'zod';
 import {
@@ -39,6 +39,7 @@ export class PunchesController {
 
   @Roles('foreman', 'owner')
   @Post('punches/held/:id/accept')
+  @HttpCode(200)
   accept(
     @Param('id', { schema: punchIdSchema }) id: string,
     @Body({ schema: resolutionSchema }) body: ResolutionBody,
@@ -49,6 +50,7 @@ export class PunchesController {
 
   @Roles('foreman', 'owner')
   @Post('punches/held/:id/reject')
+  @HttpCode(200)
   reject(
     @Param('id', { schema: punchIdSchema }) id: string,
     @Body({ schema: resolutionSchema }) body: ResolutionBody,

@@ -101,7 +101,8 @@ export class PaySummaryService {
     const days = daysOf(label, settings);
     const firstDay = days[0]!.day;
     const rules = this.shop.rulesFor(firstDay);
-    const people = this.technicians(current);
+    const adjustments = withAdjustments ? this.adjustments(label, settings, now) : [];
+    const people = this.technicians(current, new Set(adjustments.map((a) => a.technicianId)));
     const rates = this.rates.ratesOn(
       people.map((p) => p.id),
       firstDay,
@@ -137,7 +138,6 @@ export class PaySummaryService {
       now,
       ledgers: new Map([...current.technicians].map(([id, week]) => [id, week.ledger])),
     });
-    const adjustments = withAdjustments ? this.adjustments(label, settings, now) : [];
     const running = now >= current.from && now < current.to;
     const { elapsedMs, totalMs } = openingProgress(days, settings, now);
     const technicians = pays.map((pay) =>
@@ -417,9 +417,9 @@ export class PaySummaryService {
     };
   }
 
-  /** Active technicians on the books by the end of the week, and anyone with figures in it; by name. */
-  private technicians(week: WeekFigures): Technician[] {
-    const withFigures = new Set(technicianIdsOf(week));
+  /** Active technicians on the books by the end of the week, and anyone with figures or adjustments; by name. */
+  private technicians(week: WeekFigures, adjusted: ReadonlySet<number>): Technician[] {
+    const withFigures = new Set([...technicianIdsOf(week), ...adjusted]);
     return this.db
       .select({ id: users.id, name: users.name, active: users.active, createdAt: users.createdAt })
       .from(users)

@@ -3,7 +3,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, min } from 'drizzle-orm';
 import {
   addIsoWeeks,
-  makeVin,
   shopLocalInstant,
   workweekBounds,
   workweekDays,
@@ -13,13 +12,13 @@ import {
   type PayReport,
   type ShopDay,
   type ShopSettings,
+  type Timecard,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, jobLines, punches, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { auditLog, punches, users } from '../db/schema/index.js';
+import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
-
-type Kind = 'shift-in' | 'shift-out' | 'break-start' | 'break-end' | 'job-on' | 'job-off';
 
 /**
  * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
@@ -36,80 +35,14 @@ describe(ReportsService.name, () => {
   const ids = {} as Record<'a' | 'b' | 'c' | 'd' | 'e' | 'f', number>;
   const lineIds = { a: [] as number[], b: [] as number[], s: 0, u: 0 };
   let bayId: number;
-  let roSerial = 0;
 
-  const as = (token: string) => ({
-    get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
-    post: (path: string, body: object) => sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
-    patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
-  });
+  let history: ShopHistory;
+  const as = (token: string) => history.as(token);
   const at = (day: ShopDay, time: string) => shopLocalInstant(day.day, time, shop.timeZone);
-  const technician = async (name: string, badge: string, flatRateCents: number, hourlyRateCents: number) =>
-    (
-      await as(owner)
-        .post('/api/users', { name, role: 'technician', badge, pin: '4321', flatRateCents, hourlyRateCents })
-        .expect(201)
-    ).body.id as number;
-  /** A missed punch added by the owner: the only way to record times this far back. */
-  const punch = (technicianId: number, kind: Kind, when: Date, jobLineId?: number) =>
-    as(owner)
-      .post('/api/timecards/corrections', {
-        technicianId,
-        kind,
-        at: when.toISOString(),
-        reason: 'From the paper timesheet',
-        ...(jobLineId ? { jobLineId } : {}),
-        ...(kind === 'break-start' ? { breakKind: 'meal' } : {}),
-      })
-      .expect(201);
-  const finish = (jobLineId: number, when: Date) =>
-    as(foreman).patch(`/api/job-lines/${jobLineId}`, { completedAt: when.toISOString() }).expect(200);
-  /** There is no repair-order intake route to lean on here: the RO and its line go straight in. */
-  const line = (title: string, bookHours: number, technicianId: number, queuedAt: Date, bay?: number) => {
-    const serial = ++roSerial;
-    const customer = db
-      .insert(customers)
-      .values({ name: `Test customer ${serial}`, createdAt: queuedAt })
-      .returning()
-      .get();
-    const vehicle = db
-      .insert(vehicles)
-      .values({
-        customerId: customer.id,
-        vin: makeVin(`7RP9TS4DLM${String(500_000 + serial)}`),
-        year: 2020,
-        make: 'Corvane',
-        model: 'Altrix',
-      })
-      .returning()
-      .get();
-    const ro = db
-      .insert(repairOrders)
-      .values({
-        number: `T${900 + serial}`,
-        customerId: customer.id,
-        vehicleId: vehicle.id,
-        concern: title,
-        odometer: 40_000,
-        createdAt: queuedAt,
-      })
-      .returning()
-      .get();
-    return db
-      .insert(jobLines)
-      .values({
-        repairOrderId: ro.id,
-        lineNo: 1,
-        title,
-        bookHours,
-        technicianId,
-        bayId: bay ?? null,
-        queuedAt,
-        updatedAt: queuedAt,
-      })
-      .returning()
-      .get().id;
-  };
+  const technician: ShopHistory['technician'] = (...args) => history.technician(...args);
+  const punch: ShopHistory['punch'] = (...args) => history.punch(...args);
+  const finish: ShopHistory['finish'] = (...args) => history.finish(...args);
+  const line: ShopHistory['line'] = (...args) => history.line(...args);
   const labour = async (query: string, token = owner) =>
     (await as(token).get(`/api/reports/labour?${query}`).expect(200)).body as LabourReport;
   const pay = async (query: string) =>
@@ -122,6 +55,7 @@ describe(ReportsService.name, () => {
     db = sut.app.get<Db>(DB);
     owner = await sut.signIn(DEMO.owner);
     foreman = await sut.signIn(DEMO.foreman);
+    history = shopHistory(sut, { owner, foreman });
     shop = (await as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
     const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
@@ -574,5 +508,96 @@ describe(ReportsService.name, () => {
         .patch('/api/shop', { overtimeRules: 'federal', minimumWageCents: 7_25, payRulesFrom })
         .expect(200);
     }
+  });
+
+  it('shows the same figures on the pay summary, in the CSV and on the kiosk for the same week', async () => {
+    const report = await pay(`week=${week}`);
+    const row = report.technicians.find((tech) => tech.technicianId === ids.a)!;
+    const kiosk = await sut.badge('5001');
+    const card = (await as(kiosk.accessToken).get(`/api/timecards?week=${week}`).expect(200))
+      .body as Timecard;
+    expect(card.summary.pay).toEqual(row);
+    expect(card.summary.caution).toBe(report.caution);
+    const labourRow = rowOf(await labour(`week=${week}`), ids.a);
+    const { lines: _lines, technicianId: _id, name: _name, ...figures } = labourRow;
+    expect(card.summary.labour).toEqual(figures);
+    expect(card.weekName).toBe(report.weekName);
+
+    const csv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
+    const [header, ...rows] = csv.text
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\n');
+    const cells = (line: string) =>
+      line.match(/("[^"]*"|[^,]*)(,|$)/g)!.map((c) => c.replace(/,$/, '').replace(/^"|"$/g, ''));
+    const columns = cells(header!);
+    const ada = cells(rows.find((line) => line.includes('Ada Vexley'))!);
+    const value = (column: string) => ada[columns.indexOf(column)];
+    expect(value('Flagged hours')).toBe(row.flaggedHours.toFixed(4));
+    expect(value('Hours worked')).toBe(row.hoursWorked.toFixed(4));
+    expect(value('Week total $')).toBe((row.totalCents / 100).toFixed(2));
+    expect(value('Payable this week $')).toBe((row.payableCents / 100).toFixed(2));
+
+    // A shop that hides pay on the kiosk still shows the hours there; the office keeps the pay.
+    await as(owner).patch('/api/shop', { kioskShowsPay: false }).expect(200);
+    try {
+      const hidden = (await as(kiosk.accessToken).get(`/api/timecards?week=${week}`).expect(200))
+        .body as Timecard;
+      expect(hidden.summary).toMatchObject({ pay: null, labour: figures });
+      const office = (await as(owner).get(`/api/timecards?technicianId=${ids.a}&week=${week}`).expect(200))
+        .body as Timecard;
+      expect(office.summary.pay).toEqual(row);
+    } finally {
+      await as(owner).patch('/api/shop', { kioskShowsPay: true }).expect(200);
+    }
+  });
+
+  // Done on a line nobody clocked on used to flag its book hours while the same hours were paid as idle.
+  // Hal: flat $20, other time $15; on shift 08:00–12:00 and never clocked on; his 2.0 h line marked done at
+  // 11:00. Until signed off: flagged 0, other time 4 h × $15 = $60, total $60 (not also 2 × $20).
+  it('keeps Done without clocked time out of flagged hours until a foreman signs it off', async () => {
+    const later = addIsoWeeks(week, 1);
+    const wednesday = workweekDays(later, shop)[3]!;
+    const hal = await technician('Hal Brenner', '5008', 20_00, 15_00);
+    const job = line('Replace cabin air filter', 2.0, hal, at(wednesday, '07:30'));
+    await punch(hal, 'shift-in', at(wednesday, '08:00'));
+    await punch(hal, 'shift-out', at(wednesday, '12:00'));
+    const done = await finish(job, at(wednesday, '11:00'));
+    expect(done.body.signOff).toBe('awaiting');
+    const halRow = async () =>
+      (await pay(`week=${later}`)).technicians.find((tech) => tech.technicianId === hal)!;
+    expect(await halRow()).toMatchObject({
+      flaggedHours: 0,
+      flaggedPayCents: 0,
+      otherNonProductiveHours: 4,
+      otherNonProductivePayCents: 60_00,
+      totalCents: 60_00,
+      unresolvedExceptions: 1,
+    });
+    expect((await halRow()).exceptions[0]).toMatchObject({
+      kind: 'done-unclocked',
+      jobLineId: job,
+      resolution: null,
+    });
+
+    const technicianToken = (await sut.badge('5008')).accessToken;
+    await as(technicianToken).post(`/api/job-lines/${job}/sign-off`, { reason: 'I did it' }).expect(403);
+    await as(foreman).post(`/api/job-lines/${job}/sign-off`, {}).expect(400);
+    const signed = await as(foreman)
+      .post(`/api/job-lines/${job}/sign-off`, { reason: 'Filter swap done at the car park, seen by me' })
+      .expect(200);
+    expect(signed.body.signOff).toBe('signed');
+    await as(foreman).post(`/api/job-lines/${job}/sign-off`, { reason: 'again' }).expect(409);
+    // Signed off: 2.0 h × $20 = $40 flagged; the exception is resolved, with who and why.
+    const after = await halRow();
+    expect(after).toMatchObject({ flaggedHours: 2, flaggedPayCents: 40_00, unresolvedExceptions: 0 });
+    expect(after.exceptions[0]!.resolution).toMatchObject({
+      by: 'Theo Varga',
+      note: 'Signed off: Filter swap done at the car park, seen by me',
+    });
+    const audit = db.select().from(auditLog).where(eq(auditLog.action, 'sign-off')).all();
+    expect(audit.map((entry) => [entry.entityId, entry.detail])).toEqual([
+      [String(job), { reason: 'Filter swap done at the car park, seen by me' }],
+    ]);
   });
 });

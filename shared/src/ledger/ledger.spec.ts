@@ -258,6 +258,22 @@ describe(buildLedger.name, () => {
     expect(result.totals.jobSeconds).toEqual({ 1: 0.5 * 3600 });
   });
 
+  it('takes punches at the same instant in the order a day runs, whatever their ids', () => {
+    const same = [
+      punch('shift-in', '08:00', { id: 'z1' }),
+      on(1, '08:00'),
+      off(1, '12:00'),
+      punch('break-start', '12:00', { id: 'a1', breakKind: 'meal' }),
+      punch('break-end', '12:30', { id: 'z2' }),
+      punch('job-on', '12:30', { id: 'a2', jobLineId: 1 }),
+      punch('shift-out', '16:00', { id: 'a3' }),
+      off(1, '16:00'),
+    ];
+    const result = buildLedger(same, new Date(at('17:00')), even);
+    expect(result.anomalies).toEqual([]);
+    expect(hours(result.totals.clockedSeconds)).toBe(7.5);
+  });
+
   it('counts a duplicated punch once', () => {
     const shiftIn = punch('shift-in', '08:00');
     const result = buildLedger([shiftIn, shiftIn, punch('shift-out', '09:00')], new Date(at('10:00')), even);

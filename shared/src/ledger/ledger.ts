@@ -1,5 +1,5 @@
 import type { ShiftStatus } from '../punches/my-day.schema.js';
-import type { BreakKind, PunchDto } from '../punches/punches.schema.js';
+import type { BreakKind, PunchDto, PunchKind } from '../punches/punches.schema.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 
 export type LedgerPunch = Pick<
@@ -79,6 +79,19 @@ export const PUNCH_REFUSALS = {
 } as const;
 
 /**
+ * Punches at the same instant (a paper timesheet's "job off 12:00, lunch 12:00") in the order a day runs:
+ * the shift opens, a break ends and a job closes before a job opens, a break starts or the shift closes.
+ */
+const SAME_INSTANT_ORDER: Record<PunchKind, number> = {
+  'shift-in': 0,
+  'break-end': 1,
+  'job-off': 2,
+  'job-on': 3,
+  'break-start': 4,
+  'shift-out': 5,
+};
+
+/**
  * Effective punches in time order: duplicates once, superseded ones dropped, ties broken by id. A row that
  * `voids` the punch it supersedes takes it out without standing in for it.
  */
@@ -89,7 +102,12 @@ function effectivePunches(punches: readonly LedgerPunch[]): LedgerPunch[] {
   return [...byId.values()]
     .filter((p) => !superseded.has(p.id) && !p.voids)
     .map((p) => ({ punch: p, ms: Date.parse(p.at) }))
-    .sort((a, b) => a.ms - b.ms || (a.punch.id < b.punch.id ? -1 : a.punch.id > b.punch.id ? 1 : 0))
+    .sort(
+      (a, b) =>
+        a.ms - b.ms ||
+        SAME_INSTANT_ORDER[a.punch.kind] - SAME_INSTANT_ORDER[b.punch.kind] ||
+        (a.punch.id < b.punch.id ? -1 : a.punch.id > b.punch.id ? 1 : 0),
+    )
     .map(({ punch }) => punch);
 }
 
