@@ -35,6 +35,7 @@ export const router = createBrowserRouter([
               office(paths.repairOrderNew, () => import('./routes/office/repair-order-new')),
               office(paths.repairOrderDetail, () => import('./routes/office/repair-order-detail')),
               office(paths.timecards, () => import('./routes/office/timecards')),
+              office(paths.exceptions, () => import('./routes/office/exceptions')),
               office(paths.reports, () => import('./routes/office/reports')),
               office(paths.findings, () => import('./routes/office/findings')),
               office(paths.admin.users, () => import('./routes/office/admin-users')),

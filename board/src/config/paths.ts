@@ -10,6 +10,7 @@ export const paths = {
   repairOrderDetail: '/repair-orders/:id',
   repairOrder: (id: number | string) => `/repair-orders/${id}`,
   timecards: '/timecards',
+  exceptions: '/exceptions',
   reports: '/reports',
   findings: '/findings',
   admin: {

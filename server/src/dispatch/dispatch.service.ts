@@ -104,7 +104,6 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       bayId: line.bayId,
       promisedAt: line.promisedAt?.toISOString() ?? null,
       queuedAt: line.queuedAt.toISOString(),
-      signOff: line.signOff,
       clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
       clockedOn: clockedOn.get(line.id) ?? [],
       forecast: null,

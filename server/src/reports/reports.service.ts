@@ -29,6 +29,7 @@ import {
   type PayReport,
   type ReportQuery,
   type ReviewExceptionBody,
+  type Role,
   type ShopSettings,
   type WeekSummary,
 } from '@baytime/shared';
@@ -36,6 +37,7 @@ import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
 import { bays, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
+import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ExceptionsService } from '../payroll/exceptions.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { openWindow } from './opening-hours.js';
@@ -87,6 +89,7 @@ export class ReportsService implements OnModuleDestroy {
     private readonly weeks: WeekFiguresService,
     private readonly paySummary: PaySummaryService,
     private readonly exceptionsService: ExceptionsService,
+    private readonly closedWeeks: ClosedWeeksService,
     live: LiveService,
   ) {
     this.subscription = live.floorChanged$.subscribe(() => this.trendCache.clear());
@@ -112,18 +115,19 @@ export class ReportsService implements OnModuleDestroy {
   }
 
   /**
-   * One technician's week as the reports count it: the labour row and, unless the kiosk asks and the shop
-   * hides pay there, the very pay-summary row (so the office, the CSV and the kiosk agree).
+   * One technician's week as the reports count it: the labour row and the very pay-summary row (so the
+   * office, the CSV and the kiosk agree). Pay goes to the owner, and to the technician unless the shop hides
+   * it on the kiosk; never to the foreman, who does not read the pay summary either.
    */
-  technicianWeek(week: string, technicianId: number, forKiosk: boolean, now = new Date()): WeekSummary {
+  technicianWeek(week: string, technicianId: number, viewer: Role, now = new Date()): WeekSummary {
     const settings = this.shop.settings(now);
     const figures = this.weeks.figures([week], settings, now)[0]!;
-    const showPay = !forKiosk || settings.kioskShowsPay;
+    const showPay = viewer === 'owner' || (viewer === 'technician' && settings.kioskShowsPay);
     const report = showPay ? this.pay(week, now) : null;
     return {
       labour: present(labourKpis(hoursOf(figures, technicianId))),
       pay: report?.technicians.find((row) => row.technicianId === technicianId) ?? null,
-      closed: report?.closed ?? false,
+      closed: this.closedWeeks.closed(week) !== undefined,
       caution: PAY_ESTIMATE_CAUTION,
     };
   }

@@ -124,7 +124,7 @@ export class TimecardsService {
     if (anomalies.length) flags.push(`${anomalies.length} punch(es) did not fit and were not counted`);
 
     const punchIds = all.map((p) => p.id);
-    const summary = this.reports.technicianWeek(week, technicianId, actor.role === 'technician', now);
+    const summary = this.reports.technicianWeek(week, technicianId, actor.role, now);
     const exceptions =
       summary.pay?.exceptions ??
       this.reports.exceptions(week, now).exceptions.filter((e) => e.technicianId === technicianId);
@@ -162,7 +162,7 @@ export class TimecardsService {
       flags,
       held: this.punches.held(technicianId, from, to),
       exceptions,
-      closed: this.closedWeeks.closed(week) !== undefined,
+      closed: summary.closed,
       summary,
       audit: this.auditOf(punchIds),
     };

@@ -55,8 +55,8 @@ export interface JobLineDto {
   bayId: number | null;
   promisedAt: string | null;
   completedAt: string | null;
-  /** Null unless the line was done with too little clocked time: then awaiting, or signed off. */
-  signOff: SignOffState | null;
+  /** Set when the line was done with too little clocked time: awaiting a sign-off, or signed off. */
+  signOff?: SignOffState | null;
 }
 
 /** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */

@@ -44,6 +44,7 @@ function punch(
     recordedBy: 4,
     supersedes: null,
     reason: null,
+    voids: false,
     supersededBy: null,
     recordedByName: 'Dana Okafor',
     ...extra,
@@ -55,6 +56,7 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
   return {
     technician: { id: 4, name: 'Dana Okafor' },
     week: '2026-W48',
+    weekName: 'Week of Sun, Nov 29',
     from: '2026-11-29T06:00:00.000Z',
     to: '2026-12-06T06:00:00.000Z',
     timeZone: 'America/Chicago',
@@ -99,6 +101,24 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
     anomalies: [{ punchId: 'e', reason: 'You are not clocked on that line' }],
     flags: [],
     audit: [],
+    held: [],
+    exceptions: [],
+    closed: false,
+    summary: {
+      labour: {
+        attendanceHours: 0,
+        clockedHours: 0,
+        flaggedHours: 0,
+        matchedClockedHours: 0,
+        workInProgressHours: 0,
+        productivity: null,
+        efficiency: null,
+        proficiency: null,
+      },
+      pay: null,
+      closed: false,
+      caution: 'An estimate',
+    },
     ...overrides,
   };
 }

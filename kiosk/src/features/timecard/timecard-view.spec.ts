@@ -23,6 +23,7 @@ function punch(id: string, at: string, changes: Partial<TimecardPunch> = {}): Ti
     recordedBy: 4,
     supersedes: null,
     reason: null,
+    voids: false,
     supersededBy: null,
     recordedByName: 'Rhea Mollander',
     ...changes,
@@ -42,6 +43,7 @@ function card(changes: Partial<Timecard> = {}): Timecard {
   return {
     technician: { id: 4, name: 'Rhea Mollander' },
     week: '2026-W48',
+    weekName: 'Week of Sun, Nov 29',
     from: '2026-11-29T06:00:00.000Z',
     to: '2026-12-06T06:00:00.000Z',
     timeZone: 'America/Chicago',
@@ -54,6 +56,24 @@ function card(changes: Partial<Timecard> = {}): Timecard {
     anomalies: [],
     flags: [],
     audit: [],
+    held: [],
+    exceptions: [],
+    closed: false,
+    summary: {
+      labour: {
+        attendanceHours: 0,
+        clockedHours: 0,
+        flaggedHours: 0,
+        matchedClockedHours: 0,
+        workInProgressHours: 0,
+        productivity: null,
+        efficiency: null,
+        proficiency: null,
+      },
+      pay: null,
+      closed: false,
+      caution: 'An estimate',
+    },
     ...changes,
   };
 }

@@ -22,6 +22,7 @@ import { AuditTrail } from './audit-trail';
 import { CorrectionDialog, type CorrectionTarget } from './correction-dialog';
 import { DayDetail } from './day-detail';
 import { WeekGlance } from './week-glance';
+import { WeekReview } from './week-review';
 
 const useStyles = makeStyles({
   page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL },
@@ -93,7 +94,9 @@ export function TimecardView({
   const { totals } = data;
   const corrections = data.punches.filter((punch) => punch.reason !== null).length;
   const activeDays = days.filter((day) => day.active);
-  const correct = canCorrect ? (punch: TimecardPunch) => setTarget({ replace: punch }) : undefined;
+  // A week closed for pay takes no correction: the server would refuse it with 409 anyway.
+  const editable = canCorrect && !data.closed;
+  const correct = editable ? (punch: TimecardPunch) => setTarget({ replace: punch }) : undefined;
 
   return (
     <div
@@ -111,6 +114,14 @@ export function TimecardView({
             </MessageBar>
           ))}
         </div>
+      )}
+      {data.closed && canCorrect && (
+        <MessageBar intent="info">
+          <MessageBarBody>
+            <MessageBarTitle>Closed for pay</MessageBarTitle>
+            Nothing dated in this week can change. The owner can reopen it from the pay summary.
+          </MessageBarBody>
+        </MessageBar>
       )}
       {saved && (
         <MessageBar intent="success">
@@ -130,13 +141,17 @@ export function TimecardView({
             {data.punches.length} punches
             {corrections > 0 && `, ${corrections} by correction`}
           </Caption1>
-          {canCorrect && (
+          {editable && (
             <Button appearance="primary" onClick={() => setTarget({ add: true })}>
               Add a missed punch…
             </Button>
           )}
         </div>
       </div>
+
+      <Card className={styles.panel}>
+        <WeekReview card={data} />
+      </Card>
 
       <Card className={styles.panel}>
         <WeekGlance days={days} timeZone={data.timeZone} />
