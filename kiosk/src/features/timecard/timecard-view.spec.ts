@@ -1,7 +1,7 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import type { Timecard, TimecardPunch } from '@baytime/shared';
-import { buildWeekView, localDay } from './timecard-view';
+import { buildWeekView, localDay, weekFigures } from './timecard-view';
 
 const zero = {
   attendanceSeconds: 0,
@@ -169,5 +169,29 @@ describe(buildWeekView.name, () => {
       }),
     );
     expect(view.days[0]!.punches[0]!.notCounted).toBe('You are not on shift');
+  });
+
+  // 29 CFR 778.111(a), the pieceworker example as the pay summary gives it: 49.1 flagged h, 46 h clocked
+  // (efficiency 49.1 ÷ 46 = 106.7 %), $575.30 for the week. The kiosk shows those very figures.
+  it('shows the figures of the reports, and the pay only when the shop shows it', () => {
+    const labour = {
+      ...card().summary.labour,
+      attendanceHours: 50,
+      clockedHours: 46,
+      flaggedHours: 49.1,
+      matchedClockedHours: 46,
+      efficiency: 49.1 / 46,
+    };
+    const pay = { payableCents: 575_30 } as Timecard['summary']['pay'];
+    expect(weekFigures(card({ summary: { labour, pay, closed: false, caution: 'An estimate' } }))).toEqual([
+      { label: 'Flagged', value: '49.10 h' },
+      { label: 'Clocked on jobs', value: '46.00 h' },
+      { label: 'Efficiency', value: '107%' },
+      { label: 'Estimated pay', value: '$575.30' },
+    ]);
+    expect(weekFigures(card({ summary: { labour, pay: null, closed: false, caution: '' } })).at(-1)).toEqual({
+      label: 'Efficiency',
+      value: '107%',
+    });
   });
 });

@@ -148,3 +148,23 @@ export function buildWeekView(card: Timecard): WeekView {
   const range = `${dayLabel(first, { month: 'short', day: 'numeric' })} – ${dayLabel(last, { month: 'short', day: 'numeric' })}`;
   return { range, days, emptyDays };
 }
+
+const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+
+/**
+ * The week's figures as the office's reports have them (the very rows of the labour report and the pay
+ * summary): flagged and clocked hours, efficiency and, when the shop shows it, the estimated pay.
+ */
+export function weekFigures(card: Timecard): { label: string; value: string }[] {
+  const { labour, pay } = card.summary;
+  const figures = [
+    { label: 'Flagged', value: `${labour.flaggedHours.toFixed(2)} h` },
+    { label: 'Clocked on jobs', value: `${labour.clockedHours.toFixed(2)} h` },
+    {
+      label: 'Efficiency',
+      value: labour.efficiency === null ? '–' : `${Math.round(labour.efficiency * 100)}%`,
+    },
+  ];
+  if (pay) figures.push({ label: 'Estimated pay', value: money.format(pay.payableCents / 100) });
+  return figures;
+}

@@ -9,19 +9,19 @@ import {
   MessageBarBody,
   Select,
   Subtitle2,
-  Switch,
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
 import { createUserSchema, type CreateUserBody, type UserDto } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
-import { dollarsToCents, formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useCreateUser } from '../api/create-user';
+import { EMPTY_PAY, PAY_FIELD_OF, PayFields, payBody, type PayDraft } from './pay-fields';
 import { ROLE_LABELS } from './users-table';
 
 type NewRole = CreateUserBody['role'];
 
-interface Draft {
+interface Draft extends PayDraft {
   role: NewRole;
   name: string;
   email: string;
@@ -29,9 +29,6 @@ interface Draft {
   badge: string;
   pin: string;
   skillLevel: string;
-  flatRate: string;
-  hourlyRate: string;
-  overtimeExempt: boolean;
 }
 
 const EMPTY: Draft = {
@@ -42,13 +39,10 @@ const EMPTY: Draft = {
   badge: '',
   pin: '',
   skillLevel: '3',
-  flatRate: '',
-  hourlyRate: '',
-  overtimeExempt: false,
+  ...EMPTY_PAY,
 };
 
-/** Form fields that hold a body field under another name (dollars typed, cents sent). */
-const FIELD_OF: Record<string, keyof Draft> = { flatRateCents: 'flatRate', hourlyRateCents: 'hourlyRate' };
+const FIELD_OF: Record<string, keyof Draft> = PAY_FIELD_OF;
 
 const useStyles = makeStyles({
   card: {
@@ -72,16 +66,9 @@ function toBody(draft: Draft): { body: Partial<CreateUserBody>; moneyErrors: Fie
     body.badge = draft.badge;
     body.pin = draft.pin;
     body.skillLevel = Number(draft.skillLevel);
-    body.overtimeExempt = draft.overtimeExempt;
-    for (const [field, key] of [
-      ['flatRate', 'flatRateCents'],
-      ['hourlyRate', 'hourlyRateCents'],
-    ] as const) {
-      if (!draft[field].trim()) continue;
-      const cents = dollarsToCents(draft[field]);
-      if (cents === null) moneyErrors[field] = 'Type an amount in dollars, like 28.50';
-      else body[key] = cents;
-    }
+    const pay = payBody(draft);
+    Object.assign(body, pay.body);
+    Object.assign(moneyErrors, pay.errors);
   } else {
     body.email = draft.email.trim();
     body.password = draft.password;
@@ -192,30 +179,11 @@ export function AddUserForm({ onAdded }: { onAdded?: (user: UserDto) => void }) 
                   ))}
                 </Select>
               </Field>
-              <Field label="Flat rate per flagged hour ($)" validationMessage={errors.flatRate}>
-                <Input
-                  value={draft.flatRate}
-                  inputMode="decimal"
-                  onChange={(_, data) => set('flatRate', data.value)}
-                />
-              </Field>
-              <Field label="Hourly rate, non-productive time ($)" validationMessage={errors.hourlyRate}>
-                <Input
-                  value={draft.hourlyRate}
-                  inputMode="decimal"
-                  onChange={(_, data) => set('hourlyRate', data.value)}
-                />
-              </Field>
-              <Field
-                label="Overtime"
-                hint="Exempt only where the law allows it; check with your payroll provider."
-              >
-                <Switch
-                  checked={draft.overtimeExempt}
-                  onChange={(_, data) => set('overtimeExempt', data.checked)}
-                  label={draft.overtimeExempt ? 'Exempt from overtime' : 'Paid overtime'}
-                />
-              </Field>
+              <PayFields
+                draft={draft}
+                errors={errors}
+                onChange={(key, value) => set(key, value as Draft[typeof key])}
+              />
             </>
           ) : (
             <>

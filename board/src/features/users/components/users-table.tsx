@@ -16,9 +16,10 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { Role, UserDto } from '@baytime/shared';
-import { formErrorText, formatMoney } from '@/lib/form-errors';
+import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
+import { PayRateDialog, rateWords } from './pay-rate-dialog';
 
 export const ROLE_LABELS: Record<Exclude<Role, 'display'>, string> = {
   owner: 'Owner',
@@ -33,6 +34,8 @@ const useStyles = makeStyles({
   inactive: { color: tokens.colorNeutralForeground4 },
   error: { marginBottom: tokens.spacingVerticalM },
   numeric: { fontVariantNumeric: 'tabular-nums' },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalS, flexWrap: 'wrap' },
+  dim: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
 
 function ActiveButton({ user, onError }: { user: UserDto; onError: (message: string | null) => void }) {
@@ -78,6 +81,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
+  const [paying, setPaying] = useState<UserDto | null>(null);
 
   if (users.isPending) return <Spinner label="Loading people…" />;
   if (users.isError)
@@ -87,6 +91,8 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
       </MessageBar>
     );
 
+  // Dates on record are shop-local calendar days; a day ahead of the browser's is still "to come".
+  const today = new Date().toISOString().slice(0, 10);
   const sorted = [...users.data]
     .filter((user): user is UserDto & { role: Exclude<Role, 'display'> } => user.role !== 'display')
     .sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name));
@@ -106,9 +112,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
               <TableHeaderCell>Role</TableHeaderCell>
               <TableHeaderCell>Signs in with</TableHeaderCell>
               <TableHeaderCell>Skill</TableHeaderCell>
-              <TableHeaderCell>Flat rate</TableHeaderCell>
-              <TableHeaderCell>Hourly</TableHeaderCell>
-              <TableHeaderCell>Overtime</TableHeaderCell>
+              <TableHeaderCell>Pay today</TableHeaderCell>
               <TableHeaderCell>Status</TableHeaderCell>
               <TableHeaderCell>
                 <span className="visually-hidden">Actions</span>
@@ -125,23 +129,31 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                   <TableCell>{tech ? `Badge ${user.badge ?? '—'}` : (user.email ?? '—')}</TableCell>
                   <TableCell>{tech ? user.skillLevel : '—'}</TableCell>
                   <TableCell className={styles.numeric}>
-                    {tech ? formatMoney(user.flatRateCents) : '—'}
+                    {tech ? rateWords(user) : '—'}
+                    {tech && user.payRates[0] && user.payRates[0].effectiveFrom > today && (
+                      <Caption1 className={styles.dim}>
+                        From {user.payRates[0].effectiveFrom}: {rateWords(user.payRates[0])}
+                      </Caption1>
+                    )}
                   </TableCell>
-                  <TableCell className={styles.numeric}>
-                    {tech ? formatMoney(user.hourlyRateCents) : '—'}
-                  </TableCell>
-                  <TableCell>{tech ? (user.overtimeExempt ? 'Exempt' : 'Paid') : '—'}</TableCell>
                   <TableCell>
                     <Badge appearance="tint" color={user.active ? 'success' : 'subtle'}>
                       {user.active ? 'Active' : 'Inactive'}
                     </Badge>
                   </TableCell>
                   <TableCell>
-                    {user.id === currentUserId ? (
-                      <Caption1>You</Caption1>
-                    ) : (
-                      <ActiveButton user={user} onError={setError} />
-                    )}
+                    <div className={styles.actions}>
+                      {tech && (
+                        <Button size="small" onClick={() => setPaying(user)}>
+                          Pay…
+                        </Button>
+                      )}
+                      {user.id === currentUserId ? (
+                        <Caption1>You</Caption1>
+                      ) : (
+                        <ActiveButton user={user} onError={setError} />
+                      )}
+                    </div>
                   </TableCell>
                 </TableRow>
               );
@@ -149,6 +161,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
           </TableBody>
         </Table>
       </div>
+      {paying && <PayRateDialog user={paying} onClose={() => setPaying(null)} />}
     </>
   );
 }

@@ -2,7 +2,7 @@ import { Link } from 'react-router';
 import type { Timecard, TimecardTotals } from '@baytime/shared';
 import { AlertIcon, ArrowLeftIcon, ArrowRightIcon } from '@/components/icons';
 import { hoursMinutes } from '@/lib/format';
-import { buildWeekView, type PunchRow } from '../timecard-view';
+import { buildWeekView, weekFigures, type PunchRow } from '../timecard-view';
 import './week.css';
 
 function Totals({ totals, compact }: { totals: TimecardTotals; compact?: boolean }) {
@@ -61,7 +61,6 @@ export interface WeekViewProps {
 /** A technician's own week: each day's hours and punches, struck-through corrections, flags. */
 export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps) {
   const view = buildWeekView(card);
-  const weekNumber = Number(card.week.slice(-2));
   return (
     <div className="bt-week">
       <header className="bt-week-page__head">
@@ -71,7 +70,7 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
         <h1 className="bt-week-page__title">
           My week
           <small>
-            Week {weekNumber} · {view.range}
+            {card.weekName} · {view.range}
             {stale ? ' · could not refresh' : ''}
           </small>
         </h1>
@@ -86,9 +85,21 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
 
       <section className="bt-week__summary" aria-label="Week totals">
         <Totals totals={card.totals} />
+      </section>
+
+      <section className="bt-week__summary bt-week__figures" aria-label="In the reports">
+        <dl className="bt-week-totals">
+          {weekFigures(card).map(({ label, value }) => (
+            <div key={label}>
+              <dt>{label}</dt>
+              <dd>{value}</dd>
+            </div>
+          ))}
+        </dl>
         <p className="bt-week__pay-note">
-          These are the hours the clock recorded. Pay is worked out by the office: ask the foreman about pay
-          or a punch that looks wrong.
+          {card.summary.pay
+            ? `${card.summary.caution} Flagged hours count in the week the line is finished. Ask the foreman about pay or a punch that looks wrong.`
+            : 'Flagged hours count in the week the line is finished. Pay is worked out by the office: ask the foreman about pay or a punch that looks wrong.'}
         </p>
       </section>
 
