@@ -18,8 +18,13 @@ const useStyles = makeStyles({
   content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
 });
 
-/** A decision that needs a reason on record (reopen a week, accept a punch, sign off a line). */
+/**
+ * A decision that needs a reason on record (reopen a week, accept a punch, sign off a line). Keep it mounted
+ * and drive `open`: a modal dialog unmounted while open leaves the rest of the page hidden from assistive
+ * technology (aria-hidden on the app root).
+ */
 export function ReasonDialog({
+  open,
   title,
   children,
   label = 'Reason',
@@ -30,6 +35,7 @@ export function ReasonDialog({
   onConfirm,
   onClose,
 }: {
+  open: boolean;
   title: string;
   children?: ReactNode;
   label?: string;
@@ -49,7 +55,7 @@ export function ReasonDialog({
     onConfirm(reason.trim());
   };
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
+    <Dialog open={open} onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
       <DialogSurface>
         <form onSubmit={submit} noValidate>
           <DialogBody>

@@ -97,7 +97,13 @@ export function ExceptionsView({ week }: { week: string }) {
   const signOff = useSignOffLine();
   const review = useReviewException();
   const [open, setOpen] = useState<{ action: Action; exception: TimeException } | null>(null);
+  const [shown, setShown] = useState(false);
   const mutation = { accept, reject, 'sign-off': signOff, review }[open?.action ?? 'review'];
+  const show = (action: Action, exception: TimeException) => {
+    mutation.reset();
+    setOpen({ action, exception });
+    setShown(true);
+  };
 
   if (list.isPending) return <Spinner label="Loading the exceptions…" />;
   if (list.isError)
@@ -110,7 +116,7 @@ export function ExceptionsView({ week }: { week: string }) {
 
   const decide = (reason: string) => {
     if (!open) return;
-    const done = { onSuccess: () => setOpen(null) };
+    const done = { onSuccess: () => setShown(false) };
     const { exception } = open;
     if (open.action === 'accept') accept.mutate({ id: exception.punchId!, reason }, done);
     else if (open.action === 'reject') reject.mutate({ id: exception.punchId!, reason }, done);
@@ -173,7 +179,7 @@ export function ExceptionsView({ week }: { week: string }) {
                 <TableCell>
                   <div className={styles.actions}>
                     {actionsFor(exception).map((action) => (
-                      <Button key={action} size="small" onClick={() => setOpen({ action, exception })}>
+                      <Button key={action} size="small" onClick={() => show(action, exception)}>
                         {ACTION_WORDS[action].button}
                       </Button>
                     ))}
@@ -186,16 +192,15 @@ export function ExceptionsView({ week }: { week: string }) {
       )}
       {open && (
         <ReasonDialog
+          key={`${open.action}:${open.exception.key}`}
+          open={shown}
           title={ACTION_WORDS[open.action].title}
           label={open.action === 'review' ? 'What was checked' : 'Reason'}
           confirm={ACTION_WORDS[open.action].confirm}
           pending={mutation.isPending}
           error={mutation.isError ? formErrorText(mutation.error) : null}
           onConfirm={decide}
-          onClose={() => {
-            mutation.reset();
-            setOpen(null);
-          }}
+          onClose={() => setShown(false)}
         >
           <Text>
             {open.exception.technicianName}: {open.exception.text}

@@ -38,43 +38,44 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
   const running = Date.parse(report.to) > useMinuteNow();
   const exceptionsLink = `${paths.exceptions}?week=${encodeURIComponent(report.week)}`;
 
-  if (report.closed)
-    return (
-      <>
-        <MessageBar intent="info" layout="multiline">
-          <MessageBarBody>
-            <MessageBarTitle>Closed for pay</MessageBarTitle>
-            {report.closedAt && `On ${when(report.closedAt, report.timeZone)}`}
-            {report.closedBy && ` by ${report.closedBy}`}. These are the figures saved then: nothing dated in
-            this week can change, and a line finished or changed later shows as an adjustment in the next open
-            week.
-          </MessageBarBody>
-          <MessageBarActions>
-            <Button onClick={() => setReopening(true)}>Reopen…</Button>
-          </MessageBarActions>
-        </MessageBar>
-        {reopening && (
-          <ReasonDialog
-            title={`Reopen the ${report.weekName.replace(/^Week/, 'week')}`}
-            confirm="Reopen the week"
-            pending={reopen.isPending}
-            error={reopen.isError ? formErrorText(reopen.error) : null}
-            onConfirm={(reason) =>
-              reopen.mutate({ week: report.week, reason }, { onSuccess: () => setReopening(false) })
-            }
-            onClose={() => {
-              reopen.reset();
-              setReopening(false);
-            }}
-          >
-            Its figures will be worked out again from the records, and punches and corrections dated in it are
-            accepted again until it is closed once more.
-          </ReasonDialog>
-        )}
-      </>
-    );
+  const reopenDialog = (
+    <ReasonDialog
+      open={reopening}
+      title={`Reopen the ${report.weekName.replace(/^Week/, 'week')}`}
+      confirm="Reopen the week"
+      pending={reopen.isPending}
+      error={reopen.isError ? formErrorText(reopen.error) : null}
+      onConfirm={(reason) =>
+        reopen.mutate({ week: report.week, reason }, { onSuccess: () => setReopening(false) })
+      }
+      onClose={() => setReopening(false)}
+    >
+      Its figures will be worked out again from the records, and punches and corrections dated in it are
+      accepted again until it is closed once more.
+    </ReasonDialog>
+  );
 
-  return (
+  // The dialog stays mounted across the switch from closed to open (see ReasonDialog).
+  const state = report.closed ? (
+    <MessageBar intent="info" layout="multiline">
+      <MessageBarBody>
+        <MessageBarTitle>Closed for pay</MessageBarTitle>
+        {report.closedAt && `On ${when(report.closedAt, report.timeZone)}`}
+        {report.closedBy && ` by ${report.closedBy}`}. These are the figures saved then: nothing dated in this
+        week can change, and a line finished or changed later shows as an adjustment in the next open week.
+      </MessageBarBody>
+      <MessageBarActions>
+        <Button
+          onClick={() => {
+            reopen.reset();
+            setReopening(true);
+          }}
+        >
+          Reopen…
+        </Button>
+      </MessageBarActions>
+    </MessageBar>
+  ) : (
     <>
       {report.unresolvedExceptions > 0 && (
         <MessageBar intent="warning" layout="multiline">
@@ -102,6 +103,12 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
         </Button>
       </div>
       <FormErrorBar message={close.isError ? formErrorText(close.error) : null} />
+    </>
+  );
+  return (
+    <>
+      {state}
+      {reopenDialog}
     </>
   );
 }

@@ -95,13 +95,19 @@ function startDraft(card: Timecard, target: CorrectionTarget): Draft {
   };
 }
 
-/** Replace one punch, or add one that was missed; the reason is kept on the card with the editor's name. */
+/**
+ * Replace one punch, or add one that was missed; the reason is kept on the card with the editor's name.
+ * Kept mounted and driven by `open`: a modal unmounted while open leaves the page hidden from assistive
+ * technology.
+ */
 export function CorrectionDialog({
+  open,
   card,
   target,
   onClose,
   onSaved,
 }: {
+  open: boolean;
   card: Timecard;
   target: CorrectionTarget;
   onClose: () => void;
@@ -192,7 +198,7 @@ export function CorrectionDialog({
   };
 
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
+    <Dialog open={open} onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
       <DialogSurface className={styles.surface}>
         <form onSubmit={submit} noValidate>
           <DialogBody>

@@ -77,7 +77,10 @@ export function TimecardView({
 }) {
   const styles = useStyles();
   const card = useTimecard(technicianId, week);
-  const [target, setTarget] = useState<CorrectionTarget | null>(null);
+  const [target, setTarget] = useState<{ of: CorrectionTarget; n: number; shown: boolean } | null>(null);
+  const openDialog = (of: CorrectionTarget) =>
+    setTarget((current) => ({ of, n: (current?.n ?? 0) + 1, shown: true }));
+  const closeDialog = () => setTarget((current) => current && { ...current, shown: false });
   const [savedNote, setSaved] = useState<{ for: string; text: string } | null>(null);
   const saved = savedNote?.for === `${technicianId}/${week}` ? savedNote.text : null;
   const days = useMemo(() => (card.data ? cardDays(card.data) : []), [card.data]);
@@ -96,7 +99,7 @@ export function TimecardView({
   const activeDays = days.filter((day) => day.active);
   // A week closed for pay takes no correction: the server would refuse it with 409 anyway.
   const editable = canCorrect && !data.closed;
-  const correct = editable ? (punch: TimecardPunch) => setTarget({ replace: punch }) : undefined;
+  const correct = editable ? (punch: TimecardPunch) => openDialog({ replace: punch }) : undefined;
 
   return (
     <div
@@ -142,7 +145,7 @@ export function TimecardView({
             {corrections > 0 && `, ${corrections} by correction`}
           </Caption1>
           {editable && (
-            <Button appearance="primary" onClick={() => setTarget({ add: true })}>
+            <Button appearance="primary" onClick={() => openDialog({ add: true })}>
               Add a missed punch…
             </Button>
           )}
@@ -176,11 +179,13 @@ export function TimecardView({
 
       {target && (
         <CorrectionDialog
+          key={target.n}
+          open={target.shown}
           card={data}
-          target={target}
-          onClose={() => setTarget(null)}
+          target={target.of}
+          onClose={closeDialog}
           onSaved={(message) => {
-            setTarget(null);
+            closeDialog();
             setSaved({ for: `${technicianId}/${week}`, text: message });
           }}
         />

@@ -44,8 +44,19 @@ export function rateWords(rate: Omit<DatedPayRate, 'effectiveFrom' | 'recordedAt
   return `${PAY_TYPE_WORDS[rate.payType]}: ${body}${rate.overtimeExempt ? ' · exempt from overtime' : ''}`;
 }
 
-/** A new rate from a date: past weeks keep theirs, and a closed pay week never changes. */
-export function PayRateDialog({ user, onClose }: { user: UserDto; onClose: () => void }) {
+/**
+ * A new rate from a date: past weeks keep theirs, and a closed pay week never changes. Driven by `open` and
+ * kept mounted while it closes (see the correction dialog).
+ */
+export function PayRateDialog({
+  open,
+  user,
+  onClose,
+}: {
+  open: boolean;
+  user: UserDto;
+  onClose: () => void;
+}) {
   const styles = useStyles();
   const update = useUpdateUser();
   const [draft, setDraft] = useState<PayDraft>(() => payDraftOf(user));
@@ -75,7 +86,7 @@ export function PayRateDialog({ user, onClose }: { user: UserDto; onClose: () =>
   };
 
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
+    <Dialog open={open} onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
       <DialogSurface className={styles.surface}>
         <form onSubmit={submit} noValidate>
           <DialogBody>

@@ -81,7 +81,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
-  const [paying, setPaying] = useState<UserDto | null>(null);
+  const [paying, setPaying] = useState<{ user: UserDto; shown: boolean; n: number } | null>(null);
 
   if (users.isPending) return <Spinner label="Loading people…" />;
   if (users.isError)
@@ -144,7 +144,12 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                   <TableCell>
                     <div className={styles.actions}>
                       {tech && (
-                        <Button size="small" onClick={() => setPaying(user)}>
+                        <Button
+                          size="small"
+                          onClick={() =>
+                            setPaying((current) => ({ user, shown: true, n: (current?.n ?? 0) + 1 }))
+                          }
+                        >
                           Pay…
                         </Button>
                       )}
@@ -161,7 +166,14 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
           </TableBody>
         </Table>
       </div>
-      {paying && <PayRateDialog user={paying} onClose={() => setPaying(null)} />}
+      {paying && (
+        <PayRateDialog
+          key={paying.n}
+          open={paying.shown}
+          user={paying.user}
+          onClose={() => setPaying({ ...paying, shown: false })}
+        />
+      )}
     </>
   );
 }
