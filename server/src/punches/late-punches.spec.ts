@@ -1,7 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import type { CorrectionPreview, ExceptionList, HeldPunchDto, PunchDto, Timecard } from '@baytime/shared';
+import {
+  workweekOf,
+  type CorrectionPreview,
+  type ExceptionList,
+  type HeldPunchDto,
+  type PunchDto,
+  type ShopSettings,
+  type Timecard,
+} from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { auditLog } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
@@ -19,17 +27,22 @@ describe(`${PunchesService.name}: late punches`, () => {
   let max: number;
   let kiosk: string;
   let line: number;
+  let shop: ShopSettings;
   const ago = (hours: number) => new Date(Date.now() - hours * HOUR).toISOString();
+  /** The shop week of the punches made here, whatever the hour the test runs. */
+  const week = () => workweekOf(new Date(Date.now() - 5 * HOUR), shop);
   const punch = (body: object, token = kiosk) =>
     history.as(token).post('/api/punches', { id: randomUUID(), ...body });
   const card = async (technicianId = max) =>
-    (await history.as(owner).get(`/api/timecards?technicianId=${technicianId}`).expect(200)).body as Timecard;
+    (await history.as(owner).get(`/api/timecards?technicianId=${technicianId}&week=${week()}`).expect(200))
+      .body as Timecard;
 
   beforeAll(async () => {
     sut = await startTestApp();
     owner = await sut.signIn(DEMO.owner);
     foreman = await sut.signIn(DEMO.foreman);
     history = shopHistory(sut, { owner, foreman });
+    shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     max = await history.technician('Max Dorrance', '7001', 20_00, 10_00);
     kiosk = (await sut.badge('7001')).accessToken;
     line = history.line('Replace brake hoses', 1.5, max, new Date(Date.now() - 5 * HOUR));
@@ -69,7 +82,8 @@ describe(`${PunchesService.name}: late punches`, () => {
       id,
       behind.body.id,
     ]);
-    const list = (await history.as(foreman).get('/api/exceptions').expect(200)).body as ExceptionList;
+    const list = (await history.as(foreman).get(`/api/exceptions?week=${week()}`).expect(200))
+      .body as ExceptionList;
     expect(list.exceptions.filter((e) => e.technicianId === max && e.resolution === null)).toHaveLength(2);
   });
 
@@ -156,5 +170,39 @@ describe(`${PunchesService.name}: late punches`, () => {
       [jobOff.id, expect.any(String), 'Displaced by a correction: Paper sheet shows lunch'],
     ]);
     expect(after.punches.find((p) => p.id === jobOn.id)!.supersededBy).toBe(voiding[0]![1]);
+  });
+
+  // 29 CFR 785.19(a): a meal under 30 minutes is ordinarily not a bona fide meal period; the ledger counts it
+  // as paid rest and lists it, and the foreman may accept it as it is.
+  it('lists a short meal for the foreman, who may mark it reviewed with a note', async () => {
+    const ida = await history.technician('Ida Marchetti', '7003', 20_00, 10_00);
+    await history.punch(ida, 'shift-in', new Date(ago(6)));
+    await history.punch(ida, 'break-start', new Date(ago(4)));
+    await history.punch(ida, 'break-end', new Date(Date.now() - 3 * HOUR - 40 * 60_000));
+    await history.punch(ida, 'shift-out', new Date(ago(2)));
+    const mine = async () =>
+      (
+        (await history.as(foreman).get('/api/exceptions').expect(200)).body as ExceptionList
+      ).exceptions.filter((e) => e.technicianId === ida);
+    const [short] = await mine();
+    expect(short).toMatchObject({ kind: 'short-meal', resolution: null });
+    expect(short!.text).toMatch(
+      /^Meal break at .* lasted 20 min, under the shop's 30: counted as paid rest$/,
+    );
+    expect((await card(ida)).totals.attendanceSeconds).toBe(4 * 3600);
+
+    await history
+      .as(foreman)
+      .post('/api/exceptions/reviews', { key: 'short-meal:nothing', note: 'ok' })
+      .expect(400);
+    await history.as(foreman).post('/api/exceptions/reviews', { key: short!.key, note: 'x' }).expect(400);
+    await history
+      .as(foreman)
+      .post('/api/exceptions/reviews', { key: short!.key, note: 'Ida asked to cut lunch short today' })
+      .expect(200);
+    expect((await mine())[0]!.resolution).toMatchObject({
+      by: 'Theo Varga',
+      note: 'Reviewed: Ida asked to cut lunch short today',
+    });
   });
 });

@@ -7,7 +7,6 @@ import {
   punchImpact,
   PUNCH_REFUSALS,
   technicianState,
-  validatePunch,
   type Ledger,
   type LedgerPunch,
   type LedgerSettings,
@@ -389,7 +388,7 @@ describe(technicianState.name, () => {
   });
 });
 
-describe(validatePunch.name, () => {
+describe(`${punchImpact.name}: refusals`, () => {
   const onShift = [punch('shift-in', '08:00'), on(1, '08:30')];
 
   it.each([
@@ -404,17 +403,21 @@ describe(validatePunch.name, () => {
     ['shift-in twice', onShift, punch('shift-in', '09:00'), 'You are already on shift'],
     ['job-off on another line', onShift, off(2, '09:00'), 'You are not clocked on that line'],
   ])('refuses %s', (_, existing, next, reason) => {
-    expect(validatePunch(existing, next, even)).toBe(reason);
+    expect(punchImpact(existing, next, even).refusal).toBe(reason);
   });
 
   it('accepts a possible punch', () => {
-    expect(validatePunch(onShift, off(1, '09:00'), even)).toBeNull();
+    expect(punchImpact(onShift, off(1, '09:00'), even)).toEqual({
+      refusal: null,
+      displaced: [],
+      lowersCounted: false,
+    });
   });
 
   it('judges a late offline punch where it falls in time', () => {
     const existing = [punch('shift-in', '08:00'), punch('shift-out', '12:00')];
-    expect(validatePunch(existing, on(1, '09:00'), even)).toBeNull();
-    expect(validatePunch(existing, on(1, '13:00'), even)).toBe('You are not on shift');
+    expect(punchImpact(existing, on(1, '09:00'), even).refusal).toBeNull();
+    expect(punchImpact(existing, on(1, '13:00'), even).refusal).toBe('You are not on shift');
   });
 });
 

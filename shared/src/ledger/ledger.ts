@@ -304,16 +304,3 @@ export function punchImpact(
     will.attendanceSeconds < was.attendanceSeconds - 1e-6 || will.clockedSeconds < was.clockedSeconds - 1e-6;
   return { refusal, displaced, lowersCounted };
 }
-
-/**
- * Why `punch` cannot be recorded, in plain words, or null when it can. It is judged where it falls in
- * time among the existing punches, so a punch replayed late from an offline kiosk is judged fairly.
- */
-export function validatePunch(
-  existing: readonly LedgerPunch[],
-  punch: LedgerPunch,
-  settings: LedgerSettings,
-): string | null {
-  const ledger = buildLedger([...existing, punch], new Date(Date.parse(punch.at)), settings);
-  return ledger.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
-}
