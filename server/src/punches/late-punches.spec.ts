@@ -28,9 +28,11 @@ describe(`${PunchesService.name}: late punches`, () => {
   let kiosk: string;
   let line: number;
   let shop: ShopSettings;
-  const ago = (hours: number) => new Date(Date.now() - hours * HOUR).toISOString();
+  /** One clock for the whole file, so hand-worked durations come out exact however slow the machine. */
+  const start = Date.now();
+  const ago = (hours: number) => new Date(start - hours * HOUR).toISOString();
   /** The shop week of the punches made here, whatever the hour the test runs. */
-  const week = () => workweekOf(new Date(Date.now() - 5 * HOUR), shop);
+  const week = () => workweekOf(new Date(start - 5 * HOUR), shop);
   const punch = (body: object, token = kiosk) =>
     history.as(token).post('/api/punches', { id: randomUUID(), ...body });
   const card = async (technicianId = max) =>
@@ -45,7 +47,7 @@ describe(`${PunchesService.name}: late punches`, () => {
     shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     max = await history.technician('Max Dorrance', '7001', 20_00, 10_00);
     kiosk = (await sut.badge('7001')).accessToken;
-    line = history.line('Replace brake hoses', 1.5, max, new Date(Date.now() - 5 * HOUR));
+    line = history.line('Replace brake hoses', 1.5, max, new Date(start - 5 * HOUR));
     await punch({ kind: 'shift-in', at: ago(4) }).expect(201);
     await punch({ kind: 'job-on', jobLineId: line, at: ago(3) }).expect(201);
     await punch({ kind: 'job-off', jobLineId: line, at: ago(1) }).expect(201);
@@ -131,7 +133,7 @@ describe(`${PunchesService.name}: late punches`, () => {
 
   it('previews what a correction would displace and saves it only once those punches are confirmed', async () => {
     const noa = await history.technician('Noa Castillo', '7002', 20_00, 10_00);
-    const job = history.line('Replace fuel filter', 0.8, noa, new Date(Date.now() - 7 * HOUR));
+    const job = history.line('Replace fuel filter', 0.8, noa, new Date(start - 7 * HOUR));
     await history.punch(noa, 'shift-in', new Date(ago(6)));
     const jobOn = (await history.punch(noa, 'job-on', new Date(ago(5)), job)).body as PunchDto;
     const jobOff = (await history.punch(noa, 'job-off', new Date(ago(4)), job)).body as PunchDto;
@@ -178,7 +180,7 @@ describe(`${PunchesService.name}: late punches`, () => {
     const ida = await history.technician('Ida Marchetti', '7003', 20_00, 10_00);
     await history.punch(ida, 'shift-in', new Date(ago(6)));
     await history.punch(ida, 'break-start', new Date(ago(4)));
-    await history.punch(ida, 'break-end', new Date(Date.now() - 3 * HOUR - 40 * 60_000));
+    await history.punch(ida, 'break-end', new Date(start - 3 * HOUR - 40 * 60_000));
     await history.punch(ida, 'shift-out', new Date(ago(2)));
     const mine = async () =>
       (
