@@ -143,6 +143,24 @@ describe('timecard model', () => {
     expect(rows.map((row) => row.punch.id)).toEqual(['c', 'a', 'b', 'd', 'e']);
   });
 
+  it('shows a punch taken out of the count on that punch, not the voiding row as a punch of its own', () => {
+    const base = card();
+    const rows = punchRows(
+      card({
+        punches: [
+          ...base.punches.map((p) => (p.id === 'b' ? { ...p, supersededBy: 'v' } : p)),
+          punch('v', 'job-on', base.punches.find((p) => p.id === 'b')!.at, {
+            supersedes: 'b',
+            voids: true,
+            reason: 'Displaced by a late punch the office accepted',
+          }),
+        ],
+      }),
+    );
+    expect(rows.map((row) => row.punch.id)).toEqual(['c', 'a', 'b', 'd', 'e']);
+    expect(rows.find((row) => row.punch.id === 'b')!.replacedBy).toMatchObject({ id: 'v', voids: true });
+  });
+
   it('names job lines and says why a punch was not counted', () => {
     const rows = punchRows(card());
     expect(rows.find((row) => row.punch.id === 'b')!.job).toBe('RO 4497 · Battery test');

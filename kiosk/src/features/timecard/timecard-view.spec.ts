@@ -161,6 +161,30 @@ describe(buildWeekView.name, () => {
     });
   });
 
+  it('shows a punch the office took out of the count, without the voiding row', () => {
+    const view = buildWeekView(
+      card({
+        punches: [
+          punch('b', '2026-12-02T15:00:00.000Z', { kind: 'job-on', jobLineId: 3, supersededBy: 'v' }),
+          punch('v', '2026-12-02T15:00:00.000Z', {
+            kind: 'job-on',
+            jobLineId: 3,
+            supersedes: 'b',
+            voids: true,
+            reason: 'Displaced by a late punch the office accepted',
+          }),
+        ],
+      }),
+    );
+    expect(view.days[0]!.punches).toEqual([
+      expect.objectContaining({
+        id: 'b',
+        takenOut: true,
+        supersededBecause: 'Displaced by a late punch the office accepted',
+      }),
+    ]);
+  });
+
   it('marks a punch that was not counted, with the reason', () => {
     const view = buildWeekView(
       card({

@@ -10,6 +10,8 @@ export interface PunchRow {
   detail: string | null;
   /** A later correction replaced it: shown struck through, with the correction's reason. */
   supersededBecause: string | null;
+  /** The office took it out of the count without a replacement (it no longer fitted the card). */
+  takenOut: boolean;
   /** Someone else recorded it (a correction, or a missed punch added): who and why. */
   note: { kind: 'correction' | 'added'; by: string; reason: string } | null;
   /** It did not fit where it fell and was not counted, with the reason. */
@@ -91,6 +93,8 @@ export function buildWeekView(card: Timecard): WeekView {
     (a, b) => Date.parse(a.at) - Date.parse(b.at) || a.recordedAt.localeCompare(b.recordedAt),
   );
   for (const punch of sorted) {
+    // A voiding row only takes the punch it names out of the count: it shows on that punch, not as one.
+    if (punch.voids) continue;
     const job = punch.jobLineId === null ? undefined : jobs.get(punch.jobLineId);
     const replacement = punch.supersededBy ? byId.get(punch.supersededBy) : undefined;
     const row: PunchRow = {
@@ -99,6 +103,7 @@ export function buildWeekView(card: Timecard): WeekView {
       words: punchWords(punch),
       detail: job ? `RO ${job.repairOrderNumber} · ${job.title}` : null,
       supersededBecause: punch.supersededBy ? (replacement?.reason ?? 'Corrected by the office') : null,
+      takenOut: replacement?.voids ?? false,
       note:
         punch.supersedes !== null || punch.reason !== null
           ? {

@@ -35,7 +35,9 @@ function Punch({ row }: { row: PunchRow }) {
         {row.supersededBecause ? <s>{row.words}</s> : <strong>{row.words}</strong>}
         {row.detail && <span className="bt-punch__detail">{row.detail}</span>}
         {row.supersededBecause && (
-          <span className="bt-punch__note">Replaced by a correction: {row.supersededBecause}</span>
+          <span className="bt-punch__note">
+            {row.takenOut ? 'Not counted any more' : 'Replaced by a correction'}: {row.supersededBecause}
+          </span>
         )}
         {row.note && (
           <span className="bt-punch__note">
