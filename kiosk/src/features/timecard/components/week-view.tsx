@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import type { Timecard, TimecardTotals } from '@baytime/shared';
 import { AlertIcon, ArrowLeftIcon, ArrowRightIcon } from '@/components/icons';
-import { hoursMinutes } from '@/lib/format';
+import { clockTime, hoursMinutes } from '@/lib/format';
 import { buildWeekView, weekFigures, type PunchRow } from '../timecard-view';
 import './week.css';
 
@@ -104,6 +104,22 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
             : 'Flagged hours count in the week the line is finished. Pay is worked out by the office: ask the foreman about pay or a punch that looks wrong.'}
         </p>
       </section>
+
+      {card.held.some((held) => held.review === 'pending') && (
+        <section className="bt-week__flags" aria-label="Waiting for the foreman">
+          <AlertIcon />
+          <ul>
+            {card.held
+              .filter((held) => held.review === 'pending')
+              .map((held) => (
+                <li key={held.id}>
+                  A punch sent late ({clockTime(held.at, card.timeZone)}) waits for the foreman: it is not
+                  counted until the foreman accepts it.
+                </li>
+              ))}
+          </ul>
+        </section>
+      )}
 
       {card.flags.length > 0 && (
         <section className="bt-week__flags" aria-label="To look at">
