@@ -439,6 +439,17 @@ describe(punchImpact.name, () => {
     expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: true });
   });
 
+  it('takes a difference within the clock slack between tablets (2 min) for no change', () => {
+    // A rest break tapped on another tablet closes the job a minute before the shift-out that closed it.
+    const shift = [punch('shift-in', '08:00'), on(1, '08:00'), punch('shift-out', '12:00')];
+    expect(punchImpact(shift, pause('rest', '11:59'), even)).toEqual({
+      refusal: null,
+      displaced: [],
+      lowersCounted: false,
+    });
+    expect(punchImpact(shift, pause('rest', '11:57'), even).lowersCounted).toBe(true);
+  });
+
   it('lets a punch after the last counted one change nothing counted', () => {
     const meal = pause('meal', '12:00');
     const impact = punchImpact([punch('shift-in', '08:00'), on(1, '09:00')], meal, even);

@@ -1,5 +1,10 @@
 import type { ShiftStatus } from '../punches/my-day.schema.js';
-import type { BreakKind, PunchDto, PunchKind } from '../punches/punches.schema.js';
+import {
+  MAX_PUNCH_CLOCK_SKEW_SECONDS,
+  type BreakKind,
+  type PunchDto,
+  type PunchKind,
+} from '../punches/punches.schema.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 
 export type LedgerPunch = Pick<
@@ -273,7 +278,10 @@ export interface PunchImpact {
   refusal: string | null;
   /** Punches that count now and would no longer fit once this one is in, in time order. */
   displaced: LedgerPunch[];
-  /** The attendance or clocked time already counted (up to the last counted punch) would drop. */
+  /**
+   * The attendance or clocked time already counted (up to the last counted punch) would drop by more than
+   * the clock slack between tablets (MAX_PUNCH_CLOCK_SKEW_SECONDS).
+   */
   lowersCounted: boolean;
 }
 
@@ -300,7 +308,10 @@ export function punchImpact(
     .map((a) => byId.get(a.punchId)!);
   const window = [new Date(-8.64e15), new Date(Math.max(countedUntil, -8.64e15))] as const;
   const [was, will] = [before.within(...window), after.within(...window)];
+  // Two tablets' clocks may differ by a little: a change that small is not a change of counted time.
+  const slack = MAX_PUNCH_CLOCK_SKEW_SECONDS;
   const lowersCounted =
-    will.attendanceSeconds < was.attendanceSeconds - 1e-6 || will.clockedSeconds < was.clockedSeconds - 1e-6;
+    will.attendanceSeconds < was.attendanceSeconds - slack ||
+    will.clockedSeconds < was.clockedSeconds - slack;
   return { refusal, displaced, lowersCounted };
 }
