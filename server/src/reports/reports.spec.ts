@@ -11,6 +11,7 @@ import {
   type LabourReportTechnician,
   type PayReport,
   type ShopDay,
+  type DatedPayRules,
   type ShopSettings,
   type Timecard,
 } from '@baytime/shared';
@@ -494,6 +495,11 @@ describe(ReportsService.name, () => {
       .patch('/api/shop', { overtimeRules: 'california', minimumWageCents: 16_50, payRulesFrom })
       .expect(200);
     try {
+      const rules = (await as(owner).get('/api/shop/pay-rules').expect(200)).body as DatedPayRules[];
+      expect(rules.map((rule) => [rule.effectiveFrom, rule.overtimeRules])).toEqual([
+        ['2000-01-01', 'federal'],
+        [payRulesFrom, 'california'],
+      ]);
       const report = await pay(`week=${earlier}`);
       expect(report.rules).toBe('california');
       expect(report.technicians.find((row) => row.technicianId === ids.e)).toMatchObject({

@@ -18,6 +18,7 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['delete', '/api/screens/999', ['owner', 'foreman']],
   ['get', '/api/shop', ALL_ROLES],
   ['patch', '/api/shop', ['owner']],
+  ['get', '/api/shop/pay-rules', ['owner']],
   ['get', '/api/board', ALL_ROLES],
   ['post', '/api/punches', ['technician', 'foreman', 'owner']],
   ['get', '/api/repair-orders', ['owner', 'foreman', 'advisor']],

@@ -20,9 +20,11 @@ import {
   centsToDollars,
   dollarsToCents,
   formErrorText,
+  formatMoney,
   issuesToFieldErrors,
   type FieldErrors,
 } from '@/lib/form-errors';
+import { usePayRules } from '../api/get-pay-rules';
 import { useShop } from '../api/get-shop';
 import { useUpdateShop } from '../api/update-shop';
 
@@ -45,7 +47,29 @@ const useStyles = makeStyles({
     '@media (max-width: 700px)': { gridTemplateColumns: '1fr 1fr' },
   },
   actions: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
+  history: { margin: 0, paddingLeft: tokens.spacingHorizontalL, color: tokens.colorNeutralForeground2 },
 });
+
+const RULE_NAMES = { federal: 'US federal overtime', california: 'California overtime' } as const;
+
+/** The pay rules on record: each applies to the weeks that begin from its date until the next. */
+function PayRulesHistory() {
+  const styles = useStyles();
+  const rules = usePayRules();
+  if (!rules.data) return null;
+  return (
+    <ul className={styles.history} aria-label="Pay rules on record">
+      {[...rules.data].reverse().map((rule) => (
+        <li key={rule.effectiveFrom}>
+          From {rule.effectiveFrom}: {RULE_NAMES[rule.overtimeRules]}, state minimum wage{' '}
+          {formatMoney(rule.minimumWageCents)}
+          {rule.localMinimumWageCents !== null && `, local ${formatMoney(rule.localMinimumWageCents)}`}, other
+          time {rule.payNonProductiveSeparately ? 'paid separately' : 'covered by flat-rate pay'}
+        </li>
+      ))}
+    </ul>
+  );
+}
 
 function timeZones(current: string): string[] {
   const intl = Intl as typeof Intl & { supportedValuesOf?: (key: 'timeZone') => string[] };
@@ -324,6 +348,7 @@ function ShopForm({
 
       <Card className={styles.card}>
         <Subtitle2 as="h2">Pay rules</Subtitle2>
+        <PayRulesHistory />
         <div className={styles.grid}>
           <Field label="Overtime rules" validationMessage={errors.overtimeRules}>
             <Select
