@@ -256,9 +256,9 @@ export function PayReportView({ report }: { report: PayReport }) {
       <div className={styles.rules}>
         <Text>
           Overtime rules: {RULE_WORDS[report.rules]}. Minimum wage {formatMoney(report.minimumWageCents)} an
-          hour for every hour worked: the highest of the federal, state
-          {payRules.localMinimumWageCents !== null && ' and local'} figures in force when the week began
-          (rules from {payRules.effectiveFrom}).
+          hour for every hour worked: the highest of the federal
+          {payRules.localMinimumWageCents !== null ? ', state and local' : ' and state'} figures in force when
+          the week began (rules from {payRules.effectiveFrom}).
         </Text>
         <Text>
           Flagged pay is paid in the week the line is finished: that is the shop’s practice.{' '}

@@ -23,6 +23,7 @@ import { PAY_FIELD_OF, PayFields, payBody, payDraftOf, type PayDraft } from './p
 
 const useStyles = makeStyles({
   surface: { maxWidth: '40rem' },
+  content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   grid: {
     display: 'grid',
     gridTemplateColumns: 'repeat(auto-fill, minmax(14rem, 1fr))',
@@ -91,7 +92,7 @@ export function PayRateDialog({
         <form onSubmit={submit} noValidate>
           <DialogBody>
             <DialogTitle>Pay for {user.name}</DialogTitle>
-            <DialogContent>
+            <DialogContent className={styles.content}>
               <div className={styles.grid}>
                 <PayFields
                   draft={draft}
