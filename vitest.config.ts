@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   resolve: { conditions: ['@baytime/source'] },
+  ssr: { resolve: { conditions: ['@baytime/source'] } },
   test: {
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
@@ -14,7 +15,14 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'server', include: ['server/src/**/*.spec.ts'], pool: 'forks', testTimeout: 20_000 },
+        // Starting the app in a hook takes more than vitest's 10 s default on a busy 2-core machine.
+        test: {
+          name: 'server',
+          include: ['server/src/**/*.spec.ts'],
+          pool: 'forks',
+          testTimeout: 20_000,
+          hookTimeout: 30_000,
+        },
       },
       {
         extends: true,

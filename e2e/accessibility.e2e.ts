@@ -4,7 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { OFFICE_NAV } from '../board/src/config/office-nav';
 import { paths } from '../board/src/config/paths';
 import { openBrowser } from './support/browser.js';
-import { openWall, signInAtOffice } from './support/floor.js';
+import type { ApprovalRequested } from '@baytime/shared';
+import { apiAs, openWall, recordFinding, signInAtOffice, technicianDay } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** WCAG 2.0, 2.1 and 2.2, levels A and AA, as axe-core tags its rules. */
@@ -191,6 +192,14 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
       .click();
     await page.getByRole('dialog').waitFor();
     findings.push(...(await checkPage(page, 'timecard correction dialog', seen)));
+    await page.goto(`${server.url}${paths.admin.users}`);
+    await page
+      .getByRole('button', { name: /^Edit / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'edit person dialog', seen)));
+    await page.keyboard.press('Escape');
     await page.goto(`${server.url}${paths.admin.screens}`);
     await page
       .getByRole('button', { name: /^Revoke / })
@@ -206,6 +215,25 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await page.keyboard.press('Enter');
     await page.getByRole('menu').waitFor();
     findings.push(...(await checkPage(page, 'dispatch Move menu', seen, '[role="menu"]')));
+    await page.keyboard.press('Escape');
+
+    // An RO whose work is done: the end of the visit, and the dialogs that edit it after the fact.
+    await page.goto(`${server.url}${paths.repairOrders}?status=done`);
+    await page.locator('main a[href^="/repair-orders/"]:not([href$="/new"])').first().click();
+    await page.getByRole('group', { name: 'End of the visit' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    findings.push(...(await checkPage(page, 'repair order, work done', seen)));
+    for (const [button, where] of [
+      ['Edit details', 'edit repair order dialog'],
+      ['Edit', 'edit job line dialog'],
+      ['Add a job line', 'add job line dialog'],
+    ] as const) {
+      await page.getByRole('button', { name: button, exact: true }).first().click();
+      await page.getByRole('dialog').waitFor();
+      findings.push(...(await checkPage(page, where, seen)));
+      await page.keyboard.press('Escape');
+      await page.getByRole('dialog').waitFor({ state: 'detached' });
+    }
     expect(findings).toEqual([]);
   }, 180_000);
 
@@ -300,6 +328,10 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await sheet.getByText(/last reading 30/).waitFor();
     await leaveSheet();
     findings.push(...(await checkPage(page, 'kiosk my day with a timer', seen)));
+    // A meal break with a timer running asks about the timer first.
+    await page.getByRole('button', { name: 'Start meal break' }).click();
+    await checkSheet('meal break with a running timer sheet');
+    await leaveSheet();
     for (const stop of await stopsWithoutFocusRing(page))
       findings.push(`kiosk my day: no focus ring on ${stop}`);
 
@@ -321,6 +353,47 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     findings.push(...(await checkPage(page, 'wall board', seen)));
     expect(findings).toEqual([]);
   });
+
+  it('customer approval page on a phone, and the advisor’s wording dialog', async () => {
+    const { token, day } = await technicianDay(server, '1043');
+    const finding = await recordFinding(server, token, day.lines[0]!.id, {
+      note: 'Front brake pads at 2 mm',
+      severity: 'safety-now',
+    });
+
+    const office = await freshPage({ width: 1600, height: 1000 });
+    await signInAtOffice(office, server, 'advisor@marlowcreek.test');
+    await office.goto(`${server.url}${paths.findings}`);
+    await office
+      .locator('li', { hasText: 'Front brake pads at 2 mm' })
+      .getByRole('button', { name: 'Review for the customer…' })
+      .click();
+    await office.getByRole('dialog').waitFor();
+    const findings = await checkPage(office, 'finding wording dialog', seen);
+
+    const advisor = await apiAs(server, 'advisor@marlowcreek.test');
+    await advisor('PATCH', `/findings/${finding.id}/quote`, {
+      customerWording: 'The front brake pads are worn down to 2 mm',
+      bookHours: 1.2,
+      partsCents: 64_00,
+    });
+    const sent = await advisor<ApprovalRequested>('POST', `/findings/${finding.id}/request-approval`);
+    const page = await freshPage({ width: 390, height: 844 });
+    await page.goto(sent.approvalUrl);
+    await page.getByRole('button', { name: 'Send my answer' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    findings.push(...(await checkPage(page, 'customer approval page', seen)));
+    await page.getByRole('button', { name: 'Send my answer' }).click();
+    await page.locator('[aria-invalid="true"]').first().waitFor();
+    findings.push(...(await checkPage(page, 'customer approval page, refused', seen)));
+    for (const stop of await stopsWithoutFocusRing(page))
+      findings.push(`customer approval page: no focus ring on ${stop}`);
+    await advisor('POST', `/approval-links/${sent.link.id}/revoke`);
+    await page.reload();
+    await page.getByText('This link is closed').waitFor();
+    findings.push(...(await checkPage(page, 'customer approval page, closed link', seen)));
+    expect(findings).toEqual([]);
+  }, 120_000);
 
   it('accepts only exceptions that still occur', () => {
     expect([...seen].map((exception) => exception.rule)).toEqual(ACCEPTED.map((exception) => exception.rule));

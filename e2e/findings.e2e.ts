@@ -1,6 +1,13 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BoardSnapshot, FindingDto, MailboxEntry, MyDay, RepairOrderSummary } from '@baytime/shared';
+import type {
+  BoardSnapshot,
+  FindingsPage,
+  MailboxEntry,
+  MyDay,
+  Page,
+  RepairOrderSummary,
+} from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, signInAtKiosk, signInAtOffice, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
@@ -28,7 +35,7 @@ describe('findings, approvals and e-mail', () => {
     await server?.stop();
   });
 
-  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving frees the bay', async () => {
+  it('a finding with a photo reaches the advisor live, the approval request goes out by SMTP, and approving by phone frees the bay', async () => {
     const advisor = await officeBrowser.newPage();
     await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
     await advisor.goto(`${server.url}/findings`);
@@ -74,13 +81,19 @@ describe('findings, approvals and e-mail', () => {
       holdReason: 'approval',
     });
 
-    await item.getByRole('button', { name: 'Send approval request to customer' }).click();
-    const [finding] = await owner<FindingDto[]>('GET', '/findings?answer=pending');
+    await item.getByRole('button', { name: 'Review for the customer…' }).click();
+    const wording = advisor.getByRole('dialog', { name: 'For the customer' });
+    await wording.getByLabel('What the customer reads').fill('Metal wear on the transmission pan magnet');
+    await wording.getByLabel('Book hours').fill('1.2');
+    await wording.getByRole('button', { name: 'Save for the customer' }).click();
+    await wording.waitFor({ state: 'detached' });
+    await item.getByRole('button', { name: 'Send approval link' }).click();
+    const [finding] = (await owner<FindingsPage>('GET', '/findings?answer=pending')).items;
     const ro = await owner<RepairOrderSummary>('GET', `/repair-orders/${finding!.repairOrderId}`);
     await expect
       .poll(
         async () =>
-          (await owner<MailboxEntry[]>('GET', '/mailbox')).find((m) =>
+          (await owner<Page<MailboxEntry>>('GET', '/mailbox')).items.find((m) =>
             m.subject.includes(`approval needed for RO ${ro.number}`),
           ),
         { timeout: 20_000 },
@@ -88,6 +101,7 @@ describe('findings, approvals and e-mail', () => {
       .toMatchObject({ to: [ro.customerEmail], attachments: [expect.stringMatching(/\.png$/)] });
 
     await item.getByRole('button', { name: /Customer approved/ }).click();
+    await advisor.getByRole('radio', { name: 'By phone' }).check();
     await advisor.getByLabel('Book hours to charge').fill('1.2');
     await advisor.getByRole('button', { name: 'Add the line' }).click();
     await expect
@@ -95,6 +109,11 @@ describe('findings, approvals and e-mail', () => {
       .toBe(ro.lines.length + 1);
     board = await owner<BoardSnapshot>('GET', '/board');
     expect(board.bays.find((b) => b.name === line.bayName)!.state).not.toBe('held');
+    const answered = (await owner<FindingsPage>('GET', '/findings?answer=approved')).items;
+    expect(answered.find((f) => f.id === finding!.id)).toMatchObject({
+      answerChannel: 'phone',
+      answeredBy: 'Nell Ashby',
+    });
   });
 
   it('refuses a renamed executable and an oversized photo, storing nothing', async () => {
@@ -120,7 +139,7 @@ describe('findings, approvals and e-mail', () => {
       });
       return { status: response.status, body: (await response.json()) as { message: string } };
     };
-    const before = (await owner<FindingDto[]>('GET', '/findings')).length;
+    const before = (await owner<FindingsPage>('GET', '/findings')).total;
     const exe = await send('photo.jpg', Buffer.concat([Buffer.from('MZ'), Buffer.alloc(2048, 1)]));
     expect(exe).toEqual({
       status: 400,
@@ -129,6 +148,6 @@ describe('findings, approvals and e-mail', () => {
     const huge = await send('big.png', Buffer.concat([PNG, Buffer.alloc(11 * 1024 * 1024)]));
     expect(huge.status).toBe(413);
     expect(huge.body.message).toBe('Photo 1 is larger than 10 MB');
-    expect((await owner<FindingDto[]>('GET', '/findings')).length).toBe(before);
+    expect((await owner<FindingsPage>('GET', '/findings')).total).toBe(before);
   });
 });

@@ -6,7 +6,10 @@ import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, bayTile, openWall, peopleStrip, signInAtKiosk, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
-/** The live path end to end: a kiosk tap shows on the wall within a second, with no reload. */
+/**
+ * The live path end to end: a kiosk tap shows on the wall with no reload. How fast is measured by
+ * `npm run bench` (punch-to-board latency), not here: the waits below are only generous limits.
+ */
 describe('kiosk to wall board', () => {
   let server: RunningServer;
   let browser: BrowserContext;
@@ -21,7 +24,7 @@ describe('kiosk to wall board', () => {
     await server?.stop();
   });
 
-  it("shows a technician's shift-in and clock-on on the wall within a second", async () => {
+  it("shows a technician's shift-in and clock-on on the wall without a reload", async () => {
     const jo = (await foreman<UserDto[]>('GET', '/users')).find((u) => u.name === 'Jo Whitfield')!;
     await foreman('POST', '/punches', { id: randomUUID(), kind: 'shift-out', technicianId: jo.id });
 
@@ -34,11 +37,7 @@ describe('kiosk to wall board', () => {
     const kiosk = await browser.newPage();
     await signInAtKiosk(kiosk, server, '1045');
     await kiosk.getByRole('button', { name: /Start shift/ }).click();
-    const tapped = Date.now();
-    await expect
-      .poll(() => peopleStrip(wall).textContent(), { timeout: 1000, interval: 25 })
-      .toContain('Jo W.');
-    expect(Date.now() - tapped).toBeLessThan(1000);
+    await expect.poll(() => peopleStrip(wall).textContent(), { timeout: 10_000 }).toContain('Jo W.');
 
     const dispatch = await foreman<DispatchBoard>('GET', '/dispatch');
     const line = dispatch.lanes
@@ -49,9 +48,7 @@ describe('kiosk to wall board', () => {
       .locator('li', { hasText: line.title })
       .getByRole('button', { name: /Clock on/ })
       .click();
-    await expect
-      .poll(() => bayTile(wall, bayName).textContent(), { timeout: 1000, interval: 25 })
-      .toMatch(/working/i);
+    await expect.poll(() => bayTile(wall, bayName).textContent(), { timeout: 10_000 }).toMatch(/working/i);
     // Facts share a tile line and take turns every 5 s: the name shows within a few turns.
     await expect.poll(() => bayTile(wall, bayName).textContent(), { timeout: 30_000 }).toContain('Jo W.');
     expect(await wall.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(

@@ -22,6 +22,8 @@ export default defineConfig({
   build: {
     target: ['chrome100', 'safari15', 'firefox100', 'edge100'],
     chunkSizeWarningLimit: 600,
+    // dist/.vite/manifest.json: which chunks each route loads, read by `npm run bench` for its sizes.
+    manifest: true,
     rolldownOptions: {
       // The shared package holds declarations and pure functions only: a module of it that the
       // kiosk does not use needs not ship (its zod schemas are built at load time otherwise).

@@ -1,3 +1,4 @@
+import type { FindingDto, MyDay } from '@baytime/shared';
 import type { Page } from 'playwright-core';
 import type { RunningServer } from './server.js';
 import { pairingCode } from './server.js';
@@ -63,4 +64,43 @@ export async function signInAtOffice(page: Page, server: RunningServer, email: s
   await page.getByLabel('Password').fill('baytime-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+/** A technician's token and day, as the kiosk gets them after a badge sign-in. */
+export async function technicianDay(
+  server: RunningServer,
+  badge: string,
+): Promise<{ token: string; day: MyDay }> {
+  const login = await fetch(`${server.url}/api/auth/badge`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ badge, pin: '4321' }),
+  });
+  const token = ((await login.json()) as { accessToken: string }).accessToken;
+  const day = (await fetch(`${server.url}/api/me/day`, {
+    headers: { authorization: `Bearer ${token}` },
+  }).then((r) => r.json())) as MyDay;
+  return { token, day };
+}
+
+/** A finding as the kiosk sends it: multipart fields, and photos in `photos`. */
+export async function recordFinding(
+  server: RunningServer,
+  token: string,
+  lineId: number,
+  fields: Record<string, string>,
+  photos: { name: string; type: string; bytes: Buffer }[] = [],
+): Promise<FindingDto> {
+  const form = new FormData();
+  for (const [name, value] of Object.entries(fields)) form.set(name, value);
+  for (const photo of photos)
+    form.append('photos', new Blob([new Uint8Array(photo.bytes)], { type: photo.type }), photo.name);
+  const response = await fetch(`${server.url}/api/job-lines/${lineId}/findings`, {
+    method: 'POST',
+    headers: { authorization: `Bearer ${token}` },
+    body: form,
+  });
+  if (response.status !== 201)
+    throw new Error(`finding not recorded: ${response.status} ${await response.text()}`);
+  return (await response.json()) as FindingDto;
 }

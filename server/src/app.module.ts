@@ -11,6 +11,7 @@ import { DatabaseModule } from './db/database.module.js';
 import { DemoModule } from './demo/demo.module.js';
 import { DispatchModule } from './dispatch/dispatch.module.js';
 import { FindingsModule } from './findings/findings.module.js';
+import { ApprovalsModule } from './approvals/approvals.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
@@ -23,6 +24,7 @@ import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
 import { TimersModule } from './timers/timers.module.js';
 import { UsersModule } from './users/users.module.js';
+import { VehiclesModule } from './vehicles/vehicles.module.js';
 import { WorkModule } from './work/work.module.js';
 
 /** The front ends: kiosk under /kiosk, the board (wall and office) at the root, each falling back to its index.html. */
@@ -57,12 +59,14 @@ export class AppModule {
         BoardModule,
         PunchesModule,
         WorkModule,
+        VehiclesModule,
         TimecardsModule,
         ReportsModule,
         PayWeeksModule,
         TimersModule,
         DispatchModule,
         FindingsModule,
+        ApprovalsModule,
         HealthModule,
         BackupModule,
         DemoModule,

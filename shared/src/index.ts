@@ -1,3 +1,4 @@
+export * from './input/fields.js';
 export * from './auth/auth.schema.js';
 export * from './users/users.schema.js';
 export * from './shop/shop.schema.js';
@@ -25,3 +26,12 @@ export * from './forecast/forecast.js';
 export * from './punches/timecard.schema.js';
 export * from './reports/report.schema.js';
 export * from './work/dispatch.schema.js';
+export * from './work/late-work.js';
+export * from './paging/page.schema.js';
+export * from './work/repair-order-list.schema.js';
+export * from './vehicles/vehicle-lookup.schema.js';
+export * from './findings/findings-page.schema.js';
+export * from './input/phone.js';
+export * from './approvals/price.js';
+export * from './approvals/approvals.schema.js';
+export * from './time/format.js';

@@ -25,6 +25,7 @@ export const router = createBrowserRouter([
         lazy: () => import('./routes/office/office-root'),
         children: [
           { path: paths.signIn, lazy: () => import('./routes/office/sign-in') },
+          { path: paths.approve, lazy: () => import('./routes/approve') },
           {
             lazy: () => import('./routes/office/shell'),
             children: [

@@ -41,7 +41,7 @@ export const OFFICE_NAV: readonly NavGroup[] = [
       { label: 'Operations menu', path: paths.admin.operations, roles: OWNER },
       { label: 'Wall screens', path: paths.admin.screens, roles: LEADS },
       { label: 'Shop settings', path: paths.admin.shop, roles: OWNER },
-      { label: 'Test mailbox', path: paths.admin.mailbox, roles: OWNER },
+      { label: 'Sent messages', path: paths.admin.mailbox, roles: OWNER },
     ],
   },
 ];

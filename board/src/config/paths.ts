@@ -2,6 +2,8 @@
 export const paths = {
   wall: '/wall',
   signIn: '/sign-in',
+  /** The customer's approval page, from the link in the message: no sign-in. */
+  approve: '/approve/:token',
   home: '/',
   floor: '/floor',
   dispatch: '/dispatch',

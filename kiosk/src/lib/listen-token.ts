@@ -15,18 +15,29 @@ interface Stored {
   expiresAt: number;
 }
 
-/** The `exp` of a JWT in ms, read without checking the signature (the server does that). */
-export function tokenExpiresAt(token: string): number | null {
+/** A JWT's payload, read without checking the signature (the server does that). */
+function tokenClaims(token: string): { exp?: unknown; sub?: unknown } {
   const payload = token.split('.')[1];
-  if (!payload) return null;
+  if (!payload) return {};
   try {
     const base64 = payload.replace(/-/g, '+').replace(/_/g, '/');
     const padded = base64 + '='.repeat((4 - (base64.length % 4)) % 4);
-    const { exp } = JSON.parse(atob(padded)) as { exp?: unknown };
-    return typeof exp === 'number' ? exp * 1000 : null;
+    return JSON.parse(atob(padded)) as { exp?: unknown; sub?: unknown };
   } catch {
-    return null;
+    return {};
   }
+}
+
+/** The `exp` of a JWT in ms. */
+export function tokenExpiresAt(token: string): number | null {
+  const { exp } = tokenClaims(token);
+  return typeof exp === 'number' ? exp * 1000 : null;
+}
+
+/** Whose token it is: the technician whose timers this kiosk chimes for. */
+export function tokenSubject(token: string): number | null {
+  const { sub } = tokenClaims(token);
+  return typeof sub === 'number' ? sub : null;
 }
 
 function read(): Stored | null {

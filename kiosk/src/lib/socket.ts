@@ -1,21 +1,24 @@
 import { useSyncExternalStore } from 'react';
-import type { Socket } from 'socket.io-client';
-import type { ClientToServerEvents, ServerToClientEvents } from '@baytime/shared';
+import type { LiveRefusal, ServerToClientEvents } from '@baytime/shared';
+import { createLiveLink, LIVE_SOCKET_OPTIONS, type LiveLink, type LiveSocket } from '@baytime/shared/client';
 
-export type KioskSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 export type LinkState = 'connecting' | 'online' | 'offline';
 type EventName = keyof ServerToClientEvents;
-type Handler = (...args: never[]) => void;
+type Handler = (payload: never) => void;
 
-let socket: KioskSocket | null = null;
-let socketToken: string | null = null;
+interface Current {
+  token: string;
+  link: LiveLink | null;
+  /** Events this link already passes on to the registered handlers. */
+  passed: Set<EventName>;
+  offs: (() => void)[];
+}
+
+let current: Current | null = null;
 let state: LinkState = 'offline';
-let retryTimer: ReturnType<typeof setTimeout> | undefined;
+let onRefused: ((refusal: LiveRefusal) => void) | null = null;
 const stateListeners = new Set<() => void>();
 const handlers = new Map<EventName, Set<Handler>>();
-let onAuthError: ((message: string) => void) | null = null;
-/** Bumped on every connect and disconnect, so a late module load cannot revive an old link. */
-let generation = 0;
 
 function setState(next: LinkState) {
   if (state === next) return;
@@ -23,54 +26,61 @@ function setState(next: LinkState) {
   for (const listener of stateListeners) listener();
 }
 
-function attach(s: KioskSocket) {
-  s.on('connect', () => setState('online'));
-  s.on('disconnect', (reason) => {
-    setState('offline');
-    // The client reconnects by itself except after a server-side disconnect, e.g. a restart.
-    if (reason === 'io server disconnect') {
-      clearTimeout(retryTimer);
-      retryTimer = setTimeout(() => {
-        if (socket === s) s.connect();
-      }, 3000);
-    }
-  });
-  s.on('connect_error', () => setState('offline'));
-  s.on('auth.error', ({ message }) => {
-    clearTimeout(retryTimer);
-    s.disconnect();
-    onAuthError?.(message);
-  });
-  for (const [event, set] of handlers) for (const handler of set) s.on(event, handler as never);
+function pass(to: Current, event: EventName) {
+  if (!to.link || to.passed.has(event)) return;
+  to.passed.add(event);
+  const handler = (payload: never) => {
+    for (const each of handlers.get(event) ?? []) each(payload);
+  };
+  to.offs.push(to.link.on(event, handler as ServerToClientEvents[EventName]));
 }
 
-/** One live link per signed-in technician; handlers registered with `onLive` survive reconnects. */
+function follow(to: Current, link: LiveLink) {
+  to.link = link;
+  const show = () => {
+    const { status } = link.getState();
+    setState(status === 'live' ? 'online' : status === 'connecting' ? 'connecting' : 'offline');
+  };
+  to.offs.push(link.subscribe(show));
+  for (const event of handlers.keys()) pass(to, event);
+  link.start();
+  show();
+}
+
+/**
+ * The kiosk's one live link, for the signed-in technician (or, while nobody is, the last token
+ * still valid). Socket.IO reconnects by itself; a refusal from the server (expired, deactivated)
+ * goes to `refused`, and the kiosk goes back to its sign-in screen.
+ */
 export const live = {
-  connect(token: string, authError: (message: string) => void) {
-    onAuthError = authError;
-    if (socketToken === token) return;
+  connect(token: string, refused: (refusal: LiveRefusal) => void) {
+    onRefused = refused;
+    if (current?.token === token) return;
     live.disconnect();
-    socketToken = token;
+    const mine: Current = { token, link: null, passed: new Set(), offs: [] };
+    current = mine;
     setState('connecting');
-    const mine = ++generation;
     // Loaded only once someone signs in: the keypad screen needs no live link.
     void import('socket.io-client')
       .then(({ io }) => {
-        if (mine !== generation) return;
-        socket = io({ auth: { token }, reconnectionDelayMax: 10_000 });
-        attach(socket);
+        if (current !== mine) return;
+        const socket = io({ auth: { token }, autoConnect: false, ...LIVE_SOCKET_OPTIONS });
+        follow(
+          mine,
+          createLiveLink({
+            socket: socket as unknown as LiveSocket,
+            onRefused: (refusal) => onRefused?.(refusal),
+          }),
+        );
       })
       .catch(() => {
-        if (mine === generation) setState('offline');
+        if (current === mine) setState('offline');
       });
   },
   disconnect() {
-    generation += 1;
-    clearTimeout(retryTimer);
-    socket?.removeAllListeners();
-    socket?.disconnect();
-    socket = null;
-    socketToken = null;
+    for (const off of current?.offs ?? []) off();
+    current?.link?.close();
+    current = null;
     setState('offline');
   },
   state: (): LinkState => state,
@@ -80,15 +90,13 @@ export const live = {
   },
 };
 
+/** Listens to a live event across reconnects and sign-ins, until the returned function is called. */
 export function onLive<E extends EventName>(event: E, handler: ServerToClientEvents[E]): () => void {
   let set = handlers.get(event);
   if (!set) handlers.set(event, (set = new Set()));
   set.add(handler as Handler);
-  socket?.on(event, handler as never);
-  return () => {
-    set.delete(handler as Handler);
-    socket?.off(event, handler as never);
-  };
+  if (current) pass(current, event);
+  return () => void set.delete(handler as Handler);
 }
 
 export function useLinkState(): LinkState {

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Post, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Ip, Post, UseGuards } from '@nestjs/common';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
 import {
   badgeLoginSchema,
@@ -23,8 +23,8 @@ export class AuthController {
   @Throttle({ default: { limit: 60, ttl: 60_000 } })
   @Post('auth/login')
   @HttpCode(200)
-  login(@Body({ schema: loginSchema }) body: LoginBody): Promise<SignInAnswer> {
-    return this.auth.login(body);
+  login(@Body({ schema: loginSchema }) body: LoginBody, @Ip() ip: string): Promise<SignInAnswer> {
+    return this.auth.login(body, ip);
   }
 
   @Public()
@@ -32,8 +32,8 @@ export class AuthController {
   @Throttle({ default: { limit: 60, ttl: 60_000 } })
   @Post('auth/badge')
   @HttpCode(200)
-  badge(@Body({ schema: badgeLoginSchema }) body: BadgeLoginBody): Promise<SignInAnswer> {
-    return this.auth.badge(body);
+  badge(@Body({ schema: badgeLoginSchema }) body: BadgeLoginBody, @Ip() ip: string): Promise<SignInAnswer> {
+    return this.auth.badge(body, ip);
   }
 
   @Public()

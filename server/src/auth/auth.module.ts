@@ -8,19 +8,27 @@ import { SignedInGuard } from '../common/guards/auth.guard.js';
 import { AuthController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
 import { JwtStrategy } from './jwt.strategy.js';
+import { SignInThrottle } from './sign-in-throttle.js';
 
 @Global()
 @Module({
   imports: [
     PassportModule,
-    ThrottlerModule.forRoot([{ ttl: 60_000, limit: 60 }]),
+    ThrottlerModule.forRoot({
+      throttlers: [{ ttl: 60_000, limit: 60 }],
+      errorMessage: 'Too many requests. Try again in a minute.',
+    }),
     JwtModule.registerAsync({
       inject: [APP_CONFIG],
-      useFactory: (config: AppConfig) => ({ secret: config.jwtSecret, signOptions: { algorithm: 'HS256' } }),
+      useFactory: (config: AppConfig) => ({
+        secret: config.jwtKey,
+        signOptions: { algorithm: 'HS256' },
+        verifyOptions: { algorithms: ['HS256'] },
+      }),
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, JwtStrategy, { provide: APP_GUARD, useClass: SignedInGuard }],
+  providers: [AuthService, SignInThrottle, JwtStrategy, { provide: APP_GUARD, useClass: SignedInGuard }],
   exports: [AuthService],
 })
 export class AuthModule {}

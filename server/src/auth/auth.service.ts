@@ -1,51 +1,53 @@
 import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { and, eq, isNull } from 'drizzle-orm';
-import type { BadgeLoginBody, LoginBody, PairScreenBody, SignInAnswer } from '@baytime/shared';
+import type {
+  BadgeLoginBody,
+  LiveRefusalReason,
+  LoginBody,
+  PairScreenBody,
+  SignInAnswer,
+} from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { screens, users } from '../db/schema/index.js';
-import { FailedAttempts } from './failed-attempts.js';
+import { hashPairingCode } from '../screens/pairing-code.js';
 import { verifySecret } from './passwords.js';
 import type { Principal, TokenPayload } from './principal.js';
-import { hashPairingCode } from '../screens/pairing-code.js';
+import { SignInThrottle } from './sign-in-throttle.js';
 
 const OFFICE_TOKEN_TTL = '12h';
 const KIOSK_TOKEN_TTL = '2h';
 /** A wall screen stays paired until the owner revokes it. */
 const DISPLAY_TOKEN_TTL = '3650d';
 
+/** A token checked: the caller and when the token runs out (ms), or why it is refused. */
+export type TokenCheck = { principal: Principal; expiresAt: number } | { refusal: LiveRefusalReason };
+
 @Injectable()
 export class AuthService {
-  private readonly failures = new FailedAttempts();
-
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly jwt: JwtService,
+    private readonly throttle: SignInThrottle,
   ) {}
 
-  async login({ email, password }: LoginBody): Promise<SignInAnswer> {
-    const key = `email:${email.toLowerCase()}`;
-    this.failures.assertAllowed(key);
-    const user = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
-    const ok = await verifySecret(password, user?.passwordHash ?? null);
-    if (!user || !ok || !user.active || user.role === 'technician') {
-      this.failures.fail(key);
-      throw new UnauthorizedException('E-mail or password not recognised');
-    }
-    this.failures.succeed(key);
+  async login({ email, password }: LoginBody, ip: string | undefined): Promise<SignInAnswer> {
+    const user = await this.throttle.check(`email:${email.toLowerCase()}`, ip, async () => {
+      const row = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
+      const ok = await verifySecret(password, row?.passwordHash ?? null);
+      return row && ok && row.active && row.role !== 'technician' ? row : null;
+    });
+    if (!user) throw new UnauthorizedException('E-mail or password not recognised');
     return this.answer(user, OFFICE_TOKEN_TTL);
   }
 
-  async badge({ badge, pin }: BadgeLoginBody): Promise<SignInAnswer> {
-    const key = `badge:${badge}`;
-    this.failures.assertAllowed(key);
-    const user = this.db.select().from(users).where(eq(users.badge, badge)).get();
-    const ok = await verifySecret(pin, user?.pinHash ?? null);
-    if (!user || !ok || !user.active || user.role !== 'technician') {
-      this.failures.fail(key);
-      throw new UnauthorizedException('Badge or PIN not recognised');
-    }
-    this.failures.succeed(key);
+  async badge({ badge, pin }: BadgeLoginBody, ip: string | undefined): Promise<SignInAnswer> {
+    const user = await this.throttle.check(`badge:${badge}`, ip, async () => {
+      const row = this.db.select().from(users).where(eq(users.badge, badge)).get();
+      const ok = await verifySecret(pin, row?.pinHash ?? null);
+      return row && ok && row.active && row.role === 'technician' ? row : null;
+    });
+    if (!user) throw new UnauthorizedException('Badge or PIN not recognised');
     return this.answer(user, KIOSK_TOKEN_TTL);
   }
 
@@ -68,23 +70,37 @@ export class AuthService {
   }
 
   /** The one place a token becomes a caller, for HTTP and for the live socket alike. */
-  principalFor(payload: TokenPayload): Principal | null {
+  check(token: unknown, now = Date.now()): TokenCheck {
+    if (typeof token !== 'string' || token === '') return { refusal: 'token-missing' };
+    let payload: TokenPayload;
+    try {
+      // Expiry is checked below, after the caller: a revoked screen hears that it was revoked.
+      payload = this.jwt.verify<TokenPayload>(token, { ignoreExpiration: true });
+    } catch {
+      return { refusal: 'token-invalid' };
+    }
+    return this.checkPayload(payload, now);
+  }
+
+  /** For a payload whose signature was already verified. */
+  checkPayload(payload: TokenPayload, now = Date.now()): TokenCheck {
+    const caller = this.callerOf(payload);
+    if (typeof caller === 'string') return { refusal: caller };
+    if (typeof payload.exp !== 'number') return { refusal: 'token-no-expiry' };
+    if (payload.exp * 1000 <= now) return { refusal: 'token-expired' };
+    return { principal: caller, expiresAt: payload.exp * 1000 };
+  }
+
+  private callerOf(payload: TokenPayload): Principal | LiveRefusalReason {
     if (payload.role === 'display') {
       const screen = this.db.select().from(screens).where(eq(screens.id, payload.sub)).get();
-      if (!screen || screen.revokedAt || !screen.pairedAt) return null;
+      if (!screen || screen.revokedAt || !screen.pairedAt) return 'screen-revoked';
       return { id: screen.id, name: screen.name, role: 'display' };
     }
     const user = this.db.select().from(users).where(eq(users.id, payload.sub)).get();
-    if (!user || !user.active || user.role !== payload.role) return null;
+    if (!user || !user.active) return 'account-inactive';
+    if (user.role !== payload.role) return 'role-changed';
     return { id: user.id, name: user.name, role: user.role };
-  }
-
-  verifyToken(token: string): Principal | null {
-    try {
-      return this.principalFor(this.jwt.verify<TokenPayload>(token));
-    } catch {
-      return null;
-    }
   }
 
   private answer(

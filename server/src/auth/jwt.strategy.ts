@@ -11,11 +11,20 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     @Inject(APP_CONFIG) config: AppConfig,
     private readonly auth: AuthService,
   ) {
-    super({ jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: config.jwtSecret });
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      // jsonwebtoken takes a key object; the passport-jwt types only list strings and buffers.
+      secretOrKey: config.jwtKey as unknown as Buffer,
+      algorithms: ['HS256'],
+    });
   }
 
-  /** passport answers 401 when this returns false: a deactivated user or a revoked screen. */
+  /**
+   * passport answers 401 when this returns false: a deactivated user, a revoked screen, or a token
+   * without an expiry.
+   */
   validate(payload: TokenPayload): Principal | false {
-    return this.auth.principalFor(payload) ?? false;
+    const checked = this.auth.checkPayload(payload);
+    return 'principal' in checked ? checked.principal : false;
   }
 }

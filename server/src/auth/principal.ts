@@ -10,4 +10,6 @@ export interface Principal {
 export interface TokenPayload {
   sub: number;
   role: Role;
+  /** Seconds since the epoch; every token this server signs has one, and one without is refused. */
+  exp?: number;
 }

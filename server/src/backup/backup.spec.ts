@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdtempSync } from 'node:fs';
+import Database from 'better-sqlite3';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -52,8 +53,55 @@ describe(BackupService.name, () => {
     expect(kept[0]).toBe('baytime-20260101T000003Z.sqlite');
   });
 
-  it('refuses to restore a file that is not a whole database', () => {
+  it('refuses to restore a file that is not a whole database, and leaves the database as it was', async () => {
+    const sut = await startTestApp();
+    apps.push(sut);
+    const backup = await sut.app.get(BackupService).backupNow();
+    const whole = readFileSync(backup);
     const dir = mkdtempSync(join(tmpdir(), 'baytime-restore-'));
-    expect(() => restoreBackup(join(dir, 'missing.sqlite'), join(dir, 'db.sqlite'))).toThrow(/No backup/);
+    const dbFile = join(dir, 'db.sqlite');
+    writeFileSync(dbFile, 'the database in use');
+    const refusal = (file: string) => {
+      try {
+        restoreBackup(file, dbFile);
+      } catch (error) {
+        return (error as Error).message;
+      }
+      return 'restored';
+    };
+
+    expect(refusal(join(dir, 'missing.sqlite'))).toBe(`No backup at ${join(dir, 'missing.sqlite')}`);
+
+    const text = join(dir, 'notes.sqlite');
+    writeFileSync(text, 'Bay 3: lift inspection due in March\n'.repeat(200));
+    expect(refusal(text)).toBe(`The backup ${text} is not a SQLite database. Nothing was restored.`);
+
+    // A copy that stopped halfway: the header still promises every page.
+    const truncated = join(dir, 'truncated.sqlite');
+    writeFileSync(truncated, whole.subarray(0, 40_000));
+    expect(refusal(truncated)).toBe(
+      `The backup ${truncated} is cut short: 40000 of ${whole.length} bytes. Nothing was restored.`,
+    );
+
+    // One page overwritten inside the file: the punches table's first page.
+    const reader = new Database(backup, { readonly: true });
+    const { rootpage } = reader
+      .prepare("select rootpage from sqlite_schema where name = 'punches'")
+      .get() as {
+      rootpage: number;
+    };
+    const pageSize = reader.pragma('page_size', { simple: true }) as number;
+    reader.close();
+    const damaged = join(dir, 'damaged.sqlite');
+    const bytes = Buffer.from(whole);
+    bytes.fill(0xff, (rootpage - 1) * pageSize, rootpage * pageSize);
+    writeFileSync(damaged, bytes);
+    expect(refusal(damaged)).toBe(
+      `The backup ${damaged} is damaged: SQLite cannot read it (database disk image is malformed). Nothing was restored.`,
+    );
+
+    expect(readFileSync(dbFile, 'utf8')).toBe('the database in use');
+    expect(refusal(backup)).toBe('restored');
+    expect(readFileSync(dbFile).equals(whole)).toBe(true);
   });
 });

@@ -1,9 +1,13 @@
-import { Body, Controller, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Patch, Post, Put } from '@nestjs/common';
 import {
+  bayOrderSchema,
   createBaySchema,
+  finalCheckSchema,
   updateBaySchema,
   type BayDto,
+  type BayOrderBody,
   type CreateBayBody,
+  type FinalCheckBody,
   type UpdateBayBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -26,11 +30,28 @@ export class BaysController {
     return this.bays.create(body, actor);
   }
 
+  @Roles('owner')
+  @Put('order')
+  reorder(@Body({ schema: bayOrderSchema }) body: BayOrderBody, @CurrentUser() actor: Principal): BayDto[] {
+    return this.bays.reorder(body, actor);
+  }
+
   @Roles('owner', 'foreman', 'advisor')
   @Post(':id/release')
   @HttpCode(200)
   release(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): BayDto {
     return this.bays.release(id, actor);
+  }
+
+  @Roles('technician', 'foreman', 'advisor', 'owner')
+  @Post(':id/final-check')
+  @HttpCode(200)
+  finalCheck(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: finalCheckSchema }) body: FinalCheckBody,
+    @CurrentUser() actor: Principal,
+  ): BayDto {
+    return this.bays.finalCheck(id, body, actor);
   }
 
   @Roles('owner')

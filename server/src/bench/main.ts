@@ -1,236 +1,233 @@
 import { JwtService } from '@nestjs/jwt';
-import { eq } from 'drizzle-orm';
-import { spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { gzipSync } from 'node:zlib';
-import { io, type Socket } from 'socket.io-client';
-import {
-  addIsoWeeks,
-  buildLedger,
-  workweekBounds,
-  workweekOf,
-  type BoardPerson,
-  type ServerToClientEvents,
-} from '@baytime/shared';
-import { countRows, openDatabase } from '../db/database.js';
-import { punches, screens } from '../db/schema/index.js';
+import { addIsoWeeks, workweekOf } from '@baytime/shared';
+import { loadConfig } from '../config/app-config.js';
 import { DEFAULT_SHOP } from '../shop/shop.service.js';
-import { toPunchDto } from '../labour/labour.service.js';
-import { seedSyntheticYear } from './synthetic-year.js';
+import { routeJsKb } from './bundle-size.js';
+import { allSnapshots, connect, punchLoad } from './live-load.js';
+import { ServerProcess } from './server-process.js';
+import { seedBusyShop } from './synthetic-year.js';
 
-/** `npm run bench`: prints figures, the last line one JSON object. It reports; it never fails on speed. */
-const KIOSKS = Number(process.env.BENCH_KIOSKS ?? 100);
-const BOARDS = Number(process.env.BENCH_BOARDS ?? 20);
-const PUNCHES_PER_SECOND = Number(process.env.BENCH_RATE ?? 20);
-const SECONDS = Number(process.env.BENCH_SECONDS ?? 15);
-const REPORT_TECHS = 40;
-const LEDGER_TECHS = 30;
+/*
+ * `npm run bench`: a 40-technician shop with three years of history, served by the built server in its
+ * own process, measured from outside. Prints each figure, then one JSON line with the figures the
+ * project tracks (issue 13). It reports; it never fails on a target.
+ *
+ * BENCH_PROFILE=<dir> runs the measured server under `node --cpu-prof` and writes its profile there.
+ */
+const KIOSKS = 980;
+const BOARDS = 20;
+const RATE = 20;
+const SECONDS = 30;
+const profileDir = process.env.BENCH_PROFILE;
 const repoRoot = fileURLToPath(new URL('../../../', import.meta.url));
-const figures: Record<string, number | string | null> = {};
 
-const percentile = (sorted: number[], p: number) =>
-  sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
-const round = (n: number, digits = 1) => Math.round(n * 10 ** digits) / 10 ** digits;
-function report(name: string, value: number | string | null, unit = ''): void {
-  figures[name] = value;
-  console.log(`${name.padEnd(34)} ${value}${unit ? ` ${unit}` : ''}`);
-}
-async function timed<T>(run: () => T | Promise<T>, times = 5): Promise<number> {
-  const samples: number[] = [];
-  for (let i = 0; i < times; i++) {
-    const start = performance.now();
-    await run();
-    samples.push(performance.now() - start);
-  }
-  return samples.sort((a, b) => a - b)[Math.floor(samples.length / 2)]!;
-}
-
-const dataDir = mkdtempSync(join(tmpdir(), 'baytime-bench-'));
-const secret = 'bench-only-secret';
-const { connection, db } = openDatabase(join(dataDir, 'baytime.sqlite'));
-console.log(`Seeding a year of punches for ${REPORT_TECHS} technicians…`);
-const { technicianIds, idleTechnicianIds } = await seedSyntheticYear(db, {
-  technicians: REPORT_TECHS,
-  idleTechnicians: KIOSKS,
-  days: 365,
-});
-report('punches in database', countRows(db, punches));
-
-// 1. Ledger: a year of punches for 30 technicians, with the 52 weekly totals of each.
-const yearPunches = technicianIds
-  .slice(0, LEDGER_TECHS)
-  .map((id) => db.select().from(punches).where(eq(punches.technicianId, id)).all().map(toPunchDto));
-const now = new Date();
-const ledgerMs = await timed(() => {
-  for (const list of yearPunches) {
-    const ledger = buildLedger(list, now, DEFAULT_SHOP);
-    let week = workweekOf(now, DEFAULT_SHOP);
-    for (let w = 0; w < 52; w++, week = addIsoWeeks(week, -1)) {
-      const { from, to } = workweekBounds(week, DEFAULT_SHOP);
-      ledger.within(from, to);
-    }
-  }
-}, 3);
-report(`ledger year x ${LEDGER_TECHS} techs (+52 weeks)`, round(ledgerMs), 'ms');
-
-// Paired wall screens for the live test.
-const screenIds = Array.from(
-  { length: BOARDS },
-  (_, i) =>
-    db
-      .insert(screens)
-      .values({ name: `Bench wall ${i + 1}`, pairedAt: now, createdAt: now })
-      .returning()
-      .get().id,
-);
-connection.close();
-
-// 2. The real server as a separate process, so its CPU and memory can be read from /proc.
-const port = 3900 + Math.floor(Math.random() * 90);
-const url = `http://127.0.0.1:${port}`;
-const server = spawn(process.execPath, ['server/dist/main.js'], {
-  cwd: repoRoot,
-  env: {
-    ...process.env,
-    PORT: String(port),
-    BAYTIME_DATA_DIR: dataDir,
-    BAYTIME_DEMO: '0',
-    JWT_SECRET: secret,
-  },
-  stdio: ['ignore', 'ignore', 'inherit'],
-});
-for (let i = 0; i < 200; i++) {
-  if (
-    await fetch(`${url}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    )
-  )
-    break;
-  await new Promise((r) => setTimeout(r, 100));
-}
-const jwt = new JwtService({ secret });
-
-// 3. Reports over a year of punches (owner token minted with the server's secret).
-const { users } = await import('../db/schema/index.js');
-const reportDb = openDatabase(join(dataDir, 'baytime.sqlite'));
-const ownerId = reportDb.db
-  .insert(users)
-  .values({ name: 'Bench Owner', role: 'owner', email: 'bench@example.test', createdAt: now })
-  .returning()
-  .get().id;
-reportDb.connection.close();
-const owner = jwt.sign({ sub: ownerId, role: 'owner' });
-const lastWeek = addIsoWeeks(workweekOf(now, DEFAULT_SHOP), -1);
-for (const kind of ['labour', 'pay'] as const) {
-  const path = `${url}/api/reports/${kind}?week=${lastWeek}`;
-  const probe = await fetch(path, { headers: { authorization: `Bearer ${owner}` } });
-  report(
-    `${kind} report, ${REPORT_TECHS} techs, 1 year`,
-    probe.ok
-      ? round(
-          await timed(() =>
-            fetch(path, { headers: { authorization: `Bearer ${owner}` } }).then((r) => r.text()),
-          ),
-        )
-      : `n/a (${probe.status})`,
-    probe.ok ? 'ms' : '',
+const tracked: Record<string, number> = {};
+const round = (value: number) => Math.round(value * 10) / 10;
+function print(label: string, value: number | string, unit = ''): void {
+  console.log(
+    `${label.padEnd(44)} ${typeof value === 'number' ? round(value) : value}${unit ? ` ${unit}` : ''}`,
   );
 }
-
-// 4. Live load: K kiosks and M wall boards on sockets, P punches a second over HTTP.
-type Client = Socket<ServerToClientEvents>;
-const connect = (token: string): Promise<Client> =>
-  new Promise((resolve, reject) => {
-    const socket: Client = io(url, { auth: { token }, transports: ['websocket'], reconnection: false });
-    socket.once('board.snapshot', () => resolve(socket));
-    socket.once('connect_error', reject);
-  });
-const kioskTokens = idleTechnicianIds.map((id) => ({ id, token: jwt.sign({ sub: id, role: 'technician' }) }));
-const kiosks = await Promise.all(kioskTokens.map(({ token }) => connect(token)));
-const boards = await Promise.all(screenIds.map((id) => connect(jwt.sign({ sub: id, role: 'display' }))));
-
-const onShift = new Set<number>();
-/** Per technician, the punch in flight: when it was sent, what the board should show, which boards saw it. */
-const pending = new Map<number, { sentAt: number; expectOnShift: boolean; seenBy: Set<number> }>();
-const latencies: number[] = [];
-boards.forEach((board, boardNo) =>
-  board.on('floor.updated', ({ people }: { people: BoardPerson[] }) => {
-    const receivedAt = performance.now();
-    const present = new Set(people.map((p) => p.id));
-    for (const [techId, wait] of pending)
-      if (!wait.seenBy.has(boardNo) && present.has(techId) === wait.expectOnShift) {
-        wait.seenBy.add(boardNo);
-        latencies.push(receivedAt - wait.sentAt);
-      }
-  }),
-);
-const cpuTicks = () => {
-  const fields = readFileSync(`/proc/${server.pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
-  return Number(fields[11]) + Number(fields[12]);
-};
-const peakRssKb = () =>
-  Number(/VmHWM:\s+(\d+)/.exec(readFileSync(`/proc/${server.pid}/status`, 'utf8'))?.[1] ?? NaN);
-const cpuBefore = cpuTicks();
-const started = performance.now();
-let sent = 0;
-let refused = 0;
-const total = PUNCHES_PER_SECOND * SECONDS;
-await new Promise<void>((resolve) => {
-  const timer = setInterval(async () => {
-    if (sent >= total) {
-      clearInterval(timer);
-      resolve();
-      return;
-    }
-    sent++;
-    const { id, token } = kioskTokens[sent % kioskTokens.length]!;
-    const kind = onShift.has(id) ? 'shift-out' : 'shift-in';
-    if (kind === 'shift-in') onShift.add(id);
-    else onShift.delete(id);
-    pending.set(id, { sentAt: performance.now(), expectOnShift: kind === 'shift-in', seenBy: new Set() });
-    const response = await fetch(`${url}/api/punches`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json', authorization: `Bearer ${token}` },
-      body: JSON.stringify({ id: randomUUID(), kind }),
-    });
-    if (response.status !== 201) refused++;
-  }, 1000 / PUNCHES_PER_SECOND);
-});
-await new Promise((r) => setTimeout(r, 1500));
-const elapsed = (performance.now() - started) / 1000;
-const cpuSeconds = (cpuTicks() - cpuBefore) / 100;
-const sorted = latencies.sort((a, b) => a - b);
-report('kiosks / boards connected', `${kiosks.length} / ${boards.length}`);
-report('punches sent / refused', `${sent} / ${refused}`);
-report('sustained punches per second', round(sent / (elapsed - 1.5)));
-report('punch-to-board p50', round(percentile(sorted, 50)), 'ms');
-report('punch-to-board p95', round(percentile(sorted, 95)), 'ms');
-report('punch-to-board p99', round(percentile(sorted, 99)), 'ms');
-report('board deliveries measured', sorted.length);
-report('server CPU during load', round((cpuSeconds / elapsed) * 100), '% of one core');
-report('server peak memory (VmHWM)', round(peakRssKb() / 1024), 'MB');
-for (const socket of [...kiosks, ...boards]) socket.disconnect();
-server.kill('SIGTERM');
-
-// 5. Initial JavaScript of each app, gzipped.
-function initialJs(app: string, extra: RegExp | null = null): number {
-  const dist = join(repoRoot, app, 'dist');
-  const html = readFileSync(join(dist, 'index.html'), 'utf8');
-  const files = new Set([...html.matchAll(/(?:src|href)="[^"]*?(assets\/[^"]+\.js)"/g)].map((m) => m[1]!));
-  if (extra)
-    for (const file of readdirSync(join(dist, 'assets')))
-      if (extra.test(file) && file.endsWith('.js')) files.add(`assets/${file}`);
-  return [...files].reduce((sum, file) => sum + gzipSync(readFileSync(join(dist, file))).length, 0) / 1000;
+function track(key: string, value: number, label: string, unit: string): void {
+  tracked[key] = round(value);
+  print(label, value, unit);
 }
-report('kiosk initial JS (gzip)', round(initialJs('kiosk')), 'kB');
-report('board initial JS (gzip)', round(initialJs('board')), 'kB');
-report('wall board route JS (gzip)', round(initialJs('board', /wall/i)), 'kB');
+const percentile = (sorted: readonly number[], p: number) =>
+  sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
+const median = (values: readonly number[]) =>
+  percentile(
+    [...values].sort((a, b) => a - b),
+    50,
+  );
 
+/**
+ * Times `run` up to `times` times, stopping early once `budgetMs` is spent or `run` answers false (a
+ * failed request is timed once); answers the samples.
+ */
+async function samples(run: () => Promise<boolean>, times: number, budgetMs: number): Promise<number[]> {
+  const taken: number[] = [];
+  const until = performance.now() + budgetMs;
+  let again = true;
+  while (again && taken.length < times && (taken.length === 0 || performance.now() < until)) {
+    const start = performance.now();
+    again = await run();
+    taken.push(performance.now() - start);
+  }
+  return taken;
+}
+
+/** Other work on the machine slows every figure that is a time; the CPU times hold better. */
+function machine(): string {
+  const pressure = existsSync('/proc/pressure/cpu')
+    ? /avg60=([\d.]+)/.exec(readFileSync('/proc/pressure/cpu', 'utf8'))?.[1]
+    : undefined;
+  const [load] = loadavg();
+  return `${availableParallelism()} cores, Node ${process.versions.node}, load average ${load!.toFixed(1)}${pressure ? `, CPU pressure ${pressure}%` : ''}`;
+}
+print('machine', machine());
+
+// 1. The shop, written straight into a fresh database, and the JWT secret the server will read there.
+const dataDir = mkdtempSync(join(tmpdir(), 'baytime-bench-'));
+const config = loadConfig({ BAYTIME_DATA_DIR: dataDir });
+const seedStart = performance.now();
+const shop = await seedBusyShop(config.dbFile);
+print('seeded in', (performance.now() - seedStart) / 1000, 's');
+for (const [name, count] of Object.entries(shop.counts)) print(`  ${name}`, count.toLocaleString('en-US'));
+track('history years', shop.historyYears, 'history', 'years');
+
+const jwt = new JwtService({ secret: config.jwtKey, signOptions: { algorithm: 'HS256' } });
+const kioskToken = (technicianId: number) =>
+  jwt.sign({ sub: technicianId, role: 'technician' }, { expiresIn: '2h' });
+const displayToken = (screenId: number) =>
+  jwt.sign({ sub: screenId, role: 'display' }, { expiresIn: '3650d' });
+const owner = {
+  authorization: `Bearer ${jwt.sign({ sub: shop.ownerId, role: 'owner' }, { expiresIn: '1h' })}`,
+};
+
+// 2. Start-up on the three-year database: spawn → /api/health 200, three times; the last one stays up.
+const port = 3900 + Math.floor(Math.random() * 90);
+const server = new ServerProcess(
+  repoRoot,
+  config.dbFile,
+  port,
+  profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
+);
+const starts: number[] = [];
+for (let i = 0; i < 3; i++) {
+  if (i > 0) await server.stop();
+  starts.push(await server.start());
+}
+print('serve healthy, each start', starts.map((ms) => Math.round(ms)).join(', '), 'ms');
+track('serve healthy ms', median(starts), 'serve healthy (median of 3)', 'ms');
+
+// 3. 980 kiosks and 20 wall boards on live sockets.
+const connectStart = performance.now();
+const connectCpu = server.cpuMs();
+const kiosks = Array.from({ length: KIOSKS }, (_, i) =>
+  connect(server.url, kioskToken(shop.technicianIds[i % shop.technicianIds.length]!)),
+);
+const boards = shop.screenIds.slice(0, BOARDS).map((id) => connect(server.url, displayToken(id)));
+const sockets = [...kiosks, ...boards];
+const connected = await allSnapshots(sockets, 60_000);
+print(`${sockets.length} sockets hold a snapshot after`, connected - connectStart, 'ms');
+print(`  server CPU for ${sockets.length} connections`, server.cpuMs() - connectCpu, 'ms');
+
+// 4. The load: 20 punches a second for 30 s, from kiosks of the technicians on shift.
+const load = await punchLoad(
+  server,
+  boards,
+  shop.onShift.map((tech) => ({ ...tech, token: kioskToken(tech.technicianId) })),
+  { rate: RATE, seconds: SECONDS },
+);
+const latencies = load.latencies.sort((a, b) => a - b);
+print('punches sent / refused', `${load.sent} / ${load.refused}`);
+print('board deliveries measured / missed', `${latencies.length} / ${load.missed}`);
+print('punch-to-board p50', percentile(latencies, 50), 'ms');
+track('punch-to-board p95 ms', percentile(latencies, 95), 'punch-to-board p95', 'ms');
+track('punch-to-board p99 ms', percentile(latencies, 99), 'punch-to-board p99', 'ms');
+print('server CPU during the load', (load.serverCpuMs / load.elapsedMs) * 100, '% of one core');
+track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
+print('event loop delay p50 / max', `${load.eventLoop.p50Ms} / ${load.eventLoop.maxMs}`, 'ms');
+track('event loop delay p99 ms', load.eventLoop.p99Ms, 'event loop delay p99', 'ms');
+const memory = server.memoryMb();
+track('server rss mb at 1000 sockets', memory.rss, `server RSS with ${sockets.length} sockets`, 'MB');
+print('server peak RSS so far', memory.peak, 'MB');
+
+// 5. Kill the server and start it again: every socket reconnects by itself and gets a fresh snapshot.
+await server.stop(profileDir ? 'SIGINT' : 'SIGKILL');
+const snapshots = allSnapshots(sockets, 120_000);
+const restart = performance.now();
+const restartHealthyMs = await server.start();
+const reconnectCpu = server.cpuMs();
+const allBack = await snapshots;
+const reconnectCpuMs = server.cpuMs() - reconnectCpu;
+print('restarted server healthy after', restartHealthyMs, 'ms');
+print(`${sockets.length} sockets back, after healthy`, allBack - restart - restartHealthyMs, 'ms');
+print(`  server CPU from healthy to all back`, reconnectCpuMs, 'ms');
+track('reconnect 1000 sockets ms', allBack - restart, `${sockets.length} sockets back, after restart`, 'ms');
+for (const socket of sockets) socket.close();
+
+// 6. Reads over the three years: a week's reports, a page of repair orders with a search.
+const lastWeek = addIsoWeeks(workweekOf(new Date(), DEFAULT_SHOP), -1);
+const report = (kind: 'labour' | 'pay') => async () => {
+  const response = await fetch(`${server.url}/api/reports/${kind}?week=${lastWeek}`, { headers: owner });
+  if (!response.ok) throw new Error(`${kind} report: ${response.status} ${await response.text()}`);
+  return (await response.text()).length > 0;
+};
+for (const [kind, key] of [
+  ['labour', 'labour report ms'],
+  ['pay', 'pay report ms'],
+] as const) {
+  const [first, ...rest] = await samples(report(kind), 6, 20_000);
+  print(`${kind} report ${lastWeek}, first`, first!, 'ms');
+  track(key, median(rest), `${kind} report ${lastWeek}, median of ${rest.length}`, 'ms');
+}
+// In a working shop a punch comes between two reports: a technician off today clocks in and out.
+const offToday = kioskToken(shop.technicianIds.at(-1)!);
+const afterPunch: number[] = [];
+for (const kind of ['shift-in', 'shift-out', 'shift-in']) {
+  await fetch(`${server.url}/api/punches`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', authorization: `Bearer ${offToday}` },
+    body: JSON.stringify({ id: randomUUID(), kind }),
+  });
+  const start = performance.now();
+  await report('labour')();
+  afterPunch.push(performance.now() - start);
+}
+print('labour report just after a punch, median of 3', median(afterPunch), 'ms');
+
+const page = `${server.url}/api/repair-orders?limit=50&q=${encodeURIComponent(shop.searchTerm)}`;
+const answers: { status: number; bytes: number }[] = [];
+const pageTimes = await samples(
+  async () => {
+    const response = await fetch(page, { headers: owner });
+    answers.push({ status: response.status, bytes: (await response.arrayBuffer()).byteLength });
+    return response.ok;
+  },
+  20,
+  30_000,
+);
+const answered = answers.at(-1)!;
+print('repair order page answer', `${answered.status}, ${round(answered.bytes / 1000)} kB`);
+track('repair order page ms', median(pageTimes), `repair order page, median of ${pageTimes.length}`, 'ms');
+await server.stop(profileDir ? 'SIGINT' : 'SIGTERM');
+
+// 7. What a tablet and a wall screen download before they show anything, gzipped.
+track(
+  'kiosk initial js kb',
+  routeJsKb(join(repoRoot, 'kiosk/dist'), 'src/app/routes/sign-in.tsx'),
+  'kiosk sign-in JS',
+  'kB',
+);
+track(
+  'wall route js kb',
+  routeJsKb(join(repoRoot, 'board/dist'), 'src/app/routes/wall.tsx'),
+  'wall route JS',
+  'kB',
+);
+
+print('machine', machine());
 rmSync(dataDir, { recursive: true, force: true });
-console.log(JSON.stringify(figures));
+const KEYS = [
+  'history years',
+  'punch-to-board p95 ms',
+  'punch-to-board p99 ms',
+  'server cpu ms per punch',
+  'event loop delay p99 ms',
+  'reconnect 1000 sockets ms',
+  'server rss mb at 1000 sockets',
+  'serve healthy ms',
+  'repair order page ms',
+  'labour report ms',
+  'pay report ms',
+  'kiosk initial js kb',
+  'wall route js kb',
+];
+console.log(JSON.stringify(Object.fromEntries(KEYS.map((key) => [key, tracked[key] ?? null]))));
 process.exit(0);

@@ -19,6 +19,8 @@ import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
+/** How long a snapshot is handed out again while nothing was published: a restart's reconnect storm. */
+const SNAPSHOT_REUSE_MS = 250;
 
 /** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
 function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>): FloorLine | undefined {
@@ -39,6 +41,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
   /** Counted by dispatch from its forecasts; the board only carries the number. */
   private lateLines = 0;
   private subscription: Subscription | null = null;
+  private latest: { snapshot: BoardSnapshot; at: number } | null = null;
 
   constructor(
     private readonly floor: FloorService,
@@ -58,11 +61,24 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     this.subscription?.unsubscribe();
   }
 
-  current(): BoardSnapshot {
-    return this.snapshot(this.live.seq);
+  /**
+   * The floor now, for a screen that connects or asks. The same snapshot serves every screen that asks
+   * within a quarter second while no message went out (its `seq` still true), so a thousand sockets
+   * reconnecting after a restart cost a few snapshots, not a thousand.
+   */
+  current(now = Date.now()): BoardSnapshot {
+    const latest = this.latest;
+    if (latest && latest.snapshot.seq === this.live.seq && now - latest.at < SNAPSHOT_REUSE_MS)
+      return latest.snapshot;
+    const snapshot = this.snapshot(this.live.seq, new Date(now));
+    this.latest = { snapshot, at: now };
+    return snapshot;
   }
 
-  /** Sends what changed since the last publication: a message per changed bay, one for people and queue. */
+  /**
+   * Sends what changed since the last publication: a message per changed or new bay, then one for
+   * people, queue, late count and the bays' order (which also drops a retired bay from the wall).
+   */
   publishChanges(now = new Date()): void {
     const before = this.published ?? this.snapshot(this.live.seq, now);
     const after = this.snapshot(this.live.seq, now);
@@ -70,16 +86,16 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       const old = before.bays.find((b) => b.id === bay.id);
       if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay }, { to: 'floor' });
     }
+    const bayIds = after.bays.map((bay) => bay.id);
     if (
-      after.bays.length !== before.bays.length ||
       !isDeepStrictEqual(
-        [after.people, after.queue, after.lateLines],
-        [before.people, before.queue, before.lateLines],
+        [bayIds, after.people, after.queue, after.lateLines],
+        [before.bays.map((bay) => bay.id), before.people, before.queue, before.lateLines],
       )
     )
       this.live.publish(
         'floor.updated',
-        { people: after.people, queue: after.queue, lateLines: after.lateLines },
+        { people: after.people, queue: after.queue, lateLines: after.lateLines, bayIds },
         { to: 'floor' },
       );
     this.published = { ...after, seq: this.live.seq };
@@ -207,7 +223,10 @@ function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: n
   if (state.status !== 'on-shift' || !ledger) return since;
   const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
   if (open) return open.from;
-  const ends = [...ledger.jobs, ...ledger.breaks].map((interval) => interval.to.getTime());
+  // Only intervals that really ended: an open one's end is just when its ledger was last built.
+  const ends = [...ledger.jobs, ...ledger.breaks]
+    .filter((interval) => !interval.open)
+    .map((interval) => interval.to.getTime());
   return new Date(Math.max(since.getTime(), ...ends));
 }
 

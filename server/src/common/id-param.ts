@@ -1,3 +1,2 @@
-import { z } from 'zod';
-
-export const idParamSchema = z.coerce.number().int().positive('An id is a positive whole number');
+/** A row id in the path: decimal digits only, a positive safe integer ("0x10" is not 16). */
+export { idTextSchema as idParamSchema } from '@baytime/shared';

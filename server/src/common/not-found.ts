@@ -1,7 +1,13 @@
-import { NotFoundException } from '@nestjs/common';
+import { BadRequestException, NotFoundException } from '@nestjs/common';
 
 export function foundOrFail<T>(row: T | undefined, what: string): T {
   if (row === undefined) throw new NotFoundException(`${what} not found`);
+  return row;
+}
+
+/** An id in a request body that names nothing: the request is wrong (400), no page is missing (404). */
+export function referencedOrFail<T>(row: T | undefined, what: string): T {
+  if (row === undefined) throw new BadRequestException(`No ${what} with that id`);
   return row;
 }
 

@@ -1,4 +1,4 @@
-import { randomBytes } from 'node:crypto';
+import { createSecretKey, randomBytes, type KeyObject } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { isAbsolute, join, resolve } from 'node:path';
 
@@ -12,7 +12,18 @@ export interface AppConfig {
   adminPassword: string | null;
   demo: boolean;
   smtpUrl: string | null;
+  /** Twilio's account and sending number (or messaging service id); null = the local text box. */
+  twilio: { accountSid: string; authToken: string; from: string } | null;
+  /** Where customers reach the server, for approval links; null = the address the office uses. */
+  publicUrl: string | null;
   jwtSecret: string;
+  /**
+   * The same secret as a key object, for signing and verifying: given a string, jsonwebtoken first
+   * tries to read it as a PEM public key and catches the error, about 0.5 ms on every request.
+   */
+  jwtKey: KeyObject;
+  /** `BAYTIME_BENCH_METRICS=1`: `GET /api/health/event-loop` answers event-loop delay for `npm run bench`. */
+  benchMetrics: boolean;
   /** Built front ends to serve; absent in tests that only need the API. */
   staticRoot: string | null;
 }
@@ -36,6 +47,21 @@ export function loadConfig(
   if ((adminEmail === null) !== (adminPassword === null))
     throw new Error('Set BAYTIME_ADMIN_EMAIL and BAYTIME_ADMIN_PASSWORD together');
 
+  const twilio = {
+    accountSid: env.BAYTIME_TWILIO_ACCOUNT_SID?.trim() ?? '',
+    authToken: env.BAYTIME_TWILIO_AUTH_TOKEN?.trim() ?? '',
+    from: env.BAYTIME_TWILIO_FROM?.trim() ?? '',
+  };
+  const twilioSet = Object.values(twilio).filter(Boolean).length;
+  if (twilioSet !== 0 && twilioSet !== 3)
+    throw new Error(
+      'Set BAYTIME_TWILIO_ACCOUNT_SID, BAYTIME_TWILIO_AUTH_TOKEN and BAYTIME_TWILIO_FROM together',
+    );
+  const publicUrl = env.BAYTIME_PUBLIC_URL?.trim().replace(/\/+$/, '') || null;
+  if (publicUrl && !/^https?:\/\/[^/\s]+(\/[^\s]*)?$/.test(publicUrl))
+    throw new Error(`BAYTIME_PUBLIC_URL is not an http(s) address: ${publicUrl}`);
+
+  const jwtSecret = env.JWT_SECRET || keptSecret(dataDir);
   const config: AppConfig = {
     port,
     dataDir,
@@ -46,7 +72,11 @@ export function loadConfig(
     adminPassword,
     demo: truthy(env.BAYTIME_DEMO),
     smtpUrl: env.BAYTIME_SMTP_URL?.trim() || null,
-    jwtSecret: env.JWT_SECRET || keptSecret(dataDir),
+    twilio: twilioSet ? twilio : null,
+    publicUrl,
+    jwtSecret,
+    jwtKey: createSecretKey(Buffer.from(jwtSecret)),
+    benchMetrics: truthy(env.BAYTIME_BENCH_METRICS),
     staticRoot,
   };
   mkdirSync(config.uploadsDir, { recursive: true });

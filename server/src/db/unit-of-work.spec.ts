@@ -104,7 +104,7 @@ describe(UnitOfWork.name, () => {
     });
 
     await as(foreman)
-      .post(`/api/findings/${findingId}/answer`, { answer: 'approved', bookHours: 1.2 })
+      .post(`/api/findings/${findingId}/answer`, { answer: 'approved', channel: 'phone', bookHours: 1.2 })
       .expect(500);
 
     expect(everything()).toEqual(before);

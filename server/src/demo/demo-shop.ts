@@ -1,7 +1,14 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { eq } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
-import { makeVin, shopDayKey, shopLocalInstant, type HoldReason, type Priority } from '@baytime/shared';
+import {
+  makeVin,
+  repairOrderStatus,
+  shopDayKey,
+  shopLocalInstant,
+  type HoldReason,
+  type Priority,
+} from '@baytime/shared';
 import { hashSecret } from '../auth/passwords.js';
 import { countRows, DB, type Db } from '../db/database.js';
 import {
@@ -20,9 +27,18 @@ import {
   type BAY_PHASES,
 } from '../db/schema/index.js';
 import { DEFAULT_SHOP, FIRST_RULES_FROM } from '../shop/shop.service.js';
+import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 
 /** Every name, vehicle and number here is invented for the demo. */
-const SHOP = { ...DEFAULT_SHOP, name: 'Marlow Creek Auto Care', timeZone: 'America/Chicago' };
+const SHOP = {
+  ...DEFAULT_SHOP,
+  name: 'Marlow Creek Auto Care',
+  timeZone: 'America/Chicago',
+  // 555-0100 to 555-0199 are set aside for fiction in the North American numbering plan.
+  phone: '+16085550100',
+  labourRateCents: 135_00,
+  taxNote: 'Sales tax is added on the final invoice.',
+};
 export const DEMO_PASSWORD = 'baytime-demo';
 export const DEMO_PIN = '4321';
 
@@ -282,7 +298,7 @@ export class DemoShopSeeder {
           const start = at(from, stagger + Math.floor(this.random() * 10));
           const end = at(to, stagger - Math.floor(this.random() * 10));
           const clockedHours = (end.getTime() - start.getTime()) / 3600_000;
-          const ro = this.repairOrder(advisorId, start, 'closed', [
+          const ro = this.repairOrder(advisorId, start, true, [
             {
               title: this.pick(OPERATIONS),
               bookHours: round1(clockedHours * pace * (0.85 + this.random() * 0.3)),
@@ -319,7 +335,7 @@ export class DemoShopSeeder {
       bookHours: number,
       onFor: number,
     ) => {
-      const ro = this.repairOrder(advisorId, ago(200), 'open', [
+      const ro = this.repairOrder(advisorId, ago(200), false, [
         { title, bookHours, status: 'working', technicianId, bayId: bay(bayNo), queuedAt: ago(190) },
       ]);
       this.punch(technicianId, 'job-on', ago(onFor), { jobLineId: ro.lineIds[0]! });
@@ -328,7 +344,7 @@ export class DemoShopSeeder {
     working(dana, 1, 'Automatic transmission fluid and filter service', 1.5, 50);
     working(luis, 2, 'Replace thermostat and housing', 1.2, 95);
 
-    const held = this.repairOrder(advisorId, ago(230), 'open', [
+    const held = this.repairOrder(advisorId, ago(230), false, [
       {
         title: 'Replace rear wheel bearing',
         bookHours: 1.8,
@@ -345,7 +361,7 @@ export class DemoShopSeeder {
     this.punch(priya, 'break-start', ago(20), { breakKind: 'meal' });
     this.setBay(bay(3), 'staged', held.id, ago(150));
 
-    const cured = this.repairOrder(advisorId, ago(240), 'open', [
+    const cured = this.repairOrder(advisorId, ago(240), false, [
       {
         title: 'Reseal oil pan',
         bookHours: 2.1,
@@ -371,7 +387,7 @@ export class DemoShopSeeder {
       .run();
     this.setBay(bay(4), 'staged', cured.id, ago(140));
 
-    const checked = this.repairOrder(advisorId, ago(260), 'open', [
+    const checked = this.repairOrder(advisorId, ago(260), false, [
       {
         title: 'Four-wheel alignment',
         bookHours: 1.0,
@@ -386,7 +402,7 @@ export class DemoShopSeeder {
     this.punch(jo, 'job-off', ago(12), { jobLineId: checked.lineIds[0]! });
     this.setBay(bay(5), 'check', checked.id, ago(12));
 
-    const ready = this.repairOrder(advisorId, ago(300), 'done', [
+    const ready = this.repairOrder(advisorId, ago(300), false, [
       {
         title: 'Oil and filter change',
         bookHours: 0.5,
@@ -411,7 +427,7 @@ export class DemoShopSeeder {
     this.punch(sam, 'job-off', ago(35), { jobLineId: ready.lineIds[1]! });
     this.setBay(bay(6), 'ready', ready.id, ago(35));
 
-    const staged = this.repairOrder(advisorId, ago(60), 'open', [
+    const staged = this.repairOrder(advisorId, ago(60), false, [
       {
         title: 'Replace front struts',
         bookHours: 2.6,
@@ -432,11 +448,11 @@ export class DemoShopSeeder {
     ]);
     this.setBay(bay(7), 'staged', staged.id, ago(40));
 
-    this.repairOrder(advisorId, ago(50), 'open', [
+    this.repairOrder(advisorId, ago(50), false, [
       { title: 'Diagnose engine warning light', bookHours: 1.0, priority: 'high', queuedAt: ago(48) },
       { title: 'Battery and charging system test', bookHours: 0.5, queuedAt: ago(48) },
     ]);
-    this.repairOrder(advisorId, ago(25), 'open', [
+    this.repairOrder(advisorId, ago(25), false, [
       { title: 'Coolant flush and fill', bookHours: 1.1, queuedAt: ago(24) },
     ]);
   }
@@ -444,7 +460,8 @@ export class DemoShopSeeder {
   private repairOrder(
     advisorId: number,
     createdAt: Date,
-    status: 'open' | 'done' | 'closed',
+    /** Picked up already; otherwise the RO's status follows its lines. */
+    closed: boolean,
     lines: LinePlan[],
   ): { id: number; lineIds: number[] } {
     const model = this.pick(MODELS);
@@ -454,7 +471,7 @@ export class DemoShopSeeder {
       .insert(customers)
       .values({
         name,
-        phone: `555-01${String(Math.floor(this.random() * 100)).padStart(2, '0')}`,
+        phone: `+1608555${String(101 + Math.floor(this.random() * 99)).padStart(4, '0')}`,
         // example.test never delivers anywhere: demo mail lands in the local test mailbox.
         email: `${name.toLowerCase().replace(/\s+/g, '.')}@example.test`,
         createdAt,
@@ -482,13 +499,19 @@ export class DemoShopSeeder {
         number: String(++this.roNumber),
         customerId: customer.id,
         vehicleId: vehicle.id,
+        ...repairOrderSnapshot(customer, vehicle),
         advisorId,
         concern: lines.map((line) => line.title).join('; '),
         odometer,
-        status,
+        status: closed
+          ? 'closed'
+          : repairOrderStatus(
+              lines.map((line) => ({ status: line.status ?? 'queued' })),
+              null,
+            ),
         promisedAt: this.promiseFor(createdAt),
         createdAt,
-        closedAt: status === 'closed' ? lines.at(-1)?.completedAt : null,
+        closedAt: closed ? lines.at(-1)?.completedAt : null,
       })
       .returning()
       .get();
@@ -498,6 +521,11 @@ export class DemoShopSeeder {
           .insert(jobLines)
           .values({
             ...line,
+            concern: `Customer asks for: ${line.title.toLowerCase()}`,
+            ...(line.status === 'done' && {
+              completedBy: line.technicianId ?? null,
+              correction: `${line.title} done to the maker's procedure`,
+            }),
             repairOrderId: ro.id,
             lineNo: i + 1,
             queuedAt: line.queuedAt ?? createdAt,

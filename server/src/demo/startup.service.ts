@@ -30,10 +30,19 @@ export class StartupService {
     }
     this.shop.ensure();
     await this.ensureAdmin();
-    if (this.config.demo && !this.screens.list().some((screen) => screen.pairedAt && !screen.revokedAt)) {
-      const { code } = this.screens.create({ name: 'Shop floor TV' }, null);
-      this.logger.log(`Wall screen pairing code (30 min): ${code}, or open /wall?code=${code}`);
-    }
+    if (this.config.demo) this.offerWallPairing();
+  }
+
+  private offerWallPairing(): void {
+    const pairing = this.screens.firstScreenCode('Shop floor TV');
+    if (pairing === 'pending')
+      this.logger.log(
+        'A wall screen pairing code is still waiting: lost it? Make a new one in Admin › Wall screens',
+      );
+    else if (pairing !== 'paired')
+      this.logger.log(
+        `Wall screen pairing code (30 min): ${pairing.code}, or open /wall?code=${pairing.code}`,
+      );
   }
 
   private async ensureAdmin(): Promise<void> {

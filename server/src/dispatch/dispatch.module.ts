@@ -8,5 +8,6 @@ import { DispatchService } from './dispatch.service.js';
   imports: [FloorModule, BoardModule],
   controllers: [DispatchController],
   providers: [DispatchService],
+  exports: [DispatchService],
 })
 export class DispatchModule {}

@@ -10,6 +10,7 @@ import { debounceTime, interval, merge, type Subscription } from 'rxjs';
 import { and, eq, gte, isNull, ne, or } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
+  isLineLate,
   shareFlaggedHours,
   type DispatchBoard,
   type DispatchLane,
@@ -100,6 +101,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       status: line.status,
       holdReason: line.holdReason,
       priority: line.priority,
+      concern: line.concern,
       technicianId: line.technicianId,
       bayId: line.bayId,
       promisedAt: line.promisedAt?.toISOString() ?? null,
@@ -107,6 +109,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
       clockedOn: clockedOn.get(line.id) ?? [],
       forecast: null,
+      late: false,
     }));
     const efficiencies = this.efficiencies(now);
     let forecastsAvailable = true;
@@ -160,13 +163,19 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     const queue = lines.filter((l) => l.technicianId === null).sort(byUrgency);
     // A waiting line is late already if even starting it now, at the shop's pace, misses its promise.
     for (const line of queue) if (line.status !== 'held') forecast([line], efficiencies.shop);
+    for (const line of lines) line.late = isLineLate(line, line.forecast, now);
 
     return {
       serverTime: now.toISOString(),
       queue,
       lanes,
-      bays: this.board.current().bays.map(({ id, name, state }) => ({ id, name, state })),
-      lateCount: lines.filter((l) => l.forecast?.late).length,
+      bays: this.board.current().bays.map(({ id, name, state, repairOrder }) => ({
+        id,
+        name,
+        state,
+        repairOrderId: repairOrder?.id ?? null,
+      })),
+      lateCount: lines.filter((l) => l.late).length,
       forecastNote: forecastsAvailable ? null : NO_OPENING_HOURS,
     };
   }

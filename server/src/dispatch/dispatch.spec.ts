@@ -1,90 +1,203 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeVin, type BoardSnapshot, type DispatchBoard, type RepairOrderSummary } from '@baytime/shared';
+import {
+  makeVin,
+  type BoardSnapshot,
+  type DispatchBoard,
+  type RepairOrderPage,
+  type RepairOrderSummary,
+} from '@baytime/shared';
 import { createApp } from '../app.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
 
 describe(DispatchService.name, () => {
-  let sut: TestApp;
-  beforeAll(async () => {
-    sut = await startTestApp();
+  // A shop without the demo's lines, so the count can be worked by hand. (One app at a time in this
+  // file: passport keeps one token check per process, the last app's.)
+  describe('late lines', () => {
+    let shop: TestApp;
+    beforeAll(async () => {
+      shop = await startTestApp({
+        BAYTIME_DEMO: '0',
+        BAYTIME_ADMIN_EMAIL: 'owner@quiet-lane.test',
+        BAYTIME_ADMIN_PASSWORD: 'quiet-lane-owner',
+      });
+    });
+    afterAll(() => shop.close());
+
+    it('flags the lines that cannot make their promise and counts them on the wall board', async () => {
+      const owner = (
+        await shop
+          .http()
+          .post('/api/auth/login')
+          .send({ email: 'owner@quiet-lane.test', password: 'quiet-lane-owner' })
+          .expect(200)
+      ).body.accessToken as string;
+      const as = async <T>(method: 'get' | 'post' | 'patch', path: string, body?: object) => {
+        const http = shop.http();
+        const response = await http[method](path).auth(owner, { type: 'bearer' }).send(body);
+        expect(response.status, `${method} ${path}`).toBeLessThan(300);
+        return response.body as T;
+      };
+      const technician = (name: string, badge: string) =>
+        as<{ id: number }>('post', '/api/users', { name, role: 'technician', badge, pin: '4321' });
+      const order = async (serial: string, bookHours: number, promisedInMs: number, technicianId: number) => {
+        const ro = await as<RepairOrderSummary>('post', '/api/repair-orders', {
+          customer: { name: `Customer ${serial}` },
+          vehicle: {
+            vin: makeVin(`7AB6LD9HLM${serial}`),
+            year: 2020,
+            make: 'Ambrey',
+            model: 'Lunda',
+            odometer: 5000,
+          },
+          concern: 'Needed back soon',
+          promisedAt: new Date(Date.now() + promisedInMs).toISOString(),
+          lines: [{ title: 'Replace water pump', bookHours }],
+        });
+        await as('patch', `/api/job-lines/${ro.lines[0]!.id}`, { technicianId });
+        return ro.lines[0]!.id;
+      };
+      const ines = await technician('Ines Tarrow', '3001');
+      const ravi = await technician('Ravi Quell', '3002');
+      // Forecasts take book hours ÷ an efficiency bounded to 0.25–4 (FORECAST_EFFICIENCY_BOUNDS), in open
+      // shop hours (Monday to Friday by default). By hand: 6 h ÷ 4 = 1.5 h at the very best, more than
+      // the 30 minutes promised, so late; 0.5 h ÷ 0.25 = 2 h at the very worst, well inside the week
+      // promised, so on time. Exactly one late line.
+      const late = await order('900777', 6, 30 * 60_000, ines.id);
+      const onTime = await order('900778', 0.5, 7 * 24 * 3600_000, ravi.id);
+
+      const dispatch = await as<DispatchBoard>('get', '/api/dispatch');
+      const forecastOf = (id: number) =>
+        dispatch.lanes.flatMap((lane) => lane.lines).find((line) => line.id === id)!.forecast;
+      expect(forecastOf(late)).toMatchObject({ late: true });
+      expect(forecastOf(onTime)).toMatchObject({ late: false });
+      expect(dispatch.lateCount).toBe(1);
+      await expect
+        .poll(async () => (await as<BoardSnapshot>('get', '/api/board')).lateLines, { timeout: 10_000 })
+        .toBe(1);
+    });
   });
-  afterAll(() => sut.close());
 
-  it('flags a line that cannot make its promise and counts it on the wall board', async () => {
-    const foreman = await sut.signIn(DEMO.foreman);
-    const { body: ro } = await sut
-      .http()
-      .post('/api/repair-orders')
-      .auth(foreman, { type: 'bearer' })
-      .send({
-        customer: { name: 'Odile Marsh' },
-        vehicle: {
-          vin: makeVin('7AB6LD9HLM900777'),
-          year: 2020,
-          make: 'Ambrey',
-          model: 'Lunda',
-          odometer: 5000,
-        },
-        concern: 'Needed back within the hour',
-        promisedAt: new Date(Date.now() + 30 * 60_000).toISOString(),
-        lines: [{ title: 'Replace water pump', bookHours: 6 }],
-      })
-      .expect(201);
-    const line = (ro as RepairOrderSummary).lines[0]!;
-    const jo = (await sut.badge('1045')).user.id;
-    await sut
-      .http()
-      .patch(`/api/job-lines/${line.id}`)
-      .auth(foreman, { type: 'bearer' })
-      .send({ technicianId: jo })
-      .expect(200);
+  describe('late work in the demo shop', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
 
-    const dispatch = (await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200))
-      .body as DispatchBoard;
-    const forecast = dispatch.lanes.flatMap((lane) => lane.lines).find((l) => l.id === line.id)!.forecast;
-    expect(forecast?.late).toBe(true);
-    await expect
-      .poll(
-        async () =>
-          ((await sut.http().get('/api/board').auth(foreman, { type: 'bearer' })).body as BoardSnapshot)
-            .lateLines,
-        { timeout: 10_000 },
-      )
-      .toBe(dispatch.lateCount);
-    expect(dispatch.lateCount).toBeGreaterThan(0);
+    it('flags late work waiting in the queue and a held line past its promise, and every screen counts the same (bug 11)', async () => {
+      const advisor = await sut.signIn(DEMO.advisor);
+      const foreman = await sut.signIn(DEMO.foreman);
+      const write = async (promisedAt: Date, bookHours: number) =>
+        (
+          await sut
+            .http()
+            .post('/api/repair-orders')
+            .auth(advisor, { type: 'bearer' })
+            .send({
+              customer: { name: 'Quinby Latimer' },
+              vehicle: {
+                vin: makeVin('7AB6LD9HLM900778'),
+                year: 2020,
+                make: 'Ambrey',
+                model: 'Lunda',
+                odometer: 7000,
+              },
+              concern: 'Wanted back soon',
+              promisedAt: promisedAt.toISOString(),
+              lines: [{ title: 'Replace timing belt', bookHours }],
+            })
+            .expect(201)
+        ).body as RepairOrderSummary;
+      // Waiting, unassigned: eight hours of work promised in twenty minutes cannot make it.
+      const waiting = await write(new Date(Date.now() + 20 * 60_000), 8);
+      // Held past its promise: no forecast, but late all the same.
+      const held = await write(new Date(Date.now() + 1500), 0.5);
+      await sut
+        .http()
+        .patch(`/api/job-lines/${held.lines[0]!.id}`)
+        .auth(foreman, { type: 'bearer' })
+        .send({ status: 'held', holdReason: 'parts' })
+        .expect(200);
+      await new Promise((resolve) => setTimeout(resolve, 1600));
+
+      const dispatch = (await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200))
+        .body as DispatchBoard;
+      const lateIds = [...dispatch.queue, ...dispatch.lanes.flatMap((lane) => lane.lines)]
+        .filter((line) => line.late)
+        .map((line) => line.id);
+      expect(lateIds).toEqual(expect.arrayContaining([waiting.lines[0]!.id, held.lines[0]!.id]));
+      expect(lateIds).toHaveLength(dispatch.lateCount);
+
+      const list = (
+        await sut
+          .http()
+          .get('/api/repair-orders?late=true&limit=100')
+          .auth(advisor, { type: 'bearer' })
+          .expect(200)
+      ).body as RepairOrderPage;
+      expect(list.items.map((ro) => ro.id)).toEqual(expect.arrayContaining([waiting.id, held.id]));
+      expect(
+        list.items.flatMap((ro) => ro.lines.filter((line) => line.late).map((line) => line.id)).sort(),
+      ).toEqual([...lateIds].sort());
+      const detail = (
+        await sut.http().get(`/api/repair-orders/${waiting.id}`).auth(advisor, { type: 'bearer' }).expect(200)
+      ).body as RepairOrderSummary;
+      expect(detail).toMatchObject({ late: true, lines: [{ late: true }] });
+      await expect
+        .poll(
+          async () =>
+            ((await sut.http().get('/api/board').auth(foreman, { type: 'bearer' })).body as BoardSnapshot)
+              .lateLines,
+          { timeout: 10_000 },
+        )
+        .toBe(dispatch.lateCount);
+    });
   });
 
-  // Common practice (no published source): a technician's own pace drives forecasts only after enough clocked
-  // time; the shop sets how much (8 h by default). Dana has about 75 h in the demo's last four weeks.
-  it("uses a technician's own efficiency only after the shop's minimum of clocked hours", async () => {
-    const owner = await sut.signIn(DEMO.owner);
-    const dana = (await sut.badge('1041')).user.id;
-    const laneOf = async () =>
-      (
-        (await sut.http().get('/api/dispatch').auth(owner, { type: 'bearer' }).expect(200))
-          .body as DispatchBoard
-      ).lanes.find((lane) => lane.technician.id === dana)!;
-    expect((await laneOf()).efficiency).toBeGreaterThan(1);
-    await sut
-      .http()
-      .patch('/api/shop')
-      .auth(owner, { type: 'bearer' })
-      .send({ minimumClockedHoursForEfficiency: 200 })
-      .expect(200);
-    try {
-      expect((await laneOf()).efficiency).toBeNull();
-    } finally {
+  describe('efficiency in forecasts', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
+
+    // Common practice (no published source): a technician's own pace drives forecasts only after enough clocked
+    // time; the shop sets how much (8 h by default). Dana has about 75 h in the demo's last four weeks.
+    it("uses a technician's own efficiency only after the shop's minimum of clocked hours", async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const dana = (await sut.badge('1041')).user.id;
+      const laneOf = async () =>
+        (
+          (await sut.http().get('/api/dispatch').auth(owner, { type: 'bearer' }).expect(200))
+            .body as DispatchBoard
+        ).lanes.find((lane) => lane.technician.id === dana)!;
+      expect((await laneOf()).efficiency).toBeGreaterThan(1);
       await sut
         .http()
         .patch('/api/shop')
         .auth(owner, { type: 'bearer' })
-        .send({ minimumClockedHoursForEfficiency: 8 })
+        .send({ minimumClockedHoursForEfficiency: 200 })
         .expect(200);
-    }
+      try {
+        expect((await laneOf()).efficiency).toBeNull();
+      } finally {
+        await sut
+          .http()
+          .patch('/api/shop')
+          .auth(owner, { type: 'bearer' })
+          .send({ minimumClockedHoursForEfficiency: 8 })
+          .expect(200);
+      }
+    });
   });
 
   describe('opening hours that once stopped the server', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
     const closedEveryDay = Array(7).fill(null);
     const nights = Array.from({ length: 7 }, () => ({ open: '22:00', close: '06:00' }));
     const roundTheClock = Array.from({ length: 7 }, () => ({ open: '08:00', close: '08:00' }));

@@ -13,5 +13,6 @@ import { ReadyNoticeController } from './ready-notice.controller.js';
   imports: [FloorModule, WorkModule, MailModule],
   controllers: [FindingsController, AttachmentsController, ReadyNoticeController],
   providers: [FindingsService, NoticesService, PhotoStore],
+  exports: [FindingsService, NoticesService, PhotoStore],
 })
 export class FindingsModule {}

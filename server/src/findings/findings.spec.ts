@@ -122,17 +122,24 @@ describe(FindingsService.name, () => {
     expect(files).toHaveLength(4);
     for (const name of files) expect(name).toMatch(/^[0-9a-f-]{36}\.(png|jpg|preview\.jpg)$/);
 
-    const inbox = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body as FindingDto[];
+    const inbox = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body
+      .items as FindingDto[];
     expect(inbox[0]).toMatchObject({ id: finding.id, technicianName: 'Dana Okafor' });
   });
 
   it('serves a photo with its sniffed type and nosniff, and a preview about 640 px wide', async () => {
-    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
+    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body.items as FindingDto[];
     const photo = finding!.photos[0]!;
     const original = await as(advisor).get(photo.url).buffer(true).expect(200);
     expect(original.headers['content-type']).toBe('image/png');
     expect(original.headers['x-content-type-options']).toBe('nosniff');
-    expect(Buffer.compare(original.body as Buffer, png)).toBe(0);
+    // Re-encoded on arrival: the same picture, not the bytes the kiosk sent.
+    expect(await sharp(original.body as Buffer).metadata()).toMatchObject({
+      format: 'png',
+      width: 1200,
+      height: 900,
+    });
+    expect(Number(original.headers['content-length'])).toBe(photo.sizeBytes);
     const preview = await as(dana.accessToken).get(photo.previewUrl).buffer(true).expect(200);
     expect(preview.headers['content-type']).toBe('image/jpeg');
     expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({
@@ -143,9 +150,15 @@ describe(FindingsService.name, () => {
   });
 
   it('refuses a technician who is not on the repair order, for findings and for photos', async () => {
-    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body as FindingDto[];
-    await as(sam.accessToken).get(finding!.photos[0]!.url).expect(403);
-    await as(sam.accessToken).get(finding!.photos[0]!.previewUrl).expect(403);
+    const [finding] = (await as(advisor).get('/api/findings').expect(200)).body.items as FindingDto[];
+    const photo = finding!.photos[0]!;
+    // A photo Sam may not see answers exactly as one that does not exist: the id reveals nothing.
+    const missing = await as(sam.accessToken).get('/api/attachments/999999').expect(404);
+    for (const url of [photo.url, photo.previewUrl]) {
+      const hidden = await as(sam.accessToken).get(url).expect(404);
+      expect(hidden.body).toEqual(missing.body);
+    }
+    expect(missing.body).toEqual({ statusCode: 404, message: 'Photo not found', error: 'Not Found' });
     const before = stored();
     await record(sam.accessToken, danaLine.id, { note: 'Not my car', severity: 'watch' }, [
       pngPhoto(),
@@ -219,15 +232,15 @@ describe(FindingsService.name, () => {
   });
 
   it('approval adds a queued line to the RO and resumes the held line, so the bay leaves held', async () => {
-    const [finding] = (await as(advisor).get('/api/findings?answer=pending').expect(200))
-      .body as FindingDto[];
+    const [finding] = (await as(advisor).get('/api/findings?answer=pending').expect(200)).body
+      .items as FindingDto[];
     const linesBefore = db
       .select()
       .from(jobLines)
       .where(eq(jobLines.repairOrderId, finding!.repairOrderId))
       .all();
     const { body } = await as(advisor)
-      .post(`/api/findings/${finding!.id}/answer`, { answer: 'approved', bookHours: 1.2 })
+      .post(`/api/findings/${finding!.id}/answer`, { answer: 'approved', channel: 'phone', bookHours: 1.2 })
       .expect(200);
     const result = body as FindingAnswerResult;
     expect(result.createdLine).toMatchObject({
@@ -240,6 +253,7 @@ describe(FindingsService.name, () => {
     });
     expect(result.finding).toMatchObject({
       answer: 'approved',
+      answerChannel: 'phone',
       answeredBy: 'Nell Ashby',
       createdLineId: result.createdLine!.id,
     });
@@ -254,7 +268,9 @@ describe(FindingsService.name, () => {
       .map((entry) => entry.action);
     expect(audited).toEqual(['create', 'approve']);
 
-    await as(advisor).post(`/api/findings/${finding!.id}/answer`, { answer: 'declined' }).expect(409);
+    await as(advisor)
+      .post(`/api/findings/${finding!.id}/answer`, { answer: 'declined', channel: 'phone' })
+      .expect(409);
   });
 
   it('keeps a line held while another finding on it waits; a decline is noted on the RO', async () => {
@@ -269,6 +285,7 @@ describe(FindingsService.name, () => {
       await as(foreman)
         .post(`/api/findings/${first.id}/answer`, {
           answer: 'declined',
+          channel: 'in-person',
           note: 'Customer will think about it',
         })
         .expect(200)
@@ -284,12 +301,17 @@ describe(FindingsService.name, () => {
       .from(auditLog)
       .where(and(eq(auditLog.entity, 'repair-order'), eq(auditLog.action, 'finding-declined')))
       .all();
-    expect(onRo.at(-1)?.detail).toEqual({ findingId: first.id, note: 'Customer will think about it' });
+    expect(onRo.at(-1)?.detail).toEqual({
+      findingId: first.id,
+      note: 'Customer will think about it',
+      channel: 'in-person',
+    });
 
     const approved = (
       await as(advisor)
         .post(`/api/findings/${second.id}/answer`, {
           answer: 'approved',
+          channel: 'phone',
           bookHours: 0.6,
           title: 'Replace cooler line',
         })
@@ -307,7 +329,7 @@ describe(FindingsService.name, () => {
     const { body } = await as(advisor)
       .post(`/api/findings/${finding.id}/answer`, { answer: 'approved' })
       .expect(400);
-    expect(body.issues[0].path).toEqual(['bookHours']);
+    expect(body.issues.map((issue: { path: string[] }) => issue.path)).toEqual([['channel'], ['bookHours']]);
   });
 
   it('makes a line title from the first line of the note, cut at a word', () => {

@@ -1,6 +1,17 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq } from 'drizzle-orm';
-import { FINDING_SEVERITY_WORDS, type MailQueued } from '@baytime/shared';
+import {
+  FINDING_SEVERITY_WORDS,
+  formatCents,
+  formatPhone,
+  formatShopInstant,
+  isOpenLine,
+  normalisePhone,
+  repairOrderStatus,
+  type MailQueued,
+  type NoticesQueued,
+  type TextQueued,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { describeVehicle } from '../floor/describe-vehicle.js';
@@ -16,75 +27,113 @@ import {
   users,
   vehicles,
 } from '../db/schema/index.js';
-import { MailService, type OutgoingMail } from '../mail/mail.service.js';
+import { LiveService } from '../live/live.service.js';
+import { OutboxService, type OutgoingMail } from '../mail/outbox.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { PhotoStore } from './photo-store.js';
 
 const hours = (value: number) => `${Number(value.toFixed(2))} hour${value === 1 ? '' : 's'}`;
 
+/** A customer's ways to be reached: an e-mail address and a number that takes texts. */
+export interface CustomerContact {
+  name: string;
+  email: string | null;
+  mobile: string | null;
+}
+
+/** The approval request's contents: the page link and what it asks about. */
+export interface ApprovalRequestNotice {
+  customer: CustomerContact;
+  vehicle: string;
+  repairOrderNumber: string;
+  url: string;
+  expiresAt: Date;
+  items: { wording: string; priceCents: number }[];
+  totalCents: number;
+  photos: { filename: string; path: string }[];
+}
+
 /**
- * The e-mails about findings and repair orders, in plain words with the shop's name: no links, no
- * images in the body, nothing that tracks the reader. They go through the outbox.
+ * The messages about findings and repair orders, in plain words with the shop's name, by e-mail and
+ * by text: no images in the body, nothing that tracks the reader; the only link is the approval
+ * page's. They go through the outbox.
  */
 @Injectable()
 export class NoticesService {
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
-    private readonly mail: MailService,
+    private readonly outbox: OutboxService,
     private readonly shop: ShopService,
     private readonly audit: AuditService,
     private readonly photos: PhotoStore,
+    private readonly live: LiveService,
   ) {}
 
-  /** Asks the customer to approve the extra work, with the finding's photos attached. */
-  @Transactional()
-  requestApproval(findingId: number, actor: Principal): MailQueued {
-    const { finding, line, ro, vehicle, customer } = this.findingContext(findingId);
-    if (finding.answer !== 'pending') throw new ConflictException('That finding was already answered');
-    const to = this.customerEmail(customer);
-    const shop = this.shop.settings().name;
-    const photos = this.photosOf(findingId, 'original');
-    const text = [
-      `Hello ${customer.name},`,
-      '',
-      `While working on your ${describeVehicle(vehicle)} (repair order ${ro.number}, "${line.title}"), ` +
-        'our technician found something we would like your decision on before we go further.',
-      '',
-      `What we found: ${finding.note}`,
-      `How urgent: ${FINDING_SEVERITY_WORDS[finding.severity]}.`,
-      ...(finding.suggestedHours !== null
-        ? [`Suggested extra labour: ${hours(finding.suggestedHours)}.`]
-        : []),
-      ...(photos.length
-        ? [`Photos: ${photos.length} attached, as our technician took them.`]
-        : ['We took no photos of this one.']),
-      '',
-      'We will not do this extra work without your approval. Please reply to this e-mail or call us ' +
-        'to say yes or no, or if you have any questions.',
-      '',
-      'Thank you,',
-      shop,
-    ].join('\n');
-    const queued = this.send({
-      to,
-      subject: `${shop}: approval needed for RO ${ro.number}`,
-      text,
-      attachments: photos,
-    });
-    this.audit.record({
-      actorId: actor.id,
-      action: 'request-approval',
-      entity: 'finding',
-      entityId: findingId,
-      detail: { mailId: queued.mailId, to },
-    });
-    return queued;
+  /** The customer's contacts; 400 when there is no way to reach them. */
+  contactOf(customer: typeof customers.$inferSelect): CustomerContact {
+    const email = customer.email?.trim() || null;
+    const mobile = customer.phone ? normalisePhone(customer.phone) : null;
+    if (!email && !mobile)
+      throw new BadRequestException('The customer has no e-mail address or phone number for texts');
+    return { name: customer.name, email, mobile };
   }
 
-  /** Tells the customer the vehicle is ready, once every line on the repair order is done. */
+  /** Asks the customer to approve or decline the findings on the page the link opens. */
+  approvalRequest(notice: ApprovalRequestNotice): NoticesQueued {
+    const settings = this.shop.settings();
+    const shop = settings.name;
+    const until = formatShopInstant(notice.expiresAt, settings.timeZone);
+    const callUs = settings.phone ? ` Questions? Call us at ${formatPhone(settings.phone)}.` : '';
+    const many = notice.items.length > 1;
+    const mail =
+      notice.customer.email &&
+      this.queueMail({
+        to: notice.customer.email,
+        subject: `${shop}: approval needed for RO ${notice.repairOrderNumber}`,
+        text: [
+          `Hello ${notice.customer.name},`,
+          '',
+          `While working on your ${notice.vehicle} (repair order ${notice.repairOrderNumber}), our ` +
+            `technician found ${many ? 'some things' : 'something'} we would like your decision on ` +
+            'before we go further.',
+          '',
+          ...notice.items.map((item) => `- ${item.wording} (estimate ${formatCents(item.priceCents)})`),
+          '',
+          `Estimated total: ${formatCents(notice.totalCents)}.${settings.taxNote ? ` ${settings.taxNote}` : ''}`,
+          ...(notice.photos.length
+            ? [`Photos: ${notice.photos.length} attached, as our technician took them.`]
+            : []),
+          '',
+          `See the photos, approve or decline ${many ? 'each item' : 'it'}, and sign on this page:`,
+          notice.url,
+          '',
+          `The link works until ${until}. We will not do this extra work without your approval.${callUs}`,
+          '',
+          'Thank you,',
+          shop,
+        ].join('\n'),
+        attachments: notice.photos,
+        secretBody: true,
+      });
+    const text =
+      notice.customer.mobile &&
+      this.queueText(
+        notice.customer.mobile,
+        `${shop}: we found ${many ? `${notice.items.length} items` : 'something'} on your ` +
+          `${notice.vehicle} (RO ${notice.repairOrderNumber}) that need your OK first. Estimate ` +
+          `${formatCents(notice.totalCents)}. See photos and answer: ${notice.url} (until ${until})`,
+        true,
+      );
+    return { mail: mail || null, text: text || null };
+  }
+
+  /**
+   * Tells the customer the vehicle is ready, once the work on the repair order is done (every line
+   * done or cancelled) and the vehicle is still here. Written into the RO's history.
+   */
   @Transactional()
-  readyNotice(repairOrderId: number, actor: Principal): MailQueued {
+  readyNotice(repairOrderId: number, actor: Principal): NoticesQueued {
     const { ro, vehicle, customer } = foundOrFail(
       this.db
         .select({ ro: repairOrders, vehicle: vehicles, customer: customers })
@@ -101,15 +150,17 @@ export class NoticesService {
       .where(eq(jobLines.repairOrderId, repairOrderId))
       .orderBy(asc(jobLines.lineNo))
       .all();
-    const open = lines.filter((line) => line.status !== 'done');
-    if (!lines.length || open.length)
+    if (ro.status === 'closed')
+      throw new ConflictException(`RO ${ro.number} is closed: the vehicle was picked up`);
+    const open = lines.filter(isOpenLine);
+    if (repairOrderStatus(lines, ro.closedAt) !== 'done')
       throw new ConflictException(
-        `Not every job line on RO ${ro.number} is done yet (${open.length} of ${lines.length} open)`,
+        `The work on RO ${ro.number} is not done yet (${open.length} of ${lines.length} lines open)`,
       );
-    const to = this.customerEmail(customer);
+    const contact = this.contactOf(customer);
     const shop = this.shop.settings().name;
     const declined = this.db
-      .select({ note: findings.note })
+      .select({ wording: findings.customerWording, lineTitle: jobLines.title })
       .from(findings)
       .innerJoin(jobLines, eq(jobLines.id, findings.jobLineId))
       .where(and(eq(jobLines.repairOrderId, repairOrderId), eq(findings.answer, 'declined')))
@@ -121,27 +172,46 @@ export class NoticesService {
       `Your ${describeVehicle(vehicle)} is ready to collect (repair order ${ro.number}).`,
       '',
       'Work done:',
-      ...lines.map((line) => `- ${line.title}`),
+      ...lines.filter((line) => line.status === 'done').map((line) => `- ${line.title}`),
       ...(declined.length
         ? ['', 'We also found, and did not do as you asked (worth another look later):']
         : []),
-      ...declined.map((finding) => `- ${finding.note}`),
+      // The technician's own note stays in the shop: only wording the advisor reviewed goes out.
+      ...declined.map(
+        (finding) =>
+          `- ${finding.wording ?? `Something our technician noted during "${finding.lineTitle}": ask us for the details`}`,
+      ),
       '',
       'Thank you,',
       shop,
     ].join('\n');
-    const queued = this.send({
-      to,
-      subject: `${shop}: your ${describeVehicle(vehicle)} is ready (RO ${ro.number})`,
-      text,
-    });
+    const mail =
+      contact.email &&
+      this.queueMail({
+        to: contact.email,
+        subject: `${shop}: your ${describeVehicle(vehicle)} is ready (RO ${ro.number})`,
+        text,
+      });
+    const texted =
+      contact.mobile &&
+      this.queueText(
+        contact.mobile,
+        `${shop}: your ${describeVehicle(vehicle)} is ready to collect (RO ${ro.number}). Thank you!`,
+      );
+    const queued = { mail: mail || null, text: texted || null };
     this.audit.record({
       actorId: actor.id,
       action: 'ready-notice',
       entity: 'repair-order',
       entityId: repairOrderId,
-      detail: { mailId: queued.mailId, to },
+      detail: {
+        mailId: queued.mail?.mailId,
+        textId: queued.text?.textId,
+        to: contact.email,
+        mobile: contact.mobile,
+      },
     });
+    this.live.publish('repair-order.updated', { repairOrderId });
     return queued;
   }
 
@@ -173,7 +243,7 @@ export class NoticesService {
       '',
       shop,
     ].join('\n');
-    return this.send({
+    return this.queueMail({
       to,
       subject: `${shop}: new finding on RO ${ro.number} (${finding.severity})`,
       text,
@@ -181,23 +251,21 @@ export class NoticesService {
     });
   }
 
-  private send(mail: OutgoingMail): MailQueued {
-    const row = this.mail.queue(mail);
+  private queueMail(mail: OutgoingMail): MailQueued {
+    const row = this.outbox.queueMail(mail);
     return {
       mailId: row.id,
       to: row.recipient,
-      subject: row.subject,
+      subject: mail.subject,
       attachments: (mail.attachments ?? []).map((attachment) => attachment.filename),
     };
   }
 
-  private customerEmail(customer: typeof customers.$inferSelect): string {
-    const email = customer.email?.trim();
-    if (!email) throw new BadRequestException('The customer has no e-mail address');
-    return email;
+  private queueText(to: string, body: string, secretBody = false): TextQueued {
+    return { textId: this.outbox.queueText({ to, body, secretBody }).id, to };
   }
 
-  private photosOf(findingId: number, variant: 'original' | 'preview'): { filename: string; path: string }[] {
+  photosOf(findingId: number, variant: 'original' | 'preview'): { filename: string; path: string }[] {
     return this.db
       .select()
       .from(attachments)

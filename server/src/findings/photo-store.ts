@@ -6,12 +6,12 @@ import {
   PayloadTooLargeException,
   StreamableFile,
 } from '@nestjs/common';
-import { fileTypeFromBuffer } from 'file-type';
 import { randomUUID } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { mkdir, rm, writeFile } from 'node:fs/promises';
 import { basename, join } from 'node:path';
-import sharp from 'sharp';
+import pLimit from 'p-limit';
+import type { Sharp } from 'sharp';
 import {
   FINDING_PHOTO_TYPES,
   MAX_FINDING_PHOTO_BYTES,
@@ -22,6 +22,7 @@ import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { MAX_PHOTO_MB, type UploadedPhoto } from './photo-upload.js';
 
 export interface CheckedPhoto {
+  /** The photo re-encoded without its metadata, so nothing the client sent is kept byte for byte. */
   buffer: Buffer;
   mimeType: FindingPhotoType;
   extension: string;
@@ -36,21 +37,31 @@ export interface StoredPhoto {
 }
 
 const PREVIEW_PX = 640;
-/** Well above any phone camera; refuses decompression bombs before sharp allocates them. */
-const MAX_INPUT_PIXELS = 100_000_000;
+/**
+ * Phone photos under the 10 MB limit are mostly 12 to 24 MP (from memory). A 9999 × 9999 PNG is only
+ * 300 KB but decodes to 300 MB: the header's size is checked before any decode.
+ */
+export const MAX_PHOTO_MEGAPIXELS = 40;
+const MAX_INPUT_PIXELS = MAX_PHOTO_MEGAPIXELS * 1_000_000;
+/** Photos decoded at once, whatever the number of uploads: each decode takes a core and its pixels in memory. */
+const IMAGE_WORK_AT_ONCE = 2;
 
-/** Finding photos on disk under `uploads/findings/`, named by the server, never by the client. */
+/**
+ * Finding photos on disk under `uploads/findings/`, named by the server, never by the client. sharp and
+ * file-type load with the first photo, not at start-up.
+ */
 @Injectable()
 export class PhotoStore {
   readonly dir: string;
+  private readonly imageWork = pLimit(IMAGE_WORK_AT_ONCE);
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
     this.dir = join(config.uploadsDir, 'findings');
   }
 
   /**
-   * Checks each photo by its content (magic bytes, then a full decode) and makes its preview. Throws
-   * on the first refused photo, naming it; nothing is written.
+   * Checks each photo by its content (magic bytes, pixel count, then a full decode), re-encodes it and
+   * makes its preview. Throws on the first refused photo, naming it; nothing is written.
    */
   async check(photos: UploadedPhoto[]): Promise<CheckedPhoto[]> {
     if (photos.length > MAX_FINDING_PHOTOS)
@@ -60,15 +71,11 @@ export class PhotoStore {
       const n = index + 1;
       if (photo.buffer.length > MAX_FINDING_PHOTO_BYTES)
         throw new PayloadTooLargeException(`Photo ${n} is larger than ${MAX_PHOTO_MB} MB`);
-      const sniffed = await fileTypeFromBuffer(photo.buffer);
+      const sniffed = await (await import('file-type')).fileTypeFromBuffer(photo.buffer);
       const mimeType = FINDING_PHOTO_TYPES.find((type) => type === sniffed?.mime);
       if (!sniffed || !mimeType) throw new BadRequestException(`Photo ${n} is not a JPEG, PNG or WebP image`);
-      checked.push({
-        buffer: photo.buffer,
-        mimeType,
-        extension: sniffed.ext,
-        preview: await this.preview(photo.buffer, n),
-      });
+      const { buffer, preview } = await this.imageWork(() => this.reencode(photo.buffer, mimeType, n));
+      checked.push({ buffer, mimeType, extension: sniffed.ext, preview });
     }
     return checked;
   }
@@ -117,16 +124,60 @@ export class PhotoStore {
     });
   }
 
-  private async preview(buffer: Buffer, n: number): Promise<Buffer> {
+  /**
+   * The photo decoded and written again in its own format, turned upright, with no metadata (sharp
+   * keeps none unless asked) and nothing after the image data; and its preview.
+   */
+  private async reencode(
+    input: Buffer,
+    mimeType: FindingPhotoType,
+    n: number,
+  ): Promise<{ buffer: Buffer; preview: Buffer }> {
+    const sharp = await loadSharp();
+    const { width = 0, height = 0 } = await sharp(input)
+      .metadata()
+      .catch(() => ({ width: 0, height: 0 }));
+    if (width * height > MAX_INPUT_PIXELS)
+      throw new PayloadTooLargeException(`Photo ${n} is larger than ${MAX_PHOTO_MEGAPIXELS} megapixels`);
     try {
-      return await sharp(buffer, { limitInputPixels: MAX_INPUT_PIXELS })
-        .rotate()
-        .resize({ width: PREVIEW_PX, height: PREVIEW_PX, fit: 'inside', withoutEnlargement: true })
-        .flatten({ background: '#ffffff' })
-        .jpeg({ quality: 80 })
-        .toBuffer();
+      const image = sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).rotate();
+      const [buffer, preview] = await Promise.all([
+        encodeAs(image.clone(), mimeType).toBuffer(),
+        image
+          .clone()
+          .resize({ width: PREVIEW_PX, height: PREVIEW_PX, fit: 'inside', withoutEnlargement: true })
+          .flatten({ background: '#ffffff' })
+          .jpeg({ quality: 80 })
+          .toBuffer(),
+      ]);
+      return { buffer, preview };
     } catch {
       throw new BadRequestException(`Photo ${n} could not be read as an image`);
     }
+  }
+}
+
+let sharpLoaded: Promise<typeof import('sharp').default> | null = null;
+
+/**
+ * sharp loads with the first photo, so start-up stays quick. Each photo is read once: libvips'
+ * operation cache would only keep decoded images in memory.
+ */
+function loadSharp(): Promise<typeof import('sharp').default> {
+  sharpLoaded ??= import('sharp').then(({ default: sharp }) => {
+    sharp.cache(false);
+    return sharp;
+  });
+  return sharpLoaded;
+}
+
+function encodeAs(image: Sharp, mimeType: FindingPhotoType): Sharp {
+  switch (mimeType) {
+    case 'image/jpeg':
+      return image.jpeg({ quality: 90 });
+    case 'image/png':
+      return image.png();
+    case 'image/webp':
+      return image.webp({ quality: 90 });
   }
 }

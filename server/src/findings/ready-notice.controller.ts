@@ -1,5 +1,5 @@
 import { Controller, HttpCode, Param, Post } from '@nestjs/common';
-import type { MailQueued } from '@baytime/shared';
+import type { NoticesQueued } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { idParamSchema } from '../common/id-param.js';
@@ -9,10 +9,10 @@ import { NoticesService } from './notices.service.js';
 export class ReadyNoticeController {
   constructor(private readonly notices: NoticesService) {}
 
-  @Roles('advisor')
+  @Roles('advisor', 'foreman', 'owner')
   @Post(':id/ready-notice')
   @HttpCode(202)
-  send(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): MailQueued {
+  send(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): NoticesQueued {
     return this.notices.readyNotice(id, actor);
   }
 }

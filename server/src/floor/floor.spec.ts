@@ -71,6 +71,18 @@ const command = fc.oneof(
   },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('toggle-split' as const) }) },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('toggle-tech' as const), tech: fc.nat() }) },
+  { weight: 1, arbitrary: fc.record({ type: fc.constant('cancel-line' as const), line: fc.nat() }) },
+  {
+    weight: 1,
+    arbitrary: fc.record({
+      type: fc.constant('edit-line' as const),
+      line: fc.nat(),
+      hours: fc.integer({ min: 1, max: 40 }),
+    }),
+  },
+  { weight: 1, arbitrary: fc.record({ type: fc.constant('final-check' as const), bay: fc.nat() }) },
+  { weight: 1, arbitrary: fc.record({ type: fc.constant('close-ro' as const), ro: fc.nat() }) },
+  { weight: 1, arbitrary: fc.record({ type: fc.constant('reorder-bays' as const), seed: fc.nat() }) },
 );
 type Command = typeof command extends fc.Arbitrary<infer C> ? C : never;
 
@@ -211,6 +223,37 @@ describe(FloorService.name, () => {
           );
           return;
         }
+        case 'cancel-line':
+          if (line) app.app.get(JobLinesService).cancel(line.id, { reason: 'Property test' }, owner, now);
+          return;
+        case 'edit-line':
+          if (line)
+            app.app
+              .get(JobLinesService)
+              .editDetails(line.id, { bookHours: cmd.hours / 10, title: `Edited ${cmd.hours}` }, owner, now);
+          return;
+        case 'final-check': {
+          const bay = pick(
+            bays.filter((b) => b.phase === 'check'),
+            cmd.bay,
+          );
+          if (bay) app.app.get(BaysService).finalCheck(bay.id, {}, owner, now);
+          return;
+        }
+        case 'close-ro': {
+          const parked = pick(
+            bays.filter((b) => b.parked),
+            cmd.ro,
+          );
+          if (parked) app.app.get(RepairOrdersService).close(parked.parked!.id, owner, now);
+          return;
+        }
+        case 'reorder-bays': {
+          const ids = bays.map((b) => b.id);
+          const shift = cmd.seed % Math.max(1, ids.length);
+          app.app.get(BaysService).reorder({ bayIds: [...ids.slice(shift), ...ids.slice(0, shift)] }, owner);
+          return;
+        }
         case 'toggle-tech': {
           const tech = pick(allTechnicians(), cmd.tech);
           if (!tech) return;
@@ -258,5 +301,5 @@ describe(FloorService.name, () => {
       }),
       { numRuns: 12 },
     );
-  });
+  }, 180_000);
 });

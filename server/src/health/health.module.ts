@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
+import { EventLoopService } from './event-loop.service.js';
 import { HealthController } from './health.controller.js';
 
-@Module({ controllers: [HealthController] })
+@Module({ controllers: [HealthController], providers: [EventLoopService] })
 export class HealthModule {}

@@ -5,12 +5,21 @@ import { join } from 'node:path';
 import MailComposer from 'nodemailer/lib/mail-composer';
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { FindingDto, MailboxEntry, MailboxMessage, MailQueued, MyDay } from '@baytime/shared';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type {
+  ApprovalRequested,
+  FindingDto,
+  MailboxEntry,
+  MailboxMessage,
+  MyDay,
+  NoticesQueued,
+  TextboxEntry,
+} from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, jobLines, mailOutbox, repairOrders } from '../db/schema/index.js';
+import { customers, findings, jobLines, mailOutbox, repairOrders, users } from '../db/schema/index.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { MAX_MAIL_ATTEMPTS, MailService, retryDelayMs } from './mail.service.js';
+import { MAX_SEND_ATTEMPTS, OutboxService, retryDelayMs } from './outbox.service.js';
+import { TextboxService } from './textbox.service.js';
 import { parseMail } from './mime.js';
 
 /** A loopback port nothing listens on: connecting to it is refused at once. */
@@ -32,7 +41,7 @@ async function eventually<T>(probe: () => Promise<T | undefined>, timeoutMs = 50
   }
 }
 
-describe(MailService.name, () => {
+describe(OutboxService.name, () => {
   describe('parseMail', () => {
     it('reads back what nodemailer composes: encoded subject, quoted-printable text, attachment names', async () => {
       const raw = await new MailComposer({
@@ -66,8 +75,8 @@ describe(MailService.name, () => {
     let owner: string;
     let advisor: string;
     const mailbox = async (token = owner) =>
-      (await sut.http().get('/api/mailbox').auth(token, { type: 'bearer' }).expect(200))
-        .body as MailboxEntry[];
+      (await sut.http().get('/api/mailbox').auth(token, { type: 'bearer' }).expect(200)).body
+        .items as MailboxEntry[];
     const received = (subject: string) =>
       eventually(async () => (await mailbox()).find((entry) => entry.subject === subject));
 
@@ -99,20 +108,37 @@ describe(MailService.name, () => {
           .expect(201)
       ).body as FindingDto;
 
+      await sut
+        .http()
+        .patch(`/api/findings/${finding.id}/quote`)
+        .auth(advisor, { type: 'bearer' })
+        .send({ customerWording: 'The drain plug threads are worn out', bookHours: 0.7, partsCents: 12_50 })
+        .expect(200);
       const request = () =>
         sut.http().post(`/api/findings/${finding.id}/request-approval`).auth(advisor, { type: 'bearer' });
       const ro = db.select().from(repairOrders).where(eq(repairOrders.id, finding.repairOrderId)).get()!;
-      db.update(customers).set({ email: null }).where(eq(customers.id, ro.customerId)).run();
+      db.update(customers)
+        .set({ email: null, phone: '555-0142' })
+        .where(eq(customers.id, ro.customerId))
+        .run();
       const { body: refused } = await request().expect(400);
-      expect(refused.message).toBe('The customer has no e-mail address');
+      expect(refused.message).toBe('The customer has no e-mail address or phone number for texts');
 
       db.update(customers)
-        .set({ email: 'harriet@example.test' })
+        .set({ email: 'harriet@example.test', phone: '(608) 555-0177' })
         .where(eq(customers.id, ro.customerId))
         .run();
       const subject = `Marlow Creek Auto Care: approval needed for RO ${ro.number}`;
-      const queued = (await request().expect(202)).body as MailQueued;
-      expect(queued).toMatchObject({ to: 'harriet@example.test', subject, attachments: ['photo-1.png'] });
+      // Stored to the second: the request's time, floored.
+      const requestedFrom = Math.floor(Date.now() / 1000) * 1000;
+      const queued = (await request().expect(201)).body as ApprovalRequested;
+      expect(queued.mail).toMatchObject({
+        to: 'harriet@example.test',
+        subject,
+        attachments: ['photo-1.png'],
+      });
+      expect(queued.text).toMatchObject({ to: '+16085550177' });
+      const requestedTo = Date.now();
 
       const entry = await received(subject);
       expect(entry).toMatchObject({
@@ -123,21 +149,35 @@ describe(MailService.name, () => {
       const message = (
         await sut.http().get(`/api/mailbox/${entry.id}`).auth(owner, { type: 'bearer' }).expect(200)
       ).body as MailboxMessage;
-      expect(message.text).toContain('What we found: Oil pan drain plug threads stripped');
-      expect(message.text).toContain('Suggested extra labour: 0.7 hours.');
-      expect(message.text).not.toMatch(/https?:|<img/i);
-      expect(db.select().from(mailOutbox).where(eq(mailOutbox.id, queued.mailId)).get()).toMatchObject({
+      // 0.7 h × $135.00 = $94.50, + $12.50 parts = $107.00 (worked by hand).
+      expect(message.text).toContain('- The drain plug threads are worn out (estimate $107.00)');
+      expect(message.text).not.toContain('Oil pan drain plug threads stripped');
+      expect(message.text).toContain(queued.approvalUrl);
+      expect(message.text).not.toMatch(/<img/i);
+      expect(db.select().from(mailOutbox).where(eq(mailOutbox.id, queued.mail!.mailId)).get()).toMatchObject({
+        channel: 'email',
         status: 'sent',
         attempts: 1,
       });
+
+      const text = await eventually(async () => {
+        const { body } = await sut.http().get('/api/textbox').auth(owner, { type: 'bearer' }).expect(200);
+        return (body.items as TextboxEntry[]).find((t) => t.body.includes(queued.approvalUrl));
+      });
+      expect(text.to).toBe('+16085550177');
+      expect(text.body).toMatch(
+        /^Marlow Creek Auto Care: we found something on your .+ Estimate \$107\.00\./,
+      );
 
       // The new finding also told the RO's advisor.
       const notice = await received(`Marlow Creek Auto Care: new finding on RO ${ro.number} (soon)`);
       expect(notice.to).toEqual([DEMO.advisor]);
 
-      const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' }))
-        .body as FindingDto[];
-      expect(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt).not.toBeNull();
+      const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' })).body
+        .items as FindingDto[];
+      const requestedAt = Date.parse(inbox.find((f) => f.id === finding.id)?.approvalRequestedAt ?? '');
+      expect(requestedAt).toBeGreaterThanOrEqual(requestedFrom);
+      expect(requestedAt).toBeLessThanOrEqual(requestedTo);
     });
 
     it('sends the ready notice only when every line of the RO is done', async () => {
@@ -145,19 +185,76 @@ describe(MailService.name, () => {
         sut.http().post(`/api/repair-orders/${id}/ready-notice`).auth(advisor, { type: 'bearer' });
       const open = db.select().from(jobLines).where(eq(jobLines.status, 'queued')).get()!;
       const { body: refused } = await notice(open.repairOrderId).expect(409);
-      expect(refused.message).toMatch(/^Not every job line on RO \d+ is done yet/);
+      expect(refused.message).toMatch(/^The work on RO \d+ is not done yet/);
 
       const done = db.select().from(repairOrders).where(eq(repairOrders.status, 'done')).get()!;
       db.update(customers)
         .set({ email: 'ready@example.test' })
         .where(eq(customers.id, done.customerId))
         .run();
-      const queued = (await notice(done.id).expect(202)).body as MailQueued;
-      expect(queued.subject).toMatch(
+      const doneLine = db.select().from(jobLines).where(eq(jobLines.repairOrderId, done.id)).get()!;
+      const declined = {
+        jobLineId: doneLine.id,
+        technicianId: db.select().from(users).where(eq(users.role, 'technician')).get()!.id,
+        severity: 'watch' as const,
+        answer: 'declined' as const,
+      };
+      db.insert(findings)
+        .values([
+          {
+            ...declined,
+            note: 'LR wiper chattering',
+            customerWording: 'The rear wiper blade is worn',
+            createdAt: new Date(),
+          },
+          { ...declined, note: 'raw tech shorthand: CV boot sm tear', createdAt: new Date() },
+        ])
+        .run();
+      const queued = (await notice(done.id).expect(202)).body as NoticesQueued;
+      expect(queued.mail?.subject).toMatch(
         new RegExp(`^Marlow Creek Auto Care: your .+ is ready \\(RO ${done.number}\\)$`),
       );
-      const entry = await received(queued.subject);
+      const entry = await received(queued.mail!.subject);
       expect(entry.to).toEqual(['ready@example.test']);
+      const { text } = (
+        await sut.http().get(`/api/mailbox/${entry.id}`).auth(owner, { type: 'bearer' }).expect(200)
+      ).body as MailboxMessage;
+      expect(text).toContain('- The rear wiper blade is worn');
+      expect(text).toContain(
+        `- Something our technician noted during "${doneLine.title}": ask us for the details`,
+      );
+      expect(text).not.toMatch(/LR wiper|raw tech shorthand/);
+      const ro = db.select().from(customers).where(eq(customers.id, done.customerId)).get()!;
+      expect(queued.text).toEqual({ textId: expect.any(Number), to: ro.phone });
+    });
+
+    it('sends a text through the local text box, and retries one that failed with back-off', async () => {
+      const outbox = sut.app.get(OutboxService);
+      const textbox = sut.app.get(TextboxService);
+      await outbox.flush();
+      const record = vi.spyOn(textbox, 'record').mockImplementationOnce(() => {
+        throw new Error('Text box unreachable');
+      });
+      const { id } = outbox.queueText({ to: '+16085550123', body: 'Your car is ready' });
+      await outbox.flush();
+      expect(outbox.find(id)).toMatchObject({
+        channel: 'text',
+        status: 'queued',
+        attempts: 1,
+        lastError: 'Text box unreachable',
+      });
+      const due = outbox.find(id)!.nextAttemptAt;
+      expect(due.getTime() - outbox.find(id)!.createdAt.getTime()).toBeGreaterThanOrEqual(retryDelayMs(1));
+
+      expect(await outbox.flush(due)).toBe(1);
+      expect(outbox.find(id)).toMatchObject({ status: 'sent', attempts: 2, lastError: null });
+      expect(record).toHaveBeenLastCalledWith('Baytime local text box', '+16085550123', 'Your car is ready');
+      const { body } = await sut.http().get('/api/textbox').auth(owner, { type: 'bearer' }).expect(200);
+      expect((body.items as TextboxEntry[])[0]).toMatchObject({
+        to: '+16085550123',
+        body: 'Your car is ready',
+      });
+      record.mockRestore();
     });
 
     it('shows the mailbox to the owner only', async () => {
@@ -181,19 +278,23 @@ describe(MailService.name, () => {
         BAYTIME_DATA_DIR: dataDir,
         BAYTIME_SMTP_URL: `smtp://127.0.0.1:${await deadPort()}`,
       });
-      const mail = broken.app.get(MailService);
+      const mail = broken.app.get(OutboxService);
       const row = (id: number) => mail.find(id)!;
 
       // A message gives up after the last attempt and is then left alone.
-      const doomed = mail.queue({ to: 'nobody@example.test', subject: 'Never sent', text: 'x' }).id;
+      const doomed = mail.queueMail({ to: 'nobody@example.test', subject: 'Never sent', text: 'x' }).id;
       await mail.flush();
-      for (let i = 1; i < MAX_MAIL_ATTEMPTS; i++)
+      for (let i = 1; i < MAX_SEND_ATTEMPTS; i++)
         await mail.flush(new Date(Date.now() + 365 * 86_400_000 * i));
-      expect(row(doomed)).toMatchObject({ status: 'failed', attempts: MAX_MAIL_ATTEMPTS });
+      expect(row(doomed)).toMatchObject({ status: 'failed', attempts: MAX_SEND_ATTEMPTS });
       await mail.flush(new Date(Date.now() + 3650 * 86_400_000));
-      expect(row(doomed).attempts).toBe(MAX_MAIL_ATTEMPTS);
+      expect(row(doomed).attempts).toBe(MAX_SEND_ATTEMPTS);
 
-      const { id } = mail.queue({ to: 'later@example.test', subject: 'Survives a restart', text: 'Hello' });
+      const { id } = mail.queueMail({
+        to: 'later@example.test',
+        subject: 'Survives a restart',
+        text: 'Hello',
+      });
       await mail.flush();
       expect(row(id)).toMatchObject({ status: 'queued', attempts: 1 });
       expect(row(id).lastError).toMatch(/ECONNREFUSED/);
@@ -218,7 +319,7 @@ describe(MailService.name, () => {
 
       const restarted = await startTestApp({ BAYTIME_DATA_DIR: dataDir });
       try {
-        const again = restarted.app.get(MailService);
+        const again = restarted.app.get(OutboxService);
         expect(again.find(id)).toMatchObject({ status: 'queued', attempts: 3 });
         expect(await again.flush(again.find(id)!.nextAttemptAt)).toBe(1);
         expect(again.find(id)).toMatchObject({ status: 'sent', attempts: 4, lastError: null });
@@ -228,7 +329,7 @@ describe(MailService.name, () => {
           .get('/api/mailbox')
           .auth(owner, { type: 'bearer' })
           .expect(200);
-        expect((body as MailboxEntry[]).map((entry) => entry.subject)).toEqual(['Survives a restart']);
+        expect((body.items as MailboxEntry[]).map((entry) => entry.subject)).toEqual(['Survives a restart']);
       } finally {
         await restarted.close();
       }

@@ -1,6 +1,12 @@
-import { Controller, Get, Param } from '@nestjs/common';
+import { Controller, Get, Param, Query } from '@nestjs/common';
 import { z } from 'zod';
-import type { MailboxEntry, MailboxMessage } from '@baytime/shared';
+import {
+  pageQuerySchema,
+  type MailboxEntry,
+  type MailboxMessage,
+  type Page,
+  type PageQuery,
+} from '@baytime/shared';
 import { Roles } from '../common/decorators/auth.decorators.js';
 import { MailboxService } from './mailbox.service.js';
 
@@ -11,8 +17,8 @@ export class MailboxController {
   constructor(private readonly mailbox: MailboxService) {}
 
   @Get()
-  list(): MailboxEntry[] {
-    return this.mailbox.list();
+  list(@Query({ schema: pageQuerySchema }) query: PageQuery): Page<MailboxEntry> {
+    return this.mailbox.list(query);
   }
 
   @Get(':id')

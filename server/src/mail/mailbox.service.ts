@@ -1,11 +1,12 @@
 import { Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
-import { SMTPServer, type SMTPServerAddress, type SMTPServerSession } from 'smtp-server';
-import type { MailboxEntry, MailboxMessage } from '@baytime/shared';
+import type { SMTPServer, SMTPServerAddress, SMTPServerSession } from 'smtp-server';
+import type { MailboxEntry, MailboxMessage, Page, PageQuery } from '@baytime/shared';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
+import { JsonIndex } from './json-index.js';
 import { parseMail } from './mime.js';
 
 const MAX_MESSAGE_BYTES = 80 * 1024 * 1024;
@@ -19,18 +20,18 @@ const MAX_MESSAGE_BYTES = 80 * 1024 * 1024;
 export class MailboxService {
   private readonly logger = new Logger('Mailbox');
   private readonly dir: string;
-  private readonly indexFile: string;
-  private entries: MailboxEntry[] | null = null;
+  private readonly index: JsonIndex<MailboxEntry>;
   private server: SMTPServer | null = null;
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
     this.dir = join(config.dataDir, 'mailbox');
-    this.indexFile = join(this.dir, 'index.json');
+    this.index = new JsonIndex(join(this.dir, 'index.json'));
   }
 
   /** Starts the fake SMTP server on a free loopback port and answers that port. */
   async start(): Promise<number> {
     mkdirSync(this.dir, { recursive: true });
+    const { SMTPServer } = await import('smtp-server');
     const server = new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS'],
@@ -74,13 +75,12 @@ export class MailboxService {
     if (server) await new Promise<void>((resolve) => server.close(() => resolve()));
   }
 
-  /** Newest first. */
-  list(): MailboxEntry[] {
-    return [...this.index()].reverse();
+  list(query: PageQuery): Page<MailboxEntry> {
+    return this.index.page(query);
   }
 
   get(id: string): MailboxMessage {
-    const entry = this.index().find((e) => e.id === id);
+    const entry = this.index.find(id);
     const file = join(this.dir, `${id}.eml`);
     if (!entry || !existsSync(file)) throw new NotFoundException('Message not found');
     return { ...entry, text: parseMail(readFileSync(file)).text };
@@ -100,18 +100,6 @@ export class MailboxService {
       attachments: parsed.attachments.map((a) => a.filename),
       sizeBytes: raw.length,
     };
-    const entries = [...this.index(), entry];
-    const temporary = `${this.indexFile}.${process.pid}.tmp`;
-    writeFileSync(temporary, JSON.stringify(entries, null, 1));
-    renameSync(temporary, this.indexFile);
-    this.entries = entries;
-  }
-
-  private index(): MailboxEntry[] {
-    if (this.entries === null)
-      this.entries = existsSync(this.indexFile)
-        ? (JSON.parse(readFileSync(this.indexFile, 'utf8')) as MailboxEntry[])
-        : [];
-    return this.entries;
+    this.index.append(entry);
   }
 }

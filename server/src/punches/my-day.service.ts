@@ -1,6 +1,9 @@
-import { Injectable } from '@nestjs/common';
-import type { MyDay, TechnicianState } from '@baytime/shared';
+import { Inject, Injectable } from '@nestjs/common';
+import { and, count, eq, gte, inArray, or } from 'drizzle-orm';
+import { shopDayKey, shopLocalInstant, type MyDay, type TechnicianState } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { DB, type Db } from '../db/database.js';
+import { jobLines } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
@@ -10,6 +13,7 @@ const OFF_SHIFT: TechnicianState = { status: 'off', since: null, breakKind: null
 @Injectable()
 export class MyDayService {
   constructor(
+    @Inject(DB) private readonly db: Db,
     private readonly floor: FloorService,
     private readonly shop: ShopService,
   ) {}
@@ -42,9 +46,59 @@ export class MyDayService {
         priority: line.priority,
         bayName: line.bayId ? (bayNames.get(line.bayId) ?? null) : null,
         clockedOn: state.openJobLineIds.includes(line.id),
+        concern: line.concern,
       })),
+      doneToday: this.doneToday(technician.id, now, settings.timeZone),
+      finalChecks: this.finalChecks(technician.id),
       idleSignOutSeconds: settings.kioskIdleSeconds,
       maxConcurrentJobs: settings.maxConcurrentJobs,
     };
+  }
+
+  private doneToday(technicianId: number, now: Date, timeZone: string): number {
+    const midnight = shopLocalInstant(shopDayKey(now, timeZone), '00:00', timeZone);
+    return (
+      this.db
+        .select({ n: count() })
+        .from(jobLines)
+        .where(
+          and(
+            gte(jobLines.completedAt, midnight),
+            eq(jobLines.status, 'done'),
+            or(eq(jobLines.completedBy, technicianId), eq(jobLines.technicianId, technicianId)),
+          ),
+        )
+        .get()?.n ?? 0
+    );
+  }
+
+  /** Bays waiting for a final check on a vehicle this technician worked on. */
+  private finalChecks(technicianId: number): MyDay['finalChecks'] {
+    const waiting = this.floor.bays().filter((bay) => bay.phase === 'check' && bay.parked);
+    if (!waiting.length) return [];
+    const mine = new Set(
+      this.db
+        .selectDistinct({ repairOrderId: jobLines.repairOrderId })
+        .from(jobLines)
+        .where(
+          and(
+            inArray(
+              jobLines.repairOrderId,
+              waiting.map((bay) => bay.parked!.id),
+            ),
+            or(eq(jobLines.technicianId, technicianId), eq(jobLines.completedBy, technicianId)),
+          ),
+        )
+        .all()
+        .map((row) => row.repairOrderId),
+    );
+    return waiting
+      .filter((bay) => mine.has(bay.parked!.id))
+      .map((bay) => ({
+        bayId: bay.id,
+        bayName: bay.name,
+        repairOrderNumber: bay.parked!.number,
+        vehicle: bay.parked!.vehicle,
+      }));
   }
 }

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { and, asc, eq, gte, inArray, lt } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
 import { TZDate } from '@date-fns/tz';
 import { format } from 'date-fns';
 import type { DisplacedPunch, LedgerPunch, PunchDto, PunchKind } from '@baytime/shared';
@@ -28,13 +28,17 @@ const KIND_WORDS: Record<PunchKind, string> = {
 /** Writes punches and names them in plain words; shared by the kiosk's punches and the foreman's corrections. */
 @Injectable()
 export class PunchLedgerService {
+  private readonly insertStatement: ReturnType<typeof prepareInsert>;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly floor: FloorService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
     private readonly audit: AuditService,
-  ) {}
+  ) {
+    this.insertStatement = prepareInsert(db);
+  }
 
   /** A technician's counted punches within 36 h either side of `at`, from the database. */
   around(technicianId: number, at: Date): LedgerPunch[] {
@@ -91,19 +95,15 @@ export class PunchLedgerService {
     punch: LedgerPunch,
     recorded: { at: Date; by: number; reason?: string | null; voids?: boolean },
   ): PunchDto {
-    const row = this.db
-      .insert(punches)
-      .values({
-        ...punch,
-        at: new Date(punch.at),
-        recordedAt: recorded.at,
-        recordedBy: recorded.by,
-        reason: recorded.reason ?? null,
-        voids: recorded.voids ?? false,
-      })
-      .returning()
-      .get();
-    const dto = toPunchDto(row);
+    const row = this.insertStatement.get({
+      ...punch,
+      at: new Date(punch.at),
+      recordedAt: recorded.at,
+      recordedBy: recorded.by,
+      reason: recorded.reason ?? null,
+      voids: recorded.voids ?? false,
+    });
+    const dto = toPunchDto(row!);
     this.live.publish('punch.recorded', { punch: dto }, { to: 'floor', technicianId: dto.technicianId });
     this.floor.punchRecorded(dto);
     return dto;
@@ -132,4 +132,26 @@ export class PunchLedgerService {
       return punch.id;
     });
   }
+}
+
+/** The insert of every punch, prepared once: built per call, it costs about 0.2 ms more. */
+function prepareInsert(db: Db) {
+  const value = (name: string) => sql.placeholder(name);
+  return db
+    .insert(punches)
+    .values({
+      id: value('id'),
+      technicianId: value('technicianId'),
+      kind: value('kind'),
+      jobLineId: value('jobLineId'),
+      breakKind: value('breakKind'),
+      at: value('at'),
+      recordedAt: value('recordedAt'),
+      recordedBy: value('recordedBy'),
+      supersedes: value('supersedes'),
+      reason: value('reason'),
+      voids: value('voids'),
+    })
+    .returning()
+    .prepare();
 }

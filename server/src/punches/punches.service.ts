@@ -6,8 +6,9 @@ import {
   Injectable,
 } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import {
+  isOpenLine,
   LATE_PUNCH_SECONDS,
   MAX_PUNCH_AGE_SECONDS,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
@@ -17,6 +18,7 @@ import {
   type LedgerPunch,
   type PunchDto,
   type PunchImpact,
+  type PunchKind,
   type ResolutionBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -27,6 +29,7 @@ import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { heldPunches, jobLines, punches, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -38,6 +41,7 @@ export type RecordedPunch =
   | { punch: HeldPunchDto; replayed: boolean; held: true };
 
 type HeldRow = typeof heldPunches.$inferSelect;
+type LineRow = typeof jobLines.$inferSelect;
 
 export function toHeldPunchDto(row: HeldRow): HeldPunchDto {
   return {
@@ -70,6 +74,8 @@ const heldToLedger = (row: HeldRow): LedgerPunch => ({
 
 @Injectable()
 export class PunchesService {
+  private readonly queries: ReturnType<typeof preparePunchQueries>;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
@@ -78,8 +84,11 @@ export class PunchesService {
     private readonly shop: ShopService,
     private readonly ledger: PunchLedgerService,
     private readonly closedWeeks: ClosedWeeksService,
+    private readonly access: LineAccessService,
     private readonly audit: AuditService,
-  ) {}
+  ) {
+    this.queries = preparePunchQueries(db);
+  }
 
   /**
    * Records a punch once. The tablet's uuid makes a retry find the stored punch instead of adding a
@@ -93,7 +102,7 @@ export class PunchesService {
   @Transactional()
   record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
-    const existing = this.db.select().from(punches).where(eq(punches.id, body.id)).get();
+    const existing = this.queries.punch.get({ id: body.id });
     const existingHeld = existing
       ? undefined
       : this.db.select().from(heldPunches).where(eq(heldPunches.id, body.id)).get();
@@ -108,12 +117,11 @@ export class PunchesService {
     if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
       throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
     this.closedWeeks.assertOpenAt(at, 'That punch');
-    const line = body.jobLineId
-      ? this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get()
-      : undefined;
+    const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
-    if (body.kind === 'job-on' && line?.status === 'done')
-      throw new ConflictException('That job line is done');
+    if (line) this.assertMayPunchOn(line, body.kind, actor, now);
+    if (body.kind === 'job-on' && line && !isOpenLine(line))
+      throw new ConflictException(`That job line is ${line.status}`);
 
     const candidate: LedgerPunch = {
       id: body.id,
@@ -137,13 +145,29 @@ export class PunchesService {
     }
 
     const punch = this.ledger.insert(candidate, { at: now, by: actor.id });
-    if (line && body.kind === 'job-on' && line.status === 'queued') {
+    if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
+      const taken = line.technicianId === null;
       const updated = this.db
         .update(jobLines)
-        .set({ status: 'working', updatedAt: now })
+        .set({
+          ...(line.status === 'queued' ? { status: 'working' as const } : {}),
+          ...(taken ? { technicianId } : {}),
+          updatedAt: now,
+        })
         .where(eq(jobLines.id, line.id))
         .returning()
         .get();
+      if (taken)
+        this.audit.record(
+          {
+            actorId: actor.id,
+            action: 'take',
+            entity: 'job-line',
+            entityId: line.id,
+            detail: { technicianId },
+          },
+          now,
+        );
       this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
       this.floor.linesChanged([line.id]);
     }
@@ -310,6 +334,21 @@ export class PunchesService {
     return technicianIds;
   }
 
+  /**
+   * A technician clocks onto a line assigned to them, or onto an unassigned one when the shop lets
+   * technicians take them (clocking on takes it); they clock off a line they are on. Putting a helper
+   * on someone else's line is the foreman's call: the foreman and owner punch anyone onto any line.
+   */
+  private assertMayPunchOn(line: LineRow, kind: PunchKind, actor: Principal, now: Date): void {
+    if (actor.role !== 'technician') return;
+    if (kind === 'job-off') return this.access.assertMayWork(line, actor, now);
+    if (line.technicianId === actor.id) return;
+    if (line.technicianId !== null)
+      throw new ForbiddenException('That line is assigned to someone else: ask the foreman');
+    if (!this.shop.settings().techniciansTakeUnassigned)
+      throw new ForbiddenException('The foreman assigns unassigned lines here: ask the foreman');
+  }
+
   private technicianFor(body: CreatePunchBody, actor: Principal): number {
     if (actor.role === 'technician') {
       if (body.technicianId !== undefined && body.technicianId !== actor.id)
@@ -325,4 +364,21 @@ export class PunchesService {
     if (!tech || !tech.active) throw new BadRequestException('No active technician with that id');
     return tech.id;
   }
+}
+
+/** The statements of every punch, prepared once: built per call, each costs about 0.2 ms more. */
+function preparePunchQueries(db: Db) {
+  const value = (name: string) => sql.placeholder(name);
+  return {
+    punch: db
+      .select()
+      .from(punches)
+      .where(eq(punches.id, value('id')))
+      .prepare(),
+    line: db
+      .select()
+      .from(jobLines)
+      .where(eq(jobLines.id, value('id')))
+      .prepare(),
+  };
 }

@@ -139,15 +139,9 @@ describe(ReportsService.name, () => {
   }, 120_000);
   afterAll(() => sut.close());
 
-  it('reports the week by hand-worked figures, with the workweek bounds and the formulas', async () => {
+  it('reports the week by hand-worked figures, with the formulas', async () => {
     const report = await labour(`week=${week}`, foreman);
-    const { from, to } = workweekBounds(week, shop);
-    expect(report).toMatchObject({
-      week,
-      from: from.toISOString(),
-      to: to.toISOString(),
-      timeZone: 'America/Chicago',
-    });
+    expect(report).toMatchObject({ week, timeZone: 'America/Chicago' });
     expect(report.formulas.efficiency).toMatch(
       /^Efficiency = flagged hours of the lines finished this week ÷/,
     );
@@ -224,11 +218,46 @@ describe(ReportsService.name, () => {
     expect(report.weekName).toMatch(/^Week of Sun, [A-Z][a-z]{2} \d{1,2}$/);
   });
 
+  it('bounds a report by the shop’s workweek, by the calendar', async () => {
+    // The demo shop's workweek starts Sunday 00:00 in America/Chicago; its week "YYYY-Www" is the one
+    // that starts in that ISO week. ISO 8601 week dates: 2025-12-29 is 2026-W01-1, so 2026-W10 runs
+    // Monday 2 March to Sunday 8 March, and 2026-W44 Monday 26 October to Sunday 1 November.
+    // US daylight saving time (Energy Policy Act of 2005, Pub. L. 109-58 §110: second Sunday of March,
+    // first Sunday of November, at 2 a.m.) turns on 8 March and off 1 November 2026. So the workweek
+    // from Sunday 8 March runs from 00:00 CST (UTC−6) to 00:00 CDT (UTC−5): 167 h; the one from
+    // Sunday 1 November from 00:00 CDT to 00:00 CST: 169 h.
+    expect(await labour('week=2026-W10')).toMatchObject({
+      from: '2026-03-08T06:00:00.000Z',
+      to: '2026-03-15T05:00:00.000Z',
+    });
+    expect(await labour('week=2026-W44')).toMatchObject({
+      from: '2026-11-01T05:00:00.000Z',
+      to: '2026-11-08T06:00:00.000Z',
+    });
+    // ISO 8601: 2026-12-31 is 2026-W53-4, so 2026 has 53 weeks; W53's Sunday is 3 January 2027 and
+    // 2027-01-04 is 2027-W01-1.
+    const lastOfTheYear = await labour('week=2026-W53');
+    expect(lastOfTheYear).toMatchObject({ from: '2027-01-03T06:00:00.000Z', to: '2027-01-10T06:00:00.000Z' });
+    // The 12-week trend up to 2027-W02 counts back through 2026's week 53.
+    expect((await labour('week=2027-W02')).trend.map((point) => point.week)).toEqual([
+      '2026-W44',
+      '2026-W45',
+      '2026-W46',
+      '2026-W47',
+      '2026-W48',
+      '2026-W49',
+      '2026-W50',
+      '2026-W51',
+      '2026-W52',
+      '2026-W53',
+      '2027-W01',
+      '2027-W02',
+    ]);
+  });
+
   it('shows the shop trend over 12 weeks: null ratios where nothing was worked', async () => {
     const { trend, shop: totals } = await labour(`week=${week}`);
-    expect(trend.map((point) => point.week)).toEqual(
-      Array.from({ length: 12 }, (_, i) => addIsoWeeks(week, i - 11)),
-    );
+    expect(trend).toHaveLength(12);
     expect(trend[11]).toMatchObject({ week, ...totals });
     // The week before: Eli's 47 h on shift and no job → productivity 0/47 = 0, efficiency 0/0 = null.
     expect(trend[10]).toMatchObject({

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, isNull } from 'drizzle-orm';
 import type { CreateScreenBody, ScreenPairing } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
@@ -7,6 +7,7 @@ import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { screens } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import { hashPairingCode, newPairingCode } from './pairing-code.js';
 
 const PAIRING_CODE_LIFETIME_MS = 30 * 60_000;
@@ -28,6 +29,7 @@ export class ScreensService {
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
     private readonly audit: AuditService,
+    private readonly live: LiveService,
   ) {}
 
   list(): ScreenDto[] {
@@ -49,22 +51,38 @@ export class ScreensService {
   /** A new screen with a one-time code, shown once: only its hash is kept. */
   @Transactional()
   create({ name }: CreateScreenBody, actor: Principal | null): ScreenPairing {
-    const code = newPairingCode();
-    const now = new Date();
-    const expiresAt = new Date(now.getTime() + PAIRING_CODE_LIFETIME_MS);
     const row = this.db
       .insert(screens)
-      .values({
-        name,
-        pairingCodeHash: hashPairingCode(code),
-        pairingExpiresAt: expiresAt,
-        createdBy: actor?.id ?? null,
-        createdAt: now,
-      })
+      .values({ name, createdBy: actor?.id ?? null, createdAt: new Date() })
       .returning()
       .get();
     this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'screen', entityId: row.id });
-    return { id: row.id, code, expiresAt: expiresAt.toISOString() };
+    return this.newCode(row.id);
+  }
+
+  /**
+   * A code for the first wall screen of a new shop: 'paired' once one is, 'pending' while a code
+   * made earlier still works. An unpaired screen gets a fresh code rather than a new screen joining
+   * it at every start.
+   */
+  @Transactional()
+  firstScreenCode(name: string, now = new Date()): ScreenPairing | 'paired' | 'pending' {
+    const current = this.db.select().from(screens).where(isNull(screens.revokedAt)).all();
+    if (current.some((screen) => screen.pairedAt)) return 'paired';
+    if (current.some((screen) => screen.pairingExpiresAt && screen.pairingExpiresAt > now)) return 'pending';
+    const waiting = current.find((screen) => !screen.pairedAt);
+    return waiting ? this.newCode(waiting.id) : this.create({ name }, null);
+  }
+
+  private newCode(id: number): ScreenPairing {
+    const code = newPairingCode();
+    const expiresAt = new Date(Date.now() + PAIRING_CODE_LIFETIME_MS);
+    this.db
+      .update(screens)
+      .set({ pairingCodeHash: hashPairingCode(code), pairingExpiresAt: expiresAt })
+      .where(eq(screens.id, id))
+      .run();
+    return { id, code, expiresAt: expiresAt.toISOString() };
   }
 
   @Transactional()
@@ -76,6 +94,7 @@ export class ScreensService {
       .where(eq(screens.id, id))
       .run();
     this.audit.record({ actorId: actor.id, action: 'revoke', entity: 'screen', entityId: id });
+    this.live.endSessions({ screenId: id }, 'screen-revoked');
     return foundOrFail(
       this.list().find((screen) => screen.id === id),
       'Screen',

@@ -42,6 +42,11 @@ export const DEFAULT_SHOP: ShopSettings = {
   minimumClockedHoursForEfficiency: 8,
   apportionSpanningLines: true,
   kioskShowsPay: true,
+  techniciansTakeUnassigned: true,
+  phone: null,
+  labourRateCents: 0,
+  taxNote: '',
+  approvalLinkHours: 72,
 };
 
 /** The first pay rules of a shop apply from a day before any record. */

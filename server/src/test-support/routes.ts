@@ -1,6 +1,6 @@
 import type { Role } from '@baytime/shared';
 
-export type Method = 'get' | 'post' | 'patch' | 'delete';
+export type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
 export const ALL_ROLES: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
 
 /** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
@@ -13,6 +13,8 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/bays', ALL_ROLES],
   ['post', '/api/bays', ['owner']],
   ['patch', '/api/bays/1', ['owner']],
+  ['put', '/api/bays/order', ['owner']],
+  ['post', '/api/bays/5/final-check', ['technician', 'foreman', 'advisor', 'owner']],
   ['get', '/api/screens', ['owner', 'foreman']],
   ['post', '/api/screens', ['owner', 'foreman']],
   ['delete', '/api/screens/999', ['owner', 'foreman']],
@@ -24,12 +26,21 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
   ['post', '/api/repair-orders', ['owner', 'foreman', 'advisor']],
   ['get', '/api/repair-orders/1', ['owner', 'foreman', 'advisor']],
+  ['patch', '/api/repair-orders/1', ['owner', 'foreman', 'advisor']],
+  ['get', '/api/repair-orders/1/history', ['owner', 'foreman', 'advisor']],
+  ['post', '/api/repair-orders/1/lines', ['owner', 'foreman', 'advisor']],
+  ['put', '/api/repair-orders/1/line-order', ['owner', 'foreman', 'advisor']],
+  ['post', '/api/repair-orders/1/close', ['owner', 'foreman', 'advisor']],
+  ['get', '/api/vehicles', ['owner', 'foreman', 'advisor']],
   ['get', '/api/operations', ['owner', 'foreman', 'advisor']],
   ['post', '/api/operations', ['owner']],
   ['patch', '/api/operations/1', ['owner']],
   ['get', '/api/dispatch', ['foreman', 'owner', 'advisor']],
   ['post', '/api/bays/8/release', ['owner', 'foreman', 'advisor']],
   ['patch', '/api/job-lines/1', ['foreman', 'owner']],
+  ['patch', '/api/job-lines/1/details', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/job-lines/1/cancel', ['advisor', 'foreman', 'owner']],
+  ['delete', '/api/job-lines/999', ['advisor', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/hold', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/resume', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/done', ['technician', 'foreman', 'owner']],
@@ -54,10 +65,14 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/job-lines/1/findings', ['technician', 'foreman', 'owner']],
   ['get', '/api/findings', ['advisor', 'foreman', 'owner']],
   ['post', '/api/findings/999/answer', ['advisor', 'foreman', 'owner']],
-  ['post', '/api/findings/999/request-approval', ['advisor']],
+  ['patch', '/api/findings/999/answer', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/findings/999/request-approval', ['advisor', 'owner']],
+  ['patch', '/api/findings/999/quote', ['advisor', 'owner']],
+  ['post', '/api/approval-links/999/revoke', ['advisor', 'owner']],
   ['get', '/api/attachments/999', ['owner', 'foreman', 'advisor', 'technician']],
   ['get', '/api/attachments/999/preview', ['owner', 'foreman', 'advisor', 'technician']],
-  ['post', '/api/repair-orders/1/ready-notice', ['advisor']],
+  ['post', '/api/repair-orders/1/ready-notice', ['advisor', 'foreman', 'owner']],
   ['get', '/api/mailbox', ['owner']],
   ['get', '/api/mailbox/00000000-0000-4000-8000-000000000000', ['owner']],
+  ['get', '/api/textbox', ['owner']],
 ];

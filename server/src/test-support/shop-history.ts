@@ -1,6 +1,7 @@
 import { makeVin, type BreakKind, type PunchKind } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { customers, jobLines, repairOrders, vehicles } from '../db/schema/index.js';
+import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 import type { TestApp } from './test-app.js';
 
 export type ShopHistory = ReturnType<typeof shopHistory>;
@@ -82,6 +83,7 @@ export function shopHistory(sut: TestApp, tokens: { owner: string; foreman: stri
           number: `T${900 + n}`,
           customerId: customer.id,
           vehicleId: vehicle.id,
+          ...repairOrderSnapshot(customer, vehicle),
           concern: title,
           odometer: 40_000,
           createdAt: queuedAt,

@@ -27,7 +27,7 @@ import {
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail } from '../common/not-found.js';
+import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
@@ -224,18 +224,18 @@ export class TimecardsService {
   private plan(body: CorrectionBody, now: Date): { candidate: LedgerPunch; impact: PunchImpact } {
     const at = new Date(body.at);
     if (at > now) throw new BadRequestException('A correction cannot be in the future');
-    foundOrFail(
+    referencedOrFail(
       this.db
         .select()
         .from(users)
         .where(and(eq(users.id, body.technicianId), eq(users.role, 'technician')))
         .get(),
-      'Technician',
+      'technician',
     );
     if (body.punchId) {
-      const original = foundOrFail(
+      const original = referencedOrFail(
         this.db.select().from(punches).where(eq(punches.id, body.punchId)).get(),
-        'Punch',
+        'punch',
       );
       if (original.technicianId !== body.technicianId)
         throw new BadRequestException('That punch belongs to another technician');
@@ -245,7 +245,10 @@ export class TimecardsService {
     }
     this.closedWeeks.assertOpenAt(at, 'That correction');
     if (body.jobLineId)
-      foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(), 'Job line');
+      referencedOrFail(
+        this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
+        'job line',
+      );
     const candidate: LedgerPunch = {
       id: randomUUID(),
       technicianId: body.technicianId,

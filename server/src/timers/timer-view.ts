@@ -40,11 +40,17 @@ export function timerEstimate(timer: TimerRow, readings: ReadingRow[], now: Date
   };
 }
 
-export function toTimerDto(timer: TimerRow, readings: ReadingRow[], now: Date): TimerDto {
+export function toTimerDto(
+  timer: TimerRow,
+  readings: ReadingRow[],
+  now: Date,
+  lineTechnicianId: number | null,
+): TimerDto {
   return {
     id: timer.id,
     kind: timer.kind,
     jobLineId: timer.jobLineId,
+    lineTechnicianId,
     bayId: timer.bayId,
     label: timer.label,
     targetC: timer.targetC,

@@ -8,21 +8,24 @@ import {
   Logger,
 } from '@nestjs/common';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
-import type {
-  HoldPresetBody,
-  HoldPresetDto,
-  StartTimerBody,
-  TimerDto,
-  TimerReadingBody,
+import {
+  isOpenLine,
+  type HoldPresetBody,
+  type HoldPresetDto,
+  type StartTimerBody,
+  type TimerDto,
+  type TimerReadingBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail } from '../common/not-found.js';
+import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
 import { keepServing } from '../common/keep-serving.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { reachesTarget, toTimerDto } from './timer-view.js';
 
@@ -39,6 +42,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly floor: FloorService,
+    private readonly access: LineAccessService,
   ) {}
 
   /** Fixed holds end on their own: a tick marks them reached so screens and kiosks hear it. */
@@ -79,22 +83,30 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
         row,
         readings.filter((r) => r.timerId === row.id),
         now,
+        this.lineTechnician(row.jobLineId),
       ),
     );
   }
 
   get(id: number, now = new Date()): TimerDto {
     const row = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
-    return toTimerDto(row, this.readingsOf(id), now);
+    return toTimerDto(row, this.readingsOf(id), now, this.lineTechnician(row.jobLineId));
+  }
+
+  /** Whose line the timer runs on: their kiosk is the one that chimes. */
+  private lineTechnician(jobLineId: number): number | null {
+    return this.floor.openLine(jobLineId)?.technicianId ?? null;
   }
 
   @Transactional()
   start(body: StartTimerBody, actor: Principal, now = new Date()): TimerDto {
-    const line = foundOrFail(
+    const line = referencedOrFail(
       this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
-      'Job line',
+      'job line',
     );
-    if (line.status === 'done') throw new ConflictException('That line is done');
+    this.access.assertMayWork(line, actor, now);
+    if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
+    if (!isOpenLine(line)) throw new ConflictException(`That line is ${line.status}`);
     const busy = this.db
       .select()
       .from(timers)
@@ -128,7 +140,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
 
   @Transactional()
   addReading(id: number, body: TimerReadingBody, actor: Principal, now = new Date()): TimerDto {
-    const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    const timer = this.findForActor(id, actor, now);
     if (timer.endedAt) throw new ConflictException('That timer was stopped');
     if (timer.kind === 'hold') throw new BadRequestException('A fixed hold takes no readings');
     const at = body.at ? new Date(body.at) : now;
@@ -144,7 +156,7 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
 
   @Transactional()
   stop(id: number, actor: Principal, now = new Date()): TimerDto {
-    const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    const timer = this.findForActor(id, actor, now);
     if (!timer.endedAt) {
       this.db.update(timers).set({ endedAt: now }).where(eq(timers.id, id)).run();
       this.audit.record({ actorId: actor.id, action: 'stop', entity: 'timer', entityId: id });
@@ -197,6 +209,17 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
       this.db.update(timers).set({ reachedAt: endedAt }).where(eq(timers.id, timer.id)).run();
       this.announce(timer.id, timer.bayId, now);
     }
+  }
+
+  /** A timer belongs to its line: whoever may work the line may read into it and stop it. */
+  private findForActor(id: number, actor: Principal, now: Date): typeof timers.$inferSelect {
+    const timer = foundOrFail(this.db.select().from(timers).where(eq(timers.id, id)).get(), 'Timer');
+    const line = foundOrFail(
+      this.db.select().from(jobLines).where(eq(jobLines.id, timer.jobLineId)).get(),
+      'Job line',
+    );
+    this.access.assertMayWork(line, actor, now);
+    return timer;
   }
 
   private readingsOf(id: number) {

@@ -1,145 +1,186 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { BoardSnapshot, MyDay, SignInAnswer, TimerDto } from '@baytime/shared';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimersService } from './timers.service.js';
 
 describe(TimersService.name, () => {
-  let sut: TestApp;
-  let dana: SignInAnswer;
-  const post = (path: string, body: object = {}, token = dana.accessToken) =>
-    sut.http().post(path).auth(token, { type: 'bearer' }).send(body);
-  const board = async (app = sut) =>
-    (
-      await app
-        .http()
-        .get('/api/board')
-        .auth(await app.signIn(DEMO.foreman), { type: 'bearer' })
-        .expect(200)
-    ).body as BoardSnapshot;
-
-  beforeAll(async () => {
-    sut = await startTestApp();
-    dana = await sut.badge('1041');
-  });
-  afterAll(() => sut.close());
-
-  it('refuses a warm-up without a target or without the safety checks confirmed', async () => {
-    const line = (
-      (await sut.http().get('/api/me/day').auth(dana.accessToken, { type: 'bearer' })).body as MyDay
-    ).lines[0]!;
-    const { body } = await post('/api/timers', { jobLineId: line.id, kind: 'warm-up' }).expect(400);
-    expect(body.issues.map((i: { path: string[] }) => i.path[0]).sort()).toEqual([
-      'cautionAcknowledged',
-      'targetC',
-    ]);
-  });
-
-  it('runs a warm-up: readings give an ETA on the wall, which survives a restart, and 45 °C reaches it', async () => {
-    const line = (
-      (await sut.http().get('/api/me/day').auth(dana.accessToken, { type: 'bearer' })).body as MyDay
-    ).lines[0]!;
-    const started = (
-      await post('/api/timers', {
-        jobLineId: line.id,
-        kind: 'warm-up',
-        targetC: 45,
-        cautionAcknowledged: true,
-      }).expect(201)
-    ).body as TimerDto;
-    expect(started.estimate.status).toBe('not-enough-readings');
-    const beforeStart = Date.now() - 5 * 60_000;
-    // Common practice, no published source: transmission fluid set at about 45 °C; from 30 °C a running
-    // engine gets there in a few minutes. 30 °C then 36 °C a minute later should give a near ETA.
-    await post(`/api/timers/${started.id}/readings`, {
-      tempC: 30,
-      at: new Date(beforeStart).toISOString(),
-    }).expect(400);
-    const wallSocket = sut.connect(await sut.signIn(DEMO.owner));
-    await nextEvent(wallSocket, 'board.snapshot');
-    const heard = nextEvent(wallSocket, 'timer.updated', (e) => e.timerId === started.id);
-    await post(`/api/timers/${started.id}/readings`, { tempC: 30 }).expect(200);
-    await heard;
-    await new Promise((r) => setTimeout(r, 1100));
-    const second = (await post(`/api/timers/${started.id}/readings`, { tempC: 36 }).expect(200))
-      .body as TimerDto;
-    expect(second.estimate.status).toBe('estimating');
-    expect(second.estimate.secondsLeft).toBeGreaterThan(0);
-
-    const bay = (await board()).bays.find((b) => b.timer?.id === started.id)!;
-    expect(bay).toMatchObject({
-      state: 'timer',
-      timer: { kind: 'warm-up', targetC: 45, lastReadingC: 36, reached: false },
-    });
-    expect(bay.timer!.etaAt).not.toBeNull();
-
-    const dataDir = sut.config.dataDir;
-    await sut.app.close();
-    const restarted = await startTestApp({ BAYTIME_DATA_DIR: dataDir });
-    try {
-      const after = (await board(restarted)).bays.find((b) => b.timer?.id === started.id)!;
-      expect(after.timer).toMatchObject({ etaAt: bay.timer!.etaAt, lastReadingC: 36 });
-      const token = (await restarted.badge('1041')).accessToken;
-      const reached = (
-        await restarted
+  describe('temperature timers and hold presets', () => {
+    let sut: TestApp;
+    let dana: SignInAnswer;
+    const post = (path: string, body: object = {}, token = dana.accessToken) =>
+      sut.http().post(path).auth(token, { type: 'bearer' }).send(body);
+    const board = async (app = sut) =>
+      (
+        await app
           .http()
-          .post(`/api/timers/${started.id}/readings`)
-          .auth(token, { type: 'bearer' })
-          .send({ tempC: 45 })
+          .get('/api/board')
+          .auth(await app.signIn(DEMO.foreman), { type: 'bearer' })
           .expect(200)
-      ).body as TimerDto;
-      expect(reached.estimate.status).toBe('reached');
-      expect((await board(restarted)).bays.find((b) => b.timer?.id === started.id)!.timer!.reached).toBe(
-        true,
-      );
-    } finally {
-      await restarted.close();
+      ).body as BoardSnapshot;
+
+    beforeAll(async () => {
       sut = await startTestApp();
       dana = await sut.badge('1041');
-    }
+    });
+    afterAll(() => sut.close());
+
+    it('refuses a warm-up without a target or without the safety checks confirmed', async () => {
+      const line = (
+        (await sut.http().get('/api/me/day').auth(dana.accessToken, { type: 'bearer' })).body as MyDay
+      ).lines[0]!;
+      const { body } = await post('/api/timers', { jobLineId: line.id, kind: 'warm-up' }).expect(400);
+      expect(body.issues.map((i: { path: string[] }) => i.path[0]).sort()).toEqual([
+        'cautionAcknowledged',
+        'targetC',
+      ]);
+    });
+
+    it('runs a warm-up: readings give an ETA on the wall, which survives a restart, and 45 °C reaches it', async () => {
+      const line = (
+        (await sut.http().get('/api/me/day').auth(dana.accessToken, { type: 'bearer' })).body as MyDay
+      ).lines[0]!;
+      const started = (
+        await post('/api/timers', {
+          jobLineId: line.id,
+          kind: 'warm-up',
+          targetC: 45,
+          cautionAcknowledged: true,
+        }).expect(201)
+      ).body as TimerDto;
+      expect(started.estimate.status).toBe('not-enough-readings');
+      const beforeStart = Date.now() - 5 * 60_000;
+      // Common practice, no published source: transmission fluid set at about 45 °C; from 30 °C a running
+      // engine gets there in a few minutes. 30 °C then 36 °C a minute later should give a near ETA.
+      await post(`/api/timers/${started.id}/readings`, {
+        tempC: 30,
+        at: new Date(beforeStart).toISOString(),
+      }).expect(400);
+      const wallSocket = sut.connect(await sut.signIn(DEMO.owner));
+      await nextEvent(wallSocket, 'board.snapshot');
+      const heard = nextEvent(wallSocket, 'timer.updated', (e) => e.timerId === started.id);
+      await post(`/api/timers/${started.id}/readings`, { tempC: 30 }).expect(200);
+      await heard;
+      await new Promise((r) => setTimeout(r, 1100));
+      const second = (await post(`/api/timers/${started.id}/readings`, { tempC: 36 }).expect(200))
+        .body as TimerDto;
+      expect(second.estimate.status).toBe('estimating');
+      expect(second.estimate.secondsLeft).toBeGreaterThan(0);
+
+      const bay = (await board()).bays.find((b) => b.timer?.id === started.id)!;
+      expect(bay).toMatchObject({
+        state: 'timer',
+        timer: { kind: 'warm-up', targetC: 45, lastReadingC: 36, reached: false },
+      });
+      // The ETA lies ahead of the 36 °C reading: the engine is still warming towards 45 °C.
+      expect(Date.parse(bay.timer!.etaAt!)).toBeGreaterThan(Date.parse(second.readings.at(-1)!.at));
+
+      const dataDir = sut.config.dataDir;
+      await sut.app.close();
+      const restarted = await startTestApp({ BAYTIME_DATA_DIR: dataDir });
+      try {
+        const after = (await board(restarted)).bays.find((b) => b.timer?.id === started.id)!;
+        expect(after.timer).toMatchObject({ etaAt: bay.timer!.etaAt, lastReadingC: 36 });
+        const token = (await restarted.badge('1041')).accessToken;
+        const reached = (
+          await restarted
+            .http()
+            .post(`/api/timers/${started.id}/readings`)
+            .auth(token, { type: 'bearer' })
+            .send({ tempC: 45 })
+            .expect(200)
+        ).body as TimerDto;
+        expect(reached.estimate.status).toBe('reached');
+        expect((await board(restarted)).bays.find((b) => b.timer?.id === started.id)!.timer!.reached).toBe(
+          true,
+        );
+      } finally {
+        await restarted.close();
+        sut = await startTestApp();
+        dana = await sut.badge('1041');
+      }
+    });
+
+    it('keeps the owner’s named hold presets', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const { body } = await post(
+        '/api/hold-presets',
+        { name: 'Sealant cure', durationSeconds: 1800 },
+        owner,
+      ).expect(201);
+      const list = await sut
+        .http()
+        .get('/api/hold-presets')
+        .auth(dana.accessToken, { type: 'bearer' })
+        .expect(200);
+      expect(list.body).toContainEqual(body);
+      await post('/api/hold-presets', { name: 'x', durationSeconds: 1800 }).expect(403);
+    });
   });
 
-  it('ends a fixed hold on its own and tells the screens', async () => {
-    const jo = await sut.badge('1045');
-    const line = (
-      (await sut.http().get('/api/me/day').auth(jo.accessToken, { type: 'bearer' })).body as MyDay
-    ).lines[0]!;
-    const socket = sut.connect(jo.accessToken);
-    await nextEvent(socket, 'board.snapshot');
-    const timer = (
-      await post(
-        '/api/timers',
-        { jobLineId: line.id, kind: 'hold', durationSeconds: 10, label: 'Vacuum hold' },
-        jo.accessToken,
-      ).expect(201)
-    ).body as TimerDto;
-    expect(timer.estimate).toMatchObject({ status: 'running', method: 'fixed' });
-    await post(
-      '/api/timers',
-      { jobLineId: line.id, kind: 'hold', durationSeconds: 60 },
-      jo.accessToken,
-    ).expect(409);
-    const service = sut.app.get(TimersService);
-    const ended = nextEvent(socket, 'timer.updated', (e) => e.timerId === timer.id);
-    service.markEndedHolds(new Date(Date.now() + 11_000));
-    await ended;
-    expect(
-      (await post(`/api/timers/${timer.id}/stop`, {}, jo.accessToken).expect(200)).body.endedAt,
-    ).not.toBeNull();
-  });
+  describe('fixed holds, on the app’s own ticker', () => {
+    const SECOND = 1000;
+    // Fake setInterval and Date before the app starts, so its ticker runs on a clock the test moves;
+    // HTTP and sockets keep real timers. A whole second, so the ticks fall on whole seconds.
+    const start = Math.ceil(Date.now() / SECOND) * SECOND;
+    let sut: TestApp;
+    beforeAll(async () => {
+      vi.useFakeTimers({ toFake: ['setInterval', 'clearInterval', 'Date'], now: start });
+      sut = await startTestApp();
+    });
+    afterAll(async () => {
+      await sut.close();
+      vi.useRealTimers();
+    });
 
-  it('keeps the owner’s named hold presets', async () => {
-    const owner = await sut.signIn(DEMO.owner);
-    const { body } = await post(
-      '/api/hold-presets',
-      { name: 'Sealant cure', durationSeconds: 1800 },
-      owner,
-    ).expect(201);
-    const list = await sut
-      .http()
-      .get('/api/hold-presets')
-      .auth(dana.accessToken, { type: 'bearer' })
-      .expect(200);
-    expect(list.body).toContainEqual(body);
-    await post('/api/hold-presets', { name: 'x', durationSeconds: 1800 }).expect(403);
+    it('marks a hold reached when its time is up, at the next tick, and tells the screens', async () => {
+      const jo = await sut.badge('1045');
+      const line = (
+        (await sut.http().get('/api/me/day').auth(jo.accessToken, { type: 'bearer' })).body as MyDay
+      ).lines[0]!;
+      const socket = sut.connect(jo.accessToken);
+      await nextEvent(socket, 'board.snapshot');
+      const heard: { timerId: number; bayId: number | null; seq: number }[] = [];
+      socket.on('timer.updated', (event) => heard.push(event));
+      const read = async (id: number) =>
+        (await sut.http().get(`/api/timers`).auth(jo.accessToken, { type: 'bearer' }).expect(200)).body.find(
+          (timer: TimerDto) => timer.id === id,
+        ) as TimerDto;
+
+      // Started 0.4 s after a tick: its 10 s are up at 10.4 s, between the ticks at 10 s and 11 s.
+      vi.advanceTimersByTime(400);
+      const timer = (
+        await sut
+          .http()
+          .post('/api/timers')
+          .auth(jo.accessToken, { type: 'bearer' })
+          .send({ jobLineId: line.id, kind: 'hold', durationSeconds: 10, label: 'Vacuum hold' })
+          .expect(201)
+      ).body as TimerDto;
+      expect(timer).toMatchObject({ startedAt: new Date(start + 400).toISOString(), reachedAt: null });
+      expect(timer.estimate).toMatchObject({ status: 'running', method: 'fixed', secondsLeft: 10 });
+      await sut
+        .http()
+        .post('/api/timers')
+        .auth(jo.accessToken, { type: 'bearer' })
+        .send({ jobLineId: line.id, kind: 'hold', durationSeconds: 60 })
+        .expect(409);
+      // The start is announced too: wait for it, then count only what the ticker says.
+      while (!heard.some((event) => event.timerId === timer.id)) await new Promise((r) => setTimeout(r, 20));
+      heard.length = 0;
+
+      vi.advanceTimersByTime(9_600);
+      expect((await read(timer.id)).reachedAt).toBeNull();
+
+      const announced = nextEvent(socket, 'timer.updated', (event) => event.timerId === timer.id);
+      vi.advanceTimersByTime(SECOND);
+      expect(await announced).toMatchObject({ timerId: timer.id, bayId: timer.bayId });
+      // Reached when the wait ended, not when the tick noticed it.
+      expect(await read(timer.id)).toMatchObject({
+        reachedAt: new Date(start + 10_400).toISOString(),
+        endedAt: null,
+        estimate: { status: 'done', secondsLeft: 0 },
+      });
+      expect(heard.filter((event) => event.timerId === timer.id)).toHaveLength(1);
+    });
   });
 });

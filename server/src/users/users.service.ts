@@ -14,15 +14,19 @@ import { DB, type Db } from '../db/database.js';
 import { UnitOfWork } from '../db/unit-of-work.js';
 import { FloorService } from '../floor/floor.service.js';
 import { users } from '../db/schema/index.js';
+import { LiveService } from '../live/live.service.js';
 import type { Principal } from '../auth/principal.js';
 import { PAY_RATE_FIELDS, PayRatesService } from '../payroll/pay-rates.service.js';
 import { FIRST_RULES_FROM, ShopService } from '../shop/shop.service.js';
 
 type UserRow = typeof users.$inferSelect;
 
-function rateChanges(body: Partial<PayRate>): Partial<PayRate> {
+/** The rate fields given that differ from `current` (all given ones when there is none). */
+function rateChanges(body: Partial<PayRate>, current?: PayRate): Partial<PayRate> {
   return Object.fromEntries(
-    PAY_RATE_FIELDS.filter((field) => body[field] !== undefined).map((field) => [field, body[field]]),
+    PAY_RATE_FIELDS.filter((field) => body[field] !== undefined && body[field] !== current?.[field]).map(
+      (field) => [field, body[field]],
+    ),
   );
 }
 
@@ -35,6 +39,7 @@ export class UsersService {
     private readonly floor: FloorService,
     private readonly rates: PayRatesService,
     private readonly shop: ShopService,
+    private readonly live: LiveService,
   ) {}
 
   list(): UserDto[] {
@@ -96,13 +101,18 @@ export class UsersService {
     if (Object.keys(body).length === 0) return this.toDto(current);
     if (body.active === false && id === actor.id)
       throw new ConflictException('You cannot deactivate your own account: ask another owner');
+    if (body.role !== undefined && body.role !== current.role && id === actor.id)
+      throw new ConflictException('You cannot change your own role: ask another owner');
+    this.assertSignInFor(body.role ?? current.role, current, body);
     const { password, pin, email, effectiveFrom, ...rest } = body;
-    const rate = rateChanges(rest);
+    if (Object.keys(rateChanges(rest)).length > 0 && (body.role ?? current.role) !== 'technician')
+      throw new BadRequestException('Only technicians have pay rates here');
+    // A rate as it already stands from that day is no change: nothing is recorded for it.
+    const from = effectiveFrom ?? this.rates.currentWeekStart();
+    const rate = rateChanges(rest, this.rates.ratesOn([id], from).get(id));
     for (const field of PAY_RATE_FIELDS) delete rest[field];
     if (effectiveFrom !== undefined && Object.keys(rate).length === 0)
       throw new BadRequestException('effectiveFrom goes with a change of pay type, rate or overtime rule');
-    if (Object.keys(rate).length > 0 && current.role !== 'technician')
-      throw new BadRequestException('Only technicians have pay rates here');
     const changes: Partial<typeof users.$inferInsert> = { ...rest };
     if (email !== undefined) changes.email = email.toLowerCase();
     if (password !== undefined) changes.passwordHash = await hashSecret(password);
@@ -110,20 +120,45 @@ export class UsersService {
     const fields = Object.keys(body).map((key) =>
       key === 'password' || key === 'pin' ? `${key} (changed)` : key,
     );
+    // What each plain field was and became; secrets are only said to have changed.
+    const changed = Object.fromEntries(
+      Object.entries(rest)
+        .filter(([key, value]) => current[key as keyof UserRow] !== value)
+        .map(([key, value]) => [key, { from: current[key as keyof UserRow], to: value }]),
+    );
     return this.uow.run(() => {
       const row = Object.keys(changes).length > 0 ? this.updateOrConflict(id, changes) : current;
-      const from = effectiveFrom ?? this.rates.currentWeekStart();
       if (Object.keys(rate).length > 0) this.rates.record(id, rate, from, actor.id);
       this.audit.record({
         actorId: actor.id,
         action: 'update',
         entity: 'user',
         entityId: id,
-        detail: { fields, ...(Object.keys(rate).length > 0 ? { rate, effectiveFrom: from } : {}) },
+        detail: {
+          fields,
+          changes: changed,
+          ...(Object.keys(rate).length > 0 ? { rate, effectiveFrom: from } : {}),
+        },
       });
       this.floor.techniciansChanged();
+      if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
+      else if (body.role !== undefined && body.role !== current.role)
+        this.live.endSessions({ userId: id }, 'role-changed');
       return this.toDto(row);
     });
+  }
+
+  /** A technician signs in with a badge and PIN, office staff with an e-mail and password. */
+  private assertSignInFor(role: UserRow['role'], current: UserRow, body: UpdateUserBody): void {
+    const missing = (path: string, message: string) =>
+      new BadRequestException({ statusCode: 400, message, issues: [{ path: [path], message }] });
+    if (role === 'technician') {
+      if (!(body.badge ?? current.badge)) throw missing('badge', 'A technician needs a badge');
+      if (!body.pin && !current.pinHash) throw missing('pin', 'A technician needs a PIN');
+    } else if (role !== 'display') {
+      if (!(body.email ?? current.email)) throw missing('email', 'Office staff need an e-mail');
+      if (!body.password && !current.passwordHash) throw missing('password', 'Office staff need a password');
+    }
   }
 
   private insertOrConflict(values: typeof users.$inferInsert): UserRow {

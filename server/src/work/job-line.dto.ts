@@ -17,5 +17,10 @@ export function toJobLineDto(row: typeof jobLines.$inferSelect): JobLineDto {
     promisedAt: row.promisedAt?.toISOString() ?? null,
     completedAt: row.completedAt?.toISOString() ?? null,
     signOff: row.signOff,
+    completedBy: row.completedBy,
+    concern: row.concern,
+    cause: row.cause,
+    correction: row.correction,
+    cancelReason: row.cancelReason,
   };
 }

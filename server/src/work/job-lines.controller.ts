@@ -1,9 +1,13 @@
-import { Body, Controller, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Delete, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import {
+  cancelJobLineSchema,
+  editJobLineSchema,
   finishLineSchema,
   holdLineSchema,
   patchJobLineSchema,
   resolutionSchema,
+  type CancelJobLineBody,
+  type EditJobLineBody,
   type FinishLineBody,
   type HoldLineBody,
   type JobLineDto,
@@ -27,6 +31,34 @@ export class JobLinesController {
     @CurrentUser() actor: Principal,
   ): JobLineDto {
     return this.lines.patch(id, body, actor);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Patch(':id/details')
+  editDetails(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: editJobLineSchema }) body: EditJobLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.editDetails(id, body, actor);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Post(':id/cancel')
+  @HttpCode(200)
+  cancel(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: cancelJobLineSchema }) body: CancelJobLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.cancel(id, body, actor);
+  }
+
+  @Roles('advisor', 'foreman', 'owner')
+  @Delete(':id')
+  @HttpCode(204)
+  remove(@Param('id', { schema: idParamSchema }) id: number, @CurrentUser() actor: Principal): void {
+    this.lines.remove(id, actor);
   }
 
   @Roles('technician', 'foreman', 'owner')

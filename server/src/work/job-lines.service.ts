@@ -1,35 +1,38 @@
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
+import { and, eq, isNull, ne, or } from 'drizzle-orm';
 import {
-  BadRequestException,
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-} from '@nestjs/common';
-import { and, eq, ne } from 'drizzle-orm';
-import type {
-  FinishLineBody,
-  HoldLineBody,
-  JobLineDto,
-  PatchJobLineBody,
-  ResolutionBody,
+  isOpenLine,
+  type CancelJobLineBody,
+  type EditJobLineBody,
+  type FinishLineBody,
+  type HoldLineBody,
+  type JobLineDto,
+  type PatchJobLineBody,
+  type ResolutionBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { referencedBay } from '../bays/referenced-bay.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { bays, jobLines, repairOrders, users } from '../db/schema/index.js';
+import { bays, findings, jobLines, punches, repairOrders, timers, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
+import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
+import { syncRepairOrderStatus } from './repair-order-status.js';
 
 type LineRow = typeof jobLines.$inferSelect;
 
-/** Changes to job lines: the foreman's dispatch, and a technician's hold and done from the kiosk. */
+/**
+ * Changes to job lines: the foreman's dispatch, a technician's hold and done from the kiosk, and the
+ * office's corrections after the fact (details, cancel, delete).
+ */
 @Injectable()
 export class JobLinesService {
   constructor(
@@ -38,6 +41,7 @@ export class JobLinesService {
     private readonly audit: AuditService,
     private readonly live: LiveService,
     private readonly floor: FloorService,
+    private readonly access: LineAccessService,
     private readonly punches: PunchesService,
     private readonly closedWeeks: ClosedWeeksService,
     private readonly shop: ShopService,
@@ -47,16 +51,9 @@ export class JobLinesService {
   @Transactional()
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
+    if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
     if (body.technicianId) this.assertTechnician(body.technicianId);
-    if (body.bayId)
-      foundOrFail(
-        this.db
-          .select()
-          .from(bays)
-          .where(and(eq(bays.id, body.bayId), eq(bays.active, true)))
-          .get(),
-        'Bay',
-      );
+    if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
     if (body.completedAt) this.closedWeeks.assertOpenAt(new Date(body.completedAt), 'That completion time');
@@ -90,17 +87,20 @@ export class JobLinesService {
         holdReason: null,
         heldAt: null,
         completedAt: body.completedAt ? new Date(body.completedAt) : now,
+        completedBy: line.status === 'done' ? line.completedBy : actor.id,
       });
     }
     const updated = this.save(id, changes);
     if (changes.bayId) this.stageBay(changes.bayId, updated.repairOrderId, now);
     if (updated.status === 'done' && line.status !== 'done') this.afterDone(updated, 'check', now);
+    else if (updated.status !== line.status) this.statusChanged(updated.repairOrderId);
     this.audit.record({
       actorId: actor.id,
       action: 'update',
       entity: 'job-line',
       entityId: id,
-      detail: body,
+      // What it was, so the RO's history can say "reassigned from Dana to Luis".
+      detail: { ...body, was: { technicianId: line.technicianId, bayId: line.bayId, status: line.status } },
     });
     return this.announce(updated);
   }
@@ -108,7 +108,7 @@ export class JobLinesService {
   @Transactional()
   hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
-    if (line.status === 'done') throw new ConflictException('That line is already done');
+    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
     this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
     this.audit.record({
@@ -131,9 +131,15 @@ export class JobLinesService {
   }
 
   @Transactional()
-  finish(id: number, { next }: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
+  finish(
+    id: number,
+    { next, cause, correction }: FinishLineBody,
+    actor: Principal,
+    now = new Date(),
+  ): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);
+    if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
     this.closedWeeks.assertOpenAt(now, 'Finishing that line');
     const signOff = this.signOffNeeded(id, now);
     this.punches.clockOffLine(id, actor, 'Line marked done', now);
@@ -142,6 +148,8 @@ export class JobLinesService {
       holdReason: null,
       heldAt: null,
       completedAt: now,
+      completedBy: actor.id,
+      ...threeCs({ cause, correction }),
       updatedAt: now,
       signOff,
     });
@@ -151,7 +159,7 @@ export class JobLinesService {
       action: 'done',
       entity: 'job-line',
       entityId: id,
-      detail: { next },
+      detail: { next, ...threeCs({ cause, correction }) },
     });
     return this.announce(updated);
   }
@@ -188,24 +196,143 @@ export class JobLinesService {
     return clocked < this.shop.settings(now).minimumClockedMinutesForDone * 60 ? 'awaiting' : null;
   }
 
+  /** The advisor's corrections to a line: title, book hours, skill level and the three Cs. */
+  @Transactional()
+  editDetails(id: number, body: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    // An emptied cause or correction is no longer on record.
+    const changes = changedFields(line, {
+      ...body,
+      ...(body.cause === '' && { cause: null }),
+      ...(body.correction === '' && { correction: null }),
+    });
+    if (Object.keys(changes).length === 0) return toJobLineDto(line);
+    const updated = this.save(id, {
+      ...Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to])),
+      updatedAt: now,
+    });
+    this.audit.record({
+      actorId: actor.id,
+      action: 'edit',
+      entity: 'job-line',
+      entityId: id,
+      detail: { changes },
+    });
+    return this.announce(updated);
+  }
+
+  /**
+   * Takes an open line off the RO with a reason: whoever is clocked on it is clocked off and its timer
+   * stops. The line and its time stay on record; it is never flagged.
+   */
+  @Transactional()
+  cancel(id: number, { reason }: CancelJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
+    this.punches.clockOffLine(id, actor, `Line cancelled: ${reason}`, now);
+    const stopped = this.db
+      .update(timers)
+      .set({ endedAt: now })
+      .where(and(eq(timers.jobLineId, id), isNull(timers.endedAt)))
+      .returning()
+      .all();
+    if (stopped.length) this.floor.timersChanged();
+    const updated = this.save(id, {
+      status: 'cancelled',
+      cancelReason: reason,
+      holdReason: null,
+      heldAt: null,
+      updatedAt: now,
+    });
+    this.statusChanged(line.repairOrderId);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'cancel',
+      entity: 'job-line',
+      entityId: id,
+      detail: { reason },
+    });
+    return this.announce(updated);
+  }
+
+  /**
+   * Deletes a line written by mistake. One with time, a finding or a timer on it stays on record:
+   * it can only be cancelled with a reason.
+   */
+  @Transactional()
+  remove(id: number, actor: Principal, now = new Date()): void {
+    const line = this.find(id);
+    const ro = this.db.select().from(repairOrders).where(eq(repairOrders.id, line.repairOrderId)).get()!;
+    if (ro.status === 'closed') throw new ConflictException('That repair order is closed');
+    if (line.status === 'done') throw new ConflictException('That line is done: it stays on the RO');
+    const clocked = this.db.select({ id: punches.id }).from(punches).where(eq(punches.jobLineId, id)).get();
+    if (clocked)
+      throw new ConflictException('Time was clocked on that line: cancel it with a reason instead');
+    const found = this.db
+      .select({ id: findings.id })
+      .from(findings)
+      .where(or(eq(findings.jobLineId, id), eq(findings.createdLineId, id)))
+      .get();
+    const timed = this.db.select({ id: timers.id }).from(timers).where(eq(timers.jobLineId, id)).get();
+    if (found || timed)
+      throw new ConflictException(
+        'That line has a finding or a timer on record: cancel it with a reason instead',
+      );
+    this.db.delete(jobLines).where(eq(jobLines.id, id)).run();
+    const rest = this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, ro.id))
+      .orderBy(jobLines.lineNo)
+      .all();
+    this.renumber(
+      rest.map((row) => row.id),
+      now,
+    );
+    this.statusChanged(ro.id);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'line-removed',
+      entity: 'repair-order',
+      entityId: ro.id,
+      detail: { jobLineId: id, lineNo: line.lineNo, title: line.title },
+    });
+    this.live.publish('repair-order.updated', { repairOrderId: ro.id });
+    this.floor.linesChanged([id, ...rest.map((row) => row.id)]);
+    this.floor.baysChanged();
+  }
+
+  /**
+   * Numbers the RO's lines 1, 2, 3… in the given order. Through negative numbers first, so the
+   * unique (RO, line number) index never sees two lines with one number.
+   */
+  renumber(lineIds: readonly number[], now: Date): void {
+    lineIds.forEach((id, i) =>
+      this.db
+        .update(jobLines)
+        .set({ lineNo: -(i + 1) })
+        .where(eq(jobLines.id, id))
+        .run(),
+    );
+    lineIds.forEach((id, i) =>
+      this.db
+        .update(jobLines)
+        .set({ lineNo: i + 1, updatedAt: now })
+        .where(eq(jobLines.id, id))
+        .run(),
+    );
+  }
+
   /** The last open line in a bay moves the bay to check or ready; the last on an RO finishes the RO. */
   private afterDone(line: LineRow, next: 'check' | 'ready', now: Date): void {
-    const openInRo = this.db
-      .select()
-      .from(jobLines)
-      .where(and(eq(jobLines.repairOrderId, line.repairOrderId), ne(jobLines.status, 'done')))
-      .all();
-    if (openInRo.length === 0)
-      this.db
-        .update(repairOrders)
-        .set({ status: 'done' })
-        .where(eq(repairOrders.id, line.repairOrderId))
-        .run();
+    this.statusChanged(line.repairOrderId);
     if (!line.bayId) return;
     const openInBay = this.db
       .select()
       .from(jobLines)
-      .where(and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done')))
+      .where(
+        and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')),
+      )
       .all();
     if (openInBay.length === 0)
       this.db
@@ -213,6 +340,17 @@ export class JobLinesService {
         .set({ phase: next, phaseSince: now, repairOrderId: line.repairOrderId })
         .where(eq(bays.id, line.bayId))
         .run();
+  }
+
+  /** The RO follows its lines; the office's RO pages hear when its status moved. */
+  private statusChanged(repairOrderId: number): void {
+    const before = this.db
+      .select({ status: repairOrders.status })
+      .from(repairOrders)
+      .where(eq(repairOrders.id, repairOrderId))
+      .get()?.status;
+    if (syncRepairOrderStatus(this.db, repairOrderId) !== before)
+      this.live.publish('repair-order.updated', { repairOrderId });
   }
 
   private stageBay(bayId: number, repairOrderId: number, now: Date): void {
@@ -229,15 +367,10 @@ export class JobLinesService {
     return foundOrFail(this.db.select().from(jobLines).where(eq(jobLines.id, id)).get(), 'Job line');
   }
 
-  /** A technician acts on lines assigned to them or that they are clocked on; office roles on any. */
+  /** A technician acts on lines assigned to them or that they are clocked on; the foreman on any. */
   private findForActor(id: number, actor: Principal, now: Date): LineRow {
     const line = this.find(id);
-    if (
-      actor.role === 'technician' &&
-      line.technicianId !== actor.id &&
-      !this.floor.clockedOn(id, now).includes(actor.id)
-    )
-      throw new ForbiddenException('That line is not yours: ask the foreman');
+    this.access.assertMayWork(line, actor, now);
     return line;
   }
 
@@ -261,4 +394,24 @@ export class JobLinesService {
     this.floor.baysChanged();
     return jobLine;
   }
+}
+
+/** Cause and correction as stored: left out or empty means nothing was written. */
+function threeCs(given: { cause?: string | undefined; correction?: string | undefined }) {
+  return {
+    ...(given.cause && { cause: given.cause }),
+    ...(given.correction && { correction: given.correction }),
+  };
+}
+
+type Changes = Record<string, { from: unknown; to: unknown }>;
+
+/** The fields the body really changes, each with what it was: the audit row's detail. */
+export function changedFields<Row extends Record<string, unknown>>(row: Row, body: Partial<Row>): Changes {
+  const changes: Changes = {};
+  const same = (a: unknown, b: unknown) =>
+    a instanceof Date && b instanceof Date ? a.getTime() === b.getTime() : a === b;
+  for (const [key, to] of Object.entries(body))
+    if (to !== undefined && !same(row[key] ?? null, to)) changes[key] = { from: row[key] ?? null, to };
+  return changes;
 }

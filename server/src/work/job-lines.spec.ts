@@ -45,6 +45,27 @@ describe(JobLinesService.name, () => {
     expect((await day(luis)).lines.map((l) => l.id)).not.toContain(line.id);
   });
 
+  it('Done records cause and correction and who finished, and the kiosk counts it as done today (bug 9)', async () => {
+    const sam = await sut.badge('1046');
+    const before = await day(sam);
+    const line = before.lines[0]!;
+    expect(line.concern).toMatch(/^Customer asks for: /);
+    const { body } = await as(sam.accessToken)
+      .post(`/api/job-lines/${line.id}/done`, {
+        next: 'check',
+        cause: 'Seal weeping at the pan',
+        correction: 'Resealed the pan and let it cure',
+      })
+      .expect(200);
+    expect(body).toMatchObject({
+      status: 'done',
+      completedBy: sam.user.id,
+      cause: 'Seal weeping at the pan',
+      correction: 'Resealed the pan and let it cure',
+    });
+    expect((await day(sam)).doneToday).toBe(before.doneToday + 1);
+  });
+
   it("refuses a technician acting on someone else's line", async () => {
     const sam = await sut.badge('1046');
     const notSams = (await board()).bays.find(
@@ -76,8 +97,14 @@ describe(JobLinesService.name, () => {
     const marcus = await sut.badge('1044');
     await as(priya.accessToken).post('/api/punches', { id: randomUUID(), kind: 'break-end' }).expect(201);
     const line = (await day(marcus)).lines[0]!;
-    await as(priya.accessToken)
-      .post('/api/punches', { id: randomUUID(), kind: 'job-on', jobLineId: line.id })
+    // Helping on Marcus's line is the foreman's call: the foreman clocks Priya on.
+    await as(foreman)
+      .post('/api/punches', {
+        id: randomUUID(),
+        kind: 'job-on',
+        jobLineId: line.id,
+        technicianId: priya.user.id,
+      })
       .expect(201);
     await as(foreman).patch(`/api/job-lines/${line.id}`, { technicianId: priya.user.id }).expect(200);
     expect((await day(priya)).openJobLineIds).toEqual([]);

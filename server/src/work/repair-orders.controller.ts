@@ -1,10 +1,18 @@
-import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
-import { z } from 'zod';
+import { Body, Controller, Get, HttpCode, Param, Patch, Post, Put, Query } from '@nestjs/common';
 import {
+  addJobLineSchema,
   createRepairOrderSchema,
-  REPAIR_ORDER_STATUSES,
+  editRepairOrderSchema,
+  lineOrderSchema,
+  repairOrderListQuerySchema,
+  type AddJobLineBody,
   type CreateRepairOrderBody,
-  type RepairOrderStatus,
+  type EditRepairOrderBody,
+  type JobLineDto,
+  type LineOrderBody,
+  type RepairOrderHistoryEntry,
+  type RepairOrderListQuery,
+  type RepairOrderPage,
   type RepairOrderSummary,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
@@ -18,15 +26,18 @@ export class RepairOrdersController {
   constructor(private readonly repairOrders: RepairOrdersService) {}
 
   @Get()
-  list(
-    @Query('status', { schema: z.enum(REPAIR_ORDER_STATUSES).optional() }) status?: RepairOrderStatus,
-  ): RepairOrderSummary[] {
-    return this.repairOrders.list(status);
+  list(@Query({ schema: repairOrderListQuerySchema }) query: RepairOrderListQuery): RepairOrderPage {
+    return this.repairOrders.list(query);
   }
 
   @Get(':id')
   get(@Param('id', { schema: idParamSchema }) id: number): RepairOrderSummary {
     return this.repairOrders.get(id);
+  }
+
+  @Get(':id/history')
+  history(@Param('id', { schema: idParamSchema }) id: number): RepairOrderHistoryEntry[] {
+    return this.repairOrders.history(id);
   }
 
   @Post()
@@ -35,5 +46,42 @@ export class RepairOrdersController {
     @CurrentUser() actor: Principal,
   ): RepairOrderSummary {
     return this.repairOrders.create(body, actor);
+  }
+
+  @Patch(':id')
+  edit(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: editRepairOrderSchema }) body: EditRepairOrderBody,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.edit(id, body, actor);
+  }
+
+  @Post(':id/lines')
+  addLine(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: addJobLineSchema }) body: AddJobLineBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.repairOrders.addLine(id, body, actor);
+  }
+
+  @Put(':id/line-order')
+  reorderLines(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: lineOrderSchema }) body: LineOrderBody,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.reorderLines(id, body, actor);
+  }
+
+  /** The vehicle is picked up. */
+  @Post(':id/close')
+  @HttpCode(200)
+  close(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @CurrentUser() actor: Principal,
+  ): RepairOrderSummary {
+    return this.repairOrders.close(id, actor);
   }
 }

@@ -1,17 +1,53 @@
-import { BadRequestException, Inject, Injectable } from '@nestjs/common';
-import { desc, eq, inArray, sql } from 'drizzle-orm';
-import type { CreateRepairOrderBody, RepairOrderStatus, RepairOrderSummary } from '@baytime/shared';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
+import { and, count, desc, eq, gte, inArray, lt, max, sql, type SQL } from 'drizzle-orm';
+import {
+  isOpenLine,
+  shopDayKey,
+  shopLocalInstant,
+  type AddJobLineBody,
+  type CreateRepairOrderBody,
+  type EditRepairOrderBody,
+  type JobLineDto,
+  type LineOrderBody,
+  type RepairOrderHistoryEntry,
+  type RepairOrderListQuery,
+  type RepairOrderPage,
+  type RepairOrderSummary,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { LiveService } from '../live/live.service.js';
 import { describeVehicle } from '../floor/describe-vehicle.js';
 import { foundOrFail } from '../common/not-found.js';
+import { decodeCursor, olderThan, toPage } from '../common/paging.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { bays, customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { DispatchService } from '../dispatch/dispatch.service.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
+import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
+import { changedFields, JobLinesService } from './job-lines.service.js';
+import { repairOrderHistory } from './repair-order-history.js';
+import { repairOrderSnapshot } from './repair-order-snapshot.js';
+import { syncRepairOrderStatus } from './repair-order-status.js';
+import { repairOrderSearch } from './repair-orders.search.js';
+
+type CustomerRow = typeof customers.$inferSelect;
+type VehicleRow = typeof vehicles.$inferSelect;
+
+const DAY_MS = 24 * 3600_000;
+
+function fieldError(path: string[], message: string, summary = message): BadRequestException {
+  return new BadRequestException({ statusCode: 400, message: summary, issues: [{ path, message }] });
+}
+
+/** "Wendell  farrow" and "Wendell Farrow" are the same person at the counter. */
+function sameName(a: string, b: string): boolean {
+  const plain = (name: string) => name.trim().replace(/\s+/g, ' ').toLocaleLowerCase('en-US');
+  return plain(a) === plain(b);
+}
 
 @Injectable()
 export class RepairOrdersService {
@@ -22,112 +58,386 @@ export class RepairOrdersService {
     private readonly live: LiveService,
     private readonly labour: LabourService,
     private readonly floor: FloorService,
+    private readonly shop: ShopService,
+    private readonly dispatch: DispatchService,
+    private readonly lines: JobLinesService,
   ) {}
 
   /**
-   * Writes a repair order: the vehicle is found by VIN (its customer updated) or created, the lines
-   * join the queue. An odometer lower than the last visit is refused at the field unless a reason is
-   * given, which is audited.
+   * Writes a repair order: the vehicle is found by VIN or created, the lines join the queue. The RO
+   * records the customer and vehicle as they are now; earlier ROs keep theirs. An odometer lower than
+   * the last visit, or a VIN outside the 49 CFR 565 rules, needs a reason, which is audited. A promise
+   * already past is refused.
    */
   @Transactional()
   create(body: CreateRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
-    const { customer, vehicle, concern, lines } = body;
-    const known = this.db.select().from(vehicles).where(eq(vehicles.vin, vehicle.vin)).get();
+    const known = this.db.select().from(vehicles).where(eq(vehicles.vin, body.vehicle.vin)).get();
     const lastOdometer = known?.lastOdometer ?? null;
-    if (lastOdometer !== null && vehicle.odometer < lastOdometer && !body.odometerOverrideReason)
-      throw new BadRequestException({
-        statusCode: 400,
-        message: `The odometer reads less than at the last visit (${lastOdometer.toLocaleString('en-US')})`,
-        issues: [
-          {
-            path: ['vehicle', 'odometer'],
-            message: `Lower than the last visit (${lastOdometer.toLocaleString('en-US')}): check it, or give a reason to save anyway`,
-          },
-        ],
-      });
-    const promisedAt = body.promisedAt ? new Date(body.promisedAt) : null;
-    const id = this.db.transaction((tx) => {
-      const contact = {
-        name: customer.name,
-        phone: customer.phone ?? null,
-        email: customer.email?.toLowerCase() ?? null,
-      };
-      const customerId = known
-        ? tx.update(customers).set(contact).where(eq(customers.id, known.customerId)).returning().get().id
-        : tx
-            .insert(customers)
-            .values({ ...contact, createdAt: now })
-            .returning()
-            .get().id;
-      const details = {
-        year: vehicle.year,
-        make: vehicle.make,
-        model: vehicle.model,
-        plate: vehicle.plate ?? null,
-        lastOdometer: Math.max(vehicle.odometer, lastOdometer ?? 0),
-      };
-      const vehicleId = known
-        ? tx.update(vehicles).set(details).where(eq(vehicles.id, known.id)).returning().get().id
-        : tx
-            .insert(vehicles)
-            .values({ ...details, customerId, vin: vehicle.vin })
-            .returning()
-            .get().id;
-      const last = tx
-        .select({ number: sql<number | null>`max(cast(${repairOrders.number} as integer))` })
-        .from(repairOrders)
-        .get()?.number;
-      const ro = tx
-        .insert(repairOrders)
-        .values({
-          number: String(Math.max(4400, Number(last ?? 0)) + 1),
-          customerId,
-          vehicleId,
-          advisorId: actor.id,
-          concern,
-          odometer: vehicle.odometer,
-          promisedAt,
-          createdAt: now,
-        })
-        .returning()
-        .get();
-      lines.forEach((line, i) =>
-        tx
-          .insert(jobLines)
-          .values({ ...line, repairOrderId: ro.id, lineNo: i + 1, promisedAt, queuedAt: now, updatedAt: now })
-          .run(),
+    if (lastOdometer !== null && body.vehicle.odometer < lastOdometer && !body.odometerOverrideReason) {
+      const reading = lastOdometer.toLocaleString('en-US');
+      throw fieldError(
+        ['vehicle', 'odometer'],
+        `Lower than the last visit (${reading}): check it, or give a reason to save anyway`,
+        `The odometer reads less than at the last visit (${reading})`,
       );
-      return ro.id;
-    });
+    }
+    const promisedAt = body.promisedAt ? new Date(body.promisedAt) : null;
+    if (promisedAt && promisedAt <= now)
+      throw fieldError(['promisedAt'], 'That time has already passed: promise a later one');
+
+    const owner = this.ownerFor(known, body.customer, now);
+    const vehicle = this.upsertVehicle(known, body, owner.id);
+    const last = this.db
+      .select({ number: sql<number | null>`max(cast(${repairOrders.number} as integer))` })
+      .from(repairOrders)
+      .get()?.number;
+    const ro = this.db
+      .insert(repairOrders)
+      .values({
+        number: String(Math.max(4400, Number(last ?? 0)) + 1),
+        customerId: owner.id,
+        vehicleId: vehicle.id,
+        ...repairOrderSnapshot(owner, vehicle),
+        advisorId: actor.id,
+        concern: body.concern,
+        odometer: body.vehicle.odometer,
+        promisedAt,
+        createdAt: now,
+      })
+      .returning()
+      .get();
+    body.lines.forEach((line, i) =>
+      this.db
+        .insert(jobLines)
+        .values({
+          ...line,
+          concern: line.concern ?? body.concern,
+          repairOrderId: ro.id,
+          lineNo: i + 1,
+          promisedAt,
+          queuedAt: now,
+          updatedAt: now,
+        })
+        .run(),
+    );
+    const detail = {
+      ...(body.odometerOverrideReason && {
+        odometerOverrideReason: body.odometerOverrideReason,
+        lastOdometer,
+      }),
+      ...(body.vinOverrideReason && { vinOverrideReason: body.vinOverrideReason }),
+      ...(known && known.customerId !== owner.id && { previousCustomerId: known.customerId }),
+    };
     this.audit.record({
       actorId: actor.id,
       action: 'create',
       entity: 'repair-order',
-      entityId: id,
-      detail: body.odometerOverrideReason
-        ? { odometerOverrideReason: body.odometerOverrideReason, lastOdometer }
-        : undefined,
+      entityId: ro.id,
+      detail: Object.keys(detail).length ? detail : undefined,
     });
-    const created = this.get(id);
+    const created = this.get(ro.id, now);
     for (const jobLine of created.lines) this.live.publish('job-line.updated', { jobLine });
     this.floor.linesChanged(created.lines.map((line) => line.id));
     return created;
   }
 
-  get(id: number): RepairOrderSummary {
-    return foundOrFail(this.list(undefined, id)[0], 'Repair order');
+  get(id: number, now = new Date()): RepairOrderSummary {
+    return foundOrFail(this.summaries(this.rows(eq(repairOrders.id, id), 1), now)[0], 'Repair order');
   }
 
-  list(status?: RepairOrderStatus, id?: number): RepairOrderSummary[] {
-    const rows = this.db
-      .select({ ro: repairOrders, customer: customers, vehicle: vehicles, advisorName: users.name })
+  /** One page, newest first; clocked time is counted for the lines on this page only. */
+  list(query: RepairOrderListQuery, now = new Date()): RepairOrderPage {
+    const where = and(
+      query.status ? eq(repairOrders.status, query.status) : undefined,
+      query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
+      query.promised === 'today' ? this.promisedToday(now) : undefined,
+      query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
+      query.q ? repairOrderSearch(query.q) : undefined,
+    );
+    const total = this.db.select({ n: count() }).from(repairOrders).where(where).get()?.n ?? 0;
+    const after = olderThan(repairOrders.createdAt, repairOrders.id, decodeCursor(query.cursor));
+    return toPage(
+      this.rows(and(where, after), query.limit + 1),
+      query.limit,
+      total,
+      ({ ro }) => ({ at: ro.createdAt.getTime(), id: ro.id }),
+      (shown) => this.summaries(shown, now),
+    );
+  }
+
+  /**
+   * Corrections after the fact: the RO's own record of the customer and vehicle (and the customer and
+   * vehicle on file, so the next visit starts right), the concern and the promise. Audited with what
+   * each field was.
+   */
+  @Transactional()
+  edit(id: number, body: EditRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
+    const ro = this.row(id);
+    const promisedAt =
+      body.promisedAt === undefined ? undefined : body.promisedAt === null ? null : new Date(body.promisedAt);
+    if (promisedAt && promisedAt <= now && promisedAt.getTime() !== ro.promisedAt?.getTime())
+      throw fieldError(['promisedAt'], 'That time has already passed: promise a later one');
+    const { customer = {}, vehicle = {} } = body;
+    const email = customer.email?.toLowerCase();
+    const changes = changedFields(ro, {
+      customerName: customer.name,
+      customerPhone: customer.phone,
+      customerEmail: email,
+      vehicleYear: vehicle.year,
+      vehicleMake: vehicle.make,
+      vehicleModel: vehicle.model,
+      vehiclePlate: vehicle.plate,
+      odometer: vehicle.odometer,
+      concern: body.concern,
+      promisedAt,
+    });
+    if (Object.keys(changes).length === 0) return this.get(id, now);
+    const set = Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to]));
+    this.db.update(repairOrders).set(set).where(eq(repairOrders.id, id)).run();
+    const onFile = { name: customer.name, phone: customer.phone, email };
+    if (Object.values(onFile).some((v) => v !== undefined))
+      this.db.update(customers).set(onFile).where(eq(customers.id, ro.customerId)).run();
+    const { odometer, ...details } = vehicle;
+    if (Object.values(details).some((v) => v !== undefined) || odometer !== undefined)
+      this.db
+        .update(vehicles)
+        .set({ ...details, ...(odometer !== undefined && { lastOdometer: odometer }) })
+        .where(eq(vehicles.id, ro.vehicleId))
+        .run();
+    let moved: number[] = [];
+    if (promisedAt !== undefined) {
+      moved = this.db
+        .update(jobLines)
+        .set({ promisedAt, updatedAt: now })
+        .where(eq(jobLines.repairOrderId, id))
+        .returning({ id: jobLines.id })
+        .all()
+        .map((line) => line.id);
+    }
+    this.audit.record({
+      actorId: actor.id,
+      action: 'edit',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { changes },
+    });
+    return this.changed(id, moved, now);
+  }
+
+  /** A line added after the RO was written joins the queue; a finished RO is open again. */
+  @Transactional()
+  addLine(id: number, body: AddJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+    const ro = this.openRow(id);
+    const last = this.db
+      .select({ lineNo: max(jobLines.lineNo) })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, id))
+      .get()?.lineNo;
+    const line = this.db
+      .insert(jobLines)
+      .values({
+        ...body,
+        concern: body.concern ?? ro.concern,
+        repairOrderId: id,
+        lineNo: (last ?? 0) + 1,
+        promisedAt: ro.promisedAt,
+        queuedAt: now,
+        updatedAt: now,
+      })
+      .returning()
+      .get();
+    syncRepairOrderStatus(this.db, id);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'line-added',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { jobLineId: line.id, lineNo: line.lineNo, title: line.title, bookHours: line.bookHours },
+    });
+    const jobLine = toJobLineDto(line);
+    this.live.publish('job-line.updated', { jobLine });
+    this.changed(id, [line.id], now);
+    return jobLine;
+  }
+
+  /** The RO's lines in a new order: every line, each once. */
+  @Transactional()
+  reorderLines(
+    id: number,
+    { lineIds }: LineOrderBody,
+    actor: Principal,
+    now = new Date(),
+  ): RepairOrderSummary {
+    this.openRow(id);
+    const current = this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(eq(jobLines.repairOrderId, id))
+      .all()
+      .map((line) => line.id);
+    if (
+      lineIds.length !== current.length ||
+      new Set(lineIds).size !== lineIds.length ||
+      !lineIds.every((l) => current.includes(l))
+    )
+      throw fieldError(['lineIds'], 'Give every line of this repair order once');
+    this.lines.renumber(lineIds, now);
+    this.audit.record({
+      actorId: actor.id,
+      action: 'lines-reordered',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { lineIds },
+    });
+    return this.changed(id, lineIds, now);
+  }
+
+  /**
+   * The vehicle is picked up: the RO closes and any bay still holding it is free. Only once every
+   * line is done or cancelled.
+   */
+  @Transactional()
+  close(id: number, actor: Principal, now = new Date()): RepairOrderSummary {
+    const ro = this.row(id);
+    if (ro.status === 'closed') throw new ConflictException(`RO ${ro.number} is already closed`);
+    if (syncRepairOrderStatus(this.db, id) !== 'done')
+      throw new ConflictException(`RO ${ro.number} still has open work: finish or cancel its lines first`);
+    this.db
+      .update(repairOrders)
+      .set({ status: 'closed', closedAt: now })
+      .where(eq(repairOrders.id, id))
+      .run();
+    const freed = this.db
+      .update(bays)
+      .set({ phase: 'free', phaseSince: now, repairOrderId: null })
+      .where(eq(bays.repairOrderId, id))
+      .returning({ id: bays.id, name: bays.name })
+      .all();
+    this.audit.record({
+      actorId: actor.id,
+      action: 'close',
+      entity: 'repair-order',
+      entityId: id,
+      detail: { bays: freed.map((bay) => bay.name) },
+    });
+    this.floor.baysChanged();
+    return this.changed(id, [], now);
+  }
+
+  history(id: number): RepairOrderHistoryEntry[] {
+    this.row(id);
+    return repairOrderHistory(this.db, id);
+  }
+
+  /** Tells the floor and the office pages; answers the RO as it is now. */
+  private changed(id: number, lineIds: number[], now: Date): RepairOrderSummary {
+    this.live.publish('repair-order.updated', { repairOrderId: id });
+    this.floor.linesChanged(lineIds);
+    return this.get(id, now);
+  }
+
+  private row(id: number): typeof repairOrders.$inferSelect {
+    return foundOrFail(
+      this.db.select().from(repairOrders).where(eq(repairOrders.id, id)).get(),
+      'Repair order',
+    );
+  }
+
+  private openRow(id: number): typeof repairOrders.$inferSelect {
+    const ro = this.row(id);
+    if (ro.status === 'closed')
+      throw new ConflictException(`RO ${ro.number} is closed: open a new one for more work`);
+    return ro;
+  }
+
+  /** Late lines by the one definition dispatch counts, and the ROs they are on. */
+  private lateWork(now: Date): { lineIds: Set<number>; repairOrderIds: Set<number> } {
+    const view = this.dispatch.view(now);
+    const late = [...view.queue, ...view.lanes.flatMap((lane) => lane.lines)].filter((line) => line.late);
+    return {
+      lineIds: new Set(late.map((line) => line.id)),
+      repairOrderIds: new Set(late.map((line) => line.repairOrderId)),
+    };
+  }
+
+  /** The shop's today, midnight to midnight in its time zone. */
+  private promisedToday(now: Date): SQL | undefined {
+    const { timeZone } = this.shop.settings();
+    const today = shopDayKey(now, timeZone);
+    const tomorrow = shopDayKey(
+      new Date(shopLocalInstant(today, '12:00', timeZone).getTime() + DAY_MS),
+      timeZone,
+    );
+    return and(
+      gte(repairOrders.promisedAt, shopLocalInstant(today, '00:00', timeZone)),
+      lt(repairOrders.promisedAt, shopLocalInstant(tomorrow, '00:00', timeZone)),
+    );
+  }
+
+  /**
+   * The customer to link: the vehicle's owner when the name is theirs (their contact brought up to
+   * date), otherwise a new customer: a vehicle that changed hands, or one the shop has never seen.
+   */
+  private ownerFor(
+    known: VehicleRow | undefined,
+    given: CreateRepairOrderBody['customer'],
+    now: Date,
+  ): CustomerRow {
+    const phone = given.phone ?? null;
+    const email = given.email?.toLowerCase() ?? null;
+    const current = known && this.db.select().from(customers).where(eq(customers.id, known.customerId)).get();
+    if (current && sameName(current.name, given.name))
+      return this.db
+        .update(customers)
+        .set({ name: given.name, phone: phone ?? current.phone, email: email ?? current.email })
+        .where(eq(customers.id, current.id))
+        .returning()
+        .get()!;
+    return this.db
+      .insert(customers)
+      .values({ name: given.name, phone, email, createdAt: now })
+      .returning()
+      .get();
+  }
+
+  /** The vehicle as it is today; the odometer only ever rises. */
+  private upsertVehicle(
+    known: VehicleRow | undefined,
+    body: CreateRepairOrderBody,
+    ownerId: number,
+  ): VehicleRow {
+    const { vin, year, make, model, plate, odometer } = body.vehicle;
+    const details = {
+      customerId: ownerId,
+      year,
+      make,
+      model,
+      plate: plate ?? null,
+      lastOdometer: Math.max(odometer, known?.lastOdometer ?? 0),
+    };
+    return known
+      ? this.db.update(vehicles).set(details).where(eq(vehicles.id, known.id)).returning().get()!
+      : this.db
+          .insert(vehicles)
+          .values({ ...details, vin })
+          .returning()
+          .get();
+  }
+
+  private rows(where: SQL | undefined, limit: number) {
+    return this.db
+      .select({ ro: repairOrders, vin: vehicles.vin, advisorName: users.name })
       .from(repairOrders)
-      .innerJoin(customers, eq(customers.id, repairOrders.customerId))
       .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
       .leftJoin(users, eq(users.id, repairOrders.advisorId))
-      .where(id ? eq(repairOrders.id, id) : status ? eq(repairOrders.status, status) : undefined)
-      .orderBy(desc(repairOrders.createdAt))
+      .where(where)
+      .orderBy(desc(repairOrders.createdAt), desc(repairOrders.id))
+      .limit(limit)
       .all();
+  }
+
+  /** The rows with their lines; clocked time is counted for these lines only. */
+  private summaries(rows: ReturnType<RepairOrdersService['rows']>, now: Date): RepairOrderSummary[] {
     const lines = rows.length
       ? this.db
           .select()
@@ -142,17 +452,18 @@ export class RepairOrdersService {
       : [];
     const seconds = this.labour.lineSeconds(
       lines.map((line) => line.id),
-      new Date(),
+      now,
     );
-    return rows.map(({ ro, customer, vehicle, advisorName }) => ({
+    const late = lines.some(isOpenLine) ? this.lateWork(now).lineIds : new Set<number>();
+    return rows.map(({ ro, vin, advisorName }) => ({
       id: ro.id,
       number: ro.number,
-      customerName: customer.name,
-      customerPhone: customer.phone,
-      customerEmail: customer.email,
-      vehicle: describeVehicle(vehicle),
-      vin: vehicle.vin,
-      plate: vehicle.plate,
+      customerName: ro.customerName,
+      customerPhone: ro.customerPhone,
+      customerEmail: ro.customerEmail,
+      vehicle: describeVehicle({ year: ro.vehicleYear, make: ro.vehicleMake, model: ro.vehicleModel }),
+      vin,
+      plate: ro.vehiclePlate,
       advisorId: ro.advisorId,
       advisorName,
       odometer: ro.odometer,
@@ -160,12 +471,15 @@ export class RepairOrdersService {
       status: ro.status,
       promisedAt: ro.promisedAt?.toISOString() ?? null,
       createdAt: ro.createdAt.toISOString(),
+      closedAt: ro.closedAt?.toISOString() ?? null,
+      late: lines.some((line) => line.repairOrderId === ro.id && late.has(line.id)),
       lines: lines
         .filter((line) => line.repairOrderId === ro.id)
         .sort((a, b) => a.lineNo - b.lineNo)
         .map((line) => ({
           ...toJobLineDto(line),
           clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
+          late: late.has(line.id),
         })),
     }));
   }

@@ -1,9 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeVin, type DispatchBoard, type MyDay } from '@baytime/shared';
+import { and, eq } from 'drizzle-orm';
+import { makeVin, type DispatchBoard, type MyDay, type RepairOrderSummary } from '@baytime/shared';
+import { countRows, DB, type Db } from '../db/database.js';
+import { auditLog, repairOrders } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
-// 49 CFR 565.15 worked example (CHECKS.md §7): check digit X, model year K = 2019.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X;
+// model year code K = 2019.
 const VALID_VIN = '1M8GDM9AXKP042788';
 
 describe(RepairOrdersService.name, () => {
@@ -11,7 +15,7 @@ describe(RepairOrdersService.name, () => {
   let advisor: string;
   let foreman: string;
   const order = (vehicle: Record<string, unknown> = {}, extra: Record<string, unknown> = {}) => ({
-    customer: { name: 'Wendell Farrow', phone: '555-0142', email: 'wendell@example.test' },
+    customer: { name: 'Wendell Farrow', phone: '(608) 555-0142', email: 'wendell@example.test' },
     vehicle: { vin: VALID_VIN, year: 2019, make: 'Halvard', model: 'Morrow', odometer: 61_200, ...vehicle },
     concern: 'Shudder when pulling away; due for service',
     lines: [
@@ -22,6 +26,16 @@ describe(RepairOrdersService.name, () => {
   });
   const create = (body: object) =>
     sut.http().post('/api/repair-orders').auth(advisor, { type: 'bearer' }).send(body);
+  const read = async (id: number) =>
+    (await sut.http().get(`/api/repair-orders/${id}`).auth(advisor, { type: 'bearer' }).expect(200))
+      .body as RepairOrderSummary;
+  const auditOf = (id: number) =>
+    sut.app
+      .get<Db>(DB)
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entity, 'repair-order'), eq(auditLog.entityId, String(id))))
+      .get();
 
   beforeAll(async () => {
     sut = await startTestApp();
@@ -90,7 +104,11 @@ describe(RepairOrdersService.name, () => {
       .body as DispatchBoard;
     expect(after.bays.find((b) => b.id === bay3.id)!.state).toBe('staged');
     const lane = after.lanes.find((l) => l.technician.id === tech.user.id)!;
-    expect(lane.lines.find((l) => l.id === ro.lines[0].id)!.forecast).not.toBeNull();
+    // No promise was given, so it cannot be late; it starts now or later and takes time.
+    const { forecast } = lane.lines.find((l) => l.id === ro.lines[0].id)!;
+    expect(forecast).toMatchObject({ late: false });
+    expect(Date.parse(forecast!.startAt)).toBeGreaterThanOrEqual(Date.parse(after.serverTime) - 1000);
+    expect(Date.parse(forecast!.finishAt)).toBeGreaterThan(Date.parse(forecast!.startAt));
   });
 
   it('lets the owner keep an operations menu', async () => {
@@ -104,5 +122,134 @@ describe(RepairOrdersService.name, () => {
     expect(body).toMatchObject({ skillLevel: 1, active: true });
     const list = await sut.http().get('/api/operations').auth(advisor, { type: 'bearer' }).expect(200);
     expect(list.body).toContainEqual(body);
+  });
+
+  it('a new RO for a known VIN leaves earlier ROs as they were written', async () => {
+    const vin = makeVin('4HV5MR7BLM900002');
+    const { body: first } = await create(
+      order(
+        { vin, year: 2020, make: 'Halvard', model: 'Morrow', plate: 'OLD 101', odometer: 30_000 },
+        { customer: { name: 'Odile Varga', phone: '(608) 555-0101', email: 'odile@example.test' } },
+      ),
+    ).expect(201);
+    // The car changed hands: another name and e-mail, a new plate, the model written out in full.
+    const { body: second } = await create(
+      order(
+        { vin, year: 2020, make: 'Halvard', model: 'Morrow Touring', plate: 'NEW 202', odometer: 41_000 },
+        { customer: { name: 'Bram Keto', phone: '(608) 555-0102', email: 'bram@example.test' } },
+      ),
+    ).expect(201);
+    expect(await read(first.id)).toMatchObject({
+      customerName: 'Odile Varga',
+      customerPhone: '+16085550101',
+      customerEmail: 'odile@example.test',
+      vehicle: '2020 Halvard Morrow',
+      plate: 'OLD 101',
+      odometer: 30_000,
+    });
+    expect(await read(second.id)).toMatchObject({
+      customerName: 'Bram Keto',
+      customerEmail: 'bram@example.test',
+      vehicle: '2020 Halvard Morrow Touring',
+      plate: 'NEW 202',
+    });
+    // A new owner is a new customer; the first owner's record is not edited.
+    const db = sut.app.get<Db>(DB);
+    const links = db
+      .select({ customerId: repairOrders.customerId })
+      .from(repairOrders)
+      .where(
+        eq(
+          repairOrders.vehicleId,
+          db.select().from(repairOrders).where(eq(repairOrders.id, first.id)).get()!.vehicleId,
+        ),
+      )
+      .all()
+      .map((row) => row.customerId);
+    expect(new Set(links).size).toBe(2);
+    expect(auditOf(second.id)?.detail).toEqual({ previousCustomerId: links[0] });
+  });
+
+  it('the same owner back with a new phone keeps one customer; the earlier RO keeps the old phone', async () => {
+    const vin = makeVin('4HV5MR7BLM900003');
+    const customer = { name: 'Ines Moreau', phone: '(608) 555-0103', email: 'ines@example.test' };
+    const { body: first } = await create(order({ vin, year: 2020, odometer: 10_000 }, { customer })).expect(
+      201,
+    );
+    const { body: second } = await create(
+      order(
+        { vin, year: 2020, odometer: 12_000 },
+        { customer: { name: 'ines  moreau', phone: '(608) 555-0104' } },
+      ),
+    ).expect(201);
+    expect((await read(first.id)).customerPhone).toBe('+16085550103');
+    // The e-mail was left out this time: the one on file stays.
+    expect(await read(second.id)).toMatchObject({
+      customerPhone: '+16085550104',
+      customerEmail: 'ines@example.test',
+    });
+    expect(auditOf(second.id)?.detail).toBeNull();
+  });
+
+  it('refuses a promised time that has already passed, at the field, and writes nothing', async () => {
+    const db = sut.app.get<Db>(DB);
+    const before = countRows(db, repairOrders);
+    const past = new Date(Date.now() - 60_000).toISOString();
+    const { body } = await create(
+      order({ vin: makeVin('4HV5MR7BLM900004'), year: 2020, odometer: 5_000 }, { promisedAt: past }),
+    ).expect(400);
+    expect(body.issues).toEqual([
+      { path: ['promisedAt'], message: 'That time has already passed: promise a later one' },
+    ]);
+    expect(countRows(db, repairOrders)).toBe(before);
+    const later = new Date(Date.now() + 3600_000).toISOString();
+    await create(
+      order({ vin: makeVin('4HV5MR7BLM900004'), year: 2020, odometer: 5_000 }, { promisedAt: later }),
+    ).expect(201);
+  });
+
+  it('takes a pasted VIN with spaces and dashes', async () => {
+    const { body } = await create(order({ vin: ' 1m8 GDM9A-XKP 042788 ', odometer: 70_000 })).expect(201);
+    expect(body.vin).toBe(VALID_VIN);
+  });
+
+  describe('a VIN outside the 49 CFR 565 rules', () => {
+    // The worked example with position 9 changed from X to 4: the check digit fails.
+    const WRONG_CHECK = '1M8GDM9A4KP042788';
+    // A 1977 vehicle's 13-character serial (invented): before the 17-character VIN.
+    const OLD_SERIAL = '7Y37J5G123456';
+
+    it('is refused at the field without a reason', async () => {
+      const { body } = await create(
+        order({ vin: OLD_SERIAL, year: 1977, make: 'Corvan', model: 'Estate', odometer: 88_000 }),
+      ).expect(400);
+      expect(body.issues).toEqual([
+        { path: ['vehicle', 'vin'], message: 'A VIN has 17 characters' },
+        { path: ['vehicle', 'year'], message: 'Model years start at 1981 for 17-character VINs' },
+      ]);
+    });
+
+    it.each([
+      [WRONG_CHECK, 2019, 'Imported: the maker does not use a check digit'],
+      [OLD_SERIAL, 1977, 'Built before 1981: serial from the door plate'],
+    ])('is saved with a reason, which is audited (%s)', async (vin, year, reason) => {
+      const { body } = await create(
+        order(
+          { vin, year, make: 'Corvan', model: 'Estate', odometer: 90_000 },
+          { vinOverrideReason: reason },
+        ),
+      ).expect(201);
+      expect(body).toMatchObject({ vin, vehicle: `${year} Corvan Estate` });
+      expect(auditOf(body.id)?.detail).toEqual({ vinOverrideReason: reason });
+    });
+
+    it('still has to be letters and digits', async () => {
+      const { body } = await create(
+        order({ vin: 'AB*12' }, { vinOverrideReason: 'Hand-stamped frame number' }),
+      ).expect(400);
+      expect(body.issues).toEqual([
+        { path: ['vehicle', 'vin'], message: 'A VIN has only letters and digits' },
+      ]);
+    });
   });
 });

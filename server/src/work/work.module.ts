@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { DispatchModule } from '../dispatch/dispatch.module.js';
 import { FloorModule } from '../floor/floor.module.js';
 import { PunchesModule } from '../punches/punches.module.js';
 import { JobLinesController } from './job-lines.controller.js';
@@ -9,7 +10,7 @@ import { RepairOrdersController } from './repair-orders.controller.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
 @Module({
-  imports: [FloorModule, PunchesModule],
+  imports: [FloorModule, PunchesModule, DispatchModule],
   controllers: [RepairOrdersController, JobLinesController, OperationsController],
   providers: [RepairOrdersService, JobLinesService, OperationsService],
   exports: [JobLinesService],

@@ -5,8 +5,12 @@ export type Role = (typeof ROLES)[number];
 export const OFFICE_ROLES = ['owner', 'foreman', 'advisor'] as const satisfies readonly Role[];
 
 export const loginSchema = z.object({
-  email: z.email().max(200),
-  password: z.string().min(1).max(200),
+  email: z
+    .email({
+      error: (issue) => (issue.input ? 'That is not an e-mail address' : 'Enter your e-mail address'),
+    })
+    .max(200),
+  password: z.string().min(1, 'Enter your password').max(200),
 });
 export type LoginBody = z.infer<typeof loginSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
 
 export const BAY_STATES = ['free', 'staged', 'working', 'timer', 'held', 'check', 'ready'] as const;
 export type BayState = (typeof BAY_STATES)[number];
@@ -8,15 +9,17 @@ export type HoldReason = (typeof HOLD_REASONS)[number];
 
 export const BAY_KINDS = ['two-post', 'four-post', 'alignment', 'flat', 'pit'] as const;
 
+export const bayNameSchema = plainText(24, { min: 1, message: 'Name the bay' });
+
 export const createBaySchema = z.object({
-  name: z.string().trim().min(1).max(24),
+  name: bayNameSchema,
   kind: z.enum(BAY_KINDS).optional(),
 });
 export type CreateBayBody = z.infer<typeof createBaySchema>;
 
 export const updateBaySchema = z
   .object({
-    name: z.string().trim().min(1).max(24),
+    name: bayNameSchema,
     kind: z.enum(BAY_KINDS),
     active: z.boolean(),
     position: z.number().int().min(0).max(999),
@@ -24,6 +27,10 @@ export const updateBaySchema = z
   .partial()
   .strict();
 export type UpdateBayBody = z.infer<typeof updateBaySchema>;
+
+/** `PUT /api/bays/order`: every bay in use, in the order the wall shows them. */
+export const bayOrderSchema = z.object({ bayIds: z.array(z.number().int().positive()).min(1).max(200) });
+export type BayOrderBody = z.infer<typeof bayOrderSchema>;
 
 export interface BayDto {
   id: number;
@@ -33,7 +40,7 @@ export interface BayDto {
   active: boolean;
 }
 
-export const createScreenSchema = z.object({ name: z.string().trim().min(1).max(60) });
+export const createScreenSchema = z.object({ name: plainText(60, { min: 1, message: 'Name the screen' }) });
 export type CreateScreenBody = z.infer<typeof createScreenSchema>;
 
 export interface ScreenPairing {

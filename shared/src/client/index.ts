@@ -1,1 +1,2 @@
 export * from './api-client.js';
+export * from './live-link.js';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
 import { isoWeekSchema } from '../time/workweek.js';
 
 /**
@@ -57,12 +58,12 @@ export type ExceptionsQuery = z.infer<typeof exceptionsQuerySchema>;
 /** A ledger exception the foreman checked and accepts as it is (a genuine short meal, say). */
 export const reviewExceptionSchema = z.object({
   key: z.string().min(3).max(120),
-  note: z.string().trim().min(3, 'Say what was checked').max(500),
+  note: plainText(500, { min: 3, multiline: true, message: 'Say what was checked' }),
 });
 export type ReviewExceptionBody = z.infer<typeof reviewExceptionSchema>;
 
 /** Accept or reject a held punch; sign off a line done without clocked time. Always with a reason. */
 export const resolutionSchema = z.object({
-  reason: z.string().trim().min(3, 'Say why').max(500),
+  reason: plainText(500, { min: 3, multiline: true, message: 'Say why' }),
 });
 export type ResolutionBody = z.infer<typeof resolutionSchema>;

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { OpeningHours } from '../shop/shop.schema.js';
 import { addOpenHours, forecastTechnicianQueue, type QueueForecastInput } from './forecast.js';
 
-// America/Chicago: CST is UTC−6, CDT is UTC−5. US DST 2026 (Pub. L. 109-58 §110, CHECKS.md §4): clocks
+// America/Chicago: CST is UTC−6, CDT is UTC−5. US DST 2026 (Energy Policy Act of 2005, Pub. L. 109-58 §110): clocks
 // go forward on Sunday 8 March and back on Sunday 1 November, at 2 a.m. local.
 const ZONE = 'America/Chicago';
 const day = { open: '07:30', close: '17:30' };

@@ -305,7 +305,7 @@ describe(buildLedger.name, () => {
     });
   });
 
-  // US Department of Labor hours-worked guidance: an 11:00 pm–7:30 am shift with a
+  // US Department of Labor hours-worked guidance on daylight saving time: an 11:00 pm–7:30 am shift with a
   // 30-minute lunch is 7 h on spring-forward night and 9 h on fall-back night.
   it.each([
     ['2026-03-07', '2026-03-08', 7],
@@ -347,7 +347,7 @@ describe(buildLedger.name, () => {
         new Date(),
         even,
       ),
-    ).toThrow();
+    ).toThrow('A ledger is for one technician');
   });
 });
 

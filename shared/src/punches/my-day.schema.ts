@@ -21,6 +21,16 @@ export interface MyJobLine {
   priority: Priority;
   bayName: string | null;
   clockedOn: boolean;
+  /** The customer's concern for this line, from intake. */
+  concern: string;
+}
+
+/** A bay in `check` holding a vehicle this technician worked on: the road test or final look waits. */
+export interface MyFinalCheck {
+  bayId: number;
+  bayName: string;
+  repairOrderNumber: string;
+  vehicle: string;
 }
 
 /** What the kiosk shows a signed-in technician: `GET /api/me/day`. */
@@ -30,6 +40,9 @@ export interface MyDay {
   shift: { status: ShiftStatus; since: string | null; breakKind: BreakKind | null };
   openJobLineIds: number[];
   lines: MyJobLine[];
+  /** Lines this technician finished since the shop's midnight. */
+  doneToday: number;
+  finalChecks: MyFinalCheck[];
   idleSignOutSeconds: number;
   maxConcurrentJobs: number;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idSchema, instantSchema, plainText } from '../input/fields.js';
 
 export const PUNCH_KINDS = [
   'shift-in',
@@ -31,10 +32,10 @@ export const createPunchSchema = z
   .object({
     id: z.uuid(),
     kind: z.enum(PUNCH_KINDS),
-    jobLineId: z.number().int().positive().optional(),
-    at: z.iso.datetime({ offset: true }).optional(),
+    jobLineId: idSchema.optional(),
+    at: instantSchema.optional(),
     breakKind: z.enum(BREAK_KINDS).optional(),
-    technicianId: z.number().int().positive().optional(),
+    technicianId: idSchema.optional(),
   })
   .superRefine((punch, ctx) => {
     const needsLine = punch.kind === 'job-on' || punch.kind === 'job-off';
@@ -55,12 +56,12 @@ export type CreatePunchBody = z.infer<typeof createPunchSchema>;
 
 export const correctionSchema = z.object({
   punchId: z.uuid().optional(),
-  technicianId: z.number().int().positive(),
+  technicianId: idSchema,
   kind: z.enum(PUNCH_KINDS),
-  at: z.iso.datetime({ offset: true }),
-  jobLineId: z.number().int().positive().optional(),
+  at: instantSchema,
+  jobLineId: idSchema.optional(),
   breakKind: z.enum(BREAK_KINDS).optional(),
-  reason: z.string().trim().min(3, 'Say why the punch is corrected').max(500),
+  reason: plainText(500, { min: 3, multiline: true, message: 'Say why the punch is corrected' }),
   /** The displaced punches the preview showed: a correction that displaces others is saved only with them. */
   displaces: z.array(z.uuid()).max(50).optional(),
 });

@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import type { TimeException } from '../exceptions/exceptions.schema.js';
+import { idTextSchema } from '../input/fields.js';
 import type { WeekSummary } from '../reports/report.schema.js';
 import { isoWeekSchema } from '../time/workweek.js';
 import type { HeldPunchDto, PunchDto } from './punches.schema.js';
 
 export const timecardQuerySchema = z.object({
-  technicianId: z.coerce.number().int().positive().optional(),
+  technicianId: idTextSchema.optional(),
   week: isoWeekSchema.optional(),
 });
 export type TimecardQuery = z.infer<typeof timecardQuerySchema>;

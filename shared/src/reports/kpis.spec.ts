@@ -17,8 +17,8 @@ const hours = (attendanceHours: number, clockedHours: number, flaggedHours: numb
 });
 
 describe(labourKpis.name, () => {
-  // NADA definitions via a dealer association bulletin "Measuring technician performance": available 40 h,
-  // worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. All lines finished: matched = clocked.
+  // NADA definitions via a dealer association bulletin "Measuring technician performance":
+  // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. All lines finished: matched = clocked.
   it('gives 90 %, 125 %, 112.5 % for 40 h available, 36 h clocked, 45 h flagged', () => {
     const kpis = labourKpis(hours(40, 36, 45));
     expect(kpis.productivity).toBeCloseTo(0.9, 12);
@@ -86,7 +86,8 @@ describe(shopLabourKpis.name, () => {
 });
 
 describe('KPI guidelines and formulas', () => {
-  // NADA, via the dealer association bulletin "Measuring technician performance": 85–87.5 %, 125 %, 100 %.
+  // NADA guidelines via the dealer association bulletin "Measuring technician performance": productivity
+  // 85–87.5 %, efficiency 125 %, proficiency 100 %.
   it('holds the published guidelines', () => {
     expect(KPI_GUIDELINES).toEqual({
       productivity: { low: 0.85, high: 0.875 },

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { TimeException } from '../exceptions/exceptions.schema.js';
+import { plainText } from '../input/fields.js';
 import type { PayRate } from '../pay/pay-types.js';
 import { OVERTIME_RULES, type DatedPayRules } from '../shop/shop.schema.js';
 import { isoWeekSchema } from '../time/workweek.js';
@@ -231,6 +232,6 @@ export interface PayWeekState {
 }
 
 export const reopenWeekSchema = z.object({
-  reason: z.string().trim().min(3, 'Say why the week is reopened').max(500),
+  reason: plainText(500, { min: 3, multiline: true, message: 'Say why the week is reopened' }),
 });
 export type ReopenWeekBody = z.infer<typeof reopenWeekSchema>;

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
+import { phoneSchema } from '../input/phone.js';
 
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export const CONCURRENT_SPLITS = ['even', 'full'] as const;
@@ -22,8 +24,8 @@ function isTimeZone(name: string): boolean {
 }
 
 export const shopSettingsSchema = z.object({
-  name: z.string().trim().min(1).max(80),
-  timeZone: z.string().refine(isTimeZone, 'Not a known IANA time zone'),
+  name: plainText(80, { min: 1, message: 'Name the shop' }),
+  timeZone: z.string().max(64).refine(isTimeZone, 'Not a known IANA time zone'),
   workweekStartDay: z.number().int().min(0).max(6),
   workweekStartHour: z.number().int().min(0).max(23),
   units: z.enum(UNIT_SYSTEMS),
@@ -34,6 +36,24 @@ export const shopSettingsSchema = z.object({
   openingHours: openingHoursSchema,
   kioskIdleSeconds: z.number().int().min(15).max(600),
   payNonProductiveSeparately: z.boolean(),
+  /** A technician may clock onto an unassigned line, which then becomes theirs. */
+  techniciansTakeUnassigned: z.boolean(),
+  /** The shop's phone, shown to customers on the approval page; E.164. */
+  phone: z.preprocess((value) => value ?? '', phoneSchema).transform((phone) => phone ?? null),
+  /** What a customer pays per book hour of labour. */
+  labourRateCents: z
+    .number()
+    .int('The labour rate is a whole number of cents')
+    .min(0)
+    .max(100_000, 'The labour rate is at most $1,000 an hour'),
+  /** Shown under prices: how tax is charged (prices here are before tax). */
+  taxNote: plainText(200),
+  /** How long an approval link stays valid. */
+  approvalLinkHours: z
+    .number()
+    .int('Hours is a whole number')
+    .min(1, 'A link lasts at least an hour')
+    .max(720, 'A link lasts at most 30 days'),
   /** A city or county minimum wage above the state's, if any: the highest figure applies. */
   localMinimumWageCents: z.number().int().min(725, 'Not below the federal $7.25').max(100_00).nullable(),
   /** 29 CFR 785.19(a): a bona fide meal period is ordinarily 30 minutes or more; a shorter "meal" is paid rest. */

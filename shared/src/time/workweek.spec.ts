@@ -40,7 +40,7 @@ describe(isoWeekOf.name, () => {
 });
 
 describe(parseIsoWeek.name, () => {
-  it('accepts 2026-W53 because 2026 has 53 ISO weeks ', () => {
+  it('accepts 2026-W53 because 2026 has 53 ISO weeks (ISO 8601: 2026-12-31 is 2026-W53-4)', () => {
     expect(parseIsoWeek('2026-W53')).toEqual({ year: 2026, week: 53 });
   });
 
@@ -67,7 +67,7 @@ describe(addIsoWeeks.name, () => {
 
 describe(workweekBounds.name, () => {
   it('is exactly the ISO week when the shop starts Monday 00:00', () => {
-    // ISO 8601: 2025-12-29 is 2026-W01-1 and 2027-01-04 is 2027-W01-1, so W53 ends on 2027-01-04.
+    // ISO 8601 week dates: 2025-12-29 is 2026-W01-1 and 2027-01-04 is 2027-W01-1, so W53 ends on 2027-01-04.
     expect(workweekBounds('2026-W01', mondayStart).from).toEqual(
       shopLocalInstant('2025-12-29', '00:00', CHICAGO),
     );
@@ -131,7 +131,7 @@ describe(shopDayKey.name, () => {
 });
 
 describe(shopLocalInstant.name, () => {
-  // US Department of Labor hours-worked guidance : an 11:00 pm–7:30 am shift with a
+  // US Department of Labor hours-worked guidance on daylight saving time: an 11:00 pm–7:30 am shift with a
   // 30-minute lunch is 7 h on spring-forward night and 9 h on fall-back night.
   it.each([
     ['2026-03-07', '2026-03-08', 7],

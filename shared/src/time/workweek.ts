@@ -1,6 +1,11 @@
 import { TZDate } from '@date-fns/tz';
-import { addWeeks, format, getISOWeeksInYear, startOfISOWeek } from 'date-fns';
+// One module per function: the package index would load all of date-fns (about 300 modules) at start-up.
+import { addWeeks } from 'date-fns/addWeeks';
+import { format } from 'date-fns/format';
+import { getISOWeeksInYear } from 'date-fns/getISOWeeksInYear';
+import { startOfISOWeek } from 'date-fns/startOfISOWeek';
 import { z } from 'zod';
+import { EARLIEST_DATE, latestDate } from '../input/fields.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 
 export type WorkweekSettings = Pick<ShopSettings, 'timeZone' | 'workweekStartDay' | 'workweekStartHour'>;
@@ -29,7 +34,14 @@ export function parseIsoWeek(label: string): { year: number; week: number } | nu
 
 export const isoWeekSchema = z
   .string()
-  .refine((label) => parseIsoWeek(label) !== null, 'Use an ISO week that exists, like 2026-W05');
+  .max(8)
+  .refine((label) => parseIsoWeek(label) !== null, 'Use an ISO week that exists, like 2026-W05')
+  .refine((label) => {
+    const year = parseIsoWeek(label)?.year;
+    return (
+      year === undefined || (year >= EARLIEST_DATE.getUTCFullYear() && year <= latestDate().getUTCFullYear())
+    );
+  }, 'Use a week from 2000 to two years ahead');
 
 /** ISO 8601 week label (Monday start, week 1 holds the first Thursday) of an instant, in a time zone. */
 export function isoWeekOf(instant: Date, timeZone: string): string {

@@ -20,7 +20,8 @@ function estimate(input: Partial<TemperatureEtaInput> & Pick<TemperatureEtaInput
 describe(estimateTemperatureEta.name, () => {
   describe('published vectors with a known ambient', () => {
     it('cools 90 °C → 40 °C in 2.369 min (60 °C after 1 min, 25 °C ambient)', () => {
-      // University of Oklahoma open course, ODE case study (CHECKS.md §6): t = 2.369 min.
+      // University of Oklahoma open course, ODE case study on Newton's law of cooling: 90 °C, 60 °C after
+      // 1 min, 25 °C ambient → 40 °C at t = 2.369 min.
       const sut = estimate({
         kind: 'cool-down',
         readings: readings([0, 90], [1, 60]),
@@ -34,7 +35,8 @@ describe(estimateTemperatureEta.name, () => {
     });
 
     it('cools 170 °F → 110 °F in 4.581 min at k = 0.2/min in 70 °F surroundings', () => {
-      // Dartmouth differential-equations text §3.2 (CHECKS.md §6): k = 0.2/min, 110 °F at t = 4.581 min.
+      // Dartmouth differential-equations text §3.2: 170 °F in 70 °F surroundings, k = 0.2/min, 110 °F at
+      // t = 4.581 min.
       // The text gives the initial rate; the 1-minute reading comes from its own model. Converted to °C
       // with t/°C = (t/°F − 32)/1.8 (NIST SP 811).
       const f = newton(70, 170, 0.2);
@@ -50,7 +52,9 @@ describe(estimateTemperatureEta.name, () => {
     });
 
     it('warms 40 °F water in a 70 °F room to 60 °F in 6.026 h (45 °F after 1 h)', () => {
-      // Heating example, CHECKS.md §6: t = 6.026 h. Far beyond the one-hour span of the readings.
+      // A textbook exercise on Newton's law of heating, quoted from memory: 40 °F water in a 70 °F room,
+      // 45 °F after 1 h → 60 °F at t = 6.026 h (k = ln(30/25) per hour, t = ln(30/10) ÷ k). Far beyond the
+      // one-hour span of the readings.
       const sut = estimate({
         readings: readings([0, celsiusFromFahrenheit(40)], [60, celsiusFromFahrenheit(45)]),
         ambientC: celsiusFromFahrenheit(70),

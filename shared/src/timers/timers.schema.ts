@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idSchema, instantSchema, plainText } from '../input/fields.js';
 import type { EtaConfidence, TemperatureEtaStatus } from './estimator.js';
 
 export const TIMER_KINDS = ['warm-up', 'cool-down', 'hold'] as const;
@@ -9,13 +10,15 @@ const celsius = z
   .number()
   .min(-40, 'Below −40 °C: check the reading')
   .max(300, 'Above 300 °C: check the reading');
+const timerName = plainText(60, { min: 1, message: 'Type a name' });
 
 export const startTimerSchema = z
   .object({
-    jobLineId: z.number().int().positive(),
-    bayId: z.number().int().positive().optional(),
+    jobLineId: idSchema,
+    bayId: idSchema.optional(),
     kind: z.enum(TIMER_KINDS),
     targetC: celsius.optional(),
+    /** Where the temperature levels off: the room for a cool-down, above the target for a warm-up. */
     ambientC: celsius.optional(),
     durationSeconds: z
       .number()
@@ -23,7 +26,7 @@ export const startTimerSchema = z
       .min(10)
       .max(48 * 3600)
       .optional(),
-    label: z.string().trim().min(1).max(60).optional(),
+    label: timerName.optional(),
     /** The tech confirmed the engine-running caution before a warm-up or cool-down. */
     cautionAcknowledged: z.boolean().optional(),
   })
@@ -49,12 +52,12 @@ export type StartTimerBody = z.infer<typeof startTimerSchema>;
 
 export const timerReadingSchema = z.object({
   tempC: celsius,
-  at: z.iso.datetime({ offset: true }).optional(),
+  at: instantSchema.optional(),
 });
 export type TimerReadingBody = z.infer<typeof timerReadingSchema>;
 
 export const holdPresetSchema = z.object({
-  name: z.string().trim().min(1).max(60),
+  name: timerName,
   durationSeconds: z
     .number()
     .int()
@@ -79,6 +82,8 @@ export interface TimerDto {
   id: number;
   kind: TimerKind;
   jobLineId: number;
+  /** The technician the line is assigned to, when it is. */
+  lineTechnicianId: number | null;
   bayId: number | null;
   label: string | null;
   targetC: number | null;

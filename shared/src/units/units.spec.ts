@@ -21,13 +21,13 @@ import {
 
 describe('unit factors', () => {
   it('match NIST Handbook 44 Appendix C', () => {
-    // NIST Handbook 44 App. C / CHECKS.md §5: 1 US gal = 231 in³ = 231 × 2.54³ cm³ = 3.785 411 784 L exactly.
+    // NIST Handbook 44 Appendix C: 1 US gal = 231 in³ = 231 × 2.54³ cm³ = 3.785 411 784 L exactly.
     expect(LITRES_PER_US_GALLON).toBe(3.785411784);
     expect(231 * 2.54 ** 3).toBeCloseTo(3785.411784, 9);
     // Same source: 1 US qt = 0.946 352 946 L exactly (a quarter gallon).
     expect(LITRES_PER_US_QUART).toBe(0.946352946);
     expect(LITRES_PER_US_GALLON / 4).toBeCloseTo(LITRES_PER_US_QUART, 15);
-    // NIST SP 811 / CHECKS.md §5: 1 lbf·ft = 1.355 818 N·m (0.3048 m × 4.448 221 615 260 5 N).
+    // NIST SP 811 Appendix B: 1 lbf·ft = 1.355 818 N·m (0.3048 m × 4.448 221 615 260 5 N).
     expect(NEWTON_METRES_PER_POUND_FOOT.toPrecision(16)).toBe('1.355817948331400');
     expect(newtonMetresFromPoundFeet(1)).toBeCloseTo(1.355818, 6);
   });
@@ -35,7 +35,7 @@ describe('unit factors', () => {
 
 describe(celsiusFromFahrenheit.name, () => {
   it('follows t/°C = (t/°F − 32) / 1.8', () => {
-    // NIST SP 811 (CHECKS.md §5): 113 °F = 45 °C, 212 °F = 100 °C, 32 °F = 0 °C, −40 °F = −40 °C.
+    // NIST SP 811 (t/°C = (t/°F − 32)/1.8): 113 °F = 45 °C, 212 °F = 100 °C, 32 °F = 0 °C, −40 °F = −40 °C.
     expect(celsiusFromFahrenheit(113)).toBeCloseTo(45, 12);
     expect(celsiusFromFahrenheit(212)).toBeCloseTo(100, 12);
     expect(celsiusFromFahrenheit(32)).toBe(0);

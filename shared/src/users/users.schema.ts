@@ -1,13 +1,16 @@
 import { z } from 'zod';
 import { ROLES, type Role } from '../auth/auth.schema.js';
+import { plainText } from '../input/fields.js';
 import { PAY_TYPES, type PayRate } from '../pay/pay-types.js';
 import { localDateSchema } from '../shop/shop.schema.js';
 
-const cents = z.number().int().min(0).max(100_000_00);
+/** A pay rate per hour in cents. */
+const cents = z.number().int().min(0).max(1_000_00, 'At most $1,000.00 an hour');
+const personName = plainText(80, { min: 1, message: 'Enter a name' });
 
 export const createUserSchema = z
   .object({
-    name: z.string().trim().min(1).max(80),
+    name: personName,
     role: z.enum(ROLES).exclude(['display']),
     email: z.email().max(200).optional(),
     password: z.string().min(10, 'A password has at least 10 characters').max(200).optional(),
@@ -33,6 +36,12 @@ export const createUserSchema = z
       if (!user.badge)
         ctx.addIssue({ code: 'custom', path: ['badge'], message: 'A technician needs a badge' });
       if (!user.pin) ctx.addIssue({ code: 'custom', path: ['pin'], message: 'A technician needs a PIN' });
+      if (user.payType === 'flat-rate-guarantee' && !user.guaranteeCents)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['guaranteeCents'],
+          message: 'Give the hourly guarantee for productive time',
+        });
     } else {
       if (!user.email)
         ctx.addIssue({ code: 'custom', path: ['email'], message: 'Office staff need an e-mail' });
@@ -44,7 +53,8 @@ export type CreateUserBody = z.infer<typeof createUserSchema>;
 
 export const updateUserSchema = z
   .object({
-    name: z.string().trim().min(1).max(80),
+    name: personName,
+    role: z.enum(ROLES).exclude(['display']),
     email: z.email().max(200),
     password: z.string().min(10, 'A password has at least 10 characters').max(200),
     badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),
@@ -62,6 +72,7 @@ export const updateUserSchema = z
   .partial()
   .strict();
 export type UpdateUserBody = z.infer<typeof updateUserSchema>;
+export type UpdateUserFields = z.input<typeof updateUserSchema>;
 
 export interface UserDto {
   id: number;

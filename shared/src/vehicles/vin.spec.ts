@@ -1,15 +1,17 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  addVinRuleIssues,
   isValidVin,
   makeVin,
   modelYearFromVin,
-  vehicleInputSchema,
+  vehicleDetailsSchema,
   vinCheckDigit,
   vinSchema,
+  vinTextSchema,
 } from './vin.js';
 
-// 49 CFR 565.15 (CHECKS.md §7): the widely used worked example, check digit X.
+// The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788, check digit X.
 const WORKED_EXAMPLE = '1M8GDM9AXKP042788';
 const VIN_ALPHABET = 'ABCDEFGHJKLMNPRSTUVWXYZ0123456789';
 
@@ -22,7 +24,7 @@ function issues(result: {
 
 describe(vinCheckDigit.name, () => {
   it('gives X for the 49 CFR 565.15 worked example', () => {
-    // 49 CFR 565.15 worked example (CHECKS.md §7): remainder 10 is written X.
+    // 49 CFR 565.15: a remainder of 10 is written X; the worked example's check digit is X.
     expect(vinCheckDigit(WORKED_EXAMPLE)).toBe('X');
   });
 
@@ -39,7 +41,7 @@ describe(vinCheckDigit.name, () => {
 
 describe(isValidVin.name, () => {
   it('accepts the worked example in any case', () => {
-    // 49 CFR 565.15 worked example (CHECKS.md §7).
+    // The widely used worked example of the 49 CFR 565.15 check digit: 1M8GDM9AXKP042788.
     expect(isValidVin(WORKED_EXAMPLE)).toBe(true);
     expect(isValidVin(WORKED_EXAMPLE.toLowerCase())).toBe(true);
   });
@@ -80,12 +82,26 @@ describe(makeVin.name, () => {
     expect(makeVin('1M8GDM9AKP042788')).toBe(WORKED_EXAMPLE);
   });
 
-  it('always yields a valid VIN', () => {
+  // Worked by hand with the 49 CFR 565.15 transliteration table (A=1 B=2 D=4 H=8 L=3 M=4 T=3) and the
+  // position weights 8 7 6 5 4 3 2 10 · 9 8 7 6 5 4 3 2:
+  // 7AB6LD9H·LM900777 → 56+7+12+30+12+12+18+80 + 27+32+63+0+0+28+21+14 = 412; 412 mod 11 = 5.
+  // 5BT00AAA·TB000123 → 40+14+18+0+0+3+2+10 + 27+16+0+0+0+4+6+6 = 146; 146 mod 11 = 3.
+  it.each([
+    ['7AB6LD9HLM900777', '7AB6LD9H5LM900777'],
+    ['5BT00AAATB000123', '5BT00AAA3TB000123'],
+    ['1111111111111111', '11111111111111111'],
+  ])('makes %s into %s, by the hand-worked sum', (rest, vin) => {
+    expect(makeVin(rest)).toBe(vin);
+  });
+
+  it('keeps the 16 given characters in their places around the check digit', () => {
     fc.assert(
       fc.property(
         fc.string({ unit: fc.constantFrom(...VIN_ALPHABET), minLength: 16, maxLength: 16 }),
         (rest) => {
-          expect(isValidVin(makeVin(rest))).toBe(true);
+          const vin = makeVin(rest);
+          expect(`${vin.slice(0, 8)}${vin.slice(9)}`).toBe(rest);
+          expect(vin[8]).toMatch(/^[0-9X]$/);
         },
       ),
     );
@@ -122,6 +138,11 @@ describe('vinSchema', () => {
     expect(vinSchema.parse(`  ${WORKED_EXAMPLE.toLowerCase()} `)).toBe(WORKED_EXAMPLE);
   });
 
+  it('drops the spaces and dashes of a VIN pasted in groups', () => {
+    expect(vinSchema.parse('1M8 GDM9A-XKP 042788')).toBe(WORKED_EXAMPLE);
+    expect(vinSchema.parse('1m8-gdm9ax-kp0-42788\t')).toBe(WORKED_EXAMPLE);
+  });
+
   it('explains each problem in plain words', () => {
     expect(issues(vinSchema.safeParse('1M8GDM9AXKP04278'))).toEqual([
       { message: 'A VIN has 17 characters', path: '' },
@@ -129,7 +150,7 @@ describe('vinSchema', () => {
     expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427O8'))).toEqual([
       { message: 'VINs never use I, O or Q', path: '' },
     ]);
-    expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427-8'))).toEqual([
+    expect(issues(vinSchema.safeParse('1M8GDM9AXKP0427*8'))).toEqual([
       { message: 'A VIN has only letters and digits', path: '' },
     ]);
     expect(issues(vinSchema.safeParse('1M8GDM9A4KP042788'))).toEqual([
@@ -138,7 +159,29 @@ describe('vinSchema', () => {
   });
 });
 
-describe('vehicleInputSchema', () => {
+describe('vinTextSchema', () => {
+  it('takes a shorter serial of a vehicle built before 1981, and a 17-character VIN whatever its check digit', () => {
+    expect(vinTextSchema.parse('7y37j5g 123456')).toBe('7Y37J5G123456');
+    expect(vinTextSchema.parse('1M8GDM9A4KP042788')).toBe('1M8GDM9A4KP042788');
+  });
+
+  it('still wants letters and digits, at most 17', () => {
+    expect(issues(vinTextSchema.safeParse('AB*12'))).toEqual([
+      { message: 'A VIN has only letters and digits', path: '' },
+    ]);
+    expect(issues(vinTextSchema.safeParse('1M8GDM9AXKP0427881'))).toEqual([
+      { message: 'A VIN has 17 characters', path: '' },
+    ]);
+    expect(issues(vinTextSchema.safeParse('AB1'))).toEqual([
+      { message: 'A VIN has 17 characters', path: '' },
+    ]);
+  });
+});
+
+describe(addVinRuleIssues.name, () => {
+  const vehicleInputSchema = vehicleDetailsSchema.superRefine((vehicle, ctx) =>
+    addVinRuleIssues(vehicle, ctx),
+  );
   const valid = { vin: WORKED_EXAMPLE, year: 2019, make: 'Brightwell', model: 'Tern', odometer: 84_210 };
 
   it('accepts a vehicle whose year matches the VIN', () => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '../input/fields.js';
 
 // 49 CFR 565.15: transliterated values of VIN letters (digits count as themselves) and the
 // position weights for the check digit in position 9. I, O and Q are never used.
@@ -14,6 +15,8 @@ const VIN_CHARACTERS = /^[A-HJ-NPR-Z0-9]*$/;
 // the cycle repeats every 30 years. U, Z and 0 are not year codes.
 const YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789';
 const FIRST_VIN_YEAR = 1980;
+/** Miles or kilometres: beyond any working vehicle's odometer. */
+export const MAX_ODOMETER = 2_000_000;
 
 function characterValue(char: string): number | undefined {
   return /[0-9]/.test(char) ? Number(char) : LETTER_VALUES[char];
@@ -56,7 +59,7 @@ export function makeVin(prefix16WithoutCheck: string): string {
  * most recent year not later than next calendar year, since a shop mostly sees current vehicles. The
  * position-7 rule (a digit there for 1980–2009, a letter for 2010–2039) is not used: it binds only
  * light vehicles up to 10,000 lb GVWR (2008 amendment of Part 565, 73 FR 23367; scope from memory),
- * and the vehicle class cannot be told from the VIN here. `vehicleInputSchema` therefore accepts any
+ * and the vehicle class cannot be told from the VIN here. `addVinRuleIssues` therefore accepts any
  * year the code stands for.
  */
 export function modelYearFromVin(vin: string, now: Date = new Date()): number | null {
@@ -66,45 +69,101 @@ export function modelYearFromVin(vin: string, now: Date = new Date()): number | 
   return latest - ((((latest - FIRST_VIN_YEAR - index) % 30) + 30) % 30);
 }
 
-/** VIN text as typed: trimmed and upper-cased, then checked. */
+/** A VIN as pasted from a document or typed in groups: spaces and dashes dropped, upper-cased. */
+export function normalizeVin(text: string): string {
+  return text.replace(/[\s-]+/g, '').toUpperCase();
+}
+
+/**
+ * Any vehicle identification number the shop may meet: up to 17 letters and digits once spaces and
+ * dashes are gone. Vehicles built before 1981 and many outside North America carry such numbers
+ * without the check digit of 49 CFR 565; `vinSchema` is the full check.
+ */
+export const vinTextSchema = z
+  .string()
+  .max(40, 'A VIN has 17 characters')
+  .transform(normalizeVin)
+  .pipe(
+    z
+      .string()
+      .min(5, 'A VIN has 17 characters')
+      .max(17, 'A VIN has 17 characters')
+      .regex(/^[A-Z0-9]*$/, 'A VIN has only letters and digits'),
+  );
+
+function vinIssue(vin: string): string | null {
+  if (vin.length !== 17) return 'A VIN has 17 characters';
+  if (/[IOQ]/.test(vin)) return 'VINs never use I, O or Q';
+  if (!VIN_CHARACTERS.test(vin)) return 'A VIN has only letters and digits';
+  const expected = vinCheckDigit(vin);
+  return expected !== vin[8] ? `Check digit should be ${expected}, not ${vin[8]}` : null;
+}
+
+/** A 17-character VIN of 49 CFR 565 as typed: spaces and dashes dropped, upper-cased, check digit right. */
 export const vinSchema = z
   .string()
-  .trim()
-  .toUpperCase()
-  .length(17, 'A VIN has 17 characters')
-  .refine((vin) => !/[IOQ]/.test(vin), 'VINs never use I, O or Q')
-  .refine((vin) => VIN_CHARACTERS.test(vin.replace(/[IOQ]/g, '')), 'A VIN has only letters and digits')
+  .max(40, 'A VIN has 17 characters')
+  .transform(normalizeVin)
   .superRefine((vin, ctx) => {
-    const expected = vinCheckDigit(vin);
-    // Length and character problems are reported above; only a well-formed VIN gets a check-digit message.
-    if (expected !== null && VIN_CHARACTERS.test(vin) && expected !== vin[8]) {
-      ctx.addIssue({ code: 'custom', message: `Check digit should be ${expected}, not ${vin[8]}` });
-    }
+    const message = vinIssue(vin);
+    if (message) ctx.addIssue({ code: 'custom', message });
   });
 
-export const vehicleInputSchema = z
-  .object({
-    vin: vinSchema,
-    // 17-character VINs began with model year 1981.
-    year: z
-      .number()
-      .int()
-      .min(1981, 'Model years start at 1981 for 17-character VINs')
-      // Checked at parse time, not schema creation, so a long-running server rolls over with the year.
-      .refine((year) => year <= new Date().getFullYear() + 1, 'That model year is too far ahead'),
-    make: z.string().trim().min(1, 'Enter the make').max(40),
-    model: z.string().trim().min(1, 'Enter the model').max(60),
-    plate: z.string().trim().max(16).optional(),
-    odometer: z.number().int('Enter whole miles or kilometres').min(0, 'The odometer cannot be negative'),
-  })
-  .superRefine(({ vin, year }, ctx) => {
-    const latest = modelYearFromVin(vin);
-    if (latest === null || (latest - year) % 30 === 0) return;
-    const years = [latest, latest - 30].filter((y) => y >= FIRST_VIN_YEAR);
+// 17-character VINs began with model year 1981.
+const FIRST_17_CHARACTER_YEAR = 1981;
+const FIRST_MODEL_YEAR = 1900;
+
+/**
+ * A vehicle as the advisor describes it, before the VIN rules: an older or imported vehicle passes
+ * here and needs `addVinRuleIssues` waived by a reason.
+ */
+export const vehicleDetailsSchema = z.object({
+  vin: vinTextSchema,
+  year: z
+    .number()
+    .int()
+    .min(FIRST_MODEL_YEAR, `Model years start at ${FIRST_MODEL_YEAR}`)
+    // Checked at parse time, not schema creation, so a long-running server rolls over with the year.
+    .refine((year) => year <= new Date().getFullYear() + 1, 'That model year is too far ahead'),
+  make: plainText(40, { min: 1, message: 'Enter the make' }),
+  model: plainText(60, { min: 1, message: 'Enter the model' }),
+  plate: plainText(16).optional(),
+  odometer: z
+    .number()
+    .int('Enter whole miles or kilometres')
+    .min(0, 'The odometer cannot be negative')
+    .max(MAX_ODOMETER, 'More than 2,000,000 on the odometer: check the reading'),
+});
+
+/**
+ * The rules of a 1981-or-later North American VIN (49 CFR 565): 17 characters, the check digit, and a
+ * model year the 10th character stands for. Issues go to `path` + `vin` or `year`.
+ */
+export function addVinRuleIssues(
+  vehicle: { vin: unknown; year: unknown },
+  ctx: z.RefinementCtx,
+  path: PropertyKey[] = [],
+): void {
+  const { vin, year } = vehicle;
+  // Text that is no VIN at all was refused by `vinTextSchema` already.
+  if (typeof vin !== 'string' || !/^[A-Z0-9]{5,17}$/.test(vin)) return;
+  const message = vinIssue(vin);
+  if (message) ctx.addIssue({ code: 'custom', path: [...path, 'vin'], message });
+  if (typeof year !== 'number') return;
+  if (year < FIRST_17_CHARACTER_YEAR) {
     ctx.addIssue({
       code: 'custom',
-      path: ['year'],
-      message: `The VIN's 10th character (${vin[9]}) means model year ${years.join(' or ')}, not ${year}`,
+      path: [...path, 'year'],
+      message: `Model years start at ${FIRST_17_CHARACTER_YEAR} for 17-character VINs`,
     });
+    return;
+  }
+  const latest = message ? null : modelYearFromVin(vin);
+  if (latest === null || (latest - year) % 30 === 0) return;
+  const years = [latest, latest - 30].filter((y) => y >= FIRST_VIN_YEAR);
+  ctx.addIssue({
+    code: 'custom',
+    path: [...path, 'year'],
+    message: `The VIN's 10th character (${vin[9]}) means model year ${years.join(' or ')}, not ${year}`,
   });
-export type VehicleInput = z.infer<typeof vehicleInputSchema>;
+}

@@ -2,7 +2,10 @@ import type { BayState } from '../bays/bays.schema.js';
 import type { PersonStatus } from '../board/board.schema.js';
 import type { JobLineDto } from './work.schema.js';
 
-export interface DispatchLine extends Omit<JobLineDto, 'completedAt'> {
+export interface DispatchLine extends Omit<
+  JobLineDto,
+  'completedAt' | 'completedBy' | 'cause' | 'correction' | 'cancelReason'
+> {
   repairOrderNumber: string;
   vehicle: string;
   queuedAt: string;
@@ -14,6 +17,8 @@ export interface DispatchLine extends Omit<JobLineDto, 'completedAt'> {
    * shop's pace); null while held or when the shop has no opening hours.
    */
   forecast: { startAt: string; finishAt: string; late: boolean } | null;
+  /** Late by the one definition (`isLineLate`): what `lateCount`, the wall and the RO pages count. */
+  late: boolean;
 }
 
 export interface DispatchLane {
@@ -31,7 +36,8 @@ export interface DispatchBoard {
   serverTime: string;
   queue: DispatchLine[];
   lanes: DispatchLane[];
-  bays: { id: number; name: string; state: BayState }[];
+  /** Each bay with the RO it holds (being worked on, or parked for a final check or pick-up). */
+  bays: { id: number; name: string; state: BayState; repairOrderId: number | null }[];
   lateCount: number;
   /** Why there are no forecasts, in plain words; null when there are. */
   forecastNote: string | null;

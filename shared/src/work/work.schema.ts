@@ -1,8 +1,11 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
-import { vehicleInputSchema } from '../vehicles/vin.js';
+import { idSchema, instantSchema, plainText } from '../input/fields.js';
+import { phoneSchema } from '../input/phone.js';
+import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
 
-export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done'] as const;
+/** `cancelled`: taken off the RO with a reason after time was clocked on it; never flagged. */
+export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done', 'cancelled'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
 
 /**
@@ -12,26 +15,90 @@ export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
 export const SIGN_OFF_STATES = ['awaiting', 'signed'] as const;
 export type SignOffState = (typeof SIGN_OFF_STATES)[number];
 
+/** Statuses of a line nobody works on any more. */
+export const CLOSED_LINE_STATUSES = ['done', 'cancelled'] as const satisfies readonly JobLineStatus[];
+
+export function isOpenLine(line: { status: JobLineStatus }): boolean {
+  return !(CLOSED_LINE_STATUSES as readonly JobLineStatus[]).includes(line.status);
+}
+
 export const REPAIR_ORDER_STATUSES = ['open', 'done', 'closed'] as const;
 export type RepairOrderStatus = (typeof REPAIR_ORDER_STATUSES)[number];
+
+/**
+ * The one rule for an RO's status: `closed` once the vehicle was picked up; `done` when it has lines
+ * and none of them is open; `open` otherwise.
+ */
+export function repairOrderStatus(
+  lines: readonly { status: JobLineStatus }[],
+  closedAt: Date | string | null,
+): RepairOrderStatus {
+  if (closedAt !== null) return 'closed';
+  return lines.length > 0 && !lines.some(isOpenLine) ? 'done' : 'open';
+}
 
 export const PRIORITIES = ['low', 'normal', 'high', 'urgent'] as const;
 export type Priority = (typeof PRIORITIES)[number];
 
-export const jobLineInputSchema = z.object({
-  title: z.string().trim().min(1).max(120),
-  bookHours: z.number().min(0).max(99),
-  skillLevel: z.number().int().min(1).max(5).optional(),
+/** Book hours of a line: a tenth of an hour up to what one line can sensibly sell. */
+export const bookHoursSchema = z
+  .number({ error: 'Book hours is a number of hours, like 1.5' })
+  .min(0.1, 'Book hours is at least 0.1')
+  .max(99.9, 'Book hours is at most 99.9');
+const skillLevelSchema = z.number().int().min(1).max(5);
+const lineTitleSchema = plainText(120, { min: 1, message: 'Name the job' });
+/** The three Cs of a line: what the customer asked for, what the technician found, what was done. */
+const concernSchema = plainText(1000, {
+  min: 1,
+  multiline: true,
+  message: 'Say what the customer asked for',
 });
+const causeSchema = plainText(1000, { multiline: true });
+const correctionSchema = plainText(1000, { multiline: true });
+const reasonSchema = plainText(300, { min: 3, multiline: true, message: 'Say why' });
+
+export const jobLineInputSchema = z.object({
+  title: lineTitleSchema,
+  bookHours: bookHoursSchema,
+  skillLevel: skillLevelSchema.optional(),
+  /** The customer's words for this line; the RO's concern when left out. */
+  concern: concernSchema.optional(),
+});
+export type JobLineInput = z.infer<typeof jobLineInputSchema>;
+
+/** `PATCH /api/job-lines/:id/details`: the advisor corrects a line after the fact. */
+export const editJobLineSchema = z
+  .object({
+    title: lineTitleSchema,
+    bookHours: bookHoursSchema,
+    skillLevel: skillLevelSchema,
+    concern: concernSchema,
+    cause: causeSchema,
+    correction: correctionSchema,
+  })
+  .partial()
+  .strict();
+export type EditJobLineBody = z.infer<typeof editJobLineSchema>;
+
+/** A line with clocked time is never deleted: it is cancelled with a reason. */
+export const cancelJobLineSchema = z.object({ reason: reasonSchema });
+export type CancelJobLineBody = z.infer<typeof cancelJobLineSchema>;
+
+/** `PUT /api/repair-orders/:id/line-order`: every line of the RO, in the new order. */
+export const lineOrderSchema = z.object({
+  lineIds: z.array(idSchema).min(1).max(200),
+});
+export type LineOrderBody = z.infer<typeof lineOrderSchema>;
 
 export const patchJobLineSchema = z
   .object({
-    technicianId: z.number().int().positive().nullable(),
-    bayId: z.number().int().positive().nullable(),
+    technicianId: idSchema.nullable(),
+    bayId: idSchema.nullable(),
     priority: z.enum(PRIORITIES),
-    status: z.enum(JOB_LINE_STATUSES),
+    /** A line is cancelled only with a reason: `POST /api/job-lines/:id/cancel`. */
+    status: z.enum(JOB_LINE_STATUSES).exclude(['cancelled']),
     holdReason: z.enum(HOLD_REASONS),
-    completedAt: z.iso.datetime({ offset: true }),
+    completedAt: instantSchema,
   })
   .partial()
   .strict()
@@ -57,6 +124,13 @@ export interface JobLineDto {
   completedAt: string | null;
   /** Set when the line was done with too little clocked time: awaiting a sign-off, or signed off. */
   signOff?: SignOffState | null;
+  /** Who marked it done (a technician at the kiosk, or the foreman). */
+  completedBy: number | null;
+  concern: string;
+  cause: string | null;
+  correction: string | null;
+  /** Why it was cancelled; null unless cancelled. */
+  cancelReason: string | null;
 }
 
 /** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */
@@ -65,30 +139,75 @@ export type HoldLineBody = z.infer<typeof holdLineSchema>;
 
 /** After the last line in a bay is done the bay goes to a final check or straight to ready. */
 export const FINISH_NEXT = ['check', 'ready'] as const;
-export const finishLineSchema = z.object({ next: z.enum(FINISH_NEXT).default('check') });
+export const finishLineSchema = z.object({
+  next: z.enum(FINISH_NEXT).default('check'),
+  cause: causeSchema.optional(),
+  correction: correctionSchema.optional(),
+});
 export type FinishLineBody = z.infer<typeof finishLineSchema>;
+export type FinishLineFields = z.input<typeof finishLineSchema>;
 
 export const customerInputSchema = z.object({
-  name: z.string().trim().min(1, 'Enter the customer’s name').max(80),
-  phone: z.string().trim().max(30).optional(),
+  name: plainText(80, { min: 1, message: 'Enter the customer’s name' }),
+  phone: phoneSchema,
   email: z.email('Not an e-mail address').max(200).optional(),
 });
 
-export const createRepairOrderSchema = z.object({
-  customer: customerInputSchema,
-  vehicle: vehicleInputSchema,
-  concern: z.string().trim().min(1, 'Say what the customer asked for').max(1000),
-  promisedAt: z.iso.datetime({ offset: true }).optional(),
-  lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
-  /** Saving an odometer lower than the last visit needs a reason. */
-  odometerOverrideReason: z.string().trim().min(3).max(300).optional(),
-});
+export const createRepairOrderSchema = z
+  .object({
+    customer: customerInputSchema,
+    vehicle: vehicleDetailsSchema,
+    concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
+    promisedAt: instantSchema.optional(),
+    lines: z.array(jobLineInputSchema).min(1, 'Add at least one job line').max(30),
+    /** Saving an odometer lower than the last visit needs a reason. */
+    odometerOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
+    /** A VIN outside the 49 CFR 565 rules (built before 1981, or abroad) is saved with a reason. */
+    vinOverrideReason: plainText(300, { min: 3, multiline: true, message: 'Say why' }).optional(),
+  })
+  .superRefine((body, ctx) => {
+    if (!body.vinOverrideReason) addVinRuleIssues(body.vehicle, ctx, ['vehicle']);
+  });
 export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
+/**
+ * `PATCH /api/repair-orders/:id`: corrections after the fact, each audited with what it was. A
+ * promise of null takes the promise back.
+ */
+export const editRepairOrderSchema = z
+  .object({
+    customer: customerInputSchema.partial().strict(),
+    vehicle: vehicleDetailsSchema
+      .pick({ year: true, make: true, model: true, plate: true, odometer: true })
+      .partial()
+      .strict(),
+    concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
+    promisedAt: instantSchema.nullable(),
+  })
+  .partial()
+  .strict();
+export type EditRepairOrderBody = z.infer<typeof editRepairOrderSchema>;
+
+/** `POST /api/repair-orders/:id/lines`: a line added after the RO was written. */
+export const addJobLineSchema = jobLineInputSchema;
+export type AddJobLineBody = JobLineInput;
+
+/** `POST /api/bays/:id/final-check`: the road test or final look is done; the bay goes to ready. */
+export const finalCheckSchema = z.object({ note: plainText(500, { multiline: true }).optional() });
+export type FinalCheckBody = z.infer<typeof finalCheckSchema>;
+
+/** One event in an RO's history, in plain words, from the audit trail. */
+export interface RepairOrderHistoryEntry {
+  at: string;
+  actorName: string | null;
+  action: string;
+  text: string;
+}
+
 export const operationInputSchema = z.object({
-  title: z.string().trim().min(1).max(120),
-  defaultBookHours: z.number().min(0).max(99),
-  skillLevel: z.number().int().min(1).max(5).default(1),
+  title: lineTitleSchema,
+  defaultBookHours: bookHoursSchema,
+  skillLevel: skillLevelSchema.default(1),
 });
 export type OperationInput = z.infer<typeof operationInputSchema>;
 
@@ -99,9 +218,9 @@ export interface OperationDto extends OperationInput {
 
 export const updateOperationSchema = z
   .object({
-    title: z.string().trim().min(1).max(120),
-    defaultBookHours: z.number().min(0).max(99),
-    skillLevel: z.number().int().min(1).max(5),
+    title: lineTitleSchema,
+    defaultBookHours: bookHoursSchema,
+    skillLevel: skillLevelSchema,
     active: z.boolean(),
   })
   .partial()
@@ -126,6 +245,9 @@ export interface RepairOrderSummary {
   advisorName: string | null;
   promisedAt: string | null;
   createdAt: string;
-  /** Each line with the seconds everyone has clocked on it, split rule applied. */
-  lines: (JobLineDto & { clockedSeconds: number })[];
+  closedAt: string | null;
+  /** An open line of it is late: see `isLineLate`. */
+  late: boolean;
+  /** Each line with the seconds everyone has clocked on it, split rule applied, and whether it is late. */
+  lines: (JobLineDto & { clockedSeconds: number; late: boolean })[];
 }

@@ -1,9 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { FindingDto } from '@baytime/shared';
 import {
+  answeredText,
   groupAnswered,
+  linkStateText,
   parseHours,
   severityHeadline,
+  sentToText,
   sortPending,
   titleHint,
   waitedText,
@@ -22,17 +25,24 @@ function finding(id: number, extra: Partial<FindingDto> = {}): FindingDto {
     vehicle: '2019 Corvan Strata',
     customerName: 'Ada Finch',
     customerHasEmail: true,
+    customerHasMobile: true,
     technicianId: 4,
     technicianName: 'Dana Okafor',
     note: 'Metal flakes on the pan magnet',
     severity: 'soon',
     suggestedHours: 1.5,
+    customerWording: null,
+    bookHours: null,
+    partsCents: null,
+    priceCents: null,
     answer: 'pending',
+    answerChannel: null,
     answeredBy: null,
     answeredAt: null,
     answerNote: null,
     createdLineId: null,
     approvalRequestedAt: null,
+    approvalLink: null,
     createdAt: '2026-12-01T14:00:00Z',
     photos: [],
     ...extra,
@@ -40,6 +50,41 @@ function finding(id: number, extra: Partial<FindingDto> = {}): FindingDto {
 }
 
 describe('findings inbox model', () => {
+  it('says where a notice went, phones as a person reads them', () => {
+    const mail = { mailId: 1, to: 'ada@example.test', subject: 'x', attachments: [] };
+    const text = { textId: 2, to: '+16085550177' };
+    expect(sentToText({ mail, text })).toBe('by e-mail to ada@example.test and by text to (608) 555-0177');
+    expect(sentToText({ mail: null, text })).toBe('by text to (608) 555-0177');
+  });
+
+  it('says who answered and how', () => {
+    expect(
+      answeredText(finding(1, { answer: 'approved', answeredBy: 'Ada Finch', answerChannel: 'link' })),
+    ).toBe('Approved by Ada Finch through the approval link');
+    expect(
+      answeredText(finding(1, { answer: 'declined', answeredBy: 'Nell Ashby', answerChannel: 'in-person' })),
+    ).toBe('Declined by Nell Ashby in person');
+    expect(answeredText(finding(1, { answer: 'approved', answeredBy: 'Nell Ashby' }))).toBe(
+      'Approved by Nell Ashby',
+    );
+  });
+
+  it('says where the last link stands', () => {
+    const link = {
+      id: 3,
+      sentAt: 'sent',
+      expiresAt: 'until',
+      status: 'active' as const,
+      sentTo: ['ada@example.test', '+16085550177'],
+    };
+    const when = (iso: string) => `<${iso}>`;
+    expect(linkStateText(link, when)).toBe(
+      'Approval link sent <sent> to ada@example.test and (608) 555-0177; it works until <until>.',
+    );
+    expect(linkStateText({ ...link, status: 'revoked' }, when)).toMatch(/; it was withdrawn\.$/);
+    expect(linkStateText({ ...link, status: 'used' }, when)).toMatch(/; the customer answered through it\.$/);
+  });
+
   it('tags severities with the first words of the shared sentence', () => {
     expect(severityHeadline('safety-now')).toBe('A safety concern');
     expect(severityHeadline('soon')).toBe('Should be fixed soon');

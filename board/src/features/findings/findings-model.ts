@@ -1,4 +1,12 @@
-import { FINDING_SEVERITY_WORDS, type FindingDto, type FindingSeverity } from '@baytime/shared';
+import {
+  ANSWER_CHANNEL_WORDS,
+  FINDING_SEVERITY_WORDS,
+  formatPhone,
+  type ApprovalLinkDto,
+  type FindingDto,
+  type FindingSeverity,
+  type NoticesQueued,
+} from '@baytime/shared';
 
 const SEVERITY_RANK: Record<FindingSeverity, number> = { 'safety-now': 0, soon: 1, watch: 2 };
 
@@ -77,3 +85,37 @@ export function titleHint(note: string, max = 120): string {
   const space = cut.lastIndexOf(' ');
   return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
 }
+
+/** Where a notice went: "by e-mail to a@b.test and by text to (608) 555-0177". */
+export function sentToText(queued: NoticesQueued): string {
+  const ways = [
+    queued.mail && `by e-mail to ${queued.mail.to}`,
+    queued.text && `by text to ${formatPhone(queued.text.to)}`,
+  ].filter(Boolean);
+  return ways.length ? ways.join(' and ') : 'nowhere';
+}
+
+/** "Approved by Harriet Quenby through the approval link", "Declined by Nell Ashby by phone". */
+export function answeredText(finding: FindingDto): string {
+  const verb = finding.answer === 'approved' ? 'Approved' : 'Declined';
+  const by = finding.answeredBy ? ` by ${finding.answeredBy}` : '';
+  const how = finding.answerChannel ? ` ${ANSWER_CHANNEL_WORDS[finding.answerChannel]}` : '';
+  return `${verb}${by}${how}`;
+}
+
+/** Where the last approval link stands, in words for the advisor. */
+export function linkStateText(link: ApprovalLinkDto, formatWhen: (iso: string) => string): string {
+  const sent = `Approval link sent ${formatWhen(link.sentAt)} to ${link.sentTo.map(readableContact).join(' and ')}`;
+  switch (link.status) {
+    case 'active':
+      return `${sent}; it works until ${formatWhen(link.expiresAt)}.`;
+    case 'expired':
+      return `${sent}; it expired ${formatWhen(link.expiresAt)} without an answer.`;
+    case 'revoked':
+      return `${sent}; it was withdrawn.`;
+    case 'used':
+      return `${sent}; the customer answered through it.`;
+  }
+}
+
+const readableContact = (contact: string) => (contact.startsWith('+') ? formatPhone(contact) : contact);

@@ -1,18 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import type { OpeningHours } from '@baytime/shared';
+import type { KnownVehicle, OpeningHours } from '@baytime/shared';
 import {
+  PROMISE_PASSED,
   bookHoursTotal,
   clockText,
+  differsFromReturning,
   emptyDraft,
   formKey,
   lineFromOperation,
   matchOperations,
   parseHours,
   parseWhole,
-  previousVisit,
   promiseChoices,
   toRepairOrder,
   vinFacts,
+  vinNeedsReason,
+  withReturningCustomer,
   type IntakeDraft,
 } from './intake-form';
 
@@ -54,6 +57,9 @@ describe(vinFacts.name, () => {
   const now = new Date('2026-06-01T12:00:00Z');
   it('accepts a VIN whose check digit matches and reads its model year', () => {
     expect(vinFacts(VALID_VIN.toLowerCase(), now)).toMatchObject({ state: 'valid', year: 2019 });
+  });
+  it('takes a VIN pasted in groups with spaces and dashes', () => {
+    expect(vinFacts(' 1M8 GDM9A-XKP 042788 ', now)).toMatchObject({ state: 'valid', year: 2019 });
   });
   it('names the check digit it expected', () => {
     const wrong = `${VALID_VIN.slice(0, 8)}5${VALID_VIN.slice(9)}`;
@@ -100,10 +106,15 @@ describe(bookHoursTotal.name, () => {
 });
 
 describe(toRepairOrder.name, () => {
+  // Tuesday 1 December 2026, 6:00 AM in Chicago.
+  const NOW = new Date('2026-12-01T12:00:00Z');
+
   it('builds the body the server takes', () => {
     const { body, errors } = toRepairOrder(
       filled({ promisedDate: '2026-12-02', promisedTime: '17:30' }),
       ZONE,
+      {},
+      NOW,
     );
     expect(errors).toEqual({});
     expect(body).toMatchObject({
@@ -124,7 +135,7 @@ describe(toRepairOrder.name, () => {
       promisedDate: '2026-12-02',
       lines: [{ key: 'a', title: '', bookHours: 'one', skillLevel: '' }],
     });
-    const { body, errors } = toRepairOrder(draft, ZONE);
+    const { body, errors } = toRepairOrder(draft, ZONE, {}, NOW);
     expect(body).toBeNull();
     expect(errors).toMatchObject({
       'customer.name': 'Enter the customer’s name',
@@ -141,16 +152,64 @@ describe(toRepairOrder.name, () => {
   });
 
   it('checks the model year against the VIN', () => {
-    const { errors } = toRepairOrder(filled({ vehicle: { ...filled().vehicle, year: '2020' } }), ZONE);
+    const { errors } = toRepairOrder(
+      filled({ vehicle: { ...filled().vehicle, year: '2020' } }),
+      ZONE,
+      {},
+      NOW,
+    );
     expect(errors['vehicle.year']).toMatch(/means model year 2019/);
   });
 
   it('needs at least one line, and sends a reason for a lower odometer when given', () => {
-    expect(toRepairOrder(filled({ lines: [] }), ZONE).errors.lines).toBe('Add at least one job line');
-    expect(toRepairOrder(filled(), ZONE, 'Cluster replaced').body?.odometerOverrideReason).toBe(
-      'Cluster replaced',
+    expect(toRepairOrder(filled({ lines: [] }), ZONE, {}, NOW).errors.lines).toBe(
+      'Add at least one job line',
     );
-    expect(toRepairOrder(filled(), ZONE, 'x').errors.odometerOverrideReason).toBe('Say why, in a few words');
+    expect(
+      toRepairOrder(filled(), ZONE, { odometer: 'Cluster replaced' }, NOW).body?.odometerOverrideReason,
+    ).toBe('Cluster replaced');
+    expect(toRepairOrder(filled(), ZONE, { odometer: 'x' }, NOW).errors.odometerOverrideReason).toBe(
+      'Say why, in a few words',
+    );
+  });
+
+  it('refuses a promised time that has already passed', () => {
+    // 5:30 PM on 2 December in Chicago is 23:30 UTC (CST, UTC−6).
+    const promised = filled({ promisedDate: '2026-12-02', promisedTime: '17:30' });
+    expect(toRepairOrder(promised, ZONE, {}, new Date('2026-12-02T23:31:00Z'))).toEqual({
+      body: null,
+      errors: { promised: PROMISE_PASSED },
+    });
+    expect(toRepairOrder(promised, ZONE, {}, new Date('2026-12-02T23:29:00Z')).errors).toEqual({});
+  });
+
+  it('sends a VIN outside the rules with the reason given for it', () => {
+    const wrongCheck = filled({ vehicle: { ...filled().vehicle, vin: '1M8GDM9A4KP042788' } });
+    expect(toRepairOrder(wrongCheck, ZONE, {}, NOW).errors['vehicle.vin']).toBe(
+      'Check digit should be X, not 4',
+    );
+    expect(toRepairOrder(wrongCheck, ZONE, { vin: 'Imported' }, NOW).body).toMatchObject({
+      vehicle: { vin: '1M8GDM9A4KP042788' },
+      vinOverrideReason: 'Imported',
+    });
+  });
+});
+
+describe(vinNeedsReason.name, () => {
+  const NOW = new Date('2026-12-01T12:00:00Z');
+  const withVehicle = (vin: string, year: string) => filled({ vehicle: { ...filled().vehicle, vin, year } });
+
+  it('is true when only a check digit, the length or a pre-1981 year is wrong', () => {
+    // Position 9 of the 49 CFR 565.15 worked example changed from X to 4.
+    expect(vinNeedsReason(withVehicle('1M8GDM9A4KP042788', '2019'), ZONE, NOW)).toBe(true);
+    // An invented 13-character serial of a 1977 vehicle.
+    expect(vinNeedsReason(withVehicle('7Y37J5G123456', '1977'), ZONE, NOW)).toBe(true);
+  });
+
+  it('is false for a good VIN and for text that is no VIN at all', () => {
+    expect(vinNeedsReason(filled(), ZONE, NOW)).toBe(false);
+    expect(vinNeedsReason(withVehicle('AB*12', '2019'), ZONE, NOW)).toBe(false);
+    expect(vinNeedsReason(withVehicle('', '2019'), ZONE, NOW)).toBe(false);
   });
 });
 
@@ -186,36 +245,47 @@ describe(clockText.name, () => {
   });
 });
 
-describe(previousVisit.name, () => {
-  it('finds the latest repair order for the VIN', () => {
-    const orders = [
-      {
-        vin: VALID_VIN,
-        number: '4400',
-        customerName: 'A',
-        vehicle: 'v',
-        odometer: 70000,
-        createdAt: '2026-01-01T00:00:00Z',
-      },
-      {
-        vin: VALID_VIN,
-        number: '4450',
-        customerName: 'B',
-        vehicle: 'v',
-        odometer: 80000,
-        createdAt: '2026-06-01T00:00:00Z',
-      },
-      {
-        vin: 'OTHER',
-        number: '4460',
-        customerName: 'C',
-        vehicle: 'v',
-        odometer: 1,
-        createdAt: '2026-07-01T00:00:00Z',
-      },
-    ];
-    expect(previousVisit(orders, VALID_VIN.toLowerCase())).toMatchObject({ number: '4450', odometer: 80000 });
-    expect(previousVisit(orders, '1M8GDM9AXKP042789')).toBeNull();
+describe(withReturningCustomer.name, () => {
+  const known: KnownVehicle = {
+    id: 7,
+    vin: VALID_VIN,
+    year: 2019,
+    make: 'Halvard',
+    model: 'Morrow',
+    plate: '7KX 221',
+    lastOdometer: 61_200,
+    customer: { id: 3, name: 'Wendell Farrow', phone: '+16085550142', email: 'wendell@example.test' },
+    lastVisit: { repairOrderId: 9, number: '4450', date: '2026-06-01T15:00:00.000Z', odometer: 61_200 },
+  };
+
+  it('copies the name, phone (as a person reads it), e-mail and vehicle, and leaves the odometer to be read', () => {
+    const draft = filled({
+      customer: { name: '', phone: '', email: '' },
+      vehicle: { vin: VALID_VIN, year: '', make: '', model: '', plate: '', odometer: '64,950' },
+    });
+    const copied = withReturningCustomer(draft, known);
+    expect(copied.customer).toEqual({
+      name: 'Wendell Farrow',
+      phone: '(608) 555-0142',
+      email: 'wendell@example.test',
+    });
+    expect(copied.vehicle).toEqual({
+      vin: VALID_VIN,
+      year: '2019',
+      make: 'Halvard',
+      model: 'Morrow',
+      plate: '7KX 221',
+      odometer: '64,950',
+    });
+    expect(differsFromReturning(draft, known)).toBe(true);
+    expect(differsFromReturning(copied, known)).toBe(false);
+  });
+
+  it('leaves empty what the shop does not have', () => {
+    const bare = { ...known, plate: null, customer: { ...known.customer, phone: null, email: null } };
+    const copied = withReturningCustomer(filled(), bare);
+    expect(copied.customer).toEqual({ name: 'Wendell Farrow', phone: '', email: '' });
+    expect(copied.vehicle.plate).toBe('');
   });
 });
 

@@ -1,10 +1,13 @@
 import {
   createRepairOrderSchema,
+  formatPhone,
   modelYearFromVin,
+  normalizeVin,
   shopDayKey,
   shopLocalInstant,
   vinSchema,
   type CreateRepairOrderBody,
+  type KnownVehicle,
   type OpeningHours,
   type OperationDto,
 } from '@baytime/shared';
@@ -56,9 +59,9 @@ export interface VinFacts {
   year: number | null;
 }
 
-/** The VIN as the advisor types it, checked live (the same `vinSchema` the server uses). */
+/** The VIN as the advisor types or pastes it, checked live (the same `vinSchema` the server uses). */
 export function vinFacts(raw: string, now: Date = new Date()): VinFacts {
-  const vin = raw.trim().toUpperCase();
+  const vin = normalizeVin(raw);
   if (!vin) return { state: 'empty', message: null, year: null };
   if (/[IOQ]/.test(vin)) return { state: 'invalid', message: 'VINs never use I, O or Q', year: null };
   if (!/^[A-Z0-9]*$/.test(vin))
@@ -103,7 +106,7 @@ function friendlyMessage(
 ) {
   if (/^lines\.\d+\.title$/.test(key) && issue.code === 'too_small') return 'Give the line a title';
   if (/^lines\.\d+\.bookHours$/.test(key)) return 'Book hours are 0 to 99';
-  if (key === 'odometerOverrideReason') return 'Say why, in a few words';
+  if (key === 'odometerOverrideReason' || key === 'vinOverrideReason') return 'Say why, in a few words';
   if (key === 'lines' && issue.code === 'too_big') return 'At most 30 lines on one repair order';
   if (issue.code === 'too_big' && issue.origin === 'string')
     return `At most ${String(issue.maximum)} characters`;
@@ -115,11 +118,25 @@ export interface IntakeResult {
   errors: FieldErrors;
 }
 
+/** Reasons the advisor gave to save what the checks refused: a lower odometer, a VIN outside the rules. */
+export interface OverrideReasons {
+  odometer?: string;
+  vin?: string;
+}
+
+export const PROMISE_PASSED = 'That time has already passed: promise a later one';
+
 /**
  * The form's text to the request body, checked by the same schema as the server. Error keys are the
- * body's paths ("vehicle.vin", "lines.0.bookHours"), plus "promised" for the date and time pair.
+ * body's paths ("vehicle.vin", "lines.0.bookHours"), plus "promised" for the date and time pair. A
+ * promise already past is refused, as the server does.
  */
-export function toRepairOrder(draft: IntakeDraft, timeZone: string, overrideReason?: string): IntakeResult {
+export function toRepairOrder(
+  draft: IntakeDraft,
+  timeZone: string,
+  reasons: OverrideReasons = {},
+  now: Date = new Date(),
+): IntakeResult {
   const errors: FieldErrors = {};
   const year = parseWhole(draft.vehicle.year);
   const odometer = parseWhole(draft.vehicle.odometer);
@@ -132,6 +149,7 @@ export function toRepairOrder(draft: IntakeDraft, timeZone: string, overrideReas
   const promisedAt = promised?.toISOString();
   if (!promised && (draft.promisedDate.trim() || draft.promisedTime.trim()))
     errors.promised = draft.promisedDate.trim() ? 'Pick a time too' : 'Pick a date too';
+  else if (promised && promised <= now) errors.promised = PROMISE_PASSED;
 
   const lines = draft.lines.map((line, index) => {
     const hours = parseHours(line.bookHours);
@@ -161,7 +179,8 @@ export function toRepairOrder(draft: IntakeDraft, timeZone: string, overrideReas
     concern: draft.concern,
     promisedAt,
     lines,
-    odometerOverrideReason: overrideReason,
+    odometerOverrideReason: reasons.odometer,
+    vinOverrideReason: reasons.vin,
   };
   const parsed = createRepairOrderSchema.safeParse(candidate);
   if (!parsed.success)
@@ -177,6 +196,18 @@ export function toRepairOrder(draft: IntakeDraft, timeZone: string, overrideReas
 export function promisedInstant(date: string, time: string, timeZone: string): Date | null {
   if (!/^\d{4}-\d{2}-\d{2}$/.test(date.trim()) || !/^\d{2}:\d{2}$/.test(time.trim())) return null;
   return shopLocalInstant(date.trim(), time.trim(), timeZone);
+}
+
+/**
+ * Whether what is wrong with the VIN is only what a reason can waive (a check digit, a length other
+ * than 17, a model year before 1981), as for a vehicle built abroad or before 1981.
+ */
+export function vinNeedsReason(draft: IntakeDraft, timeZone: string, now: Date = new Date()): boolean {
+  const vinErrors = (errors: FieldErrors) => Boolean(errors['vehicle.vin'] ?? errors['vehicle.year']);
+  return (
+    vinErrors(toRepairOrder(draft, timeZone, {}, now).errors) &&
+    !vinErrors(toRepairOrder(draft, timeZone, { vin: 'A reason' }, now).errors)
+  );
 }
 
 /** A server field path to the form's key: the same, except the promised time lives in two inputs. */
@@ -230,40 +261,31 @@ export function promiseChoices(openingHours: OpeningHours, timeZone: string, now
   return choices;
 }
 
-export interface PreviousVisit {
-  number: string;
-  customerName: string;
-  vehicle: string;
-  odometer: number;
-  createdAt: string;
+/**
+ * The returning customer's details copied into the form: name, phone and e-mail, and the vehicle as
+ * the shop knows it. The odometer is left to read off the dash.
+ */
+export function withReturningCustomer(draft: IntakeDraft, known: KnownVehicle): IntakeDraft {
+  return {
+    ...draft,
+    customer: {
+      name: known.customer.name,
+      phone: known.customer.phone ? formatPhone(known.customer.phone) : '',
+      email: known.customer.email ?? '',
+    },
+    vehicle: {
+      ...draft.vehicle,
+      year: String(known.year),
+      make: known.make,
+      model: known.model,
+      plate: known.plate ?? '',
+    },
+  };
 }
 
-/** The latest repair order for this VIN, if the shop has seen the vehicle before. */
-export function previousVisit(
-  orders: readonly {
-    vin?: string;
-    number: string;
-    customerName: string;
-    vehicle: string;
-    odometer?: number;
-    createdAt?: string;
-  }[],
-  vin: string,
-): PreviousVisit | null {
-  const wanted = vin.trim().toUpperCase();
-  let best: PreviousVisit | null = null;
-  for (const ro of orders) {
-    if (ro.vin !== wanted || ro.odometer === undefined || !ro.createdAt) continue;
-    if (!best || ro.createdAt > best.createdAt)
-      best = {
-        number: ro.number,
-        customerName: ro.customerName,
-        vehicle: ro.vehicle,
-        odometer: ro.odometer,
-        createdAt: ro.createdAt,
-      };
-  }
-  return best;
+/** Whether copying the returning customer's details would change the form. */
+export function differsFromReturning(draft: IntakeDraft, known: KnownVehicle): boolean {
+  return JSON.stringify(withReturningCustomer(draft, known)) !== JSON.stringify(draft);
 }
 
 /** Filling a line from the shop's menu of operations. */

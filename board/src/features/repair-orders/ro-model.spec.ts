@@ -1,28 +1,28 @@
 import { describe, expect, it } from 'vitest';
-import type { DispatchBoard, DispatchLine, FindingDto, JobLineDto } from '@baytime/shared';
+import type { DispatchBoard, DispatchLine, JobLineDto } from '@baytime/shared';
 import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
-  advisorsOf,
-  filterRepairOrders,
+  advisorChoices,
   filtersFromParams,
   filtersToParams,
-  isLate,
-  isPromisedToday,
-  lateLineIds,
+  listQuery,
+  pageRange,
   lineRows,
   lineStatusText,
-  repairOrderHistory,
 } from './ro-model';
 
-const ZONE = 'America/Chicago';
-const NOW = Date.parse('2026-12-01T20:00:00.000Z'); // Tue 2:00 PM in Chicago
-
 function jobLine(
-  overrides: Partial<JobLineDto & { clockedSeconds: number }> = {},
-): JobLineDto & { clockedSeconds: number } {
+  overrides: Partial<JobLineDto & { clockedSeconds: number; late: boolean }> = {},
+): JobLineDto & { clockedSeconds: number; late: boolean } {
   return {
     clockedSeconds: 0,
+    late: false,
+    completedBy: null,
+    concern: 'Customer asks for a thermostat',
+    cause: null,
+    correction: null,
+    cancelReason: null,
     id: 1,
     repairOrderId: 1,
     lineNo: 1,
@@ -57,6 +57,8 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     status: 'open',
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
+    closedAt: null,
+    late: false,
     lines: [jobLine()],
     ...overrides,
   };
@@ -87,61 +89,30 @@ function dispatch(lines: DispatchLine[]): DispatchBoard {
         finishAt: null,
       },
     ],
-    bays: [{ id: 2, name: 'Bay 2', state: 'working' }],
+    bays: [{ id: 2, name: 'Bay 2', state: 'working', repairOrderId: 1 }],
     lateCount: 0,
     forecastNote: null,
   };
 }
 
-describe(isPromisedToday.name, () => {
-  it('compares shop days, not UTC days', () => {
-    // 03:30 UTC on the 2nd is 9:30 PM on the 1st in Chicago: still today.
-    expect(isPromisedToday({ promisedAt: '2026-12-02T03:30:00.000Z' }, NOW, ZONE)).toBe(true);
-    expect(isPromisedToday({ promisedAt: '2026-12-02T06:30:00.000Z' }, NOW, ZONE)).toBe(false);
-    expect(isPromisedToday({ promisedAt: null }, NOW, ZONE)).toBe(false);
+describe(listQuery.name, () => {
+  it('asks the server for the filters on the page, and the page', () => {
+    expect(listQuery(DEFAULT_FILTERS, { limit: 50 })).toBe('limit=50&status=open');
+    expect(
+      listQuery(
+        { status: 'all', advisor: '3', promisedToday: true, late: true, search: '  wendell farrow ' },
+        { limit: 50, cursor: 'MTcwMC4xMg' },
+      ),
+    ).toBe('limit=50&q=wendell+farrow&advisorId=3&promised=today&late=true&cursor=MTcwMC4xMg');
   });
 });
 
-describe(isLate.name, () => {
-  it('is late past the promise or with a line forecast late, and only while open', () => {
-    const past = ro({ promisedAt: '2026-12-01T19:00:00.000Z' });
-    expect(isLate(past, NOW, new Set())).toBe(true);
-    expect(isLate({ ...past, status: 'done' }, NOW, new Set())).toBe(false);
-    const future = ro({ promisedAt: '2026-12-01T23:00:00.000Z' });
-    expect(isLate(future, NOW, new Set())).toBe(false);
-    expect(isLate(future, NOW, new Set([1]))).toBe(true);
-  });
-});
-
-describe(lateLineIds.name, () => {
-  it('collects the lines forecast late', () => {
-    const board = dispatch([
-      dispatchLine({ id: 7, forecast: { startAt: 'a', finishAt: 'b', late: true } }),
-      dispatchLine({ id: 8, forecast: { startAt: 'a', finishAt: 'b', late: false } }),
-    ]);
-    expect([...lateLineIds(board)]).toEqual([7]);
-    expect(lateLineIds(undefined).size).toBe(0);
-  });
-});
-
-describe(filterRepairOrders.name, () => {
-  const list = [
-    ro({ id: 1, number: '4521', advisorId: 3, advisorName: 'Nell Ashby' }),
-    ro({ id: 2, number: '4522', customerName: 'Abel Moncrief', status: 'done', advisorId: 2 }),
-    ro({ id: 3, number: '4523', promisedAt: '2026-12-01T22:00:00.000Z', vin: '7CV4AL2E1KM100123' }),
-  ];
-  const context = { nowMs: NOW, timeZone: ZONE, lateLines: new Set<number>() };
-
-  it('filters by status, advisor, promise day and search words', () => {
-    const ids = (filters: Partial<typeof DEFAULT_FILTERS>) =>
-      filterRepairOrders(list, { ...DEFAULT_FILTERS, ...filters }, context).map((r) => r.id);
-    expect(ids({ status: 'all' })).toEqual([1, 2, 3]);
-    expect(ids({})).toEqual([1, 3]);
-    expect(ids({ status: 'all', advisor: '3' })).toEqual([1]);
-    expect(ids({ promisedToday: true })).toEqual([3]);
-    expect(ids({ status: 'all', search: 'abel 4522' })).toEqual([2]);
-    expect(ids({ status: 'all', search: '7cv4al' })).toEqual([3]);
-    expect(ids({ late: true })).toEqual([]);
+describe(pageRange.name, () => {
+  it('counts from one across pages', () => {
+    expect(pageRange(0, 50, 50, 240)).toBe('1–50 of 240');
+    expect(pageRange(4, 50, 40, 240)).toBe('201–240 of 240');
+    expect(pageRange(20, 50, 50, 10_000)).toBe('1,001–1,050 of 10,000');
+    expect(pageRange(0, 50, 0, 0)).toBe('No repair orders');
   });
 });
 
@@ -160,18 +131,19 @@ describe(filtersFromParams.name, () => {
   });
 });
 
-describe(advisorsOf.name, () => {
-  it('lists each named advisor once, by name', () => {
-    const list = [
-      ro({ advisorId: 3, advisorName: 'Nell Ashby' }),
-      ro({ advisorId: 1, advisorName: 'Rosa Pellman' }),
-      ro({ advisorId: 3, advisorName: 'Nell Ashby' }),
-      ro({}),
-    ];
-    expect(advisorsOf(list)).toEqual([
+describe(advisorChoices.name, () => {
+  it('lists the people who write ROs, by name, or only "Mine" when the people cannot be read', () => {
+    const people = [
+      { id: 3, name: 'Nell Ashby', role: 'advisor', active: true },
+      { id: 1, name: 'Rosa Pellman', role: 'owner', active: true },
+      { id: 7, name: 'Dana Okafor', role: 'technician', active: true },
+      { id: 9, name: 'Abel Moncrief', role: 'advisor', active: false },
+    ] as const;
+    expect(advisorChoices(people, { id: 3 })).toEqual([
       { id: '3', name: 'Nell Ashby' },
       { id: '1', name: 'Rosa Pellman' },
     ]);
+    expect(advisorChoices(undefined, { id: 3 })).toEqual([{ id: '3', name: 'Mine' }]);
   });
 });
 
@@ -206,30 +178,5 @@ describe(lineRows.name, () => {
     expect(rows.map((r) => r.line.lineNo)).toEqual([1, 2]);
     expect(rows[0]).toMatchObject({ technician: 'Technician #99', clockedSeconds: 0 });
     expect(rows[1]?.clockedSeconds).toBe(4000);
-  });
-});
-
-describe(repairOrderHistory.name, () => {
-  it('lists what happened, newest first', () => {
-    const finding = {
-      lineNo: 1,
-      technicianName: 'Dana Okafor',
-      createdAt: '2026-12-01T16:00:00.000Z',
-      approvalRequestedAt: '2026-12-01T16:10:00.000Z',
-      answeredAt: '2026-12-01T17:00:00.000Z',
-      answer: 'approved',
-      answeredBy: 'Nell Ashby',
-    } as FindingDto;
-    const history = repairOrderHistory(
-      ro({ lines: [jobLine({ status: 'done', completedAt: '2026-12-01T18:00:00.000Z' })] }),
-      [finding],
-    );
-    expect(history.map((entry) => entry.text)).toEqual([
-      'L1 Replace thermostat and housing done',
-      'Finding on L1 approved by Nell Ashby',
-      "Approval for L1's finding e-mailed",
-      'Dana Okafor reported a finding on L1',
-      'Repair order written',
-    ]);
   });
 });

@@ -1,11 +1,11 @@
 import {
   HOLD_REASON_LABELS,
-  shopDayKey,
   type DispatchBoard,
   type DispatchLine,
   type FindingDto,
   type JobLineDto,
   type RepairOrderStatus,
+  type UserDto,
 } from '@baytime/shared';
 import type { RepairOrderSummary } from './api/get-repair-orders';
 
@@ -57,71 +57,46 @@ export function statusForServer(filter: StatusFilter): RepairOrderStatus | undef
   return filter === 'all' ? undefined : filter;
 }
 
-export function isPromisedToday(
-  ro: Pick<RepairOrderSummary, 'promisedAt'>,
-  nowMs: number,
-  timeZone: string,
-): boolean {
-  return (
-    ro.promisedAt !== null &&
-    shopDayKey(new Date(ro.promisedAt), timeZone) === shopDayKey(new Date(nowMs), timeZone)
-  );
-}
-
-/** Ids of open lines forecast to finish after their promised time. */
-export function lateLineIds(dispatch: DispatchBoard | undefined): Set<number> {
-  const ids = new Set<number>();
-  if (!dispatch) return ids;
-  for (const lane of dispatch.lanes) for (const line of lane.lines) if (line.forecast?.late) ids.add(line.id);
-  return ids;
-}
-
-/** An open RO past its promised time, or with a line forecast to miss it. */
-export function isLate(
-  ro: Pick<RepairOrderSummary, 'status' | 'promisedAt' | 'lines'>,
-  nowMs: number,
-  lateLines: ReadonlySet<number>,
-): boolean {
-  if (ro.status !== 'open') return false;
-  if (ro.promisedAt !== null && Date.parse(ro.promisedAt) < nowMs) return true;
-  return ro.lines.some((line) => lateLines.has(line.id));
-}
-
-export interface FilterContext {
-  nowMs: number;
-  timeZone: string;
-  lateLines: ReadonlySet<number>;
-}
-
-export function filterRepairOrders(
-  list: readonly RepairOrderSummary[],
+/** The list's query for the server: the filters as the page holds them, and which page. */
+export function listQuery(
   filters: RepairOrderFilters,
-  context: FilterContext,
-): RepairOrderSummary[] {
-  const words = filters.search.trim().toLowerCase().split(/\s+/).filter(Boolean);
-  return list.filter((ro) => {
-    if (filters.status !== 'all' && ro.status !== filters.status) return false;
-    if (filters.advisor && String(ro.advisorId ?? '') !== filters.advisor) return false;
-    if (filters.promisedToday && !isPromisedToday(ro, context.nowMs, context.timeZone)) return false;
-    if (filters.late && !isLate(ro, context.nowMs, context.lateLines)) return false;
-    if (words.length) {
-      const text = [ro.number, ro.customerName, ro.vehicle, ro.vin, ro.plate ?? ''].join(' ').toLowerCase();
-      if (!words.every((word) => text.includes(word))) return false;
-    }
-    return true;
-  });
+  page: { limit: number; cursor?: string | undefined },
+): string {
+  const query = new URLSearchParams({ limit: String(page.limit) });
+  const status = statusForServer(filters.status);
+  if (status) query.set('status', status);
+  const q = filters.search.trim();
+  if (q) query.set('q', q);
+  if (filters.advisor) query.set('advisorId', filters.advisor);
+  if (filters.promisedToday) query.set('promised', 'today');
+  if (filters.late) query.set('late', 'true');
+  if (page.cursor) query.set('cursor', page.cursor);
+  return query.toString();
 }
 
-/** The advisors who wrote the listed ROs, when the server names them. */
-export function advisorsOf(list: readonly RepairOrderSummary[]): { id: string; name: string }[] {
-  const found = new Map<string, string>();
-  for (const ro of list)
-    if (ro.advisorId != null && ro.advisorName) found.set(String(ro.advisorId), ro.advisorName);
-  return [...found].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
+/** "51–100 of 240" for the second page of 50; "No repair orders" when there are none. */
+export function pageRange(pageIndex: number, limit: number, shown: number, total: number): string {
+  if (total === 0 || shown === 0) return 'No repair orders';
+  const first = pageIndex * limit + 1;
+  return `${first.toLocaleString('en-US')}–${(first + shown - 1).toLocaleString('en-US')} of ${total.toLocaleString('en-US')}`;
+}
+
+/** People who write repair orders, by name, for the advisor filter. */
+export function advisorChoices(
+  users: readonly Pick<UserDto, 'id' | 'name' | 'role' | 'active'>[] | undefined,
+  me: { id: number },
+): { id: string; name: string }[] {
+  if (!users) return [{ id: String(me.id), name: 'Mine' }];
+  return users
+    .filter(
+      (user) => user.active && (user.role === 'advisor' || user.role === 'foreman' || user.role === 'owner'),
+    )
+    .map((user) => ({ id: String(user.id), name: user.name }))
+    .sort((a, b) => a.name.localeCompare(b.name));
 }
 
 export interface LineRow {
-  line: JobLineDto;
+  line: RepairOrderSummary['lines'][number];
   statusText: string;
   technician: string | null;
   bay: string | null;
@@ -131,7 +106,13 @@ export interface LineRow {
   forecast: DispatchLine['forecast'];
 }
 
-const STATUS_WORDS = { queued: 'Waiting', working: 'Working', held: 'Held', done: 'Done' } as const;
+const STATUS_WORDS = {
+  queued: 'Waiting',
+  working: 'Working',
+  held: 'Held',
+  done: 'Done',
+  cancelled: 'Cancelled',
+} as const;
 
 export function lineStatusText(line: Pick<JobLineDto, 'status' | 'holdReason'>): string {
   return line.status === 'held' && line.holdReason
@@ -173,38 +154,4 @@ export function lineRows(
         forecast: live?.forecast ?? null,
       };
     });
-}
-
-export interface HistoryEntry {
-  at: string;
-  text: string;
-}
-
-/** What happened to the RO, from the times it and its findings carry; newest first. */
-export function repairOrderHistory(
-  ro: Pick<RepairOrderSummary, 'createdAt' | 'lines' | 'advisorName'>,
-  findings: readonly FindingDto[],
-): HistoryEntry[] {
-  const entries: HistoryEntry[] = [
-    { at: ro.createdAt, text: ro.advisorName ? `Written by ${ro.advisorName}` : 'Repair order written' },
-  ];
-  for (const line of ro.lines)
-    if (line.completedAt) entries.push({ at: line.completedAt, text: `L${line.lineNo} ${line.title} done` });
-  for (const finding of findings) {
-    entries.push({
-      at: finding.createdAt,
-      text: `${finding.technicianName} reported a finding on L${finding.lineNo}`,
-    });
-    if (finding.approvalRequestedAt)
-      entries.push({
-        at: finding.approvalRequestedAt,
-        text: `Approval for L${finding.lineNo}'s finding e-mailed`,
-      });
-    if (finding.answeredAt && finding.answer !== 'pending')
-      entries.push({
-        at: finding.answeredAt,
-        text: `Finding on L${finding.lineNo} ${finding.answer}${finding.answeredBy ? ` by ${finding.answeredBy}` : ''}`,
-      });
-  }
-  return entries.sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
 }

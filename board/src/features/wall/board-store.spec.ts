@@ -86,7 +86,7 @@ describe(applyEvent.name, () => {
     ];
     const result = applyEvent(
       start(),
-      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2 },
+      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2, bayIds: [1, 2] },
       local,
     );
     expect(result.board?.snapshot.people).toEqual(people);
@@ -99,8 +99,34 @@ describe(applyEvent.name, () => {
     expect(result.resync).toBe(false);
   });
 
-  it('asks for a snapshot for a bay it does not know or when it has none', () => {
-    expect(applyEvent(start(), { type: 'bay.updated', seq: 11, bay: bay(9) }, local).resync).toBe(true);
+  it('places a new bay where the floor update that follows puts it', () => {
+    const added = applyEvent(start(), { type: 'bay.updated', seq: 11, bay: bay(9) }, local);
+    expect(added.resync).toBe(false);
+    const placed = applyEvent(
+      added.board,
+      { type: 'floor.updated', seq: 12, people: [], queue: [], lateLines: 0, bayIds: [9, 1, 2] },
+      local,
+    );
+    expect(placed.board?.snapshot.bays.map((b) => b.id)).toEqual([9, 1, 2]);
+  });
+
+  it('drops a retired bay and reorders the rest on a floor update', () => {
+    const result = applyEvent(
+      start(),
+      { type: 'floor.updated', seq: 11, people: [], queue: [], lateLines: 0, bayIds: [2] },
+      local,
+    );
+    expect(result.board?.snapshot.bays.map((b) => b.id)).toEqual([2]);
+    expect(result.resync).toBe(false);
+  });
+
+  it('asks for a snapshot for an order naming a bay it does not know, or when it has none', () => {
+    const unknown = applyEvent(
+      start(),
+      { type: 'floor.updated', seq: 11, people: [], queue: [], lateLines: 0, bayIds: [1, 2, 9] },
+      local,
+    );
+    expect(unknown).toMatchObject({ resync: true, board: { seq: 10 } });
     expect(applyEvent(null, { type: 'other', seq: 1 }, local)).toEqual({ board: null, resync: true });
   });
 

@@ -18,7 +18,14 @@ export interface BoardData {
 
 export type BoardEvent =
   | { type: 'bay.updated'; seq: number; bay: BoardBay }
-  | { type: 'floor.updated'; seq: number; people: BoardPerson[]; queue: BoardQueueItem[]; lateLines: number }
+  | {
+      type: 'floor.updated';
+      seq: number;
+      people: BoardPerson[];
+      queue: BoardQueueItem[];
+      lateLines: number;
+      bayIds: number[];
+    }
   /** A sequenced event that does not change what the board shows by itself (punch, job line, …). */
   | { type: 'other'; seq: number };
 
@@ -50,10 +57,9 @@ export function applyEvent(
   switch (event.type) {
     case 'bay.updated': {
       const index = board.snapshot.bays.findIndex((bay) => bay.id === event.bay.id);
-      // A bay the board has never seen has no place in the grid yet: the snapshot brings its position.
-      if (index < 0) return { board, resync: true };
+      // A new bay goes last for now: the `floor.updated` that follows puts it in its place.
       const bays = board.snapshot.bays.slice();
-      bays[index] = event.bay;
+      bays.splice(index < 0 ? bays.length : index, index < 0 ? 0 : 1, event.bay);
       return {
         board: {
           ...board,
@@ -65,13 +71,17 @@ export function applyEvent(
         resync: false,
       };
     }
-    case 'floor.updated':
+    case 'floor.updated': {
+      const known = new Map(board.snapshot.bays.map((bay) => [bay.id, bay]));
+      // A bay in the order that the board never heard of: only a snapshot can show it.
+      if (event.bayIds.some((id) => !known.has(id))) return { board, resync: true };
       return {
         board: {
           ...board,
           seq: event.seq,
           snapshot: {
             ...board.snapshot,
+            bays: event.bayIds.map((id) => known.get(id)!),
             people: event.people,
             queue: event.queue,
             lateLines: event.lateLines,
@@ -79,6 +89,7 @@ export function applyEvent(
         },
         resync: false,
       };
+    }
     case 'other':
       return { board: { ...board, seq: event.seq }, resync: false };
   }

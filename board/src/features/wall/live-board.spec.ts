@@ -1,46 +1,48 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { BoardSnapshot } from '@baytime/shared';
-import { createLiveBoard, type LiveBoardOptions } from './live-board';
+import { liveRefusal, type BoardSnapshot } from '@baytime/shared';
+import type { LinkState, LiveLink } from '@baytime/shared/client';
+import { createLiveBoard } from './live-board';
 
-type Handler = (...args: unknown[]) => void;
+type Handler = (payload: never) => void;
 
-/** Just enough of a socket.io client socket: the test plays the server. */
-class FakeSocket {
-  connected = false;
-  active = true;
-  connects = 0;
+/** A live link the test drives: it plays the server and the connection. */
+class FakeLink implements LiveLink {
+  state: LinkState = { status: 'connecting', downSince: 0, refusal: null };
   handlers = new Map<string, Set<Handler>>();
-  snapshotRequests: ((error: Error | null, snapshot: BoardSnapshot) => void)[] = [];
+  reconnectListeners = new Set<() => void>();
+  stateListeners = new Set<() => void>();
+  requests: ((snapshot: BoardSnapshot | null) => void)[] = [];
 
   on(event: string, handler: Handler) {
     if (!this.handlers.has(event)) this.handlers.set(event, new Set());
     this.handlers.get(event)?.add(handler);
-    return this;
+    return () => void this.handlers.get(event)?.delete(handler);
   }
-  off(event: string, handler: Handler) {
-    this.handlers.get(event)?.delete(handler);
-    return this;
+  onReconnect(listener: () => void) {
+    this.reconnectListeners.add(listener);
+    return () => void this.reconnectListeners.delete(listener);
   }
-  connect() {
-    this.connects += 1;
-    return this;
+  getState = () => this.state;
+  subscribe(listener: () => void) {
+    this.stateListeners.add(listener);
+    return () => void this.stateListeners.delete(listener);
   }
-  disconnect() {
-    this.connected = false;
-    return this;
+  requestSnapshot() {
+    return new Promise<BoardSnapshot | null>((resolve) => this.requests.push(resolve));
   }
-  timeout() {
-    return {
-      emit: (_event: string, ack: (error: Error | null, snapshot: BoardSnapshot) => void) => {
-        this.snapshotRequests.push(ack);
-      },
-    };
+  start() {}
+  close() {}
+
+  serve(event: string, payload: unknown) {
+    for (const handler of this.handlers.get(event) ?? []) handler(payload as never);
   }
-  /** The server sends an event. */
-  serve(event: string, ...args: unknown[]) {
-    if (event === 'connect') this.connected = true;
-    if (event === 'disconnect') this.connected = false;
-    for (const handler of this.handlers.get(event) ?? []) handler(...args);
+  become(patch: Partial<LinkState>) {
+    this.state = { ...this.state, ...patch };
+    for (const listener of this.stateListeners) listener();
+  }
+  reconnect() {
+    this.become({ status: 'live', downSince: null });
+    for (const listener of this.reconnectListeners) listener();
   }
 }
 
@@ -71,100 +73,81 @@ const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot =>
 });
 
 describe(createLiveBoard.name, () => {
-  let socket: FakeSocket;
-  let onUnauthorized: ReturnType<typeof vi.fn<() => void>>;
-  const make = (extra: Partial<LiveBoardOptions> = {}) =>
-    createLiveBoard({
-      socket: socket as unknown as LiveBoardOptions['socket'],
-      onUnauthorized,
-      now: () => Date.parse('2026-03-02T15:00:00.000Z'),
-      ...extra,
-    });
+  let link: FakeLink;
+  const make = () => createLiveBoard({ link, now: () => Date.parse('2026-03-02T15:00:00.000Z') });
 
   beforeEach(() => {
     vi.useFakeTimers();
-    socket = new FakeSocket();
-    onUnauthorized = vi.fn<() => void>();
+    link = new FakeLink();
   });
   afterEach(() => vi.useRealTimers());
 
-  it('connects on start, goes live and takes the snapshot the server sends', () => {
+  it('takes the snapshot the server sends on connect and follows the link', () => {
     const sut = make();
     sut.start();
-    expect(socket.connects).toBe(1);
-    socket.serve('connect');
-    socket.serve('board.snapshot', snap(5));
+    expect(sut.getState()).toMatchObject({ link: 'connecting', board: null });
+    link.become({ status: 'live', downSince: null });
+    link.serve('board.snapshot', snap(5));
     expect(sut.getState().link).toBe('live');
     expect(sut.getState().board?.seq).toBe(5);
-    expect(socket.snapshotRequests).toHaveLength(0);
+    expect(link.requests).toHaveLength(0);
   });
 
-  it('applies events in order and asks for a snapshot after a gap', () => {
+  it('applies events in order and asks for a snapshot after a gap', async () => {
     const sut = make();
     sut.start();
-    socket.serve('connect');
-    socket.serve('board.snapshot', snap(5));
-    socket.serve('bay.updated', { seq: 6, bay: { ...snap(0, 'working').bays[0] } });
+    link.become({ status: 'live', downSince: null });
+    link.serve('board.snapshot', snap(5));
+    link.serve('bay.updated', { seq: 6, bay: { ...snap(0, 'working').bays[0] } });
     expect(sut.getState().board?.snapshot.bays[0]?.state).toBe('working');
-    socket.serve('punch.recorded', { seq: 7, punch: {} });
+    link.serve('punch.recorded', { seq: 7, punch: {} });
     expect(sut.getState().board?.seq).toBe(7);
-    socket.serve('bay.updated', { seq: 9, bay: { ...snap(0).bays[0] } });
+    link.serve('bay.updated', { seq: 9, bay: { ...snap(0).bays[0] } });
     expect(sut.getState().board?.snapshot.bays[0]?.state).toBe('working');
-    expect(socket.snapshotRequests).toHaveLength(1);
+    expect(link.requests).toHaveLength(1);
     // A second gap while the answer is on its way does not ask twice.
-    socket.serve('bay.updated', { seq: 10, bay: { ...snap(0).bays[0] } });
-    expect(socket.snapshotRequests).toHaveLength(1);
-    socket.snapshotRequests[0]?.(null, snap(10));
-    expect(sut.getState().board?.seq).toBe(10);
+    link.serve('bay.updated', { seq: 10, bay: { ...snap(0).bays[0] } });
+    expect(link.requests).toHaveLength(1);
+    link.requests[0]?.(snap(10));
+    await vi.waitFor(() => expect(sut.getState().board?.seq).toBe(10));
     expect(sut.getState().board?.snapshot.bays[0]?.state).toBe('free');
+  });
+
+  it('asks again at the next gap when a request went unanswered', async () => {
+    const sut = make();
+    sut.start();
+    link.serve('board.snapshot', snap(5));
+    link.serve('bay.updated', { seq: 8, bay: { ...snap(0).bays[0] } });
+    link.requests[0]?.(null);
+    await Promise.resolve();
+    link.serve('bay.updated', { seq: 9, bay: { ...snap(0).bays[0] } });
+    expect(link.requests).toHaveLength(2);
+    expect(sut.getState().board?.seq).toBe(5);
   });
 
   it('marks the link down on a drop and asks for a fresh snapshot on reconnect', () => {
     const sut = make();
     sut.start();
-    socket.serve('connect');
-    socket.serve('board.snapshot', snap(5));
-    socket.serve('disconnect', 'transport close');
-    expect(sut.getState().link).toBe('down');
-    expect(sut.getState().downSince).not.toBeNull();
-    socket.serve('connect');
+    link.become({ status: 'live', downSince: null });
+    link.serve('board.snapshot', snap(5));
+    link.become({ status: 'down', downSince: 1_000 });
+    expect(sut.getState()).toMatchObject({ link: 'down', downSince: 1_000 });
+    link.reconnect();
     expect(sut.getState()).toMatchObject({ link: 'live', downSince: null });
-    expect(socket.snapshotRequests).toHaveLength(1);
+    expect(link.requests).toHaveLength(1);
   });
 
-  it('reconnects by itself after the server closed the connection', () => {
+  it('asks for a snapshot at once when it starts on a link that is already live', () => {
+    link.become({ status: 'live', downSince: null });
+    make().start();
+    expect(link.requests).toHaveLength(1);
+  });
+
+  it('shows why the server refused the token', () => {
     const sut = make();
     sut.start();
-    socket.serve('connect');
-    socket.serve('disconnect', 'io server disconnect');
-    expect(socket.connects).toBe(1);
-    vi.advanceTimersByTime(20_000);
-    expect(socket.connects).toBe(2);
-    sut.stop();
-  });
-
-  it('gives the token up on auth.error and stops', () => {
-    const sut = make();
-    sut.start();
-    socket.serve('connect');
-    socket.serve('auth.error', { message: 'Unauthorized' });
-    expect(onUnauthorized).toHaveBeenCalledTimes(1);
-    expect(socket.connected).toBe(false);
-    sut.start();
-    expect(socket.connects).toBe(1);
-  });
-
-  it('checks over HTTP before giving up on a handshake refusal', async () => {
-    const checkToken = vi.fn().mockResolvedValueOnce(true).mockResolvedValueOnce(false);
-    const sut = make({ checkToken });
-    sut.start();
-    socket.active = false;
-    socket.serve('connect_error', new Error('Unauthorized'));
-    await vi.waitFor(() => expect(checkToken).toHaveBeenCalledTimes(1));
-    expect(onUnauthorized).not.toHaveBeenCalled();
-    socket.serve('connect_error', new Error('Unauthorized'));
-    await vi.waitFor(() => expect(onUnauthorized).toHaveBeenCalledTimes(1));
-    sut.stop();
+    link.become({ status: 'refused', refusal: liveRefusal('token-expired') });
+    expect(sut.getState()).toMatchObject({ link: 'refused', refusal: { reason: 'token-expired' } });
   });
 
   it('tells subscribers about changes and stops listening when stopped', () => {
@@ -172,12 +155,12 @@ describe(createLiveBoard.name, () => {
     const listener = vi.fn();
     const unsubscribe = sut.subscribe(listener);
     sut.start();
-    socket.serve('connect');
+    link.become({ status: 'live', downSince: null });
     expect(listener).toHaveBeenCalled();
     unsubscribe();
     sut.stop();
     listener.mockClear();
-    socket.serve('board.snapshot', snap(1));
+    link.serve('board.snapshot', snap(1));
     expect(listener).not.toHaveBeenCalled();
     expect(sut.getState().board).toBeNull();
   });

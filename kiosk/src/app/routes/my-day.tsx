@@ -18,7 +18,9 @@ import { ShiftActions } from '@/features/my-day/components/shift-actions';
 import { JobLineList, lineContext } from '@/features/my-day/components/job-line-list';
 import { HoldSheet } from '@/features/my-day/components/hold-sheet';
 import { DoneSheet } from '@/features/my-day/components/done-sheet';
+import { FinalChecks } from '@/features/my-day/components/final-checks';
 import { useTimers } from '@/features/timers/api/get-timers';
+import { useStopTimer } from '@/features/timers/api/stop-timer';
 import { useConfirmedPunches, useOutboxEntries } from '@/features/punches/hooks/use-outbox';
 import { usePunch } from '@/features/punches/hooks/use-punch';
 import '@/features/my-day/components/my-day.css';
@@ -53,6 +55,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const entries = useOutboxEntries();
   const confirmed = useConfirmedPunches();
   const punch = usePunch();
+  const stopTimer = useStopTimer();
   const now = useNow(1000);
   const queryClient = useQueryClient();
   const [sheet, setSheet] = useState<OpenSheet | null>(null);
@@ -107,7 +110,18 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
     <div className="bt-day">
       <div className="bt-day__side">
         <StatusLine view={view} text={text} />
-        <ShiftActions view={view} onPunch={punch} />
+        <ShiftActions
+          view={view}
+          onPunch={punch}
+          runningTimers={view.lines.flatMap((line) => {
+            const timer = timerByLine.get(line.id);
+            return timer
+              ? [{ id: timer.id, words: `${timer.label ?? 'A timer'} on ${lineContext(line)}` }]
+              : [];
+          })}
+          onStopTimers={(ids) => ids.forEach((id) => stopTimer.mutate(id))}
+        />
+        <FinalChecks checks={day.data.finalChecks} />
       </div>
       <section className="bt-day__main" aria-labelledby="bt-lines-title">
         <h2 id="bt-lines-title" className="bt-day__heading">
@@ -115,7 +129,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
           <small>
             {day.isRefetchError
               ? `Could not refresh: as of ${clockTime(day.dataUpdatedAt, timeZone)}`
-              : `${open} open · ${view.lines.length - open} done`}
+              : `${open} open · ${day.data.doneToday} done today`}
           </small>
         </h2>
         <div className="bt-day__scroll">

@@ -21,6 +21,7 @@ function line(id: number, changes: Partial<MyJobLine> = {}): MyJobLine {
     priority: 'normal',
     bayName: null,
     clockedOn: false,
+    concern: 'Customer asks for new struts',
     ...changes,
   };
 }
@@ -32,6 +33,8 @@ function day(changes: Partial<MyDay> = {}): MyDay {
     shift: { status: 'on-shift', since: iso(-120), breakKind: null },
     openJobLineIds: [],
     lines: [line(1), line(2)],
+    doneToday: 0,
+    finalChecks: [],
     idleSignOutSeconds: 60,
     maxConcurrentJobs: 1,
     ...changes,

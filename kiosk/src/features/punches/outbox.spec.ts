@@ -81,7 +81,7 @@ describe('createOutbox', () => {
     const storage = new MemoryStorage();
     const sut = createOutbox(storage);
     storage.failWrites = true;
-    expect(() => sut.add([punch()], 0)).toThrow();
+    expect(() => sut.add([punch()], 0)).toThrow('QuotaExceededError');
     expect(sut.list()).toEqual([]);
   });
 

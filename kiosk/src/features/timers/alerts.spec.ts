@@ -20,6 +20,7 @@ function timer(id: number, changes: Partial<TimerDto> = {}): TimerDto {
     id,
     kind: 'warm-up',
     jobLineId: 10 + id,
+    lineTechnicianId: 7,
     bayId: id,
     label: null,
     targetC: 80,
@@ -41,26 +42,32 @@ function timer(id: number, changes: Partial<TimerDto> = {}): TimerDto {
   };
 }
 
-const reached = (id: number, atMs: number) =>
+const reached = (id: number, atMs: number, changes: Partial<TimerDto> = {}) =>
   timer(id, {
+    ...changes,
     reachedAt: iso(atMs),
     estimate: { status: 'reached', etaAt: iso(atMs), secondsLeft: 0, method: null, confidence: 'high' },
   });
 
 describe(decideAlerts.name, () => {
   it('chimes once for a timer it saw running that has now reached its target', () => {
-    const first = decideAlerts([timer(1)], emptyMemory(), { now: T0, fetchedAt: T0 });
+    const first = decideAlerts([timer(1)], emptyMemory(), { now: T0, fetchedAt: T0, technicianId: 7 });
     expect(first.alerts).toEqual([]);
     expect(first.memory.seenRunning.has(1)).toBe(true);
 
     const later = T0 + 10 * 60_000;
-    const second = decideAlerts([reached(1, 9 * 60_000)], first.memory, { now: later, fetchedAt: later });
+    const second = decideAlerts([reached(1, 9 * 60_000)], first.memory, {
+      now: later,
+      fetchedAt: later,
+      technicianId: 7,
+    });
     expect(second.alerts).toHaveLength(1);
     expect(second.alerts[0]).toMatchObject({ timerId: 1, bayId: 1, kind: 'warm-up' });
 
     const third = decideAlerts([reached(1, 9 * 60_000)], second.memory, {
       now: later + 1000,
       fetchedAt: later,
+      technicianId: 7,
     });
     expect(third.alerts).toEqual([]);
   });
@@ -68,11 +75,13 @@ describe(decideAlerts.name, () => {
   it('on a fresh start, chimes for a recent finish but stays quiet about an old one', () => {
     const recent = reached(1, -RECENT_FINISH_MS + 1000);
     const old = reached(2, -RECENT_FINISH_MS - 1000);
-    const decision = decideAlerts([recent, old], emptyMemory(), { now: T0, fetchedAt: T0 });
+    const decision = decideAlerts([recent, old], emptyMemory(), { now: T0, fetchedAt: T0, technicianId: 7 });
     expect(decision.alerts.map((a) => a.timerId)).toEqual([1]);
     // The old one is remembered as handled: it never chimes later either.
     expect(decision.memory.announced.has(2)).toBe(true);
-    expect(decideAlerts([old], decision.memory, { now: T0 + 1000, fetchedAt: T0 }).alerts).toEqual([]);
+    expect(
+      decideAlerts([old], decision.memory, { now: T0 + 1000, fetchedAt: T0, technicianId: 7 }).alerts,
+    ).toEqual([]);
   });
 
   it('chimes when a fixed hold counts down to zero on the tablet, before the server says so', () => {
@@ -88,29 +97,63 @@ describe(decideAlerts.name, () => {
         confidence: 'high',
       },
     });
-    const before = decideAlerts([running], emptyMemory(), { now: T0 + 59_000, fetchedAt: T0 });
+    const before = decideAlerts([running], emptyMemory(), {
+      now: T0 + 59_000,
+      fetchedAt: T0,
+      technicianId: 7,
+    });
     expect(before.alerts).toEqual([]);
-    const after = decideAlerts([running], before.memory, { now: T0 + 60_000, fetchedAt: T0 });
+    const after = decideAlerts([running], before.memory, {
+      now: T0 + 60_000,
+      fetchedAt: T0,
+      technicianId: 7,
+    });
     expect(after.alerts.map((a) => a.timerId)).toEqual([3]);
     expect(after.alerts[0]!.finishedAt).toBe(T0 + 60_000);
   });
 
   it('never chimes for a stopped timer', () => {
-    const seen = decideAlerts([timer(4)], emptyMemory(), { now: T0, fetchedAt: T0 });
+    const seen = decideAlerts([timer(4)], emptyMemory(), { now: T0, fetchedAt: T0, technicianId: 7 });
     const stopped = { ...reached(4, 1000), endedAt: iso(2000) };
-    expect(decideAlerts([stopped], seen.memory, { now: T0 + 3000, fetchedAt: T0 + 3000 }).alerts).toEqual([]);
+    expect(
+      decideAlerts([stopped], seen.memory, { now: T0 + 3000, fetchedAt: T0 + 3000, technicianId: 7 }).alerts,
+    ).toEqual([]);
   });
 
   it('forgets announced timers after a day', () => {
     const memory = { seenRunning: new Set<number>(), announced: new Map([[5, T0]]) };
-    const next = decideAlerts([], memory, { now: T0 + ANNOUNCED_KEEP_MS + 1, fetchedAt: T0 });
+    const next = decideAlerts([], memory, {
+      now: T0 + ANNOUNCED_KEEP_MS + 1,
+      fetchedAt: T0,
+      technicianId: 7,
+    });
     expect(next.memory.announced.size).toBe(0);
+  });
+});
+
+describe('whose timers chime here (bug 9)', () => {
+  it("chimes for the watching technician's timers only, never another technician's", () => {
+    const mine = reached(1, 0, { lineTechnicianId: 7 });
+    const theirs = reached(2, 0, { lineTechnicianId: 8, startedBy: 7 });
+    const startedOnNobodysLine = reached(3, 0, { lineTechnicianId: null, startedBy: 7 });
+    const options = { now: T0, fetchedAt: T0 };
+    expect(
+      decideAlerts([mine, theirs, startedOnNobodysLine], emptyMemory(), {
+        ...options,
+        technicianId: 7,
+      }).alerts.map((a) => a.timerId),
+    ).toEqual([1, 3]);
+    expect(decideAlerts([theirs], emptyMemory(), { ...options, technicianId: null }).alerts).toEqual([]);
   });
 });
 
 describe(liveAlerts.name, () => {
   it('drops the banner of a timer someone stopped', () => {
-    const decision = decideAlerts([reached(1, 0), reached(2, 0)], emptyMemory(), { now: T0, fetchedAt: T0 });
+    const decision = decideAlerts([reached(1, 0), reached(2, 0)], emptyMemory(), {
+      now: T0,
+      fetchedAt: T0,
+      technicianId: 7,
+    });
     expect(liveAlerts(decision.alerts, [reached(2, 0)]).map((a) => a.timerId)).toEqual([2]);
   });
 });

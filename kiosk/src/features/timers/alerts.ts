@@ -32,6 +32,17 @@ export const ANNOUNCED_KEEP_MS = 24 * 3600_000;
 export interface DecideOptions {
   now: number;
   fetchedAt: number;
+  /** The technician this kiosk watches for: only their timers chime here. */
+  technicianId: number | null;
+}
+
+/** A timer is a technician's when it runs on their line, or they started it on a line nobody has. */
+export function isTimerOf(
+  timer: Pick<TimerDto, 'lineTechnicianId' | 'startedBy'>,
+  technicianId: number | null,
+): boolean {
+  if (technicianId === null) return false;
+  return (timer.lineTechnicianId ?? timer.startedBy) === technicianId;
 }
 
 export interface Decision {
@@ -52,7 +63,7 @@ export function decideAlerts(
   const alerts: TimerAlert[] = [];
 
   for (const timer of timers) {
-    if (timer.endedAt !== null) continue;
+    if (timer.endedAt !== null || !isTimerOf(timer, options.technicianId)) continue;
     const finished = finishedAt(timer, options);
     if (finished === null) {
       seenRunning.add(timer.id);

@@ -12,6 +12,7 @@ function warmUp(changes: Partial<TimerDto> = {}): TimerDto {
     id: 1,
     kind: 'warm-up',
     jobLineId: 5,
+    lineTechnicianId: 7,
     bayId: 4,
     label: null,
     targetC: 80,

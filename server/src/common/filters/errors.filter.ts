@@ -1,5 +1,6 @@
 import { Catch, HttpException, Logger, type ArgumentsHost, type ExceptionFilter } from '@nestjs/common';
 import type { Response } from 'express';
+import { RetryLaterException } from '../retry-later.exception.js';
 
 /** Known errors answer as thrown; anything else is logged and answers a plain 500. */
 @Catch()
@@ -12,6 +13,8 @@ export class ErrorsFilter implements ExceptionFilter {
     if (response.headersSent) return;
     if (error instanceof HttpException) {
       const body = error.getResponse();
+      if (error instanceof RetryLaterException)
+        response.setHeader('Retry-After', String(error.retryAfterSeconds));
       response
         .status(error.getStatus())
         .json(typeof body === 'string' ? { statusCode: error.getStatus(), message: body } : body);

@@ -7,7 +7,10 @@ import { IS_PUBLIC, ROLES_KEY } from '../decorators/auth.decorators.js';
 
 export const ROLE_REFUSAL = 'Your role cannot do that';
 
-/** Global: every route needs a valid token unless marked @Public(), and one of its @Roles() if given. */
+/**
+ * Global: every route needs a valid token unless marked @Public(), and one of its @Roles() if given.
+ * A socket message is the socket's own: its caller was set when the handshake was authenticated.
+ */
 @Injectable()
 export class SignedInGuard extends AuthGuard('jwt') {
   constructor(private readonly reflector: Reflector) {
@@ -17,8 +20,12 @@ export class SignedInGuard extends AuthGuard('jwt') {
   override async canActivate(context: ExecutionContext): Promise<boolean> {
     const targets = [context.getHandler(), context.getClass()];
     if (this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, targets)) return true;
-    await super.canActivate(context);
     const roles = this.reflector.getAllAndOverride<Role[] | undefined>(ROLES_KEY, targets);
+    if (context.getType() === 'ws') {
+      const caller = context.switchToWs().getClient<{ data?: { principal?: Principal } }>().data?.principal;
+      return caller !== undefined && (!roles || roles.includes(caller.role));
+    }
+    await super.canActivate(context);
     const user = context.switchToHttp().getRequest<{ user: Principal }>().user;
     if (roles && !roles.includes(user.role)) throw new ForbiddenException(ROLE_REFUSAL);
     return true;

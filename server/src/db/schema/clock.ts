@@ -29,7 +29,7 @@ export const punches = sqliteTable(
   },
   (t) => [
     index('punches_technician_id_at_idx').on(t.technicianId, t.at),
-    index('punches_job_line_id_idx').on(t.jobLineId),
+    index('punches_job_line_id_at_idx').on(t.jobLineId, t.at),
     index('punches_at_idx').on(t.at),
   ],
 );

@@ -4,4 +4,7 @@ export * from './work.js';
 export * from './clock.js';
 export * from './findings.js';
 export * from './records.js';
+export * from './sign-in.js';
+export * from './live.js';
+export * from './approvals.js';
 export * from './pay.js';

@@ -16,14 +16,22 @@ export const auditLog = sqliteTable(
 );
 
 export const MAIL_STATUSES = ['queued', 'sent', 'failed'] as const;
+export const MESSAGE_CHANNELS = ['email', 'text'] as const;
+export type MessageChannel = (typeof MESSAGE_CHANNELS)[number];
 
+/** Every message the shop sends: e-mails and text messages, each on its channel. */
 export const mailOutbox = sqliteTable(
   'mail_outbox',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
+    channel: text('channel', { enum: MESSAGE_CHANNELS }).notNull().default('email'),
+    /** An e-mail address, or a phone number in E.164 for a text. */
     recipient: text('recipient').notNull(),
-    subject: text('subject').notNull(),
+    /** E-mails only. */
+    subject: text('subject'),
     text: text('text').notNull(),
+    /** The body carries a secret (a customer's approval link): it is blanked once the message is sent. */
+    secretBody: integer('secret_body', { mode: 'boolean' }).notNull().default(false),
     attachments: text('attachments', { mode: 'json' }).$type<{ filename: string; path: string }[]>(),
     status: text('status', { enum: MAIL_STATUSES }).notNull().default('queued'),
     attempts: integer('attempts').notNull().default(0),

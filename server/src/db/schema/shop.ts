@@ -19,6 +19,13 @@ export const shopSettings = sqliteTable('shop_settings', {
   minimumClockedHoursForEfficiency: integer('minimum_clocked_hours_for_efficiency').notNull().default(8),
   apportionSpanningLines: integer('apportion_spanning_lines', { mode: 'boolean' }).notNull().default(true),
   kioskShowsPay: integer('kiosk_shows_pay', { mode: 'boolean' }).notNull().default(true),
+  techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
+    .notNull()
+    .default(true),
+  phone: text('phone'),
+  labourRateCents: integer('labour_rate_cents').notNull().default(0),
+  taxNote: text('tax_note').notNull().default(''),
+  approvalLinkHours: integer('approval_link_hours').notNull().default(72),
   updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
 });
 

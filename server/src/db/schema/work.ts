@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { sqliteTable, integer, real, text, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import {
   BAY_KINDS,
@@ -63,6 +64,14 @@ export const repairOrders = sqliteTable(
       .notNull()
       .references(() => vehicles.id),
     advisorId: integer('advisor_id').references(() => users.id),
+    /** The customer and vehicle as they were when the RO was written: later visits never rewrite them. */
+    customerName: text('customer_name').notNull(),
+    customerPhone: text('customer_phone'),
+    customerEmail: text('customer_email'),
+    vehicleYear: integer('vehicle_year').notNull(),
+    vehicleMake: text('vehicle_make').notNull(),
+    vehicleModel: text('vehicle_model').notNull(),
+    vehiclePlate: text('vehicle_plate'),
     concern: text('concern').notNull(),
     odometer: integer('odometer').notNull(),
     status: text('status', { enum: REPAIR_ORDER_STATUSES }).notNull().default('open'),
@@ -72,7 +81,13 @@ export const repairOrders = sqliteTable(
   },
   (t) => [
     uniqueIndex('repair_orders_number_idx').on(t.number),
-    index('repair_orders_status_idx').on(t.status),
+    // The office list pages newest first, by status or not; the id (the rowid) breaks ties for free.
+    index('repair_orders_status_created_at_idx').on(t.status, t.createdAt),
+    index('repair_orders_created_at_idx').on(t.createdAt),
+    index('repair_orders_advisor_id_created_at_idx').on(t.advisorId, t.createdAt),
+    index('repair_orders_promised_at_idx').on(t.promisedAt),
+    // A returning vehicle's last visit.
+    index('repair_orders_vehicle_id_created_at_idx').on(t.vehicleId, t.createdAt),
   ],
 );
 
@@ -96,6 +111,12 @@ export const jobLines = sqliteTable(
     promisedAt: integer('promised_at', { mode: 'timestamp_ms' }),
     queuedAt: integer('queued_at', { mode: 'timestamp_ms' }).notNull(),
     completedAt: integer('completed_at', { mode: 'timestamp_ms' }),
+    completedBy: integer('completed_by').references(() => users.id),
+    /** The three Cs: the customer's concern (from intake), the cause found, the correction made. */
+    concern: text('concern').notNull().default(''),
+    cause: text('cause'),
+    correction: text('correction'),
+    cancelReason: text('cancel_reason'),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
     /** Done with less clocked time than the shop's minimum: out of the flagged figures until signed off. */
     signOff: text('sign_off', { enum: SIGN_OFF_STATES }),
@@ -108,5 +129,10 @@ export const jobLines = sqliteTable(
     index('job_lines_technician_id_idx').on(t.technicianId),
     index('job_lines_bay_id_idx').on(t.bayId),
     index('job_lines_status_idx').on(t.status),
+    // The floor reads only the lines still open: a small slice of years of finished work.
+    index('job_lines_open_idx')
+      .on(t.repairOrderId)
+      .where(sql`${t.status} != 'done'`),
+    index('job_lines_completed_at_idx').on(t.completedAt),
   ],
 );

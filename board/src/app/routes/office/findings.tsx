@@ -15,13 +15,14 @@ export function Component() {
     <>
       <PageHeader
         title="Findings"
-        description="Extra work the technicians found. Ask the customer, then record the answer."
+        description="Extra work the technicians found. Word and price it for the customer, send the approval link, or record an answer given by phone or in person."
       />
       <FindingsInbox
         role={role}
         tab={tab}
         onTab={(next) => setParams(next === 'pending' ? {} : { show: next }, { replace: true })}
         timeZone={shop.data?.timeZone}
+        labourRateCents={shop.data?.labourRateCents}
       />
     </>
   );

@@ -1,8 +1,6 @@
 import { Spinner } from '@fluentui/react-components';
-import { officeApi } from '@/lib/api-client';
-import { officeToken } from '@/lib/token-store';
+import { useOfficeLink } from '@/lib/socket';
 import { PageHeader } from '@/components/page-header';
-import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { useLiveBoard } from '@/features/wall/hooks/use-live-board';
 import { useNow } from '@/features/wall/hooks/use-now';
 import { serverNow } from '@/features/wall/server-clock';
@@ -10,8 +8,7 @@ import { formatTimeOfDay } from '@/features/wall/board-time';
 import { FloorLinkStatus, FloorView } from '@/features/wall/components/floor-view';
 
 export function Component() {
-  const token = useOfficeToken();
-  const { board, link, downSince } = useLiveBoard(token, officeApi, officeToken.clear);
+  const { board, link, downSince } = useLiveBoard(useOfficeLink());
   const localNow = useNow();
   const now = board ? serverNow(board.clock, localNow) : localNow;
   const shop = board?.snapshot.shop;

@@ -6,11 +6,13 @@ import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { RepairOrdersTable } from '@/features/repair-orders/components/repair-orders-table';
 import { useLiveRepairOrders } from '@/features/repair-orders/hooks/use-live-repair-orders';
 import { useShop } from '@/features/shop/api/get-shop';
+import { useOffice } from './office-context';
 
 export { PageError as ErrorBoundary } from './page-error';
 
 export function Component() {
   const shop = useShop();
+  const { user, role } = useOffice();
   const navigate = useNavigate();
   useLiveRepairOrders(useOfficeToken());
   return (
@@ -24,7 +26,11 @@ export function Component() {
           </Button>
         }
       />
-      <RepairOrdersTable timeZone={shop.data?.timeZone} />
+      <RepairOrdersTable
+        timeZone={shop.data?.timeZone}
+        me={user}
+        canListPeople={role === 'owner' || role === 'foreman'}
+      />
     </>
   );
 }

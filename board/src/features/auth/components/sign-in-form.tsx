@@ -1,5 +1,5 @@
 import { FormErrorBar } from '@/components/form-error-bar';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import {
   Button,
   Field,
@@ -11,9 +11,10 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { loginSchema, type LoginBody, type Role } from '@baytime/shared';
+import { loginSchema, type Role } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { paths } from '@/config/paths';
+import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { isOfficeRole, useLogin } from '../api/login';
 
 const useStyles = makeStyles({
@@ -21,61 +22,37 @@ const useStyles = makeStyles({
   submit: { marginTop: tokens.spacingVerticalS },
 });
 
-type FieldErrors = Partial<Record<keyof LoginBody, string>>;
-
 export function SignInForm() {
   const styles = useStyles();
   const login = useLogin();
-  const [values, setValues] = useState<LoginBody>({ email: '', password: '' });
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const form = useSchemaForm(loginSchema, { defaultValues: { email: '', password: '' } });
+  const { errors } = form.formState;
   const [wrongApp, setWrongApp] = useState<Role | null>(null);
+  const refused = (message: string) => form.setError('root.server', { type: 'server', message });
 
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    setFormError(null);
+  const submit = form.handleSubmit((body) => {
     setWrongApp(null);
-    const parsed = loginSchema.safeParse(values);
-    if (!parsed.success) {
-      const errors: FieldErrors = {};
-      for (const issue of parsed.error.issues) {
-        const key = issue.path[0] as keyof LoginBody;
-        errors[key] ??=
-          key === 'email'
-            ? values.email.trim()
-              ? 'That is not an e-mail address'
-              : 'Enter your e-mail address'
-            : 'Enter your password';
-      }
-      setFieldErrors(errors);
-      return;
-    }
-    setFieldErrors({});
-    login.mutate(parsed.data, {
+    login.mutate(body, {
       onSuccess: ({ user }) => {
         if (!isOfficeRole(user.role)) setWrongApp(user.role);
       },
       onError: (error) => {
-        if (!(error instanceof ApiError)) return setFormError('Sign-in failed. Try again.');
+        if (!(error instanceof ApiError)) return refused('Sign-in failed. Try again.');
         if (error.isNetwork)
-          return setFormError('No connection to the shop server. Check the network and try again.');
+          return refused('No connection to the shop server. Check the network and try again.');
         if (error.status === 401)
-          return setFieldErrors({ password: 'That e-mail and password do not match' });
-        if (error.status === 429) return setFormError('Too many tries. Wait a minute, then try again.');
-        const { email, password } = error.fieldErrors;
-        if (email || password) return setFieldErrors({ email, password });
-        setFormError(error.message || 'Sign-in failed. Try again.');
+          return form.setError('password', {
+            type: 'server',
+            message: 'That e-mail and password do not match',
+          });
+        if (error.status === 429) return refused(error.message);
+        showServerErrors(form, error);
       },
     });
-  };
-
-  const set = (key: keyof LoginBody) => (_: unknown, data: { value: string }) => {
-    setValues((current) => ({ ...current, [key]: data.value }));
-    if (fieldErrors[key]) setFieldErrors((current) => ({ ...current, [key]: undefined }));
-  };
+  });
 
   return (
-    <form className={styles.form} onSubmit={submit} noValidate aria-label="Sign in">
+    <form className={styles.form} onSubmit={(event) => void submit(event)} noValidate aria-label="Sign in">
       {wrongApp === 'technician' && (
         <MessageBar intent="warning">
           <MessageBarBody>
@@ -92,26 +69,12 @@ export function SignInForm() {
           </MessageBarBody>
         </MessageBar>
       )}
-      <FormErrorBar message={formError} />
-      <Field label="E-mail" required validationMessage={fieldErrors.email}>
-        <Input
-          type="email"
-          name="email"
-          autoComplete="username"
-          value={values.email}
-          onChange={set('email')}
-          size="large"
-        />
+      <FormErrorBar message={errors.root?.server?.message ?? null} />
+      <Field label="E-mail" required validationMessage={errors.email?.message}>
+        <Input type="email" autoComplete="username" size="large" {...form.register('email')} />
       </Field>
-      <Field label="Password" required validationMessage={fieldErrors.password}>
-        <Input
-          type="password"
-          name="password"
-          autoComplete="current-password"
-          value={values.password}
-          onChange={set('password')}
-          size="large"
-        />
+      <Field label="Password" required validationMessage={errors.password?.message}>
+        <Input type="password" autoComplete="current-password" size="large" {...form.register('password')} />
       </Field>
       <Button
         className={styles.submit}

@@ -1,6 +1,6 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { FormErrorBar } from '@/components/form-error-bar';
-import { useCheckedSubmit } from '@/hooks/use-checked-submit';
+import { showServerErrors, useSchemaForm } from '@/lib/form';
 import {
   Badge,
   Button,
@@ -26,6 +26,7 @@ import { formErrorText } from '@/lib/form-errors';
 import { useBays } from '../api/get-bays';
 import { useCreateBay } from '../api/create-bay';
 import { useUpdateBay } from '../api/update-bay';
+import { useReorderBays } from '../api/reorder-bays';
 
 type BayKind = (typeof BAY_KINDS)[number];
 
@@ -55,30 +56,30 @@ const useStyles = makeStyles({
 export function AddBayForm() {
   const styles = useStyles();
   const create = useCreateBay();
-  const [name, setName] = useState('');
-  const [kind, setKind] = useState<BayKind>('two-post');
-  const { errors, formError, submit: check } = useCheckedSubmit(createBaySchema, create);
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    check({ name, kind }, () => setName(''));
-  };
+  const form = useSchemaForm(createBaySchema, { defaultValues: { name: '', kind: 'two-post' } });
+  const { errors } = form.formState;
+  const submit = form.handleSubmit((body) =>
+    create.mutate(body, {
+      onSuccess: () => form.reset({ name: '', kind: body.kind }),
+      onError: (error) => showServerErrors(form, error),
+    }),
+  );
 
   return (
     <Card className={styles.card}>
       <Subtitle2 as="h2">Add a bay</Subtitle2>
-      <form className={styles.row} onSubmit={submit} noValidate>
+      <form className={styles.row} onSubmit={(event) => void submit(event)} noValidate>
         <Field
           label="Name"
           required
-          validationMessage={errors.name}
+          validationMessage={errors.name?.message}
           className={styles.name}
           hint="Short: it is the headline on the wall"
         >
-          <Input value={name} maxLength={24} onChange={(_, data) => setName(data.value)} />
+          <Input maxLength={24} {...form.register('name')} />
         </Field>
         <Field label="Kind">
-          <Select value={kind} onChange={(_, data) => setKind(data.value as BayKind)}>
+          <Select {...form.register('kind')}>
             {BAY_KINDS.map((value) => (
               <option key={value} value={value}>
                 {BAY_KIND_LABELS[value]}
@@ -90,8 +91,36 @@ export function AddBayForm() {
           {create.isPending ? 'Adding…' : 'Add bay'}
         </Button>
       </form>
-      <FormErrorBar message={formError} />
+      <FormErrorBar message={errors.root?.server?.message ?? null} />
     </Card>
+  );
+}
+
+/** A new name for a bay, checked by the shared schema. */
+function RenameForm({ bay, onDone }: { bay: BayDto; onDone: () => void }) {
+  const styles = useStyles();
+  const update = useUpdateBay();
+  const form = useSchemaForm(updateBaySchema, { defaultValues: { name: bay.name } });
+  const submit = form.handleSubmit((body) =>
+    update.mutate(
+      { id: bay.id, ...body },
+      { onSuccess: onDone, onError: (error) => showServerErrors(form, error) },
+    ),
+  );
+  const { errors } = form.formState;
+  return (
+    <form className={styles.inline} onSubmit={(event) => void submit(event)} noValidate>
+      <Field
+        validationMessage={errors.name?.message ?? errors.root?.server?.message}
+        aria-label={`New name for ${bay.name}`}
+      >
+        <Input maxLength={24} autoFocus {...form.register('name')} />
+      </Field>
+      <Button type="submit" appearance="primary" disabled={update.isPending}>
+        Save
+      </Button>
+      <Button onClick={onDone}>Cancel</Button>
+    </form>
   );
 }
 
@@ -99,31 +128,22 @@ function BayRow({
   bay,
   order,
   onError,
+  onMove,
+  moving,
+  first,
+  last,
 }: {
   bay: BayDto;
   order: number;
   onError: (message: string | null) => void;
+  onMove: (by: -1 | 1) => void;
+  moving: boolean;
+  first: boolean;
+  last: boolean;
 }) {
   const styles = useStyles();
   const update = useUpdateBay();
   const [editing, setEditing] = useState(false);
-  const [name, setName] = useState(bay.name);
-  const [nameError, setNameError] = useState<string | undefined>();
-
-  const rename = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = updateBaySchema.safeParse({ name });
-    if (!parsed.success) return setNameError(parsed.error.issues[0]?.message);
-    setNameError(undefined);
-    onError(null);
-    update.mutate(
-      { id: bay.id, ...parsed.data },
-      {
-        onSuccess: () => setEditing(false),
-        onError: (error) => onError(`${bay.name}: ${formErrorText(error)}`),
-      },
-    );
-  };
 
   const setActive = (active: boolean) => {
     onError(null);
@@ -136,29 +156,7 @@ function BayRow({
   return (
     <TableRow className={bay.active ? undefined : styles.retired}>
       <TableCell>{bay.active ? order : '—'}</TableCell>
-      <TableCell>
-        {editing ? (
-          <form className={styles.inline} onSubmit={rename} noValidate>
-            <Field validationMessage={nameError} aria-label={`New name for ${bay.name}`}>
-              <Input value={name} maxLength={24} autoFocus onChange={(_, data) => setName(data.value)} />
-            </Field>
-            <Button type="submit" appearance="primary" disabled={update.isPending}>
-              Save
-            </Button>
-            <Button
-              onClick={() => {
-                setEditing(false);
-                setName(bay.name);
-                setNameError(undefined);
-              }}
-            >
-              Cancel
-            </Button>
-          </form>
-        ) : (
-          bay.name
-        )}
-      </TableCell>
+      <TableCell>{editing ? <RenameForm bay={bay} onDone={() => setEditing(false)} /> : bay.name}</TableCell>
       <TableCell>{BAY_KIND_LABELS[bay.kind] ?? bay.kind}</TableCell>
       <TableCell>
         <Badge appearance="tint" color={bay.active ? 'success' : 'subtle'}>
@@ -175,6 +173,28 @@ function BayRow({
           <Button size="small" disabled={update.isPending} onClick={() => setActive(!bay.active)}>
             {bay.active ? 'Retire' : 'Restore'}
           </Button>
+          {bay.active && (
+            <>
+              <Button
+                size="small"
+                appearance="subtle"
+                aria-label={`Move ${bay.name} earlier on the wall`}
+                disabled={first || moving}
+                onClick={() => onMove(-1)}
+              >
+                ↑
+              </Button>
+              <Button
+                size="small"
+                appearance="subtle"
+                aria-label={`Move ${bay.name} later on the wall`}
+                disabled={last || moving}
+                onClick={() => onMove(1)}
+              >
+                ↓
+              </Button>
+            </>
+          )}
         </div>
       </TableCell>
     </TableRow>
@@ -184,6 +204,7 @@ function BayRow({
 export function BaysTable() {
   const styles = useStyles();
   const bays = useBays();
+  const reorder = useReorderBays();
   const [error, setError] = useState<string | null>(null);
 
   if (bays.isPending) return <Spinner label="Loading bays…" />;
@@ -196,6 +217,14 @@ export function BaysTable() {
   const sorted = [...bays.data].sort(
     (a, b) => Number(b.active) - Number(a.active) || a.position - b.position,
   );
+  const active = sorted.filter((bay) => bay.active);
+  // The wall shows the bays in this order, and open wall screens take the new one at once.
+  const move = (index: number, by: -1 | 1) => {
+    const ids = active.map((bay) => bay.id);
+    [ids[index], ids[index + by]] = [ids[index + by]!, ids[index]!];
+    setError(null);
+    reorder.mutate(ids, { onError: (failed) => setError(formErrorText(failed)) });
+  };
   return (
     <>
       {error && (
@@ -217,7 +246,16 @@ export function BaysTable() {
         </TableHeader>
         <TableBody>
           {sorted.map((bay, index) => (
-            <BayRow key={bay.id} bay={bay} order={index + 1} onError={setError} />
+            <BayRow
+              key={bay.id}
+              bay={bay}
+              order={index + 1}
+              onError={setError}
+              onMove={(by) => move(index, by)}
+              moving={reorder.isPending}
+              first={index === 0}
+              last={index === active.length - 1}
+            />
           ))}
         </TableBody>
       </Table>

@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { useRecordFinalCheck } from '../api/final-check';
 import { useDroppable } from '@dnd-kit/core';
 import { Button, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
 import type { DispatchBoard, DispatchLine } from '@baytime/shared';
@@ -74,6 +75,7 @@ function BayChip({
   onRelease: (bayId: number) => void;
 }) {
   const styles = useStyles();
+  const finalCheck = useRecordFinalCheck();
   const { setNodeRef, isOver } = useDroppable({ id: dropId.bay(bay.id), disabled: !canEdit });
   const incoming = dragging !== null && dragging.bayId !== bay.id;
   return (
@@ -83,6 +85,16 @@ function BayChip({
     >
       <span className={styles.name}>{bay.name}</span>
       <StateChip state={bay.state} />
+      {bay.state === 'check' && (
+        <Button
+          size="small"
+          disabled={finalCheck.isPending}
+          onClick={() => finalCheck.mutate(bay.id)}
+          aria-label={`Final check done in ${bay.name}`}
+        >
+          Final check done
+        </Button>
+      )}
       {canEdit && (bay.state === 'check' || bay.state === 'ready') && (
         <ReleaseButton name={bay.name} busy={releasing} onRelease={() => onRelease(bay.id)} />
       )}

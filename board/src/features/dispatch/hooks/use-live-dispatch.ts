@@ -1,7 +1,6 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
-import { useOfficeSocket } from '@/lib/use-office-socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { dispatchQueryOptions } from '../api/get-dispatch';
 import { MOVE_LINE_KEY } from '../api/patch-job-line';
 
@@ -12,6 +11,7 @@ const EVENTS = [
   'job-line.updated',
   'punch.recorded',
   'finding.created',
+  'finding.answered',
   'bay.updated',
   'floor.updated',
 ] as const;
@@ -22,7 +22,6 @@ const SETTLE_MS = 250;
 /** Keeps the dispatch query fresh from the shop's socket: every relevant event marks it stale. */
 export function useLiveDispatch(token: string | null): LiveLink {
   const queryClient = useQueryClient();
-  const [link, setLink] = useState<LiveLink>('connecting');
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   useEffect(() => () => clearTimeout(timer.current), []);
 
@@ -35,17 +34,11 @@ export function useLiveDispatch(token: string | null): LiveLink {
     }, SETTLE_MS);
   }, [queryClient]);
   const wire = useCallback(
-    (socket: BoardSocket) => {
-      for (const event of EVENTS) socket.on(event, refresh);
-      socket.on('connect', () => setLink('live'));
-      socket.on('disconnect', () => setLink('down'));
-      socket.io.on('reconnect_attempt', () => setLink('connecting'));
-      // A refused token: the next request answers 401 and the office goes back to sign-in by itself.
-      socket.on('auth.error', () => void queryClient.invalidateQueries({ queryKey: ['me'] }));
+    (live: LiveListener) => {
+      for (const event of EVENTS) live.on(event, refresh);
     },
-    [queryClient, refresh],
+    [refresh],
   );
-  useOfficeSocket(token, wire, refresh);
-
-  return token ? link : 'down';
+  const { status } = useOfficeLive(token, wire, refresh);
+  return status === 'live' || status === 'connecting' ? status : 'down';
 }

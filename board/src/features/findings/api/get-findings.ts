@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { FindingAnswer, FindingDto } from '@baytime/shared';
+import type { FindingAnswer, FindingsPage } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 
-export function getFindings(answer: FindingAnswer): Promise<FindingDto[]> {
-  return officeApi.get<FindingDto[]>(`/findings?answer=${answer}`);
+/** The newest hundred findings with that answer: the inbox shows no more at once. */
+export function getFindings(answer: FindingAnswer): Promise<FindingsPage> {
+  return officeApi.get<FindingsPage>(`/findings?answer=${answer}&limit=100`);
 }
 
 export const findingsKey = ['findings'] as const;

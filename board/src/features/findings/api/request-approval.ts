@@ -1,11 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { MailQueued } from '@baytime/shared';
+import type { ApprovalRequested } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 import { findingsKey } from './get-findings';
 
-/** E-mails the customer the finding with its photos and asks for a yes or no (202: queued). */
-export function requestApproval(id: number): Promise<MailQueued> {
-  return officeApi.post<MailQueued>(`/findings/${id}/request-approval`);
+/**
+ * Sends the customer a link to approve or decline the reviewed findings of the repair order, by
+ * e-mail and by text; an older link for them stops working.
+ */
+export function requestApproval(id: number): Promise<ApprovalRequested> {
+  return officeApi.post<ApprovalRequested>(`/findings/${id}/request-approval`);
 }
 
 export function useRequestApproval() {

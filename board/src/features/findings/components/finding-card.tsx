@@ -9,7 +9,7 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import { FINDING_SEVERITY_WORDS, type FindingDto, type FindingSeverity } from '@baytime/shared';
+import { FINDING_SEVERITY_WORDS, formatCents, type FindingDto, type FindingSeverity } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
 import { severityHeadline, waitedText } from '../findings-model';
 import { FindingPhotos } from './finding-photos';
@@ -67,7 +67,33 @@ const useStyles = makeStyles({
     marginTop: tokens.spacingVerticalS,
   },
   dim: { color: tokens.colorNeutralForeground3 },
+  quote: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalXXS,
+    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalM}`,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground3,
+  },
+  price: { fontVariantNumeric: 'tabular-nums' },
 });
+
+/** The advisor's reviewed wording and price: what the customer's page will show. */
+function QuoteSummary({ finding }: { finding: FindingDto }) {
+  const styles = useStyles();
+  if (finding.customerWording === null || finding.bookHours === null)
+    return <Caption1 className={styles.dim}>Not yet reviewed for the customer.</Caption1>;
+  return (
+    <div className={styles.quote} aria-label="For the customer">
+      <Caption1 className={styles.dim}>For the customer</Caption1>
+      <Text>{finding.customerWording}</Text>
+      <Caption1 className={styles.price}>
+        {finding.bookHours} h{finding.partsCents ? ` + parts ${formatCents(finding.partsCents)}` : ''}
+        {finding.priceCents !== null && ` = ${formatCents(finding.priceCents)}`}
+      </Caption1>
+    </div>
+  );
+}
 
 export function SeverityBadge({ severity }: { severity: FindingSeverity }) {
   const styles = useStyles();
@@ -156,6 +182,7 @@ export function FindingCard({
               )}
             </Caption1>
           </div>
+          <QuoteSummary finding={finding} />
           <div className={styles.actions}>{actions}</div>
           {status}
         </div>

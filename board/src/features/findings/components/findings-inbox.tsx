@@ -1,4 +1,6 @@
 import { useCallback, useMemo, useState } from 'react';
+import { Link as RouterLink } from 'react-router';
+import { paths } from '@/config/paths';
 import {
   Badge,
   Body1,
@@ -22,13 +24,21 @@ import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useFindings } from '../api/get-findings';
 import { useRequestApproval } from '../api/request-approval';
-import { useSendReadyNotice } from '../api/send-ready-notice';
-import { groupAnswered, sortPending, type AnsweredGroup } from '../findings-model';
+import { useRevokeApprovalLink } from '../api/revoke-approval-link';
+import {
+  answeredText,
+  groupAnswered,
+  linkStateText,
+  sentToText,
+  sortPending,
+  type AnsweredGroup,
+} from '../findings-model';
 import { useFindingsLive } from '../hooks/use-findings-live';
 import { useMinuteNow } from '@/hooks/use-minute-now';
-import { ApproveDialog, DeclineDialog } from './answer-dialogs';
+import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
 import { FindingPhotos } from './finding-photos';
+import { QuoteDialog } from './quote-dialog';
 
 export type InboxTab = 'pending' | 'answered';
 export type InboxRole = 'owner' | 'foreman' | 'advisor';
@@ -93,15 +103,14 @@ function answerSummary(result: FindingAnswerResult): string {
 
 function AnsweredGroupCard({
   group,
-  role,
   formatWhen,
+  onChange,
 }: {
   group: AnsweredGroup;
-  role: InboxRole;
+  onChange: (finding: FindingDto) => void;
   formatWhen: (iso: string) => string;
 }) {
   const styles = useStyles();
-  const notice = useSendReadyNotice();
   return (
     <Card className={styles.group}>
       <div className={styles.groupHead}>
@@ -109,22 +118,9 @@ function AnsweredGroupCard({
         <Text>{group.vehicle}</Text>
         <Text className={styles.dim}>· {group.customerName}</Text>
         <span className={styles.spacer} />
-        {role === 'advisor' && (
-          <Button disabled={notice.isPending} onClick={() => notice.mutate(group.repairOrderId)}>
-            {notice.isPending ? 'Sending…' : 'E-mail the customer: vehicle ready'}
-          </Button>
-        )}
+        {/* The ready notice goes from the RO page, once the work is done. */}
+        <RouterLink to={paths.repairOrder(group.repairOrderId)}>Open RO {group.repairOrderNumber}</RouterLink>
       </div>
-      {notice.isSuccess && (
-        <Caption1 className={styles.status} role="status">
-          Ready notice sent to {notice.data.to}.
-        </Caption1>
-      )}
-      {notice.isError && (
-        <Caption1 className={styles.statusError} role="alert">
-          {formErrorText(notice.error)}
-        </Caption1>
-      )}
       {group.findings.map((finding) => (
         <div key={finding.id} className={styles.answered}>
           <div className={styles.answeredText}>
@@ -137,16 +133,20 @@ function AnsweredGroupCard({
                 Line {finding.lineNo} · {finding.lineTitle}
               </Text>
             </div>
-            <Body1>{finding.note}</Body1>
+            <Body1>{finding.customerWording ?? finding.note}</Body1>
             <Caption1 className={styles.status}>
-              {finding.answer === 'approved' ? 'Approved' : 'Declined'}
-              {finding.answeredBy && ` by ${finding.answeredBy}`}
+              {answeredText(finding)}
               {finding.answeredAt && `, ${formatWhen(finding.answeredAt)}`}
               {finding.answer === 'approved' && finding.createdLineId !== null && ': a new line was added'}
               {finding.answer === 'declined' && finding.answerNote && `: “${finding.answerNote}”`}
               {' · found by '}
               {finding.technicianName}
             </Caption1>
+            <div>
+              <Button size="small" onClick={() => onChange(finding)}>
+                Change answer…
+              </Button>
+            </div>
           </div>
           <FindingPhotos
             photos={finding.photos}
@@ -165,11 +165,13 @@ export function FindingsInbox({
   tab,
   onTab,
   timeZone,
+  labourRateCents,
 }: {
   role: InboxRole;
   tab: InboxTab;
   onTab: (tab: InboxTab) => void;
   timeZone: string | undefined;
+  labourRateCents: number | undefined;
 }) {
   const styles = useStyles();
   const now = useMinuteNow();
@@ -178,27 +180,47 @@ export function FindingsInbox({
   const approved = useFindings('approved', tab === 'answered');
   const declined = useFindings('declined', tab === 'answered');
   const request = useRequestApproval();
+  const revoke = useRevokeApprovalLink();
+  const mayAsk = role === 'advisor' || role === 'owner';
   const [requestResults, setRequestResults] = useState<Record<number, { ok: boolean; text: string }>>({});
   const [fresh, setFresh] = useState<ReadonlySet<number>>(new Set());
-  const [dialog, setDialog] = useState<{ kind: 'approve' | 'decline'; finding: FindingDto } | null>(null);
+  const [dialog, setDialog] = useState<{
+    kind: 'quote' | 'approve' | 'decline' | 'change';
+    finding: FindingDto;
+  } | null>(null);
   const [done, setDone] = useState<string | null>(null);
 
   const onNew = useCallback((id: number) => setFresh((current) => new Set(current).add(id)), []);
   useFindingsLive(onNew);
 
-  const sorted = useMemo(() => sortPending(pending.data ?? []), [pending.data]);
+  const sorted = useMemo(() => sortPending(pending.data?.items ?? []), [pending.data]);
   const groups = useMemo(
-    () => groupAnswered([...(approved.data ?? []), ...(declined.data ?? [])]),
+    () => groupAnswered([...(approved.data?.items ?? []), ...(declined.data?.items ?? [])]),
     [approved.data, declined.data],
   );
+  const answeredNotShown =
+    (approved.data ? approved.data.total - approved.data.items.length : 0) +
+    (declined.data ? declined.data.total - declined.data.items.length : 0);
   const freshPending = sorted.filter((finding) => fresh.has(finding.id)).length;
 
   const askCustomer = (finding: FindingDto) =>
     request.mutate(finding.id, {
-      onSuccess: (mail) =>
+      onSuccess: (sent) =>
         setRequestResults((current) => ({
           ...current,
-          [finding.id]: { ok: true, text: `Approval request e-mailed to ${mail.to}.` },
+          ...Object.fromEntries(
+            sent.findingIds.map((id) => [
+              id,
+              {
+                ok: true,
+                text:
+                  `Approval link sent ${sentToText(sent)}` +
+                  (sent.findingIds.length > 1
+                    ? `, with ${sent.findingIds.length} findings of this RO.`
+                    : '.'),
+              },
+            ]),
+          ),
         })),
       onError: (error) =>
         setRequestResults((current) => ({
@@ -228,14 +250,28 @@ export function FindingsInbox({
           {result.text}
         </Caption1>
       );
-    if (finding.approvalRequestedAt)
+    if (finding.approvalLink)
       return (
         <Caption1 className={styles.status}>
-          Approval request e-mailed {formatWhen(finding.approvalRequestedAt)}.
+          {linkStateText(finding.approvalLink, formatWhen)}{' '}
+          {mayAsk && finding.approvalLink.status === 'active' && (
+            <Button
+              size="small"
+              appearance="transparent"
+              disabled={revoke.isPending}
+              onClick={() => revoke.mutate(finding.approvalLink!.id)}
+            >
+              Withdraw the link
+            </Button>
+          )}
         </Caption1>
       );
-    if (!finding.customerHasEmail && role === 'advisor')
-      return <Caption1 className={styles.dim}>No e-mail on file for this customer: ask by phone.</Caption1>;
+    if (!finding.customerHasEmail && !finding.customerHasMobile && mayAsk)
+      return (
+        <Caption1 className={styles.dim}>
+          No e-mail or mobile number on file for this customer: ask by phone.
+        </Caption1>
+      );
     return null;
   };
 
@@ -258,10 +294,10 @@ export function FindingsInbox({
             {pending.data && (
               <CounterBadge
                 className={styles.tabCount}
-                count={pending.data.length}
+                count={pending.data.total}
                 showZero
                 appearance="filled"
-                color={pending.data.length > 0 ? 'brand' : 'informative'}
+                color={pending.data.total > 0 ? 'brand' : 'informative'}
               />
             )}
             {freshPending > 0 && <span className={styles.freshCount}> · {freshPending} new</span>}
@@ -304,20 +340,28 @@ export function FindingsInbox({
                   status={statusOf(finding)}
                   actions={
                     <>
-                      {role === 'advisor' && (
-                        <Button
-                          disabled={
-                            !finding.customerHasEmail ||
-                            (request.isPending && request.variables === finding.id)
-                          }
-                          onClick={() => askCustomer(finding)}
-                        >
-                          {request.isPending && request.variables === finding.id
-                            ? 'Sending…'
-                            : finding.approvalRequestedAt
-                              ? 'Send the approval request again'
-                              : 'Send approval request to customer'}
-                        </Button>
+                      {mayAsk && (
+                        <>
+                          <Button onClick={() => setDialog({ kind: 'quote', finding })}>
+                            {finding.customerWording === null
+                              ? 'Review for the customer…'
+                              : 'Edit wording and price…'}
+                          </Button>
+                          <Button
+                            disabled={
+                              finding.customerWording === null ||
+                              (!finding.customerHasEmail && !finding.customerHasMobile) ||
+                              (request.isPending && request.variables === finding.id)
+                            }
+                            onClick={() => askCustomer(finding)}
+                          >
+                            {request.isPending && request.variables === finding.id
+                              ? 'Sending…'
+                              : finding.approvalLink
+                                ? 'Send a new approval link'
+                                : 'Send approval link'}
+                          </Button>
+                        </>
                       )}
                       <Button appearance="primary" onClick={() => setDialog({ kind: 'approve', finding })}>
                         Customer approved…
@@ -345,13 +389,34 @@ export function FindingsInbox({
       ) : (
         <div className={styles.list}>
           {groups.map((group) => (
-            <AnsweredGroupCard key={group.repairOrderId} group={group} role={role} formatWhen={formatWhen} />
+            <AnsweredGroupCard
+              key={group.repairOrderId}
+              group={group}
+              formatWhen={formatWhen}
+              onChange={(finding) => setDialog({ kind: 'change', finding })}
+            />
           ))}
+          {answeredNotShown > 0 && (
+            <Caption1 className={styles.dim}>
+              The latest answers are shown; {answeredNotShown.toLocaleString('en-US')} older ones are on their
+              repair orders.
+            </Caption1>
+          )}
         </div>
       )}
 
+      {dialog?.kind === 'quote' && (
+        <QuoteDialog
+          finding={dialog.finding}
+          labourRateCents={labourRateCents}
+          onClose={() => setDialog(null)}
+        />
+      )}
       {dialog?.kind === 'approve' && (
         <ApproveDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
+      )}
+      {dialog?.kind === 'change' && (
+        <ChangeAnswerDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />
       )}
       {dialog?.kind === 'decline' && (
         <DeclineDialog finding={dialog.finding} onClose={() => setDialog(null)} onDone={finish} />

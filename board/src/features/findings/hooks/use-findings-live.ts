@@ -1,11 +1,10 @@
 import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
-import { useOfficeSocket } from '@/lib/use-office-socket';
 import { findingsKey } from '../api/get-findings';
 
-/** Keeps the inbox current: a new finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
+/** Keeps the inbox current: a new or answered finding or a changed job line reloads the lists; `onNew` hears each new finding's id. */
 export function useFindingsLive(onNew: (findingId: number) => void): void {
   const token = useSyncExternalStore(officeToken.subscribe, officeToken.get, officeToken.get);
   const queryClient = useQueryClient();
@@ -19,14 +18,15 @@ export function useFindingsLive(onNew: (findingId: number) => void): void {
     [queryClient],
   );
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       socket.on('finding.created', ({ findingId }) => {
         onNewRef.current(findingId);
         refresh();
       });
+      socket.on('finding.answered', refresh);
       socket.on('job-line.updated', refresh);
     },
     [refresh],
   );
-  useOfficeSocket(token, wire, refresh);
+  useOfficeLive(token, wire, refresh);
 }

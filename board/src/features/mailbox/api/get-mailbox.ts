@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MailboxEntry } from '@baytime/shared';
+import type { MailboxEntry, Page } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 
-/** What the local test mail server received, newest first. */
-export function getMailbox(): Promise<MailboxEntry[]> {
-  return officeApi.get<MailboxEntry[]>('/mailbox');
+/** The newest hundred messages the local test mail server received, newest first. */
+export function getMailbox(): Promise<Page<MailboxEntry>> {
+  return officeApi.get<Page<MailboxEntry>>('/mailbox?limit=100');
 }
 
 export const mailboxQueryOptions = () => queryOptions({ queryKey: ['mailbox'], queryFn: getMailbox });

@@ -172,7 +172,7 @@ export function MailboxView({
         <MessageBarBody>{formErrorText(mailbox.error)}</MessageBarBody>
       </MessageBar>
     );
-  const messages = mailbox.data;
+  const messages = mailbox.data.items;
   if (messages.length === 0)
     return (
       <Card className={styles.empty}>
@@ -231,7 +231,9 @@ export function MailboxView({
     <div className={styles.panes}>
       <Card className={styles.listCard}>
         <Caption1 className={styles.listHead}>
-          {messages.length} message{messages.length === 1 ? '' : 's'}, newest first
+          {mailbox.data.total > messages.length
+            ? `The newest ${messages.length} of ${mailbox.data.total.toLocaleString('en-US')} messages`
+            : `${messages.length} message${messages.length === 1 ? '' : 's'}, newest first`}
         </Caption1>
         <ul className={styles.list} ref={list} aria-label="Messages">
           {messages.map(row)}

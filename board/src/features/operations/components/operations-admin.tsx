@@ -1,6 +1,6 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useEffect, useState } from 'react';
 import { FormErrorBar } from '@/components/form-error-bar';
-import { useCheckedSubmit } from '@/hooks/use-checked-submit';
+import { showServerErrors, useSchemaForm } from '@/lib/form';
 import {
   Button,
   Card,
@@ -21,14 +21,18 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import { operationInputSchema, updateOperationSchema, type OperationDto } from '@baytime/shared';
-import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import {
+  operationInputSchema,
+  parseDecimal,
+  updateOperationSchema,
+  type OperationDto,
+} from '@baytime/shared';
+import { formErrorText } from '@/lib/form-errors';
 import { useOperations } from '../api/get-operations';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 
 const SKILL_LEVELS = [1, 2, 3, 4, 5] as const;
-const HOURS_MESSAGE = 'Enter hours between 0 and 99, e.g. 1.5';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -47,15 +51,8 @@ const useStyles = makeStyles({
   numeric: { fontVariantNumeric: 'tabular-nums' },
 });
 
-/** Typed hours to a number; `undefined` for blank or non-numeric text so the schema flags it. */
-function parseHours(text: string): number | undefined {
-  const value = Number(text.trim());
-  return text.trim() === '' || Number.isNaN(value) ? undefined : value;
-}
-
-function withHoursMessage(errors: FieldErrors): FieldErrors {
-  return errors.defaultBookHours ? { ...errors, defaultBookHours: HOURS_MESSAGE } : errors;
-}
+/** Typed hours as a number when they read as one ("0x10" does not); the schema says what is wrong. */
+const asHours = (value: unknown) => (typeof value === 'string' ? (parseDecimal(value) ?? value) : value);
 
 function formatHours(hours: number): string {
   return `${hours.toFixed(1)} h`;
@@ -64,53 +61,44 @@ function formatHours(hours: number): string {
 export function AddOperationForm() {
   const styles = useStyles();
   const create = useCreateOperation();
-  const [title, setTitle] = useState('');
-  const [hours, setHours] = useState('');
-  const [skillLevel, setSkillLevel] = useState(1);
-  const {
-    errors,
-    formError,
-    submit: check,
-  } = useCheckedSubmit(operationInputSchema, create, withHoursMessage);
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    check({ title, defaultBookHours: parseHours(hours), skillLevel }, () => {
-      setTitle('');
-      setHours('');
-      setSkillLevel(1);
-    });
-  };
+  const empty = { title: '', skillLevel: 1 };
+  const form = useSchemaForm(operationInputSchema, { defaultValues: empty });
+  const { errors } = form.formState;
+  const submit = form.handleSubmit((body) =>
+    create.mutate(body, {
+      onSuccess: () => form.reset(empty),
+      onError: (error) => showServerErrors(form, error),
+    }),
+  );
 
   return (
     <Card className={styles.card}>
       <Subtitle2 as="h2">Add an operation</Subtitle2>
-      <form className={styles.row} onSubmit={submit} noValidate>
+      <form className={styles.row} onSubmit={(event) => void submit(event)} noValidate>
         <Field
           label="Title"
           required
-          validationMessage={errors.title}
+          validationMessage={errors.title?.message}
           className={styles.title}
           hint="As the advisor picks it on a repair order"
         >
-          <Input value={title} maxLength={120} onChange={(_, data) => setTitle(data.value)} />
+          <Input maxLength={120} {...form.register('title')} />
         </Field>
         <Field
           label="Default book hours"
           required
-          validationMessage={errors.defaultBookHours}
+          validationMessage={errors.defaultBookHours?.message}
           className={styles.hours}
         >
           <Input
-            value={hours}
             className={styles.fill}
             inputMode="decimal"
             placeholder="1.5"
-            onChange={(_, data) => setHours(data.value)}
+            {...form.register('defaultBookHours', { setValueAs: asHours })}
           />
         </Field>
-        <Field label="Skill level (1–5)" validationMessage={errors.skillLevel}>
-          <Select value={String(skillLevel)} onChange={(_, data) => setSkillLevel(Number(data.value))}>
+        <Field label="Skill level (1–5)" validationMessage={errors.skillLevel?.message}>
+          <Select {...form.register('skillLevel', { valueAsNumber: true })}>
             {SKILL_LEVELS.map((level) => (
               <option key={level} value={level}>
                 {level}
@@ -122,7 +110,7 @@ export function AddOperationForm() {
           {create.isPending ? 'Adding…' : 'Add operation'}
         </Button>
       </form>
-      <FormErrorBar message={formError} />
+      <FormErrorBar message={errors.root?.server?.message ?? null} />
     </Card>
   );
 }
@@ -175,58 +163,50 @@ function OperationRow({
   const styles = useStyles();
   const update = useUpdateOperation();
   const [editing, setEditing] = useState(false);
-  const [title, setTitle] = useState(operation.title);
-  const [hours, setHours] = useState(String(operation.defaultBookHours));
-  const [errors, setErrors] = useState<FieldErrors>({});
-
+  const form = useSchemaForm(updateOperationSchema, {
+    defaultValues: { title: operation.title, defaultBookHours: operation.defaultBookHours },
+  });
+  const { errors } = form.formState;
   const cancel = () => {
     setEditing(false);
-    setTitle(operation.title);
-    setHours(String(operation.defaultBookHours));
-    setErrors({});
+    form.reset();
   };
-
-  const save = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = updateOperationSchema.safeParse({ title, defaultBookHours: parseHours(hours) });
-    if (!parsed.success) return setErrors(withHoursMessage(issuesToFieldErrors(parsed.error.issues)));
-    setErrors({});
+  const save = form.handleSubmit((body) => {
     onError(null);
     update.mutate(
-      { id: operation.id, ...parsed.data },
+      { id: operation.id, ...body },
       {
         onSuccess: () => setEditing(false),
         onError: (error) => {
           if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0)
-            setErrors(error.fieldErrors);
+            showServerErrors(form, error);
           else onError(`${operation.title}: ${formErrorText(error)}`);
         },
       },
     );
-  };
+  });
 
   return (
     <TableRow>
       {editing ? (
         <TableCell colSpan={2}>
-          <form className={styles.inline} onSubmit={save} noValidate>
+          <form className={styles.inline} onSubmit={(event) => void save(event)} noValidate>
             <Field
-              validationMessage={errors.title}
+              validationMessage={errors.title?.message}
               aria-label={`New title for ${operation.title}`}
               className={styles.title}
             >
-              <Input value={title} maxLength={120} autoFocus onChange={(_, data) => setTitle(data.value)} />
+              <Input maxLength={120} autoFocus {...form.register('title')} />
             </Field>
             <Field
-              validationMessage={errors.defaultBookHours}
+              validationMessage={errors.defaultBookHours?.message}
               aria-label={`Book hours for ${operation.title}`}
               className={styles.hours}
             >
               <Input
-                value={hours}
                 className={styles.fill}
                 inputMode="decimal"
-                onChange={(_, data) => setHours(data.value)}
+                {...form.register('defaultBookHours', { setValueAs: asHours })}
               />
             </Field>
             <Button type="submit" appearance="primary" disabled={update.isPending}>

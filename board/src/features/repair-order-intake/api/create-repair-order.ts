@@ -18,10 +18,11 @@ export function useCreateRepairOrder() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createRepairOrder,
-    // The lists and the dispatch queue (other features' queries) now hold a new RO.
+    // The lists, the vehicle's last visit and the dispatch queue (other features' queries) changed.
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: ['repair-orders'] }),
+        queryClient.invalidateQueries({ queryKey: ['vehicle'] }),
         queryClient.invalidateQueries({ queryKey: ['dispatch'] }),
       ]),
   });

@@ -19,27 +19,33 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import type { OpeningHours, OperationDto } from '@baytime/shared';
+import { normalizeVin, type OpeningHours, type OperationDto } from '@baytime/shared';
 import { paths } from '@/config/paths';
+import { useMinuteNow } from '@/hooks/use-minute-now';
+import { dateTimeFormat } from '@/lib/date-format';
 import { formErrorText } from '@/lib/form-errors';
 import { useCreateRepairOrder } from '../api/create-repair-order';
-import { useKnownVisits } from '../api/get-known-vehicles';
+import { useKnownVehicle } from '../api/get-known-vehicle';
 import { useOperations } from '../api/get-operations';
 import {
+  PROMISE_PASSED,
   bookHoursTotal,
+  differsFromReturning,
   emptyDraft,
   emptyLine,
   formKey,
   lineFromOperation,
   parseWhole,
-  previousVisit,
   promisedInstant,
   promiseChoices,
   toRepairOrder,
   vinFacts,
+  vinNeedsReason,
+  withReturningCustomer,
   type FieldErrors,
   type IntakeDraft,
   type LineDraft,
+  type OverrideReasons,
 } from '../intake-form';
 import { OperationPicker } from './operation-picker';
 import { VinInput } from './vin-input';
@@ -105,6 +111,8 @@ const useStyles = makeStyles({
   actions: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
 });
 
+const VISIT_DATE: Intl.DateTimeFormatOptions = { month: 'short', day: 'numeric', year: 'numeric' };
+
 function timeZoneName(timeZone: string): string {
   try {
     return (
@@ -134,9 +142,10 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const navigate = useNavigate();
   const create = useCreateRepairOrder();
   const operations = useOperations();
-  const visits = useKnownVisits();
   const formRef = useRef<HTMLFormElement>(null);
-  // The promised field holds two inputs: each needs its own id, not the one the field hands out.
+  // The promised field holds two inputs: each needs its own id, not the one the field hands out, and
+  // its own name. Each names itself (aria-labelledby its own id reads its aria-label), or the field
+  // would name both after its label.
   const promisedDateId = useId();
   const promisedTimeId = useId();
 
@@ -145,15 +154,23 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const [formError, setFormError] = useState<string | null>(null);
   const [autoYear, setAutoYear] = useState<string | null>(null);
   const [odometerRefused, setOdometerRefused] = useState(false);
-  const [overrideReason, setOverrideReason] = useState('');
+  const [odometerReason, setOdometerReason] = useState('');
+  // Offered only once a save was refused for a VIN outside the rules a reason can waive.
+  const [vinRefused, setVinRefused] = useState(false);
+  const [vinReason, setVinReason] = useState('');
   const [attempt, setAttempt] = useState(0);
   const [newLineKey, setNewLineKey] = useState<string | null>(null);
 
   const vin = vinFacts(draft.vehicle.vin);
-  const visit = vin.state === 'valid' ? previousVisit(visits.data ?? [], draft.vehicle.vin) : null;
+  const vinText = normalizeVin(draft.vehicle.vin);
+  const known =
+    useKnownVehicle(vin.state === 'valid' || (vinRefused && vinText.length >= 5) ? vinText : null).data ??
+    null;
+  const lastOdometer = known?.lastOdometer ?? null;
   const typedOdometer = parseWhole(draft.vehicle.odometer);
-  const lowerThanVisit = visit !== null && typedOdometer !== null && typedOdometer < visit.odometer;
+  const lowerThanVisit = lastOdometer !== null && typedOdometer !== null && typedOdometer < lastOdometer;
   const [nowMs] = useState(() => Date.now());
+  const minuteNow = useMinuteNow();
   const choices = useMemo(
     () => (openingHours ? promiseChoices(openingHours, timeZone, new Date(nowMs)) : []),
     [openingHours, timeZone, nowMs],
@@ -166,9 +183,11 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   useEffect(() => {
     if (attempt === 0) return;
     const form = formRef.current;
-    const target = odometerRefused
-      ? form?.querySelector<HTMLElement>('#odometer-override-reason')
-      : form?.querySelector<HTMLElement>('[aria-invalid="true"]');
+    const target = vinRefused
+      ? form?.querySelector<HTMLElement>('#vin-override-reason')
+      : odometerRefused
+        ? form?.querySelector<HTMLElement>('#odometer-override-reason')
+        : form?.querySelector<HTMLElement>('[aria-invalid="true"]');
     target?.focus();
     // Only a new refused save moves the focus, not later edits.
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -206,7 +225,8 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
       setAutoYear(String(facts.year));
       clear('vehicle.year');
     }
-    clear('vehicle.vin');
+    clear('vehicle.vin', 'vinOverrideReason');
+    if (normalizeVin(value) !== vinText) setVinRefused(false);
   };
 
   const setLine = (index: number, change: (line: LineDraft) => LineDraft, ...keys: string[]) => {
@@ -229,11 +249,13 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
     );
   };
 
-  const save = (reason?: string) => {
+  const save = (reasons: OverrideReasons = {}) => {
     setFormError(null);
-    const result = toRepairOrder(draft, timeZone, reason);
+    const now = new Date();
+    const result = toRepairOrder(draft, timeZone, reasons, now);
     if (!result.body) {
       setErrors(result.errors);
+      if (!reasons.vin && vinNeedsReason(draft, timeZone, now)) setVinRefused(true);
       setAttempt((n) => n + 1);
       return;
     }
@@ -245,7 +267,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
           const mapped: FieldErrors = {};
           for (const [key, message] of Object.entries(error.fieldErrors)) mapped[formKey(key)] = message;
           setErrors(mapped);
-          if (mapped['vehicle.odometer'] && reason === undefined) setOdometerRefused(true);
+          if (mapped['vehicle.odometer'] && reasons.odometer === undefined) setOdometerRefused(true);
           setAttempt((n) => n + 1);
           return;
         }
@@ -256,21 +278,30 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    save();
+    if (vinRefused || odometerRefused) saveWithReasons();
+    else save();
   };
 
-  const saveAnyway = () => {
-    if (overrideReason.trim().length < 3) {
-      setErrors((current) => ({ ...current, odometerOverrideReason: 'Say why, in a few words' }));
+  /** Saves with every reason the advisor was asked for; a missing one is marked at its field. */
+  const saveWithReasons = () => {
+    const missing: FieldErrors = {};
+    if (odometerRefused && odometerReason.trim().length < 3)
+      missing.odometerOverrideReason = 'Say why, in a few words';
+    if (vinRefused && vinReason.trim().length < 3) missing.vinOverrideReason = 'Say why, in a few words';
+    if (Object.keys(missing).length) {
+      setErrors((current) => ({ ...current, ...missing }));
       return;
     }
-    save(overrideReason);
+    save({
+      odometer: odometerRefused ? odometerReason : undefined,
+      vin: vinRefused ? vinReason : undefined,
+    });
   };
 
   const errorCount = Object.values(errors).filter(Boolean).length;
   const total = bookHoursTotal(draft.lines);
   const promised = promisedInstant(draft.promisedDate, draft.promisedTime, timeZone);
-  const promisedPassed = promised !== null && promised.getTime() < nowMs;
+  const promisedPassed = promised !== null && promised.getTime() <= minuteNow;
 
   return (
     <form ref={formRef} className={styles.form} onSubmit={submit} noValidate aria-label="New repair order">
@@ -345,15 +376,57 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
               >
                 <VinInput value={draft.vehicle.vin} onValueChange={setVin} />
               </Field>
-              {visit && (
+              {vinRefused && (
+                <div className={mergeClasses(styles.override, styles.wide)}>
+                  <Field
+                    className={styles.overrideField}
+                    label="Built before 1981, or outside North America? Say why this VIN is right"
+                    validationMessage={errors.vinOverrideReason}
+                    hint="For example: imported, the maker uses no check digit. The reason is kept with the RO."
+                  >
+                    <Input
+                      id="vin-override-reason"
+                      value={vinReason}
+                      onChange={(_, data) => {
+                        setVinReason(data.value);
+                        clear('vinOverrideReason');
+                      }}
+                    />
+                  </Field>
+                  <Button onClick={saveWithReasons} disabled={create.isPending}>
+                    Save with this VIN
+                  </Button>
+                </div>
+              )}
+              {known && (
                 <div className={mergeClasses(styles.visit, styles.wide)} role="status">
                   <Caption1>
-                    Seen before: RO {visit.number}, {visit.vehicle}, {visit.customerName},{' '}
-                    {visit.odometer.toLocaleString('en-US')} {unit}.
+                    Seen before:{' '}
+                    {known.lastVisit
+                      ? `RO ${known.lastVisit.number} on ${dateTimeFormat(timeZone, VISIT_DATE).format(new Date(known.lastVisit.date))}, `
+                      : ''}
+                    {known.year} {known.make} {known.model}
+                    {known.plate ? ` (${known.plate})` : ''}, {known.customer.name}
+                    {lastOdometer !== null ? `, ${lastOdometer.toLocaleString('en-US')} ${unit}` : ''}.
                   </Caption1>
-                  {draft.customer.name.trim() === '' && (
-                    <Button size="small" onClick={() => setCustomer('name', visit.customerName)}>
-                      Use {visit.customerName}
+                  {differsFromReturning(draft, known) && (
+                    <Button
+                      size="small"
+                      onClick={() => {
+                        setDraft((d) => withReturningCustomer(d, known));
+                        setAutoYear(null);
+                        clear(
+                          'customer.name',
+                          'customer.phone',
+                          'customer.email',
+                          'vehicle.year',
+                          'vehicle.make',
+                          'vehicle.model',
+                          'vehicle.plate',
+                        );
+                      }}
+                    >
+                      Use {known.customer.name}’s details
                     </Button>
                   )}
                 </div>
@@ -388,8 +461,8 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
                 required
                 validationMessage={
                   errors['vehicle.odometer'] ??
-                  (lowerThanVisit && visit
-                    ? `Lower than at RO ${visit.number} (${visit.odometer.toLocaleString('en-US')}): check it`
+                  (lowerThanVisit && lastOdometer !== null
+                    ? `Lower than the last visit (${lastOdometer.toLocaleString('en-US')}): check it`
                     : undefined)
                 }
                 validationState={errors['vehicle.odometer'] ? 'error' : lowerThanVisit ? 'warning' : 'none'}
@@ -410,14 +483,14 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
                   >
                     <Input
                       id="odometer-override-reason"
-                      value={overrideReason}
+                      value={odometerReason}
                       onChange={(_, data) => {
-                        setOverrideReason(data.value);
+                        setOdometerReason(data.value);
                         clear('odometerOverrideReason');
                       }}
                     />
                   </Field>
-                  <Button onClick={saveAnyway} disabled={create.isPending}>
+                  <Button onClick={saveWithReasons} disabled={create.isPending}>
                     Save anyway
                   </Button>
                 </div>
@@ -446,13 +519,15 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
           </Field>
           <Field
             label={`Promised for (shop time, ${zoneName})`}
-            validationMessage={errors.promised}
-            hint={promisedPassed ? 'That time has already passed' : 'Leave empty when no time was promised'}
+            validationMessage={errors.promised ?? (promisedPassed ? PROMISE_PASSED : undefined)}
+            validationState={errors.promised || promisedPassed ? 'error' : 'none'}
+            hint="Leave empty when no time was promised"
           >
             <div className={styles.promised}>
               <Input
                 type="date"
                 id={promisedDateId}
+                aria-labelledby={promisedDateId}
                 aria-label="Promised date"
                 value={draft.promisedDate}
                 onChange={(_, data) => {
@@ -463,6 +538,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
               <Input
                 type="time"
                 id={promisedTimeId}
+                aria-labelledby={promisedTimeId}
                 aria-label="Promised time"
                 value={draft.promisedTime}
                 onChange={(_, data) => {
@@ -577,12 +653,22 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
         </div>
       </Card>
 
-      {errorCount > 0 && !odometerRefused && (
+      {errorCount > 0 && !odometerRefused && !vinRefused && (
         <MessageBar intent="error">
           <MessageBarBody>
             <MessageBarTitle>Not written yet</MessageBarTitle>
             {errorCount === 1 ? 'One field needs' : `${errorCount} fields need`} attention: see the marked
             fields.
+          </MessageBarBody>
+        </MessageBar>
+      )}
+      {vinRefused && (
+        <MessageBar intent="warning">
+          <MessageBarBody>
+            <MessageBarTitle>
+              The VIN does not pass the check for 1981-on North American vehicles
+            </MessageBarTitle>
+            Correct the VIN, or say why it is right and press Save with this VIN.
           </MessageBarBody>
         </MessageBar>
       )}

@@ -1,11 +1,15 @@
 import { useLayoutEffect, useRef } from 'react';
 import { Input, makeStyles, tokens, type InputProps } from '@fluentui/react-components';
+import { normalizeVin } from '@baytime/shared';
 
 const useStyles = makeStyles({
   vin: { fontFamily: tokens.fontFamilyMonospace, letterSpacing: '0.08em' },
 });
 
-/** A VIN field that upper-cases as it is typed without moving the caret. */
+/**
+ * A VIN field that upper-cases as it is typed and drops the spaces and dashes of a VIN pasted in
+ * groups, without moving the caret.
+ */
 export function VinInput({
   value,
   onValueChange,
@@ -29,11 +33,11 @@ export function VinInput({
       input={{ className: styles.vin, spellCheck: false, autoCapitalize: 'characters' }}
       autoComplete="off"
       onChange={(event, data) => {
-        caret.current = [
-          event.target.selectionStart ?? data.value.length,
-          event.target.selectionEnd ?? data.value.length,
-        ];
-        onValueChange(data.value.toUpperCase());
+        // The caret keeps its place among the characters that stay.
+        const at = (position: number | null) =>
+          normalizeVin(data.value.slice(0, position ?? data.value.length)).length;
+        caret.current = [at(event.target.selectionStart), at(event.target.selectionEnd)];
+        onValueChange(normalizeVin(data.value));
       }}
     />
   );

@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { FindingDto } from '@baytime/shared';
+import type { FindingDto, FindingsPage } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 
-export function getRepairOrderFindings(repairOrderId: number): Promise<FindingDto[]> {
-  return officeApi.get<FindingDto[]>(`/findings?repairOrderId=${repairOrderId}`);
+/** An RO's findings: a handful per visit, well inside one page. */
+export async function getRepairOrderFindings(repairOrderId: number): Promise<FindingDto[]> {
+  return (await officeApi.get<FindingsPage>(`/findings?repairOrderId=${repairOrderId}&limit=100`)).items;
 }
 
 export const repairOrderFindingsQueryOptions = (repairOrderId: number) =>

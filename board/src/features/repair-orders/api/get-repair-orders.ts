@@ -1,16 +1,25 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { RepairOrderStatus, RepairOrderSummary } from '@baytime/shared';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { RepairOrderPage, RepairOrderSummary } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
 
 export type { RepairOrderSummary };
 
-export function getRepairOrders(status?: RepairOrderStatus): Promise<RepairOrderSummary[]> {
-  return officeApi.get<RepairOrderSummary[]>(status ? `/repair-orders?status=${status}` : '/repair-orders');
+/** One page of `GET /api/repair-orders`; `query` is made by `listQuery`. */
+export function getRepairOrderPage(query: string): Promise<RepairOrderPage> {
+  return officeApi.get<RepairOrderPage>(`/repair-orders?${query}`);
 }
 
-export const repairOrdersQueryOptions = (status?: RepairOrderStatus) =>
-  queryOptions({ queryKey: ['repair-orders', status ?? 'all'], queryFn: () => getRepairOrders(status) });
+/** Under `repairOrdersKey`: a change to any RO marks every page stale; only the page on screen reloads. */
+export const repairOrdersKey = ['repair-orders'] as const;
 
-export function useRepairOrders(status?: RepairOrderStatus) {
-  return useQuery(repairOrdersQueryOptions(status));
+export const repairOrderPageQueryOptions = (query: string) =>
+  queryOptions({
+    queryKey: [...repairOrdersKey, 'page', query],
+    queryFn: () => getRepairOrderPage(query),
+    // The last page stays on screen while the next one loads, so the table does not jump.
+    placeholderData: keepPreviousData,
+  });
+
+export function useRepairOrderPage(query: string) {
+  return useQuery(repairOrderPageQueryOptions(query));
 }

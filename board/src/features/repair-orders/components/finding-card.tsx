@@ -1,5 +1,10 @@
 import { Badge, Body1, Caption1, makeStyles, tokens } from '@fluentui/react-components';
-import type { FindingAnswer, FindingDto, FindingSeverity } from '@baytime/shared';
+import {
+  ANSWER_CHANNEL_WORDS,
+  type FindingAnswer,
+  type FindingDto,
+  type FindingSeverity,
+} from '@baytime/shared';
 import { formatBookHours, formatDateTime } from '../ro-format';
 import { FindingPhoto } from './finding-photo';
 
@@ -54,12 +59,13 @@ export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZo
         {finding.technicianName}, {formatDateTime(finding.createdAt, timeZone)}
         {finding.suggestedHours !== null && ` · suggests ${formatBookHours(finding.suggestedHours)}`}
         {finding.approvalRequestedAt &&
-          ` · approval e-mailed ${formatDateTime(finding.approvalRequestedAt, timeZone)}`}
+          ` · approval asked ${formatDateTime(finding.approvalRequestedAt, timeZone)}`}
       </Caption1>
       {finding.answer !== 'pending' && (
         <Caption1>
           <strong>{answer.label}</strong>
           {finding.answeredBy && ` by ${finding.answeredBy}`}
+          {finding.answerChannel && ` ${ANSWER_CHANNEL_WORDS[finding.answerChannel]}`}
           {finding.answeredAt && `, ${formatDateTime(finding.answeredAt, timeZone)}`}
           {finding.answerNote && `: “${finding.answerNote}”`}
           {finding.createdLineId !== null && ' · added as a new job line'}

@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import {
   Badge,
@@ -31,8 +31,19 @@ import { useRepairOrder } from '../api/get-repair-order';
 import { useRepairOrderFindings } from '../api/get-findings';
 import { useDispatch } from '../api/get-dispatch';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { useMinuteNow } from '@/hooks/use-minute-now';
-import { isLate, lateLineIds, lineRows, repairOrderHistory } from '../ro-model';
+import { lineRows } from '../ro-model';
+import { useRepairOrderHistory } from '../api/get-history';
+import {
+  useCloseRepairOrder,
+  useDeleteJobLine,
+  useRecordFinalCheck,
+  useReorderLines,
+  useSendReadyNotice,
+} from '../api/repair-order-changes';
+import { EditRepairOrderDialog } from './edit-repair-order-dialog';
+import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
+import { RepairOrderPrint } from './repair-order-print';
+import { sentToText } from '@/features/findings/findings-model';
 import {
   formatBookHours,
   formatDateTime,
@@ -92,7 +103,22 @@ const useStyles = makeStyles({
     gap: '4px',
   },
   when: { display: 'inline-block', minWidth: '11rem', color: tokens.colorNeutralForeground3 },
+  visit: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalM,
+    padding: tokens.spacingHorizontalL,
+  },
+  threeCs: { display: 'flex', flexDirection: 'column', gap: '2px', marginTop: '2px', whiteSpace: 'pre-wrap' },
+  lineActions: { display: 'flex', flexWrap: 'wrap', gap: '4px' },
+  screenOnly: { '@media print': { display: 'none' } },
 });
+
+type LineDialog =
+  | { kind: 'edit' | 'cancel'; line: RepairOrderSummary['lines'][number] }
+  | { kind: 'add' }
+  | { kind: 'edit-ro' };
 
 const STATUS = {
   open: { label: 'Open', color: 'brand' },
@@ -105,6 +131,7 @@ const LINE_STATUS_COLOURS = {
   working: 'brand',
   held: 'warning',
   done: 'success',
+  cancelled: 'subtle',
 } as const;
 
 export interface RepairOrderDetailProps {
@@ -183,12 +210,19 @@ function Detail({
 }: RepairOrderDetailProps & { ro: RepairOrderSummary }) {
   const styles = useStyles();
   const navigate = useNavigate();
-  const nowMs = useMinuteNow();
   const findings = useRepairOrderFindings(ro.id);
   const dispatch = useDispatch();
   const rows = lineRows(ro, dispatch.data, findings.data);
-  const late = isLate(ro, nowMs, lateLineIds(dispatch.data));
-  const history = repairOrderHistory(ro, findings.data ?? []);
+  const late = ro.late;
+  const history = useRepairOrderHistory(ro.id);
+  const [dialog, setDialog] = useState<LineDialog | null>(null);
+  const removeLine = useDeleteJobLine(ro.id);
+  const reorder = useReorderLines(ro.id);
+  const moveLine = (index: number, by: -1 | 1) => {
+    const ids = ro.lines.map((line) => line.id);
+    [ids[index], ids[index + by]] = [ids[index + by]!, ids[index]!];
+    reorder.mutate(ids);
+  };
   const status = STATUS[ro.status];
   const bookTotal = ro.lines.reduce((sum, line) => sum + line.bookHours, 0);
   const clockedTotal = rows.reduce((sum, row) => sum + row.clockedSeconds, 0);
@@ -211,6 +245,8 @@ function Detail({
             {canDispatch && ro.status === 'open' && (
               <Button onClick={() => void navigate(paths.dispatch)}>Open dispatch</Button>
             )}
+            <Button onClick={() => setDialog({ kind: 'edit-ro' })}>Edit details</Button>
+            <Button onClick={() => window.print()}>Print RO and job tickets</Button>
             <Button appearance="subtle" onClick={() => void navigate(paths.repairOrders)}>
               All repair orders
             </Button>
@@ -225,6 +261,8 @@ function Detail({
           </MessageBarBody>
         </MessageBar>
       )}
+
+      <VisitActions ro={ro} bay={dispatch.data?.bays.find((bay) => bay.repairOrderId === ro.id)} />
 
       <Card className={styles.facts}>
         <Fact label="Customer">
@@ -290,72 +328,127 @@ function Detail({
                 <TableHeaderCell>Clocked</TableHeaderCell>
                 <TableHeaderCell>Over / under</TableHeaderCell>
                 <TableHeaderCell>Finish</TableHeaderCell>
+                <TableHeaderCell>
+                  <span className="visually-hidden">Changes</span>
+                </TableHeaderCell>
               </TableRow>
             </TableHeader>
             <TableBody>
-              {rows.map(({ line, statusText, technician, bay, clockedSeconds, onTheClock, forecast }) => {
-                const over = clockedSeconds > line.bookHours * 3600 + 59;
-                const bayState = dispatch.data?.bays.find((b) => b.id === line.bayId)?.state;
-                return (
-                  <TableRow key={line.id}>
-                    <TableCell>
-                      <span className={styles.lineTitle}>
-                        L{line.lineNo} {line.title}
-                      </span>
-                      <Caption1 className={styles.dim}> · level {line.skillLevel}</Caption1>
-                    </TableCell>
-                    <TableCell>
-                      <div className={styles.status}>
-                        <Badge appearance="tint" color={LINE_STATUS_COLOURS[line.status]}>
-                          {statusText}
-                        </Badge>
-                        {onTheClock.length > 0 && (
-                          <Caption1 className={styles.cell}>
-                            <Glyph name="wrench" className={styles.glyph} />
-                            {onTheClock.join(', ')} on the clock
-                          </Caption1>
+              {rows.map(
+                ({ line, statusText, technician, bay, clockedSeconds, onTheClock, forecast }, index) => {
+                  const over = clockedSeconds > line.bookHours * 3600 + 59;
+                  const bayState = dispatch.data?.bays.find((b) => b.id === line.bayId)?.state;
+                  return (
+                    <TableRow key={line.id}>
+                      <TableCell>
+                        <span className={styles.lineTitle}>
+                          L{line.lineNo} {line.title}
+                        </span>
+                        <Caption1 className={styles.dim}> · level {line.skillLevel}</Caption1>
+                        <div className={styles.threeCs}>
+                          <Caption1>Concern: {line.concern}</Caption1>
+                          {line.cause && <Caption1>Cause: {line.cause}</Caption1>}
+                          {line.correction && <Caption1>Correction: {line.correction}</Caption1>}
+                          {line.cancelReason && <Caption1>Cancelled: {line.cancelReason}</Caption1>}
+                        </div>
+                      </TableCell>
+                      <TableCell>
+                        <div className={styles.status}>
+                          <Badge appearance="tint" color={LINE_STATUS_COLOURS[line.status]}>
+                            {statusText}
+                          </Badge>
+                          {onTheClock.length > 0 && (
+                            <Caption1 className={styles.cell}>
+                              <Glyph name="wrench" className={styles.glyph} />
+                              {onTheClock.join(', ')} on the clock
+                            </Caption1>
+                          )}
+                        </div>
+                      </TableCell>
+                      <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
+                      <TableCell>
+                        {bay ? (
+                          <span className={styles.cell}>
+                            {bayState && <Glyph name={BAY_PALETTE[bayState].icon} className={styles.glyph} />}
+                            {bay}
+                          </span>
+                        ) : (
+                          <span className={styles.dim}>—</span>
                         )}
-                      </div>
-                    </TableCell>
-                    <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
-                    <TableCell>
-                      {bay ? (
-                        <span className={styles.cell}>
-                          {bayState && <Glyph name={BAY_PALETTE[bayState].icon} className={styles.glyph} />}
-                          {bay}
-                        </span>
-                      ) : (
-                        <span className={styles.dim}>—</span>
-                      )}
-                    </TableCell>
-                    <TableCell className={styles.numeric}>{formatBookHours(line.bookHours)}</TableCell>
-                    <TableCell className={styles.numeric}>{formatHm(clockedSeconds)}</TableCell>
-                    <TableCell className={mergeClasses(styles.numeric, over ? styles.over : undefined)}>
-                      {clockedSeconds === 0 && line.status === 'queued'
-                        ? '—'
-                        : formatOverUnder(clockedSeconds, line.bookHours, line.status === 'done')}
-                    </TableCell>
-                    <TableCell className={styles.numeric}>
-                      {line.completedAt ? (
-                        <>Done {formatDateTime(line.completedAt, timeZone)}</>
-                      ) : forecast ? (
-                        <span className={forecast.late ? styles.late : undefined}>
-                          ≈ {formatDateTime(forecast.finishAt, timeZone)}
-                          {forecast.late && ' · LATE'}
-                        </span>
-                      ) : (
-                        <span className={styles.dim}>
-                          {line.status === 'held'
-                            ? 'On hold'
-                            : line.technicianId === null
-                              ? 'Not assigned'
-                              : '—'}
-                        </span>
-                      )}
-                    </TableCell>
-                  </TableRow>
-                );
-              })}
+                      </TableCell>
+                      <TableCell className={styles.numeric}>{formatBookHours(line.bookHours)}</TableCell>
+                      <TableCell className={styles.numeric}>{formatHm(clockedSeconds)}</TableCell>
+                      <TableCell className={mergeClasses(styles.numeric, over ? styles.over : undefined)}>
+                        {clockedSeconds === 0 && line.status === 'queued'
+                          ? '—'
+                          : formatOverUnder(clockedSeconds, line.bookHours, line.status === 'done')}
+                      </TableCell>
+                      <TableCell className={styles.numeric}>
+                        {line.completedAt ? (
+                          <>Done {formatDateTime(line.completedAt, timeZone)}</>
+                        ) : forecast ? (
+                          <span className={line.late ? styles.late : undefined}>
+                            ≈ {formatDateTime(forecast.finishAt, timeZone)}
+                            {line.late && ' · LATE'}
+                          </span>
+                        ) : (
+                          <span className={styles.dim}>
+                            {line.status === 'held'
+                              ? 'On hold'
+                              : line.technicianId === null
+                                ? 'Not assigned'
+                                : '—'}
+                          </span>
+                        )}
+                      </TableCell>
+                      <TableCell>
+                        <div className={styles.lineActions}>
+                          <Button size="small" onClick={() => setDialog({ kind: 'edit', line })}>
+                            Edit
+                          </Button>
+                          {line.status !== 'done' &&
+                            line.status !== 'cancelled' &&
+                            ro.status !== 'closed' && (
+                              <Button
+                                size="small"
+                                onClick={() =>
+                                  clockedSeconds > 0
+                                    ? setDialog({ kind: 'cancel', line })
+                                    : removeLine.mutate(line.id, {
+                                        // Time, a finding or a timer on it: it can only be cancelled.
+                                        onError: () => setDialog({ kind: 'cancel', line }),
+                                      })
+                                }
+                              >
+                                {clockedSeconds > 0 ? 'Cancel…' : 'Delete'}
+                              </Button>
+                            )}
+                          <Button
+                            size="small"
+                            appearance="subtle"
+                            aria-label={`Move L${line.lineNo} up`}
+                            disabled={index === 0 || reorder.isPending || ro.status === 'closed'}
+                            onClick={() => moveLine(index, -1)}
+                          >
+                            ↑
+                          </Button>
+                          <Button
+                            size="small"
+                            appearance="subtle"
+                            aria-label={`Move L${line.lineNo} down`}
+                            disabled={
+                              index === rows.length - 1 || reorder.isPending || ro.status === 'closed'
+                            }
+                            onClick={() => moveLine(index, 1)}
+                          >
+                            ↓
+                          </Button>
+                        </div>
+                      </TableCell>
+                    </TableRow>
+                  );
+                },
+              )}
               <TableRow>
                 <TableCell className={styles.total}>Total</TableCell>
                 <TableCell />
@@ -369,10 +462,16 @@ function Detail({
                 </TableCell>
                 <TableCell />
                 <TableCell />
+                <TableCell />
               </TableRow>
             </TableBody>
           </Table>
         </div>
+        {ro.status !== 'closed' && (
+          <div>
+            <Button onClick={() => setDialog({ kind: 'add' })}>Add a job line</Button>
+          </div>
+        )}
       </section>
 
       <section className={styles.section} aria-labelledby="ro-findings">
@@ -407,15 +506,95 @@ function Detail({
         <Subtitle2 as="h2" id="ro-history">
           History
         </Subtitle2>
-        <ul className={styles.history}>
-          {history.map((entry, index) => (
-            <li key={`${entry.at}-${index}`}>
-              <Caption1 className={styles.when}>{formatDateTime(entry.at, timeZone)}</Caption1>
-              <Body1>{entry.text}</Body1>
-            </li>
-          ))}
-        </ul>
+        {history.isPending ? (
+          <Spinner size="small" label="Loading the history…" />
+        ) : history.isError ? (
+          <MessageBar intent="error">
+            <MessageBarBody>{formErrorText(history.error)}</MessageBarBody>
+          </MessageBar>
+        ) : (
+          <ul className={styles.history}>
+            {[...history.data].reverse().map((entry, index) => (
+              <li key={`${entry.at}-${index}`}>
+                <Caption1 className={styles.when}>{formatDateTime(entry.at, timeZone)}</Caption1>
+                <Body1>
+                  {entry.text}
+                  {entry.actorName && <span className={styles.dim}> · {entry.actorName}</span>}
+                </Body1>
+              </li>
+            ))}
+          </ul>
+        )}
       </section>
+
+      <RepairOrderPrint ro={ro} units={units} timeZone={timeZone} />
+
+      {dialog?.kind === 'edit-ro' && <EditRepairOrderDialog ro={ro} onClose={() => setDialog(null)} />}
+      {dialog?.kind === 'add' && (
+        <AddLineDialog repairOrderId={ro.id} concern={ro.concern} onClose={() => setDialog(null)} />
+      )}
+      {dialog?.kind === 'edit' && (
+        <EditLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
+      )}
+      {dialog?.kind === 'cancel' && (
+        <CancelLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
+      )}
     </div>
+  );
+}
+
+/**
+ * The end of the visit, in order: the final check of the bay holding the vehicle, the ready notice
+ * once the work is done, and the pick-up that closes the RO and frees the bay.
+ */
+function VisitActions({
+  ro,
+  bay,
+}: {
+  ro: RepairOrderSummary;
+  bay: { id: number; name: string; state: string } | undefined;
+}) {
+  const styles = useStyles();
+  const finalCheck = useRecordFinalCheck(ro.id);
+  const notice = useSendReadyNotice(ro.id);
+  const close = useCloseRepairOrder(ro.id);
+  const failed = finalCheck.error ?? notice.error ?? close.error;
+  if (ro.status === 'closed')
+    return (
+      <MessageBar intent="info">
+        <MessageBarBody>Picked up: this repair order is closed.</MessageBarBody>
+      </MessageBar>
+    );
+  if (ro.status !== 'done' && bay?.state !== 'check') return null;
+  return (
+    <Card
+      className={mergeClasses(styles.visit, styles.screenOnly)}
+      role="group"
+      aria-label="End of the visit"
+    >
+      {bay?.state === 'check' && (
+        <Button disabled={finalCheck.isPending} onClick={() => finalCheck.mutate(bay.id)}>
+          Final check done: {bay.name} ready
+        </Button>
+      )}
+      {ro.status === 'done' && (
+        <>
+          <Button
+            disabled={notice.isPending || (!ro.customerEmail && !ro.customerPhone)}
+            onClick={() => notice.mutate()}
+          >
+            {notice.isPending ? 'Sending…' : 'Tell the customer: vehicle ready'}
+          </Button>
+          <Button appearance="primary" disabled={close.isPending} onClick={() => close.mutate()}>
+            Vehicle picked up: close the RO
+          </Button>
+        </>
+      )}
+      {notice.isSuccess && <Caption1 role="status">Ready notice sent {sentToText(notice.data)}.</Caption1>}
+      {!ro.customerEmail && !ro.customerPhone && ro.status === 'done' && (
+        <Caption1>No e-mail or phone on file: tell the customer at the counter.</Caption1>
+      )}
+      {failed && <Caption1 role="alert">{formErrorText(failed)}</Caption1>}
+    </Card>
   );
 }

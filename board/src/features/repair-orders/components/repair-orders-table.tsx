@@ -1,8 +1,9 @@
-import { useMemo } from 'react';
+import { useEffect, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
 import {
   Badge,
   Body1,
+  Button,
   Caption1,
   MessageBar,
   MessageBarBody,
@@ -23,21 +24,22 @@ import {
 } from '@fluentui/react-components';
 import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
-import { useRepairOrders } from '../api/get-repair-orders';
-import { useDispatch } from '../api/get-dispatch';
-import { useMinuteNow } from '@/hooks/use-minute-now';
+import { usePeople } from '../api/get-advisors';
+import { useRepairOrderPage } from '../api/get-repair-orders';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
 import {
-  advisorsOf,
-  filterRepairOrders,
+  advisorChoices,
   filtersFromParams,
   filtersToParams,
-  isLate,
-  lateLineIds,
-  statusForServer,
+  listQuery,
+  pageRange,
   type RepairOrderFilters,
   type StatusFilter,
 } from '../ro-model';
 import { formatBookHours, formatDateTime } from '../ro-format';
+
+const PAGE_SIZE = 50;
+const SEARCH_SETTLE_MS = 300;
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -51,6 +53,13 @@ const useStyles = makeStyles({
   },
   search: { width: '22rem', maxWidth: '100%' },
   count: { color: tokens.colorNeutralForeground3, marginLeft: 'auto' },
+  pager: {
+    display: 'flex',
+    alignItems: 'center',
+    justifyContent: 'flex-end',
+    gap: tokens.spacingHorizontalM,
+    marginTop: tokens.spacingVerticalM,
+  },
   dim: { color: tokens.colorNeutralForeground3 },
   number: {
     fontWeight: tokens.fontWeightSemibold,
@@ -76,25 +85,49 @@ const FILTER_LABELS: Record<StatusFilter, string> = {
   closed: 'Closed',
 };
 
-/** `timeZone`: the shop's, so promised times and "today" are the shop's. */
-export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }) {
+interface RepairOrdersTableProps {
+  /** The shop's, so promised times and "today" are the shop's. */
+  timeZone: string | undefined;
+  me: { id: number };
+  /** Owners and foremen may read the shop's people, to filter by any advisor. */
+  canListPeople: boolean;
+}
+
+/** The office's repair orders, a page at a time; the server filters and searches. */
+export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersTableProps) {
   const styles = useStyles();
   const navigate = useNavigate();
   const [params, setParams] = useSearchParams();
   const filters = filtersFromParams(params);
-  const orders = useRepairOrders(statusForServer(filters.status));
-  const dispatch = useDispatch();
-  const nowMs = useMinuteNow();
-  const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
-  const lateLines = useMemo(() => lateLineIds(dispatch.data), [dispatch.data]);
-
+  const [searchText, setSearchText] = useState(filters.search);
+  const search = useDebouncedValue(searchText, SEARCH_SETTLE_MS);
   const set = (change: Partial<RepairOrderFilters>) =>
     setParams(filtersToParams({ ...filters, ...change }), { replace: true });
+  useEffect(() => {
+    if (search.trim() !== filters.search)
+      setParams(filtersToParams({ ...filters, search }), { replace: true });
+    // Only a settled search text moves into the address.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [search]);
 
-  const all = orders.data ?? [];
-  const advisors = advisorsOf(all);
-  const shown = filterRepairOrders(all, filters, { nowMs, timeZone: zone, lateLines });
-  const lateCount = all.filter((ro) => isLate(ro, nowMs, lateLines)).length;
+  // A cursor per page seen, so Previous goes back without the server counting offsets; any other
+  // filter starts again at the first page.
+  const filterKey = listQuery(filters, { limit: PAGE_SIZE });
+  const [paging, setPaging] = useState<{ key: string; cursors: (string | undefined)[] }>({
+    key: filterKey,
+    cursors: [undefined],
+  });
+  const cursors = paging.key === filterKey ? paging.cursors : [undefined];
+  const pageIndex = cursors.length - 1;
+  const orders = useRepairOrderPage(listQuery(filters, { limit: PAGE_SIZE, cursor: cursors[pageIndex] }));
+  const lateCount = useRepairOrderPage(listQuery({ ...filters, late: true }, { limit: 1 })).data?.total;
+  const people = usePeople(canListPeople);
+  const advisors = advisorChoices(canListPeople ? people.data : undefined, me);
+
+  const shown = orders.data?.items ?? [];
+  const total = orders.data?.total ?? 0;
+  const nextCursor = orders.data?.nextCursor ?? null;
+  const filtered = filtersToParams(filters).size > 0;
 
   return (
     <>
@@ -113,10 +146,10 @@ export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }
       <div className={styles.filters} role="group" aria-label="Filters">
         <SearchBox
           className={styles.search}
-          placeholder="RO, customer, vehicle or VIN"
+          placeholder="RO, customer, phone, plate or VIN"
           aria-label="Search repair orders"
-          value={filters.search}
-          onChange={(_, data) => set({ search: data.value })}
+          value={searchText}
+          onChange={(_, data) => setSearchText(data.value)}
         />
         {advisors.length > 0 && (
           <Select
@@ -144,11 +177,11 @@ export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }
           checked={filters.late}
           onClick={() => set({ late: !filters.late })}
         >
-          Late{lateCount > 0 ? ` (${lateCount})` : ''}
+          Late{lateCount ? ` (${lateCount})` : ''}
         </ToggleButton>
         {orders.isSuccess && (
           <Caption1 className={styles.count} role="status">
-            {shown.length} of {all.length} shown
+            {pageRange(pageIndex, PAGE_SIZE, shown.length, total)}
           </Caption1>
         )}
       </div>
@@ -160,7 +193,7 @@ export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }
         </MessageBar>
       ) : shown.length === 0 ? (
         <Body1 className={styles.dim}>
-          {all.length === 0 ? 'No repair orders here.' : 'No repair order matches these filters.'}
+          {filtered ? 'No repair order matches these filters.' : 'No repair orders here.'}
         </Body1>
       ) : (
         <div className={styles.scroll}>
@@ -181,7 +214,8 @@ export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }
                 const done = order.lines.filter((line) => line.status === 'done').length;
                 const held = order.lines.filter((line) => line.status === 'held').length;
                 const book = order.lines.reduce((sum, line) => sum + line.bookHours, 0);
-                const late = isLate(order, nowMs, lateLines);
+                // Late by the one definition dispatch and the wall count, worked out by the server.
+                const late = order.late;
                 return (
                   <TableRow
                     key={order.id}
@@ -223,6 +257,20 @@ export function RepairOrdersTable({ timeZone }: { timeZone: string | undefined }
               })}
             </TableBody>
           </Table>
+          <nav className={styles.pager} aria-label="Pages">
+            <Button
+              disabled={pageIndex === 0}
+              onClick={() => setPaging({ key: filterKey, cursors: cursors.slice(0, -1) })}
+            >
+              Previous
+            </Button>
+            <Button
+              disabled={!nextCursor || orders.isPlaceholderData}
+              onClick={() => nextCursor && setPaging({ key: filterKey, cursors: [...cursors, nextCursor] })}
+            >
+              Next
+            </Button>
+          </nav>
         </div>
       )}
     </>

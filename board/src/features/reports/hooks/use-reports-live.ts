@@ -1,8 +1,7 @@
 import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
-import { useOfficeSocket } from '@/lib/use-office-socket';
 import { reportsKey } from '../api/get-labour-report';
 
 /** Reports are whole-week sums: a burst of punches refreshes them once, not once per punch. */
@@ -26,12 +25,12 @@ export function useReportsLive(): void {
     }, wait);
   }, [queryClient]);
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       socket.on('punch.recorded', refresh);
       socket.on('job-line.updated', refresh);
       socket.on('bay.updated', refresh);
     },
     [refresh],
   );
-  useOfficeSocket(token, wire, refresh);
+  useOfficeLive(token, wire, refresh);
 }

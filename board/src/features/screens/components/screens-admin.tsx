@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import {
   Badge,
   Body1,
@@ -29,7 +29,9 @@ import {
 } from '@fluentui/react-components';
 import { createScreenSchema, type ScreenPairing } from '@baytime/shared';
 import { paths } from '@/config/paths';
-import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { formErrorText } from '@/lib/form-errors';
+import { showServerErrors, useSchemaForm } from '@/lib/form';
+import { FormErrorBar } from '@/components/form-error-bar';
 import { useCreateScreen } from '../api/create-screen';
 import { useScreens, type WallScreenDto } from '../api/get-screens';
 import { useRevokeScreen } from '../api/revoke-screen';
@@ -95,45 +97,37 @@ function PairingCode({ pairing, name }: { pairing: ScreenPairing; name: string }
 export function CreateScreenCard() {
   const styles = useStyles();
   const create = useCreateScreen();
-  const [name, setName] = useState('');
-  const [errors, setErrors] = useState<FieldErrors>({});
+  const form = useSchemaForm(createScreenSchema, { defaultValues: { name: '' } });
+  const { errors } = form.formState;
   const [made, setMade] = useState<{ pairing: ScreenPairing; name: string } | null>(null);
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = createScreenSchema.safeParse({ name });
-    if (!parsed.success) return setErrors(issuesToFieldErrors(parsed.error.issues));
-    setErrors({});
-    create.mutate(parsed.data, {
+  const submit = form.handleSubmit((body) =>
+    create.mutate(body, {
       onSuccess: (pairing) => {
-        setMade({ pairing, name: parsed.data.name });
-        setName('');
+        setMade({ pairing, name: body.name });
+        form.reset();
       },
-    });
-  };
+      onError: (error) => showServerErrors(form, error),
+    }),
+  );
 
   return (
     <Card className={styles.card}>
       <Subtitle2 as="h2">Pair a wall screen</Subtitle2>
-      <form className={styles.row} onSubmit={submit} noValidate>
+      <form className={styles.row} onSubmit={(event) => void submit(event)} noValidate>
         <Field
           label="Screen name"
           required
-          validationMessage={errors.name}
+          validationMessage={errors.name?.message}
           className={styles.name}
           hint="Where it hangs, e.g. “Shop floor, north wall”"
         >
-          <Input value={name} maxLength={60} onChange={(_, data) => setName(data.value)} />
+          <Input maxLength={60} {...form.register('name')} />
         </Field>
         <Button appearance="primary" type="submit" disabled={create.isPending}>
           {create.isPending ? 'Making a code…' : 'Make a pairing code'}
         </Button>
       </form>
-      {create.isError && (
-        <MessageBar intent="error">
-          <MessageBarBody>{formErrorText(create.error)}</MessageBarBody>
-        </MessageBar>
-      )}
+      <FormErrorBar message={errors.root?.server?.message ?? null} />
       {made && <PairingCode pairing={made.pairing} name={made.name} />}
     </Card>
   );

@@ -14,7 +14,13 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { PAY_RULE_FIELDS, shopSettingsSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
+import {
+  formatPhone,
+  PAY_RULE_FIELDS,
+  shopSettingsSchema,
+  type ShopSettings,
+  type UpdateShopBody,
+} from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import {
   centsToDollars,
@@ -77,21 +83,28 @@ function timeZones(current: string): string[] {
   return zones.includes(current) ? zones : [current, ...zones];
 }
 
-interface Draft extends Omit<ShopSettings, 'minimumWageCents' | 'localMinimumWageCents'> {
+interface Draft extends Omit<
+  ShopSettings,
+  'minimumWageCents' | 'localMinimumWageCents' | 'labourRateCents' | 'phone'
+> {
   minimumWage: string;
   /** Blank: no local minimum wage. */
   localMinimumWage: string;
   /** Blank: a change of pay rules counts from the start of this workweek. */
   payRulesFrom: string;
+  labourRate: string;
+  phone: string;
 }
 
 function toDraft(shop: ShopSettings): Draft {
-  const { minimumWageCents, localMinimumWageCents, ...rest } = shop;
+  const { minimumWageCents, localMinimumWageCents, labourRateCents, phone, ...rest } = shop;
   return {
     ...rest,
     minimumWage: centsToDollars(minimumWageCents),
     localMinimumWage: localMinimumWageCents === null ? '' : centsToDollars(localMinimumWageCents),
     payRulesFrom: '',
+    labourRate: centsToDollars(labourRateCents),
+    phone: phone ? formatPhone(phone) : '',
   };
 }
 
@@ -135,13 +148,15 @@ function ShopForm({
   const submit = (event: FormEvent) => {
     event.preventDefault();
     setSaved(false);
-    const { minimumWage, localMinimumWage, payRulesFrom, ...rest } = draft;
+    const { minimumWage, localMinimumWage, payRulesFrom, labourRate, ...rest } = draft;
     const cents = dollarsToCents(minimumWage);
     const localCents = localMinimumWage.trim() ? dollarsToCents(localMinimumWage) : null;
+    const rateCents = dollarsToCents(labourRate);
     const parsed = shopSettingsSchema.safeParse({
       ...rest,
       minimumWageCents: cents ?? Number.NaN,
       localMinimumWageCents: localMinimumWage.trim() && localCents === null ? Number.NaN : localCents,
+      labourRateCents: rateCents ?? Number.NaN,
     });
     if (!parsed.success) {
       const found = issuesToFieldErrors(parsed.error.issues);
@@ -150,6 +165,8 @@ function ShopForm({
       if (found.localMinimumWageCents)
         found.localMinimumWage =
           localCents === null ? 'Type an amount in dollars, or leave it blank' : found.localMinimumWageCents;
+      if (found.labourRateCents)
+        found.labourRate = rateCents === null ? 'Type an amount in dollars, like 135' : found.labourRateCents;
       setErrors(found);
       return;
     }
@@ -167,6 +184,7 @@ function ShopForm({
           const server: FieldErrors = { ...error.fieldErrors };
           server.minimumWage ??= server.minimumWageCents;
           server.localMinimumWage ??= server.localMinimumWageCents;
+          server.labourRate ??= server.labourRateCents;
           setErrors(server);
         }
       },
@@ -183,7 +201,8 @@ function ShopForm({
         | 'minimumMealMinutes'
         | 'longShiftHours'
         | 'minimumClockedMinutesForDone'
-        | 'minimumClockedHoursForEfficiency',
+        | 'minimumClockedHoursForEfficiency'
+        | 'approvalLinkHours',
     ) =>
     (_: unknown, data: { value: string }) =>
       set(key, Number(data.value));
@@ -224,6 +243,67 @@ function ShopForm({
               max={600}
               value={String(draft.kioskIdleSeconds)}
               onChange={number('kioskIdleSeconds')}
+            />
+          </Field>
+          <Field label="Unassigned lines" validationMessage={errors.techniciansTakeUnassigned}>
+            <Switch
+              checked={draft.techniciansTakeUnassigned}
+              onChange={(_, data) => set('techniciansTakeUnassigned', data.checked)}
+              label={
+                draft.techniciansTakeUnassigned
+                  ? 'Technicians may clock onto them and take them'
+                  : 'Only the foreman assigns them'
+              }
+            />
+          </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Customers and approvals</Subtitle2>
+        <div className={styles.grid}>
+          <Field
+            label="Shop phone"
+            validationMessage={errors.phone}
+            hint="Shown to customers on the approval page"
+          >
+            <Input
+              type="tel"
+              value={draft.phone}
+              maxLength={30}
+              onChange={(_, data) => set('phone', data.value)}
+            />
+          </Field>
+          <Field
+            label="Labour rate ($ per hour)"
+            required
+            validationMessage={errors.labourRate}
+            hint="Prices findings: book hours × this rate, plus parts"
+          >
+            <Input
+              inputMode="decimal"
+              value={draft.labourRate}
+              onChange={(_, data) => set('labourRate', data.value)}
+            />
+          </Field>
+          <Field
+            label="Tax note"
+            validationMessage={errors.taxNote}
+            hint="Shown under prices, e.g. Sales tax is added on the final invoice."
+          >
+            <Input value={draft.taxNote} maxLength={200} onChange={(_, data) => set('taxNote', data.value)} />
+          </Field>
+          <Field
+            label="Approval links work for (hours)"
+            validationMessage={errors.approvalLinkHours}
+            hint="1 to 720 hours; 72 is three days"
+          >
+            <Input
+              type="number"
+              min={1}
+              max={720}
+              value={String(draft.approvalLinkHours)}
+              onChange={number('approvalLinkHours')}
             />
           </Field>
         </div>

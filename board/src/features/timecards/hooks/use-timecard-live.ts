@@ -1,8 +1,7 @@
 import { useCallback, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardSocket } from '@/lib/socket';
+import { useOfficeLive, type LiveListener } from '@/lib/socket';
 import { officeToken } from '@/lib/token-store';
-import { useOfficeSocket } from '@/lib/use-office-socket';
 import { timecardsKey } from '../api/get-timecard';
 
 /** Refreshes a technician's cards when a punch lands for them; all of them after a reconnect. */
@@ -14,7 +13,7 @@ export function useTimecardLive(): void {
     [queryClient],
   );
   const wire = useCallback(
-    (socket: BoardSocket) => {
+    (socket: LiveListener) => {
       // Cards not on screen are only marked stale; the one on screen loads again.
       socket.on('punch.recorded', ({ punch }) => {
         void queryClient.invalidateQueries({ queryKey: [...timecardsKey, punch.technicianId] });
@@ -22,5 +21,5 @@ export function useTimecardLive(): void {
     },
     [queryClient],
   );
-  useOfficeSocket(token, wire, refreshAll);
+  useOfficeLive(token, wire, refreshAll);
 }

@@ -13,7 +13,8 @@ export interface PayDraft {
   flatRate: string;
   hourlyRate: string;
   guarantee: string;
-  overtimeExempt: boolean;
+  /** On: the person is paid overtime (not exempt). */
+  paidOvertime: boolean;
 }
 
 export const EMPTY_PAY: PayDraft = {
@@ -21,7 +22,7 @@ export const EMPTY_PAY: PayDraft = {
   flatRate: '',
   hourlyRate: '',
   guarantee: '',
-  overtimeExempt: false,
+  paidOvertime: true,
 };
 
 /** Form fields that hold a body field under another name (dollars typed, cents sent). */
@@ -29,6 +30,7 @@ export const PAY_FIELD_OF: Record<string, keyof PayDraft> = {
   flatRateCents: 'flatRate',
   hourlyRateCents: 'hourlyRate',
   guaranteeCents: 'guarantee',
+  overtimeExempt: 'paidOvertime',
 };
 
 export function payDraftOf(rate: PayRate): PayDraft {
@@ -37,14 +39,14 @@ export function payDraftOf(rate: PayRate): PayDraft {
     flatRate: centsToDollars(rate.flatRateCents),
     hourlyRate: centsToDollars(rate.hourlyRateCents),
     guarantee: centsToDollars(rate.guaranteeCents),
-    overtimeExempt: rate.overtimeExempt,
+    paidOvertime: !rate.overtimeExempt,
   };
 }
 
 /** The rates typed in dollars as a body in cents; a blank amount is left out. */
 export function payBody(draft: PayDraft): { body: Partial<PayRate>; errors: FieldErrors } {
   const errors: FieldErrors = {};
-  const body: Partial<PayRate> = { payType: draft.payType, overtimeExempt: draft.overtimeExempt };
+  const body: Partial<PayRate> = { payType: draft.payType, overtimeExempt: !draft.paidOvertime };
   for (const [field, key] of [
     ['flatRate', 'flatRateCents'],
     ['hourlyRate', 'hourlyRateCents'],
@@ -122,13 +124,17 @@ export function PayFields({
       </Field>
       <Field
         className={styles.wide}
-        label="Overtime exemption"
-        hint={<span className={styles.condition}>{OVERTIME_EXEMPTION_CONDITION}</span>}
+        label="Overtime"
+        hint={
+          <span className={styles.condition}>
+            Off only for a person exempt from overtime: {OVERTIME_EXEMPTION_CONDITION}
+          </span>
+        }
       >
         <Switch
-          checked={draft.overtimeExempt}
-          onChange={(_, data) => onChange('overtimeExempt', data.checked)}
-          label="Exempt from federal overtime (a dealership’s mechanic only)"
+          checked={draft.paidOvertime}
+          onChange={(_, data) => onChange('paidOvertime', data.checked)}
+          label="Paid overtime"
         />
       </Field>
     </>

@@ -19,14 +19,9 @@ import type { Role, UserDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
+import { ROLE_LABELS } from '../user-form';
+import { EditUserDialog } from './edit-user-dialog';
 import { PayRateDialog, rateWords } from './pay-rate-dialog';
-
-export const ROLE_LABELS: Record<Exclude<Role, 'display'>, string> = {
-  owner: 'Owner',
-  foreman: 'Foreman',
-  advisor: 'Service advisor',
-  technician: 'Technician',
-};
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -34,7 +29,7 @@ const useStyles = makeStyles({
   inactive: { color: tokens.colorNeutralForeground4 },
   error: { marginBottom: tokens.spacingVerticalM },
   numeric: { fontVariantNumeric: 'tabular-nums' },
-  actions: { display: 'flex', gap: tokens.spacingHorizontalS, flexWrap: 'wrap' },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'center', flexWrap: 'wrap' },
   dim: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
 
@@ -81,6 +76,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
+  const [editing, setEditing] = useState<UserDto | null>(null);
   const [paying, setPaying] = useState<{ user: UserDto; shown: boolean; n: number } | null>(null);
 
   if (users.isPending) return <Spinner label="Loading people…" />;
@@ -143,9 +139,13 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                   </TableCell>
                   <TableCell>
                     <div className={styles.actions}>
+                      <Button size="small" onClick={() => setEditing(user)} aria-label={`Edit ${user.name}`}>
+                        Edit
+                      </Button>
                       {tech && (
                         <Button
                           size="small"
+                          aria-label={`Pay for ${user.name}`}
                           onClick={() =>
                             setPaying((current) => ({ user, shown: true, n: (current?.n ?? 0) + 1 }))
                           }
@@ -166,6 +166,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
           </TableBody>
         </Table>
       </div>
+      {editing && <EditUserDialog user={editing} onClose={() => setEditing(null)} />}
       {paying && (
         <PayRateDialog
           key={paying.n}

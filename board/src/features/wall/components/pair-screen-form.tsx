@@ -1,15 +1,16 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { pairScreenSchema } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { usePairScreen } from '../api/pair-screen';
 import { takeRefusedNotice } from '@/lib/wall-session';
+import { useSchemaForm } from '@/lib/form';
 import styles from './wall.module.css';
 
 function pairErrorText(error: unknown): string {
   if (error instanceof ApiError) {
     if (error.isNetwork) return 'No connection to the shop server. Check the network and try again.';
     if (error.fieldErrors.code) return error.fieldErrors.code;
-    if (error.status === 429) return 'Too many tries. Wait a minute, then try again.';
+    if (error.status === 429) return error.message;
     if (error.status < 500)
       return 'That code did not work. Codes work once and expire: make a new one in the office.';
   }
@@ -24,24 +25,21 @@ export function PairScreenForm({
   initialCode?: string;
   initialError?: unknown;
 }) {
-  const [code, setCode] = useState(initialCode);
-  const [localError, setLocalError] = useState<string | null>(null);
   const [refused] = useState(takeRefusedNotice);
   const pair = usePairScreen();
+  const form = useSchemaForm(pairScreenSchema, { defaultValues: { code: initialCode } });
   const shownError =
-    localError ??
+    form.formState.errors.code?.message ??
     (pair.error ? pairErrorText(pair.error) : initialError ? pairErrorText(initialError) : null);
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = pairScreenSchema.safeParse({ code });
-    if (!parsed.success) {
-      setLocalError(parsed.error.issues[0]?.message ?? 'A pairing code is 6 letters or digits');
-      return;
-    }
-    setLocalError(null);
-    pair.mutate(parsed.data);
-  };
+  const submit = form.handleSubmit((body) => pair.mutate(body));
+  // The code as a person types it: capitals and digits only, six at most.
+  const code = form.register('code', {
+    setValueAs: (value: string) =>
+      value
+        .toUpperCase()
+        .replace(/[^A-Z0-9]/g, '')
+        .slice(0, 6),
+  });
 
   return (
     <main className={`${styles.wall} ${styles.pairing}`}>
@@ -58,22 +56,21 @@ export function PairScreenForm({
           In the office, open Admin › Wall screens and make a pairing code. Type it here once; the screen
           remembers it.
         </p>
-        <form className={styles.pairForm} onSubmit={submit} noValidate>
+        <form className={styles.pairForm} onSubmit={(event) => void submit(event)} noValidate>
           <label htmlFor="pair-code" className={styles.messageBody}>
             Pairing code
           </label>
           <input
             id="pair-code"
             className={styles.codeInput}
-            value={code}
-            onChange={(event) =>
-              setCode(
-                event.target.value
-                  .toUpperCase()
-                  .replace(/[^A-Z0-9]/g, '')
-                  .slice(0, 6),
-              )
-            }
+            {...code}
+            onInput={(event) => {
+              const input = event.currentTarget;
+              input.value = input.value
+                .toUpperCase()
+                .replace(/[^A-Z0-9]/g, '')
+                .slice(0, 6);
+            }}
             autoComplete="off"
             autoCapitalize="characters"
             spellCheck={false}

@@ -1,8 +1,8 @@
 import { useEffect, useState } from 'react';
 import { Glyph } from '@/components/glyph';
-import { wallApi } from '@/lib/api-client';
-import { useLiveBoard } from '../hooks/use-live-board';
 import { forgetWallToken } from '@/lib/wall-session';
+import { useLiveBoard } from '../hooks/use-live-board';
+import { useWallLink } from '../hooks/use-wall-link';
 import { useNow } from '../hooks/use-now';
 import { serverNow } from '../server-clock';
 import { formatTimeOfDay } from '../board-time';
@@ -31,9 +31,25 @@ function useViewport(): Viewport {
 
 /** The full-screen wall board for a paired screen. */
 export function WallBoard({ token }: { token: string }) {
-  const { board, link, downSince } = useLiveBoard(token, wallApi, forgetWallToken);
+  const { board, link, downSince, refusal } = useLiveBoard(useWallLink(token));
   const localNow = useNow();
   const viewport = useViewport();
+
+  if (refusal)
+    return (
+      <main className={styles.wall}>
+        <div className={styles.message} role="alert">
+          <div className={styles.messageTitle}>This screen needs pairing again</div>
+          <div className={styles.messageBody}>
+            The shop server no longer accepts its pairing. Make a code in the office under Admin › Wall
+            screens, then pair here.
+          </div>
+          <button className={styles.pairButton} type="button" onClick={forgetWallToken}>
+            Pair this screen
+          </button>
+        </div>
+      </main>
+    );
 
   if (!board) {
     const long = downSince !== null && localNow - downSince >= LINK_LOST_AFTER_MS;

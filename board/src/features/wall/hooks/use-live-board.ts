@@ -1,36 +1,12 @@
 import { useCallback, useEffect, useMemo, useSyncExternalStore } from 'react';
-import { ApiError, type ApiClient } from '@baytime/shared/client';
-import { createBoardSocket } from '@/lib/socket';
+import type { LiveLink } from '@baytime/shared/client';
 import { createLiveBoard, type LiveBoardState } from '../live-board';
-import { getBoard } from '../api/get-board';
 
-const IDLE: LiveBoardState = { board: null, link: 'connecting', downSince: null };
+const IDLE: LiveBoardState = { board: null, link: 'connecting', downSince: null, refusal: null };
 
-/**
- * The live board for a token: one socket while the component lives, the state from the pure store.
- * `onUnauthorized` runs when the server refuses the token; pass a stable function (a new one restarts
- * the socket).
- */
-export function useLiveBoard(
-  token: string | null,
-  api: ApiClient,
-  onUnauthorized: () => void,
-): LiveBoardState {
-  const live = useMemo(
-    () =>
-      token
-        ? createLiveBoard({
-            socket: createBoardSocket(token),
-            onUnauthorized,
-            checkToken: () =>
-              getBoard(api).then(
-                () => true,
-                (error: unknown) => !(error instanceof ApiError && error.status === 401),
-              ),
-          })
-        : null,
-    [token, api, onUnauthorized],
-  );
+/** The live board over a link (the wall's own, or the office's): the state from the pure store. */
+export function useLiveBoard(link: LiveLink | null): LiveBoardState {
+  const live = useMemo(() => (link ? createLiveBoard({ link }) : null), [link]);
 
   useEffect(() => {
     if (!live) return;

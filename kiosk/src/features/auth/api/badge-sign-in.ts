@@ -15,7 +15,8 @@ export function signInRefusal(error: unknown): string {
   if (!(error instanceof ApiError)) return 'Something went wrong. Try again.';
   if (error.isNetwork) return 'No connection to the shop server. Check the Wi-Fi and try again.';
   if (error.status === 401) return 'Badge or PIN not recognised';
-  if (error.status === 429) return 'Too many tries: wait a minute';
+  // The server says how long the lock lasts.
+  if (error.status === 429) return error.message;
   if (error.status === 400) return Object.values(error.fieldErrors)[0] ?? 'Check the badge number and PIN';
   if (error.status === 403) return 'This badge may not use the kiosk. Ask the foreman.';
   if (error.status >= 500) return 'The shop server had a problem. Try again in a moment.';

@@ -1,8 +1,8 @@
-import { useState } from 'react';
-import type { FinishLineBody } from '@baytime/shared';
+import { useId, useState } from 'react';
+import { finishLineSchema, type FinishLineBody } from '@baytime/shared';
 import { CheckIcon, FlagIcon } from '@/components/icons';
 import { Sheet, SheetProblem } from '@/components/sheet';
-import { commandProblem } from '@/lib/commands';
+import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { useFinishLine } from '../api/finish-line';
 import type { DayLine } from '../project-day';
 
@@ -29,40 +29,76 @@ export interface DoneSheetProps {
   onClose: () => void;
 }
 
-/** Marks the line done and says what the vehicle needs next. */
+/** Marks the line done with what was found and what was done, and says what the vehicle needs next. */
 export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
   const finish = useFinishLine();
   const [chosen, setChosen] = useState<Next | null>(null);
-  const send = (next: Next) => {
-    setChosen(next);
-    finish.mutate({ jobLineId: line.id, next }, { onSuccess: onClose });
-  };
+  const form = useSchemaForm(finishLineSchema, { defaultValues: { cause: '', correction: '' } });
+  const { errors } = form.formState;
+  const causeId = useId();
+  const correctionId = useId();
+
+  const send = (next: Next) =>
+    form.handleSubmit(({ cause, correction }) => {
+      setChosen(next);
+      finish.mutate(
+        { jobLineId: line.id, body: { next, cause, correction } },
+        { onSuccess: onClose, onError: (error) => showServerErrors(form, error) },
+      );
+    })();
 
   return (
-    <Sheet title="Mark this line done" context={context} onClose={onClose}>
-      <p className="bt-sheet__lead">
-        {line.clockedOn ? 'This clocks you off the line. ' : ''}What does the vehicle need next?
-        {line.bayName ? ` ${line.bayName} changes only when this is its last open line.` : ''}
-      </p>
-      <ul className="bt-choices">
-        {CHOICES.map(({ next, words, hint, Icon }) => (
-          <li key={next}>
-            <button
-              type="button"
-              className={`bt-choice bt-choice--tall${chosen === next ? ' is-selected' : ''}`}
-              disabled={finish.isPending}
-              onClick={() => send(next)}
-            >
-              <Icon />
-              <span className="bt-choice__words">
-                <strong>{words}</strong>
-                <small>{finish.isPending && chosen === next ? 'Sending…' : hint}</small>
-              </span>
-            </button>
-          </li>
-        ))}
-      </ul>
-      <SheetProblem>{finish.error ? commandProblem(finish.error) : null}</SheetProblem>
+    <Sheet title="Mark this line done" context={context} onClose={onClose} wide>
+      <form className="bt-done" noValidate onSubmit={(event) => event.preventDefault()}>
+        <p className="bt-done__concern">
+          <strong>Concern:</strong> {line.concern}
+        </p>
+        <label className="bt-done__label" htmlFor={causeId}>
+          Cause: what you found
+        </label>
+        <textarea
+          id={causeId}
+          className={`bt-done__field${errors.cause ? ' is-invalid' : ''}`}
+          rows={3}
+          aria-invalid={!!errors.cause}
+          {...form.register('cause')}
+        />
+        {errors.cause && <p className="bt-done__problem">{errors.cause.message}</p>}
+        <label className="bt-done__label" htmlFor={correctionId}>
+          Correction: what you did
+        </label>
+        <textarea
+          id={correctionId}
+          className={`bt-done__field${errors.correction ? ' is-invalid' : ''}`}
+          rows={3}
+          aria-invalid={!!errors.correction}
+          {...form.register('correction')}
+        />
+        {errors.correction && <p className="bt-done__problem">{errors.correction.message}</p>}
+        <p className="bt-sheet__lead">
+          {line.clockedOn ? 'This clocks you off the line. ' : ''}What does the vehicle need next?
+          {line.bayName ? ` ${line.bayName} changes only when this is its last open line.` : ''}
+        </p>
+        <ul className="bt-choices">
+          {CHOICES.map(({ next, words, hint, Icon }) => (
+            <li key={next}>
+              <button
+                type="button"
+                className={`bt-choice bt-choice--tall${chosen === next ? ' is-selected' : ''}`}
+                disabled={finish.isPending}
+                onClick={() => void send(next)}
+              >
+                <Icon />
+                <span className="bt-choice__words">
+                  <strong>{words}</strong>
+                  <small>{finish.isPending && chosen === next ? 'Sending…' : hint}</small>
+                </span>
+              </button>
+            </li>
+          ))}
+        </ul>
+        <SheetProblem>{errors.root?.server?.message ?? null}</SheetProblem>
+      </form>
     </Sheet>
   );
 }

@@ -1,5 +1,4 @@
 import type { ReactNode } from 'react';
-import type { JobLineStatus } from '@baytime/shared';
 import {
   CheckIcon,
   FlagIcon,
@@ -10,24 +9,16 @@ import {
   WrenchIcon,
 } from '@/components/icons';
 import { bookHours, hoursMinutes } from '@/lib/format';
-import { HOLD_SHORT } from '../hold-words';
+import { lineStatusWord, type ClockAction } from '../line-actions';
 import type { DayLine } from '../project-day';
 
-const STATUS_WORDS: Record<JobLineStatus, string> = {
-  queued: 'Queued',
-  working: 'Working',
-  held: 'Held',
-  done: 'Done',
-};
-
-const STATUS_ICONS = { queued: QueueIcon, working: WrenchIcon, held: PauseIcon, done: CheckIcon } as const;
-
-export type ClockAction =
-  | { kind: 'clock-on' }
-  | { kind: 'clock-off' }
-  | { kind: 'switch'; fromLabel: string }
-  | { kind: 'resume' }
-  | { kind: 'none'; hint: string | null };
+const STATUS_ICONS = {
+  queued: QueueIcon,
+  working: WrenchIcon,
+  held: PauseIcon,
+  done: CheckIcon,
+  cancelled: StopIcon,
+} as const;
 
 export interface JobLineCardProps {
   line: DayLine;
@@ -67,10 +58,7 @@ export function JobLineCard({
   const book = line.bookHours * 3600;
   const share = book > 0 ? all / book : 0;
   const over = share > 1;
-  const statusWord =
-    line.status === 'held' && line.holdReason
-      ? `Held · ${HOLD_SHORT[line.holdReason]}`
-      : STATUS_WORDS[line.status];
+  const statusWord = lineStatusWord(line);
   const open = line.status !== 'done';
 
   return (
@@ -95,6 +83,7 @@ export function JobLineCard({
         </header>
         <h3 className="bt-line__title">{line.title}</h3>
         <p className="bt-line__vehicle">{line.vehicle}</p>
+        <p className="bt-line__concern">Concern: {line.concern}</p>
         <dl className="bt-line__times">
           <div>
             <dt>Book</dt>
@@ -140,7 +129,7 @@ export function JobLineCard({
         )}
         {action.kind === 'resume' && (
           <button type="button" className="bt-action bt-action--held" onClick={onResume} disabled={resuming}>
-            <PlayIcon /> {resuming ? 'Resuming…' : 'Resume'}
+            <PlayIcon /> {resuming ? 'Resuming…' : action.clockOn ? 'Resume and clock on' : 'Resume'}
           </button>
         )}
         {action.kind === 'none' && action.hint && <p className="bt-line__hint">{action.hint}</p>}

@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { commandProblem } from '@/lib/commands';
 import { useResumeLine } from '../api/resume-line';
 import { lineSeconds, type ConcurrentSplit, type DayLine, type DayView } from '../project-day';
-import { JobLineCard, type ClockAction } from './job-line-card';
+import { clockAction, lineLabel } from '../line-actions';
+import { JobLineCard } from './job-line-card';
 import type { ShiftPunch } from './shift-actions';
 
 /** What a tap on a card's tool asks for; the screen opens the matching sheet. */
@@ -19,23 +20,9 @@ export interface JobLineListProps {
   renderPanel?: (line: DayLine) => ReactNode;
 }
 
-export const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line ${line.lineNo}`;
-
 /** "RO 4521 · line 1 · Bay 1 — Automatic transmission fluid and filter service" for a sheet's head. */
 export const lineContext = (line: DayLine) =>
   `RO ${line.repairOrderNumber} · line ${line.lineNo}${line.bayName ? ` · ${line.bayName}` : ''} — ${line.title}`;
-
-function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {
-  if (line.clockedOn) return { kind: 'clock-off' };
-  if (line.status === 'done') return { kind: 'none', hint: null };
-  if (line.status === 'held') return { kind: 'resume' };
-  if (view.shift.status === 'off') return { kind: 'none', hint: 'Start your shift to clock on' };
-  if (view.shift.status === 'on-break') return { kind: 'none', hint: 'End your break to clock on' };
-  const running = view.lines.filter((l) => l.clockedOn);
-  if (running.length < maxConcurrentJobs) return { kind: 'clock-on' };
-  if (maxConcurrentJobs === 1 && running[0]) return { kind: 'switch', fromLabel: lineLabel(running[0]) };
-  return { kind: 'none', hint: `You are on ${running.length} lines: clock one off first` };
-}
 
 const PRIORITY = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 
@@ -104,7 +91,14 @@ export function JobLineList({
               }
               onHold={() => onRequest(line, 'hold')}
               onDone={() => onRequest(line, 'done')}
-              onResume={() => resume.mutate(line.id)}
+              onResume={() =>
+                resume.mutate(line.id, {
+                  onSuccess: () => {
+                    if (action.kind === 'resume' && action.clockOn)
+                      onPunch([{ kind: 'job-on', jobLineId: line.id, label: `Clock on ${lineLabel(line)}` }]);
+                  },
+                })
+              }
               resuming={resume.isPending && resumingThis}
               problem={resume.isError && resumingThis ? commandProblem(resume.error) : null}
               tools={renderTools?.(line)}

@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import type { BreakKind, PunchKind } from '@baytime/shared';
 import { CupIcon, DoorInIcon, DoorOutIcon, MealIcon, PlayIcon } from '@/components/icons';
+import { Sheet } from '@/components/sheet';
 import type { DayLine, DayView } from '../project-day';
 
 export interface ShiftPunch {
@@ -10,9 +11,18 @@ export interface ShiftPunch {
   label: string;
 }
 
+/** A timer still running on one of this technician's lines, in words for the question. */
+export interface RunningTimer {
+  id: number;
+  words: string;
+}
+
 export interface ShiftActionsProps {
   view: DayView;
   onPunch: (punches: ShiftPunch[]) => void;
+  /** Timers running on this technician's lines: a meal break asks about them first. */
+  runningTimers?: readonly RunningTimer[];
+  onStopTimers?: (timerIds: number[]) => void;
 }
 
 const CONFIRM_MS = 4000;
@@ -29,8 +39,9 @@ export function clockOffAll(lines: readonly DayLine[]): ShiftPunch[] {
 }
 
 /** Shift and break buttons, only those that make sense now. */
-export function ShiftActions({ view, onPunch }: ShiftActionsProps) {
+export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }: ShiftActionsProps) {
   const [confirmingEnd, setConfirmingEnd] = useState(false);
+  const [askingAboutTimers, setAskingAboutTimers] = useState(false);
   const { status, breakKind } = view.shift;
 
   useEffect(() => {
@@ -91,9 +102,44 @@ export function ShiftActions({ view, onPunch }: ShiftActionsProps) {
       { kind: 'break-start', breakKind: kind, label: `Start ${kind} break` },
     ]);
 
+  // A timer left running through a meal is an engine or a cure nobody watches: ask first.
+  const mealBreak = () => (runningTimers.length > 0 ? setAskingAboutTimers(true) : startBreak('meal'));
+  const mealWith = (stop: boolean) => {
+    setAskingAboutTimers(false);
+    if (stop) onStopTimers?.(runningTimers.map((timer) => timer.id));
+    startBreak('meal');
+  };
+
   return (
     <div className="bt-shift-actions">
-      <button type="button" className="bt-action bt-action--break" onClick={() => startBreak('meal')}>
+      {askingAboutTimers && (
+        <Sheet title="A timer is still running" onClose={() => setAskingAboutTimers(false)}>
+          <p className="bt-sheet__lead">
+            {runningTimers.map((timer) => timer.words).join('; ')}. Nobody watches it during your meal break.
+          </p>
+          <ul className="bt-choices">
+            <li>
+              <button type="button" className="bt-choice bt-choice--tall" onClick={() => mealWith(true)}>
+                <MealIcon />
+                <span className="bt-choice__words">
+                  <strong>Stop the timer, then break</strong>
+                  <small>Start it again when you are back</small>
+                </span>
+              </button>
+            </li>
+            <li>
+              <button type="button" className="bt-choice bt-choice--tall" onClick={() => mealWith(false)}>
+                <MealIcon />
+                <span className="bt-choice__words">
+                  <strong>Leave it running</strong>
+                  <small>Someone else keeps an eye on it</small>
+                </span>
+              </button>
+            </li>
+          </ul>
+        </Sheet>
+      )}
+      <button type="button" className="bt-action bt-action--break" onClick={mealBreak}>
         <MealIcon /> Start meal break
       </button>
       <button type="button" className="bt-action bt-action--break" onClick={() => startBreak('rest')}>

@@ -3,6 +3,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { audioState, playChime } from '@/lib/chime';
 import { onLive } from '@/lib/socket';
 import { useWatchToken } from '@/hooks/use-watch-token';
+import { tokenSubject } from '@/lib/listen-token';
 import {
   decideAlerts,
   liveAlerts,
@@ -42,11 +43,13 @@ export interface TimerAlerts {
 }
 
 /**
- * Watches every running timer in the shop, signed in or not, and chimes once when one reaches its
- * target or a hold runs out. Lives as long as the page, under the routes.
+ * Watches the running timers of the technician signed in (or last signed in) here, and chimes once
+ * when one reaches its target or a hold runs out: another technician's timer chimes on their own
+ * kiosk. Lives as long as the page, under the routes.
  */
 export function useTimerAlerts(): TimerAlerts {
   const token = useWatchToken();
+  const technicianId = token === null ? null : tokenSubject(token);
   const timers = useTimers(token !== null);
   const bays = useBays(token !== null);
   const queryClient = useQueryClient();
@@ -67,7 +70,7 @@ export function useTimerAlerts(): TimerAlerts {
     if (!data) return;
     memory.current ??= { seenRunning: new Set(), announced: loadAnnounced() };
     const tick = () => {
-      const decision = decideAlerts(data, memory.current!, { now: Date.now(), fetchedAt });
+      const decision = decideAlerts(data, memory.current!, { now: Date.now(), fetchedAt, technicianId });
       const changed = decision.memory.announced.size !== memory.current!.announced.size;
       memory.current = decision.memory;
       if (changed) saveAnnounced(decision.memory);
@@ -83,7 +86,7 @@ export function useTimerAlerts(): TimerAlerts {
     if (!hasHold) return;
     const timer = setInterval(tick, 1000);
     return () => clearInterval(timer);
-  }, [data, fetchedAt]);
+  }, [data, fetchedAt, technicianId]);
 
   const dismiss = useCallback(
     (timerId: number) => setAlerts((shown) => shown.filter((a) => a.timerId !== timerId)),

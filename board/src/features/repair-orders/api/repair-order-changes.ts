@@ -1,0 +1,70 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type {
+  AddJobLineBody,
+  BayDto,
+  CancelJobLineBody,
+  EditJobLineBody,
+  EditRepairOrderBody,
+  JobLineDto,
+  NoticesQueued,
+  RepairOrderSummary,
+} from '@baytime/shared';
+import { officeApi } from '@/lib/api-client';
+import { repairOrdersKey } from './get-repair-orders';
+
+/** Every change to an RO from its page: the RO, its history, the lists and dispatch are read again. */
+function useRepairOrderChange<Vars, Result>(repairOrderId: number, send: (vars: Vars) => Promise<Result>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: send,
+    onSuccess: () =>
+      Promise.all(
+        [
+          ['repair-order', repairOrderId],
+          ['repair-order-history', repairOrderId],
+          repairOrdersKey,
+          ['dispatch'],
+        ].map((queryKey) => queryClient.invalidateQueries({ queryKey })),
+      ),
+  });
+}
+
+export const useEditRepairOrder = (id: number) =>
+  useRepairOrderChange(id, (body: EditRepairOrderBody) =>
+    officeApi.patch<RepairOrderSummary>(`/repair-orders/${id}`, body),
+  );
+
+export const useAddJobLine = (id: number) =>
+  useRepairOrderChange(id, (body: AddJobLineBody) =>
+    officeApi.post<JobLineDto>(`/repair-orders/${id}/lines`, body),
+  );
+
+export const useReorderLines = (id: number) =>
+  useRepairOrderChange(id, (lineIds: number[]) =>
+    officeApi.put<RepairOrderSummary>(`/repair-orders/${id}/line-order`, { lineIds }),
+  );
+
+export const useEditJobLine = (id: number) =>
+  useRepairOrderChange(id, ({ lineId, body }: { lineId: number; body: EditJobLineBody }) =>
+    officeApi.patch<JobLineDto>(`/job-lines/${lineId}/details`, body),
+  );
+
+export const useCancelJobLine = (id: number) =>
+  useRepairOrderChange(id, ({ lineId, body }: { lineId: number; body: CancelJobLineBody }) =>
+    officeApi.post<JobLineDto>(`/job-lines/${lineId}/cancel`, body),
+  );
+
+export const useDeleteJobLine = (id: number) =>
+  useRepairOrderChange(id, (lineId: number) => officeApi.delete<void>(`/job-lines/${lineId}`));
+
+/** The vehicle is picked up: the RO closes and its bay is free. */
+export const useCloseRepairOrder = (id: number) =>
+  useRepairOrderChange(id, () => officeApi.post<RepairOrderSummary>(`/repair-orders/${id}/close`));
+
+/** Tells the customer the vehicle is ready (e-mail and text), with the work done and the findings they declined. */
+export const useSendReadyNotice = (id: number) =>
+  useRepairOrderChange(id, () => officeApi.post<NoticesQueued>(`/repair-orders/${id}/ready-notice`));
+
+/** The road test or final look is done: the bay holding the RO goes to ready. */
+export const useRecordFinalCheck = (id: number) =>
+  useRepairOrderChange(id, (bayId: number) => officeApi.post<BayDto>(`/bays/${bayId}/final-check`, {}));

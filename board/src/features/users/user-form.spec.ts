@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { addUserFormSchema, editUserFormSchema, EMPTY_USER, fieldsOf } from './user-form';
+
+const technician = { ...EMPTY_USER, name: 'Tamsin Reeve', badge: '2601', pin: '2468', flatRate: '$28.50' };
+
+describe('the people form', () => {
+  it('saves a person with "Paid overtime" switched on as paid overtime, not exempt (bug 8)', () => {
+    expect(addUserFormSchema.parse({ ...technician, paidOvertime: true })).toMatchObject({
+      overtimeExempt: false,
+      flatRateCents: 2850,
+    });
+    expect(addUserFormSchema.parse({ ...technician, paidOvertime: false }).overtimeExempt).toBe(true);
+  });
+
+  it('reads an exempt person back with the switch off', () => {
+    const fields = fieldsOf({
+      id: 1,
+      name: 'Tamsin Reeve',
+      role: 'technician',
+      email: null,
+      badge: '2601',
+      skillLevel: 2,
+      flatRateCents: 2850,
+      hourlyRateCents: 1500,
+      overtimeExempt: true,
+      active: true,
+      payType: 'flat-rate',
+      guaranteeCents: 0,
+      payRates: [],
+    });
+    expect(fields).toMatchObject({ paidOvertime: false, flatRate: '28.50', pin: '' });
+    // An edit with the PIN left empty keeps the PIN: it is not sent.
+    expect(JSON.stringify(editUserFormSchema.parse(fields))).not.toContain('"pin"');
+  });
+
+  it('sends a new technician’s pay type and hourly guarantee in cents, and asks for the guarantee', () => {
+    const guaranteed = { ...technician, payType: 'flat-rate-guarantee' as const, guarantee: '11' };
+    expect(addUserFormSchema.parse(guaranteed)).toMatchObject({
+      payType: 'flat-rate-guarantee',
+      flatRateCents: 2850,
+      guaranteeCents: 1100,
+    });
+    const none = addUserFormSchema.safeParse({ ...guaranteed, guarantee: '' });
+    expect(none.error!.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
+      ['guarantee', 'Give the hourly guarantee for productive time'],
+    ]);
+  });
+
+  it('leaves rates out of an edit: they change from a date in the pay dialog', () => {
+    const body = editUserFormSchema.parse({ ...technician, hourlyRate: '19' });
+    expect(Object.keys(body).sort()).toEqual(['badge', 'name', 'pin', 'role', 'skillLevel']);
+  });
+
+  it('puts the shared schema’s refusals on the fields the person typed in', () => {
+    const result = addUserFormSchema.safeParse({ ...technician, badge: '', flatRate: 'lots' });
+    expect(result.success).toBe(false);
+    expect(result.error!.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
+      ['flatRate', 'Type an amount in dollars, like 28.50'],
+    ]);
+    const noBadge = addUserFormSchema.safeParse({ ...technician, badge: '' });
+    expect(noBadge.error!.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
+      ['badge', 'A technician needs a badge'],
+    ]);
+  });
+});

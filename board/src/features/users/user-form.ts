@@ -1,0 +1,96 @@
+import { z } from 'zod';
+import { createUserSchema, PAY_TYPES, updateUserSchema, type Role, type UserDto } from '@baytime/shared';
+import { dollarsToCents } from '@/lib/form-errors';
+import { checkedAsBody } from '@/lib/form';
+import { EMPTY_PAY, PAY_FIELD_OF, payBody, payDraftOf } from './components/pay-fields';
+
+export type PersonRole = Exclude<Role, 'display'>;
+
+export const ROLE_LABELS: Record<PersonRole, string> = {
+  owner: 'Owner',
+  foreman: 'Foreman',
+  advisor: 'Service advisor',
+  technician: 'Technician',
+};
+
+/** A rate typed in dollars ("28.5", "$28.50"); empty leaves it as it is. */
+const dollars = z
+  .string()
+  .trim()
+  .refine((text) => text === '' || dollarsToCents(text) !== null, 'Type an amount in dollars, like 28.50');
+
+/** What the people form holds: text as typed, and overtime said the way people say it. */
+const userFields = z.object({
+  role: z.enum(['technician', 'foreman', 'advisor', 'owner']),
+  name: z.string(),
+  email: z.string(),
+  password: z.string(),
+  badge: z.string(),
+  pin: z.string(),
+  skillLevel: z.string(),
+  payType: z.enum(PAY_TYPES),
+  flatRate: dollars,
+  hourlyRate: dollars,
+  guarantee: dollars,
+  /** On: the person is paid overtime (not exempt). */
+  paidOvertime: z.boolean(),
+});
+export type UserFields = z.input<typeof userFields>;
+
+const given = (text: string) => (text.trim() ? text.trim() : undefined);
+
+/** Adding a technician sends the first pay rate; an edit leaves rates to the dated pay dialog. */
+function toBody(values: z.output<typeof userFields>, withPay: boolean) {
+  const tech = values.role === 'technician';
+  return {
+    name: values.name,
+    role: values.role,
+    ...(tech
+      ? {
+          badge: given(values.badge),
+          pin: given(values.pin),
+          skillLevel: Number(values.skillLevel),
+          ...(withPay ? payBody(values).body : {}),
+        }
+      : { email: given(values.email), password: given(values.password) }),
+  };
+}
+
+export const addUserFormSchema = checkedAsBody(
+  userFields,
+  (values) => toBody(values, true),
+  createUserSchema,
+  PAY_FIELD_OF,
+);
+
+/** An edit sends what it holds; an empty PIN or password leaves the old one. */
+export const editUserFormSchema = checkedAsBody(
+  userFields,
+  (values) => toBody(values, false),
+  updateUserSchema,
+  PAY_FIELD_OF,
+);
+
+export const EMPTY_USER: UserFields = {
+  role: 'technician',
+  name: '',
+  email: '',
+  password: '',
+  badge: '',
+  pin: '',
+  skillLevel: '3',
+  ...EMPTY_PAY,
+};
+
+export function fieldsOf(user: UserDto): UserFields {
+  return {
+    role: user.role === 'display' ? 'advisor' : user.role,
+    name: user.name,
+    email: user.email ?? '',
+    password: '',
+    badge: user.badge ?? '',
+    pin: '',
+    skillLevel: String(user.skillLevel),
+    ...payDraftOf(user),
+  };
+}

@@ -1,0 +1,39 @@
+import type { MyFinalCheck } from '@baytime/shared';
+import { FlagIcon } from '@/components/icons';
+import { commandProblem } from '@/lib/commands';
+import { useRecordFinalCheck } from '../api/record-final-check';
+
+/** Vehicles this technician worked on that wait in `check`: one tap records the road test or final look. */
+export function FinalChecks({ checks }: { checks: readonly MyFinalCheck[] }) {
+  const record = useRecordFinalCheck();
+  if (checks.length === 0) return null;
+  return (
+    <section className="bt-checks" aria-labelledby="bt-checks-title">
+      <h2 id="bt-checks-title" className="bt-day__heading">
+        <span>Final checks</span>
+      </h2>
+      {checks.map((check) => (
+        <button
+          key={check.bayId}
+          type="button"
+          className="bt-action bt-action--go bt-action--two-line"
+          disabled={record.isPending}
+          onClick={() => record.mutate(check.bayId)}
+        >
+          <FlagIcon />
+          <span>
+            Final check done: {check.bayName}
+            <small>
+              RO {check.repairOrderNumber} · {check.vehicle}
+            </small>
+          </span>
+        </button>
+      ))}
+      {record.isError && (
+        <p className="bt-line__problem" role="alert">
+          {commandProblem(record.error)}
+        </p>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,54 @@
+import { describe, expect, it } from 'vitest';
+import type { MyDay, MyJobLine } from '@baytime/shared';
+import { clockAction, lineStatusWord } from './line-actions';
+import { projectDay } from './project-day';
+
+const line = (id: number, changes: Partial<MyJobLine> = {}): MyJobLine => ({
+  id,
+  repairOrderNumber: '4521',
+  vehicle: '2019 Corvane Denvo',
+  title: 'Replace front struts',
+  lineNo: id,
+  bookHours: 2,
+  mySeconds: 0,
+  allSeconds: 0,
+  status: 'queued',
+  holdReason: null,
+  priority: 'normal',
+  bayName: null,
+  clockedOn: false,
+  concern: 'Knock over bumps',
+  ...changes,
+});
+
+const day = (lines: MyJobLine[], shift: MyDay['shift']['status'] = 'on-shift'): MyDay => ({
+  serverTime: '2026-03-10T15:00:00.000Z',
+  technician: { id: 7, name: 'Rhea Mollander' },
+  shift: { status: shift, since: '2026-03-10T13:00:00.000Z', breakKind: null },
+  openJobLineIds: lines.filter((l) => l.clockedOn).map((l) => l.id),
+  lines,
+  doneToday: 0,
+  finalChecks: [],
+  idleSignOutSeconds: 60,
+  maxConcurrentJobs: 1,
+});
+
+describe(lineStatusWord.name, () => {
+  it('says Working only on a line this technician is clocked on (bug 9)', () => {
+    expect(lineStatusWord({ status: 'working', holdReason: null, clockedOn: true })).toBe('Working');
+    expect(lineStatusWord({ status: 'working', holdReason: null, clockedOn: false })).toBe('Started');
+    expect(lineStatusWord({ status: 'held', holdReason: 'parts', clockedOn: false })).toBe('Held · parts');
+  });
+});
+
+describe(clockAction.name, () => {
+  it('offers to clock back on with Resume when the technician can work the line now (bug 9)', () => {
+    const held = line(1, { status: 'held', holdReason: 'parts' });
+    const view = projectDay(day([held]), [], 0);
+    expect(clockAction(view, view.lines[0]!, 1)).toEqual({ kind: 'resume', clockOn: true });
+    const busy = projectDay(day([held, line(2, { status: 'working', clockedOn: true })]), [], 0);
+    expect(clockAction(busy, busy.lines[0]!, 1)).toEqual({ kind: 'resume', clockOn: false });
+    const onBreak = projectDay(day([held], 'on-break'), [], 0);
+    expect(clockAction(onBreak, onBreak.lines[0]!, 1)).toEqual({ kind: 'resume', clockOn: false });
+  });
+});

@@ -1,0 +1,1 @@
+ALTER TABLE `shop_settings` ADD `technicians_take_unassigned` integer DEFAULT true NOT NULL;

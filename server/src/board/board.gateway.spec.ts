@@ -1,0 +1,145 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { JwtService } from '@nestjs/jwt';
+import type { BoardSnapshot, LiveRefusal } from '@baytime/shared';
+import { DEMO, nextEvent, startTestApp, type LiveClient, type TestApp } from '../test-support/test-app.js';
+import { BoardGateway } from './board.gateway.js';
+
+/** The refusal the handshake answered with; rejects if the socket connects instead. */
+function refusalOf(socket: LiveClient): Promise<LiveRefusal> {
+  return new Promise((resolve, reject) => {
+    socket.on('connect', () => reject(new Error('The socket connected')));
+    socket.on('connect_error', (error) => resolve((error as Error & { data: LiveRefusal }).data));
+  });
+}
+
+/** Resolves with the disconnect reason and how long after `since` it came. */
+function closed(socket: LiveClient, since: () => number): Promise<{ reason: string; afterMs: number }> {
+  return new Promise((resolve) =>
+    socket.once('disconnect', (reason) => resolve({ reason, afterMs: Date.now() - since() })),
+  );
+}
+
+describe(BoardGateway.name, () => {
+  let sut: TestApp;
+  let owner: string;
+  let sign: JwtService;
+  beforeAll(async () => {
+    sut = await startTestApp();
+    owner = await sut.signIn(DEMO.owner);
+    sign = new JwtService({ secret: sut.config.jwtSecret });
+  });
+  afterAll(() => sut.close());
+
+  const pairScreen = async (name: string) => {
+    const { body: pairing } = await sut
+      .http()
+      .post('/api/screens')
+      .auth(owner, { type: 'bearer' })
+      .send({ name })
+      .expect(201);
+    const { body } = await sut.http().post('/api/auth/screens/pair').send({ code: pairing.code }).expect(200);
+    return { id: pairing.id as number, token: body.accessToken as string };
+  };
+
+  it('sends a snapshot on connect and answers a snapshot request on the same socket', async () => {
+    const socket = sut.connect(owner);
+    const onConnect = await nextEvent(socket, 'board.snapshot');
+    const answer: BoardSnapshot = await socket.timeout(2000).emitWithAck('board.snapshot');
+    expect(answer.bays.map((bay) => bay.name)).toEqual(onConnect.bays.map((bay) => bay.name));
+    expect(answer.bays).toHaveLength(8);
+    expect(answer.seq).toBe(onConnect.seq);
+  });
+
+  it('answers a burst of requests only up to its budget, and stays connected', async () => {
+    const socket = sut.connect(owner);
+    await nextEvent(socket, 'board.snapshot');
+    const answers = await Promise.allSettled(
+      Array.from({ length: 50 }, () => socket.timeout(1500).emitWithAck('board.snapshot')),
+    );
+    const answered = answers.filter((answer) => answer.status === 'fulfilled').length;
+    expect(answered).toBeGreaterThanOrEqual(5);
+    expect(answered).toBeLessThan(10);
+    expect(socket.connected).toBe(true);
+    // The budget refills: a request a second later is answered again.
+    const later: BoardSnapshot = await socket.timeout(2000).emitWithAck('board.snapshot');
+    expect(later.bays).toHaveLength(8);
+  });
+
+  it.each([
+    ['no token', () => undefined, 'token-missing'],
+    [
+      'a token signed with another secret',
+      () => new JwtService({ secret: 'x' }).sign({ sub: 1, role: 'owner' }),
+      'token-invalid',
+    ],
+    ['an expired token', () => sign.sign({ sub: 1, role: 'owner' }, { expiresIn: -10 }), 'token-expired'],
+    ['a token without an expiry', () => sign.sign({ sub: 1, role: 'owner' }), 'token-no-expiry'],
+  ] as const)('refuses %s in the handshake with a reason code', async (_, token, reason) => {
+    const socket = sut.connect(token() as string);
+    const snapshots: unknown[] = [];
+    socket.on('board.snapshot', (snapshot) => snapshots.push(snapshot));
+    const refusal = await refusalOf(socket);
+    expect(refusal.reason).toBe(reason);
+    expect(refusal.message.length).toBeGreaterThan(5);
+    expect(socket.connected).toBe(false);
+    expect(snapshots).toEqual([]);
+  });
+
+  it('refuses a token without an expiry over HTTP too', async () => {
+    await sut
+      .http()
+      .get('/api/me')
+      .auth(sign.sign({ sub: 1, role: 'owner' }), { type: 'bearer' })
+      .expect(401);
+  });
+
+  it("closes a revoked screen's socket within a second, and refuses it afterwards as revoked", async () => {
+    const screen = await pairScreen('Paint shop TV');
+    const socket = sut.connect(screen.token);
+    await nextEvent(socket, 'board.snapshot');
+    let revokedAt = 0;
+    const ended = nextEvent(socket, 'session.ended');
+    const disconnected = closed(socket, () => revokedAt);
+    revokedAt = Date.now();
+    await sut.http().delete(`/api/screens/${screen.id}`).auth(owner, { type: 'bearer' }).expect(200);
+    expect((await ended).reason).toBe('screen-revoked');
+    const { reason, afterMs } = await disconnected;
+    expect(reason).toBe('io server disconnect');
+    expect(afterMs).toBeLessThan(1000);
+
+    const again = sut.connect(screen.token);
+    expect((await refusalOf(again)).reason).toBe('screen-revoked');
+  });
+
+  it("closes a deactivated technician's socket, and leaves others connected", async () => {
+    const sam = await sut.badge('1046');
+    const jo = await sut.badge('1045');
+    const samSocket = sut.connect(sam.accessToken);
+    const joSocket = sut.connect(jo.accessToken);
+    await Promise.all([nextEvent(samSocket, 'board.snapshot'), nextEvent(joSocket, 'board.snapshot')]);
+    const ended = nextEvent(samSocket, 'session.ended');
+    const disconnected = closed(samSocket, () => 0);
+    await sut
+      .http()
+      .patch(`/api/users/${sam.user.id}`)
+      .auth(owner, { type: 'bearer' })
+      .send({ active: false })
+      .expect(200);
+    expect((await ended).reason).toBe('account-inactive');
+    expect((await disconnected).reason).toBe('io server disconnect');
+    expect(joSocket.connected).toBe(true);
+    expect((await refusalOf(sut.connect(sam.accessToken))).reason).toBe('account-inactive');
+  });
+
+  it('closes a socket when its token expires', async () => {
+    const me = (await sut.http().get('/api/me').auth(owner, { type: 'bearer' }).expect(200)).body as {
+      id: number;
+    };
+    const shortLived = sign.sign({ sub: me.id, role: 'owner' }, { expiresIn: 2 });
+    const socket = sut.connect(shortLived);
+    await nextEvent(socket, 'board.snapshot');
+    const ended = await nextEvent(socket, 'session.ended', () => true, 4000);
+    expect(ended.reason).toBe('token-expired');
+    await expect.poll(() => socket.connected).toBe(false);
+  });
+});

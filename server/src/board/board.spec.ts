@@ -1,0 +1,33 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApp, type TestApp } from '../test-support/test-app.js';
+import { BoardService } from './board.service.js';
+
+describe(BoardService.name, () => {
+  let sut: TestApp;
+  beforeAll(async () => {
+    sut = await startTestApp();
+  });
+  afterAll(() => sut.close());
+
+  it('hands a snapshot out again only while nothing was published: a change shows at once', async () => {
+    const board = sut.app.get(BoardService);
+    // Jo is idle on shift in the demo shop.
+    const jo = await sut.badge('1045');
+    const status = (at: number) =>
+      board.current(at).people.find((person) => person.id === jo.user.id)?.status;
+    const at = Date.now();
+    const before = board.current(at);
+    expect(board.current(at + 1)).toBe(before);
+    expect(status(at + 1)).toBe('idle');
+
+    await sut
+      .http()
+      .post('/api/punches')
+      .auth(jo.accessToken, { type: 'bearer' })
+      .send({ id: randomUUID(), kind: 'break-start', breakKind: 'rest' })
+      .expect(201);
+    expect(board.current(at + 2).seq).toBeGreaterThan(before.seq);
+    expect(status(at + 2)).toBe('on-break');
+  });
+});

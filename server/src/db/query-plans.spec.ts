@@ -1,0 +1,106 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { RepairOrderPage } from '@baytime/shared';
+import { queryPlan, statementsDuring, type RanStatement } from '../test-support/statements.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { FloorService } from '../floor/floor.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+import { DB, SQLITE, type Db, type Sqlite } from './database.js';
+import { UnitOfWork } from './unit-of-work.js';
+
+/**
+ * The hot reads use their indexes: the plans of the statements the server really runs for the floor,
+ * the office lists and intake. A plan line "SCAN <table>" with no index is a read of every row.
+ */
+describe('query plans', () => {
+  let sut: TestApp;
+  let sqlite: Sqlite;
+  let ran: RanStatement[];
+  const planOf = (what: string, pattern: RegExp) => {
+    const statement = ran.find(({ sql }) => pattern.test(sql));
+    if (!statement) throw new Error(`No statement for ${what} ran`);
+    return queryPlan(sqlite, statement);
+  };
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    sqlite = sut.app.get<Sqlite>(SQLITE);
+    const owner = await sut.signIn(DEMO.owner);
+    const get = async (path: string) =>
+      (await sut.http().get(path).auth(owner, { type: 'bearer' }).expect(200)).body as RepairOrderPage;
+    ran = await statementsDuring(sqlite, async () => {
+      // The floor model reads the open lines once at start-up: build one afresh to see its reads.
+      const app = sut.app;
+      new FloorService(
+        app.get<Db>(DB),
+        app.get(UnitOfWork),
+        app.get(ShopService),
+        app.get(LiveService),
+      ).load();
+      await get('/api/dispatch');
+      const first = await get('/api/repair-orders?status=closed&limit=2');
+      await get(`/api/repair-orders?status=closed&limit=2&cursor=${first.nextCursor}`);
+      await get('/api/repair-orders?q=farrow');
+      const [ro] = (await get('/api/repair-orders?limit=1')).items;
+      await get(`/api/vehicles?vin=${ro!.vin}`);
+    });
+  });
+  afterAll(() => sut.close());
+
+  it('open lines read the partial index of lines not done', () => {
+    const plan = planOf(
+      'open lines',
+      /from "job_lines" .*where \("job_lines"\."status" <> \? and "job_lines"\."status" <> \?\)$/,
+    );
+    expect(plan).toContain('SCAN job_lines USING INDEX job_lines_open_idx');
+    expect(plan).not.toContain('SCAN job_lines');
+  });
+
+  it('a technician’s punches over a time range', () => {
+    expect(
+      planOf('punches by technician', /where \("punches"\."technician_id" = \? and "punches"\."at" >= \?/),
+    ).toContainEqual(
+      expect.stringMatching(
+        /^SEARCH punches USING INDEX punches_technician_id_at_idx \(technician_id=\? AND at>\?( AND at<\?)?\)$/,
+      ),
+    );
+  });
+
+  it('the punches on given job lines', () => {
+    expect(planOf('punches by job line', /from "punches" where "punches"\."job_line_id" in/)).toContainEqual(
+      expect.stringMatching(
+        /^SEARCH punches USING (COVERING )?INDEX punches_job_line_id_at_idx \(job_line_id=\?\)$/,
+      ),
+    );
+  });
+
+  it('repair orders by status, newest first, page after page, with no sort', () => {
+    for (const pattern of [
+      /where "repair_orders"\."status" = \? order by/,
+      /"repair_orders"\."status" = \? and \("repair_orders"\."created_at", "repair_orders"\."id"\) < \(\?, \?\)/,
+    ]) {
+      const plan = planOf('repair orders by status', pattern);
+      expect(plan[0]).toMatch(
+        /^SEARCH repair_orders USING INDEX repair_orders_status_created_at_idx \(status=\?/,
+      );
+      expect(plan.join('\n')).not.toMatch(/TEMP B-TREE/);
+    }
+  });
+
+  it('the repair-order search goes through the full-text index', () => {
+    const plan = planOf('the repair-order search', /MATCH \?\) order by/);
+    // "M": the MATCH constraint is handed to FTS5, which answers it from its index.
+    expect(plan).toContainEqual(expect.stringMatching(/^SCAN repair_orders_search VIRTUAL TABLE INDEX 0:M/));
+    expect(plan).toContain('SEARCH repair_orders USING INTEGER PRIMARY KEY (rowid=?)');
+    expect(plan).not.toContain('SCAN repair_orders');
+  });
+
+  it('a vehicle by its VIN, and its last visit', () => {
+    expect(planOf('vehicle by VIN', /where "vehicles"\."vin" = \?/)).toContain(
+      'SEARCH vehicles USING INDEX vehicles_vin_idx (vin=?)',
+    );
+    expect(planOf('last visit', /where "repair_orders"\."vehicle_id" = \?/)[0]).toBe(
+      'SEARCH repair_orders USING INDEX repair_orders_vehicle_id_created_at_idx (vehicle_id=?)',
+    );
+  });
+});

@@ -1,0 +1,34 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { startTestApp, type TestApp } from '../test-support/test-app.js';
+import type { EventLoopDelay } from './event-loop.service.js';
+
+describe('GET /api/health/event-loop', () => {
+  const apps: TestApp[] = [];
+  afterAll(async () => {
+    for (const app of apps) await app.close();
+  });
+
+  it('answers 404 unless BAYTIME_BENCH_METRICS is set', async () => {
+    const sut = await startTestApp();
+    apps.push(sut);
+    await sut.http().get('/api/health').expect(200);
+    await sut.http().get('/api/health/event-loop').expect(404);
+  });
+
+  it('with BAYTIME_BENCH_METRICS=1, reports a stall of the event loop in milliseconds', async () => {
+    const sut = await startTestApp({ BAYTIME_BENCH_METRICS: '1' });
+    apps.push(sut);
+    const pause = () => new Promise((resolve) => setTimeout(resolve, 30));
+    await sut.http().get('/api/health/event-loop').expect(200);
+    // After a read the monitor needs one tick to start again; then hold the loop for 80 ms.
+    await pause();
+    const until = Date.now() + 80;
+    while (Date.now() < until);
+    await pause();
+    const { body } = await sut.http().get('/api/health/event-loop').expect(200);
+    const delay = body as EventLoopDelay;
+    expect(delay.samples).toBeGreaterThan(0);
+    expect(delay.maxMs).toBeGreaterThanOrEqual(70);
+    expect(delay.p99Ms).toBeLessThanOrEqual(delay.maxMs);
+  });
+});

@@ -1,0 +1,241 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { and, eq } from 'drizzle-orm';
+import type {
+  BoardSnapshot,
+  JobLineDto,
+  RepairOrderHistoryEntry,
+  RepairOrderSummary,
+  SignInAnswer,
+} from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { auditLog } from '../db/schema/index.js';
+import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { RepairOrdersService } from './repair-orders.service.js';
+
+const HOUR = 3600_000;
+
+describe(`${RepairOrdersService.name} after the fact`, () => {
+  let sut: TestApp;
+  let advisor: string;
+  let foreman: string;
+  let owner: string;
+  let tech: SignInAnswer;
+  const as = (token: string) => ({
+    get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
+    post: (path: string, body: object = {}) =>
+      sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
+    patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
+    put: (path: string, body: object) => sut.http().put(path).auth(token, { type: 'bearer' }).send(body),
+    delete: (path: string) => sut.http().delete(path).auth(token, { type: 'bearer' }),
+  });
+  const audits = (entity: string, entityId: number) =>
+    sut.app
+      .get<Db>(DB)
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entity, entity), eq(auditLog.entityId, String(entityId))))
+      .all();
+  const ro = async (id: number) =>
+    (await as(advisor).get(`/api/repair-orders/${id}`).expect(200)).body as RepairOrderSummary;
+  const history = async (id: number) =>
+    (await as(advisor).get(`/api/repair-orders/${id}/history`).expect(200)).body as RepairOrderHistoryEntry[];
+  const write = async (lines = [{ title: 'Replace brake pads', bookHours: 1.5 }]) =>
+    (
+      await as(advisor)
+        .post('/api/repair-orders', {
+          customer: { name: 'Orla Penhallow', phone: '(608) 555-0142', email: 'orla@example.test' },
+          vehicle: {
+            vin: '1M8GDM9AXKP042788',
+            year: 1989,
+            make: 'Tarrow',
+            model: 'Kestrel',
+            odometer: 50_000,
+          },
+          concern: 'Grinding when braking',
+          promisedAt: new Date(Date.now() + 48 * HOUR).toISOString(),
+          lines,
+        })
+        .expect(201)
+    ).body as RepairOrderSummary;
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    advisor = await sut.signIn(DEMO.advisor);
+    foreman = await sut.signIn(DEMO.foreman);
+    owner = await sut.signIn(DEMO.owner);
+    tech = await sut.badge('1045');
+  });
+  afterAll(() => sut.close());
+
+  it('gives each line the concern from intake, its own or the RO’s', async () => {
+    const written = await write([
+      { title: 'Replace brake pads', bookHours: 1.5 },
+      { title: 'Check the horn', bookHours: 0.2, concern: 'Horn is weak' } as never,
+    ]);
+    expect(written.lines.map((line) => line.concern)).toEqual(['Grinding when braking', 'Horn is weak']);
+  });
+
+  it('edits the contact, vehicle, promise and concern, audited with what each was', async () => {
+    const written = await write();
+    const later = new Date(Date.now() + 72 * HOUR).toISOString();
+    const { body } = await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        customer: { phone: '(608) 555-0199' },
+        vehicle: { plate: 'KX 2210' },
+        concern: 'Grinding and a pull to the left',
+        promisedAt: later,
+      })
+      .expect(200);
+    expect(body).toMatchObject({
+      customerPhone: '+16085550199',
+      plate: 'KX 2210',
+      concern: 'Grinding and a pull to the left',
+      promisedAt: later,
+    });
+    expect((body as RepairOrderSummary).lines[0]!.promisedAt).toBe(later);
+    const [edit] = audits('repair-order', written.id).filter((a) => a.action === 'edit');
+    expect(edit!.detail).toMatchObject({
+      changes: {
+        customerPhone: { from: '+16085550142', to: '+16085550199' },
+        vehiclePlate: { from: null, to: 'KX 2210' },
+      },
+    });
+    await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, { promisedAt: new Date(Date.now() - HOUR).toISOString() })
+      .expect(400);
+    await as(tech.accessToken).patch(`/api/repair-orders/${written.id}`, { concern: 'x' }).expect(403);
+  });
+
+  it('adds, reorders and changes lines; a finished RO opens again when a line is added', async () => {
+    const written = await write();
+    const [first] = written.lines;
+    const added = (
+      await as(advisor)
+        .post(`/api/repair-orders/${written.id}/lines`, { title: 'Flush brake fluid', bookHours: 0.8 })
+        .expect(201)
+    ).body as JobLineDto;
+    expect(added).toMatchObject({ lineNo: 2, status: 'queued', concern: 'Grinding when braking' });
+    const reordered = (
+      await as(advisor)
+        .put(`/api/repair-orders/${written.id}/line-order`, { lineIds: [added.id, first!.id] })
+        .expect(200)
+    ).body as RepairOrderSummary;
+    expect(reordered.lines.map((line) => [line.id, line.lineNo])).toEqual([
+      [added.id, 1],
+      [first!.id, 2],
+    ]);
+    await as(advisor)
+      .put(`/api/repair-orders/${written.id}/line-order`, { lineIds: [added.id] })
+      .expect(400);
+    const edited = (
+      await as(advisor)
+        .patch(`/api/job-lines/${first!.id}/details`, { bookHours: 1.8, title: 'Replace front brake pads' })
+        .expect(200)
+    ).body as JobLineDto;
+    expect(edited).toMatchObject({ bookHours: 1.8, title: 'Replace front brake pads' });
+    expect(audits('job-line', first!.id).find((a) => a.action === 'edit')!.detail).toEqual({
+      changes: {
+        bookHours: { from: 1.5, to: 1.8 },
+        title: { from: 'Replace brake pads', to: 'Replace front brake pads' },
+      },
+    });
+    await as(tech.accessToken).patch(`/api/job-lines/${first!.id}/details`, { bookHours: 2 }).expect(403);
+  });
+
+  it('deletes a line without time; one with clocked time answers 409 and can only be cancelled with a reason', async () => {
+    const written = await write([
+      { title: 'Replace brake pads', bookHours: 1.5 },
+      { title: 'Written twice by mistake', bookHours: 1.5 },
+    ]);
+    const [timed, mistake] = written.lines;
+    await as(advisor).delete(`/api/job-lines/${mistake!.id}`).expect(204);
+    expect((await ro(written.id)).lines.map((line) => line.id)).toEqual([timed!.id]);
+
+    await as(foreman).patch(`/api/job-lines/${timed!.id}`, { technicianId: tech.user.id }).expect(200);
+    await as(tech.accessToken)
+      .post('/api/punches', { id: randomUUID(), kind: 'job-on', jobLineId: timed!.id })
+      .expect(201);
+    const refused = await as(advisor).delete(`/api/job-lines/${timed!.id}`).expect(409);
+    expect(refused.body.message).toBe('Time was clocked on that line: cancel it with a reason instead');
+    await as(advisor).post(`/api/job-lines/${timed!.id}/cancel`, {}).expect(400);
+    const cancelled = (
+      await as(advisor)
+        .post(`/api/job-lines/${timed!.id}/cancel`, { reason: 'Customer had it done elsewhere' })
+        .expect(200)
+    ).body as JobLineDto;
+    expect(cancelled).toMatchObject({ status: 'cancelled', cancelReason: 'Customer had it done elsewhere' });
+    const day = (await as(tech.accessToken).get('/api/me/day').expect(200)).body;
+    expect(day.openJobLineIds).not.toContain(timed!.id);
+    // Nothing is left open: the RO's work is done, and it says so.
+    expect((await ro(written.id)).status).toBe('done');
+    expect(audits('repair-order', written.id).map((a) => a.action)).toContain('line-removed');
+  });
+
+  it('keeps the RO status by its lines everywhere, and closes it at pick-up, freeing the bay live (bug 3)', async () => {
+    const written = await write();
+    const [line] = written.lines;
+    const board = sut.connect(foreman);
+    await nextEvent(board, 'board.snapshot');
+    const bay = ((await as(foreman).get('/api/board').expect(200)).body as BoardSnapshot).bays.find(
+      (b) => b.state === 'free',
+    )!;
+    await as(foreman)
+      .patch(`/api/job-lines/${line!.id}`, { technicianId: tech.user.id, bayId: bay.id })
+      .expect(200);
+    await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(409);
+    await as(tech.accessToken).post(`/api/job-lines/${line!.id}/done`, { next: 'ready' }).expect(200);
+    expect((await ro(written.id)).status).toBe('done');
+    const listed = (await as(advisor).get('/api/repair-orders?status=done&q=Penhallow').expect(200)).body;
+    expect(listed.items.map((r: RepairOrderSummary) => r.id)).toContain(written.id);
+
+    const freed = nextEvent(board, 'bay.updated', ({ bay: b }) => b.id === bay.id && b.state === 'free');
+    const closed = (await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(200))
+      .body as RepairOrderSummary;
+    expect(closed).toMatchObject({ status: 'closed' });
+    expect(Date.parse(closed.closedAt!)).toBeGreaterThan(Date.now() - 60_000);
+    expect((await freed).bay).toMatchObject({ state: 'free', repairOrder: null });
+    await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(409);
+    await as(advisor)
+      .post(`/api/repair-orders/${written.id}/lines`, { title: 'More', bookHours: 1 })
+      .expect(409);
+  });
+
+  it('the seeded RO with every line done shows Work done, not Open (bug 3)', async () => {
+    const board = (await as(foreman).get('/api/board').expect(200)).body as BoardSnapshot;
+    const inCheck = board.bays.find((b) => b.state === 'check')!;
+    expect((await ro(inCheck.repairOrder!.id)).status).toBe('done');
+  });
+
+  it('writes reassignments, who finished each line, notices and answers into the history (bug 10)', async () => {
+    const written = await write();
+    const [line] = written.lines;
+    const luis = await sut.badge('1042');
+    await as(foreman).patch(`/api/job-lines/${line!.id}`, { technicianId: tech.user.id }).expect(200);
+    await as(foreman).patch(`/api/job-lines/${line!.id}`, { technicianId: luis.user.id }).expect(200);
+    await as(luis.accessToken)
+      .post(`/api/job-lines/${line!.id}/done`, {
+        next: 'ready',
+        cause: 'Pads worn to the wear bar',
+        correction: 'Fitted new pads',
+      })
+      .expect(200);
+    await as(advisor).post(`/api/repair-orders/${written.id}/ready-notice`).expect(202);
+    const texts = (await history(written.id)).map((entry) => `${entry.actorName}: ${entry.text}`);
+    expect(texts).toEqual([
+      'Nell Ashby: Repair order written',
+      'Theo Varga: L1 Replace brake pads assigned to Jo W.',
+      'Theo Varga: L1 Replace brake pads reassigned from Jo W. to Luis B.',
+      'Luis Brennan: L1 Replace brake pads done: Fitted new pads',
+      'Nell Ashby: Ready notice e-mailed to orla@example.test',
+    ]);
+    const done = (await ro(written.id)).lines[0]!;
+    expect(done).toMatchObject({
+      completedBy: luis.user.id,
+      cause: 'Pads worn to the wear bar',
+      correction: 'Fitted new pads',
+    });
+    await as(owner).get(`/api/repair-orders/${written.id}/history`).expect(200);
+    await as(tech.accessToken).get(`/api/repair-orders/${written.id}/history`).expect(403);
+  });
+});

@@ -1,0 +1,31 @@
+import { sql, type SQL } from 'drizzle-orm';
+import { repairOrders } from '../db/schema/index.js';
+
+/**
+ * `repair_orders_search` is an FTS5 table with the trigram tokenizer, kept by triggers on
+ * `repair_orders` (see the `repair_orders_search` migration): any three characters in a row of the RO
+ * number, the customer's name or phone (also as bare digits), the plate or the VIN find their ROs
+ * through the index. A word shorter than a trigram narrows those matches; alone it reads the table.
+ */
+const SEARCHED_COLUMNS = ['number', 'customer_name', 'customer_phone', 'phone_digits', 'plate', 'vin'];
+const TRIGRAM = 3;
+
+const phrase = (word: string) => `"${word.replaceAll('"', '""')}"`;
+const containing = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** ROs whose searched text holds every word of `q`, in any column, ignoring case. */
+export function repairOrderSearch(q: string): SQL {
+  const words = q.split(/\s+/).filter(Boolean);
+  const long = words.filter((word) => [...word].length >= TRIGRAM);
+  const short = words.filter((word) => [...word].length < TRIGRAM);
+  const conditions: SQL[] = [];
+  if (long.length) conditions.push(sql`repair_orders_search MATCH ${long.map(phrase).join(' AND ')}`);
+  for (const word of short)
+    conditions.push(
+      sql`(${sql.join(
+        SEARCHED_COLUMNS.map((column) => sql`${sql.identifier(column)} LIKE ${containing(word)} ESCAPE '\\'`),
+        sql` OR `,
+      )})`,
+    );
+  return sql`${repairOrders.id} IN (SELECT rowid FROM repair_orders_search WHERE ${sql.join(conditions, sql` AND `)})`;
+}

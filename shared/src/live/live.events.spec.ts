@@ -1,0 +1,17 @@
+import { describe, expect, it } from 'vitest';
+import { LIVE_REFUSAL_WORDS, readLiveRefusal } from './live.events.js';
+
+describe(readLiveRefusal.name, () => {
+  it('reads a refusal the server sent, in the shared words', () => {
+    expect(readLiveRefusal({ reason: 'screen-revoked', message: 'anything' })).toEqual({
+      reason: 'screen-revoked',
+      message: LIVE_REFUSAL_WORDS['screen-revoked'],
+    });
+  });
+
+  it('gives null for what is not a refusal: a network error has no data', () => {
+    expect(readLiveRefusal(undefined)).toBeNull();
+    expect(readLiveRefusal({ reason: 'bored' })).toBeNull();
+    expect(readLiveRefusal('token-expired')).toBeNull();
+  });
+});
