@@ -7,7 +7,11 @@ export default defineConfig({
   test: {
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
-      { extends: true, test: { name: 'kiosk', include: ['kiosk/src/**/*.spec.ts'] } },
+      {
+        extends: true,
+        resolve: { alias: { '@': fileURLToPath(new URL('./kiosk/src', import.meta.url)) } },
+        test: { name: 'kiosk', include: ['kiosk/src/**/*.spec.ts'] },
+      },
       {
         extends: true,
         resolve: { alias: { '@': fileURLToPath(new URL('./board/src', import.meta.url)) } },

@@ -5,7 +5,7 @@ import { OFFICE_NAV } from '../board/src/config/office-nav';
 import { paths } from '../board/src/config/paths';
 import { openBrowser } from './support/browser.js';
 import type { ApprovalRequested } from '@baytime/shared';
-import { apiAs, openWall, recordFinding, signInAtOffice, technicianDay } from './support/floor.js';
+import { apiAs, openKiosk, openWall, recordFinding, signInAtOffice, technicianDay } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** WCAG 2.0, 2.1 and 2.2, levels A and AA, as axe-core tags its rules. */
@@ -209,6 +209,14 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     findings.push(...(await checkPage(page, 'revoke screen dialog', seen)));
     await page.goto(`${server.url}${paths.dispatch}`);
     await page
+      .getByRole('button', { name: /^Parts for / })
+      .first()
+      .click();
+    await page.getByRole('dialog').waitFor();
+    findings.push(...(await checkPage(page, 'parts dialog', seen)));
+    await page.keyboard.press('Escape');
+    await page.getByRole('dialog').waitFor({ state: 'detached' });
+    await page
       .getByRole('button', { name: /^Move line/ })
       .first()
       .focus();
@@ -253,8 +261,27 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
   it('kiosk: sign-in typed on a keyboard, my day, every sheet, my week', async () => {
     const page = await freshPage({ width: 1280, height: 800 });
     await page.goto(`${server.url}${paths.kiosk}`);
-    await page.getByText('Sign in with your badge').waitFor();
-    const findings = await checkPage(page, 'kiosk badge step', seen);
+    await page.getByText('Pair this tablet').waitFor();
+    const findings = await checkPage(page, 'kiosk pairing', seen);
+    await page.getByLabel('Pairing code').fill('ZZZZZZ');
+    await page.getByRole('button', { name: /^Pair/ }).click();
+    await page.getByText(/unknown or has expired/).waitFor();
+    findings.push(...(await checkPage(page, 'kiosk pairing refused', seen)));
+    await openKiosk(page, server);
+    findings.push(...(await checkPage(page, 'kiosk badge step', seen)));
+
+    // No link: badge and PIN lead to the offline punch sheet.
+    await page.context().setOffline(true);
+    await page.keyboard.type('1046');
+    await page.keyboard.press('Enter');
+    await page.getByText('PIN for badge 1046').waitFor();
+    await page.keyboard.type('4321');
+    await page.keyboard.press('Enter');
+    await page.getByRole('dialog', { name: /record a punch offline/ }).waitFor();
+    findings.push(...(await checkPage(page, 'kiosk offline punch sheet', seen)));
+    await page.keyboard.press('Escape');
+    await page.getByRole('dialog').waitFor({ state: 'detached' });
+    await page.context().setOffline(false);
 
     // A badge reader or keyboard: digits, a slip corrected with Backspace, Enter; then the PIN.
     await page.keyboard.type('10419');
@@ -280,6 +307,11 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
 
     await line.getByRole('button', { name: 'Hold' }).click();
     await checkSheet('hold sheet');
+    await sheet.getByRole('button', { name: /Waiting for parts/ }).click();
+    await sheet.getByLabel(/Which part is needed/).waitFor();
+    await checkSheet('hold sheet, which part');
+    await page.keyboard.press('Escape');
+    await sheet.getByRole('button', { name: /Waiting for parts/ }).waitFor();
     await leaveSheet();
     await line.getByRole('button', { name: 'Done' }).click();
     await checkSheet('done sheet');

@@ -42,11 +42,12 @@ class ContractWall {
       })),
     );
     // `bayIds` orders the bays; one it names that this screen has not seen means a snapshot is due.
-    socket.on('floor.updated', ({ people, queue, lateLines, bayIds, ...event }) =>
+    socket.on('floor.updated', ({ people, queue, lateLines, bayIds, kioskQueues, ...event }) =>
       this.apply(event, (board) => {
         const known = new Map(board.bays.map((bay) => [bay.id, bay]));
         if (bayIds.some((id) => !known.has(id))) return null;
-        return { ...board, bays: bayIds.map((id) => known.get(id)!), people, queue, lateLines };
+        const bays = bayIds.map((id) => known.get(id)!);
+        return { ...board, bays, people, queue, lateLines, kioskQueues };
       }),
     );
     for (const other of [

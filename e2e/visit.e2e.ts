@@ -49,7 +49,7 @@ describe('the whole visit, from intake to pick-up', () => {
     await signInAtOffice(advisor, server, 'advisor@marlowcreek.test');
     await advisor.goto(`${server.url}/repair-orders/new`);
     await advisor.getByLabel('Name').fill('Imogen Starke');
-    await advisor.getByLabel('Phone').fill('555-0177');
+    await advisor.getByLabel('Phone').fill('(608) 555-0177');
     await advisor.getByLabel('E-mail').fill('imogen@example.test');
     await advisor.getByLabel('VIN').fill(VIN);
     await advisor.getByLabel('Make').fill('Tarrow');
@@ -96,8 +96,10 @@ describe('the whole visit, from intake to pick-up', () => {
     await wall.screenshot({ path: screenshotPath('visit-wall-ready') });
 
     // The ready notice, from the RO page, reaches the local SMTP server.
-    await advisor.getByRole('button', { name: 'E-mail the customer: vehicle ready' }).click();
-    await advisor.getByText('Ready notice sent to imogen@example.test.').waitFor();
+    await advisor.getByRole('button', { name: 'Tell the customer: vehicle ready' }).click();
+    await advisor
+      .getByText('Ready notice sent by e-mail to imogen@example.test and by text to (608) 555-0177.')
+      .waitFor();
     await expect
       .poll(
         async () =>

@@ -1,7 +1,17 @@
 import type { FindingDto, MyDay } from '@baytime/shared';
 import type { Page } from 'playwright-core';
 import type { RunningServer } from './server.js';
-import { pairingCode } from './server.js';
+import { kioskPairingCode, pairingCode } from './server.js';
+
+/** Opens the kiosk, pairing the tablet first (once per browser) as the owner would with a code. */
+export async function openKiosk(page: Page, server: RunningServer): Promise<void> {
+  await page.goto(`${server.url}/kiosk/`);
+  const keypad = page.getByText('Sign in with your badge');
+  await keypad.or(page.getByText('Pair this tablet')).first().waitFor();
+  if (await keypad.isVisible()) return;
+  await page.goto(`${server.url}/kiosk/?code=${await kioskPairingCode(server)}`);
+  await keypad.waitFor();
+}
 
 /** Signs a technician in on the kiosk keypad the way a badge reader would: digits, then Enter. */
 export async function signInAtKiosk(
@@ -10,8 +20,7 @@ export async function signInAtKiosk(
   badge: string,
   pin = '4321',
 ): Promise<void> {
-  await page.goto(`${server.url}/kiosk/`);
-  await page.getByText('Sign in with your badge').waitFor();
+  await openKiosk(page, server);
   await page.keyboard.type(badge);
   await page.keyboard.press('Enter');
   await page.getByText('Now your PIN').waitFor();

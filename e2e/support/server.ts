@@ -83,16 +83,25 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
 
 /** The pairing code the demo server printed, or a new one from the foreman. */
 export async function pairingCode(server: RunningServer): Promise<string> {
+  return deviceCode(server, '/screens', 'e2e wall');
+}
+
+/** A one-time code for a kiosk tablet, from the foreman (Admin → Kiosks). */
+export async function kioskPairingCode(server: RunningServer, name = 'e2e kiosk'): Promise<string> {
+  return deviceCode(server, '/kiosks', name);
+}
+
+async function deviceCode(server: RunningServer, route: string, name: string): Promise<string> {
   const login = await fetch(`${server.url}/api/auth/login`, {
     method: 'POST',
     headers: { 'content-type': 'application/json' },
     body: JSON.stringify({ email: 'foreman@marlowcreek.test', password: 'baytime-demo' }),
   });
   const { accessToken } = (await login.json()) as { accessToken: string };
-  const response = await fetch(`${server.url}/api/screens`, {
+  const response = await fetch(`${server.url}/api${route}`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', authorization: `Bearer ${accessToken}` },
-    body: JSON.stringify({ name: 'e2e wall' }),
+    body: JSON.stringify({ name }),
   });
   return ((await response.json()) as { code: string }).code;
 }

@@ -19,6 +19,7 @@ import { PayWeeksModule } from './pay-weeks/pay-weeks.module.js';
 import { PayrollModule } from './payroll/payroll.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { ReportsModule } from './reports/reports.module.js';
+import { KiosksModule } from './kiosks/kiosks.module.js';
 import { ScreensModule } from './screens/screens.module.js';
 import { ShopModule } from './shop/shop.module.js';
 import { TimecardsModule } from './timecards/timecards.module.js';
@@ -56,6 +57,7 @@ export class AppModule {
         UsersModule,
         BaysModule,
         ScreensModule,
+        KiosksModule,
         BoardModule,
         PunchesModule,
         WorkModule,

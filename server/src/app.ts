@@ -17,9 +17,15 @@ export async function createApp(
   app.use(
     helmet({
       // Shop tablets reach the server over plain http on the LAN: no https upgrade, no HSTS.
-      // Photos are shown from blob: URLs fetched with the token.
+      // Photos are shown from blob: URLs fetched with the token. The kiosk's service worker comes
+      // from this server only.
       contentSecurityPolicy: {
-        directives: { upgradeInsecureRequests: null, imgSrc: ["'self'", 'data:', 'blob:'] },
+        directives: {
+          upgradeInsecureRequests: null,
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          workerSrc: ["'self'"],
+          manifestSrc: ["'self'"],
+        },
       },
       strictTransportSecurity: false,
     }),

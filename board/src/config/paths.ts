@@ -15,11 +15,13 @@ export const paths = {
   exceptions: '/exceptions',
   reports: '/reports',
   findings: '/findings',
+  offlinePunches: '/offline-punches',
   admin: {
     users: '/admin/users',
     bays: '/admin/bays',
     operations: '/admin/operations',
     screens: '/admin/screens',
+    kiosks: '/admin/kiosks',
     shop: '/admin/shop',
     mailbox: '/admin/mailbox',
   },

@@ -9,6 +9,7 @@ import { installAudioUnlock } from '@/lib/chime';
 import { setBeforeCommand } from '@/lib/commands';
 import { myDayRootKey } from '@/features/my-day/api/get-my-day';
 import { kick, startPunchQueue } from '@/features/punches/punch-queue';
+import { startQueueReports } from '@/features/punches/queue-report';
 import { kioskTheme } from './theme';
 
 function invalidateMyDay() {
@@ -54,6 +55,7 @@ function followTokens(): () => void {
 export function AppProvider({ children }: { children: ReactNode }) {
   useEffect(() => startPunchQueue({ onSent: invalidateMyDay, onRefused: invalidateMyDay }), []);
   useEffect(() => setBeforeCommand(kick), []);
+  useEffect(startQueueReports, []);
   useEffect(installAudioUnlock, []);
   useEffect(followTokens, []);
 

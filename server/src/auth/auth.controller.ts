@@ -45,6 +45,15 @@ export class AuthController {
     return this.auth.pairScreen(body);
   }
 
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Throttle({ default: { limit: 30, ttl: 60_000 } })
+  @Post('auth/kiosks/pair')
+  @HttpCode(200)
+  pairKiosk(@Body({ schema: pairScreenSchema }) body: PairScreenBody): { accessToken: string } {
+    return this.auth.pairScreen(body, 'kiosk');
+  }
+
   @Get('me')
   me(@CurrentUser() user: Principal): AuthUser {
     return user;

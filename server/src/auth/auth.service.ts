@@ -1,5 +1,6 @@
 import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
+import { Subject } from 'rxjs';
 import { and, eq, isNull } from 'drizzle-orm';
 import type {
   BadgeLoginBody,
@@ -9,7 +10,7 @@ import type {
   SignInAnswer,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { screens, users } from '../db/schema/index.js';
+import { screens, users, type DeviceKind } from '../db/schema/index.js';
 import { hashPairingCode } from '../screens/pairing-code.js';
 import { verifySecret } from './passwords.js';
 import type { Principal, TokenPayload } from './principal.js';
@@ -17,14 +18,21 @@ import { SignInThrottle } from './sign-in-throttle.js';
 
 const OFFICE_TOKEN_TTL = '12h';
 const KIOSK_TOKEN_TTL = '2h';
-/** A wall screen stays paired until the owner revokes it. */
+/** A wall screen or kiosk stays paired until the owner revokes it. */
 const DISPLAY_TOKEN_TTL = '3650d';
+const DEVICE_ROLE = { wall: 'display', kiosk: 'kiosk' } as const satisfies Record<
+  DeviceKind,
+  Principal['role']
+>;
 
 /** A token checked: the caller and when the token runs out (ms), or why it is refused. */
 export type TokenCheck = { principal: Principal; expiresAt: number } | { refusal: LiveRefusalReason };
 
 @Injectable()
 export class AuthService {
+  /** A technician signed in at a kiosk with badge and PIN: their offline punches may be confirmed. */
+  readonly badgeSignIns$ = new Subject<Principal>();
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly jwt: JwtService,
@@ -48,15 +56,23 @@ export class AuthService {
       return row && ok && row.active && row.role === 'technician' ? row : null;
     });
     if (!user) throw new UnauthorizedException('Badge or PIN not recognised');
+    this.badgeSignIns$.next({ id: user.id, name: user.name, role: user.role });
     return this.answer(user, KIOSK_TOKEN_TTL);
   }
 
-  pairScreen({ code }: PairScreenBody): { accessToken: string } {
+  /** A wall screen (`display` token) or a kiosk tablet (`kiosk` token) pairs once with its code. */
+  pairScreen({ code }: PairScreenBody, kind: DeviceKind = 'wall'): { accessToken: string } {
     const now = new Date();
     const screen = this.db
       .select()
       .from(screens)
-      .where(and(eq(screens.pairingCodeHash, hashPairingCode(code)), isNull(screens.revokedAt)))
+      .where(
+        and(
+          eq(screens.pairingCodeHash, hashPairingCode(code)),
+          eq(screens.kind, kind),
+          isNull(screens.revokedAt),
+        ),
+      )
       .get();
     if (!screen || !screen.pairingExpiresAt || screen.pairingExpiresAt < now)
       throw new UnauthorizedException('That pairing code is unknown or has expired');
@@ -65,7 +81,7 @@ export class AuthService {
       .set({ pairingCodeHash: null, pairingExpiresAt: null, pairedAt: now, lastSeenAt: now })
       .where(eq(screens.id, screen.id))
       .run();
-    const payload: TokenPayload = { sub: screen.id, role: 'display' };
+    const payload: TokenPayload = { sub: screen.id, role: DEVICE_ROLE[kind] };
     return { accessToken: this.jwt.sign(payload, { expiresIn: DISPLAY_TOKEN_TTL }) };
   }
 
@@ -92,10 +108,11 @@ export class AuthService {
   }
 
   private callerOf(payload: TokenPayload): Principal | LiveRefusalReason {
-    if (payload.role === 'display') {
+    if (payload.role === 'display' || payload.role === 'kiosk') {
       const screen = this.db.select().from(screens).where(eq(screens.id, payload.sub)).get();
-      if (!screen || screen.revokedAt || !screen.pairedAt) return 'screen-revoked';
-      return { id: screen.id, name: screen.name, role: 'display' };
+      if (!screen || screen.revokedAt || !screen.pairedAt || DEVICE_ROLE[screen.kind] !== payload.role)
+        return 'screen-revoked';
+      return { id: screen.id, name: screen.name, role: payload.role };
     }
     const user = this.db.select().from(users).where(eq(users.id, payload.sub)).get();
     if (!user || !user.active) return 'account-inactive';

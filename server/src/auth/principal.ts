@@ -1,6 +1,9 @@
 import type { Role } from '@baytime/shared';
 
-/** Who is calling: a person, or a paired wall screen (role `display`, id = the screen's id). */
+/**
+ * Who is calling: a person, or a paired device: a wall screen (role `display`) or a kiosk tablet (role
+ * `kiosk`), whose id is the device's row in `screens`.
+ */
 export interface Principal {
   id: number;
   name: string;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { JwtService } from '@nestjs/jwt';
-import type { BoardSnapshot, LiveRefusal } from '@baytime/shared';
+import type { BoardSnapshot, DispatchBoard, LiveRefusal } from '@baytime/shared';
 import { DEMO, nextEvent, startTestApp, type LiveClient, type TestApp } from '../test-support/test-app.js';
 import { BoardGateway } from './board.gateway.js';
 
@@ -109,6 +109,40 @@ describe(BoardGateway.name, () => {
 
     const again = sut.connect(screen.token);
     expect((await refusalOf(again)).reason).toBe('screen-revoked');
+  });
+
+  it("sends a line's change to the floor and to the kiosks it concerns, and to no other kiosk", async () => {
+    const techs = await Promise.all(DEMO.badges.map((badge) => sut.badge(badge)));
+    const dispatch = (await sut.http().get('/api/dispatch').auth(owner, { type: 'bearer' }).expect(200))
+      .body as DispatchBoard;
+    const lane = dispatch.lanes.find((each) => each.lines.some((line) => line.status === 'queued'))!;
+    const line = lane.lines.find((each) => each.status === 'queued')!;
+    const from = techs.find((tech) => tech.user.id === lane.technician.id)!;
+    const [to, bystander] = techs.filter((tech) => tech !== from);
+    const sockets = [owner, from.accessToken, to!.accessToken, bystander!.accessToken].map((token) =>
+      sut.connect(token),
+    );
+    await Promise.all(sockets.map((socket) => nextEvent(socket, 'board.snapshot')));
+    const heard = sockets.map(() => [] as number[]);
+    sockets.forEach((socket, i) =>
+      socket.on('job-line.updated', ({ jobLine }) => heard[i]!.push(jobLine.id)),
+    );
+    const [office, before, after] = sockets.map((socket) =>
+      nextEvent(socket, 'job-line.updated', ({ jobLine }) => jobLine.id === line.id),
+    );
+    await sut
+      .http()
+      .patch(`/api/job-lines/${line.id}`)
+      .auth(owner, { type: 'bearer' })
+      .send({ technicianId: to!.user.id })
+      .expect(200);
+    // The office, the kiosk that had the line and the kiosk that has it now all hear of it.
+    expect((await office)!.jobLine.technicianId).toBe(to!.user.id);
+    expect((await before)!.jobLine.technicianId).toBe(to!.user.id);
+    expect((await after)!.jobLine.technicianId).toBe(to!.user.id);
+    // A kiosk the line never concerned hears nothing of it.
+    await sut.http().get('/api/health').expect(200);
+    expect(heard[3]).toEqual([]);
   });
 
   it("closes a deactivated technician's socket, and leaves others connected", async () => {

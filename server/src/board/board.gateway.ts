@@ -78,7 +78,7 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
         const rooms =
           audience.to === 'everyone'
             ? [SHOP_ROOM]
-            : [...FLOOR_ROOMS, ...(audience.technicianId ? [`user:${audience.technicianId}`] : [])];
+            : [...FLOOR_ROOMS, ...(audience.technicianIds ?? []).map((id) => `user:${id}`)];
         (this.server.to(rooms).emit as (event: string, payload: unknown) => boolean)(event, payload);
       }),
       this.live.sessionsEnded$.subscribe(({ holder, reason }) => {
@@ -98,7 +98,7 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
     void socket.join([
       SHOP_ROOM,
       `role:${principal.role}`,
-      `${principal.role === 'display' ? 'screen' : 'user'}:${principal.id}`,
+      `${principal.role === 'display' || principal.role === 'kiosk' ? 'screen' : 'user'}:${principal.id}`,
     ]);
     this.endAtExpiry(socket, expiresAt);
     if (principal.role === 'display') this.screens.seen(principal.id);

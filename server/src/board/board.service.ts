@@ -15,7 +15,9 @@ import {
 import { keepServing } from '../common/keep-serving.js';
 import { FloorService, type FloorLine, type FloorTimer } from '../floor/floor.service.js';
 import { timerEstimate } from '../timers/timer-view.js';
+import { waitingParts } from '../work/parts-hold.dto.js';
 import { LiveService } from '../live/live.service.js';
+import { ScreensService } from '../screens/screens.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
@@ -47,6 +49,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     private readonly floor: FloorService,
     private readonly shop: ShopService,
     private readonly live: LiveService,
+    private readonly screens: ScreensService,
   ) {}
 
   onModuleInit(): void {
@@ -89,13 +92,19 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const bayIds = after.bays.map((bay) => bay.id);
     if (
       !isDeepStrictEqual(
-        [bayIds, after.people, after.queue, after.lateLines],
-        [before.bays.map((bay) => bay.id), before.people, before.queue, before.lateLines],
+        [bayIds, after.people, after.queue, after.lateLines, after.kioskQueues],
+        [before.bays.map((bay) => bay.id), before.people, before.queue, before.lateLines, before.kioskQueues],
       )
     )
       this.live.publish(
         'floor.updated',
-        { people: after.people, queue: after.queue, lateLines: after.lateLines, bayIds },
+        {
+          people: after.people,
+          queue: after.queue,
+          lateLines: after.lateLines,
+          bayIds,
+          kioskQueues: after.kioskQueues,
+        },
         { to: 'floor' },
       );
     this.published = { ...after, seq: this.live.seq };
@@ -139,6 +148,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
         state,
         holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
         heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
+        partsDueAt: state === 'held' && line ? (waitingParts(line)?.expectedAt ?? null) : null,
         vehicle: ro?.vehicle ?? null,
         repairOrder: ro ? { id: ro.id, number: ro.number } : null,
         jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
@@ -190,6 +200,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       people,
       queue,
       lateLines: this.lateLines,
+      kioskQueues: this.screens.kioskQueues(),
     };
   }
 

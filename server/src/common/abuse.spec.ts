@@ -387,6 +387,10 @@ describe(ErrorsFilter.name, () => {
   it('sends security headers and a content security policy', async () => {
     const { headers } = await sut.http().get('/api/health').expect(200);
     expect(headers['content-security-policy']).toContain("default-src 'self'");
+    // The kiosk's service worker and manifest: from this server only.
+    const policy = String(headers['content-security-policy']).split(';');
+    expect(policy).toContain("worker-src 'self'");
+    expect(policy).toContain("manifest-src 'self'");
     expect(headers['x-content-type-options']).toBe('nosniff');
     expect(headers['x-frame-options']).toBe('SAMEORIGIN');
     expect(headers['x-powered-by']).toBeUndefined();

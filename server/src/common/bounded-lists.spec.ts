@@ -2,7 +2,17 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { PAGE_LIMIT_MAX, type Role } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, findings, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import { randomUUID } from 'node:crypto';
+import {
+  customers,
+  findings,
+  jobLines,
+  offlinePunches,
+  repairOrders,
+  screens,
+  users,
+  vehicles,
+} from '../db/schema/index.js';
 import { OutboxService } from '../mail/outbox.service.js';
 import { ROUTES } from '../test-support/routes.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
@@ -14,6 +24,7 @@ const ACCEPTED_LISTS: Record<string, string> = {
   '/api/operations': 'the shop’s menu of operations, kept by the owner',
   '/api/hold-presets': 'named fixed waits the owner sets up',
   '/api/screens': 'the wall screens the shop paired',
+  '/api/kiosks': 'the kiosk tablets the shop paired',
   '/api/timers': 'running timers only: at most one per line in work, a stopped one drops out',
   '/api/shop/pay-rules': 'the shop’s pay rules: one per change of the rules the owner made',
 };
@@ -24,6 +35,7 @@ const NOT_LISTS: Record<string, string> = {
   '/api/me/day': 'one technician’s open lines today',
   '/api/shop': 'the shop’s settings',
   '/api/health': 'a health check',
+  '/api/kiosks/me/offline-key': 'the server’s public key for offline sign-ins',
   '/api/board': 'the floor now: bays, people in, open lines',
   '/api/dispatch': 'the floor now: open lines per technician',
   '/api/vehicles': 'one vehicle, found by VIN',
@@ -70,6 +82,14 @@ describe('every GET collection route is bounded', () => {
     tokens.foreman = await sut.signIn(DEMO.foreman);
     tokens.advisor = await sut.signIn(DEMO.advisor);
     tokens.technician = (await sut.badge('1044')).accessToken;
+    const kiosk = await sut
+      .http()
+      .post('/api/kiosks')
+      .auth(tokens.owner, { type: 'bearer' })
+      .send({ name: 'Kiosk' });
+    tokens.kiosk = (
+      await sut.http().post('/api/auth/kiosks/pair').send({ code: kiosk.body.code })
+    ).body.accessToken;
     const express = sut.app.getHttpAdapter().getInstance() as {
       router: { stack: { route?: { path: string; methods: Record<string, boolean> } }[] };
     };
@@ -127,6 +147,19 @@ describe('every GET collection route is bounded', () => {
         .values({ jobLineId, technicianId, note: 'Bulk', severity: 'watch', createdAt: at })
         .run();
     }
+    const kioskId = db.select().from(screens).where(eq(screens.kind, 'kiosk')).get()!.id;
+    for (let i = 0; i <= PAGE_LIMIT_MAX; i++)
+      db.insert(offlinePunches)
+        .values({
+          id: randomUUID(),
+          kioskId,
+          kind: 'shift-in',
+          at: new Date(at.getTime() + (i % 7) * 60_000),
+          status: 'refused',
+          problem: 'Wrong PIN',
+          receivedAt: at,
+        })
+        .run();
     const mail = sut.app.get(OutboxService);
     for (let i = 0; i < 3; i++) {
       mail.queueMail({ to: 'bulk@example.test', subject: `Bulk ${i}`, text: 'Bulk' });

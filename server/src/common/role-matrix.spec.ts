@@ -20,6 +20,14 @@ describe(SignedInGuard.name, () => {
       .send({ name: 'Test wall' });
     const paired = await sut.http().post('/api/auth/screens/pair').send({ code: pairing.body.code });
     tokens.display = paired.body.accessToken;
+    const kiosk = await sut
+      .http()
+      .post('/api/kiosks')
+      .auth(tokens.owner, { type: 'bearer' })
+      .send({ name: 'Test kiosk' });
+    tokens.kiosk = (
+      await sut.http().post('/api/auth/kiosks/pair').send({ code: kiosk.body.code })
+    ).body.accessToken;
   });
   afterAll(() => sut.close());
 

@@ -18,6 +18,7 @@ import {
   jobLines,
   operations,
   payRates,
+  partsHolds,
   punches,
   repairOrders,
   shopSettings,
@@ -358,6 +359,18 @@ export class DemoShopSeeder {
     ]);
     this.punch(priya, 'job-on', ago(150), { jobLineId: held.lineIds[0]! });
     this.punch(priya, 'job-off', ago(55), { jobLineId: held.lineIds[0]! });
+    this.db
+      .insert(partsHolds)
+      .values({
+        jobLineId: held.lineIds[0]!,
+        part: 'Rear hub bearing assembly',
+        state: 'back-ordered',
+        supplier: 'Tallow Ridge Parts Supply',
+        expectedAt: new Date(now.getTime() + 150 * MINUTE),
+        createdAt: ago(55),
+        updatedAt: ago(40),
+      })
+      .run();
     this.punch(priya, 'break-start', ago(20), { breakKind: 'meal' });
     this.setBay(bay(3), 'staged', held.id, ago(150));
 

@@ -24,6 +24,7 @@ import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { waitingParts } from '../work/parts-hold.dto.js';
 
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
@@ -37,6 +38,9 @@ const byUrgency = (a: DispatchLine, b: DispatchLine) =>
   PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
   (a.promisedAt ?? '9').localeCompare(b.promisedAt ?? '9') ||
   a.queuedAt.localeCompare(b.queuedAt);
+
+/** A held line has no forecast, unless it waits for parts with a known arrival: it starts no earlier. */
+const forecastable = (line: DispatchLine) => line.status !== 'held' || line.parts?.expectedAt != null;
 
 interface Efficiencies {
   byTechnician: Map<number, number | null>;
@@ -108,6 +112,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       queuedAt: line.queuedAt.toISOString(),
       clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
       clockedOn: clockedOn.get(line.id) ?? [],
+      parts: waitingParts(line),
       forecast: null,
       late: false,
     }));
@@ -120,6 +125,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
           // Time already clocked counts as progress at the tech's own pace.
           remainingBookHours: Math.max(0, l.bookHours - (l.clockedSeconds / 3600) * (efficiency ?? 1)),
           promisedAt: l.promisedAt,
+          notBefore: l.parts?.expectedAt ?? null,
         })),
         efficiency,
         openingHours: settings.openingHours,
@@ -127,8 +133,8 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
         now,
       });
       if (!forecasts) forecastsAvailable = false;
-      for (const [index, f] of (forecasts ?? []).entries())
-        queue[index]!.forecast = {
+      for (const f of forecasts ?? [])
+        queue.find((l) => l.id === f.id)!.forecast = {
           startAt: f.startAt.toISOString(),
           finishAt: f.finishAt.toISOString(),
           late: f.late,
@@ -139,10 +145,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     const lanes: DispatchLane[] = technicians.map((tech) => {
       const own = lines.filter((l) => l.technicianId === tech.id).sort(byUrgency);
       const efficiency = efficiencies.byTechnician.get(tech.id) ?? null;
-      const forecasts = forecast(
-        own.filter((l) => l.status !== 'held'),
-        efficiency ?? efficiencies.shop,
-      );
+      const forecasts = forecast(own.filter(forecastable), efficiency ?? efficiencies.shop);
       const state = this.floor.stateOf(tech.id, now);
       const status =
         !state || state.status === 'off'
@@ -162,7 +165,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
 
     const queue = lines.filter((l) => l.technicianId === null).sort(byUrgency);
     // A waiting line is late already if even starting it now, at the shop's pace, misses its promise.
-    for (const line of queue) if (line.status !== 'held') forecast([line], efficiencies.shop);
+    for (const line of queue) if (forecastable(line)) forecast([line], efficiencies.shop);
     for (const line of lines) line.late = isLineLate(line, line.forecast, now);
 
     return {

@@ -301,7 +301,7 @@ export class FindingsService {
     let createdLine: JobLineDto | null = null;
     if (created) {
       createdLine = toJobLineDto(created);
-      this.live.publish('job-line.updated', { jobLine: createdLine });
+      this.live.publish('job-line.updated', { jobLine: createdLine }, this.floor.lineAudience(createdLine));
       this.floor.linesChanged([created.id]);
     }
     this.live.publish(

@@ -7,6 +7,7 @@ import {
   technicianState,
   type Ledger,
   type LedgerPunch,
+  type PartsHoldDto,
   type TechnicianState,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
@@ -14,6 +15,7 @@ import { UnitOfWork } from '../db/unit-of-work.js';
 import {
   bays,
   jobLines,
+  partsHolds,
   punches,
   repairOrders,
   timerReadings,
@@ -22,8 +24,9 @@ import {
   vehicles,
 } from '../db/schema/index.js';
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
-import { LiveService } from '../live/live.service.js';
+import { LiveService, type Audience } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
 
 const HOUR_MS = 3600_000;
@@ -32,7 +35,12 @@ const RECENT_MS = 72 * HOUR_MS;
 /** How far before its first punch on an open line a technician's shift may have begun. */
 const SHIFT_LOOKBACK_MS = 36 * HOUR_MS;
 
-export type FloorLine = typeof jobLines.$inferSelect & { repairOrderNumber: string; vehicle: string };
+export type FloorLine = typeof jobLines.$inferSelect & {
+  repairOrderNumber: string;
+  vehicle: string;
+  /** The line's latest parts hold, open or received; null when it never waited for parts. */
+  parts: PartsHoldDto | null;
+};
 export type FloorBay = typeof bays.$inferSelect & {
   parked: { id: number; number: string; vehicle: string } | null;
 };
@@ -178,6 +186,18 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   stateOf(technicianId: number, now: Date): TechnicianState | null {
     return this.built(technicianId, now)?.state ?? null;
+  }
+
+  /**
+   * Who hears of a change to the line: the floor screens, and the kiosks of its technician, of the
+   * technician it had before this change (the model still holds the line as it was until the commit),
+   * and of everyone clocked on it.
+   */
+  lineAudience(line: { id: number; technicianId: number | null }, now = new Date()): Audience {
+    const before = this.lines.get(line.id)?.technicianId ?? null;
+    const concerned = new Set([...this.clockedOn(line.id, now), line.technicianId, before]);
+    concerned.delete(null);
+    return { to: 'floor', technicianIds: [...concerned] as number[] };
   }
 
   /** Technicians clocked on the line right now. */
@@ -340,6 +360,7 @@ type LineQueryRow = typeof jobLines.$inferSelect & {
   vehicleYear: number;
   vehicleMake: string;
   vehicleModel: string;
+  parts: typeof partsHolds.$inferSelect | null;
 };
 
 function toFloorLine({
@@ -347,12 +368,14 @@ function toFloorLine({
   vehicleYear,
   vehicleMake,
   vehicleModel,
+  parts,
   ...line
 }: LineQueryRow): FloorLine {
   return {
     ...line,
     repairOrderNumber,
     vehicle: describeVehicle({ year: vehicleYear, make: vehicleMake, model: vehicleModel }),
+    parts: parts ? toPartsHoldDto(parts) : null,
   };
 }
 
@@ -386,13 +409,16 @@ function prepareFloorQueries(db: Db) {
     vehicleYear: vehicles.year,
     vehicleMake: vehicles.make,
     vehicleModel: vehicles.model,
+    parts: partsHolds,
   };
+  const latestParts = sql`(select max(${partsHolds.id}) from ${partsHolds} where ${partsHolds.jobLineId} = ${jobLines.id})`;
   const linesWithVehicle = () =>
     db
       .select(lineColumns)
       .from(jobLines)
       .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId));
+      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
+      .leftJoin(partsHolds, eq(partsHolds.id, latestParts));
   return {
     technicians: db
       .select({ id: users.id, name: users.name, skillLevel: users.skillLevel })

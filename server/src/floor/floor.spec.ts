@@ -12,6 +12,7 @@ import { users } from '../db/schema/index.js';
 import { UnitOfWork } from '../db/unit-of-work.js';
 import { LiveService } from '../live/live.service.js';
 import { PunchesService } from '../punches/punches.service.js';
+import { ScreensService } from '../screens/screens.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimecardsService } from '../timecards/timecards.service.js';
@@ -273,7 +274,11 @@ describe(FloorService.name, () => {
     const live = app.app.get(LiveService);
     const fresh = new FloorService(app.app.get<Db>(DB), app.app.get(UnitOfWork), shop, live);
     fresh.load(now);
-    return [app.app.get(BoardService).snapshot(0, now), new BoardService(fresh, shop, live).snapshot(0, now)];
+    const screens = app.app.get(ScreensService);
+    return [
+      app.app.get(BoardService).snapshot(0, now),
+      new BoardService(fresh, shop, live, screens).snapshot(0, now),
+    ];
   }
 
   function comparable(snapshot: BoardSnapshot) {

@@ -8,10 +8,11 @@ import { UnitOfWork } from '../db/unit-of-work.js';
 type Payload<E extends keyof ServerToClientEvents> = Omit<Parameters<ServerToClientEvents[E]>[0], 'seq'>;
 
 /**
- * Who hears a message: everyone signed in, the floor screens (office roles and wall displays), and
- * optionally one technician's own kiosk. Kiosks need only what concerns their technician.
+ * Who hears a message: everyone signed in, or the floor screens (office roles and wall displays) and
+ * the kiosks of the technicians it concerns. Kiosks need only what concerns their technician: with a
+ * thousand tablets open, a message to everyone costs a thousand frames.
  */
-export type Audience = { to: 'everyone' } | { to: 'floor'; technicianId?: number };
+export type Audience = { to: 'everyone' } | { to: 'floor'; technicianIds?: readonly number[] };
 
 export interface LiveMessage {
   event: keyof ServerToClientEvents;
@@ -58,7 +59,7 @@ export class LiveService {
   publish<E extends Exclude<keyof ServerToClientEvents, 'board.snapshot' | 'session.ended'>>(
     event: E,
     payload: Payload<E>,
-    audience: Audience = { to: 'everyone' },
+    audience: Audience = { to: 'floor' },
   ): void {
     // Inside a use case the message waits for the commit; a rolled-back command says nothing.
     this.uow.afterCommit(() =>

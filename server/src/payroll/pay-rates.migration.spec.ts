@@ -16,7 +16,7 @@ describe('dated pay rates migration', () => {
     try {
       const db = drizzle(connection);
       migrate(db, {
-        migrationsFolder: migrationsUpTo('0009_job_line_concerns_and_ro_status', join(dir, 'before')),
+        migrationsFolder: migrationsUpTo('0011_kiosks_and_offline_punches', join(dir, 'before')),
       });
       connection.exec(`
         INSERT INTO shop_settings (id, name, time_zone, workweek_start_day, workweek_start_hour, units, max_concurrent_jobs,

@@ -6,6 +6,7 @@ import { DB, type Db } from '../db/database.js';
 import { jobLines } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { receivedParts, waitingParts } from '../work/parts-hold.dto.js';
 
 const OFF_SHIFT: TechnicianState = { status: 'off', since: null, breakKind: null, openJobLineIds: [] };
 
@@ -47,6 +48,7 @@ export class MyDayService {
         bayName: line.bayId ? (bayNames.get(line.bayId) ?? null) : null,
         clockedOn: state.openJobLineIds.includes(line.id),
         concern: line.concern,
+        parts: waitingParts(line) ?? receivedParts(line),
       })),
       doneToday: this.doneToday(technician.id, now, settings.timeZone),
       finalChecks: this.finalChecks(technician.id),

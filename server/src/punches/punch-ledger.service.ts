@@ -104,7 +104,7 @@ export class PunchLedgerService {
       voids: recorded.voids ?? false,
     });
     const dto = toPunchDto(row!);
-    this.live.publish('punch.recorded', { punch: dto }, { to: 'floor', technicianId: dto.technicianId });
+    this.live.publish('punch.recorded', { punch: dto }, { to: 'floor', technicianIds: [dto.technicianId] });
     this.floor.punchRecorded(dto);
     return dto;
   }

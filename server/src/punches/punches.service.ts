@@ -100,7 +100,12 @@ export class PunchesService {
    * foreman's review and left out of every count (202). The rest of such a replay waits behind it.
    */
   @Transactional()
-  record(body: CreatePunchBody, actor: Principal, now = new Date()): RecordedPunch {
+  record(
+    body: CreatePunchBody,
+    actor: Principal,
+    now = new Date(),
+    maxAgeSeconds = MAX_PUNCH_AGE_SECONDS,
+  ): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.queries.punch.get({ id: body.id });
     const existingHeld = existing
@@ -114,8 +119,10 @@ export class PunchesService {
     const at = body.at ? new Date(body.at) : now;
     if (at.getTime() > now.getTime() + MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000)
       throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
-    if (at.getTime() < now.getTime() - MAX_PUNCH_AGE_SECONDS * 1000)
-      throw new BadRequestException('That punch is more than 12 hours old: ask the foreman to add it');
+    if (at.getTime() < now.getTime() - maxAgeSeconds * 1000)
+      throw new BadRequestException(
+        `That punch is more than ${maxAgeSeconds / 3600} hours old: ask the foreman to add it`,
+      );
     this.closedWeeks.assertOpenAt(at, 'That punch');
     const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
@@ -168,7 +175,11 @@ export class PunchesService {
           },
           now,
         );
-      this.live.publish('job-line.updated', { jobLine: toJobLineDto(updated) });
+      this.live.publish(
+        'job-line.updated',
+        { jobLine: toJobLineDto(updated) },
+        this.floor.lineAudience(updated),
+      );
       this.floor.linesChanged([line.id]);
     }
     return { punch, replayed: false, held: false };
@@ -328,7 +339,7 @@ export class PunchesService {
         .returning()
         .get();
       const punch = toPunchDto(row);
-      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianId });
+      this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [technicianId] });
       this.floor.punchRecorded(punch);
     }
     return technicianIds;

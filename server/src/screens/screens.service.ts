@@ -1,12 +1,18 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { asc, eq, isNull } from 'drizzle-orm';
-import type { CreateScreenBody, ScreenPairing } from '@baytime/shared';
+import { and, asc, eq, gt, isNull } from 'drizzle-orm';
+import type {
+  CreateScreenBody,
+  KioskDto,
+  KioskQueueBody,
+  KioskQueueNote,
+  ScreenPairing,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { screens } from '../db/schema/index.js';
+import { screens, type DeviceKind } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import { hashPairingCode, newPairingCode } from './pairing-code.js';
 
@@ -22,6 +28,16 @@ export interface ScreenDto {
 }
 
 const iso = (date: Date | null) => date?.toISOString() ?? null;
+type ScreenRow = typeof screens.$inferSelect;
+
+const toScreenDto = (row: ScreenRow): ScreenDto => ({
+  id: row.id,
+  name: row.name,
+  pairedAt: iso(row.pairedAt),
+  lastSeenAt: iso(row.lastSeenAt),
+  revokedAt: iso(row.revokedAt),
+  pairingExpiresAt: iso(row.pairingExpiresAt),
+});
 
 @Injectable()
 export class ScreensService {
@@ -32,32 +48,77 @@ export class ScreensService {
     private readonly live: LiveService,
   ) {}
 
+  /** Queue notes for the wall, kept until a kiosk reports again or one is revoked. */
+  private queueNotes: KioskQueueNote[] | null = null;
+
   list(): ScreenDto[] {
-    return this.db
+    return this.rows('wall').map(toScreenDto);
+  }
+
+  kiosks(): KioskDto[] {
+    return this.rows('kiosk').map((row) => ({
+      ...toScreenDto(row),
+      queue: { waiting: row.queueWaiting, since: iso(row.queueSince), reportedAt: iso(row.queueReportedAt) },
+    }));
+  }
+
+  /** Kiosks still paired whose last report said punches wait on them. */
+  kioskQueues(): KioskQueueNote[] {
+    this.queueNotes ??= this.db
       .select()
       .from(screens)
+      .where(and(eq(screens.kind, 'kiosk'), isNull(screens.revokedAt), gt(screens.queueWaiting, 0)))
       .orderBy(asc(screens.id))
       .all()
       .map((row) => ({
-        id: row.id,
+        kioskId: row.id,
         name: row.name,
-        pairedAt: iso(row.pairedAt),
-        lastSeenAt: iso(row.lastSeenAt),
-        revokedAt: iso(row.revokedAt),
-        pairingExpiresAt: iso(row.pairingExpiresAt),
+        waiting: row.queueWaiting,
+        since: iso(row.queueSince),
       }));
+    return this.queueNotes;
   }
 
-  /** A new screen with a one-time code, shown once: only its hash is kept. */
+  /** A new wall screen or kiosk with a one-time code, shown once: only its hash is kept. */
   @Transactional()
-  create({ name }: CreateScreenBody, actor: Principal | null): ScreenPairing {
+  create({ name }: CreateScreenBody, actor: Principal | null, kind: DeviceKind = 'wall'): ScreenPairing {
     const row = this.db
       .insert(screens)
-      .values({ name, createdBy: actor?.id ?? null, createdAt: new Date() })
+      .values({ kind, name, createdBy: actor?.id ?? null, createdAt: new Date() })
       .returning()
       .get();
-    this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'screen', entityId: row.id });
+    this.audit.record({
+      actorId: actor?.id ?? null,
+      action: 'create',
+      entity: kind === 'wall' ? 'screen' : 'kiosk',
+      entityId: row.id,
+    });
     return this.newCode(row.id);
+  }
+
+  /** A kiosk says how many punches wait in its outbox and since when; the wall and office show it. */
+  @Transactional()
+  reportQueue(kioskId: number, { waiting, oldestQueuedAt }: KioskQueueBody, now = new Date()): void {
+    this.db
+      .update(screens)
+      .set({
+        queueWaiting: waiting,
+        queueSince: waiting > 0 && oldestQueuedAt ? new Date(oldestQueuedAt) : null,
+        queueReportedAt: now,
+        lastSeenAt: now,
+      })
+      .where(eq(screens.id, kioskId))
+      .run();
+    this.queuesChanged();
+  }
+
+  private queuesChanged(): void {
+    this.uow.afterCommit(() => (this.queueNotes = null));
+    this.live.changed();
+  }
+
+  private rows(kind: DeviceKind): ScreenRow[] {
+    return this.db.select().from(screens).where(eq(screens.kind, kind)).orderBy(asc(screens.id)).all();
   }
 
   /**
@@ -67,7 +128,11 @@ export class ScreensService {
    */
   @Transactional()
   firstScreenCode(name: string, now = new Date()): ScreenPairing | 'paired' | 'pending' {
-    const current = this.db.select().from(screens).where(isNull(screens.revokedAt)).all();
+    const current = this.db
+      .select()
+      .from(screens)
+      .where(and(eq(screens.kind, 'wall'), isNull(screens.revokedAt)))
+      .all();
     if (current.some((screen) => screen.pairedAt)) return 'paired';
     if (current.some((screen) => screen.pairingExpiresAt && screen.pairingExpiresAt > now)) return 'pending';
     const waiting = current.find((screen) => !screen.pairedAt);
@@ -86,19 +151,26 @@ export class ScreensService {
   }
 
   @Transactional()
-  revoke(id: number, actor: Principal): ScreenDto {
-    foundOrFail(this.db.select().from(screens).where(eq(screens.id, id)).get(), 'Screen');
-    this.db
+  revoke(id: number, actor: Principal, kind: DeviceKind = 'wall'): ScreenDto {
+    const what = kind === 'wall' ? 'Screen' : 'Kiosk';
+    foundOrFail(
+      this.db
+        .select()
+        .from(screens)
+        .where(and(eq(screens.id, id), eq(screens.kind, kind)))
+        .get(),
+      what,
+    );
+    const row = this.db
       .update(screens)
       .set({ revokedAt: new Date(), pairingCodeHash: null })
       .where(eq(screens.id, id))
-      .run();
-    this.audit.record({ actorId: actor.id, action: 'revoke', entity: 'screen', entityId: id });
+      .returning()
+      .get();
+    this.audit.record({ actorId: actor.id, action: 'revoke', entity: what.toLowerCase(), entityId: id });
     this.live.endSessions({ screenId: id }, 'screen-revoked');
-    return foundOrFail(
-      this.list().find((screen) => screen.id === id),
-      'Screen',
-    );
+    if (kind === 'kiosk') this.queuesChanged();
+    return toScreenDto(row);
   }
 
   seen(id: number): void {

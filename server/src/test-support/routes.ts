@@ -1,7 +1,7 @@
 import type { Role } from '@baytime/shared';
 
-export type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
-export const ALL_ROLES: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display'];
+export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+export const ALL_ROLES: Role[] = ['owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'];
 
 /** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
 export const ROUTES: [Method, string, Role[]][] = [
@@ -18,6 +18,15 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/screens', ['owner', 'foreman']],
   ['post', '/api/screens', ['owner', 'foreman']],
   ['delete', '/api/screens/999', ['owner', 'foreman']],
+  ['get', '/api/kiosks', ['owner', 'foreman']],
+  ['post', '/api/kiosks', ['owner', 'foreman']],
+  ['delete', '/api/kiosks/999', ['owner', 'foreman']],
+  ['get', '/api/kiosks/me/offline-key', ['kiosk']],
+  ['post', '/api/kiosks/me/queue', ['kiosk']],
+  ['post', '/api/kiosks/me/offline-punches', ['kiosk']],
+  ['get', '/api/offline-punches', ['foreman', 'owner']],
+  ['post', '/api/offline-punches/00000000-0000-4000-8000-000000000000/confirm', ['foreman', 'owner']],
+  ['post', '/api/offline-punches/00000000-0000-4000-8000-000000000000/reject', ['foreman', 'owner']],
   ['get', '/api/shop', ALL_ROLES],
   ['patch', '/api/shop', ['owner']],
   ['get', '/api/shop/pay-rules', ['owner']],
@@ -44,6 +53,8 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/job-lines/1/hold', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/resume', ['technician', 'foreman', 'owner']],
   ['post', '/api/job-lines/1/done', ['technician', 'foreman', 'owner']],
+  ['put', '/api/job-lines/1/parts', ['advisor', 'foreman', 'owner']],
+  ['post', '/api/job-lines/1/parts/received', ['advisor', 'foreman', 'owner']],
   ['get', '/api/timecards', ['technician', 'foreman', 'owner']],
   ['post', '/api/timecards/corrections', ['foreman', 'owner']],
   ['get', '/api/reports/labour', ['owner', 'foreman']],

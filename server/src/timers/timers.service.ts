@@ -232,7 +232,8 @@ export class TimersService implements OnModuleInit, OnModuleDestroy {
   }
 
   private announce(timerId: number, bayId: number | null, now: Date): TimerDto {
-    this.live.publish('timer.updated', { timerId, bayId });
+    // Every kiosk shows the shop's running timers and chimes when one is up.
+    this.live.publish('timer.updated', { timerId, bayId }, { to: 'everyone' });
     this.floor.timersChanged();
     return this.get(timerId, now);
   }

@@ -24,8 +24,10 @@ import { LiveService } from '../live/live.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { announceLine } from './announce-line.js';
 import { toJobLineDto } from './job-line.dto.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
+import { PartsService } from './parts.service.js';
 
 type LineRow = typeof jobLines.$inferSelect;
 
@@ -46,6 +48,7 @@ export class JobLinesService {
     private readonly closedWeeks: ClosedWeeksService,
     private readonly shop: ShopService,
     private readonly labour: LabourService,
+    private readonly parts: PartsService,
   ) {}
 
   @Transactional()
@@ -106,17 +109,18 @@ export class JobLinesService {
   }
 
   @Transactional()
-  hold(id: number, { reason }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
+  hold(id: number, { reason, part }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
     if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
     this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
+    if (reason === 'parts') this.parts.noteHold(id, part, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
     this.audit.record({
       actorId: actor.id,
       action: 'hold',
       entity: 'job-line',
       entityId: id,
-      detail: { reason },
+      detail: { reason, ...(part && { part }) },
     });
     return this.announce(updated);
   }
@@ -388,11 +392,7 @@ export class JobLinesService {
   }
 
   private announce(line: LineRow): JobLineDto {
-    const jobLine = toJobLineDto(line);
-    this.live.publish('job-line.updated', { jobLine });
-    this.floor.linesChanged([line.id]);
-    this.floor.baysChanged();
-    return jobLine;
+    return announceLine(line, this.live, this.floor);
   }
 }
 

@@ -30,6 +30,7 @@ import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from './job-line.dto.js';
 import { changedFields, JobLinesService } from './job-lines.service.js';
 import { repairOrderHistory } from './repair-order-history.js';
+import { waitingPartsOf } from './parts-hold.dto.js';
 import { repairOrderSnapshot } from './repair-order-snapshot.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
 import { repairOrderSearch } from './repair-orders.search.js';
@@ -136,7 +137,8 @@ export class RepairOrdersService {
       detail: Object.keys(detail).length ? detail : undefined,
     });
     const created = this.get(ro.id, now);
-    for (const jobLine of created.lines) this.live.publish('job-line.updated', { jobLine });
+    for (const jobLine of created.lines)
+      this.live.publish('job-line.updated', { jobLine }, this.floor.lineAudience(jobLine));
     this.floor.linesChanged(created.lines.map((line) => line.id));
     return created;
   }
@@ -255,7 +257,7 @@ export class RepairOrdersService {
       detail: { jobLineId: line.id, lineNo: line.lineNo, title: line.title, bookHours: line.bookHours },
     });
     const jobLine = toJobLineDto(line);
-    this.live.publish('job-line.updated', { jobLine });
+    this.live.publish('job-line.updated', { jobLine }, this.floor.lineAudience(jobLine));
     this.changed(id, [line.id], now);
     return jobLine;
   }
@@ -480,6 +482,7 @@ export class RepairOrdersService {
           ...toJobLineDto(line),
           clockedSeconds: Math.round(seconds.get(line.id)?.total ?? 0),
           late: late.has(line.id),
+          parts: waitingPartsOf(this.floor.openLine(line.id)),
         })),
     }));
   }

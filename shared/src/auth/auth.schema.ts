@@ -1,7 +1,11 @@
 import { z } from 'zod';
 
-export const ROLES = ['owner', 'foreman', 'advisor', 'technician', 'display'] as const;
+export const ROLES = ['owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'] as const;
 export type Role = (typeof ROLES)[number];
+/** Paired devices, not people: a wall screen (`display`) and a technicians' tablet (`kiosk`). */
+export const DEVICE_ROLES = ['display', 'kiosk'] as const satisfies readonly Role[];
+export type DeviceRole = (typeof DEVICE_ROLES)[number];
+export type PersonRole = Exclude<Role, DeviceRole>;
 export const OFFICE_ROLES = ['owner', 'foreman', 'advisor'] as const satisfies readonly Role[];
 
 export const loginSchema = z.object({

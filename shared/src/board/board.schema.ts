@@ -1,4 +1,5 @@
 import type { BayState, HoldReason } from '../bays/bays.schema.js';
+import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { TimerEstimateDto, TimerKind } from '../timers/timers.schema.js';
 
@@ -30,6 +31,8 @@ export interface BoardBay {
   state: BayState;
   holdReason: HoldReason | null;
   heldSince: string | null;
+  /** Held for parts: when they are expected, if the office said; the wall shows "late" after it. */
+  partsDueAt: string | null;
   vehicle: string | null;
   repairOrder: { id: number; number: string } | null;
   jobLine: { id: number; lineNo: number; title: string; status: JobLineStatus } | null;
@@ -68,4 +71,6 @@ export interface BoardSnapshot {
   queue: BoardQueueItem[];
   /** Open lines forecast to finish after their promised time. */
   lateLines: number;
+  /** Kiosks that last said punches wait on them; empty when none. */
+  kioskQueues: KioskQueueNote[];
 }

@@ -186,6 +186,58 @@ describe(forecastTechnicianQueue.name, () => {
     expect(finish(1e300)).toEqual(utc('2026-03-03T15:15'));
   });
 
+  it('works the next line while a line waits for parts, then the parts line once they are in', () => {
+    // Tue 3 Mar, CST = UTC−6, 100 %. Parts line P (1 h) due 10:00; A (2 h) can start now at 09:00:
+    // A 09:00–11:00, then P (its parts in since 10:00) 11:00–12:00; promised 11:30, so late.
+    const sut = forecast({
+      now: utc('2026-03-03T15:00'),
+      lines: [
+        {
+          id: 1,
+          remainingBookHours: 1,
+          notBefore: '2026-03-03T10:00:00-06:00',
+          promisedAt: utc('2026-03-03T17:30'),
+        },
+        { id: 2, remainingBookHours: 2, notBefore: null },
+      ],
+    });
+    expect(sut.map(({ id, startAt, finishAt, late }) => ({ id, startAt, finishAt, late }))).toEqual([
+      { id: 2, startAt: utc('2026-03-03T15:00'), finishAt: utc('2026-03-03T17:00'), late: false },
+      { id: 1, startAt: utc('2026-03-03T17:00'), finishAt: utc('2026-03-03T18:00'), late: true },
+    ]);
+  });
+
+  it('waits for the earliest parts when no line can start', () => {
+    // 09:00 CST; P1 (1 h) due 14:00, P2 (1 h) due 11:00: idle until 11:00, P2 11:00–12:00, idle
+    // again until 14:00, P1 14:00–15:00.
+    const sut = forecast({
+      now: utc('2026-03-03T15:00'),
+      lines: [
+        { id: 1, remainingBookHours: 1, notBefore: utc('2026-03-03T20:00') },
+        { id: 2, remainingBookHours: 1, notBefore: utc('2026-03-03T17:00') },
+      ],
+    });
+    expect(sut.map(({ id, startAt, finishAt }) => ({ id, startAt, finishAt }))).toEqual([
+      { id: 2, startAt: utc('2026-03-03T17:00'), finishAt: utc('2026-03-03T18:00') },
+      { id: 1, startAt: utc('2026-03-03T20:00'), finishAt: utc('2026-03-03T21:00') },
+    ]);
+  });
+
+  it('starts parts due after the close at the next opening, and ignores parts already in', () => {
+    // Parts due Tue 18:00 CST, after the 17:30 close: 1.5 h from Wed 07:30 → 09:00 CST (15:00Z).
+    const [late] = forecast({
+      now: utc('2026-03-03T15:00'),
+      lines: [{ id: 1, remainingBookHours: 1.5, notBefore: utc('2026-03-04T00:00') }],
+    });
+    expect([late!.startAt, late!.finishAt]).toEqual([utc('2026-03-04T13:30'), utc('2026-03-04T15:00')]);
+    // Parts due 08:00, it is 09:00 already: it starts now, 09:00–10:30.
+    const [arrived] = forecast({
+      now: utc('2026-03-03T15:00'),
+      lines: [{ id: 1, remainingBookHours: 1.5, notBefore: utc('2026-03-03T14:00') }],
+    });
+    expect([arrived!.startAt, arrived!.finishAt]).toEqual([utc('2026-03-03T15:00'), utc('2026-03-03T16:30')]);
+  });
+
   it('returns nothing for an empty queue', () => {
     expect(forecast({ lines: [], now: utc('2026-03-03T15:00') })).toEqual([]);
   });

@@ -14,6 +14,8 @@ export interface QueuedLine {
   /** Book hours not yet flagged on the line. */
   remainingBookHours: number;
   promisedAt?: Date | string | null;
+  /** The line cannot start before this (parts due then); null or absent: it can start now. */
+  notBefore?: Date | string | null;
 }
 
 export interface QueueForecastInput {
@@ -127,7 +129,10 @@ export function addOpenHours(
 /**
  * When each of a technician's queued lines should finish: one after another from now (or the next
  * opening), each taking its remaining book hours ÷ the tech's recent efficiency in open shop hours.
- * Null when the shop has no opening hours: there is nothing to forecast against.
+ * A line with a `notBefore` waits for it: meanwhile the tech works the next line in queue order that
+ * can start, and a line once started is finished before the next. When nothing can start, the tech
+ * waits for the earliest `notBefore`. The forecasts come in the order the work is done. Null when the
+ * shop has no opening hours: there is nothing to forecast against.
  */
 export function forecastTechnicianQueue(input: QueueForecastInput): LineForecast[] | null {
   const { efficiency, openingHours, timeZone } = input;
@@ -136,13 +141,25 @@ export function forecastTechnicianQueue(input: QueueForecastInput): LineForecast
     efficiency !== null && Number.isFinite(efficiency) && efficiency > 0
       ? Math.min(max, Math.max(min, efficiency))
       : 1;
+  const waiting = input.lines.map((line) => ({
+    line,
+    notBefore: line.notBefore == null ? -Infinity : new Date(line.notBefore).getTime(),
+  }));
   let cursor = input.now;
   const forecasts: LineForecast[] = [];
-  for (const line of input.lines) {
+  while (waiting.length > 0) {
+    const opening = nextOpening(cursor, openingHours, timeZone);
+    if (!opening) return null;
+    const ready = waiting.findIndex((w) => w.notBefore <= opening.getTime());
+    const index =
+      ready !== -1
+        ? ready
+        : waiting.reduce((best, w, i) => (w.notBefore < waiting[best]!.notBefore ? i : best), 0);
+    const [{ line, notBefore }] = waiting.splice(index, 1) as [(typeof waiting)[number]];
     const workHours = Math.max(0, line.remainingBookHours) / rate;
-    const startAt = nextOpening(cursor, openingHours, timeZone);
-    const finishAt = startAt && addOpenHours(startAt, workHours, openingHours, timeZone);
-    if (!startAt || !finishAt) return null;
+    const startAt = ready !== -1 ? opening : nextOpening(new Date(notBefore), openingHours, timeZone)!;
+    const finishAt = addOpenHours(startAt, workHours, openingHours, timeZone);
+    if (!finishAt) return null;
     cursor = finishAt;
     const promised = line.promisedAt == null ? null : new Date(line.promisedAt);
     forecasts.push({

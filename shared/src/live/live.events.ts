@@ -1,5 +1,6 @@
 import type { AnswerChannel } from '../approvals/approvals.schema.js';
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
+import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { PunchDto } from '../punches/punches.schema.js';
 import type { JobLineDto } from '../work/work.schema.js';
 
@@ -21,6 +22,7 @@ export interface ServerToClientEvents {
       queue: BoardQueueItem[];
       lateLines: number;
       bayIds: number[];
+      kioskQueues: KioskQueueNote[];
     },
   ) => void;
   'punch.recorded': (event: Sequenced & { punch: PunchDto }) => void;

@@ -1,4 +1,5 @@
 import type { HoldReason } from '../bays/bays.schema.js';
+import type { PartsHoldDto } from '../work/parts.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { BreakKind } from './punches.schema.js';
 
@@ -23,6 +24,8 @@ export interface MyJobLine {
   clockedOn: boolean;
   /** The customer's concern for this line, from intake. */
   concern: string;
+  /** What the line waits for (held for parts), or the parts just received; null when none. */
+  parts: PartsHoldDto | null;
 }
 
 /** A bay in `check` holding a vehicle this technician worked on: the road test or final look waits. */

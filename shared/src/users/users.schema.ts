@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES, type Role } from '../auth/auth.schema.js';
+import { DEVICE_ROLES, ROLES, type Role } from '../auth/auth.schema.js';
 import { plainText } from '../input/fields.js';
 import { PAY_TYPES, type PayRate } from '../pay/pay-types.js';
 import { localDateSchema } from '../shop/shop.schema.js';
@@ -11,7 +11,7 @@ const personName = plainText(80, { min: 1, message: 'Enter a name' });
 export const createUserSchema = z
   .object({
     name: personName,
-    role: z.enum(ROLES).exclude(['display']),
+    role: z.enum(ROLES).exclude([...DEVICE_ROLES]),
     email: z.email().max(200).optional(),
     password: z.string().min(10, 'A password has at least 10 characters').max(200).optional(),
     badge: z

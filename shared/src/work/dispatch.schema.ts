@@ -1,5 +1,6 @@
 import type { BayState } from '../bays/bays.schema.js';
 import type { PersonStatus } from '../board/board.schema.js';
+import type { PartsHoldDto } from './parts.schema.js';
 import type { JobLineDto } from './work.schema.js';
 
 export interface DispatchLine extends Omit<
@@ -12,9 +13,12 @@ export interface DispatchLine extends Omit<
   clockedSeconds: number;
   /** Technicians clocked on it now. */
   clockedOn: number[];
+  /** What it waits for while held for parts; null otherwise. */
+  parts: PartsHoldDto | null;
   /**
    * Expected start and finish in the technician's queue (for a waiting line: if started now at the
-   * shop's pace); null while held or when the shop has no opening hours.
+   * shop's pace); null while held (except for parts with a known arrival: it starts no earlier) or
+   * when the shop has no opening hours.
    */
   forecast: { startAt: string; finishAt: string; late: boolean } | null;
   /** Late by the one definition (`isLineLate`): what `lateCount`, the wall and the RO pages count. */

@@ -3,6 +3,7 @@ import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
 import { phoneSchema } from '../input/phone.js';
 import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
+import { partNameSchema, type PartsHoldDto } from './parts.schema.js';
 
 /** `cancelled`: taken off the RO with a reason after time was clocked on it; never flagged. */
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done', 'cancelled'] as const;
@@ -133,8 +134,16 @@ export interface JobLineDto {
   cancelReason: string | null;
 }
 
-/** A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. */
-export const holdLineSchema = z.object({ reason: z.enum(HOLD_REASONS) });
+/**
+ * A technician (or the foreman) pauses a line: anyone clocked on it is clocked off. Held for parts,
+ * the technician may say which part is needed; the office records the rest.
+ */
+export const holdLineSchema = z
+  .object({ reason: z.enum(HOLD_REASONS), part: partNameSchema.optional() })
+  .refine((body) => body.part === undefined || body.reason === 'parts', {
+    path: ['part'],
+    message: 'Only a line held for parts names a part',
+  });
 export type HoldLineBody = z.infer<typeof holdLineSchema>;
 
 /** After the last line in a bay is done the bay goes to a final check or straight to ready. */
@@ -248,6 +257,6 @@ export interface RepairOrderSummary {
   closedAt: string | null;
   /** An open line of it is late: see `isLineLate`. */
   late: boolean;
-  /** Each line with the seconds everyone has clocked on it, split rule applied, and whether it is late. */
-  lines: (JobLineDto & { clockedSeconds: number; late: boolean })[];
+  /** Each line with the seconds everyone has clocked on it (split rule applied), whether it is late, and its parts hold. */
+  lines: (JobLineDto & { clockedSeconds: number; late: boolean; parts: PartsHoldDto | null })[];
 }

@@ -38,6 +38,7 @@ function line(overrides: Partial<DispatchLine> = {}): DispatchLine {
     queuedAt: '2026-03-02T14:00:00.000Z',
     clockedSeconds: 0,
     clockedOn: [],
+    parts: null,
     forecast: null,
     ...overrides,
   };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { DispatchBoard, DispatchLine, JobLineDto } from '@baytime/shared';
+import type { DispatchBoard, DispatchLine } from '@baytime/shared';
 import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
@@ -12,11 +12,12 @@ import {
   lineStatusText,
 } from './ro-model';
 
-function jobLine(
-  overrides: Partial<JobLineDto & { clockedSeconds: number; late: boolean }> = {},
-): JobLineDto & { clockedSeconds: number; late: boolean } {
+type RoLine = RepairOrderSummary['lines'][number];
+
+function jobLine(overrides: Partial<RoLine> = {}): RoLine {
   return {
     clockedSeconds: 0,
+    parts: null,
     late: false,
     completedBy: null,
     concern: 'Customer asks for a thermostat',
@@ -72,6 +73,7 @@ function dispatchLine(overrides: Partial<DispatchLine>): DispatchLine {
     queuedAt: '2026-12-01T15:00:00.000Z',
     clockedSeconds: 0,
     clockedOn: [],
+    parts: null,
     forecast: null,
     ...overrides,
   };

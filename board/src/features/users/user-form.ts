@@ -1,10 +1,14 @@
 import { z } from 'zod';
-import { createUserSchema, PAY_TYPES, updateUserSchema, type Role, type UserDto } from '@baytime/shared';
+import {
+  createUserSchema,
+  PAY_TYPES,
+  updateUserSchema,
+  type PersonRole,
+  type UserDto,
+} from '@baytime/shared';
 import { dollarsToCents } from '@/lib/form-errors';
 import { checkedAsBody } from '@/lib/form';
 import { EMPTY_PAY, PAY_FIELD_OF, payBody, payDraftOf } from './components/pay-fields';
-
-export type PersonRole = Exclude<Role, 'display'>;
 
 export const ROLE_LABELS: Record<PersonRole, string> = {
   owner: 'Owner',
@@ -84,7 +88,7 @@ export const EMPTY_USER: UserFields = {
 
 export function fieldsOf(user: UserDto): UserFields {
   return {
-    role: user.role === 'display' ? 'advisor' : user.role,
+    role: user.role === 'display' || user.role === 'kiosk' ? 'advisor' : user.role,
     name: user.name,
     email: user.email ?? '',
     password: '',

@@ -5,6 +5,7 @@ import {
   bayFacts,
   clockedBar,
   countdownFact,
+  holdFacts,
   pickLines,
   techsText,
   wallVehicle,
@@ -18,6 +19,7 @@ const bay = (patch: Partial<BoardBay>): BoardBay => ({
   state: 'working',
   holdReason: null,
   heldSince: null,
+  partsDueAt: null,
   vehicle: '2019 Norden Kestrel',
   repairOrder: { id: 1, number: '4821' },
   jobLine: { id: 2, lineNo: 1, title: 'Brake pads', status: 'working' },
@@ -73,6 +75,24 @@ describe(bayFacts.name, () => {
     expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T02:00:00Z' }), now)).toBe('13h');
     expect(bandNote(bay({ state: 'held', heldSince: '2026-02-27T15:00:00Z' }), now)).toBe('3d');
     expect(bandNote(bay({ state: 'working' }), now)).toBeNull();
+  });
+
+  it('says when held parts are due, in shop time, and flips to late once that time has passed', () => {
+    // 2026-03-02 is in CST (UTC−6): 20:30Z is 2:30 PM in America/Chicago.
+    const held = bay({ state: 'held', holdReason: 'parts', partsDueAt: '2026-03-02T20:30:00Z' });
+    const at = (nowMs: number) =>
+      bayFacts({ bay: held, clockedSeconds: 0, nowMs, timeZone: 'America/Chicago' }).slice(0, 2);
+    expect(at(now)).toEqual([
+      { key: 'reason', text: 'Parts due', keep: true },
+      { key: 'parts-due', text: '2:30 PM', keep: true },
+    ]);
+    expect(at(Date.parse('2026-03-02T20:29:59Z')).map((fact) => fact.text)).toEqual(['Parts due', '2:30 PM']);
+    expect(at(Date.parse('2026-03-02T20:30:00Z'))[0]).toMatchObject({ text: 'Parts late', tone: 'caution' });
+    expect(at(Date.parse('2026-03-02T20:30:00Z'))[1]?.key).toBe('vehicle');
+    const words = (patch: Partial<BoardBay>) =>
+      holdFacts(bay({ state: 'held', ...patch }), now, 'America/Chicago').map((fact) => fact.text);
+    expect(words({ holdReason: 'parts' })).toEqual(['Parts']);
+    expect(words({ holdReason: 'sublet' })).toEqual(['Sublet']);
   });
 
   it('counts a timer down and warns of a running engine during a warm-up', () => {
@@ -148,6 +168,15 @@ describe(pickLines.name, () => {
     expect(texts(2)).toEqual(['c', 'k']);
     expect(texts(3)).toEqual(['a', 'k']);
     expect(pickLines(facts, 2, 1)[0]?.rotating).toBe(true);
+  });
+
+  it('shows kept facts that fill every line, with none taking turns', () => {
+    const two = [fact('a'), fact('k1', true), fact('k2', true), fact('b')];
+    expect(pickLines(two, 2, 1).map((line) => [line.fact.text, line.rotating])).toEqual([
+      ['k1', false],
+      ['k2', false],
+    ]);
+    expect(pickLines(two, 3, 1).map((line) => line.fact.text)).toEqual(['b', 'k1', 'k2']);
   });
 
   it('gives a single line to the kept fact', () => {

@@ -1,6 +1,6 @@
 import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardTimer } from '@baytime/shared';
 import { secondsSince, secondsUntil } from './server-clock';
-import { formatCountdown, formatHoursMinutes, formatSpan } from './board-time';
+import { formatCountdown, formatHoursMinutes, formatSpan, formatTimeOfDay } from './board-time';
 
 /** One short line a tile can show under the bay's name and state. */
 export interface BayFact {
@@ -13,6 +13,7 @@ export interface BayFact {
     | 'temps'
     | 'engine'
     | 'reason'
+    | 'parts-due'
     | 'vehicle'
     | 'ro'
     | 'job';
@@ -94,16 +95,37 @@ export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
   };
 }
 
+/**
+ * Why a held bay waits: for parts with a known arrival, "Parts due" and "2:30 PM" in the shop's time
+ * (two lines: one is too long for a tile), and "Parts late" once that time has passed by the server's
+ * clock: the tile flips by itself.
+ */
+export function holdFacts(bay: BoardBay, nowMs: number, timeZone: string | undefined): BayFact[] {
+  const due = bay.holdReason === 'parts' && bay.partsDueAt ? Date.parse(bay.partsDueAt) : NaN;
+  if (Number.isFinite(due))
+    return nowMs >= due
+      ? [{ key: 'reason', text: 'Parts late', keep: true, tone: 'caution' }]
+      : [
+          { key: 'reason', text: 'Parts due', keep: true },
+          { key: 'parts-due', text: formatTimeOfDay(due, timeZone), keep: true },
+        ];
+  return [
+    { key: 'reason', text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold', keep: true },
+  ];
+}
+
 export interface FactInput {
   bay: BoardBay;
   clockedSeconds: number;
   nowMs: number;
+  /** The shop's time zone, for times of day. */
+  timeZone?: string;
   /** Characters a body line holds on this tile. */
   lineChars?: number;
 }
 
 /** The facts a tile tells about its bay, in reading order; which ones show depends on the room. */
-export function bayFacts({ bay, clockedSeconds, nowMs, lineChars }: FactInput): BayFact[] {
+export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: FactInput): BayFact[] {
   const facts: BayFact[] = [];
   const add = (fact: BayFact | null) => {
     if (fact && fact.text) facts.push(fact);
@@ -167,11 +189,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, lineChars }: FactInput): 
     }
     case 'held':
       // How long it has been held rides in the state band (see bandNote), so the reason keeps a line.
-      add({
-        key: 'reason',
-        text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold',
-        keep: true,
-      });
+      for (const fact of holdFacts(bay, nowMs, timeZone)) add(fact);
       add(vehicleFact);
       add(roFact);
       add(jobFact);
@@ -210,14 +228,14 @@ export interface TileLine {
 
 /**
  * Fits facts into `slots` lines. When they all fit they all show; otherwise the kept facts stay and
- * one line takes the others in turn (`turn` counts up every few seconds), in reading order.
+ * (unless they fill every line) one line takes the others in turn (`turn` counts up every few seconds), in reading order.
  */
 export function pickLines(facts: BayFact[], slots: number, turn: number): TileLine[] {
   if (slots <= 0) return [];
   if (facts.length <= slots) return facts.map((fact) => ({ fact, rotating: false }));
-  // One line takes turns with the rest, unless a single line is all there is: then the first kept fact.
+  // One line takes turns with the rest, unless the kept facts fill every line: then they all show.
   const keptAll = facts.filter((fact) => fact.keep);
-  const kept = keptAll.slice(0, slots === 1 && keptAll.length ? 1 : slots - 1);
+  const kept = keptAll.slice(0, keptAll.length >= slots ? slots : slots - 1);
   const others = facts.filter((fact) => !kept.includes(fact));
   const rotatingSlots = slots - kept.length;
   const shown =

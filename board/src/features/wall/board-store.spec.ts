@@ -8,6 +8,7 @@ const bay = (id: number, patch: Partial<BoardBay> = {}): BoardBay => ({
   state: 'free',
   holdReason: null,
   heldSince: null,
+  partsDueAt: null,
   vehicle: null,
   repairOrder: null,
   jobLine: null,
@@ -27,6 +28,7 @@ const snapshot = (seq: number, serverTime = '2026-03-02T15:00:00.000Z'): BoardSn
   people: [],
   queue: [],
   lateLines: 0,
+  kioskQueues: [],
 });
 
 describe(boardFromSnapshot.name, () => {
@@ -86,7 +88,7 @@ describe(applyEvent.name, () => {
     ];
     const result = applyEvent(
       start(),
-      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2, bayIds: [1, 2] },
+      { type: 'floor.updated', seq: 11, people, queue: [], lateLines: 2, bayIds: [1, 2], kioskQueues: [] },
       local,
     );
     expect(result.board?.snapshot.people).toEqual(people);
@@ -104,7 +106,15 @@ describe(applyEvent.name, () => {
     expect(added.resync).toBe(false);
     const placed = applyEvent(
       added.board,
-      { type: 'floor.updated', seq: 12, people: [], queue: [], lateLines: 0, bayIds: [9, 1, 2] },
+      {
+        type: 'floor.updated',
+        seq: 12,
+        people: [],
+        queue: [],
+        lateLines: 0,
+        bayIds: [9, 1, 2],
+        kioskQueues: [],
+      },
       local,
     );
     expect(placed.board?.snapshot.bays.map((b) => b.id)).toEqual([9, 1, 2]);
@@ -113,7 +123,7 @@ describe(applyEvent.name, () => {
   it('drops a retired bay and reorders the rest on a floor update', () => {
     const result = applyEvent(
       start(),
-      { type: 'floor.updated', seq: 11, people: [], queue: [], lateLines: 0, bayIds: [2] },
+      { type: 'floor.updated', seq: 11, people: [], queue: [], lateLines: 0, bayIds: [2], kioskQueues: [] },
       local,
     );
     expect(result.board?.snapshot.bays.map((b) => b.id)).toEqual([2]);
@@ -123,7 +133,15 @@ describe(applyEvent.name, () => {
   it('asks for a snapshot for an order naming a bay it does not know, or when it has none', () => {
     const unknown = applyEvent(
       start(),
-      { type: 'floor.updated', seq: 11, people: [], queue: [], lateLines: 0, bayIds: [1, 2, 9] },
+      {
+        type: 'floor.updated',
+        seq: 11,
+        people: [],
+        queue: [],
+        lateLines: 0,
+        bayIds: [1, 2, 9],
+        kioskQueues: [],
+      },
       local,
     );
     expect(unknown).toMatchObject({ resync: true, board: { seq: 10 } });

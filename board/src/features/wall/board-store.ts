@@ -3,6 +3,7 @@ import {
   type BoardBay,
   type BoardPerson,
   type BoardQueueItem,
+  type KioskQueueNote,
   type BoardSnapshot,
 } from '@baytime/shared';
 import { clockFromServerTime, serverNow, type ServerClock } from './server-clock';
@@ -25,6 +26,7 @@ export type BoardEvent =
       queue: BoardQueueItem[];
       lateLines: number;
       bayIds: number[];
+      kioskQueues: KioskQueueNote[];
     }
   /** A sequenced event that does not change what the board shows by itself (punch, job line, …). */
   | { type: 'other'; seq: number };
@@ -85,6 +87,7 @@ export function applyEvent(
             people: event.people,
             queue: event.queue,
             lateLines: event.lateLines,
+            kioskQueues: event.kioskQueues,
           },
         },
         resync: false,

@@ -57,6 +57,7 @@ const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot =>
       state,
       holdReason: null,
       heldSince: null,
+      partsDueAt: null,
       vehicle: null,
       repairOrder: null,
       jobLine: null,
@@ -70,6 +71,7 @@ const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot =>
   people: [],
   queue: [],
   lateLines: 0,
+  kioskQueues: [],
 });
 
 describe(createLiveBoard.name, () => {

@@ -86,8 +86,10 @@ export function createLiveBoard({
       link.on('bay.updated', ({ seq, bay }: Payload<'bay.updated'>) =>
         onEvent({ type: 'bay.updated', seq, bay }),
       ),
-      link.on('floor.updated', ({ seq, people, queue, lateLines, bayIds }: Payload<'floor.updated'>) =>
-        onEvent({ type: 'floor.updated', seq, people, queue, lateLines, bayIds }),
+      link.on(
+        'floor.updated',
+        ({ seq, people, queue, lateLines, bayIds, kioskQueues }: Payload<'floor.updated'>) =>
+          onEvent({ type: 'floor.updated', seq, people, queue, lateLines, bayIds, kioskQueues }),
       ),
       link.on('punch.recorded', other),
       link.on('job-line.updated', other),

@@ -13,6 +13,7 @@ import { useShop } from '@/features/shop/api/get-shop';
 import { useLiveMyDay } from '@/features/my-day/hooks/use-live-my-day';
 import { projectDay, type DayLine, type PendingPunch } from '@/features/my-day/project-day';
 import { statusText } from '@/features/my-day/status-text';
+import { partsInNotices, partsWaitText } from '@/features/my-day/parts-words';
 import { StatusLine } from '@/features/my-day/components/status-line';
 import { ShiftActions } from '@/features/my-day/components/shift-actions';
 import { JobLineList, lineContext } from '@/features/my-day/components/job-line-list';
@@ -98,6 +99,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const view = projectDay(day.data, pending, day.dataUpdatedAt, split);
   const text = statusText(view, now, timeZone, split);
   const open = view.lines.filter((l) => l.status !== 'done').length;
+  const partsIn = partsInNotices(view.lines);
 
   const timerByLine = new Map<number, TimerDto>();
   for (const timer of timers.data ?? []) if (timer.endedAt === null) timerByLine.set(timer.jobLineId, timer);
@@ -133,6 +135,11 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
           </small>
         </h2>
         <div className="bt-day__scroll">
+          {partsIn.map((notice) => (
+            <p key={notice} className="bt-parts-in" role="status">
+              {notice}
+            </p>
+          ))}
           <JobLineList
             view={view}
             now={now}
@@ -163,6 +170,8 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
             )}
             renderPanel={(line) => {
               const timer = timerByLine.get(line.id);
+              const waiting = partsWaitText(line, now, timeZone);
+              if (waiting) return <p className="bt-line__parts">{waiting}</p>;
               if (!timer || !units) return null;
               return (
                 <Suspense fallback={<div className="bt-timer-placeholder" />}>

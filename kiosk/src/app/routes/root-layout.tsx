@@ -6,6 +6,7 @@ import { CalendarIcon, WrenchIcon } from '@/components/icons';
 import { useSession, session } from '@/lib/session';
 import { rememberedShop, useShop } from '@/features/shop/api/get-shop';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
+import { UpdatePrompt } from '@/features/app-update/components/update-prompt';
 import { OutboxStatus } from '@/features/punches/components/outbox-status';
 import { PunchNotices } from '@/features/punches/components/punch-notices';
 import { TimerAlertBanner } from '@/features/timers/components/timer-alert-banner';
@@ -40,6 +41,7 @@ export function RootLayout() {
           )
         }
       />
+      <UpdatePrompt />
       <OutboxStatus />
       <PunchNotices technicianId={current?.user.id} />
       <TimerAlertBanner units={shop.data?.units ?? remembered?.units} timeZone={timeZone} />

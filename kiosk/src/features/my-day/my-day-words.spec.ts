@@ -18,6 +18,7 @@ const line = (id: number, changes: Partial<MyJobLine> = {}): MyJobLine => ({
   bayName: null,
   clockedOn: false,
   concern: 'Knock over bumps',
+  parts: null,
   ...changes,
 });
 

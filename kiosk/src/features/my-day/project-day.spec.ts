@@ -22,6 +22,7 @@ function line(id: number, changes: Partial<MyJobLine> = {}): MyJobLine {
     bayName: null,
     clockedOn: false,
     concern: 'Customer asks for new struts',
+    parts: null,
     ...changes,
   };
 }

@@ -1,4 +1,6 @@
 // @vitest-environment node
+import 'fake-indexeddb/auto';
+import { createStore, keys } from 'idb-keyval';
 import { describe, expect, it, vi } from 'vitest';
 import {
   OUTBOX_KEY,
@@ -6,25 +8,35 @@ import {
   classifyFailure,
   createOutbox,
   drainOutbox,
+  idbOutboxStore,
   type NewOutboxEntry,
   type OutboxEntry,
+  type OutboxStore,
   type SendOutcome,
-  type StorageLike,
 } from './outbox';
 
-class MemoryStorage implements StorageLike {
-  readonly data = new Map<string, string>();
-  failWrites = false;
-  getItem(key: string) {
-    return this.data.get(key) ?? null;
-  }
-  setItem(key: string, value: string) {
-    if (this.failWrites) throw new Error('QuotaExceededError');
-    this.data.set(key, value);
-  }
-  removeItem(key: string) {
-    this.data.delete(key);
-  }
+/** A fresh IndexedDB database per test (fake-indexeddb in node), as the app's outbox uses one. */
+let databases = 0;
+function idbStore() {
+  databases += 1;
+  const raw = createStore(`outbox-test-${databases}`, 'outbox');
+  return { raw, store: idbOutboxStore(raw) };
+}
+
+async function newOutbox(store: OutboxStore = idbStore().store) {
+  const outbox = createOutbox(store);
+  await outbox.ready;
+  return outbox;
+}
+
+/** localStorage as a tablet left it before the move to IndexedDB. */
+function oldLocalStorage(value: string | null) {
+  const data = new Map<string, string>(value === null ? [] : [[OUTBOX_KEY, value]]);
+  return {
+    data,
+    getItem: (key: string) => data.get(key) ?? null,
+    removeItem: (key: string) => void data.delete(key),
+  };
 }
 
 let counter = 0;
@@ -59,15 +71,15 @@ function sender(answers: Record<string, SendOutcome[]> = {}) {
 }
 
 describe('createOutbox', () => {
-  it('writes each tap to storage at once and reads it back after a reload', () => {
-    const storage = new MemoryStorage();
-    const sut = createOutbox(storage);
+  it('writes each tap to IndexedDB, one record per punch, and reads it back after a reload', async () => {
+    const { raw, store } = idbStore();
+    const sut = await newOutbox(store);
     const a = punch();
     const b = punch(7, 'job-on');
-    sut.add([a, b], 5);
+    await sut.add([a, b], 5);
 
-    expect(JSON.parse(storage.getItem(OUTBOX_KEY)!)).toHaveLength(2);
-    const again = createOutbox(storage);
+    expect((await keys(raw)).sort()).toEqual([a.punch.id, b.punch.id].sort());
+    const again = await newOutbox(store);
     expect(again.list().map((e) => e.punch.id)).toEqual([a.punch.id, b.punch.id]);
     expect(again.list()[0]).toMatchObject({
       attempts: 0,
@@ -77,48 +89,89 @@ describe('createOutbox', () => {
     });
   });
 
-  it('queues nothing and throws when storage refuses the write', () => {
-    const storage = new MemoryStorage();
-    const sut = createOutbox(storage);
-    storage.failWrites = true;
-    expect(() => sut.add([punch()], 0)).toThrow('QuotaExceededError');
-    expect(sut.list()).toEqual([]);
+  it('keeps a large queue in order across a reload, changes included', async () => {
+    const { store } = idbStore();
+    const sut = await newOutbox(store);
+    const taps = Array.from({ length: 600 }, (_, i) => punch(7 + (i % 3)));
+    for (let i = 0; i < taps.length; i += 50) await sut.add(taps.slice(i, i + 50), i);
+    sut.remove(taps[0]!.punch.id);
+    sut.update(taps[1]!.punch.id, { attempts: 4, lastError: 'No connection' });
+    await sut.flushed();
+
+    const again = await newOutbox(store);
+    expect(again.list().map((e) => e.punch.id)).toEqual(taps.slice(1).map((t) => t.punch.id));
+    expect(again.list()[0]).toMatchObject({ attempts: 4, lastError: 'No connection' });
   });
 
-  it('ignores a punch id that is already queued', () => {
-    const sut = createOutbox(new MemoryStorage());
+  it('queues nothing and rejects when IndexedDB refuses the write', async () => {
+    const { store } = idbStore();
+    const refusing: OutboxStore = { ...store, put: () => Promise.reject(new Error('QuotaExceededError')) };
+    const sut = await newOutbox(refusing);
+    await expect(sut.add([punch()], 0)).rejects.toThrow('QuotaExceededError');
+    expect(sut.list()).toEqual([]);
+    expect((await newOutbox(store)).list()).toEqual([]);
+  });
+
+  it('ignores a punch id that is already queued', async () => {
+    const sut = await newOutbox();
     const a = punch();
-    sut.add([a], 0);
-    sut.add([a], 1);
+    await sut.add([a], 0);
+    await sut.add([a], 1);
     expect(sut.list()).toHaveLength(1);
   });
 
-  it('treats unreadable storage as empty instead of failing', () => {
-    const storage = new MemoryStorage();
-    storage.setItem(OUTBOX_KEY, '{not json');
-    expect(createOutbox(storage).list()).toEqual([]);
-    storage.setItem(OUTBOX_KEY, JSON.stringify([{ nonsense: true }, { ...punch(), attempts: 2 }]));
-    expect(createOutbox(storage).list()).toHaveLength(1);
+  it('moves what a tablet holds in localStorage into IndexedDB on first start, then drops the old copy', async () => {
+    const { store } = idbStore();
+    const [a, b] = [punch(), punch(8, 'job-on')];
+    const old = oldLocalStorage(JSON.stringify([{ ...a, attempts: 2 }, { nonsense: true }, b]));
+    const sut = createOutbox(store, old);
+    await sut.ready;
+    expect(sut.list().map((e) => [e.punch.id, e.attempts])).toEqual([
+      [a.punch.id, 2],
+      [b.punch.id, 0],
+    ]);
+    expect(old.data.has(OUTBOX_KEY)).toBe(false);
+    // Read again without the old copy: the punches are in IndexedDB now, after anything queued since.
+    const c = punch();
+    await sut.add([c], 9);
+    expect((await newOutbox(store)).list().map((e) => e.punch.id)).toEqual([
+      a.punch.id,
+      b.punch.id,
+      c.punch.id,
+    ]);
   });
 
-  it('keeps the same list object until something changes, and tells subscribers', () => {
-    const sut = createOutbox(new MemoryStorage());
+  it('keeps the old localStorage copy when IndexedDB refuses the move, and treats junk as empty', async () => {
+    const { store } = idbStore();
+    const old = oldLocalStorage(JSON.stringify([punch()]));
+    const refusing: OutboxStore = { ...store, put: () => Promise.reject(new Error('blocked')) };
+    await expect(createOutbox(refusing, old).ready).rejects.toThrow('blocked');
+    expect(old.data.has(OUTBOX_KEY)).toBe(true);
+    const junk = oldLocalStorage('{not json');
+    const sut = createOutbox(store, junk);
+    await sut.ready;
+    expect(sut.list()).toEqual([]);
+  });
+
+  it('keeps the same list object until something changes, and tells subscribers', async () => {
+    const sut = await newOutbox();
     const listener = vi.fn();
     sut.subscribe(listener);
     const before = sut.list();
     expect(sut.list()).toBe(before);
-    sut.add([punch()], 0);
+    await sut.add([punch()], 0);
     expect(listener).toHaveBeenCalledTimes(1);
     expect(sut.list()).not.toBe(before);
   });
 
-  it('removes storage key when the last punch is gone', () => {
-    const storage = new MemoryStorage();
-    const sut = createOutbox(storage);
+  it('deletes the record of a punch once it is gone', async () => {
+    const { raw, store } = idbStore();
+    const sut = await newOutbox(store);
     const a = punch();
-    sut.add([a], 0);
+    await sut.add([a], 0);
     sut.remove(a.punch.id);
-    expect(storage.getItem(OUTBOX_KEY)).toBeNull();
+    await sut.flushed();
+    expect(await keys(raw)).toEqual([]);
   });
 });
 
@@ -158,9 +211,9 @@ describe(backoffMs.name, () => {
 
 describe(drainOutbox.name, () => {
   it('sends punches oldest first and drops each one the server took', async () => {
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const entries = [punch(), punch(7, 'job-on'), punch(7, 'job-off')];
-    sut.add(entries, 0);
+    await sut.add(entries, 0);
     const { send, ids } = sender();
     const onSent = vi.fn();
 
@@ -173,9 +226,9 @@ describe(drainOutbox.name, () => {
   });
 
   it('drops a refused punch, reports why, and goes on with the next', async () => {
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const [a, b] = [punch(7, 'break-end'), punch(7, 'shift-out')];
-    sut.add([a, b], 0);
+    await sut.add([a, b], 0);
     const { send, ids } = sender({ [a.punch.id]: [{ kind: 'refused', message: 'Not on a break' }] });
     const onRefused = vi.fn();
 
@@ -189,9 +242,9 @@ describe(drainOutbox.name, () => {
 
   it('keeps every punch when the link is down, backs off, and sends them in order later', async () => {
     const time = clock();
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const [a, b] = [punch(7), punch(8)];
-    sut.add([a, b], time.now());
+    await sut.add([a, b], time.now());
     const down = sender({ [a.punch.id]: [{ kind: 'retry', scope: 'all', message: 'No connection' }] });
 
     const first = await drainOutbox(sut, down.send, { now: time.now, random: () => 0.5 });
@@ -214,17 +267,17 @@ describe(drainOutbox.name, () => {
   });
 
   it('treats a thrown send as a dropped link, never as a loss', async () => {
-    const sut = createOutbox(new MemoryStorage());
-    sut.add([punch()], 0);
+    const sut = await newOutbox();
+    await sut.add([punch()], 0);
     const result = await drainOutbox(sut, () => Promise.reject(new Error('boom')), { now: () => 0 });
     expect(result.sent).toBe(0);
     expect(sut.list()).toHaveLength(1);
   });
 
   it("holds back one technician's later punches behind a retry, not other technicians'", async () => {
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const [a1, b1, a2] = [punch(7), punch(8), punch(7, 'job-on')];
-    sut.add([a1, b1, a2], 0);
+    await sut.add([a1, b1, a2], 0);
     const { send, ids } = sender({
       [a1.punch.id]: [{ kind: 'retry', scope: 'technician', message: 'Server error' }],
     });
@@ -237,9 +290,9 @@ describe(drainOutbox.name, () => {
   });
 
   it('keeps a punch whose token ran out until the same technician signs in again', async () => {
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const [a, b] = [punch(7, 'shift-out', 'old-token'), punch(8)];
-    sut.add([a, b], 0);
+    await sut.add([a, b], 0);
     const first = sender({ [a.punch.id]: [{ kind: 'unauthorized', message: 'Unauthorized' }] });
 
     await drainOutbox(sut, first.send, { now: () => 0 });
@@ -259,8 +312,8 @@ describe(drainOutbox.name, () => {
 
   it('tries at once when the link comes back, without waiting out the backoff', async () => {
     const time = clock();
-    const sut = createOutbox(new MemoryStorage());
-    sut.add([punch()], time.now());
+    const sut = await newOutbox();
+    await sut.add([punch()], time.now());
     await drainOutbox(sut, async () => ({ kind: 'retry', scope: 'all', message: 'x' }), {
       now: time.now,
       random: () => 0.5,
@@ -272,15 +325,15 @@ describe(drainOutbox.name, () => {
   });
 
   it('also sends a punch tapped while the drain is under way, after the earlier ones', async () => {
-    const sut = createOutbox(new MemoryStorage());
+    const sut = await newOutbox();
     const [a, b] = [punch(7), punch(7, 'job-on')];
-    sut.add([a], 0);
+    await sut.add([a], 0);
     const order: string[] = [];
     await drainOutbox(
       sut,
       async (entry) => {
         order.push(entry.punch.id);
-        if (entry.punch.id === a.punch.id) sut.add([b], 1);
+        if (entry.punch.id === a.punch.id) await sut.add([b], 1);
         return { kind: 'sent' };
       },
       { now: () => 1 },

@@ -1,9 +1,11 @@
+import { delMany, setMany, values, type UseStore } from 'idb-keyval';
 import type { BreakKind, PunchKind } from '@baytime/shared';
 
 /**
- * The tablet's durable queue of punches. A tap is written here before anything else, so a punch
- * survives a dropped link, a reload and a sign-out; the queue then drains in order. Each punch id
- * is a UUID and the server answers a replayed id with the stored punch, so sending twice is safe.
+ * The tablet's durable queue of punches, in IndexedDB: one record per punch, so a long queue costs
+ * nothing to add to and a reload reads it back. A tap is written there before anything else, so a
+ * punch survives a dropped link, a reload and a sign-out; the queue then drains in order. Each punch
+ * id is a UUID and the server answers a replayed id with the stored punch, so sending twice is safe.
  */
 export const OUTBOX_KEY = 'baytime.kiosk.outbox';
 
@@ -13,17 +15,22 @@ export interface OutboxPunch {
   jobLineId?: number;
   at: string;
   breakKind?: BreakKind;
+  /** Recorded offline with badge and PIN sealed to the server's key; sent as this kiosk. */
+  sealed?: { keyId: string; identity: string };
 }
 
 export interface OutboxEntry {
   punch: OutboxPunch;
-  /** The token of the technician who tapped: the punch drains after they sign out. */
+  /** The token of the technician who tapped (the kiosk's own for a sealed punch): it drains after they sign out. */
   token: string;
+  /** Whose punches go in order together; a sealed punch's is minus its badge number, not yet a person. */
   technicianId: number;
   technicianName: string;
   /** What was tapped, in words, for a refusal message. */
   label: string;
   queuedAt: number;
+  /** Order of queueing: one tap's punches go in the order they were made. */
+  seq: number;
   attempts: number;
   nextAttemptAt: number;
   lastError: string | null;
@@ -43,26 +50,48 @@ export type SendOutcome =
   /** `all`: the link is down, stop the whole pass; `technician`: only this technician's punches wait. */
   | { kind: 'retry'; message: string; scope: 'all' | 'technician' };
 
-/** The part of the Web Storage API the outbox needs; localStorage in the app, a Map in tests. */
+/** Where the entries are kept: an IndexedDB object store in the app and in tests (fake-indexeddb). */
+export interface OutboxStore {
+  all(): Promise<unknown[]>;
+  put(entries: readonly OutboxEntry[]): Promise<void>;
+  delete(punchIds: readonly string[]): Promise<void>;
+}
+
+/** The part of the Web Storage API the old localStorage outbox was kept in, for moving it over. */
 export interface StorageLike {
   getItem(key: string): string | null;
-  setItem(key: string, value: string): void;
   removeItem(key: string): void;
 }
 
+export function idbOutboxStore(store: UseStore): OutboxStore {
+  return {
+    all: () => values(store),
+    put: (entries) =>
+      setMany(
+        entries.map((entry) => [entry.punch.id, entry]),
+        store,
+      ),
+    delete: (punchIds) => delMany([...punchIds], store),
+  };
+}
+
 export interface Outbox {
+  /** Read from the store (and the old localStorage queue moved over): resolves once `list` is true. */
+  ready: Promise<void>;
   /** Oldest first. The same array until the outbox changes. */
   list(): readonly OutboxEntry[];
-  /** Writes to storage first; throws when storage refuses, and then nothing was queued. */
-  add(entries: readonly NewOutboxEntry[], now: number): void;
+  /** Writes to the store first; rejects when the store refuses, and then nothing was queued. */
+  add(entries: readonly NewOutboxEntry[], now: number): Promise<void>;
   remove(punchId: string): void;
   update(punchId: string, changes: Partial<Omit<OutboxEntry, 'punch'>>): void;
   /** A technician signed in again: their waiting punches get the new token and may go. */
   renewToken(technicianId: number, token: string, now: number): void;
   /** The link came back: every punch may be tried at once. */
   retryNow(now: number): void;
-  /** Storage was changed elsewhere (another tab): read it again. */
-  reload(): void;
+  /** Another tab changed the store: read it again. */
+  reload(): Promise<void>;
+  /** Resolves once every change so far is in the store. */
+  flushed(): Promise<void>;
   subscribe(listener: () => void): () => void;
 }
 
@@ -78,89 +107,131 @@ function isEntry(value: unknown): value is OutboxEntry {
   );
 }
 
-export function createOutbox(storage: StorageLike, key: string = OUTBOX_KEY): Outbox {
-  const listeners = new Set<() => void>();
-  let cache: readonly OutboxEntry[] | null = null;
+/** An entry as stored, with defaults for fields an older tablet did not write. */
+function normalise(entry: OutboxEntry, index: number): OutboxEntry {
+  return {
+    ...entry,
+    attempts: entry.attempts ?? 0,
+    nextAttemptAt: entry.nextAttemptAt ?? 0,
+    lastError: entry.lastError ?? null,
+    waitingForSignIn: entry.waitingForSignIn ?? false,
+    label: entry.label ?? entry.punch.kind,
+    technicianName: entry.technicianName ?? '',
+    queuedAt: entry.queuedAt ?? 0,
+    seq: entry.seq ?? index,
+  };
+}
 
-  function read(): readonly OutboxEntry[] {
-    if (cache) return cache;
-    let parsed: unknown;
-    try {
-      parsed = JSON.parse(storage.getItem(key) ?? '[]');
-    } catch {
-      parsed = [];
-    }
-    cache = Array.isArray(parsed)
-      ? parsed.filter(isEntry).map((entry) => ({
-          ...entry,
-          attempts: entry.attempts ?? 0,
-          nextAttemptAt: entry.nextAttemptAt ?? 0,
-          lastError: entry.lastError ?? null,
-          waitingForSignIn: entry.waitingForSignIn ?? false,
-          label: entry.label ?? entry.punch.kind,
-          technicianName: entry.technicianName ?? '',
-          queuedAt: entry.queuedAt ?? 0,
-        }))
-      : [];
-    return cache;
+/** The queue a tablet kept in localStorage before the outbox moved to IndexedDB. */
+function legacyEntries(storage: StorageLike | null, key: string): OutboxEntry[] {
+  if (!storage) return [];
+  try {
+    const parsed: unknown = JSON.parse(storage.getItem(key) ?? '[]');
+    return Array.isArray(parsed) ? parsed.filter(isEntry).map(normalise) : [];
+  } catch {
+    return [];
   }
+}
 
-  function write(next: readonly OutboxEntry[]) {
-    if (next.length === 0) storage.removeItem(key);
-    else storage.setItem(key, JSON.stringify(next));
+export function createOutbox(
+  store: OutboxStore,
+  legacy: StorageLike | null = null,
+  legacyKey: string = OUTBOX_KEY,
+): Outbox {
+  const listeners = new Set<() => void>();
+  let cache: readonly OutboxEntry[] = [];
+  let nextSeq = 0;
+  // Writes reach the store one after another, in the order they were made.
+  let writing: Promise<void> = Promise.resolve();
+  const persist = (write: () => Promise<void>) => {
+    const done = writing.then(write);
+    writing = done.catch(() => undefined);
+    return done;
+  };
+
+  function set(next: readonly OutboxEntry[]) {
     cache = next;
     for (const listener of listeners) listener();
   }
 
-  function map(fn: (entry: OutboxEntry) => OutboxEntry) {
-    const before = read();
-    let changed = false;
-    const next = before.map((entry) => {
-      const after = fn(entry);
-      if (after !== entry) changed = true;
-      return after;
-    });
-    if (changed) write(next);
+  async function read(): Promise<void> {
+    const stored = (await store.all()).filter(isEntry).map(normalise);
+    const moved = legacyEntries(legacy, legacyKey).filter(
+      (entry) => !stored.some((s) => s.punch.id === entry.punch.id),
+    );
+    if (moved.length > 0) {
+      // Behind everything already in IndexedDB, in the order the old queue held them.
+      const base = stored.reduce((max, entry) => Math.max(max, entry.seq + 1), 0);
+      moved.forEach((entry, index) => (entry.seq = base + index));
+      await store.put(moved);
+    }
+    // Only once the punches are safe in IndexedDB does the old copy go.
+    if (legacy?.getItem(legacyKey) != null) legacy.removeItem(legacyKey);
+    const all = [...stored, ...moved].sort((a, b) => a.seq - b.seq);
+    nextSeq = all.reduce((max, entry) => Math.max(max, entry.seq + 1), nextSeq);
+    set(all);
   }
 
+  function change(fn: (entry: OutboxEntry) => OutboxEntry) {
+    const changed: OutboxEntry[] = [];
+    const next = cache.map((entry) => {
+      const after = fn(entry);
+      if (after !== entry) changed.push(after);
+      return after;
+    });
+    if (changed.length === 0) return;
+    set(next);
+    // A lost write only means a retry sooner or a punch sent again: the server finds it by id.
+    void persist(() => store.put(changed)).catch(() => undefined);
+  }
+
+  const ready = read();
+
   return {
-    list: read,
-    add(entries, now) {
-      const known = new Set(read().map((entry) => entry.punch.id));
+    ready,
+    list: () => cache,
+    async add(entries, now) {
+      await ready;
+      const known = new Set(cache.map((entry) => entry.punch.id));
       const fresh = entries
         .filter((entry) => !known.has(entry.punch.id))
         .map<OutboxEntry>((entry) => ({
           ...entry,
           queuedAt: now,
+          seq: nextSeq++,
           attempts: 0,
           nextAttemptAt: now,
           lastError: null,
           waitingForSignIn: false,
         }));
-      if (fresh.length > 0) write([...read(), ...fresh]);
+      if (fresh.length === 0) return;
+      await persist(() => store.put(fresh));
+      set([...cache, ...fresh]);
     },
     remove(punchId) {
-      const before = read();
-      const next = before.filter((entry) => entry.punch.id !== punchId);
-      if (next.length !== before.length) write(next);
+      const next = cache.filter((entry) => entry.punch.id !== punchId);
+      if (next.length === cache.length) return;
+      set(next);
+      void persist(() => store.delete([punchId])).catch(() => undefined);
     },
     update(punchId, changes) {
-      map((entry) => (entry.punch.id === punchId ? { ...entry, ...changes } : entry));
+      change((entry) => (entry.punch.id === punchId ? { ...entry, ...changes } : entry));
     },
     renewToken(technicianId, token, now) {
-      map((entry) =>
+      change((entry) =>
         entry.technicianId === technicianId && (entry.token !== token || entry.waitingForSignIn)
           ? { ...entry, token, waitingForSignIn: false, nextAttemptAt: now }
           : entry,
       );
     },
     retryNow(now) {
-      map((entry) => (entry.nextAttemptAt > now ? { ...entry, nextAttemptAt: now } : entry));
+      change((entry) => (entry.nextAttemptAt > now ? { ...entry, nextAttemptAt: now } : entry));
     },
-    reload() {
-      cache = null;
-      for (const listener of listeners) listener();
+    async reload() {
+      await writing;
+      await read();
     },
+    flushed: () => writing,
     subscribe(listener) {
       listeners.add(listener);
       return () => void listeners.delete(listener);

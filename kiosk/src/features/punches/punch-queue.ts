@@ -1,4 +1,5 @@
-import { OUTBOX_KEY, createOutbox, drainOutbox, type OutboxEntry, type StorageLike } from './outbox';
+import { createStore } from 'idb-keyval';
+import { createOutbox, drainOutbox, idbOutboxStore, type OutboxEntry, type StorageLike } from './outbox';
 import { sendQueuedPunch } from './api/create-punch';
 
 /** A punch the server refused: shown until someone taps it away. */
@@ -16,27 +17,23 @@ export interface ConfirmedPunch {
   confirmedAt: number;
 }
 
-const memoryStorage = (): StorageLike => {
-  const data = new Map<string, string>();
-  return {
-    getItem: (key) => data.get(key) ?? null,
-    setItem: (key, value) => void data.set(key, value),
-    removeItem: (key) => void data.delete(key),
-  };
-};
-
-function pickStorage(): StorageLike {
+/** Where a tablet kept its queue before IndexedDB, if the browser lets us read it. */
+function legacyStorage(): StorageLike | null {
   try {
-    const probe = '__baytime_probe__';
-    localStorage.setItem(probe, probe);
-    localStorage.removeItem(probe);
     return localStorage;
   } catch {
-    return memoryStorage();
+    return null;
   }
 }
 
-export const outbox = createOutbox(pickStorage());
+export const outbox = createOutbox(idbOutboxStore(createStore('baytime-kiosk', 'outbox')), legacyStorage());
+
+/** Tells other tabs of this kiosk that the queue changed, so they read it again. */
+const otherTabs =
+  typeof BroadcastChannel === 'function' ? new BroadcastChannel('baytime-kiosk-outbox') : null;
+export function tellOtherTabs(): void {
+  void outbox.flushed().then(() => otherTabs?.postMessage('changed'));
+}
 
 let notices: readonly PunchNotice[] = [];
 let confirmed: readonly ConfirmedPunch[] = [];
@@ -61,6 +58,7 @@ let timer: ReturnType<typeof setTimeout> | undefined;
 
 async function pass() {
   clearTimeout(timer);
+  await outbox.ready.catch(() => undefined);
   const result = await drainOutbox(outbox, sendQueuedPunch, {
     now: Date.now,
     onSent(entry) {
@@ -87,6 +85,7 @@ async function pass() {
       hooks.onRefused?.(entry);
     },
   });
+  if (result.sent + result.refused > 0) tellOtherTabs();
   if (result.nextAttemptAt !== null)
     timer = setTimeout(() => void kick(), Math.max(250, result.nextAttemptAt - Date.now()));
 }
@@ -117,18 +116,13 @@ export function startPunchQueue(next: PunchQueueHooks): () => void {
     outbox.retryNow(Date.now());
     void kick();
   };
-  const storage = (event: StorageEvent) => {
-    if (event.key === null || event.key === OUTBOX_KEY) {
-      outbox.reload();
-      void kick();
-    }
-  };
+  const changedElsewhere = () => void outbox.reload().then(kick, () => undefined);
   window.addEventListener('online', online);
-  window.addEventListener('storage', storage);
+  otherTabs?.addEventListener('message', changedElsewhere);
   void kick();
   return () => {
     window.removeEventListener('online', online);
-    window.removeEventListener('storage', storage);
+    otherTabs?.removeEventListener('message', changedElsewhere);
     clearTimeout(timer);
     hooks = {};
   };

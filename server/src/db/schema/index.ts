@@ -7,4 +7,6 @@ export * from './records.js';
 export * from './sign-in.js';
 export * from './live.js';
 export * from './approvals.js';
+export * from './parts.js';
+export * from './offline-punches.js';
 export * from './pay.js';

@@ -18,11 +18,18 @@ export const users = sqliteTable(
   (t) => [uniqueIndex('users_email_idx').on(t.email), uniqueIndex('users_badge_idx').on(t.badge)],
 );
 
-/** A wall screen: paired once with a one-time code, then signs in with a display token. */
+export const DEVICE_KINDS = ['wall', 'kiosk'] as const;
+export type DeviceKind = (typeof DEVICE_KINDS)[number];
+
+/**
+ * A paired device: a wall screen (signs in with a `display` token) or a technicians' kiosk tablet
+ * (a `kiosk` token that says which tablet it is). Paired once with a one-time code.
+ */
 export const screens = sqliteTable(
   'screens',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind', { enum: DEVICE_KINDS }).notNull().default('wall'),
     name: text('name').notNull(),
     pairingCodeHash: text('pairing_code_hash'),
     pairingExpiresAt: integer('pairing_expires_at', { mode: 'timestamp_ms' }),
@@ -31,6 +38,10 @@ export const screens = sqliteTable(
     revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
     createdBy: integer('created_by').references(() => users.id),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+    /** A kiosk's last report of its outbox: punches not yet sent, since when, and when it said so. */
+    queueWaiting: integer('queue_waiting').notNull().default(0),
+    queueSince: integer('queue_since', { mode: 'timestamp_ms' }),
+    queueReportedAt: integer('queue_reported_at', { mode: 'timestamp_ms' }),
   },
   (t) => [uniqueIndex('screens_pairing_code_hash_idx').on(t.pairingCodeHash)],
 );

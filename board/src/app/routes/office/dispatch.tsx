@@ -1,6 +1,8 @@
 import { Badge } from '@fluentui/react-components';
 import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
+import { PartsControl } from '@/features/parts/components/parts-control';
 import { useShop } from '@/features/shop/api/get-shop';
+import { useMinuteNow } from '@/hooks/use-minute-now';
 import { DispatchView } from '@/features/dispatch/components/dispatch-view';
 import { useLiveDispatch, type LiveLink } from '@/features/dispatch/hooks/use-live-dispatch';
 import { useOffice } from './office-context';
@@ -18,6 +20,7 @@ export function Component() {
   const token = useOfficeToken();
   const link = useLiveDispatch(token);
   const shop = useShop();
+  const nowMs = useMinuteNow();
   const canEdit = role === 'owner' || role === 'foreman';
   const badge = LINK_BADGES[link];
 
@@ -26,6 +29,15 @@ export function Component() {
       <DispatchView
         timeZone={shop.data?.timeZone}
         canEdit={canEdit}
+        lineTools={(line) => (
+          <PartsControl
+            line={line}
+            label={`RO ${line.repairOrderNumber} line ${line.lineNo}: ${line.title}`}
+            timeZone={shop.data?.timeZone}
+            nowMs={nowMs}
+            canEdit
+          />
+        )}
         headerActions={
           <>
             {!canEdit && (

@@ -40,6 +40,7 @@ import { useMinuteNow } from '@/hooks/use-minute-now';
 import { BaysStrip } from './bays-strip';
 import { ConfirmMoveDialog } from './confirm-move-dialog';
 import { LineCard } from './line-card';
+import { LineToolsContext, type LineTools } from './line-tools';
 import { QueueColumn } from './queue-column';
 import { TechLane } from './tech-lane';
 
@@ -106,6 +107,8 @@ export interface DispatchViewProps {
   canEdit: boolean;
   /** Shown at the right of the page title: the live link and the like. */
   headerActions?: ReactNode;
+  /** Shown under each line card. */
+  lineTools?: LineTools;
 }
 
 function Summary({ board, canEdit }: { board: DispatchBoard; canEdit: boolean }) {
@@ -125,7 +128,7 @@ function Summary({ board, canEdit }: { board: DispatchBoard; canEdit: boolean })
   );
 }
 
-export function DispatchView({ timeZone, canEdit, headerActions }: DispatchViewProps) {
+export function DispatchView({ timeZone, canEdit, headerActions, lineTools }: DispatchViewProps) {
   const dispatch = useDispatch();
   return (
     <>
@@ -152,7 +155,9 @@ export function DispatchView({ timeZone, canEdit, headerActions }: DispatchViewP
           </MessageBarBody>
         </MessageBar>
       ) : (
-        <DispatchBoardView board={dispatch.data} timeZone={timeZone} canEdit={canEdit} />
+        <LineToolsContext.Provider value={lineTools ?? null}>
+          <DispatchBoardView board={dispatch.data} timeZone={timeZone} canEdit={canEdit} />
+        </LineToolsContext.Provider>
       )}
     </>
   );

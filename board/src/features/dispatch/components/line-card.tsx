@@ -6,6 +6,7 @@ import { Glyph } from '@/components/glyph';
 import { findLane, firstName, skillWarning, type MoveTarget } from '../dispatch-model';
 import { formatBookHours, formatHm, formatShopTime, formatWait } from '../dispatch-format';
 import { PRIORITY_LABELS } from '../dispatch-words';
+import { useLineTools } from './line-tools';
 import { MoveMenu } from './move-menu';
 
 const useStyles = makeStyles({
@@ -142,6 +143,7 @@ export function LineCard({
     disabled: !canEdit || overlay,
   });
   const menuRef = useRef<HTMLButtonElement>(null);
+  const lineTools = useLineTools();
 
   useEffect(() => {
     if (!focusMenu) return;
@@ -251,6 +253,7 @@ export function LineCard({
       ) : (
         <LaneFacts line={line} book={book} late={late} timeZone={timeZone} nowMs={nowMs} />
       )}
+      {!overlay && lineTools?.(line)}
     </article>
   );
 }

@@ -142,6 +142,8 @@ export interface RepairOrderDetailProps {
   canDispatch: boolean;
   /** Just written: say so. */
   created: boolean;
+  /** Shown under a line's status (parts details for a line held for parts). */
+  lineTools?: (line: RepairOrderSummary['lines'][number]) => ReactNode;
 }
 
 export function RepairOrderDetail(props: RepairOrderDetailProps) {
@@ -207,6 +209,7 @@ function Detail({
   units,
   canDispatch,
   created,
+  lineTools,
 }: RepairOrderDetailProps & { ro: RepairOrderSummary }) {
   const styles = useStyles();
   const navigate = useNavigate();
@@ -364,6 +367,7 @@ function Detail({
                             </Caption1>
                           )}
                         </div>
+                        {lineTools?.(line)}
                       </TableCell>
                       <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
                       <TableCell>

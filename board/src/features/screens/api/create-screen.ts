@@ -1,16 +1,16 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateScreenBody, ScreenPairing } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
-import { screensQueryOptions } from './get-screens';
+import { DEVICE_ROUTES, screensQueryOptions, type DeviceKind } from './get-screens';
 
-export function createScreen(body: CreateScreenBody): Promise<ScreenPairing> {
-  return officeApi.post<ScreenPairing>('/screens', body);
+export function createScreen(body: CreateScreenBody, kind: DeviceKind = 'wall'): Promise<ScreenPairing> {
+  return officeApi.post<ScreenPairing>(DEVICE_ROUTES[kind], body);
 }
 
-export function useCreateScreen() {
+export function useCreateScreen(kind: DeviceKind = 'wall') {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: createScreen,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: screensQueryOptions().queryKey }),
+    mutationFn: (body: CreateScreenBody) => createScreen(body, kind),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: screensQueryOptions(kind).queryKey }),
   });
 }

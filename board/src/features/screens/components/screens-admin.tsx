@@ -33,7 +33,7 @@ import { formErrorText } from '@/lib/form-errors';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { FormErrorBar } from '@/components/form-error-bar';
 import { useCreateScreen } from '../api/create-screen';
-import { useScreens, type WallScreenDto } from '../api/get-screens';
+import { useScreens, type DeviceKind, type WallScreenDto } from '../api/get-screens';
 import { useRevokeScreen } from '../api/revoke-screen';
 import { STATUS_WORDS, agoText, screenStatus, sortScreens, type ScreenStatus } from '../screen-status';
 
@@ -71,10 +71,43 @@ const useStyles = makeStyles({
 
 const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
-function PairingCode({ pairing, name }: { pairing: ScreenPairing; name: string }) {
+/** What the page says of each kind of device. */
+const WORDS = {
+  wall: {
+    pair: 'Pair a wall screen',
+    nameLabel: 'Screen name',
+    nameHint: 'Where it hangs, e.g. “Shop floor, north wall”',
+    device: 'the TV',
+    page: paths.wall,
+    table: 'Wall screens',
+    column: 'Screen',
+    none: 'No wall screens yet.',
+    revoked:
+      'The screen stops showing the board at once and goes back to its pairing page. To use it again, make a new pairing code.',
+    unpaired: 'Its pairing code stops working. To pair a screen later, make a new code.',
+    revoke: 'Revoke screen',
+  },
+  kiosk: {
+    pair: 'Pair a kiosk tablet',
+    nameLabel: 'Kiosk name',
+    nameHint: 'Where it stands, e.g. “By the time clock”',
+    device: 'the tablet',
+    page: paths.kiosk,
+    table: 'Kiosks',
+    column: 'Kiosk',
+    none: 'No kiosks paired yet.',
+    revoked:
+      'The tablet goes back to its pairing page and can no longer send punches it holds. To use it again, make a new pairing code.',
+    unpaired: 'Its pairing code stops working. To pair a tablet later, make a new code.',
+    revoke: 'Revoke kiosk',
+  },
+} as const;
+
+function PairingCode({ pairing, name, kind }: { pairing: ScreenPairing; name: string; kind: DeviceKind }) {
   const styles = useStyles();
   const origin = window.location.origin;
-  const direct = `${origin}${paths.wall}?code=${pairing.code}`;
+  const page = `${origin}${WORDS[kind].page}`;
+  const direct = `${page}?code=${pairing.code}`;
   return (
     <>
       <Body1>
@@ -85,7 +118,7 @@ function PairingCode({ pairing, name }: { pairing: ScreenPairing; name: string }
       </div>
       <ol className={styles.steps}>
         <li>
-          On the TV, open <strong>{`${origin}${paths.wall}`}</strong> and type the code, or open{' '}
+          On {WORDS[kind].device}, open <strong>{page}</strong> and type the code, or open{' '}
           <Link href={direct}>{direct}</Link>.
         </li>
         <li>The code works once and expires at {when.format(new Date(pairing.expiresAt))}.</li>
@@ -94,9 +127,10 @@ function PairingCode({ pairing, name }: { pairing: ScreenPairing; name: string }
   );
 }
 
-export function CreateScreenCard() {
+export function CreateScreenCard({ kind = 'wall' }: { kind?: DeviceKind }) {
   const styles = useStyles();
-  const create = useCreateScreen();
+  const words = WORDS[kind];
+  const create = useCreateScreen(kind);
   const form = useSchemaForm(createScreenSchema, { defaultValues: { name: '' } });
   const { errors } = form.formState;
   const [made, setMade] = useState<{ pairing: ScreenPairing; name: string } | null>(null);
@@ -112,14 +146,14 @@ export function CreateScreenCard() {
 
   return (
     <Card className={styles.card}>
-      <Subtitle2 as="h2">Pair a wall screen</Subtitle2>
+      <Subtitle2 as="h2">{words.pair}</Subtitle2>
       <form className={styles.row} onSubmit={(event) => void submit(event)} noValidate>
         <Field
-          label="Screen name"
+          label={words.nameLabel}
           required
           validationMessage={errors.name?.message}
           className={styles.name}
-          hint="Where it hangs, e.g. “Shop floor, north wall”"
+          hint={words.nameHint}
         >
           <Input maxLength={60} {...form.register('name')} />
         </Field>
@@ -128,13 +162,21 @@ export function CreateScreenCard() {
         </Button>
       </form>
       <FormErrorBar message={errors.root?.server?.message ?? null} />
-      {made && <PairingCode pairing={made.pairing} name={made.name} />}
+      {made && <PairingCode pairing={made.pairing} name={made.name} kind={kind} />}
     </Card>
   );
 }
 
-function RevokeDialog({ screen, onClose }: { screen: WallScreenDto; onClose: () => void }) {
-  const revoke = useRevokeScreen();
+function RevokeDialog({
+  screen,
+  kind,
+  onClose,
+}: {
+  screen: WallScreenDto;
+  kind: DeviceKind;
+  onClose: () => void;
+}) {
+  const revoke = useRevokeScreen(kind);
   const paired = screen.pairedAt !== null;
   return (
     <Dialog open onOpenChange={(_, data) => !data.open && onClose()}>
@@ -142,11 +184,7 @@ function RevokeDialog({ screen, onClose }: { screen: WallScreenDto; onClose: () 
         <DialogBody>
           <DialogTitle>Revoke “{screen.name}”?</DialogTitle>
           <DialogContent>
-            <Body1>
-              {paired
-                ? 'The screen stops showing the board at once and goes back to its pairing page. To use it again, make a new pairing code.'
-                : 'Its pairing code stops working. To pair a screen later, make a new code.'}
-            </Body1>
+            <Body1>{paired ? WORDS[kind].revoked : WORDS[kind].unpaired}</Body1>
             {revoke.isError && (
               <MessageBar intent="error" style={{ marginTop: tokens.spacingVerticalM }}>
                 <MessageBarBody>{formErrorText(revoke.error)}</MessageBarBody>
@@ -160,13 +198,22 @@ function RevokeDialog({ screen, onClose }: { screen: WallScreenDto; onClose: () 
               disabled={revoke.isPending}
               onClick={() => revoke.mutate(screen.id, { onSuccess: onClose })}
             >
-              {revoke.isPending ? 'Revoking…' : 'Revoke screen'}
+              {revoke.isPending ? 'Revoking…' : WORDS[kind].revoke}
             </Button>
           </DialogActions>
         </DialogBody>
       </DialogSurface>
     </Dialog>
   );
+}
+
+/** "3 since 7:02 AM (said 7:05 AM)", "None (said 7:05 AM)", or "Not reported yet". */
+function queueText(queue: WallScreenDto['queue']): string {
+  if (!queue?.reportedAt) return 'Not reported yet';
+  const said = `said ${when.format(new Date(queue.reportedAt))}`;
+  if (queue.waiting === 0) return `None (${said})`;
+  const since = queue.since ? ` since ${when.format(new Date(queue.since))}` : '';
+  return `${queue.waiting}${since} (${said})`;
 }
 
 const STATUS_BADGE: Record<ScreenStatus, 'success' | 'informative' | 'subtle' | 'danger'> = {
@@ -176,9 +223,10 @@ const STATUS_BADGE: Record<ScreenStatus, 'success' | 'informative' | 'subtle' | 
   revoked: 'danger',
 };
 
-export function ScreensTable() {
+export function ScreensTable({ kind = 'wall' }: { kind?: DeviceKind }) {
   const styles = useStyles();
-  const screens = useScreens();
+  const words = WORDS[kind];
+  const screens = useScreens(kind);
   const [revoking, setRevoking] = useState<WallScreenDto | null>(null);
   if (screens.isPending) return <Spinner label="Loading screens…" />;
   if (screens.isError)
@@ -187,18 +235,19 @@ export function ScreensTable() {
         <MessageBarBody>{formErrorText(screens.error)}</MessageBarBody>
       </MessageBar>
     );
-  if (screens.data.length === 0) return <Body1 className={styles.dim}>No wall screens yet.</Body1>;
+  if (screens.data.length === 0) return <Body1 className={styles.dim}>{words.none}</Body1>;
   // The list reloads every 15 s: its fetch time is "now" for the ages shown.
   const now = screens.dataUpdatedAt;
   return (
     <>
-      <Table aria-label="Wall screens" className={styles.table}>
+      <Table aria-label={words.table} className={styles.table}>
         <TableHeader>
           <TableRow>
-            <TableHeaderCell>Screen</TableHeaderCell>
+            <TableHeaderCell>{words.column}</TableHeaderCell>
             <TableHeaderCell>Status</TableHeaderCell>
             <TableHeaderCell>Paired</TableHeaderCell>
             <TableHeaderCell>Last seen</TableHeaderCell>
+            {kind === 'kiosk' && <TableHeaderCell>Punches waiting on it</TableHeaderCell>}
             <TableHeaderCell>
               <span className="visually-hidden">Actions</span>
             </TableHeaderCell>
@@ -234,6 +283,7 @@ export function ScreensTable() {
                     '—'
                   )}
                 </TableCell>
+                {kind === 'kiosk' && <TableCell>{queueText(screen.queue)}</TableCell>}
                 <TableCell className={styles.actions}>
                   {status !== 'revoked' && (
                     <Button
@@ -250,7 +300,7 @@ export function ScreensTable() {
           })}
         </TableBody>
       </Table>
-      {revoking && <RevokeDialog screen={revoking} onClose={() => setRevoking(null)} />}
+      {revoking && <RevokeDialog screen={revoking} kind={kind} onClose={() => setRevoking(null)} />}
     </>
   );
 }

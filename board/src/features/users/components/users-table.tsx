@@ -15,7 +15,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import type { Role, UserDto } from '@baytime/shared';
+import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
@@ -90,7 +90,10 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   // Dates on record are shop-local calendar days; a day ahead of the browser's is still "to come".
   const today = new Date().toISOString().slice(0, 10);
   const sorted = [...users.data]
-    .filter((user): user is UserDto & { role: Exclude<Role, 'display'> } => user.role !== 'display')
+    .filter(
+      (user): user is UserDto & { role: PersonRole } =>
+        !(DEVICE_ROLES as readonly Role[]).includes(user.role),
+    )
     .sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name));
 
   return (

@@ -12,6 +12,8 @@ export interface BayTileProps {
   asOfMs: number | undefined;
   /** Server time now (ms). */
   nowMs: number;
+  /** The shop's time zone. */
+  timeZone: string;
   /** Tile size in board units: decides how many lines fit and how long they may be. */
   height: number;
   width: number;
@@ -21,11 +23,11 @@ export interface BayTileProps {
 
 const BAR_STATES = new Set<BoardBay['state']>(['working', 'held', 'check']);
 
-export function BayTile({ bay, asOfMs, nowMs, height, width, turn }: BayTileProps) {
+export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, turn }: BayTileProps) {
   const look = BAY_PALETTE[bay.state];
   const clocked = clockedSecondsAt(bay, asOfMs, nowMs);
   const bar = BAR_STATES.has(bay.state) ? clockedBar(clocked, bay.bookSeconds) : null;
-  const facts = bayFacts({ bay, clockedSeconds: clocked, nowMs, lineChars: lineChars(width) });
+  const facts = bayFacts({ bay, clockedSeconds: clocked, nowMs, timeZone, lineChars: lineChars(width) });
   const room = tileRoom(height, bar !== null);
   const hasBig = facts.some((fact) => fact.tone === 'big');
   const lines = pickLines(facts, hasBig ? room.slotsWithBig : room.slots, turn);

@@ -14,10 +14,10 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardSnapshot } from '@baytime/shared';
+import { TIMER_KIND_LABELS, type BoardBay, type BoardSnapshot } from '@baytime/shared';
 import { StateChip } from '@/components/state-chip';
 import { clockedSecondsAt } from '../board-store';
-import { clockedBar, countdownFact } from '../bay-facts';
+import { clockedBar, countdownFact, holdFacts } from '../bay-facts';
 import { formatHoursMinutes, formatSpan, formatTimeOfDay } from '../board-time';
 import { secondsSince } from '../server-clock';
 import type { LinkStatus } from '../live-board';
@@ -130,7 +130,14 @@ export function FloorLinkStatus({
   );
 }
 
-function BayCard({ bay, asOfMs, nowMs }: { bay: BoardBay; asOfMs: number | undefined; nowMs: number }) {
+interface BayCardProps {
+  bay: BoardBay;
+  asOfMs: number | undefined;
+  nowMs: number;
+  timeZone: string;
+}
+
+function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
   const styles = useStyles();
   const clocked = clockedSecondsAt(bay, asOfMs, nowMs);
   const bar = clockedBar(clocked, bay.bookSeconds);
@@ -144,7 +151,11 @@ function BayCard({ bay, asOfMs, nowMs }: { bay: BoardBay; asOfMs: number | undef
       </div>
       {bay.state === 'held' && (
         <Body1>
-          <strong>{bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold'}</strong>
+          <strong>
+            {holdFacts(bay, nowMs, timeZone)
+              .map((fact) => fact.text)
+              .join(' ')}
+          </strong>
           {bay.heldSince && ` · held ${formatSpan(secondsSince(bay.heldSince, nowMs))}`}
         </Body1>
       )}
@@ -214,7 +225,13 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
     <>
       <section aria-label="Bays" className={styles.bays}>
         {snapshot.bays.map((bay) => (
-          <BayCard key={bay.id} bay={bay} asOfMs={bayAsOf[bay.id]} nowMs={nowMs} />
+          <BayCard
+            key={bay.id}
+            bay={bay}
+            asOfMs={bayAsOf[bay.id]}
+            nowMs={nowMs}
+            timeZone={snapshot.shop.timeZone}
+          />
         ))}
         {snapshot.bays.length === 0 && <Body1>No bays yet. The owner adds them under Admin, Bays.</Body1>}
       </section>

@@ -4,6 +4,7 @@ import { forgetWallToken } from '@/lib/wall-session';
 import { useLiveBoard } from '../hooks/use-live-board';
 import { useWallLink } from '../hooks/use-wall-link';
 import { useNow } from '../hooks/use-now';
+import { kioskQueueText } from '../kiosk-queue';
 import { serverNow } from '../server-clock';
 import { formatTimeOfDay } from '../board-time';
 import { pageAt, pageItems, wallLayout, type Viewport } from '../wall-layout';
@@ -88,6 +89,7 @@ export function WallBoard({ token }: { token: string }) {
         page={page}
         pages={layout.pages}
         queue={queueSummary(snapshot.queue, now, snapshot.lateLines)}
+        kioskNote={kioskQueueText(snapshot.kioskQueues, snapshot.shop.timeZone)}
       />
       {snapshot.bays.length === 0 ? (
         <div className={styles.message} style={{ gridRow: 'auto' }}>
@@ -108,6 +110,7 @@ export function WallBoard({ token }: { token: string }) {
               bay={bay}
               asOfMs={bayAsOf[bay.id]}
               nowMs={now}
+              timeZone={snapshot.shop.timeZone}
               height={layout.tileHeight}
               width={layout.tileWidth}
               turn={turn}

@@ -22,10 +22,13 @@ export interface WallTopBarProps {
   page: number;
   pages: number;
   queue: QueueSummary;
+  /** Punches waiting on a kiosk, in words; null when none. */
+  kioskNote: string | null;
 }
 
 export function WallTopBar(props: WallTopBarProps) {
-  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, queue } = props;
+  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, queue, kioskNote } =
+    props;
   const face = clockFace(nowMs, timeZone);
   const lost = link !== 'live' && downSince !== null && localNowMs - downSince >= LINK_LOST_AFTER_MS;
 
@@ -38,10 +41,15 @@ export function WallTopBar(props: WallTopBarProps) {
             Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
           </span>
         </div>
+      ) : kioskNote ? (
+        <div className={styles.kioskNote} role="status">
+          <Glyph name="caution" className={styles.glyph} />
+          <span className={styles.linkLostText}>{kioskNote}</span>
+        </div>
       ) : (
         <div className={styles.shopName}>{shopName}</div>
       )}
-      {!lost && (
+      {!lost && !kioskNote && (
         <div className={styles.queue}>
           <Glyph name="queue" className={styles.glyph} />
           {queue.count === 0 ? (

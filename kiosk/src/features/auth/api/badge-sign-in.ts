@@ -2,9 +2,12 @@ import { useMutation } from '@tanstack/react-query';
 import type { BadgeLoginBody, SignInAnswer } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { api } from '@/lib/api-client';
+import { sendCommand } from '@/lib/commands';
 
 /** `POST /api/auth/badge` → `{ accessToken, user }`. */
-export const signInWithBadge = (body: BadgeLoginBody) => api.post<SignInAnswer>('/auth/badge', body);
+/** Punches waiting on the tablet go first, so a sign-in finds its offline punches on the server. */
+export const signInWithBadge = (body: BadgeLoginBody) =>
+  sendCommand(() => api.post<SignInAnswer>('/auth/badge', body));
 
 export function useBadgeSignIn() {
   return useMutation({ mutationFn: signInWithBadge, retry: false });

@@ -1,5 +1,6 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
+import { ApiError } from '@baytime/shared/client';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
 import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
 import { Keypad, useHardwareKeys } from '@/components/keypad';
@@ -16,9 +17,18 @@ export interface SignInPanelProps {
   /** Shown above the entry until the first key press, e.g. why the last person was signed out. */
   notice?: string | null;
   onNoticeSeen?: () => void;
+  /** The server cannot be reached: badge and PIN go here instead, for a punch recorded offline. */
+  offline?: boolean;
+  onOffline?: (badge: string, pin: string) => void;
 }
 
-export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelProps) {
+export function SignInPanel({
+  onSignedIn,
+  notice,
+  onNoticeSeen,
+  offline = false,
+  onOffline,
+}: SignInPanelProps) {
   const [step, setStep] = useState<Step>('badge');
   const [badge, setBadge] = useState('');
   const [pin, setPin] = useState('');
@@ -73,6 +83,10 @@ export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelPro
     const check = badgeLoginSchema.safeParse({ badge, pin });
     if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the PIN');
     setProblem(null);
+    if (offline && onOffline) {
+      reset();
+      return onOffline(check.data.badge, check.data.pin);
+    }
     signIn.mutate(check.data, {
       onSuccess: (answer) => {
         reset();
@@ -80,7 +94,9 @@ export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelPro
       },
       onError: (error) => {
         reset();
-        setProblem(signInRefusal(error));
+        if (onOffline && error instanceof ApiError && error.isNetwork)
+          onOffline(check.data.badge, check.data.pin);
+        else setProblem(signInRefusal(error));
       },
     });
   };
@@ -158,7 +174,13 @@ export function SignInPanel({ onSignedIn, notice, onNoticeSeen }: SignInPanelPro
           onClick={next}
           disabled={busy || !ready}
         >
-          {busy ? 'Checking…' : step === 'badge' ? 'Next' : 'Sign in'}
+          {busy
+            ? 'Checking…'
+            : step === 'badge'
+              ? 'Next'
+              : offline && onOffline
+                ? 'Next: punch offline'
+                : 'Sign in'}
           <ArrowRightIcon />
         </button>
       </section>

@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import type { HoldReason } from '@baytime/shared';
+import { useId, useState, type FormEvent } from 'react';
+import { holdLineSchema, type HoldReason } from '@baytime/shared';
 import { PauseIcon } from '@/components/icons';
 import { Sheet, SheetProblem } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
@@ -13,14 +13,33 @@ export interface HoldSheetProps {
   onClose: () => void;
 }
 
-/** Why the line waits: one tap on a reason holds it. */
+/** Why the line waits: one tap on a reason holds it; for parts the technician may first name the part. */
 export function HoldSheet({ line, context, onClose }: HoldSheetProps) {
   const hold = useHoldLine();
   const [chosen, setChosen] = useState<HoldReason | null>(null);
-  const send = (reason: HoldReason) => {
+  const [askingPart, setAskingPart] = useState(false);
+  const send = (reason: HoldReason, part?: string) => {
     setChosen(reason);
-    hold.mutate({ jobLineId: line.id, reason }, { onSuccess: onClose });
+    hold.mutate({ jobLineId: line.id, reason, ...(part && { part }) }, { onSuccess: onClose });
   };
+
+  if (askingPart)
+    return (
+      <Sheet
+        title="Waiting for parts"
+        context={context}
+        onClose={onClose}
+        closeLabel="Back"
+        onBack={() => setAskingPart(false)}
+        wide
+      >
+        <PartStep
+          sending={hold.isPending}
+          problem={hold.error ? commandProblem(hold.error) : null}
+          onSend={(part) => send('parts', part)}
+        />
+      </Sheet>
+    );
 
   return (
     <Sheet title="Put this line on hold" context={context} onClose={onClose} wide>
@@ -35,7 +54,7 @@ export function HoldSheet({ line, context, onClose }: HoldSheetProps) {
               type="button"
               className={`bt-choice${chosen === choice.reason ? ' is-selected' : ''}`}
               disabled={hold.isPending}
-              onClick={() => send(choice.reason)}
+              onClick={() => (choice.reason === 'parts' ? setAskingPart(true) : send(choice.reason))}
             >
               <PauseIcon />
               <span className="bt-choice__words">
@@ -48,5 +67,52 @@ export function HoldSheet({ line, context, onClose }: HoldSheetProps) {
       </ul>
       <SheetProblem>{hold.error ? commandProblem(hold.error) : null}</SheetProblem>
     </Sheet>
+  );
+}
+
+/** Which part: optional, the office records the order, the supplier and the arrival. */
+function PartStep({
+  sending,
+  problem,
+  onSend,
+}: {
+  sending: boolean;
+  problem: string | null;
+  onSend: (part: string | undefined) => void;
+}) {
+  const id = useId();
+  const [part, setPart] = useState('');
+  const [invalid, setInvalid] = useState<string | null>(null);
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    if (part.trim() === '') return onSend(undefined);
+    const check = holdLineSchema.safeParse({ reason: 'parts', part });
+    if (!check.success) return setInvalid(check.error.issues[0]?.message ?? 'Check the part');
+    onSend(check.data.part);
+  };
+  return (
+    <form className="bt-hold-part" onSubmit={submit} noValidate>
+      <label className="bt-hold-part__label" htmlFor={id}>
+        Which part is needed? <small>(optional: the office orders it)</small>
+      </label>
+      <input
+        id={id}
+        className={`bt-hold-part__input${invalid ? ' is-invalid' : ''}`}
+        autoComplete="off"
+        maxLength={120}
+        placeholder="e.g. left outer tie rod end"
+        value={part}
+        disabled={sending}
+        aria-invalid={invalid !== null}
+        onChange={(event) => {
+          setPart(event.target.value);
+          setInvalid(null);
+        }}
+      />
+      <button type="submit" className="bt-action bt-action--go" disabled={sending}>
+        <PauseIcon /> {sending ? 'Sending…' : 'Hold for parts'}
+      </button>
+      <SheetProblem>{invalid ?? problem}</SheetProblem>
+    </form>
   );
 }

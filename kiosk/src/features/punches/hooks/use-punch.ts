@@ -2,7 +2,7 @@ import { useCallback } from 'react';
 import type { BreakKind, PunchKind } from '@baytime/shared';
 import { useSession } from '@/lib/session';
 import type { NewOutboxEntry } from '../outbox';
-import { kick, outbox, pushNotice } from '../punch-queue';
+import { kick, outbox, pushNotice, tellOtherTabs } from '../punch-queue';
 import { newPunchId } from '../punch-id';
 
 export interface PunchRequest {
@@ -18,10 +18,10 @@ export interface PunchRequest {
  * Several requests from one tap (clock off every line, then start a break) keep their order and
  * get timestamps one millisecond apart.
  */
-export function usePunch(): (requests: readonly PunchRequest[]) => boolean {
+export function usePunch(): (requests: readonly PunchRequest[]) => Promise<boolean> {
   const current = useSession();
   return useCallback(
-    (requests) => {
+    async (requests) => {
       if (!current || requests.length === 0) return false;
       const now = Date.now();
       const entries = requests.map<NewOutboxEntry>((request, i) => ({
@@ -38,7 +38,7 @@ export function usePunch(): (requests: readonly PunchRequest[]) => boolean {
         label: request.label,
       }));
       try {
-        outbox.add(entries, now);
+        await outbox.add(entries, now);
       } catch {
         pushNotice({
           id: entries[0]!.punch.id,
@@ -49,6 +49,7 @@ export function usePunch(): (requests: readonly PunchRequest[]) => boolean {
         });
         return false;
       }
+      tellOtherTabs();
       void kick();
       return true;
     },

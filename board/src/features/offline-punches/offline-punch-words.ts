@@ -1,0 +1,25 @@
+import type { OfflinePunchDto, OfflinePunchStatus } from '@baytime/shared';
+
+export const STATUS_WORDS: Record<OfflinePunchStatus, string> = {
+  unverified: 'Identity not yet verified',
+  refused: 'Refused',
+  confirmed: 'Confirmed',
+  rejected: 'Rejected',
+};
+
+/** "Break start (rest)", "Shift start". */
+export function punchWords(punch: Pick<OfflinePunchDto, 'kind' | 'breakKind'>): string {
+  const words = {
+    'shift-in': 'Shift start',
+    'shift-out': 'Shift end',
+    'break-start': 'Break start',
+    'break-end': 'Break end',
+  }[punch.kind];
+  return punch.breakKind ? `${words} (${punch.breakKind})` : words;
+}
+
+/** Who tapped it: the technician, else the badge typed, else nobody known. */
+export function whoWords(punch: Pick<OfflinePunchDto, 'technicianName' | 'badge'>): string {
+  if (punch.technicianName) return punch.technicianName;
+  return punch.badge ? `Badge ${punch.badge} (no technician)` : 'Unreadable badge';
+}
