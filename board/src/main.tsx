@@ -1,8 +1,12 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
+import { applyLook } from '@baytime/shared';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
 import './app/base.css';
+
+// The shared palette as CSS custom properties: the style sheets name colours, never copy them.
+applyLook(document.documentElement);
 
 const root = document.getElementById('root');
 if (!root) throw new Error('The page has no #root element');

@@ -37,3 +37,6 @@ export * from './input/phone.js';
 export * from './approvals/price.js';
 export * from './approvals/approvals.schema.js';
 export * from './time/format.js';
+export * from './look/brand.js';
+export * from './look/signal-palette.js';
+export * from './look/meaning-icons.js';

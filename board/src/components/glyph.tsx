@@ -1,10 +1,14 @@
-import type { BayStateIcon } from '@baytime/shared';
+import { MEANING_ICON_PATHS, type BayStateIcon, type MeaningIcon } from '@baytime/shared';
 import type { ReactNode } from 'react';
 
-export type GlyphName = BayStateIcon | 'link-lost' | 'caution' | 'cup' | 'person' | 'queue' | 'live';
+type OwnGlyph = BayStateIcon | 'link-lost' | 'caution' | 'cup' | 'queue' | 'live';
+export type GlyphName = OwnGlyph | MeaningIcon;
 
-/** Simple line drawings, thick enough to read across a shop. */
-const PATHS: Record<GlyphName, ReactNode> = {
+/**
+ * Simple line drawings, thick enough to read across a shop. The seven state icons draw bay states
+ * only; other meanings (priority, severity, idle...) use the shared glyphs the kiosk draws too.
+ */
+const PATHS: Record<OwnGlyph, ReactNode> = {
   'bay-empty': <rect x="4" y="4" width="16" height="16" rx="2" strokeDasharray="3.2 2.4" />,
   car: (
     <>
@@ -53,12 +57,6 @@ const PATHS: Record<GlyphName, ReactNode> = {
       <path d="M16 10h1.8a2.6 2.6 0 0 1 0 5.2H16" />
     </>
   ),
-  person: (
-    <>
-      <circle cx="12" cy="8" r="4" />
-      <path d="M4.5 21a7.5 7.5 0 0 1 15 0" />
-    </>
-  ),
   queue: <path d="M4 6h16M4 12h16M4 18h10" />,
   live: <circle cx="12" cy="12" r="6" fill="currentColor" stroke="none" />,
 };
@@ -85,7 +83,9 @@ export function Glyph({ name, className, title }: GlyphProps) {
       aria-label={title}
       focusable="false"
     >
-      {PATHS[name]}
+      {name in MEANING_ICON_PATHS
+        ? MEANING_ICON_PATHS[name as MeaningIcon].map((d) => <path key={d} d={d} />)
+        : PATHS[name as OwnGlyph]}
     </svg>
   );
 }

@@ -1,27 +1,9 @@
-import { createDarkTheme, type BrandVariants, type Theme } from '@fluentui/react-components';
+import { createDarkTheme, type Theme } from '@fluentui/react-components';
+import { BRAND_RAMP } from '@baytime/shared';
 
-/** Baytime's own brand ramp: a steel cyan, darkest to lightest. */
-const baytimeBrand: BrandVariants = {
-  10: '#03090b',
-  20: '#0a1a1f',
-  30: '#0e2730',
-  40: '#11343f',
-  50: '#14414f',
-  60: '#174f60',
-  70: '#1a5d71',
-  80: '#1e6c83',
-  90: '#2a7b93',
-  100: '#3b8ba3',
-  110: '#4f9cb3',
-  120: '#4fb0c6',
-  130: '#79c2d3',
-  140: '#98d1de',
-  150: '#b8e0e9',
-  160: '#d9eff4',
-};
+const base = createDarkTheme(BRAND_RAMP);
 
-const base = createDarkTheme(baytimeBrand);
-
+/** Fluent on the kiosk: Baytime's one brand ramp on the kiosk's dark surfaces. */
 export const kioskTheme: Theme = {
   ...base,
   fontFamilyBase: "'Barlow', system-ui, sans-serif",
@@ -31,6 +13,6 @@ export const kioskTheme: Theme = {
   colorNeutralForeground1: '#edf2f6',
   colorNeutralForeground2: '#a6b4c0',
   colorNeutralStroke1: '#4a5d70',
-  colorBrandForeground1: baytimeBrand[130],
-  colorBrandForegroundLink: baytimeBrand[130],
+  colorBrandForeground1: BRAND_RAMP[130],
+  colorBrandForegroundLink: BRAND_RAMP[130],
 };

@@ -1,4 +1,5 @@
 import type { SVGProps } from 'react';
+import { MEANING_ICON_PATHS, type MeaningIcon } from '@baytime/shared';
 
 /** Baytime's own line icons: 24-unit grid, 2-unit strokes, drawn to read at arm's length. */
 function Icon({ children, ...props }: SVGProps<SVGSVGElement>) {
@@ -46,6 +47,13 @@ export const CheckIcon = (p: P) => (
 export const WrenchIcon = (p: P) => (
   <Icon {...p}>
     <path d="M14.5 4.5a4.5 4.5 0 0 0-4.2 6.1L4.5 16.4a1.9 1.9 0 0 0 2.7 2.7l5.8-5.8a4.5 4.5 0 0 0 6.1-4.2l-2.7 2.2-2.6-.5-.5-2.6z" />
+  </Icon>
+);
+/** The "My day" tab: a sun, so the wrench stays the Working state's. */
+export const DayIcon = (p: P) => (
+  <Icon {...p}>
+    <circle cx="12" cy="12" r="4" />
+    <path d="M12 2.5v2.2M12 19.3v2.2M2.5 12h2.2M19.3 12h2.2M5.3 5.3l1.5 1.5M17.2 17.2l1.5 1.5M5.3 18.7l1.5-1.5M17.2 6.8l1.5-1.5" />
   </Icon>
 );
 export const QueueIcon = (p: P) => (
@@ -98,11 +106,6 @@ export const AlertIcon = (p: P) => (
   <Icon {...p}>
     <path d="M12 3.5l9.5 16.5h-19z" />
     <path d="M12 10v4.5M12 17.2v.1" strokeWidth={2.6} />
-  </Icon>
-);
-export const FlagIcon = (p: P) => (
-  <Icon {...p}>
-    <path d="M6 21V4M6 4.5h11l-2.5 4 2.5 4H6" />
   </Icon>
 );
 export const BellIcon = (p: P) => (
@@ -160,15 +163,15 @@ export const ArrowLeftIcon = (p: P) => (
     <path d="M20 12H5M10.5 6.5L5 12l5.5 5.5" strokeWidth={2.6} />
   </Icon>
 );
-export const ShieldIcon = (p: P) => (
+
+/**
+ * A glyph drawn once in `shared` for a meaning that is not a bay state (priority, a finding's
+ * severity, the final check, idle), so the kiosk and the office draw the same one.
+ */
+export const MeaningGlyph = ({ name, ...p }: P & { name: MeaningIcon }) => (
   <Icon {...p}>
-    <path d="M12 3l7.5 3v5.5c0 4.5-3.2 8-7.5 9.5-4.3-1.5-7.5-5-7.5-9.5V6z" />
-    <path d="M12 8.5v4.5M12 16v.1" strokeWidth={2.6} />
-  </Icon>
-);
-export const EyeIcon = (p: P) => (
-  <Icon {...p}>
-    <path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z" />
-    <circle cx="12" cy="12" r="3" />
+    {MEANING_ICON_PATHS[name].map((d) => (
+      <path key={d} d={d} />
+    ))}
   </Icon>
 );

@@ -23,8 +23,8 @@ export interface BayStateLook {
   icon: BayStateIcon;
 }
 
-/** Dark ink used on every light state fill. */
-const INK = '#0B0D10';
+/** Dark ink used on every light state fill, and on the light signal fills. */
+export const INK = '#0B0D10';
 
 /**
  * Hues taken from the Okabe–Ito set (safe for the common colour-vision deficiencies), some lightened

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { NavLink, Outlet, useNavigation } from 'react-router';
 import { paths } from '@/config/paths';
 import { AppHeader } from '@/components/app-header';
-import { CalendarIcon, WrenchIcon } from '@/components/icons';
+import { CalendarIcon, DayIcon } from '@/components/icons';
 import { useSession, session } from '@/lib/session';
 import { rememberedShop, useShop } from '@/features/shop/api/get-shop';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
@@ -32,7 +32,7 @@ export function RootLayout() {
           current && (
             <nav className="bt-header__nav" aria-label="Kiosk pages">
               <NavLink to={paths.myDay.getHref()} className="bt-header__tab">
-                <WrenchIcon /> My day
+                <DayIcon /> My day
               </NavLink>
               <NavLink to={paths.myWeek.getHref()} className="bt-header__tab">
                 <CalendarIcon /> My week

@@ -9,10 +9,10 @@ import { useOffice } from './office-context';
 
 export { PageError as ErrorBoundary } from './page-error';
 
-const LINK_BADGES: Record<LiveLink, { text: string; color: 'success' | 'informative' | 'warning' }> = {
-  live: { text: 'Live', color: 'success' },
+const LINK_BADGES: Record<LiveLink, { text: string; color: 'brand' | 'informative' | 'danger' }> = {
+  live: { text: 'Live', color: 'brand' },
   connecting: { text: 'Connecting…', color: 'informative' },
-  down: { text: 'Link lost: reconnecting', color: 'warning' },
+  down: { text: 'Link lost: reconnecting', color: 'danger' },
 };
 
 export function Component() {

@@ -2,6 +2,8 @@ import '@fontsource/barlow/400.css';
 import '@fontsource/barlow/500.css';
 import '@fontsource/barlow/600.css';
 import '@fontsource/barlow/700.css';
+import '@fontsource/barlow-semi-condensed/600.css';
+import '@fontsource/barlow-semi-condensed/700.css';
 import { useSyncExternalStore, type ReactNode } from 'react';
 import { Outlet, isRouteErrorResponse, useRouteError } from 'react-router';
 import {

@@ -1,9 +1,9 @@
 import { Suspense, useEffect } from 'react';
 import { Navigate, NavLink, Outlet, useLocation, useMatches } from 'react-router';
 import {
-  Badge,
   Button,
   Caption1,
+  FluentProvider,
   Link,
   MessageBar,
   MessageBarBody,
@@ -16,10 +16,11 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import type { AuthUser } from '@baytime/shared';
+import { WALL_BACKGROUND, type AuthUser } from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { navFor, type OfficeRole } from '@/config/office-nav';
 import { BaytimeMark } from '@/components/baytime-mark';
+import { HEADING_FONT, baytimeRailTheme } from '@/lib/theme';
 import { useMe } from '@/features/auth/api/get-me';
 import { isOfficeRole } from '@/features/auth/api/login';
 import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
@@ -39,54 +40,62 @@ const useStyles = makeStyles({
     minHeight: '100vh',
     '@media (max-width: 900px)': { gridTemplateColumns: 'minmax(0, 1fr)' },
   },
-  side: {
-    display: 'flex',
-    flexDirection: 'column',
-    gap: tokens.spacingVerticalL,
-    padding: `${tokens.spacingVerticalL} ${tokens.spacingHorizontalM}`,
-    backgroundColor: tokens.colorNeutralBackground1,
-    ...shorthands.borderRight(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+  // The rail is the wall's dark surface in either scheme, through Fluent's dark theme.
+  rail: {
     position: 'sticky',
     top: 0,
     height: '100vh',
+    backgroundColor: WALL_BACKGROUND,
+    '@media (max-width: 900px)': { position: 'static', height: 'auto' },
+  },
+  side: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalXL,
+    height: '100%',
+    padding: `${tokens.spacingVerticalXL} ${tokens.spacingHorizontalM}`,
     boxSizing: 'border-box',
     overflowY: 'auto',
     '@media (max-width: 900px)': {
-      position: 'static',
       height: 'auto',
       flexDirection: 'row',
       flexWrap: 'wrap',
       alignItems: 'center',
-      ...shorthands.borderRight('0'),
-      ...shorthands.borderBottom(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+      gap: tokens.spacingHorizontalL,
     },
   },
   brand: {
     display: 'flex',
     alignItems: 'center',
     gap: tokens.spacingHorizontalS,
-    paddingLeft: tokens.spacingHorizontalS,
-    fontSize: tokens.fontSizeBase500,
-    fontWeight: tokens.fontWeightBold,
+    paddingLeft: tokens.spacingHorizontalXS,
+    fontFamily: HEADING_FONT,
+    fontSize: '26px',
+    fontWeight: 700,
+    lineHeight: 1,
+    color: tokens.colorNeutralForeground1,
   },
   nav: {
     display: 'flex',
     flexDirection: 'column',
-    gap: tokens.spacingVerticalM,
+    gap: tokens.spacingVerticalL,
     flexGrow: 1,
     '@media (max-width: 900px)': { flexDirection: 'row', flexWrap: 'wrap' },
   },
   group: {
     display: 'flex',
     flexDirection: 'column',
-    gap: tokens.spacingVerticalXXS,
+    gap: '2px',
     '@media (max-width: 900px)': { flexDirection: 'row', flexWrap: 'wrap' },
   },
   groupLabel: {
-    padding: `${tokens.spacingVerticalXS} ${tokens.spacingHorizontalS}`,
+    margin: `0 ${tokens.spacingHorizontalS} ${tokens.spacingVerticalXS}`,
+    paddingTop: tokens.spacingVerticalS,
+    ...shorthands.borderTop(tokens.strokeWidthThin, 'solid', tokens.colorNeutralStroke2),
+    fontFamily: HEADING_FONT,
+    fontSize: '15px',
+    fontWeight: 600,
     color: tokens.colorNeutralForeground3,
-    textTransform: 'uppercase',
-    letterSpacing: '0.06em',
     '@media (max-width: 900px)': { display: 'none' },
   },
   link: {
@@ -94,27 +103,41 @@ const useStyles = makeStyles({
     alignItems: 'center',
     justifyContent: 'space-between',
     gap: tokens.spacingHorizontalS,
-    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalS}`,
-    borderRadius: tokens.borderRadiusMedium,
+    padding: `7px ${tokens.spacingHorizontalM}`,
+    borderRadius: tokens.borderRadiusLarge,
     color: tokens.colorNeutralForeground2,
     textDecorationLine: 'none',
-    fontSize: tokens.fontSizeBase400,
+    fontFamily: HEADING_FONT,
+    fontSize: '19px',
+    fontWeight: 600,
     ':hover': { backgroundColor: tokens.colorNeutralBackground1Hover, color: tokens.colorNeutralForeground1 },
     ':focus-visible': { outline: `2px solid ${tokens.colorStrokeFocus2}`, outlineOffset: '1px' },
   },
+  // The page you are on: a raised tile with a brand bar, like the kiosk's selected line.
   active: {
-    backgroundColor: tokens.colorBrandBackground2,
-    color: tokens.colorBrandForeground2,
-    fontWeight: tokens.fontWeightSemibold,
-    ':hover': { backgroundColor: tokens.colorBrandBackground2Hover, color: tokens.colorBrandForeground2 },
+    backgroundColor: tokens.colorNeutralBackground1,
+    color: tokens.colorNeutralForeground1,
+    boxShadow: `inset 4px 0 0 ${tokens.colorBrandForeground1}`,
+    ':hover': { backgroundColor: tokens.colorNeutralBackground1Hover },
+  },
+  coming: {
+    padding: '0 6px',
+    ...shorthands.border(tokens.strokeWidthThin, 'dashed', tokens.colorNeutralStroke1),
+    borderRadius: tokens.borderRadiusMedium,
+    fontFamily: tokens.fontFamilyBase,
+    fontSize: tokens.fontSizeBase200,
+    fontWeight: tokens.fontWeightRegular,
+    color: tokens.colorNeutralForeground3,
   },
   user: {
     display: 'flex',
     flexDirection: 'column',
     gap: tokens.spacingVerticalXS,
     paddingLeft: tokens.spacingHorizontalS,
+    color: tokens.colorNeutralForeground1,
   },
-  main: { minWidth: 0, padding: `${tokens.spacingVerticalXL} ${tokens.spacingHorizontalXXL}` },
+  role: { color: tokens.colorNeutralForeground3 },
+  main: { minWidth: 0, padding: `${tokens.spacingVerticalXXL} ${tokens.spacingHorizontalXXL}` },
   centre: { display: 'grid', placeItems: 'center', minHeight: '60vh', padding: tokens.spacingHorizontalXL },
   notice: { maxWidth: '36rem', display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
 });
@@ -205,42 +228,40 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
 
   return (
     <div className={styles.frame}>
-      <aside className={styles.side}>
-        <div className={styles.brand}>
-          <BaytimeMark size={28} />
-          Baytime
-        </div>
-        <nav className={styles.nav} aria-label="Office">
-          {groups.map((group, index) => (
-            <div key={group.label ?? index} className={styles.group}>
-              {group.label && <Caption1 className={styles.groupLabel}>{group.label}</Caption1>}
-              {group.entries.map((entry) => (
-                <NavLink
-                  key={entry.path}
-                  to={entry.path}
-                  className={({ isActive }) => mergeClasses(styles.link, isActive && styles.active)}
-                >
-                  {entry.label}
-                  {entry.coming && (
-                    <Badge appearance="outline" color="informative" size="small">
-                      coming
-                    </Badge>
-                  )}
-                </NavLink>
-              ))}
-            </div>
-          ))}
-        </nav>
-        <div className={styles.user}>
-          <Text weight="semibold">{user.name}</Text>
-          <Caption1>{ROLE_LABELS[role]}</Caption1>
-          <div>
-            <Button size="small" onClick={onSignOut}>
-              Sign out
-            </Button>
+      <FluentProvider theme={baytimeRailTheme} className={styles.rail}>
+        <aside className={styles.side}>
+          <div className={styles.brand}>
+            <BaytimeMark size={34} />
+            Baytime
           </div>
-        </div>
-      </aside>
+          <nav className={styles.nav} aria-label="Office">
+            {groups.map((group, index) => (
+              <div key={group.label ?? index} className={styles.group}>
+                {group.label && <Caption1 className={styles.groupLabel}>{group.label}</Caption1>}
+                {group.entries.map((entry) => (
+                  <NavLink
+                    key={entry.path}
+                    to={entry.path}
+                    className={({ isActive }) => mergeClasses(styles.link, isActive && styles.active)}
+                  >
+                    {entry.label}
+                    {entry.coming && <span className={styles.coming}>coming</span>}
+                  </NavLink>
+                ))}
+              </div>
+            ))}
+          </nav>
+          <div className={styles.user}>
+            <Text weight="semibold">{user.name}</Text>
+            <Caption1 className={styles.role}>{ROLE_LABELS[role]}</Caption1>
+            <div>
+              <Button size="small" onClick={onSignOut}>
+                Sign out
+              </Button>
+            </div>
+          </div>
+        </aside>
+      </FluentProvider>
       <main className={styles.main}>
         {permitted ? (
           <Suspense fallback={<Spinner />}>

@@ -159,7 +159,7 @@ function BayRow({
       <TableCell>{editing ? <RenameForm bay={bay} onDone={() => setEditing(false)} /> : bay.name}</TableCell>
       <TableCell>{BAY_KIND_LABELS[bay.kind] ?? bay.kind}</TableCell>
       <TableCell>
-        <Badge appearance="tint" color={bay.active ? 'success' : 'subtle'}>
+        <Badge appearance="tint" color={bay.active ? 'brand' : 'subtle'}>
           {bay.active ? 'On the board' : 'Retired'}
         </Badge>
       </TableCell>

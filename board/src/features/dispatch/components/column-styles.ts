@@ -31,7 +31,7 @@ export const useColumnStyles = makeStyles({
   },
   overWarn: {
     outlineStyle: 'solid',
-    outlineColor: tokens.colorPaletteDarkOrangeBorder2,
-    backgroundColor: tokens.colorPaletteDarkOrangeBackground1,
+    outlineColor: tokens.colorStatusWarningBorder2,
+    backgroundColor: tokens.colorStatusWarningBackground1,
   },
 });

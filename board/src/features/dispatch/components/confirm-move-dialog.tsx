@@ -14,7 +14,7 @@ import { confirmQuestion, type MovePlan } from '../dispatch-model';
 
 const useStyles = makeStyles({
   content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
-  warn: { color: tokens.colorPaletteDarkOrangeForeground1, fontWeight: tokens.fontWeightSemibold },
+  warn: { color: tokens.colorStatusWarningForeground1, fontWeight: tokens.fontWeightSemibold },
   action: { whiteSpace: 'nowrap' },
 });
 

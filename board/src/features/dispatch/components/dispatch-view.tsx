@@ -91,7 +91,7 @@ const useStyles = makeStyles({
     marginTop: tokens.spacingVerticalXS,
     padding: `${tokens.spacingVerticalXS} ${tokens.spacingHorizontalS}`,
     borderRadius: tokens.borderRadiusMedium,
-    backgroundColor: tokens.colorPaletteDarkOrangeBackground3,
+    backgroundColor: tokens.colorStatusWarningBackground3,
     color: tokens.colorNeutralForegroundOnBrand,
     fontWeight: tokens.fontWeightSemibold,
     boxShadow: tokens.shadow8,

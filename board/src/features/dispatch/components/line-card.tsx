@@ -64,7 +64,7 @@ const useStyles = makeStyles({
   tags: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: `2px ${tokens.spacingHorizontalS}` },
   tag: { display: 'inline-flex', alignItems: 'center', gap: '4px', whiteSpace: 'nowrap' },
   glyph: { width: '15px', height: '15px', flexShrink: 0 },
-  warn: { color: tokens.colorPaletteDarkOrangeForeground1, fontWeight: tokens.fontWeightSemibold },
+  warn: { color: tokens.colorStatusWarningForeground1, fontWeight: tokens.fontWeightSemibold },
   dim: { color: tokens.colorNeutralForeground3 },
   facts: {
     display: 'flex',
@@ -86,7 +86,7 @@ const useStyles = makeStyles({
     position: 'absolute',
     top: 0,
     bottom: 0,
-    backgroundImage: 'repeating-linear-gradient(-45deg, #C4511A 0 4px, #0B0D10 4px 8px)',
+    backgroundImage: `repeating-linear-gradient(-45deg, ${tokens.colorStatusWarningBackground3} 0 4px, transparent 4px 8px)`,
   },
   overText: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
   lateText: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
@@ -113,7 +113,6 @@ export interface LineCardProps {
 function accentFor(line: DispatchLine): string | undefined {
   if (line.status === 'held') return BAY_PALETTE.held.colour;
   if (line.clockedOn.length > 0) return BAY_PALETTE.working.colour;
-  if (line.status === 'working') return BAY_PALETTE.staged.colour;
   return undefined;
 }
 
@@ -199,7 +198,8 @@ export function LineCard({
         {line.priority !== 'normal' && (
           <Badge
             appearance={line.priority === 'urgent' ? 'filled' : 'tint'}
-            color={line.priority === 'urgent' ? 'danger' : line.priority === 'high' ? 'warning' : 'subtle'}
+            color={line.priority === 'low' ? 'subtle' : 'danger'}
+            icon={line.priority === 'low' ? undefined : <Glyph name="priority" className={styles.glyph} />}
           >
             {PRIORITY_LABELS[line.priority]}
           </Badge>

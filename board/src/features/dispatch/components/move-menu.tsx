@@ -20,8 +20,8 @@ import { skillWarning, type MoveTarget } from '../dispatch-model';
 import { PRIORITY_LABELS, TECH_STATUS_LABELS } from '../dispatch-words';
 
 const useStyles = makeStyles({
-  caution: { width: '16px', height: '16px', color: tokens.colorPaletteDarkOrangeForeground1 },
-  warn: { color: tokens.colorPaletteDarkOrangeForeground1 },
+  caution: { width: '16px', height: '16px', color: tokens.colorStatusWarningForeground1 },
+  warn: { color: tokens.colorStatusWarningForeground1 },
 });
 
 const MoveButton = forwardRef<HTMLButtonElement, MenuButtonProps>(function MoveButton(props, ref) {

@@ -1,5 +1,13 @@
 import { useDroppable } from '@dnd-kit/core';
-import { Badge, Caption1, Text, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
+import {
+  Badge,
+  Caption1,
+  Text,
+  makeStyles,
+  mergeClasses,
+  shorthands,
+  tokens,
+} from '@fluentui/react-components';
 import type { DispatchBoard, DispatchLane, DispatchLine } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { dropId, laneLoad, skillWarning, type MoveTarget } from '../dispatch-model';
@@ -9,10 +17,10 @@ import { useColumnStyles } from './column-styles';
 
 const STATUS: Record<
   DispatchLane['technician']['status'],
-  { label: string; color: 'brand' | 'warning' | 'informative' | 'subtle'; appearance: 'tint' | 'filled' }
+  { label: string; color: 'brand' | 'important' | 'informative' | 'subtle'; appearance: 'tint' | 'outline' }
 > = {
   'on-job': { label: 'On a job', color: 'brand', appearance: 'tint' },
-  idle: { label: 'Idle', color: 'warning', appearance: 'filled' },
+  idle: { label: 'Idle', color: 'important', appearance: 'outline' },
   'on-break': { label: 'On break', color: 'informative', appearance: 'tint' },
   off: { label: 'Off shift', color: 'subtle', appearance: 'tint' },
 };
@@ -26,10 +34,12 @@ const useStyles = makeStyles({
     display: 'flex',
     alignItems: 'center',
     gap: '4px',
-    color: tokens.colorPaletteDarkOrangeForeground1,
+    color: tokens.colorStatusWarningForeground1,
     fontWeight: tokens.fontWeightSemibold,
   },
   glyph: { width: '16px', height: '16px', flexShrink: 0 },
+  // Idle is told by a dashed outline and its own glyph, in no bay state's colour.
+  idle: { ...shorthands.borderStyle('dashed'), ...shorthands.borderWidth(tokens.strokeWidthThick) },
   empty: { color: tokens.colorNeutralForeground3, padding: `${tokens.spacingVerticalS} 0` },
 });
 
@@ -87,7 +97,12 @@ export function TechLane({
           <Text id={headingId} as="h2" className={styles.name} truncate wrap={false}>
             {technician.name}
           </Text>
-          <Badge appearance={status.appearance} color={status.color}>
+          <Badge
+            appearance={status.appearance}
+            color={status.color}
+            className={technician.status === 'idle' ? styles.idle : undefined}
+            icon={technician.status === 'idle' ? <Glyph name="idle" className={styles.glyph} /> : undefined}
+          >
             {status.label}
           </Badge>
         </div>

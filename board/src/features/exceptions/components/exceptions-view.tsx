@@ -160,11 +160,11 @@ export function ExceptionsView({ week }: { week: string }) {
                 <TableCell className={styles.what}>
                   <Text weight="semibold">{EXCEPTION_TITLES[exception.kind]}</Text>{' '}
                   {exception.resolution ? (
-                    <Badge appearance="tint" color="success" size="small">
+                    <Badge appearance="tint" color="brand" size="small">
                       Resolved
                     </Badge>
                   ) : (
-                    <Badge appearance="tint" color="warning" size="small">
+                    <Badge appearance="tint" color="danger" size="small">
                       To resolve
                     </Badge>
                   )}

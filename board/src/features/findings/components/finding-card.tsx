@@ -9,18 +9,21 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import { FINDING_SEVERITY_WORDS, formatCents, type FindingDto, type FindingSeverity } from '@baytime/shared';
-import { Glyph, type GlyphName } from '@/components/glyph';
+import {
+  FINDING_SEVERITY_ICONS,
+  FINDING_SEVERITY_WORDS,
+  formatCents,
+  type FindingDto,
+  type FindingSeverity,
+} from '@baytime/shared';
+import { Glyph } from '@/components/glyph';
 import { severityHeadline, waitedText } from '../findings-model';
 import { FindingPhotos } from './finding-photos';
 
-const SEVERITY_LOOK: Record<
-  FindingSeverity,
-  { colour: 'danger' | 'warning' | 'informative'; glyph: GlyphName }
-> = {
-  'safety-now': { colour: 'danger', glyph: 'caution' },
-  soon: { colour: 'warning', glyph: 'flag' },
-  watch: { colour: 'informative', glyph: 'magnifier' },
+const SEVERITY_COLOUR: Record<FindingSeverity, 'danger' | 'important' | 'informative'> = {
+  'safety-now': 'danger',
+  soon: 'important',
+  watch: 'informative',
 };
 
 const useStyles = makeStyles({
@@ -97,13 +100,12 @@ function QuoteSummary({ finding }: { finding: FindingDto }) {
 
 export function SeverityBadge({ severity }: { severity: FindingSeverity }) {
   const styles = useStyles();
-  const look = SEVERITY_LOOK[severity];
   return (
     <Badge
       appearance={severity === 'safety-now' ? 'filled' : 'tint'}
-      color={look.colour}
+      color={SEVERITY_COLOUR[severity]}
       size="large"
-      icon={<Glyph name={look.glyph} className={styles.badgeGlyph} />}
+      icon={<Glyph name={FINDING_SEVERITY_ICONS[severity]} className={styles.badgeGlyph} />}
     >
       {severityHeadline(severity)}
     </Badge>

@@ -125,7 +125,7 @@ function AnsweredGroupCard({
         <div key={finding.id} className={styles.answered}>
           <div className={styles.answeredText}>
             <div className={styles.answeredHead}>
-              <Badge appearance="filled" color={finding.answer === 'approved' ? 'success' : 'informative'}>
+              <Badge appearance="filled" color={finding.answer === 'approved' ? 'brand' : 'informative'}>
                 {finding.answer === 'approved' ? 'Approved' : 'Declined'}
               </Badge>
               <SeverityBadge severity={finding.severity} />

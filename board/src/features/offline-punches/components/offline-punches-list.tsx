@@ -32,10 +32,10 @@ const useStyles = makeStyles({
   actions: { display: 'flex', gap: tokens.spacingHorizontalS, justifyContent: 'flex-end' },
 });
 
-const STATUS_BADGE: Record<OfflinePunchStatus, 'warning' | 'danger' | 'success' | 'subtle'> = {
-  unverified: 'warning',
+const STATUS_BADGE: Record<OfflinePunchStatus, 'important' | 'danger' | 'brand' | 'subtle'> = {
+  unverified: 'important',
   refused: 'danger',
-  confirmed: 'success',
+  confirmed: 'brand',
   rejected: 'subtle',
 };
 

@@ -25,15 +25,15 @@ const useStyles = makeStyles({
   photos: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
 });
 
-const SEVERITY: Record<FindingSeverity, { label: string; color: 'danger' | 'warning' | 'informative' }> = {
+const SEVERITY: Record<FindingSeverity, { label: string; color: 'danger' | 'important' | 'informative' }> = {
   'safety-now': { label: 'Safety: fix now', color: 'danger' },
-  soon: { label: 'Fix soon', color: 'warning' },
+  soon: { label: 'Fix soon', color: 'important' },
   watch: { label: 'Watch', color: 'informative' },
 };
 
-const ANSWER: Record<FindingAnswer, { label: string; color: 'warning' | 'success' | 'subtle' }> = {
-  pending: { label: 'Waiting for the customer', color: 'warning' },
-  approved: { label: 'Approved', color: 'success' },
+const ANSWER: Record<FindingAnswer, { label: string; color: 'informative' | 'brand' | 'subtle' }> = {
+  pending: { label: 'Waiting for the customer', color: 'informative' },
+  approved: { label: 'Approved', color: 'brand' },
   declined: { label: 'Declined', color: 'subtle' },
 };
 

@@ -81,7 +81,7 @@ const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
   numeric: { fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
   over: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
-  under: { color: tokens.colorPaletteGreenForeground1 },
+  under: { color: tokens.colorStatusSuccessForeground1 },
   lineTitle: { fontWeight: tokens.fontWeightSemibold },
   status: { display: 'flex', flexDirection: 'column', alignItems: 'flex-start', gap: '2px' },
   cell: { display: 'inline-flex', alignItems: 'center', gap: '4px', whiteSpace: 'nowrap' },
@@ -122,15 +122,15 @@ type LineDialog =
 
 const STATUS = {
   open: { label: 'Open', color: 'brand' },
-  done: { label: 'Work done', color: 'success' },
+  done: { label: 'Work done', color: 'informative' },
   closed: { label: 'Closed', color: 'subtle' },
 } as const;
 
 const LINE_STATUS_COLOURS = {
   queued: 'informative',
   working: 'brand',
-  held: 'warning',
-  done: 'success',
+  held: 'important',
+  done: 'subtle',
   cancelled: 'subtle',
 } as const;
 

@@ -75,7 +75,7 @@ const useStyles = makeStyles({
   scroll: { overflowX: 'auto' },
 });
 
-const STATUS_COLOURS = { open: 'brand', done: 'success', closed: 'subtle' } as const;
+const STATUS_COLOURS = { open: 'brand', done: 'informative', closed: 'subtle' } as const;
 const STATUS_LABELS = { open: 'Open', done: 'Work done', closed: 'Closed' } as const;
 const TAB_ORDER: readonly StatusFilter[] = ['open', 'done', 'closed', 'all'];
 const FILTER_LABELS: Record<StatusFilter, string> = {

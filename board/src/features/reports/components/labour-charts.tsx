@@ -32,9 +32,9 @@ const SCREEN_HEIGHT = { small: 230, trend: 260 };
 
 /** Distinct line styles as well as colours, so the trend reads in greyscale and for colour-blind eyes. */
 const TREND_LOOK: Record<KpiName, { stroke: string; dash?: string }> = {
-  productivity: { stroke: tokens.colorPaletteBlueForeground2 },
-  efficiency: { stroke: tokens.colorPaletteDarkOrangeForeground2, dash: '7 4' },
-  proficiency: { stroke: tokens.colorPaletteGreenForeground2, dash: '2 3' },
+  productivity: { stroke: tokens.colorBrandForeground1 },
+  efficiency: { stroke: tokens.colorNeutralForeground1, dash: '7 4' },
+  proficiency: { stroke: tokens.colorNeutralForeground3, dash: '2 3' },
 };
 
 const useStyles = makeStyles({

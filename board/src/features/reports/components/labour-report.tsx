@@ -50,7 +50,7 @@ const useStyles = makeStyles({
   numButton: { justifyContent: 'flex-end', textAlign: 'right' },
   num: { textAlign: 'right', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
   nameCell: { minWidth: '12rem' },
-  below: { color: tokens.colorPaletteDarkOrangeForeground1, fontWeight: tokens.fontWeightSemibold },
+  below: { color: tokens.colorStatusWarningForeground1, fontWeight: tokens.fontWeightSemibold },
   shopRow: {
     fontWeight: tokens.fontWeightSemibold,
     ...shorthands.borderTop(tokens.strokeWidthThick, 'solid', tokens.colorNeutralStroke1),

@@ -59,7 +59,7 @@ const useStyles = makeStyles({
     '@media print': { boxShadow: 'inset 4px 0 0 #000' },
   },
   near: {
-    boxShadow: `inset 4px 0 0 ${tokens.colorPaletteMarigoldBorder2}`,
+    boxShadow: `inset 4px 0 0 ${tokens.colorStatusWarningBorder2}`,
     '@media print': { boxShadow: 'inset 4px 0 0 #000' },
   },
   total: {
@@ -78,9 +78,10 @@ const useStyles = makeStyles({
   definition: { margin: 0, color: tokens.colorNeutralForeground2 },
 });
 
-const BADGE_COLOUR: Record<PayNoteTone, 'danger' | 'warning' | 'informative'> = {
+// Fluent's warning badge is a bay-state yellow: a pay warning is the strong neutral.
+const BADGE_COLOUR: Record<PayNoteTone, 'danger' | 'important' | 'informative'> = {
   danger: 'danger',
-  warning: 'warning',
+  warning: 'important',
   informative: 'informative',
 };
 

@@ -22,7 +22,7 @@ const useStyles = makeStyles({
     '@media print': { fontSize: '18pt', lineHeight: '1.2' },
   },
   note: { color: tokens.colorNeutralForeground3 },
-  alert: { color: tokens.colorPaletteDarkOrangeForeground1, fontWeight: tokens.fontWeightSemibold },
+  alert: { color: tokens.colorStatusWarningForeground1, fontWeight: tokens.fontWeightSemibold },
   section: {
     padding: tokens.spacingHorizontalXL,
     gap: tokens.spacingVerticalM,

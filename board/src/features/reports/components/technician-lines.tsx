@@ -18,7 +18,7 @@ const useStyles = makeStyles({
   num: { textAlign: 'right', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
   ro: { whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums', fontWeight: tokens.fontWeightSemibold },
   over: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
-  under: { color: tokens.colorPaletteGreenForeground1 },
+  under: { color: tokens.colorStatusSuccessForeground1 },
   open: { color: tokens.colorNeutralForeground3 },
   total: { fontWeight: tokens.fontWeightSemibold },
 });

@@ -216,8 +216,8 @@ function queueText(queue: WallScreenDto['queue']): string {
   return `${queue.waiting}${since} (${said})`;
 }
 
-const STATUS_BADGE: Record<ScreenStatus, 'success' | 'informative' | 'subtle' | 'danger'> = {
-  paired: 'success',
+const STATUS_BADGE: Record<ScreenStatus, 'brand' | 'informative' | 'subtle' | 'danger'> = {
+  paired: 'brand',
   waiting: 'informative',
   expired: 'subtle',
   revoked: 'danger',

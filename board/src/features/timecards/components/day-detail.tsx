@@ -56,7 +56,7 @@ const useStyles = makeStyles({
   note: { display: 'block', color: tokens.colorNeutralForeground2 },
   warn: {
     display: 'block',
-    color: tokens.colorPaletteDarkOrangeForeground1,
+    color: tokens.colorStatusWarningForeground1,
     fontWeight: tokens.fontWeightSemibold,
   },
   actions: { width: '7rem', textAlign: 'right' },

@@ -93,7 +93,7 @@ const useStyles = makeStyles({
   open: {
     borderRightStyle: 'dashed',
     borderRightWidth: '3px',
-    borderRightColor: tokens.colorPaletteMarigoldBorderActive,
+    borderRightColor: tokens.colorStatusWarningBorderActive,
   },
   legend: {
     display: 'flex',

@@ -67,13 +67,13 @@ export function WeekReview({ card }: { card: Timecard }) {
               <li key={held.id}>
                 {PUNCH_WORDS[held.kind]} at {formatDayClock(held.at, card.timeZone)}:{' '}
                 {held.review === 'pending' ? (
-                  <Badge appearance="tint" color="warning" size="small">
+                  <Badge appearance="tint" color="danger" size="small">
                     not counted until the foreman decides
                   </Badge>
                 ) : (
                   <Badge
                     appearance="tint"
-                    color={held.review === 'accepted' ? 'success' : 'subtle'}
+                    color={held.review === 'accepted' ? 'brand' : 'subtle'}
                     size="small"
                   >
                     {held.review}

@@ -136,7 +136,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                     )}
                   </TableCell>
                   <TableCell>
-                    <Badge appearance="tint" color={user.active ? 'success' : 'subtle'}>
+                    <Badge appearance="tint" color={user.active ? 'brand' : 'subtle'}>
                       {user.active ? 'Active' : 'Inactive'}
                     </Badge>
                   </TableCell>

@@ -70,7 +70,7 @@ const useStyles = makeStyles({
     position: 'absolute',
     top: 0,
     bottom: 0,
-    backgroundImage: 'repeating-linear-gradient(-45deg, #C4511A 0 4px, #0B0D10 4px 8px)',
+    backgroundImage: `repeating-linear-gradient(-45deg, ${tokens.colorStatusWarningBackground3} 0 4px, transparent 4px 8px)`,
   },
   book: {
     position: 'absolute',
@@ -114,11 +114,11 @@ export function FloorLinkStatus({
   return (
     <span className={styles.status} role="status">
       {link === 'live' ? (
-        <Badge appearance="tint" color="success">
+        <Badge appearance="tint" color="brand">
           Live
         </Badge>
       ) : lost ? (
-        <Badge appearance="filled" color="warning">
+        <Badge appearance="filled" color="danger">
           Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
         </Badge>
       ) : (
@@ -216,7 +216,12 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
 }
 
 const STATUS_LABELS = { 'on-job': 'On a job', idle: 'Idle', 'on-break': 'On break' } as const;
-const PRIORITY_COLOURS = { urgent: 'danger', high: 'warning', normal: 'informative', low: 'subtle' } as const;
+const PRIORITY_COLOURS = {
+  urgent: 'danger',
+  high: 'important',
+  normal: 'informative',
+  low: 'subtle',
+} as const;
 
 /** The live floor at office size: bay cards, then who is where and what waits. */
 export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
@@ -258,10 +263,10 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                     <TableCell>{person.name}</TableCell>
                     <TableCell>
                       <Badge
-                        appearance={person.status === 'idle' ? 'filled' : 'tint'}
+                        appearance={person.status === 'idle' ? 'outline' : 'tint'}
                         color={
                           person.status === 'idle'
-                            ? 'warning'
+                            ? 'important'
                             : person.status === 'on-job'
                               ? 'brand'
                               : 'informative'

@@ -12,7 +12,7 @@ export interface PeopleStripProps {
 }
 
 const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
-  idle: 'person',
+  idle: 'idle',
   'on-break': 'cup',
   'on-job': 'wrench',
 };

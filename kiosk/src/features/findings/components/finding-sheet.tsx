@@ -1,6 +1,6 @@
 import { useEffect, useId, useRef, useState } from 'react';
-import { MAX_FINDING_PHOTOS, type FindingSeverity } from '@baytime/shared';
-import { CameraIcon, CheckIcon, CloseIcon, EyeIcon, FlagIcon, ShieldIcon } from '@/components/icons';
+import { FINDING_SEVERITY_ICONS, MAX_FINDING_PHOTOS, type FindingSeverity } from '@baytime/shared';
+import { CameraIcon, CheckIcon, CloseIcon, MeaningGlyph } from '@/components/icons';
 import { Sheet } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
 import { holdIdle } from '@/lib/idle-hold';
@@ -9,10 +9,10 @@ import { checkDraft, checkNewPhotos, parseHours, type DraftProblems } from '../f
 import { useCreateFinding } from '../api/create-finding';
 import './findings.css';
 
-const SEVERITIES: readonly { value: FindingSeverity; words: string; Icon: typeof ShieldIcon }[] = [
-  { value: 'safety-now', words: 'Safety — fix now', Icon: ShieldIcon },
-  { value: 'soon', words: 'Needs attention soon', Icon: FlagIcon },
-  { value: 'watch', words: 'Keep an eye on it', Icon: EyeIcon },
+const SEVERITIES: readonly { value: FindingSeverity; words: string }[] = [
+  { value: 'safety-now', words: 'Safety — fix now' },
+  { value: 'soon', words: 'Needs attention soon' },
+  { value: 'watch', words: 'Keep an eye on it' },
 ];
 
 /** A camera trip takes the tablet away from the page: the sign-out waits longer meanwhile. */
@@ -155,7 +155,7 @@ export function FindingSheet({ jobLineId, context, onClose, onSent }: FindingShe
             role="radiogroup"
             aria-labelledby={`${noteId}-severity`}
           >
-            {SEVERITIES.map(({ value, words, Icon }) => (
+            {SEVERITIES.map(({ value, words }) => (
               <button
                 key={value}
                 type="button"
@@ -168,7 +168,7 @@ export function FindingSheet({ jobLineId, context, onClose, onSent }: FindingShe
                   setProblems((p) => ({ ...p, severity: undefined }));
                 }}
               >
-                <Icon /> {words}
+                <MeaningGlyph name={FINDING_SEVERITY_ICONS[value]} /> {words}
               </button>
             ))}
           </div>

@@ -1,6 +1,6 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { finishLineSchema, type FinishLineBody } from '@baytime/shared';
-import { CheckIcon, FlagIcon } from '@/components/icons';
+import { CheckIcon, MeaningGlyph } from '@/components/icons';
 import { Sheet, SheetProblem } from '@/components/sheet';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { useFinishLine } from '../api/finish-line';
@@ -8,18 +8,18 @@ import type { DayLine } from '../project-day';
 
 type Next = FinishLineBody['next'];
 
-const CHOICES: readonly { next: Next; words: string; hint: string; Icon: typeof CheckIcon }[] = [
+const CHOICES: readonly { next: Next; words: string; hint: string; icon: ReactNode }[] = [
   {
     next: 'check',
     words: 'Final check next',
     hint: 'A road test or a last look before the vehicle leaves',
-    Icon: FlagIcon,
+    icon: <MeaningGlyph name="final-check-next" />,
   },
   {
     next: 'ready',
     words: 'Ready to go',
     hint: 'Nothing left to do: the vehicle can move out',
-    Icon: CheckIcon,
+    icon: <CheckIcon />,
   },
 ];
 
@@ -80,7 +80,7 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
           {line.bayName ? ` ${line.bayName} changes only when this is its last open line.` : ''}
         </p>
         <ul className="bt-choices">
-          {CHOICES.map(({ next, words, hint, Icon }) => (
+          {CHOICES.map(({ next, words, hint, icon }) => (
             <li key={next}>
               <button
                 type="button"
@@ -88,7 +88,7 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
                 disabled={finish.isPending}
                 onClick={() => void send(next)}
               >
-                <Icon />
+                {icon}
                 <span className="bt-choice__words">
                   <strong>{words}</strong>
                   <small>{finish.isPending && chosen === next ? 'Sending…' : hint}</small>

@@ -1,5 +1,5 @@
 import type { MyFinalCheck } from '@baytime/shared';
-import { FlagIcon } from '@/components/icons';
+import { MeaningGlyph } from '@/components/icons';
 import { commandProblem } from '@/lib/commands';
 import { useRecordFinalCheck } from '../api/record-final-check';
 
@@ -20,7 +20,7 @@ export function FinalChecks({ checks }: { checks: readonly MyFinalCheck[] }) {
           disabled={record.isPending}
           onClick={() => record.mutate(check.bayId)}
         >
-          <FlagIcon />
+          <MeaningGlyph name="final-check-next" />
           <span>
             Final check done: {check.bayName}
             <small>

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import {
   CheckIcon,
-  FlagIcon,
+  MeaningGlyph,
   PauseIcon,
   PlayIcon,
   QueueIcon,
@@ -74,7 +74,7 @@ export function JobLineCard({
           {line.bayName && <span className="bt-line__bay">{line.bayName}</span>}
           {(line.priority === 'urgent' || line.priority === 'high') && (
             <span className={`bt-line__priority bt-line__priority--${line.priority}`}>
-              <FlagIcon /> {line.priority === 'urgent' ? 'Urgent' : 'High'}
+              <MeaningGlyph name="priority" /> {line.priority === 'urgent' ? 'Urgent' : 'High'}
             </span>
           )}
           <span className="bt-line__state">
@@ -128,7 +128,7 @@ export function JobLineCard({
           </button>
         )}
         {action.kind === 'resume' && (
-          <button type="button" className="bt-action bt-action--held" onClick={onResume} disabled={resuming}>
+          <button type="button" className="bt-action bt-action--go" onClick={onResume} disabled={resuming}>
             <PlayIcon /> {resuming ? 'Resuming…' : action.clockOn ? 'Resume and clock on' : 'Resume'}
           </button>
         )}

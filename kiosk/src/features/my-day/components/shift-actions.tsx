@@ -139,10 +139,10 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
           </ul>
         </Sheet>
       )}
-      <button type="button" className="bt-action bt-action--break" onClick={mealBreak}>
+      <button type="button" className="bt-action bt-action--quiet" onClick={mealBreak}>
         <MealIcon /> Start meal break
       </button>
-      <button type="button" className="bt-action bt-action--break" onClick={() => startBreak('rest')}>
+      <button type="button" className="bt-action bt-action--quiet" onClick={() => startBreak('rest')}>
         <CupIcon /> Start rest break
       </button>
       {endShiftButton}

@@ -1,4 +1,4 @@
-import { CupIcon, DoorOutIcon, MealIcon, WrenchIcon, PauseIcon } from '@/components/icons';
+import { CupIcon, DoorOutIcon, MealIcon, MeaningGlyph, WrenchIcon } from '@/components/icons';
 import type { DayView } from '../project-day';
 import type { StatusText } from '../status-text';
 
@@ -6,6 +6,8 @@ export interface StatusLineProps {
   view: DayView;
   text: StatusText;
 }
+
+const IdleIcon = () => <MeaningGlyph name="idle" />;
 
 export function StatusLine({ view, text }: StatusLineProps) {
   const { status, breakKind } = view.shift;
@@ -20,7 +22,7 @@ export function StatusLine({ view, text }: StatusLineProps) {
           : MealIcon
         : working
           ? WrenchIcon
-          : PauseIcon;
+          : IdleIcon;
   return (
     <section className={`bt-status bt-status--${tone}`} aria-live="polite" aria-label="Your status">
       <span className="bt-status__icon" aria-hidden="true">
