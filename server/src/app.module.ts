@@ -16,6 +16,8 @@ import { ApprovalsModule } from './approvals/approvals.module.js';
 import { HealthModule } from './health/health.module.js';
 import { LabourModule } from './labour/labour.module.js';
 import { LiveModule } from './live/live.module.js';
+import { PayWeeksModule } from './pay-weeks/pay-weeks.module.js';
+import { PayrollModule } from './payroll/payroll.module.js';
 import { PayrollExportModule } from './payroll-export/payroll-export.module.js';
 import { PunchesModule } from './punches/punches.module.js';
 import { RepairOrderImportModule } from './repair-order-import/repair-order-import.module.js';
@@ -55,6 +57,7 @@ export class AppModule {
         LiveModule,
         AuthModule,
         ShopModule,
+        PayrollModule,
         LabourModule,
         UsersModule,
         BaysModule,
@@ -67,6 +70,7 @@ export class AppModule {
         VehiclesModule,
         TimecardsModule,
         ReportsModule,
+        PayWeeksModule,
         PayrollExportModule,
         TimersModule,
         DispatchModule,

@@ -37,6 +37,7 @@ export const router = createBrowserRouter([
               office(paths.repairOrderImport, () => import('./routes/office/repair-order-import')),
               office(paths.repairOrderDetail, () => import('./routes/office/repair-order-detail')),
               office(paths.timecards, () => import('./routes/office/timecards')),
+              office(paths.exceptions, () => import('./routes/office/exceptions')),
               office(paths.offlinePunches, () => import('./routes/office/offline-punches')),
               office(paths.reports, () => import('./routes/office/reports')),
               office(paths.findings, () => import('./routes/office/findings')),

@@ -29,6 +29,7 @@ export const OFFICE_NAV: readonly NavGroup[] = [
       { label: 'Repair orders', path: paths.repairOrders, roles: ALL },
       { label: 'Findings', path: paths.findings, roles: ALL },
       { label: 'Timecards', path: paths.timecards, roles: LEADS },
+      { label: 'Exceptions', path: paths.exceptions, roles: LEADS },
       { label: 'Offline punches', path: paths.offlinePunches, roles: LEADS },
       { label: 'Reports', path: paths.reports, roles: LEADS },
     ],

@@ -13,6 +13,7 @@ export const paths = {
   repairOrderDetail: '/repair-orders/:id',
   repairOrder: (id: number | string) => `/repair-orders/${id}`,
   timecards: '/timecards',
+  exceptions: '/exceptions',
   reports: '/reports',
   findings: '/findings',
   offlinePunches: '/offline-punches',

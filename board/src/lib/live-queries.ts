@@ -18,6 +18,7 @@ export const LIVE_QUERIES: { [E in LiveEventName]: (payload: Payload<E>) => read
     queryKeys.dispatch(),
     queryKeys.timecards.ofTechnician(punch.technicianId),
     queryKeys.reports.all(),
+    queryKeys.exceptions.all(),
   ],
   'job-line.updated': ({ jobLine }) => [
     queryKeys.dispatch(),
@@ -47,6 +48,7 @@ export const RECONNECT_QUERIES: readonly QueryKey[] = [
   queryKeys.shop(),
   queryKeys.timecards.all(),
   queryKeys.reports.all(),
+  queryKeys.exceptions.all(),
   queryKeys.repairOrders.all(),
   queryKeys.repairOrder.all(),
   queryKeys.repairOrderHistory.all(),

@@ -56,6 +56,11 @@ export const queryKeys = {
     labour: (week: string) => ['reports', 'labour', week] as const,
     pay: (week: string) => ['reports', 'pay', week] as const,
   },
+  exceptions: {
+    all: () => ['exceptions'] as const,
+    week: (week: string) => ['exceptions', week] as const,
+  },
+  payRules: () => ['shop', 'pay-rules'] as const,
   integrationKeys: () => ['integration-keys'] as const,
   webhooks: () => ['webhooks'] as const,
   webhookDeliveries: {

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { makeVin, shopDayKey, shopLocalInstant, type BreakKind, type PunchKind } from '@baytime/shared';
 import { hashSecret } from '../auth/passwords.js';
 import { openDatabase } from '../db/database.js';
-import { DEFAULT_SHOP } from '../shop/shop.service.js';
+import { DEFAULT_SHOP, FIRST_RULES_FROM } from '../shop/shop.service.js';
 
 /*
  * A busy shop's history for the bench, written straight into SQLite with prepared statements in one
@@ -214,12 +214,17 @@ class ShopWriter {
       units: SHOP.units,
       max_concurrent_jobs: SHOP.maxConcurrentJobs,
       concurrent_split: SHOP.concurrentSplit,
-      minimum_wage_cents: SHOP.minimumWageCents,
-      overtime_rules: SHOP.overtimeRules,
       opening_hours: JSON.stringify(SHOP.openingHours),
       kiosk_idle_seconds: SHOP.kioskIdleSeconds,
-      pay_non_productive_separately: SHOP.payNonProductiveSeparately ? 1 : 0,
       updated_at: at,
+    });
+    this.row('pay_rules', {
+      effective_from: FIRST_RULES_FROM,
+      overtime_rules: SHOP.overtimeRules,
+      minimum_wage_cents: SHOP.minimumWageCents,
+      local_minimum_wage_cents: SHOP.localMinimumWageCents,
+      pay_non_productive_separately: SHOP.payNonProductiveSeparately ? 1 : 0,
+      recorded_at: at,
     });
     this.ownerId = this.office('Marguerite Oakhurst', 'owner', 'owner@ridgeway-hollow.test');
     this.office('Tobin Farrant', 'foreman', 'foreman@ridgeway-hollow.test');
@@ -234,9 +239,17 @@ class ShopWriter {
         badge: String(2001 + t),
         pin_hash: secrets.pinHash,
         skill_level: skill,
+        created_at: at - 4 * 365 * DAY,
+      });
+      this.row('pay_rates', {
+        user_id: id,
+        effective_from: FIRST_RULES_FROM,
+        pay_type: 'flat-rate',
         flat_rate_cents: 1800 + skill * 400,
         hourly_rate_cents: 1400 + skill * 150,
-        created_at: at - 4 * 365 * DAY,
+        guarantee_cents: 0,
+        overtime_exempt: 0,
+        recorded_at: at,
       });
       this.pace.set(id, 0.8 + skill * 0.1 + this.between(-0.05, 0.05));
       return id;

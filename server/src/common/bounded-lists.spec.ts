@@ -30,6 +30,7 @@ const ACCEPTED_LISTS: Record<string, string> = {
   '/api/webhooks': 'the endpoints the owner registered, one per system the shop connects',
   '/api/kiosks': 'the kiosk tablets the shop paired',
   '/api/timers': 'running timers only: at most one per line in work, a stopped one drops out',
+  '/api/shop/pay-rules': 'the shop’s pay rules: one per change of the rules the owner made',
 };
 
 /** Answers that are one thing, or a view bounded by the floor or by one week, not a list of records. */
@@ -47,6 +48,7 @@ const NOT_LISTS: Record<string, string> = {
   '/api/timecards': 'one technician’s workweek',
   '/api/reports/labour': 'one workweek, a row per technician',
   '/api/reports/pay': 'one workweek, a row per technician',
+  '/api/exceptions': 'one workweek’s timecard exceptions',
 };
 
 /** Routes that answer only while the bench runs the server, with the reason. */

@@ -34,7 +34,6 @@ const ENUM_COLUMNS: [table: string, column: string][] = [
   ['mail_outbox', 'status'],
   ['shop_settings', 'units'],
   ['shop_settings', 'concurrent_split'],
-  ['shop_settings', 'overtime_rules'],
   ['webhook_deliveries', 'event'],
   ['webhook_deliveries', 'status'],
 ];

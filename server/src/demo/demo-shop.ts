@@ -17,6 +17,7 @@ import {
   holdPresets,
   jobLines,
   operations,
+  payRates,
   partsHolds,
   punches,
   repairOrders,
@@ -26,7 +27,7 @@ import {
   vehicles,
   type BAY_PHASES,
 } from '../db/schema/index.js';
-import { DEFAULT_SHOP } from '../shop/shop.service.js';
+import { DEFAULT_SHOP, FIRST_RULES_FROM } from '../shop/shop.service.js';
 import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
 
 /** Every name, vehicle and number here is invented for the demo. */
@@ -235,14 +236,27 @@ export class DemoShopSeeder {
             .returning()
             .get().id,
       );
-      const techIds = TECHNICIANS.map(
-        ({ pace: _pace, ...tech }) =>
-          this.db
-            .insert(users)
-            .values({ ...tech, role: 'technician', pinHash, createdAt })
-            .returning()
-            .get().id,
-      );
+      const techIds = TECHNICIANS.map(({ pace: _pace, flatRateCents, hourlyRateCents, ...tech }) => {
+        const id = this.db
+          .insert(users)
+          .values({ ...tech, role: 'technician', pinHash, createdAt })
+          .returning()
+          .get().id;
+        this.db
+          .insert(payRates)
+          .values({
+            userId: id,
+            effectiveFrom: FIRST_RULES_FROM,
+            payType: 'flat-rate',
+            flatRateCents,
+            hourlyRateCents,
+            guaranteeCents: 0,
+            overtimeExempt: false,
+            recordedAt: createdAt,
+          })
+          .run();
+        return id;
+      });
       const bayIds = BAYS.map(
         (bay, position) =>
           this.db

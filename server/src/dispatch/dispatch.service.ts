@@ -7,7 +7,7 @@ import {
   type OnModuleInit,
 } from '@nestjs/common';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
-import { and, eq, gte } from 'drizzle-orm';
+import { and, eq, gte, isNull, ne, or } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
   isLineLate,
@@ -29,8 +29,6 @@ import { waitingParts } from '../work/parts-hold.dto.js';
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
-/** A technician's own efficiency drives forecasts only after this much clocked time in four weeks. */
-const MIN_CLOCKED_HOURS_FOR_EFFICIENCY = 8;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
@@ -55,7 +53,7 @@ interface Efficiencies {
 export class DispatchService implements OnModuleInit, OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger(DispatchService.name);
   private subscription: Subscription | null = null;
-  private efficiencyCache: { at: number; values: Efficiencies } | null = null;
+  private efficiencyCache: { at: number; minimumHours: number; values: Efficiencies } | null = null;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -190,13 +188,23 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
    * something, and for the whole shop; cached for a few minutes.
    */
   private efficiencies(now: Date): Efficiencies {
-    if (this.efficiencyCache && now.getTime() - this.efficiencyCache.at < EFFICIENCY_CACHE_MS)
-      return this.efficiencyCache.values;
+    // A technician's own efficiency drives forecasts only after the shop's minimum of clocked hours.
+    const minimumHours = this.shop.settings(now).minimumClockedHoursForEfficiency;
+    const cached = this.efficiencyCache;
+    if (cached && cached.minimumHours === minimumHours && now.getTime() - cached.at < EFFICIENCY_CACHE_MS)
+      return cached.values;
     const from = new Date(now.getTime() - FOUR_WEEKS_MS);
     const done = this.db
       .select()
       .from(jobLines)
-      .where(and(eq(jobLines.status, 'done'), gte(jobLines.completedAt, from)))
+      .where(
+        and(
+          eq(jobLines.status, 'done'),
+          gte(jobLines.completedAt, from),
+          // A line done without clocked time counts only once signed off (it once showed 2,819 %).
+          or(isNull(jobLines.signOff), ne(jobLines.signOff, 'awaiting')),
+        ),
+      )
       .all();
     const lineSeconds = this.labour.lineSeconds(
       done.map((l) => l.id),
@@ -220,13 +228,13 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
             .clockedSeconds / 3600;
         shopFlagged += flagged.get(id) ?? 0;
         shopClocked += clocked;
-        const enough = clocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY;
+        const enough = clocked >= minimumHours;
         return [id, enough ? (flagged.get(id) ?? 0) / clocked : null] as const;
       }),
     );
-    const shop = shopClocked >= MIN_CLOCKED_HOURS_FOR_EFFICIENCY ? shopFlagged / shopClocked : null;
+    const shop = shopClocked >= minimumHours ? shopFlagged / shopClocked : null;
     const values = { byTechnician, shop };
-    this.efficiencyCache = { at: now.getTime(), values };
+    this.efficiencyCache = { at: now.getTime(), minimumHours, values };
     return values;
   }
 }

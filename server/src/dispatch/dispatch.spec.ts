@@ -155,6 +155,43 @@ describe(DispatchService.name, () => {
     });
   });
 
+  describe('efficiency in forecasts', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
+
+    // Common practice (no published source): a technician's own pace drives forecasts only after enough clocked
+    // time; the shop sets how much (8 h by default). Dana has about 75 h in the demo's last four weeks.
+    it("uses a technician's own efficiency only after the shop's minimum of clocked hours", async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const dana = (await sut.badge('1041')).user.id;
+      const laneOf = async () =>
+        (
+          (await sut.http().get('/api/dispatch').auth(owner, { type: 'bearer' }).expect(200))
+            .body as DispatchBoard
+        ).lanes.find((lane) => lane.technician.id === dana)!;
+      expect((await laneOf()).efficiency).toBeGreaterThan(1);
+      await sut
+        .http()
+        .patch('/api/shop')
+        .auth(owner, { type: 'bearer' })
+        .send({ minimumClockedHoursForEfficiency: 200 })
+        .expect(200);
+      try {
+        expect((await laneOf()).efficiency).toBeNull();
+      } finally {
+        await sut
+          .http()
+          .patch('/api/shop')
+          .auth(owner, { type: 'bearer' })
+          .send({ minimumClockedHoursForEfficiency: 8 })
+          .expect(200);
+      }
+    });
+  });
+
   describe('opening hours that once stopped the server', () => {
     let sut: TestApp;
     beforeAll(async () => {

@@ -247,8 +247,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     if (!clock) return null;
     if (!clock.built) {
       this.prune(clock, now.getTime());
-      const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
-      const ledger = buildLedger(clock.punches, now, { concurrentSplit, maxConcurrentJobs });
+      const ledger = buildLedger(clock.punches, now, this.shop.settings(now));
       clock.built = { ledger, at: now.getTime(), state: technicianState(ledger) };
     }
     return clock.built;

@@ -102,8 +102,9 @@ describe(OfflinePunchesService.name, () => {
   it('keeps an offline punch unverified and out of the hours until the technician signs in online', async () => {
     const jo = await techId('1045');
     const before = (await card(jo)).punches.length;
-    // Jo was on shift already in the demo: a break recorded offline 20 minutes ago.
-    const punch = offlinePunch('1045', DEMO_PIN, 'break-start', 20);
+    // Jo was on shift already in the demo and clocked off a job 12 minutes ago: a break recorded offline
+    // 5 minutes ago, after that, changes no time already counted.
+    const punch = offlinePunch('1045', DEMO_PIN, 'break-start', 5);
     const { body } = await upload({ ...punch, breakKind: 'rest' }).expect(202);
     expect(body).toEqual({ id: punch.id });
     await upload({ ...punch, breakKind: 'rest' }).expect(202);
@@ -117,6 +118,22 @@ describe(OfflinePunchesService.name, () => {
     const confirmed = (await card(jo)).punches.find((p) => p.id === punch.id);
     expect(confirmed).toMatchObject({ kind: 'break-start', breakKind: 'rest', at: punch.at, recordedBy: jo });
     expect((await offlineList()).find((p) => p.id === punch.id)?.status).toBe('confirmed');
+  });
+
+  it('holds an offline punch that would change counted time for the foreman, and says so', async () => {
+    const jo = await techId('1045');
+    // A shift end recorded offline 20 minutes ago would leave Jo's later clock-off and break uncounted.
+    const punch = offlinePunch('1045', DEMO_PIN, 'shift-out', 20);
+    await upload(punch).expect(202);
+    await sut.badge('1045');
+    const offline = (await offlineList()).find((p) => p.id === punch.id)!;
+    expect(offline.status).toBe('confirmed');
+    expect(offline.problem).toMatch(
+      /^Held for review: The late shift end at .+ not counted: accept or reject it$/,
+    );
+    const { held, punches } = await card(jo);
+    expect(held.find((p) => p.id === punch.id)).toMatchObject({ kind: 'shift-out', review: 'pending' });
+    expect(punches.map((p) => p.id)).not.toContain(punch.id);
   });
 
   it('a wrong PIN never punches: refused, answered like any other, and not confirmed at sign-in', async () => {

@@ -87,7 +87,8 @@ export class OfflinePunchesService implements OnModuleInit, OnModuleDestroy {
           kioskId: kiosk.id,
           ...verdict,
           kind: body.kind,
-          breakKind: body.kind === 'break-start' ? (body.breakKind ?? 'meal') : null,
+          // A break of no stated kind counts as paid rest, never as an unpaid meal (29 CFR 785.18).
+          breakKind: body.kind === 'break-start' ? (body.breakKind ?? null) : null,
           at,
           receivedAt: now,
         })
@@ -179,10 +180,14 @@ export class OfflinePunchesService implements OnModuleInit, OnModuleDestroy {
       });
   }
 
-  /** Records the punch with its tapped time and marks it confirmed; or says why it does not fit. */
+  /**
+   * Records the punch with its tapped time and marks it confirmed; or says why it does not fit. One that
+   * would change counted time is held for the foreman's review like any late kiosk punch, and says so.
+   */
   private makePunch(row: Row, actor: Principal, now: Date): string | null {
+    let note: string | null;
     try {
-      this.punches.record(
+      const recorded = this.punches.record(
         {
           id: row.id,
           kind: row.kind,
@@ -194,6 +199,7 @@ export class OfflinePunchesService implements OnModuleInit, OnModuleDestroy {
         now,
         CONFIRM_MAX_AGE_SECONDS,
       );
+      note = recorded.held ? `Held for review: ${recorded.punch.heldBecause}` : null;
     } catch (error) {
       if (!(error instanceof HttpException)) throw error;
       this.db
@@ -205,7 +211,7 @@ export class OfflinePunchesService implements OnModuleInit, OnModuleDestroy {
     }
     this.db
       .update(offlinePunches)
-      .set({ status: 'confirmed', problem: null, decidedAt: now, decidedBy: actor.id })
+      .set({ status: 'confirmed', problem: note, decidedAt: now, decidedBy: actor.id })
       .where(eq(offlinePunches.id, row.id))
       .run();
     return null;

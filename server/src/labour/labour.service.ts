@@ -22,6 +22,7 @@ export function toPunchDto(row: PunchRow): PunchDto {
     recordedBy: row.recordedBy,
     supersedes: row.supersedes,
     reason: row.reason,
+    voids: row.voids,
   };
 }
 
@@ -49,8 +50,7 @@ export class LabourService {
   }
 
   ledgerOf(technicianId: number, from: Date, now: Date): Ledger {
-    const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
-    return buildLedger(this.punchesOf(technicianId, from, now), now, { concurrentSplit, maxConcurrentJobs });
+    return buildLedger(this.punchesOf(technicianId, from, now), now, this.shop.settings(now));
   }
 
   /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */

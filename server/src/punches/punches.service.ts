@@ -6,35 +6,71 @@ import {
   Injectable,
 } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
-import { and, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import {
   isOpenLine,
+  LATE_PUNCH_SECONDS,
   MAX_PUNCH_AGE_SECONDS,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
-  validatePunch,
+  punchImpact,
   type CreatePunchBody,
+  type HeldPunchDto,
   type LedgerPunch,
   type PunchDto,
+  type PunchImpact,
   type PunchKind,
+  type ResolutionBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
+import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { jobLines, punches, users } from '../db/schema/index.js';
+import { heldPunches, jobLines, punches, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
 import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
+import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
+import { PunchLedgerService } from './punch-ledger.service.js';
 
+export type RecordedPunch =
+  | { punch: PunchDto; replayed: boolean; held: false }
+  | { punch: HeldPunchDto; replayed: boolean; held: true };
+
+type HeldRow = typeof heldPunches.$inferSelect;
 type LineRow = typeof jobLines.$inferSelect;
 
-export interface RecordedPunch {
-  punch: PunchDto;
-  replayed: boolean;
+export function toHeldPunchDto(row: HeldRow): HeldPunchDto {
+  return {
+    id: row.id,
+    technicianId: row.technicianId,
+    kind: row.kind,
+    jobLineId: row.jobLineId,
+    breakKind: row.breakKind,
+    at: row.at.toISOString(),
+    recordedAt: row.recordedAt.toISOString(),
+    recordedBy: row.recordedBy,
+    review: row.review,
+    displaces: row.displaces,
+    heldBecause: row.heldBecause,
+    resolvedAt: row.resolvedAt?.toISOString() ?? null,
+    resolvedBy: row.resolvedBy,
+    resolution: row.resolution,
+  };
 }
+
+const heldToLedger = (row: HeldRow): LedgerPunch => ({
+  id: row.id,
+  technicianId: row.technicianId,
+  kind: row.kind,
+  jobLineId: row.jobLineId,
+  breakKind: row.breakKind,
+  at: row.at.toISOString(),
+  supersedes: null,
+});
 
 @Injectable()
 export class PunchesService {
@@ -46,6 +82,8 @@ export class PunchesService {
     private readonly floor: FloorService,
     private readonly live: LiveService,
     private readonly shop: ShopService,
+    private readonly ledger: PunchLedgerService,
+    private readonly closedWeeks: ClosedWeeksService,
     private readonly access: LineAccessService,
     private readonly audit: AuditService,
   ) {
@@ -55,6 +93,11 @@ export class PunchesService {
   /**
    * Records a punch once. The tablet's uuid makes a retry find the stored punch instead of adding a
    * second one. Everything here is synchronous on one connection, so two requests never interleave.
+   *
+   * A punch never silently voids counted ones. One that would make a counted punch impossible, or take
+   * counted time off (judged up to the technician's last counted punch), is refused with 409 naming what it
+   * would displace; but when it arrived late from the kiosk (an offline replay) it is kept, held for the
+   * foreman's review and left out of every count (202). The rest of such a replay waits behind it.
    */
   @Transactional()
   record(
@@ -65,11 +108,13 @@ export class PunchesService {
   ): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.queries.punch.get({ id: body.id });
-    if (existing) {
-      if (existing.technicianId !== technicianId)
-        throw new ConflictException('That punch id is already used');
-      return { punch: toPunchDto(existing), replayed: true };
-    }
+    const existingHeld = existing
+      ? undefined
+      : this.db.select().from(heldPunches).where(eq(heldPunches.id, body.id)).get();
+    if ((existing ?? existingHeld) && (existing ?? existingHeld)!.technicianId !== technicianId)
+      throw new ConflictException('That punch id is already used');
+    if (existing) return { punch: toPunchDto(existing), replayed: true, held: false };
+    if (existingHeld) return { punch: toHeldPunchDto(existingHeld), replayed: true, held: true };
 
     const at = body.at ? new Date(body.at) : now;
     if (at.getTime() > now.getTime() + MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000)
@@ -78,6 +123,7 @@ export class PunchesService {
       throw new BadRequestException(
         `That punch is more than ${maxAgeSeconds / 3600} hours old: ask the foreman to add it`,
       );
+    this.closedWeeks.assertOpenAt(at, 'That punch');
     const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
     if (line) this.assertMayPunchOn(line, body.kind, actor, now);
@@ -89,19 +135,23 @@ export class PunchesService {
       technicianId,
       kind: body.kind,
       jobLineId: body.jobLineId ?? null,
-      breakKind: body.kind === 'break-start' ? (body.breakKind ?? 'meal') : null,
+      // A break of no stated kind counts as paid rest, never as an unpaid meal (29 CFR 785.18).
+      breakKind: body.kind === 'break-start' ? (body.breakKind ?? null) : null,
       at: at.toISOString(),
       supersedes: null,
     };
-    const context = this.floor.punchesOf(technicianId);
-    const { concurrentSplit, maxConcurrentJobs } = this.shop.settings();
-    const refusal = validatePunch(context, candidate, { concurrentSplit, maxConcurrentJobs });
-    if (refusal) throw new ConflictException(refusal);
+    const impact = punchImpact(this.floor.punchesOf(technicianId), candidate, this.shop.settings(now));
+    if (impact.refusal) throw new ConflictException(impact.refusal);
+    const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
+    const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
+    const changesCounted = impact.displaced.length > 0 || impact.lowersCounted;
+    if (changesCounted || waiting) {
+      if (late && actor.role === 'technician')
+        return { punch: this.hold(candidate, impact, waiting, actor, now), replayed: false, held: true };
+      throw new ConflictException(this.displacementWords('That punch', impact));
+    }
 
-    const row = this.queries.insert.get({ ...candidate, at, recordedAt: now, recordedBy: actor.id });
-    const punch = toPunchDto(row!);
-    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [punch.technicianId] });
-    this.floor.punchRecorded(punch);
+    const punch = this.ledger.insert(candidate, { at: now, by: actor.id });
     if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
       const taken = line.technicianId === null;
       const updated = this.db
@@ -132,7 +182,138 @@ export class PunchesService {
       );
       this.floor.linesChanged([line.id]);
     }
-    return { punch, replayed: false };
+    return { punch, replayed: false, held: false };
+  }
+
+  /** The foreman accepts a held punch: it counts from now on, and what it displaces is voided, audited. */
+  @Transactional()
+  acceptHeld(id: string, { reason }: ResolutionBody, actor: Principal, now = new Date()): HeldPunchDto {
+    const held = this.pendingHeld(id);
+    this.closedWeeks.assertOpenAt(held.at, 'That punch');
+    const candidate = heldToLedger(held);
+    const impact = punchImpact(
+      this.ledger.around(held.technicianId, held.at),
+      candidate,
+      this.shop.settings(now),
+    );
+    if (impact.refusal)
+      throw new ConflictException(
+        `It no longer fits the timecard (${impact.refusal}): reject it or correct the card`,
+      );
+    this.ledger.insert(candidate, {
+      at: held.recordedAt,
+      by: held.recordedBy,
+      reason: `Held for review, accepted by the office: ${reason}`,
+    });
+    const voided = this.ledger.voidDisplaced(
+      impact.displaced,
+      actor,
+      `Displaced by a late punch the office accepted: ${reason}`,
+      now,
+    );
+    return this.resolve(held, 'accepted', reason, actor, now, { voided });
+  }
+
+  /** The foreman rejects a held punch: it stays on record, never counted. */
+  @Transactional()
+  rejectHeld(id: string, { reason }: ResolutionBody, actor: Principal, now = new Date()): HeldPunchDto {
+    return this.resolve(this.pendingHeld(id), 'rejected', reason, actor, now, {});
+  }
+
+  /** Held punches of a technician (for the timecard), or pending ones of everyone. */
+  held(technicianId: number, from: Date, to: Date): HeldPunchDto[] {
+    return this.db
+      .select()
+      .from(heldPunches)
+      .where(eq(heldPunches.technicianId, technicianId))
+      .orderBy(asc(heldPunches.at))
+      .all()
+      .filter((row) => row.at >= from && row.at < to)
+      .map(toHeldPunchDto);
+  }
+
+  /** "That punch would leave the clock-on at … not counted: ask the foreman to correct the timecard". */
+  displacementWords(what: string, impact: PunchImpact): string {
+    if (impact.displaced.length > 0)
+      return `${what} would leave ${this.ledger.listInWords(impact.displaced)} not counted: ask the foreman to correct the timecard`;
+    return `${what} would take time already counted off the timecard: ask the foreman to correct the timecard`;
+  }
+
+  private hold(
+    candidate: LedgerPunch,
+    impact: PunchImpact,
+    waiting: boolean,
+    actor: Principal,
+    now: Date,
+  ): HeldPunchDto {
+    const displaces = this.ledger.describe(impact.displaced);
+    const because = waiting
+      ? `${this.ledger.listInWords([candidate])} came in late behind a punch held for review`
+      : this.displacementWords(
+          `The late ${this.ledger.listInWords([candidate]).replace(/^the /, '')}`,
+          impact,
+        ).replace(': ask the foreman to correct the timecard', ': accept or reject it');
+    const row = this.db
+      .insert(heldPunches)
+      .values({
+        ...candidate,
+        at: new Date(candidate.at),
+        recordedAt: now,
+        recordedBy: actor.id,
+        displaces,
+        heldBecause: because,
+      })
+      .returning()
+      .get();
+    this.audit.record(
+      { actorId: actor.id, action: 'hold', entity: 'punch', entityId: row.id, detail: { because } },
+      now,
+    );
+    return toHeldPunchDto(row);
+  }
+
+  private pendingOf(technicianId: number): HeldRow[] {
+    return this.db
+      .select()
+      .from(heldPunches)
+      .where(and(eq(heldPunches.technicianId, technicianId), eq(heldPunches.review, 'pending')))
+      .all();
+  }
+
+  private pendingHeld(id: string): HeldRow {
+    const held = foundOrFail(
+      this.db.select().from(heldPunches).where(eq(heldPunches.id, id)).get(),
+      'Held punch',
+    );
+    if (held.review !== 'pending') throw new ConflictException(`That punch was already ${held.review}`);
+    return held;
+  }
+
+  private resolve(
+    held: HeldRow,
+    review: 'accepted' | 'rejected',
+    reason: string,
+    actor: Principal,
+    now: Date,
+    detail: Record<string, unknown>,
+  ): HeldPunchDto {
+    const row = this.db
+      .update(heldPunches)
+      .set({ review, resolvedAt: now, resolvedBy: actor.id, resolution: reason })
+      .where(eq(heldPunches.id, held.id))
+      .returning()
+      .get();
+    this.audit.record(
+      {
+        actorId: actor.id,
+        action: review === 'accepted' ? 'accept' : 'reject',
+        entity: 'punch',
+        entityId: held.id,
+        detail: { reason, ...detail },
+      },
+      now,
+    );
+    return toHeldPunchDto(row);
   }
 
   /**
@@ -209,21 +390,6 @@ function preparePunchQueries(db: Db) {
       .select()
       .from(jobLines)
       .where(eq(jobLines.id, value('id')))
-      .prepare(),
-    insert: db
-      .insert(punches)
-      .values({
-        id: value('id'),
-        technicianId: value('technicianId'),
-        kind: value('kind'),
-        jobLineId: value('jobLineId'),
-        breakKind: value('breakKind'),
-        at: value('at'),
-        recordedAt: value('recordedAt'),
-        recordedBy: value('recordedBy'),
-        supersedes: value('supersedes'),
-      })
-      .returning()
       .prepare(),
   };
 }

@@ -3,7 +3,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, min } from 'drizzle-orm';
 import {
   addIsoWeeks,
-  makeVin,
   shopLocalInstant,
   workweekBounds,
   workweekDays,
@@ -12,15 +11,15 @@ import {
   type LabourReportTechnician,
   type PayReport,
   type ShopDay,
+  type DatedPayRules,
   type ShopSettings,
+  type Timecard,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { customers, jobLines, punches, repairOrders, users, vehicles } from '../db/schema/index.js';
-import { repairOrderSnapshot } from '../work/repair-order-snapshot.js';
+import { auditLog, punches, users } from '../db/schema/index.js';
+import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
-
-type Kind = 'shift-in' | 'shift-out' | 'break-start' | 'break-end' | 'job-on' | 'job-off';
 
 /**
  * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
@@ -37,81 +36,14 @@ describe(ReportsService.name, () => {
   const ids = {} as Record<'a' | 'b' | 'c' | 'd' | 'e' | 'f', number>;
   const lineIds = { a: [] as number[], b: [] as number[], s: 0, u: 0 };
   let bayId: number;
-  let roSerial = 0;
 
-  const as = (token: string) => ({
-    get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
-    post: (path: string, body: object) => sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
-    patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
-  });
+  let history: ShopHistory;
+  const as = (token: string) => history.as(token);
   const at = (day: ShopDay, time: string) => shopLocalInstant(day.day, time, shop.timeZone);
-  const technician = async (name: string, badge: string, flatRateCents: number, hourlyRateCents: number) =>
-    (
-      await as(owner)
-        .post('/api/users', { name, role: 'technician', badge, pin: '4321', flatRateCents, hourlyRateCents })
-        .expect(201)
-    ).body.id as number;
-  /** A missed punch added by the owner: the only way to record times this far back. */
-  const punch = (technicianId: number, kind: Kind, when: Date, jobLineId?: number) =>
-    as(owner)
-      .post('/api/timecards/corrections', {
-        technicianId,
-        kind,
-        at: when.toISOString(),
-        reason: 'From the paper timesheet',
-        ...(jobLineId ? { jobLineId } : {}),
-        ...(kind === 'break-start' ? { breakKind: 'meal' } : {}),
-      })
-      .expect(201);
-  const finish = (jobLineId: number, when: Date) =>
-    as(foreman).patch(`/api/job-lines/${jobLineId}`, { completedAt: when.toISOString() }).expect(200);
-  /** There is no repair-order intake route to lean on here: the RO and its line go straight in. */
-  const line = (title: string, bookHours: number, technicianId: number, queuedAt: Date, bay?: number) => {
-    const serial = ++roSerial;
-    const customer = db
-      .insert(customers)
-      .values({ name: `Test customer ${serial}`, createdAt: queuedAt })
-      .returning()
-      .get();
-    const vehicle = db
-      .insert(vehicles)
-      .values({
-        customerId: customer.id,
-        vin: makeVin(`7RP9TS4DLM${String(500_000 + serial)}`),
-        year: 2020,
-        make: 'Corvane',
-        model: 'Altrix',
-      })
-      .returning()
-      .get();
-    const ro = db
-      .insert(repairOrders)
-      .values({
-        number: `T${900 + serial}`,
-        customerId: customer.id,
-        vehicleId: vehicle.id,
-        ...repairOrderSnapshot(customer, vehicle),
-        concern: title,
-        odometer: 40_000,
-        createdAt: queuedAt,
-      })
-      .returning()
-      .get();
-    return db
-      .insert(jobLines)
-      .values({
-        repairOrderId: ro.id,
-        lineNo: 1,
-        title,
-        bookHours,
-        technicianId,
-        bayId: bay ?? null,
-        queuedAt,
-        updatedAt: queuedAt,
-      })
-      .returning()
-      .get().id;
-  };
+  const technician: ShopHistory['technician'] = (...args) => history.technician(...args);
+  const punch: ShopHistory['punch'] = (...args) => history.punch(...args);
+  const finish: ShopHistory['finish'] = (...args) => history.finish(...args);
+  const line: ShopHistory['line'] = (...args) => history.line(...args);
   const labour = async (query: string, token = owner) =>
     (await as(token).get(`/api/reports/labour?${query}`).expect(200)).body as LabourReport;
   const pay = async (query: string) =>
@@ -124,6 +56,7 @@ describe(ReportsService.name, () => {
     db = sut.app.get<Db>(DB);
     owner = await sut.signIn(DEMO.owner);
     foreman = await sut.signIn(DEMO.foreman);
+    history = shopHistory(sut, { owner, foreman });
     shop = (await as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
     const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
@@ -191,11 +124,16 @@ describe(ReportsService.name, () => {
     await punch(ids.d, 'shift-out', at(tuesday, '12:00'));
     await finish(lineIds.s, at(tuesday, '11:06'));
 
-    // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job.
+    // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job; a
+    // 30-minute meal at 11:00 each day and a second one at 17:00 on the 13-hour Wednesday (Labor Code 512).
     const before = workweekDays(addIsoWeeks(week, -1), shop).filter(isWeekday);
-    const ends = ['17:00', '15:00', '20:00', '15:00', '15:00'];
+    const ends = ['17:30', '15:30', '21:00', '15:30', '15:30'];
     for (const [i, day] of before.entries()) {
       await punch(ids.e, 'shift-in', at(day, '07:00'));
+      for (const meal of i === 2 ? ['11:00', '17:00'] : ['11:00']) {
+        await punch(ids.e, 'break-start', at(day, meal));
+        await punch(ids.e, 'break-end', at(day, meal.replace(':00', ':30')));
+      }
       await punch(ids.e, 'shift-out', at(day, ends[i]!));
     }
   }, 120_000);
@@ -204,7 +142,9 @@ describe(ReportsService.name, () => {
   it('reports the week by hand-worked figures, with the formulas', async () => {
     const report = await labour(`week=${week}`, foreman);
     expect(report).toMatchObject({ week, timeZone: 'America/Chicago' });
-    expect(report.formulas.efficiency).toBe('Efficiency = flagged hours ÷ clocked job hours');
+    expect(report.formulas.efficiency).toMatch(
+      /^Efficiency = flagged hours of the lines finished this week ÷/,
+    );
     expect(report.guidelines.efficiency).toEqual({ low: 1.25, high: 1.25 });
 
     // Ada: 5 × 10 h = 50 h attendance, 5 × 9.2 h = 46 h clocked, 49.1 h flagged →
@@ -225,17 +165,23 @@ describe(ReportsService.name, () => {
     expect(ada.lines[0]).toMatchObject({ bookHours: 5.4, flaggedHours: 5.4, clockedHours: 4.8 });
     expect(ada.lines[0]!.overUnderHours).toBeCloseTo(0.6, 6);
 
-    // NADA definitions via a dealer association bulletin "Measuring technician performance":
-    // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance,
-    // 5 × 7.2 h clocked, 5 × 9.0 h flagged.
+    // NADA definitions via a dealer association bulletin "Measuring technician performance": available 40 h,
+    // worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. Bram: 5 × 8 h attendance, 5 × 7.2 h
+    // clocked, 5 × 9.0 h flagged; every line finished in the week, so the matched basis is the 36 h.
     const bram = rowOf(report, ids.b);
-    expect(bram).toMatchObject({ attendanceHours: 40, clockedHours: 36, flaggedHours: 45 });
+    expect(bram).toMatchObject({
+      attendanceHours: 40,
+      clockedHours: 36,
+      flaggedHours: 45,
+      matchedClockedHours: 36,
+      workInProgressHours: 0,
+    });
     expect(bram.productivity).toBeCloseTo(0.9, 6);
     expect(bram.efficiency).toBeCloseTo(1.25, 6);
     expect(bram.proficiency).toBeCloseTo(1.125, 6);
 
-    // The shared 2.0 h line by clocked time: Cleo 2.0 × 3/4 = 1.5 h, Dex 2.0 × 1/4 = 0.5 h; Dex also gets
-    // the 0.4 h line nobody clocked on, as its assigned technician (common practice, no published source).
+    // The shared 2.0 h line by clocked time: Cleo 2.0 × 3/4 = 1.5 h, Dex 2.0 × 1/4 = 0.5 h. Dex's 0.4 h line
+    // nobody clocked on waits for a foreman's sign-off: not flagged yet.
     const cleo = rowOf(report, ids.c);
     const dex = rowOf(report, ids.d);
     expect(cleo).toMatchObject({
@@ -245,8 +191,7 @@ describe(ReportsService.name, () => {
       productivity: 0.75,
     });
     expect(cleo.efficiency).toBeCloseTo(0.5, 6);
-    expect(dex).toMatchObject({ attendanceHours: 4, clockedHours: 1, productivity: 0.25 });
-    expect(dex.flaggedHours).toBeCloseTo(0.9, 6);
+    expect(dex).toMatchObject({ attendanceHours: 4, clockedHours: 1, productivity: 0.25, flaggedHours: 0.5 });
     expect(cleo.lines).toEqual([
       expect.objectContaining({
         jobLineId: lineIds.s,
@@ -262,20 +207,15 @@ describe(ReportsService.name, () => {
         clockedHours: 1,
         overUnderHours: -0.5,
       }),
-      expect.objectContaining({
-        jobLineId: lineIds.u,
-        flaggedHours: 0.4,
-        clockedHours: 0,
-        overUnderHours: 0.4,
-      }),
     ]);
 
     // Shop: hours summed first. 50 + 40 + 4 + 4 = 98 h attendance, 46 + 36 + 3 + 1 = 86 h clocked,
-    // 49.1 + 45 + 1.5 + 0.9 = 96.5 h flagged → 86/98, 96.5/86, 96.5/98.
-    expect(report.shop).toMatchObject({ attendanceHours: 98, clockedHours: 86, flaggedHours: 96.5 });
+    // 49.1 + 45 + 1.5 + 0.5 = 96.1 h flagged → 86/98, 96.1/86, 96.1/98.
+    expect(report.shop).toMatchObject({ attendanceHours: 98, clockedHours: 86, flaggedHours: 96.1 });
     expect(report.shop.productivity).toBeCloseTo(86 / 98, 6);
-    expect(report.shop.efficiency).toBeCloseTo(96.5 / 86, 6);
-    expect(report.shop.proficiency).toBeCloseTo(96.5 / 98, 6);
+    expect(report.shop.efficiency).toBeCloseTo(96.1 / 86, 6);
+    expect(report.shop.proficiency).toBeCloseTo(96.1 / 98, 6);
+    expect(report.weekName).toMatch(/^Week of Sun, [A-Z][a-z]{2} \d{1,2}$/);
   });
 
   it('bounds a report by the shop’s workweek, by the calendar', async () => {
@@ -352,7 +292,7 @@ describe(ReportsService.name, () => {
     expect(bay.week).toBeCloseTo(0.81, 6);
   });
 
-  // 29 CFR 778.111(a), the regulation's piece-rate example: 50 h worked; $491.00 piece pay for 46 productive hours;
+  // 29 CFR 778.111(a), the pieceworker example: 50 h worked; $491.00 piece pay for 46 productive hours;
   // 4 h waiting at $8.00 → straight time $523.00, regular rate $523.00 ÷ 50 = $10.46, premium
   // 10 × $5.23 = $52.30, total $575.30 (= 40 × $10.46 + 10 × $15.69). Ada's week: 49.1 flagged h × $10.00
   // = $491.00; idle 07:00–07:06, 11:54–12:00, 12:30–12:36 and 17:00–17:30 = 0.8 h a day = 4 h × $8.00.
@@ -364,11 +304,21 @@ describe(ReportsService.name, () => {
     expect(ada).toEqual({
       technicianId: ids.a,
       name: 'Ada Vexley',
+      payType: 'flat-rate',
       flatRateCents: 10_00,
       hourlyRateCents: 8_00,
+      guaranteeCents: 0,
       overtimeExempt: false,
+      rateFrom: '2000-01-01',
       flaggedHours: 49.1,
       flaggedPayCents: 491_00,
+      guaranteeTopUpCents: 0,
+      hourlyPayCents: 0,
+      restHours: 0,
+      restRateCents: null,
+      restPayCents: 0,
+      otherNonProductiveHours: 4,
+      otherNonProductivePayCents: 32_00,
       nonProductivePayCents: 32_00,
       straightTimeCents: 523_00,
       hoursWorked: 50,
@@ -377,29 +327,39 @@ describe(ReportsService.name, () => {
       doubleTimeHours: 0,
       overtimePremiumCents: 52_30,
       minimumWageTopUpCents: 0,
+      mealPremiumDays: 0,
+      mealPremiumCents: 0,
       totalCents: 575_30,
+      additionalOvertime: [],
+      additionalOvertimeCents: 0,
+      adjustments: [],
+      adjustmentCents: 0,
+      payableCents: 575_30,
       underMinimumWage: false,
       nearOvertime: false,
+      exceptions: [],
+      unresolvedExceptions: 0,
     });
     expect(ada.totalCents).toBe(40 * 10_46 + 10 * 15_69);
   });
 
-  // 29 USC 206(a)(1)(C): $7.25 for every hour worked, piece rate included. Dex: 0.9 flagged
-  // h × $16.00 = $14.40 and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 → top-up $14.60.
+  // 29 USC 206(a)(1)(C): $7.25 for every hour worked, piece rate included. Dex: 0.5 flagged h × $16.00 =
+  // $8.00 (his unclocked line awaits sign-off) and no pay for waiting, for 4 h worked; 4 × $7.25 = $29.00 →
+  // top-up $21.00.
   it('tops up to the minimum wage and totals the week', async () => {
     const report = await pay(`week=${week}`);
     const dex = report.technicians.find((row) => row.technicianId === ids.d)!;
     expect(dex).toMatchObject({
-      flaggedPayCents: 14_40,
+      flaggedPayCents: 8_00,
       nonProductivePayCents: 0,
-      minimumWageTopUpCents: 14_60,
+      minimumWageTopUpCents: 21_00,
       regularRateCents: 7_25,
       totalCents: 29_00,
       underMinimumWage: true,
     });
     // Bram: 45 × $20 = $900 + 4 h idle × $15 = $60 → $960, 40 h, no overtime.
     // Cleo: 1.5 × $18 = $27 + 1 h idle × $12 = $12 → $39 for 4 h, above 4 × $7.25 = $29.
-    const totals = { flagged: 491_00 + 900_00 + 27_00 + 14_40, total: 575_30 + 960_00 + 39_00 + 29_00 };
+    const totals = { flagged: 491_00 + 900_00 + 27_00 + 8_00, total: 575_30 + 960_00 + 39_00 + 29_00 };
     expect(report.technicians.find((row) => row.technicianId === ids.b)).toMatchObject({
       totalCents: 960_00,
     });
@@ -410,8 +370,11 @@ describe(ReportsService.name, () => {
       hoursWorked: 98,
       overtimeHours: 10,
       overtimePremiumCents: 52_30,
-      minimumWageTopUpCents: 14_60,
+      minimumWageTopUpCents: 21_00,
     });
+    // The unclocked line is on the week's exceptions, and the week is marked as not final.
+    expect(dex.exceptions.map((e) => e.kind)).toEqual(['done-unclocked']);
+    expect(report.unresolvedExceptions).toBe(1);
   });
 
   it('flags technicians nearing overtime while the week runs', () => {
@@ -442,12 +405,16 @@ describe(ReportsService.name, () => {
     const report = await labour(`week=${week}`);
     expect(rows).toHaveLength(1 + report.technicians.length + 1);
     expect(rows[0]).toBe(
-      'Technician,Attendance hours,Clocked hours,Flagged hours,Productivity %,Efficiency %,Proficiency %',
+      'Week,Technician,Attendance hours,Clocked hours,Flagged hours,Clocked on finished lines (any week),' +
+        'Work in progress hours,Productivity %,Efficiency %,Proficiency %',
     );
+    const name = report.weekName;
     // 49.1 / 46 = 106.739 %; 49.1 / 50 = 98.2 %.
-    expect(rows).toContain('Ada Vexley,50.00,46.00,49.10,92.00,106.74,98.20');
-    // 86 / 98 = 87.755 %, 96.5 / 86 = 112.209 %, 96.5 / 98 = 98.469 %.
-    expect(rows.at(-1)).toBe('Shop total,98.00,86.00,96.50,87.76,112.21,98.47');
+    expect(rows).toContain(`"${name}",Ada Vexley,50.0000,46.0000,49.1000,46.0000,0.0000,92.00,106.74,98.20`);
+    // 86 / 98 = 87.755 %, 96.1 / 86 = 111.744 %, 96.1 / 98 = 98.061 %.
+    expect(rows.at(-1)).toBe(
+      `"${name}",Shop total,98.0000,86.0000,96.1000,86.0000,0.0000,87.76,111.74,98.06`,
+    );
 
     const payCsv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
     expect(payCsv.headers['content-disposition']).toBe(`attachment; filename="baytime-pay-${week}.csv"`);
@@ -456,14 +423,22 @@ describe(ReportsService.name, () => {
       .trimEnd()
       .split('\n');
     expect(payRows[0]).toBe(
-      'Technician,Flat rate $/h,Hourly rate $/h,Overtime exempt,Flagged hours,Hours worked,Flagged pay $,' +
-        'Non-productive pay $,Straight-time pay $,Regular rate $/h,Overtime hours,Overtime premium $,' +
-        'Minimum wage top-up $,Total $,Under minimum wage,Near overtime',
+      'Week,Week status,Technician,Pay type,Rates from,Flat rate $/h,Hourly rate $/h,Guarantee $/h,' +
+        'Overtime exempt,Flagged hours,Hours worked,Rest hours,Rest rate $/h,Rest pay $,' +
+        'Other non-productive hours,Other non-productive pay $,Flagged pay $,Guarantee top-up $,Hourly pay $,' +
+        'Straight-time pay $,Regular rate $/h,Overtime hours,Double-time hours,Overtime premium $,' +
+        'Minimum wage top-up $,Meal premiums $,Week total $,Additional overtime for earlier weeks $,' +
+        'Adjustments for closed weeks $,Payable this week $,Unresolved exceptions,Under minimum wage,Near overtime',
     );
+    // The week is open and Dex's unclocked line waits for a sign-off: every row says the figures are not final.
+    const status = '"open: 1 unresolved exception(s), figures not final"';
     expect(payRows).toContain(
-      'Ada Vexley,10.00,8.00,no,49.10,50.00,491.00,32.00,523.00,10.46,10.00,52.30,0.00,575.30,no,no',
+      `"${name}",${status},Ada Vexley,Flat rate,2000-01-01,10.00,8.00,0.00,no,49.1000,50.0000,0.0000,,0.00,` +
+        '4.0000,32.00,491.00,0.00,0.00,523.00,10.46,10.0000,0.0000,52.30,0.00,0.00,575.30,0.00,0.00,575.30,0,no,no',
     );
-    expect(payRows.at(-1)).toMatch(/^Total,,,,96\.50,98\.00,1432\.40,/);
+    expect(payRows.find((row) => row.includes(',Total,'))).toMatch(/,Total,,,,,,,96\.1000,98\.0000,/);
+    expect(payRows.at(-2)).toMatch(/^Estimate,"These figures are an estimate/);
+    expect(payRows.at(-1)).toMatch(/^Rounding,"Worked out in whole seconds and whole cents/);
   });
 
   it('counts the running week by default, open shift and job up to now, from punches on the kiosk', async () => {
@@ -535,15 +510,25 @@ describe(ReportsService.name, () => {
     await as(owner).get('/api/reports/pay?format=xlsx').expect(400);
   });
 
-  // California Labor Code 510(a), worked example of a general overtime guide (arithmetic checked): hourly $25; Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h →
-  // 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
+  // California Labor Code 510(a), a general overtime guide's worked example: hourly $25; Mon 10, Tue 8,
+  // Wed 13, Thu 8, Fri 8 = 47 h → 40 regular ($1,000) + 6 h at 1.5× ($225) + 1 h at 2× ($50) = $1,275.
   it('pays the California daily-overtime vector when the shop chooses those rules', async () => {
     const earlier = addIsoWeeks(week, -1);
     // Federal first (29 USC 207(a)(1)): only the weekly 40 counts: 47 × $25 + 7 × $12.50 = $1,262.50.
     const federal = (await pay(`week=${earlier}`)).technicians.find((row) => row.technicianId === ids.e)!;
     expect(federal).toMatchObject({ hoursWorked: 47, overtimeHours: 7, totalCents: 1262_50 });
-    await as(owner).patch('/api/shop', { overtimeRules: 'california' }).expect(200);
+    // California needs the state minimum wage; the rules are dated from that week's first day.
+    const payRulesFrom = workweekDays(earlier, shop)[0]!.day;
+    await as(owner).patch('/api/shop', { overtimeRules: 'california', payRulesFrom }).expect(400);
+    await as(owner)
+      .patch('/api/shop', { overtimeRules: 'california', minimumWageCents: 16_50, payRulesFrom })
+      .expect(200);
     try {
+      const rules = (await as(owner).get('/api/shop/pay-rules').expect(200)).body as DatedPayRules[];
+      expect(rules.map((rule) => [rule.effectiveFrom, rule.overtimeRules])).toEqual([
+        ['2000-01-01', 'federal'],
+        [payRulesFrom, 'california'],
+      ]);
       const report = await pay(`week=${earlier}`);
       expect(report.rules).toBe('california');
       expect(report.technicians.find((row) => row.technicianId === ids.e)).toMatchObject({
@@ -554,7 +539,100 @@ describe(ReportsService.name, () => {
         totalCents: 1275_00,
       });
     } finally {
-      await as(owner).patch('/api/shop', { overtimeRules: 'federal' }).expect(200);
+      await as(owner)
+        .patch('/api/shop', { overtimeRules: 'federal', minimumWageCents: 7_25, payRulesFrom })
+        .expect(200);
     }
+  });
+
+  it('shows the same figures on the pay summary, in the CSV and on the kiosk for the same week', async () => {
+    const report = await pay(`week=${week}`);
+    const row = report.technicians.find((tech) => tech.technicianId === ids.a)!;
+    const kiosk = await sut.badge('5001');
+    const card = (await as(kiosk.accessToken).get(`/api/timecards?week=${week}`).expect(200))
+      .body as Timecard;
+    expect(card.summary.pay).toEqual(row);
+    expect(card.summary.caution).toBe(report.caution);
+    const labourRow = rowOf(await labour(`week=${week}`), ids.a);
+    const { lines: _lines, technicianId: _id, name: _name, ...figures } = labourRow;
+    expect(card.summary.labour).toEqual(figures);
+    expect(card.weekName).toBe(report.weekName);
+
+    const csv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
+    const [header, ...rows] = csv.text
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\n');
+    const cells = (line: string) =>
+      line.match(/("[^"]*"|[^,]*)(,|$)/g)!.map((c) => c.replace(/,$/, '').replace(/^"|"$/g, ''));
+    const columns = cells(header!);
+    const ada = cells(rows.find((line) => line.includes('Ada Vexley'))!);
+    const value = (column: string) => ada[columns.indexOf(column)];
+    expect(value('Flagged hours')).toBe(row.flaggedHours.toFixed(4));
+    expect(value('Hours worked')).toBe(row.hoursWorked.toFixed(4));
+    expect(value('Week total $')).toBe((row.totalCents / 100).toFixed(2));
+    expect(value('Payable this week $')).toBe((row.payableCents / 100).toFixed(2));
+
+    // A shop that hides pay on the kiosk still shows the hours there; the office keeps the pay.
+    await as(owner).patch('/api/shop', { kioskShowsPay: false }).expect(200);
+    try {
+      const hidden = (await as(kiosk.accessToken).get(`/api/timecards?week=${week}`).expect(200))
+        .body as Timecard;
+      expect(hidden.summary).toMatchObject({ pay: null, labour: figures });
+      const office = (await as(owner).get(`/api/timecards?technicianId=${ids.a}&week=${week}`).expect(200))
+        .body as Timecard;
+      expect(office.summary.pay).toEqual(row);
+    } finally {
+      await as(owner).patch('/api/shop', { kioskShowsPay: true }).expect(200);
+    }
+  });
+
+  // Done on a line nobody clocked on used to flag its book hours while the same hours were paid as idle.
+  // Hal: flat $20, other time $15; on shift 08:00–12:00 and never clocked on; his 2.0 h line marked done at
+  // 11:00. Until signed off: flagged 0, other time 4 h × $15 = $60, total $60 (not also 2 × $20).
+  it('keeps Done without clocked time out of flagged hours until a foreman signs it off', async () => {
+    const later = addIsoWeeks(week, 1);
+    const wednesday = workweekDays(later, shop)[3]!;
+    const hal = await technician('Hal Brenner', '5008', 20_00, 15_00);
+    const job = line('Replace cabin air filter', 2.0, hal, at(wednesday, '07:30'));
+    await punch(hal, 'shift-in', at(wednesday, '08:00'));
+    await punch(hal, 'shift-out', at(wednesday, '12:00'));
+    const done = await finish(job, at(wednesday, '11:00'));
+    expect(done.body.signOff).toBe('awaiting');
+    const halRow = async () =>
+      (await pay(`week=${later}`)).technicians.find((tech) => tech.technicianId === hal)!;
+    expect(await halRow()).toMatchObject({
+      flaggedHours: 0,
+      flaggedPayCents: 0,
+      otherNonProductiveHours: 4,
+      otherNonProductivePayCents: 60_00,
+      totalCents: 60_00,
+      unresolvedExceptions: 1,
+    });
+    expect((await halRow()).exceptions[0]).toMatchObject({
+      kind: 'done-unclocked',
+      jobLineId: job,
+      resolution: null,
+    });
+
+    const technicianToken = (await sut.badge('5008')).accessToken;
+    await as(technicianToken).post(`/api/job-lines/${job}/sign-off`, { reason: 'I did it' }).expect(403);
+    await as(foreman).post(`/api/job-lines/${job}/sign-off`, {}).expect(400);
+    const signed = await as(foreman)
+      .post(`/api/job-lines/${job}/sign-off`, { reason: 'Filter swap done at the car park, seen by me' })
+      .expect(200);
+    expect(signed.body.signOff).toBe('signed');
+    await as(foreman).post(`/api/job-lines/${job}/sign-off`, { reason: 'again' }).expect(409);
+    // Signed off: 2.0 h × $20 = $40 flagged; the exception is resolved, with who and why.
+    const after = await halRow();
+    expect(after).toMatchObject({ flaggedHours: 2, flaggedPayCents: 40_00, unresolvedExceptions: 0 });
+    expect(after.exceptions[0]!.resolution).toMatchObject({
+      by: 'Theo Varga',
+      note: 'Signed off: Filter swap done at the car park, seen by me',
+    });
+    const audit = db.select().from(auditLog).where(eq(auditLog.action, 'sign-off')).all();
+    expect(audit.map((entry) => [entry.entityId, entry.detail])).toEqual([
+      [String(job), { reason: 'Filter swap done at the car park, seen by me' }],
+    ]);
   });
 });

@@ -1,5 +1,10 @@
 import { Body, Controller, Get, Patch } from '@nestjs/common';
-import { updateShopSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
+import {
+  updateShopSchema,
+  type DatedPayRules,
+  type ShopSettings,
+  type UpdateShopBody,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
 import { ShopService } from './shop.service.js';
@@ -11,6 +16,13 @@ export class ShopController {
   @Get()
   get(): ShopSettings {
     return this.shop.settings();
+  }
+
+  /** Every dated set of pay rules, oldest first: each applies to the weeks that begin from its date on. */
+  @Roles('owner')
+  @Get('pay-rules')
+  payRules(): DatedPayRules[] {
+    return this.shop.payRulesHistory();
   }
 
   @Roles('owner')

@@ -1,13 +1,24 @@
-import { Inject, Injectable } from '@nestjs/common';
-import { eq } from 'drizzle-orm';
-import type { ShopSettings, UpdateShopBody } from '@baytime/shared';
+import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
+import { asc, eq } from 'drizzle-orm';
+import {
+  FEDERAL_MINIMUM_WAGE_CENTS,
+  PAY_RULE_FIELDS,
+  shopDayKey,
+  workweekDays,
+  workweekOf,
+  type DatedPayRules,
+  type PayRules,
+  type ShopSettings,
+  type UpdateShopBody,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { Subject } from 'rxjs';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { shopSettings } from '../db/schema/index.js';
+import { payRules, shopSettings } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
+import { firstClosedWeekFrom } from '../payroll/closed-week-days.js';
 
 const WEEKDAY_HOURS = { open: '07:30', close: '17:30' };
 
@@ -20,11 +31,18 @@ export const DEFAULT_SHOP: ShopSettings = {
   units: 'us',
   maxConcurrentJobs: 1,
   concurrentSplit: 'even',
-  minimumWageCents: 725,
+  minimumWageCents: FEDERAL_MINIMUM_WAGE_CENTS,
+  localMinimumWageCents: null,
   overtimeRules: 'federal',
   openingHours: [null, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, WEEKDAY_HOURS, null],
   kioskIdleSeconds: 60,
   payNonProductiveSeparately: true,
+  minimumMealMinutes: 30,
+  longShiftHours: 14,
+  minimumClockedMinutesForDone: 6,
+  minimumClockedHoursForEfficiency: 8,
+  apportionSpanningLines: true,
+  kioskShowsPay: true,
   techniciansTakeUnassigned: true,
   phone: null,
   labourRateCents: 0,
@@ -32,10 +50,24 @@ export const DEFAULT_SHOP: ShopSettings = {
   approvalLinkHours: 72,
 };
 
+/** The first pay rules of a shop apply from a day before any record. */
+export const FIRST_RULES_FROM = '2000-01-01';
+
+type SettingsRow = Omit<ShopSettings, keyof PayRules>;
+
+const rulesOf = (settings: PayRules): PayRules => ({
+  overtimeRules: settings.overtimeRules,
+  minimumWageCents: settings.minimumWageCents,
+  localMinimumWageCents: settings.localMinimumWageCents,
+  payNonProductiveSeparately: settings.payNonProductiveSeparately,
+});
+
 @Injectable()
 export class ShopService {
-  /** Read on every request and every board refresh; only this service writes the row. */
-  private cached: ShopSettings | null = null;
+  /** Read on every request and every board refresh; only this service writes the rows. */
+  private cachedRow: SettingsRow | null = null;
+  /** The dated pay rules, oldest first. */
+  private cachedRules: DatedPayRules[] | null = null;
   /** The settings as saved, once the change has committed. */
   readonly changed$ = new Subject<ShopSettings>();
 
@@ -46,39 +78,115 @@ export class ShopService {
     private readonly live: LiveService,
   ) {}
 
-  settings(): ShopSettings {
-    if (this.cached) return this.cached;
-    const row = this.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
-    if (!row) return DEFAULT_SHOP;
-    const { id: _id, updatedAt: _updatedAt, ...settings } = row;
-    this.cached = settings;
-    return settings;
+  /** The settings, with the pay rules in force today. */
+  settings(now = new Date()): ShopSettings {
+    const row = this.row();
+    return { ...row, ...this.rulesFor(shopDayKey(now, row.timeZone)) };
   }
 
-  /** Creates the settings row on first start; keeps an existing one as it is. */
+  /** The pay rules in force on a day ('YYYY-MM-DD' in the shop's zone). */
+  rulesFor(day: string): DatedPayRules {
+    const rules = this.rules();
+    const found = rules.findLast((rule) => rule.effectiveFrom <= day);
+    return found ?? rules[0] ?? { ...rulesOf(DEFAULT_SHOP), effectiveFrom: FIRST_RULES_FROM };
+  }
+
+  /** Every dated set of pay rules, oldest first. */
+  payRulesHistory(): DatedPayRules[] {
+    return [...this.rules()];
+  }
+
+  /** Creates the settings row and the first pay rules on first start; keeps existing ones as they are. */
   ensure(initial: Partial<ShopSettings> = {}): void {
-    this.cached = null;
+    this.forget();
+    const settings = { ...DEFAULT_SHOP, ...initial };
     this.db
       .insert(shopSettings)
-      .values({ ...DEFAULT_SHOP, ...initial, id: 1, updatedAt: new Date() })
+      .values({ ...settings, id: 1, updatedAt: new Date() })
       .onConflictDoNothing()
       .run();
+    if (this.rules().length === 0) this.saveRules(rulesOf(settings), FIRST_RULES_FROM, null);
   }
 
   @Transactional()
-  update(body: UpdateShopBody, actor: Principal): ShopSettings {
+  update(body: UpdateShopBody, actor: Principal, now = new Date()): ShopSettings {
     this.ensure();
-    if (Object.keys(body).length === 0) return this.settings();
+    const { payRulesFrom, ...changes } = body;
+    if (Object.keys(changes).length === 0) return this.settings(now);
+    const rulesChanged = PAY_RULE_FIELDS.some((field) => field in changes);
+    const current = this.settings(now);
+    const after = { ...current, ...changes };
+    if (rulesChanged) {
+      // A change of rules counts from the start of the running workweek unless the owner dates it.
+      const from = payRulesFrom ?? workweekDays(workweekOf(now, after), after)[0]!.day;
+      const rules = { ...this.rulesFor(from), ...pick(changes) };
+      if (rules.overtimeRules === 'california' && rules.minimumWageCents <= FEDERAL_MINIMUM_WAGE_CENTS)
+        throw new BadRequestException(
+          'California rules need the state minimum wage: set it above the federal $7.25 first',
+        );
+      const closed = firstClosedWeekFrom(this.db, from, after);
+      if (closed)
+        throw new ConflictException(
+          `Those rules would change the ${closed} pay week, which is closed: date them after it, or reopen it`,
+        );
+      this.saveRules(rules, from, actor.id);
+    }
+    const rowChanges = Object.fromEntries(
+      Object.entries(changes).filter(([key]) => !(PAY_RULE_FIELDS as readonly string[]).includes(key)),
+    );
     this.db
       .update(shopSettings)
-      .set({ ...body, updatedAt: new Date() })
+      .set({ ...rowChanges, updatedAt: now })
       .where(eq(shopSettings.id, 1))
       .run();
-    this.cached = null;
+    this.forget();
     this.audit.record({ actorId: actor.id, action: 'update', entity: 'shop', entityId: 1, detail: body });
-    this.uow.afterCommit(() => this.changed$.next(this.settings()));
-    // Every kiosk takes the split rule and idle sign-out from the settings.
-    this.live.publish('shop.updated', { shop: this.settings() }, { to: 'everyone' });
-    return this.settings();
+    this.uow.afterCommit(() => {
+      this.forget();
+      this.changed$.next(this.settings());
+      // Every kiosk takes the split rule and idle sign-out from the settings.
+      this.live.publish('shop.updated', { shop: this.settings() }, { to: 'everyone' });
+    });
+    return this.settings(now);
   }
+
+  private saveRules(rules: PayRules, effectiveFrom: string, actorId: number | null): void {
+    const values = { ...rulesOf(rules), effectiveFrom, recordedAt: new Date(), recordedBy: actorId };
+    this.db
+      .insert(payRules)
+      .values(values)
+      .onConflictDoUpdate({ target: payRules.effectiveFrom, set: values })
+      .run();
+    this.cachedRules = null;
+  }
+
+  private row(): SettingsRow {
+    if (this.cachedRow) return this.cachedRow;
+    const row = this.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
+    if (!row) return DEFAULT_SHOP;
+    const { id: _id, updatedAt: _updatedAt, ...settings } = row;
+    this.cachedRow = settings;
+    return settings;
+  }
+
+  private rules(): DatedPayRules[] {
+    this.cachedRules ??= this.db
+      .select()
+      .from(payRules)
+      .orderBy(asc(payRules.effectiveFrom))
+      .all()
+      .map((row) => ({ ...rulesOf(row), effectiveFrom: row.effectiveFrom }));
+    return this.cachedRules;
+  }
+
+  private forget(): void {
+    this.cachedRow = null;
+    this.cachedRules = null;
+  }
+}
+
+function pick(changes: Partial<ShopSettings>): Partial<PayRules> {
+  return Object.fromEntries(
+    PAY_RULE_FIELDS.filter((field) => field in changes).map((field) => [field, changes[field]]),
+  );
 }

@@ -4,8 +4,10 @@ import {
   BREAK_KINDS,
   FINDING_SEVERITIES,
   HOLD_REASONS,
+  isoWeekOf,
   JOB_LINE_STATUSES,
   makeVin,
+  PAY_TYPES,
   PRIORITIES,
   PUNCH_KINDS,
   REPAIR_ORDER_STATUSES,
@@ -32,6 +34,10 @@ export const POOLS = [
   'otherScreen',
   'attachment',
   'punch',
+  /** Punches held for the foreman's review. */
+  'heldPunch',
+  /** Past workweeks ('YYYY-Www'), and those closed or reopened: never the running one. */
+  'payWeek',
   'mail',
   'vin',
 ] as const;
@@ -80,6 +86,13 @@ export function readPools(
     otherScreen: column('select id from screens where id != ? order by id', callers.screenId),
     attachment: column('select id from attachments order by id desc limit 50'),
     punch: column('select id from punches order by recorded_at desc limit 100'),
+    heldPunch: column('select id from held_punches order by recorded_at desc limit 50'),
+    payWeek: [
+      ...new Set([
+        ...Array.from({ length: 8 }, (_, i) => isoWeekOf(new Date(Date.now() - (i + 2) * 7 * DAY), 'UTC')),
+        ...column('select week from pay_weeks'),
+      ]),
+    ],
     mail: mailIds,
     vin: column('select vin from vehicles order by id desc limit 100'),
   };
@@ -213,6 +226,13 @@ const vin = fc.oneof(
   fc.constantFrom('1M8GDM9AXKP042788', '1M8GDM9A4KP042788', '7Y37J5G123456'),
 );
 const page = { limit: digits(1, 4), cursor: fc.string({ maxLength: 20 }) };
+/** A day ('YYYY-MM-DD') within the span around today, in days, or one that is not a day. */
+const localDate = fc.oneof(
+  { weight: 6, arbitrary: instant(-60 * DAY, 30 * DAY).map((at) => at.slice(0, 10)) },
+  { weight: 1, arbitrary: fc.constantFrom('2026-02-30', '2026-13-01', '26-01-01', '1999-12-31') },
+);
+
+const reason = text(500, ['Checked with the technician', 'Paper timesheet matches']);
 
 const supersedingCorrection = {
   punchId: ref('punch'),
@@ -272,6 +292,9 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
         flatRateCents: cents,
         hourlyRateCents: cents,
         overtimeExempt: fc.boolean(),
+        payType: fc.constantFrom(...PAY_TYPES),
+        guaranteeCents: cents,
+        effectiveFrom: localDate,
       },
       ['name', 'role'],
     ),
@@ -291,6 +314,9 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
           hourlyRateCents: cents,
           overtimeExempt: fc.boolean(),
           active: fc.boolean(),
+          payType: fc.constantFrom(...PAY_TYPES),
+          guaranteeCents: cents,
+          effectiveFrom: localDate,
         }),
       },
       {
@@ -340,8 +366,18 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
       kioskIdleSeconds: fc.integer({ min: 15, max: 600 }),
       payNonProductiveSeparately: fc.boolean(),
       techniciansTakeUnassigned: fc.boolean(),
+      localMinimumWageCents: fc.oneof(fc.integer({ min: 725, max: 10_000 }), fc.constant(null)),
+      minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
+      longShiftHours: fc.integer({ min: 8, max: 24 }),
+      minimumClockedMinutesForDone: fc.integer({ min: 0, max: 120 }),
+      minimumClockedHoursForEfficiency: fc.integer({ min: 0, max: 200 }),
+      apportionSpanningLines: fc.boolean(),
+      kioskShowsPay: fc.boolean(),
+      payRulesFrom: localDate,
     }),
   },
+  'post /api/punches/held/:id/accept': { id: 'heldPunch', body: body({ reason }, ['reason']) },
+  'post /api/punches/held/:id/reject': { id: 'heldPunch', body: body({ reason }, ['reason']) },
   'post /api/punches': {
     // Shaped like a kiosk's punches (a line only on job punches), so that many are possible.
     body: fc.oneof(
@@ -472,6 +508,7 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
     body: body({ reason: fc.constantFrom(...HOLD_REASONS) }, ['reason']),
   },
   'post /api/job-lines/:id/resume': { id: 'jobLine', body: fc.constant({}) },
+  'post /api/job-lines/:id/sign-off': { id: 'jobLine', body: body({ reason }, ['reason']) },
   'post /api/job-lines/:id/done': { id: 'jobLine', body: body({ next: fc.constantFrom('check', 'ready') }) },
   'post /api/job-lines/:id/findings': {
     id: 'jobLine',
@@ -535,6 +572,18 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
     query: query({ week: isoWeek, format: fc.constantFrom('json', 'csv', 'pdf') }),
   },
   'get /api/reports/pay': { query: query({ week: isoWeek, format: fc.constantFrom('json', 'csv', 'pdf') }) },
+  'get /api/exceptions': { query: query({ week: isoWeek }) },
+  'post /api/exceptions/reviews': {
+    body: body(
+      {
+        key: text(120, ['open-shift:00000000-0000-4000-8000-000000000000', 'short-meal:', 'late-punch:1']),
+        note: reason,
+      },
+      ['key', 'note'],
+    ),
+  },
+  'post /api/pay-weeks/:week/close': { id: 'payWeek', body: fc.constant({}) },
+  'post /api/pay-weeks/:week/reopen': { id: 'payWeek', body: body({ reason }, ['reason']) },
   'post /api/timers': {
     // Shaped like the kiosk's two forms, a fixed hold and a temperature timer, and then anything.
     body: fc.oneof(
@@ -701,7 +750,7 @@ export function isRaw(body: unknown): body is { raw: string } {
 export function target(request: FuzzRequest, pools: Pools): string {
   const id = request.id instanceof RealId ? String(request.id.in(pools)) : request.id;
   // Ids from `badId` come encoded already; real ones are digits or uuids.
-  const path = id === null ? request.route : request.route.replace(':id', id);
+  const path = id === null ? request.route : request.route.replace(/:\w+/, id);
   if (typeof request.query === 'string') return `${path}?${request.query}`;
   const search = new URLSearchParams();
   for (const [key, value] of Object.entries(request.query)) {

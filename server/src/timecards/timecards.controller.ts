@@ -1,8 +1,12 @@
-import { Body, Controller, Get, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, Post, Query, Res } from '@nestjs/common';
+import type { Response } from 'express';
 import {
+  correctionQuerySchema,
   correctionSchema,
   timecardQuerySchema,
   type CorrectionBody,
+  type CorrectionPreview,
+  type CorrectionQuery,
   type PunchDto,
   type Timecard,
   type TimecardQuery,
@@ -25,12 +29,17 @@ export class TimecardsController {
     return this.timecards.get(query, actor);
   }
 
+  /** `?preview=true` answers 200 with what the correction would do and saves nothing. */
   @Roles('foreman', 'owner')
   @Post('corrections')
   correct(
+    @Query({ schema: correctionQuerySchema }) query: CorrectionQuery,
     @Body({ schema: correctionSchema }) body: CorrectionBody,
     @CurrentUser() actor: Principal,
-  ): PunchDto {
-    return this.timecards.correct(body, actor);
+    @Res({ passthrough: true }) response: Response,
+  ): PunchDto | CorrectionPreview {
+    if (query.preview !== 'true') return this.timecards.correct(body, actor);
+    response.status(200);
+    return this.timecards.preview(body);
   }
 }

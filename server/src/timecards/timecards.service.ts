@@ -9,15 +9,18 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, gte, inArray, lt, or } from 'drizzle-orm';
 import {
   buildLedger,
+  punchImpact,
   shopDayKey,
-  validatePunch,
   workweekBounds,
   workweekDays,
+  workweekName,
   workweekOf,
   type CorrectionBody,
+  type CorrectionPreview,
   type LedgerPunch,
   type LedgerTotals,
   type PunchDto,
+  type PunchImpact,
   type Timecard,
   type TimecardQuery,
   type TimecardTotals,
@@ -29,8 +32,10 @@ import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { toPunchDto } from '../labour/labour.service.js';
-import { FloorService } from '../floor/floor.service.js';
-import { LiveService } from '../live/live.service.js';
+import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
+import { PunchLedgerService } from '../punches/punch-ledger.service.js';
+import { PunchesService } from '../punches/punches.service.js';
+import { ReportsService } from '../reports/reports.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
 /** A shift still open at the start of the week began before it: look back this far for it. */
@@ -57,8 +62,10 @@ export class TimecardsService {
     readonly uow: UnitOfWork,
     private readonly shop: ShopService,
     private readonly audit: AuditService,
-    private readonly live: LiveService,
-    private readonly floor: FloorService,
+    private readonly punches: PunchesService,
+    private readonly ledger: PunchLedgerService,
+    private readonly reports: ReportsService,
+    private readonly closedWeeks: ClosedWeeksService,
   ) {}
 
   get(query: TimecardQuery, actor: Principal, now = new Date()): Timecard {
@@ -117,9 +124,14 @@ export class TimecardsService {
     if (anomalies.length) flags.push(`${anomalies.length} punch(es) did not fit and were not counted`);
 
     const punchIds = all.map((p) => p.id);
+    const summary = this.reports.technicianWeek(week, technicianId, actor.role, now);
+    const exceptions =
+      summary.pay?.exceptions ??
+      this.reports.exceptions(week, now).exceptions.filter((e) => e.technicianId === technicianId);
     return {
       technician: { id: technician.id, name: technician.name },
       week,
+      weekName: workweekName(week, settings),
       from: from.toISOString(),
       to: to.toISOString(),
       timeZone: settings.timeZone,
@@ -148,16 +160,68 @@ export class TimecardsService {
       totals: totals(ledger.within(from, to)),
       anomalies,
       flags,
+      held: this.punches.held(technicianId, from, to),
+      exceptions,
+      closed: summary.closed,
+      summary,
       audit: this.auditOf(punchIds),
     };
   }
 
+  /** What a correction would do, saving nothing: why it cannot be saved, or the punches it would displace. */
+  preview(body: CorrectionBody, now = new Date()): CorrectionPreview {
+    const { impact } = this.plan(body, now);
+    return { refusal: impact.refusal, displaces: this.ledger.describe(impact.displaced) };
+  }
+
   /**
    * A foreman's or owner's correction: a new punch with who, when and why. With `punchId` it
-   * supersedes that punch (which stays on record); without, it adds a missed punch.
+   * supersedes that punch (which stays on record); without, it adds a missed punch. One that would make
+   * other counted punches impossible is saved only with those punches named in `displaces` (the preview
+   * showed them): they are then voided with the same reason, each audited.
    */
   @Transactional()
   correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
+    const { candidate, impact } = this.plan(body, now);
+    if (impact.refusal)
+      throw new ConflictException(`That correction does not fit the timecard: ${impact.refusal}`);
+    const confirmed = new Set(body.displaces ?? []);
+    if (
+      impact.displaced.length !== confirmed.size ||
+      impact.displaced.some((punch) => !confirmed.has(punch.id))
+    )
+      throw new ConflictException(
+        impact.displaced.length > 0
+          ? this.punches
+              .displacementWords('That correction', impact)
+              .replace('ask the foreman to correct the timecard', 'check them in the preview and confirm')
+          : 'That correction displaces no punch any more: save it again without the confirmation',
+      );
+    const punch = this.ledger.insert(candidate, { at: now, by: actor.id, reason: body.reason });
+    const voided = this.ledger.voidDisplaced(
+      impact.displaced,
+      actor,
+      `Displaced by a correction: ${body.reason}`,
+      now,
+    );
+    this.audit.record({
+      actorId: actor.id,
+      action: body.punchId ? 'correct' : 'add-missed',
+      entity: 'punch',
+      entityId: punch.id,
+      detail: {
+        supersedes: body.punchId ?? null,
+        kind: body.kind,
+        at: body.at,
+        reason: body.reason,
+        ...(voided.length ? { voided } : {}),
+      },
+    });
+    return punch;
+  }
+
+  /** The checks every correction passes, and what it would do to the counted punches. */
+  private plan(body: CorrectionBody, now: Date): { candidate: LedgerPunch; impact: PunchImpact } {
     const at = new Date(body.at);
     if (at > now) throw new BadRequestException('A correction cannot be in the future');
     referencedOrFail(
@@ -177,7 +241,9 @@ export class TimecardsService {
         throw new BadRequestException('That punch belongs to another technician');
       const newer = this.db.select().from(punches).where(eq(punches.supersedes, body.punchId)).get();
       if (newer) throw new ConflictException('That punch was already corrected: correct the newer record');
+      this.closedWeeks.assertOpenAt(original.at, 'The punch it corrects');
     }
+    this.closedWeeks.assertOpenAt(at, 'That correction');
     if (body.jobLineId)
       referencedOrFail(
         this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
@@ -188,41 +254,13 @@ export class TimecardsService {
       technicianId: body.technicianId,
       kind: body.kind,
       jobLineId: body.jobLineId ?? null,
-      breakKind: body.kind === 'break-start' ? (body.breakKind ?? 'meal') : null,
+      // A break of no stated kind counts as paid rest, never as an unpaid meal (29 CFR 785.18).
+      breakKind: body.kind === 'break-start' ? (body.breakKind ?? null) : null,
       at: at.toISOString(),
       supersedes: body.punchId ?? null,
     };
-    const context = this.db
-      .select()
-      .from(punches)
-      .where(
-        and(
-          eq(punches.technicianId, body.technicianId),
-          gte(punches.at, new Date(at.getTime() - LOOKBACK_MS)),
-          lt(punches.at, new Date(at.getTime() + LOOKBACK_MS)),
-        ),
-      )
-      .all()
-      .map(toPunchDto);
-    const refusal = validatePunch(context, candidate, this.shop.settings());
-    if (refusal) throw new ConflictException(`That correction does not fit the timecard: ${refusal}`);
-
-    const row = this.db
-      .insert(punches)
-      .values({ ...candidate, at, recordedAt: now, recordedBy: actor.id, reason: body.reason })
-      .returning()
-      .get();
-    this.audit.record({
-      actorId: actor.id,
-      action: body.punchId ? 'correct' : 'add-missed',
-      entity: 'punch',
-      entityId: row.id,
-      detail: { supersedes: body.punchId ?? null, kind: body.kind, at: body.at, reason: body.reason },
-    });
-    const punch = toPunchDto(row);
-    this.live.publish('punch.recorded', { punch }, { to: 'floor', technicianIds: [punch.technicianId] });
-    this.floor.punchRecorded(punch);
-    return punch;
+    const impact = punchImpact(this.ledger.around(body.technicianId, at), candidate, this.shop.settings(now));
+    return { candidate, impact };
   }
 
   private namesOf(ids: number[]): Map<number, string> {

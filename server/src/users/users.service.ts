@@ -1,6 +1,12 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { asc, eq } from 'drizzle-orm';
-import type { CreateUserBody, UpdateUserBody, UserDto } from '@baytime/shared';
+import {
+  shopDayKey,
+  type CreateUserBody,
+  type PayRate,
+  type UpdateUserBody,
+  type UserDto,
+} from '@baytime/shared';
 import { hashSecret } from '../auth/passwords.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail, isUniqueViolation } from '../common/not-found.js';
@@ -10,22 +16,18 @@ import { FloorService } from '../floor/floor.service.js';
 import { users } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import type { Principal } from '../auth/principal.js';
+import { PAY_RATE_FIELDS, PayRatesService } from '../payroll/pay-rates.service.js';
+import { FIRST_RULES_FROM, ShopService } from '../shop/shop.service.js';
 
 type UserRow = typeof users.$inferSelect;
 
-export function toUserDto(row: UserRow): UserDto {
-  return {
-    id: row.id,
-    name: row.name,
-    role: row.role,
-    email: row.email,
-    badge: row.badge,
-    skillLevel: row.skillLevel,
-    flatRateCents: row.flatRateCents,
-    hourlyRateCents: row.hourlyRateCents,
-    overtimeExempt: row.overtimeExempt,
-    active: row.active,
-  };
+/** The rate fields given that differ from `current` (all given ones when there is none). */
+function rateChanges(body: Partial<PayRate>, current?: PayRate): Partial<PayRate> {
+  return Object.fromEntries(
+    PAY_RATE_FIELDS.filter((field) => body[field] !== undefined && body[field] !== current?.[field]).map(
+      (field) => [field, body[field]],
+    ),
+  );
 }
 
 @Injectable()
@@ -35,15 +37,45 @@ export class UsersService {
     private readonly uow: UnitOfWork,
     private readonly audit: AuditService,
     private readonly floor: FloorService,
+    private readonly rates: PayRatesService,
+    private readonly shop: ShopService,
     private readonly live: LiveService,
   ) {}
 
   list(): UserDto[] {
-    return this.db.select().from(users).orderBy(asc(users.name)).all().map(toUserDto);
+    return this.db
+      .select()
+      .from(users)
+      .orderBy(asc(users.name))
+      .all()
+      .map((row) => this.toDto(row));
+  }
+
+  /** A user with the rates in force today and every rate on record. */
+  toDto(row: UserRow, now = new Date()): UserDto {
+    const today = shopDayKey(now, this.shop.settings(now).timeZone);
+    const {
+      effectiveFrom: _from,
+      recordedAt: _at,
+      ...rate
+    } = this.rates.ratesOn([row.id], today).get(row.id)!;
+    return {
+      id: row.id,
+      name: row.name,
+      role: row.role,
+      email: row.email,
+      badge: row.badge,
+      skillLevel: row.skillLevel,
+      ...rate,
+      active: row.active,
+      payRates: this.rates.history(row.id),
+    };
   }
 
   async create(body: CreateUserBody, actor: Principal | null): Promise<UserDto> {
-    const { password, pin, email, ...rest } = body;
+    const { password, pin, email, effectiveFrom, ...rest } = body;
+    const rate = rateChanges(rest);
+    for (const field of PAY_RATE_FIELDS) delete rest[field];
     const secrets = {
       passwordHash: password ? await hashSecret(password) : null,
       pinHash: pin ? await hashSecret(pin) : null,
@@ -55,21 +87,32 @@ export class UsersService {
         email: email?.toLowerCase() ?? null,
         createdAt: new Date(),
       });
+      // A new technician's first rate covers every week on record unless the owner dates it.
+      if (row.role === 'technician')
+        this.rates.record(row.id, rate, effectiveFrom ?? FIRST_RULES_FROM, actor?.id ?? null);
       this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
       this.floor.techniciansChanged();
-      return toUserDto(row);
+      return this.toDto(row);
     });
   }
 
   async update(id: number, body: UpdateUserBody, actor: Principal): Promise<UserDto> {
     const current = foundOrFail(this.db.select().from(users).where(eq(users.id, id)).get(), 'User');
-    if (Object.keys(body).length === 0) return toUserDto(current);
+    if (Object.keys(body).length === 0) return this.toDto(current);
     if (body.active === false && id === actor.id)
       throw new ConflictException('You cannot deactivate your own account: ask another owner');
     if (body.role !== undefined && body.role !== current.role && id === actor.id)
       throw new ConflictException('You cannot change your own role: ask another owner');
     this.assertSignInFor(body.role ?? current.role, current, body);
-    const { password, pin, email, ...rest } = body;
+    const { password, pin, email, effectiveFrom, ...rest } = body;
+    if (Object.keys(rateChanges(rest)).length > 0 && (body.role ?? current.role) !== 'technician')
+      throw new BadRequestException('Only technicians have pay rates here');
+    // A rate as it already stands from that day is no change: nothing is recorded for it.
+    const from = effectiveFrom ?? this.rates.currentWeekStart();
+    const rate = rateChanges(rest, this.rates.ratesOn([id], from).get(id));
+    for (const field of PAY_RATE_FIELDS) delete rest[field];
+    if (effectiveFrom !== undefined && Object.keys(rate).length === 0)
+      throw new BadRequestException('effectiveFrom goes with a change of pay type, rate or overtime rule');
     const changes: Partial<typeof users.$inferInsert> = { ...rest };
     if (email !== undefined) changes.email = email.toLowerCase();
     if (password !== undefined) changes.passwordHash = await hashSecret(password);
@@ -84,19 +127,24 @@ export class UsersService {
         .map(([key, value]) => [key, { from: current[key as keyof UserRow], to: value }]),
     );
     return this.uow.run(() => {
-      const row = this.updateOrConflict(id, changes);
+      const row = Object.keys(changes).length > 0 ? this.updateOrConflict(id, changes) : current;
+      if (Object.keys(rate).length > 0) this.rates.record(id, rate, from, actor.id);
       this.audit.record({
         actorId: actor.id,
         action: 'update',
         entity: 'user',
         entityId: id,
-        detail: { fields, changes: changed },
+        detail: {
+          fields,
+          changes: changed,
+          ...(Object.keys(rate).length > 0 ? { rate, effectiveFrom: from } : {}),
+        },
       });
       this.floor.techniciansChanged();
       if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
       else if (body.role !== undefined && body.role !== current.role)
         this.live.endSessions({ userId: id }, 'role-changed');
-      return toUserDto(row);
+      return this.toDto(row);
     });
   }
 

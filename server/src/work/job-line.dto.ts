@@ -16,6 +16,7 @@ export function toJobLineDto(row: typeof jobLines.$inferSelect): JobLineDto {
     bayId: row.bayId,
     promisedAt: row.promisedAt?.toISOString() ?? null,
     completedAt: row.completedAt?.toISOString() ?? null,
+    signOff: row.signOff,
     completedBy: row.completedBy,
     concern: row.concern,
     cause: row.cause,

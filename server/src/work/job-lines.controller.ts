@@ -5,12 +5,14 @@ import {
   finishLineSchema,
   holdLineSchema,
   patchJobLineSchema,
+  resolutionSchema,
   type CancelJobLineBody,
   type EditJobLineBody,
   type FinishLineBody,
   type HoldLineBody,
   type JobLineDto,
   type PatchJobLineBody,
+  type ResolutionBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { CurrentUser, Roles } from '../common/decorators/auth.decorators.js';
@@ -86,5 +88,17 @@ export class JobLinesController {
     @CurrentUser() actor: Principal,
   ): JobLineDto {
     return this.lines.finish(id, body, actor);
+  }
+
+  /** A line done with too little clocked time: a foreman vouches for it, with a reason (audited). */
+  @Roles('foreman', 'owner')
+  @Post(':id/sign-off')
+  @HttpCode(200)
+  signOff(
+    @Param('id', { schema: idParamSchema }) id: number,
+    @Body({ schema: resolutionSchema }) body: ResolutionBody,
+    @CurrentUser() actor: Principal,
+  ): JobLineDto {
+    return this.lines.signOff(id, body, actor);
   }
 }

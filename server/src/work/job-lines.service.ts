@@ -8,6 +8,7 @@ import {
   type HoldLineBody,
   type JobLineDto,
   type PatchJobLineBody,
+  type ResolutionBody,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { referencedBay } from '../bays/referenced-bay.js';
@@ -17,9 +18,12 @@ import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { bays, findings, jobLines, punches, repairOrders, timers, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LabourService } from '../labour/labour.service.js';
 import { LineAccessService } from '../floor/line-access.service.js';
 import { LiveService } from '../live/live.service.js';
+import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchesService } from '../punches/punches.service.js';
+import { ShopService } from '../shop/shop.service.js';
 import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 import { announceLine } from './announce-line.js';
 import { toJobLineDto } from './job-line.dto.js';
@@ -43,6 +47,9 @@ export class JobLinesService {
     private readonly access: LineAccessService,
     private readonly punches: PunchesService,
     private readonly webhooks: WebhookOutbox,
+    private readonly closedWeeks: ClosedWeeksService,
+    private readonly shop: ShopService,
+    private readonly labour: LabourService,
     private readonly parts: PartsService,
   ) {}
 
@@ -54,6 +61,9 @@ export class JobLinesService {
     if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
+    if (body.completedAt) this.closedWeeks.assertOpenAt(new Date(body.completedAt), 'That completion time');
+    else if (body.status === 'done' && line.status !== 'done')
+      this.closedWeeks.assertOpenAt(now, 'Finishing that line');
 
     const changes: Partial<typeof jobLines.$inferInsert> = { updatedAt: now };
     if (body.priority) changes.priority = body.priority;
@@ -73,8 +83,9 @@ export class JobLinesService {
     if (body.status === 'held')
       Object.assign(changes, { status: 'held', holdReason: body.holdReason, heldAt: now });
     if (body.status === 'queued' || body.status === 'working')
-      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null });
+      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null, signOff: null });
     if (body.status === 'done' || body.completedAt) {
+      if (line.status !== 'done') changes.signOff = this.signOffNeeded(id, now);
       this.punches.clockOffLine(id, actor, 'Line marked done by the foreman', now);
       Object.assign(changes, {
         status: 'done',
@@ -135,6 +146,8 @@ export class JobLinesService {
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);
     if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
+    this.closedWeeks.assertOpenAt(now, 'Finishing that line');
+    const signOff = this.signOffNeeded(id, now);
     this.punches.clockOffLine(id, actor, 'Line marked done', now);
     const updated = this.save(id, {
       status: 'done',
@@ -144,6 +157,7 @@ export class JobLinesService {
       completedBy: actor.id,
       ...threeCs({ cause, correction }),
       updatedAt: now,
+      signOff,
     });
     this.afterDone(updated, next, now);
     this.audit.record({
@@ -154,6 +168,38 @@ export class JobLinesService {
       detail: { next, ...threeCs({ cause, correction }) },
     });
     return this.announce(updated);
+  }
+
+  @Transactional()
+  signOff(id: number, { reason }: ResolutionBody, actor: Principal, now = new Date()): JobLineDto {
+    const line = this.find(id);
+    if (line.status !== 'done' || line.signOff !== 'awaiting')
+      throw new ConflictException('That line is not waiting for a sign-off');
+    const updated = this.save(id, {
+      signOff: 'signed',
+      signedOffBy: actor.id,
+      signedOffAt: now,
+      signOffReason: reason,
+      updatedAt: now,
+    });
+    this.audit.record({
+      actorId: actor.id,
+      action: 'sign-off',
+      entity: 'job-line',
+      entityId: id,
+      detail: { reason },
+    });
+    return this.announce(updated);
+  }
+
+  /**
+   * Done on a line nobody clocked on would flag its book hours while the same time is paid as idle time. A
+   * line finished with less clocked time than the shop's minimum waits for a foreman's sign-off and stays
+   * out of the flagged figures until then.
+   */
+  private signOffNeeded(id: number, now: Date): 'awaiting' | null {
+    const clocked = this.labour.lineSeconds([id], now).get(id)?.total ?? 0;
+    return clocked < this.shop.settings(now).minimumClockedMinutesForDone * 60 ? 'awaiting' : null;
   }
 
   /** The advisor's corrections to a line: title, book hours, skill level and the three Cs. */

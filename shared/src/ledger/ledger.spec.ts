@@ -4,16 +4,16 @@ import { PUNCH_KINDS, type BreakKind, type PunchKind } from '../punches/punches.
 import { shopLocalInstant } from '../time/workweek.js';
 import {
   buildLedger,
+  punchImpact,
   PUNCH_REFUSALS,
   technicianState,
-  validatePunch,
   type Ledger,
   type LedgerPunch,
   type LedgerSettings,
 } from './ledger.js';
 
-const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2 };
-const single: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 1 };
+const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2, minimumMealMinutes: 30 };
+const single: LedgerSettings = { ...even, maxConcurrentJobs: 1 };
 const at = (hhmm: string) => `2026-03-10T${hhmm}:00Z`;
 const hours = (seconds: number) => seconds / 3600;
 let counter = 0;
@@ -50,10 +50,28 @@ describe(buildLedger.name, () => {
   const ledger = buildLedger(day, new Date(at('18:00')), even);
 
   it('turns a day of punches into intervals', () => {
-    expect(ledger.shifts).toEqual([{ from: new Date(at('08:00')), to: new Date(at('17:00')), open: false }]);
+    expect(ledger.shifts).toEqual([
+      { from: new Date(at('08:00')), to: new Date(at('17:00')), open: false, startPunchId: day[0]!.id },
+    ]);
     expect(ledger.breaks).toEqual([
-      { kind: 'rest', from: new Date(at('10:00')), to: new Date(at('10:15')), open: false },
-      { kind: 'meal', from: new Date(at('12:00')), to: new Date(at('12:30')), open: false },
+      {
+        kind: 'rest',
+        declared: 'rest',
+        endedBy: 'break-end',
+        from: new Date(at('10:00')),
+        to: new Date(at('10:15')),
+        open: false,
+        startPunchId: day[2]!.id,
+      },
+      {
+        kind: 'meal',
+        declared: 'meal',
+        endedBy: 'break-end',
+        from: new Date(at('12:00')),
+        to: new Date(at('12:30')),
+        open: false,
+        startPunchId: day[5]!.id,
+      },
     ]);
     expect(ledger.jobs.map((j) => j.jobLineId)).toEqual([1, 2, 1]);
     expect(ledger.anomalies).toEqual([]);
@@ -65,6 +83,73 @@ describe(buildLedger.name, () => {
     expect(hours(ledger.totals.attendanceSeconds)).toBe(8.5);
     expect(hours(ledger.totals.restBreakSeconds)).toBe(0.25);
     expect(hours(ledger.totals.mealBreakSeconds)).toBe(0.5);
+  });
+
+  describe('breaks classified by length as well as by button', () => {
+    // 29 CFR 785.19(a) (text checked in the eCFR): a bona fide meal period is ordinarily 30 minutes or more,
+    // and coffee or snack breaks are not meal periods; 785.18: rest periods of 5 to about 20 minutes are
+    // hours worked. The issue's example: shift 07:00–15:30 with a "meal" 11:00–11:20 → 8.5 h, not 8.17 h.
+    it('counts a 20-minute "meal" as paid rest: 8.5 h worked', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        pause('meal', '11:00'),
+        punch('break-end', '11:20'),
+        punch('shift-out', '15:30'),
+      ];
+      const result = buildLedger(shift, new Date(at('16:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8.5);
+      expect(result.totals.mealBreakSeconds).toBe(0);
+      expect(result.totals.restBreakSeconds).toBe(20 * 60);
+      expect(result.breaks[0]).toMatchObject({ kind: 'rest', declared: 'meal' });
+    });
+
+    // 8.5 h shift less a 30-minute bona fide meal = 8 h (785.19(a): 30 minutes ordinarily long enough).
+    it('keeps a meal of the minimum length unpaid, and follows the shop minimum', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        pause('meal', '11:00'),
+        punch('break-end', '11:30'),
+        punch('shift-out', '15:30'),
+      ];
+      expect(hours(buildLedger(shift, new Date(at('16:00')), even).totals.attendanceSeconds)).toBe(8);
+      const stricter = { ...even, minimumMealMinutes: 45 };
+      expect(hours(buildLedger(shift, new Date(at('16:00')), stricter).totals.attendanceSeconds)).toBe(8.5);
+    });
+
+    it('never counts a break of no stated kind as unpaid', () => {
+      const shift = [
+        punch('shift-in', '07:00'),
+        punch('break-start', '11:00', { breakKind: null }),
+        punch('break-end', '11:45'),
+        punch('shift-out', '15:00'),
+      ];
+      const result = buildLedger(shift, new Date(at('16:00')), even);
+      expect(hours(result.totals.attendanceSeconds)).toBe(8);
+      expect(result.breaks[0]).toMatchObject({ kind: 'rest', declared: null });
+    });
+
+    it('counts an open meal as a meal so far', () => {
+      const result = buildLedger(
+        [punch('shift-in', '07:00'), pause('meal', '11:00')],
+        new Date(at('11:10')),
+        even,
+      );
+      expect(result.breaks[0]).toMatchObject({ kind: 'meal', open: true, endedBy: null });
+      expect(hours(result.totals.attendanceSeconds)).toBe(4);
+    });
+  });
+
+  it('drops a punch voided by a later row, and the voiding row stands for nothing', () => {
+    const shiftIn = punch('shift-in', '08:00');
+    const stray = punch('shift-out', '09:00');
+    const voided = punch('shift-out', '09:00', { supersedes: stray.id, voids: true });
+    const result = buildLedger(
+      [shiftIn, stray, voided, punch('shift-out', '12:00')],
+      new Date(at('13:00')),
+      even,
+    );
+    expect(result.anomalies).toEqual([]);
+    expect(hours(result.totals.attendanceSeconds)).toBe(4);
   });
 
   it('counts clocked time per line and idle time on shift', () => {
@@ -123,13 +208,17 @@ describe(buildLedger.name, () => {
       even,
     );
     expect(result.jobs[0]!.to).toEqual(new Date(at('12:00')));
-    expect(result.breaks[0]).toMatchObject({ to: new Date(at('12:30')), open: false });
+    expect(result.breaks[0]).toMatchObject({ to: new Date(at('12:30')), open: false, endedBy: 'shift-out' });
     expect(result.shifts[0]!.open).toBe(false);
   });
 
   it('runs open intervals to now', () => {
     const result = buildLedger([punch('shift-in', '08:00'), on(4, '09:00')], new Date(at('10:30')), even);
-    expect(result.shifts[0]).toEqual({ from: new Date(at('08:00')), to: new Date(at('10:30')), open: true });
+    expect(result.shifts[0]).toMatchObject({
+      from: new Date(at('08:00')),
+      to: new Date(at('10:30')),
+      open: true,
+    });
     expect(result.totals.jobSeconds).toEqual({ 4: 1.5 * 3600 });
   });
 
@@ -166,6 +255,22 @@ describe(buildLedger.name, () => {
     ]);
     expect(hours(result.totals.attendanceSeconds)).toBe(4.5);
     expect(result.totals.jobSeconds).toEqual({ 1: 0.5 * 3600 });
+  });
+
+  it('takes punches at the same instant in the order a day runs, whatever their ids', () => {
+    const same = [
+      punch('shift-in', '08:00', { id: 'z1' }),
+      on(1, '08:00'),
+      off(1, '12:00'),
+      punch('break-start', '12:00', { id: 'a1', breakKind: 'meal' }),
+      punch('break-end', '12:30', { id: 'z2' }),
+      punch('job-on', '12:30', { id: 'a2', jobLineId: 1 }),
+      punch('shift-out', '16:00', { id: 'a3' }),
+      off(1, '16:00'),
+    ];
+    const result = buildLedger(same, new Date(at('17:00')), even);
+    expect(result.anomalies).toEqual([]);
+    expect(hours(result.totals.clockedSeconds)).toBe(7.5);
   });
 
   it('counts a duplicated punch once', () => {
@@ -283,7 +388,7 @@ describe(technicianState.name, () => {
   });
 });
 
-describe(validatePunch.name, () => {
+describe(`${punchImpact.name}: refusals`, () => {
   const onShift = [punch('shift-in', '08:00'), on(1, '08:30')];
 
   it.each([
@@ -298,17 +403,66 @@ describe(validatePunch.name, () => {
     ['shift-in twice', onShift, punch('shift-in', '09:00'), 'You are already on shift'],
     ['job-off on another line', onShift, off(2, '09:00'), 'You are not clocked on that line'],
   ])('refuses %s', (_, existing, next, reason) => {
-    expect(validatePunch(existing, next, even)).toBe(reason);
+    expect(punchImpact(existing, next, even).refusal).toBe(reason);
   });
 
   it('accepts a possible punch', () => {
-    expect(validatePunch(onShift, off(1, '09:00'), even)).toBeNull();
+    expect(punchImpact(onShift, off(1, '09:00'), even)).toEqual({
+      refusal: null,
+      displaced: [],
+      lowersCounted: false,
+    });
   });
 
   it('judges a late offline punch where it falls in time', () => {
     const existing = [punch('shift-in', '08:00'), punch('shift-out', '12:00')];
-    expect(validatePunch(existing, on(1, '09:00'), even)).toBeNull();
-    expect(validatePunch(existing, on(1, '13:00'), even)).toBe('You are not on shift');
+    expect(punchImpact(existing, on(1, '09:00'), even).refusal).toBeNull();
+    expect(punchImpact(existing, on(1, '13:00'), even).refusal).toBe('You are not on shift');
+  });
+});
+
+describe(punchImpact.name, () => {
+  // The issue's example: an offline tablet uploads a shift-out stamped before the day's last job punches.
+  const day = [punch('shift-in', '08:00'), on(1, '14:00'), off(1, '16:00'), punch('shift-out', '17:00')];
+
+  it('names the counted punches a late shift-out would make impossible', () => {
+    const late = punch('shift-out', '13:00');
+    const impact = punchImpact(day, late, even);
+    expect(impact.refusal).toBeNull();
+    expect(impact.displaced.map((p) => p.id)).toEqual([day[1]!.id, day[2]!.id, day[3]!.id]);
+    expect(impact.lowersCounted).toBe(true);
+  });
+
+  it('sees a late meal that a later shift-out would stretch over counted time', () => {
+    const meal = pause('meal', '12:00');
+    const impact = punchImpact([punch('shift-in', '08:00'), punch('shift-out', '17:00')], meal, even);
+    expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: true });
+  });
+
+  it('takes a difference within the clock slack between tablets (2 min) for no change', () => {
+    // A rest break tapped on another tablet closes the job a minute before the shift-out that closed it.
+    const shift = [punch('shift-in', '08:00'), on(1, '08:00'), punch('shift-out', '12:00')];
+    expect(punchImpact(shift, pause('rest', '11:59'), even)).toEqual({
+      refusal: null,
+      displaced: [],
+      lowersCounted: false,
+    });
+    expect(punchImpact(shift, pause('rest', '11:57'), even).lowersCounted).toBe(true);
+  });
+
+  it('lets a punch after the last counted one change nothing counted', () => {
+    const meal = pause('meal', '12:00');
+    const impact = punchImpact([punch('shift-in', '08:00'), on(1, '09:00')], meal, even);
+    expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: false });
+  });
+
+  it('gives the refusal of a punch that does not fit itself', () => {
+    expect(punchImpact([], on(1, '09:00'), even).refusal).toBe(PUNCH_REFUSALS.notOnShift);
+  });
+
+  it('does not count a punch a correction replaces as displaced', () => {
+    const moved = punch('shift-out', '16:30', { supersedes: day[3]!.id });
+    expect(punchImpact(day, moved, even).displaced).toEqual([]);
   });
 });
 
@@ -342,6 +496,7 @@ describe(`${buildLedger.name} properties`, () => {
   const settingsArb = fc.record({
     concurrentSplit: fc.constantFrom('even' as const, 'full' as const),
     maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
+    minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
   });
   const now = new Date(base + 17 * 3600_000);
   const plain = ({ shifts, breaks, jobs, anomalies, totals }: Ledger) => ({

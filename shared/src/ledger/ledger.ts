@@ -1,21 +1,37 @@
 import type { ShiftStatus } from '../punches/my-day.schema.js';
-import type { BreakKind, PunchDto } from '../punches/punches.schema.js';
+import {
+  MAX_PUNCH_CLOCK_SKEW_SECONDS,
+  type BreakKind,
+  type PunchDto,
+  type PunchKind,
+} from '../punches/punches.schema.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 
 export type LedgerPunch = Pick<
   PunchDto,
   'id' | 'technicianId' | 'kind' | 'jobLineId' | 'breakKind' | 'at' | 'supersedes'
+> &
+  Partial<Pick<PunchDto, 'voids'>>;
+export type LedgerSettings = Pick<
+  ShopSettings,
+  'concurrentSplit' | 'maxConcurrentJobs' | 'minimumMealMinutes'
 >;
-export type LedgerSettings = Pick<ShopSettings, 'concurrentSplit' | 'maxConcurrentJobs'>;
 
 export interface LedgerInterval {
   from: Date;
   to: Date;
   /** Still running: `to` is `now`. */
   open: boolean;
+  /** The punch that opened it. */
+  startPunchId: string;
 }
 export interface BreakInterval extends LedgerInterval {
+  /** How it counts: a "meal" shorter than the shop's minimum bona fide meal counts as paid rest. */
   kind: BreakKind;
+  /** The kind the technician chose; null when the punch said none (it then counts as rest, never unpaid). */
+  declared: BreakKind | null;
+  /** What closed it: its own break-end, or a shift-out (a break never ended); null while open. */
+  endedBy: 'break-end' | 'shift-out' | null;
 }
 export interface JobInterval extends LedgerInterval {
   jobLineId: number;
@@ -26,7 +42,7 @@ export interface LedgerAnomaly {
 }
 
 export interface LedgerTotals {
-  /** Shift time less meal breaks; rest breaks stay in (29 CFR 785.18/785.19). */
+  /** Shift time less bona fide meal breaks; rest breaks and short "meals" stay in (29 CFR 785.18/785.19). */
   attendanceSeconds: number;
   /** Wall time clocked on any job line, counted once however many lines were open. */
   clockedSeconds: number;
@@ -67,15 +83,36 @@ export const PUNCH_REFUSALS = {
   noLine: 'Say which job line',
 } as const;
 
-/** Effective punches in time order: duplicates once, superseded ones dropped, ties broken by id. */
+/**
+ * Punches at the same instant (a paper timesheet's "job off 12:00, lunch 12:00") in the order a day runs:
+ * the shift opens, a break ends and a job closes before a job opens, a break starts or the shift closes.
+ */
+const SAME_INSTANT_ORDER: Record<PunchKind, number> = {
+  'shift-in': 0,
+  'break-end': 1,
+  'job-off': 2,
+  'job-on': 3,
+  'break-start': 4,
+  'shift-out': 5,
+};
+
+/**
+ * Effective punches in time order: duplicates once, superseded ones dropped, ties broken by id. A row that
+ * `voids` the punch it supersedes takes it out without standing in for it.
+ */
 function effectivePunches(punches: readonly LedgerPunch[]): LedgerPunch[] {
   const byId = new Map<string, LedgerPunch>();
   for (const punch of punches) if (!byId.has(punch.id)) byId.set(punch.id, punch);
   const superseded = new Set([...byId.values()].map((p) => p.supersedes).filter((id) => id !== null));
   return [...byId.values()]
-    .filter((p) => !superseded.has(p.id))
+    .filter((p) => !superseded.has(p.id) && !p.voids)
     .map((p) => ({ punch: p, ms: Date.parse(p.at) }))
-    .sort((a, b) => a.ms - b.ms || (a.punch.id < b.punch.id ? -1 : a.punch.id > b.punch.id ? 1 : 0))
+    .sort(
+      (a, b) =>
+        a.ms - b.ms ||
+        SAME_INSTANT_ORDER[a.punch.kind] - SAME_INSTANT_ORDER[b.punch.kind] ||
+        (a.punch.id < b.punch.id ? -1 : a.punch.id > b.punch.id ? 1 : 0),
+    )
     .map(({ punch }) => punch);
 }
 
@@ -138,14 +175,16 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
   const breaks: BreakInterval[] = [];
   const jobs: JobInterval[] = [];
   const anomalies: LedgerAnomaly[] = [];
-  let shiftFrom: number | null = null;
-  let openBreak: { from: number; kind: BreakKind } | null = null;
-  const openJobs = new Map<number, number>(); // job line → start; insertion order is oldest first
+  let openShift: { from: number; punchId: string } | null = null;
+  let openBreak: { from: number; declared: BreakKind | null; punchId: string } | null = null;
+  const openJobs = new Map<number, { from: number; punchId: string }>(); // insertion order is oldest first
+  const minimumMealMs = settings.minimumMealMinutes * 60_000;
 
-  const span = (from: number, to: number, open = false) => ({
-    from: new Date(from),
-    to: new Date(Math.max(from, to)),
+  const span = (start: { from: number; punchId: string }, to: number, open = false): LedgerInterval => ({
+    from: new Date(start.from),
+    to: new Date(Math.max(start.from, to)),
     open,
+    startPunchId: start.punchId,
   });
   const closeJob = (jobLineId: number, at: number, open = false) => {
     jobs.push({ ...span(openJobs.get(jobLineId)!, at, open), jobLineId });
@@ -153,8 +192,15 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
   };
   const closeJobs = (at: number, open = false) =>
     [...openJobs.keys()].forEach((id) => closeJob(id, at, open));
-  const closeBreak = (at: number, open = false) => {
-    if (openBreak) breaks.push({ ...span(openBreak.from, at, open), kind: openBreak.kind });
+  const closeBreak = (at: number, endedBy: BreakInterval['endedBy']) => {
+    if (!openBreak) return;
+    const interval = span(openBreak, at, endedBy === null);
+    // 29 CFR 785.19(a): a bona fide meal period is ordinarily 30 minutes or more; shorter ones, and breaks
+    // of no stated kind, are rest periods and hours worked (785.18). An open meal counts as a meal so far.
+    const meal =
+      openBreak.declared === 'meal' &&
+      (endedBy === null || interval.to.getTime() - interval.from.getTime() >= minimumMealMs);
+    breaks.push({ ...interval, kind: meal ? 'meal' : 'rest', declared: openBreak.declared, endedBy });
     openBreak = null;
   };
 
@@ -162,33 +208,33 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
     const at = Date.parse(punch.at);
     const line = punch.jobLineId;
     if (punch.kind === 'shift-in') {
-      if (shiftFrom !== null) return PUNCH_REFUSALS.alreadyOnShift;
-      shiftFrom = at;
+      if (openShift !== null) return PUNCH_REFUSALS.alreadyOnShift;
+      openShift = { from: at, punchId: punch.id };
       return null;
     }
-    if (shiftFrom === null) return PUNCH_REFUSALS.notOnShift;
+    if (openShift === null) return PUNCH_REFUSALS.notOnShift;
     switch (punch.kind) {
       case 'shift-out':
         closeJobs(at);
-        closeBreak(at);
-        shifts.push(span(shiftFrom, at));
-        shiftFrom = null;
+        closeBreak(at, 'shift-out');
+        shifts.push(span(openShift, at));
+        openShift = null;
         return null;
       case 'break-start':
         if (openBreak) return PUNCH_REFUSALS.alreadyOnBreak;
         closeJobs(at);
-        openBreak = { from: at, kind: punch.breakKind ?? 'meal' };
+        openBreak = { from: at, declared: punch.breakKind, punchId: punch.id };
         return null;
       case 'break-end':
         if (!openBreak) return PUNCH_REFUSALS.noBreak;
-        closeBreak(at);
+        closeBreak(at, 'break-end');
         return null;
       case 'job-on':
         if (openBreak) return PUNCH_REFUSALS.onBreak;
         if (line === null) return PUNCH_REFUSALS.noLine;
         if (openJobs.has(line)) return PUNCH_REFUSALS.alreadyOnLine;
         if (openJobs.size >= settings.maxConcurrentJobs) closeJob(openJobs.keys().next().value!, at);
-        openJobs.set(line, at);
+        openJobs.set(line, { from: at, punchId: punch.id });
         return null;
       case 'job-off':
         if (line === null || !openJobs.has(line)) return PUNCH_REFUSALS.notOnLine;
@@ -202,8 +248,8 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
   }
   const end = now.getTime();
   closeJobs(end, true);
-  closeBreak(end, true);
-  if (shiftFrom !== null) shifts.push(span(shiftFrom, end, true));
+  closeBreak(end, null);
+  if (openShift !== null) shifts.push(span(openShift, end, true));
 
   const intervals = { shifts, breaks, jobs };
   return {
@@ -227,15 +273,45 @@ export function technicianState(ledger: Ledger): TechnicianState {
   };
 }
 
+export interface PunchImpact {
+  /** Why the punch itself cannot be recorded where it falls, in plain words; null when it fits. */
+  refusal: string | null;
+  /** Punches that count now and would no longer fit once this one is in, in time order. */
+  displaced: LedgerPunch[];
+  /**
+   * The attendance or clocked time already counted (up to the last counted punch) would drop by more than
+   * the clock slack between tablets (MAX_PUNCH_CLOCK_SKEW_SECONDS).
+   */
+  lowersCounted: boolean;
+}
+
 /**
- * Why `punch` cannot be recorded, in plain words, or null when it can. It is judged where it falls in
- * time among the existing punches, so a punch replayed late from an offline kiosk is judged fairly.
+ * What recording `punch` would do to the punches already counted. A punch that arrives late (an offline
+ * replay, a correction) can fit where it falls and still make later punches impossible: those are the
+ * displaced ones, and the counted hours of the past must never change without a person deciding.
  */
-export function validatePunch(
+export function punchImpact(
   existing: readonly LedgerPunch[],
   punch: LedgerPunch,
   settings: LedgerSettings,
-): string | null {
-  const ledger = buildLedger([...existing, punch], new Date(Date.parse(punch.at)), settings);
-  return ledger.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
+): PunchImpact {
+  const lastCounted = effectivePunches(existing).at(-1);
+  const countedUntil = lastCounted ? Date.parse(lastCounted.at) : -Infinity;
+  const horizon = new Date(Math.max(countedUntil, Date.parse(punch.at)));
+  const before = buildLedger(existing, horizon, settings);
+  const after = buildLedger([...existing, punch], horizon, settings);
+  const refusal = after.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
+  const wasAnomaly = new Set(before.anomalies.map((a) => a.punchId));
+  const byId = new Map(existing.map((p) => [p.id, p]));
+  const displaced = after.anomalies
+    .filter((a) => a.punchId !== punch.id && !wasAnomaly.has(a.punchId))
+    .map((a) => byId.get(a.punchId)!);
+  const window = [new Date(-8.64e15), new Date(Math.max(countedUntil, -8.64e15))] as const;
+  const [was, will] = [before.within(...window), after.within(...window)];
+  // Two tablets' clocks may differ by a little: a change that small is not a change of counted time.
+  const slack = MAX_PUNCH_CLOCK_SKEW_SECONDS;
+  const lowersCounted =
+    will.attendanceSeconds < was.attendanceSeconds - slack ||
+    will.clockedSeconds < was.clockedSeconds - slack;
+  return { refusal, displaced, lowersCounted };
 }

@@ -1,7 +1,9 @@
 import { z } from 'zod';
+import type { TimeException } from '../exceptions/exceptions.schema.js';
 import { idTextSchema } from '../input/fields.js';
+import type { WeekSummary } from '../reports/report.schema.js';
 import { isoWeekSchema } from '../time/workweek.js';
-import type { PunchDto } from './punches.schema.js';
+import type { HeldPunchDto, PunchDto } from './punches.schema.js';
 
 export const timecardQuerySchema = z.object({
   technicianId: idTextSchema.optional(),
@@ -34,9 +36,17 @@ export interface TimecardInterval {
   open: boolean;
 }
 
+export const correctionQuerySchema = z.object({
+  /** `true`: say what the correction would do, save nothing. */
+  preview: z.enum(['true', 'false']).optional(),
+});
+export type CorrectionQuery = z.infer<typeof correctionQuerySchema>;
+
 export interface Timecard {
   technician: { id: number; name: string };
   week: string;
+  /** "Week of Sun, Nov 29". */
+  weekName: string;
   from: string;
   to: string;
   timeZone: string;
@@ -55,5 +65,13 @@ export interface Timecard {
   anomalies: { punchId: string; reason: string }[];
   /** Things to look at in plain words, e.g. a shift still open from an earlier day. */
   flags: string[];
+  /** Late punches kept out of the count until the foreman accepts or rejects them. */
+  held: HeldPunchDto[];
+  /** The week's exceptions for this technician (see the shop-wide list). */
+  exceptions: TimeException[];
+  /** The week closed for pay: nothing dated in it can change. */
+  closed: boolean;
+  /** Flagged, clocked, efficiency and (where shown) estimated pay: the figures of the reports. */
+  summary: WeekSummary;
   audit: { at: string; actor: string; action: string; detail: Record<string, unknown> | null }[];
 }

@@ -1,19 +1,53 @@
 import { describe, expect, it } from 'vitest';
-import { KPI_FORMULAS, KPI_GUIDELINES, labourKpis, shareFlaggedHours, shopLabourKpis } from './kpis.js';
+import {
+  KPI_FORMULAS,
+  KPI_GUIDELINES,
+  labourKpis,
+  shareFlaggedHours,
+  shopLabourKpis,
+  type LabourHours,
+} from './kpis.js';
+
+const hours = (attendanceHours: number, clockedHours: number, flaggedHours: number): LabourHours => ({
+  attendanceHours,
+  clockedHours,
+  flaggedHours,
+  matchedClockedHours: clockedHours,
+  workInProgressHours: 0,
+});
 
 describe(labourKpis.name, () => {
   // NADA definitions via a dealer association bulletin "Measuring technician performance":
-  // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %.
+  // available 40 h, worked on jobs 36 h, flagged 45 h → 90 %, 125 %, 112.5 %. All lines finished: matched = clocked.
   it('gives 90 %, 125 %, 112.5 % for 40 h available, 36 h clocked, 45 h flagged', () => {
-    const kpis = labourKpis({ attendanceHours: 40, clockedHours: 36, flaggedHours: 45 });
+    const kpis = labourKpis(hours(40, 36, 45));
     expect(kpis.productivity).toBeCloseTo(0.9, 12);
     expect(kpis.efficiency).toBeCloseTo(1.25, 12);
     expect(kpis.proficiency).toBeCloseTo(1.125, 12);
     expect(kpis.proficiency).toBeCloseTo(kpis.productivity! * kpis.efficiency!, 12);
   });
 
+  // Common practice (the matched basis; no published source): a 10 h line clocked 6 h last week and
+  // 4 h this week, finished this week, is 10 ÷ 10 = 100 % this week, not 10 ÷ 4 = 250 %; 3 h clocked this
+  // week on an unfinished line is work in progress, not in the ratio.
+  it('divides flagged hours by all the time clocked on the same finished lines', () => {
+    const kpis = labourKpis({
+      attendanceHours: 8,
+      clockedHours: 7,
+      flaggedHours: 10,
+      matchedClockedHours: 10,
+      workInProgressHours: 3,
+    });
+    expect(kpis).toMatchObject({
+      efficiency: 1,
+      workInProgressHours: 3,
+      productivity: 7 / 8,
+      proficiency: 10 / 8,
+    });
+  });
+
   it('gives null instead of dividing by zero', () => {
-    expect(labourKpis({ attendanceHours: 0, clockedHours: 0, flaggedHours: 2 })).toMatchObject({
+    expect(labourKpis(hours(0, 0, 2))).toMatchObject({
       productivity: null,
       efficiency: null,
       proficiency: null,
@@ -27,14 +61,14 @@ describe(shopLabourKpis.name, () => {
   // The split over eight technicians is invented; only the totals are published.
   it('sums the hours first, then takes the ratios', () => {
     const techs = [
-      { attendanceHours: 190, clockedHours: 170, flaggedHours: 200 },
-      { attendanceHours: 185.5, clockedHours: 160.2, flaggedHours: 150.3 },
-      { attendanceHours: 180, clockedHours: 150, flaggedHours: 170 },
-      { attendanceHours: 186, clockedHours: 166.5, flaggedHours: 190.5 },
-      { attendanceHours: 184, clockedHours: 150, flaggedHours: 140 },
-      { attendanceHours: 188, clockedHours: 165, flaggedHours: 180 },
-      { attendanceHours: 185, clockedHours: 162, flaggedHours: 171 },
-      { attendanceHours: 185, clockedHours: 160, flaggedHours: 160 },
+      hours(190, 170, 200),
+      hours(185.5, 160.2, 150.3),
+      hours(180, 150, 170),
+      hours(186, 166.5, 190.5),
+      hours(184, 150, 140),
+      hours(188, 165, 180),
+      hours(185, 162, 171),
+      hours(185, 160, 160),
     ];
     const shop = shopLabourKpis(techs);
     expect(shop.attendanceHours).toBeCloseTo(1483.5, 9);
@@ -46,10 +80,7 @@ describe(shopLabourKpis.name, () => {
   });
 
   it('weights technicians by their hours, not by head', () => {
-    const shop = shopLabourKpis([
-      { attendanceHours: 40, clockedHours: 40, flaggedHours: 60 },
-      { attendanceHours: 10, clockedHours: 10, flaggedHours: 5 },
-    ]);
+    const shop = shopLabourKpis([hours(40, 40, 60), hours(10, 10, 5)]);
     expect(shop.efficiency).toBeCloseTo(65 / 50, 12); // the mean of ratios would be 1.0
   });
 });
@@ -67,7 +98,9 @@ describe('KPI guidelines and formulas', () => {
 
   it('spells out each formula for the report page', () => {
     expect(KPI_FORMULAS.productivity).toMatch(/clocked job hours ÷ attendance hours/);
-    expect(KPI_FORMULAS.efficiency).toMatch(/flagged hours ÷ clocked job hours/);
+    expect(KPI_FORMULAS.efficiency).toMatch(
+      /lines finished this week ÷ all the hours clocked on those same lines/,
+    );
     expect(KPI_FORMULAS.proficiency).toMatch(/flagged hours ÷ attendance hours/);
   });
 });

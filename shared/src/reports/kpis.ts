@@ -1,7 +1,13 @@
 export interface LabourHours {
   attendanceHours: number;
+  /** Time clocked on job lines in the week. */
   clockedHours: number;
+  /** Book hours of the lines finished in the week (each technician's share). */
   flaggedHours: number;
+  /** All the time clocked on those same finished lines, in any week: efficiency's matched divisor. */
+  matchedClockedHours: number;
+  /** Time clocked in the week on lines not finished by its end. */
+  workInProgressHours: number;
 }
 
 /** Ratios as fractions (0.9 = 90 %); null when the divisor is zero. */
@@ -24,9 +30,16 @@ export const KPI_GUIDELINES: Record<KpiName, { low: number; high: number }> = {
 
 export const KPI_FORMULAS: Record<KpiName, string> = {
   productivity: 'Productivity = clocked job hours ÷ attendance hours',
-  efficiency: 'Efficiency = flagged hours ÷ clocked job hours',
-  proficiency: 'Proficiency = flagged hours ÷ attendance hours (= productivity × efficiency)',
+  efficiency:
+    'Efficiency = flagged hours of the lines finished this week ÷ all the hours clocked on those same lines, in any week',
+  proficiency: 'Proficiency = flagged hours ÷ attendance hours',
 };
+
+/** Why efficiency is matched, and what work in progress is. */
+export const EFFICIENCY_NOTE =
+  'Efficiency compares each finished line with the time clocked on it, whenever that was, so a long job does ' +
+  'not swing one week to 0 % and the next to 200 %. Work in progress is the time clocked this week on lines ' +
+  'not finished yet: it counts in efficiency the week the line is finished.';
 
 export const KPI_NAMES_NOTE =
   'Trade sources disagree on these names (some call flagged ÷ attendance hours "productivity"): read the formulas.';
@@ -34,13 +47,15 @@ export const KPI_NAMES_NOTE =
 const ratio = (numerator: number, denominator: number) => (denominator > 0 ? numerator / denominator : null);
 
 export function labourKpis(hours: LabourHours): LabourReportRow {
-  const { attendanceHours, clockedHours, flaggedHours } = hours;
+  const { attendanceHours, clockedHours, flaggedHours, matchedClockedHours, workInProgressHours } = hours;
   return {
     attendanceHours,
     clockedHours,
     flaggedHours,
+    matchedClockedHours,
+    workInProgressHours,
     productivity: ratio(clockedHours, attendanceHours),
-    efficiency: ratio(flaggedHours, clockedHours),
+    efficiency: ratio(flaggedHours, matchedClockedHours),
     proficiency: ratio(flaggedHours, attendanceHours),
   };
 }
@@ -52,6 +67,8 @@ export function shopLabourKpis(technicians: readonly LabourHours[]): LabourRepor
     attendanceHours: add((h) => h.attendanceHours),
     clockedHours: add((h) => h.clockedHours),
     flaggedHours: add((h) => h.flaggedHours),
+    matchedClockedHours: add((h) => h.matchedClockedHours),
+    workInProgressHours: add((h) => h.workInProgressHours),
   });
 }
 

@@ -1,12 +1,18 @@
 import { z } from 'zod';
-import { OVERTIME_RULES } from '../shop/shop.schema.js';
+import type { TimeException } from '../exceptions/exceptions.schema.js';
+import { plainText } from '../input/fields.js';
+import type { PayRate } from '../pay/pay-types.js';
+import { OVERTIME_RULES, type DatedPayRules } from '../shop/shop.schema.js';
 import { isoWeekSchema } from '../time/workweek.js';
 import type { KpiName, LabourReportRow } from './kpis.js';
 
 export const REPORT_FORMATS = ['json', 'csv'] as const;
 export type ReportFormat = (typeof REPORT_FORMATS)[number];
 
-/** `GET /api/reports/labour` and `/pay`: the shop workweek that starts in ISO week `week` (default: now). */
+/**
+ * `GET /api/reports/labour` and `/pay`: `week=YYYY-Www` names the shop workweek that starts in that ISO week
+ * (the same week when the shop's week starts on Monday at 00:00); default the one running now.
+ */
 export const reportQuerySchema = z.object({
   week: isoWeekSchema.optional(),
   format: z.enum(REPORT_FORMATS).optional(),
@@ -45,6 +51,8 @@ export interface LabourReportTechnician extends LabourReportRow {
 
 export interface LabourTrendWeek extends LabourReportRow {
   week: string;
+  /** "Week of Sun, Nov 29". */
+  weekName: string;
 }
 
 export interface BayUtilisationDay {
@@ -64,6 +72,8 @@ export interface BayUtilisation {
 
 export interface LabourReport {
   week: string;
+  /** "Week of Sun, Nov 29": the shop workweek by its first day. */
+  weekName: string;
   /** Start and end (exclusive) of the shop workweek, ISO 8601. */
   from: string;
   to: string;
@@ -75,22 +85,51 @@ export interface LabourReport {
   guidelines: Record<KpiName, { low: number; high: number }>;
   /** Trade sources disagree on the names: read the formulas. */
   namesNote: string;
+  /** Why efficiency is on a matched basis, and what work in progress means. */
+  efficiencyNote: string;
   /** The shop over the LABOUR_TREND_WEEKS workweeks ending with this one, oldest first. */
   trend: LabourTrendWeek[];
   bayUtilisation: BayUtilisation[];
 }
 
-export interface PayReportTechnician {
+/** A closed week's figures changed after it was closed: the difference is paid in the first open week. */
+export interface PayAdjustment {
+  technicianId: number;
+  /** The closed week the difference belongs to. */
+  forWeek: string;
+  forWeekName: string;
+  flaggedHours: number;
+  cents: number;
+}
+
+/** 29 CFR 778.119 by analogy: overtime owed for an earlier week on flat-rate pay finished this week. */
+export interface AdditionalOvertime {
+  forWeek: string;
+  forWeekName: string;
+  cents: number;
+}
+
+export interface PayReportTechnician extends PayRate {
   technicianId: number;
   name: string;
-  flatRateCents: number;
-  hourlyRateCents: number;
-  overtimeExempt: boolean;
+  /** The day the rates shown took effect. */
+  rateFrom: string;
   flaggedHours: number;
   flaggedPayCents: number;
+  /** 29 CFR 778.111(b): what the hourly guarantee adds to the flat-rate pay. */
+  guaranteeTopUpCents: number;
+  /** Hourly pay type: every hour worked × the hourly rate. */
+  hourlyPayCents: number;
+  /** Wage-statement figures (California Labor Code 226.2): rest periods and other non-productive time. */
+  restHours: number;
+  restRateCents: number | null;
+  restPayCents: number;
+  otherNonProductiveHours: number;
+  otherNonProductivePayCents: number;
+  /** Rest pay plus other non-productive pay. */
   nonProductivePayCents: number;
   straightTimeCents: number;
-  /** Attendance hours: shift time less meal breaks, paid rest breaks included. */
+  /** Attendance hours: shift time less bona fide meal breaks, paid rest breaks included. */
   hoursWorked: number;
   regularRateCents: number;
   /** Hours paid a premium: time-and-a-half and double-time together. */
@@ -98,7 +137,17 @@ export interface PayReportTechnician {
   doubleTimeHours: number;
   overtimePremiumCents: number;
   minimumWageTopUpCents: number;
+  /** California Labor Code 226.7: estimated meal premiums, one hour at the regular rate per workday. */
+  mealPremiumDays: number;
+  mealPremiumCents: number;
+  /** This week's own pay. */
   totalCents: number;
+  additionalOvertime: AdditionalOvertime[];
+  additionalOvertimeCents: number;
+  adjustments: PayAdjustment[];
+  adjustmentCents: number;
+  /** Paid this week: its own pay, additional overtime for earlier weeks and adjustments for closed weeks. */
+  payableCents: number;
   /** Flat-rate and non-productive pay fell short of the minimum wage for all hours worked. */
   underMinimumWage: boolean;
   /**
@@ -106,6 +155,8 @@ export interface PayReportTechnician {
    * worked so far or projected for the week at the pace so far over the shop's opening hours.
    */
   nearOvertime: boolean;
+  exceptions: TimeException[];
+  unresolvedExceptions: number;
 }
 
 export interface PayReportTotals {
@@ -113,23 +164,74 @@ export interface PayReportTotals {
   hoursWorked: number;
   overtimeHours: number;
   doubleTimeHours: number;
+  restHours: number;
+  otherNonProductiveHours: number;
   flaggedPayCents: number;
+  guaranteeTopUpCents: number;
+  hourlyPayCents: number;
+  restPayCents: number;
+  otherNonProductivePayCents: number;
   nonProductivePayCents: number;
   straightTimeCents: number;
   overtimePremiumCents: number;
   minimumWageTopUpCents: number;
+  mealPremiumCents: number;
   totalCents: number;
+  additionalOvertimeCents: number;
+  adjustmentCents: number;
+  payableCents: number;
 }
 
 export interface PayReport {
   week: string;
+  weekName: string;
   from: string;
   to: string;
   timeZone: string;
+  /** The overtime rules in force when the week began. */
   rules: (typeof OVERTIME_RULES)[number];
+  /** The highest of the federal, state and local minimum wages in force when the week began. */
   minimumWageCents: number;
+  payRules: DatedPayRules;
   /** PAY_ESTIMATE_CAUTION: the figures are an estimate. */
   caution: string;
+  /** MONEY_ROUNDING_RULE. */
+  rounding: string;
+  /** Whether 29 CFR 778.119 apportioning of lines spanning weeks is on, and what it means. */
+  apportionSpanningLines: boolean;
+  /** Closed pay weeks answer from the figures saved when they were closed. */
+  closed: boolean;
+  closedAt: string | null;
+  closedBy: string | null;
   technicians: PayReportTechnician[];
   totals: PayReportTotals;
+  /** Every adjustment paid this week, for closed weeks that changed after closing. */
+  adjustments: PayAdjustment[];
+  /** Exceptions not yet dealt with: the week's figures are not final while this is above 0. */
+  unresolvedExceptions: number;
 }
+
+/** A technician's week in one place: the same figures as the labour report and the pay summary. */
+export interface WeekSummary {
+  labour: LabourReportRow;
+  /** Null when the kiosk is asked and the shop hides pay there. */
+  pay: PayReportTechnician | null;
+  closed: boolean;
+  caution: string;
+}
+
+/** `POST /api/pay-weeks/:week/close` and `/reopen`: the state of a pay week. */
+export interface PayWeekState {
+  week: string;
+  weekName: string;
+  closed: boolean;
+  closedAt: string | null;
+  closedBy: string | null;
+  reopenedAt: string | null;
+  reopenReason: string | null;
+}
+
+export const reopenWeekSchema = z.object({
+  reason: plainText(500, { min: 3, multiline: true, message: 'Say why the week is reopened' }),
+});
+export type ReopenWeekBody = z.infer<typeof reopenWeekSchema>;

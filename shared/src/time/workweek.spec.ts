@@ -8,6 +8,7 @@ import {
   shopLocalInstant,
   workweekBounds,
   workweekDays,
+  workweekName,
   workweekOf,
 } from './workweek.js';
 
@@ -168,5 +169,15 @@ describe(workweekDays.name, () => {
       from: shopLocalInstant('2026-11-01', '06:00', CHICAGO),
       to: shopLocalInstant('2026-11-02', '06:00', CHICAGO),
     });
+  });
+});
+
+describe(workweekName.name, () => {
+  // ISO 8601: 2026-W48 runs Mon Nov 23 – Sun Nov 29; a Sunday-start shop week that starts in it begins on
+  // Sunday Nov 29 (US DST ended on Nov 1, Pub. L. 109-58 §110, so it is a plain 168 h week).
+  it('names a Sunday-start workweek by its first day, not by the ISO week', () => {
+    expect(workweekName('2026-W48', sundayStart)).toBe('Week of Sun, Nov 29');
+    expect(workweekName('2026-W48', mondayStart)).toBe('Week of Mon, Nov 23');
+    expect(workweekName('2026-W53', sundayStart, true)).toBe('Week of Sun, Jan 3, 2027');
   });
 });

@@ -113,6 +113,16 @@ export function workweekBounds(label: string, settings: WorkweekSettings): TimeR
   return { from: new Date(from), to: new Date(to) };
 }
 
+/**
+ * A shop workweek in words, by its first local day: "Week of Sun, Nov 29" (with the year on request). The
+ * `YYYY-Www` label names the shop workweek that starts in that ISO week, which is not the ISO week itself
+ * when the shop's week starts on another day than Monday.
+ */
+export function workweekName(label: string, settings: WorkweekSettings, withYear = false): string {
+  const { from } = cachedWorkweekBounds(label, settings);
+  return `Week of ${format(new TZDate(from, settings.timeZone), withYear ? 'EEE, MMM d, yyyy' : 'EEE, MMM d')}`;
+}
+
 /** Label of the shop workweek that contains an instant. */
 export function workweekOf(instant: Date, settings: WorkweekSettings): string {
   const label = isoWeekOf(instant, settings.timeZone);

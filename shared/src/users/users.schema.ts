@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { DEVICE_ROLES, ROLES, type Role } from '../auth/auth.schema.js';
 import { plainText } from '../input/fields.js';
+import { PAY_TYPES, type PayRate } from '../pay/pay-types.js';
+import { localDateSchema } from '../shop/shop.schema.js';
 
 /** A pay rate per hour in cents. */
 const cents = z.number().int().min(0).max(1_000_00, 'At most $1,000.00 an hour');
@@ -24,12 +26,22 @@ export const createUserSchema = z
     flatRateCents: cents.optional(),
     hourlyRateCents: cents.optional(),
     overtimeExempt: z.boolean().optional(),
+    payType: z.enum(PAY_TYPES).optional(),
+    guaranteeCents: cents.optional(),
+    /** The first day (shop's zone) the rates apply; default today. */
+    effectiveFrom: localDateSchema.optional(),
   })
   .superRefine((user, ctx) => {
     if (user.role === 'technician') {
       if (!user.badge)
         ctx.addIssue({ code: 'custom', path: ['badge'], message: 'A technician needs a badge' });
       if (!user.pin) ctx.addIssue({ code: 'custom', path: ['pin'], message: 'A technician needs a PIN' });
+      if (user.payType === 'flat-rate-guarantee' && !user.guaranteeCents)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['guaranteeCents'],
+          message: 'Give the hourly guarantee for productive time',
+        });
     } else {
       if (!user.email)
         ctx.addIssue({ code: 'custom', path: ['email'], message: 'Office staff need an e-mail' });
@@ -52,6 +64,10 @@ export const updateUserSchema = z
     hourlyRateCents: cents,
     overtimeExempt: z.boolean(),
     active: z.boolean(),
+    payType: z.enum(PAY_TYPES),
+    guaranteeCents: cents,
+    /** With a change of pay type, rate or overtime rule: the first day (shop's zone) it applies; default today. */
+    effectiveFrom: localDateSchema,
   })
   .partial()
   .strict();
@@ -69,6 +85,16 @@ export interface UserDto {
   hourlyRateCents: number;
   overtimeExempt: boolean;
   active: boolean;
+  /** With the rates above: those in force today. */
+  payType: PayRate['payType'];
+  guaranteeCents: number;
+  /** Every rate recorded, newest first: each applies from its date until the next. */
+  payRates: DatedPayRate[];
+}
+
+export interface DatedPayRate extends PayRate {
+  effectiveFrom: string;
+  recordedAt: string;
 }
 
 /** "Dana Okafor" → "Dana O.": what a wall screen may show of a person. */

@@ -9,6 +9,13 @@ import { partNameSchema, type PartsHoldDto } from './parts.schema.js';
 export const JOB_LINE_STATUSES = ['queued', 'working', 'held', 'done', 'cancelled'] as const;
 export type JobLineStatus = (typeof JOB_LINE_STATUSES)[number];
 
+/**
+ * A line marked done with less clocked time than the shop's minimum is `awaiting` a foreman's sign-off and
+ * stays out of the flagged figures until then; `signed` once a foreman or owner vouched for it.
+ */
+export const SIGN_OFF_STATES = ['awaiting', 'signed'] as const;
+export type SignOffState = (typeof SIGN_OFF_STATES)[number];
+
 /** Statuses of a line nobody works on any more. */
 export const CLOSED_LINE_STATUSES = ['done', 'cancelled'] as const satisfies readonly JobLineStatus[];
 
@@ -116,6 +123,8 @@ export interface JobLineDto {
   bayId: number | null;
   promisedAt: string | null;
   completedAt: string | null;
+  /** Set when the line was done with too little clocked time: awaiting a sign-off, or signed off. */
+  signOff?: SignOffState | null;
   /** Who marked it done (a technician at the kiosk, or the foreman). */
   completedBy: number | null;
   concern: string;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { LabourReportLine, PayReportTechnician } from '@baytime/shared';
 import {
+  drawnBars,
   filenameFrom,
   formatHours,
   formatPercent,
@@ -21,6 +22,8 @@ const row = (attendanceHours: number, clockedHours: number, flaggedHours: number
   attendanceHours,
   clockedHours,
   flaggedHours,
+  matchedClockedHours: clockedHours,
+  workInProgressHours: 0,
   productivity: attendanceHours ? clockedHours / attendanceHours : null,
   efficiency: clockedHours ? flaggedHours / clockedHours : null,
   proficiency: attendanceHours ? flaggedHours / attendanceHours : null,
@@ -71,17 +74,34 @@ describe('report formats', () => {
     ]);
   });
 
-  it('shapes the trend in percent with short week names', () => {
+  it('shapes the trend in percent, each week by the day it starts', () => {
     // Published shop-management article "Time is money — tracking time", 8-tech totals:
     // 86.53 %, 106.08 %, 91.80 %.
-    const [point] = trendPoints([{ week: '2026-W37', ...row(1483.5, 1283.7, 1361.8) }]);
-    expect(point).toMatchObject({ short: 'W37', productivity: 86.5, efficiency: 106.1, proficiency: 91.8 });
+    const [point] = trendPoints([
+      { week: '2026-W37', weekName: 'Week of Sun, Sep 13', ...row(1483.5, 1283.7, 1361.8) },
+    ]);
+    expect(point).toMatchObject({
+      short: 'Sep 13',
+      productivity: 86.5,
+      efficiency: 106.1,
+      proficiency: 91.8,
+    });
   });
 
   it('leaves room above the highest bar and guideline', () => {
     expect(percentAxisMax([90, 130], [1.25])).toBe(150);
     expect(percentAxisMax([null], [0.875])).toBe(125);
     expect(percentTicks(125)).toEqual([0, 25, 50, 75, 100, 125]);
+  });
+
+  it('caps the axis so one outlier does not flatten the others, keeping its true value on the label', () => {
+    // One technician at 2,819 % (a line flagged with next to no clocked time) and the rest near 100 %.
+    const max = percentAxisMax([95, 110, 2819], [1.25]);
+    expect(max).toBe(200);
+    expect(drawnBars([{ name: 'Sam O.', value: 2819, shop: false }], max)).toEqual([
+      { name: 'Sam O.', value: 2819, shop: false, plotted: 200, cut: true },
+    ]);
+    expect(percentAxisMax([95], [2.5])).toBe(275);
   });
 
   it('says over or under book in words', () => {
@@ -116,8 +136,15 @@ describe('report formats', () => {
       overtimeHours: 0,
       nearOvertime: true,
       overtimeExempt: false,
-    } as PayReportTechnician;
+      unresolvedExceptions: 0,
+      additionalOvertimeCents: 0,
+      adjustments: [],
+    } as unknown as PayReportTechnician;
     expect(payNotes(tech).map((note) => note.tone)).toEqual(['danger', 'warning']);
+    expect(payNotes({ ...tech, unresolvedExceptions: 2 })[0]).toEqual({
+      text: '2 exceptions to resolve',
+      tone: 'danger',
+    });
     expect(payNotes({ ...tech, underMinimumWage: false, overtimeHours: 2.5 }).map((n) => n.text)).toEqual([
       'Overtime 2.50 h',
     ]);

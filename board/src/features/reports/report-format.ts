@@ -56,6 +56,12 @@ export interface RatioBar {
   shop: boolean;
 }
 
+/** A bar as drawn: cut at the axis top when it is an outlier; the label keeps the true value. */
+export interface DrawnBar extends RatioBar {
+  plotted: number | null;
+  cut: boolean;
+}
+
 /** One chart's bars: each technician's ratio in percent, the shop's last. */
 export function ratioBars(report: Pick<LabourReport, 'technicians' | 'shop'>, kpi: KpiName): RatioBar[] {
   const percent = (ratio: number | null) => (ratio === null ? null : Math.round(ratio * 1000) / 10);
@@ -71,7 +77,7 @@ export function ratioBars(report: Pick<LabourReport, 'technicians' | 'shop'>, kp
 
 export interface TrendPoint {
   week: string;
-  /** "W37" under the axis. */
+  /** "Nov 29" under the axis: the day the shop week starts. */
   short: string;
   productivity: number | null;
   efficiency: number | null;
@@ -83,7 +89,7 @@ export function trendPoints(trend: readonly LabourTrendWeek[]): TrendPoint[] {
   const percent = (ratio: number | null) => (ratio === null ? null : Math.round(ratio * 1000) / 10);
   return trend.map((week) => ({
     week: week.week,
-    short: week.week.slice(5),
+    short: week.weekName.replace(/^Week of [A-Za-z]{3}, /, ''),
     productivity: percent(week.productivity),
     efficiency: percent(week.efficiency),
     proficiency: percent(week.proficiency),
@@ -91,14 +97,27 @@ export function trendPoints(trend: readonly LabourTrendWeek[]): TrendPoint[] {
   }));
 }
 
-/** Upper end of a percent axis: room for the highest bar and guideline, in steps of 25. */
+/** A percent axis never runs past this, so one outlier (a line flagged with little time) cannot flatten the rest. */
+export const PERCENT_AXIS_CAP = 200;
+
+/**
+ * Upper end of a percent axis: room for the highest bar and guideline, in steps of 25, but no higher than
+ * PERCENT_AXIS_CAP (or the guideline, if that is higher).
+ */
 export function percentAxisMax(values: readonly (number | null)[], guidelines: readonly number[]): number {
-  const top = Math.max(
-    100,
-    ...values.filter((v): v is number => v !== null),
-    ...guidelines.map((g) => g * 100),
-  );
-  return Math.ceil((top + 5) / 25) * 25;
+  const guide = Math.max(100, ...guidelines.map((g) => g * 100));
+  const top = Math.max(guide, ...values.filter((v): v is number => v !== null));
+  const cap = Math.max(PERCENT_AXIS_CAP, Math.ceil((guide + 5) / 25) * 25);
+  return Math.min(cap, Math.ceil((top + 5) / 25) * 25);
+}
+
+/** Bars over the axis top are drawn to it, marked as cut; their label keeps the true value. */
+export function drawnBars(bars: readonly RatioBar[], max: number): DrawnBar[] {
+  return bars.map((bar) => ({
+    ...bar,
+    plotted: bar.value === null ? null : Math.min(bar.value, max),
+    cut: bar.value !== null && bar.value > max,
+  }));
 }
 
 /** Axis marks every 25 % up to the top. */
@@ -158,11 +177,19 @@ export interface PayNote {
 /** What to look at on a technician's pay line, most serious first. */
 export function payNotes(tech: PayReportTechnician): PayNote[] {
   const notes: PayNote[] = [];
+  if (tech.unresolvedExceptions > 0)
+    notes.push({
+      text: `${tech.unresolvedExceptions} exception${tech.unresolvedExceptions === 1 ? '' : 's'} to resolve`,
+      tone: 'danger',
+    });
   if (tech.underMinimumWage) notes.push({ text: 'Under minimum wage', tone: 'danger' });
   if (tech.overtimeHours > 0)
     notes.push({ text: `Overtime ${formatHours(tech.overtimeHours, 2)} h`, tone: 'warning' });
   else if (tech.nearOvertime) notes.push({ text: 'Near overtime this week', tone: 'warning' });
   if (tech.overtimeExempt) notes.push({ text: 'Exempt from overtime', tone: 'informative' });
+  if (tech.additionalOvertimeCents > 0)
+    notes.push({ text: 'Overtime owed for earlier weeks', tone: 'informative' });
+  if (tech.adjustments.length > 0) notes.push({ text: 'Adjusted for closed weeks', tone: 'informative' });
   return notes;
 }
 

@@ -44,6 +44,7 @@ function punch(
     recordedBy: 4,
     supersedes: null,
     reason: null,
+    voids: false,
     supersededBy: null,
     recordedByName: 'Dana Okafor',
     ...extra,
@@ -55,6 +56,7 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
   return {
     technician: { id: 4, name: 'Dana Okafor' },
     week: '2026-W48',
+    weekName: 'Week of Sun, Nov 29',
     from: '2026-11-29T06:00:00.000Z',
     to: '2026-12-06T06:00:00.000Z',
     timeZone: 'America/Chicago',
@@ -99,6 +101,24 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
     anomalies: [{ punchId: 'e', reason: 'You are not clocked on that line' }],
     flags: [],
     audit: [],
+    held: [],
+    exceptions: [],
+    closed: false,
+    summary: {
+      labour: {
+        attendanceHours: 0,
+        clockedHours: 0,
+        flaggedHours: 0,
+        matchedClockedHours: 0,
+        workInProgressHours: 0,
+        productivity: null,
+        efficiency: null,
+        proficiency: null,
+      },
+      pay: null,
+      closed: false,
+      caution: 'An estimate',
+    },
     ...overrides,
   };
 }
@@ -121,6 +141,24 @@ describe('timecard model', () => {
     expect(correction.correction).toBe(true);
     // In time order: the corrected 7:20 before the original 7:25.
     expect(rows.map((row) => row.punch.id)).toEqual(['c', 'a', 'b', 'd', 'e']);
+  });
+
+  it('shows a punch taken out of the count on that punch, not the voiding row as a punch of its own', () => {
+    const base = card();
+    const rows = punchRows(
+      card({
+        punches: [
+          ...base.punches.map((p) => (p.id === 'b' ? { ...p, supersededBy: 'v' } : p)),
+          punch('v', 'job-on', base.punches.find((p) => p.id === 'b')!.at, {
+            supersedes: 'b',
+            voids: true,
+            reason: 'Displaced by a late punch the office accepted',
+          }),
+        ],
+      }),
+    );
+    expect(rows.map((row) => row.punch.id)).toEqual(['c', 'a', 'b', 'd', 'e']);
+    expect(rows.find((row) => row.punch.id === 'b')!.replacedBy).toMatchObject({ id: 'v', voids: true });
   });
 
   it('names job lines and says why a punch was not counted', () => {

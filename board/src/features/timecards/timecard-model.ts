@@ -92,7 +92,9 @@ export function punchRows(card: Timecard): PunchRow[] {
   const byId = new Map(card.punches.map((punch) => [punch.id, punch]));
   const notCounted = new Map(card.anomalies.map((anomaly) => [anomaly.punchId, anomaly.reason]));
   const lines = jobLinesOf(card);
-  return [...card.punches]
+  // A voiding row only takes the punch it names out of the count: it shows on that punch, not as one.
+  return card.punches
+    .filter((punch) => !punch.voids)
     .sort((a, b) => ms(a.at) - ms(b.at) || ms(a.recordedAt) - ms(b.recordedAt))
     .map((punch) => ({
       punch,

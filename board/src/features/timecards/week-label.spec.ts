@@ -34,6 +34,7 @@ describe('week labels', () => {
   it('writes the dates the shop week covers', () => {
     expect(weekRangeText('2026-W48', chicagoSunday)).toBe('Sun, Nov 29 – Sat, Dec 5, 2026');
     expect(weekRangeText('2026-W01', mondayUtc)).toBe('Mon, Dec 29 – Sun, Jan 4, 2026');
-    expect(weekName('2026-W05')).toBe('Week 5, 2026');
+    // The Sunday-start week that starts in ISO week 48 begins on Sunday Nov 29, not in "week 48".
+    expect(weekName('2026-W48', chicagoSunday)).toBe('Week of Sun, Nov 29');
   });
 });

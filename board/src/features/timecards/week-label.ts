@@ -2,6 +2,7 @@ import {
   addIsoWeeks,
   parseIsoWeek,
   workweekBounds,
+  workweekName,
   workweekOf,
   type WorkweekSettings,
 } from '@baytime/shared';
@@ -44,8 +45,10 @@ export function weekRangeText(label: string, settings: WorkweekSettings): string
   return `${dayFormat(settings.timeZone, false).format(from)} – ${dayFormat(settings.timeZone, true).format(last)}`;
 }
 
-/** "2026-W48" → "Week 48, 2026". */
-export function weekName(label: string): string {
-  const parsed = parseIsoWeek(label);
-  return parsed ? `Week ${parsed.week}, ${parsed.year}` : label;
+/**
+ * "Week of Sun, Nov 29": the shop workweek by its first day. The ISO-style label only says in which ISO week
+ * the shop's week starts, which misleads when the shop's week starts on a Sunday.
+ */
+export function weekName(label: string, settings: WorkweekSettings): string {
+  return workweekName(label, settings);
 }

@@ -24,10 +24,31 @@ describe('the people form', () => {
       hourlyRateCents: 1500,
       overtimeExempt: true,
       active: true,
+      payType: 'flat-rate',
+      guaranteeCents: 0,
+      payRates: [],
     });
     expect(fields).toMatchObject({ paidOvertime: false, flatRate: '28.50', pin: '' });
     // An edit with the PIN left empty keeps the PIN: it is not sent.
     expect(JSON.stringify(editUserFormSchema.parse(fields))).not.toContain('"pin"');
+  });
+
+  it('sends a new technician’s pay type and hourly guarantee in cents, and asks for the guarantee', () => {
+    const guaranteed = { ...technician, payType: 'flat-rate-guarantee' as const, guarantee: '11' };
+    expect(addUserFormSchema.parse(guaranteed)).toMatchObject({
+      payType: 'flat-rate-guarantee',
+      flatRateCents: 2850,
+      guaranteeCents: 1100,
+    });
+    const none = addUserFormSchema.safeParse({ ...guaranteed, guarantee: '' });
+    expect(none.error!.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
+      ['guarantee', 'Give the hourly guarantee for productive time'],
+    ]);
+  });
+
+  it('leaves rates out of an edit: they change from a date in the pay dialog', () => {
+    const body = editUserFormSchema.parse({ ...technician, hourlyRate: '19' });
+    expect(Object.keys(body).sort()).toEqual(['badge', 'name', 'pin', 'role', 'skillLevel']);
   });
 
   it('puts the shared schema’s refusals on the fields the person typed in', () => {

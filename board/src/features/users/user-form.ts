@@ -1,7 +1,14 @@
 import { z } from 'zod';
-import { createUserSchema, updateUserSchema, type PersonRole, type UserDto } from '@baytime/shared';
-import { centsToDollars, dollarsToCents } from '@/lib/form-errors';
+import {
+  createUserSchema,
+  PAY_TYPES,
+  updateUserSchema,
+  type PersonRole,
+  type UserDto,
+} from '@baytime/shared';
+import { dollarsToCents } from '@/lib/form-errors';
 import { checkedAsBody } from '@/lib/form';
+import { EMPTY_PAY, PAY_FIELD_OF, payBody, payDraftOf } from './components/pay-fields';
 
 export const ROLE_LABELS: Record<PersonRole, string> = {
   owner: 'Owner',
@@ -25,18 +32,19 @@ const userFields = z.object({
   badge: z.string(),
   pin: z.string(),
   skillLevel: z.string(),
+  payType: z.enum(PAY_TYPES),
   flatRate: dollars,
   hourlyRate: dollars,
+  guarantee: dollars,
   /** On: the person is paid overtime (not exempt). */
   paidOvertime: z.boolean(),
 });
 export type UserFields = z.input<typeof userFields>;
 
-const FIELD_OF = { flatRateCents: 'flatRate', hourlyRateCents: 'hourlyRate', overtimeExempt: 'paidOvertime' };
-
 const given = (text: string) => (text.trim() ? text.trim() : undefined);
 
-function toBody(values: z.output<typeof userFields>) {
+/** Adding a technician sends the first pay rate; an edit leaves rates to the dated pay dialog. */
+function toBody(values: z.output<typeof userFields>, withPay: boolean) {
   const tech = values.role === 'technician';
   return {
     name: values.name,
@@ -46,18 +54,26 @@ function toBody(values: z.output<typeof userFields>) {
           badge: given(values.badge),
           pin: given(values.pin),
           skillLevel: Number(values.skillLevel),
-          flatRateCents: values.flatRate ? dollarsToCents(values.flatRate)! : undefined,
-          hourlyRateCents: values.hourlyRate ? dollarsToCents(values.hourlyRate)! : undefined,
-          overtimeExempt: !values.paidOvertime,
+          ...(withPay ? payBody(values).body : {}),
         }
       : { email: given(values.email), password: given(values.password) }),
   };
 }
 
-export const addUserFormSchema = checkedAsBody(userFields, toBody, createUserSchema, FIELD_OF);
+export const addUserFormSchema = checkedAsBody(
+  userFields,
+  (values) => toBody(values, true),
+  createUserSchema,
+  PAY_FIELD_OF,
+);
 
 /** An edit sends what it holds; an empty PIN or password leaves the old one. */
-export const editUserFormSchema = checkedAsBody(userFields, toBody, updateUserSchema, FIELD_OF);
+export const editUserFormSchema = checkedAsBody(
+  userFields,
+  (values) => toBody(values, false),
+  updateUserSchema,
+  PAY_FIELD_OF,
+);
 
 export const EMPTY_USER: UserFields = {
   role: 'technician',
@@ -67,9 +83,7 @@ export const EMPTY_USER: UserFields = {
   badge: '',
   pin: '',
   skillLevel: '3',
-  flatRate: '',
-  hourlyRate: '',
-  paidOvertime: true,
+  ...EMPTY_PAY,
 };
 
 export function fieldsOf(user: UserDto): UserFields {
@@ -81,8 +95,6 @@ export function fieldsOf(user: UserDto): UserFields {
     badge: user.badge ?? '',
     pin: '',
     skillLevel: String(user.skillLevel),
-    flatRate: centsToDollars(user.flatRateCents),
-    hourlyRate: centsToDollars(user.hourlyRateCents),
-    paidOvertime: !user.overtimeExempt,
+    ...payDraftOf(user),
   };
 }

@@ -1,7 +1,7 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import type { Timecard, TimecardPunch } from '@baytime/shared';
-import { buildWeekView, localDay } from './timecard-view';
+import { buildWeekView, localDay, weekFigures } from './timecard-view';
 
 const zero = {
   attendanceSeconds: 0,
@@ -23,6 +23,7 @@ function punch(id: string, at: string, changes: Partial<TimecardPunch> = {}): Ti
     recordedBy: 4,
     supersedes: null,
     reason: null,
+    voids: false,
     supersededBy: null,
     recordedByName: 'Rhea Mollander',
     ...changes,
@@ -42,6 +43,7 @@ function card(changes: Partial<Timecard> = {}): Timecard {
   return {
     technician: { id: 4, name: 'Rhea Mollander' },
     week: '2026-W48',
+    weekName: 'Week of Sun, Nov 29',
     from: '2026-11-29T06:00:00.000Z',
     to: '2026-12-06T06:00:00.000Z',
     timeZone: 'America/Chicago',
@@ -54,6 +56,24 @@ function card(changes: Partial<Timecard> = {}): Timecard {
     anomalies: [],
     flags: [],
     audit: [],
+    held: [],
+    exceptions: [],
+    closed: false,
+    summary: {
+      labour: {
+        attendanceHours: 0,
+        clockedHours: 0,
+        flaggedHours: 0,
+        matchedClockedHours: 0,
+        workInProgressHours: 0,
+        productivity: null,
+        efficiency: null,
+        proficiency: null,
+      },
+      pay: null,
+      closed: false,
+      caution: 'An estimate',
+    },
     ...changes,
   };
 }
@@ -141,6 +161,30 @@ describe(buildWeekView.name, () => {
     });
   });
 
+  it('shows a punch the office took out of the count, without the voiding row', () => {
+    const view = buildWeekView(
+      card({
+        punches: [
+          punch('b', '2026-12-02T15:00:00.000Z', { kind: 'job-on', jobLineId: 3, supersededBy: 'v' }),
+          punch('v', '2026-12-02T15:00:00.000Z', {
+            kind: 'job-on',
+            jobLineId: 3,
+            supersedes: 'b',
+            voids: true,
+            reason: 'Displaced by a late punch the office accepted',
+          }),
+        ],
+      }),
+    );
+    expect(view.days[0]!.punches).toEqual([
+      expect.objectContaining({
+        id: 'b',
+        takenOut: true,
+        supersededBecause: 'Displaced by a late punch the office accepted',
+      }),
+    ]);
+  });
+
   it('marks a punch that was not counted, with the reason', () => {
     const view = buildWeekView(
       card({
@@ -149,5 +193,29 @@ describe(buildWeekView.name, () => {
       }),
     );
     expect(view.days[0]!.punches[0]!.notCounted).toBe('You are not on shift');
+  });
+
+  // 29 CFR 778.111(a), the pieceworker example as the pay summary gives it: 49.1 flagged h, 46 h clocked
+  // (efficiency 49.1 ÷ 46 = 106.7 %), $575.30 for the week. The kiosk shows those very figures.
+  it('shows the figures of the reports, and the pay only when the shop shows it', () => {
+    const labour = {
+      ...card().summary.labour,
+      attendanceHours: 50,
+      clockedHours: 46,
+      flaggedHours: 49.1,
+      matchedClockedHours: 46,
+      efficiency: 49.1 / 46,
+    };
+    const pay = { payableCents: 575_30 } as Timecard['summary']['pay'];
+    expect(weekFigures(card({ summary: { labour, pay, closed: false, caution: 'An estimate' } }))).toEqual([
+      { label: 'Flagged', value: '49.10 h' },
+      { label: 'Clocked on jobs', value: '46.00 h' },
+      { label: 'Efficiency', value: '107%' },
+      { label: 'Estimated pay', value: '$575.30' },
+    ]);
+    expect(weekFigures(card({ summary: { labour, pay: null, closed: false, caution: '' } })).at(-1)).toEqual({
+      label: 'Efficiency',
+      value: '107%',
+    });
   });
 });

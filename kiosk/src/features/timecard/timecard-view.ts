@@ -10,6 +10,8 @@ export interface PunchRow {
   detail: string | null;
   /** A later correction replaced it: shown struck through, with the correction's reason. */
   supersededBecause: string | null;
+  /** The office took it out of the count without a replacement (it no longer fitted the card). */
+  takenOut: boolean;
   /** Someone else recorded it (a correction, or a missed punch added): who and why. */
   note: { kind: 'correction' | 'added'; by: string; reason: string } | null;
   /** It did not fit where it fell and was not counted, with the reason. */
@@ -91,6 +93,8 @@ export function buildWeekView(card: Timecard): WeekView {
     (a, b) => Date.parse(a.at) - Date.parse(b.at) || a.recordedAt.localeCompare(b.recordedAt),
   );
   for (const punch of sorted) {
+    // A voiding row only takes the punch it names out of the count: it shows on that punch, not as one.
+    if (punch.voids) continue;
     const job = punch.jobLineId === null ? undefined : jobs.get(punch.jobLineId);
     const replacement = punch.supersededBy ? byId.get(punch.supersededBy) : undefined;
     const row: PunchRow = {
@@ -99,6 +103,7 @@ export function buildWeekView(card: Timecard): WeekView {
       words: punchWords(punch),
       detail: job ? `RO ${job.repairOrderNumber} · ${job.title}` : null,
       supersededBecause: punch.supersededBy ? (replacement?.reason ?? 'Corrected by the office') : null,
+      takenOut: replacement?.voids ?? false,
       note:
         punch.supersedes !== null || punch.reason !== null
           ? {
@@ -147,4 +152,24 @@ export function buildWeekView(card: Timecard): WeekView {
   const last = localDay(Date.parse(card.to) - 1, timeZone);
   const range = `${dayLabel(first, { month: 'short', day: 'numeric' })} – ${dayLabel(last, { month: 'short', day: 'numeric' })}`;
   return { range, days, emptyDays };
+}
+
+const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+
+/**
+ * The week's figures as the office's reports have them (the very rows of the labour report and the pay
+ * summary): flagged and clocked hours, efficiency and, when the shop shows it, the estimated pay.
+ */
+export function weekFigures(card: Timecard): { label: string; value: string }[] {
+  const { labour, pay } = card.summary;
+  const figures = [
+    { label: 'Flagged', value: `${labour.flaggedHours.toFixed(2)} h` },
+    { label: 'Clocked on jobs', value: `${labour.clockedHours.toFixed(2)} h` },
+    {
+      label: 'Efficiency',
+      value: labour.efficiency === null ? '–' : `${Math.round(labour.efficiency * 100)}%`,
+    },
+  ];
+  if (pay) figures.push({ label: 'Estimated pay', value: money.format(pay.payableCents / 100) });
+  return figures;
 }

@@ -7,7 +7,7 @@ import {
   uniqueIndex,
   type AnySQLiteColumn,
 } from 'drizzle-orm/sqlite-core';
-import { BREAK_KINDS, PUNCH_KINDS, TIMER_KINDS } from '@baytime/shared';
+import { BREAK_KINDS, PUNCH_KINDS, REVIEW_STATES, TIMER_KINDS, type DisplacedPunch } from '@baytime/shared';
 import { oneOf } from './checks.js';
 import { users } from './people.js';
 import { bays, jobLines } from './work.js';
@@ -34,6 +34,8 @@ export const punches = sqliteTable(
     /** A punch is superseded at most once: a later correction supersedes the newer record. */
     supersedes: text('supersedes').references((): AnySQLiteColumn => punches.id),
     reason: text('reason'),
+    /** Takes the punch it supersedes out of the count without standing in for it. */
+    voids: integer('voids', { mode: 'boolean' }).notNull().default(false),
   },
   (t) => [
     index('punches_technician_id_at_idx').on(t.technicianId, t.at),
@@ -43,6 +45,35 @@ export const punches = sqliteTable(
     oneOf(t.kind, PUNCH_KINDS),
     oneOf(t.breakKind, BREAK_KINDS),
   ],
+);
+
+/**
+ * A punch that arrived late and would have changed hours already counted. It is kept here, out of every
+ * count, until the foreman accepts it (it is then copied into punches under the same id) or rejects it.
+ */
+export const heldPunches = sqliteTable(
+  'held_punches',
+  {
+    id: text('id').primaryKey(),
+    technicianId: integer('technician_id')
+      .notNull()
+      .references(() => users.id),
+    kind: text('kind', { enum: PUNCH_KINDS }).notNull(),
+    jobLineId: integer('job_line_id').references(() => jobLines.id),
+    breakKind: text('break_kind', { enum: BREAK_KINDS }),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+    recordedAt: integer('recorded_at', { mode: 'timestamp_ms' }).notNull(),
+    recordedBy: integer('recorded_by')
+      .notNull()
+      .references(() => users.id),
+    displaces: text('displaces', { mode: 'json' }).$type<DisplacedPunch[]>().notNull(),
+    heldBecause: text('held_because').notNull(),
+    review: text('review', { enum: REVIEW_STATES }).notNull().default('pending'),
+    resolvedAt: integer('resolved_at', { mode: 'timestamp_ms' }),
+    resolvedBy: integer('resolved_by').references(() => users.id),
+    resolution: text('resolution'),
+  },
+  (t) => [index('held_punches_technician_id_at_idx').on(t.technicianId, t.at)],
 );
 
 export const timers = sqliteTable(

@@ -10,3 +10,4 @@ export * from './integration.js';
 export * from './approvals.js';
 export * from './parts.js';
 export * from './offline-punches.js';
+export * from './pay.js';

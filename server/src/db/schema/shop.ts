@@ -1,8 +1,8 @@
 import { sqliteTable, integer, real, text } from 'drizzle-orm/sqlite-core';
 import { oneOf } from './checks.js';
-import { CONCURRENT_SPLITS, OVERTIME_RULES, UNIT_SYSTEMS, type OpeningHours } from '@baytime/shared';
+import { CONCURRENT_SPLITS, UNIT_SYSTEMS, type OpeningHours } from '@baytime/shared';
 
-/** One row (id 1): the shop's settings. */
+/** One row (id 1): the shop's settings. The pay rules that take effect from a date are in `pay_rules`. */
 export const shopSettings = sqliteTable(
   'shop_settings',
   {
@@ -14,11 +14,14 @@ export const shopSettings = sqliteTable(
     units: text('units', { enum: UNIT_SYSTEMS }).notNull(),
     maxConcurrentJobs: integer('max_concurrent_jobs').notNull(),
     concurrentSplit: text('concurrent_split', { enum: CONCURRENT_SPLITS }).notNull(),
-    minimumWageCents: integer('minimum_wage_cents').notNull(),
-    overtimeRules: text('overtime_rules', { enum: OVERTIME_RULES }).notNull(),
     openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningHours>().notNull(),
     kioskIdleSeconds: integer('kiosk_idle_seconds').notNull(),
-    payNonProductiveSeparately: integer('pay_non_productive_separately', { mode: 'boolean' }).notNull(),
+    minimumMealMinutes: integer('minimum_meal_minutes').notNull().default(30),
+    longShiftHours: integer('long_shift_hours').notNull().default(14),
+    minimumClockedMinutesForDone: integer('minimum_clocked_minutes_for_done').notNull().default(6),
+    minimumClockedHoursForEfficiency: integer('minimum_clocked_hours_for_efficiency').notNull().default(8),
+    apportionSpanningLines: integer('apportion_spanning_lines', { mode: 'boolean' }).notNull().default(true),
+    kioskShowsPay: integer('kiosk_shows_pay', { mode: 'boolean' }).notNull().default(true),
     techniciansTakeUnassigned: integer('technicians_take_unassigned', { mode: 'boolean' })
       .notNull()
       .default(true),
@@ -28,11 +31,7 @@ export const shopSettings = sqliteTable(
     approvalLinkHours: integer('approval_link_hours').notNull().default(72),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
   },
-  (t) => [
-    oneOf(t.units, UNIT_SYSTEMS),
-    oneOf(t.concurrentSplit, CONCURRENT_SPLITS),
-    oneOf(t.overtimeRules, OVERTIME_RULES),
-  ],
+  (t) => [oneOf(t.units, UNIT_SYSTEMS), oneOf(t.concurrentSplit, CONCURRENT_SPLITS)],
 );
 
 export const holdPresets = sqliteTable('hold_presets', {

@@ -14,6 +14,7 @@ import {
   JOB_LINE_STATUSES,
   PRIORITIES,
   REPAIR_ORDER_STATUSES,
+  SIGN_OFF_STATES,
 } from '@baytime/shared';
 import { oneOf } from './checks.js';
 import { users } from './people.js';
@@ -139,6 +140,11 @@ export const jobLines = sqliteTable(
     correction: text('correction'),
     cancelReason: text('cancel_reason'),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+    /** Done with less clocked time than the shop's minimum: out of the flagged figures until signed off. */
+    signOff: text('sign_off', { enum: SIGN_OFF_STATES }),
+    signedOffBy: integer('signed_off_by').references(() => users.id),
+    signedOffAt: integer('signed_off_at', { mode: 'timestamp_ms' }),
+    signOffReason: text('sign_off_reason'),
   },
   (t) => [
     uniqueIndex('job_lines_repair_order_line_no_idx').on(t.repairOrderId, t.lineNo),

@@ -52,7 +52,7 @@ export function Component() {
           onTab={(next) => update('report', next)}
           canSeePay={role === 'owner'}
           printTitle={(shown) =>
-            `${shop.data.name} · ${shown === 'pay' ? 'Pay summary (estimate)' : 'Labour report'} · ${weekName(week)}, ${weekRangeText(week, shop.data)}`
+            `${shop.data.name} · ${shown === 'pay' ? 'Pay summary (estimate)' : 'Labour report'} · ${weekName(week, shop.data)}, ${weekRangeText(week, shop.data)}`
           }
         />
       )}

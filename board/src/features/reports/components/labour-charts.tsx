@@ -17,6 +17,7 @@ import type { KpiName, LabourReport } from '@baytime/shared';
 import {
   KPI_LABELS,
   KPI_NAMES,
+  drawnBars,
   guidelineText,
   percentAxisMax,
   percentTicks,
@@ -66,12 +67,14 @@ const percentTick = (value: number) => `${value}%`;
 
 function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiName; printing: boolean }) {
   const styles = useStyles();
-  const bars = ratioBars(report, kpi);
   const guide = report.guidelines[kpi];
+  const ratios = ratioBars(report, kpi);
   const max = percentAxisMax(
-    bars.map((bar) => bar.value),
+    ratios.map((bar) => bar.value),
     [guide.high],
   );
+  const bars = drawnBars(ratios, max);
+  const cut = bars.filter((bar) => bar.cut);
   const size = printing
     ? { width: PRINT.small.width, height: PRINT.small.height }
     : { responsive: true, style: { width: '100%', height: SCREEN_HEIGHT.small } };
@@ -81,7 +84,11 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
   return (
     <figure className={styles.figure}>
       <Subtitle2 as="h4">{KPI_LABELS[kpi]}</Subtitle2>
-      <Caption1 className={styles.caption}>Guideline {guidelineText(guide)}</Caption1>
+      <Caption1 className={styles.caption}>
+        Guideline {guidelineText(guide)}
+        {cut.length > 0 &&
+          ` · axis stops at ${max}%: ${cut.map((bar) => bar.name).join(', ')} cut, true figure on the bar`}
+      </Caption1>
       <div
         role="img"
         aria-label={`${KPI_LABELS[kpi]} this week: ${summary}. Guideline ${guidelineText(guide)}.`}
@@ -131,14 +138,17 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
           {!printing && (
             <Tooltip
               cursor={{ fill: tokens.colorNeutralBackground1Hover }}
-              formatter={(value) => [value === null ? 'no time' : `${String(value)}%`, KPI_LABELS[kpi]]}
+              formatter={(_, __, item) => {
+                const { value } = item.payload as { value: number | null };
+                return [value === null ? 'no time' : `${String(value)}%`, KPI_LABELS[kpi]];
+              }}
               contentStyle={{
                 background: tokens.colorNeutralBackground1,
                 border: `1px solid ${tokens.colorNeutralStroke1}`,
               }}
             />
           )}
-          <Bar dataKey="value" isAnimationActive={false} maxBarSize={38}>
+          <Bar dataKey="plotted" isAnimationActive={false} maxBarSize={38}>
             {bars.map((bar) => (
               <Cell
                 key={bar.name}
@@ -196,7 +206,7 @@ function TrendChart({ report, printing }: { report: LabourReport; printing: bool
         role="img"
         aria-label={`The shop over ${points.length} weeks.${
           last
-            ? ` Latest week ${last.short}: productivity ${last.productivity ?? '–'}%, efficiency ${last.efficiency ?? '–'}%, proficiency ${last.proficiency ?? '–'}%.`
+            ? ` Latest week, of ${last.short}: productivity ${last.productivity ?? '–'}%, efficiency ${last.efficiency ?? '–'}%, proficiency ${last.proficiency ?? '–'}%.`
             : ''
         }`}
       >
@@ -222,7 +232,7 @@ function TrendChart({ report, printing }: { report: LabourReport; printing: bool
                 value === null ? 'no time' : `${String(value)}%`,
                 KPI_LABELS[name as KpiName] ?? String(name),
               ]}
-              labelFormatter={(label) => `Week ${String(label).slice(1)}`}
+              labelFormatter={(label) => `Week of ${String(label)}`}
               contentStyle={{
                 background: tokens.colorNeutralBackground1,
                 border: `1px solid ${tokens.colorNeutralStroke1}`,

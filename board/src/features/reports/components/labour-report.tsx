@@ -90,6 +90,8 @@ function Figures({ row, report }: { row: LabourReportRow; report: LabourReport }
       <TableCell className={styles.num}>{formatHours(row.attendanceHours)}</TableCell>
       <TableCell className={styles.num}>{formatHours(row.clockedHours)}</TableCell>
       <TableCell className={styles.num}>{formatHours(row.flaggedHours)}</TableCell>
+      <TableCell className={styles.num}>{formatHours(row.matchedClockedHours)}</TableCell>
+      <TableCell className={styles.num}>{formatHours(row.workInProgressHours)}</TableCell>
       {KPI_NAMES.map((kpi) => (
         <TableCell key={kpi} className={styles.num}>
           <Ratio value={row[kpi]} kpi={kpi} report={report} />
@@ -138,7 +140,7 @@ function TechnicianTable({ report }: { report: LabourReport }) {
         </TableRow>
         {expanded && (
           <TableRow className={styles.drill} id={`lines-${tech.technicianId}`}>
-            <TableCell colSpan={7} className={styles.drillCell}>
+            <TableCell colSpan={9} className={styles.drillCell}>
               <TechnicianLines technician={tech} />
             </TableCell>
           </TableRow>
@@ -160,6 +162,12 @@ function TechnicianTable({ report }: { report: LabourReport }) {
             </TableHeaderCell>
             <TableHeaderCell className={styles.num} button={{ className: styles.numButton }}>
               Flagged h
+            </TableHeaderCell>
+            <TableHeaderCell className={styles.num} button={{ className: styles.numButton }}>
+              Clocked on those lines h
+            </TableHeaderCell>
+            <TableHeaderCell className={styles.num} button={{ className: styles.numButton }}>
+              Work in progress h
             </TableHeaderCell>
             {KPI_NAMES.map((kpi) => (
               <TableHeaderCell key={kpi} className={styles.num} button={{ className: styles.numButton }}>
@@ -210,6 +218,11 @@ export function LabourReportView({ report }: { report: LabourReport }) {
           value={`${formatHours(shop.flaggedHours)} h`}
           note="Book hours of lines finished"
         />
+        <Stat
+          label="Work in progress"
+          value={`${formatHours(shop.workInProgressHours)} h`}
+          note="Clocked on lines not finished yet"
+        />
         {KPI_NAMES.map((kpi) => (
           <Stat
             key={kpi}
@@ -235,6 +248,7 @@ export function LabourReportView({ report }: { report: LabourReport }) {
             </li>
           ))}
         </ul>
+        <Caption1 className={styles.names}>{report.efficiencyNote}</Caption1>
         <Caption1 className={styles.names}>{report.namesNote}</Caption1>
       </ReportSection>
 

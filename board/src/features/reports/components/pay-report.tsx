@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import {
   Badge,
   Caption1,
@@ -17,9 +18,15 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import type { PayReport } from '@baytime/shared';
+import {
+  PAY_TYPE_WORDS,
+  type PayReport,
+  type PayReportTechnician,
+  type PayReportTotals,
+} from '@baytime/shared';
 import { formatMoney } from '@/lib/form-errors';
 import { formatHours, payNotes, type PayNoteTone } from '../report-format';
+import { PayWeekStatus } from './pay-week-status';
 import { ReportSection, Stat, StatGrid } from './report-parts';
 
 const useStyles = makeStyles({
@@ -28,14 +35,14 @@ const useStyles = makeStyles({
     '@media print': { border: '2px solid #000', backgroundColor: '#fff' },
   },
   cautionTitle: { fontSize: tokens.fontSizeBase400 },
-  rules: { color: tokens.colorNeutralForeground2 },
+  rules: { color: tokens.colorNeutralForeground2, display: 'flex', flexDirection: 'column', gap: '4px' },
   scroll: { overflowX: 'auto' },
-  table: { tableLayout: 'auto', minWidth: '52rem' },
+  table: { tableLayout: 'auto', minWidth: '78rem' },
   numButton: { justifyContent: 'flex-end', textAlign: 'right', whiteSpace: 'normal' },
   num: { textAlign: 'right', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
   head: { verticalAlign: 'bottom', lineHeight: tokens.lineHeightBase200, whiteSpace: 'normal' },
-  name: { minWidth: '10rem', '@media print': { minWidth: 0 } },
-  rates: { display: 'block', color: tokens.colorNeutralForeground3 },
+  name: { minWidth: '13rem', verticalAlign: 'top', '@media print': { minWidth: 0 } },
+  sub: { display: 'block', color: tokens.colorNeutralForeground3 },
   badge: { whiteSpace: 'nowrap' },
   notes: {
     display: 'flex',
@@ -43,6 +50,8 @@ const useStyles = makeStyles({
     gap: tokens.spacingHorizontalXS,
     marginTop: tokens.spacingVerticalXXS,
   },
+  details: { marginTop: tokens.spacingVerticalXS, fontSize: tokens.fontSizeBase200 },
+  detailList: { margin: `${tokens.spacingVerticalXXS} 0 0`, paddingLeft: tokens.spacingHorizontalL },
   under: {
     backgroundColor: tokens.colorPaletteRedBackground1,
     boxShadow: `inset 4px 0 0 ${tokens.colorPaletteRedBorder2}`,
@@ -79,17 +88,161 @@ const BADGE_COLOUR: Record<PayNoteTone, 'danger' | 'important' | 'informative'> 
 const RULE_WORDS: Record<PayReport['rules'], string> = {
   federal: 'US federal: time and a half over 40 hours in the workweek',
   california:
-    'California: time and a half over 8 hours a day or 40 a week, double time over 12 hours a day and on the seventh day',
+    'California: time and a half over 8 hours a day or 40 a week, double time over 12 hours a day and on the seventh day; rest periods and other non-productive time paid apart (Labor Code 226.2)',
 };
 
 /** The estimate caution, in the words the brief asks for and the server's own. */
 export const PAY_CAUTION_TITLE = 'An estimate: confirm with local wage law and your payroll provider';
+
+const hours = (value: number) => formatHours(value, 2);
+const dash = (cents: number) => (cents === 0 ? '–' : formatMoney(cents));
+
+interface Column {
+  header: string;
+  cell: (tech: PayReportTechnician) => ReactNode;
+  /** The column's total, when it has one. */
+  total?: (totals: PayReportTotals) => ReactNode;
+  strong?: boolean;
+}
+
+const COLUMNS: Column[] = [
+  { header: 'Flagged hours', cell: (t) => hours(t.flaggedHours), total: (t) => hours(t.flaggedHours) },
+  {
+    header: 'Flat-rate pay',
+    cell: (t) => (
+      <>
+        {dash(t.flaggedPayCents)}
+        {t.guaranteeTopUpCents > 0 && (
+          <Caption1Sub>+ {formatMoney(t.guaranteeTopUpCents)} guarantee</Caption1Sub>
+        )}
+      </>
+    ),
+    total: (t) => dash(t.flaggedPayCents + t.guaranteeTopUpCents),
+  },
+  { header: 'Hourly pay', cell: (t) => dash(t.hourlyPayCents), total: (t) => dash(t.hourlyPayCents) },
+  {
+    header: 'Rest periods',
+    cell: (t) => (
+      <>
+        {dash(t.restPayCents)}
+        {t.restHours > 0 && (
+          <Caption1Sub>
+            {hours(t.restHours)} h{t.restRateCents !== null && ` × ${formatMoney(t.restRateCents)}`}
+          </Caption1Sub>
+        )}
+      </>
+    ),
+    total: (t) => dash(t.restPayCents),
+  },
+  {
+    header: 'Other non-productive time',
+    cell: (t) => (
+      <>
+        {dash(t.otherNonProductivePayCents)}
+        {t.otherNonProductiveHours > 0 && <Caption1Sub>{hours(t.otherNonProductiveHours)} h</Caption1Sub>}
+      </>
+    ),
+    total: (t) => dash(t.otherNonProductivePayCents),
+  },
+  {
+    header: 'Straight-time pay',
+    cell: (t) => formatMoney(t.straightTimeCents),
+    total: (t) => formatMoney(t.straightTimeCents),
+  },
+  { header: 'Hours worked', cell: (t) => hours(t.hoursWorked), total: (t) => hours(t.hoursWorked) },
+  { header: 'Regular rate', cell: (t) => `${formatMoney(t.regularRateCents)}/h` },
+  { header: 'Overtime hours', cell: (t) => hours(t.overtimeHours), total: (t) => hours(t.overtimeHours) },
+  {
+    header: 'Double-time hours',
+    cell: (t) => hours(t.doubleTimeHours),
+    total: (t) => hours(t.doubleTimeHours),
+  },
+  {
+    header: 'Overtime premium',
+    cell: (t) => dash(t.overtimePremiumCents),
+    total: (t) => dash(t.overtimePremiumCents),
+  },
+  {
+    header: 'Min-wage top-up',
+    cell: (t) => dash(t.minimumWageTopUpCents),
+    total: (t) => dash(t.minimumWageTopUpCents),
+  },
+  {
+    header: 'Meal premiums',
+    cell: (t) => (
+      <>
+        {dash(t.mealPremiumCents)}
+        {t.mealPremiumDays > 0 && <Caption1Sub>{t.mealPremiumDays} day(s)</Caption1Sub>}
+      </>
+    ),
+    total: (t) => dash(t.mealPremiumCents),
+  },
+  { header: 'Week total', cell: (t) => formatMoney(t.totalCents), total: (t) => formatMoney(t.totalCents) },
+  {
+    header: 'Earlier weeks',
+    cell: (t) => dash(t.additionalOvertimeCents + t.adjustmentCents),
+    total: (t) => dash(t.additionalOvertimeCents + t.adjustmentCents),
+  },
+  {
+    header: 'Payable this week',
+    cell: (t) => formatMoney(t.payableCents),
+    total: (t) => formatMoney(t.payableCents),
+    strong: true,
+  },
+];
+
+function Caption1Sub({ children }: { children: ReactNode }) {
+  return <Caption1 className={useStyles().sub}>{children}</Caption1>;
+}
+
+function rateWords(tech: PayReportTechnician): string {
+  const flat = `flat ${formatMoney(tech.flatRateCents)}`;
+  const hourly = `hourly ${formatMoney(tech.hourlyRateCents)}`;
+  const words =
+    tech.payType === 'hourly'
+      ? hourly
+      : tech.payType === 'flat-rate-guarantee'
+        ? `${flat} · guarantee ${formatMoney(tech.guaranteeCents)} · waiting ${formatMoney(tech.hourlyRateCents)}`
+        : `${flat} · other time ${formatMoney(tech.hourlyRateCents)}`;
+  return `${PAY_TYPE_WORDS[tech.payType]}: ${words} (from ${tech.rateFrom})`;
+}
+
+/** The technician's exceptions, overtime owed for earlier weeks and adjustments, in words. */
+function Particulars({ tech }: { tech: PayReportTechnician }) {
+  const styles = useStyles();
+  const items = [
+    ...tech.exceptions.map(
+      (e) =>
+        `${e.resolution ? 'Resolved' : 'To resolve'}: ${e.text}${e.resolution ? ` (${e.resolution.note})` : ''}`,
+    ),
+    ...tech.additionalOvertime.map(
+      (extra) =>
+        `Additional overtime for the ${extra.forWeekName.replace(/^Week/, 'week')}: ${formatMoney(extra.cents)}`,
+    ),
+    ...tech.adjustments.map(
+      (a) =>
+        `Adjustment for the ${a.forWeekName.replace(/^Week/, 'week')} (closed, changed since): ${formatMoney(a.cents)}, ${formatHours(a.flaggedHours, 2)} flagged h`,
+    ),
+  ];
+  if (items.length === 0) return null;
+  return (
+    <details className={styles.details}>
+      <summary>Details ({items.length})</summary>
+      <ul className={styles.detailList}>
+        {items.map((item) => (
+          <li key={item}>{item}</li>
+        ))}
+      </ul>
+    </details>
+  );
+}
 
 export function PayReportView({ report }: { report: PayReport }) {
   const styles = useStyles();
   const { totals } = report;
   const under = report.technicians.filter((tech) => tech.underMinimumWage);
   const near = report.technicians.filter((tech) => tech.nearOvertime || tech.overtimeHours > 0);
+  const { payRules } = report;
   return (
     <div className={styles.stack}>
       <MessageBar intent="warning" layout="multiline" className={styles.caution}>
@@ -98,18 +251,32 @@ export function PayReportView({ report }: { report: PayReport }) {
           {report.caution}
         </MessageBarBody>
       </MessageBar>
-      <Text className={styles.rules}>
-        Overtime rules: {RULE_WORDS[report.rules]}. Minimum wage {formatMoney(report.minimumWageCents)} an
-        hour, for every hour worked.
-      </Text>
+      <div className="bt-no-print">
+        <PayWeekStatus report={report} />
+      </div>
+      <div className={styles.rules}>
+        <Text>
+          Overtime rules: {RULE_WORDS[report.rules]}. Minimum wage {formatMoney(report.minimumWageCents)} an
+          hour for every hour worked: the highest of the federal
+          {payRules.localMinimumWageCents !== null ? ', state and local' : ' and state'} figures in force when
+          the week began (rules from {payRules.effectiveFrom}).
+        </Text>
+        <Text>
+          Flagged pay is paid in the week the line is finished: that is the shop’s practice.{' '}
+          {report.apportionSpanningLines
+            ? 'For overtime, a line clocked over several weeks has its flat-rate pay shared over them in proportion to the time clocked in each, and the extra premium owed for an earlier week is paid here as additional overtime. 29 CFR 778.119–778.120 prescribe this for commissions; applying it to flat-rate pay is an analogy the shop chose (Shop settings): confirm it with counsel.'
+            : 'The shop has turned off sharing such pay over earlier weeks for overtime (Shop settings).'}
+        </Text>
+        <Text>Rounding: {report.rounding}</Text>
+      </div>
 
       <StatGrid>
-        <Stat label="Estimated pay, all technicians" value={formatMoney(totals.totalCents)} />
-        <Stat label="Flagged hours" value={formatHours(totals.flaggedHours, 2)} />
-        <Stat label="Hours worked" value={formatHours(totals.hoursWorked, 2)} />
+        <Stat label="Payable this week, all technicians" value={formatMoney(totals.payableCents)} />
+        <Stat label="Flagged hours" value={hours(totals.flaggedHours)} />
+        <Stat label="Hours worked" value={hours(totals.hoursWorked)} />
         <Stat
           label="Overtime hours"
-          value={formatHours(totals.overtimeHours, 2)}
+          value={hours(totals.overtimeHours)}
           note={near.length ? `${near.length} near or over 40 h` : 'Nobody near 40 h'}
           alert={near.length > 0}
         />
@@ -118,6 +285,12 @@ export function PayReportView({ report }: { report: PayReport }) {
           value={formatMoney(totals.minimumWageTopUpCents)}
           note={under.length ? `${under.length} under the floor` : 'Nobody under the floor'}
           alert={under.length > 0}
+        />
+        <Stat
+          label="Exceptions to resolve"
+          value={String(report.unresolvedExceptions)}
+          note={report.unresolvedExceptions ? 'Figures not final' : 'None'}
+          alert={report.unresolvedExceptions > 0}
         />
       </StatGrid>
 
@@ -132,66 +305,15 @@ export function PayReportView({ report }: { report: PayReport }) {
                 <TableHeaderCell className={mergeClasses(styles.head, styles.name)}>
                   Technician
                 </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Flagged hours
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Flat-rate pay
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Pay for other time
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Straight-time pay
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Hours worked
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Regular rate
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Overtime hours
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Overtime premium
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Min-wage top-up
-                </TableHeaderCell>
-                <TableHeaderCell
-                  className={mergeClasses(styles.head, styles.num)}
-                  button={{ className: styles.numButton }}
-                >
-                  Total
-                </TableHeaderCell>
+                {COLUMNS.map((column) => (
+                  <TableHeaderCell
+                    key={column.header}
+                    className={mergeClasses(styles.head, styles.num)}
+                    button={{ className: styles.numButton }}
+                  >
+                    {column.header}
+                  </TableHeaderCell>
+                ))}
               </TableRow>
             </TableHeader>
             <TableBody>
@@ -210,9 +332,7 @@ export function PayReportView({ report }: { report: PayReport }) {
                   >
                     <TableCell className={styles.name}>
                       <Text weight="semibold">{tech.name}</Text>
-                      <Caption1 className={styles.rates}>
-                        Flat {formatMoney(tech.flatRateCents)} · hourly {formatMoney(tech.hourlyRateCents)}
-                      </Caption1>
+                      <Caption1 className={styles.sub}>{rateWords(tech)}</Caption1>
                       {notes.length > 0 && (
                         <span className={styles.notes}>
                           {notes.map((note) => (
@@ -228,47 +348,29 @@ export function PayReportView({ report }: { report: PayReport }) {
                           ))}
                         </span>
                       )}
+                      <Particulars tech={tech} />
                     </TableCell>
-                    <TableCell className={styles.num}>{formatHours(tech.flaggedHours, 2)}</TableCell>
-                    <TableCell className={styles.num}>{formatMoney(tech.flaggedPayCents)}</TableCell>
-                    <TableCell className={styles.num}>{formatMoney(tech.nonProductivePayCents)}</TableCell>
-                    <TableCell className={styles.num}>{formatMoney(tech.straightTimeCents)}</TableCell>
-                    <TableCell className={styles.num}>{formatHours(tech.hoursWorked, 2)}</TableCell>
-                    <TableCell className={styles.num}>{formatMoney(tech.regularRateCents)}/h</TableCell>
-                    <TableCell className={styles.num}>
-                      {formatHours(tech.overtimeHours, 2)}
-                      {tech.doubleTimeHours > 0 && (
-                        <Caption1 className={styles.rates}>
-                          {formatHours(tech.doubleTimeHours, 2)} double
-                        </Caption1>
-                      )}
-                    </TableCell>
-                    <TableCell className={styles.num}>{formatMoney(tech.overtimePremiumCents)}</TableCell>
-                    <TableCell
-                      className={mergeClasses(styles.num, tech.minimumWageTopUpCents > 0 && styles.strong)}
-                    >
-                      {formatMoney(tech.minimumWageTopUpCents)}
-                    </TableCell>
-                    <TableCell className={mergeClasses(styles.num, styles.strong)}>
-                      {formatMoney(tech.totalCents)}
-                    </TableCell>
+                    {COLUMNS.map((column) => (
+                      <TableCell
+                        key={column.header}
+                        className={mergeClasses(styles.num, column.strong && styles.strong)}
+                      >
+                        {column.cell(tech)}
+                      </TableCell>
+                    ))}
                   </TableRow>
                 );
               })}
               <TableRow className={styles.total}>
                 <TableCell>All technicians</TableCell>
-                <TableCell className={styles.num}>{formatHours(totals.flaggedHours, 2)}</TableCell>
-                <TableCell className={styles.num}>{formatMoney(totals.flaggedPayCents)}</TableCell>
-                <TableCell className={styles.num}>{formatMoney(totals.nonProductivePayCents)}</TableCell>
-                <TableCell className={styles.num}>{formatMoney(totals.straightTimeCents)}</TableCell>
-                <TableCell className={styles.num}>{formatHours(totals.hoursWorked, 2)}</TableCell>
-                <TableCell />
-                <TableCell className={styles.num}>{formatHours(totals.overtimeHours, 2)}</TableCell>
-                <TableCell className={styles.num}>{formatMoney(totals.overtimePremiumCents)}</TableCell>
-                <TableCell className={styles.num}>{formatMoney(totals.minimumWageTopUpCents)}</TableCell>
-                <TableCell className={mergeClasses(styles.num, styles.strong)}>
-                  {formatMoney(totals.totalCents)}
-                </TableCell>
+                {COLUMNS.map((column) => (
+                  <TableCell
+                    key={column.header}
+                    className={mergeClasses(styles.num, column.strong && styles.strong)}
+                  >
+                    {column.total?.(totals)}
+                  </TableCell>
+                ))}
               </TableRow>
             </TableBody>
           </Table>
@@ -281,29 +383,53 @@ export function PayReportView({ report }: { report: PayReport }) {
         </Subtitle2>
         <dl className={styles.terms}>
           <dt className={styles.term}>Flat-rate pay</dt>
-          <dd className={styles.definition}>Flagged hours × the technician’s flat rate.</dd>
-          <dt className={styles.term}>Pay for other time</dt>
           <dd className={styles.definition}>
-            Hours at work while clocked on no job (waiting, rest breaks, shop time) × the hourly rate, when
-            the shop pays that time separately (Shop settings).
+            Flagged hours × the flat rate. With an hourly guarantee (29 CFR 778.111(b)) the week pays the
+            larger of that and the guarantee × hours clocked on jobs.
           </dd>
-          <dt className={styles.term}>Straight-time pay</dt>
-          <dd className={styles.definition}>Flat-rate pay plus pay for other time.</dd>
+          <dt className={styles.term}>Hourly pay</dt>
+          <dd className={styles.definition}>
+            Every hour worked × the hourly rate, for technicians paid hourly.
+          </dd>
+          <dt className={styles.term}>Rest periods</dt>
+          <dd className={styles.definition}>
+            Paid rest breaks. Under California rules, rest periods authorized but not punched are credited (10
+            minutes per 4 hours or major fraction, IWC wage orders §12) and paid at the week’s average hourly
+            rate (Labor Code 226.2); otherwise they are paid at the hourly rate when the shop pays other time.
+          </dd>
+          <dt className={styles.term}>Other non-productive time</dt>
+          <dd className={styles.definition}>
+            Hours at work while clocked on no job (waiting, shop time) × the hourly rate, when the shop pays
+            that time separately (Shop settings), or under the guarantee; at least the minimum wage in
+            California.
+          </dd>
           <dt className={styles.term}>Hours worked</dt>
-          <dd className={styles.definition}>Shift time less unpaid meal breaks; paid rest breaks count.</dd>
+          <dd className={styles.definition}>
+            Shift time less bona fide meal breaks; paid rest breaks count, and so does a “meal” shorter than
+            the shop’s minimum (29 CFR 785.18–785.19).
+          </dd>
           <dt className={styles.term}>Regular rate</dt>
           <dd className={styles.definition}>
-            Straight-time pay, plus any minimum-wage top-up, ÷ all hours worked in the week.
+            Straight-time pay, plus any minimum-wage top-up, ÷ all hours worked in the week (29 CFR 778.111).
           </dd>
           <dt className={styles.term}>Overtime premium</dt>
           <dd className={styles.definition}>
             Half the regular rate for each overtime hour (the straight-time pay already covers the hour
             itself), the whole regular rate again for each double-time hour.
           </dd>
-          <dt className={styles.term}>Min-wage top-up</dt>
+          <dt className={styles.term}>Meal premiums</dt>
           <dd className={styles.definition}>
-            What it takes to bring the week’s pay up to the minimum wage for every hour worked.
+            California only: an estimated hour at the regular rate for each workday whose punches show a
+            missed, late or short meal (Labor Code 512 and 226.7).
           </dd>
+          <dt className={styles.term}>Earlier weeks</dt>
+          <dd className={styles.definition}>
+            Additional overtime owed for earlier weeks on flat-rate pay finished this week, and adjustments
+            for closed weeks whose lines changed after they were closed; open Details on a technician for each
+            one.
+          </dd>
+          <dt className={styles.term}>Payable this week</dt>
+          <dd className={styles.definition}>The week total plus the earlier-week amounts.</dd>
         </dl>
       </ReportSection>
     </div>

@@ -14,15 +14,23 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { formatPhone, shopSettingsSchema, type ShopSettings, type UpdateShopBody } from '@baytime/shared';
+import {
+  formatPhone,
+  PAY_RULE_FIELDS,
+  shopSettingsSchema,
+  type ShopSettings,
+  type UpdateShopBody,
+} from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import {
   centsToDollars,
   dollarsToCents,
   formErrorText,
+  formatMoney,
   issuesToFieldErrors,
   type FieldErrors,
 } from '@/lib/form-errors';
+import { usePayRules } from '../api/get-pay-rules';
 import { useShop } from '../api/get-shop';
 import { useUpdateShop } from '../api/update-shop';
 
@@ -45,7 +53,29 @@ const useStyles = makeStyles({
     '@media (max-width: 700px)': { gridTemplateColumns: '1fr 1fr' },
   },
   actions: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
+  history: { margin: 0, paddingLeft: tokens.spacingHorizontalL, color: tokens.colorNeutralForeground2 },
 });
+
+const RULE_NAMES = { federal: 'US federal overtime', california: 'California overtime' } as const;
+
+/** The pay rules on record: each applies to the weeks that begin from its date until the next. */
+function PayRulesHistory() {
+  const styles = useStyles();
+  const rules = usePayRules();
+  if (!rules.data) return null;
+  return (
+    <ul className={styles.history} aria-label="Pay rules on record">
+      {[...rules.data].reverse().map((rule) => (
+        <li key={rule.effectiveFrom}>
+          From {rule.effectiveFrom}: {RULE_NAMES[rule.overtimeRules]}, state minimum wage{' '}
+          {formatMoney(rule.minimumWageCents)}
+          {rule.localMinimumWageCents !== null && `, local ${formatMoney(rule.localMinimumWageCents)}`}, other
+          time {rule.payNonProductiveSeparately ? 'paid separately' : 'covered by flat-rate pay'}
+        </li>
+      ))}
+    </ul>
+  );
+}
 
 function timeZones(current: string): string[] {
   const intl = Intl as typeof Intl & { supportedValuesOf?: (key: 'timeZone') => string[] };
@@ -53,17 +83,26 @@ function timeZones(current: string): string[] {
   return zones.includes(current) ? zones : [current, ...zones];
 }
 
-interface Draft extends Omit<ShopSettings, 'minimumWageCents' | 'labourRateCents' | 'phone'> {
+interface Draft extends Omit<
+  ShopSettings,
+  'minimumWageCents' | 'localMinimumWageCents' | 'labourRateCents' | 'phone'
+> {
   minimumWage: string;
+  /** Blank: no local minimum wage. */
+  localMinimumWage: string;
+  /** Blank: a change of pay rules counts from the start of this workweek. */
+  payRulesFrom: string;
   labourRate: string;
   phone: string;
 }
 
 function toDraft(shop: ShopSettings): Draft {
-  const { minimumWageCents, labourRateCents, phone, ...rest } = shop;
+  const { minimumWageCents, localMinimumWageCents, labourRateCents, phone, ...rest } = shop;
   return {
     ...rest,
     minimumWage: centsToDollars(minimumWageCents),
+    localMinimumWage: localMinimumWageCents === null ? '' : centsToDollars(localMinimumWageCents),
+    payRulesFrom: '',
     labourRate: centsToDollars(labourRateCents),
     phone: phone ? formatPhone(phone) : '',
   };
@@ -109,18 +148,23 @@ function ShopForm({
   const submit = (event: FormEvent) => {
     event.preventDefault();
     setSaved(false);
-    const { minimumWage, labourRate, ...rest } = draft;
+    const { minimumWage, localMinimumWage, payRulesFrom, labourRate, ...rest } = draft;
     const cents = dollarsToCents(minimumWage);
+    const localCents = localMinimumWage.trim() ? dollarsToCents(localMinimumWage) : null;
     const rateCents = dollarsToCents(labourRate);
     const parsed = shopSettingsSchema.safeParse({
       ...rest,
       minimumWageCents: cents ?? Number.NaN,
+      localMinimumWageCents: localMinimumWage.trim() && localCents === null ? Number.NaN : localCents,
       labourRateCents: rateCents ?? Number.NaN,
     });
     if (!parsed.success) {
       const found = issuesToFieldErrors(parsed.error.issues);
       if (found.minimumWageCents)
         found.minimumWage = cents === null ? 'Type an amount in dollars, like 7.25' : found.minimumWageCents;
+      if (found.localMinimumWageCents)
+        found.localMinimumWage =
+          localCents === null ? 'Type an amount in dollars, or leave it blank' : found.localMinimumWageCents;
       if (found.labourRateCents)
         found.labourRate = rateCents === null ? 'Type an amount in dollars, like 135' : found.labourRateCents;
       setErrors(found);
@@ -129,13 +173,20 @@ function ShopForm({
     setErrors({});
     const patch = changes(shop, parsed.data);
     if (Object.keys(patch).length === 0) return setSaved(true);
+    if (payRulesFrom && PAY_RULE_FIELDS.some((field) => field in patch)) patch.payRulesFrom = payRulesFrom;
     update.mutate(patch, {
       onSuccess: (updated) => {
         setSaved(true);
         onSaved(updated);
       },
       onError: (error) => {
-        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) setErrors(error.fieldErrors);
+        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) {
+          const server: FieldErrors = { ...error.fieldErrors };
+          server.minimumWage ??= server.minimumWageCents;
+          server.localMinimumWage ??= server.localMinimumWageCents;
+          server.labourRate ??= server.labourRateCents;
+          setErrors(server);
+        }
       },
     });
   };
@@ -147,6 +198,10 @@ function ShopForm({
         | 'workweekStartHour'
         | 'maxConcurrentJobs'
         | 'kioskIdleSeconds'
+        | 'minimumMealMinutes'
+        | 'longShiftHours'
+        | 'minimumClockedMinutesForDone'
+        | 'minimumClockedHoursForEfficiency'
         | 'approvalLinkHours',
     ) =>
     (_: unknown, data: { value: string }) =>
@@ -270,7 +325,7 @@ function ShopForm({
       </Card>
 
       <Card className={styles.card}>
-        <Subtitle2 as="h2">Time and pay</Subtitle2>
+        <Subtitle2 as="h2">Time and forecasts</Subtitle2>
         <div className={styles.grid}>
           <Field label="Workweek starts on" validationMessage={errors.workweekStartDay}>
             <Select value={String(draft.workweekStartDay)} onChange={number('workweekStartDay')}>
@@ -311,13 +366,70 @@ function ShopForm({
               <option value="full">Full time to each</option>
             </Select>
           </Field>
-          <Field label="Minimum wage ($ per hour)" required validationMessage={errors.minimumWage}>
+          <Field
+            label="Minimum clocked hours before a technician's own efficiency drives forecasts"
+            validationMessage={errors.minimumClockedHoursForEfficiency}
+            hint="In the last four weeks; below it, forecasts use the shop's figure"
+          >
             <Input
-              inputMode="decimal"
-              value={draft.minimumWage}
-              onChange={(_, data) => set('minimumWage', data.value)}
+              type="number"
+              min={0}
+              max={200}
+              value={String(draft.minimumClockedHoursForEfficiency)}
+              onChange={number('minimumClockedHoursForEfficiency')}
             />
           </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Timecard checks</Subtitle2>
+        <div className={styles.grid}>
+          <Field
+            label="Shortest unpaid meal (minutes)"
+            validationMessage={errors.minimumMealMinutes}
+            hint="A “meal” shorter than this counts as a paid rest break. 29 CFR 785.19(a): 30 minutes or more is ordinarily long enough."
+          >
+            <Input
+              type="number"
+              min={10}
+              max={60}
+              value={String(draft.minimumMealMinutes)}
+              onChange={number('minimumMealMinutes')}
+            />
+          </Field>
+          <Field
+            label="Shift open longer than (hours) goes on the exceptions list"
+            validationMessage={errors.longShiftHours}
+          >
+            <Input
+              type="number"
+              min={8}
+              max={24}
+              value={String(draft.longShiftHours)}
+              onChange={number('longShiftHours')}
+            />
+          </Field>
+          <Field
+            label="Done with less clocked time than this (minutes) needs a foreman's sign-off"
+            validationMessage={errors.minimumClockedMinutesForDone}
+            hint="Until signed off, the line's book hours are not flagged"
+          >
+            <Input
+              type="number"
+              min={0}
+              max={120}
+              value={String(draft.minimumClockedMinutesForDone)}
+              onChange={number('minimumClockedMinutesForDone')}
+            />
+          </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Pay rules</Subtitle2>
+        <PayRulesHistory />
+        <div className={styles.grid}>
           <Field label="Overtime rules" validationMessage={errors.overtimeRules}>
             <Select
               value={draft.overtimeRules}
@@ -326,6 +438,29 @@ function ShopForm({
               <option value="federal">US federal (over 40 hours a week)</option>
               <option value="california">California (daily and weekly)</option>
             </Select>
+          </Field>
+          <Field
+            label="State minimum wage ($ per hour)"
+            required
+            validationMessage={errors.minimumWage}
+            hint="The federal $7.25 where the state has none; California rules need California's figure"
+          >
+            <Input
+              inputMode="decimal"
+              value={draft.minimumWage}
+              onChange={(_, data) => set('minimumWage', data.value)}
+            />
+          </Field>
+          <Field
+            label="Local minimum wage ($ per hour)"
+            validationMessage={errors.localMinimumWage}
+            hint="A city or county figure, if any; the highest of federal, state and local applies"
+          >
+            <Input
+              inputMode="decimal"
+              value={draft.localMinimumWage}
+              onChange={(_, data) => set('localMinimumWage', data.value)}
+            />
           </Field>
           <Field label="Non-productive time" validationMessage={errors.payNonProductiveSeparately}>
             <Switch
@@ -336,6 +471,45 @@ function ShopForm({
                   ? 'Paid separately at the hourly rate'
                   : 'Covered by flat-rate pay'
               }
+            />
+          </Field>
+          <Field
+            label="A change of these rules takes effect from"
+            validationMessage={errors.payRulesFrom}
+            hint="Blank: from the start of this workweek. Each week is paid with the rules in force when it began; a closed pay week never changes."
+          >
+            <Input
+              type="date"
+              value={draft.payRulesFrom}
+              onChange={(_, data) => set('payRulesFrom', data.value)}
+            />
+          </Field>
+        </div>
+      </Card>
+
+      <Card className={styles.card}>
+        <Subtitle2 as="h2">Pay practice</Subtitle2>
+        <div className={styles.grid}>
+          <Field
+            label="Lines clocked over several weeks"
+            validationMessage={errors.apportionSpanningLines}
+            hint="On: for overtime, a line's flat-rate pay is shared over the weeks it was clocked in, and the extra premium for an earlier week is paid in the week the line is finished. 29 CFR 778.119–778.120 prescribe this for commissions; for flat-rate pay it is an analogy: confirm with counsel."
+          >
+            <Switch
+              checked={draft.apportionSpanningLines}
+              onChange={(_, data) => set('apportionSpanningLines', data.checked)}
+              label="Share flat-rate pay over those weeks for overtime"
+            />
+          </Field>
+          <Field
+            label="Kiosk"
+            validationMessage={errors.kioskShowsPay}
+            hint="My week always shows flagged and clocked hours and efficiency"
+          >
+            <Switch
+              checked={draft.kioskShowsPay}
+              onChange={(_, data) => set('kioskShowsPay', data.checked)}
+              label="Show technicians their estimated earnings"
             />
           </Field>
         </div>

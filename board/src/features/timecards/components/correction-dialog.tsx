@@ -25,6 +25,8 @@ import {
   correctionSchema,
   shopLocalInstant,
   type BreakKind,
+  type CorrectionBody,
+  type DisplacedPunch,
   type PunchKind,
   type Timecard,
   type TimecardPunch,
@@ -33,6 +35,7 @@ import { ApiError } from '@baytime/shared/client';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useCreateCorrection } from '../api/create-correction';
 import { useOpenLines } from '../api/get-open-lines';
+import { usePreviewCorrection } from '../api/preview-correction';
 import {
   BREAK_WORDS,
   PUNCH_WORDS,
@@ -63,6 +66,7 @@ const useStyles = makeStyles({
     borderRadius: tokens.borderRadiusMedium,
     backgroundColor: tokens.colorNeutralBackground3,
   },
+  displaced: { margin: `${tokens.spacingVerticalXS} 0 0`, paddingLeft: tokens.spacingHorizontalL },
 });
 
 const needsLine = (kind: PunchKind) => kind === 'job-on' || kind === 'job-off';
@@ -91,13 +95,19 @@ function startDraft(card: Timecard, target: CorrectionTarget): Draft {
   };
 }
 
-/** Replace one punch, or add one that was missed; the reason is kept on the card with the editor's name. */
+/**
+ * Replace one punch, or add one that was missed; the reason is kept on the card with the editor's name.
+ * Kept mounted and driven by `open`: a modal unmounted while open leaves the page hidden from assistive
+ * technology.
+ */
 export function CorrectionDialog({
+  open,
   card,
   target,
   onClose,
   onSaved,
 }: {
+  open: boolean;
   card: Timecard;
   target: CorrectionTarget;
   onClose: () => void;
@@ -105,7 +115,10 @@ export function CorrectionDialog({
 }) {
   const styles = useStyles();
   const save = useCreateCorrection();
+  const preview = usePreviewCorrection();
   const [draft, setDraft] = useState<Draft>(() => startDraft(card, target));
+  /** Counted punches the preview says this correction would take out of the count, once shown. */
+  const [displaced, setDisplaced] = useState<DisplacedPunch[] | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const replacing = 'replace' in target ? target.replace : null;
@@ -116,6 +129,34 @@ export function CorrectionDialog({
     setDraft((current) => ({ ...current, [key]: value }));
     setErrors((current) => ({ ...current, [key === 'day' ? 'time' : key]: undefined }));
     setFormError(null);
+    setDisplaced(null);
+  };
+
+  const store = (body: CorrectionBody) => {
+    save.mutate(body, {
+      onSuccess: () => {
+        onSaved(
+          replacing
+            ? `${PUNCH_WORDS[replacing.kind]} replaced. The old punch stays on the card, struck through.`
+            : `${PUNCH_WORDS[draft.kind]} added for ${formatDay(draft.day)}.`,
+        );
+      },
+      onError: (error) => {
+        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) {
+          const server = { ...error.fieldErrors } as FieldErrors;
+          if (server.at) server.time = server.at;
+          setErrors(server);
+          if (
+            !Object.keys(server).some((key) =>
+              ['kind', 'time', 'jobLineId', 'breakKind', 'reason'].includes(key),
+            )
+          )
+            setFormError(error.message);
+          return;
+        }
+        setFormError(formErrorText(error));
+      },
+    });
   };
 
   const submit = (event: FormEvent) => {
@@ -144,35 +185,20 @@ export function CorrectionDialog({
     const all: FieldErrors = { ...schemaErrors, ...local };
     if (all.at) all.time ??= all.at;
     if (!parsed.success || Object.values(local).some(Boolean)) return setErrors(all);
-
-    save.mutate(parsed.data, {
-      onSuccess: () => {
-        onSaved(
-          replacing
-            ? `${PUNCH_WORDS[replacing.kind]} replaced. The old punch stays on the card, struck through.`
-            : `${PUNCH_WORDS[draft.kind]} added for ${formatDay(draft.day)}.`,
-        );
+    // A correction that would make other counted punches impossible shows them before it is saved.
+    if (displaced) return store({ ...parsed.data, displaces: displaced.map((punch) => punch.id) });
+    preview.mutate(parsed.data, {
+      onSuccess: (answer) => {
+        if (answer.refusal) setFormError(`That correction does not fit the timecard: ${answer.refusal}`);
+        else if (answer.displaces.length > 0) setDisplaced(answer.displaces);
+        else store(parsed.data);
       },
-      onError: (error) => {
-        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) {
-          const server = { ...error.fieldErrors } as FieldErrors;
-          if (server.at) server.time = server.at;
-          setErrors(server);
-          if (
-            !Object.keys(server).some((key) =>
-              ['kind', 'time', 'jobLineId', 'breakKind', 'reason'].includes(key),
-            )
-          )
-            setFormError(error.message);
-          return;
-        }
-        setFormError(formErrorText(error));
-      },
+      onError: (error) => setFormError(formErrorText(error)),
     });
   };
 
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
+    <Dialog open={open} onOpenChange={(_, data) => !data.open && onClose()} modalType="modal">
       <DialogSurface className={styles.surface}>
         <form onSubmit={submit} noValidate>
           <DialogBody>
@@ -255,6 +281,19 @@ export function CorrectionDialog({
                   onChange={(_, data) => set('reason', data.value)}
                 />
               </Field>
+              {displaced && (
+                <MessageBar intent="warning" layout="multiline">
+                  <MessageBarBody>
+                    This correction would leave these punches without a place on the card; saving it takes
+                    them out of the count, each on record with your reason:
+                    <ul className={styles.displaced}>
+                      {displaced.map((punch) => (
+                        <li key={punch.id}>{punch.words.replace(/^the /, 'The ')}</li>
+                      ))}
+                    </ul>
+                  </MessageBarBody>
+                </MessageBar>
+              )}
               {formError && (
                 <MessageBar intent="error" layout="multiline">
                   <MessageBarBody>{formError}</MessageBarBody>
@@ -265,8 +304,14 @@ export function CorrectionDialog({
               <Button type="button" onClick={onClose}>
                 Cancel
               </Button>
-              <Button appearance="primary" type="submit" disabled={save.isPending}>
-                {save.isPending ? 'Saving…' : replacing ? 'Save correction' : 'Add punch'}
+              <Button appearance="primary" type="submit" disabled={save.isPending || preview.isPending}>
+                {save.isPending || preview.isPending
+                  ? 'Checking…'
+                  : displaced
+                    ? `Save and take ${displaced.length} punch${displaced.length === 1 ? '' : 'es'} out`
+                    : replacing
+                      ? 'Save correction'
+                      : 'Add punch'}
               </Button>
             </DialogActions>
           </DialogBody>

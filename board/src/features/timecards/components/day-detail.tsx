@@ -86,7 +86,8 @@ function PunchWhat({ row, timeZone }: { row: PunchRow; timeZone: string }) {
       </span>
       {row.replacedBy && (
         <Caption1 className={styles.note}>
-          Replaced by {row.replacedBy.recordedByName}: “{row.replacedBy.reason}”
+          {row.replacedBy.voids ? 'Taken out of the count by' : 'Replaced by'} {row.replacedBy.recordedByName}
+          : “{row.replacedBy.reason}”
         </Caption1>
       )}
       {row.correction && (

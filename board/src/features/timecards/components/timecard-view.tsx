@@ -22,6 +22,7 @@ import { AuditTrail } from './audit-trail';
 import { CorrectionDialog, type CorrectionTarget } from './correction-dialog';
 import { DayDetail } from './day-detail';
 import { WeekGlance } from './week-glance';
+import { WeekReview } from './week-review';
 
 const useStyles = makeStyles({
   page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL },
@@ -76,7 +77,10 @@ export function TimecardView({
 }) {
   const styles = useStyles();
   const card = useTimecard(technicianId, week);
-  const [target, setTarget] = useState<CorrectionTarget | null>(null);
+  const [target, setTarget] = useState<{ of: CorrectionTarget; n: number; shown: boolean } | null>(null);
+  const openDialog = (of: CorrectionTarget) =>
+    setTarget((current) => ({ of, n: (current?.n ?? 0) + 1, shown: true }));
+  const closeDialog = () => setTarget((current) => current && { ...current, shown: false });
   const [savedNote, setSaved] = useState<{ for: string; text: string } | null>(null);
   const saved = savedNote?.for === `${technicianId}/${week}` ? savedNote.text : null;
   const days = useMemo(() => (card.data ? cardDays(card.data) : []), [card.data]);
@@ -93,7 +97,9 @@ export function TimecardView({
   const { totals } = data;
   const corrections = data.punches.filter((punch) => punch.reason !== null).length;
   const activeDays = days.filter((day) => day.active);
-  const correct = canCorrect ? (punch: TimecardPunch) => setTarget({ replace: punch }) : undefined;
+  // A week closed for pay takes no correction: the server would refuse it with 409 anyway.
+  const editable = canCorrect && !data.closed;
+  const correct = editable ? (punch: TimecardPunch) => openDialog({ replace: punch }) : undefined;
 
   return (
     <div
@@ -111,6 +117,14 @@ export function TimecardView({
             </MessageBar>
           ))}
         </div>
+      )}
+      {data.closed && canCorrect && (
+        <MessageBar intent="info">
+          <MessageBarBody>
+            <MessageBarTitle>Closed for pay</MessageBarTitle>
+            Nothing dated in this week can change. The owner can reopen it from the pay summary.
+          </MessageBarBody>
+        </MessageBar>
       )}
       {saved && (
         <MessageBar intent="success">
@@ -130,13 +144,17 @@ export function TimecardView({
             {data.punches.length} punches
             {corrections > 0 && `, ${corrections} by correction`}
           </Caption1>
-          {canCorrect && (
-            <Button appearance="primary" onClick={() => setTarget({ add: true })}>
+          {editable && (
+            <Button appearance="primary" onClick={() => openDialog({ add: true })}>
               Add a missed punch…
             </Button>
           )}
         </div>
       </div>
+
+      <Card className={styles.panel}>
+        <WeekReview card={data} />
+      </Card>
 
       <Card className={styles.panel}>
         <WeekGlance days={days} timeZone={data.timeZone} />
@@ -161,11 +179,13 @@ export function TimecardView({
 
       {target && (
         <CorrectionDialog
+          key={target.n}
+          open={target.shown}
           card={data}
-          target={target}
-          onClose={() => setTarget(null)}
+          target={target.of}
+          onClose={closeDialog}
           onSaved={(message) => {
-            setTarget(null);
+            closeDialog();
             setSaved({ for: `${technicianId}/${week}`, text: message });
           }}
         />

@@ -46,7 +46,7 @@ export function WeekPicker({
       </Button>
       <div className={styles.label} aria-live="polite">
         <Text weight="semibold">
-          {weekName(week)}
+          {weekName(week, settings)}
           {week === thisWeek && ' (this week)'}
         </Text>
         <Caption1 className={styles.range}>{weekRangeText(week, settings)}</Caption1>

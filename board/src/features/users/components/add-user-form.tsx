@@ -14,6 +14,7 @@ import { FormErrorBar } from '@/components/form-error-bar';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { useCreateUser } from '../api/create-user';
 import { addUserFormSchema, EMPTY_USER } from '../user-form';
+import { PAY_FIELD_OF } from './pay-fields';
 import { UserFieldsGrid } from './user-fields';
 
 const useStyles = makeStyles({
@@ -57,7 +58,7 @@ export function AddUserForm({ onAdded }: { onAdded?: (user: UserDto) => void }) 
             type: 'server',
             message: tech ? 'Someone already has this badge' : 'Someone already uses this e-mail',
           });
-        else showServerErrors(form, error, { flatRateCents: 'flatRate', hourlyRateCents: 'hourlyRate' });
+        else showServerErrors(form, error, PAY_FIELD_OF);
       },
     });
   });

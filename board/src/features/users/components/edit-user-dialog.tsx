@@ -10,7 +10,7 @@ const useStyles = makeStyles({
   grid: { display: 'grid', gap: tokens.spacingVerticalM },
 });
 
-/** Name, role, badge, skill level, rates, the overtime rule, and a new PIN or password: audited. */
+/** Name, role, badge, skill level, and a new PIN or password: audited. Rates change from a date in the pay dialog. */
 export function EditUserDialog({ user, onClose }: { user: UserDto; onClose: () => void }) {
   const styles = useStyles();
   const update = useUpdateUser();
@@ -27,8 +27,7 @@ export function EditUserDialog({ user, onClose }: { user: UserDto; onClose: () =
           { id: user.id, ...body },
           {
             onSuccess: onClose,
-            onError: (error) =>
-              showServerErrors(form, error, { flatRateCents: 'flatRate', hourlyRateCents: 'hourlyRate' }),
+            onError: (error) => showServerErrors(form, error),
           },
         ),
       )}

@@ -1,6 +1,7 @@
-import { Controller, type UseFormReturn } from 'react-hook-form';
-import { Field, Input, Select, Switch } from '@fluentui/react-components';
+import type { PathValue, UseFormReturn } from 'react-hook-form';
+import { Field, Input, Select } from '@fluentui/react-components';
 import { ROLE_LABELS, type UserFields } from '../user-form';
+import { PayFields } from './pay-fields';
 
 export interface UserFieldsGridProps<Body> {
   form: UseFormReturn<UserFields, unknown, Body>;
@@ -8,7 +9,7 @@ export interface UserFieldsGridProps<Body> {
   editing?: boolean;
 }
 
-/** The people form's fields, the same for adding and editing. */
+/** The people form's fields, the same for adding and editing; a technician's rates change in the pay dialog. */
 export function UserFieldsGrid<Body>({ form, editing = false }: UserFieldsGridProps<Body>) {
   const { errors } = form.formState;
   const tech = form.watch('role') === 'technician';
@@ -58,28 +59,25 @@ export function UserFieldsGrid<Body>({ form, editing = false }: UserFieldsGridPr
               ))}
             </Select>
           </Field>
-          <Field label="Flat rate per flagged hour ($)" validationMessage={errors.flatRate?.message}>
-            <Input inputMode="decimal" {...form.register('flatRate')} />
-          </Field>
-          <Field label="Hourly rate, non-productive time ($)" validationMessage={errors.hourlyRate?.message}>
-            <Input inputMode="decimal" {...form.register('hourlyRate')} />
-          </Field>
-          <Field
-            label="Overtime"
-            hint="Off only for a person exempt from overtime where the law allows it; check with your payroll provider."
-          >
-            <Controller
-              control={form.control}
-              name="paidOvertime"
-              render={({ field }) => (
-                <Switch
-                  checked={field.value}
-                  onChange={(_, data) => field.onChange(data.checked)}
-                  label="Paid overtime"
-                />
-              )}
+          {!editing && (
+            <PayFields
+              draft={{
+                payType: form.watch('payType'),
+                flatRate: form.watch('flatRate'),
+                hourlyRate: form.watch('hourlyRate'),
+                guarantee: form.watch('guarantee'),
+                paidOvertime: form.watch('paidOvertime'),
+              }}
+              errors={{
+                flatRate: errors.flatRate?.message,
+                hourlyRate: errors.hourlyRate?.message,
+                guarantee: errors.guarantee?.message,
+              }}
+              onChange={(key, value) =>
+                form.setValue(key, value as PathValue<UserFields, typeof key>, { shouldDirty: true })
+              }
             />
-          </Field>
+          )}
         </>
       ) : (
         <>

@@ -16,11 +16,12 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
-import { formErrorText, formatMoney } from '@/lib/form-errors';
+import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '@/lib/api/get-users';
 import { useUpdateUser } from '../api/update-user';
 import { ROLE_LABELS } from '../user-form';
 import { EditUserDialog } from './edit-user-dialog';
+import { PayRateDialog, rateWords } from './pay-rate-dialog';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -28,7 +29,8 @@ const useStyles = makeStyles({
   inactive: { color: tokens.colorNeutralForeground4 },
   error: { marginBottom: tokens.spacingVerticalM },
   numeric: { fontVariantNumeric: 'tabular-nums' },
-  actions: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'center' },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'center', flexWrap: 'wrap' },
+  dim: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
 
 function ActiveButton({ user, onError }: { user: UserDto; onError: (message: string | null) => void }) {
@@ -75,6 +77,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
   const [editing, setEditing] = useState<UserDto | null>(null);
+  const [paying, setPaying] = useState<{ user: UserDto; shown: boolean; n: number } | null>(null);
 
   if (users.isPending) return <Spinner label="Loading people…" />;
   if (users.isError)
@@ -84,6 +87,8 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
       </MessageBar>
     );
 
+  // Dates on record are shop-local calendar days; a day ahead of the browser's is still "to come".
+  const today = new Date().toISOString().slice(0, 10);
   const sorted = [...users.data]
     .filter(
       (user): user is UserDto & { role: PersonRole } =>
@@ -106,9 +111,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
               <TableHeaderCell>Role</TableHeaderCell>
               <TableHeaderCell>Signs in with</TableHeaderCell>
               <TableHeaderCell>Skill</TableHeaderCell>
-              <TableHeaderCell>Flat rate</TableHeaderCell>
-              <TableHeaderCell>Hourly</TableHeaderCell>
-              <TableHeaderCell>Overtime</TableHeaderCell>
+              <TableHeaderCell>Pay today</TableHeaderCell>
               <TableHeaderCell>Status</TableHeaderCell>
               <TableHeaderCell>
                 <span className="visually-hidden">Actions</span>
@@ -125,12 +128,13 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                   <TableCell>{tech ? `Badge ${user.badge ?? '—'}` : (user.email ?? '—')}</TableCell>
                   <TableCell>{tech ? user.skillLevel : '—'}</TableCell>
                   <TableCell className={styles.numeric}>
-                    {tech ? formatMoney(user.flatRateCents) : '—'}
+                    {tech ? rateWords(user) : '—'}
+                    {tech && user.payRates[0] && user.payRates[0].effectiveFrom > today && (
+                      <Caption1 className={styles.dim}>
+                        From {user.payRates[0].effectiveFrom}: {rateWords(user.payRates[0])}
+                      </Caption1>
+                    )}
                   </TableCell>
-                  <TableCell className={styles.numeric}>
-                    {tech ? formatMoney(user.hourlyRateCents) : '—'}
-                  </TableCell>
-                  <TableCell>{tech ? (user.overtimeExempt ? 'Exempt' : 'Paid') : '—'}</TableCell>
                   <TableCell>
                     <Badge appearance="tint" color={user.active ? 'brand' : 'subtle'}>
                       {user.active ? 'Active' : 'Inactive'}
@@ -141,6 +145,17 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                       <Button size="small" onClick={() => setEditing(user)} aria-label={`Edit ${user.name}`}>
                         Edit
                       </Button>
+                      {tech && (
+                        <Button
+                          size="small"
+                          aria-label={`Pay for ${user.name}`}
+                          onClick={() =>
+                            setPaying((current) => ({ user, shown: true, n: (current?.n ?? 0) + 1 }))
+                          }
+                        >
+                          Pay…
+                        </Button>
+                      )}
                       {user.id === currentUserId ? (
                         <Caption1>You</Caption1>
                       ) : (
@@ -155,6 +170,14 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
         </Table>
       </div>
       {editing && <EditUserDialog user={editing} onClose={() => setEditing(null)} />}
+      {paying && (
+        <PayRateDialog
+          key={paying.n}
+          open={paying.shown}
+          user={paying.user}
+          onClose={() => setPaying({ ...paying, shown: false })}
+        />
+      )}
     </>
   );
 }

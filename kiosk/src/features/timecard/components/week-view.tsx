@@ -1,8 +1,8 @@
 import { Link } from 'react-router';
 import type { Timecard, TimecardTotals } from '@baytime/shared';
 import { AlertIcon, ArrowLeftIcon, ArrowRightIcon } from '@/components/icons';
-import { hoursMinutes } from '@/lib/format';
-import { buildWeekView, type PunchRow } from '../timecard-view';
+import { clockTime, hoursMinutes } from '@/lib/format';
+import { buildWeekView, weekFigures, type PunchRow } from '../timecard-view';
 import './week.css';
 
 function Totals({ totals, compact }: { totals: TimecardTotals; compact?: boolean }) {
@@ -35,7 +35,9 @@ function Punch({ row }: { row: PunchRow }) {
         {row.supersededBecause ? <s>{row.words}</s> : <strong>{row.words}</strong>}
         {row.detail && <span className="bt-punch__detail">{row.detail}</span>}
         {row.supersededBecause && (
-          <span className="bt-punch__note">Replaced by a correction: {row.supersededBecause}</span>
+          <span className="bt-punch__note">
+            {row.takenOut ? 'Not counted any more' : 'Replaced by a correction'}: {row.supersededBecause}
+          </span>
         )}
         {row.note && (
           <span className="bt-punch__note">
@@ -61,7 +63,6 @@ export interface WeekViewProps {
 /** A technician's own week: each day's hours and punches, struck-through corrections, flags. */
 export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps) {
   const view = buildWeekView(card);
-  const weekNumber = Number(card.week.slice(-2));
   return (
     <div className="bt-week">
       <header className="bt-week-page__head">
@@ -71,7 +72,7 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
         <h1 className="bt-week-page__title">
           My week
           <small>
-            Week {weekNumber} · {view.range}
+            {card.weekName} · {view.range}
             {stale ? ' · could not refresh' : ''}
           </small>
         </h1>
@@ -86,11 +87,39 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
 
       <section className="bt-week__summary" aria-label="Week totals">
         <Totals totals={card.totals} />
+      </section>
+
+      <section className="bt-week__summary bt-week__figures" aria-label="In the reports">
+        <dl className="bt-week-totals">
+          {weekFigures(card).map(({ label, value }) => (
+            <div key={label}>
+              <dt>{label}</dt>
+              <dd>{value}</dd>
+            </div>
+          ))}
+        </dl>
         <p className="bt-week__pay-note">
-          These are the hours the clock recorded. Pay is worked out by the office: ask the foreman about pay
-          or a punch that looks wrong.
+          {card.summary.pay
+            ? `${card.summary.caution} Flagged hours count in the week the line is finished. Ask the foreman about pay or a punch that looks wrong.`
+            : 'Flagged hours count in the week the line is finished. Pay is worked out by the office: ask the foreman about pay or a punch that looks wrong.'}
         </p>
       </section>
+
+      {card.held.some((held) => held.review === 'pending') && (
+        <section className="bt-week__flags" aria-label="Waiting for the foreman">
+          <AlertIcon />
+          <ul>
+            {card.held
+              .filter((held) => held.review === 'pending')
+              .map((held) => (
+                <li key={held.id}>
+                  A punch sent late ({clockTime(held.at, card.timeZone)}) waits for the foreman: it is not
+                  counted until the foreman accepts it.
+                </li>
+              ))}
+          </ul>
+        </section>
+      )}
 
       {card.flags.length > 0 && (
         <section className="bt-week__flags" aria-label="To look at">

@@ -29,6 +29,7 @@ CREATE TABLE `__new_punches` (
 	`recorded_by` integer NOT NULL,
 	`supersedes` text,
 	`reason` text,
+	`voids` integer DEFAULT false NOT NULL,
 	FOREIGN KEY (`technician_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`job_line_id`) REFERENCES `job_lines`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`recorded_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
@@ -37,7 +38,7 @@ CREATE TABLE `__new_punches` (
 	CONSTRAINT "punches_break_kind_check" CHECK("break_kind" in ('meal', 'rest'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_punches`("id", "technician_id", "kind", "job_line_id", "break_kind", "at", "recorded_at", "recorded_by", "supersedes", "reason") SELECT "id", "technician_id", "kind", "job_line_id", "break_kind", "at", "recorded_at", "recorded_by", "supersedes", "reason" FROM `punches`;--> statement-breakpoint
+INSERT INTO `__new_punches`("id", "technician_id", "kind", "job_line_id", "break_kind", "at", "recorded_at", "recorded_by", "supersedes", "reason", "voids") SELECT "id", "technician_id", "kind", "job_line_id", "break_kind", "at", "recorded_at", "recorded_by", "supersedes", "reason", "voids" FROM `punches`;--> statement-breakpoint
 DROP TABLE `punches`;--> statement-breakpoint
 ALTER TABLE `__new_punches` RENAME TO `punches`;--> statement-breakpoint
 CREATE INDEX `punches_technician_id_at_idx` ON `punches` (`technician_id`,`at`);--> statement-breakpoint
@@ -53,11 +54,14 @@ CREATE TABLE `__new_shop_settings` (
 	`units` text NOT NULL,
 	`max_concurrent_jobs` integer NOT NULL,
 	`concurrent_split` text NOT NULL,
-	`minimum_wage_cents` integer NOT NULL,
-	`overtime_rules` text NOT NULL,
 	`opening_hours` text NOT NULL,
 	`kiosk_idle_seconds` integer NOT NULL,
-	`pay_non_productive_separately` integer NOT NULL,
+	`minimum_meal_minutes` integer DEFAULT 30 NOT NULL,
+	`long_shift_hours` integer DEFAULT 14 NOT NULL,
+	`minimum_clocked_minutes_for_done` integer DEFAULT 6 NOT NULL,
+	`minimum_clocked_hours_for_efficiency` integer DEFAULT 8 NOT NULL,
+	`apportion_spanning_lines` integer DEFAULT true NOT NULL,
+	`kiosk_shows_pay` integer DEFAULT true NOT NULL,
 	`technicians_take_unassigned` integer DEFAULT true NOT NULL,
 	`phone` text,
 	`labour_rate_cents` integer DEFAULT 0 NOT NULL,
@@ -65,11 +69,10 @@ CREATE TABLE `__new_shop_settings` (
 	`approval_link_hours` integer DEFAULT 72 NOT NULL,
 	`updated_at` integer NOT NULL,
 	CONSTRAINT "shop_settings_units_check" CHECK("units" in ('metric', 'us')),
-	CONSTRAINT "shop_settings_concurrent_split_check" CHECK("concurrent_split" in ('even', 'full')),
-	CONSTRAINT "shop_settings_overtime_rules_check" CHECK("overtime_rules" in ('federal', 'california'))
+	CONSTRAINT "shop_settings_concurrent_split_check" CHECK("concurrent_split" in ('even', 'full'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_shop_settings`("id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at") SELECT "id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "minimum_wage_cents", "overtime_rules", "opening_hours", "kiosk_idle_seconds", "pay_non_productive_separately", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at" FROM `shop_settings`;--> statement-breakpoint
+INSERT INTO `__new_shop_settings`("id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "opening_hours", "kiosk_idle_seconds", "minimum_meal_minutes", "long_shift_hours", "minimum_clocked_minutes_for_done", "minimum_clocked_hours_for_efficiency", "apportion_spanning_lines", "kiosk_shows_pay", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at") SELECT "id", "name", "time_zone", "workweek_start_day", "workweek_start_hour", "units", "max_concurrent_jobs", "concurrent_split", "opening_hours", "kiosk_idle_seconds", "minimum_meal_minutes", "long_shift_hours", "minimum_clocked_minutes_for_done", "minimum_clocked_hours_for_efficiency", "apportion_spanning_lines", "kiosk_shows_pay", "technicians_take_unassigned", "phone", "labour_rate_cents", "tax_note", "approval_link_hours", "updated_at" FROM `shop_settings`;--> statement-breakpoint
 DROP TABLE `shop_settings`;--> statement-breakpoint
 ALTER TABLE `__new_shop_settings` RENAME TO `shop_settings`;--> statement-breakpoint
 CREATE TABLE `__new_screens` (
@@ -103,15 +106,12 @@ CREATE TABLE `__new_users` (
 	`badge` text,
 	`pin_hash` text,
 	`skill_level` integer DEFAULT 1 NOT NULL,
-	`flat_rate_cents` integer DEFAULT 0 NOT NULL,
-	`hourly_rate_cents` integer DEFAULT 0 NOT NULL,
-	`overtime_exempt` integer DEFAULT false NOT NULL,
 	`active` integer DEFAULT true NOT NULL,
 	`created_at` integer NOT NULL,
 	CONSTRAINT "users_role_check" CHECK("role" in ('owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_users`("id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "flat_rate_cents", "hourly_rate_cents", "overtime_exempt", "active", "created_at") SELECT "id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "flat_rate_cents", "hourly_rate_cents", "overtime_exempt", "active", "created_at" FROM `users`;--> statement-breakpoint
+INSERT INTO `__new_users`("id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "active", "created_at") SELECT "id", "name", "role", "email", "password_hash", "badge", "pin_hash", "skill_level", "active", "created_at" FROM `users`;--> statement-breakpoint
 DROP TABLE `users`;--> statement-breakpoint
 ALTER TABLE `__new_users` RENAME TO `users`;--> statement-breakpoint
 CREATE UNIQUE INDEX `users_email_idx` ON `users` (`email`);--> statement-breakpoint
@@ -138,16 +138,21 @@ CREATE TABLE `__new_job_lines` (
 	`correction` text,
 	`cancel_reason` text,
 	`updated_at` integer NOT NULL,
+	`sign_off` text,
+	`signed_off_by` integer,
+	`signed_off_at` integer,
+	`sign_off_reason` text,
 	FOREIGN KEY (`repair_order_id`) REFERENCES `repair_orders`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`technician_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`bay_id`) REFERENCES `bays`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`completed_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`signed_off_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
 	CONSTRAINT "job_lines_status_check" CHECK("status" in ('queued', 'working', 'held', 'done', 'cancelled')),
 	CONSTRAINT "job_lines_hold_reason_check" CHECK("hold_reason" in ('parts', 'approval', 'tooling', 'sublet', 'other')),
 	CONSTRAINT "job_lines_priority_check" CHECK("priority" in ('low', 'normal', 'high', 'urgent'))
 );
 --> statement-breakpoint
-INSERT INTO `__new_job_lines`("id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at") SELECT "id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at" FROM `job_lines`;--> statement-breakpoint
+INSERT INTO `__new_job_lines`("id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at", "sign_off", "signed_off_by", "signed_off_at", "sign_off_reason") SELECT "id", "repair_order_id", "line_no", "title", "book_hours", "skill_level", "status", "hold_reason", "held_at", "priority", "technician_id", "bay_id", "promised_at", "queued_at", "completed_at", "completed_by", "concern", "cause", "correction", "cancel_reason", "updated_at", "sign_off", "signed_off_by", "signed_off_at", "sign_off_reason" FROM `job_lines`;--> statement-breakpoint
 DROP TABLE `job_lines`;--> statement-breakpoint
 ALTER TABLE `__new_job_lines` RENAME TO `job_lines`;--> statement-breakpoint
 CREATE UNIQUE INDEX `job_lines_repair_order_line_no_idx` ON `job_lines` (`repair_order_id`,`line_no`);--> statement-breakpoint

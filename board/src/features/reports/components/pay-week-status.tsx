@@ -1,0 +1,114 @@
+import { useState } from 'react';
+import { Link } from 'react-router';
+import {
+  Button,
+  MessageBar,
+  MessageBarActions,
+  MessageBarBody,
+  MessageBarTitle,
+  Text,
+  makeStyles,
+  tokens,
+} from '@fluentui/react-components';
+import type { PayReport } from '@baytime/shared';
+import { FormErrorBar } from '@/components/form-error-bar';
+import { ReasonDialog } from '@/components/reason-dialog';
+import { paths } from '@/config/paths';
+import { useMinuteNow } from '@/hooks/use-minute-now';
+import { formErrorText } from '@/lib/form-errors';
+import { useClosePayWeek } from '../api/close-pay-week';
+import { useReopenPayWeek } from '../api/reopen-pay-week';
+
+const useStyles = makeStyles({
+  row: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalM },
+  dim: { color: tokens.colorNeutralForeground2 },
+});
+
+const when = (iso: string, timeZone: string) =>
+  new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'short', timeZone }).format(
+    new Date(iso),
+  );
+
+/** Whether the week is closed for pay, what still stops it closing, and the owner's close and reopen. */
+export function PayWeekStatus({ report }: { report: PayReport }) {
+  const styles = useStyles();
+  const close = useClosePayWeek();
+  const reopen = useReopenPayWeek();
+  const [reopening, setReopening] = useState(false);
+  const running = Date.parse(report.to) > useMinuteNow();
+  const exceptionsLink = `${paths.exceptions}?week=${encodeURIComponent(report.week)}`;
+
+  const reopenDialog = (
+    <ReasonDialog
+      open={reopening}
+      title={`Reopen the ${report.weekName.replace(/^Week/, 'week')}`}
+      confirm="Reopen the week"
+      pending={reopen.isPending}
+      error={reopen.isError ? formErrorText(reopen.error) : null}
+      onConfirm={(reason) =>
+        reopen.mutate({ week: report.week, reason }, { onSuccess: () => setReopening(false) })
+      }
+      onClose={() => setReopening(false)}
+    >
+      Its figures will be worked out again from the records, and punches and corrections dated in it are
+      accepted again until it is closed once more.
+    </ReasonDialog>
+  );
+
+  // The dialog stays mounted across the switch from closed to open (see ReasonDialog).
+  const state = report.closed ? (
+    <MessageBar intent="info" layout="multiline">
+      <MessageBarBody>
+        <MessageBarTitle>Closed for pay</MessageBarTitle>
+        {report.closedAt && `On ${when(report.closedAt, report.timeZone)}`}
+        {report.closedBy && ` by ${report.closedBy}`}. These are the figures saved then: nothing dated in this
+        week can change, and a line finished or changed later shows as an adjustment in the next open week.
+      </MessageBarBody>
+      <MessageBarActions>
+        <Button
+          onClick={() => {
+            reopen.reset();
+            setReopening(true);
+          }}
+        >
+          Reopen…
+        </Button>
+      </MessageBarActions>
+    </MessageBar>
+  ) : (
+    <>
+      {report.unresolvedExceptions > 0 && (
+        <MessageBar intent="warning" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>Not final</MessageBarTitle>
+            {report.unresolvedExceptions} exception{report.unresolvedExceptions === 1 ? '' : 's'} in this week
+            still wait for the foreman. <Link to={exceptionsLink}>Open the exceptions list</Link>
+          </MessageBarBody>
+        </MessageBar>
+      )}
+      <div className={styles.row}>
+        <Text className={styles.dim}>
+          {running
+            ? 'This week is still running: it can be closed for pay once it is over.'
+            : report.unresolvedExceptions > 0
+              ? 'Resolve the exceptions, then close the week for pay.'
+              : 'Open. Closing keeps these figures and the rates used; nothing dated in the week can change after.'}
+        </Text>
+        <Button
+          appearance="primary"
+          disabled={running || report.unresolvedExceptions > 0 || close.isPending}
+          onClick={() => close.mutate(report.week)}
+        >
+          {close.isPending ? 'Closing…' : 'Close this pay week'}
+        </Button>
+      </div>
+      <FormErrorBar message={close.isError ? formErrorText(close.error) : null} />
+    </>
+  );
+  return (
+    <>
+      {state}
+      {reopenDialog}
+    </>
+  );
+}

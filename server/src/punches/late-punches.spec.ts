@@ -1,0 +1,210 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { and, eq } from 'drizzle-orm';
+import {
+  workweekOf,
+  type CorrectionPreview,
+  type ExceptionList,
+  type HeldPunchDto,
+  type PunchDto,
+  type ShopSettings,
+  type Timecard,
+} from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { auditLog } from '../db/schema/index.js';
+import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { PunchesService } from './punches.service.js';
+
+const HOUR = 3600_000;
+
+/** A punch that arrives late never silently voids counted ones: it is held, or refused with their names. */
+describe(`${PunchesService.name}: late punches`, () => {
+  let sut: TestApp;
+  let owner: string;
+  let foreman: string;
+  let history: ShopHistory;
+  let max: number;
+  let kiosk: string;
+  let line: number;
+  let shop: ShopSettings;
+  /** One clock for the whole file, so hand-worked durations come out exact however slow the machine. */
+  const start = Date.now();
+  const ago = (hours: number) => new Date(start - hours * HOUR).toISOString();
+  /** The shop week of the punches made here, whatever the hour the test runs. */
+  const week = () => workweekOf(new Date(start - 5 * HOUR), shop);
+  const punch = (body: object, token = kiosk) =>
+    history.as(token).post('/api/punches', { id: randomUUID(), ...body });
+  const card = async (technicianId = max) =>
+    (await history.as(owner).get(`/api/timecards?technicianId=${technicianId}&week=${week()}`).expect(200))
+      .body as Timecard;
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    owner = await sut.signIn(DEMO.owner);
+    foreman = await sut.signIn(DEMO.foreman);
+    history = shopHistory(sut, { owner, foreman });
+    shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
+    max = await history.technician('Max Dorrance', '7001', 20_00, 10_00);
+    kiosk = (await sut.badge('7001')).accessToken;
+    line = history.line('Replace brake hoses', 1.5, max, new Date(start - 5 * HOUR));
+    await punch({ kind: 'shift-in', at: ago(4) }).expect(201);
+    await punch({ kind: 'job-on', jobLineId: line, at: ago(3) }).expect(201);
+    await punch({ kind: 'job-off', jobLineId: line, at: ago(1) }).expect(201);
+  });
+  afterAll(() => sut.close());
+
+  it('refuses an office punch that would displace counted ones, naming them', async () => {
+    const refused = await punch({ kind: 'shift-out', at: ago(2), technicianId: max }, foreman).expect(409);
+    expect(refused.body.message).toMatch(
+      /^That punch would leave the clock-off at \w{3} \d{1,2}:\d{2} [AP]M \(RO T901 · Replace brake hoses\) not counted: ask the foreman to correct the timecard$/,
+    );
+  });
+
+  // The issue's example: an offline tablet uploads a shift-out stamped before the day's last job punches.
+  it('holds a late kiosk punch that would displace counted ones: the counted hours do not drop', async () => {
+    const before = await card();
+    const id = randomUUID();
+    const held = await punch({ id, kind: 'shift-out', at: ago(3.5) }).expect(202);
+    expect(held.body).toMatchObject({ id, review: 'pending', kind: 'shift-out' });
+    expect((held.body as HeldPunchDto).displaces.map((p) => p.kind)).toEqual(['job-on', 'job-off']);
+    // The rest of the offline replay waits behind it.
+    const behind = await punch({ kind: 'break-start', breakKind: 'rest', at: ago(3.4) }).expect(202);
+    expect(behind.body.heldBecause).toMatch(/came in late behind a punch held for review$/);
+    expect((await punch({ id, kind: 'shift-out', at: ago(3.5) }).expect(200)).body).toMatchObject({
+      review: 'pending',
+    });
+
+    const after = await card();
+    expect(after.totals.clockedSeconds).toBe(before.totals.clockedSeconds);
+    expect(after.totals.clockedSeconds).toBe(2 * 3600);
+    expect(after.totals.attendanceSeconds).toBeGreaterThanOrEqual(before.totals.attendanceSeconds);
+    expect(after.held.map((h) => h.id)).toEqual([id, behind.body.id]);
+    expect(after.exceptions.filter((e) => e.kind === 'held-punch').map((e) => e.punchId)).toEqual([
+      id,
+      behind.body.id,
+    ]);
+    const list = (await history.as(foreman).get(`/api/exceptions?week=${week()}`).expect(200))
+      .body as ExceptionList;
+    expect(list.exceptions.filter((e) => e.technicianId === max && e.resolution === null)).toHaveLength(2);
+  });
+
+  it('lets the foreman reject one held punch and accept another, voiding what it displaces, audited', async () => {
+    const [shiftOut, rest] = (await card()).held;
+    await history.as(kiosk).post(`/api/punches/held/${rest!.id}/reject`, { reason: 'not mine' }).expect(403);
+    await history.as(foreman).post(`/api/punches/held/${rest!.id}/reject`, {}).expect(400);
+    await history
+      .as(foreman)
+      .post(`/api/punches/held/${rest!.id}/reject`, { reason: 'Tapped by mistake' })
+      .expect(200);
+    const accepted = await history
+      .as(foreman)
+      .post(`/api/punches/held/${shiftOut!.id}/accept`, {
+        reason: 'Max left early; the job punches were a colleague’s',
+      })
+      .expect(200);
+    expect(accepted.body).toMatchObject({
+      review: 'accepted',
+      resolution: 'Max left early; the job punches were a colleague’s',
+    });
+    await history
+      .as(foreman)
+      .post(`/api/punches/held/${shiftOut!.id}/accept`, { reason: 'again' })
+      .expect(409);
+
+    const after = await card();
+    expect(after.totals.clockedSeconds).toBe(0);
+    expect(after.totals.attendanceSeconds).toBe(0.5 * 3600);
+    expect(after.anomalies).toEqual([]);
+    const voided = after.punches.filter((p) => p.kind.startsWith('job-') && !p.voids);
+    expect(voided.every((p) => p.supersededBy !== null)).toBe(true);
+    expect(after.exceptions.filter((e) => e.kind === 'held-punch').map((e) => e.resolution?.note)).toEqual([
+      'Accepted: Max left early; the job punches were a colleague’s',
+      'Rejected: Tapped by mistake',
+    ]);
+    const db = sut.app.get<Db>(DB);
+    const voids = db
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entity, 'punch'), eq(auditLog.action, 'void')))
+      .all();
+    expect(voids.map((entry) => entry.entityId).sort()).toEqual(voided.map((p) => p.id).sort());
+  });
+
+  it('previews what a correction would displace and saves it only once those punches are confirmed', async () => {
+    const noa = await history.technician('Noa Castillo', '7002', 20_00, 10_00);
+    const job = history.line('Replace fuel filter', 0.8, noa, new Date(start - 7 * HOUR));
+    await history.punch(noa, 'shift-in', new Date(ago(6)));
+    const jobOn = (await history.punch(noa, 'job-on', new Date(ago(5)), job)).body as PunchDto;
+    const jobOff = (await history.punch(noa, 'job-off', new Date(ago(4)), job)).body as PunchDto;
+    await history.punch(noa, 'shift-out', new Date(ago(3)));
+
+    // A meal added at 5½ h ago would leave the clock-on (on a break) and so the clock-off without a job.
+    const correction = {
+      technicianId: noa,
+      kind: 'break-start',
+      breakKind: 'meal',
+      at: ago(5.5),
+      reason: 'Paper sheet shows lunch',
+    };
+    const preview = (
+      await history.as(foreman).post('/api/timecards/corrections?preview=true', correction).expect(200)
+    ).body as CorrectionPreview;
+    expect(preview.refusal).toBeNull();
+    expect(preview.displaces.map((p) => p.id)).toEqual([jobOn.id, jobOff.id]);
+    expect(preview.displaces[0]!.words).toMatch(/^the clock-on at .* \(RO T902 · Replace fuel filter\)$/);
+    expect((await card(noa)).punches).toHaveLength(4);
+
+    const unconfirmed = await history.as(foreman).post('/api/timecards/corrections', correction).expect(409);
+    expect(unconfirmed.body.message).toMatch(
+      /^That correction would leave the clock-on .* check them in the preview and confirm$/,
+    );
+    await history
+      .as(foreman)
+      .post('/api/timecards/corrections', { ...correction, displaces: [jobOn.id, jobOff.id] })
+      .expect(201);
+    const after = await card(noa);
+    expect(after.anomalies).toEqual([]);
+    expect(after.totals.clockedSeconds).toBe(0);
+    const voiding = after.punches.filter((p) => p.voids).map((p) => [p.supersedes, p.id, p.reason]);
+    expect(voiding).toEqual([
+      [jobOn.id, expect.any(String), 'Displaced by a correction: Paper sheet shows lunch'],
+      [jobOff.id, expect.any(String), 'Displaced by a correction: Paper sheet shows lunch'],
+    ]);
+    expect(after.punches.find((p) => p.id === jobOn.id)!.supersededBy).toBe(voiding[0]![1]);
+  });
+
+  // 29 CFR 785.19(a): a meal under 30 minutes is ordinarily not a bona fide meal period; the ledger counts it
+  // as paid rest and lists it, and the foreman may accept it as it is.
+  it('lists a short meal for the foreman, who may mark it reviewed with a note', async () => {
+    const ida = await history.technician('Ida Marchetti', '7003', 20_00, 10_00);
+    await history.punch(ida, 'shift-in', new Date(ago(6)));
+    await history.punch(ida, 'break-start', new Date(ago(4)));
+    await history.punch(ida, 'break-end', new Date(start - 3 * HOUR - 40 * 60_000));
+    await history.punch(ida, 'shift-out', new Date(ago(2)));
+    const mine = async () =>
+      (
+        (await history.as(foreman).get('/api/exceptions').expect(200)).body as ExceptionList
+      ).exceptions.filter((e) => e.technicianId === ida);
+    const [short] = await mine();
+    expect(short).toMatchObject({ kind: 'short-meal', resolution: null });
+    expect(short!.text).toMatch(
+      /^Meal break at .* lasted 20 min, under the shop's 30: counted as paid rest$/,
+    );
+    expect((await card(ida)).totals.attendanceSeconds).toBe(4 * 3600);
+
+    await history
+      .as(foreman)
+      .post('/api/exceptions/reviews', { key: 'short-meal:nothing', note: 'ok' })
+      .expect(400);
+    await history.as(foreman).post('/api/exceptions/reviews', { key: short!.key, note: 'x' }).expect(400);
+    await history
+      .as(foreman)
+      .post('/api/exceptions/reviews', { key: short!.key, note: 'Ida asked to cut lunch short today' })
+      .expect(200);
+    expect((await mine())[0]!.resolution).toMatchObject({
+      by: 'Theo Varga',
+      note: 'Reviewed: Ida asked to cut lunch short today',
+    });
+  });
+});

@@ -1,0 +1,157 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { randomUUID } from 'node:crypto';
+import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
+import { TZDate } from '@date-fns/tz';
+import { format } from 'date-fns';
+import type { DisplacedPunch, LedgerPunch, PunchDto, PunchKind } from '@baytime/shared';
+import type { Principal } from '../auth/principal.js';
+import { AuditService } from '../audit/audit.service.js';
+import { DB, type Db } from '../db/database.js';
+import { jobLines, punches, repairOrders } from '../db/schema/index.js';
+import { FloorService } from '../floor/floor.service.js';
+import { toPunchDto } from '../labour/labour.service.js';
+import { LiveService } from '../live/live.service.js';
+import { ShopService } from '../shop/shop.service.js';
+
+/** Punches read around a late or corrected one: a shift open across it began at most this long before. */
+const CONTEXT_MS = 36 * 3600_000;
+
+const KIND_WORDS: Record<PunchKind, string> = {
+  'shift-in': 'shift start',
+  'shift-out': 'shift end',
+  'break-start': 'break start',
+  'break-end': 'break end',
+  'job-on': 'clock-on',
+  'job-off': 'clock-off',
+};
+
+/** Writes punches and names them in plain words; shared by the kiosk's punches and the foreman's corrections. */
+@Injectable()
+export class PunchLedgerService {
+  private readonly insertStatement: ReturnType<typeof prepareInsert>;
+
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly floor: FloorService,
+    private readonly live: LiveService,
+    private readonly shop: ShopService,
+    private readonly audit: AuditService,
+  ) {
+    this.insertStatement = prepareInsert(db);
+  }
+
+  /** A technician's counted punches within 36 h either side of `at`, from the database. */
+  around(technicianId: number, at: Date): LedgerPunch[] {
+    return this.db
+      .select()
+      .from(punches)
+      .where(
+        and(
+          eq(punches.technicianId, technicianId),
+          gte(punches.at, new Date(at.getTime() - CONTEXT_MS)),
+          lt(punches.at, new Date(at.getTime() + CONTEXT_MS)),
+        ),
+      )
+      .orderBy(asc(punches.at))
+      .all()
+      .map(toPunchDto);
+  }
+
+  /** "the clock-on at Tue 3:10 PM (RO 4410 · Replace water pump)", for each punch. */
+  describe(list: readonly LedgerPunch[]): DisplacedPunch[] {
+    const { timeZone } = this.shop.settings();
+    const lineIds = [...new Set(list.map((p) => p.jobLineId).filter((id) => id !== null))];
+    const lines = new Map(
+      (lineIds.length
+        ? this.db
+            .select({ id: jobLines.id, title: jobLines.title, number: repairOrders.number })
+            .from(jobLines)
+            .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+            .where(inArray(jobLines.id, lineIds))
+            .all()
+        : []
+      ).map((line) => [line.id, `RO ${line.number} · ${line.title}`]),
+    );
+    return list.map((punch) => {
+      const line = punch.jobLineId === null ? undefined : lines.get(punch.jobLineId);
+      const when = format(new TZDate(new Date(punch.at), timeZone), 'EEE h:mm a');
+      return {
+        id: punch.id,
+        kind: punch.kind,
+        at: punch.at,
+        words: `the ${KIND_WORDS[punch.kind]} at ${when}${line ? ` (${line})` : ''}`,
+      };
+    });
+  }
+
+  /** "the clock-on at Tue 3:10 PM (…) and the shift end at Tue 5:00 PM". */
+  listInWords(list: readonly LedgerPunch[]): string {
+    const words = this.describe(list).map((punch) => punch.words);
+    return words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words.at(-1)}` : (words[0] ?? '');
+  }
+
+  /** Stores a punch, tells the wall and the floor model once the use case commits. */
+  insert(
+    punch: LedgerPunch,
+    recorded: { at: Date; by: number; reason?: string | null; voids?: boolean },
+  ): PunchDto {
+    const row = this.insertStatement.get({
+      ...punch,
+      at: new Date(punch.at),
+      recordedAt: recorded.at,
+      recordedBy: recorded.by,
+      reason: recorded.reason ?? null,
+      voids: recorded.voids ?? false,
+    });
+    const dto = toPunchDto(row!);
+    this.live.publish('punch.recorded', { punch: dto }, { to: 'floor', technicianIds: [dto.technicianId] });
+    this.floor.punchRecorded(dto);
+    return dto;
+  }
+
+  /**
+   * Takes counted punches out of the count once a person decided so (a held punch accepted, a correction
+   * confirmed): each gets a voiding row that supersedes it, recorded by them with the reason, and audited.
+   */
+  voidDisplaced(displaced: readonly LedgerPunch[], actor: Principal, reason: string, now: Date): string[] {
+    return displaced.map((punch) => {
+      const voiding = this.insert(
+        { ...punch, id: randomUUID(), supersedes: punch.id },
+        { at: now, by: actor.id, reason, voids: true },
+      );
+      this.audit.record(
+        {
+          actorId: actor.id,
+          action: 'void',
+          entity: 'punch',
+          entityId: punch.id,
+          detail: { voidedBy: voiding.id, kind: punch.kind, at: punch.at, reason },
+        },
+        now,
+      );
+      return punch.id;
+    });
+  }
+}
+
+/** The insert of every punch, prepared once: built per call, it costs about 0.2 ms more. */
+function prepareInsert(db: Db) {
+  const value = (name: string) => sql.placeholder(name);
+  return db
+    .insert(punches)
+    .values({
+      id: value('id'),
+      technicianId: value('technicianId'),
+      kind: value('kind'),
+      jobLineId: value('jobLineId'),
+      breakKind: value('breakKind'),
+      at: value('at'),
+      recordedAt: value('recordedAt'),
+      recordedBy: value('recordedBy'),
+      supersedes: value('supersedes'),
+      reason: value('reason'),
+      voids: value('voids'),
+    })
+    .returning()
+    .prepare();
+}
