@@ -36,7 +36,8 @@ export async function signInAtKiosk(
 /** Opens the wall board paired with a fresh code, and waits for the first snapshot. */
 export async function openWall(page: Page, server: RunningServer): Promise<void> {
   await page.goto(`${server.url}/wall?code=${await pairingCode(server)}`);
-  await page.locator('article[aria-label="Bay 1"]').waitFor();
+  // A loaded machine can take a while to pair, connect and draw two dozen tiles.
+  await page.locator('article[aria-label="Bay 1"]').waitFor({ timeout: 50_000 });
 }
 
 export const bayTile = (page: Page, name: string) => page.locator(`article[aria-label="${name}"]`);
