@@ -78,6 +78,7 @@ describe(IntegrationKeysService.name, () => {
 
   it('writes an RO with its lines, audited under the key, and a retry with the same externalRef writes nothing', async () => {
     const { key, secret } = await makeKey('Dealer management sync', ['repair-orders:write']);
+    const calledFrom = Date.now();
     const first = await withKey(secret)
       .post('/api/repair-orders', order('DMS-88121', 'M4512345'))
       .expect(201);
@@ -89,6 +90,7 @@ describe(IntegrationKeysService.name, () => {
     const again = await withKey(secret)
       .post('/api/repair-orders', order('DMS-88121', 'M4512345'))
       .expect(200);
+    const calledUntil = Date.now();
     expect((again.body as RepairOrderSummary).id).toBe(ro.id);
     expect(countRows(db, repairOrders)).toBe(before);
 
@@ -116,7 +118,10 @@ describe(IntegrationKeysService.name, () => {
     ]);
     const listed = (await sut.http().get('/api/integration-keys').auth(owner, { type: 'bearer' }))
       .body as IntegrationKeyDto[];
-    expect(listed.find((k) => k.id === key.id)!.lastUsedAt).not.toBeNull();
+    // The last use is the time of the second call.
+    const lastUsedAt = Date.parse(listed.find((k) => k.id === key.id)!.lastUsedAt!);
+    expect(lastUsedAt).toBeGreaterThanOrEqual(calledFrom);
+    expect(lastUsedAt).toBeLessThanOrEqual(calledUntil);
   });
 
   it('answers a bad body with 400 and saves nothing', async () => {
