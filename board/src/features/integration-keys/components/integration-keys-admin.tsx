@@ -5,7 +5,6 @@ import {
   Button,
   Caption1,
   Card,
-  Checkbox,
   Dialog,
   DialogActions,
   DialogBody,
@@ -14,7 +13,6 @@ import {
   DialogTitle,
   Field,
   Input,
-  Label,
   MessageBar,
   MessageBarBody,
   MessageBarTitle,
@@ -26,7 +24,6 @@ import {
   TableHeader,
   TableHeaderCell,
   TableRow,
-  Text,
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
@@ -37,6 +34,7 @@ import {
   type IntegrationKeyDto,
   type IntegrationScope,
 } from '@baytime/shared';
+import { CheckboxGroup } from '@/components/checkbox-group';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { useCreateIntegrationKey } from '../api/create-integration-key';
 import { useIntegrationKeys } from '../api/get-integration-keys';
@@ -58,8 +56,6 @@ const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '36rem' },
   secret: { fontFamily: tokens.fontFamilyMonospace, width: '100%' },
   dim: { color: tokens.colorNeutralForeground3 },
-  group: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXXS },
-  error: { color: tokens.colorPaletteRedForeground1 },
   table: { tableLayout: 'auto' },
   actions: { textAlign: 'right', width: '8rem' },
 });
@@ -108,8 +104,6 @@ export function CreateIntegrationKeyCard() {
       },
     });
   };
-  const toggle = (scope: IntegrationScope, on: boolean) =>
-    setScopes((current) => (on ? [...current, scope] : current.filter((s) => s !== scope)));
 
   return (
     <Card className={styles.card}>
@@ -123,24 +117,14 @@ export function CreateIntegrationKeyCard() {
         >
           <Input value={name} maxLength={60} onChange={(_, data) => setName(data.value)} />
         </Field>
-        <div role="group" aria-labelledby="key-scopes-label" className={styles.group}>
-          <Label id="key-scopes-label" required>
-            What it may do
-          </Label>
-          {INTEGRATION_SCOPES.map((scope) => (
-            <Checkbox
-              key={scope}
-              label={`${SCOPE_WORDS[scope]} (${scope})`}
-              checked={scopes.includes(scope)}
-              onChange={(_, data) => toggle(scope, data.checked === true)}
-            />
-          ))}
-          {errors.scopes && (
-            <Text role="alert" className={styles.error}>
-              {errors.scopes}
-            </Text>
-          )}
-        </div>
+        <CheckboxGroup
+          label="What it may do"
+          codes={INTEGRATION_SCOPES}
+          words={SCOPE_WORDS}
+          checked={scopes}
+          onChange={setScopes}
+          error={errors.scopes}
+        />
         <div>
           <Button appearance="primary" type="submit" disabled={create.isPending}>
             {create.isPending ? 'Making the key…' : 'Make key'}

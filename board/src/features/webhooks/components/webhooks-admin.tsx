@@ -5,10 +5,8 @@ import {
   Button,
   Caption1,
   Card,
-  Checkbox,
   Field,
   Input,
-  Label,
   MessageBar,
   MessageBarBody,
   MessageBarTitle,
@@ -20,7 +18,6 @@ import {
   TableHeader,
   TableHeaderCell,
   TableRow,
-  Text,
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
@@ -32,6 +29,7 @@ import {
   type WebhookEvent,
 } from '@baytime/shared';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { CheckboxGroup } from '@/components/checkbox-group';
 import { useCreateWebhook } from '../api/create-webhook';
 import { useWebhookDeliveries } from '../api/get-webhook-deliveries';
 import { useWebhooks } from '../api/get-webhooks';
@@ -64,8 +62,6 @@ const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '40rem' },
   secret: { fontFamily: tokens.fontFamilyMonospace, width: '100%' },
   dim: { color: tokens.colorNeutralForeground3 },
-  group: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXXS },
-  error: { color: tokens.colorPaletteRedForeground1 },
   table: { tableLayout: 'auto', marginBottom: tokens.spacingVerticalXXL },
   attempts: { margin: 0, paddingLeft: '1.1rem' },
   pager: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
@@ -96,8 +92,6 @@ export function CreateWebhookCard() {
       },
     });
   };
-  const toggle = (name: WebhookEvent, on: boolean) =>
-    setEvents((current) => (on ? [...current, name] : current.filter((e) => e !== name)));
 
   return (
     <Card className={styles.card}>
@@ -111,24 +105,14 @@ export function CreateWebhookCard() {
         >
           <Input type="url" value={url} maxLength={500} onChange={(_, data) => setUrl(data.value)} />
         </Field>
-        <div role="group" aria-labelledby="webhook-events-label" className={styles.group}>
-          <Label id="webhook-events-label" required>
-            Events
-          </Label>
-          {WEBHOOK_EVENTS.map((name) => (
-            <Checkbox
-              key={name}
-              label={`${EVENT_WORDS[name]} (${name})`}
-              checked={events.includes(name)}
-              onChange={(_, data) => toggle(name, data.checked === true)}
-            />
-          ))}
-          {errors.events && (
-            <Text role="alert" className={styles.error}>
-              {errors.events}
-            </Text>
-          )}
-        </div>
+        <CheckboxGroup
+          label="Events"
+          codes={WEBHOOK_EVENTS}
+          words={EVENT_WORDS}
+          checked={events}
+          onChange={setEvents}
+          error={errors.events}
+        />
         <div>
           <Button appearance="primary" type="submit" disabled={create.isPending}>
             {create.isPending ? 'Registering…' : 'Register endpoint'}
