@@ -89,7 +89,7 @@ describe('findings, approvals and e-mail', () => {
       .toMatch(/^(blob|data):/);
     await advisor.screenshot({ path: screenshotPath('finding-inbox') });
     // Wherever the other window is, it is told: a toast, and a count on Findings.
-    await other.getByText('A technician sent a finding').waitFor({ timeout: 15_000 });
+    await other.getByText('A technician sent a finding', { exact: true }).waitFor({ timeout: 15_000 });
     const findingsMenu = other
       .getByRole('navigation', { name: 'Office' })
       .getByRole('link', { name: /Findings/ });
