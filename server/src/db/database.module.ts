@@ -1,7 +1,9 @@
 import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { APP_INTERCEPTOR } from '@nestjs/core';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { DB, openDatabase, SQLITE, type Sqlite, type Db } from './database.js';
 import { UnitOfWork } from './unit-of-work.js';
+import { DurableAnswerInterceptor, WalSync } from './wal-sync.js';
 
 @Global()
 @Module({
@@ -13,8 +15,10 @@ import { UnitOfWork } from './unit-of-work.js';
     },
     { provide: DB, inject: [SQLITE], useFactory: (sqlite: Sqlite): Db => sqlite.db },
     UnitOfWork,
+    WalSync,
+    { provide: APP_INTERCEPTOR, useClass: DurableAnswerInterceptor },
   ],
-  exports: [DB, SQLITE, UnitOfWork],
+  exports: [DB, SQLITE, UnitOfWork, WalSync],
 })
 export class DatabaseModule implements OnApplicationShutdown {
   constructor(@Inject(SQLITE) private readonly sqlite: Sqlite) {}

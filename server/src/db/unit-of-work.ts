@@ -12,11 +12,17 @@ type Hook = () => void;
 export class UnitOfWork {
   private readonly logger = new Logger(UnitOfWork.name);
   private pending: Hook[] | null = null;
+  private committed = 0;
 
   constructor(@Inject(SQLITE) private readonly sqlite: Sqlite) {}
 
   get active(): boolean {
     return this.pending !== null;
+  }
+
+  /** Use cases committed since start-up. */
+  get commits(): number {
+    return this.committed;
   }
 
   run<T>(work: () => T): T {
@@ -27,6 +33,7 @@ export class UnitOfWork {
     try {
       // better-sqlite3 refuses a function that returns a promise: a use case's writes are synchronous.
       result = this.sqlite.connection.transaction(work)();
+      this.committed++;
     } finally {
       this.pending = null;
     }

@@ -1,0 +1,96 @@
+import {
+  Inject,
+  Injectable,
+  type CallHandler,
+  type ExecutionContext,
+  type NestInterceptor,
+} from '@nestjs/common';
+import { open } from 'node:fs/promises';
+import { from, mergeMap, type Observable } from 'rxjs';
+import type { Request } from 'express';
+import { SQLITE, type Sqlite } from './database.js';
+import { UnitOfWork } from './unit-of-work.js';
+
+/**
+ * Puts committed transactions on disk without holding the event loop. The connection runs WAL with
+ * synchronous=NORMAL, so a commit only hands its pages to the kernel (a kill -9 cannot lose them);
+ * before an answer says "saved", `flush` fsyncs the WAL file on libuv's thread pool, which a power cut
+ * cannot undo either. One fsync covers every commit before it: under load, answers share them.
+ */
+@Injectable()
+export class WalSync {
+  private readonly walFile: string;
+  private running: Promise<void> | null = null;
+  /** The commits the running fsync covers. */
+  private runningUpTo = 0;
+  private next: Promise<void> | null = null;
+  /** Commits of the unit of work known to be on disk. */
+  private synced = 0;
+
+  constructor(
+    @Inject(SQLITE) sqlite: Sqlite,
+    private readonly uow: UnitOfWork,
+  ) {
+    this.walFile = `${sqlite.connection.name}-wal`;
+  }
+
+  /** How many of the unit of work's commits are known to be on disk. */
+  get syncedCommits(): number {
+    return this.synced;
+  }
+
+  /** Resolves once every transaction committed before the call is on disk. */
+  flush(): Promise<void> {
+    if (this.synced >= this.uow.commits) return Promise.resolve();
+    if (!this.running) return this.start();
+    if (this.runningUpTo >= this.uow.commits) return this.running;
+    // The running fsync began before this commit: one more follows it, for all who wait.
+    this.next ??= this.running.then(
+      () => this.start(),
+      () => this.start(),
+    );
+    return this.next;
+  }
+
+  private start(): Promise<void> {
+    this.next = null;
+    const upTo = this.uow.commits;
+    this.runningUpTo = upTo;
+    this.running = syncFile(this.walFile).then(
+      () => {
+        this.synced = Math.max(this.synced, upTo);
+        this.running = null;
+      },
+      (error: unknown) => {
+        this.running = null;
+        throw error;
+      },
+    );
+    return this.running;
+  }
+}
+
+async function syncFile(file: string): Promise<void> {
+  // Opened each time: SQLite may delete and create the WAL again, and an old descriptor would sync
+  // a file nobody writes any more. The migrations at start-up write, so the WAL is there.
+  const handle = await open(file, 'r');
+  try {
+    await handle.datasync();
+  } finally {
+    await handle.close();
+  }
+}
+
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Global: a request that may have written is answered only once what it committed is on disk. */
+@Injectable()
+export class DurableAnswerInterceptor implements NestInterceptor {
+  constructor(private readonly walSync: WalSync) {}
+
+  intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
+    if (context.getType() !== 'http' || READS.has(context.switchToHttp().getRequest<Request>().method))
+      return next.handle();
+    return next.handle().pipe(mergeMap((answer) => from(this.walSync.flush().then(() => answer))));
+  }
+}
