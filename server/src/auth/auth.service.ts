@@ -1,7 +1,7 @@
 import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { Subject } from 'rxjs';
-import { and, eq, isNull } from 'drizzle-orm';
+import { and, eq, isNull, sql } from 'drizzle-orm';
 import type {
   BadgeLoginBody,
   LiveRefusalReason,
@@ -32,12 +32,20 @@ export type TokenCheck = { principal: Principal; expiresAt: number } | { refusal
 export class AuthService {
   /** A technician signed in at a kiosk with badge and PIN: their offline punches may be confirmed. */
   readonly badgeSignIns$ = new Subject<Principal>();
+  /** Every request and socket asks who its token belongs to: prepared once. */
+  private readonly callers;
 
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly jwt: JwtService,
     private readonly throttle: SignInThrottle,
-  ) {}
+  ) {
+    const id = sql.placeholder('id');
+    this.callers = {
+      screen: db.select().from(screens).where(eq(screens.id, id)).prepare(),
+      user: db.select().from(users).where(eq(users.id, id)).prepare(),
+    };
+  }
 
   async login({ email, password }: LoginBody, ip: string | undefined): Promise<SignInAnswer> {
     const user = await this.throttle.check(`email:${email.toLowerCase()}`, ip, async () => {
@@ -109,12 +117,12 @@ export class AuthService {
 
   private callerOf(payload: TokenPayload): Principal | LiveRefusalReason {
     if (payload.role === 'display' || payload.role === 'kiosk') {
-      const screen = this.db.select().from(screens).where(eq(screens.id, payload.sub)).get();
+      const screen = this.callers.screen.get({ id: payload.sub });
       if (!screen || screen.revokedAt || !screen.pairedAt || DEVICE_ROLE[screen.kind] !== payload.role)
         return 'screen-revoked';
       return { id: screen.id, name: screen.name, role: payload.role };
     }
-    const user = this.db.select().from(users).where(eq(users.id, payload.sub)).get();
+    const user = this.callers.user.get({ id: payload.sub });
     if (!user || !user.active) return 'account-inactive';
     if (user.role !== payload.role) return 'role-changed';
     return { id: user.id, name: user.name, role: user.role };

@@ -123,8 +123,12 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const seconds = this.floor.lineSeconds(now);
     const runningTimers = this.floor.runningTimers();
 
+    const linesByBay = new Map<number, FloorLine[]>();
+    for (const line of openLines)
+      if (line.bayId !== null) linesByBay.set(line.bayId, [...(linesByBay.get(line.bayId) ?? []), line]);
+
     const boardBays: BoardBay[] = this.floor.bays().map((bay) => {
-      const inBay = openLines.filter((line) => line.bayId === bay.id);
+      const inBay = linesByBay.get(bay.id) ?? [];
       const line = leadLine(inBay, clockedOn);
       const timer = runningTimers.find((t) => t.bayId === bay.id);
       const onLine = line ? (clockedOn.get(line.id) ?? []) : [];

@@ -1,5 +1,5 @@
 import { ConflictException, Inject, Injectable } from '@nestjs/common';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { workweekName, workweekOf } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { payWeeks } from '../db/schema/index.js';
@@ -11,14 +11,23 @@ export type PayWeekRow = typeof payWeeks.$inferSelect;
 /** Which pay weeks are closed, and the guard every change dated in one goes through. */
 @Injectable()
 export class ClosedWeeksService {
+  /** Asked on every punch: prepared once. */
+  private readonly weekRow;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
-  ) {}
+  ) {
+    this.weekRow = db
+      .select()
+      .from(payWeeks)
+      .where(eq(payWeeks.week, sql.placeholder('week')))
+      .prepare();
+  }
 
   /** The week's row when it is closed. */
   closed(week: string): PayWeekRow | undefined {
-    const row = this.db.select().from(payWeeks).where(eq(payWeeks.week, week)).get();
+    const row = this.weekRow.get({ week });
     return row?.closedAt ? row : undefined;
   }
 

@@ -43,11 +43,6 @@ export const isoWeekSchema = z
     );
   }, 'Use a week from 2000 to two years ahead');
 
-/** ISO 8601 week label (Monday start, week 1 holds the first Thursday) of an instant, in a time zone. */
-export function isoWeekOf(instant: Date, timeZone: string): string {
-  return format(new TZDate(instant, timeZone), "RRRR-'W'II");
-}
-
 function isoWeekMonday(label: string, timeZone: string): TZDate {
   const parsed = parseIsoWeek(label);
   if (!parsed) throw new RangeError(`Not an ISO week: ${label}`);
@@ -74,6 +69,20 @@ function memoize<A extends unknown[], R>(
     return value;
   };
 }
+
+const MINUTE_MS = 60_000;
+/**
+ * Since 1972 every zone's UTC offset is a whole number of minutes and changes on a whole minute, so an
+ * instant's local calendar day is that of the minute it falls in.
+ */
+const minuteKey = (instant: Date, timeZone: string) =>
+  `${timeZone}|${Math.floor(instant.getTime() / MINUTE_MS)}`;
+
+/** ISO 8601 week label (Monday start, week 1 holds the first Thursday) of an instant, in a time zone. */
+export const isoWeekOf: (instant: Date, timeZone: string) => string = memoize(
+  (instant, timeZone) => format(new TZDate(instant, timeZone), "RRRR-'W'II"),
+  minuteKey,
+);
 
 export const addIsoWeeks: (label: string, weeks: number) => string = memoize(
   (label, weeks) => isoWeekOf(addWeeks(isoWeekMonday(label, 'UTC'), weeks), 'UTC'),
@@ -130,9 +139,10 @@ export function workweekOf(instant: Date, settings: WorkweekSettings): string {
 }
 
 /** The local calendar day of an instant, 'YYYY-MM-DD'. */
-export function shopDayKey(instant: Date, timeZone: string): string {
-  return format(new TZDate(instant, timeZone), 'yyyy-MM-dd');
-}
+export const shopDayKey: (instant: Date, timeZone: string) => string = memoize(
+  (instant, timeZone) => format(new TZDate(instant, timeZone), 'yyyy-MM-dd'),
+  minuteKey,
+);
 
 /** The instant of a local wall-clock time ('HH:MM') on a local day ('YYYY-MM-DD'). */
 export function shopLocalInstant(day: string, time: string, timeZone: string): Date {
