@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { io, type Socket } from 'socket.io-client';
 import type { BoardPerson, PunchKind, ServerToClientEvents } from '@baytime/shared';
+import { LIVE_SOCKET_OPTIONS } from '@baytime/shared/client';
 import type { EventLoopDelay } from '../health/event-loop.service.js';
 import type { ServerProcess } from './server-process.js';
 import type { FloorState, ShiftNow } from './synthetic-year.js';
@@ -9,16 +10,15 @@ type LiveClient = Socket<ServerToClientEvents>;
 
 /**
  * The public live contract: the token in the handshake's `auth`, a `board.snapshot` on every
- * connection. Socket.IO's own reconnection with the wall board's policy (1 s doubling up to 5 s, with
- * jitter). WebSocket only, to keep the bench's own CPU (it shares the machine) off long polling.
+ * connection. Socket.IO's own reconnection with the apps' policy. WebSocket only, to keep the bench's
+ * own CPU (it shares the machine) off long polling.
  */
 export function connect(url: string, token: string): LiveClient {
   const socket: LiveClient = io(url, {
     auth: { token },
     transports: ['websocket'],
     forceNew: true,
-    reconnectionDelay: 1_000,
-    reconnectionDelayMax: 5_000,
+    ...LIVE_SOCKET_OPTIONS,
   });
   // A server that shut down cleanly says so; the apps connect again, as after a crash.
   socket.on('disconnect', (reason) => {
