@@ -12,7 +12,13 @@ export interface EventLoopDelay {
   maxMs: number;
 }
 
-const ms = (nanoseconds: number) => Math.round(nanoseconds / 1e4) / 100;
+/** How often the histogram's timer asks to run, in ms. */
+const RESOLUTION_MS = 10;
+/**
+ * Node records the whole interval between two runs of its sampling timer, so an idle loop reads as
+ * the resolution itself (10 ms); the delay is what lies beyond it.
+ */
+const delayMs = (nanoseconds: number) => Math.max(0, Math.round(nanoseconds / 1e4) / 100 - RESOLUTION_MS);
 
 /**
  * How long callbacks waited for the event loop, measured inside the server for `npm run bench`. Off
@@ -23,7 +29,7 @@ export class EventLoopService implements OnModuleDestroy {
   private readonly histogram: IntervalHistogram | null;
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
-    this.histogram = config.benchMetrics ? monitorEventLoopDelay({ resolution: 10 }) : null;
+    this.histogram = config.benchMetrics ? monitorEventLoopDelay({ resolution: RESOLUTION_MS }) : null;
     this.histogram?.enable();
   }
 
@@ -37,11 +43,11 @@ export class EventLoopService implements OnModuleDestroy {
     if (!histogram) throw new NotFoundException('Not found');
     const delay: EventLoopDelay = {
       samples: histogram.count,
-      meanMs: histogram.count ? ms(histogram.mean) : 0,
-      p50Ms: ms(histogram.percentile(50)),
-      p90Ms: ms(histogram.percentile(90)),
-      p99Ms: ms(histogram.percentile(99)),
-      maxMs: ms(histogram.max),
+      meanMs: histogram.count ? delayMs(histogram.mean) : 0,
+      p50Ms: delayMs(histogram.percentile(50)),
+      p90Ms: delayMs(histogram.percentile(90)),
+      p99Ms: delayMs(histogram.percentile(99)),
+      maxMs: delayMs(histogram.max),
     };
     histogram.reset();
     return delay;
