@@ -1,0 +1,76 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { openDatabase, type Sqlite } from './database.js';
+import { UnitOfWork } from './unit-of-work.js';
+import { WalSync } from './wal-sync.js';
+
+const synced = vi.hoisted(() => ({ files: [] as string[] }));
+
+// The real fsync, counted: which file each one was for.
+vi.mock('node:fs/promises', async (original) => {
+  const fs = await original<typeof import('node:fs/promises')>();
+  return {
+    ...fs,
+    open: async (file: string, flags: string) => {
+      const handle = await fs.open(file, flags);
+      const datasync = handle.datasync.bind(handle);
+      return Object.assign(handle, {
+        datasync: async () => {
+          synced.files.push(file);
+          await datasync();
+        },
+      });
+    },
+  };
+});
+
+describe(WalSync.name, () => {
+  let dir: string;
+  let sqlite: Sqlite;
+  let uow: UnitOfWork;
+  let sut: WalSync;
+  const commit = () => uow.run(() => sqlite.connection.prepare("insert into probe values ('x')").run());
+
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), 'baytime-wal-'));
+    sqlite = openDatabase(join(dir, 'shop.db'));
+    sqlite.connection.exec('create table probe (v text)');
+    uow = new UnitOfWork(sqlite);
+    sut = new WalSync(sqlite, uow);
+  });
+  afterAll(() => {
+    sqlite.connection.close();
+    rmSync(dir, { recursive: true, force: true });
+  });
+  beforeEach(() => void (synced.files.length = 0));
+
+  it('fsyncs the WAL file of the connection once a commit waits for it', async () => {
+    commit();
+    await sut.flush();
+    expect(synced.files).toEqual([join(dir, 'shop.db-wal')]);
+    expect(sut.syncedCommits).toBe(uow.commits);
+  });
+
+  it('needs no fsync when nothing was committed since the last', async () => {
+    commit();
+    await sut.flush();
+    synced.files.length = 0;
+    await sut.flush();
+    expect(synced.files).toEqual([]);
+  });
+
+  it('shares one fsync among the commits before it, and syncs again for a commit made while it ran', async () => {
+    commit();
+    commit();
+    const first = sut.flush();
+    const alongside = sut.flush();
+    commit();
+    const later = sut.flush();
+    const withLater = sut.flush();
+    await Promise.all([first, alongside, later, withLater]);
+    expect(synced.files).toHaveLength(2);
+    expect(sut.syncedCommits).toBe(uow.commits);
+  });
+});
