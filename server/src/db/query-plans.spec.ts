@@ -49,6 +49,7 @@ describe('query plans', () => {
         ro.lines.map((l) => l.id),
       );
       new LabourService(app.get<Db>(DB), app.get(ShopService)).lineSeconds(lines, new Date());
+      await get('/api/reports/labour');
       const [ro] = (await get('/api/repair-orders?limit=1')).items;
       await get(`/api/vehicles?vin=${ro!.vin}`);
     });
@@ -121,6 +122,21 @@ describe('query plans', () => {
       ]),
     );
     expect(plan.join('\n')).not.toMatch(/SCAN (punches|punch|shift_out|correction)\b/);
+  });
+
+  it('the labour report notices a changed job line from the index of changes', () => {
+    expect(planOf('latest line change', /max\(("job_lines"\.)?"updated_at"\)/)).toContain(
+      'SEARCH job_lines USING COVERING INDEX job_lines_updated_at_idx',
+    );
+  });
+
+  it('bay utilisation reads the lines not done and the lines done lately, each through its index', () => {
+    expect(
+      planOf('lines not done in bays', /"status" <> \? and \+"job_lines"\."bay_id" is not null/),
+    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx']);
+    expect(planOf('lines done in bays', /\+"job_lines"\."status" = 'done'/)).toEqual([
+      'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
+    ]);
   });
 
   it('a vehicle by its VIN, and its last visit', () => {
