@@ -15,15 +15,46 @@ import { seedBusyShop } from './synthetic-year.js';
 /*
  * `npm run bench`: a 40-technician shop with three years of history, served by the built server in its
  * own process, measured from outside. Prints each figure, then one JSON line with the figures the
- * project tracks (issue 13). It reports; it never fails on a target.
+ * project tracks. It reports; it never fails on a target.
  *
  * BENCH_PROFILE=<dir> runs the measured server under `node --cpu-prof` and writes its profile there.
+ * BENCH_PARTS=<list> runs only some parts, a comma list of `start`, `live`, `reads` and `bundles` (all by
+ * default); the figures of the parts left out are null in the JSON line.
  */
 const KIOSKS = 980;
 const BOARDS = 20;
 const RATE = 20;
 const SECONDS = 30;
 const profileDir = process.env.BENCH_PROFILE;
+const PARTS = ['start', 'live', 'reads', 'bundles'] as const;
+type Part = (typeof PARTS)[number];
+const parts = new Set(
+  (process.env.BENCH_PARTS ?? PARTS.join(','))
+    .split(',')
+    .map((part) => part.trim())
+    .filter(Boolean),
+);
+for (const part of parts) {
+  if (!(PARTS as readonly string[]).includes(part))
+    throw new Error(`BENCH_PARTS: no part "${part}"; parts are ${PARTS.join(', ')}`);
+}
+const runs = (part: Part) => parts.has(part);
+const needsServer = runs('start') || runs('live') || runs('reads');
+const KEYS = [
+  'history years',
+  'punch-to-board p95 ms',
+  'punch-to-board p99 ms',
+  'server cpu ms per punch',
+  'event loop delay p99 ms',
+  'reconnect 1000 sockets ms',
+  'server rss mb at 1000 sockets',
+  'serve healthy ms',
+  'repair order page ms',
+  'labour report ms',
+  'pay report ms',
+  'kiosk initial js kb',
+  'wall route js kb',
+];
 const repoRoot = fileURLToPath(new URL('../../../', import.meta.url));
 
 const tracked: Record<string, number> = {};
@@ -71,7 +102,25 @@ function machine(): string {
 }
 print('machine', machine());
 
-// 1. The shop, written straight into a fresh database, and the JWT secret the server will read there.
+if (runs('bundles')) {
+  // 1. What a tablet and a wall screen download before they show anything, gzipped.
+  track(
+    'kiosk initial js kb',
+    routeJsKb(join(repoRoot, 'kiosk/dist'), 'src/app/routes/sign-in.tsx'),
+    'kiosk sign-in JS',
+    'kB',
+  );
+  track(
+    'wall route js kb',
+    routeJsKb(join(repoRoot, 'board/dist'), 'src/app/routes/wall.tsx'),
+    'wall route JS',
+    'kB',
+  );
+}
+
+if (!needsServer) finish();
+
+// 2. The shop, written straight into a fresh database, and the JWT secret the server will read there.
 const dataDir = mkdtempSync(join(tmpdir(), 'baytime-bench-'));
 const config = loadConfig({ BAYTIME_DATA_DIR: dataDir });
 const seedStart = performance.now();
@@ -89,7 +138,7 @@ const owner = {
   authorization: `Bearer ${jwt.sign({ sub: shop.ownerId, role: 'owner' }, { expiresIn: '1h' })}`,
 };
 
-// 2. Start-up on the three-year database: spawn → /api/health 200, three times; the last one stays up.
+// 3. Start-up on the three-year database: spawn → /api/health 200, three times; the last one stays up.
 const port = 3900 + Math.floor(Math.random() * 90);
 const server = new ServerProcess(
   repoRoot,
@@ -98,136 +147,122 @@ const server = new ServerProcess(
   profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
 );
 const starts: number[] = [];
-for (let i = 0; i < 3; i++) {
+for (let i = 0; i < (runs('start') ? 3 : 1); i++) {
   if (i > 0) await server.stop();
   starts.push(await server.start());
 }
-print('serve healthy, each start', starts.map((ms) => Math.round(ms)).join(', '), 'ms');
-track('serve healthy ms', median(starts), 'serve healthy (median of 3)', 'ms');
-
-// 3. 980 kiosks and 20 wall boards on live sockets.
-const connectStart = performance.now();
-const connectCpu = server.cpuMs();
-const kiosks = Array.from({ length: KIOSKS }, (_, i) =>
-  connect(server.url, kioskToken(shop.technicianIds[i % shop.technicianIds.length]!)),
-);
-const boards = shop.screenIds.slice(0, BOARDS).map((id) => connect(server.url, displayToken(id)));
-const sockets = [...kiosks, ...boards];
-const connected = await allSnapshots(sockets, 60_000);
-print(`${sockets.length} sockets hold a snapshot after`, connected - connectStart, 'ms');
-print(`  server CPU for ${sockets.length} connections`, server.cpuMs() - connectCpu, 'ms');
-
-// 4. The load: 20 punches a second for 30 s, from kiosks of the technicians on shift.
-const load = await punchLoad(
-  server,
-  boards,
-  shop.onShift.map((tech) => ({ ...tech, token: kioskToken(tech.technicianId) })),
-  { rate: RATE, seconds: SECONDS },
-);
-const latencies = load.latencies.sort((a, b) => a - b);
-print('punches sent / refused', `${load.sent} / ${load.refused}`);
-print('board deliveries measured / missed', `${latencies.length} / ${load.missed}`);
-print('punch-to-board p50', percentile(latencies, 50), 'ms');
-track('punch-to-board p95 ms', percentile(latencies, 95), 'punch-to-board p95', 'ms');
-track('punch-to-board p99 ms', percentile(latencies, 99), 'punch-to-board p99', 'ms');
-print('server CPU during the load', (load.serverCpuMs / load.elapsedMs) * 100, '% of one core');
-track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
-print('event loop delay p50 / max', `${load.eventLoop.p50Ms} / ${load.eventLoop.maxMs}`, 'ms');
-track('event loop delay p99 ms', load.eventLoop.p99Ms, 'event loop delay p99', 'ms');
-const memory = server.memoryMb();
-track('server rss mb at 1000 sockets', memory.rss, `server RSS with ${sockets.length} sockets`, 'MB');
-print('server peak RSS so far', memory.peak, 'MB');
-
-// 5. Kill the server and start it again: every socket reconnects by itself and gets a fresh snapshot.
-await server.stop(profileDir ? 'SIGINT' : 'SIGKILL');
-const snapshots = allSnapshots(sockets, 120_000);
-const restart = performance.now();
-const restartHealthyMs = await server.start();
-const reconnectCpu = server.cpuMs();
-const allBack = await snapshots;
-const reconnectCpuMs = server.cpuMs() - reconnectCpu;
-print('restarted server healthy after', restartHealthyMs, 'ms');
-print(`${sockets.length} sockets back, after healthy`, allBack - restart - restartHealthyMs, 'ms');
-print(`  server CPU from healthy to all back`, reconnectCpuMs, 'ms');
-track('reconnect 1000 sockets ms', allBack - restart, `${sockets.length} sockets back, after restart`, 'ms');
-for (const socket of sockets) socket.close();
-
-// 6. Reads over the three years: a week's reports, a page of repair orders with a search.
-const lastWeek = addIsoWeeks(workweekOf(new Date(), DEFAULT_SHOP), -1);
-const report = (kind: 'labour' | 'pay') => async () => {
-  const response = await fetch(`${server.url}/api/reports/${kind}?week=${lastWeek}`, { headers: owner });
-  if (!response.ok) throw new Error(`${kind} report: ${response.status} ${await response.text()}`);
-  return (await response.text()).length > 0;
-};
-for (const [kind, key] of [
-  ['labour', 'labour report ms'],
-  ['pay', 'pay report ms'],
-] as const) {
-  const [first, ...rest] = await samples(report(kind), 6, 20_000);
-  print(`${kind} report ${lastWeek}, first`, first!, 'ms');
-  track(key, median(rest), `${kind} report ${lastWeek}, median of ${rest.length}`, 'ms');
+if (runs('start')) {
+  print('serve healthy, each start', starts.map((ms) => Math.round(ms)).join(', '), 'ms');
+  track('serve healthy ms', median(starts), 'serve healthy (median of 3)', 'ms');
 }
-// In a working shop a punch comes between two reports: a technician off today clocks in and out.
-const offToday = kioskToken(shop.technicianIds.at(-1)!);
-const afterPunch: number[] = [];
-for (const kind of ['shift-in', 'shift-out', 'shift-in']) {
-  await fetch(`${server.url}/api/punches`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', authorization: `Bearer ${offToday}` },
-    body: JSON.stringify({ id: randomUUID(), kind }),
-  });
-  const start = performance.now();
-  await report('labour')();
-  afterPunch.push(performance.now() - start);
-}
-print('labour report just after a punch, median of 3', median(afterPunch), 'ms');
 
-const page = `${server.url}/api/repair-orders?limit=50&q=${encodeURIComponent(shop.searchTerm)}`;
-const answers: { status: number; bytes: number }[] = [];
-const pageTimes = await samples(
-  async () => {
-    const response = await fetch(page, { headers: owner });
-    answers.push({ status: response.status, bytes: (await response.arrayBuffer()).byteLength });
-    return response.ok;
-  },
-  20,
-  30_000,
-);
-const answered = answers.at(-1)!;
-print('repair order page answer', `${answered.status}, ${round(answered.bytes / 1000)} kB`);
-track('repair order page ms', median(pageTimes), `repair order page, median of ${pageTimes.length}`, 'ms');
+if (runs('live')) {
+  // 4. 980 kiosks and 20 wall boards on live sockets.
+  const connectStart = performance.now();
+  const connectCpu = server.cpuMs();
+  const kiosks = Array.from({ length: KIOSKS }, (_, i) =>
+    connect(server.url, kioskToken(shop.technicianIds[i % shop.technicianIds.length]!)),
+  );
+  const boards = shop.screenIds.slice(0, BOARDS).map((id) => connect(server.url, displayToken(id)));
+  const sockets = [...kiosks, ...boards];
+  const connected = await allSnapshots(sockets, 60_000);
+  print(`${sockets.length} sockets hold a snapshot after`, connected - connectStart, 'ms');
+  print(`  server CPU for ${sockets.length} connections`, server.cpuMs() - connectCpu, 'ms');
+
+  // 5. The load: 20 punches a second for 30 s, from kiosks of the technicians on shift.
+  const load = await punchLoad(
+    server,
+    boards,
+    shop.onShift.map((tech) => ({ ...tech, token: kioskToken(tech.technicianId) })),
+    { rate: RATE, seconds: SECONDS },
+  );
+  const latencies = load.latencies.sort((a, b) => a - b);
+  print('punches sent / refused', `${load.sent} / ${load.refused}`);
+  print('board deliveries measured / missed', `${latencies.length} / ${load.missed}`);
+  print('punch-to-board p50', percentile(latencies, 50), 'ms');
+  track('punch-to-board p95 ms', percentile(latencies, 95), 'punch-to-board p95', 'ms');
+  track('punch-to-board p99 ms', percentile(latencies, 99), 'punch-to-board p99', 'ms');
+  print('server CPU during the load', (load.serverCpuMs / load.elapsedMs) * 100, '% of one core');
+  track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
+  print('event loop delay p50 / max', `${load.eventLoop.p50Ms} / ${load.eventLoop.maxMs}`, 'ms');
+  track('event loop delay p99 ms', load.eventLoop.p99Ms, 'event loop delay p99', 'ms');
+  const memory = server.memoryMb();
+  track('server rss mb at 1000 sockets', memory.rss, `server RSS with ${sockets.length} sockets`, 'MB');
+  print('server peak RSS so far', memory.peak, 'MB');
+
+  // 6. Kill the server and start it again: every socket reconnects by itself and gets a fresh snapshot.
+  await server.stop(profileDir ? 'SIGINT' : 'SIGKILL');
+  const snapshots = allSnapshots(sockets, 120_000);
+  const restart = performance.now();
+  const restartHealthyMs = await server.start();
+  const reconnectCpu = server.cpuMs();
+  const allBack = await snapshots;
+  const reconnectCpuMs = server.cpuMs() - reconnectCpu;
+  print('restarted server healthy after', restartHealthyMs, 'ms');
+  print(`${sockets.length} sockets back, after healthy`, allBack - restart - restartHealthyMs, 'ms');
+  print(`  server CPU from healthy to all back`, reconnectCpuMs, 'ms');
+  track(
+    'reconnect 1000 sockets ms',
+    allBack - restart,
+    `${sockets.length} sockets back, after restart`,
+    'ms',
+  );
+  for (const socket of sockets) socket.close();
+}
+
+if (runs('reads')) {
+  // 7. Reads over the three years: a week's reports, a page of repair orders with a search.
+  const lastWeek = addIsoWeeks(workweekOf(new Date(), DEFAULT_SHOP), -1);
+  const report = (kind: 'labour' | 'pay') => async () => {
+    const response = await fetch(`${server.url}/api/reports/${kind}?week=${lastWeek}`, { headers: owner });
+    if (!response.ok) throw new Error(`${kind} report: ${response.status} ${await response.text()}`);
+    return (await response.text()).length > 0;
+  };
+  for (const [kind, key] of [
+    ['labour', 'labour report ms'],
+    ['pay', 'pay report ms'],
+  ] as const) {
+    const [first, ...rest] = await samples(report(kind), 6, 20_000);
+    print(`${kind} report ${lastWeek}, first`, first!, 'ms');
+    track(key, median(rest), `${kind} report ${lastWeek}, median of ${rest.length}`, 'ms');
+  }
+  // In a working shop a punch comes between two reports: a technician off today clocks in and out.
+  const offToday = kioskToken(shop.technicianIds.at(-1)!);
+  const afterPunch: number[] = [];
+  for (const kind of ['shift-in', 'shift-out', 'shift-in']) {
+    await fetch(`${server.url}/api/punches`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', authorization: `Bearer ${offToday}` },
+      body: JSON.stringify({ id: randomUUID(), kind }),
+    });
+    const start = performance.now();
+    await report('labour')();
+    afterPunch.push(performance.now() - start);
+  }
+  print('labour report just after a punch, median of 3', median(afterPunch), 'ms');
+
+  const page = `${server.url}/api/repair-orders?limit=50&q=${encodeURIComponent(shop.searchTerm)}`;
+  const answers: { status: number; bytes: number }[] = [];
+  const pageTimes = await samples(
+    async () => {
+      const response = await fetch(page, { headers: owner });
+      answers.push({ status: response.status, bytes: (await response.arrayBuffer()).byteLength });
+      return response.ok;
+    },
+    20,
+    30_000,
+  );
+  const answered = answers.at(-1)!;
+  print('repair order page answer', `${answered.status}, ${round(answered.bytes / 1000)} kB`);
+  track('repair order page ms', median(pageTimes), `repair order page, median of ${pageTimes.length}`, 'ms');
+}
 await server.stop(profileDir ? 'SIGINT' : 'SIGTERM');
-
-// 7. What a tablet and a wall screen download before they show anything, gzipped.
-track(
-  'kiosk initial js kb',
-  routeJsKb(join(repoRoot, 'kiosk/dist'), 'src/app/routes/sign-in.tsx'),
-  'kiosk sign-in JS',
-  'kB',
-);
-track(
-  'wall route js kb',
-  routeJsKb(join(repoRoot, 'board/dist'), 'src/app/routes/wall.tsx'),
-  'wall route JS',
-  'kB',
-);
-
-print('machine', machine());
 rmSync(dataDir, { recursive: true, force: true });
-const KEYS = [
-  'history years',
-  'punch-to-board p95 ms',
-  'punch-to-board p99 ms',
-  'server cpu ms per punch',
-  'event loop delay p99 ms',
-  'reconnect 1000 sockets ms',
-  'server rss mb at 1000 sockets',
-  'serve healthy ms',
-  'repair order page ms',
-  'labour report ms',
-  'pay report ms',
-  'kiosk initial js kb',
-  'wall route js kb',
-];
-console.log(JSON.stringify(Object.fromEntries(KEYS.map((key) => [key, tracked[key] ?? null]))));
-process.exit(0);
+finish();
+
+/** Prints the machine's load again and the JSON line of every tracked figure, null for a part not run. */
+function finish(): never {
+  print('machine', machine());
+  console.log(JSON.stringify(Object.fromEntries(KEYS.map((key) => [key, tracked[key] ?? null]))));
+  process.exit(0);
+}

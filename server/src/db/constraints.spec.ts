@@ -183,3 +183,22 @@ describe('the constraints migration on a database that has rows', () => {
     }
   });
 });
+
+describe('start-up after a migration', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'baytime-broken-keys-'));
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('stops when a row breaks a foreign key', () => {
+    const file = join(dir, 'shop.db');
+    const before = new Database(file);
+    migrate(drizzle(before), {
+      migrationsFolder: migrationsUpTo('0016_constraints', join(dir, 'before')),
+    });
+    before.pragma('foreign_keys = OFF');
+    before.exec(
+      "INSERT INTO punches (id, technician_id, kind, at, recorded_at, recorded_by) VALUES ('p1', 99, 'shift-in', 0, 0, 99)",
+    );
+    before.close();
+    expect(() => openDatabase(file)).toThrow('A migration left rows that break foreign keys: punches row');
+  });
+});

@@ -40,7 +40,11 @@ export function openDatabase(file: string): Sqlite {
  */
 function migrateWithTableRebuilds(connection: Database.Database, db: Db): void {
   connection.pragma('foreign_keys = OFF');
+  const appliedBefore = appliedMigrations(connection);
   migrate(db, { migrationsFolder });
+  // Only a migration can have broken a key: the check reads every key of every row (most of a second
+  // on years of punches), so a start with nothing to migrate goes without it.
+  if (appliedMigrations(connection) === appliedBefore) return;
   const broken = connection.pragma('foreign_key_check') as { table: string; rowid: number; parent: string }[];
   if (broken.length)
     throw new Error(
@@ -49,6 +53,16 @@ function migrateWithTableRebuilds(connection: Database.Database, db: Db): void {
         .map((row) => `${row.table} row ${row.rowid} → ${row.parent}`)
         .join(', ')}`,
     );
+}
+
+/** Migrations recorded as applied; none before the first start. */
+function appliedMigrations(connection: Database.Database): number {
+  const recorded = connection
+    .prepare("SELECT 1 FROM sqlite_master WHERE type = 'table' AND name = '__drizzle_migrations'")
+    .get();
+  return recorded
+    ? (connection.prepare('SELECT count(*) AS n FROM __drizzle_migrations').get() as { n: number }).n
+    : 0;
 }
 
 export function countRows(db: Db, table: AnySQLiteTable): number {

@@ -3,6 +3,7 @@ import type { RepairOrderPage } from '@baytime/shared';
 import { queryPlan, statementsDuring, type RanStatement } from '../test-support/statements.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { FloorService } from '../floor/floor.service.js';
+import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { DB, SQLITE, type Db, type Sqlite } from './database.js';
@@ -41,6 +42,14 @@ describe('query plans', () => {
       const first = await get('/api/repair-orders?status=closed&limit=2');
       await get(`/api/repair-orders?status=closed&limit=2&cursor=${first.nextCursor}`);
       await get('/api/repair-orders?q=farrow');
+      // A third of the demo vehicles are Corvanes: a page of one is nearest walking the ROs newest first.
+      await get('/api/repair-orders?q=7CV&limit=1');
+      // The clocked time of lines, with a statement prepared afresh to see it.
+      const lines = (await get('/api/repair-orders?limit=5')).items.flatMap((ro) =>
+        ro.lines.map((l) => l.id),
+      );
+      new LabourService(app.get<Db>(DB), app.get(ShopService)).lineSeconds(lines, new Date());
+      await get('/api/reports/labour');
       const [ro] = (await get('/api/repair-orders?limit=1')).items;
       await get(`/api/vehicles?vin=${ro!.vin}`);
     });
@@ -93,6 +102,41 @@ describe('query plans', () => {
     expect(plan).toContainEqual(expect.stringMatching(/^SCAN repair_orders_search VIRTUAL TABLE INDEX 0:M/));
     expect(plan).toContain('SEARCH repair_orders USING INTEGER PRIMARY KEY (rowid=?)');
     expect(plan).not.toContain('SCAN repair_orders');
+  });
+
+  it('a search that matches many ROs walks them newest first, with no sort', () => {
+    const plan = planOf('the wide repair-order search', /\+"repair_orders"\."id" IN .* order by/);
+    expect(plan[0]).toMatch(/^SCAN repair_orders USING INDEX repair_orders_created_at_idx/);
+    expect(plan.join('\n')).not.toMatch(/TEMP B-TREE FOR ORDER BY/);
+  });
+
+  it('the clocked time of lines reads only the shifts around their punches, through indexes', () => {
+    const plan = planOf('punches around lines', /with recursive/);
+    expect(plan).toEqual(
+      expect.arrayContaining([
+        'SEARCH punches USING INDEX sqlite_autoindex_punches_1 (id=?)',
+        'SEARCH punches USING INDEX punches_job_line_id_at_idx (job_line_id=?)',
+        'SEARCH punch USING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
+        'SEARCH shift_out USING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
+        'SEARCH correction USING INDEX punches_supersedes_idx (supersedes=?)',
+      ]),
+    );
+    expect(plan.join('\n')).not.toMatch(/SCAN (punches|punch|shift_out|correction)\b/);
+  });
+
+  it('the labour report notices a changed job line from the index of changes', () => {
+    expect(planOf('latest line change', /max\(("job_lines"\.)?"updated_at"\)/)).toContain(
+      'SEARCH job_lines USING COVERING INDEX job_lines_updated_at_idx',
+    );
+  });
+
+  it('bay utilisation reads the lines not done and the lines done lately, each through its index', () => {
+    expect(
+      planOf('lines not done in bays', /"status" <> \? and \+"job_lines"\."bay_id" is not null/),
+    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx']);
+    expect(planOf('lines done in bays', /\+"job_lines"\."status" = 'done'/)).toEqual([
+      'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
+    ]);
   });
 
   it('a vehicle by its VIN, and its last visit', () => {

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, inArray, lte, min } from 'drizzle-orm';
+import { and, asc, eq, gte, lte, sql } from 'drizzle-orm';
 import { buildLedger, type Ledger, type LedgerPunch, type PunchDto } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { punches } from '../db/schema/index.js';
@@ -31,13 +31,71 @@ export interface LineSeconds {
   byTechnician: Map<number, number>;
 }
 
+/**
+ * The punches that count for the lines `:lines` (a JSON array of ids) up to `:now`: each technician's
+ * shifts around their punches on those lines, not their whole history. A job on a line runs from a punch
+ * on it to a punch no later than the shift-out that follows; the other jobs it shares its time with
+ * opened after the shift-out before. So per technician and UTC day of punches on the lines, the punches
+ * from the last shift-out before the first of them (at most `:lookback` back, as far as a shift may
+ * still be open) to the first shift-out at or after the last (or `:now`), and every correction of those
+ * punches, wherever it falls. As long as no shift stays open longer than the lookback, their ledger gives
+ * each line the seconds that a ledger of all the technician's punches gives it.
+ */
+function punchesAroundLines(db: Db) {
+  return db
+    .select()
+    .from(punches)
+    .where(
+      sql`${punches.id} in (
+        with recursive
+          on_lines as (
+            select technician_id, min(at) as first, max(at) as last from punches
+            where job_line_id in (select value from json_each(${sql.placeholder('lines')}))
+            group by technician_id, cast(at / 86400000 as integer)
+          ),
+          windows as (
+            select technician_id,
+              coalesce((
+                select at from punches shift_out
+                where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out'
+                  and shift_out.at < on_lines.first and shift_out.at >= on_lines.first - ${sql.placeholder('lookback')}
+                order by shift_out.at desc limit 1
+              ), on_lines.first - ${sql.placeholder('lookback')}) as start,
+              coalesce((
+                select at from punches shift_out
+                where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out'
+                  and shift_out.at >= on_lines.last and shift_out.at <= ${sql.placeholder('now')}
+                order by shift_out.at limit 1
+              ), ${sql.placeholder('now')}) as end
+            from on_lines
+          ),
+          counted(id) as (
+            select punch.id from windows
+              join punches punch on punch.technician_id = windows.technician_id
+                and punch.at >= windows.start and punch.at <= windows.end
+            union
+            select correction.id from counted
+              join punches correction on correction.supersedes = counted.id
+            where correction.at <= ${sql.placeholder('now')}
+          )
+        select id from counted
+      )`,
+    )
+    .orderBy(asc(punches.technicianId), asc(punches.at))
+    .prepare();
+}
+
 /** Reads punches and turns them into ledgers with the shop's rules; writes nothing. */
 @Injectable()
 export class LabourService {
+  private readonly aroundLines: ReturnType<typeof punchesAroundLines>;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
-  ) {}
+  ) {
+    this.aroundLines = punchesAroundLines(db);
+  }
 
   punchesOf(technicianId: number, from: Date, to: Date): LedgerPunch[] {
     return this.db
@@ -56,23 +114,20 @@ export class LabourService {
   /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     if (jobLineIds.length === 0) return new Map();
-    const starts = this.db
-      .select({ technicianId: punches.technicianId, first: min(punches.at) })
-      .from(punches)
-      .where(inArray(punches.jobLineId, jobLineIds))
-      .groupBy(punches.technicianId)
-      .all();
+    const rows = this.aroundLines.all({
+      lines: JSON.stringify(jobLineIds),
+      now: now.getTime(),
+      lookback: OPEN_SHIFT_LOOKBACK_MS,
+    });
+    const byTechnician = new Map<number, PunchDto[]>();
+    for (const row of rows) {
+      const punched = byTechnician.get(row.technicianId) ?? [];
+      if (punched.length === 0) byTechnician.set(row.technicianId, punched);
+      punched.push(toPunchDto(row));
+    }
+    const settings = this.shop.settings(now);
     const ledgers = new Map(
-      starts.flatMap(({ technicianId, first }) =>
-        first
-          ? [
-              [
-                technicianId,
-                this.ledgerOf(technicianId, new Date(first.getTime() - OPEN_SHIFT_LOOKBACK_MS), now),
-              ] as const,
-            ]
-          : [],
-      ),
+      [...byTechnician].map(([technicianId, punched]) => [technicianId, buildLedger(punched, now, settings)]),
     );
     return lineSecondsOf(ledgers, jobLineIds);
   }

@@ -1,5 +1,5 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
-import twilio from 'twilio';
+import type twilio from 'twilio';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { TextboxService } from './textbox.service.js';
 
@@ -31,17 +31,21 @@ export class TextSender {
       };
       return;
     }
-    const client = twilio(provider.accountSid, provider.authToken, {
-      autoRetry: false,
-      timeout: 30_000,
-      ...this.clientOptions,
-    });
+    // The SDK (and the HTTP client under it) loads with the first text: start-up does without it.
+    let client: Promise<twilio.Twilio> | null = null;
+    const connect = async () =>
+      (await import('twilio')).default(provider.accountSid, provider.authToken, {
+        autoRetry: false,
+        timeout: 30_000,
+        ...this.clientOptions,
+      });
     // A messaging service id (MG…) lets the provider pick the sending number; otherwise it is a number.
     const from = provider.from.startsWith('MG')
       ? { messagingServiceSid: provider.from }
       : { from: provider.from };
     this.deliver = async (to, body) => {
-      await client.messages.create({ to, body, ...from });
+      client ??= connect();
+      await (await client).messages.create({ to, body, ...from });
     };
   }
 

@@ -13,8 +13,12 @@ const TRIGRAM = 3;
 const phrase = (word: string) => `"${word.replaceAll('"', '""')}"`;
 const containing = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
-/** ROs whose searched text holds every word of `q`, in any column, ignoring case. */
-export function repairOrderSearch(q: string): SQL {
+/**
+ * ROs whose searched text holds every word of `q`, in any column, ignoring case. `newestFirst`: SQLite
+ * walks the ROs newest first and keeps the matches (for a search that matches many, whose first page
+ * lies close to the start of that walk), instead of finding every match first and sorting them.
+ */
+export function repairOrderSearch(q: string, newestFirst = false): SQL {
   const words = q.split(/\s+/).filter(Boolean);
   const long = words.filter((word) => [...word].length >= TRIGRAM);
   const short = words.filter((word) => [...word].length < TRIGRAM);
@@ -27,5 +31,7 @@ export function repairOrderSearch(q: string): SQL {
         sql` OR `,
       )})`,
     );
-  return sql`${repairOrders.id} IN (SELECT rowid FROM repair_orders_search WHERE ${sql.join(conditions, sql` AND `)})`;
+  // A unary `+` keeps SQLite from looking the matches up by id, so it walks an index in the page's order.
+  const id = newestFirst ? sql`+${repairOrders.id}` : sql`${repairOrders.id}`;
+  return sql`${id} IN (SELECT rowid FROM repair_orders_search WHERE ${sql.join(conditions, sql` AND `)})`;
 }

@@ -39,6 +39,8 @@ type CustomerRow = typeof customers.$inferSelect;
 type VehicleRow = typeof vehicles.$inferSelect;
 
 const DAY_MS = 24 * 3600_000;
+/** Reading a matched RO and sorting it in, against stepping over one index entry: measured, roughly. */
+const READ_AND_SORT_COST = 10;
 
 function fieldError(path: string[], message: string, summary = message): BadRequestException {
   return new BadRequestException({ statusCode: 400, message: summary, issues: [{ path, message }] });
@@ -170,22 +172,40 @@ export class RepairOrdersService {
 
   /** One page, newest first; clocked time is counted for the lines on this page only. */
   list(query: RepairOrderListQuery, now = new Date()): RepairOrderPage {
-    const where = and(
-      query.status ? eq(repairOrders.status, query.status) : undefined,
-      query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
-      query.promised === 'today' ? this.promisedToday(now) : undefined,
-      query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
-      query.q ? repairOrderSearch(query.q) : undefined,
-    );
-    const total = this.db.select({ n: count() }).from(repairOrders).where(where).get()?.n ?? 0;
+    const where = (newestFirst: boolean) =>
+      and(
+        query.status ? eq(repairOrders.status, query.status) : undefined,
+        query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
+        query.promised === 'today' ? this.promisedToday(now) : undefined,
+        query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
+        query.q ? repairOrderSearch(query.q, newestFirst) : undefined,
+      );
+    const total = this.db.select({ n: count() }).from(repairOrders).where(where(false)).get()?.n ?? 0;
     const after = olderThan(repairOrders.createdAt, repairOrders.id, decodeCursor(query.cursor));
     return toPage(
-      this.rows(and(where, after), query.limit + 1),
+      this.rows(
+        and(where(query.q !== undefined && this.walkNewestFirst(total, query.limit)), after),
+        query.limit + 1,
+      ),
       query.limit,
       total,
       ({ ro }) => ({ at: ro.createdAt.getTime(), id: ro.id }),
       (shown) => this.summaries(shown, now),
     );
+  }
+
+  /**
+   * Whether a page of `limit` out of `matches` ROs is found sooner by walking all ROs newest first, about
+   * (all ÷ matches) × limit index entries, than by reading and sorting every match. The highest RO id
+   * stands for the count of all: ids are given in turn.
+   */
+  private walkNewestFirst(matches: number, limit: number): boolean {
+    const all =
+      this.db
+        .select({ n: max(repairOrders.id) })
+        .from(repairOrders)
+        .get()?.n ?? 0;
+    return matches * matches * READ_AND_SORT_COST > all * (limit + 1);
   }
 
   /**

@@ -282,6 +282,21 @@ describe(`${addOpenHours.name} beyond a day shop`, () => {
     expect(addOpenHours(utc('2026-03-02T13:30'), 1001, WEEKDAYS, ZONE)).toEqual(utc('2026-07-20T13:30'));
   });
 
+  it('answers for the hours and the zone it is given, from the same local day one call after another', () => {
+    // Fri 6 Mar 16:00 CST (22:00Z) + 2 h: 1.5 h to the close, then 0.5 h from Mon 9 Mar 07:30 CDT (DST
+    // since Sunday) → 08:00 CDT (13:00Z).
+    expect(addOpenHours(utc('2026-03-06T22:00'), 2, WEEKDAYS, ZONE)).toEqual(utc('2026-03-09T13:00'));
+    // Open Saturday morning: 0.5 h from Sat 7 Mar 08:00 CST → 08:30 CST (14:30Z).
+    expect(addOpenHours(utc('2026-03-06T22:00'), 2, WITH_SATURDAY_MORNING, ZONE)).toEqual(
+      utc('2026-03-07T14:30'),
+    );
+    // The same instant is Fri 23:00 CET in Berlin (DST from 29 Mar): closed, so Mon 07:30 CET + 2 h →
+    // 09:30 CET (08:30Z).
+    expect(addOpenHours(utc('2026-03-06T22:00'), 2, WEEKDAYS, 'Europe/Berlin')).toEqual(
+      utc('2026-03-09T08:30'),
+    );
+  });
+
   it('has no answer for a shop that never opens', () => {
     expect(addOpenHours(utc('2026-03-03T15:00'), 1, Array(7).fill(null), ZONE)).toBeNull();
   });

@@ -49,15 +49,27 @@ function wallClock(year: number, month: number, date: number, hhmm: string, time
   return new TZDate(year, month, date, hours, minutes, timeZone).getTime();
 }
 
+const KEPT_OPEN_PERIODS = 256;
+const keptOpenPeriods = new Map<string, readonly OpenPeriod[]>();
+
 /**
- * The shop's open periods from `from` over the next week and a day, merged where they touch, the
- * first clipped to start at `from`. Built from wall-clock times in the shop's zone each day, so a DST
- * day's open hours are as long as they really are. A close at or before the open runs overnight into
- * the next day (22:00–06:00); an open equal to the close is open round the clock.
+ * The open periods of the local days around `year-month-date` (the day before to eight days after), as
+ * instants. Built from wall-clock times in the shop's zone each day, so a DST day's open hours are as
+ * long as they really are. A close at or before the open runs overnight into the next day (22:00–06:00);
+ * an open equal to the close is open round the clock. The same for every instant of that local day, so
+ * they are kept: a queue's forecasts ask for them again and again, and each wall-clock time costs a
+ * look-up of the zone's offset.
  */
-function openPeriodsFrom(from: number, openingHours: OpeningHours, timeZone: string): OpenPeriod[] {
-  const local = new TZDate(from, timeZone);
-  const [year, month, date] = [local.getFullYear(), local.getMonth(), local.getDate()];
+function openPeriodsAround(
+  year: number,
+  month: number,
+  date: number,
+  openingHours: OpeningHours,
+  timeZone: string,
+): readonly OpenPeriod[] {
+  const key = `${timeZone} ${year}-${month}-${date} ${JSON.stringify(openingHours)}`;
+  const kept = keptOpenPeriods.get(key);
+  if (kept) return kept;
   const periods: OpenPeriod[] = [];
   for (let offset = -1; offset <= DAYS_PER_WEEK + 1; offset++) {
     const weekday = new TZDate(year, month, date + offset, timeZone).getDay();
@@ -66,14 +78,34 @@ function openPeriodsFrom(from: number, openingHours: OpeningHours, timeZone: str
     const overnight = hours.close <= hours.open;
     const open = wallClock(year, month, date + offset, hours.open, timeZone);
     const close = wallClock(year, month, date + offset + (overnight ? 1 : 0), hours.close, timeZone);
-    if (close > from && close > open) periods.push({ start: Math.max(open, from), end: close });
+    if (close > open) periods.push({ start: open, end: close });
   }
-  periods.sort((a, b) => a.start - b.start);
+  if (keptOpenPeriods.size >= KEPT_OPEN_PERIODS) keptOpenPeriods.delete(keptOpenPeriods.keys().next().value!);
+  keptOpenPeriods.set(key, periods);
+  return periods;
+}
+
+/**
+ * The shop's open periods from `from` over the next week and a day, merged where they touch, the
+ * first clipped to start at `from`.
+ */
+function openPeriodsFrom(from: number, openingHours: OpeningHours, timeZone: string): OpenPeriod[] {
+  const local = new TZDate(from, timeZone);
+  const periods = openPeriodsAround(
+    local.getFullYear(),
+    local.getMonth(),
+    local.getDate(),
+    openingHours,
+    timeZone,
+  )
+    .filter((period) => period.end > from)
+    .map((period) => ({ start: Math.max(period.start, from), end: period.end }))
+    .sort((a, b) => a.start - b.start);
   const merged: OpenPeriod[] = [];
   for (const period of periods) {
     const last = merged.at(-1);
     if (last && period.start <= last.end) last.end = Math.max(last.end, period.end);
-    else merged.push({ ...period });
+    else merged.push(period);
   }
   return merged;
 }

@@ -156,6 +156,8 @@ export const jobLines = sqliteTable(
       .on(t.repairOrderId)
       .where(sql`${t.status} != 'done'`),
     index('job_lines_completed_at_idx').on(t.completedAt),
+    // The reports' trend cache notices any changed line by the latest change.
+    index('job_lines_updated_at_idx').on(t.updatedAt),
     oneOf(t.status, JOB_LINE_STATUSES),
     oneOf(t.holdReason, HOLD_REASONS),
     oneOf(t.priority, PRIORITIES),

@@ -1,0 +1,1 @@
+CREATE INDEX `job_lines_updated_at_idx` ON `job_lines` (`updated_at`);
