@@ -176,6 +176,33 @@ describe('every screen at its real sizes', () => {
     await page.close();
   });
 
+  it('kiosk offline at 390x844: the sign-in sheet reads without overlapping lines and goes once the link is back', async () => {
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await openKiosk(page, server);
+    await page.keyboard.type('1042');
+    await page.keyboard.press('Enter');
+    await page.getByText('Now your PIN').waitFor();
+    await page.keyboard.type('4321');
+    await browser.setOffline(true);
+    await page.keyboard.press('Enter');
+    const sheet = page.getByRole('dialog', { name: /No connection/ });
+    await sheet.waitFor();
+    // Wrapped lines overlap when the line height is less than the text's size.
+    const crowded = await sheet.locator('h2, p').evaluateAll((all) =>
+      all
+        .map((el) => ({ text: el.textContent, style: getComputedStyle(el) }))
+        .filter(({ style }) => parseFloat(style.lineHeight) < 1.1 * parseFloat(style.fontSize))
+        .map(({ text }) => text),
+    );
+    expect(crowded).toEqual([]);
+    await look(page, 'screens-kiosk-offline-390x844');
+    await browser.setOffline(false);
+    await sheet.waitFor({ state: 'detached', timeout: 20_000 });
+    await page.getByText('The connection is back').waitFor();
+    await page.close();
+  });
+
   it('office at 1440x900: the main pages whole; a printed report carries no toolbar or note', async () => {
     const page = await browser.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });
