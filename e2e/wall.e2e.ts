@@ -7,14 +7,16 @@ import { apiAs, bayTile, openWall, peopleStrip, type Api } from './support/floor
 import { startServer, type RunningServer } from './support/server.js';
 
 /**
- * DISPLAY.md: body text cap height ≥ 55 px at 1080p, scaled with the viewport (16′–22′ of visual
- * angle at 6 m on a 55-inch TV). Barlow's cap height is 0.7 em (its font metrics: 700 of 1000 units),
- * so a text's cap height is 0.7 × its computed font size.
+ * DISPLAY.md: body text cap height ≥ 55 px at 1080p, never below 44 px, scaled with the viewport
+ * (16′–22′ of visual angle at 6 m on a 55-inch TV). Barlow's cap height is 0.7 em (its font metrics:
+ * 700 of 1000 units), so a text's cap height is 0.7 × its computed font size. Tiles keep the 55 px
+ * while 8 share a page and shrink toward the 44 px floor when more do.
  */
 const CAP_HEIGHT_EM = 0.7;
-const MIN_CAP_AT_1080P = 55;
+const PREFERRED_CAP_AT_1080P = 55;
+const MIN_CAP_AT_1080P = 44;
 
-async function assertLegibleAndStill(page: Page, height: number): Promise<void> {
+async function assertLegibleAndStill(page: Page, height: number, minCapAt1080p: number): Promise<void> {
   const scroll = await page.evaluate(() => ({
     w: document.documentElement.scrollWidth,
     h: document.documentElement.scrollHeight,
@@ -36,7 +38,7 @@ async function assertLegibleAndStill(page: Page, height: number): Promise<void> 
       }
     return min;
   });
-  expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(MIN_CAP_AT_1080P * (height / 1080) - 0.5);
+  expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(minCapAt1080p * (height / 1080) - 0.5);
 }
 
 describe('wall board', () => {
@@ -67,7 +69,7 @@ describe('wall board', () => {
       await page.setViewportSize({ width, height });
       await openWall(page, server);
       await page.waitForTimeout(500);
-      await assertLegibleAndStill(page, height);
+      await assertLegibleAndStill(page, height, bays <= 8 ? PREFERRED_CAP_AT_1080P : MIN_CAP_AT_1080P);
       await page.screenshot({ path: screenshotPath(`wall-${bays}-bays-${width}x${height}`) });
       await page.close();
     },

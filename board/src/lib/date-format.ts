@@ -17,3 +17,12 @@ export function dateTimeFormat(
   }
   return found;
 }
+
+/** "Dec 2, 2026, 9:40 AM" in the shop's zone, or "—" for no time; `seconds` adds them (logs). */
+export function shopDateTime(
+  timeZone: string | undefined,
+  seconds = false,
+): (iso: string | null | undefined) => string {
+  const format = dateTimeFormat(timeZone, { dateStyle: 'medium', timeStyle: seconds ? 'medium' : 'short' });
+  return (iso) => (iso ? format.format(new Date(iso)) : '—');
+}

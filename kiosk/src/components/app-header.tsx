@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Button } from '@fluentui/react-components';
 import type { LinkState } from '@/lib/socket';
-import { clockTime, dayPeriod } from '@/lib/format';
+import { clockTime, dayPeriod, shortDate } from '@/lib/format';
 import { useNow } from '@/hooks/use-now';
 import { CloudOffIcon } from './icons';
 import { BaytimeMark } from './baytime-mark';
@@ -32,28 +32,22 @@ export function AppHeader({
   nav,
 }: AppHeaderProps) {
   const now = useNow(1000);
-  let date: string;
-  try {
-    date = new Intl.DateTimeFormat('en-US', {
-      weekday: 'short',
-      month: 'short',
-      day: 'numeric',
-      timeZone,
-    }).format(now);
-  } catch {
-    date = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric' }).format(now);
-  }
   return (
     <header className={`bt-header${nav ? ' bt-header--nav' : ''}`}>
       <div className="bt-header__shop">
         <BaytimeMark className="bt-header__mark" />
         {nav ?? <span className="bt-header__shop-name">{shopName}</span>}
       </div>
-      <div className="bt-header__clock" aria-label="Time">
-        <span className="bt-header__time">{clockTime(now, timeZone)}</span>
-        <span className="bt-header__period">{dayPeriod(now, timeZone)}</span>
-        <span className="bt-header__date">{date}</span>
-      </div>
+      {/* Shop time only: a tablet not yet paired does not know the shop's zone, and shows no clock. */}
+      {timeZone ? (
+        <div className="bt-header__clock" aria-label="Time">
+          <span className="bt-header__time">{clockTime(now, timeZone)}</span>
+          <span className="bt-header__period">{dayPeriod(now, timeZone)}</span>
+          <span className="bt-header__date">{shortDate(now, timeZone)}</span>
+        </div>
+      ) : (
+        <div className="bt-header__clock" />
+      )}
       <div className="bt-header__right">
         <span className={`bt-conn bt-conn--${connection}`} role="status">
           {connection === 'offline' ? <CloudOffIcon /> : <span className="bt-conn__dot" aria-hidden="true" />}

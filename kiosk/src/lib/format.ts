@@ -37,6 +37,16 @@ export function dayPeriod(at: string | number | Date, timeZone?: string): string
   return (part?.value ?? '').toLowerCase();
 }
 
+/** "Wed, Dec 2" in the shop's zone (the tablet's own when the zone is not a valid one). */
+export function shortDate(at: string | number | Date, timeZone: string): string {
+  const options: Intl.DateTimeFormatOptions = { weekday: 'short', month: 'short', day: 'numeric' };
+  try {
+    return new Intl.DateTimeFormat('en-US', { ...options, timeZone }).format(new Date(at));
+  } catch {
+    return new Intl.DateTimeFormat('en-US', options).format(new Date(at));
+  }
+}
+
 /** "0:38", "12:05" — hours and minutes from seconds, rounded down. */
 export function hoursMinutes(seconds: number): string {
   const total = Math.max(0, Math.floor(seconds / 60));

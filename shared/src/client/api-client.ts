@@ -4,6 +4,8 @@ export class ApiError extends Error {
     readonly status: number,
     message: string,
     readonly fieldErrors: Record<string, string> = {},
+    /** A refusal's `Retry-After`: seconds until the server takes the request again. */
+    readonly retryAfterSeconds: number | null = null,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -83,5 +85,19 @@ async function toApiError(response: Response): Promise<ApiError> {
   const fieldErrors: Record<string, string> = {};
   for (const issue of body.issues ?? []) fieldErrors[issue.path.join('.')] ??= issue.message;
   const message = Array.isArray(body.message) ? body.message.join('; ') : body.message;
-  return new ApiError(response.status, message ?? response.statusText, fieldErrors);
+  return new ApiError(
+    response.status,
+    message ?? response.statusText,
+    fieldErrors,
+    retryAfterSeconds(response.headers.get('retry-after')),
+  );
+}
+
+/** `Retry-After` as seconds from now: either form RFC 9110 §10.2.3 allows (delay-seconds or an HTTP date). */
+export function retryAfterSeconds(header: string | null, nowMs = Date.now()): number | null {
+  if (!header) return null;
+  const text = header.trim();
+  if (/^\d+$/.test(text)) return Number(text);
+  const at = Date.parse(text);
+  return Number.isFinite(at) ? Math.max(0, Math.ceil((at - nowMs) / 1000)) : null;
 }

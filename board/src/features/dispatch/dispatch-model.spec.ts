@@ -4,6 +4,7 @@ import {
   applyMove,
   byUrgency,
   confirmQuestion,
+  dragAnnouncements,
   joinNames,
   needsConfirm,
   dropId,
@@ -249,5 +250,33 @@ describe(joinNames.name, () => {
     expect(joinNames([])).toBe('');
     expect(joinNames(['Dana'])).toBe('Dana');
     expect(joinNames(['Dana', 'Luis', 'Sam'])).toBe('Dana, Luis and Sam');
+  });
+});
+
+describe(dragAnnouncements.name, () => {
+  const brakes = line({ id: 253, lineNo: 2, repairOrderNumber: '4645', title: 'Brake pads' });
+  const shop = board([brakes], [lane(7, 'Dana Ortega', 2)]);
+  const said = dragAnnouncements(shop);
+  const active = { id: 'line:253', data: { current: { lineId: 253 } } };
+
+  it('names the line and the place in the shop’s words, never the drag ids', () => {
+    expect(said.onDragStart({ active })).toBe('Picked up Line 2 of RO 4645, Brake pads.');
+    expect(said.onDragOver({ active, over: { id: dropId.bay(2) } })).toBe(
+      'Line 2 of RO 4645, Brake pads, over Bay 2.',
+    );
+    expect(said.onDragOver({ active, over: { id: dropId.lane(7) } })).toBe(
+      'Line 2 of RO 4645, Brake pads, over Dana Ortega.',
+    );
+    expect(said.onDragEnd({ active, over: { id: dropId.queue } })).toBe(
+      'Line 2 of RO 4645, Brake pads dropped on the waiting queue.',
+    );
+    expect(said.onDragEnd({ active, over: null })).toBe(
+      'Line 2 of RO 4645, Brake pads put back where it was.',
+    );
+    expect(said.onDragCancel({ active, over: null })).toBe(
+      'Moving Line 2 of RO 4645, Brake pads cancelled: it stays where it was.',
+    );
+    for (const text of [said.onDragStart({ active }), said.onDragOver({ active, over: { id: 'bay:2' } })])
+      expect(text).not.toMatch(/line:|bay:|lane:/);
   });
 });

@@ -207,3 +207,55 @@ export function confirmQuestion(plan: MovePlan): { title: string; text: string; 
 export function needsConfirm(plan: MovePlan): boolean {
   return plan.clocksOff.length > 0 || plan.bayTaken !== null;
 }
+
+/** A line in the shop's words: "Line 2 of RO 4645, Brake pads". */
+export function lineWords(line: Pick<DispatchLine, 'lineNo' | 'repairOrderNumber' | 'title'>): string {
+  return `Line ${line.lineNo} of RO ${line.repairOrderNumber}, ${line.title}`;
+}
+
+/** Where a drop would put the line: "the waiting queue", "Dana Ortega", "Bay 3". */
+export function targetWords(board: DispatchBoard, target: MoveTarget): string {
+  switch (target.kind) {
+    case 'queue':
+      return 'the waiting queue';
+    case 'technician':
+      return findLane(board, target.technicianId)?.technician.name ?? 'a technician';
+    case 'bay':
+      return board.bays.find((bay) => bay.id === target.bayId)?.name ?? 'a bay';
+    case 'priority':
+      return `${target.priority} priority`;
+  }
+}
+
+interface DragArgs {
+  active: { id: string | number; data: { current?: unknown } };
+  over?: { id: string | number } | null;
+}
+
+/**
+ * What a screen reader hears while a line is dragged, in the shop's words rather than the drag
+ * layer's ids (dnd-kit's `accessibility.announcements`).
+ */
+export function dragAnnouncements(board: DispatchBoard) {
+  const line = ({ active }: DragArgs) => {
+    const lineId = (active.data.current as { lineId?: number } | undefined)?.lineId;
+    const found = lineId === undefined ? undefined : findLine(board, lineId);
+    return found ? lineWords(found) : 'The line';
+  };
+  const over = ({ over }: DragArgs) => {
+    const target = targetFromDropId(over?.id);
+    return target ? targetWords(board, target) : null;
+  };
+  return {
+    onDragStart: (args: DragArgs) => `Picked up ${line(args)}.`,
+    onDragOver: (args: DragArgs) => {
+      const where = over(args);
+      return where ? `${line(args)}, over ${where}.` : `${line(args)}, over no place to drop it.`;
+    },
+    onDragEnd: (args: DragArgs) => {
+      const where = over(args);
+      return where ? `${line(args)} dropped on ${where}.` : `${line(args)} put back where it was.`;
+    },
+    onDragCancel: (args: DragArgs) => `Moving ${line(args)} cancelled: it stays where it was.`,
+  };
+}

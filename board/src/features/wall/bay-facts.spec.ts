@@ -183,6 +183,30 @@ describe(pickLines.name, () => {
     expect(pickLines(facts, 1, 5).map((line) => line.fact.text)).toEqual(['k']);
     expect(pickLines(facts, 0, 0)).toEqual([]);
   });
+
+  it('wraps a fact longer than a line onto two, and leaves out one that cannot fit rather than cut it', () => {
+    const long = [fact('Replace rear wheel bearing'), fact('RO 4645'), fact('1:05 / 1:30', true)];
+    const shown = (slots: number, turn = 0) =>
+      pickLines(long, slots, turn, 16).map((line) => [line.fact.text, line.wraps]);
+    expect(shown(4)).toEqual([
+      ['Replace rear wheel bearing', true],
+      ['RO 4645', false],
+      ['1:05 / 1:30', false],
+    ]);
+    expect(shown(2, 0)).toEqual([
+      ['RO 4645', false],
+      ['1:05 / 1:30', false],
+    ]);
+    expect(shown(3, 0)).toEqual([
+      ['Replace rear wheel bearing', true],
+      ['1:05 / 1:30', false],
+    ]);
+    expect(shown(3, 1)).toEqual([
+      ['RO 4645', false],
+      ['1:05 / 1:30', false],
+    ]);
+    expect(pickLines([fact('x'.repeat(40))], 4, 0, 16)).toEqual([]);
+  });
 });
 
 describe('short texts', () => {

@@ -224,27 +224,43 @@ export interface TileLine {
   fact: BayFact;
   /** This line takes turns with other facts. */
   rotating: boolean;
+  /** The fact is too long for one line and wraps onto a second. */
+  wraps: boolean;
+}
+
+/** Lines a fact needs on a tile whose lines hold `lineChars` characters: a big countdown is one. */
+export function factHeight(fact: BayFact, lineChars: number): number {
+  if (fact.tone === 'big') return 1;
+  const length = fact.text.length + (fact.suffix ? fact.suffix.length + 1 : 0);
+  return Math.max(1, Math.ceil(length / lineChars));
 }
 
 /**
- * Fits facts into `slots` lines. When they all fit they all show; otherwise the kept facts stay and
- * (unless they fill every line) one line takes the others in turn (`turn` counts up every few seconds), in reading order.
+ * Fits facts into `slots` lines. A fact longer than a line wraps onto a second; one longer than two
+ * lines, or taller than the tile, is left out rather than cut. When they all fit they all show;
+ * otherwise the kept facts stay and (unless they fill every line) the others take turns on the lines
+ * left (`turn` counts up every few seconds), in reading order.
  */
-export function pickLines(facts: BayFact[], slots: number, turn: number): TileLine[] {
+export function pickLines(facts: BayFact[], slots: number, turn: number, lineChars = Infinity): TileLine[] {
   if (slots <= 0) return [];
-  if (facts.length <= slots) return facts.map((fact) => ({ fact, rotating: false }));
-  // One line takes turns with the rest, unless the kept facts fill every line: then they all show.
-  const keptAll = facts.filter((fact) => fact.keep);
-  const kept = keptAll.slice(0, keptAll.length >= slots ? slots : slots - 1);
-  const others = facts.filter((fact) => !kept.includes(fact));
-  const rotatingSlots = slots - kept.length;
-  const shown =
-    rotatingSlots > 0 ? others[((turn % others.length) + others.length) % others.length] : undefined;
-  const firstOther = facts.findIndex((fact) => !kept.includes(fact));
+  const height = (fact: BayFact) => factHeight(fact, lineChars);
+  const fitting = facts.filter((fact) => height(fact) <= Math.min(2, slots));
+  const line = (fact: BayFact, rotating: boolean): TileLine => ({ fact, rotating, wraps: height(fact) > 1 });
+  const total = (list: BayFact[]) => list.reduce((sum, fact) => sum + height(fact), 0);
+  if (total(fitting) <= slots) return fitting.map((fact) => line(fact, false));
+  // The kept facts leave a line for the others to take turns on, unless they fill every line.
+  const keptAll = fitting.filter((fact) => fact.keep);
+  const budget = total(keptAll) >= slots ? slots : slots - 1;
+  const kept: BayFact[] = [];
+  for (const fact of keptAll) if (total(kept) + height(fact) <= budget) kept.push(fact);
+  const room = slots - total(kept);
+  const others = fitting.filter((fact) => !kept.includes(fact) && height(fact) <= room);
+  const shown = others.length ? others[((turn % others.length) + others.length) % others.length] : undefined;
+  const firstOther = fitting.findIndex((fact) => !kept.includes(fact));
   const lines: TileLine[] = [];
-  facts.forEach((fact, index) => {
-    if (kept.includes(fact)) lines.push({ fact, rotating: false });
-    else if (index === firstOther && shown) lines.push({ fact: shown, rotating: true });
+  fitting.forEach((fact, index) => {
+    if (kept.includes(fact)) lines.push(line(fact, false));
+    else if (index === firstOther && shown) lines.push(line(shown, true));
   });
   return lines;
 }

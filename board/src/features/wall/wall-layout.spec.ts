@@ -1,22 +1,59 @@
 import { describe, expect, it } from 'vitest';
-import { lineChars, pageAt, pageItems, tileRoom, unitPx, wallLayout } from './wall-layout';
+import {
+  BODY_UNITS,
+  MIN_TILE_SCALE,
+  lineChars,
+  pageAt,
+  pageItems,
+  tileRoom,
+  unitPx,
+  wallLayout,
+} from './wall-layout';
 
 const hd = { width: 1920, height: 1080 };
 const uhd = { width: 3840, height: 2160 };
+const portrait = { width: 1080, height: 1920 };
 
 describe(wallLayout.name, () => {
-  it('puts 8 bays on one page, 4 by 2', () => {
-    expect(wallLayout(8, hd)).toMatchObject({ columns: 4, rows: 2, pages: 1, perPage: 8 });
+  it('puts 8 bays on one page, 4 by 2, at full text size', () => {
+    expect(wallLayout(8, hd)).toMatchObject({ columns: 4, rows: 2, pages: 1, perPage: 8, scale: 1 });
   });
 
   it('puts 4 bays side by side in tall tiles', () => {
     expect(wallLayout(4, hd)).toMatchObject({ columns: 4, rows: 1, pages: 1 });
   });
 
-  it('pages larger shops in balanced groups', () => {
-    expect(wallLayout(9, hd)).toMatchObject({ pages: 2, perPage: 5, columns: 3, rows: 2 });
-    expect(wallLayout(16, hd)).toMatchObject({ pages: 2, perPage: 8 });
-    expect(wallLayout(30, hd)).toMatchObject({ pages: 4, perPage: 8, columns: 4, rows: 2 });
+  it('puts 12 bays on one page, 4 by 3 on a wide screen and 3 by 4 on a tall one', () => {
+    expect(wallLayout(12, hd)).toMatchObject({ columns: 4, rows: 3, pages: 1, perPage: 12 });
+    expect(wallLayout(12, portrait)).toMatchObject({ columns: 3, rows: 4, pages: 1, perPage: 12 });
+    expect(wallLayout(9, hd)).toMatchObject({ columns: 3, rows: 3, pages: 1 });
+  });
+
+  it('pages only when one page would take the text below legible size, in balanced groups', () => {
+    expect(wallLayout(15, hd)).toMatchObject({ pages: 1, columns: 5, rows: 3 });
+    expect(wallLayout(16, hd)).toMatchObject({ pages: 2, perPage: 8, columns: 4, rows: 2 });
+    expect(wallLayout(24, hd)).toMatchObject({ pages: 2, perPage: 12, columns: 4, rows: 3 });
+    expect(wallLayout(30, hd)).toMatchObject({ pages: 2, perPage: 15, columns: 5, rows: 3 });
+  });
+
+  it('never sets tile text below 44 px caps at 1080p (DISPLAY.md: 16′ at 6 m on a 55-inch TV)', () => {
+    for (let count = 1; count <= 60; count++)
+      for (const viewport of [hd, portrait, { width: 1280, height: 720 }, { width: 2560, height: 1080 }]) {
+        const layout = wallLayout(count, viewport);
+        // Barlow's caps are 0.7 em; one unit is 1 % of the 16:9 area's height.
+        const capsAt1080 = BODY_UNITS * layout.scale * 0.7 * 10.8;
+        expect(capsAt1080).toBeGreaterThanOrEqual(44);
+        expect(layout.scale).toBeGreaterThanOrEqual(MIN_TILE_SCALE);
+        expect(layout.columns * layout.rows).toBeGreaterThanOrEqual(layout.perPage);
+        expect(layout.perPage * layout.pages).toBeGreaterThanOrEqual(count);
+      }
+  });
+
+  it('makes room for a shop name that wraps onto a second line', () => {
+    const shorter = { width: 177.8 - 1.6, height: 79.2 - 6 };
+    const layout = wallLayout(12, hd, shorter);
+    expect(layout).toMatchObject({ columns: 4, rows: 3, pages: 1 });
+    expect(layout.scale).toBeLessThan(wallLayout(12, hd).scale);
   });
 
   it('lays out 4K exactly like 1080p', () => {
@@ -31,6 +68,12 @@ describe(wallLayout.name, () => {
     expect(tileRoom(layout.tileHeight, false).slotsWithBig).toBeGreaterThanOrEqual(2);
     expect(lineChars(layout.tileWidth)).toBe(11);
   });
+
+  it('keeps one line of facts on a tile of a 12-bay page', () => {
+    const layout = wallLayout(12, hd);
+    expect(tileRoom(layout.tileHeight, false, layout.scale).slots).toBe(1);
+    expect(lineChars(layout.tileWidth, layout.scale)).toBeGreaterThanOrEqual(11);
+  });
 });
 
 describe(pageAt.name, () => {
@@ -42,7 +85,7 @@ describe(pageAt.name, () => {
   });
 
   it('slices the page', () => {
-    const layout = wallLayout(9, hd);
-    expect(pageItems([1, 2, 3, 4, 5, 6, 7, 8, 9], layout, 1)).toEqual([6, 7, 8, 9]);
+    const layout = wallLayout(16, hd);
+    expect(pageItems([...Array(16).keys()], layout, 1)).toEqual([8, 9, 10, 11, 12, 13, 14, 15]);
   });
 });

@@ -8,21 +8,24 @@ export const BODY_UNITS = 7.4;
 /** Bay names and countdowns: about 95 px caps at 1080p. */
 export const HEADLINE_UNITS = 12.6;
 
-/** Fixed bands of the wall, in units. */
+/**
+ * Tiles shrink their text with the tile down to this share of the sizes above, and no further: body
+ * caps of 7.4 × 0.8 units are 45 px at 1080p, over the 44 px that DISPLAY.md never goes below (16′
+ * of visual angle at 6 m). Past that the board pages instead.
+ */
+export const MIN_TILE_SCALE = 0.8;
+
+/** Fixed bands of the wall, in units: the first guess, before the board measures its own grid. */
 export const WALL_METRICS = {
   padding: 0.8,
   gap: 0.8,
   topBar: 9,
   strip: 8.6,
-  /** A tile narrower than this cannot hold a state word and its icon at body size. */
-  minTileWidth: 40,
-  /** A tile shorter than this cannot hold the name, the state and one line. */
-  minTileHeight: 30,
-  /** Tiles per page when both rows and columns are at their limit. */
-  maxPerPage: 8,
+  /** Narrower than this at full text size, a tile cannot hold its widest state word, icon and note. */
+  minTileWidth: 42,
 } as const;
 
-/** Tile innards, in units. */
+/** Tile innards at full text size, in units; everything but the tile's own padding scales with the text. */
 export const TILE_METRICS = {
   padding: 0.6,
   /** Line height 0.92 plus room below for descenders, less the empty ascent above the caps. */
@@ -41,6 +44,12 @@ export interface Viewport {
   height: number;
 }
 
+/** The area the grid of tiles gets, in units. */
+export interface GridArea {
+  width: number;
+  height: number;
+}
+
 export interface WallLayout {
   columns: number;
   rows: number;
@@ -49,6 +58,8 @@ export interface WallLayout {
   /** Tile size in units. */
   tileWidth: number;
   tileHeight: number;
+  /** Share of the full text sizes the tiles use, MIN_TILE_SCALE to 1. */
+  scale: number;
 }
 
 /** Size of the board unit in CSS pixels. */
@@ -56,31 +67,92 @@ export function unitPx({ width, height }: Viewport): number {
   return Math.max(1, Math.min(height / 100, (width * 0.5625) / 100));
 }
 
-export function wallLayout(bayCount: number, viewport: Viewport): WallLayout {
+/** The grid's area when the top bar and the strip have their usual heights. */
+export function defaultGridArea(viewport: Viewport): GridArea {
   const u = unitPx(viewport);
-  const { padding, gap, topBar, strip, minTileWidth, minTileHeight, maxPerPage } = WALL_METRICS;
-  const gridWidth = viewport.width / u - 2 * padding;
-  const gridHeight = viewport.height / u - 2 * padding - topBar - strip - 2 * gap;
-  const maxColumns = Math.max(1, Math.floor((gridWidth + gap) / (minTileWidth + gap)));
-  const maxRows = Math.max(1, Math.floor((gridHeight + gap) / (minTileHeight + gap)));
-  const capacity = Math.max(1, Math.min(maxPerPage, maxColumns * Math.min(maxRows, 2)));
-
-  const count = Math.max(1, bayCount);
-  const pages = Math.ceil(count / capacity);
-  // Balanced pages: 9 bays make two pages of 5 and 4, not 8 and 1.
-  const perPage = Math.ceil(count / pages);
-  // One row while the bays fit side by side (tall tiles show every fact), two rows after that.
-  const rows = perPage <= maxColumns ? 1 : Math.min(2, maxRows);
-  const columns = Math.min(maxColumns, Math.ceil(perPage / rows));
-  const finalRows = Math.ceil(perPage / columns);
+  const { padding, gap, topBar, strip } = WALL_METRICS;
   return {
-    columns,
-    rows: finalRows,
-    perPage,
-    pages,
-    tileWidth: (gridWidth - (columns - 1) * gap) / columns,
-    tileHeight: (gridHeight - (finalRows - 1) * gap) / finalRows,
+    width: viewport.width / u - 2 * padding,
+    height: viewport.height / u - 2 * padding - topBar - strip - 2 * gap,
   };
+}
+
+interface Grid {
+  columns: number;
+  rows: number;
+  tileWidth: number;
+  tileHeight: number;
+  scale: number;
+}
+
+/** The text scale a tile of this size allows: its name, its state band and one line of facts must fit. */
+export function tileScale(tileWidth: number, tileHeight: number): number {
+  const { padding, name, band, linesPadding, line } = TILE_METRICS;
+  const byHeight = (tileHeight - 2 * padding) / (name + band + linesPadding + line);
+  return Math.min(1, byHeight, tileWidth / WALL_METRICS.minTileWidth);
+}
+
+function grid(columns: number, rows: number, area: GridArea): Grid {
+  const { gap } = WALL_METRICS;
+  const tileWidth = (area.width - (columns - 1) * gap) / columns;
+  const tileHeight = (area.height - (rows - 1) * gap) / rows;
+  return { columns, rows, tileWidth, tileHeight, scale: tileScale(tileWidth, tileHeight) };
+}
+
+/** A bay tells at most five facts (bay-facts): lines past that are empty space. */
+const MOST_FACTS = 5;
+
+/** More fact lines first, then fewer empty cells, then wider tiles (longer lines). */
+function roomier(a: Grid, b: Grid, count: number): boolean {
+  const linesA = Math.min(MOST_FACTS, tileRoom(a.tileHeight, false, a.scale).slots);
+  const linesB = Math.min(MOST_FACTS, tileRoom(b.tileHeight, false, b.scale).slots);
+  if (linesA !== linesB) return linesA > linesB;
+  const emptyA = a.columns * a.rows - count;
+  const emptyB = b.columns * b.rows - count;
+  if (emptyA !== emptyB) return emptyA < emptyB;
+  return a.tileWidth > b.tileWidth;
+}
+
+/** The grid for `count` tiles whose text is largest; among equals, the roomiest. */
+function bestGrid(count: number, area: GridArea): Grid {
+  let best: Grid | null = null;
+  for (let columns = 1; columns <= count; columns++) {
+    const candidate = grid(columns, Math.ceil(count / columns), area);
+    const scale = Math.round(candidate.scale * 1000);
+    const bestScale = best ? Math.round(best.scale * 1000) : -Infinity;
+    if (!best || scale > bestScale || (scale === bestScale && roomier(candidate, best, count)))
+      best = candidate;
+  }
+  return best ?? grid(1, 1, area);
+}
+
+/** The most tiles one page holds with every tile's text at legible size (at least one). */
+function pageCapacity(area: GridArea): number {
+  const { gap, minTileWidth } = WALL_METRICS;
+  const narrowest = minTileWidth * MIN_TILE_SCALE;
+  const maxColumns = Math.max(1, Math.floor((area.width + gap) / (narrowest + gap)));
+  let capacity = 1;
+  for (let columns = 1; columns <= maxColumns; columns++)
+    for (let rows = 1; grid(columns, rows, area).scale >= MIN_TILE_SCALE; rows++)
+      capacity = Math.max(capacity, columns * rows);
+  return capacity;
+}
+
+/**
+ * Columns and rows from the bay count and the shape of the grid's area, so the tiles' text is as
+ * large as it can be; the board pages only when one page would take the text below legible size.
+ */
+export function wallLayout(
+  bayCount: number,
+  viewport: Viewport,
+  area = defaultGridArea(viewport),
+): WallLayout {
+  const count = Math.max(1, bayCount);
+  const pages = Math.ceil(count / pageCapacity(area));
+  // Balanced pages: 16 bays make two pages of 8, not 15 and 1.
+  const perPage = Math.ceil(count / pages);
+  const { columns, rows, tileWidth, tileHeight, scale } = bestGrid(perPage, area);
+  return { columns, rows, perPage, pages, tileWidth, tileHeight, scale: Math.max(MIN_TILE_SCALE, scale) };
 }
 
 /** Which page shows at `nowMs`; every screen on the same server clock turns at the same moment. */
@@ -94,9 +166,9 @@ export function pageItems<T>(items: readonly T[], layout: WallLayout, page: numb
   return items.slice(start, start + layout.perPage);
 }
 
-/** Characters of body text a tile line holds (Barlow Semi Condensed averages about 0.47 em). */
-export function lineChars(tileWidth: number): number {
-  return Math.max(4, Math.floor((tileWidth - 2 * 1.6) / (BODY_UNITS * 0.47)));
+/** Characters of body text a tile line holds (Barlow Semi Condensed averages about 0.41 em; 0.47 is safe). */
+export function lineChars(tileWidth: number, scale = 1): number {
+  return Math.max(4, Math.floor((tileWidth - 2 * 1.6) / (BODY_UNITS * scale * 0.47)));
 }
 
 export interface TileRoom {
@@ -106,10 +178,10 @@ export interface TileRoom {
   slotsWithBig: number;
 }
 
-export function tileRoom(tileHeight: number, withBar: boolean): TileRoom {
+export function tileRoom(tileHeight: number, withBar: boolean, scale = 1): TileRoom {
   const { padding, name, band, linesPadding, line, bigLine, bar } = TILE_METRICS;
   // A hair of slack for rounding, so a line that fits on paper is not dropped.
-  const free = tileHeight - 2 * padding - name - band - linesPadding - (withBar ? bar : 0) + 0.05;
+  const free = (tileHeight - 2 * padding) / scale - name - band - linesPadding - (withBar ? bar : 0) + 0.05;
   const slots = Math.max(0, Math.floor(free / line));
   const slotsWithBig = free >= bigLine ? 1 + Math.max(0, Math.floor((free - bigLine) / line)) : 0;
   return { slots, slotsWithBig };

@@ -4,6 +4,7 @@ import { paths } from '@/config/paths';
 import { AppHeader } from '@/components/app-header';
 import { CalendarIcon, DayIcon } from '@/components/icons';
 import { useSession, session } from '@/lib/session';
+import { useDeviceToken } from '@/lib/device';
 import { useLiveQueries } from '@/hooks/use-live-queries';
 import { rememberedShop, useShop } from '@/features/shop/api/get-shop';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
@@ -16,7 +17,8 @@ import '../app.css';
 export function RootLayout() {
   const current = useSession();
   useLiveQueries(current?.user.id ?? null);
-  const shop = useShop(current !== null);
+  const paired = useDeviceToken() !== null;
+  const shop = useShop(current !== null || paired);
   const [remembered] = useState(rememberedShop);
   const connection = useConnectionState(current !== null);
   const navigation = useNavigation();

@@ -17,6 +17,8 @@ const REASONS: Record<SignOutReason, string> = {
   expired: 'Your sign-in ran out. Sign in again; nothing you tapped is lost.',
 };
 
+const LINK_BACK = 'The connection is back. Sign in with your badge as usual.';
+
 export function SignInRoute() {
   const paired = useDeviceToken() !== null;
   const [params] = useSearchParams();
@@ -32,6 +34,16 @@ function SignIn() {
   useOfflineKey(connection !== 'offline');
   const [offlineFor, setOfflineFor] = useState<{ badge: string; pin: string } | null>(null);
   const [recorded, setRecorded] = useState<string | null>(null);
+  // The link is back: the offline punch sheet no longer applies, so it closes and says so.
+  const online = connection === 'online';
+  const [wasOnline, setWasOnline] = useState(online);
+  if (online !== wasOnline) {
+    setWasOnline(online);
+    if (online && offlineFor) {
+      setOfflineFor(null);
+      setRecorded(LINK_BACK);
+    }
+  }
   if (current) return <Navigate to={paths.myDay.getHref()} replace />;
 
   return (

@@ -4,10 +4,12 @@ import {
   CreateIntegrationKeyCard,
   IntegrationKeysTable,
 } from '@/features/integration-keys/components/integration-keys-admin';
+import { useShop } from '@/features/shop/api/get-shop';
 
 export { PageError as ErrorBoundary } from './page-error';
 
 export function Component() {
+  const timeZone = useShop().data?.timeZone;
   return (
     <>
       <PageHeader
@@ -20,7 +22,7 @@ export function Component() {
         }
       />
       <CreateIntegrationKeyCard />
-      <IntegrationKeysTable />
+      <IntegrationKeysTable timeZone={timeZone} />
     </>
   );
 }

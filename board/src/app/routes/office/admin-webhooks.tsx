@@ -1,9 +1,11 @@
 import { PageHeader } from '@/components/page-header';
+import { useShop } from '@/features/shop/api/get-shop';
 import { CreateWebhookCard, DeliveryLog, WebhooksTable } from '@/features/webhooks/components/webhooks-admin';
 
 export { PageError as ErrorBoundary } from './page-error';
 
 export function Component() {
+  const timeZone = useShop().data?.timeZone;
   return (
     <>
       <PageHeader
@@ -11,8 +13,8 @@ export function Component() {
         description="The shop’s other systems hear of events as they happen: each delivery is signed, retried until it is taken, and logged below."
       />
       <CreateWebhookCard />
-      <WebhooksTable />
-      <DeliveryLog />
+      <WebhooksTable timeZone={timeZone} />
+      <DeliveryLog timeZone={timeZone} />
     </>
   );
 }

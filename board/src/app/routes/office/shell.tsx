@@ -48,6 +48,8 @@ const useStyles = makeStyles({
     gridTemplateColumns: '15rem minmax(0, 1fr)',
     minHeight: '100vh',
     '@media (max-width: 900px)': { gridTemplateColumns: 'minmax(0, 1fr)' },
+    // On paper the page's content takes the whole width: the menu rail is screen chrome.
+    '@media print': { display: 'block', minHeight: 0 },
   },
   // The rail is the wall's dark surface in either scheme, through Fluent's dark theme.
   rail: {
@@ -56,6 +58,7 @@ const useStyles = makeStyles({
     height: '100vh',
     backgroundColor: WALL_BACKGROUND,
     '@media (max-width: 900px)': { position: 'static', height: 'auto' },
+    '@media print': { display: 'none' },
   },
   side: {
     display: 'flex',

@@ -29,6 +29,7 @@ import { useDispatch } from '@/lib/api/get-dispatch';
 import { MOVE_LINE_KEY, useMoveLine, type MoveLineVariables } from '../api/patch-job-line';
 import { useReleaseBay } from '../api/release-bay';
 import {
+  dragAnnouncements,
   findLine,
   needsConfirm,
   planMove,
@@ -270,6 +271,7 @@ function DispatchBoardView({
         setOverTarget(null);
       }}
       accessibility={{
+        announcements: dragAnnouncements(board),
         screenReaderInstructions: {
           draggable: 'Use the Move menu on each line to assign it from the keyboard.',
         },

@@ -36,6 +36,7 @@ import {
 } from '@baytime/shared';
 import { CheckboxGroup } from '@/components/checkbox-group';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { shopDateTime } from '@/lib/date-format';
 import { useCreateIntegrationKey } from '../api/create-integration-key';
 import { useIntegrationKeys } from '../api/get-integration-keys';
 import { useRevokeIntegrationKey } from '../api/revoke-integration-key';
@@ -59,9 +60,6 @@ const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
   actions: { textAlign: 'right', width: '8rem' },
 });
-
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-const at = (iso: string | null) => (iso ? when.format(new Date(iso)) : '—');
 
 function ShownOnce({ made }: { made: CreatedIntegrationKey }) {
   const styles = useStyles();
@@ -180,7 +178,9 @@ function RevokeDialog({
   );
 }
 
-export function IntegrationKeysTable() {
+/** Every time on it is shop time. */
+export function IntegrationKeysTable({ timeZone }: { timeZone: string | undefined }) {
+  const at = shopDateTime(timeZone);
   const styles = useStyles();
   const keys = useIntegrationKeys();
   const [revoking, setRevoking] = useState<IntegrationKeyDto | null>(null);

@@ -68,7 +68,7 @@ export function ReportsView({
           {printTitle(shown)}
         </Title3>
       </div>
-      <div className={styles.bar}>
+      <div className={mergeClasses('bt-no-print', styles.bar)}>
         <TabList
           selectedValue={shown}
           onTabSelect={(_, data) => {

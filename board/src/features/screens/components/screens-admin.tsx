@@ -29,6 +29,7 @@ import {
 } from '@fluentui/react-components';
 import { createScreenSchema, type ScreenPairing } from '@baytime/shared';
 import { paths } from '@/config/paths';
+import { dateTimeFormat } from '@/lib/date-format';
 import { formErrorText } from '@/lib/form-errors';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { FormErrorBar } from '@/components/form-error-bar';
@@ -69,7 +70,9 @@ const useStyles = makeStyles({
   actions: { textAlign: 'right', width: '8rem' },
 });
 
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+/** Dates and times in the shop's time zone, as every other office page shows them. */
+const whenFormat = (timeZone: string | undefined) =>
+  dateTimeFormat(timeZone, { dateStyle: 'medium', timeStyle: 'short' });
 
 /** What the page says of each kind of device. */
 const WORDS = {
@@ -103,8 +106,19 @@ const WORDS = {
   },
 } as const;
 
-function PairingCode({ pairing, name, kind }: { pairing: ScreenPairing; name: string; kind: DeviceKind }) {
+function PairingCode({
+  pairing,
+  name,
+  kind,
+  timeZone,
+}: {
+  pairing: ScreenPairing;
+  name: string;
+  kind: DeviceKind;
+  timeZone: string | undefined;
+}) {
   const styles = useStyles();
+  const when = whenFormat(timeZone);
   const origin = window.location.origin;
   const page = `${origin}${WORDS[kind].page}`;
   const direct = `${page}?code=${pairing.code}`;
@@ -127,7 +141,13 @@ function PairingCode({ pairing, name, kind }: { pairing: ScreenPairing; name: st
   );
 }
 
-export function CreateScreenCard({ kind = 'wall' }: { kind?: DeviceKind }) {
+export interface ScreensAdminProps {
+  kind?: DeviceKind;
+  /** The shop's time zone: every time on the page is shop time. */
+  timeZone: string | undefined;
+}
+
+export function CreateScreenCard({ kind = 'wall', timeZone }: ScreensAdminProps) {
   const styles = useStyles();
   const words = WORDS[kind];
   const create = useCreateScreen(kind);
@@ -162,7 +182,7 @@ export function CreateScreenCard({ kind = 'wall' }: { kind?: DeviceKind }) {
         </Button>
       </form>
       <FormErrorBar message={errors.root?.server?.message ?? null} />
-      {made && <PairingCode pairing={made.pairing} name={made.name} kind={kind} />}
+      {made && <PairingCode pairing={made.pairing} name={made.name} kind={kind} timeZone={timeZone} />}
     </Card>
   );
 }
@@ -208,7 +228,7 @@ function RevokeDialog({
 }
 
 /** "3 since 7:02 AM (said 7:05 AM)", "None (said 7:05 AM)", or "Not reported yet". */
-function queueText(queue: WallScreenDto['queue']): string {
+function queueText(queue: WallScreenDto['queue'], when: Intl.DateTimeFormat): string {
   if (!queue?.reportedAt) return 'Not reported yet';
   const said = `said ${when.format(new Date(queue.reportedAt))}`;
   if (queue.waiting === 0) return `None (${said})`;
@@ -223,8 +243,9 @@ const STATUS_BADGE: Record<ScreenStatus, 'brand' | 'informative' | 'subtle' | 'd
   revoked: 'danger',
 };
 
-export function ScreensTable({ kind = 'wall' }: { kind?: DeviceKind }) {
+export function ScreensTable({ kind = 'wall', timeZone }: ScreensAdminProps) {
   const styles = useStyles();
+  const when = whenFormat(timeZone);
   const words = WORDS[kind];
   const screens = useScreens(kind);
   const [revoking, setRevoking] = useState<WallScreenDto | null>(null);
@@ -283,7 +304,7 @@ export function ScreensTable({ kind = 'wall' }: { kind?: DeviceKind }) {
                     '—'
                   )}
                 </TableCell>
-                {kind === 'kiosk' && <TableCell>{queueText(screen.queue)}</TableCell>}
+                {kind === 'kiosk' && <TableCell>{queueText(screen.queue, when)}</TableCell>}
                 <TableCell className={styles.actions}>
                   {status !== 'revoked' && (
                     <Button

@@ -17,20 +17,34 @@ export interface BayTileProps {
   /** Tile size in board units: decides how many lines fit and how long they may be. */
   height: number;
   width: number;
+  /** Share of the full text sizes the tile's text uses (see wallLayout). */
+  scale: number;
   /** Counts up every few seconds; facts that share a line take turns by it. */
   turn: number;
 }
 
 const BAR_STATES = new Set<BoardBay['state']>(['working', 'held', 'check']);
 
-export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, turn }: BayTileProps) {
+export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, turn }: BayTileProps) {
   const look = BAY_PALETTE[bay.state];
   const clocked = clockedSecondsAt(bay, asOfMs, nowMs);
-  const bar = BAR_STATES.has(bay.state) ? clockedBar(clocked, bay.bookSeconds) : null;
-  const facts = bayFacts({ bay, clockedSeconds: clocked, nowMs, timeZone, lineChars: lineChars(width) });
-  const room = tileRoom(height, bar !== null);
+  const chars = lineChars(width, scale);
+  const told = bayFacts({ bay, clockedSeconds: clocked, nowMs, timeZone, lineChars: chars });
+  // A tile too short for a big countdown still shows it, at body size.
+  const bigFits = tileRoom(height, false, scale).slotsWithBig > 0;
+  const facts = bigFits
+    ? told
+    : told.map((fact) => (fact.tone === 'big' ? { ...fact, tone: undefined } : fact));
   const hasBig = facts.some((fact) => fact.tone === 'big');
-  const lines = pickLines(facts, hasBig ? room.slotsWithBig : room.slots, turn);
+  const slots = (withBar: boolean) => {
+    const room = tileRoom(height, withBar, scale);
+    return hasBig ? room.slotsWithBig : room.slots;
+  };
+  // The bar repeats the clocked line in a picture: a small tile keeps the line and drops the bar.
+  const barFits = facts.length === 0 || slots(true) > 0;
+  const booked = clockedBar(clocked, bay.bookSeconds);
+  const bar = BAR_STATES.has(bay.state) && barFits ? booked : null;
+  const lines = pickLines(facts, slots(bar !== null), turn, chars);
   const note = bandNote(bay, nowMs);
 
   return (
@@ -46,7 +60,11 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, turn }: B
       </div>
       <div className={styles.lines}>
         {lines.map((line) => (
-          <FactLine key={line.rotating ? `turn-${line.fact.key}` : line.fact.key} line={line} bar={bar} />
+          <FactLine
+            key={line.rotating ? `turn-${line.fact.key}` : line.fact.key}
+            line={line}
+            overSeconds={booked?.overSeconds ?? 0}
+          />
         ))}
       </div>
       {bar && (
@@ -69,7 +87,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, turn }: B
   );
 }
 
-function FactLine({ line, bar }: { line: TileLine; bar: ReturnType<typeof clockedBar> }) {
+function FactLine({ line, overSeconds }: { line: TileLine; overSeconds: number }) {
   const { fact } = line;
   const toneClass =
     fact.tone === 'big'
@@ -82,12 +100,12 @@ function FactLine({ line, bar }: { line: TileLine; bar: ReturnType<typeof clocke
   return (
     <div className={`${styles.line} ${toneClass} ${line.rotating ? styles.lineTurn : ''}`}>
       {fact.tone === 'caution' && <Glyph name="caution" className={styles.glyph} />}
-      <span className={styles.lineText}>
+      <span className={`${styles.lineText} ${line.wraps ? styles.lineWraps : ''}`}>
         {fact.text}
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
-      {fact.tone === 'over' && bar && (
-        <span className={styles.overTag}>+{formatHoursMinutes(bar.overSeconds)}</span>
+      {fact.tone === 'over' && overSeconds > 0 && (
+        <span className={styles.overTag}>+{formatHoursMinutes(overSeconds)}</span>
       )}
     </div>
   );

@@ -25,13 +25,8 @@ import { LINK_LOST_AFTER_MS } from './wall-top-bar';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
-  where: {
-    display: 'block',
-    maxWidth: '18rem',
-    overflow: 'hidden',
-    textOverflow: 'ellipsis',
-    whiteSpace: 'nowrap',
-  },
+  // Long job titles wrap rather than being cut.
+  where: { display: 'block', maxWidth: '18rem' },
   status: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM, flexWrap: 'wrap' },
   bays: {
     display: 'grid',
@@ -50,7 +45,7 @@ const useStyles = makeStyles({
   bayName: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightBold },
   dim: { color: tokens.colorNeutralForeground3 },
   row: { display: 'flex', justifyContent: 'space-between', gap: tokens.spacingHorizontalS },
-  ellipsis: { overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap' },
+  wraps: { minWidth: 0, overflowWrap: 'anywhere' },
   bar: {
     position: 'relative',
     height: '8px',
@@ -174,12 +169,12 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
       )}
       {(bay.vehicle || bay.repairOrder) && (
         <div className={styles.row}>
-          <Body1 className={styles.ellipsis}>{bay.vehicle ?? '—'}</Body1>
+          <Body1 className={styles.wraps}>{bay.vehicle ?? '—'}</Body1>
           {bay.repairOrder && <Body1 className={styles.dim}>RO {bay.repairOrder.number}</Body1>}
         </div>
       )}
       {bay.jobLine && (
-        <Body1 className={styles.ellipsis}>
+        <Body1 className={styles.wraps}>
           <span className={styles.dim}>L{bay.jobLine.lineNo} </span>
           {bay.jobLine.title}
         </Body1>

@@ -1,7 +1,8 @@
 import { useLayoutEffect, useRef, useState } from 'react';
 import type { BoardPerson } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
-import { packPages, personChips, type PersonChip } from '../people-pages';
+import { formatSpan } from '../board-time';
+import { packPages, personChips, type PersonChip, type QueueSummary } from '../people-pages';
 import styles from './wall.module.css';
 
 export interface PeopleStripProps {
@@ -9,6 +10,8 @@ export interface PeopleStripProps {
   nowMs: number;
   /** Counts up every few seconds: turns the page when the people do not fit on one line. */
   turn: number;
+  /** Lines waiting for a technician; null while the link is lost and the count may be stale. */
+  queue: QueueSummary | null;
 }
 
 const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
@@ -17,7 +20,7 @@ const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
   'on-job': 'wrench',
 };
 
-export function PeopleStrip({ people, nowMs, turn }: PeopleStripProps) {
+export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
   const chips = personChips(people, nowMs);
   const measureRef = useRef<HTMLDivElement>(null);
   const boxRef = useRef<HTMLDivElement>(null);
@@ -45,6 +48,7 @@ export function PeopleStrip({ people, nowMs, turn }: PeopleStripProps) {
 
   return (
     <footer className={styles.strip}>
+      {queue && <QueueNote queue={queue} />}
       <div className={styles.chips} ref={boxRef}>
         <div className={styles.chipsMeasure} ref={measureRef} aria-hidden="true">
           {chips.map((chip) => (
@@ -77,6 +81,25 @@ function Chip({ chip }: { chip: PersonChip }) {
       <Glyph name={GLYPHS[chip.status]} className={styles.glyph} />
       <span className={styles.chipName}>{chip.name}</span>
       <span className={styles.chipDetail}>{chip.detail}</span>
+    </div>
+  );
+}
+
+function QueueNote({ queue }: { queue: QueueSummary }) {
+  return (
+    <div className={styles.queue}>
+      <Glyph name="queue" className={styles.glyph} />
+      {queue.count === 0 ? (
+        <span>Queue empty</span>
+      ) : (
+        <span>
+          Queue <span className={styles.queueCount}>{queue.count}</span>
+          {queue.late === 0 && queue.oldestSeconds !== null && (
+            <span className={styles.queueWait}> · oldest {formatSpan(queue.oldestSeconds)}</span>
+          )}
+        </span>
+      )}
+      {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late</span>}
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useLayoutEffect, useState, type CSSProperties } from 'react';
 import { Glyph } from '@/components/glyph';
 import { forgetWallToken } from '@/lib/wall-session';
 import { useLiveBoard } from '../hooks/use-live-board';
@@ -7,11 +7,11 @@ import { useNow } from '../hooks/use-now';
 import { kioskQueueText } from '../kiosk-queue';
 import { serverNow } from '../server-clock';
 import { formatTimeOfDay } from '../board-time';
-import { pageAt, pageItems, wallLayout, type Viewport } from '../wall-layout';
+import { pageAt, pageItems, unitPx, wallLayout, type GridArea, type Viewport } from '../wall-layout';
 import { queueSummary } from '../people-pages';
 import { BayTile } from './bay-tile';
 import { PeopleStrip } from './people-strip';
-import { LINK_LOST_AFTER_MS, WallTopBar } from './wall-top-bar';
+import { LINK_LOST_AFTER_MS, linkLost, WallTopBar } from './wall-top-bar';
 import styles from './wall.module.css';
 
 const PAGE_MS = 15_000;
@@ -30,11 +30,36 @@ function useViewport(): Viewport {
   return viewport;
 }
 
+/**
+ * The area the grid really has, in units, once the top bar (which a long shop name can grow) is laid
+ * out. Give `ref` to the grid.
+ */
+function useGridArea(viewport: Viewport): [GridArea | undefined, (element: HTMLElement | null) => void] {
+  const [element, ref] = useState<HTMLElement | null>(null);
+  const [px, setPx] = useState<{ width: number; height: number }>();
+  useLayoutEffect(() => {
+    if (!element) return;
+    const measure = () =>
+      setPx((was) =>
+        was?.width === element.clientWidth && was.height === element.clientHeight
+          ? was
+          : { width: element.clientWidth, height: element.clientHeight },
+      );
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, [element]);
+  const u = unitPx(viewport);
+  return [px && px.width > 0 ? { width: px.width / u, height: px.height / u } : undefined, ref];
+}
+
 /** The full-screen wall board for a paired screen. */
 export function WallBoard({ token }: { token: string }) {
   const { board, link, downSince, refusal } = useLiveBoard(useWallLink(token));
   const localNow = useNow();
   const viewport = useViewport();
+  const [gridArea, gridRef] = useGridArea(viewport);
 
   if (refusal)
     return (
@@ -71,10 +96,11 @@ export function WallBoard({ token }: { token: string }) {
 
   const { snapshot, clock, bayAsOf } = board;
   const now = serverNow(clock, localNow);
-  const layout = wallLayout(snapshot.bays.length, viewport);
+  const layout = wallLayout(snapshot.bays.length, viewport, gridArea);
   const page = pageAt(layout.pages, now, PAGE_MS);
   const bays = pageItems(snapshot.bays, layout, page);
   const turn = Math.floor(now / TURN_MS);
+  const lost = linkLost(link, downSince, localNow);
 
   return (
     <main className={styles.wall} aria-label={`${snapshot.shop.name} board`}>
@@ -88,7 +114,6 @@ export function WallBoard({ token }: { token: string }) {
         offsetMs={clock.offsetMs}
         page={page}
         pages={layout.pages}
-        queue={queueSummary(snapshot.queue, now, snapshot.lateLines)}
         kioskNote={kioskQueueText(snapshot.kioskQueues, snapshot.shop.timeZone)}
       />
       {snapshot.bays.length === 0 ? (
@@ -98,11 +123,15 @@ export function WallBoard({ token }: { token: string }) {
         </div>
       ) : (
         <section
+          ref={gridRef}
           className={styles.grid}
-          style={{
-            gridTemplateColumns: `repeat(${layout.columns}, minmax(0, 1fr))`,
-            gridTemplateRows: `repeat(${layout.rows}, minmax(0, 1fr))`,
-          }}
+          style={
+            {
+              gridTemplateColumns: `repeat(${layout.columns}, minmax(0, 1fr))`,
+              gridTemplateRows: `repeat(${layout.rows}, minmax(0, 1fr))`,
+              '--tile-scale': layout.scale,
+            } as CSSProperties
+          }
         >
           {bays.map((bay) => (
             <BayTile
@@ -113,12 +142,18 @@ export function WallBoard({ token }: { token: string }) {
               timeZone={snapshot.shop.timeZone}
               height={layout.tileHeight}
               width={layout.tileWidth}
+              scale={layout.scale}
               turn={turn}
             />
           ))}
         </section>
       )}
-      <PeopleStrip people={snapshot.people} nowMs={now} turn={turn} />
+      <PeopleStrip
+        people={snapshot.people}
+        nowMs={now}
+        turn={turn}
+        queue={lost ? null : queueSummary(snapshot.queue, now, snapshot.lateLines)}
+      />
     </main>
   );
 }

@@ -1,11 +1,14 @@
 import { Glyph } from '@/components/glyph';
 import type { LinkStatus } from '../live-board';
-import { clockFace, formatSpan, formatTimeOfDay } from '../board-time';
-import type { QueueSummary } from '../people-pages';
+import { clockFace, formatTimeOfDay } from '../board-time';
 import styles from './wall.module.css';
 
 /** A link down for longer than this is worth telling the whole shop about. */
 export const LINK_LOST_AFTER_MS = 10_000;
+
+export function linkLost(link: LinkStatus, downSince: number | null, localNowMs: number): boolean {
+  return link !== 'live' && downSince !== null && localNowMs - downSince >= LINK_LOST_AFTER_MS;
+}
 
 export interface WallTopBarProps {
   shopName: string;
@@ -21,16 +24,14 @@ export interface WallTopBarProps {
   offsetMs: number;
   page: number;
   pages: number;
-  queue: QueueSummary;
   /** Punches waiting on a kiosk, in words; null when none. */
   kioskNote: string | null;
 }
 
 export function WallTopBar(props: WallTopBarProps) {
-  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, queue, kioskNote } =
-    props;
+  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, kioskNote } = props;
   const face = clockFace(nowMs, timeZone);
-  const lost = link !== 'live' && downSince !== null && localNowMs - downSince >= LINK_LOST_AFTER_MS;
+  const lost = downSince !== null && linkLost(link, downSince, localNowMs);
 
   return (
     <header className={styles.topBar}>
@@ -48,22 +49,6 @@ export function WallTopBar(props: WallTopBarProps) {
         </div>
       ) : (
         <div className={styles.shopName}>{shopName}</div>
-      )}
-      {!lost && !kioskNote && (
-        <div className={styles.queue}>
-          <Glyph name="queue" className={styles.glyph} />
-          {queue.count === 0 ? (
-            <span>Queue empty</span>
-          ) : (
-            <span>
-              Queue <span className={styles.queueCount}>{queue.count}</span>
-              {queue.late === 0 && queue.oldestSeconds !== null && (
-                <span className={styles.queueWait}> · oldest {formatSpan(queue.oldestSeconds)}</span>
-              )}
-            </span>
-          )}
-          {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late</span>}
-        </div>
       )}
       {pages > 1 && (
         <div className={styles.pageDots} aria-label={`Page ${page + 1} of ${pages}`}>

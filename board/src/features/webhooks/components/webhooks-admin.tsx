@@ -29,6 +29,7 @@ import {
   type WebhookEvent,
 } from '@baytime/shared';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
+import { shopDateTime } from '@/lib/date-format';
 import { CheckboxGroup } from '@/components/checkbox-group';
 import { useCreateWebhook } from '../api/create-webhook';
 import { useWebhookDeliveries } from '../api/get-webhook-deliveries';
@@ -67,9 +68,6 @@ const useStyles = makeStyles({
   pager: { display: 'flex', gap: tokens.spacingHorizontalM, alignItems: 'center' },
   section: { marginTop: tokens.spacingVerticalXL, marginBottom: tokens.spacingVerticalM },
 });
-
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
-const at = (iso: string | null) => (iso ? when.format(new Date(iso)) : '—');
 
 export function CreateWebhookCard() {
   const styles = useStyles();
@@ -144,7 +142,9 @@ export function CreateWebhookCard() {
   );
 }
 
-export function WebhooksTable() {
+/** Every time on it is shop time. */
+export function WebhooksTable({ timeZone }: { timeZone: string | undefined }) {
+  const at = shopDateTime(timeZone, true);
   const styles = useStyles();
   const webhooks = useWebhooks();
   const revoke = useRevokeWebhook();
@@ -201,7 +201,8 @@ export function WebhooksTable() {
 }
 
 /** Every delivery, newest first, with each attempt: when, the receiver's answer, or why none came. */
-export function DeliveryLog() {
+export function DeliveryLog({ timeZone }: { timeZone: string | undefined }) {
+  const at = shopDateTime(timeZone, true);
   const styles = useStyles();
   const [cursors, setCursors] = useState<(string | null)[]>([null]);
   const deliveries = useWebhookDeliveries(cursors.at(-1) ?? null);

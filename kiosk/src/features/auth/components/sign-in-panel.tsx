@@ -2,7 +2,14 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
-import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
+import { useNow } from '@/hooks/use-now';
+import {
+  NO_CONNECTION,
+  lockText,
+  signInLockedUntil,
+  signInRefusal,
+  useBadgeSignIn,
+} from '../api/badge-sign-in';
 import { Keypad, useHardwareKeys } from '@/components/keypad';
 import './sign-in-panel.css';
 
@@ -33,7 +40,24 @@ export function SignInPanel({
   const [badge, setBadge] = useState('');
   const [pin, setPin] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
+  // Too many wrong tries on a badge: the server's lock, counted down until it lifts. Other badges
+  // may still sign in; the same one is not sent again until then.
+  const [lock, setLock] = useState<{ badge: string; until: number } | null>(null);
+  const [lockShown, setLockShown] = useState(false);
+  const now = useNow(1000);
+  const lockLeft = lock ? Math.ceil((lock.until - now) / 1000) : 0;
+  const shownProblem = lockShown && lockLeft > 0 ? lockText(lockLeft) : problem;
+  const showProblem = (text: string | null) => {
+    setLockShown(false);
+    setProblem(text);
+  };
   const signIn = useBadgeSignIn();
+  // A "no connection" problem is stale once the link is back.
+  const [wasOffline, setWasOffline] = useState(offline);
+  if (offline !== wasOffline) {
+    setWasOffline(offline);
+    if (!offline && problem === NO_CONNECTION) setProblem(null);
+  }
   const abandonTimer = useRef<ReturnType<typeof setTimeout>>(undefined);
 
   const reset = useCallback(() => {
@@ -47,6 +71,7 @@ export function SignInPanel({
     abandonTimer.current = setTimeout(() => {
       reset();
       setProblem(null);
+      setLockShown(false);
     }, ABANDON_MS);
     onNoticeSeen?.();
   }, [reset, onNoticeSeen]);
@@ -57,7 +82,7 @@ export function SignInPanel({
 
   const digit = (d: string) => {
     touched();
-    setProblem(null);
+    showProblem(null);
     setValue((v) => (v.length >= MAX_DIGITS ? v : v + d));
   };
   const backspace = () => {
@@ -66,7 +91,7 @@ export function SignInPanel({
   };
   const clear = () => {
     touched();
-    setProblem(null);
+    showProblem(null);
     if (step === 'pin' && pin === '') setStep('badge');
     else setValue('');
   };
@@ -75,14 +100,18 @@ export function SignInPanel({
     touched();
     if (step === 'badge') {
       const check = badgeLoginSchema.shape.badge.safeParse(badge);
-      if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the badge number');
-      setProblem(null);
+      if (!check.success) return showProblem(check.error.issues[0]?.message ?? 'Check the badge number');
+      showProblem(null);
       setStep('pin');
       return;
     }
     const check = badgeLoginSchema.safeParse({ badge, pin });
-    if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the PIN');
-    setProblem(null);
+    if (!check.success) return showProblem(check.error.issues[0]?.message ?? 'Check the PIN');
+    showProblem(null);
+    if (lock?.badge === check.data.badge && lockLeft > 0) {
+      reset();
+      return setLockShown(true);
+    }
     if (offline && onOffline) {
       reset();
       return onOffline(check.data.badge, check.data.pin);
@@ -94,9 +123,14 @@ export function SignInPanel({
       },
       onError: (error) => {
         reset();
-        if (onOffline && error instanceof ApiError && error.isNetwork)
+        const until = signInLockedUntil(error, Date.now());
+        if (until !== null) {
+          setLock({ badge: check.data.badge, until });
+          setProblem(null);
+          setLockShown(true);
+        } else if (onOffline && error instanceof ApiError && error.isNetwork)
           onOffline(check.data.badge, check.data.pin);
-        else setProblem(signInRefusal(error));
+        else showProblem(signInRefusal(error));
       },
     });
   };
@@ -127,7 +161,7 @@ export function SignInPanel({
           </li>
         </ol>
 
-        {notice && !problem && (
+        {notice && !shownProblem && (
           <p className="bt-signin__notice" role="status">
             {notice}
           </p>
@@ -138,7 +172,7 @@ export function SignInPanel({
         </label>
         <output
           id="bt-signin-value"
-          className={`bt-signin__value${step === 'pin' ? ' bt-signin__value--pin' : ''}${problem ? ' has-problem' : ''}`}
+          className={`bt-signin__value${step === 'pin' ? ' bt-signin__value--pin' : ''}${shownProblem ? ' has-problem' : ''}`}
           aria-live="polite"
           aria-label={step === 'pin' ? `${pin.length} digits typed` : undefined}
         >
@@ -148,7 +182,7 @@ export function SignInPanel({
         </output>
 
         <p className="bt-signin__problem" role="alert">
-          {problem}
+          {shownProblem}
         </p>
 
         {step === 'pin' && (
@@ -157,7 +191,7 @@ export function SignInPanel({
             className="bt-signin__change"
             onClick={() => {
               touched();
-              setProblem(null);
+              showProblem(null);
               reset();
             }}
           >

@@ -1,6 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ShopSettings, UnitSystem } from '@baytime/shared';
 import { api } from '@/lib/api-client';
+import { deviceApi } from '@/lib/device';
+import { session } from '@/lib/session';
 import { queryKeys } from '@/lib/query-keys';
 
 /**
@@ -16,8 +18,9 @@ export interface RememberedShop {
   units?: UnitSystem;
 }
 
+/** As the technician when one is signed in, else as the paired tablet: the keypad shows shop time too. */
 export async function getShop(): Promise<ShopSettings> {
-  const shop = await api.get<ShopSettings>('/shop');
+  const shop = await (session.get() ? api : deviceApi).get<ShopSettings>('/shop');
   try {
     localStorage.setItem(
       REMEMBERED_SHOP_KEY,
