@@ -1,15 +1,20 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Navigate, useNavigate, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { useDeviceToken } from '@/lib/device';
 import { session, useSession, useSignOutReason, type SignOutReason } from '@/lib/session';
 import { SignInPanel } from '@/features/auth/components/sign-in-panel';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
-import { PairKioskPanel } from '@/features/pairing/components/pair-kiosk-panel';
 import { useOfflineKey } from '@/features/punches/api/get-offline-key';
 import { OfflinePunchSheet } from '@/features/punches/components/offline-punch-sheet';
 import { renewQueuedToken } from '@/features/punches/punch-queue';
 import { rememberedShop } from '@/features/shop/api/get-shop';
+import { Splash } from '@/components/splash';
+
+// Shown once in a tablet's life: it loads by itself, and with it the zod schema it checks codes with.
+const PairKioskPanel = lazy(async () => ({
+  default: (await import('@/features/pairing/components/pair-kiosk-panel')).PairKioskPanel,
+}));
 
 const REASONS: Record<SignOutReason, string> = {
   tapped: 'Signed out. Next person: badge number, then PIN.',
@@ -20,7 +25,12 @@ const REASONS: Record<SignOutReason, string> = {
 export function SignInRoute() {
   const paired = useDeviceToken() !== null;
   const [params] = useSearchParams();
-  if (!paired) return <PairKioskPanel codeFromAddress={params.get('code')} />;
+  if (!paired)
+    return (
+      <Suspense fallback={<Splash />}>
+        <PairKioskPanel codeFromAddress={params.get('code')} />
+      </Suspense>
+    );
   return <SignIn />;
 }
 

@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
+import { badgeProblem, pinProblem, type SignInAnswer } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
 import { signInRefusal, useBadgeSignIn } from '../api/badge-sign-in';
@@ -74,31 +74,33 @@ export function SignInPanel({
   const next = () => {
     touched();
     if (step === 'badge') {
-      const check = badgeLoginSchema.shape.badge.safeParse(badge);
-      if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the badge number');
+      const wrongBadge = badgeProblem(badge);
+      if (wrongBadge) return setProblem(wrongBadge);
       setProblem(null);
       setStep('pin');
       return;
     }
-    const check = badgeLoginSchema.safeParse({ badge, pin });
-    if (!check.success) return setProblem(check.error.issues[0]?.message ?? 'Check the PIN');
+    const wrong = badgeProblem(badge) ?? pinProblem(pin);
+    if (wrong) return setProblem(wrong);
     setProblem(null);
     if (offline && onOffline) {
       reset();
-      return onOffline(check.data.badge, check.data.pin);
+      return onOffline(badge, pin);
     }
-    signIn.mutate(check.data, {
-      onSuccess: (answer) => {
-        reset();
-        onSignedIn(answer);
+    signIn.mutate(
+      { badge, pin },
+      {
+        onSuccess: (answer) => {
+          reset();
+          onSignedIn(answer);
+        },
+        onError: (error) => {
+          reset();
+          if (onOffline && error instanceof ApiError && error.isNetwork) onOffline(badge, pin);
+          else setProblem(signInRefusal(error));
+        },
       },
-      onError: (error) => {
-        reset();
-        if (onOffline && error instanceof ApiError && error.isNetwork)
-          onOffline(check.data.badge, check.data.pin);
-        else setProblem(signInRefusal(error));
-      },
-    });
+    );
   };
 
   // A USB badge reader or a keyboard types digits and Enter; Escape clears like the Clear key.
