@@ -2,7 +2,6 @@ import { createBrowserRouter, RouterProvider } from 'react-router';
 import { paths } from '@/config/paths';
 import { Splash } from '@/components/splash';
 import { RootLayout } from './routes/root-layout';
-import { SignedInLayout } from './routes/signed-in-layout';
 import { RouteError } from './routes/route-error';
 import { NotFound } from './routes/not-found';
 
@@ -19,8 +18,8 @@ const router = createBrowserRouter(
           lazy: async () => ({ Component: (await import('./routes/sign-in')).SignInRoute }),
         },
         {
-          Component: SignedInLayout,
           ErrorBoundary: RouteError,
+          lazy: async () => ({ Component: (await import('./routes/signed-in-layout')).SignedInLayout }),
           children: [
             {
               path: paths.myDay.path,

@@ -1,11 +1,13 @@
-import type { ReactNode } from 'react';
-import { Button } from '@fluentui/react-components';
+import { lazy, Suspense, type ReactNode } from 'react';
 import type { LinkState } from '@/lib/socket';
 import { clockTime, dayPeriod, shortDate } from '@/lib/format';
 import { useNow } from '@/hooks/use-now';
 import { CloudOffIcon } from './icons';
 import { BaytimeMark } from './baytime-mark';
 import './app-header.css';
+
+// Fluent's button is needed only once someone is signed in: it loads then, not before the keypad shows.
+const SignOutButton = lazy(async () => ({ default: (await import('./sign-out-button')).SignOutButton }));
 
 export interface AppHeaderProps {
   shopName: string;
@@ -56,9 +58,9 @@ export function AppHeader({
         {technicianName && (
           <>
             <span className="bt-header__tech">{technicianName}</span>
-            <Button className="bt-header__signout" appearance="outline" size="large" onClick={onSignOut}>
-              Sign out
-            </Button>
+            <Suspense fallback={null}>
+              <SignOutButton onClick={onSignOut} />
+            </Suspense>
           </>
         )}
       </div>

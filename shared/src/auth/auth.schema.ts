@@ -1,4 +1,7 @@
 import { z } from 'zod';
+import { BADGE_RULE, PIN_RULE } from './badge-pin.js';
+
+export { badgeProblem, BADGE_RULE, pinProblem, PIN_RULE } from './badge-pin.js';
 
 export const ROLES = ['owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'] as const;
 export type Role = (typeof ROLES)[number];
@@ -19,8 +22,8 @@ export const loginSchema = z.object({
 export type LoginBody = z.infer<typeof loginSchema>;
 
 export const badgeLoginSchema = z.object({
-  badge: z.string().regex(/^\d{3,8}$/, 'A badge is 3 to 8 digits'),
-  pin: z.string().regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits'),
+  badge: z.string().regex(BADGE_RULE.pattern, BADGE_RULE.message),
+  pin: z.string().regex(PIN_RULE.pattern, PIN_RULE.message),
 });
 export type BadgeLoginBody = z.infer<typeof badgeLoginSchema>;
 

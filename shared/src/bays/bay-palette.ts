@@ -1,4 +1,4 @@
-import type { BayState, HoldReason } from './bays.schema.js';
+import type { BayState, HoldReason } from './bay-states.js';
 import type { TimerKind } from '../timers/timers.schema.js';
 
 /** Names of the state icons; each front end draws its own glyph for a name. */

@@ -1,13 +1,9 @@
 import { z } from 'zod';
 import { plainText } from '../input/fields.js';
 
-export const BAY_STATES = ['free', 'staged', 'working', 'timer', 'held', 'check', 'ready'] as const;
-export type BayState = (typeof BAY_STATES)[number];
+import { BAY_KINDS } from './bay-states.js';
 
-export const HOLD_REASONS = ['parts', 'approval', 'tooling', 'sublet', 'other'] as const;
-export type HoldReason = (typeof HOLD_REASONS)[number];
-
-export const BAY_KINDS = ['two-post', 'four-post', 'alignment', 'flat', 'pit'] as const;
+export { BAY_KINDS, BAY_STATES, HOLD_REASONS, type BayState, type HoldReason } from './bay-states.js';
 
 export const bayNameSchema = plainText(24, { min: 1, message: 'Name the bay' });
 

@@ -1,5 +1,5 @@
 import { BAY_PALETTE, INK } from '../bays/bay-palette.js';
-import { BAY_STATES } from '../bays/bays.schema.js';
+import { BAY_STATES } from '../bays/bay-states.js';
 import { BRAND_RAMP } from './brand.js';
 
 export interface SignalLook {

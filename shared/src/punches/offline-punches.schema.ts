@@ -3,10 +3,14 @@ import { badgeLoginSchema } from '../auth/auth.schema.js';
 import { instantSchema } from '../input/fields.js';
 import { pageQuerySchema } from '../paging/page.schema.js';
 import { BREAK_KINDS, type BreakKind } from './punches.schema.js';
+import { OFFLINE_PUNCH_KINDS, type OfflineIdentity, type OfflinePunchKind } from './offline-identity.js';
 
-/** What a technician may record at a kiosk that cannot reach the server: shift and break punches. */
-export const OFFLINE_PUNCH_KINDS = ['shift-in', 'shift-out', 'break-start', 'break-end'] as const;
-export type OfflinePunchKind = (typeof OFFLINE_PUNCH_KINDS)[number];
+export {
+  identityText,
+  OFFLINE_PUNCH_KINDS,
+  type OfflineIdentity,
+  type OfflinePunchKind,
+} from './offline-identity.js';
 
 /**
  * `unverified`: the PIN matched but the technician has not confirmed it yet (next sign-in online, or
@@ -15,20 +19,6 @@ export type OfflinePunchKind = (typeof OFFLINE_PUNCH_KINDS)[number];
  */
 export const OFFLINE_PUNCH_STATUSES = ['unverified', 'refused', 'confirmed', 'rejected'] as const;
 export type OfflinePunchStatus = (typeof OFFLINE_PUNCH_STATUSES)[number];
-
-/** The badge and PIN typed for one offline punch, bound to that punch, before sealing. */
-export interface OfflineIdentity {
-  badge: string;
-  pin: string;
-  id: string;
-  kind: OfflinePunchKind;
-  at: string;
-}
-
-/** The text sealed to the server's key; short, for RSA-OAEP with SHA-256 takes at most 190 bytes. */
-export function identityText({ badge, pin, id, kind, at }: OfflineIdentity): string {
-  return JSON.stringify([badge, pin, id, kind, at]);
-}
 
 /** The identity read back from its text, or null when it is not one. */
 export function readIdentityText(text: string): OfflineIdentity | null {

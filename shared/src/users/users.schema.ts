@@ -4,6 +4,8 @@ import { plainText } from '../input/fields.js';
 import { PAY_TYPES, type PayRate } from '../pay/pay-types.js';
 import { localDateSchema } from '../shop/shop.schema.js';
 
+export { shortName } from './short-name.js';
+
 /** A pay rate per hour in cents. */
 const cents = z.number().int().min(0).max(1_000_00, 'At most $1,000.00 an hour');
 const personName = plainText(80, { min: 1, message: 'Enter a name' });
@@ -95,11 +97,4 @@ export interface UserDto {
 export interface DatedPayRate extends PayRate {
   effectiveFrom: string;
   recordedAt: string;
-}
-
-/** "Dana Okafor" → "Dana O.": what a wall screen may show of a person. */
-export function shortName(fullName: string): string {
-  const [first, ...rest] = fullName.trim().split(/\s+/);
-  const last = rest.at(-1);
-  return last ? `${first} ${last[0]}.` : (first ?? '');
 }

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { NavLink, Outlet, useNavigation } from 'react-router';
 import { paths } from '@/config/paths';
 import { AppHeader } from '@/components/app-header';
@@ -8,11 +8,18 @@ import { useDeviceToken } from '@/lib/device';
 import { useLiveQueries } from '@/hooks/use-live-queries';
 import { rememberedShop, useShop } from '@/features/shop/api/get-shop';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
-import { UpdatePrompt } from '@/features/app-update/components/update-prompt';
 import { OutboxStatus } from '@/features/punches/components/outbox-status';
 import { PunchNotices } from '@/features/punches/components/punch-notices';
-import { TimerAlertBanner } from '@/features/timers/components/timer-alert-banner';
 import '../app.css';
+
+// Neither has anything to show before the keypad paints: the service worker's prompt waits for a newer
+// build, the timer alerts for the timers to be fetched.
+const UpdatePrompt = lazy(async () => ({
+  default: (await import('@/features/app-update/components/update-prompt')).UpdatePrompt,
+}));
+const TimerAlertBanner = lazy(async () => ({
+  default: (await import('@/features/timers/components/timer-alert-banner')).TimerAlertBanner,
+}));
 
 export function RootLayout() {
   const current = useSession();
@@ -45,10 +52,14 @@ export function RootLayout() {
           )
         }
       />
-      <UpdatePrompt />
+      <Suspense fallback={null}>
+        <UpdatePrompt />
+      </Suspense>
       <OutboxStatus />
       <PunchNotices technicianId={current?.user.id} />
-      <TimerAlertBanner units={shop.data?.units ?? remembered?.units} timeZone={timeZone} />
+      <Suspense fallback={null}>
+        <TimerAlertBanner units={shop.data?.units ?? remembered?.units} timeZone={timeZone} />
+      </Suspense>
       <main className="bt-app__main" aria-busy={navigation.state === 'loading'}>
         <Outlet />
       </main>

@@ -1,15 +1,25 @@
-import { useState } from 'react';
+import { lazy, Suspense, useEffect, useState } from 'react';
 import { Navigate, useNavigate, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { useDeviceToken } from '@/lib/device';
 import { session, useSession, useSignOutReason, type SignOutReason } from '@/lib/session';
 import { SignInPanel } from '@/features/auth/components/sign-in-panel';
 import { useConnectionState } from '@/features/connection/hooks/use-connection-state';
-import { PairKioskPanel } from '@/features/pairing/components/pair-kiosk-panel';
 import { useOfflineKey } from '@/features/punches/api/get-offline-key';
-import { OfflinePunchSheet } from '@/features/punches/components/offline-punch-sheet';
 import { renewQueuedToken } from '@/features/punches/punch-queue';
 import { rememberedShop } from '@/features/shop/api/get-shop';
+import { Splash } from '@/components/splash';
+import { SheetLoading } from '@/components/sheet-loading';
+
+// Shown once in a tablet's life: it loads by itself, and with it the zod schema it checks codes with.
+const PairKioskPanel = lazy(async () => ({
+  default: (await import('@/features/pairing/components/pair-kiosk-panel')).PairKioskPanel,
+}));
+// Needed only when the server cannot be reached, so it is fetched ahead once the keypad shows: a
+// tablet that loses the Wi-Fi later still has it.
+const loadOfflinePunchSheet = () => import('@/features/punches/components/offline-punch-sheet');
+const OfflinePunchSheet = lazy(() => loadOfflinePunchSheet().then((m) => ({ default: m.OfflinePunchSheet })));
+const PRELOAD_AFTER_MS = 2_000;
 
 const REASONS: Record<SignOutReason, string> = {
   tapped: 'Signed out. Next person: badge number, then PIN.',
@@ -22,7 +32,12 @@ const LINK_BACK = 'The connection is back. Sign in with your badge as usual.';
 export function SignInRoute() {
   const paired = useDeviceToken() !== null;
   const [params] = useSearchParams();
-  if (!paired) return <PairKioskPanel codeFromAddress={params.get('code')} />;
+  if (!paired)
+    return (
+      <Suspense fallback={<Splash />}>
+        <PairKioskPanel codeFromAddress={params.get('code')} />
+      </Suspense>
+    );
   return <SignIn />;
 }
 
@@ -44,6 +59,10 @@ function SignIn() {
       setRecorded(LINK_BACK);
     }
   }
+  useEffect(() => {
+    const timer = setTimeout(() => void loadOfflinePunchSheet().catch(() => undefined), PRELOAD_AFTER_MS);
+    return () => clearTimeout(timer);
+  }, []);
   if (current) return <Navigate to={paths.myDay.getHref()} replace />;
 
   return (
@@ -63,16 +82,18 @@ function SignIn() {
         }}
       />
       {offlineFor && (
-        <OfflinePunchSheet
-          badge={offlineFor.badge}
-          pin={offlineFor.pin}
-          timeZone={rememberedShop()?.timeZone}
-          onClose={() => setOfflineFor(null)}
-          onDone={(message) => {
-            setOfflineFor(null);
-            setRecorded(message);
-          }}
-        />
+        <Suspense fallback={<SheetLoading />}>
+          <OfflinePunchSheet
+            badge={offlineFor.badge}
+            pin={offlineFor.pin}
+            timeZone={rememberedShop()?.timeZone}
+            onClose={() => setOfflineFor(null)}
+            onDone={(message) => {
+              setOfflineFor(null);
+              setRecorded(message);
+            }}
+          />
+        </Suspense>
       )}
     </>
   );

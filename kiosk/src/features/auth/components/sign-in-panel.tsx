@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { badgeLoginSchema, type SignInAnswer } from '@baytime/shared';
+import { badgeProblem, pinProblem, type SignInAnswer } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { ArrowRightIcon, CheckIcon } from '@/components/icons';
 import { useNow } from '@/hooks/use-now';
@@ -99,40 +99,42 @@ export function SignInPanel({
   const next = () => {
     touched();
     if (step === 'badge') {
-      const check = badgeLoginSchema.shape.badge.safeParse(badge);
-      if (!check.success) return showProblem(check.error.issues[0]?.message ?? 'Check the badge number');
+      const wrongBadge = badgeProblem(badge);
+      if (wrongBadge) return showProblem(wrongBadge);
       showProblem(null);
       setStep('pin');
       return;
     }
-    const check = badgeLoginSchema.safeParse({ badge, pin });
-    if (!check.success) return showProblem(check.error.issues[0]?.message ?? 'Check the PIN');
+    const wrong = badgeProblem(badge) ?? pinProblem(pin);
+    if (wrong) return showProblem(wrong);
     showProblem(null);
-    if (lock?.badge === check.data.badge && lockLeft > 0) {
+    if (lock?.badge === badge && lockLeft > 0) {
       reset();
       return setLockShown(true);
     }
     if (offline && onOffline) {
       reset();
-      return onOffline(check.data.badge, check.data.pin);
+      return onOffline(badge, pin);
     }
-    signIn.mutate(check.data, {
-      onSuccess: (answer) => {
-        reset();
-        onSignedIn(answer);
+    signIn.mutate(
+      { badge, pin },
+      {
+        onSuccess: (answer) => {
+          reset();
+          onSignedIn(answer);
+        },
+        onError: (error) => {
+          reset();
+          const until = signInLockedUntil(error, Date.now());
+          if (until !== null) {
+            setLock({ badge, until });
+            setProblem(null);
+            setLockShown(true);
+          } else if (onOffline && error instanceof ApiError && error.isNetwork) onOffline(badge, pin);
+          else showProblem(signInRefusal(error));
+        },
       },
-      onError: (error) => {
-        reset();
-        const until = signInLockedUntil(error, Date.now());
-        if (until !== null) {
-          setLock({ badge: check.data.badge, until });
-          setProblem(null);
-          setLockShown(true);
-        } else if (onOffline && error instanceof ApiError && error.isNetwork)
-          onOffline(check.data.badge, check.data.pin);
-        else showProblem(signInRefusal(error));
-      },
-    });
+    );
   };
 
   // A USB badge reader or a keyboard types digits and Enter; Escape clears like the Clear key.
