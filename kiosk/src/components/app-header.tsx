@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { CONNECTION_WORDS } from '@baytime/shared';
 import { Button } from '@fluentui/react-components';
 import type { LinkState } from '@/lib/socket';
 import { clockTime, dayPeriod } from '@/lib/format';
@@ -16,12 +17,6 @@ export interface AppHeaderProps {
   /** Links between the signed-in pages; they take the shop name's place. */
   nav?: ReactNode;
 }
-
-const CONNECTION_WORDS: Record<LinkState, string> = {
-  online: 'Online',
-  offline: 'Offline',
-  connecting: 'Connecting…',
-};
 
 export function AppHeader({
   shopName,

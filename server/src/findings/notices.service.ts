@@ -1,7 +1,7 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq } from 'drizzle-orm';
 import {
-  FINDING_SEVERITY_WORDS,
+  FINDING_SEVERITY_FOR_CUSTOMERS,
   formatCents,
   formatPhone,
   formatShopInstant,
@@ -232,7 +232,7 @@ export class NoticesService {
         `line ${line.lineNo} "${line.title}".`,
       '',
       `What was found: ${finding.note}`,
-      `How urgent: ${FINDING_SEVERITY_WORDS[finding.severity]}.`,
+      `How urgent: ${FINDING_SEVERITY_FOR_CUSTOMERS[finding.severity]}.`,
       ...(finding.suggestedHours !== null ? [`Suggested hours: ${hours(finding.suggestedHours)}.`] : []),
       `Photos: ${previews.length ? `${previews.length} attached (small copies)` : 'none'}.`,
       ...(line.status === 'held' && line.holdReason === 'approval'

@@ -585,13 +585,13 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/pay-weeks/:week/close': { id: 'payWeek', body: fc.constant({}) },
   'post /api/pay-weeks/:week/reopen': { id: 'payWeek', body: body({ reason }, ['reason']) },
   'post /api/timers': {
-    // Shaped like the kiosk's two forms, a fixed hold and a temperature timer, and then anything.
+    // Shaped like the kiosk's two forms, a set time and a temperature timer, and then anything.
     body: fc.oneof(
       body(
         {
           jobLineId: ref('jobLine'),
           bayId: ref('bay'),
-          kind: fc.constant('hold'),
+          kind: fc.constant('set-time'),
           durationSeconds: fc.integer({ min: 10, max: 48 * 3600 }),
           label: text(60, ['Vacuum hold']),
         },

@@ -1,6 +1,5 @@
 import {
   ANSWER_CHANNEL_WORDS,
-  FINDING_SEVERITY_WORDS,
   formatPhone,
   type ApprovalLinkDto,
   type FindingDto,
@@ -8,13 +7,6 @@ import {
 } from '@baytime/shared';
 
 const SEVERITY_RANK: Record<FindingSeverity, number> = { 'safety-now': 0, soon: 1, watch: 2 };
-
-/** The first words of the severity sentence, for a tag: "A safety concern", "Should be fixed soon", "Not urgent". */
-export function severityHeadline(severity: FindingSeverity): string {
-  const words = FINDING_SEVERITY_WORDS[severity];
-  const colon = words.indexOf(':');
-  return colon > 0 ? words.slice(0, colon) : words;
-}
 
 /** Safety first, then the one waiting longest. */
 export function sortPending(findings: readonly FindingDto[]): FindingDto[] {

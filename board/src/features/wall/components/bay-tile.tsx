@@ -1,8 +1,7 @@
-import { BAY_PALETTE, type BoardBay } from '@baytime/shared';
+import { BAY_PALETTE, formatHours, type BoardBay } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { clockedSecondsAt } from '../board-store';
 import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
-import { formatHoursMinutes } from '../board-time';
 import { lineChars, tileRoom } from '../wall-layout';
 import styles from './wall.module.css';
 
@@ -53,7 +52,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, turn }: B
         <div
           className={styles.bar}
           role="img"
-          aria-label={`${formatHoursMinutes(clocked)} clocked of ${formatHoursMinutes(bay.bookSeconds)} book`}
+          aria-label={`${formatHours(clocked)} clocked of ${formatHours(bay.bookSeconds)} book`}
         >
           <div className={styles.barWithin} style={{ width: `${bar.withinBook * 100}%` }} />
           {bar.overBook > 0 && (
@@ -86,9 +85,7 @@ function FactLine({ line, bar }: { line: TileLine; bar: ReturnType<typeof clocke
         {fact.text}
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
-      {fact.tone === 'over' && bar && (
-        <span className={styles.overTag}>+{formatHoursMinutes(bar.overSeconds)}</span>
-      )}
+      {fact.tone === 'over' && bar && <span className={styles.overTag}>+{formatHours(bar.overSeconds)}</span>}
     </div>
   );
 }

@@ -1,6 +1,8 @@
 import { Glyph } from '@/components/glyph';
 import type { LinkStatus } from '../live-board';
-import { clockFace, formatSpan, formatTimeOfDay } from '../board-time';
+import { CONNECTION_WORDS, LINK_STATUS_CONNECTION, offlineSinceWords } from '@baytime/shared';
+import { clockFace } from '@/lib/shop-clock';
+import { formatSpan, formatTimeOfDay } from '../board-time';
 import type { QueueSummary } from '../people-pages';
 import styles from './wall.module.css';
 
@@ -38,7 +40,7 @@ export function WallTopBar(props: WallTopBarProps) {
         <div className={styles.linkLost} role="alert">
           <Glyph name="link-lost" className={styles.glyph} />
           <span className={styles.linkLostText}>
-            Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
+            {offlineSinceWords(formatTimeOfDay(downSince + offsetMs, timeZone))}
           </span>
         </div>
       ) : kioskNote ? (
@@ -78,7 +80,7 @@ export function WallTopBar(props: WallTopBarProps) {
       {!lost && (
         <div className={styles.live}>
           <span className={`${styles.liveDot} ${link === 'live' ? '' : styles.liveDotDown}`} />
-          {link === 'live' ? 'Live' : 'Reconnecting'}
+          {CONNECTION_WORDS[LINK_STATUS_CONNECTION[link]]}
         </div>
       )}
       <time className={styles.clock} dateTime={new Date(nowMs).toISOString()}>

@@ -1,0 +1,5 @@
+export * from './floor-words.js';
+export * from './timer-words.js';
+export * from './punch-words.js';
+export * from './finding-words.js';
+export * from './connection-words.js';
