@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { CONNECTION_WORDS } from '@baytime/shared';
 import { Button } from '@fluentui/react-components';
 import type { LinkState } from '@/lib/socket';
-import { clockTime, dayPeriod } from '@/lib/format';
+import { clockFace } from '@/lib/format';
 import { useNow } from '@/hooks/use-now';
 import { CloudOffIcon } from './icons';
 import { BaytimeMark } from './baytime-mark';
@@ -27,6 +27,7 @@ export function AppHeader({
   nav,
 }: AppHeaderProps) {
   const now = useNow(1000);
+  const face = clockFace(now, timeZone);
   let date: string;
   try {
     date = new Intl.DateTimeFormat('en-US', {
@@ -45,8 +46,8 @@ export function AppHeader({
         {nav ?? <span className="bt-header__shop-name">{shopName}</span>}
       </div>
       <div className="bt-header__clock" aria-label="Time">
-        <span className="bt-header__time">{clockTime(now, timeZone)}</span>
-        <span className="bt-header__period">{dayPeriod(now, timeZone)}</span>
+        <span className="bt-header__time">{face.time}</span>
+        {face.period && <span className="bt-header__period">{face.period}</span>}
         <span className="bt-header__date">{date}</span>
       </div>
       <div className="bt-header__right">

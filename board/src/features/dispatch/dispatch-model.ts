@@ -1,4 +1,10 @@
-import type { DispatchBoard, DispatchLane, DispatchLine, Priority } from '@baytime/shared';
+import {
+  repairOrderLineWords,
+  type DispatchBoard,
+  type DispatchLane,
+  type DispatchLine,
+  type Priority,
+} from '@baytime/shared';
 
 /** The changes a move sends to `PATCH /api/job-lines/:id`. */
 export interface MovePatch {
@@ -95,7 +101,7 @@ export function planMove(board: DispatchBoard, lineId: number, target: MoveTarge
   if (!line) return null;
   const patch = patchFor(line, target);
   if (!patch) return null;
-  const label = `L${line.lineNo} ${line.title} (RO ${line.repairOrderNumber})`;
+  const label = `${repairOrderLineWords(line.repairOrderNumber, line.lineNo)}: ${line.title}`;
 
   let summary: string;
   let warning: string | null = null;

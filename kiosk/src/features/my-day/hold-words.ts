@@ -8,12 +8,3 @@ export const HOLD_CHOICES: readonly { reason: HoldReason; words: string; hint: s
   { reason: 'sublet', words: 'At a sublet shop', hint: 'A part or the vehicle is out with another shop' },
   { reason: 'other', words: 'Other', hint: 'Tell the foreman why' },
 ];
-
-/** The short form on the card's state tag: "Held · parts". */
-export const HOLD_SHORT: Record<HoldReason, string> = {
-  parts: 'parts',
-  approval: 'approval',
-  tooling: 'tool',
-  sublet: 'sublet',
-  other: 'other',
-};

@@ -73,9 +73,9 @@ describe(describeTimer.name, () => {
       clock,
     );
     expect(view.state).toBe('About 6 min left');
-    expect(view.detail).toBe('Ready about 10:06');
+    expect(view.detail).toBe('Ready about 10:06 am');
     expect(view.confidence).toBe('fair estimate');
-    expect(view.lastReading).toBe('Last reading 140 °F at 9:59 · 2 readings');
+    expect(view.lastReading).toBe('Last reading 140 °F at 9:59 am · 2 readings');
     expect(view.progress).toBeCloseTo(0.5, 10);
   });
 
@@ -113,7 +113,7 @@ describe(describeTimer.name, () => {
       clock,
     );
     expect(view).toMatchObject({
-      state: 'Target reached at 9:58',
+      state: 'Target reached at 9:58 am',
       tone: 'done',
       finished: true,
       progress: 1,
@@ -125,13 +125,13 @@ describe(describeTimer.name, () => {
     const view = describeTimer(setTime(), { ...clock, now: T0 + 5_000 });
     expect(view.headline).toBe('Sealant cure · 30 min');
     expect(view.state).toBe('19:55 left');
-    expect(view.detail).toBe('Ends 10:20');
+    expect(view.detail).toBe('Ends 10:20 am');
     expect(view.progress).toBeCloseTo(1 - 1195 / 1800, 10);
   });
 
   it('calls a set time over once its time is up, even before the server says so', () => {
     const view = describeTimer(setTime(), { ...clock, now: T0 + 1_200_000 });
-    expect(view).toMatchObject({ state: 'Time up at 10:20', finished: true });
+    expect(view).toMatchObject({ state: 'Time up at 10:20 am', finished: true });
   });
 });
 

@@ -44,10 +44,11 @@ import { EditRepairOrderDialog } from './edit-repair-order-dialog';
 import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
 import { sentToText } from '@/lib/notice-words';
+import { REPAIR_ORDER_STATUS_WORDS, aboutWords, skillWords } from '@baytime/shared';
 import {
   formatBookHours,
   formatDateTime,
-  formatHm,
+  formatHours,
   formatOdometer,
   formatOverUnder,
   groupVin,
@@ -120,11 +121,7 @@ type LineDialog =
   | { kind: 'add' }
   | { kind: 'edit-ro' };
 
-const STATUS = {
-  open: { label: 'Open', color: 'brand' },
-  done: { label: 'Work done', color: 'informative' },
-  closed: { label: 'Closed', color: 'subtle' },
-} as const;
+const STATUS_COLOURS = { open: 'brand', done: 'informative', closed: 'subtle' } as const;
 
 const LINE_STATUS_COLOURS = {
   queued: 'informative',
@@ -226,7 +223,6 @@ function Detail({
     [ids[index], ids[index + by]] = [ids[index + by]!, ids[index]!];
     reorder.mutate(ids);
   };
-  const status = STATUS[ro.status];
   const bookTotal = ro.lines.reduce((sum, line) => sum + line.bookHours, 0);
   const clockedTotal = rows.reduce((sum, row) => sum + row.clockedSeconds, 0);
 
@@ -237,8 +233,8 @@ function Detail({
         description={`${ro.vehicle} · ${ro.customerName}`}
         actions={
           <>
-            <Badge size="large" appearance="tint" color={status.color}>
-              {status.label}
+            <Badge size="large" appearance="tint" color={STATUS_COLOURS[ro.status]}>
+              {REPAIR_ORDER_STATUS_WORDS[ro.status]}
             </Badge>
             {late && (
               <Badge size="large" appearance="filled" color="danger">
@@ -307,7 +303,7 @@ function Detail({
           <Body1 className={styles.big}>{formatBookHours(bookTotal)} book</Body1>
           <Caption1 className={styles.dim}>
             {ro.lines.filter((line) => line.status === 'done').length} of {ro.lines.length} lines done
-            {` · ${formatHm(clockedTotal)} clocked`}
+            {` · ${formatHours(clockedTotal)} clocked`}
           </Caption1>
         </Fact>
         <Fact label="Concern" className={styles.concern}>
@@ -347,7 +343,7 @@ function Detail({
                         <span className={styles.lineTitle}>
                           L{line.lineNo} {line.title}
                         </span>
-                        <Caption1 className={styles.dim}> · level {line.skillLevel}</Caption1>
+                        <Caption1 className={styles.dim}> · {skillWords(line.skillLevel)}</Caption1>
                         <div className={styles.threeCs}>
                           <Caption1>Concern: {line.concern}</Caption1>
                           {line.cause && <Caption1>Cause: {line.cause}</Caption1>}
@@ -381,7 +377,7 @@ function Detail({
                         )}
                       </TableCell>
                       <TableCell className={styles.numeric}>{formatBookHours(line.bookHours)}</TableCell>
-                      <TableCell className={styles.numeric}>{formatHm(clockedSeconds)}</TableCell>
+                      <TableCell className={styles.numeric}>{formatHours(clockedSeconds)}</TableCell>
                       <TableCell className={mergeClasses(styles.numeric, over ? styles.over : undefined)}>
                         {clockedSeconds === 0 && line.status === 'queued'
                           ? '—'
@@ -392,7 +388,7 @@ function Detail({
                           <>Done {formatDateTime(line.completedAt, timeZone)}</>
                         ) : forecast ? (
                           <span className={line.late ? styles.late : undefined}>
-                            ≈ {formatDateTime(forecast.finishAt, timeZone)}
+                            {aboutWords(formatDateTime(forecast.finishAt, timeZone))}
                             {line.late && ' · LATE'}
                           </span>
                         ) : (
@@ -462,7 +458,7 @@ function Detail({
                   {formatBookHours(bookTotal)}
                 </TableCell>
                 <TableCell className={mergeClasses(styles.numeric, styles.total)}>
-                  {formatHm(clockedTotal)}
+                  {formatHours(clockedTotal)}
                 </TableCell>
                 <TableCell />
                 <TableCell />
