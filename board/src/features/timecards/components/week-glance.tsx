@@ -6,7 +6,7 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import { formatClock, formatDay, formatHm } from '../timecard-format';
+import { formatClock, formatDay, formatHours } from '../timecard-format';
 import {
   timelineSegments,
   timelineWindow,
@@ -215,9 +215,11 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
             ) : (
               <Caption1 className={styles.quiet}>No punches</Caption1>
             )}
-            <span className={styles.number}>{day.active ? formatHm(day.totals.attendanceSeconds) : '–'}</span>
-            <span className={styles.number}>{day.active ? formatHm(day.totals.clockedSeconds) : '–'}</span>
-            <span className={styles.number}>{day.active ? formatHm(day.totals.idleSeconds) : '–'}</span>
+            <span className={styles.number}>
+              {day.active ? formatHours(day.totals.attendanceSeconds) : '–'}
+            </span>
+            <span className={styles.number}>{day.active ? formatHours(day.totals.clockedSeconds) : '–'}</span>
+            <span className={styles.number}>{day.active ? formatHours(day.totals.idleSeconds) : '–'}</span>
           </div>
         ))}
       </div>
