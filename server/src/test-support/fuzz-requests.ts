@@ -358,6 +358,7 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
       workweekStartDay: fc.integer({ min: 0, max: 6 }),
       workweekStartHour: fc.integer({ min: 0, max: 23 }),
       units: fc.constantFrom('metric', 'us'),
+      clockFormat: fc.constantFrom('12h', '24h'),
       maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
       concurrentSplit: fc.constantFrom('even', 'full'),
       minimumWageCents: fc.integer({ min: 725, max: 10_000 }),

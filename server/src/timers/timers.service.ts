@@ -2,6 +2,8 @@ import { BadRequestException, ConflictException, Inject, Injectable, Logger } fr
 import { Interval } from '@nestjs/schedule';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
 import {
+  inSentence,
+  JOB_LINE_STATUS_WORDS,
   isOpenLine,
   type HoldPresetBody,
   type HoldPresetDto,
@@ -90,7 +92,8 @@ export class TimersService {
     );
     this.access.assertMayWork(line, actor, now);
     if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
-    if (!isOpenLine(line)) throw new ConflictException(`That line is ${line.status}`);
+    if (!isOpenLine(line))
+      throw new ConflictException(`That line is ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     const busy = this.db
       .select()
       .from(timers)

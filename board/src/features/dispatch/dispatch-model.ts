@@ -1,4 +1,6 @@
 import {
+  inSentence,
+  PRIORITY_WORDS,
   repairOrderLineWords,
   type DispatchBoard,
   type DispatchLane,
@@ -126,7 +128,7 @@ export function planMove(board: DispatchBoard, lineId: number, target: MoveTarge
       summary = `${label} set to ${bay.name}`;
     } else summary = `${label} no longer tied to a bay`;
   } else {
-    summary = `${label} set to ${patch.priority} priority`;
+    summary = `${label} set to ${inSentence(PRIORITY_WORDS[patch.priority ?? line.priority])} priority`;
   }
   return { line, patch, clocksOff, skillWarning: warning, bayTaken, summary };
 }

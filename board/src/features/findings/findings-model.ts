@@ -1,4 +1,5 @@
 import {
+  FINDING_ANSWER_WORDS,
   ANSWER_CHANNEL_WORDS,
   formatPhone,
   type ApprovalLinkDto,
@@ -79,7 +80,7 @@ export function titleHint(note: string, max = 120): string {
 
 /** "Approved by Harriet Quenby through the approval link", "Declined by Nell Ashby by phone". */
 export function answeredText(finding: FindingDto): string {
-  const verb = finding.answer === 'approved' ? 'Approved' : 'Declined';
+  const verb = FINDING_ANSWER_WORDS[finding.answer];
   const by = finding.answeredBy ? ` by ${finding.answeredBy}` : '';
   const how = finding.answerChannel ? ` ${ANSWER_CHANNEL_WORDS[finding.answerChannel]}` : '';
   return `${verb}${by}${how}`;

@@ -1,4 +1,4 @@
-import { PUNCH_WORDS, repairOrderLineWords } from '@baytime/shared';
+import { PERSON_STATUS_WORDS, PUNCH_WORDS, repairOrderLineWords } from '@baytime/shared';
 import { clockTime, durationWords, formatHours } from '@/lib/format';
 import { lineSeconds, type ConcurrentSplit, type DayView } from './project-day';
 
@@ -16,7 +16,10 @@ export function statusText(
 ): StatusText {
   const { shift } = view;
   if (shift.status === 'off') {
-    return { headline: 'Off shift', detail: `Tap ${PUNCH_WORDS['shift-in']} when you begin work.` };
+    return {
+      headline: PERSON_STATUS_WORDS.off,
+      detail: `Tap ${PUNCH_WORDS['shift-in']} when you begin work.`,
+    };
   }
   if (shift.status === 'on-break') {
     const since = shift.since ?? new Date(now).toISOString();
@@ -26,7 +29,9 @@ export function statusText(
     };
   }
   const since = view.shiftStartedAt ?? shift.since;
-  const head = since ? `On shift since ${clockTime(since, timeZone)}` : 'On shift';
+  const head = since
+    ? `${PERSON_STATUS_WORDS['on-shift']} since ${clockTime(since, timeZone)}`
+    : PERSON_STATUS_WORDS['on-shift'];
   const running = view.lines.filter((line) => line.clockedOn);
   if (running.length === 0) {
     return {

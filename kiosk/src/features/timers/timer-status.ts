@@ -1,4 +1,4 @@
-import { TIMER_KIND_LABELS, type TimerDto, type UnitSystem } from '@baytime/shared';
+import { TIMER_CONFIDENCE_WORDS, TIMER_KIND_LABELS, type TimerDto, type UnitSystem } from '@baytime/shared';
 import { clockTime, countdown, durationWords } from '@/lib/format';
 import { showTemperature } from './temperature-entry';
 
@@ -31,8 +31,6 @@ export interface TimerView {
   /** Readings still help: a warm-up or cool-down not yet at its target. */
   takesReadings: boolean;
 }
-
-const CONFIDENCE_WORDS = { low: 'rough estimate', medium: 'fair estimate', high: 'good estimate' } as const;
 
 /** Seconds left now, counted down from what the server said when the timer was fetched. */
 export function secondsLeftNow(timer: TimerDto, clock: Pick<TimerClock, 'now' | 'fetchedAt'>): number | null {
@@ -177,7 +175,7 @@ export function describeTimer(timer: TimerDto, clock: TimerClock): TimerView {
               ? 'Less than a minute left'
               : `About ${durationWords(left)} left`,
         detail: eta ? `Ready about ${at(eta)}` : null,
-        confidence: CONFIDENCE_WORDS[timer.estimate.confidence],
+        confidence: TIMER_CONFIDENCE_WORDS[timer.estimate.confidence],
         tone: 'running',
       };
     }

@@ -216,7 +216,7 @@ export function LineCard({
           <Tag>
             <Glyph name="pause" className={styles.glyph} />
             <span>
-              <strong>Held</strong>
+              <strong>{JOB_LINE_STATUS_WORDS.held}</strong>
               {line.holdReason && `: ${HOLD_REASON_LABELS[line.holdReason]}`}
             </span>
           </Tag>
@@ -309,7 +309,7 @@ function LaneFacts({
           {line.status === 'held'
             ? 'No forecast while held'
             : line.forecast
-              ? `Done ${aboutWords(formatShopTime(line.forecast.finishAt, nowMs, timeZone))}`
+              ? `${JOB_LINE_STATUS_WORDS.done} ${aboutWords(formatShopTime(line.forecast.finishAt, nowMs, timeZone))}`
               : 'Forecast updating…'}
           {line.promisedAt &&
             (late || line.status === 'held') &&

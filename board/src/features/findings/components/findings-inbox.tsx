@@ -20,7 +20,7 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
+import { FINDING_ANSWER_WORDS, lineWords, type FindingAnswerResult, type FindingDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useFindings } from '../api/get-findings';
 import { useRequestApproval } from '../api/request-approval';
@@ -96,8 +96,8 @@ function answerSummary(result: FindingAnswerResult): string {
   const { finding, createdLine, resumedLine } = result;
   const head =
     finding.answer === 'approved' && createdLine
-      ? `Approved: line ${createdLine.lineNo} “${createdLine.title}” (${createdLine.bookHours} h) added to RO ${finding.repairOrderNumber}, waiting in the queue.`
-      : `Declined: noted on RO ${finding.repairOrderNumber}.`;
+      ? `${FINDING_ANSWER_WORDS.approved}: ${lineWords(createdLine.lineNo)} “${createdLine.title}” (${createdLine.bookHours} h) added to RO ${finding.repairOrderNumber}, waiting in the queue.`
+      : `${FINDING_ANSWER_WORDS.declined}: noted on RO ${finding.repairOrderNumber}.`;
   return resumedLine ? `${head} Line ${resumedLine.lineNo} is no longer held and can carry on.` : head;
 }
 
@@ -126,7 +126,7 @@ function AnsweredGroupCard({
           <div className={styles.answeredText}>
             <div className={styles.answeredHead}>
               <Badge appearance="filled" color={finding.answer === 'approved' ? 'brand' : 'informative'}>
-                {finding.answer === 'approved' ? 'Approved' : 'Declined'}
+                {FINDING_ANSWER_WORDS[finding.answer]}
               </Badge>
               <SeverityBadge severity={finding.severity} />
               <Text>

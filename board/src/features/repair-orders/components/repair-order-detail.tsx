@@ -365,7 +365,7 @@ function Detail({
                         </div>
                         {lineTools?.(line)}
                       </TableCell>
-                      <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
+                      <TableCell>{technician ?? <span className={styles.dim}>No technician</span>}</TableCell>
                       <TableCell>
                         {bay ? (
                           <span className={styles.cell}>

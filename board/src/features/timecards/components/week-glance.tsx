@@ -7,6 +7,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { formatClock, formatDay, formatHours } from '../timecard-format';
+import { PERSON_STATUS_WORDS } from '@baytime/shared';
 import {
   timelineSegments,
   timelineWindow,
@@ -196,7 +197,7 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
         </div>
         <Caption1 className={mergeClasses(styles.head, styles.number)}>Attendance</Caption1>
         <Caption1 className={mergeClasses(styles.head, styles.number)}>On jobs</Caption1>
-        <Caption1 className={mergeClasses(styles.head, styles.number)}>Idle</Caption1>
+        <Caption1 className={mergeClasses(styles.head, styles.number)}>{PERSON_STATUS_WORDS.idle}</Caption1>
         {days.map((day) => (
           <div
             key={day.day}

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { PUNCH_WORDS } from '@baytime/shared';
+import { JOB_LINE_STATUS_WORDS, PRIORITY_WORDS, PUNCH_WORDS } from '@baytime/shared';
 import {
   CheckIcon,
   MeaningGlyph,
@@ -75,7 +75,7 @@ export function JobLineCard({
           {line.bayName && <span className="bt-line__bay">{line.bayName}</span>}
           {(line.priority === 'urgent' || line.priority === 'high') && (
             <span className={`bt-line__priority bt-line__priority--${line.priority}`}>
-              <MeaningGlyph name="priority" /> {line.priority === 'urgent' ? 'Urgent' : 'High'}
+              <MeaningGlyph name="priority" /> {PRIORITY_WORDS[line.priority]}
             </span>
           )}
           <span className="bt-line__state">
@@ -154,7 +154,7 @@ export function JobLineCard({
           )}
           {tools}
           <button type="button" className="bt-tool bt-tool--done" onClick={onDone}>
-            <CheckIcon /> Done
+            <CheckIcon /> {JOB_LINE_STATUS_WORDS.done}
           </button>
         </div>
       )}
