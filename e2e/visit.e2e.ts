@@ -131,9 +131,9 @@ describe('the whole visit, from intake to pick-up', () => {
     const history = await owner<RepairOrderHistoryEntry[]>('GET', `/repair-orders/${roId}/history`);
     expect(history.map((entry) => entry.text)).toEqual(
       expect.arrayContaining([
-        `L1 ${TITLE} moved to Bay 8`,
-        `L1 ${TITLE} assigned to Jo W.`,
-        `L1 ${TITLE} done: Fitted new pads and rotors, road tested`,
+        `Line 1 “${TITLE}” moved to Bay 8`,
+        `Line 1 “${TITLE}” assigned to Jo W.`,
+        `Line 1 “${TITLE}” done: Fitted new pads and rotors, road tested`,
         'Final check recorded in Bay 8',
         'Ready notice e-mailed to imogen@example.test',
         'Vehicle picked up: repair order closed',

@@ -91,3 +91,8 @@ export function skillWords(level: number): string {
 export function aboutWords(text: string): string {
   return `about ${text}`;
 }
+
+/** A job line by number and title, inside a sentence: line 2 “Replace brake pads”. */
+export function lineWithTitleWords(lineNo: number, title: string): string {
+  return `${lineWords(lineNo)} “${title}”`;
+}

@@ -33,3 +33,8 @@ export function punchWords(punch: { kind: PunchKind; breakKind?: BreakKind | nul
 export function inSentence(words: string): string {
   return words.charAt(0).toLowerCase() + words.slice(1);
 }
+
+/** A word set entry opening a sentence: "Line 2 “Brake pads” added". */
+export function atStart(words: string): string {
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}

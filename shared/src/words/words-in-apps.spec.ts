@@ -34,7 +34,7 @@ const OLD_VARIANTS: readonly [RegExp, string][] = [
   [/≈/, 'a forecast says "about" (aboutWords)'],
   [/\bTest mailbox\b/, 'the local mailbox is "Sent messages"'],
   [/\bFixed hold\b|\bhold finished\b/i, 'the fixed wait is a "Set time"'],
-  [/^L\d+\b|\sL\d+\b/, 'a line is "line 2" and a skill "skill 3" (lineWords, skillWords)'],
+  [/^L\d+\b|\sL\d+\b|^L$|\sL$/, 'a line is "line 2" and a skill "skill 3" (lineWords, skillWords)'],
   [/\bLevel \d\b|^Level $|^level $/, 'a skill is "skill 3" (skillWords)'],
 ];
 
@@ -72,7 +72,7 @@ function shownTexts(source: string): string[] {
     texts.push(single ?? double ?? '');
   for (const [, template] of code.matchAll(/`((?:[^`\\]|\\.)*)`/g))
     texts.push(...template!.split(/\$\{[^}]*\}/));
-  for (const [, text] of code.matchAll(/>([^<>{}=;()]+)</g)) texts.push(text!);
+  for (const [, text] of code.matchAll(/>([^<>{}=;()]+)[<{]/g)) texts.push(text!);
   return texts.map((text) => text.trim()).filter(Boolean);
 }
 

@@ -121,7 +121,9 @@ export function TechLane({
           <span>
             {load.lines} {load.lines === 1 ? 'line' : 'lines'} · {formatBookHours(load.bookHours)}
           </span>
-          {lane.finishAt && <span>Free {aboutWords(formatShopTime(lane.finishAt, nowMs, timeZone))}</span>}
+          {lane.finishAt && (
+            <span>Available {aboutWords(formatShopTime(lane.finishAt, nowMs, timeZone))}</span>
+          )}
           {late > 0 && <span className={styles.late}>{late} late</span>}
         </Caption1>
         {incoming && isOver && warning && (

@@ -1,5 +1,6 @@
 import { Badge, Body1, Caption1, makeStyles, tokens } from '@fluentui/react-components';
 import {
+  lineWords,
   FINDING_ANSWER_WORDS,
   FINDING_SEVERITY_LABELS,
   ANSWER_CHANNEL_WORDS,
@@ -47,7 +48,7 @@ export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZo
     <article className={styles.card} aria-label={`Finding on line ${finding.lineNo}`}>
       <div className={styles.head}>
         <Body1 className={styles.line}>
-          L{finding.lineNo} {finding.lineTitle}
+          {lineWords(finding.lineNo)} · {finding.lineTitle}
         </Body1>
         <Badge appearance="filled" color={severity.color}>
           {severity.label}

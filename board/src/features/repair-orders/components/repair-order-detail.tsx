@@ -44,7 +44,13 @@ import { EditRepairOrderDialog } from './edit-repair-order-dialog';
 import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
 import { sentToText } from '@/lib/notice-words';
-import { REPAIR_ORDER_STATUS_WORDS, aboutWords, skillWords } from '@baytime/shared';
+import {
+  JOB_LINE_STATUS_WORDS,
+  REPAIR_ORDER_STATUS_WORDS,
+  aboutWords,
+  lineWords,
+  skillWords,
+} from '@baytime/shared';
 import {
   formatBookHours,
   formatDateTime,
@@ -341,7 +347,7 @@ function Detail({
                     <TableRow key={line.id}>
                       <TableCell>
                         <span className={styles.lineTitle}>
-                          L{line.lineNo} {line.title}
+                          {lineWords(line.lineNo)} · {line.title}
                         </span>
                         <Caption1 className={styles.dim}> · {skillWords(line.skillLevel)}</Caption1>
                         <div className={styles.threeCs}>
@@ -385,7 +391,7 @@ function Detail({
                       </TableCell>
                       <TableCell className={styles.numeric}>
                         {line.completedAt ? (
-                          <>Done {formatDateTime(line.completedAt, timeZone)}</>
+                          <>{`${JOB_LINE_STATUS_WORDS.done} ${formatDateTime(line.completedAt, timeZone)}`}</>
                         ) : forecast ? (
                           <span className={line.late ? styles.late : undefined}>
                             {aboutWords(formatDateTime(forecast.finishAt, timeZone))}
@@ -426,7 +432,7 @@ function Detail({
                           <Button
                             size="small"
                             appearance="subtle"
-                            aria-label={`Move L${line.lineNo} up`}
+                            aria-label={`Move ${lineWords(line.lineNo)} up`}
                             disabled={index === 0 || reorder.isPending || ro.status === 'closed'}
                             onClick={() => moveLine(index, -1)}
                           >
@@ -435,7 +441,7 @@ function Detail({
                           <Button
                             size="small"
                             appearance="subtle"
-                            aria-label={`Move L${line.lineNo} down`}
+                            aria-label={`Move ${lineWords(line.lineNo)} down`}
                             disabled={
                               index === rows.length - 1 || reorder.isPending || ro.status === 'closed'
                             }

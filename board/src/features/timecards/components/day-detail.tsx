@@ -15,7 +15,7 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import type { TimecardPunch } from '@baytime/shared';
+import { PERSON_STATUS_WORDS, type TimecardPunch } from '@baytime/shared';
 import {
   BREAK_WORDS,
   PUNCH_WORDS,
@@ -167,7 +167,9 @@ export function DayDetail({
         <div className={styles.figures}>
           <span className={styles.figure}>Attendance {formatHours(totals.attendanceSeconds)}</span>
           <span className={styles.figure}>On jobs {formatHours(totals.clockedSeconds)}</span>
-          <span className={styles.figure}>Idle {formatHours(totals.idleSeconds)}</span>
+          <span
+            className={styles.figure}
+          >{`${PERSON_STATUS_WORDS.idle} ${formatHours(totals.idleSeconds)}`}</span>
           {totals.mealBreakSeconds > 0 && (
             <span className={styles.figure}>Meal breaks {formatHours(totals.mealBreakSeconds)}</span>
           )}
