@@ -1,5 +1,6 @@
 import { and, asc, eq, inArray, or } from 'drizzle-orm';
 import {
+  BAY_STATE_WORDS,
   lineWithTitleWords,
   atStart,
   HOLD_REASON_LABELS,
@@ -44,7 +45,7 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
       case 'lines-reordered':
         return 'Lines put in a new order';
       case 'final-check':
-        return `Final check recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
+        return `${BAY_STATE_WORDS.check} recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
       case 'ready-notice':
         return `Ready notice e-mailed to ${String(d.to)}`;
       case 'close':

@@ -6,6 +6,7 @@ import {
   formatCountdown,
   formatHours,
   formatShopInstant,
+  hoursFigure,
 } from './format.js';
 
 describe('formatShopInstant', () => {
@@ -48,6 +49,8 @@ describe('labour and countdowns', () => {
     expect(formatHours(3 * 3600)).toBe('3.0 h');
     expect(formatHours(-60)).toBe('0.0 h');
     expect(formatBookHours(1.5)).toBe('1.5 h');
+    expect(hoursFigure(1.86, 1)).toBe('1.9');
+    expect(hoursFigure(3, 1)).toBe('3.0');
   });
 
   it('counts down in minutes and seconds, rounding up', () => {

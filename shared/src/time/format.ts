@@ -6,10 +6,13 @@ import type { ClockFormat } from '../shop/shop.schema.js';
  * ("2:30 pm" or "14:30").
  */
 
-/** Decimal hours to the hundredth, one trailing zero dropped: "1.2", "8.08", "3.0". */
-export function hoursFigure(hours: number): string {
-  const fixed = Math.max(0, hours).toFixed(2);
-  return fixed.endsWith('0') ? fixed.slice(0, -1) : fixed;
+/**
+ * Decimal hours to the hundredth, one trailing zero dropped: "1.2", "8.08", "3.0"; to the tenth where
+ * room is short (the wall's tiles): "1.9".
+ */
+export function hoursFigure(hours: number, digits: 1 | 2 = 2): string {
+  const fixed = Math.max(0, hours).toFixed(digits);
+  return digits === 2 && fixed.endsWith('0') ? fixed.slice(0, -1) : fixed;
 }
 
 /** Labour, from hours: "1.5 h". */

@@ -11,7 +11,7 @@ export const BAY_STATE_WORDS: Readonly<Record<BayState, string>> = {
   working: 'Working',
   timer: 'Timer',
   held: 'Held',
-  check: 'Final check',
+  check: 'Final QC',
   ready: 'Ready',
 };
 

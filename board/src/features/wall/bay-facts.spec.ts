@@ -51,7 +51,7 @@ describe(bayFacts.name, () => {
       'Norden Kestrel',
       'RO 4821',
       'Brake pads',
-      '0.87 / 1.5 h',
+      '0.9 / 1.5 h',
     ]);
     expect(facts.find((fact) => fact.key === 'clocked')?.keep).toBe(true);
   });
@@ -60,7 +60,7 @@ describe(bayFacts.name, () => {
     const fact = bayFacts({ bay: bay({}), clockedSeconds: 6000, nowMs: now }).find(
       (f) => f.key === 'clocked',
     );
-    expect(fact).toMatchObject({ text: '1.67 h', tone: 'over' });
+    expect(fact).toMatchObject({ text: '1.7 h', tone: 'over' });
   });
 
   it('gives a held bay its reason and how long it has been held', () => {

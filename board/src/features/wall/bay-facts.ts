@@ -4,7 +4,6 @@ import {
   TIMER_STATE_WORDS,
   aboutWords,
   formatCountdown,
-  formatHours,
   hoursFigure,
   movingAwayWords,
   type BoardBay,
@@ -157,10 +156,10 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
   const clocked: BayFact | null =
     bay.bookSeconds > 0 || clockedSeconds > 0
       ? over
-        ? { key: 'clocked', text: formatHours(clockedSeconds), keep: true, tone: 'over' }
+        ? { key: 'clocked', text: `${hoursFigure(clockedSeconds / 3600, 1)} h`, keep: true, tone: 'over' }
         : {
             key: 'clocked',
-            text: `${hoursFigure(clockedSeconds / 3600)} / ${formatHours(bay.bookSeconds)}`,
+            text: `${hoursFigure(clockedSeconds / 3600, 1)} / ${hoursFigure(bay.bookSeconds / 3600, 1)} h`,
             keep: true,
           }
       : null;

@@ -45,6 +45,7 @@ import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs'
 import { RepairOrderPrint } from './repair-order-print';
 import { sentToText } from '@/lib/notice-words';
 import {
+  BAY_STATE_WORDS,
   JOB_LINE_STATUS_WORDS,
   REPAIR_ORDER_STATUS_WORDS,
   aboutWords,
@@ -580,7 +581,7 @@ function VisitActions({
     >
       {bay?.state === 'check' && (
         <Button disabled={finalCheck.isPending} onClick={() => finalCheck.mutate(bay.id)}>
-          Final check done: {bay.name} ready
+          {BAY_STATE_WORDS.check} done: {bay.name} ready
         </Button>
       )}
       {ro.status === 'done' && (

@@ -1,4 +1,4 @@
-import { BAY_PALETTE, formatHours, type BoardBay } from '@baytime/shared';
+import { BAY_PALETTE, formatHours, hoursFigure, type BoardBay } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { clockedSecondsAt } from '../board-store';
 import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
@@ -85,7 +85,9 @@ function FactLine({ line, bar }: { line: TileLine; bar: ReturnType<typeof clocke
         {fact.text}
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
-      {fact.tone === 'over' && bar && <span className={styles.overTag}>+{formatHours(bar.overSeconds)}</span>}
+      {fact.tone === 'over' && bar && (
+        <span className={styles.overTag}>+{hoursFigure(bar.overSeconds / 3600, 1)}</span>
+      )}
     </div>
   );
 }
