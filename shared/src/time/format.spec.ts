@@ -44,11 +44,11 @@ describe('clock times', () => {
 
 describe('labour and countdowns', () => {
   it('gives labour in decimal hours', () => {
-    expect(formatHours(4320)).toBe('1.2 h');
-    expect(formatHours(8 * 3600 + 5 * 60)).toBe('8.08 h');
-    expect(formatHours(3 * 3600)).toBe('3.0 h');
-    expect(formatHours(-60)).toBe('0.0 h');
-    expect(formatBookHours(1.5)).toBe('1.5 h');
+    expect(formatHours(4320)).toBe('1.2 h');
+    expect(formatHours(8 * 3600 + 5 * 60)).toBe('8.08 h');
+    expect(formatHours(3 * 3600)).toBe('3.0 h');
+    expect(formatHours(-60)).toBe('0.0 h');
+    expect(formatBookHours(1.5)).toBe('1.5 h');
     expect(hoursFigure(1.86, 1)).toBe('1.9');
     expect(hoursFigure(3, 1)).toBe('3.0');
   });

@@ -15,9 +15,9 @@ export function hoursFigure(hours: number, digits: 1 | 2 = 2): string {
   return digits === 2 && fixed.endsWith('0') ? fixed.slice(0, -1) : fixed;
 }
 
-/** Labour, from hours: "1.5 h". */
+/** Labour, from hours: "1.5 h", the unit kept on the figure's line. */
 export function formatBookHours(hours: number): string {
-  return `${hoursFigure(hours)} h`;
+  return `${hoursFigure(hours)}\u00a0h`;
 }
 
 /** Labour, from seconds: 4,320 s is "1.2 h". */

@@ -72,7 +72,7 @@ function shownTexts(source: string): string[] {
     texts.push(single ?? double ?? '');
   for (const [, template] of code.matchAll(/`((?:[^`\\]|\\.)*)`/g))
     texts.push(...template!.split(/\$\{[^}]*\}/));
-  for (const [, text] of code.matchAll(/>([^<>{}=;()]+)[<{]/g)) texts.push(text!);
+  for (const [, text] of code.matchAll(/[>}]([^<>{}=;()]+)[<{]/g)) texts.push(text!);
   return texts.map((text) => text.trim()).filter(Boolean);
 }
 

@@ -11,13 +11,13 @@ describe(formatDateTime.name, () => {
 
 describe(formatOverUnder.name, () => {
   it('says how far clocked time is from book', () => {
-    expect(formatOverUnder(5400 + 720, 1.5)).toBe('+0.2 h over');
-    expect(formatOverUnder(3600 - 1200, 1)).toBe('0.33 h under');
+    expect(formatOverUnder(5400 + 720, 1.5)).toBe('+0.2 h over');
+    expect(formatOverUnder(3600 - 1200, 1)).toBe('0.33 h under');
     expect(formatOverUnder(3630, 1)).toBe('on book');
   });
   it('says what is left on a line still open, and over as over', () => {
-    expect(formatOverUnder(3600 - 1200, 1, false)).toBe('0.33 h left');
-    expect(formatOverUnder(3600 + 1200, 1, false)).toBe('+0.33 h over');
+    expect(formatOverUnder(3600 - 1200, 1, false)).toBe('0.33 h left');
+    expect(formatOverUnder(3600 + 1200, 1, false)).toBe('+0.33 h over');
   });
 });
 

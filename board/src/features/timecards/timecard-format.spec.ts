@@ -11,7 +11,7 @@ import {
 
 describe('timecard formats', () => {
   it('writes durations as decimal hours', () => {
-    expect(formatHours(30_900)).toBe('8.58 h');
+    expect(formatHours(30_900)).toBe('8.58 h');
   });
 
   it('writes instants in the shop time zone, not the computer’s', () => {

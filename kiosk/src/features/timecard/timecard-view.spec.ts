@@ -208,8 +208,8 @@ describe(buildWeekView.name, () => {
     };
     const pay = { payableCents: 575_30 } as Timecard['summary']['pay'];
     expect(weekFigures(card({ summary: { labour, pay, closed: false, caution: 'An estimate' } }))).toEqual([
-      { label: 'Flagged', value: '49.1 h' },
-      { label: 'Clocked on jobs', value: '46.0 h' },
+      { label: 'Flagged', value: '49.1 h' },
+      { label: 'Clocked on jobs', value: '46.0 h' },
       { label: 'Efficiency', value: '107%' },
       { label: 'Estimated pay', value: '$575.30' },
     ]);

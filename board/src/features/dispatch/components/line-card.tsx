@@ -2,6 +2,7 @@ import { useEffect, useRef, type CSSProperties, type ReactNode } from 'react';
 import { useDraggable } from '@dnd-kit/core';
 import { Badge, Caption1, Spinner, Text, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
 import {
+  repairOrderLineWords,
   BAY_PALETTE,
   HOLD_REASON_LABELS,
   JOB_LINE_STATUS_WORDS,
@@ -187,9 +188,7 @@ export function LineCard({
       aria-label={`RO ${line.repairOrderNumber} line ${line.lineNo}: ${line.title}${late ? ', forecast late' : ''}`}
     >
       <div className={styles.top}>
-        <Caption1 className={styles.ro}>
-          RO {line.repairOrderNumber} · L{line.lineNo}
-        </Caption1>
+        <Caption1 className={styles.ro}>{repairOrderLineWords(line.repairOrderNumber, line.lineNo)}</Caption1>
         <Caption1 className={styles.vehicle}>{line.vehicle}</Caption1>
         {pending && <Spinner size="extra-tiny" aria-label="Saving" />}
         {late && (
