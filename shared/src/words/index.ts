@@ -3,3 +3,4 @@ export * from './timer-words.js';
 export * from './punch-words.js';
 export * from './finding-words.js';
 export * from './connection-words.js';
+export * from './office-words.js';
