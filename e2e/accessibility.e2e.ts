@@ -332,8 +332,8 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
 
     await line.getByRole('button', { name: 'Start timer' }).click();
     await checkSheet('timer kind sheet');
-    await sheet.getByRole('button', { name: /Fixed hold/ }).click();
-    await checkSheet('fixed hold sheet');
+    await sheet.getByRole('button', { name: /^Set time/ }).click();
+    await checkSheet('set time sheet');
     await sheet.getByRole('button', { name: 'Back' }).click();
     await sheet.getByRole('button', { name: /Warm-up to a temperature/ }).click();
     await checkSheet('timer safety sheet');
@@ -361,7 +361,7 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await leaveSheet();
     findings.push(...(await checkPage(page, 'kiosk my day with a timer', seen)));
     // A meal break with a timer running asks about the timer first.
-    await page.getByRole('button', { name: 'Start meal break' }).click();
+    await page.getByRole('button', { name: 'Break start · meal' }).click();
     await checkSheet('meal break with a running timer sheet');
     await leaveSheet();
     for (const stop of await stopsWithoutFocusRing(page))

@@ -54,7 +54,7 @@ describe('findings, approvals and e-mail', () => {
     // The office's live link is up (the dispatch page says so) before the finding is sent.
     await other
       .getByRole('status')
-      .filter({ hasText: /^Live$/ })
+      .filter({ hasText: /^Online$/ })
       .waitFor();
     await other.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
 

@@ -55,8 +55,8 @@ describe('kiosk through a Wi-Fi outage', () => {
     await kiosk.keyboard.type('4321');
     await kiosk.keyboard.press('Enter');
     const sheet = kiosk.getByRole('dialog', { name: /record a punch offline/ });
-    await sheet.getByRole('button', { name: 'Start shift' }).click();
-    await kiosk.getByText(/Start shift recorded offline for badge 1046/).waitFor();
+    await sheet.getByRole('button', { name: 'Shift start' }).click();
+    await kiosk.getByText(/Shift start recorded offline for badge 1046/).waitFor();
     const tappedTo = Date.now();
     await kiosk.getByText('1 punch waiting to be sent').waitFor();
     await kiosk.screenshot({ path: screenshotPath('kiosk-outage-recorded') });

@@ -44,7 +44,7 @@ describe('kiosk to wall board', () => {
 
     const kiosk = await browser.newPage();
     await signInAtKiosk(kiosk, server, '1045');
-    await kiosk.getByRole('button', { name: /Start shift/ }).click();
+    await kiosk.getByRole('button', { name: /Shift start/ }).click();
     await expect.poll(() => peopleStrip(wall).textContent(), { timeout: 10_000 }).toContain('Jo W.');
 
     const dispatch = await foreman<DispatchBoard>('GET', '/dispatch');
@@ -77,7 +77,7 @@ describe('kiosk to wall board', () => {
     await office.goto(`${server.url}/dispatch`);
     await office
       .getByRole('status')
-      .filter({ hasText: /^Live$/ })
+      .filter({ hasText: /^Online$/ })
       .waitFor();
     await office.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Bays' }).click();
     const bays = office.getByRole('table', { name: 'Bays' });

@@ -48,7 +48,7 @@ describe('Done without clocked time', () => {
     await kiosk.locator('article', { hasText: line.title }).getByRole('button', { name: 'Done' }).click();
     await kiosk
       .getByRole('dialog')
-      .getByRole('button', { name: /Final check next/ })
+      .getByRole('button', { name: /Final QC next/ })
       .click();
     await kiosk.getByRole('dialog').waitFor({ state: 'detached' });
     expect(await flagged(day.technician.id)).toBeCloseTo(before, 4);

@@ -87,11 +87,11 @@ describe('the whole visit, from intake to pick-up', () => {
     await jo.getByLabel('Cause: what you found').fill('Pads worn to the backing plate, rotors scored');
     await jo.getByLabel('Correction: what you did').fill('Fitted new pads and rotors, road tested');
     await jo.screenshot({ path: screenshotPath('visit-kiosk-done') });
-    await jo.getByRole('button', { name: /Final check next/ }).click();
+    await jo.getByRole('button', { name: /Final QC next/ }).click();
     await bayShows(/check/i);
 
     // The final check, on the kiosk.
-    await jo.getByRole('button', { name: /Final check done: Bay 8/ }).click();
+    await jo.getByRole('button', { name: /Final QC done: Bay 8/ }).click();
     await bayShows(/ready/i);
     await wall.screenshot({ path: screenshotPath('visit-wall-ready') });
 
@@ -131,10 +131,10 @@ describe('the whole visit, from intake to pick-up', () => {
     const history = await owner<RepairOrderHistoryEntry[]>('GET', `/repair-orders/${roId}/history`);
     expect(history.map((entry) => entry.text)).toEqual(
       expect.arrayContaining([
-        `L1 ${TITLE} moved to Bay 8`,
-        `L1 ${TITLE} assigned to Jo W.`,
-        `L1 ${TITLE} done: Fitted new pads and rotors, road tested`,
-        'Final check recorded in Bay 8',
+        `Line 1 “${TITLE}” moved to Bay 8`,
+        `Line 1 “${TITLE}” assigned to Jo W.`,
+        `Line 1 “${TITLE}” done: Fitted new pads and rotors, road tested`,
+        'Final QC recorded in Bay 8',
         'Ready notice e-mailed to imogen@example.test',
         'Vehicle picked up: repair order closed',
       ]),

@@ -81,7 +81,7 @@ describe('wall board', () => {
     await page.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
 
     await server.kill('SIGKILL');
-    await page.getByText(/link lost since/i).waitFor({ timeout: 20_000 });
+    await page.getByText(/offline since/i).waitFor({ timeout: 20_000 });
     await page.screenshot({ path: screenshotPath('wall-link-lost') });
     await server.restart();
 
@@ -95,7 +95,7 @@ describe('wall board', () => {
       await expect
         .poll(() => bayTile(page, bay.name).textContent(), { timeout: 5000 })
         .toMatch(new RegExp(bay.state, 'i'));
-    await expect.poll(() => page.getByText(/link lost since/i).count()).toBe(0);
+    await expect.poll(() => page.getByText(/offline since/i).count()).toBe(0);
     expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
       true,
     );

@@ -43,3 +43,4 @@ export * from './time/format.js';
 export * from './look/brand.js';
 export * from './look/signal-palette.js';
 export * from './look/meaning-icons.js';
+export * from './words/index.js';

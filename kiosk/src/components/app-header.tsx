@@ -1,6 +1,7 @@
 import { lazy, Suspense, type ReactNode } from 'react';
+import { CONNECTION_WORDS } from '@baytime/shared';
 import type { LinkState } from '@/lib/socket';
-import { clockTime, dayPeriod, shortDate } from '@/lib/format';
+import { clockFace, shortDate } from '@/lib/format';
 import { useNow } from '@/hooks/use-now';
 import { CloudOffIcon } from './icons';
 import { BaytimeMark } from './baytime-mark';
@@ -19,12 +20,6 @@ export interface AppHeaderProps {
   nav?: ReactNode;
 }
 
-const CONNECTION_WORDS: Record<LinkState, string> = {
-  online: 'Online',
-  offline: 'Offline',
-  connecting: 'Connecting…',
-};
-
 export function AppHeader({
   shopName,
   timeZone,
@@ -34,6 +29,7 @@ export function AppHeader({
   nav,
 }: AppHeaderProps) {
   const now = useNow(1000);
+  const face = timeZone ? clockFace(now, timeZone) : null;
   return (
     <header className={`bt-header${nav ? ' bt-header--nav' : ''}`}>
       <div className="bt-header__shop">
@@ -41,10 +37,10 @@ export function AppHeader({
         {nav ?? <span className="bt-header__shop-name">{shopName}</span>}
       </div>
       {/* Shop time only: a tablet not yet paired does not know the shop's zone, and shows no clock. */}
-      {timeZone ? (
+      {face && timeZone ? (
         <div className="bt-header__clock" aria-label="Time">
-          <span className="bt-header__time">{clockTime(now, timeZone)}</span>
-          <span className="bt-header__period">{dayPeriod(now, timeZone)}</span>
+          <span className="bt-header__time">{face.time}</span>
+          {face.period && <span className="bt-header__period">{face.period}</span>}
           <span className="bt-header__date">{shortDate(now, timeZone)}</span>
         </div>
       ) : (

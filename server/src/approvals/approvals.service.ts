@@ -9,7 +9,7 @@ import {
 } from '@nestjs/common';
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import {
-  FINDING_SEVERITY_WORDS,
+  FINDING_SEVERITY_FOR_CUSTOMERS,
   findingPrice,
   type ApprovalLinkDto,
   type ApprovalRequested,
@@ -221,7 +221,7 @@ export class ApprovalsService {
       id: item.findingId,
       wording: item.wording,
       severity: item.severity,
-      severityWords: FINDING_SEVERITY_WORDS[item.severity],
+      severityWords: FINDING_SEVERITY_FOR_CUSTOMERS[item.severity],
       bookHours: item.bookHours,
       ...priceOf(item),
       photos: photos

@@ -6,7 +6,14 @@ import {
   Injectable,
 } from '@nestjs/common';
 import { and, asc, eq, ne, or } from 'drizzle-orm';
-import type { BayDto, BayOrderBody, CreateBayBody, FinalCheckBody, UpdateBayBody } from '@baytime/shared';
+import {
+  BAY_STATE_WORDS,
+  type BayDto,
+  type BayOrderBody,
+  type CreateBayBody,
+  type FinalCheckBody,
+  type UpdateBayBody,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail } from '../common/not-found.js';
@@ -113,7 +120,7 @@ export class BaysService {
   finalCheck(id: number, body: FinalCheckBody, actor: Principal, now = new Date()): BayDto {
     const bay = this.find(id);
     if (bay.phase !== 'check' || bay.repairOrderId === null)
-      throw new ConflictException(`${bay.name} is not waiting for a final check`);
+      throw new ConflictException(`${bay.name} is not waiting for its ${BAY_STATE_WORDS.check}`);
     if (actor.role === 'technician' && !this.workedOn(bay.repairOrderId, actor.id))
       throw new ForbiddenException('You did not work on that vehicle: ask the foreman');
     const row = this.db

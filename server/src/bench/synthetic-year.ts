@@ -436,7 +436,7 @@ class ShopWriter {
     this.row('timers', {
       bay_id: this.bayIds[0]!,
       job_line_id: onShift[0]!.jobLineId,
-      kind: 'hold',
+      kind: 'set-time',
       duration_seconds: 30 * 60,
       label: 'Sealant cure',
       started_at: ago(8),

@@ -28,7 +28,7 @@ describe(referencedOrFail.name, () => {
 
   it('answers 400 for an id in a body that names nothing, and changes nothing', async () => {
     const before = tableDigests(sut.app);
-    const hold = { kind: 'hold', durationSeconds: 600 };
+    const hold = { kind: 'set-time', durationSeconds: 600 };
     const refusals: [string, Promise<{ status: number; body: { message: string } }>][] = [
       // A foreign-key error used to answer 500 here.
       [

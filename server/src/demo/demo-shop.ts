@@ -391,7 +391,7 @@ export class DemoShopSeeder {
       .values({
         bayId: bay(4),
         jobLineId: cured.lineIds[0]!,
-        kind: 'hold',
+        kind: 'set-time',
         durationSeconds: 30 * 60,
         label: 'Sealant cure',
         startedAt: ago(8),

@@ -2,6 +2,9 @@ import { ConflictException, Inject, Injectable, Logger, type StreamableFile } fr
 import { and, asc, count, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import {
+  inSentence,
+  JOB_LINE_STATUS_WORDS,
+  FINDING_ANSWER_WORDS,
   findingPrice,
   normalisePhone,
   type ApprovalLinkDto,
@@ -362,7 +365,8 @@ export class FindingsService {
     const finding = foundOrFail(this.db.select().from(findings).where(eq(findings.id, id)).get(), 'Finding');
     if (finding.answer === 'pending')
       throw new ConflictException('That finding has no answer yet: answer it');
-    if (finding.answer === body.answer) throw new ConflictException(`That finding is already ${body.answer}`);
+    if (finding.answer === body.answer)
+      throw new ConflictException(`That finding is already ${inSentence(FINDING_ANSWER_WORDS[body.answer])}`);
     const line = this.db.select().from(jobLines).where(eq(jobLines.id, finding.jobLineId)).get()!;
     let createdLine: JobLineDto | null = null;
     if (body.answer === 'declined' && finding.createdLineId !== null) {
@@ -447,7 +451,9 @@ export class FindingsService {
       line.status !== 'working' &&
       line.status !== 'held'
     )
-      throw new ConflictException(`That line is already ${line.status}: it cannot be held for approval`);
+      throw new ConflictException(
+        `That line is already ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}: it cannot be held for approval`,
+      );
     return line;
   }
 

@@ -1,7 +1,8 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq } from 'drizzle-orm';
 import {
-  FINDING_SEVERITY_WORDS,
+  FINDING_SEVERITY_LABELS,
+  lineWords,
   formatCents,
   formatPhone,
   formatShopInstant,
@@ -83,7 +84,7 @@ export class NoticesService {
   approvalRequest(notice: ApprovalRequestNotice): NoticesQueued {
     const settings = this.shop.settings();
     const shop = settings.name;
-    const until = formatShopInstant(notice.expiresAt, settings.timeZone);
+    const until = formatShopInstant(notice.expiresAt, settings.timeZone, settings.clockFormat);
     const callUs = settings.phone ? ` Questions? Call us at ${formatPhone(settings.phone)}.` : '';
     const many = notice.items.length > 1;
     const mail =
@@ -229,10 +230,10 @@ export class NoticesService {
       `Hello ${advisor!.name},`,
       '',
       `${technicianName} found something on RO ${ro.number}, ${describeVehicle(vehicle)}, ` +
-        `line ${line.lineNo} "${line.title}".`,
+        `${lineWords(line.lineNo)} "${line.title}".`,
       '',
       `What was found: ${finding.note}`,
-      `How urgent: ${FINDING_SEVERITY_WORDS[finding.severity]}.`,
+      `How urgent: ${FINDING_SEVERITY_LABELS[finding.severity]}.`,
       ...(finding.suggestedHours !== null ? [`Suggested hours: ${hours(finding.suggestedHours)}.`] : []),
       `Photos: ${previews.length ? `${previews.length} attached (small copies)` : 'none'}.`,
       ...(line.status === 'held' && line.holdReason === 'approval'
@@ -245,7 +246,7 @@ export class NoticesService {
     ].join('\n');
     return this.queueMail({
       to,
-      subject: `${shop}: new finding on RO ${ro.number} (${finding.severity})`,
+      subject: `${shop}: new finding on RO ${ro.number} (${FINDING_SEVERITY_LABELS[finding.severity]})`,
       text,
       attachments: previews,
     });

@@ -184,7 +184,7 @@ describe(FloorService.name, () => {
           if (!line || !bay) return;
           app.app
             .get(TimersService)
-            .start({ jobLineId: line.id, bayId: bay.id, kind: 'hold', durationSeconds: 600 }, owner, now);
+            .start({ jobLineId: line.id, bayId: bay.id, kind: 'set-time', durationSeconds: 600 }, owner, now);
           return;
         }
         case 'stop-timer': {

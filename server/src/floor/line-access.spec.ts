@@ -60,7 +60,7 @@ describe(LineAccessService.name, () => {
     const held = (await as(foreman).get('/api/board').expect(200)).body as BoardSnapshot;
     const priyasHeld = held.bays.find((bay) => bay.state === 'held')!.jobLine!;
     const marcusCure = held.bays.find(
-      (bay) => bay.timer?.kind === 'hold' && bay.timer.id !== timer.id,
+      (bay) => bay.timer?.kind === 'set-time' && bay.timer.id !== timer.id,
     )!.timer!;
 
     const before = tableDigests(sut.app);
@@ -78,7 +78,7 @@ describe(LineAccessService.name, () => {
         () =>
           as(sam.accessToken).post('/api/timers', {
             jobLineId: priyasHeld.id,
-            kind: 'hold',
+            kind: 'set-time',
             durationSeconds: 600,
           }),
       ],
@@ -123,7 +123,7 @@ describe(LineAccessService.name, () => {
     // Off the line again, the helper is refused once more; the owner may still stop a timer.
     const next = (
       await as(luis.accessToken)
-        .post('/api/timers', { jobLineId: luiss.id, kind: 'hold', durationSeconds: 60 })
+        .post('/api/timers', { jobLineId: luiss.id, kind: 'set-time', durationSeconds: 60 })
         .expect(201)
     ).body as TimerDto;
     await as(sam.accessToken).post(`/api/timers/${next.id}/stop`).expect(403);

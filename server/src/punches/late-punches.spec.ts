@@ -57,7 +57,7 @@ describe(`${PunchesService.name}: late punches`, () => {
   it('refuses an office punch that would displace counted ones, naming them', async () => {
     const refused = await punch({ kind: 'shift-out', at: ago(2), technicianId: max }, foreman).expect(409);
     expect(refused.body.message).toMatch(
-      /^That punch would leave the clock-off at \w{3} \d{1,2}:\d{2} [AP]M \(RO T901 · Replace brake hoses\) not counted: ask the foreman to correct the timecard$/,
+      /^That punch would leave the clock off at \w{3}, \w{3} \d{1,2}, \d{1,2}:\d{2} [ap]m \(RO T901 · Replace brake hoses\) not counted: ask the foreman to correct the timecard$/,
     );
   });
 
@@ -152,12 +152,12 @@ describe(`${PunchesService.name}: late punches`, () => {
     ).body as CorrectionPreview;
     expect(preview.refusal).toBeNull();
     expect(preview.displaces.map((p) => p.id)).toEqual([jobOn.id, jobOff.id]);
-    expect(preview.displaces[0]!.words).toMatch(/^the clock-on at .* \(RO T902 · Replace fuel filter\)$/);
+    expect(preview.displaces[0]!.words).toMatch(/^the clock on at .* \(RO T902 · Replace fuel filter\)$/);
     expect((await card(noa)).punches).toHaveLength(4);
 
     const unconfirmed = await history.as(foreman).post('/api/timecards/corrections', correction).expect(409);
     expect(unconfirmed.body.message).toMatch(
-      /^That correction would leave the clock-on .* check them in the preview and confirm$/,
+      /^That correction would leave the clock on .* check them in the preview and confirm$/,
     );
     await history
       .as(foreman)

@@ -1,9 +1,14 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
-import { TZDate } from '@date-fns/tz';
-import { format } from 'date-fns';
-import type { DisplacedPunch, LedgerPunch, PunchDto, PunchKind } from '@baytime/shared';
+import {
+  PUNCH_WORDS,
+  formatDayClockTime,
+  inSentence,
+  type DisplacedPunch,
+  type LedgerPunch,
+  type PunchDto,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
@@ -15,15 +20,6 @@ import { ShopService } from '../shop/shop.service.js';
 
 /** Punches read around a late or corrected one: a shift open across it began at most this long before. */
 const CONTEXT_MS = 36 * 3600_000;
-
-const KIND_WORDS: Record<PunchKind, string> = {
-  'shift-in': 'shift start',
-  'shift-out': 'shift end',
-  'break-start': 'break start',
-  'break-end': 'break end',
-  'job-on': 'clock-on',
-  'job-off': 'clock-off',
-};
 
 /** Writes punches and names them in plain words; shared by the kiosk's punches and the foreman's corrections. */
 @Injectable()
@@ -57,7 +53,7 @@ export class PunchLedgerService {
       .map(toPunchDto);
   }
 
-  /** "the clock-on at Tue 3:10 PM (RO 4410 · Replace water pump)", for each punch. */
+  /** "the clock on at Tue, Dec 1, 3:10 pm (RO 4410 · Replace water pump)", for each punch. */
   describe(list: readonly LedgerPunch[]): DisplacedPunch[] {
     const { timeZone } = this.shop.settings();
     const lineIds = [...new Set(list.map((p) => p.jobLineId).filter((id) => id !== null))];
@@ -74,17 +70,17 @@ export class PunchLedgerService {
     );
     return list.map((punch) => {
       const line = punch.jobLineId === null ? undefined : lines.get(punch.jobLineId);
-      const when = format(new TZDate(new Date(punch.at), timeZone), 'EEE h:mm a');
+      const when = formatDayClockTime(punch.at, timeZone, this.shop.settings().clockFormat);
       return {
         id: punch.id,
         kind: punch.kind,
         at: punch.at,
-        words: `the ${KIND_WORDS[punch.kind]} at ${when}${line ? ` (${line})` : ''}`,
+        words: `the ${inSentence(PUNCH_WORDS[punch.kind])} at ${when}${line ? ` (${line})` : ''}`,
       };
     });
   }
 
-  /** "the clock-on at Tue 3:10 PM (…) and the shift end at Tue 5:00 PM". */
+  /** "the clock on at Tue, Dec 1, 3:10 pm (…) and the shift end at Tue, Dec 1, 5:00 pm". */
   listInWords(list: readonly LedgerPunch[]): string {
     const words = this.describe(list).map((punch) => punch.words);
     return words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words.at(-1)}` : (words[0] ?? '');

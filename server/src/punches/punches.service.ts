@@ -8,6 +8,8 @@ import {
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import {
+  inSentence,
+  JOB_LINE_STATUS_WORDS,
   isOpenLine,
   LATE_PUNCH_SECONDS,
   MAX_PUNCH_AGE_SECONDS,
@@ -128,7 +130,7 @@ export class PunchesService {
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
     if (line) this.assertMayPunchOn(line, body.kind, actor, now);
     if (body.kind === 'job-on' && line && !isOpenLine(line))
-      throw new ConflictException(`That job line is ${line.status}`);
+      throw new ConflictException(`That job line is ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
 
     const candidate: LedgerPunch = {
       id: body.id,
@@ -232,7 +234,7 @@ export class PunchesService {
       .map(toHeldPunchDto);
   }
 
-  /** "That punch would leave the clock-on at … not counted: ask the foreman to correct the timecard". */
+  /** "That punch would leave the clock on at … not counted: ask the foreman to correct the timecard". */
   displacementWords(what: string, impact: PunchImpact): string {
     if (impact.displaced.length > 0)
       return `${what} would leave ${this.ledger.listInWords(impact.displaced)} not counted: ask the foreman to correct the timecard`;

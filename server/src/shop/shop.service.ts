@@ -29,6 +29,7 @@ export const DEFAULT_SHOP: ShopSettings = {
   workweekStartDay: 0,
   workweekStartHour: 0,
   units: 'us',
+  clockFormat: '12h',
   maxConcurrentJobs: 1,
   concurrentSplit: 'even',
   minimumWageCents: FEDERAL_MINIMUM_WAGE_CENTS,

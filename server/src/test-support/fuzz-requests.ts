@@ -358,6 +358,7 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
       workweekStartDay: fc.integer({ min: 0, max: 6 }),
       workweekStartHour: fc.integer({ min: 0, max: 23 }),
       units: fc.constantFrom('metric', 'us'),
+      clockFormat: fc.constantFrom('12h', '24h'),
       maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
       concurrentSplit: fc.constantFrom('even', 'full'),
       minimumWageCents: fc.integer({ min: 725, max: 10_000 }),
@@ -585,13 +586,13 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/pay-weeks/:week/close': { id: 'payWeek', body: fc.constant({}) },
   'post /api/pay-weeks/:week/reopen': { id: 'payWeek', body: body({ reason }, ['reason']) },
   'post /api/timers': {
-    // Shaped like the kiosk's two forms, a fixed hold and a temperature timer, and then anything.
+    // Shaped like the kiosk's two forms, a set time and a temperature timer, and then anything.
     body: fc.oneof(
       body(
         {
           jobLineId: ref('jobLine'),
           bayId: ref('bay'),
-          kind: fc.constant('hold'),
+          kind: fc.constant('set-time'),
           durationSeconds: fc.integer({ min: 10, max: 48 * 3600 }),
           label: text(60, ['Vacuum hold']),
         },

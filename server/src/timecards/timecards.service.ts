@@ -12,6 +12,8 @@ import {
   punchImpact,
   shopDayKey,
   workweekBounds,
+  PUNCH_WORDS,
+  inSentence,
   workweekDays,
   workweekName,
   workweekOf,
@@ -114,10 +116,12 @@ export class TimecardsService {
     const openShift = ledger.shifts.find((s) => s.open);
     if (openShift && shopDayKey(openShift.from, settings.timeZone) !== shopDayKey(until, settings.timeZone))
       flags.push(
-        `Still on shift from ${shopDayKey(openShift.from, settings.timeZone)}: a shift-out may be missing`,
+        `Still on shift from ${shopDayKey(openShift.from, settings.timeZone)}: a ${inSentence(PUNCH_WORDS['shift-out'])} may be missing`,
       );
     if (ledger.breaks.some((b) => b.open && until.getTime() - b.from.getTime() > 2 * 3600_000))
-      flags.push('On a break for more than 2 hours: a break-end may be missing');
+      flags.push(
+        `On a break for more than 2 hours: a ${inSentence(PUNCH_WORDS['break-end'])} may be missing`,
+      );
     // Punches read from before the week only give context; their anomalies belong to an earlier card.
     const weekIds = new Set(all.filter((p) => new Date(p.at) >= from).map((p) => p.id));
     const anomalies = ledger.anomalies.filter((a) => weekIds.has(a.punchId));

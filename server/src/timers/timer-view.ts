@@ -6,7 +6,7 @@ type ReadingRow = Pick<typeof timerReadings.$inferSelect, 'at' | 'tempC'>;
 
 /** Everything a screen shows of a timer is computed from its stored start, target and readings. */
 export function timerEstimate(timer: TimerRow, readings: ReadingRow[], now: Date): TimerEstimateDto {
-  if (timer.kind === 'hold') {
+  if (timer.kind === 'set-time') {
     const hold = holdTimer(timer.startedAt, timer.durationSeconds ?? 0, now);
     return {
       status: hold.done ? 'done' : 'running',
@@ -67,6 +67,6 @@ export function toTimerDto(
 
 /** Has a reading reached the target, in the timer's direction? */
 export function reachesTarget(timer: Pick<TimerRow, 'kind' | 'targetC'>, tempC: number): boolean {
-  if (timer.targetC === null || timer.kind === 'hold') return false;
+  if (timer.targetC === null || timer.kind === 'set-time') return false;
   return timer.kind === 'warm-up' ? tempC >= timer.targetC : tempC <= timer.targetC;
 }

@@ -2,6 +2,8 @@ import { BadRequestException, ConflictException, Inject, Injectable, Logger } fr
 import { Interval } from '@nestjs/schedule';
 import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
 import {
+  inSentence,
+  JOB_LINE_STATUS_WORDS,
   isOpenLine,
   type HoldPresetBody,
   type HoldPresetDto,
@@ -36,7 +38,7 @@ export class TimersService {
     private readonly access: LineAccessService,
   ) {}
 
-  /** Fixed holds end on their own: a tick marks them reached so screens and kiosks hear it. */
+  /** Set times end on their own: a tick marks them reached so screens and kiosks hear it. */
   @Interval(TICK_MS)
   endFixedWaits(): void {
     keepServing(this.logger, 'Ending fixed waits', () => this.markEndedHolds());
@@ -90,7 +92,8 @@ export class TimersService {
     );
     this.access.assertMayWork(line, actor, now);
     if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
-    if (!isOpenLine(line)) throw new ConflictException(`That line is ${line.status}`);
+    if (!isOpenLine(line))
+      throw new ConflictException(`That line is ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     const busy = this.db
       .select()
       .from(timers)
@@ -103,9 +106,9 @@ export class TimersService {
         jobLineId: line.id,
         bayId: body.bayId ?? line.bayId,
         kind: body.kind,
-        targetC: body.kind === 'hold' ? null : (body.targetC ?? null),
-        ambientC: body.kind === 'hold' ? null : (body.ambientC ?? null),
-        durationSeconds: body.kind === 'hold' ? (body.durationSeconds ?? null) : null,
+        targetC: body.kind === 'set-time' ? null : (body.targetC ?? null),
+        ambientC: body.kind === 'set-time' ? null : (body.ambientC ?? null),
+        durationSeconds: body.kind === 'set-time' ? (body.durationSeconds ?? null) : null,
         label: body.label ?? null,
         startedAt: now,
         startedBy: actor.id,
@@ -126,7 +129,7 @@ export class TimersService {
   addReading(id: number, body: TimerReadingBody, actor: Principal, now = new Date()): TimerDto {
     const timer = this.findForActor(id, actor, now);
     if (timer.endedAt) throw new ConflictException('That timer was stopped');
-    if (timer.kind === 'hold') throw new BadRequestException('A fixed hold takes no readings');
+    if (timer.kind === 'set-time') throw new BadRequestException('A set time takes no readings');
     const at = body.at ? new Date(body.at) : now;
     if (at > new Date(now.getTime() + 60_000))
       throw new BadRequestException('A reading cannot be in the future');
@@ -180,7 +183,7 @@ export class TimersService {
       .from(timers)
       .where(
         and(
-          eq(timers.kind, 'hold'),
+          eq(timers.kind, 'set-time'),
           isNull(timers.endedAt),
           isNull(timers.reachedAt),
           lte(timers.startedAt, now),

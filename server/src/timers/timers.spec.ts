@@ -117,7 +117,7 @@ describe(TimersService.name, () => {
     });
   });
 
-  describe('fixed holds, on the app’s own ticker', () => {
+  describe('set times, on the app’s own ticker', () => {
     const SECOND = 1000;
     // Fake setInterval and Date before the app starts, so its ticker runs on a clock the test moves;
     // HTTP and sockets keep real timers. A whole second, so the ticks fall on whole seconds.
@@ -153,7 +153,7 @@ describe(TimersService.name, () => {
           .http()
           .post('/api/timers')
           .auth(jo.accessToken, { type: 'bearer' })
-          .send({ jobLineId: line.id, kind: 'hold', durationSeconds: 10, label: 'Vacuum hold' })
+          .send({ jobLineId: line.id, kind: 'set-time', durationSeconds: 10, label: 'Vacuum hold' })
           .expect(201)
       ).body as TimerDto;
       expect(timer).toMatchObject({ startedAt: new Date(start + 400).toISOString(), reachedAt: null });
@@ -162,7 +162,7 @@ describe(TimersService.name, () => {
         .http()
         .post('/api/timers')
         .auth(jo.accessToken, { type: 'bearer' })
-        .send({ jobLineId: line.id, kind: 'hold', durationSeconds: 60 })
+        .send({ jobLineId: line.id, kind: 'set-time', durationSeconds: 60 })
         .expect(409);
       // The start is announced too: wait for it, then count only what the ticker says.
       while (!heard.some((event) => event.timerId === timer.id)) await new Promise((r) => setTimeout(r, 20));

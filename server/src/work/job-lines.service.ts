@@ -1,6 +1,8 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, eq, isNull, ne, or } from 'drizzle-orm';
 import {
+  inSentence,
+  JOB_LINE_STATUS_WORDS,
   isOpenLine,
   type CancelJobLineBody,
   type EditJobLineBody,
@@ -113,7 +115,8 @@ export class JobLinesService {
   @Transactional()
   hold(id: number, { reason, part }: HoldLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.findForActor(id, actor, now);
-    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
+    if (!isOpenLine(line))
+      throw new ConflictException(`That line is already ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
     if (reason === 'parts') this.parts.noteHold(id, part, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
@@ -234,7 +237,8 @@ export class JobLinesService {
   @Transactional()
   cancel(id: number, { reason }: CancelJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
-    if (!isOpenLine(line)) throw new ConflictException(`That line is already ${line.status}`);
+    if (!isOpenLine(line))
+      throw new ConflictException(`That line is already ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     this.punches.clockOffLine(id, actor, `Line cancelled: ${reason}`, now);
     const stopped = this.db
       .update(timers)

@@ -224,9 +224,9 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
     const texts = (await history(written.id)).map((entry) => `${entry.actorName}: ${entry.text}`);
     expect(texts).toEqual([
       'Nell Ashby: Repair order written',
-      'Theo Varga: L1 Replace brake pads assigned to Jo W.',
-      'Theo Varga: L1 Replace brake pads reassigned from Jo W. to Luis B.',
-      'Luis Brennan: L1 Replace brake pads done: Fitted new pads',
+      'Theo Varga: Line 1 “Replace brake pads” assigned to Jo W.',
+      'Theo Varga: Line 1 “Replace brake pads” reassigned from Jo W. to Luis B.',
+      'Luis Brennan: Line 1 “Replace brake pads” done: Fitted new pads',
       'Nell Ashby: Ready notice e-mailed to orla@example.test',
     ]);
     const done = (await ro(written.id)).lines[0]!;

@@ -1,9 +1,15 @@
 import { and, asc, eq, inArray, or } from 'drizzle-orm';
 import {
+  BAY_STATE_WORDS,
+  lineWithTitleWords,
+  atStart,
   HOLD_REASON_LABELS,
   shortName,
   type HoldReason,
   type RepairOrderHistoryEntry,
+  PRIORITY_WORDS,
+  inSentence,
+  type Priority,
 } from '@baytime/shared';
 import type { Db } from '../db/database.js';
 import { auditLog, bays, findings, jobLines, users } from '../db/schema/index.js';
@@ -33,13 +39,13 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
       case 'edit':
         return `Details changed: ${Object.keys((d.changes as object) ?? {}).join(', ')}`;
       case 'line-added':
-        return `L${String(d.lineNo)} ${String(d.title)} added (${hours(d.bookHours)})`;
+        return `${atStart(lineWithTitleWords(Number(d.lineNo), String(d.title)))} added (${hours(d.bookHours)})`;
       case 'line-removed':
-        return `L${String(d.lineNo)} ${String(d.title)} removed`;
+        return `${atStart(lineWithTitleWords(Number(d.lineNo), String(d.title)))} removed`;
       case 'lines-reordered':
         return 'Lines put in a new order';
       case 'final-check':
-        return `Final check recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
+        return `${BAY_STATE_WORDS.check} recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
       case 'ready-notice':
         return `Ready notice e-mailed to ${String(d.to)}`;
       case 'close':
@@ -55,7 +61,7 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
     }
   }
   if (entity === 'job-line') {
-    const line = names.line(entityId);
+    const line = atStart(names.line(entityId));
     switch (action) {
       case 'update': {
         const was = (d.was ?? {}) as { technicianId?: number | null; bayId?: number | null };
@@ -72,7 +78,7 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
           parts.push(d.bayId === null ? 'taken out of its bay' : `moved to ${names.bay(d.bayId)}`);
         if (d.status === 'done' || d.completedAt) parts.push('marked done');
         if (d.status === 'held') parts.push(`held: ${HOLD_REASON_LABELS[d.holdReason as HoldReason]}`);
-        if (d.priority) parts.push(`priority ${String(d.priority)}`);
+        if (d.priority) parts.push(`priority ${inSentence(PRIORITY_WORDS[d.priority as Priority])}`);
         return parts.length ? `${line} ${parts.join(', ')}` : null;
       }
       case 'done':
@@ -152,7 +158,9 @@ export function repairOrderHistory(db: Db, repairOrderId: number): RepairOrderHi
       .all()
       .map((b) => [b.id, b.name]),
   );
-  const lineNames = new Map(lines.map((line) => [String(line.id), `L${line.lineNo} ${line.title}`]));
+  const lineNames = new Map(
+    lines.map((line) => [String(line.id), lineWithTitleWords(line.lineNo, line.title)]),
+  );
   const findingLines = new Map(
     found.map((f) => [String(f.id), lineNames.get(String(f.jobLineId)) ?? 'a line']),
   );

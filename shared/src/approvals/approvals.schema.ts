@@ -6,13 +6,6 @@ import type { FindingSeverity, MailQueued } from '../findings/findings.schema.js
 /** How a customer's answer reached the shop: through the approval link, by phone, or in person. */
 export const ANSWER_CHANNELS = ['link', 'phone', 'in-person'] as const;
 export type AnswerChannel = (typeof ANSWER_CHANNELS)[number];
-/** How an answer came, in words: "Approved by Ada Finch through the approval link". */
-export const ANSWER_CHANNEL_WORDS: Record<AnswerChannel, string> = {
-  link: 'through the approval link',
-  phone: 'by phone',
-  'in-person': 'in person',
-};
-
 /** The ways the office records an answer itself; `link` answers come from the customer's page. */
 export const OFFICE_ANSWER_CHANNELS = ['phone', 'in-person'] as const;
 export type OfficeAnswerChannel = (typeof OFFICE_ANSWER_CHANNELS)[number];

@@ -4,13 +4,12 @@ import { TIMER_KINDS } from '../timers/timers.schema.js';
 import {
   BAY_PALETTE,
   BAY_STATE_ICONS,
-  HOLD_REASON_LABELS,
-  TIMER_KIND_LABELS,
   WALL_BACKGROUND,
   WALL_SURFACE,
   contrastRatio,
   relativeLuminance,
 } from './bay-palette.js';
+import { HOLD_REASON_LABELS, TIMER_KIND_LABELS } from '../words/floor-words.js';
 
 describe(contrastRatio.name, () => {
   // WCAG 2.2, "contrast ratio": ratios range from 1 (same colour) to 21 (black on white).

@@ -1,5 +1,5 @@
-import type { BayState, HoldReason } from './bay-states.js';
-import type { TimerKind } from '../timers/timers.schema.js';
+import type { BayState } from './bay-states.js';
+import { BAY_STATE_WORDS } from '../words/floor-words.js';
 
 /** Names of the state icons; each front end draws its own glyph for a name. */
 export const BAY_STATE_ICONS = [
@@ -31,32 +31,18 @@ export const INK = '#0B0D10';
  * so that dark text on them reaches 7:1; `free` and `ready` are the two neutral ends of the scale.
  */
 export const BAY_PALETTE: Readonly<Record<BayState, BayStateLook>> = {
-  free: { label: 'Free', colour: '#9AA3AF', textColour: INK, icon: 'bay-empty' },
-  staged: { label: 'Staged', colour: '#56B4E9', textColour: INK, icon: 'car' },
-  working: { label: 'Working', colour: '#4DBB9D', textColour: INK, icon: 'wrench' },
-  timer: { label: 'Timer', colour: '#F0E442', textColour: INK, icon: 'hourglass' },
-  held: { label: 'Held', colour: '#E28E4D', textColour: INK, icon: 'pause' },
-  check: { label: 'Check', colour: '#D694B9', textColour: INK, icon: 'magnifier' },
-  ready: { label: 'Ready', colour: '#E8ECF1', textColour: INK, icon: 'flag' },
+  free: { label: BAY_STATE_WORDS.free, colour: '#9AA3AF', textColour: INK, icon: 'bay-empty' },
+  staged: { label: BAY_STATE_WORDS.staged, colour: '#56B4E9', textColour: INK, icon: 'car' },
+  working: { label: BAY_STATE_WORDS.working, colour: '#4DBB9D', textColour: INK, icon: 'wrench' },
+  timer: { label: BAY_STATE_WORDS.timer, colour: '#F0E442', textColour: INK, icon: 'hourglass' },
+  held: { label: BAY_STATE_WORDS.held, colour: '#E28E4D', textColour: INK, icon: 'pause' },
+  check: { label: BAY_STATE_WORDS.check, colour: '#D694B9', textColour: INK, icon: 'magnifier' },
+  ready: { label: BAY_STATE_WORDS.ready, colour: '#E8ECF1', textColour: INK, icon: 'flag' },
 };
 
 /** The wall board's page and tile backgrounds, which state fills must stand out from (3:1). */
 export const WALL_BACKGROUND = '#0E1116';
 export const WALL_SURFACE = '#161A21';
-
-export const HOLD_REASON_LABELS: Readonly<Record<HoldReason, string>> = {
-  parts: 'Parts',
-  approval: 'Approval',
-  tooling: 'Tooling',
-  sublet: 'Sublet',
-  other: 'Other',
-};
-
-export const TIMER_KIND_LABELS: Readonly<Record<TimerKind, string>> = {
-  'warm-up': 'Warm-up',
-  'cool-down': 'Cool-down',
-  hold: 'Hold',
-};
 
 export function bayStateLook(state: BayState): BayStateLook {
   return BAY_PALETTE[state];

@@ -2,6 +2,7 @@ import type { BayState, HoldReason } from '../bays/bays.schema.js';
 import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { TimerEstimateDto, TimerKind } from '../timers/timers.schema.js';
+import type { ClockFormat } from '../shop/shop.schema.js';
 
 export interface BoardPersonRef {
   id: number;
@@ -15,7 +16,7 @@ export interface BoardTimer {
   startedAt: string;
   targetC: number | null;
   lastReadingC: number | null;
-  /** Fixed holds end at a known time; temperature timers carry the estimator's answer. */
+  /** Set times end at a known time; temperature timers carry the estimator's answer. */
   endsAt: string | null;
   etaAt: string | null;
   reached: boolean;
@@ -65,7 +66,7 @@ export interface BoardQueueItem {
 export interface BoardSnapshot {
   seq: number;
   serverTime: string;
-  shop: { name: string; timeZone: string };
+  shop: { name: string; timeZone: string; clockFormat: ClockFormat };
   bays: BoardBay[];
   people: BoardPerson[];
   queue: BoardQueueItem[];

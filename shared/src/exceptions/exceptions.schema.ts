@@ -17,15 +17,6 @@ export const EXCEPTION_KINDS = [
 ] as const;
 export type ExceptionKind = (typeof EXCEPTION_KINDS)[number];
 
-export const EXCEPTION_TITLES: Record<ExceptionKind, string> = {
-  'open-shift': 'Shift still open',
-  'open-break': 'Break never ended',
-  'long-rest': 'Rest break over 20 minutes',
-  'short-meal': 'Meal shorter than the minimum',
-  'held-punch': 'Late punch held for review',
-  'done-unclocked': 'Done without clocked time',
-};
-
 export interface TimeException {
   kind: ExceptionKind;
   /** Stable key: the kind and the punch or line it is about. */

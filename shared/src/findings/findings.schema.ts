@@ -20,13 +20,6 @@ export type FindingSeverity = (typeof FINDING_SEVERITIES)[number];
 export const FINDING_ANSWERS = ['pending', 'approved', 'declined'] as const;
 export type FindingAnswer = (typeof FINDING_ANSWERS)[number];
 
-/** Plain words for each severity, for screens and e-mails to customers. */
-export const FINDING_SEVERITY_WORDS: Record<FindingSeverity, string> = {
-  'safety-now': 'A safety concern: we advise fixing it before the vehicle is driven again',
-  soon: 'Should be fixed soon',
-  watch: 'Not urgent: worth keeping an eye on at your next visits',
-};
-
 /** Photos are checked by their content, not by their name or the type the client claims. */
 export const FINDING_PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
 export type FindingPhotoType = (typeof FINDING_PHOTO_TYPES)[number];

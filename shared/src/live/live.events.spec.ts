@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { LIVE_REFUSAL_WORDS, readLiveRefusal } from './live.events.js';
+import { readLiveRefusal } from './live.events.js';
+import { LIVE_REFUSAL_WORDS } from '../words/connection-words.js';
 
 describe(readLiveRefusal.name, () => {
   it('reads a refusal the server sent, in the shared words', () => {

@@ -1,3 +1,4 @@
+import { LIVE_REFUSAL_WORDS } from '../words/connection-words.js';
 import type { AnswerChannel } from '../approvals/approvals.schema.js';
 import type { BoardBay, BoardPerson, BoardQueueItem, BoardSnapshot } from '../board/board.schema.js';
 import type { KioskQueueNote } from '../punches/offline-punches.schema.js';
@@ -85,16 +86,6 @@ export interface LiveRefusal {
   reason: LiveRefusalReason;
   message: string;
 }
-
-export const LIVE_REFUSAL_WORDS: Record<LiveRefusalReason, string> = {
-  'token-missing': 'Sign in first',
-  'token-invalid': 'This sign-in is not valid here: sign in again',
-  'token-expired': 'Your sign-in ran out: sign in again',
-  'token-no-expiry': 'This sign-in has no expiry and is not accepted: sign in again',
-  'account-inactive': 'This account is no longer active',
-  'role-changed': 'Your role changed: sign in again',
-  'screen-revoked': 'This screen was unpaired in the office: pair it again',
-};
 
 export function liveRefusal(reason: LiveRefusalReason): LiveRefusal {
   return { reason, message: LIVE_REFUSAL_WORDS[reason] };

@@ -18,12 +18,6 @@ export interface PayRate {
   overtimeExempt: boolean;
 }
 
-export const PAY_TYPE_WORDS: Record<PayType, string> = {
-  'flat-rate': 'Flat rate',
-  hourly: 'Hourly',
-  'flat-rate-guarantee': 'Flat rate with an hourly guarantee',
-};
-
 /** What the overtime-exemption switch means, wherever it is offered. */
 export const OVERTIME_EXEMPTION_CONDITION =
   '29 USC 213(b)(10)(A) exempts from overtime only a mechanic primarily engaged in servicing vehicles at an ' +

@@ -5,6 +5,9 @@ import { phoneSchema } from '../input/phone.js';
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export const CONCURRENT_SPLITS = ['even', 'full'] as const;
 export const OVERTIME_RULES = ['federal', 'california'] as const;
+/** How clock times read: "2:30 pm" or "14:30". */
+export const CLOCK_FORMATS = ['12h', '24h'] as const;
+export type ClockFormat = (typeof CLOCK_FORMATS)[number];
 
 const hhmm = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use HH:MM');
 
@@ -29,6 +32,7 @@ export const shopSettingsSchema = z.object({
   workweekStartDay: z.number().int().min(0).max(6),
   workweekStartHour: z.number().int().min(0).max(23),
   units: z.enum(UNIT_SYSTEMS),
+  clockFormat: z.enum(CLOCK_FORMATS),
   maxConcurrentJobs: z.number().int().min(1).max(4),
   concurrentSplit: z.enum(CONCURRENT_SPLITS),
   minimumWageCents: z.number().int().min(725, 'Not below the federal $7.25').max(100_00),

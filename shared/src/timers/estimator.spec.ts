@@ -234,7 +234,7 @@ describe(estimateTemperatureEta.name, () => {
 });
 
 describe(holdTimer.name, () => {
-  it('counts a fixed hold down from its start', () => {
+  it('counts a set time down from its start', () => {
     expect(holdTimer(at(0).toISOString(), 600, at(4))).toEqual({
       endsAt: at(10),
       secondsLeft: 360,

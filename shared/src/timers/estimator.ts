@@ -11,7 +11,7 @@ export interface TemperatureEtaInput {
   targetC: number;
   /** The temperature the part settles at, when known (a room for a cool-down); fitted otherwise. */
   ambientC?: number | null;
-  kind: Exclude<TimerKind, 'hold'>;
+  kind: Exclude<TimerKind, 'set-time'>;
   now: Date;
 }
 
@@ -271,7 +271,7 @@ export interface HoldTimerState {
   done: boolean;
 }
 
-/** A fixed hold (cure, vacuum hold, soak): computed from its start, so it survives a restart. */
+/** A set time (a cure, a soak): computed from its start, so it survives a restart. */
 export function holdTimer(startedAt: Date | string, durationSeconds: number, now: Date): HoldTimerState {
   const endsAt = new Date(new Date(startedAt).getTime() + durationSeconds * 1000);
   const secondsLeft = Math.max(0, (endsAt.getTime() - now.getTime()) / 1000);

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
 import type { EtaConfidence, TemperatureEtaStatus } from './estimator.js';
 
-export const TIMER_KINDS = ['warm-up', 'cool-down', 'hold'] as const;
+export const TIMER_KINDS = ['warm-up', 'cool-down', 'set-time'] as const;
 export type TimerKind = (typeof TIMER_KINDS)[number];
 
 /** Plausible shop temperatures in °C: below a winter yard, above any fluid a tech would check. */
@@ -31,9 +31,9 @@ export const startTimerSchema = z
     cautionAcknowledged: z.boolean().optional(),
   })
   .superRefine((timer, ctx) => {
-    if (timer.kind === 'hold' && timer.durationSeconds === undefined)
-      ctx.addIssue({ code: 'custom', path: ['durationSeconds'], message: 'A hold needs a duration' });
-    if (timer.kind !== 'hold') {
+    if (timer.kind === 'set-time' && timer.durationSeconds === undefined)
+      ctx.addIssue({ code: 'custom', path: ['durationSeconds'], message: 'A set time needs a duration' });
+    if (timer.kind !== 'set-time') {
       if (timer.targetC === undefined)
         ctx.addIssue({
           code: 'custom',

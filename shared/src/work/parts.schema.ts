@@ -5,11 +5,6 @@ import { instantSchema, plainText } from '../input/fields.js';
 export const PARTS_STATES = ['ordered', 'back-ordered'] as const;
 export type PartsState = (typeof PARTS_STATES)[number];
 
-export const PARTS_STATE_WORDS: Readonly<Record<PartsState, string>> = {
-  ordered: 'Ordered',
-  'back-ordered': 'Back-ordered',
-};
-
 export const partNameSchema = plainText(120, { min: 1, message: 'Say which part' });
 
 /** `PUT /api/job-lines/:id/parts`: the office records or edits what a line held for parts waits for. */

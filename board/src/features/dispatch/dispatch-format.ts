@@ -1,20 +1,12 @@
 import { dateTimeFormat } from '@/lib/date-format';
+import { clockTime } from '@/lib/shop-clock';
 /** Short shapes for dispatch: times in the shop's zone, hours of labour, waits. */
 
 function pad2(n: number): string {
   return String(n).padStart(2, '0');
 }
 
-/** Labour as hours and minutes, "1:05". */
-export function formatHm(seconds: number): string {
-  const minutes = Math.round(Math.max(0, seconds) / 60);
-  return `${Math.floor(minutes / 60)}:${pad2(minutes % 60)}`;
-}
-
-/** Book hours as the shop writes them, "1.5 h" or "0.3 h". */
-export function formatBookHours(hours: number): string {
-  return `${Number(hours.toFixed(1))} h`;
-}
+export { formatBookHours, formatHours } from '@baytime/shared';
 
 /** How long a line has waited, "12 min", "2 h 05 min", "3 d 4 h". */
 export function formatWait(fromIso: string, nowMs: number): string {
@@ -36,12 +28,12 @@ function dayKey(ms: number, timeZone: string | undefined): string {
 }
 
 /**
- * A moment as the shop's clock shows it: "4:30 PM" today, "Wed 8:00 AM" within a week, "Dec 9, 8:00 AM"
+ * A moment as the shop's clock shows it: "4:30 pm" today, "Wed 8:00 am" within a week, "Dec 9 8:00 am"
  * later. `nowMs` decides what "today" is.
  */
 export function formatShopTime(iso: string, nowMs: number, timeZone: string | undefined): string {
   const ms = Date.parse(iso);
-  const time = dateTimeFormat(timeZone, { hour: 'numeric', minute: '2-digit' }).format(new Date(ms));
+  const time = clockTime(ms, timeZone);
   if (dayKey(ms, timeZone) === dayKey(nowMs, timeZone)) return time;
   const days = Math.abs(ms - nowMs) / 86_400_000;
   const day =

@@ -1,4 +1,12 @@
-import type { DispatchBoard, DispatchLane, DispatchLine, Priority } from '@baytime/shared';
+import {
+  inSentence,
+  PRIORITY_WORDS,
+  repairOrderLineWords,
+  type DispatchBoard,
+  type DispatchLane,
+  type DispatchLine,
+  type Priority,
+} from '@baytime/shared';
 
 /** The changes a move sends to `PATCH /api/job-lines/:id`. */
 export interface MovePatch {
@@ -95,7 +103,7 @@ export function planMove(board: DispatchBoard, lineId: number, target: MoveTarge
   if (!line) return null;
   const patch = patchFor(line, target);
   if (!patch) return null;
-  const label = `L${line.lineNo} ${line.title} (RO ${line.repairOrderNumber})`;
+  const label = `${repairOrderLineWords(line.repairOrderNumber, line.lineNo)}: ${line.title}`;
 
   let summary: string;
   let warning: string | null = null;
@@ -120,7 +128,7 @@ export function planMove(board: DispatchBoard, lineId: number, target: MoveTarge
       summary = `${label} set to ${bay.name}`;
     } else summary = `${label} no longer tied to a bay`;
   } else {
-    summary = `${label} set to ${patch.priority} priority`;
+    summary = `${label} set to ${inSentence(PRIORITY_WORDS[patch.priority ?? line.priority])} priority`;
   }
   return { line, patch, clocksOff, skillWarning: warning, bayTaken, summary };
 }

@@ -5,7 +5,6 @@ import {
   groupAnswered,
   linkStateText,
   parseHours,
-  severityHeadline,
   sortPending,
   titleHint,
   waitedText,
@@ -75,12 +74,6 @@ describe('findings inbox model', () => {
     );
     expect(linkStateText({ ...link, status: 'revoked' }, when)).toMatch(/; it was withdrawn\.$/);
     expect(linkStateText({ ...link, status: 'used' }, when)).toMatch(/; the customer answered through it\.$/);
-  });
-
-  it('tags severities with the first words of the shared sentence', () => {
-    expect(severityHeadline('safety-now')).toBe('A safety concern');
-    expect(severityHeadline('soon')).toBe('Should be fixed soon');
-    expect(severityHeadline('watch')).toBe('Not urgent');
   });
 
   it('puts safety first, then the longest waiting', () => {

@@ -1,6 +1,6 @@
 import {
+  FINDING_ANSWER_WORDS,
   ANSWER_CHANNEL_WORDS,
-  FINDING_SEVERITY_WORDS,
   formatPhone,
   type ApprovalLinkDto,
   type FindingDto,
@@ -8,13 +8,6 @@ import {
 } from '@baytime/shared';
 
 const SEVERITY_RANK: Record<FindingSeverity, number> = { 'safety-now': 0, soon: 1, watch: 2 };
-
-/** The first words of the severity sentence, for a tag: "A safety concern", "Should be fixed soon", "Not urgent". */
-export function severityHeadline(severity: FindingSeverity): string {
-  const words = FINDING_SEVERITY_WORDS[severity];
-  const colon = words.indexOf(':');
-  return colon > 0 ? words.slice(0, colon) : words;
-}
 
 /** Safety first, then the one waiting longest. */
 export function sortPending(findings: readonly FindingDto[]): FindingDto[] {
@@ -87,7 +80,7 @@ export function titleHint(note: string, max = 120): string {
 
 /** "Approved by Harriet Quenby through the approval link", "Declined by Nell Ashby by phone". */
 export function answeredText(finding: FindingDto): string {
-  const verb = finding.answer === 'approved' ? 'Approved' : 'Declined';
+  const verb = FINDING_ANSWER_WORDS[finding.answer];
   const by = finding.answeredBy ? ` by ${finding.answeredBy}` : '';
   const how = finding.answerChannel ? ` ${ANSWER_CHANNEL_WORDS[finding.answerChannel]}` : '';
   return `${verb}${by}${how}`;

@@ -24,8 +24,8 @@ describe('mailbox formats', () => {
 
   it('says when a message came as briefly as it can', () => {
     const now = new Date('2026-12-01T22:00:00Z');
-    expect(receivedText('2026-12-01T20:05:00Z', now, 'America/Chicago')).toBe('2:05 PM');
-    expect(receivedText('2026-11-29T20:05:00Z', now, 'America/Chicago')).toBe('Sun 2:05 PM');
+    expect(receivedText('2026-12-01T20:05:00Z', now, 'America/Chicago')).toBe('2:05 pm');
+    expect(receivedText('2026-11-29T20:05:00Z', now, 'America/Chicago')).toBe('Sun 2:05 pm');
     expect(receivedText('2026-10-02T20:05:00Z', now, 'America/Chicago')).toBe('Oct 2, 2026');
   });
 });

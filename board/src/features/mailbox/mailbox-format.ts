@@ -1,3 +1,4 @@
+import { clockTime } from '@/lib/shop-clock';
 /** Bytes in the units a person reads: "812 B", "14 KB", "2.3 MB". */
 export function formatBytes(bytes: number): string {
   if (bytes < 1024) return `${bytes} B`;
@@ -25,11 +26,13 @@ export function receivedText(iso: string, now: Date, timeZone?: string): string 
   const date = new Date(iso);
   const day = (d: Date) => new Intl.DateTimeFormat('en-CA', { timeZone }).format(d);
   const ageDays = (now.getTime() - date.getTime()) / 86_400_000;
-  const options: Intl.DateTimeFormatOptions =
-    day(date) === day(now)
-      ? { hour: 'numeric', minute: '2-digit' }
-      : ageDays < 6
-        ? { weekday: 'short', hour: 'numeric', minute: '2-digit' }
-        : { month: 'short', day: 'numeric', year: 'numeric' };
-  return new Intl.DateTimeFormat('en-US', { ...options, timeZone }).format(date);
+  if (day(date) === day(now)) return clockTime(date, timeZone);
+  if (ageDays < 6)
+    return `${new Intl.DateTimeFormat('en-US', { weekday: 'short', timeZone }).format(date)} ${clockTime(date, timeZone)}`;
+  return new Intl.DateTimeFormat('en-US', {
+    month: 'short',
+    day: 'numeric',
+    year: 'numeric',
+    timeZone,
+  }).format(date);
 }

@@ -4,7 +4,7 @@ import { punchWords, whoWords } from './offline-punch-words';
 describe(punchWords.name, () => {
   it('names the punch and the kind of break', () => {
     expect(punchWords({ kind: 'shift-in', breakKind: null })).toBe('Shift start');
-    expect(punchWords({ kind: 'break-start', breakKind: 'rest' })).toBe('Break start (rest)');
+    expect(punchWords({ kind: 'break-start', breakKind: 'rest' })).toBe('Break start · rest');
   });
 });
 

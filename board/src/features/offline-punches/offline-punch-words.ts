@@ -7,16 +7,7 @@ export const STATUS_WORDS: Record<OfflinePunchStatus, string> = {
   rejected: 'Rejected',
 };
 
-/** "Break start (rest)", "Shift start". */
-export function punchWords(punch: Pick<OfflinePunchDto, 'kind' | 'breakKind'>): string {
-  const words = {
-    'shift-in': 'Shift start',
-    'shift-out': 'Shift end',
-    'break-start': 'Break start',
-    'break-end': 'Break end',
-  }[punch.kind];
-  return punch.breakKind ? `${words} (${punch.breakKind})` : words;
-}
+export { punchWords } from '@baytime/shared';
 
 /** Who tapped it: the technician, else the badge typed, else nobody known. */
 export function whoWords(punch: Pick<OfflinePunchDto, 'technicianName' | 'badge'>): string {

@@ -26,13 +26,13 @@ describe(partsSummary.name, () => {
       expectedAt: '2026-03-03T20:30:00Z',
     });
     expect(partsSummary(ordered, NOW, ZONE)).toBe(
-      'Outer tie rod end · Back-ordered · Kestrel Parts · due Tue 2:30 PM',
+      'Outer tie rod end · Back-ordered · Kestrel Parts · due Tue 2:30 pm',
     );
     expect(partsSummary(ordered, Date.parse('2026-03-03T20:30:00Z'), ZONE)).toBe(
-      'Outer tie rod end · Back-ordered · Kestrel Parts · late since Tue 2:30 PM',
+      'Outer tie rod end · Back-ordered · Kestrel Parts · late since Tue 2:30 pm',
     );
     expect(partsSummary(parts({ state: 'ordered', expectedAt: '2026-03-20T14:00:00Z' }), NOW, ZONE)).toBe(
-      'Outer tie rod end · Ordered · due Mar 20, 9:00 AM',
+      'Outer tie rod end · Ordered · due Mar 20, 9:00 am',
     );
   });
 });

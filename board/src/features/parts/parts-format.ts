@@ -1,14 +1,15 @@
 import { PARTS_STATE_WORDS, shopDayKey, type PartsHoldDto } from '@baytime/shared';
 import { dateTimeFormat } from '@/lib/date-format';
+import { clockTime } from '@/lib/shop-clock';
 
-/** "Tue 2:30 PM" in the shop's zone; with the date when it is not this week. */
+/** "Tue 2:30 pm" in the shop's zone; with the date when it is not this week. */
 export function formatArrival(iso: string, nowMs: number, timeZone: string | undefined): string {
   const at = new Date(iso);
   const near = Math.abs(at.getTime() - nowMs) < 6 * 24 * 3600_000;
-  const format = near
-    ? dateTimeFormat(timeZone, { weekday: 'short', hour: 'numeric', minute: '2-digit' })
-    : dateTimeFormat(timeZone, { month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit' });
-  return format.format(at);
+  const day = near
+    ? dateTimeFormat(timeZone, { weekday: 'short' })
+    : dateTimeFormat(timeZone, { month: 'short', day: 'numeric' });
+  return `${day.format(at)}${near ? '' : ','} ${clockTime(at, timeZone)}`;
 }
 
 /**

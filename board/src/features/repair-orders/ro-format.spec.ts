@@ -1,30 +1,23 @@
 import { describe, expect, it } from 'vitest';
-import { formatDateTime, formatHm, formatOdometer, formatOverUnder, groupVin } from './ro-format';
+import { formatDateTime, formatOdometer, formatOverUnder, groupVin } from './ro-format';
 
 describe(formatDateTime.name, () => {
   it('shows the moment in the shop zone', () => {
     // 06:09 UTC on the 2nd is 12:09 AM on the 2nd in Chicago (CST, UTC−6).
-    expect(formatDateTime('2026-12-02T06:09:00.000Z', 'America/Chicago')).toBe('Wed, Dec 2, 12:09 AM');
-    expect(formatDateTime('2026-12-02T05:09:00.000Z', 'America/Chicago')).toBe('Tue, Dec 1, 11:09 PM');
+    expect(formatDateTime('2026-12-02T06:09:00.000Z', 'America/Chicago')).toBe('Wed, Dec 2, 12:09 am');
+    expect(formatDateTime('2026-12-02T05:09:00.000Z', 'America/Chicago')).toBe('Tue, Dec 1, 11:09 pm');
   });
 });
 
 describe(formatOverUnder.name, () => {
   it('says how far clocked time is from book', () => {
-    expect(formatOverUnder(5400 + 720, 1.5)).toBe('+0:12 over');
-    expect(formatOverUnder(3600 - 1200, 1)).toBe('0:20 under');
+    expect(formatOverUnder(5400 + 720, 1.5)).toBe('+0.2 h over');
+    expect(formatOverUnder(3600 - 1200, 1)).toBe('0.33 h under');
     expect(formatOverUnder(3630, 1)).toBe('on book');
   });
   it('says what is left on a line still open, and over as over', () => {
-    expect(formatOverUnder(3600 - 1200, 1, false)).toBe('0:20 left');
-    expect(formatOverUnder(3600 + 1200, 1, false)).toBe('+0:20 over');
-  });
-});
-
-describe(formatHm.name, () => {
-  it('writes hours and minutes of a span', () => {
-    expect(formatHm(3006)).toBe('0:50');
-    expect(formatHm(-720)).toBe('0:12');
+    expect(formatOverUnder(3600 - 1200, 1, false)).toBe('0.33 h left');
+    expect(formatOverUnder(3600 + 1200, 1, false)).toBe('+0.33 h over');
   });
 });
 

@@ -153,7 +153,7 @@ describe(advisorChoices.name, () => {
 describe(lineStatusText.name, () => {
   it('gives the hold reason with a held line', () => {
     expect(lineStatusText({ status: 'held', holdReason: 'parts' })).toBe('Held: Parts');
-    expect(lineStatusText({ status: 'queued', holdReason: null })).toBe('Waiting');
+    expect(lineStatusText({ status: 'queued', holdReason: null })).toBe('Queued');
   });
 });
 

@@ -1,5 +1,5 @@
 import {
-  HOLD_REASON_LABELS,
+  lineStatusWords,
   type DispatchBoard,
   type DispatchLine,
   type FindingDto,
@@ -106,18 +106,8 @@ export interface LineRow {
   forecast: DispatchLine['forecast'];
 }
 
-const STATUS_WORDS = {
-  queued: 'Waiting',
-  working: 'Working',
-  held: 'Held',
-  done: 'Done',
-  cancelled: 'Cancelled',
-} as const;
-
 export function lineStatusText(line: Pick<JobLineDto, 'status' | 'holdReason'>): string {
-  return line.status === 'held' && line.holdReason
-    ? `Held: ${HOLD_REASON_LABELS[line.holdReason]}`
-    : STATUS_WORDS[line.status];
+  return lineStatusWords(line);
 }
 
 /** The RO's lines with names and times filled in from the dispatch view where the RO lacks them. */

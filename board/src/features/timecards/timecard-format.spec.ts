@@ -5,23 +5,18 @@ import {
   formatClock,
   formatDay,
   formatDayClock,
-  formatDecimalHours,
-  formatHm,
+  formatHours,
   auditText,
 } from './timecard-format';
 
 describe('timecard formats', () => {
-  it('writes durations as h:mm and decimal hours', () => {
-    expect(formatHm(0)).toBe('0:00');
-    expect(formatHm(30_900)).toBe('8:35');
-    expect(formatHm(59)).toBe('0:01');
-    expect(formatHm(-5)).toBe('0:00');
-    expect(formatDecimalHours(30_900)).toBe('8.58 h');
+  it('writes durations as decimal hours', () => {
+    expect(formatHours(30_900)).toBe('8.58 h');
   });
 
   it('writes instants in the shop time zone, not the computer’s', () => {
-    expect(formatClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('7:25 AM');
-    expect(formatDayClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('Mon, Nov 30, 7:25 AM');
+    expect(formatClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('7:25 am');
+    expect(formatDayClock('2026-11-30T13:25:00Z', 'America/Chicago')).toBe('Mon, Nov 30, 7:25 am');
     expect(clockValue('2026-11-30T04:05:00Z', 'America/Chicago')).toBe('22:05');
     expect(dayValue('2026-11-30T04:05:00Z', 'America/Chicago')).toBe('2026-11-29');
   });
@@ -46,7 +41,10 @@ describe(auditText.name, () => {
         },
         'America/Chicago',
       ),
-    ).toEqual({ action: 'Replaced a punch', detail: 'Shift in at Mon, Nov 30, 7:20 AM: “Forgot to badge”' });
+    ).toEqual({
+      action: 'Replaced a punch',
+      detail: 'Shift start at Mon, Nov 30, 7:20 am: “Forgot to badge”',
+    });
   });
 
   it('copes with an action it does not know and no detail', () => {

@@ -1,30 +1,7 @@
-import type { BreakKind, PunchKind } from '@baytime/shared';
+import { PUNCH_WORDS, type PunchKind } from '@baytime/shared';
+import { clockTime, dayClockTime } from '@/lib/shop-clock';
 
-/** Punch kinds in the words the office reads. */
-export const PUNCH_WORDS: Record<PunchKind, string> = {
-  'shift-in': 'Shift in',
-  'shift-out': 'Shift out',
-  'break-start': 'Break start',
-  'break-end': 'Break end',
-  'job-on': 'Clock on job',
-  'job-off': 'Clock off job',
-};
-
-export const BREAK_WORDS: Record<BreakKind, string> = {
-  meal: 'Meal break (unpaid)',
-  rest: 'Rest break (paid)',
-};
-
-/** Seconds as hours and minutes, "8:05". */
-export function formatHm(seconds: number): string {
-  const minutes = Math.max(0, Math.round(seconds / 60));
-  return `${Math.floor(minutes / 60)}:${String(minutes % 60).padStart(2, '0')}`;
-}
-
-/** Seconds as decimal hours, "8.08 h": how flat-rate shops count time. */
-export function formatDecimalHours(seconds: number): string {
-  return `${(Math.max(0, seconds) / 3600).toFixed(2)} h`;
-}
+export { BREAK_KIND_PAY_WORDS as BREAK_WORDS, PUNCH_WORDS, formatHours } from '@baytime/shared';
 
 const formats = new Map<string, Intl.DateTimeFormat>();
 function cached(key: string, make: () => Intl.DateTimeFormat): Intl.DateTimeFormat {
@@ -36,28 +13,14 @@ function cached(key: string, make: () => Intl.DateTimeFormat): Intl.DateTimeForm
   return format;
 }
 
-/** The time of day of an instant in the shop's time zone, "7:25 AM". */
+/** The time of day of an instant in the shop's time zone, "7:25 am". */
 export function formatClock(iso: string | Date, timeZone: string): string {
-  return cached(
-    `clock:${timeZone}`,
-    () => new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit', timeZone }),
-  ).format(new Date(iso));
+  return clockTime(iso, timeZone);
 }
 
-/** Day and time in the shop's time zone, "Mon, Nov 30, 7:25 AM". */
+/** Day and time in the shop's time zone, "Mon, Nov 30, 7:25 am". */
 export function formatDayClock(iso: string | Date, timeZone: string): string {
-  return cached(
-    `dayclock:${timeZone}`,
-    () =>
-      new Intl.DateTimeFormat('en-US', {
-        weekday: 'short',
-        month: 'short',
-        day: 'numeric',
-        hour: 'numeric',
-        minute: '2-digit',
-        timeZone,
-      }),
-  ).format(new Date(iso));
+  return dayClockTime(iso, timeZone);
 }
 
 /** A local calendar day 'YYYY-MM-DD' as "Mon, Nov 30" (no time zone shift: the date is already local). */

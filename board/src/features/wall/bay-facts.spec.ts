@@ -51,7 +51,7 @@ describe(bayFacts.name, () => {
       'Norden Kestrel',
       'RO 4821',
       'Brake pads',
-      '0:52 / 1:30',
+      '0.9 / 1.5 h',
     ]);
     expect(facts.find((fact) => fact.key === 'clocked')?.keep).toBe(true);
   });
@@ -60,7 +60,7 @@ describe(bayFacts.name, () => {
     const fact = bayFacts({ bay: bay({}), clockedSeconds: 6000, nowMs: now }).find(
       (f) => f.key === 'clocked',
     );
-    expect(fact).toMatchObject({ text: '1:40', tone: 'over' });
+    expect(fact).toMatchObject({ text: '1.7 h', tone: 'over' });
   });
 
   it('gives a held bay its reason and how long it has been held', () => {
@@ -84,9 +84,9 @@ describe(bayFacts.name, () => {
       bayFacts({ bay: held, clockedSeconds: 0, nowMs, timeZone: 'America/Chicago' }).slice(0, 2);
     expect(at(now)).toEqual([
       { key: 'reason', text: 'Parts due', keep: true },
-      { key: 'parts-due', text: '2:30 PM', keep: true },
+      { key: 'parts-due', text: '2:30 pm', keep: true },
     ]);
-    expect(at(Date.parse('2026-03-02T20:29:59Z')).map((fact) => fact.text)).toEqual(['Parts due', '2:30 PM']);
+    expect(at(Date.parse('2026-03-02T20:29:59Z')).map((fact) => fact.text)).toEqual(['Parts due', '2:30 pm']);
     expect(at(Date.parse('2026-03-02T20:30:00Z'))[0]).toMatchObject({ text: 'Parts late', tone: 'caution' });
     expect(at(Date.parse('2026-03-02T20:30:00Z'))[1]?.key).toBe('vehicle');
     const words = (patch: Partial<BoardBay>) =>
@@ -140,12 +140,17 @@ describe(bayFacts.name, () => {
       tone: 'caution',
     });
     expect(countdownFact({ ...timer, status: 'reached', reached: true }, now).text).toBe('Reached');
+    expect(countdownFact({ ...timer, status: 'beyond-asymptote' }, now)).toMatchObject({
+      text: 'Won’t reach target',
+      tone: 'caution',
+    });
     expect(countdownFact({ ...timer, status: 'estimating', etaAt: '2026-03-02T15:02:00Z' }, now).text).toBe(
-      '≈2:00',
+      'about 2:00',
     );
     expect(
-      countdownFact({ ...timer, kind: 'hold', status: 'running', endsAt: '2026-03-02T17:05:00Z' }, now).text,
-    ).toBe('2h 05m');
+      countdownFact({ ...timer, kind: 'set-time', status: 'running', endsAt: '2026-03-02T17:05:00Z' }, now)
+        .text,
+    ).toBe('2:05:00');
   });
 
   it('tells a free bay nothing more', () => {

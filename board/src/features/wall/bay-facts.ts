@@ -1,6 +1,16 @@
-import { HOLD_REASON_LABELS, TIMER_KIND_LABELS, type BoardBay, type BoardTimer } from '@baytime/shared';
+import {
+  HOLD_REASON_LABELS,
+  TIMER_KIND_LABELS,
+  TIMER_STATE_WORDS,
+  aboutWords,
+  formatCountdown,
+  hoursFigure,
+  movingAwayWords,
+  type BoardBay,
+  type BoardTimer,
+} from '@baytime/shared';
 import { secondsSince, secondsUntil } from './server-clock';
-import { formatCountdown, formatHoursMinutes, formatSpan, formatTimeOfDay } from './board-time';
+import { formatTimeOfDay } from './board-time';
 
 /** One short line a tile can show under the bay's name and state. */
 export interface BayFact {
@@ -63,32 +73,32 @@ export function wallVehicle(vehicle: string | null, maxChars = Infinity): string
   return model.length ? model.join(' ') : short;
 }
 
-const STALLED_TEXT: Partial<Record<BoardTimer['status'], string>> = {
-  'not-enough-readings': 'Estimating',
-  estimating: 'Estimating',
-  'beyond-asymptote': 'Stalled',
-};
-
 /** The timer's headline: time left when known, otherwise a word for why it is not. */
 export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
-  if (timer.reached || timer.status === 'reached') return { key: 'countdown', text: 'Reached', keep: true };
-  if (timer.status === 'done') return { key: 'countdown', text: 'Done', keep: true };
+  if (timer.reached || timer.status === 'reached')
+    return { key: 'countdown', text: TIMER_STATE_WORDS.reached, keep: true };
+  if (timer.status === 'done') return { key: 'countdown', text: TIMER_STATE_WORDS.done, keep: true };
   if (timer.status === 'moving-away')
     return {
       key: 'countdown',
-      text: timer.kind === 'cool-down' ? 'Not cooling' : 'Not warming',
+      text: movingAwayWords(timer.kind),
       keep: true,
       tone: 'caution',
     };
   const left = secondsUntil(timer.endsAt ?? timer.etaAt, nowMs);
   if (left === null)
-    return { key: 'countdown', text: STALLED_TEXT[timer.status] ?? 'Estimating', keep: true };
+    return {
+      key: 'countdown',
+      text: TIMER_STATE_WORDS[timer.status === 'running' ? 'estimating' : timer.status],
+      keep: true,
+      ...(timer.status === 'beyond-asymptote' && { tone: 'caution' as const }),
+    };
   if (left === 0) return { key: 'countdown', text: 'Due now', keep: true, tone: 'big' };
   // A temperature estimate on thin evidence is shown as approximate.
-  const approx = timer.kind !== 'hold' && timer.confidence === 'low' ? '≈' : '';
+  const countdown = formatCountdown(left);
   return {
     key: 'countdown',
-    text: `${approx}${left >= 3600 ? formatSpan(left) : formatCountdown(left)}`,
+    text: timer.kind !== 'set-time' && timer.confidence === 'low' ? aboutWords(countdown) : countdown,
     keep: true,
     tone: 'big',
     suffix: 'left',
@@ -110,7 +120,11 @@ export function holdFacts(bay: BoardBay, nowMs: number, timeZone: string | undef
           { key: 'parts-due', text: formatTimeOfDay(due, timeZone), keep: true },
         ];
   return [
-    { key: 'reason', text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'On hold', keep: true },
+    {
+      key: 'reason',
+      text: bay.holdReason ? HOLD_REASON_LABELS[bay.holdReason] : 'No reason given',
+      keep: true,
+    },
   ];
 }
 
@@ -142,10 +156,10 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
   const clocked: BayFact | null =
     bay.bookSeconds > 0 || clockedSeconds > 0
       ? over
-        ? { key: 'clocked', text: formatHoursMinutes(clockedSeconds), keep: true, tone: 'over' }
+        ? { key: 'clocked', text: `${hoursFigure(clockedSeconds / 3600, 1)} h`, keep: true, tone: 'over' }
         : {
             key: 'clocked',
-            text: `${formatHoursMinutes(clockedSeconds)} / ${formatHoursMinutes(bay.bookSeconds)}`,
+            text: `${hoursFigure(clockedSeconds / 3600, 1)} / ${hoursFigure(bay.bookSeconds / 3600, 1)} h`,
             keep: true,
           }
       : null;

@@ -23,7 +23,7 @@ const bay = (id: number, patch: Partial<BoardBay> = {}): BoardBay => ({
 const snapshot = (seq: number, serverTime = '2026-03-02T15:00:00.000Z'): BoardSnapshot => ({
   seq,
   serverTime,
-  shop: { name: 'Test Shop', timeZone: 'America/Chicago' },
+  shop: { name: 'Test Shop', timeZone: 'America/Chicago', clockFormat: '12h' },
   bays: [bay(1), bay(2)],
   people: [],
   queue: [],

@@ -49,7 +49,7 @@ class FakeLink implements LiveLink {
 const snap = (seq: number, state: 'free' | 'working' = 'free'): BoardSnapshot => ({
   seq,
   serverTime: '2026-03-02T15:00:00.000Z',
-  shop: { name: 'Test Shop', timeZone: 'UTC' },
+  shop: { name: 'Test Shop', timeZone: 'UTC', clockFormat: '12h' },
   bays: [
     {
       id: 1,
@@ -135,7 +135,7 @@ describe(createLiveBoard.name, () => {
     link.serve('shop.updated', { seq: 6, shop: {} });
     expect(sut.getState().board?.seq).toBe(6);
     expect(link.requests).toHaveLength(1);
-    link.requests[0]?.({ ...snap(6), shop: { name: 'Renamed Shop', timeZone: 'UTC' } });
+    link.requests[0]?.({ ...snap(6), shop: { name: 'Renamed Shop', timeZone: 'UTC', clockFormat: '12h' } });
     await vi.waitFor(() => expect(sut.getState().board?.snapshot.shop.name).toBe('Renamed Shop'));
   });
 

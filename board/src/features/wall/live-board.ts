@@ -7,6 +7,7 @@ import {
 } from '@baytime/shared';
 import type { LinkStatus, LiveLink } from '@baytime/shared/client';
 import { applyEvent, boardFromSnapshot, type BoardData, type BoardEvent } from './board-store';
+import { setShopClockFormat } from '@/lib/shop-clock';
 
 export type { LinkStatus };
 
@@ -71,7 +72,10 @@ export function createLiveBoard({
     for (const listener of listeners) listener();
   };
 
-  const takeSnapshot = (snapshot: BoardSnapshot) => set({ board: boardFromSnapshot(snapshot, now()) });
+  const takeSnapshot = (snapshot: BoardSnapshot) => {
+    setShopClockFormat(snapshot.shop.clockFormat);
+    set({ board: boardFromSnapshot(snapshot, now()) });
+  };
 
   const resync = () => {
     if (!running || resyncPending) return;

@@ -1,4 +1,4 @@
-import type { HoldReason } from '@baytime/shared';
+import { HOLD_REASON_LABELS, type HoldReason } from '@baytime/shared';
 
 /** What a technician taps to hold a line, in plain words, in the order shops meet them most. */
 export const HOLD_CHOICES: readonly { reason: HoldReason; words: string; hint: string }[] = [
@@ -6,14 +6,5 @@ export const HOLD_CHOICES: readonly { reason: HoldReason; words: string; hint: s
   { reason: 'approval', words: 'Waiting for customer approval', hint: 'The advisor is asking the customer' },
   { reason: 'tooling', words: 'Waiting for a tool', hint: 'A tool or piece of equipment is busy or missing' },
   { reason: 'sublet', words: 'At a sublet shop', hint: 'A part or the vehicle is out with another shop' },
-  { reason: 'other', words: 'Other', hint: 'Tell the foreman why' },
+  { reason: 'other', words: HOLD_REASON_LABELS.other, hint: 'Tell the foreman why' },
 ];
-
-/** The short form on the card's state tag: "Held · parts". */
-export const HOLD_SHORT: Record<HoldReason, string> = {
-  parts: 'parts',
-  approval: 'approval',
-  tooling: 'tool',
-  sublet: 'sublet',
-  other: 'other',
-};

@@ -1,5 +1,4 @@
-import type { JobLineStatus } from '@baytime/shared';
-import { HOLD_SHORT } from './hold-words';
+import { lineStatusWords, repairOrderLineWords } from '@baytime/shared';
 import type { DayLine, DayView } from './project-day';
 
 export type ClockAction =
@@ -10,24 +9,15 @@ export type ClockAction =
   | { kind: 'resume'; clockOn: boolean }
   | { kind: 'none'; hint: string | null };
 
-export const lineLabel = (line: DayLine) => `RO ${line.repairOrderNumber} line ${line.lineNo}`;
-
-const STATUS_WORDS: Record<JobLineStatus, string> = {
-  queued: 'Queued',
-  working: 'Working',
-  held: 'Held',
-  done: 'Done',
-  cancelled: 'Cancelled',
-};
+export const lineLabel = (line: DayLine) => repairOrderLineWords(line.repairOrderNumber, line.lineNo);
 
 /**
- * A line's state on this technician's card. "Working" is for a line they are clocked on now; one
- * started before, or that someone else is on, reads "Started".
+ * A line's state on this technician's card, in the word every screen uses ("Held: Parts"); a line
+ * started before, or that someone else is on, says this technician is not on its clock.
  */
 export function lineStatusWord(line: Pick<DayLine, 'status' | 'holdReason' | 'clockedOn'>): string {
-  if (line.status === 'held' && line.holdReason) return `Held · ${HOLD_SHORT[line.holdReason]}`;
-  if (line.status === 'working' && !line.clockedOn) return 'Started';
-  return STATUS_WORDS[line.status];
+  const words = lineStatusWords(line);
+  return line.status === 'working' && !line.clockedOn ? `${words} · not clocked on` : words;
 }
 
 export function clockAction(view: DayView, line: DayLine, maxConcurrentJobs: number): ClockAction {

@@ -35,10 +35,12 @@ const day = (lines: MyJobLine[], shift: MyDay['shift']['status'] = 'on-shift'): 
 });
 
 describe(lineStatusWord.name, () => {
-  it('says Working only on a line this technician is clocked on (bug 9)', () => {
+  it('says a working line this technician is not clocked on is off their clock', () => {
     expect(lineStatusWord({ status: 'working', holdReason: null, clockedOn: true })).toBe('Working');
-    expect(lineStatusWord({ status: 'working', holdReason: null, clockedOn: false })).toBe('Started');
-    expect(lineStatusWord({ status: 'held', holdReason: 'parts', clockedOn: false })).toBe('Held · parts');
+    expect(lineStatusWord({ status: 'working', holdReason: null, clockedOn: false })).toBe(
+      'Working · not clocked on',
+    );
+    expect(lineStatusWord({ status: 'held', holdReason: 'parts', clockedOn: false })).toBe('Held: Parts');
   });
 });
 

@@ -1,5 +1,5 @@
 import type { MyJobLine } from '@baytime/shared';
-import { clockTime, dayPeriod } from '@/lib/format';
+import { clockTime } from '@/lib/format';
 
 /** Under a line held for parts: "Waiting for tie rod end · due 2:30 pm", or "· late" once past. */
 export function partsWaitText(line: MyJobLine, nowMs: number, timeZone: string | undefined): string | null {
@@ -8,7 +8,7 @@ export function partsWaitText(line: MyJobLine, nowMs: number, timeZone: string |
   const what = parts.part ? `Waiting for ${parts.part}` : 'Waiting for parts';
   if (!parts.expectedAt) return what;
   if (Date.parse(parts.expectedAt) <= nowMs) return `${what} · late`;
-  return `${what} · due ${clockTime(parts.expectedAt, timeZone)} ${dayPeriod(parts.expectedAt, timeZone)}`;
+  return `${what} · due ${clockTime(parts.expectedAt, timeZone)}`;
 }
 
 /** The lines whose parts came in since they were held: back in the technician's queue. */

@@ -1,4 +1,5 @@
-import { clockTime, hoursMinutes } from '@/lib/format';
+import { PERSON_STATUS_WORDS, PUNCH_WORDS, repairOrderLineWords } from '@baytime/shared';
+import { clockTime, durationWords, formatHours } from '@/lib/format';
 import { lineSeconds, type ConcurrentSplit, type DayView } from './project-day';
 
 export interface StatusText {
@@ -6,7 +7,7 @@ export interface StatusText {
   detail: string;
 }
 
-/** The status line in words: "On shift since 7:02 · on RO 4417 line 2 for 0:38". */
+/** The status line in words: "On shift since 7:02 am · on RO 4417 line 2 for 0.63 h". */
 export function statusText(
   view: DayView,
   now: number,
@@ -15,17 +16,22 @@ export function statusText(
 ): StatusText {
   const { shift } = view;
   if (shift.status === 'off') {
-    return { headline: 'Off shift', detail: 'Tap Start shift when you begin work.' };
+    return {
+      headline: PERSON_STATUS_WORDS.off,
+      detail: `Tap ${PUNCH_WORDS['shift-in']} when you begin work.`,
+    };
   }
   if (shift.status === 'on-break') {
     const since = shift.since ?? new Date(now).toISOString();
     return {
       headline: `On a ${shift.breakKind === 'rest' ? 'rest' : 'meal'} break since ${clockTime(since, timeZone)}`,
-      detail: `Break so far ${hoursMinutes((now - Date.parse(since)) / 1000)}`,
+      detail: `Break so far ${durationWords((now - Date.parse(since)) / 1000)}`,
     };
   }
   const since = view.shiftStartedAt ?? shift.since;
-  const head = since ? `On shift since ${clockTime(since, timeZone)}` : 'On shift';
+  const head = since
+    ? `${PERSON_STATUS_WORDS['on-shift']} since ${clockTime(since, timeZone)}`
+    : PERSON_STATUS_WORDS['on-shift'];
   const running = view.lines.filter((line) => line.clockedOn);
   if (running.length === 0) {
     return {
@@ -37,7 +43,7 @@ export function statusText(
   }
   const parts = running.map(
     (line) =>
-      `RO ${line.repairOrderNumber} line ${line.lineNo} for ${hoursMinutes(lineSeconds(view, line, now, split).mine)}`,
+      `${repairOrderLineWords(line.repairOrderNumber, line.lineNo)} for ${formatHours(lineSeconds(view, line, now, split).mine)}`,
   );
   return {
     headline: `${head} · on ${parts.join(' and ')}`,

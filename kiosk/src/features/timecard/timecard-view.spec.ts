@@ -106,8 +106,8 @@ describe(buildWeekView.name, () => {
     expect(view.days.map((d) => d.day)).toEqual(['2026-11-30']);
     expect(view.days[0]!.label).toBe('Monday, Nov 30');
     expect(view.days[0]!.punches.map((p) => [p.time, p.words])).toEqual([
-      ['4:00', 'Shift start'],
-      ['12:30', 'Shift end'],
+      ['4:00 pm', 'Shift start'],
+      ['12:30 am', 'Shift end'],
     ]);
   });
 
@@ -133,7 +133,7 @@ describe(buildWeekView.name, () => {
     );
     expect(view.days[0]!.punches.map((p) => [p.words, p.detail])).toEqual([
       ['Clock on', 'RO 4497 · Battery and charging system test'],
-      ['Meal break start', null],
+      ['Break start · meal', null],
     ]);
   });
 
@@ -208,8 +208,8 @@ describe(buildWeekView.name, () => {
     };
     const pay = { payableCents: 575_30 } as Timecard['summary']['pay'];
     expect(weekFigures(card({ summary: { labour, pay, closed: false, caution: 'An estimate' } }))).toEqual([
-      { label: 'Flagged', value: '49.10 h' },
-      { label: 'Clocked on jobs', value: '46.00 h' },
+      { label: 'Flagged', value: '49.1 h' },
+      { label: 'Clocked on jobs', value: '46.0 h' },
       { label: 'Efficiency', value: '107%' },
       { label: 'Estimated pay', value: '$575.30' },
     ]);

@@ -1,10 +1,16 @@
-import type { PunchKind, Timecard, TimecardPunch, TimecardTotals } from '@baytime/shared';
+import {
+  formatBookHours,
+  punchWords,
+  type Timecard,
+  type TimecardPunch,
+  type TimecardTotals,
+} from '@baytime/shared';
 import { clockTime } from '@/lib/format';
 
 export interface PunchRow {
   id: string;
   time: string;
-  /** "Shift start", "Clock on", "Meal break start". */
+  /** "Shift start", "Clock on", "Break start · meal". */
   words: string;
   /** "RO 4497 · Battery and charging system test" for a job punch. */
   detail: string | null;
@@ -31,21 +37,6 @@ export interface WeekView {
   days: WeekDay[];
   /** Days without any time or punch, by their short names: "Sun, Sat". */
   emptyDays: string[];
-}
-
-const KIND_WORDS: Record<PunchKind, string> = {
-  'shift-in': 'Shift start',
-  'shift-out': 'Shift end',
-  'break-start': 'Break start',
-  'break-end': 'Break end',
-  'job-on': 'Clock on',
-  'job-off': 'Clock off',
-};
-
-function punchWords(punch: TimecardPunch): string {
-  if (punch.kind === 'break-start' && punch.breakKind)
-    return `${punch.breakKind === 'rest' ? 'Rest' : 'Meal'} break start`;
-  return KIND_WORDS[punch.kind];
 }
 
 const dayKeyFormats = new Map<string, Intl.DateTimeFormat>();
@@ -163,8 +154,8 @@ const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD
 export function weekFigures(card: Timecard): { label: string; value: string }[] {
   const { labour, pay } = card.summary;
   const figures = [
-    { label: 'Flagged', value: `${labour.flaggedHours.toFixed(2)} h` },
-    { label: 'Clocked on jobs', value: `${labour.clockedHours.toFixed(2)} h` },
+    { label: 'Flagged', value: formatBookHours(labour.flaggedHours) },
+    { label: 'Clocked on jobs', value: formatBookHours(labour.clockedHours) },
     {
       label: 'Efficiency',
       value: labour.efficiency === null ? '–' : `${Math.round(labour.efficiency * 100)}%`,

@@ -84,9 +84,9 @@ describe(decideAlerts.name, () => {
     ).toEqual([]);
   });
 
-  it('chimes when a fixed hold counts down to zero on the tablet, before the server says so', () => {
+  it('chimes when a set time counts down to zero on the tablet, before the server says so', () => {
     const running = timer(3, {
-      kind: 'hold',
+      kind: 'set-time',
       targetC: null,
       durationSeconds: 600,
       estimate: {
@@ -161,7 +161,7 @@ describe(liveAlerts.name, () => {
 describe(alertTitle.name, () => {
   it('names the bay and what happened', () => {
     expect(alertTitle({ kind: 'warm-up' }, 'Bay 4')).toBe('Bay 4: target reached');
-    expect(alertTitle({ kind: 'hold' }, 'Bay 2')).toBe('Bay 2: hold finished');
+    expect(alertTitle({ kind: 'set-time' }, 'Bay 2')).toBe('Bay 2: set time over');
     expect(alertTitle({ kind: 'cool-down' }, null)).toBe('Timer: target reached');
   });
 });

@@ -91,9 +91,9 @@ export function liveAlerts(alerts: readonly TimerAlert[], timers: readonly Timer
   return alerts.filter((alert) => running.has(alert.timerId));
 }
 
-/** "Bay 4: target reached", "Bay 2: hold finished". */
+/** "Bay 4: target reached", "Bay 2: set time over". */
 export function alertTitle(alert: Pick<TimerAlert, 'kind'>, bayName: string | null): string {
-  const what = alert.kind === 'hold' ? 'hold finished' : 'target reached';
+  const what = alert.kind === 'set-time' ? 'set time over' : 'target reached';
   return bayName ? `${bayName}: ${what}` : `Timer: ${what}`;
 }
 

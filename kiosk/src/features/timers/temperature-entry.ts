@@ -12,7 +12,7 @@ export interface EntryRules {
 
 /** Temperatures: a sign, three digits (572 °F is the top), one decimal. */
 export const TEMPERATURE_ENTRY: EntryRules = { minus: true, decimals: 1, maxIntegerDigits: 3 };
-/** Minutes for a fixed hold: whole minutes up to 48 hours. */
+/** Minutes for a set time: whole minutes up to 48 hours. */
 export const MINUTES_ENTRY: EntryRules = { minus: false, decimals: 0, maxIntegerDigits: 4 };
 
 /** The schema's limits, in °C. */
@@ -80,7 +80,7 @@ export function readTemperature(text: string, units: UnitSystem, what = 'a tempe
 
 /** A target and an optional level-off temperature that a timer could ever reach. */
 export function checkTimerTemperatures(
-  kind: Exclude<TimerKind, 'hold'>,
+  kind: Exclude<TimerKind, 'set-time'>,
   targetC: number,
   ambientC: number | null,
 ): string | null {
@@ -92,7 +92,7 @@ export function checkTimerTemperatures(
   return null;
 }
 
-/** Minutes for a fixed hold, as seconds for the API. */
+/** Minutes for a set time, as seconds for the API. */
 export function readMinutes(text: string): Reading<number> {
   const value = parseEntry(text);
   if (value === null) return { ok: false, message: 'Type the minutes' };

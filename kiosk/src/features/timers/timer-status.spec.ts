@@ -34,9 +34,9 @@ function warmUp(changes: Partial<TimerDto> = {}): TimerDto {
   };
 }
 
-function hold(changes: Partial<TimerDto> = {}): TimerDto {
+function setTime(changes: Partial<TimerDto> = {}): TimerDto {
   return warmUp({
-    kind: 'hold',
+    kind: 'set-time',
     targetC: null,
     durationSeconds: 1800,
     label: 'Sealant cure',
@@ -73,9 +73,9 @@ describe(describeTimer.name, () => {
       clock,
     );
     expect(view.state).toBe('About 6 min left');
-    expect(view.detail).toBe('Ready about 10:06');
+    expect(view.detail).toBe('Ready about 10:06 am');
     expect(view.confidence).toBe('fair estimate');
-    expect(view.lastReading).toBe('Last reading 140 °F at 9:59 · 2 readings');
+    expect(view.lastReading).toBe('Last reading 140 °F at 9:59 am · 2 readings');
     expect(view.progress).toBeCloseTo(0.5, 10);
   });
 
@@ -113,7 +113,7 @@ describe(describeTimer.name, () => {
       clock,
     );
     expect(view).toMatchObject({
-      state: 'Target reached at 9:58',
+      state: 'Target reached at 9:58 am',
       tone: 'done',
       finished: true,
       progress: 1,
@@ -121,27 +121,27 @@ describe(describeTimer.name, () => {
     expect(view.takesReadings).toBe(false);
   });
 
-  it('counts a fixed hold down and says when it ends', () => {
-    const view = describeTimer(hold(), { ...clock, now: T0 + 5_000 });
-    expect(view.headline).toBe('Sealant cure · 30 min hold');
+  it('counts a set time down and says when it ends', () => {
+    const view = describeTimer(setTime(), { ...clock, now: T0 + 5_000 });
+    expect(view.headline).toBe('Sealant cure · 30 min');
     expect(view.state).toBe('19:55 left');
-    expect(view.detail).toBe('Ends 10:20');
+    expect(view.detail).toBe('Ends 10:20 am');
     expect(view.progress).toBeCloseTo(1 - 1195 / 1800, 10);
   });
 
-  it('calls a hold finished once its time is up, even before the server says so', () => {
-    const view = describeTimer(hold(), { ...clock, now: T0 + 1_200_000 });
-    expect(view).toMatchObject({ state: 'Hold finished at 10:20', finished: true });
+  it('calls a set time over once its time is up, even before the server says so', () => {
+    const view = describeTimer(setTime(), { ...clock, now: T0 + 1_200_000 });
+    expect(view).toMatchObject({ state: 'Time up at 10:20 am', finished: true });
   });
 });
 
 describe(finishedAt.name, () => {
   it('is null for a stopped timer or one still running', () => {
     expect(finishedAt(warmUp(), clock)).toBeNull();
-    expect(finishedAt(hold({ endedAt: iso(0), reachedAt: iso(-1) }), clock)).toBeNull();
+    expect(finishedAt(setTime({ endedAt: iso(0), reachedAt: iso(-1) }), clock)).toBeNull();
   });
 
   it('takes the server’s reachedAt first', () => {
-    expect(finishedAt(hold({ reachedAt: iso(-3) }), clock)).toBe(T0 - 180_000);
+    expect(finishedAt(setTime({ reachedAt: iso(-3) }), clock)).toBe(T0 - 180_000);
   });
 });

@@ -1,4 +1,4 @@
-import type { TimerDto, UnitSystem } from '@baytime/shared';
+import { TIMER_CONFIDENCE_WORDS, TIMER_KIND_LABELS, type TimerDto, type UnitSystem } from '@baytime/shared';
 import { clockTime, countdown, durationWords } from '@/lib/format';
 import { showTemperature } from './temperature-entry';
 
@@ -14,7 +14,7 @@ export interface TimerClock {
 export type TimerTone = 'running' | 'warn' | 'done';
 
 export interface TimerView {
-  /** "Warm-up to 175 °F", "Sealant cure · 30 min hold". */
+  /** "Warm-up to 175 °F", "Sealant cure · 30 min". */
   headline: string;
   /** The big line: "About 6 min left", "12:34 left", "Target reached at 3:58". */
   state: string;
@@ -32,8 +32,6 @@ export interface TimerView {
   takesReadings: boolean;
 }
 
-const CONFIDENCE_WORDS = { low: 'rough estimate', medium: 'fair estimate', high: 'good estimate' } as const;
-
 /** Seconds left now, counted down from what the server said when the timer was fetched. */
 export function secondsLeftNow(timer: TimerDto, clock: Pick<TimerClock, 'now' | 'fetchedAt'>): number | null {
   const left = timer.estimate.secondsLeft;
@@ -41,14 +39,14 @@ export function secondsLeftNow(timer: TimerDto, clock: Pick<TimerClock, 'now' | 
   return Math.max(0, left - (clock.now - clock.fetchedAt) / 1000);
 }
 
-/** The moment the timer finished (target reached, hold over), or null while it runs. */
+/** The moment the timer finished (target reached, set time over), or null while it runs. */
 export function finishedAt(timer: TimerDto, clock: Pick<TimerClock, 'now' | 'fetchedAt'>): number | null {
   if (timer.endedAt !== null) return null;
   if (timer.reachedAt !== null) return Date.parse(timer.reachedAt);
   const { status, etaAt, secondsLeft } = timer.estimate;
   if (status === 'reached' || status === 'done')
     return etaAt ? Date.parse(etaAt) : clock.fetchedAt + (secondsLeft ?? 0) * 1000;
-  if (timer.kind === 'hold' && secondsLeft !== null) {
+  if (timer.kind === 'set-time' && secondsLeft !== null) {
     const end = clock.fetchedAt + secondsLeft * 1000;
     return end <= clock.now ? end : null;
   }
@@ -61,11 +59,11 @@ function lastReadingOf(timer: TimerDto) {
 }
 
 export function timerHeadline(timer: TimerDto, units: UnitSystem): string {
-  if (timer.kind === 'hold') {
+  if (timer.kind === 'set-time') {
     const length = durationWords(timer.durationSeconds ?? 0);
-    return timer.label ? `${timer.label} · ${length} hold` : `Fixed hold · ${length}`;
+    return `${timer.label ?? TIMER_KIND_LABELS['set-time']} · ${length}`;
   }
-  const word = timer.kind === 'warm-up' ? 'Warm-up' : 'Cool-down';
+  const word = TIMER_KIND_LABELS[timer.kind];
   return timer.targetC === null ? word : `${word} to ${showTemperature(timer.targetC, units)}`;
 }
 
@@ -76,14 +74,14 @@ export function describeTimer(timer: TimerDto, clock: TimerClock): TimerView {
   const ended = finishedAt(timer, clock);
   const at = (ms: number | string) => clockTime(ms, timeZone);
 
-  if (timer.kind === 'hold') {
+  if (timer.kind === 'set-time') {
     const duration = timer.durationSeconds ?? 0;
     const left = secondsLeftNow(timer, clock) ?? 0;
     const progress = duration > 0 ? Math.min(1, Math.max(0, (duration - left) / duration)) : 1;
     if (ended !== null)
       return {
         headline,
-        state: `Hold finished at ${at(ended)}`,
+        state: `Time up at ${at(ended)}`,
         detail: null,
         confidence: null,
         lastReading: null,
@@ -177,7 +175,7 @@ export function describeTimer(timer: TimerDto, clock: TimerClock): TimerView {
               ? 'Less than a minute left'
               : `About ${durationWords(left)} left`,
         detail: eta ? `Ready about ${at(eta)}` : null,
-        confidence: CONFIDENCE_WORDS[timer.estimate.confidence],
+        confidence: TIMER_CONFIDENCE_WORDS[timer.estimate.confidence],
         tone: 'running',
       };
     }

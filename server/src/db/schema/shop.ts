@@ -1,6 +1,6 @@
 import { sqliteTable, integer, real, text } from 'drizzle-orm/sqlite-core';
 import { oneOf } from './checks.js';
-import { CONCURRENT_SPLITS, UNIT_SYSTEMS, type OpeningHours } from '@baytime/shared';
+import { CLOCK_FORMATS, CONCURRENT_SPLITS, UNIT_SYSTEMS, type OpeningHours } from '@baytime/shared';
 
 /** One row (id 1): the shop's settings. The pay rules that take effect from a date are in `pay_rules`. */
 export const shopSettings = sqliteTable(
@@ -12,6 +12,7 @@ export const shopSettings = sqliteTable(
     workweekStartDay: integer('workweek_start_day').notNull(),
     workweekStartHour: integer('workweek_start_hour').notNull(),
     units: text('units', { enum: UNIT_SYSTEMS }).notNull(),
+    clockFormat: text('clock_format', { enum: CLOCK_FORMATS }).notNull().default('12h'),
     maxConcurrentJobs: integer('max_concurrent_jobs').notNull(),
     concurrentSplit: text('concurrent_split', { enum: CONCURRENT_SPLITS }).notNull(),
     openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningHours>().notNull(),
@@ -31,7 +32,11 @@ export const shopSettings = sqliteTable(
     approvalLinkHours: integer('approval_link_hours').notNull().default(72),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
   },
-  (t) => [oneOf(t.units, UNIT_SYSTEMS), oneOf(t.concurrentSplit, CONCURRENT_SPLITS)],
+  (t) => [
+    oneOf(t.units, UNIT_SYSTEMS),
+    oneOf(t.concurrentSplit, CONCURRENT_SPLITS),
+    oneOf(t.clockFormat, CLOCK_FORMATS),
+  ],
 );
 
 export const holdPresets = sqliteTable('hold_presets', {

@@ -1,4 +1,5 @@
 import { Badge } from '@fluentui/react-components';
+import { CONNECTION_WORDS } from '@baytime/shared';
 import { PartsControl } from '@/features/parts/components/parts-control';
 import { useShop } from '@/features/shop/api/get-shop';
 import { useMinuteNow } from '@/hooks/use-minute-now';
@@ -9,9 +10,9 @@ import { useOffice } from './office-context';
 export { PageError as ErrorBoundary } from './page-error';
 
 const LINK_BADGES: Record<OfficeLinkStatus, { text: string; color: 'brand' | 'informative' | 'danger' }> = {
-  live: { text: 'Live', color: 'brand' },
-  connecting: { text: 'Connecting…', color: 'informative' },
-  down: { text: 'Link lost: reconnecting', color: 'danger' },
+  live: { text: CONNECTION_WORDS.online, color: 'brand' },
+  connecting: { text: CONNECTION_WORDS.connecting, color: 'informative' },
+  down: { text: CONNECTION_WORDS.offline, color: 'danger' },
 };
 
 export function Component() {

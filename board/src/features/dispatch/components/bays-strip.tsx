@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { useRecordFinalCheck } from '../api/final-check';
 import { useDroppable } from '@dnd-kit/core';
 import { Button, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
-import type { DispatchBoard, DispatchLine } from '@baytime/shared';
+import { BAY_STATE_WORDS, type DispatchBoard, type DispatchLine } from '@baytime/shared';
 import { StateChip } from '@/components/state-chip';
 import { dropId } from '../dispatch-model';
 
@@ -90,9 +90,9 @@ function BayChip({
           size="small"
           disabled={finalCheck.isPending}
           onClick={() => finalCheck.mutate(bay.id)}
-          aria-label={`Final check done in ${bay.name}`}
+          aria-label={`${BAY_STATE_WORDS.check} done in ${bay.name}`}
         >
-          Final check done
+          {BAY_STATE_WORDS.check} done
         </Button>
       )}
       {canEdit && (bay.state === 'check' || bay.state === 'ready') && (

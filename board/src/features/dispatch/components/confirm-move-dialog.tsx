@@ -10,6 +10,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
+import { repairOrderLineWords } from '@baytime/shared';
 import { confirmQuestion, type MovePlan } from '../dispatch-model';
 
 const useStyles = makeStyles({
@@ -37,9 +38,7 @@ export function ConfirmMoveDialog({
             <DialogTitle>{question.title}</DialogTitle>
             <DialogContent className={styles.content}>
               <Body1>
-                <strong>
-                  RO {plan.line.repairOrderNumber} · L{plan.line.lineNo}
-                </strong>{' '}
+                <strong>{repairOrderLineWords(plan.line.repairOrderNumber, plan.line.lineNo)}</strong>{' '}
                 {plan.line.title}
               </Body1>
               <Body1>{question.text}</Body1>

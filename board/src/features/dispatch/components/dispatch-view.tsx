@@ -21,7 +21,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import type { DispatchBoard } from '@baytime/shared';
+import { JOB_LINE_STATUS_WORDS, inSentence, type DispatchBoard } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
@@ -116,7 +116,8 @@ function Summary({ board, canEdit }: { board: DispatchBoard; canEdit: boolean })
   const styles = useStyles();
   return (
     <>
-      <strong>{board.queue.length}</strong> waiting · <strong>{board.lanes.length}</strong> technicians ·{' '}
+      <strong>{board.queue.length}</strong> {inSentence(JOB_LINE_STATUS_WORDS.queued)} ·{' '}
+      <strong>{board.lanes.length}</strong> technicians ·{' '}
       {board.forecastNote ? (
         <span className={styles.late}>{board.forecastNote}</span>
       ) : board.lateCount > 0 ? (

@@ -1,10 +1,19 @@
 import { useEffect, useRef, type CSSProperties, type ReactNode } from 'react';
 import { useDraggable } from '@dnd-kit/core';
 import { Badge, Caption1, Spinner, Text, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
-import { BAY_PALETTE, HOLD_REASON_LABELS, type DispatchBoard, type DispatchLine } from '@baytime/shared';
+import {
+  repairOrderLineWords,
+  BAY_PALETTE,
+  HOLD_REASON_LABELS,
+  JOB_LINE_STATUS_WORDS,
+  aboutWords,
+  skillWords,
+  type DispatchBoard,
+  type DispatchLine,
+} from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { findLane, firstName, skillWarning, type MoveTarget } from '../dispatch-model';
-import { formatBookHours, formatHm, formatShopTime, formatWait } from '../dispatch-format';
+import { formatBookHours, formatHours, formatShopTime, formatWait } from '../dispatch-format';
 import { PRIORITY_LABELS } from '../dispatch-words';
 import { useLineTools } from './line-tools';
 import { MoveMenu } from './move-menu';
@@ -179,9 +188,7 @@ export function LineCard({
       aria-label={`RO ${line.repairOrderNumber} line ${line.lineNo}: ${line.title}${late ? ', forecast late' : ''}`}
     >
       <div className={styles.top}>
-        <Caption1 className={styles.ro}>
-          RO {line.repairOrderNumber} · L{line.lineNo}
-        </Caption1>
+        <Caption1 className={styles.ro}>{repairOrderLineWords(line.repairOrderNumber, line.lineNo)}</Caption1>
         <Caption1 className={styles.vehicle}>{line.vehicle}</Caption1>
         {pending && <Spinner size="extra-tiny" aria-label="Saving" />}
         {late && (
@@ -208,7 +215,7 @@ export function LineCard({
           <Tag>
             <Glyph name="pause" className={styles.glyph} />
             <span>
-              <strong>Held</strong>
+              <strong>{JOB_LINE_STATUS_WORDS.held}</strong>
               {line.holdReason && `: ${HOLD_REASON_LABELS[line.holdReason]}`}
             </span>
           </Tag>
@@ -221,7 +228,9 @@ export function LineCard({
             </span>
           </Tag>
         )}
-        {line.status === 'working' && onIt.length === 0 && <Tag className={styles.dim}>Started</Tag>}
+        {line.status === 'working' && onIt.length === 0 && (
+          <Tag className={styles.dim}>{JOB_LINE_STATUS_WORDS.working} · nobody clocked on</Tag>
+        )}
         {bay && (
           <Tag>
             <Glyph name={BAY_PALETTE[bay.state].icon} className={styles.glyph} />
@@ -229,7 +238,7 @@ export function LineCard({
           </Tag>
         )}
         {place === 'queue' ? (
-          <Tag>Needs level {line.skillLevel}</Tag>
+          <Tag>Needs {skillWords(line.skillLevel)}</Tag>
         ) : (
           warning && (
             <Tag className={styles.warn}>
@@ -243,7 +252,7 @@ export function LineCard({
         <div className={styles.facts}>
           <Caption1 className={styles.numbers}>
             <strong>{formatBookHours(line.bookHours)}</strong> book
-            {line.clockedSeconds > 0 && ` · ${formatHm(line.clockedSeconds)} clocked`}
+            {line.clockedSeconds > 0 && ` · ${formatHours(line.clockedSeconds)} clocked`}
           </Caption1>
           <Caption1 className={styles.numbers}>
             {line.promisedAt ? `Promised ${formatShopTime(line.promisedAt, nowMs, timeZone)}` : 'No promise'}
@@ -280,7 +289,7 @@ function LaneFacts({
       <div
         className={styles.bar}
         role="img"
-        aria-label={`${formatHm(clocked)} clocked of ${formatHm(book)} book`}
+        aria-label={`${formatHours(clocked)} clocked of ${formatHours(book)} book`}
       >
         <div className={styles.within} style={{ width: `${(Math.min(clocked, book) / scale) * 100}%` }} />
         {over > 0 && (
@@ -292,14 +301,14 @@ function LaneFacts({
       </div>
       <div className={styles.facts}>
         <Caption1 className={styles.numbers}>
-          <strong>{formatHm(clocked)}</strong> of {formatHm(book)} book
-          {over > 0 && <span className={styles.overText}> · +{formatHm(over)} over</span>}
+          <strong>{formatHours(clocked)}</strong> of {formatHours(book)} book
+          {over > 0 && <span className={styles.overText}> · +{formatHours(over)} over</span>}
         </Caption1>
         <Caption1 className={mergeClasses(styles.numbers, late && styles.lateText)}>
           {line.status === 'held'
             ? 'No forecast while held'
             : line.forecast
-              ? `Done ≈ ${formatShopTime(line.forecast.finishAt, nowMs, timeZone)}`
+              ? `${JOB_LINE_STATUS_WORDS.done} ${aboutWords(formatShopTime(line.forecast.finishAt, nowMs, timeZone))}`
               : 'Forecast updating…'}
           {line.promisedAt &&
             (late || line.status === 'held') &&

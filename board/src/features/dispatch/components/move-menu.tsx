@@ -14,7 +14,7 @@ import {
   tokens,
   type MenuButtonProps,
 } from '@fluentui/react-components';
-import { BAY_PALETTE, PRIORITIES, type DispatchBoard, type DispatchLine } from '@baytime/shared';
+import { BAY_PALETTE, PRIORITIES, skillWords, type DispatchBoard, type DispatchLine } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { skillWarning, type MoveTarget } from '../dispatch-model';
 import { PRIORITY_LABELS, TECH_STATUS_LABELS } from '../dispatch-words';
@@ -80,7 +80,7 @@ export const MoveMenu = forwardRef<HTMLButtonElement, MoveMenuProps>(function Mo
                     warning ? (
                       <span className={styles.warn}>{warning}</span>
                     ) : (
-                      `L${lane.technician.skillLevel} · ${TECH_STATUS_LABELS[lane.technician.status]}`
+                      `${skillWords(lane.technician.skillLevel)} · ${TECH_STATUS_LABELS[lane.technician.status]}`
                     )
                   }
                 >

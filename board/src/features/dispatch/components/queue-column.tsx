@@ -1,6 +1,6 @@
 import { useDroppable } from '@dnd-kit/core';
 import { Caption1, Text, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
-import type { DispatchBoard, DispatchLine } from '@baytime/shared';
+import { JOB_LINE_STATUS_WORDS, type DispatchBoard, type DispatchLine } from '@baytime/shared';
 import { dropId, sortQueue, type MoveTarget } from '../dispatch-model';
 import { formatBookHours } from '../dispatch-format';
 import { LineCard } from './line-card';
@@ -59,7 +59,7 @@ export function QueueColumn({
       <header className={column.head}>
         <div className={column.headRow}>
           <Text id="dispatch-queue" as="h2" className={styles.title}>
-            Waiting for a technician
+            {JOB_LINE_STATUS_WORDS.queued}
           </Text>
         </div>
         <Caption1 className={styles.dim}>

@@ -8,7 +8,14 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import type { DispatchBoard, DispatchLane, DispatchLine } from '@baytime/shared';
+import {
+  PERSON_STATUS_WORDS,
+  aboutWords,
+  skillWords,
+  type DispatchBoard,
+  type DispatchLane,
+  type DispatchLine,
+} from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { dropId, laneLoad, skillWarning, type MoveTarget } from '../dispatch-model';
 import { formatBookHours, formatEfficiency, formatShopTime } from '../dispatch-format';
@@ -19,10 +26,10 @@ const STATUS: Record<
   DispatchLane['technician']['status'],
   { label: string; color: 'brand' | 'important' | 'informative' | 'subtle'; appearance: 'tint' | 'outline' }
 > = {
-  'on-job': { label: 'On a job', color: 'brand', appearance: 'tint' },
-  idle: { label: 'Idle', color: 'important', appearance: 'outline' },
-  'on-break': { label: 'On break', color: 'informative', appearance: 'tint' },
-  off: { label: 'Off shift', color: 'subtle', appearance: 'tint' },
+  'on-job': { label: PERSON_STATUS_WORDS['on-job'], color: 'brand', appearance: 'tint' },
+  idle: { label: PERSON_STATUS_WORDS.idle, color: 'important', appearance: 'outline' },
+  'on-break': { label: PERSON_STATUS_WORDS['on-break'], color: 'informative', appearance: 'tint' },
+  off: { label: PERSON_STATUS_WORDS.off, color: 'subtle', appearance: 'tint' },
 };
 
 const useStyles = makeStyles({
@@ -107,14 +114,16 @@ export function TechLane({
           </Badge>
         </div>
         <Caption1 className={styles.facts}>
-          <span>Level {technician.skillLevel}</span>
+          <span>{skillWords(technician.skillLevel)}</span>
           <span title="Flagged ÷ clocked hours over the last four weeks">
             {formatEfficiency(lane.efficiency)} efficiency
           </span>
           <span>
             {load.lines} {load.lines === 1 ? 'line' : 'lines'} · {formatBookHours(load.bookHours)}
           </span>
-          {lane.finishAt && <span>Free ≈ {formatShopTime(lane.finishAt, nowMs, timeZone)}</span>}
+          {lane.finishAt && (
+            <span>Available {aboutWords(formatShopTime(lane.finishAt, nowMs, timeZone))}</span>
+          )}
           {late > 0 && <span className={styles.late}>{late} late</span>}
         </Caption1>
         {incoming && isOver && warning && (

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { dayClockTime } from '@/lib/shop-clock';
 import { Link } from 'react-router';
 import {
   Badge,
@@ -78,15 +79,7 @@ function actionsFor(exception: TimeException): Action[] {
   return ['review'];
 }
 
-const clock = (iso: string, timeZone: string) =>
-  new Intl.DateTimeFormat('en-US', {
-    weekday: 'short',
-    month: 'short',
-    day: 'numeric',
-    hour: 'numeric',
-    minute: '2-digit',
-    timeZone,
-  }).format(new Date(iso));
+const clock = (iso: string, timeZone: string) => dayClockTime(iso, timeZone);
 
 /** The week's exceptions, shop-wide: what to deal with before the pay figures are final. */
 export function ExceptionsView({ week }: { week: string }) {

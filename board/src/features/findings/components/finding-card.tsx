@@ -11,13 +11,14 @@ import {
 } from '@fluentui/react-components';
 import {
   FINDING_SEVERITY_ICONS,
-  FINDING_SEVERITY_WORDS,
+  FINDING_SEVERITY_LABELS,
+  lineStatusWords,
   formatCents,
   type FindingDto,
   type FindingSeverity,
 } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
-import { severityHeadline, waitedText } from '../findings-model';
+import { waitedText } from '../findings-model';
 import { FindingPhotos } from './finding-photos';
 
 const SEVERITY_COLOUR: Record<FindingSeverity, 'danger' | 'important' | 'informative'> = {
@@ -56,7 +57,6 @@ const useStyles = makeStyles({
     lineHeight: tokens.lineHeightBase400,
     whiteSpace: 'pre-wrap',
   },
-  severityText: { color: tokens.colorNeutralForeground2 },
   facts: {
     display: 'flex',
     flexWrap: 'wrap',
@@ -107,15 +107,13 @@ export function SeverityBadge({ severity }: { severity: FindingSeverity }) {
       size="large"
       icon={<Glyph name={FINDING_SEVERITY_ICONS[severity]} className={styles.badgeGlyph} />}
     >
-      {severityHeadline(severity)}
+      {FINDING_SEVERITY_LABELS[severity]}
     </Badge>
   );
 }
 
 const lineState = (finding: FindingDto) =>
-  finding.lineStatus === 'held'
-    ? `held${finding.holdReason ? ` for ${finding.holdReason === 'approval' ? 'the customer’s approval' : finding.holdReason}` : ''}`
-    : finding.lineStatus;
+  lineStatusWords({ status: finding.lineStatus, holdReason: finding.holdReason });
 
 /** One pending finding: what, where, who, how urgent, photos, and what the advisor can do next. */
 export function FindingCard({
@@ -167,9 +165,6 @@ export function FindingCard({
             <span className={styles.dim}>({lineState(finding)})</span>
           </Text>
           <blockquote className={styles.note}>{finding.note}</blockquote>
-          {FINDING_SEVERITY_WORDS[finding.severity] !== severityHeadline(finding.severity) && (
-            <Caption1 className={styles.severityText}>{FINDING_SEVERITY_WORDS[finding.severity]}.</Caption1>
-          )}
           <div className={styles.facts}>
             <Caption1>
               Found by <strong>{finding.technicianName}</strong>, {formatWhen(finding.createdAt)} ({ago})

@@ -1,4 +1,5 @@
-import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { dayClockTime } from '@/lib/shop-clock';
 import { Link as RouterLink } from 'react-router';
 import { paths } from '@/config/paths';
 import {
@@ -20,7 +21,13 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import type { FindingAnswerResult, FindingDto } from '@baytime/shared';
+import {
+  FINDING_ANSWER_WORDS,
+  formatBookHours,
+  lineWords,
+  type FindingAnswerResult,
+  type FindingDto,
+} from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useFindings } from '../api/get-findings';
 import { useRequestApproval } from '../api/request-approval';
@@ -74,30 +81,15 @@ const useStyles = makeStyles({
 });
 
 function useWhen(timeZone: string | undefined) {
-  return useMemo(() => {
-    const options: Intl.DateTimeFormatOptions = {
-      weekday: 'short',
-      month: 'short',
-      day: 'numeric',
-      hour: 'numeric',
-      minute: '2-digit',
-    };
-    let format: Intl.DateTimeFormat;
-    try {
-      format = new Intl.DateTimeFormat('en-US', { ...options, timeZone });
-    } catch {
-      format = new Intl.DateTimeFormat('en-US', options);
-    }
-    return (iso: string) => format.format(new Date(iso));
-  }, [timeZone]);
+  return useCallback((iso: string) => dayClockTime(iso, timeZone), [timeZone]);
 }
 
 function answerSummary(result: FindingAnswerResult): string {
   const { finding, createdLine, resumedLine } = result;
   const head =
     finding.answer === 'approved' && createdLine
-      ? `Approved: line ${createdLine.lineNo} “${createdLine.title}” (${createdLine.bookHours} h) added to RO ${finding.repairOrderNumber}, waiting in the queue.`
-      : `Declined: noted on RO ${finding.repairOrderNumber}.`;
+      ? `${FINDING_ANSWER_WORDS.approved}: ${lineWords(createdLine.lineNo)} “${createdLine.title}” (${formatBookHours(createdLine.bookHours)}) added to RO ${finding.repairOrderNumber}, waiting in the queue.`
+      : `${FINDING_ANSWER_WORDS.declined}: noted on RO ${finding.repairOrderNumber}.`;
   return resumedLine ? `${head} Line ${resumedLine.lineNo} is no longer held and can carry on.` : head;
 }
 
@@ -126,7 +118,7 @@ function AnsweredGroupCard({
           <div className={styles.answeredText}>
             <div className={styles.answeredHead}>
               <Badge appearance="filled" color={finding.answer === 'approved' ? 'brand' : 'informative'}>
-                {finding.answer === 'approved' ? 'Approved' : 'Declined'}
+                {FINDING_ANSWER_WORDS[finding.answer]}
               </Badge>
               <SeverityBadge severity={finding.severity} />
               <Text>

@@ -19,7 +19,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { OFFLINE_PUNCH_STATUSES, type OfflinePunchDto, type OfflinePunchStatus } from '@baytime/shared';
-import { dateTimeFormat } from '@/lib/date-format';
+import { dayClockTime } from '@/lib/shop-clock';
 import { formErrorText } from '@/lib/form-errors';
 import { useDecideOfflinePunch } from '../api/decide-offline-punch';
 import { useOfflinePunches } from '../api/get-offline-punches';
@@ -49,13 +49,7 @@ export function OfflinePunchesList({ timeZone }: { timeZone: string | undefined 
   const [status, setStatus] = useState<OfflinePunchStatus | null>(null);
   const punches = useOfflinePunches(status);
   const decide = useDecideOfflinePunch();
-  const when = dateTimeFormat(timeZone, {
-    weekday: 'short',
-    month: 'short',
-    day: 'numeric',
-    hour: 'numeric',
-    minute: '2-digit',
-  });
+  const when = { format: (at: Date) => dayClockTime(at, timeZone) };
 
   return (
     <>
@@ -123,7 +117,7 @@ function Row({
   onDecide,
 }: {
   punch: OfflinePunchDto;
-  when: Intl.DateTimeFormat;
+  when: { format: (at: Date) => string };
   busy: boolean;
   onDecide: (decision: 'confirm' | 'reject') => void;
 }) {

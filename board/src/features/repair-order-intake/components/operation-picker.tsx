@@ -1,5 +1,5 @@
 import { Combobox, Input, Option, makeStyles, tokens } from '@fluentui/react-components';
-import type { OperationDto } from '@baytime/shared';
+import { formatBookHours, skillWords, type OperationDto } from '@baytime/shared';
 import { matchOperations } from '../intake-form';
 
 const useStyles = makeStyles({
@@ -49,7 +49,7 @@ export function OperationPicker({ id, value, operations, autoFocus, onTitle, onP
           <span className={styles.option}>
             <span>{operation.title}</span>
             <span className={styles.hours}>
-              {operation.defaultBookHours} h · level {operation.skillLevel}
+              {formatBookHours(operation.defaultBookHours)} · {skillWords(operation.skillLevel)}
             </span>
           </span>
         </Option>

@@ -1,5 +1,8 @@
 import { Badge, Body1, Caption1, makeStyles, tokens } from '@fluentui/react-components';
 import {
+  lineWords,
+  FINDING_ANSWER_WORDS,
+  FINDING_SEVERITY_LABELS,
   ANSWER_CHANNEL_WORDS,
   type FindingAnswer,
   type FindingDto,
@@ -26,15 +29,15 @@ const useStyles = makeStyles({
 });
 
 const SEVERITY: Record<FindingSeverity, { label: string; color: 'danger' | 'important' | 'informative' }> = {
-  'safety-now': { label: 'Safety: fix now', color: 'danger' },
-  soon: { label: 'Fix soon', color: 'important' },
-  watch: { label: 'Watch', color: 'informative' },
+  'safety-now': { label: FINDING_SEVERITY_LABELS['safety-now'], color: 'danger' },
+  soon: { label: FINDING_SEVERITY_LABELS.soon, color: 'important' },
+  watch: { label: FINDING_SEVERITY_LABELS.watch, color: 'informative' },
 };
 
 const ANSWER: Record<FindingAnswer, { label: string; color: 'informative' | 'brand' | 'subtle' }> = {
-  pending: { label: 'Waiting for the customer', color: 'informative' },
-  approved: { label: 'Approved', color: 'brand' },
-  declined: { label: 'Declined', color: 'subtle' },
+  pending: { label: FINDING_ANSWER_WORDS.pending, color: 'informative' },
+  approved: { label: FINDING_ANSWER_WORDS.approved, color: 'brand' },
+  declined: { label: FINDING_ANSWER_WORDS.declined, color: 'subtle' },
 };
 
 export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZone: string | undefined }) {
@@ -45,7 +48,7 @@ export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZo
     <article className={styles.card} aria-label={`Finding on line ${finding.lineNo}`}>
       <div className={styles.head}>
         <Body1 className={styles.line}>
-          L{finding.lineNo} {finding.lineTitle}
+          {lineWords(finding.lineNo)} · {finding.lineTitle}
         </Body1>
         <Badge appearance="filled" color={severity.color}>
           {severity.label}

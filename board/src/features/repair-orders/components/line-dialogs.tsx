@@ -1,5 +1,7 @@
 import { Field, Input, Textarea } from '@fluentui/react-components';
 import {
+  lineWithTitleWords,
+  lineWords,
   addJobLineSchema,
   cancelJobLineSchema,
   editJobLineSchema,
@@ -33,7 +35,7 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
   const { errors } = form.formState;
   return (
     <FormDialog
-      title={`Edit L${line.lineNo}`}
+      title={`Edit ${lineWords(line.lineNo)}`}
       submitLabel="Save line"
       pending={edit.isPending}
       formError={errors.root?.server?.message}
@@ -100,7 +102,7 @@ export function CancelLineDialog({ repairOrderId, line, onClose }: LineDialogPro
   const { errors } = form.formState;
   return (
     <FormDialog
-      title={`Cancel L${line.lineNo} ${line.title}`}
+      title={`Cancel ${lineWithTitleWords(line.lineNo, line.title)}`}
       submitLabel="Cancel the line"
       pending={cancel.isPending}
       formError={errors.root?.server?.message}

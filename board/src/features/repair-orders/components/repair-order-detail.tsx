@@ -45,9 +45,17 @@ import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs'
 import { RepairOrderPrint } from './repair-order-print';
 import { sentToText } from '@/lib/notice-words';
 import {
+  BAY_STATE_WORDS,
+  JOB_LINE_STATUS_WORDS,
+  REPAIR_ORDER_STATUS_WORDS,
+  aboutWords,
+  lineWords,
+  skillWords,
+} from '@baytime/shared';
+import {
   formatBookHours,
   formatDateTime,
-  formatHm,
+  formatHours,
   formatOdometer,
   formatOverUnder,
   groupVin,
@@ -120,11 +128,7 @@ type LineDialog =
   | { kind: 'add' }
   | { kind: 'edit-ro' };
 
-const STATUS = {
-  open: { label: 'Open', color: 'brand' },
-  done: { label: 'Work done', color: 'informative' },
-  closed: { label: 'Closed', color: 'subtle' },
-} as const;
+const STATUS_COLOURS = { open: 'brand', done: 'informative', closed: 'subtle' } as const;
 
 const LINE_STATUS_COLOURS = {
   queued: 'informative',
@@ -226,7 +230,6 @@ function Detail({
     [ids[index], ids[index + by]] = [ids[index + by]!, ids[index]!];
     reorder.mutate(ids);
   };
-  const status = STATUS[ro.status];
   const bookTotal = ro.lines.reduce((sum, line) => sum + line.bookHours, 0);
   const clockedTotal = rows.reduce((sum, row) => sum + row.clockedSeconds, 0);
 
@@ -237,8 +240,8 @@ function Detail({
         description={`${ro.vehicle} · ${ro.customerName}`}
         actions={
           <>
-            <Badge size="large" appearance="tint" color={status.color}>
-              {status.label}
+            <Badge size="large" appearance="tint" color={STATUS_COLOURS[ro.status]}>
+              {REPAIR_ORDER_STATUS_WORDS[ro.status]}
             </Badge>
             {late && (
               <Badge size="large" appearance="filled" color="danger">
@@ -307,7 +310,7 @@ function Detail({
           <Body1 className={styles.big}>{formatBookHours(bookTotal)} book</Body1>
           <Caption1 className={styles.dim}>
             {ro.lines.filter((line) => line.status === 'done').length} of {ro.lines.length} lines done
-            {` · ${formatHm(clockedTotal)} clocked`}
+            {` · ${formatHours(clockedTotal)} clocked`}
           </Caption1>
         </Fact>
         <Fact label="Concern" className={styles.concern}>
@@ -345,9 +348,9 @@ function Detail({
                     <TableRow key={line.id}>
                       <TableCell>
                         <span className={styles.lineTitle}>
-                          L{line.lineNo} {line.title}
+                          {lineWords(line.lineNo)} · {line.title}
                         </span>
-                        <Caption1 className={styles.dim}> · level {line.skillLevel}</Caption1>
+                        <Caption1 className={styles.dim}> · {skillWords(line.skillLevel)}</Caption1>
                         <div className={styles.threeCs}>
                           <Caption1>Concern: {line.concern}</Caption1>
                           {line.cause && <Caption1>Cause: {line.cause}</Caption1>}
@@ -369,7 +372,7 @@ function Detail({
                         </div>
                         {lineTools?.(line)}
                       </TableCell>
-                      <TableCell>{technician ?? <span className={styles.dim}>Unassigned</span>}</TableCell>
+                      <TableCell>{technician ?? <span className={styles.dim}>No technician</span>}</TableCell>
                       <TableCell>
                         {bay ? (
                           <span className={styles.cell}>
@@ -381,7 +384,7 @@ function Detail({
                         )}
                       </TableCell>
                       <TableCell className={styles.numeric}>{formatBookHours(line.bookHours)}</TableCell>
-                      <TableCell className={styles.numeric}>{formatHm(clockedSeconds)}</TableCell>
+                      <TableCell className={styles.numeric}>{formatHours(clockedSeconds)}</TableCell>
                       <TableCell className={mergeClasses(styles.numeric, over ? styles.over : undefined)}>
                         {clockedSeconds === 0 && line.status === 'queued'
                           ? '—'
@@ -389,10 +392,10 @@ function Detail({
                       </TableCell>
                       <TableCell className={styles.numeric}>
                         {line.completedAt ? (
-                          <>Done {formatDateTime(line.completedAt, timeZone)}</>
+                          <>{`${JOB_LINE_STATUS_WORDS.done} ${formatDateTime(line.completedAt, timeZone)}`}</>
                         ) : forecast ? (
                           <span className={line.late ? styles.late : undefined}>
-                            ≈ {formatDateTime(forecast.finishAt, timeZone)}
+                            {aboutWords(formatDateTime(forecast.finishAt, timeZone))}
                             {line.late && ' · LATE'}
                           </span>
                         ) : (
@@ -430,7 +433,7 @@ function Detail({
                           <Button
                             size="small"
                             appearance="subtle"
-                            aria-label={`Move L${line.lineNo} up`}
+                            aria-label={`Move ${lineWords(line.lineNo)} up`}
                             disabled={index === 0 || reorder.isPending || ro.status === 'closed'}
                             onClick={() => moveLine(index, -1)}
                           >
@@ -439,7 +442,7 @@ function Detail({
                           <Button
                             size="small"
                             appearance="subtle"
-                            aria-label={`Move L${line.lineNo} down`}
+                            aria-label={`Move ${lineWords(line.lineNo)} down`}
                             disabled={
                               index === rows.length - 1 || reorder.isPending || ro.status === 'closed'
                             }
@@ -462,7 +465,7 @@ function Detail({
                   {formatBookHours(bookTotal)}
                 </TableCell>
                 <TableCell className={mergeClasses(styles.numeric, styles.total)}>
-                  {formatHm(clockedTotal)}
+                  {formatHours(clockedTotal)}
                 </TableCell>
                 <TableCell />
                 <TableCell />
@@ -578,7 +581,7 @@ function VisitActions({
     >
       {bay?.state === 'check' && (
         <Button disabled={finalCheck.isPending} onClick={() => finalCheck.mutate(bay.id)}>
-          Final check done: {bay.name} ready
+          {BAY_STATE_WORDS.check} done: {bay.name} ready
         </Button>
       )}
       {ro.status === 'done' && (

@@ -1,4 +1,5 @@
 import type { RepairOrderSummary } from '../api/get-repair-orders';
+import { lineWords } from '@baytime/shared';
 import { formatBookHours, formatDateTime, formatOdometer, groupVin } from '../ro-format';
 import './repair-order-print.css';
 
@@ -45,7 +46,7 @@ export function RepairOrderPrint({ ro, units, timeZone }: RepairOrderPrintProps)
             {lines.map((line) => (
               <tr key={line.id}>
                 <td>
-                  L{line.lineNo} {line.title}
+                  {lineWords(line.lineNo)} · {line.title}
                 </td>
                 <td>{line.concern}</td>
                 <td>{line.cause ?? ''}</td>
@@ -59,7 +60,7 @@ export function RepairOrderPrint({ ro, units, timeZone }: RepairOrderPrintProps)
       {lines.map((line) => (
         <section key={line.id} className="ro-print__page ro-print__ticket">
           <h1>
-            Job ticket · RO {ro.number} · L{line.lineNo}
+            Job ticket · RO {ro.number} · {lineWords(line.lineNo)}
           </h1>
           <h2>{line.title}</h2>
           <p>{vehicleLine}</p>

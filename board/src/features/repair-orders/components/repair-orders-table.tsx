@@ -22,6 +22,7 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
+import { REPAIR_ORDER_STATUS_WORDS } from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '@/lib/api/get-users';
@@ -76,14 +77,9 @@ const useStyles = makeStyles({
 });
 
 const STATUS_COLOURS = { open: 'brand', done: 'informative', closed: 'subtle' } as const;
-const STATUS_LABELS = { open: 'Open', done: 'Work done', closed: 'Closed' } as const;
+const STATUS_LABELS = REPAIR_ORDER_STATUS_WORDS;
 const TAB_ORDER: readonly StatusFilter[] = ['open', 'done', 'closed', 'all'];
-const FILTER_LABELS: Record<StatusFilter, string> = {
-  all: 'All',
-  open: 'Open',
-  done: 'Work done',
-  closed: 'Closed',
-};
+const FILTER_LABELS: Record<StatusFilter, string> = { all: 'All', ...REPAIR_ORDER_STATUS_WORDS };
 
 interface RepairOrdersTableProps {
   /** The shop's, so promised times and "today" are the shop's. */

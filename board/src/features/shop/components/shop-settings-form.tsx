@@ -232,6 +232,15 @@ function ShopForm({
               <option value="metric">Metric (°C, L, N·m)</option>
             </Select>
           </Field>
+          <Field label="Clock times" validationMessage={errors.clockFormat}>
+            <Select
+              value={draft.clockFormat}
+              onChange={(_, data) => set('clockFormat', data.value as Draft['clockFormat'])}
+            >
+              <option value="12h">12-hour (2:30 pm)</option>
+              <option value="24h">24-hour (14:30)</option>
+            </Select>
+          </Field>
           <Field
             label="Kiosk signs out after (seconds)"
             validationMessage={errors.kioskIdleSeconds}

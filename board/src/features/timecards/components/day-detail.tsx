@@ -15,14 +15,14 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import type { TimecardPunch } from '@baytime/shared';
+import { PERSON_STATUS_WORDS, type TimecardPunch } from '@baytime/shared';
 import {
   BREAK_WORDS,
   PUNCH_WORDS,
   formatClock,
   formatDay,
   formatDayClock,
-  formatHm,
+  formatHours,
 } from '../timecard-format';
 import type { CardDay, CardInterval, PunchRow } from '../timecard-model';
 
@@ -139,7 +139,7 @@ function IntervalList({ day, timeZone }: { day: CardDay; timeZone: string }) {
                 {interval.open && ' (still running)'}
               </Caption1>
             </span>
-            <span className={styles.duration}>{formatHm(seconds)}</span>
+            <span className={styles.duration}>{formatHours(seconds)}</span>
           </li>
         );
       })}
@@ -165,14 +165,16 @@ export function DayDetail({
           {formatDay(day.day)}
         </Subtitle2>
         <div className={styles.figures}>
-          <span className={styles.figure}>Attendance {formatHm(totals.attendanceSeconds)}</span>
-          <span className={styles.figure}>On jobs {formatHm(totals.clockedSeconds)}</span>
-          <span className={styles.figure}>Idle {formatHm(totals.idleSeconds)}</span>
+          <span className={styles.figure}>Attendance {formatHours(totals.attendanceSeconds)}</span>
+          <span className={styles.figure}>On jobs {formatHours(totals.clockedSeconds)}</span>
+          <span
+            className={styles.figure}
+          >{`${PERSON_STATUS_WORDS.idle} ${formatHours(totals.idleSeconds)}`}</span>
           {totals.mealBreakSeconds > 0 && (
-            <span className={styles.figure}>Meal breaks {formatHm(totals.mealBreakSeconds)}</span>
+            <span className={styles.figure}>Meal breaks {formatHours(totals.mealBreakSeconds)}</span>
           )}
           {totals.restBreakSeconds > 0 && (
-            <span className={styles.figure}>Rest breaks {formatHm(totals.restBreakSeconds)}</span>
+            <span className={styles.figure}>Rest breaks {formatHours(totals.restBreakSeconds)}</span>
           )}
         </div>
       </div>

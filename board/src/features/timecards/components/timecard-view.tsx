@@ -16,7 +16,7 @@ import {
 import type { TimecardPunch } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useTimecard } from '../api/get-timecard';
-import { formatDecimalHours, formatHm } from '../timecard-format';
+import { formatHours } from '../timecard-format';
 import { cardDays } from '../timecard-model';
 import { AuditTrail } from './audit-trail';
 import { CorrectionDialog, type CorrectionTarget } from './correction-dialog';
@@ -59,8 +59,8 @@ function Total({ label, seconds, note }: { label: string; seconds: number; note?
   return (
     <Card className={styles.total} appearance="filled-alternative">
       <Caption1 className={styles.totalLabel}>{label}</Caption1>
-      <span className={styles.totalValue}>{formatHm(seconds)}</span>
-      <Caption1 className={styles.dim}>{note ?? formatDecimalHours(seconds)}</Caption1>
+      <span className={styles.totalValue}>{formatHours(seconds)}</span>
+      {note && <Caption1 className={styles.dim}>{note}</Caption1>}
     </Card>
   );
 }

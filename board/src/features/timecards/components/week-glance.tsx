@@ -6,7 +6,8 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import { formatClock, formatDay, formatHm } from '../timecard-format';
+import { formatClock, formatDay, formatHours } from '../timecard-format';
+import { PERSON_STATUS_WORDS } from '@baytime/shared';
 import {
   timelineSegments,
   timelineWindow,
@@ -196,7 +197,7 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
         </div>
         <Caption1 className={mergeClasses(styles.head, styles.number)}>Attendance</Caption1>
         <Caption1 className={mergeClasses(styles.head, styles.number)}>On jobs</Caption1>
-        <Caption1 className={mergeClasses(styles.head, styles.number)}>Idle</Caption1>
+        <Caption1 className={mergeClasses(styles.head, styles.number)}>{PERSON_STATUS_WORDS.idle}</Caption1>
         {days.map((day) => (
           <div
             key={day.day}
@@ -215,9 +216,11 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
             ) : (
               <Caption1 className={styles.quiet}>No punches</Caption1>
             )}
-            <span className={styles.number}>{day.active ? formatHm(day.totals.attendanceSeconds) : '–'}</span>
-            <span className={styles.number}>{day.active ? formatHm(day.totals.clockedSeconds) : '–'}</span>
-            <span className={styles.number}>{day.active ? formatHm(day.totals.idleSeconds) : '–'}</span>
+            <span className={styles.number}>
+              {day.active ? formatHours(day.totals.attendanceSeconds) : '–'}
+            </span>
+            <span className={styles.number}>{day.active ? formatHours(day.totals.clockedSeconds) : '–'}</span>
+            <span className={styles.number}>{day.active ? formatHours(day.totals.idleSeconds) : '–'}</span>
           </div>
         ))}
       </div>

@@ -1,8 +1,7 @@
-import { BAY_PALETTE, type BoardBay } from '@baytime/shared';
+import { BAY_PALETTE, formatHours, hoursFigure, type BoardBay } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { clockedSecondsAt } from '../board-store';
 import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
-import { formatHoursMinutes } from '../board-time';
 import { lineChars, tileRoom } from '../wall-layout';
 import styles from './wall.module.css';
 
@@ -71,7 +70,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, tu
         <div
           className={styles.bar}
           role="img"
-          aria-label={`${formatHoursMinutes(clocked)} clocked of ${formatHoursMinutes(bay.bookSeconds)} book`}
+          aria-label={`${formatHours(clocked)} clocked of ${formatHours(bay.bookSeconds)} book`}
         >
           <div className={styles.barWithin} style={{ width: `${bar.withinBook * 100}%` }} />
           {bar.overBook > 0 && (
@@ -105,7 +104,7 @@ function FactLine({ line, overSeconds }: { line: TileLine; overSeconds: number }
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
       {fact.tone === 'over' && overSeconds > 0 && (
-        <span className={styles.overTag}>+{formatHoursMinutes(overSeconds)}</span>
+        <span className={styles.overTag}>+{hoursFigure(overSeconds / 3600, 1)}</span>
       )}
     </div>
   );

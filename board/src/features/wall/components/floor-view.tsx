@@ -14,11 +14,22 @@ import {
   mergeClasses,
   tokens,
 } from '@fluentui/react-components';
-import { TIMER_KIND_LABELS, type BoardBay, type BoardSnapshot } from '@baytime/shared';
+import {
+  CONNECTION_WORDS,
+  JOB_LINE_STATUS_WORDS,
+  PERSON_STATUS_WORDS,
+  PRIORITY_WORDS,
+  TIMER_KIND_LABELS,
+  formatHours,
+  lineWords,
+  offlineSinceWords,
+  type BoardBay,
+  type BoardSnapshot,
+} from '@baytime/shared';
 import { StateChip } from '@/components/state-chip';
 import { clockedSecondsAt } from '../board-store';
 import { clockedBar, countdownFact, holdFacts } from '../bay-facts';
-import { formatHoursMinutes, formatSpan, formatTimeOfDay } from '../board-time';
+import { formatSpan, formatTimeOfDay } from '../board-time';
 import { secondsSince } from '../server-clock';
 import type { LinkStatus } from '../live-board';
 import { LINK_LOST_AFTER_MS } from './wall-top-bar';
@@ -110,15 +121,15 @@ export function FloorLinkStatus({
     <span className={styles.status} role="status">
       {link === 'live' ? (
         <Badge appearance="tint" color="brand">
-          Live
+          {CONNECTION_WORDS.online}
         </Badge>
       ) : lost ? (
         <Badge appearance="filled" color="danger">
-          Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
+          {offlineSinceWords(formatTimeOfDay(downSince + offsetMs, timeZone))}
         </Badge>
       ) : (
         <Badge appearance="tint" color="informative">
-          Connecting…
+          {CONNECTION_WORDS.connecting}
         </Badge>
       )}
     </span>
@@ -175,7 +186,7 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
       )}
       {bay.jobLine && (
         <Body1 className={styles.wraps}>
-          <span className={styles.dim}>L{bay.jobLine.lineNo} </span>
+          <span className={styles.dim}>{lineWords(bay.jobLine.lineNo)} </span>
           {bay.jobLine.title}
         </Body1>
       )}
@@ -184,16 +195,16 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
         <>
           <div className={styles.row}>
             <Caption1>
-              {formatHoursMinutes(clocked)} clocked of {formatHoursMinutes(bay.bookSeconds)} book
+              {formatHours(clocked)} clocked of {formatHours(bay.bookSeconds)} book
             </Caption1>
             {bar.overSeconds > 0 && (
-              <Caption1 className={styles.overText}>+{formatHoursMinutes(bar.overSeconds)} over</Caption1>
+              <Caption1 className={styles.overText}>+{formatHours(bar.overSeconds)} over</Caption1>
             )}
           </div>
           <div
             className={styles.bar}
             role="img"
-            aria-label={`${formatHoursMinutes(clocked)} clocked of ${formatHoursMinutes(bay.bookSeconds)} book`}
+            aria-label={`${formatHours(clocked)} clocked of ${formatHours(bay.bookSeconds)} book`}
           >
             <div className={styles.within} style={{ width: `${bar.withinBook * 100}%` }} />
             {bar.overBook > 0 && (
@@ -210,7 +221,6 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
   );
 }
 
-const STATUS_LABELS = { 'on-job': 'On a job', idle: 'Idle', 'on-break': 'On break' } as const;
 const PRIORITY_COLOURS = {
   urgent: 'danger',
   high: 'important',
@@ -267,7 +277,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                               : 'informative'
                         }
                       >
-                        {STATUS_LABELS[person.status]}
+                        {PERSON_STATUS_WORDS[person.status]}
                       </Badge>
                     </TableCell>
                     <TableCell>
@@ -284,7 +294,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
         </section>
         <section aria-labelledby="floor-queue">
           <Subtitle2 id="floor-queue" className={styles.sectionTitle}>
-            Waiting for a technician ({snapshot.queue.length})
+            {JOB_LINE_STATUS_WORDS.queued} ({snapshot.queue.length})
           </Subtitle2>
           {snapshot.queue.length === 0 ? (
             <Body1 className={styles.dim}>Nothing waits.</Body1>
@@ -295,7 +305,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                   <TableHeaderCell>RO</TableHeaderCell>
                   <TableHeaderCell>Job line</TableHeaderCell>
                   <TableHeaderCell>Priority</TableHeaderCell>
-                  <TableHeaderCell>Waiting</TableHeaderCell>
+                  <TableHeaderCell>For</TableHeaderCell>
                 </TableRow>
               </TableHeader>
               <TableBody>
@@ -307,7 +317,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                       <TableCell>{item.title}</TableCell>
                       <TableCell>
                         <Badge appearance="tint" color={PRIORITY_COLOURS[item.priority]}>
-                          {item.priority}
+                          {PRIORITY_WORDS[item.priority]}
                         </Badge>
                       </TableCell>
                       <TableCell>{formatSpan(secondsSince(item.waitingSince, nowMs))}</TableCell>

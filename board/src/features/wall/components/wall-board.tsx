@@ -1,3 +1,4 @@
+import { CONNECTION_WORDS, offlineSinceWords } from '@baytime/shared';
 import { useEffect, useLayoutEffect, useState, type CSSProperties } from 'react';
 import { Glyph } from '@/components/glyph';
 import { forgetWallToken } from '@/lib/wall-session';
@@ -84,9 +85,7 @@ export function WallBoard({ token }: { token: string }) {
         <div className={styles.message} role="status">
           {long && <Glyph name="link-lost" className={styles.glyph} />}
           <div className={styles.messageTitle}>
-            {long
-              ? `No link to the shop server since ${formatTimeOfDay(downSince, undefined)}`
-              : 'Connecting…'}
+            {long ? offlineSinceWords(formatTimeOfDay(downSince, undefined)) : CONNECTION_WORDS.connecting}
           </div>
           {long && <div className={styles.messageBody}>Retrying by itself. Check the screen’s network.</div>}
         </div>

@@ -1,6 +1,8 @@
 import { Glyph } from '@/components/glyph';
 import type { LinkStatus } from '../live-board';
-import { clockFace, formatTimeOfDay } from '../board-time';
+import { CONNECTION_WORDS, LINK_STATUS_CONNECTION, offlineSinceWords } from '@baytime/shared';
+import { clockFace } from '@/lib/shop-clock';
+import { formatTimeOfDay } from '../board-time';
 import styles from './wall.module.css';
 
 /** A link down for longer than this is worth telling the whole shop about. */
@@ -39,7 +41,7 @@ export function WallTopBar(props: WallTopBarProps) {
         <div className={styles.linkLost} role="alert">
           <Glyph name="link-lost" className={styles.glyph} />
           <span className={styles.linkLostText}>
-            Link lost since {formatTimeOfDay(downSince + offsetMs, timeZone)}
+            {offlineSinceWords(formatTimeOfDay(downSince + offsetMs, timeZone))}
           </span>
         </div>
       ) : kioskNote ? (
@@ -63,7 +65,7 @@ export function WallTopBar(props: WallTopBarProps) {
       {!lost && (
         <div className={styles.live}>
           <span className={`${styles.liveDot} ${link === 'live' ? '' : styles.liveDotDown}`} />
-          {link === 'live' ? 'Live' : 'Reconnecting'}
+          {CONNECTION_WORDS[LINK_STATUS_CONNECTION[link]]}
         </div>
       )}
       <time className={styles.clock} dateTime={new Date(nowMs).toISOString()}>

@@ -1,5 +1,11 @@
 import { useEffect, useId, useRef, useState } from 'react';
-import { FINDING_SEVERITY_ICONS, MAX_FINDING_PHOTOS, type FindingSeverity } from '@baytime/shared';
+import {
+  FINDING_SEVERITIES,
+  FINDING_SEVERITY_ICONS,
+  FINDING_SEVERITY_LABELS,
+  MAX_FINDING_PHOTOS,
+  type FindingSeverity,
+} from '@baytime/shared';
 import { CameraIcon, CheckIcon, CloseIcon, MeaningGlyph } from '@/components/icons';
 import { Sheet } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
@@ -9,11 +15,10 @@ import { checkDraft, checkNewPhotos, parseHours, type DraftProblems } from '../f
 import { useCreateFinding } from '../api/create-finding';
 import './findings.css';
 
-const SEVERITIES: readonly { value: FindingSeverity; words: string }[] = [
-  { value: 'safety-now', words: 'Safety — fix now' },
-  { value: 'soon', words: 'Needs attention soon' },
-  { value: 'watch', words: 'Keep an eye on it' },
-];
+const SEVERITIES: readonly { value: FindingSeverity; words: string }[] = FINDING_SEVERITIES.map((value) => ({
+  value,
+  words: FINDING_SEVERITY_LABELS[value],
+}));
 
 /** A camera trip takes the tablet away from the page: the sign-out waits longer meanwhile. */
 const FINDING_IDLE_SECONDS = 5 * 60;

@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import { finishLineSchema, type FinishLineBody } from '@baytime/shared';
+import { BAY_STATE_WORDS, finishLineSchema, type FinishLineBody } from '@baytime/shared';
 import { CheckIcon, MeaningGlyph } from '@/components/icons';
 import { Sheet, SheetProblem } from '@/components/sheet';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
@@ -11,7 +11,7 @@ type Next = FinishLineBody['next'];
 const CHOICES: readonly { next: Next; words: string; hint: string; icon: ReactNode }[] = [
   {
     next: 'check',
-    words: 'Final check next',
+    words: `${BAY_STATE_WORDS.check} next`,
     hint: 'A road test or a last look before the vehicle leaves',
     icon: <MeaningGlyph name="final-check-next" />,
   },

@@ -1,4 +1,4 @@
-import type { MyFinalCheck } from '@baytime/shared';
+import { BAY_STATE_WORDS, type MyFinalCheck } from '@baytime/shared';
 import { MeaningGlyph } from '@/components/icons';
 import { commandProblem } from '@/lib/commands';
 import { useRecordFinalCheck } from '../api/record-final-check';
@@ -10,7 +10,7 @@ export function FinalChecks({ checks }: { checks: readonly MyFinalCheck[] }) {
   return (
     <section className="bt-checks" aria-labelledby="bt-checks-title">
       <h2 id="bt-checks-title" className="bt-day__heading">
-        <span>Final checks</span>
+        <span>{BAY_STATE_WORDS.check}</span>
       </h2>
       {checks.map((check) => (
         <button
@@ -22,7 +22,7 @@ export function FinalChecks({ checks }: { checks: readonly MyFinalCheck[] }) {
         >
           <MeaningGlyph name="final-check-next" />
           <span>
-            Final check done: {check.bayName}
+            {BAY_STATE_WORDS.check} done: {check.bayName}
             <small>
               RO {check.repairOrderNumber} · {check.vehicle}
             </small>

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { JOB_LINE_STATUS_WORDS, PRIORITY_WORDS, PUNCH_WORDS } from '@baytime/shared';
 import {
   CheckIcon,
   MeaningGlyph,
@@ -8,7 +9,7 @@ import {
   StopIcon,
   WrenchIcon,
 } from '@/components/icons';
-import { bookHours, hoursMinutes } from '@/lib/format';
+import { formatBookHours, formatHours } from '@/lib/format';
 import { lineStatusWord, type ClockAction } from '../line-actions';
 import type { DayLine } from '../project-day';
 
@@ -74,7 +75,7 @@ export function JobLineCard({
           {line.bayName && <span className="bt-line__bay">{line.bayName}</span>}
           {(line.priority === 'urgent' || line.priority === 'high') && (
             <span className={`bt-line__priority bt-line__priority--${line.priority}`}>
-              <MeaningGlyph name="priority" /> {line.priority === 'urgent' ? 'Urgent' : 'High'}
+              <MeaningGlyph name="priority" /> {PRIORITY_WORDS[line.priority]}
             </span>
           )}
           <span className="bt-line__state">
@@ -87,15 +88,15 @@ export function JobLineCard({
         <dl className="bt-line__times">
           <div>
             <dt>Book</dt>
-            <dd>{bookHours(line.bookHours)}</dd>
+            <dd>{formatBookHours(line.bookHours)}</dd>
           </div>
           <div>
             <dt>Mine</dt>
-            <dd className={line.clockedOn ? 'is-running' : undefined}>{hoursMinutes(mine)}</dd>
+            <dd className={line.clockedOn ? 'is-running' : undefined}>{formatHours(mine)}</dd>
           </div>
           <div>
             <dt>All techs</dt>
-            <dd>{hoursMinutes(all)}</dd>
+            <dd>{formatHours(all)}</dd>
           </div>
         </dl>
         <div
@@ -110,21 +111,21 @@ export function JobLineCard({
       <div className="bt-line__actions">
         {action.kind === 'clock-on' && (
           <button type="button" className="bt-action bt-action--go" onClick={onClockOn}>
-            <PlayIcon /> Clock on
+            <PlayIcon /> {PUNCH_WORDS['job-on']}
           </button>
         )}
         {action.kind === 'switch' && (
           <button type="button" className="bt-action bt-action--go bt-action--two-line" onClick={onClockOn}>
             <PlayIcon />
             <span>
-              Clock on
+              {PUNCH_WORDS['job-on']}
               <small>and off {action.fromLabel}</small>
             </span>
           </button>
         )}
         {action.kind === 'clock-off' && (
           <button type="button" className="bt-action bt-action--stop" onClick={onClockOff}>
-            <StopIcon /> Clock off
+            <StopIcon /> {PUNCH_WORDS['job-off']}
           </button>
         )}
         {action.kind === 'resume' && (
@@ -153,7 +154,7 @@ export function JobLineCard({
           )}
           {tools}
           <button type="button" className="bt-tool bt-tool--done" onClick={onDone}>
-            <CheckIcon /> Done
+            <CheckIcon /> {JOB_LINE_STATUS_WORDS.done}
           </button>
         </div>
       )}

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { PUNCH_WORDS } from '@baytime/shared';
 import { commandProblem } from '@/lib/commands';
 import { useResumeLine } from '../api/resume-line';
 import { lineSeconds, type ConcurrentSplit, type DayLine, type DayView } from '../project-day';
@@ -80,14 +81,24 @@ export function JobLineList({
                     ? running.map<ShiftPunch>((r) => ({
                         kind: 'job-off',
                         jobLineId: r.id,
-                        label: `Clock off ${lineLabel(r)}`,
+                        label: `${PUNCH_WORDS['job-off']} ${lineLabel(r)}`,
                       }))
                     : []),
-                  { kind: 'job-on', jobLineId: line.id, label: `Clock on ${lineLabel(line)}` },
+                  {
+                    kind: 'job-on',
+                    jobLineId: line.id,
+                    label: `${PUNCH_WORDS['job-on']} ${lineLabel(line)}`,
+                  },
                 ])
               }
               onClockOff={() =>
-                onPunch([{ kind: 'job-off', jobLineId: line.id, label: `Clock off ${lineLabel(line)}` }])
+                onPunch([
+                  {
+                    kind: 'job-off',
+                    jobLineId: line.id,
+                    label: `${PUNCH_WORDS['job-off']} ${lineLabel(line)}`,
+                  },
+                ])
               }
               onHold={() => onRequest(line, 'hold')}
               onDone={() => onRequest(line, 'done')}
@@ -95,7 +106,13 @@ export function JobLineList({
                 resume.mutate(line.id, {
                   onSuccess: () => {
                     if (action.kind === 'resume' && action.clockOn)
-                      onPunch([{ kind: 'job-on', jobLineId: line.id, label: `Clock on ${lineLabel(line)}` }]);
+                      onPunch([
+                        {
+                          kind: 'job-on',
+                          jobLineId: line.id,
+                          label: `${PUNCH_WORDS['job-on']} ${lineLabel(line)}`,
+                        },
+                      ]);
                   },
                 })
               }

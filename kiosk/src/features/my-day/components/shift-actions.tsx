@@ -1,5 +1,12 @@
 import { useEffect, useState } from 'react';
-import type { BreakKind, PunchKind } from '@baytime/shared';
+import {
+  PUNCH_WORDS,
+  inSentence,
+  punchWords,
+  repairOrderLineWords,
+  type BreakKind,
+  type PunchKind,
+} from '@baytime/shared';
 import { CupIcon, DoorInIcon, DoorOutIcon, MealIcon, PlayIcon } from '@/components/icons';
 import { Sheet } from '@/components/sheet';
 import type { DayLine, DayView } from '../project-day';
@@ -34,7 +41,7 @@ export function clockOffAll(lines: readonly DayLine[]): ShiftPunch[] {
     .map((line) => ({
       kind: 'job-off',
       jobLineId: line.id,
-      label: `Clock off RO ${line.repairOrderNumber} line ${line.lineNo}`,
+      label: `${PUNCH_WORDS['job-off']} ${repairOrderLineWords(line.repairOrderNumber, line.lineNo)}`,
     }));
 }
 
@@ -56,9 +63,9 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
         <button
           type="button"
           className="bt-action bt-action--go"
-          onClick={() => onPunch([{ kind: 'shift-in', label: 'Start shift' }])}
+          onClick={() => onPunch([{ kind: 'shift-in', label: PUNCH_WORDS['shift-in'] }])}
         >
-          <DoorInIcon /> Start shift
+          <DoorInIcon /> {PUNCH_WORDS['shift-in']}
         </button>
       </div>
     );
@@ -67,7 +74,7 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
   const endShift = () => {
     if (!confirmingEnd) return setConfirmingEnd(true);
     setConfirmingEnd(false);
-    onPunch([...clockOffAll(view.lines), { kind: 'shift-out', label: 'End shift' }]);
+    onPunch([...clockOffAll(view.lines), { kind: 'shift-out', label: PUNCH_WORDS['shift-out'] }]);
   };
   const endShiftButton = (
     <button
@@ -76,7 +83,8 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
       onClick={endShift}
       aria-live="polite"
     >
-      <DoorOutIcon /> {confirmingEnd ? 'Tap again to end shift' : 'End shift'}
+      <DoorOutIcon />{' '}
+      {confirmingEnd ? `Tap again: ${inSentence(PUNCH_WORDS['shift-out'])}` : PUNCH_WORDS['shift-out']}
     </button>
   );
 
@@ -87,9 +95,9 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
         <button
           type="button"
           className="bt-action bt-action--go"
-          onClick={() => onPunch([{ kind: 'break-end', breakKind: kind, label: `End ${kind} break` }])}
+          onClick={() => onPunch([{ kind: 'break-end', breakKind: kind, label: PUNCH_WORDS['break-end'] }])}
         >
-          <PlayIcon /> End {kind} break
+          <PlayIcon /> {PUNCH_WORDS['break-end']}
         </button>
         {endShiftButton}
       </div>
@@ -99,7 +107,7 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
   const startBreak = (kind: BreakKind) =>
     onPunch([
       ...clockOffAll(view.lines),
-      { kind: 'break-start', breakKind: kind, label: `Start ${kind} break` },
+      { kind: 'break-start', breakKind: kind, label: punchWords({ kind: 'break-start', breakKind: kind }) },
     ]);
 
   // A timer left running through a meal is an engine or a cure nobody watches: ask first.
@@ -140,10 +148,10 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
         </Sheet>
       )}
       <button type="button" className="bt-action bt-action--quiet" onClick={mealBreak}>
-        <MealIcon /> Start meal break
+        <MealIcon /> {punchWords({ kind: 'break-start', breakKind: 'meal' })}
       </button>
       <button type="button" className="bt-action bt-action--quiet" onClick={() => startBreak('rest')}>
-        <CupIcon /> Start rest break
+        <CupIcon /> {punchWords({ kind: 'break-start', breakKind: 'rest' })}
       </button>
       {endShiftButton}
       <p className="bt-shift-actions__note">

@@ -1,16 +1,18 @@
 import { useState } from 'react';
-import type { BreakKind, OfflinePunchKind } from '@baytime/shared';
+import { punchWords, type BreakKind, type OfflinePunchKind } from '@baytime/shared';
 import { Sheet, SheetProblem } from '@/components/sheet';
 import { clockTime } from '@/lib/format';
 import { recordOfflinePunch } from '../record-offline';
 
-const CHOICES: readonly { kind: OfflinePunchKind; breakKind?: BreakKind; words: string }[] = [
-  { kind: 'shift-in', words: 'Start shift' },
-  { kind: 'shift-out', words: 'End shift' },
-  { kind: 'break-start', breakKind: 'meal', words: 'Start meal break' },
-  { kind: 'break-start', breakKind: 'rest', words: 'Start rest break' },
-  { kind: 'break-end', words: 'End break' },
-];
+const CHOICES: readonly { kind: OfflinePunchKind; breakKind?: BreakKind; words: string }[] = (
+  [
+    { kind: 'shift-in' },
+    { kind: 'shift-out' },
+    { kind: 'break-start', breakKind: 'meal' },
+    { kind: 'break-start', breakKind: 'rest' },
+    { kind: 'break-end' },
+  ] as const
+).map((choice) => ({ ...choice, words: punchWords(choice) }));
 
 export interface OfflinePunchSheetProps {
   badge: string;

@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ShopSettings, UnitSystem } from '@baytime/shared';
+import type { ClockFormat, ShopSettings, UnitSystem } from '@baytime/shared';
 import { api } from '@/lib/api-client';
 import { deviceApi } from '@/lib/device';
 import { session } from '@/lib/session';
 import { queryKeys } from '@/lib/query-keys';
+import { setShopClockFormat } from '@/lib/shop-clock';
 
 /**
  * The shop's name, time zone and units as last seen, so the keypad screen shows them (the shop's
@@ -16,15 +17,22 @@ export interface RememberedShop {
   name: string;
   timeZone: string;
   units?: UnitSystem;
+  clockFormat?: ClockFormat;
 }
 
 /** As the technician when one is signed in, else as the paired tablet: the keypad shows shop time too. */
 export async function getShop(): Promise<ShopSettings> {
   const shop = await (session.get() ? api : deviceApi).get<ShopSettings>('/shop');
+  setShopClockFormat(shop.clockFormat);
   try {
     localStorage.setItem(
       REMEMBERED_SHOP_KEY,
-      JSON.stringify({ name: shop.name, timeZone: shop.timeZone, units: shop.units }),
+      JSON.stringify({
+        name: shop.name,
+        timeZone: shop.timeZone,
+        units: shop.units,
+        clockFormat: shop.clockFormat,
+      }),
     );
   } catch {
     // only a nicety
@@ -46,7 +54,15 @@ export function rememberedShop(): RememberedShop | null {
     ) as Partial<RememberedShop> | null;
     if (typeof parsed?.name !== 'string' || typeof parsed.timeZone !== 'string') return null;
     const units = parsed.units === 'us' || parsed.units === 'metric' ? parsed.units : undefined;
-    return { name: parsed.name, timeZone: parsed.timeZone, ...(units && { units }) };
+    const clockFormat =
+      parsed.clockFormat === '24h' || parsed.clockFormat === '12h' ? parsed.clockFormat : undefined;
+    setShopClockFormat(clockFormat);
+    return {
+      name: parsed.name,
+      timeZone: parsed.timeZone,
+      ...(units && { units }),
+      ...(clockFormat && { clockFormat }),
+    };
   } catch {
     return null;
   }

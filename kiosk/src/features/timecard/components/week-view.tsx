@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import type { Timecard, TimecardTotals } from '@baytime/shared';
 import { AlertIcon, ArrowLeftIcon, ArrowRightIcon } from '@/components/icons';
-import { clockTime, hoursMinutes } from '@/lib/format';
+import { clockTime, formatHours } from '@/lib/format';
 import { buildWeekView, weekFigures, type PunchRow } from '../timecard-view';
 import './week.css';
 
@@ -18,7 +18,7 @@ function Totals({ totals, compact }: { totals: TimecardTotals; compact?: boolean
       {items.map(([label, seconds]) => (
         <div key={label}>
           <dt>{label}</dt>
-          <dd>{hoursMinutes(seconds)}</dd>
+          <dd>{formatHours(seconds)}</dd>
         </div>
       ))}
     </dl>

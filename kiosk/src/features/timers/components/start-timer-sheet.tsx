@@ -1,5 +1,11 @@
 import { useState } from 'react';
-import { temperatureUnit, type HoldPresetDto, type TimerKind, type UnitSystem } from '@baytime/shared';
+import {
+  TIMER_KIND_LABELS,
+  temperatureUnit,
+  type HoldPresetDto,
+  type TimerKind,
+  type UnitSystem,
+} from '@baytime/shared';
 import { AlertIcon, HourglassIcon, SnowIcon, ThermometerIcon } from '@/components/icons';
 import { Sheet } from '@/components/sheet';
 import { commandProblem } from '@/lib/commands';
@@ -18,12 +24,12 @@ import { useStartTimer } from '../api/start-timer';
 import { EntryKeypad, NumberField } from './number-field';
 import './timers.css';
 
-type TemperatureKind = Exclude<TimerKind, 'hold'>;
+type TemperatureKind = Exclude<TimerKind, 'set-time'>;
 type Step =
   | { name: 'kind' }
   | { name: 'caution'; kind: TemperatureKind }
   | { name: 'temperatures'; kind: TemperatureKind }
-  | { name: 'hold' };
+  | { name: 'set-time' };
 
 export interface StartTimerSheetProps {
   jobLineId: number;
@@ -31,8 +37,6 @@ export interface StartTimerSheetProps {
   units: UnitSystem;
   onClose: () => void;
 }
-
-const KIND_WORDS: Record<TemperatureKind, string> = { 'warm-up': 'Warm-up', 'cool-down': 'Cool-down' };
 
 /** Start a timer on a line: pick the kind, confirm the safety checks, enter the numbers. */
 export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTimerSheetProps) {
@@ -71,11 +75,11 @@ export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTim
             </button>
           </li>
           <li>
-            <button type="button" className="bt-choice" onClick={() => setStep({ name: 'hold' })}>
+            <button type="button" className="bt-choice" onClick={() => setStep({ name: 'set-time' })}>
               <HourglassIcon />
               <span className="bt-choice__words">
-                <strong>Fixed hold</strong>
-                <small>A set time: sealant cure, vacuum hold, soak</small>
+                <strong>{TIMER_KIND_LABELS['set-time']}</strong>
+                <small>A fixed number of minutes: sealant cure, vacuum test, soak</small>
               </span>
             </button>
           </li>
@@ -86,7 +90,7 @@ export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTim
   if (step.name === 'caution')
     return (
       <Sheet
-        title={`${KIND_WORDS[step.kind]}: safety first`}
+        title={`${TIMER_KIND_LABELS[step.kind]}: safety first`}
         context={context}
         onClose={onClose}
         onBack={back}
@@ -98,7 +102,7 @@ export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTim
   if (step.name === 'temperatures')
     return (
       <Sheet
-        title={`${KIND_WORDS[step.kind]} to a temperature`}
+        title={`${TIMER_KIND_LABELS[step.kind]} to a temperature`}
         context={context}
         onClose={onClose}
         onBack={back}
@@ -109,8 +113,8 @@ export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTim
     );
 
   return (
-    <Sheet title="Fixed hold" context={context} onClose={onClose} onBack={back} wide>
-      <HoldStep jobLineId={jobLineId} onStarted={onClose} />
+    <Sheet title={TIMER_KIND_LABELS['set-time']} context={context} onClose={onClose} onBack={back} wide>
+      <SetTimeStep jobLineId={jobLineId} onStarted={onClose} />
     </Sheet>
   );
 }
@@ -236,7 +240,7 @@ function TemperatureStep({
   );
 }
 
-function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () => void }) {
+function SetTimeStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () => void }) {
   const presets = useHoldPresets();
   const [preset, setPreset] = useState<HoldPresetDto | null>(null);
   const [minutes, setMinutes] = useState('');
@@ -260,12 +264,14 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
       const read = readMinutes(minutes);
       if (!read.ok)
         return setProblem(
-          presets.data?.length ? `Pick a hold, or ${lowerFirst(read.message)}` : read.message,
+          presets.data?.length
+            ? `Pick one of the shop’s times, or ${lowerFirst(read.message)}`
+            : read.message,
         );
       durationSeconds = read.value;
     }
     start.mutate(
-      { jobLineId, kind: 'hold', durationSeconds, ...(label && { label }) },
+      { jobLineId, kind: 'set-time', durationSeconds, ...(label && { label }) },
       { onSuccess: onStarted },
     );
   };
@@ -275,7 +281,7 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
       <div className="bt-entry__fields">
         {list.length > 0 && (
           <>
-            <p className="bt-entry__section-title">The shop’s holds</p>
+            <p className="bt-entry__section-title">The shop’s set times</p>
             <ul className="bt-presets">
               {list.map((p) => (
                 <li key={p.id}>
@@ -301,7 +307,7 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
           </>
         )}
         {presets.isError && (
-          <p className="bt-entry__facts">The shop’s saved holds could not be loaded: type the minutes.</p>
+          <p className="bt-entry__facts">The shop’s set times could not be loaded: type the minutes.</p>
         )}
         <NumberField
           label="Minutes"
@@ -325,7 +331,7 @@ function HoldStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () =
             ? 'Starting…'
             : preset
               ? `Start ${preset.name} · ${durationWords(preset.durationSeconds)}`
-              : 'Start hold'}
+              : 'Start the timer'}
         </button>
       </div>
       <EntryKeypad apply={apply} rules={MINUTES_ENTRY} onEnter={submit} disabled={start.isPending} />

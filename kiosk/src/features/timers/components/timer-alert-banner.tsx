@@ -1,4 +1,4 @@
-import type { UnitSystem } from '@baytime/shared';
+import { TIMER_KIND_LABELS, type UnitSystem } from '@baytime/shared';
 import { BellIcon } from '@/components/icons';
 import { clockTime } from '@/lib/format';
 import { alertTitle, type TimerAlert } from '../alerts';
@@ -14,8 +14,8 @@ export interface TimerAlertBannerProps {
 
 function detail(alert: TimerAlert, units: UnitSystem | undefined, timeZone: string | undefined): string {
   const when = clockTime(alert.finishedAt, timeZone);
-  if (alert.kind === 'hold') return `${alert.label ?? 'Fixed hold'} · ended ${when}`;
-  const word = alert.kind === 'warm-up' ? 'Warm-up' : 'Cool-down';
+  if (alert.kind === 'set-time') return `${alert.label ?? TIMER_KIND_LABELS['set-time']} · ended ${when}`;
+  const word = TIMER_KIND_LABELS[alert.kind];
   const target = alert.targetC !== null && units ? ` to ${showTemperature(alert.targetC, units)}` : '';
   return `${word}${target} · reached ${when}`;
 }

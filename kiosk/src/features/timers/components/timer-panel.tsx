@@ -16,7 +16,7 @@ export interface TimerPanelProps {
   onLogReading: () => void;
 }
 
-const KIND_ICONS = { 'warm-up': ThermometerIcon, 'cool-down': SnowIcon, hold: HourglassIcon } as const;
+const KIND_ICONS = { 'warm-up': ThermometerIcon, 'cool-down': SnowIcon, 'set-time': HourglassIcon } as const;
 const CONFIRM_MS = 4000;
 
 /** A running timer on its line card: what it waits for, how long still, and a big Log reading. */

@@ -42,7 +42,7 @@ export interface TimerAlerts {
 
 /**
  * Watches the running timers of the technician signed in (or last signed in) here, and chimes once
- * when one reaches its target or a hold runs out: another technician's timer chimes on their own
+ * when one reaches its target or a set time runs out: another technician's timer chimes on their own
  * kiosk. Lives as long as the page, under the routes.
  */
 export function useTimerAlerts(): TimerAlerts {
@@ -69,11 +69,11 @@ export function useTimerAlerts(): TimerAlerts {
       setAlerts((shown) => [...shown, ...decision.alerts]);
     };
     tick();
-    // Fixed holds end on the tablet's count too, so the chime comes on time even on a slow link.
-    const hasHold = data.some(
-      (t) => t.kind === 'hold' && finishedAt(t, { now: Date.now(), fetchedAt }) === null,
+    // Set times end on the tablet's count too, so the chime comes on time even on a slow link.
+    const hasSetTime = data.some(
+      (t) => t.kind === 'set-time' && finishedAt(t, { now: Date.now(), fetchedAt }) === null,
     );
-    if (!hasHold) return;
+    if (!hasSetTime) return;
     const timer = setInterval(tick, 1000);
     return () => clearInterval(timer);
   }, [data, fetchedAt, technicianId]);
