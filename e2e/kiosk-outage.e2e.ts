@@ -112,7 +112,7 @@ describe('kiosk through a Wi-Fi outage', () => {
       const screen = await wall.newPage();
       await openWall(screen, server);
       await screen
-        .getByText(/1 punch waiting since \d{1,2}:\d{2} .M · e2e kiosk/)
+        .getByText(/1 punch waiting since \d{1,2}:\d{2} [ap]m · e2e kiosk/)
         .waitFor({ timeout: 15_000 });
       await screen.screenshot({ path: screenshotPath('wall-kiosk-queue') });
       const [listed] = await foreman<KioskDto[]>('GET', '/kiosks');
