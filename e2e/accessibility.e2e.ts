@@ -323,7 +323,7 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     await sheet.getByRole('alert').first().waitFor();
     await checkSheet('finding sheet with problems');
     await sheet.getByLabel('What did you find?').fill('Torn boot on the inner tie rod end');
-    await sheet.getByRole('radio', { name: 'Keep an eye on it' }).click();
+    await sheet.getByRole('radio', { name: 'Watch' }).click();
     await sheet.getByRole('button', { name: 'Send finding' }).click();
     await sheet.getByText('The advisor has it').waitFor();
     await checkSheet('finding sent sheet');

@@ -102,7 +102,7 @@ describe('kiosk through a Wi-Fi outage', () => {
       await kiosk.getByText('PIN for badge 1044').waitFor();
       await kiosk.keyboard.type('4321');
       await kiosk.keyboard.press('Enter');
-      await kiosk.getByRole('button', { name: 'End break' }).click();
+      await kiosk.getByRole('button', { name: 'Break end' }).click();
       await kiosk.getByText('1 punch waiting to be sent').waitFor();
       // The Wi-Fi is back but the server cannot take the punch yet: the kiosk still says what waits.
       await tablet.route('**/api/kiosks/me/offline-punches', (route) =>
@@ -112,7 +112,7 @@ describe('kiosk through a Wi-Fi outage', () => {
       const screen = await wall.newPage();
       await openWall(screen, server);
       await screen
-        .getByText(/1 punch waiting since \d{1,2}:\d{2} .M · e2e kiosk/)
+        .getByText(/1 punch waiting since \d{1,2}:\d{2} [ap]m · e2e kiosk/)
         .waitFor({ timeout: 15_000 });
       await screen.screenshot({ path: screenshotPath('wall-kiosk-queue') });
       const [listed] = await foreman<KioskDto[]>('GET', '/kiosks');

@@ -88,7 +88,7 @@ describe('the whole visit, from intake to pick-up', () => {
     await jo.getByLabel('Correction: what you did').fill('Fitted new pads and rotors, road tested');
     await jo.screenshot({ path: screenshotPath('visit-kiosk-done') });
     await jo.getByRole('button', { name: /Final QC next/ }).click();
-    await bayShows(/check/i);
+    await bayShows(/final qc/i);
 
     // The final check, on the kiosk.
     await jo.getByRole('button', { name: /Final QC done: Bay 8/ }).click();

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BoardSnapshot, UserDto } from '@baytime/shared';
+import { BAY_STATE_WORDS, type BoardSnapshot, type UserDto } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, bayTile, openWall, peopleStrip, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
@@ -94,7 +94,7 @@ describe('wall board', () => {
     for (const bay of truth.bays.slice(0, 8))
       await expect
         .poll(() => bayTile(page, bay.name).textContent(), { timeout: 5000 })
-        .toMatch(new RegExp(bay.state, 'i'));
+        .toMatch(new RegExp(BAY_STATE_WORDS[bay.state], 'i'));
     await expect.poll(() => page.getByText(/offline since/i).count()).toBe(0);
     expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
       true,

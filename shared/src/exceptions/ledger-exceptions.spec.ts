@@ -59,7 +59,7 @@ describe(ledgerExceptions.name, () => {
       ['short-meal', `short-meal:${day[3]!.id}`],
     ]);
     expect(found[1]!.text).toBe(
-      "Meal break at Tue Mar 10, 11:00 AM lasted 20 min, under the shop's 30: counted as paid rest",
+      "Meal break at Tue, Mar 10, 11:00 am lasted 20 min, under the shop's 30: counted as paid rest",
     );
   });
 

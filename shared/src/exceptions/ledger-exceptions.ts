@@ -1,8 +1,7 @@
-import { TZDate } from '@date-fns/tz';
-import { format } from 'date-fns';
 import type { Ledger } from '../ledger/ledger.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 import type { ExceptionKind } from './exceptions.schema.js';
+import { formatDayClockTime } from '../time/format.js';
 
 /** 29 CFR 785.18: rest periods of short duration, about 5 to 20 minutes, are hours worked. */
 export const LONGEST_REST_MINUTES = 20;
@@ -16,7 +15,8 @@ export interface LedgerException {
   text: string;
 }
 
-type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours' | 'minimumMealMinutes'>;
+type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours' | 'minimumMealMinutes'> &
+  Partial<Pick<ShopSettings, 'clockFormat'>>;
 
 const minutes = (ms: number) => Math.round(ms / 60_000);
 
@@ -31,7 +31,8 @@ export function ledgerExceptions(
   now: Date,
   settings: ExceptionSettings,
 ): LedgerException[] {
-  const when = (instant: Date) => format(new TZDate(instant, settings.timeZone), 'EEE MMM d, h:mm a');
+  const when = (instant: Date) =>
+    formatDayClockTime(instant, settings.timeZone, settings.clockFormat ?? '12h');
   const inWindow = (instant: Date) => instant >= from && instant < to;
   const found: LedgerException[] = [];
   for (const shift of ledger.shifts)

@@ -2,7 +2,7 @@ import type { KioskQueueNote } from '@baytime/shared';
 import { formatTimeOfDay } from './board-time';
 
 /**
- * The top bar's note on punches a kiosk holds and has not sent yet: "3 punches waiting since 7:02 AM ·
+ * The top bar's note on punches a kiosk holds and has not sent yet: "3 punches waiting since 7:02 am ·
  * Front kiosk", or summed over kiosks; null when nothing waits. Count and time first: a long kiosk
  * name is what gets cut.
  */
