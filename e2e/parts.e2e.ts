@@ -60,7 +60,10 @@ describe('parts status', () => {
       hour: 'numeric',
       minute: '2-digit',
       timeZone: 'America/Chicago',
-    }).format(due);
+    })
+      .format(due)
+      // The shop's 12-hour clock writes the day period in lower case: "5:58 am".
+      .replace(/\b(AM|PM)$/, (period) => period.toLowerCase());
 
     const screen = await wall.newPage();
     await openWall(screen, server);

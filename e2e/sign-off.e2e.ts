@@ -69,7 +69,7 @@ describe('Done without clocked time', () => {
     await dialog.getByRole('button', { name: 'Sign off' }).click();
     await dialog.waitFor({ state: 'detached' });
     // The dialog closed properly: the page is not left hidden from assistive technology.
-    expect(await office.locator('#root').getAttribute('aria-hidden')).toBeNull();
+    await expect.poll(() => office.locator('#root').getAttribute('aria-hidden')).toBeNull();
     await row.getByText('Resolved').waitFor();
     await row.getByText(/Signed off: Struts fitted before lunch; I checked the car · Theo Varga/).waitFor();
 
