@@ -171,7 +171,7 @@ describe(OutboxService.name, () => {
       );
 
       // The new finding also told the RO's advisor.
-      const notice = await received(`Marlow Creek Auto Care: new finding on RO ${ro.number} (soon)`);
+      const notice = await received(`Marlow Creek Auto Care: new finding on RO ${ro.number} (Fix soon)`);
       expect(notice.to).toEqual([DEMO.advisor]);
 
       const inbox = (await sut.http().get('/api/findings').auth(advisor, { type: 'bearer' })).body
