@@ -191,21 +191,23 @@ function ShopForm({
     });
   };
 
-  const number =
-    (
-      key:
-        | 'workweekStartDay'
-        | 'workweekStartHour'
-        | 'maxConcurrentJobs'
-        | 'kioskIdleSeconds'
-        | 'minimumMealMinutes'
-        | 'longShiftHours'
-        | 'minimumClockedMinutesForDone'
-        | 'minimumClockedHoursForEfficiency'
-        | 'approvalLinkHours',
-    ) =>
-    (_: unknown, data: { value: string }) =>
-      set(key, Number(data.value));
+  type NumberSetting =
+    | 'workweekStartDay'
+    | 'workweekStartHour'
+    | 'maxConcurrentJobs'
+    | 'kioskIdleSeconds'
+    | 'minimumMealMinutes'
+    | 'longShiftHours'
+    | 'minimumClockedMinutesForDone'
+    | 'minimumClockedHoursForEfficiency'
+    | 'approvalLinkHours';
+  const number = (key: NumberSetting) => (_: unknown, data: { value: string }) =>
+    set(key, Number(data.value));
+  const numberField = (key: NumberSetting, label: string, [min, max]: [number, number], hint?: string) => (
+    <Field label={label} validationMessage={errors[key]} hint={hint}>
+      <Input type="number" min={min} max={max} value={String(draft[key])} onChange={number(key)} />
+    </Field>
+  );
 
   return (
     <form className={styles.form} onSubmit={submit} noValidate>
@@ -241,19 +243,12 @@ function ShopForm({
               <option value="24h">24-hour (14:30)</option>
             </Select>
           </Field>
-          <Field
-            label="Kiosk signs out after (seconds)"
-            validationMessage={errors.kioskIdleSeconds}
-            hint="15 to 600 seconds without a tap"
-          >
-            <Input
-              type="number"
-              min={15}
-              max={600}
-              value={String(draft.kioskIdleSeconds)}
-              onChange={number('kioskIdleSeconds')}
-            />
-          </Field>
+          {numberField(
+            'kioskIdleSeconds',
+            'Kiosk signs out after (seconds)',
+            [15, 600],
+            '15 to 600 seconds without a tap',
+          )}
           <Field label="Unassigned lines" validationMessage={errors.techniciansTakeUnassigned}>
             <Switch
               checked={draft.techniciansTakeUnassigned}
@@ -302,19 +297,12 @@ function ShopForm({
           >
             <Input value={draft.taxNote} maxLength={200} onChange={(_, data) => set('taxNote', data.value)} />
           </Field>
-          <Field
-            label="Approval links work for (hours)"
-            validationMessage={errors.approvalLinkHours}
-            hint="1 to 720 hours; 72 is three days"
-          >
-            <Input
-              type="number"
-              min={1}
-              max={720}
-              value={String(draft.approvalLinkHours)}
-              onChange={number('approvalLinkHours')}
-            />
-          </Field>
+          {numberField(
+            'approvalLinkHours',
+            'Approval links work for (hours)',
+            [1, 720],
+            '1 to 720 hours; 72 is three days',
+          )}
         </div>
       </Card>
 
@@ -375,63 +363,35 @@ function ShopForm({
               <option value="full">Full time to each</option>
             </Select>
           </Field>
-          <Field
-            label="Minimum clocked hours before a technician's own efficiency drives forecasts"
-            validationMessage={errors.minimumClockedHoursForEfficiency}
-            hint="In the last four weeks; below it, forecasts use the shop's figure"
-          >
-            <Input
-              type="number"
-              min={0}
-              max={200}
-              value={String(draft.minimumClockedHoursForEfficiency)}
-              onChange={number('minimumClockedHoursForEfficiency')}
-            />
-          </Field>
+          {numberField(
+            'minimumClockedHoursForEfficiency',
+            "Minimum clocked hours before a technician's own efficiency drives forecasts",
+            [0, 200],
+            "In the last four weeks; below it, forecasts use the shop's figure",
+          )}
         </div>
       </Card>
 
       <Card className={styles.card}>
         <Subtitle2 as="h2">Timecard checks</Subtitle2>
         <div className={styles.grid}>
-          <Field
-            label="Shortest unpaid meal (minutes)"
-            validationMessage={errors.minimumMealMinutes}
-            hint="A “meal” shorter than this counts as a paid rest break. 29 CFR 785.19(a): 30 minutes or more is ordinarily long enough."
-          >
-            <Input
-              type="number"
-              min={10}
-              max={60}
-              value={String(draft.minimumMealMinutes)}
-              onChange={number('minimumMealMinutes')}
-            />
-          </Field>
-          <Field
-            label="Shift open longer than (hours) goes on the exceptions list"
-            validationMessage={errors.longShiftHours}
-          >
-            <Input
-              type="number"
-              min={8}
-              max={24}
-              value={String(draft.longShiftHours)}
-              onChange={number('longShiftHours')}
-            />
-          </Field>
-          <Field
-            label="Done with less clocked time than this (minutes) needs a foreman's sign-off"
-            validationMessage={errors.minimumClockedMinutesForDone}
-            hint="Until signed off, the line's book hours are not flagged"
-          >
-            <Input
-              type="number"
-              min={0}
-              max={120}
-              value={String(draft.minimumClockedMinutesForDone)}
-              onChange={number('minimumClockedMinutesForDone')}
-            />
-          </Field>
+          {numberField(
+            'minimumMealMinutes',
+            'Shortest unpaid meal (minutes)',
+            [10, 60],
+            'A “meal” shorter than this counts as a paid rest break. 29 CFR 785.19(a): 30 minutes or more is ordinarily long enough.',
+          )}
+          {numberField(
+            'longShiftHours',
+            'Shift open longer than (hours) goes on the exceptions list',
+            [8, 24],
+          )}
+          {numberField(
+            'minimumClockedMinutesForDone',
+            "Done with less clocked time than this (minutes) needs a foreman's sign-off",
+            [0, 120],
+            "Until signed off, the line's book hours are not flagged",
+          )}
         </div>
       </Card>
 
