@@ -6,22 +6,22 @@ import { openDatabase, type Sqlite } from './database.js';
 import { UnitOfWork } from './unit-of-work.js';
 import { WalSync } from './wal-sync.js';
 
-const synced = vi.hoisted(() => ({ files: [] as string[] }));
+const synced = vi.hoisted(() => ({ files: [] as string[], opened: new Map<number, string>(), opens: 0 }));
 
 // The real fsync, counted: which file each one was for.
-vi.mock('node:fs/promises', async (original) => {
-  const fs = await original<typeof import('node:fs/promises')>();
+vi.mock('node:fs', async (original) => {
+  const fs = await original<typeof import('node:fs')>();
   return {
     ...fs,
-    open: async (file: string, flags: string) => {
-      const handle = await fs.open(file, flags);
-      const datasync = handle.datasync.bind(handle);
-      return Object.assign(handle, {
-        datasync: async () => {
-          synced.files.push(file);
-          await datasync();
-        },
-      });
+    openSync: (file: string, flags: string) => {
+      const descriptor = fs.openSync(file, flags);
+      synced.opened.set(descriptor, file);
+      synced.opens++;
+      return descriptor;
+    },
+    fdatasync: (descriptor: number, callback: (error: NodeJS.ErrnoException | null) => void) => {
+      synced.files.push(synced.opened.get(descriptor) ?? `descriptor ${descriptor}`);
+      fs.fdatasync(descriptor, callback);
     },
   };
 });
@@ -41,6 +41,7 @@ describe(WalSync.name, () => {
     sut = new WalSync(sqlite, uow);
   });
   afterAll(() => {
+    sut.onModuleDestroy();
     sqlite.connection.close();
     rmSync(dir, { recursive: true, force: true });
   });
@@ -72,5 +73,14 @@ describe(WalSync.name, () => {
     await Promise.all([first, alongside, later, withLater]);
     expect(synced.files).toHaveLength(2);
     expect(sut.syncedCommits).toBe(uow.commits);
+  });
+
+  it('opens the WAL once for all its fsyncs', async () => {
+    const opensBefore = synced.opens;
+    for (let i = 0; i < 3; i++) {
+      commit();
+      await sut.flush();
+    }
+    expect(synced.opens - opensBefore).toBe(0);
   });
 });

@@ -4,8 +4,9 @@ import {
   type CallHandler,
   type ExecutionContext,
   type NestInterceptor,
+  type OnModuleDestroy,
 } from '@nestjs/common';
-import { open } from 'node:fs/promises';
+import { close, fdatasync, openSync } from 'node:fs';
 import { from, mergeMap, type Observable } from 'rxjs';
 import type { Request } from 'express';
 import { SQLITE, type Sqlite } from './database.js';
@@ -16,10 +17,14 @@ import { UnitOfWork } from './unit-of-work.js';
  * synchronous=NORMAL, so a commit only hands its pages to the kernel (a kill -9 cannot lose them);
  * before an answer says "saved", `flush` fsyncs the WAL file on libuv's thread pool, which a power cut
  * cannot undo either. One fsync covers every commit before it: under load, answers share them.
+ *
+ * The WAL file is opened once and kept: SQLite deletes it only when its last connection closes, and
+ * this connection lives as long as the server (a checkpoint rewinds the file, it never replaces it).
  */
 @Injectable()
-export class WalSync {
+export class WalSync implements OnModuleDestroy {
   private readonly walFile: string;
+  private descriptor: number | null = null;
   private running: Promise<void> | null = null;
   /** The commits the running fsync covers. */
   private runningUpTo = 0;
@@ -56,7 +61,7 @@ export class WalSync {
     this.next = null;
     const upTo = this.uow.commits;
     this.runningUpTo = upTo;
-    this.running = syncFile(this.walFile).then(
+    this.running = this.syncWal().then(
       () => {
         this.synced = Math.max(this.synced, upTo);
         this.running = null;
@@ -68,16 +73,19 @@ export class WalSync {
     );
     return this.running;
   }
-}
 
-async function syncFile(file: string): Promise<void> {
-  // Opened each time: SQLite may delete and create the WAL again, and an old descriptor would sync
-  // a file nobody writes any more. The migrations at start-up write, so the WAL is there.
-  const handle = await open(file, 'r');
-  try {
-    await handle.datasync();
-  } finally {
-    await handle.close();
+  onModuleDestroy(): void {
+    if (this.descriptor !== null) close(this.descriptor, () => undefined);
+    this.descriptor = null;
+  }
+
+  private syncWal(): Promise<void> {
+    // Opened at the first commit that waits: SQLite creates the WAL with the connection's first write.
+    this.descriptor ??= openSync(this.walFile, 'r');
+    const descriptor = this.descriptor;
+    return new Promise((resolve, reject) =>
+      fdatasync(descriptor, (error) => (error ? reject(error) : resolve())),
+    );
   }
 }
 
