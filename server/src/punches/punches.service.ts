@@ -110,9 +110,7 @@ export class PunchesService {
   ): RecordedPunch {
     const technicianId = this.technicianFor(body, actor);
     const existing = this.queries.punch.get({ id: body.id });
-    const existingHeld = existing
-      ? undefined
-      : this.db.select().from(heldPunches).where(eq(heldPunches.id, body.id)).get();
+    const existingHeld = existing ? undefined : this.queries.heldPunch.get({ id: body.id });
     if ((existing ?? existingHeld) && (existing ?? existingHeld)!.technicianId !== technicianId)
       throw new ConflictException('That punch id is already used');
     if (existing) return { punch: toPunchDto(existing), replayed: true, held: false };
@@ -275,18 +273,11 @@ export class PunchesService {
   }
 
   private pendingOf(technicianId: number): HeldRow[] {
-    return this.db
-      .select()
-      .from(heldPunches)
-      .where(and(eq(heldPunches.technicianId, technicianId), eq(heldPunches.review, 'pending')))
-      .all();
+    return this.queries.pendingOf.all({ technicianId });
   }
 
   private pendingHeld(id: string): HeldRow {
-    const held = foundOrFail(
-      this.db.select().from(heldPunches).where(eq(heldPunches.id, id)).get(),
-      'Held punch',
-    );
+    const held = foundOrFail(this.queries.heldPunch.get({ id }), 'Held punch');
     if (held.review !== 'pending') throw new ConflictException(`That punch was already ${held.review}`);
     return held;
   }
@@ -392,6 +383,16 @@ function preparePunchQueries(db: Db) {
       .select()
       .from(jobLines)
       .where(eq(jobLines.id, value('id')))
+      .prepare(),
+    heldPunch: db
+      .select()
+      .from(heldPunches)
+      .where(eq(heldPunches.id, value('id')))
+      .prepare(),
+    pendingOf: db
+      .select()
+      .from(heldPunches)
+      .where(and(eq(heldPunches.technicianId, value('technicianId')), eq(heldPunches.review, 'pending')))
       .prepare(),
   };
 }
