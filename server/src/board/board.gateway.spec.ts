@@ -50,6 +50,17 @@ describe(BoardGateway.name, () => {
     expect(answer.seq).toBe(onConnect.seq);
   });
 
+  it('sends each of many sockets connecting at once exactly one snapshot', async () => {
+    const sockets = Array.from({ length: 12 }, () => sut.connect(owner));
+    const counts = sockets.map(() => 0);
+    sockets.forEach((socket, i) => socket.on('board.snapshot', () => counts[i]!++));
+    const firsts = await Promise.all(sockets.map((socket) => nextEvent(socket, 'board.snapshot')));
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    expect(counts).toEqual(sockets.map(() => 1));
+    expect(new Set(firsts.map((snapshot) => snapshot.bays.length))).toEqual(new Set([8]));
+    for (const socket of sockets) socket.close();
+  });
+
   it('answers a burst of requests only up to its budget, and stays connected', async () => {
     const socket = sut.connect(owner);
     await nextEvent(socket, 'board.snapshot');

@@ -55,6 +55,8 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
   private readonly logger = new Logger(BoardGateway.name);
   @WebSocketServer() private server: LiveServer;
   private readonly subscriptions: Subscription[] = [];
+  /** Sockets connected this tick that still wait for their first snapshot, by socket id. */
+  private readonly awaitingSnapshot = new Set<string>();
 
   constructor(
     private readonly auth: AuthService,
@@ -75,6 +77,8 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
     });
     this.subscriptions.push(
       this.live.messages$.subscribe(({ event, payload, audience }) => {
+        // A new screen's snapshot goes before any message that follows it.
+        this.sendSnapshots();
         const rooms =
           audience.to === 'everyone'
             ? [SHOP_ROOM]
@@ -102,7 +106,8 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
     ]);
     this.endAtExpiry(socket, expiresAt);
     if (principal.role === 'display') this.screens.seen(principal.id);
-    socket.emit('board.snapshot', this.board.current());
+    if (this.awaitingSnapshot.size === 0) setImmediate(() => this.sendSnapshots());
+    this.awaitingSnapshot.add(socket.id);
     this.logger.debug(`${principal.role} ${principal.id} connected`);
   }
 
@@ -110,6 +115,17 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
   @SubscribeMessage('board.snapshot')
   snapshot(@ConnectedSocket() socket: LiveSocket): BoardSnapshot | undefined {
     return socket.data.requests.take() ? this.board.current() : undefined;
+  }
+
+  /**
+   * One snapshot for every socket that connected in the same tick, sent as one broadcast: Socket.IO
+   * encodes it and frames it once for all of them. After a restart, sockets come back in crowds.
+   */
+  private sendSnapshots(): void {
+    if (this.awaitingSnapshot.size === 0) return;
+    const sockets = [...this.awaitingSnapshot];
+    this.awaitingSnapshot.clear();
+    this.server.to(sockets).emit('board.snapshot', this.board.current());
   }
 
   private endAtExpiry(socket: LiveSocket, expiresAt: number): void {
