@@ -66,6 +66,8 @@ export interface LoadResult {
   missed: number;
   elapsedMs: number;
   serverCpuMs: number;
+  /** Of which in the kernel on the server's behalf. */
+  serverSystemCpuMs: number;
   eventLoop: EventLoopDelay;
 }
 
@@ -103,7 +105,7 @@ export async function punchLoad(
   const eventLoop = () =>
     fetch(`${server.url}/api/health/event-loop`).then((r) => r.json() as Promise<EventLoopDelay>);
   await eventLoop(); // starts the count afresh
-  const cpuBefore = server.cpuMs();
+  const cpuBefore = server.cpuTimesMs();
   const started = performance.now();
   const total = rate * seconds;
   const requests: Promise<void>[] = [];
@@ -148,8 +150,19 @@ export async function punchLoad(
     await new Promise((resolve) => setTimeout(resolve, 20));
   }
   const elapsedMs = performance.now() - started;
-  const serverCpuMs = server.cpuMs() - cpuBefore;
+  const cpuAfter = server.cpuTimesMs();
+  const serverSystemCpuMs = cpuAfter.system - cpuBefore.system;
+  const serverCpuMs = cpuAfter.user - cpuBefore.user + serverSystemCpuMs;
   for (const technicianId of pending.keys()) settle(technicianId);
   for (const board of boards) board.off('floor.updated');
-  return { sent: total, refused, latencies, missed, elapsedMs, serverCpuMs, eventLoop: await eventLoop() };
+  return {
+    sent: total,
+    refused,
+    latencies,
+    missed,
+    elapsedMs,
+    serverCpuMs,
+    serverSystemCpuMs,
+    eventLoop: await eventLoop(),
+  };
 }

@@ -70,9 +70,16 @@ export class ServerProcess {
 
   /** User and system CPU time the process has used so far, in ms. */
   cpuMs(): number {
+    const { user, system } = this.cpuTimesMs();
+    return user + system;
+  }
+
+  /** CPU time so far in ms: in the process's own code, and in the kernel on its behalf (sockets, disk). */
+  cpuTimesMs(): { user: number; system: number } {
     // Fields after the command name, which is in parentheses: utime and stime are the 12th and 13th.
     const fields = readFileSync(`/proc/${this.pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
-    return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_SECOND;
+    const ms = (ticks: string | undefined) => (Number(ticks) * 1000) / TICKS_PER_SECOND;
+    return { user: ms(fields[11]), system: ms(fields[12]) };
   }
 
   /** Resident memory now (`VmRSS`) and at its peak (`VmHWM`), in MB. */
