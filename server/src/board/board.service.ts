@@ -1,5 +1,4 @@
 import { Injectable, Logger, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
-import { isDeepStrictEqual } from 'node:util';
 import type { Subscription } from 'rxjs';
 import {
   shortName,
@@ -24,6 +23,20 @@ const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 /** How long a snapshot is handed out again while nothing was published: a restart's reconnect storm. */
 const SNAPSHOT_REUSE_MS = 250;
 
+/** What the screens were last told of a bay, enough to tell whether it changed since. */
+interface PublishedBay {
+  /** The bay as JSON, its clocked seconds left out: they tick on the screens by themselves. */
+  key: string;
+  clockedSeconds: number;
+  clockRunning: boolean;
+}
+/** What the screens were last told, kept as JSON to compare with: cheaper than a deep comparison. */
+interface Published {
+  bays: Map<number, PublishedBay>;
+  /** People, queue, late count, kiosk queues and the bays' order. */
+  floorKey: string;
+}
+
 /** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
 function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>): FloorLine | undefined {
   return [...lines].sort(
@@ -39,7 +52,7 @@ function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>):
 @Injectable()
 export class BoardService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger(BoardService.name);
-  private published: BoardSnapshot | null = null;
+  private published: Published | null = null;
   /** Counted by dispatch from its forecasts; the board only carries the number. */
   private lateLines = 0;
   private subscription: Subscription | null = null;
@@ -54,7 +67,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
 
   onModuleInit(): void {
     // What the screens were last told; every change is diffed against it, the first one included.
-    this.published = this.snapshot(this.live.seq);
+    this.published = published(this.snapshot(this.live.seq));
     this.subscription = this.live.floorChanged$.subscribe(() =>
       keepServing(this.logger, 'Publishing floor changes', () => this.publishChanges()),
     );
@@ -83,31 +96,19 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
    * people, queue, late count and the bays' order (which also drops a retired bay from the wall).
    */
   publishChanges(now = new Date()): void {
-    const before = this.published ?? this.snapshot(this.live.seq, now);
-    const after = this.snapshot(this.live.seq, now);
-    for (const bay of after.bays) {
-      const old = before.bays.find((b) => b.id === bay.id);
-      if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay }, { to: 'floor' });
+    const after = published(this.snapshot(this.live.seq, now));
+    const before = this.published ?? after;
+    for (const bay of after.snapshot.bays) {
+      const old = before.bays.get(bay.id);
+      if (!old || !sameBay(old, after.bays.get(bay.id)!))
+        this.live.publish('bay.updated', { bay }, { to: 'floor' });
     }
-    const bayIds = after.bays.map((bay) => bay.id);
-    if (
-      !isDeepStrictEqual(
-        [bayIds, after.people, after.queue, after.lateLines, after.kioskQueues],
-        [before.bays.map((bay) => bay.id), before.people, before.queue, before.lateLines, before.kioskQueues],
-      )
-    )
-      this.live.publish(
-        'floor.updated',
-        {
-          people: after.people,
-          queue: after.queue,
-          lateLines: after.lateLines,
-          bayIds,
-          kioskQueues: after.kioskQueues,
-        },
-        { to: 'floor' },
-      );
-    this.published = { ...after, seq: this.live.seq };
+    if (after.floorKey !== before.floorKey) {
+      const { people, queue, lateLines, kioskQueues } = after.snapshot;
+      const bayIds = after.snapshot.bays.map((bay) => bay.id);
+      this.live.publish('floor.updated', { people, queue, lateLines, bayIds, kioskQueues }, { to: 'floor' });
+    }
+    this.published = { bays: after.bays, floorKey: after.floorKey };
   }
 
   snapshot(seq: number, now = new Date()): BoardSnapshot {
@@ -245,11 +246,32 @@ function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: n
   return new Date(Math.max(since.getTime(), ...ends));
 }
 
+function published(snapshot: BoardSnapshot): Published & { snapshot: BoardSnapshot } {
+  const bays = new Map(
+    snapshot.bays.map((bay): [number, PublishedBay] => [
+      bay.id,
+      {
+        key: JSON.stringify({ ...bay, clockedSeconds: 0 }),
+        clockedSeconds: bay.clockedSeconds,
+        clockRunning: bay.clockRunning,
+      },
+    ]),
+  );
+  const { people, queue, lateLines, kioskQueues } = snapshot;
+  const floorKey = JSON.stringify([
+    snapshot.bays.map((bay) => bay.id),
+    people,
+    queue,
+    lateLines,
+    kioskQueues,
+  ]);
+  return { snapshot, bays, floorKey };
+}
+
 /** Clocked seconds tick on the screens by themselves; only a jump is news. */
-function sameBay(a: BoardBay, b: BoardBay): boolean {
-  const drift = Math.abs(a.clockedSeconds - b.clockedSeconds);
+function sameBay(before: PublishedBay, after: PublishedBay): boolean {
   return (
-    isDeepStrictEqual({ ...a, clockedSeconds: 0 }, { ...b, clockedSeconds: 0 }) &&
-    (a.clockRunning || drift < 1)
+    before.key === after.key &&
+    (before.clockRunning || Math.abs(before.clockedSeconds - after.clockedSeconds) < 1)
   );
 }

@@ -58,7 +58,13 @@ interface TechnicianPunches {
   /** Punches at or after this instant are all here, in time order. */
   windowStart: number;
   punches: LedgerPunch[];
-  built: { ledger: Ledger; at: number; state: TechnicianState } | null;
+  built: {
+    ledger: Ledger;
+    at: number;
+    state: TechnicianState;
+    /** The ledger's closed seconds per job line, as pairs: read on every snapshot. */
+    jobSeconds: [lineId: number, seconds: number][];
+  } | null;
 }
 
 /**
@@ -221,8 +227,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
       const open = built.state.openJobLineIds;
       const share = concurrentSplit === 'even' && open.length > 0 ? 1 / open.length : 1;
       const running = Math.max(0, now.getTime() - built.at) / 1000;
-      for (const [key, closed] of Object.entries(built.ledger.totals.jobSeconds)) {
-        const lineId = Number(key);
+      for (const [lineId, closed] of built.jobSeconds) {
         if (!this.lines.has(lineId)) continue;
         const seconds = closed + (open.includes(lineId) ? running * share : 0);
         if (seconds === 0) continue;
@@ -248,7 +253,15 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     if (!clock.built) {
       this.prune(clock, now.getTime());
       const ledger = buildLedger(clock.punches, now, this.shop.settings(now));
-      clock.built = { ledger, at: now.getTime(), state: technicianState(ledger) };
+      clock.built = {
+        ledger,
+        at: now.getTime(),
+        state: technicianState(ledger),
+        jobSeconds: Object.entries(ledger.totals.jobSeconds).map(([lineId, seconds]) => [
+          Number(lineId),
+          seconds,
+        ]),
+      };
     }
     return clock.built;
   }
