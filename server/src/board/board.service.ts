@@ -12,7 +12,13 @@ import {
   type TechnicianState,
 } from '@baytime/shared';
 import { keepServing } from '../common/keep-serving.js';
-import { FloorService, type FloorLine, type FloorTimer } from '../floor/floor.service.js';
+import { sameJson } from '../common/same-json.js';
+import {
+  FloorService,
+  type FloorLine,
+  type FloorTechnician,
+  type FloorTimer,
+} from '../floor/floor.service.js';
 import { timerEstimate } from '../timers/timer-view.js';
 import { waitingParts } from '../work/parts-hold.dto.js';
 import { LiveService } from '../live/live.service.js';
@@ -23,36 +29,42 @@ const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 /** How long a snapshot is handed out again while nothing was published: a restart's reconnect storm. */
 const SNAPSHOT_REUSE_MS = 250;
 
-/** What the screens were last told of a bay, enough to tell whether it changed since. */
-interface PublishedBay {
-  /** The bay as JSON, its clocked seconds left out: they tick on the screens by themselves. */
-  key: string;
-  clockedSeconds: number;
-  clockRunning: boolean;
-}
-/** What the screens were last told, kept as JSON to compare with: cheaper than a deep comparison. */
-interface Published {
-  bays: Map<number, PublishedBay>;
-  /** People, queue, late count, kiosk queues and the bays' order. */
-  floorKey: string;
-}
-
 /** The line a bay tile shows: someone on it first, then a held one, then the next in priority. */
-function leadLine(lines: FloorLine[], clockedOn: ReadonlyMap<number, number[]>): FloorLine | undefined {
-  return [...lines].sort(
-    (a, b) =>
-      Number(clockedOn.has(b.id)) - Number(clockedOn.has(a.id)) ||
+function leadLine(
+  lines: readonly FloorLine[],
+  clockedOn: ReadonlyMap<number, number[]>,
+): FloorLine | undefined {
+  const before = (a: FloorLine, b: FloorLine) =>
+    (Number(clockedOn.has(b.id)) - Number(clockedOn.has(a.id)) ||
       Number(b.status === 'held') - Number(a.status === 'held') ||
       PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
-      a.id - b.id,
-  )[0];
+      a.id - b.id) < 0;
+  let lead: FloorLine | undefined;
+  for (const line of lines) if (!lead || before(line, lead)) lead = line;
+  return lead;
+}
+
+/** Adds `value` to the list under `key`. */
+function addTo<K, V>(map: Map<K, V[]>, key: K, value: V): void {
+  const list = map.get(key);
+  if (list) list.push(value);
+  else map.set(key, [value]);
+}
+
+/** Short names of technicians as the model holds them: a name changes only with a new record. */
+const shortNames = new WeakMap<FloorTechnician, string>();
+function shortNameOf(tech: FloorTechnician): string {
+  let name = shortNames.get(tech);
+  if (name === undefined) shortNames.set(tech, (name = shortName(tech.name)));
+  return name;
 }
 
 /** What every screen shows of the floor at one instant, read from the in-memory floor model. */
 @Injectable()
 export class BoardService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger(BoardService.name);
-  private published: Published | null = null;
+  /** What the screens were last told; every change is diffed against it. */
+  private published: BoardSnapshot | null = null;
   /** Counted by dispatch from its forecasts; the board only carries the number. */
   private lateLines = 0;
   private subscription: Subscription | null = null;
@@ -67,7 +79,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
 
   onModuleInit(): void {
     // What the screens were last told; every change is diffed against it, the first one included.
-    this.published = published(this.snapshot(this.live.seq));
+    this.published = this.snapshot(this.live.seq);
     this.subscription = this.live.floorChanged$.subscribe(() =>
       keepServing(this.logger, 'Publishing floor changes', () => this.publishChanges()),
     );
@@ -96,19 +108,19 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
    * people, queue, late count and the bays' order (which also drops a retired bay from the wall).
    */
   publishChanges(now = new Date()): void {
-    const after = published(this.snapshot(this.live.seq, now));
+    const after = this.snapshot(this.live.seq, now);
     const before = this.published ?? after;
-    for (const bay of after.snapshot.bays) {
-      const old = before.bays.get(bay.id);
-      if (!old || !sameBay(old, after.bays.get(bay.id)!))
-        this.live.publish('bay.updated', { bay }, { to: 'floor' });
+    const baysBefore = new Map(before.bays.map((bay) => [bay.id, bay]));
+    for (const bay of after.bays) {
+      const old = baysBefore.get(bay.id);
+      if (!old || !sameBay(old, bay)) this.live.publish('bay.updated', { bay }, { to: 'floor' });
     }
-    if (after.floorKey !== before.floorKey) {
-      const { people, queue, lateLines, kioskQueues } = after.snapshot;
-      const bayIds = after.snapshot.bays.map((bay) => bay.id);
+    if (!sameFloor(before, after)) {
+      const { people, queue, lateLines, kioskQueues } = after;
+      const bayIds = after.bays.map((bay) => bay.id);
       this.live.publish('floor.updated', { people, queue, lateLines, bayIds, kioskQueues }, { to: 'floor' });
     }
-    this.published = { bays: after.bays, floorKey: after.floorKey };
+    this.published = after;
   }
 
   snapshot(seq: number, now = new Date()): BoardSnapshot {
@@ -117,16 +129,14 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const technicians = this.floor.technicians();
     const states = new Map(technicians.map((tech) => [tech.id, this.floor.stateOf(tech.id, now)]));
     const clockedOn = new Map<number, number[]>();
-    for (const [techId, state] of states)
-      for (const lineId of state?.openJobLineIds ?? [])
-        clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), techId]);
-    const names = new Map(technicians.map((tech) => [tech.id, shortName(tech.name)]));
-    const seconds = this.floor.lineSeconds(now);
+    for (const tech of technicians)
+      for (const lineId of states.get(tech.id)?.openJobLineIds ?? []) addTo(clockedOn, lineId, tech.id);
+    const names = new Map(technicians.map((tech) => [tech.id, shortNameOf(tech)]));
+    const seconds = this.floor.lineTotals(now);
     const runningTimers = this.floor.runningTimers();
 
     const linesByBay = new Map<number, FloorLine[]>();
-    for (const line of openLines)
-      if (line.bayId !== null) linesByBay.set(line.bayId, [...(linesByBay.get(line.bayId) ?? []), line]);
+    for (const line of openLines) if (line.bayId !== null) addTo(linesByBay, line.bayId, line);
 
     const boardBays: BoardBay[] = this.floor.bays().map((bay) => {
       const inBay = linesByBay.get(bay.id) ?? [];
@@ -158,7 +168,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
         repairOrder: ro ? { id: ro.id, number: ro.number } : null,
         jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
         technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
-        clockedSeconds: Math.round(line ? (seconds.get(line.id)?.total ?? 0) : 0),
+        clockedSeconds: Math.round(line ? (seconds.get(line.id) ?? 0) : 0),
         bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
         clockRunning: line ? clockedOn.has(line.id) : false,
         timer: timer ? boardTimer(timer, now) : null,
@@ -173,7 +183,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       return [
         {
           id: tech.id,
-          name: shortName(tech.name),
+          name: shortNameOf(tech),
           status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
           since: personSince(this.floor.ledgerOf(tech.id, now), state, line?.id).toISOString(),
           bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
@@ -240,38 +250,29 @@ function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: n
   const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
   if (open) return open.from;
   // Only intervals that really ended: an open one's end is just when its ledger was last built.
-  const ends = [...ledger.jobs, ...ledger.breaks]
-    .filter((interval) => !interval.open)
-    .map((interval) => interval.to.getTime());
-  return new Date(Math.max(since.getTime(), ...ends));
-}
-
-function published(snapshot: BoardSnapshot): Published & { snapshot: BoardSnapshot } {
-  const bays = new Map(
-    snapshot.bays.map((bay): [number, PublishedBay] => [
-      bay.id,
-      {
-        key: JSON.stringify({ ...bay, clockedSeconds: 0 }),
-        clockedSeconds: bay.clockedSeconds,
-        clockRunning: bay.clockRunning,
-      },
-    ]),
-  );
-  const { people, queue, lateLines, kioskQueues } = snapshot;
-  const floorKey = JSON.stringify([
-    snapshot.bays.map((bay) => bay.id),
-    people,
-    queue,
-    lateLines,
-    kioskQueues,
-  ]);
-  return { snapshot, bays, floorKey };
+  let latest = since.getTime();
+  for (const interval of [ledger.jobs, ledger.breaks].flat())
+    if (!interval.open) latest = Math.max(latest, interval.to.getTime());
+  return new Date(latest);
 }
 
 /** Clocked seconds tick on the screens by themselves; only a jump is news. */
-function sameBay(before: PublishedBay, after: PublishedBay): boolean {
+function sameBay(before: BoardBay, after: BoardBay): boolean {
   return (
-    before.key === after.key &&
+    sameJson(before, after, TICKING) &&
     (before.clockRunning || Math.abs(before.clockedSeconds - after.clockedSeconds) < 1)
+  );
+}
+const TICKING: ReadonlySet<keyof BoardBay> = new Set(['clockedSeconds']);
+
+/** People, queue, late count, kiosk queues and the bays' order. */
+function sameFloor(before: BoardSnapshot, after: BoardSnapshot): boolean {
+  return (
+    before.lateLines === after.lateLines &&
+    before.bays.length === after.bays.length &&
+    before.bays.every((bay, i) => bay.id === after.bays[i]!.id) &&
+    sameJson(before.people, after.people) &&
+    sameJson(before.queue, after.queue) &&
+    sameJson(before.kioskQueues, after.kioskQueues)
   );
 }

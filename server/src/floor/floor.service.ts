@@ -219,25 +219,45 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
    * of the wall clock, which is what a fresh ledger would count.
    */
   lineSeconds(now: Date): Map<number, LineSeconds> {
-    const { concurrentSplit } = this.shop.settings();
     const result = new Map<number, LineSeconds>();
+    this.eachClockedShare(now, (lineId, technicianId, seconds) => {
+      const line = result.get(lineId) ?? { total: 0, byTechnician: new Map<number, number>() };
+      line.total += seconds;
+      line.byTechnician.set(technicianId, seconds);
+      result.set(lineId, line);
+    });
+    return result;
+  }
+
+  /** `lineSeconds` in all only, for the screens: each change of the floor reads it. */
+  lineTotals(now: Date): Map<number, number> {
+    const result = new Map<number, number>();
+    this.eachClockedShare(now, (lineId, _, seconds) =>
+      result.set(lineId, (result.get(lineId) ?? 0) + seconds),
+    );
+    return result;
+  }
+
+  private eachClockedShare(
+    now: Date,
+    visit: (lineId: number, technicianId: number, seconds: number) => void,
+  ): void {
+    const { concurrentSplit } = this.shop.settings();
     for (const tech of this.technicianList) {
       const built = this.built(tech.id, now);
       if (!built) continue;
       const open = built.state.openJobLineIds;
       const share = concurrentSplit === 'even' && open.length > 0 ? 1 / open.length : 1;
       const running = Math.max(0, now.getTime() - built.at) / 1000;
-      for (const [lineId, closed] of built.jobSeconds) {
+      // Indexed, not destructured: destructuring each pair costs an iterator, on every snapshot.
+      for (const pair of built.jobSeconds) {
+        const lineId = pair[0];
+        const closed = pair[1];
         if (!this.lines.has(lineId)) continue;
         const seconds = closed + (open.includes(lineId) ? running * share : 0);
-        if (seconds === 0) continue;
-        const line = result.get(lineId) ?? { total: 0, byTechnician: new Map<number, number>() };
-        line.total += seconds;
-        line.byTechnician.set(tech.id, seconds);
-        result.set(lineId, line);
+        if (seconds !== 0) visit(lineId, tech.id, seconds);
       }
     }
-    return result;
   }
 
   private afterCommit(apply: () => void): void {
