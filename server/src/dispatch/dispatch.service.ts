@@ -31,7 +31,7 @@ const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
 /** Lines done in the last four weeks whose clocked time is read in one step of the efficiency count. */
-const DONE_LINES_PER_STEP = 250;
+const DONE_LINES_PER_STEP = 50;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
