@@ -232,7 +232,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     yield;
     // A `+` keeps SQLite off the index of status, which holds nearly every line as done.
     const done = this.db
-      .select()
+      .select({ id: jobLines.id, bookHours: jobLines.bookHours, technicianId: jobLines.technicianId })
       .from(jobLines)
       .where(
         and(
@@ -245,7 +245,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       .all();
     const flagged = new Map<number, number>();
     for (let first = 0; first < done.length; first += DONE_LINES_PER_STEP) {
-      if (first > 0) yield;
+      yield;
       const lines = done.slice(first, first + DONE_LINES_PER_STEP);
       const lineSeconds = this.labour.lineSeconds(
         lines.map((l) => l.id),
