@@ -1,15 +1,37 @@
 import type { INestApplication } from '@nestjs/common';
-import { DocumentBuilder, SwaggerModule, type OpenAPIObject } from '@nestjs/swagger';
+import { ExpressAdapter } from '@nestjs/platform-express';
+import type { NextFunction, Request, Response } from 'express';
 
 export const OPENAPI_PATH = 'api/openapi.json';
 export const DOCS_PATH = 'api/docs';
 
+const isDocsRequest = (path: string) => path === `/${OPENAPI_PATH}` || path.startsWith(`/${DOCS_PATH}`);
+
 /**
- * The API's description, made from the routes and the same zod schemas that validate their bodies,
- * queries and parameters (Nest reads them from `@Body({ schema })` and friends through zod's own
- * JSON Schema output). Nothing in it is written by hand but the titles.
+ * Serves the document at /api/openapi.json and the reference page at /api/docs, with the page's
+ * scripts and styles from swagger-ui-dist on this server: nothing from a CDN, within the app's
+ * content security policy. The Swagger module (some 500 files) loads on the first request for either,
+ * not at start-up: its routes go into an Express app of their own, mounted before the API's routes.
  */
-export function apiDocument(app: INestApplication): OpenAPIObject {
+export function serveApiDocs(app: INestApplication): void {
+  const docs = new ExpressAdapter();
+  docs.getInstance().disable('x-powered-by');
+  let mounted: Promise<void> | null = null;
+  docs.use((request: Request, _response: Response, next: NextFunction) => {
+    if (!isDocsRequest(request.path)) return next();
+    mounted ??= mountSwagger(app, docs);
+    mounted.then(() => next(), next);
+  });
+  app.use(docs.getInstance());
+}
+
+/**
+ * The API's description is made from the routes and the same zod schemas that validate their bodies,
+ * queries and parameters (Nest reads them from `@Body({ schema })` and friends through zod's own JSON
+ * Schema output), when first asked for. Nothing in it is written by hand but the titles.
+ */
+async function mountSwagger(app: INestApplication, docs: ExpressAdapter): Promise<void> {
+  const { DocumentBuilder, SwaggerModule } = await import('@nestjs/swagger');
   const config = new DocumentBuilder()
     .setOpenAPIVersion('3.1.0')
     .setTitle('Baytime API')
@@ -19,19 +41,20 @@ export function apiDocument(app: INestApplication): OpenAPIObject {
     )
     .addBearerAuth()
     .build();
-  return SwaggerModule.createDocument(app, config, { autoTagControllers: true });
-}
-
-/**
- * Serves the document at /api/openapi.json and the reference page at /api/docs, with the page's
- * scripts and styles from swagger-ui-dist on this server: nothing from a CDN, within the app's
- * content security policy.
- */
-export function serveApiDocs(app: INestApplication): void {
-  SwaggerModule.setup(DOCS_PATH, app, () => apiDocument(app), {
-    jsonDocumentUrl: OPENAPI_PATH,
-    raw: ['json'],
-    customSiteTitle: 'Baytime API',
-    swaggerOptions: { persistAuthorization: false, validatorUrl: null },
-  });
+  // Only what `SwaggerModule.setup` asks of an application: its HTTP adapter and static files.
+  const host = {
+    getHttpAdapter: () => docs,
+    useStaticAssets: (path: string, options: { prefix: string }) => docs.useStaticAssets(path, options),
+  } as unknown as INestApplication;
+  SwaggerModule.setup(
+    DOCS_PATH,
+    host,
+    () => SwaggerModule.createDocument(app, config, { autoTagControllers: true }),
+    {
+      jsonDocumentUrl: OPENAPI_PATH,
+      raw: ['json'],
+      customSiteTitle: 'Baytime API',
+      swaggerOptions: { persistAuthorization: false, validatorUrl: null },
+    },
+  );
 }

@@ -1,6 +1,7 @@
 import { createSecretKey, randomBytes, type KeyObject } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { isAbsolute, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
 export interface AppConfig {
   port: number;
@@ -31,6 +32,9 @@ export interface AppConfig {
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
+
+/** The checkout, where the front ends are built: the same from here as from the server's bundle. */
+export const REPO_ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 
 const truthy = (value: string | undefined) => value !== undefined && /^(1|true|yes|on)$/i.test(value);
 

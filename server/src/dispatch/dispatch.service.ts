@@ -6,8 +6,9 @@ import {
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
+import { setImmediate as nextTurn } from 'node:timers/promises';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
-import { and, eq, gte, isNull, ne, or } from 'drizzle-orm';
+import { and, gte, isNull, ne, or, sql } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
   isLineLate,
@@ -29,6 +30,8 @@ import { waitingParts } from '../work/parts-hold.dto.js';
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
+/** Lines done in the last four weeks whose clocked time is read in one step of the efficiency count. */
+const DONE_LINES_PER_STEP = 50;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
@@ -54,6 +57,9 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
   private readonly logger = new Logger(DispatchService.name);
   private subscription: Subscription | null = null;
   private efficiencyCache: { at: number; minimumHours: number; values: Efficiencies } | null = null;
+  /** The refresh of the efficiencies under way in the background, which a second count waits for. */
+  private refreshing: Promise<void> | null = null;
+  private stopped = false;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -72,17 +78,24 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     ).subscribe(() => this.countLateLines());
   }
 
-  /** Once the shop's data is in place (after first-run seeding), the wall gets its first count. */
+  /**
+   * Once the shop's data is in place (after first-run seeding), the wall gets its first count. It reads
+   * four weeks of clocked time (most of a second on a big shop), in steps: the server answers meanwhile.
+   */
   onApplicationBootstrap(): void {
     this.countLateLines();
   }
 
   onModuleDestroy(): void {
     this.subscription?.unsubscribe();
+    this.stopped = true;
   }
 
   private countLateLines(): void {
-    keepServing(this.logger, 'Counting late lines', () => this.board.setLateLines(this.view().lateCount));
+    keepServing(this.logger, 'Counting late lines', async () => {
+      await this.refreshEfficiencies(new Date());
+      if (!this.stopped) this.board.setLateLines(this.view().lateCount);
+    });
   }
 
   view(now = new Date()): DispatchBoard {
@@ -188,50 +201,77 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
    * something, and for the whole shop; cached for a few minutes.
    */
   private efficiencies(now: Date): Efficiencies {
+    const steps = this.countEfficiencies(now);
+    let step = steps.next();
+    while (!step.done) step = steps.next();
+    return step.value;
+  }
+
+  /** Fills the cache of efficiencies when it is stale, one step a turn of the event loop. */
+  private refreshEfficiencies(now: Date): Promise<void> {
+    this.refreshing ??= this.countInSteps(now).finally(() => (this.refreshing = null));
+    return this.refreshing;
+  }
+
+  private async countInSteps(now: Date): Promise<void> {
+    const steps = this.countEfficiencies(now);
+    while (!steps.next().done) {
+      await nextTurn();
+      if (this.stopped) return;
+    }
+  }
+
+  /** The efficiencies from the cache, or counted afresh in steps (a step yields before its reads). */
+  private *countEfficiencies(now: Date): Generator<void, Efficiencies> {
     // A technician's own efficiency drives forecasts only after the shop's minimum of clocked hours.
     const minimumHours = this.shop.settings(now).minimumClockedHoursForEfficiency;
     const cached = this.efficiencyCache;
     if (cached && cached.minimumHours === minimumHours && now.getTime() - cached.at < EFFICIENCY_CACHE_MS)
       return cached.values;
     const from = new Date(now.getTime() - FOUR_WEEKS_MS);
+    yield;
+    // A `+` keeps SQLite off the index of status, which holds nearly every line as done.
     const done = this.db
-      .select()
+      .select({ id: jobLines.id, bookHours: jobLines.bookHours, technicianId: jobLines.technicianId })
       .from(jobLines)
       .where(
         and(
-          eq(jobLines.status, 'done'),
+          sql`+${jobLines.status} = 'done'`,
           gte(jobLines.completedAt, from),
           // A line done without clocked time counts only once signed off (it once showed 2,819 %).
           or(isNull(jobLines.signOff), ne(jobLines.signOff, 'awaiting')),
         ),
       )
       .all();
-    const lineSeconds = this.labour.lineSeconds(
-      done.map((l) => l.id),
-      now,
-    );
     const flagged = new Map<number, number>();
-    for (const line of done) {
-      const shares = shareFlaggedHours(
-        line.bookHours,
-        lineSeconds.get(line.id)?.byTechnician ?? new Map(),
-        line.technicianId,
+    for (let first = 0; first < done.length; first += DONE_LINES_PER_STEP) {
+      yield;
+      const lines = done.slice(first, first + DONE_LINES_PER_STEP);
+      const lineSeconds = this.labour.lineSeconds(
+        lines.map((l) => l.id),
+        now,
       );
-      for (const [techId, hours] of shares) flagged.set(techId, (flagged.get(techId) ?? 0) + hours);
+      for (const line of lines) {
+        const shares = shareFlaggedHours(
+          line.bookHours,
+          lineSeconds.get(line.id)?.byTechnician ?? new Map(),
+          line.technicianId,
+        );
+        for (const [techId, hours] of shares) flagged.set(techId, (flagged.get(techId) ?? 0) + hours);
+      }
     }
     let shopFlagged = 0;
     let shopClocked = 0;
-    const byTechnician = new Map(
-      this.floor.technicians().map(({ id }) => {
-        const clocked =
-          this.labour.ledgerOf(id, new Date(from.getTime() - 36 * 3600_000), now).within(from, now)
-            .clockedSeconds / 3600;
-        shopFlagged += flagged.get(id) ?? 0;
-        shopClocked += clocked;
-        const enough = clocked >= minimumHours;
-        return [id, enough ? (flagged.get(id) ?? 0) / clocked : null] as const;
-      }),
-    );
+    const byTechnician = new Map<number, number | null>();
+    for (const { id } of this.floor.technicians()) {
+      yield;
+      const clocked =
+        this.labour.ledgerOf(id, new Date(from.getTime() - 36 * 3600_000), now).within(from, now)
+          .clockedSeconds / 3600;
+      shopFlagged += flagged.get(id) ?? 0;
+      shopClocked += clocked;
+      byTechnician.set(id, clocked >= minimumHours ? (flagged.get(id) ?? 0) / clocked : null);
+    }
     const shop = shopClocked >= minimumHours ? shopFlagged / shopClocked : null;
     const values = { byTechnician, shop };
     this.efficiencyCache = { at: now.getTime(), minimumHours, values };

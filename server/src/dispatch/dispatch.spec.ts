@@ -1,4 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Logger } from '@nestjs/common';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import {
   makeVin,
   type BoardSnapshot,
@@ -9,6 +10,47 @@ import {
 import { createApp } from '../app.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
+
+/** A repair order for one line of `bookHours`, promised at `promisedAt`, written by the advisor. */
+async function writeOrder(
+  sut: TestApp,
+  advisor: string,
+  serial: string,
+  promisedAt: Date,
+  bookHours: number,
+): Promise<RepairOrderSummary> {
+  const response = await sut
+    .http()
+    .post('/api/repair-orders')
+    .auth(advisor, { type: 'bearer' })
+    .send({
+      customer: { name: 'Quinby Latimer' },
+      vehicle: {
+        vin: makeVin(`7AB6LD9HLM${serial}`),
+        year: 2020,
+        make: 'Ambrey',
+        model: 'Lunda',
+        odometer: 7000,
+      },
+      concern: 'Wanted back soon',
+      promisedAt: promisedAt.toISOString(),
+      lines: [{ title: 'Replace timing belt', bookHours }],
+    })
+    .expect(201);
+  return response.body as RepairOrderSummary;
+}
+
+/** Waits until the wall board counts `lateCount` late lines. */
+async function wallCounts(sut: TestApp, token: string, lateCount: number): Promise<void> {
+  await expect
+    .poll(
+      async () =>
+        ((await sut.http().get('/api/board').auth(token, { type: 'bearer' })).body as BoardSnapshot)
+          .lateLines,
+      { timeout: 10_000 },
+    )
+    .toBe(lateCount);
+}
 
 describe(DispatchService.name, () => {
   // A shop without the demo's lines, so the count can be worked by hand. (One app at a time in this
@@ -88,27 +130,8 @@ describe(DispatchService.name, () => {
     it('flags late work waiting in the queue and a held line past its promise, and every screen counts the same (bug 11)', async () => {
       const advisor = await sut.signIn(DEMO.advisor);
       const foreman = await sut.signIn(DEMO.foreman);
-      const write = async (promisedAt: Date, bookHours: number) =>
-        (
-          await sut
-            .http()
-            .post('/api/repair-orders')
-            .auth(advisor, { type: 'bearer' })
-            .send({
-              customer: { name: 'Quinby Latimer' },
-              vehicle: {
-                vin: makeVin('7AB6LD9HLM900778'),
-                year: 2020,
-                make: 'Ambrey',
-                model: 'Lunda',
-                odometer: 7000,
-              },
-              concern: 'Wanted back soon',
-              promisedAt: promisedAt.toISOString(),
-              lines: [{ title: 'Replace timing belt', bookHours }],
-            })
-            .expect(201)
-        ).body as RepairOrderSummary;
+      const write = (promisedAt: Date, bookHours: number) =>
+        writeOrder(sut, advisor, '900778', promisedAt, bookHours);
       // Waiting, unassigned: eight hours of work promised in twenty minutes cannot make it.
       const waiting = await write(new Date(Date.now() + 20 * 60_000), 8);
       // Held past its promise: no forecast, but late all the same.
@@ -144,14 +167,43 @@ describe(DispatchService.name, () => {
         await sut.http().get(`/api/repair-orders/${waiting.id}`).auth(advisor, { type: 'bearer' }).expect(200)
       ).body as RepairOrderSummary;
       expect(detail).toMatchObject({ late: true, lines: [{ late: true }] });
-      await expect
-        .poll(
-          async () =>
-            ((await sut.http().get('/api/board').auth(foreman, { type: 'bearer' })).body as BoardSnapshot)
-              .lateLines,
-          { timeout: 10_000 },
-        )
-        .toBe(dispatch.lateCount);
+      await wallCounts(sut, foreman, dispatch.lateCount);
+    });
+  });
+
+  describe('the first count, made in steps once the server has started', () => {
+    it('reaches the wall board after a restart, and stops quietly when the server closes mid-count', async () => {
+      const sut = await startTestApp();
+      try {
+        const advisor = await sut.signIn(DEMO.advisor);
+        const foreman = await sut.signIn(DEMO.foreman);
+        // Eight hours of work promised in twenty minutes: late wherever it waits.
+        await writeOrder(sut, advisor, '900779', new Date(Date.now() + 20 * 60_000), 8);
+        const { lateCount } = (
+          await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200)
+        ).body as DispatchBoard;
+        expect(lateCount).toBeGreaterThan(0);
+
+        const errors = vi.spyOn(Logger.prototype, 'error');
+        try {
+          // Served again and closed at once: the count it began has nothing left to read from.
+          await sut.app.close();
+          sut.app = await createApp(sut.config, false);
+          await sut.app.listen(0, '127.0.0.1');
+          await sut.app.close();
+          await new Promise((resolve) => setTimeout(resolve, 200));
+          expect(errors).not.toHaveBeenCalled();
+        } finally {
+          errors.mockRestore();
+        }
+
+        // Served again: the wall's count comes with no change on the floor to set it off.
+        sut.app = await createApp(sut.config, false);
+        await sut.app.listen(0, '127.0.0.1');
+        await wallCounts(sut, foreman, lateCount);
+      } finally {
+        await sut.close();
+      }
     });
   });
 
