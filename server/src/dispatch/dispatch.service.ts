@@ -20,7 +20,7 @@ import {
 import { BoardService } from '../board/board.service.js';
 import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
-import { jobLines } from '../db/schema/index.js';
+import { jobLines, storedEfficiencies } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
@@ -30,6 +30,11 @@ import { waitingParts } from '../work/parts-hold.dto.js';
 const FOUR_WEEKS_MS = 28 * 24 * 3600_000;
 const LATE_COUNT_SETTLE_MS = 1500;
 const EFFICIENCY_CACHE_MS = 5 * 60_000;
+/**
+ * How long after a start the stored efficiencies serve as counted: a restart's reconnecting screens
+ * come first, the recount after.
+ */
+const STORED_EFFICIENCIES_SERVE_MS = 60_000;
 /** Lines done in the last four weeks whose clocked time is read in one step of the efficiency count. */
 const DONE_LINES_PER_STEP = 50;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
@@ -83,6 +88,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
    * four weeks of clocked time (most of a second on a big shop), in steps: the server answers meanwhile.
    */
   onApplicationBootstrap(): void {
+    this.efficiencyCache = this.storedEfficiencies(Date.now());
     this.countLateLines();
   }
 
@@ -275,6 +281,36 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     const shop = shopClocked >= minimumHours ? shopFlagged / shopClocked : null;
     const values = { byTechnician, shop };
     this.efficiencyCache = { at: now.getTime(), minimumHours, values };
+    this.storeEfficiencies(this.efficiencyCache);
     return values;
+  }
+
+  private storeEfficiencies({
+    at,
+    minimumHours,
+    values,
+  }: NonNullable<DispatchService['efficiencyCache']>): void {
+    const row = {
+      countedAt: new Date(at),
+      minimumHours,
+      shop: values.shop,
+      byTechnician: [...values.byTechnician],
+    };
+    this.db
+      .insert(storedEfficiencies)
+      .values({ id: 1, ...row })
+      .onConflictDoUpdate({ target: storedEfficiencies.id, set: row })
+      .run();
+  }
+
+  /** The efficiencies counted before the server started, standing as fresh for its first minute. */
+  private storedEfficiencies(now: number): DispatchService['efficiencyCache'] {
+    const row = this.db.select().from(storedEfficiencies).get();
+    if (!row) return null;
+    return {
+      at: now - EFFICIENCY_CACHE_MS + STORED_EFFICIENCIES_SERVE_MS,
+      minimumHours: row.minimumHours,
+      values: { byTechnician: new Map(row.byTechnician), shop: row.shop },
+    };
   }
 }

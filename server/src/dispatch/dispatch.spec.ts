@@ -8,6 +8,8 @@ import {
   type RepairOrderSummary,
 } from '@baytime/shared';
 import { createApp } from '../app.js';
+import { SQLITE, type Sqlite } from '../db/database.js';
+import { LabourService } from '../labour/labour.service.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
 
@@ -201,6 +203,39 @@ describe(DispatchService.name, () => {
         sut.app = await createApp(sut.config, false);
         await sut.app.listen(0, '127.0.0.1');
         await wallCounts(sut, foreman, lateCount);
+      } finally {
+        await sut.close();
+      }
+    });
+  });
+
+  describe('after a restart', () => {
+    it('counts from the efficiencies stored before it, reading no clocked time while the screens come back', async () => {
+      const sut = await startTestApp();
+      try {
+        const advisor = await sut.signIn(DEMO.advisor);
+        const foreman = await sut.signIn(DEMO.foreman);
+        await writeOrder(sut, advisor, '900781', new Date(Date.now() + 20 * 60_000), 8);
+        const { lateCount } = (
+          await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200)
+        ).body as DispatchBoard;
+        expect(lateCount).toBeGreaterThan(0);
+        const stored = sut.app
+          .get<Sqlite>(SQLITE)
+          .connection.prepare('select count(*) as n from stored_efficiencies')
+          .get() as { n: number };
+        expect(stored.n).toBe(1);
+
+        await sut.app.close();
+        const clockedTimeRead = vi.spyOn(LabourService.prototype, 'lineSeconds');
+        try {
+          sut.app = await createApp(sut.config, false);
+          await sut.app.listen(0, '127.0.0.1');
+          await wallCounts(sut, foreman, lateCount);
+          expect(clockedTimeRead).not.toHaveBeenCalled();
+        } finally {
+          clockedTimeRead.mockRestore();
+        }
       } finally {
         await sut.close();
       }

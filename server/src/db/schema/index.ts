@@ -11,3 +11,4 @@ export * from './approvals.js';
 export * from './parts.js';
 export * from './offline-punches.js';
 export * from './pay.js';
+export * from './dispatch.js';
