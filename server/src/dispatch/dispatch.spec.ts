@@ -54,6 +54,17 @@ async function wallCounts(sut: TestApp, token: string, lateCount: number): Promi
     .toBe(lateCount);
 }
 
+/** Eight hours of work promised in twenty minutes: late wherever it waits. The foreman sees the count. */
+async function aLateOrder(sut: TestApp, serial: string): Promise<{ foreman: string; lateCount: number }> {
+  const advisor = await sut.signIn(DEMO.advisor);
+  const foreman = await sut.signIn(DEMO.foreman);
+  await writeOrder(sut, advisor, serial, new Date(Date.now() + 20 * 60_000), 8);
+  const { lateCount } = (await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200))
+    .body as DispatchBoard;
+  expect(lateCount).toBeGreaterThan(0);
+  return { foreman, lateCount };
+}
+
 describe(DispatchService.name, () => {
   // A shop without the demo's lines, so the count can be worked by hand. (One app at a time in this
   // file: passport keeps one token check per process, the last app's.)
@@ -177,14 +188,7 @@ describe(DispatchService.name, () => {
     it('reaches the wall board after a restart, and stops quietly when the server closes mid-count', async () => {
       const sut = await startTestApp();
       try {
-        const advisor = await sut.signIn(DEMO.advisor);
-        const foreman = await sut.signIn(DEMO.foreman);
-        // Eight hours of work promised in twenty minutes: late wherever it waits.
-        await writeOrder(sut, advisor, '900779', new Date(Date.now() + 20 * 60_000), 8);
-        const { lateCount } = (
-          await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200)
-        ).body as DispatchBoard;
-        expect(lateCount).toBeGreaterThan(0);
+        const { foreman, lateCount } = await aLateOrder(sut, '900779');
 
         const errors = vi.spyOn(Logger.prototype, 'error');
         try {
@@ -213,13 +217,7 @@ describe(DispatchService.name, () => {
     it('counts from the efficiencies stored before it, reading no clocked time while the screens come back', async () => {
       const sut = await startTestApp();
       try {
-        const advisor = await sut.signIn(DEMO.advisor);
-        const foreman = await sut.signIn(DEMO.foreman);
-        await writeOrder(sut, advisor, '900781', new Date(Date.now() + 20 * 60_000), 8);
-        const { lateCount } = (
-          await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200)
-        ).body as DispatchBoard;
-        expect(lateCount).toBeGreaterThan(0);
+        const { foreman, lateCount } = await aLateOrder(sut, '900781');
         const stored = sut.app
           .get<Sqlite>(SQLITE)
           .connection.prepare('select count(*) as n from stored_efficiencies')
