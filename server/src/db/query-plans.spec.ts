@@ -144,16 +144,16 @@ describe('query plans', () => {
   });
 
   it('bay utilisation reads the lines not done and the lines done lately, each through its index', () => {
-    expect(
-      planOf('lines not done in bays', /"status" <> \? and \+"job_lines"\."bay_id" is not null/),
-    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx']);
-    expect(planOf('lines done in bays', /\+"job_lines"\."status" = 'done'/)).toEqual([
-      'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
-    ]);
-    expect(planOf('first job-on of lines', /select at from "punches" where job_line_id = value/)).toEqual([
-      'SCAN json_each VIRTUAL TABLE INDEX 1:',
+    const firstJobOn = [
       'CORRELATED SCALAR SUBQUERY 1',
       'SEARCH punches USING INDEX punches_job_line_id_at_idx (job_line_id=?)',
+    ];
+    expect(
+      planOf('lines not done in bays', /"status" <> \? and \+"job_lines"\."bay_id" is not null/),
+    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx', ...firstJobOn]);
+    expect(planOf('lines done in bays', /\+"job_lines"\."status" = 'done'/)).toEqual([
+      'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
+      ...firstJobOn,
     ]);
   });
 

@@ -36,6 +36,7 @@ import { PaySummaryService } from './pay-summary.service.js';
 import { labourCsv, payCsv } from './reports.csv.js';
 import {
   daysOf,
+  firstJobOn,
   HOUR_S,
   hoursOf,
   inIds,
@@ -262,11 +263,12 @@ export class ReportsService {
     const inBays = (which: SQL) =>
       this.db
         .select({
-          id: jobLines.id,
           bayId: jobLines.bayId,
           status: jobLines.status,
           queuedAt: jobLines.queuedAt,
           completedAt: jobLines.completedAt,
+          // Qualified: a select from one table names its columns bare, which inside would mean the punch's id.
+          firstOn: firstJobOn(sql`${jobLines}.id`),
         })
         .from(jobLines)
         .where(and(which, lt(jobLines.queuedAt, end)))
@@ -281,15 +283,17 @@ export class ReportsService {
         )!,
       ),
     ];
-    const firstOn = this.weeks.firstClockedOn(lines.map((line) => line.id));
     const busy = new Map<number, [number, number][]>();
     for (const line of lines) {
-      const start = (firstOn.get(line.id) ?? line.queuedAt).getTime();
+      const start = line.firstOn ?? line.queuedAt.getTime();
       const stop = Math.min(
         line.status === 'done' && line.completedAt ? line.completedAt.getTime() : now.getTime(),
         now.getTime(),
       );
-      if (stop > start) busy.set(line.bayId!, [...(busy.get(line.bayId!) ?? []), [start, stop]]);
+      if (stop <= start) continue;
+      const spans = busy.get(line.bayId!);
+      if (spans) spans.push([start, stop]);
+      else busy.set(line.bayId!, [[start, stop]]);
     }
     const windows = daysOf(label, settings).map((day) => ({
       day: day.day,

@@ -104,6 +104,13 @@ export function hoursOf(week: WeekFigures, technicianId: number): LabourHours {
   };
 }
 
+/** The first instant (ms) anyone clocked on the line `lineId`, null if nobody did: the start of its punches. */
+export function firstJobOn(lineId: SQL | SQLiteColumn): SQL<number | null> {
+  return sql<number | null>`(
+    select at from ${punches} where job_line_id = ${lineId} and kind = 'job-on' order by at limit 1
+  )`;
+}
+
 /** The shop's hours of a week: every technician with figures in it counts, whoever is listed today. */
 export function shopHoursOf(week: WeekFigures): LabourHours {
   return shopLabourKpis(technicianIdsOf(week).map((id) => hoursOf(week, id)));
@@ -183,19 +190,23 @@ export class WeekFiguresService {
     this.changes = new WeekChanges(db);
   }
 
-  /** Figures of consecutive workweeks `labels` (oldest first). */
-  figures(labels: readonly string[], settings: ShopSettings, now: Date): WeekFigures[] {
-    return this.read(this.keptFigures, labels, settings, now, (week) => week);
+  /**
+   * Figures of consecutive workweeks `labels` (oldest first). `passing`: weeks read on the way to another's
+   * figures, taken where kept but not kept themselves (a long run of them would push out the weeks reported).
+   */
+  figures(labels: readonly string[], settings: ShopSettings, now: Date, passing = false): WeekFigures[] {
+    return this.read(this.keptFigures, !passing, labels, settings, now, (week) => week);
   }
 
   /** The shop's hours of consecutive workweeks `labels` (oldest first), as `shopHoursOf`. */
   shopHours(labels: readonly string[], settings: ShopSettings, now: Date): LabourHours[] {
-    return this.read(this.keptShopHours, labels, settings, now, shopHoursOf);
+    return this.read(this.keptShopHours, true, labels, settings, now, shopHoursOf);
   }
 
   /** The kept values of the weeks, the others computed together (the run from the first to the last missing). */
   private read<T>(
     kept: KeptWeeks<T>,
+    keepComputed: boolean,
     labels: readonly string[],
     settings: ShopSettings,
     now: Date,
@@ -209,7 +220,7 @@ export class WeekFiguresService {
       (week) => {
         this.keptShopHours.keep(week, now, shopHoursOf(week));
         const value = valueOf(week);
-        kept.keep(week, now, value);
+        if (keepComputed) kept.keep(week, now, value);
         return value;
       },
     );
@@ -291,13 +302,11 @@ export class WeekFiguresService {
     });
   }
 
-  /** The first instant anyone clocked on each of the lines, each read from the start of its punches. */
+  /** The first instant anyone clocked on each of the lines. */
   firstClockedOn(lineIds: readonly number[]): Map<number, Date> {
-    const rows = this.db.all<{ jobLineId: number; at: number | null }>(sql`
-      select value as jobLineId, (
-        select at from ${punches} where job_line_id = value and kind = 'job-on' order by at limit 1
-      ) as at
-      from json_each(${JSON.stringify(lineIds)})`);
+    const rows = this.db.all<{ jobLineId: number; at: number | null }>(
+      sql`select value as jobLineId, ${firstJobOn(sql`value`)} as at from json_each(${JSON.stringify(lineIds)})`,
+    );
     return new Map(rows.filter((row) => row.at !== null).map((row) => [row.jobLineId, new Date(row.at!)]));
   }
 
