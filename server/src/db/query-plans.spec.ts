@@ -114,28 +114,46 @@ describe('query plans', () => {
     const plan = planOf('punches around lines', /with recursive/);
     expect(plan).toEqual(
       expect.arrayContaining([
-        'SEARCH punches USING INDEX sqlite_autoindex_punches_1 (id=?)',
+        'SEARCH punches USING INTEGER PRIMARY KEY (rowid=?)',
         'SEARCH punches USING INDEX punches_job_line_id_at_idx (job_line_id=?)',
-        'SEARCH punch USING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
+        'SEARCH punch USING COVERING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
         'SEARCH shift_out USING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
+        'SEARCH corrected USING INTEGER PRIMARY KEY (rowid=?)',
         'SEARCH correction USING INDEX punches_supersedes_idx (supersedes=?)',
       ]),
     );
-    expect(plan.join('\n')).not.toMatch(/SCAN (punches|punch|shift_out|correction)\b/);
+    expect(plan.join('\n')).not.toMatch(/SCAN (punches|punch|shift_out|corrected|correction)\b/);
   });
 
-  it('the labour report notices a changed job line from the index of changes', () => {
-    expect(planOf('latest line change', /max\(("job_lines"\.)?"updated_at"\)/)).toContain(
-      'SEARCH job_lines USING COVERING INDEX job_lines_updated_at_idx',
+  it('the reports read a week’s punches by time, each looked up among the corrections', () => {
+    expect(planOf('punches of weeks', /not exists \(select 1 from punches correction/)).toEqual([
+      'SEARCH punches USING INDEX punches_at_idx (at>? AND at<?)',
+      'CORRELATED SCALAR SUBQUERY 1',
+      'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
+    ]);
+  });
+
+  it('the reports notice what changed past weeks from the rows added since they last looked', () => {
+    expect(planOf('new punches', /where punch\.rowid > \?/)).toEqual([
+      'SEARCH punch USING INTEGER PRIMARY KEY (rowid>?)',
+      'SEARCH corrected USING INDEX sqlite_autoindex_punches_1 (id=?) LEFT-JOIN',
+    ]);
+    expect(planOf('finished lines changed', /from finished_line_changes where seq > \?/)).toEqual(
+      expect.arrayContaining(['SEARCH finished_line_changes USING INTEGER PRIMARY KEY (rowid>?)']),
     );
   });
 
   it('bay utilisation reads the lines not done and the lines done lately, each through its index', () => {
+    const firstJobOn = [
+      'CORRELATED SCALAR SUBQUERY 1',
+      'SEARCH punches USING INDEX punches_job_line_id_at_idx (job_line_id=?)',
+    ];
     expect(
       planOf('lines not done in bays', /"status" <> \? and \+"job_lines"\."bay_id" is not null/),
-    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx']);
+    ).toEqual(['SCAN job_lines USING INDEX job_lines_open_idx', ...firstJobOn]);
     expect(planOf('lines done in bays', /\+"job_lines"\."status" = 'done'/)).toEqual([
       'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
+      ...firstJobOn,
     ]);
   });
 

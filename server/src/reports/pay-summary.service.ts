@@ -295,7 +295,7 @@ export class PaySummaryService {
     if (label < limit) label = limit;
     const labels: string[] = [];
     for (; label < current.week; label = addIsoWeeks(label, 1)) labels.push(label);
-    const earlierWeeks = labels.length ? this.weeks.figures(labels, settings, now) : [];
+    const earlierWeeks = labels.length ? this.weeks.figures(labels, settings, now, true) : [];
 
     for (const span of spanning) {
       const share = result.get(span.technicianId) ?? {

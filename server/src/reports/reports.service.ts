@@ -1,12 +1,5 @@
-import {
-  BadRequestException,
-  Inject,
-  Injectable,
-  type OnModuleDestroy,
-  type StreamableFile,
-} from '@nestjs/common';
-import { and, asc, eq, gte, inArray, isNotNull, lt, max, ne, sql, type SQL } from 'drizzle-orm';
-import type { Subscription } from 'rxjs';
+import { BadRequestException, Inject, Injectable, type StreamableFile } from '@nestjs/common';
+import { and, asc, eq, gte, isNotNull, lt, ne, sql, type SQL } from 'drizzle-orm';
 import {
   addIsoWeeks,
   EFFICIENCY_NOTE,
@@ -21,7 +14,6 @@ import {
   workweekOf,
   type BayUtilisation,
   type ExceptionList,
-  type LabourHours,
   type LabourReport,
   type LabourReportLine,
   type LabourReportRow,
@@ -36,7 +28,6 @@ import {
 import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
 import { bays, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
-import { LiveService } from '../live/live.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ExceptionsService } from '../payroll/exceptions.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -44,19 +35,17 @@ import { openWindow } from './opening-hours.js';
 import { PaySummaryService } from './pay-summary.service.js';
 import { labourCsv, payCsv } from './reports.csv.js';
 import {
-  boundsOf,
-  chunks,
   daysOf,
+  firstJobOn,
   HOUR_S,
   hoursOf,
+  inIds,
   remember,
+  shopHoursOf,
   technicianIdsOf,
   WeekFiguresService,
   type WeekFigures,
 } from './week-figures.service.js';
-
-/** Finished weeks kept for the trend before the cache starts over (about five years). */
-const TREND_CACHE_LIMIT = 260;
 
 const roundTo = (value: number, places: number) => Math.round(value * 10 ** places) / 10 ** places;
 const hours = (value: number) => roundTo(value, 4);
@@ -77,12 +66,7 @@ function present(row: LabourReportRow): LabourReportRow {
 
 /** The weekly labour report, the pay summary, a technician's week and the exceptions list. */
 @Injectable()
-export class ReportsService implements OnModuleDestroy {
-  /** Shop hours of finished workweeks, by week label; valid while `trendStamp` holds. */
-  private readonly trendCache = new Map<string, LabourHours>();
-  private trendStamp = '';
-  private readonly subscription: Subscription;
-
+export class ReportsService {
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
@@ -90,14 +74,7 @@ export class ReportsService implements OnModuleDestroy {
     private readonly paySummary: PaySummaryService,
     private readonly exceptionsService: ExceptionsService,
     private readonly closedWeeks: ClosedWeeksService,
-    live: LiveService,
-  ) {
-    this.subscription = live.floorChanged$.subscribe(() => this.trendCache.clear());
-  }
-
-  onModuleDestroy(): void {
-    this.subscription.unsubscribe();
-  }
+  ) {}
 
   labourAnswer({ week, format }: ReportQuery): LabourReport | StreamableFile {
     const report = this.labour(week);
@@ -174,8 +151,8 @@ export class ReportsService implements OnModuleDestroy {
     const labels = Array.from({ length: LABOUR_TREND_WEEKS }, (_, i) =>
       remember(`add|${label}|${i}`, () => addIsoWeeks(label, i + 1 - LABOUR_TREND_WEEKS)),
     );
-    const { figures, trend } = this.trendFigures(labels, settings, now);
-    const current = figures.at(-1)!;
+    const current = this.weeks.figures([label], settings, now)[0]!;
+    const trend = [...this.weeks.shopHours(labels.slice(0, -1), settings, now), shopHoursOf(current)];
     const people = this.technicians(current);
     const lineIds = new Set<number>();
     for (const { totals } of current.technicians.values())
@@ -233,73 +210,6 @@ export class ReportsService implements OnModuleDestroy {
     };
   }
 
-  /**
-   * Figures of the weeks from the earliest one not in the trend cache to the last (the report's own),
-   * and the shop's hours of every week. A finished week's hours are kept until any punch, job line or
-   * shop setting changes (a live floor change, a new punch row, a changed line), so the eleven weeks
-   * before the report's are read once, not on every report.
-   */
-  private trendFigures(
-    labels: readonly string[],
-    settings: ShopSettings,
-    now: Date,
-  ): { figures: WeekFigures[]; trend: LabourHours[] } {
-    const stamp = this.dataStamp(settings);
-    if (stamp !== this.trendStamp || this.trendCache.size > TREND_CACHE_LIMIT) {
-      this.trendCache.clear();
-      this.trendStamp = stamp;
-    }
-    const last = labels.length - 1;
-    const uncached = labels.findIndex(
-      (label, i) => i === last || !this.trendCache.has(label) || boundsOf(label, settings).to > now,
-    );
-    const figures = this.weeks.figures(labels.slice(uncached), settings, now);
-    const computed = new Map<string, LabourHours>();
-    for (const week of figures) {
-      // Every technician with figures that week counts in the shop's trend, whoever is listed today.
-      const hoursOfShop = shopLabourKpis(technicianIdsOf(week).map((id) => hoursOf(week, id)));
-      if (week.to <= now) this.trendCache.set(week.week, hoursOfShop);
-      else this.trendCache.delete(week.week);
-      computed.set(week.week, hoursOfShop);
-    }
-    const trend = labels.map((label) => computed.get(label) ?? this.trendCache.get(label)!);
-    return { figures, trend };
-  }
-
-  /**
-   * Changes whenever a punch is added, a job line is added or changed, or a setting that shapes weeks.
-   * Line ids are never given twice, and a line can be deleted only before anyone clocked on it or it
-   * was done: the highest id and the latest change tell, each from an index.
-   */
-  private dataStamp(settings: ShopSettings): string {
-    const punchRows =
-      this.db
-        .select({ last: max(sql<number>`rowid`) })
-        .from(punches)
-        .get()?.last ?? 0;
-    const lastLine =
-      this.db
-        .select({ id: max(jobLines.id) })
-        .from(jobLines)
-        .get()?.id ?? 0;
-    const lastChange =
-      this.db
-        .select({ at: max(jobLines.updatedAt) })
-        .from(jobLines)
-        .get()?.at ?? null;
-    const { timeZone, workweekStartDay, workweekStartHour, concurrentSplit, maxConcurrentJobs } = settings;
-    return JSON.stringify([
-      punchRows,
-      lastLine,
-      lastChange?.getTime() ?? 0,
-      timeZone,
-      workweekStartDay,
-      workweekStartHour,
-      concurrentSplit,
-      maxConcurrentJobs,
-    ]);
-  }
-
   /** Active technicians on the books by the end of the week, and anyone with figures in it; by name. */
   private technicians(week: WeekFigures): { id: number; name: string }[] {
     const withFigures = new Set(technicianIdsOf(week));
@@ -314,21 +224,18 @@ export class ReportsService implements OnModuleDestroy {
   }
 
   private lineInfo(ids: number[]): Map<number, { title: string; bookHours: number; number: string }> {
-    const result = new Map<number, { title: string; bookHours: number; number: string }>();
-    for (const part of chunks(ids))
-      for (const row of this.db
-        .select({
-          id: jobLines.id,
-          title: jobLines.title,
-          bookHours: jobLines.bookHours,
-          number: repairOrders.number,
-        })
-        .from(jobLines)
-        .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-        .where(inArray(jobLines.id, part))
-        .all())
-        result.set(row.id, row);
-    return result;
+    const rows = this.db
+      .select({
+        id: jobLines.id,
+        title: jobLines.title,
+        bookHours: jobLines.bookHours,
+        number: repairOrders.number,
+      })
+      .from(jobLines)
+      .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
+      .where(inIds(jobLines.id, ids))
+      .all();
+    return new Map(rows.map((row) => [row.id, row]));
   }
 
   /**
@@ -356,11 +263,12 @@ export class ReportsService implements OnModuleDestroy {
     const inBays = (which: SQL) =>
       this.db
         .select({
-          id: jobLines.id,
           bayId: jobLines.bayId,
           status: jobLines.status,
           queuedAt: jobLines.queuedAt,
           completedAt: jobLines.completedAt,
+          // Qualified: a select from one table names its columns bare, which inside would mean the punch's id.
+          firstOn: firstJobOn(sql`${jobLines}.id`),
         })
         .from(jobLines)
         .where(and(which, lt(jobLines.queuedAt, end)))
@@ -375,15 +283,17 @@ export class ReportsService implements OnModuleDestroy {
         )!,
       ),
     ];
-    const firstOn = this.weeks.firstClockedOn(lines.map((line) => line.id));
     const busy = new Map<number, [number, number][]>();
     for (const line of lines) {
-      const start = (firstOn.get(line.id) ?? line.queuedAt).getTime();
+      const start = line.firstOn ?? line.queuedAt.getTime();
       const stop = Math.min(
         line.status === 'done' && line.completedAt ? line.completedAt.getTime() : now.getTime(),
         now.getTime(),
       );
-      if (stop > start) busy.set(line.bayId!, [...(busy.get(line.bayId!) ?? []), [start, stop]]);
+      if (stop <= start) continue;
+      const spans = busy.get(line.bayId!);
+      if (spans) spans.push([start, stop]);
+      else busy.set(line.bayId!, [[start, stop]]);
     }
     const windows = daysOf(label, settings).map((day) => ({
       day: day.day,

@@ -10,6 +10,7 @@ import {
   type LabourReport,
   type LabourReportTechnician,
   type PayReport,
+  type PunchDto,
   type ShopDay,
   type DatedPayRules,
   type ShopSettings,
@@ -50,6 +51,7 @@ describe(ReportsService.name, () => {
     (await as(owner).get(`/api/reports/pay?${query}`).expect(200)).body as PayReport;
   const rowOf = (report: LabourReport, technicianId: number) =>
     report.technicians.find((row) => row.technicianId === technicianId)!;
+  const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
 
   beforeAll(async () => {
     sut = await startTestApp();
@@ -59,7 +61,6 @@ describe(ReportsService.name, () => {
     history = shopHistory(sut, { owner, foreman });
     shop = (await as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
-    const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
     weekdays = workweekDays(week, shop).filter(isWeekday);
     const [monday, tuesday] = weekdays as [ShopDay, ShopDay];
 
@@ -634,5 +635,63 @@ describe(ReportsService.name, () => {
     expect(audit.map((entry) => [entry.entityId, entry.detail])).toEqual([
       [String(job), { reason: 'Filter swap done at the car park, seen by me' }],
     ]);
+  });
+  // A past week's figures are kept between reports: whatever reaches back into the week shows at once.
+  it('counts a past week again after a late punch, a correction, or a line finished or reopened in it', async () => {
+    const past = addIsoWeeks(week, -4);
+    const [monday, tuesday] = workweekDays(past, shop).filter(isWeekday) as [ShopDay, ShopDay];
+    const ivy = await technician('Ivy Quell', '5009', 20_00, 15_00);
+    const labourRow = async () => rowOf(await labour(`week=${past}`), ivy);
+    const payRow = async () =>
+      (await pay(`week=${past}`)).technicians.find((row) => row.technicianId === ivy)!;
+    await punch(ivy, 'shift-in', at(monday, '08:00'));
+    const shiftOut = (await punch(ivy, 'shift-out', at(monday, '12:00'))).body as PunchDto;
+    expect(await labourRow()).toMatchObject({ attendanceHours: 4 });
+    expect(await payRow()).toMatchObject({ hoursWorked: 4 });
+
+    await punch(ivy, 'shift-in', at(tuesday, '13:00'));
+    await punch(ivy, 'shift-out', at(tuesday, '16:00'));
+    expect(await labourRow()).toMatchObject({ attendanceHours: 7 });
+    expect(await payRow()).toMatchObject({ hoursWorked: 7 });
+
+    await as(owner)
+      .post('/api/timecards/corrections', {
+        punchId: shiftOut.id,
+        technicianId: ivy,
+        kind: 'shift-out',
+        at: at(monday, '11:00').toISOString(),
+        reason: 'Left at 11 for a dentist appointment',
+      })
+      .expect(201);
+    expect(await labourRow()).toMatchObject({ attendanceHours: 6 });
+    expect(await payRow()).toMatchObject({ hoursWorked: 6 });
+
+    const job = line('Replace wiper blades', 1.5, ivy, at(tuesday, '12:00'));
+    await punch(ivy, 'job-on', at(tuesday, '13:00'), job);
+    await punch(ivy, 'job-off', at(tuesday, '14:00'), job);
+    expect(await labourRow()).toMatchObject({ clockedHours: 1, flaggedHours: 0 });
+    await finish(job, at(tuesday, '14:00'));
+    expect(await labourRow()).toMatchObject({ clockedHours: 1, flaggedHours: 1.5 });
+    expect(await payRow()).toMatchObject({ flaggedHours: 1.5 });
+    await as(foreman).patch(`/api/job-lines/${job}`, { status: 'working' }).expect(200);
+    expect(await labourRow()).toMatchObject({ flaggedHours: 0 });
+    expect(await payRow()).toMatchObject({ flaggedHours: 0 });
+  });
+
+  // 29 CFR 785.19(a): a bona fide meal period is ordinarily 30 minutes or more; the shop sets its minimum.
+  it('counts past weeks again when a setting their figures depend on changes', async () => {
+    const earlier = addIsoWeeks(week, -1);
+    const eli = async () =>
+      (await pay(`week=${earlier}`)).technicians.find((row) => row.technicianId === ids.e)!;
+    expect((await labour(`week=${week}`)).trend[10]).toMatchObject({ attendanceHours: 47 });
+    expect(await eli()).toMatchObject({ hoursWorked: 47 });
+    // With a 45-minute minimum, Eli's six 30-minute meals are paid rest: 47 + 6 × 0.5 = 50 h.
+    await as(owner).patch('/api/shop', { minimumMealMinutes: 45 }).expect(200);
+    try {
+      expect((await labour(`week=${week}`)).trend[10]).toMatchObject({ attendanceHours: 50 });
+      expect(await eli()).toMatchObject({ hoursWorked: 50 });
+    } finally {
+      await as(owner).patch('/api/shop', { minimumMealMinutes: 30 }).expect(200);
+    }
   });
 });

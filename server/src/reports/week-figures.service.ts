@@ -1,39 +1,34 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, inArray, lt, min, or, isNull, ne } from 'drizzle-orm';
+import { and, asc, eq, gte, lt, min, or, isNull, ne, sql, type SQL } from 'drizzle-orm';
+import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import {
   buildLedger,
   shareFlaggedHours,
+  shopLabourKpis,
   workweekBounds,
   workweekDays,
-  type BreakKind,
   type LabourHours,
   type Ledger,
   type LedgerPunch,
+  type LedgerSettings,
   type LedgerTotals,
-  type PunchKind,
   type ShopDay,
   type ShopSettings,
   type TimeRange,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { jobLines, punches } from '../db/schema/index.js';
+import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
+import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 
 /** A shift still open at the start of a week began before it: look back this far for it (as timecards do). */
 export const LOOKBACK_MS = 36 * 3600_000;
-/** Bound on the ids in one `IN (…)` list (SQLite allows 32,766 parameters). */
-const IN_CHUNK = 5000;
 export const HOUR_S = 3600;
 
-type PunchValues = [
-  id: string,
-  technicianId: number,
-  kind: PunchKind,
-  jobLineId: number | null,
-  breakKind: BreakKind | null,
-  at: number,
-  supersedes: string | null,
-  voids: boolean,
-];
+/** Past weeks whose full figures are kept: a report's week and a few around it. */
+const FIGURES_KEPT = 6;
+/** Past weeks whose shop hours are kept for the trend (about five years). */
+const SHOP_HOURS_KEPT = 260;
 
 interface TechnicianPunches {
   ms: number[];
@@ -58,10 +53,9 @@ export interface WeekFigures {
   clockedToDate: Map<number, Map<number, number>>;
 }
 
-export function chunks<T>(list: readonly T[]): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < list.length; i += IN_CHUNK) out.push(list.slice(i, i + IN_CHUNK));
-  return out;
+/** `column` is one of `ids`, given as one JSON parameter: no limit on their number, nothing to build per id. */
+export function inIds(column: SQLiteColumn, ids: readonly number[]): SQL {
+  return sql`${column} in (select value from json_each(${JSON.stringify(ids)}))`;
 }
 
 /** Index of the first element ≥ `value` in an ascending array. */
@@ -110,6 +104,57 @@ export function hoursOf(week: WeekFigures, technicianId: number): LabourHours {
   };
 }
 
+/** The first instant (ms) anyone clocked on the line `lineId`, null if nobody did: the start of its punches. */
+export function firstJobOn(lineId: SQL | SQLiteColumn): SQL<number | null> {
+  return sql<number | null>`(
+    select at from ${punches} where job_line_id = ${lineId} and kind = 'job-on' order by at limit 1
+  )`;
+}
+
+/** The shop's hours of a week: every technician with figures in it counts, whoever is listed today. */
+export function shopHoursOf(week: WeekFigures): LabourHours {
+  return shopLabourKpis(technicianIdsOf(week).map((id) => hoursOf(week, id)));
+}
+
+/** The settings a week's figures depend on: where the week falls, and how a ledger counts. */
+function figuresSettingsKey(settings: ShopSettings): string {
+  const ledger: Record<keyof LedgerSettings, unknown> = {
+    concurrentSplit: settings.concurrentSplit,
+    maxConcurrentJobs: settings.maxConcurrentJobs,
+    minimumMealMinutes: settings.minimumMealMinutes,
+  };
+  return JSON.stringify([settings.timeZone, settings.workweekStartDay, settings.workweekStartHour, ledger]);
+}
+
+/** Values of weeks that are over, by week label; beyond `limit`, the least recently used go first. */
+class KeptWeeks<T> {
+  private readonly weeks = new Map<string, { to: number; value: T }>();
+
+  constructor(private readonly limit: number) {}
+
+  /** The week's value, when it is kept and the week is over by `now`. */
+  get(label: string, now: Date): T | undefined {
+    const kept = this.weeks.get(label);
+    if (!kept || kept.to > now.getTime()) return undefined;
+    this.weeks.delete(label);
+    this.weeks.set(label, kept);
+    return kept.value;
+  }
+
+  /** Keeps the value of a week that is over by `now`; a running week's is not kept. */
+  keep(week: Pick<WeekFigures, 'week' | 'to'>, now: Date, value: T): void {
+    if (week.to > now) return;
+    this.weeks.delete(week.week);
+    this.weeks.set(week.week, { to: week.to.getTime(), value });
+    if (this.weeks.size > this.limit) this.weeks.delete(this.weeks.keys().next().value!);
+  }
+
+  /** Forgets every week that ends after `instant`. */
+  forgetAfter(instant: number): void {
+    for (const [label, { to }] of this.weeks) if (to > instant) this.weeks.delete(label);
+  }
+}
+
 /**
  * The calendar helpers of `shared` work through time-zone-aware dates and take up to 2 ms a call; their
  * answers for a week never change, and a report asks for the same weeks again and again.
@@ -130,11 +175,67 @@ export const daysOf = (label: string, settings: ShopSettings): ShopDay[] =>
 /**
  * Ledgers and flagged hours of consecutive workweeks. Punches are read for the weeks asked only (by the
  * indexed `at` column, with a lookback for shifts open at the start), and each workweek is computed from its
- * own slice of them, so the cost follows the weeks asked, not the length of the history.
+ * own slice of them, so the cost follows the weeks asked, not the length of the history. The figures of a
+ * week that is over are kept until a change reaches back into it (`WeekChanges`) or a setting they depend
+ * on changes: a late punch, a correction, a line finished, edited or reopened in it or before it.
  */
 @Injectable()
 export class WeekFiguresService {
-  constructor(@Inject(DB) private readonly db: Db) {}
+  private readonly changes: WeekChanges;
+  private readonly keptFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
+  private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
+  private keptFor = '';
+
+  constructor(@Inject(DB) private readonly db: Db) {
+    this.changes = new WeekChanges(db);
+  }
+
+  /**
+   * Figures of consecutive workweeks `labels` (oldest first). `passing`: weeks read on the way to another's
+   * figures, taken where kept but not kept themselves (a long run of them would push out the weeks reported).
+   */
+  figures(labels: readonly string[], settings: ShopSettings, now: Date, passing = false): WeekFigures[] {
+    return this.read(this.keptFigures, !passing, labels, settings, now, (week) => week);
+  }
+
+  /** The shop's hours of consecutive workweeks `labels` (oldest first), as `shopHoursOf`. */
+  shopHours(labels: readonly string[], settings: ShopSettings, now: Date): LabourHours[] {
+    return this.read(this.keptShopHours, true, labels, settings, now, shopHoursOf);
+  }
+
+  /** The kept values of the weeks, the others computed together (the run from the first to the last missing). */
+  private read<T>(
+    kept: KeptWeeks<T>,
+    keepComputed: boolean,
+    labels: readonly string[],
+    settings: ShopSettings,
+    now: Date,
+    valueOf: (week: WeekFigures) => T,
+  ): T[] {
+    this.forgetChanged(settings);
+    const found = labels.map((label) => kept.get(label, now));
+    const first = found.indexOf(undefined);
+    if (first < 0) return found as T[];
+    const computed = this.compute(labels.slice(first, found.lastIndexOf(undefined) + 1), settings, now).map(
+      (week) => {
+        this.keptShopHours.keep(week, now, shopHoursOf(week));
+        const value = valueOf(week);
+        if (keepComputed) kept.keep(week, now, value);
+        return value;
+      },
+    );
+    return labels.map((_, i) => found[i] ?? computed[i - first]!);
+  }
+
+  private forgetChanged(settings: ShopSettings): void {
+    const changed = this.changes.since();
+    const key = figuresSettingsKey(settings);
+    const since = key === this.keptFor ? changed : EVERYTHING_CHANGED;
+    this.keptFor = key;
+    if (since === null) return;
+    this.keptFigures.forgetAfter(since);
+    this.keptShopHours.forgetAfter(since);
+  }
 
   /**
    * Figures of consecutive workweeks `labels` (oldest first). Flagged hours: the book hours of each line
@@ -142,11 +243,10 @@ export class WeekFiguresService {
    * (earlier weeks too), or to the assigned technician when nobody clocked on it. A line done with too
    * little clocked time counts only once a foreman signed it off.
    */
-  figures(labels: readonly string[], settings: ShopSettings, now: Date): WeekFigures[] {
+  private compute(labels: readonly string[], settings: ShopSettings, now: Date): WeekFigures[] {
     const weeks = labels.map((week) => ({ week, ...boundsOf(week, settings) }));
     const first = weeks[0]!.from;
     const horizon = new Date(Math.min(weeks.at(-1)!.to.getTime(), now.getTime() + 1));
-    // A plain scan of job_lines (no index on completed_at) beats walking the status index: most are done.
     const finished = this.db
       .select({
         id: jobLines.id,
@@ -204,54 +304,40 @@ export class WeekFiguresService {
 
   /** The first instant anyone clocked on each of the lines. */
   firstClockedOn(lineIds: readonly number[]): Map<number, Date> {
-    const result = new Map<number, Date>();
-    for (const part of chunks(lineIds))
-      for (const row of this.db
-        .select({ jobLineId: punches.jobLineId, at: min(punches.at) })
-        .from(punches)
-        .where(and(inArray(punches.jobLineId, part), eq(punches.kind, 'job-on')))
-        .groupBy(punches.jobLineId)
-        .all())
-        if (row.jobLineId !== null && row.at) result.set(row.jobLineId, row.at);
-    return result;
+    const rows = this.db.all<{ jobLineId: number; at: number | null }>(
+      sql`select value as jobLineId, ${firstJobOn(sql`value`)} as at from json_each(${JSON.stringify(lineIds)})`,
+    );
+    return new Map(rows.filter((row) => row.at !== null).map((row) => [row.jobLineId, new Date(row.at!)]));
   }
 
-  /** Effective punches at or after `from` and before `to`, per technician in time order. */
+  /**
+   * Effective punches at or after `from` and before `to`, per technician in time order. A punch corrected
+   * by a later row is left out wherever the correction lies (a correction can move a punch across a week
+   * boundary), so a week's figures are the same whichever weeks are read with it.
+   */
   private punchesBetween(from: Date, to: Date): Map<number, TechnicianPunches> {
     // Raw rows: a report reads tens of thousands of punches, and mapping each to an object costs more
     // than the query.
     const rows = this.db
-      .select({
-        id: punches.id,
-        technicianId: punches.technicianId,
-        kind: punches.kind,
-        jobLineId: punches.jobLineId,
-        breakKind: punches.breakKind,
-        at: punches.at,
-        supersedes: punches.supersedes,
-        voids: punches.voids,
-      })
+      .select(LEDGER_PUNCH_COLUMNS)
       .from(punches)
-      .where(and(gte(punches.at, from), lt(punches.at, to)))
+      .where(
+        and(
+          gte(punches.at, from),
+          lt(punches.at, to),
+          sql`not exists (select 1 from punches correction where correction.supersedes = ${punches.id})`,
+        ),
+      )
       .orderBy(asc(punches.at))
-      .values() as PunchValues[];
-    // A correction can move a punch across a week boundary: drop what it replaced from every week.
-    const superseded = new Set(rows.map((row) => row[6]).filter((id) => id !== null));
+      .values() as LedgerPunchValues[];
     const result = new Map<number, TechnicianPunches>();
-    for (const [id, technicianId, kind, jobLineId, breakKind, at, supersedes, voids] of rows) {
-      if (superseded.has(id) || voids) continue;
+    for (const row of rows) {
+      const [, technicianId, , , , at, , voids] = row;
+      if (voids) continue;
       let own = result.get(technicianId);
       if (!own) result.set(technicianId, (own = { ms: [], list: [] }));
       own.ms.push(at);
-      own.list.push({
-        id,
-        technicianId,
-        kind,
-        jobLineId,
-        breakKind,
-        at: new Date(at).toISOString(),
-        supersedes,
-      });
+      own.list.push(toLedgerPunch(row));
     }
     return result;
   }
@@ -267,14 +353,13 @@ export class WeekFiguresService {
   ): Map<number, Map<number, number>> {
     const result = new Map<number, Map<number, number>>();
     const earliest = new Map<number, number>();
-    for (const part of chunks(lineIds))
-      for (const { technicianId, at } of this.db
-        .select({ technicianId: punches.technicianId, at: min(punches.at) })
-        .from(punches)
-        .where(and(inArray(punches.jobLineId, part), lt(punches.at, first)))
-        .groupBy(punches.technicianId)
-        .all())
-        if (at) earliest.set(technicianId, Math.min(at.getTime(), earliest.get(technicianId) ?? Infinity));
+    for (const { technicianId, at } of this.db
+      .select({ technicianId: punches.technicianId, at: min(punches.at) })
+      .from(punches)
+      .where(and(inIds(punches.jobLineId, lineIds), lt(punches.at, first)))
+      .groupBy(punches.technicianId)
+      .all())
+      if (at) earliest.set(technicianId, Math.min(at.getTime(), earliest.get(technicianId) ?? Infinity));
     for (const [technicianId, at] of earliest) {
       const own = this.db
         .select()

@@ -1,4 +1,5 @@
 import { sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../db/database.js';
 import { repairOrders } from '../db/schema/index.js';
 
 /**
@@ -13,12 +14,8 @@ const TRIGRAM = 3;
 const phrase = (word: string) => `"${word.replaceAll('"', '""')}"`;
 const containing = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
-/**
- * ROs whose searched text holds every word of `q`, in any column, ignoring case. `newestFirst`: SQLite
- * walks the ROs newest first and keeps the matches (for a search that matches many, whose first page
- * lies close to the start of that walk), instead of finding every match first and sorting them.
- */
-export function repairOrderSearch(q: string, newestFirst = false): SQL {
+/** The search table's rows (one per RO, its rowid the RO's id) whose text holds every word of `q`. */
+function matching(q: string): SQL {
   const words = q.split(/\s+/).filter(Boolean);
   const long = words.filter((word) => [...word].length >= TRIGRAM);
   const short = words.filter((word) => [...word].length < TRIGRAM);
@@ -31,7 +28,21 @@ export function repairOrderSearch(q: string, newestFirst = false): SQL {
         sql` OR `,
       )})`,
     );
+  return sql`SELECT rowid FROM repair_orders_search WHERE ${sql.join(conditions, sql` AND `)}`;
+}
+
+/**
+ * ROs whose searched text holds every word of `q`, in any column, ignoring case. `newestFirst`: SQLite
+ * walks the ROs newest first and keeps the matches (for a search that matches many, whose first page
+ * lies close to the start of that walk), instead of finding every match first and sorting them.
+ */
+export function repairOrderSearch(q: string, newestFirst = false): SQL {
   // A unary `+` keeps SQLite from looking the matches up by id, so it walks an index in the page's order.
   const id = newestFirst ? sql`+${repairOrders.id}` : sql`${repairOrders.id}`;
-  return sql`${id} IN (SELECT rowid FROM repair_orders_search WHERE ${sql.join(conditions, sql` AND `)})`;
+  return sql`${id} IN (${matching(q)})`;
+}
+
+/** How many ROs the search finds, counted in the search table alone. */
+export function repairOrderSearchCount(db: Db, q: string): number {
+  return db.get<{ n: number }>(sql`SELECT count(*) AS n FROM (${matching(q)})`).n;
 }

@@ -33,7 +33,7 @@ import { repairOrderHistory } from './repair-order-history.js';
 import { waitingPartsOf } from './parts-hold.dto.js';
 import { repairOrderSnapshot } from './repair-order-snapshot.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
-import { repairOrderSearch } from './repair-orders.search.js';
+import { repairOrderSearch, repairOrderSearchCount } from './repair-orders.search.js';
 
 type CustomerRow = typeof customers.$inferSelect;
 type VehicleRow = typeof vehicles.$inferSelect;
@@ -172,15 +172,19 @@ export class RepairOrdersService {
 
   /** One page, newest first; clocked time is counted for the lines on this page only. */
   list(query: RepairOrderListQuery, now = new Date()): RepairOrderPage {
+    const filters = and(
+      query.status ? eq(repairOrders.status, query.status) : undefined,
+      query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
+      query.promised === 'today' ? this.promisedToday(now) : undefined,
+      query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
+    );
     const where = (newestFirst: boolean) =>
-      and(
-        query.status ? eq(repairOrders.status, query.status) : undefined,
-        query.advisorId ? eq(repairOrders.advisorId, query.advisorId) : undefined,
-        query.promised === 'today' ? this.promisedToday(now) : undefined,
-        query.late ? inArray(repairOrders.id, [...this.lateWork(now).repairOrderIds]) : undefined,
-        query.q ? repairOrderSearch(query.q, newestFirst) : undefined,
-      );
-    const total = this.db.select({ n: count() }).from(repairOrders).where(where(false)).get()?.n ?? 0;
+      and(filters, query.q ? repairOrderSearch(query.q, newestFirst) : undefined);
+    // A search alone is counted in the search table, without reading an RO.
+    const total =
+      query.q && !filters
+        ? repairOrderSearchCount(this.db, query.q)
+        : (this.db.select({ n: count() }).from(repairOrders).where(where(false)).get()?.n ?? 0);
     const after = olderThan(repairOrders.createdAt, repairOrders.id, decodeCursor(query.cursor));
     return toPage(
       this.rows(

@@ -163,3 +163,14 @@ export const jobLines = sqliteTable(
     oneOf(t.priority, PRIORITIES),
   ],
 );
+
+/**
+ * Finished lines changed: one row each time a line is finished, a finished line is edited, reopened or
+ * removed, at the earlier of its completion instants before and after. Written by triggers on
+ * `job_lines` (the `finished_line_changes` migration), which keep the latest thousand rows; the reports'
+ * cache of past weeks reads the rows after the last one it saw and forgets the weeks from that instant.
+ */
+export const finishedLineChanges = sqliteTable('finished_line_changes', {
+  seq: integer('seq').primaryKey({ autoIncrement: true }),
+  at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+});
