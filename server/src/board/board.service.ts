@@ -128,9 +128,7 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const openLines = this.floor.openLines();
     const technicians = this.floor.technicians();
     const states = new Map(technicians.map((tech) => [tech.id, this.floor.stateOf(tech.id, now)]));
-    const clockedOn = new Map<number, number[]>();
-    for (const tech of technicians)
-      for (const lineId of states.get(tech.id)?.openJobLineIds ?? []) addTo(clockedOn, lineId, tech.id);
+    const clockedOn = this.floor.clockedOnLines(now);
     const names = new Map(technicians.map((tech) => [tech.id, shortNameOf(tech)]));
     const seconds = this.floor.lineTotals(now);
     const runningTimers = this.floor.runningTimers();

@@ -108,10 +108,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     const settings = this.shop.settings();
     const technicians = this.floor.technicians();
     const seconds = this.floor.lineSeconds(now);
-    const clockedOn = new Map<number, number[]>();
-    for (const tech of technicians)
-      for (const lineId of this.floor.stateOf(tech.id, now)?.openJobLineIds ?? [])
-        clockedOn.set(lineId, [...(clockedOn.get(lineId) ?? []), tech.id]);
+    const clockedOn = this.floor.clockedOnLines(now);
     const lines: DispatchLine[] = this.floor.openLines().map((line) => ({
       id: line.id,
       repairOrderId: line.repairOrderId,

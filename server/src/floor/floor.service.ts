@@ -206,11 +206,21 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     return { to: 'floor', technicianIds: [...concerned] as number[] };
   }
 
+  /** Technicians clocked on each line right now, by line id; a line nobody is on is left out. */
+  clockedOnLines(now: Date): Map<number, number[]> {
+    const result = new Map<number, number[]>();
+    for (const tech of this.technicianList)
+      for (const lineId of this.stateOf(tech.id, now)?.openJobLineIds ?? []) {
+        const onLine = result.get(lineId);
+        if (onLine) onLine.push(tech.id);
+        else result.set(lineId, [tech.id]);
+      }
+    return result;
+  }
+
   /** Technicians clocked on the line right now. */
   clockedOn(jobLineId: number, now: Date): number[] {
-    return this.technicianList
-      .filter((tech) => this.stateOf(tech.id, now)?.openJobLineIds.includes(jobLineId))
-      .map((tech) => tech.id);
+    return this.clockedOnLines(now).get(jobLineId) ?? [];
   }
 
   /**
