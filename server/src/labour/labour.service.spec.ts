@@ -192,8 +192,8 @@ describe(LabourService.name, () => {
     );
   });
 
-  // A break closes the jobs open at its start: 09:00–09:30 on the line, then nothing until the job-off.
-  it('counts a line again when a punch of its shift is moved to another day', () => {
+  /** A technician's punches on one line, by day and hour before midnight today (UTC). */
+  function shiftsOnALine() {
     const now = new Date(Math.floor(Date.now() / DAY) * DAY);
     const [technicianId, lineId] = [newTechnician(now), newLine(now)];
     const at = (daysAgo: number, hour: number) => new Date(now.getTime() - daysAgo * DAY + hour * 3600_000);
@@ -214,15 +214,41 @@ describe(LabourService.name, () => {
         .run();
       return id;
     };
+    const clocked = () => labour.lineSeconds([lineId], now).get(lineId)!.total;
+    return { at, punch, clocked };
+  }
+
+  // A break closes the jobs open at its start: 09:00–09:30 on the line, then nothing until the job-off.
+  it('counts a line again when a punch of its shift is moved to another day', () => {
+    const { at, punch, clocked } = shiftsOnALine();
     punch('shift-in', at(5, 8));
     punch('job-on', at(5, 9));
     const breakStart = punch('break-start', at(5, 9.5));
     punch('break-end', at(5, 10));
     punch('job-off', at(5, 11));
     punch('shift-out', at(5, 12));
-    expect(labour.lineSeconds([lineId], now).get(lineId)!.total).toBe(1800);
+    expect(clocked()).toBe(1800);
     // The break was two days later: the job ran 09:00–11:00.
     punch('break-start', at(3, 9.5), breakStart);
-    expect(labour.lineSeconds([lineId], now).get(lineId)!.total).toBe(7200);
+    expect(clocked()).toBe(7200);
+  });
+
+  it('keeps nothing it counted inside a transaction that was rolled back', () => {
+    const { at, punch, clocked } = shiftsOnALine();
+    punch('shift-in', at(5, 8));
+    punch('job-on', at(5, 9));
+    punch('job-off', at(5, 11));
+    punch('shift-out', at(5, 12));
+    expect(clocked()).toBe(7200);
+    expect(() =>
+      db.transaction(() => {
+        punch('break-start', at(5, 10));
+        expect(clocked()).toBe(3600);
+        throw new Error('Rolled back');
+      }),
+    ).toThrow('Rolled back');
+    // The next punch, on another day, takes the row the rollback gave back.
+    punch('shift-in', at(1, 8));
+    expect(clocked()).toBe(7200);
   });
 });

@@ -9,6 +9,7 @@ import {
   type PunchKind,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
+import { inTransaction } from '../db/in-transaction.js';
 import { punches } from '../db/schema/index.js';
 import { ShopService } from '../shop/shop.service.js';
 import { KeptLineSeconds, type LineSeconds, type PunchWindow } from './kept-line-seconds.js';
@@ -188,11 +189,13 @@ export class LabourService {
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     if (jobLineIds.length === 0) return new Map();
     const settings = this.shop.settings(now);
-    this.kept.refresh(settings, now);
+    // Inside a transaction the rows may yet be rolled back: nothing kept is read or kept.
+    const keeping = !inTransaction(this.db);
+    if (keeping) this.kept.refresh(settings, now);
     const result = new Map<number, LineSeconds>();
     const missing: number[] = [];
     for (const id of jobLineIds) {
-      const kept = this.kept.get(id, now);
+      const kept = keeping ? this.kept.get(id, now) : undefined;
       if (kept) result.set(id, kept);
       else missing.push(id);
     }
@@ -223,7 +226,7 @@ export class LabourService {
     for (const [id, seconds] of lineSecondsOf(ledgers, missing)) {
       result.set(id, seconds);
       const own = windowsOf.get(id) ?? [];
-      if (own.every((window) => window.end !== null))
+      if (keeping && own.every((window) => window.end !== null))
         this.kept.keep(
           id,
           seconds,
