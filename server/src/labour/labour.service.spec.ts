@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { asc, eq, inArray } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import { buildLedger, type PunchKind } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
@@ -46,40 +46,61 @@ const history = fc.record({
   ),
   corrections: fc.array(correction, { maxLength: 6 }),
 });
+/** What comes in after the lines were counted once: late shifts on any of the days, and corrections. */
+const later = fc.record({
+  shifts: fc.array(fc.record({ technician: fc.nat({ max: 1 }), day: fc.nat({ max: 9 }), shift }), {
+    maxLength: 3,
+  }),
+  corrections: fc.array(correction, { maxLength: 4 }),
+});
 
 describe(LabourService.name, () => {
   let sut: TestApp;
   let db: Db;
   let labour: LabourService;
   let shop: ShopService;
-  let technicianIds: number[];
-  let lineIds: number[];
   let ownerId: number;
+  let repairOrderId: number;
+  let serial = 0;
 
   beforeAll(async () => {
     sut = await startTestApp();
     db = sut.app.get<Db>(DB);
     labour = sut.app.get(LabourService);
     shop = sut.app.get(ShopService);
-    const people = db.select().from(users).orderBy(asc(users.id)).all();
-    ownerId = people.find((user) => user.role === 'owner')!.id;
-    technicianIds = people.filter((user) => user.role === 'technician').map((user) => user.id);
-    lineIds = db
-      .select({ id: jobLines.id })
-      .from(jobLines)
-      .orderBy(asc(jobLines.id))
-      .limit(LINES)
-      .all()
-      .map((line) => line.id);
+    ownerId = db.select().from(users).where(eq(users.role, 'owner')).get()!.id;
+    repairOrderId = db.select({ id: jobLines.repairOrderId }).from(jobLines).limit(1).get()!.id;
   });
   afterAll(() => sut.close());
 
-  it('counts each line’s clocked time as a ledger of the technicians’ whole history does', () => {
+  const newTechnician = (now: Date) =>
+    db
+      .insert(users)
+      .values({ name: `Tech ${++serial}`, role: 'technician', createdAt: now })
+      .returning()
+      .get().id;
+  const newLine = (now: Date) =>
+    db
+      .insert(jobLines)
+      .values({
+        repairOrderId,
+        lineNo: 1000 + ++serial,
+        title: 'Replace wiper blades',
+        bookHours: 1,
+        queuedAt: now,
+        updatedAt: now,
+      })
+      .returning()
+      .get().id;
+
+  // Each run has technicians and lines of its own: punches are only ever added, as in the shop.
+  it('counts each line’s clocked time as a ledger of the technicians’ whole history does, and again after punches come in late', () => {
     const now = new Date(Math.floor(Date.now() / MINUTE) * MINUTE);
+    const settings = shop.settings(now);
     fc.assert(
-      fc.property(history, ({ technicians, corrections }) => {
-        const techs = technicianIds.slice(0, technicians.length);
-        db.delete(punches).where(inArray(punches.technicianId, techs)).run();
+      fc.property(history, later, ({ technicians, corrections }, late) => {
+        const techs = technicians.map(() => newTechnician(now));
+        const lineIds = Array.from({ length: LINES }, () => newLine(now));
         const written: (typeof punches.$inferInsert)[] = [];
         const write = (technicianId: number, kind: PunchKind, at: number, line: number | null = null) =>
           written.push({
@@ -92,53 +113,142 @@ describe(LabourService.name, () => {
             recordedAt: now,
             recordedBy: ownerId,
           });
-        technicians.forEach(({ shifts, lastStillOpen }, t) => {
-          // Day by day up to yesterday; the last shift starts less than a day before now.
-          const firstDay = Math.floor(now.getTime() / DAY) - shifts.length;
-          shifts.forEach(({ worked, startMinute, steps, outAfterMinutes }, day) => {
-            if (!worked) return;
-            let at = Math.min(
-              (firstDay + day) * DAY + startMinute * MINUTE,
-              now.getTime() - 17 * 60 * MINUTE,
-            );
-            write(techs[t]!, 'shift-in', at);
-            for (const step of steps) {
-              at += step.afterMinutes * MINUTE;
-              write(techs[t]!, step.kind, at, step.kind.startsWith('job') ? step.line : null);
-            }
-            if (!(lastStillOpen && day === shifts.length - 1))
-              write(techs[t]!, 'shift-out', at + outAfterMinutes * MINUTE);
-          });
-        });
+        // Day by day up to yesterday; a shift starts no later than 17 hours before now.
+        const firstDay = Math.floor(now.getTime() / DAY) - 10;
+        const writeShift = (
+          technicianId: number,
+          day: number,
+          { worked, startMinute, steps, outAfterMinutes }: fc.RecordValue<typeof shift>,
+          stillOpen = false,
+        ) => {
+          if (!worked) return;
+          let at = Math.min((firstDay + day) * DAY + startMinute * MINUTE, now.getTime() - 17 * 60 * MINUTE);
+          write(technicianId, 'shift-in', at);
+          for (const step of steps) {
+            at += step.afterMinutes * MINUTE;
+            write(technicianId, step.kind, at, step.kind.startsWith('job') ? step.line : null);
+          }
+          if (!stillOpen) write(technicianId, 'shift-out', at + outAfterMinutes * MINUTE);
+        };
         const superseded = new Set<string>();
-        for (const { of, byMinutes, voids } of corrections) {
-          const punch = written[of % written.length];
-          if (!punch || superseded.has(punch.id!) || (voids && punch.kind === 'shift-out')) continue;
-          superseded.add(punch.id!);
-          const at = voids
-            ? punch.at
-            : new Date(Math.min(punch.at.getTime() + byMinutes * MINUTE, now.getTime()));
-          written.push({ ...punch, id: randomUUID(), at, supersedes: punch.id, voids });
-        }
-        if (written.length) db.insert(punches).values(written).run();
+        const correct = (
+          all: readonly fc.RecordValue<typeof correction>[],
+          candidates: readonly (typeof punches.$inferInsert)[],
+        ) => {
+          for (const { of, byMinutes, voids } of all) {
+            const punch = candidates[of % candidates.length];
+            if (!punch || superseded.has(punch.id!) || (voids && punch.kind === 'shift-out')) continue;
+            superseded.add(punch.id!);
+            const at = voids
+              ? punch.at
+              : new Date(Math.min(punch.at.getTime() + byMinutes * MINUTE, now.getTime()));
+            written.push({ ...punch, id: randomUUID(), at, supersedes: punch.id, voids });
+          }
+        };
+        const save = () => {
+          if (written.length) db.insert(punches).values(written).run();
+          written.length = 0;
+        };
+        const whole = (line: number) =>
+          techs
+            .map((id) =>
+              buildLedger(
+                db.select().from(punches).where(eq(punches.technicianId, id)).all().map(toPunchDto),
+                now,
+                settings,
+              ),
+            )
+            .reduce((sum, ledger) => sum + (ledger.totals.jobSeconds[line] ?? 0), 0);
 
-        const settings = shop.settings(now);
-        const everything = techs.map((id) =>
-          buildLedger(
-            db.select().from(punches).where(eq(punches.technicianId, id)).all().map(toPunchDto),
-            now,
-            settings,
+        technicians.forEach(({ shifts, lastStillOpen }, t) =>
+          shifts.forEach((one, day) =>
+            writeShift(techs[t]!, day + 10 - shifts.length, one, lastStillOpen && day === shifts.length - 1),
           ),
         );
-        const whole = (line: number) =>
-          everything.reduce((sum, ledger) => sum + (ledger.totals.jobSeconds[line] ?? 0), 0);
+        correct(corrections, [...written]);
+        save();
         const together = labour.lineSeconds(lineIds, now);
         for (const line of lineIds) {
           expect(together.get(line)!.total).toBeCloseTo(whole(line), 6);
-          expect(labour.lineSeconds([line], now).get(line)!.total).toBeCloseTo(whole(line), 6);
+          // Counted alone, by a service that has kept nothing, a line has the same time.
+          expect(new LabourService(db, shop).lineSeconds([line], now).get(line)!.total).toBeCloseTo(
+            whole(line),
+            6,
+          );
+        }
+
+        for (const { technician, day, shift: one } of late.shifts) writeShift(techs[technician]!, day, one);
+        const saved = db.select().from(punches).where(inArray(punches.technicianId, techs)).all();
+        correct(late.corrections, [...saved, ...written]);
+        save();
+        // What was kept answers as counting afresh does, after late punches and as time goes by.
+        const afresh = (until: Date) => new LabourService(db, shop).lineSeconds(lineIds, until);
+        for (const until of [now, new Date(now.getTime() + 10 * MINUTE)]) {
+          const [kept, counted] = [labour.lineSeconds(lineIds, until), afresh(until)];
+          for (const line of lineIds) expect(kept.get(line)!.total).toBeCloseTo(counted.get(line)!.total, 6);
         }
       }),
       { numRuns: 40 },
     );
+  });
+
+  /** A technician's punches on one line, by day and hour before midnight today (UTC). */
+  function shiftsOnALine() {
+    const now = new Date(Math.floor(Date.now() / DAY) * DAY);
+    const [technicianId, lineId] = [newTechnician(now), newLine(now)];
+    const at = (daysAgo: number, hour: number) => new Date(now.getTime() - daysAgo * DAY + hour * 3600_000);
+    const punch = (kind: PunchKind, when: Date, supersedes: string | null = null) => {
+      const id = randomUUID();
+      db.insert(punches)
+        .values({
+          id,
+          technicianId,
+          kind,
+          jobLineId: kind.startsWith('job') ? lineId : null,
+          breakKind: kind === 'break-start' ? 'meal' : null,
+          at: when,
+          recordedAt: now,
+          recordedBy: ownerId,
+          supersedes,
+        })
+        .run();
+      return id;
+    };
+    const clocked = () => labour.lineSeconds([lineId], now).get(lineId)!.total;
+    return { at, punch, clocked };
+  }
+
+  // A break closes the jobs open at its start: 09:00–09:30 on the line, then nothing until the job-off.
+  it('counts a line again when a punch of its shift is moved to another day', () => {
+    const { at, punch, clocked } = shiftsOnALine();
+    punch('shift-in', at(5, 8));
+    punch('job-on', at(5, 9));
+    const breakStart = punch('break-start', at(5, 9.5));
+    punch('break-end', at(5, 10));
+    punch('job-off', at(5, 11));
+    punch('shift-out', at(5, 12));
+    expect(clocked()).toBe(1800);
+    // The break was two days later: the job ran 09:00–11:00.
+    punch('break-start', at(3, 9.5), breakStart);
+    expect(clocked()).toBe(7200);
+  });
+
+  it('keeps nothing it counted inside a transaction that was rolled back', () => {
+    const { at, punch, clocked } = shiftsOnALine();
+    punch('shift-in', at(5, 8));
+    punch('job-on', at(5, 9));
+    punch('job-off', at(5, 11));
+    punch('shift-out', at(5, 12));
+    expect(clocked()).toBe(7200);
+    expect(() =>
+      db.transaction(() => {
+        punch('break-start', at(5, 10));
+        expect(clocked()).toBe(3600);
+        throw new Error('Rolled back');
+      }),
+    ).toThrow('Rolled back');
+    // The next punch, on another day, takes the row the rollback gave back.
+    punch('shift-in', at(1, 8));
+    expect(clocked()).toBe(7200);
   });
 });

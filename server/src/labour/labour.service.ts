@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, lte, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
 import {
   buildLedger,
   type BreakKind,
@@ -9,8 +9,10 @@ import {
   type PunchKind,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
+import { inTransaction } from '../db/in-transaction.js';
 import { punches } from '../db/schema/index.js';
 import { ShopService } from '../shop/shop.service.js';
+import { KeptLineSeconds, type LineSeconds, type PunchWindow } from './kept-line-seconds.js';
 
 type PunchRow = typeof punches.$inferSelect;
 
@@ -33,10 +35,7 @@ export function toPunchDto(row: PunchRow): PunchDto {
   };
 }
 
-export interface LineSeconds {
-  total: number;
-  byTechnician: Map<number, number>;
-}
+export type { LineSeconds } from './kept-line-seconds.js';
 
 /** The columns a ledger reads. */
 export const LEDGER_PUNCH_COLUMNS = {
@@ -84,45 +83,61 @@ export function toLedgerPunch([
   };
 }
 
+/** A window of punches, with the requested lines punched on in it; `end` null while no shift-out closed it. */
+interface LineWindow {
+  technicianId: number;
+  lines: string;
+  start: number;
+  end: number | null;
+}
+
 /**
- * The punches that count for the lines `:lines` (a JSON array of ids) up to `:now`: each technician's
- * shifts around their punches on those lines, not their whole history. A job on a line runs from a punch
- * on it to a punch no later than the shift-out that follows; the other jobs it shares its time with
- * opened after the shift-out before. So per technician and UTC day of punches on the lines, the punches
- * from the last shift-out before the first of them (at most `:lookback` back, as far as a shift may
- * still be open) to the first shift-out at or after the last (or `:now`), and every correction of those
- * punches, wherever it falls. As long as no shift stays open longer than the lookback, their ledger gives
- * each line the seconds that a ledger of all the technician's punches gives it. The windows are read by
- * rowid from the (technician, at) index alone, and the rows come back raw: both cost less than the
- * rows themselves.
+ * The punches that count for the lines `lines` up to `now`: each technician's shifts around their punches
+ * on those lines, not their whole history. A job on a line runs from a punch on it to a punch no later
+ * than the shift-out that follows; the other jobs it shares its time with opened after the shift-out
+ * before. So per technician and UTC day of punches on the lines, a window from the last shift-out before
+ * the first of them (at most `lookback` back, as far as a shift may still be open) to the first shift-out
+ * at or after the last (none yet: the window runs to `now`); a corrected shift-out ends nothing. As long
+ * as no shift stays open longer than the lookback, a ledger of the punches in the windows gives each line
+ * the seconds that a ledger of all the technician's punches gives it.
  */
-function punchesAroundLines(db: Db) {
+function windowsAroundLines(db: Db, lines: readonly number[], now: number): LineWindow[] {
+  const shiftOut = (at: SQL) => sql`
+    select at from punches shift_out
+    where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out' and ${at}
+      and not exists (select 1 from punches correction where correction.supersedes = shift_out.id)`;
+  return db.all<LineWindow>(sql`
+    with on_lines as (
+      select technician_id, min(at) as first, max(at) as last, json_group_array(distinct job_line_id) as lines
+      from punches where job_line_id in (select value from json_each(${JSON.stringify(lines)}))
+      group by technician_id, cast(at / 86400000 as integer)
+    )
+    select technician_id as technicianId, lines,
+      coalesce((
+        ${shiftOut(sql`shift_out.at < on_lines.first and shift_out.at >= on_lines.first - ${OPEN_SHIFT_LOOKBACK_MS}`)}
+        order by shift_out.at desc limit 1
+      ), on_lines.first - ${OPEN_SHIFT_LOOKBACK_MS}) as start,
+      (
+        ${shiftOut(sql`shift_out.at >= on_lines.last and shift_out.at <= ${now}`)}
+        order by shift_out.at limit 1
+      ) as end
+    from on_lines`);
+}
+
+/**
+ * The punches in the windows (`end` up to `now`) and every correction of them, wherever it falls, as raw
+ * rows. They are read by rowid from the (technician, at) index alone: that costs less than the rows.
+ */
+function punchesIn(db: Db, windows: readonly PunchWindow[], now: number): LedgerPunchValues[] {
+  const given = JSON.stringify(windows.map(({ technicianId, start, end }) => [technicianId, start, end]));
   return db
     .select(LEDGER_PUNCH_COLUMNS)
     .from(punches)
     .where(
       sql`${punches}.rowid in (
         with recursive
-          on_lines as (
-            select technician_id, min(at) as first, max(at) as last from punches
-            where job_line_id in (select value from json_each(${sql.placeholder('lines')}))
-            group by technician_id, cast(at / 86400000 as integer)
-          ),
-          windows as (
-            select technician_id,
-              coalesce((
-                select at from punches shift_out
-                where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out'
-                  and shift_out.at < on_lines.first and shift_out.at >= on_lines.first - ${sql.placeholder('lookback')}
-                order by shift_out.at desc limit 1
-              ), on_lines.first - ${sql.placeholder('lookback')}) as start,
-              coalesce((
-                select at from punches shift_out
-                where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out'
-                  and shift_out.at >= on_lines.last and shift_out.at <= ${sql.placeholder('now')}
-                order by shift_out.at limit 1
-              ), ${sql.placeholder('now')}) as end
-            from on_lines
+          windows(technician_id, start, end) as (
+            select value ->> 0, value ->> 1, value ->> 2 from json_each(${given})
           ),
           counted(row) as (
             select punch.rowid from windows
@@ -132,25 +147,24 @@ function punchesAroundLines(db: Db) {
             select correction.rowid from counted
               join punches corrected on corrected.rowid = counted.row
               join punches correction on correction.supersedes = corrected.id
-            where correction.at <= ${sql.placeholder('now')}
+            where correction.at <= ${now}
           )
         select row from counted
       )`,
     )
-    .orderBy(asc(punches.technicianId), asc(punches.at))
-    .prepare();
+    .values() as LedgerPunchValues[];
 }
 
 /** Reads punches and turns them into ledgers with the shop's rules; writes nothing. */
 @Injectable()
 export class LabourService {
-  private readonly aroundLines: ReturnType<typeof punchesAroundLines>;
+  private readonly kept: KeptLineSeconds;
 
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
   ) {
-    this.aroundLines = punchesAroundLines(db);
+    this.kept = new KeptLineSeconds(db);
   }
 
   punchesOf(technicianId: number, from: Date, to: Date): LedgerPunch[] {
@@ -167,25 +181,60 @@ export class LabourService {
     return buildLedger(this.punchesOf(technicianId, from, now), now, this.shop.settings(now));
   }
 
-  /** Clocked seconds on each line up to `now`, per technician and in all, with the split rule. */
+  /**
+   * Clocked seconds on each line up to `now`, per technician and in all, with the split rule. A line whose
+   * windows all ended with a shift-out is kept (`KeptLineSeconds`) and counted again only after a punch
+   * reaches into one of them.
+   */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     if (jobLineIds.length === 0) return new Map();
-    const rows = this.aroundLines.values({
-      lines: JSON.stringify(jobLineIds),
-      now: now.getTime(),
-      lookback: OPEN_SHIFT_LOOKBACK_MS,
-    }) as LedgerPunchValues[];
+    const settings = this.shop.settings(now);
+    // Inside a transaction the rows may yet be rolled back: nothing kept is read or kept.
+    const keeping = !inTransaction(this.db);
+    if (keeping) this.kept.refresh(settings, now);
+    const result = new Map<number, LineSeconds>();
+    const missing: number[] = [];
+    for (const id of jobLineIds) {
+      const kept = keeping ? this.kept.get(id, now) : undefined;
+      if (kept) result.set(id, kept);
+      else missing.push(id);
+    }
+    if (missing.length === 0) return result;
+
+    const windows = windowsAroundLines(this.db, missing, now.getTime());
+    const rows = punchesIn(
+      this.db,
+      windows.map((w) => ({ ...w, end: w.end ?? now.getTime() })),
+      now.getTime(),
+    );
     const byTechnician = new Map<number, LedgerPunch[]>();
     for (const row of rows) {
       const punched = byTechnician.get(row[1]) ?? [];
       if (punched.length === 0) byTechnician.set(row[1], punched);
       punched.push(toLedgerPunch(row));
     }
-    const settings = this.shop.settings(now);
     const ledgers = new Map(
       [...byTechnician].map(([technicianId, punched]) => [technicianId, buildLedger(punched, now, settings)]),
     );
-    return lineSecondsOf(ledgers, jobLineIds);
+    const windowsOf = new Map<number, LineWindow[]>();
+    for (const window of windows)
+      for (const id of JSON.parse(window.lines) as number[]) {
+        const own = windowsOf.get(id);
+        if (own) own.push(window);
+        else windowsOf.set(id, [window]);
+      }
+    for (const [id, seconds] of lineSecondsOf(ledgers, missing)) {
+      result.set(id, seconds);
+      const own = windowsOf.get(id) ?? [];
+      if (keeping && own.every((window) => window.end !== null))
+        this.kept.keep(
+          id,
+          seconds,
+          own.map(({ technicianId, start, end }) => ({ technicianId, start, end: end! })),
+          now,
+        );
+    }
+    return result;
   }
 }
 

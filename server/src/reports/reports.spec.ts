@@ -694,4 +694,34 @@ describe(ReportsService.name, () => {
       await as(owner).patch('/api/shop', { minimumMealMinutes: 30 }).expect(200);
     }
   });
+
+  it('keeps no figures read inside a transaction that was rolled back', async () => {
+    const past = addIsoWeeks(week, -5);
+    const [monday] = workweekDays(past, shop).filter(isWeekday) as [ShopDay];
+    const jo = await technician('Jo Pell', '5010', 20_00, 15_00);
+    await punch(jo, 'shift-in', at(monday, '08:00'));
+    await punch(jo, 'shift-out', at(monday, '12:00'));
+    expect(rowOf(await labour(`week=${past}`), jo)).toMatchObject({ attendanceHours: 4 });
+    const late = (kind: 'shift-in' | 'shift-out', time: string) =>
+      db
+        .insert(punches)
+        .values({
+          id: randomUUID(),
+          technicianId: jo,
+          kind,
+          at: at(monday, time),
+          recordedAt: new Date(),
+          recordedBy: jo,
+        })
+        .run();
+    expect(() =>
+      db.transaction(() => {
+        late('shift-in', '13:00');
+        late('shift-out', '15:00');
+        expect(rowOf(sut.app.get(ReportsService).labour(past), jo)).toMatchObject({ attendanceHours: 6 });
+        throw new Error('Rolled back');
+      }),
+    ).toThrow('Rolled back');
+    expect(rowOf(await labour(`week=${past}`), jo)).toMatchObject({ attendanceHours: 4 });
+  });
 });

@@ -17,6 +17,7 @@ import {
   type TimeRange,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
+import { inTransaction } from '../db/in-transaction.js';
 import { jobLines, punches } from '../db/schema/index.js';
 import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
 import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
@@ -212,6 +213,8 @@ export class WeekFiguresService {
     now: Date,
     valueOf: (week: WeekFigures) => T,
   ): T[] {
+    // Inside a transaction the rows may yet be rolled back: nothing kept is read or kept.
+    if (inTransaction(this.db)) return this.compute(labels, settings, now).map(valueOf);
     this.forgetChanged(settings);
     const found = labels.map((label) => kept.get(label, now));
     const first = found.indexOf(undefined);

@@ -3,6 +3,7 @@ import type { OpeningHours } from '../shop/shop.schema.js';
 
 const MS_PER_HOUR = 3_600_000;
 const DAYS_PER_WEEK = 7;
+const SIX_DAYS_MS = 6 * 24 * MS_PER_HOUR;
 /**
  * A technician's recent efficiency counts within these bounds: one odd week must not send a forecast
  * to the next month (or to the next minute).
@@ -85,19 +86,51 @@ function openPeriodsAround(
   return periods;
 }
 
+interface LocalDay {
+  timeZone: string;
+  year: number;
+  month: number;
+  date: number;
+  /** Its first instant and the next day's. */
+  start: number;
+  end: number;
+}
+
+const KEPT_LOCAL_DAYS = 64;
+const keptLocalDays: LocalDay[] = [];
+
+/**
+ * The local calendar day that holds the instant `at`. Kept with its bounds, so the many instants of a
+ * queue's forecasts that fall on the same few days cost no look-up of the zone's offset.
+ */
+function localDay(at: number, timeZone: string): LocalDay {
+  const kept = keptLocalDays.find((day) => day.timeZone === timeZone && at >= day.start && at < day.end);
+  if (kept) return kept;
+  const local = new TZDate(at, timeZone);
+  const [year, month, date] = [local.getFullYear(), local.getMonth(), local.getDate()];
+  const day = {
+    timeZone,
+    year,
+    month,
+    date,
+    start: new TZDate(year, month, date, timeZone).getTime(),
+    end: new TZDate(year, month, date + 1, timeZone).getTime(),
+  };
+  // Kept only when the bounds hold the instant: a zone can skip a midnight.
+  if (day.start <= at && at < day.end) {
+    if (keptLocalDays.length >= KEPT_LOCAL_DAYS) keptLocalDays.shift();
+    keptLocalDays.push(day);
+  }
+  return day;
+}
+
 /**
  * The shop's open periods from `from` over the next week and a day, merged where they touch, the
  * first clipped to start at `from`.
  */
 function openPeriodsFrom(from: number, openingHours: OpeningHours, timeZone: string): OpenPeriod[] {
-  const local = new TZDate(from, timeZone);
-  const periods = openPeriodsAround(
-    local.getFullYear(),
-    local.getMonth(),
-    local.getDate(),
-    openingHours,
-    timeZone,
-  )
+  const local = localDay(from, timeZone);
+  const periods = openPeriodsAround(local.year, local.month, local.date, openingHours, timeZone)
     .filter((period) => period.end > from)
     .map((period) => ({ start: Math.max(period.start, from), end: period.end }))
     .sort((a, b) => a.start - b.start);
@@ -135,17 +168,21 @@ export function addOpenHours(
 ): Date | null {
   let left = Math.max(0, Math.round(hours * MS_PER_HOUR));
   let cursor = start.getTime();
-  const weekEnd = weeksLater(cursor, 1, timeZone);
-  const weekOpen = openPeriodsFrom(cursor, openingHours, timeZone).reduce(
-    (sum, p) => sum + Math.max(0, Math.min(p.end, weekEnd) - p.start),
-    0,
-  );
-  if (weekOpen === 0) return null;
-  // Ending exactly at a close stays on that day: skip only the weeks that leave work over.
-  const wholeWeeks = left > 0 ? Math.floor((left - 1) / weekOpen) : 0;
-  if (wholeWeeks > 0) {
-    cursor = weeksLater(cursor, wholeWeeks, timeZone);
-    left -= wholeWeeks * weekOpen;
+  const ahead = openPeriodsFrom(cursor, openingHours, timeZone);
+  const openUntil = (end: number) =>
+    ahead.reduce((sum, p) => sum + Math.max(0, Math.min(p.end, end) - p.start), 0);
+  // Six days of 24 hours lie within the local week from `cursor`, whatever a DST change does to it: work
+  // that fits in their open hours skips no whole week, and the week's end need not be found.
+  const sixDaysOpen = openUntil(cursor + SIX_DAYS_MS);
+  if (sixDaysOpen === 0 || left > sixDaysOpen) {
+    const weekOpen = openUntil(weeksLater(cursor, 1, timeZone));
+    if (weekOpen === 0) return null;
+    // Ending exactly at a close stays on that day: skip only the weeks that leave work over.
+    const wholeWeeks = left > 0 ? Math.floor((left - 1) / weekOpen) : 0;
+    if (wholeWeeks > 0) {
+      cursor = weeksLater(cursor, wholeWeeks, timeZone);
+      left -= wholeWeeks * weekOpen;
+    }
   }
   // At most a week's work is left; a DST change inside skipped open hours can leave an hour more.
   for (;;) {
