@@ -460,6 +460,13 @@ describe(punchImpact.name, () => {
     expect(punchImpact([], on(1, '09:00'), even).refusal).toBe(PUNCH_REFUSALS.notOnShift);
   });
 
+  it('judges a punch at the same instant as the last counted one in full', () => {
+    // Same instant, same kind: the order falls to the ids, and the new one can come first.
+    const shift = [punch('shift-in', '08:00', { id: 'b1' }), punch('shift-out', '12:00', { id: 'b2' })];
+    const again = punch('shift-out', '12:00', { id: 'a1' });
+    expect(punchImpact(shift, again, even).displaced).toEqual([shift[1]]);
+  });
+
   it('does not count a punch a correction replaces as displaced', () => {
     const moved = punch('shift-out', '16:30', { supersedes: day[3]!.id });
     expect(punchImpact(day, moved, even).displaced).toEqual([]);
@@ -590,6 +597,55 @@ describe(`${buildLedger.name} properties`, () => {
           expect(before.clockedSeconds + after.clockedSeconds).toBeCloseTo(ledger.totals.clockedSeconds, 6);
         },
       ),
+    );
+  });
+
+  it('judges a punch as the ledgers before and after it tell, a new one at the end of the day included', () => {
+    const nextArb = fc.record({
+      kind: fc.constantFrom(...PUNCH_KINDS),
+      // After the last counted punch, at the same instant, or among the day's punches.
+      minutesAfterLast: fc.oneof(fc.constant(0), fc.integer({ min: -120, max: 60 })),
+      line: fc.integer({ min: 1, max: 4 }),
+      corrects: fc.option(fc.nat(), { freq: 4 }),
+      reusesId: fc.option(fc.nat(), { freq: 8 }),
+    });
+    fc.assert(
+      fc.property(punchesArb, settingsArb, nextArb, (existing, settings, next) => {
+        const superseded = new Set(existing.map((p) => p.supersedes));
+        const counted = existing.filter((p) => !superseded.has(p.id)).map((p) => Date.parse(p.at));
+        const countedUntil = Math.max(base, ...counted);
+        const pick = (n: number | null) =>
+          n === null || existing.length === 0 ? null : existing[n % existing.length]!.id;
+        const candidate: LedgerPunch = {
+          id: pick(next.reusesId) ?? 'next',
+          technicianId: 1,
+          kind: next.kind,
+          jobLineId: next.kind === 'job-on' || next.kind === 'job-off' ? next.line : null,
+          breakKind: next.kind === 'break-start' ? 'meal' : null,
+          at: new Date(countedUntil + next.minutesAfterLast * 60_000).toISOString(),
+          supersedes: pick(next.corrects),
+        };
+        // The definition: what the counted punches' ledger up to the last of them becomes with this one.
+        const horizon = new Date(Math.max(countedUntil, Date.parse(candidate.at)));
+        const [before, after] = [
+          buildLedger(existing, horizon, settings),
+          buildLedger([...existing, candidate], horizon, settings),
+        ];
+        const wasAnomaly = new Set(before.anomalies.map((a) => a.punchId));
+        const window = [new Date(base - 3600_000), new Date(countedUntil)] as const;
+        const [was, will] = [before.within(...window), after.within(...window)];
+        const slack = 120;
+        expect(punchImpact(existing, candidate, settings)).toEqual({
+          refusal: after.anomalies.find((a) => a.punchId === candidate.id)?.reason ?? null,
+          displaced: after.anomalies
+            .filter((a) => a.punchId !== candidate.id && !wasAnomaly.has(a.punchId))
+            .map((a) => existing.find((p) => p.id === a.punchId)),
+          lowersCounted:
+            will.attendanceSeconds < was.attendanceSeconds - slack ||
+            will.clockedSeconds < was.clockedSeconds - slack,
+        });
+      }),
+      { numRuns: 1500 },
     );
   });
 });

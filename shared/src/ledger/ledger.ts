@@ -252,10 +252,14 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
   if (openShift !== null) shifts.push(span(openShift, end, true));
 
   const intervals = { shifts, breaks, jobs };
+  let totals: LedgerTotals | undefined;
   return {
     ...intervals,
     anomalies,
-    totals: totalsOf(intervals, settings.concurrentSplit, -Infinity, Infinity),
+    // Counted when first read: a fit check reads only the anomalies.
+    get totals() {
+      return (totals ??= totalsOf(intervals, settings.concurrentSplit, -Infinity, Infinity));
+    },
     within: (from, to) => totalsOf(intervals, settings.concurrentSplit, from.getTime(), to.getTime()),
   };
 }
@@ -298,9 +302,12 @@ export function punchImpact(
   const lastCounted = effectivePunches(existing).at(-1);
   const countedUntil = lastCounted ? Date.parse(lastCounted.at) : -Infinity;
   const horizon = new Date(Math.max(countedUntil, Date.parse(punch.at)));
-  const before = buildLedger(existing, horizon, settings);
   const after = buildLedger([...existing, punch], horizon, settings);
   const refusal = after.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
+  // A punch after every counted one that corrects none leaves their order, so their fit and time, as it was.
+  if (Date.parse(punch.at) > countedUntil && punch.supersedes === null && !punch.voids)
+    return { refusal, displaced: [], lowersCounted: false };
+  const before = buildLedger(existing, horizon, settings);
   const wasAnomaly = new Set(before.anomalies.map((a) => a.punchId));
   const byId = new Map(existing.map((p) => [p.id, p]));
   const displaced = after.anomalies
