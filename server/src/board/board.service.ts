@@ -245,13 +245,24 @@ function boardTimer(timer: FloorTimer, now: Date): BoardTimer {
 function personSince(ledger: Ledger | null, state: TechnicianState, jobLineId: number | undefined): Date {
   const since = state.since ?? new Date(0);
   if (state.status !== 'on-shift' || !ledger) return since;
-  const open = ledger.jobs.find((job) => job.open && job.jobLineId === jobLineId);
+  // Open intervals close the ledger's lists.
+  const open = ledger.jobs.findLast((job) => job.open && job.jobLineId === jobLineId);
   if (open) return open.from;
-  // Only intervals that really ended: an open one's end is just when its ledger was last built.
-  let latest = since.getTime();
-  for (const interval of [ledger.jobs, ledger.breaks].flat())
-    if (!interval.open) latest = Math.max(latest, interval.to.getTime());
-  return new Date(latest);
+  return new Date(Math.max(since.getTime(), lastEnded(ledger)));
+}
+
+/** Ends of the last job and break that really ended, by ledger: the floor builds one per change of punches. */
+const lastEndings = new WeakMap<Ledger, number>();
+function lastEnded(ledger: Ledger): number {
+  let latest = lastEndings.get(ledger);
+  if (latest === undefined) {
+    // An open interval's end is just when its ledger was built.
+    latest = -Infinity;
+    for (const intervals of [ledger.jobs, ledger.breaks])
+      for (const interval of intervals) if (!interval.open) latest = Math.max(latest, interval.to.getTime());
+    lastEndings.set(ledger, latest);
+  }
+  return latest;
 }
 
 /** Clocked seconds tick on the screens by themselves; only a jump is news. */

@@ -30,4 +30,25 @@ describe(BoardService.name, () => {
     expect(board.current(at + 2).seq).toBeGreaterThan(before.seq);
     expect(status(at + 2)).toBe('on-break');
   });
+
+  it('shows an idle technician as idle since the last break or job ended, not since the shift began', async () => {
+    const board = sut.app.get(BoardService);
+    // Sam is idle on shift in the demo shop too.
+    const sam = await sut.badge('1046');
+    const punch = async (kind: 'break-start' | 'break-end') => {
+      const response = await sut
+        .http()
+        .post('/api/punches')
+        .auth(sam.accessToken, { type: 'bearer' })
+        .send({ id: randomUUID(), kind, ...(kind === 'break-start' ? { breakKind: 'rest' } : {}) })
+        .expect(201);
+      return (response.body as { at: string }).at;
+    };
+    const person = () => board.current(Date.now() + 1_000).people.find((p) => p.id === sam.user.id);
+    expect(person()?.status).toBe('idle');
+    const breakStarted = await punch('break-start');
+    expect(person()).toMatchObject({ status: 'on-break', since: breakStarted });
+    const breakEnded = await punch('break-end');
+    expect(person()).toMatchObject({ status: 'idle', since: breakEnded });
+  });
 });
