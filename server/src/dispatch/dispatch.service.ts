@@ -20,6 +20,7 @@ import {
 import { BoardService } from '../board/board.service.js';
 import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
+import { UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, storedEfficiencies } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
@@ -37,6 +38,8 @@ const EFFICIENCY_CACHE_MS = 5 * 60_000;
 const STORED_EFFICIENCIES_SERVE_MS = 60_000;
 /** Lines done in the last four weeks whose clocked time is read in one step of the efficiency count. */
 const DONE_LINES_PER_STEP = 50;
+/** How long the late lines of a view serve the office's pages while nothing went out to the screens. */
+const LATE_LINES_REUSE_MS = 15_000;
 const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
@@ -65,6 +68,14 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
   /** The refresh of the efficiencies under way in the background, which a second count waits for. */
   private refreshing: Promise<void> | null = null;
   private stopped = false;
+  /** The late lines of the last view, with the commits, live `seq` and efficiencies it was counted on. */
+  private lastLate: {
+    commits: number;
+    seq: number;
+    efficiencies: Efficiencies;
+    at: number;
+    lines: readonly DispatchLine[];
+  } | null = null;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -73,6 +84,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     private readonly shop: ShopService,
     private readonly board: BoardService,
     private readonly live: LiveService,
+    private readonly uow: UnitOfWork,
   ) {}
 
   /** Keeps the wall's count of late lines: shortly after the floor changes, and each minute as time runs. */
@@ -102,6 +114,26 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       await this.refreshEfficiencies(new Date());
       if (!this.stopped) this.board.setLateLines(this.view().lateCount);
     });
+  }
+
+  /**
+   * The late lines as `view` counts them. Pages that ask within a few seconds of a view share its count,
+   * while nothing was committed, no message went out and the efficiencies stood.
+   */
+  lateLines(now = new Date()): readonly DispatchLine[] {
+    const kept = this.lastLate;
+    const sinceKept = now.getTime() - (kept?.at ?? 0);
+    if (
+      kept &&
+      kept.commits === this.uow.commits &&
+      kept.seq === this.live.seq &&
+      kept.efficiencies === this.efficiencyCache?.values &&
+      sinceKept >= 0 &&
+      sinceKept < LATE_LINES_REUSE_MS
+    )
+      return kept.lines;
+    this.view(now);
+    return this.lastLate!.lines;
   }
 
   view(now = new Date()): DispatchBoard {
@@ -183,6 +215,14 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     // A waiting line is late already if even starting it now, at the shop's pace, misses its promise.
     for (const line of queue) if (forecastable(line)) forecast([line], efficiencies.shop);
     for (const line of lines) line.late = isLineLate(line, line.forecast, now);
+    const late = lines.filter((l) => l.late);
+    this.lastLate = {
+      commits: this.uow.commits,
+      seq: this.live.seq,
+      efficiencies,
+      at: now.getTime(),
+      lines: late,
+    };
 
     return {
       serverTime: now.toISOString(),
@@ -194,7 +234,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
         state,
         repairOrderId: repairOrder?.id ?? null,
       })),
-      lateCount: lines.filter((l) => l.late).length,
+      lateCount: late.length,
       forecastNote: forecastsAvailable ? null : NO_OPENING_HOURS,
     };
   }

@@ -182,6 +182,33 @@ describe(DispatchService.name, () => {
       expect(detail).toMatchObject({ late: true, lines: [{ late: true }] });
       await wallCounts(sut, foreman, dispatch.lateCount);
     });
+
+    it('shares one count of late lines among the pages that ask until a change goes out or time runs on', async () => {
+      const advisor = await sut.signIn(DEMO.advisor);
+      const ro = await writeOrder(sut, advisor, '900784', new Date(Date.now() + 20 * 60_000), 8);
+      const dispatch = sut.app.get(DispatchService);
+      const counts = vi.spyOn(dispatch, 'view');
+      try {
+        const now = Date.now();
+        const lateIds = (at: number) => dispatch.lateLines(new Date(at)).map((line) => line.id);
+        expect(lateIds(now)).toContain(ro.lines[0]!.id);
+        expect(lateIds(now + 1_000)).toContain(ro.lines[0]!.id);
+        expect(counts).toHaveBeenCalledTimes(1);
+        lateIds(now + 15_000);
+        expect(counts).toHaveBeenCalledTimes(2);
+
+        // Promised next month now: the very next page sees it on time.
+        await sut
+          .http()
+          .patch(`/api/repair-orders/${ro.id}`)
+          .auth(advisor, { type: 'bearer' })
+          .send({ promisedAt: new Date(Date.now() + 30 * 24 * 3600_000).toISOString() })
+          .expect(200);
+        expect(lateIds(now + 15_000)).not.toContain(ro.lines[0]!.id);
+      } finally {
+        counts.mockRestore();
+      }
+    });
   });
 
   describe('the first count, made in steps once the server has started', () => {

@@ -399,8 +399,7 @@ export class RepairOrdersService {
 
   /** Late lines by the one definition dispatch counts, and the ROs they are on. */
   private lateWork(now: Date): { lineIds: Set<number>; repairOrderIds: Set<number> } {
-    const view = this.dispatch.view(now);
-    const late = [...view.queue, ...view.lanes.flatMap((lane) => lane.lines)].filter((line) => line.late);
+    const late = this.dispatch.lateLines(now);
     return {
       lineIds: new Set(late.map((line) => line.id)),
       repairOrderIds: new Set(late.map((line) => line.repairOrderId)),
