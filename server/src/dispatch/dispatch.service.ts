@@ -20,7 +20,6 @@ import {
 import { BoardService } from '../board/board.service.js';
 import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
-import { UnitOfWork } from '../db/unit-of-work.js';
 import { jobLines, storedEfficiencies } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
@@ -68,10 +67,9 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
   /** The refresh of the efficiencies under way in the background, which a second count waits for. */
   private refreshing: Promise<void> | null = null;
   private stopped = false;
-  /** The late lines of the last view, with the commits, live `seq` and efficiencies it was counted on. */
+  /** The late lines of the last view, with the floor model's version and the efficiencies it counted on. */
   private lastLate: {
-    commits: number;
-    seq: number;
+    floor: number;
     efficiencies: Efficiencies;
     at: number;
     lines: readonly DispatchLine[];
@@ -84,7 +82,6 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     private readonly shop: ShopService,
     private readonly board: BoardService,
     private readonly live: LiveService,
-    private readonly uow: UnitOfWork,
   ) {}
 
   /** Keeps the wall's count of late lines: shortly after the floor changes, and each minute as time runs. */
@@ -117,16 +114,15 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
   }
 
   /**
-   * The late lines as `view` counts them. Pages that ask within a few seconds of a view share its count,
-   * while nothing was committed, no message went out and the efficiencies stood.
+   * The late lines as `view` counts them. Pages that ask within a few seconds of a view share its count
+   * while the floor and the efficiencies stand.
    */
   lateLines(now = new Date()): readonly DispatchLine[] {
     const kept = this.lastLate;
     const sinceKept = now.getTime() - (kept?.at ?? 0);
     if (
       kept &&
-      kept.commits === this.uow.commits &&
-      kept.seq === this.live.seq &&
+      kept.floor === this.floor.version &&
       kept.efficiencies === this.efficiencyCache?.values &&
       sinceKept >= 0 &&
       sinceKept < LATE_LINES_REUSE_MS
@@ -217,8 +213,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     for (const line of lines) line.late = isLineLate(line, line.forecast, now);
     const late = lines.filter((l) => l.late);
     this.lastLate = {
-      commits: this.uow.commits,
-      seq: this.live.seq,
+      floor: this.floor.version,
       efficiencies,
       at: now.getTime(),
       lines: late,

@@ -81,6 +81,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
   private readonly clocks = new Map<number, TechnicianPunches>();
   private readonly lines = new Map<number, FloorLine>();
   private bayList: FloorBay[] = [];
+  private changes = 0;
   private timerList: FloorTimer[] = [];
   private readonly queries: ReturnType<typeof prepareFloorQueries>;
   private subscription: Subscription | null = null;
@@ -105,6 +106,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   /** Everything from the database, as at start-up. */
   load(now = new Date()): void {
+    this.changes++;
     this.lines.clear();
     for (const row of this.queries.openLines.all()) this.lines.set(row.id, toFloorLine(row));
     this.bayList = this.queries.bays.all().map(toFloorBay);
@@ -155,11 +157,17 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   /** The shop's rules changed (split, concurrent jobs): every ledger is built again. */
   private settingsChanged(): void {
+    this.changes++;
     for (const clock of this.clocks.values()) clock.built = null;
     this.live.changed();
   }
 
   // Reads: all from memory.
+
+  /** Rises with every change the model takes in: what was worked out from it at another version is stale. */
+  get version(): number {
+    return this.changes;
+  }
 
   technicians(): readonly FloorTechnician[] {
     return this.technicianList;
@@ -273,6 +281,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
   private afterCommit(apply: () => void): void {
     this.uow.afterCommit(() => {
       apply();
+      this.changes++;
       this.live.changed();
     });
   }
