@@ -104,7 +104,7 @@ function FactLine({ line, overSeconds }: { line: TileLine; overSeconds: number }
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
       {fact.tone === 'over' && overSeconds > 0 && (
-        <span className={styles.overTag}>+{hoursFigure(overSeconds / 3600, 1)}</span>
+        <span className={styles.overTag}>+{hoursFigure(overSeconds / 3600, 1)} h</span>
       )}
     </div>
   );
