@@ -21,14 +21,18 @@ export interface LiveSocket {
  * on the first tries, so a roomful of screens and tablets does not come back in step after a restart:
  * their tries stay spread across the second, and none waits more than a second once the server is
  * back. A longer wait would spare the server little: a thousand handshakes cost it the same CPU
- * however they are spread, more than a second of it on two cores. An attempt at a server that is down is a
- * refused TCP connection: a thousand tablets trying every second cost it nothing.
+ * however they are spread, more than a second of it on two cores. WebSocket first, HTTP long-polling
+ * only where a WebSocket cannot open: a handshake over polling and its upgrade take the server four
+ * or five requests instead of one. A try at a server that is down is two refused TCP connections: a
+ * thousand tablets trying every second cost it nothing.
  */
 export const LIVE_SOCKET_OPTIONS = {
   reconnectionDelay: 500,
   reconnectionDelayMax: 1_000,
   randomizationFactor: 0.5,
-} as const;
+  transports: ['websocket', 'polling'] as ('websocket' | 'polling')[],
+  tryAllTransports: true,
+};
 
 export type LinkStatus = 'connecting' | 'live' | 'down' | 'refused';
 
