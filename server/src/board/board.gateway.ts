@@ -26,6 +26,11 @@ type LiveSocket = Socket<ClientToServerEvents, ServerToClientEvents, object, Soc
 
 const SHOP_ROOM = 'shop';
 const FLOOR_ROOMS = ['role:owner', 'role:foreman', 'role:advisor', 'role:display'];
+/**
+ * How long a new socket's snapshot waits for others to share its broadcast: after a restart the
+ * sockets come back about one a millisecond, each in its own tick.
+ */
+const SNAPSHOT_GATHER_MS = 20;
 /** How often the sockets whose token ran out are closed: one sweep, not a timer per socket. */
 const EXPIRY_SWEEP_MS = 1_000;
 
@@ -49,7 +54,7 @@ export class BoardGateway implements OnGatewayInit, OnModuleDestroy {
   @WebSocketServer() private server: LiveServer;
   private readonly subscriptions: Subscription[] = [];
   private expirySweep: NodeJS.Timeout | undefined;
-  /** Sockets connected this tick that still wait for their first snapshot, by socket id. */
+  /** Sockets that still wait for their first snapshot, by socket id. */
   private readonly awaitingSnapshot = new Set<string>();
 
   constructor(
@@ -108,13 +113,13 @@ export class BoardGateway implements OnGatewayInit, OnModuleDestroy {
       const answer = args.at(-1);
       if (typeof answer === 'function' && requests.take()) answer(this.board.current());
     });
-    if (this.awaitingSnapshot.size === 0) setImmediate(() => this.sendSnapshots());
+    if (this.awaitingSnapshot.size === 0) setTimeout(() => this.sendSnapshots(), SNAPSHOT_GATHER_MS);
     this.awaitingSnapshot.add(socket.id);
   }
 
   /**
-   * One snapshot for every socket that connected in the same tick, sent as one broadcast: Socket.IO
-   * encodes it and frames it once for all of them. After a restart, sockets come back in crowds.
+   * One snapshot for every socket that connected in the last few milliseconds, sent as one broadcast:
+   * Socket.IO encodes it and frames it once for all of them.
    */
   private sendSnapshots(): void {
     if (this.awaitingSnapshot.size === 0) return;
