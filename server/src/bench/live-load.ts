@@ -10,13 +10,11 @@ type LiveClient = Socket<ServerToClientEvents>;
 
 /**
  * The public live contract: the token in the handshake's `auth`, a `board.snapshot` on every
- * connection. Socket.IO's own reconnection with the apps' policy. WebSocket only, to keep the bench's
- * own CPU (it shares the machine) off long polling.
+ * connection. Socket.IO's own reconnection and transports with the apps' policy: WebSocket first.
  */
 export function connect(url: string, token: string): LiveClient {
   const socket: LiveClient = io(url, {
     auth: { token },
-    transports: ['websocket'],
     forceNew: true,
     ...LIVE_SOCKET_OPTIONS,
   });

@@ -1,17 +1,9 @@
-import { Logger, type OnModuleDestroy } from '@nestjs/common';
-import {
-  ConnectedSocket,
-  type OnGatewayConnection,
-  type OnGatewayInit,
-  SubscribeMessage,
-  WebSocketGateway,
-  WebSocketServer,
-} from '@nestjs/websockets';
+import type { OnModuleDestroy } from '@nestjs/common';
+import { type OnGatewayInit, WebSocketGateway, WebSocketServer } from '@nestjs/websockets';
 import type { Server, Socket } from 'socket.io';
 import type { Subscription } from 'rxjs';
 import {
   liveRefusal,
-  type BoardSnapshot,
   type ClientToServerEvents,
   type LiveRefusalReason,
   type ServerToClientEvents,
@@ -34,8 +26,13 @@ type LiveSocket = Socket<ClientToServerEvents, ServerToClientEvents, object, Soc
 
 const SHOP_ROOM = 'shop';
 const FLOOR_ROOMS = ['role:owner', 'role:foreman', 'role:advisor', 'role:display'];
-/** setTimeout's longest wait (about 24.8 days); a wall screen's token lasts longer. */
-const LONGEST_TIMEOUT_MS = 2 ** 31 - 1;
+/**
+ * How long a new socket's snapshot waits for others to share its broadcast: after a restart the
+ * sockets come back about one a millisecond, each in its own tick.
+ */
+const SNAPSHOT_GATHER_MS = 20;
+/** How often the sockets whose token ran out are closed: one sweep, not a timer per socket. */
+const EXPIRY_SWEEP_MS = 1_000;
 
 const holderRoom = (holder: SessionsEnded['holder']) =>
   'screenId' in holder ? `screen:${holder.screenId}` : `user:${holder.userId}`;
@@ -48,14 +45,16 @@ function refusalError(reason: LiveRefusalReason): Error & { data: unknown } {
 
 /**
  * The only place that touches Socket.IO: authenticates the handshake, forwards live messages, and
- * closes connections whose token ran out or whose screen or account changed.
+ * closes connections whose token ran out or whose screen or account changed. Connections and the
+ * one request are handled on Socket.IO itself, not through Nest's per-connection streams: after a
+ * restart a thousand sockets come back at once, and each costs the server's CPU.
  */
 @WebSocketGateway({ cors: { origin: false } })
-export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModuleDestroy {
-  private readonly logger = new Logger(BoardGateway.name);
+export class BoardGateway implements OnGatewayInit, OnModuleDestroy {
   @WebSocketServer() private server: LiveServer;
   private readonly subscriptions: Subscription[] = [];
-  /** Sockets connected this tick that still wait for their first snapshot, by socket id. */
+  private expirySweep: NodeJS.Timeout | undefined;
+  /** Sockets that still wait for their first snapshot, by socket id. */
   private readonly awaitingSnapshot = new Set<string>();
 
   constructor(
@@ -75,6 +74,8 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
       socket.data.requests = new RequestBudget();
       next();
     });
+    server.on('connection', (socket) => this.welcome(socket));
+    this.expirySweep = setInterval(() => this.endExpired(), EXPIRY_SWEEP_MS).unref();
     this.subscriptions.push(
       this.live.messages$.subscribe(({ event, payload, audience }) => {
         // A new screen's snapshot goes before any message that follows it.
@@ -95,31 +96,30 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
 
   onModuleDestroy(): void {
     for (const subscription of this.subscriptions) subscription.unsubscribe();
+    clearInterval(this.expirySweep);
   }
 
-  handleConnection(socket: LiveSocket): void {
-    const { principal, expiresAt } = socket.data;
+  private welcome(socket: LiveSocket): void {
+    const { principal, requests } = socket.data;
     void socket.join([
       SHOP_ROOM,
       `role:${principal.role}`,
       `${principal.role === 'display' || principal.role === 'kiosk' ? 'screen' : 'user'}:${principal.id}`,
     ]);
-    this.endAtExpiry(socket, expiresAt);
     if (principal.role === 'display') this.screens.seen(principal.id);
-    if (this.awaitingSnapshot.size === 0) setImmediate(() => this.sendSnapshots());
+    // Answered a few times a second at most: a client asking in a loop gets silence, not a log flood.
+    // The answer goes to the acknowledgement, the last argument, whatever comes before it.
+    socket.on('board.snapshot', (...args: unknown[]) => {
+      const answer = args.at(-1);
+      if (typeof answer === 'function' && requests.take()) answer(this.board.current());
+    });
+    if (this.awaitingSnapshot.size === 0) setTimeout(() => this.sendSnapshots(), SNAPSHOT_GATHER_MS);
     this.awaitingSnapshot.add(socket.id);
-    this.logger.debug(`${principal.role} ${principal.id} connected`);
-  }
-
-  /** Answered a few times a second at most: a client asking in a loop gets silence, not a log flood. */
-  @SubscribeMessage('board.snapshot')
-  snapshot(@ConnectedSocket() socket: LiveSocket): BoardSnapshot | undefined {
-    return socket.data.requests.take() ? this.board.current() : undefined;
   }
 
   /**
-   * One snapshot for every socket that connected in the same tick, sent as one broadcast: Socket.IO
-   * encodes it and frames it once for all of them. After a restart, sockets come back in crowds.
+   * One snapshot for every socket that connected in the last few milliseconds, sent as one broadcast:
+   * Socket.IO encodes it and frames it once for all of them.
    */
   private sendSnapshots(): void {
     if (this.awaitingSnapshot.size === 0) return;
@@ -128,20 +128,12 @@ export class BoardGateway implements OnGatewayInit, OnGatewayConnection, OnModul
     this.server.to(sockets).emit('board.snapshot', this.board.current());
   }
 
-  private endAtExpiry(socket: LiveSocket, expiresAt: number): void {
-    let timer: NodeJS.Timeout;
-    const wait = () => {
-      timer = setTimeout(
-        () => {
-          if (Date.now() < expiresAt) return wait();
-          socket.emit('session.ended', liveRefusal('token-expired'));
-          socket.disconnect();
-        },
-        Math.min(Math.max(0, expiresAt - Date.now()), LONGEST_TIMEOUT_MS),
-      );
-      timer.unref();
-    };
-    wait();
-    socket.once('disconnect', () => clearTimeout(timer));
+  private endExpired(): void {
+    const now = Date.now();
+    for (const socket of this.server.sockets.sockets.values()) {
+      if (socket.data.expiresAt > now) continue;
+      socket.emit('session.ended', liveRefusal('token-expired'));
+      socket.disconnect();
+    }
   }
 }
