@@ -28,6 +28,8 @@ export class CallerContextInterceptor implements NestInterceptor {
   intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
     if (context.getType() !== 'http') return next.handle();
     const key = context.switchToHttp().getRequest<KeyedRequest>().integrationKey;
+    // A person's request has no store to set: no request runs inside another's.
+    if (!key) return next.handle();
     // next.handle() binds the handler to the context it is called in.
     return calls.run(key, () => next.handle());
   }
