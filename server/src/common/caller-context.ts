@@ -20,8 +20,9 @@ export function callingKey(): CallingKey | undefined {
 }
 
 /**
- * Global: runs each HTTP handler with the key the guard admitted, so whatever the use case writes
- * (audit rows first) is marked as the key's doing without every service passing it along.
+ * On every route an integration key may call (see @Scope): runs the HTTP handler with the key the
+ * guard admitted, so whatever the use case writes (audit rows first) is marked as the key's doing
+ * without every service passing it along.
  */
 @Injectable()
 export class CallerContextInterceptor implements NestInterceptor {
