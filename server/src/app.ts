@@ -1,6 +1,7 @@
 import 'reflect-metadata';
 import { Logger, type INestApplication, type LogLevel } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
 import helmet from 'helmet';
 import { serveApiDocs } from './api-docs/api-docs.js';
 import { AppModule } from './app.module.js';
@@ -13,8 +14,16 @@ export async function createApp(
   config: AppConfig,
   logger: LogLevel[] | false = ['log', 'warn', 'error'],
 ): Promise<INestApplication> {
-  const app = await NestFactory.create(AppModule.forRoot(config), { logger, abortOnError: false });
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), {
+    logger,
+    abortOnError: false,
+  });
   app.setGlobalPrefix('api', { exclude: [] });
+  // No client revalidates an API answer, so none is hashed for an ETag: this function answers none for
+  // `res.send`. Static files keep theirs, from their size and time, wherever ETags stay enabled.
+  // Helmet would only take back the X-Powered-By set for each request.
+  app.set('etag', () => undefined);
+  app.disable('x-powered-by');
   app.use(
     helmet({
       // Shop tablets reach the server over plain http on the LAN: no https upgrade, no HSTS.

@@ -11,18 +11,25 @@ const isDocsRequest = (path: string) => path === `/${OPENAPI_PATH}` || path.star
  * Serves the document at /api/openapi.json and the reference page at /api/docs, with the page's
  * scripts and styles from swagger-ui-dist on this server: nothing from a CDN, within the app's
  * content security policy. The Swagger module (some 500 files) loads on the first request for either,
- * not at start-up: its routes go into an Express app of their own, mounted before the API's routes.
+ * not at start-up: its routes go into an Express app of their own, in front of the API's routes.
  */
 export function serveApiDocs(app: INestApplication): void {
   const docs = new ExpressAdapter();
   docs.getInstance().disable('x-powered-by');
   let mounted: Promise<void> | null = null;
-  docs.use((request: Request, _response: Response, next: NextFunction) => {
+  // Only a request for the docs enters their Express app: on the way in it swaps the request's and
+  // response's prototypes for its own, put back here if it passes the request on.
+  app.use((request: Request, response: Response, next: NextFunction) => {
     if (!isDocsRequest(request.path)) return next();
     mounted ??= mountSwagger(app, docs);
-    mounted.then(() => next(), next);
+    const prototypes = [Object.getPrototypeOf(request), Object.getPrototypeOf(response)] as const;
+    const passOn = (error?: unknown) => {
+      Object.setPrototypeOf(request, prototypes[0]);
+      Object.setPrototypeOf(response, prototypes[1]);
+      next(error);
+    };
+    mounted.then(() => docs.getInstance()(request, response, passOn), next);
   });
-  app.use(docs.getInstance());
 }
 
 /**

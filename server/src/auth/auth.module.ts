@@ -1,19 +1,16 @@
 import { Module } from '@nestjs/common';
 import { APP_GUARD } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
-import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
 import { APP_CONFIG, type AppConfig } from '../config/app-config.js';
 import { SignedInGuard } from '../common/guards/auth.guard.js';
 import { IntegrationKeysModule } from '../integration-keys/integration-keys.module.js';
 import { AuthController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
-import { JwtStrategy } from './jwt.strategy.js';
 import { SignInThrottle } from './sign-in-throttle.js';
 
 @Module({
   imports: [
-    PassportModule,
     IntegrationKeysModule,
     ThrottlerModule.forRoot({
       throttlers: [{ ttl: 60_000, limit: 60 }],
@@ -29,7 +26,7 @@ import { SignInThrottle } from './sign-in-throttle.js';
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, SignInThrottle, JwtStrategy, { provide: APP_GUARD, useClass: SignedInGuard }],
+  providers: [AuthService, SignInThrottle, { provide: APP_GUARD, useClass: SignedInGuard }],
   exports: [AuthService],
 })
 export class AuthModule {}

@@ -85,6 +85,24 @@ describe(AuthService.name, () => {
     await sut.http().get('/api/me').auth(expired, { type: 'bearer' }).expect(401);
   });
 
+  it('reads a Bearer token in any case of the scheme, and refuses others with a bare 401', async () => {
+    const owner = await sut.signIn(DEMO.owner);
+    await sut.http().get('/api/me').set('authorization', `bearer ${owner}`).expect(200);
+    const signedWith = (options: ConstructorParameters<typeof JwtService>[0]) =>
+      new JwtService({ secret: sut.config.jwtSecret, ...options }).sign({ sub: 1, role: 'owner' });
+    const refused = [
+      `Basic ${owner}`,
+      owner,
+      `Bearer ${signedWith({ signOptions: { algorithm: 'HS512', expiresIn: '1h' } })}`,
+      `Bearer ${signedWith({})}`,
+      `Bearer ${signedWith({ signOptions: { expiresIn: '1h', notBefore: '1h' } })}`,
+    ];
+    for (const authorization of refused) {
+      const { body } = await sut.http().get('/api/me').set('authorization', authorization).expect(401);
+      expect(body).toEqual({ message: 'Unauthorized', statusCode: 401 });
+    }
+  });
+
   it('does not let an owner lock themself out', async () => {
     const owner = await sut.signIn(DEMO.owner);
     const me = (await sut.http().get('/api/me').auth(owner, { type: 'bearer' }).expect(200)).body as {

@@ -20,14 +20,17 @@ export function callingKey(): CallingKey | undefined {
 }
 
 /**
- * Global: runs each HTTP handler with the key the guard admitted, so whatever the use case writes
- * (audit rows first) is marked as the key's doing without every service passing it along.
+ * On every route an integration key may call (see @Scope): runs the HTTP handler with the key the
+ * guard admitted, so whatever the use case writes (audit rows first) is marked as the key's doing
+ * without every service passing it along.
  */
 @Injectable()
 export class CallerContextInterceptor implements NestInterceptor {
   intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
     if (context.getType() !== 'http') return next.handle();
     const key = context.switchToHttp().getRequest<KeyedRequest>().integrationKey;
+    // A person's request has no store to set: no request runs inside another's.
+    if (!key) return next.handle();
     // next.handle() binds the handler to the context it is called in.
     return calls.run(key, () => next.handle());
   }

@@ -66,8 +66,7 @@ async function aLateOrder(sut: TestApp, serial: string): Promise<{ foreman: stri
 }
 
 describe(DispatchService.name, () => {
-  // A shop without the demo's lines, so the count can be worked by hand. (One app at a time in this
-  // file: passport keeps one token check per process, the last app's.)
+  // A shop without the demo's lines, so the count can be worked by hand.
   describe('late lines', () => {
     let shop: TestApp;
     beforeAll(async () => {

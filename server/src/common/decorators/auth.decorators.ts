@@ -1,6 +1,13 @@
-import { createParamDecorator, SetMetadata, type ExecutionContext } from '@nestjs/common';
+import {
+  applyDecorators,
+  createParamDecorator,
+  SetMetadata,
+  UseInterceptors,
+  type ExecutionContext,
+} from '@nestjs/common';
 import type { IntegrationScope, Role } from '@baytime/shared';
 import type { Principal } from '../../auth/principal.js';
+import { CallerContextInterceptor } from '../caller-context.js';
 
 export const IS_PUBLIC = 'baytime:public';
 export const ROLES_KEY = 'baytime:roles';
@@ -14,9 +21,11 @@ export const Roles = (...roles: Role[]) => SetMetadata(ROLES_KEY, roles);
 
 /**
  * Lets an integration key holding this scope call the route too. A route without it refuses every key,
- * so a key can never sign in to the apps or act as a person.
+ * so a key can never sign in to the apps or act as a person. Only such a route runs its handler with
+ * the calling key at hand, so the other routes skip that interceptor's round.
  */
-export const Scope = (scope: IntegrationScope) => SetMetadata(SCOPE_KEY, scope);
+export const Scope = (scope: IntegrationScope) =>
+  applyDecorators(SetMetadata(SCOPE_KEY, scope), UseInterceptors(CallerContextInterceptor));
 
 export const CurrentUser = createParamDecorator(
   (_: unknown, context: ExecutionContext): Principal =>
