@@ -10,13 +10,17 @@ type LiveClient = Socket<ServerToClientEvents>;
 
 /**
  * The public live contract: the token in the handshake's `auth`, a `board.snapshot` on every
- * connection. Socket.IO's own reconnection and transports with the apps' policy: WebSocket first.
+ * connection. Socket.IO's own reconnection with the apps' policy, over WebSocket only: the apps fall
+ * back to long polling where a WebSocket cannot open, and on this one machine the bench's thousand
+ * clients trying that while the server restarts take the cores it needs to start.
  */
 export function connect(url: string, token: string): LiveClient {
   const socket: LiveClient = io(url, {
     auth: { token },
     forceNew: true,
     ...LIVE_SOCKET_OPTIONS,
+    transports: ['websocket'],
+    tryAllTransports: false,
   });
   // A server that shut down cleanly says so; the apps connect again, as after a crash.
   socket.on('disconnect', (reason) => {
