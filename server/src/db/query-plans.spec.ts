@@ -151,8 +151,12 @@ describe('query plans', () => {
   });
 
   it('the reports notice what changed past weeks from the rows added since they last looked', () => {
-    expect(planOf('new punches', /where punch\.rowid > \?\s*$/)).toEqual([
+    expect(planOf('new punches', /where punch\.rowid > \? or punch\.at > \?/)).toEqual([
+      'MULTI-INDEX OR',
+      'INDEX 1',
       'SEARCH punch USING INTEGER PRIMARY KEY (rowid>?)',
+      'INDEX 2',
+      'SEARCH punch USING INDEX punches_at_idx (at>?)',
       'SEARCH corrected USING INDEX sqlite_autoindex_punches_1 (id=?) LEFT-JOIN',
     ]);
     expect(planOf('finished lines changed', /from finished_line_changes where seq > \?/)).toEqual(

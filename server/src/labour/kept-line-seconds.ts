@@ -1,6 +1,6 @@
-import { sql } from 'drizzle-orm';
 import type { LedgerSettings } from '@baytime/shared';
 import type { Db } from '../db/database.js';
+import { lastPunchRow, punchesAddedAfter } from '../punches/added-punches.js';
 
 /** The clocked seconds of a line, per technician and in all. */
 export interface LineSeconds {
@@ -20,16 +20,6 @@ interface KeptLine {
   windows: PunchWindow[];
   /** The `now` it was counted at: an earlier `now` counts afresh. */
   countedAt: number;
-}
-
-interface NewPunch {
-  row: number;
-  technicianId: number;
-  at: number;
-  jobLineId: number | null;
-  correctedTechnicianId: number | null;
-  correctedAt: number | null;
-  correctedLineId: number | null;
 }
 
 /** Lines kept; beyond, the longest kept go first. */
@@ -62,19 +52,12 @@ export class KeptLineSeconds {
       this.lines.clear();
       this.byTechnician.clear();
       this.keptFor = key;
-      this.seen = {
-        row: this.db.get<{ row: number }>(sql`select coalesce(max(rowid), 0) as row from punches`).row,
-        at: now.getTime(),
-      };
+      this.seen = { row: lastPunchRow(this.db), at: now.getTime() };
       return;
     }
-    const added = this.db.all<NewPunch>(sql`
-      select punch.rowid as row, punch.technician_id as technicianId, punch.at as at,
-        punch.job_line_id as jobLineId, corrected.technician_id as correctedTechnicianId,
-        corrected.at as correctedAt, corrected.job_line_id as correctedLineId
-      from punches punch left join punches corrected on corrected.id = punch.supersedes
-      where punch.rowid > ${seen.row} or punch.at > ${seen.at}`);
-    this.seen = { row: Math.max(seen.row, ...added.map((punch) => punch.row)), at: now.getTime() };
+    const added = punchesAddedAfter(this.db, seen.row, seen.at);
+    const row = added.reduce((last, punch) => Math.max(last, punch.row), seen.row);
+    this.seen = { row, at: now.getTime() };
     for (const punch of added) {
       this.forget(punch.jobLineId);
       this.forget(punch.correctedLineId);
