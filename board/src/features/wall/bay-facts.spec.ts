@@ -71,7 +71,7 @@ describe(bayFacts.name, () => {
     });
     expect(facts[0]).toMatchObject({ key: 'reason', text: 'Parts', keep: true });
     expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T14:18:00Z' }), now)).toBe('42m');
-    expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T13:55:00Z' }), now)).toBe('1h05');
+    expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T13:55:00Z' }), now)).toBe('1h');
     expect(bandNote(bay({ state: 'held', heldSince: '2026-03-02T02:00:00Z' }), now)).toBe('13h');
     expect(bandNote(bay({ state: 'held', heldSince: '2026-02-27T15:00:00Z' }), now)).toBe('3d');
     expect(bandNote(bay({ state: 'working' }), now)).toBeNull();

@@ -226,11 +226,11 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
 /** A short figure shown at the end of the state band: how long a held bay has been held. */
 export function bandNote(bay: BoardBay, nowMs: number): string | null {
   if (bay.state !== 'held' || !bay.heldSince) return null;
-  // The band has room for about four characters after the word: "42m", "1h05", "11h", "2d".
+  // Four columns of tiles leave room for three characters after the word: "42m", "1h", "11h", "2d".
+  // The office's floor view gives the minutes.
   const minutes = Math.floor(secondsSince(bay.heldSince, nowMs) / 60);
   if (minutes < 60) return `${Math.max(1, minutes)}m`;
   const hours = Math.floor(minutes / 60);
-  if (hours < 10) return `${hours}h${String(minutes % 60).padStart(2, '0')}`;
   return hours < 24 ? `${hours}h` : `${Math.floor(hours / 24)}d`;
 }
 
