@@ -180,6 +180,27 @@ const OPERATIONS = [
   'Replace outer tie rod ends',
 ];
 
+/** What the customer told the advisor for each operation of the demo (invented wording). */
+export const DEMO_CONCERNS: Record<string, string> = {
+  'Oil and filter change': 'Due for an oil change by the reminder sticker',
+  'Front brake pads and rotors': 'Squeal and a pulsing pedal when braking',
+  'Automatic transmission fluid and filter service': 'Service due at this mileage by the owner’s manual',
+  'Coolant flush and fill': 'Coolant in the overflow tank looks brown',
+  'Four-wheel alignment': 'Pulls to the right on a straight road',
+  'Replace serpentine belt': 'Squeal from the engine on cold starts',
+  'Battery and charging system test': 'Slow to crank on cold mornings',
+  'Diagnose engine warning light': 'Engine warning light came on at highway speed',
+  'Replace front struts': 'Bouncy ride and a clunk over bumps',
+  'Replace spark plugs': 'Rough idle and a stumble when pulling away',
+  'Replace water pump': 'Coolant drips under the front of the engine',
+  'Tire rotation and balance': 'Steering wheel shakes at highway speed',
+  'Replace rear wheel bearing': 'Hum from the rear that rises with speed',
+  'Air conditioning performance check': 'Air from the vents is not cold',
+  'Replace thermostat and housing': 'Temperature gauge reads high in traffic',
+  'Replace outer tie rod ends': 'Loose steering and uneven wear on the front tires',
+  'Reseal oil pan': 'Oil spots on the driveway overnight',
+};
+
 /** A small seeded generator, so every demo database is the same. */
 function seededRandom(seed: number): () => number {
   let state = seed;
@@ -514,7 +535,7 @@ export class DemoShopSeeder {
         vehicleId: vehicle.id,
         ...repairOrderSnapshot(customer, vehicle),
         advisorId,
-        concern: lines.map((line) => line.title).join('; '),
+        concern: lines.map((line) => DEMO_CONCERNS[line.title] ?? line.title).join('; '),
         odometer,
         status: closed
           ? 'closed'
@@ -534,7 +555,7 @@ export class DemoShopSeeder {
           .insert(jobLines)
           .values({
             ...line,
-            concern: `Customer asks for: ${line.title.toLowerCase()}`,
+            concern: DEMO_CONCERNS[line.title] ?? line.title,
             ...(line.status === 'done' && {
               completedBy: line.technicianId ?? null,
               correction: `${line.title} done to the maker's procedure`,

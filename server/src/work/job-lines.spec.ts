@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BoardSnapshot, MyDay, SignInAnswer } from '@baytime/shared';
+import { DEMO_CONCERNS } from '../demo/demo-shop.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { JobLinesService } from './job-lines.service.js';
 
@@ -49,7 +50,7 @@ describe(JobLinesService.name, () => {
     const sam = await sut.badge('1046');
     const before = await day(sam);
     const line = before.lines[0]!;
-    expect(line.concern).toMatch(/^Customer asks for: /);
+    expect(line.concern).toBe(DEMO_CONCERNS[line.title]);
     const { body } = await as(sam.accessToken)
       .post(`/api/job-lines/${line.id}/done`, {
         next: 'check',
