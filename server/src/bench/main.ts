@@ -185,7 +185,11 @@ if (runs('live')) {
   print('server CPU during the load', (load.serverCpuMs / load.elapsedMs) * 100, '% of one core');
   track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
   print('  of which in the kernel (sockets, disk)', load.serverSystemCpuMs / load.sent, 'ms');
-  print('event loop delay p50 / max', `${load.eventLoop.p50Ms} / ${load.eventLoop.maxMs}`, 'ms');
+  print(
+    'event loop delay p50 / max',
+    `${round(load.eventLoop.p50Ms)} / ${round(load.eventLoop.maxMs)}`,
+    'ms',
+  );
   track('event loop delay p99 ms', load.eventLoop.p99Ms, 'event loop delay p99', 'ms');
   const memory = server.memoryMb();
   track('server rss mb at 1000 sockets', memory.rss, `server RSS with ${sockets.length} sockets`, 'MB');
