@@ -1,4 +1,4 @@
-import type { LedgerSettings } from '@baytime/shared';
+import { ledgerSettingsKey, type LedgerSettings } from '@baytime/shared';
 import type { Db } from '../db/database.js';
 import { lastPunchRow, punchesAddedAfter } from '../punches/added-punches.js';
 
@@ -41,12 +41,7 @@ export class KeptLineSeconds {
 
   /** Forgets the lines that punches added since the last look (or changed ledger settings) may change. */
   refresh(settings: LedgerSettings, now: Date): void {
-    const ledger: Record<keyof LedgerSettings, unknown> = {
-      concurrentSplit: settings.concurrentSplit,
-      maxConcurrentJobs: settings.maxConcurrentJobs,
-      minimumMealMinutes: settings.minimumMealMinutes,
-    };
-    const key = JSON.stringify(ledger);
+    const key = ledgerSettingsKey(settings);
     const seen = this.seen;
     if (seen === null || key !== this.keptFor) {
       this.lines.clear();

@@ -215,7 +215,7 @@ describe(LabourService.name, () => {
       return id;
     };
     const clocked = () => labour.lineSeconds([lineId], now).get(lineId)!.total;
-    return { at, punch, clocked };
+    return { at, punch, clocked, technicianId };
   }
 
   // A break closes the jobs open at its start: 09:00–09:30 on the line, then nothing until the job-off.
@@ -231,6 +231,39 @@ describe(LabourService.name, () => {
     // The break was two days later: the job ran 09:00–11:00.
     punch('break-start', at(3, 9.5), breakStart);
     expect(clocked()).toBe(7200);
+  });
+
+  // Two lines on at once for two hours: the even split gives each an hour, the full one two.
+  it('counts a kept line again when the split rule changes', () => {
+    const { at, punch, clocked, technicianId } = shiftsOnALine();
+    const owner = { id: ownerId, name: 'Owner', role: 'owner' as const };
+    const { concurrentSplit, maxConcurrentJobs } = shop.settings();
+    try {
+      shop.update({ concurrentSplit: 'even', maxConcurrentJobs: 2 }, owner);
+      const otherLine = newLine(at(5, 0));
+      punch('shift-in', at(5, 8));
+      punch('job-on', at(5, 9));
+      db.insert(punches)
+        .values(
+          (['job-on', 'job-off'] as const).map((kind, i) => ({
+            id: randomUUID(),
+            technicianId,
+            kind,
+            jobLineId: otherLine,
+            at: at(5, 9 + 2 * i),
+            recordedAt: at(0, 0),
+            recordedBy: ownerId,
+          })),
+        )
+        .run();
+      punch('job-off', at(5, 11));
+      punch('shift-out', at(5, 12));
+      expect(clocked()).toBe(3600);
+      shop.update({ concurrentSplit: 'full' }, owner);
+      expect(clocked()).toBe(7200);
+    } finally {
+      shop.update({ concurrentSplit, maxConcurrentJobs }, owner);
+    }
   });
 
   it('keeps nothing it counted inside a transaction that was rolled back', () => {

@@ -3,6 +3,7 @@ import { and, asc, eq, gte, lt, min, or, isNull, ne, sql, type SQL } from 'drizz
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import {
   buildLedger,
+  ledgerSettingsKey,
   shareFlaggedHours,
   shopLabourKpis,
   workweekBounds,
@@ -10,7 +11,6 @@ import {
   type LabourHours,
   type Ledger,
   type LedgerPunch,
-  type LedgerSettings,
   type LedgerTotals,
   type ShopDay,
   type ShopSettings,
@@ -119,12 +119,12 @@ export function shopHoursOf(week: WeekFigures): LabourHours {
 
 /** The settings a week's figures depend on: where the week falls, and how a ledger counts. */
 function figuresSettingsKey(settings: ShopSettings): string {
-  const ledger: Record<keyof LedgerSettings, unknown> = {
-    concurrentSplit: settings.concurrentSplit,
-    maxConcurrentJobs: settings.maxConcurrentJobs,
-    minimumMealMinutes: settings.minimumMealMinutes,
-  };
-  return JSON.stringify([settings.timeZone, settings.workweekStartDay, settings.workweekStartHour, ledger]);
+  return JSON.stringify([
+    settings.timeZone,
+    settings.workweekStartDay,
+    settings.workweekStartHour,
+    ledgerSettingsKey(settings),
+  ]);
 }
 
 /** Values of weeks that are over, by week label; beyond `limit`, the least recently used go first. */

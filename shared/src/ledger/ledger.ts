@@ -17,6 +17,19 @@ export type LedgerSettings = Pick<
   'concurrentSplit' | 'maxConcurrentJobs' | 'minimumMealMinutes'
 >;
 
+/**
+ * The ledger settings alone, as one string: what is counted from a ledger and kept must be counted
+ * afresh when it changes. A new ledger setting fails to compile here until it is part of it.
+ */
+export function ledgerSettingsKey(settings: LedgerSettings): string {
+  const ledger: Record<keyof LedgerSettings, unknown> = {
+    concurrentSplit: settings.concurrentSplit,
+    maxConcurrentJobs: settings.maxConcurrentJobs,
+    minimumMealMinutes: settings.minimumMealMinutes,
+  };
+  return JSON.stringify(ledger);
+}
+
 export interface LedgerInterval {
   from: Date;
   to: Date;
