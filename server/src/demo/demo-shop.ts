@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import {
   makeVin,
@@ -40,6 +40,8 @@ const SHOP = {
   labourRateCents: 135_00,
   taxNote: 'Sales tax is added on the final invoice.',
 };
+/** The demo's repair orders are numbered on from here. */
+const FIRST_RO_NUMBER = 4400;
 export const DEMO_PASSWORD = 'baytime-demo';
 export const DEMO_PIN = '4321';
 
@@ -231,7 +233,7 @@ interface LinePlan {
 @Injectable()
 export class DemoShopSeeder {
   private readonly random = seededRandom(4417);
-  private roNumber = 4400;
+  private roNumber = FIRST_RO_NUMBER;
   private vehicleSerial = 100_000;
 
   constructor(@Inject(DB) private readonly db: Db) {}
@@ -292,7 +294,20 @@ export class DemoShopSeeder {
       const advisorId = office[2]!;
       this.seedPastWeek(now, techIds, bayIds, advisorId);
       this.seedToday(now, techIds, bayIds, advisorId);
+      this.numberInOrderWritten();
     });
+  }
+
+  /**
+   * A shop numbers its repair orders as it writes them. The days above are written technician by
+   * technician, so the numbers are given afterwards, in the order of the time each RO was written.
+   */
+  private numberInOrderWritten(): void {
+    this.db.run(sql`update ${repairOrders} set number = '-' || id`);
+    this.db.run(sql`
+      update ${repairOrders} set number = cast(${FIRST_RO_NUMBER} + written.place as integer)
+      from (select id, row_number() over (order by created_at, id) as place from ${repairOrders}) as written
+      where written.id = ${repairOrders}.id`);
   }
 
   /** The ten working days before today, so last week is complete in the reports: full shifts, a meal break, four jobs each, all done. */
