@@ -45,15 +45,14 @@ export class SignedInGuard implements CanActivate {
       return caller !== undefined && (!roles || roles.includes(caller.role));
     }
     const request = context.switchToHttp().getRequest<Request & KeyedRequest & { user: Principal }>();
-    const header = request.headers.authorization;
-    const bearer = header?.match(/^Bearer (\S+)$/)?.[1];
+    const bearer = tokenOf(request.headers.authorization);
     if (bearer?.startsWith(INTEGRATION_KEY_PREFIX)) {
       const scope = this.reflector.getAllAndOverride<IntegrationScope | undefined>(SCOPE_KEY, targets);
       request.user = await this.keys.admit(bearer, scope, { method: request.method, path: request.path });
       request.integrationKey = request.user.integrationKey;
       return true;
     }
-    const checked = this.auth.check(tokenOf(header));
+    const checked = this.auth.check(bearer);
     if (!('principal' in checked)) throw new UnauthorizedException();
     request.user = checked.principal;
     if (roles && !roles.includes(request.user.role)) throw new ForbiddenException(ROLE_REFUSAL);
