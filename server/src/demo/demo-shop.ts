@@ -203,6 +203,9 @@ export const DEMO_CONCERNS: Record<string, string> = {
   'Reseal oil pan': 'Oil spots on the driveway overnight',
 };
 
+/** What the customer said about a line of the demo: its own words, or the title of the work. */
+const concernOf = (title: string) => DEMO_CONCERNS[title] ?? title;
+
 /** A small seeded generator, so every demo database is the same. */
 function seededRandom(seed: number): () => number {
   let state = seed;
@@ -233,7 +236,7 @@ interface LinePlan {
 @Injectable()
 export class DemoShopSeeder {
   private readonly random = seededRandom(4417);
-  private roNumber = FIRST_RO_NUMBER;
+  private rosWritten = 0;
   private vehicleSerial = 100_000;
 
   constructor(@Inject(DB) private readonly db: Db) {}
@@ -303,7 +306,6 @@ export class DemoShopSeeder {
    * technician, so the numbers are given afterwards, in the order of the time each RO was written.
    */
   private numberInOrderWritten(): void {
-    this.db.run(sql`update ${repairOrders} set number = '-' || id`);
     this.db.run(sql`
       update ${repairOrders} set number = cast(${FIRST_RO_NUMBER} + written.place as integer)
       from (select id, row_number() over (order by created_at, id) as place from ${repairOrders}) as written
@@ -545,12 +547,13 @@ export class DemoShopSeeder {
     const ro = this.db
       .insert(repairOrders)
       .values({
-        number: String(++this.roNumber),
+        // Numbered once all are written (numberInOrderWritten).
+        number: `unnumbered ${++this.rosWritten}`,
         customerId: customer.id,
         vehicleId: vehicle.id,
         ...repairOrderSnapshot(customer, vehicle),
         advisorId,
-        concern: lines.map((line) => DEMO_CONCERNS[line.title] ?? line.title).join('; '),
+        concern: lines.map((line) => concernOf(line.title)).join('; '),
         odometer,
         status: closed
           ? 'closed'
@@ -570,7 +573,7 @@ export class DemoShopSeeder {
           .insert(jobLines)
           .values({
             ...line,
-            concern: DEMO_CONCERNS[line.title] ?? line.title,
+            concern: concernOf(line.title),
             ...(line.status === 'done' && {
               completedBy: line.technicianId ?? null,
               correction: `${line.title} done to the maker's procedure`,
