@@ -519,6 +519,8 @@ function Detail({
           <MessageBar intent="error">
             <MessageBarBody>{formErrorText(history.error)}</MessageBarBody>
           </MessageBar>
+        ) : history.data.length === 0 ? (
+          <Body1 className={styles.dim}>No changes since the RO was written.</Body1>
         ) : (
           <ul className={styles.history}>
             {[...history.data].reverse().map((entry, index) => (
