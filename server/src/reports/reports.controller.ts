@@ -10,7 +10,7 @@ export class ReportsController {
   @Roles('owner', 'foreman')
   @Scope('reports:read')
   @Get('labour')
-  labour(@Query({ schema: reportQuerySchema }) query: ReportQuery): LabourReport | StreamableFile {
+  labour(@Query({ schema: reportQuerySchema }) query: ReportQuery): Promise<LabourReport | StreamableFile> {
     return this.reports.labourAnswer(query);
   }
 

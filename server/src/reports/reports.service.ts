@@ -64,6 +64,12 @@ function present(row: LabourReportRow): LabourReportRow {
   };
 }
 
+/** The labour trend's weeks, oldest first, ending with `label`. */
+const trendWeeks = (label: string): string[] =>
+  Array.from({ length: LABOUR_TREND_WEEKS }, (_, i) =>
+    remember(`add|${label}|${i}`, () => addIsoWeeks(label, i + 1 - LABOUR_TREND_WEEKS)),
+  );
+
 /** The weekly labour report, the pay summary, a technician's week and the exceptions list. */
 @Injectable()
 export class ReportsService {
@@ -76,8 +82,18 @@ export class ReportsService {
     private readonly closedWeeks: ClosedWeeksService,
   ) {}
 
-  labourAnswer({ week, format }: ReportQuery): LabourReport | StreamableFile {
-    const report = this.labour(week);
+  /**
+   * The trend's past weeks that are not kept are counted first, one a turn of the event loop: after a start
+   * or a late punch they are weeks of punches, and the punches arriving meanwhile are answered between them.
+   */
+  async labourAnswer(
+    { week, format }: ReportQuery,
+    now = new Date(),
+  ): Promise<LabourReport | StreamableFile> {
+    const settings = this.shop.settings(now);
+    const label = week ?? workweekOf(now, settings);
+    await this.weeks.keepShopHoursInTurns(trendWeeks(label).slice(0, -1), settings, now);
+    const report = this.labour(label, now);
     return format === 'csv' ? labourCsv(report) : report;
   }
 
@@ -148,9 +164,7 @@ export class ReportsService {
   labour(week?: string, now = new Date()): LabourReport {
     const settings = this.shop.settings(now);
     const label = week ?? workweekOf(now, settings);
-    const labels = Array.from({ length: LABOUR_TREND_WEEKS }, (_, i) =>
-      remember(`add|${label}|${i}`, () => addIsoWeeks(label, i + 1 - LABOUR_TREND_WEEKS)),
-    );
+    const labels = trendWeeks(label);
     const current = this.weeks.figures([label], settings, now)[0]!;
     const trend = [...this.weeks.shopHours(labels.slice(0, -1), settings, now), shopHoursOf(current)];
     const people = this.technicians(current);

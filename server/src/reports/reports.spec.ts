@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, min } from 'drizzle-orm';
 import {
   addIsoWeeks,
+  LABOUR_TREND_WEEKS,
   shopLocalInstant,
   workweekBounds,
   workweekDays,
@@ -723,5 +724,31 @@ describe(ReportsService.name, () => {
       }),
     ).toThrow('Rolled back');
     expect(rowOf(await labour(`week=${past}`), jo)).toMatchObject({ attendanceHours: 4 });
+  });
+
+  it("counts a first report's trend weeks one turn of the event loop at a time", async () => {
+    const label = addIsoWeeks(week, -20);
+    const counted = addIsoWeeks(label, -3);
+    const [monday] = workweekDays(counted, shop).filter(isWeekday) as [ShopDay];
+    const kit = await technician('Kit Amberly', '5011', 20_00, 15_00);
+    await punch(kit, 'shift-in', at(monday, '08:00'));
+    await punch(kit, 'shift-out', at(monday, '12:00'));
+
+    let answered = false;
+    let turnsWhileCounting = 0;
+    const countTurns = () =>
+      setImmediate(() => {
+        if (answered) return;
+        turnsWhileCounting += 1;
+        countTurns();
+      });
+    countTurns();
+    const report = (await sut.app.get(ReportsService).labourAnswer({ week: label })) as LabourReport;
+    answered = true;
+
+    // None of the eleven past weeks was asked before: each is counted in a turn of its own.
+    expect(turnsWhileCounting).toBeGreaterThanOrEqual(LABOUR_TREND_WEEKS - 1);
+    expect(report.trend.find((row) => row.week === counted)).toMatchObject({ attendanceHours: 4 });
+    expect(report).toEqual(sut.app.get(ReportsService).labour(label));
   });
 });

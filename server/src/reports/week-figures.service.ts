@@ -1,3 +1,4 @@
+import { setImmediate } from 'node:timers/promises';
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, gte, lt, min, or, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
@@ -202,6 +203,19 @@ export class WeekFiguresService {
   /** The shop's hours of consecutive workweeks `labels` (oldest first), as `shopHoursOf`. */
   shopHours(labels: readonly string[], settings: ShopSettings, now: Date): LabourHours[] {
     return this.read(this.keptShopHours, true, labels, settings, now, shopHoursOf);
+  }
+
+  /**
+   * Computes and keeps the shop hours of the weeks `labels` that are not kept, one week a turn of the event
+   * loop, so that whatever waits (a punch, a socket) is served between the weeks rather than after them all.
+   */
+  async keepShopHoursInTurns(labels: readonly string[], settings: ShopSettings, now: Date): Promise<void> {
+    for (const label of labels) {
+      this.forgetChanged(settings);
+      if (this.keptShopHours.get(label, now) !== undefined) continue;
+      await setImmediate();
+      this.shopHours([label], settings, now);
+    }
   }
 
   /** The kept values of the weeks, the others computed together (the run from the first to the last missing). */
