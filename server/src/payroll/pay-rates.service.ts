@@ -1,5 +1,5 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
-import { desc, eq, inArray } from 'drizzle-orm';
+import { desc, inArray } from 'drizzle-orm';
 import { workweekDays, workweekOf, type DatedPayRate, type PayRate } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { payRates } from '../db/schema/index.js';
@@ -45,15 +45,18 @@ export class PayRatesService {
     private readonly shop: ShopService,
   ) {}
 
-  /** Every rate of the user, newest first. */
-  history(userId: number): DatedPayRate[] {
-    return this.db
+  /** Every rate of each user, newest first. */
+  histories(userIds: readonly number[]): Map<number, DatedPayRate[]> {
+    const result = new Map<number, DatedPayRate[]>(userIds.map((id) => [id, []]));
+    if (userIds.length === 0) return result;
+    for (const row of this.db
       .select()
       .from(payRates)
-      .where(eq(payRates.userId, userId))
+      .where(inArray(payRates.userId, [...userIds]))
       .orderBy(desc(payRates.effectiveFrom))
-      .all()
-      .map(toDated);
+      .all())
+      result.get(row.userId)!.push(toDated(row));
+    return result;
   }
 
   /** Each user's rate in force on `day`. */

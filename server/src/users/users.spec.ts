@@ -31,6 +31,24 @@ describe(UsersService.name, () => {
   });
   afterAll(() => sut.close());
 
+  it("lists each user with their own rates: today's, and every one on record, newest first", async () => {
+    const rates = { payType: 'flat-rate', pin: '2468', role: 'technician' };
+    const orla = await add({ ...rates, name: 'Orla Finch', badge: '2601', flatRateCents: 30_00 });
+    const pim = await add({ ...rates, name: 'Pim Garrow', badge: '2602', flatRateCents: 26_00 });
+    await patch(owner, orla.id, { flatRateCents: 34_00, effectiveFrom: '2099-01-05' }).expect(200);
+
+    const listed = (await sut.http().get('/api/users').auth(owner, { type: 'bearer' }).expect(200))
+      .body as UserDto[];
+    const [orlaListed, pimListed] = [orla.id, pim.id].map((id) => listed.find((user) => user.id === id)!);
+    expect(orlaListed).toMatchObject({ flatRateCents: 30_00 });
+    expect(orlaListed!.payRates.map((rate) => [rate.effectiveFrom, rate.flatRateCents])).toEqual([
+      ['2099-01-05', 34_00],
+      [orla.payRates[0]!.effectiveFrom, 30_00],
+    ]);
+    expect(pimListed).toMatchObject({ flatRateCents: 26_00 });
+    expect(pimListed!.payRates.map((rate) => rate.flatRateCents)).toEqual([26_00]);
+  });
+
   it('edits name, badge, skill level and the overtime rule, audited with what each was', async () => {
     const tech = await add({ name: 'Wren Hollis', role: 'technician', badge: '2201', pin: '2468' });
     const { body } = await patch(owner, tech.id, {
