@@ -52,6 +52,8 @@ describe('query plans', () => {
       await get('/api/reports/labour');
       const [ro] = (await get('/api/repair-orders?limit=1')).items;
       await get(`/api/vehicles?vin=${ro!.vin}`);
+      const technician = (await sut.badge('1044')).accessToken;
+      await sut.http().get('/api/me/day').auth(technician, { type: 'bearer' }).expect(200);
     });
   });
   afterAll(() => sut.close());
@@ -176,6 +178,12 @@ describe('query plans', () => {
       'SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)',
       ...firstJobOn,
     ]);
+  });
+
+  it('a technician’s lines done today are found by the time they were finished', () => {
+    expect(
+      planOf('lines done today', /"job_lines"\."completed_by" = \? or "job_lines"\."technician_id" = \?/),
+    ).toEqual(['SEARCH job_lines USING INDEX job_lines_completed_at_idx (completed_at>?)']);
   });
 
   it('a vehicle by its VIN, and its last visit', () => {

@@ -8,7 +8,7 @@ import {
 } from '@nestjs/common';
 import { setImmediate as nextTurn } from 'node:timers/promises';
 import { debounceTime, interval, merge, type Subscription } from 'rxjs';
-import { and, gte, isNull, ne, or, sql } from 'drizzle-orm';
+import { and, gte, isNull, ne, or } from 'drizzle-orm';
 import {
   forecastTechnicianQueue,
   isLineLate,
@@ -20,6 +20,7 @@ import {
 import { BoardService } from '../board/board.service.js';
 import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
+import { lineIsDone } from '../db/line-is-done.js';
 import { jobLines, storedEfficiencies } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
@@ -268,13 +269,12 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       return cached.values;
     const from = new Date(now.getTime() - FOUR_WEEKS_MS);
     yield;
-    // A `+` keeps SQLite off the index of status, which holds nearly every line as done.
     const done = this.db
       .select({ id: jobLines.id, bookHours: jobLines.bookHours, technicianId: jobLines.technicianId })
       .from(jobLines)
       .where(
         and(
-          sql`+${jobLines.status} = 'done'`,
+          lineIsDone,
           gte(jobLines.completedAt, from),
           // A line done without clocked time counts only once signed off (it once showed 2,819 %).
           or(isNull(jobLines.signOff), ne(jobLines.signOff, 'awaiting')),

@@ -3,6 +3,7 @@ import { and, count, eq, gte, inArray, or } from 'drizzle-orm';
 import { shopDayKey, shopLocalInstant, type MyDay, type TechnicianState } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
+import { lineIsDone } from '../db/line-is-done.js';
 import { jobLines } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -66,7 +67,7 @@ export class MyDayService {
         .where(
           and(
             gte(jobLines.completedAt, midnight),
-            eq(jobLines.status, 'done'),
+            lineIsDone,
             or(eq(jobLines.completedBy, technicianId), eq(jobLines.technicianId, technicianId)),
           ),
         )

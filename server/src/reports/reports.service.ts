@@ -27,6 +27,7 @@ import {
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
+import { lineIsDone } from '../db/line-is-done.js';
 import { bays, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ExceptionsService } from '../payroll/exceptions.service.js';
@@ -289,13 +290,7 @@ export class ReportsService {
         .all();
     const lines = [
       ...inBays(and(ne(jobLines.status, 'done'), sql`+${jobLines.bayId} is not null`)!),
-      ...inBays(
-        and(
-          sql`+${jobLines.status} = 'done'`,
-          gte(jobLines.completedAt, week.from),
-          isNotNull(jobLines.bayId),
-        )!,
-      ),
+      ...inBays(and(lineIsDone, gte(jobLines.completedAt, week.from), isNotNull(jobLines.bayId))!),
     ];
     const busy = new Map<number, [number, number][]>();
     for (const line of lines) {
