@@ -1,9 +1,11 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { readFileSync } from 'node:fs';
+import { setTimeout as delay } from 'node:timers/promises';
 import { dirname, join } from 'node:path';
 
 /** Linux reports process times in clock ticks of 1/100 s (`getconf CLK_TCK`). */
 const TICKS_PER_SECOND = 100;
+const QUIET_WINDOW_MS = 200;
 
 /**
  * `node server/dist/main.js` as its own process on the bench's database, so its CPU time and memory
@@ -80,6 +82,20 @@ export class ServerProcess {
     const fields = readFileSync(`/proc/${this.pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
     const ms = (ticks: string | undefined) => (Number(ticks) * 1000) / TICKS_PER_SECOND;
     return { user: ms(fields[11]), system: ms(fields[12]) };
+  }
+
+  /**
+   * Waits until the process uses under a tenth of a core over a fifth of a second (ticks of 10 ms make
+   * that the finest reading), so what follows is not measured against work left from before.
+   */
+  async quiet(timeoutMs = 10_000): Promise<void> {
+    const until = performance.now() + timeoutMs;
+    while (performance.now() < until) {
+      const before = this.cpuMs();
+      await delay(QUIET_WINDOW_MS);
+      if (this.cpuMs() - before < QUIET_WINDOW_MS / 10) return;
+    }
+    throw new Error(`the server stayed busy for ${timeoutMs} ms`);
   }
 
   /** Resident memory now (`VmRSS`) and at its peak (`VmHWM`), in MB. */
