@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { eq, min } from 'drizzle-orm';
 import {
   addIsoWeeks,
@@ -22,6 +22,7 @@ import { auditLog, punches, users } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
+import { WeekFiguresService } from './week-figures.service.js';
 
 /**
  * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
@@ -468,6 +469,44 @@ describe(ReportsService.name, () => {
     expect(row.lines).toEqual([
       expect.objectContaining({ jobLineId: job, flaggedHours: 0, overUnderHours: null }),
     ]);
+  });
+
+  it('counts the running week once for one instant, and again for a later one or after a punch', async () => {
+    const reports = sut.app.get(ReportsService);
+    const counted = vi.spyOn(
+      sut.app.get(WeekFiguresService) as never as { compute: () => unknown },
+      'compute',
+    );
+    const lou = await technician('Lou Brennick', '5012', 20_00, 15_00);
+    const now = new Date();
+    const running = workweekOf(now, shop);
+    const shiftIn = new Date(
+      Math.max(now.getTime() - 2 * 3600_000, workweekBounds(running, shop).from.getTime() + 1000),
+    );
+    await punch(lou, 'shift-in', shiftIn);
+    const hoursTo = (instant: Date) => (instant.getTime() - shiftIn.getTime()) / 3600_000;
+    counted.mockClear();
+
+    // A timecard reads its labour row and its pay row from the same running week.
+    const first = reports.technicianWeek(running, lou, 'owner', now);
+    expect(counted).toHaveBeenCalledTimes(1);
+    expect(first.pay!.hoursWorked).toBeCloseTo(hoursTo(now), 2);
+
+    const later = new Date(now.getTime() + 60_000);
+    expect(reports.technicianWeek(running, lou, 'owner', later).pay!.hoursWorked).toBeCloseTo(
+      hoursTo(later),
+      2,
+    );
+    expect(counted).toHaveBeenCalledTimes(2);
+
+    const shiftOut = new Date((shiftIn.getTime() + now.getTime()) / 2);
+    await punch(lou, 'shift-out', shiftOut);
+    expect(reports.technicianWeek(running, lou, 'owner', now).pay!.hoursWorked).toBeCloseTo(
+      hoursTo(shiftOut),
+      2,
+    );
+    expect(counted).toHaveBeenCalledTimes(3);
+    counted.mockRestore();
   });
 
   it("gives the demo shop's week of punches real figures for every technician", async () => {

@@ -27,8 +27,8 @@ import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 export const LOOKBACK_MS = 36 * 3600_000;
 export const HOUR_S = 3600;
 
-/** Past weeks whose full figures are kept: a report's week and a few around it. */
-const FIGURES_KEPT = 6;
+/** Weeks whose full figures are kept: a report's week and a few around it, and the running week. */
+const FIGURES_KEPT = 7;
 /** Past weeks whose shop hours are kept for the trend (about five years). */
 const SHOP_HOURS_KEPT = 260;
 
@@ -128,26 +128,31 @@ function figuresSettingsKey(settings: ShopSettings): string {
   ]);
 }
 
-/** Values of weeks that are over, by week label; beyond `limit`, the least recently used go first. */
+/**
+ * Values of weeks by week label; beyond `limit`, the least recently used go first. A week counted after its
+ * end keeps its value; one counted while it ran holds only for the instant it was counted at (its open
+ * shifts count up to that instant), so a request that reads the running week twice counts it once.
+ */
 class KeptWeeks<T> {
-  private readonly weeks = new Map<string, { to: number; value: T }>();
+  private readonly weeks = new Map<string, { to: number; countedAt: number; value: T }>();
 
   constructor(private readonly limit: number) {}
 
-  /** The week's value, when it is kept and the week is over by `now`. */
+  /** The week's value, when it was counted after the week and `now` is too, or it was counted at `now`. */
   get(label: string, now: Date): T | undefined {
     const kept = this.weeks.get(label);
-    if (!kept || kept.to > now.getTime()) return undefined;
+    if (!kept) return undefined;
+    const whole = kept.countedAt >= kept.to && now.getTime() >= kept.to;
+    if (!whole && kept.countedAt !== now.getTime()) return undefined;
     this.weeks.delete(label);
     this.weeks.set(label, kept);
     return kept.value;
   }
 
-  /** Keeps the value of a week that is over by `now`; a running week's is not kept. */
+  /** Keeps the value of a week counted at `now`. */
   keep(week: Pick<WeekFigures, 'week' | 'to'>, now: Date, value: T): void {
-    if (week.to > now) return;
     this.weeks.delete(week.week);
-    this.weeks.set(week.week, { to: week.to.getTime(), value });
+    this.weeks.set(week.week, { to: week.to.getTime(), countedAt: now.getTime(), value });
     if (this.weeks.size > this.limit) this.weeks.delete(this.weeks.keys().next().value!);
   }
 
@@ -179,7 +184,8 @@ export const daysOf = (label: string, settings: ShopSettings): ShopDay[] =>
  * indexed `at` column, with a lookback for shifts open at the start), and each workweek is computed from its
  * own slice of them, so the cost follows the weeks asked, not the length of the history. The figures of a
  * week that is over are kept until a change reaches back into it (`WeekChanges`) or a setting they depend
- * on changes: a late punch, a correction, a line finished, edited or reopened in it or before it.
+ * on changes: a late punch, a correction, a line finished, edited or reopened in it or before it. The running
+ * week's are kept for the instant they were counted at, until any change.
  */
 @Injectable()
 export class WeekFiguresService {
