@@ -29,6 +29,15 @@ import { usePrinting } from '../hooks/use-printing';
 /** Sizes that fit a portrait A4 or Letter page with 12 mm margins (about 700 CSS px across). */
 const PRINT = { small: { width: 224, height: 190 }, trend: { width: 680, height: 230 } };
 const SCREEN_HEIGHT = { small: 230, trend: 260 };
+/**
+ * Beyond this many bars (technicians and the shop) upright bars grow too thin for their names and
+ * figures, so each technician gets a row instead: a shop of forty still reads name by name.
+ */
+const UPRIGHT_MAX_BARS = 10;
+/** Height of one technician's row in a sideways chart, and what its axis and margins add. */
+const ROW_HEIGHT = { screen: 22, print: 13 };
+const SIDEWAYS_EXTRA_HEIGHT = 34;
+const NAME_AXIS_WIDTH = 96;
 
 /** Distinct line styles as well as colours, so the trend reads in greyscale and for colour-blind eyes. */
 const TREND_LOOK: Record<KpiName, { stroke: string; dash?: string }> = {
@@ -75,9 +84,30 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
   );
   const bars = drawnBars(ratios, max);
   const cut = bars.filter((bar) => bar.cut);
+  const sideways = bars.length > UPRIGHT_MAX_BARS;
+  const height = sideways
+    ? bars.length * (printing ? ROW_HEIGHT.print : ROW_HEIGHT.screen) + SIDEWAYS_EXTRA_HEIGHT
+    : printing
+      ? PRINT.small.height
+      : SCREEN_HEIGHT.small;
   const size = printing
-    ? { width: PRINT.small.width, height: PRINT.small.height }
-    : { responsive: true, style: { width: '100%', height: SCREEN_HEIGHT.small } };
+    ? { width: PRINT.small.width, height }
+    : { responsive: true, style: { width: '100%', height } };
+  const percentAxis = {
+    type: 'number' as const,
+    domain: [0, max],
+    ticks: percentTicks(max),
+    tickFormatter: percentTick,
+    tick: axisTick,
+  };
+  const nameAxis = {
+    type: 'category' as const,
+    dataKey: 'name',
+    tick: axisTick,
+    interval: 0,
+    tickLine: false,
+  };
+  const onPercentAxis = (value: number) => (sideways ? { x: value } : { y: value });
   const summary = bars
     .map((bar) => `${bar.name} ${bar.value === null ? 'no time' : `${bar.value}%`}`)
     .join(', ');
@@ -96,29 +126,27 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
         <BarChart
           {...size}
           data={bars}
-          margin={{ top: 18, right: 8, bottom: 0, left: -14 }}
+          layout={sideways ? 'vertical' : 'horizontal'}
+          margin={
+            sideways ? { top: 4, right: 40, bottom: 0, left: 0 } : { top: 18, right: 8, bottom: 0, left: -14 }
+          }
           accessibilityLayer={false}
         >
-          <CartesianGrid vertical={false} stroke={tokens.colorNeutralStroke2} />
-          <XAxis
-            dataKey="name"
-            tick={axisTick}
-            interval={0}
-            tickLine={false}
-            height={38}
-            angle={-25}
-            textAnchor="end"
-          />
-          <YAxis
-            domain={[0, max]}
-            ticks={percentTicks(max)}
-            tickFormatter={percentTick}
-            tick={axisTick}
-            width={52}
-          />
+          <CartesianGrid vertical={sideways} horizontal={!sideways} stroke={tokens.colorNeutralStroke2} />
+          {sideways ? (
+            <>
+              <XAxis {...percentAxis} />
+              <YAxis {...nameAxis} width={NAME_AXIS_WIDTH} />
+            </>
+          ) : (
+            <>
+              <XAxis {...nameAxis} height={38} angle={-25} textAnchor="end" />
+              <YAxis {...percentAxis} width={52} />
+            </>
+          )}
           {guide.low === guide.high ? (
             <ReferenceLine
-              y={guide.low * 100}
+              {...onPercentAxis(guide.low * 100)}
               stroke={tokens.colorNeutralForeground1}
               strokeDasharray="5 3"
               strokeWidth={1.5}
@@ -126,8 +154,9 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
             />
           ) : (
             <ReferenceArea
-              y1={guide.low * 100}
-              y2={guide.high * 100}
+              {...(sideways
+                ? { x1: guide.low * 100, x2: guide.high * 100 }
+                : { y1: guide.low * 100, y2: guide.high * 100 })}
               fill={tokens.colorNeutralForeground1}
               fillOpacity={0.18}
               stroke={tokens.colorNeutralForeground1}
@@ -157,7 +186,7 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
             ))}
             <LabelList
               dataKey="value"
-              position="top"
+              position={sideways ? 'right' : 'top'}
               fill={tokens.colorNeutralForeground1}
               fontSize={11}
               formatter={(value) =>
