@@ -3,6 +3,7 @@ import type { BoardPerson } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
 import { formatSpan } from '../board-time';
 import { packPages, personChips, type PersonChip, type QueueSummary } from '../people-pages';
+import { PageMarks } from './page-marks';
 import styles from './wall.module.css';
 
 export interface PeopleStripProps {
@@ -61,16 +62,12 @@ export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
           shown.map((chip) => <Chip key={chip.id} chip={chip} />)
         )}
       </div>
-      {pages.length > 1 && (
-        <div className={styles.stripPages} aria-hidden="true">
-          {pages.map((_, index) => (
-            <span
-              key={index}
-              className={`${styles.pageDot} ${index === turn % pages.length ? styles.pageDotOn : ''}`}
-            />
-          ))}
-        </div>
-      )}
+      <PageMarks
+        page={pages.length ? turn % pages.length : 0}
+        pages={pages.length}
+        announced={false}
+        className={styles.stripPages}
+      />
     </footer>
   );
 }

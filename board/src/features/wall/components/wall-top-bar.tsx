@@ -3,6 +3,7 @@ import type { LinkStatus } from '../live-board';
 import { CONNECTION_WORDS, LINK_STATUS_CONNECTION, offlineSinceWords } from '@baytime/shared';
 import { clockFace } from '@/lib/shop-clock';
 import { formatTimeOfDay } from '../board-time';
+import { PageMarks } from './page-marks';
 import styles from './wall.module.css';
 
 /** A link down for longer than this is worth telling the whole shop about. */
@@ -52,16 +53,7 @@ export function WallTopBar(props: WallTopBarProps) {
       ) : (
         <div className={styles.shopName}>{shopName}</div>
       )}
-      {pages > 1 && (
-        <div className={styles.pageDots} aria-label={`Page ${page + 1} of ${pages}`}>
-          {Array.from({ length: pages }, (_, index) => (
-            <span key={index} className={`${styles.pageDot} ${index === page ? styles.pageDotOn : ''}`} />
-          ))}
-          <span>
-            {page + 1}/{pages}
-          </span>
-        </div>
-      )}
+      <PageMarks page={page} pages={pages} announced />
       {!lost && (
         <div className={styles.live}>
           <span className={`${styles.liveDot} ${link === 'live' ? '' : styles.liveDotDown}`} />
