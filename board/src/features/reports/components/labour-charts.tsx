@@ -107,7 +107,6 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
     interval: 0,
     tickLine: false,
   };
-  const onPercentAxis = (value: number) => (sideways ? { x: value } : { y: value });
   const summary = bars
     .map((bar) => `${bar.name} ${bar.value === null ? 'no time' : `${bar.value}%`}`)
     .join(', ');
@@ -146,7 +145,7 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
           )}
           {guide.low === guide.high ? (
             <ReferenceLine
-              {...onPercentAxis(guide.low * 100)}
+              {...(sideways ? { x: guide.low * 100 } : { y: guide.low * 100 })}
               stroke={tokens.colorNeutralForeground1}
               strokeDasharray="5 3"
               strokeWidth={1.5}
