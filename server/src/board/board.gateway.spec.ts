@@ -1,3 +1,5 @@
+import type { Socket as TcpSocket } from 'node:net';
+import type { Server } from 'socket.io';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { JwtService } from '@nestjs/jwt';
 import type { BoardSnapshot, DispatchBoard, LiveRefusal } from '@baytime/shared';
@@ -155,6 +157,38 @@ describe(BoardGateway.name, () => {
     // A kiosk the line never concerned hears nothing of it.
     await sut.http().get('/api/health').expect(200);
     expect(heard[3]).toEqual([]);
+  });
+
+  it("writes one change's messages to a board in one write", async () => {
+    const jo = await sut.badge('1045');
+    const board = sut.connect(owner);
+    await nextEvent(board, 'board.snapshot');
+    // The board's connection as the server holds it, down to its TCP socket.
+    const io = (sut.app.get(BoardGateway) as unknown as { server: Server }).server;
+    const engine = io.sockets.sockets.get(board.id!)!.conn as unknown as {
+      transport: { socket: { _socket: TcpSocket } };
+    };
+    const tcp = engine.transport.socket._socket;
+    const writes: number[] = [];
+    const spy = (method: '_write' | '_writev') => {
+      const original = tcp[method] as (...args: unknown[]) => void;
+      tcp[method] = ((...args: unknown[]) => {
+        writes.push(method === '_writev' ? (args[0] as unknown[]).length : 1);
+        original.apply(tcp, args);
+      }) as never;
+    };
+    spy('_write');
+    spy('_writev');
+    const messages: string[] = [];
+    board.onAny((event: string) => messages.push(event));
+    const shown = nextEvent(board, 'floor.updated', ({ people }) =>
+      people.some((person) => person.id === jo.user.id && person.status === 'on-break'),
+    );
+    await sut.punch(jo.accessToken, { kind: 'break-start', breakKind: 'rest' }).expect(201);
+    await shown;
+    // The punch and the floor it changed: two frames (a header and a body each), one system call.
+    expect(messages).toEqual(['punch.recorded', 'floor.updated']);
+    expect(writes).toEqual([4]);
   });
 
   it("closes a deactivated technician's socket, and leaves others connected", async () => {

@@ -14,6 +14,7 @@ import { LiveService, type SessionsEnded } from '../live/live.service.js';
 import { RequestBudget } from '../live/request-budget.js';
 import { ScreensService } from '../screens/screens.service.js';
 import { BoardService } from './board.service.js';
+import { TickWrites } from './tick-writes.js';
 
 interface SocketData {
   principal: Principal;
@@ -56,6 +57,7 @@ export class BoardGateway implements OnGatewayInit, OnModuleDestroy {
   private expirySweep: NodeJS.Timeout | undefined;
   /** Sockets that still wait for their first snapshot, by socket id. */
   private readonly awaitingSnapshot = new Set<string>();
+  private readonly tickWrites = new TickWrites();
 
   constructor(
     private readonly auth: AuthService,
@@ -84,6 +86,7 @@ export class BoardGateway implements OnGatewayInit, OnModuleDestroy {
           audience.to === 'everyone'
             ? [SHOP_ROOM]
             : [...FLOOR_ROOMS, ...(audience.technicianIds ?? []).map((id) => `user:${id}`)];
+        this.tickWrites.hold(this.server, rooms);
         (this.server.to(rooms).emit as (event: string, payload: unknown) => boolean)(event, payload);
       }),
       this.live.sessionsEnded$.subscribe(({ holder, reason }) => {

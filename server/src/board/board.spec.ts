@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../test-support/test-app.js';
 import { BoardService } from './board.service.js';
@@ -21,12 +20,7 @@ describe(BoardService.name, () => {
     expect(board.current(at + 1)).toBe(before);
     expect(status(at + 1)).toBe('idle');
 
-    await sut
-      .http()
-      .post('/api/punches')
-      .auth(jo.accessToken, { type: 'bearer' })
-      .send({ id: randomUUID(), kind: 'break-start', breakKind: 'rest' })
-      .expect(201);
+    await sut.punch(jo.accessToken, { kind: 'break-start', breakKind: 'rest' }).expect(201);
     expect(board.current(at + 2).seq).toBeGreaterThan(before.seq);
     expect(status(at + 2)).toBe('on-break');
   });
@@ -37,10 +31,7 @@ describe(BoardService.name, () => {
     const sam = await sut.badge('1046');
     const punch = async (kind: 'break-start' | 'break-end') => {
       const response = await sut
-        .http()
-        .post('/api/punches')
-        .auth(sam.accessToken, { type: 'bearer' })
-        .send({ id: randomUUID(), kind, ...(kind === 'break-start' ? { breakKind: 'rest' } : {}) })
+        .punch(sam.accessToken, { kind, ...(kind === 'break-start' ? { breakKind: 'rest' } : {}) })
         .expect(201);
       return (response.body as { at: string }).at;
     };

@@ -1,4 +1,5 @@
 import type { INestApplication } from '@nestjs/common';
+import { randomUUID } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -18,6 +19,8 @@ export interface TestApp {
   http: () => ReturnType<typeof request>;
   signIn: (email: string) => Promise<string>;
   badge: (badge: string) => Promise<SignInAnswer>;
+  /** Posts a punch with a fresh id as the technician whose token it is; the test expects the answer. */
+  punch: (token: string, body: Record<string, unknown>) => request.Test;
   connect: (token: string) => LiveClient;
   close: () => Promise<void>;
 }
@@ -55,6 +58,11 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
       const response = await http().post('/api/auth/badge').send({ badge, pin: DEMO_PIN }).expect(200);
       return response.body as SignInAnswer;
     },
+    punch: (token, body) =>
+      http()
+        .post('/api/punches')
+        .auth(token, { type: 'bearer' })
+        .send({ id: randomUUID(), ...body }),
     connect: (token) => {
       const socket: LiveClient = io(url, { auth: { token }, transports: ['websocket'], reconnection: false });
       sockets.push(socket);
