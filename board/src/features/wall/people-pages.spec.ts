@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { BoardPerson } from '@baytime/shared';
-import { packPages, personChips, queueSummary } from './people-pages';
+import { packPages, peopleLayout, personChips, queueSummary, shiftCounts } from './people-pages';
+import { defaultGridArea, unitPx } from './wall-layout';
 
 const now = Date.parse('2026-03-02T15:00:00Z');
 const person = (
@@ -60,5 +61,49 @@ describe(packPages.name, () => {
     expect(packPages([40, 40, 40, 90, 10], 100, 5)).toEqual([[0, 1], [2], [3], [4]]);
     expect(packPages([30, 30, 30], 100, 5)).toEqual([[0, 1, 2]]);
     expect(packPages([], 100, 5)).toEqual([]);
+  });
+});
+
+describe(peopleLayout.name, () => {
+  const fullHd = { width: 1920, height: 1080 };
+  const area = defaultGridArea(fullHd);
+  /** Cap height in CSS px of body text at a scale: Barlow's caps are 0.7 em, body text is 7.4 units. */
+  const capsPx = (scale: number) => 7.4 * scale * 0.7 * unitPx(fullHd);
+
+  it('puts a dozen people on one page at full size', () => {
+    expect(peopleLayout(12, area)).toEqual({ columns: 2, rows: 6, perPage: 12, pages: 1, scale: 1 });
+  });
+
+  it('puts 27 people on one page at the smallest legible size', () => {
+    const layout = peopleLayout(27, area);
+    expect(layout).toMatchObject({ columns: 3, rows: 9, perPage: 27, pages: 1 });
+    // DISPLAY.md: text on the wall never below 44 px caps at 1080p (16 arcminutes at 6 m).
+    expect(capsPx(layout.scale)).toBeGreaterThanOrEqual(44);
+  });
+
+  it('balances 40 people over two pages of 20, in columns of 7, 7 and 6', () => {
+    expect(peopleLayout(40, area)).toMatchObject({ columns: 3, rows: 7, perPage: 20, pages: 2 });
+  });
+
+  it('has a place for everyone on every page, whatever the count', () => {
+    for (let count = 0; count <= 150; count++) {
+      const { columns, rows, perPage, pages } = peopleLayout(count, area);
+      expect(pages * perPage).toBeGreaterThanOrEqual(count);
+      expect(columns * rows).toBeGreaterThanOrEqual(perPage);
+    }
+  });
+});
+
+describe(shiftCounts.name, () => {
+  it('counts the people on shift by what they are doing, leaving out what nobody does', () => {
+    expect(
+      shiftCounts([
+        person(1, 'on-job', '2026-03-02T14:00:00Z', 'Bay 2'),
+        person(2, 'idle', '2026-03-02T14:50:00Z'),
+        person(3, 'on-job', '2026-03-02T14:55:00Z', 'Bay 3'),
+      ]),
+    ).toBe('3 on shift: 1 idle, 2 on jobs');
+    expect(shiftCounts([person(1, 'on-break', '2026-03-02T14:00:00Z')])).toBe('1 on shift: 1 on a break');
+    expect(shiftCounts([])).toBe('0 on shift');
   });
 });

@@ -1,6 +1,7 @@
 import type { BoardPerson, BoardQueueItem } from '@baytime/shared';
 import { secondsSince } from './server-clock';
 import { formatSpan } from './board-time';
+import { MIN_TILE_SCALE, WALL_METRICS, type GridArea } from './wall-layout';
 
 export interface PersonChip {
   id: number;
@@ -62,4 +63,55 @@ export function packPages(widths: readonly number[], available: number, gap: num
   });
   if (current.length) pages.push(current);
   return pages;
+}
+
+/** Strip pages beyond which the people also get pages of their own among the bays' pages. */
+export const MOST_STRIP_PAGES = 2;
+
+/**
+ * A person's row on a page of people, in board units at full text size: body text with room around
+ * it, and a short name, a glyph and a bay or an idle time side by side.
+ */
+export const PERSON_ROW_UNITS = { height: 9.4, width: 60 } as const;
+
+export interface PeopleLayout {
+  columns: number;
+  rows: number;
+  perPage: number;
+  pages: number;
+  /** Share of the full text sizes, MIN_TILE_SCALE to 1, as on the tiles. */
+  scale: number;
+}
+
+/**
+ * Pages of people, filled column by column under a heading row: full-size text while everyone fits on
+ * one page, else text at the tiles' smallest legible size, and as many pages as that still needs.
+ */
+export function peopleLayout(count: number, area: GridArea): PeopleLayout {
+  const fit = (scale: number) => {
+    const rows = Math.max(1, Math.floor(area.height / (PERSON_ROW_UNITS.height * scale)) - 1);
+    const columns = Math.max(
+      1,
+      Math.floor((area.width + WALL_METRICS.gap) / (PERSON_ROW_UNITS.width * scale + WALL_METRICS.gap)),
+    );
+    return { rows, columns, scale };
+  };
+  const full = fit(1);
+  const chosen = count <= full.rows * full.columns ? full : fit(MIN_TILE_SCALE);
+  const pages = Math.max(1, Math.ceil(count / (chosen.rows * chosen.columns)));
+  const perPage = Math.max(1, Math.ceil(count / pages));
+  // Balanced columns: twenty people in three columns are 7, 7 and 6 deep, not 9, 9 and 2.
+  return { ...chosen, rows: Math.min(chosen.rows, Math.ceil(perPage / chosen.columns)), perPage, pages };
+}
+
+/** "27 on shift: 8 idle, 4 on a break, 15 on jobs", the heading of a page of people. */
+export function shiftCounts(people: readonly BoardPerson[]): string {
+  const count = (status: BoardPerson['status']) => people.filter((person) => person.status === status).length;
+  const parts = [
+    [count('idle'), 'idle'],
+    [count('on-break'), 'on a break'],
+    [count('on-job'), count('on-job') === 1 ? 'on a job' : 'on jobs'],
+  ] as const;
+  const told = parts.filter(([n]) => n > 0).map(([n, words]) => `${n} ${words}`);
+  return `${people.length} on shift${told.length ? `: ${told.join(', ')}` : ''}`;
 }

@@ -13,6 +13,8 @@ export interface PeopleStripProps {
   turn: number;
   /** Lines waiting for a technician; null while the link is lost and the count may be stale. */
   queue: QueueSummary | null;
+  /** Told how many turns the strip needs to show everyone, whenever that changes. */
+  onPageCount?: (pages: number) => void;
 }
 
 const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
@@ -21,7 +23,7 @@ const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
   'on-job': 'wrench',
 };
 
-export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
+export function PeopleStrip({ people, nowMs, turn, queue, onPageCount }: PeopleStripProps) {
   const chips = personChips(people, nowMs);
   const measureRef = useRef<HTMLDivElement>(null);
   const boxRef = useRef<HTMLDivElement>(null);
@@ -36,13 +38,15 @@ export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
       if (!box || !row) return;
       const widths = Array.from(row.children, (child) => (child as HTMLElement).offsetWidth);
       const gap = parseFloat(getComputedStyle(row).columnGap) || 0;
-      setPages(packPages(widths, box.clientWidth, gap));
+      const packed = packPages(widths, box.clientWidth, gap);
+      setPages(packed);
+      onPageCount?.(packed.length);
     };
     measure();
     const observer = new ResizeObserver(measure);
     if (boxRef.current) observer.observe(boxRef.current);
     return () => observer.disconnect();
-  }, [shape]);
+  }, [shape, onPageCount]);
 
   const page = pages.length ? pages[turn % pages.length] : undefined;
   const shown = page ? page.map((index) => chips[index]).filter((chip) => chip !== undefined) : chips;
@@ -53,13 +57,13 @@ export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
       <div className={styles.chips} ref={boxRef}>
         <div className={styles.chipsMeasure} ref={measureRef} aria-hidden="true">
           {chips.map((chip) => (
-            <Chip key={chip.id} chip={chip} />
+            <PersonChipView key={chip.id} chip={chip} />
           ))}
         </div>
         {chips.length === 0 ? (
           <div className={styles.chip}>Nobody on shift</div>
         ) : (
-          shown.map((chip) => <Chip key={chip.id} chip={chip} />)
+          shown.map((chip) => <PersonChipView key={chip.id} chip={chip} />)
         )}
       </div>
       <PageMarks
@@ -72,9 +76,9 @@ export function PeopleStrip({ people, nowMs, turn, queue }: PeopleStripProps) {
   );
 }
 
-function Chip({ chip }: { chip: PersonChip }) {
+export function PersonChipView({ chip, className }: { chip: PersonChip; className?: string }) {
   return (
-    <div className={`${styles.chip} ${chip.status === 'idle' ? styles.chipIdle : ''}`}>
+    <div className={`${styles.chip} ${chip.status === 'idle' ? styles.chipIdle : ''} ${className ?? ''}`}>
       <Glyph name={GLYPHS[chip.status]} className={styles.glyph} />
       <span className={styles.chipName}>{chip.name}</span>
       <span className={styles.chipDetail}>{chip.detail}</span>

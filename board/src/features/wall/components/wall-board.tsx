@@ -8,9 +8,18 @@ import { useNow } from '../hooks/use-now';
 import { kioskQueueText } from '../kiosk-queue';
 import { serverNow } from '../server-clock';
 import { formatTimeOfDay } from '../board-time';
-import { pageAt, pageItems, unitPx, wallLayout, type GridArea, type Viewport } from '../wall-layout';
-import { queueSummary } from '../people-pages';
+import {
+  defaultGridArea,
+  pageAt,
+  pageItems,
+  unitPx,
+  wallLayout,
+  type GridArea,
+  type Viewport,
+} from '../wall-layout';
+import { MOST_STRIP_PAGES, peopleLayout, queueSummary } from '../people-pages';
 import { BayTile } from './bay-tile';
+import { PeopleBoard } from './people-board';
 import { PeopleStrip } from './people-strip';
 import { LINK_LOST_AFTER_MS, linkLost, WallTopBar } from './wall-top-bar';
 import styles from './wall.module.css';
@@ -61,6 +70,7 @@ export function WallBoard({ token }: { token: string }) {
   const localNow = useNow();
   const viewport = useViewport();
   const [gridArea, gridRef] = useGridArea(viewport);
+  const [stripPages, setStripPages] = useState(1);
 
   if (refusal)
     return (
@@ -96,7 +106,13 @@ export function WallBoard({ token }: { token: string }) {
   const { snapshot, clock, bayAsOf } = board;
   const now = serverNow(clock, localNow);
   const layout = wallLayout(snapshot.bays.length, viewport, gridArea);
-  const page = pageAt(layout.pages, now, PAGE_MS);
+  // People the strip would take many turns to show also get pages of their own, after the bays'.
+  const people =
+    stripPages > MOST_STRIP_PAGES
+      ? peopleLayout(snapshot.people.length, gridArea ?? defaultGridArea(viewport))
+      : null;
+  const pages = layout.pages + (people?.pages ?? 0);
+  const page = pageAt(pages, now, PAGE_MS);
   const bays = pageItems(snapshot.bays, layout, page);
   const turn = Math.floor(now / TURN_MS);
   const lost = linkLost(link, downSince, localNow);
@@ -112,10 +128,18 @@ export function WallBoard({ token }: { token: string }) {
         downSince={downSince}
         offsetMs={clock.offsetMs}
         page={page}
-        pages={layout.pages}
+        pages={pages}
         kioskNote={kioskQueueText(snapshot.kioskQueues, snapshot.shop.timeZone)}
       />
-      {snapshot.bays.length === 0 ? (
+      {people && page >= layout.pages ? (
+        <PeopleBoard
+          people={snapshot.people}
+          nowMs={now}
+          layout={people}
+          page={page - layout.pages}
+          areaRef={gridRef}
+        />
+      ) : snapshot.bays.length === 0 ? (
         <div className={styles.message} style={{ gridRow: 'auto' }}>
           <div className={styles.messageTitle}>No bays yet</div>
           <div className={styles.messageBody}>Add bays in the office under Admin, Bays.</div>
@@ -152,6 +176,7 @@ export function WallBoard({ token }: { token: string }) {
         nowMs={now}
         turn={turn}
         queue={lost ? null : queueSummary(snapshot.queue, now, snapshot.lateLines)}
+        onPageCount={setStripPages}
       />
     </main>
   );
