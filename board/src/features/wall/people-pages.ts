@@ -65,8 +65,12 @@ export function packPages(widths: readonly number[], available: number, gap: num
   return pages;
 }
 
-/** Strip pages beyond which the people also get pages of their own among the bays' pages. */
-export const MOST_STRIP_PAGES = 2;
+/**
+ * Turns of the strip (five seconds each) beyond which the people also get pages of their own among the
+ * bays' pages. A small shop's strip may take half a minute to show everyone, and keeps its bays on the
+ * screen all the time; a big shop's would take minutes.
+ */
+export const MOST_STRIP_PAGES = 6;
 
 /**
  * A person's row on a page of people, in board units at full text size: body text with room around

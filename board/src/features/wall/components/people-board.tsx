@@ -16,7 +16,7 @@ export interface PeopleBoardProps {
 
 /**
  * Everyone on shift on a page of their own, among the bays' pages, once the strip would need more than
- * a couple of turns to show them all: idle people first, down the columns.
+ * six turns to show them all: idle people first, down the columns.
  */
 export function PeopleBoard({ people, nowMs, layout, page, areaRef }: PeopleBoardProps) {
   const chips = personChips(people, nowMs);
