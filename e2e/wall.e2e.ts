@@ -3,8 +3,8 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BAY_STATE_WORDS, type BoardSnapshot, type UserDto } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
-import { apiAs, bayTile, openWall, peopleStrip, type Api } from './support/floor.js';
-import { startServer, type RunningServer } from './support/server.js';
+import { apiAs, bayTile, openWall, peopleStrip, technicianDay, type Api } from './support/floor.js';
+import { pairingCode, startServer, type RunningServer } from './support/server.js';
 
 /**
  * DISPLAY.md: body text cap height ≥ 55 px at 1080p, never below 44 px, scaled with the viewport
@@ -99,5 +99,64 @@ describe('wall board', () => {
     expect(await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded)).toBe(
       true,
     );
+  });
+
+  it('gives forty people on shift pages of their own among the bays, everyone at legible size', async () => {
+    // Whoever of the demo's six is on shift, and as many more as make forty, each shifted in as at a kiosk.
+    const firsts = ['Arlo', 'Bette', 'Cass', 'Dov', 'Edda', 'Fenn', 'Greer', 'Hale', 'Ines', 'Jory', 'Kit'];
+    const shiftIn = async (n: number) => {
+      const badge = String(3000 + n);
+      await owner('POST', '/users', {
+        name: `${firsts[n % firsts.length]} Wendle${String.fromCharCode(64 + n)}`,
+        role: 'technician',
+        badge,
+        pin: '4321',
+      });
+      const { token } = await technicianDay(server, badge);
+      const punch = await fetch(`${server.url}/api/punches`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', authorization: `Bearer ${token}` },
+        body: JSON.stringify({ id: randomUUID(), kind: 'shift-in' }),
+      });
+      expect(punch.status).toBe(201);
+    };
+    const already = (await owner<BoardSnapshot>('GET', '/board')).people.length;
+    await Promise.all(Array.from({ length: 40 - already }, (_, i) => shiftIn(i + 1)));
+    const onShift = (await owner<BoardSnapshot>('GET', '/board')).people.length;
+    expect(onShift).toBe(40);
+
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    // The wall turns a page every 15 s of its clock: the test moves the clock instead of waiting.
+    await page.clock.install();
+    // Bay 1 is not on the screen while a people's page is: wait for the board, whichever page it shows.
+    await page.goto(`${server.url}/wall?code=${await pairingCode(server)}`);
+    await page.locator('main[aria-label$=" board"]').waitFor({ timeout: 50_000 });
+    const pages = Number(
+      (await page.getByLabel(/^Page \d+ of/).getAttribute('aria-label'))!.split(' of ')[1],
+    );
+    const people = page.locator('section[aria-label="People on shift"]');
+    const seen = new Set<string>();
+    for (let turn = 0; turn < pages; turn++) {
+      if (await people.isVisible()) {
+        expect(await people.locator('h2').textContent()).toMatch(new RegExp(`^${onShift} on shift`));
+        for (const name of await people.locator('[class*="chipName"]').allTextContents()) seen.add(name);
+        const smallest = await people.evaluate((section) =>
+          Math.min(
+            ...[...section.querySelectorAll('span, h2')].map((node) =>
+              parseFloat(getComputedStyle(node).fontSize),
+            ),
+          ),
+        );
+        expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(MIN_CAP_AT_1080P - 0.5);
+        await page.screenshot({ path: screenshotPath(`wall-people-page-${turn}`) });
+      }
+      await page.clock.fastForward(15_000);
+      await page.waitForTimeout(300);
+    }
+    // Every short name on shift showed on one of the people's pages (some short names repeat).
+    const names = new Set((await owner<BoardSnapshot>('GET', '/board')).people.map((person) => person.name));
+    expect(seen).toEqual(names);
+    await page.close();
   });
 });
