@@ -132,12 +132,19 @@ describe('wall board', () => {
     // Bay 1 is not on the screen while a people's page is: wait for the board, whichever page it shows.
     await page.goto(`${server.url}/wall?code=${await pairingCode(server)}`);
     await page.locator('main[aria-label$=" board"]').waitFor({ timeout: 50_000 });
-    const pages = Number(
-      (await page.getByLabel(/^Page \d+ of/).getAttribute('aria-label'))!.split(' of ')[1],
-    );
+    // Once the strip has counted its turns, the people's pages are among the pages.
+    await expect.poll(() => peopleStrip(page).textContent()).toMatch(/\d+\/\d+/);
+    const pageMark = page.getByLabel(/^Page \d+ of/);
+    const [first, pages] = (await pageMark.getAttribute('aria-label'))!.match(/\d+/g)!.map(Number) as [
+      number,
+      number,
+    ];
     const people = page.locator('section[aria-label="People on shift"]');
     const seen = new Set<string>();
     for (let turn = 0; turn < pages; turn++) {
+      // The screen has turned to the next page before it is read.
+      const shown = ((first - 1 + turn) % pages) + 1;
+      await expect.poll(() => pageMark.getAttribute('aria-label')).toBe(`Page ${shown} of ${pages}`);
       if (await people.isVisible()) {
         expect(await people.locator('h2').textContent()).toMatch(new RegExp(`^${onShift} on shift`));
         for (const name of await people.locator('[class*="chipName"]').allTextContents()) seen.add(name);
@@ -149,10 +156,9 @@ describe('wall board', () => {
           ),
         );
         expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(MIN_CAP_AT_1080P - 0.5);
-        await page.screenshot({ path: screenshotPath(`wall-people-page-${turn}`) });
+        await page.screenshot({ path: screenshotPath(`wall-people-page-${shown}`) });
       }
       await page.clock.fastForward(15_000);
-      await page.waitForTimeout(300);
     }
     // Every short name on shift showed on one of the people's pages (some short names repeat).
     const names = new Set((await owner<BoardSnapshot>('GET', '/board')).people.map((person) => person.name));
