@@ -70,6 +70,8 @@ export interface LoadResult {
   serverCpuMs: number;
   /** Of which in the kernel on the server's behalf. */
   serverSystemCpuMs: number;
+  /** Of which on the server's main thread, the event loop; the rest is V8's collector and libuv's pool. */
+  serverMainThreadCpuMs: number;
   eventLoop: EventLoopDelay;
 }
 
@@ -108,6 +110,7 @@ export async function punchLoad(
     fetch(`${server.url}/api/health/event-loop`).then((r) => r.json() as Promise<EventLoopDelay>);
   await eventLoop(); // starts the count afresh
   const cpuBefore = server.cpuTimesMs();
+  const mainBefore = server.cpuTimesMs('main thread');
   const started = performance.now();
   const total = rate * seconds;
   const requests: Promise<void>[] = [];
@@ -153,6 +156,7 @@ export async function punchLoad(
   }
   const elapsedMs = performance.now() - started;
   const cpuAfter = server.cpuTimesMs();
+  const mainAfter = server.cpuTimesMs('main thread');
   const serverSystemCpuMs = cpuAfter.system - cpuBefore.system;
   const serverCpuMs = cpuAfter.user - cpuBefore.user + serverSystemCpuMs;
   for (const technicianId of pending.keys()) settle(technicianId);
@@ -165,6 +169,7 @@ export async function punchLoad(
     elapsedMs,
     serverCpuMs,
     serverSystemCpuMs,
+    serverMainThreadCpuMs: mainAfter.user - mainBefore.user + mainAfter.system - mainBefore.system,
     eventLoop: await eventLoop(),
   };
 }

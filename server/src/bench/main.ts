@@ -198,6 +198,7 @@ if (runs('live')) {
   print('server CPU during the load', (load.serverCpuMs / load.elapsedMs) * 100, '% of one core');
   track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
   print('  of which in the kernel (sockets, disk)', load.serverSystemCpuMs / load.sent, 'ms');
+  print('  of which on the main thread (event loop)', load.serverMainThreadCpuMs / load.sent, 'ms');
   print(
     'event loop delay p50 / max',
     `${round(load.eventLoop.p50Ms)} / ${round(load.eventLoop.maxMs)}`,
