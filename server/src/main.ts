@@ -1,4 +1,4 @@
-import { isBundleFresh } from './build/fresh-bundle.js';
+import { servesBundle } from './build/fresh-bundle.js';
 
 /*
  * `npm run build` bundles the server into `bundle/` beside this file (see build/bundle.ts): Node loads
@@ -6,8 +6,4 @@ import { isBundleFresh } from './build/fresh-bundle.js';
  * server and its packages one by one. A compile after it (`tsc -b -w`, a typecheck) leaves the bundle
  * behind: then, as in development, the compiled modules serve.
  */
-const bundle = new URL('./bundle/serve.js', import.meta.url);
-const compiles = ['../tsconfig.tsbuildinfo', '../../shared/tsconfig.tsbuildinfo'].map(
-  (file) => new URL(file, import.meta.url),
-);
-await import(isBundleFresh(bundle, compiles) ? bundle.href : './serve.js');
+await import(servesBundle(new URL('./', import.meta.url)) ? './bundle/serve.js' : './serve.js');

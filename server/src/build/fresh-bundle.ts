@@ -9,3 +9,14 @@ export function isBundleFresh(bundle: URL, compiles: readonly URL[]): boolean {
   const bundledMs = modifiedMs(bundle);
   return bundledMs !== undefined && compiles.every((file) => (modifiedMs(file) ?? Infinity) <= bundledMs);
 }
+
+/**
+ * Whether `node server/dist/main.js` serves the bundle: the one beside it, if newer than the server's
+ * and shared's last compile. `dist` is the URL of `server/dist/`.
+ */
+export function servesBundle(dist: URL): boolean {
+  const compiles = ['../tsconfig.tsbuildinfo', '../../shared/tsconfig.tsbuildinfo'].map(
+    (file) => new URL(file, dist),
+  );
+  return isBundleFresh(new URL('./bundle/serve.js', dist), compiles);
+}
