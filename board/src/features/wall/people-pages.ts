@@ -111,10 +111,11 @@ export function peopleLayout(count: number, area: GridArea): PeopleLayout {
 /** "27 on shift: 8 idle, 4 on a break, 15 on jobs", the heading of a page of people. */
 export function shiftCounts(people: readonly BoardPerson[]): string {
   const count = (status: BoardPerson['status']) => people.filter((person) => person.status === status).length;
+  const onJobs = count('on-job');
   const parts = [
     [count('idle'), 'idle'],
     [count('on-break'), 'on a break'],
-    [count('on-job'), count('on-job') === 1 ? 'on a job' : 'on jobs'],
+    [onJobs, onJobs === 1 ? 'on a job' : 'on jobs'],
   ] as const;
   const told = parts.filter(([n]) => n > 0).map(([n, words]) => `${n} ${words}`);
   return `${people.length} on shift${told.length ? `: ${told.join(', ')}` : ''}`;

@@ -161,7 +161,12 @@ export function pageAt(pages: number, nowMs: number, periodMs = 15_000): number 
   return Math.floor(nowMs / periodMs) % pages;
 }
 
-export function pageItems<T>(items: readonly T[], layout: WallLayout, page: number): T[] {
+/** The items on one page of a layout that shows `perPage` a page (bays, or people). */
+export function pageItems<T>(
+  items: readonly T[],
+  layout: Pick<WallLayout, 'pages' | 'perPage'>,
+  page: number,
+): T[] {
   const start = Math.min(page, layout.pages - 1) * layout.perPage;
   return items.slice(start, start + layout.perPage);
 }

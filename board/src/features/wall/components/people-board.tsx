@@ -1,6 +1,7 @@
 import type { CSSProperties } from 'react';
 import type { BoardPerson } from '@baytime/shared';
 import { PERSON_ROW_UNITS, personChips, shiftCounts, type PeopleLayout } from '../people-pages';
+import { pageItems } from '../wall-layout';
 import { PersonChipView } from './people-strip';
 import styles from './wall.module.css';
 
@@ -19,8 +20,7 @@ export interface PeopleBoardProps {
  * six turns to show them all: idle people first, down the columns.
  */
 export function PeopleBoard({ people, nowMs, layout, page, areaRef }: PeopleBoardProps) {
-  const chips = personChips(people, nowMs);
-  const start = Math.min(page, layout.pages - 1) * layout.perPage;
+  const chips = pageItems(personChips(people, nowMs), layout, page);
   return (
     <section
       ref={areaRef}
@@ -35,7 +35,7 @@ export function PeopleBoard({ people, nowMs, layout, page, areaRef }: PeopleBoar
       }
     >
       <h2 className={styles.peopleHeading}>{shiftCounts(people)}</h2>
-      {chips.slice(start, start + layout.perPage).map((chip) => (
+      {chips.map((chip) => (
         <PersonChipView key={chip.id} chip={chip} className={styles.personRow} />
       ))}
     </section>
