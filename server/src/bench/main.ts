@@ -3,6 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { setTimeout as delay } from 'node:timers/promises';
 import { fileURLToPath } from 'node:url';
 import { addIsoWeeks, workweekOf } from '@baytime/shared';
 import { servesBundle } from '../build/fresh-bundle.js';
@@ -26,6 +27,8 @@ const KIOSKS = 980;
 const BOARDS = 20;
 const RATE = 20;
 const SECONDS = 30;
+/** How long the server is watched holding its sockets with nothing happening. */
+const REST_SECONDS = 10;
 const profileDir = process.env.BENCH_PROFILE;
 const PARTS = ['start', 'live', 'reads', 'bundles'] as const;
 type Part = (typeof PARTS)[number];
@@ -190,6 +193,11 @@ if (runs('live')) {
   const connected = await allSnapshots(sockets, 60_000);
   print(`${sockets.length} sockets hold a snapshot after`, connected - connectStart, 'ms');
   print(`  server CPU for ${sockets.length} connections`, server.cpuMs() - connectCpu, 'ms');
+  // Holding the sockets costs CPU by itself (Socket.IO's heartbeats): what a punch adds is the rest.
+  const restCpu = server.cpuMs();
+  await delay(REST_SECONDS * 1000);
+  const restCpuMsPerSecond = (server.cpuMs() - restCpu) / REST_SECONDS;
+  print(`server CPU at rest with ${sockets.length} sockets`, restCpuMsPerSecond / 10, '% of one core');
 
   // 5. The load: 20 punches a second for 30 s, from kiosks of the technicians on shift.
   const load = await punchLoad(
@@ -208,6 +216,11 @@ if (runs('live')) {
   track('server cpu ms per punch', load.serverCpuMs / load.sent, 'server CPU per punch', 'ms');
   print('  of which in the kernel (sockets, disk)', load.serverSystemCpuMs / load.sent, 'ms');
   print('  of which on the main thread (event loop)', load.serverMainThreadCpuMs / load.sent, 'ms');
+  print(
+    '  beyond the cost of holding the sockets',
+    (load.serverCpuMs - (restCpuMsPerSecond * load.elapsedMs) / 1000) / load.sent,
+    'ms',
+  );
   print(
     'event loop delay p50 / max',
     `${round(load.eventLoop.p50Ms)} / ${round(load.eventLoop.maxMs)}`,

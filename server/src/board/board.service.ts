@@ -15,6 +15,7 @@ import { keepServing } from '../common/keep-serving.js';
 import { sameJson } from '../common/same-json.js';
 import {
   FloorService,
+  type FloorBay,
   type FloorLine,
   type FloorTechnician,
   type FloorTimer,
@@ -59,6 +60,40 @@ function shortNameOf(tech: FloorTechnician): string {
   return name;
 }
 
+/** What every tile of one snapshot is worked out from. */
+interface TileFloor {
+  clockedOn: ReadonlyMap<number, number[]>;
+  seconds: ReadonlyMap<number, number>;
+  timer: FloorTimer | undefined;
+  technicians: readonly FloorTechnician[];
+  now: Date;
+}
+
+/** A bay's last tile and what it was worked out from, but for the clock. */
+interface LastTile {
+  bay: FloorBay;
+  line: FloorLine | undefined;
+  working: boolean;
+  technicians: readonly FloorTechnician[];
+  onLine: readonly number[];
+  tile: BoardBay;
+}
+
+/** A person's last entry and what it was worked out from, with the state it is kept under. */
+interface LastPerson {
+  tech: FloorTechnician;
+  line: FloorLine | undefined;
+  bayName: string | null;
+  person: BoardPerson;
+}
+
+const NO_LINES: readonly FloorLine[] = [];
+const NO_IDS: readonly number[] = [];
+
+function sameIds(a: readonly number[], b: readonly number[]): boolean {
+  return a.length === b.length && a.every((id, i) => id === b[i]);
+}
+
 /** What every screen shows of the floor at one instant, read from the in-memory floor model. */
 @Injectable()
 export class BoardService implements OnModuleInit, OnModuleDestroy {
@@ -69,6 +104,9 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
   private lateLines = 0;
   private subscription: Subscription | null = null;
   private latest: { snapshot: BoardSnapshot; at: number } | null = null;
+  private readonly tiles = new Map<number, LastTile>();
+  private readonly personsByState = new WeakMap<TechnicianState, LastPerson>();
+  private names: { technicians: readonly FloorTechnician[]; byId: Map<number, string> } | null = null;
 
   constructor(
     private readonly floor: FloorService,
@@ -127,68 +165,28 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
     const settings = this.shop.settings();
     const openLines = this.floor.openLines();
     const technicians = this.floor.technicians();
-    const states = new Map(technicians.map((tech) => [tech.id, this.floor.stateOf(tech.id, now)]));
     const clockedOn = this.floor.clockedOnLines(now);
-    const names = new Map(technicians.map((tech) => [tech.id, shortNameOf(tech)]));
     const seconds = this.floor.lineTotals(now);
     const runningTimers = this.floor.runningTimers();
 
     const linesByBay = new Map<number, FloorLine[]>();
     for (const line of openLines) if (line.bayId !== null) addTo(linesByBay, line.bayId, line);
 
-    const boardBays: BoardBay[] = this.floor.bays().map((bay) => {
-      const inBay = linesByBay.get(bay.id) ?? [];
-      const line = leadLine(inBay, clockedOn);
+    const boardBays = this.floor.bays().map((bay) => {
+      const inBay = linesByBay.get(bay.id) ?? NO_LINES;
       const timer = runningTimers.find((t) => t.bayId === bay.id);
-      const onLine = line ? (clockedOn.get(line.id) ?? []) : [];
-      const assigned = line?.technicianId ? [line.technicianId] : [];
-      const techIds = [...new Set([...onLine, ...assigned])];
-      const state: BayState = timer
-        ? 'timer'
-        : inBay.some((l) => clockedOn.has(l.id))
-          ? 'working'
-          : line?.status === 'held'
-            ? 'held'
-            : line && bay.phase === 'free'
-              ? 'staged'
-              : bay.phase;
-      const ro = line
-        ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
-        : bay.parked;
-      return {
-        id: bay.id,
-        name: bay.name,
-        state,
-        holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
-        heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
-        partsDueAt: state === 'held' && line ? (waitingParts(line)?.expectedAt ?? null) : null,
-        vehicle: ro?.vehicle ?? null,
-        repairOrder: ro ? { id: ro.id, number: ro.number } : null,
-        jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
-        technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
-        clockedSeconds: Math.round(line ? (seconds.get(line.id) ?? 0) : 0),
-        bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
-        clockRunning: line ? clockedOn.has(line.id) : false,
-        timer: timer ? boardTimer(timer, now) : null,
-      };
+      return this.tile(bay, inBay, { clockedOn, seconds, timer, technicians, now });
     });
 
     const bayNames = new Map(boardBays.map((bay) => [bay.id, bay.name]));
-    const people: BoardPerson[] = technicians.flatMap((tech) => {
-      const state = states.get(tech.id);
-      if (!state || state.status === 'off' || !state.since) return [];
+    const people: BoardPerson[] = [];
+    for (const tech of technicians) {
+      const state = this.floor.stateOf(tech.id, now);
+      if (!state || state.status === 'off' || !state.since) continue;
       const line = this.floor.openLine(state.openJobLineIds[0] ?? -1);
-      return [
-        {
-          id: tech.id,
-          name: shortNameOf(tech),
-          status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
-          since: personSince(this.floor.ledgerOf(tech.id, now), state, line?.id).toISOString(),
-          bayName: line?.bayId ? (bayNames.get(line.bayId) ?? null) : null,
-          jobLineTitle: line?.title ?? null,
-        },
-      ];
-    });
+      const bayName = line?.bayId ? (bayNames.get(line.bayId) ?? null) : null;
+      people.push(this.person(tech, state, line, bayName, now));
+    }
 
     const queue: BoardQueueItem[] = openLines
       .filter((line) => line.technicianId === null && line.status === 'queued')
@@ -215,6 +213,99 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       lateLines: this.lateLines,
       kioskQueues: this.screens.kioskQueues(),
     };
+  }
+
+  /**
+   * A bay's tile. A change touches a bay or two: the others keep the tile they had, so they cost
+   * neither a new object nor a deep comparison when the change is published.
+   */
+  private tile(bay: FloorBay, inBay: readonly FloorLine[], floor: TileFloor): BoardBay {
+    const { clockedOn, timer, technicians, now } = floor;
+    const line = leadLine(inBay, clockedOn);
+    const onLine = line ? (clockedOn.get(line.id) ?? NO_IDS) : NO_IDS;
+    const working = inBay.some((l) => clockedOn.has(l.id));
+    const clockedSeconds = Math.round(line ? (floor.seconds.get(line.id) ?? 0) : 0);
+    const last = this.tiles.get(bay.id);
+    // A running timer's estimate moves with the clock: such a tile is worked out every time, never kept.
+    if (
+      last &&
+      !timer &&
+      last.bay === bay &&
+      last.line === line &&
+      last.working === working &&
+      last.technicians === technicians &&
+      sameIds(last.onLine, onLine)
+    ) {
+      if (last.tile.clockedSeconds !== clockedSeconds) last.tile = { ...last.tile, clockedSeconds };
+      return last.tile;
+    }
+    const names = this.namesOf(technicians);
+    const assigned = line?.technicianId ? [line.technicianId] : [];
+    const techIds = [...new Set([...onLine, ...assigned])];
+    const state: BayState = timer
+      ? 'timer'
+      : working
+        ? 'working'
+        : line?.status === 'held'
+          ? 'held'
+          : line && bay.phase === 'free'
+            ? 'staged'
+            : bay.phase;
+    const ro = line
+      ? { id: line.repairOrderId, number: line.repairOrderNumber, vehicle: line.vehicle }
+      : bay.parked;
+    const tile: BoardBay = {
+      id: bay.id,
+      name: bay.name,
+      state,
+      holdReason: state === 'held' ? (line?.holdReason ?? null) : null,
+      heldSince: state === 'held' ? (line?.heldAt?.toISOString() ?? null) : null,
+      partsDueAt: state === 'held' && line ? (waitingParts(line)?.expectedAt ?? null) : null,
+      vehicle: ro?.vehicle ?? null,
+      repairOrder: ro ? { id: ro.id, number: ro.number } : null,
+      jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
+      technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
+      clockedSeconds,
+      bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
+      clockRunning: line ? clockedOn.has(line.id) : false,
+      timer: timer ? boardTimer(timer, now) : null,
+    };
+    if (timer) this.tiles.delete(bay.id);
+    else this.tiles.set(bay.id, { bay, line, working, technicians, onLine, tile });
+    return tile;
+  }
+
+  /** A person on shift; the same as last time while their punches, line and bay stay the same. */
+  private person(
+    tech: FloorTechnician,
+    state: TechnicianState,
+    line: FloorLine | undefined,
+    bayName: string | null,
+    now: Date,
+  ): BoardPerson {
+    // The floor builds a new state each time the technician's punches change.
+    const last = this.personsByState.get(state);
+    if (last && last.tech === tech && last.line === line && last.bayName === bayName) return last.person;
+    const person: BoardPerson = {
+      id: tech.id,
+      name: shortNameOf(tech),
+      status: state.status === 'on-break' ? 'on-break' : line ? 'on-job' : 'idle',
+      since: personSince(this.floor.ledgerOf(tech.id, now), state, line?.id).toISOString(),
+      bayName,
+      jobLineTitle: line?.title ?? null,
+    };
+    this.personsByState.set(state, { tech, line, bayName, person });
+    return person;
+  }
+
+  /** Short names by technician id, worked out again only when the floor reads its technicians again. */
+  private namesOf(technicians: readonly FloorTechnician[]): ReadonlyMap<number, string> {
+    if (this.names?.technicians !== technicians)
+      this.names = {
+        technicians,
+        byId: new Map(technicians.map((tech) => [tech.id, shortNameOf(tech)])),
+      };
+    return this.names.byId;
   }
 
   setLateLines(count: number): void {

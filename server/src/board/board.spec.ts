@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type TestApp } from '../test-support/test-app.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import type { BoardSnapshot } from '@baytime/shared';
 import { BoardService } from './board.service.js';
 
 describe(BoardService.name, () => {
@@ -23,6 +24,42 @@ describe(BoardService.name, () => {
     await sut.punch(jo.accessToken, { kind: 'break-start', breakKind: 'rest' }).expect(201);
     expect(board.current(at + 2).seq).toBeGreaterThan(before.seq);
     expect(status(at + 2)).toBe('on-break');
+  });
+
+  it('keeps the tiles and people a change did not touch, so publishing it compares next to nothing', async () => {
+    const board = sut.app.get(BoardService);
+    // Jo is on shift and on no job in the demo shop: a break of hers touches no bay and no one else.
+    const jo = await sut.badge('1045');
+    const before = board.snapshot(0, new Date());
+    const status = (snapshot: BoardSnapshot) =>
+      snapshot.people.find((person) => person.id === jo.user.id)?.status;
+    const wasOnBreak = status(before) === 'on-break';
+    await sut
+      .punch(jo.accessToken, wasOnBreak ? { kind: 'break-end' } : { kind: 'break-start', breakKind: 'rest' })
+      .expect(201);
+    const after = board.snapshot(0, new Date(Date.now() + 1));
+
+    const others = (snapshot: BoardSnapshot) => snapshot.people.filter((person) => person.id !== jo.user.id);
+    expect(status(after)).toBe(wasOnBreak ? 'idle' : 'on-break');
+    others(after).forEach((person, i) => expect(person).toBe(others(before)[i]));
+    // A running clock's seconds move on, and so does a running timer's estimate; the rest stays as it was.
+    after.bays.forEach((bay, i) => {
+      if (bay.timer) return;
+      if (!bay.clockRunning) expect(bay).toBe(before.bays[i]);
+      else expect(bay.jobLine).toBe(before.bays[i]!.jobLine);
+    });
+  });
+
+  it('clears a timer from its bay once it is stopped', async () => {
+    const board = sut.app.get(BoardService);
+    const timed = board.snapshot(0, new Date()).bays.find((bay) => bay.timer);
+    // The demo shop has a timer running in a bay.
+    expect(timed).toBeDefined();
+    const owner = await sut.signIn(DEMO.owner);
+    await sut.http().post(`/api/timers/${timed!.timer!.id}/stop`).auth(owner, { type: 'bearer' }).expect(200);
+    const after = board.snapshot(0, new Date()).bays.find((bay) => bay.id === timed!.id);
+    expect(after?.timer).toBeNull();
+    expect(after?.state).not.toBe('timer');
   });
 
   it('shows an idle technician as idle since the last break or job ended, not since the shift began', async () => {
