@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
@@ -5,6 +6,9 @@ export default defineConfig({
   resolve: { conditions: ['@baytime/source'] },
   ssr: { resolve: { conditions: ['@baytime/source'] } },
   test: {
+    // Vitest's default is a core less than the machine has: one worker, every file in turn, on 2 cores.
+    // Two let the server's specs run beside the browser tests, which mostly wait (13 min down to 10.5).
+    maxWorkers: Math.max(2, availableParallelism() - 1),
     projects: [
       { extends: true, test: { name: 'shared', include: ['shared/src/**/*.spec.ts'] } },
       {
