@@ -35,14 +35,19 @@ function leadLine(
   lines: readonly FloorLine[],
   clockedOn: ReadonlyMap<number, number[]>,
 ): FloorLine | undefined {
-  const before = (a: FloorLine, b: FloorLine) =>
+  let lead: FloorLine | undefined;
+  for (const line of lines) if (!lead || leadsBefore(line, lead, clockedOn)) lead = line;
+  return lead;
+}
+
+// Not a closure inside leadLine: the bundle names each function it creates, on every call.
+function leadsBefore(a: FloorLine, b: FloorLine, clockedOn: ReadonlyMap<number, number[]>): boolean {
+  return (
     (Number(clockedOn.has(b.id)) - Number(clockedOn.has(a.id)) ||
       Number(b.status === 'held') - Number(a.status === 'held') ||
       PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
-      a.id - b.id) < 0;
-  let lead: FloorLine | undefined;
-  for (const line of lines) if (!lead || before(line, lead)) lead = line;
-  return lead;
+      a.id - b.id) < 0
+  );
 }
 
 /** Adds `value` to the list under `key`. */
