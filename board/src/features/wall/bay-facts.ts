@@ -226,8 +226,8 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
 /** A short figure shown at the end of the state band: how long a held bay has been held. */
 export function bandNote(bay: BoardBay, nowMs: number): string | null {
   if (bay.state !== 'held' || !bay.heldSince) return null;
-  // Four columns of tiles leave room for three characters after the word: "42m", "1h", "11h", "2d".
-  // The office's floor view gives the minutes.
+  // Three characters after the word ("42m", "1h", "11h", "2d"): with the icon on four columns of
+  // tiles, without it on five (heldBandParts). The office's floor view gives the minutes.
   const minutes = Math.floor(secondsSince(bay.heldSince, nowMs) / 60);
   if (minutes < 60) return `${Math.max(1, minutes)}m`;
   const hours = Math.floor(minutes / 60);

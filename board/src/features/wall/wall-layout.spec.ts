@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   BODY_UNITS,
   MIN_TILE_SCALE,
+  heldBandParts,
   lineChars,
   pageAt,
   pageItems,
@@ -67,6 +68,24 @@ describe(wallLayout.name, () => {
     expect(tileRoom(layout.tileHeight, true).slots).toBeGreaterThanOrEqual(2);
     expect(tileRoom(layout.tileHeight, false).slotsWithBig).toBeGreaterThanOrEqual(2);
     expect(lineChars(layout.tileWidth)).toBe(11);
+  });
+
+  it('gives a held bay its icon and time in the band on four columns, the time alone on five', () => {
+    const four = wallLayout(12, hd);
+    const five = wallLayout(13, hd);
+    expect([four.columns, five.columns]).toEqual([4, 5]);
+    expect(heldBandParts(four.tileWidth, four.scale)).toEqual({ icon: true, note: true });
+    // Measured in chromium: "HELD" and "10h" overflowed a five-column band with the icon by 2 px.
+    expect(heldBandParts(five.tileWidth, five.scale)).toEqual({ icon: false, note: true });
+  });
+
+  it('always leaves a held bay room for its time, whatever the shop and the screen', () => {
+    for (let count = 1; count <= 60; count++)
+      for (const viewport of [hd, portrait, { width: 1280, height: 720 }, { width: 2560, height: 1080 }]) {
+        const layout = wallLayout(count, viewport);
+        expect(heldBandParts(layout.tileWidth, layout.scale).note).toBe(true);
+      }
+    expect(heldBandParts(20, 1)).toEqual({ icon: true, note: false });
   });
 
   it('keeps one line of facts on a tile of a 12-bay page', () => {

@@ -176,6 +176,24 @@ export function lineChars(tileWidth: number, scale = 1): number {
   return Math.max(4, Math.floor((tileWidth - 2 * 1.6) / (BODY_UNITS * scale * 0.47)));
 }
 
+/** A state band's parts in ems of the wall's bold font (Barlow Semi Condensed), measured in chromium. */
+const BAND_EMS = { icon: 1, heldWord: 2.19, widestHeldNote: 1.67 } as const;
+/** The band's side padding and the gap between its parts, in units: they do not scale with the text. */
+const BAND_SPACING = { padding: 1.6, gap: 1.4 } as const;
+
+/**
+ * What a held bay's band has room for besides its word: the icon and the longest time held ("59m"),
+ * or the time alone (five columns, say: the word and the time say more than the icon does), or
+ * neither, on a tile narrower than the board ever makes one.
+ */
+export function heldBandParts(tileWidth: number, scale = 1): { icon: boolean; note: boolean } {
+  const { icon, heldWord, widestHeldNote } = BAND_EMS;
+  const { padding, gap } = BAND_SPACING;
+  const needs = (ems: number, gaps: number) => 2 * padding + gaps * gap + ems * BODY_UNITS * scale;
+  const note = tileWidth >= needs(heldWord + widestHeldNote, 1);
+  return { icon: !note || tileWidth >= needs(icon + heldWord + widestHeldNote, 2), note };
+}
+
 export interface TileRoom {
   /** Body lines left for facts under the name and the state band. */
   slots: number;

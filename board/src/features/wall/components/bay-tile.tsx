@@ -2,7 +2,7 @@ import { BAY_PALETTE, formatHours, hoursFigure, type BoardBay } from '@baytime/s
 import { Glyph } from '@/components/glyph';
 import { clockedSecondsAt } from '../board-store';
 import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
-import { lineChars, tileRoom } from '../wall-layout';
+import { heldBandParts, lineChars, tileRoom } from '../wall-layout';
 import styles from './wall.module.css';
 
 export interface BayTileProps {
@@ -44,7 +44,9 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, tu
   const booked = clockedBar(clocked, bay.bookSeconds);
   const bar = BAR_STATES.has(bay.state) && barFits ? booked : null;
   const lines = pickLines(facts, slots(bar !== null), turn, chars);
-  const note = bandNote(bay, nowMs);
+  const held = bandNote(bay, nowMs);
+  const room = held ? heldBandParts(width, scale) : { icon: true, note: false };
+  const note = room.note ? held : null;
 
   return (
     <article
@@ -53,7 +55,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, tu
     >
       <div className={styles.bayName}>{bay.name}</div>
       <div className={styles.band} style={{ background: look.colour, color: look.textColour }}>
-        <Glyph name={look.icon} className={styles.glyph} />
+        {room.icon && <Glyph name={look.icon} className={styles.glyph} />}
         <span className={styles.bandWord}>{look.label}</span>
         {note && <span className={styles.bandNote}>{note}</span>}
       </div>
