@@ -140,6 +140,15 @@ describe('wall board', () => {
       number,
     ];
     const people = page.locator('section[aria-label="People on shift"]');
+    // With pages of their own, the strip shows only those off jobs: the others are on their bays' tiles.
+    const onJobs = (await owner<BoardSnapshot>('GET', '/board')).people
+      .filter((person) => person.status === 'on-job')
+      .map((person) => person.name);
+    expect(onJobs.length).toBeGreaterThan(0);
+    const stripNames = peopleStrip(page).locator(
+      '[class*="_chips_"] > [class*="_chip_"] [class*="chipName"]',
+    );
+    const inStrip = new Set<string>();
     const seen = new Set<string>();
     for (let turn = 0; turn < pages; turn++) {
       // The screen has turned to the next page before it is read.
@@ -163,6 +172,14 @@ describe('wall board', () => {
     // Every short name on shift showed on one of the people's pages (some short names repeat).
     const names = new Set((await owner<BoardSnapshot>('GET', '/board')).people.map((person) => person.name));
     expect(seen).toEqual(names);
+    // A round of the strip's turns, five seconds each, as its own page mark counts them, and one more.
+    const stripMark = (await peopleStrip(page).textContent())?.match(/(\d+)\/(\d+)$/);
+    for (let turn = 0; turn <= Number(stripMark?.[2] ?? 1); turn++) {
+      for (const name of await stripNames.allTextContents()) inStrip.add(name);
+      await page.clock.fastForward(5_000);
+    }
+    expect(inStrip.size).toBeGreaterThan(0);
+    expect(onJobs.filter((name) => inStrip.has(name))).toEqual([]);
     await page.close();
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { BoardPerson } from '@baytime/shared';
-import { packPages, peopleLayout, personChips, queueSummary, shiftCounts } from './people-pages';
+import { packPages, peopleLayout, personChips, queueSummary, shiftCounts, stripPages } from './people-pages';
 import { defaultGridArea, unitPx } from './wall-layout';
 
 const now = Date.parse('2026-03-02T15:00:00Z');
@@ -61,6 +61,17 @@ describe(packPages.name, () => {
     expect(packPages([40, 40, 40, 90, 10], 100, 5)).toEqual([[0, 1], [2], [3], [4]]);
     expect(packPages([30, 30, 30], 100, 5)).toEqual([[0, 1, 2]]);
     expect(packPages([], 100, 5)).toEqual([]);
+  });
+});
+
+describe(stripPages.name, () => {
+  it('packs only the chips shown, by their own widths, and names them by their place among all', () => {
+    const widths = [40, 40, 40, 90, 10];
+    expect(stripPages(widths, 100, 5)).toEqual(packPages(widths, 100, 5));
+    // 40 + 5 + 40 + 5 + 10: the three shown fit one turn, where all five took four.
+    expect(stripPages(widths, 100, 5, [0, 2, 4])).toEqual([[0, 2, 4]]);
+    expect(stripPages(widths, 100, 5, [3, 4])).toEqual([[3], [4]]);
+    expect(stripPages(widths, 100, 5, [])).toEqual([]);
   });
 });
 

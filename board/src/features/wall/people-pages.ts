@@ -66,6 +66,24 @@ export function packPages(widths: readonly number[], available: number, gap: num
 }
 
 /**
+ * The strip's turns: every chip, or only `shown` ones (their indices among all chips), packed by the
+ * widths measured for all of them.
+ */
+export function stripPages(
+  widths: readonly number[],
+  available: number,
+  gap: number,
+  shown?: readonly number[],
+): number[][] {
+  if (!shown) return packPages(widths, available, gap);
+  return packPages(
+    shown.map((index) => widths[index] ?? 0),
+    available,
+    gap,
+  ).map((page) => page.map((at) => shown[at]!));
+}
+
+/**
  * Turns of the strip (five seconds each) beyond which the people also get pages of their own among the
  * bays' pages. A small shop's strip may take half a minute to show everyone, and keeps its bays on the
  * screen all the time; a big shop's would take minutes.

@@ -2,7 +2,7 @@ import { useLayoutEffect, useRef, useState } from 'react';
 import type { BoardPerson } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
 import { formatSpan } from '../board-time';
-import { packPages, personChips, type PersonChip, type QueueSummary } from '../people-pages';
+import { packPages, personChips, stripPages, type PersonChip, type QueueSummary } from '../people-pages';
 import { PageMarks } from './page-marks';
 import styles from './wall.module.css';
 
@@ -15,6 +15,11 @@ export interface PeopleStripProps {
   queue: QueueSummary | null;
   /** Told how many turns the strip needs to show everyone, whenever that changes. */
   onPageCount?: (pages: number) => void;
+  /**
+   * Only those idle or on a break: everyone has pages of their own, and those on jobs are on their
+   * bays' tiles. The turns told to `onPageCount` still count everyone, so the choice holds steady.
+   */
+  offJobsOnly?: boolean;
 }
 
 const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
@@ -23,11 +28,11 @@ const GLYPHS: Record<BoardPerson['status'], GlyphName> = {
   'on-job': 'wrench',
 };
 
-export function PeopleStrip({ people, nowMs, turn, queue, onPageCount }: PeopleStripProps) {
+export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOnly }: PeopleStripProps) {
   const chips = personChips(people, nowMs);
   const measureRef = useRef<HTMLDivElement>(null);
   const boxRef = useRef<HTMLDivElement>(null);
-  const [pages, setPages] = useState<number[][]>([]);
+  const [room, setRoom] = useState<{ widths: number[]; available: number; gap: number } | null>(null);
   // Re-pack only when what the chips say in shape changes, not every second.
   const shape = chips.map((chip) => `${chip.id}:${chip.name}:${chip.detail.length}`).join('|');
 
@@ -38,9 +43,8 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount }: PeopleS
       if (!box || !row) return;
       const widths = Array.from(row.children, (child) => (child as HTMLElement).offsetWidth);
       const gap = parseFloat(getComputedStyle(row).columnGap) || 0;
-      const packed = packPages(widths, box.clientWidth, gap);
-      setPages(packed);
-      onPageCount?.(packed.length);
+      setRoom({ widths, available: box.clientWidth, gap });
+      onPageCount?.(packPages(widths, box.clientWidth, gap).length);
     };
     measure();
     const observer = new ResizeObserver(measure);
@@ -48,8 +52,16 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount }: PeopleS
     return () => observer.disconnect();
   }, [shape, onPageCount]);
 
+  const offJobs = offJobsOnly
+    ? chips.flatMap((chip, index) => (chip.status === 'on-job' ? [] : [index]))
+    : undefined;
+  const pages = room ? stripPages(room.widths, room.available, room.gap, offJobs) : [];
   const page = pages.length ? pages[turn % pages.length] : undefined;
-  const shown = page ? page.map((index) => chips[index]).filter((chip) => chip !== undefined) : chips;
+  const shown = page
+    ? page.map((index) => chips[index]).filter((chip) => chip !== undefined)
+    : offJobs
+      ? []
+      : chips;
 
   return (
     <footer className={styles.strip}>
@@ -62,6 +74,8 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount }: PeopleS
         </div>
         {chips.length === 0 ? (
           <div className={styles.chip}>Nobody on shift</div>
+        ) : offJobs?.length === 0 ? (
+          <div className={styles.chip}>Everyone on shift is on a job</div>
         ) : (
           shown.map((chip) => <PersonChipView key={chip.id} chip={chip} />)
         )}

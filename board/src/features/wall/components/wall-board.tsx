@@ -177,6 +177,7 @@ export function WallBoard({ token }: { token: string }) {
         turn={turn}
         queue={lost ? null : queueSummary(snapshot.queue, now, snapshot.lateLines)}
         onPageCount={setStripPages}
+        offJobsOnly={people !== null}
       />
     </main>
   );
