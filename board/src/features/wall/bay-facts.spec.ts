@@ -60,7 +60,22 @@ describe(bayFacts.name, () => {
     const fact = bayFacts({ bay: bay({}), clockedSeconds: 6000, nowMs: now }).find(
       (f) => f.key === 'clocked',
     );
-    expect(fact).toMatchObject({ text: '1.7 h', tone: 'over' });
+    expect(fact).toMatchObject({ text: '1.7 h', tone: 'over', tag: '+0.2 h' });
+  });
+
+  it('keeps the clocked total and its excess on one line of a narrow tile', () => {
+    const clocked = (clockedSeconds: number, bookHours: number, lineChars: number) =>
+      bayFacts({ bay: bay({ bookSeconds: bookHours * 3600 }), clockedSeconds, nowMs: now, lineChars }).find(
+        (f) => f.key === 'clocked',
+      );
+    // A 12-bay wall's tiles hold 13 characters a line: "10.6 h" and "+9.1 h" fit with the tag's padding.
+    expect(clocked(10.6 * 3600, 1.5, 13)).toMatchObject({ text: '10.6 h', tag: '+9.1 h' });
+    // "11.4 h" and "+10.2 h" would not: the demo wall showed "11.…" before its tag.
+    expect(clocked(11.4 * 3600, 1.2, 13)).toMatchObject({ text: '11 h', tag: '+10 h' });
+    // Too little over book for a whole hour: the total alone, the bar shows the excess.
+    const small = clocked(10.2 * 3600, 10, 10);
+    expect(small).toMatchObject({ text: '10.2 h', tone: 'over' });
+    expect(small?.tag).toBeUndefined();
   });
 
   it('gives a held bay its reason and how long it has been held', () => {

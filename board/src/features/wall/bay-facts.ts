@@ -33,6 +33,8 @@ export interface BayFact {
   tone?: 'over' | 'big' | 'caution';
   /** A quiet word after the text ("left"). */
   suffix?: string;
+  /** A figure in a tag after the text: how far over book ("+0.4 h"). */
+  tag?: string;
 }
 
 export interface ClockedBar {
@@ -128,6 +130,24 @@ export function holdFacts(bay: BoardBay, nowMs: number, timeZone: string | undef
   ];
 }
 
+/**
+ * The clocked total and the excess over book, as they fit one line of `lineChars`: with tenths ("10.6 h"
+ * "+9.1 h"), else in whole hours ("11 h" "+10 h"), else the total alone: the bar and the line's colour
+ * still say it is over. The tag's padding counts as one character, the gap before it as none.
+ */
+function overBook(
+  clockedSeconds: number,
+  bookSeconds: number,
+  lineChars = Infinity,
+): { text: string; tag?: string } {
+  const [clocked, excess] = [clockedSeconds / 3600, (clockedSeconds - bookSeconds) / 3600];
+  const fits = ({ text, tag }: { text: string; tag: string }) => text.length + tag.length + 1 <= lineChars;
+  const tenths = { text: `${hoursFigure(clocked, 1)} h`, tag: `+${hoursFigure(excess, 1)} h` };
+  if (fits(tenths)) return tenths;
+  const whole = { text: `${Math.round(clocked)} h`, tag: `+${Math.round(excess)} h` };
+  return Math.round(excess) >= 1 && fits(whole) ? whole : { text: tenths.text };
+}
+
 export interface FactInput {
   bay: BoardBay;
   clockedSeconds: number;
@@ -156,7 +176,12 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
   const clocked: BayFact | null =
     bay.bookSeconds > 0 || clockedSeconds > 0
       ? over
-        ? { key: 'clocked', text: `${hoursFigure(clockedSeconds / 3600, 1)} h`, keep: true, tone: 'over' }
+        ? {
+            key: 'clocked',
+            keep: true,
+            tone: 'over',
+            ...overBook(clockedSeconds, bay.bookSeconds, lineChars),
+          }
         : {
             key: 'clocked',
             text: `${hoursFigure(clockedSeconds / 3600, 1)} / ${hoursFigure(bay.bookSeconds / 3600, 1)} h`,

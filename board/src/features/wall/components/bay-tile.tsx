@@ -1,4 +1,4 @@
-import { BAY_PALETTE, formatHours, hoursFigure, type BoardBay } from '@baytime/shared';
+import { BAY_PALETTE, formatHours, type BoardBay } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { clockedSecondsAt } from '../board-store';
 import { bandNote, bayFacts, clockedBar, pickLines, type TileLine } from '../bay-facts';
@@ -61,11 +61,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, tu
       </div>
       <div className={styles.lines}>
         {lines.map((line) => (
-          <FactLine
-            key={line.rotating ? `turn-${line.fact.key}` : line.fact.key}
-            line={line}
-            overSeconds={booked?.overSeconds ?? 0}
-          />
+          <FactLine key={line.rotating ? `turn-${line.fact.key}` : line.fact.key} line={line} />
         ))}
       </div>
       {bar && (
@@ -88,7 +84,7 @@ export function BayTile({ bay, asOfMs, nowMs, timeZone, height, width, scale, tu
   );
 }
 
-function FactLine({ line, overSeconds }: { line: TileLine; overSeconds: number }) {
+function FactLine({ line }: { line: TileLine }) {
   const { fact } = line;
   const toneClass =
     fact.tone === 'big'
@@ -105,9 +101,7 @@ function FactLine({ line, overSeconds }: { line: TileLine; overSeconds: number }
         {fact.text}
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
-      {fact.tone === 'over' && overSeconds > 0 && (
-        <span className={styles.overTag}>+{hoursFigure(overSeconds / 3600, 1)} h</span>
-      )}
+      {fact.tag && <span className={styles.overTag}>{fact.tag}</span>}
     </div>
   );
 }
