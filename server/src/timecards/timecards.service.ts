@@ -9,6 +9,7 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, gte, inArray, lt, or } from 'drizzle-orm';
 import {
   buildLedger,
+  formatDayClockTime,
   punchImpact,
   shopDayKey,
   workweekBounds,
@@ -116,7 +117,7 @@ export class TimecardsService {
     const openShift = ledger.shifts.find((s) => s.open);
     if (openShift && shopDayKey(openShift.from, settings.timeZone) !== shopDayKey(until, settings.timeZone))
       flags.push(
-        `Still on shift from ${shopDayKey(openShift.from, settings.timeZone)}: a ${inSentence(PUNCH_WORDS['shift-out'])} may be missing`,
+        `Still on shift since ${formatDayClockTime(openShift.from, settings.timeZone, settings.clockFormat)}: a ${inSentence(PUNCH_WORDS['shift-out'])} may be missing`,
       );
     if (ledger.breaks.some((b) => b.open && until.getTime() - b.from.getTime() > 2 * 3600_000))
       flags.push(
