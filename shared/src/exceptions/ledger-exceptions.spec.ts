@@ -63,6 +63,14 @@ describe(ledgerExceptions.name, () => {
     );
   });
 
+  it('gives a break left open for hours in hours and minutes', () => {
+    const day = [punch('shift-in', '07:00'), punch('break-start', '08:47', 'rest')];
+    const now = new Date('2026-03-10T19:00:00Z');
+    const [found] = ledgerExceptions(buildLedger(day, now, ledgerSettings), from, to, now, settings);
+    // 8:47 am to 7:00 pm is 10 h 13 min.
+    expect(found?.text).toBe('Rest break from Tue, Mar 10, 8:47 am is still open after 10 h 13 min');
+  });
+
   it('lists a break the shift-out closed, an open meal past 2 h and a shift open past the limit', () => {
     expect(
       kinds(
