@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BAY_STATE_WORDS, type BoardSnapshot, type UserDto } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, bayTile, openWall, peopleStrip, technicianDay, type Api } from './support/floor.js';
+import { flaws } from './support/flaws.js';
 import { pairingCode, startServer, type RunningServer } from './support/server.js';
 
 /**
@@ -16,6 +17,7 @@ const CAP_HEIGHT_EM = 0.7;
 const PREFERRED_CAP_AT_1080P = 55;
 const MIN_CAP_AT_1080P = 44;
 
+/** No scrolling, no text under the legible size, and nothing cut or clipped. */
 async function assertLegibleAndStill(page: Page, height: number, minCapAt1080p: number): Promise<void> {
   const scroll = await page.evaluate(() => ({
     w: document.documentElement.scrollWidth,
@@ -39,6 +41,7 @@ async function assertLegibleAndStill(page: Page, height: number, minCapAt1080p: 
     return min;
   });
   expect(smallest * CAP_HEIGHT_EM).toBeGreaterThanOrEqual(minCapAt1080p * (height / 1080) - 0.5);
+  expect(await flaws(page)).toEqual([]);
 }
 
 describe('wall board', () => {
@@ -154,6 +157,7 @@ describe('wall board', () => {
       // The screen has turned to the next page before it is read.
       const shown = ((first - 1 + turn) % pages) + 1;
       await expect.poll(() => pageMark.getAttribute('aria-label')).toBe(`Page ${shown} of ${pages}`);
+      expect(await flaws(page), `page ${shown} of ${pages}`).toEqual([]);
       if (await people.isVisible()) {
         expect(await people.locator('h2').textContent()).toMatch(new RegExp(`^${onShift} on shift`));
         for (const name of await people.locator('[class*="chipName"]').allTextContents()) seen.add(name);
