@@ -68,10 +68,12 @@ describe(bayFacts.name, () => {
       bayFacts({ bay: bay({ bookSeconds: bookHours * 3600 }), clockedSeconds, nowMs: now, lineChars }).find(
         (f) => f.key === 'clocked',
       );
-    // A 12-bay wall's tiles hold 13 characters a line: "10.6 h" and "+9.1 h" fit with the tag's padding.
-    expect(clocked(10.6 * 3600, 1.5, 13)).toMatchObject({ text: '10.6 h', tag: '+9.1 h' });
-    // "11.4 h" and "+10.2 h" would not: the demo wall showed "11.…" before its tag.
-    expect(clocked(11.4 * 3600, 1.2, 13)).toMatchObject({ text: '11 h', tag: '+10 h' });
+    // An 8-bay wall's tiles count 11 characters a line (5.4 em). Measured there in chromium: "1.6 h" and
+    // its "+0.4 h" tag take 4.65 em, "11.4 h" and "+10.2 h" 5.64 em (the demo wall showed "11.…").
+    expect(clocked(1.6 * 3600, 1.2, 11)).toMatchObject({ text: '1.6 h', tag: '+0.4 h' });
+    expect(clocked(11.4 * 3600, 1.2, 11)).toMatchObject({ text: '11 h', tag: '+10 h' });
+    // A 12-bay wall's smaller text leaves 13 characters: there the tenths fit.
+    expect(clocked(11.4 * 3600, 1.2, 13)).toMatchObject({ text: '11.4 h', tag: '+10.2 h' });
     // Too little over book for a whole hour: the total alone, the bar shows the excess.
     const small = clocked(10.2 * 3600, 10, 10);
     expect(small).toMatchObject({ text: '10.2 h', tone: 'over' });

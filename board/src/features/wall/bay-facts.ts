@@ -131,9 +131,16 @@ export function holdFacts(bay: BoardBay, nowMs: number, timeZone: string | undef
 }
 
 /**
+ * Figures and "h" take 0.40–0.43 em in the wall's font, where a line's `lineChars` counts 0.47 em a
+ * character; the tag's padding and the gap before it take about 0.35 em (measured in chromium).
+ */
+const FIGURE_CHARS = 0.92;
+const TAG_CHARS = 0.75;
+
+/**
  * The clocked total and the excess over book, as they fit one line of `lineChars`: with tenths ("10.6 h"
  * "+9.1 h"), else in whole hours ("11 h" "+10 h"), else the total alone: the bar and the line's colour
- * still say it is over. The tag's padding counts as one character, the gap before it as none.
+ * still say it is over.
  */
 function overBook(
   clockedSeconds: number,
@@ -141,7 +148,8 @@ function overBook(
   lineChars = Infinity,
 ): { text: string; tag?: string } {
   const [clocked, excess] = [clockedSeconds / 3600, (clockedSeconds - bookSeconds) / 3600];
-  const fits = ({ text, tag }: { text: string; tag: string }) => text.length + tag.length + 1 <= lineChars;
+  const fits = ({ text, tag }: { text: string; tag: string }) =>
+    (text.length + tag.length) * FIGURE_CHARS + TAG_CHARS <= lineChars;
   const tenths = { text: `${hoursFigure(clocked, 1)} h`, tag: `+${hoursFigure(excess, 1)} h` };
   if (fits(tenths)) return tenths;
   const whole = { text: `${Math.round(clocked)} h`, tag: `+${Math.round(excess)} h` };
