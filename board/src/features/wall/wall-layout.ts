@@ -183,8 +183,8 @@ const BAND_SPACING = { padding: 1.6, gap: 1.4 } as const;
 
 /**
  * What a held bay's band has room for besides its word: the icon and the longest time held ("59m"),
- * or the time alone (five columns, say: the word and the time say more than the icon does), or
- * neither, on a tile narrower than the board ever makes one.
+ * or the time alone (five columns, say: the word and the time say more than the icon does), or the
+ * icon alone, on a tile narrower than the board ever makes one.
  */
 export function heldBandParts(tileWidth: number, scale = 1): { icon: boolean; note: boolean } {
   const { icon, heldWord, widestHeldNote } = BAND_EMS;
