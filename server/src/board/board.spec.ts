@@ -53,13 +53,17 @@ describe(BoardService.name, () => {
   it('clears a timer from its bay once it is stopped', async () => {
     const board = sut.app.get(BoardService);
     const timed = board.snapshot(0, new Date()).bays.find((bay) => bay.timer);
-    // The demo shop has a timer running in a bay.
-    expect(timed).toBeDefined();
+    // The demo shop's sealant cure runs in Bay 4.
+    expect(timed).toMatchObject({ name: 'Bay 4', state: 'timer', timer: { kind: 'set-time' } });
     const owner = await sut.signIn(DEMO.owner);
     await sut.http().post(`/api/timers/${timed!.timer!.id}/stop`).auth(owner, { type: 'bearer' }).expect(200);
     const after = board.snapshot(0, new Date()).bays.find((bay) => bay.id === timed!.id);
     expect(after?.timer).toBeNull();
-    expect(after?.state).not.toBe('timer');
+    // Its line is still there: worked on if someone is clocked on it, else staged in the free bay.
+    expect(after).toMatchObject({
+      jobLine: timed!.jobLine,
+      state: timed!.clockRunning ? 'working' : 'staged',
+    });
   });
 
   it('shows an idle technician as idle since the last break or job ended, not since the shift began', async () => {
