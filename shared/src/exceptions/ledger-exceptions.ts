@@ -1,7 +1,7 @@
 import type { Ledger } from '../ledger/ledger.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 import type { ExceptionKind } from './exceptions.schema.js';
-import { formatDayClockTime } from '../time/format.js';
+import { durationWords, formatDayClockTime } from '../time/format.js';
 
 /** 29 CFR 785.18: rest periods of short duration, about 5 to 20 minutes, are hours worked. */
 export const LONGEST_REST_MINUTES = 20;
@@ -17,15 +17,6 @@ export interface LedgerException {
 
 type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours' | 'minimumMealMinutes'> &
   Partial<Pick<ShopSettings, 'clockFormat'>>;
-
-const minutes = (ms: number) => Math.round(ms / 60_000);
-/** "25 min", "1 h 5 min", "10 h": a break left open overnight reads in hours. */
-const duration = (ms: number) => {
-  const total = minutes(ms);
-  if (total < 60) return `${total} min`;
-  const rest = total % 60;
-  return `${Math.floor(total / 60)} h${rest ? ` ${rest} min` : ''}`;
-};
 
 /**
  * The exceptions one technician's ledger shows for intervals that begin in [from, to): open shifts past the
@@ -65,7 +56,7 @@ export function ledgerExceptions(
         kind: 'open-break',
         key: key('open-break'),
         at: pause.from,
-        text: `${words} from ${when(pause.from)} was never ended: the shift-out closed it after ${duration(length)}`,
+        text: `${words} from ${when(pause.from)} was never ended: the shift-out closed it after ${durationWords(length / 1000)}`,
       });
     else if (
       pause.open &&
@@ -75,21 +66,21 @@ export function ledgerExceptions(
         kind: 'open-break',
         key: key('open-break'),
         at: pause.from,
-        text: `${words} from ${when(pause.from)} is still open after ${duration(length)}`,
+        text: `${words} from ${when(pause.from)} is still open after ${durationWords(length / 1000)}`,
       });
     else if (!pause.open && pause.declared === 'meal' && pause.kind === 'rest')
       found.push({
         kind: 'short-meal',
         key: key('short-meal'),
         at: pause.from,
-        text: `Meal break at ${when(pause.from)} lasted ${duration(length)}, under the shop's ${settings.minimumMealMinutes}: counted as paid rest`,
+        text: `Meal break at ${when(pause.from)} lasted ${durationWords(length / 1000)}, under the shop's ${settings.minimumMealMinutes}: counted as paid rest`,
       });
     else if (!pause.open && pause.kind === 'rest' && length > LONGEST_REST_MINUTES * 60_000)
       found.push({
         kind: 'long-rest',
         key: key('long-rest'),
         at: pause.from,
-        text: `${words} at ${when(pause.from)} lasted ${duration(length)}, over ${LONGEST_REST_MINUTES} min: counted as paid; correct it if it was a meal`,
+        text: `${words} at ${when(pause.from)} lasted ${durationWords(length / 1000)}, over ${LONGEST_REST_MINUTES} min: counted as paid; correct it if it was a meal`,
       });
   }
   return found.sort((a, b) => a.at.getTime() - b.at.getTime());

@@ -25,6 +25,17 @@ export function formatHours(seconds: number): string {
   return formatBookHours(seconds / 3600);
 }
 
+/** "45 s", "30 min", "1 h 30 min": a duration as words. */
+export function durationWords(seconds: number): string {
+  const total = Math.max(0, Math.round(seconds));
+  if (total < 60) return `${total} s`;
+  const minutes = Math.round(total / 60);
+  const h = Math.floor(minutes / 60);
+  const m = minutes % 60;
+  if (h === 0) return `${m} min`;
+  return m === 0 ? `${h} h` : `${h} h ${m} min`;
+}
+
 /** A countdown, rounded up so it reads 0:00 only when time is up: "4:05", or "1:04:05" from an hour up. */
 export function formatCountdown(seconds: number): string {
   const total = Math.max(0, Math.ceil(seconds));
