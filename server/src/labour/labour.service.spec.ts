@@ -94,6 +94,26 @@ describe(LabourService.name, () => {
       .get().id;
 
   // Each run has technicians and lines of its own: punches are only ever added, as in the shop.
+  it('counts a line worked in a shift left open for more than a day and a half', () => {
+    const now = new Date(Math.floor(Date.now() / MINUTE) * MINUTE);
+    const technicianId = newTechnician(now);
+    const line = newLine(now);
+    const punch = (kind: PunchKind, hoursAgo: number, jobLineId: number | null = null) => ({
+      id: randomUUID(),
+      technicianId,
+      kind,
+      jobLineId,
+      at: new Date(now.getTime() - hoursAgo * 60 * MINUTE),
+      recordedAt: now,
+      recordedBy: ownerId,
+    });
+    // No shift-out since the shift-in 40 hours ago: the hour on the line still counts.
+    db.insert(punches)
+      .values([punch('shift-in', 40), punch('job-on', 2, line), punch('job-off', 1, line)])
+      .run();
+    expect(new LabourService(db, shop).lineSeconds([line], now).get(line)!.total).toBe(3600);
+  });
+
   it('counts each line’s clocked time as a ledger of the technicians’ whole history does, and again after punches come in late', () => {
     const now = new Date(Math.floor(Date.now() / MINUTE) * MINUTE);
     const settings = shop.settings(now);

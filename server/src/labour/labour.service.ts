@@ -16,9 +16,6 @@ import { KeptLineSeconds, type LineSeconds, type PunchWindow } from './kept-line
 
 type PunchRow = typeof punches.$inferSelect;
 
-/** How far back a punch can matter to "now": the longest shift we expect to still be open. */
-const OPEN_SHIFT_LOOKBACK_MS = 36 * 3600_000;
-
 export function toPunchDto(row: PunchRow): PunchDto {
   return {
     id: row.id,
@@ -96,10 +93,10 @@ interface LineWindow {
  * on those lines, not their whole history. A job on a line runs from a punch on it to a punch no later
  * than the shift-out that follows; the other jobs it shares its time with opened after the shift-out
  * before. So per technician and UTC day of punches on the lines, a window from the last shift-out before
- * the first of them (at most `lookback` back, as far as a shift may still be open) to the first shift-out
- * at or after the last (none yet: the window runs to `now`); a corrected shift-out ends nothing. As long
- * as no shift stays open longer than the lookback, a ledger of the punches in the windows gives each line
- * the seconds that a ledger of all the technician's punches gives it.
+ * the first of them (however long ago: a shift left open over a weekend still opened the job) to the
+ * first shift-out at or after the last (none yet: the window runs to `now`); a corrected shift-out ends
+ * nothing. A ledger of the punches in the windows gives each line the seconds that a ledger of all the
+ * technician's punches gives it. The last shift-out is found walking back the (technician, at) index.
  */
 function windowsAroundLines(db: Db, lines: readonly number[], now: number): LineWindow[] {
   const shiftOut = (at: SQL) => sql`
@@ -114,9 +111,9 @@ function windowsAroundLines(db: Db, lines: readonly number[], now: number): Line
     )
     select technician_id as technicianId, lines,
       coalesce((
-        ${shiftOut(sql`shift_out.at < on_lines.first and shift_out.at >= on_lines.first - ${OPEN_SHIFT_LOOKBACK_MS}`)}
+        ${shiftOut(sql`shift_out.at < on_lines.first`)}
         order by shift_out.at desc limit 1
-      ), on_lines.first - ${OPEN_SHIFT_LOOKBACK_MS}) as start,
+      ), 0) as start,
       (
         ${shiftOut(sql`shift_out.at >= on_lines.last and shift_out.at <= ${now}`)}
         order by shift_out.at limit 1
