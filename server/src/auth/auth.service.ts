@@ -20,6 +20,8 @@ const OFFICE_TOKEN_TTL = '12h';
 const KIOSK_TOKEN_TTL = '2h';
 /** A wall screen or kiosk stays paired until the owner revokes it. */
 const DISPLAY_TOKEN_TTL = '3650d';
+/** Tokens whose signature was verified, kept so a busy kiosk's every punch skips the HMAC and parsing. */
+const VERIFIED_TOKENS_KEPT = 4096;
 const DEVICE_ROLE = { wall: 'display', kiosk: 'kiosk' } as const satisfies Record<
   DeviceKind,
   Principal['role']
@@ -34,6 +36,8 @@ export class AuthService {
   readonly badgeSignIns$ = new Subject<Principal>();
   /** Every request and socket asks who its token belongs to: prepared once. */
   private readonly callers;
+  /** Payloads of tokens already verified, oldest first; expiry and the caller are checked on every use. */
+  private readonly verified = new Map<string, TokenPayload>();
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -96,12 +100,17 @@ export class AuthService {
   /** The one place a token becomes a caller, for HTTP and for the live socket alike. */
   check(token: unknown, now = Date.now()): TokenCheck {
     if (typeof token !== 'string' || token === '') return { refusal: 'token-missing' };
-    let payload: TokenPayload;
-    try {
-      // Expiry is checked below, after the caller: a revoked screen hears that it was revoked.
-      payload = this.jwt.verify<TokenPayload>(token, { ignoreExpiration: true });
-    } catch {
-      return { refusal: 'token-invalid' };
+    let payload = this.verified.get(token);
+    if (!payload) {
+      try {
+        // Expiry is checked below, after the caller: a revoked screen hears that it was revoked.
+        payload = this.jwt.verify<TokenPayload>(token, { ignoreExpiration: true });
+      } catch {
+        return { refusal: 'token-invalid' };
+      }
+      if (this.verified.size >= VERIFIED_TOKENS_KEPT)
+        this.verified.delete(this.verified.keys().next().value!);
+      this.verified.set(token, payload);
     }
     return this.checkPayload(payload, now);
   }

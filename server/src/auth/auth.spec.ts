@@ -85,6 +85,20 @@ describe(AuthService.name, () => {
     await sut.http().get('/api/me').auth(expired, { type: 'bearer' }).expect(401);
   });
 
+  it('checks expiry and signature on every use of a token it has accepted before', async () => {
+    const auth = sut.app.get(AuthService);
+    const token = new JwtService({ secret: sut.config.jwtSecret }).sign(
+      { sub: 1, role: 'owner' },
+      { expiresIn: 60 },
+    );
+    expect(auth.check(token)).toHaveProperty('principal.id', 1);
+    expect(auth.check(token, Date.now() + 61_000)).toEqual({ refusal: 'token-expired' });
+    const [header, body, signature] = token.split('.') as [string, string, string];
+    const tampered = `${header}.${body}.${signature.slice(0, 10)}${signature[10] === 'A' ? 'B' : 'A'}${signature.slice(11)}`;
+    expect(auth.check(tampered)).toEqual({ refusal: 'token-invalid' });
+    expect(auth.check(token)).toHaveProperty('principal.id', 1);
+  });
+
   it('reads a Bearer token in any case of the scheme, and refuses others with a bare 401', async () => {
     const owner = await sut.signIn(DEMO.owner);
     await sut.http().get('/api/me').set('authorization', `bearer ${owner}`).expect(200);
