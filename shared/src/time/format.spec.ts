@@ -7,6 +7,7 @@ import {
   formatHours,
   formatShopInstant,
   hoursFigure,
+  waitWords,
 } from './format.js';
 
 describe('formatShopInstant', () => {
@@ -58,5 +59,19 @@ describe('labour and countdowns', () => {
     expect(formatCountdown(0.2)).toBe('0:01');
     expect(formatCountdown(3845)).toBe('1:04:05');
     expect(formatCountdown(-3)).toBe('0:00');
+  });
+});
+
+describe(waitWords.name, () => {
+  it('grows from minutes to hours to days, counting whole minutes waited', () => {
+    const now = Date.parse('2026-12-01T16:10:00Z');
+    const waited = (since: string) => waitWords(Date.parse(since), now);
+    expect(waited('2026-12-01T16:09:40Z')).toBe('just now');
+    expect(waited('2026-12-01T16:00:30Z')).toBe('9 min');
+    expect(waited('2026-12-01T14:00:00Z')).toBe('2 h 10 min');
+    expect(waited('2026-12-01T14:10:00Z')).toBe('2 h');
+    expect(waited('2026-11-30T15:00:00Z')).toBe('1 day 1 h');
+    expect(waited('2026-11-28T16:00:00Z')).toBe('3 days');
+    expect(waited('2026-12-01T16:20:00Z')).toBe('just now');
   });
 });

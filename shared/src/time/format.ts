@@ -36,6 +36,16 @@ export function durationWords(seconds: number): string {
   return m === 0 ? `${h} h` : `${h} h ${m} min`;
 }
 
+/** How long something has waited, to the whole minute: "just now", "12 min", "2 h 5 min", "3 days 4 h". */
+export function waitWords(sinceMs: number, nowMs: number): string {
+  const minutes = Math.max(0, Math.floor((nowMs - sinceMs) / 60_000));
+  if (minutes < 1) return 'just now';
+  const days = Math.floor(minutes / (24 * 60));
+  if (days === 0) return durationWords(minutes * 60);
+  const hours = Math.floor((minutes % (24 * 60)) / 60);
+  return `${days} ${days === 1 ? 'day' : 'days'}${hours ? ` ${hours} h` : ''}`;
+}
+
 /** A countdown, rounded up so it reads 0:00 only when time is up: "4:05", or "1:04:05" from an hour up. */
 export function formatCountdown(seconds: number): string {
   const total = Math.max(0, Math.ceil(seconds));

@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { formatEfficiency, formatShopTime, formatWait } from './dispatch-format';
+import { formatEfficiency, formatShopTime } from './dispatch-format';
 
 const NOW = Date.parse('2026-03-04T15:00:00.000Z'); // Wednesday 9:00 AM in Chicago (CST, UTC−6)
 const ZONE = 'America/Chicago';
-
-describe(formatWait.name, () => {
-  it('grows from minutes to hours to days', () => {
-    expect(formatWait('2026-03-04T14:59:40.000Z', NOW)).toBe('just now');
-    expect(formatWait('2026-03-04T14:48:00.000Z', NOW)).toBe('12 min');
-    expect(formatWait('2026-03-04T12:55:00.000Z', NOW)).toBe('2 h 05 min');
-    expect(formatWait('2026-02-28T11:00:00.000Z', NOW)).toBe('4 d 4 h');
-  });
-});
 
 describe(formatEfficiency.name, () => {
   it('shows a percentage, or "new" without history', () => {

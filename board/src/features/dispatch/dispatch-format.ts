@@ -1,22 +1,8 @@
 import { dateTimeFormat } from '@/lib/date-format';
 import { clockTime } from '@/lib/shop-clock';
-/** Short shapes for dispatch: times in the shop's zone, hours of labour, waits. */
-
-function pad2(n: number): string {
-  return String(n).padStart(2, '0');
-}
+/** Short shapes for dispatch: times in the shop's zone and hours of labour. */
 
 export { formatBookHours, formatHours } from '@baytime/shared';
-
-/** How long a line has waited, "12 min", "2 h 05 min", "3 d 4 h". */
-export function formatWait(fromIso: string, nowMs: number): string {
-  const minutes = Math.max(0, Math.floor((nowMs - Date.parse(fromIso)) / 60_000));
-  if (minutes < 1) return 'just now';
-  if (minutes < 60) return `${minutes} min`;
-  const hours = Math.floor(minutes / 60);
-  if (hours < 24) return `${hours} h ${pad2(minutes % 60)} min`;
-  return `${Math.floor(hours / 24)} d ${hours % 24} h`;
-}
 
 /** A 4-week efficiency (flagged ÷ clocked) as "112 %"; "new" when there is no history yet. */
 export function formatEfficiency(efficiency: number | null): string {

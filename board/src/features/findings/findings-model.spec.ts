@@ -7,7 +7,6 @@ import {
   parseHours,
   sortPending,
   titleHint,
-  waitedText,
 } from './findings-model';
 
 function finding(id: number, extra: Partial<FindingDto> = {}): FindingDto {
@@ -99,15 +98,6 @@ describe('findings inbox model', () => {
     ]);
     expect(groups.map((g) => g.repairOrderNumber)).toEqual(['4501', '4497']);
     expect(groups[1]!.findings.map((f) => f.id)).toEqual([3, 1]);
-  });
-
-  it('says how long a finding has waited', () => {
-    const now = Date.parse('2026-12-01T16:10:00Z');
-    expect(waitedText('2026-12-01T16:09:40Z', now)).toBe('just now');
-    expect(waitedText('2026-12-01T16:00:00Z', now)).toBe('10 min');
-    expect(waitedText('2026-12-01T14:00:00Z', now)).toBe('2 h 10 min');
-    expect(waitedText('2026-12-01T14:10:00Z', now)).toBe('2 h');
-    expect(waitedText('2026-11-28T14:00:00Z', now)).toBe('3 days');
   });
 
   it('reads book hours as people type them', () => {

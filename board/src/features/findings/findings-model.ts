@@ -48,17 +48,6 @@ export function groupAnswered(findings: readonly FindingDto[]): AnsweredGroup[] 
   return [...groups.values()];
 }
 
-/** How long a finding has waited, "5 min", "2 h 10 min", "3 days". */
-export function waitedText(since: string, now: number): string {
-  const minutes = Math.max(0, Math.floor((now - Date.parse(since)) / 60_000));
-  if (minutes < 1) return 'just now';
-  if (minutes < 60) return `${minutes} min`;
-  const hours = Math.floor(minutes / 60);
-  if (hours < 24) return minutes % 60 ? `${hours} h ${minutes % 60} min` : `${hours} h`;
-  const days = Math.floor(hours / 24);
-  return days === 1 ? '1 day' : `${days} days`;
-}
-
 /** Book hours as typed ("1.5", "1,5", " 2 ") to a number; null when it is not one. */
 export function parseHours(text: string): number | null {
   const cleaned = text.trim().replace(',', '.');

@@ -8,12 +8,13 @@ import {
   JOB_LINE_STATUS_WORDS,
   aboutWords,
   skillWords,
+  waitWords,
   type DispatchBoard,
   type DispatchLine,
 } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
 import { findLane, firstName, skillWarning, type MoveTarget } from '../dispatch-model';
-import { formatBookHours, formatHours, formatShopTime, formatWait } from '../dispatch-format';
+import { formatBookHours, formatHours, formatShopTime } from '../dispatch-format';
 import { PRIORITY_LABELS } from '../dispatch-words';
 import { useLineTools } from './line-tools';
 import { MoveMenu } from './move-menu';
@@ -256,7 +257,7 @@ export function LineCard({
           </Caption1>
           <Caption1 className={styles.numbers}>
             {line.promisedAt ? `Promised ${formatShopTime(line.promisedAt, nowMs, timeZone)}` : 'No promise'}
-            {' · '}waiting {formatWait(line.queuedAt, nowMs)}
+            {' · '}waiting {waitWords(Date.parse(line.queuedAt), nowMs)}
           </Caption1>
         </div>
       ) : (

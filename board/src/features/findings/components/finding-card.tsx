@@ -14,11 +14,11 @@ import {
   FINDING_SEVERITY_LABELS,
   lineStatusWords,
   formatCents,
+  waitWords,
   type FindingDto,
   type FindingSeverity,
 } from '@baytime/shared';
 import { Glyph } from '@/components/glyph';
-import { waitedText } from '../findings-model';
 import { FindingPhotos } from './finding-photos';
 
 const SEVERITY_COLOUR: Record<FindingSeverity, 'danger' | 'important' | 'informative'> = {
@@ -134,7 +134,7 @@ export function FindingCard({
 }) {
   const styles = useStyles();
   const title = `RO ${finding.repairOrderNumber}, line ${finding.lineNo}`;
-  const waited = waitedText(finding.createdAt, now);
+  const waited = waitWords(Date.parse(finding.createdAt), now);
   const ago = waited === 'just now' ? waited : `${waited} ago`;
   return (
     <Card
