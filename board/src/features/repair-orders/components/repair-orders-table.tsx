@@ -37,7 +37,7 @@ import {
   type RepairOrderFilters,
   type StatusFilter,
 } from '../ro-model';
-import { formatBookHours, formatDateTime } from '../ro-format';
+import { formatBookHours, formatDateTime, formatHours } from '../ro-format';
 
 const PAGE_SIZE = 50;
 const SEARCH_SETTLE_MS = 300;
@@ -203,6 +203,7 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                 <TableHeaderCell>Promised</TableHeaderCell>
                 <TableHeaderCell>Job lines</TableHeaderCell>
                 <TableHeaderCell>Book</TableHeaderCell>
+                <TableHeaderCell>Clocked</TableHeaderCell>
               </TableRow>
             </TableHeader>
             <TableBody>
@@ -210,6 +211,7 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                 const done = order.lines.filter((line) => line.status === 'done').length;
                 const held = order.lines.filter((line) => line.status === 'held').length;
                 const book = order.lines.reduce((sum, line) => sum + line.bookHours, 0);
+                const clocked = order.lines.reduce((sum, line) => sum + line.clockedSeconds, 0);
                 // Late by the one definition dispatch and the wall count, worked out by the server.
                 const late = order.late;
                 return (
@@ -248,6 +250,7 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                       {held > 0 && <Caption1 className={styles.dim}> · {held} held</Caption1>}
                     </TableCell>
                     <TableCell className={styles.numeric}>{formatBookHours(book)}</TableCell>
+                    <TableCell className={styles.numeric}>{formatHours(clocked)}</TableCell>
                   </TableRow>
                 );
               })}
