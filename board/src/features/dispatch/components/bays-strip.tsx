@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { useRecordFinalCheck } from '../api/final-check';
 import { useDroppable } from '@dnd-kit/core';
 import { Button, makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
@@ -27,6 +27,17 @@ const useStyles = makeStyles({
     outlineOffset: '1px',
   },
   name: { fontWeight: tokens.fontWeightBold, whiteSpace: 'nowrap' },
+  /** Free bays share one state chip: a big shop's idle bays would otherwise fill rows of the page. */
+  free: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    columnGap: tokens.spacingHorizontalXS,
+    rowGap: tokens.spacingVerticalXS,
+    padding: `2px ${tokens.spacingHorizontalXS}`,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground3,
+  },
   target: { outlineColor: tokens.colorNeutralStroke1, outlineStyle: 'dashed' },
   over: {
     outlineStyle: 'solid',
@@ -61,21 +72,21 @@ function ReleaseButton({ name, busy, onRelease }: { name: string; busy: boolean;
   );
 }
 
-function BayChip({
+type DispatchBay = DispatchBoard['bays'][number];
+
+/** A bay a line can be dropped on: its name, and whatever the bay's state shows beside it. */
+function BayDropTarget({
   bay,
   canEdit,
   dragging,
-  releasing,
-  onRelease,
+  children,
 }: {
-  bay: DispatchBoard['bays'][number];
+  bay: DispatchBay;
   canEdit: boolean;
   dragging: DispatchLine | null;
-  releasing: boolean;
-  onRelease: (bayId: number) => void;
+  children?: ReactNode;
 }) {
   const styles = useStyles();
-  const finalCheck = useRecordFinalCheck();
   const { setNodeRef, isOver } = useDroppable({ id: dropId.bay(bay.id), disabled: !canEdit });
   const incoming = dragging !== null && dragging.bayId !== bay.id;
   return (
@@ -84,6 +95,27 @@ function BayChip({
       className={mergeClasses(styles.bay, incoming && styles.target, incoming && isOver && styles.over)}
     >
       <span className={styles.name}>{bay.name}</span>
+      {children}
+    </div>
+  );
+}
+
+function BayChip({
+  bay,
+  canEdit,
+  dragging,
+  releasing,
+  onRelease,
+}: {
+  bay: DispatchBay;
+  canEdit: boolean;
+  dragging: DispatchLine | null;
+  releasing: boolean;
+  onRelease: (bayId: number) => void;
+}) {
+  const finalCheck = useRecordFinalCheck();
+  return (
+    <BayDropTarget bay={bay} canEdit={canEdit} dragging={dragging}>
       <StateChip state={bay.state} />
       {bay.state === 'check' && (
         <Button
@@ -98,7 +130,7 @@ function BayChip({
       {canEdit && (bay.state === 'check' || bay.state === 'ready') && (
         <ReleaseButton name={bay.name} busy={releasing} onRelease={() => onRelease(bay.id)} />
       )}
-    </div>
+    </BayDropTarget>
   );
 }
 
@@ -110,21 +142,35 @@ export interface BaysStripProps {
   onRelease: (bayId: number) => void;
 }
 
-/** Every bay and its state; a line dropped on a bay is set to work there. */
+/**
+ * Every bay and its state, the bays in use first and then the free ones together; a line dropped on a
+ * bay is set to work there.
+ */
 export function BaysStrip({ board, canEdit, dragging, releasingId, onRelease }: BaysStripProps) {
   const styles = useStyles();
+  const free = board.bays.filter((bay) => bay.state === 'free');
   return (
     <section className={styles.strip} aria-label="Bays: drop a line on one to set where it is worked">
-      {board.bays.map((bay) => (
-        <BayChip
-          key={bay.id}
-          bay={bay}
-          canEdit={canEdit}
-          dragging={dragging}
-          releasing={releasingId === bay.id}
-          onRelease={onRelease}
-        />
-      ))}
+      {board.bays
+        .filter((bay) => bay.state !== 'free')
+        .map((bay) => (
+          <BayChip
+            key={bay.id}
+            bay={bay}
+            canEdit={canEdit}
+            dragging={dragging}
+            releasing={releasingId === bay.id}
+            onRelease={onRelease}
+          />
+        ))}
+      {free.length > 0 && (
+        <div className={styles.free} role="group" aria-label={`Free bays: ${free.length}`}>
+          <StateChip state="free" />
+          {free.map((bay) => (
+            <BayDropTarget key={bay.id} bay={bay} canEdit={canEdit} dragging={dragging} />
+          ))}
+        </div>
+      )}
     </section>
   );
 }
