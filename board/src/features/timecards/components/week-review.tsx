@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import { Badge, Caption1, Subtitle2, Text, makeStyles, tokens } from '@fluentui/react-components';
-import { EXCEPTION_TITLES, type Timecard } from '@baytime/shared';
+import { EXCEPTION_TITLES, formatBookHours, type Timecard } from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { formatMoney } from '@/lib/form-errors';
 import { PUNCH_WORDS, formatDayClock } from '../timecard-format';
@@ -26,7 +26,6 @@ const useStyles = makeStyles({
   dim: { color: tokens.colorNeutralForeground3 },
 });
 
-const hours = (value: number) => `${value.toFixed(2)} h`;
 const percent = (ratio: number | null) => (ratio === null ? '–' : `${Math.round(ratio * 100)}%`);
 
 /**
@@ -46,9 +45,9 @@ export function WeekReview({ card }: { card: Timecard }) {
       <dl className={styles.figures}>
         {(
           [
-            ['Flagged', hours(labour.flaggedHours)],
+            ['Flagged', formatBookHours(labour.flaggedHours)],
             ['Efficiency', percent(labour.efficiency)],
-            ['Work in progress', hours(labour.workInProgressHours)],
+            ['Work in progress', formatBookHours(labour.workInProgressHours)],
             ...(pay ? [['Estimated pay this week', formatMoney(pay.payableCents)] as const] : []),
           ] as const
         ).map(([term, value]) => (
