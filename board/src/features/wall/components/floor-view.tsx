@@ -23,14 +23,14 @@ import {
   formatHours,
   lineWords,
   offlineSinceWords,
+  waitWords,
   type BoardBay,
   type BoardSnapshot,
 } from '@baytime/shared';
 import { StateChip } from '@/components/state-chip';
 import { clockedSecondsAt } from '../board-store';
 import { clockedBar, countdownFact, holdFacts } from '../bay-facts';
-import { formatSpan, formatTimeOfDay } from '../board-time';
-import { secondsSince } from '../server-clock';
+import { formatTimeOfDay } from '../board-time';
 import type { LinkStatus } from '../live-board';
 import { LINK_LOST_AFTER_MS } from './wall-top-bar';
 
@@ -162,7 +162,7 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
               .map((fact) => fact.text)
               .join(' ')}
           </strong>
-          {bay.heldSince && ` · held ${formatSpan(secondsSince(bay.heldSince, nowMs))}`}
+          {bay.heldSince && ` · held ${waitWords(Date.parse(bay.heldSince), nowMs)}`}
         </Body1>
       )}
       {timer && (
@@ -285,7 +285,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                         {[person.bayName, person.jobLineTitle].filter(Boolean).join(' · ') || '—'}
                       </span>
                     </TableCell>
-                    <TableCell>{formatSpan(secondsSince(person.since, nowMs))}</TableCell>
+                    <TableCell>{waitWords(Date.parse(person.since), nowMs)}</TableCell>
                   </TableRow>
                 ))}
               </TableBody>
@@ -320,7 +320,7 @@ export function FloorView({ snapshot, bayAsOf, nowMs }: FloorViewProps) {
                           {PRIORITY_WORDS[item.priority]}
                         </Badge>
                       </TableCell>
-                      <TableCell>{formatSpan(secondsSince(item.waitingSince, nowMs))}</TableCell>
+                      <TableCell>{waitWords(Date.parse(item.waitingSince), nowMs)}</TableCell>
                     </TableRow>
                   ))}
               </TableBody>
