@@ -95,14 +95,40 @@ export class PaySummaryService {
     return this.live(label, settings, now).report;
   }
 
-  /** The week computed now from the records, whatever its state. */
-  live(label: string, settings: ShopSettings, now: Date, withAdjustments = true): LivePay {
+  /**
+   * One technician's row of the pay summary (a timecard, the kiosk's week), worked out for that technician
+   * alone: the very row the whole summary shows.
+   */
+  technicianRow(week: string, technicianId: number, now = new Date()): PayReportTechnician | null {
+    const settings = this.shop.settings(now);
+    const closed = this.closedWeeks.closed(week);
+    const report = closed?.snapshot
+      ? this.fromSnapshot(closed)
+      : this.live(week, settings, now, { only: technicianId }).report;
+    return report.technicians.find((row) => row.technicianId === technicianId) ?? null;
+  }
+
+  /**
+   * The week computed now from the records, whatever its state. With `only`, just that technician's row
+   * (and the report's totals are theirs alone).
+   */
+  live(
+    label: string,
+    settings: ShopSettings,
+    now: Date,
+    { withAdjustments = true, only }: { withAdjustments?: boolean; only?: number } = {},
+  ): LivePay {
     const current = this.weeks.figures([label], settings, now)[0]!;
     const days = daysOf(label, settings);
     const firstDay = days[0]!.day;
     const rules = this.shop.rulesFor(firstDay);
-    const adjustments = withAdjustments ? this.adjustments(label, settings, now) : [];
-    const people = this.technicians(current, new Set(adjustments.map((a) => a.technicianId)));
+    const counted = (technicianId: number) => only === undefined || technicianId === only;
+    const adjustments = withAdjustments
+      ? this.adjustments(label, settings, now).filter((a) => counted(a.technicianId))
+      : [];
+    const people = this.technicians(current, new Set(adjustments.map((a) => a.technicianId))).filter(
+      (person) => counted(person.id),
+    );
     const rates = this.rates.ratesOn(
       people.map((p) => p.id),
       firstDay,
@@ -136,7 +162,9 @@ export class PaySummaryService {
       from: current.from,
       to: current.to,
       now,
-      ledgers: new Map([...current.technicians].map(([id, week]) => [id, week.ledger])),
+      ledgers: new Map(
+        [...current.technicians].filter(([id]) => counted(id)).map(([id, week]) => [id, week.ledger]),
+      ),
     });
     const running = now >= current.from && now < current.to;
     const { elapsedMs, totalMs } = openingProgress(days, settings, now);
@@ -355,7 +383,7 @@ export class PaySummaryService {
     const result: PayAdjustment[] = [];
     for (const closed of run) {
       if (!this.changedSinceClosing(closed, settings)) continue;
-      const live = this.live(closed.week, settings, now, false).report;
+      const live = this.live(closed.week, settings, now, { withAdjustments: false }).report;
       const snapshot = closed.snapshot!.report;
       const carried = run
         .filter((later) => later.week > closed.week && later.closedAt! > closed.closedAt!)

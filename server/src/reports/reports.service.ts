@@ -117,10 +117,9 @@ export class ReportsService {
     const settings = this.shop.settings(now);
     const figures = this.weeks.figures([week], settings, now)[0]!;
     const showPay = viewer === 'owner' || (viewer === 'technician' && settings.kioskShowsPay);
-    const report = showPay ? this.pay(week, now) : null;
     return {
       labour: present(labourKpis(hoursOf(figures, technicianId))),
-      pay: report?.technicians.find((row) => row.technicianId === technicianId) ?? null,
+      pay: showPay ? this.paySummary.technicianRow(week, technicianId, now) : null,
       closed: this.closedWeeks.closed(week) !== undefined,
       caution: PAY_ESTIMATE_CAUTION,
     };
