@@ -77,6 +77,17 @@ describe('query plans', () => {
     );
   });
 
+  it('the floor’s window of a technician’s punches starts at their last shift-out, found by index', () => {
+    expect(
+      planOf('the last shift-out', /"punches"\."kind" = \? and "punches"\."at" < \? and not exists/),
+    ).toEqual(
+      expect.arrayContaining([
+        'SEARCH punches USING INDEX punches_technician_id_at_idx (technician_id=? AND at<?)',
+        'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
+      ]),
+    );
+  });
+
   it('the punches on given job lines', () => {
     expect(planOf('punches by job line', /from "punches" where "punches"\."job_line_id" in/)).toContainEqual(
       expect.stringMatching(

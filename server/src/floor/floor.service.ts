@@ -1,6 +1,6 @@
 import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
 import type { Subscription } from 'rxjs';
-import { and, asc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
 import {
   buildLedger,
   isOpenLine,
@@ -30,10 +30,11 @@ import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
 
 const HOUR_MS = 3600_000;
-/** Punches kept for every technician: enough to judge a punch up to 12 h late against 48 h before it. */
+/**
+ * Punches kept for every technician: enough to judge a punch up to 12 h late against 48 h before it. The
+ * window reaches back further, to the shift-out before it, so a shift left open for days is still open here.
+ */
 const RECENT_MS = 72 * HOUR_MS;
-/** How far before its first punch on an open line a technician's shift may have begun. */
-const SHIFT_LOOKBACK_MS = 36 * HOUR_MS;
 
 export type FloorLine = typeof jobLines.$inferSelect & {
   repairOrderNumber: string;
@@ -55,7 +56,10 @@ export interface FloorTechnician {
 
 /** One technician's punches in memory and the ledger last built from them. */
 interface TechnicianPunches {
-  /** Punches at or after this instant are all here, in time order. */
+  /**
+   * Punches at or after this instant are all here, in time order. It is a shift-out that no correction
+   * replaced (or 0): every shift the window holds began in it.
+   */
   windowStart: number;
   punches: LedgerPunch[];
   built: {
@@ -305,19 +309,19 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     return clock.built;
   }
 
-  /** Drops punches no open line and no recent shift needs any more. */
+  /** Drops the shifts that ended before anything still needed: recent punches and those on open lines. */
   private prune(clock: TechnicianPunches, now: number): void {
-    const needed = Math.min(now - RECENT_MS, this.firstNeeded(clock.punches) ?? Infinity);
-    if (needed <= clock.windowStart) return;
-    const keep = clock.punches.findIndex((punch) => Date.parse(punch.at) >= needed);
+    const start = shiftOutBefore(clock.punches, this.neededFrom(clock.punches, now));
+    if (start === null || start <= clock.windowStart) return;
+    const keep = clock.punches.findIndex((punch) => Date.parse(punch.at) >= start);
     clock.punches.splice(0, keep === -1 ? clock.punches.length : keep);
-    clock.windowStart = needed;
+    clock.windowStart = start;
   }
 
-  /** Where the window must start so that every punch on an open line is in it. */
-  private firstNeeded(list: readonly LedgerPunch[]): number | null {
+  /** The earliest instant the window must hold: 72 hours back, or the first punch on a line still open. */
+  private neededFrom(list: readonly LedgerPunch[], now: number): number {
     const first = list.find((punch) => punch.jobLineId !== null && this.lines.has(punch.jobLineId));
-    return first ? Date.parse(first.at) - SHIFT_LOOKBACK_MS : null;
+    return Math.min(now - RECENT_MS, first ? Date.parse(first.at) : Infinity);
   }
 
   private loadTechnicians(now: number): void {
@@ -335,7 +339,8 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     now: number,
     first = this.firstPunchesOnOpenLines().get(technicianId),
   ): TechnicianPunches {
-    const windowStart = Math.min(now - RECENT_MS, first ? first.getTime() - SHIFT_LOOKBACK_MS : Infinity);
+    const needed = Math.min(now - RECENT_MS, first ? first.getTime() : Infinity);
+    const windowStart = this.queries.shiftOutBefore.get({ technicianId, before: needed })?.at.getTime() ?? 0;
     const list = this.db
       .select()
       .from(punches)
@@ -376,7 +381,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
       .all();
     for (const { technicianId, first } of firsts) {
       const clock = this.clocks.get(technicianId);
-      if (clock && first && first.getTime() - SHIFT_LOOKBACK_MS < clock.windowStart)
+      if (clock && first && first.getTime() < clock.windowStart)
         this.clocks.set(technicianId, this.readClock(technicianId, Date.now()));
       else if (clock) clock.built = null;
     }
@@ -495,5 +500,31 @@ function prepareFloorQueries(db: Db) {
       .orderBy(asc(bays.position), asc(bays.id))
       .prepare(),
     runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
+    /** A technician's last shift-out before an instant that no correction replaced. */
+    shiftOutBefore: db
+      .select({ at: punches.at })
+      .from(punches)
+      .where(
+        and(
+          eq(punches.technicianId, sql.placeholder('technicianId')),
+          eq(punches.kind, 'shift-out'),
+          sql`${punches.at} < ${sql.placeholder('before')}`,
+          sql`not exists (select 1 from ${punches} correction where correction.supersedes = ${punches.id})`,
+        ),
+      )
+      .orderBy(desc(punches.at))
+      .limit(1)
+      .prepare(),
   };
+}
+
+/** The last shift-out before `instant` among the punches that no correction in the list replaced. */
+function shiftOutBefore(list: readonly LedgerPunch[], instant: number): number | null {
+  const replaced = new Set(list.flatMap((punch) => (punch.supersedes === null ? [] : [punch.supersedes])));
+  for (let i = list.length - 1; i >= 0; i--) {
+    const punch = list[i]!;
+    const at = Date.parse(punch.at);
+    if (punch.kind === 'shift-out' && at < instant && !replaced.has(punch.id)) return at;
+  }
+  return null;
 }

@@ -311,4 +311,28 @@ describe(FloorService.name, () => {
       { numRuns: 12 },
     );
   }, 180_000);
+
+  // Common practice, no source: a technician forgets to clock out on Friday morning and is back on Monday,
+  // over 72 hours later. Their shift is still open in the timecard, so it is open on the floor too.
+  it('keeps a shift left open for days open, from start-up and after later punches', async () => {
+    const created = await app.app
+      .get(UsersService)
+      .create({ name: 'Wren Halloway', role: 'technician', badge: '7301', pin: '4321' }, owner);
+    const wren: Principal = { id: created.id, name: created.name, role: 'technician' };
+    const punches = app.app.get(PunchesService);
+    const now = new Date();
+    const friday = new Date(now.getTime() - 80 * 3600_000);
+    punches.record({ id: randomUUID(), kind: 'shift-in', technicianId: wren.id }, owner, friday);
+
+    floor.load(now);
+    expect(floor.stateOf(wren.id, now)).toMatchObject({ status: 'on-shift', since: friday });
+    expect(() => punches.record({ id: randomUUID(), kind: 'shift-in' }, wren, now)).toThrow(
+      'You are already on shift',
+    );
+    punches.record({ id: randomUUID(), kind: 'break-start', breakKind: 'rest' }, wren, now);
+    await new Promise((resolve) => setImmediate(resolve));
+    const later = new Date(now.getTime() + 60_000);
+    expect(floor.stateOf(wren.id, later)).toMatchObject({ status: 'on-break' });
+    expect(floor.ledgerOf(wren.id, later)?.shifts[0]?.from).toEqual(friday);
+  });
 });
