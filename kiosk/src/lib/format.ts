@@ -1,5 +1,5 @@
 /** Clock times and durations as the shop floor reads them: "7:02 am", "1.2 h", "4:05" left. */
-export { clockFace, clockTime } from './shop-clock';
+export { clockFace, clockTime, localDay, sinceTime } from './shop-clock';
 export { durationWords, formatBookHours, formatCountdown as countdown, formatHours } from '@baytime/shared';
 
 /** "Wed, Dec 2" in the shop's zone (the tablet's own when the zone is not a valid one). */

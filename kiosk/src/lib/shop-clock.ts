@@ -30,3 +30,28 @@ export function dayClockTime(instant: Date | string | number, timeZone: string |
 export function clockFace(instant: Date | string | number, timeZone: string | undefined): ClockParts {
   return clockParts(instant, timeZone, shopClockFormat);
 }
+
+const dayKeyFormats = new Map<string, Intl.DateTimeFormat>();
+
+/** 'YYYY-MM-DD' of an instant in a time zone (the tablet's own without one). */
+export function localDay(at: string | number, timeZone: string | undefined): string {
+  const key = timeZone ?? '';
+  let format = dayKeyFormats.get(key);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-CA', {
+      timeZone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    });
+    dayKeyFormats.set(key, format);
+  }
+  return format.format(new Date(at));
+}
+
+/** Since when, as the shop reads it: "7:02 am" today, "Fri, Nov 27, 7:30 am" on an earlier day. */
+export function sinceTime(instant: string, now: number, timeZone: string | undefined): string {
+  return localDay(instant, timeZone) === localDay(now, timeZone)
+    ? clockTime(instant, timeZone)
+    : dayClockTime(instant, timeZone);
+}

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { MyDay, MyJobLine } from '@baytime/shared';
 import { clockAction, lineStatusWord } from './line-actions';
 import { projectDay } from './project-day';
+import { statusText } from './status-text';
 
 const line = (id: number, changes: Partial<MyJobLine> = {}): MyJobLine => ({
   id,
@@ -53,5 +54,25 @@ describe(clockAction.name, () => {
     expect(clockAction(busy, busy.lines[0]!, 1)).toEqual({ kind: 'resume', clockOn: false });
     const onBreak = projectDay(day([held], 'on-break'), [], 0);
     expect(clockAction(onBreak, onBreak.lines[0]!, 1)).toEqual({ kind: 'resume', clockOn: false });
+  });
+});
+
+describe(statusText.name, () => {
+  // 2026-03-10 is a Tuesday; Chicago is on CDT (UTC−5) from March 8, 2026.
+  const now = Date.parse('2026-03-10T15:00:00.000Z');
+  it('says since when the technician has been on shift, with the day when it began on an earlier one', () => {
+    const today = projectDay(day([line(1)]), [], now);
+    expect(statusText(today, now, 'America/Chicago').headline).toBe('On shift since 8:00 am · not on a job');
+    const leftOpen = projectDay(
+      {
+        ...day([line(1)]),
+        shift: { status: 'on-shift', since: '2026-03-06T13:30:00.000Z', breakKind: null },
+      },
+      [],
+      now,
+    );
+    expect(statusText(leftOpen, now, 'America/Chicago').headline).toBe(
+      'On shift since Fri, Mar 6, 7:30 am · not on a job',
+    );
   });
 });

@@ -1,5 +1,5 @@
 import { PERSON_STATUS_WORDS, PUNCH_WORDS, repairOrderLineWords } from '@baytime/shared';
-import { clockTime, durationWords, formatHours } from '@/lib/format';
+import { durationWords, formatHours, sinceTime } from '@/lib/format';
 import { lineSeconds, type ConcurrentSplit, type DayView } from './project-day';
 
 export interface StatusText {
@@ -24,13 +24,13 @@ export function statusText(
   if (shift.status === 'on-break') {
     const since = shift.since ?? new Date(now).toISOString();
     return {
-      headline: `On a ${shift.breakKind === 'rest' ? 'rest' : 'meal'} break since ${clockTime(since, timeZone)}`,
+      headline: `On a ${shift.breakKind === 'rest' ? 'rest' : 'meal'} break since ${sinceTime(since, now, timeZone)}`,
       detail: `Break so far ${durationWords((now - Date.parse(since)) / 1000)}`,
     };
   }
   const since = view.shiftStartedAt ?? shift.since;
   const head = since
-    ? `${PERSON_STATUS_WORDS['on-shift']} since ${clockTime(since, timeZone)}`
+    ? `${PERSON_STATUS_WORDS['on-shift']} since ${sinceTime(since, now, timeZone)}`
     : PERSON_STATUS_WORDS['on-shift'];
   const running = view.lines.filter((line) => line.clockedOn);
   if (running.length === 0) {

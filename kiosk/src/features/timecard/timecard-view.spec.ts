@@ -1,7 +1,7 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import type { Timecard, TimecardPunch } from '@baytime/shared';
-import { buildWeekView, localDay, weekFigures } from './timecard-view';
+import { buildWeekView, weekFigures } from './timecard-view';
 
 const zero = {
   attendanceSeconds: 0,
@@ -77,12 +77,6 @@ function card(changes: Partial<Timecard> = {}): Timecard {
     ...changes,
   };
 }
-
-describe(localDay.name, () => {
-  it('gives the calendar day in the shop’s zone, not UTC', () => {
-    expect(localDay('2026-12-01T03:30:00.000Z', 'America/Chicago')).toBe('2026-11-30');
-  });
-});
 
 describe(buildWeekView.name, () => {
   it('shows the week’s range in the shop’s zone and names the empty days', () => {

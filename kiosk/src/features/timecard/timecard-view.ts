@@ -5,7 +5,7 @@ import {
   type TimecardPunch,
   type TimecardTotals,
 } from '@baytime/shared';
-import { clockTime } from '@/lib/format';
+import { clockTime, localDay } from '@/lib/format';
 
 export interface PunchRow {
   id: string;
@@ -37,23 +37,6 @@ export interface WeekView {
   days: WeekDay[];
   /** Days without any time or punch, by their short names: "Sun, Sat". */
   emptyDays: string[];
-}
-
-const dayKeyFormats = new Map<string, Intl.DateTimeFormat>();
-
-/** 'YYYY-MM-DD' of an instant in a time zone. */
-export function localDay(at: string | number, timeZone: string): string {
-  let format = dayKeyFormats.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-CA', {
-      timeZone,
-      year: 'numeric',
-      month: '2-digit',
-      day: '2-digit',
-    });
-    dayKeyFormats.set(timeZone, format);
-  }
-  return format.format(new Date(at));
 }
 
 function dayLabel(day: string, options: Intl.DateTimeFormatOptions): string {
