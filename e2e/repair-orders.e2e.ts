@@ -50,6 +50,7 @@ describe('the office list of repair orders', () => {
     const shown = Number.parseFloat(cells[header.indexOf('Clocked')]!);
     expect(Math.abs(shown - clockedHours)).toBeLessThan(0.1);
 
+    // The range above the table always names the rows shown, never the page still loading.
     await page.getByRole('button', { name: 'Next' }).click();
     await expect.poll(() => count.textContent()).toBe(`51–100 of ${firstPage.total}`);
     expect(await numbers()).toEqual(secondPage.items.map((order) => order.number));

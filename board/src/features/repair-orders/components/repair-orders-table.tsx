@@ -177,7 +177,8 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
         </ToggleButton>
         {orders.isSuccess && (
           <Caption1 className={styles.count} role="status">
-            {pageRange(pageIndex, PAGE_SIZE, shown.length, total)}
+            {/* The rows on screen may still be the last page's while this one loads. */}
+            {orders.isPlaceholderData ? 'Loading…' : pageRange(pageIndex, PAGE_SIZE, shown.length, total)}
           </Caption1>
         )}
       </div>
