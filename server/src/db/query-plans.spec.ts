@@ -79,10 +79,20 @@ describe('query plans', () => {
 
   it('the floor’s window of a technician’s punches starts at their last shift-out, found by index', () => {
     expect(
-      planOf('the last shift-out', /"punches"\."kind" = \? and "punches"\."at" < \? and not exists/),
+      planOf('the last shift-out', /"punches"\."at" < \? and "punches"\."voids" = \? and not exists/),
     ).toEqual(
       expect.arrayContaining([
         'SEARCH punches USING INDEX punches_technician_id_at_idx (technician_id=? AND at<?)',
+        'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
+      ]),
+    );
+  });
+
+  it('a report finds who was still on shift before its weeks through the technician index', () => {
+    const plan = planOf('who was on shift', /shift\.kind in \('shift-in', 'shift-out'\)/);
+    expect(plan).toEqual(
+      expect.arrayContaining([
+        'SEARCH shift USING INDEX punches_technician_id_at_idx (technician_id=? AND at<?)',
         'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
       ]),
     );

@@ -1,6 +1,6 @@
 import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
 import type { Subscription } from 'rxjs';
-import { and, asc, desc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
+import { and, asc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
 import {
   buildLedger,
   isOpenLine,
@@ -25,6 +25,7 @@ import {
 } from '../db/schema/index.js';
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
 import { LiveService, type Audience } from '../live/live.service.js';
+import { lastShiftOutIn, prepareLastShiftOut } from '../punches/last-shift-out.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
@@ -88,6 +89,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
   private changes = 0;
   private timerList: FloorTimer[] = [];
   private readonly queries: ReturnType<typeof prepareFloorQueries>;
+  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
   private subscription: Subscription | null = null;
 
   constructor(
@@ -97,6 +99,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     private readonly live: LiveService,
   ) {
     this.queries = prepareFloorQueries(db);
+    this.lastShiftOut = prepareLastShiftOut(db);
   }
 
   onModuleInit(): void {
@@ -311,7 +314,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   /** Drops the shifts that ended before anything still needed: recent punches and those on open lines. */
   private prune(clock: TechnicianPunches, now: number): void {
-    const start = shiftOutBefore(clock.punches, this.neededFrom(clock.punches, now));
+    const start = lastShiftOutIn(clock.punches, this.neededFrom(clock.punches, now));
     if (start === null || start <= clock.windowStart) return;
     const keep = clock.punches.findIndex((punch) => Date.parse(punch.at) >= start);
     clock.punches.splice(0, keep === -1 ? clock.punches.length : keep);
@@ -340,7 +343,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     first = this.firstPunchesOnOpenLines().get(technicianId),
   ): TechnicianPunches {
     const needed = Math.min(now - RECENT_MS, first ? first.getTime() : Infinity);
-    const windowStart = this.queries.shiftOutBefore.get({ technicianId, before: needed })?.at.getTime() ?? 0;
+    const windowStart = this.lastShiftOut(technicianId, needed) ?? 0;
     const list = this.db
       .select()
       .from(punches)
@@ -500,31 +503,5 @@ function prepareFloorQueries(db: Db) {
       .orderBy(asc(bays.position), asc(bays.id))
       .prepare(),
     runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
-    /** A technician's last shift-out before an instant that no correction replaced. */
-    shiftOutBefore: db
-      .select({ at: punches.at })
-      .from(punches)
-      .where(
-        and(
-          eq(punches.technicianId, sql.placeholder('technicianId')),
-          eq(punches.kind, 'shift-out'),
-          sql`${punches.at} < ${sql.placeholder('before')}`,
-          sql`not exists (select 1 from ${punches} correction where correction.supersedes = ${punches.id})`,
-        ),
-      )
-      .orderBy(desc(punches.at))
-      .limit(1)
-      .prepare(),
   };
-}
-
-/** The last shift-out before `instant` among the punches that no correction in the list replaced. */
-function shiftOutBefore(list: readonly LedgerPunch[], instant: number): number | null {
-  const replaced = new Set(list.flatMap((punch) => (punch.supersedes === null ? [] : [punch.supersedes])));
-  for (let i = list.length - 1; i >= 0; i--) {
-    const punch = list[i]!;
-    const at = Date.parse(punch.at);
-    if (punch.kind === 'shift-out' && at < instant && !replaced.has(punch.id)) return at;
-  }
-  return null;
 }

@@ -17,14 +17,16 @@ import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
+import { prepareLastShiftOut } from './last-shift-out.js';
 
-/** Punches read around a late or corrected one: a shift open across it began at most this long before. */
+/** Punches read around a late or corrected one: at least this long either side of it. */
 const CONTEXT_MS = 36 * 3600_000;
 
 /** Writes punches and names them in plain words; shared by the kiosk's punches and the foreman's corrections. */
 @Injectable()
 export class PunchLedgerService {
   private readonly insertStatement: ReturnType<typeof prepareInsert>;
+  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -34,17 +36,22 @@ export class PunchLedgerService {
     private readonly audit: AuditService,
   ) {
     this.insertStatement = prepareInsert(db);
+    this.lastShiftOut = prepareLastShiftOut(db);
   }
 
-  /** A technician's counted punches within 36 h either side of `at`, from the database. */
+  /**
+   * A technician's counted punches within 36 h either side of `at`, from the database, and further back to
+   * the shift-out before the shift open at `at` when it began longer ago than that.
+   */
   around(technicianId: number, at: Date): LedgerPunch[] {
+    const from = Math.min(at.getTime() - CONTEXT_MS, this.lastShiftOut(technicianId, at.getTime()) ?? 0);
     return this.db
       .select()
       .from(punches)
       .where(
         and(
           eq(punches.technicianId, technicianId),
-          gte(punches.at, new Date(at.getTime() - CONTEXT_MS)),
+          gte(punches.at, new Date(from)),
           lt(punches.at, new Date(at.getTime() + CONTEXT_MS)),
         ),
       )

@@ -471,6 +471,36 @@ describe(ReportsService.name, () => {
     ]);
   });
 
+  // Common practice, no source: a technician forgets to clock out on a Friday morning and clocks out on
+  // Monday afternoon. Until the foreman corrects it, every count sees one shift from Friday to Monday: the
+  // week that begins on the Sunday counts it from Sunday 00:00 to Monday 17:00.
+  it('counts a shift left open since before the week the same in the report and the timecard, however weeks are read', async () => {
+    const later = addIsoWeeks(week, -6);
+    const earlier = addIsoWeeks(later, -1);
+    const friday = workweekDays(earlier, shop).find(
+      (day) => new Date(`${day.day}T12:00:00Z`).getUTCDay() === 5,
+    )!;
+    const monday = workweekDays(later, shop).find(
+      (day) => new Date(`${day.day}T12:00:00Z`).getUTCDay() === 1,
+    )!;
+    const gil = await technician('Gil Ashdown', '5013', 20_00, 15_00);
+    await punch(gil, 'shift-in', at(friday, '07:30'));
+    await punch(gil, 'shift-out', at(monday, '17:00'));
+    // 41 h, an hour less or more when the clocks change that Sunday.
+    const seconds = (at(monday, '17:00').getTime() - workweekBounds(later, shop).from.getTime()) / 1000;
+
+    // Read with the weeks before it (a report's trend, computed afresh and not kept) and read alone, the
+    // week's figures are the same.
+    const run = [addIsoWeeks(later, -2), earlier, later];
+    const [, , inRun] = sut.app.get(WeekFiguresService).figures(run, shop, new Date(), true);
+    expect(inRun!.technicians.get(gil)!.totals.attendanceSeconds).toBe(seconds);
+    expect(rowOf(await labour(`week=${later}`), gil).attendanceHours).toBe(seconds / 3600);
+    const card = (await as(owner).get(`/api/timecards?technicianId=${gil}&week=${later}`).expect(200))
+      .body as Timecard;
+    expect(card.totals.attendanceSeconds).toBe(seconds);
+    expect(card.anomalies).toEqual([]);
+  });
+
   it('counts the running week once for one instant, and again for a later one or after a punch', async () => {
     const reports = sut.app.get(ReportsService);
     const counted = vi.spyOn(

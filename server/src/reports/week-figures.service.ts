@@ -19,11 +19,15 @@ import {
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { inTransaction } from '../db/in-transaction.js';
-import { jobLines, punches } from '../db/schema/index.js';
+import { jobLines, punches, users } from '../db/schema/index.js';
 import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
+import { prepareLastShiftOut } from '../punches/last-shift-out.js';
 import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 
-/** A shift still open at the start of a week began before it: look back this far for it (as timecards do). */
+/**
+ * A week's punches are read from this long before it (as timecards do), and further back, to the shift-out
+ * before it, for a technician whose shift was still open then.
+ */
 export const LOOKBACK_MS = 36 * 3600_000;
 export const HOUR_S = 3600;
 
@@ -61,6 +65,19 @@ export function inIds(column: SQLiteColumn, ids: readonly number[]): SQL {
 }
 
 /** Index of the first element ≥ `value` in an ascending array. */
+/**
+ * Where a week's slice of a technician's punches starts: `LOOKBACK_MS` before the week, or at the shift-out
+ * before the shift that was open then (the list's start when it holds none).
+ */
+function sliceStart({ ms, list }: TechnicianPunches, from: number): number {
+  const lookback = lowerBound(ms, from - LOOKBACK_MS);
+  let i = lookback - 1;
+  while (i >= 0 && list[i]!.kind !== 'shift-in' && list[i]!.kind !== 'shift-out') i--;
+  if (i < 0 || list[i]!.kind === 'shift-out') return lookback;
+  while (i >= 0 && list[i]!.kind !== 'shift-out') i--;
+  return Math.max(i, 0);
+}
+
 function lowerBound(sorted: readonly number[], value: number): number {
   let [lo, hi] = [0, sorted.length];
   while (lo < hi) {
@@ -194,8 +211,11 @@ export class WeekFiguresService {
   private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
   private keptFor = '';
 
+  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+
   constructor(@Inject(DB) private readonly db: Db) {
     this.changes = new WeekChanges(db);
+    this.lastShiftOut = prepareLastShiftOut(db);
   }
 
   /**
@@ -293,7 +313,21 @@ export class WeekFiguresService {
     const finishedIn = weeks.map(() => [] as typeof finished);
     for (const line of finished)
       finishedIn[lowerBound(starts, line.completedAt!.getTime() + 1) - 1]?.push(line);
-    const byTechnician = this.punchesBetween(new Date(first.getTime() - LOOKBACK_MS), horizon);
+    const lookback = first.getTime() - LOOKBACK_MS;
+    const byTechnician = this.punchesBetween(new Date(lookback), horizon);
+    for (const technicianId of this.onShiftAt(lookback)) {
+      const earlier = this.punchesBetween(
+        new Date(this.lastShiftOut(technicianId, lookback) ?? 0),
+        new Date(lookback),
+        technicianId,
+      ).get(technicianId);
+      if (!earlier) continue;
+      const later = byTechnician.get(technicianId);
+      byTechnician.set(technicianId, {
+        ms: [...earlier.ms, ...(later?.ms ?? [])],
+        list: [...earlier.list, ...(later?.list ?? [])],
+      });
+    }
     const toDate = this.clockedBefore(
       first,
       finished.filter((line) => line.queuedAt < first).map((line) => line.id),
@@ -305,7 +339,7 @@ export class WeekFiguresService {
       const end = Math.min(to.getTime(), horizon.getTime());
       const technicians = new Map<number, TechnicianWeek>();
       for (const [technicianId, { ms, list }] of byTechnician) {
-        const slice = list.slice(lowerBound(ms, from.getTime() - LOOKBACK_MS), lowerBound(ms, end));
+        const slice = list.slice(sliceStart({ ms, list }, from.getTime()), lowerBound(ms, end));
         if (slice.length === 0) continue;
         const ledger = buildLedger(slice, until, settings);
         const totals = ledger.within(from, to);
@@ -325,6 +359,20 @@ export class WeekFiguresService {
     });
   }
 
+  /** Technicians whose last counting shift punch before `instant` is a shift-in: on shift then. */
+  private onShiftAt(instant: number): number[] {
+    const rows = this.db.all<{ technicianId: number }>(sql`
+      select id as technicianId from ${users} technician
+      where technician.role = 'technician' and (
+        select kind from ${punches} shift
+        where shift.technician_id = technician.id and shift.kind in ('shift-in', 'shift-out')
+          and shift.at < ${instant} and not shift.voids
+          and not exists (select 1 from ${punches} correction where correction.supersedes = shift.id)
+        order by shift.at desc limit 1
+      ) = 'shift-in'`);
+    return rows.map((row) => row.technicianId);
+  }
+
   /** The first instant anyone clocked on each of the lines. */
   firstClockedOn(lineIds: readonly number[]): Map<number, Date> {
     const rows = this.db.all<{ jobLineId: number; at: number | null }>(
@@ -338,7 +386,7 @@ export class WeekFiguresService {
    * by a later row is left out wherever the correction lies (a correction can move a punch across a week
    * boundary), so a week's figures are the same whichever weeks are read with it.
    */
-  private punchesBetween(from: Date, to: Date): Map<number, TechnicianPunches> {
+  private punchesBetween(from: Date, to: Date, technicianId?: number): Map<number, TechnicianPunches> {
     // Raw rows: a report reads tens of thousands of punches, and mapping each to an object costs more
     // than the query.
     const rows = this.db
@@ -346,6 +394,7 @@ export class WeekFiguresService {
       .from(punches)
       .where(
         and(
+          technicianId === undefined ? undefined : eq(punches.technicianId, technicianId),
           gte(punches.at, from),
           lt(punches.at, to),
           sql`not exists (select 1 from punches correction where correction.supersedes = ${punches.id})`,

@@ -37,11 +37,15 @@ import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/i
 import { toPunchDto } from '../labour/labour.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchLedgerService } from '../punches/punch-ledger.service.js';
+import { prepareLastShiftOut } from '../punches/last-shift-out.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { ReportsService } from '../reports/reports.service.js';
 import { ShopService } from '../shop/shop.service.js';
 
-/** A shift still open at the start of the week began before it: look back this far for it. */
+/**
+ * Punches before the week give context: at least this far back, and further to the shift-out before the
+ * week when a shift was left open longer than that.
+ */
 const LOOKBACK_MS = 36 * 3600_000;
 
 const totals = ({
@@ -60,6 +64,8 @@ const totals = ({
 
 @Injectable()
 export class TimecardsService {
+  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     readonly uow: UnitOfWork,
@@ -69,7 +75,9 @@ export class TimecardsService {
     private readonly ledger: PunchLedgerService,
     private readonly reports: ReportsService,
     private readonly closedWeeks: ClosedWeeksService,
-  ) {}
+  ) {
+    this.lastShiftOut = prepareLastShiftOut(db);
+  }
 
   get(query: TimecardQuery, actor: Principal, now = new Date()): Timecard {
     const technicianId = actor.role === 'technician' ? actor.id : query.technicianId;
@@ -88,16 +96,16 @@ export class TimecardsService {
     const week = query.week ?? workweekOf(now, settings);
     const { from, to } = workweekBounds(week, settings);
     const until = new Date(Math.min(to.getTime(), now.getTime()));
+    const readFrom = Math.min(
+      from.getTime() - LOOKBACK_MS,
+      this.lastShiftOut(technicianId, from.getTime()) ?? 0,
+    );
 
     const rows = this.db
       .select()
       .from(punches)
       .where(
-        and(
-          eq(punches.technicianId, technicianId),
-          gte(punches.at, new Date(from.getTime() - LOOKBACK_MS)),
-          lt(punches.at, to),
-        ),
+        and(eq(punches.technicianId, technicianId), gte(punches.at, new Date(readFrom)), lt(punches.at, to)),
       )
       .orderBy(asc(punches.at))
       .all();
