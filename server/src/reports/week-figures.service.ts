@@ -439,7 +439,7 @@ export class WeekFiguresService {
         .where(
           and(
             eq(punches.technicianId, technicianId),
-            gte(punches.at, new Date(at - LOOKBACK_MS)),
+            gte(punches.at, new Date(Math.min(at - LOOKBACK_MS, this.lastShiftOut(technicianId, at) ?? 0))),
             lt(punches.at, first),
           ),
         )
