@@ -64,7 +64,6 @@ export function inIds(column: SQLiteColumn, ids: readonly number[]): SQL {
   return sql`${column} in (select value from json_each(${JSON.stringify(ids)}))`;
 }
 
-/** Index of the first element ≥ `value` in an ascending array. */
 /**
  * Where a week's slice of a technician's punches starts: `LOOKBACK_MS` before the week, or at the shift-out
  * before the shift that was open then (the list's start when it holds none).
@@ -78,6 +77,7 @@ function sliceStart({ ms, list }: TechnicianPunches, from: number): number {
   return Math.max(i, 0);
 }
 
+/** Index of the first element ≥ `value` in an ascending array. */
 function lowerBound(sorted: readonly number[], value: number): number {
   let [lo, hi] = [0, sorted.length];
   while (lo < hi) {
@@ -210,7 +210,6 @@ export class WeekFiguresService {
   private readonly keptFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
   private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
   private keptFor = '';
-
   private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
 
   constructor(@Inject(DB) private readonly db: Db) {
