@@ -25,7 +25,7 @@ import {
 } from '../db/schema/index.js';
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
 import { LiveService, type Audience } from '../live/live.service.js';
-import { lastShiftOutIn, prepareLastShiftOut } from '../punches/last-shift-out.js';
+import { lastShiftOutIn, prepareReadFrom } from '../punches/last-shift-out.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toPartsHoldDto } from '../work/parts-hold.dto.js';
 import { describeVehicle } from './describe-vehicle.js';
@@ -89,7 +89,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
   private changes = 0;
   private timerList: FloorTimer[] = [];
   private readonly queries: ReturnType<typeof prepareFloorQueries>;
-  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+  private readonly readFrom: ReturnType<typeof prepareReadFrom>;
   private subscription: Subscription | null = null;
 
   constructor(
@@ -99,7 +99,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     private readonly live: LiveService,
   ) {
     this.queries = prepareFloorQueries(db);
-    this.lastShiftOut = prepareLastShiftOut(db);
+    this.readFrom = prepareReadFrom(db);
   }
 
   onModuleInit(): void {
@@ -343,7 +343,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     first = this.firstPunchesOnOpenLines().get(technicianId),
   ): TechnicianPunches {
     const needed = Math.min(now - RECENT_MS, first ? first.getTime() : Infinity);
-    const windowStart = this.lastShiftOut(technicianId, needed) ?? 0;
+    const windowStart = this.readFrom(technicianId, needed);
     const list = this.db
       .select()
       .from(punches)

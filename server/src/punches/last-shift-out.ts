@@ -4,12 +4,15 @@ import type { Db } from '../db/database.js';
 import { punches } from '../db/schema/index.js';
 
 /**
- * Where a technician's punches must be read from to hold the shift open at an instant: their last
- * shift-out before it that counts (no correction replaced or voided it). A shift left open for days
- * began after it, however long ago that was; with none, from the technician's first punch.
+ * Where to read a technician's punches from so that they hold the shift open at `instant`, and reach at
+ * least `atLeastMs` before it: their last counting shift-out before it (no correction replaced or voided
+ * it), or `instant - atLeastMs` when that is earlier. A shift left open for days began after that
+ * shift-out, however long ago it was; with none, the read starts at the technician's first punch.
  */
-export function prepareLastShiftOut(db: Db): (technicianId: number, before: number) => number | null {
-  const statement = db
+export function prepareReadFrom(
+  db: Db,
+): (technicianId: number, instant: number, atLeastMs?: number) => number {
+  const lastShiftOut = db
     .select({ at: punches.at })
     .from(punches)
     .where(
@@ -24,7 +27,8 @@ export function prepareLastShiftOut(db: Db): (technicianId: number, before: numb
     .orderBy(desc(punches.at))
     .limit(1)
     .prepare();
-  return (technicianId, before) => statement.get({ technicianId, before })?.at.getTime() ?? null;
+  return (technicianId, instant, atLeastMs = 0) =>
+    Math.min(instant - atLeastMs, lastShiftOut.get({ technicianId, before: instant })?.at.getTime() ?? 0);
 }
 
 /** The same among punches in memory, in time order: the last counting shift-out before `instant`. */

@@ -17,7 +17,7 @@ import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
 import { ShopService } from '../shop/shop.service.js';
-import { prepareLastShiftOut } from './last-shift-out.js';
+import { prepareReadFrom } from './last-shift-out.js';
 
 /** Punches read around a late or corrected one: at least this long either side of it. */
 const CONTEXT_MS = 36 * 3600_000;
@@ -26,7 +26,7 @@ const CONTEXT_MS = 36 * 3600_000;
 @Injectable()
 export class PunchLedgerService {
   private readonly insertStatement: ReturnType<typeof prepareInsert>;
-  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+  private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -36,7 +36,7 @@ export class PunchLedgerService {
     private readonly audit: AuditService,
   ) {
     this.insertStatement = prepareInsert(db);
-    this.lastShiftOut = prepareLastShiftOut(db);
+    this.readFrom = prepareReadFrom(db);
   }
 
   /**
@@ -44,7 +44,7 @@ export class PunchLedgerService {
    * the shift-out before the shift open at `at` when it began longer ago than that.
    */
   around(technicianId: number, at: Date): LedgerPunch[] {
-    const from = Math.min(at.getTime() - CONTEXT_MS, this.lastShiftOut(technicianId, at.getTime()) ?? 0);
+    const from = this.readFrom(technicianId, at.getTime(), CONTEXT_MS);
     return this.db
       .select()
       .from(punches)

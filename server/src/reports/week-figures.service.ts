@@ -21,7 +21,7 @@ import { DB, type Db } from '../db/database.js';
 import { inTransaction } from '../db/in-transaction.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
-import { prepareLastShiftOut } from '../punches/last-shift-out.js';
+import { prepareReadFrom } from '../punches/last-shift-out.js';
 import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 
 /**
@@ -210,11 +210,11 @@ export class WeekFiguresService {
   private readonly keptFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
   private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
   private keptFor = '';
-  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+  private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
   constructor(@Inject(DB) private readonly db: Db) {
     this.changes = new WeekChanges(db);
-    this.lastShiftOut = prepareLastShiftOut(db);
+    this.readFrom = prepareReadFrom(db);
   }
 
   /**
@@ -316,7 +316,7 @@ export class WeekFiguresService {
     const byTechnician = this.punchesBetween(new Date(lookback), horizon);
     for (const technicianId of this.onShiftAt(lookback)) {
       const earlier = this.punchesBetween(
-        new Date(this.lastShiftOut(technicianId, lookback) ?? 0),
+        new Date(this.readFrom(technicianId, lookback)),
         new Date(lookback),
         technicianId,
       ).get(technicianId);
@@ -438,7 +438,7 @@ export class WeekFiguresService {
         .where(
           and(
             eq(punches.technicianId, technicianId),
-            gte(punches.at, new Date(Math.min(at - LOOKBACK_MS, this.lastShiftOut(technicianId, at) ?? 0))),
+            gte(punches.at, new Date(this.readFrom(technicianId, at, LOOKBACK_MS))),
             lt(punches.at, first),
           ),
         )

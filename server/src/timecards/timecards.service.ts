@@ -37,7 +37,7 @@ import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/i
 import { toPunchDto } from '../labour/labour.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { PunchLedgerService } from '../punches/punch-ledger.service.js';
-import { prepareLastShiftOut } from '../punches/last-shift-out.js';
+import { prepareReadFrom } from '../punches/last-shift-out.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { ReportsService } from '../reports/reports.service.js';
 import { ShopService } from '../shop/shop.service.js';
@@ -64,7 +64,7 @@ const totals = ({
 
 @Injectable()
 export class TimecardsService {
-  private readonly lastShiftOut: ReturnType<typeof prepareLastShiftOut>;
+  private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
   constructor(
     @Inject(DB) private readonly db: Db,
@@ -76,7 +76,7 @@ export class TimecardsService {
     private readonly reports: ReportsService,
     private readonly closedWeeks: ClosedWeeksService,
   ) {
-    this.lastShiftOut = prepareLastShiftOut(db);
+    this.readFrom = prepareReadFrom(db);
   }
 
   get(query: TimecardQuery, actor: Principal, now = new Date()): Timecard {
@@ -96,16 +96,13 @@ export class TimecardsService {
     const week = query.week ?? workweekOf(now, settings);
     const { from, to } = workweekBounds(week, settings);
     const until = new Date(Math.min(to.getTime(), now.getTime()));
-    const readFrom = Math.min(
-      from.getTime() - LOOKBACK_MS,
-      this.lastShiftOut(technicianId, from.getTime()) ?? 0,
-    );
+    const start = this.readFrom(technicianId, from.getTime(), LOOKBACK_MS);
 
     const rows = this.db
       .select()
       .from(punches)
       .where(
-        and(eq(punches.technicianId, technicianId), gte(punches.at, new Date(readFrom)), lt(punches.at, to)),
+        and(eq(punches.technicianId, technicianId), gte(punches.at, new Date(start)), lt(punches.at, to)),
       )
       .orderBy(asc(punches.at))
       .all();
