@@ -303,9 +303,7 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
     const byTechnician = new Map<number, number | null>();
     for (const { id } of this.floor.technicians()) {
       yield;
-      const clocked =
-        this.labour.ledgerOf(id, new Date(from.getTime() - 36 * 3600_000), now).within(from, now)
-          .clockedSeconds / 3600;
+      const clocked = this.labour.ledgerSince(id, from, now).within(from, now).clockedSeconds / 3600;
       shopFlagged += flagged.get(id) ?? 0;
       shopClocked += clocked;
       byTechnician.set(id, clocked >= minimumHours ? (flagged.get(id) ?? 0) / clocked : null);

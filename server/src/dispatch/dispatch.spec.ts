@@ -10,6 +10,7 @@ import {
 import { createApp } from '../app.js';
 import { SQLITE, type Sqlite } from '../db/database.js';
 import { LabourService } from '../labour/labour.service.js';
+import { shopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { DispatchService, NO_OPENING_HOURS } from './dispatch.service.js';
 
@@ -299,6 +300,34 @@ describe(DispatchService.name, () => {
           .auth(owner, { type: 'bearer' })
           .send({ minimumClockedHoursForEfficiency: 8 })
           .expect(200);
+      }
+    });
+
+    // Efficiency = flagged hours ÷ clocked hours (PRODUCT.md). A shift and a job clocked on 40 h before
+    // the four weeks and off 9 h into them counts those 9 h: the line's 10 book hours over 9 clocked.
+    it('counts the clocked time of a shift left open since before the four weeks', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const foreman = await sut.signIn(DEMO.foreman);
+      const history = shopHistory(sut, { owner, foreman });
+      const fourWeeksAgo = Date.now() - 28 * 24 * 3600_000;
+      const clockedOn = new Date(fourWeeksAgo - 40 * 3600_000);
+      const clockedOff = new Date(fourWeeksAgo + 9 * 3600_000);
+      const wren = await history.technician('Wren Haldane', '5071', 20_00, 15_00);
+      const line = history.line('Rebuild the rear axle', 10, wren, new Date(clockedOn.getTime() - 3600_000));
+      await history.punch(wren, 'shift-in', clockedOn);
+      await history.punch(wren, 'job-on', clockedOn, line);
+      await history.punch(wren, 'job-off', clockedOff, line);
+      await history.punch(wren, 'shift-out', clockedOff);
+      await history.finish(line, clockedOff);
+      // Another minimum of clocked hours counts the efficiencies afresh.
+      const setMinimum = (hours: number) =>
+        history.as(owner).patch('/api/shop', { minimumClockedHoursForEfficiency: hours }).expect(200);
+      await setMinimum(7);
+      try {
+        const board = (await history.as(owner).get('/api/dispatch').expect(200)).body as DispatchBoard;
+        expect(board.lanes.find((lane) => lane.technician.id === wren)!.efficiency).toBeCloseTo(10 / 9, 3);
+      } finally {
+        await setMinimum(8);
       }
     });
   });

@@ -11,6 +11,7 @@ import {
 import { DB, type Db } from '../db/database.js';
 import { inTransaction } from '../db/in-transaction.js';
 import { punches } from '../db/schema/index.js';
+import { prepareReadFrom } from '../punches/last-shift-out.js';
 import { ShopService } from '../shop/shop.service.js';
 import { KeptLineSeconds, type LineSeconds, type PunchWindow } from './kept-line-seconds.js';
 
@@ -156,15 +157,17 @@ function punchesIn(db: Db, windows: readonly PunchWindow[], now: number): Ledger
 @Injectable()
 export class LabourService {
   private readonly kept: KeptLineSeconds;
+  private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
   ) {
     this.kept = new KeptLineSeconds(db);
+    this.readFrom = prepareReadFrom(db);
   }
 
-  punchesOf(technicianId: number, from: Date, to: Date): LedgerPunch[] {
+  private punchesOf(technicianId: number, from: Date, to: Date): LedgerPunch[] {
     return this.db
       .select()
       .from(punches)
@@ -174,8 +177,10 @@ export class LabourService {
       .map(toPunchDto);
   }
 
-  ledgerOf(technicianId: number, from: Date, now: Date): Ledger {
-    return buildLedger(this.punchesOf(technicianId, from, now), now, this.shop.settings(now));
+  /** The technician's ledger up to `now`, read back far enough to hold a shift that was open at `from`. */
+  ledgerSince(technicianId: number, from: Date, now: Date): Ledger {
+    const start = new Date(this.readFrom(technicianId, from.getTime()));
+    return buildLedger(this.punchesOf(technicianId, start, now), now, this.shop.settings(now));
   }
 
   /**
