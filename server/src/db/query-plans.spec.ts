@@ -54,6 +54,7 @@ describe('query plans', () => {
       await get(`/api/vehicles?vin=${ro!.vin}`);
       const technician = (await sut.badge('1044')).accessToken;
       await sut.http().get('/api/me/day').auth(technician, { type: 'bearer' }).expect(200);
+      await sut.http().get('/api/timecards').auth(technician, { type: 'bearer' }).expect(200);
     });
   });
   afterAll(() => sut.close());
@@ -170,6 +171,18 @@ describe('query plans', () => {
         'CORRELATED SCALAR SUBQUERY 1',
         'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
       ],
+    );
+  });
+
+  it('a technician’s week reads who shares their finished lines, and those technicians’ punches, by index', () => {
+    expect(
+      planOf('who clocked on lines', /select distinct "job_line_id", "technician_id" from "punches"/)[0],
+    ).toBe('SEARCH punches USING INDEX punches_job_line_id_at_idx (job_line_id=?)');
+    expect(planOf('punches of technicians', /"technician_id" in \(select value from json_each/)).toEqual(
+      expect.arrayContaining([
+        'SEARCH punches USING INDEX punches_technician_id_at_idx (technician_id=? AND at>? AND at<?)',
+        'SEARCH correction USING COVERING INDEX punches_supersedes_idx (supersedes=?)',
+      ]),
     );
   });
 

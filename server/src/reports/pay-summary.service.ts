@@ -118,7 +118,10 @@ export class PaySummaryService {
     now: Date,
     { withAdjustments = true, only }: { withAdjustments?: boolean; only?: number } = {},
   ): LivePay {
-    const current = this.weeks.figures([label], settings, now)[0]!;
+    const current =
+      only === undefined
+        ? this.weeks.figures([label], settings, now)[0]!
+        : this.weeks.figuresOf(label, only, settings, now);
     const days = daysOf(label, settings);
     const firstDay = days[0]!.day;
     const rules = this.shop.rulesFor(firstDay);

@@ -115,7 +115,7 @@ export class ReportsService {
    */
   technicianWeek(week: string, technicianId: number, viewer: Role, now = new Date()): WeekSummary {
     const settings = this.shop.settings(now);
-    const figures = this.weeks.figures([week], settings, now)[0]!;
+    const figures = this.weeks.figuresOf(week, technicianId, settings, now);
     const showPay = viewer === 'owner' || (viewer === 'technician' && settings.kioskShowsPay);
     return {
       labour: present(labourKpis(hoursOf(figures, technicianId))),

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { eq, min } from 'drizzle-orm';
+import { and, eq, min } from 'drizzle-orm';
 import {
   addIsoWeeks,
   LABOUR_TREND_WEEKS,
@@ -22,7 +22,7 @@ import { auditLog, punches, users } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
-import { WeekFiguresService } from './week-figures.service.js';
+import { hoursOf, WeekFiguresService } from './week-figures.service.js';
 
 /**
  * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
@@ -539,6 +539,56 @@ describe(ReportsService.name, () => {
     counted.mockRestore();
   });
 
+  it("reads a technician's hours the same from that technician's figures as from the whole shop's", async () => {
+    // A week of its own: Juno and Omar share a line; Omar finishes a line begun the week before; a line
+    // assigned to Juno that nobody clocked on counts once signed off.
+    const label = addIsoWeeks(week, -10);
+    const [monday] = workweekDays(addIsoWeeks(label, -1), shop).filter(isWeekday) as [ShopDay];
+    const [, tuesday] = workweekDays(label, shop).filter(isWeekday) as [ShopDay, ShopDay];
+    const juno = await technician('Juno Pellam', '5081', 20_00, 15_00);
+    const omar = await technician('Omar Reith', '5082', 20_00, 15_00);
+    const shared = line('Replace clutch kit', 3.0, juno, at(tuesday, '06:30'));
+    const own = line('Replace brake pads', 1.5, omar, at(tuesday, '06:30'));
+    const begun = line('Rebuild the cylinder head', 6.0, omar, at(monday, '07:30'));
+    const unclocked = line('Check tyre pressures', 0.3, juno, at(tuesday, '06:30'));
+    await punch(omar, 'shift-in', at(monday, '08:00'));
+    await punch(omar, 'job-on', at(monday, '08:00'), begun);
+    await punch(omar, 'job-off', at(monday, '10:00'), begun);
+    await punch(omar, 'shift-out', at(monday, '12:00'));
+    await punch(juno, 'shift-in', at(tuesday, '07:00'));
+    await punch(omar, 'shift-in', at(tuesday, '07:00'));
+    await punch(juno, 'job-on', at(tuesday, '07:00'), shared);
+    await punch(omar, 'job-on', at(tuesday, '07:00'), own);
+    await punch(omar, 'job-off', at(tuesday, '08:00'), own);
+    await punch(omar, 'job-on', at(tuesday, '08:00'), shared);
+    await punch(omar, 'job-off', at(tuesday, '09:00'), shared);
+    await punch(juno, 'job-off', at(tuesday, '10:00'), shared);
+    await punch(omar, 'job-on', at(tuesday, '10:00'), begun);
+    await punch(omar, 'job-off', at(tuesday, '11:00'), begun);
+    await punch(juno, 'shift-out', at(tuesday, '12:00'));
+    await punch(omar, 'shift-out', at(tuesday, '12:00'));
+    for (const [job, time] of [
+      [shared, '10:00'],
+      [own, '10:00'],
+      [begun, '11:00'],
+      [unclocked, '11:00'],
+    ] as const)
+      await finish(job, at(tuesday, time));
+    await as(foreman)
+      .post(`/api/job-lines/${unclocked}/sign-off`, { reason: 'Checked at the front desk' })
+      .expect(200);
+
+    const now = new Date();
+    const whole = new WeekFiguresService(db).figures([label], shop, now)[0]!;
+    expect([...whole.flagged.get(juno)!.keys()].sort()).toEqual([shared, unclocked].sort());
+    for (const technicianId of [juno, omar]) {
+      const alone = new WeekFiguresService(db).figuresOf(label, technicianId, shop, now);
+      expect(hoursOf(alone, technicianId), `technician ${technicianId}`).toEqual(
+        hoursOf(whole, technicianId),
+      );
+    }
+  });
+
   it("gives the demo shop's week of punches real figures for every technician", async () => {
     const dana = db.select().from(users).where(eq(users.badge, '1041')).get()!;
     const first = db
@@ -701,9 +751,13 @@ describe(ReportsService.name, () => {
       by: 'Theo Varga',
       note: 'Signed off: Filter swap done at the car park, seen by me',
     });
-    const audit = db.select().from(auditLog).where(eq(auditLog.action, 'sign-off')).all();
-    expect(audit.map((entry) => [entry.entityId, entry.detail])).toEqual([
-      [String(job), { reason: 'Filter swap done at the car park, seen by me' }],
+    const audit = db
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.action, 'sign-off'), eq(auditLog.entityId, String(job))))
+      .all();
+    expect(audit.map((entry) => entry.detail)).toEqual([
+      { reason: 'Filter swap done at the car park, seen by me' },
     ]);
   });
   // A past week's figures are kept between reports: whatever reaches back into the week shows at once.

@@ -208,6 +208,8 @@ export const daysOf = (label: string, settings: ShopSettings): ShopDay[] =>
 export class WeekFiguresService {
   private readonly changes: WeekChanges;
   private readonly keptFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
+  /** One technician's figures of a week (`figuresOf`), under `week|technicianId`. */
+  private readonly keptOwnFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
   private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
   private keptFor = '';
   private readonly readFrom: ReturnType<typeof prepareReadFrom>;
@@ -223,6 +225,23 @@ export class WeekFiguresService {
    */
   figures(labels: readonly string[], settings: ShopSettings, now: Date, passing = false): WeekFigures[] {
     return this.read(this.keptFigures, !passing, labels, settings, now, (week) => week);
+  }
+
+  /**
+   * Figures of workweek `label` to read one technician's hours from (`hoursOf`): the whole shop's when they
+   * are kept, else worked out for the technician and whoever shares a line finished in the week with them
+   * (their time shares its book hours). A timecard or a kiosk's week of the running week asks for this
+   * at every instant, and the whole shop's week costs tens of milliseconds on years of punches.
+   */
+  figuresOf(label: string, technicianId: number, settings: ShopSettings, now: Date): WeekFigures {
+    if (inTransaction(this.db)) return this.compute([label], settings, now, technicianId)[0]!;
+    this.forgetChanged(settings);
+    const key = `${label}|${technicianId}`;
+    const kept = this.keptFigures.get(label, now) ?? this.keptOwnFigures.get(key, now);
+    if (kept) return kept;
+    const own = this.compute([label], settings, now, technicianId)[0]!;
+    this.keptOwnFigures.keep({ week: key, to: own.to }, now, own);
+    return own;
   }
 
   /** The shop's hours of consecutive workweeks `labels` (oldest first), as `shopHoursOf`. */
@@ -276,6 +295,7 @@ export class WeekFiguresService {
     this.keptFor = key;
     if (since === null) return;
     this.keptFigures.forgetAfter(since);
+    this.keptOwnFigures.forgetAfter(since);
     this.keptShopHours.forgetAfter(since);
   }
 
@@ -283,13 +303,19 @@ export class WeekFiguresService {
    * Figures of consecutive workweeks `labels` (oldest first). Flagged hours: the book hours of each line
    * finished in a week (`completedAt`), shared by the time each technician clocked on the line in all
    * (earlier weeks too), or to the assigned technician when nobody clocked on it. A line done with too
-   * little clocked time counts only once a foreman signed it off.
+   * little clocked time counts only once a foreman signed it off. With `only`, the figures hold that
+   * technician's lines and those who share them, which is all that technician's hours are read from.
    */
-  private compute(labels: readonly string[], settings: ShopSettings, now: Date): WeekFigures[] {
+  private compute(
+    labels: readonly string[],
+    settings: ShopSettings,
+    now: Date,
+    only?: number,
+  ): WeekFigures[] {
     const weeks = labels.map((week) => ({ week, ...boundsOf(week, settings) }));
     const first = weeks[0]!.from;
     const horizon = new Date(Math.min(weeks.at(-1)!.to.getTime(), now.getTime() + 1));
-    const finished = this.db
+    const allFinished = this.db
       .select({
         id: jobLines.id,
         technicianId: jobLines.technicianId,
@@ -308,17 +334,22 @@ export class WeekFiguresService {
       )
       .all()
       .filter((line) => line.status === 'done');
+    const { finished, technicianIds } =
+      only === undefined
+        ? { finished: allFinished, technicianIds: undefined }
+        : this.sharing(only, allFinished);
     const starts = weeks.map((week) => week.from.getTime());
     const finishedIn = weeks.map(() => [] as typeof finished);
     for (const line of finished)
       finishedIn[lowerBound(starts, line.completedAt!.getTime() + 1) - 1]?.push(line);
     const lookback = first.getTime() - LOOKBACK_MS;
-    const byTechnician = this.punchesBetween(new Date(lookback), horizon);
+    const byTechnician = this.punchesBetween(new Date(lookback), horizon, technicianIds);
     for (const technicianId of this.onShiftAt(lookback)) {
+      if (technicianIds && !technicianIds.includes(technicianId)) continue;
       const earlier = this.punchesBetween(
         new Date(this.readFrom(technicianId, lookback)),
         new Date(lookback),
-        technicianId,
+        [technicianId],
       ).get(technicianId);
       if (!earlier) continue;
       const later = byTechnician.get(technicianId);
@@ -358,6 +389,29 @@ export class WeekFiguresService {
     });
   }
 
+  /**
+   * Of the finished lines, those the technician clocked on or was assigned, and everyone who clocked on
+   * them (the technician first).
+   */
+  private sharing<Line extends { id: number; technicianId: number | null }>(
+    technicianId: number,
+    finished: readonly Line[],
+  ): { finished: Line[]; technicianIds: number[] } {
+    const lineIds = finished.map((line) => line.id);
+    const clockedBy = new Map<number, number[]>();
+    for (const row of this.db
+      .selectDistinct({ jobLineId: punches.jobLineId, technicianId: punches.technicianId })
+      .from(punches)
+      .where(inIds(punches.jobLineId, lineIds))
+      .all())
+      clockedBy.set(row.jobLineId!, [...(clockedBy.get(row.jobLineId!) ?? []), row.technicianId]);
+    const own = finished.filter(
+      (line) => line.technicianId === technicianId || clockedBy.get(line.id)?.includes(technicianId),
+    );
+    const technicianIds = new Set([technicianId, ...own.flatMap((line) => clockedBy.get(line.id) ?? [])]);
+    return { finished: own, technicianIds: [...technicianIds] };
+  }
+
   /** Technicians whose last counting shift punch before `instant` is a shift-in: on shift then. */
   private onShiftAt(instant: number): number[] {
     const rows = this.db.all<{ technicianId: number }>(sql`
@@ -385,7 +439,11 @@ export class WeekFiguresService {
    * by a later row is left out wherever the correction lies (a correction can move a punch across a week
    * boundary), so a week's figures are the same whichever weeks are read with it.
    */
-  private punchesBetween(from: Date, to: Date, technicianId?: number): Map<number, TechnicianPunches> {
+  private punchesBetween(
+    from: Date,
+    to: Date,
+    technicianIds?: readonly number[],
+  ): Map<number, TechnicianPunches> {
     // Raw rows: a report reads tens of thousands of punches, and mapping each to an object costs more
     // than the query.
     const rows = this.db
@@ -393,7 +451,7 @@ export class WeekFiguresService {
       .from(punches)
       .where(
         and(
-          technicianId === undefined ? undefined : eq(punches.technicianId, technicianId),
+          technicianIds && inIds(punches.technicianId, technicianIds),
           gte(punches.at, from),
           lt(punches.at, to),
           sql`not exists (select 1 from punches correction where correction.supersedes = ${punches.id})`,
