@@ -11,7 +11,7 @@ import {
 import { DB, type Db } from '../db/database.js';
 import { inTransaction } from '../db/in-transaction.js';
 import { punches } from '../db/schema/index.js';
-import { prepareReadFrom } from '../punches/last-shift-out.js';
+import { counts, prepareReadFrom } from '../punches/last-shift-out.js';
 import { ShopService } from '../shop/shop.service.js';
 import { KeptLineSeconds, type LineSeconds, type PunchWindow } from './kept-line-seconds.js';
 
@@ -103,7 +103,7 @@ function windowsAroundLines(db: Db, lines: readonly number[], now: number): Line
   const shiftOut = (at: SQL) => sql`
     select at from punches shift_out
     where shift_out.technician_id = on_lines.technician_id and shift_out.kind = 'shift-out' and ${at}
-      and not shift_out.voids and not exists (select 1 from punches correction where correction.supersedes = shift_out.id)`;
+      and ${counts('shift_out')}`;
   return db.all<LineWindow>(sql`
     with on_lines as (
       select technician_id, min(at) as first, max(at) as last, json_group_array(distinct job_line_id) as lines

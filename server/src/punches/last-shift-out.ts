@@ -1,7 +1,17 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, sql, type SQL } from 'drizzle-orm';
 import type { LedgerPunch } from '@baytime/shared';
 import type { Db } from '../db/database.js';
 import { punches } from '../db/schema/index.js';
+
+/** SQL: no correction replaced the punch row `alias` (a table alias, or `punches`). */
+export function notReplaced(alias: string): SQL {
+  return sql.raw(`not exists (select 1 from punches correction where correction.supersedes = ${alias}.id)`);
+}
+
+/** SQL: the punch row `alias` counts: it is not a void, and no correction replaced it. */
+export function counts(alias: string): SQL {
+  return sql`not ${sql.raw(alias)}.voids and ${notReplaced(alias)}`;
+}
 
 /**
  * Where to read a technician's punches from so that they hold the shift open at `instant`, and reach at
@@ -20,8 +30,7 @@ export function prepareReadFrom(
         eq(punches.technicianId, sql.placeholder('technicianId')),
         eq(punches.kind, 'shift-out'),
         sql`${punches.at} < ${sql.placeholder('before')}`,
-        eq(punches.voids, false),
-        sql`not exists (select 1 from ${punches} correction where correction.supersedes = ${punches.id})`,
+        counts('punches'),
       ),
     )
     .orderBy(desc(punches.at))

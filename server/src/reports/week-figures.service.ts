@@ -21,7 +21,7 @@ import { DB, type Db } from '../db/database.js';
 import { inTransaction } from '../db/in-transaction.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
-import { prepareReadFrom } from '../punches/last-shift-out.js';
+import { counts, notReplaced, prepareReadFrom } from '../punches/last-shift-out.js';
 import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 
 /**
@@ -419,8 +419,7 @@ export class WeekFiguresService {
       where technician.role = 'technician' and (
         select kind from ${punches} shift
         where shift.technician_id = technician.id and shift.kind in ('shift-in', 'shift-out')
-          and shift.at < ${instant} and not shift.voids
-          and not exists (select 1 from ${punches} correction where correction.supersedes = shift.id)
+          and shift.at < ${instant} and ${counts('shift')}
         order by shift.at desc limit 1
       ) = 'shift-in'`);
     return rows.map((row) => row.technicianId);
@@ -454,7 +453,7 @@ export class WeekFiguresService {
           technicianIds && inIds(punches.technicianId, technicianIds),
           gte(punches.at, from),
           lt(punches.at, to),
-          sql`not exists (select 1 from punches correction where correction.supersedes = ${punches.id})`,
+          notReplaced('punches'),
         ),
       )
       .orderBy(asc(punches.at))
