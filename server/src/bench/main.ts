@@ -286,6 +286,17 @@ if (runs('reads')) {
     afterPunch.push(performance.now() - start);
   }
   print('labour report just after a punch, median of 3', median(afterPunch), 'ms');
+  // A timecard of the running week is counted afresh at every instant it is asked at.
+  const card = `${server.url}/api/timecards?technicianId=${shop.technicianIds[0]!}`;
+  const cardTimes = await samples(
+    async () => {
+      const response = await fetch(card, { headers: owner });
+      return (await response.text()).length > 0 && response.ok;
+    },
+    10,
+    20_000,
+  );
+  print(`running week's timecard, median of ${cardTimes.length}`, median(cardTimes), 'ms');
 
   const page = `${server.url}/api/repair-orders?limit=50&q=${encodeURIComponent(shop.searchTerm)}`;
   const answers: { status: number; bytes: number }[] = [];
