@@ -83,30 +83,50 @@ describe('every screen at its real sizes', () => {
     [1280, 800],
     [800, 1280],
     [390, 844],
-  ])('kiosk at %ix%i: sign-in and my day whole, nothing out of the screen', async (width, height) => {
-    const page = await browser.newPage();
-    await page.setViewportSize({ width, height });
-    await openKiosk(page, server);
-    await page.waitForTimeout(300);
-    await look(page, `screens-kiosk-sign-in-${width}x${height}`);
-    // The keypad keeps away from the screen's edges and its keys stay a fingertip wide (DISPLAY.md).
-    const keys = await page.locator('.bt-key').evaluateAll((all) =>
-      all.map((key) => {
-        const box = key.getBoundingClientRect();
-        return { left: box.left, right: innerWidth - box.right, width: box.width, height: box.height };
-      }),
-    );
-    for (const key of keys) {
-      expect(Math.min(key.left, key.right)).toBeGreaterThanOrEqual(12);
-      expect(Math.min(key.width, key.height)).toBeGreaterThanOrEqual(76);
-    }
-    await signInAtKiosk(page, server, '1042');
-    await page.waitForTimeout(300);
-    await look(page, `screens-kiosk-my-day-${width}x${height}`);
-    await page.getByRole('button', { name: 'Sign out' }).click();
-    await page.getByText('Sign in with your badge').waitFor();
-    await page.close();
-  });
+  ])(
+    'kiosk at %ix%i: sign-in, my day and my week whole, nothing out of the screen',
+    async (width, height) => {
+      const page = await browser.newPage();
+      await page.setViewportSize({ width, height });
+      await openKiosk(page, server);
+      await page.waitForTimeout(300);
+      await look(page, `screens-kiosk-sign-in-${width}x${height}`);
+      // The keypad keeps away from the screen's edges and its keys stay a fingertip wide (DISPLAY.md).
+      const keys = await page.locator('.bt-key').evaluateAll((all) =>
+        all.map((key) => {
+          const box = key.getBoundingClientRect();
+          return { left: box.left, right: innerWidth - box.right, width: box.width, height: box.height };
+        }),
+      );
+      for (const key of keys) {
+        expect(Math.min(key.left, key.right)).toBeGreaterThanOrEqual(12);
+        expect(Math.min(key.width, key.height)).toBeGreaterThanOrEqual(76);
+      }
+      await signInAtKiosk(page, server, '1042');
+      await page.waitForTimeout(300);
+      await look(page, `screens-kiosk-my-day-${width}x${height}`);
+      // My week: each punch's time on one line ("10:02 am" once broke after the minutes).
+      await page.getByRole('link', { name: 'My week' }).click();
+      await page.locator('.bt-punch__time').first().waitFor();
+      await look(page, `screens-kiosk-my-week-${width}x${height}`);
+      // The text's own box, not the grid cell's: one line is about 1.2 times the font size high, two over 2.
+      const times = await page.locator('.bt-punch__time').evaluateAll((all) =>
+        all.map((time) => {
+          const text = document.createRange();
+          text.selectNodeContents(time);
+          return {
+            text: time.textContent,
+            ems: text.getBoundingClientRect().height / parseFloat(getComputedStyle(time).fontSize),
+          };
+        }),
+      );
+      expect(times.length).toBeGreaterThan(0);
+      expect(times.filter((time) => time.ems > 1.8)).toEqual([]);
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await page.getByText('Sign in with your badge').waitFor();
+      await page.close();
+    },
+  );
 
   it('kiosk offline at 390x844: the sign-in sheet reads without overlapping lines and goes once the link is back', async () => {
     const page = await browser.newPage();
