@@ -189,6 +189,38 @@ describe('every screen at its real sizes', () => {
     await page.close();
   });
 
+  it('office timecard at 1024x768 and 1440x900: the week’s time axis labels stand apart', async () => {
+    const page = await browser.newPage();
+    // The pages share the browser's storage: sign in afresh whatever an earlier test left there.
+    await page.goto(server.url);
+    await page.evaluate(() => localStorage.clear());
+    await signInAtOffice(page, server, 'owner@marlowcreek.test');
+    await page.goto(`${server.url}${paths.timecards}`);
+    const axis = page
+      .locator('section[aria-labelledby="week-glance-title"] [aria-hidden="true"] > span')
+      .filter({ hasText: /^\d{1,2}:\d\d [ap]m$/ });
+    await axis.first().waitFor();
+    for (const [width, height] of [
+      [1024, 768],
+      [1440, 900],
+    ] as const) {
+      await page.setViewportSize({ width, height });
+      await page.waitForTimeout(300);
+      const labels = (
+        await axis.evaluateAll((all) =>
+          all.map((label) => {
+            const box = label.getBoundingClientRect();
+            return { text: label.textContent, left: box.left, right: box.right };
+          }),
+        )
+      ).sort((a, b) => a.left - b.left);
+      expect(labels.length, `${width}`).toBeGreaterThan(1);
+      const overlapping = labels.filter((label, i) => i > 0 && label.left < labels[i - 1]!.right + 4);
+      expect(overlapping, `${width}`).toEqual([]);
+    }
+    await page.close();
+  });
+
   // Last: it adds a bay, and gives the shop a name that leaves the tiles their full height.
   it('wall with 13 bays at 1920x1080: five columns, and the 10 h hold whole beside its word', async () => {
     await owner('POST', '/bays', { name: 'Bay 13' });

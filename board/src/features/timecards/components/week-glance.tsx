@@ -6,6 +6,8 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
+import { useRef } from 'react';
+import { useElementWidth } from '@/hooks/use-element-width';
 import { formatClock, formatDay, formatHours } from '../timecard-format';
 import { PERSON_STATUS_WORDS } from '@baytime/shared';
 import {
@@ -107,9 +109,17 @@ const useStyles = makeStyles({
   swatch: { position: 'static', width: '1.5rem', height: '0.75rem', display: 'inline-block', padding: 0 },
 });
 
-function tickMinutes(window: TimelineWindow): number[] {
-  const hours = (window.endMinute - window.startMinute) / 60;
-  const step = hours > 14 ? 180 : hours > 10 ? 120 : 60;
+/** Steps between the axis's labels, in minutes: the first that leaves each label room. */
+const TICK_STEPS = [60, 120, 180, 240, 360, 720];
+/** Room a label such as "12:00 pm" needs at the axis's size, with a gap, in CSS pixels. */
+const TICK_ROOM_PX = 56;
+
+function tickMinutes(window: TimelineWindow, axisWidthPx: number): number[] {
+  const span = window.endMinute - window.startMinute;
+  // Before the axis is laid out, as on a wide screen.
+  const room = axisWidthPx > 0 ? axisWidthPx : 900;
+  const step =
+    TICK_STEPS.find((minutes) => (span / minutes + 1) * TICK_ROOM_PX <= room) ?? TICK_STEPS.at(-1)!;
   const ticks: number[] = [];
   for (let m = Math.ceil(window.startMinute / step) * step; m <= window.endMinute; m += step) ticks.push(m);
   return ticks;
@@ -165,7 +175,8 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
   const styles = useStyles();
   const window = timelineWindow(days);
   const first = days[0];
-  const ticks = tickMinutes(window);
+  const axisRef = useRef<HTMLDivElement>(null);
+  const ticks = tickMinutes(window, useElementWidth(axisRef));
   const span = window.endMinute - window.startMinute;
   return (
     <section className={styles.section} aria-labelledby="week-glance-title">
@@ -174,7 +185,7 @@ export function WeekGlance({ days, timeZone }: { days: readonly CardDay[]; timeZ
       </Subtitle2>
       <div className={styles.grid}>
         <span />
-        <div className={styles.axis} aria-hidden="true">
+        <div className={styles.axis} aria-hidden="true" ref={axisRef}>
           {first &&
             ticks.map((minute) => (
               <span
