@@ -155,21 +155,24 @@ class KeptWeeks<T> {
 
   constructor(private readonly limit: number) {}
 
-  /** The week's value, when it was counted after the week and `now` is too, or it was counted at `now`. */
-  get(label: string, now: Date): T | undefined {
-    const kept = this.weeks.get(label);
+  /**
+   * The value kept under `key` (a week's label, or more), when it was counted after its week and `now` is
+   * too, or it was counted at `now`.
+   */
+  get(key: string, now: Date): T | undefined {
+    const kept = this.weeks.get(key);
     if (!kept) return undefined;
     const whole = kept.countedAt >= kept.to && now.getTime() >= kept.to;
     if (!whole && kept.countedAt !== now.getTime()) return undefined;
-    this.weeks.delete(label);
-    this.weeks.set(label, kept);
+    this.weeks.delete(key);
+    this.weeks.set(key, kept);
     return kept.value;
   }
 
-  /** Keeps the value of a week counted at `now`. */
-  keep(week: Pick<WeekFigures, 'week' | 'to'>, now: Date, value: T): void {
-    this.weeks.delete(week.week);
-    this.weeks.set(week.week, { to: week.to.getTime(), countedAt: now.getTime(), value });
+  /** Keeps under `key` a value of the week ending at `to`, counted at `now`. */
+  keep(key: string, to: Date, now: Date, value: T): void {
+    this.weeks.delete(key);
+    this.weeks.set(key, { to: to.getTime(), countedAt: now.getTime(), value });
     if (this.weeks.size > this.limit) this.weeks.delete(this.weeks.keys().next().value!);
   }
 
@@ -240,7 +243,7 @@ export class WeekFiguresService {
     const kept = this.keptFigures.get(label, now) ?? this.keptOwnFigures.get(key, now);
     if (kept) return kept;
     const own = this.compute([label], settings, now, technicianId)[0]!;
-    this.keptOwnFigures.keep({ week: key, to: own.to }, now, own);
+    this.keptOwnFigures.keep(key, own.to, now, own);
     return own;
   }
 
@@ -279,9 +282,9 @@ export class WeekFiguresService {
     if (first < 0) return found as T[];
     const computed = this.compute(labels.slice(first, found.lastIndexOf(undefined) + 1), settings, now).map(
       (week) => {
-        this.keptShopHours.keep(week, now, shopHoursOf(week));
+        this.keptShopHours.keep(week.week, week.to, now, shopHoursOf(week));
         const value = valueOf(week);
-        if (keepComputed) kept.keep(week, now, value);
+        if (keepComputed) kept.keep(week.week, week.to, now, value);
         return value;
       },
     );
