@@ -69,6 +69,8 @@ export class ShopService {
   private cachedRow: SettingsRow | null = null;
   /** The dated pay rules, oldest first. */
   private cachedRules: DatedPayRules[] | null = null;
+  /** The last settings handed out, kept while neither their row nor their day's rules change. */
+  private lastSettings: { row: SettingsRow; rules: DatedPayRules; settings: ShopSettings } | null = null;
   /** The settings as saved, once the change has committed. */
   readonly changed$ = new Subject<ShopSettings>();
 
@@ -82,7 +84,13 @@ export class ShopService {
   /** The settings, with the pay rules in force today. */
   settings(now = new Date()): ShopSettings {
     const row = this.row();
-    return { ...row, ...this.rulesFor(shopDayKey(now, row.timeZone)) };
+    const rules = this.rulesFor(shopDayKey(now, row.timeZone));
+    const last = this.lastSettings;
+    if (last?.row === row && last.rules === rules) return last.settings;
+    // A punch reads them a few dozen times: one shared object, frozen so no reader changes it for the rest.
+    const settings = Object.freeze({ ...row, ...rules });
+    this.lastSettings = { row, rules, settings };
+    return settings;
   }
 
   /** The pay rules in force on a day ('YYYY-MM-DD' in the shop's zone). */
