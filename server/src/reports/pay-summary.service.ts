@@ -102,22 +102,50 @@ export class PaySummaryService {
   technicianRow(week: string, technicianId: number, now = new Date()): PayReportTechnician | null {
     const settings = this.shop.settings(now);
     const closed = this.closedWeeks.closed(week);
-    const report = closed?.snapshot
-      ? this.fromSnapshot(closed)
-      : this.live(week, settings, now, { only: technicianId }).report;
-    return report.technicians.find((row) => row.technicianId === technicianId) ?? null;
+    const rows = closed?.snapshot
+      ? this.fromSnapshot(closed).technicians
+      : this.liveRows(week, settings, now, { withAdjustments: true, only: technicianId }).technicians;
+    return rows.find((row) => row.technicianId === technicianId) ?? null;
   }
 
-  /**
-   * The week computed now from the records, whatever its state. With `only`, just that technician's row
-   * (and the report's totals are theirs alone).
-   */
-  live(
+  /** The week computed now from the records, whatever its state. */
+  live(label: string, settings: ShopSettings, now: Date, { withAdjustments = true } = {}): LivePay {
+    const { current, rules, technicians, adjustments, exceptions } = this.liveRows(label, settings, now, {
+      withAdjustments,
+    });
+    const report: PayReport = {
+      week: label,
+      weekName: workweekName(label, settings),
+      from: current.from.toISOString(),
+      to: current.to.toISOString(),
+      timeZone: settings.timeZone,
+      rules: rules.overtimeRules,
+      minimumWageCents: applicableMinimumWageCents(rules),
+      payRules: rules,
+      caution: PAY_ESTIMATE_CAUTION,
+      rounding: MONEY_ROUNDING_RULE,
+      apportionSpanningLines: settings.apportionSpanningLines,
+      closed: false,
+      closedAt: null,
+      closedBy: null,
+      technicians,
+      totals: totalsOf(technicians),
+      adjustments,
+      unresolvedExceptions: exceptions.filter((e) => e.resolution === null).length,
+    };
+    return {
+      report,
+      lineIds: [...new Set([...current.flagged.values()].flatMap((lines) => [...lines.keys()]))],
+    };
+  }
+
+  /** The rows of a week computed now; with `only`, that technician's alone, from their own figures. */
+  private liveRows(
     label: string,
     settings: ShopSettings,
     now: Date,
-    { withAdjustments = true, only }: { withAdjustments?: boolean; only?: number } = {},
-  ): LivePay {
+    { withAdjustments, only }: { withAdjustments: boolean; only?: number },
+  ) {
     const current =
       only === undefined
         ? this.weeks.figures([label], settings, now)[0]!
@@ -179,30 +207,7 @@ export class PaySummaryService {
         adjustments: adjustments.filter((a) => a.technicianId === pay.person.id),
       }),
     );
-    const report: PayReport = {
-      week: label,
-      weekName: workweekName(label, settings),
-      from: current.from.toISOString(),
-      to: current.to.toISOString(),
-      timeZone: settings.timeZone,
-      rules: rules.overtimeRules,
-      minimumWageCents: applicableMinimumWageCents(rules),
-      payRules: rules,
-      caution: PAY_ESTIMATE_CAUTION,
-      rounding: MONEY_ROUNDING_RULE,
-      apportionSpanningLines: settings.apportionSpanningLines,
-      closed: false,
-      closedAt: null,
-      closedBy: null,
-      technicians,
-      totals: totalsOf(technicians),
-      adjustments,
-      unresolvedExceptions: exceptions.filter((e) => e.resolution === null).length,
-    };
-    return {
-      report,
-      lineIds: [...new Set([...current.flagged.values()].flatMap((lines) => [...lines.keys()]))],
-    };
+    return { current, rules, technicians, adjustments, exceptions };
   }
 
   /** The figures the pay rules need from a technician's week, in whole seconds. */
