@@ -188,6 +188,11 @@ function RatioChart({ report, kpi, printing }: { report: LabourReport; kpi: KpiN
               position={sideways ? 'right' : 'top'}
               fill={tokens.colorNeutralForeground1}
               fontSize={11}
+              // A halo of the card's colour keeps a figure readable where a guideline runs through it.
+              stroke={tokens.colorNeutralBackground1}
+              strokeWidth={4}
+              strokeLinejoin="round"
+              paintOrder="stroke"
               formatter={(value) =>
                 value === null || value === undefined ? '–' : `${Math.round(Number(value))}%`
               }
