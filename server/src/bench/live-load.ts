@@ -73,6 +73,8 @@ export interface LoadResult {
   /** Of which on the server's main thread, the event loop; the rest is V8's collector and libuv's pool. */
   serverMainThreadCpuMs: number;
   eventLoop: EventLoopDelay;
+  /** The server's resident memory once a second through the load, in MB: it rises and falls with V8's collector. */
+  rssSamplesMb: number[];
 }
 
 /**
@@ -112,6 +114,8 @@ export async function punchLoad(
   const cpuBefore = server.cpuTimesMs();
   const mainBefore = server.cpuTimesMs('main thread');
   const started = performance.now();
+  const rssSamplesMb: number[] = [];
+  const rssSampler = setInterval(() => rssSamplesMb.push(server.memoryMb().rss), 1000);
   const total = rate * seconds;
   const requests: Promise<void>[] = [];
   /** Like a kiosk's outbox, a technician's next punch goes out once the server answered the last. */
@@ -155,6 +159,7 @@ export async function punchLoad(
     await new Promise((resolve) => setTimeout(resolve, 20));
   }
   const elapsedMs = performance.now() - started;
+  clearInterval(rssSampler);
   const cpuAfter = server.cpuTimesMs();
   const mainAfter = server.cpuTimesMs('main thread');
   const serverSystemCpuMs = cpuAfter.system - cpuBefore.system;
@@ -171,5 +176,6 @@ export async function punchLoad(
     serverSystemCpuMs,
     serverMainThreadCpuMs: mainAfter.user - mainBefore.user + mainAfter.system - mainBefore.system,
     eventLoop: await eventLoop(),
+    rssSamplesMb,
   };
 }

@@ -230,6 +230,12 @@ if (runs('live')) {
   const memory = server.memoryMb();
   track('server rss mb at 1000 sockets', memory.rss, `server RSS with ${sockets.length} sockets`, 'MB');
   print('server peak RSS so far', memory.peak, 'MB');
+  const rss = load.rssSamplesMb;
+  print(
+    '  RSS in the load (each s), min / med / max',
+    `${round(Math.min(...rss))} / ${round(median(rss))} / ${round(Math.max(...rss))}`,
+    'MB',
+  );
 
   // 6. Kill the server and start it again: every socket reconnects by itself and gets a fresh snapshot.
   await server.stop(profileDir ? 'SIGINT' : 'SIGKILL');
