@@ -78,6 +78,30 @@ describe('wall board', () => {
     },
   );
 
+  it('packs the people strip again when its chips grow with the same words, as when a font arrives', async () => {
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    // The strip stays on its first page while the clock stands still.
+    await page.clock.install();
+    // The chips start narrower, as in a narrower fallback font, so the strip first packs more to a page.
+    await page.addInitScript(() =>
+      document.addEventListener('DOMContentLoaded', () => {
+        const narrow = document.createElement('style');
+        narrow.id = 'narrow-chips';
+        narrow.textContent = '[class*="_chip_"] { letter-spacing: -0.12em; }';
+        document.head.append(narrow);
+      }),
+    );
+    await openWall(page, server);
+    const shown = peopleStrip(page).locator('[class*="_chips_"] > [class*="_chip_"]');
+    await expect.poll(() => shown.count()).toBeGreaterThan(1);
+    const packed = await shown.count();
+    await page.evaluate(() => document.getElementById('narrow-chips')?.remove());
+    await expect.poll(() => shown.count()).toBeLessThan(packed);
+    expect(await flaws(page)).toEqual([]);
+    await page.close();
+  });
+
   it('recovers to the true state by itself after the server is killed and restarted, without a reload', async () => {
     const page = await browser.newPage();
     await openWall(page, server);

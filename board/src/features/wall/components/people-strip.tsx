@@ -49,6 +49,8 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOn
     measure();
     const observer = new ResizeObserver(measure);
     if (boxRef.current) observer.observe(boxRef.current);
+    // A chip also changes width with the same words: another state's outline, other digits, a font arriving.
+    for (const chip of measureRef.current?.children ?? []) observer.observe(chip);
     return () => observer.disconnect();
   }, [shape, onPageCount]);
 
