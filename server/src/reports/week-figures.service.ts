@@ -282,9 +282,10 @@ export class WeekFiguresService {
     if (first < 0) return found as T[];
     const computed = this.compute(labels.slice(first, found.lastIndexOf(undefined) + 1), settings, now).map(
       (week) => {
-        this.keptShopHours.keep(week.week, week.to, now, shopHoursOf(week));
         const value = valueOf(week);
         if (keepComputed) kept.keep(week.week, week.to, now, value);
+        // Whatever was asked for, the week's shop hours are kept for the trend: once.
+        if (kept !== this.keptShopHours) this.keptShopHours.keep(week.week, week.to, now, shopHoursOf(week));
         return value;
       },
     );
