@@ -37,6 +37,7 @@ const useStyles = makeStyles({
     padding: `2px ${tokens.spacingHorizontalXS}`,
     borderRadius: tokens.borderRadiusMedium,
     backgroundColor: tokens.colorNeutralBackground3,
+    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke1}`,
   },
   target: { outlineColor: tokens.colorNeutralStroke1, outlineStyle: 'dashed' },
   over: {
