@@ -29,11 +29,6 @@ const useStyles = makeStyles({
   name: { fontWeight: tokens.fontWeightBold, whiteSpace: 'nowrap' },
   /** Free bays share one state chip: a big shop's idle bays would otherwise fill rows of the page. */
   free: {
-    display: 'flex',
-    flexWrap: 'wrap',
-    alignItems: 'center',
-    columnGap: tokens.spacingHorizontalXS,
-    rowGap: tokens.spacingVerticalXS,
     padding: `2px ${tokens.spacingHorizontalXS}`,
     borderRadius: tokens.borderRadiusMedium,
     backgroundColor: tokens.colorNeutralBackground3,
@@ -165,7 +160,11 @@ export function BaysStrip({ board, canEdit, dragging, releasingId, onRelease }: 
           />
         ))}
       {free.length > 0 && (
-        <div className={styles.free} role="group" aria-label={`Free bays: ${free.length}`}>
+        <div
+          className={mergeClasses(styles.strip, styles.free)}
+          role="group"
+          aria-label={`Free bays: ${free.length}`}
+        >
           <StateChip state="free" />
           {free.map((bay) => (
             <BayDropTarget key={bay.id} bay={bay} canEdit={canEdit} dragging={dragging} />
