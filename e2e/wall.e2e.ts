@@ -83,12 +83,13 @@ describe('wall board', () => {
     await page.setViewportSize({ width: 1920, height: 1080 });
     // The strip stays on its first page while the clock stands still.
     await page.clock.install();
-    // The chips start narrower, as in a narrower fallback font, so the strip first packs more to a page.
+    // The chips start far narrower with the same words, as in a narrow fallback font, so the strip first
+    // packs several to a page whoever is on shift and whatever their chips say.
     await page.addInitScript(() =>
       document.addEventListener('DOMContentLoaded', () => {
         const narrow = document.createElement('style');
         narrow.id = 'narrow-chips';
-        narrow.textContent = '[class*="_chip_"] { letter-spacing: -0.12em; }';
+        narrow.textContent = '[class*="_chip_"] { max-width: 8rem; overflow: hidden; }';
         document.head.append(narrow);
       }),
     );
@@ -98,7 +99,8 @@ describe('wall board', () => {
     const packed = await shown.count();
     await page.evaluate(() => document.getElementById('narrow-chips')?.remove());
     await expect.poll(() => shown.count()).toBeLessThan(packed);
-    expect(await flaws(page)).toEqual([]);
+    // More pages need more page marks, which leaves the chips less room: the strip packs again a frame later.
+    await expect.poll(() => flaws(page)).toEqual([]);
     await page.close();
   });
 
