@@ -5,7 +5,7 @@ export interface RetryPolicy {
   firstMs: number;
   /** The longest wait, however many failures. */
   maxMs: number;
-  /** Spread each wait over [1, 2) times its value, so clients that failed together retry apart. */
+  /** Spread each wait over 1 to 2 times its value (whole ms), so clients that failed together retry apart. */
   jitter?: boolean;
 }
 
