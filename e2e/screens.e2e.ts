@@ -1,8 +1,9 @@
 import Database from 'better-sqlite3';
+import { randomUUID } from 'node:crypto';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BoardSnapshot } from '@baytime/shared';
+import type { BoardSnapshot, UserDto } from '@baytime/shared';
 import { paths } from '../board/src/config/paths';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { flaws } from './support/flaws.js';
@@ -31,6 +32,18 @@ describe('every screen at its real sizes', () => {
     for (let n = board.bays.length + 1; n <= 12; n++) await owner('POST', '/bays', { name: `Bay ${n}` });
     const held = board.bays.find((bay) => bay.state === 'held');
     expect(held?.jobLine).toBeTruthy();
+    // Luis's demo punches are from up to three hours ago, in last week when the shop's week began
+    // since: a clock-off and on again now gives his week punch times to show whenever this runs.
+    const luis = (await owner<UserDto[]>('GET', '/users')).find((user) => user.name === 'Luis Brennan');
+    const luisLine = board.bays.find((bay) => bay.technicians.some((t) => t.id === luis?.id))?.jobLine;
+    expect(luisLine).toBeTruthy();
+    for (const kind of ['job-off', 'job-on'])
+      await owner('POST', '/punches', {
+        id: randomUUID(),
+        kind,
+        jobLineId: luisLine!.id,
+        technicianId: luis!.id,
+      });
     // The API holds a line from now; a hold of ten hours is written the way the server's own specs
     // set a past time, with the server stopped, as if it had been held since early morning.
     await server.kill('SIGTERM');
