@@ -37,11 +37,12 @@ const EVENTS_PER_CONNECTION = 9;
 const SEED = Number(process.env.BAYTIME_FUZZ_SEED ?? 20_261_202);
 
 /**
- * The seq mark is moved by live messages that trail an accepted change (the late-line count is
- * published after a pause), so it moves at moments that belong to no request: it is checked to only
- * rise instead.
+ * Two tables change at moments that belong to no request. The seq mark is moved by live messages that
+ * trail an accepted change (the late-line count is published after a pause), so it is checked to only
+ * rise instead. The stored efficiencies are a cache that the late-line count refreshes on its own
+ * timer, each minute as well as after a change.
  */
-const TRAILING = ['live_sequence'];
+const TRAILING = ['live_sequence', 'stored_efficiencies'];
 /** A refused sign-in is counted: that is the throttle doing its work. */
 const SIGN_IN_ROUTES = ['/api/auth/login', '/api/auth/badge', '/api/auth/screens/pair'];
 
