@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import {
+  workweekBounds,
   workweekOf,
   type CorrectionPreview,
   type ExceptionList,
@@ -28,11 +29,14 @@ describe(`${PunchesService.name}: late punches`, () => {
   let kiosk: string;
   let line: number;
   let shop: ShopSettings;
-  /** One clock for the whole file, so hand-worked durations come out exact however slow the machine. */
-  const start = Date.now();
+  /**
+   * One clock for the whole file, so hand-worked durations come out exact however slow the machine. Set in
+   * `beforeAll`, once the shop's workweek is known.
+   */
+  let start: number;
   const ago = (hours: number) => new Date(start - hours * HOUR).toISOString();
-  /** The shop week of the punches made here, whatever the hour the test runs. */
-  const week = () => workweekOf(new Date(start - 5 * HOUR), shop);
+  /** The shop week of the punches made here, whatever the hour the test runs: all of them lie in it. */
+  const week = () => workweekOf(new Date(start - HOUR), shop);
   const punch = (body: object, token = kiosk) =>
     history.as(token).post('/api/punches', { id: randomUUID(), ...body });
   const card = async (technicianId = max) =>
@@ -45,6 +49,12 @@ describe(`${PunchesService.name}: late punches`, () => {
     foreman = await sut.signIn(DEMO.foreman);
     history = shopHistory(sut, { owner, foreman });
     shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
+    // The scenario reaches 7 h back from `start`. Just after the workweek starts that would straddle two
+    // weeks, so it plays out in the last minutes of the week before instead (the kiosk punches, at most
+    // 4 h before `start`, stay within the 12 h a kiosk punch may be late).
+    const now = Date.now();
+    const { from: weekFrom } = workweekBounds(workweekOf(new Date(now), shop), shop);
+    start = now - weekFrom.getTime() < 7 * HOUR ? weekFrom.getTime() - 60_000 : now;
     max = await history.technician('Max Dorrance', '7001', 20_00, 10_00);
     kiosk = (await sut.badge('7001')).accessToken;
     line = history.line('Replace brake hoses', 1.5, max, new Date(start - 5 * HOUR));
@@ -184,7 +194,7 @@ describe(`${PunchesService.name}: late punches`, () => {
     await history.punch(ida, 'shift-out', new Date(ago(2)));
     const mine = async () =>
       (
-        (await history.as(foreman).get('/api/exceptions').expect(200)).body as ExceptionList
+        (await history.as(foreman).get(`/api/exceptions?week=${week()}`).expect(200)).body as ExceptionList
       ).exceptions.filter((e) => e.technicianId === ida);
     const [short] = await mine();
     expect(short).toMatchObject({ kind: 'short-meal', resolution: null });
