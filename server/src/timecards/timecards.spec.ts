@@ -1,14 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { workweekOf, type Timecard } from '@baytime/shared';
+import { workweekBounds, workweekOf, type ShopSettings, type Timecard } from '@baytime/shared';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimecardsService } from './timecards.service.js';
+
+const HOUR = 3600_000;
 
 describe(TimecardsService.name, () => {
   let sut: TestApp;
   let owner: string;
   let technicianId: number;
   let techToken: string;
-  const card = async (token = owner, query = `technicianId=${technicianId}`) =>
+  /** Kit's missed 4 h shift, all in one shop week, and that week (set in `beforeAll`). */
+  let shift: { start: Date; end: Date };
+  let week: string;
+  const card = async (token = owner, query = `technicianId=${technicianId}&week=${week}`) =>
     (await sut.http().get(`/api/timecards?${query}`).auth(token, { type: 'bearer' }).expect(200))
       .body as Timecard;
   const correct = (body: object) =>
@@ -30,12 +35,19 @@ describe(TimecardsService.name, () => {
     const kit = await sut.badge('3001');
     technicianId = kit.user.id;
     techToken = kit.accessToken;
+    const shop = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    // Within 5 h of the workweek's start the shift would straddle two weeks: it goes in the week before.
+    const now = Date.now();
+    const { from: weekFrom } = workweekBounds(workweekOf(new Date(now), shop), shop);
+    const end = now - weekFrom.getTime() < 5 * HOUR ? weekFrom.getTime() - HOUR : now - HOUR;
+    shift = { start: new Date(end - 4 * HOUR), end: new Date(end) };
+    week = workweekOf(shift.end, shop);
   });
   afterAll(() => sut.close());
 
   it('adds a missed shift with a reason and counts it; the audit trail says who and why', async () => {
-    const start = new Date(Date.now() - 5 * 3600_000);
-    const end = new Date(Date.now() - 1 * 3600_000);
+    const { start, end } = shift;
     await correct({ kind: 'shift-in', at: start.toISOString(), reason: 'Forgot to punch in' }).expect(201);
     await correct({ kind: 'shift-out', at: end.toISOString(), reason: 'Forgot to punch out' }).expect(201);
     const timecard = await card();
