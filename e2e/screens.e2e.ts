@@ -7,7 +7,15 @@ import type { BoardSnapshot, UserDto } from '@baytime/shared';
 import { paths } from '../board/src/config/paths';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { flaws } from './support/flaws.js';
-import { apiAs, openKiosk, openWall, signInAtKiosk, signInAtOffice, type Api } from './support/floor.js';
+import {
+  apiAs,
+  openKiosk,
+  openWall,
+  peopleStrip,
+  signInAtKiosk,
+  signInAtOffice,
+  type Api,
+} from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** The longest real values the screens must show whole: a 40-character shop name, a hold of over 10 h. */
@@ -91,6 +99,26 @@ describe('every screen at its real sizes', () => {
       await page.close();
     },
   );
+
+  it('wall at 1920x1080: a person too wide for the strip even alone shows glyph and name, nothing cut', async () => {
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    // Wide-set details make every chip wider than the strip's room, as a long idle time beside a long
+    // queue wait once did ("idle 7h 20m" cut in the middle of its last letter).
+    await page.addInitScript(() =>
+      document.addEventListener('DOMContentLoaded', () => {
+        const wide = document.createElement('style');
+        wide.textContent = '[class*="_chipDetail_"] { letter-spacing: 3em; }';
+        document.head.append(wide);
+      }),
+    );
+    await openWall(page, server);
+    const shown = peopleStrip(page).locator('[class*="_chips_"] > [class*="_chip_"]');
+    await expect.poll(() => shown.locator('[class*="chipName"]').count()).toBeGreaterThan(0);
+    expect(await shown.locator('[class*="chipDetail"]').count()).toBe(0);
+    await look(page, 'screens-wall-strip-too-wide');
+    await page.close();
+  });
 
   it.each([
     [1280, 800],

@@ -59,11 +59,11 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOn
     : undefined;
   const pages = room ? stripPages(room.widths, room.available, room.gap, offJobs) : [];
   const page = pages.length ? pages[turn % pages.length] : undefined;
-  const shown = page
-    ? page.map((index) => chips[index]).filter((chip) => chip !== undefined)
-    : offJobs
-      ? []
-      : chips;
+  const shownIndices = page ?? (offJobs ? [] : chips.map((_, index) => index));
+  const shown = shownIndices.flatMap((index) => {
+    const chip = chips[index];
+    return chip ? [{ chip, brief: room !== null && (room.widths[index] ?? 0) > room.available }] : [];
+  });
 
   return (
     <footer className={styles.strip}>
@@ -79,25 +79,33 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOn
         ) : offJobs?.length === 0 ? (
           <div className={styles.chip}>Everyone on shift is on a job</div>
         ) : (
-          shown.map((chip) => <PersonChipView key={chip.id} chip={chip} />)
+          shown.map(({ chip, brief }) => <PersonChipView key={chip.id} chip={chip} brief={brief} />)
         )}
       </div>
       <PageMarks
         page={pages.length ? turn % pages.length : 0}
         pages={pages.length}
         announced={false}
+        dots={false}
         className={styles.stripPages}
       />
     </footer>
   );
 }
 
-export function PersonChipView({ chip, className }: { chip: PersonChip; className?: string }) {
+export interface PersonChipViewProps {
+  chip: PersonChip;
+  /** The glyph and name only: for a chip too wide for the strip even alone, rather than cut off. */
+  brief?: boolean;
+  className?: string;
+}
+
+export function PersonChipView({ chip, brief = false, className }: PersonChipViewProps) {
   return (
     <div className={`${styles.chip} ${chip.status === 'idle' ? styles.chipIdle : ''} ${className ?? ''}`}>
       <Glyph name={GLYPHS[chip.status]} className={styles.glyph} />
       <span className={styles.chipName}>{chip.name}</span>
-      <span className={styles.chipDetail}>{chip.detail}</span>
+      {!brief && <span className={styles.chipDetail}>{chip.detail}</span>}
     </div>
   );
 }
