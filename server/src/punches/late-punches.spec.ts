@@ -2,7 +2,6 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import {
-  workweekBounds,
   workweekOf,
   type CorrectionPreview,
   type ExceptionList,
@@ -14,6 +13,7 @@ import {
 import { DB, type Db } from '../db/database.js';
 import { auditLog } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
+import { oneWeekEnd } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { PunchesService } from './punches.service.js';
 
@@ -49,12 +49,9 @@ describe(`${PunchesService.name}: late punches`, () => {
     foreman = await sut.signIn(DEMO.foreman);
     history = shopHistory(sut, { owner, foreman });
     shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
-    // The scenario reaches 7 h back from `start`. Just after the workweek starts that would straddle two
-    // weeks, so it plays out in the last minutes of the week before instead (the kiosk punches, at most
-    // 4 h before `start`, stay within the 12 h a kiosk punch may be late).
-    const now = Date.now();
-    const { from: weekFrom } = workweekBounds(workweekOf(new Date(now), shop), shop);
-    start = now - weekFrom.getTime() < 7 * HOUR ? weekFrom.getTime() - 60_000 : now;
+    // The scenario reaches 7 h back from `start`. When it is moved before the week began, the kiosk
+    // punches (at most 4 h before `start`) stay within the 12 h a kiosk punch may be late.
+    start = oneWeekEnd(7 * HOUR, shop);
     max = await history.technician('Max Dorrance', '7001', 20_00, 10_00);
     kiosk = (await sut.badge('7001')).accessToken;
     line = history.line('Replace brake hoses', 1.5, max, new Date(start - 5 * HOUR));

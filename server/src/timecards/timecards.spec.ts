@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { workweekBounds, workweekOf, type ShopSettings, type Timecard } from '@baytime/shared';
+import { workweekOf, type ShopSettings, type Timecard } from '@baytime/shared';
+import { oneWeekEnd } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimecardsService } from './timecards.service.js';
 
@@ -37,10 +38,7 @@ describe(TimecardsService.name, () => {
     techToken = kit.accessToken;
     const shop = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
       .body as ShopSettings;
-    // Within 5 h of the workweek's start the shift would straddle two weeks: it goes in the week before.
-    const now = Date.now();
-    const { from: weekFrom } = workweekBounds(workweekOf(new Date(now), shop), shop);
-    const end = now - weekFrom.getTime() < 5 * HOUR ? weekFrom.getTime() - HOUR : now - HOUR;
+    const end = oneWeekEnd(5 * HOUR, shop) - HOUR;
     shift = { start: new Date(end - 4 * HOUR), end: new Date(end) };
     week = workweekOf(shift.end, shop);
   });
