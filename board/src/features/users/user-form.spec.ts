@@ -1,6 +1,22 @@
 import { describe, expect, it } from 'vitest';
-import { addUserFormSchema, editUserFormSchema, EMPTY_USER, fieldsOf } from './user-form';
+import type { UserDto } from '@baytime/shared';
+import { addUserFormSchema, editUserFormSchema, EMPTY_USER, fieldsOf, rateToCome } from './user-form';
 
+const tamsin: UserDto = {
+  id: 1,
+  name: 'Tamsin Reeve',
+  role: 'technician',
+  email: null,
+  badge: '2601',
+  skillLevel: 2,
+  flatRateCents: 2850,
+  hourlyRateCents: 1500,
+  overtimeExempt: true,
+  active: true,
+  payType: 'flat-rate',
+  guaranteeCents: 0,
+  payRates: [],
+};
 const technician = { ...EMPTY_USER, name: 'Tamsin Reeve', badge: '2601', pin: '2468', flatRate: '$28.50' };
 
 describe('the people form', () => {
@@ -13,21 +29,7 @@ describe('the people form', () => {
   });
 
   it('reads an exempt person back with the switch off', () => {
-    const fields = fieldsOf({
-      id: 1,
-      name: 'Tamsin Reeve',
-      role: 'technician',
-      email: null,
-      badge: '2601',
-      skillLevel: 2,
-      flatRateCents: 2850,
-      hourlyRateCents: 1500,
-      overtimeExempt: true,
-      active: true,
-      payType: 'flat-rate',
-      guaranteeCents: 0,
-      payRates: [],
-    });
+    const fields = fieldsOf(tamsin);
     expect(fields).toMatchObject({ paidOvertime: false, flatRate: '28.50', pin: '' });
     // An edit with the PIN left empty keeps the PIN: it is not sent.
     expect(JSON.stringify(editUserFormSchema.parse(fields))).not.toContain('"pin"');
@@ -61,5 +63,14 @@ describe('the people form', () => {
     expect(noBadge.error!.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
       ['badge', 'A technician needs a badge'],
     ]);
+  });
+
+  it('shows a rate as still to come until its first day begins in the shop’s time zone, not in UTC', () => {
+    const rate = { ...tamsin, effectiveFrom: '2026-12-05', recordedAt: '2026-12-04T15:00:00.000Z' };
+    const raised = { ...tamsin, payRates: [rate] };
+    // 8 pm on Friday Dec 4 in Chicago is already Saturday Dec 5 in UTC.
+    expect(rateToCome(raised, new Date('2026-12-05T02:00:00Z'), 'America/Chicago')).toBe(rate);
+    expect(rateToCome(raised, new Date('2026-12-05T06:00:00Z'), 'America/Chicago')).toBeNull();
+    expect(rateToCome(tamsin, new Date('2026-12-05T02:00:00Z'), 'America/Chicago')).toBeNull();
   });
 });

@@ -2,7 +2,9 @@ import { z } from 'zod';
 import {
   createUserSchema,
   PAY_TYPES,
+  shopDayKey,
   updateUserSchema,
+  type DatedPayRate,
   type PersonRole,
   type UserDto,
 } from '@baytime/shared';
@@ -97,4 +99,10 @@ export function fieldsOf(user: UserDto): UserFields {
     skillLevel: String(user.skillLevel),
     ...payDraftOf(user),
   };
+}
+
+/** The newest rate when it starts on a later calendar day in the shop's time zone than `now`. */
+export function rateToCome(user: UserDto, now: Date, timeZone: string): DatedPayRate | null {
+  const newest = user.payRates[0];
+  return newest && newest.effectiveFrom > shopDayKey(now, timeZone) ? newest : null;
 }

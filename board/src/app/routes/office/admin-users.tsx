@@ -1,10 +1,14 @@
+import { MessageBar, MessageBarBody, Spinner } from '@fluentui/react-components';
 import { PageHeader } from '@/components/page-header';
+import { formErrorText } from '@/lib/form-errors';
 import { AddUserForm } from '@/features/users/components/add-user-form';
+import { useShop } from '@/features/shop/api/get-shop';
 import { UsersTable } from '@/features/users/components/users-table';
 import { useOffice } from './office-context';
 
 export function Component() {
   const { user } = useOffice();
+  const shop = useShop();
   return (
     <>
       <PageHeader
@@ -12,7 +16,15 @@ export function Component() {
         description="Technicians sign in at the kiosk with a badge; office staff with e-mail."
       />
       <AddUserForm />
-      <UsersTable currentUserId={user.id} />
+      {shop.isError ? (
+        <MessageBar intent="error">
+          <MessageBarBody>{formErrorText(shop.error)}</MessageBarBody>
+        </MessageBar>
+      ) : shop.data ? (
+        <UsersTable currentUserId={user.id} timeZone={shop.data.timeZone} />
+      ) : (
+        <Spinner label="Loading people…" />
+      )}
     </>
   );
 }

@@ -15,11 +15,11 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { DEVICE_ROLES, type PersonRole, type Role, type UserDto } from '@baytime/shared';
+import { DEVICE_ROLES, type DatedPayRate, type PersonRole, type Role, type UserDto } from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '@/lib/api/get-users';
 import { useUpdateUser } from '../api/update-user';
-import { ROLE_LABELS } from '../user-form';
+import { ROLE_LABELS, rateToCome } from '../user-form';
 import { EditUserDialog } from './edit-user-dialog';
 import { PayRateDialog, rateWords } from './pay-rate-dialog';
 
@@ -32,6 +32,16 @@ const useStyles = makeStyles({
   actions: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'center', flexWrap: 'wrap' },
   dim: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
+
+function RateToCome({ rate }: { rate: DatedPayRate | null }) {
+  const styles = useStyles();
+  if (!rate) return null;
+  return (
+    <Caption1 className={styles.dim}>
+      From {rate.effectiveFrom}: {rateWords(rate)}
+    </Caption1>
+  );
+}
 
 function ActiveButton({ user, onError }: { user: UserDto; onError: (message: string | null) => void }) {
   const update = useUpdateUser();
@@ -72,7 +82,7 @@ function ActiveButton({ user, onError }: { user: UserDto; onError: (message: str
 }
 
 /** `currentUserId`: the signed-in owner, who cannot deactivate themself here. */
-export function UsersTable({ currentUserId }: { currentUserId?: number }) {
+export function UsersTable({ currentUserId, timeZone }: { currentUserId?: number; timeZone: string }) {
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
@@ -87,8 +97,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
       </MessageBar>
     );
 
-  // Dates on record are shop-local calendar days; a day ahead of the browser's is still "to come".
-  const today = new Date().toISOString().slice(0, 10);
+  const now = new Date();
   const sorted = [...users.data]
     .filter(
       (user): user is UserDto & { role: PersonRole } =>
@@ -129,11 +138,7 @@ export function UsersTable({ currentUserId }: { currentUserId?: number }) {
                   <TableCell>{tech ? user.skillLevel : '—'}</TableCell>
                   <TableCell className={styles.numeric}>
                     {tech ? rateWords(user) : '—'}
-                    {tech && user.payRates[0] && user.payRates[0].effectiveFrom > today && (
-                      <Caption1 className={styles.dim}>
-                        From {user.payRates[0].effectiveFrom}: {rateWords(user.payRates[0])}
-                      </Caption1>
-                    )}
+                    {tech && <RateToCome rate={rateToCome(user, now, timeZone)} />}
                   </TableCell>
                   <TableCell>
                     <Badge appearance="tint" color={user.active ? 'brand' : 'subtle'}>
