@@ -59,13 +59,16 @@ export class JobLinesService {
   patch(id: number, body: PatchJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
     if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');
+    this.assertRepairOrderOpen(line);
     if (body.technicianId) this.assertTechnician(body.technicianId);
     if (body.bayId) referencedBay(this.db, body.bayId);
     if (body.completedAt && new Date(body.completedAt) > now)
       throw new BadRequestException('A line cannot be finished in the future');
+    const reopened = line.status === 'done' && body.status !== undefined && body.status !== 'done';
     if (body.completedAt) this.closedWeeks.assertOpenAt(new Date(body.completedAt), 'That completion time');
     else if (body.status === 'done' && line.status !== 'done')
       this.closedWeeks.assertOpenAt(now, 'Finishing that line');
+    if (body.bayId && body.bayId !== line.bayId) this.assertBayFor(body.bayId, line);
 
     const changes: Partial<typeof jobLines.$inferInsert> = { updatedAt: now };
     if (body.priority) changes.priority = body.priority;
@@ -82,13 +85,18 @@ export class JobLinesService {
         });
     }
     if (body.bayId !== undefined && body.bayId !== line.bayId) changes.bayId = body.bayId;
-    if (body.status === 'held')
-      Object.assign(changes, { status: 'held', holdReason: body.holdReason, heldAt: now });
+    if (reopened) Object.assign(changes, NOT_FINISHED);
+    if (body.status === 'held' && body.holdReason) {
+      if (line.status !== 'held' || line.holdReason !== body.holdReason)
+        this.holdSteps(id, body.holdReason, undefined, actor, now);
+      Object.assign(changes, { status: 'held', holdReason: body.holdReason, heldAt: line.heldAt ?? now });
+    }
     if (body.status === 'queued' || body.status === 'working')
-      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null, signOff: null });
+      Object.assign(changes, { status: body.status, holdReason: null, heldAt: null });
     if (body.status === 'done' || body.completedAt) {
       if (line.status !== 'done') changes.signOff = this.signOffNeeded(id, now);
       this.punches.clockOffLine(id, actor, 'Line marked done by the foreman', now);
+      this.stopTimers(id, now);
       Object.assign(changes, {
         status: 'done',
         holdReason: null,
@@ -98,7 +106,9 @@ export class JobLinesService {
       });
     }
     const updated = this.save(id, changes);
-    if (changes.bayId) this.stageBay(changes.bayId, updated.repairOrderId, now);
+    if (changes.bayId !== undefined && line.bayId) this.leaveBay(line.bayId, line.repairOrderId, now);
+    if (updated.bayId && (changes.bayId || reopened))
+      this.stageBay(updated.bayId, updated.repairOrderId, now);
     if (updated.status === 'done' && line.status !== 'done') this.afterDone(updated, 'check', now);
     else if (updated.status !== line.status) this.statusChanged(updated, now);
     this.audit.record({
@@ -117,8 +127,7 @@ export class JobLinesService {
     const line = this.findForActor(id, actor, now);
     if (!isOpenLine(line))
       throw new ConflictException(`That line is already ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
-    this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
-    if (reason === 'parts') this.parts.noteHold(id, part, now);
+    this.holdSteps(id, reason, part, actor, now);
     const updated = this.save(id, { status: 'held', holdReason: reason, heldAt: now, updatedAt: now });
     this.audit.record({
       actorId: actor.id,
@@ -152,6 +161,7 @@ export class JobLinesService {
     this.closedWeeks.assertOpenAt(now, 'Finishing that line');
     const signOff = this.signOffNeeded(id, now);
     this.punches.clockOffLine(id, actor, 'Line marked done', now);
+    this.stopTimers(id, now);
     const updated = this.save(id, {
       status: 'done',
       holdReason: null,
@@ -209,6 +219,7 @@ export class JobLinesService {
   @Transactional()
   editDetails(id: number, body: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
+    this.assertRepairOrderOpen(line);
     // An emptied cause or correction is no longer on record.
     const changes = changedFields(line, {
       ...body,
@@ -240,13 +251,7 @@ export class JobLinesService {
     if (!isOpenLine(line))
       throw new ConflictException(`That line is already ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     this.punches.clockOffLine(id, actor, `Line cancelled: ${reason}`, now);
-    const stopped = this.db
-      .update(timers)
-      .set({ endedAt: now })
-      .where(and(eq(timers.jobLineId, id), isNull(timers.endedAt)))
-      .returning()
-      .all();
-    if (stopped.length) this.floor.timersChanged();
+    this.stopTimers(id, now);
     const updated = this.save(id, {
       status: 'cancelled',
       cancelReason: reason,
@@ -255,6 +260,9 @@ export class JobLinesService {
       updatedAt: now,
     });
     this.statusChanged(updated, now);
+    // Nothing left to do in the bay: the car goes to its check when work was done on it there.
+    if (line.bayId && !this.openLinesIn(line.bayId).length)
+      this.moveBay(line.bayId, this.doneIn(line.bayId, line.repairOrderId) ? 'check' : 'ready', line, now);
     this.audit.record({
       actorId: actor.id,
       action: 'cancel',
@@ -351,20 +359,60 @@ export class JobLinesService {
       now,
     );
     this.statusChanged(line, now);
-    if (!line.bayId) return;
-    const openInBay = this.db
+    if (line.bayId && !this.openLinesIn(line.bayId).length) this.moveBay(line.bayId, next, line, now);
+  }
+
+  private moveBay(bayId: number, phase: 'check' | 'ready', line: LineRow, now: Date): void {
+    this.db
+      .update(bays)
+      .set({ phase, phaseSince: now, repairOrderId: line.repairOrderId })
+      .where(eq(bays.id, bayId))
+      .run();
+  }
+
+  private openLinesIn(bayId: number): LineRow[] {
+    return this.db
       .select()
       .from(jobLines)
-      .where(
-        and(eq(jobLines.bayId, line.bayId), ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')),
-      )
+      .where(and(eq(jobLines.bayId, bayId), ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')))
       .all();
-    if (openInBay.length === 0)
-      this.db
-        .update(bays)
-        .set({ phase: next, phaseSince: now, repairOrderId: line.repairOrderId })
-        .where(eq(bays.id, line.bayId))
-        .run();
+  }
+
+  private doneIn(bayId: number, repairOrderId: number): boolean {
+    return !!this.db
+      .select({ id: jobLines.id })
+      .from(jobLines)
+      .where(
+        and(
+          eq(jobLines.bayId, bayId),
+          eq(jobLines.repairOrderId, repairOrderId),
+          eq(jobLines.status, 'done'),
+        ),
+      )
+      .get();
+  }
+
+  /** Ends the line's running timers: its work is over. */
+  private stopTimers(id: number, now: Date): void {
+    const stopped = this.db
+      .update(timers)
+      .set({ endedAt: now })
+      .where(and(eq(timers.jobLineId, id), isNull(timers.endedAt)))
+      .returning()
+      .all();
+    if (stopped.length) this.floor.timersChanged();
+  }
+
+  /** The steps of a hold besides the status: whoever is on the line is clocked off, a parts hold noted. */
+  private holdSteps(
+    id: number,
+    reason: HoldLineBody['reason'],
+    part: string | undefined,
+    actor: Principal,
+    now: Date,
+  ): void {
+    this.punches.clockOffLine(id, actor, `Line held: ${reason}`, now);
+    if (reason === 'parts') this.parts.noteHold(id, part, now);
   }
 
   /**
@@ -384,14 +432,55 @@ export class JobLinesService {
       );
   }
 
+  /** A line put in a bay (or opened again there) brings its car: the bay is staged for it. */
   private stageBay(bayId: number, repairOrderId: number, now: Date): void {
     const bay = this.db.select().from(bays).where(eq(bays.id, bayId)).get();
-    if (bay && (bay.phase === 'free' || bay.repairOrderId !== repairOrderId))
+    if (bay && (bay.phase !== 'staged' || bay.repairOrderId !== repairOrderId))
       this.db
         .update(bays)
         .set({ phase: 'staged', phaseSince: now, repairOrderId })
         .where(eq(bays.id, bayId))
         .run();
+  }
+
+  /** A car holds its bay until it leaves: another RO's line waits for the bay to be released. */
+  private assertBayFor(bayId: number, line: LineRow): void {
+    const bay = this.db.select().from(bays).where(eq(bays.id, bayId)).get()!;
+    const holder =
+      bay.repairOrderId ??
+      this.openLinesIn(bayId).find((other) => other.repairOrderId !== line.repairOrderId)?.repairOrderId ??
+      null;
+    if (holder === null || holder === line.repairOrderId) return;
+    const ro = this.db
+      .select({ number: repairOrders.number })
+      .from(repairOrders)
+      .where(eq(repairOrders.id, holder))
+      .get()!;
+    throw new ConflictException(
+      `${bay.name} holds RO ${ro.number} until it leaves: pick another bay, or release ${bay.name} first`,
+    );
+  }
+
+  /** The last of the RO's open lines moved out of a bay where its car was only staged: the car went with them. */
+  private leaveBay(bayId: number, repairOrderId: number, now: Date): void {
+    const bay = this.db.select().from(bays).where(eq(bays.id, bayId)).get();
+    if (bay?.phase !== 'staged' || bay.repairOrderId !== repairOrderId) return;
+    if (this.openLinesIn(bayId).some((other) => other.repairOrderId === repairOrderId)) return;
+    this.db
+      .update(bays)
+      .set({ phase: 'free', phaseSince: now, repairOrderId: null })
+      .where(eq(bays.id, bayId))
+      .run();
+  }
+
+  private assertRepairOrderOpen(line: LineRow): void {
+    const ro = this.db
+      .select({ status: repairOrders.status })
+      .from(repairOrders)
+      .where(eq(repairOrders.id, line.repairOrderId))
+      .get()!;
+    if (ro.status === 'closed')
+      throw new ConflictException('That repair order is closed: its lines stay as they were picked up');
   }
 
   private find(id: number): LineRow {
@@ -430,6 +519,16 @@ function threeCs(given: { cause?: string | undefined; correction?: string | unde
     ...(given.correction && { correction: given.correction }),
   };
 }
+
+/** A line opened again: no longer finished, nor signed off. */
+const NOT_FINISHED = {
+  completedAt: null,
+  completedBy: null,
+  signOff: null,
+  signedOffBy: null,
+  signedOffAt: null,
+  signOffReason: null,
+} satisfies Partial<typeof jobLines.$inferInsert>;
 
 /** How a webhook names the RO: its id, its number and the other system's reference. */
 function announcedRepairOrder(ro: typeof repairOrders.$inferSelect) {
