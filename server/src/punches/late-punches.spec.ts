@@ -214,4 +214,29 @@ describe(`${PunchesService.name}: late punches`, () => {
       note: 'Reviewed: Ida asked to cut lunch short today',
     });
   });
+
+  it('holds the rest of an offline replay behind its held punch even where it needs that punch, losing none', async () => {
+    const eli = await history.technician('Eli Brannock', '7004', 20_00, 10_00);
+    const tablet = (await sut.badge('7004')).accessToken;
+    const job = history.line('Replace drive belt', 1.0, eli, new Date(start - 7 * HOUR));
+    // The foreman added Eli's shift-in from the paper sheet while the tablet was offline.
+    await history.punch(eli, 'shift-in', new Date(ago(2)));
+    const own = { shiftIn: randomUUID(), jobOn: randomUUID(), jobOff: randomUUID() };
+    await punch({ id: own.shiftIn, kind: 'shift-in', at: ago(3) }, tablet).expect(202);
+    // Off shift as counted, so taken alone these would be refused: they wait behind the held shift-in.
+    const jobOn = await punch({ id: own.jobOn, kind: 'job-on', jobLineId: job, at: ago(2.5) }, tablet).expect(
+      202,
+    );
+    expect(jobOn.body.heldBecause).toMatch(/came in late behind a punch held for review$/);
+    await punch({ id: own.jobOff, kind: 'job-off', jobLineId: job, at: ago(1.5) }, tablet).expect(202);
+    expect((await card(eli)).held.map((h) => h.id)).toEqual([own.shiftIn, own.jobOn, own.jobOff]);
+
+    for (const id of [own.shiftIn, own.jobOn, own.jobOff])
+      await history
+        .as(foreman)
+        .post(`/api/punches/held/${id}/accept`, { reason: 'Eli started at the tablet before the sheet' })
+        .expect(200);
+    // By hand: on the belt from 2½ h to 1½ h before now, one hour.
+    expect((await card(eli)).totals.clockedSeconds).toBe(3600);
+  });
 });

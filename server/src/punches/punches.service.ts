@@ -141,9 +141,11 @@ export class PunchesService {
       supersedes: null,
     };
     const impact = punchImpact(this.floor.punchesOf(technicianId), candidate, this.shop.settings(now));
-    if (impact.refusal) throw new ConflictException(impact.refusal);
     const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
     const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
+    // A replay's later punch may only fit after its held one (a clock-on after a held shift-in): it waits too.
+    if (impact.refusal && !(waiting && actor.role === 'technician'))
+      throw new ConflictException(impact.refusal);
     const changesCounted = impact.displaced.length > 0 || impact.lowersCounted;
     if (changesCounted || waiting) {
       if (late && actor.role === 'technician')
