@@ -4,6 +4,7 @@ import {
   assignLanes,
   cardDays,
   jobLineChoices,
+  overlappedJobSeconds,
   punchRows,
   timelineSegments,
   timelineWindow,
@@ -226,5 +227,27 @@ describe('timecard model', () => {
       { jobLineId: 120, label: 'RO 4510 · Brake pads' },
     ]);
     expect(choices.map((choice) => choice.jobLineId)).toEqual([97, 98, 120]);
+  });
+
+  it('counts how long a day’s jobs ran at the same time, which "On jobs" counts once', () => {
+    const job = (from: string, to: string, jobLineId: number) => ({
+      kind: 'job' as const,
+      from: new Date(from),
+      to: new Date(to),
+      open: false,
+      label: null,
+      jobLineId,
+      lane: 0,
+    });
+    // Clocked on one line 9:00–11:00 and another 10:00–12:00: three hours on jobs, one of them on both.
+    const covering = [
+      job('2026-12-04T15:00:00Z', '2026-12-04T17:00:00Z', 254),
+      job('2026-12-04T16:00:00Z', '2026-12-04T18:00:00Z', 255),
+    ];
+    const totals = { ...zero, clockedSeconds: 3 * 3600 };
+    expect(overlappedJobSeconds({ covering, totals })).toBe(3600);
+    expect(
+      overlappedJobSeconds({ covering: covering.slice(0, 1), totals: { ...zero, clockedSeconds: 7200 } }),
+    ).toBe(0);
   });
 });

@@ -165,6 +165,17 @@ export function cardDays(card: Timecard): CardDay[] {
   });
 }
 
+/**
+ * Seconds the day's jobs ran at the same time: each job's own span counts them, "On jobs" once, and the
+ * shop's split rule shares them between the lines.
+ */
+export function overlappedJobSeconds(day: Pick<CardDay, 'covering' | 'totals'>): number {
+  const spans = day.covering
+    .filter((interval) => interval.kind === 'job')
+    .reduce((sum, job) => sum + (job.to.getTime() - job.from.getTime()) / 1000, 0);
+  return Math.max(0, Math.round(spans - day.totals.clockedSeconds));
+}
+
 export interface TimelineWindow {
   /** Minutes after the workday's start. */
   startMinute: number;

@@ -24,7 +24,7 @@ import {
   formatDayClock,
   formatHours,
 } from '../timecard-format';
-import type { CardDay, CardInterval, PunchRow } from '../timecard-model';
+import { overlappedJobSeconds, type CardDay, type CardInterval, type PunchRow } from '../timecard-model';
 
 const useStyles = makeStyles({
   day: {
@@ -117,33 +117,42 @@ function IntervalList({ day, timeZone }: { day: CardDay; timeZone: string }) {
         No time starts on this day (it carries on from the day before).
       </Caption1>
     );
+  const overlapped = overlappedJobSeconds(day);
   return (
-    <ul className={styles.intervals} aria-label={`Time on ${formatDay(day.day)}`}>
-      {day.intervals.map((interval, index) => {
-        const seconds = (interval.to.getTime() - interval.from.getTime()) / 1000;
-        const crosses = interval.to.getTime() > day.to.getTime();
-        return (
-          <li
-            key={index}
-            className={mergeClasses(styles.interval, interval.kind !== 'shift' && styles.indent)}
-          >
-            <span>
-              <Text weight={interval.kind === 'shift' ? 'semibold' : 'regular'}>
-                {intervalName(interval)}
-              </Text>
-              <Caption1 className={styles.note}>
-                {interval.from < day.from
-                  ? formatDayClock(interval.from, timeZone)
-                  : formatClock(interval.from, timeZone)}{' '}
-                – {crosses ? formatDayClock(interval.to, timeZone) : formatClock(interval.to, timeZone)}
-                {interval.open && ' (still running)'}
-              </Caption1>
-            </span>
-            <span className={styles.duration}>{formatHours(seconds)}</span>
-          </li>
-        );
-      })}
-    </ul>
+    <>
+      <ul className={styles.intervals} aria-label={`Time on ${formatDay(day.day)}`}>
+        {day.intervals.map((interval, index) => {
+          const seconds = (interval.to.getTime() - interval.from.getTime()) / 1000;
+          const crosses = interval.to.getTime() > day.to.getTime();
+          return (
+            <li
+              key={index}
+              className={mergeClasses(styles.interval, interval.kind !== 'shift' && styles.indent)}
+            >
+              <span>
+                <Text weight={interval.kind === 'shift' ? 'semibold' : 'regular'}>
+                  {intervalName(interval)}
+                </Text>
+                <Caption1 className={styles.note}>
+                  {interval.from < day.from
+                    ? formatDayClock(interval.from, timeZone)
+                    : formatClock(interval.from, timeZone)}{' '}
+                  – {crosses ? formatDayClock(interval.to, timeZone) : formatClock(interval.to, timeZone)}
+                  {interval.open && ' (still running)'}
+                </Caption1>
+              </span>
+              <span className={styles.duration}>{formatHours(seconds)}</span>
+            </li>
+          );
+        })}
+      </ul>
+      {overlapped > 0 && (
+        <Caption1 className={styles.dim}>
+          Jobs ran at the same time for {formatHours(overlapped)}: On jobs counts that time once, and the
+          shop’s split rule shares it between the lines.
+        </Caption1>
+      )}
+    </>
   );
 }
 
