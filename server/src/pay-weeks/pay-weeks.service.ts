@@ -14,8 +14,9 @@ import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 
 /**
  * Closing a pay week keeps its pay summary (figures and the rates used) as it stands. From then on nothing
- * dated inside it can change (punches, corrections, line completions answer 409), and a line changed later
- * shows as an adjustment in the first open week. Reopening is the owner's, with a reason, audited.
+ * dated inside it can change (punches, corrections, line completions and a workweek that would move it answer
+ * 409), and a line changed later shows as an adjustment in the first open week. Reopening is the owner's, with
+ * a reason, audited.
  */
 @Injectable()
 export class PayWeeksService {

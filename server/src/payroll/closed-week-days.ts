@@ -1,5 +1,5 @@
-import { isNotNull } from 'drizzle-orm';
-import { workweekDays, workweekName, type WorkweekSettings } from '@baytime/shared';
+import { isNotNull, sql } from 'drizzle-orm';
+import { workweekBounds, workweekDays, workweekName, type WorkweekSettings } from '@baytime/shared';
 import type { Db } from '../db/database.js';
 import { payWeeks } from '../db/schema/index.js';
 
@@ -21,4 +21,27 @@ export function closedWeekLabels(db: Db): string[] {
 export function firstClosedWeekFrom(db: Db, day: string, settings: WorkweekSettings): string | null {
   const week = closedWeekLabels(db).find((label) => workweekDays(label, settings)[0]!.day >= day);
   return week ? workweekName(week, settings, true) : null;
+}
+
+/**
+ * Labels of the closed pay weeks, latest first, that would not keep the bounds they were closed with under the
+ * workweek `settings`: their paid hours would then fall partly in other weeks.
+ */
+export function closedWeeksMovedBy(db: Db, settings: WorkweekSettings): string[] {
+  return db
+    .select({
+      week: payWeeks.week,
+      from: sql<string>`json_extract(${payWeeks.snapshot}, '$.report.from')`,
+      to: sql<string>`json_extract(${payWeeks.snapshot}, '$.report.to')`,
+    })
+    .from(payWeeks)
+    .where(isNotNull(payWeeks.closedAt))
+    .all()
+    .filter(({ week, from, to }) => {
+      const bounds = workweekBounds(week, settings);
+      return bounds.from.toISOString() !== from || bounds.to.toISOString() !== to;
+    })
+    .map((row) => row.week)
+    .sort()
+    .reverse();
 }

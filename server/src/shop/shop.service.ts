@@ -5,11 +5,13 @@ import {
   PAY_RULE_FIELDS,
   shopDayKey,
   workweekDays,
+  workweekName,
   workweekOf,
   type DatedPayRules,
   type PayRules,
   type ShopSettings,
   type UpdateShopBody,
+  type WorkweekSettings,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
@@ -18,7 +20,7 @@ import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { payRules, shopSettings } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
-import { firstClosedWeekFrom } from '../payroll/closed-week-days.js';
+import { closedWeeksMovedBy, firstClosedWeekFrom } from '../payroll/closed-week-days.js';
 
 const WEEKDAY_HOURS = { open: '07:30', close: '17:30' };
 
@@ -55,6 +57,12 @@ export const DEFAULT_SHOP: ShopSettings = {
 export const FIRST_RULES_FROM = '2000-01-01';
 
 type SettingsRow = Omit<ShopSettings, keyof PayRules>;
+
+const WORKWEEK_FIELDS: readonly (keyof WorkweekSettings)[] = [
+  'workweekStartDay',
+  'workweekStartHour',
+  'timeZone',
+];
 
 const rulesOf = (settings: PayRules): PayRules => ({
   overtimeRules: settings.overtimeRules,
@@ -125,6 +133,13 @@ export class ShopService {
     const rulesChanged = PAY_RULE_FIELDS.some((field) => field in changes);
     const current = this.settings(now);
     const after = { ...current, ...changes };
+    if (WORKWEEK_FIELDS.some((field) => field in changes)) {
+      // 29 CFR 778.105 lets a shop change its workweek if the change is meant to last and not to evade overtime.
+      // Every week's bounds follow the current settings, though, so a change that moved a closed week would count
+      // the hours it paid again in the open weeks beside it.
+      const moved = closedWeeksMovedBy(this.db, after);
+      if (moved.length > 0) throw new ConflictException(workweekRefusal(moved, current));
+    }
     if (rulesChanged) {
       // A change of rules counts from the start of the running workweek unless the owner dates it.
       const from = payRulesFrom ?? workweekDays(workweekOf(now, after), after)[0]!.day;
@@ -197,5 +212,16 @@ export class ShopService {
 function pick(changes: Partial<ShopSettings>): Partial<PayRules> {
   return Object.fromEntries(
     PAY_RULE_FIELDS.filter((field) => field in changes).map((field) => [field, changes[field]]),
+  );
+}
+
+function workweekRefusal(moved: string[], current: WorkweekSettings): string {
+  const others = moved.length - 1;
+  const before = others === 0 ? '' : ` and ${others} closed ${others === 1 ? 'week' : 'weeks'} before it`;
+  return (
+    'The workweek cannot change while pay weeks are closed under the current one: the closed ' +
+    `${workweekName(moved[0]!, current, true)}${before} ` +
+    'would move, and hours already paid could be counted twice. ' +
+    `Reopen ${others > 0 ? 'those weeks' : 'it'} first, or keep the current start day, hour and time zone`
   );
 }

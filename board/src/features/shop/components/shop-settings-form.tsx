@@ -217,7 +217,12 @@ function ShopForm({
           <Field label="Shop name" required validationMessage={errors.name}>
             <Input value={draft.name} maxLength={80} onChange={(_, data) => set('name', data.value)} />
           </Field>
-          <Field label="Time zone" required validationMessage={errors.timeZone}>
+          <Field
+            label="Time zone"
+            required
+            validationMessage={errors.timeZone}
+            hint="Also sets when each pay week starts, so it cannot change while that would move a closed pay week"
+          >
             {zones.length > 1 ? (
               <Select value={draft.timeZone} onChange={(_, data) => set('timeZone', data.value)}>
                 {zones.map((zone) => (
@@ -324,7 +329,11 @@ function ShopForm({
       <Card className={styles.card}>
         <Subtitle2 as="h2">Time and forecasts</Subtitle2>
         <div className={styles.grid}>
-          <Field label="Workweek starts on" validationMessage={errors.workweekStartDay}>
+          <Field
+            label="Workweek starts on"
+            validationMessage={errors.workweekStartDay}
+            hint="Pay weeks start on this day and hour. A change that would move a closed pay week is refused. 29 CFR 778.105 allows a change meant to last, not one to avoid overtime: agree it with payroll first."
+          >
             <Select value={String(draft.workweekStartDay)} onChange={number('workweekStartDay')}>
               {DAYS.map((day, index) => (
                 <option key={day} value={index}>
