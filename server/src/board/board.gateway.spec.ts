@@ -194,6 +194,7 @@ describe(BoardGateway.name, () => {
   it("closes a deactivated technician's socket, and leaves others connected", async () => {
     const sam = await sut.badge('1046');
     const jo = await sut.badge('1045');
+    await sut.punch(sam.accessToken, { kind: 'shift-out' }).expect(201);
     const samSocket = sut.connect(sam.accessToken);
     const joSocket = sut.connect(jo.accessToken);
     await Promise.all([nextEvent(samSocket, 'board.snapshot'), nextEvent(joSocket, 'board.snapshot')]);

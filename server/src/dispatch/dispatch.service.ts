@@ -59,7 +59,10 @@ interface Efficiencies {
   shop: number | null;
 }
 
-/** The foreman's view: the unassigned queue, a lane per technician with forecast finish times. */
+/**
+ * The foreman's view: the queue (unassigned lines, and lines of technicians no longer on the floor), a
+ * lane per technician with forecast finish times.
+ */
 @Injectable()
 export class DispatchService implements OnModuleInit, OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger(DispatchService.name);
@@ -208,7 +211,11 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       };
     });
 
-    const queue = lines.filter((l) => l.technicianId === null).sort(byUrgency);
+    // A line whose technician has left the floor (deactivated, or another role now) waits here to be reassigned.
+    const onFloor = new Set(technicians.map((tech) => tech.id));
+    const queue = lines
+      .filter((l) => l.technicianId === null || !onFloor.has(l.technicianId))
+      .sort(byUrgency);
     // A waiting line is late already if even starting it now, at the shop's pace, misses its promise.
     for (const line of queue) if (forecastable(line)) forecast([line], efficiencies.shop);
     for (const line of lines) line.late = isLineLate(line, line.forecast, now);

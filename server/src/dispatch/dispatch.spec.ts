@@ -211,6 +211,51 @@ describe(DispatchService.name, () => {
     });
   });
 
+  describe('lines of a technician no longer active', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
+
+    it('wait in the queue, still theirs, until the foreman gives them to someone on the floor', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const foreman = await sut.signIn(DEMO.foreman);
+      const history = shopHistory(sut, { owner, foreman });
+      const dispatch = async () =>
+        (await history.as(foreman).get('/api/dispatch').expect(200)).body as DispatchBoard;
+      const tobin = await history.technician('Tobin Rask', '3101', 20_00, 15_00);
+      const advisor = await sut.signIn(DEMO.advisor);
+      const lineId = (await writeOrder(sut, advisor, '900785', new Date(Date.now() + 3 * 24 * 3600_000), 2))
+        .lines[0]!.id;
+      await history.as(foreman).patch(`/api/job-lines/${lineId}`, { technicianId: tobin }).expect(200);
+      for (const kind of ['shift-in', 'job-on', 'job-off', 'shift-out'])
+        await sut
+          .punch(foreman, {
+            technicianId: tobin,
+            kind,
+            jobLineId: kind.startsWith('job') ? lineId : undefined,
+          })
+          .expect(201);
+      await history.as(owner).patch(`/api/users/${tobin}`, { active: false }).expect(200);
+
+      const left = await dispatch();
+      expect(left.lanes.map((lane) => lane.technician.id)).not.toContain(tobin);
+      expect(left.queue.find((line) => line.id === lineId)).toMatchObject({
+        technicianId: tobin,
+        status: 'working',
+      });
+
+      const dana = (await sut.badge('1041')).user.id;
+      await history.as(foreman).patch(`/api/job-lines/${lineId}`, { technicianId: dana }).expect(200);
+      const reassigned = await dispatch();
+      expect(reassigned.queue.map((line) => line.id)).not.toContain(lineId);
+      expect(
+        reassigned.lanes.find((lane) => lane.technician.id === dana)!.lines.map((line) => line.id),
+      ).toContain(lineId);
+    });
+  });
+
   describe('the first count, made in steps once the server has started', () => {
     it('reaches the wall board after a restart, and stops quietly when the server closes mid-count', async () => {
       const sut = await startTestApp();

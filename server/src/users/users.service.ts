@@ -128,6 +128,8 @@ export class UsersService {
         .map(([key, value]) => [key, { from: current[key as keyof UserRow], to: value }]),
     );
     return this.uow.run(() => {
+      // Here, after the awaits: a punch may have come in while a PIN or password was hashed.
+      this.assertOffShiftToLeaveFloor(current, body);
       const row = Object.keys(changes).length > 0 ? this.updateOrConflict(id, changes) : current;
       if (Object.keys(rate).length > 0) this.rates.record(id, rate, from, actor.id);
       this.audit.record({
@@ -147,6 +149,21 @@ export class UsersService {
         this.live.endSessions({ userId: id }, 'role-changed');
       return this.toDto(row);
     });
+  }
+
+  /**
+   * A technician leaves the floor (deactivated, or given another role) only off shift: the floor would
+   * drop them with their shift and jobs still running. Refused rather than clocked out now, since only the
+   * office knows when they really stopped working.
+   */
+  private assertOffShiftToLeaveFloor(current: UserRow, body: UpdateUserBody): void {
+    const leaves = body.active === false || (body.role !== undefined && body.role !== 'technician');
+    if (!leaves || current.role !== 'technician') return;
+    const state = this.floor.stateOf(current.id, new Date());
+    if (state && state.status !== 'off')
+      throw new ConflictException(
+        `${current.name} is on shift: clock them out at the kiosk or on their timecard first`,
+      );
   }
 
   /** A technician signs in with a badge and PIN, office staff with an e-mail and password. */

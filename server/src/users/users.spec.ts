@@ -105,6 +105,31 @@ describe(UsersService.name, () => {
     await patch(owner, me.id, { role: 'foreman' }).expect(409);
   });
 
+  it('refuses to take a technician on shift off the floor, and says to clock them out first', async () => {
+    const tech = await add({ name: 'Tamsin Ekwe', role: 'technician', badge: '2701', pin: '8642' });
+    const punch = (body: object) =>
+      sut.punch(foreman, { technicianId: tech.id, ...body }).expect((response) => {
+        expect(response.status, JSON.stringify(response.body)).toBe(201);
+      });
+    const refusal = 'Tamsin Ekwe is on shift: clock them out at the kiosk or on their timecard first';
+    await punch({ kind: 'shift-in' });
+    expect((await patch(owner, tech.id, { active: false }).expect(409)).body.message).toBe(refusal);
+    await punch({ kind: 'break-start', breakKind: 'rest' });
+    expect((await patch(owner, tech.id, { active: false }).expect(409)).body.message).toBe(refusal);
+    const becomingAdvisor = {
+      role: 'advisor',
+      email: 'tamsin@marlowcreek.test',
+      password: 'a-long-password',
+    };
+    expect((await patch(owner, tech.id, becomingAdvisor).expect(409)).body.message).toBe(refusal);
+    await sut.http().post('/api/auth/badge').send({ badge: '2701', pin: '8642' }).expect(200);
+    expect(audits(tech.id)).toHaveLength(1);
+
+    await punch({ kind: 'break-end' });
+    await punch({ kind: 'shift-out' });
+    await patch(owner, tech.id, { active: false }).expect(200);
+  });
+
   it('deactivates and reactivates a person', async () => {
     const tech = await add({ name: 'Bo Quill', role: 'technician', badge: '2501', pin: '8642' });
     await patch(owner, tech.id, { active: false }).expect(200);

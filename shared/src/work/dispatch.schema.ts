@@ -38,6 +38,7 @@ export interface DispatchLane {
 
 export interface DispatchBoard {
   serverTime: string;
+  /** Lines with nobody to do them: unassigned, or assigned to someone no longer an active technician. */
   queue: DispatchLine[];
   lanes: DispatchLane[];
   /** Each bay with the RO it holds (being worked on, or parked for a final check or pick-up). */

@@ -186,6 +186,13 @@ describe(applyMove.name, () => {
     expect(after.lanes[0]?.lines[0]).toMatchObject({ id: 35, bayId: 2, forecast });
   });
 
+  it('keeps a line whose technician has no lane in the queue when its bay changes', () => {
+    const orphaned = line({ id: 36, technicianId: 9, status: 'working' });
+    const after = applyMove(board([orphaned], [lane(3, 'Dana Okafor', 4)]), 36, { bayId: 2 });
+    expect(after.queue).toEqual([{ ...orphaned, bayId: 2 }]);
+    expect(after.lanes[0]?.lines).toEqual([]);
+  });
+
   it('returns the same board for an unknown line', () => {
     const before = board([], []);
     expect(applyMove(before, 999, { technicianId: 3 })).toBe(before);

@@ -147,7 +147,8 @@ export function applyMove(board: DispatchBoard, lineId: number, patch: MovePatch
   };
   const without = (lines: readonly DispatchLine[]) => lines.filter((l) => l.id !== lineId);
   const queue = without(board.queue);
-  if (moved.technicianId === null) queue.push(moved);
+  // A line of a technician with no lane (no longer active) stays in the queue until it is reassigned.
+  if (!findLane(board, moved.technicianId)) queue.push(moved);
   return {
     ...board,
     queue: sortQueue(queue),

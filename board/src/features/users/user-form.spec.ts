@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import type { UserDto } from '@baytime/shared';
-import { addUserFormSchema, editUserFormSchema, EMPTY_USER, fieldsOf, rateToCome } from './user-form';
+import {
+  addUserFormSchema,
+  editUserFormSchema,
+  EMPTY_USER,
+  fieldsOf,
+  rateToCome,
+  refusalAbout,
+} from './user-form';
 
 const tamsin: UserDto = {
   id: 1,
@@ -72,5 +79,13 @@ describe('the people form', () => {
     expect(rateToCome(raised, new Date('2026-12-05T02:00:00Z'), 'America/Chicago')).toBe(rate);
     expect(rateToCome(raised, new Date('2026-12-05T06:00:00Z'), 'America/Chicago')).toBeNull();
     expect(rateToCome(tamsin, new Date('2026-12-05T02:00:00Z'), 'America/Chicago')).toBeNull();
+  });
+
+  it('names the person once when the table shows a refused change', () => {
+    const onShift = 'Tamsin Reeve is on shift: clock them out at the kiosk or on their timecard first';
+    expect(refusalAbout(tamsin, onShift)).toBe(onShift);
+    expect(refusalAbout(tamsin, 'Your role cannot change this.')).toBe(
+      'Tamsin Reeve: Your role cannot change this.',
+    );
   });
 });

@@ -106,3 +106,8 @@ export function rateToCome(user: UserDto, now: Date, timeZone: string): DatedPay
   const newest = user.payRates[0];
   return newest && newest.effectiveFrom > shopDayKey(now, timeZone) ? newest : null;
 }
+
+/** A refused change in the people table, saying whose it was unless the server's words already do. */
+export function refusalAbout(user: Pick<UserDto, 'name'>, text: string): string {
+  return text.startsWith(user.name) ? text : `${user.name}: ${text}`;
+}

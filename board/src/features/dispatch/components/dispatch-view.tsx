@@ -30,6 +30,7 @@ import { MOVE_LINE_KEY, useMoveLine, type MoveLineVariables } from '../api/patch
 import { useReleaseBay } from '../api/release-bay';
 import {
   dragAnnouncements,
+  findLane,
   findLine,
   needsConfirm,
   planMove,
@@ -341,7 +342,7 @@ function DispatchBoardView({
             <LineCard
               line={dragging}
               board={board}
-              place={dragging.technicianId === null ? 'queue' : 'lane'}
+              place={findLane(board, dragging.technicianId) ? 'lane' : 'queue'}
               timeZone={timeZone}
               nowMs={nowMs}
               canEdit={false}

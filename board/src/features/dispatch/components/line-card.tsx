@@ -238,6 +238,12 @@ export function LineCard({
             {bay.name}
           </Tag>
         )}
+        {place === 'queue' && line.technicianId !== null && (
+          <Tag className={styles.warn}>
+            <Glyph name="caution" className={styles.glyph} />
+            Technician no longer active: reassign
+          </Tag>
+        )}
         {place === 'queue' ? (
           <Tag>Needs {skillWords(line.skillLevel)}</Tag>
         ) : (

@@ -25,7 +25,7 @@ export interface QueueColumnProps {
   className?: string;
 }
 
-/** Lines nobody has yet, most urgent first; dropping a lane's line here unassigns it. */
+/** Lines nobody on the floor has, most urgent first; dropping a lane's line here unassigns it. */
 export function QueueColumn({
   board,
   timeZone,

@@ -19,7 +19,7 @@ import { DEVICE_ROLES, type DatedPayRate, type PersonRole, type Role, type UserD
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '@/lib/api/get-users';
 import { useUpdateUser } from '../api/update-user';
-import { ROLE_LABELS, rateToCome } from '../user-form';
+import { ROLE_LABELS, rateToCome, refusalAbout } from '../user-form';
 import { EditUserDialog } from './edit-user-dialog';
 import { PayRateDialog, rateWords } from './pay-rate-dialog';
 
@@ -58,7 +58,7 @@ function ActiveButton({ user, onError }: { user: UserDto; onError: (message: str
     update.mutate(
       { id: user.id, active },
       {
-        onError: (error) => onError(`${user.name}: ${formErrorText(error)}`),
+        onError: (error) => onError(refusalAbout(user, formErrorText(error))),
         onSettled: () => setConfirming(false),
       },
     );
