@@ -110,15 +110,31 @@ describe('the whole visit, from intake to pick-up', () => {
       )
       .toMatchObject({ to: ['imogen@example.test'] });
 
-    // Pick-up closes the RO and frees the bay.
+    // A reading corrected below the vehicle's highest is saved once the advisor says why, as at intake.
+    await advisor.getByRole('button', { name: 'Edit details' }).click();
+    const edit = advisor.getByRole('dialog');
+    await edit.getByLabel('Odometer').fill('8810');
+    await edit.getByRole('button', { name: 'Save changes' }).click();
+    await edit
+      .getByText(
+        'Lower than the highest reading on record (88,100): check it, or give a reason to save anyway',
+      )
+      .waitFor();
+    await edit.getByLabel('Reading is right? Say why it is lower').fill('An extra digit was typed at intake');
+    await edit.getByRole('button', { name: 'Save changes' }).click();
+    await edit.waitFor({ state: 'detached' });
+
+    // Pick-up closes the RO and frees the bay; a closed RO's details stay as they are.
     await advisor.getByRole('button', { name: 'Vehicle picked up: close the RO' }).click();
     await advisor.getByText('Picked up: this repair order is closed.').waitFor();
+    expect(await advisor.getByRole('button', { name: 'Edit details' }).count()).toBe(0);
     await bayShows(/free/i);
     await advisor.screenshot({ path: screenshotPath('visit-ro-closed') });
 
     const closed = await owner<RepairOrderSummary>('GET', `/repair-orders/${roId}`);
     expect(closed).toMatchObject({
       status: 'closed',
+      odometer: 8810,
       lines: [
         {
           status: 'done',
@@ -135,7 +151,7 @@ describe('the whole visit, from intake to pick-up', () => {
         `Line 1 “${TITLE}” assigned to Jo W.`,
         `Line 1 “${TITLE}” done: Fitted new pads and rotors, road tested`,
         'Final QC recorded in Bay 8',
-        'Ready notice e-mailed to imogen@example.test',
+        'Ready notice sent by e-mail to imogen@example.test and by text to (608) 555-0177',
         'Vehicle picked up: repair order closed',
       ]),
     );

@@ -1,13 +1,15 @@
 import sharp from 'sharp';
 import { and, eq, ne } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type {
-  ApprovalRequested,
-  BoardSnapshot,
-  FindingDto,
-  MyDay,
-  PublicApproval,
-  PublicApprovalResult,
+import {
+  makeVin,
+  type ApprovalRequested,
+  type BoardSnapshot,
+  type FindingDto,
+  type MyDay,
+  type PublicApproval,
+  type PublicApprovalResult,
+  type RepairOrderSummary,
 } from '@baytime/shared';
 import { DB, SQLITE, type Db, type Sqlite } from '../db/database.js';
 import { OutboxService } from '../mail/outbox.service.js';
@@ -391,6 +393,60 @@ describe(ApprovalsService.name, () => {
         .expect(200);
       await page(tokenOf(again.approvalUrl)).expect(410);
     });
+  });
+
+  it('withdraws the RO’s open links at pick-up: the page answers 410 and a decline is refused', async () => {
+    const ro = (
+      await as(advisor)
+        .post('/api/repair-orders', {
+          customer: { name: 'Ottilie Brandvold', email: 'ottilie@example.test' },
+          vehicle: {
+            vin: makeVin('5KT5MR7BLM907003'),
+            year: 2020,
+            make: 'Halvard',
+            model: 'Morrow',
+            odometer: 64_300,
+          },
+          concern: 'Squeak over bumps',
+          lines: [{ title: 'Inspect front suspension', bookHours: 0.8 }],
+        })
+        .expect(201)
+    ).body as RepairOrderSummary;
+    const line = ro.lines[0]!;
+    const noted = (
+      await sut
+        .http()
+        .post(`/api/job-lines/${line.id}/findings`)
+        .auth(foreman, { type: 'bearer' })
+        .field('note', 'sway bar links worn')
+        .field('severity', 'soon')
+        .expect(201)
+    ).body as FindingDto;
+    await as(advisor)
+      .patch(`/api/findings/${noted.id}/quote`, {
+        customerWording: 'The sway bar links are worn',
+        bookHours: 0.6,
+      })
+      .expect(200);
+    const sent = (await as(advisor).post(`/api/findings/${noted.id}/request-approval`).expect(201))
+      .body as ApprovalRequested;
+    const token = tokenOf(sent.approvalUrl);
+    await page(token).expect(200);
+    await as(foreman).patch(`/api/job-lines/${line.id}`, { status: 'done' }).expect(200);
+
+    await as(advisor).post(`/api/repair-orders/${ro.id}/close`).expect(200);
+    expect((await page(token).expect(410)).body.message).toBe(
+      'The shop withdrew this link: call them for a new one',
+    );
+    await answer(token, {
+      answers: [{ findingId: noted.id, answer: 'declined' }],
+      signedName: 'Ottilie Brandvold',
+    }).expect(410);
+    const inbox = (await as(advisor).get(`/api/findings?repairOrderId=${ro.id}`).expect(200)).body
+      .items as FindingDto[];
+    expect(inbox).toMatchObject([
+      { id: noted.id, answer: 'pending', approvalLink: { id: sent.link.id, status: 'revoked' } },
+    ]);
   });
 
   describe('guessing', () => {

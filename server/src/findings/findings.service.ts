@@ -2,6 +2,7 @@ import { ConflictException, Inject, Injectable, Logger, type StreamableFile } fr
 import { and, asc, count, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import {
+  CONCERN_MAX_LENGTH,
   inSentence,
   JOB_LINE_STATUS_WORDS,
   FINDING_ANSWER_WORDS,
@@ -75,11 +76,20 @@ export function titleFromNote(note: string): string {
       .split(/\r?\n/)
       .find((l) => l.trim())
       ?.trim() ?? note.trim();
-  const flat = line.replace(/\s+/g, ' ');
-  if (flat.length <= TITLE_MAX) return flat;
-  const cut = flat.slice(0, TITLE_MAX - 1);
-  const space = cut.lastIndexOf(' ');
-  return `${(space > TITLE_MAX / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
+  return cutAtWord(line.replace(/\s+/g, ' '), TITLE_MAX);
+}
+
+/** The concern of a line a finding added: what the technician found, cut at a word to fit a concern. */
+export function concernFromNote(note: string): string {
+  return cutAtWord(note.trim(), CONCERN_MAX_LENGTH);
+}
+
+/** Text of at most `max` characters: cut at a word past its middle where it can be, marked with "…". */
+function cutAtWord(text: string, max: number): string {
+  if (text.length <= max) return text;
+  const cut = text.slice(0, max - 1);
+  const space = cut.search(/\s\S*$/);
+  return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
 }
 
 /** Extra work a technician found: photos, the office inbox, and the answer once the customer decided. */
@@ -241,6 +251,7 @@ export class FindingsService {
           repairOrderId: ro.id,
           lineNo: (last?.lineNo ?? 0) + 1,
           title: decision.title ?? titleFromNote(finding.customerWording ?? finding.note),
+          concern: concernFromNote(finding.note),
           bookHours: decision.bookHours,
           skillLevel: line.skillLevel,
           status: 'queued',

@@ -2,18 +2,19 @@ import { readdirSync } from 'node:fs';
 import sharp from 'sharp';
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type {
-  BoardSnapshot,
-  FindingAnswerResult,
-  FindingDto,
-  MyDay,
-  MyJobLine,
-  SignInAnswer,
+import {
+  CONCERN_MAX_LENGTH,
+  type BoardSnapshot,
+  type FindingAnswerResult,
+  type FindingDto,
+  type MyDay,
+  type MyJobLine,
+  type SignInAnswer,
 } from '@baytime/shared';
 import { countRows, DB, type Db } from '../db/database.js';
 import { attachments, auditLog, findings, jobLines } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { FindingsService, titleFromNote } from './findings.service.js';
+import { concernFromNote, FindingsService, titleFromNote } from './findings.service.js';
 
 interface Photo {
   buffer: Buffer;
@@ -247,6 +248,7 @@ describe(FindingsService.name, () => {
       repairOrderId: finding!.repairOrderId,
       lineNo: Math.max(...linesBefore.map((line) => line.lineNo)) + 1,
       title: 'Fine metal shavings on the pan magnet',
+      concern: 'Fine metal shavings on the pan magnet\nTorque converter wear likely',
       bookHours: 1.2,
       status: 'queued',
       technicianId: null,
@@ -337,5 +339,14 @@ describe(FindingsService.name, () => {
     const long = titleFromNote(`${'word '.repeat(40)}end`);
     expect(long.length).toBeLessThanOrEqual(120);
     expect(long.endsWith('word…')).toBe(true);
+  });
+
+  it('gives a line the finding added what the technician found as its concern, cut at a word to fit', () => {
+    expect(concernFromNote(' Coolant weeping at the water pump\nHose clamps corroded \n')).toBe(
+      'Coolant weeping at the water pump\nHose clamps corroded',
+    );
+    const long = concernFromNote('Oil seeps '.repeat(150));
+    expect(long.length).toBeLessThanOrEqual(CONCERN_MAX_LENGTH);
+    expect(long.endsWith('seeps Oil…')).toBe(true);
   });
 });

@@ -7,6 +7,7 @@ import {
   type BoardBay,
   type BoardSnapshot,
   type MyDay,
+  type RepairOrderHistoryEntry,
   type RepairOrderSummary,
   type SignInAnswer,
 } from '@baytime/shared';
@@ -173,6 +174,11 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     const { body } = await as(foreman).patch(`/api/job-lines/${line!.id}`, { status: 'queued' }).expect(200);
     expect(body).toMatchObject({ status: 'queued', completedAt: null, completedBy: null, signOff: null });
     expect(await tile(bay)).toMatchObject({ state: 'staged', repairOrder: { id: ro.id } });
+    const history = (await as(advisor).get(`/api/repair-orders/${ro.id}/history`).expect(200))
+      .body as RepairOrderHistoryEntry[];
+    expect(history.map((entry) => entry.text)).toContain(
+      'Line 1 “Replace thermostat” opened again: no longer done',
+    );
   });
 
   it('leaves the lines of a picked-up RO as they were: a change or an edit is refused', async () => {

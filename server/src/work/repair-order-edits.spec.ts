@@ -1,12 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import type {
-  BoardSnapshot,
-  JobLineDto,
-  RepairOrderHistoryEntry,
-  RepairOrderSummary,
-  SignInAnswer,
+import {
+  formatDayClockTime,
+  makeVin,
+  type BoardSnapshot,
+  type FindingDto,
+  type JobLineDto,
+  type RepairOrderHistoryEntry,
+  type RepairOrderSummary,
+  type SignInAnswer,
 } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { auditLog } from '../db/schema/index.js';
@@ -14,6 +17,8 @@ import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/tes
 import { RepairOrdersService } from './repair-orders.service.js';
 
 const HOUR = 3600_000;
+/** A moment as the demo shop, in Chicago, reads its clocks. */
+const shopTime = (iso: string) => formatDayClockTime(iso, 'America/Chicago', '12h');
 
 describe(`${RepairOrdersService.name} after the fact`, () => {
   let sut: TestApp;
@@ -40,13 +45,19 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
     (await as(advisor).get(`/api/repair-orders/${id}`).expect(200)).body as RepairOrderSummary;
   const history = async (id: number) =>
     (await as(advisor).get(`/api/repair-orders/${id}/history`).expect(200)).body as RepairOrderHistoryEntry[];
-  const write = async (lines = [{ title: 'Replace brake pads', bookHours: 1.5 }]) =>
+  const write = async (
+    lines = [{ title: 'Replace brake pads', bookHours: 1.5 }],
+    {
+      vin = '1M8GDM9AXKP042788',
+      customer = { name: 'Orla Penhallow', phone: '(608) 555-0142', email: 'orla@example.test' },
+    }: { vin?: string; customer?: { name: string; phone?: string; email?: string } } = {},
+  ) =>
     (
       await as(advisor)
         .post('/api/repair-orders', {
-          customer: { name: 'Orla Penhallow', phone: '(608) 555-0142', email: 'orla@example.test' },
+          customer,
           vehicle: {
-            vin: '1M8GDM9AXKP042788',
+            vin,
             year: 1989,
             make: 'Tarrow',
             model: 'Kestrel',
@@ -227,7 +238,7 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
       'Theo Varga: Line 1 “Replace brake pads” assigned to Jo W.',
       'Theo Varga: Line 1 “Replace brake pads” reassigned from Jo W. to Luis B.',
       'Luis Brennan: Line 1 “Replace brake pads” done: Fitted new pads',
-      'Nell Ashby: Ready notice e-mailed to orla@example.test',
+      'Nell Ashby: Ready notice sent by e-mail to orla@example.test and by text to (608) 555-0142',
     ]);
     const done = (await ro(written.id)).lines[0]!;
     expect(done).toMatchObject({
@@ -237,5 +248,101 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
     });
     await as(owner).get(`/api/repair-orders/${written.id}/history`).expect(200);
     await as(tech.accessToken).get(`/api/repair-orders/${written.id}/history`).expect(403);
+  });
+  it('tells each edit in words, with what the field was and what it is now', async () => {
+    // A vehicle of its own: the odometer it leaves on file is no other test's.
+    const written = await write(undefined, { vin: makeVin('1M8GDM9AKP042791') });
+    const [line] = written.lines;
+    await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        customer: { phone: '(608) 555-0199' },
+        vehicle: { model: 'Kestrel GT', odometer: 50_600 },
+        concern: 'Grinding and a pull to the left',
+      })
+      .expect(200);
+    const later = new Date(Date.now() + 72 * HOUR).toISOString();
+    await as(advisor).patch(`/api/repair-orders/${written.id}`, { promisedAt: later }).expect(200);
+    await as(advisor).patch(`/api/repair-orders/${written.id}`, { promisedAt: null }).expect(200);
+    await as(advisor)
+      .patch(`/api/job-lines/${line!.id}/details`, {
+        title: 'Replace front brake pads',
+        bookHours: 2,
+        concern: 'Grinding from the front',
+      })
+      .expect(200);
+    const texts = (await history(written.id)).map((entry) => entry.text);
+    expect(texts).toEqual([
+      'Repair order written',
+      'Details changed: phone (608) 555-0142 → (608) 555-0199; model Kestrel → Kestrel GT; odometer 50,000 → 50,600; concern',
+      `Details changed: promise ${shopTime(written.promisedAt!)} → ${shopTime(later)}`,
+      `Details changed: promise ${shopTime(later)} → none`,
+      'Line 1 “Replace front brake pads” changed: title “Replace brake pads” → “Replace front brake pads”; ' +
+        'book time 1.5\u00a0h → 2.0\u00a0h; concern',
+    ]);
+  });
+
+  it('tells sign-offs, parts and cancellations on its lines, and how a customer who takes texts only was asked and told', async () => {
+    const written = await write(
+      [
+        { title: 'Check the horn', bookHours: 0.2 },
+        { title: 'Replace brake pads', bookHours: 1.5 },
+      ],
+      { vin: makeVin('1M8GDM9AKP042790'), customer: { name: 'Cato Merriweather', phone: '(608) 555-0177' } },
+    );
+    const [horn, brakes] = written.lines;
+    const expected = new Date(Date.now() + 30 * HOUR).toISOString();
+    const finding = (
+      await sut
+        .http()
+        .post(`/api/job-lines/${horn!.id}/findings`)
+        .auth(foreman, { type: 'bearer' })
+        .field('note', 'Horn relay clicks, horn silent')
+        .field('severity', 'soon')
+        .expect(201)
+    ).body as FindingDto;
+    await as(advisor)
+      .patch(`/api/findings/${finding.id}/quote`, {
+        customerWording: 'The horn relay has failed and should be replaced',
+        bookHours: 0.4,
+      })
+      .expect(200);
+    await as(advisor).post(`/api/findings/${finding.id}/request-approval`).expect(201);
+    await as(advisor)
+      .post(`/api/findings/${finding.id}/answer`, { answer: 'declined', channel: 'phone' })
+      .expect(200);
+    await as(foreman).patch(`/api/job-lines/${horn!.id}`, { status: 'done' }).expect(200);
+    await as(foreman)
+      .post(`/api/job-lines/${horn!.id}/sign-off`, { reason: 'Horn relay swapped at the counter' })
+      .expect(200);
+    await as(foreman)
+      .post(`/api/job-lines/${brakes!.id}/hold`, { reason: 'parts', part: 'Front brake pads' })
+      .expect(200);
+    await as(advisor)
+      .put(`/api/job-lines/${brakes!.id}/parts`, {
+        part: 'Front brake pads',
+        state: 'ordered',
+        supplier: 'Lakeside Parts',
+        expectedAt: expected,
+      })
+      .expect(200);
+    await as(advisor).post(`/api/job-lines/${brakes!.id}/parts/received`).expect(200);
+    await as(advisor)
+      .post(`/api/job-lines/${brakes!.id}/cancel`, { reason: 'Customer had it done elsewhere' })
+      .expect(200);
+    await as(advisor).post(`/api/repair-orders/${written.id}/ready-notice`).expect(202);
+    const texts = (await history(written.id)).map((entry) => `${entry.actorName}: ${entry.text}`);
+    expect(texts).toEqual([
+      'Nell Ashby: Repair order written',
+      'Theo Varga: Finding reported on line 1 “Check the horn”',
+      'Nell Ashby: Approval request for the finding on line 1 “Check the horn” sent by text to (608) 555-0177',
+      'Nell Ashby: Finding declined',
+      'Theo Varga: Line 1 “Check the horn” marked done',
+      'Theo Varga: Line 1 “Check the horn” signed off: Horn relay swapped at the counter',
+      'Theo Varga: Line 2 “Replace brake pads” held: Parts',
+      `Nell Ashby: Line 2 “Replace brake pads” parts recorded: Front brake pads · Ordered · Lakeside Parts · due ${shopTime(expected)}`,
+      'Nell Ashby: Line 2 “Replace brake pads” parts received: back in the queue',
+      'Nell Ashby: Line 2 “Replace brake pads” cancelled: Customer had it done elsewhere',
+      'Nell Ashby: Ready notice sent by text to (608) 555-0177',
+    ]);
   });
 });

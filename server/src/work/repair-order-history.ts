@@ -3,31 +3,86 @@ import {
   BAY_STATE_WORDS,
   lineWithTitleWords,
   atStart,
+  formatBookHours,
+  formatDayClockTime,
+  formatPhone,
   HOLD_REASON_LABELS,
+  PARTS_STATE_WORDS,
+  sentToWords,
   shortName,
   type HoldReason,
+  type PartsState,
   type RepairOrderHistoryEntry,
   PRIORITY_WORDS,
   inSentence,
   type Priority,
 } from '@baytime/shared';
 import type { Db } from '../db/database.js';
-import { auditLog, bays, findings, jobLines, users } from '../db/schema/index.js';
+import { auditLog, bays, findings, jobLines, shopSettings, users } from '../db/schema/index.js';
 
 /** An RO's story is bounded by its life; this many entries is far more than any visit makes. */
 const HISTORY_LIMIT = 1000;
 
 type AuditRow = typeof auditLog.$inferSelect;
 
+/** The people, bays and lines the trail names by id, and its moments as the shop reads its clocks. */
 interface Names {
   person: (id: unknown) => string;
   bay: (id: unknown) => string;
   line: (id: unknown) => string;
   findingLine: (id: unknown) => string;
+  when: (instant: unknown) => string;
 }
 
 const text = (value: unknown): string | null => (typeof value === 'string' ? value : null);
-const hours = (value: unknown) => `${Number(value)} h`;
+const hours = (value: unknown) => formatBookHours(Number(value));
+const count = new Intl.NumberFormat('en-US');
+
+/**
+ * The fields an edit changes, as a person names them, with how a value reads; a long text (the
+ * concern and the other Cs) by its name alone.
+ */
+const FIELDS: Readonly<Record<string, { name: string; value?: (value: unknown, names: Names) => string }>> = {
+  customerName: { name: 'customer name', value: String },
+  customerPhone: { name: 'phone', value: (value) => formatPhone(String(value)) },
+  customerEmail: { name: 'e-mail', value: String },
+  vehicleYear: { name: 'year', value: String },
+  vehicleMake: { name: 'make', value: String },
+  vehicleModel: { name: 'model', value: String },
+  vehiclePlate: { name: 'plate', value: String },
+  odometer: { name: 'odometer', value: (value) => count.format(Number(value)) },
+  concern: { name: 'concern' },
+  promisedAt: { name: 'promise', value: (value, names) => names.when(value) },
+  title: { name: 'title', value: (value) => `“${String(value)}”` },
+  bookHours: { name: 'book time', value: hours },
+  skillLevel: { name: 'skill', value: String },
+  cause: { name: 'cause' },
+  correction: { name: 'correction' },
+};
+
+/** An edit's changes: "plate none → KX 2210; odometer 32,500 → 33,100; concern". */
+function changesWords(changes: unknown, names: Names): string {
+  return Object.entries((changes ?? {}) as Record<string, { from: unknown; to: unknown }>)
+    .map(([key, { from, to }]) => {
+      const { name, value } = FIELDS[key] ?? { name: key };
+      if (!value) return name;
+      const shown = (v: unknown) => (v === null ? 'none' : value(v, names));
+      return `${name} ${shown(from)} → ${shown(to)}`;
+    })
+    .join('; ');
+}
+
+/** What a line waits for: "Front brake pads · Ordered · Lakeside Parts · due Thu, Dec 10, 9:00 am". */
+function partsWords(d: Record<string, unknown>, names: Names): string {
+  return [
+    text(d.part),
+    d.state ? PARTS_STATE_WORDS[d.state as PartsState] : null,
+    text(d.supplier),
+    d.expectedAt ? `due ${names.when(d.expectedAt)}` : null,
+  ]
+    .filter(Boolean)
+    .join(' · ');
+}
 
 /** Words for each audited change to the RO, its lines and its findings; null for what is not news. */
 function describe({ entity, action, entityId, detail }: AuditRow, names: Names): string | null {
@@ -36,8 +91,10 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
     switch (action) {
       case 'create':
         return 'Repair order written';
-      case 'edit':
-        return `Details changed: ${Object.keys((d.changes as object) ?? {}).join(', ')}`;
+      case 'edit': {
+        const why = text(d.odometerOverrideReason);
+        return `Details changed: ${changesWords(d.changes, names)}${why ? ` (lower reading: ${why})` : ''}`;
+      }
       case 'line-added':
         return `${atStart(lineWithTitleWords(Number(d.lineNo), String(d.title)))} added (${hours(d.bookHours)})`;
       case 'line-removed':
@@ -47,7 +104,7 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
       case 'final-check':
         return `${BAY_STATE_WORDS.check} recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
       case 'ready-notice':
-        return `Ready notice e-mailed to ${String(d.to)}`;
+        return `Ready notice sent ${sentToWords(text(d.to), text(d.mobile))}`;
       case 'close':
         return 'Vehicle picked up: repair order closed';
       case 'finding-approved':
@@ -64,7 +121,11 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
     const line = atStart(names.line(entityId));
     switch (action) {
       case 'update': {
-        const was = (d.was ?? {}) as { technicianId?: number | null; bayId?: number | null };
+        const was = (d.was ?? {}) as {
+          technicianId?: number | null;
+          bayId?: number | null;
+          status?: string;
+        };
         const parts: string[] = [];
         if (d.technicianId !== undefined && d.technicianId !== was.technicianId)
           parts.push(
@@ -77,6 +138,9 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
         if (d.bayId !== undefined && d.bayId !== was.bayId)
           parts.push(d.bayId === null ? 'taken out of its bay' : `moved to ${names.bay(d.bayId)}`);
         if (d.status === 'done' || d.completedAt) parts.push('marked done');
+        if ((d.status === 'queued' || d.status === 'working') && was.status === 'done')
+          parts.push('opened again: no longer done');
+        else if (d.status === 'queued' && was.status === 'held') parts.push('back in the queue');
         if (d.status === 'held') parts.push(`held: ${HOLD_REASON_LABELS[d.holdReason as HoldReason]}`);
         if (d.priority) parts.push(`priority ${inSentence(PRIORITY_WORDS[d.priority as Priority])}`);
         return parts.length ? `${line} ${parts.join(', ')}` : null;
@@ -90,9 +154,15 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
       case 'cancel':
         return `${line} cancelled: ${String(d.reason)}`;
       case 'edit':
-        return `${line} changed: ${Object.keys((d.changes as object) ?? {}).join(', ')}`;
+        return `${line} changed: ${changesWords(d.changes, names)}`;
       case 'take':
         return `${line} taken from the queue`;
+      case 'sign-off':
+        return `${line} signed off: ${String(d.reason)}`;
+      case 'parts':
+        return `${line} parts recorded: ${partsWords(d, names)}`;
+      case 'parts-received':
+        return `${line} parts received: back in the queue`;
       default:
         return null;
     }
@@ -101,8 +171,14 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
   switch (action) {
     case 'create':
       return `Finding reported on ${on}`;
-    case 'request-approval':
-      return `Approval request for the finding on ${on} e-mailed to ${String(d.to)}`;
+    case 'request-approval': {
+      // Requests recorded before the link kept every way it went name the one address.
+      const sentTo = Array.isArray(d.sentTo) ? d.sentTo.map(String) : text(d.to) ? [text(d.to)!] : [];
+      // The customer's e-mail address and mobile number, whichever they have: only an address has an @.
+      const email = sentTo.find((to) => to.includes('@'));
+      const mobile = sentTo.find((to) => !to.includes('@'));
+      return `Approval request for the finding on ${on} sent ${sentToWords(email, mobile)}`;
+    }
     default:
       // The answer is told once, by the RO's own row.
       return null;
@@ -164,11 +240,16 @@ export function repairOrderHistory(db: Db, repairOrderId: number): RepairOrderHi
   const findingLines = new Map(
     found.map((f) => [String(f.id), lineNames.get(String(f.jobLineId)) ?? 'a line']),
   );
+  const shop = db
+    .select({ timeZone: shopSettings.timeZone, clockFormat: shopSettings.clockFormat })
+    .from(shopSettings)
+    .get()!;
   const names: Names = {
     person: (id) => people.get(Number(id)) ?? 'someone',
     bay: (id) => bayNames.get(Number(id)) ?? 'a bay',
     line: (id) => lineNames.get(String(id)) ?? 'A line',
     findingLine: (id) => findingLines.get(String(id)) ?? 'a line',
+    when: (instant) => formatDayClockTime(String(instant), shop.timeZone, shop.clockFormat),
   };
   return rows.flatMap(({ entry, actorName }) => {
     const words = describe(entry, names);

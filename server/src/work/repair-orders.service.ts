@@ -1,5 +1,5 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
-import { and, count, desc, eq, gte, inArray, lt, max, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, gte, inArray, isNull, lt, max, sql, type SQL } from 'drizzle-orm';
 import {
   isOpenLine,
   shopDayKey,
@@ -22,7 +22,16 @@ import { foundOrFail } from '../common/not-found.js';
 import { decodeCursor, olderThan, toPage } from '../common/paging.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { bays, customers, jobLines, repairOrders, users, vehicles } from '../db/schema/index.js';
+import {
+  approvalLinks,
+  bays,
+  customers,
+  jobLines,
+  repairOrders,
+  timers,
+  users,
+  vehicles,
+} from '../db/schema/index.js';
 import { DispatchService } from '../dispatch/dispatch.service.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LabourService } from '../labour/labour.service.js';
@@ -213,19 +222,20 @@ export class RepairOrdersService {
   }
 
   /**
-   * Corrections after the fact: the RO's own record of the customer and vehicle (and the customer and
-   * vehicle on file, so the next visit starts right), the concern and the promise. Audited with what
-   * each field was.
+   * Corrections after the fact, while the RO is open: the RO's own record of the customer and vehicle
+   * (and the customer and vehicle on file, so the next visit starts right), the concern and the
+   * promise. Audited with what each field was. A reading lowered below the vehicle's highest needs a
+   * reason, as at intake, and the vehicle's reading never goes down.
    */
   @Transactional()
   edit(id: number, body: EditRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
-    const ro = this.row(id);
+    const ro = this.openRow(id);
     const promisedAt =
       body.promisedAt === undefined ? undefined : body.promisedAt === null ? null : new Date(body.promisedAt);
     if (promisedAt && promisedAt <= now && promisedAt.getTime() !== ro.promisedAt?.getTime())
       throw fieldError(['promisedAt'], 'That time has already passed: promise a later one');
     const { customer = {}, vehicle = {} } = body;
-    const email = customer.email?.toLowerCase();
+    const email = customer.email === null ? null : customer.email?.toLowerCase();
     const changes = changedFields(ro, {
       customerName: customer.name,
       customerPhone: customer.phone,
@@ -239,16 +249,35 @@ export class RepairOrdersService {
       promisedAt,
     });
     if (Object.keys(changes).length === 0) return this.get(id, now);
+    const { odometer, ...details } = vehicle;
+    const reading = odometer !== ro.odometer ? odometer : undefined;
+    const lastOdometer = reading === undefined ? null : this.lastOdometer(ro.vehicleId);
+    // Raising an older RO's reading towards a later visit's rolls nothing back; lowering one does.
+    if (
+      reading !== undefined &&
+      lastOdometer !== null &&
+      reading < Math.min(ro.odometer, lastOdometer) &&
+      !body.odometerOverrideReason
+    ) {
+      const highest = lastOdometer.toLocaleString('en-US');
+      throw fieldError(
+        ['vehicle', 'odometer'],
+        `Lower than the highest reading on record (${highest}): check it, or give a reason to save anyway`,
+        `The odometer reads less than the highest reading on record (${highest})`,
+      );
+    }
     const set = Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to]));
     this.db.update(repairOrders).set(set).where(eq(repairOrders.id, id)).run();
     const onFile = { name: customer.name, phone: customer.phone, email };
     if (Object.values(onFile).some((v) => v !== undefined))
       this.db.update(customers).set(onFile).where(eq(customers.id, ro.customerId)).run();
-    const { odometer, ...details } = vehicle;
-    if (Object.values(details).some((v) => v !== undefined) || odometer !== undefined)
+    if (Object.values(details).some((v) => v !== undefined) || reading !== undefined)
       this.db
         .update(vehicles)
-        .set({ ...details, ...(odometer !== undefined && { lastOdometer: odometer }) })
+        .set({
+          ...details,
+          ...(reading !== undefined && { lastOdometer: Math.max(reading, lastOdometer ?? 0) }),
+        })
         .where(eq(vehicles.id, ro.vehicleId))
         .run();
     let moved: number[] = [];
@@ -266,7 +295,14 @@ export class RepairOrdersService {
       action: 'edit',
       entity: 'repair-order',
       entityId: id,
-      detail: { changes },
+      detail: {
+        changes,
+        ...(reading !== undefined &&
+          body.odometerOverrideReason && {
+            odometerOverrideReason: body.odometerOverrideReason,
+            lastOdometer,
+          }),
+      },
     });
     return this.changed(id, moved, now);
   }
@@ -340,8 +376,8 @@ export class RepairOrdersService {
   }
 
   /**
-   * The vehicle is picked up: the RO closes and any bay still holding it is free. Only once every
-   * line is done or cancelled.
+   * The vehicle is picked up: the RO closes, any bay still holding it is free, its timers stop and its
+   * approval links still open are withdrawn. Only once every line is done or cancelled.
    */
   @Transactional()
   close(id: number, actor: Principal, now = new Date()): RepairOrderSummary {
@@ -360,14 +396,48 @@ export class RepairOrdersService {
       .where(eq(bays.repairOrderId, id))
       .returning({ id: bays.id, name: bays.name })
       .all();
+    const stopped = this.db
+      .update(timers)
+      .set({ endedAt: now })
+      .where(
+        and(
+          isNull(timers.endedAt),
+          inArray(
+            timers.jobLineId,
+            this.db.select({ id: jobLines.id }).from(jobLines).where(eq(jobLines.repairOrderId, id)),
+          ),
+        ),
+      )
+      .returning({ id: timers.id, bayId: timers.bayId })
+      .all();
+    const withdrawn = this.db
+      .update(approvalLinks)
+      .set({ revokedAt: now, revokedBy: actor.id })
+      .where(
+        and(
+          eq(approvalLinks.repairOrderId, id),
+          isNull(approvalLinks.usedAt),
+          isNull(approvalLinks.revokedAt),
+          gt(approvalLinks.expiresAt, now),
+        ),
+      )
+      .returning({ id: approvalLinks.id })
+      .all();
     this.audit.record({
       actorId: actor.id,
       action: 'close',
       entity: 'repair-order',
       entityId: id,
-      detail: { bays: freed.map((bay) => bay.name) },
+      detail: {
+        bays: freed.map((bay) => bay.name),
+        timers: stopped.map((timer) => timer.id),
+        approvalLinks: withdrawn.map((link) => link.id),
+      },
     });
+    for (const timer of stopped)
+      this.live.publish('timer.updated', { timerId: timer.id, bayId: timer.bayId }, { to: 'everyone' });
     this.floor.baysChanged();
+    if (stopped.length) this.floor.timersChanged();
     return this.changed(id, [], now);
   }
 
@@ -387,6 +457,17 @@ export class RepairOrdersService {
     return foundOrFail(
       this.db.select().from(repairOrders).where(eq(repairOrders.id, id)).get(),
       'Repair order',
+    );
+  }
+
+  /** The vehicle's highest reading on record: intake and edits only ever raise it. */
+  private lastOdometer(vehicleId: number): number | null {
+    return (
+      this.db
+        .select({ reading: vehicles.lastOdometer })
+        .from(vehicles)
+        .where(eq(vehicles.id, vehicleId))
+        .get()?.reading ?? null
     );
   }
 
@@ -446,7 +527,7 @@ export class RepairOrdersService {
       .get();
   }
 
-  /** The vehicle as it is today; the odometer only ever rises. */
+  /** The vehicle as it is today; a plate left out stays as on file; the odometer only ever rises. */
   private upsertVehicle(
     known: VehicleRow | undefined,
     body: CreateRepairOrderBody,
@@ -458,7 +539,7 @@ export class RepairOrdersService {
       year,
       make,
       model,
-      plate: plate ?? null,
+      plate: plate ?? known?.plate ?? null,
       lastOdometer: Math.max(odometer, known?.lastOdometer ?? 0),
     };
     return known

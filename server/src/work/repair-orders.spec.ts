@@ -1,8 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import { makeVin, type DispatchBoard, type MyDay, type RepairOrderSummary } from '@baytime/shared';
+import {
+  makeVin,
+  type BoardSnapshot,
+  type DispatchBoard,
+  type KnownVehicle,
+  type MyDay,
+  type RepairOrderSummary,
+  type TimerDto,
+} from '@baytime/shared';
 import { countRows, DB, type Db } from '../db/database.js';
-import { auditLog, repairOrders } from '../db/schema/index.js';
+import { auditLog, repairOrders, timers } from '../db/schema/index.js';
+import { FloorService } from '../floor/floor.service.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { RepairOrdersService } from './repair-orders.service.js';
 
@@ -29,6 +38,11 @@ describe(RepairOrdersService.name, () => {
   const read = async (id: number) =>
     (await sut.http().get(`/api/repair-orders/${id}`).auth(advisor, { type: 'bearer' }).expect(200))
       .body as RepairOrderSummary;
+  const edit = (id: number, body: object) =>
+    sut.http().patch(`/api/repair-orders/${id}`).auth(advisor, { type: 'bearer' }).send(body);
+  const onFile = async (vin: string) =>
+    (await sut.http().get(`/api/vehicles?vin=${vin}`).auth(advisor, { type: 'bearer' }).expect(200))
+      .body as KnownVehicle;
   const auditOf = (id: number) =>
     sut.app
       .get<Db>(DB)
@@ -211,6 +225,134 @@ describe(RepairOrdersService.name, () => {
   it('takes a pasted VIN with spaces and dashes', async () => {
     const { body } = await create(order({ vin: ' 1m8 GDM9A-XKP 042788 ', odometer: 70_000 })).expect(201);
     expect(body.vin).toBe(VALID_VIN);
+  });
+
+  it('a returning vehicle keeps its plate when intake leaves it out', async () => {
+    const vin = makeVin('4HV5MR7BLM900005');
+    await create(order({ vin, year: 2020, plate: 'KEEP 303', odometer: 40_000 })).expect(201);
+    const { body } = await create(order({ vin, year: 2020, odometer: 42_000 })).expect(201);
+    expect((body as RepairOrderSummary).plate).toBe('KEEP 303');
+    expect((await onFile(vin)).plate).toBe('KEEP 303');
+  });
+
+  it('lowers a reading below the vehicle’s highest only with a reason, and never lowers the vehicle’s', async () => {
+    const vin = makeVin('4HV5MR7BLM900006');
+    const { body: first } = await create(order({ vin, year: 2020, odometer: 151_200 })).expect(201);
+    const { body } = await edit(first.id, { vehicle: { odometer: 100 } }).expect(400);
+    expect(body.issues).toEqual([
+      {
+        path: ['vehicle', 'odometer'],
+        message:
+          'Lower than the highest reading on record (151,200): check it, or give a reason to save anyway',
+      },
+    ]);
+    expect((await read(first.id)).odometer).toBe(151_200);
+
+    const reason = 'An extra digit was typed at intake';
+    await edit(first.id, { vehicle: { odometer: 15_120 }, odometerOverrideReason: reason }).expect(200);
+    expect((await read(first.id)).odometer).toBe(15_120);
+    expect((await onFile(vin)).lastOdometer).toBe(151_200);
+    const edited = sut.app
+      .get<Db>(DB)
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entityId, String(first.id)), eq(auditLog.action, 'edit')))
+      .get();
+    expect(edited?.detail).toEqual({
+      changes: { odometer: { from: 151_200, to: 15_120 } },
+      odometerOverrideReason: reason,
+      lastOdometer: 151_200,
+    });
+    const history = await sut
+      .http()
+      .get(`/api/repair-orders/${first.id}/history`)
+      .auth(advisor, { type: 'bearer' })
+      .expect(200);
+    expect(history.body.map((entry: { text: string }) => entry.text)).toContain(
+      `Details changed: odometer 151,200 → 15,120 (lower reading: ${reason})`,
+    );
+
+    // The office sends the reading with every correction; raising it towards the highest rolls nothing back.
+    await edit(first.id, { vehicle: { odometer: 15_120 }, concern: 'Shudder at 40 mph' }).expect(200);
+    await edit(first.id, { vehicle: { odometer: 15_210 } }).expect(200);
+    expect((await onFile(vin)).lastOdometer).toBe(151_200);
+
+    const { body: later } = await create(order({ vin, year: 2020, odometer: 152_000 })).expect(201);
+    await edit(later.id, { vehicle: { odometer: 152_400 } }).expect(200);
+    expect((await onFile(vin)).lastOdometer).toBe(152_400);
+  });
+
+  it('takes a phone, e-mail or plate off when sent empty or null, and keeps what is left out', async () => {
+    const vin = makeVin('4HV5MR7BLM900007');
+    const { body: written } = await create(
+      order({ vin, year: 2020, plate: 'LMN 404', odometer: 20_000 }),
+    ).expect(201);
+    const { body: cleared } = await edit(written.id, { customer: { phone: '' } }).expect(200);
+    expect(cleared).toMatchObject({
+      customerPhone: null,
+      customerEmail: 'wendell@example.test',
+      plate: 'LMN 404',
+    });
+    expect((await onFile(vin)).customer).toMatchObject({ phone: null, email: 'wendell@example.test' });
+
+    await edit(written.id, { customer: { email: '' }, vehicle: { plate: '' } }).expect(200);
+    await edit(written.id, { customer: { phone: '(608) 555-0164' } }).expect(200);
+    await edit(written.id, { customer: { phone: null } }).expect(200);
+    expect(await read(written.id)).toMatchObject({ customerPhone: null, customerEmail: null, plate: null });
+    expect(await onFile(vin)).toMatchObject({ plate: null, customer: { phone: null, email: null } });
+
+    await edit(written.id, { customer: { phone: '(608) 555-0142' } }).expect(200);
+    await edit(written.id, { customer: { name: 'Wendell Farrow-Ames' } }).expect(200);
+    expect(await read(written.id)).toMatchObject({
+      customerName: 'Wendell Farrow-Ames',
+      customerPhone: '+16085550142',
+    });
+    const { body } = await edit(written.id, { customer: { email: 'wendell@' } }).expect(400);
+    expect(body.issues).toEqual([{ path: ['customer', 'email'], message: 'Not an e-mail address' }]);
+  });
+
+  it('at pick-up, stops the timers left running on its lines and refuses later edits', async () => {
+    const tech = await sut.badge('1046');
+    const board = async () =>
+      (await sut.http().get('/api/board').auth(foreman, { type: 'bearer' }).expect(200))
+        .body as BoardSnapshot;
+    const bay = (await board()).bays.find((b) => b.state === 'ready')!;
+    const ro = await read(bay.repairOrder!.id);
+    expect(ro.status).toBe('done');
+    // A cure timer left running on a finished line, as an earlier version left them, and the floor
+    // read it as it does at start-up.
+    const db = sut.app.get<Db>(DB);
+    const timer = db
+      .insert(timers)
+      .values({
+        jobLineId: ro.lines[0]!.id,
+        bayId: bay.id,
+        kind: 'set-time',
+        durationSeconds: 3600,
+        label: 'Sealant cure',
+        startedAt: new Date(Date.now() - 60_000),
+        startedBy: tech.user.id,
+      })
+      .returning()
+      .get();
+    sut.app.get(FloorService).timersChanged();
+    expect((await board()).bays.find((b) => b.id === bay.id)).toMatchObject({ state: 'timer' });
+
+    const kiosk = sut.connect(tech.accessToken);
+    await nextEvent(kiosk, 'board.snapshot');
+    const heard = nextEvent(kiosk, 'timer.updated', (event) => event.timerId === timer.id);
+    await sut.http().post(`/api/repair-orders/${ro.id}/close`).auth(advisor, { type: 'bearer' }).expect(200);
+    expect(await heard).toMatchObject({ timerId: timer.id, bayId: bay.id });
+    expect(db.select().from(timers).where(eq(timers.id, timer.id)).get()!.endedAt).not.toBeNull();
+    expect((await board()).bays.find((b) => b.id === bay.id)).toMatchObject({ state: 'free', timer: null });
+    const running = (
+      await sut.http().get('/api/timers').auth(tech.accessToken, { type: 'bearer' }).expect(200)
+    ).body as TimerDto[];
+    expect(running.map((t) => t.id)).not.toContain(timer.id);
+
+    const { body } = await edit(ro.id, { vehicle: { odometer: ro.odometer + 100 } }).expect(409);
+    expect(body.message).toBe(`RO ${ro.number} is closed: open a new one for more work`);
+    expect((await read(ro.id)).odometer).toBe(ro.odometer);
   });
 
   describe('a VIN outside the 49 CFR 565 rules', () => {

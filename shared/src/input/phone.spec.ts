@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatPhone, normalisePhone, phoneSchema } from './phone.js';
+import { formatPhone, normalisePhone, phoneEditSchema, phoneSchema } from './phone.js';
 
 describe('normalisePhone', () => {
   it.each([
@@ -30,6 +30,19 @@ describe('phoneSchema', () => {
     expect(phoneSchema.parse(' (608) 555-0142 ')).toBe('+16085550142');
     expect(phoneSchema.parse('')).toBeUndefined();
     expect(phoneSchema.safeParse('555-0142').error?.issues[0]?.message).toBe(
+      'Not a phone number: give the area code, like (608) 555-0142',
+    );
+  });
+});
+
+describe('phoneEditSchema', () => {
+  it('takes the number off when empty or null, keeps it when left out, and refuses what phoneSchema refuses', () => {
+    expect(phoneEditSchema.parse('')).toBeNull();
+    expect(phoneEditSchema.parse('   ')).toBeNull();
+    expect(phoneEditSchema.parse(null)).toBeNull();
+    expect(phoneEditSchema.parse(undefined)).toBeUndefined();
+    expect(phoneEditSchema.parse('(608) 555-0142')).toBe('+16085550142');
+    expect(phoneEditSchema.safeParse('555-0142').error?.issues[0]?.message).toBe(
       'Not a phone number: give the area code, like (608) 555-0142',
     );
   });

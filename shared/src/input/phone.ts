@@ -23,13 +23,17 @@ export function formatPhone(stored: string): string {
 
 export const PHONE_MESSAGE = 'Not a phone number: give the area code, like (608) 555-0142';
 
+/** A phone number as typed, in E.164; empty is null. */
+const typedPhone = plainText(30).transform((text, ctx) => {
+  if (text === '') return null;
+  const phone = normalisePhone(text);
+  if (phone) return phone;
+  ctx.addIssue({ code: 'custom', message: PHONE_MESSAGE, input: text });
+  return z.NEVER;
+});
+
 /** A phone number typed into a form, stored in E.164; empty is left out. */
-export const phoneSchema = plainText(30)
-  .transform((text, ctx) => {
-    if (text === '') return undefined;
-    const phone = normalisePhone(text);
-    if (phone) return phone;
-    ctx.addIssue({ code: 'custom', message: PHONE_MESSAGE, input: text });
-    return z.NEVER;
-  })
-  .optional();
+export const phoneSchema = typedPhone.transform((phone) => phone ?? undefined).optional();
+
+/** A phone number in a correction, stored in E.164: empty or null takes it off, left out keeps it. */
+export const phoneEditSchema = typedPhone.nullable().optional();

@@ -4,3 +4,4 @@ export * from './punch-words.js';
 export * from './finding-words.js';
 export * from './connection-words.js';
 export * from './office-words.js';
+export * from './notice-words.js';

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { HOLD_REASONS, type HoldReason } from '../bays/bays.schema.js';
 import { idSchema, instantSchema, plainText } from '../input/fields.js';
-import { phoneSchema } from '../input/phone.js';
+import { phoneEditSchema, phoneSchema } from '../input/phone.js';
 import { addVinRuleIssues, vehicleDetailsSchema } from '../vehicles/vin.js';
 import { partNameSchema, type PartsHoldDto } from './parts.schema.js';
 
@@ -48,8 +48,10 @@ export const bookHoursSchema = z
   .max(99.9, 'Book hours is at most 99.9');
 const skillLevelSchema = z.number().int().min(1).max(5);
 const lineTitleSchema = plainText(120, { min: 1, message: 'Name the job' });
+/** The longest concern a line holds. */
+export const CONCERN_MAX_LENGTH = 1000;
 /** The three Cs of a line: what the customer asked for, what the technician found, what was done. */
-const concernSchema = plainText(1000, {
+const concernSchema = plainText(CONCERN_MAX_LENGTH, {
   min: 1,
   multiline: true,
   message: 'Say what the customer asked for',
@@ -156,10 +158,12 @@ export const finishLineSchema = z.object({
 export type FinishLineBody = z.infer<typeof finishLineSchema>;
 export type FinishLineFields = z.input<typeof finishLineSchema>;
 
+const emailSchema = z.email('Not an e-mail address').max(200);
+
 export const customerInputSchema = z.object({
   name: plainText(80, { min: 1, message: 'Enter the customer’s name' }),
   phone: phoneSchema,
-  email: z.email('Not an e-mail address').max(200).optional(),
+  email: emailSchema.optional(),
 });
 
 export const createRepairOrderSchema = z
@@ -189,17 +193,35 @@ export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
 /**
  * `PATCH /api/repair-orders/:id`: corrections after the fact, each audited with what it was. A
- * promise of null takes the promise back.
+ * promise of null takes the promise back; a phone, e-mail or plate left empty (or null) is taken off,
+ * as a customer may have no phone or e-mail on file. A reading lowered below the vehicle's highest
+ * needs a reason, as at intake.
  */
 export const editRepairOrderSchema = z
   .object({
-    customer: customerInputSchema.partial().strict(),
+    customer: z
+      .object({
+        name: customerInputSchema.shape.name,
+        phone: phoneEditSchema,
+        email: z
+          .union([z.literal(''), emailSchema])
+          .transform((email) => email || null)
+          .nullable(),
+      })
+      .partial()
+      .strict(),
     vehicle: vehicleDetailsSchema
-      .pick({ year: true, make: true, model: true, plate: true, odometer: true })
+      .pick({ year: true, make: true, model: true, odometer: true })
+      .extend({
+        plate: plainText(16)
+          .transform((plate) => plate || null)
+          .nullable(),
+      })
       .partial()
       .strict(),
     concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
     promisedAt: instantSchema.nullable(),
+    odometerOverrideReason: reasonSchema,
   })
   .partial()
   .strict();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDateTime, formatOdometer, formatOverUnder, groupVin } from './ro-format';
+import { formatDateTime, formatOdometer, formatOverUnder, groupVin, lineLabel } from './ro-format';
 
 describe(formatDateTime.name, () => {
   it('shows the moment in the shop zone', () => {
@@ -32,5 +32,13 @@ describe(groupVin.name, () => {
   it('groups a 17-character VIN and leaves anything else alone', () => {
     expect(groupVin('1M8GDM9AXKP042788')).toBe('1M8 GDM9AX KP 042788');
     expect(groupVin('ABC')).toBe('ABC');
+  });
+});
+
+describe(lineLabel.name, () => {
+  it('opens a line’s label with a capital', () => {
+    expect(lineLabel({ lineNo: 1, title: 'Front brake pads and rotors' })).toBe(
+      'Line 1 · Front brake pads and rotors',
+    );
   });
 });

@@ -1,4 +1,4 @@
-import { formatHours } from '@baytime/shared';
+import { atStart, formatHours, lineWords } from '@baytime/shared';
 import { dayClockTime } from '@/lib/shop-clock';
 /** Formatting for repair orders: dates in the shop's zone, labour, odometers. */
 
@@ -24,6 +24,11 @@ export function formatOverUnder(clockedSeconds: number, bookHours: number, finis
 /** "150,273 mi" or "241,842 km" by the shop's units. */
 export function formatOdometer(value: number, units: 'metric' | 'us' | undefined): string {
   return `${value.toLocaleString('en-US')} ${units === 'metric' ? 'km' : 'mi'}`;
+}
+
+/** A line as its label begins: "Line 2 · Replace brake pads". */
+export function lineLabel(line: { lineNo: number; title: string }): string {
+  return `${atStart(lineWords(line.lineNo))} · ${line.title}`;
 }
 
 /** A VIN in groups that are easy to read aloud: WMI, descriptor with check digit, year and plant, serial. */

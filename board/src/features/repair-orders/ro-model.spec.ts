@@ -8,6 +8,7 @@ import {
   filtersToParams,
   listQuery,
   pageRange,
+  lineNotes,
   lineRows,
   lineStatusText,
 } from './ro-model';
@@ -154,6 +155,22 @@ describe(lineStatusText.name, () => {
   it('gives the hold reason with a held line', () => {
     expect(lineStatusText({ status: 'held', holdReason: 'parts' })).toBe('Held: Parts');
     expect(lineStatusText({ status: 'queued', holdReason: null })).toBe('Queued');
+  });
+});
+
+describe(lineNotes.name, () => {
+  it('shows what a line has on record, each under its label', () => {
+    const done = jobLine({ cause: 'Stuck open', correction: 'Fitted a new thermostat' });
+    expect(lineNotes(done)).toEqual([
+      { label: 'Concern', text: 'Customer asks for a thermostat' },
+      { label: 'Cause', text: 'Stuck open' },
+      { label: 'Correction', text: 'Fitted a new thermostat' },
+    ]);
+  });
+
+  it('leaves out a concern the line does not have', () => {
+    const added = jobLine({ concern: '', cancelReason: 'Customer had it done elsewhere' });
+    expect(lineNotes(added)).toEqual([{ label: 'Cancelled', text: 'Customer had it done elsewhere' }]);
   });
 });
 

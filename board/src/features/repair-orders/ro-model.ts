@@ -1,4 +1,5 @@
 import {
+  JOB_LINE_STATUS_WORDS,
   lineStatusWords,
   type DispatchBoard,
   type DispatchLine,
@@ -108,6 +109,18 @@ export interface LineRow {
 
 export function lineStatusText(line: Pick<JobLineDto, 'status' | 'holdReason'>): string {
   return lineStatusWords(line);
+}
+
+/** The three Cs and a cancellation under a line, each with its label; a blank one is left out. */
+export function lineNotes(
+  line: Pick<JobLineDto, 'concern' | 'cause' | 'correction' | 'cancelReason'>,
+): { label: string; text: string }[] {
+  return [
+    { label: 'Concern', text: line.concern },
+    { label: 'Cause', text: line.cause },
+    { label: 'Correction', text: line.correction },
+    { label: JOB_LINE_STATUS_WORDS.cancelled, text: line.cancelReason },
+  ].filter((note): note is { label: string; text: string } => !!note.text?.trim());
 }
 
 /** The RO's lines with names and times filled in from the dispatch view where the RO lacks them. */

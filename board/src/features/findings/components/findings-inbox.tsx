@@ -25,6 +25,7 @@ import {
   FINDING_ANSWER_WORDS,
   formatBookHours,
   lineWords,
+  sentToWords,
   type FindingAnswerResult,
   type FindingDto,
 } from '@baytime/shared';
@@ -40,7 +41,6 @@ import {
   type AnsweredGroup,
 } from '../findings-model';
 import { findingArrivals } from '@/lib/finding-arrivals';
-import { sentToText } from '@/lib/notice-words';
 import { useMinuteNow } from '@/hooks/use-minute-now';
 import { ApproveDialog, ChangeAnswerDialog, DeclineDialog } from './answer-dialogs';
 import { FindingCard, SeverityBadge } from './finding-card';
@@ -206,7 +206,7 @@ export function FindingsInbox({
               {
                 ok: true,
                 text:
-                  `Approval link sent ${sentToText(sent)}` +
+                  `Approval link sent ${sentToWords(sent.mail?.to, sent.text?.to)}` +
                   (sent.findingIds.length > 1
                     ? `, with ${sent.findingIds.length} findings of this RO.`
                     : '.'),

@@ -19,7 +19,14 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import { lineWords, normalizeVin, skillWords, type OpeningHours, type OperationDto } from '@baytime/shared';
+import {
+  atStart,
+  lineWords,
+  normalizeVin,
+  skillWords,
+  type OpeningHours,
+  type OperationDto,
+} from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { useMinuteNow } from '@/hooks/use-minute-now';
 import { dateTimeFormat } from '@/lib/date-format';
@@ -589,7 +596,7 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
         )}
         {draft.lines.map((line, index) => (
           <div key={line.key} className={styles.line} role="group" aria-label={`Line ${index + 1}`}>
-            <Body1 className={styles.lineNo}>{lineWords(index + 1)}</Body1>
+            <Body1 className={styles.lineNo}>{atStart(lineWords(index + 1))}</Body1>
             <Field label={rowLabel(index, 'Job', 'job')} validationMessage={errors[`lines.${index}.title`]}>
               <OperationPicker
                 value={line.title}

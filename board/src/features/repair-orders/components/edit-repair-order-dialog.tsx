@@ -1,14 +1,19 @@
+import { useState } from 'react';
 import { Field, Input, Textarea } from '@fluentui/react-components';
 import { editRepairOrderSchema, parseDecimal } from '@baytime/shared';
+import { ApiError } from '@baytime/shared/client';
 import { FormDialog } from '@/components/form-dialog';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { useEditRepairOrder } from '../api/repair-order-changes';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
 
-const emptyAsMissing = (value: unknown) => (value === '' ? undefined : value);
 const asNumber = (value: unknown) => (typeof value === 'string' ? (parseDecimal(value) ?? value) : value);
 
-/** Corrections after the fact: the customer's contact, the vehicle and the concern, each audited. */
+/**
+ * Corrections after the fact: the customer's contact, the vehicle and the concern, each audited. A
+ * contact or plate left empty is taken off; a reading the server finds lower than the vehicle's
+ * highest is saved once the advisor says why, as at intake.
+ */
 export function EditRepairOrderDialog({ ro, onClose }: { ro: RepairOrderSummary; onClose: () => void }) {
   const edit = useEditRepairOrder(ro.id);
   const form = useSchemaForm(editRepairOrderSchema, {
@@ -22,6 +27,8 @@ export function EditRepairOrderDialog({ ro, onClose }: { ro: RepairOrderSummary;
       concern: ro.concern,
     },
   });
+  const [odometerRefused, setOdometerRefused] = useState(false);
+  const [odometerReason, setOdometerReason] = useState('');
   const { errors } = form.formState;
   return (
     <FormDialog
@@ -31,7 +38,13 @@ export function EditRepairOrderDialog({ ro, onClose }: { ro: RepairOrderSummary;
       formError={errors.root?.server?.message}
       onClose={onClose}
       onSubmit={form.handleSubmit((body) =>
-        edit.mutate(body, { onSuccess: onClose, onError: (error) => showServerErrors(form, error) }),
+        edit.mutate(odometerRefused ? { ...body, odometerOverrideReason: odometerReason } : body, {
+          onSuccess: onClose,
+          onError: (error) => {
+            showServerErrors(form, error);
+            if (error instanceof ApiError && error.fieldErrors['vehicle.odometer']) setOdometerRefused(true);
+          },
+        }),
       )}
     >
       <Field label="Customer" validationMessage={errors.customer?.name?.message}>
@@ -41,14 +54,32 @@ export function EditRepairOrderDialog({ ro, onClose }: { ro: RepairOrderSummary;
         <Input type="tel" {...form.register('customer.phone')} />
       </Field>
       <Field label="E-mail" validationMessage={errors.customer?.email?.message}>
-        <Input type="email" {...form.register('customer.email', { setValueAs: emptyAsMissing })} />
+        <Input type="email" {...form.register('customer.email')} />
       </Field>
       <Field label="Plate" validationMessage={errors.vehicle?.plate?.message}>
         <Input {...form.register('vehicle.plate')} />
       </Field>
       <Field label="Odometer" validationMessage={errors.vehicle?.odometer?.message}>
-        <Input inputMode="numeric" {...form.register('vehicle.odometer', { setValueAs: asNumber })} />
+        <Input
+          inputMode="numeric"
+          {...form.register('vehicle.odometer', {
+            setValueAs: asNumber,
+            onChange: () => {
+              setOdometerRefused(false);
+              setOdometerReason('');
+            },
+          })}
+        />
       </Field>
+      {odometerRefused && (
+        <Field
+          label="Reading is right? Say why it is lower"
+          validationMessage={errors.odometerOverrideReason?.message}
+          hint="For example: instrument cluster replaced. The reason is kept with the RO."
+        >
+          <Input autoFocus value={odometerReason} onChange={(_, data) => setOdometerReason(data.value)} />
+        </Field>
+      )}
       <Field label="Concern" validationMessage={errors.concern?.message}>
         <Textarea rows={3} {...form.register('concern')} />
       </Field>

@@ -1,6 +1,5 @@
 import { Badge, Body1, Caption1, makeStyles, tokens } from '@fluentui/react-components';
 import {
-  lineWords,
   FINDING_ANSWER_WORDS,
   FINDING_SEVERITY_LABELS,
   ANSWER_CHANNEL_WORDS,
@@ -8,7 +7,7 @@ import {
   type FindingDto,
   type FindingSeverity,
 } from '@baytime/shared';
-import { formatBookHours, formatDateTime } from '../ro-format';
+import { formatBookHours, formatDateTime, lineLabel } from '../ro-format';
 import { FindingPhoto } from './finding-photo';
 
 const useStyles = makeStyles({
@@ -48,7 +47,7 @@ export function FindingCard({ finding, timeZone }: { finding: FindingDto; timeZo
     <article className={styles.card} aria-label={`Finding on line ${finding.lineNo}`}>
       <div className={styles.head}>
         <Body1 className={styles.line}>
-          {lineWords(finding.lineNo)} · {finding.lineTitle}
+          {lineLabel({ lineNo: finding.lineNo, title: finding.lineTitle })}
         </Body1>
         <Badge appearance="filled" color={severity.color}>
           {severity.label}

@@ -31,7 +31,7 @@ import { useRepairOrder } from '../api/get-repair-order';
 import { useRepairOrderFindings } from '../api/get-findings';
 import { useDispatch } from '@/lib/api/get-dispatch';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { lineRows } from '../ro-model';
+import { lineNotes, lineRows } from '../ro-model';
 import { useRepairOrderHistory } from '../api/get-history';
 import {
   useCloseRepairOrder,
@@ -43,13 +43,13 @@ import {
 import { EditRepairOrderDialog } from './edit-repair-order-dialog';
 import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
-import { sentToText } from '@/lib/notice-words';
 import {
   BAY_STATE_WORDS,
   JOB_LINE_STATUS_WORDS,
   REPAIR_ORDER_STATUS_WORDS,
   aboutWords,
   lineWords,
+  sentToWords,
   skillWords,
 } from '@baytime/shared';
 import {
@@ -59,6 +59,7 @@ import {
   formatOdometer,
   formatOverUnder,
   groupVin,
+  lineLabel,
 } from '../ro-format';
 import { FindingCard } from './finding-card';
 
@@ -251,7 +252,9 @@ function Detail({
             {canDispatch && ro.status === 'open' && (
               <Button onClick={() => void navigate(paths.dispatch)}>Open dispatch</Button>
             )}
-            <Button onClick={() => setDialog({ kind: 'edit-ro' })}>Edit details</Button>
+            {ro.status !== 'closed' && (
+              <Button onClick={() => setDialog({ kind: 'edit-ro' })}>Edit details</Button>
+            )}
             <Button onClick={() => window.print()}>Print RO and job tickets</Button>
             <Button appearance="subtle" onClick={() => void navigate(paths.repairOrders)}>
               All repair orders
@@ -347,15 +350,14 @@ function Detail({
                   return (
                     <TableRow key={line.id}>
                       <TableCell>
-                        <span className={styles.lineTitle}>
-                          {lineWords(line.lineNo)} · {line.title}
-                        </span>
+                        <span className={styles.lineTitle}>{lineLabel(line)}</span>
                         <Caption1 className={styles.dim}> · {skillWords(line.skillLevel)}</Caption1>
                         <div className={styles.threeCs}>
-                          <Caption1>Concern: {line.concern}</Caption1>
-                          {line.cause && <Caption1>Cause: {line.cause}</Caption1>}
-                          {line.correction && <Caption1>Correction: {line.correction}</Caption1>}
-                          {line.cancelReason && <Caption1>Cancelled: {line.cancelReason}</Caption1>}
+                          {lineNotes(line).map(({ label, text }) => (
+                            <Caption1 key={label}>
+                              {label}: {text}
+                            </Caption1>
+                          ))}
                         </div>
                       </TableCell>
                       <TableCell>
@@ -599,7 +601,11 @@ function VisitActions({
           </Button>
         </>
       )}
-      {notice.isSuccess && <Caption1 role="status">Ready notice sent {sentToText(notice.data)}.</Caption1>}
+      {notice.isSuccess && (
+        <Caption1 role="status">
+          Ready notice sent {sentToWords(notice.data.mail?.to, notice.data.text?.to)}.
+        </Caption1>
+      )}
       {!ro.customerEmail && !ro.customerPhone && ro.status === 'done' && (
         <Caption1>No e-mail or phone on file: tell the customer at the counter.</Caption1>
       )}

@@ -1,6 +1,6 @@
 import type { RepairOrderSummary } from '../api/get-repair-orders';
 import { lineWords } from '@baytime/shared';
-import { formatBookHours, formatDateTime, formatOdometer, groupVin } from '../ro-format';
+import { formatBookHours, formatDateTime, formatOdometer, groupVin, lineLabel } from '../ro-format';
 import './repair-order-print.css';
 
 export interface RepairOrderPrintProps {
@@ -45,9 +45,7 @@ export function RepairOrderPrint({ ro, units, timeZone }: RepairOrderPrintProps)
           <tbody>
             {lines.map((line) => (
               <tr key={line.id}>
-                <td>
-                  {lineWords(line.lineNo)} · {line.title}
-                </td>
+                <td>{lineLabel(line)}</td>
                 <td>{line.concern}</td>
                 <td>{line.cause ?? ''}</td>
                 <td>{line.correction ?? ''}</td>

@@ -20,6 +20,7 @@ import {
   PERSON_STATUS_WORDS,
   PRIORITY_WORDS,
   TIMER_KIND_LABELS,
+  atStart,
   formatHours,
   lineWords,
   offlineSinceWords,
@@ -186,7 +187,7 @@ function BayCard({ bay, asOfMs, nowMs, timeZone }: BayCardProps) {
       )}
       {bay.jobLine && (
         <Body1 className={styles.wraps}>
-          <span className={styles.dim}>{lineWords(bay.jobLine.lineNo)} </span>
+          <span className={styles.dim}>{atStart(lineWords(bay.jobLine.lineNo))} </span>
           {bay.jobLine.title}
         </Body1>
       )}
