@@ -124,10 +124,14 @@ describe('the whole visit, from intake to pick-up', () => {
     await edit.getByRole('button', { name: 'Save changes' }).click();
     await edit.waitFor({ state: 'detached' });
 
-    // Pick-up closes the RO and frees the bay; a closed RO's details stay as they are.
+    // Pick-up closes the RO and frees the bay; a closed RO's details and lines stay as they are.
+    await expect
+      .poll(() => advisor.getByRole('button', { name: 'Edit', exact: true }).count())
+      .toBeGreaterThan(0);
     await advisor.getByRole('button', { name: 'Vehicle picked up: close the RO' }).click();
     await advisor.getByText('Picked up: this repair order is closed.').waitFor();
     expect(await advisor.getByRole('button', { name: 'Edit details' }).count()).toBe(0);
+    expect(await advisor.getByRole('button', { name: 'Edit', exact: true }).count()).toBe(0);
     await bayShows(/free/i);
     await advisor.screenshot({ path: screenshotPath('visit-ro-closed') });
 

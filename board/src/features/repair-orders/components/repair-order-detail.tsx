@@ -412,9 +412,11 @@ function Detail({
                       </TableCell>
                       <TableCell>
                         <div className={styles.lineActions}>
-                          <Button size="small" onClick={() => setDialog({ kind: 'edit', line })}>
-                            Edit
-                          </Button>
+                          {ro.status !== 'closed' && (
+                            <Button size="small" onClick={() => setDialog({ kind: 'edit', line })}>
+                              Edit
+                            </Button>
+                          )}
                           {line.status !== 'done' &&
                             line.status !== 'cancelled' &&
                             ro.status !== 'closed' && (
