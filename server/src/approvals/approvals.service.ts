@@ -352,6 +352,8 @@ export class ApprovalsService {
     if (!link) throw new NotFoundException(NOT_VALID);
     const status = linkStatus(link, now);
     if (status === 'used') throw new GoneException('This request was already answered: thank you');
+    if (status === 'revoked' && this.closed(link.repairOrderId))
+      throw new GoneException('This visit is over and the vehicle picked up: call the shop about this work');
     if (status === 'revoked') throw new GoneException('The shop withdrew this link: call them for a new one');
     if (status === 'expired') throw new GoneException('This link has expired: call the shop for a new one');
     const waiting = this.db
@@ -363,6 +365,15 @@ export class ApprovalsService {
     if (waiting.length < this.itemsOf(link.id).length)
       throw new GoneException('The shop already recorded your answer: call them with any change');
     return link;
+  }
+
+  private closed(repairOrderId: number): boolean {
+    const ro = this.db
+      .select({ status: repairOrders.status })
+      .from(repairOrders)
+      .where(eq(repairOrders.id, repairOrderId))
+      .get();
+    return ro?.status === 'closed';
   }
 
   private itemsOf(linkId: number): QuotedRow[] {

@@ -436,7 +436,7 @@ describe(ApprovalsService.name, () => {
 
     await as(advisor).post(`/api/repair-orders/${ro.id}/close`).expect(200);
     expect((await page(token).expect(410)).body.message).toBe(
-      'The shop withdrew this link: call them for a new one',
+      'This visit is over and the vehicle picked up: call the shop about this work',
     );
     await answer(token, {
       answers: [{ findingId: noted.id, answer: 'declined' }],
