@@ -269,7 +269,11 @@ export class BoardService implements OnModuleInit, OnModuleDestroy {
       vehicle: ro?.vehicle ?? null,
       repairOrder: ro ? { id: ro.id, number: ro.number } : null,
       jobLine: line ? { id: line.id, lineNo: line.lineNo, title: line.title, status: line.status } : null,
-      technicians: techIds.map((id) => ({ id, name: names.get(id) ?? '?' })),
+      // Someone no longer on the floor (deactivated) is not shown: the line waits for another technician.
+      technicians: techIds.flatMap((id) => {
+        const name = names.get(id);
+        return name === undefined ? [] : [{ id, name }];
+      }),
       clockedSeconds,
       bookSeconds: Math.round((line?.bookHours ?? 0) * 3600),
       clockRunning: line ? clockedOn.has(line.id) : false,

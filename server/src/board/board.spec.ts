@@ -83,4 +83,21 @@ describe(BoardService.name, () => {
     const breakEnded = await punch('break-end');
     expect(person()).toMatchObject({ status: 'idle', since: breakEnded });
   });
+
+  it('names on a bay tile only technicians still on the floor', async () => {
+    const board = sut.app.get(BoardService);
+    const owner = await sut.signIn(DEMO.owner);
+    // Sam's line is staged in Bay 7 in the demo shop, and Sam is on shift.
+    const sam = await sut.badge('1046');
+    const bay7 = () => board.snapshot(0, new Date()).bays.find((bay) => bay.name === 'Bay 7')!;
+    expect(bay7().technicians).toEqual([{ id: sam.user.id, name: 'Sam O.' }]);
+    await sut.punch(sam.accessToken, { kind: 'shift-out' }).expect(201);
+    await sut
+      .http()
+      .patch(`/api/users/${sam.user.id}`)
+      .auth(owner, { type: 'bearer' })
+      .send({ active: false })
+      .expect(200);
+    expect(bay7()).toMatchObject({ state: 'staged', technicians: [] });
+  });
 });
