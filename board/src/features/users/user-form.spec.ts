@@ -88,4 +88,17 @@ describe('the people form', () => {
       'Tamsin Reeve: Your role cannot change this.',
     );
   });
+
+  it('asks for the rate a new technician is paid by, so no one is added at $0 an hour', () => {
+    const issues = (fields: object) =>
+      addUserFormSchema
+        .safeParse({ ...technician, ...fields })
+        .error?.issues.map((issue) => [issue.path.join('.'), issue.message]);
+    expect(issues({ flatRate: '' })).toEqual([['flatRate', 'Give the flat rate per flagged hour']]);
+    expect(issues({ flatRate: '$0.00' })).toEqual([['flatRate', 'Give the flat rate per flagged hour']]);
+    expect(issues({ payType: 'hourly', flatRate: '', hourlyRate: '' })).toEqual([
+      ['hourlyRate', 'Give the hourly rate'],
+    ]);
+    expect(issues({ payType: 'hourly', flatRate: '', hourlyRate: '22' })).toBeUndefined();
+  });
 });

@@ -10,7 +10,7 @@ import {
 } from '@baytime/shared';
 import { dollarsToCents } from '@/lib/form-errors';
 import { checkedAsBody } from '@/lib/form';
-import { EMPTY_PAY, PAY_FIELD_OF, payBody, payDraftOf } from './components/pay-fields';
+import { EMPTY_PAY, missingRates, PAY_FIELD_OF, payBody, payDraftOf } from './components/pay-fields';
 
 export const ROLE_LABELS: Record<PersonRole, string> = {
   owner: 'Owner',
@@ -63,7 +63,11 @@ function toBody(values: z.output<typeof userFields>, withPay: boolean) {
 }
 
 export const addUserFormSchema = checkedAsBody(
-  userFields,
+  userFields.superRefine((values, ctx) => {
+    if (values.role !== 'technician') return;
+    for (const [field, message] of Object.entries(missingRates(values)))
+      ctx.addIssue({ code: 'custom', path: [field], message });
+  }),
   (values) => toBody(values, true),
   createUserSchema,
   PAY_FIELD_OF,

@@ -43,9 +43,18 @@ export function payDraftOf(rate: PayRate): PayDraft {
   };
 }
 
+/** The rate a pay type is paid by, when left blank or at nothing: such a week would pay $0 for the work. */
+export function missingRates(draft: PayDraft): FieldErrors {
+  // Blank or $0; an amount that is not one is told as such by its own check.
+  const nothing = (text: string) => text.trim() === '' || dollarsToCents(text) === 0;
+  if (draft.payType === 'hourly')
+    return nothing(draft.hourlyRate) ? { hourlyRate: 'Give the hourly rate' } : {};
+  return nothing(draft.flatRate) ? { flatRate: 'Give the flat rate per flagged hour' } : {};
+}
+
 /** The rates typed in dollars as a body in cents; a blank amount is left out. */
 export function payBody(draft: PayDraft): { body: Partial<PayRate>; errors: FieldErrors } {
-  const errors: FieldErrors = {};
+  const errors: FieldErrors = { ...missingRates(draft) };
   const body: Partial<PayRate> = { payType: draft.payType, overtimeExempt: !draft.paidOvertime };
   for (const [field, key] of [
     ['flatRate', 'flatRateCents'],
