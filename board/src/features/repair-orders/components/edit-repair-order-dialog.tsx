@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Field, Input, Textarea } from '@fluentui/react-components';
-import { editRepairOrderSchema, parseDecimal } from '@baytime/shared';
+import { editRepairOrderSchema, formatPhone, parseDecimal } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { FormDialog } from '@/components/form-dialog';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
@@ -20,7 +20,7 @@ export function EditRepairOrderDialog({ ro, onClose }: { ro: RepairOrderSummary;
     defaultValues: {
       customer: {
         name: ro.customerName,
-        phone: ro.customerPhone ?? undefined,
+        phone: ro.customerPhone ? formatPhone(ro.customerPhone) : undefined,
         email: ro.customerEmail ?? undefined,
       },
       vehicle: { plate: ro.plate ?? undefined, odometer: ro.odometer },

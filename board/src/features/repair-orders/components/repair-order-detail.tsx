@@ -22,7 +22,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
-import { BAY_PALETTE } from '@baytime/shared';
+import { BAY_PALETTE, formatPhone } from '@baytime/shared';
 import { PageHeader } from '@/components/page-header';
 import { Glyph } from '@/components/glyph';
 import { paths } from '@/config/paths';
@@ -278,7 +278,7 @@ function Detail({
           <Body1 className={styles.big}>{ro.customerName}</Body1>
           {ro.customerPhone && (
             <Link className={styles.contact} href={`tel:${ro.customerPhone}`}>
-              {ro.customerPhone}
+              {formatPhone(ro.customerPhone)}
             </Link>
           )}
           {ro.customerEmail && (

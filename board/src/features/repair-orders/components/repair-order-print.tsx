@@ -1,5 +1,5 @@
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { lineWords } from '@baytime/shared';
+import { formatPhone, lineWords } from '@baytime/shared';
 import { formatBookHours, formatDateTime, formatOdometer, groupVin, lineLabel } from '../ro-format';
 import './repair-order-print.css';
 
@@ -22,7 +22,7 @@ export function RepairOrderPrint({ ro, units, timeZone }: RepairOrderPrintProps)
         <h1>Repair order {ro.number}</h1>
         <p>
           {ro.customerName}
-          {ro.customerPhone && ` · ${ro.customerPhone}`}
+          {ro.customerPhone && ` · ${formatPhone(ro.customerPhone)}`}
           {ro.customerEmail && ` · ${ro.customerEmail}`}
         </p>
         <p>{vehicleLine}</p>
