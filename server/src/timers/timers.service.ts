@@ -100,6 +100,9 @@ export class TimersService {
       .where(and(eq(timers.jobLineId, line.id), isNull(timers.endedAt)))
       .get();
     if (busy) throw new ConflictException('A timer is already running on this line: stop it first');
+    // An engine running or hot fluid is shown on the wall by its bay: with no bay, nobody else would see it.
+    if (body.kind !== 'set-time' && (body.bayId ?? line.bayId) === null)
+      throw new ConflictException('Put the line in a bay first: the wall shows a running engine by its bay');
     const row = this.db
       .insert(timers)
       .values({

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import type { BoardSnapshot, MyDay, SignInAnswer, TimerDto } from '@baytime/shared';
+import type { BoardSnapshot, DispatchBoard, MyDay, SignInAnswer, TimerDto } from '@baytime/shared';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimersService } from './timers.service.js';
 
@@ -33,6 +33,40 @@ describe(TimersService.name, () => {
         'cautionAcknowledged',
         'targetC',
       ]);
+    });
+
+    it('refuses a warm-up on a line in no bay, where the wall would not show the running engine', async () => {
+      const foreman = await sut.signIn(DEMO.foreman);
+      const dispatch = await sut.http().get('/api/dispatch').auth(foreman, { type: 'bearer' }).expect(200);
+      const waiting = (dispatch.body as DispatchBoard).queue.find((line) => line.bayId === null)!;
+      await sut
+        .http()
+        .patch(`/api/job-lines/${waiting.id}`)
+        .auth(foreman, { type: 'bearer' })
+        .send({ technicianId: dana.user.id })
+        .expect(200);
+      const refused = await post('/api/timers', {
+        jobLineId: waiting.id,
+        kind: 'warm-up',
+        targetC: 45,
+        cautionAcknowledged: true,
+      }).expect(409);
+      expect(refused.body.message).toBe(
+        'Put the line in a bay first: the wall shows a running engine by its bay',
+      );
+      const held = await post('/api/timers', {
+        jobLineId: waiting.id,
+        kind: 'set-time',
+        durationSeconds: 600,
+      });
+      expect(held.status).toBe(201);
+      await post(`/api/timers/${(held.body as TimerDto).id}/stop`).expect(200);
+      await sut
+        .http()
+        .patch(`/api/job-lines/${waiting.id}`)
+        .auth(foreman, { type: 'bearer' })
+        .send({ technicianId: null })
+        .expect(200);
     });
 
     it('runs a warm-up: readings give an ETA on the wall, which survives a restart, and 45 °C reaches it', async () => {
