@@ -1,7 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BAY_STATE_WORDS, CONNECTION_WORDS, type BoardSnapshot, type UserDto } from '@baytime/shared';
+import {
+  BAY_STATE_WORDS,
+  CONNECTION_WORDS,
+  makeVin,
+  type BoardSnapshot,
+  type RepairOrderSummary,
+  type UserDto,
+} from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, bayTile, openWall, peopleStrip, technicianDay, type Api } from './support/floor.js';
 import { flaws } from './support/flaws.js';
@@ -56,6 +63,51 @@ describe('wall board', () => {
   afterAll(async () => {
     await browser?.close();
     await server?.stop();
+  });
+
+  // Runs before the bays are added below: the sizes checked there then include this tile.
+  it('keeps a long model on a staged bay, cut short at body size after its first words', async () => {
+    const model = 'Grand Voyager Extended Cab Heavy Duty 3500';
+    const advisor = await apiAs(server, 'advisor@marlowcreek.test');
+    const foreman = await apiAs(server, 'foreman@marlowcreek.test');
+    const ro = await advisor<RepairOrderSummary>('POST', '/repair-orders', {
+      customer: { name: 'Pat Lindqvist', phone: '(608) 555-0142' },
+      vehicle: {
+        vin: makeVin('1WK3500GKA123456'),
+        year: 2019,
+        make: 'Wolverhampton-Kesselring',
+        model,
+        odometer: 88_000,
+      },
+      concern: 'Knock from the front end over bumps',
+      lines: [{ title: 'Replace front lower control arm bushings and align front end', bookHours: 2.5 }],
+    });
+    const bay = (await owner<BoardSnapshot>('GET', '/board')).bays.find((b) => b.state === 'free')!;
+    const jo = (await owner<UserDto[]>('GET', '/users')).find((u) => u.name === 'Jo Whitfield')!;
+    await foreman('PATCH', `/job-lines/${ro.lines[0]!.id}`, { technicianId: jo.id, bayId: bay.id });
+
+    const page = await browser.newPage();
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    await openWall(page, server);
+    const tile = bayTile(page, bay.name);
+    await expect.poll(() => tile.textContent(), { timeout: 5000 }).toContain(model);
+    const vehicle = tile.locator('[data-shortened]', { hasText: model });
+    const shown = await vehicle.evaluate((line, firstWords) => {
+      const box = line.getBoundingClientRect();
+      const words = document.createRange();
+      words.setStart(line.firstChild!, 0);
+      words.setEnd(line.firstChild!, firstWords.length);
+      return {
+        cut: line.scrollHeight > line.clientHeight + 1 || line.scrollWidth > line.clientWidth + 1,
+        firstWordsInside: [...words.getClientRects()].every(
+          (rect) => rect.bottom <= box.bottom + 1 && rect.right <= box.right + 1,
+        ),
+      };
+    }, 'Grand Voyager');
+    expect(shown).toEqual({ cut: true, firstWordsInside: true });
+    await assertLegibleAndStill(page, 1080, PREFERRED_CAP_AT_1080P);
+    await page.screenshot({ path: screenshotPath('wall-long-model') });
+    await page.close();
   });
 
   it.each([

@@ -9,7 +9,9 @@ export interface Flaw {
 /**
  * Every visible text that is cut (wider than its box with overflow hidden or an ellipsis, or clamped),
  * or hidden past the edge of a box that clips it, and everything that sticks out of the viewport
- * sideways. Deliberately tiny boxes (screen-reader-only text) and hidden measuring copies are skipped.
+ * sideways. Deliberately tiny boxes (screen-reader-only text) and hidden measuring copies are skipped,
+ * and text the page shortens on purpose (`data-shortened`: a wall tile's long model) may end in an
+ * ellipsis.
  */
 export async function flaws(page: Page): Promise<Flaw[]> {
   return page.evaluate(() => {
@@ -40,7 +42,8 @@ export async function flaws(page: Page): Promise<Flaw[]> {
       if (text) {
         const widthCut = el.scrollWidth > el.clientWidth + 1 && style.overflowX !== 'visible';
         const clamped = style.webkitLineClamp !== 'none' && el.scrollHeight > el.clientHeight + 1;
-        if (widthCut || clamped) found.push({ what: 'cut', element: name(el), text });
+        const shortened = el.closest('[data-shortened]') !== null;
+        if ((widthCut || clamped) && !shortened) found.push({ what: 'cut', element: name(el), text });
         // A box that clips (hidden, not scrollable) and the text past its edge. A line box may hang
         // past it by the font's empty space above the caps and below the descenders, which a tight
         // line height leaves outside (the wall's bay names): 0.3 em, Barlow's ascent less its caps.

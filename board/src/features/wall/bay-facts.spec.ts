@@ -206,7 +206,7 @@ describe(pickLines.name, () => {
     expect(pickLines(facts, 0, 0)).toEqual([]);
   });
 
-  it('wraps a fact longer than a line onto two, and leaves out one that cannot fit rather than cut it', () => {
+  it('wraps a fact longer than a line onto two, and leaves out one that takes turns on fewer lines', () => {
     const long = [fact('Replace rear wheel bearing'), fact('RO 4645'), fact('1:05 / 1:30', true)];
     const shown = (slots: number, turn = 0) =>
       pickLines(long, slots, turn, 16).map((line) => [line.fact.text, line.wraps]);
@@ -227,7 +227,45 @@ describe(pickLines.name, () => {
       ['RO 4645', false],
       ['1:05 / 1:30', false],
     ]);
-    expect(pickLines([fact('x'.repeat(40))], 4, 0, 16)).toEqual([]);
+  });
+
+  it('shortens a fact longer than two lines to two, and a kept one to the single line left for it', () => {
+    const longest = fact('x'.repeat(40));
+    expect(pickLines([longest], 4, 0, 16)).toEqual([
+      { fact: longest, rotating: false, wraps: true, shortened: true },
+    ]);
+    const kept = fact('Replace rear wheel bearing', true);
+    expect(pickLines([kept, fact('RO 4645')], 1, 0, 16)).toEqual([
+      { fact: kept, rotating: false, wraps: false, shortened: true },
+    ]);
+  });
+
+  it('keeps a long model on a staged tile, shortened rather than left out, and its job title when there is room', () => {
+    const model = 'Grand Voyager Extended Cab Heavy Duty 3500';
+    const title = 'Replace front lower control arm bushings and align front end';
+    const staged = bay({
+      state: 'staged',
+      vehicle: `2019 Wolverhampton-Kesselring ${model}`,
+      jobLine: { id: 2, lineNo: 1, title, status: 'queued' },
+      technicians: [{ id: 3, name: 'Jo W.' }],
+    });
+    // An 8-bay wall's tiles count 11 characters a line, and a staged tile there has two lines.
+    const shown = (slots: number, turn = 0) =>
+      pickLines(bayFacts({ bay: staged, clockedSeconds: 0, nowMs: now, lineChars: 11 }), slots, turn, 11).map(
+        (line) => [line.fact.text, line.wraps, line.shortened],
+      );
+    expect(shown(2)).toEqual([[model, true, true]]);
+    expect(shown(1)).toEqual([[model, false, true]]);
+    expect(shown(3, 1)).toEqual([
+      [model, true, true],
+      ['Jo W.', false, false],
+    ]);
+    expect(shown(6)).toEqual([
+      [model, true, true],
+      ['RO 4821', false, false],
+      [title, true, true],
+      ['Jo W.', false, false],
+    ]);
   });
 });
 

@@ -271,42 +271,61 @@ export interface TileLine {
   fact: BayFact;
   /** This line takes turns with other facts. */
   rotating: boolean;
-  /** The fact is too long for one line and wraps onto a second. */
+  /** The fact takes two lines. */
   wraps: boolean;
+  /** The fact is longer than its lines: the tile ends it with an ellipsis, keeping its first words. */
+  shortened: boolean;
 }
 
-/** Lines a fact needs on a tile whose lines hold `lineChars` characters: a big countdown is one. */
-export function factHeight(fact: BayFact, lineChars: number): number {
+/** Lines a fact's whole text takes on a tile whose lines hold `lineChars` characters: a big countdown is one. */
+function textLines(fact: BayFact, lineChars: number): number {
   if (fact.tone === 'big') return 1;
   const length = fact.text.length + (fact.suffix ? fact.suffix.length + 1 : 0);
   return Math.max(1, Math.ceil(length / lineChars));
 }
 
+/** Lines a fact takes on a tile: at most two, however long its text. */
+export function factHeight(fact: BayFact, lineChars: number): number {
+  return Math.min(2, textLines(fact, lineChars));
+}
+
 /**
- * Fits facts into `slots` lines. A fact longer than a line wraps onto a second; one longer than two
- * lines, or taller than the tile, is left out rather than cut. When they all fit they all show;
- * otherwise the kept facts stay and (unless they fill every line) the others take turns on the lines
- * left (`turn` counts up every few seconds), in reading order.
+ * Fits facts into `slots` lines. A fact longer than a line wraps onto a second, and one longer than two
+ * lines is shortened to two. When they all fit they all show. Otherwise the kept facts stay, one of them
+ * shortened to a single line when only one is left for it, and unless they fill every line the others
+ * take turns on the lines left (`turn` counts up every few seconds), in reading order: one taller than
+ * those lines is left out.
  */
 export function pickLines(facts: BayFact[], slots: number, turn: number, lineChars = Infinity): TileLine[] {
   if (slots <= 0) return [];
   const height = (fact: BayFact) => factHeight(fact, lineChars);
-  const fitting = facts.filter((fact) => height(fact) <= Math.min(2, slots));
-  const line = (fact: BayFact, rotating: boolean): TileLine => ({ fact, rotating, wraps: height(fact) > 1 });
+  const line = (fact: BayFact, rotating: boolean, lines = height(fact)): TileLine => ({
+    fact,
+    rotating,
+    wraps: lines > 1,
+    shortened: textLines(fact, lineChars) > lines,
+  });
   const total = (list: BayFact[]) => list.reduce((sum, fact) => sum + height(fact), 0);
-  if (total(fitting) <= slots) return fitting.map((fact) => line(fact, false));
+  if (total(facts) <= slots) return facts.map((fact) => line(fact, false));
   // The kept facts leave a line for the others to take turns on, unless they fill every line.
-  const keptAll = fitting.filter((fact) => fact.keep);
+  const keptAll = facts.filter((fact) => fact.keep);
   const budget = total(keptAll) >= slots ? slots : slots - 1;
-  const kept: BayFact[] = [];
-  for (const fact of keptAll) if (total(kept) + height(fact) <= budget) kept.push(fact);
-  const room = slots - total(kept);
-  const others = fitting.filter((fact) => !kept.includes(fact) && height(fact) <= room);
+  const kept = new Map<BayFact, number>();
+  let used = 0;
+  for (const fact of keptAll) {
+    const lines = Math.min(height(fact), budget - used);
+    if (lines <= 0) break;
+    kept.set(fact, lines);
+    used += lines;
+  }
+  const room = slots - used;
+  const others = facts.filter((fact) => !kept.has(fact) && height(fact) <= room);
   const shown = others.length ? others[((turn % others.length) + others.length) % others.length] : undefined;
-  const firstOther = fitting.findIndex((fact) => !kept.includes(fact));
+  const firstOther = facts.findIndex((fact) => !kept.has(fact));
   const lines: TileLine[] = [];
-  fitting.forEach((fact, index) => {
-    if (kept.includes(fact)) lines.push(line(fact, false));
+  facts.forEach((fact, index) => {
+    const keptLines = kept.get(fact);
+    if (keptLines !== undefined) lines.push(line(fact, false, keptLines));
     else if (index === firstOther && shown) lines.push(line(shown, true));
   });
   return lines;

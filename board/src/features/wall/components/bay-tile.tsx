@@ -97,7 +97,10 @@ function FactLine({ line }: { line: TileLine }) {
   return (
     <div className={`${styles.line} ${toneClass} ${line.rotating ? styles.lineTurn : ''}`}>
       {fact.tone === 'caution' && <Glyph name="caution" className={styles.glyph} />}
-      <span className={`${styles.lineText} ${line.wraps ? styles.lineWraps : ''}`}>
+      <span
+        className={`${styles.lineText} ${line.wraps ? styles.lineWraps : ''}`}
+        data-shortened={line.shortened || undefined}
+      >
         {fact.text}
         {fact.suffix && <span className={styles.lineSuffix}> {fact.suffix}</span>}
       </span>
