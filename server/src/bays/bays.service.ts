@@ -33,6 +33,9 @@ const toBayDto = ({ id, name, kind, position, active }: BayRow): BayDto => ({
   active,
 });
 
+/** "bay 1" beside "Bay 1" reads as the same bay: names are compared without case, accents still count. */
+const BAY_NAMES = new Intl.Collator('en', { sensitivity: 'accent', usage: 'search' });
+
 @Injectable()
 export class BaysService {
   constructor(
@@ -171,7 +174,11 @@ export class BaysService {
   }
 
   private assertNameFree(name: string, exceptId?: number): void {
-    const same = this.db.select().from(bays).where(eq(bays.name, name)).get();
-    if (same && same.id !== exceptId) throw new ConflictException(`There is already a bay called ${name}`);
+    const same = this.db
+      .select({ id: bays.id, name: bays.name })
+      .from(bays)
+      .all()
+      .find((bay) => bay.id !== exceptId && BAY_NAMES.compare(bay.name, name) === 0);
+    if (same) throw new ConflictException(`There is already a bay called ${same.name}`);
   }
 }

@@ -93,6 +93,20 @@ describe(BaysService.name, () => {
     expect((await placed).bayIds.at(-1)).toBe(bay9.id);
   });
 
+  it('refuses a name another bay has in other capitals, and lets a bay change the capitals of its own', async () => {
+    const bays = (await as(owner).get('/api/bays').expect(200)).body as BayDto[];
+    const bay1 = bays.find((b) => b.name === 'Bay 1')!;
+    const bay2 = bays.find((b) => b.name === 'Bay 2')!;
+    const refused = await as(owner).post('/api/bays', { name: ' bay 1 ' }).expect(409);
+    expect(refused.body.message).toBe('There is already a bay called Bay 1');
+    await as(owner).patch(`/api/bays/${bay2.id}`, { name: 'BAY 1' }).expect(409);
+    await as(owner).patch(`/api/bays/${bay1.id}`, { name: 'BAY 1' }).expect(200);
+    const after = (await as(owner).get('/api/bays').expect(200)).body as BayDto[];
+    expect(after.map((b) => b.name).sort()).toEqual(
+      bays.map((b) => (b.id === bay1.id ? 'BAY 1' : b.name)).sort(),
+    );
+  });
+
   it('refuses to retire a bay with work in it', async () => {
     const busy = (await board()).bays.find((b) => b.state === 'working')!;
     const refused = await as(owner).patch(`/api/bays/${busy.id}`, { active: false }).expect(409);

@@ -8,7 +8,7 @@ import {
   UnauthorizedException,
 } from '@nestjs/common';
 import { ThrottlerStorageService } from '@nestjs/throttler';
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq, isNull } from 'drizzle-orm';
 import { createHash, randomBytes } from 'node:crypto';
 import {
   INTEGRATION_KEY_PREFIX,
@@ -47,19 +47,21 @@ export class IntegrationKeysService {
   ) {}
 
   list(): IntegrationKeyDto[] {
-    return this.db
-      .select({ key: integrationKeys, createdByName: users.name })
-      .from(integrationKeys)
-      .leftJoin(users, eq(users.id, integrationKeys.createdBy))
+    return this.withCreator()
       .orderBy(desc(integrationKeys.createdAt), desc(integrationKeys.id))
       .all()
       .map(({ key, createdByName }) => toDto(key, createdByName));
   }
 
+  /** A revoked key's name is free again: a key is replaced by revoking it and making one of the same name. */
   @Transactional()
   create(body: CreateIntegrationKeyBody, actor: Principal, now = new Date()): CreatedIntegrationKey {
-    if (this.db.select().from(integrationKeys).where(eq(integrationKeys.name, body.name)).get())
-      throw new ConflictException('A key already has that name');
+    const taken = this.db
+      .select({ id: integrationKeys.id })
+      .from(integrationKeys)
+      .where(and(eq(integrationKeys.name, body.name), isNull(integrationKeys.revokedAt)))
+      .get();
+    if (taken) throw new ConflictException('A key in use already has that name');
     const secret = `${INTEGRATION_KEY_PREFIX}${randomBytes(32).toString('base64url')}`;
     const row = this.db
       .insert(integrationKeys)
@@ -85,11 +87,11 @@ export class IntegrationKeysService {
 
   @Transactional()
   revoke(id: number, actor: Principal, now = new Date()): IntegrationKeyDto {
-    const row = foundOrFail(
-      this.db.select().from(integrationKeys).where(eq(integrationKeys.id, id)).get(),
+    const { key: row, createdByName } = foundOrFail(
+      this.withCreator().where(eq(integrationKeys.id, id)).get(),
       'Integration key',
     );
-    if (row.revokedAt) return toDto(row, null);
+    if (row.revokedAt) return toDto(row, createdByName);
     const revoked = this.db
       .update(integrationKeys)
       .set({ revokedAt: now })
@@ -103,7 +105,14 @@ export class IntegrationKeysService {
       entityId: id,
       detail: { name: row.name },
     });
-    return toDto(revoked, null);
+    return toDto(revoked, createdByName);
+  }
+
+  private withCreator() {
+    return this.db
+      .select({ key: integrationKeys, createdByName: users.name })
+      .from(integrationKeys)
+      .leftJoin(users, eq(users.id, integrationKeys.createdBy));
   }
 
   /**

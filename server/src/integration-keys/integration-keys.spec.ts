@@ -161,6 +161,33 @@ describe(IntegrationKeysService.name, () => {
     await withKey('btk_not-a-key-at-all').get('/api/repair-orders').expect(401);
   });
 
+  it('replaces a key under the same name once the old one is revoked, and names who made a key revoked', async () => {
+    const revoke = async (id: number) =>
+      (await sut.http().delete(`/api/integration-keys/${id}`).auth(owner, { type: 'bearer' }).expect(200))
+        .body as IntegrationKeyDto;
+    const { key: old } = await makeKey('Parts ordering', ['repair-orders:read']);
+    const refused = await sut
+      .http()
+      .post('/api/integration-keys')
+      .auth(owner, { type: 'bearer' })
+      .send({ name: 'Parts ordering', scopes: ['repair-orders:read'] })
+      .expect(409);
+    expect(refused.body.message).toBe('A key in use already has that name');
+
+    const listed = (await sut.http().get('/api/integration-keys').auth(owner, { type: 'bearer' }))
+      .body as IntegrationKeyDto[];
+    const createdByName = listed.find((k) => k.id === old.id)!.createdByName;
+    expect(createdByName).not.toBeNull();
+    expect(await revoke(old.id)).toMatchObject({ id: old.id, createdByName });
+    expect(await revoke(old.id)).toMatchObject({ id: old.id, createdByName });
+
+    const { key: replacement, secret } = await makeKey('Parts ordering', ['repair-orders:read']);
+    expect(replacement.id).not.toBe(old.id);
+    await withKey(secret).get('/api/repair-orders?limit=1').expect(200);
+    await revoke(replacement.id);
+    await makeKey('Parts ordering', ['repair-orders:read']);
+  });
+
   it(`throttles a key past ${KEY_CALLS_PER_MINUTE} calls a minute`, async () => {
     const { secret } = await makeKey('Runaway loop', ['repair-orders:read']);
     for (let i = 0; i < KEY_CALLS_PER_MINUTE; i++)

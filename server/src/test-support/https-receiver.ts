@@ -18,6 +18,8 @@ export interface HttpsReceiver {
   received: ReceivedHook[];
   /** The statuses to answer, in order; 204 once they run out. */
   answers: number[];
+  /** Runs before a delivery is answered, while the sender still waits for the answer. */
+  beforeAnswer: ((hook: ReceivedHook) => Promise<void>) | null;
   /** Resolves with the first delivery, received or to come, that passes `match`; rejects after `timeoutMs`. */
   next: (match?: (hook: ReceivedHook) => boolean, timeoutMs?: number) => Promise<ReceivedHook>;
   close: () => Promise<void>;
@@ -48,9 +50,12 @@ export async function startHttpsReceiver(): Promise<HttpsReceiver> {
     const chunks: Buffer[] = [];
     request.on('data', (chunk: Buffer) => chunks.push(chunk));
     request.on('end', () => {
-      received.push({ headers: request.headers, body: Buffer.concat(chunks).toString('utf8') });
-      response.writeHead(answers.shift() ?? 204).end();
-      for (const wake of waiting.splice(0)) wake();
+      const hook = { headers: request.headers, body: Buffer.concat(chunks).toString('utf8') };
+      received.push(hook);
+      void Promise.resolve(receiver.beforeAnswer?.(hook)).then(() => {
+        response.writeHead(answers.shift() ?? 204).end();
+        for (const wake of waiting.splice(0)) wake();
+      });
     });
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -67,11 +72,12 @@ export async function startHttpsReceiver(): Promise<HttpsReceiver> {
       };
       look();
     });
-  return {
+  const receiver: HttpsReceiver = {
     url: `https://localhost:${port}/hooks`,
     caFile,
     received,
     answers,
+    beforeAnswer: null,
     next,
     close: async () => {
       server.closeAllConnections();
@@ -79,4 +85,5 @@ export async function startHttpsReceiver(): Promise<HttpsReceiver> {
       rmSync(dir, { recursive: true, force: true });
     },
   };
+  return receiver;
 }

@@ -6,7 +6,7 @@ import {
   type OnModuleDestroy,
 } from '@nestjs/common';
 import { Interval } from '@nestjs/schedule';
-import { and, asc, eq, lte } from 'drizzle-orm';
+import { and, asc, eq, isNull, lte } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
 import { request } from 'node:https';
 import { rootCertificates } from 'node:tls';
@@ -31,6 +31,10 @@ const TIMEOUT_MS = 10_000;
 const BATCH = 20;
 
 type DeliveryRow = typeof webhookDeliveries.$inferSelect;
+
+/** Still waiting, to an endpoint not stopped. */
+const sendable = () => and(eq(webhookDeliveries.status, 'pending'), isNull(webhooks.revokedAt));
+
 interface Answer {
   status: number | null;
   error: string | null;
@@ -87,18 +91,29 @@ export class WebhookDeliverer implements OnApplicationBootstrap, OnModuleDestroy
       .select({ delivery: webhookDeliveries, url: webhooks.url, secret: webhooks.secret })
       .from(webhookDeliveries)
       .innerJoin(webhooks, eq(webhooks.id, webhookDeliveries.webhookId))
-      .where(and(eq(webhookDeliveries.status, 'pending'), lte(webhookDeliveries.nextAttemptAt, now)))
+      .where(and(sendable(), lte(webhookDeliveries.nextAttemptAt, now)))
       .orderBy(asc(webhookDeliveries.nextAttemptAt), asc(webhookDeliveries.id))
       .limit(BATCH)
       .all();
     let delivered = 0;
     for (const { delivery, url, secret } of due) {
       if (this.stopped) break;
+      // The sends before this one took time: its endpoint may have been stopped meanwhile.
+      if (!this.stillSendable(delivery.id)) continue;
       const started = Date.now();
       const answer = await this.post(url, secret, delivery);
       if (this.record(delivery, answer, new Date(started), Date.now() - started)) delivered++;
     }
     return delivered;
+  }
+
+  private stillSendable(deliveryId: number): boolean {
+    return !!this.db
+      .select({ id: webhookDeliveries.id })
+      .from(webhookDeliveries)
+      .innerJoin(webhooks, eq(webhooks.id, webhookDeliveries.webhookId))
+      .where(and(eq(webhookDeliveries.id, deliveryId), sendable()))
+      .get();
   }
 
   private post(url: string, secret: string, delivery: DeliveryRow): Promise<Answer> {
@@ -149,7 +164,13 @@ export class WebhookDeliverer implements OnApplicationBootstrap, OnModuleDestroy
           deliveredAt: ok ? at : null,
           nextAttemptAt: ok || failed ? null : new Date(at.getTime() + retryDelayMs(attempts, WEBHOOK_RETRY)),
         })
-        .where(eq(webhookDeliveries.id, delivery.id))
+        // A delivery cancelled while its try was under way stays cancelled, unless that try got through.
+        .where(
+          and(
+            eq(webhookDeliveries.id, delivery.id),
+            ok ? undefined : eq(webhookDeliveries.status, 'pending'),
+          ),
+        )
         .run();
     });
     if (!ok)

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { count, desc, eq, inArray } from 'drizzle-orm';
+import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import { randomBytes } from 'node:crypto';
 import type {
   CreatedWebhook,
@@ -50,7 +50,10 @@ export class WebhooksService {
     return { webhook: toDto(row), secret };
   }
 
-  /** Stops new deliveries to the endpoint; ones already pending are still tried. */
+  /**
+   * Sends nothing more to the endpoint, pending deliveries included: an endpoint is stopped when its
+   * address is wrong or no longer trusted, and a retry would still reach it.
+   */
   @Transactional()
   revoke(id: number, actor: Principal, now = new Date()): WebhookDto {
     const row = foundOrFail(this.db.select().from(webhooks).where(eq(webhooks.id, id)).get(), 'Webhook');
@@ -61,12 +64,17 @@ export class WebhooksService {
       .where(eq(webhooks.id, id))
       .returning()
       .get()!;
+    const cancelled = this.db
+      .update(webhookDeliveries)
+      .set({ status: 'cancelled', nextAttemptAt: null })
+      .where(and(eq(webhookDeliveries.webhookId, id), eq(webhookDeliveries.status, 'pending')))
+      .run().changes;
     this.audit.record({
       actorId: actor.id,
       action: 'revoke',
       entity: 'webhook',
       entityId: id,
-      detail: { url: row.url },
+      detail: { url: row.url, cancelledDeliveries: cancelled },
     });
     return toDto(revoked);
   }

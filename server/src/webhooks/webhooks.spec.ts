@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   makeVin,
@@ -12,7 +12,7 @@ import {
 } from '@baytime/shared';
 import { createApp } from '../app.js';
 import { DB, type Db } from '../db/database.js';
-import { webhookDeliveries } from '../db/schema/index.js';
+import { auditLog, webhookDeliveries } from '../db/schema/index.js';
 import { startHttpsReceiver, type HttpsReceiver, type ReceivedHook } from '../test-support/https-receiver.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { WebhookDeliverer } from './webhook-deliverer.service.js';
@@ -271,4 +271,104 @@ describe('webhook deliveries outside the tests', () => {
     expect(log.items[0]!.attempts[0]).toMatchObject({ status: null, error: 'self-signed certificate' });
     expect(receiver.received).toEqual([]);
   });
+});
+
+describe('stopping a webhook endpoint', () => {
+  let receiver: HttpsReceiver;
+  let sut: TestApp;
+  let owner: string;
+
+  const register = async () =>
+    (
+      (
+        await sut
+          .http()
+          .post('/api/webhooks')
+          .auth(owner, { type: 'bearer' })
+          .send({ url: receiver.url, events: ['job-line.finished'] })
+          .expect(201)
+      ).body as CreatedWebhook
+    ).webhook.id;
+  const stop = (id: number) =>
+    sut.http().delete(`/api/webhooks/${id}`).auth(owner, { type: 'bearer' }).expect(200);
+  const logged = async (ids: number[]) =>
+    (
+      (await sut.http().get('/api/webhooks/deliveries').auth(owner, { type: 'bearer' }).expect(200))
+        .body as Page<WebhookDeliveryDto>
+    ).items
+      .filter((delivery) => ids.includes(delivery.id))
+      .sort((a, b) => a.id - b.id);
+  const sentTo = (ids: number[]) =>
+    receiver.received.filter((hook) => ids.includes(Number(header(hook, 'x-baytime-delivery'))));
+
+  beforeAll(async () => {
+    receiver = await startHttpsReceiver();
+    sut = await startTestApp({ BAYTIME_WEBHOOK_CA_FILE: receiver.caFile });
+    owner = await sut.signIn(DEMO.owner);
+  });
+  afterAll(async () => {
+    await sut.close();
+    await receiver.close();
+  });
+
+  it('cancels the deliveries still waiting for it, and never tries them again', async () => {
+    const deliverer = sut.app.get(WebhookDeliverer);
+    const webhookId = await register();
+    receiver.answers.push(503);
+    await finishOpenLine(sut);
+    const id = Number(header(await receiver.next(), 'x-baytime-delivery'));
+    // The failed try is written down before the endpoint is stopped.
+    await deliverer.flush(new Date(0));
+    await stop(webhookId);
+
+    const [cancelled] = await logged([id]);
+    expect(cancelled).toMatchObject({ status: 'cancelled', nextAttemptAt: null });
+    expect(cancelled!.attempts.map((a) => a.status)).toEqual([503]);
+    expect(await deliverer.flush(new Date(Date.now() + 2 * 24 * 3600_000))).toBe(0);
+    expect(sentTo([id])).toHaveLength(1);
+    const audited = sut.app
+      .get<Db>(DB)
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entity, 'webhook'), eq(auditLog.action, 'revoke')))
+      .get()!;
+    expect(audited.detail).toEqual({ url: receiver.url, cancelledDeliveries: 1 });
+  });
+
+  it.each([
+    [503, 'cancelled'],
+    [204, 'delivered'],
+  ] as const)(
+    'sends nothing more of a batch once its endpoint is stopped; the try under way answered %i ends %s',
+    async (answer, firstStatus) => {
+      const webhookId = await register();
+      const now = new Date();
+      const due = {
+        webhookId,
+        event: 'job-line.finished' as const,
+        body: '{}',
+        nextAttemptAt: now,
+        createdAt: now,
+      };
+      const ids = sut.app
+        .get<Db>(DB)
+        .insert(webhookDeliveries)
+        .values([due, due])
+        .returning({ id: webhookDeliveries.id })
+        .all()
+        .map((row) => row.id);
+      receiver.answers.push(answer);
+      receiver.beforeAnswer = async () => {
+        receiver.beforeAnswer = null;
+        await stop(webhookId);
+      };
+
+      await sut.app.get(WebhookDeliverer).flush();
+      expect(sentTo(ids).map((hook) => Number(header(hook, 'x-baytime-delivery')))).toEqual([ids[0]]);
+      expect((await logged(ids)).map((d) => [d.status, d.attempts.map((a) => a.status)])).toEqual([
+        [firstStatus, [answer]],
+        ['cancelled', []],
+      ]);
+    },
+  );
 });

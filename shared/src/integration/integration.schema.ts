@@ -126,7 +126,8 @@ export interface CreatedWebhook {
   secret: string;
 }
 
-export const WEBHOOK_DELIVERY_STATUSES = ['pending', 'delivered', 'failed'] as const;
+/** `cancelled`: the endpoint was stopped before the delivery got through; it is never tried again. */
+export const WEBHOOK_DELIVERY_STATUSES = ['pending', 'delivered', 'failed', 'cancelled'] as const;
 export type WebhookDeliveryStatus = (typeof WEBHOOK_DELIVERY_STATUSES)[number];
 
 /** One try to deliver one event to one endpoint. */

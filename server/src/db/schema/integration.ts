@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { sqliteTable, integer, text, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import {
   WEBHOOK_DELIVERY_STATUSES,
@@ -26,7 +27,10 @@ export const integrationKeys = sqliteTable(
   },
   (t) => [
     uniqueIndex('integration_keys_secret_hash_idx').on(t.secretHash),
-    uniqueIndex('integration_keys_name_idx').on(t.name),
+    // A revoked key keeps its name, so the key that replaces it can take the same one.
+    uniqueIndex('integration_keys_active_name_idx')
+      .on(t.name)
+      .where(sql`${t.revokedAt} is null`),
   ],
 );
 

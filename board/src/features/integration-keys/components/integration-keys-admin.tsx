@@ -5,12 +5,6 @@ import {
   Button,
   Caption1,
   Card,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
   Field,
   Input,
   MessageBar,
@@ -35,6 +29,7 @@ import {
   type IntegrationScope,
 } from '@baytime/shared';
 import { CheckboxGroup } from '@/components/checkbox-group';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { shopDateTime } from '@/lib/date-format';
 import { useCreateIntegrationKey } from '../api/create-integration-key';
@@ -148,33 +143,17 @@ function RevokeDialog({
 }) {
   const revoke = useRevokeIntegrationKey();
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()}>
-      <DialogSurface>
-        <DialogBody>
-          <DialogTitle>Revoke “{integrationKey.name}”?</DialogTitle>
-          <DialogContent>
-            <Body1>
-              Every call made with it is refused from now on. This cannot be undone: make a new key instead.
-            </Body1>
-            {revoke.isError && (
-              <MessageBar intent="error">
-                <MessageBarBody>{formErrorText(revoke.error)}</MessageBarBody>
-              </MessageBar>
-            )}
-          </DialogContent>
-          <DialogActions>
-            <Button onClick={onClose}>Keep it</Button>
-            <Button
-              appearance="primary"
-              disabled={revoke.isPending}
-              onClick={() => revoke.mutate(integrationKey.id, { onSuccess: onClose })}
-            >
-              {revoke.isPending ? 'Revoking…' : 'Revoke key'}
-            </Button>
-          </DialogActions>
-        </DialogBody>
-      </DialogSurface>
-    </Dialog>
+    <ConfirmDialog
+      title={`Revoke “${integrationKey.name}”?`}
+      confirmLabel="Revoke key"
+      pendingLabel="Revoking…"
+      pending={revoke.isPending}
+      error={revoke.isError ? formErrorText(revoke.error) : null}
+      onConfirm={() => revoke.mutate(integrationKey.id, { onSuccess: onClose })}
+      onClose={onClose}
+    >
+      Every call made with it is refused from now on. This cannot be undone: make a new key instead.
+    </ConfirmDialog>
   );
 }
 

@@ -5,12 +5,6 @@ import {
   Button,
   Caption1,
   Card,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
   Field,
   Input,
   Link,
@@ -32,6 +26,7 @@ import { paths } from '@/config/paths';
 import { dateTimeFormat } from '@/lib/date-format';
 import { formErrorText } from '@/lib/form-errors';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { FormErrorBar } from '@/components/form-error-bar';
 import { useCreateScreen } from '../api/create-screen';
 import { useScreens, type DeviceKind, type WallScreenDto } from '../api/get-screens';
@@ -197,33 +192,18 @@ function RevokeDialog({
   onClose: () => void;
 }) {
   const revoke = useRevokeScreen(kind);
-  const paired = screen.pairedAt !== null;
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()}>
-      <DialogSurface>
-        <DialogBody>
-          <DialogTitle>Revoke “{screen.name}”?</DialogTitle>
-          <DialogContent>
-            <Body1>{paired ? WORDS[kind].revoked : WORDS[kind].unpaired}</Body1>
-            {revoke.isError && (
-              <MessageBar intent="error" style={{ marginTop: tokens.spacingVerticalM }}>
-                <MessageBarBody>{formErrorText(revoke.error)}</MessageBarBody>
-              </MessageBar>
-            )}
-          </DialogContent>
-          <DialogActions>
-            <Button onClick={onClose}>Keep it</Button>
-            <Button
-              appearance="primary"
-              disabled={revoke.isPending}
-              onClick={() => revoke.mutate(screen.id, { onSuccess: onClose })}
-            >
-              {revoke.isPending ? 'Revoking…' : WORDS[kind].revoke}
-            </Button>
-          </DialogActions>
-        </DialogBody>
-      </DialogSurface>
-    </Dialog>
+    <ConfirmDialog
+      title={`Revoke “${screen.name}”?`}
+      confirmLabel={WORDS[kind].revoke}
+      pendingLabel="Revoking…"
+      pending={revoke.isPending}
+      error={revoke.isError ? formErrorText(revoke.error) : null}
+      onConfirm={() => revoke.mutate(screen.id, { onSuccess: onClose })}
+      onClose={onClose}
+    >
+      {screen.pairedAt !== null ? WORDS[kind].revoked : WORDS[kind].unpaired}
+    </ConfirmDialog>
   );
 }
 

@@ -26,11 +26,13 @@ import {
   WEBHOOK_EVENTS,
   type CreatedWebhook,
   type WebhookDeliveryStatus,
+  type WebhookDto,
   type WebhookEvent,
 } from '@baytime/shared';
 import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form-errors';
 import { shopDateTime } from '@/lib/date-format';
 import { CheckboxGroup } from '@/components/checkbox-group';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { useCreateWebhook } from '../api/create-webhook';
 import { useWebhookDeliveries } from '../api/get-webhook-deliveries';
 import { useWebhooks } from '../api/get-webhooks';
@@ -43,15 +45,17 @@ const EVENT_WORDS: Record<WebhookEvent, string> = {
   'pay-week.closed': 'A pay week is closed',
 };
 
-const STATUS_BADGE: Record<WebhookDeliveryStatus, 'brand' | 'important' | 'danger'> = {
+const STATUS_BADGE: Record<WebhookDeliveryStatus, 'brand' | 'important' | 'danger' | 'informative'> = {
   delivered: 'brand',
   pending: 'important',
   failed: 'danger',
+  cancelled: 'informative',
 };
 const STATUS_WORDS: Record<WebhookDeliveryStatus, string> = {
   delivered: 'Delivered',
   pending: 'Retrying',
   failed: 'Gave up',
+  cancelled: 'Cancelled: endpoint stopped',
 };
 
 const useStyles = makeStyles({
@@ -142,12 +146,31 @@ export function CreateWebhookCard() {
   );
 }
 
+function StopDialog({ webhook, onClose }: { webhook: WebhookDto; onClose: () => void }) {
+  const revoke = useRevokeWebhook();
+  return (
+    <ConfirmDialog
+      title={`Stop sending to ${webhook.url}?`}
+      confirmLabel="Stop and drop pending deliveries"
+      pendingLabel="Stopping…"
+      keepLabel="Keep sending"
+      pending={revoke.isPending}
+      error={revoke.isError ? formErrorText(revoke.error) : null}
+      onConfirm={() => revoke.mutate(webhook.id, { onSuccess: onClose })}
+      onClose={onClose}
+    >
+      No event goes to this address from now on, and deliveries still waiting to be sent or retried there are
+      dropped. This cannot be undone: register the address again to start over.
+    </ConfirmDialog>
+  );
+}
+
 /** Every time on it is shop time. */
 export function WebhooksTable({ timeZone }: { timeZone: string | undefined }) {
   const at = shopDateTime(timeZone, true);
   const styles = useStyles();
   const webhooks = useWebhooks();
-  const revoke = useRevokeWebhook();
+  const [stopping, setStopping] = useState<WebhookDto | null>(null);
   if (webhooks.isPending) return <Spinner label="Loading endpoints…" />;
   if (webhooks.isError)
     return (
@@ -157,46 +180,48 @@ export function WebhooksTable({ timeZone }: { timeZone: string | undefined }) {
     );
   if (webhooks.data.length === 0) return <Body1 className={styles.dim}>No endpoints yet.</Body1>;
   return (
-    <Table aria-label="Webhook endpoints" className={styles.table}>
-      <TableHeader>
-        <TableRow>
-          <TableHeaderCell>Address</TableHeaderCell>
-          <TableHeaderCell>Events</TableHeaderCell>
-          <TableHeaderCell>Registered</TableHeaderCell>
-          <TableHeaderCell>
-            <span className="visually-hidden">Actions</span>
-          </TableHeaderCell>
-        </TableRow>
-      </TableHeader>
-      <TableBody>
-        {webhooks.data.map((webhook) => (
-          <TableRow key={webhook.id}>
-            <TableCell>{webhook.url}</TableCell>
-            <TableCell>{webhook.events.join(', ')}</TableCell>
-            <TableCell>
-              {at(webhook.createdAt)}{' '}
-              {webhook.revokedAt && (
-                <Badge appearance="tint" color="danger">
-                  Stopped {at(webhook.revokedAt)}
-                </Badge>
-              )}
-            </TableCell>
-            <TableCell>
-              {!webhook.revokedAt && (
-                <Button
-                  size="small"
-                  disabled={revoke.isPending}
-                  onClick={() => revoke.mutate(webhook.id)}
-                  aria-label={`Stop sending to ${webhook.url}`}
-                >
-                  Stop sending
-                </Button>
-              )}
-            </TableCell>
+    <>
+      <Table aria-label="Webhook endpoints" className={styles.table}>
+        <TableHeader>
+          <TableRow>
+            <TableHeaderCell>Address</TableHeaderCell>
+            <TableHeaderCell>Events</TableHeaderCell>
+            <TableHeaderCell>Registered</TableHeaderCell>
+            <TableHeaderCell>
+              <span className="visually-hidden">Actions</span>
+            </TableHeaderCell>
           </TableRow>
-        ))}
-      </TableBody>
-    </Table>
+        </TableHeader>
+        <TableBody>
+          {webhooks.data.map((webhook) => (
+            <TableRow key={webhook.id}>
+              <TableCell>{webhook.url}</TableCell>
+              <TableCell>{webhook.events.join(', ')}</TableCell>
+              <TableCell>
+                {at(webhook.createdAt)}{' '}
+                {webhook.revokedAt && (
+                  <Badge appearance="tint" color="danger">
+                    Stopped {at(webhook.revokedAt)}
+                  </Badge>
+                )}
+              </TableCell>
+              <TableCell>
+                {!webhook.revokedAt && (
+                  <Button
+                    size="small"
+                    onClick={() => setStopping(webhook)}
+                    aria-label={`Stop sending to ${webhook.url}`}
+                  >
+                    Stop sending…
+                  </Button>
+                )}
+              </TableCell>
+            </TableRow>
+          ))}
+        </TableBody>
+      </Table>
+      {stopping && <StopDialog webhook={stopping} onClose={() => setStopping(null)} />}
+    </>
   );
 }
 
