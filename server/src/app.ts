@@ -24,6 +24,10 @@ export async function createApp(
   // Helmet would only take back the X-Powered-By set for each request.
   app.set('etag', () => undefined);
   app.disable('x-powered-by');
+  // Behind a reverse proxy on this machine (the shop's HTTPS), each tablet's own address comes in
+  // X-Forwarded-For: sign-in throttling counts per tablet, not one count for the whole shop. Only a
+  // proxy on this machine is believed, so no tablet can pass for another.
+  app.set('trust proxy', 'loopback');
   app.use(
     helmet({
       // Shop tablets reach the server over plain http on the LAN: no https upgrade, no HSTS.

@@ -111,6 +111,28 @@ describe(SignInThrottle.name, () => {
     expect(locked.body.message).toBe('Too many wrong tries. Try again in 1 minute.');
   });
 
+  it('forgets an address’s wrong tries a quarter of an hour after the first: slips through a day lock no one', async () => {
+    // The morning's slips: 19 wrong tries from this tablet, none of the badges at its own limit.
+    for (const badge of ['1041', '1042', '1043', '1044'])
+      for (let i = 0; i < 4; i++) await wrongPin(badge).expect(401);
+    for (let i = 0; i < 3; i++) await wrongPin('1045').expect(401);
+    expect(row('ip:127.0.0.1')?.failures).toBe(19);
+    vi.setSystemTime(Date.now() + 16 * MINUTE);
+    // The afternoon's: four more from Sam, then his right PIN.
+    for (let i = 0; i < 4; i++) await wrongPin('1046').expect(401);
+    await rightPin('1046').expect(200);
+    expect(row('ip:127.0.0.1')).toMatchObject({ failures: 4, lockStep: 0 });
+  });
+
+  it('counts each tablet behind a reverse proxy on this machine by the address the proxy passes on', async () => {
+    const from = (address: string, badge: string, pin: string) =>
+      sut.http().post('/api/auth/badge').set('x-forwarded-for', address).send({ badge, pin });
+    for (const badge of ['1041', '1042', '1043', '1044'])
+      for (let i = 0; i < 5; i++) await from('192.0.2.7', badge, '0000').expect(401);
+    await from('192.0.2.7', '1046', '4321').expect(429);
+    await from('192.0.2.8', '1046', '4321').expect(200);
+  });
+
   it('counts loopback and IPv4-mapped addresses as one client', async () => {
     const throttle = sut.app.get(SignInThrottle);
     const forms = ['127.0.0.1', '::1', '::ffff:127.0.0.1', '0:0:0:0:0:0:0:1', '::ffff:7f00:1'];

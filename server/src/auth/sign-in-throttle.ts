@@ -14,6 +14,11 @@ const FIRST_LOCK_MS = 60_000;
 const LONGEST_LOCK_MS = 60 * 60_000;
 /** A key with no attempt for this long starts afresh. */
 const QUIET_RESET_MS = 24 * 60 * 60_000;
+/**
+ * An address's wrong tries count within a window of this length from its first try: a tablet that ten
+ * people use all day gathers a few slips, which must not add up to a lock for everyone by the afternoon.
+ */
+const ADDRESS_WINDOW_MS = 15 * 60_000;
 
 type Row = typeof signInThrottles.$inferSelect;
 
@@ -58,7 +63,7 @@ export class SignInThrottle {
   ): Promise<T | null> {
     const keys = new Map([
       [account, ACCOUNT_LIMIT],
-      [`ip:${clientAddressKey(rawAddress)}`, ADDRESS_LIMIT],
+      [addressKey(rawAddress), ADDRESS_LIMIT],
     ]);
     for (;;) {
       const admitted = this.admit(keys, Date.now());
@@ -95,7 +100,12 @@ export class SignInThrottle {
       for (const key of keys.keys()) {
         const row = rows.get(key);
         this.inFlight.set(key, (this.inFlight.get(key) ?? 0) + 1);
-        this.write(key, { ...this.fresh(row, now), failures: (row?.failures ?? 0) + 1 });
+        // An address's row keeps the time its window began.
+        this.write(key, {
+          ...this.fresh(row, now),
+          failures: (row?.failures ?? 0) + 1,
+          ...(isAddress(key) && row && { lastAttemptAt: row.lastAttemptAt }),
+        });
       }
       return true;
     });
@@ -137,10 +147,16 @@ export class SignInThrottle {
     return lockedUntil;
   }
 
-  /** The key's row, or none once it has been quiet for a day. */
+  /**
+   * The key's row, or none once it has been quiet for a day. An address whose window has passed starts a
+   * new one now, its wrong tries forgotten and its lock step kept.
+   */
   private row(key: string, now: number): Row | undefined {
     const row = this.db.select().from(signInThrottles).where(eq(signInThrottles.key, key)).get();
-    return row && now - row.lastAttemptAt.getTime() <= QUIET_RESET_MS ? row : undefined;
+    if (!row || now - row.lastAttemptAt.getTime() > QUIET_RESET_MS) return undefined;
+    if (isAddress(key) && now - row.lastAttemptAt.getTime() > ADDRESS_WINDOW_MS)
+      return { ...row, failures: 0, lastAttemptAt: new Date(now) };
+    return row;
   }
 
   private fresh(row: Row | undefined, now: number): Omit<Row, 'key'> {
@@ -170,6 +186,10 @@ export class SignInThrottle {
       .run();
   }
 }
+
+const ADDRESS_PREFIX = 'ip:';
+const addressKey = (raw: string | undefined) => `${ADDRESS_PREFIX}${clientAddressKey(raw)}`;
+const isAddress = (key: string) => key.startsWith(ADDRESS_PREFIX);
 
 function tooManyTries(waitMs: number): RetryLaterException {
   return new RetryLaterException(
