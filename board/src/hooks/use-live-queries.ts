@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { LIVE_EVENT_NAMES, type LiveEventName, type ServerToClientEvents } from '@baytime/shared';
 import type { LiveLink } from '@baytime/shared/client';
@@ -9,7 +9,7 @@ import {
   type RefreshScheduler,
 } from '@/lib/live-queries';
 import { mutationKeys, queryKeys } from '@/lib/query-keys';
-import { useOfficeLink } from '@/lib/socket';
+import { useOfficeLink, whenLive } from '@/lib/socket';
 
 function follow<E extends LiveEventName>(link: LiveLink, event: E, scheduler: RefreshScheduler): () => void {
   const handler = ((payload: Parameters<ServerToClientEvents[E]>[0]) =>
@@ -24,6 +24,7 @@ function follow<E extends LiveEventName>(link: LiveLink, event: E, scheduler: Re
 export function useLiveQueries(): void {
   const link = useOfficeLink();
   const queryClient = useQueryClient();
+  const previous = useRef<LiveLink | null>(null);
   useEffect(() => {
     if (!link) return;
     const dispatchRoot = queryKeys.dispatch()[0];
@@ -35,6 +36,11 @@ export function useLiveQueries(): void {
     });
     const offs = LIVE_EVENT_NAMES.map((event) => follow(link, event, scheduler));
     offs.push(link.onReconnect(() => scheduler.mark(RECONNECT_QUERIES)));
+    // A renewed sign-in opens a new link in place of the last: once it is up, what was sent between the
+    // two is fetched again.
+    if (previous.current && previous.current !== link)
+      offs.push(whenLive(link, () => scheduler.mark(RECONNECT_QUERIES)));
+    previous.current = link;
     return () => {
       for (const off of offs) off();
       scheduler.dispose();

@@ -39,6 +39,20 @@ function officeLink(): LiveLink | null {
   return link;
 }
 
+/** Runs `action` once the link is live, at once if it already is; returns the way to stop waiting. */
+export function whenLive(link: Pick<LiveLink, 'getState' | 'subscribe'>, action: () => void): () => void {
+  if (link.getState().status === 'live') {
+    action();
+    return () => {};
+  }
+  const stop = link.subscribe(() => {
+    if (link.getState().status !== 'live') return;
+    stop();
+    action();
+  });
+  return stop;
+}
+
 export function useOfficeLink(): LiveLink | null {
   return useSyncExternalStore(officeToken.subscribe, officeLink, officeLink);
 }

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Ip, Post, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, Headers, HttpCode, Ip, Post, UseGuards } from '@nestjs/common';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
 import {
   badgeLoginSchema,
@@ -10,7 +10,8 @@ import {
   type PairScreenBody,
   type SignInAnswer,
 } from '@baytime/shared';
-import { CurrentUser, Public } from '../common/decorators/auth.decorators.js';
+import { CurrentUser, Public, Roles } from '../common/decorators/auth.decorators.js';
+import { bearerToken } from '../common/guards/auth.guard.js';
 import { AuthService } from './auth.service.js';
 import type { Principal } from './principal.js';
 
@@ -52,6 +53,14 @@ export class AuthController {
   @HttpCode(200)
   pairKiosk(@Body({ schema: pairScreenSchema }) body: PairScreenBody): { accessToken: string } {
     return this.auth.pairScreen(body, 'kiosk');
+  }
+
+  /** A fresh token for an office sign-in in use, so a long day does not end on the sign-in page. */
+  @Roles('owner', 'foreman', 'advisor')
+  @Post('auth/renew')
+  @HttpCode(200)
+  renew(@Headers('authorization') authorization: string | undefined): SignInAnswer {
+    return this.auth.renew(bearerToken(authorization));
   }
 
   @Get('me')

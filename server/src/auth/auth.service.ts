@@ -1,4 +1,4 @@
-import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
+import { ForbiddenException, Inject, Injectable, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { Subject } from 'rxjs';
 import { and, eq, isNull, sql } from 'drizzle-orm';
@@ -17,6 +17,12 @@ import type { Principal, TokenPayload } from './principal.js';
 import { SignInThrottle } from './sign-in-throttle.js';
 
 const OFFICE_TOKEN_TTL = '12h';
+/**
+ * An office sign-in is renewed while in use for this long after the password was given, and the last
+ * renewal's token still runs its 12 hours: a day's work, however long, never meets the sign-in page,
+ * and a computer left signed in asks for the password again by the next morning.
+ */
+const OFFICE_RENEWALS_MS = 12 * 3_600_000;
 const KIOSK_TOKEN_TTL = '2h';
 /** A wall screen or kiosk stays paired until the owner revokes it. */
 const DISPLAY_TOKEN_TTL = '3650d';
@@ -27,8 +33,12 @@ const DEVICE_ROLE = { wall: 'display', kiosk: 'kiosk' } as const satisfies Recor
   Principal['role']
 >;
 
-/** A token checked: the caller and when the token runs out (ms), or why it is refused. */
-export type TokenCheck = { principal: Principal; expiresAt: number } | { refusal: LiveRefusalReason };
+/**
+ * A token checked: the caller, when the token runs out (ms) and, for an office sign-in, when the
+ * password was given (ms); or why it is refused.
+ */
+export type TokenCheck =
+  { principal: Principal; expiresAt: number; signedInAt?: number } | { refusal: LiveRefusalReason };
 
 @Injectable()
 export class AuthService {
@@ -58,7 +68,20 @@ export class AuthService {
       return row && ok && row.active && row.role !== 'technician' ? row : null;
     });
     if (!user) throw new UnauthorizedException('E-mail or password not recognised');
-    return this.answer(user, OFFICE_TOKEN_TTL);
+    return this.answer(user, OFFICE_TOKEN_TTL, Math.floor(Date.now() / 1000));
+  }
+
+  /**
+   * A fresh office token of the same lifetime for the caller of `token`, checked as any request is;
+   * refused once the sign-in is older than OFFICE_RENEWALS_MS (or was never an office one).
+   */
+  renew(token: string | undefined, now = Date.now()): SignInAnswer {
+    const checked = this.check(token, now);
+    if (!('principal' in checked)) throw new UnauthorizedException();
+    const { principal, signedInAt } = checked;
+    if (signedInAt === undefined || now - signedInAt >= OFFICE_RENEWALS_MS)
+      throw new ForbiddenException('This sign-in can no longer be renewed: sign in again');
+    return this.answer(principal, OFFICE_TOKEN_TTL, signedInAt / 1000);
   }
 
   async badge({ badge, pin }: BadgeLoginBody, ip: string | undefined): Promise<SignInAnswer> {
@@ -121,7 +144,8 @@ export class AuthService {
     if (typeof caller === 'string') return { refusal: caller };
     if (typeof payload.exp !== 'number') return { refusal: 'token-no-expiry' };
     if (payload.exp * 1000 <= now) return { refusal: 'token-expired' };
-    return { principal: caller, expiresAt: payload.exp * 1000 };
+    const signedInAt = payload.signedInAt === undefined ? undefined : payload.signedInAt * 1000;
+    return { principal: caller, expiresAt: payload.exp * 1000, signedInAt };
   }
 
   private callerOf(payload: TokenPayload): Principal | LiveRefusalReason {
@@ -140,8 +164,9 @@ export class AuthService {
   private answer(
     user: { id: number; name: string; role: Principal['role'] },
     expiresIn: string,
+    signedInAt?: number,
   ): SignInAnswer {
-    const payload: TokenPayload = { sub: user.id, role: user.role };
+    const payload: TokenPayload = { sub: user.id, role: user.role, signedInAt };
     return {
       accessToken: this.jwt.sign(payload, { expiresIn: expiresIn as '1h' }),
       user: { id: user.id, name: user.name, role: user.role },

@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
+import type { CreatedIntegrationKey } from '@baytime/shared';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { AuthService } from './auth.service.js';
 
@@ -115,6 +117,106 @@ describe(AuthService.name, () => {
       const { body } = await sut.http().get('/api/me').set('authorization', authorization).expect(401);
       expect(body).toEqual({ message: 'Unauthorized', statusCode: 401 });
     }
+  });
+
+  describe('renewing an office sign-in', () => {
+    const HOUR_S = 3600;
+    const nowS = () => Math.floor(Date.now() / 1000);
+    const claims = (token: string) =>
+      new JwtService({}).decode<{ sub: number; role: string; exp: number; signedInAt?: number }>(token);
+    /** An owner's token as the server signs them, signed in `ago` seconds back and running `left` more. */
+    const ownerToken = (ago: number, left: number, signedIn = true) =>
+      new JwtService({ secret: sut.config.jwtSecret }).sign(
+        { sub: 1, role: 'owner', ...(signedIn && { signedInAt: nowS() - ago }) },
+        { expiresIn: left },
+      );
+    const renew = (token: string) => sut.http().post('/api/auth/renew').auth(token, { type: 'bearer' });
+
+    it('answers a token of the full 12 hours for the same person, kept from the same sign-in', async () => {
+      const old = ownerToken(9 * HOUR_S, 3 * HOUR_S);
+      const { body } = await renew(old).expect(200);
+      expect(body.user).toEqual({ id: 1, name: expect.any(String), role: 'owner' });
+      const renewed = claims(body.accessToken);
+      expect(renewed.exp).toBeGreaterThan(claims(old).exp + 8 * HOUR_S);
+      expect(renewed.exp - nowS()).toBeGreaterThan(12 * HOUR_S - 60);
+      expect(renewed.signedInAt).toBe(claims(old).signedInAt);
+      const me = await sut.http().get('/api/me').auth(body.accessToken, { type: 'bearer' }).expect(200);
+      expect(me.body).toEqual(body.user);
+
+      const signedIn = await sut.signIn(DEMO.advisor);
+      const again = await renew(signedIn).expect(200);
+      expect(again.body.user.role).toBe('advisor');
+    });
+
+    it('stops renewing 12 hours after the password was given', async () => {
+      await renew(ownerToken(12 * HOUR_S - 60, HOUR_S)).expect(200);
+      const { body } = await renew(ownerToken(12 * HOUR_S + 60, HOUR_S)).expect(403);
+      expect(body.message).toMatch(/can no longer be renewed/);
+      // A token signed before sign-ins carried their time cannot say how old the sign-in is.
+      await renew(ownerToken(0, HOUR_S, false)).expect(403);
+    });
+
+    it('refuses wall screens, kiosks, technicians and integration keys', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const paired = async (devices: 'screens' | 'kiosks') => {
+        const { body } = await sut
+          .http()
+          .post(`/api/${devices}`)
+          .auth(owner, { type: 'bearer' })
+          .send({ name: `Renewal ${devices}` })
+          .expect(201);
+        const pairing = await sut.http().post(`/api/auth/${devices}/pair`).send({ code: body.code });
+        return pairing.body.accessToken as string;
+      };
+      const key = (
+        await sut
+          .http()
+          .post('/api/integration-keys')
+          .auth(owner, { type: 'bearer' })
+          .send({ name: 'Renewal system', scopes: ['reports:read'] })
+          .expect(201)
+      ).body as CreatedIntegrationKey;
+      const technician = (await sut.badge('1043')).accessToken;
+      for (const token of [await paired('screens'), await paired('kiosks'), key.secret, technician])
+        await renew(token).expect(403);
+    });
+
+    it('refuses an expired token, a deactivated person and a changed role with 401', async () => {
+      const expired = ownerToken(13 * HOUR_S, -10);
+      await renew(expired).expect(401);
+      expect(() => sut.app.get(AuthService).renew(expired)).toThrow(UnauthorizedException);
+      const owner = await sut.signIn(DEMO.owner);
+      const person = async (email: string) => {
+        const { body: user } = await sut
+          .http()
+          .post('/api/users')
+          .auth(owner, { type: 'bearer' })
+          .send({ name: 'Ada Counter', role: 'advisor', email, password: 'a-long-secret-2' })
+          .expect(201);
+        const { body } = await sut
+          .http()
+          .post('/api/auth/login')
+          .send({ email, password: 'a-long-secret-2' })
+          .expect(200);
+        return { id: user.id as number, token: body.accessToken as string };
+      };
+      const leaving = await person('leaving@example.test');
+      const moving = await person('moving@example.test');
+      await sut
+        .http()
+        .patch(`/api/users/${leaving.id}`)
+        .auth(owner, { type: 'bearer' })
+        .send({ active: false })
+        .expect(200);
+      await sut
+        .http()
+        .patch(`/api/users/${moving.id}`)
+        .auth(owner, { type: 'bearer' })
+        .send({ role: 'foreman' })
+        .expect(200);
+      await renew(leaving.token).expect(401);
+      await renew(moving.token).expect(401);
+    });
   });
 
   it('does not let an owner lock themself out', async () => {

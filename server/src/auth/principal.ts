@@ -17,4 +17,6 @@ export interface TokenPayload {
   role: Role;
   /** Seconds since the epoch; every token this server signs has one, and one without is refused. */
   exp?: number;
+  /** An office token's: when the password was given (seconds since the epoch), kept by its renewals. */
+  signedInAt?: number;
 }

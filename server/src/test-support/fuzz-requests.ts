@@ -255,6 +255,44 @@ const query = (fields: Record<string, Arbitrary<unknown>>) =>
     requiredKeys: [],
   });
 
+const SHOP_FIELDS = {
+  name: text(80, ['Marlow Creek Auto Care']),
+  timeZone: fc.constantFrom(
+    'America/Chicago',
+    'America/Los_Angeles',
+    'America/St_Johns',
+    'Pacific/Chatham',
+    'Pacific/Kiritimati',
+    'Asia/Kathmandu',
+    'Australia/Lord_Howe',
+    'Etc/GMT+12',
+    'UTC',
+    'Nowhere/Atlantis',
+  ),
+  workweekStartDay: fc.integer({ min: 0, max: 6 }),
+  workweekStartHour: fc.integer({ min: 0, max: 23 }),
+  units: fc.constantFrom('metric', 'us'),
+  clockFormat: fc.constantFrom('12h', '24h'),
+  maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
+  concurrentSplit: fc.constantFrom('even', 'full'),
+  minimumWageCents: fc.integer({ min: 725, max: 10_000 }),
+  overtimeRules: fc.constantFrom('federal', 'california'),
+  openingHours,
+  kioskIdleSeconds: fc.integer({ min: 15, max: 600 }),
+  payNonProductiveSeparately: fc.boolean(),
+  techniciansTakeUnassigned: fc.boolean(),
+  localMinimumWageCents: fc.oneof(fc.integer({ min: 725, max: 10_000 }), fc.constant(null)),
+  minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
+  longShiftHours: fc.integer({ min: 8, max: 24 }),
+  minimumClockedMinutesForDone: fc.integer({ min: 0, max: 120 }),
+  minimumClockedHoursForEfficiency: fc.integer({ min: 0, max: 200 }),
+  apportionSpanningLines: fc.boolean(),
+  kioskShowsPay: fc.boolean(),
+  payRulesFrom: localDate,
+};
+/** The settings that say which hours fall in which pay week. */
+const WEEK_FIELDS = ['timeZone', 'workweekStartDay', 'workweekStartHour'];
+
 /** Keyed by method and route path as Express lists it. Routes not listed here get ids and bodies of junk. */
 export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/auth/login': {
@@ -279,6 +317,7 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
     ),
   },
   'post /api/auth/screens/pair': { body: body({ code: text(8, ['ABC123', 'abc123', 'ZZZZZZ']) }, ['code']) },
+  'post /api/auth/renew': { body: fc.constant({}) },
   'post /api/users': {
     body: body(
       {
@@ -341,41 +380,12 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/screens': { body: body({ name: text(60, ['Paint shop TV']) }, ['name']) },
   'delete /api/screens/:id': { id: 'otherScreen' },
   'patch /api/shop': {
-    body: body({
-      name: text(80, ['Marlow Creek Auto Care']),
-      timeZone: fc.constantFrom(
-        'America/Chicago',
-        'America/Los_Angeles',
-        'America/St_Johns',
-        'Pacific/Chatham',
-        'Pacific/Kiritimati',
-        'Asia/Kathmandu',
-        'Australia/Lord_Howe',
-        'Etc/GMT+12',
-        'UTC',
-        'Nowhere/Atlantis',
-      ),
-      workweekStartDay: fc.integer({ min: 0, max: 6 }),
-      workweekStartHour: fc.integer({ min: 0, max: 23 }),
-      units: fc.constantFrom('metric', 'us'),
-      clockFormat: fc.constantFrom('12h', '24h'),
-      maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
-      concurrentSplit: fc.constantFrom('even', 'full'),
-      minimumWageCents: fc.integer({ min: 725, max: 10_000 }),
-      overtimeRules: fc.constantFrom('federal', 'california'),
-      openingHours,
-      kioskIdleSeconds: fc.integer({ min: 15, max: 600 }),
-      payNonProductiveSeparately: fc.boolean(),
-      techniciansTakeUnassigned: fc.boolean(),
-      localMinimumWageCents: fc.oneof(fc.integer({ min: 725, max: 10_000 }), fc.constant(null)),
-      minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
-      longShiftHours: fc.integer({ min: 8, max: 24 }),
-      minimumClockedMinutesForDone: fc.integer({ min: 0, max: 120 }),
-      minimumClockedHoursForEfficiency: fc.integer({ min: 0, max: 200 }),
-      apportionSpanningLines: fc.boolean(),
-      kioskShowsPay: fc.boolean(),
-      payRulesFrom: localDate,
-    }),
+    // Once the fuzz has closed a pay week, a new time zone or workweek start is refused (409): half the
+    // bodies leave those alone, or hardly one request in a hundred would be accepted.
+    body: fc.oneof(
+      body(SHOP_FIELDS),
+      body(Object.fromEntries(Object.entries(SHOP_FIELDS).filter(([key]) => !WEEK_FIELDS.includes(key)))),
+    ),
   },
   'post /api/punches/held/:id/accept': { id: 'heldPunch', body: body({ reason }, ['reason']) },
   'post /api/punches/held/:id/reject': { id: 'heldPunch', body: body({ reason }, ['reason']) },

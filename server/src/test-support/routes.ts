@@ -9,6 +9,7 @@ export const PUBLIC_GET_ROUTES = ['/api/health', '/api/openapi.json', '/api/docs
 /** Every route with the roles allowed past the guard; anything else answers 401 or 403. */
 export const ROUTES: [Method, string, Role[]][] = [
   ['get', '/api/me', ALL_ROLES],
+  ['post', '/api/auth/renew', ['owner', 'foreman', 'advisor']],
   ['get', '/api/me/day', ['technician']],
   ['get', '/api/users', ['owner', 'foreman']],
   ['post', '/api/users', ['owner']],

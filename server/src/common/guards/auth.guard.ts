@@ -45,7 +45,7 @@ export class SignedInGuard implements CanActivate {
       return caller !== undefined && (!roles || roles.includes(caller.role));
     }
     const request = context.switchToHttp().getRequest<Request & KeyedRequest & { user: Principal }>();
-    const bearer = tokenOf(request.headers.authorization);
+    const bearer = bearerToken(request.headers.authorization);
     if (bearer?.startsWith(INTEGRATION_KEY_PREFIX)) {
       const scope = this.reflector.getAllAndOverride<IntegrationScope | undefined>(SCOPE_KEY, targets);
       request.user = await this.keys.admit(bearer, scope, { method: request.method, path: request.path });
@@ -60,7 +60,7 @@ export class SignedInGuard implements CanActivate {
   }
 }
 
-function tokenOf(header: string | undefined): string | undefined {
+export function bearerToken(header: string | undefined): string | undefined {
   const parts = header?.match(AUTHORIZATION);
   return parts?.[1]?.toLowerCase() === 'bearer' ? parts[2] : undefined;
 }

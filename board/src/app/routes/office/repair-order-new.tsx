@@ -3,11 +3,13 @@ import { PageHeader } from '@/components/page-header';
 import { formErrorText } from '@/lib/form-errors';
 import { RepairOrderForm } from '@/features/repair-order-intake/components/repair-order-form';
 import { useShop } from '@/features/shop/api/get-shop';
+import { useOffice } from './office-context';
 
 export { PageError as ErrorBoundary } from './page-error';
 
 export function Component() {
   const shop = useShop();
+  const { user } = useOffice();
   return (
     <>
       <PageHeader
@@ -25,6 +27,7 @@ export function Component() {
           timeZone={shop.data.timeZone}
           openingHours={shop.data.openingHours}
           units={shop.data.units}
+          userId={user.id}
         />
       )}
     </>

@@ -30,6 +30,7 @@ import { HEADING_FONT, baytimeRailTheme } from '@/lib/theme';
 import { useMe } from '@/features/auth/api/get-me';
 import { isOfficeRole } from '@/features/auth/api/login';
 import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
+import { useSignInRenewal } from '@/features/auth/hooks/use-sign-in-renewal';
 import { useSignOut } from '@/features/auth/hooks/use-sign-out';
 import { useLiveQueries } from '@/hooks/use-live-queries';
 import { findingArrivals } from '@/lib/finding-arrivals';
@@ -239,6 +240,7 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
   const navigate = useNavigate();
   const { pathname } = useLocation();
   useLiveQueries();
+  useSignInRenewal();
   // A finding reaches the advisor on whatever page they are: counted on the menu, and a toast.
   useOfficeEvent('finding.created', ({ findingId }) => {
     findingArrivals.add(findingId);

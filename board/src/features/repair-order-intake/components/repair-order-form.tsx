@@ -9,6 +9,7 @@ import {
   Field,
   Input,
   MessageBar,
+  MessageBarActions,
   MessageBarBody,
   MessageBarTitle,
   Select,
@@ -34,6 +35,7 @@ import { formErrorText } from '@/lib/form-errors';
 import { useCreateRepairOrder } from '../api/create-repair-order';
 import { useKnownVehicle } from '../api/get-known-vehicle';
 import { useOperations } from '@/lib/api/get-operations';
+import { forgetIntakeDraft, keepIntakeDraft, restoreIntakeDraft, tabStorage } from '../intake-draft';
 import {
   PROMISE_PASSED,
   bookHoursTotal,
@@ -141,10 +143,30 @@ export interface RepairOrderFormProps {
   timeZone: string;
   openingHours: OpeningHours | undefined;
   units: 'metric' | 'us';
+  /** Whose draft the tab keeps: another person signing in on it starts from an empty form. */
+  userId: number;
 }
 
-/** Writes a repair order: who, which vehicle, what they asked for, by when, and the job lines. */
-export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFormProps) {
+/**
+ * Writes a repair order: who, which vehicle, what they asked for, by when, and the job lines. What is
+ * typed is kept in the tab until the RO is written or cancelled; clearing it starts a new form.
+ */
+export function RepairOrderForm(props: RepairOrderFormProps) {
+  const [round, setRound] = useState(0);
+  const startOver = () => {
+    forgetIntakeDraft(tabStorage());
+    setRound((n) => n + 1);
+  };
+  return <IntakeForm key={round} {...props} onStartOver={startOver} />;
+}
+
+function IntakeForm({
+  timeZone,
+  openingHours,
+  units,
+  userId,
+  onStartOver,
+}: RepairOrderFormProps & { onStartOver: () => void }) {
   const styles = useStyles();
   const navigate = useNavigate();
   const create = useCreateRepairOrder();
@@ -156,7 +178,8 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const promisedDateId = useId();
   const promisedTimeId = useId();
 
-  const [draft, setDraft] = useState<IntakeDraft>(emptyDraft);
+  const [restored] = useState(() => restoreIntakeDraft(tabStorage(), userId));
+  const [draft, setDraft] = useState<IntakeDraft>(() => restored ?? emptyDraft());
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const [autoYear, setAutoYear] = useState<string | null>(null);
@@ -185,6 +208,8 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
   const zoneName = useMemo(() => timeZoneName(timeZone), [timeZone]);
   const unit = units === 'metric' ? 'km' : 'mi';
   const menu: readonly OperationDto[] = operations.data ?? [];
+
+  useEffect(() => keepIntakeDraft(tabStorage(), userId, draft), [userId, draft]);
 
   // After a refused save, the first field to fix gets the keyboard focus.
   useEffect(() => {
@@ -268,7 +293,10 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
     }
     setErrors({});
     create.mutate(result.body, {
-      onSuccess: (ro) => void navigate(paths.repairOrder(ro.id), { state: { created: true } }),
+      onSuccess: (ro) => {
+        forgetIntakeDraft(tabStorage());
+        void navigate(paths.repairOrder(ro.id), { state: { created: true } });
+      },
       onError: (error) => {
         if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0) {
           const mapped: FieldErrors = {};
@@ -312,6 +340,17 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
 
   return (
     <form ref={formRef} className={styles.form} onSubmit={submit} noValidate aria-label="New repair order">
+      {restored && (
+        <MessageBar intent="info">
+          <MessageBarBody>
+            <MessageBarTitle>Restored what you were typing</MessageBarTitle>
+            Kept in this browser tab until the repair order is written or cancelled.
+          </MessageBarBody>
+          <MessageBarActions>
+            <Button onClick={onStartOver}>Clear the form</Button>
+          </MessageBarActions>
+        </MessageBar>
+      )}
       <div className={styles.columns}>
         <div className={styles.stack}>
           <Card className={styles.card}>
@@ -692,7 +731,14 @@ export function RepairOrderForm({ timeZone, openingHours, units }: RepairOrderFo
         <Button appearance="primary" type="submit" disabled={create.isPending}>
           {create.isPending ? 'Writing…' : 'Write repair order'}
         </Button>
-        <Button onClick={() => void navigate(paths.repairOrders)}>Cancel</Button>
+        <Button
+          onClick={() => {
+            forgetIntakeDraft(tabStorage());
+            void navigate(paths.repairOrders);
+          }}
+        >
+          Cancel
+        </Button>
       </div>
     </form>
   );
