@@ -158,6 +158,10 @@ export class AuthService {
     const user = this.callers.user.get({ id: payload.sub });
     if (!user || !user.active) return 'account-inactive';
     if (user.role !== payload.role) return 'role-changed';
+    // Signed in before the password or PIN changed (to the second a token knows its time by).
+    const signedIn = payload.signedInAt ?? payload.iat ?? 0;
+    if (user.credentialsChangedAt && signedIn < Math.floor(user.credentialsChangedAt.getTime() / 1000))
+      return 'credentials-changed';
     return { id: user.id, name: user.name, role: user.role };
   }
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import type { CreatedIntegrationKey } from '@baytime/shared';
-import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { AuthService } from './auth.service.js';
 
 describe(AuthService.name, () => {
@@ -232,6 +232,39 @@ describe(AuthService.name, () => {
       .expect(409);
     expect(body.message).toMatch(/cannot deactivate your own account/);
     await sut.http().get('/api/me').auth(owner, { type: 'bearer' }).expect(200);
+  });
+
+  it('ends every sign-in made before a password or PIN changed, on the live link too', async () => {
+    const owner = await sut.signIn(DEMO.owner);
+    const me = (token: string) => sut.http().get('/api/me').auth(token, { type: 'bearer' });
+    const change = (id: number, body: object) =>
+      sut.http().patch(`/api/users/${id}`).auth(owner, { type: 'bearer' }).send(body).expect(200);
+    const advisor = await sut.signIn(DEMO.advisor);
+    const advisorId = ((await me(advisor).expect(200)).body as { id: number }).id;
+    const socket = sut.connect(advisor);
+    await nextEvent(socket, 'board.snapshot');
+    const ended = nextEvent(socket, 'session.ended');
+    // Marcus: badge 1044 (1046 is locked by a test above).
+    const marcus = await sut.badge('1044');
+    // A token knows its time to the second: the change comes in a later one.
+    await new Promise((resolve) => setTimeout(resolve, 1100));
+
+    await change(advisorId, { password: 'a-fresh-secret-9' });
+    expect((await ended).reason).toBe('credentials-changed');
+    await me(advisor).expect(401);
+    const again = await sut
+      .http()
+      .post('/api/auth/login')
+      .send({ email: DEMO.advisor, password: 'a-fresh-secret-9' })
+      .expect(200);
+    await me(again.body.accessToken as string).expect(200);
+
+    await change(marcus.user.id, { pin: '9753' });
+    await me(marcus.accessToken).expect(401);
+    await sut.http().post('/api/auth/badge').send({ badge: '1044', pin: '9753' }).expect(200);
+    // Any other change leaves sign-ins as they are.
+    await change(advisorId, { name: 'Nell Ashby-Crane' });
+    await me(again.body.accessToken as string).expect(200);
   });
 
   it('answers health without a token', async () => {

@@ -19,4 +19,6 @@ export interface TokenPayload {
   exp?: number;
   /** An office token's: when the password was given (seconds since the epoch), kept by its renewals. */
   signedInAt?: number;
+  /** When it was signed (seconds since the epoch); the signer adds it. */
+  iat?: number;
 }

@@ -118,6 +118,8 @@ export class UsersService {
     if (email !== undefined) changes.email = email.toLowerCase();
     if (password !== undefined) changes.passwordHash = await hashSecret(password);
     if (pin !== undefined) changes.pinHash = await hashSecret(pin);
+    // A new secret is the answer to a leaked one: every sign-in made with the old one ends.
+    if (password !== undefined || pin !== undefined) changes.credentialsChangedAt = new Date();
     const fields = Object.keys(body).map((key) =>
       key === 'password' || key === 'pin' ? `${key} (changed)` : key,
     );
@@ -147,6 +149,7 @@ export class UsersService {
       if (body.active === false) this.live.endSessions({ userId: id }, 'account-inactive');
       else if (body.role !== undefined && body.role !== current.role)
         this.live.endSessions({ userId: id }, 'role-changed');
+      else if (changes.credentialsChangedAt) this.live.endSessions({ userId: id }, 'credentials-changed');
       return this.toDto(row);
     });
   }

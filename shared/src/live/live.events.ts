@@ -78,6 +78,7 @@ export const LIVE_REFUSAL_REASONS = [
   'token-no-expiry',
   'account-inactive',
   'role-changed',
+  'credentials-changed',
   'screen-revoked',
 ] as const;
 export type LiveRefusalReason = (typeof LIVE_REFUSAL_REASONS)[number];

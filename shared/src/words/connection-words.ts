@@ -32,5 +32,6 @@ export const LIVE_REFUSAL_WORDS: Record<LiveRefusalReason, string> = {
   'token-no-expiry': 'This sign-in has no expiry and is not accepted: sign in again',
   'account-inactive': 'This account is no longer active',
   'role-changed': 'Your role changed: sign in again',
+  'credentials-changed': 'Your password or PIN was changed: sign in again',
   'screen-revoked': 'This screen was unpaired in the office: pair it again',
 };

@@ -15,6 +15,8 @@ export const users = sqliteTable(
     skillLevel: integer('skill_level').notNull().default(1),
     active: integer('active', { mode: 'boolean' }).notNull().default(true),
     createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+    /** When the password or PIN last changed: sign-ins from before it are over. */
+    credentialsChangedAt: integer('credentials_changed_at', { mode: 'timestamp_ms' }),
   },
   (t) => [
     uniqueIndex('users_email_idx').on(t.email),
