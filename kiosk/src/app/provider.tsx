@@ -4,6 +4,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { queryClient } from '@/lib/query-client';
 import { session } from '@/lib/session';
 import { listenToken } from '@/lib/listen-token';
+import { signedInHere } from '@/lib/signed-in-here';
 import { live } from '@/lib/socket';
 import { installAudioUnlock } from '@/lib/chime';
 import { setBeforeCommand } from '@/lib/commands';
@@ -18,7 +19,8 @@ function invalidateMyDay() {
 
 /**
  * While nobody is signed in the live link stays up with the last technician's token, so timer
- * chimes still come; without a valid token it drops, and with it what only a token could fetch.
+ * chimes still come for everyone who signed in here; without a valid token it drops, and with it
+ * what only a token could fetch.
  */
 function followTokens(): () => void {
   let lastToken = session.get()?.accessToken ?? null;
@@ -27,6 +29,7 @@ function followTokens(): () => void {
     if (current) {
       lastToken = current.accessToken;
       listenToken.set(current.accessToken);
+      signedInHere.add(current.user, current.signedInAt);
       return;
     }
     if (lastToken && session.lastSignOutReason() === 'expired') listenToken.clear(lastToken);

@@ -11,6 +11,8 @@ export interface SheetProps {
   closeLabel?: string;
   onBack?: () => void;
   wide?: boolean;
+  /** The sheet's buttons and its problem, kept in view below the body, which scrolls on a short screen. */
+  footer?: ReactNode;
   children: ReactNode;
 }
 
@@ -27,6 +29,7 @@ export function Sheet({
   closeLabel = 'Cancel',
   onBack,
   wide,
+  footer,
   children,
 }: SheetProps) {
   const titleId = useId();
@@ -86,6 +89,7 @@ export function Sheet({
           </button>
         </header>
         <div className="bt-sheet__body">{children}</div>
+        {footer && <div className="bt-sheet__foot">{footer}</div>}
       </div>
     </div>,
     document.querySelector('.bt-fluent-root') ?? document.body,

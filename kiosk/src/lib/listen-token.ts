@@ -2,8 +2,9 @@ import { useSyncExternalStore } from 'react';
 
 /**
  * The most recent technician token, kept after sign-out so the kiosk still hears timers finish
- * while nobody is signed in. It lives in sessionStorage (this tab only) with its expiry; a refusal
- * by the server or the expiry ends it.
+ * while nobody is signed in. Any technician's token reads the whole shop's running timers; which of
+ * them chime here is for `signed-in-here` to say, not whose token this is. It lives in
+ * sessionStorage (this tab only) with its expiry; a refusal by the server or the expiry ends it.
  */
 export const LISTEN_TOKEN_KEY = 'baytime.kiosk.listen';
 
@@ -16,13 +17,13 @@ interface Stored {
 }
 
 /** A JWT's payload, read without checking the signature (the server does that). */
-function tokenClaims(token: string): { exp?: unknown; sub?: unknown } {
+function tokenClaims(token: string): { exp?: unknown } {
   const payload = token.split('.')[1];
   if (!payload) return {};
   try {
     const base64 = payload.replace(/-/g, '+').replace(/_/g, '/');
     const padded = base64 + '='.repeat((4 - (base64.length % 4)) % 4);
-    return JSON.parse(atob(padded)) as { exp?: unknown; sub?: unknown };
+    return JSON.parse(atob(padded)) as { exp?: unknown };
   } catch {
     return {};
   }
@@ -32,12 +33,6 @@ function tokenClaims(token: string): { exp?: unknown; sub?: unknown } {
 export function tokenExpiresAt(token: string): number | null {
   const { exp } = tokenClaims(token);
   return typeof exp === 'number' ? exp * 1000 : null;
-}
-
-/** Whose token it is: the technician whose timers this kiosk chimes for. */
-export function tokenSubject(token: string): number | null {
-  const { sub } = tokenClaims(token);
-  return typeof sub === 'number' ? sub : null;
 }
 
 function read(): Stored | null {

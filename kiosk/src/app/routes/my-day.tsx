@@ -1,7 +1,7 @@
 import { lazy, Suspense, useEffect, useState } from 'react';
 import { Spinner } from '@fluentui/react-components';
 import { useQueryClient } from '@tanstack/react-query';
-import type { TimerDto } from '@baytime/shared';
+import { TIMER_KIND_LABELS, type TimerDto } from '@baytime/shared';
 import { useSession } from '@/lib/session';
 import { useNow } from '@/hooks/use-now';
 import { clockTime } from '@/lib/format';
@@ -21,6 +21,7 @@ import { DoneSheet } from '@/features/my-day/components/done-sheet';
 import { FinalChecks } from '@/features/my-day/components/final-checks';
 import { useTimers } from '@/features/timers/api/get-timers';
 import { useStopTimer } from '@/features/timers/api/stop-timer';
+import { stillCounting } from '@/features/timers/timer-status';
 import { useConfirmedPunches, useOutboxEntries } from '@/features/punches/hooks/use-outbox';
 import { usePunch } from '@/features/punches/hooks/use-punch';
 import '@/features/my-day/components/my-day.css';
@@ -102,6 +103,13 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
 
   const timerByLine = new Map<number, TimerDto>();
   for (const timer of timers.data ?? []) if (timer.endedAt === null) timerByLine.set(timer.jobLineId, timer);
+  const lineById = new Map(view.lines.map((line) => [line.id, line]));
+  const countingTimers = (timers.data ?? []).flatMap((timer) => {
+    const line = lineById.get(timer.jobLineId);
+    return line && stillCounting(timer, { now, fetchedAt: timers.dataUpdatedAt })
+      ? [{ id: timer.id, words: `${timer.label ?? TIMER_KIND_LABELS[timer.kind]} on ${lineContext(line)}` }]
+      : [];
+  });
   const close = () => setSheet(null);
   const refreshDay = () => void queryClient.invalidateQueries({ queryKey: queryKeys.myDay.all() });
   const readingTimer =
@@ -114,12 +122,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
         <ShiftActions
           view={view}
           onPunch={punch}
-          runningTimers={view.lines.flatMap((line) => {
-            const timer = timerByLine.get(line.id);
-            return timer
-              ? [{ id: timer.id, words: `${timer.label ?? 'A timer'} on ${lineContext(line)}` }]
-              : [];
-          })}
+          runningTimers={countingTimers}
           onStopTimers={(ids) => ids.forEach((id) => stopTimer.mutate(id))}
         />
         <FinalChecks checks={day.data.finalChecks} />

@@ -4,6 +4,8 @@ import { finishedAt } from './timer-status';
 /** A timer that just finished: the kiosk chimes once and shows a banner until someone taps OK. */
 export interface TimerAlert {
   timerId: number;
+  /** Whose timer it is, so the right person goes. */
+  technicianName: string;
   bayId: number | null;
   jobLineId: number;
   kind: TimerKind;
@@ -32,17 +34,16 @@ export const ANNOUNCED_KEEP_MS = 24 * 3600_000;
 export interface DecideOptions {
   now: number;
   fetchedAt: number;
-  /** The technician this kiosk watches for: only their timers chime here. */
-  technicianId: number | null;
+  /**
+   * Everyone who signed in on this tablet during the shift, by id, with their names: their timers
+   * chime here, whoever is signed in now or signed in last.
+   */
+  watching: ReadonlyMap<number, string>;
 }
 
 /** A timer is a technician's when it runs on their line, or they started it on a line nobody has. */
-export function isTimerOf(
-  timer: Pick<TimerDto, 'lineTechnicianId' | 'startedBy'>,
-  technicianId: number | null,
-): boolean {
-  if (technicianId === null) return false;
-  return (timer.lineTechnicianId ?? timer.startedBy) === technicianId;
+export function timerOwner(timer: Pick<TimerDto, 'lineTechnicianId' | 'startedBy'>): number {
+  return timer.lineTechnicianId ?? timer.startedBy;
 }
 
 export interface Decision {
@@ -63,7 +64,8 @@ export function decideAlerts(
   const alerts: TimerAlert[] = [];
 
   for (const timer of timers) {
-    if (timer.endedAt !== null || !isTimerOf(timer, options.technicianId)) continue;
+    const technicianName = options.watching.get(timerOwner(timer));
+    if (timer.endedAt !== null || technicianName === undefined) continue;
     const finished = finishedAt(timer, options);
     if (finished === null) {
       seenRunning.add(timer.id);
@@ -74,6 +76,7 @@ export function decideAlerts(
     if (memory.seenRunning.has(timer.id) || now - finished <= RECENT_FINISH_MS)
       alerts.push({
         timerId: timer.id,
+        technicianName,
         bayId: timer.bayId,
         jobLineId: timer.jobLineId,
         kind: timer.kind,
@@ -91,10 +94,13 @@ export function liveAlerts(alerts: readonly TimerAlert[], timers: readonly Timer
   return alerts.filter((alert) => running.has(alert.timerId));
 }
 
-/** "Bay 4: target reached", "Bay 2: set time over". */
-export function alertTitle(alert: Pick<TimerAlert, 'kind'>, bayName: string | null): string {
+/** "Luis Ortega · Bay 4: target reached", "Sam Reyes: set time over". */
+export function alertTitle(
+  alert: Pick<TimerAlert, 'kind' | 'technicianName'>,
+  bayName: string | null,
+): string {
   const what = alert.kind === 'set-time' ? 'set time over' : 'target reached';
-  return bayName ? `${bayName}: ${what}` : `Timer: ${what}`;
+  return `${bayName ? `${alert.technicianName} · ${bayName}` : alert.technicianName}: ${what}`;
 }
 
 /** The announced ids as stored, and back: a reload must not chime again. */

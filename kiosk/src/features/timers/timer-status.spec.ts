@@ -1,7 +1,7 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import type { TimerDto } from '@baytime/shared';
-import { describeTimer, finishedAt, secondsLeftNow } from './timer-status';
+import { describeTimer, finishedAt, secondsLeftNow, stillCounting } from './timer-status';
 
 const T0 = Date.parse('2026-03-10T15:00:00.000Z'); // 10:00 in America/Chicago (CDT)
 const iso = (minutes: number) => new Date(T0 + minutes * 60_000).toISOString();
@@ -143,5 +143,23 @@ describe(finishedAt.name, () => {
 
   it('takes the server’s reachedAt first', () => {
     expect(finishedAt(setTime({ reachedAt: iso(-3) }), clock)).toBe(T0 - 180_000);
+  });
+});
+
+describe(stillCounting.name, () => {
+  it('counts a warm-up short of its target and a set time with time left', () => {
+    expect(stillCounting(warmUp(), clock)).toBe(true);
+    expect(stillCounting(setTime(), clock)).toBe(true);
+  });
+
+  it('no longer counts a timer whose target is reached or whose time is up, nor a stopped one', () => {
+    const reached = warmUp({
+      reachedAt: iso(-1),
+      estimate: { status: 'reached', etaAt: iso(-1), secondsLeft: 0, method: null, confidence: 'high' },
+    });
+    expect(stillCounting(reached, clock)).toBe(false);
+    // Over on the tablet's own count, before the server says so.
+    expect(stillCounting(setTime(), { now: T0 + 1200_000, fetchedAt: T0 })).toBe(false);
+    expect(stillCounting(setTime({ endedAt: iso(-1) }), clock)).toBe(false);
   });
 });

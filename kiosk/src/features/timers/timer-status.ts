@@ -53,6 +53,14 @@ export function finishedAt(timer: TimerDto, clock: Pick<TimerClock, 'now' | 'fet
   return null;
 }
 
+/**
+ * Not stopped, and its target not reached nor its time up: nobody need come back for it yet. A
+ * finished timer only waits for someone to clear it.
+ */
+export function stillCounting(timer: TimerDto, clock: Pick<TimerClock, 'now' | 'fetchedAt'>): boolean {
+  return timer.endedAt === null && finishedAt(timer, clock) === null;
+}
+
 function lastReadingOf(timer: TimerDto) {
   const sorted = [...timer.readings].sort((a, b) => Date.parse(a.at) - Date.parse(b.at));
   return { first: sorted[0] ?? null, last: sorted.at(-1) ?? null, count: sorted.length };

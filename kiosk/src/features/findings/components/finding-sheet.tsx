@@ -132,7 +132,56 @@ export function FindingSheet({ jobLineId, context, onClose, onSent }: FindingShe
     problems.note ?? problems.severity ?? problems.suggestedHours ?? problems.photos ?? null;
 
   return (
-    <Sheet title="Add a finding" context={context} onClose={close} wide>
+    <Sheet
+      title="Add a finding"
+      context={context}
+      onClose={close}
+      wide
+      footer={
+        <>
+          {confirmDiscard && !sending && (
+            <div className="bt-finding__discard" role="alert">
+              <span>Throw this finding away?</span>
+              <button type="button" className="bt-banner-button" onClick={onClose}>
+                Discard
+              </button>
+              <button type="button" className="bt-banner-button" onClick={() => setConfirmDiscard(false)}>
+                Keep it
+              </button>
+            </div>
+          )}
+          {sending && (
+            <div className="bt-upload" role="status" aria-live="polite">
+              <div
+                className="bt-upload__bar"
+                role="progressbar"
+                aria-label="Upload"
+                aria-valuemin={0}
+                aria-valuemax={100}
+                aria-valuenow={Math.round(progress * 100)}
+              >
+                <span style={{ width: `${progress * 100}%` }} />
+              </div>
+              <span className="bt-upload__words">
+                {progress < 1 ? `Sending… ${Math.round(progress * 100)} %` : 'Saving…'}
+              </span>
+            </div>
+          )}
+          <p className="bt-entry__problem" role="alert">
+            {firstProblem ??
+              (create.error && !(create.error instanceof DOMException) ? commandProblem(create.error) : '')}
+          </p>
+          <button
+            type="button"
+            className="bt-action bt-action--go bt-finding__go"
+            onClick={send}
+            disabled={sending}
+          >
+            {sending ? 'Sending…' : 'Send finding'}
+          </button>
+        </>
+      }
+    >
       <div className="bt-finding">
         <div className="bt-finding__main">
           <label className="bt-finding__label" htmlFor={noteId}>
@@ -271,49 +320,6 @@ export function FindingSheet({ jobLineId, context, onClose, onSent }: FindingShe
             </p>
           ))}
         </div>
-      </div>
-
-      <div className="bt-finding__send">
-        {confirmDiscard && !sending && (
-          <div className="bt-finding__discard" role="alert">
-            <span>Throw this finding away?</span>
-            <button type="button" className="bt-banner-button" onClick={onClose}>
-              Discard
-            </button>
-            <button type="button" className="bt-banner-button" onClick={() => setConfirmDiscard(false)}>
-              Keep it
-            </button>
-          </div>
-        )}
-        {sending && (
-          <div className="bt-upload" role="status" aria-live="polite">
-            <div
-              className="bt-upload__bar"
-              role="progressbar"
-              aria-label="Upload"
-              aria-valuemin={0}
-              aria-valuemax={100}
-              aria-valuenow={Math.round(progress * 100)}
-            >
-              <span style={{ width: `${progress * 100}%` }} />
-            </div>
-            <span className="bt-upload__words">
-              {progress < 1 ? `Sending… ${Math.round(progress * 100)} %` : 'Saving…'}
-            </span>
-          </div>
-        )}
-        <p className="bt-entry__problem" role="alert">
-          {firstProblem ??
-            (create.error && !(create.error instanceof DOMException) ? commandProblem(create.error) : '')}
-        </p>
-        <button
-          type="button"
-          className="bt-action bt-action--go bt-finding__go"
-          onClick={send}
-          disabled={sending}
-        >
-          {sending ? 'Sending…' : 'Send finding'}
-        </button>
       </div>
     </Sheet>
   );

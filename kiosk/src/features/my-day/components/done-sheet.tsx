@@ -47,8 +47,36 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
       );
     })();
 
+  const footer = (
+    <>
+      <p className="bt-sheet__lead">
+        {line.clockedOn ? 'This clocks you off the line. ' : ''}What does the vehicle need next?
+        {line.bayName ? ` ${line.bayName} changes only when this is its last open line.` : ''}
+      </p>
+      <ul className="bt-choices bt-choices--two">
+        {CHOICES.map(({ next, words, hint, icon }) => (
+          <li key={next}>
+            <button
+              type="button"
+              className={`bt-choice${chosen === next ? ' is-selected' : ''}`}
+              disabled={finish.isPending}
+              onClick={() => void send(next)}
+            >
+              {icon}
+              <span className="bt-choice__words">
+                <strong>{words}</strong>
+                <small>{finish.isPending && chosen === next ? 'Sending…' : hint}</small>
+              </span>
+            </button>
+          </li>
+        ))}
+      </ul>
+      <SheetProblem>{errors.root?.server?.message ?? null}</SheetProblem>
+    </>
+  );
+
   return (
-    <Sheet title="Mark this line done" context={context} onClose={onClose} wide>
+    <Sheet title="Mark this line done" context={context} onClose={onClose} wide footer={footer}>
       <form className="bt-done" noValidate onSubmit={(event) => event.preventDefault()}>
         <p className="bt-done__concern">
           <strong>Concern:</strong> {line.concern}
@@ -75,29 +103,6 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
           {...form.register('correction')}
         />
         {errors.correction && <p className="bt-done__problem">{errors.correction.message}</p>}
-        <p className="bt-sheet__lead">
-          {line.clockedOn ? 'This clocks you off the line. ' : ''}What does the vehicle need next?
-          {line.bayName ? ` ${line.bayName} changes only when this is its last open line.` : ''}
-        </p>
-        <ul className="bt-choices">
-          {CHOICES.map(({ next, words, hint, icon }) => (
-            <li key={next}>
-              <button
-                type="button"
-                className={`bt-choice bt-choice--tall${chosen === next ? ' is-selected' : ''}`}
-                disabled={finish.isPending}
-                onClick={() => void send(next)}
-              >
-                {icon}
-                <span className="bt-choice__words">
-                  <strong>{words}</strong>
-                  <small>{finish.isPending && chosen === next ? 'Sending…' : hint}</small>
-                </span>
-              </button>
-            </li>
-          ))}
-        </ul>
-        <SheetProblem>{errors.root?.server?.message ?? null}</SheetProblem>
       </form>
     </Sheet>
   );

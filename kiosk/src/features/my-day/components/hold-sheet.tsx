@@ -23,26 +23,28 @@ export function HoldSheet({ line, context, onClose }: HoldSheetProps) {
     hold.mutate({ jobLineId: line.id, reason, ...(part && { part }) }, { onSuccess: onClose });
   };
 
+  const problem = hold.error ? commandProblem(hold.error) : null;
+
   if (askingPart)
     return (
-      <Sheet
-        title="Waiting for parts"
+      <PartStep
         context={context}
+        sending={hold.isPending}
+        problem={problem}
+        onSend={(part) => send('parts', part)}
         onClose={onClose}
-        closeLabel="Back"
         onBack={() => setAskingPart(false)}
-        wide
-      >
-        <PartStep
-          sending={hold.isPending}
-          problem={hold.error ? commandProblem(hold.error) : null}
-          onSend={(part) => send('parts', part)}
-        />
-      </Sheet>
+      />
     );
 
   return (
-    <Sheet title="Put this line on hold" context={context} onClose={onClose} wide>
+    <Sheet
+      title="Put this line on hold"
+      context={context}
+      onClose={onClose}
+      wide
+      footer={problem && <SheetProblem>{problem}</SheetProblem>}
+    >
       <p className="bt-sheet__lead">
         Why is it waiting?{' '}
         {line.clockedOn ? 'This clocks you off the line.' : 'Anyone clocked on it is clocked off.'}
@@ -65,22 +67,28 @@ export function HoldSheet({ line, context, onClose }: HoldSheetProps) {
           </li>
         ))}
       </ul>
-      <SheetProblem>{hold.error ? commandProblem(hold.error) : null}</SheetProblem>
     </Sheet>
   );
 }
 
 /** Which part: optional, the office records the order, the supplier and the arrival. */
 function PartStep({
+  context,
   sending,
   problem,
   onSend,
+  onClose,
+  onBack,
 }: {
+  context: string;
   sending: boolean;
   problem: string | null;
   onSend: (part: string | undefined) => void;
+  onClose: () => void;
+  onBack: () => void;
 }) {
   const id = useId();
+  const formId = useId();
   const [part, setPart] = useState('');
   const [invalid, setInvalid] = useState<string | null>(null);
   const submit = (event: FormEvent) => {
@@ -91,28 +99,41 @@ function PartStep({
     onSend(check.data.part);
   };
   return (
-    <form className="bt-hold-part" onSubmit={submit} noValidate>
-      <label className="bt-hold-part__label" htmlFor={id}>
-        Which part is needed? <small>(optional: the office orders it)</small>
-      </label>
-      <input
-        id={id}
-        className={`bt-hold-part__input${invalid ? ' is-invalid' : ''}`}
-        autoComplete="off"
-        maxLength={120}
-        placeholder="e.g. left outer tie rod end"
-        value={part}
-        disabled={sending}
-        aria-invalid={invalid !== null}
-        onChange={(event) => {
-          setPart(event.target.value);
-          setInvalid(null);
-        }}
-      />
-      <button type="submit" className="bt-action bt-action--go" disabled={sending}>
-        <PauseIcon /> {sending ? 'Sending…' : 'Hold for parts'}
-      </button>
-      <SheetProblem>{invalid ?? problem}</SheetProblem>
-    </form>
+    <Sheet
+      title="Waiting for parts"
+      context={context}
+      onClose={onClose}
+      closeLabel="Back"
+      onBack={onBack}
+      wide
+      footer={
+        <>
+          <button type="submit" form={formId} className="bt-action bt-action--go" disabled={sending}>
+            <PauseIcon /> {sending ? 'Sending…' : 'Hold for parts'}
+          </button>
+          <SheetProblem>{invalid ?? problem}</SheetProblem>
+        </>
+      }
+    >
+      <form id={formId} className="bt-hold-part" onSubmit={submit} noValidate>
+        <label className="bt-hold-part__label" htmlFor={id}>
+          Which part is needed? <small>(optional: the office orders it)</small>
+        </label>
+        <input
+          id={id}
+          className={`bt-hold-part__input${invalid ? ' is-invalid' : ''}`}
+          autoComplete="off"
+          maxLength={120}
+          placeholder="e.g. left outer tie rod end"
+          value={part}
+          disabled={sending}
+          aria-invalid={invalid !== null}
+          onChange={(event) => {
+            setPart(event.target.value);
+            setInvalid(null);
+          }}
+        />
+      </form>
+    </Sheet>
   );
 }

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import {
   PUNCH_WORDS,
   inSentence,
@@ -27,7 +27,7 @@ export interface RunningTimer {
 export interface ShiftActionsProps {
   view: DayView;
   onPunch: (punches: ShiftPunch[]) => void;
-  /** Timers running on this technician's lines: a meal break asks about them first. */
+  /** Timers still counting on this technician's lines: a meal break and the shift's end ask about them first. */
   runningTimers?: readonly RunningTimer[];
   onStopTimers?: (timerIds: number[]) => void;
 }
@@ -45,10 +45,28 @@ export function clockOffAll(lines: readonly DayLine[]): ShiftPunch[] {
     }));
 }
 
+/** What the technician is about to leave the timers for, in the question's words. */
+type Leaving = 'meal' | 'shift-out';
+const LEAVING: Record<Leaving, { during: string; stop: string; again: string; icon: ReactNode }> = {
+  meal: {
+    during: 'during your meal break',
+    stop: 'Stop the timer, then break',
+    again: 'Start it again when you are back',
+    icon: <MealIcon />,
+  },
+  'shift-out': {
+    during: 'after your shift ends',
+    stop: 'Stop the timer, then end the shift',
+    again: 'Whoever works the line next starts it again',
+    icon: <DoorOutIcon />,
+  },
+};
+
 /** Shift and break buttons, only those that make sense now. */
 export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }: ShiftActionsProps) {
   const [confirmingEnd, setConfirmingEnd] = useState(false);
-  const [askingAboutTimers, setAskingAboutTimers] = useState(false);
+  // The timers as they were when asked: one that finishes meanwhile is still named, and stopped if asked.
+  const [asking, setAsking] = useState<{ leaving: Leaving; timers: readonly RunningTimer[] } | null>(null);
   const { status, breakKind } = view.shift;
 
   useEffect(() => {
@@ -71,10 +89,32 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
     );
   }
 
+  const startBreak = (kind: BreakKind) =>
+    onPunch([
+      ...clockOffAll(view.lines),
+      { kind: 'break-start', breakKind: kind, label: punchWords({ kind: 'break-start', breakKind: kind }) },
+    ]);
+  const leave = (leaving: Leaving) =>
+    leaving === 'meal'
+      ? startBreak('meal')
+      : onPunch([...clockOffAll(view.lines), { kind: 'shift-out', label: PUNCH_WORDS['shift-out'] }]);
+  // A timer left counting through a meal or past the shift's end is an engine or a cure nobody
+  // watches: ask first.
+  const askFirst = (leaving: Leaving) =>
+    runningTimers.length > 0 ? setAsking({ leaving, timers: runningTimers }) : leave(leaving);
+  const leaveWith = (stop: boolean) => {
+    if (!asking) return;
+    setAsking(null);
+    if (stop) onStopTimers?.(asking.timers.map((timer) => timer.id));
+    leave(asking.leaving);
+  };
+
   const endShift = () => {
+    // The question about the timers is the confirmation: no second tap before it.
+    if (runningTimers.length > 0) return askFirst('shift-out');
     if (!confirmingEnd) return setConfirmingEnd(true);
     setConfirmingEnd(false);
-    onPunch([...clockOffAll(view.lines), { kind: 'shift-out', label: PUNCH_WORDS['shift-out'] }]);
+    leave('shift-out');
   };
   const endShiftButton = (
     <button
@@ -87,11 +127,40 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
       {confirmingEnd ? `Tap again: ${inSentence(PUNCH_WORDS['shift-out'])}` : PUNCH_WORDS['shift-out']}
     </button>
   );
+  const timerQuestion = asking && (
+    <Sheet title="A timer is still running" onClose={() => setAsking(null)}>
+      <p className="bt-sheet__lead">
+        {asking.timers.map((timer) => timer.words).join('; ')}. Nobody watches it{' '}
+        {LEAVING[asking.leaving].during}.
+      </p>
+      <ul className="bt-choices">
+        <li>
+          <button type="button" className="bt-choice bt-choice--tall" onClick={() => leaveWith(true)}>
+            {LEAVING[asking.leaving].icon}
+            <span className="bt-choice__words">
+              <strong>{LEAVING[asking.leaving].stop}</strong>
+              <small>{LEAVING[asking.leaving].again}</small>
+            </span>
+          </button>
+        </li>
+        <li>
+          <button type="button" className="bt-choice bt-choice--tall" onClick={() => leaveWith(false)}>
+            {LEAVING[asking.leaving].icon}
+            <span className="bt-choice__words">
+              <strong>Leave it running</strong>
+              <small>Someone else keeps an eye on it</small>
+            </span>
+          </button>
+        </li>
+      </ul>
+    </Sheet>
+  );
 
   if (status === 'on-break') {
     const kind = breakKind ?? 'meal';
     return (
       <div className="bt-shift-actions">
+        {timerQuestion}
         <button
           type="button"
           className="bt-action bt-action--go"
@@ -104,50 +173,10 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
     );
   }
 
-  const startBreak = (kind: BreakKind) =>
-    onPunch([
-      ...clockOffAll(view.lines),
-      { kind: 'break-start', breakKind: kind, label: punchWords({ kind: 'break-start', breakKind: kind }) },
-    ]);
-
-  // A timer left running through a meal is an engine or a cure nobody watches: ask first.
-  const mealBreak = () => (runningTimers.length > 0 ? setAskingAboutTimers(true) : startBreak('meal'));
-  const mealWith = (stop: boolean) => {
-    setAskingAboutTimers(false);
-    if (stop) onStopTimers?.(runningTimers.map((timer) => timer.id));
-    startBreak('meal');
-  };
-
   return (
     <div className="bt-shift-actions">
-      {askingAboutTimers && (
-        <Sheet title="A timer is still running" onClose={() => setAskingAboutTimers(false)}>
-          <p className="bt-sheet__lead">
-            {runningTimers.map((timer) => timer.words).join('; ')}. Nobody watches it during your meal break.
-          </p>
-          <ul className="bt-choices">
-            <li>
-              <button type="button" className="bt-choice bt-choice--tall" onClick={() => mealWith(true)}>
-                <MealIcon />
-                <span className="bt-choice__words">
-                  <strong>Stop the timer, then break</strong>
-                  <small>Start it again when you are back</small>
-                </span>
-              </button>
-            </li>
-            <li>
-              <button type="button" className="bt-choice bt-choice--tall" onClick={() => mealWith(false)}>
-                <MealIcon />
-                <span className="bt-choice__words">
-                  <strong>Leave it running</strong>
-                  <small>Someone else keeps an eye on it</small>
-                </span>
-              </button>
-            </li>
-          </ul>
-        </Sheet>
-      )}
-      <button type="button" className="bt-action bt-action--quiet" onClick={mealBreak}>
+      {timerQuestion}
+      <button type="button" className="bt-action bt-action--quiet" onClick={() => askFirst('meal')}>
         <MealIcon /> {punchWords({ kind: 'break-start', breakKind: 'meal' })}
       </button>
       <button type="button" className="bt-action bt-action--quiet" onClick={() => startBreak('rest')}>

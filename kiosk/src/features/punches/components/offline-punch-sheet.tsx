@@ -43,7 +43,13 @@ export function OfflinePunchSheet({ badge, pin, timeZone, onDone, onClose }: Off
     );
   };
   return (
-    <Sheet title="No connection: record a punch offline" context={`Badge ${badge}`} onClose={onClose} wide>
+    <Sheet
+      title="No connection: record a punch offline"
+      context={`Badge ${badge}`}
+      onClose={onClose}
+      wide
+      footer={problem && <SheetProblem>{problem}</SheetProblem>}
+    >
       <p className="bt-sheet__lead">
         The shop server cannot be reached. A shift or break punch is kept on this tablet with the time you
         tap, and the server checks your PIN when the link is back. Jobs wait until then.
@@ -59,7 +65,6 @@ export function OfflinePunchSheet({ badge, pin, timeZone, onDone, onClose }: Off
           </li>
         ))}
       </ul>
-      <SheetProblem>{problem}</SheetProblem>
     </Sheet>
   );
 }

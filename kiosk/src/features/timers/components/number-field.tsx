@@ -1,3 +1,4 @@
+import { useEffect, useRef, type ReactNode } from 'react';
 import { Keypad, useHardwareKeys, type KeypadKeys } from '@/components/keypad';
 import type { EntryKey, EntryRules } from '../temperature-entry';
 
@@ -23,8 +24,14 @@ export function NumberField({
   placeholder,
   onSelect,
 }: NumberFieldProps) {
+  const field = useRef<HTMLButtonElement>(null);
+  // On a short screen the sheet scrolls: what the keypad types stays in sight.
+  useEffect(() => {
+    if (active) field.current?.scrollIntoView({ block: 'nearest' });
+  }, [active, text]);
   return (
     <button
+      ref={field}
       type="button"
       className={`bt-field${active ? ' is-active' : ''}${invalid ? ' is-invalid' : ''}`}
       onClick={onSelect}
@@ -70,4 +77,28 @@ export function EntryKeypad({
   };
   useHardwareKeys({ ...keys, onEnter }, !disabled);
   return <Keypad {...keys} disabled={disabled} label="Number keypad" />;
+}
+
+/** Under an entry, in the sheet's footer so it stays in view: what is wrong, and the button under the keypad. */
+export function EntrySend({
+  problem,
+  busy,
+  onSend,
+  children,
+}: {
+  problem: string;
+  busy: boolean;
+  onSend: () => void;
+  children: ReactNode;
+}) {
+  return (
+    <div className="bt-entry bt-entry--send">
+      <p className="bt-entry__problem" role="alert">
+        {problem}
+      </p>
+      <button type="button" className="bt-action bt-action--go bt-entry__go" onClick={onSend} disabled={busy}>
+        {children}
+      </button>
+    </div>
+  );
 }

@@ -12,7 +12,7 @@ import {
 } from '../temperature-entry';
 import { timerHeadline } from '../timer-status';
 import { useLogReading } from '../api/log-reading';
-import { EntryKeypad, NumberField } from './number-field';
+import { EntryKeypad, EntrySend, NumberField } from './number-field';
 import './timers.css';
 
 export interface ReadingSheetProps {
@@ -42,7 +42,21 @@ export function ReadingSheet({ timer, context, units, timeZone, onClose }: Readi
     log.mutate({ timerId: timer.id, tempC: read.value }, { onSuccess: onClose });
   };
   return (
-    <Sheet title="Log a reading" context={context} onClose={onClose} wide>
+    <Sheet
+      title="Log a reading"
+      context={context}
+      onClose={onClose}
+      wide
+      footer={
+        <EntrySend
+          problem={problem ?? (log.error ? commandProblem(log.error) : '')}
+          busy={log.isPending}
+          onSend={submit}
+        >
+          {log.isPending ? 'Saving…' : 'Save reading'}
+        </EntrySend>
+      }
+    >
       <div className="bt-entry">
         <div className="bt-entry__fields">
           <p className="bt-entry__facts">
@@ -59,17 +73,6 @@ export function ReadingSheet({ timer, context, units, timeZone, onClose }: Readi
             invalid={problem !== null}
             onSelect={() => undefined}
           />
-          <p className="bt-entry__problem" role="alert">
-            {problem ?? (log.error ? commandProblem(log.error) : '')}
-          </p>
-          <button
-            type="button"
-            className="bt-action bt-action--go bt-entry__go"
-            onClick={submit}
-            disabled={log.isPending}
-          >
-            {log.isPending ? 'Saving…' : 'Save reading'}
-          </button>
         </div>
         <EntryKeypad apply={apply} rules={TEMPERATURE_ENTRY} onEnter={submit} disabled={log.isPending} />
       </div>

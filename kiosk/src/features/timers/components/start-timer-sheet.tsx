@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import {
   TIMER_KIND_LABELS,
   temperatureUnit,
@@ -19,9 +19,10 @@ import {
   readTemperature,
   type EntryKey,
 } from '../temperature-entry';
+import { TIMER_CAUTIONS } from '../timer-cautions';
 import { useHoldPresets } from '../api/get-hold-presets';
 import { useStartTimer } from '../api/start-timer';
-import { EntryKeypad, NumberField } from './number-field';
+import { EntryKeypad, EntrySend, NumberField } from './number-field';
 import './timers.css';
 
 type TemperatureKind = Exclude<TimerKind, 'set-time'>;
@@ -87,74 +88,105 @@ export function StartTimerSheet({ jobLineId, context, units, onClose }: StartTim
       </Sheet>
     );
 
-  if (step.name === 'caution')
+  if (step.name === 'caution') {
+    const caution = TIMER_CAUTIONS[step.kind];
     return (
       <Sheet
         title={`${TIMER_KIND_LABELS[step.kind]}: safety first`}
         context={context}
         onClose={onClose}
         onBack={back}
+        footer={
+          <button
+            type="button"
+            className="bt-action bt-action--go bt-entry__go"
+            onClick={() => setStep({ name: 'temperatures', kind: step.kind })}
+          >
+            All checked: go on
+          </button>
+        }
       >
-        <Caution onAcknowledge={() => setStep({ name: 'temperatures', kind: step.kind })} />
+        <div className="bt-caution">
+          <div className="bt-caution__box" role="note">
+            <p className="bt-caution__title">
+              <AlertIcon /> {caution.heading}
+            </p>
+            <ul className="bt-caution__list">
+              {caution.checks.map((check) => (
+                <li key={check}>{check}</li>
+              ))}
+            </ul>
+          </div>
+          <p className="bt-caution__spec">{caution.source}</p>
+        </div>
       </Sheet>
     );
+  }
 
-  if (step.name === 'temperatures')
-    return (
-      <Sheet
-        title={`${TIMER_KIND_LABELS[step.kind]} to a temperature`}
-        context={context}
-        onClose={onClose}
-        onBack={back}
-        wide
-      >
-        <TemperatureStep jobLineId={jobLineId} kind={step.kind} units={units} onStarted={onClose} />
-      </Sheet>
-    );
+  const frame = { context, onClose, onBack: back, jobLineId, onStarted: onClose };
+  if (step.name === 'temperatures') return <TemperatureStep frame={frame} kind={step.kind} units={units} />;
+  return <SetTimeStep frame={frame} />;
+}
 
+/** What each entry step gets: where its sheet sits and what it starts the timer on. */
+interface StepFrame {
+  context: string;
+  onClose: () => void;
+  onBack: () => void;
+  jobLineId: number;
+  onStarted: () => void;
+}
+
+/** An entry step's sheet: what went wrong and the start button stay in view below the entry. */
+function StartStepSheet({
+  frame,
+  title,
+  problem,
+  start,
+  onSend,
+  label,
+  children,
+}: {
+  frame: StepFrame;
+  title: string;
+  problem: string | null;
+  start: ReturnType<typeof useStartTimer>;
+  onSend: () => void;
+  label: string;
+  children: ReactNode;
+}) {
   return (
-    <Sheet title={TIMER_KIND_LABELS['set-time']} context={context} onClose={onClose} onBack={back} wide>
-      <SetTimeStep jobLineId={jobLineId} onStarted={onClose} />
+    <Sheet
+      title={title}
+      context={frame.context}
+      onClose={frame.onClose}
+      onBack={frame.onBack}
+      wide
+      footer={
+        <EntrySend
+          problem={problem ?? (start.error ? commandProblem(start.error) : '')}
+          busy={start.isPending}
+          onSend={onSend}
+        >
+          {start.isPending ? 'Starting…' : label}
+        </EntrySend>
+      }
+    >
+      {children}
     </Sheet>
   );
 }
 
-function Caution({ onAcknowledge }: { onAcknowledge: () => void }) {
-  return (
-    <div className="bt-caution">
-      <div className="bt-caution__box" role="note">
-        <p className="bt-caution__title">
-          <AlertIcon /> The engine runs in the bay. Before you start:
-        </p>
-        <ul className="bt-caution__list">
-          <li>Exhaust extraction connected to the tailpipe</li>
-          <li>Parking brake set</li>
-          <li>Wheels chocked</li>
-          <li>Lift locks engaged if the vehicle is raised</li>
-          <li>Keep clear of hot fluid and moving parts: fan, belts, exhaust</li>
-        </ul>
-      </div>
-      <p className="bt-caution__spec">
-        Use the temperature from the vehicle maker’s procedure: Baytime does not suggest one.
-      </p>
-      <button type="button" className="bt-action bt-action--go bt-entry__go" onClick={onAcknowledge}>
-        All checked: go on
-      </button>
-    </div>
-  );
-}
-
 function TemperatureStep({
-  jobLineId,
+  frame,
   kind,
   units,
-  onStarted,
 }: {
-  jobLineId: number;
+  frame: StepFrame;
   kind: TemperatureKind;
   units: UnitSystem;
-  onStarted: () => void;
 }) {
+  const { jobLineId, onStarted } = frame;
   const [active, setActive] = useState<'target' | 'ambient'>('target');
   const [target, setTarget] = useState('');
   const [ambient, setAmbient] = useState('');
@@ -199,48 +231,47 @@ function TemperatureStep({
     );
   };
   return (
-    <div className="bt-entry">
-      <div className="bt-entry__fields">
-        <NumberField
-          label={`Target (${unit}), from the maker’s procedure`}
-          text={target}
-          unit={unit}
-          active={active === 'target'}
-          invalid={problem?.field === 'target'}
-          onSelect={() => setActive('target')}
-        />
-        <NumberField
-          label={kind === 'warm-up' ? 'Where it levels off (optional)' : 'Room temperature (optional)'}
-          hint={
-            kind === 'warm-up'
-              ? 'If you know where it settles with the engine running. Leave empty and Baytime works it out from your readings.'
-              : 'If you know the shop’s air temperature. Leave empty and Baytime works it out from your readings.'
-          }
-          text={ambient}
-          unit={unit}
-          active={active === 'ambient'}
-          invalid={problem?.field === 'ambient'}
-          placeholder="Tap here to enter"
-          onSelect={() => setActive('ambient')}
-        />
-        <p className="bt-entry__problem" role="alert">
-          {problem?.message ?? (start.error ? commandProblem(start.error) : '')}
-        </p>
-        <button
-          type="button"
-          className="bt-action bt-action--go bt-entry__go"
-          onClick={submit}
-          disabled={start.isPending}
-        >
-          {start.isPending ? 'Starting…' : `Start ${kind}`}
-        </button>
+    <StartStepSheet
+      frame={frame}
+      title={`${TIMER_KIND_LABELS[kind]} to a temperature`}
+      problem={problem?.message ?? null}
+      start={start}
+      onSend={submit}
+      label={`Start ${kind}`}
+    >
+      <div className="bt-entry">
+        <div className="bt-entry__fields">
+          <NumberField
+            label={`Target (${unit}), from the maker’s procedure`}
+            text={target}
+            unit={unit}
+            active={active === 'target'}
+            invalid={problem?.field === 'target'}
+            onSelect={() => setActive('target')}
+          />
+          <NumberField
+            label={kind === 'warm-up' ? 'Where it levels off (optional)' : 'Room temperature (optional)'}
+            hint={
+              kind === 'warm-up'
+                ? 'If you know where it settles with the engine running. Leave empty and Baytime works it out from your readings.'
+                : 'If you know the shop’s air temperature. Leave empty and Baytime works it out from your readings.'
+            }
+            text={ambient}
+            unit={unit}
+            active={active === 'ambient'}
+            invalid={problem?.field === 'ambient'}
+            placeholder="Tap here to enter"
+            onSelect={() => setActive('ambient')}
+          />
+        </div>
+        <EntryKeypad apply={apply} rules={TEMPERATURE_ENTRY} onEnter={submit} disabled={start.isPending} />
       </div>
-      <EntryKeypad apply={apply} rules={TEMPERATURE_ENTRY} onEnter={submit} disabled={start.isPending} />
-    </div>
+    </StartStepSheet>
   );
 }
 
-function SetTimeStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: () => void }) {
+function SetTimeStep({ frame }: { frame: StepFrame }) {
+  const { jobLineId, onStarted } = frame;
   const presets = useHoldPresets();
   const [preset, setPreset] = useState<HoldPresetDto | null>(null);
   const [minutes, setMinutes] = useState('');
@@ -276,66 +307,64 @@ function SetTimeStep({ jobLineId, onStarted }: { jobLineId: number; onStarted: (
     );
   };
   const list = presets.data ?? [];
+  const caution = TIMER_CAUTIONS['set-time'];
   return (
-    <div className="bt-entry">
-      <div className="bt-entry__fields">
-        {list.length > 0 && (
-          <>
-            <p className="bt-entry__section-title">The shop’s set times</p>
-            <ul className="bt-presets">
-              {list.map((p) => (
-                <li key={p.id}>
-                  <button
-                    type="button"
-                    className={`bt-choice${preset?.id === p.id ? ' is-selected' : ''}`}
-                    onClick={() => {
-                      setPreset(p);
-                      setMinutes('');
-                      setProblem(null);
-                    }}
-                    aria-pressed={preset?.id === p.id}
-                  >
-                    <span className="bt-choice__words">
-                      <strong>{p.name}</strong>
-                      <small>{durationWords(p.durationSeconds)}</small>
-                    </span>
-                  </button>
-                </li>
-              ))}
-            </ul>
-            <p className="bt-entry__section-title">Or your own time</p>
-          </>
-        )}
-        {presets.isError && (
-          <p className="bt-entry__facts">The shop’s set times could not be loaded: type the minutes.</p>
-        )}
-        <NumberField
-          label="Minutes"
-          text={minutes}
-          unit="min"
-          active={preset === null}
-          invalid={problem !== null}
-          placeholder={list.length > 0 ? 'Or type minutes' : 'Type minutes'}
-          onSelect={() => setPreset(null)}
-        />
-        <p className="bt-entry__problem" role="alert">
-          {problem ?? (start.error ? commandProblem(start.error) : '')}
-        </p>
-        <button
-          type="button"
-          className="bt-action bt-action--go bt-entry__go"
-          onClick={submit}
-          disabled={start.isPending}
-        >
-          {start.isPending
-            ? 'Starting…'
-            : preset
-              ? `Start ${preset.name} · ${durationWords(preset.durationSeconds)}`
-              : 'Start the timer'}
-        </button>
+    <StartStepSheet
+      frame={frame}
+      title={TIMER_KIND_LABELS['set-time']}
+      problem={problem}
+      start={start}
+      onSend={submit}
+      label={preset ? `Start ${preset.name} · ${durationWords(preset.durationSeconds)}` : 'Start the timer'}
+    >
+      <div className="bt-entry">
+        <div className="bt-entry__fields">
+          <p className="bt-caution__spec" role="note">
+            {caution.heading} {caution.source}
+          </p>
+          {list.length > 0 && (
+            <>
+              <p className="bt-entry__section-title">The shop’s set times</p>
+              <ul className="bt-presets">
+                {list.map((p) => (
+                  <li key={p.id}>
+                    <button
+                      type="button"
+                      className={`bt-choice${preset?.id === p.id ? ' is-selected' : ''}`}
+                      onClick={() => {
+                        setPreset(p);
+                        setMinutes('');
+                        setProblem(null);
+                      }}
+                      aria-pressed={preset?.id === p.id}
+                    >
+                      <span className="bt-choice__words">
+                        <strong>{p.name}</strong>
+                        <small>{durationWords(p.durationSeconds)}</small>
+                      </span>
+                    </button>
+                  </li>
+                ))}
+              </ul>
+              <p className="bt-entry__section-title">Or your own time</p>
+            </>
+          )}
+          {presets.isError && (
+            <p className="bt-entry__facts">The shop’s set times could not be loaded: type the minutes.</p>
+          )}
+          <NumberField
+            label="Minutes"
+            text={minutes}
+            unit="min"
+            active={preset === null}
+            invalid={problem !== null}
+            placeholder={list.length > 0 ? 'Or type minutes' : 'Type minutes'}
+            onSelect={() => setPreset(null)}
+          />
+        </div>
+        <EntryKeypad apply={apply} rules={MINUTES_ENTRY} onEnter={submit} disabled={start.isPending} />
       </div>
-      <EntryKeypad apply={apply} rules={MINUTES_ENTRY} onEnter={submit} disabled={start.isPending} />
-    </div>
+    </StartStepSheet>
   );
 }
 

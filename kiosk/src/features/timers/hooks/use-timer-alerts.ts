@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { audioState, playChime } from '@/lib/chime';
 import { useWatchToken } from '@/hooks/use-watch-token';
-import { tokenSubject } from '@/lib/listen-token';
+import { recentlySignedIn, useSignedInHere } from '@/lib/signed-in-here';
 import {
   decideAlerts,
   liveAlerts,
@@ -41,13 +41,13 @@ export interface TimerAlerts {
 }
 
 /**
- * Watches the running timers of the technician signed in (or last signed in) here, and chimes once
- * when one reaches its target or a set time runs out: another technician's timer chimes on their own
- * kiosk. Lives as long as the page, under the routes.
+ * Watches the running timers of everyone who signed in here during the shift, and chimes once when
+ * one reaches its target or a set time runs out: a technician who never used this tablet hears
+ * theirs on their own. Lives as long as the page, under the routes.
  */
 export function useTimerAlerts(): TimerAlerts {
   const token = useWatchToken();
-  const technicianId = token === null ? null : tokenSubject(token);
+  const signedIn = useSignedInHere();
   const timers = useTimers(token !== null);
   const bays = useBays(token !== null);
   const memory = useRef<AlertMemory | null>(null);
@@ -60,7 +60,9 @@ export function useTimerAlerts(): TimerAlerts {
     if (!data) return;
     memory.current ??= { seenRunning: new Set(), announced: loadAnnounced() };
     const tick = () => {
-      const decision = decideAlerts(data, memory.current!, { now: Date.now(), fetchedAt, technicianId });
+      const now = Date.now();
+      const watching = recentlySignedIn(signedIn, now);
+      const decision = decideAlerts(data, memory.current!, { now, fetchedAt, watching });
       const changed = decision.memory.announced.size !== memory.current!.announced.size;
       memory.current = decision.memory;
       if (changed) saveAnnounced(decision.memory);
@@ -76,7 +78,7 @@ export function useTimerAlerts(): TimerAlerts {
     if (!hasSetTime) return;
     const timer = setInterval(tick, 1000);
     return () => clearInterval(timer);
-  }, [data, fetchedAt, technicianId]);
+  }, [data, fetchedAt, signedIn]);
 
   const dismiss = useCallback(
     (timerId: number) => setAlerts((shown) => shown.filter((a) => a.timerId !== timerId)),
