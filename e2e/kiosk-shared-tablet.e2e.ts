@@ -38,9 +38,9 @@ async function signOut(page: Page): Promise<void> {
 async function expectOnScreen(locator: Locator, page: Page): Promise<void> {
   const box = await locator.boundingBox();
   const screen = page.viewportSize()!;
-  expect(box).not.toBeNull();
-  expect(box!.y).toBeGreaterThanOrEqual(0);
-  expect(box!.y + box!.height).toBeLessThanOrEqual(screen.height);
+  if (!box) throw new Error(`${String(locator)} is not on the page`);
+  expect(box.y).toBeGreaterThanOrEqual(0);
+  expect(box.y + box.height).toBeLessThanOrEqual(screen.height);
 }
 
 describe('a kiosk shared by the shop', () => {

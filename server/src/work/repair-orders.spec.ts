@@ -341,9 +341,12 @@ describe(RepairOrdersService.name, () => {
     const kiosk = sut.connect(tech.accessToken);
     await nextEvent(kiosk, 'board.snapshot');
     const heard = nextEvent(kiosk, 'timer.updated', (event) => event.timerId === timer.id);
+    const closing = Date.now();
     await sut.http().post(`/api/repair-orders/${ro.id}/close`).auth(advisor, { type: 'bearer' }).expect(200);
     expect(await heard).toMatchObject({ timerId: timer.id, bayId: bay.id });
-    expect(db.select().from(timers).where(eq(timers.id, timer.id)).get()!.endedAt).not.toBeNull();
+    const endedAt = db.select().from(timers).where(eq(timers.id, timer.id)).get()!.endedAt;
+    expect(endedAt?.getTime()).toBeGreaterThanOrEqual(closing);
+    expect(endedAt?.getTime()).toBeLessThanOrEqual(Date.now());
     expect((await board()).bays.find((b) => b.id === bay.id)).toMatchObject({ state: 'free', timer: null });
     const running = (
       await sut.http().get('/api/timers').auth(tech.accessToken, { type: 'bearer' }).expect(200)
