@@ -6,6 +6,7 @@ import {
   confirmQuestion,
   dragAnnouncements,
   joinNames,
+  moveRefusal,
   needsConfirm,
   dropId,
   laneLoad,
@@ -124,12 +125,17 @@ describe(planMove.name, () => {
     expect(plan?.summary).toContain('moved to Sam Ortega');
   });
 
-  it('asks before putting a line in a bay that holds another repair order', () => {
+  it('refuses a bay that holds another repair order, in the server’s words, rather than asking', () => {
     const waiting = line({ id: 22 });
     const other = line({ id: 23, technicianId: 3, bayId: 1 });
     const sut = board([waiting], [lane(3, 'Dana Okafor', 4, [other])]);
-    expect(planMove(sut, 22, { kind: 'bay', bayId: 1 })?.bayTaken).toBe('Bay 1');
-    expect(planMove(sut, 22, { kind: 'bay', bayId: 2 })?.bayTaken).toBeNull();
+    const taken = planMove(sut, 22, { kind: 'bay', bayId: 1 })!;
+    expect(taken.bayTaken).toBe('Bay 1');
+    expect(moveRefusal(taken)).toBe(
+      "Bay 1 holds another repair order's vehicle until it leaves: pick another bay, or release Bay 1 first",
+    );
+    expect(needsConfirm(taken)).toBe(false);
+    expect(moveRefusal(planMove(sut, 22, { kind: 'bay', bayId: 2 })!)).toBeNull();
   });
 
   it('does not ask when the bay already holds the same repair order', () => {
@@ -234,13 +240,6 @@ describe(confirmQuestion.name, () => {
       text: 'Dana and Luis are clocked on this line. Move it and clock Dana and Luis off?',
       action: 'Move and clock Dana and Luis off',
     });
-  });
-
-  it('asks about an occupied bay when nobody is clocked on', () => {
-    const waiting = line({ id: 42 });
-    const plan = planMove(board([waiting], []), 42, { kind: 'bay', bayId: 1 })!;
-    expect(needsConfirm(plan)).toBe(true);
-    expect(confirmQuestion(plan).action).toBe('Use Bay 1');
   });
 
   it('does not ask for a plain move', () => {

@@ -84,7 +84,7 @@ export interface MovePlan {
   clocksOff: string[];
   /** Not a reason to refuse: the foreman decides. */
   skillWarning: string | null;
-  /** The bay already holds another repair order's vehicle: ask before moving. */
+  /** The bay holds another repair order's vehicle until it leaves: the server refuses the move. */
   bayTaken: string | null;
   /** Plain words for what the move does, for the notice and screen readers. */
   summary: string;
@@ -194,27 +194,27 @@ export function joinNames(names: readonly string[]): string {
   return names.length < 2 ? (names[0] ?? '') : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
 }
 
-/** The question asked before a move that clocks someone off or takes an occupied bay. */
+/** The question asked before a move that clocks someone off. */
 export function confirmQuestion(plan: MovePlan): { title: string; text: string; action: string } {
-  if (plan.clocksOff.length > 0) {
-    const names = joinNames(plan.clocksOff);
-    const verb = plan.clocksOff.length > 1 ? 'are' : 'is';
-    return {
-      title: 'Move a line someone is working on?',
-      text: `${names} ${verb} clocked on this line. Move it and clock ${names} off?`,
-      action: `Move and clock ${names} off`,
-    };
-  }
+  const names = joinNames(plan.clocksOff);
+  const verb = plan.clocksOff.length > 1 ? 'are' : 'is';
   return {
-    title: `${plan.bayTaken} is in use`,
-    text: `${plan.bayTaken} holds another repair order's vehicle. Set this line to ${plan.bayTaken} anyway?`,
-    action: `Use ${plan.bayTaken}`,
+    title: 'Move a line someone is working on?',
+    text: `${names} ${verb} clocked on this line. Move it and clock ${names} off?`,
+    action: `Move and clock ${names} off`,
   };
 }
 
-/** Moves that clock someone off or take an occupied bay are asked about first. */
+/** Moves that clock someone off are asked about first. */
 export function needsConfirm(plan: MovePlan): boolean {
-  return plan.clocksOff.length > 0 || plan.bayTaken !== null;
+  return plan.clocksOff.length > 0;
+}
+
+/** Why the move cannot be made, in the words the server would answer; null when it can. */
+export function moveRefusal(plan: MovePlan): string | null {
+  return plan.bayTaken
+    ? `${plan.bayTaken} holds another repair order's vehicle until it leaves: pick another bay, or release ${plan.bayTaken} first`
+    : null;
 }
 
 /** A line in the shop's words: "Line 2 of RO 4645, Brake pads". */

@@ -42,9 +42,6 @@ export function ConfirmMoveDialog({
                 {plan.line.title}
               </Body1>
               <Body1>{question.text}</Body1>
-              {plan.clocksOff.length > 0 && plan.bayTaken && (
-                <Body1>{plan.bayTaken} also holds another repair order&apos;s vehicle.</Body1>
-              )}
               {plan.skillWarning && <Body1 className={styles.warn}>{plan.skillWarning}.</Body1>}
             </DialogContent>
             <DialogActions>

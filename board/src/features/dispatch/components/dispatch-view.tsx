@@ -32,6 +32,7 @@ import {
   dragAnnouncements,
   findLane,
   findLine,
+  moveRefusal,
   needsConfirm,
   planMove,
   targetFromDropId,
@@ -234,7 +235,9 @@ function DispatchBoardView({
   const request = (lineId: number, target: MoveTarget, fromMenu: boolean) => {
     const plan = planMove(board, lineId, target);
     if (!plan) return;
-    if (needsConfirm(plan)) setConfirming({ plan, fromMenu });
+    const refusal = moveRefusal(plan);
+    if (refusal) setNotice({ intent: 'error', text: `Not moved: ${refusal}.` });
+    else if (needsConfirm(plan)) setConfirming({ plan, fromMenu });
     else commit(plan, fromMenu);
   };
 
