@@ -5,6 +5,7 @@ import { count } from 'drizzle-orm';
 import type { AnySQLiteTable } from 'drizzle-orm/sqlite-core';
 import { fileURLToPath } from 'node:url';
 import * as schema from './schema/index.js';
+import { runPendingUpgrades } from './upgrades.js';
 
 export type Db = BetterSQLite3Database<typeof schema>;
 export interface Sqlite {
@@ -42,6 +43,7 @@ function migrateWithTableRebuilds(connection: Database.Database, db: Db): void {
   connection.pragma('foreign_keys = OFF');
   const appliedBefore = appliedMigrations(connection);
   migrate(db, { migrationsFolder });
+  runPendingUpgrades(connection);
   // Only a migration can have broken a key: the check reads every key of every row (most of a second
   // on years of punches), so a start with nothing to migrate goes without it.
   if (appliedMigrations(connection) === appliedBefore) return;

@@ -474,6 +474,7 @@ export class DemoShopSeeder {
       },
     ]);
     this.punch(sam, 'job-on', ago(130), { jobLineId: ready.lineIds[0]! });
+    this.punch(sam, 'job-off', ago(70), { jobLineId: ready.lineIds[0]! });
     this.punch(sam, 'job-on', ago(70), { jobLineId: ready.lineIds[1]! });
     this.punch(sam, 'job-off', ago(35), { jobLineId: ready.lineIds[1]! });
     this.setBay(bay(6), 'ready', ready.id, ago(35));

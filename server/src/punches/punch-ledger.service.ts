@@ -5,6 +5,7 @@ import {
   PUNCH_WORDS,
   formatDayClockTime,
   inSentence,
+  jobOffsFor,
   type DisplacedPunch,
   type LedgerPunch,
   type PunchDto,
@@ -58,6 +59,27 @@ export class PunchLedgerService {
       .orderBy(asc(punches.at))
       .all()
       .map(toPunchDto);
+  }
+
+  /**
+   * `punch` with the job-offs it implies before it, at the same instant: a clock-on at the shop's
+   * jobs-at-once limit closes the oldest open line, on record, so a later change of the limit leaves
+   * the past as it was counted.
+   */
+  withJobOffs(existing: readonly LedgerPunch[], punch: LedgerPunch): LedgerPunch[] {
+    const offs = jobOffsFor(existing, punch, this.shop.settings().maxConcurrentJobs);
+    return [
+      ...offs.map((off) => ({
+        id: randomUUID(),
+        technicianId: punch.technicianId,
+        kind: 'job-off' as const,
+        jobLineId: off.jobLineId,
+        breakKind: null,
+        at: off.at,
+        supersedes: null,
+      })),
+      punch,
+    ];
   }
 
   /** "the clock on at Tue, Dec 1, 3:10 pm (RO 4410 · Replace water pump)", for each punch. */

@@ -140,7 +140,9 @@ export class PunchesService {
       at: at.toISOString(),
       supersedes: null,
     };
-    const impact = punchImpact(this.floor.punchesOf(technicianId), candidate, this.shop.settings(now));
+    const counted = this.floor.punchesOf(technicianId);
+    const added = this.ledger.withJobOffs(counted, candidate);
+    const impact = punchImpact(counted, added, this.shop.settings(now));
     const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
     const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
     // A replay's later punch may only fit after its held one (a clock-on after a held shift-in): it waits too.
@@ -153,7 +155,7 @@ export class PunchesService {
       throw new ConflictException(this.displacementWords('That punch', impact));
     }
 
-    const punch = this.ledger.insert(candidate, { at: now, by: actor.id });
+    const punch = added.map((each) => this.ledger.insert(each, { at: now, by: actor.id })).at(-1)!;
     if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
       const taken = line.technicianId === null;
       const updated = this.db
@@ -192,21 +194,19 @@ export class PunchesService {
   acceptHeld(id: string, { reason }: ResolutionBody, actor: Principal, now = new Date()): HeldPunchDto {
     const held = this.pendingHeld(id);
     this.closedWeeks.assertOpenAt(held.at, 'That punch');
-    const candidate = heldToLedger(held);
-    const impact = punchImpact(
-      this.ledger.around(held.technicianId, held.at),
-      candidate,
-      this.shop.settings(now),
-    );
+    const existing = this.ledger.around(held.technicianId, held.at);
+    const added = this.ledger.withJobOffs(existing, heldToLedger(held));
+    const impact = punchImpact(existing, added, this.shop.settings(now));
     if (impact.refusal)
       throw new ConflictException(
         `It no longer fits the timecard (${impact.refusal}): reject it or correct the card`,
       );
-    this.ledger.insert(candidate, {
-      at: held.recordedAt,
-      by: held.recordedBy,
-      reason: `Held for review, accepted by the office: ${reason}`,
-    });
+    for (const punch of added)
+      this.ledger.insert(punch, {
+        at: held.recordedAt,
+        by: held.recordedBy,
+        reason: `Held for review, accepted by the office: ${reason}`,
+      });
     const voided = this.ledger.voidDisplaced(
       impact.displaced,
       actor,

@@ -95,4 +95,35 @@ describe(PunchesService.name, () => {
     expect((await bayUpdate).bay.technicians.map((t) => t.name)).toContain('Jo W.');
     expect((await myDay()).openJobLineIds).toEqual([line.id]);
   });
+
+  it('records the job-off a switch implies, so a later jobs-at-once limit leaves the past as counted', async () => {
+    const [foreman, owner] = [await sut.signIn(DEMO.foreman), await sut.signIn(DEMO.owner)];
+    const board = (await sut.http().get('/api/board').auth(foreman, { type: 'bearer' }).expect(200)).body as {
+      queue: { jobLineId: number }[];
+    };
+    const [first, second] = board.queue.map((line) => line.jobLineId);
+    const forJo = (body: Record<string, unknown>) =>
+      punch({ technicianId: tech.user.id, ...body }, foreman).expect(201);
+    await forJo({ kind: 'shift-in' });
+    await forJo({ kind: 'job-on', jobLineId: first });
+    const wall = sut.connect(owner);
+    await nextEvent(wall, 'board.snapshot');
+    const off = nextEvent(
+      wall,
+      'punch.recorded',
+      ({ punch }) => punch.kind === 'job-off' && punch.jobLineId === first,
+    );
+    await forJo({ kind: 'job-on', jobLineId: second });
+    expect((await off).punch.technicianId).toBe(tech.user.id);
+    expect((await myDay()).openJobLineIds).toEqual([second]);
+
+    const shop = sut.http().patch('/api/shop').auth(owner, { type: 'bearer' });
+    await shop.send({ maxConcurrentJobs: 2 }).expect(200);
+    try {
+      // Read again under two jobs at a time, the first line stays closed where the switch closed it.
+      expect((await myDay()).openJobLineIds).toEqual([second]);
+    } finally {
+      await sut.http().patch('/api/shop').auth(owner, { type: 'bearer' }).send({ maxConcurrentJobs: 1 });
+    }
+  });
 });

@@ -192,7 +192,7 @@ export class TimecardsService {
    */
   @Transactional()
   correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
-    const { candidate, impact } = this.plan(body, now);
+    const { added, impact } = this.plan(body, now);
     if (impact.refusal)
       throw new ConflictException(`That correction does not fit the timecard: ${impact.refusal}`);
     const confirmed = new Set(body.displaces ?? []);
@@ -207,7 +207,9 @@ export class TimecardsService {
               .replace('ask the foreman to correct the timecard', 'check them in the preview and confirm')
           : 'That correction displaces no punch any more: save it again without the confirmation',
       );
-    const punch = this.ledger.insert(candidate, { at: now, by: actor.id, reason: body.reason });
+    const punch = added
+      .map((each) => this.ledger.insert(each, { at: now, by: actor.id, reason: body.reason }))
+      .at(-1)!;
     const voided = this.ledger.voidDisplaced(
       impact.displaced,
       actor,
@@ -231,7 +233,7 @@ export class TimecardsService {
   }
 
   /** The checks every correction passes, and what it would do to the counted punches. */
-  private plan(body: CorrectionBody, now: Date): { candidate: LedgerPunch; impact: PunchImpact } {
+  private plan(body: CorrectionBody, now: Date): { added: LedgerPunch[]; impact: PunchImpact } {
     const at = new Date(body.at);
     if (at > now) throw new BadRequestException('A correction cannot be in the future');
     referencedOrFail(
@@ -269,8 +271,9 @@ export class TimecardsService {
       at: at.toISOString(),
       supersedes: body.punchId ?? null,
     };
-    const impact = punchImpact(this.ledger.around(body.technicianId, at), candidate, this.shop.settings(now));
-    return { candidate, impact };
+    const existing = this.ledger.around(body.technicianId, at);
+    const added = this.ledger.withJobOffs(existing, candidate);
+    return { added, impact: punchImpact(existing, added, this.shop.settings(now)) };
   }
 
   private namesOf(ids: number[]): Map<number, string> {

@@ -4,7 +4,7 @@ import type { BreakKind, PunchKind } from '../punches/punches.schema.js';
 import { ledgerExceptions } from './ledger-exceptions.js';
 
 const settings = { timeZone: 'UTC', longShiftHours: 14, minimumMealMinutes: 30 };
-const ledgerSettings = { concurrentSplit: 'even' as const, maxConcurrentJobs: 1, minimumMealMinutes: 30 };
+const ledgerSettings = { concurrentSplit: 'even' as const, minimumMealMinutes: 30 };
 let serial = 0;
 const punch = (kind: PunchKind, time: string, breakKind: BreakKind | null = null): LedgerPunch => ({
   id: `e${++serial}`,

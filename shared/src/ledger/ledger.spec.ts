@@ -4,6 +4,8 @@ import { PUNCH_KINDS, type BreakKind, type PunchKind } from '../punches/punches.
 import { shopLocalInstant } from '../time/workweek.js';
 import {
   buildLedger,
+  impliedJobOffs,
+  jobOffsFor,
   punchImpact,
   PUNCH_REFUSALS,
   technicianState,
@@ -12,8 +14,7 @@ import {
   type LedgerSettings,
 } from './ledger.js';
 
-const even: LedgerSettings = { concurrentSplit: 'even', maxConcurrentJobs: 2, minimumMealMinutes: 30 };
-const single: LedgerSettings = { ...even, maxConcurrentJobs: 1 };
+const even: LedgerSettings = { concurrentSplit: 'even', minimumMealMinutes: 30 };
 const at = (hhmm: string) => `2026-03-10T${hhmm}:00Z`;
 const hours = (seconds: number) => seconds / 3600;
 let counter = 0;
@@ -181,26 +182,60 @@ describe(buildLedger.name, () => {
       expect(hours(totals.idleSeconds)).toBe(1);
     });
 
-    it('closes the other line when only one may be open', () => {
-      const jobs = buildLedger(overlap, new Date(at('12:00')), single);
-      expect(jobs.jobs.map((j) => [j.jobLineId, j.from.getUTCHours(), j.to.getUTCHours()])).toEqual([
-        [1, 9, 10],
-        [2, 10, 12],
-      ]);
-      expect(jobs.anomalies).toEqual([{ punchId: overlap[3]!.id, reason: PUNCH_REFUSALS.notOnLine }]);
-    });
-
-    it('closes the oldest line when the limit is exceeded', () => {
-      const three = [punch('shift-in', '08:00'), on(1, '08:00'), on(2, '09:00'), on(3, '10:00')];
-      const result = buildLedger(three, new Date(at('11:00')), even);
-      expect(result.jobs.map((j) => [j.jobLineId, j.to.getUTCHours(), j.open])).toEqual([
-        [1, 10, false],
-        [2, 11, true],
-        [3, 11, true],
+    it('reads two open lines as two, whatever the jobs-at-once limit: the limit is kept when punching', () => {
+      const result = buildLedger(overlap.slice(0, 3), new Date(at('11:00')), even);
+      expect(result.jobs.map((j) => [j.jobLineId, j.open])).toEqual([
+        [1, true],
+        [2, true],
       ]);
     });
   });
+});
 
+describe(jobOffsFor.name, () => {
+  const onOne = [punch('shift-in', '08:00'), on(1, '09:00')];
+
+  it('closes the open line at the same instant when only one may be open', () => {
+    const next = on(2, '10:00');
+    expect(jobOffsFor(onOne, next, 1)).toEqual([{ jobLineId: 1, at: at('10:00'), causedBy: next.id }]);
+    expect(jobOffsFor(onOne, next, 2)).toEqual([]);
+  });
+
+  it('closes the oldest lines down to the limit, a lowered limit included', () => {
+    const three = [...onOne, on(2, '09:30'), on(3, '09:45')];
+    const next = on(4, '10:00');
+    expect(jobOffsFor(three, next, 3).map((o) => o.jobLineId)).toEqual([1]);
+    expect(jobOffsFor(three, next, 1).map((o) => o.jobLineId)).toEqual([1, 2, 3]);
+  });
+
+  it('judges a late clock-on by the lines open where it falls, not by the latest ones', () => {
+    const day = [...onOne, off(1, '11:00'), on(2, '12:00')];
+    expect(jobOffsFor(day, on(3, '10:00'), 1).map((o) => [o.jobLineId, o.at])).toEqual([[1, at('10:00')]]);
+    expect(jobOffsFor(day, on(3, '11:30'), 1)).toEqual([]);
+  });
+
+  it('implies none for any other punch, or a clock-on that does not fit', () => {
+    expect(jobOffsFor(onOne, off(1, '10:00'), 1)).toEqual([]);
+    expect(jobOffsFor([...onOne, pause('rest', '09:30')], on(2, '10:00'), 1)).toEqual([]);
+  });
+});
+
+describe(impliedJobOffs.name, () => {
+  it('finds each job-off the old reading implied, and none once they are on record', () => {
+    const switches = [punch('shift-in', '08:00'), on(1, '09:00'), on(2, '10:00'), off(2, '11:00')];
+    const implied = impliedJobOffs(switches, 1);
+    expect(implied).toEqual([{ jobLineId: 1, at: at('10:00'), causedBy: switches[2]!.id }]);
+    const recorded = [...switches, off(1, '10:00')];
+    expect(impliedJobOffs(recorded, 1)).toEqual([]);
+    // On record, the day reads as it was counted, and the reading takes no limit that could change it.
+    expect(buildLedger(recorded, new Date(at('12:00')), even).totals.jobSeconds).toEqual({
+      1: 3600,
+      2: 3600,
+    });
+  });
+});
+
+describe(buildLedger.name, () => {
   it('closes jobs at a break and everything at shift-out', () => {
     const result = buildLedger(
       [punch('shift-in', '08:00'), on(1, '08:00'), pause('meal', '12:00'), punch('shift-out', '12:30')],
@@ -403,11 +438,11 @@ describe(`${punchImpact.name}: refusals`, () => {
     ['shift-in twice', onShift, punch('shift-in', '09:00'), 'You are already on shift'],
     ['job-off on another line', onShift, off(2, '09:00'), 'You are not clocked on that line'],
   ])('refuses %s', (_, existing, next, reason) => {
-    expect(punchImpact(existing, next, even).refusal).toBe(reason);
+    expect(punchImpact(existing, [next], even).refusal).toBe(reason);
   });
 
   it('accepts a possible punch', () => {
-    expect(punchImpact(onShift, off(1, '09:00'), even)).toEqual({
+    expect(punchImpact(onShift, [off(1, '09:00')], even)).toEqual({
       refusal: null,
       displaced: [],
       lowersCounted: false,
@@ -416,8 +451,8 @@ describe(`${punchImpact.name}: refusals`, () => {
 
   it('judges a late offline punch where it falls in time', () => {
     const existing = [punch('shift-in', '08:00'), punch('shift-out', '12:00')];
-    expect(punchImpact(existing, on(1, '09:00'), even).refusal).toBeNull();
-    expect(punchImpact(existing, on(1, '13:00'), even).refusal).toBe('You are not on shift');
+    expect(punchImpact(existing, [on(1, '09:00')], even).refusal).toBeNull();
+    expect(punchImpact(existing, [on(1, '13:00')], even).refusal).toBe('You are not on shift');
   });
 });
 
@@ -427,7 +462,7 @@ describe(punchImpact.name, () => {
 
   it('names the counted punches a late shift-out would make impossible', () => {
     const late = punch('shift-out', '13:00');
-    const impact = punchImpact(day, late, even);
+    const impact = punchImpact(day, [late], even);
     expect(impact.refusal).toBeNull();
     expect(impact.displaced.map((p) => p.id)).toEqual([day[1]!.id, day[2]!.id, day[3]!.id]);
     expect(impact.lowersCounted).toBe(true);
@@ -435,41 +470,41 @@ describe(punchImpact.name, () => {
 
   it('sees a late meal that a later shift-out would stretch over counted time', () => {
     const meal = pause('meal', '12:00');
-    const impact = punchImpact([punch('shift-in', '08:00'), punch('shift-out', '17:00')], meal, even);
+    const impact = punchImpact([punch('shift-in', '08:00'), punch('shift-out', '17:00')], [meal], even);
     expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: true });
   });
 
   it('takes a difference within the clock slack between tablets (2 min) for no change', () => {
     // A rest break tapped on another tablet closes the job a minute before the shift-out that closed it.
     const shift = [punch('shift-in', '08:00'), on(1, '08:00'), punch('shift-out', '12:00')];
-    expect(punchImpact(shift, pause('rest', '11:59'), even)).toEqual({
+    expect(punchImpact(shift, [pause('rest', '11:59')], even)).toEqual({
       refusal: null,
       displaced: [],
       lowersCounted: false,
     });
-    expect(punchImpact(shift, pause('rest', '11:57'), even).lowersCounted).toBe(true);
+    expect(punchImpact(shift, [pause('rest', '11:57')], even).lowersCounted).toBe(true);
   });
 
   it('lets a punch after the last counted one change nothing counted', () => {
     const meal = pause('meal', '12:00');
-    const impact = punchImpact([punch('shift-in', '08:00'), on(1, '09:00')], meal, even);
+    const impact = punchImpact([punch('shift-in', '08:00'), on(1, '09:00')], [meal], even);
     expect(impact).toEqual({ refusal: null, displaced: [], lowersCounted: false });
   });
 
   it('gives the refusal of a punch that does not fit itself', () => {
-    expect(punchImpact([], on(1, '09:00'), even).refusal).toBe(PUNCH_REFUSALS.notOnShift);
+    expect(punchImpact([], [on(1, '09:00')], even).refusal).toBe(PUNCH_REFUSALS.notOnShift);
   });
 
   it('judges a punch at the same instant as the last counted one in full', () => {
     // Same instant, same kind: the order falls to the ids, and the new one can come first.
     const shift = [punch('shift-in', '08:00', { id: 'b1' }), punch('shift-out', '12:00', { id: 'b2' })];
     const again = punch('shift-out', '12:00', { id: 'a1' });
-    expect(punchImpact(shift, again, even).displaced).toEqual([shift[1]]);
+    expect(punchImpact(shift, [again], even).displaced).toEqual([shift[1]]);
   });
 
   it('does not count a punch a correction replaces as displaced', () => {
     const moved = punch('shift-out', '16:30', { supersedes: day[3]!.id });
-    expect(punchImpact(day, moved, even).displaced).toEqual([]);
+    expect(punchImpact(day, [moved], even).displaced).toEqual([]);
   });
 });
 
@@ -502,7 +537,6 @@ describe(`${buildLedger.name} properties`, () => {
     );
   const settingsArb = fc.record({
     concurrentSplit: fc.constantFrom('even' as const, 'full' as const),
-    maxConcurrentJobs: fc.integer({ min: 1, max: 4 }),
     minimumMealMinutes: fc.integer({ min: 10, max: 60 }),
   });
   const now = new Date(base + 17 * 3600_000);
@@ -635,7 +669,7 @@ describe(`${buildLedger.name} properties`, () => {
         const window = [new Date(base - 3600_000), new Date(countedUntil)] as const;
         const [was, will] = [before.within(...window), after.within(...window)];
         const slack = 120;
-        expect(punchImpact(existing, candidate, settings)).toEqual({
+        expect(punchImpact(existing, [candidate], settings)).toEqual({
           refusal: after.anomalies.find((a) => a.punchId === candidate.id)?.reason ?? null,
           displaced: after.anomalies
             .filter((a) => a.punchId !== candidate.id && !wasAnomaly.has(a.punchId))

@@ -12,10 +12,7 @@ export type LedgerPunch = Pick<
   'id' | 'technicianId' | 'kind' | 'jobLineId' | 'breakKind' | 'at' | 'supersedes'
 > &
   Partial<Pick<PunchDto, 'voids'>>;
-export type LedgerSettings = Pick<
-  ShopSettings,
-  'concurrentSplit' | 'maxConcurrentJobs' | 'minimumMealMinutes'
->;
+export type LedgerSettings = Pick<ShopSettings, 'concurrentSplit' | 'minimumMealMinutes'>;
 
 /**
  * The ledger settings alone, as one string: what is counted from a ledger and kept must be counted
@@ -24,7 +21,6 @@ export type LedgerSettings = Pick<
 export function ledgerSettingsKey(settings: LedgerSettings): string {
   const ledger: Record<keyof LedgerSettings, unknown> = {
     concurrentSplit: settings.concurrentSplit,
-    maxConcurrentJobs: settings.maxConcurrentJobs,
     minimumMealMinutes: settings.minimumMealMinutes,
   };
   return JSON.stringify(ledger);
@@ -180,9 +176,60 @@ function totalsOf(
 
 /**
  * One technician's punches → shift, break and job intervals and their totals. Order of arrival never
- * matters; open intervals run to `now` (or to their own start when a tablet clock ran ahead).
+ * matters; open intervals run to `now` (or to their own start when a tablet clock ran ahead). Every
+ * job-off is on record: the shop's jobs-at-once rule is kept when punches are written (`jobOffsFor`),
+ * so changing it never re-reads the past.
  */
 export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings: LedgerSettings): Ledger {
+  return readLedger(punches, now, settings, () => Infinity, []);
+}
+
+/** Settings for reading job intervals alone: how breaks count does not change them. */
+const INTERVALS_ONLY: LedgerSettings = { concurrentSplit: 'even', minimumMealMinutes: 0 };
+
+/** A job-off that a clock-on beyond the shop's jobs-at-once limit implies: the oldest open line closes. */
+export interface ImpliedJobOff {
+  jobLineId: number;
+  at: string;
+  /** The clock-on that closes it. */
+  causedBy: string;
+}
+
+/**
+ * The job-offs a clock-on beyond `maxConcurrentJobs` implies, through a technician's punches. Punches
+ * were once read that way without the job-off on record; these are what must be recorded for the past
+ * to read the same under any later limit.
+ */
+export function impliedJobOffs(punches: readonly LedgerPunch[], maxConcurrentJobs: number): ImpliedJobOff[] {
+  const implied: ImpliedJobOff[] = [];
+  readLedger(punches, new Date(0), INTERVALS_ONLY, () => maxConcurrentJobs, implied);
+  return implied;
+}
+
+/**
+ * The job-offs to record with `punch` so the technician stays within `maxConcurrentJobs` open lines:
+ * a clock-on at the limit closes the oldest open line at the same instant. None for any other punch.
+ */
+export function jobOffsFor(
+  existing: readonly LedgerPunch[],
+  punch: LedgerPunch,
+  maxConcurrentJobs: number,
+): ImpliedJobOff[] {
+  if (punch.kind !== 'job-on') return [];
+  const implied: ImpliedJobOff[] = [];
+  // The punches on record were kept to the limit of their day: only the new one meets today's.
+  const limitOf = (each: LedgerPunch) => (each.id === punch.id ? maxConcurrentJobs : Infinity);
+  readLedger([...existing, punch], new Date(0), INTERVALS_ONLY, limitOf, implied);
+  return implied;
+}
+
+function readLedger(
+  punches: readonly LedgerPunch[],
+  now: Date,
+  settings: LedgerSettings,
+  limitOf: (jobOn: LedgerPunch) => number,
+  implied: ImpliedJobOff[],
+): Ledger {
   if (new Set(punches.map((p) => p.technicianId)).size > 1) throw new Error('A ledger is for one technician');
   const shifts: LedgerInterval[] = [];
   const breaks: BreakInterval[] = [];
@@ -246,7 +293,11 @@ export function buildLedger(punches: readonly LedgerPunch[], now: Date, settings
         if (openBreak) return PUNCH_REFUSALS.onBreak;
         if (line === null) return PUNCH_REFUSALS.noLine;
         if (openJobs.has(line)) return PUNCH_REFUSALS.alreadyOnLine;
-        if (openJobs.size >= settings.maxConcurrentJobs) closeJob(openJobs.keys().next().value!, at);
+        while (openJobs.size >= limitOf(punch)) {
+          const oldest = openJobs.keys().next().value!;
+          implied.push({ jobLineId: oldest, at: punch.at, causedBy: punch.id });
+          closeJob(oldest, at);
+        }
         openJobs.set(line, { from: at, punchId: punch.id });
         return null;
       case 'job-off':
@@ -303,28 +354,33 @@ export interface PunchImpact {
 }
 
 /**
- * What recording `punch` would do to the punches already counted. A punch that arrives late (an offline
- * replay, a correction) can fit where it falls and still make later punches impossible: those are the
- * displaced ones, and the counted hours of the past must never change without a person deciding.
+ * What recording `added` (a punch, with the job-offs it implies) would do to the punches already counted.
+ * A punch that arrives late (an offline replay, a correction) can fit where it falls and still make later
+ * punches impossible: those are the displaced ones, and the counted hours of the past must never change
+ * without a person deciding.
  */
 export function punchImpact(
   existing: readonly LedgerPunch[],
-  punch: LedgerPunch,
+  added: readonly LedgerPunch[],
   settings: LedgerSettings,
 ): PunchImpact {
   const lastCounted = effectivePunches(existing).at(-1);
   const countedUntil = lastCounted ? Date.parse(lastCounted.at) : -Infinity;
-  const horizon = new Date(Math.max(countedUntil, Date.parse(punch.at)));
-  const after = buildLedger([...existing, punch], horizon, settings);
-  const refusal = after.anomalies.find((a) => a.punchId === punch.id)?.reason ?? null;
-  // A punch after every counted one that corrects none leaves their order, so their fit and time, as it was.
-  if (Date.parse(punch.at) > countedUntil && punch.supersedes === null && !punch.voids)
+  const addedIds = new Set(added.map((punch) => punch.id));
+  const latest = Math.max(...added.map((punch) => Date.parse(punch.at)));
+  const horizon = new Date(Math.max(countedUntil, latest));
+  const after = buildLedger([...existing, ...added], horizon, settings);
+  const refusal = after.anomalies.find((a) => addedIds.has(a.punchId))?.reason ?? null;
+  // Punches after every counted one that correct none leave their order, so their fit and time, as it was.
+  if (
+    added.every((punch) => Date.parse(punch.at) > countedUntil && punch.supersedes === null && !punch.voids)
+  )
     return { refusal, displaced: [], lowersCounted: false };
   const before = buildLedger(existing, horizon, settings);
   const wasAnomaly = new Set(before.anomalies.map((a) => a.punchId));
   const byId = new Map(existing.map((p) => [p.id, p]));
   const displaced = after.anomalies
-    .filter((a) => a.punchId !== punch.id && !wasAnomaly.has(a.punchId))
+    .filter((a) => !addedIds.has(a.punchId) && !wasAnomaly.has(a.punchId))
     .map((a) => byId.get(a.punchId)!);
   const window = [new Date(-8.64e15), new Date(Math.max(countedUntil, -8.64e15))] as const;
   const [was, will] = [before.within(...window), after.within(...window)];

@@ -50,3 +50,11 @@ export const mailOutbox = sqliteTable(
     oneOf(t.status, MAIL_STATUSES),
   ],
 );
+
+/**
+ * Changes to stored rows that a migration's SQL cannot make (they need the shop's rules in code). A
+ * migration adds a row; start-up carries it out once, in one transaction with the row's removal.
+ */
+export const pendingUpgrades = sqliteTable('pending_upgrades', {
+  name: text('name').primaryKey(),
+});

@@ -354,6 +354,7 @@ function ShopForm({
           <Field
             label="Jobs a technician may be clocked on at once"
             validationMessage={errors.maxConcurrentJobs}
+            hint="Clocking onto one more closes the oldest. A change applies from the next clock-on: time already clocked stays as it was."
           >
             <Select value={String(draft.maxConcurrentJobs)} onChange={number('maxConcurrentJobs')}>
               {[1, 2, 3, 4].map((n) => (
