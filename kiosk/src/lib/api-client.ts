@@ -1,5 +1,5 @@
 import { createApiClient } from '@baytime/shared/client';
-import { listenToken } from './listen-token';
+import { device } from './device';
 import { session } from './session';
 
 /** The API as the signed-in technician. A 401 ends the session; the router then shows the keypad. */
@@ -13,17 +13,18 @@ export function apiWithToken(token: string) {
   return createApiClient({ getToken: () => token });
 }
 
+/** The token `watchApi` would use now, or null: the watching stops without one. */
+export const watchToken = (): string | null => session.get()?.accessToken ?? device.token();
+
 /**
- * The API for what the kiosk watches while nobody may be signed in (running timers, bay names):
- * the signed-in technician's token, else the last one still valid. A 401 ends whichever it was.
+ * The API for what the kiosk watches whether or not anyone is signed in (running timers, bay names):
+ * the signed-in technician's token, else the tablet's own, which the server lets read them and do
+ * nothing else. A 401 ends the sign-in, or for the tablet's token its pairing (revoked in the office).
  */
 export const watchApi = createApiClient({
-  getToken: () => session.get()?.accessToken ?? listenToken.get(),
+  getToken: watchToken,
   onUnauthorized: () => {
     if (session.get()) session.clear('expired');
-    else listenToken.clear();
+    else device.forget();
   },
 });
-
-/** The token `watchApi` would use now, or null: the watching stops without one. */
-export const watchToken = (): string | null => session.get()?.accessToken ?? listenToken.get();

@@ -48,9 +48,10 @@ function follow(to: Current, link: LiveLink) {
 }
 
 /**
- * The kiosk's one live link, for the signed-in technician (or, while nobody is, the last token
- * still valid). Socket.IO reconnects by itself; a refusal from the server (expired, deactivated)
- * goes to `refused`, and the kiosk goes back to its sign-in screen.
+ * The kiosk's one live link, for the signed-in technician (or, while nobody is, the tablet's own
+ * token, which hears the shop's timers). Socket.IO reconnects by itself; a refusal from the server
+ * (expired, deactivated, revoked) goes to `refused`: the kiosk goes back to its sign-in screen, or
+ * for the tablet's token to pairing.
  */
 export const live = {
   connect(token: string, refused: (refusal: LiveRefusal) => void) {
@@ -60,7 +61,7 @@ export const live = {
     const mine: Current = { token, link: null, passed: new Set(), offs: [] };
     current = mine;
     setState('connecting');
-    // Loaded only once someone signs in: the keypad screen needs no live link.
+    // Loaded once the tablet is paired: the pairing screen needs no live link.
     void import('socket.io-client')
       .then(({ io }) => {
         if (current !== mine) return;

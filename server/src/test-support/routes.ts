@@ -70,7 +70,7 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/punches/held/00000000-0000-4000-8000-000000000000/accept', ['foreman', 'owner']],
   ['post', '/api/punches/held/00000000-0000-4000-8000-000000000000/reject', ['foreman', 'owner']],
   ['post', '/api/job-lines/1/sign-off', ['foreman', 'owner']],
-  ['get', '/api/timers', ['technician', 'foreman', 'owner']],
+  ['get', '/api/timers', ['technician', 'foreman', 'owner', 'kiosk']],
   ['post', '/api/timers', ['technician', 'foreman']],
   ['post', '/api/timers/1/readings', ['technician', 'foreman']],
   ['post', '/api/timers/1/stop', ['technician', 'foreman', 'owner']],

@@ -18,7 +18,11 @@ import { TimersService } from './timers.service.js';
 export class TimersController {
   constructor(private readonly timers: TimersService) {}
 
-  @Roles('technician', 'foreman', 'owner')
+  /**
+   * A kiosk tablet reads them on its own token, so it still chimes for the technicians who signed in
+   * on it after their sign-ins ran out; it can start, read into or stop none of them.
+   */
+  @Roles('technician', 'foreman', 'owner', 'kiosk')
   @Get('timers')
   running(): TimerDto[] {
     return this.timers.running();

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { BoardSnapshot, DispatchBoard, MyDay, SignInAnswer, TimerDto } from '@baytime/shared';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { ROLE_REFUSAL } from '../common/guards/auth.guard.js';
 import { TimersService } from './timers.service.js';
 
 describe(TimersService.name, () => {
@@ -215,6 +216,82 @@ describe(TimersService.name, () => {
         estimate: { status: 'done', secondsLeft: 0 },
       });
       expect(heard.filter((event) => event.timerId === timer.id)).toHaveLength(1);
+    });
+  });
+
+  describe("on a kiosk tablet's own token, with nobody signed in there", () => {
+    let sut: TestApp;
+    let kiosk: string;
+    let jo: SignInAnswer;
+    beforeAll(async () => {
+      sut = await startTestApp();
+      const owner = await sut.signIn(DEMO.owner);
+      const { body: pairing } = await sut
+        .http()
+        .post('/api/kiosks')
+        .auth(owner, { type: 'bearer' })
+        .send({ name: 'Kiosk by bay 3' })
+        .expect(201);
+      kiosk = (await sut.http().post('/api/auth/kiosks/pair').send({ code: pairing.code }).expect(200)).body
+        .accessToken;
+      jo = await sut.badge('1045');
+    });
+    afterAll(() => sut.close());
+
+    const as = (token: string) => ({
+      get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
+      post: (path: string, body: object = {}) =>
+        sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
+    });
+
+    it('reads the running timers with whose line and which bay, and hears each change live', async () => {
+      const socket = sut.connect(kiosk);
+      await nextEvent(socket, 'board.snapshot');
+      const line = ((await as(jo.accessToken).get('/api/me/day').expect(200)).body as MyDay).lines[0]!;
+      const started = nextEvent(socket, 'timer.updated');
+      const timer = (
+        await as(jo.accessToken)
+          .post('/api/timers', {
+            jobLineId: line.id,
+            kind: 'set-time',
+            durationSeconds: 600,
+            label: 'ATF level',
+          })
+          .expect(201)
+      ).body as TimerDto;
+      expect(await started).toMatchObject({ timerId: timer.id, bayId: timer.bayId });
+
+      // What a banner says: the timer, the bay it runs in, and whose line it is.
+      const running = (await as(kiosk).get('/api/timers').expect(200)).body as TimerDto[];
+      expect(running.find((each) => each.id === timer.id)).toMatchObject({
+        label: 'ATF level',
+        bayId: expect.any(Number),
+        lineTechnicianId: jo.user.id,
+        endedAt: null,
+      });
+      const bays = (await as(kiosk).get('/api/bays').expect(200)).body as { id: number; name: string }[];
+      expect(bays.find((bay) => bay.id === timer.bayId)?.name).toBe(line.bayName);
+
+      const stopped = nextEvent(socket, 'timer.updated', (event) => event.timerId === timer.id);
+      await as(jo.accessToken).post(`/api/timers/${timer.id}/stop`).expect(200);
+      await stopped;
+      const after = (await as(kiosk).get('/api/timers').expect(200)).body as TimerDto[];
+      expect(after.map((each) => each.id)).not.toContain(timer.id);
+    });
+
+    it('cannot start a timer, read into one or stop one: the tablet only listens', async () => {
+      const sam = await sut.badge('1046');
+      const line = ((await as(sam.accessToken).get('/api/me/day').expect(200)).body as MyDay).lines[0]!;
+      const body = { jobLineId: line.id, kind: 'set-time', durationSeconds: 600 };
+      const refused = await as(kiosk).post('/api/timers', body).expect(403);
+      expect(refused.body.message).toBe(ROLE_REFUSAL);
+      const started = await as(sam.accessToken).post('/api/timers', body);
+      expect(started.status, started.body.message).toBe(201);
+      const timer = started.body as TimerDto;
+      await as(kiosk).post(`/api/timers/${timer.id}/stop`).expect(403);
+      await as(kiosk).post(`/api/timers/${timer.id}/readings`, { tempC: 40 }).expect(403);
+      const running = (await as(kiosk).get('/api/timers').expect(200)).body as TimerDto[];
+      expect(running.find((each) => each.id === timer.id)?.endedAt).toBeNull();
     });
   });
 });
