@@ -35,12 +35,8 @@ import {
   vehicles,
 } from '../db/schema/index.js';
 import { describeVehicle } from '../floor/describe-vehicle.js';
-import {
-  FindingsService,
-  linkStatus,
-  titleFromNote,
-  toApprovalLinkDto,
-} from '../findings/findings.service.js';
+import { FindingsService, linkStatus, toApprovalLinkDto } from '../findings/findings.service.js';
+import { titleFromNote } from '../findings/finding-words.js';
 import { NoticesService } from '../findings/notices.service.js';
 import { PhotoStore } from '../findings/photo-store.js';
 import { LiveService } from '../live/live.service.js';

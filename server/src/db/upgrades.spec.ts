@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../test-support/test-app.js';
+import { concernFromNote } from '../findings/finding-words.js';
 import { openDatabase, SQLITE, type Sqlite } from './database.js';
 
 describe('upgrades a migration asks for', () => {
@@ -84,6 +85,33 @@ describe('upgrades a migration asks for', () => {
         .get(day + 86_400_000),
     ).toEqual({ n: 2 });
     again.close();
+  });
+
+  it("gives a line an approved finding added the finding's note as its concern, when it has none", () => {
+    const file = copy('concerns.sqlite');
+    const old = new Database(file);
+    const [added, kept, found] = (
+      old.prepare('SELECT id FROM job_lines ORDER BY id LIMIT 3').all() as { id: number }[]
+    ).map((row) => row.id);
+    const technician = old.prepare("SELECT id FROM users WHERE role = 'technician' LIMIT 1").pluck().get();
+    const note = `Brake hose cracked near the caliper. ${'Seeps under pressure. '.repeat(60)}`;
+    const finding = old.prepare(
+      `INSERT INTO findings (job_line_id, technician_id, note, severity, answer, created_line_id, created_at)
+       VALUES (?, ?, ?, 'soon', 'approved', ?, ?)`,
+    );
+    finding.run(found, technician, note, added, Date.now());
+    finding.run(found, technician, 'Wiper blades torn', kept, Date.now());
+    old.prepare("UPDATE job_lines SET concern = '' WHERE id = ?").run(added);
+    old.prepare("UPDATE job_lines SET concern = 'Squeal when braking' WHERE id = ?").run(kept);
+    old.prepare("INSERT INTO pending_upgrades (name) VALUES ('concerns-from-findings')").run();
+    old.close();
+
+    const upgraded = openDatabase(file).connection;
+    const concernOf = upgraded.prepare('SELECT concern FROM job_lines WHERE id = ?').pluck();
+    expect(concernOf.get(added)).toBe(concernFromNote(note));
+    expect(concernOf.get(added)).toMatch(/^Brake hose cracked near the caliper\. Seeps.*…$/);
+    expect(concernOf.get(kept)).toBe('Squeal when braking');
+    upgraded.close();
   });
 
   it('stops the start on an upgrade this build does not know', () => {

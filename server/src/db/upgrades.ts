@@ -1,12 +1,14 @@
 import type Database from 'better-sqlite3';
 import { randomUUID } from 'node:crypto';
 import { impliedJobOffs, type LedgerPunch, type PunchKind } from '@baytime/shared';
+import { concernFromNote } from '../findings/finding-words.js';
 
 type Upgrade = (connection: Database.Database) => void;
 
 /** Each upgrade a migration may ask for by name (a row in `pending_upgrades`). */
 const UPGRADES: Record<string, Upgrade> = {
   'record-implied-job-offs': recordImpliedJobOffs,
+  'concerns-from-findings': concernsFromFindings,
 };
 
 /** Carries out the upgrades migrations asked for, each in one transaction with its row's removal. */
@@ -73,4 +75,17 @@ function recordImpliedJobOffs(connection: Database.Database): void {
       insert.run(randomUUID(), id, off.jobLineId, Date.parse(off.at), cause.recorded_at, cause.recorded_by);
     }
   }
+}
+
+/** Lines added from approved findings before they carried the finding's note as their concern get it now. */
+function concernsFromFindings(connection: Database.Database): void {
+  const lines = connection
+    .prepare(
+      `SELECT job_lines.id AS id, findings.note AS note FROM findings
+       JOIN job_lines ON job_lines.id = findings.created_line_id
+       WHERE job_lines.concern = ''`,
+    )
+    .all() as { id: number; note: string }[];
+  const update = connection.prepare('UPDATE job_lines SET concern = ? WHERE id = ?');
+  for (const line of lines) update.run(concernFromNote(line.note), line.id);
 }

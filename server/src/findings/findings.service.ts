@@ -2,7 +2,6 @@ import { ConflictException, Inject, Injectable, Logger, type StreamableFile } fr
 import { and, asc, count, desc, eq, inArray, max, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import {
-  CONCERN_MAX_LENGTH,
   inSentence,
   JOB_LINE_STATUS_WORDS,
   FINDING_ANSWER_WORDS,
@@ -46,6 +45,7 @@ import { toJobLineDto } from '../work/job-line.dto.js';
 import { JobLinesService } from '../work/job-lines.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { syncRepairOrderStatus } from '../work/repair-order-status.js';
+import { concernFromNote, titleFromNote } from './finding-words.js';
 import { NoticesService } from './notices.service.js';
 import { PhotoStore, type StoredPhoto } from './photo-store.js';
 import type { UploadedPhoto } from './photo-upload.js';
@@ -67,31 +67,6 @@ export type AnswerDecision =
 export type AnswerSource =
   | { channel: 'phone' | 'in-person'; actor: Principal }
   | { channel: 'link'; linkId: number; signedName: string; actor: Principal };
-const TITLE_MAX = 120;
-
-/** A job-line title from a finding's note: its first line, cut at a word near 120 characters. */
-export function titleFromNote(note: string): string {
-  const line =
-    note
-      .split(/\r?\n/)
-      .find((l) => l.trim())
-      ?.trim() ?? note.trim();
-  return cutAtWord(line.replace(/\s+/g, ' '), TITLE_MAX);
-}
-
-/** The concern of a line a finding added: what the technician found, cut at a word to fit a concern. */
-export function concernFromNote(note: string): string {
-  return cutAtWord(note.trim(), CONCERN_MAX_LENGTH);
-}
-
-/** Text of at most `max` characters: cut at a word past its middle where it can be, marked with "…". */
-function cutAtWord(text: string, max: number): string {
-  if (text.length <= max) return text;
-  const cut = text.slice(0, max - 1);
-  const space = cut.search(/\s\S*$/);
-  return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
-}
-
 /** Extra work a technician found: photos, the office inbox, and the answer once the customer decided. */
 @Injectable()
 export class FindingsService {

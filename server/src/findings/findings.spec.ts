@@ -14,7 +14,8 @@ import {
 import { countRows, DB, type Db } from '../db/database.js';
 import { attachments, auditLog, findings, jobLines } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { concernFromNote, FindingsService, titleFromNote } from './findings.service.js';
+import { concernFromNote, titleFromNote } from './finding-words.js';
+import { FindingsService } from './findings.service.js';
 
 interface Photo {
   buffer: Buffer;

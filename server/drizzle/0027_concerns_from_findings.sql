@@ -1,0 +1,1 @@
+INSERT INTO `pending_upgrades` (`name`) VALUES ('concerns-from-findings');
