@@ -53,6 +53,15 @@ describe(labourKpis.name, () => {
       proficiency: null,
     });
   });
+
+  // A tenth of an hour is the unit hours are flagged in: common practice, no source.
+  it('takes no ratio over less than a tenth of an hour (30 s on shift is not 12,000 % proficient)', () => {
+    const seconds = (n: number) => n / 3600;
+    const brief = hours(seconds(30), seconds(20), 1);
+    expect(labourKpis(brief)).toMatchObject({ productivity: null, efficiency: null, proficiency: null });
+    const tenth = hours(0.1, 0.1, 1);
+    expect(labourKpis(tenth)).toMatchObject({ productivity: 1, efficiency: 10, proficiency: 10 });
+  });
 });
 
 describe(shopLabourKpis.name, () => {

@@ -10,7 +10,7 @@ export interface LabourHours {
   workInProgressHours: number;
 }
 
-/** Ratios as fractions (0.9 = 90 %); null when the divisor is zero. */
+/** Ratios as fractions (0.9 = 90 %); null when the divisor is under a tenth of an hour. */
 export interface LabourKpis {
   productivity: number | null;
   efficiency: number | null;
@@ -44,7 +44,14 @@ export const EFFICIENCY_NOTE =
 export const KPI_NAMES_NOTE =
   'Trade sources disagree on these names (some call flagged ÷ attendance hours "productivity"): read the formulas.';
 
-const ratio = (numerator: number, denominator: number) => (denominator > 0 ? numerator / denominator : null);
+/**
+ * The smallest divisor a ratio is taken over: a tenth of an hour, the unit hours are flagged in (common
+ * practice, no source). Over a few seconds of attendance a ratio reads thousands of per cent and means nothing.
+ */
+export const MIN_RATIO_DIVISOR_HOURS = 0.1;
+
+const ratio = (numerator: number, denominator: number) =>
+  denominator >= MIN_RATIO_DIVISOR_HOURS ? numerator / denominator : null;
 
 export function labourKpis(hours: LabourHours): LabourReportRow {
   const { attendanceHours, clockedHours, flaggedHours, matchedClockedHours, workInProgressHours } = hours;
