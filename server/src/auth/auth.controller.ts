@@ -7,6 +7,7 @@ import {
   type AuthUser,
   type BadgeLoginBody,
   type LoginBody,
+  type OfficeSignInAnswer,
   type PairScreenBody,
   type SignInAnswer,
 } from '@baytime/shared';
@@ -24,7 +25,7 @@ export class AuthController {
   @Throttle({ default: { limit: 60, ttl: 60_000 } })
   @Post('auth/login')
   @HttpCode(200)
-  login(@Body({ schema: loginSchema }) body: LoginBody, @Ip() ip: string): Promise<SignInAnswer> {
+  login(@Body({ schema: loginSchema }) body: LoginBody, @Ip() ip: string): Promise<OfficeSignInAnswer> {
     return this.auth.login(body, ip);
   }
 
@@ -59,7 +60,7 @@ export class AuthController {
   @Roles('owner', 'foreman', 'advisor')
   @Post('auth/renew')
   @HttpCode(200)
-  renew(@Headers('authorization') authorization: string | undefined): SignInAnswer {
+  renew(@Headers('authorization') authorization: string | undefined): OfficeSignInAnswer {
     return this.auth.renew(bearerToken(authorization));
   }
 

@@ -6,6 +6,7 @@ import type {
   BadgeLoginBody,
   LiveRefusalReason,
   LoginBody,
+  OfficeSignInAnswer,
   PairScreenBody,
   SignInAnswer,
 } from '@baytime/shared';
@@ -28,6 +29,7 @@ const KIOSK_TOKEN_TTL = '2h';
 const DISPLAY_TOKEN_TTL = '3650d';
 /** Tokens whose signature was verified, kept so a busy kiosk's every punch skips the HMAC and parsing. */
 const VERIFIED_TOKENS_KEPT = 4096;
+
 const DEVICE_ROLE = { wall: 'display', kiosk: 'kiosk' } as const satisfies Record<
   DeviceKind,
   Principal['role']
@@ -61,27 +63,27 @@ export class AuthService {
     };
   }
 
-  async login({ email, password }: LoginBody, ip: string | undefined): Promise<SignInAnswer> {
+  async login({ email, password }: LoginBody, ip: string | undefined): Promise<OfficeSignInAnswer> {
     const user = await this.throttle.check(`email:${email.toLowerCase()}`, ip, async () => {
       const row = this.db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
       const ok = await verifySecret(password, row?.passwordHash ?? null);
       return row && ok && row.active && row.role !== 'technician' ? row : null;
     });
     if (!user) throw new UnauthorizedException('E-mail or password not recognised');
-    return this.answer(user, OFFICE_TOKEN_TTL, Math.floor(Date.now() / 1000));
+    return this.officeAnswer(user, Math.floor(Date.now() / 1000));
   }
 
   /**
    * A fresh office token of the same lifetime for the caller of `token`, checked as any request is;
    * refused once the sign-in is older than OFFICE_RENEWALS_MS (or was never an office one).
    */
-  renew(token: string | undefined, now = Date.now()): SignInAnswer {
+  renew(token: string | undefined, now = Date.now()): OfficeSignInAnswer {
     const checked = this.check(token, now);
     if (!('principal' in checked)) throw new UnauthorizedException();
     const { principal, signedInAt } = checked;
     if (signedInAt === undefined || now - signedInAt >= OFFICE_RENEWALS_MS)
       throw new ForbiddenException('This sign-in can no longer be renewed: sign in again');
-    return this.answer(principal, OFFICE_TOKEN_TTL, signedInAt / 1000);
+    return this.officeAnswer(principal, signedInAt / 1000);
   }
 
   async badge({ badge, pin }: BadgeLoginBody, ip: string | undefined): Promise<SignInAnswer> {
@@ -163,6 +165,12 @@ export class AuthService {
     if (user.credentialsChangedAt && signedIn < Math.floor(user.credentialsChangedAt.getTime() / 1000))
       return 'credentials-changed';
     return { id: user.id, name: user.name, role: user.role };
+  }
+
+  /** `signedInAt` in seconds since the epoch, as tokens carry it. */
+  private officeAnswer(user: Principal, signedInAt: number): OfficeSignInAnswer {
+    const renewableUntil = new Date(signedInAt * 1000 + OFFICE_RENEWALS_MS).toISOString();
+    return { ...this.answer(user, OFFICE_TOKEN_TTL, signedInAt), renewableUntil };
   }
 
   private answer(

@@ -148,6 +148,27 @@ describe(AuthService.name, () => {
       expect(again.body.user.role).toBe('advisor');
     });
 
+    it('says in the sign-in and every renewal until when the sign-in is renewed', async () => {
+      const { body: signedIn } = await sut
+        .http()
+        .post('/api/auth/login')
+        .send({ email: DEMO.foreman, password: 'baytime-demo' })
+        .expect(200);
+      const { signedInAt } = claims(signedIn.accessToken);
+      expect(signedIn.renewableUntil).toBe(new Date((signedInAt! + 12 * HOUR_S) * 1000).toISOString());
+      const { body: renewed } = await renew(signedIn.accessToken).expect(200);
+      expect(renewed.renewableUntil).toBe(signedIn.renewableUntil);
+
+      const old = ownerToken(9 * HOUR_S, 3 * HOUR_S);
+      const { body } = await renew(old).expect(200);
+      expect(body.renewableUntil).toBe(
+        new Date((claims(old).signedInAt! + 12 * HOUR_S) * 1000).toISOString(),
+      );
+      // Only added: the answers keep their token and user, and a kiosk's sign-in is never renewed.
+      expect(Object.keys(body).sort()).toEqual(['accessToken', 'renewableUntil', 'user']);
+      expect(await sut.badge('1044')).not.toHaveProperty('renewableUntil');
+    });
+
     it('stops renewing 12 hours after the password was given', async () => {
       await renew(ownerToken(12 * HOUR_S - 60, HOUR_S)).expect(200);
       const { body } = await renew(ownerToken(12 * HOUR_S + 60, HOUR_S)).expect(403);

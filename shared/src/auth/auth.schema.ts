@@ -46,3 +46,11 @@ export interface SignInAnswer {
   accessToken: string;
   user: AuthUser;
 }
+
+/**
+ * An office sign-in's answer, which also says until when the sign-in is renewed (ISO): the token in
+ * hand at that time is its last, and the office warns before that token runs out.
+ */
+export interface OfficeSignInAnswer extends SignInAnswer {
+  renewableUntil: string;
+}

@@ -1,6 +1,7 @@
-import type { SignInAnswer } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import type { TokenStore } from '@/lib/token-store';
+import type { OfficeSignInAnswer } from '@baytime/shared';
+import type { SignInRecords } from './sign-in-end';
 
 /** A token is renewed once less than this share of its life is left: 4 of an office token's 12 hours. */
 const RENEW_IN_LAST = 1 / 3;
@@ -11,15 +12,19 @@ export const RETRY_AFTER_MS = 5 * 60_000;
 export interface TokenLife {
   issuedAt: number;
   expiresAt: number;
+  /** An office token's: when the password was given (ms), the same in all its renewals. */
+  signedInAt?: number;
 }
 
 /** The times a signed token carries in its payload; null for anything else. */
 export function tokenLife(token: string): TokenLife | null {
   try {
     const payload = (token.split('.')[1] ?? '').replace(/-/g, '+').replace(/_/g, '/');
-    const { iat, exp } = JSON.parse(atob(payload)) as { iat?: unknown; exp?: unknown };
+    const { iat, exp, signedInAt } = JSON.parse(atob(payload)) as Record<string, unknown>;
     if (typeof iat !== 'number' || typeof exp !== 'number' || exp <= iat) return null;
-    return { issuedAt: iat * 1000, expiresAt: exp * 1000 };
+    const life: TokenLife = { issuedAt: iat * 1000, expiresAt: exp * 1000 };
+    if (typeof signedInAt === 'number') life.signedInAt = signedInAt * 1000;
+    return life;
   } catch {
     return null;
   }
@@ -41,11 +46,14 @@ export interface SignInRenewer {
 
 export function createSignInRenewer({
   tokens,
+  records,
   renew,
   now = Date.now,
 }: {
   tokens: Pick<TokenStore, 'get' | 'set'>;
-  renew: () => Promise<SignInAnswer>;
+  /** Until when the sign-in is renewed: told by each answer and a refusal, and asked before trying. */
+  records: Pick<SignInRecords, 'of' | 'answered' | 'refused'>;
+  renew: () => Promise<OfficeSignInAnswer>;
   now?: () => number;
 }): SignInRenewer {
   let renewing = false;
@@ -56,17 +64,22 @@ export function createSignInRenewer({
       const life = token ? tokenLife(token) : null;
       if (renewing || !token || !life) return;
       if (!renewalDue(life, now(), wait?.token === token ? wait.retryAt : 0)) return;
+      // Past the end of renewals the answer is known: a refusal.
+      if (now() >= (records.of(token)?.renewableUntil ?? Number.POSITIVE_INFINITY)) return;
       renewing = true;
       renew()
         .then(
-          ({ accessToken }) => {
+          (answer) => {
             // Signed out, or in as someone else, while the answer was on its way: that sign-in stands.
-            if (tokens.get() === token) tokens.set(accessToken);
+            if (tokens.get() !== token) return;
+            records.answered(answer.accessToken, answer);
+            tokens.set(answer.accessToken);
           },
           (error: unknown) => {
             // A refusal (the sign-in is too old to renew) stands until the token runs out.
             const refused = error instanceof ApiError && error.status === 403;
             wait = { token, retryAt: refused ? Number.POSITIVE_INFINITY : now() + RETRY_AFTER_MS };
+            if (refused) records.refused(token, now());
           },
         )
         .finally(() => {

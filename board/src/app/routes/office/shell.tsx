@@ -29,9 +29,11 @@ import { BaytimeMark } from '@/components/baytime-mark';
 import { HEADING_FONT, baytimeRailTheme } from '@/lib/theme';
 import { useMe } from '@/features/auth/api/get-me';
 import { isOfficeRole } from '@/features/auth/api/login';
+import { SignInEndNotice } from '@/features/auth/components/sign-in-end-notice';
 import { useOfficeToken } from '@/features/auth/hooks/use-office-token';
 import { useSignInRenewal } from '@/features/auth/hooks/use-sign-in-renewal';
 import { useSignOut } from '@/features/auth/hooks/use-sign-out';
+import { useShop } from '@/features/shop/api/get-shop';
 import { useLiveQueries } from '@/hooks/use-live-queries';
 import { findingArrivals } from '@/lib/finding-arrivals';
 import { useOfficeEvent } from '@/lib/socket';
@@ -239,6 +241,7 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
   const { dispatchToast } = useToastController(toasterId);
   const navigate = useNavigate();
   const { pathname } = useLocation();
+  const timeZone = useShop().data?.timeZone;
   useLiveQueries();
   useSignInRenewal();
   // A finding reaches the advisor on whatever page they are: counted on the menu, and a toast.
@@ -300,6 +303,7 @@ function Shell({ user, role, onSignOut }: { user: AuthUser; role: OfficeRole; on
         </aside>
       </FluentProvider>
       <main className={styles.main}>
+        <SignInEndNotice user={user} timeZone={timeZone} />
         {permitted ? (
           <Suspense fallback={<Spinner />}>
             <Outlet context={{ user, role }} />

@@ -12,10 +12,10 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { loginSchema, type Role } from '@baytime/shared';
-import { ApiError } from '@baytime/shared/client';
 import { paths } from '@/config/paths';
-import { showServerErrors, useSchemaForm } from '@/lib/form';
+import { useSchemaForm } from '@/lib/form';
 import { isOfficeRole, useLogin } from '../api/login';
+import { showSignInError } from '../sign-in-errors';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
@@ -28,7 +28,6 @@ export function SignInForm() {
   const form = useSchemaForm(loginSchema, { defaultValues: { email: '', password: '' } });
   const { errors } = form.formState;
   const [wrongApp, setWrongApp] = useState<Role | null>(null);
-  const refused = (message: string) => form.setError('root.server', { type: 'server', message });
 
   const submit = form.handleSubmit((body) => {
     setWrongApp(null);
@@ -36,18 +35,7 @@ export function SignInForm() {
       onSuccess: ({ user }) => {
         if (!isOfficeRole(user.role)) setWrongApp(user.role);
       },
-      onError: (error) => {
-        if (!(error instanceof ApiError)) return refused('Sign-in failed. Try again.');
-        if (error.isNetwork)
-          return refused('No connection to the shop server. Check the network and try again.');
-        if (error.status === 401)
-          return form.setError('password', {
-            type: 'server',
-            message: 'That e-mail and password do not match',
-          });
-        if (error.status === 429) return refused(error.message);
-        showServerErrors(form, error);
-      },
+      onError: (error) => showSignInError(form, error, 'That e-mail and password do not match'),
     });
   });
 

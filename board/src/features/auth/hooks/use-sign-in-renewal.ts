@@ -2,12 +2,13 @@ import { useEffect } from 'react';
 import { useLocation } from 'react-router';
 import { officeToken } from '@/lib/token-store';
 import { renewSignIn } from '../api/renew-sign-in';
+import { officeSignIn } from '../office-sign-in';
 import { createSignInRenewer } from '../sign-in-renewal';
 
 /** Each minute in view: nothing against the 4 hours a token has left once it is due. */
 const CHECK_EVERY_MS = 60_000;
 
-const renewer = createSignInRenewer({ tokens: officeToken, renew: renewSignIn });
+const renewer = createSignInRenewer({ tokens: officeToken, records: officeSignIn, renew: renewSignIn });
 
 /**
  * Keeps the office signed in while someone uses it: checked on every page opened and each minute the
