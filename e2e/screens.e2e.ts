@@ -149,6 +149,75 @@ describe('every screen at its real sizes', () => {
     await page.close();
   });
 
+  // A 1024 px tablet gives the job line a card of 512 px beside the shift panel: its Done once wrapped
+  // alone onto a row of its own and the status chip sat in the middle of the card.
+  it.each([
+    [1024, 768],
+    [1280, 800],
+    [390, 844],
+  ])(
+    'kiosk my day at %ix%i: each job card’s buttons fill their rows, its status in the top right corner',
+    async (width, height) => {
+      const page = await browser.newPage();
+      await page.setViewportSize({ width, height });
+      await signInAtKiosk(page, server, '1045');
+      const cards = page.locator('article.bt-line:has(.bt-line__tools)');
+      await cards.first().waitFor();
+      await page.waitForTimeout(300);
+      await look(page, `screens-kiosk-job-card-${width}x${height}`);
+      const measured = await cards.evaluateAll((all) =>
+        all.map((card) => {
+          const box = (el: Element | null) => {
+            const { left, right, top, bottom, width, height } = el!.getBoundingClientRect();
+            return { left, right, top, bottom, width, height };
+          };
+          return {
+            label: card.getAttribute('aria-label') ?? '',
+            ro: box(card.querySelector('.bt-line__ro')),
+            state: box(card.querySelector('.bt-line__state')),
+            group: box(card.querySelector('.bt-line__tools')),
+            tools: [...card.querySelectorAll('.bt-line__tools > button')].map(box),
+            buttons: [...card.querySelectorAll('.bt-line__actions button, .bt-line__tools button')].map(
+              (button) => ({
+                text: button.textContent ?? '',
+                ...box(button),
+              }),
+            ),
+          };
+        }),
+      );
+      expect(measured.length).toBeGreaterThan(0);
+      for (const card of measured) {
+        // Rows of tools, each running from the group's left edge to its right: one row, two by two, or a
+        // last one taking a row of its own whole, never one left short on a row.
+        const rows = new Map<number, typeof card.tools>();
+        for (const tool of card.tools)
+          rows.set(Math.round(tool.top), [...(rows.get(Math.round(tool.top)) ?? []), tool]);
+        expect(card.tools.length, card.label).toBeGreaterThan(1);
+        for (const row of rows.values()) {
+          const left = Math.min(...row.map((tool) => tool.left));
+          const right = Math.max(...row.map((tool) => tool.right));
+          expect([left, right], `${card.label}: a row of tools`).toEqual([
+            expect.closeTo(card.group.left, 0),
+            expect.closeTo(card.group.right, 0),
+          ]);
+        }
+        expect(rows.size, card.label).toBeLessThanOrEqual(2);
+        // The status is on the RO's row, at the card's right edge (the tools' right edge is the card's).
+        expect(card.state.top, card.label).toBeLessThan(card.ro.bottom);
+        expect(card.state.right, card.label).toBeCloseTo(card.group.right, 0);
+        // DISPLAY.md: 20 mm keys for a gloved finger, about 76 CSS px on a 10-inch tablet.
+        for (const button of card.buttons) {
+          expect(button.width, `${card.label}: ${button.text}`).toBeGreaterThanOrEqual(76);
+          expect(button.height, `${card.label}: ${button.text}`).toBeGreaterThanOrEqual(76);
+        }
+      }
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await page.getByText('Sign in with your badge').waitFor();
+      await page.close();
+    },
+  );
+
   it('kiosk offline at 390x844: the sign-in sheet reads without overlapping lines and goes once the link is back', async () => {
     const page = await browser.newPage();
     await page.setViewportSize({ width: 390, height: 844 });

@@ -254,7 +254,17 @@ describe(pickLines.name, () => {
       pickLines(bayFacts({ bay: staged, clockedSeconds: 0, nowMs: now, lineChars: 11 }), slots, turn, 11).map(
         (line) => [line.fact.text, line.wraps, line.shortened],
       );
-    expect(shown(2)).toEqual([[model, true, true]]);
+    // Two lines: the model on one, cut short, and the RO and the technician taking turns on the other
+    // (the job title is too long for one line and is left out).
+    expect(shown(2, 0)).toEqual([
+      [model, false, true],
+      ['RO 4821', false, false],
+    ]);
+    expect(shown(2, 1)).toEqual([
+      [model, false, true],
+      ['Jo W.', false, false],
+    ]);
+    expect(shown(2, 2)).toEqual(shown(2, 0));
     expect(shown(1)).toEqual([[model, false, true]]);
     expect(shown(3, 1)).toEqual([
       [model, true, true],
@@ -265,6 +275,71 @@ describe(pickLines.name, () => {
       ['RO 4821', false, false],
       [title, true, true],
       ['Jo W.', false, false],
+    ]);
+  });
+});
+
+describe('a long model on a tile of few lines', () => {
+  const model = 'Grand Voyager Extended Cab Heavy Duty 3500';
+  const long = (state: BoardBay['state']) =>
+    bay({
+      state,
+      vehicle: `2019 Wolverhampton-Kesselring ${model}`,
+      technicians: [{ id: 3, name: 'Jo W.' }],
+    });
+  const turns = (state: BoardBay['state'], slots: number) =>
+    [0, 1, 2, 3, 4, 5].map((turn) =>
+      pickLines(
+        bayFacts({ bay: long(state), clockedSeconds: 600, nowMs: now, lineChars: 11 }),
+        slots,
+        turn,
+        11,
+      ).map((line) => [line.fact.key, line.wraps]),
+    );
+
+  it('cuts the model to one line on a ready tile, so the RO still has a line', () => {
+    for (const lines of turns('ready', 2)) {
+      expect(lines[0]).toEqual(['vehicle', false]);
+      expect(lines).toHaveLength(2);
+    }
+    expect(turns('ready', 2).map((lines) => lines[1]?.[0])).toContain('ro');
+  });
+
+  it('gives a working tile’s model its turn on one line, beside the technician, the RO and the job', () => {
+    const shown = turns('working', 2).map((lines) => lines[0]);
+    expect(new Set(shown.map((line) => line?.[0]))).toEqual(new Set(['techs', 'vehicle', 'ro', 'job']));
+    expect(shown.every((line) => line?.[1] === false)).toBe(true);
+    expect(turns('working', 2).every((lines) => lines[1]?.[0] === 'clocked')).toBe(true);
+  });
+
+  it('shows the model on one line beside every other fact when that way they all fit', () => {
+    const check = bay({
+      state: 'check',
+      vehicle: `2019 Wolverhampton-Kesselring ${model}`,
+      technicians: [],
+      jobLine: null,
+    });
+    for (const turn of [0, 1, 2])
+      expect(
+        pickLines(bayFacts({ bay: check, clockedSeconds: 0, nowMs: now, lineChars: 11 }), 2, turn, 11).map(
+          (line) => [line.fact.key, line.wraps, line.rotating],
+        ),
+      ).toEqual([
+        ['vehicle', false, false],
+        ['ro', false, false],
+      ]);
+    expect(turns('ready', 3)[0]).toEqual([
+      ['vehicle', false],
+      ['ro', false],
+      ['job', false],
+    ]);
+  });
+
+  it('still wraps the model onto two lines where the tile has them to spare', () => {
+    expect(turns('ready', 4)[0]).toEqual([
+      ['vehicle', true],
+      ['ro', false],
+      ['job', false],
     ]);
   });
 });

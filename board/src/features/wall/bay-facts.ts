@@ -35,6 +35,11 @@ export interface BayFact {
   suffix?: string;
   /** A figure in a tag after the text: how far over book ("+0.4 h"). */
   tag?: string;
+  /**
+   * Gives up its second line before the others lose theirs: a long model is cut to one line, with an
+   * ellipsis, rather than hide the RO and the technician on a short tile.
+   */
+  yields?: boolean;
 }
 
 export interface ClockedBar {
@@ -174,7 +179,9 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
   };
   const techs = techsText(bay);
   const vehicle = wallVehicle(bay.vehicle, lineChars);
-  const vehicleFact = vehicle ? ({ key: 'vehicle', text: vehicle, keep: false } as const) : null;
+  const vehicleFact = vehicle
+    ? ({ key: 'vehicle', text: vehicle, keep: false, yields: true } as const)
+    : null;
   const roFact = bay.repairOrder
     ? ({ key: 'ro', text: `RO ${bay.repairOrder.number}`, keep: false } as const)
     : null;
@@ -294,7 +301,9 @@ export function factHeight(fact: BayFact, lineChars: number): number {
  * lines is shortened to two. When they all fit they all show. Otherwise the kept facts stay, one of them
  * shortened to a single line when only one is left for it, and unless they fill every line the others
  * take turns on the lines left (`turn` counts up every few seconds), in reading order: one taller than
- * those lines is left out.
+ * those lines is left out, unless it yields (the vehicle), which takes its turn cut to those lines. A
+ * fact that yields gives up its second line first: so that every fact shows, or, when kept, so that the
+ * others have a line to take turns on.
  */
 export function pickLines(facts: BayFact[], slots: number, turn: number, lineChars = Infinity): TileLine[] {
   if (slots <= 0) return [];
@@ -307,26 +316,41 @@ export function pickLines(facts: BayFact[], slots: number, turn: number, lineCha
   });
   const total = (list: BayFact[]) => list.reduce((sum, fact) => sum + height(fact), 0);
   if (total(facts) <= slots) return facts.map((fact) => line(fact, false));
-  // The kept facts leave a line for the others to take turns on, unless they fill every line.
+  // All of them fit when those that yield take one line each: they do, and the lines to spare go to
+  // their second lines in reading order.
+  const oneLine = facts.reduce((sum, fact) => sum + (fact.yields ? 1 : height(fact)), 0);
+  if (oneLine <= slots) {
+    let spare = slots - oneLine;
+    return facts.map((fact) => {
+      if (!fact.yields || height(fact) === 1) return line(fact, false);
+      const lines = spare > 0 ? 2 : 1;
+      spare -= lines - 1;
+      return line(fact, false, lines);
+    });
+  }
   const keptAll = facts.filter((fact) => fact.keep);
-  const budget = total(keptAll) >= slots ? slots : slots - 1;
+  const keptHeight = new Map(keptAll.map((fact) => [fact, height(fact)]));
+  const keptTotal = () => [...keptHeight.values()].reduce((sum, lines) => sum + lines, 0);
+  for (const fact of keptAll) if (fact.yields && keptTotal() >= slots) keptHeight.set(fact, 1);
+  // The kept facts leave a line for the others to take turns on, unless they fill every line.
+  const budget = keptTotal() >= slots ? slots : slots - 1;
   const kept = new Map<BayFact, number>();
   let used = 0;
-  for (const fact of keptAll) {
-    const lines = Math.min(height(fact), budget - used);
+  for (const [fact, wanted] of keptHeight) {
+    const lines = Math.min(wanted, budget - used);
     if (lines <= 0) break;
     kept.set(fact, lines);
     used += lines;
   }
   const room = slots - used;
-  const others = facts.filter((fact) => !kept.has(fact) && height(fact) <= room);
+  const others = facts.filter((fact) => !kept.has(fact) && room > 0 && (height(fact) <= room || fact.yields));
   const shown = others.length ? others[((turn % others.length) + others.length) % others.length] : undefined;
   const firstOther = facts.findIndex((fact) => !kept.has(fact));
   const lines: TileLine[] = [];
   facts.forEach((fact, index) => {
     const keptLines = kept.get(fact);
     if (keptLines !== undefined) lines.push(line(fact, false, keptLines));
-    else if (index === firstOther && shown) lines.push(line(shown, true));
+    else if (index === firstOther && shown) lines.push(line(shown, true, Math.min(height(shown), room)));
   });
   return lines;
 }

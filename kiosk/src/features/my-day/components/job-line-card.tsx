@@ -67,8 +67,8 @@ export function JobLineCard({
       className={`bt-line bt-line--${line.status}${line.clockedOn ? ' is-on' : ''}`}
       aria-label={`RO ${line.repairOrderNumber} line ${line.lineNo}`}
     >
-      <div className="bt-line__body">
-        <header className="bt-line__top">
+      <header className="bt-line__top">
+        <div className="bt-line__tags">
           <span className="bt-line__ro">
             RO {line.repairOrderNumber} · line {line.lineNo}
           </span>
@@ -78,10 +78,13 @@ export function JobLineCard({
               <MeaningGlyph name="priority" /> {PRIORITY_WORDS[line.priority]}
             </span>
           )}
-          <span className="bt-line__state">
-            <StatusIcon /> {statusWord}
-          </span>
-        </header>
+        </div>
+        <span className="bt-line__state">
+          <StatusIcon /> {statusWord}
+        </span>
+      </header>
+
+      <div className="bt-line__body">
         <h3 className="bt-line__title">{line.title}</h3>
         <p className="bt-line__vehicle">{line.vehicle}</p>
         <p className="bt-line__concern">Concern: {line.concern}</p>
