@@ -183,6 +183,19 @@ describe(`${PunchesService.name}: late punches`, () => {
 
   // 29 CFR 785.19(a): a meal under 30 minutes is ordinarily not a bona fide meal period; the ledger counts it
   // as paid rest and lists it, and the foreman may accept it as it is.
+  it('refuses to clock anyone on a line before it was written, at the kiosk or by correction', async () => {
+    const job = history.line('Replace wiper motor', 0.7, max, new Date(start - 2 * HOUR));
+    const early = { technicianId: max, kind: 'job-on', jobLineId: job, at: ago(2.5) };
+    const correction = { ...early, reason: 'Paper sheet' };
+    const refused = await history.as(foreman).post('/api/timecards/corrections', correction).expect(400);
+    expect(refused.body.message).toMatch(
+      /^That line was added at \w{3}, \w{3} \d{1,2}, \d{1,2}:\d{2} [ap]m: no one can be clocked on it before then$/,
+    );
+    await punch({ kind: 'job-on', jobLineId: job, at: ago(2.5) }).expect(400);
+    const before = await card();
+    expect(before.punches.some((p) => p.jobLineId === job)).toBe(false);
+  });
+
   it('lists a short meal for the foreman, who may mark it reviewed with a note', async () => {
     const ida = await history.technician('Ida Marchetti', '7003', 20_00, 10_00);
     await history.punch(ida, 'shift-in', new Date(ago(6)));
@@ -231,12 +244,48 @@ describe(`${PunchesService.name}: late punches`, () => {
     await punch({ id: own.jobOff, kind: 'job-off', jobLineId: job, at: ago(1.5) }, tablet).expect(202);
     expect((await card(eli)).held.map((h) => h.id)).toEqual([own.shiftIn, own.jobOn, own.jobOff]);
 
-    for (const id of [own.shiftIn, own.jobOn, own.jobOff])
-      await history
-        .as(foreman)
-        .post(`/api/punches/held/${id}/accept`, { reason: 'Eli started at the tablet before the sheet' })
-        .expect(200);
+    await history
+      .as(foreman)
+      .post(`/api/punches/held/${own.shiftIn}/accept`, {
+        reason: 'Eli started at the tablet before the sheet',
+      })
+      .expect(200);
+    // The rest of the replay waited behind it, and is accepted with it.
+    const after = await card(eli);
+    expect(after.held.map((h) => [h.id, h.review])).toEqual([
+      [own.shiftIn, 'accepted'],
+      [own.jobOn, 'accepted'],
+      [own.jobOff, 'accepted'],
+    ]);
     // By hand: on the belt from 2½ h to 1½ h before now, one hour.
-    expect((await card(eli)).totals.clockedSeconds).toBe(3600);
+    expect(after.totals.clockedSeconds).toBe(3600);
+  });
+
+  it('judges a held late break with its end, which waited behind it: the clock-on after the break stays', async () => {
+    const ada = await history.technician('Ada Quillfeather', '7005', 20_00, 10_00);
+    const tablet = (await sut.badge('7005')).accessToken;
+    const job = history.line('Replace cabin filter', 0.5, ada, new Date(start - 7 * HOUR));
+    await punch({ kind: 'shift-in', at: ago(3) }, tablet).expect(201);
+    await punch({ kind: 'job-on', jobLineId: job, at: ago(0.5) }, tablet).expect(201);
+    await punch({ kind: 'job-off', jobLineId: job, at: ago(0.25) }, tablet).expect(201);
+    // Another tablet's replay: a meal an hour and a half ago, ended half an hour later.
+    const meal = await punch({ kind: 'break-start', breakKind: 'meal', at: ago(1.5) }, tablet).expect(202);
+    expect((meal.body as HeldPunchDto).displaces.map((p) => p.kind)).toEqual(['job-on', 'job-off']);
+    const end = await punch({ kind: 'break-end', at: ago(1) }, tablet).expect(202);
+
+    await history
+      .as(foreman)
+      .post(`/api/punches/held/${meal.body.id}/accept`, { reason: 'Ada took lunch; the tablet was offline' })
+      .expect(200);
+    const after = await card(ada);
+    expect(after.held.map((h) => [h.id, h.review])).toEqual([
+      [meal.body.id, 'accepted'],
+      [end.body.id, 'accepted'],
+    ]);
+    // By hand: the meal ran from 1½ h to 1 h before now (30 min, a bona fide meal), and the job from ½ h
+    // to ¼ h before now (15 min) after it, still counted.
+    expect(after.totals.mealBreakSeconds).toBe(1800);
+    expect(after.totals.clockedSeconds).toBe(900);
+    expect(after.punches.filter((p) => p.voids)).toEqual([]);
   });
 });

@@ -1,4 +1,4 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { BadRequestException, Inject, Injectable } from '@nestjs/common';
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
 import {
@@ -6,6 +6,7 @@ import {
   formatDayClockTime,
   inSentence,
   jobOffsFor,
+  MAX_PUNCH_CLOCK_SKEW_SECONDS,
   type DisplacedPunch,
   type LedgerPunch,
   type PunchDto,
@@ -80,6 +81,18 @@ export class PunchLedgerService {
       })),
       punch,
     ];
+  }
+
+  /**
+   * No one is clocked on a line before it was written: such a punch (a correction dated back, a tablet
+   * whose clock ran far behind) would count time the reports of that week cannot place on the line.
+   */
+  assertLineExistedAt(line: { queuedAt: Date }, at: Date): void {
+    if (at.getTime() >= line.queuedAt.getTime() - MAX_PUNCH_CLOCK_SKEW_SECONDS * 1000) return;
+    const { timeZone, clockFormat } = this.shop.settings();
+    throw new BadRequestException(
+      `That line was added at ${formatDayClockTime(line.queuedAt.toISOString(), timeZone, clockFormat)}: no one can be clocked on it before then`,
+    );
   }
 
   /** "the clock on at Tue, Dec 1, 3:10 pm (RO 4410 · Replace water pump)", for each punch. */

@@ -121,12 +121,17 @@ export class PunchesService {
       throw new BadRequestException('A punch cannot be in the future: check the tablet clock');
     if (at.getTime() < now.getTime() - maxAgeSeconds * 1000)
       throw new BadRequestException(
-        `That punch is more than ${maxAgeSeconds / 3600} hours old: ask the foreman to add it`,
+        `That punch is more than ${maxAgeSeconds / 3600} hours old: ${
+          actor.role === 'technician' ? 'ask the foreman to add it' : 'add it on the timecard as a correction'
+        }`,
       );
     this.closedWeeks.assertOpenAt(at, 'That punch');
     const line = body.jobLineId ? this.queries.line.get({ id: body.jobLineId }) : undefined;
     if (body.jobLineId && !line) throw new BadRequestException('That job line does not exist');
-    if (line) this.assertMayPunchOn(line, body.kind, actor, now);
+    if (line) {
+      this.assertMayPunchOn(line, body.kind, actor, now);
+      this.ledger.assertLineExistedAt(line, at);
+    }
     if (body.kind === 'job-on' && line && !isOpenLine(line))
       throw new ConflictException(`That job line is ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
 
@@ -189,30 +194,45 @@ export class PunchesService {
     return { punch, replayed: false, held: false };
   }
 
-  /** The foreman accepts a held punch: it counts from now on, and what it displaces is voided, audited. */
+  /**
+   * The foreman accepts a held punch: it counts from now on, with the later punches of the same replay
+   * that wait behind it (a late break's end after its start), judged together so that one of them never
+   * voids a punch the next one makes fit again. What they displace together is voided, audited.
+   */
   @Transactional()
   acceptHeld(id: string, { reason }: ResolutionBody, actor: Principal, now = new Date()): HeldPunchDto {
     const held = this.pendingHeld(id);
-    this.closedWeeks.assertOpenAt(held.at, 'That punch');
+    const replay = [held, ...this.waitingBehind(held)];
+    for (const row of replay) this.closedWeeks.assertOpenAt(row.at, 'That punch');
     const existing = this.ledger.around(held.technicianId, held.at);
-    const added = this.ledger.withJobOffs(existing, heldToLedger(held));
+    const added = replay.reduce<LedgerPunch[]>(
+      (sofar, row) => [...sofar, ...this.ledger.withJobOffs([...existing, ...sofar], heldToLedger(row))],
+      [],
+    );
     const impact = punchImpact(existing, added, this.shop.settings(now));
     if (impact.refusal)
       throw new ConflictException(
-        `It no longer fits the timecard (${impact.refusal}): reject it or correct the card`,
+        replay.length > 1
+          ? `It and the ${replay.length - 1} later ${replay.length > 2 ? 'punches' : 'punch'} of its replay no longer fit the timecard (${impact.refusal}): reject the one that is wrong, or correct the card`
+          : `It no longer fits the timecard (${impact.refusal}): reject it or correct the card`,
       );
-    for (const punch of added)
+    const recordedWith = new Map(replay.map((row) => [row.id, row]));
+    for (const punch of added) {
+      const row = recordedWith.get(punch.id) ?? held;
       this.ledger.insert(punch, {
-        at: held.recordedAt,
-        by: held.recordedBy,
+        at: row.recordedAt,
+        by: row.recordedBy,
         reason: `Held for review, accepted by the office: ${reason}`,
       });
+    }
     const voided = this.ledger.voidDisplaced(
       impact.displaced,
       actor,
       `Displaced by a late punch the office accepted: ${reason}`,
       now,
     );
+    for (const row of replay.slice(1))
+      this.resolve(row, 'accepted', reason, actor, now, { acceptedWith: held.id });
     return this.resolve(held, 'accepted', reason, actor, now, { voided });
   }
 
@@ -276,6 +296,13 @@ export class PunchesService {
 
   private pendingOf(technicianId: number): HeldRow[] {
     return this.queries.pendingOf.all({ technicianId });
+  }
+
+  /** Pending punches that came in after a held one, later in time: the rest of its replay. */
+  private waitingBehind(held: HeldRow): HeldRow[] {
+    return this.pendingOf(held.technicianId)
+      .filter((row) => row.id !== held.id && row.at >= held.at && row.recordedAt >= held.recordedAt)
+      .sort((a, b) => a.at.getTime() - b.at.getTime());
   }
 
   private pendingHeld(id: string): HeldRow {

@@ -257,9 +257,12 @@ export class TimecardsService {
     }
     this.closedWeeks.assertOpenAt(at, 'That correction');
     if (body.jobLineId)
-      referencedOrFail(
-        this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
-        'job line',
+      this.ledger.assertLineExistedAt(
+        referencedOrFail(
+          this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
+          'job line',
+        ),
+        at,
       );
     const candidate: LedgerPunch = {
       id: randomUUID(),

@@ -48,7 +48,7 @@ const ACTION_WORDS: Record<Action, { button: string; title: string; confirm: str
     title: 'Accept the late punch',
     confirm: 'Accept and count it',
     explain:
-      'It counts from now on, and the punches it displaces are taken out of the count, each on record.',
+      'It counts from now on, together with the later punches of the same replay that wait behind it (reject any of those first if it is wrong). The punches they displace together are taken out of the count, each on record.',
   },
   reject: {
     button: 'Reject…',
