@@ -133,6 +133,53 @@ describe(PayWeeksService.name, () => {
     expect(rate.body.message).toMatch(/^That rate would change the Week of .* pay week, which is closed/);
   });
 
+  // A person just added has no hours in any week, so their first rate (from 2000-01-01) changes no closed
+  // week. By hand, Nia's Monday of F: 08:00–12:00 on shift (4 h), clocked on a 3.5 h line 08:00–11:00 and
+  // finished then; idle 11:00–12:00. 3.5 h × $24 = $84.00 + 1 h × $12 = $12.00 → $96.00 (4 h × $7.25 = $29 is
+  // below).
+  it('adds a technician while a week is closed, paying them at their first rate', async () => {
+    const added = await history
+      .as(owner)
+      .post('/api/users', {
+        name: 'Nia New',
+        role: 'technician',
+        badge: '6004',
+        pin: '4321',
+        flatRateCents: 24_00,
+        hourlyRateCents: 12_00,
+      })
+      .expect(201);
+    const nia = (added.body as UserDto).id;
+    expect((added.body as UserDto).payRates.map((rate) => rate.effectiveFrom)).toEqual(['2000-01-01']);
+    expect(rowOf(await pay(weeks.current), nia)).toMatchObject({
+      flatRateCents: 24_00,
+      hourlyRateCents: 12_00,
+      rateFrom: '2000-01-01',
+    });
+    const day = monday(weeks.F);
+    const line = history.line('Replace front pads', 3.5, nia, at(day, '07:30'));
+    await history.punch(nia, 'shift-in', at(day, '08:00'));
+    await history.punch(nia, 'job-on', at(day, '08:00'), line);
+    await history.punch(nia, 'job-off', at(day, '11:00'), line);
+    await history.punch(nia, 'shift-out', at(day, '12:00'));
+    await history.finish(line, at(day, '11:00'));
+    expect(rowOf(await pay(weeks.F), nia)).toMatchObject({
+      flaggedPayCents: 84_00,
+      otherNonProductivePayCents: 12_00,
+      totalCents: 96_00,
+      payableCents: 96_00,
+    });
+    // A change of an existing technician's rate dated in the closed week is still refused.
+    const change = await history
+      .as(owner)
+      .patch(`/api/users/${nia}`, {
+        flatRateCents: 26_00,
+        effectiveFrom: workweekDays(weeks.W, shop)[0]!.day,
+      })
+      .expect(409);
+    expect(change.body.message).toMatch(/^That rate would change the Week of .* pay week, which is closed/);
+  });
+
   // Kai's line reopened after W closed: W now counts no flagged time, so by hand W would pay 0.5 h × $10 = $5
   // topped up to 8.5 h × $7.25 = $61.625 → $61.63 (half a cent rounds up): $61.63 − $125.00 = −$63.37,
   // shown in F, the first open week, for W. W itself does not change.
@@ -153,6 +200,14 @@ describe(PayWeeksService.name, () => {
       adjustmentCents: -63_37,
       payableCents: -63_37,
     });
+    // The pay math stays; the row says the payable amount is below the minimum wage for the hours worked
+    // (none in F: 0 h × $7.25 = $0.00), for payroll to confirm (29 CFR 531.35, from memory).
+    expect(rowOf(f, kai).payableCaution).toBe(
+      'Payable -$63.37 is below the minimum wage for 0 h worked (0 h × $7.25 = $0.00) after an adjustment of ' +
+        '-$63.37 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
+        'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
+        'payroll provider.',
+    );
 
     // Finished again in F: flagged there (6 h × $20 = $120); its time was all clocked in W, so 29 CFR 778.119
     // leaves it out of F's regular rate, and W had no overtime to add to. F pays $120 − $63.37 = $56.63.
@@ -163,6 +218,7 @@ describe(PayWeeksService.name, () => {
       additionalOvertime: [],
       adjustmentCents: -63_37,
       payableCents: 56_63,
+      payableCaution: null,
     });
   });
 

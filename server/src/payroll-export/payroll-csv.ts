@@ -22,11 +22,17 @@ const hours = (value: number) => value.toFixed(2);
 const dollars = (cents: number) => (cents / 100).toFixed(2);
 
 /**
- * One technician's row from the week's pay report. Overtime hours in the report count time-and-a-half
- * and double time together; here each has its own column, and regular hours are the rest of the hours
- * worked. Premiums are what the overtime rules and the minimum-wage floor add to piece-rate pay, so the
- * money columns add up to the report's total. Rest pay and adjustments have no figure in the pay report
- * yet: they are 0 until the report carries them.
+ * One technician's row from the week's pay report, with the report's very figures. Overtime hours in the report
+ * count time-and-a-half and double time together; here each has its own column, and regular hours are the rest
+ * of the hours worked. The money columns add up to what the report says is payable this week:
+ * - flagged pay is the flat-rate pay with any hourly-guarantee top-up (29 CFR 778.111(b)), or for a technician
+ *   paid hourly, the hourly pay: the straight-time pay for the work itself;
+ * - non-productive pay is the other time off jobs, and rest pay the rest periods (California Labor Code 226.2
+ *   asks for them apart), never counted in both;
+ * - premiums are the overtime premium, the minimum-wage top-up, meal premiums and the additional overtime owed
+ *   for earlier weeks (29 CFR 778.119);
+ * - adjustments are the differences owed for closed weeks that changed after closing (negative when a closed
+ *   week was overpaid).
  */
 export function payrollRow(
   technician: PayReportTechnician,
@@ -37,11 +43,18 @@ export function payrollRow(
     regular_hours: hours(technician.hoursWorked - technician.overtimeHours),
     overtime_hours: hours(timeAndAHalf),
     double_time_hours: hours(technician.doubleTimeHours),
-    flagged_pay: dollars(technician.flaggedPayCents),
-    non_productive_pay: dollars(technician.nonProductivePayCents),
-    rest_pay: dollars(0),
-    premiums: dollars(technician.overtimePremiumCents + technician.minimumWageTopUpCents),
-    adjustments: dollars(0),
+    flagged_pay: dollars(
+      technician.flaggedPayCents + technician.guaranteeTopUpCents + technician.hourlyPayCents,
+    ),
+    non_productive_pay: dollars(technician.otherNonProductivePayCents),
+    rest_pay: dollars(technician.restPayCents),
+    premiums: dollars(
+      technician.overtimePremiumCents +
+        technician.minimumWageTopUpCents +
+        technician.mealPremiumCents +
+        technician.additionalOvertimeCents,
+    ),
+    adjustments: dollars(technician.adjustmentCents),
   };
 }
 

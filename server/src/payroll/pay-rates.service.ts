@@ -90,14 +90,45 @@ export class PayRatesService {
     actorId: number | null,
     now = new Date(),
   ): DatedPayRate {
-    const rate = { ...this.ratesOn([userId], effectiveFrom).get(userId)!, ...changes };
-    if (rate.payType === 'flat-rate-guarantee' && rate.guaranteeCents <= 0)
-      throw new BadRequestException('A flat rate with an hourly guarantee needs the guarantee');
+    const rate = this.withChanges(userId, changes, effectiveFrom);
     const closed = firstClosedWeekFrom(this.db, effectiveFrom, this.shop.settings(now));
     if (closed)
       throw new ConflictException(
         `That rate would change the ${closed} pay week, which is closed: date it after that week, or reopen it`,
       );
+    return this.save(userId, rate, effectiveFrom, actorId, now);
+  }
+
+  /**
+   * The first rate of a technician added in the same use case. They have no hours in any week yet (a closed
+   * week refuses punches and corrections dated in it), so however far back it is dated it changes no closed
+   * week's pay: no closed week refuses it.
+   */
+  recordFirst(
+    userId: number,
+    rate: Partial<PayRate>,
+    effectiveFrom: string,
+    actorId: number | null,
+    now = new Date(),
+  ): DatedPayRate {
+    return this.save(userId, this.withChanges(userId, rate, effectiveFrom), effectiveFrom, actorId, now);
+  }
+
+  /** `changes` on top of the rate in force on `effectiveFrom`, checked. */
+  private withChanges(userId: number, changes: Partial<PayRate>, effectiveFrom: string): PayRate {
+    const rate = { ...this.ratesOn([userId], effectiveFrom).get(userId)!, ...changes };
+    if (rate.payType === 'flat-rate-guarantee' && rate.guaranteeCents <= 0)
+      throw new BadRequestException('A flat rate with an hourly guarantee needs the guarantee');
+    return rate;
+  }
+
+  private save(
+    userId: number,
+    rate: PayRate,
+    effectiveFrom: string,
+    actorId: number | null,
+    now: Date,
+  ): DatedPayRate {
     const values = {
       userId,
       effectiveFrom,

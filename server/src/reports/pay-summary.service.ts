@@ -9,6 +9,7 @@ import {
   MONEY_ROUNDING_RULE,
   NEAR_OVERTIME_HOURS,
   PAY_ESTIMATE_CAUTION,
+  payableBelowMinimumWageCaution,
   roundHalfUp,
   secondsOf,
   workweekName,
@@ -254,6 +255,7 @@ export class PaySummaryService {
     const overtimeApplies = rules.overtimeRules === 'california' || !rate.overtimeExempt;
     const additionalOvertimeCents = additionalOvertime.reduce((sum, extra) => sum + extra.cents, 0);
     const adjustmentCents = context.adjustments.reduce((sum, adjustment) => sum + adjustment.cents, 0);
+    const payableCents = estimate.totalCents + additionalOvertimeCents + adjustmentCents;
     return {
       technicianId: person.id,
       name: person.name,
@@ -287,8 +289,12 @@ export class PaySummaryService {
       additionalOvertimeCents,
       adjustments: context.adjustments,
       adjustmentCents,
-      payableCents: estimate.totalCents + additionalOvertimeCents + adjustmentCents,
+      payableCents,
       underMinimumWage: estimate.minimumWageTopUpCents > 0,
+      payableCaution: payableBelowMinimumWageCaution(
+        { payableCents, adjustmentCents, workedSeconds: estimate.workedSeconds },
+        estimate.minimumWageCents,
+      ),
       nearOvertime:
         context.running &&
         overtimeApplies &&
@@ -445,8 +451,21 @@ export class PaySummaryService {
     const by = closed.closedBy
       ? this.db.select({ name: users.name }).from(users).where(eq(users.id, closed.closedBy)).get()?.name
       : undefined;
+    const report = closed.snapshot!.report;
     return {
-      ...closed.snapshot!.report,
+      ...report,
+      // A week closed before the payable caution was added has none saved: it is worked out from its figures.
+      technicians: report.technicians.map((row) =>
+        row.payableCaution !== undefined
+          ? row
+          : {
+              ...row,
+              payableCaution: payableBelowMinimumWageCaution(
+                { ...row, workedSeconds: secondsOf(row.hoursWorked) },
+                report.minimumWageCents,
+              ),
+            },
+      ),
       closed: true,
       closedAt: closed.closedAt!.toISOString(),
       closedBy: by ?? null,

@@ -339,6 +339,7 @@ describe(ReportsService.name, () => {
       adjustmentCents: 0,
       payableCents: 575_30,
       underMinimumWage: false,
+      payableCaution: null,
       nearOvertime: false,
       exceptions: [],
       unresolvedExceptions: 0,

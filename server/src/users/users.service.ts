@@ -88,9 +88,10 @@ export class UsersService {
         email: email?.toLowerCase() ?? null,
         createdAt: new Date(),
       });
-      // A new technician's first rate covers every week on record unless the owner dates it.
+      // A new technician's first rate covers every week on record unless the owner dates it. They have no hours
+      // in any week yet, so a closed week does not refuse it.
       if (row.role === 'technician')
-        this.rates.record(row.id, rate, effectiveFrom ?? FIRST_RULES_FROM, actor?.id ?? null);
+        this.rates.recordFirst(row.id, rate, effectiveFrom ?? FIRST_RULES_FROM, actor?.id ?? null);
       this.audit.record({ actorId: actor?.id ?? null, action: 'create', entity: 'user', entityId: row.id });
       this.floor.techniciansChanged();
       return this.toDto(row);

@@ -8,6 +8,7 @@ import {
   californiaOvertime,
   californiaRestPeriods,
   estimateWeeklyPay,
+  payableBelowMinimumWageCaution,
   type PayDay,
   type PayWeekInput,
 } from './pay.js';
@@ -396,6 +397,37 @@ describe(californiaOvertime.name, () => {
     expect(seconds([8, 8, 8, 8, 8, 8, 10])).toEqual({ timeAndHalfSeconds: 16 * H, doubleTimeSeconds: 2 * H });
     expect(seconds([4, 4, 4, 4, 4, 4, 4])).toEqual({ timeAndHalfSeconds: 4 * H, doubleTimeSeconds: 0 });
     expect(seconds([0, 8, 8, 8, 8, 8, 6])).toEqual({ timeAndHalfSeconds: 6 * H, doubleTimeSeconds: 0 });
+  });
+});
+
+// 29 USC 206(a)(1)(C): $7.25 an hour for all hours worked. 29 CFR 531.35 (from memory): wages are paid "free and
+// clear", so a deduction may not cut pay below the minimum wage. A week with 5.5 h worked, a week
+// total of $40.01 and −$75.00 for an earlier, closed week: payable −$34.99 against 5.5 h × $7.25 = $39.875 →
+// $39.88 (half a cent up).
+describe(payableBelowMinimumWageCaution.name, () => {
+  it('cautions when a deduction for earlier weeks takes the payable amount below the minimum wage', () => {
+    expect(
+      payableBelowMinimumWageCaution(
+        { payableCents: -34_99, adjustmentCents: -75_00, workedSeconds: 5.5 * H },
+        7_25,
+      ),
+    ).toBe(
+      'Payable -$34.99 is below the minimum wage for 5.5 h worked (5.5 h × $7.25 = $39.88) after an adjustment ' +
+        'of -$75.00 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
+        'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
+        'payroll provider.',
+    );
+  });
+
+  it('says nothing at or above the minimum wage for the hours worked', () => {
+    const worked = { adjustmentCents: -10_00, workedSeconds: 5.5 * H };
+    expect(payableBelowMinimumWageCaution({ ...worked, payableCents: 39_88 }, 7_25)).toBeNull();
+    expect(payableBelowMinimumWageCaution({ ...worked, payableCents: 39_87 }, 7_25)).toMatch(
+      /^Payable \$39\.87 is below/,
+    );
+    expect(
+      payableBelowMinimumWageCaution({ payableCents: 0, adjustmentCents: 0, workedSeconds: 0 }, 7_25),
+    ).toBeNull();
   });
 });
 

@@ -25,6 +25,46 @@ export function applicableMinimumWageCents(
   return Math.max(FEDERAL_MINIMUM_WAGE_CENTS, rules.minimumWageCents, rules.localMinimumWageCents ?? 0);
 }
 
+/** What a week's payable amount is checked against the minimum wage with. */
+export interface PayableFigures {
+  /** Paid this week: the week's own pay, overtime owed for earlier weeks and adjustments for closed weeks. */
+  payableCents: number;
+  /** Adjustments for closed weeks paid this week (negative: a closed week was overpaid). */
+  adjustmentCents: number;
+  /** All hours worked in the week, in whole seconds. */
+  workedSeconds: number;
+}
+
+const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+const hoursWords = (seconds: number) => String(Number((seconds / HOUR_SECONDS).toFixed(2)));
+
+/**
+ * A caution when the amount payable this week is below the minimum wage for the hours worked in it, or null.
+ * The week's own pay never is (29 USC 206 tops it up); a negative adjustment for a closed week that was
+ * overpaid can bring it there. The pay math is left as it is: whether and how much of an overpayment may be
+ * taken back in one week is for payroll. 29 CFR 531.35 (from memory; confirm the text before relying on it):
+ * wages are paid "finally and unconditionally or free and clear", so a deduction may not cut pay below the
+ * minimum wage.
+ */
+export function payableBelowMinimumWageCaution(
+  figures: PayableFigures,
+  minimumWageCents: number,
+): string | null {
+  const floorCents = centsFor(figures.workedSeconds, minimumWageCents);
+  if (figures.payableCents >= floorCents) return null;
+  const hours = hoursWords(figures.workedSeconds);
+  const after =
+    figures.adjustmentCents < 0
+      ? ` after an adjustment of ${money.format(figures.adjustmentCents / 100)} from earlier weeks`
+      : '';
+  return (
+    `Payable ${money.format(figures.payableCents / 100)} is below the minimum wage for ${hours} h worked ` +
+    `(${hours} h × ${money.format(minimumWageCents / 100)} = ${money.format(floorCents / 100)})${after}: ` +
+    'confirm with payroll before paying; deductions may not cut pay below the minimum wage (29 CFR 531.35). ' +
+    'Pay figures are estimates: confirm them with local wage law and your payroll provider.'
+  );
+}
+
 /** A bona fide meal break in a workday: when it began, counted in seconds worked that day, and its length. */
 export interface MealBreak {
   afterWorkedSeconds: number;

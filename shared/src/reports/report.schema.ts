@@ -151,6 +151,11 @@ export interface PayReportTechnician extends PayRate {
   /** Flat-rate and non-productive pay fell short of the minimum wage for all hours worked. */
   underMinimumWage: boolean;
   /**
+   * Set when payable this week is below the minimum wage × hours worked (an adjustment for a closed week took
+   * it there): the caution in words, for payroll to confirm. Null otherwise. The pay math is not changed.
+   */
+  payableCaution: string | null;
+  /**
    * The week is still running and overtime applies to this technician, with NEAR_OVERTIME_HOURS or more
    * worked so far or projected for the week at the pace so far over the shop's opening hours.
    */

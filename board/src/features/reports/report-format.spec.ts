@@ -139,6 +139,7 @@ describe('report formats', () => {
       unresolvedExceptions: 0,
       additionalOvertimeCents: 0,
       adjustments: [],
+      payableCaution: null,
     } as unknown as PayReportTechnician;
     expect(payNotes(tech).map((note) => note.tone)).toEqual(['danger', 'warning']);
     expect(payNotes({ ...tech, unresolvedExceptions: 2 })[0]).toEqual({
@@ -147,6 +148,34 @@ describe('report formats', () => {
     });
     expect(payNotes({ ...tech, underMinimumWage: false, overtimeHours: 2.5 }).map((n) => n.text)).toEqual([
       'Overtime 2.50 h',
+    ]);
+  });
+
+  it('flags a payable amount below the minimum wage after an adjustment', () => {
+    const tech = {
+      underMinimumWage: false,
+      overtimeHours: 0,
+      nearOvertime: false,
+      overtimeExempt: false,
+      unresolvedExceptions: 0,
+      additionalOvertimeCents: 0,
+      adjustments: [
+        {
+          technicianId: 11,
+          forWeek: '2026-W47',
+          forWeekName: 'Week of Sun, Nov 22',
+          flaggedHours: -3,
+          cents: -75_00,
+        },
+      ],
+      payableCaution: 'Payable -$34.99 is below the minimum wage for 5.5 h worked …',
+    } as unknown as PayReportTechnician;
+    expect(payNotes(tech)).toEqual([
+      { text: 'Payable below minimum wage', tone: 'danger' },
+      { text: 'Adjusted for closed weeks', tone: 'informative' },
+    ]);
+    expect(payNotes({ ...tech, payableCaution: null }).map((n) => n.text)).toEqual([
+      'Adjusted for closed weeks',
     ]);
   });
 

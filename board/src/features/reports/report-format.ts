@@ -183,6 +183,7 @@ export function payNotes(tech: PayReportTechnician): PayNote[] {
       tone: 'danger',
     });
   if (tech.underMinimumWage) notes.push({ text: 'Under minimum wage', tone: 'danger' });
+  if (tech.payableCaution) notes.push({ text: 'Payable below minimum wage', tone: 'danger' });
   if (tech.overtimeHours > 0)
     notes.push({ text: `Overtime ${formatHours(tech.overtimeHours, 2)} h`, tone: 'warning' });
   else if (tech.nearOvertime) notes.push({ text: 'Near overtime this week', tone: 'warning' });

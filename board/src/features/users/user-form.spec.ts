@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { UserDto } from '@baytime/shared';
 import {
+  addRefusal,
   addUserFormSchema,
   editUserFormSchema,
   EMPTY_USER,
@@ -100,5 +101,24 @@ describe('the people form', () => {
       ['hourlyRate', 'Give the hourly rate'],
     ]);
     expect(issues({ payType: 'hourly', flatRate: '', hourlyRate: '22' })).toBeUndefined();
+  });
+});
+
+describe(addRefusal.name, () => {
+  it('puts a taken badge or e-mail on its field', () => {
+    expect(addRefusal('That e-mail or badge is already in use', true)).toEqual({
+      field: 'badge',
+      message: 'Someone already has this badge',
+    });
+    expect(addRefusal('That e-mail or badge is already in use', false)).toEqual({
+      field: 'email',
+      message: 'Someone already uses this e-mail',
+    });
+  });
+
+  it("says any other refusal in the server's words, not as a taken badge", () => {
+    const closed =
+      'That rate would change the Week of Sun, Nov 22, 2026 pay week, which is closed: date it after that week, or reopen it';
+    expect(addRefusal(closed, true)).toEqual({ field: null, message: closed });
   });
 });

@@ -115,3 +115,22 @@ export function rateToCome(user: UserDto, now: Date, timeZone: string): DatedPay
 export function refusalAbout(user: Pick<UserDto, 'name'>, text: string): string {
   return text.startsWith(user.name) ? text : `${user.name}: ${text}`;
 }
+
+/** Where a refused addition of a person is shown: a field, or the form's own message. */
+export interface AddRefusal {
+  field: 'badge' | 'email' | null;
+  message: string;
+}
+
+/**
+ * A 409 on adding a person. Only the server's "That e-mail or badge is already in use" is about the badge
+ * (a technician) or the e-mail (office staff); any other refusal is shown in the server's own words, never
+ * passed off as a taken badge.
+ */
+export function addRefusal(serverMessage: string, technician: boolean): AddRefusal {
+  if (/already in use/i.test(serverMessage))
+    return technician
+      ? { field: 'badge', message: 'Someone already has this badge' }
+      : { field: 'email', message: 'Someone already uses this e-mail' };
+  return { field: null, message: serverMessage };
+}

@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { useRef, type ReactNode } from 'react';
 import {
   Badge,
   Caption1,
@@ -25,6 +25,7 @@ import {
   type PayReportTotals,
 } from '@baytime/shared';
 import { formatMoney } from '@/lib/form-errors';
+import { useSidewaysScroll } from '../hooks/use-sideways-scroll';
 import { formatHours, payNotes, type PayNoteTone } from '../report-format';
 import { PayWeekStatus } from './pay-week-status';
 import { ReportSection, Stat, StatGrid } from './report-parts';
@@ -37,6 +38,36 @@ const useStyles = makeStyles({
   cautionTitle: { fontSize: tokens.fontSizeBase400 },
   rules: { color: tokens.colorNeutralForeground2, display: 'flex', flexDirection: 'column', gap: '4px' },
   scroll: { overflowX: 'auto' },
+  cue: { color: tokens.colorNeutralForeground2, display: 'block' },
+  // "Payable this week" stays at the right edge while the other columns scroll under it.
+  stickyEnd: {
+    position: 'sticky',
+    right: 0,
+    zIndex: 1,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: `inset 1px 0 0 ${tokens.colorNeutralStroke2}, -8px 0 8px -8px ${tokens.colorNeutralShadowKey}`,
+    '@media print': { position: 'static', boxShadow: 'none' },
+  },
+  stickyUnder: { backgroundColor: tokens.colorPaletteRedBackground1 },
+  // The technician stays at the left edge; the row's mark is drawn on the cell, which covers the row.
+  stickyStart: {
+    position: 'sticky',
+    left: 0,
+    zIndex: 1,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: `inset -1px 0 0 ${tokens.colorNeutralStroke2}`,
+    '@media print': { position: 'static', boxShadow: 'none' },
+  },
+  nameUnder: {
+    backgroundColor: tokens.colorPaletteRedBackground1,
+    boxShadow: `inset 4px 0 0 ${tokens.colorPaletteRedBorder2}, inset -1px 0 0 ${tokens.colorNeutralStroke2}`,
+    '@media print': { boxShadow: 'inset 4px 0 0 #000' },
+  },
+  nameNear: {
+    boxShadow: `inset 4px 0 0 ${tokens.colorStatusWarningBorder2}, inset -1px 0 0 ${tokens.colorNeutralStroke2}`,
+    '@media print': { boxShadow: 'inset 4px 0 0 #000' },
+  },
+  payableCautions: { margin: `${tokens.spacingVerticalXXS} 0 0`, paddingLeft: tokens.spacingHorizontalL },
   table: { tableLayout: 'auto', minWidth: '78rem' },
   numButton: { justifyContent: 'flex-end', textAlign: 'right', whiteSpace: 'normal' },
   num: { textAlign: 'right', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
@@ -103,6 +134,8 @@ interface Column {
   /** The column's total, when it has one. */
   total?: (totals: PayReportTotals) => ReactNode;
   strong?: boolean;
+  /** Kept in view at the right edge when the table scrolls sideways. */
+  sticky?: boolean;
 }
 
 const COLUMNS: Column[] = [
@@ -185,9 +218,15 @@ const COLUMNS: Column[] = [
   },
   {
     header: 'Payable this week',
-    cell: (t) => formatMoney(t.payableCents),
+    cell: (t) => (
+      <>
+        {formatMoney(t.payableCents)}
+        {t.payableCaution && <Caption1Sub>below min. wage</Caption1Sub>}
+      </>
+    ),
     total: (t) => formatMoney(t.payableCents),
     strong: true,
+    sticky: true,
   },
 ];
 
@@ -241,6 +280,17 @@ export function PayReportView({ report }: { report: PayReport }) {
   const styles = useStyles();
   const { totals } = report;
   const under = report.technicians.filter((tech) => tech.underMinimumWage);
+  const payableBelow = report.technicians.filter((tech) => Boolean(tech.payableCaution));
+  const scroller = useRef<HTMLDivElement>(null);
+  const sideways = useSidewaysScroll(scroller);
+  const flagged = (tech: PayReportTechnician) => tech.underMinimumWage || Boolean(tech.payableCaution);
+  const cellClass = (column: Column, tech?: PayReportTechnician) =>
+    mergeClasses(
+      styles.num,
+      column.strong && styles.strong,
+      column.sticky && styles.stickyEnd,
+      column.sticky && tech && flagged(tech) && styles.stickyUnder,
+    );
   const near = report.technicians.filter((tech) => tech.nearOvertime || tech.overtimeHours > 0);
   const { payRules } = report;
   return (
@@ -283,8 +333,15 @@ export function PayReportView({ report }: { report: PayReport }) {
         <Stat
           label="Minimum-wage top-ups"
           value={formatMoney(totals.minimumWageTopUpCents)}
-          note={under.length ? `${under.length} under the floor` : 'Nobody under the floor'}
-          alert={under.length > 0}
+          note={
+            [
+              under.length > 0 && `${under.length} under the floor`,
+              payableBelow.length > 0 && `${payableBelow.length} payable below the floor`,
+            ]
+              .filter(Boolean)
+              .join(' · ') || 'Nobody under the floor'
+          }
+          alert={under.length + payableBelow.length > 0}
         />
         <Stat
           label="Exceptions to resolve"
@@ -298,17 +355,45 @@ export function PayReportView({ report }: { report: PayReport }) {
         <Subtitle2 as="h2" id="pay-title">
           Pay per technician
         </Subtitle2>
-        <div className={mergeClasses('bt-print-wide', styles.scroll)}>
+        {payableBelow.length > 0 && (
+          <MessageBar intent="error" layout="multiline">
+            <MessageBarBody>
+              <MessageBarTitle>
+                Payable below the minimum wage: confirm with payroll before paying
+              </MessageBarTitle>
+              <ul className={styles.payableCautions}>
+                {payableBelow.map((tech) => (
+                  <li key={tech.technicianId}>
+                    <Text weight="semibold">{tech.name}</Text>: {tech.payableCaution}
+                  </li>
+                ))}
+              </ul>
+            </MessageBarBody>
+          </MessageBar>
+        )}
+        {sideways.overflows && (
+          <Caption1 className={mergeClasses('bt-no-print', styles.cue)} id="pay-scroll-cue">
+            {sideways.atEnd ? '← ' : ''}The table is wider than the window: scroll it sideways for every
+            column
+            {sideways.atEnd ? '' : ' →'}. The technician stays at the left edge, Payable this week at the
+            right.
+          </Caption1>
+        )}
+        <div
+          ref={scroller}
+          className={mergeClasses('bt-print-wide', styles.scroll)}
+          aria-describedby={sideways.overflows ? 'pay-scroll-cue' : undefined}
+        >
           <Table size="small" className={styles.table} aria-label="Pay per technician">
             <TableHeader>
               <TableRow>
-                <TableHeaderCell className={mergeClasses(styles.head, styles.name)}>
+                <TableHeaderCell className={mergeClasses(styles.head, styles.name, styles.stickyStart)}>
                   Technician
                 </TableHeaderCell>
                 {COLUMNS.map((column) => (
                   <TableHeaderCell
                     key={column.header}
-                    className={mergeClasses(styles.head, styles.num)}
+                    className={mergeClasses(styles.head, cellClass(column))}
                     button={{ className: styles.numButton }}
                   >
                     {column.header}
@@ -319,18 +404,24 @@ export function PayReportView({ report }: { report: PayReport }) {
             <TableBody>
               {report.technicians.map((tech) => {
                 const notes = payNotes(tech);
+                const mark = flagged(tech)
+                  ? 'under'
+                  : tech.nearOvertime || tech.overtimeHours > 0
+                    ? 'near'
+                    : null;
                 return (
                   <TableRow
                     key={tech.technicianId}
-                    className={
-                      tech.underMinimumWage
-                        ? styles.under
-                        : tech.nearOvertime || tech.overtimeHours > 0
-                          ? styles.near
-                          : undefined
-                    }
+                    className={mark === 'under' ? styles.under : mark === 'near' ? styles.near : undefined}
                   >
-                    <TableCell className={styles.name}>
+                    <TableCell
+                      className={mergeClasses(
+                        styles.name,
+                        styles.stickyStart,
+                        mark === 'under' && styles.nameUnder,
+                        mark === 'near' && styles.nameNear,
+                      )}
+                    >
                       <Text weight="semibold">{tech.name}</Text>
                       <Caption1 className={styles.sub}>{rateWords(tech)}</Caption1>
                       {notes.length > 0 && (
@@ -351,10 +442,7 @@ export function PayReportView({ report }: { report: PayReport }) {
                       <Particulars tech={tech} />
                     </TableCell>
                     {COLUMNS.map((column) => (
-                      <TableCell
-                        key={column.header}
-                        className={mergeClasses(styles.num, column.strong && styles.strong)}
-                      >
+                      <TableCell key={column.header} className={cellClass(column, tech)}>
                         {column.cell(tech)}
                       </TableCell>
                     ))}
@@ -362,12 +450,9 @@ export function PayReportView({ report }: { report: PayReport }) {
                 );
               })}
               <TableRow className={styles.total}>
-                <TableCell>All technicians</TableCell>
+                <TableCell className={styles.stickyStart}>All technicians</TableCell>
                 {COLUMNS.map((column) => (
-                  <TableCell
-                    key={column.header}
-                    className={mergeClasses(styles.num, column.strong && styles.strong)}
-                  >
+                  <TableCell key={column.header} className={cellClass(column)}>
                     {column.total?.(totals)}
                   </TableCell>
                 ))}
@@ -429,7 +514,12 @@ export function PayReportView({ report }: { report: PayReport }) {
             one.
           </dd>
           <dt className={styles.term}>Payable this week</dt>
-          <dd className={styles.definition}>The week total plus the earlier-week amounts.</dd>
+          <dd className={styles.definition}>
+            The week total plus the earlier-week amounts. An adjustment for an overpaid closed week can take
+            it below the minimum wage for the hours worked, or below zero: the row then says so. The figure is
+            not changed; confirm with payroll before paying, since deductions may not cut pay below the
+            minimum wage (29 CFR 531.35).
+          </dd>
         </dl>
       </ReportSection>
     </div>

@@ -24,6 +24,7 @@ const useStyles = makeStyles({
     gap: '4px',
   },
   dim: { color: tokens.colorNeutralForeground3 },
+  warn: { color: tokens.colorPaletteRedForeground1 },
 });
 
 const percent = (ratio: number | null) => (ratio === null ? '–' : `${Math.round(ratio * 100)}%`);
@@ -57,6 +58,11 @@ export function WeekReview({ card }: { card: Timecard }) {
           </div>
         ))}
       </dl>
+      {pay?.payableCaution && (
+        <Text weight="semibold" className={styles.warn}>
+          {pay.payableCaution}
+        </Text>
+      )}
       {pay && <Caption1 className={styles.dim}>{card.summary.caution}</Caption1>}
       {card.held.length > 0 && (
         <>

@@ -13,7 +13,7 @@ import { ApiError } from '@baytime/shared/client';
 import { FormErrorBar } from '@/components/form-error-bar';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { useCreateUser } from '../api/create-user';
-import { addUserFormSchema, EMPTY_USER } from '../user-form';
+import { addRefusal, addUserFormSchema, EMPTY_USER } from '../user-form';
 import { PAY_FIELD_OF } from './pay-fields';
 import { UserFieldsGrid } from './user-fields';
 
@@ -53,12 +53,10 @@ export function AddUserForm({ onAdded }: { onAdded?: (user: UserDto) => void }) 
         onAdded?.(user);
       },
       onError: (error) => {
-        if (error instanceof ApiError && error.status === 409)
-          form.setError(tech ? 'badge' : 'email', {
-            type: 'server',
-            message: tech ? 'Someone already has this badge' : 'Someone already uses this e-mail',
-          });
-        else showServerErrors(form, error, PAY_FIELD_OF);
+        if (error instanceof ApiError && error.status === 409) {
+          const refusal = addRefusal(error.message, tech);
+          form.setError(refusal.field ?? 'root.server', { type: 'server', message: refusal.message });
+        } else showServerErrors(form, error, PAY_FIELD_OF);
       },
     });
   });
