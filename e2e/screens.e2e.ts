@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BoardSnapshot, UserDto } from '@baytime/shared';
+import type { BoardSnapshot, KnownVehicle, RepairOrderSummary, UserDto } from '@baytime/shared';
 import { paths } from '../board/src/config/paths';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { flaws } from './support/flaws.js';
@@ -217,6 +217,67 @@ describe('every screen at its real sizes', () => {
       await page.close();
     },
   );
+
+  // A vehicle name as long as intake takes (make 40, model 60 characters) once ran out of the Final QC
+  // button on both sides at every size: "QC done: Bay 5" cut at the left, the vehicle past the right.
+  it('kiosk final QC at 1024x768, 1280x800 and 390x844: a long vehicle name stays inside its button', async () => {
+    const board = await owner<BoardSnapshot>('GET', '/board');
+    const inCheck = board.bays.find((bay) => bay.state === 'check')!.repairOrder!;
+    const { vin } = await owner<RepairOrderSummary>('GET', `/repair-orders/${inCheck.id}`);
+    const onFile = await owner<KnownVehicle>('GET', `/vehicles?vin=${vin}`);
+    await owner('PATCH', `/repair-orders/${inCheck.id}`, {
+      vehicle: {
+        make: 'Ostrander-Whitcombe Motor Vehicle Works',
+        model: 'Pelican Long Wheelbase Crew Cab Heavy Duty Diesel Dually 4x4',
+      },
+    });
+    try {
+      for (const [width, height] of [
+        [1024, 768],
+        [1280, 800],
+        [390, 844],
+      ] as const) {
+        const page = await browser.newPage();
+        await page.setViewportSize({ width, height });
+        await signInAtKiosk(page, server, '1045');
+        const button = page.getByRole('button', { name: /^Final QC done: / });
+        await button.scrollIntoViewIfNeeded();
+        await page.waitForTimeout(300);
+        await look(page, `screens-kiosk-final-qc-${width}x${height}`);
+        const measured = await button.evaluate((el) => {
+          const box = el.getBoundingClientRect();
+          const span = el.querySelector('span')!;
+          const small = el.querySelector('small')!;
+          const boxes = [span, small].map((text) => text.getBoundingClientRect());
+          return {
+            button: { width: box.width, height: box.height },
+            // How far the text's boxes reach past each edge of the button, in px, and how far the text
+            // runs past its own box: nowhere.
+            past: [
+              box.left - Math.min(...boxes.map((b) => b.left)),
+              Math.max(...boxes.map((b) => b.right)) - box.right,
+              box.top - Math.min(...boxes.map((b) => b.top)),
+              Math.max(...boxes.map((b) => b.bottom)) - box.bottom,
+              span.scrollWidth - span.clientWidth,
+            ].map((px) => Math.max(0, Math.round(px))),
+            vehicleLines: Math.round(small.clientHeight / parseFloat(getComputedStyle(small).lineHeight)),
+          };
+        });
+        const size = `${width}x${height}`;
+        expect(measured.past, size).toEqual([0, 0, 0, 0, 0]);
+        expect(measured.vehicleLines, size).toBeLessThanOrEqual(2);
+        // DISPLAY.md: 20 mm keys for a gloved finger, about 76 CSS px on a 10-inch tablet.
+        expect(Math.min(measured.button.width, measured.button.height), size).toBeGreaterThanOrEqual(76);
+        await page.getByRole('button', { name: 'Sign out' }).click();
+        await page.getByText('Sign in with your badge').waitFor();
+        await page.close();
+      }
+    } finally {
+      await owner('PATCH', `/repair-orders/${inCheck.id}`, {
+        vehicle: { make: onFile.make, model: onFile.model },
+      });
+    }
+  });
 
   it('kiosk offline at 390x844: the sign-in sheet reads without overlapping lines and goes once the link is back', async () => {
     const page = await browser.newPage();

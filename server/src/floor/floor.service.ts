@@ -1,6 +1,7 @@
 import { Inject, Injectable, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
 import type { Subscription } from 'rxjs';
 import { and, asc, eq, getTableColumns, gte, inArray, isNull, min, ne, sql } from 'drizzle-orm';
+import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import {
   buildLedger,
   isOpenLine,
@@ -21,7 +22,6 @@ import {
   timerReadings,
   timers,
   users,
-  vehicles,
 } from '../db/schema/index.js';
 import { toPunchDto, type LineSeconds } from '../labour/labour.service.js';
 import { LiveService, type Audience } from '../live/live.service.js';
@@ -140,12 +140,30 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
 
   linesChanged(lineIds: readonly number[]): void {
     if (lineIds.length === 0) return;
+    this.afterCommit(() =>
+      this.takeLines(lineIds, this.queries.linesById.all({ ids: JSON.stringify(lineIds) })),
+    );
+  }
+
+  /**
+   * A repair order's own record changed (the customer or vehicle it records): its lines and the bays it
+   * is parked in are read again. Every other line and bay keeps its record, so only their tiles change.
+   */
+  repairOrdersChanged(repairOrderIds: readonly number[]): void {
+    if (repairOrderIds.length === 0) return;
     this.afterCommit(() => {
-      const rows = this.queries.linesById.all({ ids: JSON.stringify(lineIds) });
-      for (const id of lineIds) this.lines.delete(id);
-      const open = rows.filter(isOpenLine);
-      for (const row of open) this.lines.set(row.id, toFloorLine(row));
-      this.widenWindowsFor(open.map((row) => row.id));
+      const ids = JSON.stringify(repairOrderIds);
+      const rows = this.queries.linesOfRepairOrders.all({ ids });
+      this.takeLines(
+        rows.map((row) => row.id),
+        rows,
+      );
+      const parked = new Map(this.queries.baysParkedWith.all({ ids }).map((row) => [row.bay.id, row]));
+      if (parked.size > 0)
+        this.bayList = this.bayList.map((bay) => {
+          const row = parked.get(bay.id);
+          return row ? toFloorBay(row) : bay;
+        });
     });
   }
 
@@ -283,6 +301,14 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
         if (seconds !== 0) visit(lineId, tech.id, seconds);
       }
     }
+  }
+
+  /** The lines as read again: those still open replace what the model held, the others leave it. */
+  private takeLines(lineIds: readonly number[], rows: LineQueryRow[]): void {
+    for (const id of lineIds) this.lines.delete(id);
+    const open = rows.filter(isOpenLine);
+    for (const row of open) this.lines.set(row.id, toFloorLine(row));
+    this.widenWindowsFor(open.map((row) => row.id));
   }
 
   private afterCommit(apply: () => void): void {
@@ -442,33 +468,38 @@ function toFloorLine({
 function toFloorBay({
   bay,
   parkedRepairOrder,
-  parkedVehicle,
 }: {
   bay: typeof bays.$inferSelect;
   parkedRepairOrder: typeof repairOrders.$inferSelect | null;
-  parkedVehicle: typeof vehicles.$inferSelect | null;
 }): FloorBay {
   return {
     ...bay,
-    parked:
-      parkedRepairOrder && parkedVehicle
-        ? {
-            id: parkedRepairOrder.id,
-            number: parkedRepairOrder.number,
-            vehicle: describeVehicle(parkedVehicle),
-          }
-        : null,
+    parked: parkedRepairOrder
+      ? {
+          id: parkedRepairOrder.id,
+          number: parkedRepairOrder.number,
+          vehicle: describeVehicle({
+            year: parkedRepairOrder.vehicleYear,
+            make: parkedRepairOrder.vehicleMake,
+            model: parkedRepairOrder.vehicleModel,
+          }),
+        }
+      : null,
   };
 }
 
-/** Statements prepared once: the model reads the same shapes after every change. */
+/**
+ * Statements prepared once: the model reads the same shapes after every change. A line or bay shows the
+ * vehicle as its repair order records it, as the office does: a later visit that corrects the vehicle
+ * on file does not rewrite an RO still open, and an edit of the RO does.
+ */
 function prepareFloorQueries(db: Db) {
   const lineColumns = {
     ...getTableColumns(jobLines),
     repairOrderNumber: repairOrders.number,
-    vehicleYear: vehicles.year,
-    vehicleMake: vehicles.make,
-    vehicleModel: vehicles.model,
+    vehicleYear: repairOrders.vehicleYear,
+    vehicleMake: repairOrders.vehicleMake,
+    vehicleModel: repairOrders.vehicleModel,
     parts: partsHolds,
   };
   const latestParts = sql`(select max(${partsHolds.id}) from ${partsHolds} where ${partsHolds.jobLineId} = ${jobLines.id})`;
@@ -477,8 +508,14 @@ function prepareFloorQueries(db: Db) {
       .select(lineColumns)
       .from(jobLines)
       .innerJoin(repairOrders, eq(repairOrders.id, jobLines.repairOrderId))
-      .innerJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
       .leftJoin(partsHolds, eq(partsHolds.id, latestParts));
+  const inIds = (column: SQLiteColumn) =>
+    sql`${column} in (select value from json_each(${sql.placeholder('ids')}))`;
+  const baysWithParked = () =>
+    db
+      .select({ bay: bays, parkedRepairOrder: repairOrders })
+      .from(bays)
+      .leftJoin(repairOrders, eq(repairOrders.id, bays.repairOrderId));
   return {
     technicians: db
       .select({ id: users.id, name: users.name, skillLevel: users.skillLevel })
@@ -490,17 +527,14 @@ function prepareFloorQueries(db: Db) {
     openLines: linesWithVehicle()
       .where(and(ne(jobLines.status, 'done'), ne(jobLines.status, 'cancelled')))
       .prepare(),
-    linesById: linesWithVehicle()
-      .where(sql`${jobLines.id} in (select value from json_each(${sql.placeholder('ids')}))`)
-      .prepare(),
+    linesById: linesWithVehicle().where(inIds(jobLines.id)).prepare(),
+    /** Every line of the repair orders, open or not: a handful each, through the RO index of lines. */
+    linesOfRepairOrders: linesWithVehicle().where(inIds(jobLines.repairOrderId)).prepare(),
     /** Each bay with the repair order parked in it (check, ready) when no open line says more. */
-    bays: db
-      .select({ bay: bays, parkedRepairOrder: repairOrders, parkedVehicle: vehicles })
-      .from(bays)
-      .leftJoin(repairOrders, eq(repairOrders.id, bays.repairOrderId))
-      .leftJoin(vehicles, eq(vehicles.id, repairOrders.vehicleId))
-      .where(eq(bays.active, true))
-      .orderBy(asc(bays.position), asc(bays.id))
+    bays: baysWithParked().where(eq(bays.active, true)).orderBy(asc(bays.position), asc(bays.id)).prepare(),
+    /** The active bays the repair orders are parked in. */
+    baysParkedWith: baysWithParked()
+      .where(and(eq(bays.active, true), inIds(bays.repairOrderId)))
       .prepare(),
     runningTimers: db.select().from(timers).where(isNull(timers.endedAt)).prepare(),
   };

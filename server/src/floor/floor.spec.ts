@@ -83,6 +83,22 @@ const command = fc.oneof(
   },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('final-check' as const), bay: fc.nat() }) },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('close-ro' as const), ro: fc.nat() }) },
+  {
+    weight: 1,
+    arbitrary: fc.record({
+      type: fc.constant('edit-ro' as const),
+      ro: fc.nat(),
+      vehicle: fc.record(
+        {
+          year: fc.integer({ min: 1985, max: 2024 }),
+          make: fc.constantFrom('Tarrow', 'Ostrander', 'Halvard'),
+          model: fc.constantFrom('Kestrel', 'Pelican Crew Cab', 'Wren'),
+        },
+        { requiredKeys: [] },
+      ),
+      promiseHours: fc.option(fc.integer({ min: 1, max: 96 })),
+    }),
+  },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('reorder-bays' as const), seed: fc.nat() }) },
 );
 type Command = typeof command extends fc.Arbitrary<infer C> ? C : never;
@@ -247,6 +263,29 @@ describe(FloorService.name, () => {
             cmd.ro,
           );
           if (parked) app.app.get(RepairOrdersService).close(parked.parked!.id, owner, now);
+          return;
+        }
+        case 'edit-ro': {
+          // An RO on the floor: one with an open line, or parked in a bay.
+          const ids = [
+            ...new Set([
+              ...lines.map((l) => l.repairOrderId),
+              ...bays.flatMap((b) => (b.parked ? [b.parked.id] : [])),
+            ]),
+          ].sort((a, b) => a - b);
+          const id = pick(ids, cmd.ro);
+          if (id === undefined) return;
+          app.app.get(RepairOrdersService).edit(
+            id,
+            {
+              vehicle: cmd.vehicle,
+              ...(cmd.promiseHours !== null && {
+                promisedAt: new Date(now.getTime() + cmd.promiseHours * 3600_000).toISOString(),
+              }),
+            },
+            owner,
+            now,
+          );
           return;
         }
         case 'reorder-bays': {

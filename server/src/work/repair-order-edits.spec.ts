@@ -7,6 +7,7 @@ import {
   type BoardSnapshot,
   type FindingDto,
   type JobLineDto,
+  type MyDay,
   type RepairOrderHistoryEntry,
   type RepairOrderSummary,
   type SignInAnswer,
@@ -210,6 +211,57 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
     await as(advisor)
       .post(`/api/repair-orders/${written.id}/lines`, { title: 'More', bookHours: 1 })
       .expect(409);
+  });
+
+  it('shows an edited vehicle on the wall and the kiosk at once, in the bays that hold its RO and no other', async () => {
+    const inBay = await write(undefined, { vin: makeVin('1M8GDM9AKP042793') });
+    const inCheck = await write(undefined, { vin: makeVin('1M8GDM9AKP042794') });
+    const board = sut.connect(foreman);
+    await nextEvent(board, 'board.snapshot');
+    const [working, parked] = [
+      (await as(owner).post('/api/bays', { name: 'Bay 31' }).expect(201)).body as { id: number },
+      (await as(owner).post('/api/bays', { name: 'Bay 32' }).expect(201)).body as { id: number },
+    ];
+    await as(foreman)
+      .patch(`/api/job-lines/${inBay.lines[0]!.id}`, { technicianId: tech.user.id, bayId: working!.id })
+      .expect(200);
+    await as(foreman)
+      .patch(`/api/job-lines/${inCheck.lines[0]!.id}`, { technicianId: tech.user.id, bayId: parked!.id })
+      .expect(200);
+    // Done and waiting for the final check: the bay holds the RO with no open line.
+    await as(tech.accessToken)
+      .post(`/api/job-lines/${inCheck.lines[0]!.id}/done`, { next: 'check' })
+      .expect(200);
+    const published: number[] = [];
+    board.on('bay.updated', ({ bay }) => published.push(bay.id));
+    const boardBay = async (id: number) =>
+      ((await as(foreman).get('/api/board').expect(200)).body as BoardSnapshot).bays.find(
+        (b) => b.id === id,
+      )!;
+    expect(await boardBay(working!.id)).toMatchObject({ vehicle: '1989 Tarrow Kestrel', state: 'staged' });
+    expect(await boardBay(parked!.id)).toMatchObject({ vehicle: '1989 Tarrow Kestrel', state: 'check' });
+
+    for (const [order, bay, vehicle] of [
+      [inBay, working!, { year: 1991, make: 'Ostrander', model: 'Pelican Crew Cab' }],
+      [inCheck, parked!, { make: 'Halvard' }],
+    ] as const) {
+      published.length = 0;
+      const told = nextEvent(board, 'bay.updated', ({ bay: b }) => b.id === bay.id);
+      await as(advisor).patch(`/api/repair-orders/${order.id}`, { vehicle }).expect(200);
+      const expected = (await ro(order.id)).vehicle;
+      expect((await told).bay).toMatchObject({ vehicle: expected, repairOrder: { id: order.id } });
+      expect(await boardBay(bay.id)).toMatchObject({ vehicle: expected });
+      // The change's messages leave together: no other bay's tile changed.
+      await new Promise((resolve) => setTimeout(resolve, 100));
+      expect(published).toEqual([bay.id]);
+    }
+    const day = (await as(tech.accessToken).get('/api/me/day').expect(200)).body as MyDay;
+    expect(day.lines.find((l) => l.id === inBay.lines[0]!.id)).toMatchObject({
+      vehicle: '1991 Ostrander Pelican Crew Cab',
+    });
+    expect(day.finalChecks.find((c) => c.bayId === parked!.id)).toMatchObject({
+      vehicle: '1989 Halvard Kestrel',
+    });
   });
 
   it('the seeded RO with every line done shows Work done, not Open (bug 3)', async () => {

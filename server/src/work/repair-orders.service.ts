@@ -280,16 +280,12 @@ export class RepairOrdersService {
         })
         .where(eq(vehicles.id, ro.vehicleId))
         .run();
-    let moved: number[] = [];
-    if (promisedAt !== undefined) {
-      moved = this.db
+    if (promisedAt !== undefined)
+      this.db
         .update(jobLines)
         .set({ promisedAt, updatedAt: now })
         .where(eq(jobLines.repairOrderId, id))
-        .returning({ id: jobLines.id })
-        .all()
-        .map((line) => line.id);
-    }
+        .run();
     this.audit.record({
       actorId: actor.id,
       action: 'edit',
@@ -304,7 +300,10 @@ export class RepairOrdersService {
           }),
       },
     });
-    return this.changed(id, moved, now);
+    // The floor reads the RO's record of the vehicle (the wall's tiles, the kiosks' lines and final
+    // checks) and the lines' promise: it reads this RO's lines and bays again, and only those.
+    this.floor.repairOrdersChanged([id]);
+    return this.changed(id, [], now);
   }
 
   /** A line added after the RO was written joins the queue; a finished RO is open again. */

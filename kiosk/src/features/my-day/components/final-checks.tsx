@@ -23,7 +23,8 @@ export function FinalChecks({ checks }: { checks: readonly MyFinalCheck[] }) {
           <MeaningGlyph name="final-check-next" />
           <span>
             {BAY_STATE_WORDS.check} done: {check.bayName}
-            <small>
+            {/* Two lines at most, then an ellipsis: a vehicle name may run to a hundred characters. */}
+            <small data-shortened>
               RO {check.repairOrderNumber} · {check.vehicle}
             </small>
           </span>
