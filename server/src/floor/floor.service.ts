@@ -324,7 +324,7 @@ export class FloorService implements OnModuleInit, OnModuleDestroy {
     if (!clock) return null;
     if (!clock.built) {
       this.prune(clock, now.getTime());
-      const ledger = buildLedger(clock.punches, now, this.shop.settings(now));
+      const ledger = buildLedger(clock.punches, now, this.shop.ledgerSettings(now));
       clock.built = {
         ledger,
         at: now.getTime(),

@@ -180,7 +180,7 @@ export class LabourService {
   /** The technician's ledger up to `now`, read back far enough to hold a shift that was open at `from`. */
   ledgerSince(technicianId: number, from: Date, now: Date): Ledger {
     const start = new Date(this.readFrom(technicianId, from.getTime()));
-    return buildLedger(this.punchesOf(technicianId, start, now), now, this.shop.settings(now));
+    return buildLedger(this.punchesOf(technicianId, start, now), now, this.shop.ledgerSettings(now));
   }
 
   /**
@@ -190,7 +190,7 @@ export class LabourService {
    */
   lineSeconds(jobLineIds: number[], now: Date): Map<number, LineSeconds> {
     if (jobLineIds.length === 0) return new Map();
-    const settings = this.shop.settings(now);
+    const settings = this.shop.ledgerSettings(now);
     // Inside a transaction the rows may yet be rolled back: nothing kept is read or kept.
     const keeping = !inTransaction(this.db);
     if (keeping) this.kept.refresh(settings, now);

@@ -147,7 +147,7 @@ export class PunchesService {
     };
     const counted = this.floor.punchesOf(technicianId);
     const added = this.ledger.withJobOffs(counted, candidate);
-    const impact = punchImpact(counted, added, this.shop.settings(now));
+    const impact = punchImpact(counted, added, this.shop.ledgerSettings(now));
     const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
     const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
     // A replay's later punch may only fit after its held one (a clock-on after a held shift-in): it waits too.
@@ -209,7 +209,7 @@ export class PunchesService {
       (sofar, row) => [...sofar, ...this.ledger.withJobOffs([...existing, ...sofar], heldToLedger(row))],
       [],
     );
-    const impact = punchImpact(existing, added, this.shop.settings(now));
+    const impact = punchImpact(existing, added, this.shop.ledgerSettings(now));
     if (impact.refusal)
       throw new ConflictException(
         replay.length > 1

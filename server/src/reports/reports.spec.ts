@@ -21,6 +21,7 @@ import { DB, type Db } from '../db/database.js';
 import { auditLog, punches, users } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { ShopService } from '../shop/shop.service.js';
 import { ReportsService } from './reports.service.js';
 import { hoursOf, WeekFiguresService } from './week-figures.service.js';
 
@@ -580,10 +581,11 @@ describe(ReportsService.name, () => {
       .expect(200);
 
     const now = new Date();
-    const whole = new WeekFiguresService(db).figures([label], shop, now)[0]!;
+    const shopService = sut.app.get(ShopService);
+    const whole = new WeekFiguresService(db, shopService).figures([label], shop, now)[0]!;
     expect([...whole.flagged.get(juno)!.keys()].sort()).toEqual([shared, unclocked].sort());
     for (const technicianId of [juno, omar]) {
-      const alone = new WeekFiguresService(db).figuresOf(label, technicianId, shop, now);
+      const alone = new WeekFiguresService(db, shopService).figuresOf(label, technicianId, shop, now);
       expect(hoursOf(alone, technicianId), `technician ${technicianId}`).toEqual(
         hoursOf(whole, technicianId),
       );
@@ -804,17 +806,18 @@ describe(ReportsService.name, () => {
   });
 
   // 29 CFR 785.19(a): a bona fide meal period is ordinarily 30 minutes or more; the shop sets its minimum.
-  it('counts past weeks again when a setting their figures depend on changes', async () => {
+  it('keeps past weeks as counted when a counting rule changes after them', async () => {
     const earlier = addIsoWeeks(week, -1);
     const eli = async () =>
       (await pay(`week=${earlier}`)).technicians.find((row) => row.technicianId === ids.e)!;
     expect((await labour(`week=${week}`)).trend[10]).toMatchObject({ attendanceHours: 47 });
     expect(await eli()).toMatchObject({ hoursWorked: 47 });
-    // With a 45-minute minimum, Eli's six 30-minute meals are paid rest: 47 + 6 × 0.5 = 50 h.
+    // Read under a 45-minute minimum, Eli's six 30-minute meals would be paid rest (47 + 6 × 0.5 = 50 h); they
+    // were taken under the 30-minute one, and stay meals.
     await as(owner).patch('/api/shop', { minimumMealMinutes: 45 }).expect(200);
     try {
-      expect((await labour(`week=${week}`)).trend[10]).toMatchObject({ attendanceHours: 50 });
-      expect(await eli()).toMatchObject({ hoursWorked: 50 });
+      expect((await labour(`week=${week}`)).trend[10]).toMatchObject({ attendanceHours: 47 });
+      expect(await eli()).toMatchObject({ hoursWorked: 47 });
     } finally {
       await as(owner).patch('/api/shop', { minimumMealMinutes: 30 }).expect(200);
     }

@@ -12,6 +12,7 @@ import {
   type LabourHours,
   type Ledger,
   type LedgerPunch,
+  type LedgerSettings,
   type LedgerTotals,
   type ShopDay,
   type ShopSettings,
@@ -22,6 +23,7 @@ import { inTransaction } from '../db/in-transaction.js';
 import { jobLines, punches, users } from '../db/schema/index.js';
 import { LEDGER_PUNCH_COLUMNS, toLedgerPunch, type LedgerPunchValues } from '../labour/labour.service.js';
 import { counts, notReplaced, prepareReadFrom } from '../punches/last-shift-out.js';
+import { ShopService } from '../shop/shop.service.js';
 import { EVERYTHING_CHANGED, WeekChanges } from './week-changes.js';
 
 /**
@@ -136,12 +138,12 @@ export function shopHoursOf(week: WeekFigures): LabourHours {
 }
 
 /** The settings a week's figures depend on: where the week falls, and how a ledger counts. */
-function figuresSettingsKey(settings: ShopSettings): string {
+function figuresSettingsKey(settings: ShopSettings, ledger: LedgerSettings): string {
   return JSON.stringify([
     settings.timeZone,
     settings.workweekStartDay,
     settings.workweekStartHour,
-    ledgerSettingsKey(settings),
+    ledgerSettingsKey(ledger),
   ]);
 }
 
@@ -217,7 +219,10 @@ export class WeekFiguresService {
   private keptFor = '';
   private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
-  constructor(@Inject(DB) private readonly db: Db) {
+  constructor(
+    @Inject(DB) private readonly db: Db,
+    private readonly shop: ShopService,
+  ) {
     this.changes = new WeekChanges(db);
     this.readFrom = prepareReadFrom(db);
   }
@@ -294,7 +299,7 @@ export class WeekFiguresService {
 
   private forgetChanged(settings: ShopSettings): void {
     const changed = this.changes.since();
-    const key = figuresSettingsKey(settings);
+    const key = figuresSettingsKey(settings, this.shop.ledgerSettings());
     const since = key === this.keptFor ? changed : EVERYTHING_CHANGED;
     this.keptFor = key;
     if (since === null) return;
@@ -365,7 +370,6 @@ export class WeekFiguresService {
     const toDate = this.clockedBefore(
       first,
       finished.filter((line) => line.queuedAt < first).map((line) => line.id),
-      settings,
     );
 
     return weeks.map(({ week, from, to }, index) => {
@@ -375,7 +379,7 @@ export class WeekFiguresService {
       for (const [technicianId, { ms, list }] of byTechnician) {
         const slice = list.slice(sliceStart({ ms, list }, from.getTime()), lowerBound(ms, end));
         if (slice.length === 0) continue;
-        const ledger = buildLedger(slice, until, settings);
+        const ledger = buildLedger(slice, until, this.shop.ledgerSettings());
         const totals = ledger.within(from, to);
         technicians.set(technicianId, { ledger, totals });
         for (const [lineId, seconds] of Object.entries(totals.jobSeconds))
@@ -478,11 +482,7 @@ export class WeekFiguresService {
    * Seconds clocked before `first` on the given lines (finished in the weeks read, queued before them),
    * by line and technician: the part of a long job that lies before the weeks read.
    */
-  private clockedBefore(
-    first: Date,
-    lineIds: readonly number[],
-    settings: ShopSettings,
-  ): Map<number, Map<number, number>> {
+  private clockedBefore(first: Date, lineIds: readonly number[]): Map<number, Map<number, number>> {
     const result = new Map<number, Map<number, number>>();
     const earliest = new Map<number, number>();
     for (const { technicianId, at } of this.db
@@ -505,7 +505,7 @@ export class WeekFiguresService {
         )
         .all()
         .map((row) => ({ ...row, at: row.at.toISOString() }));
-      const before = buildLedger(own, first, settings).totals.jobSeconds;
+      const before = buildLedger(own, first, this.shop.ledgerSettings()).totals.jobSeconds;
       for (const [lineId, seconds] of Object.entries(before))
         if (seconds > 0) addTo(getOrAdd(result, Number(lineId)), technicianId, seconds);
     }

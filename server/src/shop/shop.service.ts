@@ -8,6 +8,8 @@ import {
   workweekName,
   workweekOf,
   type DatedPayRules,
+  type LedgerRules,
+  type LedgerSettings,
   type PayRules,
   type ShopSettings,
   type UpdateShopBody,
@@ -18,7 +20,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { Subject } from 'rxjs';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { payRules, shopSettings } from '../db/schema/index.js';
+import { earlierLedgerRules, payRules, shopSettings } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import { closedWeeksMovedBy, firstClosedWeekFrom } from '../payroll/closed-week-days.js';
 
@@ -79,6 +81,14 @@ export class ShopService {
   private cachedRules: DatedPayRules[] | null = null;
   /** The last settings handed out, kept while neither their row nor their day's rules change. */
   private lastSettings: { row: SettingsRow; rules: DatedPayRules; settings: ShopSettings } | null = null;
+  /** The ledger rules of before each change, oldest first. */
+  private cachedEarlier: LedgerSettings['earlier'] | null = null;
+  /** The last ledger settings handed out, kept while the settings and the earlier rules stay the same. */
+  private lastLedger: {
+    settings: ShopSettings;
+    earlier: LedgerSettings['earlier'];
+    ledger: LedgerSettings;
+  } | null = null;
   /** The settings as saved, once the change has committed. */
   readonly changed$ = new Subject<ShopSettings>();
 
@@ -99,6 +109,25 @@ export class ShopService {
     const settings = Object.freeze({ ...row, ...rules });
     this.lastSettings = { row, rules, settings };
     return settings;
+  }
+
+  /**
+   * How punches are counted: the current ledger rules, with the earlier ones and until when each was in
+   * force, so time is counted under the rules of its moment. Pass these to every ledger.
+   */
+  ledgerSettings(now = new Date()): LedgerSettings {
+    const settings = this.settings(now);
+    this.cachedEarlier ??= this.db
+      .select()
+      .from(earlierLedgerRules)
+      .orderBy(asc(earlierLedgerRules.until))
+      .all()
+      .map((row) => ({ ...ledgerRulesOf(row), until: row.until.getTime() }));
+    const last = this.lastLedger;
+    if (last?.settings === settings && last.earlier === this.cachedEarlier) return last.ledger;
+    const ledger = Object.freeze({ ...ledgerRulesOf(settings), earlier: this.cachedEarlier });
+    this.lastLedger = { settings, earlier: this.cachedEarlier, ledger };
+    return ledger;
   }
 
   /** The pay rules in force on a day ('YYYY-MM-DD' in the shop's zone). */
@@ -155,6 +184,15 @@ export class ShopService {
         );
       this.saveRules(rules, from, actor.id);
     }
+    const before = ledgerRulesOf(current);
+    const ledgerChanged = (Object.keys(before) as (keyof LedgerRules)[]).some(
+      (field) => field in changes && changes[field] !== before[field],
+    );
+    if (ledgerChanged)
+      this.db
+        .insert(earlierLedgerRules)
+        .values({ ...before, until: now })
+        .run();
     const rowChanges = Object.fromEntries(
       Object.entries(changes).filter(([key]) => !(PAY_RULE_FIELDS as readonly string[]).includes(key)),
     );
@@ -206,8 +244,14 @@ export class ShopService {
   private forget(): void {
     this.cachedRow = null;
     this.cachedRules = null;
+    this.cachedEarlier = null;
   }
 }
+
+const ledgerRulesOf = (rules: LedgerRules): LedgerRules => ({
+  concurrentSplit: rules.concurrentSplit,
+  minimumMealMinutes: rules.minimumMealMinutes,
+});
 
 function pick(changes: Partial<ShopSettings>): Partial<PayRules> {
   return Object.fromEntries(

@@ -107,7 +107,7 @@ export class TimecardsService {
       .orderBy(asc(punches.at))
       .all();
     const all = rows.map(toPunchDto);
-    const ledger = buildLedger(all, until, settings);
+    const ledger = buildLedger(all, until, this.shop.ledgerSettings());
     const supersededBy = new Map(all.filter((p) => p.supersedes).map((p) => [p.supersedes!, p.id]));
     const names = this.namesOf([...new Set(all.map((p) => p.recordedBy))]);
     const lines = this.linesOf([...new Set(ledger.jobs.map((j) => j.jobLineId))]);
@@ -276,7 +276,7 @@ export class TimecardsService {
     };
     const existing = this.ledger.around(body.technicianId, at);
     const added = this.ledger.withJobOffs(existing, candidate);
-    return { added, impact: punchImpact(existing, added, this.shop.settings(now)) };
+    return { added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)) };
   }
 
   private namesOf(ids: number[]): Map<number, string> {

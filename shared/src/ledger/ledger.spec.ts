@@ -35,6 +35,16 @@ const on = (line: number, time: string) => punch('job-on', time, { jobLineId: li
 const off = (line: number, time: string) => punch('job-off', time, { jobLineId: line });
 const pause = (kind: BreakKind, time: string) => punch('break-start', time, { breakKind: kind });
 
+/** Lines 1 and 2 open together from 10:00 to 11:00. */
+const overlap = [
+  punch('shift-in', '08:00'),
+  on(1, '09:00'),
+  on(2, '10:00'),
+  off(1, '11:00'),
+  off(2, '12:00'),
+  punch('shift-out', '12:00'),
+];
+
 describe(buildLedger.name, () => {
   const day = [
     punch('shift-in', '08:00'),
@@ -160,15 +170,6 @@ describe(buildLedger.name, () => {
   });
 
   describe('concurrent job lines', () => {
-    const overlap = [
-      punch('shift-in', '08:00'),
-      on(1, '09:00'),
-      on(2, '10:00'),
-      off(1, '11:00'),
-      off(2, '12:00'),
-      punch('shift-out', '12:00'),
-    ];
-
     it("splits overlapping time evenly under 'even'", () => {
       const totals = buildLedger(overlap, new Date(at('12:00')), even).totals;
       expect(totals.jobSeconds).toEqual({ 1: 1.5 * 3600, 2: 1.5 * 3600 });
@@ -189,6 +190,35 @@ describe(buildLedger.name, () => {
         [2, true],
       ]);
     });
+  });
+});
+
+describe('rules that changed', () => {
+  // The shop counted a full hour on each line until 10:30, and splits evenly from then on.
+  const changed: LedgerSettings = {
+    ...even,
+    earlier: [{ concurrentSplit: 'full', minimumMealMinutes: 15, until: Date.parse(at('10:30')) }],
+  };
+
+  it('counts time on several lines under the split rule of its moment', () => {
+    // By hand: line 1 has 09:00–10:00 alone, 10:00–10:30 in full and 10:30–11:00 halved: 1.75 h; line 2 the same
+    // mirrored. The wall time clocked is 3 h either way.
+    const totals = buildLedger(overlap, new Date(at('12:00')), changed).totals;
+    expect(totals.jobSeconds).toEqual({ 1: 1.75 * 3600, 2: 1.75 * 3600 });
+    expect(hours(totals.clockedSeconds)).toBe(3);
+  });
+
+  it('judges a meal by the shortest bona fide meal of the moment it began', () => {
+    const day = [
+      punch('shift-in', '08:00'),
+      pause('meal', '10:00'),
+      punch('break-end', '10:20'),
+      pause('meal', '12:00'),
+      punch('break-end', '12:20'),
+      punch('shift-out', '13:00'),
+    ];
+    const ledger = buildLedger(day, new Date(at('13:00')), changed);
+    expect(ledger.breaks.map((b) => b.kind)).toEqual(['meal', 'rest']);
   });
 });
 

@@ -12,7 +12,21 @@ export type LedgerPunch = Pick<
   'id' | 'technicianId' | 'kind' | 'jobLineId' | 'breakKind' | 'at' | 'supersedes'
 > &
   Partial<Pick<PunchDto, 'voids'>>;
-export type LedgerSettings = Pick<ShopSettings, 'concurrentSplit' | 'minimumMealMinutes'>;
+/** How a ledger counts: the split of time on several lines at once, and the shortest bona fide meal. */
+export type LedgerRules = Pick<ShopSettings, 'concurrentSplit' | 'minimumMealMinutes'>;
+export interface LedgerSettings extends LedgerRules {
+  /**
+   * The rules in force before the current ones, oldest first, each until an instant (ms): time is counted
+   * under the rules of its moment, so a change of them never re-reads the past. None: the current rules
+   * count all of it.
+   */
+  earlier?: readonly (LedgerRules & { until: number })[];
+}
+
+/** The rules in force at an instant (ms). */
+function rulesAt(settings: LedgerSettings, at: number): LedgerRules {
+  return settings.earlier?.find((rules) => at < rules.until) ?? settings;
+}
 
 /**
  * The ledger settings alone, as one string: what is counted from a ledger and kept must be counted
@@ -22,6 +36,7 @@ export function ledgerSettingsKey(settings: LedgerSettings): string {
   const ledger: Record<keyof LedgerSettings, unknown> = {
     concurrentSplit: settings.concurrentSplit,
     minimumMealMinutes: settings.minimumMealMinutes,
+    earlier: settings.earlier ?? [],
   };
   return JSON.stringify(ledger);
 }
@@ -127,9 +142,15 @@ function effectivePunches(punches: readonly LedgerPunch[]): LedgerPunch[] {
 
 const seconds = (from: number, to: number) => Math.max(0, to - from) / 1000;
 
+/** [from, to) cut where the rules change, each piece under one set of rules. */
+function underOneRule(settings: LedgerSettings, from: number, to: number): [number, number][] {
+  const cuts = (settings.earlier ?? []).map((rules) => rules.until).filter((at) => at > from && at < to);
+  return [from, ...cuts].map((start, i) => [start, cuts[i] ?? to]);
+}
+
 function totalsOf(
   ledger: Pick<Ledger, 'shifts' | 'breaks' | 'jobs'>,
-  split: LedgerSettings['concurrentSplit'],
+  settings: LedgerSettings,
   from: number,
   to: number,
 ): LedgerTotals {
@@ -155,9 +176,12 @@ function totalsOf(
   let previous = -Infinity;
   for (const event of events) {
     if (open.size > 0 && event.at > previous) {
-      const wall = seconds(previous, event.at);
-      clockedSeconds += wall;
-      for (const line of open.keys()) jobSeconds[line]! += split === 'even' ? wall / open.size : wall;
+      clockedSeconds += seconds(previous, event.at);
+      for (const [start, end] of underOneRule(settings, previous, event.at)) {
+        const wall = seconds(start, end);
+        const even = rulesAt(settings, start).concurrentSplit === 'even';
+        for (const line of open.keys()) jobSeconds[line]! += even ? wall / open.size : wall;
+      }
     }
     previous = event.at;
     const count = (open.get(event.line) ?? 0) + event.delta;
@@ -238,7 +262,6 @@ function readLedger(
   let openShift: { from: number; punchId: string } | null = null;
   let openBreak: { from: number; declared: BreakKind | null; punchId: string } | null = null;
   const openJobs = new Map<number, { from: number; punchId: string }>(); // insertion order is oldest first
-  const minimumMealMs = settings.minimumMealMinutes * 60_000;
 
   const span = (start: { from: number; punchId: string }, to: number, open = false): LedgerInterval => ({
     from: new Date(start.from),
@@ -259,7 +282,9 @@ function readLedger(
     // of no stated kind, are rest periods and hours worked (785.18). An open meal counts as a meal so far.
     const meal =
       openBreak.declared === 'meal' &&
-      (endedBy === null || interval.to.getTime() - interval.from.getTime() >= minimumMealMs);
+      (endedBy === null ||
+        interval.to.getTime() - interval.from.getTime() >=
+          rulesAt(settings, openBreak.from).minimumMealMinutes * 60_000);
     breaks.push({ ...interval, kind: meal ? 'meal' : 'rest', declared: openBreak.declared, endedBy });
     openBreak = null;
   };
@@ -322,9 +347,9 @@ function readLedger(
     anomalies,
     // Counted when first read: a fit check reads only the anomalies.
     get totals() {
-      return (totals ??= totalsOf(intervals, settings.concurrentSplit, -Infinity, Infinity));
+      return (totals ??= totalsOf(intervals, settings, -Infinity, Infinity));
     },
-    within: (from, to) => totalsOf(intervals, settings.concurrentSplit, from.getTime(), to.getTime()),
+    within: (from, to) => totalsOf(intervals, settings, from.getTime(), to.getTime()),
   };
 }
 

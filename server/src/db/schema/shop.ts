@@ -52,3 +52,18 @@ export const operations = sqliteTable('operations', {
   skillLevel: integer('skill_level').notNull().default(1),
   active: integer('active', { mode: 'boolean' }).notNull().default(true),
 });
+
+/**
+ * The ledger rules the shop counted by before a change of them, each until the instant it changed: time
+ * is counted under the rules of its moment, so a change never re-reads the past.
+ */
+export const earlierLedgerRules = sqliteTable(
+  'earlier_ledger_rules',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    until: integer('until', { mode: 'timestamp_ms' }).notNull(),
+    concurrentSplit: text('concurrent_split', { enum: CONCURRENT_SPLITS }).notNull(),
+    minimumMealMinutes: integer('minimum_meal_minutes').notNull(),
+  },
+  (t) => [oneOf(t.concurrentSplit, CONCURRENT_SPLITS)],
+);

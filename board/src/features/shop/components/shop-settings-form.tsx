@@ -364,7 +364,11 @@ function ShopForm({
               ))}
             </Select>
           </Field>
-          <Field label="Time on several jobs at once" validationMessage={errors.concurrentSplit}>
+          <Field
+            label="Time on several jobs at once"
+            validationMessage={errors.concurrentSplit}
+            hint="A change applies from now on: time already clocked stays as it was counted."
+          >
             <Select
               value={draft.concurrentSplit}
               onChange={(_, data) => set('concurrentSplit', data.value as Draft['concurrentSplit'])}
@@ -389,7 +393,7 @@ function ShopForm({
             'minimumMealMinutes',
             'Shortest unpaid meal (minutes)',
             [10, 60],
-            'A “meal” shorter than this counts as a paid rest break. 29 CFR 785.19(a): 30 minutes or more is ordinarily long enough.',
+            'A “meal” shorter than this counts as a paid rest break. 29 CFR 785.19(a): 30 minutes or more is ordinarily long enough. A change applies to breaks from now on; breaks already taken stay as counted.',
           )}
           {numberField(
             'longShiftHours',
