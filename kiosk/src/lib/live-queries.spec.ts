@@ -39,6 +39,12 @@ describe('LIVE_QUERIES (kiosk)', () => {
     expect(LIVE_QUERIES['job-line.updated']({ seq: 1, jobLine: line(50, 8) }, dana)).toEqual([]);
   });
 
+  it('reads the day again after a repair order changed, while someone is signed in', () => {
+    const edited = { seq: 1, repairOrderId: 12 };
+    expect(LIVE_QUERIES['repair-order.updated'](edited, dana)).toEqual([queryKeys.myDay.all()]);
+    expect(LIVE_QUERIES['repair-order.updated'](edited, nobody)).toEqual([]);
+  });
+
   it('reads the shop and the day again after a settings save: split rule and idle sign-out', () => {
     const shop = {} as Parameters<(typeof LIVE_QUERIES)['shop.updated']>[0]['shop'];
     expect(LIVE_QUERIES['shop.updated']({ seq: 1, shop }, nobody)).toEqual([

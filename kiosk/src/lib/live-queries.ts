@@ -40,7 +40,8 @@ export const LIVE_QUERIES: {
   'timer.updated': () => [queryKeys.timers()],
   'finding.created': () => [],
   'finding.answered': () => [],
-  'repair-order.updated': () => [],
+  // An edit may rename the vehicle or move the promise on a line of the day: the event names only the RO.
+  'repair-order.updated': (_, context) => (context.technicianId !== null ? [queryKeys.myDay.all()] : []),
   // The split rule, the idle sign-out and the jobs-at-once limit come with the day and the shop.
   'shop.updated': () => [queryKeys.shop(), queryKeys.myDay.all()],
   'session.ended': () => [],
