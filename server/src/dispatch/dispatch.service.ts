@@ -44,6 +44,15 @@ const PRIORITY_RANK = { urgent: 0, high: 1, normal: 2, low: 3 } as const;
 export const NO_OPENING_HOURS =
   'No forecasts: the shop has no opening hours. Set them in Admin → Shop settings.';
 
+/**
+ * Flagged ÷ clocked hours, or null (no pace of its own yet) below the shop's minimum of clocked hours.
+ * No clocked time is no pace at any minimum: with a minimum of 0 it read 0 ÷ 0, and the forecast that
+ * took that NaN for a pace never finished, which stopped the server.
+ */
+function efficiencyOf(flaggedHours: number, clockedHours: number, minimumHours: number): number | null {
+  return clockedHours > 0 && clockedHours >= minimumHours ? flaggedHours / clockedHours : null;
+}
+
 const byUrgency = (a: DispatchLine, b: DispatchLine) =>
   b.clockedOn.length - a.clockedOn.length ||
   PRIORITY_RANK[a.priority] - PRIORITY_RANK[b.priority] ||
@@ -313,9 +322,9 @@ export class DispatchService implements OnModuleInit, OnApplicationBootstrap, On
       const clocked = this.labour.ledgerSince(id, from, now).within(from, now).clockedSeconds / 3600;
       shopFlagged += flagged.get(id) ?? 0;
       shopClocked += clocked;
-      byTechnician.set(id, clocked >= minimumHours ? (flagged.get(id) ?? 0) / clocked : null);
+      byTechnician.set(id, efficiencyOf(flagged.get(id) ?? 0, clocked, minimumHours));
     }
-    const shop = shopClocked >= minimumHours ? shopFlagged / shopClocked : null;
+    const shop = efficiencyOf(shopFlagged, shopClocked, minimumHours);
     const values = { byTechnician, shop };
     this.efficiencyCache = { at: now.getTime(), minimumHours, values };
     this.storeEfficiencies(this.efficiencyCache);

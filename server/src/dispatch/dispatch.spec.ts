@@ -379,6 +379,40 @@ describe(DispatchService.name, () => {
     });
   });
 
+  describe('a technician with no clocked time, when the shop asks for no minimum', () => {
+    let sut: TestApp;
+    beforeAll(async () => {
+      sut = await startTestApp();
+    });
+    afterAll(() => sut.close());
+
+    // A minimum of 0 clocked hours took 0 ÷ 0 for a newcomer's pace: the forecast of a line given to
+    // them then never finished, and every page that counts late work (dispatch, an RO) hung the server.
+    it('has no pace of their own, and their lines are forecast at the shop’s pace', async () => {
+      const owner = await sut.signIn(DEMO.owner);
+      const foreman = await sut.signIn(DEMO.foreman);
+      const history = shopHistory(sut, { owner, foreman });
+      const ines = await history.technician('Ines Corrow', '5089', 20_00, 15_00);
+      await history.as(owner).patch('/api/shop', { minimumClockedHoursForEfficiency: 0 }).expect(200);
+      // Asked of the service first: while their lane holds no line there is no forecast to hang on.
+      const lane = sut.app
+        .get(DispatchService)
+        .view()
+        .lanes.find((each) => each.technician.id === ines)!;
+      expect(lane.efficiency).toBeNull();
+
+      const advisor = await sut.signIn(DEMO.advisor);
+      const lineId = (await writeOrder(sut, advisor, '900789', new Date(Date.now() + 3 * 24 * 3600_000), 2))
+        .lines[0]!.id;
+      await history.as(foreman).patch(`/api/job-lines/${lineId}`, { technicianId: ines }).expect(200);
+      const board = (await history.as(foreman).get('/api/dispatch').expect(200)).body as DispatchBoard;
+      const line = board.lanes
+        .find((each) => each.technician.id === ines)!
+        .lines.find((each) => each.id === lineId)!;
+      expect(Date.parse(line.forecast!.finishAt)).toBeGreaterThan(Date.parse(board.serverTime));
+    });
+  });
+
   describe('opening hours that once stopped the server', () => {
     let sut: TestApp;
     beforeAll(async () => {

@@ -300,4 +300,10 @@ describe(`${addOpenHours.name} beyond a day shop`, () => {
   it('has no answer for a shop that never opens', () => {
     expect(addOpenHours(utc('2026-03-03T15:00'), 1, Array(7).fill(null), ZONE)).toBeNull();
   });
+
+  it('refuses hours that are no number instead of counting them down for ever', () => {
+    // NaN hours (a pace of 0 ÷ 0 clocked hours) once looped here for good, and the server with it.
+    for (const hours of [Infinity, -Infinity, NaN])
+      expect(() => addOpenHours(utc('2026-03-03T15:00'), hours, WEEKDAYS, ZONE)).toThrow(RangeError);
+  });
 });

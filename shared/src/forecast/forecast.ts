@@ -166,6 +166,8 @@ export function addOpenHours(
   openingHours: OpeningHours,
   timeZone: string,
 ): Date | null {
+  // NaN hours would never run out below, and the loop would hold the server for good.
+  if (!Number.isFinite(hours)) throw new RangeError(`Cannot add ${hours} open hours`);
   let left = Math.max(0, Math.round(hours * MS_PER_HOUR));
   let cursor = start.getTime();
   const ahead = openPeriodsFrom(cursor, openingHours, timeZone);
