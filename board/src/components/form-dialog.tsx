@@ -20,6 +20,9 @@ const useStyles = makeStyles({
 export interface FormDialogProps {
   title: string;
   submitLabel: string;
+  /** The save button's words while the answer is on its way. */
+  pendingLabel?: string;
+  cancelLabel?: string;
   pending: boolean;
   /** The form's own message: a refusal no single field owns. */
   formError: string | undefined;
@@ -32,6 +35,8 @@ export interface FormDialogProps {
 export function FormDialog({
   title,
   submitLabel,
+  pendingLabel = 'Saving…',
+  cancelLabel = 'Cancel',
   pending,
   formError,
   onSubmit,
@@ -44,6 +49,7 @@ export function FormDialog({
       <DialogSurface className={styles.surface}>
         <form
           noValidate
+          aria-label={title}
           onSubmit={(event) => {
             event.preventDefault();
             onSubmit();
@@ -57,10 +63,10 @@ export function FormDialog({
             </DialogContent>
             <DialogActions>
               <Button appearance="secondary" onClick={onClose}>
-                Cancel
+                {cancelLabel}
               </Button>
               <Button appearance="primary" type="submit" disabled={pending}>
-                {pending ? 'Saving…' : submitLabel}
+                {pending ? pendingLabel : submitLabel}
               </Button>
             </DialogActions>
           </DialogBody>

@@ -157,7 +157,7 @@ describe(createSignInEndWatch.name, () => {
   it('takes the notice away once someone signs in again', () => {
     const { sut, tokens, records, until } = setUp(SIGNED + 8 * HOUR, token(SIGNED + 8 * HOUR));
     until(SIGNED + 19 * HOUR + 52 * MINUTE);
-    expect(sut.get()).not.toBeNull();
+    expect(sut.get()).toEqual({ endsAt: SIGNED + 20 * HOUR });
     const again = Date.now();
     const fresh = token(again, again);
     records.answered(fresh, answer(again + 12 * HOUR), 'advisor@marlowcreek.test');

@@ -1,19 +1,6 @@
-import {
-  Body1,
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  Field,
-  Input,
-  makeStyles,
-  tokens,
-} from '@fluentui/react-components';
+import { Body1, Field, Input, makeStyles, tokens } from '@fluentui/react-components';
 import { loginSchema, type AuthUser } from '@baytime/shared';
-import { FormErrorBar } from '@/components/form-error-bar';
+import { FormDialog } from '@/components/form-dialog';
 import { useSchemaForm } from '@/lib/form';
 import { OtherPersonError, useSignInAgain } from '../api/login';
 import { useOfficeToken } from '../hooks/use-office-token';
@@ -21,8 +8,6 @@ import { officeSignIn } from '../office-sign-in';
 import { showSignInError } from '../sign-in-errors';
 
 const useStyles = makeStyles({
-  surface: { maxWidth: '28rem' },
-  content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   who: { color: tokens.colorNeutralForeground2 },
 });
 
@@ -58,43 +43,35 @@ export function SignInAgainDialog({ user, onClose }: { user: AuthUser; onClose: 
   );
 
   return (
-    <Dialog open onOpenChange={(_, data) => !data.open && onClose()}>
-      <DialogSurface className={styles.surface}>
-        <form noValidate aria-label="Sign in again" onSubmit={(event) => void submit(event)}>
-          <DialogBody>
-            <DialogTitle>Sign in again</DialogTitle>
-            <DialogContent className={styles.content}>
-              <Body1>
-                Enter your password for a fresh sign-in. This page stays as it is, with everything you have
-                typed.
-              </Body1>
-              {email ? (
-                <>
-                  <Body1 className={styles.who}>
-                    {user.name} · {email}
-                  </Body1>
-                  {/* For the browser's saved passwords: the account the password belongs to. */}
-                  <input type="email" name="email" autoComplete="username" value={email} readOnly hidden />
-                </>
-              ) : (
-                <Field label="E-mail" required validationMessage={errors.email?.message}>
-                  <Input type="email" autoComplete="username" {...form.register('email')} />
-                </Field>
-              )}
-              <Field label="Password" required validationMessage={errors.password?.message}>
-                <Input type="password" autoComplete="current-password" {...form.register('password')} />
-              </Field>
-              <FormErrorBar message={errors.root?.server?.message ?? null} />
-            </DialogContent>
-            <DialogActions>
-              <Button onClick={onClose}>Not now</Button>
-              <Button appearance="primary" type="submit" disabled={signIn.isPending}>
-                {signIn.isPending ? 'Signing in…' : 'Sign in'}
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </form>
-      </DialogSurface>
-    </Dialog>
+    <FormDialog
+      title="Sign in again"
+      submitLabel="Sign in"
+      pendingLabel="Signing in…"
+      cancelLabel="Not now"
+      pending={signIn.isPending}
+      formError={errors.root?.server?.message}
+      onSubmit={() => void submit()}
+      onClose={onClose}
+    >
+      <Body1>
+        Enter your password for a fresh sign-in. This page stays as it is, with everything you have typed.
+      </Body1>
+      {email ? (
+        <>
+          <Body1 className={styles.who}>
+            {user.name} · {email}
+          </Body1>
+          {/* For the browser's saved passwords: the account the password belongs to. */}
+          <input type="email" name="email" autoComplete="username" value={email} readOnly hidden />
+        </>
+      ) : (
+        <Field label="E-mail" required validationMessage={errors.email?.message}>
+          <Input type="email" autoComplete="username" {...form.register('email')} />
+        </Field>
+      )}
+      <Field label="Password" required validationMessage={errors.password?.message}>
+        <Input type="password" autoComplete="current-password" {...form.register('password')} />
+      </Field>
+    </FormDialog>
   );
 }
