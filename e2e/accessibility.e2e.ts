@@ -5,7 +5,15 @@ import { OFFICE_NAV } from '../board/src/config/office-nav';
 import { paths } from '../board/src/config/paths';
 import { openBrowser } from './support/browser.js';
 import type { ApprovalRequested } from '@baytime/shared';
-import { apiAs, openKiosk, openWall, recordFinding, signInAtOffice, technicianDay } from './support/floor.js';
+import {
+  apiAs,
+  offlineSheetFetched,
+  openKiosk,
+  openWall,
+  recordFinding,
+  signInAtOffice,
+  technicianDay,
+} from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
 
 /** WCAG 2.0, 2.1 and 2.2, levels A and AA, as axe-core tags its rules. */
@@ -271,6 +279,7 @@ describe('accessibility: WCAG 2.2 A and AA on every screen', () => {
     findings.push(...(await checkPage(page, 'kiosk badge step', seen)));
 
     // No link: badge and PIN lead to the offline punch sheet.
+    await offlineSheetFetched(page);
     await page.context().setOffline(true);
     await page.keyboard.type('1046');
     await page.keyboard.press('Enter');

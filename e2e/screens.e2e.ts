@@ -9,6 +9,7 @@ import { openBrowser, screenshotPath } from './support/browser.js';
 import { flaws } from './support/flaws.js';
 import {
   apiAs,
+  offlineSheetFetched,
   openKiosk,
   openWall,
   peopleStrip,
@@ -287,6 +288,7 @@ describe('every screen at its real sizes', () => {
     await page.keyboard.press('Enter');
     await page.getByText('Now your PIN').waitFor();
     await page.keyboard.type('4321');
+    await offlineSheetFetched(page);
     await browser.setOffline(true);
     const sheet = page.getByRole('dialog', { name: /No connection/ });
     try {

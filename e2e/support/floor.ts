@@ -13,6 +13,14 @@ export async function openKiosk(page: Page, server: RunningServer): Promise<void
   await keypad.waitFor();
 }
 
+/** Waits until the kiosk has fetched its offline punch sheet, which it does once the keypad shows: once
+ * offline, a tablet whose service worker is not yet in charge cannot fetch it. */
+export async function offlineSheetFetched(page: Page): Promise<void> {
+  await page.waitForFunction(() =>
+    performance.getEntriesByType('resource').some((entry) => entry.name.includes('offline-punch-sheet')),
+  );
+}
+
 /** Signs a technician in on the kiosk keypad the way a badge reader would: digits, then Enter. */
 export async function signInAtKiosk(
   page: Page,

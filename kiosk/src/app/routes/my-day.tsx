@@ -1,9 +1,10 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Spinner } from '@fluentui/react-components';
 import { useQueryClient } from '@tanstack/react-query';
 import { TIMER_KIND_LABELS, type TimerDto } from '@baytime/shared';
 import { useSession } from '@/lib/session';
 import { useNow } from '@/hooks/use-now';
+import { usePreload } from '@/hooks/use-preload';
 import { clockTime } from '@/lib/format';
 import { NoteIcon, TimerIcon } from '@/components/icons';
 import { SheetLoading } from '@/components/sheet-loading';
@@ -27,8 +28,7 @@ import { usePunch } from '@/features/punches/hooks/use-punch';
 import '@/features/my-day/components/my-day.css';
 import { queryKeys } from '@/lib/query-keys';
 
-// Timers and findings load on first use; they are fetched ahead in a quiet moment so a tablet that
-// loses the Wi-Fi later can still open them.
+// Timers and findings load on first use, and are fetched ahead once the day shows.
 const loadTimerPanel = () => import('@/features/timers/components/timer-panel');
 const loadStartTimer = () => import('@/features/timers/components/start-timer-sheet');
 const loadReading = () => import('@/features/timers/components/reading-sheet');
@@ -37,8 +37,7 @@ const TimerPanel = lazy(() => loadTimerPanel().then((m) => ({ default: m.TimerPa
 const StartTimerSheet = lazy(() => loadStartTimer().then((m) => ({ default: m.StartTimerSheet })));
 const ReadingSheet = lazy(() => loadReading().then((m) => ({ default: m.ReadingSheet })));
 const FindingSheet = lazy(() => loadFinding().then((m) => ({ default: m.FindingSheet })));
-
-const PRELOAD_AFTER_MS = 2_000;
+const PRELOADS = [loadTimerPanel, loadStartTimer, loadReading, loadFinding];
 
 type OpenSheet =
   | { kind: 'hold' | 'done' | 'timer' | 'finding'; line: DayLine }
@@ -62,13 +61,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const queryClient = useQueryClient();
   const [sheet, setSheet] = useState<OpenSheet | null>(null);
 
-  useEffect(() => {
-    const timer = setTimeout(() => {
-      for (const load of [loadTimerPanel, loadStartTimer, loadReading, loadFinding])
-        void load().catch(() => undefined);
-    }, PRELOAD_AFTER_MS);
-    return () => clearTimeout(timer);
-  }, []);
+  usePreload(PRELOADS);
 
   if (day.isPending) {
     return (

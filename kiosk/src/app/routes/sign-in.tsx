@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Navigate, useNavigate, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { useDeviceToken } from '@/lib/device';
@@ -9,17 +9,17 @@ import { useOfflineKey } from '@/features/punches/api/get-offline-key';
 import { renewQueuedToken } from '@/features/punches/punch-queue';
 import { rememberedShop } from '@/features/shop/api/get-shop';
 import { Splash } from '@/components/splash';
+import { usePreload } from '@/hooks/use-preload';
 import { SheetLoading } from '@/components/sheet-loading';
 
 // Shown once in a tablet's life: it loads by itself, and with it the zod schema it checks codes with.
 const PairKioskPanel = lazy(async () => ({
   default: (await import('@/features/pairing/components/pair-kiosk-panel')).PairKioskPanel,
 }));
-// Needed only when the server cannot be reached, so it is fetched ahead once the keypad shows: a
-// tablet that loses the Wi-Fi later still has it.
+// Needed only when the server cannot be reached, so it is fetched ahead once the keypad shows.
 const loadOfflinePunchSheet = () => import('@/features/punches/components/offline-punch-sheet');
 const OfflinePunchSheet = lazy(() => loadOfflinePunchSheet().then((m) => ({ default: m.OfflinePunchSheet })));
-const PRELOAD_AFTER_MS = 2_000;
+const PRELOADS = [loadOfflinePunchSheet];
 
 const REASONS: Record<SignOutReason, string> = {
   tapped: 'Signed out. Next person: badge number, then PIN.',
@@ -59,10 +59,7 @@ function SignIn() {
       setRecorded(LINK_BACK);
     }
   }
-  useEffect(() => {
-    const timer = setTimeout(() => void loadOfflinePunchSheet().catch(() => undefined), PRELOAD_AFTER_MS);
-    return () => clearTimeout(timer);
-  }, []);
+  usePreload(PRELOADS);
   if (current) return <Navigate to={paths.myDay.getHref()} replace />;
 
   return (
