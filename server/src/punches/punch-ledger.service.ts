@@ -64,11 +64,11 @@ export class PunchLedgerService {
 
   /**
    * `punch` with the job-offs it implies before it, at the same instant: a clock-on at the shop's
-   * jobs-at-once limit closes the oldest open line, on record, so a later change of the limit leaves
-   * the past as it was counted.
+   * jobs-at-once limit of its moment closes the oldest open line, on record, so a later change of the
+   * limit leaves the past as it was counted.
    */
   withJobOffs(existing: readonly LedgerPunch[], punch: LedgerPunch): LedgerPunch[] {
-    const offs = jobOffsFor(existing, punch, this.shop.settings().maxConcurrentJobs);
+    const offs = jobOffsFor(existing, punch, this.shop.jobsAtOnceAt(new Date(punch.at)));
     return [
       ...offs.map((off) => ({
         id: randomUUID(),

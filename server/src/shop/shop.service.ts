@@ -20,7 +20,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { Subject } from 'rxjs';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { earlierLedgerRules, payRules, shopSettings } from '../db/schema/index.js';
+import { earlierJobLimits, earlierLedgerRules, payRules, shopSettings } from '../db/schema/index.js';
 import { LiveService } from '../live/live.service.js';
 import { closedWeeksMovedBy, firstClosedWeekFrom } from '../payroll/closed-week-days.js';
 
@@ -83,6 +83,8 @@ export class ShopService {
   private lastSettings: { row: SettingsRow; rules: DatedPayRules; settings: ShopSettings } | null = null;
   /** The ledger rules of before each change, oldest first. */
   private cachedEarlier: LedgerSettings['earlier'] | null = null;
+  /** The jobs-at-once limit before each change of it, oldest first. */
+  private cachedJobLimits: { until: number; maxConcurrentJobs: number }[] | null = null;
   /** The last ledger settings handed out, kept while the settings and the earlier rules stay the same. */
   private lastLedger: {
     settings: ShopSettings;
@@ -128,6 +130,18 @@ export class ShopService {
     const ledger = Object.freeze({ ...ledgerRulesOf(settings), earlier: this.cachedEarlier });
     this.lastLedger = { settings, earlier: this.cachedEarlier, ledger };
     return ledger;
+  }
+
+  /** The jobs-at-once limit in force at an instant: what a punch added for that moment is held to. */
+  jobsAtOnceAt(at: Date): number {
+    this.cachedJobLimits ??= this.db
+      .select()
+      .from(earlierJobLimits)
+      .orderBy(asc(earlierJobLimits.until))
+      .all()
+      .map((row) => ({ until: row.until.getTime(), maxConcurrentJobs: row.maxConcurrentJobs }));
+    const earlier = this.cachedJobLimits.find((limit) => at.getTime() < limit.until);
+    return earlier?.maxConcurrentJobs ?? this.settings().maxConcurrentJobs;
   }
 
   /** The pay rules in force on a day ('YYYY-MM-DD' in the shop's zone). */
@@ -193,6 +207,11 @@ export class ShopService {
         .insert(earlierLedgerRules)
         .values({ ...before, until: now })
         .run();
+    if (changes.maxConcurrentJobs !== undefined && changes.maxConcurrentJobs !== current.maxConcurrentJobs)
+      this.db
+        .insert(earlierJobLimits)
+        .values({ maxConcurrentJobs: current.maxConcurrentJobs, until: now })
+        .run();
     const rowChanges = Object.fromEntries(
       Object.entries(changes).filter(([key]) => !(PAY_RULE_FIELDS as readonly string[]).includes(key)),
     );
@@ -245,6 +264,7 @@ export class ShopService {
     this.cachedRow = null;
     this.cachedRules = null;
     this.cachedEarlier = null;
+    this.cachedJobLimits = null;
   }
 }
 

@@ -17,6 +17,15 @@ describe(TimecardsService.name, () => {
   const card = async (token = owner, query = `technicianId=${technicianId}&week=${week}`) =>
     (await sut.http().get(`/api/timecards?${query}`).auth(token, { type: 'bearer' }).expect(200))
       .body as Timecard;
+  const addTechnician = async (name: string, badge: string) =>
+    (
+      await sut
+        .http()
+        .post('/api/users')
+        .auth(owner, { type: 'bearer' })
+        .send({ name, role: 'technician', badge, pin: '4321' })
+        .expect(201)
+    ).body as { id: number };
   const correct = (body: object) =>
     sut
       .http()
@@ -27,12 +36,7 @@ describe(TimecardsService.name, () => {
   beforeAll(async () => {
     sut = await startTestApp();
     owner = await sut.signIn(DEMO.owner);
-    await sut
-      .http()
-      .post('/api/users')
-      .auth(owner, { type: 'bearer' })
-      .send({ name: 'Kit Marsh', role: 'technician', badge: '3001', pin: '4321' })
-      .expect(201);
+    await addTechnician('Kit Marsh', '3001');
     const kit = await sut.badge('3001');
     technicianId = kit.user.id;
     techToken = kit.accessToken;
@@ -91,13 +95,35 @@ describe(TimecardsService.name, () => {
       .expect(403);
   });
 
+  it('holds a correction dated before a change of the jobs-at-once limit to the limit of its moment', async () => {
+    const newcomer = await addTechnician('Ada Fenwick', '3003');
+    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
+      queue: { jobLineId: number }[];
+    };
+    const [first, second] = board.queue.map((line) => line.jobLineId);
+    const ago = (minutes: number) => new Date(Date.now() - minutes * 60_000).toISOString();
+    const shop = () => sut.http().patch('/api/shop').auth(owner, { type: 'bearer' });
+    await shop().send({ maxConcurrentJobs: 2 }).expect(200);
+    try {
+      const add = (body: object) =>
+        correct({ technicianId: newcomer.id, reason: 'Punched on paper', ...body }).expect(201);
+      await add({ kind: 'shift-in', at: ago(30) });
+      await add({ kind: 'job-on', jobLineId: first, at: ago(25) });
+      const switched = ago(20);
+      await add({ kind: 'job-on', jobLineId: second, at: switched });
+      const week = workweekOf(new Date(), (await shop().send({}).expect(200)).body as ShopSettings);
+      const { punches } = await card(owner, `technicianId=${newcomer.id}&week=${week}`);
+      // One job at a time until a moment ago: the second clock-on closed the first line where it happened.
+      expect(punches.filter((p) => p.kind === 'job-off')).toEqual([
+        expect.objectContaining({ jobLineId: first, at: switched }),
+      ]);
+    } finally {
+      await shop().send({ maxConcurrentJobs: 1 }).expect(200);
+    }
+  });
+
   it('flags a shift still open from an earlier day', async () => {
-    const { body: newcomer } = await sut
-      .http()
-      .post('/api/users')
-      .auth(owner, { type: 'bearer' })
-      .send({ name: 'Bo Lindell', role: 'technician', badge: '3002', pin: '4321' })
-      .expect(201);
+    const newcomer = await addTechnician('Bo Lindell', '3002');
     const yesterday = new Date(Date.now() - 26 * 3600_000).toISOString();
     await correct({
       technicianId: newcomer.id,

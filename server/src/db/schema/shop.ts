@@ -67,3 +67,13 @@ export const earlierLedgerRules = sqliteTable(
   },
   (t) => [oneOf(t.concurrentSplit, CONCURRENT_SPLITS)],
 );
+
+/**
+ * The shop's jobs-at-once limit before each change of it, until the instant it changed: a punch added
+ * for a past moment (a correction, a held punch accepted) closes the lines the limit of that moment did.
+ */
+export const earlierJobLimits = sqliteTable('earlier_job_limits', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  until: integer('until', { mode: 'timestamp_ms' }).notNull(),
+  maxConcurrentJobs: integer('max_concurrent_jobs').notNull(),
+});

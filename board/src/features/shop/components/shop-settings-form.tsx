@@ -354,7 +354,7 @@ function ShopForm({
           <Field
             label="Jobs a technician may be clocked on at once"
             validationMessage={errors.maxConcurrentJobs}
-            hint="Clocking onto one more closes the oldest. A change applies from the next clock-on: time already clocked stays as it was."
+            hint="Clocking onto one more closes the oldest. A change applies from now on: time already clocked stays as it was, and a punch added later for an earlier moment follows the limit of that moment."
           >
             <Select value={String(draft.maxConcurrentJobs)} onChange={number('maxConcurrentJobs')}>
               {[1, 2, 3, 4].map((n) => (
