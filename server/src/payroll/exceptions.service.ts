@@ -40,7 +40,7 @@ export class ExceptionsService {
   ) {}
 
   collect({ from, to, now, ledgers }: WeekLedgers): TimeException[] {
-    const settings = this.shop.settings(now);
+    const settings = { ...this.shop.settings(now), ...this.shop.ledgerSettings(now) };
     const found: Omit<TimeException, 'technicianName' | 'resolution'>[] = [];
     for (const [technicianId, ledger] of ledgers)
       for (const exception of ledgerExceptions(ledger, from, to, now, settings))

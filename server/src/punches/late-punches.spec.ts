@@ -209,7 +209,7 @@ describe(`${PunchesService.name}: late punches`, () => {
     const [short] = await mine();
     expect(short).toMatchObject({ kind: 'short-meal', resolution: null });
     expect(short!.text).toMatch(
-      /^Meal break at .* lasted 20 min, under the shop's 30: counted as paid rest$/,
+      /^Meal break at .* lasted 20 min, under the shop's 30-minute minimum: counted as paid rest$/,
     );
     expect((await card(ida)).totals.attendanceSeconds).toBe(4 * 3600);
 

@@ -3,8 +3,8 @@ import { buildLedger, type LedgerPunch } from '../ledger/ledger.js';
 import type { BreakKind, PunchKind } from '../punches/punches.schema.js';
 import { ledgerExceptions } from './ledger-exceptions.js';
 
-const settings = { timeZone: 'UTC', longShiftHours: 14, minimumMealMinutes: 30 };
 const ledgerSettings = { concurrentSplit: 'even' as const, minimumMealMinutes: 30 };
+const settings = { timeZone: 'UTC', longShiftHours: 14, ...ledgerSettings };
 let serial = 0;
 const punch = (kind: PunchKind, time: string, breakKind: BreakKind | null = null): LedgerPunch => ({
   id: `e${++serial}`,
@@ -59,7 +59,27 @@ describe(ledgerExceptions.name, () => {
       ['short-meal', `short-meal:${day[3]!.id}`],
     ]);
     expect(found[1]!.text).toBe(
-      "Meal break at Tue, Mar 10, 11:00 am lasted 20 min, under the shop's 30: counted as paid rest",
+      "Meal break at Tue, Mar 10, 11:00 am lasted 20 min, under the shop's 30-minute minimum: counted as paid rest",
+    );
+  });
+
+  it('names the shortest meal in force when the meal began, not one set after it', () => {
+    const day = [
+      punch('shift-in', '07:00'),
+      punch('break-start', '11:00', 'meal'),
+      punch('break-end', '11:20'),
+      punch('shift-out', '15:30'),
+    ];
+    // 30 minutes until 1 pm that day, 15 since: the 20-minute meal fell under the 30-minute rule.
+    const changed = {
+      ...settings,
+      minimumMealMinutes: 15,
+      earlier: [{ ...ledgerSettings, until: Date.parse('2026-03-10T13:00:00Z') }],
+    };
+    const now = new Date('2026-03-10T18:00:00Z');
+    const [found] = ledgerExceptions(buildLedger(day, now, changed), from, to, now, changed);
+    expect(found?.text).toBe(
+      "Meal break at Tue, Mar 10, 11:00 am lasted 20 min, under the shop's 30-minute minimum: counted as paid rest",
     );
   });
 

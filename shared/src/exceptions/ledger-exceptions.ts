@@ -1,4 +1,4 @@
-import type { Ledger } from '../ledger/ledger.js';
+import { ledgerRulesAt, type Ledger, type LedgerSettings } from '../ledger/ledger.js';
 import type { ShopSettings } from '../shop/shop.schema.js';
 import type { ExceptionKind } from './exceptions.schema.js';
 import { durationWords, formatDayClockTime } from '../time/format.js';
@@ -15,8 +15,9 @@ export interface LedgerException {
   text: string;
 }
 
-type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours' | 'minimumMealMinutes'> &
-  Partial<Pick<ShopSettings, 'clockFormat'>>;
+type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours'> &
+  Partial<Pick<ShopSettings, 'clockFormat'>> &
+  LedgerSettings;
 
 /**
  * The exceptions one technician's ledger shows for intervals that begin in [from, to): open shifts past the
@@ -73,7 +74,7 @@ export function ledgerExceptions(
         kind: 'short-meal',
         key: key('short-meal'),
         at: pause.from,
-        text: `Meal break at ${when(pause.from)} lasted ${durationWords(length / 1000)}, under the shop's ${settings.minimumMealMinutes}: counted as paid rest`,
+        text: `Meal break at ${when(pause.from)} lasted ${durationWords(length / 1000)}, under the shop's ${ledgerRulesAt(settings, pause.from.getTime()).minimumMealMinutes}-minute minimum: counted as paid rest`,
       });
     else if (!pause.open && pause.kind === 'rest' && length > LONGEST_REST_MINUTES * 60_000)
       found.push({

@@ -24,7 +24,7 @@ export interface LedgerSettings extends LedgerRules {
 }
 
 /** The rules in force at an instant (ms). */
-function rulesAt(settings: LedgerSettings, at: number): LedgerRules {
+export function ledgerRulesAt(settings: LedgerSettings, at: number): LedgerRules {
   return settings.earlier?.find((rules) => at < rules.until) ?? settings;
 }
 
@@ -179,7 +179,7 @@ function totalsOf(
       clockedSeconds += seconds(previous, event.at);
       for (const [start, end] of underOneRule(settings, previous, event.at)) {
         const wall = seconds(start, end);
-        const even = rulesAt(settings, start).concurrentSplit === 'even';
+        const even = ledgerRulesAt(settings, start).concurrentSplit === 'even';
         for (const line of open.keys()) jobSeconds[line]! += even ? wall / open.size : wall;
       }
     }
@@ -284,7 +284,7 @@ function readLedger(
       openBreak.declared === 'meal' &&
       (endedBy === null ||
         interval.to.getTime() - interval.from.getTime() >=
-          rulesAt(settings, openBreak.from).minimumMealMinutes * 60_000);
+          ledgerRulesAt(settings, openBreak.from).minimumMealMinutes * 60_000);
     breaks.push({ ...interval, kind: meal ? 'meal' : 'rest', declared: openBreak.declared, endedBy });
     openBreak = null;
   };
