@@ -117,6 +117,7 @@ const PAY_COLUMNS: Column<PayCsvRow>[] = [
   ['Unresolved exceptions', own((tech) => String(tech.unresolvedExceptions))],
   ['Under minimum wage', own((tech) => yesNo(tech.underMinimumWage))],
   ['Near overtime', own((tech) => yesNo(tech.nearOvertime))],
+  ['Caution', own((tech) => tech.payableCaution ?? '')],
 ];
 
 /** Whether the week is closed, and whether exceptions wait: the CSV says it on every row. */

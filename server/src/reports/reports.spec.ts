@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { and, eq, min } from 'drizzle-orm';
+import { parse } from 'csv-parse/sync';
 import {
   addIsoWeeks,
   LABOUR_TREND_WEEKS,
@@ -433,17 +434,74 @@ describe(ReportsService.name, () => {
         'Other non-productive hours,Other non-productive pay $,Flagged pay $,Guarantee top-up $,Hourly pay $,' +
         'Straight-time pay $,Regular rate $/h,Overtime hours,Double-time hours,Overtime premium $,' +
         'Minimum wage top-up $,Meal premiums $,Week total $,Additional overtime for earlier weeks $,' +
-        'Adjustments for closed weeks $,Payable this week $,Unresolved exceptions,Under minimum wage,Near overtime',
+        'Adjustments for closed weeks $,Payable this week $,Unresolved exceptions,Under minimum wage,Near overtime,' +
+        'Caution',
     );
     // The week is open and Dex's unclocked line waits for a sign-off: every row says the figures are not final.
     const status = '"open: 1 unresolved exception(s), figures not final"';
     expect(payRows).toContain(
       `"${name}",${status},Ada Vexley,Flat rate,2000-01-01,10.00,8.00,0.00,no,49.1000,50.0000,0.0000,,0.00,` +
-        '4.0000,32.00,491.00,0.00,0.00,523.00,10.46,10.0000,0.0000,52.30,0.00,0.00,575.30,0.00,0.00,575.30,0,no,no',
+        '4.0000,32.00,491.00,0.00,0.00,523.00,10.46,10.0000,0.0000,52.30,0.00,0.00,575.30,0.00,0.00,575.30,0,no,no,',
     );
     expect(payRows.find((row) => row.includes(',Total,'))).toMatch(/,Total,,,,,,,96\.1000,98\.0000,/);
     expect(payRows.at(-2)).toMatch(/^Estimate,"These figures are an estimate/);
     expect(payRows.at(-1)).toMatch(/^Rounding,"Worked out in whole seconds and whole cents/);
+  });
+
+  // Rue, flat $22, other time $10. Monday of W: on shift 08:00–12:00, clocked on a 4.0 h line all along, finished at
+  // 12:00: 4 × $22 = $88.00; W is closed. Monday of F: on shift 08:00–10:00 on no job: 2 h × $10 = $20.00 (above
+  // 2 × $7.25 = $14.50). The line reopened after closing leaves W no flagged time and no idle time: $0 topped up
+  // to 4 × $7.25 = $29.00, so F carries $29.00 − $88.00 = −$59.00 for W and pays $20.00 − $59.00 = −$39.00, below
+  // the $14.50 for its 2 h: 29 CFR 531.35 (from memory) says a deduction may not cut pay below the minimum wage.
+  // Tam, the same rates, is on shift 08:00–12:00 on F's Monday on no job: 4 h × $10 = $40.00, nothing to caution.
+  it('says in the pay CSV when an adjustment takes a week’s payable amount below the minimum wage', async () => {
+    const [W, F] = [addIsoWeeks(week, -9), addIsoWeeks(week, -8)];
+    const rue = await technician('Rue Calder', '5014', 22_00, 10_00);
+    const [wMonday] = workweekDays(W, shop).filter(isWeekday) as [ShopDay];
+    const [fMonday] = workweekDays(F, shop).filter(isWeekday) as [ShopDay];
+    const job = line('Replace thermostat housing', 4.0, rue, at(wMonday, '07:30'));
+    await punch(rue, 'shift-in', at(wMonday, '08:00'));
+    await punch(rue, 'job-on', at(wMonday, '08:00'), job);
+    await punch(rue, 'job-off', at(wMonday, '12:00'), job);
+    await punch(rue, 'shift-out', at(wMonday, '12:00'));
+    await finish(job, at(wMonday, '12:00'));
+    await punch(rue, 'shift-in', at(fMonday, '08:00'));
+    await punch(rue, 'shift-out', at(fMonday, '10:00'));
+    const tam = await technician('Tam Orrin', '5015', 22_00, 10_00);
+    await punch(tam, 'shift-in', at(fMonday, '08:00'));
+    await punch(tam, 'shift-out', at(fMonday, '12:00'));
+    await as(owner).post(`/api/pay-weeks/${W}/close`, {}).expect(200);
+
+    const csvRows = async () => {
+      const csv = await as(owner).get(`/api/reports/pay?week=${F}&format=csv`).expect(200);
+      return parse<Record<string, string>>(csv.text, { bom: true, columns: true, relax_column_count: true });
+    };
+    expect((await csvRows()).find((row) => row['Technician'] === 'Rue Calder')).toMatchObject({
+      'Payable this week $': '20.00',
+      Caution: '',
+    });
+
+    await as(foreman).patch(`/api/job-lines/${job}`, { status: 'queued' }).expect(200);
+    const words =
+      'Payable -$39.00 is below the minimum wage for 2 h worked (2 h × $7.25 = $14.50) after an adjustment of ' +
+      '-$59.00 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
+      'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
+      'payroll provider.';
+    const rows = await csvRows();
+    expect(rows.find((row) => row['Technician'] === 'Rue Calder')).toMatchObject({
+      'Adjustments for closed weeks $': '-59.00',
+      'Payable this week $': '-39.00',
+      Caution: words,
+    });
+    expect(rows.find((row) => row['Technician'] === 'Total')).toMatchObject({ Caution: '' });
+    expect(rows.find((row) => row['Technician'] === 'Tam Orrin')).toMatchObject({
+      'Payable this week $': '40.00',
+      Caution: '',
+    });
+    // The kiosk's My week reads the technician's own timecard: the same words are there.
+    const kiosk = await sut.badge('5014');
+    const card = (await as(kiosk.accessToken).get(`/api/timecards?week=${F}`).expect(200)).body as Timecard;
+    expect(card.summary.pay?.payableCaution).toBe(words);
   });
 
   it('counts the running week by default, open shift and job up to now, from punches on the kiosk', async () => {

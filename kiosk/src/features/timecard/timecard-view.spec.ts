@@ -1,7 +1,7 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import type { Timecard, TimecardPunch } from '@baytime/shared';
-import { buildWeekView, weekFigures } from './timecard-view';
+import { buildWeekView, payableNote, weekFigures } from './timecard-view';
 
 const zero = {
   attendanceSeconds: 0,
@@ -211,5 +211,36 @@ describe(buildWeekView.name, () => {
       label: 'Efficiency',
       value: '107%',
     });
+  });
+});
+
+describe(payableNote.name, () => {
+  // The server's pay row for a week where a closed week was overpaid: 2 h worked, $20.00 of pay, an adjustment
+  // of −$59.00 for the earlier week, so −$39.00 payable, below 2 h × $7.25 = $14.50 (29 CFR 531.35, from memory).
+  const adjusted = {
+    hoursWorked: 2,
+    adjustmentCents: -59_00,
+    payableCents: -39_00,
+    payableCaution: 'Payable -$39.00 is below the minimum wage for 2 h worked …',
+  };
+
+  it('tells the technician in plain words when the office’s pay row carries a payable caution', () => {
+    expect(payableNote(adjusted)).toBe(
+      'After an adjustment of -$59.00 for an earlier week, this week’s estimated pay (-$39.00) is below the ' +
+        'minimum wage for the 2.0\u00a0h you worked. Ask the office to confirm it with payroll before payday.',
+    );
+  });
+
+  it('leaves out the adjustment when there was none to name', () => {
+    expect(payableNote({ ...adjusted, adjustmentCents: 0, payableCents: 10_00 })).toBe(
+      'This week’s estimated pay ($10.00) is below the minimum wage for the 2.0\u00a0h you worked. Ask the ' +
+        'office to confirm it with payroll before payday.',
+    );
+  });
+
+  it('says nothing when the server gives no caution or the shop hides pay', () => {
+    // The rule is the server's: figures that look low without its caution get no note here.
+    expect(payableNote({ ...adjusted, payableCaution: null })).toBeNull();
+    expect(payableNote(null)).toBeNull();
   });
 });

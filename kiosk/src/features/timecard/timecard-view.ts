@@ -1,6 +1,7 @@
 import {
   formatBookHours,
   punchWords,
+  type PayReportTechnician,
   type Timecard,
   type TimecardPunch,
   type TimecardTotals,
@@ -146,4 +147,25 @@ export function weekFigures(card: Timecard): { label: string; value: string }[] 
   ];
   if (pay) figures.push({ label: 'Estimated pay', value: money.format(pay.payableCents / 100) });
   return figures;
+}
+
+type PayableFigures = Pick<
+  PayReportTechnician,
+  'payableCaution' | 'payableCents' | 'adjustmentCents' | 'hoursWorked'
+>;
+
+/**
+ * The office's payable caution in a technician's words, or null. Whether there is one is the server's call (the
+ * pay row's `payableCaution`): the kiosk only words it, with the figures of the same row.
+ */
+export function payableNote(pay: PayableFigures | null): string | null {
+  if (!pay?.payableCaution) return null;
+  const below =
+    `this week’s estimated pay (${money.format(pay.payableCents / 100)}) is below the minimum wage for the ` +
+    `${formatBookHours(pay.hoursWorked)} you worked.`;
+  const said =
+    pay.adjustmentCents < 0
+      ? `After an adjustment of ${money.format(pay.adjustmentCents / 100)} for an earlier week, ${below}`
+      : below.charAt(0).toUpperCase() + below.slice(1);
+  return `${said} Ask the office to confirm it with payroll before payday.`;
 }

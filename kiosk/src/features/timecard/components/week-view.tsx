@@ -2,7 +2,7 @@ import { Link } from 'react-router';
 import type { Timecard, TimecardTotals } from '@baytime/shared';
 import { AlertIcon, ArrowLeftIcon, ArrowRightIcon } from '@/components/icons';
 import { clockTime, formatHours } from '@/lib/format';
-import { buildWeekView, weekFigures, type PunchRow } from '../timecard-view';
+import { buildWeekView, payableNote, weekFigures, type PunchRow } from '../timecard-view';
 import './week.css';
 
 function Totals({ totals, compact }: { totals: TimecardTotals; compact?: boolean }) {
@@ -63,6 +63,7 @@ export interface WeekViewProps {
 /** A technician's own week: each day's hours and punches, struck-through corrections, flags. */
 export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps) {
   const view = buildWeekView(card);
+  const payable = payableNote(card.summary.pay);
   return (
     <div className="bt-week">
       <header className="bt-week-page__head">
@@ -98,6 +99,12 @@ export function WeekView({ card, previousHref, nextHref, stale }: WeekViewProps)
             </div>
           ))}
         </dl>
+        {payable && (
+          <p className="bt-week__payable" role="note">
+            <AlertIcon />
+            <span>{payable}</span>
+          </p>
+        )}
         <p className="bt-week__pay-note">
           {card.summary.pay
             ? `${card.summary.caution} Flagged hours count in the week the line is finished. Ask the foreman about pay or a punch that looks wrong.`
