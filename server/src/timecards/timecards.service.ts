@@ -154,15 +154,21 @@ export class TimecardsService {
         })),
       shifts: ledger.shifts.filter(inWeek).map(iso),
       breaks: ledger.breaks.filter(inWeek).map((b) => ({ ...iso(b), kind: b.kind })),
-      jobs: ledger.jobs.filter(inWeek).map((job) => ({
-        ...iso(job),
-        jobLineId: job.jobLineId,
-        title: lines.get(job.jobLineId)?.title ?? '?',
-        repairOrderNumber: lines.get(job.jobLineId)?.number ?? '?',
-        seconds: Math.round(
-          (Math.min(job.to.getTime(), to.getTime()) - Math.max(job.from.getTime(), from.getTime())) / 1000,
-        ),
-      })),
+      jobs: ledger.jobs.filter(inWeek).map((job) => {
+        const [start, end] = [
+          new Date(Math.max(job.from.getTime(), from.getTime())),
+          new Date(Math.min(job.to.getTime(), to.getTime())),
+        ];
+        return {
+          ...iso(job),
+          jobLineId: job.jobLineId,
+          title: lines.get(job.jobLineId)?.title ?? '?',
+          repairOrderNumber: lines.get(job.jobLineId)?.number ?? '?',
+          seconds: Math.round((end.getTime() - start.getTime()) / 1000),
+          // A line is open once at a time, so within its own span the line's seconds are this interval's.
+          countedSeconds: Math.round(ledger.within(start, end).jobSeconds[job.jobLineId] ?? 0),
+        };
+      }),
       days: workweekDays(week, settings).map((day) => ({
         day: day.day,
         ...totals(ledger.within(day.from, day.to)),

@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { workweekOf, type ShopSettings, type Timecard } from '@baytime/shared';
+import { randomUUID } from 'node:crypto';
+import { workweekOf, type PunchKind, type ShopSettings, type Timecard } from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { punches } from '../db/schema/index.js';
 import { oneWeekEnd } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimecardsService } from './timecards.service.js';
@@ -120,6 +123,51 @@ describe(TimecardsService.name, () => {
     } finally {
       await shop().send({ maxConcurrentJobs: 1 }).expect(200);
     }
+  });
+
+  it('credits each of two lines worked at once with its share of the time they shared', async () => {
+    const newcomer = await addTechnician('Cy Aldana', '3004');
+    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
+      queue: { jobLineId: number }[];
+    };
+    const [first, second] = board.queue.map((line) => line.jobLineId);
+    const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    expect(settings.concurrentSplit).toBe('even');
+    const end = oneWeekEnd(HOUR, settings);
+    const punch = (kind: PunchKind, minutesBeforeEnd: number, jobLineId: number | null = null) => ({
+      id: randomUUID(),
+      technicianId: newcomer.id,
+      kind,
+      jobLineId,
+      at: new Date(end - minutesBeforeEnd * 60_000),
+      recordedAt: new Date(),
+      recordedBy: newcomer.id,
+    });
+    // Written straight to the table, as two jobs at once were allowed then.
+    sut.app
+      .get<Db>(DB)
+      .insert(punches)
+      .values([
+        punch('shift-in', 60),
+        punch('job-on', 50, first),
+        punch('job-on', 40, second),
+        punch('job-off', 20, first),
+        punch('job-off', 10, second),
+        punch('shift-out', 5),
+      ])
+      .run();
+    const { jobs, totals } = await card(
+      owner,
+      `technicianId=${newcomer.id}&week=${workweekOf(new Date(end), settings)}`,
+    );
+    // By hand: each line ran 30 min, 20 of them together. Split evenly, each is credited 10 min alone
+    // and 10 of the 20 shared: 20 min, and the two add up to the 40 min on jobs.
+    expect(jobs.map((job) => [job.jobLineId, job.seconds, job.countedSeconds])).toEqual([
+      [first, 1800, 1200],
+      [second, 1800, 1200],
+    ]);
+    expect(totals.clockedSeconds).toBe(2400);
   });
 
   it('flags a shift still open from an earlier day', async () => {

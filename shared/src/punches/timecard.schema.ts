@@ -57,7 +57,10 @@ export interface Timecard {
     jobLineId: number;
     title: string;
     repairOrderNumber: string;
+    /** Its length within the week. */
     seconds: number;
+    /** What the line is credited for it within the week, after the shop's split of time on several lines. */
+    countedSeconds: number;
   })[];
   days: TimecardDay[];
   totals: TimecardTotals;

@@ -6,6 +6,7 @@ import {
   jobLineChoices,
   overlappedJobSeconds,
   punchRows,
+  sharedCredit,
   timelineSegments,
   timelineWindow,
   workdayBounds,
@@ -86,6 +87,8 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
         title: 'Battery test',
         repairOrderNumber: '4497',
         seconds: 8700,
+        // 15:00–16:05 shared with line 98 and split evenly: 8,700 − 3,900 / 2.
+        countedSeconds: 6750,
       },
       {
         from: '2026-11-30T15:00:00Z',
@@ -95,6 +98,7 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
         title: 'Thermostat',
         repairOrderNumber: '4498',
         seconds: 7200,
+        countedSeconds: 5250,
       },
     ],
     days: days.map((day) => ({ day, ...zero })),
@@ -183,6 +187,17 @@ describe('timecard model', () => {
     );
   });
 
+  it('gives each job shared with another line the credit the split rule gave it', () => {
+    const monday = cardDays(card())[1]!;
+    const jobs = monday.intervals.filter((i) => i.kind === 'job');
+    expect(jobs.map((job) => sharedCredit(job))).toEqual([
+      { seconds: 8700, counted: 6750 },
+      { seconds: 7200, counted: 5250 },
+    ]);
+    expect(sharedCredit({ credit: { seconds: 7200, counted: 7200 } })).toBeNull();
+    expect(sharedCredit({ credit: null })).toBeNull();
+  });
+
   it('puts overlapping jobs on separate tracks', () => {
     const at = (h: number) => new Date(Date.UTC(2026, 0, 1, h));
     const lanes = assignLanes([
@@ -238,6 +253,7 @@ describe('timecard model', () => {
       label: null,
       jobLineId,
       lane: 0,
+      credit: null,
     });
     // Clocked on one line 9:00–11:00 and another 10:00–12:00: three hours on jobs, one of them on both.
     const covering = [

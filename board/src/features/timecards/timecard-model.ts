@@ -27,6 +27,8 @@ export interface CardInterval {
   jobLineId: number | null;
   /** Job intervals: 0 for the first track; concurrent jobs go on further tracks. */
   lane: number;
+  /** Job intervals: its seconds within the week, and what the line is credited for them after the split. */
+  credit: { seconds: number; counted: number } | null;
 }
 
 export interface CardDay {
@@ -115,6 +117,7 @@ export function cardIntervals(card: Timecard): CardInterval[] {
     label: null,
     jobLineId: null,
     lane: 0,
+    credit: null,
   });
   const jobs = assignLanes(
     card.jobs.map((job) => ({
@@ -124,6 +127,7 @@ export function cardIntervals(card: Timecard): CardInterval[] {
       open: job.open,
       label: `RO ${job.repairOrderNumber} · ${job.title}`,
       jobLineId: job.jobLineId,
+      credit: { seconds: job.seconds, counted: job.countedSeconds },
     })),
   );
   return [
@@ -163,6 +167,16 @@ export function cardDays(card: Timecard): CardDay[] {
       active: punches.length > 0 || covering.length > 0 || totals.attendanceSeconds > 0,
     };
   });
+}
+
+/**
+ * A job interval's credit when the split rule shared it with other lines (it is credited less than it
+ * ran), or null: under an even split the shares of a day add up to its time on jobs.
+ */
+export function sharedCredit(interval: Pick<CardInterval, 'credit'>): CardInterval['credit'] {
+  const { credit } = interval;
+  // Under half a minute shows as no change at a tenth of an hour.
+  return credit && credit.seconds - credit.counted >= 30 ? credit : null;
 }
 
 /**

@@ -121,6 +121,7 @@ describe(buildWeekView.name, () => {
             title: 'Battery and charging system test',
             repairOrderNumber: '4497',
             seconds: 7200,
+            countedSeconds: 7200,
           },
         ],
       }),

@@ -24,7 +24,13 @@ import {
   formatDayClock,
   formatHours,
 } from '../timecard-format';
-import { overlappedJobSeconds, type CardDay, type CardInterval, type PunchRow } from '../timecard-model';
+import {
+  overlappedJobSeconds,
+  sharedCredit,
+  type CardDay,
+  type CardInterval,
+  type PunchRow,
+} from '../timecard-model';
 
 const useStyles = makeStyles({
   day: {
@@ -124,6 +130,7 @@ function IntervalList({ day, timeZone }: { day: CardDay; timeZone: string }) {
         {day.intervals.map((interval, index) => {
           const seconds = (interval.to.getTime() - interval.from.getTime()) / 1000;
           const crosses = interval.to.getTime() > day.to.getTime();
+          const shared = sharedCredit(interval);
           return (
             <li
               key={index}
@@ -139,17 +146,18 @@ function IntervalList({ day, timeZone }: { day: CardDay; timeZone: string }) {
                     : formatClock(interval.from, timeZone)}{' '}
                   – {crosses ? formatDayClock(interval.to, timeZone) : formatClock(interval.to, timeZone)}
                   {interval.open && ' (still running)'}
+                  {shared && ` · shared with another line, ${formatHours(shared.seconds)} in all`}
                 </Caption1>
               </span>
-              <span className={styles.duration}>{formatHours(seconds)}</span>
+              <span className={styles.duration}>{formatHours(shared ? shared.counted : seconds)}</span>
             </li>
           );
         })}
       </ul>
       {overlapped > 0 && (
         <Caption1 className={styles.dim}>
-          Jobs ran at the same time for {formatHours(overlapped)}: On jobs counts that time once, and the
-          shop’s split rule shares it between the lines.
+          Jobs ran at the same time for {formatHours(overlapped)}: On jobs counts that time once, and each
+          line shows what the shop’s split rule credits it.
         </Caption1>
       )}
     </>
