@@ -243,9 +243,10 @@ describe(pickLines.name, () => {
   it('keeps a long model on a staged tile, shortened rather than left out, and its job title when there is room', () => {
     const model = 'Grand Voyager Extended Cab Heavy Duty 3500';
     const title = 'Replace front lower control arm bushings and align front end';
+    const vehicle = `Wolverhampton-Kesselring ${model}`;
     const staged = bay({
       state: 'staged',
-      vehicle: `2019 Wolverhampton-Kesselring ${model}`,
+      vehicle: `2019 ${vehicle}`,
       jobLine: { id: 2, lineNo: 1, title, status: 'queued' },
       technicians: [{ id: 3, name: 'Jo W.' }],
     });
@@ -254,24 +255,24 @@ describe(pickLines.name, () => {
       pickLines(bayFacts({ bay: staged, clockedSeconds: 0, nowMs: now, lineChars: 11 }), slots, turn, 11).map(
         (line) => [line.fact.text, line.wraps, line.shortened],
       );
-    // Two lines: the model on one, cut short, and the RO and the technician taking turns on the other
-    // (the job title is too long for one line and is left out).
+    // Two lines: the vehicle on one, its model cut short, and the RO and the technician taking turns on
+    // the other (the job title is too long for one line and is left out).
     expect(shown(2, 0)).toEqual([
-      [model, false, true],
+      [vehicle, false, true],
       ['RO 4821', false, false],
     ]);
     expect(shown(2, 1)).toEqual([
-      [model, false, true],
+      [vehicle, false, true],
       ['Jo W.', false, false],
     ]);
     expect(shown(2, 2)).toEqual(shown(2, 0));
-    expect(shown(1)).toEqual([[model, false, true]]);
+    expect(shown(1)).toEqual([[vehicle, false, true]]);
     expect(shown(3, 1)).toEqual([
-      [model, true, true],
+      [vehicle, true, true],
       ['Jo W.', false, false],
     ]);
     expect(shown(6)).toEqual([
-      [model, true, true],
+      [vehicle, true, true],
       ['RO 4821', false, false],
       [title, true, true],
       ['Jo W.', false, false],
@@ -359,12 +360,31 @@ describe('short texts', () => {
     ).toBe('Dana O. +1');
   });
 
-  it('drops a leading model year, and the make when the line is short', () => {
-    expect(wallVehicle('2019 Norden Kestrel')).toBe('Norden Kestrel');
-    expect(wallVehicle('2019 Norden Kestrel', 11)).toBe('Kestrel');
-    expect(wallVehicle('2019 Norden Kestrel', 14)).toBe('Norden Kestrel');
+  it('drops a leading model year and keeps a two-word make whole, leaving the model for the ellipsis to cut', () => {
+    const vehicle = 'Norrland Motor Vastra Long Wheelbase Touring';
+    expect(wallVehicle(`2019 ${vehicle}`)).toBe(vehicle);
+    expect(wallVehicle('  2019  Norrland Motor\tVastra ')).toBe('Norrland Motor Vastra');
     expect(wallVehicle('Norden 2019')).toBe('Norden 2019');
-    expect(wallVehicle('Kestrelmobile', 5)).toBe('Kestrelmobile');
+    expect(wallVehicle('2019')).toBe('2019');
+    expect(wallVehicle('Kestrelmobile')).toBe('Kestrelmobile');
+    expect(wallVehicle(' ')).toBeNull();
     expect(wallVehicle(null)).toBeNull();
+    // On an 8-bay wall's line of 11 characters, with the RO and the technician taking turns below it.
+    const lines = pickLines(
+      bayFacts({
+        bay: bay({ state: 'staged', vehicle: `2019 ${vehicle}` }),
+        clockedSeconds: 0,
+        nowMs: now,
+        lineChars: 11,
+      }),
+      2,
+      0,
+      11,
+    );
+    expect(lines[0]).toMatchObject({
+      fact: { key: 'vehicle', text: vehicle },
+      wraps: false,
+      shortened: true,
+    });
   });
 });

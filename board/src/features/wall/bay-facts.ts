@@ -69,15 +69,15 @@ export function techsText(bay: BoardBay): string | null {
 }
 
 /**
- * A wall tile drops the model year, and the make too when make and model do not fit on the line: the
- * model is what tells two cars apart on the floor.
+ * The vehicle as its repair order names it, without a leading model year: make and model tell two cars
+ * apart across the floor. A line too short for it ends in an ellipsis, so it is the model that gets cut.
+ * The board gets make and model as one string and cannot tell a two-word make from a make and the first
+ * word of a model, so it drops no other word.
  */
-export function wallVehicle(vehicle: string | null, maxChars = Infinity): string | null {
-  if (!vehicle) return null;
-  const short = vehicle.replace(/^\s*(19|20)\d{2}\s+/, '').trim() || vehicle.trim();
-  if (short.length <= maxChars) return short;
-  const [, ...model] = short.split(/\s+/);
-  return model.length ? model.join(' ') : short;
+export function wallVehicle(vehicle: string | null): string | null {
+  const words = vehicle?.trim().split(/\s+/) ?? [];
+  const year = words.length > 1 && /^(19|20)\d{2}$/.test(words[0]!);
+  return words.slice(year ? 1 : 0).join(' ') || null;
 }
 
 /** The timer's headline: time left when known, otherwise a word for why it is not. */
@@ -178,7 +178,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
     if (fact && fact.text) facts.push(fact);
   };
   const techs = techsText(bay);
-  const vehicle = wallVehicle(bay.vehicle, lineChars);
+  const vehicle = wallVehicle(bay.vehicle);
   const vehicleFact = vehicle
     ? ({ key: 'vehicle', text: vehicle, keep: false, yields: true } as const)
     : null;

@@ -15,6 +15,13 @@ export function formatSpan(seconds: number): string {
   return `${Math.floor(hours / 24)}d ${hours % 24}h`;
 }
 
+/**
+ * Room for any span under 100 days: the board's digits are all one width ("tabular-nums" in
+ * wall.module.css), and "23h 59m" outgrows "<1m", "59m" and "99d 23h". What sits beside a ticking span
+ * keeps this much room, so it holds still as the span grows.
+ */
+export const WIDEST_SPAN = '00h 00m';
+
 /** A time of day in the shop's zone, "9:40 am" or "09:40" as the shop reads clocks. */
 export function formatTimeOfDay(ms: number, timeZone: string | undefined): string {
   return clockTime(ms, timeZone);

@@ -36,6 +36,22 @@ describe(personChips.name, () => {
       'P1 Bay 2',
     ]);
   });
+
+  it('keeps room for the longest idle or break time however long it runs, and names the bay of one on a job', () => {
+    const people = [
+      person(1, 'idle', '2026-03-02T14:59:40Z'),
+      person(2, 'on-break', '2026-03-02T14:59:40Z'),
+      person(3, 'on-job', '2026-03-02T14:00:00Z', 'Bay 2'),
+    ];
+    const first = personChips(people, now).map((chip) => chip.widestDetail);
+    expect(first).toEqual(['idle 00h 00m', 'break 00h 00m', 'Bay 2']);
+    for (let minutes = 0; minutes < 99 * 24 * 60; minutes += 53) {
+      const chips = personChips(people, now + minutes * 60_000);
+      expect(chips.map((chip) => chip.widestDetail)).toEqual(first);
+      // The wall's digits are all one width: a detail no longer than its widest is no wider.
+      for (const chip of chips) expect(chip.detail.length).toBeLessThanOrEqual(chip.widestDetail.length);
+    }
+  });
 });
 
 describe(queueSummary.name, () => {
@@ -72,6 +88,24 @@ describe(stripPages.name, () => {
     expect(stripPages(widths, 100, 5, [0, 2, 4])).toEqual([[0, 2, 4]]);
     expect(stripPages(widths, 100, 5, [3, 4])).toEqual([[3], [4]]);
     expect(stripPages(widths, 100, 5, [])).toEqual([]);
+  });
+
+  it('packs the same people into the same pages all day, however long they stay idle', () => {
+    const people = [
+      person(1, 'idle', '2026-03-02T14:59:30Z'),
+      person(2, 'idle', '2026-03-02T14:50:00Z'),
+      person(3, 'on-break', '2026-03-02T14:58:00Z'),
+      person(4, 'idle', '2026-03-02T14:59:50Z'),
+      person(5, 'on-job', '2026-03-02T14:00:00Z', 'Bay 2'),
+    ];
+    // A chip's width from its characters, as the strip measures it at the width it packs by.
+    const widths = (nowMs: number) =>
+      personChips(people, nowMs).map((chip) => 4 + 2 * (chip.name.length + chip.widestDetail.length));
+    const packed = (nowMs: number) => stripPages(widths(nowMs), 70, 1);
+    const first = packed(now);
+    expect(first.length).toBeGreaterThan(1);
+    for (let minutes = 1; minutes < 12 * 60; minutes += 7)
+      expect(packed(now + minutes * 60_000)).toEqual(first);
   });
 });
 

@@ -1,12 +1,17 @@
 import type { BoardPerson, BoardQueueItem } from '@baytime/shared';
 import { secondsSince } from './server-clock';
-import { formatSpan } from './board-time';
+import { WIDEST_SPAN, formatSpan } from './board-time';
 import { MIN_TILE_SCALE, WALL_METRICS, type GridArea } from './wall-layout';
 
 export interface PersonChip {
   id: number;
   name: string;
   detail: string;
+  /**
+   * The detail as wide as it can get while the person does the same thing: the strip packs its pages by
+   * it, so an idle time that ticks from "<1m" to "1h 05m" never changes how many pages it has.
+   */
+  widestDetail: string;
   status: BoardPerson['status'];
 }
 
@@ -17,14 +22,19 @@ export function personChips(people: readonly BoardPerson[], nowMs: number): Pers
   return [...people]
     .sort((a, b) => ORDER[a.status] - ORDER[b.status] || Date.parse(a.since) - Date.parse(b.since))
     .map((person) => {
-      const span = formatSpan(secondsSince(person.since, nowMs));
-      const detail =
+      const detail = (span: string) =>
         person.status === 'on-job'
           ? (person.bayName ?? person.jobLineTitle ?? 'on a job')
           : person.status === 'idle'
             ? `idle ${span}`
             : `break ${span}`;
-      return { id: person.id, name: person.name, detail, status: person.status };
+      return {
+        id: person.id,
+        name: person.name,
+        detail: detail(formatSpan(secondsSince(person.since, nowMs))),
+        widestDetail: detail(WIDEST_SPAN),
+        status: person.status,
+      };
     });
 }
 

@@ -1,3 +1,4 @@
+import { SteadyText } from './steady-text';
 import styles from './wall.module.css';
 
 /** Beyond this many pages a row of dots is too long to read at a glance, and crowds what it counts. */
@@ -27,9 +28,7 @@ export function PageMarks({ page, pages, announced, dots = true, className }: Pa
         Array.from({ length: pages }, (_, index) => (
           <span key={index} className={`${styles.pageDot} ${index === page ? styles.pageDotOn : ''}`} />
         ))}
-      <span>
-        {page + 1}/{pages}
-      </span>
+      <SteadyText text={`${page + 1}/${pages}`} widest={`${pages}/${pages}`} className={styles.pageCount} />
     </div>
   );
 }

@@ -1,9 +1,10 @@
 import { useLayoutEffect, useRef, useState } from 'react';
 import type { BoardPerson } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
-import { formatSpan } from '../board-time';
+import { WIDEST_SPAN, formatSpan } from '../board-time';
 import { packPages, personChips, stripPages, type PersonChip, type QueueSummary } from '../people-pages';
 import { PageMarks } from './page-marks';
+import { SteadyText } from './steady-text';
 import styles from './wall.module.css';
 
 export interface PeopleStripProps {
@@ -33,8 +34,8 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOn
   const measureRef = useRef<HTMLDivElement>(null);
   const boxRef = useRef<HTMLDivElement>(null);
   const [room, setRoom] = useState<{ widths: number[]; available: number; gap: number } | null>(null);
-  // Re-pack only when what the chips say in shape changes, not every second.
-  const shape = chips.map((chip) => `${chip.id}:${chip.name}:${chip.detail.length}`).join('|');
+  // Packed by each chip at its widest, which holds still while the people do: a turn shows the next page.
+  const shape = chips.map((chip) => `${chip.id}:${chip.status}:${chip.name}:${chip.widestDetail}`).join('|');
 
   useLayoutEffect(() => {
     const measure = () => {
@@ -71,7 +72,7 @@ export function PeopleStrip({ people, nowMs, turn, queue, onPageCount, offJobsOn
       <div className={styles.chips} ref={boxRef}>
         <div className={styles.chipsMeasure} ref={measureRef} aria-hidden="true">
           {chips.map((chip) => (
-            <PersonChipView key={chip.id} chip={chip} />
+            <PersonChipView key={chip.id} chip={{ ...chip, detail: chip.widestDetail }} />
           ))}
         </div>
         {chips.length === 0 ? (
@@ -120,7 +121,10 @@ function QueueNote({ queue }: { queue: QueueSummary }) {
         <span>
           Queue <span className={styles.queueCount}>{queue.count}</span>
           {queue.late === 0 && queue.oldestSeconds !== null && (
-            <span className={styles.queueWait}> · oldest {formatSpan(queue.oldestSeconds)}</span>
+            <span className={styles.queueWait}>
+              {' · oldest '}
+              <SteadyText text={formatSpan(queue.oldestSeconds)} widest={WIDEST_SPAN} />
+            </span>
           )}
         </span>
       )}
