@@ -10,10 +10,13 @@ import {
   CALLERS,
   fuzzRequests,
   isRaw,
+  offlineKey,
   target,
   toJson,
   type Caller,
+  type CallerIds,
   type FuzzRequest,
+  type OfflineKey,
   type Pools,
 } from '../test-support/fuzz-requests.js';
 import type { FuzzServer } from '../test-support/fuzz-server.js';
@@ -21,6 +24,7 @@ import { ROUTES, type Method } from '../test-support/routes.js';
 import { ServerGone, startServerProcess, type ServerProcess } from '../test-support/server-process.js';
 import { digestsOf } from '../test-support/table-digests.js';
 import { ErrorsFilter } from './filters/errors.filter.js';
+import { ROLE_REFUSAL } from './guards/auth.guard.js';
 
 /**
  * 10,000 requests and socket events in all: 8,000 HTTP requests over every route, 500 handshakes,
@@ -97,6 +101,9 @@ type Server = ServerProcess<
   Awaited<ReturnType<FuzzServer>>['handlers']
 >;
 
+/** The callers whose tokens open the live socket: the kiosk's device token too (`AuthService.check`). */
+const SOCKET_CALLERS: Caller[] = ['owner', 'foreman', 'advisor', 'technician', 'display', 'kiosk'];
+
 /** How to send the failing sample again. */
 const AGAIN = `(BAYTIME_FUZZ_SEED=${SEED} runs this sample again)`;
 
@@ -105,8 +112,10 @@ describe(ErrorsFilter.name, () => {
   let sut: Server;
   let watch: ChangeWatch;
   let tokens: Record<Caller, string | undefined>;
-  let callerIds: { userIds: number[]; screenId: number };
+  let callerIds: CallerIds;
   let pools: Pools;
+  /** The key the kiosk caller seals its offline punches' badges and PINs to. */
+  let key: OfflineKey;
   const http = () => request(sut.ready.url);
   const refreshPools = async () => {
     pools = await sut.call('pools', callerIds);
@@ -129,6 +138,7 @@ describe(ErrorsFilter.name, () => {
       .expect(201);
     const paired = await http().post('/api/auth/screens/pair').send({ code: pairing.body.code }).expect(200);
     const [technician, otherTechnician] = [await sut.call('badge', '1043'), await sut.call('badge', '1045')];
+    const kiosk = await sut.call('pairKiosk');
     tokens = {
       owner,
       foreman: await sut.call('signIn', 'foreman'),
@@ -136,6 +146,7 @@ describe(ErrorsFilter.name, () => {
       technician: technician.accessToken,
       otherTechnician: otherTechnician.accessToken,
       display: paired.body.accessToken,
+      kiosk: kiosk.accessToken,
       nobody: undefined,
       forged: new JwtService({ secret: 'not the server secret' }).sign(
         { sub: 1, role: 'owner' },
@@ -151,8 +162,12 @@ describe(ErrorsFilter.name, () => {
     );
     callerIds = {
       userIds: [...callers, technician.user.id, otherTechnician.user.id],
-      screenId: pairing.body.id as number,
+      screenIds: [pairing.body.id as number, kiosk.id],
     };
+    key = offlineKey(
+      (await http().get('/api/kiosks/me/offline-key').auth(kiosk.accessToken, { type: 'bearer' }).expect(200))
+        .body,
+    );
     await refreshPools();
   }, 90_000);
   beforeEach(() => {
@@ -175,13 +190,12 @@ describe(ErrorsFilter.name, () => {
         allowed,
       ]),
     );
-    const allowed = (method: Method, route: string): Caller[] => {
-      const known = roles.get(`${method} ${route}`);
-      if (!known) return [...CALLERS];
-      return known.flatMap((role): Caller[] =>
-        role === 'technician' ? ['technician', 'otherTechnician'] : [role],
-      );
-    };
+    /** The callers the role matrix lets past the guard, if it names the route. */
+    const letIn = (method: Method, route: string): Caller[] | undefined =>
+      roles
+        .get(`${method} ${route}`)
+        ?.flatMap((role): Caller[] => (role === 'technician' ? ['technician', 'otherTechnician'] : [role]));
+    const allowed = (method: Method, route: string): Caller[] => letIn(method, route) ?? [...CALLERS];
     const answered = new Map<string, Map<number, number>>();
 
     const send = async (request: FuzzRequest, url: string, text: string | undefined, label: string) => {
@@ -194,13 +208,10 @@ describe(ErrorsFilter.name, () => {
             ...(token ? { authorization: `Bearer ${token}` } : {}),
           },
           body: text,
-        }).then(async (response) => {
-          await response.arrayBuffer();
-          return response;
-        }),
+        }).then(async (response) => ({ status: response.status, body: await response.text() })),
         label,
       );
-      return response.status;
+      return response;
     };
 
     let sent = 0;
@@ -212,12 +223,23 @@ describe(ErrorsFilter.name, () => {
             ? undefined
             : isRaw(request.body)
               ? request.body.raw
-              : toJson(request.body, pools);
+              : toJson(request.body, pools, key);
         const label = `${request.caller} ${request.method.toUpperCase()} ${url}${text === undefined ? '' : ` ${text.slice(0, 300)}`}`;
         try {
           await watch.mark();
-          const status = await send(request, url, text, `${label}\n(route ${request.route}) ${AGAIN}`);
+          const { status, body } = await send(
+            request,
+            url,
+            text,
+            `${label}\n(route ${request.route}) ${AGAIN}`,
+          );
           expect(status, label).toBeLessThan(500);
+          // A caller the role matrix lets in gets past the guard: its token still works.
+          if (letIn(request.method, request.route)?.includes(request.caller))
+            expect(
+              status === 401 || (status === 403 && body.includes(ROLE_REFUSAL)),
+              `${label}: the guard turned an allowed caller away: ${body}`,
+            ).toBe(false);
           const key = `${request.method} ${request.route}`;
           const counts = answered.get(key) ?? new Map<number, number>();
           counts.set(status, (counts.get(status) ?? 0) + 1);
@@ -258,13 +280,16 @@ describe(ErrorsFilter.name, () => {
       'patch /api/operations/:id',
       'patch /api/shop',
       'post /api/repair-orders',
+      // Only the kiosk caller's token gets these accepted.
+      'post /api/kiosks/me/queue',
+      'post /api/kiosks/me/offline-punches',
     ])
       expect(acceptedOn(key), `${key}\n${summary.join('\n')}`).toBeGreaterThan(0);
     await expectHealthy('the last request');
   }, 600_000);
 
   const handshakeToken = fc.oneof(
-    { weight: 4, arbitrary: fc.constantFrom<Caller>('owner', 'foreman', 'advisor', 'technician', 'display') },
+    { weight: 4, arbitrary: fc.constantFrom<Caller>(...SOCKET_CALLERS) },
     { weight: 2, arbitrary: fc.constantFrom<Caller>('nobody', 'forged') },
     { weight: 2, arbitrary: fc.oneof(fc.string(), fc.anything({ maxDepth: 1 })) },
   );
@@ -322,10 +347,8 @@ describe(ErrorsFilter.name, () => {
         );
         handshakes++;
         socket.disconnect();
-        expect(opened, `${JSON.stringify(token)}`).toBe(
-          ['owner', 'foreman', 'advisor', 'technician', 'display'].includes(token as string),
-        );
-        // A screen that connects is marked as seen: the only write a handshake makes.
+        expect(opened, `${JSON.stringify(token)}`).toBe(SOCKET_CALLERS.includes(token as Caller));
+        // A wall screen that connects is marked as seen: the only write a handshake makes (not a kiosk).
         await watch.expectUnchanged(
           `handshake ${JSON.stringify(token)}`,
           token === 'display' ? ['screens'] : [],
@@ -340,7 +363,7 @@ describe(ErrorsFilter.name, () => {
     let events = 0;
     await fc.assert(
       fc.asyncProperty(
-        fc.constantFrom<Caller>('owner', 'foreman', 'advisor', 'technician', 'display'),
+        fc.constantFrom<Caller>(...SOCKET_CALLERS),
         fc.array(liveEvent, { minLength: EVENTS_PER_CONNECTION, maxLength: EVENTS_PER_CONNECTION }),
         async (caller, emitted) => {
           const label = `${caller}: ${JSON.stringify(emitted)} ${AGAIN}`;

@@ -1,18 +1,24 @@
+import { constants, createPublicKey, publicEncrypt, type JsonWebKey } from 'node:crypto';
 import fc, { type Arbitrary } from 'fast-check';
 import {
   BAY_KINDS,
   BREAK_KINDS,
   FINDING_SEVERITIES,
   HOLD_REASONS,
+  identityText,
   isoWeekOf,
   JOB_LINE_STATUSES,
   makeVin,
+  OFFLINE_PUNCH_KINDS,
+  OFFLINE_PUNCH_STATUSES,
   PAY_TYPES,
   PRIORITIES,
   PUNCH_KINDS,
   REPAIR_ORDER_STATUSES,
   ROLES,
   TIMER_KINDS,
+  type OfflineIdentity,
+  type OfflineKeyDto,
 } from '@baytime/shared';
 import type { Sqlite } from '../db/database.js';
 import type { Method } from './routes.js';
@@ -30,12 +36,16 @@ export const POOLS = [
   'finding',
   'operation',
   'holdPreset',
-  /** Screens other than the fuzz's own wall screen. */
+  /** Wall screens other than the fuzz's own. */
   'otherScreen',
+  /** Kiosks other than the fuzz's own: revoking that one would end the kiosk caller's token. */
+  'otherKiosk',
   'attachment',
   'punch',
   /** Punches held for the foreman's review. */
   'heldPunch',
+  /** Punches a kiosk recorded without the server, waiting for the foreman or already decided. */
+  'offlinePunch',
   /** Past workweeks ('YYYY-Www'), and those closed or reopened: never the running one. */
   'payWeek',
   'mail',
@@ -63,18 +73,24 @@ export class RealId {
 const LINES_BY_RO_STATUS =
   'select line.id from job_lines line join repair_orders ro on ro.id = line.repair_order_id where ro.status';
 
+/** The fuzz's own callers: the users and devices (a wall screen and a kiosk) whose tokens it sends. */
+export interface CallerIds {
+  userIds: number[];
+  screenIds: number[];
+}
+
 /** The ids of every pool, read from the server's database (and its mailbox) now. */
-export function readPools(
-  sqlite: Sqlite,
-  callers: { userIds: number[]; screenId: number },
-  mailIds: string[],
-): Pools {
+export function readPools(sqlite: Sqlite, callers: CallerIds, mailIds: string[]): Pools {
   const column = (sql: string, ...params: unknown[]) =>
     sqlite.connection
       .prepare(sql)
       .pluck()
       .all(...params) as (number | string)[];
   const users = column('select id from users order by id');
+  const otherDevices = (kind: 'wall' | 'kiosk') =>
+    column('select id from screens where kind = ? order by id', kind).filter(
+      (id) => !callers.screenIds.includes(id as number),
+    );
   return {
     user: users,
     otherUser: users.filter((id) => !callers.userIds.includes(id as number)),
@@ -91,10 +107,12 @@ export function readPools(
     finding: column('select id from findings order by id desc limit 50'),
     operation: column('select id from operations order by id'),
     holdPreset: column('select id from hold_presets order by id'),
-    otherScreen: column('select id from screens where id != ? order by id', callers.screenId),
+    otherScreen: otherDevices('wall'),
+    otherKiosk: otherDevices('kiosk'),
     attachment: column('select id from attachments order by id desc limit 50'),
     punch: column('select id from punches order by recorded_at desc limit 100'),
     heldPunch: column('select id from held_punches order by recorded_at desc limit 50'),
+    offlinePunch: column('select id from offline_punches order by received_at desc limit 50'),
     payWeek: [
       ...new Set([
         ...Array.from({ length: 8 }, (_, i) => isoWeekOf(new Date(Date.now() - (i + 2) * 7 * DAY), 'UTC')),
@@ -106,11 +124,41 @@ export function readPools(
   };
 }
 
-/** JSON with every RealId replaced by an id that exists now. */
-export function toJson(value: unknown, pools: Pools): string {
-  return JSON.stringify(value ?? null, (_key, item: unknown) =>
-    item instanceof RealId ? item.in(pools) : item,
-  );
+/** Filled in when sent: the id of the server's key for offline punches. */
+export class OfflineKeyId {}
+
+/** Filled in when sent: a badge and PIN bound to one punch, sealed to the server's key as a kiosk seals them. */
+export class SealedIdentity {
+  constructor(readonly identity: OfflineIdentity) {}
+}
+
+/** The server's key for offline punches, as a paired kiosk reads it from `GET /api/kiosks/me/offline-key`. */
+export interface OfflineKey {
+  keyId: string;
+  /** RSA-OAEP with SHA-256, in base64, as the kiosk's `sealIdentity`. */
+  seal: (text: string) => string;
+}
+
+export function offlineKey({ keyId, publicKey }: OfflineKeyDto): OfflineKey {
+  const key = createPublicKey({ key: publicKey as JsonWebKey, format: 'jwk' });
+  const padding = constants.RSA_PKCS1_OAEP_PADDING;
+  return {
+    keyId,
+    seal: (text) => publicEncrypt({ key, padding, oaepHash: 'sha256' }, Buffer.from(text)).toString('base64'),
+  };
+}
+
+/**
+ * JSON with every RealId replaced by an id that exists now, and every offline key id and sealed
+ * identity filled in with `key`.
+ */
+export function toJson(value: unknown, pools: Pools, key?: OfflineKey): string {
+  return JSON.stringify(value ?? null, (_key, item: unknown) => {
+    if (item instanceof RealId) return item.in(pools);
+    if (!(item instanceof OfflineKeyId || item instanceof SealedIdentity)) return item;
+    if (!key) throw new Error('An offline punch is sealed with the key the kiosk caller reads');
+    return item instanceof OfflineKeyId ? key.keyId : key.seal(identityText(item.identity));
+  });
 }
 
 const real = (pool: PoolName): Arbitrary<RealId> =>
@@ -260,6 +308,24 @@ const localDate = fc.oneof(
 
 const reason = text(500, ['Checked with the technician', 'Paper timesheet matches']);
 
+/** An offline punch as a kiosk records it; some too far ahead of the server's clock. */
+const offlinePunch = {
+  id: fc.uuid(),
+  kind: fc.constantFrom(...OFFLINE_PUNCH_KINDS),
+  at: instant(-3 * DAY, 5 * 60_000),
+  breakKind: fc.constantFrom(...BREAK_KINDS),
+};
+/** A badge and PIN as typed at a kiosk: mostly a demo technician's with the demo PIN. */
+const typed = {
+  badge: fc.oneof(
+    { weight: 3, arbitrary: fc.constantFrom('1041', '1042', '1043', '1044', '1045', '1046') },
+    { weight: 1, arbitrary: digits(3, 8) },
+  ),
+  pin: fc.oneof({ weight: 3, arbitrary: fc.constant('4321') }, { weight: 1, arbitrary: digits(4, 8) }),
+  /** Now and then the identity is bound to another punch than the one it comes with. */
+  boundTo: fc.oneof({ weight: 7, arbitrary: fc.constant(undefined) }, { weight: 1, arbitrary: fc.uuid() }),
+};
+
 const supersedingCorrection = {
   punchId: ref('punch'),
   technicianId: ref('technician'),
@@ -319,6 +385,9 @@ const SHOP_FIELDS = {
 /** The settings that say which hours fall in which pay week. */
 const WEEK_FIELDS = ['timeZone', 'workweekStartDay', 'workweekStartHour'];
 
+/** A wall screen's or kiosk's pairing code, as typed. */
+const pairing: RouteFuzz = { body: body({ code: text(8, ['ABC123', 'abc123', 'ZZZZZZ']) }, ['code']) };
+
 /** Keyed by method and route path as Express lists it. Routes not listed here get ids and bodies of junk. */
 export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/auth/login': {
@@ -342,7 +411,8 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
       ['badge', 'pin'],
     ),
   },
-  'post /api/auth/screens/pair': { body: body({ code: text(8, ['ABC123', 'abc123', 'ZZZZZZ']) }, ['code']) },
+  'post /api/auth/screens/pair': pairing,
+  'post /api/auth/kiosks/pair': pairing,
   'post /api/auth/renew': { body: fc.constant({}) },
   'post /api/users': {
     body: body(
@@ -405,6 +475,57 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   'post /api/bays/:id/release': { id: 'bay', body: fc.constant({}) },
   'post /api/screens': { body: body({ name: text(60, ['Paint shop TV']) }, ['name']) },
   'delete /api/screens/:id': { id: 'otherScreen' },
+  'post /api/kiosks': { body: body({ name: text(60, ['Kiosk by the door']) }, ['name']) },
+  'delete /api/kiosks/:id': { id: 'otherKiosk' },
+  'post /api/kiosks/me/queue': {
+    body: body(
+      {
+        waiting: fc.integer({ min: 0, max: 500 }),
+        oldestQueuedAt: fc.option(instant(-7 * DAY, 0), { nil: null }),
+      },
+      ['waiting', 'oldestQueuedAt'],
+    ),
+  },
+  'post /api/kiosks/me/offline-punches': {
+    // Mostly a tablet's upload, the badge and PIN sealed to the server's key; then anything.
+    body: fc.oneof(
+      {
+        weight: 3,
+        arbitrary: fc
+          .record(
+            { ...offlinePunch, ...typed },
+            { requiredKeys: ['id', 'kind', 'at', 'badge', 'pin', 'boundTo'] },
+          )
+          .map(({ badge, pin, boundTo, ...punch }) => ({
+            ...punch,
+            keyId: new OfflineKeyId(),
+            identity: new SealedIdentity({
+              badge,
+              pin,
+              id: boundTo ?? punch.id,
+              kind: punch.kind,
+              at: punch.at,
+            }),
+          })),
+      },
+      {
+        weight: 1,
+        arbitrary: body(
+          {
+            ...offlinePunch,
+            keyId: fc.oneof(fc.constant(new OfflineKeyId()), fc.stringMatching(/^[0-9a-f]{16}$/)),
+            identity: fc.base64String({ maxLength: 64 }),
+          },
+          ['id', 'kind', 'at', 'keyId', 'identity'],
+        ),
+      },
+    ),
+  },
+  'get /api/offline-punches': {
+    query: query({ ...page, status: fc.constantFrom(...OFFLINE_PUNCH_STATUSES) }),
+  },
+  'post /api/offline-punches/:id/confirm': { id: 'offlinePunch', body: fc.constant({}) },
+  'post /api/offline-punches/:id/reject': { id: 'offlinePunch', body: fc.constant({}) },
   'patch /api/shop': {
     // Once the fuzz has closed a pay week, a new time zone or workweek start is refused (409): half the
     // bodies leave those alone, or hardly one request in a hundred would be accepted.
@@ -707,7 +828,10 @@ const CONTENT_TYPES = [
   'multipart/form-data; boundary=fuzz',
 ] as const;
 
-/** Who sends a request: a token of each role (two technicians), none, or one signed with another secret. */
+/**
+ * Who sends a request: a token of each role (two technicians; a paired wall screen and kiosk), none, or
+ * one signed with another secret.
+ */
 export const CALLERS = [
   'owner',
   'foreman',
@@ -715,6 +839,7 @@ export const CALLERS = [
   'technician',
   'otherTechnician',
   'display',
+  'kiosk',
   'nobody',
   'forged',
 ] as const;

@@ -4,7 +4,7 @@ import { MailboxService } from '../mail/mailbox.service.js';
 import { OutboxService } from '../mail/outbox.service.js';
 import { TimersService } from '../timers/timers.service.js';
 import { WebhookDeliverer } from '../webhooks/webhook-deliverer.service.js';
-import { readPools } from './fuzz-requests.js';
+import { readPools, type CallerIds } from './fuzz-requests.js';
 import type { Method } from './routes.js';
 import { rowsWritten, tableDigests } from './table-digests.js';
 import { DEMO, startTestApp } from './test-app.js';
@@ -33,6 +33,22 @@ const fuzzServer = async () => {
     handlers: {
       signIn: (who: 'owner' | 'foreman' | 'advisor') => sut.signIn(DEMO[who]),
       badge: (badge: string) => sut.badge(badge),
+      /** A kiosk tablet paired as Admin and the tablet pair one: its id in `screens` and its device token. */
+      pairKiosk: async () => {
+        const owner = await sut.signIn(DEMO.owner);
+        const pairing = await sut
+          .http()
+          .post('/api/kiosks')
+          .auth(owner, { type: 'bearer' })
+          .send({ name: 'Fuzz kiosk' })
+          .expect(201);
+        const paired = await sut
+          .http()
+          .post('/api/auth/kiosks/pair')
+          .send({ code: pairing.body.code })
+          .expect(200);
+        return { id: pairing.body.id as number, accessToken: paired.body.accessToken as string };
+      },
       /** Every route the server serves, as Express lists it. */
       routes: () =>
         express.router.stack.flatMap(({ route }) =>
@@ -46,7 +62,7 @@ const fuzzServer = async () => {
         ),
       rowsWritten: () => rowsWritten(sut.app),
       tableDigests: (except: string[]) => tableDigests(sut.app, except),
-      pools: (callers: { userIds: number[]; screenId: number }) =>
+      pools: (callers: CallerIds) =>
         readPools(
           sqlite,
           callers,
