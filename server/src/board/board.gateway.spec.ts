@@ -79,7 +79,7 @@ describe(BoardGateway.name, () => {
   });
 
   it.each([
-    ['no token', () => undefined, 'token-missing'],
+    ['no token', (): string | undefined => undefined, 'token-missing'],
     [
       'a token signed with another secret',
       () => new JwtService({ secret: 'x' }).sign({ sub: 1, role: 'owner' }),

@@ -6,7 +6,7 @@ import { BoardService } from '../board/board.service.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LiveService, type LiveMessage } from '../live/live.service.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
-import { DB, type Db } from './database.js';
+import { SQLITE, type Sqlite } from './database.js';
 import { UnitOfWork } from './unit-of-work.js';
 
 const TABLES = ['punches', 'job_lines', 'bays', 'repair_orders', 'findings', 'audit_log'] as const;
@@ -26,7 +26,7 @@ describe(UnitOfWork.name, () => {
 
   /** Every row of the tables a command can touch, and what the floor model shows. */
   function everything() {
-    const connection = sut.app.get<Db>(DB).$client;
+    const { connection } = sut.app.get<Sqlite>(SQLITE);
     const rows = Object.fromEntries(
       TABLES.map((table) => [table, connection.prepare(`select * from ${table} order by rowid`).all()]),
     );

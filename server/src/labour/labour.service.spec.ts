@@ -13,6 +13,9 @@ const MINUTE = 60_000;
 const DAY = 24 * 60 * MINUTE;
 const LINES = 4;
 
+/** What an arbitrary draws. */
+type ArbitraryValue<A> = A extends fc.Arbitrary<infer T> ? T : never;
+
 /**
  * A shift of at most 8 × 2 hours and one minute, starting at any minute of a UTC day (so some run past
  * midnight), its shift-out sometimes at the instant of its last punch.
@@ -138,7 +141,7 @@ describe(LabourService.name, () => {
         const writeShift = (
           technicianId: number,
           day: number,
-          { worked, startMinute, steps, outAfterMinutes }: fc.RecordValue<typeof shift>,
+          { worked, startMinute, steps, outAfterMinutes }: ArbitraryValue<typeof shift>,
           stillOpen = false,
         ) => {
           if (!worked) return;
@@ -152,7 +155,7 @@ describe(LabourService.name, () => {
         };
         const superseded = new Set<string>();
         const correct = (
-          all: readonly fc.RecordValue<typeof correction>[],
+          all: readonly ArbitraryValue<typeof correction>[],
           candidates: readonly (typeof punches.$inferInsert)[],
         ) => {
           for (const { of, byMinutes, voids } of all) {

@@ -7,14 +7,16 @@ import { loadConfig } from '../config/app-config.js';
 import { TextSender } from './text-sender.js';
 import { TextboxService } from './textbox.service.js';
 
+type RequestOptions = Parameters<twilio.RequestClient['request']>[0];
+
 /** Stands in for the provider's HTTP endpoint: records each request, answers as the API does. */
 class RecordingClient extends twilio.RequestClient {
-  readonly requests: twilio.RequestClient.RequestOptions[] = [];
+  readonly requests: RequestOptions[] = [];
   constructor(private readonly statusCode: number) {
     super();
   }
-  override request<TData>(opts: twilio.RequestClient.RequestOptions<TData>) {
-    this.requests.push(opts as twilio.RequestClient.RequestOptions);
+  override request(opts: RequestOptions) {
+    this.requests.push(opts);
     const body =
       this.statusCode < 300
         ? { sid: 'SM00000000000000000000000000000000', status: 'queued' }
