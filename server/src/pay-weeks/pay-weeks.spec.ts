@@ -311,4 +311,45 @@ describe(PayWeeksService.name, () => {
       await history.as(owner).patch('/api/shop', { apportionSpanningLines: true }).expect(200);
     }
   });
+
+  // Ola, flat $20, other time $10, works only in A: Monday 08:00–12:00 on a 4.0 h line, finished at 12:00, so
+  // A pays 4 h × $20 = $80 (4 h × $7.25 = $29 is below). The line reopened after A and B closed: A would now
+  // flag nothing, its 4 h being on the open line, so it pays the minimum wage, $29, and the first open week,
+  // C, carries $29 − $80 = −$51 for A, by hand.
+  it('carries an adjustment once when a week before the one that carried it is reopened and closed again', async () => {
+    const [a, b, c, d] = [-11, -10, -9, -8].map((n) => addIsoWeeks(weeks.current, n)) as [
+      string,
+      string,
+      string,
+      string,
+    ];
+    const ola = await history.technician('Ola Brandt', '6005', 20_00, 10_00);
+    const day = monday(a);
+    const line = history.line('Replace rear shocks', 4.0, ola, at(day, '07:30'));
+    await history.punch(ola, 'shift-in', at(day, '08:00'));
+    await history.punch(ola, 'job-on', at(day, '08:00'), line);
+    await history.punch(ola, 'job-off', at(day, '12:00'), line);
+    await history.punch(ola, 'shift-out', at(day, '12:00'));
+    await history.finish(line, at(day, '12:00'));
+    const close = (week: string) => history.as(owner).post(`/api/pay-weeks/${week}/close`, {}).expect(200);
+    await close(a);
+    await close(b);
+    await history.as(foreman).patch(`/api/job-lines/${line}`, { status: 'queued' }).expect(200);
+    const forA = {
+      technicianId: ola,
+      forWeek: a,
+      forWeekName: workweekName(a, shop),
+      flaggedHours: -4,
+      cents: -51_00,
+    };
+    expect((await pay(c)).adjustments).toEqual([forA]);
+    await close(c);
+
+    // B reopened: C, closed after A, has carried A's change, so B carries nothing for A, open or closed again.
+    await history.as(owner).post(`/api/pay-weeks/${b}/reopen`, { reason: 'A missed punch' }).expect(200);
+    expect((await pay(b)).adjustments).toEqual([]);
+    await close(b);
+    expect((await pay(d)).adjustments).toEqual([]);
+    expect(rowOf(await pay(c), ola)).toMatchObject({ adjustments: [forA], payableCents: -51_00 });
+  });
 });

@@ -385,7 +385,8 @@ export class PaySummaryService {
   /**
    * What closed weeks owe after changes made since they closed (a line finished, edited, reopened or signed
    * off later). Shown in the first open week after them: the closed weeks just before `label`. Each closed
-   * week's difference is its live figures less its snapshot less what later closed weeks already carried.
+   * week's difference is its live figures less its snapshot less what any closed week after it already
+   * carried, also one beyond `label` (a week reopened while later ones stay closed).
    */
   private adjustments(label: string, settings: ShopSettings, now: Date): PayAdjustment[] {
     const run: PayWeekRow[] = [];
@@ -395,13 +396,19 @@ export class PaySummaryService {
       run.unshift(closed);
     }
     const result: PayAdjustment[] = [];
+    const closedLater = (closed: PayWeekRow) =>
+      this.closedWeeks
+        .labels()
+        .filter((week) => week > closed.week)
+        .map((week) => this.closedWeeks.closed(week)!)
+        .filter((later) => later.snapshot && later.closedAt! > closed.closedAt!);
     for (const closed of run) {
       if (!this.changedSinceClosing(closed, settings)) continue;
       const live = this.live(closed.week, settings, now, { withAdjustments: false }).report;
       const snapshot = closed.snapshot!.report;
-      const carried = run
-        .filter((later) => later.week > closed.week && later.closedAt! > closed.closedAt!)
-        .flatMap((later) => later.snapshot!.report.adjustments.filter((a) => a.forWeek === closed.week));
+      const carried = closedLater(closed).flatMap((later) =>
+        later.snapshot!.report.adjustments.filter((a) => a.forWeek === closed.week),
+      );
       const ids = new Set([...live.technicians, ...snapshot.technicians].map((row) => row.technicianId));
       for (const technicianId of ids) {
         const was = snapshot.technicians.find((row) => row.technicianId === technicianId);
