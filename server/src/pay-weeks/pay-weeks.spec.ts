@@ -352,4 +352,30 @@ describe(PayWeeksService.name, () => {
     expect((await pay(d)).adjustments).toEqual([]);
     expect(rowOf(await pay(c), ola)).toMatchObject({ adjustments: [forA], payableCents: -51_00 });
   });
+
+  // A night shift from Saturday 23:00 to Sunday 07:30 crosses the end of week G into H. Its shift-out is on
+  // record, so G has no open shift to review and closes; a shift-in Saturday with no shift-out at all is
+  // still one.
+  it('closes a week whose last shift ended after it, and still stops at a shift never ended', async () => {
+    const [g, h, i] = [-15, -14, -13].map((n) => addIsoWeeks(weeks.current, n)) as [string, string, string];
+    const pia = await history.technician('Pia Nordqvist', '6006', 20_00, 10_00);
+    const saturday = (week: string) => workweekDays(week, shop)[6]!;
+    const sunday = (week: string) => workweekDays(week, shop)[0]!;
+    await history.punch(pia, 'shift-in', at(saturday(g), '23:00'));
+    await history.punch(pia, 'shift-out', at(sunday(h), '07:30'));
+    const kinds = async (week: string) =>
+      (
+        (await history.as(foreman).get(`/api/exceptions?week=${week}`).expect(200)).body as {
+          exceptions: { kind: string; technicianId: number }[];
+        }
+      ).exceptions
+        .filter((exception) => exception.technicianId === pia)
+        .map((exception) => exception.kind);
+    expect(await kinds(g)).toEqual([]);
+    await history.as(owner).post(`/api/pay-weeks/${g}/close`, {}).expect(200);
+
+    await history.punch(pia, 'shift-in', at(saturday(i), '23:00'));
+    expect(await kinds(i)).toEqual(['open-shift']);
+    await history.as(owner).post(`/api/pay-weeks/${i}/close`, {}).expect(409);
+  });
 });

@@ -1,10 +1,13 @@
 import { BadRequestException, Inject, Injectable } from '@nestjs/common';
-import { and, eq, gte, inArray, lt } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, lt } from 'drizzle-orm';
 import {
+  buildLedger,
   EXCEPTION_KINDS,
   ledgerExceptions,
   type ExceptionKind,
+  type ExceptionSettings,
   type Ledger,
+  type LedgerException,
   type ReviewExceptionBody,
   type TimeException,
 } from '@baytime/shared';
@@ -12,8 +15,11 @@ import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { exceptionReviews, heldPunches, jobLines, repairOrders, users } from '../db/schema/index.js';
+import { exceptionReviews, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
+import { toPunchDto } from '../labour/labour.service.js';
 import { ShopService } from '../shop/shop.service.js';
+
+const HOUR_MS = 3600_000;
 
 /** A week's ledgers, as the reports build them. */
 export interface WeekLedgers {
@@ -43,7 +49,7 @@ export class ExceptionsService {
     const settings = { ...this.shop.settings(now), ...this.shop.ledgerSettings(now) };
     const found: Omit<TimeException, 'technicianName' | 'resolution'>[] = [];
     for (const [technicianId, ledger] of ledgers)
-      for (const exception of ledgerExceptions(ledger, from, to, now, settings))
+      for (const exception of this.pastTheWeek(technicianId, ledger, { from, to, now, settings }))
         found.push({
           ...exception,
           technicianId,
@@ -141,6 +147,39 @@ export class ExceptionsService {
   }
 
   /** The foreman checked a timecard exception and accepts it as it is: audited, with the note. */
+  /**
+   * A week's ledger ends with the week: a shift or break still open then may have ended after it (a night
+   * shift across the week's end). Those are judged again on the punches that follow, up to the longest a
+   * shift may run, so a shift-out the next week clears them.
+   */
+  private pastTheWeek(
+    technicianId: number,
+    ledger: Ledger,
+    { from, to, now, settings }: { from: Date; to: Date; now: Date; settings: ExceptionSettings },
+  ): LedgerException[] {
+    const exceptions = ledgerExceptions(ledger, from, to, now, settings);
+    const open = exceptions.filter((e) => e.kind === 'open-shift' || e.kind === 'open-break');
+    const openShift = ledger.shifts.find((shift) => shift.open);
+    if (open.length === 0 || !openShift || to >= now) return exceptions;
+    // From the open shift's start, so its breaks are read inside it.
+    const first = openShift.from;
+    const until = new Date(Math.min(now.getTime(), to.getTime() + settings.longShiftHours * HOUR_MS));
+    const punchesOn = this.db
+      .select()
+      .from(punches)
+      .where(and(eq(punches.technicianId, technicianId), gte(punches.at, first), lt(punches.at, until)))
+      .orderBy(asc(punches.at))
+      .all()
+      .map(toPunchDto);
+    const later = ledgerExceptions(buildLedger(punchesOn, until, settings), from, to, now, settings);
+    const startOf = (e: LedgerException) => e.key.slice(e.key.indexOf(':') + 1);
+    const judgedAgain = new Set(open.map(startOf));
+    return [
+      ...exceptions.filter((e) => !judgedAgain.has(startOf(e))),
+      ...later.filter((e) => judgedAgain.has(startOf(e))),
+    ].sort((a, b) => a.at.getTime() - b.at.getTime());
+  }
+
   @Transactional()
   review(body: ReviewExceptionBody, technicianId: number, actor: Principal, now = new Date()): void {
     const kind = body.key.split(':')[0] as ExceptionKind;

@@ -15,7 +15,7 @@ export interface LedgerException {
   text: string;
 }
 
-type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours'> &
+export type ExceptionSettings = Pick<ShopSettings, 'timeZone' | 'longShiftHours'> &
   Partial<Pick<ShopSettings, 'clockFormat'>> &
   LedgerSettings;
 
