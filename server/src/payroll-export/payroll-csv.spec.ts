@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   addIsoWeeks,
-  isoWeekOf,
   shopLocalInstant,
   workweekDays,
   workweekOf,
@@ -129,8 +128,23 @@ describe('GET /api/pay-weeks/:week/payroll.csv', () => {
   });
   afterAll(() => sut.close());
 
-  it('answers the stable columns, a row per technician of the pay report, to the owner and a reports key', async () => {
-    const week = isoWeekOf(new Date(), 'UTC');
+  it('answers the stable columns of a closed week, a row per technician of its pay report, to the owner and a reports key', async () => {
+    const shop = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    const running = workweekOf(new Date(), shop);
+    const refused = await sut
+      .http()
+      .get(`/api/pay-weeks/${running}/payroll.csv`)
+      .auth(owner, { type: 'bearer' })
+      .expect(409);
+    expect(refused.body.message).toMatch(/^The week of .* is not closed for pay: close it first/);
+    const week = addIsoWeeks(running, -20);
+    await sut
+      .http()
+      .post(`/api/pay-weeks/${week}/close`)
+      .auth(owner, { type: 'bearer' })
+      .send({})
+      .expect(200);
     const report = (
       await sut.http().get(`/api/reports/pay?week=${week}`).auth(owner, { type: 'bearer' }).expect(200)
     ).body as PayReport;
@@ -202,6 +216,7 @@ describe('GET /api/pay-weeks/:week/payroll.csv', () => {
       payableCaution: expect.stringContaining('below the minimum wage for 5.5 h worked'),
     });
 
+    await history.as(owner).post(`/api/pay-weeks/${F}/close`, {}).expect(200);
     const csv = await history.as(owner).get(`/api/pay-weeks/${F}/payroll.csv`).expect(200);
     const [header, ...lines] = (csv.text as string).trim().split('\n');
     const rows = lines.map((text) =>
