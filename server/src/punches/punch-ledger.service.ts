@@ -6,6 +6,7 @@ import {
   formatDayClockTime,
   inSentence,
   jobOffsFor,
+  refusalAbout,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
   type DisplacedPunch,
   type LedgerPunch,
@@ -14,7 +15,7 @@ import {
 import type { Principal } from '../auth/principal.js';
 import { AuditService } from '../audit/audit.service.js';
 import { DB, type Db } from '../db/database.js';
-import { jobLines, punches, repairOrders } from '../db/schema/index.js';
+import { jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { toPunchDto } from '../labour/labour.service.js';
 import { LiveService } from '../live/live.service.js';
@@ -93,6 +94,17 @@ export class PunchLedgerService {
     throw new BadRequestException(
       `That line was added at ${formatDayClockTime(line.queuedAt.toISOString(), timeZone, clockFormat)}: no one can be clocked on it before then`,
     );
+  }
+
+  /** A punch refused in the words for who asked: "You are …" to the technician, their name to anyone else. */
+  refusalFor(refusal: string, technicianId: number, askedBy: number | null): string {
+    if (askedBy === technicianId) return refusal;
+    const name = this.db
+      .select({ name: users.name })
+      .from(users)
+      .where(eq(users.id, technicianId))
+      .get()?.name;
+    return name ? refusalAbout(refusal, name) : refusal;
   }
 
   /** "the clock on at Tue, Dec 1, 3:10 pm (RO 4410 · Replace water pump)", for each punch. */

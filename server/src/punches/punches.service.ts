@@ -152,7 +152,7 @@ export class PunchesService {
     const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
     // A replay's later punch may only fit after its held one (a clock-on after a held shift-in): it waits too.
     if (impact.refusal && !(waiting && actor.role === 'technician'))
-      throw new ConflictException(impact.refusal);
+      throw new ConflictException(this.ledger.refusalFor(impact.refusal, technicianId, actor.id));
     const changesCounted = impact.displaced.length > 0 || impact.lowersCounted;
     if (changesCounted || waiting) {
       if (late && actor.role === 'technician')

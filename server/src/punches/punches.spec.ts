@@ -76,6 +76,10 @@ describe(PunchesService.name, () => {
     await punch({ kind: 'shift-in', technicianId: tech.user.id + 1 }).expect(403);
     await punch({ kind: 'shift-in', technicianId: tech.user.id }, foreman).expect(201);
     expect((await myDay()).shift.status).toBe('on-shift');
+    // Refused, in words about the technician for the foreman and to the technician herself.
+    const again = await punch({ kind: 'shift-in', technicianId: tech.user.id }, foreman).expect(409);
+    expect(again.body.message).toBe('Jo Whitfield is already on shift');
+    expect((await punch({ kind: 'shift-in' }).expect(409)).body.message).toBe('You are already on shift');
   });
 
   it('clocks on a line and the wall hears about it at once', async () => {

@@ -11,6 +11,7 @@ import {
   buildLedger,
   formatDayClockTime,
   punchImpact,
+  refusalAbout,
   shopDayKey,
   workweekBounds,
   PUNCH_WORDS,
@@ -130,7 +131,11 @@ export class TimecardsService {
       );
     // Punches read from before the week only give context; their anomalies belong to an earlier card.
     const weekIds = new Set(all.filter((p) => new Date(p.at) >= from).map((p) => p.id));
-    const anomalies = ledger.anomalies.filter((a) => weekIds.has(a.punchId));
+    const anomalies = ledger.anomalies
+      .filter((a) => weekIds.has(a.punchId))
+      .map((a) =>
+        actor.id === technicianId ? a : { ...a, reason: refusalAbout(a.reason, technician.name) },
+      );
     if (anomalies.length) flags.push(`${anomalies.length} punch(es) did not fit and were not counted`);
 
     const punchIds = all.map((p) => p.id);
@@ -187,7 +192,10 @@ export class TimecardsService {
   /** What a correction would do, saving nothing: why it cannot be saved, or the punches it would displace. */
   preview(body: CorrectionBody, now = new Date()): CorrectionPreview {
     const { impact } = this.plan(body, now);
-    return { refusal: impact.refusal, displaces: this.ledger.describe(impact.displaced) };
+    return {
+      refusal: impact.refusal && this.ledger.refusalFor(impact.refusal, body.technicianId, null),
+      displaces: this.ledger.describe(impact.displaced),
+    };
   }
 
   /**
@@ -200,7 +208,9 @@ export class TimecardsService {
   correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
     const { added, impact } = this.plan(body, now);
     if (impact.refusal)
-      throw new ConflictException(`That correction does not fit the timecard: ${impact.refusal}`);
+      throw new ConflictException(
+        `That correction does not fit the timecard: ${this.ledger.refusalFor(impact.refusal, body.technicianId, null)}`,
+      );
     const confirmed = new Set(body.displaces ?? []);
     if (
       impact.displaced.length !== confirmed.size ||

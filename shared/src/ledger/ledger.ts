@@ -107,6 +107,11 @@ export const PUNCH_REFUSALS = {
   noLine: 'Say which job line',
 } as const;
 
+/** A refusal said of someone else's punch: "You are already on shift" becomes "Kai Morrell is already on shift". */
+export function refusalAbout(refusal: string, name: string): string {
+  return refusal.replace(/^You are\b/, `${name} is`);
+}
+
 /**
  * Punches at the same instant (a paper timesheet's "job off 12:00, lunch 12:00") in the order a day runs:
  * the shift opens, a break ends and a job closes before a job opens, a break starts or the shift closes.
