@@ -200,13 +200,12 @@ describe(PayWeeksService.name, () => {
       adjustmentCents: -63_37,
       payableCents: -63_37,
     });
-    // The pay math stays; the row says the payable amount is below the minimum wage for the hours worked
-    // (none in F: 0 h × $7.25 = $0.00), for payroll to confirm (29 CFR 531.35, from memory).
+    // The pay math stays; the row says the payable amount is negative with no hours worked in F, for payroll
+    // to confirm (29 CFR 531.35, from memory).
     expect(rowOf(f, kai).payableCaution).toBe(
-      'Payable -$63.37 is below the minimum wage for 0 h worked (0 h × $7.25 = $0.00) after an adjustment of ' +
-        '-$63.37 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
-        'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
-        'payroll provider.',
+      'Payable -$63.37 is negative after an adjustment of -$63.37 from earlier weeks, with no hours worked this ' +
+        'week: confirm with payroll before paying; deductions may not cut pay below the minimum wage (29 CFR ' +
+        '531.35). Pay figures are estimates: confirm them with local wage law and your payroll provider.',
     );
 
     // Finished again in F: flagged there (6 h × $20 = $120); its time was all clocked in W, so 29 CFR 778.119

@@ -419,6 +419,19 @@ describe(payableBelowMinimumWageCaution.name, () => {
     );
   });
 
+  it('calls a payable amount negative when the week has no hours to set a minimum against', () => {
+    expect(
+      payableBelowMinimumWageCaution(
+        { payableCents: -63_37, adjustmentCents: -63_37, workedSeconds: 0 },
+        7_25,
+      ),
+    ).toBe(
+      'Payable -$63.37 is negative after an adjustment of -$63.37 from earlier weeks, with no hours worked this ' +
+        'week: confirm with payroll before paying; deductions may not cut pay below the minimum wage (29 CFR ' +
+        '531.35). Pay figures are estimates: confirm them with local wage law and your payroll provider.',
+    );
+  });
+
   it('says nothing at or above the minimum wage for the hours worked', () => {
     const worked = { adjustmentCents: -10_00, workedSeconds: 5.5 * H };
     expect(payableBelowMinimumWageCaution({ ...worked, payableCents: 39_88 }, 7_25)).toBeNull();

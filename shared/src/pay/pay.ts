@@ -57,9 +57,13 @@ export function payableBelowMinimumWageCaution(
     figures.adjustmentCents < 0
       ? ` after an adjustment of ${money.format(figures.adjustmentCents / 100)} from earlier weeks`
       : '';
+  const below =
+    figures.workedSeconds > 0
+      ? `is below the minimum wage for ${hours} h worked ` +
+        `(${hours} h × ${money.format(minimumWageCents / 100)} = ${money.format(floorCents / 100)})${after}`
+      : `is negative${after}, with no hours worked this week`;
   return (
-    `Payable ${money.format(figures.payableCents / 100)} is below the minimum wage for ${hours} h worked ` +
-    `(${hours} h × ${money.format(minimumWageCents / 100)} = ${money.format(floorCents / 100)})${after}: ` +
+    `Payable ${money.format(figures.payableCents / 100)} ${below}: ` +
     'confirm with payroll before paying; deductions may not cut pay below the minimum wage (29 CFR 531.35). ' +
     'Pay figures are estimates: confirm them with local wage law and your payroll provider.'
   );

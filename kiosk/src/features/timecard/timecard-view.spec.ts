@@ -239,6 +239,13 @@ describe(payableNote.name, () => {
     );
   });
 
+  it('calls the pay negative in a week without hours worked', () => {
+    expect(payableNote({ ...adjusted, hoursWorked: 0, payableCents: -59_00 })).toBe(
+      'After an adjustment of -$59.00 for an earlier week, this week’s estimated pay (-$59.00) is negative, ' +
+        'with no hours worked this week. Ask the office to confirm it with payroll before payday.',
+    );
+  });
+
   it('says nothing when the server gives no caution or the shop hides pay', () => {
     // The rule is the server's: figures that look low without its caution get no note here.
     expect(payableNote({ ...adjusted, payableCaution: null })).toBeNull();

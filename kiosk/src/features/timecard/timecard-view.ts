@@ -160,9 +160,11 @@ type PayableFigures = Pick<
  */
 export function payableNote(pay: PayableFigures | null): string | null {
   if (!pay?.payableCaution) return null;
+  const estimate = `this week’s estimated pay (${money.format(pay.payableCents / 100)})`;
   const below =
-    `this week’s estimated pay (${money.format(pay.payableCents / 100)}) is below the minimum wage for the ` +
-    `${formatBookHours(pay.hoursWorked)} you worked.`;
+    pay.hoursWorked > 0
+      ? `${estimate} is below the minimum wage for the ${formatBookHours(pay.hoursWorked)} you worked.`
+      : `${estimate} is negative, with no hours worked this week.`;
   const said =
     pay.adjustmentCents < 0
       ? `After an adjustment of ${money.format(pay.adjustmentCents / 100)} for an earlier week, ${below}`

@@ -81,8 +81,10 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
         <MessageBar intent="warning" layout="multiline">
           <MessageBarBody>
             <MessageBarTitle>Not final</MessageBarTitle>
-            {report.unresolvedExceptions} exception{report.unresolvedExceptions === 1 ? '' : 's'} in this week
-            still wait for the foreman. <Link to={exceptionsLink}>Open the exceptions list</Link>
+            {report.unresolvedExceptions === 1
+              ? '1 exception in this week still waits for the foreman. '
+              : `${report.unresolvedExceptions} exceptions in this week still wait for the foreman. `}
+            <Link to={exceptionsLink}>Open the exceptions list</Link>
           </MessageBarBody>
         </MessageBar>
       )}
