@@ -1,3 +1,5 @@
+import type { WeekSummary } from './report.schema.js';
+
 export interface LabourHours {
   attendanceHours: number;
   /** Time clocked on job lines in the week. */
@@ -95,4 +97,15 @@ export function shareFlaggedHours(
       .filter(([, seconds]) => seconds > 0)
       .map(([technicianId, seconds]) => [technicianId, (bookHours * seconds) / total]),
   );
+}
+
+/**
+ * The flagged hours a closed week was paid on, when they differ from what the week flags today (a line of
+ * it finished, edited or reopened since; the difference is carried to the next open week), or null.
+ */
+export function flaggedWhenClosed(summary: Pick<WeekSummary, 'closed' | 'labour' | 'pay'>): number | null {
+  if (!summary.closed || !summary.pay) return null;
+  return Math.abs(summary.pay.flaggedHours - summary.labour.flaggedHours) >= 0.05
+    ? summary.pay.flaggedHours
+    : null;
 }

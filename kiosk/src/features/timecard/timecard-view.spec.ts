@@ -201,7 +201,7 @@ describe(buildWeekView.name, () => {
       matchedClockedHours: 46,
       efficiency: 49.1 / 46,
     };
-    const pay = { payableCents: 575_30 } as Timecard['summary']['pay'];
+    const pay = { payableCents: 575_30, flaggedHours: 49.1 } as Timecard['summary']['pay'];
     expect(weekFigures(card({ summary: { labour, pay, closed: false, caution: 'An estimate' } }))).toEqual([
       { label: 'Flagged', value: '49.1 h' },
       { label: 'Clocked on jobs', value: '46.0 h' },
@@ -212,6 +212,14 @@ describe(buildWeekView.name, () => {
       label: 'Efficiency',
       value: '107%',
     });
+    // Closed on 49.1 h; a line of the week reopened since, it flags 47.1 h today: both show.
+    const reopened = { ...labour, flaggedHours: 47.1 };
+    expect(
+      weekFigures(card({ summary: { labour: reopened, pay, closed: true, caution: '' } })).map(
+        (f) => f.label,
+      ),
+    ).toEqual(['Flagged', 'Clocked on jobs', 'Efficiency', 'Flagged when the week closed', 'Estimated pay']);
+    expect(weekFigures(card({ summary: { labour, pay, closed: true, caution: '' } }))).toHaveLength(4);
   });
 });
 

@@ -1,4 +1,5 @@
 import {
+  flaggedWhenClosed,
   formatBookHours,
   punchWords,
   type PayReportTechnician,
@@ -145,6 +146,9 @@ export function weekFigures(card: Timecard): { label: string; value: string }[] 
       value: labour.efficiency === null ? '–' : `${Math.round(labour.efficiency * 100)}%`,
     },
   ];
+  const paidOn = flaggedWhenClosed(card.summary);
+  if (paidOn !== null)
+    figures.push({ label: 'Flagged when the week closed', value: formatBookHours(paidOn) });
   if (pay) figures.push({ label: 'Estimated pay', value: money.format(pay.payableCents / 100) });
   return figures;
 }

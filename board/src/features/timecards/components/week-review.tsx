@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import { Badge, Caption1, Subtitle2, Text, makeStyles, tokens } from '@fluentui/react-components';
-import { EXCEPTION_TITLES, formatBookHours, type Timecard } from '@baytime/shared';
+import { EXCEPTION_TITLES, flaggedWhenClosed, formatBookHours, type Timecard } from '@baytime/shared';
 import { paths } from '@/config/paths';
 import { formatMoney } from '@/lib/form-errors';
 import { PUNCH_WORDS, formatDayClock } from '../timecard-format';
@@ -36,6 +36,7 @@ const percent = (ratio: number | null) => (ratio === null ? '–' : `${Math.roun
 export function WeekReview({ card }: { card: Timecard }) {
   const styles = useStyles();
   const { labour, pay } = card.summary;
+  const paidOn = flaggedWhenClosed(card.summary);
   const exceptionsLink = `${paths.exceptions}?week=${encodeURIComponent(card.week)}`;
   const open = card.exceptions.filter((e) => e.resolution === null);
   return (
@@ -47,6 +48,7 @@ export function WeekReview({ card }: { card: Timecard }) {
         {(
           [
             ['Flagged', formatBookHours(labour.flaggedHours)],
+            ...(paidOn !== null ? [['Flagged when the week closed', formatBookHours(paidOn)] as const] : []),
             ['Efficiency', percent(labour.efficiency)],
             ['Work in progress', formatBookHours(labour.workInProgressHours)],
             ...(pay ? [['Estimated pay this week', formatMoney(pay.payableCents)] as const] : []),
