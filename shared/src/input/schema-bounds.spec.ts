@@ -143,6 +143,17 @@ describe('other ranges', () => {
         }),
       ),
     ).toBe('At most $1,000.00 an hour');
+    expect(
+      firstMessage(
+        createUserSchema.safeParse({
+          name: 'Ada',
+          role: 'technician',
+          badge: '2001',
+          pin: '4321',
+          hourlyRateCents: -1,
+        }),
+      ),
+    ).toBe('A rate cannot be below $0.00');
   });
 });
 

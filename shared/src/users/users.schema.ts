@@ -7,7 +7,11 @@ import { localDateSchema } from '../shop/shop.schema.js';
 export { shortName } from './short-name.js';
 
 /** A pay rate per hour in cents. */
-const cents = z.number().int().min(0).max(1_000_00, 'At most $1,000.00 an hour');
+const cents = z
+  .number('A rate is a number of cents')
+  .int('A rate is whole cents')
+  .min(0, 'A rate cannot be below $0.00')
+  .max(1_000_00, 'At most $1,000.00 an hour');
 const personName = plainText(80, { min: 1, message: 'Enter a name' });
 
 export const createUserSchema = z
