@@ -13,10 +13,11 @@ import { ShopService } from '../shop/shop.service.js';
 import { WebhookOutbox } from '../webhooks/webhook-outbox.service.js';
 
 /**
- * Closing a pay week keeps its pay summary (figures and the rates used) as it stands. From then on nothing
- * dated inside it can change (punches, corrections, line completions and a workweek that would move it answer
- * 409), and a line changed later shows as an adjustment in the first open week. Reopening is the owner's, with
- * a reason, audited.
+ * Closing a pay week keeps its pay summary (figures and the rates used) as it stands: what payroll is given.
+ * From then on nothing dated inside it can change (punches, corrections, line completions and a workweek that
+ * would move it answer 409), and a line changed later shows as an adjustment in the first open week.
+ * Reopening is the owner's, with a reason, audited; the figures first closed stay, so closing the week again
+ * pays only the difference, carried to the first open week like any later change.
  */
 @Injectable()
 export class PayWeeksService {
@@ -41,13 +42,13 @@ export class PayWeeksService {
       throw new ConflictException(
         `That week has ${report.unresolvedExceptions} unresolved exception(s): deal with them on the exceptions list first`,
       );
+    const paid = this.db.select().from(payWeeks).where(eq(payWeeks.week, week)).get();
     const values = {
       closedAt: now,
       closedBy: actor.id,
-      snapshot: { report, lineIds },
-      reopenedAt: null,
-      reopenedBy: null,
-      reopenReason: null,
+      ...(paid?.snapshot && paid.paidAt
+        ? { snapshot: paid.snapshot, paidAt: paid.paidAt }
+        : { snapshot: { report, lineIds }, paidAt: now }),
     };
     this.db
       .insert(payWeeks)
@@ -80,7 +81,6 @@ export class PayWeeksService {
       .set({
         closedAt: null,
         closedBy: null,
-        snapshot: null,
         reopenedAt: now,
         reopenedBy: actor.id,
         reopenReason: reason,

@@ -377,4 +377,40 @@ describe(PayWeeksService.name, () => {
     expect(await kinds(i)).toEqual(['open-shift']);
     await history.as(owner).post(`/api/pay-weeks/${i}/close`, {}).expect(409);
   });
+
+  // Quinn, flat $20, other time $10. P, Monday: 08:00–12:00 on a 4.0 h line, finished then: 4 h × $20 = $80,
+  // what payroll is given when P closes. P reopened for a missed Tuesday, 08:00–10:00 on no line: 2 h × $10 =
+  // $20 more, $100 in all. Closed again, P keeps the $80 it was paid on and Q, the next open week, carries the
+  // $20, by hand.
+  it('keeps the figures a week was first closed with when it is closed again, and carries the difference', async () => {
+    const [p, q] = [-19, -18].map((n) => addIsoWeeks(weeks.current, n)) as [string, string];
+    const quinn = await history.technician('Quinn Harlow', '6007', 20_00, 10_00);
+    const day = monday(p);
+    const line = history.line('Replace brake hoses', 4.0, quinn, at(day, '07:30'));
+    await history.punch(quinn, 'shift-in', at(day, '08:00'));
+    await history.punch(quinn, 'job-on', at(day, '08:00'), line);
+    await history.punch(quinn, 'job-off', at(day, '12:00'), line);
+    await history.punch(quinn, 'shift-out', at(day, '12:00'));
+    await history.finish(line, at(day, '12:00'));
+    const closed = (await history.as(owner).post(`/api/pay-weeks/${p}/close`, {}).expect(200)).body as {
+      closedAt: string;
+    };
+    expect(rowOf(await pay(p), quinn)).toMatchObject({ totalCents: 80_00 });
+
+    await history.as(owner).post(`/api/pay-weeks/${p}/reopen`, { reason: 'Tuesday not punched' }).expect(200);
+    const tuesday = workweekDays(p, shop)[2]!;
+    await history.punch(quinn, 'shift-in', at(tuesday, '08:00'));
+    await history.punch(quinn, 'shift-out', at(tuesday, '10:00'));
+    const reopened = await pay(p);
+    expect(reopened).toMatchObject({ closed: false, firstClosedAt: closed.closedAt });
+    expect(rowOf(reopened, quinn)).toMatchObject({ totalCents: 100_00 });
+
+    await history.as(owner).post(`/api/pay-weeks/${p}/close`, {}).expect(200);
+    const again = await pay(p);
+    expect(again).toMatchObject({ closed: true, firstClosedAt: closed.closedAt });
+    expect(rowOf(again, quinn)).toMatchObject({ totalCents: 80_00, payableCents: 80_00 });
+    expect((await pay(q)).adjustments).toEqual([
+      { technicianId: quinn, forWeek: p, forWeekName: workweekName(p, shop), flaggedHours: 0, cents: 20_00 },
+    ]);
+  });
 });

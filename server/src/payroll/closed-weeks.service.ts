@@ -31,6 +31,12 @@ export class ClosedWeeksService {
     return row?.closedAt ? row : undefined;
   }
 
+  /** When a week now open was first closed, if it was and has been reopened since. */
+  firstClosedAt(week: string): Date | null {
+    const row = this.weekRow.get({ week });
+    return row && !row.closedAt ? (row.paidAt ?? null) : null;
+  }
+
   /** Closed weeks, oldest first. */
   labels(): string[] {
     return closedWeekLabels(this.db);

@@ -93,7 +93,8 @@ export class PaySummaryService {
     const label = week ?? workweekOf(now, settings);
     const closed = this.closedWeeks.closed(label);
     if (closed?.snapshot) return this.fromSnapshot(closed);
-    return this.live(label, settings, now).report;
+    const firstClosedAt = this.closedWeeks.firstClosedAt(label);
+    return { ...this.live(label, settings, now).report, firstClosedAt: firstClosedAt?.toISOString() ?? null };
   }
 
   /**
@@ -129,6 +130,7 @@ export class PaySummaryService {
       closed: false,
       closedAt: null,
       closedBy: null,
+      firstClosedAt: null,
       technicians,
       totals: totalsOf(technicians),
       adjustments,
@@ -401,7 +403,7 @@ export class PaySummaryService {
         .labels()
         .filter((week) => week > closed.week)
         .map((week) => this.closedWeeks.closed(week)!)
-        .filter((later) => later.snapshot && later.closedAt! > closed.closedAt!);
+        .filter((later) => later.snapshot && paidAtOf(later) > paidAtOf(closed));
     for (const closed of run) {
       if (!this.changedSinceClosing(closed, settings)) continue;
       const live = this.live(closed.week, settings, now, { withAdjustments: false }).report;
@@ -434,8 +436,12 @@ export class PaySummaryService {
     return result;
   }
 
-  /** A line the closed week flagged, or finished in it, was changed after the week closed. */
+  /**
+   * The week was reopened since its figures were saved (its punches may have changed), or a line it flagged,
+   * or finished in it, was changed after.
+   */
   private changedSinceClosing(closed: PayWeekRow, settings: ShopSettings): boolean {
+    if (closed.reopenedAt) return true;
     const { from, to } = boundsOf(closed.week, settings);
     const lineIds = closed.snapshot!.lineIds;
     const touched = this.db
@@ -443,7 +449,7 @@ export class PaySummaryService {
       .from(jobLines)
       .where(
         and(
-          gte(jobLines.updatedAt, closed.closedAt!),
+          gte(jobLines.updatedAt, paidAtOf(closed)),
           or(
             and(gte(jobLines.completedAt, from), lt(jobLines.completedAt, to)),
             lineIds.length ? inArray(jobLines.id, lineIds) : undefined,
@@ -475,6 +481,7 @@ export class PaySummaryService {
       ),
       closed: true,
       closedAt: closed.closedAt!.toISOString(),
+      firstClosedAt: closed.reopenedAt ? paidAtOf(closed).toISOString() : null,
       closedBy: by ?? null,
     };
   }
@@ -527,3 +534,6 @@ function totalsOf(rows: readonly PayReportTechnician[]): PayReportTotals {
     payableCents: sum((row) => row.payableCents),
   };
 }
+
+/** When a closed week's saved figures were taken: its first close (rows from before it was kept: its close). */
+const paidAtOf = (row: PayWeekRow): Date => row.paidAt ?? row.closedAt!;

@@ -208,6 +208,11 @@ export interface PayReport {
   closed: boolean;
   closedAt: string | null;
   closedBy: string | null;
+  /**
+   * Set once the week was reopened: when it was first closed. Its figures of then are what payroll was given;
+   * closed again, the week keeps them and any difference is carried to the next open week.
+   */
+  firstClosedAt: string | null;
   technicians: PayReportTechnician[];
   totals: PayReportTotals;
   /** Every adjustment paid this week, for closed weeks that changed after closing. */

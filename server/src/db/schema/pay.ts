@@ -47,12 +47,18 @@ export const payRules = sqliteTable(
   (t) => [uniqueIndex('pay_rules_effective_from_idx').on(t.effectiveFrom)],
 );
 
-/** A pay week closed by the owner, with the pay summary as it stood (figures and rates used). */
+/**
+ * A pay week closed by the owner, with the pay summary as it stood when first closed (figures and rates used):
+ * what payroll was given. Reopened and closed again, it keeps those figures, and any difference is carried to
+ * the next open week.
+ */
 export const payWeeks = sqliteTable('pay_weeks', {
   week: text('week').primaryKey(),
   closedAt: integer('closed_at', { mode: 'timestamp_ms' }),
   closedBy: integer('closed_by').references(() => users.id),
   snapshot: text('snapshot', { mode: 'json' }).$type<PayWeekSnapshot>(),
+  /** When `snapshot` was taken: the week's first close. */
+  paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
   reopenedAt: integer('reopened_at', { mode: 'timestamp_ms' }),
   reopenedBy: integer('reopened_by').references(() => users.id),
   reopenReason: text('reopen_reason'),

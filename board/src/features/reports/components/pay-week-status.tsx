@@ -50,8 +50,9 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
       }
       onClose={() => setReopening(false)}
     >
-      Its figures will be worked out again from the records, and punches and corrections dated in it are
-      accepted again until it is closed once more.
+      Punches and corrections dated in it are accepted again until it is closed once more. The figures it was
+      closed with stay what payroll was given: closed again, it pays only the difference, as an adjustment in
+      the next open pay week.
     </ReasonDialog>
   );
 
@@ -61,8 +62,11 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
       <MessageBarBody>
         <MessageBarTitle>Closed for pay</MessageBarTitle>
         {report.closedAt && `On ${when(report.closedAt, report.timeZone)}`}
-        {report.closedBy && ` by ${report.closedBy}`}. These are the figures saved then: nothing dated in this
-        week can change, and a line finished or changed later shows as an adjustment in the next open week.
+        {report.closedBy && ` by ${report.closedBy}`}
+        {report.firstClosedAt &&
+          `, again: it was first closed on ${when(report.firstClosedAt, report.timeZone)}, and those figures stay`}
+        . These are the figures saved then: nothing dated in this week can change, and a change since shows as
+        an adjustment in the next open week.
       </MessageBarBody>
       <MessageBarActions>
         <Button
@@ -77,6 +81,16 @@ export function PayWeekStatus({ report }: { report: PayReport }) {
     </MessageBar>
   ) : (
     <>
+      {report.firstClosedAt && (
+        <MessageBar intent="info" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>Reopened</MessageBarTitle>
+            First closed on {when(report.firstClosedAt, report.timeZone)}: payroll was given those figures.
+            These are worked out again from the records; closing the week again keeps the first figures and
+            pays the difference as an adjustment in the next open week.
+          </MessageBarBody>
+        </MessageBar>
+      )}
       {report.unresolvedExceptions > 0 && (
         <MessageBar intent="warning" layout="multiline">
           <MessageBarBody>
