@@ -29,7 +29,10 @@ export function AuditTrail({ card }: { card: Timecard }) {
         Changes to this card
       </Subtitle2>
       {card.audit.length === 0 ? (
-        <Caption1 className={styles.dim}>No corrections: every punch is as the technician made it.</Caption1>
+        <Caption1 className={styles.dim}>
+          No corrections on this card. A clock-off the office made by moving, holding or finishing a line
+          shows on its punch, with why.
+        </Caption1>
       ) : (
         <Table size="small" className={styles.table} aria-label="Changes to this card">
           <TableHeader>

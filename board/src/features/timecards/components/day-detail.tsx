@@ -100,7 +100,7 @@ function PunchWhat({ row, timeZone }: { row: PunchRow; timeZone: string }) {
         <Caption1 className={styles.note}>
           {row.replaces
             ? `Corrects ${PUNCH_WORDS[row.replaces.kind].toLowerCase()} at ${formatClock(row.replaces.at, timeZone)}`
-            : 'Added as a missed punch'}{' '}
+            : 'Recorded'}{' '}
           by {punch.recordedByName}, {formatDayClock(punch.recordedAt, timeZone)}: “{punch.reason}”
         </Caption1>
       )}
