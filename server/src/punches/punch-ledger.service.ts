@@ -5,7 +5,7 @@ import {
   PUNCH_WORDS,
   formatDayClockTime,
   inSentence,
-  jobOffsFor,
+  jobOffsWith,
   refusalAbout,
   MAX_PUNCH_CLOCK_SKEW_SECONDS,
   type DisplacedPunch,
@@ -64,12 +64,12 @@ export class PunchLedgerService {
   }
 
   /**
-   * `punch` with the job-offs it implies before it, at the same instant: a clock-on at the shop's
-   * jobs-at-once limit of its moment closes the oldest open line, on record, so a later change of the
-   * limit leaves the past as it was counted.
+   * `punch` with the job-offs it implies (`jobOffsWith`): a clock-on at the shop's jobs-at-once limit of
+   * its moment closes the oldest open line, on record, so a later change of the limit leaves the past as it
+   * was counted; one dated before later clock-ons is closed by them as the lines open then were.
    */
   withJobOffs(existing: readonly LedgerPunch[], punch: LedgerPunch): LedgerPunch[] {
-    const offs = jobOffsFor(existing, punch, this.shop.jobsAtOnceAt(new Date(punch.at)));
+    const offs = jobOffsWith(existing, punch, (at) => this.shop.jobsAtOnceAt(at));
     return [
       ...offs.map((off) => ({
         id: randomUUID(),

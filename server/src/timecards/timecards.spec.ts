@@ -125,6 +125,38 @@ describe(TimecardsService.name, () => {
     }
   });
 
+  // One job at a time: on line A from 25 min ago, switched to B 15 min ago. A missed clock-on onto C 20 min
+  // ago closes A then, and B's clock-on, on record, closes C: C counts 5 min, and only B is open.
+  it('closes a clock-on added in the past where the next clock-on on record switched lines', async () => {
+    const newcomer = await addTechnician('Dov Kessler', '3005');
+    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
+      queue: { jobLineId: number }[];
+    };
+    const [a, b, c] = board.queue.map((line) => line.jobLineId);
+    const at = (minutes: number) => new Date(Math.floor(Date.now() / 60_000) * 60_000 - minutes * 60_000);
+    const add = (body: object) => correct({ technicianId: newcomer.id, reason: 'Punched on paper', ...body });
+    await add({ kind: 'shift-in', at: at(30).toISOString() }).expect(201);
+    await add({ kind: 'job-on', jobLineId: a, at: at(25).toISOString() }).expect(201);
+    await add({ kind: 'job-on', jobLineId: b, at: at(15).toISOString() }).expect(201);
+    const missed = { kind: 'job-on', jobLineId: c, at: at(20).toISOString() };
+    const preview = await sut
+      .http()
+      .post('/api/timecards/corrections?preview=true')
+      .auth(owner, { type: 'bearer' })
+      .send({ technicianId: newcomer.id, reason: 'Punched on paper', ...missed })
+      .expect(200);
+    const displaces = (preview.body as { displaces: { id: string }[] }).displaces.map((p) => p.id);
+    await add({ ...missed, displaces }).expect(201);
+    const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    const { jobs } = await card(owner, `technicianId=${newcomer.id}&week=${workweekOf(at(0), settings)}`);
+    expect(jobs.map((job) => [job.jobLineId, job.from, job.open ? null : job.to])).toEqual([
+      [a, at(25).toISOString(), at(20).toISOString()],
+      [c, at(20).toISOString(), at(15).toISOString()],
+      [b, at(15).toISOString(), null],
+    ]);
+  });
+
   it('credits each of two lines worked at once with its share of the time they shared', async () => {
     const newcomer = await addTechnician('Cy Aldana', '3004');
     const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {

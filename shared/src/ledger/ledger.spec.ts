@@ -6,6 +6,7 @@ import {
   buildLedger,
   impliedJobOffs,
   jobOffsFor,
+  jobOffsWith,
   punchImpact,
   PUNCH_REFUSALS,
   technicianState,
@@ -247,6 +248,31 @@ describe(jobOffsFor.name, () => {
   it('implies none for any other punch, or a clock-on that does not fit', () => {
     expect(jobOffsFor(onOne, off(1, '10:00'), 1)).toEqual([]);
     expect(jobOffsFor([...onOne, pause('rest', '09:30')], on(2, '10:00'), 1)).toEqual([]);
+  });
+});
+
+describe(jobOffsWith.name, () => {
+  // On line 1 from 9:00, switched to line 2 at 10:00 with one job at a time (line 1's job-off on record).
+  const switched = () => [punch('shift-in', '08:00'), on(1, '09:00'), on(2, '10:00'), off(1, '10:00')];
+
+  it('closes a clock-on added in the past where the next clock-on on record closed the lines open then', () => {
+    const day = switched();
+    const added = on(3, '09:30');
+    const offs = jobOffsWith(day, added, () => 1);
+    expect(offs.map((o) => [o.jobLineId, o.at, o.causedBy])).toEqual([
+      [1, at('09:30'), added.id],
+      [3, at('10:00'), day[2]!.id],
+    ]);
+  });
+
+  it('holds each later clock-on to the limit of its own moment', () => {
+    // Two at a time until 9:45, one after: the 10:00 switch closes line 3 too; at two throughout, nothing.
+    const limitAt = (instant: Date) => (instant.getTime() < Date.parse(at('09:45')) ? 2 : 1);
+    const day = switched();
+    expect(jobOffsWith(day, on(3, '09:30'), limitAt).map((o) => [o.jobLineId, o.at])).toEqual([
+      [3, at('10:00')],
+    ]);
+    expect(jobOffsWith(day, on(3, '09:30'), () => 2)).toEqual([]);
   });
 });
 

@@ -252,6 +252,44 @@ export function jobOffsFor(
   return implied;
 }
 
+/**
+ * The job-offs to record with `punch`, each clock-on held to the jobs-at-once limit of its moment: those
+ * `punch` implies (`jobOffsFor`), and for a clock-on dated before others on record, those each later
+ * clock-on implies once it is in, so a line opened in the past closes where the next clock-on closed the
+ * lines open then.
+ */
+export function jobOffsWith(
+  existing: readonly LedgerPunch[],
+  punch: LedgerPunch,
+  limitAt: (at: Date) => number,
+): ImpliedJobOff[] {
+  const offs = jobOffsFor(existing, punch, limitAt(new Date(punch.at)));
+  if (punch.kind !== 'job-on') return offs;
+  const asPunch = (off: ImpliedJobOff): LedgerPunch => ({
+    id: `${off.causedBy}:off:${off.jobLineId}`,
+    technicianId: punch.technicianId,
+    kind: 'job-off',
+    jobLineId: off.jobLineId,
+    breakKind: null,
+    at: off.at,
+    supersedes: null,
+  });
+  let list = [...existing, ...offs.map(asPunch), punch];
+  const later = effectivePunches(existing).filter(
+    (each) => each.kind === 'job-on' && Date.parse(each.at) > Date.parse(punch.at),
+  );
+  for (const clockOn of later) {
+    const more = jobOffsFor(
+      list.filter((each) => each.id !== clockOn.id),
+      clockOn,
+      limitAt(new Date(clockOn.at)),
+    );
+    offs.push(...more);
+    list = [...list, ...more.map(asPunch)];
+  }
+  return offs;
+}
+
 function readLedger(
   punches: readonly LedgerPunch[],
   now: Date,
