@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   addIsoWeeks,
+  firstWorkweekFrom,
   isoWeekOf,
   isoWeekSchema,
   parseIsoWeek,
@@ -179,5 +180,21 @@ describe(workweekName.name, () => {
     expect(workweekName('2026-W48', sundayStart)).toBe('Week of Sun, Nov 29');
     expect(workweekName('2026-W48', mondayStart)).toBe('Week of Mon, Nov 23');
     expect(workweekName('2026-W53', sundayStart, true)).toBe('Week of Sun, Jan 3, 2027');
+  });
+});
+
+describe(firstWorkweekFrom.name, () => {
+  // Wednesday Oct 14, 2026 falls in the Sunday-start week of Oct 11: a rate dated then first covers the week
+  // that begins Sunday Oct 18 (the 2026 calendar: Oct 1 was a Thursday).
+  it('gives the week that begins on the day, or else the next one to begin', () => {
+    expect(workweekName(firstWorkweekFrom('2026-10-14', sundayStart), sundayStart)).toBe(
+      'Week of Sun, Oct 18',
+    );
+    expect(workweekName(firstWorkweekFrom('2026-10-18', sundayStart), sundayStart)).toBe(
+      'Week of Sun, Oct 18',
+    );
+    expect(workweekName(firstWorkweekFrom('2026-10-19', mondayStart), mondayStart)).toBe(
+      'Week of Mon, Oct 19',
+    );
   });
 });

@@ -138,6 +138,15 @@ export function workweekOf(instant: Date, settings: WorkweekSettings): string {
   return instant < workweekBounds(label, settings).from ? addIsoWeeks(label, -1) : label;
 }
 
+/**
+ * The first workweek that begins on or after a local day ('YYYY-MM-DD'): the first a pay rate dated that day
+ * applies to, since a rate covers whole workweeks.
+ */
+export function firstWorkweekFrom(day: string, settings: WorkweekSettings): string {
+  const label = workweekOf(shopLocalInstant(day, '12:00', settings.timeZone), settings);
+  return workweekDays(label, settings)[0]!.day >= day ? label : addIsoWeeks(label, 1);
+}
+
 /** The local calendar day of an instant, 'YYYY-MM-DD'. */
 export const shopDayKey: (instant: Date, timeZone: string) => string = memoize(
   (instant, timeZone) => format(new TZDate(instant, timeZone), 'yyyy-MM-dd'),

@@ -21,7 +21,7 @@ export function Component() {
           <MessageBarBody>{formErrorText(shop.error)}</MessageBarBody>
         </MessageBar>
       ) : shop.data ? (
-        <UsersTable currentUserId={user.id} timeZone={shop.data.timeZone} />
+        <UsersTable currentUserId={user.id} shop={shop.data} />
       ) : (
         <Spinner label="Loading people…" />
       )}

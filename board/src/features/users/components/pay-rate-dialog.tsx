@@ -14,7 +14,15 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { PAY_TYPE_WORDS, type DatedPayRate, type UserDto } from '@baytime/shared';
+import {
+  PAY_TYPE_WORDS,
+  firstWorkweekFrom,
+  workweekDays,
+  workweekName,
+  type DatedPayRate,
+  type UserDto,
+  type WorkweekSettings,
+} from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 import { FormErrorBar } from '@/components/form-error-bar';
 import { formErrorText, formatMoney, type FieldErrors } from '@/lib/form-errors';
@@ -32,6 +40,17 @@ const useStyles = makeStyles({
   history: { margin: 0, paddingLeft: tokens.spacingHorizontalL },
   dim: { color: tokens.colorNeutralForeground3 },
 });
+
+/**
+ * "From 2026-10-18", or for a date inside a workweek, the week it first applies to: "From 2026-10-14, so from
+ * the Week of Sun, Oct 18".
+ */
+export function rateStartWords(effectiveFrom: string, shop: WorkweekSettings): string {
+  const first = firstWorkweekFrom(effectiveFrom, shop);
+  return workweekDays(first, shop)[0]!.day === effectiveFrom
+    ? `From ${effectiveFrom}`
+    : `From ${effectiveFrom}, so from the ${workweekName(first, shop, true)}`;
+}
 
 /** "Flat rate: $32.00 a flagged hour, $18.00 other time". */
 export function rateWords(rate: Omit<DatedPayRate, 'effectiveFrom' | 'recordedAt'>): string {
@@ -52,10 +71,13 @@ export function rateWords(rate: Omit<DatedPayRate, 'effectiveFrom' | 'recordedAt
 export function PayRateDialog({
   open,
   user,
+  shop,
   onClose,
 }: {
   open: boolean;
   user: UserDto;
+  /** Where the shop's workweeks fall: a rate covers whole ones. */
+  shop: WorkweekSettings;
   onClose: () => void;
 }) {
   const styles = useStyles();
@@ -113,12 +135,17 @@ export function PayRateDialog({
                     onChange={(_, data) => setEffectiveFrom(data.value)}
                   />
                 </Field>
+                {effectiveFrom && (
+                  <Caption1 className={styles.dim} role="status">
+                    Applies from the {workweekName(firstWorkweekFrom(effectiveFrom, shop), shop, true)}.
+                  </Caption1>
+                )}
               </div>
               <Subtitle2 as="h3">Rates on record</Subtitle2>
               <ul className={styles.history}>
                 {user.payRates.map((rate) => (
                   <li key={rate.effectiveFrom}>
-                    From {rate.effectiveFrom}: {rateWords(rate)}
+                    {rateStartWords(rate.effectiveFrom, shop)}: {rateWords(rate)}
                   </li>
                 ))}
               </ul>

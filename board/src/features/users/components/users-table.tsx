@@ -15,13 +15,20 @@ import {
   makeStyles,
   tokens,
 } from '@fluentui/react-components';
-import { DEVICE_ROLES, type DatedPayRate, type PersonRole, type Role, type UserDto } from '@baytime/shared';
+import {
+  DEVICE_ROLES,
+  type DatedPayRate,
+  type PersonRole,
+  type Role,
+  type UserDto,
+  type WorkweekSettings,
+} from '@baytime/shared';
 import { formErrorText } from '@/lib/form-errors';
 import { useUsers } from '@/lib/api/get-users';
 import { useUpdateUser } from '../api/update-user';
 import { ROLE_LABELS, rateToCome, refusalAbout } from '../user-form';
 import { EditUserDialog } from './edit-user-dialog';
-import { PayRateDialog, rateWords } from './pay-rate-dialog';
+import { PayRateDialog, rateStartWords, rateWords } from './pay-rate-dialog';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -33,12 +40,12 @@ const useStyles = makeStyles({
   dim: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
 
-function RateToCome({ rate }: { rate: DatedPayRate | null }) {
+function RateToCome({ rate, shop }: { rate: DatedPayRate | null; shop: WorkweekSettings }) {
   const styles = useStyles();
   if (!rate) return null;
   return (
     <Caption1 className={styles.dim}>
-      From {rate.effectiveFrom}: {rateWords(rate)}
+      {rateStartWords(rate.effectiveFrom, shop)}: {rateWords(rate)}
     </Caption1>
   );
 }
@@ -82,7 +89,8 @@ function ActiveButton({ user, onError }: { user: UserDto; onError: (message: str
 }
 
 /** `currentUserId`: the signed-in owner, who cannot deactivate themself here. */
-export function UsersTable({ currentUserId, timeZone }: { currentUserId?: number; timeZone: string }) {
+export function UsersTable({ currentUserId, shop }: { currentUserId?: number; shop: WorkweekSettings }) {
+  const { timeZone } = shop;
   const styles = useStyles();
   const users = useUsers();
   const [error, setError] = useState<string | null>(null);
@@ -138,7 +146,7 @@ export function UsersTable({ currentUserId, timeZone }: { currentUserId?: number
                   <TableCell>{tech ? user.skillLevel : '—'}</TableCell>
                   <TableCell className={styles.numeric}>
                     {tech ? rateWords(user) : '—'}
-                    {tech && <RateToCome rate={rateToCome(user, now, timeZone)} />}
+                    {tech && <RateToCome rate={rateToCome(user, now, timeZone)} shop={shop} />}
                   </TableCell>
                   <TableCell>
                     <Badge appearance="tint" color={user.active ? 'brand' : 'subtle'}>
@@ -180,6 +188,7 @@ export function UsersTable({ currentUserId, timeZone }: { currentUserId?: number
           key={paying.n}
           open={paying.shown}
           user={paying.user}
+          shop={shop}
           onClose={() => setPaying({ ...paying, shown: false })}
         />
       )}
