@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest';
 import {
   BAY_STATE_WORDS,
   CONNECTION_WORDS,
@@ -126,6 +126,30 @@ describe('wall board', () => {
     await page.close();
   });
 
+  /** A warm-up on two readings: an estimate on thin evidence, which the wall shows as "about". */
+  async function roughWarmUp(): Promise<{ bayName: string; stop: () => Promise<unknown> }> {
+    const { token, day } = await technicianDay(server, '1041');
+    const line = day.lines.find((each) => each.bayName !== null)!;
+    const as = (path: string, body: object) =>
+      fetch(`${server.url}/api${path}`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', authorization: `Bearer ${token}` },
+        body: JSON.stringify(body),
+      }).then(async (response) => {
+        expect(response.ok, await response.clone().text()).toBe(true);
+        return (await response.json()) as { id: number };
+      });
+    const timer = await as('/timers', {
+      jobLineId: line.id,
+      kind: 'warm-up',
+      targetC: 45,
+      cautionAcknowledged: true,
+    });
+    await as(`/timers/${timer.id}/readings`, { tempC: 30, at: new Date(Date.now() - 50_000).toISOString() });
+    await as(`/timers/${timer.id}/readings`, { tempC: 34 });
+    return { bayName: line.bayName!, stop: () => as(`/timers/${timer.id}/stop`, {}) };
+  }
+
   it.each([
     [8, 1920, 1080],
     [8, 3840, 2160],
@@ -138,8 +162,22 @@ describe('wall board', () => {
       for (let n = existing + 1; n <= bays; n++) await owner('POST', '/bays', { name: `Bay ${n}` });
       const page = await browser.newPage();
       await page.setViewportSize({ width, height });
+      const warmUp = await roughWarmUp();
+      onTestFinished(() => warmUp.stop());
       await openWall(page, server);
       await page.waitForTimeout(500);
+      // The countdown is the one fact a timer tile is there for: "about 3:43 left" once showed "about 3…".
+      const countdown = bayTile(page, warmUp.bayName)
+        .locator('span', { hasText: /\d:\d\d/ })
+        .first();
+      await countdown.waitFor({ timeout: 5000 });
+      expect(
+        await countdown.evaluate((line) => ({
+          figures: /\d+:\d\d/.test(line.textContent ?? ''),
+          cut: line.scrollWidth > line.clientWidth + 1,
+          shortened: line.hasAttribute('data-shortened'),
+        })),
+      ).toEqual({ figures: true, cut: false, shortened: false });
       await assertLegibleAndStill(page, height, bays <= 8 ? PREFERRED_CAP_AT_1080P : MIN_CAP_AT_1080P);
       await page.screenshot({ path: screenshotPath(`wall-${bays}-bays-${width}x${height}`) });
       await page.close();

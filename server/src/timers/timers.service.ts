@@ -17,7 +17,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { foundOrFail, referencedOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
 import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
-import { holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
+import { bays, holdPresets, jobLines, timerReadings, timers } from '../db/schema/index.js';
 import { keepServing } from '../common/keep-serving.js';
 import { FloorService } from '../floor/floor.service.js';
 import { LineAccessService } from '../floor/line-access.service.js';
@@ -91,7 +91,7 @@ export class TimersService {
       'job line',
     );
     this.access.assertMayWork(line, actor, now);
-    if (body.bayId !== undefined) referencedBay(this.db, body.bayId);
+    if (body.bayId !== undefined) this.assertLineInBay(line, referencedBay(this.db, body.bayId));
     if (!isOpenLine(line))
       throw new ConflictException(`That line is ${inSentence(JOB_LINE_STATUS_WORDS[line.status])}`);
     const busy = this.db
@@ -199,6 +199,17 @@ export class TimersService {
       this.db.update(timers).set({ reachedAt: endedAt }).where(eq(timers.id, timer.id)).run();
       this.announce(timer.id, timer.bayId, now);
     }
+  }
+
+  /** A timer shows on the wall in its bay's tile: in another car's bay it would hide that bay's own state. */
+  private assertLineInBay(line: typeof jobLines.$inferSelect, bay: typeof bays.$inferSelect): void {
+    if (line.bayId === bay.id) return;
+    if (line.bayId === null)
+      throw new ConflictException(
+        `That line is in no bay yet: put it in ${bay.name} first, then start its timer`,
+      );
+    const lineBay = this.db.select({ name: bays.name }).from(bays).where(eq(bays.id, line.bayId)).get();
+    throw new ConflictException(`That line is in ${lineBay?.name ?? 'another bay'}: start its timer there`);
   }
 
   /** A timer belongs to its line: whoever may work the line may read into it and stop it. */

@@ -55,6 +55,16 @@ describe(TimersService.name, () => {
       expect(refused.body.message).toBe(
         'Put the line in a bay first: the wall shows a running engine by its bay',
       );
+      const elsewhere = (await board()).bays.find((bay) => bay.timer === null)!;
+      const inABay = await post('/api/timers', {
+        jobLineId: waiting.id,
+        bayId: elsewhere.id,
+        kind: 'set-time',
+        durationSeconds: 600,
+      }).expect(409);
+      expect(inABay.body.message).toBe(
+        `That line is in no bay yet: put it in ${elsewhere.name} first, then start its timer`,
+      );
       const held = await post('/api/timers', {
         jobLineId: waiting.id,
         kind: 'set-time',
@@ -68,6 +78,26 @@ describe(TimersService.name, () => {
         .auth(foreman, { type: 'bearer' })
         .send({ technicianId: null })
         .expect(200);
+    });
+
+    it("refuses a timer in another car's bay, which the wall would show instead of that bay's own state", async () => {
+      const line = (
+        (await sut.http().get('/api/me/day').auth(dana.accessToken, { type: 'bearer' })).body as MyDay
+      ).lines.find((each) => each.bayName !== null)!;
+      const before = await board();
+      const otherCars = before.bays.find((bay) => bay.name !== line.bayName && bay.timer === null)!;
+      for (const timer of [
+        { kind: 'set-time', durationSeconds: 600 },
+        { kind: 'warm-up', targetC: 45, cautionAcknowledged: true },
+      ]) {
+        const refused = await post('/api/timers', { jobLineId: line.id, bayId: otherCars.id, ...timer });
+        expect(refused.status).toBe(409);
+        expect(refused.body.message).toBe(`That line is in ${line.bayName}: start its timer there`);
+      }
+      expect((await board()).bays.find((bay) => bay.id === otherCars.id)).toMatchObject({
+        state: otherCars.state,
+        timer: null,
+      });
     });
 
     it('runs a warm-up: readings give an ETA on the wall, which survives a restart, and 45 °C reaches it', async () => {

@@ -170,6 +170,37 @@ describe(bayFacts.name, () => {
     ).toBe('2:05:00');
   });
 
+  it('keeps a rough countdown whole on a narrow tile: the words go, the figures stay', () => {
+    const warmUp = (etaAt: string) =>
+      bay({
+        state: 'timer',
+        timer: {
+          id: 4,
+          kind: 'warm-up',
+          startedAt: '2026-03-02T14:55:00Z',
+          targetC: 45,
+          lastReadingC: 33,
+          endsAt: null,
+          etaAt,
+          reached: false,
+          note: null,
+          status: 'estimating',
+          confidence: 'low',
+        },
+      });
+    const told = (lineChars: number, etaAt = '2026-03-02T15:03:43Z') => {
+      const facts = bayFacts({ bay: warmUp(etaAt), clockedSeconds: 0, nowMs: now, lineChars });
+      const countdown = facts[0]!;
+      // The tile shortens a big countdown only when it is wider than the line (pickLines counts it as one).
+      return [countdown.text, countdown.suffix, facts.find((fact) => fact.key === 'timer-kind')?.text];
+    };
+    expect(told(40)).toEqual(['about 3:43', 'left', 'Warm-up']);
+    // Eight bays at 1920x1080 give a tile line 11 body characters: "about 3:43 left" was cut to "about 3…".
+    expect(told(11)).toEqual(['3:43', 'left', 'Warm-up estimate']);
+    expect(told(9)).toEqual(['3:43', undefined, 'Warm-up estimate']);
+    expect(told(9, '2026-03-02T16:04:05Z')).toEqual(['1:04:05', undefined, 'Warm-up estimate']);
+  });
+
   it('tells a free bay nothing more', () => {
     expect(bayFacts({ bay: bay({ state: 'free' }), clockedSeconds: 0, nowMs: now })).toEqual([]);
   });

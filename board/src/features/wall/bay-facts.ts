@@ -11,6 +11,7 @@ import {
 } from '@baytime/shared';
 import { secondsSince, secondsUntil } from './server-clock';
 import { formatTimeOfDay } from './board-time';
+import { BODY_UNITS, TILE_METRICS } from './wall-layout';
 
 /** One short line a tile can show under the bay's name and state. */
 export interface BayFact {
@@ -80,8 +81,25 @@ export function wallVehicle(vehicle: string | null): string | null {
   return words.slice(year ? 1 : 0).join(' ') || null;
 }
 
-/** The timer's headline: time left when known, otherwise a word for why it is not. */
-export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
+/**
+ * A big countdown's width in body characters of `lineChars` (0.47 em at body size): the big line is
+ * 10 units of bold to the body's 7.4, with figures of about 0.52 em, the colon 0.26 and letters 0.55
+ * (Barlow Semi Condensed Bold, rounded up from chromium's widths).
+ */
+function bigChars(text: string): number {
+  const ems = [...text].reduce((sum, char) => sum + (/\d/.test(char) ? 0.52 : char === ':' ? 0.26 : 0.55), 0);
+  return (ems * TILE_METRICS.bigLine) / (BODY_UNITS * 0.47);
+}
+
+/** " left" after a big countdown, in body characters. */
+const LEFT_CHARS = ' left'.length;
+
+/**
+ * The timer's headline: time left when known, otherwise a word for why it is not. The time left is
+ * what the tile is there for, so on a line too short for "about 3:43 left" the words go, never the
+ * figures: "about" first (the kind line says it is an estimate then), then "left".
+ */
+export function countdownFact(timer: BoardTimer, nowMs: number, lineChars = Infinity): BayFact {
   if (timer.reached || timer.status === 'reached')
     return { key: 'countdown', text: TIMER_STATE_WORDS.reached, keep: true };
   if (timer.status === 'done') return { key: 'countdown', text: TIMER_STATE_WORDS.done, keep: true };
@@ -101,15 +119,17 @@ export function countdownFact(timer: BoardTimer, nowMs: number): BayFact {
       ...(timer.status === 'beyond-asymptote' && { tone: 'caution' as const }),
     };
   if (left === 0) return { key: 'countdown', text: 'Due now', keep: true, tone: 'big' };
-  // A temperature estimate on thin evidence is shown as approximate.
   const countdown = formatCountdown(left);
-  return {
-    key: 'countdown',
-    text: timer.kind !== 'set-time' && timer.confidence === 'low' ? aboutWords(countdown) : countdown,
-    keep: true,
-    tone: 'big',
-    suffix: 'left',
-  };
+  const big = { key: 'countdown', keep: true, tone: 'big' } as const;
+  // A temperature estimate on thin evidence is shown as approximate.
+  if (isRough(timer) && bigChars(aboutWords(countdown)) + LEFT_CHARS <= lineChars)
+    return { ...big, text: aboutWords(countdown), suffix: 'left' };
+  if (bigChars(countdown) + LEFT_CHARS <= lineChars) return { ...big, text: countdown, suffix: 'left' };
+  return { ...big, text: countdown };
+}
+
+function isRough(timer: BoardTimer): boolean {
+  return timer.kind !== 'set-time' && timer.confidence === 'low';
 }
 
 /**
@@ -223,8 +243,12 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
     case 'timer': {
       const timer = bay.timer;
       if (timer) {
-        add(countdownFact(timer, nowMs));
-        add({ key: 'timer-kind', text: TIMER_KIND_LABELS[timer.kind], keep: false });
+        const countdown = countdownFact(timer, nowMs, lineChars);
+        add(countdown);
+        const roughAndUnsaid =
+          isRough(timer) && countdown.tone === 'big' && !countdown.text.startsWith(aboutWords(''));
+        const kind = TIMER_KIND_LABELS[timer.kind];
+        add({ key: 'timer-kind', text: roughAndUnsaid ? `${kind} estimate` : kind, keep: false });
         add(timer.note ? { key: 'timer-note', text: timer.note, keep: false } : null);
         if (timer.targetC !== null) {
           const target = `${Math.round(timer.targetC)}°C`;
