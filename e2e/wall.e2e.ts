@@ -127,7 +127,7 @@ describe('wall board', () => {
   });
 
   /** A warm-up on two readings: an estimate on thin evidence, which the wall shows as "about". */
-  async function roughWarmUp(): Promise<{ bayName: string; stop: () => Promise<unknown> }> {
+  async function roughWarmUp(): Promise<{ bayName: string; stop: () => Promise<void> }> {
     const { token, day } = await technicianDay(server, '1041');
     const line = day.lines.find((each) => each.bayName !== null)!;
     const as = (path: string, body: object) =>
@@ -147,7 +147,12 @@ describe('wall board', () => {
     });
     await as(`/timers/${timer.id}/readings`, { tempC: 30, at: new Date(Date.now() - 50_000).toISOString() });
     await as(`/timers/${timer.id}/readings`, { tempC: 34 });
-    return { bayName: line.bayName!, stop: () => as(`/timers/${timer.id}/stop`, {}) };
+    return {
+      bayName: line.bayName!,
+      stop: async () => {
+        await as(`/timers/${timer.id}/stop`, {});
+      },
+    };
   }
 
   it.each([
