@@ -14,6 +14,7 @@ import { useShop } from '@/features/shop/api/get-shop';
 import { projectDay, type DayLine, type PendingPunch } from '@/features/my-day/project-day';
 import { statusText } from '@/features/my-day/status-text';
 import { partsInNotices, partsWaitText } from '@/features/my-day/parts-words';
+import { useFindingAnswerNotices } from '@/features/my-day/hooks/use-finding-answer-notices';
 import { StatusLine } from '@/features/my-day/components/status-line';
 import { ShiftActions } from '@/features/my-day/components/shift-actions';
 import { JobLineList, lineContext } from '@/features/my-day/components/job-line-list';
@@ -60,6 +61,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const now = useNow(1000);
   const queryClient = useQueryClient();
   const [sheet, setSheet] = useState<OpenSheet | null>(null);
+  const answerNotices = useFindingAnswerNotices(day.data?.lines);
 
   usePreload(PRELOADS);
 
@@ -92,7 +94,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
   const view = projectDay(day.data, pending, day.dataUpdatedAt, split);
   const text = statusText(view, now, timeZone, split);
   const open = view.lines.filter((l) => l.status !== 'done').length;
-  const partsIn = partsInNotices(view.lines);
+  const partsIn = [...partsInNotices(view.lines), ...answerNotices];
 
   const timerByLine = new Map<number, TimerDto>();
   for (const timer of timers.data ?? []) if (timer.endedAt === null) timerByLine.set(timer.jobLineId, timer);

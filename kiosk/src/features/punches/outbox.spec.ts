@@ -92,7 +92,10 @@ describe('createOutbox', () => {
   it('keeps a large queue in order across a reload, changes included', async () => {
     const { store } = idbStore();
     const sut = await newOutbox(store);
-    const taps = Array.from({ length: 600 }, (_, i) => punch(7 + (i % 3)));
+    // Each batch differs from the one before: a repeated tap would be dropped as a double tap.
+    const taps = Array.from({ length: 600 }, (_, i) =>
+      punch(7 + (i % 3), Math.floor(i / 50) % 2 ? 'shift-out' : 'shift-in'),
+    );
     for (let i = 0; i < taps.length; i += 50) await sut.add(taps.slice(i, i + 50), i);
     sut.remove(taps[0]!.punch.id);
     sut.update(taps[1]!.punch.id, { attempts: 4, lastError: 'No connection' });
@@ -101,6 +104,52 @@ describe('createOutbox', () => {
     const again = await newOutbox(store);
     expect(again.list().map((e) => e.punch.id)).toEqual(taps.slice(1).map((t) => t.punch.id));
     expect(again.list()[0]).toMatchObject({ attempts: 4, lastError: 'No connection' });
+  });
+
+  it('drops a double tap: the same punch again while the first is being written or still queued', async () => {
+    const sut = await newOutbox();
+    const onLine = () => {
+      const entry = punch(7, 'job-on');
+      return { ...entry, punch: { ...entry.punch, jobLineId: 31 } };
+    };
+    const first = onLine();
+    const bounce = onLine();
+    // The bounce comes while the first tap's write is still under way.
+    const [a, b] = await Promise.all([sut.add([first], 1_000), sut.add([bounce], 1_100)]);
+    expect([a, b]).toEqual([true, false]);
+    expect(sut.list().map((e) => e.punch.id)).toEqual([first.punch.id]);
+
+    expect(await sut.add([onLine()], 60_000)).toBe(false);
+  });
+
+  it('drops the same tap just after the first went out, but not a repeat well after it', async () => {
+    const sut = await newOutbox();
+    const first = punch(7, 'shift-in');
+    await sut.add([first], 1_000);
+    sut.remove(first.punch.id);
+    expect(await sut.add([punch(7, 'shift-in')], 1_000 + 500)).toBe(false);
+    expect(await sut.add([punch(7, 'shift-in')], 1_000 + 5_000)).toBe(true);
+  });
+
+  it('queues the same punch for another technician, and a different punch at once', async () => {
+    const sut = await newOutbox();
+    await sut.add([punch(7, 'shift-in')], 1_000);
+    expect(await sut.add([punch(8, 'shift-in')], 1_050)).toBe(true);
+    expect(await sut.add([punch(7, 'break-start')], 1_100)).toBe(true);
+    expect(sut.list()).toHaveLength(3);
+  });
+
+  it('takes the same tap again after a write the store refused', async () => {
+    const { store } = idbStore();
+    let refuse = true;
+    const flaky: OutboxStore = {
+      ...store,
+      put: (entries) => (refuse ? Promise.reject(new Error('QuotaExceededError')) : store.put(entries)),
+    };
+    const sut = await newOutbox(flaky);
+    await expect(sut.add([punch(7, 'shift-in')], 1_000)).rejects.toThrow('QuotaExceededError');
+    refuse = false;
+    expect(await sut.add([punch(7, 'shift-in')], 1_100)).toBe(true);
   });
 
   it('queues nothing and rejects when IndexedDB refuses the write', async () => {

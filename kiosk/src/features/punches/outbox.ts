@@ -80,8 +80,12 @@ export interface Outbox {
   ready: Promise<void>;
   /** Oldest first. The same array until the outbox changes. */
   list(): readonly OutboxEntry[];
-  /** Writes to the store first; rejects when the store refuses, and then nothing was queued. */
-  add(entries: readonly NewOutboxEntry[], now: number): Promise<void>;
+  /**
+   * Writes to the store first; rejects when the store refuses, and then nothing was queued. A tap
+   * that repeats the technician's previous tap while that one is still queued, being written, or
+   * went out less than `REPEAT_TAP_MS` ago is dropped: resolves false.
+   */
+  add(entries: readonly NewOutboxEntry[], now: number): Promise<boolean>;
   remove(punchId: string): void;
   update(punchId: string, changes: Partial<Omit<OutboxEntry, 'punch'>>): void;
   /** A technician signed in again: their waiting punches get the new token and may go. */
@@ -133,6 +137,18 @@ function legacyEntries(storage: StorageLike | null, key: string): OutboxEntry[] 
   }
 }
 
+/** A double tap's second tap comes well inside this; a deliberate repeat after it reaches the server. */
+export const REPEAT_TAP_MS = 2_000;
+
+/** What a tap asks for, without its ids and times: two taps of the same button give the same. */
+const tapSignature = (entries: readonly NewOutboxEntry[]) =>
+  entries
+    .map(
+      ({ punch }) =>
+        `${punch.kind}/${punch.jobLineId ?? ''}/${punch.breakKind ?? ''}/${punch.sealed ? 'sealed' : ''}`,
+    )
+    .join(',');
+
 export function createOutbox(
   store: OutboxStore,
   legacy: StorageLike | null = null,
@@ -141,6 +157,8 @@ export function createOutbox(
   const listeners = new Set<() => void>();
   let cache: readonly OutboxEntry[] = [];
   let nextSeq = 0;
+  // Each technician's last tap, taken before its write so a bounce during the write is seen.
+  const lastTap = new Map<number, { signature: string; ids: readonly string[]; at: number }>();
   // Writes reach the store one after another, in the order they were made.
   let writing: Promise<void> = Promise.resolve();
   const persist = (write: () => Promise<void>) => {
@@ -191,6 +209,23 @@ export function createOutbox(
     ready,
     list: () => cache,
     async add(entries, now) {
+      const technicianId = entries[0]?.technicianId;
+      const tap =
+        technicianId === undefined
+          ? null
+          : { signature: tapSignature(entries), ids: entries.map((e) => e.punch.id), at: now };
+      if (tap && technicianId !== undefined) {
+        const last = lastTap.get(technicianId);
+        const lastQueued = last?.ids.some((id) => cache.some((entry) => entry.punch.id === id)) ?? false;
+        if (
+          last &&
+          last.signature === tap.signature &&
+          !last.ids.includes(tap.ids[0]!) &&
+          (lastQueued || now - last.at < REPEAT_TAP_MS)
+        )
+          return false;
+        lastTap.set(technicianId, tap);
+      }
       await ready;
       const known = new Set(cache.map((entry) => entry.punch.id));
       const fresh = entries
@@ -204,9 +239,17 @@ export function createOutbox(
           lastError: null,
           waitingForSignIn: false,
         }));
-      if (fresh.length === 0) return;
-      await persist(() => store.put(fresh));
+      if (fresh.length === 0) return true;
+      try {
+        await persist(() => store.put(fresh));
+      } catch (error) {
+        // Nothing was queued: the same tap again is a retry, not a repeat.
+        if (tap && technicianId !== undefined && lastTap.get(technicianId) === tap)
+          lastTap.delete(technicianId);
+        throw error;
+      }
       set([...cache, ...fresh]);
+      return true;
     },
     remove(punchId) {
       const next = cache.filter((entry) => entry.punch.id !== punchId);

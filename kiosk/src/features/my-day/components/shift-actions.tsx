@@ -1,4 +1,4 @@
-import { useEffect, useState, type ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import {
   PUNCH_WORDS,
   inSentence,
@@ -9,6 +9,7 @@ import {
 } from '@baytime/shared';
 import { CupIcon, DoorInIcon, DoorOutIcon, MealIcon, PlayIcon } from '@/components/icons';
 import { Sheet } from '@/components/sheet';
+import { useTapConfirm } from '@/hooks/use-tap-confirm';
 import type { DayLine, DayView } from '../project-day';
 
 export interface ShiftPunch {
@@ -31,8 +32,6 @@ export interface ShiftActionsProps {
   runningTimers?: readonly RunningTimer[];
   onStopTimers?: (timerIds: number[]) => void;
 }
-
-const CONFIRM_MS = 4000;
 
 /** Clocks off every running line first: job time stops when the shift or a break starts. */
 export function clockOffAll(lines: readonly DayLine[]): ShiftPunch[] {
@@ -64,16 +63,11 @@ const LEAVING: Record<Leaving, { during: string; stop: string; again: string; ic
 
 /** Shift and break buttons, only those that make sense now. */
 export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }: ShiftActionsProps) {
-  const [confirmingEnd, setConfirmingEnd] = useState(false);
+  const confirmEnd = useTapConfirm();
+  const confirmingEnd = confirmEnd.armed;
   // The timers as they were when asked: one that finishes meanwhile is still named, and stopped if asked.
   const [asking, setAsking] = useState<{ leaving: Leaving; timers: readonly RunningTimer[] } | null>(null);
   const { status, breakKind } = view.shift;
-
-  useEffect(() => {
-    if (!confirmingEnd) return;
-    const timer = setTimeout(() => setConfirmingEnd(false), CONFIRM_MS);
-    return () => clearTimeout(timer);
-  }, [confirmingEnd]);
 
   if (status === 'off') {
     return (
@@ -112,9 +106,7 @@ export function ShiftActions({ view, onPunch, runningTimers = [], onStopTimers }
   const endShift = () => {
     // The question about the timers is the confirmation: no second tap before it.
     if (runningTimers.length > 0) return askFirst('shift-out');
-    if (!confirmingEnd) return setConfirmingEnd(true);
-    setConfirmingEnd(false);
-    leave('shift-out');
+    if (confirmEnd.tap()) leave('shift-out');
   };
   const endShiftButton = (
     <button

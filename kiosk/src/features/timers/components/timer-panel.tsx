@@ -1,7 +1,7 @@
-import { useEffect, useState } from 'react';
 import type { TimerDto, UnitSystem } from '@baytime/shared';
 import { CheckIcon, HourglassIcon, SnowIcon, StopIcon, ThermometerIcon } from '@/components/icons';
 import { useNow } from '@/hooks/use-now';
+import { useTapConfirm } from '@/hooks/use-tap-confirm';
 import { commandProblem } from '@/lib/commands';
 import { describeTimer } from '../timer-status';
 import { useStopTimer } from '../api/stop-timer';
@@ -17,26 +17,20 @@ export interface TimerPanelProps {
 }
 
 const KIND_ICONS = { 'warm-up': ThermometerIcon, 'cool-down': SnowIcon, 'set-time': HourglassIcon } as const;
-const CONFIRM_MS = 4000;
 
 /** A running timer on its line card: what it waits for, how long still, and a big Log reading. */
 export function TimerPanel({ timer, fetchedAt, units, timeZone, onLogReading }: TimerPanelProps) {
   const now = useNow(1000);
   const stop = useStopTimer();
-  const [confirming, setConfirming] = useState(false);
+  const confirmStop = useTapConfirm();
+  const confirming = confirmStop.armed;
   const view = describeTimer(timer, { now, fetchedAt, units, timeZone });
   const Icon = view.finished ? CheckIcon : KIND_ICONS[timer.kind];
 
-  useEffect(() => {
-    if (!confirming) return;
-    const t = setTimeout(() => setConfirming(false), CONFIRM_MS);
-    return () => clearTimeout(t);
-  }, [confirming]);
-
   const onStop = () => {
     // A finished timer stops at one tap; a running one asks once more.
-    if (!view.finished && !confirming) return setConfirming(true);
-    setConfirming(false);
+    if (view.finished) confirmStop.reset();
+    else if (!confirmStop.tap()) return;
     stop.mutate(timer.id);
   };
 

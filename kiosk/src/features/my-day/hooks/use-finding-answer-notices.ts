@@ -1,0 +1,40 @@
+import { useEffect, useRef, useState } from 'react';
+import type { MyJobLine } from '@baytime/shared';
+import { onLive } from '@/lib/socket';
+import { findingAnswerNotice, linesAnswered, type FindingAnswer } from '../finding-answer-words';
+
+/** An answer heard this long before the day changed still explains the change. */
+const ANSWER_FRESH_MS = 60_000;
+
+/**
+ * Notices for lines the customer's answer released, kept while the line waits in the queue: the
+ * technician sees why a line held for approval is back, and what was answered.
+ */
+export function useFindingAnswerNotices(lines: readonly MyJobLine[] | undefined): string[] {
+  const lastAnswer = useRef<{ answer: FindingAnswer; at: number } | null>(null);
+  const previous = useRef<readonly MyJobLine[] | undefined>(undefined);
+  const [notices, setNotices] = useState<ReadonlyMap<number, string>>(new Map());
+
+  useEffect(
+    () => onLive('finding.answered', ({ answer }) => void (lastAnswer.current = { answer, at: Date.now() })),
+    [],
+  );
+
+  useEffect(() => {
+    const before = previous.current;
+    previous.current = lines;
+    if (!before || !lines) return;
+    const answered = linesAnswered(before, lines);
+    const heard = lastAnswer.current;
+    const answer = heard && Date.now() - heard.at < ANSWER_FRESH_MS ? heard.answer : null;
+    setNotices((current) => {
+      const next = new Map(
+        [...current].filter(([id]) => lines.some((line) => line.id === id && line.status === 'queued')),
+      );
+      for (const line of answered) next.set(line.id, findingAnswerNotice(line, answer));
+      return next.size === current.size && answered.length === 0 ? current : next;
+    });
+  }, [lines]);
+
+  return [...notices.values()];
+}
