@@ -1,6 +1,6 @@
 import type { BrowserContext } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page as ListPage, RepairOrderSummary } from '@baytime/shared';
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest';
+import type { JobLineDto, Page as ListPage, RepairOrderSummary } from '@baytime/shared';
 import { openBrowser, screenshotPath } from './support/browser.js';
 import { apiAs, signInAtOffice, type Api } from './support/floor.js';
 import { startServer, type RunningServer } from './support/server.js';
@@ -71,5 +71,59 @@ describe('the office list of repair orders', () => {
     expect(await numbers()).toEqual(found.items.map((order) => order.number));
     expect(new URL(page.url()).searchParams.get('q')).toBe(customer);
     await page.screenshot({ path: screenshotPath('repair-orders-search') });
+  });
+
+  it('leaves cancelled lines out of the book, keeps a change saved meanwhile, and reopens a done line', async () => {
+    const owner = await apiAs(server, 'owner@marlowcreek.test');
+    // 49 CFR 565.15 worked example: check digit X.
+    const ro = await owner<RepairOrderSummary>('POST', '/repair-orders', {
+      customer: { name: 'Perpetua Lindqvart' },
+      vehicle: { vin: '1M8GDM9AXKP042788', year: 2019, make: 'Tarrow', model: 'Kestrel', odometer: 40_210 },
+      concern: 'Wipers smear and the cabin filter is due',
+      lines: [
+        { title: 'Replace wiper blades', bookHours: 0.3 },
+        { title: 'Replace cabin air filter', bookHours: 1.1 },
+      ],
+    });
+    const [wipers, filter] = ro.lines;
+    await owner<JobLineDto>('PATCH', `/job-lines/${wipers!.id}`, { status: 'done' });
+    await owner<JobLineDto>('POST', `/job-lines/${filter!.id}/cancel`, {
+      reason: 'Customer fitted one at home',
+    });
+
+    // A browser of its own: the list's already holds the advisor's session.
+    const foremanDesk = await openBrowser({ width: 1600, height: 1000 });
+    onTestFinished(() => foremanDesk.close());
+    const page = await foremanDesk.newPage();
+    await signInAtOffice(page, server, 'foreman@marlowcreek.test');
+    await page.goto(`${server.url}/repair-orders/${ro.id}`);
+    await page.getByText('0.3 h book').waitFor();
+    await page.getByText(/1 of 1 lines done/).waitFor();
+
+    // The line is edited here while someone else changes its book hours: only the title is sent.
+    const row = page.getByRole('row', { name: /Replace wiper blades/ });
+    await row.getByRole('button', { name: 'Edit', exact: true }).click();
+    const edit = page.getByRole('dialog');
+    await owner<JobLineDto>('PATCH', `/job-lines/${wipers!.id}/details`, { bookHours: 0.5 });
+    await edit.getByLabel('Job').fill('Replace front wiper blades');
+    await edit.getByRole('button', { name: 'Save line' }).click();
+    await edit.waitFor({ state: 'detached' });
+    await expect
+      .poll(async () => (await owner<RepairOrderSummary>('GET', `/repair-orders/${ro.id}`)).lines[0])
+      .toMatchObject({ title: 'Replace front wiper blades', bookHours: 0.5 });
+
+    // A comeback: the done line goes back to the queue, after a confirmation.
+    await page
+      .getByRole('row', { name: /Replace front wiper blades/ })
+      .getByRole('button', { name: 'Reopen (comeback)…' })
+      .click();
+    const confirm = page.getByRole('dialog');
+    await confirm.getByText(/adjusted in the next open pay week/).waitFor();
+    await confirm.getByRole('button', { name: 'Reopen the line' }).click();
+    await confirm.waitFor({ state: 'detached' });
+    await page.getByText(/0 of 1 lines done/).waitFor();
+    const reopened = await owner<RepairOrderSummary>('GET', `/repair-orders/${ro.id}`);
+    expect(reopened.lines[0]).toMatchObject({ status: 'queued', completedAt: null });
+    expect(await page.getByRole('button', { name: 'Reopen (comeback)…' }).count()).toBe(0);
   });
 });

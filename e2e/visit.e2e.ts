@@ -113,6 +113,8 @@ describe('the whole visit, from intake to pick-up', () => {
     // A reading corrected below the vehicle's highest is saved once the advisor says why, as at intake.
     await advisor.getByRole('button', { name: 'Edit details' }).click();
     const edit = advisor.getByRole('dialog');
+    // Someone changes the phone while this dialog is open: saving the reading keeps their change.
+    await owner('PATCH', `/repair-orders/${roId}`, { customer: { phone: '(608) 555-0113' } });
     await edit.getByLabel('Odometer').fill('8810');
     await edit.getByRole('button', { name: 'Save changes' }).click();
     await edit
@@ -139,6 +141,7 @@ describe('the whole visit, from intake to pick-up', () => {
     expect(closed).toMatchObject({
       status: 'closed',
       odometer: 8810,
+      customerPhone: '+16085550113',
       lines: [
         {
           status: 'done',

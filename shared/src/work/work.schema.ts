@@ -275,6 +275,10 @@ export interface RepairOrderSummary {
   customerEmail: string | null;
   /** "2019 Halvard Tessel". */
   vehicle: string;
+  /** The parts of `vehicle`, for a correction. */
+  vehicleYear: number;
+  vehicleMake: string;
+  vehicleModel: string;
   vin: string;
   plate: string | null;
   odometer: number;

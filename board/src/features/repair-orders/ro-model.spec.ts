@@ -4,6 +4,9 @@ import type { RepairOrderSummary } from './api/get-repair-orders';
 import {
   DEFAULT_FILTERS,
   advisorChoices,
+  bookTotal,
+  changedFields,
+  linesDone,
   filtersFromParams,
   filtersToParams,
   listQuery,
@@ -53,6 +56,9 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     advisorId: null,
     advisorName: null,
     vehicle: '2019 Halvard Tessel',
+    vehicleYear: 2019,
+    vehicleMake: 'Halvard',
+    vehicleModel: 'Tessel',
     vin: '7HV3TS1K5KM100121',
     odometer: 81234,
     concern: 'Warning light on',
@@ -198,5 +204,54 @@ describe(lineRows.name, () => {
     expect(rows.map((r) => r.line.lineNo)).toEqual([1, 2]);
     expect(rows[0]).toMatchObject({ technician: 'Technician #99', clockedSeconds: 0 });
     expect(rows[1]?.clockedSeconds).toBe(4000);
+  });
+});
+
+describe('changedFields', () => {
+  const opened = {
+    customer: { name: 'Odile Farrant', phone: '+16085550177', email: null },
+    vehicle: { plate: 'KTW 4410', odometer: 52_100 },
+    concern: 'Squeal when cold',
+  };
+
+  it('sends only what was changed, so a field someone else saved meanwhile is left alone', () => {
+    const edited = {
+      customer: { name: 'Odile Farrant', phone: '+16085550177', email: null },
+      vehicle: { plate: 'KTW 4411', odometer: 52_100 },
+      concern: 'Squeal when cold, louder on the left',
+    };
+    expect(changedFields(opened, edited)).toEqual({
+      vehicle: { plate: 'KTW 4411' },
+      concern: 'Squeal when cold, louder on the left',
+    });
+  });
+
+  it('sends a value cleared to null, a number changed, and nothing when nothing changed', () => {
+    expect(changedFields(opened, { customer: { phone: null }, vehicle: { odometer: 52_300 } })).toEqual({
+      customer: { phone: null },
+      vehicle: { odometer: 52_300 },
+    });
+    expect(changedFields(opened, opened)).toEqual({});
+  });
+
+  it('takes a line: a title change leaves the book hours out', () => {
+    const line = { title: 'Rotate tyres', bookHours: 0.3, cause: null };
+    expect(changedFields(line, { ...line, title: 'Rotate and balance tyres' })).toEqual({
+      title: 'Rotate and balance tyres',
+    });
+  });
+});
+
+describe('book totals', () => {
+  const lines = [
+    jobLine({ bookHours: 1.1, status: 'cancelled' }),
+    jobLine({ bookHours: 0.8, status: 'done' }),
+    jobLine({ bookHours: 0.5, status: 'queued' }),
+  ];
+
+  it('leaves a cancelled line out of the book and of the lines to do', () => {
+    expect(bookTotal(lines)).toBeCloseTo(1.3);
+    expect(linesDone(lines)).toEqual({ done: 1, of: 2 });
+    expect(bookTotal([jobLine({ bookHours: 1.1, status: 'cancelled' })])).toBe(0);
   });
 });

@@ -158,3 +158,37 @@ export function lineRows(
       };
     });
 }
+
+type Plain = Record<string, unknown>;
+const isPlain = (value: unknown): value is Plain =>
+  typeof value === 'object' && value !== null && !Array.isArray(value);
+const same = (a: unknown, b: unknown) => a === b || JSON.stringify(a) === JSON.stringify(b);
+
+/**
+ * What an edit dialog sends: only what differs from what it opened with, nested groups included.
+ * Sending the whole form would put back whatever someone else saved since the dialog was opened.
+ */
+export function changedFields<T extends Plain>(opened: Plain, edited: T): Partial<T> {
+  const changes: Plain = {};
+  for (const [key, value] of Object.entries(edited)) {
+    if (value === undefined) continue;
+    const before = opened[key];
+    if (isPlain(value) && isPlain(before)) {
+      const inner = changedFields(before, value);
+      if (Object.keys(inner).length > 0) changes[key] = inner;
+    } else if (!same(value, before)) changes[key] = value;
+  }
+  return changes as Partial<T>;
+}
+
+type CountedLine = Pick<JobLineDto, 'status' | 'bookHours'>;
+
+/** A cancelled line stays on the RO for its record but is never flagged, so it is no part of the book. */
+export const bookTotal = (lines: readonly CountedLine[]) =>
+  lines.reduce((sum, line) => (line.status === 'cancelled' ? sum : sum + line.bookHours), 0);
+
+/** "1 of 2 lines done", a cancelled line counting in neither. */
+export function linesDone(lines: readonly CountedLine[]): { done: number; of: number } {
+  const counted = lines.filter((line) => line.status !== 'cancelled');
+  return { done: counted.filter((line) => line.status === 'done').length, of: counted.length };
+}

@@ -7,6 +7,7 @@ import type {
   EditRepairOrderBody,
   JobLineDto,
   NoticesQueued,
+  PatchJobLineBody,
   RepairOrderSummary,
 } from '@baytime/shared';
 import { officeApi } from '@/lib/api-client';
@@ -52,6 +53,12 @@ export const useEditJobLine = (id: number) =>
 export const useCancelJobLine = (id: number) =>
   useRepairOrderChange(id, ({ lineId, body }: { lineId: number; body: CancelJobLineBody }) =>
     officeApi.post<JobLineDto>(`/job-lines/${lineId}/cancel`, body),
+  );
+
+/** A comeback: a finished line goes back to the queue, audited as opened again. */
+export const useReopenJobLine = (id: number) =>
+  useRepairOrderChange(id, (lineId: number) =>
+    officeApi.patch<JobLineDto>(`/job-lines/${lineId}`, { status: 'queued' } satisfies PatchJobLineBody),
   );
 
 export const useDeleteJobLine = (id: number) =>

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { Field, Input, Textarea } from '@fluentui/react-components';
 import {
   lineWithTitleWords,
@@ -8,9 +9,17 @@ import {
   parseDecimal,
   type JobLineDto,
 } from '@baytime/shared';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { FormDialog } from '@/components/form-dialog';
+import { formErrorText } from '@/lib/form-errors';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
-import { useAddJobLine, useCancelJobLine, useEditJobLine } from '../api/repair-order-changes';
+import {
+  useAddJobLine,
+  useCancelJobLine,
+  useEditJobLine,
+  useReopenJobLine,
+} from '../api/repair-order-changes';
+import { changedFields } from '../ro-model';
 
 /** Typed hours as a number when they read as one; the schema says what is wrong otherwise. */
 const asHours = (value: unknown) => (typeof value === 'string' ? (parseDecimal(value) ?? value) : value);
@@ -23,15 +32,14 @@ interface LineDialogProps {
 /** The advisor corrects a line: title, book hours and the three Cs. */
 export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps & { line: JobLineDto }) {
   const edit = useEditJobLine(repairOrderId);
-  const form = useSchemaForm(editJobLineSchema, {
-    defaultValues: {
-      title: line.title,
-      bookHours: line.bookHours,
-      concern: line.concern,
-      cause: line.cause ?? '',
-      correction: line.correction ?? '',
-    },
-  });
+  const [opened] = useState(() => ({
+    title: line.title,
+    bookHours: line.bookHours,
+    concern: line.concern,
+    cause: line.cause ?? '',
+    correction: line.correction ?? '',
+  }));
+  const form = useSchemaForm(editJobLineSchema, { defaultValues: opened });
   const { errors } = form.formState;
   return (
     <FormDialog
@@ -40,12 +48,14 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
       pending={edit.isPending}
       formError={errors.root?.server?.message}
       onClose={onClose}
-      onSubmit={form.handleSubmit((body) =>
+      onSubmit={form.handleSubmit((edited) => {
+        const body = changedFields(editJobLineSchema.safeParse(opened).data ?? {}, edited);
+        if (Object.keys(body).length === 0) return onClose();
         edit.mutate(
           { lineId: line.id, body },
           { onSuccess: onClose, onError: (error) => showServerErrors(form, error) },
-        ),
-      )}
+        );
+      })}
     >
       <Field label="Job" validationMessage={errors.title?.message}>
         <Input {...form.register('title')} />
@@ -123,5 +133,26 @@ export function CancelLineDialog({ repairOrderId, line, onClose }: LineDialogPro
         <Textarea rows={3} {...form.register('reason')} />
       </Field>
     </FormDialog>
+  );
+}
+
+/** A comeback: the finished line is worked again, and its flagged hours follow it. */
+export function ReopenLineDialog({ repairOrderId, line, onClose }: LineDialogProps & { line: JobLineDto }) {
+  const reopen = useReopenJobLine(repairOrderId);
+  return (
+    <ConfirmDialog
+      title={`Reopen ${lineWithTitleWords(line.lineNo, line.title)}?`}
+      confirmLabel="Reopen the line"
+      pendingLabel="Reopening…"
+      keepLabel="Keep it done"
+      pending={reopen.isPending}
+      error={reopen.error ? formErrorText(reopen.error) : null}
+      onConfirm={() => reopen.mutate(line.id, { onSuccess: onClose })}
+      onClose={onClose}
+    >
+      The line goes back to the dispatch queue as a comeback, to be assigned and worked again, and the history
+      records it as opened again. Its book hours are no longer flagged as done; any already paid for a closed
+      pay week are adjusted in the next open pay week.
+    </ConfirmDialog>
   );
 }

@@ -31,7 +31,7 @@ import { useRepairOrder } from '../api/get-repair-order';
 import { useRepairOrderFindings } from '../api/get-findings';
 import { useDispatch } from '@/lib/api/get-dispatch';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { lineNotes, lineRows } from '../ro-model';
+import { bookTotal, lineNotes, lineRows, linesDone } from '../ro-model';
 import { useRepairOrderHistory } from '../api/get-history';
 import {
   useCloseRepairOrder,
@@ -41,7 +41,7 @@ import {
   useSendReadyNotice,
 } from '../api/repair-order-changes';
 import { EditRepairOrderDialog } from './edit-repair-order-dialog';
-import { AddLineDialog, CancelLineDialog, EditLineDialog } from './line-dialogs';
+import { AddLineDialog, CancelLineDialog, EditLineDialog, ReopenLineDialog } from './line-dialogs';
 import { RepairOrderPrint } from './repair-order-print';
 import {
   BAY_STATE_WORDS,
@@ -125,7 +125,7 @@ const useStyles = makeStyles({
 });
 
 type LineDialog =
-  | { kind: 'edit' | 'cancel'; line: RepairOrderSummary['lines'][number] }
+  | { kind: 'edit' | 'cancel' | 'reopen'; line: RepairOrderSummary['lines'][number] }
   | { kind: 'add' }
   | { kind: 'edit-ro' };
 
@@ -231,7 +231,8 @@ function Detail({
     [ids[index], ids[index + by]] = [ids[index + by]!, ids[index]!];
     reorder.mutate(ids);
   };
-  const bookTotal = ro.lines.reduce((sum, line) => sum + line.bookHours, 0);
+  const book = bookTotal(ro.lines);
+  const progress = linesDone(ro.lines);
   const clockedTotal = rows.reduce((sum, row) => sum + row.clockedSeconds, 0);
 
   return (
@@ -310,9 +311,9 @@ function Detail({
           </Caption1>
         </Fact>
         <Fact label="Labour">
-          <Body1 className={styles.big}>{formatBookHours(bookTotal)} book</Body1>
+          <Body1 className={styles.big}>{formatBookHours(book)} book</Body1>
           <Caption1 className={styles.dim}>
-            {ro.lines.filter((line) => line.status === 'done').length} of {ro.lines.length} lines done
+            {progress.done} of {progress.of} lines done
             {` · ${formatHours(clockedTotal)} clocked`}
           </Caption1>
         </Fact>
@@ -417,6 +418,11 @@ function Detail({
                               Edit
                             </Button>
                           )}
+                          {canDispatch && line.status === 'done' && ro.status !== 'closed' && (
+                            <Button size="small" onClick={() => setDialog({ kind: 'reopen', line })}>
+                              Reopen (comeback)…
+                            </Button>
+                          )}
                           {line.status !== 'done' &&
                             line.status !== 'cancelled' &&
                             ro.status !== 'closed' && (
@@ -466,7 +472,7 @@ function Detail({
                 <TableCell />
                 <TableCell />
                 <TableCell className={mergeClasses(styles.numeric, styles.total)}>
-                  {formatBookHours(bookTotal)}
+                  {formatBookHours(book)}
                 </TableCell>
                 <TableCell className={mergeClasses(styles.numeric, styles.total)}>
                   {formatHours(clockedTotal)}
@@ -542,7 +548,9 @@ function Detail({
 
       <RepairOrderPrint ro={ro} units={units} timeZone={timeZone} />
 
-      {dialog?.kind === 'edit-ro' && <EditRepairOrderDialog ro={ro} onClose={() => setDialog(null)} />}
+      {dialog?.kind === 'edit-ro' && (
+        <EditRepairOrderDialog ro={ro} timeZone={timeZone} onClose={() => setDialog(null)} />
+      )}
       {dialog?.kind === 'add' && (
         <AddLineDialog repairOrderId={ro.id} concern={ro.concern} onClose={() => setDialog(null)} />
       )}
@@ -551,6 +559,9 @@ function Detail({
       )}
       {dialog?.kind === 'cancel' && (
         <CancelLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
+      )}
+      {dialog?.kind === 'reopen' && (
+        <ReopenLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
       )}
     </div>
   );

@@ -29,6 +29,8 @@ import { useUsers } from '@/lib/api/get-users';
 import { useRepairOrderPage } from '../api/get-repair-orders';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import {
+  bookTotal,
+  linesDone,
   advisorChoices,
   filtersFromParams,
   filtersToParams,
@@ -209,9 +211,9 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
             </TableHeader>
             <TableBody>
               {shown.map((order) => {
-                const done = order.lines.filter((line) => line.status === 'done').length;
+                const { done, of } = linesDone(order.lines);
                 const held = order.lines.filter((line) => line.status === 'held').length;
-                const book = order.lines.reduce((sum, line) => sum + line.bookHours, 0);
+                const book = bookTotal(order.lines);
                 const clocked = order.lines.reduce((sum, line) => sum + line.clockedSeconds, 0);
                 // Late by the one definition dispatch and the wall count, worked out by the server.
                 const late = order.late;
@@ -247,7 +249,7 @@ export function RepairOrdersTable({ timeZone, me, canListPeople }: RepairOrdersT
                       </span>
                     </TableCell>
                     <TableCell>
-                      {done} of {order.lines.length} done
+                      {done} of {of} done
                       {held > 0 && <Caption1 className={styles.dim}> · {held} held</Caption1>}
                     </TableCell>
                     <TableCell className={styles.numeric}>{formatBookHours(book)}</TableCell>
