@@ -261,6 +261,31 @@ describe(`${PunchesService.name}: late punches`, () => {
     expect(after.totals.clockedSeconds).toBe(3600);
   });
 
+  // The end of an offline replay can be seconds old when it arrives: it waits behind the held punch all the
+  // same, instead of being refused (a tablet drops a refused punch, and the break would never end).
+  it('holds the end of a replay that came in only a moment late behind its held punch, rather than refusing it', async () => {
+    const fay = await history.technician('Fay Lindgren', '7006', 20_00, 10_00);
+    const tablet = (await sut.badge('7006')).accessToken;
+    const job = history.line('Replace wiper motor', 1.0, fay, new Date(start - 7 * HOUR));
+    await punch({ kind: 'shift-in', at: ago(3) }, tablet).expect(201);
+    await punch({ kind: 'job-on', jobLineId: job, at: ago(2) }, tablet).expect(201);
+    // Another tablet, live: the clock-off three minutes ago.
+    await punch({ kind: 'job-off', jobLineId: job, at: ago(0.05) }, tablet).expect(201);
+    // The offline tablet's replay: a rest from six minutes ago, ended a minute ago.
+    const rest = randomUUID();
+    await punch({ id: rest, kind: 'break-start', breakKind: 'rest', at: ago(0.1) }, tablet).expect(202);
+    const end = await punch({ kind: 'break-end', at: ago(1 / 60) }, tablet).expect(202);
+    expect(end.body.heldBecause).toMatch(/came in late behind a punch held for review$/);
+    await history
+      .as(foreman)
+      .post(`/api/punches/held/${rest}/accept`, { reason: 'Rest taken at the other tablet' })
+      .expect(200);
+    // Accepted together: the rest has its end, and Fay is back on shift, not left on a break.
+    const after = await card(fay);
+    expect(after.held.map((h) => h.review)).toEqual(['accepted', 'accepted']);
+    expect(after.breaks.map((b) => [b.from, b.to, b.open])).toEqual([[ago(0.1), ago(1 / 60), false]]);
+  });
+
   it('judges a held late break with its end, which waited behind it: the clock-on after the break stays', async () => {
     const ada = await history.technician('Ada Quillfeather', '7005', 20_00, 10_00);
     const tablet = (await sut.badge('7005')).accessToken;

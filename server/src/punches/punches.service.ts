@@ -149,13 +149,16 @@ export class PunchesService {
     const added = this.ledger.withJobOffs(counted, candidate);
     const impact = punchImpact(counted, added, this.shop.ledgerSettings(now));
     const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
-    const waiting = late && this.pendingOf(technicianId).some((held) => held.at <= at);
-    // A replay's later punch may only fit after its held one (a clock-on after a held shift-in): it waits too.
-    if (impact.refusal && !(waiting && actor.role === 'technician'))
+    const behindHeld =
+      actor.role === 'technician' && this.pendingOf(technicianId).some((held) => held.at <= at);
+    // A replay's later punch waits behind its held one: when it came in late, or, however fresh, when it only
+    // fits after it (a break's end behind a held break's start); refused, the tablet would drop it.
+    const waiting = behindHeld && (late || impact.refusal !== null);
+    if (impact.refusal && !waiting)
       throw new ConflictException(this.ledger.refusalFor(impact.refusal, technicianId, actor.id));
     const changesCounted = impact.displaced.length > 0 || impact.lowersCounted;
     if (changesCounted || waiting) {
-      if (late && actor.role === 'technician')
+      if ((late || waiting) && actor.role === 'technician')
         return { punch: this.hold(candidate, impact, waiting, actor, now), replayed: false, held: true };
       throw new ConflictException(this.displacementWords('That punch', impact));
     }
