@@ -483,7 +483,7 @@ describe(ReportsService.name, () => {
 
     await as(foreman).patch(`/api/job-lines/${job}`, { status: 'queued' }).expect(200);
     const words =
-      'Payable -$39.00 is below the minimum wage for 2 h worked (2 h × $7.25 = $14.50) after an adjustment of ' +
+      'Payable -$39.00 is below the minimum wage for 2 h worked ($14.50 at $7.25 an hour) after an adjustment of ' +
       '-$59.00 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
       'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
       'payroll provider.';

@@ -412,7 +412,7 @@ describe(payableBelowMinimumWageCaution.name, () => {
         7_25,
       ),
     ).toBe(
-      'Payable -$34.99 is below the minimum wage for 5.5 h worked (5.5 h × $7.25 = $39.88) after an adjustment ' +
+      'Payable -$34.99 is below the minimum wage for 5.5 h worked ($39.88 at $7.25 an hour) after an adjustment ' +
         'of -$75.00 from earlier weeks: confirm with payroll before paying; deductions may not cut pay below the ' +
         'minimum wage (29 CFR 531.35). Pay figures are estimates: confirm them with local wage law and your ' +
         'payroll provider.',

@@ -57,10 +57,11 @@ export function payableBelowMinimumWageCaution(
     figures.adjustmentCents < 0
       ? ` after an adjustment of ${money.format(figures.adjustmentCents / 100)} from earlier weeks`
       : '';
+  // The floor is of the exact time worked while the hours shown are rounded: no product is written out.
   const below =
     figures.workedSeconds > 0
       ? `is below the minimum wage for ${hours} h worked ` +
-        `(${hours} h × ${money.format(minimumWageCents / 100)} = ${money.format(floorCents / 100)})${after}`
+        `(${money.format(floorCents / 100)} at ${money.format(minimumWageCents / 100)} an hour)${after}`
       : `is negative${after}, with no hours worked this week`;
   return (
     `Payable ${money.format(figures.payableCents / 100)} ${below}: ` +
