@@ -195,6 +195,9 @@ describe('timecard model', () => {
       { seconds: 7200, counted: 5250 },
     ]);
     expect(sharedCredit({ credit: { seconds: 7200, counted: 7200 } })).toBeNull();
+    // Ten seconds off two hours reads "2.0 h" either way; 40 s of a minute does not read as the minute.
+    expect(sharedCredit({ credit: { seconds: 7200, counted: 7190 } })).toBeNull();
+    expect(sharedCredit({ credit: { seconds: 60, counted: 40 } })).toEqual({ seconds: 60, counted: 40 });
     expect(sharedCredit({ credit: null })).toBeNull();
   });
 

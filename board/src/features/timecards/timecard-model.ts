@@ -1,5 +1,5 @@
 import { shopLocalInstant, type Timecard, type TimecardPunch, type TimecardTotals } from '@baytime/shared';
-import { clockValue } from './timecard-format';
+import { clockValue, formatHours } from './timecard-format';
 
 export interface PunchRow {
   punch: TimecardPunch;
@@ -175,8 +175,8 @@ export function cardDays(card: Timecard): CardDay[] {
  */
 export function sharedCredit(interval: Pick<CardInterval, 'credit'>): CardInterval['credit'] {
   const { credit } = interval;
-  // Under half a minute shows as no change at a tenth of an hour.
-  return credit && credit.seconds - credit.counted >= 30 ? credit : null;
+  // A share that reads as the whole length at the card's precision would say nothing.
+  return credit && formatHours(credit.counted) !== formatHours(credit.seconds) ? credit : null;
 }
 
 /**

@@ -146,7 +146,7 @@ function IntervalList({ day, timeZone }: { day: CardDay; timeZone: string }) {
                     : formatClock(interval.from, timeZone)}{' '}
                   – {crosses ? formatDayClock(interval.to, timeZone) : formatClock(interval.to, timeZone)}
                   {interval.open && ' (still running)'}
-                  {shared && ` · shared with another line, ${formatHours(shared.seconds)} in all`}
+                  {shared && ` · run beside other lines, ${formatHours(shared.seconds)} in all`}
                 </Caption1>
               </span>
               <span className={styles.duration}>{formatHours(shared ? shared.counted : seconds)}</span>
