@@ -164,37 +164,45 @@ export class PunchesService {
     }
 
     const punch = added.map((each) => this.ledger.insert(each, { at: now, by: actor.id })).at(-1)!;
-    if (line && body.kind === 'job-on' && (line.status === 'queued' || line.technicianId === null)) {
-      const taken = line.technicianId === null;
-      const updated = this.db
-        .update(jobLines)
-        .set({
-          ...(line.status === 'queued' ? { status: 'working' as const } : {}),
-          ...(taken ? { technicianId } : {}),
-          updatedAt: now,
-        })
-        .where(eq(jobLines.id, line.id))
-        .returning()
-        .get();
-      if (taken)
-        this.audit.record(
-          {
-            actorId: actor.id,
-            action: 'take',
-            entity: 'job-line',
-            entityId: line.id,
-            detail: { technicianId },
-          },
-          now,
-        );
-      this.live.publish(
-        'job-line.updated',
-        { jobLine: toJobLineDto(updated) },
-        this.floor.lineAudience(updated),
-      );
-      this.floor.linesChanged([line.id]);
-    }
+    if (line && body.kind === 'job-on') this.startWork(line.id, technicianId, actor, now);
     return { punch, replayed: false, held: false };
+  }
+
+  /**
+   * Someone was clocked on a line, at the kiosk, by a correction or an accepted held punch: a queued line is
+   * being worked, and one nobody had is theirs (audited), as the floor and the queue then show.
+   */
+  startWork(jobLineId: number, technicianId: number, actor: Principal, now: Date): void {
+    const line = this.queries.line.get({ id: jobLineId });
+    if (!line || (line.status !== 'queued' && line.technicianId !== null)) return;
+    const taken = line.technicianId === null;
+    const updated = this.db
+      .update(jobLines)
+      .set({
+        ...(line.status === 'queued' ? { status: 'working' as const } : {}),
+        ...(taken ? { technicianId } : {}),
+        updatedAt: now,
+      })
+      .where(eq(jobLines.id, line.id))
+      .returning()
+      .get();
+    if (taken)
+      this.audit.record(
+        {
+          actorId: actor.id,
+          action: 'take',
+          entity: 'job-line',
+          entityId: line.id,
+          detail: { technicianId },
+        },
+        now,
+      );
+    this.live.publish(
+      'job-line.updated',
+      { jobLine: toJobLineDto(updated) },
+      this.floor.lineAudience(updated),
+    );
+    this.floor.linesChanged([line.id]);
   }
 
   /**
@@ -234,6 +242,9 @@ export class PunchesService {
       `Displaced by a late punch the office accepted: ${reason}`,
       now,
     );
+    for (const row of replay)
+      if (row.kind === 'job-on' && row.jobLineId !== null)
+        this.startWork(row.jobLineId, row.technicianId, actor, now);
     for (const row of replay.slice(1))
       this.resolve(row, 'accepted', reason, actor, now, { acceptedWith: held.id });
     return this.resolve(held, 'accepted', reason, actor, now, { voided });

@@ -232,6 +232,8 @@ export class TimecardsService {
       `Displaced by a correction: ${body.reason}`,
       now,
     );
+    if (body.kind === 'job-on' && body.jobLineId)
+      this.punches.startWork(body.jobLineId, body.technicianId, actor, now);
     this.audit.record({
       actorId: actor.id,
       action: body.punchId ? 'correct' : 'add-missed',

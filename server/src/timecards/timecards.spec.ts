@@ -1,8 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
+import { inArray } from 'drizzle-orm';
 import { workweekOf, type PunchKind, type ShopSettings, type Timecard } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { punches } from '../db/schema/index.js';
+import { jobLines, punches } from '../db/schema/index.js';
+import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { oneWeekEnd } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { TimecardsService } from './timecards.service.js';
@@ -14,6 +16,7 @@ describe(TimecardsService.name, () => {
   let owner: string;
   let technicianId: number;
   let techToken: string;
+  let history: ShopHistory;
   /** Kit's missed 4 h shift, all in one shop week, and that week (set in `beforeAll`). */
   let shift: { start: Date; end: Date };
   let week: string;
@@ -29,6 +32,11 @@ describe(TimecardsService.name, () => {
         .send({ name, role: 'technician', badge, pin: '4321' })
         .expect(201)
     ).body as { id: number };
+  /** Lines of the technician's own, written three hours ago, before any punch a test adds. */
+  const linesOf = (technicianId: number, count: number) =>
+    Array.from({ length: count }, (_, i) =>
+      history.line(`Line ${i + 1}`, 1.0, technicianId, new Date(Date.now() - 3 * HOUR)),
+    );
   const correct = (body: object) =>
     sut
       .http()
@@ -39,6 +47,7 @@ describe(TimecardsService.name, () => {
   beforeAll(async () => {
     sut = await startTestApp();
     owner = await sut.signIn(DEMO.owner);
+    history = shopHistory(sut, { owner, foreman: await sut.signIn(DEMO.foreman) });
     await addTechnician('Kit Marsh', '3001');
     const kit = await sut.badge('3001');
     technicianId = kit.user.id;
@@ -100,10 +109,7 @@ describe(TimecardsService.name, () => {
 
   it('holds a correction dated before a change of the jobs-at-once limit to the limit of its moment', async () => {
     const newcomer = await addTechnician('Ada Fenwick', '3003');
-    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
-      queue: { jobLineId: number }[];
-    };
-    const [first, second] = board.queue.map((line) => line.jobLineId);
+    const [first, second] = linesOf(newcomer.id, 2);
     const ago = (minutes: number) => new Date(Date.now() - minutes * 60_000).toISOString();
     const shop = () => sut.http().patch('/api/shop').auth(owner, { type: 'bearer' });
     await shop().send({ maxConcurrentJobs: 2 }).expect(200);
@@ -129,10 +135,7 @@ describe(TimecardsService.name, () => {
   // ago closes A then, and B's clock-on, on record, closes C: C counts 5 min, and only B is open.
   it('closes a clock-on added in the past where the next clock-on on record switched lines', async () => {
     const newcomer = await addTechnician('Dov Kessler', '3005');
-    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
-      queue: { jobLineId: number }[];
-    };
-    const [a, b, c] = board.queue.map((line) => line.jobLineId);
+    const [a, b, c] = linesOf(newcomer.id, 3);
     const at = (minutes: number) => new Date(Math.floor(Date.now() / 60_000) * 60_000 - minutes * 60_000);
     const add = (body: object) => correct({ technicianId: newcomer.id, reason: 'Punched on paper', ...body });
     await add({ kind: 'shift-in', at: at(30).toISOString() }).expect(201);
@@ -155,14 +158,19 @@ describe(TimecardsService.name, () => {
       [c, at(20).toISOString(), at(15).toISOString()],
       [b, at(15).toISOString(), null],
     ]);
+    // Clocked on by corrections, the lines are being worked, no longer waiting in the queue.
+    const statuses = sut.app
+      .get<Db>(DB)
+      .select({ status: jobLines.status })
+      .from(jobLines)
+      .where(inArray(jobLines.id, [a!, b!, c!]))
+      .all();
+    expect(statuses.map((line) => line.status)).toEqual(['working', 'working', 'working']);
   });
 
   it('credits each of two lines worked at once with its share of the time they shared', async () => {
     const newcomer = await addTechnician('Cy Aldana', '3004');
-    const board = (await sut.http().get('/api/board').auth(owner, { type: 'bearer' }).expect(200)).body as {
-      queue: { jobLineId: number }[];
-    };
-    const [first, second] = board.queue.map((line) => line.jobLineId);
+    const [first, second] = linesOf(newcomer.id, 2);
     const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
       .body as ShopSettings;
     expect(settings.concurrentSplit).toBe('even');
