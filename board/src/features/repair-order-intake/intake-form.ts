@@ -105,7 +105,7 @@ function friendlyMessage(
   issue: { code: string; message: string; origin?: string; maximum?: unknown },
 ) {
   if (/^lines\.\d+\.title$/.test(key) && issue.code === 'too_small') return 'Give the line a title';
-  if (/^lines\.\d+\.bookHours$/.test(key)) return 'Book hours are 0 to 99';
+  if (/^lines\.\d+\.bookHours$/.test(key)) return 'Book hours are 0.1 to 99.9';
   if (key === 'odometerOverrideReason' || key === 'vinOverrideReason') return 'Say why, in a few words';
   if (key === 'lines' && issue.code === 'too_big') return 'At most 30 lines on one repair order';
   if (issue.code === 'too_big' && issue.origin === 'string')

@@ -159,8 +159,10 @@ export function QuoteDialog({
                   ? 'Set the shop’s labour rate under Admin, Shop settings to price this.'
                   : price
                     ? `${bookHours} h × ${formatCents(labourRateCents)} = ${formatCents(price.labourCents)}` +
-                      (price.partsCents ? ` + parts ${formatCents(price.partsCents)}` : '') +
-                      ` = ${formatCents(price.priceCents)} (estimate)`
+                      (price.partsCents
+                        ? ` + parts ${formatCents(price.partsCents)} = ${formatCents(price.priceCents)}`
+                        : '') +
+                      ' (estimate)'
                     : 'The price shows once the hours are a number.'}
               </Text>
               {formError && (
