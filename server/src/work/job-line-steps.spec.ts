@@ -162,6 +162,18 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     expect(await tile(bay)).toMatchObject({ state: 'staged', repairOrder: { id: second.id } });
   });
 
+  it('refuses a completion time before the line was written: its hours would be flagged in a week before it', async () => {
+    const ro = await write(['Replace thermostat']);
+    const line = ro.lines[0]!;
+    // Written just now, so a week ago is before it.
+    const before = new Date(Date.now() - 7 * 24 * 3600_000).toISOString();
+    const refused = await as(foreman).patch(`/api/job-lines/${line.id}`, { completedAt: before }).expect(400);
+    expect(refused.body.message).toMatch(/^That line was added at .*: it cannot be finished before then$/);
+    await as(foreman)
+      .patch(`/api/job-lines/${line.id}`, { completedAt: new Date().toISOString() })
+      .expect(200);
+  });
+
   it('opens a finished line again as unfinished, and stages its bay for the work', async () => {
     const ro = await write(['Replace thermostat']);
     const [line] = ro.lines;

@@ -1,6 +1,7 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
 import { and, eq, isNull, ne, or } from 'drizzle-orm';
 import {
+  formatDayClockTime,
   inSentence,
   JOB_LINE_STATUS_WORDS,
   isOpenLine,
@@ -68,6 +69,13 @@ export class JobLinesService {
     if (body.completedAt) this.closedWeeks.assertOpenAt(new Date(body.completedAt), 'That completion time');
     else if (body.status === 'done' && line.status !== 'done')
       this.closedWeeks.assertOpenAt(now, 'Finishing that line');
+    // Its book hours would be flagged in a week before the line was written.
+    if (body.completedAt && new Date(body.completedAt) < line.queuedAt) {
+      const { timeZone, clockFormat } = this.shop.settings(now);
+      throw new BadRequestException(
+        `That line was added at ${formatDayClockTime(line.queuedAt.toISOString(), timeZone, clockFormat)}: it cannot be finished before then`,
+      );
+    }
     if (body.bayId && body.bayId !== line.bayId) this.assertBayFor(body.bayId, line);
 
     const changes: Partial<typeof jobLines.$inferInsert> = { updatedAt: now };
