@@ -324,12 +324,13 @@ describe(PayWeeksService.name, () => {
     ];
     const ola = await history.technician('Ola Brandt', '6005', 20_00, 10_00);
     const day = monday(a);
-    const line = history.line('Replace rear shocks', 4.0, ola, at(day, '07:30'));
-    await history.punch(ola, 'shift-in', at(day, '08:00'));
-    await history.punch(ola, 'job-on', at(day, '08:00'), line);
-    await history.punch(ola, 'job-off', at(day, '12:00'), line);
-    await history.punch(ola, 'shift-out', at(day, '12:00'));
-    await history.finish(line, at(day, '12:00'));
+    const line = await history.workedLine(
+      ola,
+      'Replace rear shocks',
+      4.0,
+      at(day, '08:00'),
+      at(day, '12:00'),
+    );
     const close = (week: string) => history.as(owner).post(`/api/pay-weeks/${week}/close`, {}).expect(200);
     await close(a);
     await close(b);
@@ -386,12 +387,7 @@ describe(PayWeeksService.name, () => {
     const [p, q] = [-19, -18].map((n) => addIsoWeeks(weeks.current, n)) as [string, string];
     const quinn = await history.technician('Quinn Harlow', '6007', 20_00, 10_00);
     const day = monday(p);
-    const line = history.line('Replace brake hoses', 4.0, quinn, at(day, '07:30'));
-    await history.punch(quinn, 'shift-in', at(day, '08:00'));
-    await history.punch(quinn, 'job-on', at(day, '08:00'), line);
-    await history.punch(quinn, 'job-off', at(day, '12:00'), line);
-    await history.punch(quinn, 'shift-out', at(day, '12:00'));
-    await history.finish(line, at(day, '12:00'));
+    await history.workedLine(quinn, 'Replace brake hoses', 4.0, at(day, '08:00'), at(day, '12:00'));
     const closed = (await history.as(owner).post(`/api/pay-weeks/${p}/close`, {}).expect(200)).body as {
       closedAt: string;
     };

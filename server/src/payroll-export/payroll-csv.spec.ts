@@ -190,12 +190,7 @@ describe('GET /api/pay-weeks/:week/payroll.csv', () => {
     const [W, F] = [addIsoWeeks(current, -5), addIsoWeeks(current, -4)] as [string, string];
 
     const odile = await history.technician('Odile Marsh', '6101', 20_00, 10_00);
-    const line = history.line('Replace water pump', 4.0, odile, at(W, '07:30'));
-    await history.punch(odile, 'shift-in', at(W, '08:00'));
-    await history.punch(odile, 'job-on', at(W, '08:00'), line);
-    await history.punch(odile, 'job-off', at(W, '12:00'), line);
-    await history.punch(odile, 'shift-out', at(W, '12:00'));
-    await history.finish(line, at(W, '12:00'));
+    const line = await history.workedLine(odile, 'Replace water pump', 4.0, at(W, '08:00'), at(W, '12:00'));
     await history.as(owner).post(`/api/pay-weeks/${W}/close`, {}).expect(200);
     await history.as(foreman).patch(`/api/job-lines/${line}`, { status: 'queued' }).expect(200);
 

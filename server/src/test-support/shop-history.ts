@@ -54,6 +54,19 @@ export function shopHistory(sut: TestApp, tokens: { owner: string; foreman: stri
           if (response.status !== 201)
             throw new Error(`${kind} at ${when.toISOString()}: ${JSON.stringify(response.body)}`);
         }),
+    /**
+     * A shift spent on one line of its own, written half an hour before: on shift and clocked on from `from`,
+     * off at `to`, when the line is finished. The line's id.
+     */
+    async workedLine(technicianId: number, title: string, bookHours: number, from: Date, to: Date) {
+      const line = this.line(title, bookHours, technicianId, new Date(from.getTime() - 30 * 60_000));
+      await this.punch(technicianId, 'shift-in', from);
+      await this.punch(technicianId, 'job-on', from, line);
+      await this.punch(technicianId, 'job-off', to, line);
+      await this.punch(technicianId, 'shift-out', to);
+      await this.finish(line, to);
+      return line;
+    },
     finish: (jobLineId: number, when: Date) =>
       as(tokens.foreman)
         .patch(`/api/job-lines/${jobLineId}`, { completedAt: when.toISOString() })

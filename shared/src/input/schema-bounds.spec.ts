@@ -132,28 +132,12 @@ describe('other ranges', () => {
     expect(firstMessage(timerReadingSchema.safeParse({ tempC: -41 }))).toBe(
       'Below −40 °C: check the reading',
     );
-    expect(
+    const technicianWith = (rates: object) =>
       firstMessage(
-        createUserSchema.safeParse({
-          name: 'Ada',
-          role: 'technician',
-          badge: '2001',
-          pin: '4321',
-          flatRateCents: 1_000_01,
-        }),
-      ),
-    ).toBe('At most $1,000.00 an hour');
-    expect(
-      firstMessage(
-        createUserSchema.safeParse({
-          name: 'Ada',
-          role: 'technician',
-          badge: '2001',
-          pin: '4321',
-          hourlyRateCents: -1,
-        }),
-      ),
-    ).toBe('A rate cannot be below $0.00');
+        createUserSchema.safeParse({ name: 'Ada', role: 'technician', badge: '2001', pin: '4321', ...rates }),
+      );
+    expect(technicianWith({ flatRateCents: 1_000_01 })).toBe('At most $1,000.00 an hour');
+    expect(technicianWith({ hourlyRateCents: -1 })).toBe('A rate cannot be below $0.00');
   });
 });
 
