@@ -149,11 +149,13 @@ export class PunchesService {
     const added = this.ledger.withJobOffs(counted, candidate);
     const impact = punchImpact(counted, added, this.shop.ledgerSettings(now));
     const late = now.getTime() - at.getTime() > LATE_PUNCH_SECONDS * 1000;
-    const behindHeld =
-      actor.role === 'technician' && this.pendingOf(technicianId).some((held) => held.at <= at);
     // A replay's later punch waits behind its held one: when it came in late, or, however fresh, when it only
-    // fits after it (a break's end behind a held break's start); refused, the tablet would drop it.
-    const waiting = behindHeld && (late || impact.refusal !== null);
+    // fits after it (a break's end behind a held break's start); refused, the tablet would drop it. Most
+    // punches are neither, and never read the held ones.
+    const waiting =
+      actor.role === 'technician' &&
+      (late || impact.refusal !== null) &&
+      this.pendingOf(technicianId).some((held) => held.at <= at);
     if (impact.refusal && !waiting)
       throw new ConflictException(this.ledger.refusalFor(impact.refusal, technicianId, actor.id));
     const changesCounted = impact.displaced.length > 0 || impact.lowersCounted;
@@ -164,7 +166,7 @@ export class PunchesService {
     }
 
     const punch = added.map((each) => this.ledger.insert(each, { at: now, by: actor.id })).at(-1)!;
-    if (line && body.kind === 'job-on') this.startWork(line.id, technicianId, actor, now);
+    if (line && body.kind === 'job-on') this.startWork(line, technicianId, actor, now);
     return { punch, replayed: false, held: false };
   }
 
@@ -172,8 +174,13 @@ export class PunchesService {
    * Someone was clocked on a line, at the kiosk, by a correction or an accepted held punch: a queued line is
    * being worked, and one nobody had is theirs (audited), as the floor and the queue then show.
    */
-  startWork(jobLineId: number, technicianId: number, actor: Principal, now: Date): void {
-    const line = this.queries.line.get({ id: jobLineId });
+  startWork(
+    lineOrId: number | typeof jobLines.$inferSelect,
+    technicianId: number,
+    actor: Principal,
+    now: Date,
+  ): void {
+    const line = typeof lineOrId === 'number' ? this.queries.line.get({ id: lineOrId }) : lineOrId;
     if (!line || (line.status !== 'queued' && line.technicianId !== null)) return;
     const taken = line.technicianId === null;
     const updated = this.db

@@ -264,7 +264,10 @@ export function jobOffsWith(
   limitAt: (at: Date) => number,
 ): ImpliedJobOff[] {
   const offs = jobOffsFor(existing, punch, limitAt(new Date(punch.at)));
-  if (punch.kind !== 'job-on') return offs;
+  const at = Date.parse(punch.at);
+  // A clock-on made now, the kiosk's every one, has nothing after it to read.
+  if (punch.kind !== 'job-on' || !existing.some((each) => each.kind === 'job-on' && Date.parse(each.at) > at))
+    return offs;
   const asPunch = (off: ImpliedJobOff): LedgerPunch => ({
     id: `${off.causedBy}:off:${off.jobLineId}`,
     technicianId: punch.technicianId,
@@ -276,7 +279,7 @@ export function jobOffsWith(
   });
   let list = [...existing, ...offs.map(asPunch), punch];
   const later = effectivePunches(existing).filter(
-    (each) => each.kind === 'job-on' && Date.parse(each.at) > Date.parse(punch.at),
+    (each) => each.kind === 'job-on' && Date.parse(each.at) > at,
   );
   for (const clockOn of later) {
     const more = jobOffsFor(
