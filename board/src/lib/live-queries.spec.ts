@@ -16,7 +16,13 @@ describe('LIVE_QUERIES', () => {
 
   it('refreshes the findings lists in other windows when a finding is answered', () => {
     expect(
-      LIVE_QUERIES['finding.answered']({ seq: 1, findingId: 4, answer: 'approved', channel: 'phone' }),
+      LIVE_QUERIES['finding.answered']({
+        seq: 1,
+        findingId: 4,
+        jobLineId: 9,
+        answer: 'approved',
+        channel: 'phone',
+      }),
     ).toContainEqual(queryKeys.findings.all());
   });
 

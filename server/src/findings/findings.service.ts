@@ -310,7 +310,7 @@ export class FindingsService {
     }
     this.live.publish(
       'finding.answered',
-      { findingId: id, answer: decision.answer, channel: source.channel },
+      { findingId: id, jobLineId: line.id, answer: decision.answer, channel: source.channel },
       { to: 'floor' },
     );
     return {

@@ -33,7 +33,13 @@ export interface ServerToClientEvents {
   'finding.created': (event: Sequenced & { findingId: number; jobLineId: number }) => void;
   /** A customer's answer was recorded, through the approval link or by the office. */
   'finding.answered': (
-    event: Sequenced & { findingId: number; answer: 'approved' | 'declined'; channel: AnswerChannel },
+    event: Sequenced & {
+      findingId: number;
+      /** The line the finding was raised on. */
+      jobLineId: number;
+      answer: 'approved' | 'declined';
+      channel: AnswerChannel;
+    },
   ) => void;
   /**
    * The RO itself changed: edited, closed, a notice sent (ready notice, approval request), a link

@@ -6,14 +6,14 @@ const heldForApproval = (line: MyJobLine) => line.status === 'held' && line.hold
 
 /**
  * Lines that waited for the customer's answer in `before` and no longer do in `after`: the answer
- * came. The live `finding.answered` event names no line, so the change of the day is what says which.
+ * came, and the line is back in the technician's queue.
  */
 export function linesAnswered(before: readonly MyJobLine[], after: readonly MyJobLine[]): MyJobLine[] {
   const waited = new Set(before.filter(heldForApproval).map((line) => line.id));
   return after.filter((line) => waited.has(line.id) && !heldForApproval(line));
 }
 
-/** The notice on My day, from the last answer the tablet heard (null: it heard none, e.g. offline). */
+/** The notice on My day, from the answer the tablet heard for the line (null: it heard none, e.g. offline). */
 export function findingAnswerNotice(line: MyJobLine, answer: FindingAnswer | null): string {
   const where = `RO ${line.repairOrderNumber} line ${line.lineNo}`;
   if (answer === 'approved')

@@ -11,12 +11,15 @@ const ANSWER_FRESH_MS = 60_000;
  * technician sees why a line held for approval is back, and what was answered.
  */
 export function useFindingAnswerNotices(lines: readonly MyJobLine[] | undefined): string[] {
-  const lastAnswer = useRef<{ answer: FindingAnswer; at: number } | null>(null);
+  const answers = useRef(new Map<number, { answer: FindingAnswer; at: number }>());
   const previous = useRef<readonly MyJobLine[] | undefined>(undefined);
   const [notices, setNotices] = useState<ReadonlyMap<number, string>>(new Map());
 
   useEffect(
-    () => onLive('finding.answered', ({ answer }) => void (lastAnswer.current = { answer, at: Date.now() })),
+    () =>
+      onLive('finding.answered', ({ jobLineId, answer }) => {
+        answers.current.set(jobLineId, { answer, at: Date.now() });
+      }),
     [],
   );
 
@@ -25,13 +28,15 @@ export function useFindingAnswerNotices(lines: readonly MyJobLine[] | undefined)
     previous.current = lines;
     if (!before || !lines) return;
     const answered = linesAnswered(before, lines);
-    const heard = lastAnswer.current;
-    const answer = heard && Date.now() - heard.at < ANSWER_FRESH_MS ? heard.answer : null;
+    const answerFor = (lineId: number) => {
+      const heard = answers.current.get(lineId);
+      return heard && Date.now() - heard.at < ANSWER_FRESH_MS ? heard.answer : null;
+    };
     setNotices((current) => {
       const next = new Map(
         [...current].filter(([id]) => lines.some((line) => line.id === id && line.status === 'queued')),
       );
-      for (const line of answered) next.set(line.id, findingAnswerNotice(line, answer));
+      for (const line of answered) next.set(line.id, findingAnswerNotice(line, answerFor(line.id)));
       return next.size === current.size && answered.length === 0 ? current : next;
     });
   }, [lines]);
