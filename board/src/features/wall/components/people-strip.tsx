@@ -128,7 +128,7 @@ function QueueNote({ queue }: { queue: QueueSummary }) {
           )}
         </span>
       )}
-      {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late</span>}
+      {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late in the shop</span>}
     </div>
   );
 }
