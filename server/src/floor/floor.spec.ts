@@ -15,7 +15,7 @@ import { PunchesService } from '../punches/punches.service.js';
 import { ScreensService } from '../screens/screens.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { startTestApp, type TestApp } from '../test-support/test-app.js';
-import { TimecardsService } from '../timecards/timecards.service.js';
+import { CorrectionsService } from '../timecards/corrections.service.js';
 import { TimersService } from '../timers/timers.service.js';
 import { UsersService } from '../users/users.service.js';
 import { JobLinesService } from '../work/job-lines.service.js';
@@ -62,6 +62,10 @@ const command = fc.oneof(
       punch: fc.nat(),
       minutesEarlier: fc.integer({ min: 1, max: 90 }),
     }),
+  },
+  {
+    weight: 1,
+    arbitrary: fc.record({ type: fc.constant('void' as const), tech: fc.nat(), punch: fc.nat() }),
   },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('timer' as const), line: fc.nat(), bay: fc.nat() }) },
   { weight: 1, arbitrary: fc.record({ type: fc.constant('stop-timer' as const), timer: fc.nat() }) },
@@ -180,7 +184,7 @@ describe(FloorService.name, () => {
           const tech = pick(techs, cmd.tech);
           const punch = tech && pick(floor.punchesOf(tech.id), cmd.punch);
           if (!tech || !punch) return;
-          app.app.get(TimecardsService).correct(
+          app.app.get(CorrectionsService).correct(
             {
               punchId: punch.id,
               technicianId: tech.id,
@@ -193,6 +197,16 @@ describe(FloorService.name, () => {
             owner,
             now,
           );
+          return;
+        }
+        case 'void': {
+          const tech = pick(techs, cmd.tech);
+          const punch = tech && pick(floor.punchesOf(tech.id), cmd.punch);
+          if (!tech || !punch) return;
+          const corrections = app.app.get(CorrectionsService);
+          const body = { punchId: punch.id, technicianId: tech.id, reason: 'Property test void' };
+          const { displaces } = corrections.previewVoid(body, now);
+          corrections.void({ ...body, displaces: displaces.map((each) => each.id) }, owner, now);
           return;
         }
         case 'timer': {

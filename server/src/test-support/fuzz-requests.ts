@@ -726,6 +726,18 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
       ]),
     ),
   },
+  'post /api/timecards/voids': {
+    query: query({ preview: fc.constantFrom('true', 'false') }),
+    body: body(
+      {
+        punchId: ref('punch'),
+        technicianId: ref('technician'),
+        reason: text(500, ['Tapped the wrong line']),
+        displaces: fc.array(ref('punch'), { maxLength: 3 }),
+      },
+      ['punchId', 'technicianId', 'reason'],
+    ),
+  },
   'get /api/reports/labour': {
     query: query({ week: isoWeek, format: fc.constantFrom('json', 'csv', 'pdf') }),
   },

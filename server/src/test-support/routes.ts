@@ -61,6 +61,7 @@ export const ROUTES: [Method, string, Role[]][] = [
   ['post', '/api/job-lines/1/parts/received', ['advisor', 'foreman', 'owner']],
   ['get', '/api/timecards', ['technician', 'foreman', 'owner']],
   ['post', '/api/timecards/corrections', ['foreman', 'owner']],
+  ['post', '/api/timecards/voids', ['foreman', 'owner']],
   ['get', '/api/reports/labour', ['owner', 'foreman']],
   ['get', '/api/reports/pay', ['owner']],
   ['post', '/api/pay-weeks/2099-W10/close', ['owner']],

@@ -1,16 +1,8 @@
-import {
-  BadRequestException,
-  ConflictException,
-  ForbiddenException,
-  Inject,
-  Injectable,
-} from '@nestjs/common';
-import { randomUUID } from 'node:crypto';
+import { BadRequestException, ForbiddenException, Inject, Injectable } from '@nestjs/common';
 import { and, asc, desc, eq, gte, inArray, lt, or } from 'drizzle-orm';
 import {
   buildLedger,
   formatDayClockTime,
-  punchImpact,
   refusalAbout,
   shopDayKey,
   workweekBounds,
@@ -19,25 +11,16 @@ import {
   workweekDays,
   workweekName,
   workweekOf,
-  type CorrectionBody,
-  type CorrectionPreview,
-  type LedgerPunch,
   type LedgerTotals,
-  type PunchDto,
-  type PunchImpact,
   type Timecard,
   type TimecardQuery,
   type TimecardTotals,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
-import { AuditService } from '../audit/audit.service.js';
-import { foundOrFail, referencedOrFail } from '../common/not-found.js';
+import { foundOrFail } from '../common/not-found.js';
 import { DB, type Db } from '../db/database.js';
-import { Transactional, UnitOfWork } from '../db/unit-of-work.js';
 import { auditLog, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
 import { toPunchDto } from '../labour/labour.service.js';
-import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
-import { PunchLedgerService } from '../punches/punch-ledger.service.js';
 import { prepareReadFrom } from '../punches/last-shift-out.js';
 import { PunchesService } from '../punches/punches.service.js';
 import { ReportsService } from '../reports/reports.service.js';
@@ -69,13 +52,9 @@ export class TimecardsService {
 
   constructor(
     @Inject(DB) private readonly db: Db,
-    readonly uow: UnitOfWork,
     private readonly shop: ShopService,
-    private readonly audit: AuditService,
     private readonly punches: PunchesService,
-    private readonly ledger: PunchLedgerService,
     private readonly reports: ReportsService,
-    private readonly closedWeeks: ClosedWeeksService,
   ) {
     this.readFrom = prepareReadFrom(db);
   }
@@ -187,114 +166,6 @@ export class TimecardsService {
       summary,
       audit: this.auditOf(punchIds),
     };
-  }
-
-  /** What a correction would do, saving nothing: why it cannot be saved, or the punches it would displace. */
-  preview(body: CorrectionBody, now = new Date()): CorrectionPreview {
-    const { impact } = this.plan(body, now);
-    return {
-      refusal: impact.refusal && this.ledger.refusalFor(impact.refusal, body.technicianId, null),
-      displaces: this.ledger.describe(impact.displaced),
-    };
-  }
-
-  /**
-   * A foreman's or owner's correction: a new punch with who, when and why. With `punchId` it
-   * supersedes that punch (which stays on record); without, it adds a missed punch. One that would make
-   * other counted punches impossible is saved only with those punches named in `displaces` (the preview
-   * showed them): they are then voided with the same reason, each audited.
-   */
-  @Transactional()
-  correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
-    const { added, impact } = this.plan(body, now);
-    if (impact.refusal)
-      throw new ConflictException(
-        `That correction does not fit the timecard: ${this.ledger.refusalFor(impact.refusal, body.technicianId, null)}`,
-      );
-    const confirmed = new Set(body.displaces ?? []);
-    if (
-      impact.displaced.length !== confirmed.size ||
-      impact.displaced.some((punch) => !confirmed.has(punch.id))
-    )
-      throw new ConflictException(
-        impact.displaced.length > 0
-          ? this.punches
-              .displacementWords('That correction', impact)
-              .replace('ask the foreman to correct the timecard', 'check them in the preview and confirm')
-          : 'That correction displaces no punch any more: save it again without the confirmation',
-      );
-    const punch = added
-      .map((each) => this.ledger.insert(each, { at: now, by: actor.id, reason: body.reason }))
-      .at(-1)!;
-    const voided = this.ledger.voidDisplaced(
-      impact.displaced,
-      actor,
-      `Displaced by a correction: ${body.reason}`,
-      now,
-    );
-    if (body.kind === 'job-on' && body.jobLineId)
-      this.punches.startWork(body.jobLineId, body.technicianId, actor, now);
-    this.audit.record({
-      actorId: actor.id,
-      action: body.punchId ? 'correct' : 'add-missed',
-      entity: 'punch',
-      entityId: punch.id,
-      detail: {
-        supersedes: body.punchId ?? null,
-        kind: body.kind,
-        at: body.at,
-        reason: body.reason,
-        ...(voided.length ? { voided } : {}),
-      },
-    });
-    return punch;
-  }
-
-  /** The checks every correction passes, and what it would do to the counted punches. */
-  private plan(body: CorrectionBody, now: Date): { added: LedgerPunch[]; impact: PunchImpact } {
-    const at = new Date(body.at);
-    if (at > now) throw new BadRequestException('A correction cannot be in the future');
-    referencedOrFail(
-      this.db
-        .select()
-        .from(users)
-        .where(and(eq(users.id, body.technicianId), eq(users.role, 'technician')))
-        .get(),
-      'technician',
-    );
-    if (body.punchId) {
-      const original = referencedOrFail(
-        this.db.select().from(punches).where(eq(punches.id, body.punchId)).get(),
-        'punch',
-      );
-      if (original.technicianId !== body.technicianId)
-        throw new BadRequestException('That punch belongs to another technician');
-      const newer = this.db.select().from(punches).where(eq(punches.supersedes, body.punchId)).get();
-      if (newer) throw new ConflictException('That punch was already corrected: correct the newer record');
-      this.closedWeeks.assertOpenAt(original.at, 'The punch it corrects');
-    }
-    this.closedWeeks.assertOpenAt(at, 'That correction');
-    if (body.jobLineId)
-      this.ledger.assertLineExistedAt(
-        referencedOrFail(
-          this.db.select().from(jobLines).where(eq(jobLines.id, body.jobLineId)).get(),
-          'job line',
-        ),
-        at,
-      );
-    const candidate: LedgerPunch = {
-      id: randomUUID(),
-      technicianId: body.technicianId,
-      kind: body.kind,
-      jobLineId: body.jobLineId ?? null,
-      // A break of no stated kind counts as paid rest, never as an unpaid meal (29 CFR 785.18).
-      breakKind: body.kind === 'break-start' ? (body.breakKind ?? null) : null,
-      at: at.toISOString(),
-      supersedes: body.punchId ?? null,
-    };
-    const existing = this.ledger.around(body.technicianId, at);
-    const added = this.ledger.withJobOffs(existing, candidate);
-    return { added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)) };
   }
 
   private namesOf(ids: number[]): Map<number, string> {

@@ -1,7 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { inArray } from 'drizzle-orm';
-import { workweekOf, type PunchKind, type ShopSettings, type Timecard } from '@baytime/shared';
+import {
+  workweekOf,
+  type CorrectionPreview,
+  type PunchKind,
+  type ShopSettings,
+  type Timecard,
+} from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
 import { jobLines, punches } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
@@ -208,6 +214,57 @@ describe(TimecardsService.name, () => {
       [second, 1800, 1200],
     ]);
     expect(totals.clockedSeconds).toBe(2400);
+  });
+
+  // One job at a time. On shift 60 to 10 min ago, on line A from 50 min ago, with a stray tap onto B 40 min
+  // ago (it recorded A's clock-off then) and back onto A 30 min ago (B's clock-off then), off A 20 min ago.
+  // By hand: taking the stray clock-on out takes A's clock-off it recorded with it; B's clock-off and the
+  // second clock-on onto A no longer fit and go once confirmed. A then ran 50 to 20 min ago: 30 min on jobs.
+  it('takes a wrong punch out with what it recorded and, confirmed, what it displaces; all stay on record', async () => {
+    const newcomer = await addTechnician('Iva Brandt', '3006');
+    const [a, b] = linesOf(newcomer.id, 2);
+    const at = (minutes: number) =>
+      new Date(Math.floor(Date.now() / 60_000) * 60_000 - minutes * 60_000).toISOString();
+    for (const body of [
+      { kind: 'shift-in', at: at(60) },
+      { kind: 'job-on', jobLineId: a, at: at(50) },
+      { kind: 'job-on', jobLineId: b, at: at(40) },
+      { kind: 'job-on', jobLineId: a, at: at(30) },
+      { kind: 'job-off', jobLineId: a, at: at(20) },
+      { kind: 'shift-out', at: at(10) },
+    ])
+      await correct({ technicianId: newcomer.id, reason: 'Punched on paper', ...body }).expect(201);
+    const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    const query = `technicianId=${newcomer.id}&week=${workweekOf(new Date(at(10)), settings)}`;
+    const { punches } = await card(owner, query);
+    const find = (kind: PunchKind, line: number | undefined, minutes: number) =>
+      punches.find((p) => p.kind === kind && p.jobLineId === line && p.at === at(minutes))!;
+    const stray = find('job-on', b, 40);
+    const recordedWithIt = find('job-off', a, 40);
+    const displaced = [find('job-on', a, 30), find('job-off', b, 30)];
+    const takeOut = (body: object, preview = false) =>
+      sut
+        .http()
+        .post(`/api/timecards/voids${preview ? '?preview=true' : ''}`)
+        .auth(owner, { type: 'bearer' })
+        .send({ technicianId: newcomer.id, punchId: stray.id, reason: 'Tapped the wrong line', ...body });
+
+    const preview = (await takeOut({}, true).expect(200)).body as CorrectionPreview;
+    expect(preview.refusal).toBeNull();
+    expect(preview.displaces.map((p) => p.id).sort()).toEqual(displaced.map((p) => p.id).sort());
+    await takeOut({}).expect(409);
+    await takeOut({ reason: '' }).expect(400);
+    const { body: voiding } = await takeOut({ displaces: displaced.map((p) => p.id) }).expect(201);
+    expect(voiding).toMatchObject({ supersedes: stray.id, voids: true, reason: 'Tapped the wrong line' });
+
+    const after = await card(owner, query);
+    expect(after.totals).toMatchObject({ attendanceSeconds: 50 * 60, clockedSeconds: 30 * 60 });
+    expect(after.jobs.map((job) => [job.jobLineId, job.from, job.to])).toEqual([[a, at(50), at(20)]]);
+    for (const punch of [stray, recordedWithIt, ...displaced])
+      expect(after.punches.find((p) => p.id === punch.id)?.supersededBy).toEqual(expect.any(String));
+    expect(after.audit.filter((entry) => entry.action === 'void')).toHaveLength(3);
+    await takeOut({ displaces: displaced.map((p) => p.id) }).expect(409);
   });
 
   it('flags a shift still open from an earlier day', async () => {

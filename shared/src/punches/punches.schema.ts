@@ -67,6 +67,16 @@ export const correctionSchema = z.object({
 });
 export type CorrectionBody = z.infer<typeof correctionSchema>;
 
+/**
+ * `POST /api/timecards/voids`: a punch that should never have been made (a tap on the wrong line, a badge
+ * left signed in) is taken out of the count without a punch in its place; it stays on record, struck through.
+ */
+export const voidPunchSchema = correctionSchema.pick({ technicianId: true, displaces: true }).extend({
+  punchId: z.uuid(),
+  reason: plainText(500, { min: 3, multiline: true, message: 'Say why the punch is taken out' }),
+});
+export type VoidPunchBody = z.infer<typeof voidPunchSchema>;
+
 export interface PunchDto {
   id: string;
   technicianId: number;

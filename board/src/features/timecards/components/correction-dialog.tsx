@@ -24,8 +24,10 @@ import {
   PUNCH_KINDS,
   correctionSchema,
   shopLocalInstant,
+  voidPunchSchema,
   type BreakKind,
   type CorrectionBody,
+  type CorrectionPreview,
   type DisplacedPunch,
   type PunchKind,
   type Timecard,
@@ -36,6 +38,7 @@ import { formErrorText, issuesToFieldErrors, type FieldErrors } from '@/lib/form
 import { useCreateCorrection } from '../api/create-correction';
 import { useOpenLines } from '../api/get-open-lines';
 import { usePreviewCorrection } from '../api/preview-correction';
+import { usePreviewVoidPunch, useVoidPunch } from '../api/void-punch';
 import {
   BREAK_WORDS,
   PUNCH_WORDS,
@@ -116,12 +119,17 @@ export function CorrectionDialog({
   const styles = useStyles();
   const save = useCreateCorrection();
   const preview = usePreviewCorrection();
+  const takeOut = useVoidPunch();
+  const previewTakeOut = usePreviewVoidPunch();
+  const pending = [save, preview, takeOut, previewTakeOut].some((call) => call.isPending);
   const [draft, setDraft] = useState<Draft>(() => startDraft(card, target));
   /** Counted punches the preview says this correction would take out of the count, once shown. */
   const [displaced, setDisplaced] = useState<DisplacedPunch[] | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const replacing = 'replace' in target ? target.replace : null;
+  /** A wrong punch (a tap on the wrong line) is taken out with nothing in its place. */
+  const [takingOut, setTakingOut] = useState(false);
   const openLines = useOpenLines(needsLine(draft.kind));
   const choices = jobLineChoices(card, openLines.data ?? []);
 
@@ -130,6 +138,20 @@ export function CorrectionDialog({
     setErrors((current) => ({ ...current, [key === 'day' ? 'time' : key]: undefined }));
     setFormError(null);
     setDisplaced(null);
+  };
+
+  const onSaveError = (error: Error) => {
+    if (error instanceof ApiError && Object.keys(error.fieldErrors).length) {
+      const server = { ...error.fieldErrors } as FieldErrors;
+      if (server.at) server.time = server.at;
+      setErrors(server);
+      if (
+        !Object.keys(server).some((key) => ['kind', 'time', 'jobLineId', 'breakKind', 'reason'].includes(key))
+      )
+        setFormError(error.message);
+      return;
+    }
+    setFormError(formErrorText(error));
   };
 
   const store = (body: CorrectionBody) => {
@@ -141,27 +163,53 @@ export function CorrectionDialog({
             : `${PUNCH_WORDS[draft.kind]} added for ${formatDay(draft.day)}.`,
         );
       },
-      onError: (error) => {
-        if (error instanceof ApiError && Object.keys(error.fieldErrors).length) {
-          const server = { ...error.fieldErrors } as FieldErrors;
-          if (server.at) server.time = server.at;
-          setErrors(server);
-          if (
-            !Object.keys(server).some((key) =>
-              ['kind', 'time', 'jobLineId', 'breakKind', 'reason'].includes(key),
-            )
-          )
-            setFormError(error.message);
-          return;
-        }
-        setFormError(formErrorText(error));
-      },
+      onError: onSaveError,
     });
+  };
+
+  /**
+   * A change that would make other counted punches impossible shows them before it is saved; saved, it
+   * names them (`displaces`) so that the server takes out exactly what was shown.
+   */
+  const checkThenSave = <Body extends { displaces?: string[] }>(
+    body: Body,
+    check: (
+      body: Body,
+      handlers: { onSuccess: (answer: CorrectionPreview) => void; onError: (error: Error) => void },
+    ) => void,
+    saveIt: (body: Body) => void,
+  ) => {
+    if (displaced) return saveIt({ ...body, displaces: displaced.map((punch) => punch.id) });
+    check(body, {
+      onSuccess: (answer) => {
+        if (answer.refusal) setFormError(`That change does not fit the timecard: ${answer.refusal}`);
+        else if (answer.displaces.length > 0) setDisplaced(answer.displaces);
+        else saveIt(body);
+      },
+      onError: (error) => setFormError(formErrorText(error)),
+    });
+  };
+
+  const submitTakeOut = (punch: TimecardPunch) => {
+    const parsed = voidPunchSchema.safeParse({
+      punchId: punch.id,
+      technicianId: card.technician.id,
+      reason: draft.reason,
+    });
+    if (!parsed.success) return setErrors(issuesToFieldErrors(parsed.error.issues));
+    checkThenSave(parsed.data, previewTakeOut.mutate, (body) =>
+      takeOut.mutate(body, {
+        onSuccess: () =>
+          onSaved(`${PUNCH_WORDS[punch.kind]} taken out of the count. It stays on the card, struck through.`),
+        onError: onSaveError,
+      }),
+    );
   };
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
     setFormError(null);
+    if (replacing && takingOut) return submitTakeOut(replacing);
     const local: FieldErrors = {};
     let at = '';
     if (!/^\d{2}:\d{2}$/.test(draft.time)) local.time = 'Enter the time, like 07:30';
@@ -185,16 +233,7 @@ export function CorrectionDialog({
     const all: FieldErrors = { ...schemaErrors, ...local };
     if (all.at) all.time ??= all.at;
     if (!parsed.success || Object.values(local).some(Boolean)) return setErrors(all);
-    // A correction that would make other counted punches impossible shows them before it is saved.
-    if (displaced) return store({ ...parsed.data, displaces: displaced.map((punch) => punch.id) });
-    preview.mutate(parsed.data, {
-      onSuccess: (answer) => {
-        if (answer.refusal) setFormError(`That correction does not fit the timecard: ${answer.refusal}`);
-        else if (answer.displaces.length > 0) setDisplaced(answer.displaces);
-        else store(parsed.data);
-      },
-      onError: (error) => setFormError(formErrorText(error)),
-    });
+    checkThenSave(parsed.data, preview.mutate, store);
   };
 
   return (
@@ -208,64 +247,89 @@ export function CorrectionDialog({
                 {card.technician.name} · times in the shop’s time zone ({card.timeZone})
               </Caption1>
               {replacing && (
-                <div className={styles.replaces}>
-                  Replaces <strong>{PUNCH_WORDS[replacing.kind].toLowerCase()}</strong> at{' '}
-                  {formatDayClock(replacing.at, card.timeZone)}. The old punch stays on the card, struck
-                  through.
-                </div>
+                <>
+                  <div className={styles.replaces}>
+                    {takingOut ? 'Takes out' : 'Replaces'}{' '}
+                    <strong>{PUNCH_WORDS[replacing.kind].toLowerCase()}</strong> at{' '}
+                    {formatDayClock(replacing.at, card.timeZone)}
+                    {takingOut
+                      ? replacing.kind === 'job-on'
+                        ? ', with the clock-offs it recorded for lines it closed, and puts nothing in its place.'
+                        : ' and puts nothing in its place.'
+                      : '.'}{' '}
+                    The old punch stays on the card, struck through.
+                  </div>
+                  <Field label="What to do">
+                    <RadioGroup
+                      value={takingOut ? 'take-out' : 'replace'}
+                      onChange={(_, data) => {
+                        setTakingOut(data.value === 'take-out');
+                        setDisplaced(null);
+                        setFormError(null);
+                      }}
+                    >
+                      <Radio value="replace" label="Replace it with the right punch" />
+                      <Radio value="take-out" label="Take it out: it should never have been punched" />
+                    </RadioGroup>
+                  </Field>
+                </>
               )}
-              <Field label="Punch" required validationMessage={errors.kind}>
-                <Select value={draft.kind} onChange={(_, data) => set('kind', data.value as PunchKind)}>
-                  {PUNCH_KINDS.map((kind) => (
-                    <option key={kind} value={kind}>
-                      {PUNCH_WORDS[kind]}
-                    </option>
-                  ))}
-                </Select>
-              </Field>
-              <div className={styles.when}>
-                <Field label="Day" required>
-                  <Select value={draft.day} onChange={(_, data) => set('day', data.value)}>
-                    {card.days.map((day) => (
-                      <option key={day.day} value={day.day}>
-                        {formatDay(day.day)}
-                      </option>
-                    ))}
-                  </Select>
-                </Field>
-                <Field label="Time" required validationMessage={errors.time}>
-                  <Input type="time" value={draft.time} onChange={(_, data) => set('time', data.value)} />
-                </Field>
-              </div>
-              {draft.kind === 'break-start' && (
-                <Field label="Kind of break" required validationMessage={errors.breakKind}>
-                  <RadioGroup
-                    layout="horizontal"
-                    value={draft.breakKind}
-                    onChange={(_, data) => set('breakKind', data.value as BreakKind)}
-                  >
-                    {BREAK_KINDS.map((kind) => (
-                      <Radio key={kind} value={kind} label={BREAK_WORDS[kind]} />
-                    ))}
-                  </RadioGroup>
-                </Field>
-              )}
-              {needsLine(draft.kind) && (
-                <Field
-                  label="Job line"
-                  required
-                  validationMessage={errors.jobLineId}
-                  hint={openLines.isPending ? 'Loading the open repair orders…' : undefined}
-                >
-                  <Select value={draft.jobLineId} onChange={(_, data) => set('jobLineId', data.value)}>
-                    <option value="">Choose…</option>
-                    {choices.map((line) => (
-                      <option key={line.jobLineId} value={line.jobLineId}>
-                        {line.label}
-                      </option>
-                    ))}
-                  </Select>
-                </Field>
+              {!takingOut && (
+                <>
+                  <Field label="Punch" required validationMessage={errors.kind}>
+                    <Select value={draft.kind} onChange={(_, data) => set('kind', data.value as PunchKind)}>
+                      {PUNCH_KINDS.map((kind) => (
+                        <option key={kind} value={kind}>
+                          {PUNCH_WORDS[kind]}
+                        </option>
+                      ))}
+                    </Select>
+                  </Field>
+                  <div className={styles.when}>
+                    <Field label="Day" required>
+                      <Select value={draft.day} onChange={(_, data) => set('day', data.value)}>
+                        {card.days.map((day) => (
+                          <option key={day.day} value={day.day}>
+                            {formatDay(day.day)}
+                          </option>
+                        ))}
+                      </Select>
+                    </Field>
+                    <Field label="Time" required validationMessage={errors.time}>
+                      <Input type="time" value={draft.time} onChange={(_, data) => set('time', data.value)} />
+                    </Field>
+                  </div>
+                  {draft.kind === 'break-start' && (
+                    <Field label="Kind of break" required validationMessage={errors.breakKind}>
+                      <RadioGroup
+                        layout="horizontal"
+                        value={draft.breakKind}
+                        onChange={(_, data) => set('breakKind', data.value as BreakKind)}
+                      >
+                        {BREAK_KINDS.map((kind) => (
+                          <Radio key={kind} value={kind} label={BREAK_WORDS[kind]} />
+                        ))}
+                      </RadioGroup>
+                    </Field>
+                  )}
+                  {needsLine(draft.kind) && (
+                    <Field
+                      label="Job line"
+                      required
+                      validationMessage={errors.jobLineId}
+                      hint={openLines.isPending ? 'Loading the open repair orders…' : undefined}
+                    >
+                      <Select value={draft.jobLineId} onChange={(_, data) => set('jobLineId', data.value)}>
+                        <option value="">Choose…</option>
+                        {choices.map((line) => (
+                          <option key={line.jobLineId} value={line.jobLineId}>
+                            {line.label}
+                          </option>
+                        ))}
+                      </Select>
+                    </Field>
+                  )}
+                </>
               )}
               <Field
                 label="Reason"
@@ -277,15 +341,19 @@ export function CorrectionDialog({
                   value={draft.reason}
                   maxLength={500}
                   resize="vertical"
-                  placeholder="e.g. Forgot to badge out at the end of the shift"
+                  placeholder={
+                    takingOut
+                      ? 'e.g. Tapped the wrong line'
+                      : 'e.g. Forgot to badge out at the end of the shift'
+                  }
                   onChange={(_, data) => set('reason', data.value)}
                 />
               </Field>
               {displaced && (
                 <MessageBar intent="warning" layout="multiline">
                   <MessageBarBody>
-                    This correction would leave these punches without a place on the card; saving it takes
-                    them out of the count, each on record with your reason:
+                    This change would leave these punches without a place on the card; saving it takes them
+                    out of the count, each on record with your reason:
                     <ul className={styles.displaced}>
                       {displaced.map((punch) => (
                         <li key={punch.id}>{punch.words.replace(/^the /, 'The ')}</li>
@@ -304,14 +372,16 @@ export function CorrectionDialog({
               <Button type="button" onClick={onClose}>
                 Cancel
               </Button>
-              <Button appearance="primary" type="submit" disabled={save.isPending || preview.isPending}>
-                {save.isPending || preview.isPending
+              <Button appearance="primary" type="submit" disabled={pending}>
+                {pending
                   ? 'Checking…'
                   : displaced
                     ? `Save and take ${displaced.length} punch${displaced.length === 1 ? '' : 'es'} out`
-                    : replacing
-                      ? 'Save correction'
-                      : 'Add punch'}
+                    : takingOut
+                      ? 'Take punch out'
+                      : replacing
+                        ? 'Save correction'
+                        : 'Add punch'}
               </Button>
             </DialogActions>
           </DialogBody>
