@@ -1,3 +1,4 @@
+import { extname } from 'node:path';
 import {
   BadRequestException,
   ConflictException,
@@ -145,7 +146,14 @@ export class ApprovalsService {
       expiresAt: link.expiresAt,
       items: priced,
       totalCents: priced.reduce((sum, item) => sum + item.priceCents, 0),
-      photos: ids.flatMap((id) => this.notices.photosOf(id, 'original')),
+      // Numbered by item and photo: each finding's photos start at 1, and one name for two photos
+      // makes a mail client show or save one in place of the other.
+      photos: ids.flatMap((id, item) =>
+        this.notices.photosOf(id, 'original').map((photo, n) => ({
+          ...photo,
+          filename: `finding-${item + 1}-photo-${n + 1}${extname(photo.path)}`,
+        })),
+      ),
     });
     for (const id of ids)
       this.audit.record(
@@ -228,7 +236,7 @@ export class ApprovalsService {
         })),
     }));
     return {
-      shop: { name: settings.name, phone: settings.phone },
+      shop: { name: settings.name, phone: settings.phone, timeZone: settings.timeZone },
       repairOrderNumber: ro.number,
       vehicle: describeVehicle(vehicle),
       labourRateCents: items[0]?.labourRateCents ?? settings.labourRateCents,

@@ -1,11 +1,12 @@
 import sharp from 'sharp';
 import { and, eq, ne } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import {
   makeVin,
   type ApprovalRequested,
   type BoardSnapshot,
   type FindingDto,
+  type MailboxEntry,
   type MyDay,
   type PublicApproval,
   type PublicApprovalResult,
@@ -25,6 +26,7 @@ const tokenOf = (url: string) => url.split('/approve/')[1]!;
 describe(ApprovalsService.name, () => {
   let sut: TestApp;
   let db: Db;
+  let owner: string;
   let advisor: string;
   let foreman: string;
   let dana: string;
@@ -76,6 +78,7 @@ describe(ApprovalsService.name, () => {
   beforeAll(async () => {
     sut = await startTestApp();
     db = sut.app.get<Db>(DB);
+    owner = await sut.signIn(DEMO.owner);
     advisor = await sut.signIn(DEMO.advisor);
     foreman = await sut.signIn(DEMO.foreman);
     dana = (await sut.badge('1041')).accessToken;
@@ -141,10 +144,33 @@ describe(ApprovalsService.name, () => {
       expect(Date.parse(sent.expiresAt) - row.createdAt.getTime()).toBe(72 * 3_600_000);
     });
 
+    it('attaches each finding’s photo under a name of its own', async () => {
+      // Each finding has one photo: numbered per finding alone, both would arrive as photo-1.png.
+      const names = ['finding-1-photo-1.png', 'finding-2-photo-1.png'];
+      expect(sent.mail).toMatchObject({ attachments: names });
+      await sut.app.get(OutboxService).flush();
+      await vi.waitFor(
+        async () => {
+          const { body } = await as(owner).get('/api/mailbox').expect(200);
+          const mail = (body.items as MailboxEntry[]).filter((entry) =>
+            entry.subject.includes('approval needed for RO'),
+          );
+          expect(mail).toHaveLength(1);
+          expect(mail[0]!.attachments).toEqual(names);
+        },
+        { timeout: 5000, interval: 50 },
+      );
+    });
+
     it('shows the quoted prices, worked out as hours × rate + parts', async () => {
       const { body } = await page(tokenOf(sent.approvalUrl)).expect(200);
       const view = body as PublicApproval;
-      expect(view.shop).toEqual({ name: 'Marlow Creek Auto Care', phone: '+16085550100' });
+      // The page states the link's expiry on the shop's clock, not the phone's.
+      expect(view.shop).toEqual({
+        name: 'Marlow Creek Auto Care',
+        phone: '+16085550100',
+        timeZone: 'America/Chicago',
+      });
       expect(view.labourRateCents).toBe(135_00);
       // 1.5 h × $135.00 = $202.50, + $42.80 parts = $245.30; 0.8 h × $135.00 = $108.00;
       // total $353.30 (worked by hand).

@@ -136,7 +136,7 @@ describe(OutboxService.name, () => {
       expect(queued.mail).toMatchObject({
         to: 'harriet@example.test',
         subject,
-        attachments: ['photo-1.png'],
+        attachments: ['finding-1-photo-1.png'],
       });
       expect(queued.text).toMatchObject({ to: '+16085550177' });
       const requestedTo = Date.now();
@@ -145,7 +145,7 @@ describe(OutboxService.name, () => {
       expect(entry).toMatchObject({
         from: 'Marlow Creek Auto Care <owner@marlowcreek.test>',
         to: ['harriet@example.test'],
-        attachments: ['photo-1.png'],
+        attachments: ['finding-1-photo-1.png'],
       });
       const message = (
         await sut.http().get(`/api/mailbox/${entry.id}`).auth(owner, { type: 'bearer' }).expect(200)

@@ -83,7 +83,8 @@ export interface PublicApprovalFinding {
 
 /** `GET /api/public/approvals/:token`: everything the customer's page shows. */
 export interface PublicApproval {
-  shop: { name: string; phone: string | null };
+  /** `timeZone`: the shop's IANA zone, in which the page states its times, whatever the phone's. */
+  shop: { name: string; phone: string | null; timeZone: string };
   repairOrderNumber: string;
   vehicle: string;
   labourRateCents: number;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ApiError } from '@baytime/shared/client';
-import { hoursText, unavailableText } from './approval-words';
+import { hoursText, shopTimeText, unavailableText } from './approval-words';
 
 describe('customer approval words', () => {
   it('says why a link cannot be shown, with the server’s reason for a closed one', () => {
@@ -17,5 +17,11 @@ describe('customer approval words', () => {
   it('writes hours without float noise', () => {
     expect(hoursText(1.5)).toBe('1.5 h');
     expect(hoursText(0.1 + 0.2)).toBe('0.3 h');
+  });
+
+  it('states a time on the shop’s clock, named as such, whatever zone the page is read in', () => {
+    const instant = '2026-12-03T23:30:00Z';
+    expect(shopTimeText(instant, 'America/Chicago')).toBe('Thu, Dec 3, 5:30 pm (shop time)');
+    expect(shopTimeText(instant, 'Europe/Berlin')).toBe('Fri, Dec 4, 12:30 am (shop time)');
   });
 });

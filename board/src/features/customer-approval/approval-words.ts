@@ -1,3 +1,4 @@
+import { formatShopInstant } from '@baytime/shared';
 import { ApiError } from '@baytime/shared/client';
 
 /** What the customer reads when the page cannot be shown, in plain words. */
@@ -20,4 +21,12 @@ export function unavailableText(error: unknown): { title: string; text: string }
 /** "1.5 h × $135.00" — hours as a person writes them. */
 export function hoursText(hours: number): string {
   return `${Number(hours.toFixed(2))} h`;
+}
+
+/**
+ * "Thu, Dec 3, 5:30 pm (shop time)": a time on the shop's clock, said so, since the customer may read
+ * the page in another zone or on a phone set wrong.
+ */
+export function shopTimeText(instant: string, shopTimeZone: string): string {
+  return `${formatShopInstant(new Date(instant), shopTimeZone)} (shop time)`;
 }

@@ -19,7 +19,6 @@ import {
 import {
   formatCents,
   formatPhone,
-  formatShopInstant,
   publicApprovalAnswerSchema,
   type PublicApproval,
   type PublicApprovalFinding,
@@ -28,7 +27,7 @@ import {
 import { ApiError } from '@baytime/shared/client';
 import { useApproval } from '../api/get-approval';
 import { useSendAnswer } from '../api/send-answer';
-import { hoursText, unavailableText } from '../approval-words';
+import { hoursText, shopTimeText, unavailableText } from '../approval-words';
 
 type Choice = 'approved' | 'declined';
 
@@ -269,10 +268,9 @@ function ApprovalForm({
       <Button className={styles.submit} appearance="primary" type="submit" disabled={send.isPending}>
         {send.isPending ? 'Sending…' : 'Send my answer'}
       </Button>
-      <Text className={styles.dim}>{`This link works until ${formatShopInstant(
-        new Date(approval.expiresAt),
-        Intl.DateTimeFormat().resolvedOptions().timeZone,
-      )}. You can answer once.`}</Text>
+      <Text className={styles.dim}>
+        {`This link works until ${shopTimeText(approval.expiresAt, approval.shop.timeZone)}. You can answer once.`}
+      </Text>
     </form>
   );
 }
