@@ -64,6 +64,27 @@ describe('the whole visit, from intake to pick-up', () => {
     const roId = Number(new URL(advisor.url()).pathname.split('/').pop());
     const ro = await owner<RepairOrderSummary>('GET', `/repair-orders/${roId}`);
 
+    // A line added by mistake: Delete asks first, Escape keeps the line, the confirm takes it off the RO.
+    await advisor.getByRole('button', { name: 'Add a job line' }).click();
+    const adding = advisor.getByRole('dialog');
+    await adding.getByRole('textbox', { name: 'Job' }).fill('Replace wiper blades');
+    await adding.getByLabel('Book hours').fill('0.3');
+    await adding.getByRole('button', { name: 'Add line' }).click();
+    await adding.waitFor({ state: 'detached' });
+    const extra = advisor.getByRole('row', { name: /Replace wiper blades/ });
+    const deleting = advisor.getByRole('dialog', { name: 'Delete line 2 “Replace wiper blades”?' });
+    await extra.getByRole('button', { name: 'Delete…' }).click();
+    await deleting.getByText(/It has no clocked time, so it leaves the RO/).waitFor();
+    await expect
+      .poll(() => advisor.evaluate(() => !!document.activeElement?.closest('[role="dialog"]')))
+      .toBe(true);
+    await advisor.keyboard.press('Escape');
+    await deleting.waitFor({ state: 'detached' });
+    expect(await extra.count()).toBe(1);
+    await extra.getByRole('button', { name: 'Delete…' }).click();
+    await deleting.getByRole('button', { name: 'Delete the line' }).click();
+    await extra.waitFor({ state: 'detached' });
+
     // Dispatch: Bay 8 and Jo, from the foreman's Move menu.
     const foreman = await foremanDesk.newPage();
     await signInAtOffice(foreman, server, 'foreman@marlowcreek.test');
@@ -131,6 +152,9 @@ describe('the whole visit, from intake to pick-up', () => {
       .poll(() => advisor.getByRole('button', { name: 'Edit', exact: true }).count())
       .toBeGreaterThan(0);
     await advisor.getByRole('button', { name: 'Vehicle picked up: close the RO' }).click();
+    const closing = advisor.getByRole('dialog', { name: `Close RO ${ro.number} as picked up?` });
+    await closing.getByText(/its lines can no longer be worked or changed; Bay 8 is free/).waitFor();
+    await closing.getByRole('button', { name: 'Close the RO' }).click();
     await advisor.getByText('Picked up: this repair order is closed.').waitFor();
     expect(await advisor.getByRole('button', { name: 'Edit details' }).count()).toBe(0);
     expect(await advisor.getByRole('button', { name: 'Edit', exact: true }).count()).toBe(0);

@@ -103,7 +103,7 @@ export class BaysService {
   /** The vehicle has left: the bay is free for the next one. */
   @Transactional()
   release(id: number, actor: Principal): BayDto {
-    this.find(id);
+    const bay = this.find(id);
     const row = this.db
       .update(bays)
       .set({ phase: 'free', phaseSince: new Date(), repairOrderId: null })
@@ -111,6 +111,17 @@ export class BaysService {
       .returning()
       .get();
     this.audit.record({ actorId: actor.id, action: 'release', entity: 'bay', entityId: id });
+    // The bay forgets the RO once free, so the RO's own row is what lets its history tell the release.
+    if (bay.repairOrderId !== null) {
+      this.audit.record({
+        actorId: actor.id,
+        action: 'bay-released',
+        entity: 'repair-order',
+        entityId: bay.repairOrderId,
+        detail: { bayId: id, bayName: bay.name },
+      });
+      this.live.publish('repair-order.updated', { repairOrderId: bay.repairOrderId });
+    }
     this.floor.baysChanged();
     return toBayDto(row);
   }

@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import type { BayDto, BoardSnapshot, MyDay, SignInAnswer } from '@baytime/shared';
+import type { BayDto, BoardSnapshot, MyDay, RepairOrderHistoryEntry, SignInAnswer } from '@baytime/shared';
 import { DB, type Db } from '../db/database.js';
-import { auditLog } from '../db/schema/index.js';
+import { auditLog, users } from '../db/schema/index.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { BaysService } from './bays.service.js';
 
@@ -65,6 +65,36 @@ describe(BaysService.name, () => {
     ]);
     await as(jo.accessToken).post(`/api/bays/${inCheck.id}/final-check`).expect(409);
     expect(((await as(jo.accessToken).get('/api/me/day').expect(200)).body as MyDay).finalChecks).toEqual([]);
+  });
+
+  it('tells the release of a bay in the history of the RO whose vehicle held it, with who and when', async () => {
+    const held = (await board()).bays.find((b) => b.repairOrder !== null && b.state !== 'working')!;
+    const roId = held.repairOrder!.id;
+    const wall = sut.connect(owner);
+    await nextEvent(wall, 'board.snapshot');
+    const told = nextEvent(wall, 'repair-order.updated', ({ repairOrderId }) => repairOrderId === roId);
+    const before = Date.now();
+    await as(foreman).post(`/api/bays/${held.id}/release`).expect(200);
+    await told;
+    const history = (await as(foreman).get(`/api/repair-orders/${roId}/history`).expect(200))
+      .body as RepairOrderHistoryEntry[];
+    const foremanName = sut.app
+      .get<Db>(DB)
+      .select({ name: users.name })
+      .from(users)
+      .where(eq(users.email, DEMO.foreman))
+      .get()!.name;
+    const released = history.filter((entry) => entry.action === 'repair-order.bay-released');
+    expect(released.map(({ actorName, text }) => ({ actorName, text }))).toEqual([
+      { actorName: foremanName, text: `Released ${held.name}` },
+    ]);
+    expect(Date.parse(released[0]!.at)).toBeGreaterThanOrEqual(before);
+
+    // A bay already free held no vehicle: no RO hears of it.
+    await as(foreman).post(`/api/bays/${held.id}/release`).expect(200);
+    const again = (await as(foreman).get(`/api/repair-orders/${roId}/history`).expect(200))
+      .body as RepairOrderHistoryEntry[];
+    expect(again.filter((entry) => entry.action === 'repair-order.bay-released')).toHaveLength(1);
   });
 
   it('reorders the bays and retires one: open wall screens hear the new order at once', async () => {

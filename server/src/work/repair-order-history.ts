@@ -103,6 +103,8 @@ function describe({ entity, action, entityId, detail }: AuditRow, names: Names):
         return 'Lines put in a new order';
       case 'final-check':
         return `${BAY_STATE_WORDS.check} recorded in ${String(d.bayName)}${text(d.note) ? `: ${text(d.note)}` : ''}`;
+      case 'bay-released':
+        return `Released ${String(d.bayName)}`;
       case 'ready-notice':
         return `Ready notice sent ${sentToWords(text(d.to), text(d.mobile))}`;
       case 'close':

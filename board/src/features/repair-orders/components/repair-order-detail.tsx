@@ -20,9 +20,11 @@ import {
   makeStyles,
   mergeClasses,
   tokens,
+  useRestoreFocusTarget,
 } from '@fluentui/react-components';
 import { ApiError } from '@baytime/shared/client';
 import { BAY_PALETTE, formatPhone } from '@baytime/shared';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { PageHeader } from '@/components/page-header';
 import { Glyph } from '@/components/glyph';
 import { paths } from '@/config/paths';
@@ -48,6 +50,7 @@ import {
   JOB_LINE_STATUS_WORDS,
   REPAIR_ORDER_STATUS_WORDS,
   aboutWords,
+  lineWithTitleWords,
   lineWords,
   sentToWords,
   skillWords,
@@ -125,7 +128,7 @@ const useStyles = makeStyles({
 });
 
 type LineDialog =
-  | { kind: 'edit' | 'cancel' | 'reopen'; line: RepairOrderSummary['lines'][number] }
+  | { kind: 'edit' | 'cancel' | 'reopen' | 'delete'; line: RepairOrderSummary['lines'][number] }
   | { kind: 'add' }
   | { kind: 'edit-ro' };
 
@@ -224,7 +227,7 @@ function Detail({
   const late = ro.late;
   const history = useRepairOrderHistory(ro.id);
   const [dialog, setDialog] = useState<LineDialog | null>(null);
-  const removeLine = useDeleteJobLine(ro.id);
+  const restoreFocus = useRestoreFocusTarget();
   const reorder = useReorderLines(ro.id);
   const moveLine = (index: number, by: -1 | 1) => {
     const ids = ro.lines.map((line) => line.id);
@@ -428,16 +431,12 @@ function Detail({
                             ro.status !== 'closed' && (
                               <Button
                                 size="small"
+                                {...restoreFocus}
                                 onClick={() =>
-                                  clockedSeconds > 0
-                                    ? setDialog({ kind: 'cancel', line })
-                                    : removeLine.mutate(line.id, {
-                                        // Time, a finding or a timer on it: it can only be cancelled.
-                                        onError: () => setDialog({ kind: 'cancel', line }),
-                                      })
+                                  setDialog({ kind: clockedSeconds > 0 ? 'cancel' : 'delete', line })
                                 }
                               >
-                                {clockedSeconds > 0 ? 'Cancel…' : 'Delete'}
+                                {clockedSeconds > 0 ? 'Cancel…' : 'Delete…'}
                               </Button>
                             )}
                           <Button
@@ -560,10 +559,54 @@ function Detail({
       {dialog?.kind === 'cancel' && (
         <CancelLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
       )}
+      {dialog?.kind === 'delete' && (
+        <DeleteLineDialog
+          repairOrderId={ro.id}
+          line={dialog.line}
+          onRefused={() => setDialog({ kind: 'cancel', line: dialog.line })}
+          onClose={() => setDialog(null)}
+        />
+      )}
       {dialog?.kind === 'reopen' && (
         <ReopenLineDialog repairOrderId={ro.id} line={dialog.line} onClose={() => setDialog(null)} />
       )}
     </div>
+  );
+}
+
+/** A line written by mistake leaves the RO for good: asked first, as nothing brings it back. */
+function DeleteLineDialog({
+  repairOrderId,
+  line,
+  onRefused,
+  onClose,
+}: {
+  repairOrderId: number;
+  line: RepairOrderSummary['lines'][number];
+  onRefused: () => void;
+  onClose: () => void;
+}) {
+  const removeLine = useDeleteJobLine(repairOrderId);
+  return (
+    <ConfirmDialog
+      title={`Delete ${lineWithTitleWords(line.lineNo, line.title)}?`}
+      confirmLabel="Delete the line"
+      pendingLabel="Deleting…"
+      keepLabel="Keep the line"
+      pending={removeLine.isPending}
+      error={removeLine.error ? formErrorText(removeLine.error) : null}
+      onConfirm={() =>
+        removeLine.mutate(line.id, {
+          onSuccess: onClose,
+          // Time, a finding or a timer on it that this page had not seen: it can only be cancelled.
+          onError: (error) => error instanceof ApiError && error.status === 409 && onRefused(),
+        })
+      }
+      onClose={onClose}
+    >
+      It has no clocked time, so it leaves the RO: it is gone from the dispatch queue and the job tickets. The
+      history keeps a note that it was removed.
+    </ConfirmDialog>
   );
 }
 
@@ -582,7 +625,9 @@ function VisitActions({
   const finalCheck = useRecordFinalCheck(ro.id);
   const notice = useSendReadyNotice(ro.id);
   const close = useCloseRepairOrder(ro.id);
-  const failed = finalCheck.error ?? notice.error ?? close.error;
+  const [confirmingClose, setConfirmingClose] = useState(false);
+  const restoreFocus = useRestoreFocusTarget();
+  const failed = finalCheck.error ?? notice.error;
   if (ro.status === 'closed')
     return (
       <MessageBar intent="info">
@@ -609,7 +654,12 @@ function VisitActions({
           >
             {notice.isPending ? 'Sending…' : 'Tell the customer: vehicle ready'}
           </Button>
-          <Button appearance="primary" disabled={close.isPending} onClick={() => close.mutate()}>
+          <Button
+            appearance="primary"
+            disabled={close.isPending}
+            {...restoreFocus}
+            onClick={() => setConfirmingClose(true)}
+          >
             Vehicle picked up: close the RO
           </Button>
         </>
@@ -623,6 +673,21 @@ function VisitActions({
         <Caption1>No e-mail or phone on file: tell the customer at the counter.</Caption1>
       )}
       {failed && <Caption1 role="alert">{formErrorText(failed)}</Caption1>}
+      {confirmingClose && (
+        <ConfirmDialog
+          title={`Close RO ${ro.number} as picked up?`}
+          confirmLabel="Close the RO"
+          pendingLabel="Closing…"
+          keepLabel="Keep it open"
+          pending={close.isPending}
+          error={close.error ? formErrorText(close.error) : null}
+          onConfirm={() => close.mutate(undefined, { onSuccess: () => setConfirmingClose(false) })}
+          onClose={() => setConfirmingClose(false)}
+        >
+          The vehicle has left the shop. The RO closes, and its lines can no longer be worked or changed
+          {bay ? `; ${bay.name} is free for the next vehicle.` : '.'}
+        </ConfirmDialog>
+      )}
     </Card>
   );
 }
