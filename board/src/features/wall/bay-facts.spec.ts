@@ -7,7 +7,7 @@ import {
   countdownFact,
   holdFacts,
   pickLines,
-  techsText,
+  techsWords,
   wallVehicle,
   type BayFact,
 } from './bay-facts';
@@ -377,18 +377,52 @@ describe('a long model on a tile of few lines', () => {
 });
 
 describe('short texts', () => {
-  it('names one tech and counts the rest', () => {
-    expect(techsText(bay({ technicians: [] }))).toBeNull();
-    expect(
-      techsText(
-        bay({
-          technicians: [
-            { id: 1, name: 'Dana O.' },
-            { id: 2, name: 'Jo K.' },
-          ],
-        }),
-      ),
-    ).toBe('Dana O. +1');
+  it('names every technician on one line, else whole names on two lines, else the first and a count', () => {
+    const [dana, jo, sam] = [
+      { id: 1, name: 'Dana O.' },
+      { id: 2, name: 'Jo K.' },
+      { id: 3, name: 'Sam O.' },
+    ];
+    expect(techsWords([])).toBeNull();
+    expect(techsWords([dana], 4)).toEqual({ text: 'Dana O.' });
+    expect(techsWords([dana, jo])).toEqual({ text: 'Dana O. + Jo K.' });
+    expect(techsWords([dana, jo], 15)).toEqual({ text: 'Dana O. + Jo K.' });
+    // The line breaks only between the names: "Dana O." over "+ Jo K.", a count when on one line.
+    expect(techsWords([dana, jo], 11)).toEqual({
+      text: 'Dana\u00a0O. +\u00a0Jo\u00a0K.',
+      brief: 'Dana O. +1',
+    });
+    expect(techsWords([dana, jo, sam], 16)).toEqual({
+      text: 'Dana\u00a0O.\u00a0+\u00a0Jo\u00a0K. +\u00a0Sam\u00a0O.',
+      brief: 'Dana O. +2',
+    });
+    expect(techsWords([dana, jo, sam], 11)).toEqual({ text: 'Dana O. +2' });
+    expect(techsWords([dana, jo], 6)).toEqual({ text: 'Dana O. +1' });
+  });
+
+  it('shows both technicians of a bay where the tile has the room, and the first and a count where not', () => {
+    const two = bay({
+      technicians: [
+        { id: 1, name: 'Dana O.' },
+        { id: 2, name: 'Jo K.' },
+      ],
+    });
+    const lines = (lineChars: number, slots: number, turn = 0) =>
+      pickLines(bayFacts({ bay: two, clockedSeconds: 600, nowMs: now, lineChars }), slots, turn, lineChars)
+        .filter((line) => line.fact.key === 'techs')
+        .map((line) => [line.fact.text.replaceAll('\u00a0', ' '), line.wraps, line.shortened]);
+    // A four-bay wall's tiles hold 23 characters a line: both on one.
+    expect(lines(23, 5)).toEqual([['Dana O. + Jo K.', false, false]]);
+    expect(lines(23, 2)).toEqual([['Dana O. + Jo K.', false, false]]);
+    // An 8-bay wall's 11: both on two lines while every fact still shows, the count on a line in turns.
+    expect(lines(11, 6)).toEqual([['Dana O. + Jo K.', true, false]]);
+    expect(lines(11, 5)).toEqual([['Dana O. +1', false, false]]);
+    expect(lines(11, 2)).toEqual([['Dana O. +1', false, false]]);
+    // A check tile keeps its technicians: the count, so the rest have a line to take turns on.
+    const check = { ...two, state: 'check' as const };
+    const shown = pickLines(bayFacts({ bay: check, clockedSeconds: 0, nowMs: now, lineChars: 11 }), 2, 0, 11);
+    expect(shown[0]?.fact).toMatchObject({ key: 'techs', text: 'Dana O. +1' });
+    expect(shown).toHaveLength(2);
   });
 
   it('drops a leading model year and keeps a two-word make whole, leaving the model for the ellipsis to cut', () => {

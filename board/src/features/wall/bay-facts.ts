@@ -7,6 +7,7 @@ import {
   hoursFigure,
   movingAwayWords,
   type BoardBay,
+  type BoardPersonRef,
   type BoardTimer,
 } from '@baytime/shared';
 import { secondsSince, secondsUntil } from './server-clock';
@@ -41,6 +42,8 @@ export interface BayFact {
    * ellipsis, rather than hide the RO and the technician on a short tile.
    */
   yields?: boolean;
+  /** What a fact that yields says when cut to one line, instead of its text ending in an ellipsis. */
+  brief?: string;
 }
 
 export interface ClockedBar {
@@ -62,11 +65,34 @@ export function clockedBar(clockedSeconds: number, bookSeconds: number): Clocked
   return { withinBook: within, overBook: overSeconds / scale, bookMark: bookSeconds / scale, overSeconds };
 }
 
-/** "Dana O.", or "Dana O. +1" when more are clocked on: tiles have room for one name. */
-export function techsText(bay: BoardBay): string | null {
-  const [first, ...rest] = bay.technicians;
-  if (!first) return null;
-  return rest.length ? `${first.name} +${rest.length}` : first.name;
+/** Joins a name to the next on a tile's line; never broken itself, so each line holds whole names. */
+const NO_BREAK = '\u00a0';
+
+/**
+ * Who works the bay, in words a tile of `lineChars` a line can hold: every name on one line ("Dana O. +
+ * Jo K."), else whole names on two lines ("Dana O." over "+ Jo K."), else the first and a count ("Dana
+ * O. +1"). The count is also the `brief` the tile shows when it has a single line to give them.
+ */
+export function techsWords(
+  technicians: readonly BoardPersonRef[],
+  lineChars = Infinity,
+): { text: string; brief?: string } | null {
+  const [first, ...rest] = technicians.map((technician) => technician.name);
+  if (first === undefined) return null;
+  const all = [first, ...rest].join(' + ');
+  if (!rest.length || all.length <= lineChars) return { text: all };
+  const brief = `${first} +${rest.length}`;
+  const lines = [first];
+  for (const name of rest) {
+    const last = lines[lines.length - 1]!;
+    if (`${last} + ${name}`.length <= lineChars) lines[lines.length - 1] = `${last} + ${name}`;
+    else lines.push(`+ ${name}`);
+  }
+  const text = lines.map((line) => line.replaceAll(' ', NO_BREAK)).join(' ');
+  // factHeight counts a fact's lines by its length: two lines of whole names must also count as two.
+  const fits =
+    lines.length <= 2 && lines.every((line) => line.length <= lineChars) && text.length <= 2 * lineChars;
+  return fits ? { text, brief } : { text: brief };
 }
 
 /**
@@ -197,7 +223,14 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
   const add = (fact: BayFact | null) => {
     if (fact && fact.text) facts.push(fact);
   };
-  const techs = techsText(bay);
+  const techsSaid = techsWords(bay.technicians, lineChars);
+  const techs = (keep: boolean): BayFact | null =>
+    techsSaid && {
+      key: 'techs',
+      keep,
+      text: techsSaid.text,
+      ...(techsSaid.brief !== undefined && { brief: techsSaid.brief, yields: true }),
+    };
   const vehicle = wallVehicle(bay.vehicle);
   const vehicleFact = vehicle
     ? ({ key: 'vehicle', text: vehicle, keep: false, yields: true } as const)
@@ -231,10 +264,10 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
       add(vehicleFact && { ...vehicleFact, keep: true });
       add(roFact);
       add(jobFact);
-      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      add(techs(false));
       break;
     case 'working':
-      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      add(techs(false));
       add(vehicleFact);
       add(roFact);
       add(jobFact);
@@ -260,7 +293,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
         if (timer.kind === 'warm-up' && !timer.reached)
           add({ key: 'engine', text: 'Engine on', keep: false, tone: 'caution' });
       }
-      add(techs ? { key: 'techs', text: techs, keep: false } : null);
+      add(techs(false));
       add(vehicleFact);
       add(roFact);
       break;
@@ -273,7 +306,7 @@ export function bayFacts({ bay, clockedSeconds, nowMs, timeZone, lineChars }: Fa
       add(jobFact);
       break;
     case 'check':
-      add(techs ? { key: 'techs', text: techs, keep: true } : null);
+      add(techs(true));
       add(vehicleFact);
       add(roFact);
       add(jobFact);
@@ -325,19 +358,18 @@ export function factHeight(fact: BayFact, lineChars: number): number {
  * lines is shortened to two. When they all fit they all show. Otherwise the kept facts stay, one of them
  * shortened to a single line when only one is left for it, and unless they fill every line the others
  * take turns on the lines left (`turn` counts up every few seconds), in reading order: one taller than
- * those lines is left out, unless it yields (the vehicle), which takes its turn cut to those lines. A
+ * those lines is left out, unless it yields (the vehicle, two technicians' names), which takes its turn
+ * cut to those lines, saying its `brief` on one. A
  * fact that yields gives up its second line first: so that every fact shows, or, when kept, so that the
  * others have a line to take turns on.
  */
 export function pickLines(facts: BayFact[], slots: number, turn: number, lineChars = Infinity): TileLine[] {
   if (slots <= 0) return [];
   const height = (fact: BayFact) => factHeight(fact, lineChars);
-  const line = (fact: BayFact, rotating: boolean, lines = height(fact)): TileLine => ({
-    fact,
-    rotating,
-    wraps: lines > 1,
-    shortened: textLines(fact, lineChars) > lines,
-  });
+  const line = (whole: BayFact, rotating: boolean, lines = height(whole)): TileLine => {
+    const fact = whole.brief !== undefined && lines < height(whole) ? { ...whole, text: whole.brief } : whole;
+    return { fact, rotating, wraps: lines > 1, shortened: textLines(fact, lineChars) > lines };
+  };
   const total = (list: BayFact[]) => list.reduce((sum, fact) => sum + height(fact), 0);
   if (total(facts) <= slots) return facts.map((fact) => line(fact, false));
   // All of them fit when those that yield take one line each: they do, and the lines to spare go to

@@ -22,6 +22,18 @@ export function formatSpan(seconds: number): string {
  */
 export const WIDEST_SPAN = '00h 00m';
 
+/** Room for any span under an hour: "00m" is as wide as "59m" and a hair wider than "<1m" (chromium). */
+const WIDEST_MINUTES = '00m';
+
+/**
+ * The room a span needs until it next changes shape: minutes alone for the first hour, then any span.
+ * A chip packed by it repacks once when its span turns an hour, instead of keeping the room of "23h 59m"
+ * from its first minute (114 px more on a 1080p wall's strip chip).
+ */
+export function widestSpanUntilHour(seconds: number): string {
+  return seconds < 3600 ? WIDEST_MINUTES : WIDEST_SPAN;
+}
+
 /** A time of day in the shop's zone, "9:40 am" or "09:40" as the shop reads clocks. */
 export function formatTimeOfDay(ms: number, timeZone: string | undefined): string {
   return clockTime(ms, timeZone);

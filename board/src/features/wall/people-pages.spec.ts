@@ -37,17 +37,22 @@ describe(personChips.name, () => {
     ]);
   });
 
-  it('keeps room for the longest idle or break time however long it runs, and names the bay of one on a job', () => {
+  it('keeps room for the longest idle or break time of the hour, then for any longer time, and names the bay of one on a job', () => {
     const people = [
       person(1, 'idle', '2026-03-02T14:59:40Z'),
       person(2, 'on-break', '2026-03-02T14:59:40Z'),
       person(3, 'on-job', '2026-03-02T14:00:00Z', 'Bay 2'),
     ];
-    const first = personChips(people, now).map((chip) => chip.widestDetail);
-    expect(first).toEqual(['idle 00h 00m', 'break 00h 00m', 'Bay 2']);
+    const widest = (minutes: number) =>
+      personChips(people, now + minutes * 60_000).map((chip) => chip.widestDetail);
+    const first = widest(0);
+    expect(first).toEqual(['idle 00m', 'break 00m', 'Bay 2']);
+    const later = widest(60);
+    expect(later).toEqual(['idle 00h 00m', 'break 00h 00m', 'Bay 2']);
     for (let minutes = 0; minutes < 99 * 24 * 60; minutes += 53) {
       const chips = personChips(people, now + minutes * 60_000);
-      expect(chips.map((chip) => chip.widestDetail)).toEqual(first);
+      // Twenty seconds in at the start: the hour turns 59m 40s later.
+      expect(chips.map((chip) => chip.widestDetail)).toEqual(minutes < 59 ? first : later);
       // The wall's digits are all one width: a detail no longer than its widest is no wider.
       for (const chip of chips) expect(chip.detail.length).toBeLessThanOrEqual(chip.widestDetail.length);
     }
@@ -63,11 +68,10 @@ describe(queueSummary.name, () => {
       priority: 'normal' as const,
       waitingSince,
     });
-    expect(queueSummary([], now)).toEqual({ count: 0, oldestSeconds: null, late: 0 });
-    expect(queueSummary([item(1, '2026-03-02T14:30:00Z'), item(2, '2026-03-02T13:00:00Z')], now, 3)).toEqual({
+    expect(queueSummary([], now)).toEqual({ count: 0, oldestSeconds: null });
+    expect(queueSummary([item(1, '2026-03-02T14:30:00Z'), item(2, '2026-03-02T13:00:00Z')], now)).toEqual({
       count: 2,
       oldestSeconds: 7200,
-      late: 3,
     });
   });
 });
@@ -90,7 +94,7 @@ describe(stripPages.name, () => {
     expect(stripPages(widths, 100, 5, [])).toEqual([]);
   });
 
-  it('packs the same people into the same pages all day, however long they stay idle', () => {
+  it('packs the same people into the same pages through each one’s first hour, and through the rest of the day', () => {
     const people = [
       person(1, 'idle', '2026-03-02T14:59:30Z'),
       person(2, 'idle', '2026-03-02T14:50:00Z'),
@@ -104,8 +108,39 @@ describe(stripPages.name, () => {
     const packed = (nowMs: number) => stripPages(widths(nowMs), 70, 1);
     const first = packed(now);
     expect(first.length).toBeGreaterThan(1);
-    for (let minutes = 1; minutes < 12 * 60; minutes += 7)
-      expect(packed(now + minutes * 60_000)).toEqual(first);
+    // Person 2 turns an hour idle 50 minutes in, the last of them 60 minutes in.
+    for (let minutes = 1; minutes < 50; minutes += 7) expect(packed(now + minutes * 60_000)).toEqual(first);
+    const afterHour = packed(now + 61 * 60_000);
+    for (let minutes = 61; minutes < 12 * 60; minutes += 7)
+      expect(packed(now + minutes * 60_000)).toEqual(afterHour);
+  });
+
+  it('puts two chips on a page of the demo shop’s strip at 1920 × 1080 while their idle times are minutes', () => {
+    // Measured in chromium on the demo wall at 1920 × 1080: Barlow Semi Condensed, the strip's chips with
+    // a short queue note beside them leaving 1196 px of room, a gap of 10.8 px. Sam O. and Jo W. idle 36m and
+    // 30m, Marcus L. idle 12m, Priya C. on a break 20m, Luis B. and Dana O. on jobs.
+    const measured: Record<string, number> = {
+      'Sam O. idle 00m': 592,
+      'Sam O. idle 00h 00m': 706,
+      'Jo W. idle 00m': 548,
+      'Jo W. idle 00h 00m': 662,
+      'Marcus L. idle 00m': 679,
+      'Marcus L. idle 00h 00m': 794,
+      'Priya C. break 00m': 662,
+      'Priya C. break 00h 00m': 776,
+      'Luis B. Bay 2': 494,
+      'Dana O. Bay 1': 521,
+    };
+    const demo: BoardPerson[] = [
+      { ...person(1, 'idle', '2026-03-02T14:24:00Z'), name: 'Sam O.' },
+      { ...person(2, 'idle', '2026-03-02T14:30:00Z'), name: 'Jo W.' },
+      { ...person(3, 'idle', '2026-03-02T14:48:00Z'), name: 'Marcus L.' },
+      { ...person(4, 'on-break', '2026-03-02T14:40:00Z'), name: 'Priya C.' },
+      { ...person(5, 'on-job', '2026-03-02T13:00:00Z', 'Bay 2'), name: 'Luis B.' },
+      { ...person(6, 'on-job', '2026-03-02T13:10:00Z', 'Bay 1'), name: 'Dana O.' },
+    ];
+    const widths = personChips(demo, now).map((chip) => measured[`${chip.name} ${chip.widestDetail}`]!);
+    expect(stripPages(widths, 1196, 10.8)).toEqual([[0, 1], [2], [3, 4], [5]]);
   });
 });
 

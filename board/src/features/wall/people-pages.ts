@@ -1,6 +1,6 @@
 import type { BoardPerson, BoardQueueItem } from '@baytime/shared';
 import { secondsSince } from './server-clock';
-import { WIDEST_SPAN, formatSpan } from './board-time';
+import { formatSpan, widestSpanUntilHour } from './board-time';
 import { MIN_TILE_SCALE, WALL_METRICS, type GridArea } from './wall-layout';
 
 export interface PersonChip {
@@ -8,8 +8,9 @@ export interface PersonChip {
   name: string;
   detail: string;
   /**
-   * The detail as wide as it can get while the person does the same thing: the strip packs its pages by
-   * it, so an idle time that ticks from "<1m" to "1h 05m" never changes how many pages it has.
+   * The detail as wide as it can get while the person does the same thing and their span keeps its
+   * shape (minutes, then hours): the strip packs its pages by it, so an idle time that ticks from "<1m"
+   * to "59m", or on from "1h 05m", never changes how many pages it has.
    */
   widestDetail: string;
   status: BoardPerson['status'];
@@ -22,6 +23,7 @@ export function personChips(people: readonly BoardPerson[], nowMs: number): Pers
   return [...people]
     .sort((a, b) => ORDER[a.status] - ORDER[b.status] || Date.parse(a.since) - Date.parse(b.since))
     .map((person) => {
+      const seconds = secondsSince(person.since, nowMs);
       const detail = (span: string) =>
         person.status === 'on-job'
           ? (person.bayName ?? person.jobLineTitle ?? 'on a job')
@@ -31,8 +33,8 @@ export function personChips(people: readonly BoardPerson[], nowMs: number): Pers
       return {
         id: person.id,
         name: person.name,
-        detail: detail(formatSpan(secondsSince(person.since, nowMs))),
-        widestDetail: detail(WIDEST_SPAN),
+        detail: detail(formatSpan(seconds)),
+        widestDetail: detail(widestSpanUntilHour(seconds)),
         status: person.status,
       };
     });
@@ -41,17 +43,14 @@ export function personChips(people: readonly BoardPerson[], nowMs: number): Pers
 export interface QueueSummary {
   count: number;
   oldestSeconds: number | null;
-  /** Open lines forecast to miss their promised time. */
-  late: number;
 }
 
-export function queueSummary(queue: readonly BoardQueueItem[], nowMs: number, late = 0): QueueSummary {
-  if (!queue.length) return { count: 0, oldestSeconds: null, late };
+export function queueSummary(queue: readonly BoardQueueItem[], nowMs: number): QueueSummary {
+  if (!queue.length) return { count: 0, oldestSeconds: null };
   const oldest = Math.min(...queue.map((item) => Date.parse(item.waitingSince)).filter(Number.isFinite));
   return {
     count: queue.length,
     oldestSeconds: Number.isFinite(oldest) ? Math.max(0, Math.floor((nowMs - oldest) / 1000)) : null,
-    late,
   };
 }
 

@@ -120,7 +120,7 @@ function QueueNote({ queue }: { queue: QueueSummary }) {
       ) : (
         <span>
           Queue <span className={styles.queueCount}>{queue.count}</span>
-          {queue.late === 0 && queue.oldestSeconds !== null && (
+          {queue.oldestSeconds !== null && (
             <span className={styles.queueWait}>
               {' · oldest '}
               <SteadyText text={formatSpan(queue.oldestSeconds)} widest={WIDEST_SPAN} />
@@ -128,7 +128,6 @@ function QueueNote({ queue }: { queue: QueueSummary }) {
           )}
         </span>
       )}
-      {queue.late > 0 && <span className={styles.queueLate}> · {queue.late} late in the shop</span>}
     </div>
   );
 }

@@ -130,6 +130,7 @@ export function WallBoard({ token }: { token: string }) {
         page={page}
         pages={pages}
         kioskNote={kioskQueueText(snapshot.kioskQueues, snapshot.shop.timeZone)}
+        lateLines={snapshot.lateLines}
       />
       {people && page >= layout.pages ? (
         <PeopleBoard
@@ -175,7 +176,7 @@ export function WallBoard({ token }: { token: string }) {
         people={snapshot.people}
         nowMs={now}
         turn={turn}
-        queue={lost ? null : queueSummary(snapshot.queue, now, snapshot.lateLines)}
+        queue={lost ? null : queueSummary(snapshot.queue, now)}
         onPageCount={setStripPages}
         offJobsOnly={people !== null}
       />

@@ -29,10 +29,24 @@ export interface WallTopBarProps {
   pages: number;
   /** Punches waiting on a kiosk, in words; null when none. */
   kioskNote: string | null;
+  /** Open lines forecast to miss their promised time, across the shop. */
+  lateLines: number;
 }
 
 export function WallTopBar(props: WallTopBarProps) {
-  const { shopName, timeZone, nowMs, localNowMs, link, downSince, offsetMs, page, pages, kioskNote } = props;
+  const {
+    shopName,
+    timeZone,
+    nowMs,
+    localNowMs,
+    link,
+    downSince,
+    offsetMs,
+    page,
+    pages,
+    kioskNote,
+    lateLines,
+  } = props;
   const face = clockFace(nowMs, timeZone);
   const lost = downSince !== null && linkLost(link, downSince, localNowMs);
 
@@ -51,7 +65,15 @@ export function WallTopBar(props: WallTopBarProps) {
           <span className={styles.linkLostText}>{kioskNote}</span>
         </div>
       ) : (
-        <div className={styles.shopName}>{shopName}</div>
+        <div className={styles.shopName}>
+          {shopName}
+          {lateLines > 0 && (
+            <span className={styles.lateNote}>
+              {' · '}
+              {lateLines} {lateLines === 1 ? 'line' : 'lines'} running late
+            </span>
+          )}
+        </div>
       )}
       <PageMarks page={page} pages={pages} announced />
       {!lost && (
