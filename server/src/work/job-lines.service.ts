@@ -1,10 +1,11 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
-import { and, eq, isNull, ne, or } from 'drizzle-orm';
+import { and, eq, isNull, ne, or, sql } from 'drizzle-orm';
 import {
   formatDayClockTime,
   inSentence,
   JOB_LINE_STATUS_WORDS,
   isOpenLine,
+  lineWords,
   type CancelJobLineBody,
   type EditJobLineBody,
   type FinishLineBody,
@@ -225,8 +226,17 @@ export class JobLinesService {
 
   /** The advisor's corrections to a line: title, book hours, skill level and the three Cs. */
   @Transactional()
-  editDetails(id: number, body: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
+  editDetails(
+    id: number,
+    { expectedUpdatedAt, ...body }: EditJobLineBody,
+    actor: Principal,
+    now = new Date(),
+  ): JobLineDto {
     const line = this.find(id);
+    if (expectedUpdatedAt !== undefined && new Date(expectedUpdatedAt).getTime() !== line.updatedAt.getTime())
+      throw new ConflictException(
+        `Someone else changed ${lineWords(line.lineNo)} since you opened it: reload to see their change`,
+      );
     this.assertRepairOrderOpen(line);
     // An emptied cause or correction is no longer on record.
     const changes = changedFields(line, {
@@ -512,7 +522,16 @@ export class JobLinesService {
   }
 
   private save(id: number, changes: Partial<typeof jobLines.$inferInsert>): LineRow {
-    return this.db.update(jobLines).set(changes).where(eq(jobLines.id, id)).returning().get();
+    const at = changes.updatedAt;
+    // Strictly after the last change: an edit made on what was read just before a write in the same
+    // millisecond is still refused.
+    const updatedAt = at && sql`max(${at.getTime()}, ${jobLines.updatedAt} + 1)`;
+    return this.db
+      .update(jobLines)
+      .set({ ...changes, ...(updatedAt && { updatedAt }) })
+      .where(eq(jobLines.id, id))
+      .returning()
+      .get();
   }
 
   private announce(line: LineRow): JobLineDto {

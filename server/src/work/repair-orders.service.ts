@@ -230,6 +230,10 @@ export class RepairOrdersService {
   @Transactional()
   edit(id: number, body: EditRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
     const ro = this.openRow(id);
+    if (body.expectedVersion !== undefined && body.expectedVersion !== ro.version)
+      throw new ConflictException(
+        `Someone else changed RO ${ro.number} since you opened it: reload to see their change`,
+      );
     const promisedAt =
       body.promisedAt === undefined ? undefined : body.promisedAt === null ? null : new Date(body.promisedAt);
     if (promisedAt && promisedAt <= now && promisedAt.getTime() !== ro.promisedAt?.getTime())
@@ -267,7 +271,11 @@ export class RepairOrdersService {
       );
     }
     const set = Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to]));
-    this.db.update(repairOrders).set(set).where(eq(repairOrders.id, id)).run();
+    this.db
+      .update(repairOrders)
+      .set({ ...set, version: sql`${repairOrders.version} + 1` })
+      .where(eq(repairOrders.id, id))
+      .run();
     const onFile = { name: customer.name, phone: customer.phone, email };
     if (Object.values(onFile).some((v) => v !== undefined))
       this.db.update(customers).set(onFile).where(eq(customers.id, ro.customerId)).run();
@@ -386,7 +394,7 @@ export class RepairOrdersService {
       throw new ConflictException(`RO ${ro.number} still has open work: finish or cancel its lines first`);
     this.db
       .update(repairOrders)
-      .set({ status: 'closed', closedAt: now })
+      .set({ status: 'closed', closedAt: now, version: sql`${repairOrders.version} + 1` })
       .where(eq(repairOrders.id, id))
       .run();
     const freed = this.db
@@ -602,6 +610,7 @@ export class RepairOrdersService {
       promisedAt: ro.promisedAt?.toISOString() ?? null,
       createdAt: ro.createdAt.toISOString(),
       closedAt: ro.closedAt?.toISOString() ?? null,
+      version: ro.version,
       late: lines.some((line) => line.repairOrderId === ro.id && late.has(line.id)),
       lines: lines
         .filter((line) => line.repairOrderId === ro.id)

@@ -69,7 +69,11 @@ export const jobLineInputSchema = z.object({
 });
 export type JobLineInput = z.infer<typeof jobLineInputSchema>;
 
-/** `PATCH /api/job-lines/:id/details`: the advisor corrects a line after the fact. */
+/**
+ * `PATCH /api/job-lines/:id/details`: the advisor corrects a line after the fact. With
+ * `expectedUpdatedAt` (the line's `updatedAt` as read) the edit is refused with 409 once the line
+ * changed since; without it the edit is taken as it comes.
+ */
 export const editJobLineSchema = z
   .object({
     title: lineTitleSchema,
@@ -78,6 +82,7 @@ export const editJobLineSchema = z
     concern: concernSchema,
     cause: causeSchema,
     correction: correctionSchema,
+    expectedUpdatedAt: instantSchema,
   })
   .partial()
   .strict();
@@ -134,6 +139,11 @@ export interface JobLineDto {
   correction: string | null;
   /** Why it was cancelled; null unless cancelled. */
   cancelReason: string | null;
+  /**
+   * The line's last change, moved by every write to it: an edit sends it back as `expectedUpdatedAt`.
+   * Left out of the dispatch board's lines, which are never edited from there.
+   */
+  updatedAt?: string;
 }
 
 /**
@@ -195,7 +205,8 @@ export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
  * `PATCH /api/repair-orders/:id`: corrections after the fact, each audited with what it was. A
  * promise of null takes the promise back; a phone, e-mail or plate left empty (or null) is taken off,
  * as a customer may have no phone or e-mail on file. A reading lowered below the vehicle's highest
- * needs a reason, as at intake.
+ * needs a reason, as at intake. With `expectedVersion` (the RO's `version` as read) the edit is
+ * refused with 409 once the RO changed since; without it the edit is taken as it comes.
  */
 export const editRepairOrderSchema = z
   .object({
@@ -222,6 +233,7 @@ export const editRepairOrderSchema = z
     concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
     promisedAt: instantSchema.nullable(),
     odometerOverrideReason: reasonSchema,
+    expectedVersion: z.number().int().min(1),
   })
   .partial()
   .strict();
@@ -291,6 +303,8 @@ export interface RepairOrderSummary {
   promisedAt: string | null;
   createdAt: string;
   closedAt: string | null;
+  /** Moved by every write to the RO (not to its lines): an edit sends it back as `expectedVersion`. */
+  version: number;
   /** An open line of it is late: see `isLineLate`. */
   late: boolean;
   /** Each line with the seconds everyone has clocked on it (split rule applied), whether it is late, and its parts hold. */

@@ -67,6 +67,7 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
     closedAt: null,
+    version: 1,
     late: false,
     lines: [jobLine()],
     ...overrides,

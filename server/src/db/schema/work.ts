@@ -98,6 +98,11 @@ export const repairOrders = sqliteTable(
     closedAt: integer('closed_at', { mode: 'timestamp_ms' }),
     /** The RO's reference in the system it was imported from: one RO per reference in the shop. */
     externalRef: text('external_ref'),
+    /**
+     * Moved by every write to the row: an edit that names the version its editor read is refused once
+     * another write came in between, instead of silently undoing it.
+     */
+    version: integer('version').notNull().default(1),
   },
   (t) => [
     uniqueIndex('repair_orders_number_idx').on(t.number),

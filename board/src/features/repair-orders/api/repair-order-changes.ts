@@ -1,3 +1,4 @@
+import { useCallback } from 'react';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type {
   AddJobLineBody,
@@ -10,8 +11,10 @@ import type {
   PatchJobLineBody,
   RepairOrderSummary,
 } from '@baytime/shared';
+import { ApiError } from '@baytime/shared/client';
 import { officeApi } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
+import { repairOrderQueryOptions } from './get-repair-order';
 
 /** Every change to an RO from its page: the RO, its history, the lists and dispatch are read again. */
 function useRepairOrderChange<Vars, Result>(repairOrderId: number, send: (vars: Vars) => Promise<Result>) {
@@ -28,6 +31,22 @@ function useRepairOrderChange<Vars, Result>(repairOrderId: number, send: (vars: 
         ].map((queryKey) => queryClient.invalidateQueries({ queryKey })),
       ),
   });
+}
+
+/**
+ * The server refused an edit because the RO or line changed since the dialog read it (or the RO was
+ * closed meanwhile): reading it again is the way on, not another try.
+ */
+export const isStaleEdit = (error: unknown): error is ApiError =>
+  error instanceof ApiError && error.status === 409;
+
+/** The RO read again from the server (the page follows), for a dialog that was refused on stale data. */
+export function useReloadRepairOrder(id: number): () => Promise<RepairOrderSummary> {
+  const queryClient = useQueryClient();
+  return useCallback(
+    () => queryClient.fetchQuery({ ...repairOrderQueryOptions(id), staleTime: 0 }),
+    [queryClient, id],
+  );
 }
 
 export const useEditRepairOrder = (id: number) =>

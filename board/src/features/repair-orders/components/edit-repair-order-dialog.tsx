@@ -1,5 +1,15 @@
 import { useState } from 'react';
-import { Field, Input, Textarea, makeStyles, tokens } from '@fluentui/react-components';
+import {
+  Button,
+  Field,
+  Input,
+  MessageBar,
+  MessageBarActions,
+  MessageBarBody,
+  Textarea,
+  makeStyles,
+  tokens,
+} from '@fluentui/react-components';
 import {
   editRepairOrderSchema,
   formatPhone,
@@ -10,7 +20,7 @@ import {
 import { ApiError } from '@baytime/shared/client';
 import { FormDialog } from '@/components/form-dialog';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
-import { useEditRepairOrder } from '../api/repair-order-changes';
+import { isStaleEdit, useEditRepairOrder, useReloadRepairOrder } from '../api/repair-order-changes';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
 import { changedFields } from '../ro-model';
 
@@ -36,6 +46,50 @@ function promiseText(promisedAt: string | null, timeZone: string) {
 }
 
 type PromiseText = { date: string; time: string };
+
+/** The form's fields as the RO was read. */
+function fieldsOf(ro: RepairOrderSummary) {
+  return {
+    customer: {
+      name: ro.customerName,
+      phone: ro.customerPhone ? formatPhone(ro.customerPhone) : '',
+      email: ro.customerEmail ?? '',
+    },
+    vehicle: {
+      year: ro.vehicleYear,
+      make: ro.vehicleMake,
+      model: ro.vehicleModel,
+      plate: ro.plate ?? '',
+      odometer: ro.odometer,
+    },
+    concern: ro.concern,
+  };
+}
+
+/**
+ * The server's words on an edit refused because someone else saved first, with the way on: read it
+ * again, which puts their change in the fields.
+ */
+export function StaleEditBar({
+  message,
+  reloading,
+  onReload,
+}: {
+  message: string;
+  reloading: boolean;
+  onReload: () => void;
+}) {
+  return (
+    <MessageBar intent="warning">
+      <MessageBarBody>{message}</MessageBarBody>
+      <MessageBarActions>
+        <Button size="small" disabled={reloading} onClick={onReload}>
+          {reloading ? 'Reloading…' : 'Reload'}
+        </Button>
+      </MessageBarActions>
+    </MessageBar>
+  );
+}
 
 /** The promise to send: undefined when untouched, null when cleared, or why it cannot be sent. */
 function promiseToSend(
@@ -68,34 +122,44 @@ export function EditRepairOrderDialog({
 }) {
   const styles = useStyles();
   const edit = useEditRepairOrder(ro.id);
-  const [opened] = useState(() => ({
-    customer: {
-      name: ro.customerName,
-      phone: ro.customerPhone ? formatPhone(ro.customerPhone) : '',
-      email: ro.customerEmail ?? '',
-    },
-    vehicle: {
-      year: ro.vehicleYear,
-      make: ro.vehicleMake,
-      model: ro.vehicleModel,
-      plate: ro.plate ?? '',
-      odometer: ro.odometer,
-    },
-    concern: ro.concern,
-  }));
+  const reload = useReloadRepairOrder(ro.id);
+  // The RO as the dialog read it, not as the page now shows it: its version is what the edit is made on.
+  const [read, setRead] = useState(ro);
+  const [opened, setOpened] = useState(() => fieldsOf(ro));
   const form = useSchemaForm(editRepairOrderSchema, { defaultValues: opened });
-  const [openedPromise] = useState(() => (timeZone ? promiseText(ro.promisedAt, timeZone) : null));
+  const promiseOf = (from: RepairOrderSummary) => (timeZone ? promiseText(from.promisedAt, timeZone) : null);
+  const [openedPromise, setOpenedPromise] = useState(() => promiseOf(ro));
   const [promise, setPromise] = useState(openedPromise);
   const [promiseError, setPromiseError] = useState<string | null>(null);
   const [odometerRefused, setOdometerRefused] = useState(false);
   const [odometerReason, setOdometerReason] = useState('');
+  const [stale, setStale] = useState<string | null>(null);
+  const [reloading, setReloading] = useState(false);
   const { errors } = form.formState;
+
+  const readAgain = () => {
+    setReloading(true);
+    reload()
+      .then((fresh) => {
+        setRead(fresh);
+        setOpened(fieldsOf(fresh));
+        form.reset(fieldsOf(fresh));
+        setOpenedPromise(promiseOf(fresh));
+        setPromise(promiseOf(fresh));
+        setPromiseError(null);
+        setOdometerRefused(false);
+        setOdometerReason('');
+        setStale(null);
+      })
+      .catch((error: unknown) => showServerErrors(form, error))
+      .finally(() => setReloading(false));
+  };
 
   return (
     <FormDialog
       title={`Edit RO ${ro.number}`}
       submitLabel="Save changes"
-      pending={edit.isPending}
+      pending={edit.isPending || reloading}
       formError={errors.root?.server?.message}
       onClose={onClose}
       onSubmit={form.handleSubmit((edited) => {
@@ -109,9 +173,11 @@ export function EditRepairOrderDialog({
           ...(promised.promisedAt !== undefined && { promisedAt: promised.promisedAt }),
         };
         if (Object.keys(body).length === 0) return onClose();
-        edit.mutate(odometerRefused ? { ...body, odometerOverrideReason: odometerReason } : body, {
+        const sent = { ...body, expectedVersion: read.version };
+        edit.mutate(odometerRefused ? { ...sent, odometerOverrideReason: odometerReason } : sent, {
           onSuccess: onClose,
           onError: (error) => {
+            if (isStaleEdit(error)) return setStale(error.message);
             showServerErrors(form, error);
             if (error instanceof ApiError && error.fieldErrors['vehicle.odometer']) setOdometerRefused(true);
           },
@@ -193,6 +259,7 @@ export function EditRepairOrderDialog({
           </Field>
         </div>
       )}
+      {stale && <StaleEditBar message={stale} reloading={reloading} onReload={readAgain} />}
     </FormDialog>
   );
 }

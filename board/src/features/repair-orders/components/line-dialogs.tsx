@@ -14,12 +14,15 @@ import { FormDialog } from '@/components/form-dialog';
 import { formErrorText } from '@/lib/form-errors';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import {
+  isStaleEdit,
   useAddJobLine,
   useCancelJobLine,
   useEditJobLine,
+  useReloadRepairOrder,
   useReopenJobLine,
 } from '../api/repair-order-changes';
 import { changedFields } from '../ro-model';
+import { StaleEditBar } from './edit-repair-order-dialog';
 
 /** Typed hours as a number when they read as one; the schema says what is wrong otherwise. */
 const asHours = (value: unknown) => (typeof value === 'string' ? (parseDecimal(value) ?? value) : value);
@@ -29,31 +32,63 @@ interface LineDialogProps {
   onClose: () => void;
 }
 
+/** The form's fields as the line was read. */
+const lineFieldsOf = (line: JobLineDto) => ({
+  title: line.title,
+  bookHours: line.bookHours,
+  concern: line.concern,
+  cause: line.cause ?? '',
+  correction: line.correction ?? '',
+});
+
 /** The advisor corrects a line: title, book hours and the three Cs. */
 export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps & { line: JobLineDto }) {
   const edit = useEditJobLine(repairOrderId);
-  const [opened] = useState(() => ({
-    title: line.title,
-    bookHours: line.bookHours,
-    concern: line.concern,
-    cause: line.cause ?? '',
-    correction: line.correction ?? '',
-  }));
+  const reload = useReloadRepairOrder(repairOrderId);
+  // The line as the dialog read it: the edit is made on its `updatedAt`.
+  const [read, setRead] = useState(line);
+  const [opened, setOpened] = useState(() => lineFieldsOf(line));
   const form = useSchemaForm(editJobLineSchema, { defaultValues: opened });
+  const [stale, setStale] = useState<string | null>(null);
+  const [reloading, setReloading] = useState(false);
   const { errors } = form.formState;
+
+  const readAgain = () => {
+    setReloading(true);
+    reload()
+      .then((ro) => {
+        const fresh = ro.lines.find((l) => l.id === line.id);
+        // Removed meanwhile: the page shows it gone.
+        if (!fresh) return onClose();
+        setRead(fresh);
+        setOpened(lineFieldsOf(fresh));
+        form.reset(lineFieldsOf(fresh));
+        setStale(null);
+      })
+      .catch((error: unknown) => showServerErrors(form, error))
+      .finally(() => setReloading(false));
+  };
+
   return (
     <FormDialog
-      title={`Edit ${lineWords(line.lineNo)}`}
+      title={`Edit ${lineWords(read.lineNo)}`}
       submitLabel="Save line"
-      pending={edit.isPending}
+      pending={edit.isPending || reloading}
       formError={errors.root?.server?.message}
       onClose={onClose}
       onSubmit={form.handleSubmit((edited) => {
         const body = changedFields(editJobLineSchema.safeParse(opened).data ?? {}, edited);
         if (Object.keys(body).length === 0) return onClose();
         edit.mutate(
-          { lineId: line.id, body },
-          { onSuccess: onClose, onError: (error) => showServerErrors(form, error) },
+          {
+            lineId: line.id,
+            body: { ...body, ...(read.updatedAt && { expectedUpdatedAt: read.updatedAt }) },
+          },
+          {
+            onSuccess: onClose,
+            onError: (error) =>
+              isStaleEdit(error) ? setStale(error.message) : showServerErrors(form, error),
+          },
         );
       })}
     >
@@ -72,6 +107,7 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
       <Field label="Correction (what was done)" validationMessage={errors.correction?.message}>
         <Textarea rows={2} {...form.register('correction')} />
       </Field>
+      {stale && <StaleEditBar message={stale} reloading={reloading} onReload={readAgain} />}
     </FormDialog>
   );
 }

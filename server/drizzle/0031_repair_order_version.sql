@@ -1,0 +1,1 @@
+ALTER TABLE `repair_orders` ADD `version` integer DEFAULT 1 NOT NULL;

@@ -1,0 +1,196 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { and, eq } from 'drizzle-orm';
+import type { JobLineDto, RepairOrderSummary, SignInAnswer } from '@baytime/shared';
+import { DB, type Db } from '../db/database.js';
+import { auditLog, users } from '../db/schema/index.js';
+import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
+import { JobLinesService } from './job-lines.service.js';
+import { RepairOrdersService } from './repair-orders.service.js';
+
+const HOUR = 3600_000;
+
+describe(`${RepairOrdersService.name} refusing an edit made on stale data`, () => {
+  let sut: TestApp;
+  let advisor: string;
+  let otherAdvisor: string;
+  let foreman: string;
+  let tech: SignInAnswer;
+  const as = (token: string) => ({
+    get: (path: string) => sut.http().get(path).auth(token, { type: 'bearer' }),
+    post: (path: string, body: object = {}) =>
+      sut.http().post(path).auth(token, { type: 'bearer' }).send(body),
+    patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
+  });
+  const edits = (entity: string, entityId: number) =>
+    sut.app
+      .get<Db>(DB)
+      .select()
+      .from(auditLog)
+      .where(
+        and(
+          eq(auditLog.entity, entity),
+          eq(auditLog.entityId, String(entityId)),
+          eq(auditLog.action, 'edit'),
+        ),
+      )
+      .all();
+  const ro = async (id: number) =>
+    (await as(advisor).get(`/api/repair-orders/${id}`).expect(200)).body as RepairOrderSummary;
+  const write = async () =>
+    (
+      await as(advisor)
+        .post('/api/repair-orders', {
+          customer: { name: 'Ysolde Marrick', phone: '(608) 555-0171' },
+          vehicle: {
+            vin: '1M8GDM9AXKP042788',
+            year: 1989,
+            make: 'Tarrow',
+            model: 'Kestrel',
+            odometer: 61_000,
+          },
+          concern: 'Rattle over bumps',
+          promisedAt: new Date(Date.now() + 48 * HOUR).toISOString(),
+          lines: [
+            { title: 'Inspect front suspension', bookHours: 0.8 },
+            { title: 'Replace sway bar links', bookHours: 1.1 },
+          ],
+        })
+        .expect(201)
+    ).body as RepairOrderSummary;
+
+  beforeAll(async () => {
+    sut = await startTestApp();
+    advisor = await sut.signIn(DEMO.advisor);
+    otherAdvisor = await sut.signIn(DEMO.owner);
+    foreman = await sut.signIn(DEMO.foreman);
+    tech = await sut.badge('1045');
+  });
+  afterAll(() => sut.close());
+
+  it('refuses the second of two RO edits made on the same read, storing nothing of it', async () => {
+    const written = await write();
+    const read = (await ro(written.id)).version;
+    await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, { concern: 'Rattle and a clunk', expectedVersion: read })
+      .expect(200);
+    const refused = await as(otherAdvisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        concern: 'Only a rattle',
+        vehicle: { plate: 'RM 4410' },
+        expectedVersion: read,
+      })
+      .expect(409);
+    expect(refused.body.message).toBe(
+      `Someone else changed RO ${written.number} since you opened it: reload to see their change`,
+    );
+    const now = await ro(written.id);
+    expect(now).toMatchObject({ concern: 'Rattle and a clunk', plate: null, version: read + 1 });
+    expect(edits('repair-order', written.id)).toHaveLength(1);
+
+    // Sent again on the RO as it is now, the edit goes through; without a version, as it always did.
+    await as(otherAdvisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        vehicle: { plate: 'RM 4410' },
+        expectedVersion: now.version,
+      })
+      .expect(200);
+    const unversioned = (
+      await as(otherAdvisor)
+        .patch(`/api/repair-orders/${written.id}`, { concern: 'Only a rattle' })
+        .expect(200)
+    ).body as RepairOrderSummary;
+    expect(unversioned).toMatchObject({ concern: 'Only a rattle', plate: 'RM 4410', version: read + 3 });
+  });
+
+  it('moves the RO’s version when its status follows its lines, and when it closes', async () => {
+    const written = await write();
+    const [first, second] = written.lines;
+    const read = (await ro(written.id)).version;
+    await as(advisor)
+      .post(`/api/job-lines/${first!.id}/cancel`, { reason: 'Customer declined the inspection' })
+      .expect(200);
+    // One line still open: the RO's own record is untouched.
+    expect((await ro(written.id)).version).toBe(read);
+    await as(advisor)
+      .post(`/api/job-lines/${second!.id}/cancel`, { reason: 'Customer will come back for it' })
+      .expect(200);
+    const done = await ro(written.id);
+    expect(done).toMatchObject({ status: 'done', version: read + 1 });
+    await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, { concern: 'Rattle, seen to later', expectedVersion: read })
+      .expect(409);
+    await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(200);
+    expect((await ro(written.id)).version).toBe(read + 2);
+  });
+
+  it('refuses the second of two line edits made on the same read, storing nothing of it', async () => {
+    const written = await write();
+    const line = written.lines[0]!;
+    const read = (await ro(written.id)).lines[0]!.updatedAt!;
+    const saved = (
+      await as(advisor)
+        .patch(`/api/job-lines/${line.id}/details`, { bookHours: 1.2, expectedUpdatedAt: read })
+        .expect(200)
+    ).body as JobLineDto;
+    expect(Date.parse(saved.updatedAt!)).toBeGreaterThan(Date.parse(read));
+    const refused = await as(otherAdvisor)
+      .patch(`/api/job-lines/${line.id}/details`, {
+        bookHours: 0.5,
+        title: 'Look at the front end',
+        expectedUpdatedAt: read,
+      })
+      .expect(409);
+    expect(refused.body.message).toBe(
+      'Someone else changed line 1 since you opened it: reload to see their change',
+    );
+    expect((await ro(written.id)).lines[0]).toMatchObject({
+      bookHours: 1.2,
+      title: 'Inspect front suspension',
+      updatedAt: saved.updatedAt,
+    });
+    expect(edits('job-line', line.id)).toHaveLength(1);
+
+    const unversioned = (
+      await as(otherAdvisor).patch(`/api/job-lines/${line.id}/details`, { bookHours: 0.5 }).expect(200)
+    ).body as JobLineDto;
+    expect(unversioned.bookHours).toBe(0.5);
+  });
+
+  it('refuses a line edit read before the foreman assigned the line', async () => {
+    const written = await write();
+    const line = written.lines[1]!;
+    const read = (await ro(written.id)).lines[1]!.updatedAt!;
+    const assigned = (
+      await as(foreman).patch(`/api/job-lines/${line.id}`, { technicianId: tech.user.id }).expect(200)
+    ).body as JobLineDto;
+    expect(assigned.updatedAt).not.toBe(read);
+    await as(advisor)
+      .patch(`/api/job-lines/${line.id}/details`, {
+        title: 'Replace both sway bar links',
+        expectedUpdatedAt: read,
+      })
+      .expect(409);
+    await as(advisor)
+      .patch(`/api/job-lines/${line.id}/details`, {
+        title: 'Replace both sway bar links',
+        expectedUpdatedAt: assigned.updatedAt,
+      })
+      .expect(200);
+  });
+
+  it('moves a line’s version on a write in the very millisecond it was read', async () => {
+    const written = await write();
+    const line = written.lines[0]!;
+    const read = line.updatedAt!;
+    const foremanRow = sut.app.get<Db>(DB).select().from(users).where(eq(users.email, DEMO.foreman)).get()!;
+    const actor = { id: foremanRow.id, name: foremanRow.name, role: foremanRow.role };
+    const raised = sut.app.get(JobLinesService).patch(line.id, { priority: 'high' }, actor, new Date(read));
+    expect(raised.updatedAt).not.toBe(read);
+    await as(advisor)
+      .patch(`/api/job-lines/${line.id}/details`, {
+        title: 'Inspect the whole front end',
+        expectedUpdatedAt: read,
+      })
+      .expect(409);
+  });
+});
