@@ -46,6 +46,8 @@ describe('Done without clocked time', () => {
     const before = await flagged(day.technician.id);
 
     await kiosk.locator('article', { hasText: line.title }).getByRole('button', { name: 'Done' }).click();
+    await kiosk.getByLabel('Cause: what you found').fill('Both front strut mounts worn');
+    await kiosk.getByLabel('Correction: what you did').fill('Replaced both front struts');
     await kiosk
       .getByRole('dialog')
       .getByRole('button', { name: /Final QC next/ })

@@ -168,6 +168,17 @@ export const finishLineSchema = z.object({
 export type FinishLineBody = z.infer<typeof finishLineSchema>;
 export type FinishLineFields = z.input<typeof finishLineSchema>;
 
+/**
+ * A technician marking a line done at the kiosk writes the cause and correction: they are the RO's
+ * record for the customer and any warranty claim. The foreman may still finish a line without them.
+ */
+export const kioskDoneSchema = finishLineSchema.extend({
+  cause: plainText(1000, { min: 3, multiline: true, message: 'Say what you found' }),
+  correction: plainText(1000, { min: 3, multiline: true, message: 'Say what you did' }),
+});
+export type KioskDoneBody = z.infer<typeof kioskDoneSchema>;
+export type KioskDoneFields = z.input<typeof kioskDoneSchema>;
+
 const emailSchema = z.email('Not an e-mail address').max(200);
 
 export const customerInputSchema = z.object({

@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import { BAY_STATE_WORDS, finishLineSchema, type FinishLineBody } from '@baytime/shared';
+import { BAY_STATE_WORDS, kioskDoneSchema, type FinishLineBody } from '@baytime/shared';
 import { CheckIcon, MeaningGlyph } from '@/components/icons';
 import { Sheet, SheetProblem } from '@/components/sheet';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
@@ -33,7 +33,7 @@ export interface DoneSheetProps {
 export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
   const finish = useFinishLine();
   const [chosen, setChosen] = useState<Next | null>(null);
-  const form = useSchemaForm(finishLineSchema, { defaultValues: { cause: '', correction: '' } });
+  const form = useSchemaForm(kioskDoneSchema, { defaultValues: { cause: '', correction: '' } });
   const { errors } = form.formState;
   const causeId = useId();
   const correctionId = useId();
@@ -89,9 +89,14 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
           className={`bt-done__field${errors.cause ? ' is-invalid' : ''}`}
           rows={3}
           aria-invalid={!!errors.cause}
+          aria-describedby={errors.cause ? `${causeId}-problem` : undefined}
           {...form.register('cause')}
         />
-        {errors.cause && <p className="bt-done__problem">{errors.cause.message}</p>}
+        {errors.cause && (
+          <p id={`${causeId}-problem`} className="bt-done__problem" role="alert">
+            {errors.cause.message}
+          </p>
+        )}
         <label className="bt-done__label" htmlFor={correctionId}>
           Correction: what you did
         </label>
@@ -100,9 +105,14 @@ export function DoneSheet({ line, context, onClose }: DoneSheetProps) {
           className={`bt-done__field${errors.correction ? ' is-invalid' : ''}`}
           rows={3}
           aria-invalid={!!errors.correction}
+          aria-describedby={errors.correction ? `${correctionId}-problem` : undefined}
           {...form.register('correction')}
         />
-        {errors.correction && <p className="bt-done__problem">{errors.correction.message}</p>}
+        {errors.correction && (
+          <p id={`${correctionId}-problem`} className="bt-done__problem" role="alert">
+            {errors.correction.message}
+          </p>
+        )}
       </form>
     </Sheet>
   );
