@@ -20,6 +20,7 @@ describe('LIVE_QUERIES', () => {
         seq: 1,
         findingId: 4,
         jobLineId: 9,
+        note: 'Brake hose cracked',
         answer: 'approved',
         channel: 'phone',
       }),

@@ -239,7 +239,12 @@ describe(ApprovalsService.name, () => {
         signedName: 'Harriet Quenby',
         approvedCents: 245_30,
       });
-      expect(await heard).toMatchObject({ jobLineId: second.jobLineId, answer: 'declined', channel: 'link' });
+      expect(await heard).toMatchObject({
+        jobLineId: second.jobLineId,
+        note: 'wiper blades torn',
+        answer: 'declined',
+        channel: 'link',
+      });
 
       const added = db
         .select()

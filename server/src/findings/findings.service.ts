@@ -310,7 +310,13 @@ export class FindingsService {
     }
     this.live.publish(
       'finding.answered',
-      { findingId: id, jobLineId: line.id, answer: decision.answer, channel: source.channel },
+      {
+        findingId: id,
+        jobLineId: line.id,
+        note: finding.note,
+        answer: decision.answer,
+        channel: source.channel,
+      },
       { to: 'floor' },
     );
     return {

@@ -37,6 +37,8 @@ export interface ServerToClientEvents {
       findingId: number;
       /** The line the finding was raised on. */
       jobLineId: number;
+      /** What the technician wrote: the tablet's notice says which finding was answered. */
+      note: string;
       answer: 'approved' | 'declined';
       channel: AnswerChannel;
     },

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { MyJobLine } from '@baytime/shared';
-import { findingAnswerNotice, linesAnswered } from './finding-answer-words';
+import { findingAnswerNotice, linesAnswered, NOTICE_NOTE_MAX, shortNote } from './finding-answer-words';
 
 function line(id: number, changes: Partial<MyJobLine> = {}): MyJobLine {
   return {
@@ -49,5 +49,33 @@ describe('findingAnswerNotice', () => {
     expect(findingAnswerNotice(line(2), null)).toBe(
       'Customer answered on RO 7319 line 2: this line is back in your queue.',
     );
+  });
+
+  it('names the finding answered by its note when the tablet knows it', () => {
+    expect(findingAnswerNotice(line(2), 'approved', 'Torn boot on the\ninner tie rod end')).toBe(
+      'Customer approved “Torn boot on the inner tie rod end” on RO 7319 line 2: it is added to the RO, and this line is back in your queue.',
+    );
+    expect(findingAnswerNotice(line(2), 'declined', 'Coolant seeping at the water pump')).toBe(
+      'Customer declined “Coolant seeping at the water pump” on RO 7319 line 2: carry on with the rest of the line.',
+    );
+  });
+});
+
+describe('shortNote', () => {
+  it('keeps a short note whole, on one line', () => {
+    expect(shortNote('  Rear wiper\n blade split  ')).toBe('Rear wiper blade split');
+  });
+
+  it('cuts a long note at a word, with an ellipsis, within the limit', () => {
+    const note =
+      'Both rear brake hoses cracked along their length, and the left caliper slide pin is seized in its bore';
+    const short = shortNote(note);
+    expect(short).toBe('Both rear brake hoses cracked along their length, and the…');
+    expect(short.length).toBeLessThanOrEqual(NOTICE_NOTE_MAX);
+    expect(shortNote('Oil leak, rear main seal, pan gasket', 20)).toBe('Oil leak, rear main…');
+  });
+
+  it('cuts one very long word where it stands', () => {
+    expect(shortNote('x'.repeat(80), 10)).toBe(`${'x'.repeat(9)}…`);
   });
 });

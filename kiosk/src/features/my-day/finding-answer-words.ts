@@ -13,12 +13,34 @@ export function linesAnswered(before: readonly MyJobLine[], after: readonly MyJo
   return after.filter((line) => waited.has(line.id) && !heldForApproval(line));
 }
 
-/** The notice on My day, from the answer the tablet heard for the line (null: it heard none, e.g. offline). */
-export function findingAnswerNotice(line: MyJobLine, answer: FindingAnswer | null): string {
+/** The longest finding note a notice quotes: about one line on the tablet. */
+export const NOTICE_NOTE_MAX = 60;
+
+/** A finding's note on one line, cut at a word with an ellipsis when it is longer than `max`. */
+export function shortNote(note: string, max = NOTICE_NOTE_MAX): string {
+  const flat = note.replace(/\s+/gu, ' ').trim();
+  if (flat.length <= max) return flat;
+  // One character more than fits shows whether the cut falls at the end of a word.
+  const lastSpace = flat.slice(0, max).lastIndexOf(' ');
+  // A long word is cut where it stands rather than leave a stub of two words.
+  const cut = lastSpace >= max / 2 ? flat.slice(0, lastSpace) : flat.slice(0, max - 1);
+  return `${cut.replace(/[\s,.;:–-]+$/u, '')}…`;
+}
+
+/**
+ * The notice on My day, from the answer the tablet heard for the line (null: it heard none, e.g.
+ * offline) and the note of the finding it answered.
+ */
+export function findingAnswerNotice(
+  line: MyJobLine,
+  answer: FindingAnswer | null,
+  findingNote: string | null = null,
+): string {
   const where = `RO ${line.repairOrderNumber} line ${line.lineNo}`;
+  const work = findingNote ? `“${shortNote(findingNote)}”` : 'the extra work';
   if (answer === 'approved')
-    return `Customer approved the extra work on ${where}: it is added to the RO, and this line is back in your queue.`;
+    return `Customer approved ${work} on ${where}: it is added to the RO, and this line is back in your queue.`;
   if (answer === 'declined')
-    return `Customer declined the extra work on ${where}: carry on with the rest of the line.`;
+    return `Customer declined ${work} on ${where}: carry on with the rest of the line.`;
   return `Customer answered on ${where}: this line is back in your queue.`;
 }

@@ -11,14 +11,14 @@ const ANSWER_FRESH_MS = 60_000;
  * technician sees why a line held for approval is back, and what was answered.
  */
 export function useFindingAnswerNotices(lines: readonly MyJobLine[] | undefined): string[] {
-  const answers = useRef(new Map<number, { answer: FindingAnswer; at: number }>());
+  const answers = useRef(new Map<number, { answer: FindingAnswer; note: string | null; at: number }>());
   const previous = useRef<readonly MyJobLine[] | undefined>(undefined);
   const [notices, setNotices] = useState<ReadonlyMap<number, string>>(new Map());
 
   useEffect(
     () =>
-      onLive('finding.answered', ({ jobLineId, answer }) => {
-        answers.current.set(jobLineId, { answer, at: Date.now() });
+      onLive('finding.answered', ({ jobLineId, note, answer }) => {
+        answers.current.set(jobLineId, { answer, note, at: Date.now() });
       }),
     [],
   );
@@ -28,15 +28,18 @@ export function useFindingAnswerNotices(lines: readonly MyJobLine[] | undefined)
     previous.current = lines;
     if (!before || !lines) return;
     const answered = linesAnswered(before, lines);
-    const answerFor = (lineId: number) => {
+    const heardFor = (lineId: number) => {
       const heard = answers.current.get(lineId);
-      return heard && Date.now() - heard.at < ANSWER_FRESH_MS ? heard.answer : null;
+      return heard && Date.now() - heard.at < ANSWER_FRESH_MS ? heard : null;
     };
     setNotices((current) => {
       const next = new Map(
         [...current].filter(([id]) => lines.some((line) => line.id === id && line.status === 'queued')),
       );
-      for (const line of answered) next.set(line.id, findingAnswerNotice(line, answerFor(line.id)));
+      for (const line of answered) {
+        const heard = heardFor(line.id);
+        next.set(line.id, findingAnswerNotice(line, heard?.answer ?? null, heard?.note ?? null));
+      }
       return next.size === current.size && answered.length === 0 ? current : next;
     });
   }, [lines]);
