@@ -25,6 +25,7 @@ import { ShopService } from '../shop/shop.service.js';
 
 /** What a change to the card would write, and what it would do to the counted punches. */
 interface Plan {
+  /** The rows it writes, the punch asked for last. */
   added: LedgerPunch[];
   impact: PunchImpact;
 }
@@ -127,10 +128,14 @@ export class CorrectionsService {
     return voiding;
   }
 
-  private previewOf({ impact }: Plan, technicianId: number): CorrectionPreview {
+  private previewOf({ added, impact }: Plan, technicianId: number): CorrectionPreview {
     return {
       refusal: impact.refusal && this.ledger.refusalFor(impact.refusal, technicianId, null),
       displaces: this.ledger.describe(impact.displaced),
+      // A voiding row is named by the punch it takes out.
+      withIt: this.ledger.describe(
+        added.slice(0, -1).map((row) => (row.voids ? { ...row, id: row.supersedes! } : row)),
+      ),
     };
   }
 

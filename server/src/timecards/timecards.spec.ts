@@ -154,8 +154,13 @@ describe(TimecardsService.name, () => {
       .auth(owner, { type: 'bearer' })
       .send({ technicianId: newcomer.id, reason: 'Punched on paper', ...missed })
       .expect(200);
-    const displaces = (preview.body as { displaces: { id: string }[] }).displaces.map((p) => p.id);
-    await add({ ...missed, displaces }).expect(201);
+    const { displaces, withIt } = preview.body as CorrectionPreview;
+    // It says what it records with it: A's clock-off where it begins, and its own where B's clock-on is.
+    expect(withIt.map((p) => [p.kind, p.at])).toEqual([
+      ['job-off', at(20).toISOString()],
+      ['job-off', at(15).toISOString()],
+    ]);
+    await add({ ...missed, displaces: displaces.map((p) => p.id) }).expect(201);
     const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
       .body as ShopSettings;
     const { jobs } = await card(owner, `technicianId=${newcomer.id}&week=${workweekOf(at(0), settings)}`);
@@ -253,6 +258,7 @@ describe(TimecardsService.name, () => {
     const preview = (await takeOut({}, true).expect(200)).body as CorrectionPreview;
     expect(preview.refusal).toBeNull();
     expect(preview.displaces.map((p) => p.id).sort()).toEqual(displaced.map((p) => p.id).sort());
+    expect(preview.withIt).toEqual([expect.objectContaining({ id: recordedWithIt.id, kind: 'job-off' })]);
     await takeOut({}).expect(409);
     await takeOut({ reason: '' }).expect(400);
     const { body: voiding } = await takeOut({ displaces: displaced.map((p) => p.id) }).expect(201);

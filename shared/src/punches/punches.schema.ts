@@ -125,4 +125,9 @@ export interface CorrectionPreview {
   refusal: string | null;
   /** Counted punches it would make impossible: they are voided with it once confirmed. */
   displaces: DisplacedPunch[];
+  /**
+   * What goes with it: the clock-offs a clock-on records for the lines it closes at the jobs-at-once
+   * limit, or, for a clock-on taken out, those it recorded, taken out too.
+   */
+  withIt: DisplacedPunch[];
 }

@@ -123,8 +123,9 @@ export function CorrectionDialog({
   const previewTakeOut = usePreviewVoidPunch();
   const pending = [save, preview, takeOut, previewTakeOut].some((call) => call.isPending);
   const [draft, setDraft] = useState<Draft>(() => startDraft(card, target));
-  /** Counted punches the preview says this correction would take out of the count, once shown. */
-  const [displaced, setDisplaced] = useState<DisplacedPunch[] | null>(null);
+  /** What the preview said goes with the change, once shown: saving then confirms it. */
+  const [shown, setShown] = useState<CorrectionPreview | null>(null);
+  const displaced = shown?.displaces ?? [];
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const replacing = 'replace' in target ? target.replace : null;
@@ -137,7 +138,7 @@ export function CorrectionDialog({
     setDraft((current) => ({ ...current, [key]: value }));
     setErrors((current) => ({ ...current, [key === 'day' ? 'time' : key]: undefined }));
     setFormError(null);
-    setDisplaced(null);
+    setShown(null);
   };
 
   const onSaveError = (error: Error) => {
@@ -179,11 +180,11 @@ export function CorrectionDialog({
     ) => void,
     saveIt: (body: Body) => void,
   ) => {
-    if (displaced) return saveIt({ ...body, displaces: displaced.map((punch) => punch.id) });
+    if (shown) return saveIt({ ...body, displaces: displaced.map((punch) => punch.id) });
     check(body, {
       onSuccess: (answer) => {
         if (answer.refusal) setFormError(`That change does not fit the timecard: ${answer.refusal}`);
-        else if (answer.displaces.length > 0) setDisplaced(answer.displaces);
+        else if (answer.displaces.length > 0 || answer.withIt.length > 0) setShown(answer);
         else saveIt(body);
       },
       onError: (error) => setFormError(formErrorText(error)),
@@ -264,7 +265,7 @@ export function CorrectionDialog({
                       value={takingOut ? 'take-out' : 'replace'}
                       onChange={(_, data) => {
                         setTakingOut(data.value === 'take-out');
-                        setDisplaced(null);
+                        setShown(null);
                         setFormError(null);
                       }}
                     >
@@ -349,16 +350,22 @@ export function CorrectionDialog({
                   onChange={(_, data) => set('reason', data.value)}
                 />
               </Field>
-              {displaced && (
+              {shown && shown.withIt.length > 0 && (
+                <MessageBar intent="info" layout="multiline">
+                  <MessageBarBody>
+                    {takingOut
+                      ? 'Taken out with it, as its clock-on recorded them:'
+                      : 'Recorded with it, as the shop’s limit of jobs at once closes these lines:'}
+                    <PunchList punches={shown.withIt} className={styles.displaced} />
+                  </MessageBarBody>
+                </MessageBar>
+              )}
+              {displaced.length > 0 && (
                 <MessageBar intent="warning" layout="multiline">
                   <MessageBarBody>
                     This change would leave these punches without a place on the card; saving it takes them
                     out of the count, each on record with your reason:
-                    <ul className={styles.displaced}>
-                      {displaced.map((punch) => (
-                        <li key={punch.id}>{punch.words.replace(/^the /, 'The ')}</li>
-                      ))}
-                    </ul>
+                    <PunchList punches={displaced} className={styles.displaced} />
                   </MessageBarBody>
                 </MessageBar>
               )}
@@ -375,7 +382,7 @@ export function CorrectionDialog({
               <Button appearance="primary" type="submit" disabled={pending}>
                 {pending
                   ? 'Checking…'
-                  : displaced
+                  : displaced.length > 0
                     ? `Save and take ${displaced.length} punch${displaced.length === 1 ? '' : 'es'} out`
                     : takingOut
                       ? 'Take punch out'
@@ -388,5 +395,15 @@ export function CorrectionDialog({
         </form>
       </DialogSurface>
     </Dialog>
+  );
+}
+
+function PunchList({ punches, className }: { punches: DisplacedPunch[]; className: string }) {
+  return (
+    <ul className={className}>
+      {punches.map((punch) => (
+        <li key={punch.id}>{punch.words.replace(/^the /, 'The ')}</li>
+      ))}
+    </ul>
   );
 }
