@@ -22,6 +22,5 @@ export function toJobLineDto(row: typeof jobLines.$inferSelect): JobLineDto {
     cause: row.cause,
     correction: row.correction,
     cancelReason: row.cancelReason,
-    updatedAt: row.updatedAt.toISOString(),
   };
 }

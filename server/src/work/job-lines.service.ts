@@ -1,5 +1,5 @@
 import { BadRequestException, ConflictException, Inject, Injectable } from '@nestjs/common';
-import { and, eq, isNull, ne, or, sql } from 'drizzle-orm';
+import { and, eq, isNull, ne, or } from 'drizzle-orm';
 import {
   formatDayClockTime,
   inSentence,
@@ -8,6 +8,7 @@ import {
   lineWords,
   type CancelJobLineBody,
   type EditJobLineBody,
+  type LineDetailField,
   type FinishLineBody,
   type HoldLineBody,
   type JobLineDto,
@@ -33,6 +34,16 @@ import { announceLine } from './announce-line.js';
 import { toJobLineDto } from './job-line.dto.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
 import { PartsService } from './parts.service.js';
+
+/** A line's details in words, for a conflict that names what someone else changed. */
+const LINE_DETAIL_WORDS: Record<LineDetailField, string> = {
+  title: 'job',
+  bookHours: 'book hours',
+  skillLevel: 'skill level',
+  concern: 'concern',
+  cause: 'cause',
+  correction: 'correction',
+};
 
 type LineRow = typeof jobLines.$inferSelect;
 
@@ -226,16 +237,14 @@ export class JobLinesService {
 
   /** The advisor's corrections to a line: title, book hours, skill level and the three Cs. */
   @Transactional()
-  editDetails(
-    id: number,
-    { expectedUpdatedAt, ...body }: EditJobLineBody,
-    actor: Principal,
-    now = new Date(),
-  ): JobLineDto {
+  editDetails(id: number, { was, ...body }: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
-    if (expectedUpdatedAt !== undefined && new Date(expectedUpdatedAt).getTime() !== line.updatedAt.getTime())
+    const moved = Object.entries(was ?? {})
+      .filter(([field, read]) => (line[field as LineDetailField] ?? '') !== (read ?? ''))
+      .map(([field]) => LINE_DETAIL_WORDS[field as LineDetailField]);
+    if (moved.length > 0)
       throw new ConflictException(
-        `Someone else changed ${lineWords(line.lineNo)} since you opened it: reload to see their change`,
+        `Someone else changed the ${moved.join(' and the ')} of ${lineWords(line.lineNo)} since you opened it: reload to see their change`,
       );
     this.assertRepairOrderOpen(line);
     // An emptied cause or correction is no longer on record.
@@ -522,16 +531,7 @@ export class JobLinesService {
   }
 
   private save(id: number, changes: Partial<typeof jobLines.$inferInsert>): LineRow {
-    const at = changes.updatedAt;
-    // Strictly after the last change: an edit made on what was read just before a write in the same
-    // millisecond is still refused.
-    const updatedAt = at && sql`max(${at.getTime()}, ${jobLines.updatedAt} + 1)`;
-    return this.db
-      .update(jobLines)
-      .set({ ...changes, ...(updatedAt && { updatedAt }) })
-      .where(eq(jobLines.id, id))
-      .returning()
-      .get();
+    return this.db.update(jobLines).set(changes).where(eq(jobLines.id, id)).returning().get();
   }
 
   private announce(line: LineRow): JobLineDto {

@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { repairOrderStatus, type RepairOrderStatus } from '@baytime/shared';
 import type { Db } from '../db/database.js';
 import { jobLines, repairOrders } from '../db/schema/index.js';
@@ -17,9 +17,6 @@ export function syncRepairOrderStatus(db: Db, repairOrderId: number): RepairOrde
     .all();
   const status = repairOrderStatus(lines, ro.closedAt);
   if (status !== ro.status)
-    db.update(repairOrders)
-      .set({ status, version: sql`${repairOrders.version} + 1` })
-      .where(eq(repairOrders.id, repairOrderId))
-      .run();
+    db.update(repairOrders).set({ status }).where(eq(repairOrders.id, repairOrderId)).run();
   return status;
 }

@@ -69,10 +69,25 @@ export const jobLineInputSchema = z.object({
 });
 export type JobLineInput = z.infer<typeof jobLineInputSchema>;
 
+/** A line's details as an editor read them: the record, not new input, so only their shape is checked. */
+const readLineDetailsSchema = z
+  .object({
+    title: z.string().max(CONCERN_MAX_LENGTH),
+    bookHours: z.number(),
+    skillLevel: skillLevelSchema,
+    concern: z.string().max(CONCERN_MAX_LENGTH),
+    cause: z.string().max(CONCERN_MAX_LENGTH).nullable(),
+    correction: z.string().max(CONCERN_MAX_LENGTH).nullable(),
+  })
+  .partial()
+  .strict();
+export type LineDetailField = keyof z.infer<typeof readLineDetailsSchema>;
+
 /**
- * `PATCH /api/job-lines/:id/details`: the advisor corrects a line after the fact. With
- * `expectedUpdatedAt` (the line's `updatedAt` as read) the edit is refused with 409 once the line
- * changed since; without it the edit is taken as it comes.
+ * `PATCH /api/job-lines/:id/details`: the advisor corrects a line after the fact. With `was` (each
+ * changed field as the editor read it) the edit is refused with 409 when one of those fields changed
+ * since, so two people never silently undo each other; a change to another field, or to the line's
+ * status or assignment, is no conflict. Without `was` the edit is taken as it comes.
  */
 export const editJobLineSchema = z
   .object({
@@ -82,7 +97,7 @@ export const editJobLineSchema = z
     concern: concernSchema,
     cause: causeSchema,
     correction: correctionSchema,
-    expectedUpdatedAt: instantSchema,
+    was: readLineDetailsSchema,
   })
   .partial()
   .strict();
@@ -139,11 +154,6 @@ export interface JobLineDto {
   correction: string | null;
   /** Why it was cancelled; null unless cancelled. */
   cancelReason: string | null;
-  /**
-   * The line's last change, moved by every write to it: an edit sends it back as `expectedUpdatedAt`.
-   * Left out of the dispatch board's lines, which are never edited from there.
-   */
-  updatedAt?: string;
 }
 
 /**
@@ -314,7 +324,10 @@ export interface RepairOrderSummary {
   promisedAt: string | null;
   createdAt: string;
   closedAt: string | null;
-  /** Moved by every write to the RO (not to its lines): an edit sends it back as `expectedVersion`. */
+  /**
+   * Moved by each edit of the RO's own record (customer, vehicle, concern, promise) and by its close, not
+   * by its lines' work: an edit sends it back as `expectedVersion`.
+   */
   version: number;
   /** An open line of it is late: see `isLineLate`. */
   late: boolean;

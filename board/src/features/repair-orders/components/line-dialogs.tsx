@@ -45,8 +45,7 @@ const lineFieldsOf = (line: JobLineDto) => ({
 export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps & { line: JobLineDto }) {
   const edit = useEditJobLine(repairOrderId);
   const reload = useReloadRepairOrder(repairOrderId);
-  // The line as the dialog read it: the edit is made on its `updatedAt`.
-  const [read, setRead] = useState(line);
+  const [lineNo, setLineNo] = useState(line.lineNo);
   const [opened, setOpened] = useState(() => lineFieldsOf(line));
   const form = useSchemaForm(editJobLineSchema, { defaultValues: opened });
   const [stale, setStale] = useState<string | null>(null);
@@ -60,7 +59,7 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
         const fresh = ro.lines.find((l) => l.id === line.id);
         // Removed meanwhile: the page shows it gone.
         if (!fresh) return onClose();
-        setRead(fresh);
+        setLineNo(fresh.lineNo);
         setOpened(lineFieldsOf(fresh));
         form.reset(lineFieldsOf(fresh));
         setStale(null);
@@ -71,7 +70,7 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
 
   return (
     <FormDialog
-      title={`Edit ${lineWords(read.lineNo)}`}
+      title={`Edit ${lineWords(lineNo)}`}
       submitLabel="Save line"
       pending={edit.isPending || reloading}
       formError={errors.root?.server?.message}
@@ -79,11 +78,12 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
       onSubmit={form.handleSubmit((edited) => {
         const body = changedFields(editJobLineSchema.safeParse(opened).data ?? {}, edited);
         if (Object.keys(body).length === 0) return onClose();
+        // Each changed field as it was read: the server refuses the edit if someone changed one since.
+        const was = Object.fromEntries(
+          Object.keys(body).map((field) => [field, opened[field as keyof typeof opened]]),
+        );
         edit.mutate(
-          {
-            lineId: line.id,
-            body: { ...body, ...(read.updatedAt && { expectedUpdatedAt: read.updatedAt }) },
-          },
+          { lineId: line.id, body: { ...body, was } },
           {
             onSuccess: onClose,
             onError: (error) =>
