@@ -12,6 +12,8 @@ import {
   payableBelowMinimumWageCaution,
   roundHalfUp,
   secondsOf,
+  wholeSeconds,
+  wholeSecondsOfParts,
   workweekName,
   workweekOf,
   type AdditionalOvertime,
@@ -36,7 +38,7 @@ import { openingProgress } from './opening-hours.js';
 import {
   boundsOf,
   daysOf,
-  hoursOf,
+  labourSecondsOf,
   technicianIdsOf,
   WeekFiguresService,
   type TechnicianWeek,
@@ -68,8 +70,6 @@ export interface LivePay {
   report: PayReport;
   lineIds: number[];
 }
-
-const whole = (seconds: number) => roundHalfUp(seconds);
 
 /**
  * The pay summary of a workweek, from the same figures as the labour report: rates and rules in force when
@@ -112,9 +112,8 @@ export class PaySummaryService {
 
   /** The week computed now from the records, whatever its state. */
   live(label: string, settings: ShopSettings, now: Date, { withAdjustments = true } = {}): LivePay {
-    const { current, rules, technicians, adjustments, exceptions } = this.liveRows(label, settings, now, {
-      withAdjustments,
-    });
+    const live = this.liveRows(label, settings, now, { withAdjustments });
+    const { current, rules, pays, technicians, adjustments, exceptions } = live;
     const report: PayReport = {
       week: label,
       weekName: workweekName(label, settings),
@@ -132,7 +131,7 @@ export class PaySummaryService {
       closedBy: null,
       firstClosedAt: null,
       technicians,
-      totals: totalsOf(technicians),
+      totals: totalsOf(technicians, pays),
       adjustments,
       unresolvedExceptions: exceptions.filter((e) => e.resolution === null).length,
     };
@@ -210,33 +209,38 @@ export class PaySummaryService {
         adjustments: adjustments.filter((a) => a.technicianId === pay.person.id),
       }),
     );
-    return { current, rules, technicians, adjustments, exceptions };
+    return { current, rules, pays, technicians, adjustments, exceptions };
   }
 
-  /** The figures the pay rules need from a technician's week, in whole seconds. */
+  /**
+   * The figures the pay rules need from a technician's week, in whole seconds: the labour report's own
+   * (`labourSecondsOf`), so hours worked there and attendance here are one figure. The days are rounded at
+   * their running totals, so they add up to the week.
+   */
   private payInput(week: WeekFigures, technicianId: number, settings: ShopSettings) {
     const own: TechnicianWeek | undefined = week.technicians.get(technicianId);
-    const totals = own?.totals;
-    const payDays: PayDay[] = daysOf(week.week, settings).map((day) => {
-      if (!own) return { workedSeconds: 0, restSeconds: 0, meals: [] };
-      const within = own.ledger.within(day.from, day.to);
-      const meals = own.ledger.breaks
-        .filter((b) => b.kind === 'meal' && b.from >= day.from && b.from < day.to)
-        .map((meal) => ({
-          afterWorkedSeconds: whole(own.ledger.within(day.from, meal.from).attendanceSeconds),
-          seconds: whole((meal.to.getTime() - meal.from.getTime()) / 1000),
-        }));
-      return {
-        workedSeconds: whole(within.attendanceSeconds),
-        restSeconds: whole(within.restBreakSeconds),
-        meals,
-      };
-    });
+    const labour = labourSecondsOf(week, technicianId);
+    const days = daysOf(week.week, settings);
+    const within = days.map((day) => own?.ledger.within(day.from, day.to));
+    const worked = wholeSecondsOfParts(within.map((totals) => totals?.attendanceSeconds ?? 0));
+    const rest = wholeSecondsOfParts(within.map((totals) => totals?.restBreakSeconds ?? 0));
+    const payDays: PayDay[] = days.map((day, i) => ({
+      workedSeconds: worked[i]!,
+      restSeconds: rest[i]!,
+      meals: own
+        ? own.ledger.breaks
+            .filter((b) => b.kind === 'meal' && b.from >= day.from && b.from < day.to)
+            .map((meal) => ({
+              afterWorkedSeconds: wholeSeconds(own.ledger.within(day.from, meal.from).attendanceSeconds),
+              seconds: wholeSeconds((meal.to.getTime() - meal.from.getTime()) / 1000),
+            }))
+        : [],
+    }));
     return {
-      flaggedSeconds: secondsOf(hoursOf(week, technicianId).flaggedHours),
-      workedSeconds: whole(totals?.attendanceSeconds ?? 0),
-      productiveSeconds: whole(totals?.clockedSeconds ?? 0),
-      restSeconds: whole(totals?.restBreakSeconds ?? 0),
+      flaggedSeconds: labour.flaggedSeconds,
+      workedSeconds: labour.attendanceSeconds,
+      productiveSeconds: labour.clockedSeconds,
+      restSeconds: wholeSeconds(own?.totals.restBreakSeconds ?? 0),
       days: payDays,
     };
   }
@@ -507,17 +511,19 @@ interface SpanningShare {
   byWeek: { week: string; flaggedHours: number; earlier: ReturnType<PaySummaryService['earlierWeek']> }[];
 }
 
-function totalsOf(rows: readonly PayReportTechnician[]): PayReportTotals {
+/** Money adds the rounded cents of the rows; hours add the rows' whole seconds and are rounded once. */
+function totalsOf(rows: readonly PayReportTechnician[], pays: readonly TechnicianPay[]): PayReportTotals {
   const sum = (pick: (row: PayReportTechnician) => number) =>
     rows.reduce((total, row) => total + pick(row), 0);
-  const hours = (pick: (row: PayReportTechnician) => number) => Math.round(sum(pick) * 10_000) / 10_000;
+  const hours = (pick: (estimate: PayEstimate) => number) =>
+    hoursFromSeconds(pays.reduce((total, pay) => total + pick(pay.estimate), 0));
   return {
-    flaggedHours: hours((row) => row.flaggedHours),
-    hoursWorked: hours((row) => row.hoursWorked),
-    overtimeHours: hours((row) => row.overtimeHours),
-    doubleTimeHours: hours((row) => row.doubleTimeHours),
-    restHours: hours((row) => row.restHours),
-    otherNonProductiveHours: hours((row) => row.otherNonProductiveHours),
+    flaggedHours: hours((e) => e.flaggedSeconds),
+    hoursWorked: hours((e) => e.workedSeconds),
+    overtimeHours: hours((e) => e.overtimeSeconds),
+    doubleTimeHours: hours((e) => e.doubleTimeSeconds),
+    restHours: hours((e) => e.restSeconds),
+    otherNonProductiveHours: hours((e) => e.otherNonProductiveSeconds),
     flaggedPayCents: sum((row) => row.flaggedPayCents),
     guaranteeTopUpCents: sum((row) => row.guaranteeTopUpCents),
     hourlyPayCents: sum((row) => row.hourlyPayCents),

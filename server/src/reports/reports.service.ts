@@ -3,21 +3,27 @@ import { and, asc, eq, gte, isNotNull, lt, ne, sql, type SQL } from 'drizzle-orm
 import {
   addIsoWeeks,
   EFFICIENCY_NOTE,
+  hoursOf,
   KPI_FORMULAS,
   KPI_GUIDELINES,
   KPI_NAMES_NOTE,
   LABOUR_TREND_WEEKS,
+  labourHoursOf,
   labourKpis,
   PAY_ESTIMATE_CAUTION,
-  shopLabourKpis,
+  secondsOf,
+  shopLabourSeconds,
+  wholeSeconds,
   workweekName,
   workweekOf,
   type BayUtilisation,
   type ExceptionList,
   type LabourReport,
+  type LabourLineTotals,
   type LabourReportLine,
   type LabourReportRow,
   type LabourReportTechnician,
+  type LabourSeconds,
   type PayReport,
   type ReportQuery,
   type ReviewExceptionBody,
@@ -39,10 +45,10 @@ import {
   daysOf,
   firstJobOn,
   HOUR_S,
-  hoursOf,
   inIds,
+  labourSecondsOf,
   remember,
-  shopHoursOf,
+  shopSecondsOf,
   technicianIdsOf,
   WeekFiguresService,
   type WeekFigures,
@@ -52,13 +58,15 @@ const roundTo = (value: number, places: number) => Math.round(value * 10 ** plac
 const hours = (value: number) => roundTo(value, 4);
 const ratio = (value: number | null) => (value === null ? null : roundTo(value, 6));
 
-function present(row: LabourReportRow): LabourReportRow {
+/** A row as shown: each hour figure rounded once from its whole seconds (as the pay summary's are). */
+function present(seconds: LabourSeconds): LabourReportRow {
+  const row = labourKpis(labourHoursOf(seconds));
   return {
-    attendanceHours: hours(row.attendanceHours),
-    clockedHours: hours(row.clockedHours),
-    flaggedHours: hours(row.flaggedHours),
-    matchedClockedHours: hours(row.matchedClockedHours),
-    workInProgressHours: hours(row.workInProgressHours),
+    attendanceHours: hoursOf(seconds.attendanceSeconds),
+    clockedHours: hoursOf(seconds.clockedSeconds),
+    flaggedHours: hoursOf(seconds.flaggedSeconds),
+    matchedClockedHours: hoursOf(seconds.matchedClockedSeconds),
+    workInProgressHours: hoursOf(seconds.workInProgressSeconds),
     productivity: ratio(row.productivity),
     efficiency: ratio(row.efficiency),
     proficiency: ratio(row.proficiency),
@@ -93,7 +101,7 @@ export class ReportsService {
   ): Promise<LabourReport | StreamableFile> {
     const settings = this.shop.settings(now);
     const label = week ?? workweekOf(now, settings);
-    await this.weeks.keepShopHoursInTurns(trendWeeks(label).slice(0, -1), settings, now);
+    await this.weeks.keepShopSecondsInTurns(trendWeeks(label).slice(0, -1), settings, now);
     const report = this.labour(label, now);
     return format === 'csv' ? labourCsv(report) : report;
   }
@@ -118,7 +126,7 @@ export class ReportsService {
     const figures = this.weeks.figuresOf(week, technicianId, settings, now);
     const showPay = viewer === 'owner' || (viewer === 'technician' && settings.kioskShowsPay);
     return {
-      labour: present(labourKpis(hoursOf(figures, technicianId))),
+      labour: present(labourSecondsOf(figures, technicianId)),
       pay: showPay ? this.paySummary.technicianRow(week, technicianId, now) : null,
       closed: this.closedWeeks.closed(week) !== undefined,
       caution: PAY_ESTIMATE_CAUTION,
@@ -166,7 +174,7 @@ export class ReportsService {
     const label = week ?? workweekOf(now, settings);
     const labels = trendWeeks(label);
     const current = this.weeks.figures([label], settings, now)[0]!;
-    const trend = [...this.weeks.shopHours(labels.slice(0, -1), settings, now), shopHoursOf(current)];
+    const trend = [...this.weeks.shopSeconds(labels.slice(0, -1), settings, now), shopSecondsOf(current)];
     const people = this.technicians(current);
     const lineIds = new Set<number>();
     for (const { totals } of current.technicians.values())
@@ -174,8 +182,8 @@ export class ReportsService {
     for (const lines of current.flagged.values()) for (const id of lines.keys()) lineIds.add(id);
     const lineInfo = this.lineInfo([...lineIds]);
 
-    const rows = people.map((person) => ({ person, hours: hoursOf(current, person.id) }));
-    const technicians: LabourReportTechnician[] = rows.map(({ person, hours: row }) => {
+    const rows = people.map((person) => ({ person, seconds: labourSecondsOf(current, person.id) }));
+    const technicians: LabourReportTechnician[] = rows.map(({ person, seconds: row }) => {
       const jobSeconds = current.technicians.get(person.id)?.totals.jobSeconds ?? {};
       const flagged = current.flagged.get(person.id) ?? new Map<number, number>();
       const ids = new Set([
@@ -196,11 +204,16 @@ export class ReportsService {
             title: info?.title ?? '?',
             bookHours: info?.bookHours ?? 0,
             flaggedHours: hours(share ?? 0),
-            clockedHours: hours((jobSeconds[id] ?? 0) / HOUR_S),
+            clockedHours: hoursOf(wholeSeconds(jobSeconds[id] ?? 0)),
             overUnderHours: share === undefined ? null : hours(share - toDate / HOUR_S),
           };
         });
-      return { technicianId: person.id, name: person.name, ...present(labourKpis(row)), lines };
+      const lineTotals: LabourLineTotals = {
+        bookHours: hoursOf(lines.reduce((sum, line) => sum + secondsOf(line.bookHours), 0)),
+        flaggedHours: hoursOf(row.flaggedSeconds),
+        clockedHours: hoursOf(wholeSeconds([...ids].reduce((sum, id) => sum + (jobSeconds[id] ?? 0), 0))),
+      };
+      return { technicianId: person.id, name: person.name, ...present(row), lines, lineTotals };
     });
 
     return {
@@ -210,7 +223,7 @@ export class ReportsService {
       to: current.to.toISOString(),
       timeZone: settings.timeZone,
       technicians,
-      shop: present(shopLabourKpis(rows.map((row) => row.hours))),
+      shop: present(shopLabourSeconds(rows.map((row) => row.seconds))),
       formulas: KPI_FORMULAS,
       guidelines: KPI_GUIDELINES,
       namesNote: KPI_NAMES_NOTE,
@@ -218,7 +231,7 @@ export class ReportsService {
       trend: labels.map((week, i) => ({
         week,
         weekName: workweekName(week, settings),
-        ...present(labourKpis(trend[i]!)),
+        ...present(trend[i]!),
       })),
       bayUtilisation: this.bayUtilisation(label, current, settings, now),
     };

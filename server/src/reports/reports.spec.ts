@@ -24,7 +24,7 @@ import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ShopService } from '../shop/shop.service.js';
 import { ReportsService } from './reports.service.js';
-import { hoursOf, WeekFiguresService } from './week-figures.service.js';
+import { labourSecondsOf, WeekFiguresService } from './week-figures.service.js';
 
 /**
  * The week under test is three workweeks back (the demo shop's punches are in the last two), so the
@@ -644,8 +644,8 @@ describe(ReportsService.name, () => {
     expect([...whole.flagged.get(juno)!.keys()].sort()).toEqual([shared, unclocked].sort());
     for (const technicianId of [juno, omar]) {
       const alone = new WeekFiguresService(db, shopService).figuresOf(label, technicianId, shop, now);
-      expect(hoursOf(alone, technicianId), `technician ${technicianId}`).toEqual(
-        hoursOf(whole, technicianId),
+      expect(labourSecondsOf(alone, technicianId), `technician ${technicianId}`).toEqual(
+        labourSecondsOf(whole, technicianId),
       );
     }
   });
@@ -736,7 +736,7 @@ describe(ReportsService.name, () => {
     expect(card.summary.pay).toEqual(row);
     expect(card.summary.caution).toBe(report.caution);
     const labourRow = rowOf(await labour(`week=${week}`), ids.a);
-    const { lines: _lines, technicianId: _id, name: _name, ...figures } = labourRow;
+    const { lines: _lines, lineTotals: _totals, technicianId: _id, name: _name, ...figures } = labourRow;
     expect(card.summary.labour).toEqual(figures);
     expect(card.weekName).toBe(report.weekName);
 

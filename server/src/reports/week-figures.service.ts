@@ -5,11 +5,13 @@ import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import {
   buildLedger,
   ledgerSettingsKey,
+  secondsOf,
   shareFlaggedHours,
-  shopLabourKpis,
+  shopLabourSeconds,
+  wholeSeconds,
   workweekBounds,
   workweekDays,
-  type LabourHours,
+  type LabourSeconds,
   type Ledger,
   type LedgerPunch,
   type LedgerSettings,
@@ -104,10 +106,11 @@ export function technicianIdsOf(week: WeekFigures): number[] {
 }
 
 /**
- * A technician's week in hours, unrounded. Efficiency's divisor is matched: all the time clocked on the lines
- * finished in the week, whenever it was; the time clocked this week on other lines is work in progress.
+ * A technician's week in whole seconds, each figure rounded once from its exact sum: the pay summary is worked
+ * out from the same figures. Efficiency's divisor is matched: all the time clocked on the lines finished in the
+ * week, whenever it was; the time clocked this week on other lines is work in progress.
  */
-export function hoursOf(week: WeekFigures, technicianId: number): LabourHours {
+export function labourSecondsOf(week: WeekFigures, technicianId: number): LabourSeconds {
   const totals = week.technicians.get(technicianId)?.totals;
   const flaggedLines = week.flagged.get(technicianId) ?? new Map<number, number>();
   const flagged = [...flaggedLines.values()].reduce((sum, h) => sum + h, 0);
@@ -117,11 +120,11 @@ export function hoursOf(week: WeekFigures, technicianId: number): LabourHours {
   for (const [lineId, seconds] of Object.entries(totals?.jobSeconds ?? {}))
     if (!flaggedLines.has(Number(lineId))) inProgress += seconds;
   return {
-    attendanceHours: (totals?.attendanceSeconds ?? 0) / HOUR_S,
-    clockedHours: (totals?.clockedSeconds ?? 0) / HOUR_S,
-    flaggedHours: flagged,
-    matchedClockedHours: matched / HOUR_S,
-    workInProgressHours: inProgress / HOUR_S,
+    attendanceSeconds: wholeSeconds(totals?.attendanceSeconds ?? 0),
+    clockedSeconds: wholeSeconds(totals?.clockedSeconds ?? 0),
+    flaggedSeconds: secondsOf(flagged),
+    matchedClockedSeconds: wholeSeconds(matched),
+    workInProgressSeconds: wholeSeconds(inProgress),
   };
 }
 
@@ -132,9 +135,9 @@ export function firstJobOn(lineId: SQL | SQLiteColumn): SQL<number | null> {
   )`;
 }
 
-/** The shop's hours of a week: every technician with figures in it counts, whoever is listed today. */
-export function shopHoursOf(week: WeekFigures): LabourHours {
-  return shopLabourKpis(technicianIdsOf(week).map((id) => hoursOf(week, id)));
+/** The shop's seconds of a week: every technician with figures in it counts, whoever is listed today. */
+export function shopSecondsOf(week: WeekFigures): LabourSeconds {
+  return shopLabourSeconds(technicianIdsOf(week).map((id) => labourSecondsOf(week, id)));
 }
 
 /** The settings a week's figures depend on: where the week falls, and how a ledger counts. */
@@ -215,7 +218,7 @@ export class WeekFiguresService {
   private readonly keptFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
   /** One technician's figures of a week (`figuresOf`), under `week|technicianId`. */
   private readonly keptOwnFigures = new KeptWeeks<WeekFigures>(FIGURES_KEPT);
-  private readonly keptShopHours = new KeptWeeks<LabourHours>(SHOP_HOURS_KEPT);
+  private readonly keptShopSeconds = new KeptWeeks<LabourSeconds>(SHOP_HOURS_KEPT);
   private keptFor = '';
   private readonly readFrom: ReturnType<typeof prepareReadFrom>;
 
@@ -236,7 +239,7 @@ export class WeekFiguresService {
   }
 
   /**
-   * Figures of workweek `label` to read one technician's hours from (`hoursOf`): the whole shop's when they
+   * Figures of workweek `label` to read one technician's seconds from (`labourSecondsOf`): the whole shop's when they
    * are kept, else worked out for the technician and whoever shares a line finished in the week with them
    * (their time shares its book hours). A timecard or a kiosk's week of the running week asks for this
    * at every instant, and the whole shop's week costs tens of milliseconds on years of punches.
@@ -252,21 +255,21 @@ export class WeekFiguresService {
     return own;
   }
 
-  /** The shop's hours of consecutive workweeks `labels` (oldest first), as `shopHoursOf`. */
-  shopHours(labels: readonly string[], settings: ShopSettings, now: Date): LabourHours[] {
-    return this.read(this.keptShopHours, true, labels, settings, now, shopHoursOf);
+  /** The shop's seconds of consecutive workweeks `labels` (oldest first), as `shopSecondsOf`. */
+  shopSeconds(labels: readonly string[], settings: ShopSettings, now: Date): LabourSeconds[] {
+    return this.read(this.keptShopSeconds, true, labels, settings, now, shopSecondsOf);
   }
 
   /**
-   * Computes and keeps the shop hours of the weeks `labels` that are not kept, one week a turn of the event
+   * Computes and keeps the shop seconds of the weeks `labels` that are not kept, one week a turn of the event
    * loop, so that whatever waits (a punch, a socket) is served between the weeks rather than after them all.
    */
-  async keepShopHoursInTurns(labels: readonly string[], settings: ShopSettings, now: Date): Promise<void> {
+  async keepShopSecondsInTurns(labels: readonly string[], settings: ShopSettings, now: Date): Promise<void> {
     for (const label of labels) {
       this.forgetChanged(settings);
-      if (this.keptShopHours.get(label, now) !== undefined) continue;
+      if (this.keptShopSeconds.get(label, now) !== undefined) continue;
       await setImmediate();
-      this.shopHours([label], settings, now);
+      this.shopSeconds([label], settings, now);
     }
   }
 
@@ -289,8 +292,9 @@ export class WeekFiguresService {
       (week) => {
         const value = valueOf(week);
         if (keepComputed) kept.keep(week.week, week.to, now, value);
-        // Whatever was asked for, the week's shop hours are kept for the trend: once.
-        if (kept !== this.keptShopHours) this.keptShopHours.keep(week.week, week.to, now, shopHoursOf(week));
+        // Whatever was asked for, the week's shop seconds are kept for the trend: once.
+        if (kept !== this.keptShopSeconds)
+          this.keptShopSeconds.keep(week.week, week.to, now, shopSecondsOf(week));
         return value;
       },
     );
@@ -305,7 +309,7 @@ export class WeekFiguresService {
     if (since === null) return;
     this.keptFigures.forgetAfter(since);
     this.keptOwnFigures.forgetAfter(since);
-    this.keptShopHours.forgetAfter(since);
+    this.keptShopSeconds.forgetAfter(since);
   }
 
   /**

@@ -2,10 +2,13 @@ import { describe, expect, it } from 'vitest';
 import {
   KPI_FORMULAS,
   KPI_GUIDELINES,
+  labourHoursOf,
   labourKpis,
   shareFlaggedHours,
   shopLabourKpis,
+  shopLabourSeconds,
   type LabourHours,
+  type LabourSeconds,
 } from './kpis.js';
 
 const hours = (attendanceHours: number, clockedHours: number, flaggedHours: number): LabourHours => ({
@@ -91,6 +94,25 @@ describe(shopLabourKpis.name, () => {
   it('weights technicians by their hours, not by head', () => {
     const shop = shopLabourKpis([hours(40, 40, 60), hours(10, 10, 5)]);
     expect(shop.efficiency).toBeCloseTo(65 / 50, 12); // the mean of ratios would be 1.0
+  });
+});
+
+describe(shopLabourSeconds.name, () => {
+  const week = (attendanceSeconds: number, flaggedSeconds: number): LabourSeconds => ({
+    attendanceSeconds,
+    clockedSeconds: attendanceSeconds,
+    flaggedSeconds,
+    matchedClockedSeconds: attendanceSeconds,
+    workInProgressSeconds: 0,
+  });
+
+  it('adds whole seconds, so three weeks of 2 h 5 min make 6.25 h, not 3 × 2.0833 = 6.2499', () => {
+    // 7,500 s = 2 h 5 min; 3 × 7,500 = 22,500 s = 6.25 h exactly. Flagged 2.5 h = 9,000 s each: 7.5 h.
+    const shop = shopLabourSeconds([week(7_500, 9_000), week(7_500, 9_000), week(7_500, 9_000)]);
+    expect(shop).toEqual(week(22_500, 27_000));
+    expect(labourHoursOf(shop)).toMatchObject({ attendanceHours: 6.25, flaggedHours: 7.5 });
+    // 7.5 ÷ 6.25 = 1.2.
+    expect(labourKpis(labourHoursOf(shop))).toMatchObject({ productivity: 1, proficiency: 1.2 });
   });
 });
 

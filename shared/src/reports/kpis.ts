@@ -12,6 +12,43 @@ export interface LabourHours {
   workInProgressHours: number;
 }
 
+/**
+ * A week's labour in whole seconds: the one figure the labour report and the pay summary both show, each
+ * hour figure rounded once from it, and what shop totals add up.
+ */
+export interface LabourSeconds {
+  attendanceSeconds: number;
+  clockedSeconds: number;
+  flaggedSeconds: number;
+  matchedClockedSeconds: number;
+  workInProgressSeconds: number;
+}
+
+const HOUR_S = 3600;
+
+/** Unrounded hours of whole seconds, for the ratios. */
+export function labourHoursOf(seconds: LabourSeconds): LabourHours {
+  return {
+    attendanceHours: seconds.attendanceSeconds / HOUR_S,
+    clockedHours: seconds.clockedSeconds / HOUR_S,
+    flaggedHours: seconds.flaggedSeconds / HOUR_S,
+    matchedClockedHours: seconds.matchedClockedSeconds / HOUR_S,
+    workInProgressHours: seconds.workInProgressSeconds / HOUR_S,
+  };
+}
+
+/** The shop's week: each figure the sum of the technicians' whole seconds. */
+export function shopLabourSeconds(technicians: readonly LabourSeconds[]): LabourSeconds {
+  const add = (pick: (s: LabourSeconds) => number) => technicians.reduce((sum, s) => sum + pick(s), 0);
+  return {
+    attendanceSeconds: add((s) => s.attendanceSeconds),
+    clockedSeconds: add((s) => s.clockedSeconds),
+    flaggedSeconds: add((s) => s.flaggedSeconds),
+    matchedClockedSeconds: add((s) => s.matchedClockedSeconds),
+    workInProgressSeconds: add((s) => s.workInProgressSeconds),
+  };
+}
+
 /** Ratios as fractions (0.9 = 90 %); null when the divisor is under a tenth of an hour. */
 export interface LabourKpis {
   productivity: number | null;

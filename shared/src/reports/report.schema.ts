@@ -43,10 +43,18 @@ export interface LabourReportLine {
   overUnderHours: number | null;
 }
 
+/** A technician's lines added up in whole seconds, each rounded once: not the sum of the rounded lines. */
+export interface LabourLineTotals {
+  bookHours: number;
+  flaggedHours: number;
+  clockedHours: number;
+}
+
 export interface LabourReportTechnician extends LabourReportRow {
   technicianId: number;
   name: string;
   lines: LabourReportLine[];
+  lineTotals: LabourLineTotals;
 }
 
 export interface LabourTrendWeek extends LabourReportRow {

@@ -132,23 +132,6 @@ export function overUnderText(hours: number | null): string {
   return hours > 0 ? `${formatHours(hours)} h under book` : `${formatHours(-hours)} h over book`;
 }
 
-export interface LineTotals {
-  bookHours: number;
-  flaggedHours: number;
-  clockedHours: number;
-}
-
-export function lineTotals(lines: readonly LabourReportLine[]): LineTotals {
-  return lines.reduce(
-    (sum, line) => ({
-      bookHours: sum.bookHours + line.bookHours,
-      flaggedHours: sum.flaggedHours + line.flaggedHours,
-      clockedHours: sum.clockedHours + line.clockedHours,
-    }),
-    { bookHours: 0, flaggedHours: 0, clockedHours: 0 },
-  );
-}
-
 /** Finished lines first (biggest loss first, where the time went), then the unfinished ones. */
 export function sortLines(lines: readonly LabourReportLine[]): LabourReportLine[] {
   return [...lines].sort((a, b) => {

@@ -10,7 +10,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { LabourReportTechnician } from '@baytime/shared';
-import { formatHours, lineTotals, overUnderText, sortLines } from '../report-format';
+import { formatHours, overUnderText, sortLines } from '../report-format';
 
 const useStyles = makeStyles({
   table: { tableLayout: 'auto' },
@@ -27,7 +27,8 @@ const useStyles = makeStyles({
 export function TechnicianLines({ technician }: { technician: LabourReportTechnician }) {
   const styles = useStyles();
   const lines = sortLines(technician.lines);
-  const totals = lineTotals(lines);
+  // Added up on the server from the seconds: a sum of the rounded lines can be off in the last place.
+  const totals = technician.lineTotals;
   return (
     <Table size="small" className={styles.table} aria-label={`${technician.name}: job lines this week`}>
       <TableHeader>
