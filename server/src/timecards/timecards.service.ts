@@ -11,6 +11,8 @@ import {
   workweekDays,
   workweekName,
   workweekOf,
+  wholeSeconds,
+  wholeSecondsOfParts,
   type LedgerTotals,
   type Timecard,
   type TimecardQuery,
@@ -32,19 +34,33 @@ import { ShopService } from '../shop/shop.service.js';
  */
 const LOOKBACK_MS = 36 * 3600_000;
 
-const totals = ({
-  attendanceSeconds,
-  clockedSeconds,
-  idleSeconds,
-  mealBreakSeconds,
-  restBreakSeconds,
-}: LedgerTotals): TimecardTotals => ({
-  attendanceSeconds: Math.round(attendanceSeconds),
-  clockedSeconds: Math.round(clockedSeconds),
-  idleSeconds: Math.round(idleSeconds),
-  mealBreakSeconds: Math.round(mealBreakSeconds),
-  restBreakSeconds: Math.round(restBreakSeconds),
+/** The week's totals in whole seconds, each rounded once, as the reports round them. */
+const totals = (week: LedgerTotals): TimecardTotals => ({
+  attendanceSeconds: wholeSeconds(week.attendanceSeconds),
+  clockedSeconds: wholeSeconds(week.clockedSeconds),
+  idleSeconds: wholeSeconds(week.idleSeconds),
+  mealBreakSeconds: wholeSeconds(week.mealBreakSeconds),
+  restBreakSeconds: wholeSeconds(week.restBreakSeconds),
 });
+
+/** The days' totals in whole seconds that add up to the week's: each rounded at its running total. */
+function dayTotals(days: readonly LedgerTotals[]): TimecardTotals[] {
+  const column = (key: keyof TimecardTotals) => wholeSecondsOfParts(days.map((day) => day[key]));
+  const [attendance, clocked, idle, meal, rest] = [
+    column('attendanceSeconds'),
+    column('clockedSeconds'),
+    column('idleSeconds'),
+    column('mealBreakSeconds'),
+    column('restBreakSeconds'),
+  ];
+  return days.map((_, i) => ({
+    attendanceSeconds: attendance[i]!,
+    clockedSeconds: clocked[i]!,
+    idleSeconds: idle[i]!,
+    mealBreakSeconds: meal[i]!,
+    restBreakSeconds: rest[i]!,
+  }));
+}
 
 @Injectable()
 export class TimecardsService {
@@ -118,6 +134,8 @@ export class TimecardsService {
     if (anomalies.length) flags.push(`${anomalies.length} punch(es) did not fit and were not counted`);
 
     const punchIds = all.map((p) => p.id);
+    const weekDays = workweekDays(week, settings);
+    const dayFigures = dayTotals(weekDays.map((day) => ledger.within(day.from, day.to)));
     const summary = this.reports.technicianWeek(week, technicianId, actor.role, now);
     const exceptions =
       summary.pay?.exceptions ??
@@ -148,15 +166,12 @@ export class TimecardsService {
           jobLineId: job.jobLineId,
           title: lines.get(job.jobLineId)?.title ?? '?',
           repairOrderNumber: lines.get(job.jobLineId)?.number ?? '?',
-          seconds: Math.round((end.getTime() - start.getTime()) / 1000),
+          seconds: wholeSeconds((end.getTime() - start.getTime()) / 1000),
           // A line is open once at a time, so within its own span the line's seconds are this interval's.
-          countedSeconds: Math.round(ledger.within(start, end).jobSeconds[job.jobLineId] ?? 0),
+          countedSeconds: wholeSeconds(ledger.within(start, end).jobSeconds[job.jobLineId] ?? 0),
         };
       }),
-      days: workweekDays(week, settings).map((day) => ({
-        day: day.day,
-        ...totals(ledger.within(day.from, day.to)),
-      })),
+      days: weekDays.map((day, i) => ({ day: day.day, ...dayFigures[i]! })),
       totals: totals(ledger.within(from, to)),
       anomalies,
       flags,

@@ -4,6 +4,7 @@ import { inArray } from 'drizzle-orm';
 import {
   workweekOf,
   type CorrectionPreview,
+  type LabourReport,
   type PunchKind,
   type ShopSettings,
   type Timecard,
@@ -271,6 +272,42 @@ describe(TimecardsService.name, () => {
       expect(after.punches.find((p) => p.id === punch.id)?.supersededBy).toEqual(expect.any(String));
     expect(after.audit.filter((entry) => entry.action === 'void')).toHaveLength(3);
     await takeOut({ displaces: displaced.map((p) => p.id) }).expect(409);
+  });
+
+  // Three shifts of 1 h 0 min 0.5 s on three days: 10,801.5 s, which is 10,802 whole seconds rounded once
+  // (half up). Rounding each day alone would give 3 × 3,601 = 10,803 s, a second the week never had.
+  it('gives days in whole seconds that add up to the week, the labour report’s attendance', async () => {
+    const newcomer = await addTechnician('Ola Renvik', '3007');
+    const settings = (await sut.http().get('/api/shop').auth(owner, { type: 'bearer' }).expect(200))
+      .body as ShopSettings;
+    const end = oneWeekEnd(3 * 24 * HOUR, settings);
+    const punch = (kind: PunchKind, at: number) => ({
+      id: randomUUID(),
+      technicianId: newcomer.id,
+      kind,
+      at: new Date(at),
+      recordedAt: new Date(),
+      recordedBy: newcomer.id,
+    });
+    sut.app
+      .get<Db>(DB)
+      .insert(punches)
+      .values(
+        [1, 2, 3].flatMap((daysBack) => {
+          const start = end - daysBack * 24 * HOUR + HOUR;
+          return [punch('shift-in', start), punch('shift-out', start + 3600_500)];
+        }),
+      )
+      .run();
+    const week = workweekOf(new Date(end), settings);
+    const { days, totals } = await card(owner, `technicianId=${newcomer.id}&week=${week}`);
+    expect(totals.attendanceSeconds).toBe(10_802);
+    expect(days.reduce((sum, day) => sum + day.attendanceSeconds, 0)).toBe(10_802);
+    const labour = (
+      await sut.http().get(`/api/reports/labour?week=${week}`).auth(owner, { type: 'bearer' }).expect(200)
+    ).body as LabourReport;
+    // 10,802 s is 3.000 555… h: 3.0006 to 4 decimals.
+    expect(labour.technicians.find((t) => t.technicianId === newcomer.id)?.attendanceHours).toBe(3.0006);
   });
 
   it('flags a shift still open from an earlier day', async () => {
