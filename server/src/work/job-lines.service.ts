@@ -35,6 +35,15 @@ import { toJobLineDto } from './job-line.dto.js';
 import { syncRepairOrderStatus } from './repair-order-status.js';
 import { PartsService } from './parts.service.js';
 
+/** A line's details as its row's columns: an emptied cause or correction is no longer on record. */
+function asLineRow<Fields extends { cause?: string | null; correction?: string | null }>(fields: Fields) {
+  return {
+    ...fields,
+    ...(fields.cause === '' && { cause: null }),
+    ...(fields.correction === '' && { correction: null }),
+  };
+}
+
 /** A line's details in words, for a conflict that names what someone else changed. */
 const LINE_DETAIL_WORDS: Record<LineDetailField, string> = {
   title: 'job',
@@ -239,20 +248,15 @@ export class JobLinesService {
   @Transactional()
   editDetails(id: number, { was, ...body }: EditJobLineBody, actor: Principal, now = new Date()): JobLineDto {
     const line = this.find(id);
-    const moved = Object.entries(was ?? {})
-      .filter(([field, read]) => (line[field as LineDetailField] ?? '') !== (read ?? ''))
-      .map(([field]) => LINE_DETAIL_WORDS[field as LineDetailField]);
+    const moved = Object.keys(changedFields(line, asLineRow(was ?? {}))).map(
+      (field) => LINE_DETAIL_WORDS[field as LineDetailField],
+    );
     if (moved.length > 0)
       throw new ConflictException(
         `Someone else changed the ${moved.join(' and the ')} of ${lineWords(line.lineNo)} since you opened it: reload to see their change`,
       );
     this.assertRepairOrderOpen(line);
-    // An emptied cause or correction is no longer on record.
-    const changes = changedFields(line, {
-      ...body,
-      ...(body.cause === '' && { cause: null }),
-      ...(body.correction === '' && { correction: null }),
-    });
+    const changes = changedFields(line, asLineRow(body));
     if (Object.keys(changes).length === 0) return toJobLineDto(line);
     const updated = this.save(id, {
       ...Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to])),

@@ -51,6 +51,38 @@ const DAY_MS = 24 * 3600_000;
 /** Reading a matched RO and sorting it in, against stepping over one index entry: measured, roughly. */
 const READ_AND_SORT_COST = 10;
 
+type RepairOrderDetails = Pick<EditRepairOrderBody, 'customer' | 'vehicle' | 'concern' | 'promisedAt'>;
+
+/** An edit's fields, or what its editor read, as the RO row's columns. */
+function asRow({ customer = {}, vehicle = {}, concern, promisedAt }: RepairOrderDetails) {
+  return {
+    customerName: customer.name,
+    customerPhone: customer.phone,
+    customerEmail: customer.email === null ? null : customer.email?.toLowerCase(),
+    vehicleYear: vehicle.year,
+    vehicleMake: vehicle.make,
+    vehicleModel: vehicle.model,
+    vehiclePlate: vehicle.plate,
+    odometer: vehicle.odometer,
+    concern,
+    promisedAt: promisedAt === undefined ? undefined : promisedAt === null ? null : new Date(promisedAt),
+  };
+}
+
+/** The RO's fields in words, for a conflict that names what someone else changed. */
+const RO_FIELD_WORDS = {
+  customerName: 'customer’s name',
+  customerPhone: 'phone',
+  customerEmail: 'e-mail',
+  vehicleYear: 'year',
+  vehicleMake: 'make',
+  vehicleModel: 'model',
+  vehiclePlate: 'plate',
+  odometer: 'odometer reading',
+  concern: 'concern',
+  promisedAt: 'promise time',
+} satisfies Record<keyof ReturnType<typeof asRow>, string>;
+
 function fieldError(path: string[], message: string, summary = message): BadRequestException {
   return new BadRequestException({ statusCode: 400, message: summary, issues: [{ path, message }] });
 }
@@ -230,28 +262,20 @@ export class RepairOrdersService {
   @Transactional()
   edit(id: number, body: EditRepairOrderBody, actor: Principal, now = new Date()): RepairOrderSummary {
     const ro = this.openRow(id);
-    if (body.expectedVersion !== undefined && body.expectedVersion !== ro.version)
+    const moved = Object.keys(changedFields(ro, asRow(body.was ?? {}))).map(
+      (field) => RO_FIELD_WORDS[field as keyof typeof RO_FIELD_WORDS],
+    );
+    if (moved.length > 0)
       throw new ConflictException(
-        `Someone else changed RO ${ro.number} since you opened it: reload to see their change`,
+        `Someone else changed the ${moved.join(' and the ')} of RO ${ro.number} since you opened it: reload to see their change`,
       );
-    const promisedAt =
-      body.promisedAt === undefined ? undefined : body.promisedAt === null ? null : new Date(body.promisedAt);
+    const edited = asRow(body);
+    const { promisedAt } = edited;
     if (promisedAt && promisedAt <= now && promisedAt.getTime() !== ro.promisedAt?.getTime())
       throw fieldError(['promisedAt'], 'That time has already passed: promise a later one');
     const { customer = {}, vehicle = {} } = body;
-    const email = customer.email === null ? null : customer.email?.toLowerCase();
-    const changes = changedFields(ro, {
-      customerName: customer.name,
-      customerPhone: customer.phone,
-      customerEmail: email,
-      vehicleYear: vehicle.year,
-      vehicleMake: vehicle.make,
-      vehicleModel: vehicle.model,
-      vehiclePlate: vehicle.plate,
-      odometer: vehicle.odometer,
-      concern: body.concern,
-      promisedAt,
-    });
+    const email = edited.customerEmail;
+    const changes = changedFields(ro, edited);
     if (Object.keys(changes).length === 0) return this.get(id, now);
     const { odometer, ...details } = vehicle;
     const reading = odometer !== ro.odometer ? odometer : undefined;
@@ -271,11 +295,7 @@ export class RepairOrdersService {
       );
     }
     const set = Object.fromEntries(Object.entries(changes).map(([key, { to }]) => [key, to]));
-    this.db
-      .update(repairOrders)
-      .set({ ...set, version: sql`${repairOrders.version} + 1` })
-      .where(eq(repairOrders.id, id))
-      .run();
+    this.db.update(repairOrders).set(set).where(eq(repairOrders.id, id)).run();
     const onFile = { name: customer.name, phone: customer.phone, email };
     if (Object.values(onFile).some((v) => v !== undefined))
       this.db.update(customers).set(onFile).where(eq(customers.id, ro.customerId)).run();
@@ -394,7 +414,7 @@ export class RepairOrdersService {
       throw new ConflictException(`RO ${ro.number} still has open work: finish or cancel its lines first`);
     this.db
       .update(repairOrders)
-      .set({ status: 'closed', closedAt: now, version: sql`${repairOrders.version} + 1` })
+      .set({ status: 'closed', closedAt: now })
       .where(eq(repairOrders.id, id))
       .run();
     const freed = this.db
@@ -610,7 +630,6 @@ export class RepairOrdersService {
       promisedAt: ro.promisedAt?.toISOString() ?? null,
       createdAt: ro.createdAt.toISOString(),
       closedAt: ro.closedAt?.toISOString() ?? null,
-      version: ro.version,
       late: lines.some((line) => line.repairOrderId === ro.id && late.has(line.id)),
       lines: lines
         .filter((line) => line.repairOrderId === ro.id)

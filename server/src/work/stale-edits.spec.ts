@@ -67,56 +67,63 @@ describe(`${RepairOrdersService.name} refusing an edit made on stale data`, () =
   });
   afterAll(() => sut.close());
 
-  it('refuses the second of two RO edits made on the same read, storing nothing of it', async () => {
+  it('refuses an RO edit of a field someone changed since it was read, storing nothing of it', async () => {
     const written = await write();
-    const read = (await ro(written.id)).version;
     await as(advisor)
-      .patch(`/api/repair-orders/${written.id}`, { concern: 'Rattle and a clunk', expectedVersion: read })
+      .patch(`/api/repair-orders/${written.id}`, {
+        concern: 'Rattle and a clunk',
+        was: { concern: 'Rattle over bumps' },
+      })
       .expect(200);
     const refused = await as(otherAdvisor)
       .patch(`/api/repair-orders/${written.id}`, {
         concern: 'Only a rattle',
         vehicle: { plate: 'RM 4410' },
-        expectedVersion: read,
+        was: { concern: 'Rattle over bumps', vehicle: { plate: null } },
       })
       .expect(409);
     expect(refused.body.message).toBe(
-      `Someone else changed RO ${written.number} since you opened it: reload to see their change`,
+      `Someone else changed the concern of RO ${written.number} since you opened it: reload to see their change`,
     );
-    const now = await ro(written.id);
-    expect(now).toMatchObject({ concern: 'Rattle and a clunk', plate: null, version: read + 1 });
+    expect(await ro(written.id)).toMatchObject({ concern: 'Rattle and a clunk', plate: null });
     expect(edits('repair-order', written.id)).toHaveLength(1);
 
-    // Sent again on the RO as it is now, the edit goes through; without a version, as it always did.
+    // Another field read at the same time is no conflict; without `was`, as it always was.
     await as(otherAdvisor)
       .patch(`/api/repair-orders/${written.id}`, {
         vehicle: { plate: 'RM 4410' },
-        expectedVersion: now.version,
+        was: { vehicle: { plate: null } },
       })
       .expect(200);
-    const unversioned = (
+    const unchecked = (
       await as(otherAdvisor)
         .patch(`/api/repair-orders/${written.id}`, { concern: 'Only a rattle' })
         .expect(200)
     ).body as RepairOrderSummary;
-    expect(unversioned).toMatchObject({ concern: 'Only a rattle', plate: 'RM 4410', version: read + 3 });
+    expect(unchecked).toMatchObject({ concern: 'Only a rattle', plate: 'RM 4410' });
   });
 
-  it('keeps the RO’s version while its status follows its lines; closing it moves it', async () => {
+  it('compares a phone, an e-mail and a promise as stored, whatever their spelling', async () => {
     const written = await write();
-    const [first, second] = written.lines;
-    const read = (await ro(written.id)).version;
-    for (const line of [first!, second!])
-      await as(advisor)
-        .post(`/api/job-lines/${line.id}/cancel`, { reason: 'Customer will come back for it' })
-        .expect(200);
-    // The lines' work is no edit of the RO's own record: an edit read before it goes through.
-    expect(await ro(written.id)).toMatchObject({ status: 'done', version: read });
+    const promise = new Date(Date.now() + 72 * HOUR).toISOString();
     await as(advisor)
-      .patch(`/api/repair-orders/${written.id}`, { concern: 'Rattle, seen to later', expectedVersion: read })
+      .patch(`/api/repair-orders/${written.id}`, {
+        customer: { phone: '608-555-0199', email: 'Ysolde@Example.test' },
+        promisedAt: promise,
+        was: { customer: { phone: '(608) 555-0171', email: null }, promisedAt: written.promisedAt },
+      })
       .expect(200);
-    await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(200);
-    expect((await ro(written.id)).version).toBe(read + 2);
+    // Read back as the office shows them: another spelling of the same phone, e-mail and instant.
+    await as(otherAdvisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        concern: 'Rattle over bumps, front left',
+        was: {
+          customer: { phone: '(608) 555-0199', email: 'ysolde@example.test' },
+          promisedAt: promise.replace('Z', '+00:00'),
+          concern: 'Rattle over bumps',
+        },
+      })
+      .expect(200);
   });
 
   it('refuses a line edit of a field someone changed since it was read, storing nothing of it', async () => {

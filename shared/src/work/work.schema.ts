@@ -222,14 +222,8 @@ export const createRepairOrderSchema = z
   });
 export type CreateRepairOrderBody = z.infer<typeof createRepairOrderSchema>;
 
-/**
- * `PATCH /api/repair-orders/:id`: corrections after the fact, each audited with what it was. A
- * promise of null takes the promise back; a phone, e-mail or plate left empty (or null) is taken off,
- * as a customer may have no phone or e-mail on file. A reading lowered below the vehicle's highest
- * needs a reason, as at intake. With `expectedVersion` (the RO's `version` as read) the edit is
- * refused with 409 once the RO changed since; without it the edit is taken as it comes.
- */
-export const editRepairOrderSchema = z
+/** An RO's own record as the office edits it: the customer and vehicle on it, the concern, the promise. */
+const repairOrderDetailsSchema = z
   .object({
     customer: z
       .object({
@@ -253,9 +247,20 @@ export const editRepairOrderSchema = z
       .strict(),
     concern: plainText(1000, { min: 1, multiline: true, message: 'Say what the customer asked for' }),
     promisedAt: instantSchema.nullable(),
-    odometerOverrideReason: reasonSchema,
-    expectedVersion: z.number().int().min(1),
   })
+  .partial()
+  .strict();
+
+/**
+ * `PATCH /api/repair-orders/:id`: corrections after the fact, each audited with what it was. A
+ * promise of null takes the promise back; a phone, e-mail or plate left empty (or null) is taken off,
+ * as a customer may have no phone or e-mail on file. A reading lowered below the vehicle's highest
+ * needs a reason, as at intake. With `was` (each changed field as the editor read it) the edit is
+ * refused with 409 when one of those fields changed since; a change to another field is no conflict.
+ * Without `was` the edit is taken as it comes.
+ */
+export const editRepairOrderSchema = repairOrderDetailsSchema
+  .extend({ odometerOverrideReason: reasonSchema, was: repairOrderDetailsSchema })
   .partial()
   .strict();
 export type EditRepairOrderBody = z.infer<typeof editRepairOrderSchema>;
@@ -324,11 +329,6 @@ export interface RepairOrderSummary {
   promisedAt: string | null;
   createdAt: string;
   closedAt: string | null;
-  /**
-   * Moved by each edit of the RO's own record (customer, vehicle, concern, promise) and by its close, not
-   * by its lines' work: an edit sends it back as `expectedVersion`.
-   */
-  version: number;
   /** An open line of it is late: see `isLineLate`. */
   late: boolean;
   /** Each line with the seconds everyone has clocked on it (split rule applied), whether it is late, and its parts hold. */

@@ -6,6 +6,7 @@ import {
   advisorChoices,
   bookTotal,
   changedFields,
+  readFields,
   linesDone,
   filtersFromParams,
   filtersToParams,
@@ -67,7 +68,6 @@ function ro(overrides: Partial<RepairOrderSummary> = {}): RepairOrderSummary {
     promisedAt: null,
     createdAt: '2026-12-01T15:00:00.000Z',
     closedAt: null,
-    version: 1,
     late: false,
     lines: [jobLine()],
     ...overrides,
@@ -233,6 +233,15 @@ describe('changedFields', () => {
       vehicle: { odometer: 52_300 },
     });
     expect(changedFields(opened, opened)).toEqual({});
+  });
+
+  it('names what each changed field was when the dialog opened, for the server to check', () => {
+    const changed = changedFields(opened, { customer: { phone: null }, vehicle: { odometer: 52_300 } });
+    expect(readFields(opened, changed)).toEqual({
+      customer: { phone: '+16085550177' },
+      vehicle: { odometer: 52_100 },
+    });
+    expect(readFields({ cause: undefined }, { cause: 'Worn pads' })).toEqual({ cause: null });
   });
 
   it('takes a line: a title change leaves the book hours out', () => {

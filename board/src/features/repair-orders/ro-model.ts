@@ -181,6 +181,19 @@ export function changedFields<T extends Plain>(opened: Plain, edited: T): Partia
   return changes as Partial<T>;
 }
 
+/**
+ * What the dialog opened with for each field it changed (`changed`, from `changedFields`), nested groups
+ * included: sent as `was`, so the server refuses the edit if someone changed one of those fields since.
+ */
+export function readFields(opened: Plain, changed: Plain): Plain {
+  return Object.fromEntries(
+    Object.entries(changed).map(([key, value]) => {
+      const before = opened[key];
+      return [key, isPlain(value) && isPlain(before) ? readFields(before, value) : (before ?? null)];
+    }),
+  );
+}
+
 type CountedLine = Pick<JobLineDto, 'status' | 'bookHours'>;
 
 /** A cancelled line stays on the RO for its record but is never flagged, so it is no part of the book. */

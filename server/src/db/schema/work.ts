@@ -98,12 +98,6 @@ export const repairOrders = sqliteTable(
     closedAt: integer('closed_at', { mode: 'timestamp_ms' }),
     /** The RO's reference in the system it was imported from: one RO per reference in the shop. */
     externalRef: text('external_ref'),
-    /**
-     * Moved by each edit of the RO's own record and by its close (not by its status following its lines):
-     * an edit that names the version its editor read is refused once another came in between, instead
-     * of silently undoing it.
-     */
-    version: integer('version').notNull().default(1),
   },
   (t) => [
     uniqueIndex('repair_orders_number_idx').on(t.number),

@@ -22,7 +22,7 @@ import { FormDialog } from '@/components/form-dialog';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { isStaleEdit, useEditRepairOrder, useReloadRepairOrder } from '../api/repair-order-changes';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { changedFields } from '../ro-model';
+import { changedFields, readFields } from '../ro-model';
 
 const useStyles = makeStyles({
   pair: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
@@ -123,7 +123,7 @@ export function EditRepairOrderDialog({
   const styles = useStyles();
   const edit = useEditRepairOrder(ro.id);
   const reload = useReloadRepairOrder(ro.id);
-  // The RO as the dialog read it, not as the page now shows it: its version is what the edit is made on.
+  // The RO as the dialog read it, not as the page now shows it: the edit names what it changes from.
   const [read, setRead] = useState(ro);
   const [opened, setOpened] = useState(() => fieldsOf(ro));
   const form = useSchemaForm(editRepairOrderSchema, { defaultValues: opened });
@@ -168,12 +168,13 @@ export function EditRepairOrderDialog({
             ? promiseToSend(promise, openedPromise, timeZone)
             : { promisedAt: undefined };
         if ('error' in promised) return setPromiseError(promised.error);
+        const openedFields = editRepairOrderSchema.safeParse(opened).data ?? {};
         const body = {
-          ...changedFields(editRepairOrderSchema.safeParse(opened).data ?? {}, edited),
+          ...changedFields(openedFields, edited),
           ...(promised.promisedAt !== undefined && { promisedAt: promised.promisedAt }),
         };
         if (Object.keys(body).length === 0) return onClose();
-        const sent = { ...body, expectedVersion: read.version };
+        const sent = { ...body, was: readFields({ ...openedFields, promisedAt: read.promisedAt }, body) };
         edit.mutate(odometerRefused ? { ...sent, odometerOverrideReason: odometerReason } : sent, {
           onSuccess: onClose,
           onError: (error) => {

@@ -21,7 +21,7 @@ import {
   useReloadRepairOrder,
   useReopenJobLine,
 } from '../api/repair-order-changes';
-import { changedFields } from '../ro-model';
+import { changedFields, readFields } from '../ro-model';
 import { StaleEditBar } from './edit-repair-order-dialog';
 
 /** Typed hours as a number when they read as one; the schema says what is wrong otherwise. */
@@ -76,14 +76,11 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
       formError={errors.root?.server?.message}
       onClose={onClose}
       onSubmit={form.handleSubmit((edited) => {
-        const body = changedFields(editJobLineSchema.safeParse(opened).data ?? {}, edited);
+        const openedFields = editJobLineSchema.safeParse(opened).data ?? {};
+        const body = changedFields(openedFields, edited);
         if (Object.keys(body).length === 0) return onClose();
-        // Each changed field as it was read: the server refuses the edit if someone changed one since.
-        const was = Object.fromEntries(
-          Object.keys(body).map((field) => [field, opened[field as keyof typeof opened]]),
-        );
         edit.mutate(
-          { lineId: line.id, body: { ...body, was } },
+          { lineId: line.id, body: { ...body, was: readFields(openedFields, body) } },
           {
             onSuccess: onClose,
             onError: (error) =>

@@ -1,0 +1,1 @@
+ALTER TABLE `repair_orders` DROP COLUMN `version`;
