@@ -1,4 +1,12 @@
-import { BadRequestException, Inject, Injectable, type StreamableFile } from '@nestjs/common';
+import {
+  BadRequestException,
+  Inject,
+  Injectable,
+  Logger,
+  type OnApplicationBootstrap,
+  type OnApplicationShutdown,
+  type StreamableFile,
+} from '@nestjs/common';
 import { and, asc, eq, gte, isNotNull, lt, ne, sql, type SQL } from 'drizzle-orm';
 import {
   addIsoWeeks,
@@ -32,6 +40,7 @@ import {
   type WeekSummary,
 } from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
+import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
 import { lineIsDone } from '../db/line-is-done.js';
 import { bays, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
@@ -79,9 +88,19 @@ const trendWeeks = (label: string): string[] =>
     remember(`add|${label}|${i}`, () => addIsoWeeks(label, i + 1 - LABOUR_TREND_WEEKS)),
   );
 
+/**
+ * How long after a start the running week's trend is counted: once the screens reconnected and took their
+ * snapshots, so that the thousand sockets of a restart never wait behind it.
+ */
+const TREND_KEPT_AFTER_START_MS = 3_000;
+
 /** The weekly labour report, the pay summary, a technician's week and the exceptions list. */
 @Injectable()
-export class ReportsService {
+export class ReportsService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger(ReportsService.name);
+  private trendKeeping: NodeJS.Timeout | null = null;
+  private stopped = false;
+
   constructor(
     @Inject(DB) private readonly db: Db,
     private readonly shop: ShopService,
@@ -90,6 +109,29 @@ export class ReportsService {
     private readonly exceptionsService: ExceptionsService,
     private readonly closedWeeks: ClosedWeeksService,
   ) {}
+
+  /**
+   * The first labour report after a start would count the trend's weeks of punches (about half a second on
+   * years of them): they are counted a little after the start, in turns, before anyone asks.
+   */
+  onApplicationBootstrap(): void {
+    this.trendKeeping = setTimeout(
+      () => keepServing(this.logger, 'Counting the labour trend', () => this.keepRunningTrend()),
+      TREND_KEPT_AFTER_START_MS,
+    ).unref();
+  }
+
+  onApplicationShutdown(): void {
+    this.stopped = true;
+    if (this.trendKeeping) clearTimeout(this.trendKeeping);
+  }
+
+  private async keepRunningTrend(): Promise<void> {
+    const now = new Date();
+    const settings = this.shop.settings(now);
+    const labels = trendWeeks(workweekOf(now, settings)).slice(0, -1);
+    await this.weeks.keepShopSecondsInTurns(labels, settings, now, () => this.stopped);
+  }
 
   /**
    * The trend's past weeks that are not kept are counted first, one a turn of the event loop: after a start

@@ -262,13 +262,20 @@ export class WeekFiguresService {
 
   /**
    * Computes and keeps the shop seconds of the weeks `labels` that are not kept, one week a turn of the event
-   * loop, so that whatever waits (a punch, a socket) is served between the weeks rather than after them all.
+   * loop, so that whatever waits (a punch, a socket) is served between the weeks rather than after them all;
+   * it stops between two weeks once `stopped` says so (the server is going down).
    */
-  async keepShopSecondsInTurns(labels: readonly string[], settings: ShopSettings, now: Date): Promise<void> {
+  async keepShopSecondsInTurns(
+    labels: readonly string[],
+    settings: ShopSettings,
+    now: Date,
+    stopped = () => false,
+  ): Promise<void> {
     for (const label of labels) {
       this.forgetChanged(settings);
       if (this.keptShopSeconds.get(label, now) !== undefined) continue;
       await setImmediate();
+      if (stopped()) return;
       this.shopSeconds([label], settings, now);
     }
   }
