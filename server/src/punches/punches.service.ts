@@ -36,6 +36,7 @@ import { LiveService } from '../live/live.service.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { toJobLineDto } from '../work/job-line.dto.js';
+import { counts } from './last-shift-out.js';
 import { PunchLedgerService } from './punch-ledger.service.js';
 
 export type RecordedPunch =
@@ -210,6 +211,35 @@ export class PunchesService {
       this.floor.lineAudience(updated),
     );
     this.floor.linesChanged([line.id]);
+  }
+
+  /**
+   * Clock-ons were taken out of the count (a wrong punch voided, a correction that replaced or displaced
+   * them): a working line of `lineIds` with no clock-on left was never worked, and goes back to the queue.
+   */
+  returnUnworked(lineIds: readonly number[], now: Date): void {
+    for (const id of new Set(lineIds)) {
+      const line = this.queries.line.get({ id });
+      if (line?.status !== 'working') continue;
+      const worked = this.db
+        .select({ id: punches.id })
+        .from(punches)
+        .where(and(eq(punches.jobLineId, id), eq(punches.kind, 'job-on'), counts('punches')))
+        .get();
+      if (worked) continue;
+      const updated = this.db
+        .update(jobLines)
+        .set({ status: 'queued', updatedAt: now })
+        .where(eq(jobLines.id, id))
+        .returning()
+        .get();
+      this.live.publish(
+        'job-line.updated',
+        { jobLine: toJobLineDto(updated) },
+        this.floor.lineAudience(updated),
+      );
+      this.floor.linesChanged([id]);
+    }
   }
 
   /**

@@ -28,7 +28,13 @@ interface Plan {
   /** The rows it writes, the punch asked for last. */
   added: LedgerPunch[];
   impact: PunchImpact;
+  /** The punch it replaces or takes out, if any. */
+  replaced: LedgerPunch[];
 }
+
+/** The lines of the clock-ons among `punches`. */
+const clockOnLines = (punches: readonly LedgerPunch[]) =>
+  punches.flatMap((punch) => (punch.kind === 'job-on' && punch.jobLineId !== null ? [punch.jobLineId] : []));
 
 /**
  * The foreman's and owner's changes to a timecard: a punch replaced, a missed one added, a wrong one taken
@@ -63,7 +69,7 @@ export class CorrectionsService {
    */
   @Transactional()
   correct(body: CorrectionBody, actor: Principal, now = new Date()): PunchDto {
-    const { added, impact } = this.plan(body, now);
+    const { added, impact, replaced } = this.plan(body, now);
     this.assertConfirmed('That correction', impact, body);
     const punch = added
       .map((each) => this.ledger.insert(each, { at: now, by: actor.id, reason: body.reason }))
@@ -76,6 +82,7 @@ export class CorrectionsService {
     );
     if (body.kind === 'job-on' && body.jobLineId)
       this.punches.startWork(body.jobLineId, body.technicianId, actor, now);
+    this.punches.returnUnworked(clockOnLines([...replaced, ...impact.displaced]), now);
     this.audit.record({
       actorId: actor.id,
       action: body.punchId ? 'correct' : 'add-missed',
@@ -98,7 +105,7 @@ export class CorrectionsService {
    */
   @Transactional()
   void(body: VoidPunchBody, actor: Principal, now = new Date()): PunchDto {
-    const { added, impact } = this.planVoid(body, now);
+    const { added, impact, replaced } = this.planVoid(body, now);
     this.assertConfirmed('Taking that punch out', impact, body);
     const rows = added.map((each) =>
       this.ledger.insert(each, { at: now, by: actor.id, reason: body.reason, voids: true }),
@@ -111,6 +118,7 @@ export class CorrectionsService {
       `Displaced by a punch taken out: ${body.reason}`,
       now,
     );
+    this.punches.returnUnworked(clockOnLines([...replaced, ...impact.displaced]), now);
     this.audit.record({
       actorId: actor.id,
       action: 'void',
@@ -169,7 +177,9 @@ export class CorrectionsService {
     const at = new Date(body.at);
     if (at > now) throw new BadRequestException('A correction cannot be in the future');
     this.assertTechnician(body.technicianId);
-    if (body.punchId) this.replaceable(body.punchId, body.technicianId, 'The punch it corrects');
+    const replaced = body.punchId
+      ? this.replaceable(body.punchId, body.technicianId, 'The punch it corrects')
+      : undefined;
     this.closedWeeks.assertOpenAt(at, 'That correction');
     if (body.jobLineId)
       this.ledger.assertLineExistedAt(
@@ -190,7 +200,12 @@ export class CorrectionsService {
       supersedes: body.punchId ?? null,
     };
     const existing = this.ledger.around(body.technicianId, at);
-    return this.impactOf(existing, this.ledger.withJobOffs(existing, candidate), now);
+    return this.impactOf(
+      existing,
+      this.ledger.withJobOffs(existing, candidate),
+      replaced ? [replaced] : [],
+      now,
+    );
   }
 
   /** The punch voided, with the clock-offs its clock-on recorded for the lines it closed (they go with it). */
@@ -209,7 +224,7 @@ export class CorrectionsService {
       voids: true,
     });
     const existing = this.ledger.around(original.technicianId, new Date(original.at));
-    return this.impactOf(existing, [...this.impliedBy(original), original].map(voiding), now);
+    return this.impactOf(existing, [...this.impliedBy(original), original].map(voiding), [original], now);
   }
 
   /** Clock-offs recorded with a clock-on, at its instant, for the lines it closed at the jobs-at-once limit. */
@@ -233,8 +248,8 @@ export class CorrectionsService {
       .map(toPunchDto);
   }
 
-  private impactOf(existing: LedgerPunch[], added: LedgerPunch[], now: Date): Plan {
-    return { added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)) };
+  private impactOf(existing: LedgerPunch[], added: LedgerPunch[], replaced: LedgerPunch[], now: Date): Plan {
+    return { added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)), replaced };
   }
 
   /** A counted punch of this technician, in an open week, that no later record replaced yet. */

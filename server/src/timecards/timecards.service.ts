@@ -106,7 +106,9 @@ export class TimecardsService {
     const ledger = buildLedger(all, until, this.shop.ledgerSettings());
     const supersededBy = new Map(all.filter((p) => p.supersedes).map((p) => [p.supersedes!, p.id]));
     const names = this.namesOf([...new Set(all.map((p) => p.recordedBy))]);
-    const lines = this.linesOf([...new Set(ledger.jobs.map((j) => j.jobLineId))]);
+    const lines = this.linesOf([
+      ...new Set(all.flatMap((punch) => (punch.jobLineId === null ? [] : [punch.jobLineId]))),
+    ]);
     const inWeek = (interval: { from: Date; to: Date }) => interval.to > from && interval.from < to;
     const iso = (interval: { from: Date; to: Date; open: boolean }) => ({
       from: interval.from.toISOString(),
@@ -171,6 +173,11 @@ export class TimecardsService {
           countedSeconds: wholeSeconds(ledger.within(start, end).jobSeconds[job.jobLineId] ?? 0),
         };
       }),
+      lines: [...lines].map(([jobLineId, { title, number }]) => ({
+        jobLineId,
+        title,
+        repairOrderNumber: number,
+      })),
       days: weekDays.map((day, i) => ({ day: day.day, ...dayFigures[i]! })),
       totals: totals(ledger.within(from, to)),
       anomalies,

@@ -272,6 +272,21 @@ describe(TimecardsService.name, () => {
       expect(after.punches.find((p) => p.id === punch.id)?.supersededBy).toEqual(expect.any(String));
     expect(after.audit.filter((entry) => entry.action === 'void')).toHaveLength(3);
     await takeOut({ displaces: displaced.map((p) => p.id) }).expect(409);
+    // B's only clock-on is gone: nobody worked it, so it waits in the queue again; A is still being worked.
+    const statuses = sut.app
+      .get<Db>(DB)
+      .select({ id: jobLines.id, status: jobLines.status })
+      .from(jobLines)
+      .where(inArray(jobLines.id, [a!, b!]))
+      .all();
+    expect(new Map(statuses.map((line) => [line.id, line.status]))).toEqual(
+      new Map([
+        [a, 'working'],
+        [b, 'queued'],
+      ]),
+    );
+    // Its card still names the line of each punch taken out.
+    expect(after.lines.map((line) => line.jobLineId).sort()).toEqual([a, b].sort());
   });
 
   // Three shifts of 1 h 0 min 0.5 s on three days: 10,801.5 s, which is 10,802 whole seconds rounded once

@@ -62,6 +62,8 @@ export interface Timecard {
     /** What the line is credited for it within the week, after the shop's split of time on several lines. */
     countedSeconds: number;
   })[];
+  /** Every line a punch of the card names, those taken out of the count included. */
+  lines: { jobLineId: number; title: string; repairOrderNumber: string }[];
   days: TimecardDay[];
   totals: TimecardTotals;
   /** Punches that did not fit where they fell, with the reason. */

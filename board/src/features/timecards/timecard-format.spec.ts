@@ -47,6 +47,18 @@ describe(auditText.name, () => {
     });
   });
 
+  it('says a punch was taken out of the count, in the words the card uses', () => {
+    expect(
+      auditText(
+        { action: 'void', detail: { kind: 'job-on', at: '2026-11-30T16:58:00Z', reason: 'Wrong line' } },
+        'America/Chicago',
+      ),
+    ).toEqual({
+      action: 'Took a punch out of the count',
+      detail: 'Clock on at Mon, Nov 30, 10:58 am: “Wrong line”',
+    });
+  });
+
   it('copes with an action it does not know and no detail', () => {
     expect(auditText({ action: 'bulk-import', detail: null }, 'UTC')).toEqual({
       action: 'bulk import',

@@ -55,6 +55,10 @@ export function dayValue(iso: string | Date, timeZone: string): string {
 const AUDIT_ACTIONS: Record<string, string> = {
   correct: 'Replaced a punch',
   'add-missed': 'Added a missed punch',
+  void: 'Took a punch out of the count',
+  accept: 'Accepted a late punch',
+  reject: 'Rejected a late punch',
+  hold: 'Held a late punch for review',
 };
 
 /** One audit entry in words: what was done, and the punch and reason it recorded. */

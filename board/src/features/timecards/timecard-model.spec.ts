@@ -101,6 +101,11 @@ function card(overrides: Partial<Timecard> = {}): Timecard {
         countedSeconds: 5250,
       },
     ],
+    lines: [
+      { jobLineId: 97, title: 'Battery test', repairOrderNumber: '4497' },
+      { jobLineId: 98, title: 'Thermostat', repairOrderNumber: '4498' },
+      { jobLineId: 55, title: 'Wiper blades', repairOrderNumber: '4455' },
+    ],
     days: days.map((day) => ({ day, ...zero })),
     totals: zero,
     anomalies: [{ punchId: 'e', reason: 'You are not clocked on that line' }],
@@ -166,11 +171,11 @@ describe('timecard model', () => {
     expect(rows.find((row) => row.punch.id === 'b')!.replacedBy).toMatchObject({ id: 'v', voids: true });
   });
 
-  it('names job lines and says why a punch was not counted', () => {
+  it('names job lines, a punch out of the count’s too, and says why a punch was not counted', () => {
     const rows = punchRows(card());
     expect(rows.find((row) => row.punch.id === 'b')!.job).toBe('RO 4497 · Battery test');
     const stray = rows.find((row) => row.punch.id === 'e')!;
-    expect(stray.job).toBe('Job line 55');
+    expect(stray.job).toBe('RO 4455 · Wiper blades');
     expect(stray.notCounted).toBe('You are not clocked on that line');
   });
 
@@ -244,7 +249,7 @@ describe('timecard model', () => {
       { jobLineId: 98, label: 'RO 4498 · Thermostat' },
       { jobLineId: 120, label: 'RO 4510 · Brake pads' },
     ]);
-    expect(choices.map((choice) => choice.jobLineId)).toEqual([97, 98, 120]);
+    expect(choices.map((choice) => choice.jobLineId)).toEqual([97, 98, 55, 120]);
   });
 
   it('counts how long a day’s jobs ran at the same time, which "On jobs" counts once', () => {

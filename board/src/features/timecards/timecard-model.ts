@@ -69,10 +69,8 @@ function dayIndexOf(instant: number, bounds: { from: Date; to: Date }[]): number
 }
 
 /** The job lines a card mentions, labelled "RO 4497 · title". */
-export function jobLinesOf(card: Pick<Timecard, 'jobs'>): Map<number, string> {
-  const lines = new Map<number, string>();
-  for (const job of card.jobs) lines.set(job.jobLineId, `RO ${job.repairOrderNumber} · ${job.title}`);
-  return lines;
+export function jobLinesOf(card: Pick<Timecard, 'lines'>): Map<number, string> {
+  return new Map(card.lines.map((line) => [line.jobLineId, `RO ${line.repairOrderNumber} · ${line.title}`]));
 }
 
 /** Greedy tracks so concurrent jobs never draw over each other. */

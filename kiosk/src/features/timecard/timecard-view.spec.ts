@@ -51,6 +51,7 @@ function card(changes: Partial<Timecard> = {}): Timecard {
     shifts: [],
     breaks: [],
     jobs: [],
+    lines: [],
     days: days.map((day) => ({ day, ...zero })),
     totals: zero,
     anomalies: [],

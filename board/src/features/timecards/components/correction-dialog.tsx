@@ -384,11 +384,13 @@ export function CorrectionDialog({
                   ? 'Checking…'
                   : displaced.length > 0
                     ? `Save and take ${displaced.length} punch${displaced.length === 1 ? '' : 'es'} out`
-                    : takingOut
-                      ? 'Take punch out'
-                      : replacing
-                        ? 'Save correction'
-                        : 'Add punch'}
+                    : shown
+                      ? 'Confirm and save'
+                      : takingOut
+                        ? 'Take punch out'
+                        : replacing
+                          ? 'Save correction'
+                          : 'Add punch'}
               </Button>
             </DialogActions>
           </DialogBody>

@@ -235,7 +235,9 @@ export function DayDetail({
                   {onCorrect && (
                     <TableCell className={styles.actions}>
                       {row.replacedBy ? (
-                        <Caption1 className={styles.dim}>replaced</Caption1>
+                        <Caption1 className={styles.dim}>
+                          {row.replacedBy.voids ? 'taken out' : 'replaced'}
+                        </Caption1>
                       ) : (
                         <Button
                           size="small"

@@ -95,7 +95,10 @@ export function TimecardView({
 
   const data = card.data;
   const { totals } = data;
-  const corrections = data.punches.filter((punch) => punch.reason !== null).length;
+  // A voiding row is no punch of its own: it shows on the punch it takes out.
+  const shown = data.punches.filter((punch) => !punch.voids);
+  const corrections = shown.filter((punch) => punch.reason !== null).length;
+  const takenOut = data.punches.length - shown.length;
   const activeDays = days.filter((day) => day.active);
   // A week closed for pay takes no correction: the server would refuse it with 409 anyway.
   const editable = canCorrect && !data.closed;
@@ -141,8 +144,9 @@ export function TimecardView({
         <span className={styles.spacer} />
         <div className={styles.actions}>
           <Caption1 className={styles.dim}>
-            {data.punches.length} punches
+            {shown.length} punches
             {corrections > 0 && `, ${corrections} by correction`}
+            {takenOut > 0 && `, ${takenOut} taken out`}
           </Caption1>
           {editable && (
             <Button appearance="primary" onClick={() => openDialog({ add: true })}>
