@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { BoardPerson } from '@baytime/shared';
-import { packPages, peopleLayout, personChips, queueSummary, shiftCounts, stripPages } from './people-pages';
+import {
+  packPages,
+  peopleLayout,
+  personChips,
+  queueSummary,
+  queueWait,
+  shiftCounts,
+  stripPages,
+} from './people-pages';
 import { defaultGridArea, unitPx } from './wall-layout';
 
 const now = Date.parse('2026-03-02T15:00:00Z');
@@ -115,10 +123,11 @@ describe(stripPages.name, () => {
       expect(packed(now + minutes * 60_000)).toEqual(afterHour);
   });
 
-  it('puts two chips on a page of the demo shop’s strip at 1920 × 1080 while their idle times are minutes', () => {
-    // Measured in chromium on the demo wall at 1920 × 1080: Barlow Semi Condensed, the strip's chips with
-    // a short queue note beside them leaving 1196 px of room, a gap of 10.8 px. Sam O. and Jo W. idle 36m and
-    // 30m, Marcus L. idle 12m, Priya C. on a break 20m, Luis B. and Dana O. on jobs.
+  it('puts two chips on a page of the demo shop’s strip at 1920 × 1080, beside its queue note, while their idle times are minutes', () => {
+    // Measured in chromium on the demo wall at 1920 × 1080 (Barlow Semi Condensed): the strip is 1903 px, its
+    // page mark "6/6" 115.8 px, its gaps 10.8 px; the queue note is as wide as its widest wait. Sam O. and Jo W.
+    // idle 36m and 30m, Marcus L. idle 12m, Priya C. on a break 20m, Luis B. and Dana O. on jobs; the queue's
+    // oldest line has waited 48m.
     const measured: Record<string, number> = {
       'Sam O. idle 00m': 592,
       'Sam O. idle 00h 00m': 706,
@@ -130,6 +139,10 @@ describe(stripPages.name, () => {
       'Priya C. break 00h 00m': 776,
       'Luis B. Bay 2': 494,
       'Dana O. Bay 1': 521,
+      'Queue 3 · oldest 00h 00m': 874.8,
+      'Queue 3 · oldest 00m': 740.8,
+      'Queue 3 · 00h 00m': 664.9,
+      'Queue 3 · 00m': 530.9,
     };
     const demo: BoardPerson[] = [
       { ...person(1, 'idle', '2026-03-02T14:24:00Z'), name: 'Sam O.' },
@@ -139,8 +152,27 @@ describe(stripPages.name, () => {
       { ...person(5, 'on-job', '2026-03-02T13:00:00Z', 'Bay 2'), name: 'Luis B.' },
       { ...person(6, 'on-job', '2026-03-02T13:10:00Z', 'Bay 1'), name: 'Dana O.' },
     ];
+    const wait = queueWait({ count: 3, oldestSeconds: 48 * 60 })!;
+    const gap = 10.8;
+    const room = 1903 - measured[`Queue 3${wait.lead}${wait.widest}`]! - gap - 115.8 - gap;
     const widths = personChips(demo, now).map((chip) => measured[`${chip.name} ${chip.widestDetail}`]!);
-    expect(stripPages(widths, 1196, 10.8)).toEqual([[0, 1], [2], [3, 4], [5]]);
+    expect(stripPages(widths, room, gap)).toEqual([[0, 1], [2], [3, 4], [5]]);
+  });
+});
+
+describe(queueWait.name, () => {
+  it('tells the oldest wait, keeping the room of minutes alone for its first hour, then of any span', () => {
+    expect(queueWait({ count: 0, oldestSeconds: null })).toBeNull();
+    expect(queueWait({ count: 3, oldestSeconds: 48 * 60 })).toEqual({
+      lead: ' · ',
+      text: '48m',
+      widest: '00m',
+    });
+    expect(queueWait({ count: 3, oldestSeconds: 65 * 60 })).toEqual({
+      lead: ' · ',
+      text: '1h 05m',
+      widest: '00h 00m',
+    });
   });
 });
 

@@ -54,6 +54,28 @@ export function queueSummary(queue: readonly BoardQueueItem[], nowMs: number): Q
   };
 }
 
+export interface QueueWait {
+  /** What joins the wait to the count. */
+  lead: string;
+  text: string;
+  /** The room the wait keeps, so the chips beside it hold still while it ticks. */
+  widest: string;
+}
+
+/**
+ * The oldest wait on the strip's queue note, "Queue 3 · 48m". Terse, and with the room of minutes alone
+ * for its first hour: the note's width comes out of the chips' room, and " · oldest " with room for
+ * "00h 00m" left the demo shop's strip at 1920 px one chip a page.
+ */
+export function queueWait(queue: QueueSummary): QueueWait | null {
+  if (queue.oldestSeconds === null) return null;
+  return {
+    lead: ' · ',
+    text: formatSpan(queue.oldestSeconds),
+    widest: widestSpanUntilHour(queue.oldestSeconds),
+  };
+}
+
 /** Packs measured widths into pages that fit `available`, keeping order; a too-wide item gets its own page. */
 export function packPages(widths: readonly number[], available: number, gap: number): number[][] {
   const pages: number[][] = [];

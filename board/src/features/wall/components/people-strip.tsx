@@ -1,8 +1,14 @@
 import { useLayoutEffect, useRef, useState } from 'react';
 import type { BoardPerson } from '@baytime/shared';
 import { Glyph, type GlyphName } from '@/components/glyph';
-import { WIDEST_SPAN, formatSpan } from '../board-time';
-import { packPages, personChips, stripPages, type PersonChip, type QueueSummary } from '../people-pages';
+import {
+  packPages,
+  personChips,
+  queueWait,
+  stripPages,
+  type PersonChip,
+  type QueueSummary,
+} from '../people-pages';
 import { PageMarks } from './page-marks';
 import { SteadyText } from './steady-text';
 import styles from './wall.module.css';
@@ -112,6 +118,7 @@ export function PersonChipView({ chip, brief = false, className }: PersonChipVie
 }
 
 function QueueNote({ queue }: { queue: QueueSummary }) {
+  const wait = queueWait(queue);
   return (
     <div className={styles.queue}>
       <Glyph name="queue" className={styles.glyph} />
@@ -120,10 +127,10 @@ function QueueNote({ queue }: { queue: QueueSummary }) {
       ) : (
         <span>
           Queue <span className={styles.queueCount}>{queue.count}</span>
-          {queue.oldestSeconds !== null && (
+          {wait && (
             <span className={styles.queueWait}>
-              {' · oldest '}
-              <SteadyText text={formatSpan(queue.oldestSeconds)} widest={WIDEST_SPAN} />
+              {wait.lead}
+              <SteadyText text={wait.text} widest={wait.widest} />
             </span>
           )}
         </span>
