@@ -217,11 +217,13 @@ describe(ApprovalsService.name, () => {
       await sut.http().get(`/api/public/approvals/${wrong}/photos/${photoId}`).expect(404);
     });
 
-    it('records the answers once: a line for the yes, the hold released, the office told', async () => {
+    it('records the answers once: a line for the yes, the hold released, the office and the technician told', async () => {
       const token = tokenOf(sent.approvalUrl);
       const office = sut.connect(advisor);
-      await nextEvent(office, 'board.snapshot');
+      const kiosk = sut.connect(dana);
+      await Promise.all([nextEvent(office, 'board.snapshot'), nextEvent(kiosk, 'board.snapshot')]);
       const heard = nextEvent(office, 'finding.answered', (event) => event.findingId === second.id);
+      const heardOnKiosk = nextEvent(kiosk, 'finding.answered', (event) => event.findingId === first.id);
       const linesBefore = db
         .select()
         .from(jobLines)
@@ -243,6 +245,13 @@ describe(ApprovalsService.name, () => {
         jobLineId: second.jobLineId,
         note: 'wiper blades torn',
         answer: 'declined',
+        channel: 'link',
+      });
+      // The kiosk quotes the finding in its notice of why the held line is back.
+      expect(await heardOnKiosk).toMatchObject({
+        jobLineId: first.jobLineId,
+        note: 'pan gasket weeping, shavings',
+        answer: 'approved',
         channel: 'link',
       });
 

@@ -52,13 +52,14 @@ describe(UnitOfWork.name, () => {
       throw new Error('disk full');
     });
 
-    await as(luis.accessToken).post(`/api/job-lines/${line.id}/done`, { next: 'ready' }).expect(500);
+    const done = { next: 'ready', cause: 'Worn and out of spec', correction: 'Replaced and road tested' };
+    await as(luis.accessToken).post(`/api/job-lines/${line.id}/done`, done).expect(500);
 
     expect(everything()).toEqual(before);
     expect(messages).toEqual([]);
     vi.restoreAllMocks();
     // The same command then works, and is published once.
-    await as(luis.accessToken).post(`/api/job-lines/${line.id}/done`, { next: 'ready' }).expect(200);
+    await as(luis.accessToken).post(`/api/job-lines/${line.id}/done`, done).expect(200);
     expect(messages.map((m) => m.event)).toContain('job-line.updated');
   });
 

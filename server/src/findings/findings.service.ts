@@ -317,7 +317,8 @@ export class FindingsService {
         answer: decision.answer,
         channel: source.channel,
       },
-      { to: 'floor' },
+      // The line's technician's kiosk quotes the finding in its notice of why a held line is back.
+      this.floor.lineAudience(line, now),
     );
     return {
       finding: this.get(id),

@@ -70,7 +70,15 @@ describe(LineAccessService.name, () => {
       ['job-off', () => punch(sam, 'job-off', danas.id)],
       ['hold', () => as(sam.accessToken).post(`/api/job-lines/${danas.id}/hold`, { reason: 'parts' })],
       ['resume', () => as(sam.accessToken).post(`/api/job-lines/${priyasHeld.id}/resume`)],
-      ['done', () => as(sam.accessToken).post(`/api/job-lines/${danas.id}/done`, { next: 'ready' })],
+      [
+        'done',
+        () =>
+          as(sam.accessToken).post(`/api/job-lines/${danas.id}/done`, {
+            next: 'ready',
+            cause: 'Pan gasket weeping',
+            correction: 'Replaced the pan gasket',
+          }),
+      ],
       ['finding', () => finding(sam, danas.id, false)],
       ['finding that holds the line', () => finding(sam, danas.id, true)],
       [

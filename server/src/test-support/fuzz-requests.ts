@@ -667,7 +667,18 @@ export const ROUTE_FUZZ: Record<string, RouteFuzz> = {
   },
   'post /api/job-lines/:id/resume': { id: 'jobLine', body: fc.constant({}) },
   'post /api/job-lines/:id/sign-off': { id: 'jobLine', body: body({ reason }, ['reason']) },
-  'post /api/job-lines/:id/done': { id: 'jobLine', body: body({ next: fc.constantFrom('check', 'ready') }) },
+  // A technician's Done needs the cause and correction; the foreman's and owner's need neither.
+  'post /api/job-lines/:id/done': {
+    id: 'jobLine',
+    body: body(
+      {
+        next: fc.constantFrom('check', 'ready'),
+        cause: text(1000, ['Pads worn to the wear bar', 'Coolant hose split at the clamp']),
+        correction: text(1000, ['Fitted new pads and road tested', 'Replaced the hose and bled the system']),
+      },
+      ['cause', 'correction'],
+    ),
+  },
   'post /api/job-lines/:id/findings': {
     id: 'jobLine',
     body: body(

@@ -31,6 +31,8 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     patch: (path: string, body: object) => sut.http().patch(path).auth(token, { type: 'bearer' }).send(body),
   });
   const db = () => sut.app.get<Db>(DB);
+  /** What a technician writes at Done: the server refuses a technician's Done without it. */
+  const words = { cause: 'Worn and out of spec', correction: 'Replaced and road tested' };
   const write = async (titles: string[]) => {
     const n = ++serial;
     return (
@@ -109,7 +111,9 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
       .expect(201);
     expect((await tile(bay)).state).toBe('timer');
 
-    await as(jo.accessToken).post(`/api/job-lines/${line!.id}/done`, { next: 'ready' }).expect(200);
+    await as(jo.accessToken)
+      .post(`/api/job-lines/${line!.id}/done`, { next: 'ready', ...words })
+      .expect(200);
     expect((await tile(bay)).state).toBe('ready');
     const running = db().select().from(timers).where(eq(timers.jobLineId, line!.id)).all();
     expect(running.map((timer) => timer.endedAt)).toEqual([expect.any(Date)]);
@@ -122,7 +126,9 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     await place(done!.id, bay);
     await place(declined!.id, bay);
     await clockOn(done!.id);
-    await as(jo.accessToken).post(`/api/job-lines/${done!.id}/done`, { next: 'check' }).expect(200);
+    await as(jo.accessToken)
+      .post(`/api/job-lines/${done!.id}/done`, { next: 'check', ...words })
+      .expect(200);
     expect((await tile(bay)).state).toBe('staged');
     await as(advisor)
       .post(`/api/job-lines/${declined!.id}/cancel`, { reason: 'Customer declined at the counter' })
@@ -180,7 +186,9 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     const bay = await newBay();
     await place(line!.id, bay);
     await clockOn(line!.id);
-    await as(jo.accessToken).post(`/api/job-lines/${line!.id}/done`, { next: 'check' }).expect(200);
+    await as(jo.accessToken)
+      .post(`/api/job-lines/${line!.id}/done`, { next: 'check', ...words })
+      .expect(200);
     expect((await tile(bay)).state).toBe('check');
 
     const { body } = await as(foreman).patch(`/api/job-lines/${line!.id}`, { status: 'queued' }).expect(200);
@@ -198,7 +206,9 @@ describe(`${JobLinesService.name}: the steps that go with a line's change`, () =
     const [line] = ro.lines;
     await place(line!.id, await newBay());
     await clockOn(line!.id);
-    await as(jo.accessToken).post(`/api/job-lines/${line!.id}/done`, { next: 'ready' }).expect(200);
+    await as(jo.accessToken)
+      .post(`/api/job-lines/${line!.id}/done`, { next: 'ready', ...words })
+      .expect(200);
     await as(advisor).post(`/api/repair-orders/${ro.id}/close`).expect(200);
 
     const reopened = await as(foreman).patch(`/api/job-lines/${line!.id}`, { status: 'queued' }).expect(409);

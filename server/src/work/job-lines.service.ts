@@ -5,6 +5,7 @@ import {
   inSentence,
   JOB_LINE_STATUS_WORDS,
   isOpenLine,
+  kioskDoneSchema,
   lineWords,
   type CancelJobLineBody,
   type EditJobLineBody,
@@ -178,12 +179,19 @@ export class JobLinesService {
   }
 
   @Transactional()
-  finish(
-    id: number,
-    { next, cause, correction }: FinishLineBody,
-    actor: Principal,
-    now = new Date(),
-  ): JobLineDto {
+  finish(id: number, body: FinishLineBody, actor: Principal, now = new Date()): JobLineDto {
+    // The cause and correction are the RO's warranty record: a technician's Done needs them whatever
+    // sent it, not only the kiosk's form. The foreman may close a line without words.
+    if (actor.role === 'technician') {
+      const words = kioskDoneSchema.safeParse(body);
+      if (!words.success)
+        throw new BadRequestException({
+          statusCode: 400,
+          message: words.error.issues.map((issue) => issue.message).join('; '),
+          issues: words.error.issues.map(({ path, message }) => ({ path: path.map(String), message })),
+        });
+    }
+    const { next, cause, correction } = body;
     const line = this.findForActor(id, actor, now);
     if (line.status === 'done') return toJobLineDto(line);
     if (line.status === 'cancelled') throw new ConflictException('That line was cancelled');

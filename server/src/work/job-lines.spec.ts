@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BoardSnapshot, MyDay, SignInAnswer } from '@baytime/shared';
 import { DEMO_CONCERNS } from '../demo/demo-shop.js';
+import { tableDigests } from '../test-support/table-digests.js';
 import { DEMO, nextEvent, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { JobLinesService } from './job-lines.service.js';
 
@@ -17,6 +18,7 @@ describe(JobLinesService.name, () => {
   const board = async () => (await as(foreman).get('/api/board').expect(200)).body as BoardSnapshot;
   const day = async (tech: SignInAnswer) =>
     (await as(tech.accessToken).get('/api/me/day').expect(200)).body as MyDay;
+  const words = { cause: 'Worn and out of spec', correction: 'Replaced and road tested' };
 
   beforeAll(async () => {
     sut = await startTestApp();
@@ -40,7 +42,9 @@ describe(JobLinesService.name, () => {
   it('marks a line done: the bay goes to check, or ready when asked', async () => {
     const luis = await sut.badge('1042');
     const line = (await day(luis)).lines.find((l) => l.clockedOn)!;
-    await as(luis.accessToken).post(`/api/job-lines/${line.id}/done`, { next: 'ready' }).expect(200);
+    await as(luis.accessToken)
+      .post(`/api/job-lines/${line.id}/done`, { next: 'ready', ...words })
+      .expect(200);
     const bay = (await board()).bays.find((b) => b.name === line.bayName)!;
     expect(bay.state).toBe('ready');
     expect((await day(luis)).lines.map((l) => l.id)).not.toContain(line.id);
@@ -72,7 +76,7 @@ describe(JobLinesService.name, () => {
     const notSams = (await board()).bays.find(
       (b) => b.jobLine && !b.technicians.some((t) => t.id === sam.user.id),
     )!.jobLine!;
-    await as(sam.accessToken).post(`/api/job-lines/${notSams.id}/done`).expect(403);
+    await as(sam.accessToken).post(`/api/job-lines/${notSams.id}/done`, words).expect(403);
   });
 
   it('assigns a queued line to a tech and bay: the bay is staged and the kiosk hears it at once', async () => {
@@ -111,5 +115,33 @@ describe(JobLinesService.name, () => {
     expect((await day(priya)).openJobLineIds).toEqual([]);
     const card = (await as(foreman).get(`/api/timecards?technicianId=${priya.user.id}`).expect(200)).body;
     expect(card.punches.at(-1)).toMatchObject({ kind: 'job-off', reason: 'Line reassigned by the foreman' });
+  });
+
+  it("refuses a technician's Done without the cause and correction, as the kiosk does; the foreman needs none", async () => {
+    const jo = await sut.badge('1045');
+    const [mine, foremans] = (await board()).queue;
+    await as(foreman).patch(`/api/job-lines/${mine!.jobLineId}`, { technicianId: jo.user.id }).expect(200);
+    const done = (token: string, id: number, body: object) =>
+      as(token).post(`/api/job-lines/${id}/done`, body);
+
+    const before = tableDigests(sut.app);
+    for (const body of [{ next: 'check' }, { next: 'check', cause: '  ', correction: 'ok' }]) {
+      const refused = await done(jo.accessToken, mine!.jobLineId, body).expect(400);
+      expect(refused.body).toEqual({
+        statusCode: 400,
+        message: 'Say what you found; Say what you did',
+        issues: [
+          { path: ['cause'], message: 'Say what you found' },
+          { path: ['correction'], message: 'Say what you did' },
+        ],
+      });
+    }
+    expect(tableDigests(sut.app)).toEqual(before);
+    expect((await day(jo)).lines.find((l) => l.id === mine!.jobLineId)).toMatchObject({ status: 'queued' });
+
+    const finished = await done(jo.accessToken, mine!.jobLineId, { next: 'check', ...words }).expect(200);
+    expect(finished.body).toMatchObject({ status: 'done', completedBy: jo.user.id, ...words });
+    const byForeman = await done(foreman, foremans!.jobLineId, { next: 'check' }).expect(200);
+    expect(byForeman.body).toMatchObject({ status: 'done', cause: null, correction: null });
   });
 });
