@@ -1,4 +1,4 @@
-import { CONCERN_MAX_LENGTH } from '@baytime/shared';
+import { CONCERN_MAX_LENGTH, cutAtWord } from '@baytime/shared';
 
 const TITLE_MAX = 120;
 
@@ -15,12 +15,4 @@ export function titleFromNote(note: string): string {
 /** The concern of a line a finding added: what the technician found, cut at a word to fit a concern. */
 export function concernFromNote(note: string): string {
   return cutAtWord(note.trim(), CONCERN_MAX_LENGTH);
-}
-
-/** Text of at most `max` characters: cut at a word past its middle where it can be, marked with "…". */
-function cutAtWord(text: string, max: number): string {
-  if (text.length <= max) return text;
-  const cut = text.slice(0, max - 1);
-  const space = cut.search(/\s\S*$/);
-  return `${(space > max / 2 ? cut.slice(0, space) : cut).trimEnd()}…`;
 }

@@ -348,6 +348,8 @@ describe(FindingsService.name, () => {
     );
     const long = concernFromNote('Oil seeps '.repeat(150));
     expect(long.length).toBeLessThanOrEqual(CONCERN_MAX_LENGTH);
-    expect(long.endsWith('seeps Oil…')).toBe(true);
+    // By hand: the first 1,000 characters are a hundred whole "Oil seeps ", so the cut keeps the last
+    // "seeps" whole (999 characters) and the ellipsis makes 1,000.
+    expect(long).toBe(`${'Oil seeps '.repeat(100).trimEnd()}…`);
   });
 });

@@ -5,3 +5,4 @@ export * from './finding-words.js';
 export * from './connection-words.js';
 export * from './office-words.js';
 export * from './notice-words.js';
+export * from './cut-at-word.js';

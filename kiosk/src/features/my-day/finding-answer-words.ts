@@ -1,4 +1,4 @@
-import type { MyJobLine } from '@baytime/shared';
+import { oneLine, type MyJobLine } from '@baytime/shared';
 
 export type FindingAnswer = 'approved' | 'declined';
 
@@ -17,15 +17,7 @@ export function linesAnswered(before: readonly MyJobLine[], after: readonly MyJo
 export const NOTICE_NOTE_MAX = 60;
 
 /** A finding's note on one line, cut at a word with an ellipsis when it is longer than `max`. */
-export function shortNote(note: string, max = NOTICE_NOTE_MAX): string {
-  const flat = note.replace(/\s+/gu, ' ').trim();
-  if (flat.length <= max) return flat;
-  // One character more than fits shows whether the cut falls at the end of a word.
-  const lastSpace = flat.slice(0, max).lastIndexOf(' ');
-  // A long word is cut where it stands rather than leave a stub of two words.
-  const cut = lastSpace >= max / 2 ? flat.slice(0, lastSpace) : flat.slice(0, max - 1);
-  return `${cut.replace(/[\s,.;:–-]+$/u, '')}…`;
-}
+export const shortNote = (note: string, max = NOTICE_NOTE_MAX) => oneLine(note, max);
 
 /**
  * The notice on My day, from the answer the tablet heard for the line (null: it heard none, e.g.
