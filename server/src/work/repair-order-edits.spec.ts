@@ -196,7 +196,13 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
       .patch(`/api/job-lines/${line!.id}`, { technicianId: tech.user.id, bayId: bay.id })
       .expect(200);
     await as(advisor).post(`/api/repair-orders/${written.id}/close`).expect(409);
-    await as(tech.accessToken).post(`/api/job-lines/${line!.id}/done`, { next: 'ready' }).expect(200);
+    await as(tech.accessToken)
+      .post(`/api/job-lines/${line!.id}/done`, {
+        next: 'ready',
+        cause: 'Pads worn to the wear bar',
+        correction: 'Fitted new pads',
+      })
+      .expect(200);
     expect((await ro(written.id)).status).toBe('done');
     const listed = (await as(advisor).get('/api/repair-orders?status=done&q=Penhallow').expect(200)).body;
     expect(listed.items.map((r: RepairOrderSummary) => r.id)).toContain(written.id);
@@ -230,7 +236,11 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
       .expect(200);
     // Done and waiting for the final check: the bay holds the RO with no open line.
     await as(tech.accessToken)
-      .post(`/api/job-lines/${inCheck.lines[0]!.id}/done`, { next: 'check' })
+      .post(`/api/job-lines/${inCheck.lines[0]!.id}/done`, {
+        next: 'check',
+        cause: 'Horn relay stuck open',
+        correction: 'Replaced the horn relay',
+      })
       .expect(200);
     const published: number[] = [];
     board.on('bay.updated', ({ bay }) => published.push(bay.id));
@@ -316,20 +326,34 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
     await as(advisor).patch(`/api/repair-orders/${written.id}`, { promisedAt: later }).expect(200);
     await as(advisor).patch(`/api/repair-orders/${written.id}`, { promisedAt: null }).expect(200);
     await as(advisor)
+      .patch(`/api/repair-orders/${written.id}`, {
+        concern: 'Grinding and a pull to the left under hard braking,\nworse downhill with a trailer on',
+      })
+      .expect(200);
+    await as(advisor).patch(`/api/job-lines/${line!.id}/details`, { bookHours: 1.8 }).expect(200);
+    await as(advisor)
       .patch(`/api/job-lines/${line!.id}/details`, {
         title: 'Replace front brake pads',
         bookHours: 2,
         concern: 'Grinding from the front',
       })
       .expect(200);
+    await as(advisor).patch(`/api/job-lines/${line!.id}/details`, { bookHours: 2.2 }).expect(200);
     const texts = (await history(written.id)).map((entry) => entry.text);
     expect(texts).toEqual([
       'Repair order written',
-      'Details changed: phone (608) 555-0142 → (608) 555-0199; model Kestrel → Kestrel GT; odometer 50,000 → 50,600; concern',
+      'Details changed: phone (608) 555-0142 → (608) 555-0199; model Kestrel → Kestrel GT; odometer 50,000 → 50,600; ' +
+        'concern “Grinding when braking” → “Grinding and a pull to the left”',
       `Details changed: promise ${shopTime(written.promisedAt!)} → ${shopTime(later)}`,
       `Details changed: promise ${shopTime(later)} → none`,
+      // A long concern on one line, cut at a word.
+      'Details changed: concern “Grinding and a pull to the left” → ' +
+        '“Grinding and a pull to the left under hard braking, worse…”',
+      // The line as it was called when the entry was made, not by today's title.
+      'Line 1 “Replace brake pads” changed: book time 1.5\u00a0h → 1.8\u00a0h',
       'Line 1 “Replace front brake pads” changed: title “Replace brake pads” → “Replace front brake pads”; ' +
-        'book time 1.5\u00a0h → 2.0\u00a0h; concern',
+        'book time 1.8\u00a0h → 2.0\u00a0h; concern “Grinding when braking” → “Grinding from the front”',
+      'Line 1 “Replace front brake pads” changed: book time 2.0\u00a0h → 2.2\u00a0h',
     ]);
   });
 

@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray, or } from 'drizzle-orm';
 import {
   BAY_STATE_WORDS,
+  oneLine,
   lineWithTitleWords,
   atStart,
   formatBookHours,
@@ -38,10 +39,13 @@ const text = (value: unknown): string | null => (typeof value === 'string' ? val
 const hours = (value: unknown) => formatBookHours(Number(value));
 const count = new Intl.NumberFormat('en-US');
 
-/**
- * The fields an edit changes, as a person names them, with how a value reads; a long text (the
- * concern and the other Cs) by its name alone.
- */
+/** Past this a long text no longer fits one line of the history beside what it became. */
+const LONG_TEXT_SHOWN = 60;
+
+/** A long text on one line, cut at a word with "…" past 60 characters: “Rattle over bumps and a…”. */
+const shortQuote = (value: unknown) => `“${oneLine(String(value), LONG_TEXT_SHOWN)}”`;
+
+/** The fields an edit changes, as a person names them, with how a value reads. */
 const FIELDS: Readonly<Record<string, { name: string; value?: (value: unknown, names: Names) => string }>> = {
   customerName: { name: 'customer name', value: String },
   customerPhone: { name: 'phone', value: (value) => formatPhone(String(value)) },
@@ -51,16 +55,16 @@ const FIELDS: Readonly<Record<string, { name: string; value?: (value: unknown, n
   vehicleModel: { name: 'model', value: String },
   vehiclePlate: { name: 'plate', value: String },
   odometer: { name: 'odometer', value: (value) => count.format(Number(value)) },
-  concern: { name: 'concern' },
+  concern: { name: 'concern', value: shortQuote },
   promisedAt: { name: 'promise', value: (value, names) => names.when(value) },
   title: { name: 'title', value: (value) => `“${String(value)}”` },
   bookHours: { name: 'book time', value: hours },
   skillLevel: { name: 'skill', value: String },
-  cause: { name: 'cause' },
-  correction: { name: 'correction' },
+  cause: { name: 'cause', value: shortQuote },
+  correction: { name: 'correction', value: shortQuote },
 };
 
-/** An edit's changes: "plate none → KX 2210; odometer 32,500 → 33,100; concern". */
+/** An edit's changes: "plate none → KX 2210; odometer 32,500 → 33,100; concern “Rattle” → “Clunk”". */
 function changesWords(changes: unknown, names: Names): string {
   return Object.entries((changes ?? {}) as Record<string, { from: unknown; to: unknown }>)
     .map(([key, { from, to }]) => {
@@ -236,12 +240,15 @@ export function repairOrderHistory(db: Db, repairOrderId: number): RepairOrderHi
       .all()
       .map((b) => [b.id, b.name]),
   );
-  const lineNames = new Map(
-    lines.map((line) => [String(line.id), lineWithTitleWords(line.lineNo, line.title)]),
-  );
-  const findingLines = new Map(
-    found.map((f) => [String(f.id), lineNames.get(String(f.jobLineId)) ?? 'a line']),
-  );
+  // Each entry names a line by the title it had then: walking newest-first from today's titles, a
+  // title edit hands the entries before it the title it replaced.
+  const titles = new Map(lines.map((line) => [String(line.id), line.title]));
+  const lineNos = new Map(lines.map((line) => [String(line.id), line.lineNo]));
+  const lineName = (lineId: string) => {
+    const title = titles.get(lineId);
+    return title === undefined ? null : lineWithTitleWords(lineNos.get(lineId)!, title);
+  };
+  const findingLines = new Map(found.map((f) => [String(f.id), String(f.jobLineId)]));
   const shop = db
     .select({ timeZone: shopSettings.timeZone, clockFormat: shopSettings.clockFormat })
     .from(shopSettings)
@@ -249,14 +256,23 @@ export function repairOrderHistory(db: Db, repairOrderId: number): RepairOrderHi
   const names: Names = {
     person: (id) => people.get(Number(id)) ?? 'someone',
     bay: (id) => bayNames.get(Number(id)) ?? 'a bay',
-    line: (id) => lineNames.get(String(id)) ?? 'A line',
-    findingLine: (id) => findingLines.get(String(id)) ?? 'a line',
+    line: (id) => lineName(String(id)) ?? 'A line',
+    findingLine: (id) => lineName(findingLines.get(String(id)) ?? '') ?? 'a line',
     when: (instant) => formatDayClockTime(String(instant), shop.timeZone, shop.clockFormat),
   };
-  return rows.flatMap(({ entry, actorName }) => {
+  const history: RepairOrderHistoryEntry[] = [];
+  for (const { entry, actorName } of rows.toReversed()) {
     const words = describe(entry, names);
-    return words
-      ? [{ at: entry.at.toISOString(), actorName, action: `${entry.entity}.${entry.action}`, text: words }]
-      : [];
-  });
+    if (words)
+      history.push({
+        at: entry.at.toISOString(),
+        actorName,
+        action: `${entry.entity}.${entry.action}`,
+        text: words,
+      });
+    const retitled = (entry.detail?.changes as { title?: { from: unknown } } | undefined)?.title;
+    if (entry.entity === 'job-line' && entry.action === 'edit' && typeof retitled?.from === 'string')
+      titles.set(entry.entityId, retitled.from);
+  }
+  return history.reverse();
 }

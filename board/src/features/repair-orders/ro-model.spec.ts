@@ -6,6 +6,7 @@ import {
   advisorChoices,
   bookTotal,
   changedFields,
+  keepEditsOnReload,
   readFields,
   linesDone,
   filtersFromParams,
@@ -248,6 +249,56 @@ describe('changedFields', () => {
     const line = { title: 'Rotate tyres', bookHours: 0.3, cause: null };
     expect(changedFields(line, { ...line, title: 'Rotate and balance tyres' })).toEqual({
       title: 'Rotate and balance tyres',
+    });
+  });
+});
+
+describe(keepEditsOnReload.name, () => {
+  const opened = {
+    customer: { name: 'Odile Farrant', phone: '(608) 555-0177', email: '' },
+    vehicle: { plate: 'KTW 4410', odometer: 52_100 },
+    concern: 'Squeal when cold',
+  };
+
+  it('puts back what the advisor typed where the other person left the field alone', () => {
+    const edited = {
+      ...opened,
+      customer: { ...opened.customer, email: 'odile@example.test' },
+      vehicle: { plate: 'KTW 4411', odometer: 52_100 },
+      concern: 'Squeal when cold, louder on the left',
+    };
+    // Someone else changed the phone and the concern meanwhile.
+    const fresh = { ...opened, customer: { ...opened.customer, phone: '(608) 555-0190' }, concern: 'Squeal' };
+    expect(keepEditsOnReload(opened, edited, fresh)).toEqual({
+      values: {
+        customer: { name: 'Odile Farrant', phone: '(608) 555-0190', email: 'odile@example.test' },
+        vehicle: { plate: 'KTW 4411', odometer: 52_100 },
+        concern: 'Squeal',
+      },
+      kept: ['customer.email', 'vehicle.plate'],
+      replaced: [{ path: 'concern', yours: 'Squeal when cold, louder on the left' }],
+    });
+  });
+
+  it('counts no conflict where both made the same change, and keeps a number or a cleared field', () => {
+    const edited = { ...opened, vehicle: { plate: '', odometer: 52_300 }, concern: 'Squeal' };
+    const fresh = { ...opened, concern: 'Squeal' };
+    expect(keepEditsOnReload(opened, edited, fresh)).toEqual({
+      values: { ...opened, vehicle: { plate: '', odometer: 52_300 }, concern: 'Squeal' },
+      kept: ['vehicle.plate', 'vehicle.odometer'],
+      replaced: [],
+    });
+    expect(keepEditsOnReload(opened, opened, fresh)).toEqual({ values: fresh, kept: [], replaced: [] });
+  });
+
+  it('takes a line: their title wins, the advisor’s book hours stay', () => {
+    const line = { title: 'Rotate tyres', bookHours: 0.3, cause: '' };
+    const edited = { title: 'Rotate and balance tyres', bookHours: 0.6, cause: '' };
+    const fresh = { title: 'Rotate tyres, check pressures', bookHours: 0.3, cause: 'Uneven wear' };
+    expect(keepEditsOnReload(line, edited, fresh)).toEqual({
+      values: { title: 'Rotate tyres, check pressures', bookHours: 0.6, cause: 'Uneven wear' },
+      kept: ['bookHours'],
+      replaced: [{ path: 'title', yours: 'Rotate and balance tyres' }],
     });
   });
 });

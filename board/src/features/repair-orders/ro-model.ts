@@ -194,6 +194,48 @@ export function readFields(opened: Plain, changed: Plain): Plain {
   );
 }
 
+/** A field both the advisor and someone else changed: theirs is in the form now, the advisor's words here. */
+export interface ReplacedEdit {
+  path: string;
+  yours: unknown;
+}
+
+/**
+ * The form after reloading an edit refused as stale: what someone else saved, with the advisor's own
+ * changes put back wherever the other person left that field as the dialog first read it. Where both
+ * changed a field, theirs wins (it is what the server now holds) and the advisor's value comes back in
+ * `replaced`, so nothing typed is lost unseen.
+ */
+export function keepEditsOnReload<T extends Plain>(
+  opened: Plain,
+  edited: Plain,
+  fresh: T,
+  prefix = '',
+): { values: T; kept: string[]; replaced: ReplacedEdit[] } {
+  const values: Plain = {};
+  const kept: string[] = [];
+  const replaced: ReplacedEdit[] = [];
+  for (const [key, theirs] of Object.entries(fresh)) {
+    const path = prefix + key;
+    const before = opened[key];
+    const yours = edited[key];
+    if (isPlain(theirs) && isPlain(before) && isPlain(yours)) {
+      const inner = keepEditsOnReload(before, yours, theirs, `${path}.`);
+      values[key] = inner.values;
+      kept.push(...inner.kept);
+      replaced.push(...inner.replaced);
+    } else if (yours === undefined || same(yours, before) || same(yours, theirs)) values[key] = theirs;
+    else if (same(theirs, before)) {
+      values[key] = yours;
+      kept.push(path);
+    } else {
+      values[key] = theirs;
+      replaced.push({ path, yours });
+    }
+  }
+  return { values: values as T, kept, replaced };
+}
+
 type CountedLine = Pick<JobLineDto, 'status' | 'bookHours'>;
 
 /** A cancelled line stays on the RO for its record but is never flagged, so it is no part of the book. */

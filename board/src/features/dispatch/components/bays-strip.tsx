@@ -27,7 +27,10 @@ const useStyles = makeStyles({
     outlineOffset: '1px',
   },
   name: { fontWeight: tokens.fontWeightBold, whiteSpace: 'nowrap' },
-  /** Free bays share one state chip: a big shop's idle bays would otherwise fill rows of the page. */
+  /**
+   * Free bays share one state chip, after their names as on every other chip: a big shop's idle bays
+   * would otherwise fill rows of the page.
+   */
   free: {
     padding: `2px ${tokens.spacingHorizontalXS}`,
     borderRadius: tokens.borderRadiusMedium,
@@ -165,10 +168,10 @@ export function BaysStrip({ board, canEdit, dragging, releasingId, onRelease }: 
           role="group"
           aria-label={`Free bays: ${free.length}`}
         >
-          <StateChip state="free" />
           {free.map((bay) => (
             <BayDropTarget key={bay.id} bay={bay} canEdit={canEdit} dragging={dragging} />
           ))}
+          <StateChip state="free" />
         </div>
       )}
     </section>

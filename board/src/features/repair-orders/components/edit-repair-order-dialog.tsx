@@ -22,7 +22,7 @@ import { FormDialog } from '@/components/form-dialog';
 import { showServerErrors, useSchemaForm } from '@/lib/form';
 import { isStaleEdit, useEditRepairOrder, useReloadRepairOrder } from '../api/repair-order-changes';
 import type { RepairOrderSummary } from '../api/get-repair-orders';
-import { changedFields, readFields } from '../ro-model';
+import { changedFields, keepEditsOnReload, readFields, type ReplacedEdit } from '../ro-model';
 
 const useStyles = makeStyles({
   pair: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
@@ -68,7 +68,7 @@ function fieldsOf(ro: RepairOrderSummary) {
 
 /**
  * The server's words on an edit refused because someone else saved first, with the way on: read it
- * again, which puts their change in the fields.
+ * again, which puts their change in the fields and the advisor's own changes back around it.
  */
 export function StaleEditBar({
   message,
@@ -80,8 +80,11 @@ export function StaleEditBar({
   onReload: () => void;
 }) {
   return (
-    <MessageBar intent="warning">
-      <MessageBarBody>{message}</MessageBarBody>
+    <MessageBar intent="warning" layout="multiline">
+      <MessageBarBody>
+        <div>{message}</div>
+        <div>Reload shows their change and puts back what you typed wherever it did not conflict.</div>
+      </MessageBarBody>
       <MessageBarActions>
         <Button size="small" disabled={reloading} onClick={onReload}>
           {reloading ? 'Reloading…' : 'Reload'}
@@ -90,6 +93,54 @@ export function StaleEditBar({
     </MessageBar>
   );
 }
+
+/** A field the reload gave the other person's value, with what the advisor had typed there. */
+export interface ReplacedWords {
+  label: string;
+  yours: string;
+}
+
+/** After a reload: the advisor's changes are back but not saved, and the words theirs displaced. */
+export function ReloadedBar({ keptAny, replaced }: { keptAny: boolean; replaced: readonly ReplacedWords[] }) {
+  return (
+    <MessageBar intent="info" layout="multiline">
+      <MessageBarBody>
+        {keptAny
+          ? 'Their change is in the form and your other changes are back: save to keep them.'
+          : 'Their change is in the form.'}
+        {replaced.map(({ label, yours }) => (
+          <div key={label}>
+            {label} now shows their change; you had typed {yours}.
+          </div>
+        ))}
+      </MessageBarBody>
+    </MessageBar>
+  );
+}
+
+/** What the advisor had typed, as a sentence quotes it. */
+export const typedWords = (value: unknown): string =>
+  value === null || value === undefined || String(value).trim() === '' ? 'nothing' : `“${String(value)}”`;
+
+/** The replaced fields named by their labels; a field without a label by its path. */
+export const replacedWords = (
+  replaced: readonly ReplacedEdit[],
+  labels: Readonly<Record<string, string>>,
+  words: (edit: ReplacedEdit) => string = ({ yours }) => typedWords(yours),
+): ReplacedWords[] => replaced.map((edit) => ({ label: labels[edit.path] ?? edit.path, yours: words(edit) }));
+
+const FIELD_LABELS: Readonly<Record<string, string>> = {
+  'customer.name': 'Customer',
+  'customer.phone': 'Phone',
+  'customer.email': 'E-mail',
+  'vehicle.year': 'Year',
+  'vehicle.make': 'Make',
+  'vehicle.model': 'Model',
+  'vehicle.plate': 'Plate',
+  'vehicle.odometer': 'Odometer',
+  concern: 'Concern',
+  promise: 'The promise',
+};
 
 /** The promise to send: undefined when untouched, null when cleared, or why it cannot be sent. */
 function promiseToSend(
@@ -135,21 +186,44 @@ export function EditRepairOrderDialog({
   const [odometerReason, setOdometerReason] = useState('');
   const [stale, setStale] = useState<string | null>(null);
   const [reloading, setReloading] = useState(false);
+  const [reloaded, setReloaded] = useState<{ keptAny: boolean; replaced: ReplacedWords[] } | null>(null);
   const { errors } = form.formState;
 
   const readAgain = () => {
+    const edited = form.getValues();
+    // Date and time make one promise: kept or replaced together, never mixed with theirs.
+    const asOne = (p: PromiseText | null) => (p ? [p.date, p.time] : null);
     setReloading(true);
     reload()
       .then((fresh) => {
+        const freshPromise = promiseOf(fresh);
+        const merged = keepEditsOnReload(
+          { ...opened, promise: asOne(openedPromise) },
+          { ...edited, promise: asOne(promise) },
+          { ...fieldsOf(fresh), promise: asOne(freshPromise) },
+        );
+        const { promise: keptPromise, ...fields } = merged.values;
         setRead(fresh);
         setOpened(fieldsOf(fresh));
-        form.reset(fieldsOf(fresh));
-        setOpenedPromise(promiseOf(fresh));
-        setPromise(promiseOf(fresh));
+        form.reset(fields);
+        setOpenedPromise(freshPromise);
+        setPromise(keptPromise ? { date: keptPromise[0]!, time: keptPromise[1]! } : freshPromise);
         setPromiseError(null);
-        setOdometerRefused(false);
-        setOdometerReason('');
+        if (!merged.kept.includes('vehicle.odometer')) {
+          setOdometerRefused(false);
+          setOdometerReason('');
+        }
         setStale(null);
+        setReloaded({
+          keptAny: merged.kept.length > 0,
+          replaced: replacedWords(merged.replaced, FIELD_LABELS, ({ path, yours }) =>
+            path === 'promise'
+              ? Array.isArray(yours) && yours.join('')
+                ? `“${yours.join(' ')}”`
+                : 'no promise'
+              : typedWords(yours),
+          ),
+        });
       })
       .catch((error: unknown) => showServerErrors(form, error))
       .finally(() => setReloading(false));
@@ -178,7 +252,10 @@ export function EditRepairOrderDialog({
         edit.mutate(odometerRefused ? { ...sent, odometerOverrideReason: odometerReason } : sent, {
           onSuccess: onClose,
           onError: (error) => {
-            if (isStaleEdit(error)) return setStale(error.message);
+            if (isStaleEdit(error)) {
+              setReloaded(null);
+              return setStale(error.message);
+            }
             showServerErrors(form, error);
             if (error instanceof ApiError && error.fieldErrors['vehicle.odometer']) setOdometerRefused(true);
           },
@@ -261,6 +338,7 @@ export function EditRepairOrderDialog({
         </div>
       )}
       {stale && <StaleEditBar message={stale} reloading={reloading} onReload={readAgain} />}
+      {reloaded && <ReloadedBar {...reloaded} />}
     </FormDialog>
   );
 }

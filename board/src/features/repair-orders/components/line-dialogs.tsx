@@ -21,8 +21,8 @@ import {
   useReloadRepairOrder,
   useReopenJobLine,
 } from '../api/repair-order-changes';
-import { changedFields, readFields } from '../ro-model';
-import { StaleEditBar } from './edit-repair-order-dialog';
+import { changedFields, keepEditsOnReload, readFields } from '../ro-model';
+import { ReloadedBar, StaleEditBar, replacedWords, type ReplacedWords } from './edit-repair-order-dialog';
 
 /** Typed hours as a number when they read as one; the schema says what is wrong otherwise. */
 const asHours = (value: unknown) => (typeof value === 'string' ? (parseDecimal(value) ?? value) : value);
@@ -41,6 +41,14 @@ const lineFieldsOf = (line: JobLineDto) => ({
   correction: line.correction ?? '',
 });
 
+const LINE_FIELD_LABELS: Readonly<Record<string, string>> = {
+  title: 'Job',
+  bookHours: 'Book hours',
+  concern: 'Concern',
+  cause: 'Cause',
+  correction: 'Correction',
+};
+
 /** The advisor corrects a line: title, book hours and the three Cs. */
 export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps & { line: JobLineDto }) {
   const edit = useEditJobLine(repairOrderId);
@@ -50,19 +58,26 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
   const form = useSchemaForm(editJobLineSchema, { defaultValues: opened });
   const [stale, setStale] = useState<string | null>(null);
   const [reloading, setReloading] = useState(false);
+  const [reloaded, setReloaded] = useState<{ keptAny: boolean; replaced: ReplacedWords[] } | null>(null);
   const { errors } = form.formState;
 
   const readAgain = () => {
+    const edited = form.getValues();
     setReloading(true);
     reload()
       .then((ro) => {
         const fresh = ro.lines.find((l) => l.id === line.id);
         // Removed meanwhile: the page shows it gone.
         if (!fresh) return onClose();
+        const merged = keepEditsOnReload(opened, edited, lineFieldsOf(fresh));
         setLineNo(fresh.lineNo);
         setOpened(lineFieldsOf(fresh));
-        form.reset(lineFieldsOf(fresh));
+        form.reset(merged.values);
         setStale(null);
+        setReloaded({
+          keptAny: merged.kept.length > 0,
+          replaced: replacedWords(merged.replaced, LINE_FIELD_LABELS),
+        });
       })
       .catch((error: unknown) => showServerErrors(form, error))
       .finally(() => setReloading(false));
@@ -83,8 +98,11 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
           { lineId: line.id, body: { ...body, was: readFields(openedFields, body) } },
           {
             onSuccess: onClose,
-            onError: (error) =>
-              isStaleEdit(error) ? setStale(error.message) : showServerErrors(form, error),
+            onError: (error) => {
+              if (!isStaleEdit(error)) return showServerErrors(form, error);
+              setReloaded(null);
+              setStale(error.message);
+            },
           },
         );
       })}
@@ -105,6 +123,7 @@ export function EditLineDialog({ repairOrderId, line, onClose }: LineDialogProps
         <Textarea rows={2} {...form.register('correction')} />
       </Field>
       {stale && <StaleEditBar message={stale} reloading={reloading} onReload={readAgain} />}
+      {reloaded && <ReloadedBar {...reloaded} />}
     </FormDialog>
   );
 }
