@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, inArray, lt, or } from 'drizzle-orm';
+import { and, eq, gte, inArray, lt, or } from 'drizzle-orm';
 import {
   addIsoWeeks,
   additionalOvertimeCents,
@@ -35,11 +35,11 @@ import { ExceptionsService } from '../payroll/exceptions.service.js';
 import { PayRatesService } from '../payroll/pay-rates.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { openingProgress } from './opening-hours.js';
+import { reportPeople } from './report-people.js';
 import {
   boundsOf,
   daysOf,
   labourSecondsOf,
-  technicianIdsOf,
   WeekFiguresService,
   type TechnicianWeek,
   type WeekFigures,
@@ -159,7 +159,7 @@ export class PaySummaryService {
     const adjustments = withAdjustments
       ? this.adjustments(label, settings, now).filter((a) => counted(a.technicianId))
       : [];
-    const people = this.technicians(current, new Set(adjustments.map((a) => a.technicianId))).filter(
+    const people = reportPeople(this.db, current, new Set(adjustments.map((a) => a.technicianId))).filter(
       (person) => counted(person.id),
     );
     const rates = this.rates.ratesOn(
@@ -488,19 +488,6 @@ export class PaySummaryService {
       firstClosedAt: closed.reopenedAt ? paidAtOf(closed).toISOString() : null,
       closedBy: by ?? null,
     };
-  }
-
-  /** Active technicians on the books by the end of the week, and anyone with figures or adjustments; by name. */
-  private technicians(week: WeekFigures, adjusted: ReadonlySet<number>): Technician[] {
-    const withFigures = new Set([...technicianIdsOf(week), ...adjusted]);
-    return this.db
-      .select({ id: users.id, name: users.name, active: users.active, createdAt: users.createdAt })
-      .from(users)
-      .where(eq(users.role, 'technician'))
-      .orderBy(asc(users.name), asc(users.id))
-      .all()
-      .filter((user) => withFigures.has(user.id) || (user.active && user.createdAt < week.to))
-      .map(({ id, name }) => ({ id, name }));
   }
 }
 

@@ -1,6 +1,7 @@
 import { StreamableFile } from '@nestjs/common';
 import { stringify } from 'csv-stringify/sync';
 import {
+  HOURS_ROUNDING_RULE,
   PAY_TYPE_WORDS,
   type LabourReport,
   type LabourReportRow,
@@ -57,7 +58,7 @@ const LABOUR_COLUMNS: Column<LabourCsvRow>[] = [
   ['Proficiency %', (row) => percent(row.proficiency)],
 ];
 
-/** One row per technician and a last one for the shop; ratios in percent. */
+/** One row per technician, one for the shop, then the rounding rule; ratios in percent. */
 export function labourCsv(report: LabourReport): StreamableFile {
   const rows = [...report.technicians, { ...report.shop, name: 'Shop total' }];
   return csvFile(
@@ -65,6 +66,7 @@ export function labourCsv(report: LabourReport): StreamableFile {
     report.week,
     LABOUR_COLUMNS,
     rows.map((row) => ({ ...row, weekName: report.weekName })),
+    [['Rounding', HOURS_ROUNDING_RULE]],
   );
 }
 

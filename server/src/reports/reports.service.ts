@@ -43,12 +43,13 @@ import type { Principal } from '../auth/principal.js';
 import { keepServing } from '../common/keep-serving.js';
 import { DB, type Db } from '../db/database.js';
 import { lineIsDone } from '../db/line-is-done.js';
-import { bays, heldPunches, jobLines, punches, repairOrders, users } from '../db/schema/index.js';
+import { bays, heldPunches, jobLines, punches, repairOrders } from '../db/schema/index.js';
 import { ClosedWeeksService } from '../payroll/closed-weeks.service.js';
 import { ExceptionsService } from '../payroll/exceptions.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { openWindow } from './opening-hours.js';
 import { PaySummaryService } from './pay-summary.service.js';
+import { reportPeople } from './report-people.js';
 import { labourCsv, payCsv } from './reports.csv.js';
 import {
   daysOf,
@@ -58,7 +59,6 @@ import {
   labourSecondsOf,
   remember,
   shopSecondsOf,
-  technicianIdsOf,
   WeekFiguresService,
   type WeekFigures,
 } from './week-figures.service.js';
@@ -217,7 +217,7 @@ export class ReportsService implements OnApplicationBootstrap, OnApplicationShut
     const labels = trendWeeks(label);
     const current = this.weeks.figures([label], settings, now)[0]!;
     const trend = [...this.weeks.shopSeconds(labels.slice(0, -1), settings, now), shopSecondsOf(current)];
-    const people = this.technicians(current);
+    const people = reportPeople(this.db, current);
     const lineIds = new Set<number>();
     for (const { totals } of current.technicians.values())
       for (const [id, seconds] of Object.entries(totals.jobSeconds)) if (seconds > 0) lineIds.add(Number(id));
@@ -277,19 +277,6 @@ export class ReportsService implements OnApplicationBootstrap, OnApplicationShut
       })),
       bayUtilisation: this.bayUtilisation(label, current, settings, now),
     };
-  }
-
-  /** Active technicians on the books by the end of the week, and anyone with figures in it; by name. */
-  private technicians(week: WeekFigures): { id: number; name: string }[] {
-    const withFigures = new Set(technicianIdsOf(week));
-    return this.db
-      .select()
-      .from(users)
-      .where(eq(users.role, 'technician'))
-      .orderBy(asc(users.name), asc(users.id))
-      .all()
-      .filter((user) => withFigures.has(user.id) || (user.active && user.createdAt < week.to))
-      .map(({ id, name }) => ({ id, name }));
   }
 
   private lineInfo(ids: number[]): Map<number, { title: string; bookHours: number; number: string }> {

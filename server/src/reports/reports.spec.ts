@@ -409,7 +409,8 @@ describe(ReportsService.name, () => {
       .trimEnd()
       .split('\n');
     const report = await labour(`week=${week}`);
-    expect(rows).toHaveLength(1 + report.technicians.length + 1);
+    // A header, the technicians, the shop total, and the rounding rule.
+    expect(rows).toHaveLength(1 + report.technicians.length + 2);
     expect(rows[0]).toBe(
       'Week,Technician,Attendance hours,Clocked hours,Flagged hours,Clocked on finished lines (any week),' +
         'Work in progress hours,Productivity %,Efficiency %,Proficiency %',
@@ -418,9 +419,10 @@ describe(ReportsService.name, () => {
     // 49.1 / 46 = 106.739 %; 49.1 / 50 = 98.2 %.
     expect(rows).toContain(`"${name}",Ada Vexley,50.0000,46.0000,49.1000,46.0000,0.0000,92.00,106.74,98.20`);
     // 86 / 98 = 87.755 %, 96.1 / 86 = 111.744 %, 96.1 / 98 = 98.061 %.
-    expect(rows.at(-1)).toBe(
+    expect(rows.at(-2)).toBe(
       `"${name}",Shop total,98.0000,86.0000,96.1000,86.0000,0.0000,87.76,111.74,98.06`,
     );
+    expect(rows.at(-1)).toMatch(/^Rounding,"Hours are added up in whole seconds/);
 
     const payCsv = await as(owner).get(`/api/reports/pay?week=${week}&format=csv`).expect(200);
     expect(payCsv.headers['content-disposition']).toBe(`attachment; filename="baytime-pay-${week}.csv"`);

@@ -101,7 +101,7 @@ export function getOrAdd<K, V>(map: Map<K, Map<number, V>>, key: K): Map<number,
   return inner;
 }
 
-export function technicianIdsOf(week: WeekFigures): number[] {
+export function technicianIdsOf(week: Pick<WeekFigures, 'technicians' | 'flagged'>): number[] {
   return [...new Set([...week.technicians.keys(), ...week.flagged.keys()])];
 }
 

@@ -80,6 +80,15 @@ export const EFFICIENCY_NOTE =
   'not swing one week to 0 % and the next to 200 %. Work in progress is the time clocked this week on lines ' +
   'not finished yet: it counts in efficiency the week the line is finished.';
 
+/**
+ * How the report's hours are rounded, in words: the labour page and CSV state it beside the shop total, which is
+ * the sum of the technicians' exact whole seconds rounded once (as the pay summary's hour totals are).
+ */
+export const HOURS_ROUNDING_RULE =
+  'Hours are added up in whole seconds and each figure is rounded once, the shop total from the exact sum: it ' +
+  'can differ from adding up the rounded rows, by up to 0.0001 h a row at 4 decimals (CSV) and 0.05 h a row ' +
+  'at 1 decimal (page).';
+
 export const KPI_NAMES_NOTE =
   'Trade sources disagree on these names (some call flagged ÷ attendance hours "productivity"): read the formulas.';
 

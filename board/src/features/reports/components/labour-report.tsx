@@ -16,7 +16,13 @@ import {
   shorthands,
   tokens,
 } from '@fluentui/react-components';
-import type { KpiName, LabourReport, LabourReportRow, LabourReportTechnician } from '@baytime/shared';
+import {
+  HOURS_ROUNDING_RULE,
+  type KpiName,
+  type LabourReport,
+  type LabourReportRow,
+  type LabourReportTechnician,
+} from '@baytime/shared';
 import {
   KPI_LABELS,
   KPI_NAMES,
@@ -277,6 +283,9 @@ export function LabourReportView({ report }: { report: LabourReport }) {
           Open a technician to see their job lines: book against actual time.
         </Caption1>
         <TechnicianTable report={report} />
+        <Caption1 className={styles.dim}>
+          The shop row adds up every technician with hours in the week, to the second. {HOURS_ROUNDING_RULE}
+        </Caption1>
       </ReportSection>
 
       <ReportSection labelledBy="trend-title">
