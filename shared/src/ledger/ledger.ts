@@ -116,7 +116,7 @@ export function refusalAbout(refusal: string, name: string): string {
  * Punches at the same instant (a paper timesheet's "job off 12:00, lunch 12:00") in the order a day runs:
  * the shift opens, a break ends and a job closes before a job opens, a break starts or the shift closes.
  */
-const SAME_INSTANT_ORDER: Record<PunchKind, number> = {
+export const SAME_INSTANT_ORDER: Record<PunchKind, number> = {
   'shift-in': 0,
   'break-end': 1,
   'job-off': 2,

@@ -179,6 +179,19 @@ describe('timecard model', () => {
     expect(stray.notCounted).toBe('You are not clocked on that line');
   });
 
+  it('lists punches at one instant in the order the day runs: a clock-off before the clock-on it made', () => {
+    const at = '2026-12-03T16:23:00Z';
+    const rows = punchRows(
+      card({
+        punches: [
+          punch('on', 'job-on', at, { jobLineId: 98 }),
+          punch('off', 'job-off', at, { jobLineId: 97 }),
+        ],
+      }),
+    );
+    expect(rows.map((row) => row.punch.id)).toEqual(['off', 'on']);
+  });
+
   it('puts punches on the workday they happened in the shop’s time zone', () => {
     const week = cardDays(card());
     expect(week[0]!.active).toBe(false);

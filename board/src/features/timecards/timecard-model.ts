@@ -1,4 +1,10 @@
-import { shopLocalInstant, type Timecard, type TimecardPunch, type TimecardTotals } from '@baytime/shared';
+import {
+  SAME_INSTANT_ORDER,
+  shopLocalInstant,
+  type Timecard,
+  type TimecardPunch,
+  type TimecardTotals,
+} from '@baytime/shared';
 import { clockValue, formatHours } from './timecard-format';
 
 export interface PunchRow {
@@ -95,7 +101,12 @@ export function punchRows(card: Timecard): PunchRow[] {
   // A voiding row only takes the punch it names out of the count: it shows on that punch, not as one.
   return card.punches
     .filter((punch) => !punch.voids)
-    .sort((a, b) => ms(a.at) - ms(b.at) || ms(a.recordedAt) - ms(b.recordedAt))
+    .sort(
+      (a, b) =>
+        ms(a.at) - ms(b.at) ||
+        SAME_INSTANT_ORDER[a.kind] - SAME_INSTANT_ORDER[b.kind] ||
+        ms(a.recordedAt) - ms(b.recordedAt),
+    )
     .map((punch) => ({
       punch,
       replacedBy: punch.supersededBy ? (byId.get(punch.supersededBy) ?? null) : null,
