@@ -255,7 +255,7 @@ export function CorrectionDialog({
                     {formatDayClock(replacing.at, card.timeZone)}
                     {takingOut
                       ? replacing.kind === 'job-on'
-                        ? ', with the clock-offs it recorded for lines it closed, and puts nothing in its place.'
+                        ? ', with any clock-offs it recorded for lines it closed, and puts nothing in its place.'
                         : ' and puts nothing in its place.'
                       : '.'}{' '}
                     The old punch stays on the card, struck through.
