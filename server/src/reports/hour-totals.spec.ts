@@ -12,6 +12,7 @@ import {
   type ShopSettings,
 } from '@baytime/shared';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
+import { weekdaysOf } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
 
@@ -51,10 +52,7 @@ describe(`${ReportsService.name}: hour totals`, () => {
     history = shopHistory(sut, { owner, foreman: await sut.signIn(DEMO.foreman) });
     shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
-    const weekdays = workweekDays(week, shop).filter(
-      (day) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay()),
-    );
-    const [monday, tuesday] = weekdays as [ShopDay, ShopDay];
+    const [monday, tuesday] = weekdaysOf(week, shop) as [ShopDay, ShopDay];
     const at = (day: ShopDay, time: string, ms = 0) =>
       new Date(shopLocalInstant(day.day, time, shop.timeZone).getTime() + ms);
 

@@ -21,6 +21,7 @@ import {
 import { DB, type Db } from '../db/database.js';
 import { auditLog, punches, users } from '../db/schema/index.js';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
+import { weekdaysOf } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ShopService } from '../shop/shop.service.js';
 import { ReportsService } from './reports.service.js';
@@ -55,7 +56,6 @@ describe(ReportsService.name, () => {
     (await as(owner).get(`/api/reports/pay?${query}`).expect(200)).body as PayReport;
   const rowOf = (report: LabourReport, technicianId: number) =>
     report.technicians.find((row) => row.technicianId === technicianId)!;
-  const isWeekday = (day: ShopDay) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay());
 
   beforeAll(async () => {
     sut = await startTestApp();
@@ -65,7 +65,7 @@ describe(ReportsService.name, () => {
     history = shopHistory(sut, { owner, foreman });
     shop = (await as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
-    weekdays = workweekDays(week, shop).filter(isWeekday);
+    weekdays = weekdaysOf(week, shop);
     const [monday, tuesday] = weekdays as [ShopDay, ShopDay];
 
     ids.a = await technician('Ada Vexley', '5001', 10_00, 8_00);
@@ -131,7 +131,7 @@ describe(ReportsService.name, () => {
 
     // Eli, the week before: hourly only, Mon 10, Tue 8, Wed 13, Thu 8, Fri 8 = 47 h, never on a job; a
     // 30-minute meal at 11:00 each day and a second one at 17:00 on the 13-hour Wednesday (Labor Code 512).
-    const before = workweekDays(addIsoWeeks(week, -1), shop).filter(isWeekday);
+    const before = weekdaysOf(addIsoWeeks(week, -1), shop);
     const ends = ['17:30', '15:30', '21:00', '15:30', '15:30'];
     for (const [i, day] of before.entries()) {
       await punch(ids.e, 'shift-in', at(day, '07:00'));
@@ -459,8 +459,8 @@ describe(ReportsService.name, () => {
   it('says in the pay CSV when an adjustment takes a week’s payable amount below the minimum wage', async () => {
     const [W, F] = [addIsoWeeks(week, -9), addIsoWeeks(week, -8)];
     const rue = await technician('Rue Calder', '5014', 22_00, 10_00);
-    const [wMonday] = workweekDays(W, shop).filter(isWeekday) as [ShopDay];
-    const [fMonday] = workweekDays(F, shop).filter(isWeekday) as [ShopDay];
+    const [wMonday] = weekdaysOf(W, shop) as [ShopDay];
+    const [fMonday] = weekdaysOf(F, shop) as [ShopDay];
     const job = line('Replace thermostat housing', 4.0, rue, at(wMonday, '07:30'));
     await punch(rue, 'shift-in', at(wMonday, '08:00'));
     await punch(rue, 'job-on', at(wMonday, '08:00'), job);
@@ -605,8 +605,8 @@ describe(ReportsService.name, () => {
     // A week of its own: Juno and Omar share a line; Omar finishes a line begun the week before; a line
     // assigned to Juno that nobody clocked on counts once signed off.
     const label = addIsoWeeks(week, -10);
-    const [monday] = workweekDays(addIsoWeeks(label, -1), shop).filter(isWeekday) as [ShopDay];
-    const [, tuesday] = workweekDays(label, shop).filter(isWeekday) as [ShopDay, ShopDay];
+    const [monday] = weekdaysOf(addIsoWeeks(label, -1), shop) as [ShopDay];
+    const [, tuesday] = weekdaysOf(label, shop) as [ShopDay, ShopDay];
     const juno = await technician('Juno Pellam', '5081', 20_00, 15_00);
     const omar = await technician('Omar Reith', '5082', 20_00, 15_00);
     const shared = line('Replace clutch kit', 3.0, juno, at(tuesday, '06:30'));
@@ -826,7 +826,7 @@ describe(ReportsService.name, () => {
   // A past week's figures are kept between reports: whatever reaches back into the week shows at once.
   it('counts a past week again after a late punch, a correction, or a line finished or reopened in it', async () => {
     const past = addIsoWeeks(week, -4);
-    const [monday, tuesday] = workweekDays(past, shop).filter(isWeekday) as [ShopDay, ShopDay];
+    const [monday, tuesday] = weekdaysOf(past, shop) as [ShopDay, ShopDay];
     const ivy = await technician('Ivy Quell', '5009', 20_00, 15_00);
     const labourRow = async () => rowOf(await labour(`week=${past}`), ivy);
     const payRow = async () =>
@@ -885,7 +885,7 @@ describe(ReportsService.name, () => {
 
   it('keeps no figures read inside a transaction that was rolled back', async () => {
     const past = addIsoWeeks(week, -5);
-    const [monday] = workweekDays(past, shop).filter(isWeekday) as [ShopDay];
+    const [monday] = weekdaysOf(past, shop) as [ShopDay];
     const jo = await technician('Jo Pell', '5010', 20_00, 15_00);
     await punch(jo, 'shift-in', at(monday, '08:00'));
     await punch(jo, 'shift-out', at(monday, '12:00'));
@@ -916,7 +916,7 @@ describe(ReportsService.name, () => {
   it("counts a first report's trend weeks one turn of the event loop at a time", async () => {
     const label = addIsoWeeks(week, -20);
     const counted = addIsoWeeks(label, -3);
-    const [monday] = workweekDays(counted, shop).filter(isWeekday) as [ShopDay];
+    const [monday] = weekdaysOf(counted, shop) as [ShopDay];
     const kit = await technician('Kit Amberly', '5011', 20_00, 15_00);
     await punch(kit, 'shift-in', at(monday, '08:00'));
     await punch(kit, 'shift-out', at(monday, '12:00'));

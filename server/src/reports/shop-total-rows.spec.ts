@@ -4,7 +4,6 @@ import {
   addIsoWeeks,
   HOURS_ROUNDING_RULE,
   shopLocalInstant,
-  workweekDays,
   workweekOf,
   type LabourReport,
   type LabourReportRow,
@@ -13,6 +12,7 @@ import {
   type ShopSettings,
 } from '@baytime/shared';
 import { shopHistory, type ShopHistory } from '../test-support/shop-history.js';
+import { weekdaysOf } from '../test-support/one-week.js';
 import { DEMO, startTestApp, type TestApp } from '../test-support/test-app.js';
 import { ReportsService } from './reports.service.js';
 
@@ -55,9 +55,7 @@ describe(`${ReportsService.name}: the shop row adds up the rows`, () => {
     history = shopHistory(sut, { owner, foreman: await sut.signIn(DEMO.foreman) });
     shop = (await history.as(owner).get('/api/shop').expect(200)).body as ShopSettings;
     week = addIsoWeeks(workweekOf(new Date(), shop), -3);
-    const [monday, tuesday] = workweekDays(week, shop).filter(
-      (day) => ![0, 6].includes(new Date(`${day.day}T12:00:00Z`).getUTCDay()),
-    ) as [ShopDay, ShopDay];
+    const [monday, tuesday] = weekdaysOf(week, shop) as [ShopDay, ShopDay];
     const at = (day: ShopDay, time: string) => shopLocalInstant(day.day, time, shop.timeZone);
 
     ids.fay = await history.technician('Fay Lindgren', '5301', 20_00, 12_00);
