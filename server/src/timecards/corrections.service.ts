@@ -2,7 +2,9 @@ import { BadRequestException, ConflictException, Inject, Injectable } from '@nes
 import { randomUUID } from 'node:crypto';
 import { and, eq, ne } from 'drizzle-orm';
 import {
+  buildLedger,
   punchImpact,
+  wholeSeconds,
   type CorrectionBody,
   type CorrectionPreview,
   type LedgerPunch,
@@ -25,6 +27,8 @@ import { ShopService } from '../shop/shop.service.js';
 
 /** What a change to the card would write, and what it would do to the counted punches. */
 interface Plan {
+  /** The technician's counted punches around it, as read. */
+  existing: LedgerPunch[];
   /** The rows it writes, the punch asked for last. */
   added: LedgerPunch[];
   impact: PunchImpact;
@@ -55,12 +59,12 @@ export class CorrectionsService {
 
   /** What a correction would do, saving nothing: why it cannot be saved, or the punches it would displace. */
   preview(body: CorrectionBody, now = new Date()): CorrectionPreview {
-    return this.previewOf(this.plan(body, now), body.technicianId);
+    return this.previewOf(this.plan(body, now), body.technicianId, now);
   }
 
   /** What taking a punch out would do, saving nothing. */
   previewVoid(body: VoidPunchBody, now = new Date()): CorrectionPreview {
-    return this.previewOf(this.planVoid(body, now), body.technicianId);
+    return this.previewOf(this.planVoid(body, now), body.technicianId, now);
   }
 
   /**
@@ -136,14 +140,37 @@ export class CorrectionsService {
     return voiding;
   }
 
-  private previewOf({ added, impact }: Plan, technicianId: number): CorrectionPreview {
+  private previewOf({ existing, added, impact }: Plan, technicianId: number, now: Date): CorrectionPreview {
     return {
+      change: this.changeOf(existing, added, impact.displaced, now),
       refusal: impact.refusal && this.ledger.refusalFor(impact.refusal, technicianId, null),
       displaces: this.ledger.describe(impact.displaced),
       // A voiding row is named by the punch it takes out.
       withIt: this.ledger.describe(
         added.slice(0, -1).map((row) => (row.voids ? { ...row, id: row.supersedes! } : row)),
       ),
+    };
+  }
+
+  /** The counted time around the change before and after it, its displaced punches voided with it. */
+  private changeOf(
+    existing: LedgerPunch[],
+    added: LedgerPunch[],
+    displaced: LedgerPunch[],
+    now: Date,
+  ): CorrectionPreview['change'] {
+    const settings = this.shop.ledgerSettings(now);
+    const counted = (punches: LedgerPunch[]) => buildLedger(punches, now, settings).within(new Date(0), now);
+    const voided = displaced.map((punch) => ({
+      ...punch,
+      id: `${punch.id}:void`,
+      supersedes: punch.id,
+      voids: true,
+    }));
+    const [was, will] = [counted(existing), counted([...existing, ...added, ...voided])];
+    return {
+      attendanceSeconds: wholeSeconds(will.attendanceSeconds - was.attendanceSeconds),
+      clockedSeconds: wholeSeconds(will.clockedSeconds - was.clockedSeconds),
     };
   }
 
@@ -249,7 +276,7 @@ export class CorrectionsService {
   }
 
   private impactOf(existing: LedgerPunch[], added: LedgerPunch[], replaced: LedgerPunch[], now: Date): Plan {
-    return { added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)), replaced };
+    return { existing, added, impact: punchImpact(existing, added, this.shop.ledgerSettings(now)), replaced };
   }
 
   /** A counted punch of this technician, in an open week, that no later record replaced yet. */

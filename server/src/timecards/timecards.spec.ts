@@ -260,6 +260,12 @@ describe(TimecardsService.name, () => {
     expect(preview.refusal).toBeNull();
     expect(preview.displaces.map((p) => p.id).sort()).toEqual(displaced.map((p) => p.id).sort());
     expect(preview.withIt).toEqual([expect.objectContaining({ id: recordedWithIt.id, kind: 'job-off' })]);
+    // A stray tap that only moved time between lines changes no total; the shift start taken out would
+    // take the whole 50 min on shift and its 30 min on jobs off the card.
+    expect(preview.change).toEqual({ attendanceSeconds: 0, clockedSeconds: 0 });
+    const shiftIn = punches.find((p) => p.kind === 'shift-in')!;
+    const whole = (await takeOut({ punchId: shiftIn.id }, true).expect(200)).body as CorrectionPreview;
+    expect(whole.change).toEqual({ attendanceSeconds: -50 * 60, clockedSeconds: -30 * 60 });
     await takeOut({}).expect(409);
     await takeOut({ reason: '' }).expect(400);
     const { body: voiding } = await takeOut({ displaces: displaced.map((p) => p.id) }).expect(201);

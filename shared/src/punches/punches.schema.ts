@@ -130,4 +130,6 @@ export interface CorrectionPreview {
    * limit, or, for a clock-on taken out, those it recorded, taken out too.
    */
   withIt: DisplacedPunch[];
+  /** What it does to the counted time around it, in whole seconds: below zero when it takes time off. */
+  change: { attendanceSeconds: number; clockedSeconds: number };
 }

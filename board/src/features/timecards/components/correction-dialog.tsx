@@ -45,6 +45,7 @@ import {
   clockValue,
   dayValue,
   formatDay,
+  formatHours,
   formatDayClock,
 } from '../timecard-format';
 import { jobLineChoices } from '../timecard-model';
@@ -369,6 +370,12 @@ export function CorrectionDialog({
                   </MessageBarBody>
                 </MessageBar>
               )}
+              {shown && (shown.change.attendanceSeconds !== 0 || shown.change.clockedSeconds !== 0) && (
+                <Caption1>
+                  On the card: attendance {signedHours(shown.change.attendanceSeconds)}, on jobs{' '}
+                  {signedHours(shown.change.clockedSeconds)}.
+                </Caption1>
+              )}
               {formError && (
                 <MessageBar intent="error" layout="multiline">
                   <MessageBarBody>{formError}</MessageBarBody>
@@ -409,3 +416,7 @@ function PunchList({ punches, className }: { punches: DisplacedPunch[]; classNam
     </ul>
   );
 }
+
+/** "−0.83 h", "+0.5 h", "0 h": a change of counted time. */
+const signedHours = (seconds: number) =>
+  `${seconds < 0 ? '−' : seconds > 0 ? '+' : ''}${formatHours(Math.abs(seconds))}`;
