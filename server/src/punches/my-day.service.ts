@@ -1,10 +1,16 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, count, eq, gte, inArray, or } from 'drizzle-orm';
-import { shopDayKey, shopLocalInstant, type MyDay, type TechnicianState } from '@baytime/shared';
+import { and, count, desc, eq, gte, inArray, or } from 'drizzle-orm';
+import {
+  ANSWERED_FINDINGS_HOURS,
+  shopDayKey,
+  shopLocalInstant,
+  type MyDay,
+  type TechnicianState,
+} from '@baytime/shared';
 import type { Principal } from '../auth/principal.js';
 import { DB, type Db } from '../db/database.js';
 import { lineIsDone } from '../db/line-is-done.js';
-import { jobLines } from '../db/schema/index.js';
+import { findings, jobLines } from '../db/schema/index.js';
 import { FloorService } from '../floor/floor.service.js';
 import { ShopService } from '../shop/shop.service.js';
 import { receivedParts, waitingParts } from '../work/parts-hold.dto.js';
@@ -53,6 +59,10 @@ export class MyDayService {
       })),
       doneToday: this.doneToday(technician.id, now, settings.timeZone),
       finalChecks: this.finalChecks(technician.id),
+      answeredFindings: this.answeredFindings(
+        lines.map((line) => line.id),
+        now,
+      ),
       idleSignOutSeconds: settings.kioskIdleSeconds,
       maxConcurrentJobs: settings.maxConcurrentJobs,
     };
@@ -73,6 +83,33 @@ export class MyDayService {
         )
         .get()?.n ?? 0
     );
+  }
+
+  private answeredFindings(lineIds: number[], now: Date): MyDay['answeredFindings'] {
+    if (!lineIds.length) return [];
+    return this.db
+      .select({
+        findingId: findings.id,
+        jobLineId: findings.jobLineId,
+        note: findings.note,
+        answer: findings.answer,
+        answeredAt: findings.answeredAt,
+      })
+      .from(findings)
+      .where(
+        and(
+          inArray(findings.jobLineId, lineIds),
+          inArray(findings.answer, ['approved', 'declined']),
+          gte(findings.answeredAt, new Date(now.getTime() - ANSWERED_FINDINGS_HOURS * 3600_000)),
+        ),
+      )
+      .orderBy(desc(findings.answeredAt), desc(findings.id))
+      .all()
+      .flatMap(({ answer, answeredAt, ...finding }) =>
+        answer !== 'pending' && answeredAt
+          ? [{ ...finding, answer, answeredAt: answeredAt.toISOString() }]
+          : [],
+      );
   }
 
   /** Bays waiting for a final check on a vehicle this technician worked on. */

@@ -3,6 +3,9 @@ import type { PartsHoldDto } from '../work/parts.schema.js';
 import type { JobLineStatus, Priority } from '../work/work.schema.js';
 import type { BreakKind } from './punches.schema.js';
 
+/** How long My day keeps listing a customer's answer to a finding. */
+export const ANSWERED_FINDINGS_HOURS = 24;
+
 export const SHIFT_STATUSES = ['off', 'on-shift', 'on-break'] as const;
 export type ShiftStatus = (typeof SHIFT_STATUSES)[number];
 
@@ -36,6 +39,20 @@ export interface MyFinalCheck {
   vehicle: string;
 }
 
+/**
+ * A customer's answer to a finding on one of this technician's open lines. The kiosk signs out
+ * after a minute idle, so the live `finding.answered` event mostly reaches nobody: My day lists the
+ * recent answers instead.
+ */
+export interface MyAnsweredFinding {
+  findingId: number;
+  jobLineId: number;
+  /** What the technician wrote on the finding. */
+  note: string;
+  answer: 'approved' | 'declined';
+  answeredAt: string;
+}
+
 /** What the kiosk shows a signed-in technician: `GET /api/me/day`. */
 export interface MyDay {
   serverTime: string;
@@ -46,6 +63,8 @@ export interface MyDay {
   /** Lines this technician finished since the shop's midnight. */
   doneToday: number;
   finalChecks: MyFinalCheck[];
+  /** Answers from the last `ANSWERED_FINDINGS_HOURS` to findings on `lines`, newest first. */
+  answeredFindings: MyAnsweredFinding[];
   idleSignOutSeconds: number;
   maxConcurrentJobs: number;
 }

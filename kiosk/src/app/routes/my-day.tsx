@@ -14,6 +14,7 @@ import { useShop } from '@/features/shop/api/get-shop';
 import { projectDay, type DayLine, type PendingPunch } from '@/features/my-day/project-day';
 import { statusText } from '@/features/my-day/status-text';
 import { partsInNotices, partsWaitText } from '@/features/my-day/parts-words';
+import { FindingAnswerNotices } from '@/features/my-day/components/finding-answer-notices';
 import { useFindingAnswerNotices } from '@/features/my-day/hooks/use-finding-answer-notices';
 import { StatusLine } from '@/features/my-day/components/status-line';
 import { ShiftActions } from '@/features/my-day/components/shift-actions';
@@ -137,6 +138,7 @@ function MyDayScreen({ technicianId }: { technicianId: number }) {
               {notice}
             </p>
           ))}
+          <FindingAnswerNotices lines={view.lines} answered={view.answeredFindings} />
           <JobLineList
             view={view}
             now={now}

@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import type { MyJobLine } from '@baytime/shared';
-import { findingAnswerNotice, linesAnswered, NOTICE_NOTE_MAX, shortNote } from './finding-answer-words';
+import type { MyAnsweredFinding, MyJobLine } from '@baytime/shared';
+import {
+  answerNotices,
+  findingAnswerNotice,
+  linesAnswered,
+  linesUnexplained,
+  mergeAnswers,
+  NOTICE_NOTE_MAX,
+  shortNote,
+} from './finding-answer-words';
 
 function line(id: number, changes: Partial<MyJobLine> = {}): MyJobLine {
   return {
@@ -77,5 +85,54 @@ describe('shortNote', () => {
 
   it('cuts one very long word where it stands', () => {
     expect(shortNote('x'.repeat(80), 10)).toBe(`${'x'.repeat(9)}…`);
+  });
+});
+
+function answered(findingId: number, changes: Partial<MyAnsweredFinding> = {}): MyAnsweredFinding {
+  return {
+    findingId,
+    jobLineId: 2,
+    note: 'Torn boot on the inner tie rod end',
+    answer: 'approved',
+    answeredAt: '2026-03-10T14:00:00.000Z',
+    ...changes,
+  };
+}
+
+describe('mergeAnswers', () => {
+  it('shows an answer once when it was both listed and heard live, and the list wins', () => {
+    const listed = [answered(7, { answer: 'declined', answeredAt: '2026-03-10T14:05:00.000Z' })];
+    const heard = [answered(7, { answeredAt: '2026-03-10T14:09:00.000Z' }), answered(8)];
+    expect(mergeAnswers(listed, heard)).toEqual([listed[0], heard[1]]);
+  });
+
+  it('puts the newest answer first', () => {
+    const older = answered(3, { answeredAt: '2026-03-10T09:00:00.000Z' });
+    const newer = answered(4, { answeredAt: '2026-03-10T11:00:00.000Z' });
+    expect(mergeAnswers([older], [newer]).map((a) => a.findingId)).toEqual([4, 3]);
+    expect(mergeAnswers([older, newer], []).map((a) => a.findingId)).toEqual([4, 3]);
+  });
+});
+
+describe('answerNotices', () => {
+  it('says each answer with the live notice’s words, skipping dismissed ones and lines no longer on the day', () => {
+    const answers = [
+      answered(7),
+      answered(8, { answer: 'declined', note: 'Coolant seeping at the water pump' }),
+      answered(9, { jobLineId: 5 }),
+    ];
+    expect(answerNotices([line(2), line(3)], answers, new Set([8]))).toEqual([
+      { findingId: 7, text: findingAnswerNotice(line(2), 'approved', 'Torn boot on the inner tie rod end') },
+    ]);
+    expect(answerNotices([line(2)], answers, new Set()).map((n) => n.text)).toEqual([
+      'Customer approved “Torn boot on the inner tie rod end” on RO 7319 line 2: it is added to the RO, and this line is back in your queue.',
+      'Customer declined “Coolant seeping at the water pump” on RO 7319 line 2: carry on with the rest of the line.',
+    ]);
+  });
+});
+
+describe('linesUnexplained', () => {
+  it('keeps only the lines back from approval that no answer explains', () => {
+    expect(linesUnexplained([line(2), line(3)], [answered(7)]).map((l) => l.id)).toEqual([3]);
   });
 });

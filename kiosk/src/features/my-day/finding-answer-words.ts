@@ -1,4 +1,4 @@
-import { oneLine, type MyJobLine } from '@baytime/shared';
+import { oneLine, type MyAnsweredFinding, type MyJobLine } from '@baytime/shared';
 
 export type FindingAnswer = 'approved' | 'declined';
 
@@ -35,4 +35,53 @@ export function findingAnswerNotice(
   if (answer === 'declined')
     return `Customer declined ${work} on ${where}: carry on with the rest of the line.`;
   return `Customer answered on ${where}: this line is back in your queue.`;
+}
+
+/**
+ * The answers My day shows: those the server listed and those heard live that it does not list yet,
+ * one per finding, newest first. The list wins: an answer the office corrected reaches the tablet
+ * only through it.
+ */
+export function mergeAnswers(
+  listed: readonly MyAnsweredFinding[],
+  heard: readonly MyAnsweredFinding[],
+): MyAnsweredFinding[] {
+  const byFinding = new Map<number, MyAnsweredFinding>();
+  for (const answer of heard) byFinding.set(answer.findingId, answer);
+  for (const answer of listed) byFinding.set(answer.findingId, answer);
+  return [...byFinding.values()].sort(
+    (a, b) => Date.parse(b.answeredAt) - Date.parse(a.answeredAt) || b.findingId - a.findingId,
+  );
+}
+
+export interface AnswerNotice {
+  findingId: number;
+  text: string;
+}
+
+/** A notice for each answer on a line still on the technician's day that they have not dismissed. */
+export function answerNotices(
+  lines: readonly MyJobLine[],
+  answers: readonly MyAnsweredFinding[],
+  dismissed: ReadonlySet<number>,
+): AnswerNotice[] {
+  const lineById = new Map(lines.map((line) => [line.id, line]));
+  return answers.flatMap((answered) => {
+    const line = lineById.get(answered.jobLineId);
+    return line && !dismissed.has(answered.findingId)
+      ? [{ findingId: answered.findingId, text: findingAnswerNotice(line, answered.answer, answered.note) }]
+      : [];
+  });
+}
+
+/**
+ * Lines back from waiting for approval that no known answer explains (the hold was released another
+ * way, or the answer is older than the server lists): they still get the plain notice.
+ */
+export function linesUnexplained(
+  answered: readonly MyJobLine[],
+  answers: readonly MyAnsweredFinding[],
+): MyJobLine[] {
+  const explained = new Set(answers.map((a) => a.jobLineId));
+  return answered.filter((line) => !explained.has(line.id));
 }

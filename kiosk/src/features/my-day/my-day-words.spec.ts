@@ -31,6 +31,7 @@ const day = (lines: MyJobLine[], shift: MyDay['shift']['status'] = 'on-shift'): 
   lines,
   doneToday: 0,
   finalChecks: [],
+  answeredFindings: [],
   idleSignOutSeconds: 60,
   maxConcurrentJobs: 1,
 });

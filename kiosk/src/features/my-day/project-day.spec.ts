@@ -36,6 +36,7 @@ function day(changes: Partial<MyDay> = {}): MyDay {
     lines: [line(1), line(2)],
     doneToday: 0,
     finalChecks: [],
+    answeredFindings: [],
     idleSignOutSeconds: 60,
     maxConcurrentJobs: 1,
     ...changes,

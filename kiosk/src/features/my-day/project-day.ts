@@ -24,6 +24,7 @@ export interface DayView {
   lines: DayLine[];
   /** A shift or break punch is still on its way. */
   shiftPending: boolean;
+  answeredFindings: MyDay['answeredFindings'];
 }
 
 /**
@@ -110,7 +111,7 @@ export function projectDay(
         break;
     }
   }
-  return { shift, shiftStartedAt, lines, shiftPending };
+  return { shift, shiftStartedAt, lines, shiftPending, answeredFindings: day.answeredFindings };
 }
 
 /** Seconds on a line at `now`: the server's count plus the running part, split as the shop splits. */
