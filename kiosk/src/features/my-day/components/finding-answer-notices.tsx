@@ -15,7 +15,7 @@ export function FindingAnswerNotices({ lines, answered }: FindingAnswerNoticesPr
       {notices.map((notice) => (
         <div key={notice.findingId} className="bt-parts-in bt-answer-notice" role="status">
           <p>{notice.text}</p>
-          <button type="button" className="bt-answer-notice__ok" onClick={() => dismiss(notice.findingId)}>
+          <button type="button" className="bt-banner-button" onClick={() => dismiss(notice.findingId)}>
             OK
           </button>
         </div>
