@@ -421,4 +421,128 @@ describe(`${RepairOrdersService.name} after the fact`, () => {
       'Nell Ashby: Ready notice sent by text to (608) 555-0177',
     ]);
   });
+
+  describe('refusing an edit of a field someone changed since it was read', () => {
+    const writeTwo = () =>
+      write(
+        [
+          { title: 'Inspect front suspension', bookHours: 0.8 },
+          { title: 'Replace sway bar links', bookHours: 1.1 },
+        ],
+        { customer: { name: 'Ysolde Marrick', phone: '(608) 555-0171' } },
+      );
+    const edits = (entity: string, entityId: number) =>
+      audits(entity, entityId).filter((entry) => entry.action === 'edit');
+
+    it('refuses an RO edit of a field someone changed since it was read, storing nothing of it', async () => {
+      const written = await writeTwo();
+      await as(advisor)
+        .patch(`/api/repair-orders/${written.id}`, {
+          concern: 'Rattle and a clunk',
+          was: { concern: 'Grinding when braking' },
+        })
+        .expect(200);
+      const refused = await as(owner)
+        .patch(`/api/repair-orders/${written.id}`, {
+          concern: 'Only a rattle',
+          vehicle: { plate: 'RM 4410' },
+          was: { concern: 'Grinding when braking', vehicle: { plate: written.plate } },
+        })
+        .expect(409);
+      expect(refused.body.message).toBe(
+        `Someone else changed the concern of RO ${written.number} since you opened it: reload to see their change`,
+      );
+      expect(await ro(written.id)).toMatchObject({ concern: 'Rattle and a clunk', plate: written.plate });
+      expect(edits('repair-order', written.id)).toHaveLength(1);
+
+      // Another field read at the same time is no conflict; without `was`, as it always was.
+      await as(owner)
+        .patch(`/api/repair-orders/${written.id}`, {
+          vehicle: { plate: 'RM 4410' },
+          was: { vehicle: { plate: written.plate } },
+        })
+        .expect(200);
+      const unchecked = (
+        await as(owner).patch(`/api/repair-orders/${written.id}`, { concern: 'Only a rattle' }).expect(200)
+      ).body as RepairOrderSummary;
+      expect(unchecked).toMatchObject({ concern: 'Only a rattle', plate: 'RM 4410' });
+    });
+
+    it('compares a phone, an e-mail and a promise as stored, whatever their spelling', async () => {
+      const written = await writeTwo();
+      const promise = new Date(Date.now() + 72 * HOUR).toISOString();
+      await as(advisor)
+        .patch(`/api/repair-orders/${written.id}`, {
+          customer: { phone: '608-555-0199', email: 'Ysolde@Example.test' },
+          promisedAt: promise,
+          was: { customer: { phone: '(608) 555-0171', email: null }, promisedAt: written.promisedAt },
+        })
+        .expect(200);
+      // Read back as the office shows them: another spelling of the same phone, e-mail and instant.
+      await as(owner)
+        .patch(`/api/repair-orders/${written.id}`, {
+          concern: 'Rattle over bumps, front left',
+          was: {
+            customer: { phone: '(608) 555-0199', email: 'ysolde@example.test' },
+            promisedAt: promise.replace('Z', '+00:00'),
+            concern: 'Grinding when braking',
+          },
+        })
+        .expect(200);
+    });
+
+    it('refuses a line edit of a field someone changed since it was read, storing nothing of it', async () => {
+      const written = await writeTwo();
+      const line = written.lines[0]!;
+      await as(advisor)
+        .patch(`/api/job-lines/${line.id}/details`, { bookHours: 1.2, was: { bookHours: 0.8 } })
+        .expect(200);
+      const refused = await as(owner)
+        .patch(`/api/job-lines/${line.id}/details`, {
+          bookHours: 0.5,
+          title: 'Look at the front end',
+          was: { bookHours: 0.8, title: 'Inspect front suspension' },
+        })
+        .expect(409);
+      expect(refused.body.message).toBe(
+        'Someone else changed the book hours of line 1 since you opened it: reload to see their change',
+      );
+      expect((await ro(written.id)).lines[0]).toMatchObject({
+        bookHours: 1.2,
+        title: 'Inspect front suspension',
+      });
+      expect(edits('job-line', line.id)).toHaveLength(1);
+
+      // Another field read at the same time is no conflict; without `was`, as it always was.
+      await as(owner)
+        .patch(`/api/job-lines/${line.id}/details`, {
+          title: 'Look at the front end',
+          was: { title: 'Inspect front suspension' },
+        })
+        .expect(200);
+      const unchecked = (
+        await as(owner).patch(`/api/job-lines/${line.id}/details`, { bookHours: 0.5 }).expect(200)
+      ).body as JobLineDto;
+      expect(unchecked).toMatchObject({ bookHours: 0.5, title: 'Look at the front end' });
+    });
+
+    it('takes a line edit read before the foreman assigned the line and its technician clocked on', async () => {
+      const written = await writeTwo();
+      const line = written.lines[1]!;
+      await as(foreman).patch(`/api/job-lines/${line.id}`, { technicianId: tech.user.id }).expect(200);
+      // On shift in the demo shop already.
+      await as(tech.accessToken)
+        .post('/api/punches', { id: randomUUID(), kind: 'job-on', jobLineId: line.id })
+        .expect(201);
+      const saved = (
+        await as(advisor)
+          .patch(`/api/job-lines/${line.id}/details`, {
+            title: 'Replace both sway bar links',
+            was: { title: 'Replace sway bar links' },
+          })
+          .expect(200)
+      ).body as JobLineDto;
+      expect(saved).toMatchObject({ title: 'Replace both sway bar links', status: 'working' });
+    });
+  });
 });
