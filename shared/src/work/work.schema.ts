@@ -186,8 +186,6 @@ export const kioskDoneSchema = finishLineSchema.extend({
   cause: plainText(1000, { min: 3, multiline: true, message: 'Say what you found' }),
   correction: plainText(1000, { min: 3, multiline: true, message: 'Say what you did' }),
 });
-export type KioskDoneBody = z.infer<typeof kioskDoneSchema>;
-export type KioskDoneFields = z.input<typeof kioskDoneSchema>;
 
 const emailSchema = z.email('Not an e-mail address').max(200);
 
